@@ -1,0 +1,20 @@
+import { z } from 'zod';
+import { roles } from './common';
+
+export const signInInput = z.object({
+  email: z.email({ message: 'enter an e-mail address like name@example.com' }).transform((s) => s.toLowerCase()),
+  password: z.string().min(1, 'enter your password'),
+});
+export type SignInInput = z.input<typeof signInInput>;
+
+export const sessionUser = z.object({
+  id: z.string(),
+  email: z.string(),
+  name: z.string(),
+  role: z.enum(roles),
+  organizationId: z.string().nullable(),
+  organizationName: z.string().nullable(),
+});
+export type SessionUser = z.infer<typeof sessionUser>;
+
+export type SignInResult = { token: string; expiresAt: string; user: SessionUser };

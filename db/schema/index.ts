@@ -1,0 +1,6 @@
+export * from './organizations';
+export * from './users';
+export * from './designs';
+export * from './builds';
+export * from './travelers';
+export * from './findings';

@@ -1,0 +1,52 @@
+import { index, integer, jsonb, pgEnum, pgTable, real, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { builds } from './builds';
+import { designRevisions } from './designs';
+import { users } from './users';
+
+export const holeStatus = pgEnum('hole_status', ['pending', 'installed', 'flagged', 'held', 'reworked', 'accepted']);
+
+/** One physical part of a build, made from one published revision. */
+export const travelers = pgTable('travelers', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  buildId: uuid('build_id').notNull().references(() => builds.id, { onDelete: 'cascade' }),
+  revisionId: uuid('revision_id').notNull().references(() => designRevisions.id),
+  serial: text('serial').notNull().unique(),
+  /** Random, unguessable: what the QR label carries. */
+  qrToken: text('qr_token').notNull().unique(),
+  /** Short, typeable, unambiguous alphabet: for a label the camera cannot read. */
+  shortCode: text('short_code').notNull().unique(),
+  signedOffBy: uuid('signed_off_by').references(() => users.id),
+  signedOffAt: timestamp('signed_off_at', { withTimezone: true }),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+}, (t) => [index('travelers_build').on(t.buildId)]);
+
+export const holes = pgTable('holes', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  travelerId: uuid('traveler_id').notNull().references(() => travelers.id, { onDelete: 'cascade' }),
+  holeId: text('hole_id').notNull(),
+  line: text('line').notNull(),
+  seq: integer('seq').notNull(),
+  stationIn: real('station_in').notNull(),
+  status: holeStatus('status').notNull().default('pending'),
+  updatedBy: uuid('updated_by').references(() => users.id),
+  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+}, (t) => [uniqueIndex('holes_traveler_hole').on(t.travelerId, t.holeId)]);
+
+export const travelerSteps = pgTable('traveler_steps', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  travelerId: uuid('traveler_id').notNull().references(() => travelers.id, { onDelete: 'cascade' }),
+  seq: integer('seq').notNull(),
+  text: text('text').notNull(),
+  doneBy: uuid('done_by').references(() => users.id),
+  doneAt: timestamp('done_at', { withTimezone: true }),
+});
+
+/** Bench events (holes ticked, steps done, sign-off): the traveler half of the build log. */
+export const travelerEvents = pgTable('traveler_events', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  travelerId: uuid('traveler_id').notNull().references(() => travelers.id, { onDelete: 'cascade' }),
+  actorId: uuid('actor_id').notNull().references(() => users.id),
+  kind: text('kind').notNull(),
+  detail: jsonb('detail').$type<Record<string, unknown>>().notNull(),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+}, (t) => [index('traveler_events_traveler').on(t.travelerId, t.createdAt)]);

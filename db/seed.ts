@@ -1,0 +1,92 @@
+import sharp from 'sharp';
+import type { RevisionInput } from './contracts';
+import type { Database } from '.';
+import { organizations, users } from './schema';
+import { hashPassword } from '../server/auth/passwords';
+import { buildsService } from '../server/builds/builds-service';
+import { designsService } from '../server/designs/designs-service';
+import { findingsService } from '../server/findings/findings-service';
+import type { MailQueue } from '../server/jobs/mail-queue';
+import { kitsService } from '../server/kits/kits-service';
+import { createUrlSigner } from '../server/photos/url-signer';
+import type { PhotoStorage } from '../server/storage/photo-storage';
+import { travelersService } from '../server/travelers/travelers-service';
+
+/** The invented demo scenario: one supplier, one kit, one builder, one inspector. Every sign-in's password. */
+export const DEMO_PASSWORD = 'pitchcard-demo';
+export const DEMO_USERS = {
+  supplier: { email: 'maren@northfold.example', name: 'Maren Holt', role: 'supplier' as const },
+  builder: { email: 'tobias@benchwork.example', name: 'Tobias Fenn', role: 'builder' as const },
+  inspector: { email: 'priya@checkpoint.example', name: 'Priya Ashdown', role: 'inspector' as const },
+  admin: { email: 'admin@pitchcard.example', name: 'Site Admin', role: 'admin' as const },
+};
+
+function ribRevision(over: Partial<RevisionInput> = {}): Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & { steps: string[]; changeNote: string } {
+  return {
+    material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 54,
+    lines: [
+      { code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 44, zones: [{ fromIn: 0, toIn: 8, pitchIn: 1 }, { fromIn: 8, toIn: 24, pitchIn: 1.5 }, { fromIn: 24, toIn: 44, pitchIn: 2 }] },
+      { code: 'L', name: 'Lower flange', surface: 'lower', startIn: 1, lengthIn: 44, zones: [{ fromIn: 0, toIn: 12, pitchIn: 1.5 }, { fromIn: 12, toIn: 44, pitchIn: 2 }] },
+    ],
+    steps: ['Deburr all holes and flute the flanges straight', 'Cleco rib to spar and skin; check flange fit', 'Rivet upper flange', 'Rivet lower flange', 'Inspect shop heads'],
+    changeNote: '',
+    ...over,
+  } as never;
+}
+
+/** A stand-in bench photo: a drilled hole in a sheet, drawn, so the demo needs no binary files. */
+async function demoPhoto(): Promise<Buffer> {
+  const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="800" height="600">
+    <rect width="800" height="600" fill="#9aa0a6"/><rect x="0" y="380" width="800" height="220" fill="#7d848b"/>
+    <ellipse cx="400" cy="300" rx="70" ry="52" fill="#2b2e31"/><ellipse cx="400" cy="300" rx="82" ry="62" fill="none" stroke="#c9ced3" stroke-width="6"/>
+    <circle cx="240" cy="300" r="46" fill="#b9bec3" stroke="#5b6166" stroke-width="5"/><circle cx="560" cy="300" r="46" fill="#b9bec3" stroke="#5b6166" stroke-width="5"/></svg>`;
+  return sharp(Buffer.from(svg)).jpeg({ quality: 80 }).toBuffer();
+}
+
+/** Loads the demo when the database has no users yet; a second run changes nothing. */
+export async function seedDemo(database: Database, storage: PhotoStorage, mailQueue: MailQueue, jwtSecret: string): Promise<boolean> {
+  const { db, pool } = database;
+  if ((await db.select({ id: users.id }).from(users).limit(1)).length) return false;
+
+  const [supplierOrg] = await db.insert(organizations).values({ name: 'Northfold Kitworks', kind: 'supplier' }).returning();
+  const [shop] = await db.insert(organizations).values({ name: 'Benchwork Hangar 3', kind: 'shop' }).returning();
+  const passwordHash = await hashPassword(DEMO_PASSWORD);
+  const made: Record<string, Express.User> = {};
+  for (const [key, u] of Object.entries(DEMO_USERS)) {
+    const organizationId = u.role === 'supplier' ? supplierOrg.id : u.role === 'admin' ? null : shop.id;
+    const [row] = await db.insert(users).values({ ...u, organizationId, passwordHash }).returning();
+    made[key] = { id: row.id, email: row.email, name: row.name, role: row.role, organizationId, organizationName: organizationId === supplierOrg.id ? supplierOrg.name : organizationId ? shop.name : null };
+  }
+  const { supplier, builder } = made;
+
+  const kit = await kitsService(db).create(supplier, {
+    code: 'NK-2', name: 'NK-2 Quillon two-seat trainer', weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 54,
+    stallSpeedKeas: 47, cruiseSpeedKeas: 118, category: 'utility', airfoil: 'NACA 2412',
+  });
+  const designs = designsService(db);
+  const inner = await designs.create(supplier, { design: { kitModelId: kit.id, partNumber: 'W-104', name: 'Wing rib, inboard', kind: 'rib' }, revision: ribRevision() });
+  await designs.publish(supplier, inner.revisions[0].id);
+  const outer = await designs.create(supplier, { design: { kitModelId: kit.id, partNumber: 'W-105', name: 'Wing rib, outboard', kind: 'rib' }, revision: ribRevision({ gaugeIn: 0.02 }) });
+  await designs.publish(supplier, outer.revisions[0].id);
+
+  await buildsService(db, '').create(supplier, {
+    kitModelId: kit.id, kitSerial: 'NK2-0147', builderEmail: DEMO_USERS.builder.email, inspectorEmail: DEMO_USERS.inspector.email,
+  });
+
+  // A later change to the outboard rib: its traveler in the build shows the newer revision.
+  const revB = await designs.newRevision(supplier, outer.id, { ...ribRevision({ gaugeIn: 0.025 }), changeNote: 'Gauge up to 0.025 in: flange pull-through margin at the nose was thin' });
+  await designs.publish(supplier, revB.id);
+
+  const signer = createUrlSigner(jwtSecret);
+  const findings = findingsService({ db, pool, storage, signer, mailQueue });
+  const travelers = travelersService(db, findings.list);
+  const parts = await travelers.list(builder);
+  const innerTraveler = parts.find((t) => t.partNumber === 'W-104')!;
+  await travelers.tickHoles(builder, innerTraveler.id, { holeIds: ['U-01', 'U-02', 'U-03', 'U-04', 'U-05', 'U-06', 'U-07', 'U-08'], status: 'installed' });
+  await travelers.setStep(builder, innerTraveler.id, (await travelers.detail(builder, innerTraveler.id)).steps[0].id, true);
+  await findings.create(builder, {
+    travelerId: innerTraveler.id, holeIds: ['U-09'], kind: 'elongated',
+    note: 'Hole looks oval after deburring, about a drill size long fore and aft.',
+  }, [{ buffer: await demoPhoto(), originalname: 'hole-u09.jpg' }]);
+  return true;
+}

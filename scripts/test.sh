@@ -1,0 +1,17 @@
+#!/usr/bin/env bash
+# Every test: type check, then jest (engineering, server against a private PostgreSQL and SMTP fake,
+# components, and the real-browser walk in headless Chromium). Extra arguments go to jest.
+set -euo pipefail
+root=$(cd "$(dirname "$0")/.." && pwd)
+cd "$root"
+[ -d node_modules ] || npm ci
+
+pgport=${TEST_PGPORT:-54330}
+bash scripts/pg.sh start test "$pgport" test
+trap 'bash scripts/pg.sh stop test "$pgport"' EXIT
+# Each test file makes its own database on this cluster.
+export TEST_DATABASE_URL="postgres://postgres@127.0.0.1:$pgport/postgres"
+
+node_modules/.bin/tsc --noEmit -p .
+bash scripts/build-web.sh
+node_modules/.bin/jest --ci "$@"

@@ -1,0 +1,63 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import express, { type Express } from 'express';
+import type { Database } from '../db';
+import { authRouter } from './auth/auth-router';
+import { createPassport } from './auth/passport';
+import { buildsRouter } from './builds/builds-router';
+import type { Config } from './config';
+import type { AppContext } from './context';
+import { designsRouter, revisionsRouter } from './designs/designs-router';
+import { devRouter } from './dev/dev-router';
+import { findingsRouter } from './findings/findings-router';
+import { notFound } from './http-error';
+import type { MailQueue } from './jobs/mail-queue';
+import { kitsRouter } from './kits/kits-router';
+import type { SmtpFake } from './mail/smtp-fake';
+import { authenticate } from './middleware/authenticate';
+import { errorHandler } from './middleware/error-handler';
+import { photosRouter } from './photos/photos-router';
+import { createUrlSigner } from './photos/url-signer';
+import { localPhotoStorage, type PhotoStorage } from './storage/photo-storage';
+import { travelersRouter } from './travelers/travelers-router';
+
+export type AppDeps = { config: Config; database: Database; mailQueue: MailQueue; storage?: PhotoStorage; smtpFake?: SmtpFake };
+
+/** Builds the Express app: the API under /api and the exported web app on the same origin. */
+export function createApp({ config, database, mailQueue, storage, smtpFake }: AppDeps): { app: Express; ctx: AppContext } {
+  const ctx: AppContext = {
+    config, db: database.db, pool: database.pool, mailQueue,
+    passport: createPassport(database.db, config.jwtSecret),
+    storage: storage ?? localPhotoStorage(config.uploadsDir),
+    signer: createUrlSigner(config.jwtSecret),
+  };
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(ctx.passport.initialize());
+
+  const api = express.Router();
+  api.use(express.json({ limit: '1mb' }));
+  api.get('/health', (_req, res) => { res.json({ ok: true }); });
+  api.use('/auth', authRouter(ctx));
+  api.use('/photos', photosRouter(ctx));
+  if (smtpFake && config.env !== 'production') api.use('/dev', devRouter(smtpFake));
+  const signedIn = authenticate(ctx);
+  api.use('/kits', signedIn, kitsRouter(ctx));
+  api.use('/designs', signedIn, designsRouter(ctx));
+  api.use('/revisions', signedIn, revisionsRouter(ctx));
+  api.use('/builds', signedIn, buildsRouter(ctx));
+  api.use('/travelers', signedIn, travelersRouter(ctx));
+  api.use('/findings', signedIn, findingsRouter(ctx));
+  api.use((_req, _res, next) => next(notFound('API route')));
+  api.use(errorHandler);
+  app.use('/api', api);
+
+  // The exported single-page app: files as they are, every other path gets index.html for the router.
+  const index = path.join(config.webDist, 'index.html');
+  if (existsSync(index)) {
+    app.use(express.static(config.webDist, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => res.sendFile(index));
+  }
+  return { app, ctx };
+}

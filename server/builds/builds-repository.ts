@@ -1,0 +1,43 @@
+import { and, asc, count, desc, eq, inArray, notInArray, sql } from 'drizzle-orm';
+import type { Db } from '../../db';
+import { buildMembers, builds, findings, holes, kitModels, organizations, travelers, users } from '../../db/schema';
+import { doneStatuses } from '../../db/contracts';
+import { visibleBuilds } from './build-access';
+
+export async function listVisibleBuilds(db: Db, user: Express.User, onlyId?: string) {
+  const where = onlyId ? and(visibleBuilds(db, user), eq(builds.id, onlyId)) : visibleBuilds(db, user);
+  const rows = await db.select({
+    id: builds.id, kitSerial: builds.kitSerial, kitName: kitModels.name, supplierName: organizations.name,
+    organizationId: builds.organizationId, createdAt: builds.createdAt,
+  }).from(builds).innerJoin(kitModels, eq(kitModels.id, builds.kitModelId)).innerJoin(organizations, eq(organizations.id, builds.organizationId))
+    .where(where).orderBy(desc(builds.createdAt));
+  if (rows.length === 0) return [];
+  const ids = rows.map((r) => r.id);
+  const [members, travelerCounts, holeCounts, openFindings] = await Promise.all([
+    db.select({ buildId: buildMembers.buildId, role: buildMembers.role, id: users.id, name: users.name, email: users.email })
+      .from(buildMembers).innerJoin(users, eq(users.id, buildMembers.userId)).where(inArray(buildMembers.buildId, ids)).orderBy(asc(users.name)),
+    db.select({ buildId: travelers.buildId, n: count() }).from(travelers).where(inArray(travelers.buildId, ids)).groupBy(travelers.buildId),
+    db.select({
+      buildId: travelers.buildId, total: count(),
+      done: sql<number>`count(*) filter (where ${inArray(holes.status, [...doneStatuses])})`.mapWith(Number),
+    }).from(holes).innerJoin(travelers, eq(travelers.id, holes.travelerId)).where(inArray(travelers.buildId, ids)).groupBy(travelers.buildId),
+    db.select({ buildId: travelers.buildId, n: count() }).from(findings).innerJoin(travelers, eq(travelers.id, findings.travelerId))
+      .where(and(inArray(travelers.buildId, ids), notInArray(findings.status, ['closed']))).groupBy(travelers.buildId),
+  ]);
+  const person = ({ id, name, email }: { id: string; name: string; email: string }) => ({ id, name, email });
+  return rows.map(({ organizationId: _, ...b }) => ({
+    ...b,
+    createdAt: b.createdAt.toISOString(),
+    builders: members.filter((m) => m.buildId === b.id && m.role === 'builder').map(person),
+    inspectors: members.filter((m) => m.buildId === b.id && m.role === 'inspector').map(person),
+    travelerCount: travelerCounts.find((c) => c.buildId === b.id)?.n ?? 0,
+    holesTotal: holeCounts.find((c) => c.buildId === b.id)?.total ?? 0,
+    holesDone: holeCounts.find((c) => c.buildId === b.id)?.done ?? 0,
+    openFindings: openFindings.find((c) => c.buildId === b.id)?.n ?? 0,
+  }));
+}
+
+export async function findUserByEmail(db: Db, email: string) {
+  const [row] = await db.select({ id: users.id, role: users.role, name: users.name }).from(users).where(eq(users.email, email));
+  return row;
+}

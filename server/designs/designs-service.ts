@@ -1,0 +1,108 @@
+import { and, eq } from 'drizzle-orm';
+import type { PartDesignDetail, PartDesignInput, PartDesignSummary, RevisionInput } from '../../db/contracts';
+import type { Db } from '../../db';
+import { designRevisions, partDesigns } from '../../db/schema';
+import { badRequest, conflict, notFound } from '../http-error';
+import { kitsService } from '../kits/kits-service';
+import { findDesign, findRevision, listDesigns, listRevisions } from './designs-repository';
+import { nextRevisionLetter } from './revision-letters';
+
+type RevisionBody = Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & { steps: string[]; changeNote: string };
+
+export const designsService = (db: Db) => {
+  const kits = kitsService(db);
+
+  async function ownDesign(user: Express.User, id: string) {
+    const design = await findDesign(db, id);
+    if (!design || (user.role !== 'admin' && design.organizationId !== user.organizationId)) throw notFound('part design');
+    return design;
+  }
+
+  async function detail(user: Express.User, id: string): Promise<PartDesignDetail> {
+    const { organizationId: _, ...design } = await ownDesign(user, id);
+    const revisions = await listRevisions(db, id);
+    const published = revisions.find((r) => r.status === 'published');
+    return { ...design, publishedLetter: published?.letter ?? null, revisions: revisions.map(serialiseRevision) };
+  }
+
+  async function ownRevision(user: Express.User, id: string) {
+    const revision = await findRevision(db, id);
+    if (!revision) throw notFound('revision');
+    await ownDesign(user, revision.partDesignId);
+    return revision;
+  }
+
+  const frozen = (letter: string, status: string) =>
+    conflict(`revision ${letter} is ${status} and can no longer be changed: start a new revision with a change note`);
+
+  return {
+    async list(user: Express.User, kitModelId?: string): Promise<PartDesignSummary[]> {
+      if (!user.organizationId) return [];
+      const { designs, revisions } = await listDesigns(db, user.organizationId, kitModelId);
+      return designs.map(({ organizationId: _, ...d }) => {
+        const mine = revisions.filter((r) => r.partDesignId === d.id);
+        return { ...d, latest: mine[0] ?? null, publishedLetter: mine.find((r) => r.status === 'published')?.letter ?? null };
+      });
+    },
+
+    detail,
+
+    async create(user: Express.User, input: { design: Required<PartDesignInput>; revision: RevisionBody }) {
+      await kits.get(user, input.design.kitModelId);
+      const id = await db.transaction(async (tx) => {
+        const clash = await tx.select({ id: partDesigns.id }).from(partDesigns)
+          .where(and(eq(partDesigns.kitModelId, input.design.kitModelId), eq(partDesigns.partNumber, input.design.partNumber)));
+        if (clash.length) throw conflict(`part number ${input.design.partNumber} already exists in this kit`, { 'design.partNumber': 'already used in this kit' });
+        const [design] = await tx.insert(partDesigns).values(input.design).returning();
+        await tx.insert(designRevisions).values({ ...input.revision, partDesignId: design.id, letter: 'A', createdBy: user.id });
+        return design.id;
+      });
+      return detail(user, id);
+    },
+
+    async newRevision(user: Express.User, designId: string, body: RevisionBody) {
+      await ownDesign(user, designId);
+      if (body.changeNote.length < 3) throw badRequest('a new revision needs a change note', { changeNote: 'say what changed and why' });
+      const id = await db.transaction(async (tx) => {
+        const existing = await tx.select({ letter: designRevisions.letter, status: designRevisions.status }).from(designRevisions)
+          .where(eq(designRevisions.partDesignId, designId)).for('update');
+        const draft = existing.find((r) => r.status === 'draft');
+        if (draft) throw conflict(`revision ${draft.letter} is still a draft: edit or publish it first`);
+        const [row] = await tx.insert(designRevisions).values({
+          ...body, partDesignId: designId, letter: nextRevisionLetter(existing.map((r) => r.letter)), createdBy: user.id,
+        }).returning({ id: designRevisions.id });
+        return row.id;
+      });
+      return serialiseRevision((await findRevision(db, id))!);
+    },
+
+    async updateRevision(user: Express.User, revisionId: string, body: RevisionBody) {
+      const revision = await ownRevision(user, revisionId);
+      if (revision.status !== 'draft') throw frozen(revision.letter, revision.status);
+      // The status guard in the WHERE makes a publish that slips in between win: the edit then changes nothing.
+      const updated = await db.update(designRevisions).set(body)
+        .where(and(eq(designRevisions.id, revisionId), eq(designRevisions.status, 'draft'))).returning({ id: designRevisions.id });
+      if (!updated.length) throw frozen(revision.letter, 'published');
+      return serialiseRevision((await findRevision(db, revisionId))!);
+    },
+
+    async publish(user: Express.User, revisionId: string) {
+      const revision = await ownRevision(user, revisionId);
+      if (revision.status !== 'draft') throw frozen(revision.letter, revision.status);
+      await db.transaction(async (tx) => {
+        await tx.update(designRevisions).set({ status: 'superseded' })
+          .where(and(eq(designRevisions.partDesignId, revision.partDesignId), eq(designRevisions.status, 'published')));
+        await tx.update(designRevisions).set({ status: 'published', publishedAt: new Date(), publishedBy: user.id })
+          .where(eq(designRevisions.id, revisionId));
+      });
+      return serialiseRevision((await findRevision(db, revisionId))!);
+    },
+  };
+};
+
+type RevisionRow = NonNullable<Awaited<ReturnType<typeof findRevision>>>;
+export function serialiseRevision(r: RevisionRow) {
+  return {
+    ...r, createdAt: r.createdAt.toISOString(), publishedAt: r.publishedAt?.toISOString() ?? null,
+  };
+}

@@ -1,0 +1,49 @@
+import type { Server } from 'node:http';
+import { createDatabase } from '../db';
+import { runMigrations } from '../db/migrate';
+import { seedDemo } from '../db/seed';
+import { createApp } from './app';
+import { loadConfig } from './config';
+import { findingMailWorker } from './jobs/finding-mail-worker';
+import { startMailQueue } from './jobs/mail-queue';
+import { startSmtpFake, type SmtpFake } from './mail/smtp-fake';
+import { createMailer } from './mail/transport';
+import { localPhotoStorage } from './storage/photo-storage';
+
+async function main() {
+  const config = loadConfig();
+  await runMigrations(config.databaseUrl);
+  const database = createDatabase(config.databaseUrl);
+  const storage = localPhotoStorage(config.uploadsDir);
+  const smtpFake: SmtpFake | undefined = config.smtp.fake ? await startSmtpFake(config.smtp.port, config.smtp.host) : undefined;
+  const mailer = createMailer(config.smtp);
+  const mailQueue = await startMailQueue(config.databaseUrl);
+  if (process.env.SEED_DEMO === '1' && (await seedDemo(database, storage, mailQueue, config.jwtSecret))) console.log('demo scenario loaded');
+  await mailQueue.work(findingMailWorker({ db: database.db, mailer, storage, publicUrl: config.publicUrl }));
+
+  const { app } = createApp({ config, database, mailQueue, storage, smtpFake });
+  const server: Server = app.listen(config.port, config.host, () => {
+    console.log(`Pitchcard is up at ${config.publicUrl}${smtpFake ? ` (mail fake on SMTP port ${smtpFake.port}; received mail at ${config.publicUrl}/dev/mail)` : ''}`);
+  });
+
+  let stopping = false;
+  const stop = async (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    console.log(`${signal}: draining`);
+    // Stop taking requests, let the queue finish the job in hand, then close mail and the pool.
+    await new Promise<void>((resolve) => server.close(() => resolve()));
+    await mailQueue.stop();
+    mailer.close();
+    await smtpFake?.close();
+    await database.close();
+    process.exit(0);
+  };
+  process.on('SIGINT', () => void stop('SIGINT'));
+  process.on('SIGTERM', () => void stop('SIGTERM'));
+}
+
+main().catch((err) => {
+  console.error(err instanceof Error ? err.message : err);
+  process.exit(1);
+});

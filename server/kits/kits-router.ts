@@ -1,0 +1,15 @@
+import { Router } from 'express';
+import { kitModelInput } from '../../db/contracts';
+import type { AppContext } from '../context';
+import { requireRole } from '../middleware/require-role';
+import { validateBody } from '../middleware/validate';
+import { kitsService } from './kits-service';
+
+export function kitsRouter(ctx: AppContext): Router {
+  const r = Router();
+  const kits = kitsService(ctx.db);
+  r.use(requireRole('supplier'));
+  r.get('/', async (req, res) => { res.json(await kits.list(req.user!)); });
+  r.post('/', validateBody(kitModelInput), async (req, res) => { res.status(201).json(await kits.create(req.user!, req.body)); });
+  return r;
+}

@@ -1,0 +1,39 @@
+import { simpleParser } from 'mailparser';
+import { SMTPServer } from 'smtp-server';
+
+export type ReceivedMail = { id: number; from: string; to: string[]; subject: string; text: string; html: string; attachments: number; receivedAt: string };
+export type SmtpFake = { port: number; messages: ReceivedMail[]; close: () => Promise<void> };
+
+/**
+ * A real SMTP server on loopback that keeps what it receives, for development and tests: the product
+ * speaks SMTP to it exactly as it would to a real relay.
+ */
+export async function startSmtpFake(port: number, host = '127.0.0.1'): Promise<SmtpFake> {
+  const messages: ReceivedMail[] = [];
+  const server = new SMTPServer({
+    disabledCommands: ['STARTTLS'],
+    authOptional: true,
+    logger: false,
+    onData(stream, session, callback) {
+      simpleParser(stream).then((mail) => {
+        const to = session.envelope.rcptTo.map((r) => r.address);
+        messages.push({
+          id: messages.length + 1, from: session.envelope.mailFrom ? session.envelope.mailFrom.address : '', to,
+          subject: mail.subject ?? '', text: mail.text ?? '', html: typeof mail.html === 'string' ? mail.html : '',
+          attachments: mail.attachments.length, receivedAt: new Date().toISOString(),
+        });
+        callback();
+      }, (err) => callback(err));
+    },
+  });
+  await new Promise<void>((resolve, reject) => {
+    server.once('error', reject);
+    server.listen(port, host, () => resolve());
+  });
+  const address = server.server.address();
+  return {
+    port: typeof address === 'object' && address ? address.port : port,
+    messages,
+    close: () => new Promise<void>((resolve) => server.close(() => resolve())),
+  };
+}

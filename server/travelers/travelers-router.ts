@@ -1,0 +1,25 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { idParam, lookupInput, stepInput, tickHolesInput } from '../../db/contracts';
+import type { AppContext } from '../context';
+import { findingsService } from '../findings/findings-service';
+import { validateBody, validateQuery } from '../middleware/validate';
+import { travelersService } from './travelers-service';
+
+const stepParams = z.object({ id: z.uuid({ message: 'must be an id' }), stepId: z.uuid({ message: 'must be an id' }) });
+
+export function travelersRouter(ctx: AppContext): Router {
+  const r = Router();
+  const findings = findingsService(ctx);
+  const service = travelersService(ctx.db, findings.list);
+  r.get('/', async (req, res) => { res.json(await service.list(req.user!)); });
+  r.get('/lookup', validateQuery(lookupInput), async (req, res) => { res.json(await service.lookup(req.user!, res.locals.query.code)); });
+  r.get('/:id', async (req, res) => { res.json(await service.detail(req.user!, idParam.parse(req.params).id)); });
+  r.post('/:id/holes', validateBody(tickHolesInput), async (req, res) => { res.json(await service.tickHoles(req.user!, idParam.parse(req.params).id, req.body)); });
+  r.post('/:id/steps/:stepId', validateBody(stepInput), async (req, res) => {
+    const { id, stepId } = stepParams.parse(req.params);
+    res.json(await service.setStep(req.user!, id, stepId, req.body.done));
+  });
+  r.post('/:id/sign-off', async (req, res) => { res.json(await service.signOff(req.user!, idParam.parse(req.params).id)); });
+  return r;
+}

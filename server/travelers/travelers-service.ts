@@ -1,0 +1,122 @@
+import { and, asc, eq, inArray, isNull, ne } from 'drizzle-orm';
+import type { TickHolesInput, TravelerDetail } from '../../db/contracts';
+
+import type { Db } from '../../db';
+import { findings, holes, travelerEvents, travelerSteps, travelers, users } from '../../db/schema';
+import { badRequest, conflict, forbidden, notFound } from '../http-error';
+import { parseTravelerCode } from './codes';
+import { partOutline } from './part-outline';
+import { findTravelerParts, listTravelers } from './travelers-repository';
+
+type FindingLister = (user: Express.User, filter: { travelerId: string }) => Promise<TravelerDetail['findings']>;
+
+export const travelersService = (db: Db, listFindings: FindingLister) => {
+  async function visible(user: Express.User, id: string) {
+    const [summary] = await listTravelers(db, user, { id });
+    if (!summary) throw notFound('traveler');
+    return summary;
+  }
+
+  /** Builder actions need the builder of this build, and a part not yet signed off. */
+  async function forBench(user: Express.User, id: string) {
+    if (user.role !== 'builder') throw forbidden('only the builder works the traveler');
+    const summary = await visible(user, id);
+    if (summary.signedOff) throw conflict('this part is signed off and can no longer change');
+    return summary;
+  }
+
+  async function detail(user: Express.User, id: string): Promise<TravelerDetail> {
+    const summary = await visible(user, id);
+    const { traveler, revision, design, kit } = (await findTravelerParts(db, id))!;
+    const [holeRows, stepRows, approver, signer, travelerFindings] = await Promise.all([
+      db.select({ holeId: holes.holeId, line: holes.line, seq: holes.seq, stationIn: holes.stationIn, status: holes.status })
+        .from(holes).where(eq(holes.travelerId, id)).orderBy(asc(holes.line), asc(holes.seq)),
+      db.select({ id: travelerSteps.id, seq: travelerSteps.seq, text: travelerSteps.text, doneAt: travelerSteps.doneAt, doneByName: users.name })
+        .from(travelerSteps).leftJoin(users, eq(users.id, travelerSteps.doneBy)).where(eq(travelerSteps.travelerId, id)).orderBy(asc(travelerSteps.seq)),
+      revision.publishedBy ? db.select({ name: users.name }).from(users).where(eq(users.id, revision.publishedBy)) : Promise.resolve([]),
+      traveler.signedOffBy ? db.select({ name: users.name }).from(users).where(eq(users.id, traveler.signedOffBy)) : Promise.resolve([]),
+      listFindings(user, { travelerId: id }),
+    ]);
+    return {
+      ...summary,
+      material: revision.material, gaugeIn: revision.gaugeIn, rivetSpec: revision.rivetSpec, drillSize: revision.drillSize,
+      drillDiameterIn: revision.drillDiameterIn, edgeDistanceIn: revision.edgeDistanceIn, chordIn: revision.chordIn, lines: revision.lines,
+      outline: partOutline(design.kind, kit.airfoil, revision.chordIn),
+      holes: holeRows,
+      steps: stepRows.map((s) => ({ ...s, doneAt: s.doneAt?.toISOString() ?? null })),
+      findings: travelerFindings,
+      approvedByName: approver[0]?.name ?? null,
+      signedOffAt: traveler.signedOffAt?.toISOString() ?? null, signedOffByName: signer[0]?.name ?? null,
+    };
+  }
+
+  return {
+    list: (user: Express.User) => listTravelers(db, user),
+    detail,
+
+    async lookup(user: Express.User, code: string) {
+      const parsed = parseTravelerCode(code);
+      if (!parsed) throw badRequest('that is not a label code: type the six characters under the QR code, e.g. K7P-4QX', { code: 'not a label code' });
+      const [t] = await listTravelers(db, user, parsed);
+      if (!t) throw notFound('no part of your builds has this code: traveler');
+      return { id: t.id };
+    },
+
+    /** Ticks holes installed (or back to pending). Holes under a finding are the inspector's, not the bench's. */
+    async tickHoles(user: Express.User, id: string, input: TickHolesInput) {
+      await forBench(user, id);
+      const ids = [...new Set(input.holeIds)];
+      return db.transaction(async (tx) => {
+        const rows = await tx.select().from(holes).where(and(eq(holes.travelerId, id), inArray(holes.holeId, ids))).for('update');
+        const missing = ids.filter((h) => !rows.some((r) => r.holeId === h));
+        if (missing.length) throw badRequest(`no hole ${missing.join(', ')} on this traveler`, { holeIds: `unknown hole ${missing.join(', ')}` });
+        const from = input.status === 'installed' ? 'pending' : 'installed';
+        const locked = rows.filter((r) => r.status !== from && r.status !== input.status);
+        if (locked.length) {
+          throw conflict(`hole ${locked.map((h) => `${h.holeId} (${h.status})`).join(', ')} is under a finding and cannot be ticked here`, { holeIds: 'under a finding' });
+        }
+        const changed = await tx.update(holes).set({ status: input.status, updatedBy: user.id, updatedAt: new Date() })
+          .where(and(eq(holes.travelerId, id), inArray(holes.holeId, ids), eq(holes.status, from)))
+          .returning({ holeId: holes.holeId, line: holes.line, seq: holes.seq, stationIn: holes.stationIn, status: holes.status });
+        if (changed.length) {
+          await tx.insert(travelerEvents).values({ travelerId: id, actorId: user.id, kind: `holes_${input.status}`, detail: { holeIds: changed.map((c) => c.holeId) } });
+        }
+        const all = rows.map((r) => changed.find((c) => c.holeId === r.holeId) ?? { holeId: r.holeId, line: r.line, seq: r.seq, stationIn: r.stationIn, status: r.status });
+        return { holes: all };
+      });
+    },
+
+    async setStep(user: Express.User, id: string, stepId: string, done: boolean) {
+      await forBench(user, id);
+      const [step] = await db.update(travelerSteps).set(done ? { doneAt: new Date(), doneBy: user.id } : { doneAt: null, doneBy: null })
+        .where(and(eq(travelerSteps.id, stepId), eq(travelerSteps.travelerId, id))).returning();
+      if (!step) throw notFound('step');
+      await db.insert(travelerEvents).values({ travelerId: id, actorId: user.id, kind: done ? 'step_done' : 'step_undone', detail: { seq: step.seq, text: step.text } });
+      return { id: step.id, seq: step.seq, text: step.text, doneAt: step.doneAt?.toISOString() ?? null, doneByName: done ? user.name : null };
+    },
+
+    /** The inspector's sign-off: only when every hole is done, every step is done and no finding is open. */
+    async signOff(user: Express.User, id: string) {
+      if (user.role !== 'inspector') throw forbidden('only the inspector signs a part off');
+      const summary = await visible(user, id);
+      if (summary.signedOff) throw conflict('this part is already signed off');
+      const [openHoles, openSteps, openFindings] = await Promise.all([
+        db.select({ holeId: holes.holeId }).from(holes).where(and(eq(holes.travelerId, id), inArray(holes.status, ['pending', 'flagged', 'held']))),
+        db.select({ id: travelerSteps.id }).from(travelerSteps).where(and(eq(travelerSteps.travelerId, id), isNull(travelerSteps.doneAt))),
+        db.select({ id: findings.id }).from(findings).where(and(eq(findings.travelerId, id), ne(findings.status, 'closed'))),
+      ]);
+      const reasons = [
+        openHoles.length ? `${openHoles.length} hole(s) not done` : '',
+        openSteps.length ? `${openSteps.length} step(s) not done` : '',
+        openFindings.length ? `${openFindings.length} finding(s) open` : '',
+      ].filter(Boolean);
+      if (reasons.length) throw conflict(`not ready to sign off: ${reasons.join(', ')}`);
+      await db.transaction(async (tx) => {
+        await tx.update(travelers).set({ signedOffAt: new Date(), signedOffBy: user.id }).where(and(eq(travelers.id, id), isNull(travelers.signedOffAt)));
+        await tx.insert(travelerEvents).values({ travelerId: id, actorId: user.id, kind: 'signed_off', detail: {} });
+      });
+      return detail(user, id);
+    },
+  };
+};
+

@@ -1,0 +1,78 @@
+import { mkdtemp, rm } from 'node:fs/promises';
+import os from 'node:os';
+import path from 'node:path';
+import request from 'supertest';
+import { createDatabase } from '@/db';
+import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from '@/db/seed';
+import { users } from '@/db/schema';
+import { createApp } from '@/server/app';
+import { hashPassword } from '@/server/auth/passwords';
+import { loadConfig } from '@/server/config';
+import { findingMailWorker } from '@/server/jobs/finding-mail-worker';
+import { startMailQueue } from '@/server/jobs/mail-queue';
+import { startSmtpFake, type ReceivedMail } from '@/server/mail/smtp-fake';
+import { createMailer } from '@/server/mail/transport';
+import { localPhotoStorage } from '@/server/storage/photo-storage';
+import { createTestDatabase } from './test-database';
+
+export type TestApp = Awaited<ReturnType<typeof startTestApp>>;
+
+/**
+ * The real thing, wired as server/index.ts wires it: own database, own SMTP fake on a free port, the
+ * PostgreSQL job queue and its mail worker, photos in a temporary folder, and the demo scenario.
+ */
+export async function startTestApp(opts: { seed?: boolean; port?: number; webDist?: string } = {}) {
+  const testDb = await createTestDatabase();
+  const uploadsDir = await mkdtemp(path.join(os.tmpdir(), 'pc-uploads-'));
+  const smtp = await startSmtpFake(0);
+  const config = loadConfig({
+    NODE_ENV: 'test', DATABASE_URL: testDb.url, JWT_SECRET: 'test-secret-that-is-long-enough', SMTP_PORT: String(smtp.port),
+    UPLOADS_DIR: uploadsDir, PORT: String(opts.port ?? 8080), WEB_DIST: opts.webDist ?? path.join(uploadsDir, 'no-web'),
+    PUBLIC_URL: `http://localhost:${opts.port ?? 8080}`,
+  });
+  const database = createDatabase(config.databaseUrl);
+  const storage = localPhotoStorage(uploadsDir);
+  const mailer = createMailer(config.smtp);
+  const mailQueue = await startMailQueue(config.databaseUrl, { pollingIntervalSeconds: 0.5 });
+  await mailQueue.work(findingMailWorker({ db: database.db, mailer, storage, publicUrl: config.publicUrl }));
+  if (opts.seed !== false) await seedDemo(database, storage, mailQueue, config.jwtSecret);
+  const { app, ctx } = createApp({ config, database, mailQueue, storage, smtpFake: smtp });
+
+  async function signIn(email: string, password = DEMO_PASSWORD): Promise<string> {
+    const res = await request(app).post('/api/auth/sign-in').send({ email, password });
+    if (res.status !== 200) throw new Error(`sign-in of ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+    return res.body.token;
+  }
+
+  return {
+    app, ctx, config, database, smtp, uploadsDir, mailQueue,
+    signIn,
+    /** Bearer tokens of the demo people. */
+    tokens: async () => ({
+      supplier: await signIn(DEMO_USERS.supplier.email), builder: await signIn(DEMO_USERS.builder.email),
+      inspector: await signIn(DEMO_USERS.inspector.email), admin: await signIn(DEMO_USERS.admin.email),
+    }),
+    async addUser(role: 'supplier' | 'builder' | 'inspector', email: string, organizationId: string | null = null) {
+      await database.db.insert(users).values({ email, name: email.split('@')[0], role, organizationId, passwordHash: await hashPassword(DEMO_PASSWORD) });
+      return signIn(email);
+    },
+    /** Waits until the SMTP fake has a message that matches, or fails after `ms`. */
+    async waitForMail(match: (m: ReceivedMail) => boolean, ms = 15000): Promise<ReceivedMail> {
+      const end = Date.now() + ms;
+      while (Date.now() < end) {
+        const m = smtp.messages.find(match);
+        if (m) return m;
+        await new Promise((r) => setTimeout(r, 100));
+      }
+      throw new Error(`no matching mail within ${ms} ms; received: ${smtp.messages.map((m) => m.subject).join(' | ') || 'none'}`);
+    },
+    async close() {
+      await mailQueue.stop();
+      mailer.close();
+      await smtp.close();
+      await database.close();
+      await testDb.drop();
+      await rm(uploadsDir, { recursive: true, force: true });
+    },
+  };
+}

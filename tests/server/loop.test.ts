@@ -1,0 +1,129 @@
+import request from 'supertest';
+import sharp from 'sharp';
+import { DEMO_USERS } from '@/db/seed';
+import { startTestApp, type TestApp } from '../helpers/test-app';
+
+jest.setTimeout(60000);
+
+let t: TestApp;
+let tok: Awaited<ReturnType<TestApp['tokens']>>;
+beforeAll(async () => { t = await startTestApp(); tok = await t.tokens(); });
+afterAll(async () => { await t?.close(); });
+
+const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
+const jpeg = () => sharp({ create: { width: 64, height: 48, channels: 3, background: '#888' } }).jpeg().toBuffer();
+
+const ribRevision = {
+  material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 40,
+  lines: [
+    { code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 30, zones: [{ fromIn: 0, toIn: 10, pitchIn: 1 }, { fromIn: 10, toIn: 30, pitchIn: 2 }] },
+    { code: 'L', name: 'Lower flange', surface: 'lower', startIn: 1, lengthIn: 30, zones: [{ fromIn: 0, toIn: 30, pitchIn: 2 }] },
+  ],
+  steps: ['Deburr', 'Rivet'],
+};
+
+describe('the main loop through the API', () => {
+  let kitId: string; let revisionId: string; let buildId: string; let travelerId: string; let findingId: string;
+
+  it('lets the supplier create a kit model and a rib design as draft revision A', async () => {
+    const kit = await request(t.app).post('/api/kits').set(auth(tok.supplier)).send({
+      code: 'TK-9', name: 'Test kit', weightLb: 1200, wingAreaSqFt: 110, meanChordIn: 50, stallSpeedKeas: 45, category: 'normal', airfoil: 'NACA 2412',
+    });
+    expect(kit.status).toBe(201);
+    kitId = kit.body.id;
+    const design = await request(t.app).post('/api/designs').set(auth(tok.supplier)).send({
+      design: { kitModelId: kitId, partNumber: 'R-1', name: 'Test rib', kind: 'rib' }, revision: ribRevision,
+    });
+    expect(design.status).toBe(201);
+    expect(design.body.revisions[0]).toMatchObject({ letter: 'A', status: 'draft' });
+    revisionId = design.body.revisions[0].id;
+  });
+
+  it('publishes revision A, after which it can no longer be edited', async () => {
+    const pub = await request(t.app).post(`/api/revisions/${revisionId}/publish`).set(auth(tok.supplier)).send({});
+    expect(pub.status).toBe(200);
+    expect(pub.body).toMatchObject({ status: 'published', publishedByName: DEMO_USERS.supplier.name });
+    const edit = await request(t.app).patch(`/api/revisions/${revisionId}`).set(auth(tok.supplier)).send({ ...ribRevision, gaugeIn: 0.032 });
+    expect(edit.status).toBe(409);
+    expect(edit.body.error.message).toMatch(/can no longer be changed/);
+  });
+
+  it('ships a build with a traveler per published part, each with its own serial, token and short code', async () => {
+    const res = await request(t.app).post('/api/builds').set(auth(tok.supplier)).send({
+      kitModelId: kitId, kitSerial: 'TK9-0001', builderEmail: DEMO_USERS.builder.email.toUpperCase(), inspectorEmail: DEMO_USERS.inspector.email,
+    });
+    expect(res.status).toBe(201);
+    buildId = res.body.id;
+    expect(res.body.travelerCount).toBe(1);
+    const labels = await request(t.app).get(`/api/builds/${buildId}/labels`).set(auth(tok.supplier));
+    expect(labels.status).toBe(200);
+    expect(labels.body[0].qrDataUrl).toMatch(/^data:image\/png;base64,/);
+    expect(labels.body[0].shortCode).toMatch(/^[A-Z0-9]{3}-[A-Z0-9]{3}$/);
+    travelerId = labels.body[0].travelerId;
+    // The builder opens it by the QR url and by the short code typed loosely.
+    const byUrl = await request(t.app).get('/api/travelers/lookup').query({ code: labels.body[0].url }).set(auth(tok.builder));
+    expect(byUrl.body).toEqual({ id: travelerId });
+    const typed = labels.body[0].shortCode.replace('-', '').toLowerCase();
+    const byCode = await request(t.app).get('/api/travelers/lookup').query({ code: typed }).set(auth(tok.builder));
+    expect(byCode.body).toEqual({ id: travelerId });
+  });
+
+  it('places holes from the schedule: edge distance at both ends, no space wider than its zone pitch', async () => {
+    const res = await request(t.app).get(`/api/travelers/${travelerId}`).set(auth(tok.builder));
+    expect(res.status).toBe(200);
+    const upper = res.body.holes.filter((h: { line: string }) => h.line === 'U');
+    expect(upper[0].stationIn).toBeCloseTo(0.25);
+    expect(upper[upper.length - 1].stationIn).toBeCloseTo(29.75);
+    for (let i = 1; i < upper.length; i++) {
+      const gap = upper[i].stationIn - upper[i - 1].stationIn;
+      expect(gap).toBeLessThanOrEqual((upper[i - 1].stationIn < 10 - 1e-9 ? 1 : 2) + 1e-9);
+    }
+    expect(res.body.steps).toHaveLength(2);
+    expect(res.body.approvedByName).toBe(DEMO_USERS.supplier.name);
+  });
+
+  it('ticks a run of holes installed and counts progress', async () => {
+    const res = await request(t.app).post(`/api/travelers/${travelerId}/holes`).set(auth(tok.builder)).send({ holeIds: ['U-01', 'U-02', 'U-03'], status: 'installed' });
+    expect(res.status).toBe(200);
+    expect(res.body.holes.every((h: { status: string }) => h.status === 'installed')).toBe(true);
+    const list = await request(t.app).get('/api/travelers').set(auth(tok.builder));
+    expect(list.body.find((x: { id: string }) => x.id === travelerId).holesDone).toBe(3);
+  });
+
+  it('flags a suspect hole with a photo and mails the inspector with part, hole, kind, link and thumbnail', async () => {
+    const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
+      .field('travelerId', travelerId).field('holeIds', JSON.stringify(['U-04'])).field('kind', 'cracked').field('note', 'hairline crack at the edge')
+      .attach('photos', await jpeg(), { filename: 'crack.jpg', contentType: 'image/jpeg' });
+    expect(res.status).toBe(201);
+    findingId = res.body.id;
+    expect(res.body.photos).toHaveLength(1);
+    expect(res.body.events[0]).toMatchObject({ toStatus: 'flagged', actorName: DEMO_USERS.builder.name });
+    const mail = await t.waitForMail((m) => m.to.includes(DEMO_USERS.inspector.email) && m.subject.includes('R-1') && m.subject.includes('U-04'));
+    expect(mail.text).toContain('Crack at hole');
+    expect(mail.text).toContain(`/findings/${findingId}`);
+    expect(mail.attachments).toBe(1);
+    const photo = await request(t.app).get(res.body.photos[0].thumbUrl);
+    expect(photo.status).toBe(200);
+    expect(photo.type).toBe('image/jpeg');
+  });
+
+  it('lets the inspector disposition it; the builder sees it on the traveler and gets a mail', async () => {
+    const queue = await request(t.app).get('/api/findings?status=open').set(auth(tok.inspector));
+    expect(queue.body.map((f: { id: string }) => f.id)).toContain(findingId);
+    const res = await request(t.app).post(`/api/findings/${findingId}/disposition`).set(auth(tok.inspector)).send({ disposition: 'rework', note: 'drill out to AD5' });
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ status: 'dispositioned', disposition: 'rework' });
+    const traveler = await request(t.app).get(`/api/travelers/${travelerId}`).set(auth(tok.builder));
+    expect(traveler.body.findings[0]).toMatchObject({ id: findingId, disposition: 'rework' });
+    expect(traveler.body.holes.find((h: { holeId: string }) => h.holeId === 'U-04').status).toBe('held');
+    await t.waitForMail((m) => m.to.includes(DEMO_USERS.builder.email) && m.subject.includes('Disposition: Rework'));
+  });
+
+  it('keeps every change as an event, through rework done, verified and closed', async () => {
+    expect((await request(t.app).post(`/api/findings/${findingId}/rework-done`).set(auth(tok.builder)).send({ note: 'drilled #21, AD5 set' })).status).toBe(200);
+    expect((await request(t.app).post(`/api/findings/${findingId}/verify`).set(auth(tok.inspector)).send({ note: 'good' })).status).toBe(200);
+    const closed = await request(t.app).post(`/api/findings/${findingId}/close`).set(auth(tok.inspector)).send({});
+    expect(closed.body.status).toBe('closed');
+    expect(closed.body.events.map((e: { toStatus: string }) => e.toStatus)).toEqual(['flagged', 'dispositioned', 'rework_done', 'verified', 'closed']);
+  });
+});
