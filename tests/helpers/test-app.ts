@@ -4,7 +4,7 @@ import path from 'node:path';
 import request from 'supertest';
 import { createDatabase } from '@/db';
 import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from '@/db/seed';
-import { users } from '@/db/schema';
+import { organizations, users } from '@/db/schema';
 import { createApp } from '@/server/app';
 import { hashPassword } from '@/server/auth/passwords';
 import { loadConfig } from '@/server/config';
@@ -52,7 +52,10 @@ export async function startTestApp(opts: { seed?: boolean; port?: number; webDis
       supplier: await signIn(DEMO_USERS.supplier.email), builder: await signIn(DEMO_USERS.builder.email),
       inspector: await signIn(DEMO_USERS.inspector.email), admin: await signIn(DEMO_USERS.admin.email),
     }),
-    async addUser(role: 'supplier' | 'builder' | 'inspector', email: string, organizationId: string | null = null) {
+    /** Another person outside the demo; a supplier gets an organisation of its own. */
+    async addUser(role: 'supplier' | 'builder' | 'inspector', email: string) {
+      const organizationId = role === 'supplier'
+        ? (await database.db.insert(organizations).values({ name: `${email} kits`, kind: 'supplier' }).returning())[0].id : null;
       await database.db.insert(users).values({ email, name: email.split('@')[0], role, organizationId, passwordHash: await hashPassword(DEMO_PASSWORD) });
       return signIn(email);
     },

@@ -1,0 +1,96 @@
+import jwt from 'jsonwebtoken';
+import request from 'supertest';
+import sharp from 'sharp';
+import { DEMO_USERS } from '@/db/seed';
+import { startTestApp, type TestApp } from '../helpers/test-app';
+
+jest.setTimeout(60000);
+
+let t: TestApp;
+let tok: Awaited<ReturnType<TestApp['tokens']>>;
+let otherBuilder: string; let otherInspector: string; let otherSupplier: string;
+let travelerId: string; let findingId: string; let photoUrl: string;
+
+const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
+
+beforeAll(async () => {
+  t = await startTestApp();
+  tok = await t.tokens();
+  otherBuilder = await t.addUser('builder', 'other.builder@elsewhere.example');
+  otherInspector = await t.addUser('inspector', 'other.inspector@elsewhere.example');
+  otherSupplier = await t.addUser('supplier', 'other.supplier@elsewhere.example');
+  const parts = await request(t.app).get('/api/travelers').set(auth(tok.builder));
+  travelerId = parts.body.find((p: { partNumber: string }) => p.partNumber === 'W-104').id;
+  const open = await request(t.app).get('/api/findings?status=open').set(auth(tok.builder));
+  findingId = open.body[0].id;
+  photoUrl = (await request(t.app).get(`/api/findings/${findingId}`).set(auth(tok.builder))).body.photos[0].url;
+});
+afterAll(async () => { await t?.close(); });
+
+describe('sign-in', () => {
+  it('answers 401 to a wrong password without saying whether the address exists', async () => {
+    const wrong = await request(t.app).post('/api/auth/sign-in').send({ email: DEMO_USERS.builder.email, password: 'nope' });
+    const unknown = await request(t.app).post('/api/auth/sign-in').send({ email: 'nobody@nowhere.example', password: 'nope' });
+    expect(wrong.status).toBe(401);
+    expect(unknown.status).toBe(401);
+    expect(wrong.body.error.message).toBe(unknown.body.error.message);
+  });
+
+  it('refuses a request with no token, a forged token and an expired token', async () => {
+    expect((await request(t.app).get('/api/travelers')).status).toBe(401);
+    const forged = jwt.sign({}, 'another-secret-entirely', { subject: 'x', algorithm: 'HS256' });
+    expect((await request(t.app).get('/api/travelers').set(auth(forged))).status).toBe(401);
+    const me = await request(t.app).get('/api/auth/me').set(auth(tok.builder));
+    const expired = jwt.sign({ exp: Math.floor(Date.now() / 1000) - 10 }, t.config.jwtSecret, { subject: me.body.id, algorithm: 'HS256' });
+    const res = await request(t.app).get('/api/travelers').set(auth(expired));
+    expect(res.status).toBe(401);
+    expect(res.body.error.message).toMatch(/expired/);
+  });
+
+  it('refuses a token signed with another algorithm', async () => {
+    const me = await request(t.app).get('/api/auth/me').set(auth(tok.builder));
+    const none = jwt.sign({}, '', { subject: me.body.id, algorithm: 'none' });
+    expect((await request(t.app).get('/api/travelers').set(auth(none))).status).toBe(401);
+  });
+});
+
+describe('role boundaries', () => {
+  it('keeps another builder away from this build, its traveler, finding and holes', async () => {
+    expect((await request(t.app).get('/api/travelers').set(auth(otherBuilder))).body).toEqual([]);
+    expect((await request(t.app).get(`/api/travelers/${travelerId}`).set(auth(otherBuilder))).status).toBe(404);
+    expect((await request(t.app).get(`/api/findings/${findingId}`).set(auth(otherBuilder))).status).toBe(404);
+    const tick = await request(t.app).post(`/api/travelers/${travelerId}/holes`).set(auth(otherBuilder)).send({ holeIds: ['L-01'], status: 'installed' });
+    expect(tick.status).toBe(404);
+    const flag = await request(t.app).post('/api/findings').set(auth(otherBuilder))
+      .field('travelerId', travelerId).field('holeIds', '["L-02"]').field('kind', 'other').field('note', 'not mine')
+      .attach('photos', await sharp({ create: { width: 8, height: 8, channels: 3, background: '#000' } }).png().toBuffer(), 'x.png');
+    expect(flag.status).toBe(404);
+  });
+
+  it('keeps an inspector not assigned to the build away from its findings', async () => {
+    expect((await request(t.app).get('/api/findings').set(auth(otherInspector))).body).toEqual([]);
+    const res = await request(t.app).post(`/api/findings/${findingId}/disposition`).set(auth(otherInspector)).send({ disposition: 'scrap', note: 'not mine' });
+    expect(res.status).toBe(404);
+  });
+
+  it("keeps another supplier away from this supplier's kits, designs and builds", async () => {
+    expect((await request(t.app).get('/api/kits').set(auth(otherSupplier))).body).toEqual([]);
+    expect((await request(t.app).get('/api/designs').set(auth(otherSupplier))).body).toEqual([]);
+    expect((await request(t.app).get('/api/builds').set(auth(otherSupplier))).body).toEqual([]);
+    const designs = await request(t.app).get('/api/designs').set(auth(tok.supplier));
+    expect((await request(t.app).get(`/api/designs/${designs.body[0].id}`).set(auth(otherSupplier))).status).toBe(404);
+  });
+
+  it('answers 403 when the role may not do a thing at all', async () => {
+    expect((await request(t.app).get('/api/kits').set(auth(tok.builder))).status).toBe(403);
+    expect((await request(t.app).post(`/api/findings/${findingId}/disposition`).set(auth(tok.builder)).send({ disposition: 'use_as_is', note: 'looks fine to me' })).status).toBe(403);
+    expect((await request(t.app).post(`/api/travelers/${travelerId}/holes`).set(auth(tok.inspector)).send({ holeIds: ['L-01'], status: 'installed' })).status).toBe(403);
+    expect((await request(t.app).post('/api/builds').set(auth(tok.inspector)).send({})).status).toBe(403);
+  });
+
+  it('serves a photo only through a valid signed link', async () => {
+    expect((await request(t.app).get(photoUrl)).status).toBe(200);
+    expect((await request(t.app).get(photoUrl.replace(/sig=[^&]+/, 'sig=forged'))).status).toBe(403);
+    expect((await request(t.app).get(photoUrl.replace(/exp=\d+/, 'exp=1000'))).status).toBe(403);
+  });
+});

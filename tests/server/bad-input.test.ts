@@ -1,0 +1,109 @@
+import { count } from 'drizzle-orm';
+import { readdir } from 'node:fs/promises';
+import request from 'supertest';
+import sharp from 'sharp';
+import { findingPhotos, findings, holes } from '@/db/schema';
+import { startTestApp, type TestApp } from '../helpers/test-app';
+
+jest.setTimeout(60000);
+
+let t: TestApp;
+let tok: Awaited<ReturnType<TestApp['tokens']>>;
+let travelerId: string;
+const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
+const png = () => sharp({ create: { width: 16, height: 16, channels: 3, background: '#444' } }).png().toBuffer();
+
+async function savedCounts() {
+  const [[f], [p], files] = await Promise.all([
+    t.database.db.select({ n: count() }).from(findings), t.database.db.select({ n: count() }).from(findingPhotos), readdir(t.uploadsDir),
+  ]);
+  return { findings: f.n, photos: p.n, files: files.length };
+}
+
+beforeAll(async () => {
+  t = await startTestApp();
+  tok = await t.tokens();
+  const parts = await request(t.app).get('/api/travelers').set(auth(tok.builder));
+  travelerId = parts.body.find((p: { partNumber: string }) => p.partNumber === 'W-104').id;
+});
+afterAll(async () => { await t?.close(); });
+
+describe('bad input gets a clear error and saves nothing', () => {
+  it('answers 400 to a body that is not JSON', async () => {
+    const res = await request(t.app).post('/api/kits').set(auth(tok.supplier)).set('Content-Type', 'application/json').send('{"code": ');
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('invalid_json');
+  });
+
+  it('names every wrong field of a kit model', async () => {
+    const res = await request(t.app).post('/api/kits').set(auth(tok.supplier)).send({ code: '', name: 'x', weightLb: -5, wingAreaSqFt: 100, meanChordIn: 50, stallSpeedKeas: 60, cruiseSpeedKeas: 50, category: 'normal', airfoil: 'flat plate' });
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual(['airfoil', 'code', 'cruiseSpeedKeas', 'weightLb']);
+    expect(res.body.error.fields.weightLb).toMatch(/greater than zero/);
+    expect(res.body.error.fields.cruiseSpeedKeas).toMatch(/above the stall speed/);
+  });
+
+  it('refuses pitch zones with a gap and names the zone', async () => {
+    const kits = await request(t.app).get('/api/kits').set(auth(tok.supplier));
+    const res = await request(t.app).post('/api/designs').set(auth(tok.supplier)).send({
+      design: { kitModelId: kits.body[0].id, partNumber: 'X-1', name: 'gappy', kind: 'rib' },
+      revision: {
+        material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 40,
+        lines: [{ code: 'U', name: 'Upper', surface: 'upper', startIn: 1, lengthIn: 30, zones: [{ fromIn: 0, toIn: 10, pitchIn: 1 }, { fromIn: 12, toIn: 30, pitchIn: 2 }] }],
+      },
+    });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields['revision.lines.0.zones.1.fromIn']).toMatch(/without gaps/);
+  });
+
+  it('answers 415 to a file that is not an image, whatever it is called, and keeps nothing', async () => {
+    const before = await savedCounts();
+    const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
+      .field('travelerId', travelerId).field('holeIds', '["L-03"]').field('kind', 'oversize').field('note', 'looks big')
+      .attach('photos', await png(), 'fine.png')
+      .attach('photos', Buffer.from('%PDF-1.4 not a photo at all'), { filename: 'hole.jpg', contentType: 'image/jpeg' });
+    expect(res.status).toBe(415);
+    expect(res.body.error.message).toMatch(/hole\.jpg.*not a photo/);
+    expect(await savedCounts()).toEqual(before);
+  });
+
+  it('answers 413 to a photo over 10 MB', async () => {
+    const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
+      .field('travelerId', travelerId).field('holeIds', '["L-03"]').field('kind', 'oversize').field('note', 'looks big')
+      .attach('photos', Buffer.alloc(10 * 1024 * 1024 + 10, 1), 'huge.jpg');
+    expect(res.status).toBe(413);
+  });
+
+  it('rolls back photos and finding when a hole does not exist', async () => {
+    const before = await savedCounts();
+    const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
+      .field('travelerId', travelerId).field('holeIds', '["Q-99"]').field('kind', 'oversize').field('note', 'looks big')
+      .attach('photos', await png(), 'a.png');
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.holeIds).toMatch(/Q-99/);
+    expect(await savedCounts()).toEqual(before);
+  });
+
+  it('refuses a finding with no photo, naming the photos field', async () => {
+    const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
+      .field('travelerId', travelerId).field('holeIds', '["L-03"]').field('kind', 'oversize').field('note', 'looks big');
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.photos).toBeDefined();
+  });
+
+  it('refuses to tick a hole that is under a finding, and changes none of the run', async () => {
+    const before = await t.database.db.select().from(holes);
+    const res = await request(t.app).post(`/api/travelers/${travelerId}/holes`).set(auth(tok.builder)).send({ holeIds: ['U-09', 'U-10'], status: 'installed' });
+    expect(res.status).toBe(409);
+    expect(res.body.error.message).toMatch(/U-09 \(flagged\)/);
+    const after = await t.database.db.select().from(holes);
+    expect(after.find((h) => h.holeId === 'U-10' && h.travelerId === travelerId)!.status)
+      .toBe(before.find((h) => h.holeId === 'U-10' && h.travelerId === travelerId)!.status);
+  });
+
+  it('answers 400 naming the id when a path id is not an id', async () => {
+    const res = await request(t.app).get('/api/travelers/not-an-id').set(auth(tok.builder));
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.id).toBeDefined();
+  });
+});
