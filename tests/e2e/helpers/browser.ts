@@ -1,0 +1,22 @@
+import { chromium, type Browser } from 'playwright-core';
+
+const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+
+/**
+ * Debian's Chromium, headless, with no network chatter (Playwright gives it a fresh profile);
+ * optionally a fake camera playing `video`.
+ */
+export async function launchBrowser(opts: { video?: string } = {}): Promise<Browser> {
+  const args = [
+    '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
+    '--disable-component-update', '--disable-sync', '--disable-dev-shm-usage',
+  ];
+  if (opts.video) args.push('--use-fake-ui-for-media-stream', '--use-fake-device-for-media-stream', `--use-file-for-fake-video-capture=${opts.video}`);
+  return chromium.launch({ executablePath: CHROMIUM, args, headless: true });
+}
+
+/** A phone-sized page, as the bench sees it. */
+export async function phonePage(browser: Browser, baseURL: string) {
+  const context = await browser.newContext({ baseURL, viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true, permissions: ['camera'] });
+  return context.newPage();
+}
