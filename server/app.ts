@@ -5,6 +5,7 @@ import type { Database } from '../db';
 import { authRouter } from './auth/auth-router';
 import { createPassport } from './auth/passport';
 import { buildsRouter } from './builds/builds-router';
+import { couponsRouter } from './coupons/coupons-router';
 import type { Config } from './config';
 import type { AppContext } from './context';
 import { designsRouter, revisionsRouter } from './designs/designs-router';
@@ -47,6 +48,7 @@ export function createApp({ config, database, mailQueue, storage, smtpFake }: Ap
   api.use('/designs', signedIn, designsRouter(ctx));
   api.use('/revisions', signedIn, revisionsRouter(ctx));
   api.use('/builds', signedIn, buildsRouter(ctx));
+  api.use('/coupons', signedIn, couponsRouter(ctx));
   api.use('/travelers', signedIn, travelersRouter(ctx));
   api.use('/findings', signedIn, findingsRouter(ctx));
   api.use((_req, _res, next) => next(notFound('API route')));

@@ -5,3 +5,4 @@ export * from './designs';
 export * from './builds';
 export * from './travelers';
 export * from './findings';
+export * from './coupons';

@@ -4,3 +4,5 @@ export * from './designs';
 export * from './builds';
 export * from './travelers';
 export * from './findings';
+export * from './coupons';
+export * from './studies';

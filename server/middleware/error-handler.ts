@@ -2,6 +2,7 @@ import type { NextFunction, Request, Response } from 'express';
 import { MulterError } from 'multer';
 import { ZodError } from 'zod';
 import type { ApiErrorBody } from '../../db/contracts';
+import { EngineeringInputError } from '../engineering/errors';
 import { HttpError } from '../http-error';
 
 function send(res: Response, status: number, error: ApiErrorBody['error']) {
@@ -20,6 +21,9 @@ export function errorHandler(err: unknown, _req: Request, res: Response, _next: 
     }
     const summary = Object.entries(fields).map(([k, m]) => `${k}: ${m}`).join('; ');
     return send(res, 400, { code: 'invalid_input', message: `some fields are not right — ${summary}`, fields });
+  }
+  if (err instanceof EngineeringInputError) {
+    return send(res, 400, { code: 'invalid_input', message: `${err.field}: ${err.reason}`, fields: { [err.field]: err.reason } });
   }
   if (err instanceof MulterError) {
     if (err.code === 'LIMIT_FILE_SIZE') return send(res, 413, { code: 'too_large', message: 'a photo is larger than 10 MB' });

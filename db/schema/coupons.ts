@@ -1,0 +1,22 @@
+import { date, index, pgEnum, pgTable, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { organizations } from './organizations';
+import { users } from './users';
+
+export const couponOutcome = pgEnum('coupon_outcome', ['no_deformation', 'slight_deformation', 'excessive_deformation', 'failure']);
+
+/** A supplier's test of one fastener in a flange coupon; allowables are derived from these. */
+export const couponTests = pgTable('coupon_tests', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  organizationId: uuid('organization_id').notNull().references(() => organizations.id),
+  material: text('material').notNull(),
+  gaugeIn: real('gauge_in').notNull(),
+  couponWidthIn: real('coupon_width_in').notNull(),
+  rivetSpec: text('rivet_spec').notNull(),
+  loadLb: real('load_lb').notNull(),
+  outcome: couponOutcome('outcome').notNull(),
+  note: text('note').notNull().default(''),
+  photoKey: text('photo_key'),
+  testedOn: date('tested_on').notNull(),
+  createdBy: uuid('created_by').notNull().references(() => users.id),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+}, (t) => [index('coupon_tests_org_key').on(t.organizationId, t.material, t.gaugeIn, t.rivetSpec)]);

@@ -1,0 +1,27 @@
+import { index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { kitModels } from './designs';
+import { organizations } from './organizations';
+import { users } from './users';
+
+/** A supplier's load study for one rib of a kit; each save is a new numbered revision of it. */
+export const loadStudies = pgTable('load_studies', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  organizationId: uuid('organization_id').notNull().references(() => organizations.id),
+  kitModelId: uuid('kit_model_id').notNull().references(() => kitModels.id),
+  name: text('name').notNull(),
+  latestRevision: integer('latest_revision').notNull().default(1),
+  createdBy: uuid('created_by').notNull().references(() => users.id),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+}, (t) => [index('load_studies_org').on(t.organizationId)]);
+
+/** Inputs and the computed result, frozen per revision: a draft part design cites one as its basis. */
+export const loadStudyRevisions = pgTable('load_study_revisions', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  studyId: uuid('study_id').notNull().references(() => loadStudies.id, { onDelete: 'cascade' }),
+  revision: integer('revision').notNull(),
+  inputs: jsonb('inputs').$type<Record<string, unknown>>().notNull(),
+  result: jsonb('result').$type<Record<string, unknown>>().notNull(),
+  createdBy: uuid('created_by').notNull().references(() => users.id),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+}, (t) => [uniqueIndex('load_study_revisions_study_rev').on(t.studyId, t.revision)]);
