@@ -1,13 +1,15 @@
 import sharp from 'sharp';
-import type { RevisionInput } from './contracts';
+import type { CouponOutcome, RevisionInput, RibStudyInputValues } from './contracts';
 import type { Database } from '.';
 import { organizations, users } from './schema';
 import { hashPassword } from '../server/auth/passwords';
 import { buildsService } from '../server/builds/builds-service';
+import { couponsService } from '../server/coupons/coupons-service';
 import { designsService } from '../server/designs/designs-service';
 import { findingsService } from '../server/findings/findings-service';
 import type { MailQueue } from '../server/jobs/mail-queue';
 import { kitsService } from '../server/kits/kits-service';
+import { studiesService } from '../server/studies/studies-service';
 import { createUrlSigner } from '../server/photos/url-signer';
 import type { PhotoStorage } from '../server/storage/photo-storage';
 import { travelersService } from '../server/travelers/travelers-service';
@@ -33,6 +35,28 @@ function ribRevision(over: Partial<RevisionInput> = {}): Required<Omit<RevisionI
     ...over,
   } as never;
 }
+
+const DEMO_COUPONS: [number, number, CouponOutcome, string][] = [
+  [0.016, 20, 'excessive_deformation', 'hole pulled oval, flange dished around the head'],
+  [0.016, 30, 'excessive_deformation', 'rivet head pulled into the flange'],
+  [0.02, 13.5, 'no_deformation', 'no set after unloading'],
+  [0.02, 20, 'slight_deformation', 'faint dimple round the head'],
+  [0.02, 30, 'slight_deformation', 'dimple, hole round, rivet tight'],
+];
+
+export const DEMO_STUDY_INPUTS: RibStudyInputValues = {
+  kit: { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 54, stallSpeedKeas: 47, cruiseSpeedKeas: 118, category: 'utility' },
+  airfoil: { kind: 'naca', designation: '2412' },
+  rib: { chordIn: 54, spacingIn: 14.5 },
+  lines: [
+    { name: 'Upper flange', surface: 'upper', startXc: 0.02, endXc: 0.85 },
+    { name: 'Lower flange', surface: 'lower', startXc: 0.02, endXc: 0.85 },
+  ],
+  material: '6061-T6',
+  gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04, 0.05],
+  rivetCandidates: ['PULLED-4', 'MS20470AD3', 'MS20470AD4'],
+  maxPitchDiameters: 8, pitchIncrementIn: 0.125, maxZones: 4,
+};
 
 /** A stand-in bench photo: a drilled hole in a sheet, drawn, so the demo needs no binary files. */
 async function demoPhoto(): Promise<Buffer> {
@@ -76,6 +100,13 @@ export async function seedDemo(database: Database, storage: PhotoStorage, mailQu
   // A later change to the outboard rib: its traveler in the build shows the newer revision.
   const revB = await designs.newRevision(supplier, outer.id, { ...ribRevision({ gaugeIn: 0.025 }), changeNote: 'Gauge up to 0.025 in: flange pull-through margin at the nose was thin' });
   await designs.publish(supplier, revB.id);
+
+  // The supplier's flange coupons (6061-T6, pulled 1/8 in rivets, 1 in wide) and the rib study they back.
+  const coupons = couponsService(db);
+  for (const [gaugeIn, loadLb, outcome, note] of DEMO_COUPONS) {
+    await coupons.create(supplier, { material: '6061-T6', gaugeIn, couponWidthIn: 1, rivetSpec: 'PULLED-4', loadLb, outcome, note, testedOn: '2026-10-14' });
+  }
+  await studiesService(db).create(supplier, { kitModelId: kit.id, name: 'Inboard rib W-104, flight envelope', inputs: DEMO_STUDY_INPUTS });
 
   const signer = createUrlSigner(jwtSecret);
   const findings = findingsService({ db, pool, storage, signer, mailQueue });

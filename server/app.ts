@@ -20,6 +20,7 @@ import { errorHandler } from './middleware/error-handler';
 import { photosRouter } from './photos/photos-router';
 import { createUrlSigner } from './photos/url-signer';
 import { localPhotoStorage, type PhotoStorage } from './storage/photo-storage';
+import { studiesRouter } from './studies/studies-router';
 import { travelersRouter } from './travelers/travelers-router';
 
 export type AppDeps = { config: Config; database: Database; mailQueue: MailQueue; storage?: PhotoStorage; smtpFake?: SmtpFake };
@@ -49,6 +50,7 @@ export function createApp({ config, database, mailQueue, storage, smtpFake }: Ap
   api.use('/revisions', signedIn, revisionsRouter(ctx));
   api.use('/builds', signedIn, buildsRouter(ctx));
   api.use('/coupons', signedIn, couponsRouter(ctx));
+  api.use('/studies', signedIn, studiesRouter(ctx));
   api.use('/travelers', signedIn, travelersRouter(ctx));
   api.use('/findings', signedIn, findingsRouter(ctx));
   api.use((_req, _res, next) => next(notFound('API route')));

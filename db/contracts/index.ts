@@ -6,3 +6,4 @@ export * from './builds';
 export * from './travelers';
 export * from './findings';
 export * from './coupons';
+export * from './studies';

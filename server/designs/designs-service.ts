@@ -8,6 +8,8 @@ import { findDesign, findRevision, listDesigns, listRevisions } from './designs-
 import { nextRevisionLetter } from './revision-letters';
 
 type RevisionBody = Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & { steps: string[]; changeNote: string };
+/** The load study a revision's numbers came from, frozen with it at publish. */
+type EngineeringBasis = { basis: Record<string, unknown>; studyId: string };
 
 export const designsService = (db: Db) => {
   const kits = kitsService(db);
@@ -60,7 +62,7 @@ export const designsService = (db: Db) => {
       return detail(user, id);
     },
 
-    async newRevision(user: Express.User, designId: string, body: RevisionBody) {
+    async newRevision(user: Express.User, designId: string, body: RevisionBody, engineering?: EngineeringBasis) {
       await ownDesign(user, designId);
       if (body.changeNote.length < 3) throw badRequest('a new revision needs a change note', { changeNote: 'say what changed and why' });
       const id = await db.transaction(async (tx) => {
@@ -69,18 +71,18 @@ export const designsService = (db: Db) => {
         const draft = existing.find((r) => r.status === 'draft');
         if (draft) throw conflict(`revision ${draft.letter} is still a draft: edit or publish it first`);
         const [row] = await tx.insert(designRevisions).values({
-          ...body, partDesignId: designId, letter: nextRevisionLetter(existing.map((r) => r.letter)), createdBy: user.id,
+          ...body, ...engineering, partDesignId: designId, letter: nextRevisionLetter(existing.map((r) => r.letter)), createdBy: user.id,
         }).returning({ id: designRevisions.id });
         return row.id;
       });
       return serialiseRevision((await findRevision(db, id))!);
     },
 
-    async updateRevision(user: Express.User, revisionId: string, body: RevisionBody) {
+    async updateRevision(user: Express.User, revisionId: string, body: RevisionBody, engineering?: EngineeringBasis) {
       const revision = await ownRevision(user, revisionId);
       if (revision.status !== 'draft') throw frozen(revision.letter, revision.status);
       // The status guard in the WHERE makes a publish that slips in between win: the edit then changes nothing.
-      const updated = await db.update(designRevisions).set(body)
+      const updated = await db.update(designRevisions).set({ ...body, ...engineering })
         .where(and(eq(designRevisions.id, revisionId), eq(designRevisions.status, 'draft'))).returning({ id: designRevisions.id });
       if (!updated.length) throw frozen(revision.letter, 'published');
       return serialiseRevision((await findRevision(db, revisionId))!);

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import multer from 'multer';
-import { dispositionInput, findingInput, findingListQuery, findingStepInput, idParam } from '../../db/contracts';
+import { dispositionInput, findingInput, findingListQuery, findingStepInput, idParam, reworkCheckInput } from '../../db/contracts';
 import type { AppContext } from '../context';
 import { badRequest } from '../http-error';
 import { validateBody, validateQuery } from '../middleware/validate';
@@ -31,6 +31,9 @@ export function findingsRouter(ctx: AppContext): Router {
     res.status(201).json(await service.create(req.user!, input, files));
   });
   r.get('/:id', async (req, res) => { res.json(await service.detail(req.user!, idParam.parse(req.params).id)); });
+  r.post('/:id/rework-check', validateBody(reworkCheckInput), async (req, res) => {
+    res.json(await service.reworkCheck(req.user!, idParam.parse(req.params).id, req.body.proposedSpec));
+  });
 
   const step = (action: Action) => async (req: import('express').Request, res: import('express').Response) => {
     res.json(await service.act(req.user!, idParam.parse(req.params).id, action, req.body));

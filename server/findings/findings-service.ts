@@ -2,7 +2,8 @@ import { and, eq, inArray } from 'drizzle-orm';
 import type { Disposition, FindingDetail, FindingInput, FindingSummary } from '../../db/contracts';
 import { withTransaction } from '../../db';
 import type { AppContext } from '../context';
-import { findingEvents, findingPhotos, findings, holes } from '../../db/schema';
+import { builds, couponTests, findingEvents, findingPhotos, findings, holes } from '../../db/schema';
+import { findRivet, nextRivetSize, reworkCheck } from '../engineering';
 import { badRequest, conflict, forbidden, HttpError, notFound } from '../http-error';
 import { processPhoto } from '../photos/image-processing';
 import { findTravelerParts, listTravelers } from '../travelers/travelers-repository';
@@ -48,8 +49,34 @@ export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) 
     };
   }
 
+  /**
+   * The inspector's check of drilling the hole out to a larger rivet: layout from the traveler, loads from
+   * the revision's engineering basis where it has one, pull-through from the supplier's coupons.
+   */
+  async function reworkCheckFor(user: Express.User, id: string, proposedSpec?: string) {
+    const finding = await detail(user, id);
+    const parts = (await findTravelerParts(db, finding.travelerId))!;
+    const { context } = finding;
+    const current = findRivet(context.rivetSpec, [], 'rivetSpec');
+    const proposed = proposedSpec ?? nextRivetSize(current)?.code;
+    if (!proposed) throw conflict(`${current.code} is the largest rivet of its family: repair with a doubler or scrap`);
+    const supplierCoupons = await db.select().from(couponTests).where(and(
+      eq(couponTests.organizationId, (await db.select({ org: builds.organizationId }).from(builds).where(eq(builds.id, parts.traveler.buildId)))[0].org),
+      eq(couponTests.material, context.material),
+    ));
+    const basisHole = findBasisHole(parts.revision.basis, finding.holeIds[0]);
+    return reworkCheck({
+      rivetSpec: current.code, proposedSpec: proposed, holeStationIn: context.stationIn,
+      neighbourStationsIn: [context.prevStationIn, context.nextStationIn], edgeDistanceIn: context.edgeDistanceIn,
+      gaugeIn: context.gaugeIn, material: context.material,
+      ...(basisHole ? { appliedLimitTensionLb: basisHole.appliedLimitLb, appliedLimitShearLb: basisHole.appliedLimitShearLb } : {}),
+      coupons: supplierCoupons.map((c) => ({ material: c.material, gaugeIn: c.gaugeIn, couponWidthIn: c.couponWidthIn, rivetSpec: c.rivetSpec, loadLb: c.loadLb, outcome: c.outcome })),
+    });
+  }
+
   return {
     detail,
+    reworkCheck: reworkCheckFor,
 
     async list(user: Express.User, filter: FindingFilter) {
       return (await listFindingRows(db, user, filter)).map(summary);
@@ -129,3 +156,13 @@ export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) 
     },
   };
 };
+
+/** The computed hole of a revision's load-study basis with this id, if the revision has one. */
+function findBasisHole(basis: Record<string, unknown> | null, holeId: string): { appliedLimitLb: number; appliedLimitShearLb: number } | null {
+  const lines = (basis?.candidate as { lines?: { holes?: { id: string; appliedLimitLb: number; appliedLimitShearLb: number }[] }[] } | undefined)?.lines;
+  for (const line of lines ?? []) {
+    const hole = line.holes?.find((h) => h.id === holeId);
+    if (hole) return hole;
+  }
+  return null;
+}

@@ -1,0 +1,97 @@
+import request from 'supertest';
+import { DEMO_STUDY_INPUTS } from '@/db/seed';
+import { startTestApp, type TestApp } from '../helpers/test-app';
+
+jest.setTimeout(90000);
+
+let t: TestApp;
+let tok: Awaited<ReturnType<TestApp['tokens']>>;
+let kitModelId: string;
+const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
+
+beforeAll(async () => {
+  t = await startTestApp();
+  tok = await t.tokens();
+  kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body[0].id;
+});
+afterAll(async () => { await t?.close(); });
+
+describe('load studies', () => {
+  it('refuses a negative weight, naming the field', async () => {
+    const res = await request(t.app).post('/api/studies').set(auth(tok.supplier))
+      .send({ kitModelId, name: 'bad', inputs: { ...DEMO_STUDY_INPUTS, kit: { ...DEMO_STUDY_INPUTS.kit, weightLb: -1 } } });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields['inputs.kit.weightLb']).toMatch(/greater than zero/);
+  });
+
+  it('refuses a stall speed above the cruise speed', async () => {
+    const res = await request(t.app).post('/api/studies').set(auth(tok.supplier))
+      .send({ kitModelId, name: 'bad', inputs: { ...DEMO_STUDY_INPUTS, kit: { ...DEMO_STUDY_INPUTS.kit, stallSpeedKeas: 130 } } });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields['inputs.kit.cruiseSpeedKeas']).toMatch(/above the stall speed/);
+  });
+
+  it('refuses uploaded coordinates that cross themselves, with the engine naming the airfoil points', async () => {
+    // A bow tie: the two "surfaces" cross at mid-chord.
+    const points: [number, number][] = [];
+    for (let i = 0; i <= 10; i++) points.push([1 - i / 10, 0.05 * Math.sin(Math.PI * (1 - i / 10)) * (i < 5 ? 1 : -1)]);
+    for (let i = 1; i <= 10; i++) points.push([i / 10, 0.05 * Math.sin(Math.PI * (i / 10)) * (i < 5 ? -1 : 1)]);
+    const res = await request(t.app).post('/api/studies').set(auth(tok.supplier))
+      .send({ kitModelId, name: 'bad', inputs: { ...DEMO_STUDY_INPUTS, airfoil: { kind: 'coordinates', points } } });
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields)[0]).toMatch(/^airfoil/);
+  });
+
+  it('computes and stores a study with its trade table, and a change is a new revision', async () => {
+    const res = await request(t.app).post('/api/studies').set(auth(tok.supplier)).send({ kitModelId, name: 'Rib study', inputs: DEMO_STUDY_INPUTS });
+    expect(res.status).toBe(201);
+    expect(res.body.revision).toBe(1);
+    expect(res.body.result.trade.length).toBe(18);
+    expect(res.body.result.caution).toMatch(/aid only/i);
+    const changed = await request(t.app).put(`/api/studies/${res.body.id}`).set(auth(tok.supplier))
+      .send({ kitModelId, name: 'Rib study', inputs: { ...DEMO_STUDY_INPUTS, maxZones: 2 } });
+    expect(changed.body.revision).toBe(2);
+    const first = await request(t.app).get(`/api/studies/${res.body.id}?revision=1`).set(auth(tok.supplier));
+    expect(first.body.inputs.maxZones).toBe(4);
+  });
+
+  it('applies the recommended gauge and rivet to a draft revision with the computed zones and the study as basis', async () => {
+    const [study] = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body;
+    const detail = (await request(t.app).get(`/api/studies/${study.id}`).set(auth(tok.supplier))).body;
+    const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body;
+    const rib = designs.find((d: { partNumber: string }) => d.partNumber === 'W-104');
+    const { gaugeIn, rivet } = detail.result.recommended;
+    const res = await request(t.app).post(`/api/studies/${study.id}/apply`).set(auth(tok.supplier)).send({ partDesignId: rib.id, gaugeIn, rivet });
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ status: 'draft', letter: 'B', gaugeIn, rivetSpec: rivet, studyId: study.id });
+    const candidate = detail.result.candidates.find((c: { gaugeIn: number; rivet: string }) => c.gaugeIn === gaugeIn && c.rivet === rivet);
+    expect(res.body.lines.map((l: { zones: unknown[] }) => l.zones.length)).toEqual(candidate.lines.map((l: { zones: unknown[] }) => l.zones.length));
+    expect(res.body.basis.studyRevision).toBe(detail.revision);
+  });
+
+  it('refuses to apply a candidate that does not carry the load', async () => {
+    const [study] = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body;
+    const detail = (await request(t.app).get(`/api/studies/${study.id}`).set(auth(tok.supplier))).body;
+    const bad = detail.result.candidates.find((c: { feasible: boolean }) => !c.feasible);
+    const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body;
+    const res = await request(t.app).post(`/api/studies/${study.id}/apply`).set(auth(tok.supplier)).send({ partDesignId: designs[0].id, gaugeIn: bad.gaugeIn, rivet: bad.rivet });
+    expect(res.status).toBe(409);
+  });
+
+  it('keeps load studies from builders', async () => {
+    expect((await request(t.app).get('/api/studies').set(auth(tok.builder))).status).toBe(403);
+  });
+});
+
+describe('the rework check for an inspector', () => {
+  it('fails AD4 → AD5 at the existing 0.25 in edge distance and offers the alternative', async () => {
+    // FAA AC 43.13-1B 4-57: an oversize rivet needs 2D of the new diameter, 2 × 5/32 = 0.3125 in.
+    const [finding] = (await request(t.app).get('/api/findings?status=open').set(auth(tok.inspector))).body;
+    const res = await request(t.app).post(`/api/findings/${finding.id}/rework-check`).set(auth(tok.inspector)).send({});
+    expect(res.status).toBe(200);
+    expect(res.body.pass).toBe(false);
+    expect(res.body.requiredEdgeIn).toBeCloseTo(0.3125, 4);
+    expect(res.body.alternative).not.toBeNull();
+    expect(res.body.caution).toMatch(/aid only/i);
+  });
+});
