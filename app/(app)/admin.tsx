@@ -1,0 +1,5 @@
+import { AdminScreen } from '@/components/admin/admin-screen';
+
+export default function Admin() {
+  return <AdminScreen />;
+}

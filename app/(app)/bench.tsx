@@ -1,0 +1,5 @@
+import { BenchScreen } from '@/components/bench/bench-screen';
+
+export default function Bench() {
+  return <BenchScreen />;
+}

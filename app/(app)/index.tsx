@@ -1,0 +1,5 @@
+import { HomeRedirect } from '@/components/navigation/home-redirect';
+
+export default function Home() {
+  return <HomeRedirect />;
+}

@@ -1,0 +1,5 @@
+import { NotFoundScreen } from '@/components/not-found/not-found-screen';
+
+export default function NotFound() {
+  return <NotFoundScreen />;
+}

@@ -1,0 +1,68 @@
+import { AtkinsonHyperlegible_400Regular } from '@expo-google-fonts/atkinson-hyperlegible/400Regular';
+import { AtkinsonHyperlegible_700Bold } from '@expo-google-fonts/atkinson-hyperlegible/700Bold';
+import { IBMPlexMono_400Regular } from '@expo-google-fonts/ibm-plex-mono/400Regular';
+import { IBMPlexMono_600SemiBold } from '@expo-google-fonts/ibm-plex-mono/600SemiBold';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { useFonts } from 'expo-font';
+import { DefaultTheme, Stack, ThemeProvider } from 'expo-router';
+import { StatusBar } from 'expo-status-bar';
+import { useEffect, useState } from 'react';
+import { View } from 'react-native';
+import { colors } from '@/constants/theme';
+import { LoadingState } from '@/components/ui/states';
+import { makeQueryClient } from '@/hooks/query-client';
+import { SessionProvider, useSession } from '@/hooks/use-session';
+import { UnitsProvider } from '@/hooks/use-units';
+
+const navTheme = {
+  ...DefaultTheme,
+  colors: { ...DefaultTheme.colors, background: colors.paper, card: colors.paper, text: colors.ink, border: colors.rule, primary: colors.accent },
+};
+
+export default function RootLayout() {
+  // Fonts ship in the bundle; text shows at once in the fallback face and switches when they load.
+  useFonts({ AtkinsonHyperlegible_400Regular, AtkinsonHyperlegible_700Bold, IBMPlexMono_400Regular, IBMPlexMono_600SemiBold });
+  const [queryClient] = useState(makeQueryClient);
+  return (
+    <QueryClientProvider client={queryClient}>
+      <SessionProvider>
+        <UnitsProvider>
+          <ThemeProvider value={navTheme}>
+            <StatusBar style="dark" />
+            <Guarded onSignedOut={() => queryClient.clear()} />
+          </ThemeProvider>
+        </UnitsProvider>
+      </SessionProvider>
+    </QueryClientProvider>
+  );
+}
+
+function Guarded({ onSignedOut }: { onSignedOut: () => void }) {
+  const { status, user } = useSession();
+  // Nothing cached for one person may show to the next.
+  useEffect(() => {
+    if (status === 'signed-out') onSignedOut();
+  }, [status, user?.id, onSignedOut]);
+
+  if (status === 'loading') {
+    return (
+      <View style={{ flex: 1, backgroundColor: colors.paper, justifyContent: 'center' }}>
+        <LoadingState what="Opening Pitchcard" />
+      </View>
+    );
+  }
+  const signedIn = status === 'signed-in';
+  return (
+    <Stack screenOptions={{ headerShown: false, contentStyle: { backgroundColor: colors.paper } }}>
+      <Stack.Protected guard={signedIn}>
+        <Stack.Screen name="(app)" />
+      </Stack.Protected>
+      <Stack.Protected guard={!signedIn}>
+        <Stack.Screen name="(auth)" />
+      </Stack.Protected>
+      <Stack.Screen name="t/[token]" />
+      <Stack.Screen name="dev/mail" />
+      <Stack.Screen name="+not-found" />
+    </Stack>
+  );
+}

@@ -1,0 +1,81 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { useRouter } from 'expo-router';
+import { useCallback, useMemo, useState } from 'react';
+import { FlatList, View } from 'react-native';
+import { space } from '@/constants/theme';
+import { Screen } from '@/components/ui/screen';
+import { Section } from '@/components/ui/sheet';
+import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
+import { TwoPane } from '@/components/ui/two-pane';
+import { TravelerCard } from '@/components/travelers/traveler-card';
+import { errorMessage } from '@/hooks/api-client';
+import { lookupTraveler, useTravelersQuery } from '@/hooks/queries/travelers';
+import { Scanner } from './scanner';
+import { ShortCodeEntry } from './short-code-entry';
+
+/** The builder's bench: scan or type a label to open its part; the parts in progress below. */
+export function BenchScreen() {
+  const router = useRouter();
+  const qc = useQueryClient();
+  const parts = useTravelersQuery();
+  const [scanProblem, setScanProblem] = useState<string | null>(null);
+
+  const open = useCallback(async (code: string) => {
+    const { id } = await lookupTraveler(qc, code);
+    router.push(`/travelers/${id}`);
+  }, [qc, router]);
+
+  const onScanned = useCallback(async (text: string) => {
+    setScanProblem(null);
+    try {
+      await open(text);
+    } catch (e) {
+      setScanProblem(`That label did not open a part of yours: ${errorMessage(e)}`);
+    }
+  }, [open]);
+
+  const inProgress = useMemo(
+    () => (parts.data ?? []).filter((t) => !t.signedOff).sort((a, b) => (b.holesDone / (b.holesTotal || 1)) - (a.holesDone / (a.holesTotal || 1))),
+    [parts.data],
+  );
+
+  const finders = (
+    <TwoPane
+      leftWidth={0.5}
+      left={
+        <Section title="Scan">
+          <Scanner onCode={onScanned} />
+          {scanProblem ? <Notice tone="error" testID="scan-lookup-problem">{scanProblem}</Notice> : null}
+        </Section>
+      }
+      right={
+        <Section title="Or type the code">
+          <ShortCodeEntry onOpen={open} />
+        </Section>
+      }
+    />
+  );
+
+  return (
+    <Screen title="Bench" subtitle="Open a part by its label" account scroll={false} full testID="bench-screen">
+      <FlatList
+        data={parts.isSuccess ? inProgress : []}
+        keyExtractor={(t) => t.id}
+        renderItem={({ item }) => <TravelerCard t={item} onPress={() => router.push(`/travelers/${item.id}`)} />}
+        ListHeaderComponent={
+          <View style={{ gap: space.xl, paddingBottom: space.md }}>
+            {finders}
+            <Section title="Parts in progress" />
+          </View>
+        }
+        ListEmptyComponent={
+          parts.isPending ? <LoadingState what="Loading your parts" />
+            : parts.isError ? <ErrorState error={parts.error} onRetry={() => void parts.refetch()} />
+              : <EmptyState title="Nothing in progress." body={parts.data?.length ? 'Every part you have is signed off.' : 'Parts appear here when a supplier ships you a build.'} />
+        }
+        keyboardShouldPersistTaps="handled"
+        contentContainerStyle={{ paddingBottom: space.xxl }}
+      />
+    </Screen>
+  );
+}

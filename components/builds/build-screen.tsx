@@ -1,0 +1,43 @@
+import { useRouter } from 'expo-router';
+import { View } from 'react-native';
+import { space } from '@/constants/theme';
+import { TravelerCard } from '@/components/travelers/traveler-card';
+import { Button } from '@/components/ui/button';
+import { ProgressBar } from '@/components/ui/progress-bar';
+import { Screen } from '@/components/ui/screen';
+import { KeyValue, Section } from '@/components/ui/sheet';
+import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
+import { Mono } from '@/components/ui/text';
+import { useBuildQuery } from '@/hooks/queries/builds';
+import { useRole } from '@/hooks/use-session';
+import { shortDate } from '@/components/findings/finding-row';
+
+export function BuildScreen({ buildId }: { buildId: string }) {
+  const router = useRouter();
+  const role = useRole();
+  const q = useBuildQuery(buildId);
+  if (q.isPending) return <Screen title="Build" backTo="/builds"><LoadingState what="Loading the build" /></Screen>;
+  if (q.isError) return <Screen title="Build" backTo="/builds"><ErrorState error={q.error} onRetry={() => void q.refetch()} /></Screen>;
+  const b = q.data;
+  return (
+    <Screen title={`Build ${b.kitSerial}`} subtitle={`${b.kitName} · ${b.supplierName}`} backTo="/builds" testID="build-screen">
+      <View style={{ gap: space.sm }}>
+        <KeyValue label="Shipped">{shortDate(b.createdAt)}</KeyValue>
+        <KeyValue label="Builder">{b.builders.map((x) => `${x.name} <${x.email}>`).join(', ') || '–'}</KeyValue>
+        <KeyValue label="Inspector">{b.inspectors.map((x) => `${x.name} <${x.email}>`).join(', ') || '–'}</KeyValue>
+        <KeyValue label="Open findings"><Mono bold>{String(b.openFindings)}</Mono></KeyValue>
+      </View>
+      <ProgressBar done={b.holesDone} total={b.holesTotal} />
+      {role === 'supplier' ? (
+        <Button label="Print QR labels" variant="secondary" onPress={() => router.push(`/builds/${b.id}/labels`)} testID="labels" />
+      ) : null}
+      <Section title={`Parts (${b.travelers.length})`}>
+        {b.travelers.length ? (
+          <View testID="build-travelers">
+            {b.travelers.map((t) => <TravelerCard key={t.id} t={t} onPress={() => router.push(`/travelers/${t.id}`)} />)}
+          </View>
+        ) : <EmptyState title="No parts in this build." body="No part of this kit had a published revision when it was shipped." />}
+      </Section>
+    </Screen>
+  );
+}

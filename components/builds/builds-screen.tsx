@@ -1,0 +1,43 @@
+import { useRouter } from 'expo-router';
+import { FlatList } from 'react-native';
+import { Button } from '@/components/ui/button';
+import { Screen } from '@/components/ui/screen';
+import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
+import { useBuildsQuery } from '@/hooks/queries/builds';
+import { useRole } from '@/hooks/use-session';
+import { BuildRow } from './build-row';
+
+export function BuildsScreen() {
+  const router = useRouter();
+  const role = useRole();
+  const q = useBuildsQuery();
+  const isSupplier = role === 'supplier';
+  return (
+    <Screen
+      title="Builds"
+      subtitle={isSupplier ? 'Kits you have shipped' : 'Builds you inspect'}
+      account
+      scroll={false}
+      testID="builds-screen"
+      right={isSupplier ? <Button label="Ship a build" compact onPress={() => router.push('/builds/new')} testID="ship-build" /> : undefined}
+    >
+      {q.isPending ? <LoadingState what="Loading builds" />
+        : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+          : (
+            <FlatList
+              data={q.data}
+              keyExtractor={(b) => b.id}
+              renderItem={({ item }) => <BuildRow b={item} onPress={() => router.push(`/builds/${item.id}`)} />}
+              ListEmptyComponent={
+                <EmptyState
+                  title="No builds yet."
+                  body={isSupplier ? 'Ship a kit to a builder: each published part becomes a traveler with its own QR label.' : 'Builds show here when a supplier names you as their inspector.'}
+                />
+              }
+              refreshing={q.isRefetching}
+              onRefresh={() => void q.refetch()}
+            />
+          )}
+    </Screen>
+  );
+}

@@ -1,0 +1,87 @@
+import { useRouter } from 'expo-router';
+import { Pressable, StyleSheet, View } from 'react-native';
+import { partKindLabels, type KitModel, type PartDesignSummary } from '@/db/contracts';
+import { colors, hairline, space, touch } from '@/constants/theme';
+import { Button } from '@/components/ui/button';
+import { Screen } from '@/components/ui/screen';
+import { Section } from '@/components/ui/sheet';
+import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
+import { Mono, Txt } from '@/components/ui/text';
+import { useDesignsQuery } from '@/hooks/queries/designs';
+import { useKitsQuery } from '@/hooks/queries/kits';
+import { useUnits } from '@/hooks/use-units';
+
+const statusWords = { draft: 'draft', published: 'published', superseded: 'superseded' } as const;
+
+function DesignRow({ d, onPress }: { d: PartDesignSummary; onPress: () => void }) {
+  return (
+    <Pressable
+      testID={`design-${d.partNumber}`}
+      accessibilityRole="button"
+      accessibilityLabel={`${d.partNumber} ${d.name}`}
+      onPress={onPress}
+      style={({ pressed }) => [styles.row, pressed && { backgroundColor: colors.accentSoft }]}
+    >
+      <View style={{ flex: 1 }}>
+        <Txt bold><Mono bold>{d.partNumber}</Mono> {d.name}</Txt>
+        <Txt variant="small" tone="soft">
+          {partKindLabels[d.kind]}
+          {d.latest ? <> · latest <Mono variant="small" bold>{d.latest.letter}</Mono> {statusWords[d.latest.status]}</> : null}
+          {d.publishedLetter ? <> · builders get <Mono variant="small" bold>{d.publishedLetter}</Mono></> : ' · not published'}
+        </Txt>
+      </View>
+      <Txt tone="accent" bold>›</Txt>
+    </Pressable>
+  );
+}
+
+function KitBlock({ kit, designs }: { kit: KitModel; designs: PartDesignSummary[] }) {
+  const router = useRouter();
+  const u = useUnits();
+  return (
+    <Section
+      title={`${kit.code} · ${kit.name}`}
+      testID={`kit-${kit.code}`}
+      aside={<Button label="New part design" variant="quiet" compact onPress={() => router.push(`/catalogue/designs/new?kitModelId=${kit.id}`)} testID={`new-design-${kit.code}`} />}
+    >
+      <Txt variant="small" tone="soft">
+        <Mono variant="small">{u.mass(kit.weightLb)}</Mono> gross · wing <Mono variant="small">{u.area(kit.wingAreaSqFt)}</Mono> · stall <Mono variant="small">{kit.stallSpeedKeas} KEAS</Mono> · {kit.airfoil} · {kit.category}
+      </Txt>
+      {designs.length ? (
+        <View>{designs.map((d) => <DesignRow key={d.id} d={d} onPress={() => router.push(`/catalogue/designs/${d.id}`)} />)}</View>
+      ) : <Txt tone="soft">No part designs yet.</Txt>}
+    </Section>
+  );
+}
+
+/** The supplier's catalogue: kit models and the part designs of each. */
+export function CatalogueScreen() {
+  const router = useRouter();
+  const kits = useKitsQuery();
+  const designs = useDesignsQuery();
+  const loading = kits.isPending || designs.isPending;
+  const error = kits.error ?? designs.error;
+  return (
+    <Screen
+      title="Catalogue"
+      subtitle="Kit models and their part designs"
+      account
+      testID="catalogue-screen"
+      right={<Button label="New kit model" variant="secondary" compact onPress={() => router.push('/catalogue/new-kit')} testID="new-kit" />}
+    >
+      {loading ? <LoadingState what="Loading the catalogue" />
+        : error ? <ErrorState error={error} onRetry={() => { void kits.refetch(); void designs.refetch(); }} />
+          : !kits.data?.length ? (
+            <EmptyState
+              title="No kit models yet."
+              body="Start with a kit model: its weight, wing and speeds. Then add the parts."
+              action={<Button label="New kit model" onPress={() => router.push('/catalogue/new-kit')} testID="new-kit-empty" />}
+            />
+          ) : kits.data.map((k) => <KitBlock key={k.id} kit={k} designs={(designs.data ?? []).filter((d) => d.kitModelId === k.id)} />)}
+    </Screen>
+  );
+}
+
+const styles = StyleSheet.create({
+  row: { flexDirection: 'row', alignItems: 'center', gap: space.md, minHeight: touch, paddingVertical: space.sm, borderBottomWidth: hairline, borderColor: colors.rule },
+});

@@ -1,0 +1,185 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { useForm, type Resolver } from 'react-hook-form';
+import { View } from 'react-native';
+import type { z } from 'zod';
+import { partKindLabels, revisionInput, type PartDesignDetail, type Revision, type RevisionInput, type RevisionStatus } from '@/db/contracts';
+import { colors, hairline, space } from '@/constants/theme';
+import { FormTextField } from '@/components/forms/form-fields';
+import { plainParse } from '@/components/forms/plain-errors';
+import { applyServerErrors } from '@/components/forms/server-errors';
+import { Button } from '@/components/ui/button';
+import { Caution } from '@/components/ui/caution';
+import { Screen } from '@/components/ui/screen';
+import { Section, Sheet } from '@/components/ui/sheet';
+import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
+import { Mono, Txt } from '@/components/ui/text';
+import { errorMessage } from '@/hooks/api-client';
+import { useSession } from '@/hooks/use-session';
+import { useDesignQuery, useDesignRevisionCreateMutation, useDesignRevisionPublishMutation, useDesignRevisionUpdateMutation } from '@/hooks/queries/designs';
+import { shortDate } from '@/components/findings/finding-row';
+import { revisionToInput, RevisionFields } from './revision-fields';
+import { RevisionView } from './revision-view';
+
+const statusWords: Record<RevisionStatus, string> = { draft: 'Draft', published: 'Published', superseded: 'Superseded' };
+
+type RevValues = z.input<typeof revisionInput>;
+type RevOut = z.output<typeof revisionInput>;
+
+const baseResolver = zodResolver(revisionInput, plainParse);
+
+/** A new revision must say what changed: the contract allows an empty note, a new revision does not. */
+const newRevisionResolver: Resolver<RevValues, unknown, RevOut> = async (values, ctx, opts) => {
+  const r = await baseResolver(values, ctx, opts);
+  if ((values.changeNote ?? '').trim().length < 3) {
+    return { values: {}, errors: { ...r.errors, changeNote: { type: 'custom', message: 'say what changed and why, in a few words' } } };
+  }
+  return r;
+};
+
+export function DesignScreen({ designId }: { designId: string }) {
+  const q = useDesignQuery(designId);
+  if (q.isPending) return <Screen title="Part design" backTo="/catalogue"><LoadingState what="Loading the design" /></Screen>;
+  if (q.isError) return <Screen title="Part design" backTo="/catalogue"><ErrorState error={q.error} onRetry={() => void q.refetch()} /></Screen>;
+  return <DesignBody d={q.data} />;
+}
+
+function RevisionHead({ r }: { r: Revision }) {
+  return (
+    <View style={{ flexDirection: 'row', gap: space.sm, alignItems: 'baseline', flexWrap: 'wrap' }}>
+      <Mono bold variant="title">{r.letter}</Mono>
+      <Txt bold tone={r.status === 'published' ? 'accent' : r.status === 'draft' ? 'caution' : 'faint'} testID={`revision-${r.letter}-status`}>{statusWords[r.status]}</Txt>
+      <Txt variant="small" tone="soft">made {shortDate(r.createdAt)}</Txt>
+    </View>
+  );
+}
+
+function DesignBody({ d }: { d: PartDesignDetail }) {
+  const revisions = d.revisions;
+  const draft = revisions.find((r) => r.status === 'draft');
+  const published = revisions.find((r) => r.status === 'published');
+  const [making, setMaking] = useState(false);
+  return (
+    <Screen
+      title={`${d.partNumber} · ${d.name}`}
+      subtitle={`${partKindLabels[d.kind]} · ${d.kitName}${d.publishedLetter ? ` · published revision ${d.publishedLetter}` : ' · nothing published yet'}`}
+      backTo="/catalogue"
+      testID="design-screen"
+    >
+      {draft ? <DraftEditor designId={d.id} r={draft} /> : null}
+      {!draft && !making ? (
+        <Button label="Start a new revision" variant="secondary" onPress={() => setMaking(true)} testID="new-revision" />
+      ) : null}
+      {!draft && making ? <NewRevisionForm designId={d.id} from={published ?? revisions[0]} onDone={() => setMaking(false)} /> : null}
+      {revisions.filter((r) => r.status !== 'draft').map((r) => (
+        <Sheet key={r.id} testID={`revision-${r.letter}`}>
+          <RevisionHead r={r} />
+          <Txt testID={`revision-${r.letter}-approved`}>
+            {r.publishedAt ? `Published ${shortDate(r.publishedAt)}` : ''}
+            {r.publishedByName ? ` · approved by ${r.publishedByName}` : ''}
+          </Txt>
+          {r.changeNote ? <Txt tone="soft">Change: “{r.changeNote}”</Txt> : null}
+          <Txt variant="small" tone="faint">A published revision is frozen. Changes go into a new revision.</Txt>
+          <RevisionView r={r} />
+        </Sheet>
+      ))}
+      <Caution />
+    </Screen>
+  );
+}
+
+function DraftEditor({ designId, r }: { designId: string; r: Revision }) {
+  const update = useDesignRevisionUpdateMutation(designId);
+  const publish = useDesignRevisionPublishMutation(designId);
+  const [formError, setFormError] = useState<string | null>(null);
+  const [saved, setSaved] = useState(false);
+  const { control, handleSubmit, setError, formState, reset } = useForm<RevValues, unknown, RevOut>({
+    resolver: baseResolver,
+    mode: 'onChange',
+    defaultValues: revisionToInput(r),
+  });
+  const { user } = useSession();
+
+  const save = async (values: RevOut): Promise<boolean> => {
+    setFormError(null);
+    try {
+      const next = await update.mutateAsync({ revisionId: r.id, input: values });
+      reset(revisionToInput(next));
+      setSaved(true);
+      return true;
+    } catch (e) {
+      setFormError(applyServerErrors(setError, e));
+      return false;
+    }
+  };
+
+  const onSave = handleSubmit(async (v) => { await save(v); }, () => setFormError('Some fields need a look: see the messages in red.'));
+
+  const onPublish = async () => {
+    setFormError(null);
+    const go = async () => {
+      try {
+        await publish.mutateAsync(r.id);
+      } catch (e) {
+        setFormError(errorMessage(e));
+      }
+    };
+    if (formState.isDirty) {
+      // Publish what is on screen: save the edits first.
+      await handleSubmit(async (v) => { if (await save(v)) await go(); }, () => setFormError('Fix the marked fields before publishing.'))();
+    } else {
+      await go();
+    }
+  };
+
+  return (
+    <View style={{ gap: space.xl }} testID={`revision-${r.letter}`}>
+      <Sheet style={{ borderColor: colors.caution, borderWidth: 2 }}>
+        <RevisionHead r={r} />
+        <Txt>This draft can still change. Builders see nothing of it until it is published.</Txt>
+      </Sheet>
+      <RevisionFields control={control} />
+      <FormTextField control={control} name="changeNote" label="Change note" hint="What changed from the last revision, and why." testID="rev-change-note" multiline />
+      {formError ? <Notice tone="error" testID="revision-error">{formError}</Notice> : null}
+      {saved && !formState.isDirty ? <Notice tone="ok" testID="draft-saved">Draft saved.</Notice> : null}
+      <Button label="Save draft" variant="secondary" busy={update.isPending && !publish.isPending} onPress={() => void onSave()} testID="save-draft" />
+      <Section title={`Publish revision ${r.letter}`}>
+        <Txt>Publishing freezes this revision. New builds get travelers made from it; unfinished travelers of an older revision show a notice.</Txt>
+        <Txt testID="approver">Publishing is your approval: every traveler made from revision {r.letter} names {user?.name ?? 'you'} as the approver.</Txt>
+        <View style={{ borderTopWidth: hairline, borderColor: colors.rule }} />
+        <Button label={`Publish revision ${r.letter}`} busyLabel="Publishing" busy={publish.isPending} onPress={() => void onPublish()} testID="publish" />
+      </Section>
+    </View>
+  );
+}
+
+function NewRevisionForm({ designId, from, onDone }: { designId: string; from?: Revision; onDone: () => void }) {
+  const create = useDesignRevisionCreateMutation(designId);
+  const [formError, setFormError] = useState<string | null>(null);
+  const { control, handleSubmit, setError, formState } = useForm<RevValues, unknown, RevOut>({
+    resolver: newRevisionResolver,
+    mode: 'onChange',
+    defaultValues: from ? revisionToInput(from) : undefined,
+  });
+  const submit = handleSubmit(async (v) => {
+    setFormError(null);
+    try {
+      await create.mutateAsync(v);
+      onDone();
+    } catch (e) {
+      setFormError(applyServerErrors(setError, e));
+    }
+  }, () => setFormError('Some fields need a look: see the messages in red.'));
+  return (
+    <View style={{ gap: space.xl }} testID="new-revision-form">
+      <Notice>The new revision starts as a copy of revision {from?.letter ?? '–'}. It stays a draft until you publish it.</Notice>
+      <FormTextField control={control} name="changeNote" label="Change note" hint="What changes, and why (required)." testID="rev-change-note" multiline />
+      <RevisionFields control={control} />
+      {formError ? <Notice tone="error" testID="revision-error">{formError}</Notice> : null}
+      <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
+        <Button label="Make the draft" busy={formState.isSubmitting} onPress={() => void submit()} testID="submit-new-revision" />
+        <Button label="Cancel" variant="quiet" onPress={onDone} testID="cancel-new-revision" />
+      </View>
+    </View>
+  );
+}

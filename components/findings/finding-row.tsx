@@ -1,0 +1,43 @@
+import { Image, Pressable, StyleSheet, View } from 'react-native';
+import { findingKindLabels, type FindingSummary } from '@/db/contracts';
+import { colors, hairline, space, touch } from '@/constants/theme';
+import { FindingStatusTag } from '@/components/ui/status-mark';
+import { Mono, Txt } from '@/components/ui/text';
+
+export function shortDate(iso: string): string {
+  const d = new Date(iso);
+  return Number.isNaN(d.getTime()) ? iso : d.toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+}
+
+/** One finding in a list: its status mark, the holes, what is wrong and who flagged it. */
+export function FindingRow({ f, onPress, showPart = true }: { f: FindingSummary; onPress: () => void; showPart?: boolean }) {
+  return (
+    <Pressable
+      testID={`finding-${f.id}`}
+      accessibilityRole="button"
+      accessibilityLabel={`Finding on ${f.holeIds.join(', ')}: ${findingKindLabels[f.kind]}`}
+      onPress={onPress}
+      style={({ pressed }) => [styles.row, pressed && { backgroundColor: colors.accentSoft }]}
+    >
+      {f.thumbUrl ? <Image source={{ uri: f.thumbUrl }} style={styles.thumb} accessibilityIgnoresInvertColors /> : <View style={[styles.thumb, styles.noThumb]} />}
+      <View style={{ flex: 1, gap: 2 }}>
+        <View style={styles.top}>
+          <FindingStatusTag status={f.status} disposition={f.disposition} />
+          <Mono bold>{f.holeIds.join(' ')}</Mono>
+        </View>
+        <Txt>{findingKindLabels[f.kind]}</Txt>
+        <Txt variant="small" tone="soft">
+          {showPart ? <><Mono variant="small">{f.partNumber} · {f.serial}</Mono> · </> : null}
+          {f.flaggedByName} · {shortDate(f.createdAt)}
+        </Txt>
+      </View>
+    </Pressable>
+  );
+}
+
+const styles = StyleSheet.create({
+  row: { flexDirection: 'row', gap: space.md, paddingVertical: space.sm, minHeight: touch, borderBottomWidth: hairline, borderColor: colors.rule, alignItems: 'center' },
+  top: { flexDirection: 'row', gap: space.sm, alignItems: 'center', flexWrap: 'wrap' },
+  thumb: { width: 56, height: 56, borderWidth: hairline, borderColor: colors.rule, backgroundColor: colors.paperSunk },
+  noThumb: {},
+});

@@ -1,0 +1,39 @@
+import { useRouter } from 'expo-router';
+import { useMemo, useState } from 'react';
+import { FlatList, View } from 'react-native';
+import { space } from '@/constants/theme';
+import { Choice } from '@/components/ui/choice';
+import { Screen } from '@/components/ui/screen';
+import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
+import { useFindingsQuery } from '@/hooks/queries/findings';
+import { FindingRow } from './finding-row';
+import { isOpen, sortFindings } from './review-filter';
+
+/** The builder's own findings: what is waiting on the inspector and what needs rework. */
+export function MyFindingsScreen() {
+  const router = useRouter();
+  const q = useFindingsQuery();
+  const [show, setShow] = useState<'open' | 'all'>('open');
+  const rows = useMemo(() => sortFindings((q.data ?? []).filter((f) => show === 'all' || isOpen(f)), { key: 'date', dir: 'desc' }), [q.data, show]);
+  return (
+    <Screen title="Findings" subtitle="Holes flagged on your builds" account scroll={false} testID="my-findings-screen">
+      {q.isPending ? <LoadingState what="Loading findings" />
+        : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+          : (
+            <FlatList
+              data={rows}
+              keyExtractor={(f) => f.id}
+              renderItem={({ item }) => <FindingRow f={item} onPress={() => router.push(`/findings/${item.id}`)} />}
+              ListHeaderComponent={
+                <View style={{ paddingBottom: space.md }}>
+                  <Choice testIDPrefix="findings-show" value={show} onChange={setShow} options={[{ value: 'open', label: 'Open' }, { value: 'all', label: 'All' }]} />
+                </View>
+              }
+              ListEmptyComponent={<EmptyState title={show === 'open' ? 'No open findings.' : 'No findings yet.'} body="Flag a suspect hole from its traveler; it shows here until it is closed." />}
+              refreshing={q.isRefetching}
+              onRefresh={() => void q.refetch()}
+            />
+          )}
+    </Screen>
+  );
+}

@@ -1,0 +1,100 @@
+import { useRouter } from 'expo-router';
+import { useMemo, useState } from 'react';
+import { Image, View } from 'react-native';
+import { findingKindLabels, findingStatuses, findingStatusLabels, type FindingSummary } from '@/db/contracts';
+import { colors, space } from '@/constants/theme';
+import { Choice } from '@/components/ui/choice';
+import { Field, TextBox } from '@/components/ui/field';
+import { Screen } from '@/components/ui/screen';
+import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
+import { FindingStatusTag } from '@/components/ui/status-mark';
+import { Table, type Column } from '@/components/ui/table';
+import { Mono, Txt } from '@/components/ui/text';
+import { useFindingsQuery } from '@/hooks/queries/findings';
+import { shortDate } from './finding-row';
+import { buildsIn, filterFindings, isOpen, nextSort, sortFindings, type ReviewFilters, type ReviewSort, type ReviewSortKey, type StatusFilter } from './review-filter';
+
+const statusOptions: { value: StatusFilter; label: string }[] = [
+  { value: 'open', label: 'Open' },
+  { value: 'all', label: 'All' },
+  ...findingStatuses.map((s) => ({ value: s, label: findingStatusLabels[s] })),
+];
+
+/** The inspector's queue: every finding on the builds assigned to them, to sort and filter. */
+export function ReviewQueueScreen() {
+  const router = useRouter();
+  const q = useFindingsQuery();
+  const [filters, setFilters] = useState<ReviewFilters>({ status: 'open', build: 'all', text: '' });
+  const [sort, setSort] = useState<ReviewSort>({ key: 'date', dir: 'desc' });
+  const all = useMemo(() => q.data ?? [], [q.data]);
+  const rows = useMemo(() => sortFindings(filterFindings(all, filters), sort), [all, filters, sort]);
+  const builds = useMemo(() => buildsIn(all), [all]);
+  const openCount = all.filter(isOpen).length;
+
+  const columns: Column<FindingSummary, ReviewSortKey>[] = [
+    { key: 'photo', title: 'Photo', flex: 0.7, hideOnPhone: true, render: (f) => (f.thumbUrl
+      ? <Image source={{ uri: f.thumbUrl }} style={{ width: 48, height: 48, borderWidth: 1, borderColor: colors.rule }} />
+      : <Txt variant="small" tone="faint">none</Txt>) },
+    { key: 'date', title: 'Flagged', sortKey: 'date', flex: 1.3, render: (f) => <Mono variant="small">{shortDate(f.createdAt)}</Mono> },
+    { key: 'part', title: 'Part', sortKey: 'part', flex: 1.4, render: (f) => <Txt variant="small"><Mono variant="small" bold>{f.partNumber}</Mono> · <Mono variant="small">{f.serial}</Mono></Txt> },
+    { key: 'holes', title: 'Holes', flex: 1, render: (f) => <Mono bold>{[...f.holeIds].sort().join(' ')}</Mono> },
+    { key: 'kind', title: 'Kind', flex: 1.3, render: (f) => <Txt variant="small">{findingKindLabels[f.kind]}</Txt> },
+    { key: 'status', title: 'Status', sortKey: 'status', flex: 1.9, render: (f) => <FindingStatusTag status={f.status} disposition={f.disposition} /> },
+    { key: 'build', title: 'Build', flex: 0.9, render: (f) => <Mono variant="small">{f.kitSerial}</Mono> },
+    { key: 'by', title: 'By', flex: 1, render: (f) => <Txt variant="small">{f.flaggedByName}{f.photoCount ? ` · ${f.photoCount} photo${f.photoCount === 1 ? '' : 's'}` : ''}</Txt> },
+  ];
+
+  const header = (
+    <View style={{ gap: space.md, paddingBottom: space.md }}>
+      <Field label="Status">
+        <Choice testIDPrefix="filter-status" value={filters.status} onChange={(status) => setFilters((f) => ({ ...f, status }))} options={statusOptions} />
+      </Field>
+      {builds.length > 1 ? (
+        <Field label="Build">
+          <Choice
+            testIDPrefix="filter-build"
+            value={filters.build}
+            onChange={(build) => setFilters((f) => ({ ...f, build }))}
+            options={[{ value: 'all', label: 'All builds' }, ...builds.map((b) => ({ value: b, label: b }))]}
+          />
+        </Field>
+      ) : null}
+      <Field label="Find">
+        <TextBox
+          value={filters.text}
+          onChangeText={(text) => setFilters((f) => ({ ...f, text }))}
+          placeholder="Part, serial, hole, kind or name"
+          testID="filter-text"
+          accessibilityLabel="Find in the queue"
+        />
+      </Field>
+      <Txt variant="small" tone="soft" testID="review-count">{rows.length} shown · {openCount} open in all</Txt>
+    </View>
+  );
+
+  return (
+    <Screen title="Review" subtitle="Flagged holes on the builds you inspect" account scroll={false} full testID="review-screen">
+      {q.isPending ? <LoadingState what="Loading the queue" />
+        : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+          : (
+            <Table
+              rows={rows}
+              columns={columns}
+              rowKey={(f) => f.id}
+              sort={sort}
+              onSort={(key) => setSort((s) => nextSort(s, key))}
+              onRowPress={(f) => router.push(`/findings/${f.id}`)}
+              rowTestID={(f) => `review-row-${f.id}`}
+              rowLabel={(f) => `${f.partNumber} ${f.serial}, holes ${f.holeIds.join(', ')}, ${findingKindLabels[f.kind]}, ${findingStatusLabels[f.status]}`}
+              header={header}
+              empty={
+                <EmptyState
+                  title={all.length ? 'Nothing matches these filters.' : 'The queue is empty.'}
+                  body={all.length ? 'Show all statuses, or clear the search.' : 'When a builder flags a hole on one of your builds, it shows here and you get an e-mail.'}
+                />
+              }
+            />
+          )}
+    </Screen>
+  );
+}

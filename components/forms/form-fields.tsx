@@ -1,0 +1,129 @@
+import { useEffect, useState } from 'react';
+import { Controller, type Control, type FieldValues, type Path } from 'react-hook-form';
+import { editableNumber, fromDisplay, parseNumber, type Quantity } from '@/constants/units';
+import { useUnits } from '@/hooks/use-units';
+import { Choice, type ChoiceOption } from '@/components/ui/choice';
+import { Field, TextBox, type TextBoxProps } from '@/components/ui/field';
+
+type Base<T extends FieldValues> = {
+  control: Control<T>;
+  name: Path<T>;
+  label: string;
+  hint?: string;
+  testID: string;
+};
+
+/** A text field bound to react-hook-form, with its error right under it. */
+export function FormTextField<T extends FieldValues>({ control, name, label, hint, testID, ...input }: Base<T> & Omit<TextBoxProps, 'value' | 'onChangeText' | 'testID'>) {
+  return (
+    <Controller
+      control={control}
+      name={name}
+      render={({ field, fieldState }) => (
+        <Field label={label} hint={hint} error={fieldState.error?.message} testID={`${testID}-field`}>
+          <TextBox
+            {...input}
+            testID={testID}
+            accessibilityLabel={label}
+            value={field.value == null ? '' : String(field.value)}
+            onChangeText={field.onChange}
+            onBlur={field.onBlur}
+            invalid={!!fieldState.error}
+            ref={field.ref}
+          />
+        </Field>
+      )}
+    />
+  );
+}
+
+/**
+ * A number field. The form holds the stored value (inches, pounds); with `quantity` the person types
+ * in the unit they chose and the field converts. What they typed stays as typed while they type.
+ */
+export function FormNumberField<T extends FieldValues>({ control, name, label, hint, testID, quantity, unit }: Base<T> & { quantity?: Quantity; unit?: string }) {
+  const units = useUnits();
+  return (
+    <Controller
+      control={control}
+      name={name}
+      render={({ field, fieldState }) => (
+        <NumberBox
+          label={label}
+          hint={hint}
+          testID={testID}
+          unit={quantity ? units.label(quantity) : unit}
+          error={fieldState.error?.message}
+          value={field.value as number | undefined}
+          toText={(v) => (quantity ? editableNumber(quantity, v, units.system) : editableNumber('length', v, 'imperial'))}
+          fromText={(t) => {
+            const n = parseNumber(t);
+            if (n === undefined || Number.isNaN(n) || !quantity) return n;
+            return fromDisplay(quantity, n, units.system);
+          }}
+          onChange={field.onChange}
+          onBlur={field.onBlur}
+          system={units.system}
+        />
+      )}
+    />
+  );
+}
+
+function NumberBox({ label, hint, testID, unit, error, value, toText, fromText, onChange, onBlur, system }: {
+  label: string; hint?: string; testID: string; unit?: string; error?: string; value: number | undefined;
+  toText: (v: number | undefined) => string; fromText: (t: string) => number | undefined;
+  onChange: (v: number | undefined) => void; onBlur: () => void; system: string;
+}) {
+  const [text, setText] = useState(() => toText(value));
+  // Follow outside changes (a reset, a units switch), but not the echo of our own typing.
+  useEffect(() => {
+    const mine = fromText(text);
+    const same = (mine === undefined && value === undefined) || (typeof mine === 'number' && typeof value === 'number' && Math.abs(mine - value) < 1e-9)
+      || (Number.isNaN(mine) && Number.isNaN(value));
+    if (!same) setText(toText(value));
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [value]);
+  useEffect(() => {
+    setText(toText(value));
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [system]);
+  return (
+    <Field label={label} hint={hint} error={error} unit={unit} testID={`${testID}-field`}>
+      <TextBox
+        mono
+        testID={testID}
+        accessibilityLabel={unit ? `${label} (${unit})` : label}
+        value={text}
+        inputMode="decimal"
+        keyboardType="decimal-pad"
+        onChangeText={(t) => {
+          setText(t);
+          onChange(fromText(t));
+        }}
+        onBlur={onBlur}
+        invalid={!!error}
+      />
+    </Field>
+  );
+}
+
+export function FormChoiceField<T extends FieldValues, V extends string>({ control, name, label, hint, testID, options }: Base<T> & { options: readonly ChoiceOption<V>[] }) {
+  return (
+    <Controller
+      control={control}
+      name={name}
+      render={({ field, fieldState }) => (
+        <Field label={label} hint={hint} error={fieldState.error?.message} testID={`${testID}-field`}>
+          <Choice
+            options={options}
+            value={field.value as V | undefined}
+            onChange={(v) => { field.onChange(v); field.onBlur(); }}
+            testIDPrefix={testID}
+            invalid={!!fieldState.error}
+          />
+        </Field>
+      )}
+    />
+  );
+}

@@ -1,0 +1,111 @@
+import type { FastenerLine, Hole, HoleStatus } from '@/db/contracts';
+
+/**
+ * Where things sit on the drawing, in the part's own inches (x aft from the leading edge, y up).
+ * Kept free of React so it can be tested against simple shapes.
+ */
+export type Point = [number, number];
+export type Side = 'upper' | 'lower';
+
+export type Bounds = { minX: number; maxX: number; minY: number; maxY: number };
+
+export function outlineBounds(outline: readonly Point[]): Bounds {
+  if (!outline.length) return { minX: 0, maxX: 1, minY: 0, maxY: 1 };
+  let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity;
+  for (const [x, y] of outline) {
+    if (x < minX) minX = x;
+    if (x > maxX) maxX = x;
+    if (y < minY) minY = y;
+    if (y > maxY) maxY = y;
+  }
+  return { minX, maxX, minY, maxY };
+}
+
+/** Every y where the vertical line at x crosses the closed polygon's edges. */
+export function crossings(outline: readonly Point[], x: number): number[] {
+  const ys: number[] = [];
+  const n = outline.length;
+  for (let i = 0; i < n; i++) {
+    const [x1, y1] = outline[i];
+    const [x2, y2] = outline[(i + 1) % n];
+    if (x1 === x2) {
+      if (Math.abs(x - x1) < 1e-9) ys.push(y1, y2);
+      continue;
+    }
+    const lo = Math.min(x1, x2);
+    const hi = Math.max(x1, x2);
+    if (x < lo - 1e-9 || x > hi + 1e-9) continue;
+    ys.push(y1 + ((x - x1) * (y2 - y1)) / (x2 - x1));
+  }
+  return ys;
+}
+
+/**
+ * The y of the outline's upper (highest) or lower (lowest) side at x, interpolated along the
+ * polygon's edges. Outside the outline's span x is clamped to its nearest end.
+ */
+export function surfaceY(outline: readonly Point[], x: number, side: Side): number {
+  if (!outline.length) return 0;
+  const b = outlineBounds(outline);
+  const cx = Math.min(b.maxX, Math.max(b.minX, x));
+  const ys = crossings(outline, cx);
+  if (!ys.length) return side === 'upper' ? b.maxY : b.minY;
+  return side === 'upper' ? Math.max(...ys) : Math.min(...ys);
+}
+
+/** Flat lines (panels) have no surface to follow: spread them evenly across the part's height. */
+export function flatLineY(outline: readonly Point[], lines: readonly Pick<FastenerLine, 'code' | 'surface'>[], code: string): number {
+  const b = outlineBounds(outline);
+  const flats = lines.filter((l) => l.surface === 'flat');
+  const i = Math.max(0, flats.findIndex((l) => l.code === code));
+  return b.minY + ((i + 1) / (flats.length + 1)) * (b.maxY - b.minY);
+}
+
+export type PlacedHole = { holeId: string; line: string; seq: number; stationIn: number; status: HoleStatus; x: number; y: number };
+
+/** A hole's place: x = the line's start + the hole's station; y on its line's surface at that x. */
+export function placeHole(outline: readonly Point[], lines: readonly FastenerLine[], hole: Hole): PlacedHole {
+  const line = lines.find((l) => l.code === hole.line);
+  const x = (line?.startIn ?? 0) + hole.stationIn;
+  const y = !line ? surfaceY(outline, x, 'upper')
+    : line.surface === 'flat' ? flatLineY(outline, lines, line.code)
+      : surfaceY(outline, x, line.surface);
+  return { ...hole, x, y };
+}
+
+export function placeHoles(outline: readonly Point[], lines: readonly FastenerLine[], holes: readonly Hole[]): PlacedHole[] {
+  return holes.map((h) => placeHole(outline, lines, h));
+}
+
+/** Points that trace a fastener line along its surface, for drawing it as a polyline. */
+export function linePath(outline: readonly Point[], lines: readonly FastenerLine[], line: FastenerLine, samples = 48): Point[] {
+  const x0 = line.startIn;
+  const x1 = line.startIn + line.lengthIn;
+  if (line.surface === 'flat') {
+    const y = flatLineY(outline, lines, line.code);
+    return [[x0, y], [x1, y]];
+  }
+  const pts: Point[] = [];
+  for (let i = 0; i <= samples; i++) {
+    const x = x0 + ((x1 - x0) * i) / samples;
+    pts.push([x, surfaceY(outline, x, line.surface)]);
+  }
+  return pts;
+}
+
+/** The smallest pitch on any line, to size hole marks so neighbours do not overlap. */
+export function smallestPitch(lines: readonly FastenerLine[]): number {
+  let p = Infinity;
+  for (const l of lines) for (const z of l.zones) p = Math.min(p, z.pitchIn);
+  return Number.isFinite(p) ? p : 1;
+}
+
+/** Maps part inches to drawing pixels (y flipped so up is up). */
+export function makeProjection(b: Bounds, scale: number, pad: number) {
+  return {
+    x: (x: number) => pad + (x - b.minX) * scale,
+    y: (y: number) => pad + (b.maxY - y) * scale,
+    width: (b.maxX - b.minX) * scale + 2 * pad,
+    height: (b.maxY - b.minY) * scale + 2 * pad,
+  };
+}

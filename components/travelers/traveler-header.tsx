@@ -1,0 +1,61 @@
+import { StyleSheet, View } from 'react-native';
+import { partKindLabels, type TravelerDetail } from '@/db/contracts';
+import { colors, hairline, space } from '@/constants/theme';
+import { Caution } from '@/components/ui/caution';
+import { Notice } from '@/components/ui/states';
+import { Label, Mono, Txt } from '@/components/ui/text';
+import { useUnits } from '@/hooks/use-units';
+
+function Cell({ label, children, testID }: { label: string; children: React.ReactNode; testID?: string }) {
+  return (
+    <View style={styles.cell} testID={testID}>
+      <Label>{label}</Label>
+      {children}
+    </View>
+  );
+}
+
+/** The title block of the traveler: what the part is and the numbers the builder works to. */
+export function TravelerHeader({ t }: { t: TravelerDetail }) {
+  const u = useUnits();
+  return (
+    <View style={{ gap: space.md }} testID="traveler-header">
+      <View style={styles.grid}>
+        <Cell label="Part"><Mono bold testID="part-number">{t.partNumber}</Mono><Txt variant="small">{t.partName}</Txt></Cell>
+        <Cell label="Revision"><Mono bold variant="title" testID="revision-letter">{t.letter}</Mono></Cell>
+        <Cell label="Serial"><Mono testID="traveler-serial">{t.serial}</Mono><Mono variant="small" tone="soft">{t.shortCode}</Mono></Cell>
+        <Cell label="Material"><Txt>{t.material}</Txt><Txt variant="small" tone="soft">{partKindLabels[t.kind]}</Txt></Cell>
+        <Cell label="Gauge" testID="gauge"><Mono bold>{u.length(t.gaugeIn)}</Mono></Cell>
+        <Cell label="Rivet" testID="rivet-spec"><Mono bold>{t.rivetSpec}</Mono></Cell>
+        <Cell label="Drill" testID="drill"><Mono bold>{t.drillSize}</Mono><Mono variant="small">⌀ {u.length(t.drillDiameterIn)}</Mono></Cell>
+        <Cell label="Edge distance" testID="edge-distance"><Mono bold>{u.length(t.edgeDistanceIn)}</Mono></Cell>
+        <Cell label="Chord"><Mono>{u.length(t.chordIn)}</Mono></Cell>
+      </View>
+      <Txt variant="small" tone="soft" testID="approved-by">
+        {t.approvedByName ? `Revision ${t.letter} approved by ${t.approvedByName}.` : `Revision ${t.letter}: approver not recorded.`}
+        {' '}Build {t.kitSerial}.
+      </Txt>
+      {t.newerRevision ? (
+        <Notice tone="caution" testID="newer-revision">
+          <Txt bold>Revision {t.newerRevision} of this part is out.</Txt>
+          <Txt>This traveler follows revision {t.letter}. Ask the supplier before you go on with this part.</Txt>
+        </Notice>
+      ) : null}
+      <Caution />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  grid: { flexDirection: 'row', flexWrap: 'wrap', borderTopWidth: hairline, borderLeftWidth: hairline, borderColor: colors.ink },
+  cell: {
+    flexGrow: 1,
+    flexBasis: 110,
+    padding: space.sm,
+    gap: 2,
+    borderRightWidth: hairline,
+    borderBottomWidth: hairline,
+    borderColor: colors.ink,
+    backgroundColor: colors.paperRaised,
+  },
+});

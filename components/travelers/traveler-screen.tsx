@@ -1,0 +1,234 @@
+import { useRouter } from 'expo-router';
+import { useCallback, useMemo, useState } from 'react';
+import { View } from 'react-native';
+import { doneStatuses, type Hole, type HoleStatus, type TickHolesInput, type TravelerDetail } from '@/db/contracts';
+import { space } from '@/constants/theme';
+import { FindingRow } from '@/components/findings/finding-row';
+import { Button } from '@/components/ui/button';
+import { ProgressBar } from '@/components/ui/progress-bar';
+import { Screen } from '@/components/ui/screen';
+import { Section, Sheet } from '@/components/ui/sheet';
+import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
+import { HoleMark, holeStatusHelp, holeStatusLabels, HoleStatusLegend } from '@/components/ui/status-mark';
+import { Mono, Txt } from '@/components/ui/text';
+import { TwoPane } from '@/components/ui/two-pane';
+import { errorMessage } from '@/hooks/api-client';
+import { useTravelerQuery, useTravelerSignOffMutation, useTravelerStepMutation, useTravelerTickMutation } from '@/hooks/queries/travelers';
+import { useFlash } from '@/hooks/use-flash';
+import { useRole } from '@/hooks/use-session';
+import { useUnits } from '@/hooks/use-units';
+import { HolesPanel } from './holes-panel';
+import { PartDrawing } from './part-drawing';
+import { pickRunEnd, planRun, runHoles, toggleHole, type RunPick } from './run-selection';
+import { StepsList } from './steps-list';
+import { TravelerHeader } from './traveler-header';
+import { ZonesTable } from './zones-table';
+
+export function TravelerScreen({ travelerId }: { travelerId: string }) {
+  const q = useTravelerQuery(travelerId);
+  if (q.isPending) {
+    return <Screen title="Traveler" backTo="/travelers"><LoadingState what="Loading the traveler" /></Screen>;
+  }
+  if (q.isError) {
+    return <Screen title="Traveler" backTo="/travelers"><ErrorState error={q.error} onRetry={() => void q.refetch()} /></Screen>;
+  }
+  return <TravelerBody t={q.data} />;
+}
+
+function TravelerBody({ t }: { t: TravelerDetail }) {
+  const [sentFindingId, clearSent] = useFlash(`finding-sent:${t.id}`);
+  const router = useRouter();
+  const role = useRole();
+  const units = useUnits();
+  const tick = useTravelerTickMutation(t.id);
+  const step = useTravelerStepMutation(t.id);
+  const signOff = useTravelerSignOffMutation(t.id);
+
+  const isBuilder = role === 'builder';
+  const canTick = isBuilder && !t.signedOff;
+  const [mode, setMode] = useState<'tap' | 'run'>('tap');
+  const [pick, setPick] = useState<RunPick>(null);
+  const [focusId, setFocusId] = useState<string | null>(null);
+  const [message, setMessage] = useState<{ tone: 'error' | 'info'; text: string } | null>(null);
+
+  const run = useMemo(() => (mode === 'run' ? runHoles(t.holes, pick) : []), [mode, pick, t.holes]);
+  const plan = useMemo(() => (pick?.lastId ? planRun(run) : null), [pick, run]);
+  const runIds = useMemo(() => new Set(run.map((h) => h.holeId)), [run]);
+  const done = t.holes.filter((h) => doneStatuses.includes(h.status)).length;
+  const counts = useMemo(() => {
+    const c: Partial<Record<HoleStatus, number>> = {};
+    for (const h of t.holes) c[h.status] = (c[h.status] ?? 0) + 1;
+    return c;
+  }, [t.holes]);
+  const focus = focusId ? t.holes.find((h) => h.holeId === focusId) ?? null : null;
+  const openFindings = t.findings.filter((f) => f.status !== 'closed' && f.status !== 'verified');
+
+  const send = useCallback((action: TickHolesInput) => {
+    setMessage(null);
+    tick.mutate(action, {
+      onError: (e) => setMessage({ tone: 'error', text: `Not saved: ${errorMessage(e)} The tick was taken back.` }),
+    });
+  }, [tick]);
+
+  const onHolePress = useCallback((h: Hole) => {
+    if (mode === 'run') {
+      setPick((p) => pickRunEnd(p, h));
+      return;
+    }
+    const r = toggleHole(h);
+    if (r.action) send(r.action);
+    else setMessage({ tone: 'info', text: r.reason ?? '' });
+  }, [mode, send]);
+
+  const onDrawingPress = useCallback((h: Hole) => {
+    if (mode === 'run') setPick((p) => pickRunEnd(p, h));
+    else setFocusId((f) => (f === h.holeId ? null : h.holeId));
+  }, [mode]);
+
+  const flagHref = (holes?: string[]) =>
+    `/travelers/${t.id}/flag${holes?.length ? `?holes=${encodeURIComponent(holes.join(','))}` : ''}` as const;
+
+  const left = (
+    <>
+      <TravelerHeader t={t} />
+      {t.signedOff ? (
+        <Notice tone="ok" testID="signed-off">
+          Signed off{t.signedOffByName ? ` by ${t.signedOffByName}` : ''}{t.signedOffAt ? ` on ${new Date(t.signedOffAt).toLocaleString()}` : ''}.
+        </Notice>
+      ) : null}
+      <Section title="Drawing" aside={<Txt variant="small" tone="faint">Leading edge at left · stations in {units.label('length')}</Txt>}>
+        <PartDrawing detail={t} runIds={runIds} focusId={focusId} onHolePress={onDrawingPress} />
+        <HoleStatusLegend counts={counts} />
+        {focus ? (
+          <Sheet testID="hole-focus">
+            <View style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm }}>
+              <HoleMark status={focus.status} size={24} />
+              <Mono bold variant="heading">{focus.holeId}</Mono>
+              <Txt>{holeStatusLabels[focus.status]}: {holeStatusHelp[focus.status]}</Txt>
+            </View>
+            <Txt variant="small" tone="soft">
+              Line {focus.line} · station <Mono variant="small">{units.length(focus.stationIn)}</Mono> from the line’s start
+            </Txt>
+            <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
+              {canTick && (focus.status === 'pending' || focus.status === 'installed') ? (
+                <Button
+                  label={focus.status === 'pending' ? 'Tick in' : 'Take tick off'}
+                  onPress={() => { const r = toggleHole(focus); if (r.action) send(r.action); }}
+                  testID="focus-tick"
+                />
+              ) : null}
+              {isBuilder && !t.signedOff ? (
+                <Button label="Flag this hole" variant="secondary" onPress={() => router.push(flagHref([focus.holeId]))} testID="flag-this-hole" />
+              ) : null}
+              <Button label="Close" variant="quiet" onPress={() => setFocusId(null)} testID="focus-close" />
+            </View>
+          </Sheet>
+        ) : null}
+      </Section>
+      <Section title="Pitch schedule">
+        <ZonesTable lines={t.lines} holes={t.holes} />
+      </Section>
+    </>
+  );
+
+  const right = (
+    <>
+      {sentFindingId ? (
+        <Notice tone="ok" testID="finding-sent">
+          <Txt>Finding sent. The inspector has been told by e-mail.</Txt>
+          <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
+            <Button label="See the finding" variant="quiet" compact onPress={() => { clearSent(); router.push(`/findings/${sentFindingId}`); }} testID="open-sent-finding" />
+            <Button label="OK" variant="quiet" compact onPress={clearSent} testID="dismiss-sent" />
+          </View>
+        </Notice>
+      ) : null}
+      <ProgressBar done={done} total={t.holes.length} />
+      {isBuilder && !t.signedOff ? (
+        <Button label="Flag a hole" variant="danger" onPress={() => router.push(flagHref(focusId ? [focusId] : undefined))} testID="flag-hole" />
+      ) : null}
+      <Section title="Holes">
+        <HolesPanel
+          lines={t.lines}
+          holes={t.holes}
+          canTick={canTick}
+          mode={mode}
+          pick={pick}
+          run={run}
+          plan={plan}
+          focusId={focusId}
+          onHolePress={onHolePress}
+          onStartRun={() => { setMode('run'); setPick(null); setMessage(null); }}
+          onCancelRun={() => { setMode('tap'); setPick(null); }}
+          onTickRun={() => {
+            if (plan?.action) send(plan.action);
+            setMode('tap');
+            setPick(null);
+          }}
+          message={message}
+        />
+      </Section>
+      <Section title="Shop steps">
+        <StepsList
+          steps={t.steps}
+          canToggle={isBuilder && !t.signedOff}
+          onToggle={(s) => step.mutate({ stepId: s.id, done: !s.doneAt }, {
+            onError: (e) => setMessage({ tone: 'error', text: `Step not saved: ${errorMessage(e)}` }),
+          })}
+        />
+      </Section>
+      <Section title="Findings on this part">
+        {t.findings.length ? (
+          <View testID="traveler-findings">
+            {t.findings.map((f) => (
+              <FindingRow key={f.id} f={f} showPart={false} onPress={() => router.push(`/findings/${f.id}`)} />
+            ))}
+          </View>
+        ) : (
+          <EmptyState title="No findings." body={isBuilder ? 'If a hole looks wrong, flag it with a photo.' : undefined} />
+        )}
+      </Section>
+      {role === 'inspector' && !t.signedOff ? (
+        <Section title="Sign-off">
+          <SignOff
+            ready={done === t.holes.length && openFindings.length === 0}
+            remaining={t.holes.length - done}
+            open={openFindings.length}
+            busy={signOff.isPending}
+            error={signOff.error}
+            onSignOff={() => signOff.mutate()}
+          />
+        </Section>
+      ) : null}
+    </>
+  );
+
+  return (
+    <Screen
+      title={`${t.partNumber} · ${t.partName}`}
+      subtitle={`Revision ${t.letter} · serial ${t.serial} · build ${t.kitSerial}`}
+      backTo="/travelers"
+      full
+      testID="traveler-screen"
+    >
+      <TwoPane left={left} right={right} />
+    </Screen>
+  );
+}
+
+function SignOff({ ready, remaining, open, busy, error, onSignOff }: {
+  ready: boolean; remaining: number; open: number; busy: boolean; error: unknown; onSignOff: () => void;
+}) {
+  return (
+    <View style={{ gap: space.sm }}>
+      {!ready ? (
+        <Txt tone="soft">
+          Not ready: {remaining > 0 ? `${remaining} hole${remaining === 1 ? '' : 's'} not done` : ''}
+          {remaining > 0 && open > 0 ? ' and ' : ''}
+          {open > 0 ? `${open} finding${open === 1 ? '' : 's'} still open` : ''}.
+        </Txt>
+      ) : <Txt>Every hole is done and every finding is closed.</Txt>}
+      {error ? <Notice tone="error" testID="sign-off-error">{errorMessage(error)}</Notice> : null}
+      <Button label="Sign off this part" busyLabel="Signing off" busy={busy} disabled={!ready} onPress={onSignOff} testID="sign-off" />
+    </View>
+  );
+}

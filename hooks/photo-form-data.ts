@@ -1,0 +1,38 @@
+import { Platform } from 'react-native';
+import type { FindingInput } from '@/db/contracts';
+
+/** A photo picked for a finding, as kept in the draft: a URI that can be read back when sending. */
+export type DraftPhoto = { uri: string; name: string; type: string; width?: number; height?: number };
+
+export class PhotoReadError extends Error {
+  constructor(readonly photo: DraftPhoto) {
+    super(`The photo "${photo.name}" can no longer be read (the page was reloaded or the file moved). Remove it and add it again.`);
+  }
+}
+
+/**
+ * The multipart body of POST /api/findings. On the web the picker gives blob: (or data:) URIs, which
+ * must be fetched into a Blob; React Native's FormData takes { uri, name, type } directly.
+ */
+export async function findingFormData(input: FindingInput, photos: DraftPhoto[]): Promise<FormData> {
+  const form = new FormData();
+  form.append('travelerId', input.travelerId);
+  form.append('holeIds', JSON.stringify(input.holeIds));
+  form.append('kind', input.kind);
+  form.append('note', input.note);
+  for (const p of photos) {
+    if (Platform.OS === 'web') {
+      let blob: Blob;
+      try {
+        const res = await fetch(p.uri);
+        blob = await res.blob();
+      } catch {
+        throw new PhotoReadError(p);
+      }
+      form.append('photos', blob, p.name);
+    } else {
+      form.append('photos', { uri: p.uri, name: p.name, type: p.type } as unknown as Blob);
+    }
+  }
+  return form;
+}

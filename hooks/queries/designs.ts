@@ -1,0 +1,68 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { PartDesignDetail, PartDesignInput, PartDesignSummary, Revision, RevisionInput } from '@/db/contracts';
+import { api, qs } from '../api-client';
+
+export const designKeys = {
+  all: ['designs'] as const,
+  lists: () => [...designKeys.all, 'list'] as const,
+  list: (kitModelId?: string) => [...designKeys.lists(), { kitModelId: kitModelId ?? null }] as const,
+  details: () => [...designKeys.all, 'detail'] as const,
+  detail: (id: string) => [...designKeys.details(), id] as const,
+};
+
+export const designQueries = {
+  list: (kitModelId?: string) => queryOptions({
+    queryKey: designKeys.list(kitModelId),
+    queryFn: ({ signal }) => api.get<PartDesignSummary[]>(`/api/designs${qs({ kitModelId })}`, signal),
+  }),
+  detail: (id: string) => queryOptions({
+    queryKey: designKeys.detail(id),
+    queryFn: ({ signal }) => api.get<PartDesignDetail>(`/api/designs/${encodeURIComponent(id)}`, signal),
+  }),
+};
+
+export function useDesignsQuery(kitModelId?: string) {
+  return useQuery(designQueries.list(kitModelId));
+}
+
+export function useDesignQuery(id: string) {
+  return useQuery({ ...designQueries.detail(id), enabled: !!id });
+}
+
+export function useDesignCreateMutation() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: { design: PartDesignInput; revision: RevisionInput }) => api.post<PartDesignDetail>('/api/designs', input),
+    onSuccess: (detail) => {
+      qc.setQueryData(designKeys.detail(detail.id), detail);
+      return qc.invalidateQueries({ queryKey: designKeys.lists() });
+    },
+  });
+}
+
+/** Revisions live under their design: every change refreshes the design they belong to. */
+export function useDesignRevisionCreateMutation(designId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: RevisionInput) => api.post<Revision>(`/api/designs/${encodeURIComponent(designId)}/revisions`, input),
+    onSuccess: () => qc.invalidateQueries({ queryKey: designKeys.all }),
+  });
+}
+
+export function useDesignRevisionUpdateMutation(designId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ revisionId, input }: { revisionId: string; input: RevisionInput }) =>
+      api.patch<Revision>(`/api/revisions/${encodeURIComponent(revisionId)}`, input),
+    onSuccess: () => qc.invalidateQueries({ queryKey: designKeys.detail(designId) }),
+  });
+}
+
+export function useDesignRevisionPublishMutation(designId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    // Publishing is the approval: the server names the signed-in supplier as the approver.
+    mutationFn: (revisionId: string) => api.post<Revision>(`/api/revisions/${encodeURIComponent(revisionId)}/publish`, {}),
+    onSuccess: () => qc.invalidateQueries({ queryKey: designKeys.all }),
+  });
+}

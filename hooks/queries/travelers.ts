@@ -1,0 +1,139 @@
+import { queryOptions, useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
+import { doneStatuses, type Hole, type TickHolesInput, type TravelerDetail, type TravelerSummary } from '@/db/contracts';
+import { api } from '../api-client';
+
+export type TravelerStep = TravelerDetail['steps'][number];
+
+export const travelerKeys = {
+  all: ['travelers'] as const,
+  list: () => [...travelerKeys.all, 'list'] as const,
+  details: () => [...travelerKeys.all, 'detail'] as const,
+  detail: (id: string) => [...travelerKeys.details(), id] as const,
+  lookup: (code: string) => [...travelerKeys.all, 'lookup', code] as const,
+  /** Mutation key for ticks, so a burst of taps refetches only once, after the last one. */
+  tick: (id: string) => [...travelerKeys.all, 'tick', id] as const,
+};
+
+export const travelerQueries = {
+  list: () => queryOptions({ queryKey: travelerKeys.list(), queryFn: ({ signal }) => api.get<TravelerSummary[]>('/api/travelers', signal) }),
+  detail: (id: string) => queryOptions({
+    queryKey: travelerKeys.detail(id),
+    queryFn: ({ signal }) => api.get<TravelerDetail>(`/api/travelers/${encodeURIComponent(id)}`, signal),
+  }),
+  lookup: (code: string) => queryOptions({
+    queryKey: travelerKeys.lookup(code),
+    queryFn: ({ signal }) => api.get<{ id: string }>(`/api/travelers/lookup?code=${encodeURIComponent(code)}`, signal),
+    staleTime: 60_000,
+    retry: false,
+  }),
+};
+
+export function useTravelersQuery() {
+  return useQuery(travelerQueries.list());
+}
+
+export function useTravelerQuery(id: string) {
+  return useQuery({ ...travelerQueries.detail(id), enabled: !!id });
+}
+
+export function useTravelerLookupQuery(code: string) {
+  return useQuery({ ...travelerQueries.lookup(code), enabled: code.trim().length >= 4 });
+}
+
+/** Imperative look-up for the scanner and the short-code box. */
+export function lookupTraveler(qc: QueryClient, code: string): Promise<{ id: string }> {
+  return qc.fetchQuery(travelerQueries.lookup(code.trim()));
+}
+
+function countDone(holes: Hole[]): number {
+  return holes.filter((h) => doneStatuses.includes(h.status)).length;
+}
+
+/** The change a tick makes on the client before the server answers: only pending ↔ installed move. */
+export function applyTick(detail: TravelerDetail, input: TickHolesInput): TravelerDetail {
+  const ids = new Set(input.holeIds);
+  const holes = detail.holes.map((h) =>
+    ids.has(h.holeId) && (h.status === 'pending' || h.status === 'installed') ? { ...h, status: input.status } : h);
+  return { ...detail, holes, holesDone: countDone(holes) };
+}
+
+function mergeHoles(detail: TravelerDetail, changed: Hole[]): TravelerDetail {
+  const byId = new Map(changed.map((h) => [h.holeId, h]));
+  const holes = detail.holes.map((h) => byId.get(h.holeId) ?? h);
+  return { ...detail, holes, holesDone: countDone(holes) };
+}
+
+/** Ticking holes: shown at once (optimistic), rolled back with a message if the server refuses. */
+export function useTravelerTickMutation(travelerId: string) {
+  const qc = useQueryClient();
+  const key = travelerKeys.detail(travelerId);
+  return useMutation({
+    mutationKey: travelerKeys.tick(travelerId),
+    mutationFn: (input: TickHolesInput) =>
+      api.post<{ holes: Hole[] }>(`/api/travelers/${encodeURIComponent(travelerId)}/holes`, input),
+    onMutate: async (input) => {
+      await qc.cancelQueries({ queryKey: key });
+      const previous = qc.getQueryData<TravelerDetail>(key);
+      if (previous) qc.setQueryData<TravelerDetail>(key, applyTick(previous, input));
+      return { previous };
+    },
+    onError: (_e, input, ctx) => {
+      // Undo only this tick, keeping any other tick made meanwhile.
+      const now = qc.getQueryData<TravelerDetail>(key);
+      const before = ctx?.previous;
+      if (!now || !before) return;
+      const prior = new Map(before.holes.map((h) => [h.holeId, h]));
+      qc.setQueryData<TravelerDetail>(key, mergeHoles(now, input.holeIds.map((id) => prior.get(id)).filter((h): h is Hole => !!h)));
+    },
+    onSuccess: (res) => {
+      const now = qc.getQueryData<TravelerDetail>(key);
+      if (now && res?.holes) qc.setQueryData<TravelerDetail>(key, mergeHoles(now, res.holes));
+    },
+    onSettled: () => {
+      if (qc.isMutating({ mutationKey: travelerKeys.tick(travelerId) }) > 1) return undefined;
+      return Promise.all([
+        qc.invalidateQueries({ queryKey: key }),
+        qc.invalidateQueries({ queryKey: travelerKeys.list() }),
+        qc.invalidateQueries({ queryKey: ['builds'] }),
+      ]);
+    },
+  });
+}
+
+export function useTravelerStepMutation(travelerId: string) {
+  const qc = useQueryClient();
+  const key = travelerKeys.detail(travelerId);
+  return useMutation({
+    mutationFn: ({ stepId, done }: { stepId: string; done: boolean }) =>
+      api.post<TravelerStep>(`/api/travelers/${encodeURIComponent(travelerId)}/steps/${encodeURIComponent(stepId)}`, { done }),
+    onMutate: async ({ stepId, done }) => {
+      await qc.cancelQueries({ queryKey: key });
+      const previous = qc.getQueryData<TravelerDetail>(key);
+      if (previous) {
+        qc.setQueryData<TravelerDetail>(key, {
+          ...previous,
+          steps: previous.steps.map((s) => (s.id === stepId ? { ...s, doneAt: done ? new Date().toISOString() : null } : s)),
+        });
+      }
+      return { previous };
+    },
+    onError: (_e, _v, ctx) => {
+      if (ctx?.previous) qc.setQueryData(key, ctx.previous);
+    },
+    onSettled: () => qc.invalidateQueries({ queryKey: key }),
+  });
+}
+
+export function useTravelerSignOffMutation(travelerId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: () => api.post<TravelerDetail>(`/api/travelers/${encodeURIComponent(travelerId)}/sign-off`),
+    onSuccess: (detail) => {
+      qc.setQueryData(travelerKeys.detail(travelerId), detail);
+      return Promise.all([
+        qc.invalidateQueries({ queryKey: travelerKeys.list() }),
+        qc.invalidateQueries({ queryKey: ['builds'] }),
+      ]);
+    },
+  });
+}

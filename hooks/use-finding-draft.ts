@@ -1,0 +1,67 @@
+import { useCallback, useEffect, useRef, useState } from 'react';
+import type { FindingKind } from '@/db/contracts';
+import type { DraftPhoto } from './photo-form-data';
+import { readJson, removeKey, storageKeys, writeJson } from './storage';
+
+export type FindingDraft = {
+  values: { holeIds: string[]; kind?: FindingKind; note: string };
+  photos: DraftPhoto[];
+  savedAt: string;
+};
+
+function isEmpty(d: Omit<FindingDraft, 'savedAt'>): boolean {
+  return !d.values.holeIds.length && !d.values.kind && !d.values.note.trim() && !d.photos.length;
+}
+
+/**
+ * Keeps a finding that is not sent yet on the device (fields, and photos as URIs), so a dropped
+ * connection or a closed app does not lose it. Cleared once the server has it.
+ */
+export function useFindingDraft(travelerId: string) {
+  const key = storageKeys.findingDraft(travelerId);
+  const [loaded, setLoaded] = useState(false);
+  const [restored, setRestored] = useState<FindingDraft | null>(null);
+  const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
+  const pending = useRef<Omit<FindingDraft, 'savedAt'> | null>(null);
+
+  useEffect(() => {
+    let alive = true;
+    readJson<FindingDraft>(key).then((d) => {
+      if (!alive) return;
+      setRestored(d && !isEmpty(d) ? d : null);
+      setLoaded(true);
+    });
+    return () => { alive = false; };
+  }, [key]);
+
+  const flush = useCallback(async () => {
+    if (timer.current) clearTimeout(timer.current);
+    timer.current = null;
+    const d = pending.current;
+    pending.current = null;
+    if (!d) return;
+    if (isEmpty(d)) await removeKey(key);
+    else await writeJson(key, { ...d, savedAt: new Date().toISOString() });
+  }, [key]);
+
+  /** Saves shortly after the last change; nothing is written before the old draft has been read. */
+  const save = useCallback((d: Omit<FindingDraft, 'savedAt'>) => {
+    if (!loaded) return;
+    pending.current = d;
+    if (timer.current) clearTimeout(timer.current);
+    timer.current = setTimeout(() => void flush(), 250);
+  }, [loaded, flush]);
+
+  const clear = useCallback(async () => {
+    if (timer.current) clearTimeout(timer.current);
+    timer.current = null;
+    pending.current = null;
+    setRestored(null);
+    await removeKey(key);
+  }, [key]);
+
+  // Write what is pending when the screen goes away.
+  useEffect(() => () => { void flush(); }, [flush]);
+
+  return { loaded, restored, save, clear, flush };
+}

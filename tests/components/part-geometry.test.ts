@@ -1,0 +1,64 @@
+import type { FastenerLine, Hole } from '@/db/contracts';
+import { crossings, flatLineY, linePath, outlineBounds, placeHole, placeHoles, surfaceY, type Point } from '@/components/travelers/part-geometry';
+
+// A simple lens-shaped rib: a peak of 3 in at 10 in aft, chord 40 in, flat bottom at -1.
+const rib: Point[] = [[0, 0], [10, 3], [40, 0], [40, -1], [0, -1]];
+
+const zones = [{ fromIn: 0, toIn: 20, pitchIn: 1 }];
+const upper: FastenerLine = { code: 'U', name: 'Upper flange', surface: 'upper', startIn: 5, lengthIn: 20, zones };
+const lower: FastenerLine = { code: 'L', name: 'Lower flange', surface: 'lower', startIn: 5, lengthIn: 20, zones };
+
+describe('reading the outline', () => {
+  it('finds the upper surface by interpolating along the top edges', () => {
+    expect(surfaceY(rib, 5, 'upper')).toBeCloseTo(1.5);
+    expect(surfaceY(rib, 10, 'upper')).toBeCloseTo(3);
+    expect(surfaceY(rib, 25, 'upper')).toBeCloseTo(1.5);
+  });
+
+  it('finds the lower surface on the bottom edge', () => {
+    expect(surfaceY(rib, 25, 'lower')).toBeCloseTo(-1);
+  });
+
+  it('clamps a station beyond the trailing edge to the end of the outline', () => {
+    expect(surfaceY(rib, 55, 'upper')).toBeCloseTo(0);
+  });
+
+  it('counts a vertical edge once at each of its ends', () => {
+    expect(crossings(rib, 40).sort()).toEqual([-1, -1, 0, 0].sort());
+  });
+
+  it('measures the outline', () => {
+    expect(outlineBounds(rib)).toEqual({ minX: 0, maxX: 40, minY: -1, maxY: 3 });
+  });
+});
+
+describe('placing holes', () => {
+  const h = (line: string, stationIn: number): Hole => ({ holeId: `${line}-x`, line, seq: 1, stationIn, status: 'pending' });
+
+  it('puts a hole at the line start plus its station, on the upper surface', () => {
+    const p = placeHole(rib, [upper, lower], h('U', 5));
+    expect(p.x).toBeCloseTo(10);
+    expect(p.y).toBeCloseTo(3);
+  });
+
+  it('puts a lower-line hole on the lower surface', () => {
+    const p = placeHole(rib, [upper, lower], h('L', 15));
+    expect(p.x).toBeCloseTo(20);
+    expect(p.y).toBeCloseTo(-1);
+  });
+
+  it('spreads flat lines evenly across the height of the part', () => {
+    const panel: Point[] = [[0, 0], [30, 0], [30, 12], [0, 12]];
+    const a: FastenerLine = { ...upper, code: 'A', surface: 'flat' };
+    const b: FastenerLine = { ...upper, code: 'B', surface: 'flat' };
+    expect(flatLineY(panel, [a, b], 'A')).toBeCloseTo(4);
+    expect(flatLineY(panel, [a, b], 'B')).toBeCloseTo(8);
+    expect(placeHoles(panel, [a, b], [h('B', 1)])[0].y).toBeCloseTo(8);
+  });
+
+  it('traces a surface line from its start to its end', () => {
+    const path = linePath(rib, [upper], upper, 4);
+    expect(path[0]).toEqual([5, expect.closeTo(1.5)]);
+    expect(path[path.length - 1][0]).toBeCloseTo(25);
+  });
+});
