@@ -1,0 +1,171 @@
+import { couponAllowables, type CouponTest } from './coupons';
+import { EngineeringInputError } from './errors';
+import { layoutRules } from './layout';
+import { findMaterial, findRivet, type RivetSpec, type SheetMaterial } from './materials';
+import { envelope, type EngineeringResult } from './result';
+import { requireInRange, requirePositive } from './validate';
+
+/**
+ * Allowable loads of one rivet in one flange: rivet single shear, sheet bearing by e/D, rivet tension and
+ * flange pull-through; limit and ultimate values kept apart because 14 CFR 23.305 asks two questions
+ * (no detrimental permanent deformation at limit, no failure at ultimate).
+ */
+
+export interface JointInput {
+  material: string;
+  gaugeIn: number;
+  rivetSpec: string;
+  /** defaults to the layout minimum (2D, 2.5D countersunk) */
+  edgeDistanceIn?: number;
+  coupons?: CouponTest[];
+  /** pull-through fallback without coupons, fraction of the joint's shear strength (default 8 %) */
+  pullThroughFallbackFraction?: number;
+  materialData?: SheetMaterial[];
+  rivetData?: RivetSpec[];
+}
+
+export interface JointAllowables extends EngineeringResult<JointInput> {
+  material: string;
+  rivetSpec: string;
+  gaugeIn: number;
+  holeDiameterIn: number;
+  edgeDistanceIn: number;
+  eOverD: number;
+  shear: { rivetLb: number; bearingUltimateLb: number; bearingYieldLb: number; limitLb: number; ultimateLb: number; governing: 'rivet shear' | 'sheet bearing' };
+  tension: {
+    rivetLb: number;
+    pullThroughLimitLb: number;
+    pullThroughUltimateLb: number;
+    basis: 'coupons' | 'fallback';
+    limitLb: number;
+    ultimateLb: number;
+    governing: 'rivet tension' | 'flange pull-through';
+  };
+}
+
+export const DEFAULT_PULL_THROUGH_FRACTION = 0.08;
+/**
+ * Solid rivets carry tension only through their heads; with no published value we take 70 % of the
+ * single-shear strength for a protruding head and 50 % for a countersunk one (our conservative
+ * assumption). In a thin flange the flange lets go long before either.
+ */
+export const SOLID_RIVET_TENSION_FRACTION = { protruding: 0.7, countersunk: 0.5 };
+
+export const COMBINED_RULE = 'combined tension + shear: (Rt)² + (Rs)² ≤ 1, MS = 1/√(Rt² + Rs²) − 1';
+
+/** Single-shear strength of the rivet: tabulated, or F_su·π/4·d_hole². */
+export function rivetShearStrengthLb(spec: RivetSpec): number {
+  if (spec.shearLb !== undefined) return spec.shearLb;
+  if (spec.fsuPsi === undefined) throw new EngineeringInputError('rivetSpec', `${spec.code} has neither a shear strength nor an F_su`);
+  return (spec.fsuPsi * Math.PI * spec.holeDiameterIn * spec.holeDiameterIn) / 4;
+}
+
+export function rivetTensionStrengthLb(spec: RivetSpec): number {
+  if (spec.tensionLb !== undefined) return spec.tensionLb;
+  return rivetShearStrengthLb(spec) * (spec.countersunk ? SOLID_RIVET_TENSION_FRACTION.countersunk : SOLID_RIVET_TENSION_FRACTION.protruding);
+}
+
+/**
+ * Bearing strength (psi) at edge distance ratio e/D: linear between the e/D 1.5 and 2.0 values, no credit
+ * above 2.0, and below 1.5 (outside the published data) reduced in proportion to e/D.
+ */
+export function bearingStrengthPsi(values: { e15: number; e20: number }, eOverD: number): number {
+  if (eOverD >= 2) return values.e20;
+  if (eOverD >= 1.5) return values.e15 + ((values.e20 - values.e15) * (eOverD - 1.5)) / 0.5;
+  return (values.e15 * eOverD) / 1.5;
+}
+
+/**
+ * Rivets per inch of joint width for a joint as strong as the sheet (FAA AC 43.13-1B Tables 4-9, 4-10):
+ * F_tu·t over the lesser of rivet single shear and sheet bearing (both on the hole diameter).
+ */
+export function rivetsPerInchOfWidth(p: { sheetFtuPsi: number; sheetFbruPsi: number; thicknessIn: number; rivetFsuPsi: number; holeDiameterIn: number }): number {
+  const shear = (p.rivetFsuPsi * Math.PI * p.holeDiameterIn ** 2) / 4;
+  const bearing = p.sheetFbruPsi * p.holeDiameterIn * p.thicknessIn;
+  return (p.sheetFtuPsi * p.thicknessIn) / Math.min(shear, bearing);
+}
+
+/** MS of a rivet under tension and shear together; null when it carries nothing. */
+export function combinedMargin(tensionLb: number, shearLb: number, tensionAllowableLb: number, shearAllowableLb: number): number | null {
+  if (tensionLb <= 0 && shearLb <= 0) return null;
+  const rt = tensionLb <= 0 ? 0 : tensionAllowableLb > 0 ? tensionLb / tensionAllowableLb : Infinity;
+  const rs = shearLb <= 0 ? 0 : shearAllowableLb > 0 ? shearLb / shearAllowableLb : Infinity;
+  const r = Math.hypot(rt, rs);
+  return Number.isFinite(r) ? 1 / r - 1 : -1;
+}
+
+export function jointAllowables(input: JointInput): JointAllowables {
+  const material = findMaterial(input.material, input.materialData);
+  const rivet = findRivet(input.rivetSpec, input.rivetData);
+  const gaugeIn = requireInRange(input.gaugeIn, 'gaugeIn', 0.005, 0.5, 'the gauge (in)');
+  const layout = layoutRules(rivet);
+  const edgeDistanceIn = input.edgeDistanceIn === undefined ? layout.minEdgeIn : requirePositive(input.edgeDistanceIn, 'edgeDistanceIn', 'the edge distance');
+  const fraction = input.pullThroughFallbackFraction ?? DEFAULT_PULL_THROUGH_FRACTION;
+  requireInRange(fraction, 'pullThroughFallbackFraction', 0.001, 0.5, 'the pull-through fallback fraction');
+  const rules: string[] = [
+    'rivet single shear: F_su·π/4·d_hole² or the tabulated strength (ultimate)',
+    'sheet bearing: F_bru·d·t at ultimate, F_bry·d·t at limit, by e/D (linear between 1.5 and 2.0, no credit above 2.0)',
+    'limit: sheet bearing yield and coupon no-deformation load; ultimate: the lesser of rivet and sheet strengths',
+    COMBINED_RULE,
+  ];
+  const warnings: string[] = [];
+
+  const d = rivet.holeDiameterIn;
+  // e/D in nominal diameters, as the layout rules are written: a 2D edge distance earns the e/D 2.0 value.
+  const eOverD = edgeDistanceIn / rivet.nominalDiameterIn;
+  if (eOverD < 1.5) warnings.push(`edge distance ${edgeDistanceIn.toFixed(3)} in is below 1.5D: bearing taken in proportion to e/D, outside published data`);
+  const rivetShear = rivetShearStrengthLb(rivet);
+  const bearingUltimateLb = bearingStrengthPsi(material.fbruPsi, eOverD) * d * gaugeIn;
+  const bearingYieldLb = bearingStrengthPsi(material.fbryPsi, eOverD) * d * gaugeIn;
+  const shearUltimate = Math.min(rivetShear, bearingUltimateLb);
+
+  const rivetTension = rivetTensionStrengthLb(rivet);
+  if (rivet.tensionLb === undefined) rules.push(`solid rivet tension taken as ${rivet.countersunk ? '50' : '70'} % of its shear strength (head-limited; our assumption)`);
+  const coupons = couponAllowables(input.coupons ?? [], { material: material.key, gaugeIn, rivetSpec: rivet.code });
+  let basis: 'coupons' | 'fallback';
+  let pullThroughLimitLb: number;
+  let pullThroughUltimateLb: number;
+  if (coupons.limitLb !== null && coupons.ultimateLb !== null) {
+    basis = 'coupons';
+    pullThroughLimitLb = coupons.limitLb;
+    pullThroughUltimateLb = coupons.ultimateLb;
+    rules.push(...coupons.rules);
+    warnings.push(...coupons.warnings);
+  } else {
+    basis = 'fallback';
+    pullThroughUltimateLb = fraction * shearUltimate;
+    pullThroughLimitLb = pullThroughUltimateLb / 1.5;
+    rules.push(`pull-through without coupons: ultimate ${(fraction * 100).toFixed(0)} % of the joint shear strength (lesser of rivet shear and bearing), limit = ultimate / 1.5`);
+    warnings.push(
+      `no coupon data for ${gaugeIn} in ${material.key} with ${rivet.code}: pull-through allowable is a conservative fraction (${(fraction * 100).toFixed(0)} %) of the joint's shear strength (lesser of rivet shear and flange bearing)`,
+    );
+  }
+  if (rivet.kind === 'pulled') warnings.push(`${rivet.code}: ${rivet.source}`);
+
+  return {
+    ...envelope(input, rules, warnings),
+    material: material.key,
+    rivetSpec: rivet.code,
+    gaugeIn,
+    holeDiameterIn: d,
+    edgeDistanceIn,
+    eOverD,
+    shear: {
+      rivetLb: rivetShear,
+      bearingUltimateLb,
+      bearingYieldLb,
+      limitLb: bearingYieldLb,
+      ultimateLb: shearUltimate,
+      governing: rivetShear <= bearingUltimateLb ? 'rivet shear' : 'sheet bearing',
+    },
+    tension: {
+      rivetLb: rivetTension,
+      pullThroughLimitLb,
+      pullThroughUltimateLb,
+      basis,
+      limitLb: pullThroughLimitLb,
+      ultimateLb: Math.min(rivetTension, pullThroughUltimateLb),
+      governing: pullThroughUltimateLb <= rivetTension ? 'flange pull-through' : 'rivet tension',
+    },
+  };
+}

@@ -1,0 +1,93 @@
+import { EngineeringInputError } from './errors';
+import { envelope, type EngineeringResult } from './result';
+import { requireArray, requireOneOf, requirePositive } from './validate';
+
+/**
+ * Pull-through allowables of a rivet in a thin flange, from the supplier's coupon tests (ENGINEERING.md
+ * step 6, with 14 CFR 23.305's two criteria):
+ * - limit allowable: the highest load that left no permanent deformation;
+ * - ultimate allowable: the highest load carried without failure, slight deformation allowed.
+ * Excessive deformation is not acceptable at ultimate either: it counts like a failure. A good result
+ * above a load at which another coupon of the same set already did worse is not credited (scatter is
+ * resolved towards the weaker coupon).
+ */
+
+export const COUPON_OUTCOMES = ['no_deformation', 'slight_deformation', 'excessive_deformation', 'failure'] as const;
+export type CouponOutcome = (typeof COUPON_OUTCOMES)[number];
+
+export interface CouponTest {
+  material: string;
+  gaugeIn: number;
+  couponWidthIn?: number;
+  rivetSpec: string;
+  loadLb: number;
+  outcome: CouponOutcome;
+  note?: string;
+  photo?: string;
+}
+
+export interface CouponQuery {
+  material: string;
+  gaugeIn: number;
+  rivetSpec: string;
+}
+
+export interface CouponAllowables extends EngineeringResult<CouponQuery & { tests: CouponTest[] }> {
+  matched: CouponTest[];
+  /** null when there are no tests for this material, gauge and rivet */
+  limitLb: number | null;
+  ultimateLb: number | null;
+}
+
+/** 0.050 and 0.051, 0.063 and 0.064 in are the same stock gauge; anything closer than this is. */
+export const GAUGE_MATCH_TOLERANCE_IN = 0.0011;
+
+export const COUPON_RULES = [
+  'coupon limit allowable: highest load with no permanent deformation, below any load that deformed or broke a coupon',
+  'coupon ultimate allowable: highest load carried without failure (slight deformation allowed), below any load with excessive deformation or failure; excessive deformation counts as failure',
+];
+
+export function validateCouponTest(test: unknown, field: string): CouponTest {
+  if (test === null || typeof test !== 'object') throw new EngineeringInputError(field, 'each coupon test must be an object');
+  const t = test as CouponTest;
+  if (typeof t.material !== 'string' || !t.material.trim()) throw new EngineeringInputError(`${field}.material`, 'the material is missing');
+  if (typeof t.rivetSpec !== 'string' || !t.rivetSpec.trim()) throw new EngineeringInputError(`${field}.rivetSpec`, 'the rivet spec is missing');
+  requirePositive(t.gaugeIn, `${field}.gaugeIn`, 'the gauge');
+  requirePositive(t.loadLb, `${field}.loadLb`, 'the test load');
+  if (t.couponWidthIn !== undefined) requirePositive(t.couponWidthIn, `${field}.couponWidthIn`, 'the coupon width');
+  requireOneOf(t.outcome, `${field}.outcome`, COUPON_OUTCOMES);
+  return t;
+}
+
+export function validateCoupons(tests: unknown, field = 'coupons'): CouponTest[] {
+  const list = requireArray<unknown>(tests, field, 0);
+  return list.map((t, i) => validateCouponTest(t, `${field}[${i}]`));
+}
+
+export function matchesCoupon(test: CouponTest, q: CouponQuery): boolean {
+  return (
+    test.material.trim().toUpperCase() === q.material.trim().toUpperCase() &&
+    test.rivetSpec.trim().toUpperCase() === q.rivetSpec.trim().toUpperCase() &&
+    Math.abs(test.gaugeIn - q.gaugeIn) <= GAUGE_MATCH_TOLERANCE_IN
+  );
+}
+
+const highestBelow = (tests: CouponTest[], good: CouponOutcome[], bad: CouponOutcome[]): number => {
+  const worst = Math.min(Infinity, ...tests.filter((t) => bad.includes(t.outcome)).map((t) => t.loadLb));
+  return Math.max(0, ...tests.filter((t) => good.includes(t.outcome) && t.loadLb < worst).map((t) => t.loadLb));
+};
+
+export function couponAllowables(tests: CouponTest[], query: CouponQuery): CouponAllowables {
+  const all = validateCoupons(tests);
+  const matched = all.filter((t) => matchesCoupon(t, query));
+  const label = `${query.gaugeIn} in ${query.material} with ${query.rivetSpec}`;
+  const warnings: string[] = [];
+  if (matched.length === 0) {
+    return { ...envelope({ ...query, tests: all }, COUPON_RULES, [`no coupon tests for ${label}`]), matched, limitLb: null, ultimateLb: null };
+  }
+  const limitLb = highestBelow(matched, ['no_deformation'], ['slight_deformation', 'excessive_deformation', 'failure']);
+  const ultimateLb = highestBelow(matched, ['no_deformation', 'slight_deformation'], ['excessive_deformation', 'failure']);
+  if (limitLb === 0) warnings.push(`no coupon of ${label} came through without permanent deformation: limit allowable 0`);
+  if (ultimateLb === 0) warnings.push(`no coupon of ${label} carried its load without excessive deformation or failure: ultimate allowable 0`);
+  return { ...envelope({ ...query, tests: all }, COUPON_RULES, warnings), matched, limitLb, ultimateLb };
+}

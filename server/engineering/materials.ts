@@ -1,0 +1,170 @@
+import { EngineeringInputError } from './errors';
+
+/**
+ * Sheet materials and rivets the core knows by name. A supplier may pass its own entries (same shape)
+ * in a study's `materialData` / `rivetData`; they take precedence over these. Every entry says where its
+ * numbers come from: several are as remembered from MMPDS / MIL-HDBK-5 or are typical trade values, and
+ * must be checked against the supplier's approved data before they carry a design.
+ */
+
+export interface SheetMaterial {
+  key: string;
+  description: string;
+  ftuPsi: number;
+  ftyPsi: number;
+  fsuPsi: number;
+  /** bearing ultimate and yield strengths at edge distance e/D = 1.5 and 2.0 */
+  fbruPsi: { e15: number; e20: number };
+  fbryPsi: { e15: number; e20: number };
+  densityLbPerIn3: number;
+  source: string;
+}
+
+export interface RivetSpec {
+  code: string;
+  description: string;
+  kind: 'solid' | 'pulled';
+  /** family and dash size, for "the next size up" in a rework */
+  family: string;
+  dash: number;
+  countersunk: boolean;
+  nominalDiameterIn: number;
+  /** hole diameter the strengths are based on */
+  holeDiameterIn: number;
+  drill: { name: string; diameterIn: number };
+  /** solid rivets: shear strength of the driven rivet; single shear = F_su·π/4·d_hole² */
+  fsuPsi?: number;
+  /** tabulated ultimate single-shear strength, lb (pulled rivets) */
+  shearLb?: number;
+  /** tabulated ultimate tension strength, lb */
+  tensionLb?: number;
+  densityLbPerIn3: number;
+  source: string;
+}
+
+export const MATERIALS: SheetMaterial[] = [
+  {
+    key: '6061-T6',
+    description: '6061-T6 sheet, 0.010–0.249 in',
+    ftuPsi: 42000,
+    ftyPsi: 36000,
+    fsuPsi: 27000,
+    fbruPsi: { e15: 67000, e20: 88000 },
+    fbryPsi: { e15: 50000, e20: 58000 },
+    densityLbPerIn3: 0.098,
+    source: 'MMPDS / MIL-HDBK-5 S-basis, values from memory: verify against the supplier\'s approved data',
+  },
+  {
+    key: '2024-T3',
+    description: '2024-T3 bare sheet, 0.010–0.128 in',
+    ftuPsi: 64000,
+    ftyPsi: 47000,
+    fsuPsi: 39000,
+    fbruPsi: { e15: 104000, e20: 129000 },
+    fbryPsi: { e15: 73000, e20: 88000 },
+    densityLbPerIn3: 0.1,
+    source: 'MMPDS / MIL-HDBK-5 A-basis, values from memory: verify against the supplier\'s approved data',
+  },
+];
+
+/** Stock sheet gauges of the trade, in (common practice). */
+export const STOCK_GAUGES_IN = [0.016, 0.02, 0.025, 0.032, 0.04, 0.05, 0.063];
+
+const AD_FSU_PSI = 30000;
+const AD_SOURCE = 'MS20470/MS20426 2117-T4 (AD), driven F_su 30 ksi on the MIL-HDBK-5 Table 8.1.2 hole diameters (F_su from memory)';
+const PULLED_SOURCE =
+  'generic aluminium-body pulled (blind) rivet with a steel mandrel: typical catalogue-order strengths (common practice), not a standard\'s values: enter the supplier\'s approved data';
+
+// Nominal size, the hole the strength tables use, and the drill of common practice.
+const SIZES = [
+  { dash: 3, label: '3/32', d: 3 / 32, hole: 0.096, drill: { name: '#40', diameterIn: 0.098 } },
+  { dash: 4, label: '1/8', d: 1 / 8, hole: 0.1285, drill: { name: '#30', diameterIn: 0.1285 } },
+  { dash: 5, label: '5/32', d: 5 / 32, hole: 0.159, drill: { name: '#21', diameterIn: 0.159 } },
+  { dash: 6, label: '3/16', d: 3 / 16, hole: 0.191, drill: { name: '#11', diameterIn: 0.191 } },
+  { dash: 8, label: '1/4', d: 1 / 4, hole: 0.257, drill: { name: 'F', diameterIn: 0.257 } },
+];
+
+// Pulled rivets (lb): the dash-4 tension of about 150 lb is the figure of the trade; the other sizes
+// follow it roughly by diameter squared.
+const PULLED_STRENGTH: Record<number, { shearLb: number; tensionLb: number }> = {
+  3: { shearLb: 70, tensionLb: 90 },
+  4: { shearLb: 120, tensionLb: 150 },
+  5: { shearLb: 190, tensionLb: 230 },
+  6: { shearLb: 260, tensionLb: 320 },
+};
+
+export const RIVETS: RivetSpec[] = [
+  ...SIZES.map(
+    (s): RivetSpec => ({
+      code: `MS20470AD${s.dash}`,
+      description: `solid rivet, universal head, 2117-T4, ${s.label} in`,
+      kind: 'solid',
+      family: 'MS20470AD',
+      dash: s.dash,
+      countersunk: false,
+      nominalDiameterIn: s.d,
+      holeDiameterIn: s.hole,
+      drill: s.drill,
+      fsuPsi: AD_FSU_PSI,
+      densityLbPerIn3: 0.099,
+      source: AD_SOURCE,
+    }),
+  ),
+  ...SIZES.filter((s) => s.dash <= 6).map(
+    (s): RivetSpec => ({
+      code: `MS20426AD${s.dash}`,
+      description: `solid rivet, 100° countersunk head, 2117-T4, ${s.label} in`,
+      kind: 'solid',
+      family: 'MS20426AD',
+      dash: s.dash,
+      countersunk: true,
+      nominalDiameterIn: s.d,
+      holeDiameterIn: s.hole,
+      drill: s.drill,
+      fsuPsi: AD_FSU_PSI,
+      densityLbPerIn3: 0.099,
+      source: AD_SOURCE,
+    }),
+  ),
+  ...SIZES.filter((s) => PULLED_STRENGTH[s.dash]).flatMap((s): RivetSpec[] => {
+    const base = {
+      kind: 'pulled' as const,
+      dash: s.dash,
+      nominalDiameterIn: s.d,
+      holeDiameterIn: s.drill.diameterIn,
+      drill: s.drill,
+      shearLb: PULLED_STRENGTH[s.dash].shearLb,
+      densityLbPerIn3: 0.13, // aluminium body with the retained mandrel head, estimated
+      source: PULLED_SOURCE,
+    };
+    return [
+      { ...base, code: `PULLED-${s.dash}`, description: `pulled rivet, protruding head, ${s.label} in`, family: 'PULLED', countersunk: false, tensionLb: PULLED_STRENGTH[s.dash].tensionLb },
+      // A countersunk head holds less in tension; 80 % of the protruding-head value is our assumption.
+      { ...base, code: `PULLED-${s.dash}-CSK`, description: `pulled rivet, countersunk head, ${s.label} in`, family: 'PULLED-CSK', countersunk: true, tensionLb: Math.round(0.8 * PULLED_STRENGTH[s.dash].tensionLb) },
+    ];
+  }),
+];
+
+export function findMaterial(key: string, extra: SheetMaterial[] = [], field = 'material'): SheetMaterial {
+  const k = String(key ?? '').trim().toUpperCase();
+  const found = [...extra, ...MATERIALS].find((m) => m.key.toUpperCase() === k);
+  if (!found) {
+    throw new EngineeringInputError(field, `unknown sheet material "${key}"; known: ${[...extra, ...MATERIALS].map((m) => m.key).join(', ')}`);
+  }
+  return found;
+}
+
+export function findRivet(code: string, extra: RivetSpec[] = [], field = 'rivetSpec'): RivetSpec {
+  const k = String(code ?? '').trim().toUpperCase();
+  const found = [...extra, ...RIVETS].find((r) => r.code.toUpperCase() === k);
+  if (!found) throw new EngineeringInputError(field, `unknown rivet spec "${code}"`);
+  return found;
+}
+
+/** The same family's next larger size, or null at the top of the family. */
+export function nextRivetSize(spec: RivetSpec, extra: RivetSpec[] = []): RivetSpec | null {
+  const larger = [...extra, ...RIVETS]
+    .filter((r) => r.family === spec.family && r.nominalDiameterIn > spec.nominalDiameterIn)
+    .sort((a, b) => a.nominalDiameterIn - b.nominalDiameterIn);
+  return larger[0] ?? null;
+}

@@ -1,0 +1,318 @@
+import { combinedMargin, jointAllowables, type JointAllowables } from './allowables';
+import type { CouponTest } from './coupons';
+import { EngineeringInputError } from './errors';
+import { layoutRules, layoutRuleText } from './layout';
+import { findRivet, type RivetSpec, type SheetMaterial } from './materials';
+import { envelope, type EngineeringResult } from './result';
+import { ULTIMATE_FACTOR } from './rivet-loads';
+import { prepareStations, type PreparedLine, type StationLoad } from './station-loads';
+import { requireFinite, requireInteger, requirePositive } from './validate';
+import { groupIntoZones, placeHoles, type Zone } from './zoning';
+
+export { prepareStations, type PreparedLine, type StationLoad } from './station-loads';
+
+/**
+ * The pitch schedule of one fastener line (ENGINEERING.md step 7): the pitch each station needs, clamped
+ * to the layout rules and rounded down to a practical increment; the stations grouped into a few zones
+ * whose pitch never exceeds what any station in the zone needs; holes placed from the line's ends at the
+ * edge distance; and, per zone, the worst rivet's loads, allowables and margins.
+ */
+
+/** The supplier's layout choices for a line. */
+export interface ScheduleSettings {
+  /** largest pitch, in rivet diameters (typically 8 to 10) */
+  maxPitchDiameters: number;
+  pitchIncrementIn: number;
+  maxZones: number;
+}
+
+export interface PitchScheduleInput extends ScheduleSettings {
+  line: string;
+  /** hole id prefix, "U" gives U-01, U-02…; from the line name when absent */
+  holePrefix?: string;
+  stations: StationLoad[];
+  material: string;
+  gaugeIn: number;
+  rivetSpec: string;
+  coupons?: CouponTest[];
+  pullThroughFallbackFraction?: number;
+  materialData?: SheetMaterial[];
+  rivetData?: RivetSpec[];
+}
+
+export interface ScheduleZone {
+  fromIn: number;
+  toIn: number;
+  fromAlongIn: number;
+  toAlongIn: number;
+  pitchIn: number;
+  count: number;
+  worstStationIn: number;
+  worstHoleId: string | null;
+  appliedLimitLb: number;
+  appliedUltimateLb: number;
+  limitAllowableLb: number;
+  ultimateAllowableLb: number;
+  appliedLimitShearLb: number;
+  msLimit: number | null;
+  msUltimate: number | null;
+}
+
+export interface ScheduleHole {
+  id: string;
+  line: string;
+  stationIn: number;
+  alongIn: number;
+  xIn?: number;
+  yIn?: number;
+  zone: number;
+  tributaryIn: number;
+  appliedLimitLb: number;
+  appliedUltimateLb: number;
+  appliedLimitShearLb: number;
+  msLimit: number | null;
+  msUltimate: number | null;
+}
+
+export interface InsufficientRange {
+  fromIn: number;
+  toIn: number;
+  /** the pitch the worst station there would need, in (below the 3D minimum) */
+  neededPitchIn: number;
+}
+
+export interface AllowableSummary {
+  tensionLimitLb: number;
+  tensionUltimateLb: number;
+  tensionBasis: 'coupons' | 'fallback';
+  tensionGoverning: string;
+  shearLimitLb: number;
+  shearUltimateLb: number;
+  shearGoverning: string;
+}
+
+export interface PitchScheduleResult extends EngineeringResult<PitchScheduleInput> {
+  line: string;
+  rivetSpec: string;
+  drill: { name: string; diameterIn: number };
+  gaugeIn: number;
+  feasible: boolean;
+  reasons: string[];
+  lengthIn: number;
+  layout: { edgeDistanceIn: number; minPitchIn: number; maxPitchIn: number; pitchIncrementIn: number };
+  allowables: AllowableSummary;
+  zones: ScheduleZone[];
+  holes: ScheduleHole[];
+  insufficient: InsufficientRange[];
+}
+
+const EPS = 1e-9;
+
+export function validateScheduleSettings(s: ScheduleSettings, rivetDiameterIn: number): void {
+  const maxD = requireFinite(s.maxPitchDiameters, 'maxPitchDiameters');
+  if (maxD < 3) throw new EngineeringInputError('maxPitchDiameters', `the maximum pitch (${maxD}D) cannot be below the 3D minimum pitch`);
+  if (maxD > 60) throw new EngineeringInputError('maxPitchDiameters', `a maximum pitch of ${maxD} diameters is not a rivet line`);
+  const inc = requirePositive(s.pitchIncrementIn, 'pitchIncrementIn', 'the pitch increment');
+  const maxPitch = maxD * rivetDiameterIn;
+  if (inc > maxPitch + EPS) {
+    throw new EngineeringInputError('pitchIncrementIn', `the pitch increment (${inc} in) is larger than the maximum pitch (${maxPitch.toFixed(3)} in)`);
+  }
+  requireInteger(s.maxZones, 'maxZones', 1, 20, 'the number of zones');
+}
+
+/** Load per inch of pitch relative to the allowables: pitch × demand ≤ 1 passes. Infinity for a zero allowable. */
+function demand(tension: number, shear: number, tensionAllowable: number, shearAllowable: number): number {
+  const rt = tension > 0 ? (tensionAllowable > 0 ? tension / tensionAllowable : Infinity) : 0;
+  const rs = shear > 0 ? (shearAllowable > 0 ? shear / shearAllowable : Infinity) : 0;
+  return Math.sqrt(rt * rt + rs * rs); // not Math.hypot: this is the hot loop, and hypot is slow in V8
+}
+
+function summarise(a: JointAllowables): AllowableSummary {
+  return {
+    tensionLimitLb: a.tension.limitLb,
+    tensionUltimateLb: a.tension.ultimateLb,
+    tensionBasis: a.tension.basis,
+    tensionGoverning: a.tension.governing,
+    shearLimitLb: a.shear.limitLb,
+    shearUltimateLb: a.shear.ultimateLb,
+    shearGoverning: a.shear.governing,
+  };
+}
+
+export function holePrefixFor(line: string): string {
+  const name = line.trim().toLowerCase();
+  if (name === 'upper') return 'U';
+  if (name === 'lower') return 'L';
+  const initials = line
+    .split(/[^A-Za-z0-9]+/)
+    .filter(Boolean)
+    .map((w) => w[0].toUpperCase())
+    .join('');
+  return initials.slice(0, 3) || 'H';
+}
+
+/**
+ * Schedules one line. `prepared` lets a caller that schedules many candidates on the same line (the rib
+ * study) prepare its loads once; it must come from `prepareStations(input.stations)`.
+ */
+export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine): PitchScheduleResult {
+  const rivet = findRivet(input.rivetSpec, input.rivetData);
+  const layout = layoutRules(rivet);
+  validateScheduleSettings(input, layout.diameterIn);
+  const lineData = prepared ?? prepareStations(input.stations);
+  const allow = jointAllowables({
+    material: input.material,
+    gaugeIn: input.gaugeIn,
+    rivetSpec: rivet.code,
+    edgeDistanceIn: layout.minEdgeIn,
+    coupons: input.coupons,
+    pullThroughFallbackFraction: input.pullThroughFallbackFraction,
+    materialData: input.materialData,
+    rivetData: input.rivetData,
+  });
+  const rules = [
+    'per-rivet load = largest pull per inch over the rivet\'s share of the line × its share (half the gap to each neighbour; the one gap at a line end)',
+    'required pitch: limit load ≤ limit allowable and 1.5 × limit load ≤ ultimate allowable (14 CFR 23.303, 23.305)',
+    `${layoutRuleText(rivet.countersunk)}; pitch ≤ ${input.maxPitchDiameters}D; rounded down to ${input.pitchIncrementIn} in (the 3D minimum itself is allowed)`,
+    `at most ${input.maxZones} zones; each zone's pitch is the smallest any of its stations needs; a zone is added only if it saves a rivet`,
+    ...allow.rules,
+  ];
+  const warnings = [...allow.warnings];
+  const reasons: string[] = [];
+  const line = input.line;
+  const prefix = input.holePrefix ?? holePrefixFor(line);
+  const { stations, along, tension, shear, lengthIn } = lineData;
+
+  const { tension: ta, shear: sa } = allow;
+  const passes = (pitch: number, w: number, q: number) =>
+    pitch * demand(w, q, ta.limitLb, sa.limitLb) <= 1 + EPS && ULTIMATE_FACTOR * pitch * demand(w, q, ta.ultimateLb, sa.ultimateLb) <= 1 + EPS;
+
+  const minPitch = layout.minPitchIn;
+  const maxPitch = input.maxPitchDiameters * layout.diameterIn;
+  const inc = input.pitchIncrementIn;
+  const grid: number[] = [];
+  for (let k = Math.floor(maxPitch / inc + EPS); k * inc > minPitch + EPS; k--) grid.push(k * inc);
+  grid.push(minPitch);
+
+  const windows = grid.map((p) => lineData.windowMax(p));
+  const passesAt = (i: number, g: number) => passes(grid[g], windows[g].tension[i], windows[g].shear[i]);
+  const needs = along.map((_, i) => {
+    // Passing is monotone in the pitch (a longer pitch carries more, over a wider window): bisect the grid.
+    let lo = 0;
+    let hi = grid.length - 1;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (passesAt(i, mid)) hi = mid;
+      else lo = mid + 1;
+    }
+    if (passesAt(i, lo)) return { pitch: grid[lo], short: null as number | null };
+    const w = windows[grid.length - 1];
+    const worst = Math.max(demand(w.tension[i], w.shear[i], ta.limitLb, sa.limitLb), ULTIMATE_FACTOR * demand(w.tension[i], w.shear[i], ta.ultimateLb, sa.ultimateLb));
+    return { pitch: minPitch, short: 1 / worst };
+  });
+
+  const insufficient: InsufficientRange[] = [];
+  needs.forEach((n, i) => {
+    if (n.short === null) return;
+    const last = insufficient[insufficient.length - 1];
+    const continues = i > 0 && needs[i - 1].short !== null;
+    if (last && continues) {
+      last.toIn = stations[i].stationIn;
+      last.neededPitchIn = Math.min(last.neededPitchIn, n.short);
+    } else insufficient.push({ fromIn: stations[i].stationIn, toIn: stations[i].stationIn, neededPitchIn: n.short });
+  });
+  for (const r of insufficient) {
+    reasons.push(
+      `from station ${r.fromIn.toFixed(2)} to ${r.toIn.toFixed(2)} in the rivet would need a pitch of ${r.neededPitchIn.toFixed(3)} in, below the ${minPitch.toFixed(3)} in (3D) minimum: ${input.gaugeIn} in with ${rivet.code} is insufficient`,
+    );
+  }
+  if (ta.limitLb <= 0 || ta.ultimateLb <= 0) reasons.push(`the pull-through allowable of ${input.gaugeIn} in ${allow.material} with ${rivet.code} is zero by its coupons`);
+
+  const runs: Zone[] = [];
+  needs.forEach((n, i) => {
+    const from = i === 0 ? along[0] : (along[i - 1] + along[i]) / 2;
+    const to = i === along.length - 1 ? along[i] : (along[i] + along[i + 1]) / 2;
+    const last = runs[runs.length - 1];
+    if (last && Math.abs(last.pitch - n.pitch) < EPS) last.to = to;
+    else runs.push({ from, to, pitch: n.pitch });
+  });
+  const zones = groupIntoZones(runs, input.maxZones);
+
+  const edge = layout.minEdgeIn;
+  const start = along[0] + edge;
+  const end = along[along.length - 1] - edge;
+  const placed = placeHoles(zones, start, end, minPitch);
+  if (placed.positions.length === 0) reasons.push(`the line (${lengthIn.toFixed(3)} in) is shorter than twice the ${edge.toFixed(3)} in edge distance`);
+  if (placed.note) warnings.push(placed.note);
+
+  const zoneOf = (pos: number) => Math.max(0, zones.findIndex((z) => pos <= z.to + EPS));
+  const pos = placed.positions;
+  const holes: ScheduleHole[] = pos.map((h, k) => {
+    const before = k > 0 ? h - pos[k - 1] : undefined;
+    const after = k < pos.length - 1 ? pos[k + 1] - h : undefined;
+    const gapBefore = before ?? after ?? lengthIn;
+    const gapAfter = after ?? before ?? lengthIn;
+    const lo = pos.length === 1 ? along[0] : h - gapBefore / 2;
+    const hi = pos.length === 1 ? along[along.length - 1] : h + gapAfter / 2;
+    const tributaryIn = pos.length === 1 ? lengthIn : (gapBefore + gapAfter) / 2;
+    const t = tension.maxOver(lo, hi) * tributaryIn;
+    const v = shear.maxOver(lo, hi) * tributaryIn;
+    return {
+      id: `${prefix}-${String(k + 1).padStart(pos.length > 99 ? 3 : 2, '0')}`,
+      line,
+      stationIn: lineData.station.at(h),
+      alongIn: h,
+      ...(lineData.x && lineData.y ? { xIn: lineData.x.at(h), yIn: lineData.y.at(h) } : {}),
+      zone: zoneOf(h),
+      tributaryIn,
+      appliedLimitLb: t,
+      appliedUltimateLb: ULTIMATE_FACTOR * t,
+      appliedLimitShearLb: v,
+      msLimit: combinedMargin(t, v, ta.limitLb, sa.limitLb),
+      msUltimate: combinedMargin(ULTIMATE_FACTOR * t, ULTIMATE_FACTOR * v, ta.ultimateLb, sa.ultimateLb),
+    };
+  });
+  const lowest = (h: ScheduleHole) => Math.min(h.msLimit ?? Infinity, h.msUltimate ?? Infinity);
+  const failing = holes.filter((h) => lowest(h) < -EPS);
+  if (failing.length > 0 && insufficient.length === 0) {
+    reasons.push(`${failing.length} rivet(s) have a negative margin of safety (first ${failing[0].id})`);
+  }
+
+  const zoneReports: ScheduleZone[] = zones.map((z, i) => {
+    const inZone = holes.filter((h) => h.zone === i);
+    const worst = inZone.reduce<ScheduleHole | null>((w, h) => (w === null || lowest(h) < lowest(w) ? h : w), null);
+    return {
+      fromIn: lineData.station.at(z.from),
+      toIn: lineData.station.at(z.to),
+      fromAlongIn: z.from,
+      toAlongIn: z.to,
+      pitchIn: z.pitch,
+      count: inZone.length,
+      worstStationIn: worst ? worst.stationIn : lineData.station.at((z.from + z.to) / 2),
+      worstHoleId: worst ? worst.id : null,
+      appliedLimitLb: worst ? worst.appliedLimitLb : 0,
+      appliedUltimateLb: worst ? worst.appliedUltimateLb : 0,
+      limitAllowableLb: ta.limitLb,
+      ultimateAllowableLb: ta.ultimateLb,
+      appliedLimitShearLb: worst ? worst.appliedLimitShearLb : 0,
+      msLimit: worst ? worst.msLimit : null,
+      msUltimate: worst ? worst.msUltimate : null,
+    };
+  });
+
+  return {
+    ...envelope(input, rules, warnings),
+    line,
+    rivetSpec: rivet.code,
+    drill: rivet.drill,
+    gaugeIn: input.gaugeIn,
+    feasible: reasons.length === 0,
+    reasons,
+    lengthIn,
+    layout: { edgeDistanceIn: edge, minPitchIn: minPitch, maxPitchIn: maxPitch, pitchIncrementIn: inc },
+    allowables: summarise(allow),
+    zones: zoneReports,
+    holes,
+    insufficient,
+  };
+}

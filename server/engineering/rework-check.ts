@@ -1,0 +1,148 @@
+import { combinedMargin, jointAllowables } from './allowables';
+import type { CouponTest } from './coupons';
+import { EngineeringInputError } from './errors';
+import { layoutRules, layoutRuleText } from './layout';
+import { findRivet, nextRivetSize, type RivetSpec, type SheetMaterial } from './materials';
+import { envelope, marginOfSafety, type EngineeringResult } from './result';
+import { ULTIMATE_FACTOR } from './rivet-loads';
+import { requireFinite, requireNonNegative, requirePositive } from './validate';
+
+/**
+ * The inspector's question (ENGINEERING.md step 9): can this hole be drilled out for the next rivet size?
+ * New drill; edge distance ≥ 2D (2.5D countersunk) and pitch to both neighbours ≥ 3D of the new
+ * diameter; the new shear, bearing and tension margins; pass or fail with reasons, and when it fails
+ * the alternative.
+ */
+
+export interface ReworkInput {
+  rivetSpec: string;
+  proposedSpec: string;
+  /**
+   * Positions along the fastener line, in (a scheduled hole's `alongIn`; on a straight line its
+   * station): the pitch to each neighbour is their difference. null where the hole has no neighbour.
+   */
+  holeStationIn: number;
+  neighbourStationsIn: [number | null, number | null];
+  /** from the hole's centre to the nearest sheet edge, in */
+  edgeDistanceIn: number;
+  gaugeIn: number;
+  material: string;
+  appliedLimitTensionLb?: number;
+  appliedLimitShearLb?: number;
+  coupons?: CouponTest[];
+  materialData?: SheetMaterial[];
+  rivetData?: RivetSpec[];
+}
+
+export interface ReworkMargins {
+  shearLimit: number | null;
+  shearUltimate: number | null;
+  tensionLimit: number | null;
+  tensionUltimate: number | null;
+  combinedLimit: number | null;
+  combinedUltimate: number | null;
+}
+
+export interface ReworkResult extends EngineeringResult<ReworkInput> {
+  pass: boolean;
+  reasons: string[];
+  newDrill: { name: string; diameterIn: number };
+  requiredEdgeIn: number;
+  requiredPitchIn: number;
+  pitchToNeighboursIn: [number | null, number | null];
+  margins: ReworkMargins;
+  alternative: 'repair with doubler' | 'scrap' | null;
+}
+
+/**
+ * Below these the enlarged hole all but breaks into the sheet edge or its neighbour, and a doubler has
+ * nothing sound to hold on to: scrap rather than repair (our rule, stated with the result).
+ */
+const SCRAP_EDGE_DIAMETERS = 1;
+const SCRAP_PITCH_DIAMETERS = 1.5;
+
+export function reworkCheck(input: ReworkInput): ReworkResult {
+  const current = findRivet(input.rivetSpec, input.rivetData, 'rivetSpec');
+  const proposed = findRivet(input.proposedSpec, input.rivetData, 'proposedSpec');
+  if (proposed.nominalDiameterIn <= current.nominalDiameterIn) {
+    throw new EngineeringInputError('proposedSpec', `${proposed.code} is not larger than the ${current.code} it would replace`);
+  }
+  const hole = requireFinite(input.holeStationIn, 'holeStationIn');
+  const edge = requirePositive(input.edgeDistanceIn, 'edgeDistanceIn', 'the edge distance');
+  requirePositive(input.gaugeIn, 'gaugeIn', 'the gauge');
+  if (!Array.isArray(input.neighbourStationsIn) || input.neighbourStationsIn.length !== 2) {
+    throw new EngineeringInputError('neighbourStationsIn', 'give the previous and the next hole station (null where there is none)');
+  }
+  const neighbours = input.neighbourStationsIn.map((s, i) => {
+    if (s === null) return null;
+    const v = requireFinite(s, `neighbourStationsIn[${i}]`);
+    if (v === hole) throw new EngineeringInputError(`neighbourStationsIn[${i}]`, 'a neighbour cannot sit at the hole itself');
+    return v;
+  }) as [number | null, number | null];
+  const tension = input.appliedLimitTensionLb === undefined ? undefined : requireNonNegative(input.appliedLimitTensionLb, 'appliedLimitTensionLb', 'the load');
+  const shear = input.appliedLimitShearLb === undefined ? undefined : requireNonNegative(input.appliedLimitShearLb, 'appliedLimitShearLb', 'the load');
+
+  const layout = layoutRules(proposed);
+  const d = layout.diameterIn;
+  const rules = [
+    `${layoutRuleText(proposed.countersunk)} of the new diameter (FAA AC 43.13-1B 4-57)`,
+    `alternative on failure: scrap when the new hole would leave less than ${SCRAP_EDGE_DIAMETERS}D of edge distance or less than ${SCRAP_PITCH_DIAMETERS}D to a neighbour (our rule), otherwise repair with a doubler`,
+  ];
+  const warnings: string[] = [];
+  const reasons: string[] = [];
+  const next = nextRivetSize(current, input.rivetData);
+  if (next && next.code !== proposed.code && next.nominalDiameterIn < proposed.nominalDiameterIn) {
+    warnings.push(`${proposed.code} skips a size: the next size up from ${current.code} is ${next.code}`);
+  }
+  if (proposed.family !== current.family) warnings.push(`${proposed.code} is of another rivet family than ${current.code}`);
+
+  if (edge < layout.minEdgeIn - 1e-9) {
+    reasons.push(`edge distance ${edge.toFixed(4)} in is less than ${proposed.countersunk ? '2.5' : '2'}D = ${layout.minEdgeIn.toFixed(4)} in for ${proposed.code}`);
+  }
+  const pitches = neighbours.map((n) => (n === null ? null : Math.abs(hole - n))) as [number | null, number | null];
+  pitches.forEach((p, i) => {
+    if (p !== null && p < layout.minPitchIn - 1e-9) {
+      reasons.push(`pitch to the ${i === 0 ? 'previous' : 'next'} hole ${p.toFixed(4)} in is less than 3D = ${layout.minPitchIn.toFixed(4)} in for ${proposed.code}`);
+    }
+  });
+
+  const allow = jointAllowables({
+    material: input.material,
+    gaugeIn: input.gaugeIn,
+    rivetSpec: proposed.code,
+    edgeDistanceIn: edge,
+    coupons: input.coupons,
+    materialData: input.materialData,
+    rivetData: input.rivetData,
+  });
+  rules.push(...allow.rules);
+  warnings.push(...allow.warnings);
+  const t = tension ?? 0;
+  const v = shear ?? 0;
+  const margins: ReworkMargins = {
+    shearLimit: marginOfSafety(allow.shear.limitLb, v),
+    shearUltimate: marginOfSafety(allow.shear.ultimateLb, ULTIMATE_FACTOR * v),
+    tensionLimit: marginOfSafety(allow.tension.limitLb, t),
+    tensionUltimate: marginOfSafety(allow.tension.ultimateLb, ULTIMATE_FACTOR * t),
+    combinedLimit: combinedMargin(t, v, allow.tension.limitLb, allow.shear.limitLb),
+    combinedUltimate: combinedMargin(ULTIMATE_FACTOR * t, ULTIMATE_FACTOR * v, allow.tension.ultimateLb, allow.shear.ultimateLb),
+  };
+  if (tension === undefined && shear === undefined) warnings.push('no applied loads given: strength margins are not checked, only the layout');
+  if (margins.combinedLimit !== null && margins.combinedLimit < 0) reasons.push(`margin of safety at limit load is ${margins.combinedLimit.toFixed(2)} with ${proposed.code}`);
+  if (margins.combinedUltimate !== null && margins.combinedUltimate < 0) reasons.push(`margin of safety at ultimate load is ${margins.combinedUltimate.toFixed(2)} with ${proposed.code}`);
+
+  const pass = reasons.length === 0;
+  const ruinedEdge = edge < SCRAP_EDGE_DIAMETERS * d;
+  const ruinedPitch = pitches.some((p) => p !== null && p < SCRAP_PITCH_DIAMETERS * d);
+  return {
+    ...envelope(input, rules, warnings),
+    pass,
+    reasons,
+    newDrill: proposed.drill,
+    requiredEdgeIn: layout.minEdgeIn,
+    requiredPitchIn: layout.minPitchIn,
+    pitchToNeighboursIn: pitches,
+    margins,
+    alternative: pass ? null : ruinedEdge || ruinedPitch ? 'scrap' : 'repair with doubler',
+  };
+}

@@ -1,0 +1,89 @@
+import { surfacePoints, type AirfoilGeometry, type Point, type Surface } from './airfoil';
+import { EngineeringInputError } from './errors';
+
+/**
+ * The rib drawn at its chord, and stations along a fastener line: the line follows the outline
+ * (rivets sit on the flange, so pitch is measured along the surface, not along the chord).
+ */
+
+export interface FastenerLineInput {
+  name: string;
+  surface: Surface;
+  startXc: number;
+  endXc: number;
+}
+
+export interface LineStation {
+  xc: number;
+  stationIn: number;
+  alongIn: number;
+  xIn: number;
+  yIn: number;
+}
+
+export function ribOutline(geometry: AirfoilGeometry, chordIn: number): Point[] {
+  return geometry.points.map(([x, y]) => [x * chordIn, y * chordIn]);
+}
+
+/** Area inside the outline, in², for the web weight. */
+export function outlineAreaSqIn(points: Point[]): number {
+  let a = 0;
+  for (let i = 0; i < points.length; i++) {
+    const p = points[i];
+    const q = points[(i + 1) % points.length];
+    a += p[0] * q[1] - q[0] * p[1];
+  }
+  return Math.abs(a) / 2;
+}
+
+/** Arc length at which the surface (leading edge → trailing edge) first reaches x. */
+function arcAt(surface: Point[], cumulative: number[], x: number): number {
+  for (let i = 1; i < surface.length; i++) {
+    const [x0] = surface[i - 1];
+    const [x1] = surface[i];
+    if ((x0 <= x && x <= x1) || (x1 <= x && x <= x0)) {
+      const t = x1 === x0 ? 0 : (x - x0) / (x1 - x0);
+      return cumulative[i - 1] + t * (cumulative[i] - cumulative[i - 1]);
+    }
+  }
+  return x <= surface[0][0] ? 0 : cumulative[cumulative.length - 1];
+}
+
+function pointAtArc(surface: Point[], cumulative: number[], s: number): Point {
+  let i = 1;
+  while (i < cumulative.length - 1 && cumulative[i] < s) i++;
+  const span = cumulative[i] - cumulative[i - 1];
+  const t = span > 0 ? Math.min(1, Math.max(0, (s - cumulative[i - 1]) / span)) : 0;
+  const a = surface[i - 1];
+  const b = surface[i];
+  return [a[0] + t * (b[0] - a[0]), a[1] + t * (b[1] - a[1])];
+}
+
+export function validateLine(line: FastenerLineInput, field: string): void {
+  if (line === null || typeof line !== 'object') throw new EngineeringInputError(field, 'each fastener line must be an object');
+  if (typeof line.name !== 'string' || !line.name.trim()) throw new EngineeringInputError(`${field}.name`, 'the line needs a name');
+  if (line.surface !== 'upper' && line.surface !== 'lower') throw new EngineeringInputError(`${field}.surface`, 'must be "upper" or "lower"');
+  if (!(typeof line.startXc === 'number' && line.startXc >= 0 && line.startXc < 1)) {
+    throw new EngineeringInputError(`${field}.startXc`, 'the start must be a fraction of the chord from 0 to below 1');
+  }
+  if (!(typeof line.endXc === 'number' && line.endXc > line.startXc && line.endXc <= 1)) {
+    throw new EngineeringInputError(`${field}.endXc`, 'the end must be a fraction of the chord after the start and at most 1');
+  }
+}
+
+/** Stations along a line at most `stepIn` apart (along the surface), at the rib's chord. */
+export function lineStations(geometry: AirfoilGeometry, line: FastenerLineInput, chordIn: number, stepIn: number): LineStation[] {
+  const surface = surfacePoints(geometry, line.surface).map(([x, y]): Point => [x * chordIn, y * chordIn]);
+  const cumulative = [0];
+  for (let i = 1; i < surface.length; i++) {
+    cumulative.push(cumulative[i - 1] + Math.hypot(surface[i][0] - surface[i - 1][0], surface[i][1] - surface[i - 1][1]));
+  }
+  const s0 = arcAt(surface, cumulative, line.startXc * chordIn);
+  const s1 = arcAt(surface, cumulative, line.endXc * chordIn);
+  const count = Math.max(2, Math.ceil((s1 - s0) / stepIn) + 1);
+  return Array.from({ length: count }, (_, k) => {
+    const s = s0 + ((s1 - s0) * k) / (count - 1);
+    const [x, y] = pointAtArc(surface, cumulative, s);
+    return { xc: x / chordIn, stationIn: x, alongIn: s - s0, xIn: x, yIn: y };
+  });
+}
