@@ -4,6 +4,7 @@ import type { BuildSummary, QrLabel } from '../../db/contracts';
 import type { Db } from '../../db';
 import { buildMembers, builds, designRevisions, holes, partDesigns, travelerSteps, travelers } from '../../db/schema';
 import { badRequest, conflict, forbidden, notFound } from '../http-error';
+import { checkLayout } from '../designs/layout-check';
 import { kitsService } from '../kits/kits-service';
 import { newQrToken, newShortCode } from '../travelers/codes';
 import { placeHoles } from '../travelers/hole-layout';
@@ -57,7 +58,8 @@ export const buildsService = (db: Db, publicUrl: string) => {
             buildId: build.id, revisionId: rev.id, serial: `${input.kitSerial}-${design.partNumber}`,
             qrToken: newQrToken(), shortCode: newShortCode(),
           }).returning();
-          const placed = rev.lines.flatMap((line) => placeHoles(line, rev.edgeDistanceIn));
+          const minPitch = checkLayout(rev);
+          const placed = rev.lines.flatMap((line) => placeHoles(line, rev.edgeDistanceIn, minPitch));
           if (placed.length) await tx.insert(holes).values(placed.map((h) => ({ ...h, travelerId: traveler.id })));
           if (rev.steps.length) await tx.insert(travelerSteps).values(rev.steps.map((text, i) => ({ travelerId: traveler.id, seq: i + 1, text })));
         }

@@ -2,7 +2,8 @@ import { and, eq } from 'drizzle-orm';
 import type { PartDesignDetail, PartDesignInput, PartDesignSummary, RevisionInput } from '../../db/contracts';
 import type { Db } from '../../db';
 import { designRevisions, partDesigns } from '../../db/schema';
-import { badRequest, conflict, notFound } from '../http-error';
+import { badRequest, conflict, HttpError, notFound } from '../http-error';
+import { checkLayout } from './layout-check';
 import { kitsService } from '../kits/kits-service';
 import { findDesign, findRevision, listDesigns, listRevisions } from './designs-repository';
 import { nextRevisionLetter } from './revision-letters';
@@ -51,6 +52,7 @@ export const designsService = (db: Db) => {
 
     async create(user: Express.User, input: { design: Required<PartDesignInput>; revision: RevisionBody }) {
       await kits.get(user, input.design.kitModelId);
+      withPrefix('revision', () => checkLayout(input.revision));
       const id = await db.transaction(async (tx) => {
         const clash = await tx.select({ id: partDesigns.id }).from(partDesigns)
           .where(and(eq(partDesigns.kitModelId, input.design.kitModelId), eq(partDesigns.partNumber, input.design.partNumber)));
@@ -64,6 +66,7 @@ export const designsService = (db: Db) => {
 
     async newRevision(user: Express.User, designId: string, body: RevisionBody, engineering?: EngineeringBasis) {
       await ownDesign(user, designId);
+      checkLayout(body);
       if (body.changeNote.length < 3) throw badRequest('a new revision needs a change note', { changeNote: 'say what changed and why' });
       const id = await db.transaction(async (tx) => {
         const existing = await tx.select({ letter: designRevisions.letter, status: designRevisions.status }).from(designRevisions)
@@ -81,6 +84,7 @@ export const designsService = (db: Db) => {
     async updateRevision(user: Express.User, revisionId: string, body: RevisionBody, engineering?: EngineeringBasis) {
       const revision = await ownRevision(user, revisionId);
       if (revision.status !== 'draft') throw frozen(revision.letter, revision.status);
+      checkLayout(body);
       // The status guard in the WHERE makes a publish that slips in between win: the edit then changes nothing.
       const updated = await db.update(designRevisions).set({ ...body, ...engineering })
         .where(and(eq(designRevisions.id, revisionId), eq(designRevisions.status, 'draft'))).returning({ id: designRevisions.id });
@@ -107,4 +111,16 @@ export function serialiseRevision(r: RevisionRow) {
   return {
     ...r, createdAt: r.createdAt.toISOString(), publishedAt: r.publishedAt?.toISOString() ?? null,
   };
+}
+
+/** Re-keys a check's field errors under the body part they came from ("revision.edgeDistanceIn"). */
+function withPrefix(prefix: string, check: () => unknown) {
+  try {
+    check();
+  } catch (err) {
+    if (err instanceof HttpError && err.fields) {
+      throw new HttpError(err.status, err.code, err.message, Object.fromEntries(Object.entries(err.fields).map(([k, v]) => [`${prefix}.${k}`, v])));
+    }
+    throw err;
+  }
 }

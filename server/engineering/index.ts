@@ -63,7 +63,7 @@ export {
   suctionIntensityLbPerIn,
   ULTIMATE_FACTOR,
 } from './rivet-loads';
-export { findMaterial, findRivet, nextRivetSize, MATERIALS, RIVETS, STOCK_GAUGES_IN, type RivetSpec, type SheetMaterial } from './materials';
+export { findMaterial, findRivet, findRivetByCallout, nextRivetSize, MATERIALS, RIVETS, STOCK_GAUGES_IN, type RivetSpec, type SheetMaterial } from './materials';
 export { layoutRules, rivetLengthDash, rivetLengthIn, rivetWeightLb, transversePitchIn, type LayoutRules } from './layout';
 export {
   couponAllowables,
@@ -96,6 +96,7 @@ export {
 export { tradeStudy, type RankBy, type TradeCandidate, type TradeRow, type TradeStudyResult } from './trade-study';
 export { reworkCheck, type ReworkInput, type ReworkMargins, type ReworkResult } from './rework-check';
 export { lineStations, ribOutline, type FastenerLineInput } from './rib-geometry';
+export { placeHoles, type Zone } from './zoning';
 export {
   ribStudy,
   type EnvelopePoint,

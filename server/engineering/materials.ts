@@ -161,6 +161,16 @@ export function findRivet(code: string, extra: RivetSpec[] = [], field = 'rivetS
   return found;
 }
 
+/**
+ * The catalogue rivet a drawing callout names. A solid rivet's callout may carry its length dash
+ * (MS20470AD4-4: 1/8 in, 4/16 in long), which does not change the layout rules or strengths.
+ */
+export function findRivetByCallout(callout: string, extra: RivetSpec[] = [], field = 'rivetSpec'): RivetSpec {
+  const k = String(callout ?? '').trim().toUpperCase();
+  const base = k.match(/^(MS\d{5}[A-Z]+\d+)-\d+$/)?.[1];
+  return findRivet(base ?? k, extra, field);
+}
+
 /** The same family's next larger size, or null at the top of the family. */
 export function nextRivetSize(spec: RivetSpec, extra: RivetSpec[] = []): RivetSpec | null {
   const larger = [...extra, ...RIVETS]

@@ -3,7 +3,7 @@ import type { Disposition, FindingDetail, FindingInput, FindingSummary } from '.
 import { withTransaction } from '../../db';
 import type { AppContext } from '../context';
 import { builds, couponTests, findingEvents, findingPhotos, findings, holes } from '../../db/schema';
-import { findRivet, nextRivetSize, reworkCheck } from '../engineering';
+import { findRivetByCallout, nextRivetSize, reworkCheck } from '../engineering';
 import { badRequest, conflict, forbidden, HttpError, notFound } from '../http-error';
 import { processPhoto } from '../photos/image-processing';
 import { findTravelerParts, listTravelers } from '../travelers/travelers-repository';
@@ -57,7 +57,7 @@ export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) 
     const finding = await detail(user, id);
     const parts = (await findTravelerParts(db, finding.travelerId))!;
     const { context } = finding;
-    const current = findRivet(context.rivetSpec, [], 'rivetSpec');
+    const current = findRivetByCallout(context.rivetSpec);
     const proposed = proposedSpec ?? nextRivetSize(current)?.code;
     if (!proposed) throw conflict(`${current.code} is the largest rivet of its family: repair with a doubler or scrap`);
     const supplierCoupons = await db.select().from(couponTests).where(and(

@@ -56,6 +56,21 @@ describe('bad input gets a clear error and saves nothing', () => {
     expect(res.body.error.fields['revision.lines.0.zones.1.fromIn']).toMatch(/without gaps/);
   });
 
+  it('refuses a pitch under 3D and an edge distance under 2D for a catalogue rivet', async () => {
+    // FAA AC 43.13-1B ch. 4: pitch ≥ 3D, edge distance ≥ 2D; MS20470AD4 is 1/8 in, so 0.375 and 0.25 in.
+    const kits = await request(t.app).get('/api/kits').set(auth(tok.supplier));
+    const res = await request(t.app).post('/api/designs').set(auth(tok.supplier)).send({
+      design: { kitModelId: kits.body[0].id, partNumber: 'X-2', name: 'tight', kind: 'rib' },
+      revision: {
+        material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20470AD4-4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.2, chordIn: 40,
+        lines: [{ code: 'U', name: 'Upper', surface: 'upper', startIn: 1, lengthIn: 30, zones: [{ fromIn: 0, toIn: 10, pitchIn: 0.3 }, { fromIn: 10, toIn: 30, pitchIn: 2 }] }],
+      },
+    });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields['revision.edgeDistanceIn']).toMatch(/0\.250 in/);
+    expect(res.body.error.fields['revision.lines.0.zones.0.pitchIn']).toMatch(/0\.375 in \(3D\)/);
+  });
+
   it('answers 415 to a file that is not an image, whatever it is called, and keeps nothing', async () => {
     const before = await savedCounts();
     const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
