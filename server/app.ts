@@ -1,5 +1,6 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
+import compression from 'compression';
 import express, { type Express } from 'express';
 import type { Database } from '../db';
 import { authRouter } from './auth/auth-router';
@@ -36,6 +37,8 @@ export function createApp({ config, database, mailQueue, storage, smtpFake }: Ap
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
+  // A stored study result is some hundreds of kB of JSON and the web bundle 2 MB: both shrink ~10× gzipped.
+  app.use(compression());
   app.use(ctx.passport.initialize());
 
   const api = express.Router();
