@@ -1,6 +1,6 @@
 /**
- * Every row of the reference table in shared/ENGINEERING.md, with its source beside it. Rows the table
- * marks [M] are marked "from memory" here too.
+ * The engine's published reference checks, each with its source beside it; values recalled rather
+ * than read from the source are marked "from memory".
  */
 import {
   buildAirfoil,
