@@ -5,7 +5,7 @@ module.exports = {
     {
       displayName: 'node',
       testEnvironment: 'node',
-      roots: ['<rootDir>/tests/engineering', '<rootDir>/tests/server', '<rootDir>/tests/db'],
+      roots: ['<rootDir>/tests/engineering', '<rootDir>/tests/server'],
       testMatch: ['**/*.test.ts'],
       transform: { '^.+\\.ts$': ['ts-jest', { tsconfig: { module: 'commonjs', esModuleInterop: true, strict: true, skipLibCheck: true, target: 'es2022', isolatedModules: true } }] },
       moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1' },
