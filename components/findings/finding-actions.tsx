@@ -11,7 +11,10 @@ import { applyServerErrors } from '@/components/forms/server-errors';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
-import { useFindingDispositionMutation, useFindingReviewMutation, useFindingReworkDoneMutation, useFindingVerifyMutation } from '@/hooks/queries/findings';
+import {
+  useFindingDispositionMutation, useFindingReviewMutation, useFindingReworkDoneMutation, useFindingVerifyMutation, type ReworkCheckResult,
+} from '@/hooks/queries/findings';
+import { alternativeWords } from './rework-check-panel';
 
 export const dispositionHelp: Record<Disposition, string> = {
   use_as_is: 'The hole is acceptable as it is. Closes the finding and accepts the hole.',
@@ -20,8 +23,11 @@ export const dispositionHelp: Record<Disposition, string> = {
   scrap: 'The part is not to be used. Replace it.',
 };
 
-/** The inspector's decision on a flagged hole. */
-export function DispositionForm({ f }: { f: FindingDetail }) {
+/**
+ * The inspector's decision on a flagged hole. `reworkCheck` is the latest answer of the rework check on
+ * this screen: choosing rework against a failed check warns, and does not stop them (they decide).
+ */
+export function DispositionForm({ f, reworkCheck }: { f: FindingDetail; reworkCheck?: ReworkCheckResult | null }) {
   const review = useFindingReviewMutation(f.id);
   const dispose = useFindingDispositionMutation(f.id);
   const [formError, setFormError] = useState<string | null>(null);
@@ -53,6 +59,17 @@ export function DispositionForm({ f }: { f: FindingDetail }) {
         options={dispositions.map((d) => ({ value: d, label: dispositionLabels[d] }))}
       />
       {chosen ? <Txt variant="small" tone="soft">{dispositionHelp[chosen]}</Txt> : null}
+      {chosen === 'rework' && reworkCheck && !reworkCheck.pass ? (
+        <Notice tone="caution" testID="rework-check-failed">
+          <Txt bold>The rework check failed for {reworkCheck.inputs.proposedSpec}.</Txt>
+          {reworkCheck.reasons.map((r, i) => <Txt key={i} variant="small">– {r}</Txt>)}
+          {reworkCheck.alternative ? <Txt variant="small">The check points to: {alternativeWords[reworkCheck.alternative].title.toLowerCase()}.</Txt> : null}
+          <Txt variant="small">You can still record rework if you judge it right: the decision is yours. Say why in the note.</Txt>
+        </Notice>
+      ) : null}
+      {chosen === 'rework' && !reworkCheck ? (
+        <Txt variant="small" tone="faint" testID="rework-check-none">The rework check has not been run on this screen: see “Rework check”.</Txt>
+      ) : null}
       <FormTextField
         control={control}
         name="note"

@@ -10,13 +10,14 @@ import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/st
 import { FindingStatusTag } from '@/components/ui/status-mark';
 import { Mono, Txt } from '@/components/ui/text';
 import { TwoPane } from '@/components/ui/two-pane';
-import { useFindingQuery } from '@/hooks/queries/findings';
+import { useFindingQuery, type ReworkCheckResult } from '@/hooks/queries/findings';
 import { useRole } from '@/hooks/use-session';
 import { EventHistory } from './event-history';
 import { DispositionForm, ReworkDoneForm, StartReviewButton, VerifyForm } from './finding-actions';
 import { shortDate } from './finding-row';
 import { HoleContext } from './hole-context';
 import { PhotoViewer } from './photo-viewer';
+import { ReworkCheckPanel } from './rework-check-panel';
 
 export function FindingScreen({ findingId }: { findingId: string }) {
   const q = useFindingQuery(findingId);
@@ -29,6 +30,9 @@ function FindingBody({ f }: { f: FindingDetail }) {
   const router = useRouter();
   const role = useRole();
   const [viewing, setViewing] = useState<number | null>(null);
+  // The latest rework check, so the disposition form can warn when rework is chosen against a fail.
+  const [rework, setRework] = useState<ReworkCheckResult | null>(null);
+  const open = f.status === 'flagged' || f.status === 'in_review' || f.status === 'dispositioned' || f.status === 'rework_done';
   const needsRework = f.status === 'dispositioned' && (f.disposition === 'rework' || f.disposition === 'repair');
 
   let action: React.ReactNode = null;
@@ -36,7 +40,7 @@ function FindingBody({ f }: { f: FindingDetail }) {
     action = (
       <Section title="Disposition">
         {f.status === 'flagged' ? <StartReviewButton f={f} /> : null}
-        <DispositionForm f={f} />
+        <DispositionForm f={f} reworkCheck={rework} />
       </Section>
     );
   } else if (role === 'builder' && needsRework) {
@@ -89,6 +93,11 @@ function FindingBody({ f }: { f: FindingDetail }) {
       <Section title="The hole in context">
         <HoleContext f={f} />
       </Section>
+      {role === 'inspector' && open ? (
+        <Section title="Rework check" testID="rework-check-section">
+          <ReworkCheckPanel f={f} result={rework} onResult={setRework} />
+        </Section>
+      ) : null}
     </>
   );
 

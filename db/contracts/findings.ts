@@ -57,5 +57,7 @@ export type FindingDetail = FindingSummary & {
   context: {
     line: string; stationIn: number; prevStationIn: number | null; nextStationIn: number | null;
     edgeDistanceIn: number; drillDiameterIn: number; rivetSpec: string; gaugeIn: number; material: string;
+    /** The next sizes up of the rivet's family for a rework (null: a rivet outside the catalogue). */
+    oversizeOptions: { code: string; dash: number; step: 1 | 2 }[] | null;
   };
 };

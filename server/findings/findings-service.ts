@@ -8,6 +8,7 @@ import { badRequest, conflict, forbidden, HttpError, notFound } from '../http-er
 import { processPhoto } from '../photos/image-processing';
 import { findTravelerParts, listTravelers } from '../travelers/travelers-repository';
 import { mailAudience, nextState, RULES, type Action } from './finding-transitions';
+import { oversizeOptions } from './oversize-options';
 import { listEvents, listFindingRows, type FindingFilter } from './findings-repository';
 
 type Deps = Pick<AppContext, 'db' | 'pool' | 'storage' | 'signer' | 'mailQueue'>;
@@ -45,6 +46,7 @@ export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) 
         prevStationIn: onLine[at - 1]?.stationIn ?? null, nextStationIn: onLine[at + 1]?.stationIn ?? null,
         edgeDistanceIn: parts.revision.edgeDistanceIn, drillDiameterIn: parts.revision.drillDiameterIn,
         rivetSpec: parts.revision.rivetSpec, gaugeIn: parts.revision.gaugeIn, material: parts.revision.material,
+        oversizeOptions: oversizeOptions(parts.revision.rivetSpec),
       },
     };
   }

@@ -30,7 +30,7 @@ describe('a tick shows at once', () => {
 });
 
 describe('the hole in context', () => {
-  const ctx = { line: 'U', stationIn: 3, prevStationIn: 2, nextStationIn: 4.5, edgeDistanceIn: 0.25, drillDiameterIn: 0.125, rivetSpec: 'MS20470AD4', gaugeIn: 0.032, material: '2024-T3' };
+  const ctx = { line: 'U', stationIn: 3, prevStationIn: 2, nextStationIn: 4.5, edgeDistanceIn: 0.25, drillDiameterIn: 0.125, rivetSpec: 'MS20470AD4', gaugeIn: 0.032, material: '2024-T3', oversizeOptions: null };
 
   it('gives the pitch to each neighbour and in drill diameters', () => {
     const n = holeNumbers(ctx);
