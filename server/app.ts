@@ -5,6 +5,7 @@ import express, { type Express } from 'express';
 import type { Database } from '../db';
 import { authRouter } from './auth/auth-router';
 import { createPassport } from './auth/passport';
+import { buildLogRouter } from './build-log/build-log-router';
 import { buildsRouter } from './builds/builds-router';
 import { couponsRouter } from './coupons/coupons-router';
 import type { Config } from './config';
@@ -51,6 +52,7 @@ export function createApp({ config, database, mailQueue, storage, smtpFake }: Ap
   api.use('/kits', signedIn, kitsRouter(ctx));
   api.use('/designs', signedIn, designsRouter(ctx));
   api.use('/revisions', signedIn, revisionsRouter(ctx));
+  api.use('/builds', buildLogRouter(ctx, signedIn));
   api.use('/builds', signedIn, buildsRouter(ctx));
   api.use('/coupons', signedIn, couponsRouter(ctx));
   api.use('/studies', signedIn, studiesRouter(ctx));

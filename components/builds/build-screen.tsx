@@ -28,6 +28,7 @@ export function BuildScreen({ buildId }: { buildId: string }) {
         <KeyValue label="Open findings"><Mono bold>{String(b.openFindings)}</Mono></KeyValue>
       </View>
       <ProgressBar done={b.holesDone} total={b.holesTotal} />
+      <Button label="Build log" variant="secondary" onPress={() => router.push(`/builds/${b.id}/log`)} testID="build-log" />
       {role === 'supplier' ? (
         <Button label="Print QR labels" variant="secondary" onPress={() => router.push(`/builds/${b.id}/labels`)} testID="labels" />
       ) : null}

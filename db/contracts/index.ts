@@ -7,3 +7,4 @@ export * from './travelers';
 export * from './findings';
 export * from './coupons';
 export * from './studies';
+export * from './build-log';

@@ -1,0 +1,162 @@
+import { z } from 'zod';
+import type { BuildSummary } from './builds';
+import type { Role } from './common';
+
+/**
+ * The build log: every bench event (holes ticked, steps, sign-off) and every finding event of one build,
+ * as plain sentences. The screen, the CSV and the PDF all read the same entries.
+ */
+export const buildLogKinds = [
+  'holes_installed', 'holes_pending', 'step_done', 'step_undone', 'signed_off',
+  'finding_flagged', 'finding_in_review', 'finding_dispositioned', 'finding_rework_done', 'finding_verified', 'finding_closed',
+  /** A bench event of a kind this version does not know yet: still listed, never dropped. */
+  'other',
+] as const;
+export type BuildLogKind = (typeof buildLogKinds)[number];
+
+/** The three families the screen's chips filter by. */
+export const buildLogGroups = ['bench', 'findings', 'sign_off'] as const;
+export type BuildLogGroup = (typeof buildLogGroups)[number];
+
+export const buildLogGroupLabels: Record<BuildLogGroup, string> = { bench: 'Bench', findings: 'Findings', sign_off: 'Sign-off' };
+
+export const buildLogKindLabels: Record<BuildLogKind, string> = {
+  holes_installed: 'Holes installed', holes_pending: 'Holes back to pending', step_done: 'Step done', step_undone: 'Step undone',
+  signed_off: 'Signed off', finding_flagged: 'Hole flagged', finding_in_review: 'Review started',
+  finding_dispositioned: 'Dispositioned', finding_rework_done: 'Rework done', finding_verified: 'Rework verified',
+  finding_closed: 'Finding closed', other: 'Bench event',
+};
+
+export function groupOfKind(kind: BuildLogKind): BuildLogGroup {
+  if (kind === 'signed_off') return 'sign_off';
+  return kind.startsWith('finding_') ? 'findings' : 'bench';
+}
+
+/** A group stands for its kinds; a kind stands for itself. */
+export function expandKindFilter(filter: readonly (BuildLogKind | BuildLogGroup)[]): BuildLogKind[] {
+  const out = new Set<BuildLogKind>();
+  for (const f of filter) {
+    if ((buildLogGroups as readonly string[]).includes(f)) {
+      for (const k of buildLogKinds) if (groupOfKind(k) === f) out.add(k);
+    } else out.add(f as BuildLogKind);
+  }
+  return [...out];
+}
+
+/** The caution every exported log carries (PRODUCT.md, Safety). */
+export const buildLogCaution =
+  'This log is a record kept with an aid. It is not certification and does not show that the aircraft is airworthy. ' +
+  'The supplier’s approved data, the applicable airworthiness rules and your local authority govern; ' +
+  'every margin behind a traveler comes from the inputs given.';
+
+const DATE_ONLY = /^\d{4}-\d{2}-\d{2}$/;
+const DATE_TIME = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d{1,6})?)?(Z|[+-]\d{2}:\d{2})$/;
+
+/** A real calendar day (2026-02-31 is not), or an ISO date and time that carries its offset. */
+export function isLogDate(s: string): boolean {
+  if (DATE_ONLY.test(s)) {
+    const [y, m, d] = s.split('-').map(Number);
+    const t = new Date(Date.UTC(y, m - 1, d));
+    return t.getUTCFullYear() === y && t.getUTCMonth() === m - 1 && t.getUTCDate() === d;
+  }
+  return DATE_TIME.test(s) && !Number.isNaN(Date.parse(s));
+}
+
+export function isTimeZone(tz: string): boolean {
+  try {
+    new Intl.DateTimeFormat('en-US', { timeZone: tz });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+const dateParam = (what: string) => z.string({ message: `${what} must be a single date` }).trim()
+  .refine(isLogDate, `${what} must be a date such as 2026-11-03, or a date and time with its offset such as 2026-11-03T14:00:00Z`);
+
+/** `kind=bench,finding_flagged` or `kind=bench&kind=findings`. */
+const kindList = z.preprocess(
+  (v) => (typeof v === 'string' ? v.split(',') : v),
+  z.array(z.string().trim()).transform((a) => a.filter(Boolean)).pipe(
+    z.array(z.enum([...buildLogKinds, ...buildLogGroups] as const, {
+      message: `kind is one of ${[...buildLogGroups, ...buildLogKinds].join(', ')}`,
+    })),
+  ),
+);
+
+/** Query of GET /api/builds/:id/log (and .csv, .pdf). A day given as a date is read in `tz`. */
+export const buildLogQuery = z.object({
+  kind: kindList.optional(),
+  travelerId: z.uuid({ message: 'travelerId must be the id of a part of this build' }).optional(),
+  from: dateParam('from').optional(),
+  to: dateParam('to').optional(),
+  q: z.string({ message: 'q must be a single search' }).trim().max(200, 'keep the search under 200 characters').optional(),
+  tz: z.string({ message: 'tz must be a single time zone' }).trim().refine(isTimeZone, 'tz must be a time zone such as Europe/Berlin or America/Denver').optional(),
+});
+export type BuildLogQuery = z.infer<typeof buildLogQuery>;
+export type BuildLogFilterInput = z.input<typeof buildLogQuery>;
+
+export type BuildLogPhoto = { id: string; thumbUrl: string; url: string };
+
+export type BuildLogEntry = {
+  /** `t:<traveler event id>` or `f:<finding event id>`: unique across the log. */
+  id: string;
+  at: string;
+  actorName: string;
+  actorRole: Role;
+  kind: BuildLogKind;
+  group: BuildLogGroup;
+  travelerId: string;
+  travelerSerial: string;
+  partNumber: string;
+  partName: string;
+  holeIds?: string[];
+  /** What happened, as a plain sentence without the actor (shown beside it). */
+  text: string;
+  /** The person's own words (finding note, disposition reason), when there are any. */
+  note?: string;
+  findingId?: string;
+  photos?: BuildLogPhoto[];
+};
+
+export type BuildLogPart = { travelerId: string; serial: string; partNumber: string; partName: string };
+
+export type BuildLog = {
+  build: BuildSummary;
+  parts: BuildLogPart[];
+  /** Newest first. */
+  entries: BuildLogEntry[];
+  /** First and last moment of the entries shown, null when there are none. */
+  range: { from: string | null; to: string | null };
+};
+
+/** Whether an entry matches every word of a search (part, serial, hole, person, kind, words said). */
+export function logEntryMatches(e: BuildLogEntry, text: string): boolean {
+  const words = text.trim().toLowerCase().split(/\s+/).filter(Boolean);
+  if (!words.length) return true;
+  const hay = [
+    e.partNumber, e.partName, e.travelerSerial, e.actorName, buildLogKindLabels[e.kind], e.text, e.note ?? '', ...(e.holeIds ?? []),
+  ].join(' ').toLowerCase();
+  return words.every((w) => hay.includes(w));
+}
+
+/**
+ * Hole ids as short runs: U-01, U-02, U-03, U-07 → "U-01 to U-03, U-07". Ids keep their own spelling;
+ * a run needs the same prefix and number width, one apart.
+ */
+export function describeHoleRuns(ids: readonly string[]): string {
+  const parsed = ids.map((id) => {
+    const m = /^(.*?)(\d+)$/.exec(id);
+    return m ? { id, prefix: m[1], n: Number(m[2]), width: m[2].length } : { id, prefix: id, n: NaN, width: 0 };
+  });
+  const runs: string[] = [];
+  let i = 0;
+  while (i < parsed.length) {
+    let j = i;
+    while (j + 1 < parsed.length && !Number.isNaN(parsed[j].n) && parsed[j + 1].prefix === parsed[j].prefix
+      && parsed[j + 1].width === parsed[j].width && parsed[j + 1].n === parsed[j].n + 1) j++;
+    runs.push(j - i >= 2 ? `${parsed[i].id} to ${parsed[j].id}` : parsed.slice(i, j + 1).map((p) => p.id).join(', '));
+    i = j + 1;
+  }
+  return runs.join(', ');
+}

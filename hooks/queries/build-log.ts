@@ -1,0 +1,102 @@
+import { keepPreviousData, queryOptions, useMutation, useQuery } from '@tanstack/react-query';
+import { Platform } from 'react-native';
+import type { ApiErrorBody, BuildLog, BuildLogGroup } from '@/db/contracts';
+import { api, ApiError, networkMessage, qs, url } from '../api-client';
+import { useSession } from '../use-session';
+
+/** What the server narrows: a kind family and one part. Words are searched on the device, as they are typed. */
+export type BuildLogServerFilters = { group?: BuildLogGroup | 'all'; travelerId?: string | null };
+/** What an export carries: the screen's filters, words included, and the zone to print times in. */
+export type BuildLogExportFilters = BuildLogServerFilters & { text?: string; tz?: string };
+export type BuildLogFormat = 'csv' | 'pdf';
+
+const logPath = (buildId: string, suffix = '') => `/api/builds/${encodeURIComponent(buildId)}/log${suffix}`;
+
+function logQueryString(f: BuildLogExportFilters): string {
+  return qs({
+    kind: f.group && f.group !== 'all' ? f.group : undefined,
+    travelerId: f.travelerId ?? undefined,
+    q: f.text?.trim() || undefined,
+    tz: f.tz,
+  });
+}
+
+export const buildLogKeys = {
+  all: ['builds', 'log'] as const,
+  build: (buildId: string) => [...buildLogKeys.all, buildId] as const,
+  filtered: (buildId: string, f: BuildLogServerFilters = {}) =>
+    [...buildLogKeys.build(buildId), { group: f.group ?? 'all', travelerId: f.travelerId ?? null }] as const,
+};
+
+export const buildLogQueries = {
+  filtered: (buildId: string, f: BuildLogServerFilters = {}) => queryOptions({
+    queryKey: buildLogKeys.filtered(buildId, f),
+    queryFn: ({ signal }) => api.get<BuildLog>(`${logPath(buildId)}${logQueryString({ group: f.group, travelerId: f.travelerId })}`, signal),
+  }),
+};
+
+/** The log of one build; switching a filter keeps the last answer on screen until the new one arrives. */
+export function useBuildLogQuery(buildId: string, f: BuildLogServerFilters = {}) {
+  return useQuery({ ...buildLogQueries.filtered(buildId, f), enabled: !!buildId, placeholderData: keepPreviousData });
+}
+
+/** The zone the device's clock is in, so an export prints the times the person saw. */
+export function deviceTimeZone(): string | undefined {
+  try {
+    return Intl.DateTimeFormat().resolvedOptions().timeZone || undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+function fileNameFrom(disposition: string | null, fallback: string): string {
+  const star = disposition?.match(/filename\*=UTF-8''([^;]+)/i);
+  if (star) {
+    try { return decodeURIComponent(star[1]); } catch { /* fall through to the plain name */ }
+  }
+  return disposition?.match(/filename="([^"]+)"/i)?.[1] ?? fallback;
+}
+
+/** Hands a file to the browser as a download: no new tab, and no token in any URL. */
+function saveInBrowser(blob: Blob, name: string) {
+  const href = URL.createObjectURL(blob);
+  const a = document.createElement('a');
+  a.href = href;
+  a.download = name;
+  a.rel = 'noopener';
+  document.body.appendChild(a);
+  a.click();
+  a.remove();
+  // Some browsers read the blob after click() returns.
+  setTimeout(() => URL.revokeObjectURL(href), 30_000);
+}
+
+/**
+ * Fetches the CSV or PDF with the bearer header, like every other request, and saves it. The export
+ * links are not opened by the browser directly because it would have no token to send.
+ */
+export function useBuildLogExportMutation(buildId: string) {
+  const session = useSession();
+  return useMutation({
+    retry: false,
+    mutationFn: async ({ format, filters }: { format: BuildLogFormat; filters: BuildLogExportFilters }) => {
+      if (Platform.OS !== 'web') throw new Error('Exports are saved from the web app: open Pitchcard in a browser to export the log.');
+      let res: Response;
+      try {
+        res = await fetch(url(`${logPath(buildId, `.${format}`)}${logQueryString(filters)}`), {
+          headers: { Accept: format === 'pdf' ? 'application/pdf' : 'text/csv', ...(session.token ? { Authorization: `Bearer ${session.token}` } : {}) },
+        });
+      } catch {
+        throw new ApiError(0, 'network', networkMessage);
+      }
+      if (!res.ok) {
+        if (res.status === 401) void session.signOut('Your session ran out. Please sign in again.');
+        const body = (await res.json().catch(() => null)) as ApiErrorBody | null;
+        throw new ApiError(res.status, body?.error?.code ?? String(res.status), body?.error?.message ?? `The export failed (${res.status}). Try again.`, body?.error?.fields);
+      }
+      const name = fileNameFrom(res.headers.get('Content-Disposition'), `build-log.${format}`);
+      saveInBrowser(await res.blob(), name);
+      return { name };
+    },
+  });
+}

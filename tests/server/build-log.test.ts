@@ -1,0 +1,235 @@
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import request from 'supertest';
+import { DEMO_USERS } from '@/db/seed';
+import { startTestApp, type TestApp } from '../helpers/test-app';
+
+jest.setTimeout(60000);
+
+let t: TestApp;
+let tok: Awaited<ReturnType<TestApp['tokens']>>;
+let otherBuilder: string; let otherInspector: string; let otherSupplier: string;
+let buildId: string; let innerId: string; let outerId: string; let findingId: string;
+
+const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
+type Entry = { id: string; at: string; kind: string; actorName: string; holeIds?: string[]; text: string; note?: string; findingId?: string; partNumber: string; photos?: { thumbUrl: string; url: string }[] };
+const kinds = (body: { entries: Entry[] }) => body.entries.map((e) => e.kind);
+const log = (token: string, query: Record<string, string> = {}) => request(t.app).get(`/api/builds/${buildId}/log`).query(query).set(auth(token));
+
+/** RFC 4180 reader: quoted fields may hold commas, doubled quotes and line breaks. */
+function parseCsv(text: string): string[][] {
+  const rows: string[][] = [];
+  let row: string[] = []; let field = ''; let quoted = false;
+  const s = text.replace(/^\uFEFF/, '');
+  for (let i = 0; i < s.length; i++) {
+    const c = s[i];
+    if (quoted) {
+      if (c === '"' && s[i + 1] === '"') { field += '"'; i++; } else if (c === '"') quoted = false; else field += c;
+    } else if (c === '"') quoted = true;
+    else if (c === ',') { row.push(field); field = ''; } else if (c === '\r' && s[i + 1] === '\n') { row.push(field); rows.push(row); row = []; field = ''; i++; } else field += c;
+  }
+  if (field || row.length) { row.push(field); rows.push(row); }
+  return rows;
+}
+
+const hasTool = (name: string) => { try { execFileSync('which', [name], { stdio: 'ignore' }); return true; } catch { return false; } };
+
+beforeAll(async () => {
+  t = await startTestApp();
+  tok = await t.tokens();
+  otherBuilder = await t.addUser('builder', 'other.builder@elsewhere.example');
+  otherInspector = await t.addUser('inspector', 'other.inspector@elsewhere.example');
+  otherSupplier = await t.addUser('supplier', 'other.supplier@elsewhere.example');
+  const builds = await request(t.app).get('/api/builds').set(auth(tok.supplier));
+  buildId = builds.body.find((b: { kitSerial: string }) => b.kitSerial === 'NK2-0147').id;
+  const parts = await request(t.app).get('/api/travelers').set(auth(tok.builder));
+  innerId = parts.body.find((p: { partNumber: string }) => p.partNumber === 'W-104').id;
+  outerId = parts.body.find((p: { partNumber: string }) => p.partNumber === 'W-105').id;
+});
+afterAll(async () => { await t?.close(); });
+
+describe('the build log', () => {
+  it('lists the demo ticks, the step and the flagged hole, newest first, with who did each', async () => {
+    const res = await log(tok.builder);
+    expect(res.status).toBe(200);
+    expect(res.body.build).toMatchObject({ id: buildId, kitSerial: 'NK2-0147', supplierName: 'Northfold Kitworks' });
+    expect(res.body.parts.map((p: { partNumber: string }) => p.partNumber)).toEqual(['W-104', 'W-105']);
+    expect(kinds(res.body)).toEqual(['finding_flagged', 'step_done', 'holes_installed']);
+    const [flag, step, ticks] = res.body.entries as Entry[];
+    expect(ticks).toMatchObject({ actorName: DEMO_USERS.builder.name, partNumber: 'W-104', holeIds: ['U-01', 'U-02', 'U-03', 'U-04', 'U-05', 'U-06', 'U-07', 'U-08'] });
+    expect(ticks.text).toBe('Installed 8 holes: U-01 to U-08.');
+    expect(step.text).toMatch(/^Step 1 done: Deburr all holes/);
+    expect(flag).toMatchObject({ holeIds: ['U-09'], note: 'Hole looks oval after deburring, about a drill size long fore and aft.' });
+    expect(flag.text).toBe('Flagged hole U-09 as suspect: elongated hole.');
+    findingId = flag.findingId!;
+    expect(findingId).toBeTruthy();
+    const entries = res.body.entries as Entry[];
+    for (let i = 1; i < entries.length; i++) expect(entries[i - 1].at >= entries[i].at).toBe(true);
+    expect(res.body.range).toEqual({ from: ticks.at, to: flag.at });
+  });
+
+  it('carries the finding photo as a signed thumbnail and full-size link that load without a bearer header', async () => {
+    const res = await log(tok.builder, { kind: 'findings' });
+    const photo = res.body.entries[0].photos[0];
+    const thumb = await request(t.app).get(photo.thumbUrl);
+    expect(thumb.status).toBe(200);
+    expect(thumb.type).toBe('image/jpeg');
+    expect((await request(t.app).get(photo.url)).status).toBe(200);
+  });
+
+  it('shows the same log to the assigned inspector, the supplier and the admin', async () => {
+    for (const token of [tok.inspector, tok.supplier, tok.admin]) {
+      const res = await log(token);
+      expect(res.status).toBe(200);
+      expect(kinds(res.body)).toEqual(['finding_flagged', 'step_done', 'holes_installed']);
+    }
+  });
+
+  it('filters by kind family or kind, by part, by date and by search words', async () => {
+    expect(kinds((await log(tok.builder, { kind: 'bench' })).body)).toEqual(['step_done', 'holes_installed']);
+    expect(kinds((await log(tok.builder, { kind: 'findings' })).body)).toEqual(['finding_flagged']);
+    expect(kinds((await log(tok.builder, { kind: 'sign_off' })).body)).toEqual([]);
+    expect(kinds((await log(tok.builder, { kind: 'holes_installed,finding_flagged' })).body)).toEqual(['finding_flagged', 'holes_installed']);
+    expect(kinds((await log(tok.builder, { travelerId: innerId })).body)).toHaveLength(3);
+    expect(kinds((await log(tok.builder, { travelerId: outerId })).body)).toEqual([]);
+    const today = new Date().toISOString().slice(0, 10);
+    const tomorrow = new Date(Date.now() + 86400000).toISOString().slice(0, 10);
+    const yesterday = new Date(Date.now() - 86400000).toISOString().slice(0, 10);
+    expect(kinds((await log(tok.builder, { from: today, to: today })).body)).toHaveLength(3);
+    expect(kinds((await log(tok.builder, { from: tomorrow })).body)).toEqual([]);
+    expect(kinds((await log(tok.builder, { to: yesterday })).body)).toEqual([]);
+    expect(kinds((await log(tok.builder, { from: new Date(Date.now() - 3600000).toISOString() })).body)).toHaveLength(3);
+    expect(kinds((await log(tok.builder, { q: 'u-09' })).body)).toEqual(['finding_flagged']);
+    expect(kinds((await log(tok.builder, { q: 'deburr step' })).body)).toEqual(['step_done']);
+    // The parts list stays whole, so the picker can switch back.
+    expect((await log(tok.builder, { travelerId: outerId })).body.parts).toHaveLength(2);
+  });
+
+  it('answers 400 naming the field for a bad date, a range that ends before it starts, or an unknown kind', async () => {
+    const bad = await log(tok.builder, { from: '2026-13-45' });
+    expect(bad.status).toBe(400);
+    expect(Object.keys(bad.body.error.fields)).toEqual(['from']);
+    expect(bad.body.error.message).toMatch(/from/);
+    expect((await log(tok.builder, { from: 'yesterday' })).body.error.fields).toHaveProperty('from');
+    const backwards = await log(tok.builder, { from: '2026-11-05', to: '2026-11-01' });
+    expect(backwards.status).toBe(400);
+    expect(backwards.body.error.fields).toHaveProperty('to');
+    const kind = await log(tok.builder, { kind: 'bench,gossip' });
+    expect(kind.status).toBe(400);
+    expect(Object.keys(kind.body.error.fields)[0]).toMatch(/^kind/);
+    const csv = await request(t.app).get(`/api/builds/${buildId}/log.csv`).query({ to: '31/12/2026' }).set(auth(tok.builder));
+    expect(csv.status).toBe(400);
+    expect(csv.body.error.fields).toHaveProperty('to');
+  });
+
+  it('keeps another builder, inspector or supplier out with 404 on the log and both exports', async () => {
+    for (const token of [otherBuilder, otherInspector, otherSupplier]) {
+      for (const suffix of ['log', 'log.csv', 'log.pdf']) {
+        const res = await request(t.app).get(`/api/builds/${buildId}/${suffix}`).set(auth(token));
+        expect(res.status).toBe(404);
+        expect(res.body.error.code).toBe('not_found');
+      }
+    }
+    // Nor can they reach it through a part of the build they cannot see.
+    expect((await log(otherBuilder, { travelerId: innerId })).status).toBe(404);
+    expect((await request(t.app).get(`/api/builds/${buildId}/log.csv`)).status).toBe(401);
+  });
+
+  it('adds the disposition with its reason once the inspector decides', async () => {
+    const res = await request(t.app).post(`/api/findings/${findingId}/disposition`).set(auth(tok.inspector))
+      .send({ disposition: 'rework', note: 'Drill out to AD5, per the "oversize" sheet; check edge distance' });
+    expect(res.status).toBe(200);
+    const after = await log(tok.builder);
+    expect(kinds(after.body)).toEqual(['finding_dispositioned', 'finding_flagged', 'step_done', 'holes_installed']);
+    expect(after.body.entries[0]).toMatchObject({ actorName: DEMO_USERS.inspector.name, text: 'Dispositioned hole U-09: rework.', findingId });
+  });
+
+  it('exports CSV: a header row, one row per entry oldest first, and a note with a comma and quotes read back whole', async () => {
+    const res = await request(t.app).get(`/api/builds/${buildId}/log.csv`).set(auth(tok.builder)).buffer(true);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toMatch(/^text\/csv/);
+    expect(res.headers['content-disposition']).toMatch(/^attachment; filename="build-log-NK2-0147-\d{4}-\d{2}-\d{2}\.csv"/);
+    const rows = parseCsv(res.text);
+    const [header, ...body] = rows;
+    expect(header.slice(0, 7)).toEqual(['Date', 'Time', 'Time zone', 'UTC', 'Who', 'Role', 'Kind']);
+    expect(body.every((r) => r.length === header.length)).toBe(true);
+    const col = (name: string) => header.indexOf(name);
+    expect(body.map((r) => r[col('Kind')])).toEqual(['holes_installed', 'step_done', 'finding_flagged', 'finding_dispositioned']);
+    expect(body[3][col('Note')]).toBe('Drill out to AD5, per the "oversize" sheet; check edge distance');
+    expect(body[0][col('Holes')]).toBe('U-01 U-02 U-03 U-04 U-05 U-06 U-07 U-08');
+    expect(body[2][col('Photos')]).toBe('1');
+    // The raw text quotes that field the RFC 4180 way.
+    expect(res.text).toContain('"Drill out to AD5, per the ""oversize"" sheet; check edge distance"');
+  });
+
+  it('exports CSV with the same filters and in the reader’s time zone', async () => {
+    const res = await request(t.app).get(`/api/builds/${buildId}/log.csv`).query({ kind: 'findings', tz: 'America/Denver' }).set(auth(tok.builder));
+    const [header, ...body] = parseCsv(res.text);
+    expect(body.map((r) => r[header.indexOf('Kind')])).toEqual(['finding_flagged', 'finding_dispositioned']);
+    expect(body[0][header.indexOf('Time zone')]).toBe('America/Denver');
+    const utc = new Date(body[0][header.indexOf('UTC')]);
+    const local = `${body[0][header.indexOf('Date')]}T${body[0][header.indexOf('Time')]}`;
+    const shift = (Date.parse(`${local}Z`) - Math.floor(utc.getTime() / 1000) * 1000) / 3600000;
+    expect([-6, -7]).toContain(shift);
+    expect((await request(t.app).get(`/api/builds/${buildId}/log.csv`).query({ tz: 'Mars/Olympus' }).set(auth(tok.builder))).body.error.fields).toHaveProperty('tz');
+  });
+
+  it('records a sign-off once every hole and step of a part is done', async () => {
+    const part = await request(t.app).get(`/api/travelers/${outerId}`).set(auth(tok.builder));
+    const holeIds = part.body.holes.map((h: { holeId: string }) => h.holeId);
+    expect((await request(t.app).post(`/api/travelers/${outerId}/holes`).set(auth(tok.builder)).send({ holeIds, status: 'installed' })).status).toBe(200);
+    for (const s of part.body.steps) {
+      expect((await request(t.app).post(`/api/travelers/${outerId}/steps/${s.id}`).set(auth(tok.builder)).send({ done: true })).status).toBe(200);
+    }
+    expect((await request(t.app).post(`/api/travelers/${outerId}/sign-off`).set(auth(tok.inspector)).send({})).status).toBe(200);
+    const res = await log(tok.supplier, { kind: 'sign_off' });
+    expect(res.body.entries).toHaveLength(1);
+    expect(res.body.entries[0]).toMatchObject({ kind: 'signed_off', partNumber: 'W-105', actorName: DEMO_USERS.inspector.name });
+    const outer = await log(tok.supplier, { travelerId: outerId });
+    expect(kinds(outer.body)[0]).toBe('signed_off');
+    expect(outer.body.entries.find((e: Entry) => e.kind === 'holes_installed').text).toMatch(new RegExp(`^Installed ${holeIds.length} holes: L-01 to L-\\d+, U-01 to U-\\d+\\.$`));
+  });
+
+  it('exports a PDF with the title block, the caution, every entry, the photo and page numbers', async () => {
+    const res = await request(t.app).get(`/api/builds/${buildId}/log.pdf`).set(auth(tok.inspector))
+      .buffer(true).parse((r, cb) => { const c: Buffer[] = []; r.on('data', (d: Buffer) => c.push(d)); r.on('end', () => cb(null, Buffer.concat(c))); });
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toBe('application/pdf');
+    expect(res.headers['content-disposition']).toMatch(/^attachment; filename="build-log-NK2-0147-.*\.pdf"/);
+    const pdf = res.body as Buffer;
+    expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    expect(pdf.toString('latin1')).toMatch(/\/Subtype \/Image/);
+    if (!hasTool('pdftotext')) return; // the text check needs poppler; the bytes above are checked everywhere
+    const dir = mkdtempSync(path.join(os.tmpdir(), 'pc-log-'));
+    try {
+      writeFileSync(path.join(dir, 'log.pdf'), pdf);
+      const text = execFileSync('pdftotext', ['-layout', path.join(dir, 'log.pdf'), '-']).toString().replace(/\s+/g, ' ');
+      for (const want of ['NK2-0147', 'NK-2 Quillon two-seat trainer', 'Northfold Kitworks', DEMO_USERS.builder.name, DEMO_USERS.inspector.name,
+        'CAUTION', 'not certification', 'Installed 8 holes: U-01 to U-08.', 'Flagged hole U-09 as suspect', 'Signed the part off', 'Page 1 of']) {
+        expect(text).toContain(want);
+      }
+      expect(text).toContain('per the "oversize" sheet');
+      expect(text.indexOf('Installed 8 holes')).toBeLessThan(text.indexOf('Dispositioned hole U-09'));
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+
+  it('prints a filtered PDF that says it is filtered, and an empty one that says nothing matched', async () => {
+    const res = await request(t.app).get(`/api/builds/${buildId}/log.pdf`).query({ kind: 'sign_off', from: '2001-01-01', to: '2001-01-02' }).set(auth(tok.builder))
+      .buffer(true).parse((r, cb) => { const c: Buffer[] = []; r.on('data', (d: Buffer) => c.push(d)); r.on('end', () => cb(null, Buffer.concat(c))); });
+    expect(res.status).toBe(200);
+    if (!hasTool('pdftotext')) return;
+    const dir = mkdtempSync(path.join(os.tmpdir(), 'pc-log-'));
+    try {
+      writeFileSync(path.join(dir, 'log.pdf'), res.body as Buffer);
+      const text = execFileSync('pdftotext', [path.join(dir, 'log.pdf'), '-']).toString().replace(/\s+/g, ' ');
+      expect(text).toContain('kinds: sign off');
+      expect(text).toContain('No entries match these filters.');
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+});
