@@ -187,6 +187,7 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
           <EmptyState title="No findings." body={isBuilder ? 'If a hole looks wrong, flag it with a photo.' : undefined} />
         )}
       </Section>
+      <Button label={`Build log of kit ${t.kitSerial}`} variant="quiet" onPress={() => router.push(`/builds/${t.buildId}/log`)} testID="traveler-build-log" />
       {role === 'inspector' && !t.signedOff ? (
         <Section title="Sign-off">
           <SignOff
