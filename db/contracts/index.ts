@@ -8,3 +8,4 @@ export * from './findings';
 export * from './coupons';
 export * from './studies';
 export * from './build-log';
+export type * from './engineering';

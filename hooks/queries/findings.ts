@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
-import type { DispositionInput, FindingDetail, FindingInput, FindingStatus, FindingSummary } from '@/db/contracts';
+import type { DispositionInput, FindingDetail, FindingInput, FindingStatus, FindingSummary, ReworkResult } from '@/db/contracts';
 import { api, qs } from '../api-client';
 import { findingFormData, type DraftPhoto } from '../photo-form-data';
 import { travelerKeys } from './travelers';
@@ -79,43 +79,8 @@ export function useFindingVerifyMutation(findingId: string) {
   return useFindingStep<{ note: string }>(findingId, 'verify', (v) => v);
 }
 
-/**
- * The engine's ReworkResult (server/engineering/rework-check.ts), as the app reads it: the app does not
- * import the server. Lengths in inches; margins are margins of safety, null where no load was applied.
- */
-export type ReworkCheckResult = {
-  pass: boolean;
-  reasons: string[];
-  newDrill: { name: string; diameterIn: number };
-  requiredEdgeIn: number;
-  requiredPitchIn: number;
-  /** to the previous and to the next hole; null where the hole has no neighbour on that side */
-  pitchToNeighboursIn: [number | null, number | null];
-  margins: {
-    shearLimit: number | null;
-    shearUltimate: number | null;
-    tensionLimit: number | null;
-    tensionUltimate: number | null;
-    combinedLimit: number | null;
-    combinedUltimate: number | null;
-  };
-  alternative: 'repair with doubler' | 'scrap' | null;
-  rules: string[];
-  warnings: string[];
-  caution: string;
-  /** what the check was run with */
-  inputs: {
-    rivetSpec: string;
-    proposedSpec: string;
-    holeStationIn: number;
-    neighbourStationsIn: [number | null, number | null];
-    edgeDistanceIn: number;
-    gaugeIn: number;
-    material: string;
-    appliedLimitTensionLb?: number;
-    appliedLimitShearLb?: number;
-  };
-};
+/** The engine's answer as the server sends it: lengths in inches, margins null where no load was applied. */
+export type ReworkCheckResult = ReworkResult;
 
 /**
  * The inspector's check of drilling the finding's hole out for a larger rivet. Without `proposedSpec`

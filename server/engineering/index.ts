@@ -87,6 +87,7 @@ export {
 } from './allowables';
 export {
   pitchSchedule,
+  type AllowableSummary,
   type PitchScheduleInput,
   type PitchScheduleResult,
   type ScheduleHole,
