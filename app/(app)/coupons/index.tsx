@@ -1,0 +1,5 @@
+import { CouponsScreen } from '@/components/coupons/coupons-screen';
+
+export default function Coupons() {
+  return <CouponsScreen />;
+}

@@ -1,0 +1,8 @@
+import { Stack } from 'expo-router';
+import { colors } from '@/constants/theme';
+
+export const unstable_settings = { initialRouteName: 'index' };
+
+export default function Layout() {
+  return <Stack screenOptions={{ headerShown: false, contentStyle: { backgroundColor: colors.paper } }} />;
+}

@@ -1,0 +1,149 @@
+import { useMemo, useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { couponOutcomeLabels, type CouponOutcome, type CouponTest } from '@/db/contracts';
+import { colors, hairline, space } from '@/constants/theme';
+import { Caution } from '@/components/ui/caution';
+import { Choice } from '@/components/ui/choice';
+import { Field } from '@/components/ui/field';
+import { Screen } from '@/components/ui/screen';
+import { Section } from '@/components/ui/sheet';
+import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
+import { Table, type Column, type SortState } from '@/components/ui/table';
+import { Mono, Txt } from '@/components/ui/text';
+import { TwoPane } from '@/components/ui/two-pane';
+import { useCouponsQuery } from '@/hooks/queries/coupons';
+import { useUnits } from '@/hooks/use-units';
+import { forceNumber } from '@/components/studies/study-numbers';
+import { CouponForm } from './coupon-form';
+import { ALL, filterCoupons, filterValues, groupCoupons, sortCoupons, type CouponFilters, type CouponGroup, type CouponSortKey } from './coupon-groups';
+
+/** Worse outcomes read darker; the words always say which it is. */
+const outcomeTone: Record<CouponOutcome, 'ink' | 'soft' | 'error'> = {
+  no_deformation: 'ink', slight_deformation: 'ink', excessive_deformation: 'error', failure: 'error',
+};
+const outcomeMark: Record<CouponOutcome, string> = { no_deformation: '○', slight_deformation: '◐', excessive_deformation: '◉', failure: '✕' };
+
+export const groupTestId = (g: Pick<CouponGroup, 'material' | 'gaugeIn' | 'rivetSpec'>) => `coupon-group-${g.material}-${g.gaugeIn}-${g.rivetSpec}`;
+
+function Allowables({ groups }: { groups: CouponGroup<CouponTest>[] }) {
+  const u = useUnits();
+  return (
+    <View style={{ gap: space.md }} testID="coupon-allowables">
+      <Txt variant="small" testID="coupon-rule">
+        <Txt variant="small" bold>Limit: </Txt>the highest load that left no permanent deformation.{' '}
+        <Txt variant="small" bold>Ultimate: </Txt>the highest load carried without failure, slight deformation allowed; excessive
+        deformation counts as failure. A good result at or above a load where another coupon of the same set did worse is not
+        counted. Studies computed from now on use these as the pull-through allowables; a pair with no tests gets a conservative
+        fallback.
+      </Txt>
+      {groups.length ? groups.map((g) => (
+        <View key={g.key} style={styles.group} testID={groupTestId(g)}>
+          <Txt bold>
+            <Mono bold>{g.material}</Mono> · <Mono bold>{u.length(g.gaugeIn)}</Mono> · <Mono bold>{g.rivetSpec}</Mono>
+            <Txt variant="small" tone="soft"> · {g.tests.length} test{g.tests.length === 1 ? '' : 's'}</Txt>
+          </Txt>
+          <View style={{ flexDirection: 'row', gap: space.xl, flexWrap: 'wrap' }}>
+            <Txt testID={`${groupTestId(g)}-limit`}>limit <Mono bold tone={g.limitLb > 0 ? 'ink' : 'error'}>{u.force(g.limitLb)}</Mono></Txt>
+            <Txt testID={`${groupTestId(g)}-ultimate`}>ultimate <Mono bold tone={g.ultimateLb > 0 ? 'ink' : 'error'}>{u.force(g.ultimateLb)}</Mono></Txt>
+          </View>
+          {g.limitLb === 0 || g.ultimateLb === 0 ? (
+            <Txt variant="small" tone="error">No coupon qualified{g.limitLb === 0 && g.ultimateLb === 0 ? '' : g.limitLb === 0 ? ' at limit' : ' at ultimate'}: a study finds this pair cannot carry the pull.</Txt>
+          ) : null}
+        </View>
+      )) : <Txt tone="soft">No tests yet.</Txt>}
+    </View>
+  );
+}
+
+/** The supplier's coupon tests: the record, the allowables derived from it, and a form for the next. */
+export function CouponsScreen() {
+  const u = useUnits();
+  const q = useCouponsQuery();
+  const all = useMemo(() => q.data ?? [], [q.data]);
+  const [filters, setFilters] = useState<CouponFilters>({ material: ALL, gauge: ALL, rivet: ALL });
+  const [sort, setSort] = useState<SortState<CouponSortKey>>({ key: 'tested', dir: 'desc' });
+  const values = useMemo(() => filterValues(all), [all]);
+  const shown = useMemo(() => sortCoupons(filterCoupons(all, filters), sort), [all, filters, sort]);
+  const groups = useMemo(() => groupCoupons(shown), [shown]);
+
+  const lu = u.label('length');
+  const fu = u.label('force');
+  const columns: Column<CouponTest, CouponSortKey>[] = [
+    { key: 'tested', title: 'Tested', sortKey: 'tested', flex: 1.35, render: (t) => <Mono variant="small">{t.testedOn}</Mono> },
+    { key: 'material', title: 'Material', sortKey: 'material', flex: 1.1, render: (t) => <Mono variant="small">{t.material}</Mono> },
+    { key: 'gauge', title: `Gauge, ${lu}`, sortKey: 'gauge', flex: 0.9, render: (t) => <Mono bold>{u.lengthNumber(t.gaugeIn)}</Mono> },
+    { key: 'width', title: `Width, ${lu}`, flex: 0.8, render: (t) => <Mono variant="small">{u.lengthNumber(t.couponWidthIn)}</Mono> },
+    { key: 'rivet', title: 'Rivet', sortKey: 'rivet', flex: 1.25, render: (t) => <Mono variant="small">{t.rivetSpec}</Mono> },
+    { key: 'load', title: `Load, ${fu}`, sortKey: 'load', flex: 0.85, render: (t) => <Mono bold>{forceNumber(t.loadLb, u.system)}</Mono> },
+    {
+      key: 'outcome', title: 'Outcome', sortKey: 'outcome', flex: 1.5, render: (t) => (
+        <Txt variant="small" bold={outcomeTone[t.outcome] === 'error'} tone={outcomeTone[t.outcome]}>{outcomeMark[t.outcome]} {couponOutcomeLabels[t.outcome]}</Txt>
+      ),
+    },
+    { key: 'note', title: 'Note', flex: 1.8, render: (t) => <Txt variant="small" tone="soft">{t.note || '–'}{t.createdByName ? ` · ${t.createdByName}` : ''}</Txt> },
+  ];
+
+  const chip = (v: string, label: string) => ({ value: v, label });
+  const header = (
+    <View style={{ gap: space.md, paddingBottom: space.md }}>
+      {values.materials.length > 1 ? (
+        <Field label="Material">
+          <Choice testIDPrefix="coupon-filter-material" value={filters.material} onChange={(material) => setFilters((f) => ({ ...f, material }))}
+            options={[chip(ALL, 'All'), ...values.materials.map((m) => chip(m, m))]} />
+        </Field>
+      ) : null}
+      <Field label="Gauge">
+        <Choice testIDPrefix="coupon-filter-gauge" value={filters.gauge} onChange={(gauge) => setFilters((f) => ({ ...f, gauge }))}
+          options={[chip(ALL, 'All'), ...values.gauges.map((g) => chip(String(g), u.length(g)))]} />
+      </Field>
+      <Field label="Rivet">
+        <Choice testIDPrefix="coupon-filter-rivet" value={filters.rivet} onChange={(rivet) => setFilters((f) => ({ ...f, rivet }))}
+          options={[chip(ALL, 'All'), ...values.rivets.map((r) => chip(r, r))]} />
+      </Field>
+      <Txt variant="small" tone="soft" testID="coupon-count">{shown.length} of {all.length} tests shown</Txt>
+    </View>
+  );
+
+  const left = (
+    <Section title="Coupon tests" testID="coupon-tests">
+      {q.isPending ? <LoadingState what="Loading the coupon tests" />
+        : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+          : !all.length ? (
+            <EmptyState title="No coupon tests yet." body="Record a flange coupon test: gauge, rivet, the load you applied and what the coupon did. Studies take their pull-through allowables from these." />
+          ) : (
+            <Table
+              rows={shown}
+              columns={columns}
+              rowKey={(t) => t.id}
+              sort={sort}
+              onSort={(key) => setSort((s) => (s.key === key ? { key, dir: s.dir === 'asc' ? 'desc' : 'asc' } : { key, dir: 'asc' }))}
+              rowTestID={(t) => `coupon-row-${t.id}`}
+              header={header}
+              empty={<EmptyState title="Nothing matches these filters." body="Choose All to see every test." />}
+            />
+          )}
+    </Section>
+  );
+
+  const right = (
+    <>
+      <Section title={filters.material === ALL && filters.gauge === ALL && filters.rivet === ALL ? 'Allowables from the tests' : 'Allowables of the tests shown'}>
+        {q.isSuccess ? <Allowables groups={groups} /> : null}
+        <Caution testID="coupon-caution" />
+      </Section>
+      <Section title="Record a test">
+        <CouponForm />
+      </Section>
+    </>
+  );
+
+  return (
+    <Screen title="Coupon tests" subtitle="Flange pull-through tests and the allowables they back" account full testID="coupons-screen">
+      <TwoPane left={left} right={right} leftWidth={0.62} />
+    </Screen>
+  );
+}
+
+const styles = StyleSheet.create({
+  group: { gap: space.xs, paddingVertical: space.sm, borderBottomWidth: hairline, borderColor: colors.rule },
+});

@@ -1,0 +1,130 @@
+import { useRouter } from 'expo-router';
+import { useState } from 'react';
+import { View } from 'react-native';
+import { partKindLabels, type Revision } from '@/db/contracts';
+import { space } from '@/constants/theme';
+import { Button } from '@/components/ui/button';
+import { Choice } from '@/components/ui/choice';
+import { Field } from '@/components/ui/field';
+import { Sheet } from '@/components/ui/sheet';
+import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
+import { Mono, Txt } from '@/components/ui/text';
+import { ApiError, errorMessage } from '@/hooks/api-client';
+import { useDesignsQuery } from '@/hooks/queries/designs';
+import { useStudyApplyMutation } from '@/hooks/queries/studies';
+import { useUnits } from '@/hooks/use-units';
+import { pitchNumber } from './study-numbers';
+import type { StudyCandidate } from './study-result';
+
+/** A refusal from the server said as it is; a 409 is the server explaining why not, in its own words. */
+function applyErrorText(e: unknown): string {
+  if (e instanceof ApiError && e.status === 409) return `Not applied: ${e.message}`;
+  return errorMessage(e);
+}
+
+/**
+ * "Apply to part design": the shown candidate's gauge, rivet, drill, edge distance and zones go into
+ * the chosen part design's draft revision (a new draft when it has none), with this study as its basis.
+ */
+export function ApplyPanel({ studyId, kitModelId, kitName, candidate, viewingRevision, latestRevision }: {
+  studyId: string; kitModelId: string; kitName: string; candidate: StudyCandidate | null; viewingRevision: number; latestRevision: number;
+}) {
+  const router = useRouter();
+  const u = useUnits();
+  const designs = useDesignsQuery(kitModelId);
+  const apply = useStudyApplyMutation(studyId);
+  const [designId, setDesignId] = useState<string | null>(null);
+  const [done, setDone] = useState<{ rev: Revision; partNumber: string } | null>(null);
+
+  if (viewingRevision !== latestRevision) {
+    return (
+      <Notice tone="caution" testID="apply-latest-only">
+        {`Applying uses the latest revision (${latestRevision}) of the study. Open it, or compute these inputs again as a new revision, to apply them.`}
+      </Notice>
+    );
+  }
+  if (designs.isPending) return <LoadingState what="Loading the kit's part designs" />;
+  if (designs.isError) return <ErrorState error={designs.error} onRetry={() => void designs.refetch()} />;
+  if (!designs.data.length) {
+    return (
+      <EmptyState
+        title={`No part designs in ${kitName} yet.`}
+        body="Make the part design in the catalogue first; then apply the study to it."
+        action={<Button label="New part design" variant="secondary" onPress={() => router.push(`/catalogue/designs/new?kitModelId=${kitModelId}`)} testID="apply-new-design" />}
+      />
+    );
+  }
+  const target = designs.data.find((d) => d.id === designId) ?? null;
+
+  const onApply = () => {
+    if (!candidate || !target) return;
+    setDone(null);
+    apply.mutate(
+      { partDesignId: target.id, gaugeIn: candidate.gaugeIn, rivet: candidate.rivet },
+      { onSuccess: (rev) => setDone({ rev, partNumber: target.partNumber }) },
+    );
+  };
+
+  return (
+    <View style={{ gap: space.md }} testID="apply-panel">
+      <Field label="Part design to receive it">
+        <Choice
+          testIDPrefix="apply-design"
+          value={designId}
+          onChange={(id) => { setDesignId(id); setDone(null); apply.reset(); }}
+          options={designs.data.map((d) => ({
+            value: d.id,
+            key: d.partNumber,
+            label: `${d.partNumber} · ${d.name}`,
+            hint: `${partKindLabels[d.kind]}${d.latest ? ` · latest ${d.latest.letter} ${d.latest.status}` : ''}`,
+          }))}
+        />
+      </Field>
+      {candidate ? (
+        <Txt testID="apply-what">
+          Writes <Mono bold>{u.length(candidate.gaugeIn)}</Mono> with <Mono bold>{candidate.rivet}</Mono>, its drill, edge distance and
+          the zones of {candidate.lines.length} line{candidate.lines.length === 1 ? '' : 's'} into {target ? <Mono bold>{target.partNumber}</Mono> : 'the chosen part'}’s
+          draft revision (a new draft when it has none). Published revisions stay as they are.
+        </Txt>
+      ) : <Txt tone="soft">Choose a candidate in the table first.</Txt>}
+      {candidate && !candidate.feasible ? (
+        <Notice tone="error" testID="apply-not-feasible">{`${u.length(candidate.gaugeIn)} with ${candidate.rivet} does not carry the loads, so it cannot be applied. Choose a row marked “yes”.`}</Notice>
+      ) : null}
+      {apply.isError ? <Notice tone="error" testID="apply-error">{applyErrorText(apply.error)}</Notice> : null}
+      <Button
+        label={target && candidate ? `Apply to ${target.partNumber}` : 'Apply to the part design'}
+        busyLabel="Applying"
+        busy={apply.isPending}
+        disabled={!target || !candidate || !candidate.feasible}
+        onPress={onApply}
+        testID="apply-study"
+      />
+      {done ? <AppliedRevision rev={done.rev} partNumber={done.partNumber} onOpen={() => router.push(`/catalogue/designs/${done.rev.partDesignId}`)} /> : null}
+    </View>
+  );
+}
+
+function AppliedRevision({ rev, partNumber, onOpen }: { rev: Revision; partNumber: string; onOpen: () => void }) {
+  const u = useUnits();
+  return (
+    <Sheet testID="apply-result">
+      <Txt bold>
+        <Mono bold>{partNumber}</Mono> draft revision <Mono bold>{rev.letter}</Mono> now has:
+      </Txt>
+      <Txt variant="small">
+        <Mono variant="small" bold>{u.length(rev.gaugeIn)}</Mono> {rev.material} · <Mono variant="small" bold>{rev.rivetSpec}</Mono> · drill{' '}
+        <Mono variant="small">{rev.drillSize}</Mono> · edge distance <Mono variant="small">{u.length(rev.edgeDistanceIn)}</Mono>
+      </Txt>
+      {rev.lines.map((l) => (
+        <Txt key={l.code} variant="small">
+          <Mono variant="small" bold>{l.code}</Mono> {l.name}:{' '}
+          {l.zones.map((z, i) => (
+            <Mono key={i} variant="small">{i ? ', ' : ''}{u.station(z.fromIn)}–{u.station(z.toIn)} @ {pitchNumber(z.pitchIn, u.system)}</Mono>
+          ))}
+        </Txt>
+      ))}
+      <Txt variant="small" tone="soft">A draft: nobody builds from it until you check it and publish it.</Txt>
+      <Button label={`Open ${partNumber} revision ${rev.letter}`} variant="secondary" onPress={onOpen} testID="apply-open-design" />
+    </Sheet>
+  );
+}

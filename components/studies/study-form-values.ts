@@ -1,0 +1,150 @@
+import type { KitModel, StudyDetail, StudyInput } from '@/db/contracts';
+import { lengthNumber, unitLabel, type UnitSystem } from '@/constants/units';
+
+/**
+ * The study form holds a StudyInput in the engine's units (in, lb, sq ft, KEAS), exactly what is sent:
+ * the number fields convert what the person types in mm, kg or N as they type (FormNumberField with a
+ * quantity), so zodResolver(studyInput) checks the very values the server gets.
+ */
+export type StudyFormValues = StudyInput;
+
+/** Sheet gauges of the trade, in. */
+export const STOCK_GAUGES_IN = [0.016, 0.02, 0.025, 0.032, 0.04, 0.05, 0.063] as const;
+
+export const RIVET_FAMILIES: { family: string; label: string; codes: string[] }[] = [
+  { family: 'MS20470AD', label: 'Solid, universal head', codes: [3, 4, 5, 6].map((d) => `MS20470AD${d}`) },
+  { family: 'MS20426AD', label: 'Solid, 100° countersunk', codes: [3, 4, 5, 6].map((d) => `MS20426AD${d}`) },
+  { family: 'PULLED', label: 'Pulled, protruding head', codes: [3, 4, 5, 6].map((d) => `PULLED-${d}`) },
+  { family: 'PULLED-CSK', label: 'Pulled, countersunk', codes: [3, 4, 5, 6].map((d) => `PULLED-${d}-CSK`) },
+];
+
+/** Sheet materials the engine knows by name. */
+export const STUDY_MATERIALS = ['6061-T6', '2024-T3'] as const;
+
+/** A gauge chip: "0.020 in", or "0.51 mm" on the metric switch. */
+export function gaugeLabel(gaugeIn: number, system: UnitSystem): string {
+  return `${lengthNumber(gaugeIn, system)} ${unitLabel('length', system)}`;
+}
+
+/** Chips carry strings; gauges go back to the numbers they came from, in inches, in ascending order. */
+export const gaugeKey = (g: number): string => String(g);
+
+export function toggleGauge(current: readonly number[] | undefined, key: string): number[] {
+  const g = Number(key);
+  const list = [...(current ?? [])];
+  const i = list.findIndex((x) => Math.abs(x - g) < 1e-9);
+  if (i >= 0) list.splice(i, 1);
+  else list.push(g);
+  return list.sort((a, b) => a - b);
+}
+
+export function toggleRivet(current: readonly string[] | undefined, code: string): string[] {
+  const list = [...(current ?? [])];
+  const i = list.indexOf(code);
+  if (i >= 0) list.splice(i, 1);
+  else list.push(code);
+  const order = RIVET_FAMILIES.flatMap((f) => f.codes);
+  const rank = (c: string) => (order.includes(c) ? order.indexOf(c) : order.length);
+  return list.sort((a, b) => rank(a) - rank(b) || a.localeCompare(b));
+}
+
+/** "NACA 2412" (the kit model's notation) → "2412". */
+export function nacaDigits(airfoil: string | undefined | null): string {
+  const m = /(\d{4,5})/.exec(airfoil ?? '');
+  return m ? m[1] : '';
+}
+
+/** The kit model's design data into the study's kit block (and the rib chord, when not set yet). */
+export function kitIntoStudy(values: StudyFormValues, kit: KitModel): StudyFormValues {
+  return {
+    ...values,
+    kitModelId: kit.id,
+    inputs: {
+      ...values.inputs,
+      kit: {
+        ...values.inputs.kit,
+        weightLb: kit.weightLb,
+        wingAreaSqFt: kit.wingAreaSqFt,
+        meanChordIn: kit.meanChordIn,
+        stallSpeedKeas: kit.stallSpeedKeas,
+        cruiseSpeedKeas: kit.cruiseSpeedKeas ?? undefined,
+        category: kit.category,
+      },
+      airfoil: nacaDigits(kit.airfoil) ? { kind: 'naca', designation: nacaDigits(kit.airfoil) } : values.inputs.airfoil,
+      rib: { ...values.inputs.rib, chordIn: values.inputs.rib.chordIn ?? kit.meanChordIn },
+    },
+  };
+}
+
+/**
+ * A new study: two flange lines from 2 % to 85 % of the chord, common stock and rivets, 8D maximum
+ * pitch in eighths of an inch. What only the supplier knows (rib spacing, the study's name) is blank.
+ */
+export function newStudyValues(kit?: KitModel): StudyFormValues {
+  const blank = {
+    kitModelId: '',
+    name: '',
+    inputs: {
+      kit: { category: 'normal' },
+      airfoil: { kind: 'naca', designation: '' },
+      rib: {},
+      lines: [
+        { name: 'Upper flange', surface: 'upper', startXc: 0.02, endXc: 0.85 },
+        { name: 'Lower flange', surface: 'lower', startXc: 0.02, endXc: 0.85 },
+      ],
+      material: '6061-T6',
+      gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04],
+      rivetCandidates: ['PULLED-4', 'MS20470AD4'],
+      maxPitchDiameters: 8,
+      pitchIncrementIn: 0.125,
+      maxZones: 4,
+    },
+  } as unknown as StudyFormValues;
+  return kit ? kitIntoStudy(blank, kit) : blank;
+}
+
+/** A stored revision back into the form, to look at or to compute again as the next revision. */
+export function studyValues(d: Pick<StudyDetail, 'kitModelId' | 'name' | 'inputs'>): StudyFormValues {
+  return { kitModelId: d.kitModelId, name: d.name, inputs: structuredCloneSafe(d.inputs) };
+}
+
+function structuredCloneSafe<T>(v: T): T {
+  return JSON.parse(JSON.stringify(v)) as T;
+}
+
+/** Form fields that can carry a message of their own; anything else is said at the top of the form. */
+const PLACED = new Set([
+  'kitModelId', 'name',
+  'inputs.kit.weightLb', 'inputs.kit.wingAreaSqFt', 'inputs.kit.meanChordIn', 'inputs.kit.stallSpeedKeas', 'inputs.kit.cruiseSpeedKeas',
+  'inputs.kit.diveSpeedKeas', 'inputs.kit.category', 'inputs.kit.altitudeFt',
+  'inputs.airfoil', 'inputs.airfoil.designation', 'inputs.airfoil.points', 'inputs.airfoil.name',
+  'inputs.rib.chordIn', 'inputs.rib.spacingIn', 'inputs.rib.internalCp', 'inputs.rib.flangeWidthIn',
+  'inputs.lines', 'inputs.material', 'inputs.gaugeCandidates', 'inputs.rivetCandidates',
+  'inputs.maxPitchDiameters', 'inputs.pitchIncrementIn', 'inputs.maxZones', 'inputs.rankBy',
+]);
+const LINE_FIELDS = new Set(['name', 'surface', 'startXc', 'endXc']);
+
+/**
+ * One spelling for a field, whoever named it: zod says "inputs.lines.0.endXc", the engine says
+ * "lines[0].endXc" (no "inputs." and brackets for indices). Both become the form's "inputs.lines.0.endXc".
+ */
+export function normaliseFieldPath(path: string): string {
+  const dotted = path.trim().replace(/\[(\d+)\]/g, '.$1').replace(/^\.+|\.+$/g, '');
+  if (dotted === 'kitModelId' || dotted === 'name' || dotted === 'inputs' || dotted.startsWith('inputs.')) return dotted;
+  return `inputs.${dotted}`;
+}
+
+/**
+ * The form field that shows a server message for `path`, or null when the form has no place for it
+ * (coupon data, settings the form does not show): those are said at the top of the form.
+ */
+export function studyFieldFor(path: string): string | null {
+  const p = normaliseFieldPath(path);
+  // A list chosen with chips is one field: "gaugeCandidates.2" is said on the gauge chips.
+  const list = /^inputs\.(gaugeCandidates|rivetCandidates)\.\d+$/.exec(p);
+  if (list) return `inputs.${list[1]}`;
+  if (/^inputs\.airfoil\.points\.\d+(\.\d+)?$/.test(p)) return 'inputs.airfoil.points';
+  const line = /^inputs\.lines\.(\d+)(?:\.(\w+))?$/.exec(p);
+  if (line) return line[2] && LINE_FIELDS.has(line[2]) ? `inputs.lines.${line[1]}.${line[2]}` : `inputs.lines.${line[1]}.name`;
+  return PLACED.has(p) ? p : null;
+}

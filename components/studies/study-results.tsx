@@ -1,0 +1,117 @@
+import { useEffect, useState } from 'react';
+import { View } from 'react-native';
+import type { StudyDetail } from '@/db/contracts';
+import { space } from '@/constants/theme';
+import { Caution, cautionText } from '@/components/ui/caution';
+import { Section, Sheet } from '@/components/ui/sheet';
+import { ErrorState } from '@/components/ui/states';
+import { Mono, Txt } from '@/components/ui/text';
+import { useUnits } from '@/hooks/use-units';
+import { ApplyPanel } from './apply-panel';
+import { LoadPlot } from './load-plot';
+import { PressurePicture } from './pressure-picture';
+import { ResultNotes } from './result-notes';
+import { findCandidate, initialCandidate, readStudyResult, sameCandidate, type CandidateKey, type StudyResult } from './study-result';
+import { TradeTable } from './trade-table';
+import { ZoneTable } from './zone-table';
+import { ZonesDrawing } from './zones-drawing';
+
+function Headline({ result, shown }: { result: StudyResult; shown: CandidateKey | null }) {
+  const u = useUnits();
+  const rec = result.recommended;
+  const feasible = result.trade.filter((r) => r.feasible).length;
+  return (
+    <Sheet testID="study-headline">
+      {rec ? (
+        <Txt variant="heading" testID="study-recommended">
+          Recommended: <Mono variant="heading" bold>{u.length(rec.gaugeIn)}</Mono> with <Mono variant="heading" bold>{rec.rivet}</Mono>
+        </Txt>
+      ) : <Txt variant="heading" tone="error" testID="study-recommended">No candidate carries the loads</Txt>}
+      <Txt variant="small" tone="soft">
+        <Mono variant="small">{feasible}</Mono> of <Mono variant="small">{result.trade.length}</Mono> gauge and rivet pairs carry the loads
+        {result.design ? <> · n <Mono variant="small">{result.design.loadFactors.positive.toFixed(2)}</Mono> / <Mono variant="small">{result.design.loadFactors.negative.toFixed(2)}</Mono> · W/S <Mono variant="small">{result.design.wingLoadingPsf.toFixed(1)} psf</Mono></> : null}
+        {result.airfoil ? <> · {result.airfoil.name}, <Mono variant="small">{result.airfoil.panels}</Mono> panels</> : null}
+      </Txt>
+      {shown && !sameCandidate(shown, rec) ? (
+        <Txt variant="small" testID="study-shown">Pictures and zones show <Mono variant="small" bold>{u.length(shown.gaugeIn)} · {shown.rivet}</Mono> (chosen in the trade table).</Txt>
+      ) : null}
+    </Sheet>
+  );
+}
+
+/** Everything a computed revision shows, pictures first; the caution heads it. */
+export function StudyResults({ detail, latestRevision }: { detail: StudyDetail; latestRevision: number }) {
+  const units = useUnits();
+  const u = units.length;
+  const result = readStudyResult(detail.result);
+  const [chosen, setChosen] = useState<CandidateKey | null>(() => (result ? initialCandidate(result) : null));
+  // Another revision has other candidates: start again from its recommendation.
+  useEffect(() => {
+    const r = readStudyResult(detail.result);
+    setChosen(r ? initialCandidate(r) : null);
+  }, [detail.id, detail.revision, detail.result]);
+
+  if (!result) {
+    return (
+      <View style={{ gap: space.lg }}>
+        <Caution testID="study-caution" />
+        <ErrorState title="This result cannot be drawn" error={new Error('The stored result of this revision is not in the shape this screen reads. Compute it again to make a new revision.')} />
+      </View>
+    );
+  }
+  const candidate = findCandidate(result, chosen);
+
+  return (
+    <View style={{ gap: space.xl }} testID="study-results">
+      <Caution testID="study-caution" text={result.caution || cautionText} />
+      <Headline result={result} shown={chosen} />
+
+      <Section title="Pressure on the rib" testID="section-pressure">
+        <PressurePicture result={result} internalCp={detail.inputs.rib.internalCp ?? 0} />
+      </Section>
+
+      <Section
+        title="Load per rivet against the allowables"
+        testID="section-loads"
+        aside={candidate ? <Mono variant="small" bold>{u(candidate.gaugeIn)} · {candidate.rivet}</Mono> : undefined}
+      >
+        {candidate ? <LoadPlot candidate={candidate} chordIn={result.outline.chordIn} /> : <Txt tone="soft">Choose a candidate in the trade table.</Txt>}
+      </Section>
+
+      <Section
+        title="Pitch zones on the rib"
+        testID="section-zones"
+        aside={candidate ? <Mono variant="small" bold>{u(candidate.gaugeIn)} · {candidate.rivet}</Mono> : undefined}
+      >
+        {candidate ? <ZonesDrawing outline={result.outline.points} chordIn={result.outline.chordIn} candidate={candidate} lines={result.lines} /> : null}
+      </Section>
+
+      <Section title="Gauge and rivet trade" testID="section-trade">
+        <TradeTable rows={result.trade} recommended={result.recommended} chosen={chosen} onChoose={setChosen} />
+      </Section>
+
+      <Section
+        title="Zones, loads and margins"
+        testID="section-zone-table"
+        aside={candidate ? <Mono variant="small" bold>{u(candidate.gaugeIn)} · {candidate.rivet}</Mono> : undefined}
+      >
+        {candidate ? <ZoneTable candidate={candidate} /> : <Txt tone="soft">Choose a candidate in the trade table.</Txt>}
+      </Section>
+
+      <Section title="Apply to part design" testID="section-apply">
+        <ApplyPanel
+          studyId={detail.id}
+          kitModelId={detail.kitModelId}
+          kitName={detail.kitName}
+          candidate={candidate}
+          viewingRevision={detail.revision}
+          latestRevision={latestRevision}
+        />
+      </Section>
+
+      <Section title="Warnings and rules" testID="section-notes">
+        <ResultNotes warnings={result.warnings} candidateWarnings={candidate?.warnings ?? []} rules={result.rules} />
+      </Section>
+    </View>
+  );
+}

@@ -1,0 +1,75 @@
+import { useMemo, useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+import { colors, radius, space } from '@/constants/theme';
+import { Table, type Column } from '@/components/ui/table';
+import { Mono, Txt } from '@/components/ui/text';
+import { useUnits } from '@/hooks/use-units';
+import { partWeight } from './study-numbers';
+import { sameCandidate, tradeRowTestId, type CandidateKey, type TradeRow } from './study-result';
+import { nextTradeSort, sortTrade, type TradeSort, type TradeSortKey } from './trade-sort';
+
+/**
+ * Every gauge × rivet candidate: whether it carries the loads, how many rivets, what it weighs and how
+ * long it takes to build. Tapping a row shows that candidate (▶) in the pictures and zone tables.
+ */
+export function TradeTable({ rows, recommended, chosen, onChoose }: {
+  rows: TradeRow[]; recommended: CandidateKey | null; chosen: CandidateKey | null; onChoose: (k: CandidateKey) => void;
+}) {
+  const units = useUnits();
+  const [sort, setSort] = useState<TradeSort>({ key: 'rank', dir: 'asc' });
+  const sorted = useMemo(() => sortTrade(rows, sort), [rows, sort]);
+
+  const wu = units.system === 'metric' ? 'g' : 'lb';
+  const columns: Column<TradeRow, TradeSortKey>[] = [
+    {
+      key: 'gauge', title: `Gauge, ${units.label('length')}`, sortKey: 'gauge', flex: 0.9, render: (r) => (
+        <View style={styles.gauge}>
+          {sameCandidate(r, chosen) ? <Txt bold tone="accent" testID={`${tradeRowTestId(r)}-chosen`} accessibilityLabel="shown">▶</Txt> : null}
+          <Mono bold tone={sameCandidate(r, chosen) ? 'accent' : 'ink'}>{units.lengthNumber(r.gaugeIn)}</Mono>
+        </View>
+      ),
+    },
+    { key: 'rivet', title: 'Rivet', sortKey: 'rivet', flex: 1.5, render: (r) => <Mono>{r.rivet}</Mono> },
+    {
+      key: 'feasible', title: 'Carries it', sortKey: 'feasible', flex: 1, render: (r) => (
+        <View>
+          <Txt bold tone={r.feasible ? 'ink' : 'error'}>{r.feasible ? '✓ yes' : '✕ no'}</Txt>
+          {r.pullThroughBasis ? <Txt variant="small" tone="faint">{r.pullThroughBasis === 'coupons' ? 'coupons' : 'fallback'}</Txt> : null}
+        </View>
+      ),
+    },
+    { key: 'count', title: 'Rivets', sortKey: 'count', flex: 0.7, render: (r) => <Mono>{r.rivetCount}</Mono> },
+    { key: 'weight', title: `Weight, ${wu}`, sortKey: 'weight', flex: 0.8, render: (r) => <Mono>{partWeight(r.totalWeightLb, units.system).replace(/ (lb|g)$/, '')}</Mono> },
+    { key: 'time', title: 'Build, min', sortKey: 'time', flex: 0.8, render: (r) => <Mono>{Math.round(r.buildMinutes)}</Mono> },
+    {
+      key: 'rank', title: 'Rank', sortKey: 'rank', flex: 1.4, render: (r) => (sameCandidate(r, recommended)
+        ? <View style={styles.tag} testID={`${tradeRowTestId(r)}-recommended`}><Mono variant="small" bold tone="inverse">1</Mono><Txt variant="small" bold tone="inverse">recommended</Txt></View>
+        : <Mono tone={r.rank === null ? 'faint' : 'ink'}>{r.rank ?? '–'}</Mono>),
+    },
+  ];
+
+  return (
+    <View testID="trade-table">
+      <Table
+        rows={sorted}
+        columns={columns}
+        rowKey={(r) => `${r.gaugeIn}-${r.rivet}`}
+        sort={sort}
+        onSort={(k) => setSort((s) => nextTradeSort(s, k))}
+        onRowPress={(r) => onChoose({ gaugeIn: r.gaugeIn, rivet: r.rivet })}
+        rowTestID={tradeRowTestId}
+        rowLabel={(r) => `${units.length(r.gaugeIn)} with ${r.rivet}: ${r.feasible ? 'carries the loads' : 'does not carry the loads'}, ${r.rivetCount} rivets, ${partWeight(r.totalWeightLb, units.system)}, ${Math.round(r.buildMinutes)} minutes${sameCandidate(r, recommended) ? ', recommended' : ''}${sameCandidate(r, chosen) ? ', shown' : ''}`}
+        empty={<Txt tone="soft">No candidates in this result.</Txt>}
+      />
+      <Txt variant="small" tone="faint" style={{ paddingTop: space.sm }}>
+        Weight: flange along the lines, unlightened web and rivets. Build: holes × minutes per hole. Feasible rows rank by
+        pull-through backed by coupons first, then by the chosen order.
+      </Txt>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  gauge: { flexDirection: 'row', alignItems: 'center', gap: space.xs },
+  tag: { flexDirection: 'row', alignItems: 'center', gap: space.xs, alignSelf: 'flex-start', flexWrap: 'wrap', backgroundColor: colors.accent, borderRadius: radius.md, paddingHorizontal: space.sm, paddingVertical: 2 },
+});

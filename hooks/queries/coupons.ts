@@ -1,0 +1,28 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { CouponInput, CouponTest } from '@/db/contracts';
+import { api } from '../api-client';
+
+export const couponKeys = {
+  all: ['coupons'] as const,
+  list: () => [...couponKeys.all, 'list'] as const,
+};
+
+export const couponQueries = {
+  list: () => queryOptions({ queryKey: couponKeys.list(), queryFn: ({ signal }) => api.get<CouponTest[]>('/api/coupons', signal) }),
+};
+
+export function useCouponsQuery() {
+  return useQuery(couponQueries.list());
+}
+
+/** A new test changes the derived allowables; studies use them the next time they are computed. */
+export function useCouponCreateMutation() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: CouponInput) => api.post<CouponTest>('/api/coupons', input),
+    onSuccess: (made) => {
+      qc.setQueryData<CouponTest[]>(couponKeys.list(), (old) => (old ? [made, ...old] : old));
+      return qc.invalidateQueries({ queryKey: couponKeys.all });
+    },
+  });
+}

@@ -1,0 +1,75 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { ApplyStudyInput, Revision, StudyDetail, StudyInput, StudySummary } from '@/db/contracts';
+import { api, apiRequest, qs } from '../api-client';
+import { designKeys } from './designs';
+
+export const studyKeys = {
+  all: ['studies'] as const,
+  lists: () => [...studyKeys.all, 'list'] as const,
+  details: () => [...studyKeys.all, 'detail'] as const,
+  /** Every revision of one study: what a new revision or an apply refreshes. */
+  study: (id: string) => [...studyKeys.details(), id] as const,
+  detail: (id: string, revision?: number) => [...studyKeys.study(id), { revision: revision ?? null }] as const,
+};
+
+export const studyQueries = {
+  list: () => queryOptions({
+    queryKey: studyKeys.lists(),
+    queryFn: ({ signal }) => api.get<StudySummary[]>('/api/studies', signal),
+  }),
+  detail: (id: string, revision?: number) => queryOptions({
+    queryKey: studyKeys.detail(id, revision),
+    queryFn: ({ signal }) => api.get<StudyDetail>(`/api/studies/${encodeURIComponent(id)}${qs({ revision })}`, signal),
+    // A stored revision never changes; only "latest" can move on.
+    staleTime: revision ? Infinity : 0,
+  }),
+};
+
+export function useStudiesQuery() {
+  return useQuery(studyQueries.list());
+}
+
+/** `revision` undefined = the latest one. */
+export function useStudyQuery(id: string, revision?: number) {
+  return useQuery({ ...studyQueries.detail(id, revision), enabled: !!id });
+}
+
+function remember(qc: ReturnType<typeof useQueryClient>, detail: StudyDetail) {
+  qc.setQueryData(studyKeys.detail(detail.id), detail);
+  qc.setQueryData(studyKeys.detail(detail.id, detail.revision), detail);
+}
+
+/** POST /api/studies: the server computes revision 1 and answers with its result. */
+export function useStudyCreateMutation() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: StudyInput) => api.post<StudyDetail>('/api/studies', input),
+    onSuccess: (detail) => {
+      remember(qc, detail);
+      return qc.invalidateQueries({ queryKey: studyKeys.lists() });
+    },
+  });
+}
+
+/** PUT /api/studies/:id: changed inputs become the next numbered revision. */
+export function useStudyUpdateMutation(id: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: StudyInput) => apiRequest<StudyDetail>(`/api/studies/${encodeURIComponent(id)}`, { method: 'PUT', body: input }),
+    onSuccess: async (detail) => {
+      // The revision list of every cached revision is out of date now.
+      await qc.invalidateQueries({ queryKey: studyKeys.study(id) });
+      remember(qc, detail);
+      await qc.invalidateQueries({ queryKey: studyKeys.lists() });
+    },
+  });
+}
+
+/** Writes the chosen candidate into the part design's draft revision (made when there is none). */
+export function useStudyApplyMutation(id: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: ApplyStudyInput) => api.post<Revision>(`/api/studies/${encodeURIComponent(id)}/apply`, input),
+    onSuccess: () => qc.invalidateQueries({ queryKey: designKeys.all }),
+  });
+}

@@ -1,0 +1,173 @@
+import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { act } from 'react';
+import type { PartDesignSummary, StudyDetail } from '@/db/contracts';
+import { StudyResults } from '@/components/studies/study-results';
+import { initialCandidate, readStudyResult, tradeRowTestId } from '@/components/studies/study-result';
+import { designKeys } from '@/hooks/queries/designs';
+import { UnitsProvider } from '@/hooks/use-units';
+// The test computes the demo study with the real engine, so the screen is checked against the very
+// shape the server stores (the app itself never imports server/).
+import { ribStudy } from '@/server/engineering';
+import { renderWeb } from './render-web';
+
+// Whole screens render in jsdom: slower than a unit test, more so when the machine is busy.
+jest.setTimeout(30_000);
+
+// jsdom lays nothing out: give every element a width and report it, so the pictures draw.
+beforeAll(() => {
+  Object.defineProperty(HTMLElement.prototype, 'offsetWidth', { configurable: true, get: () => 640 });
+  Object.defineProperty(HTMLElement.prototype, 'offsetHeight', { configurable: true, get: () => 300 });
+  (window as unknown as { ResizeObserver: unknown }).ResizeObserver = class {
+    constructor(private cb: (entries: { target: Element }[]) => void) {}
+    observe(target: Element) { setTimeout(() => this.cb([{ target }]), 0); }
+    unobserve() {}
+    disconnect() {}
+  };
+});
+
+const KIT = '3f1c9a52-8a1e-4c47-9b7e-2f3a4d5e6f70';
+const inputs = {
+  kit: { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 54, stallSpeedKeas: 47, cruiseSpeedKeas: 118, category: 'utility' as const },
+  airfoil: { kind: 'naca' as const, designation: '2412' },
+  rib: { chordIn: 54, spacingIn: 14.5 },
+  lines: [
+    { name: 'Upper flange', surface: 'upper' as const, startXc: 0.02, endXc: 0.85 },
+    { name: 'Lower flange', surface: 'lower' as const, startXc: 0.02, endXc: 0.85 },
+  ],
+  material: '6061-T6',
+  gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04, 0.05],
+  rivetCandidates: ['PULLED-4', 'MS20470AD3', 'MS20470AD4'],
+  maxPitchDiameters: 8, pitchIncrementIn: 0.125, maxZones: 4,
+};
+const coupons = ([
+  [0.016, 20, 'excessive_deformation'], [0.016, 30, 'excessive_deformation'],
+  [0.02, 13.5, 'no_deformation'], [0.02, 20, 'slight_deformation'], [0.02, 30, 'slight_deformation'],
+] as const).map(([gaugeIn, loadLb, outcome]) => ({ material: '6061-T6', gaugeIn, couponWidthIn: 1, rivetSpec: 'PULLED-4', loadLb, outcome }));
+const result = ribStudy({ ...inputs, coupons });
+
+const detail = (revision = 2): StudyDetail => ({
+  id: 'study-1', kitModelId: KIT, kitName: 'NK-2 Quillon', name: 'Inboard rib', revision, updatedAt: '2026-10-14T10:00:00Z',
+  recommended: result.recommended, inputs, result: result as never,
+  revisions: [{ revision: 1, createdAt: '2026-10-13T10:00:00Z', createdByName: 'Maren' }, { revision: 2, createdAt: '2026-10-14T10:00:00Z', createdByName: 'Maren' }],
+});
+
+const designs: PartDesignSummary[] = [
+  { id: 'd-104', kitModelId: KIT, kitName: 'NK-2', partNumber: 'W-104', name: 'Wing rib, inboard', kind: 'rib', latest: { id: 'r', letter: 'A', status: 'published' }, publishedLetter: 'A' },
+];
+
+async function renderResults(d = detail(), latest = 2, system: 'imperial' | 'metric' = 'imperial') {
+  const qc = new QueryClient({ defaultOptions: { queries: { retry: false, staleTime: Infinity } } });
+  qc.setQueryData(designKeys.list(KIT), designs);
+  const r = renderWeb(
+    <QueryClientProvider client={qc}>
+      <UnitsProvider initial={system}>
+        <StudyResults detail={d} latestRevision={latest} />
+      </UnitsProvider>
+    </QueryClientProvider>,
+  );
+  await r.settle();
+  return r;
+}
+
+describe('reading a stored study result', () => {
+  it('accepts the engine’s result and starts from its recommendation', () => {
+    const r = readStudyResult(result)!;
+    expect(r).not.toBeNull();
+    expect(initialCandidate(r)).toEqual({ gaugeIn: 0.02, rivet: 'PULLED-4' });
+  });
+
+  it('refuses a stored result of another shape instead of drawing nonsense', () => {
+    expect(readStudyResult({ conditions: [] })).toBeNull();
+    expect(readStudyResult(null)).toBeNull();
+  });
+
+  it('names a trade row by the gauge as JavaScript prints it', () => {
+    expect(tradeRowTestId({ gaugeIn: 0.02, rivet: 'PULLED-4' })).toBe('trade-row-0.02-PULLED-4');
+  });
+});
+
+describe('the results of a load study', () => {
+  it('shows the engine’s caution with the result', async () => {
+    const r = await renderResults();
+    expect(r.byTestId('study-caution').textContent).toContain(result.caution);
+  });
+
+  it('marks the recommended row of the trade table and shows it first', async () => {
+    const r = await renderResults();
+    expect(r.byTestId('study-recommended').textContent).toContain('0.020 in');
+    expect(r.byTestId('trade-row-0.02-PULLED-4-recommended')).toBeTruthy();
+    expect(r.byTestId('trade-row-0.02-PULLED-4-chosen')).toBeTruthy();
+    expect(r.allByTestIdPrefix('trade-row-')[0].getAttribute('data-testid')).toBe('trade-row-0.02-PULLED-4');
+  });
+
+  it('draws the rib, the pressure of the chosen condition, the loads and the zones', async () => {
+    const r = await renderResults();
+    expect(r.byTestId('cp-outline')).toBeTruthy();
+    expect(r.byTestId('cp-curve-upper')).toBeTruthy();
+    expect(r.byTestId('allowable-limit')).toBeTruthy();
+    expect(r.byTestId('allowable-ultimate')).toBeTruthy();
+    expect(r.byTestId('zone-0-0')).toBeTruthy();
+    expect(r.byTestId('load-plot-summary').textContent).toContain('every one under both allowables');
+  });
+
+  it('changes the pressure picture with the condition chosen', async () => {
+    const r = await renderResults();
+    const before = r.byTestId('cp-curve-upper').getAttribute('points');
+    await r.press('cp-condition-gust-down-vc');
+    expect(r.byTestId('cp-condition-facts').textContent).toContain('n -2.11');
+    expect(r.byTestId('cp-curve-upper').getAttribute('points')).not.toBe(before);
+  });
+
+  it('shows the candidate tapped in the trade table, with its negative margins marked', async () => {
+    const r = await renderResults();
+    await r.press('trade-row-0.016-PULLED-4');
+    expect(r.byTestId('trade-row-0.016-PULLED-4-chosen')).toBeTruthy();
+    expect(r.byTestId('candidate-reasons').textContent).toContain('does not carry the loads');
+    expect(r.byTestId('zone-ms-limit-0-0').textContent).toContain('✕');
+    expect(r.byTestId('apply-not-feasible')).toBeTruthy();
+  });
+
+  it('sorts the trade table by weight when its header is pressed', async () => {
+    const r = await renderResults();
+    await r.press('sort-weight');
+    const first = r.allByTestIdPrefix('trade-row-').find((e) => /^trade-row-[\d.]+-[A-Z0-9-]+$/.test(e.getAttribute('data-testid')!))!;
+    const lightest = [...result.trade].sort((a, b) => a.totalWeightLb - b.totalWeightLb)[0];
+    expect(first.getAttribute('data-testid')).toBe(tradeRowTestId(lightest));
+  });
+
+  it('offers the kit’s part designs to apply the candidate to', async () => {
+    const r = await renderResults();
+    expect(r.byTestId('apply-design-W-104')).toBeTruthy();
+    expect(r.byTestId('apply-study').getAttribute('aria-disabled')).toBe('true');
+    await r.press('apply-design-W-104');
+    expect(r.byTestId('apply-study').getAttribute('aria-disabled')).not.toBe('true');
+  });
+
+  it('applies only from the latest revision', async () => {
+    const r = await renderResults(detail(1), 2);
+    expect(r.byTestId('apply-latest-only').textContent).toContain('latest revision (2)');
+    expect(r.queryByTestId('apply-study')).toBeNull();
+  });
+
+  it('shows loads in newtons on the metric switch', async () => {
+    const r = await renderResults(detail(), 2, 'metric');
+    expect(r.byTestId('load-plot').textContent).toContain('N');
+    expect(r.byTestId('study-recommended').textContent).toContain('0.51 mm');
+  });
+
+  it('says the server’s refusal plainly when applying fails', async () => {
+    const body = JSON.stringify({ error: { code: 'conflict', message: 'the part design belongs to another kit than the study' } });
+    const fetchMock = jest.fn(async () => ({ ok: false, status: 409, text: async () => body }));
+    const saved = global.fetch;
+    global.fetch = fetchMock as never;
+    try {
+      const r = await renderResults();
+      await r.press('apply-design-W-104');
+      await act(async () => { r.byTestId('apply-study').click(); });
+      await r.settle();
+      expect(r.byTestId('apply-error').textContent).toBe('Not applied: the part design belongs to another kit than the study');
+    } finally {
+      global.fetch = saved;
+    }
+  });
+});
