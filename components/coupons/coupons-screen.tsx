@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
-import { couponOutcomeLabels, type CouponOutcome, type CouponTest } from '@/db/contracts';
+import { couponOutcomeLabels, type CouponAllowance, type CouponOutcome, type CouponTest } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
 import { Caution } from '@/components/ui/caution';
 import { Choice } from '@/components/ui/choice';
@@ -11,11 +11,11 @@ import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Table, type Column, type SortState } from '@/components/ui/table';
 import { Mono, Txt } from '@/components/ui/text';
 import { TwoPane } from '@/components/ui/two-pane';
-import { useCouponsQuery } from '@/hooks/queries/coupons';
+import { useCouponAllowablesQuery, useCouponsQuery } from '@/hooks/queries/coupons';
 import { useUnits } from '@/hooks/use-units';
 import { forceNumber } from '@/components/studies/study-numbers';
 import { CouponForm } from './coupon-form';
-import { ALL, filterCoupons, filterValues, groupCoupons, sortCoupons, type CouponFilters, type CouponGroup, type CouponSortKey } from './coupon-groups';
+import { ALL, filterAllowances, filterCoupons, filterValues, sortCoupons, type CouponFilters, type CouponSortKey } from './coupon-groups';
 
 /** Worse outcomes read darker; the words always say which it is. */
 const outcomeTone: Record<CouponOutcome, 'ink' | 'soft' | 'error'> = {
@@ -23,9 +23,9 @@ const outcomeTone: Record<CouponOutcome, 'ink' | 'soft' | 'error'> = {
 };
 const outcomeMark: Record<CouponOutcome, string> = { no_deformation: '○', slight_deformation: '◐', excessive_deformation: '◉', failure: '✕' };
 
-export const groupTestId = (g: Pick<CouponGroup, 'material' | 'gaugeIn' | 'rivetSpec'>) => `coupon-group-${g.material}-${g.gaugeIn}-${g.rivetSpec}`;
+export const groupTestId = (g: Pick<CouponAllowance, 'material' | 'gaugeIn' | 'rivetSpec'>) => `coupon-group-${g.material}-${g.gaugeIn}-${g.rivetSpec}`;
 
-function Allowables({ groups }: { groups: CouponGroup<CouponTest>[] }) {
+function Allowables({ groups }: { groups: CouponAllowance[] }) {
   const u = useUnits();
   return (
     <View style={{ gap: space.md }} testID="coupon-allowables">
@@ -37,7 +37,7 @@ function Allowables({ groups }: { groups: CouponGroup<CouponTest>[] }) {
         fallback.
       </Txt>
       {groups.length ? groups.map((g) => (
-        <View key={g.key} style={styles.group} testID={groupTestId(g)}>
+        <View key={groupTestId(g)} style={styles.group} testID={groupTestId(g)}>
           <Txt bold>
             <Mono bold>{g.material}</Mono> · <Mono bold>{u.length(g.gaugeIn)}</Mono> · <Mono bold>{g.rivetSpec}</Mono>
             <Txt variant="small" tone="soft"> · {g.tests.length} test{g.tests.length === 1 ? '' : 's'}</Txt>
@@ -64,7 +64,8 @@ export function CouponsScreen() {
   const [sort, setSort] = useState<SortState<CouponSortKey>>({ key: 'tested', dir: 'desc' });
   const values = useMemo(() => filterValues(all), [all]);
   const shown = useMemo(() => sortCoupons(filterCoupons(all, filters), sort), [all, filters, sort]);
-  const groups = useMemo(() => groupCoupons(shown), [shown]);
+  const allowances = useCouponAllowablesQuery();
+  const groups = useMemo(() => filterAllowances(allowances.data ?? [], filters), [allowances.data, filters]);
 
   const lu = u.label('length');
   const fu = u.label('force');
@@ -128,7 +129,9 @@ export function CouponsScreen() {
   const right = (
     <>
       <Section title={filters.material === ALL && filters.gauge === ALL && filters.rivet === ALL ? 'Allowables from the tests' : 'Allowables of the tests shown'}>
-        {q.isSuccess ? <Allowables groups={groups} /> : null}
+        {allowances.isPending ? <LoadingState what="Working out the allowables" />
+          : allowances.isError ? <ErrorState error={allowances.error} onRetry={() => void allowances.refetch()} />
+            : <Allowables groups={groups} />}
         <Caution testID="coupon-caution" />
       </Section>
       <Section title="Record a test">

@@ -20,3 +20,9 @@ export const couponInput = z.object({
 export type CouponInput = z.input<typeof couponInput>;
 
 export type CouponTest = z.output<typeof couponInput> & { id: string; createdAt: string; createdByName: string };
+
+/** A (material, gauge, rivet) with its tests and the pull-through allowables studies take from them. */
+export type CouponAllowance = {
+  material: string; gaugeIn: number; rivetSpec: string; tests: CouponTest[];
+  limitLb: number; ultimateLb: number; warnings: string[];
+};

@@ -1,18 +1,25 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { CouponInput, CouponTest } from '@/db/contracts';
+import type { CouponAllowance, CouponInput, CouponTest } from '@/db/contracts';
 import { api } from '../api-client';
 
 export const couponKeys = {
   all: ['coupons'] as const,
   list: () => [...couponKeys.all, 'list'] as const,
+  allowables: () => [...couponKeys.all, 'allowables'] as const,
 };
 
 export const couponQueries = {
   list: () => queryOptions({ queryKey: couponKeys.list(), queryFn: ({ signal }) => api.get<CouponTest[]>('/api/coupons', signal) }),
+  allowables: () => queryOptions({ queryKey: couponKeys.allowables(), queryFn: ({ signal }) => api.get<CouponAllowance[]>('/api/coupons/allowables', signal) }),
 };
 
 export function useCouponsQuery() {
   return useQuery(couponQueries.list());
+}
+
+/** The allowables per material, gauge and rivet, derived on the server by the engine's own rule. */
+export function useCouponAllowablesQuery() {
+  return useQuery(couponQueries.allowables());
 }
 
 /** A new test changes the derived allowables; studies use them the next time they are computed. */

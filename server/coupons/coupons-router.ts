@@ -10,6 +10,7 @@ export function couponsRouter(ctx: AppContext): Router {
   const coupons = couponsService(ctx.db);
   r.use(requireRole('supplier'));
   r.get('/', async (req, res) => { res.json(await coupons.list(req.user!)); });
+  r.get('/allowables', async (req, res) => { res.json(await coupons.allowables(req.user!)); });
   r.post('/', validateBody(couponInput), async (req, res) => { res.status(201).json(await coupons.create(req.user!, req.body)); });
   return r;
 }

@@ -1,4 +1,5 @@
-import type { CouponTest } from '../../db/contracts';
+import type { CouponAllowance, CouponTest } from '../../db/contracts';
+import { groupCouponAllowables } from '../engineering';
 import type { Db } from '../../db';
 import { forbidden } from '../http-error';
 import { insertCoupon, listCoupons } from './coupons-repository';
@@ -14,6 +15,10 @@ export const couponsService = (db: Db) => {
     (await listCoupons(db, orgOf(user), filter)).map((c) => ({ ...c, createdAt: c.createdAt.toISOString() }));
   return {
     list,
+    /** The allowables exactly as a study will derive them, grouped for the coupon table. */
+    async allowables(user: Express.User): Promise<CouponAllowance[]> {
+      return groupCouponAllowables(await list(user));
+    },
     async create(user: Express.User, body: CouponBody) {
       const id = await insertCoupon(db, { ...body, organizationId: orgOf(user), createdBy: user.id });
       return (await list(user)).find((c) => c.id === id)!;

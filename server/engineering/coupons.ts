@@ -91,3 +91,34 @@ export function couponAllowables(tests: CouponTest[], query: CouponQuery): Coupo
   if (ultimateLb === 0) warnings.push(`no coupon of ${label} carried its load without excessive deformation or failure: ultimate allowable 0`);
   return { ...envelope({ ...query, tests: all }, COUPON_RULES, warnings), matched, limitLb, ultimateLb };
 }
+
+export interface CouponGroup<T extends CouponTest = CouponTest> {
+  material: string;
+  gaugeIn: number;
+  rivetSpec: string;
+  /** the group's tests by load */
+  tests: T[];
+  limitLb: number;
+  ultimateLb: number;
+  warnings: string[];
+}
+
+/**
+ * Every (material, stock gauge, rivet) the tests cover, with the allowables a study takes from them:
+ * the supplier's coupon table and the study read the same numbers.
+ */
+export function groupCouponAllowables<T extends CouponTest>(tests: T[]): CouponGroup<T>[] {
+  const groups: CouponGroup<T>[] = [];
+  for (const t of tests) {
+    const g = groups.find((x) => matchesCoupon(t, x));
+    if (g) g.tests.push(t);
+    else groups.push({ material: t.material.trim(), gaugeIn: t.gaugeIn, rivetSpec: t.rivetSpec.trim(), tests: [t], limitLb: 0, ultimateLb: 0, warnings: [] });
+  }
+  for (const g of groups) {
+    const a = couponAllowables(g.tests, g);
+    g.tests.sort((x, y) => x.loadLb - y.loadLb);
+    Object.assign(g, { limitLb: a.limitLb ?? 0, ultimateLb: a.ultimateLb ?? 0, warnings: a.warnings });
+  }
+  const key = (s: string) => s.toUpperCase();
+  return groups.sort((a, b) => key(a.material).localeCompare(key(b.material)) || a.gaugeIn - b.gaugeIn || key(a.rivetSpec).localeCompare(key(b.rivetSpec)));
+}

@@ -67,10 +67,12 @@ export { findMaterial, findRivet, findRivetByCallout, nextRivetSize, MATERIALS, 
 export { layoutRules, rivetLengthDash, rivetLengthIn, rivetWeightLb, transversePitchIn, type LayoutRules } from './layout';
 export {
   couponAllowables,
+  groupCouponAllowables,
   validateCoupons,
   validateCouponTest,
   COUPON_OUTCOMES,
   type CouponAllowables,
+  type CouponGroup,
   type CouponOutcome,
   type CouponTest,
 } from './coupons';

@@ -78,6 +78,15 @@ describe('load studies', () => {
     expect(res.status).toBe(409);
   });
 
+  it("lists the coupon allowables a study uses: 0.020 in 13.5 lb limit, 30 lb ultimate; 0.016 in nothing (common practice)", async () => {
+    const res = await request(t.app).get('/api/coupons/allowables').set(auth(tok.supplier));
+    expect(res.status).toBe(200);
+    const at = (g: number) => res.body.find((a: { gaugeIn: number }) => Math.abs(a.gaugeIn - g) < 1e-6);
+    expect(at(0.02)).toMatchObject({ material: '6061-T6', rivetSpec: 'PULLED-4', limitLb: 13.5, ultimateLb: 30 });
+    expect(at(0.016)).toMatchObject({ limitLb: 0, ultimateLb: 0 });
+    expect(at(0.02).tests).toHaveLength(3);
+  });
+
   it('keeps load studies from builders', async () => {
     expect((await request(t.app).get('/api/studies').set(auth(tok.builder))).status).toBe(403);
   });
