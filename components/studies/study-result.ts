@@ -1,131 +1,17 @@
+import type {
+  AllowableSummary, CpSample, EnvelopePoint, LineLoads, LineSchedule, RibStudyResult, ScheduleHole, ScheduleZone,
+  StudyCandidate, StudyCondition, TradeRow,
+} from '@/db/contracts';
+
 /**
- * The stored result of a rib study, as the screen reads it. The engine's own types live in
- * server/engineering/rib-study.ts, which the app may not import; this is the part of that shape the
- * pictures and tables use (in, lb, psi, KEAS). `readStudyResult` checks it before anything is drawn.
+ * The stored result of a rib study as the screen reads it: the engine's own types (in, lb, psi, KEAS),
+ * less what the pictures do not use. `readStudyResult` checks it before anything is drawn.
  */
+export type { CpSample, EnvelopePoint, LineLoads, LineSchedule, ScheduleHole, ScheduleZone, StudyCandidate, StudyCondition, TradeRow };
 export type Pt = [number, number];
-
-export type CpSample = { xc: number; cp: number };
-
-export type StudyCondition = {
-  id: string;
-  label: string;
-  kind: 'maneuver' | 'gust';
-  n: number;
-  speedKeas: number;
-  qPsi: number;
-  clNeeded: number;
-  alphaDeg: number;
-  pressureSource: string;
-  cp: { upper: CpSample[]; lower: CpSample[] };
-};
-
-export type EnvelopePoint = { stationIn: number; xc: number; xIn: number; yIn: number; limitLbPerIn: number; ultimateLbPerIn: number; governing: string | null };
-
-export type LineLoads = {
-  name: string;
-  surface: 'upper' | 'lower';
-  startXc: number;
-  endXc: number;
-  holePrefix: string;
-  lengthIn: number;
-  fromStationIn: number;
-  toStationIn: number;
-  envelope: EnvelopePoint[];
-};
-
-export type ScheduleZone = {
-  fromIn: number;
-  toIn: number;
-  fromAlongIn: number;
-  toAlongIn: number;
-  pitchIn: number;
-  count: number;
-  worstStationIn: number;
-  worstHoleId: string | null;
-  appliedLimitLb: number;
-  appliedUltimateLb: number;
-  limitAllowableLb: number;
-  ultimateAllowableLb: number;
-  msLimit: number | null;
-  msUltimate: number | null;
-};
-
-export type ScheduleHole = {
-  id: string;
-  stationIn: number;
-  xIn?: number;
-  yIn?: number;
-  zone: number;
-  appliedLimitLb: number;
-  appliedUltimateLb: number;
-  msLimit: number | null;
-  msUltimate: number | null;
-};
-
-export type Allowables = {
-  tensionLimitLb: number;
-  tensionUltimateLb: number;
-  tensionBasis: 'coupons' | 'fallback';
-  tensionGoverning?: string;
-};
-
-export type LineSchedule = {
-  line: string;
-  rivetSpec: string;
-  drill: { name: string; diameterIn: number };
-  gaugeIn: number;
-  feasible: boolean;
-  reasons: string[];
-  lengthIn: number;
-  layout: { edgeDistanceIn: number; minPitchIn: number; maxPitchIn: number; pitchIncrementIn: number };
-  allowables: Allowables;
-  zones: ScheduleZone[];
-  holes: ScheduleHole[];
-  insufficient?: { fromIn: number; toIn: number; neededPitchIn: number }[];
-  warnings?: string[];
-};
-
-export type StudyCandidate = {
-  gaugeIn: number;
-  rivet: string;
-  feasible: boolean;
-  reasons: string[];
-  warnings: string[];
-  pullThroughBasis: 'coupons' | 'fallback';
-  flangeWidthIn: number;
-  lines: LineSchedule[];
-};
-
-export type TradeRow = {
-  gaugeIn: number;
-  rivet: string;
-  feasible: boolean;
-  rivetCount: number;
-  flangeWeightLb: number;
-  webWeightLb?: number;
-  rivetWeightLb: number;
-  totalWeightLb: number;
-  buildMinutes: number;
-  pullThroughBasis?: 'coupons' | 'fallback';
-  rank: number | null;
-};
-
+export type Allowables = AllowableSummary;
 export type CandidateKey = { gaugeIn: number; rivet: string };
-
-export type StudyResult = {
-  conditions: StudyCondition[];
-  outline: { chordIn: number; points: Pt[] };
-  airfoil?: { name: string; panels: number };
-  design?: { wingLoadingPsf: number; loadFactors: { positive: number; negative: number }; speeds: Record<string, number> };
-  lines: LineLoads[];
-  candidates: StudyCandidate[];
-  trade: TradeRow[];
-  recommended: CandidateKey | null;
-  rules: string[];
-  warnings: string[];
-  caution: string;
-};
+export type StudyResult = Pick<RibStudyResult, 'conditions' | 'outline' | 'airfoil' | 'design' | 'lines' | 'candidates' | 'trade' | 'recommended' | 'rules' | 'warnings' | 'caution'>;
 
 const isArr = (v: unknown): v is unknown[] => Array.isArray(v);
 

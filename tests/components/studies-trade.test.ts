@@ -4,7 +4,7 @@ import { forceNumber, marginText, partWeight, pitchNumber } from '@/components/s
 import { nextTradeSort, sortTrade } from '@/components/studies/trade-sort';
 
 const row = (gaugeIn: number, rivet: string, rank: number | null, totalWeightLb: number, buildMinutes: number): TradeRow => ({
-  gaugeIn, rivet, feasible: rank !== null, rivetCount: Math.round(buildMinutes), flangeWeightLb: 0, rivetWeightLb: 0, totalWeightLb, buildMinutes, rank,
+  gaugeIn, rivet, feasible: rank !== null, rivetCount: Math.round(buildMinutes), flangeWeightLb: 0, webWeightLb: 0, rivetWeightLb: 0, totalWeightLb, buildMinutes, rank, pullThroughBasis: 'coupons',
 });
 const rows = [row(0.016, 'PULLED-4', null, 0.58, 239), row(0.02, 'PULLED-4', 1, 0.61, 92), row(0.016, 'MS20470AD3', 2, 0.45, 187), row(0.025, 'MS20470AD4', 3, 0.74, 138)];
 
