@@ -2,22 +2,13 @@ import {
   buildAirfoil,
   closeTrailingEdge,
   cosineSpacing,
-  EngineeringInputError,
   nacaGeometry,
   normaliseCoordinates,
   parseNacaDesignation,
   type Point,
 } from '@/server/engineering';
+import { refusal } from './refusal';
 
-function refusal(run: () => unknown): EngineeringInputError {
-  try {
-    run();
-  } catch (e) {
-    if (e instanceof EngineeringInputError) return e;
-    throw e;
-  }
-  throw new Error('expected the engine to refuse the input');
-}
 
 const naca2412 = nacaGeometry('2412', 60).points;
 

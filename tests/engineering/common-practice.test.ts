@@ -5,7 +5,6 @@
 import {
   designConditions,
   dynamicPressurePsi,
-  EngineeringInputError,
   findRivet,
   jointAllowables,
   maneuveringSpeedKeas,
@@ -18,16 +17,8 @@ import {
   type RibStudyInput,
   type StationLoad,
 } from '@/server/engineering';
+import { refusal } from './refusal';
 
-function refusal(run: () => unknown): EngineeringInputError {
-  try {
-    run();
-  } catch (e) {
-    if (e instanceof EngineeringInputError) return e;
-    throw e;
-  }
-  throw new Error('expected the engine to refuse the input');
-}
 
 // common practice: the coupons of issue 3 for 6061-T6 flanges with a 1/8 in pulled rivet.
 const coupons: CouponTest[] = [

@@ -1,16 +1,8 @@
-import { designConditions, dynamicPressurePsi, EngineeringInputError, estimatedWingLiftSlope, gustVelocitiesFps, type KitInput } from '@/server/engineering';
+import { designConditions, dynamicPressurePsi, estimatedWingLiftSlope, gustVelocitiesFps, type KitInput } from '@/server/engineering';
+import { refusal } from './refusal';
 
 const kit: KitInput = { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 58, liftSlopePerRad: 4.8, stallSpeedKeas: 45, category: 'normal' };
 
-function refusal(run: () => unknown): EngineeringInputError {
-  try {
-    run();
-  } catch (e) {
-    if (e instanceof EngineeringInputError) return e;
-    throw e;
-  }
-  throw new Error('expected the engine to refuse the input');
-}
 
 describe('design conditions of a kit', () => {
   const d = designConditions(kit);

@@ -1,4 +1,5 @@
-import { EngineeringInputError, pitchSchedule, type PitchScheduleInput, type PitchScheduleResult, type StationLoad } from '@/server/engineering';
+import { pitchSchedule, type PitchScheduleInput, type PitchScheduleResult, type StationLoad } from '@/server/engineering';
+import { refusal } from './refusal';
 
 /** Stations every 0.05 in along a straight line of the given length, with the pull w(x) in lb/in. */
 function line(lengthIn: number, pull: (x: number) => number, shear = 0): StationLoad[] {
@@ -22,15 +23,6 @@ const base: Omit<PitchScheduleInput, 'stations'> = {
 // A suction that falls off from the nose aft, as on a lifting upper surface.
 const fallingOff = (x: number) => 40 * Math.exp(-x / 6) + 4;
 
-function refusal(run: () => unknown): EngineeringInputError {
-  try {
-    run();
-  } catch (e) {
-    if (e instanceof EngineeringInputError) return e;
-    throw e;
-  }
-  throw new Error('expected the engine to refuse the input');
-}
 
 /** The largest pull anywhere between two neighbouring holes, from the stations themselves. */
 function largestPullBetween(stations: StationLoad[], a: number, b: number): number {

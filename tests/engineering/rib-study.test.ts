@@ -1,12 +1,12 @@
 import {
   buildAirfoil,
   ENGINEERING_CAUTION,
-  EngineeringInputError,
   ribStudy,
   suctionIntensityLbPerIn,
   cpOnSurface,
   type RibStudyInput,
 } from '@/server/engineering';
+import { refusal } from './refusal';
 
 const input: RibStudyInput = {
   kit: { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 58, stallSpeedKeas: 45, cruiseSpeedKeas: 110, category: 'utility' },
@@ -29,15 +29,6 @@ const input: RibStudyInput = {
   ],
 };
 
-function refusal(run: () => unknown): EngineeringInputError {
-  try {
-    run();
-  } catch (e) {
-    if (e instanceof EngineeringInputError) return e;
-    throw e;
-  }
-  throw new Error('expected the engine to refuse the input');
-}
 
 describe('a rib study', () => {
   const study = ribStudy(input);
