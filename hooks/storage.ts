@@ -5,6 +5,7 @@ export const storageKeys = {
   session: 'pitchcard.session',
   units: 'pitchcard.units',
   findingDraft: (travelerId: string) => `pitchcard.finding-draft.${travelerId}`,
+  tickOutbox: 'pitchcard.tick-outbox',
 } as const;
 
 export async function readJson<T>(key: string): Promise<T | null> {

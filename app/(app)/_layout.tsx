@@ -3,12 +3,14 @@ import { colors, fonts, hairline } from '@/constants/theme';
 import { allTabRoutes, tabsFor } from '@/components/navigation/role-tabs';
 import { TabIcon } from '@/components/navigation/tab-icon';
 import { useRole } from '@/hooks/use-session';
+import { useTickOutboxSender } from '@/hooks/use-tick-outbox';
 import { useWide } from '@/hooks/use-wide';
 
 export const unstable_settings = { initialRouteName: 'index' };
 
 export default function AppLayout() {
   const role = useRole();
+  useTickOutboxSender();
   const wide = useWide();
   const shown = tabsFor(role);
   return (

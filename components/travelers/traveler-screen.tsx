@@ -14,6 +14,7 @@ import { Mono, Txt } from '@/components/ui/text';
 import { TwoPane } from '@/components/ui/two-pane';
 import { errorMessage } from '@/hooks/api-client';
 import { useTravelerQuery, useTravelerSignOffMutation, useTravelerStepMutation, useTravelerTickMutation } from '@/hooks/queries/travelers';
+import { usePendingTicks } from '@/hooks/use-tick-outbox';
 import { useFlash } from '@/hooks/use-flash';
 import { useRole } from '@/hooks/use-session';
 import { useUnits } from '@/hooks/use-units';
@@ -41,6 +42,7 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
   const role = useRole();
   const units = useUnits();
   const tick = useTravelerTickMutation(t.id);
+  const waiting = usePendingTicks(t.id);
   const step = useTravelerStepMutation(t.id);
   const signOff = useTravelerSignOffMutation(t.id);
 
@@ -140,6 +142,17 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
             <Button label="See the finding" variant="quiet" compact onPress={() => { clearSent(); router.push(`/findings/${sentFindingId}`); }} testID="open-sent-finding" />
             <Button label="OK" variant="quiet" compact onPress={clearSent} testID="dismiss-sent" />
           </View>
+        </Notice>
+      ) : null}
+      {waiting.pending.length ? (
+        <Notice tone="caution" testID="ticks-waiting">
+          {`${waiting.pending.length} tick${waiting.pending.length === 1 ? '' : 's'} waiting for signal: kept on this device and sent as soon as the server answers.`}
+        </Notice>
+      ) : null}
+      {waiting.refused ? (
+        <Notice tone="error" testID="tick-refused">
+          <Txt tone="error">{waiting.refused}</Txt>
+          <Button label="OK" variant="quiet" compact onPress={waiting.clearRefused} testID="dismiss-tick-refused" />
         </Notice>
       ) : null}
       <ProgressBar done={done} total={t.holes.length} />

@@ -1,6 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { doneStatuses, type Hole, type TickHolesInput, type TravelerDetail, type TravelerSummary } from '@/db/contracts';
-import { api } from '../api-client';
+import { api, ApiError } from '../api-client';
+import { queueTick, readOutbox, withPendingTicks } from '../tick-outbox';
 
 export type TravelerStep = TravelerDetail['steps'][number];
 
@@ -18,7 +19,9 @@ export const travelerQueries = {
   list: () => queryOptions({ queryKey: travelerKeys.list(), queryFn: ({ signal }) => api.get<TravelerSummary[]>('/api/travelers', signal) }),
   detail: (id: string) => queryOptions({
     queryKey: travelerKeys.detail(id),
-    queryFn: ({ signal }) => api.get<TravelerDetail>(`/api/travelers/${encodeURIComponent(id)}`, signal),
+    // Ticks still waiting on the device are shown as made, whatever the server has seen so far.
+    queryFn: async ({ signal }) => withPendingTicks(
+      await api.get<TravelerDetail>(`/api/travelers/${encodeURIComponent(id)}`, signal), await readOutbox(), applyTick),
   }),
   lookup: (code: string) => queryOptions({
     queryKey: travelerKeys.lookup(code),
@@ -63,14 +66,31 @@ function mergeHoles(detail: TravelerDetail, changed: Hole[]): TravelerDetail {
   return { ...detail, holes, holesDone: countDone(holes) };
 }
 
-/** Ticking holes: shown at once (optimistic), rolled back with a message if the server refuses. */
+export const postTick = (travelerId: string, input: TickHolesInput) =>
+  api.post<{ holes: Hole[] }>(`/api/travelers/${encodeURIComponent(travelerId)}/holes`, { holeIds: input.holeIds, status: input.status });
+
+/**
+ * Ticking holes: shown at once (optimistic), rolled back with a message if the server refuses. With no
+ * signal the tick is not rolled back: it waits on the device and is sent when the signal returns.
+ */
 export function useTravelerTickMutation(travelerId: string) {
   const qc = useQueryClient();
   const key = travelerKeys.detail(travelerId);
   return useMutation({
     mutationKey: travelerKeys.tick(travelerId),
-    mutationFn: (input: TickHolesInput) =>
-      api.post<{ holes: Hole[] }>(`/api/travelers/${encodeURIComponent(travelerId)}/holes`, input),
+    // Run even when the browser says it is offline: the tick then goes to the device's outbox at once
+    // instead of waiting in memory, where a reload would lose it.
+    networkMode: 'always',
+    retry: false,
+    mutationFn: async (input: TickHolesInput): Promise<{ holes: Hole[]; queued?: true }> => {
+      try {
+        return await postTick(travelerId, input);
+      } catch (e) {
+        if (!(e instanceof ApiError && e.isNetwork)) throw e;
+        await queueTick(travelerId, input);
+        return { holes: [], queued: true };
+      }
+    },
     onMutate: async (input) => {
       await qc.cancelQueries({ queryKey: key });
       const previous = qc.getQueryData<TravelerDetail>(key);

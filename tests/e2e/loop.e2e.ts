@@ -6,6 +6,7 @@ import path from 'node:path';
 import jsQR from 'jsqr';
 import type { Browser, Page } from 'playwright-core';
 import sharp from 'sharp';
+import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 import { launchBrowser, phonePage } from './helpers/browser';
@@ -156,6 +157,18 @@ describe('the loop in a real browser at phone size', () => {
     await page.getByTestId('hole-U-05').click();
     await page.getByTestId('tick-run').click();
     await until(() => page.getByTestId('progress-count').textContent(), (v) => /^5\b/.test(v ?? ''));
+
+    // No signal at the bench: the tick stays as made, waits on the device, and reaches the server later.
+    await page.context().setOffline(true);
+    await page.getByTestId('hole-U-06').click();
+    await page.getByTestId('ticks-waiting').waitFor({ timeout: 15000 });
+    expect(await page.getByTestId('hole-U-06').getAttribute('aria-checked')).toBe('true');
+    await page.context().setOffline(false);
+    await page.getByTestId('ticks-waiting').waitFor({ state: 'detached', timeout: 30000 });
+    const token = await t.signIn(DEMO_USERS.builder.email);
+    const lookup = await request(t.app).get('/api/travelers/lookup').query({ code: qrText }).set({ Authorization: `Bearer ${token}` });
+    const saved = await request(t.app).get(`/api/travelers/${lookup.body.id}`).set({ Authorization: `Bearer ${token}` });
+    expect(saved.body.holes.find((h: { holeId: string }) => h.holeId === 'U-06').status).toBe('installed');
 
     const photo = path.join(work, 'hole.jpg');
     await writeFile(photo, await sharp({ create: { width: 640, height: 480, channels: 3, background: '#8a9096' } }).jpeg().toBuffer());
