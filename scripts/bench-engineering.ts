@@ -12,7 +12,7 @@ const WARM_UP = 5;
 const RUNS = 21;
 const TARGET_MS = 100;
 
-/** A light two-seat kit's inner wing rib, as in the issue: 1320 lb, 14.5 in rib spacing, pulled rivets. */
+/** A light two-seat kit's inner wing rib, a typical case: 1320 lb, 14.5 in rib spacing, pulled rivets. */
 const study = (panels: number): RibStudyInput => ({
   kit: { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 58, stallSpeedKeas: 45, cruiseSpeedKeas: 110, category: 'utility' },
   airfoil: { kind: 'naca', designation: '23015' },

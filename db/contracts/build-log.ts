@@ -43,7 +43,7 @@ export function expandKindFilter(filter: readonly (BuildLogKind | BuildLogGroup)
   return [...out];
 }
 
-/** The caution every exported log carries (PRODUCT.md, Safety). */
+/** The caution every exported log carries (the product's safety caution). */
 export const buildLogCaution =
   'This log is a record kept with an aid. It is not certification and does not show that the aircraft is airworthy. ' +
   'The supplier’s approved data, the applicable airworthiness rules and your local authority govern; ' +

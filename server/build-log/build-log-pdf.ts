@@ -128,7 +128,7 @@ export function renderLogPdf(log: BuildLog, opts: PdfOptions): Promise<Buffer> {
   doc.save().rect(M.left, blockTop, CONTENT_W, y - blockTop).lineWidth(1).strokeColor(C.ink).stroke().restore();
   y += 10;
 
-  // ── Caution (PRODUCT.md, Safety) ─────────────────────────────────────────────────────────────────
+  // ── Caution (the product's safety caution) ─────────────────────────────────────────────────────────────────
   const cautionH = doc.font('text').fontSize(8.5).heightOfString(buildLogCaution, { width: CONTENT_W - 24 }) + 22;
   doc.save().rect(M.left, y, CONTENT_W, cautionH).fill(C.cautionSoft).restore();
   doc.save().rect(M.left, y, 3, cautionH).fill(C.caution).restore();

@@ -3,8 +3,8 @@ import { envelope, type EngineeringResult } from './result';
 import { requireArray, requireOneOf, requirePositive } from './validate';
 
 /**
- * Pull-through allowables of a rivet in a thin flange, from the supplier's coupon tests (ENGINEERING.md
- * step 6, with 14 CFR 23.305's two criteria):
+ * Pull-through allowables of a rivet in a thin flange, from the supplier's coupon tests (step 6 of the
+ * chain, with 14 CFR 23.305's two criteria):
  * - limit allowable: the highest load that left no permanent deformation;
  * - ultimate allowable: the highest load carried without failure, slight deformation allowed.
  * Excessive deformation is not acceptable at ultimate either: it counts like a failure. A good result

@@ -12,7 +12,7 @@ import { groupIntoZones, placeHoles, type Zone } from './zoning';
 export { prepareStations, type PreparedLine, type StationLoad } from './station-loads';
 
 /**
- * The pitch schedule of one fastener line (ENGINEERING.md step 7): the pitch each station needs, clamped
+ * The pitch schedule of one fastener line (step 7 of the chain): the pitch each station needs, clamped
  * to the layout rules and rounded down to a practical increment; the stations grouped into a few zones
  * whose pitch never exceeds what any station in the zone needs; holes placed from the line's ends at the
  * edge distance; and, per zone, the worst rivet's loads, allowables and margins.

@@ -1,6 +1,6 @@
 /**
  * What every engineering result carries, so that a stored result can always be read back with the
- * numbers it came from, the rules it applied, what to be wary of, and the caution of PRODUCT.md "Safety".
+ * numbers it came from, the rules it applied, what to be wary of, and the product's safety caution.
  */
 export const ENGINEERING_CAUTION =
   'An aid only: the kit supplier\'s approved data and the applicable airworthiness rules and local ' +

@@ -8,7 +8,7 @@ import { ULTIMATE_FACTOR } from './rivet-loads';
 import { requireFinite, requireNonNegative, requirePositive } from './validate';
 
 /**
- * The inspector's question (ENGINEERING.md step 9): can this hole be drilled out for the next rivet size?
+ * The inspector's question (step 9 of the chain): can this hole be drilled out for the next rivet size?
  * New drill; edge distance ≥ 2D (2.5D countersunk) and pitch to both neighbours ≥ 3D of the new
  * diameter; the new shear, bearing and tension margins; pass or fail with reasons, and when it fails
  * the alternative.

@@ -16,7 +16,7 @@ import { radToDeg } from './units';
 import { requireArray, requireInRange, requireOneOf, requirePositive } from './validate';
 
 /**
- * The whole chain for one rib (ENGINEERING.md steps 1–8): kit data → flight conditions → airfoil →
+ * The whole chain for one rib (step 1–8 of the chain): kit data → flight conditions → airfoil →
  * pressure for each condition → pull along each fastener line → pitch schedules for every gauge × rivet
  * candidate → trade table → recommendation. Plain JSON in and out: the server stores both as jsonb.
  */

@@ -2,7 +2,7 @@ import { EngineeringInputError } from './errors';
 import { requireFinite, requireNonNegative, requirePositive } from './validate';
 
 /**
- * Loads on a rib's fastener line (ENGINEERING.md step 5). Where the outside surface sees suction the
+ * Loads on a rib's fastener line (step 5 of the chain). Where the outside surface sees suction the
  * skin pulls on the rib: per rivet T = max(0, Cp,int − Cp)·q·s·b, with s the pitch and b the tributary
  * width (half the bay each side of the rib; the rib spacing for an inner rib). Pressures in psi, lengths
  * in inches, loads in lb. Ultimate = 1.5 × limit (14 CFR 23.303).

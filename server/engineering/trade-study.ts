@@ -1,7 +1,7 @@
 import { envelope, type EngineeringResult } from './result';
 
 /**
- * Gauge and rivet trade study (ENGINEERING.md step 8): every candidate with its feasibility, rivet count,
+ * Gauge and rivet trade study (step 8 of the chain): every candidate with its feasibility, rivet count,
  * weights and a build-time proxy; feasible ones ranked (lightest first, or quickest to build), and the
  * best recommended.
  */

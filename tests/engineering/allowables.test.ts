@@ -57,8 +57,8 @@ describe('joint allowables', () => {
     expect(a.warnings.join(' ')).toMatch(/no coupon data for 0.025 in 6061-T6 with MS20470AD4: pull-through allowable is a conservative fraction \(8 %\)/);
   });
 
-  it('fall back below what the issue\'s coupons showed: under 13.5 lb limit in 0.020 in and under 20 lb ultimate in 0.016 in', () => {
-    // common practice (issue 3's coupons): the fallback must not be bolder than the tests.
+  it('fall back below what the trade\'s coupons showed: under 13.5 lb limit in 0.020 in and under 20 lb ultimate in 0.016 in', () => {
+    // common practice (the trade's coupon results): the fallback must not be bolder than the tests.
     expect(jointAllowables({ material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'PULLED-4' }).tension.limitLb).toBeLessThan(13.5);
     expect(jointAllowables({ material: '6061-T6', gaugeIn: 0.016, rivetSpec: 'PULLED-4' }).tension.ultimateLb).toBeLessThan(20);
     expect(jointAllowables({ material: '6061-T6', gaugeIn: 0.016, rivetSpec: 'MS20470AD4' }).tension.ultimateLb).toBeLessThan(20);

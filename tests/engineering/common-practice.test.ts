@@ -1,5 +1,5 @@
 /**
- * The facts of the trade issue 3 gives as check values. They come with no published source: each is
+ * The facts of the trade used as check values. They come with no published source: each is
  * marked "common practice".
  */
 import {
@@ -20,7 +20,7 @@ import {
 import { refusal } from './refusal';
 
 
-// common practice: the coupons of issue 3 for 6061-T6 flanges with a 1/8 in pulled rivet.
+// common practice: the trade's coupon results for 6061-T6 flanges with a 1/8 in pulled rivet.
 const coupons: CouponTest[] = [
   { material: '6061-T6', gaugeIn: 0.016, rivetSpec: 'PULLED-4', loadLb: 20, outcome: 'excessive_deformation', note: 'hole elongated' },
   { material: '6061-T6', gaugeIn: 0.016, rivetSpec: 'PULLED-4', loadLb: 30, outcome: 'excessive_deformation' },
@@ -60,7 +60,7 @@ describe('the per-rivet suction load p × pitch × rib spacing', () => {
 });
 
 describe('coupon outcomes for 6061-T6 flanges', () => {
-  // common practice (issue 3's coupons)
+  // common practice (the trade's coupon results)
   const at = (gaugeIn: number) => jointAllowables({ material: '6061-T6', gaugeIn, rivetSpec: 'PULLED-4', coupons });
 
   it('give 0.016 in no allowable at all: 20–30 lb deformed the hole excessively', () => {
