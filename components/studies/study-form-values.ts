@@ -116,11 +116,11 @@ function structuredCloneSafe<T>(v: T): T {
 const PLACED = new Set([
   'kitModelId', 'name',
   'inputs.kit.weightLb', 'inputs.kit.wingAreaSqFt', 'inputs.kit.meanChordIn', 'inputs.kit.stallSpeedKeas', 'inputs.kit.cruiseSpeedKeas',
-  'inputs.kit.diveSpeedKeas', 'inputs.kit.category', 'inputs.kit.altitudeFt',
+  'inputs.kit.diveSpeedKeas', 'inputs.kit.category', 'inputs.kit.altitudeFt', 'inputs.kit.liftSlopePerRad',
   'inputs.airfoil', 'inputs.airfoil.designation', 'inputs.airfoil.points', 'inputs.airfoil.name',
   'inputs.rib.chordIn', 'inputs.rib.spacingIn', 'inputs.rib.internalCp', 'inputs.rib.flangeWidthIn',
   'inputs.lines', 'inputs.material', 'inputs.gaugeCandidates', 'inputs.rivetCandidates',
-  'inputs.maxPitchDiameters', 'inputs.pitchIncrementIn', 'inputs.maxZones', 'inputs.rankBy',
+  'inputs.maxPitchDiameters', 'inputs.pitchIncrementIn', 'inputs.maxZones', 'inputs.rankBy', 'inputs.minutesPerHole', 'inputs.panels',
 ]);
 const LINE_FIELDS = new Set(['name', 'surface', 'startXc', 'endXc']);
 

@@ -126,6 +126,7 @@ export function StudyForm({ kits, defaultValues, isNew, submitLabel, onSubmit, n
         />
         <Row>
           <Cell><FormNumberField control={control} name="inputs.kit.altitudeFt" label="Altitude of the gust cases" unit="ft" hint="Blank: sea level" testID="study-altitude" /></Cell>
+          <Cell><FormNumberField control={control} name="inputs.kit.liftSlopePerRad" label="Wing lift slope" unit="per rad" hint="Blank: estimated from the aspect ratio" testID="study-lift-slope" /></Cell>
         </Row>
         <Txt variant="small" tone="faint">Speeds in knots equivalent airspeed and altitude in feet, as flight data are given in every unit system.</Txt>
       </Section>
@@ -230,6 +231,10 @@ export function StudyForm({ kits, defaultValues, isNew, submitLabel, onSubmit, n
           <Cell><FormNumberField control={control} name="inputs.maxPitchDiameters" label="Largest pitch" unit="D" hint="In rivet diameters, 4 to 16" testID="study-max-pitch" /></Cell>
           <Cell><FormNumberField control={control} name="inputs.pitchIncrementIn" label="Pitch rounded to" quantity="length" hint="The pitch steps down in these" testID="study-pitch-increment" /></Cell>
           <Cell><FormNumberField control={control} name="inputs.maxZones" label="Zones per line, at most" unit="zones" testID="study-max-zones" /></Cell>
+        </Row>
+        <Row>
+          <Cell><FormNumberField control={control} name="inputs.minutesPerHole" label="Minutes per hole" unit="min" hint="For the build-time column; blank: 1.5 solid, 1.0 pulled" testID="study-minutes-per-hole" /></Cell>
+          <Cell><FormNumberField control={control} name="inputs.panels" label="Panels on the airfoil" unit="panels" hint="Even, 40 to 400; blank: 160" testID="study-panels" /></Cell>
         </Row>
         <FormChoiceField
           control={control}

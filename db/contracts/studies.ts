@@ -58,8 +58,15 @@ export const ribStudyInputSchema = z.object({
   maxPitchDiameters: num('maximum pitch').min(4, 'maximum pitch below 4D leaves no room').max(16, 'maximum pitch over 16D is outside the layout rules'),
   pitchIncrementIn: positive('pitch increment'),
   maxZones: z.number().int('zones must be a whole number').min(1, 'at least one zone').max(8, 'at most 8 zones'),
-  panels: z.number().int().min(40, 'at least 40 panels').max(400, 'at most 400 panels').optional(),
+  panels: z.number({ message: 'panels must be a number' }).int('panels is a whole number').min(40, 'at least 40 panels').max(400, 'at most 400 panels')
+    .refine((n) => n % 2 === 0, 'the number of panels must be even: half on each surface').optional(),
   minutesPerHole: positive('minutes per hole').optional(),
+  /** Measured or computed pressure to use instead of the panel method: one table per lift coefficient. */
+  cpTables: z.array(z.object({
+    cl: num('lift coefficient of the table'),
+    rows: z.array(z.tuple([z.number(), z.number(), z.number()]), { message: 'rows are x/c, Cp upper, Cp lower' })
+      .min(5, 'a Cp table needs at least five rows').max(500, 'at most 500 rows'),
+  })).min(1).max(12, 'at most 12 Cp tables').optional(),
   rankBy: z.enum(['weight', 'buildTime']).optional(),
 });
 export type RibStudyInputValues = z.infer<typeof ribStudyInputSchema>;

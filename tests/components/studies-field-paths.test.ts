@@ -45,7 +45,8 @@ describe('server field paths of a study, put back on the form', () => {
   it('has no place for what the form does not show, so it is said at the top', () => {
     expect(studyFieldFor('coupons[0].loadLb')).toBeNull();
     expect(studyFieldFor('input')).toBeNull();
-    expect(studyFieldFor('kit.liftSlopePerRad')).toBeNull();
+    expect(studyFieldFor('kit.liftSlopePerRad')).toBe('inputs.kit.liftSlopePerRad');
+    expect(studyFieldFor('wingTorqueInLb')).toBeNull();
     expect(studyFieldFor('cellAreaSqIn')).toBeNull();
   });
 });

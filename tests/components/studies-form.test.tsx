@@ -127,12 +127,12 @@ describe('the study form', () => {
 
   it('says a complaint it has no field for at the top of the form', async () => {
     const r = renderForm('imperial', async () => {
-      throw new ApiError(400, 'invalid_input', 'kit.liftSlopePerRad: the lift slope is not a wing', { 'kit.liftSlopePerRad': 'the lift slope is not a wing' });
+      throw new ApiError(400, 'invalid_input', 'cellAreaSqIn: the wing torque and the cell area go together', { cellAreaSqIn: 'the wing torque and the cell area go together' });
     });
     await r.type('study-name', 'Top');
     await r.type('study-rib-spacing', '14.5');
     await r.press('study-compute');
-    expect(r.byTestId('study-form-error').textContent).toContain('the lift slope is not a wing');
+    expect(r.byTestId('study-form-error').textContent).toContain('the wing torque and the cell area go together');
   });
 
   it('adds and removes fastener lines', async () => {

@@ -87,6 +87,23 @@ describe('load studies', () => {
     expect(at(0.02).tests).toHaveLength(3);
   });
 
+  it('uses a supplied Cp table instead of the panel method, and refuses a Cp above stagnation naming the row', async () => {
+    // A flat plate's thin-airfoil jump, ΔCp = 4α√((1−x)/x) at CL = 2πα (thin-airfoil theory, from memory), split evenly.
+    const alpha = 0.1;
+    const rows = [0.1, 0.2, 0.3, 0.5, 0.7, 0.9].map((x): [number, number, number] => {
+      const dcp = 4 * alpha * Math.sqrt((1 - x) / x);
+      return [x, -dcp / 2, dcp / 2];
+    });
+    const cpTables = [{ cl: 2 * Math.PI * alpha, rows }];
+    const res = await request(t.app).post('/api/studies').set(auth(tok.supplier)).send({ kitModelId, name: 'From a Cp table', inputs: { ...DEMO_STUDY_INPUTS, cpTables } });
+    expect(res.status).toBe(201);
+    expect(res.body.result.conditions.filter((c: { clNeeded: number }) => c.clNeeded > 0).every((c: { pressureSource: string }) => c.pressureSource === 'Cp table')).toBe(true);
+    const bad = await request(t.app).post('/api/studies').set(auth(tok.supplier))
+      .send({ kitModelId, name: 'bad', inputs: { ...DEMO_STUDY_INPUTS, cpTables: [{ cl: 0.6, rows: rows.map((r, i) => (i === 2 ? [r[0], 1.5, r[2]] : r)) }] } });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields['cpTables[0].rows[2]']).toMatch(/stagnation/);
+  });
+
   it('keeps load studies from builders', async () => {
     expect((await request(t.app).get('/api/studies').set(auth(tok.builder))).status).toBe(403);
   });
