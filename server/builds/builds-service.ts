@@ -11,6 +11,16 @@ import { placeHoles } from '../travelers/hole-layout';
 import { listTravelers } from '../travelers/travelers-repository';
 import { findUserByEmail, listVisibleBuilds } from './builds-repository';
 
+/** A short code no traveler has yet: collisions are rare (one in hundreds of millions) but not impossible. */
+async function freeShortCode(tx: Pick<Db, 'select'>): Promise<string> {
+  for (let attempt = 0; attempt < 8; attempt++) {
+    const code = newShortCode();
+    const taken = await tx.select({ id: travelers.id }).from(travelers).where(eq(travelers.shortCode, code));
+    if (!taken.length) return code;
+  }
+  throw new Error('could not find a free short code in 8 tries');
+}
+
 type BuildBody = { kitModelId: string; kitSerial: string; builderEmail: string; inspectorEmail: string };
 
 export const buildsService = (db: Db, publicUrl: string) => {
@@ -56,7 +66,7 @@ export const buildsService = (db: Db, publicUrl: string) => {
         for (const { design_revisions: rev, part_designs: design } of revisions) {
           const [traveler] = await tx.insert(travelers).values({
             buildId: build.id, revisionId: rev.id, serial: `${input.kitSerial}-${design.partNumber}`,
-            qrToken: newQrToken(), shortCode: newShortCode(),
+            qrToken: newQrToken(), shortCode: await freeShortCode(tx),
           }).returning();
           const minPitch = checkLayout(rev);
           const placed = rev.lines.flatMap((line) => placeHoles(line, rev.edgeDistanceIn, minPitch));
