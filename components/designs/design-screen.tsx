@@ -3,7 +3,7 @@ import { useState } from 'react';
 import { useForm, type Resolver } from 'react-hook-form';
 import { View } from 'react-native';
 import type { z } from 'zod';
-import { partKindLabels, revisionInput, type PartDesignDetail, type Revision, type RevisionInput, type RevisionStatus } from '@/db/contracts';
+import { findingKindLabels, partKindLabels, revisionInput, type FindingKind, type PartDesignDetail, type Revision, type RevisionInput, type RevisionStatus } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
 import { FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
@@ -12,11 +12,11 @@ import { Button } from '@/components/ui/button';
 import { Caution } from '@/components/ui/caution';
 import { Screen } from '@/components/ui/screen';
 import { Section, Sheet } from '@/components/ui/sheet';
-import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
+import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
 import { errorMessage } from '@/hooks/api-client';
 import { useSession } from '@/hooks/use-session';
-import { useDesignQuery, useDesignRevisionCreateMutation, useDesignRevisionPublishMutation, useDesignRevisionUpdateMutation } from '@/hooks/queries/designs';
+import { useDesignFindingClustersQuery, useDesignQuery, useDesignRevisionCreateMutation, useDesignRevisionPublishMutation, useDesignRevisionUpdateMutation } from '@/hooks/queries/designs';
 import { shortDate } from '@/components/findings/finding-row';
 import { revisionToInput, RevisionFields } from './revision-fields';
 import { RevisionView } from './revision-view';
@@ -83,8 +83,32 @@ function DesignBody({ d }: { d: PartDesignDetail }) {
           <RevisionView r={r} />
         </Sheet>
       ))}
+      <FindingClusters designId={d.id} />
       <Caution />
     </Screen>
+  );
+}
+
+/** Where findings cluster on this part across every build: what a revised part should look at first. */
+function FindingClusters({ designId }: { designId: string }) {
+  const q = useDesignFindingClustersQuery(designId);
+  return (
+    <Section title="Findings across builds" testID="finding-clusters">
+      {q.isPending ? <LoadingState what="Counting findings across builds" />
+        : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+          : q.data.length === 0 ? <EmptyState title="No findings on this part in any build yet." />
+            : q.data.map((c) => (
+              <View key={`${c.letter}-${c.holeId}`} style={{ paddingVertical: space.sm, borderBottomWidth: hairline, borderColor: colors.rule }} testID={`cluster-${c.letter}-${c.holeId}`}>
+                <Txt>
+                  <Mono bold>{c.holeId}</Mono> · rev <Mono>{c.letter}</Mono> · <Txt bold>{c.count}</Txt> finding{c.count === 1 ? '' : 's'} in {c.builds} build{c.builds === 1 ? '' : 's'}
+                  {c.open ? <Txt tone="caution"> · {c.open} open</Txt> : null}
+                </Txt>
+                <Txt variant="small" tone="soft">
+                  {Object.entries(c.kinds).map(([k, n]) => `${findingKindLabels[k as FindingKind]} ×${n}`).join(' · ')} · last {shortDate(c.lastAt)}
+                </Txt>
+              </View>
+            ))}
+    </Section>
   );
 }
 

@@ -88,3 +88,9 @@ export type PartDesignSummary = {
 };
 
 export type PartDesignDetail = Omit<PartDesignSummary, 'latest'> & { revisions: Revision[] };
+
+/** Where a design's findings cluster across every build: one row per hole id of a revision. */
+export type FindingCluster = {
+  letter: string; holeId: string; count: number; builds: number; open: number;
+  kinds: Partial<Record<import('./findings').FindingKind, number>>; lastAt: string;
+};

@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { PartDesignDetail, PartDesignInput, PartDesignSummary, Revision, RevisionInput } from '@/db/contracts';
+import type { FindingCluster, PartDesignDetail, PartDesignInput, PartDesignSummary, Revision, RevisionInput } from '@/db/contracts';
 import { api, qs } from '../api-client';
 
 export const designKeys = {
@@ -8,6 +8,7 @@ export const designKeys = {
   list: (kitModelId?: string) => [...designKeys.lists(), { kitModelId: kitModelId ?? null }] as const,
   details: () => [...designKeys.all, 'detail'] as const,
   detail: (id: string) => [...designKeys.details(), id] as const,
+  clusters: (id: string) => [...designKeys.detail(id), 'finding-clusters'] as const,
 };
 
 export const designQueries = {
@@ -23,6 +24,14 @@ export const designQueries = {
 
 export function useDesignsQuery(kitModelId?: string) {
   return useQuery(designQueries.list(kitModelId));
+}
+
+export function useDesignFindingClustersQuery(id: string) {
+  return useQuery({
+    queryKey: designKeys.clusters(id),
+    queryFn: ({ signal }) => api.get<FindingCluster[]>(`/api/designs/${encodeURIComponent(id)}/finding-clusters`, signal),
+    enabled: !!id,
+  });
 }
 
 export function useDesignQuery(id: string) {

@@ -1,6 +1,6 @@
 import { and, asc, desc, eq, inArray } from 'drizzle-orm';
 import type { Db } from '../../db';
-import { designRevisions, kitModels, partDesigns, users } from '../../db/schema';
+import { designRevisions, findings, kitModels, partDesigns, travelers, users } from '../../db/schema';
 
 export const revisionColumns = {
   id: designRevisions.id, partDesignId: designRevisions.partDesignId, letter: designRevisions.letter, status: designRevisions.status,
@@ -42,3 +42,13 @@ export async function findRevision(db: Db, id: string) {
     .where(eq(designRevisions.id, id));
   return row;
 }
+
+/** Every finding on travelers made from this design's revisions, one row per finding and hole. */
+export const listDesignFindingHoles = (db: Db, partDesignId: string) =>
+  db.select({
+    letter: designRevisions.letter, holeIds: findings.holeIds, kind: findings.kind, status: findings.status,
+    buildId: travelers.buildId, createdAt: findings.createdAt,
+  }).from(findings)
+    .innerJoin(travelers, eq(travelers.id, findings.travelerId))
+    .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
+    .where(eq(designRevisions.partDesignId, partDesignId));

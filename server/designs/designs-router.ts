@@ -16,6 +16,7 @@ export function designsRouter(ctx: AppContext): Router {
   r.get('/', validateQuery(listQuery), async (req, res) => { res.json(await designs.list(req.user!, res.locals.query.kitModelId)); });
   r.post('/', validateBody(createBody), async (req, res) => { res.status(201).json(await designs.create(req.user!, req.body)); });
   r.get('/:id', async (req, res) => { res.json(await designs.detail(req.user!, idParam.parse(req.params).id)); });
+  r.get('/:id/finding-clusters', async (req, res) => { res.json(await designs.findingClusters(req.user!, idParam.parse(req.params).id)); });
   r.post('/:id/revisions', validateBody(revisionInput), async (req, res) => {
     res.status(201).json(await designs.newRevision(req.user!, idParam.parse(req.params).id, req.body));
   });

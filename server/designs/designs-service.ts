@@ -1,11 +1,11 @@
 import { and, eq } from 'drizzle-orm';
-import type { PartDesignDetail, PartDesignInput, PartDesignSummary, RevisionInput } from '../../db/contracts';
+import type { FindingCluster, PartDesignDetail, PartDesignInput, PartDesignSummary, RevisionInput } from '../../db/contracts';
 import type { Db } from '../../db';
 import { designRevisions, partDesigns } from '../../db/schema';
 import { badRequest, conflict, HttpError, notFound } from '../http-error';
 import { checkLayout } from './layout-check';
 import { kitsService } from '../kits/kits-service';
-import { findDesign, findRevision, listDesigns, listRevisions } from './designs-repository';
+import { findDesign, findRevision, listDesignFindingHoles, listDesigns, listRevisions } from './designs-repository';
 import { nextRevisionLetter } from './revision-letters';
 
 type RevisionBody = Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & { steps: string[]; changeNote: string };
@@ -49,6 +49,31 @@ export const designsService = (db: Db) => {
     },
 
     detail,
+
+    /**
+     * Where findings cluster on this part across every build shipped with it: holes flagged most often
+     * first, so the supplier sees what a revised part should change.
+     */
+    async findingClusters(user: Express.User, id: string): Promise<FindingCluster[]> {
+      await ownDesign(user, id);
+      const rows = await listDesignFindingHoles(db, id);
+      const byHole = new Map<string, FindingCluster & { buildIds: Set<string> }>();
+      for (const r of rows) {
+        for (const holeId of r.holeIds) {
+          const key = `${r.letter} ${holeId}`;
+          const c = byHole.get(key) ?? { letter: r.letter, holeId, count: 0, builds: 0, open: 0, kinds: {}, lastAt: r.createdAt.toISOString(), buildIds: new Set<string>() };
+          c.count += 1;
+          c.buildIds.add(r.buildId);
+          if (r.status !== 'closed') c.open += 1;
+          c.kinds[r.kind] = (c.kinds[r.kind] ?? 0) + 1;
+          if (r.createdAt.toISOString() > c.lastAt) c.lastAt = r.createdAt.toISOString();
+          byHole.set(key, c);
+        }
+      }
+      return [...byHole.values()]
+        .map(({ buildIds, ...c }) => ({ ...c, builds: buildIds.size }))
+        .sort((a, b) => b.count - a.count || b.builds - a.builds || a.holeId.localeCompare(b.holeId));
+    },
 
     async create(user: Express.User, input: { design: Required<PartDesignInput>; revision: RevisionBody }) {
       await kits.get(user, input.design.kitModelId);

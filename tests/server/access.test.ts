@@ -81,6 +81,16 @@ describe('role boundaries', () => {
     expect((await request(t.app).get(`/api/designs/${designs.body[0].id}`).set(auth(otherSupplier))).status).toBe(404);
   });
 
+  it("shows the supplier where findings cluster on a part across builds, and no one else's", async () => {
+    const designs = await request(t.app).get('/api/designs').set(auth(tok.supplier));
+    const rib = designs.body.find((d: { partNumber: string }) => d.partNumber === 'W-104');
+    const res = await request(t.app).get(`/api/designs/${rib.id}/finding-clusters`).set(auth(tok.supplier));
+    expect(res.status).toBe(200);
+    expect(res.body[0]).toMatchObject({ letter: 'A', holeId: 'U-09', count: 1, builds: 1, open: 1, kinds: { elongated: 1 } });
+    expect((await request(t.app).get(`/api/designs/${rib.id}/finding-clusters`).set(auth(otherSupplier))).status).toBe(404);
+    expect((await request(t.app).get(`/api/designs/${rib.id}/finding-clusters`).set(auth(tok.builder))).status).toBe(403);
+  });
+
   it('answers 403 when the role may not do a thing at all', async () => {
     expect((await request(t.app).get('/api/kits').set(auth(tok.builder))).status).toBe(403);
     expect((await request(t.app).post(`/api/findings/${findingId}/disposition`).set(auth(tok.builder)).send({ disposition: 'use_as_is', note: 'looks fine to me' })).status).toBe(403);
