@@ -63,28 +63,70 @@ export function flatLineY(outline: readonly Point[], lines: readonly Pick<Fasten
 
 export type PlacedHole = { holeId: string; line: string; seq: number; stationIn: number; status: HoleStatus; x: number; y: number };
 
-/** A hole's place: x = the line's start + the hole's station; y on its line's surface at that x. */
-export function placeHole(outline: readonly Point[], lines: readonly FastenerLine[], hole: Hole): PlacedHole {
-  const line = lines.find((l) => l.code === hole.line);
-  const x = (line?.startIn ?? 0) + hole.stationIn;
-  const y = !line ? surfaceY(outline, x, 'upper')
-    : line.surface === 'flat' ? flatLineY(outline, lines, line.code)
-      : surfaceY(outline, x, line.surface);
-  return { ...hole, x, y };
+/**
+ * Distance along the outline's upper or lower side from x0 → the x reached: a hole's station is
+ * measured along the flange, which is longer than its chordwise run where the side curves. The side
+ * is sampled once (1000 steps over the chord), so placing every hole of a line stays cheap.
+ */
+export function surfaceWalker(outline: readonly Point[], side: Side, x0: number): (distance: number) => number {
+  const b = outlineBounds(outline);
+  const n = 1000;
+  const xs: number[] = [x0];
+  const along: number[] = [0];
+  let y = surfaceY(outline, x0, side);
+  for (let i = 1; i <= n && xs[xs.length - 1] < b.maxX; i++) {
+    const x = Math.min(b.maxX, x0 + ((b.maxX - x0) * i) / n);
+    const ny = surfaceY(outline, x, side);
+    along.push(along[along.length - 1] + Math.hypot(x - xs[xs.length - 1], ny - y));
+    xs.push(x);
+    y = ny;
+  }
+  return (distance) => {
+    if (distance <= 0) return x0;
+    let lo = 0;
+    let hi = along.length - 1;
+    if (distance >= along[hi]) return xs[hi];
+    while (hi - lo > 1) {
+      const mid = (lo + hi) >> 1;
+      if (along[mid] < distance) lo = mid; else hi = mid;
+    }
+    return xs[lo] + ((xs[hi] - xs[lo]) * (distance - along[lo])) / (along[hi] - along[lo]);
+  };
 }
 
+export const xAlongSurface = (outline: readonly Point[], side: Side, x0: number, distance: number): number =>
+  surfaceWalker(outline, side, x0)(distance);
+
+/** Holes' places: each station walked along its line's side from the line's start (straight for a flat line). */
 export function placeHoles(outline: readonly Point[], lines: readonly FastenerLine[], holes: readonly Hole[]): PlacedHole[] {
-  return holes.map((h) => placeHole(outline, lines, h));
+  const walkers = new Map<string, (d: number) => number>();
+  return holes.map((h) => {
+    const line = lines.find((l) => l.code === h.line);
+    if (!line || line.surface === 'flat') {
+      const x = (line?.startIn ?? 0) + h.stationIn;
+      return { ...h, x, y: line ? flatLineY(outline, lines, line.code) : surfaceY(outline, x, 'upper') };
+    }
+    let walk = walkers.get(line.code);
+    if (!walk) {
+      walk = surfaceWalker(outline, line.surface, line.startIn);
+      walkers.set(line.code, walk);
+    }
+    const x = walk(h.stationIn);
+    return { ...h, x, y: surfaceY(outline, x, line.surface) };
+  });
 }
+
+export const placeHole = (outline: readonly Point[], lines: readonly FastenerLine[], hole: Hole): PlacedHole =>
+  placeHoles(outline, lines, [hole])[0];
 
 /** Points that trace a fastener line along its surface, for drawing it as a polyline. */
 export function linePath(outline: readonly Point[], lines: readonly FastenerLine[], line: FastenerLine, samples = 48): Point[] {
   const x0 = line.startIn;
-  const x1 = line.startIn + line.lengthIn;
   if (line.surface === 'flat') {
     const y = flatLineY(outline, lines, line.code);
-    return [[x0, y], [x1, y]];
+    return [[x0, y], [x0 + line.lengthIn, y]];
   }
+  const x1 = xAlongSurface(outline, line.surface, x0, line.lengthIn);
   const pts: Point[] = [];
   for (let i = 0; i <= samples; i++) {
     const x = x0 + ((x1 - x0) * i) / samples;

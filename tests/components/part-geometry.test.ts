@@ -35,10 +35,11 @@ describe('reading the outline', () => {
 describe('placing holes', () => {
   const h = (line: string, stationIn: number): Hole => ({ holeId: `${line}-x`, line, seq: 1, stationIn, status: 'pending' });
 
-  it('puts a hole at the line start plus its station, on the upper surface', () => {
+  it('walks a hole\'s station along the curved upper surface from the line start', () => {
+    // From x = 5 the upper side climbs at 3/10: 5 in along it is 5/√1.09 = 4.789 in of chord.
     const p = placeHole(rib, [upper, lower], h('U', 5));
-    expect(p.x).toBeCloseTo(10);
-    expect(p.y).toBeCloseTo(3);
+    expect(p.x).toBeCloseTo(5 + 5 / Math.sqrt(1.09), 3);
+    expect(p.y).toBeCloseTo(0.3 * p.x, 3);
   });
 
   it('puts a lower-line hole on the lower surface', () => {
@@ -56,9 +57,10 @@ describe('placing holes', () => {
     expect(placeHoles(panel, [a, b], [h('B', 1)])[0].y).toBeCloseTo(8);
   });
 
-  it('traces a surface line from its start to its end', () => {
+  it('traces a surface line from its start to where its length runs out along the surface', () => {
     const path = linePath(rib, [upper], upper, 4);
     expect(path[0]).toEqual([5, expect.closeTo(1.5)]);
-    expect(path[path.length - 1][0]).toBeCloseTo(25);
+    // 5 in up the front slope to the peak (5.22 in along it), then down the back at 1/10 for the rest.
+    expect(path[path.length - 1][0]).toBeCloseTo(10 + (20 - 5 * Math.sqrt(1.09)) / Math.sqrt(1.01), 2);
   });
 });
