@@ -2,7 +2,7 @@ import { and, eq } from 'drizzle-orm';
 import type { FindingCluster, PartDesignDetail, PartDesignInput, PartDesignSummary, RevisionInput } from '../../db/contracts';
 import type { Db } from '../../db';
 import { designRevisions, partDesigns } from '../../db/schema';
-import { badRequest, conflict, HttpError, notFound } from '../http-error';
+import { badRequest, conflict, notFound } from '../http-error';
 import { checkLayout } from './layout-check';
 import { kitsService } from '../kits/kits-service';
 import { findDesign, findRevision, listDesignFindingHoles, listDesigns, listRevisions } from './designs-repository';
@@ -77,7 +77,7 @@ export const designsService = (db: Db) => {
 
     async create(user: Express.User, input: { design: Required<PartDesignInput>; revision: RevisionBody }) {
       await kits.get(user, input.design.kitModelId);
-      withPrefix('revision', () => checkLayout(input.revision));
+      checkLayout(input.revision, 'revision.');
       const id = await db.transaction(async (tx) => {
         const clash = await tx.select({ id: partDesigns.id }).from(partDesigns)
           .where(and(eq(partDesigns.kitModelId, input.design.kitModelId), eq(partDesigns.partNumber, input.design.partNumber)));
@@ -132,20 +132,9 @@ export const designsService = (db: Db) => {
 };
 
 type RevisionRow = NonNullable<Awaited<ReturnType<typeof findRevision>>>;
-export function serialiseRevision(r: RevisionRow) {
+function serialiseRevision(r: RevisionRow) {
   return {
     ...r, createdAt: r.createdAt.toISOString(), publishedAt: r.publishedAt?.toISOString() ?? null,
   };
 }
 
-/** Re-keys a check's field errors under the body part they came from ("revision.edgeDistanceIn"). */
-function withPrefix(prefix: string, check: () => unknown) {
-  try {
-    check();
-  } catch (err) {
-    if (err instanceof HttpError && err.fields) {
-      throw new HttpError(err.status, err.code, err.message, Object.fromEntries(Object.entries(err.fields).map(([k, v]) => [`${prefix}.${k}`, v])));
-    }
-    throw err;
-  }
-}

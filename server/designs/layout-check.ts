@@ -6,22 +6,27 @@ import { badRequest } from '../http-error';
  * The layout rules of the trade for a hand-entered revision (edge distance ≥ 2D, 2.5D countersunk;
  * pitch ≥ 3D), when its rivet is one the engine knows. Returns the minimum pitch for hole placement.
  */
-export function checkLayout(r: { rivetSpec: string; drillDiameterIn: number; edgeDistanceIn: number; lines: FastenerLine[] }): number {
-  let rules;
+export function checkLayout(
+  r: { rivetSpec: string; drillDiameterIn: number; edgeDistanceIn: number; lines: FastenerLine[] },
+  /** where the revision sits in the request body, for the field names of the errors ("revision.") */
+  at = '',
+): number {
+  let spec;
   try {
-    rules = layoutRules(findRivetByCallout(r.rivetSpec));
+    spec = findRivetByCallout(r.rivetSpec);
   } catch (err) {
     if (!(err instanceof EngineeringInputError)) throw err;
     // A rivet outside the catalogue: the supplier's own data govern; hold to 3 × the drill at least.
     return 3 * r.drillDiameterIn;
   }
+  const rules = layoutRules(spec);
   const fields: Record<string, string> = {};
   if (r.edgeDistanceIn < rules.minEdgeIn - 1e-6) {
-    fields.edgeDistanceIn = `edge distance must be at least ${rules.minEdgeIn.toFixed(3)} in for ${r.rivetSpec} (2D${rules.minEdgeIn / rules.diameterIn > 2.2 ? ', 2.5D countersunk' : ''})`;
+    fields[`${at}edgeDistanceIn`] = `edge distance must be at least ${rules.minEdgeIn.toFixed(3)} in for ${r.rivetSpec} (${spec.countersunk ? '2.5D, countersunk head' : '2D'})`;
   }
   r.lines.forEach((line, i) => line.zones.forEach((z, j) => {
     if (z.pitchIn < rules.minPitchIn - 1e-6) {
-      fields[`lines.${i}.zones.${j}.pitchIn`] = `pitch must be at least ${rules.minPitchIn.toFixed(3)} in (3D) for ${r.rivetSpec}`;
+      fields[`${at}lines.${i}.zones.${j}.pitchIn`] = `pitch must be at least ${rules.minPitchIn.toFixed(3)} in (3D) for ${r.rivetSpec}`;
     }
   }));
   if (Object.keys(fields).length) throw badRequest(Object.values(fields)[0], fields);

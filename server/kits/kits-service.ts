@@ -1,15 +1,11 @@
 import type { KitModelInput } from '../../db/contracts';
 import type { Db } from '../../db';
-import { conflict, forbidden, notFound } from '../http-error';
+import { organizationOf } from '../auth/organization';
+import { conflict, notFound } from '../http-error';
 import { findKit, insertKit, listKits } from './kits-repository';
 
-function orgOf(user: Express.User): string {
-  if (!user.organizationId) throw forbidden('your account belongs to no organisation');
-  return user.organizationId;
-}
-
 export const kitsService = (db: Db) => ({
-  list: (user: Express.User) => listKits(db, orgOf(user)),
+  list: (user: Express.User) => listKits(db, organizationOf(user)),
 
   /** A kit of the user's own organisation, or 404 (another supplier's kit is not revealed). */
   async get(user: Express.User, id: string) {
@@ -19,7 +15,7 @@ export const kitsService = (db: Db) => ({
   },
 
   async create(user: Express.User, input: Required<KitModelInput>) {
-    const organizationId = orgOf(user);
+    const organizationId = organizationOf(user);
     const existing = await listKits(db, organizationId);
     if (existing.some((k) => k.code === input.code)) throw conflict(`kit code ${input.code} is already used`, { code: 'already used' });
     return insertKit(db, { ...input, cruiseSpeedKeas: input.cruiseSpeedKeas ?? null, organizationId });
