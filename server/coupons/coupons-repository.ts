@@ -1,5 +1,6 @@
 import { and, asc, eq } from 'drizzle-orm';
 import type { Db } from '../../db';
+import type { CouponTest as EngineCouponTest } from '../engineering';
 import { couponTests, users } from '../../db/schema';
 
 export const listCoupons = (db: Db, organizationId: string, filter: { material?: string; rivetSpec?: string } = {}) =>
@@ -18,4 +19,10 @@ export const listCoupons = (db: Db, organizationId: string, filter: { material?:
 export async function insertCoupon(db: Db, values: typeof couponTests.$inferInsert) {
   const [row] = await db.insert(couponTests).values(values).returning({ id: couponTests.id });
   return row.id;
+}
+
+/** A supplier's tests of one material in the engine's shape: what studies and rework checks allow from. */
+export async function couponsForEngine(db: Db, organizationId: string, material: string): Promise<EngineCouponTest[]> {
+  const rows = await listCoupons(db, organizationId, { material });
+  return rows.map(({ material: m, gaugeIn, couponWidthIn, rivetSpec, loadLb, outcome, note }) => ({ material: m, gaugeIn, couponWidthIn, rivetSpec, loadLb, outcome, note }));
 }

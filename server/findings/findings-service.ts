@@ -2,7 +2,8 @@ import { and, eq, inArray } from 'drizzle-orm';
 import type { Disposition, FindingDetail, FindingInput, FindingSummary } from '../../db/contracts';
 import { withTransaction } from '../../db';
 import type { AppContext } from '../context';
-import { builds, couponTests, findingEvents, findingPhotos, findings, holes } from '../../db/schema';
+import { findingEvents, findingPhotos, findings, holes } from '../../db/schema';
+import { couponsForEngine } from '../coupons/coupons-repository';
 import { findRivetByCallout, nextRivetSize, reworkCheck } from '../engineering';
 import { badRequest, conflict, forbidden, HttpError, notFound } from '../http-error';
 import { processPhoto } from '../photos/image-processing';
@@ -29,25 +30,31 @@ export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) 
     return row;
   }
 
-  async function detail(user: Express.User, id: string): Promise<FindingDetail> {
-    const row = await visibleRow(user, id);
+  /** The first hole of a finding in its layout: its line, its neighbours and the revision it was made to. */
+  async function holeInContext(row: Row) {
     const parts = (await findTravelerParts(db, row.travelerId))!;
     const lineHoles = await db.select().from(holes).where(eq(holes.travelerId, row.travelerId)).orderBy(holes.seq);
     const first = lineHoles.find((h) => h.holeId === row.holeIds[0])!;
     const onLine = lineHoles.filter((h) => h.line === first.line);
     const at = onLine.findIndex((h) => h.holeId === first.holeId);
-    const events = await listEvents(db, id);
+    const context: FindingDetail['context'] = {
+      line: first.line, stationIn: first.stationIn,
+      prevStationIn: onLine[at - 1]?.stationIn ?? null, nextStationIn: onLine[at + 1]?.stationIn ?? null,
+      edgeDistanceIn: parts.revision.edgeDistanceIn, drillDiameterIn: parts.revision.drillDiameterIn,
+      rivetSpec: parts.revision.rivetSpec, gaugeIn: parts.revision.gaugeIn, material: parts.revision.material,
+      oversizeOptions: oversizeOptions(parts.revision.rivetSpec),
+    };
+    return { parts, context };
+  }
+
+  async function detail(user: Express.User, id: string): Promise<FindingDetail> {
+    const row = await visibleRow(user, id);
+    const [{ context }, events] = await Promise.all([holeInContext(row), listEvents(db, id)]);
     return {
       ...summary(row), note: row.note, dispositionNote: row.dispositionNote,
       photos: row.photos.map((p) => ({ id: p.id, width: p.width, height: p.height, url: signer.sign(p.id, 'full'), thumbUrl: signer.sign(p.id, 'thumb') })),
       events: events.map((e) => ({ ...e, createdAt: e.createdAt.toISOString() })),
-      context: {
-        line: first.line, stationIn: first.stationIn,
-        prevStationIn: onLine[at - 1]?.stationIn ?? null, nextStationIn: onLine[at + 1]?.stationIn ?? null,
-        edgeDistanceIn: parts.revision.edgeDistanceIn, drillDiameterIn: parts.revision.drillDiameterIn,
-        rivetSpec: parts.revision.rivetSpec, gaugeIn: parts.revision.gaugeIn, material: parts.revision.material,
-        oversizeOptions: oversizeOptions(parts.revision.rivetSpec),
-      },
+      context,
     };
   }
 
@@ -56,23 +63,19 @@ export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) 
    * the revision's engineering basis where it has one, pull-through from the supplier's coupons.
    */
   async function reworkCheckFor(user: Express.User, id: string, proposedSpec?: string) {
-    const finding = await detail(user, id);
-    const parts = (await findTravelerParts(db, finding.travelerId))!;
-    const { context } = finding;
+    const row = await visibleRow(user, id);
+    const { parts, context } = await holeInContext(row);
     const current = findRivetByCallout(context.rivetSpec);
     const proposed = proposedSpec ?? nextRivetSize(current)?.code;
     if (!proposed) throw conflict(`${current.code} is the largest rivet of its family: repair with a doubler or scrap`);
-    const supplierCoupons = await db.select().from(couponTests).where(and(
-      eq(couponTests.organizationId, (await db.select({ org: builds.organizationId }).from(builds).where(eq(builds.id, parts.traveler.buildId)))[0].org),
-      eq(couponTests.material, context.material),
-    ));
-    const basisHole = findBasisHole(parts.revision.basis, finding.holeIds[0]);
+    const basisHole = findBasisHole(parts.revision.basis, row.holeIds[0]);
     return reworkCheck({
       rivetSpec: current.code, proposedSpec: proposed, holeStationIn: context.stationIn,
       neighbourStationsIn: [context.prevStationIn, context.nextStationIn], edgeDistanceIn: context.edgeDistanceIn,
       gaugeIn: context.gaugeIn, material: context.material,
       ...(basisHole ? { appliedLimitTensionLb: basisHole.appliedLimitLb, appliedLimitShearLb: basisHole.appliedLimitShearLb } : {}),
-      coupons: supplierCoupons.map((c) => ({ material: c.material, gaugeIn: c.gaugeIn, couponWidthIn: c.couponWidthIn, rivetSpec: c.rivetSpec, loadLb: c.loadLb, outcome: c.outcome })),
+      // The kit's supplier tested the coupons; the inspector reads them through the build they are on.
+      coupons: await couponsForEngine(db, parts.kit.organizationId, context.material),
     });
   }
 

@@ -3,7 +3,8 @@ import type { ApplyStudyInput, RibStudyInputValues, StudyDetail, StudySummary } 
 import { revisionInput } from '../../db/contracts';
 import type { Db } from '../../db';
 import { loadStudies, loadStudyRevisions } from '../../db/schema';
-import { couponsService } from '../coupons/coupons-service';
+import { organizationOf } from '../auth/organization';
+import { couponsForEngine } from '../coupons/coupons-repository';
 import { designsService } from '../designs/designs-service';
 import { ribStudy, type RibStudyResult } from '../engineering';
 import { conflict, notFound } from '../http-error';
@@ -14,13 +15,11 @@ type Result = RibStudyResult & Record<string, unknown>;
 
 export const studiesService = (db: Db) => {
   const kits = kitsService(db);
-  const coupons = couponsService(db);
   const designs = designsService(db);
 
   /** Runs the engine with the supplier's own coupon tests of that material as the pull-through basis. */
   async function compute(user: Express.User, inputs: RibStudyInputValues): Promise<Result> {
-    const tests = (await coupons.list(user, { material: inputs.material }))
-      .map(({ material, gaugeIn, couponWidthIn, rivetSpec, loadLb, outcome, note }) => ({ material, gaugeIn, couponWidthIn, rivetSpec, loadLb, outcome, note }));
+    const tests = await couponsForEngine(db, organizationOf(user), inputs.material);
     return ribStudy({ ...inputs, coupons: tests }) as Result;
   }
 
