@@ -1,4 +1,4 @@
-import { Router } from 'express';
+import { Router, type Request, type Response } from 'express';
 import multer from 'multer';
 import { dispositionInput, findingInput, findingListQuery, findingStepInput, idParam, reworkCheckInput } from '../../db/contracts';
 import type { AppContext } from '../context';
@@ -35,7 +35,7 @@ export function findingsRouter(ctx: AppContext): Router {
     res.json(await service.reworkCheck(req.user!, idParam.parse(req.params).id, req.body.proposedSpec));
   });
 
-  const step = (action: Action) => async (req: import('express').Request, res: import('express').Response) => {
+  const step = (action: Action) => async (req: Request, res: Response) => {
     res.json(await service.act(req.user!, idParam.parse(req.params).id, action, req.body));
   };
   r.post('/:id/review', validateBody(findingStepInput), step('review'));

@@ -1,6 +1,4 @@
-import { existsSync } from 'node:fs';
 import { mkdtemp, writeFile } from 'node:fs/promises';
-import type { Server } from 'node:http';
 import os from 'node:os';
 import path from 'node:path';
 import jsQR from 'jsqr';
@@ -8,9 +6,10 @@ import type { Browser, Page } from 'playwright-core';
 import sharp from 'sharp';
 import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import type { TestApp } from '../helpers/test-app';
 import { launchBrowser, phonePage } from './helpers/browser';
 import { writeQrVideo } from './helpers/qr-video';
+import { serveTestApp } from './helpers/served-app';
 
 /**
  * The whole loop through the web UI at phone size, in Debian's headless Chromium, against the real
@@ -19,26 +18,21 @@ import { writeQrVideo } from './helpers/qr-video';
  */
 jest.setTimeout(300_000);
 
-const webDist = path.join(__dirname, '..', '..', 'dist');
-const port = 18000 + Math.floor(Math.random() * 2000);
-const base = `http://localhost:${port}`;
 const stamp = Date.now().toString(36).slice(-4).toUpperCase();
 
 let t: TestApp;
-let server: Server;
+let base: string;
+let closeApp: () => Promise<void>;
 let work: string;
 const browsers: Browser[] = [];
 
 beforeAll(async () => {
-  if (!existsSync(path.join(webDist, 'index.html'))) throw new Error('dist/ has no web export: run the tests with `npm test`, which exports the app first');
-  t = await startTestApp({ port, webDist });
-  server = await new Promise<Server>((resolve) => { const s = t.app.listen(port, '127.0.0.1', () => resolve(s)); });
+  ({ t, base, close: closeApp } = await serveTestApp());
   work = await mkdtemp(path.join(os.tmpdir(), 'pc-e2e-'));
 });
 afterAll(async () => {
   for (const b of browsers) await b.close().catch(() => undefined);
-  await new Promise((r) => server?.close(r));
-  await t?.close();
+  await closeApp?.();
 });
 
 /** Polls until the value matches (the UI updates asynchronously), failing with the last value seen. */

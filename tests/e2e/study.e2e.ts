@@ -1,11 +1,9 @@
-import { existsSync } from 'node:fs';
-import type { Server } from 'node:http';
-import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import type { TestApp } from '../helpers/test-app';
 import { launchBrowser } from './helpers/browser';
+import { serveTestApp } from './helpers/served-app';
 
 /**
  * The supplier's load study in a real browser on a wide screen: the demo rib study shows its pictures,
@@ -14,26 +12,20 @@ import { launchBrowser } from './helpers/browser';
  */
 jest.setTimeout(300_000);
 
-const webDist = path.join(__dirname, '..', '..', 'dist');
-const port = 20000 + Math.floor(Math.random() * 2000);
-const base = `http://localhost:${port}`;
-
 let t: TestApp;
-let server: Server;
+let closeApp: () => Promise<void>;
 let browser: Browser;
 let page: Page;
 
 beforeAll(async () => {
-  if (!existsSync(path.join(webDist, 'index.html'))) throw new Error('dist/ has no web export: run the tests with `npm test`, which exports the app first');
-  t = await startTestApp({ port, webDist });
-  server = await new Promise<Server>((resolve) => { const s = t.app.listen(port, '127.0.0.1', () => resolve(s)); });
+  let base: string;
+  ({ t, base, close: closeApp } = await serveTestApp());
   browser = await launchBrowser();
   page = await (await browser.newContext({ baseURL: base, viewport: { width: 1366, height: 900 } })).newPage();
 });
 afterAll(async () => {
   await browser?.close();
-  await new Promise((r) => server?.close(r));
-  await t?.close();
+  await closeApp?.();
 });
 
 describe('a load study on the supplier’s wide screen', () => {
