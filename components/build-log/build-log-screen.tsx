@@ -6,7 +6,7 @@ import { space } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
 import { Caution } from '@/components/ui/caution';
 import { Choice } from '@/components/ui/choice';
-import { Field, TextBox } from '@/components/ui/field';
+import { Field, FindField } from '@/components/ui/field';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
@@ -76,16 +76,7 @@ export function BuildLogScreen({ buildId }: { buildId: string }) {
           <PartPicker parts={parts} value={filters.travelerId} onChange={(travelerId) => setFilters((f) => ({ ...f, travelerId }))} />
         </Field>
       ) : null}
-      <Field label="Find">
-        <TextBox
-          value={filters.text}
-          onChangeText={(text) => setFilters((f) => ({ ...f, text }))}
-          placeholder="Hole, part, name or words"
-          testID="log-search"
-          accessibilityLabel="Find in the build log"
-          autoCorrect={false}
-        />
-      </Field>
+      <FindField value={filters.text} onChange={(text) => setFilters((f) => ({ ...f, text }))} placeholder="Hole, part, name or words" where="the build log" testID="log-search" />
       <View style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap' }}>
         <Txt variant="small" tone="soft" testID="log-count">{countLine(entries)}{q.isFetching ? ' · updating…' : ''}</Txt>
         {filtered ? <Button label="Clear filters" variant="quiet" compact onPress={() => setFilters(noLogFilters)} testID="log-clear" /> : null}

@@ -4,7 +4,7 @@ import { Image, View } from 'react-native';
 import { findingKindLabels, findingStatuses, findingStatusLabels, type FindingSummary } from '@/db/contracts';
 import { colors, space } from '@/constants/theme';
 import { Choice } from '@/components/ui/choice';
-import { Field, TextBox } from '@/components/ui/field';
+import { Field, FindField } from '@/components/ui/field';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { FindingStatusTag } from '@/components/ui/status-mark';
@@ -59,15 +59,7 @@ export function ReviewQueueScreen() {
           />
         </Field>
       ) : null}
-      <Field label="Find">
-        <TextBox
-          value={filters.text}
-          onChangeText={(text) => setFilters((f) => ({ ...f, text }))}
-          placeholder="Part, serial, hole, kind or name"
-          testID="filter-text"
-          accessibilityLabel="Find in the queue"
-        />
-      </Field>
+      <FindField value={filters.text} onChange={(text) => setFilters((f) => ({ ...f, text }))} placeholder="Part, serial, hole, kind or name" where="the queue" testID="filter-text" />
       <Txt variant="small" tone="soft" testID="review-count">{rows.length} shown · {openCount} open in all</Txt>
     </View>
   );

@@ -67,3 +67,14 @@ const styles = StyleSheet.create({
     paddingVertical: space.sm,
   },
 });
+
+/** The "Find" box of a list: narrows what is shown as the person types. */
+export function FindField({ value, onChange, placeholder, where, testID }: {
+  value: string; onChange: (text: string) => void; placeholder: string; where: string; testID: string;
+}) {
+  return (
+    <Field label="Find">
+      <TextBox value={value} onChangeText={onChange} placeholder={placeholder} testID={testID} accessibilityLabel={`Find in ${where}`} autoCorrect={false} />
+    </Field>
+  );
+}
