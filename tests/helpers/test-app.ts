@@ -44,6 +44,14 @@ export async function startTestApp(opts: { seed?: boolean; port?: number; webDis
     return res.body.token;
   }
 
+  /** Another person outside the demo; a supplier gets an organisation of its own. */
+  async function addUser(role: 'supplier' | 'builder' | 'inspector', email: string): Promise<string> {
+    const organizationId = role === 'supplier'
+      ? (await database.db.insert(organizations).values({ name: `${email} kits`, kind: 'supplier' }).returning())[0].id : null;
+    await database.db.insert(users).values({ email, name: email.split('@')[0], role, organizationId, passwordHash: await hashPassword(DEMO_PASSWORD) });
+    return signIn(email);
+  }
+
   return {
     app, ctx, config, database, smtp, uploadsDir, mailQueue,
     signIn,
@@ -52,12 +60,14 @@ export async function startTestApp(opts: { seed?: boolean; port?: number; webDis
       supplier: await signIn(DEMO_USERS.supplier.email), builder: await signIn(DEMO_USERS.builder.email),
       inspector: await signIn(DEMO_USERS.inspector.email), admin: await signIn(DEMO_USERS.admin.email),
     }),
-    /** Another person outside the demo; a supplier gets an organisation of its own. */
-    async addUser(role: 'supplier' | 'builder' | 'inspector', email: string) {
-      const organizationId = role === 'supplier'
-        ? (await database.db.insert(organizations).values({ name: `${email} kits`, kind: 'supplier' }).returning())[0].id : null;
-      await database.db.insert(users).values({ email, name: email.split('@')[0], role, organizationId, passwordHash: await hashPassword(DEMO_PASSWORD) });
-      return signIn(email);
+    addUser,
+    /** People outside the demo build: another builder, inspector and supplier, for the access checks. */
+    async outsiders() {
+      return {
+        builder: await addUser('builder', 'other.builder@elsewhere.example'),
+        inspector: await addUser('inspector', 'other.inspector@elsewhere.example'),
+        supplier: await addUser('supplier', 'other.supplier@elsewhere.example'),
+      };
     },
     /** Waits until the SMTP fake has a message that matches, or fails after `ms`. */
     async waitForMail(match: (m: ReceivedMail) => boolean, ms = 15000): Promise<ReceivedMail> {

@@ -16,9 +16,7 @@ const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 beforeAll(async () => {
   t = await startTestApp();
   tok = await t.tokens();
-  otherBuilder = await t.addUser('builder', 'other.builder@elsewhere.example');
-  otherInspector = await t.addUser('inspector', 'other.inspector@elsewhere.example');
-  otherSupplier = await t.addUser('supplier', 'other.supplier@elsewhere.example');
+  ({ builder: otherBuilder, inspector: otherInspector, supplier: otherSupplier } = await t.outsiders());
   const parts = await request(t.app).get('/api/travelers').set(auth(tok.builder));
   travelerId = parts.body.find((p: { partNumber: string }) => p.partNumber === 'W-104').id;
   const open = await request(t.app).get('/api/findings?status=open').set(auth(tok.builder));

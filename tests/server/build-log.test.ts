@@ -39,9 +39,7 @@ const hasTool = (name: string) => { try { execFileSync('which', [name], { stdio:
 beforeAll(async () => {
   t = await startTestApp();
   tok = await t.tokens();
-  otherBuilder = await t.addUser('builder', 'other.builder@elsewhere.example');
-  otherInspector = await t.addUser('inspector', 'other.inspector@elsewhere.example');
-  otherSupplier = await t.addUser('supplier', 'other.supplier@elsewhere.example');
+  ({ builder: otherBuilder, inspector: otherInspector, supplier: otherSupplier } = await t.outsiders());
   const builds = await request(t.app).get('/api/builds').set(auth(tok.supplier));
   buildId = builds.body.find((b: { kitSerial: string }) => b.kitSerial === 'NK2-0147').id;
   const parts = await request(t.app).get('/api/travelers').set(auth(tok.builder));
