@@ -97,7 +97,19 @@ export {
   type StationLoad,
 } from './pitch-schedule';
 export { tradeStudy, type RankBy, type TradeCandidate, type TradeRow, type TradeStudyResult } from './trade-study';
-export { reworkCheck, type ReworkInput, type ReworkMargins, type ReworkResult } from './rework-check';
+export { LAYOUT_TOLERANCE_IN, reworkCheck, type ReworkInput, type ReworkMargins, type ReworkResult } from './rework-check';
+export {
+  countersunkHeadHeightIn,
+  repairCheck,
+  COUNTERSINK_MAX_DEPTH_FRACTION,
+  MAX_REPAIR_HOLES,
+  type CountersinkCheck,
+  type RepairAlternative,
+  type RepairCheckInput,
+  type RepairCheckResult,
+  type RepairHoleInput,
+  type RepairHoleResult,
+} from './repair-check';
 export { lineStations, ribOutline, type FastenerLineInput } from './rib-geometry';
 export { placeHoles, type Zone } from './zoning';
 export {

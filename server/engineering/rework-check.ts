@@ -61,6 +61,14 @@ export interface ReworkResult extends EngineeringResult<ReworkInput> {
 const SCRAP_EDGE_DIAMETERS = 1;
 const SCRAP_PITCH_DIAMETERS = 1.5;
 
+/**
+ * A pitch or edge distance this close below its limit meets it. Half a thousandth of an inch is the
+ * resolution an inspector measures to, and it also absorbs stations stored as float32 (`real` in the
+ * database): below 1000 in a float32 is off by at most 6e-5 in, so a run laid out at exactly 3D reads
+ * back a hair short of it and must not fail for that.
+ */
+export const LAYOUT_TOLERANCE_IN = 0.0005;
+
 export function reworkCheck(input: ReworkInput): ReworkResult {
   const current = findRivet(input.rivetSpec, input.rivetData, 'rivetSpec');
   const proposed = findRivet(input.proposedSpec, input.rivetData, 'proposedSpec');
@@ -86,6 +94,7 @@ export function reworkCheck(input: ReworkInput): ReworkResult {
   const d = layout.diameterIn;
   const rules = [
     `${layoutRuleText(proposed.countersunk)} of the new diameter (FAA AC 43.13-1B 4-57)`,
+    `a pitch or edge distance within ${LAYOUT_TOLERANCE_IN} in below its limit meets it (measurement resolution)`,
     `alternative on failure: scrap when the new hole would leave less than ${SCRAP_EDGE_DIAMETERS}D of edge distance or less than ${SCRAP_PITCH_DIAMETERS}D to a neighbour (our rule), otherwise repair with a doubler`,
   ];
   const warnings: string[] = [];
@@ -96,12 +105,12 @@ export function reworkCheck(input: ReworkInput): ReworkResult {
   }
   if (proposed.family !== current.family) warnings.push(`${proposed.code} is of another rivet family than ${current.code}`);
 
-  if (edge < layout.minEdgeIn - 1e-9) {
+  if (edge < layout.minEdgeIn - LAYOUT_TOLERANCE_IN) {
     reasons.push(`edge distance ${edge.toFixed(4)} in is less than ${proposed.countersunk ? '2.5' : '2'}D = ${layout.minEdgeIn.toFixed(4)} in for ${proposed.code}`);
   }
   const pitches = neighbours.map((n) => (n === null ? null : Math.abs(hole - n))) as [number | null, number | null];
   pitches.forEach((p, i) => {
-    if (p !== null && p < layout.minPitchIn - 1e-9) {
+    if (p !== null && p < layout.minPitchIn - LAYOUT_TOLERANCE_IN) {
       reasons.push(`pitch to the ${i === 0 ? 'previous' : 'next'} hole ${p.toFixed(4)} in is less than 3D = ${layout.minPitchIn.toFixed(4)} in for ${proposed.code}`);
     }
   });

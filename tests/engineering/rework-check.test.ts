@@ -80,3 +80,19 @@ describe('the rework check for an oversize rivet', () => {
     expect(reworkCheck(hole).caution).toMatch(/aid only/);
   });
 });
+
+describe('the rework check at its limits', () => {
+  it('passes stations stored as float32 (Math.fround) exactly 3D apart', () => {
+    // The database stores stations as `real`; 1.3 reads back as 1.2999999523…, a hair under 3D from 0.83125.
+    const [prev, at, next] = [0.83125, 1.3, 1.76875].map(Math.fround);
+    const r = reworkCheck({ ...hole, holeStationIn: at, neighbourStationsIn: [prev, next] });
+    // pitch ≥ 3D = 0.46875 in for AD5 — FAA AC 43.13-1B ch. 4; met at the limit within half a thousandth
+    expect(r.pitchToNeighboursIn[0]).toBeLessThan(0.46875);
+    expect(r.pass).toBe(true);
+  });
+
+  it('still fails a pitch a thousandth short of 3D', () => {
+    // pitch ≥ 3D = 0.46875 in — FAA AC 43.13-1B ch. 4
+    expect(reworkCheck({ ...hole, neighbourStationsIn: [10 - 0.4677, 11] }).pass).toBe(false);
+  });
+});
