@@ -110,13 +110,13 @@ export async function seedDemo(database: Database, storage: PhotoStorage, mailQu
 
   const signer = createUrlSigner(jwtSecret);
   const findings = findingsService({ db, pool, storage, signer, mailQueue });
-  const travelers = travelersService(db, findings.list);
+  const travelers = travelersService(db, pool, findings.list);
   const parts = await travelers.list(builder);
   const innerTraveler = parts.find((t) => t.partNumber === 'W-104')!;
   await travelers.tickHoles(builder, innerTraveler.id, { holeIds: ['U-01', 'U-02', 'U-03', 'U-04', 'U-05', 'U-06', 'U-07', 'U-08'], status: 'installed' });
   await travelers.setStep(builder, innerTraveler.id, (await travelers.detail(builder, innerTraveler.id)).steps[0].id, true);
   await findings.create(builder, {
-    travelerId: innerTraveler.id, holeIds: ['U-09'], kind: 'elongated',
+    travelerId: innerTraveler.id, holeIds: ['U-09'], kind: 'hole_elongated', measurements: { holeDiameterIn: 0.141 },
     note: 'Hole looks oval after deburring, about a drill size long fore and aft.',
   }, [{ buffer: await demoPhoto(), originalname: 'hole-u09.jpg' }]);
   return true;

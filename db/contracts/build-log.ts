@@ -7,8 +7,8 @@ import type { Role } from './common';
  * as plain sentences. The screen, the CSV and the PDF all read the same entries.
  */
 export const buildLogKinds = [
-  'holes_installed', 'holes_pending', 'step_done', 'step_undone', 'signed_off',
-  'finding_flagged', 'finding_in_review', 'finding_dispositioned', 'finding_rework_done', 'finding_verified', 'finding_closed',
+  'holes_installed', 'holes_pending', 'step_done', 'step_undone', 'signed_off', 'part_replaced',
+  'finding_raised', 'finding_dispositioned', 'finding_approval', 'finding_work_done', 'finding_sent_back', 'finding_closed',
   /** A bench event of a kind this version does not know yet: still listed, never dropped. */
   'other',
 ] as const;
@@ -22,9 +22,9 @@ export const buildLogGroupLabels: Record<BuildLogGroup, string> = { bench: 'Benc
 
 export const buildLogKindLabels: Record<BuildLogKind, string> = {
   holes_installed: 'Holes installed', holes_pending: 'Holes back to pending', step_done: 'Step done', step_undone: 'Step undone',
-  signed_off: 'Signed off', finding_flagged: 'Hole flagged', finding_in_review: 'Review started',
-  finding_dispositioned: 'Dispositioned', finding_rework_done: 'Rework done', finding_verified: 'Rework verified',
-  finding_closed: 'Finding closed', other: 'Bench event',
+  signed_off: 'Signed off', part_replaced: 'Part replaced', finding_raised: 'Finding raised',
+  finding_dispositioned: 'Dispositioned', finding_approval: 'Design authority', finding_work_done: 'Work done',
+  finding_sent_back: 'Work sent back', finding_closed: 'Finding closed', other: 'Bench event',
 };
 
 export function groupOfKind(kind: BuildLogKind): BuildLogGroup {

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import type { FastenerLine, PartKind } from './designs';
 import type { FindingSummary } from './findings';
+import type { BuildPlace, PartAction, Readiness, ReplacementReason } from './findings-rules';
 
 export const holeStatuses = ['pending', 'installed', 'flagged', 'held', 'reworked', 'accepted'] as const;
 export type HoleStatus = (typeof holeStatuses)[number];
@@ -23,7 +24,12 @@ export type Hole = { holeId: string; line: string; seq: number; stationIn: numbe
 export type TravelerSummary = {
   id: string; serial: string; shortCode: string; buildId: string; kitSerial: string;
   partNumber: string; partName: string; kind: PartKind; letter: string;
-  holesTotal: number; holesDone: number; openFindings: number; signedOff: boolean; newerRevision: string | null;
+  /** Done for good (installed, accepted); awaiting the inspector (flagged, reworked) counted apart. */
+  holesTotal: number; holesDone: number; holesAwaitingInspector: number; openFindings: number; signedOff: boolean;
+  newerRevision: string | null;
+  /** Scrapped or returned: the part stays in the record, and `byId` carries on in its place. */
+  replaced: { byId: string; reason: ReplacementReason } | null;
+  replacesId: string | null;
 };
 
 export type TravelerDetail = TravelerSummary & {
@@ -36,7 +42,10 @@ export type TravelerDetail = TravelerSummary & {
   findings: FindingSummary[];
   approvedByName: string | null;
   signedOffAt: string | null; signedOffByName: string | null;
+  /** The reader's place on the build, what they may do on the part now, and why it cannot be signed off yet. */
+  place: BuildPlace;
+  allowedActions: PartAction[];
+  readiness: Readiness;
+  replacedBy: { id: string; serial: string } | null;
+  replaces: { id: string; serial: string } | null;
 };
-
-/** Holes that count as done for the progress bar. */
-export const doneStatuses: readonly HoleStatus[] = ['installed', 'reworked', 'accepted'];

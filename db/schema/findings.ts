@@ -1,33 +1,61 @@
-import { index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import {
+  buildPlaces, dispositions, findingClosures, findingEventActions, findingKinds, findingStatuses,
+  type HoleStatus, type Measurements, type RepairRecord,
+} from '../contracts';
 import { travelers } from './travelers';
 import { users } from './users';
 
-export const findingKind = pgEnum('finding_kind', [
-  'elongated', 'oversize', 'cracked', 'edge_distance_short', 'deformed_flange', 'poor_shop_head', 'other',
-]);
-export const findingStatus = pgEnum('finding_status', [
-  'flagged', 'in_review', 'dispositioned', 'rework_done', 'verified', 'closed',
-]);
-export const disposition = pgEnum('disposition', ['use_as_is', 'rework', 'repair', 'scrap']);
+// The lists live once in db/contracts: the tables and the API read the same words.
+export const findingKind = pgEnum('finding_kind', findingKinds);
+export const findingStatus = pgEnum('finding_status', findingStatuses);
+export const disposition = pgEnum('disposition', dispositions);
+export const findingClosure = pgEnum('finding_closure', findingClosures);
+export const findingEventAction = pgEnum('finding_event_action', findingEventActions);
+export const buildPlace = pgEnum('build_place', buildPlaces);
 
 export const findings = pgTable('findings', {
   id: uuid('id').primaryKey().defaultRandom(),
   travelerId: uuid('traveler_id').notNull().references(() => travelers.id, { onDelete: 'cascade' }),
   /** The hole ids (one, or a run) on the traveler. */
   holeIds: text('hole_ids').array().notNull(),
+  /** Each hole's status before the flag: a finding that closes as not a defect puts them back. */
+  holesBefore: jsonb('holes_before').$type<Record<string, HoleStatus>>().notNull().default({}),
   kind: findingKind('kind').notNull(),
   note: text('note').notNull(),
-  status: findingStatus('status').notNull().default('flagged'),
+  measurements: jsonb('measurements').$type<Measurements>().notNull().default({}),
+  status: findingStatus('status').notNull().default('raised'),
   disposition: disposition('disposition'),
   dispositionNote: text('disposition_note'),
-  flaggedBy: uuid('flagged_by').notNull().references(() => users.id),
+  /** The fix chosen for a repair, the check behind it and the reason when the check failed. */
+  repair: jsonb('repair').$type<RepairRecord>(),
+  closure: findingClosure('closure'),
+  /** Once the builder has reported work done, the disposition can no longer be amended. */
+  workReportedAt: timestamp('work_reported_at', { withTimezone: true }),
+  raisedBy: uuid('raised_by').notNull().references(() => users.id),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
 }, (t) => [index('findings_traveler').on(t.travelerId), index('findings_status').on(t.status)]);
 
+/** Every change to a finding: who, in what place on the build, when, what and why. */
+export const findingEvents = pgTable('finding_events', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  findingId: uuid('finding_id').notNull().references(() => findings.id, { onDelete: 'cascade' }),
+  actorId: uuid('actor_id').notNull().references(() => users.id),
+  action: findingEventAction('action').notNull(),
+  actorPlace: buildPlace('actor_place').notNull(),
+  fromStatus: findingStatus('from_status'),
+  toStatus: findingStatus('to_status').notNull(),
+  disposition: disposition('disposition'),
+  note: text('note').notNull().default(''),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+}, (t) => [index('finding_events_finding').on(t.findingId, t.createdAt)]);
+
 export const findingPhotos = pgTable('finding_photos', {
   id: uuid('id').primaryKey().defaultRandom(),
   findingId: uuid('finding_id').notNull().references(() => findings.id, { onDelete: 'cascade' }),
+  /** The event the photo came with: null for the photos of the hole as found. */
+  eventId: uuid('event_id').references(() => findingEvents.id, { onDelete: 'cascade' }),
   /** Server-made names inside the storage folder; never the uploader's file name. */
   fileKey: text('file_key').notNull(),
   thumbKey: text('thumb_key').notNull(),
@@ -36,18 +64,6 @@ export const findingPhotos = pgTable('finding_photos', {
   uploadedBy: uuid('uploaded_by').notNull().references(() => users.id),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 });
-
-/** Every change to a finding: who, when, what. */
-export const findingEvents = pgTable('finding_events', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  findingId: uuid('finding_id').notNull().references(() => findings.id, { onDelete: 'cascade' }),
-  actorId: uuid('actor_id').notNull().references(() => users.id),
-  fromStatus: findingStatus('from_status'),
-  toStatus: findingStatus('to_status').notNull(),
-  disposition: disposition('disposition'),
-  note: text('note').notNull().default(''),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-}, (t) => [index('finding_events_finding').on(t.findingId, t.createdAt)]);
 
 /**
  * One row per (event, recipient) once the mail is handed to SMTP: the queue delivers at least once,

@@ -1,9 +1,11 @@
-import { index, integer, jsonb, pgEnum, pgTable, real, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { type AnyPgColumn, index, integer, jsonb, pgEnum, pgTable, real, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { holeStatuses, replacementReasons } from '../contracts';
 import { builds } from './builds';
 import { designRevisions } from './designs';
 import { users } from './users';
 
-export const holeStatus = pgEnum('hole_status', ['pending', 'installed', 'flagged', 'held', 'reworked', 'accepted']);
+export const holeStatus = pgEnum('hole_status', holeStatuses);
+export const replacedReason = pgEnum('replaced_reason', replacementReasons);
 
 /** One physical part of a build, made from one published revision. */
 export const travelers = pgTable('travelers', {
@@ -17,6 +19,11 @@ export const travelers = pgTable('travelers', {
   shortCode: text('short_code').notNull().unique(),
   signedOffBy: uuid('signed_off_by').references(() => users.id),
   signedOffAt: timestamp('signed_off_at', { withTimezone: true }),
+  /** Scrap or return to supplier: the part stays in the log, marked, and its replacement carries on. */
+  replacedById: uuid('replaced_by_id').references((): AnyPgColumn => travelers.id),
+  replacedAt: timestamp('replaced_at', { withTimezone: true }),
+  replacedReason: replacedReason('replaced_reason'),
+  replacesId: uuid('replaces_id').references((): AnyPgColumn => travelers.id),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 }, (t) => [index('travelers_build').on(t.buildId)]);
 

@@ -1,19 +1,13 @@
-import { and, asc, desc, eq, gte, inArray, isNotNull, isNull, lt, notInArray, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, gte, inArray, lt, notInArray, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
-import type { BuildLogKind, FindingStatus } from '../../db/contracts';
+import { findingEventActions, findingLogKindOfAction, type BuildLogKind } from '../../db/contracts';
 
 export type FindingLogKind = Extract<BuildLogKind, `finding_${string}`>;
 
-/**
- * Which finding events a kind means. A disposition is always `finding_dispositioned`, also when
- * "use as is" closes the finding in the same step; `finding_closed` is the closing of its own.
- */
+/** Which finding events a log kind means: the rules module names the log kind of each action. */
 function findingKindCondition(kind: FindingLogKind): SQL {
-  switch (kind) {
-    case 'finding_dispositioned': return or(eq(findingEvents.toStatus, 'dispositioned'), isNotNull(findingEvents.disposition))!;
-    case 'finding_closed': return and(eq(findingEvents.toStatus, 'closed'), isNull(findingEvents.disposition))!;
-    default: return eq(findingEvents.toStatus, kind.slice('finding_'.length) as FindingStatus);
-  }
+  const actions = findingEventActions.filter((a) => findingLogKindOfAction[a] === kind);
+  return actions.length ? inArray(findingEvents.action, actions) : sql`false`;
 }
 import { builds, designRevisions, findingEvents, findingPhotos, findings, partDesigns, travelerEvents, travelers, users } from '../../db/schema';
 import { visibleBuilds } from '../builds/build-access';
@@ -88,10 +82,10 @@ export async function listFindingLogEvents(db: Db, user: Express.User, w: LogWin
   if (w.before) c.push(lt(findingEvents.createdAt, w.before));
   if (w.findingKinds) c.push(or(...w.findingKinds.map(findingKindCondition))!);
   return db.select({
-    id: findingEvents.id, findingId: findings.id, toStatus: findingEvents.toStatus, fromStatus: findingEvents.fromStatus,
+    id: findingEvents.id, findingId: findings.id, action: findingEvents.action, toStatus: findingEvents.toStatus, fromStatus: findingEvents.fromStatus,
     disposition: findingEvents.disposition, note: findingEvents.note, createdAt: findingEvents.createdAt,
     sortKey: sortKey(findingEvents.createdAt), actorName: users.name, actorRole: users.role,
-    holeIds: findings.holeIds, findingKind: findings.kind,
+    holeIds: findings.holeIds, findingKind: findings.kind, closure: findings.closure,
     travelerId: travelers.id, serial: travelers.serial, partNumber: partDesigns.partNumber, partName: partDesigns.name,
   }).from(findingEvents)
     .innerJoin(findings, eq(findings.id, findingEvents.findingId))
@@ -104,10 +98,10 @@ export async function listFindingLogEvents(db: Db, user: Express.User, w: LogWin
     .orderBy(desc(findingEvents.createdAt), desc(findingEvents.id));
 }
 
-/** Photos of these findings, oldest first, only where the finding's build is visible. */
+/** Photos of these findings (as found: no event; of the work: its event), oldest first, only where the finding's build is visible. */
 export async function listLogPhotos(db: Db, user: Express.User, buildId: string, findingIds: string[]) {
   if (findingIds.length === 0) return [];
-  return db.select({ id: findingPhotos.id, findingId: findingPhotos.findingId, thumbKey: findingPhotos.thumbKey })
+  return db.select({ id: findingPhotos.id, findingId: findingPhotos.findingId, eventId: findingPhotos.eventId, thumbKey: findingPhotos.thumbKey })
     .from(findingPhotos)
     .innerJoin(findings, eq(findings.id, findingPhotos.findingId))
     .innerJoin(travelers, eq(travelers.id, findings.travelerId))

@@ -1,5 +1,5 @@
 import {
-  describeHoleRuns, dispositionLabels, expandKindFilter, findingKindLabels, groupOfKind, logEntryMatches,
+  describeHoleRuns, dispositionLabels, expandKindFilter, findingKindLabels, findingLogKindOfAction, groupOfKind, logEntryMatches,
   type BuildLog, type BuildLogEntry, type BuildLogKind, type BuildLogQuery,
 } from '../../db/contracts';
 import type { AppContext } from '../context';
@@ -14,7 +14,7 @@ type Deps = Pick<AppContext, 'db' | 'signer' | 'storage'>;
 type BenchRow = Awaited<ReturnType<typeof listBenchEvents>>[number];
 type FindingRow = Awaited<ReturnType<typeof listFindingLogEvents>>[number];
 
-const BENCH_KINDS = ['holes_installed', 'holes_pending', 'step_done', 'step_undone', 'signed_off'] as const;
+const BENCH_KINDS = ['holes_installed', 'holes_pending', 'step_done', 'step_undone', 'signed_off', 'part_replaced'] as const;
 
 const natural = (a: string, b: string) => a.localeCompare(b, undefined, { numeric: true });
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
@@ -45,26 +45,35 @@ export function describeBench(kind: string, detail: Record<string, unknown>): { 
     }
     case 'signed_off':
       return { kind, text: 'Signed the part off: every hole and step done, no finding open.' };
+    case 'part_replaced': {
+      const by = typeof detail.replacementSerial === 'string' ? detail.replacementSerial : 'a new part';
+      const why = detail.reason === 'return_to_supplier' ? 'returned to the supplier' : 'scrapped';
+      return { kind, text: `The part was ${why}; ${by} replaces it.` };
+    }
     default:
       return { kind: 'other', text: `Recorded a bench event (${kind.replace(/_/g, ' ')}).` };
   }
 }
 
 /** A finding event as a sentence; the person's own words stay in `note`. */
-export function describeFinding(r: Pick<FindingRow, 'toStatus' | 'disposition' | 'holeIds' | 'findingKind'>): { kind: BuildLogKind; text: string } {
+export function describeFinding(
+  r: Pick<FindingRow, 'action' | 'toStatus' | 'disposition' | 'holeIds' | 'findingKind' | 'closure'>,
+): { kind: BuildLogKind; text: string } {
   const holes = describeHoleRuns([...r.holeIds].sort(natural));
   const on = r.holeIds.length === 1 ? `hole ${holes}` : `holes ${holes}`;
-  if (r.disposition) {
-    const closes = r.toStatus === 'closed' ? '; the finding is closed' : '';
-    return { kind: 'finding_dispositioned', text: `Dispositioned ${on}: ${dispositionLabels[r.disposition].toLowerCase()}${closes}.` };
-  }
-  switch (r.toStatus) {
-    case 'flagged': return { kind: 'finding_flagged', text: `Flagged ${on} as suspect: ${findingKindLabels[r.findingKind].toLowerCase()}.` };
-    case 'in_review': return { kind: 'finding_in_review', text: `Started the review of ${on}.` };
-    case 'dispositioned': return { kind: 'finding_dispositioned', text: `Dispositioned ${on}.` };
-    case 'rework_done': return { kind: 'finding_rework_done', text: `Recorded the ordered work on ${on} as done.` };
-    case 'verified': return { kind: 'finding_verified', text: `Verified the work on ${on}.` };
-    case 'closed': return { kind: 'finding_closed', text: `Closed the finding on ${on}.` };
+  const kind = findingLogKindOfAction[r.action];
+  const disposition = r.disposition ? dispositionLabels[r.disposition].toLowerCase() : '';
+  switch (r.action) {
+    case 'raise': return { kind, text: `Raised a finding on ${on}: ${findingKindLabels[r.findingKind].toLowerCase()}.` };
+    case 'disposition': return { kind, text: `Dispositioned ${on}: ${disposition}${r.toStatus === 'closed' ? '; the part is replaced' : ''}.` };
+    case 'amend': return { kind, text: `Amended the disposition of ${on} to ${disposition}.` };
+    case 'not-a-defect': return { kind, text: `Closed the finding on ${on}: not a defect.` };
+    case 'approve': return { kind, text: `Approved the disposition of ${on} as design authority.` };
+    case 'refuse': return { kind, text: `Refused the disposition of ${on} as design authority: back to the inspector.` };
+    case 'report-done': return { kind, text: `Reported the ordered work on ${on} as done.` };
+    case 'accept': return { kind, text: `Accepted the work on ${on}; the finding is closed.` };
+    case 'send-back': return { kind, text: `Sent the work on ${on} back to be done again.` };
+    case 'part-replaced': return { kind, text: `Closed the finding on ${on}: the part was replaced.` };
   }
 }
 
@@ -97,8 +106,8 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
     ]);
     if (q.travelerId && !parts.some((p) => p.travelerId === q.travelerId)) throw notFound('part of this build');
 
-    const flaggedIds = [...new Set(findingRows.filter((r) => r.toStatus === 'flagged').map((r) => r.findingId))];
-    const photos = await listLogPhotos(db, user, buildId, flaggedIds);
+    const withPhotos = [...new Set(findingRows.filter((r) => r.action === 'raise' || r.action === 'report-done').map((r) => r.findingId))];
+    const photos = await listLogPhotos(db, user, buildId, withPhotos);
     const thumbKeys = new Map(photos.map((p) => [p.id, p.thumbKey]));
 
     const keyed: { sortKey: string; entry: BuildLogEntry }[] = [];
@@ -115,7 +124,8 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
     }
     for (const r of findingRows) {
       const d = describeFinding(r);
-      const own = r.toStatus === 'flagged' ? photos.filter((p) => p.findingId === r.findingId) : [];
+      // The photos of the hole as found go with the raise; those of the work with the event they came with.
+      const own = photos.filter((p) => p.findingId === r.findingId && (r.action === 'raise' ? p.eventId === null : p.eventId === r.id));
       keyed.push({
         sortKey: `${r.sortKey}|f|${r.id}`,
         entry: {

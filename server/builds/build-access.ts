@@ -1,6 +1,7 @@
 import { and, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
 import { buildMembers, builds } from '../../db/schema';
+import type { BuildPlace } from '../../db/contracts';
 
 /**
  * The one rule of who sees a build, as a condition on `builds`: a supplier sees its organisation's,
@@ -15,5 +16,26 @@ export function visibleBuilds(db: Db, user: Express.User): SQL {
     case 'inspector':
       return inArray(builds.id, db.select({ id: buildMembers.buildId }).from(buildMembers)
         .where(and(eq(buildMembers.userId, user.id), eq(buildMembers.role, user.role))));
+  }
+}
+
+/**
+ * Where the person stands towards one build, which decides what they may do on it: a builder or an
+ * inspector by membership, the supplier's engineer of the kit's own organisation as design authority.
+ */
+export async function placeOnBuild(db: Db, user: Express.User, buildId: string): Promise<BuildPlace> {
+  switch (user.role) {
+    case 'supplier': {
+      const [b] = await db.select({ organizationId: builds.organizationId }).from(builds).where(eq(builds.id, buildId));
+      return b && user.organizationId && b.organizationId === user.organizationId ? 'design_authority' : 'none';
+    }
+    case 'builder':
+    case 'inspector': {
+      const [m] = await db.select({ role: buildMembers.role }).from(buildMembers)
+        .where(and(eq(buildMembers.buildId, buildId), eq(buildMembers.userId, user.id), eq(buildMembers.role, user.role)));
+      return m ? m.role : 'none';
+    }
+    case 'admin':
+      return 'none';
   }
 }

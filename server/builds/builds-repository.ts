@@ -1,7 +1,7 @@
-import { and, asc, count, desc, eq, inArray, notInArray, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, inArray, sql } from 'drizzle-orm';
 import type { Db } from '../../db';
 import { buildMembers, builds, findings, holes, kitModels, organizations, travelers, users } from '../../db/schema';
-import { doneStatuses } from '../../db/contracts';
+import { holesDoneStatuses, openFindingStatuses } from '../../db/contracts';
 import { visibleBuilds } from './build-access';
 
 export async function listVisibleBuilds(db: Db, user: Express.User, onlyId?: string) {
@@ -19,10 +19,10 @@ export async function listVisibleBuilds(db: Db, user: Express.User, onlyId?: str
     db.select({ buildId: travelers.buildId, n: count() }).from(travelers).where(inArray(travelers.buildId, ids)).groupBy(travelers.buildId),
     db.select({
       buildId: travelers.buildId, total: count(),
-      done: sql<number>`count(*) filter (where ${inArray(holes.status, [...doneStatuses])})`.mapWith(Number),
+      done: sql<number>`count(*) filter (where ${inArray(holes.status, [...holesDoneStatuses])})`.mapWith(Number),
     }).from(holes).innerJoin(travelers, eq(travelers.id, holes.travelerId)).where(inArray(travelers.buildId, ids)).groupBy(travelers.buildId),
     db.select({ buildId: travelers.buildId, n: count() }).from(findings).innerJoin(travelers, eq(travelers.id, findings.travelerId))
-      .where(and(inArray(travelers.buildId, ids), notInArray(findings.status, ['closed']))).groupBy(travelers.buildId),
+      .where(and(inArray(travelers.buildId, ids), inArray(findings.status, [...openFindingStatuses]))).groupBy(travelers.buildId),
   ]);
   const person = ({ id, name, email }: { id: string; name: string; email: string }) => ({ id, name, email });
   return rows.map(({ organizationId: _, ...b }) => ({

@@ -2,24 +2,11 @@ import { and, eq, inArray } from 'drizzle-orm';
 import QRCode from 'qrcode';
 import type { BuildSummary, QrLabel } from '../../db/contracts';
 import type { Db } from '../../db';
-import { buildMembers, builds, designRevisions, holes, partDesigns, travelerSteps, travelers } from '../../db/schema';
+import { buildMembers, builds, designRevisions, partDesigns, travelers } from '../../db/schema';
 import { badRequest, conflict, forbidden, notFound } from '../http-error';
-import { checkLayout } from '../designs/layout-check';
 import { kitsService } from '../kits/kits-service';
-import { newQrToken, newShortCode } from '../travelers/codes';
-import { placeHoles } from '../travelers/hole-layout';
-import { listTravelers } from '../travelers/travelers-repository';
+import { insertTraveler, listTravelers } from '../travelers/travelers-repository';
 import { findUserByEmail, listVisibleBuilds } from './builds-repository';
-
-/** A short code no traveler has yet: collisions are rare (one in hundreds of millions) but not impossible. */
-async function freeShortCode(tx: Pick<Db, 'select'>): Promise<string> {
-  for (let attempt = 0; attempt < 8; attempt++) {
-    const code = newShortCode();
-    const taken = await tx.select({ id: travelers.id }).from(travelers).where(eq(travelers.shortCode, code));
-    if (!taken.length) return code;
-  }
-  throw new Error('could not find a free short code in 8 tries');
-}
 
 type BuildBody = { kitModelId: string; kitSerial: string; builderEmail: string; inspectorEmail: string };
 
@@ -64,14 +51,7 @@ export const buildsService = (db: Db, publicUrl: string) => {
           { buildId: build.id, userId: inspector!.id, role: 'inspector' },
         ]);
         for (const { design_revisions: rev, part_designs: design } of revisions) {
-          const [traveler] = await tx.insert(travelers).values({
-            buildId: build.id, revisionId: rev.id, serial: `${input.kitSerial}-${design.partNumber}`,
-            qrToken: newQrToken(), shortCode: await freeShortCode(tx),
-          }).returning();
-          const minPitch = checkLayout(rev);
-          const placed = rev.lines.flatMap((line) => placeHoles(line, rev.edgeDistanceIn, minPitch));
-          if (placed.length) await tx.insert(holes).values(placed.map((h) => ({ ...h, travelerId: traveler.id })));
-          if (rev.steps.length) await tx.insert(travelerSteps).values(rev.steps.map((text, i) => ({ travelerId: traveler.id, seq: i + 1, text })));
+          await insertTraveler(tx, { buildId: build.id, serial: `${input.kitSerial}-${design.partNumber}`, revision: rev });
         }
         return build.id;
       });

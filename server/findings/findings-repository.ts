@@ -1,7 +1,9 @@
-import { and, asc, desc, eq, inArray, ne, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
-import { builds, designRevisions, findingEvents, findingPhotos, findings, partDesigns, travelers, users } from '../../db/schema';
-import type { FindingStatus } from '../../db/contracts';
+import {
+  buildMembers, builds, designRevisions, findingEvents, findingPhotos, findings, holes, partDesigns, travelerEvents, travelers, users,
+} from '../../db/schema';
+import { openFindingStatuses, type FindingStatus, type HoleStatus, type MailAudience } from '../../db/contracts';
 import { visibleBuilds } from '../builds/build-access';
 
 export type FindingFilter = { id?: string; travelerId?: string; buildId?: string; status?: FindingStatus | 'open' };
@@ -11,28 +13,97 @@ export async function listFindingRows(db: Db, user: Express.User, filter: Findin
   if (filter.id) conditions.push(eq(findings.id, filter.id));
   if (filter.travelerId) conditions.push(eq(findings.travelerId, filter.travelerId));
   if (filter.buildId) conditions.push(eq(travelers.buildId, filter.buildId));
-  if (filter.status === 'open') conditions.push(ne(findings.status, 'closed'));
+  if (filter.status === 'open') conditions.push(inArray(findings.status, [...openFindingStatuses]));
   else if (filter.status) conditions.push(eq(findings.status, filter.status));
   const rows = await db.select({
     id: findings.id, travelerId: findings.travelerId, serial: travelers.serial, partNumber: partDesigns.partNumber,
     kitSerial: builds.kitSerial, buildId: builds.id, holeIds: findings.holeIds, kind: findings.kind, status: findings.status,
-    disposition: findings.disposition, flaggedByName: users.name, createdAt: findings.createdAt, updatedAt: findings.updatedAt,
-    note: findings.note, dispositionNote: findings.dispositionNote,
+    disposition: findings.disposition, closure: findings.closure, raisedByName: users.name, createdAt: findings.createdAt,
+    updatedAt: findings.updatedAt, note: findings.note, dispositionNote: findings.dispositionNote, measurements: findings.measurements,
+    repair: findings.repair, workReportedAt: findings.workReportedAt,
+    signedOffAt: travelers.signedOffAt, replacedById: travelers.replacedById,
   }).from(findings)
     .innerJoin(travelers, eq(travelers.id, findings.travelerId))
     .innerJoin(builds, eq(builds.id, travelers.buildId))
     .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
     .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
-    .innerJoin(users, eq(users.id, findings.flaggedBy))
+    .innerJoin(users, eq(users.id, findings.raisedBy))
     .where(and(...conditions)).orderBy(desc(findings.createdAt));
   const photos = rows.length === 0 ? [] : await db.select().from(findingPhotos)
     .where(inArray(findingPhotos.findingId, rows.map((r) => r.id))).orderBy(asc(findingPhotos.createdAt));
   return rows.map((r) => ({ ...r, photos: photos.filter((p) => p.findingId === r.id) }));
 }
+export type FindingRow = Awaited<ReturnType<typeof listFindingRows>>[number];
 
 export const listEvents = (db: Db, findingId: string) =>
   db.select({
-    id: findingEvents.id, actorName: users.name, fromStatus: findingEvents.fromStatus, toStatus: findingEvents.toStatus,
+    id: findingEvents.id, action: findingEvents.action, actorName: users.name, actorPlace: findingEvents.actorPlace,
+    fromStatus: findingEvents.fromStatus, toStatus: findingEvents.toStatus,
     disposition: findingEvents.disposition, note: findingEvents.note, createdAt: findingEvents.createdAt,
   }).from(findingEvents).innerJoin(users, eq(users.id, findingEvents.actorId))
     .where(eq(findingEvents.findingId, findingId)).orderBy(asc(findingEvents.createdAt));
+
+/** The finding as it stands now, read inside the unit of work that holds its traveler's lock. */
+export async function findFinding(tx: Db, id: string) {
+  const [row] = await tx.select().from(findings).where(eq(findings.id, id));
+  return row;
+}
+
+export const openFindingsOf = (tx: Db, travelerId: string) =>
+  tx.select().from(findings).where(and(eq(findings.travelerId, travelerId), inArray(findings.status, [...openFindingStatuses])));
+
+export const holesOf = (tx: Db, travelerId: string, holeIds?: string[]) =>
+  tx.select().from(holes)
+    .where(holeIds ? and(eq(holes.travelerId, travelerId), inArray(holes.holeId, holeIds)) : eq(holes.travelerId, travelerId))
+    .orderBy(asc(holes.line), asc(holes.seq));
+
+export async function setHoleStatus(tx: Db, travelerId: string, holeIds: string[], status: HoleStatus, userId: string) {
+  if (!holeIds.length) return;
+  await tx.update(holes).set({ status, updatedBy: userId, updatedAt: new Date() })
+    .where(and(eq(holes.travelerId, travelerId), inArray(holes.holeId, holeIds)));
+}
+
+export async function insertFinding(tx: Db, values: typeof findings.$inferInsert) {
+  const [row] = await tx.insert(findings).values(values).returning();
+  return row;
+}
+
+export async function updateFinding(tx: Db, id: string, values: Partial<typeof findings.$inferInsert>) {
+  await tx.update(findings).set({ ...values, updatedAt: new Date() }).where(eq(findings.id, id));
+}
+
+export async function insertFindingEvent(tx: Db, values: typeof findingEvents.$inferInsert) {
+  const [row] = await tx.insert(findingEvents).values(values).returning();
+  return row;
+}
+
+export async function insertFindingPhotos(tx: Db, values: (typeof findingPhotos.$inferInsert)[]) {
+  if (values.length) await tx.insert(findingPhotos).values(values);
+}
+
+export async function markTravelerReplaced(tx: Db, oldId: string, newId: string, reason: 'scrap' | 'return_to_supplier', actorId: string, newSerial: string) {
+  await tx.update(travelers).set({ replacedById: newId, replacedAt: new Date(), replacedReason: reason }).where(eq(travelers.id, oldId));
+  await tx.insert(travelerEvents).values({ travelerId: oldId, actorId, kind: 'part_replaced', detail: { reason, replacementSerial: newSerial } });
+}
+
+export async function findTravelerBrief(db: Db, id: string) {
+  const [t] = await db.select({ id: travelers.id, serial: travelers.serial }).from(travelers).where(eq(travelers.id, id));
+  return t ?? null;
+}
+
+/** The e-mail addresses behind each audience of a build, less the person who acted. */
+export async function recipientsOf(db: Db, buildId: string, audiences: MailAudience[], exceptUserId: string): Promise<string[]> {
+  const out = new Set<string>();
+  const memberRoles = audiences.flatMap((a) => (a === 'builders' ? ['builder' as const] : a === 'inspectors' ? ['inspector' as const] : []));
+  if (memberRoles.length) {
+    const rows = await db.select({ id: users.id, email: users.email }).from(buildMembers).innerJoin(users, eq(users.id, buildMembers.userId))
+      .where(and(eq(buildMembers.buildId, buildId), inArray(buildMembers.role, memberRoles)));
+    for (const r of rows) if (r.id !== exceptUserId) out.add(r.email);
+  }
+  if (audiences.includes('design_authority')) {
+    const rows = await db.select({ id: users.id, email: users.email }).from(users).innerJoin(builds, eq(builds.organizationId, users.organizationId))
+      .where(and(eq(builds.id, buildId), eq(users.role, 'supplier')));
+    for (const r of rows) if (r.id !== exceptUserId) out.add(r.email);
+  }
+  return [...out].sort();
+}

@@ -1,25 +1,54 @@
-import { and, eq, inArray } from 'drizzle-orm';
-import type { Disposition, FindingDetail, FindingInput, FindingSummary } from '../../db/contracts';
-import { withTransaction } from '../../db';
+import {
+  checkRaise, decide, flaggableHoleStatuses, measuresOfKind, noteRequired, restoredHoleStatus, allowedActions,
+  type FindingAction, type FindingActionInput, type FindingDetail, type FindingInput, type FindingSummary, type HoleStatus,
+  type Measurements, type RepairRecord,
+} from '../../db/contracts';
+import { withTransaction, type Db } from '../../db';
 import type { AppContext } from '../context';
-import { findingEvents, findingPhotos, findings, holes } from '../../db/schema';
+import { placeOnBuild } from '../builds/build-access';
 import { couponsForEngine } from '../coupons/coupons-repository';
-import { findRivetByCallout, nextRivetSize, reworkCheck } from '../engineering';
-import { badRequest, conflict, forbidden, HttpError, notFound } from '../http-error';
+import { findRivetByCallout, nextRivetSize, repairCheck, type RepairCheckResult } from '../engineering';
+import { badRequest, conflict, HttpError, notFound } from '../http-error';
 import { processPhoto } from '../photos/image-processing';
-import { findTravelerParts, listTravelers } from '../travelers/travelers-repository';
-import { mailAudience, nextState, RULES, type Action } from './finding-transitions';
+import type { PhotoStorage } from '../storage/photo-storage';
+import {
+  currentRevisionOf, findTravelerParts, insertTraveler, listTravelers, lockTraveler, replacementSerial,
+} from '../travelers/travelers-repository';
+import {
+  findFinding, findTravelerBrief, holesOf, insertFinding, insertFindingEvent, insertFindingPhotos, listEvents, listFindingRows,
+  markTravelerReplaced, openFindingsOf, setHoleStatus, updateFinding, type FindingFilter, type FindingRow,
+} from './findings-repository';
 import { oversizeOptions } from './oversize-options';
-import { listEvents, listFindingRows, type FindingFilter } from './findings-repository';
 
 type Deps = Pick<AppContext, 'db' | 'pool' | 'storage' | 'signer' | 'mailQueue'>;
-type Row = Awaited<ReturnType<typeof listFindingRows>>[number];
 export type UploadedPhoto = { buffer: Buffer; originalname: string };
 
+/** Photos are checked and re-encoded before anything is written; on any failure their files are removed again. */
+async function withStoredPhotos<T>(storage: PhotoStorage, files: UploadedPhoto[], work: (keys: StoredPhoto[]) => Promise<T>): Promise<T> {
+  const processed = [];
+  for (const f of files) processed.push(await processPhoto(f.buffer, f.originalname));
+  const written: string[] = [];
+  try {
+    const keys: StoredPhoto[] = [];
+    for (const p of processed) {
+      const fileKey = await storage.put(p.full, 'jpg'); written.push(fileKey);
+      const thumbKey = await storage.put(p.thumb, 'jpg'); written.push(thumbKey);
+      keys.push({ fileKey, thumbKey, width: p.width, height: p.height });
+    }
+    return await work(keys);
+  } catch (err) {
+    await Promise.all(written.map((k) => storage.remove(k)));
+    throw err;
+  }
+}
+type StoredPhoto = { fileKey: string; thumbKey: string; width: number; height: number };
+
+const refused = (r: { code: 403 | 409; message: string }) => new HttpError(r.code, r.code === 403 ? 'forbidden' : 'conflict', r.message);
+
 export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) => {
-  const summary = (r: Row): FindingSummary => ({
-    id: r.id, travelerId: r.travelerId, serial: r.serial, partNumber: r.partNumber, kitSerial: r.kitSerial, holeIds: r.holeIds,
-    kind: r.kind, status: r.status, disposition: r.disposition, flaggedByName: r.flaggedByName,
+  const summary = (r: FindingRow): FindingSummary => ({
+    id: r.id, travelerId: r.travelerId, serial: r.serial, partNumber: r.partNumber, kitSerial: r.kitSerial, buildId: r.buildId,
+    holeIds: r.holeIds, kind: r.kind, status: r.status, disposition: r.disposition, closure: r.closure, raisedByName: r.raisedByName,
     createdAt: r.createdAt.toISOString(), updatedAt: r.updatedAt.toISOString(), photoCount: r.photos.length,
     thumbUrl: r.photos[0] ? signer.sign(r.photos[0].id, 'thumb') : null,
   });
@@ -30,137 +59,231 @@ export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) 
     return row;
   }
 
-  /** The first hole of a finding in its layout: its line, its neighbours and the revision it was made to. */
-  async function holeInContext(row: Row) {
-    const parts = (await findTravelerParts(db, row.travelerId))!;
-    const lineHoles = await db.select().from(holes).where(eq(holes.travelerId, row.travelerId)).orderBy(holes.seq);
-    const first = lineHoles.find((h) => h.holeId === row.holeIds[0])!;
-    const onLine = lineHoles.filter((h) => h.line === first.line);
-    const at = onLine.findIndex((h) => h.holeId === first.holeId);
-    const context: FindingDetail['context'] = {
-      line: first.line, stationIn: first.stationIn,
-      prevStationIn: onLine[at - 1]?.stationIn ?? null, nextStationIn: onLine[at + 1]?.stationIn ?? null,
-      edgeDistanceIn: parts.revision.edgeDistanceIn, drillDiameterIn: parts.revision.drillDiameterIn,
-      rivetSpec: parts.revision.rivetSpec, gaugeIn: parts.revision.gaugeIn, material: parts.revision.material,
-      oversizeOptions: oversizeOptions(parts.revision.rivetSpec),
-    };
-    return { parts, context };
+  /** Every hole of the finding in its layout: its line and its neighbours on it. */
+  async function holesInContext(q: Db, travelerId: string, holeIds: string[]) {
+    const all = await holesOf(q, travelerId);
+    return holeIds.map((id) => {
+      const h = all.find((x) => x.holeId === id)!;
+      const onLine = all.filter((x) => x.line === h.line);
+      const at = onLine.findIndex((x) => x.holeId === id);
+      return {
+        holeId: id, line: h.line, stationIn: h.stationIn, status: h.status,
+        prevStationIn: onLine[at - 1]?.stationIn ?? null, nextStationIn: onLine[at + 1]?.stationIn ?? null,
+      };
+    });
+  }
+
+  function rivetOf(spec: string) {
+    try { return findRivetByCallout(spec); } catch { return null; }
   }
 
   async function detail(user: Express.User, id: string): Promise<FindingDetail> {
     const row = await visibleRow(user, id);
-    const [{ context }, events] = await Promise.all([holeInContext(row), listEvents(db, id)]);
+    const [parts, events, place, holesCtx] = await Promise.all([
+      findTravelerParts(db, row.travelerId), listEvents(db, id), placeOnBuild(db, user, row.buildId), holesInContext(db, row.travelerId, row.holeIds),
+    ]);
+    const rev = parts!.revision;
+    const rivet = rivetOf(rev.rivetSpec);
+    const replacement = parts!.traveler.replacedById ? await findTravelerBrief(db, parts!.traveler.replacedById) : null;
     return {
-      ...summary(row), note: row.note, dispositionNote: row.dispositionNote,
-      photos: row.photos.map((p) => ({ id: p.id, width: p.width, height: p.height, url: signer.sign(p.id, 'full'), thumbUrl: signer.sign(p.id, 'thumb') })),
+      ...summary(row), note: row.note, dispositionNote: row.dispositionNote, measurements: row.measurements, repair: row.repair,
+      photos: row.photos.map((p) => ({
+        id: p.id, width: p.width, height: p.height, url: signer.sign(p.id, 'full'), thumbUrl: signer.sign(p.id, 'thumb'),
+        stage: p.eventId ? 'work' : 'found', eventId: p.eventId,
+      })),
       events: events.map((e) => ({ ...e, createdAt: e.createdAt.toISOString() })),
-      context,
+      place,
+      allowedActions: allowedActions(factsOf(row), place),
+      replacement: replacement ? { travelerId: replacement.id, serial: replacement.serial } : null,
+      context: {
+        holes: holesCtx,
+        edgeDistanceIn: rev.edgeDistanceIn, drillDiameterIn: rev.drillDiameterIn, rivetSpec: rev.rivetSpec,
+        rivetDiameterIn: rivet?.nominalDiameterIn ?? null, countersunk: rivet?.countersunk ?? false,
+        gaugeIn: rev.gaugeIn, material: rev.material, oversizeOptions: oversizeOptions(rev.rivetSpec),
+      },
     };
   }
 
   /**
-   * The inspector's check of drilling the hole out to a larger rivet: layout from the traveler, loads from
-   * the revision's engineering basis where it has one, pull-through from the supplier's coupons.
+   * The inspector's check of a repair with a larger rivet, over every hole of the finding: layout from
+   * the traveler, measured edge distance and hole size where the finding has them, loads from the
+   * revision's engineering basis, pull-through from the supplier's coupons.
    */
-  async function reworkCheckFor(user: Express.User, id: string, proposedSpec?: string) {
-    const row = await visibleRow(user, id);
-    const { parts, context } = await holeInContext(row);
-    const current = findRivetByCallout(context.rivetSpec);
+  async function runRepairCheck(row: FindingRow, proposedSpec?: string): Promise<RepairCheckResult> {
+    const parts = (await findTravelerParts(db, row.travelerId))!;
+    const rev = parts.revision;
+    const current = findRivetByCallout(rev.rivetSpec);
     const proposed = proposedSpec ?? nextRivetSize(current)?.code;
     if (!proposed) throw conflict(`${current.code} is the largest rivet of its family: repair with a doubler or scrap`);
-    const basisHole = findBasisHole(parts.revision.basis, row.holeIds[0]);
-    return reworkCheck({
-      rivetSpec: current.code, proposedSpec: proposed, holeStationIn: context.stationIn,
-      neighbourStationsIn: [context.prevStationIn, context.nextStationIn], edgeDistanceIn: context.edgeDistanceIn,
-      gaugeIn: context.gaugeIn, material: context.material,
-      ...(basisHole ? { appliedLimitTensionLb: basisHole.appliedLimitLb, appliedLimitShearLb: basisHole.appliedLimitShearLb } : {}),
+    const ctx = await holesInContext(db, row.travelerId, row.holeIds);
+    const m = row.measurements;
+    return repairCheck({
+      rivetSpec: current.code, proposedSpec: proposed, gaugeIn: rev.gaugeIn, material: rev.material,
+      holes: ctx.map((h) => {
+        const basis = findBasisHole(rev.basis, h.holeId);
+        return {
+          holeId: h.holeId, stationIn: h.stationIn, neighbourStationsIn: [h.prevStationIn, h.nextStationIn] as [number | null, number | null],
+          edgeDistanceIn: rev.edgeDistanceIn,
+          measured: { ...(m.edgeDistanceIn !== undefined ? { edgeDistanceIn: m.edgeDistanceIn } : {}), ...(m.holeDiameterIn !== undefined ? { holeDiameterIn: m.holeDiameterIn } : {}) },
+          ...(basis ? { appliedLimitTensionLb: basis.appliedLimitLb, appliedLimitShearLb: basis.appliedLimitShearLb } : {}),
+        };
+      }),
       // The kit's supplier tested the coupons; the inspector reads them through the build they are on.
-      coupons: await couponsForEngine(db, parts.kit.organizationId, context.material),
+      coupons: await couponsForEngine(db, parts.kit.organizationId, rev.material),
     });
+  }
+
+  /** Checks a decision's words before anything is locked: a missing note or repair scheme is a 400 naming the field. */
+  async function prepareDecision(row: FindingRow, action: FindingAction, input: FindingActionInput & { note: string }, photoCount: number) {
+    if (noteRequired[action] && (input.note ?? '').length < 3) throw badRequest('say why, in a few words', { note: 'say why, in a few words' });
+    if (action === 'report-done' && photoCount === 0) throw badRequest('attach at least one photo of the finished work', { photos: 'attach at least one photo' });
+    if (action !== 'report-done' && photoCount > 0) throw badRequest('photos go with the finding or with the work done', { photos: 'not taken with this step' });
+    if (action !== 'disposition' && action !== 'amend') return { repair: undefined };
+    if (!input.disposition) throw badRequest('choose a disposition', { disposition: 'choose a disposition' });
+    if (input.disposition !== 'repair') return { repair: null };
+    if (!input.repairScheme) throw badRequest('say how the repair is made', { repairScheme: 'choose how the repair is made' });
+    let check: RepairCheckResult | null = null;
+    let rivetSpec: string | null = null;
+    if (input.repairScheme === 'oversize_rivet') {
+      check = await runRepairCheck(row, input.repairRivetSpec);
+      rivetSpec = check.inputs.proposedSpec;
+      if (!check.pass && (input.overrideReason ?? '').length < 3) {
+        throw badRequest(`the repair check fails: ${check.reasons.join('; ')}. Say why you choose it anyway, or choose another repair`, {
+          overrideReason: 'the check fails: say why you choose this repair anyway',
+        });
+      }
+    }
+    const repair: RepairRecord = {
+      scheme: input.repairScheme, rivetSpec,
+      check: check ? { pass: check.pass, reasons: check.reasons, alternative: check.alternative, newDrill: check.newDrill } : null,
+      overrideReason: check && !check.pass ? input.overrideReason ?? null : null,
+    };
+    return { repair };
   }
 
   return {
     detail,
-    reworkCheck: reworkCheckFor,
+    repairCheck: async (user: Express.User, id: string, proposedSpec?: string) => runRepairCheck(await visibleRow(user, id), proposedSpec),
 
     async list(user: Express.User, filter: FindingFilter) {
       return (await listFindingRows(db, user, filter)).map(summary);
     },
 
     /**
-     * Flags suspect holes with photos. Photos are checked and re-encoded before anything is written;
-     * the finding, its photos, its event, the holes and the mail job commit together or not at all.
+     * Raises a finding on suspect holes with photos: the builder at the bench, the inspector, or the
+     * supplier's engineer on a visit. The finding, its photos, its event, the holes and the mail job
+     * commit together or not at all, with the part's lock held.
      */
-    async create(user: Express.User, input: FindingInput, files: UploadedPhoto[]) {
-      if (user.role !== 'builder') throw forbidden('only the builder flags holes');
+    async create(user: Express.User, input: FindingInput & { measurements?: Measurements }, files: UploadedPhoto[]) {
       const [traveler] = await listTravelers(db, user, { id: input.travelerId });
       if (!traveler) throw notFound('traveler');
-      if (traveler.signedOff) throw conflict('this part is signed off: no new findings');
+      const measurements = input.measurements ?? {};
+      const allowed = measuresOfKind[input.kind];
+      const stray = Object.keys(measurements).filter((k) => !(allowed as readonly string[]).includes(k));
+      if (stray.length) throw badRequest(`${stray.join(', ')} is not measured for this kind`, Object.fromEntries(stray.map((k) => [`measurements.${k}`, 'not measured for this kind'])));
       if (files.length === 0) throw badRequest('attach at least one photo of the hole', { photos: 'attach at least one photo' });
-      const processed = [];
-      for (const f of files) processed.push(await processPhoto(f.buffer, f.originalname));
-
       const holeIds = [...new Set(input.holeIds)];
-      const stored: string[] = [];
-      try {
-        const keys: { fileKey: string; thumbKey: string; width: number; height: number }[] = [];
-        for (const p of processed) {
-          const fileKey = await storage.put(p.full, 'jpg'); stored.push(fileKey);
-          const thumbKey = await storage.put(p.thumb, 'jpg'); stored.push(thumbKey);
-          keys.push({ fileKey, thumbKey, width: p.width, height: p.height });
-        }
-        const id = await withTransaction(pool, async (tx) => {
-          const found = await tx.db.select().from(holes)
-            .where(and(eq(holes.travelerId, traveler.id), inArray(holes.holeId, holeIds))).for('update');
-          const missing = holeIds.filter((h) => !found.some((f) => f.holeId === h));
-          if (missing.length) throw badRequest(`no hole ${missing.join(', ')} on this traveler`, { holeIds: `unknown hole ${missing.join(', ')}` });
-          const busy = found.filter((h) => h.status === 'flagged' || h.status === 'held');
-          if (busy.length) throw conflict(`hole ${busy.map((h) => h.holeId).join(', ')} already has an open finding`, { holeIds: 'already flagged' });
-          const [finding] = await tx.db.insert(findings).values({ ...input, holeIds, flaggedBy: user.id }).returning();
-          await tx.db.insert(findingPhotos).values(keys.map((k) => ({ ...k, findingId: finding.id, uploadedBy: user.id })));
-          await tx.db.update(holes).set({ status: 'flagged', updatedBy: user.id, updatedAt: new Date() })
-            .where(and(eq(holes.travelerId, traveler.id), inArray(holes.holeId, holeIds)));
-          const [event] = await tx.db.insert(findingEvents).values({ findingId: finding.id, actorId: user.id, toStatus: 'flagged', note: input.note }).returning();
-          await mailQueue.enqueue(tx, { eventId: event.id });
-          return finding.id;
+
+      const id = await withStoredPhotos(storage, files, (keys) => withTransaction(pool, async (tx) => {
+        const locked = await lockTraveler(tx.db, traveler.id);
+        const place = await placeOnBuild(tx.db, user, locked.buildId);
+        const ok = checkRaise(place, locked.signedOffAt !== null || locked.replacedById !== null);
+        if (!ok.ok) throw refused(ok);
+        const found = await holesOf(tx.db, traveler.id, holeIds);
+        const missing = holeIds.filter((h) => !found.some((f) => f.holeId === h));
+        if (missing.length) throw badRequest(`no hole ${missing.join(', ')} on this traveler`, { holeIds: `unknown hole ${missing.join(', ')}` });
+        const busy = found.filter((h) => !flaggableHoleStatuses.includes(h.status));
+        if (busy.length) throw conflict(`hole ${busy.map((h) => h.holeId).join(', ')} already has an open finding`, { holeIds: 'already under a finding' });
+        const finding = await insertFinding(tx.db, {
+          travelerId: traveler.id, holeIds, kind: input.kind, note: input.note, measurements, raisedBy: user.id,
+          holesBefore: Object.fromEntries(found.map((h) => [h.holeId, h.status])),
         });
-        return detail(user, id);
-      } catch (err) {
-        await Promise.all(stored.map((k) => storage.remove(k)));
-        throw err;
-      }
+        await insertFindingPhotos(tx.db, keys.map((k) => ({ ...k, findingId: finding.id, uploadedBy: user.id })));
+        await setHoleStatus(tx.db, traveler.id, holeIds, 'flagged', user.id);
+        const event = await insertFindingEvent(tx.db, { findingId: finding.id, actorId: user.id, action: 'raise', actorPlace: place, toStatus: 'raised', note: input.note });
+        await mailQueue.enqueue(tx, { eventId: event.id });
+        return finding.id;
+      }));
+      return detail(user, id);
     },
 
-    /** Moves a finding on by the rules table; the status guard in the UPDATE makes a double submit harmless. */
-    async act(user: Express.User, id: string, action: Action, body: { note?: string; disposition?: Disposition }) {
+    /**
+     * One decision, one request: the rules module says whether it is allowed and what it does; this
+     * applies it inside one unit of work with the part's lock held, so a double submit or a racing
+     * change finds the finding already moved and is refused with 409.
+     */
+    async act(user: Express.User, id: string, action: FindingAction, input: FindingActionInput & { note: string }, files: UploadedPhoto[]) {
       const row = await visibleRow(user, id);
-      const rule = RULES[action];
-      if (user.role !== rule.role) throw forbidden(`only the ${rule.role} may do this`);
-      if (!rule.from.includes(row.status) || (rule.when && !rule.when(row.disposition, row.status))) {
-        throw conflict(`the finding is ${row.status.replace('_', ' ')}${row.disposition ? ` (${row.disposition.replace(/_/g, ' ')})` : ''}: it cannot be moved this way now`);
-      }
-      const disposition = action === 'disposition' ? body.disposition! : row.disposition;
-      const next = nextState(action, disposition);
-      await withTransaction(pool, async (tx) => {
-        const updated = await tx.db.update(findings).set({
-          status: next.status, updatedAt: new Date(),
-          ...(action === 'disposition' ? { disposition, dispositionNote: body.note ?? '' } : {}),
-        }).where(and(eq(findings.id, id), eq(findings.status, row.status))).returning({ id: findings.id });
-        if (!updated.length) throw new HttpError(409, 'conflict', 'someone else moved this finding on just now: reload it');
-        if (next.holes) {
-          await tx.db.update(holes).set({ status: next.holes, updatedBy: user.id, updatedAt: new Date() })
-            .where(and(eq(holes.travelerId, row.travelerId), inArray(holes.holeId, row.holeIds)));
-        }
-        const [event] = await tx.db.insert(findingEvents).values({
-          findingId: id, actorId: user.id, fromStatus: row.status, toStatus: next.status,
-          disposition: action === 'disposition' ? disposition : null, note: body.note ?? '',
-        }).returning();
-        if (mailAudience(event.toStatus, event.disposition)) await mailQueue.enqueue(tx, { eventId: event.id });
-      });
+      const { repair } = await prepareDecision(row, action, input, files.length);
+      await withStoredPhotos(storage, files, (keys) => withTransaction(pool, async (tx) => {
+        const t = await lockTraveler(tx.db, row.travelerId);
+        const f = await findFinding(tx.db, id);
+        const place = await placeOnBuild(tx.db, user, t.buildId);
+        const d = decide(factsOf({ ...f, signedOffAt: t.signedOffAt, replacedById: t.replacedById }), action, place, input.disposition);
+        if (!d.ok) throw refused(d);
+
+        await updateFinding(tx.db, id, {
+          status: d.status, disposition: d.disposition, closure: d.closure,
+          ...(action === 'disposition' || action === 'amend' ? { dispositionNote: input.note, repair: repair ?? null } : {}),
+          ...(action === 'refuse' ? { dispositionNote: null, repair: null } : {}),
+          ...(action === 'report-done' ? { workReportedAt: new Date() } : {}),
+        });
+        await applyHoleEffect(tx.db, f, d.holes, user.id);
+        const event = await insertFindingEvent(tx.db, {
+          findingId: id, actorId: user.id, action, actorPlace: place, fromStatus: f.status, toStatus: d.status,
+          disposition: action === 'disposition' || action === 'amend' ? d.disposition : null, note: input.note,
+        });
+        await insertFindingPhotos(tx.db, keys.map((k) => ({ ...k, findingId: id, eventId: event.id, uploadedBy: user.id })));
+        if (d.mail.length) await mailQueue.enqueue(tx, { eventId: event.id });
+        if (d.replacePart) await replacePart(tx.db, t, d.replacePart, d.closure!, id, user.id, place);
+      }));
       return detail(user, id);
     },
   };
 };
+
+/** The rules' view of a finding row and its part. */
+function factsOf(r: { status: FindingRow['status']; disposition: FindingRow['disposition']; workReportedAt: Date | null; signedOffAt: Date | null; replacedById: string | null }) {
+  return { status: r.status, disposition: r.disposition, workReported: r.workReportedAt !== null, partClosed: r.signedOffAt !== null || r.replacedById !== null };
+}
+
+async function applyHoleEffect(
+  tx: Db, f: { travelerId: string; holeIds: string[]; holesBefore: Record<string, HoleStatus> },
+  effect: import('../../db/contracts').HoleEffect, userId: string,
+) {
+  if (!effect) return;
+  if (effect.to !== 'restore') return setHoleStatus(tx, f.travelerId, f.holeIds, effect.to, userId);
+  // Back to what each hole was before the flag; grouped so each status is one statement.
+  const byStatus = new Map<HoleStatus, string[]>();
+  for (const h of f.holeIds) {
+    const s = restoredHoleStatus(f.holesBefore[h] ?? 'installed', effect.acceptInstalled);
+    byStatus.set(s, [...(byStatus.get(s) ?? []), h]);
+  }
+  for (const [s, ids] of byStatus) await setHoleStatus(tx, f.travelerId, ids, s, userId);
+}
+
+/**
+ * Scrap or return to supplier: the build gets a replacement traveler for the same part, made to the
+ * part's current published revision; the old one stays in the record, marked, and its other open
+ * findings close with it (the part they were on is gone).
+ */
+async function replacePart(
+  tx: Db, old: Awaited<ReturnType<typeof lockTraveler>>, reason: 'scrap' | 'return_to_supplier',
+  closure: NonNullable<FindingRow['closure']>, findingId: string, userId: string, place: import('../../db/contracts').BuildPlace,
+) {
+  const revision = await currentRevisionOf(tx, old.revisionId);
+  const serial = await replacementSerial(tx, old);
+  const fresh = await insertTraveler(tx, { buildId: old.buildId, serial, revision, replacesId: old.id });
+  await markTravelerReplaced(tx, old.id, fresh.id, reason, userId, serial);
+  for (const other of await openFindingsOf(tx, old.id)) {
+    if (other.id === findingId) continue;
+    await updateFinding(tx, other.id, { status: 'closed', closure });
+    await insertFindingEvent(tx, {
+      findingId: other.id, actorId: userId, action: 'part-replaced', actorPlace: place, fromStatus: other.status, toStatus: 'closed',
+      note: `The part was replaced by ${serial}.`,
+    });
+  }
+}
 
 /** The computed hole of a revision's load-study basis with this id, if the revision has one. */
 function findBasisHole(basis: Record<string, unknown> | null, holeId: string): { appliedLimitLb: number; appliedLimitShearLb: number } | null {
@@ -171,3 +294,4 @@ function findBasisHole(basis: Record<string, unknown> | null, holeId: string): {
   }
   return null;
 }
+

@@ -1,7 +1,8 @@
 import { and, asc, eq } from 'drizzle-orm';
 import type { Db } from '../../db';
-import { buildMembers, builds, findingEvents, findingPhotos, findings, sentMails, travelers, users } from '../../db/schema';
-import { mailAudience } from '../findings/finding-transitions';
+import { builds, findingEvents, findingPhotos, findings, sentMails, travelers, users } from '../../db/schema';
+import { mailAudienceOf } from '../../db/contracts';
+import { recipientsOf } from '../findings/findings-repository';
 import { findingMail } from '../mail/finding-mail';
 import type { Mailer } from '../mail/transport';
 import type { PhotoStorage } from '../storage/photo-storage';
@@ -9,8 +10,8 @@ import { findTravelerParts } from '../travelers/travelers-repository';
 import type { FindingMailJob } from './mail-queue';
 
 /**
- * Sends the mail for one finding event to everyone who must act on it. The queue may run a job twice,
- * so each (event, recipient) is recorded once sent and skipped on a second run.
+ * Sends the mail for one finding event to everyone who must act on it (the rules module says who).
+ * The queue may run a job twice, so each (event, recipient) is recorded once sent and skipped on a second run.
  */
 export function findingMailWorker(deps: { db: Db; mailer: Mailer; storage: PhotoStorage; publicUrl: string }) {
   const { db, mailer, storage, publicUrl } = deps;
@@ -23,20 +24,23 @@ export function findingMailWorker(deps: { db: Db; mailer: Mailer; storage: Photo
       .innerJoin(builds, eq(builds.id, travelers.buildId))
       .where(eq(findingEvents.id, eventId));
     if (!row) return; // the finding was deleted since: nothing left to tell anyone
-    const audience = mailAudience(row.event.toStatus, row.event.disposition);
-    if (!audience) return;
-    const recipients = await db.select({ email: users.email }).from(buildMembers).innerJoin(users, eq(users.id, buildMembers.userId))
-      .where(and(eq(buildMembers.buildId, row.buildId), eq(buildMembers.role, audience)));
+    const audience = mailAudienceOf(row.event.action, row.event.disposition ?? row.finding.disposition, row.event.actorPlace);
+    if (!audience.length) return;
+    const recipients = await recipientsOf(db, row.buildId, audience, row.event.actorId);
+    if (!recipients.length) return;
     const parts = (await findTravelerParts(db, row.finding.travelerId))!;
-    const [photo] = await db.select().from(findingPhotos).where(eq(findingPhotos.findingId, row.finding.id)).orderBy(asc(findingPhotos.createdAt)).limit(1);
+    // The photo that speaks for the event: the work's own for a report of work done, else the hole as found.
+    const photos = await db.select().from(findingPhotos).where(eq(findingPhotos.findingId, row.finding.id)).orderBy(asc(findingPhotos.createdAt));
+    const photo = photos.find((p) => p.eventId === row.event.id) ?? photos.find((p) => p.eventId === null);
     const thumbnail = photo ? await storage.get(photo.thumbKey).catch(() => null) : null;
     const message = findingMail({
-      findingId: row.finding.id, toStatus: row.event.toStatus, disposition: row.event.disposition, note: row.event.note,
+      findingId: row.finding.id, action: row.event.action, toStatus: row.event.toStatus,
+      disposition: row.event.disposition ?? row.finding.disposition, note: row.event.note,
       actorName: row.actorName, partNumber: parts.design.partNumber, partName: parts.design.name, letter: parts.revision.letter,
       serial: parts.traveler.serial, kitSerial: row.kitSerial, holeIds: row.finding.holeIds, kind: row.finding.kind,
-      link: `${publicUrl}/findings/${row.finding.id}`, thumbnail,
+      repair: row.finding.repair, link: `${publicUrl}/findings/${row.finding.id}`, thumbnail,
     });
-    for (const { email } of recipients) {
+    for (const email of recipients) {
       const [already] = await db.select({ id: sentMails.id }).from(sentMails).where(and(eq(sentMails.eventId, eventId), eq(sentMails.recipient, email)));
       if (already) continue;
       await mailer.send({ to: email, ...message });

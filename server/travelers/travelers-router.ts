@@ -11,7 +11,7 @@ const stepParams = z.object({ id: z.uuid({ message: 'must be an id' }), stepId: 
 export function travelersRouter(ctx: AppContext): Router {
   const r = Router();
   const findings = findingsService(ctx);
-  const service = travelersService(ctx.db, findings.list);
+  const service = travelersService(ctx.db, ctx.pool, findings.list);
   r.get('/', async (req, res) => { res.json(await service.list(req.user!)); });
   r.get('/lookup', validateQuery(lookupInput), async (req, res) => { res.json(await service.lookup(req.user!, res.locals.query.code)); });
   r.get('/:id', async (req, res) => { res.json(await service.detail(req.user!, idParam.parse(req.params).id)); });

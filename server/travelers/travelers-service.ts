@@ -1,34 +1,46 @@
-import { and, asc, eq, inArray, isNull, ne } from 'drizzle-orm';
-import type { TickHolesInput, TravelerDetail } from '../../db/contracts';
-
-import type { Db } from '../../db';
-import { findings, holes, travelerEvents, travelerSteps, travelers, users } from '../../db/schema';
-import { badRequest, conflict, forbidden, notFound } from '../http-error';
+import { and, asc, eq, inArray } from 'drizzle-orm';
+import {
+  allowedPartActions, checkPartAction, signOffReadiness, type PartAction, type TickHolesInput, type TravelerDetail,
+} from '../../db/contracts';
+import { withTransaction, type Db } from '../../db';
+import type { Pool } from 'pg';
+import { holes, travelerEvents, travelerSteps, travelers, users } from '../../db/schema';
+import { placeOnBuild } from '../builds/build-access';
+import { findTravelerBrief } from '../findings/findings-repository';
+import { badRequest, conflict, HttpError, notFound } from '../http-error';
 import { parseTravelerCode } from './codes';
 import { partOutline } from './part-outline';
-import { findTravelerParts, listTravelers } from './travelers-repository';
+import { findTravelerParts, listTravelers, lockTraveler, readPartFacts } from './travelers-repository';
 
 type FindingLister = (user: Express.User, filter: { travelerId: string }) => Promise<TravelerDetail['findings']>;
 
-export const travelersService = (db: Db, listFindings: FindingLister) => {
+export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister) => {
   async function visible(user: Express.User, id: string) {
     const [summary] = await listTravelers(db, user, { id });
     if (!summary) throw notFound('traveler');
     return summary;
   }
 
-  /** Builder actions need the builder of this build, and a part not yet signed off. */
-  async function forBench(user: Express.User, id: string) {
-    if (user.role !== 'builder') throw forbidden('only the builder works the traveler');
-    const summary = await visible(user, id);
-    if (summary.signedOff) throw conflict('this part is signed off and can no longer change');
-    return summary;
+  /**
+   * A write to the part under its lock: the rules module decides with the part as it stands inside
+   * the transaction, so a racing change either lands first or is refused here.
+   */
+  async function underLock<T>(user: Express.User, id: string, action: PartAction, work: (tx: Db) => Promise<T>): Promise<T> {
+    await visible(user, id);
+    return withTransaction(pool, async ({ db: tx }) => {
+      const t = await lockTraveler(tx, id);
+      const place = await placeOnBuild(tx, user, t.buildId);
+      const facts = await readPartFacts(tx, t);
+      const refusal = checkPartAction(facts, action, place);
+      if (refusal) throw new HttpError(refusal.code, refusal.code === 403 ? 'forbidden' : 'conflict', refusal.message);
+      return work(tx);
+    });
   }
 
   async function detail(user: Express.User, id: string): Promise<TravelerDetail> {
     const summary = await visible(user, id);
     const { traveler, revision, design, kit } = (await findTravelerParts(db, id))!;
-    const [holeRows, stepRows, approver, signer, travelerFindings] = await Promise.all([
+    const [holeRows, stepRows, approver, signer, travelerFindings, place, facts, replacedBy, replaces] = await Promise.all([
       db.select({ holeId: holes.holeId, line: holes.line, seq: holes.seq, stationIn: holes.stationIn, status: holes.status })
         .from(holes).where(eq(holes.travelerId, id)).orderBy(asc(holes.line), asc(holes.seq)),
       db.select({ id: travelerSteps.id, seq: travelerSteps.seq, text: travelerSteps.text, doneAt: travelerSteps.doneAt, doneByName: users.name })
@@ -36,6 +48,10 @@ export const travelersService = (db: Db, listFindings: FindingLister) => {
       revision.publishedBy ? db.select({ name: users.name }).from(users).where(eq(users.id, revision.publishedBy)) : Promise.resolve([]),
       traveler.signedOffBy ? db.select({ name: users.name }).from(users).where(eq(users.id, traveler.signedOffBy)) : Promise.resolve([]),
       listFindings(user, { travelerId: id }),
+      placeOnBuild(db, user, traveler.buildId),
+      readPartFacts(db, traveler),
+      traveler.replacedById ? findTravelerBrief(db, traveler.replacedById) : Promise.resolve(null),
+      traveler.replacesId ? findTravelerBrief(db, traveler.replacesId) : Promise.resolve(null),
     ]);
     return {
       ...summary,
@@ -47,6 +63,8 @@ export const travelersService = (db: Db, listFindings: FindingLister) => {
       findings: travelerFindings,
       approvedByName: approver[0]?.name ?? null,
       signedOffAt: traveler.signedOffAt?.toISOString() ?? null, signedOffByName: signer[0]?.name ?? null,
+      place, allowedActions: allowedPartActions(facts, place), readiness: signOffReadiness(facts),
+      replacedBy, replaces,
     };
   }
 
@@ -64,10 +82,9 @@ export const travelersService = (db: Db, listFindings: FindingLister) => {
 
     /** Ticks holes installed (or back to pending). Holes under a finding are the inspector's, not the bench's. */
     async tickHoles(user: Express.User, id: string, input: TickHolesInput) {
-      await forBench(user, id);
       const ids = [...new Set(input.holeIds)];
-      return db.transaction(async (tx) => {
-        const rows = await tx.select().from(holes).where(and(eq(holes.travelerId, id), inArray(holes.holeId, ids))).for('update');
+      return underLock(user, id, 'tick', async (tx) => {
+        const rows = await tx.select().from(holes).where(and(eq(holes.travelerId, id), inArray(holes.holeId, ids)));
         const missing = ids.filter((h) => !rows.some((r) => r.holeId === h));
         if (missing.length) throw badRequest(`no hole ${missing.join(', ')} on this traveler`, { holeIds: `unknown hole ${missing.join(', ')}` });
         const from = input.status === 'installed' ? 'pending' : 'installed';
@@ -87,36 +104,22 @@ export const travelersService = (db: Db, listFindings: FindingLister) => {
     },
 
     async setStep(user: Express.User, id: string, stepId: string, done: boolean) {
-      await forBench(user, id);
-      const [step] = await db.update(travelerSteps).set(done ? { doneAt: new Date(), doneBy: user.id } : { doneAt: null, doneBy: null })
-        .where(and(eq(travelerSteps.id, stepId), eq(travelerSteps.travelerId, id))).returning();
-      if (!step) throw notFound('step');
-      await db.insert(travelerEvents).values({ travelerId: id, actorId: user.id, kind: done ? 'step_done' : 'step_undone', detail: { seq: step.seq, text: step.text } });
-      return { id: step.id, seq: step.seq, text: step.text, doneAt: step.doneAt?.toISOString() ?? null, doneByName: done ? user.name : null };
+      return underLock(user, id, 'step', async (tx) => {
+        const [step] = await tx.update(travelerSteps).set(done ? { doneAt: new Date(), doneBy: user.id } : { doneAt: null, doneBy: null })
+          .where(and(eq(travelerSteps.id, stepId), eq(travelerSteps.travelerId, id))).returning();
+        if (!step) throw notFound('step');
+        await tx.insert(travelerEvents).values({ travelerId: id, actorId: user.id, kind: done ? 'step_done' : 'step_undone', detail: { seq: step.seq, text: step.text } });
+        return { id: step.id, seq: step.seq, text: step.text, doneAt: step.doneAt?.toISOString() ?? null, doneByName: done ? user.name : null };
+      });
     },
 
-    /** The inspector's sign-off: only when every hole is done, every step is done and no finding is open. */
+    /** The inspector's sign-off: the readiness rule, checked on the locked part inside the transaction that signs. */
     async signOff(user: Express.User, id: string) {
-      if (user.role !== 'inspector') throw forbidden('only the inspector signs a part off');
-      const summary = await visible(user, id);
-      if (summary.signedOff) throw conflict('this part is already signed off');
-      const [openHoles, openSteps, openFindings] = await Promise.all([
-        db.select({ holeId: holes.holeId }).from(holes).where(and(eq(holes.travelerId, id), inArray(holes.status, ['pending', 'flagged', 'held']))),
-        db.select({ id: travelerSteps.id }).from(travelerSteps).where(and(eq(travelerSteps.travelerId, id), isNull(travelerSteps.doneAt))),
-        db.select({ id: findings.id }).from(findings).where(and(eq(findings.travelerId, id), ne(findings.status, 'closed'))),
-      ]);
-      const reasons = [
-        openHoles.length ? `${openHoles.length} hole(s) not done` : '',
-        openSteps.length ? `${openSteps.length} step(s) not done` : '',
-        openFindings.length ? `${openFindings.length} finding(s) open` : '',
-      ].filter(Boolean);
-      if (reasons.length) throw conflict(`not ready to sign off: ${reasons.join(', ')}`);
-      await db.transaction(async (tx) => {
-        await tx.update(travelers).set({ signedOffAt: new Date(), signedOffBy: user.id }).where(and(eq(travelers.id, id), isNull(travelers.signedOffAt)));
+      await underLock(user, id, 'sign-off', async (tx) => {
+        await tx.update(travelers).set({ signedOffAt: new Date(), signedOffBy: user.id }).where(eq(travelers.id, id));
         await tx.insert(travelerEvents).values({ travelerId: id, actorId: user.id, kind: 'signed_off', detail: {} });
       });
       return detail(user, id);
     },
   };
 };
-

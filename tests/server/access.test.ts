@@ -60,7 +60,7 @@ describe('role boundaries', () => {
     const tick = await request(t.app).post(`/api/travelers/${travelerId}/holes`).set(auth(otherBuilder)).send({ holeIds: ['L-01'], status: 'installed' });
     expect(tick.status).toBe(404);
     const flag = await request(t.app).post('/api/findings').set(auth(otherBuilder))
-      .field('travelerId', travelerId).field('holeIds', '["L-02"]').field('kind', 'other').field('note', 'not mine')
+      .field('travelerId', travelerId).field('holeIds', '["L-02"]').field('kind', 'hole_burrs').field('note', 'not mine')
       .attach('photos', await sharp({ create: { width: 8, height: 8, channels: 3, background: '#000' } }).png().toBuffer(), 'x.png');
     expect(flag.status).toBe(404);
   });
@@ -84,7 +84,7 @@ describe('role boundaries', () => {
     const rib = designs.body.find((d: { partNumber: string }) => d.partNumber === 'W-104');
     const res = await request(t.app).get(`/api/designs/${rib.id}/finding-clusters`).set(auth(tok.supplier));
     expect(res.status).toBe(200);
-    expect(res.body[0]).toMatchObject({ letter: 'A', holeId: 'U-09', count: 1, builds: 1, open: 1, kinds: { elongated: 1 } });
+    expect(res.body[0]).toMatchObject({ letter: 'A', holeId: 'U-09', count: 1, builds: 1, open: 1, kinds: { hole_elongated: 1 } });
     expect((await request(t.app).get(`/api/designs/${rib.id}/finding-clusters`).set(auth(otherSupplier))).status).toBe(404);
     expect((await request(t.app).get(`/api/designs/${rib.id}/finding-clusters`).set(auth(tok.builder))).status).toBe(403);
   });

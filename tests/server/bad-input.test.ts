@@ -74,7 +74,7 @@ describe('bad input gets a clear error and saves nothing', () => {
   it('answers 415 to a file that is not an image, whatever it is called, and keeps nothing', async () => {
     const before = await savedCounts();
     const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
-      .field('travelerId', travelerId).field('holeIds', '["L-03"]').field('kind', 'oversize').field('note', 'looks big')
+      .field('travelerId', travelerId).field('holeIds', '["L-03"]').field('kind', 'hole_oversize').field('note', 'looks big')
       .attach('photos', await png(), 'fine.png')
       .attach('photos', Buffer.from('%PDF-1.4 not a photo at all'), { filename: 'hole.jpg', contentType: 'image/jpeg' });
     expect(res.status).toBe(415);
@@ -84,7 +84,7 @@ describe('bad input gets a clear error and saves nothing', () => {
 
   it('answers 413 to a photo over 10 MB', async () => {
     const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
-      .field('travelerId', travelerId).field('holeIds', '["L-03"]').field('kind', 'oversize').field('note', 'looks big')
+      .field('travelerId', travelerId).field('holeIds', '["L-03"]').field('kind', 'hole_oversize').field('note', 'looks big')
       .attach('photos', Buffer.alloc(10 * 1024 * 1024 + 10, 1), 'huge.jpg');
     expect(res.status).toBe(413);
   });
@@ -92,7 +92,7 @@ describe('bad input gets a clear error and saves nothing', () => {
   it('rolls back photos and finding when a hole does not exist', async () => {
     const before = await savedCounts();
     const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
-      .field('travelerId', travelerId).field('holeIds', '["Q-99"]').field('kind', 'oversize').field('note', 'looks big')
+      .field('travelerId', travelerId).field('holeIds', '["Q-99"]').field('kind', 'hole_oversize').field('note', 'looks big')
       .attach('photos', await png(), 'a.png');
     expect(res.status).toBe(400);
     expect(res.body.error.fields.holeIds).toMatch(/Q-99/);
@@ -101,7 +101,7 @@ describe('bad input gets a clear error and saves nothing', () => {
 
   it('refuses a finding with no photo, naming the photos field', async () => {
     const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
-      .field('travelerId', travelerId).field('holeIds', '["L-03"]').field('kind', 'oversize').field('note', 'looks big');
+      .field('travelerId', travelerId).field('holeIds', '["L-03"]').field('kind', 'hole_oversize').field('note', 'looks big');
     expect(res.status).toBe(400);
     expect(res.body.error.fields.photos).toBeDefined();
   });

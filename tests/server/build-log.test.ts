@@ -54,13 +54,13 @@ describe('the build log', () => {
     expect(res.status).toBe(200);
     expect(res.body.build).toMatchObject({ id: buildId, kitSerial: 'NK2-0147', supplierName: 'Northfold Kitworks' });
     expect(res.body.parts.map((p: { partNumber: string }) => p.partNumber)).toEqual(['W-104', 'W-105']);
-    expect(kinds(res.body)).toEqual(['finding_flagged', 'step_done', 'holes_installed']);
+    expect(kinds(res.body)).toEqual(['finding_raised', 'step_done', 'holes_installed']);
     const [flag, step, ticks] = res.body.entries as Entry[];
     expect(ticks).toMatchObject({ actorName: DEMO_USERS.builder.name, partNumber: 'W-104', holeIds: ['U-01', 'U-02', 'U-03', 'U-04', 'U-05', 'U-06', 'U-07', 'U-08'] });
     expect(ticks.text).toBe('Installed 8 holes: U-01 to U-08.');
     expect(step.text).toMatch(/^Step 1 done: Deburr all holes/);
     expect(flag).toMatchObject({ holeIds: ['U-09'], note: 'Hole looks oval after deburring, about a drill size long fore and aft.' });
-    expect(flag.text).toBe('Flagged hole U-09 as suspect: elongated hole.');
+    expect(flag.text).toBe('Raised a finding on hole U-09: elongated hole.');
     findingId = flag.findingId!;
     expect(findingId).toBeTruthy();
     const entries = res.body.entries as Entry[];
@@ -81,15 +81,15 @@ describe('the build log', () => {
     for (const token of [tok.inspector, tok.supplier, tok.admin]) {
       const res = await log(token);
       expect(res.status).toBe(200);
-      expect(kinds(res.body)).toEqual(['finding_flagged', 'step_done', 'holes_installed']);
+      expect(kinds(res.body)).toEqual(['finding_raised', 'step_done', 'holes_installed']);
     }
   });
 
   it('filters by kind family or kind, by part, by date and by search words', async () => {
     expect(kinds((await log(tok.builder, { kind: 'bench' })).body)).toEqual(['step_done', 'holes_installed']);
-    expect(kinds((await log(tok.builder, { kind: 'findings' })).body)).toEqual(['finding_flagged']);
+    expect(kinds((await log(tok.builder, { kind: 'findings' })).body)).toEqual(['finding_raised']);
     expect(kinds((await log(tok.builder, { kind: 'sign_off' })).body)).toEqual([]);
-    expect(kinds((await log(tok.builder, { kind: 'holes_installed,finding_flagged' })).body)).toEqual(['finding_flagged', 'holes_installed']);
+    expect(kinds((await log(tok.builder, { kind: 'holes_installed,finding_raised' })).body)).toEqual(['finding_raised', 'holes_installed']);
     expect(kinds((await log(tok.builder, { travelerId: innerId })).body)).toHaveLength(3);
     expect(kinds((await log(tok.builder, { travelerId: outerId })).body)).toEqual([]);
     const today = new Date().toISOString().slice(0, 10);
@@ -99,7 +99,7 @@ describe('the build log', () => {
     expect(kinds((await log(tok.builder, { from: tomorrow })).body)).toEqual([]);
     expect(kinds((await log(tok.builder, { to: yesterday })).body)).toEqual([]);
     expect(kinds((await log(tok.builder, { from: new Date(Date.now() - 3600000).toISOString() })).body)).toHaveLength(3);
-    expect(kinds((await log(tok.builder, { q: 'u-09' })).body)).toEqual(['finding_flagged']);
+    expect(kinds((await log(tok.builder, { q: 'u-09' })).body)).toEqual(['finding_raised']);
     expect(kinds((await log(tok.builder, { q: 'deburr step' })).body)).toEqual(['step_done']);
     // The parts list stays whole, so the picker can switch back.
     expect((await log(tok.builder, { travelerId: outerId })).body.parts).toHaveLength(2);
@@ -140,7 +140,7 @@ describe('the build log', () => {
       .send({ disposition: 'rework', note: 'Drill out to AD5, per the "oversize" sheet; check edge distance' });
     expect(res.status).toBe(200);
     const after = await log(tok.builder);
-    expect(kinds(after.body)).toEqual(['finding_dispositioned', 'finding_flagged', 'step_done', 'holes_installed']);
+    expect(kinds(after.body)).toEqual(['finding_dispositioned', 'finding_raised', 'step_done', 'holes_installed']);
     expect(after.body.entries[0]).toMatchObject({ actorName: DEMO_USERS.inspector.name, text: 'Dispositioned hole U-09: rework.', findingId });
   });
 
@@ -154,7 +154,7 @@ describe('the build log', () => {
     expect(header.slice(0, 7)).toEqual(['Date', 'Time', 'Time zone', 'UTC', 'Who', 'Role', 'Kind']);
     expect(body.every((r) => r.length === header.length)).toBe(true);
     const col = (name: string) => header.indexOf(name);
-    expect(body.map((r) => r[col('Kind')])).toEqual(['holes_installed', 'step_done', 'finding_flagged', 'finding_dispositioned']);
+    expect(body.map((r) => r[col('Kind')])).toEqual(['holes_installed', 'step_done', 'finding_raised', 'finding_dispositioned']);
     expect(body[3][col('Note')]).toBe('Drill out to AD5, per the "oversize" sheet; check edge distance');
     expect(body[0][col('Holes')]).toBe('U-01 U-02 U-03 U-04 U-05 U-06 U-07 U-08');
     expect(body[2][col('Photos')]).toBe('1');
@@ -165,7 +165,7 @@ describe('the build log', () => {
   it('exports CSV with the same filters and in the reader’s time zone', async () => {
     const res = await request(t.app).get(`/api/builds/${buildId}/log.csv`).query({ kind: 'findings', tz: 'America/Denver' }).set(auth(tok.builder));
     const [header, ...body] = parseCsv(res.text);
-    expect(body.map((r) => r[header.indexOf('Kind')])).toEqual(['finding_flagged', 'finding_dispositioned']);
+    expect(body.map((r) => r[header.indexOf('Kind')])).toEqual(['finding_raised', 'finding_dispositioned']);
     expect(body[0][header.indexOf('Time zone')]).toBe('America/Denver');
     const utc = new Date(body[0][header.indexOf('UTC')]);
     const local = `${body[0][header.indexOf('Date')]}T${body[0][header.indexOf('Time')]}`;

@@ -90,16 +90,17 @@ describe('the main loop through the API', () => {
     expect(list.body.find((x: { id: string }) => x.id === travelerId).holesDone).toBe(3);
   });
 
-  it('flags a suspect hole with a photo and mails the inspector with part, hole, kind, link and thumbnail', async () => {
+  it('raises a finding on a suspect hole with a photo and mails the inspector with part, hole, kind, link and thumbnail', async () => {
     const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
-      .field('travelerId', travelerId).field('holeIds', JSON.stringify(['U-04'])).field('kind', 'cracked').field('note', 'hairline crack at the edge')
+      .field('travelerId', travelerId).field('holeIds', JSON.stringify(['U-04'])).field('kind', 'hole_cracked').field('note', 'hairline crack at the edge')
       .attach('photos', await jpeg(), { filename: 'crack.jpg', contentType: 'image/jpeg' });
     expect(res.status).toBe(201);
     findingId = res.body.id;
     expect(res.body.photos).toHaveLength(1);
-    expect(res.body.events[0]).toMatchObject({ toStatus: 'flagged', actorName: DEMO_USERS.builder.name });
+    expect(res.body.events[0]).toMatchObject({ action: 'raise', toStatus: 'raised', actorName: DEMO_USERS.builder.name, actorPlace: 'builder' });
+    expect(res.body.allowedActions).toEqual([]);
     const mail = await t.waitForMail((m) => m.to.includes(DEMO_USERS.inspector.email) && m.subject.includes('R-1') && m.subject.includes('U-04'));
-    expect(mail.text).toContain('Crack at hole');
+    expect(mail.text).toContain('Crack at the hole');
     expect(mail.text).toContain(`/findings/${findingId}`);
     expect(mail.attachments).toBe(1);
     const photo = await request(t.app).get(res.body.photos[0].thumbUrl);
@@ -107,23 +108,30 @@ describe('the main loop through the API', () => {
     expect(photo.type).toBe('image/jpeg');
   });
 
-  it('lets the inspector disposition it; the builder sees it on the traveler and gets a mail', async () => {
+  it('lets the inspector disposition it in one request; the builder sees it on the traveler and gets a mail', async () => {
     const queue = await request(t.app).get('/api/findings?status=open').set(auth(tok.inspector));
     expect(queue.body.map((f: { id: string }) => f.id)).toContain(findingId);
-    const res = await request(t.app).post(`/api/findings/${findingId}/disposition`).set(auth(tok.inspector)).send({ disposition: 'rework', note: 'drill out to AD5' });
+    const seen = await request(t.app).get(`/api/findings/${findingId}`).set(auth(tok.inspector));
+    expect(seen.body.allowedActions).toEqual(['disposition', 'not-a-defect']);
+    const res = await request(t.app).post(`/api/findings/${findingId}/disposition`).set(auth(tok.inspector)).send({ disposition: 'rework', note: 'drill out and set the same rivet again' });
     expect(res.status).toBe(200);
-    expect(res.body).toMatchObject({ status: 'dispositioned', disposition: 'rework' });
+    expect(res.body).toMatchObject({ status: 'work_ordered', disposition: 'rework' });
     const traveler = await request(t.app).get(`/api/travelers/${travelerId}`).set(auth(tok.builder));
     expect(traveler.body.findings[0]).toMatchObject({ id: findingId, disposition: 'rework' });
     expect(traveler.body.holes.find((h: { holeId: string }) => h.holeId === 'U-04').status).toBe('held');
     await t.waitForMail((m) => m.to.includes(DEMO_USERS.builder.email) && m.subject.includes('Disposition: Rework'));
   });
 
-  it('keeps every change as an event, through rework done, verified and closed', async () => {
-    expect((await request(t.app).post(`/api/findings/${findingId}/rework-done`).set(auth(tok.builder)).send({ note: 'drilled #21, AD5 set' })).status).toBe(200);
-    expect((await request(t.app).post(`/api/findings/${findingId}/verify`).set(auth(tok.inspector)).send({ note: 'good' })).status).toBe(200);
-    const closed = await request(t.app).post(`/api/findings/${findingId}/close`).set(auth(tok.inspector)).send({});
-    expect(closed.body.status).toBe('closed');
-    expect(closed.body.events.map((e: { toStatus: string }) => e.toStatus)).toEqual(['flagged', 'dispositioned', 'rework_done', 'verified', 'closed']);
+  it('keeps every change as an event, through work done with a photo and accepted, which closes it', async () => {
+    const done = await request(t.app).post(`/api/findings/${findingId}/report-done`).set(auth(tok.builder))
+      .field('note', 'drilled out, same AD4 set again').attach('photos', await jpeg(), { filename: 'done.jpg', contentType: 'image/jpeg' });
+    expect(done.status).toBe(200);
+    expect(done.body.photos.map((p: { stage: string }) => p.stage)).toEqual(['found', 'work']);
+    await t.waitForMail((m) => m.to.includes(DEMO_USERS.inspector.email) && m.subject.includes('Rework done: to inspect'));
+    const closed = await request(t.app).post(`/api/findings/${findingId}/accept`).set(auth(tok.inspector)).send({ note: 'good' });
+    expect(closed.body).toMatchObject({ status: 'closed', closure: 'accepted', allowedActions: [] });
+    expect(closed.body.events.map((e: { action: string }) => e.action)).toEqual(['raise', 'disposition', 'report-done', 'accept']);
+    const traveler = await request(t.app).get(`/api/travelers/${travelerId}`).set(auth(tok.inspector));
+    expect(traveler.body.holes.find((h: { holeId: string }) => h.holeId === 'U-04').status).toBe('accepted');
   });
 });

@@ -113,7 +113,7 @@ describe('the rework check for an inspector', () => {
   it('fails AD4 → AD5 at the existing 0.25 in edge distance and offers the alternative', async () => {
     // FAA AC 43.13-1B 4-57: an oversize rivet needs 2D of the new diameter, 2 × 5/32 = 0.3125 in.
     const [finding] = (await request(t.app).get('/api/findings?status=open').set(auth(tok.inspector))).body;
-    const res = await request(t.app).post(`/api/findings/${finding.id}/rework-check`).set(auth(tok.inspector)).send({});
+    const res = await request(t.app).post(`/api/findings/${finding.id}/repair-check`).set(auth(tok.inspector)).send({});
     expect(res.status).toBe(200);
     expect(res.body.pass).toBe(false);
     expect(res.body.requiredEdgeIn).toBeCloseTo(0.3125, 4);
