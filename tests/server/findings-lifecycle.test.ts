@@ -93,6 +93,8 @@ describe('every path of a finding ends closed, with the part signed off or repla
     expect((await act(tok.inspector, f.id, 'disposition', { disposition: 'rework', note: 'drill out, same rivet' })).body).toMatchObject({ status: 'work_ordered' });
     await mailedOnce(DEMO_USERS.builder.email, b.kitSerial, 'Disposition: Rework');
     expect(await holeStatus(b.travelerId, 'U-02')).toBe('held');
+    const noPhoto = await act(tok.builder, f.id, 'report-done', { note: 'done, trust me' });
+    expect([noPhoto.status, noPhoto.body.error.fields]).toEqual([400, { photos: expect.any(String) }]);
     expect((await reportDone(f.id)).body).toMatchObject({ status: 'work_done' });
     expect(await holeStatus(b.travelerId, 'U-02')).toBe('reworked');
     await mailedOnce(DEMO_USERS.inspector.email, b.kitSerial, 'Rework done: to inspect');
