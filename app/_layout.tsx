@@ -6,9 +6,10 @@ import { QueryClientProvider } from '@tanstack/react-query';
 import { useFonts } from 'expo-font';
 import { DefaultTheme, Stack, ThemeProvider } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';
-import { useEffect, useState } from 'react';
+import { useEffect, useState, type ReactNode } from 'react';
 import { View } from 'react-native';
 import { colors } from '@/constants/theme';
+import { useArrivalHref } from '@/components/navigation/use-arrival-href';
 import { LoadingState } from '@/components/ui/states';
 import { makeQueryClient } from '@/hooks/query-client';
 import { SessionProvider, useSession } from '@/hooks/use-session';
@@ -25,16 +26,26 @@ export default function RootLayout() {
   const [queryClient] = useState(makeQueryClient);
   return (
     <QueryClientProvider client={queryClient}>
-      <SessionProvider>
+      <SessionWithArrival>
         <UnitsProvider>
           <ThemeProvider value={navTheme}>
             <StatusBar style="dark" />
             <Guarded onSignedOut={() => queryClient.clear()} />
           </ThemeProvider>
         </UnitsProvider>
-      </SessionProvider>
+      </SessionWithArrival>
     </QueryClientProvider>
   );
+}
+
+/**
+ * The session, told which hidden page the app was opened at. A component of its own because the route
+ * hooks re-render it on every navigation; its children are the same elements each time, so nothing below
+ * re-renders with it.
+ */
+function SessionWithArrival({ children }: { children: ReactNode }) {
+  const arrivalHref = useArrivalHref();
+  return <SessionProvider arrivalHref={arrivalHref}>{children}</SessionProvider>;
 }
 
 function Guarded({ onSignedOut }: { onSignedOut: () => void }) {

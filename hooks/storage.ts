@@ -1,4 +1,5 @@
 import AsyncStorage from '@react-native-async-storage/async-storage';
+import { Platform } from 'react-native';
 
 /** Every key the app keeps on the device, in one place so none collide. */
 export const storageKeys = {
@@ -6,6 +7,8 @@ export const storageKeys = {
   units: 'pitchcard.units',
   findingDraft: (travelerId: string) => `pitchcard.finding-draft.${travelerId}`,
   tickOutbox: 'pitchcard.tick-outbox',
+  /** A link opened before signing in (see tabScoped below). */
+  pendingLink: 'pitchcard.pending-link',
 } as const;
 
 export async function readJson<T>(key: string): Promise<T | null> {
@@ -24,3 +27,57 @@ export async function writeJson(key: string, value: unknown): Promise<void> {
 export async function removeKey(key: string): Promise<void> {
   await AsyncStorage.removeItem(key);
 }
+
+/**
+ * Web keeps these in the tab's session storage: a link opened in one tab must not steer a sign-in in
+ * another, and a closed tab should forget it. It still survives a reload of the tab. Elsewhere the
+ * device storage above serves.
+ */
+function webSession(): Storage | null {
+  if (Platform.OS !== 'web' || typeof window === 'undefined') return null;
+  try {
+    return window.sessionStorage ?? null;
+  } catch {
+    // Some browsers refuse storage outright (privacy settings); the value then lives in memory only.
+    return null;
+  }
+}
+
+export const tabScoped = {
+  async read(key: string): Promise<string | null> {
+    if (Platform.OS === 'web') {
+      try {
+        return webSession()?.getItem(key) ?? null;
+      } catch {
+        return null;
+      }
+    }
+    try {
+      return await AsyncStorage.getItem(key);
+    } catch {
+      return null;
+    }
+  },
+  async write(key: string, value: string): Promise<void> {
+    if (Platform.OS === 'web') {
+      try {
+        webSession()?.setItem(key, value);
+      } catch {
+        // A full or refused store loses only the convenience of surviving a reload.
+      }
+      return;
+    }
+    await AsyncStorage.setItem(key, value);
+  },
+  async remove(key: string): Promise<void> {
+    if (Platform.OS === 'web') {
+      try {
+        webSession()?.removeItem(key);
+      } catch {
+        // Nothing stored, nothing to forget.
+      }
+      return;
+    }
+    await AsyncStorage.removeItem(key);
+  },
+};

@@ -1,7 +1,8 @@
 import { createContext, createElement, useCallback, useContext, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import type { Role, SessionUser, SignInResult } from '@/db/contracts';
+import { safeInAppPath } from '@/components/navigation/pending-link';
 import { configureApiClient } from './api-client';
-import { readJson, removeKey, storageKeys, writeJson } from './storage';
+import { readJson, removeKey, storageKeys, tabScoped, writeJson } from './storage';
 
 type Stored = { token: string; expiresAt: string; user: SessionUser };
 
@@ -14,9 +15,14 @@ export type Session = {
   endedBecause: string | null;
   signIn: (result: SignInResult) => Promise<void>;
   signOut: (reason?: string) => Promise<void>;
-  /** Where to go once signed in (a scanned label opened before signing in). */
+  /**
+   * Where to go once signed in: the page a signed-out person opened (a mail's link, a scanned label).
+   * Only a safe in-app path is ever kept; anything else is dropped.
+   */
   pendingHref: string | null;
   setPendingHref: (href: string | null) => void;
+  /** The pending path, forgotten as it is handed over, so that it opens once. */
+  takePendingHref: () => string | null;
 };
 
 const SessionContext = createContext<Session | null>(null);
@@ -25,20 +31,43 @@ function isLive(s: Stored | null): s is Stored {
   return !!s && !!s.token && !!s.user && new Date(s.expiresAt).getTime() > Date.now();
 }
 
-export function SessionProvider({ children }: { children: ReactNode }) {
+/**
+ * `arrivalHref`: the page the app was opened at, if the sign-in guard hides it (read once, at start).
+ * It becomes the pending path when no live session turns up.
+ */
+export function SessionProvider({ children, arrivalHref = null }: { children: ReactNode; arrivalHref?: string | null }) {
   const [status, setStatus] = useState<Session['status']>('loading');
   const [stored, setStored] = useState<Stored | null>(null);
   const [endedBecause, setEndedBecause] = useState<string | null>(null);
-  const [pendingHref, setPendingHref] = useState<string | null>(null);
+  const [pendingHref, setPendingState] = useState<string | null>(null);
   const tokenRef = useRef<string | null>(null);
+  // A ref as well as state: taking the path must see the latest value at once, not after a render.
+  const pendingRef = useRef<string | null>(null);
+  const arrivalRef = useRef(arrivalHref);
+
+  const setPendingHref = useCallback((href: string | null) => {
+    const safe = safeInAppPath(href);
+    pendingRef.current = safe;
+    setPendingState(safe);
+    // Kept outside memory so a reload of the sign-in page still knows where the person was going.
+    void (safe ? tabScoped.write(storageKeys.pendingLink, safe) : tabScoped.remove(storageKeys.pendingLink));
+  }, []);
+
+  const takePendingHref = useCallback(() => {
+    const href = pendingRef.current;
+    if (href) setPendingHref(null);
+    return href;
+  }, [setPendingHref]);
 
   const signOut = useCallback(async (reason?: string) => {
     tokenRef.current = null;
     setStored(null);
     setStatus('signed-out');
     setEndedBecause(reason ?? null);
+    // A link followed by the last person is not the next person's business.
+    setPendingHref(null);
     await removeKey(storageKeys.session);
-  }, []);
+  }, [setPendingHref]);
 
   const signIn = useCallback(async (result: SignInResult) => {
     const next: Stored = { token: result.token, expiresAt: result.expiresAt, user: result.user };
@@ -63,19 +92,23 @@ export function SessionProvider({ children }: { children: ReactNode }) {
 
   useEffect(() => {
     let alive = true;
-    readJson<Stored>(storageKeys.session).then((s) => {
+    Promise.all([readJson<Stored>(storageKeys.session), tabScoped.read(storageKeys.pendingLink)]).then(([s, kept]) => {
       if (!alive) return;
       if (isLive(s)) {
         tokenRef.current = s.token;
         setStored(s);
+        // Already signed in: the page opened shows as it is, and nothing waits for a sign-in.
+        if (kept) setPendingHref(null);
         setStatus('signed-in');
       } else {
+        // A page opened just now wins over one kept from before; a reload of the sign-in page keeps the old one.
+        setPendingHref(arrivalRef.current ?? kept);
         setStatus('signed-out');
         if (s) void removeKey(storageKeys.session);
       }
     });
     return () => { alive = false; };
-  }, []);
+  }, [setPendingHref]);
 
   // End the session when the token expires rather than on the next refused request.
   useEffect(() => {
@@ -96,7 +129,8 @@ export function SessionProvider({ children }: { children: ReactNode }) {
     signOut,
     pendingHref,
     setPendingHref,
-  }), [status, stored, endedBecause, signIn, signOut, pendingHref]);
+    takePendingHref,
+  }), [status, stored, endedBecause, signIn, signOut, pendingHref, setPendingHref, takePendingHref]);
 
   return createElement(SessionContext.Provider, { value }, children);
 }

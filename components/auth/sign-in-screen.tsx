@@ -9,6 +9,7 @@ import { colors, hairline, space } from '@/constants/theme';
 import { FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
 import { applyServerErrors } from '@/components/forms/server-errors';
+import { signInMessage } from '@/components/navigation/pending-link';
 import { Button } from '@/components/ui/button';
 import { Rule, Sheet } from '@/components/ui/sheet';
 import { Notice } from '@/components/ui/states';
@@ -21,6 +22,7 @@ export function SignInScreen() {
   const session = useSession();
   const signIn = useAuthSignInMutation();
   const [formError, setFormError] = useState<string | null>(null);
+  const waiting = signInMessage(session.pendingHref);
   const { control, handleSubmit, setError, formState } = useForm<SignInInput, unknown, z.output<typeof signInInput>>({
     resolver: zodResolver(signInInput, plainParse),
     mode: 'onChange',
@@ -31,7 +33,8 @@ export function SignInScreen() {
     setFormError(null);
     try {
       await signIn.mutateAsync(values);
-      // The root guard swaps the sign-in screen for the app once the session is stored.
+      // The root guard swaps the sign-in screen for the app once the session is stored; the app's first
+      // screen then opens the pending page, if one waits.
     } catch (e) {
       setFormError(applyServerErrors(setError, e));
     }
@@ -48,7 +51,7 @@ export function SignInScreen() {
           <Txt variant="heading" accessibilityRole="header">Sign in</Txt>
           <Rule />
           {session.endedBecause ? <Notice tone="caution">{session.endedBecause}</Notice> : null}
-          {session.pendingHref ? <Notice>Sign in to open the part you scanned.</Notice> : null}
+          {waiting ? <Notice testID="pending-link">{waiting}</Notice> : null}
           <FormTextField
             control={control}
             name="email"

@@ -1,5 +1,5 @@
-import { Redirect, type Href } from 'expo-router';
-import { useEffect } from 'react';
+import { useFocusEffect, useRouter, type Href } from 'expo-router';
+import { useCallback } from 'react';
 import type { Role } from '@/db/contracts';
 import { useSession } from '@/hooks/use-session';
 
@@ -10,12 +10,22 @@ export const homeFor: Record<Role, Href> = {
   admin: '/admin',
 };
 
-/** The first screen after sign-in: a label scanned before signing in, or the role's own first tab. */
+/**
+ * The first screen after sign-in: the page the person opened before signing in (a mail's link, a
+ * scanned label), or else the role's own first tab.
+ *
+ * The pending path is taken once per visit here, not read from render: clearing it re-renders this
+ * screen, and a target computed from render would then send the person on a second time, to home.
+ */
 export function HomeRedirect() {
-  const { user, pendingHref, setPendingHref } = useSession();
-  const target = pendingHref ?? (user ? homeFor[user.role] : '/sign-in');
-  useEffect(() => {
-    if (pendingHref) setPendingHref(null);
-  }, [pendingHref, setPendingHref]);
-  return <Redirect href={target as Href} />;
+  const router = useRouter();
+  const { user, takePendingHref } = useSession();
+  const role = user?.role ?? null;
+  useFocusEffect(
+    useCallback(() => {
+      const pending = takePendingHref();
+      router.replace((pending ?? (role ? homeFor[role] : '/sign-in')) as Href);
+    }, [router, role, takePendingHref]),
+  );
+  return null;
 }

@@ -23,6 +23,8 @@ export function tabsFor(role: Role | null): Tab[] {
         { name: 'studies', title: 'Load studies', glyph: 'studies', testID: 'tab-studies' },
         { name: 'coupons', title: 'Coupons', glyph: 'coupons', testID: 'tab-coupons' },
         { name: 'builds', title: 'Builds', glyph: 'builds', testID: 'tab-builds' },
+        // Findings that wait on the supplier's approval; the ticked-list glyph, as the inspector's review.
+        { name: 'findings', title: 'Approvals', glyph: 'review', testID: 'tab-approvals' },
       ];
     case 'admin':
       return [{ name: 'admin', title: 'Session', glyph: 'session', testID: 'tab-admin' }];

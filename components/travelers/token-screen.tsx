@@ -1,5 +1,6 @@
 import { useRouter } from 'expo-router';
 import { useEffect } from 'react';
+import { safeInAppPath } from '@/components/navigation/pending-link';
 import { Button } from '@/components/ui/button';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
@@ -17,13 +18,22 @@ export function TokenScreen({ token }: { token: string }) {
     if (q.data?.id) router.replace(`/travelers/${q.data.id}`);
   }, [q.data?.id, router]);
 
+  // A label scanned while signed out goes straight to sign-in, which comes back here afterwards.
+  // The message below stays for the moment before, or if the link cannot be kept.
+  const labelHref = safeInAppPath(`/t/${encodeURIComponent(token)}`);
+  useEffect(() => {
+    if (signedIn || !labelHref) return;
+    setPendingHref(labelHref);
+    router.replace('/sign-in');
+  }, [signedIn, labelHref, setPendingHref, router]);
+
   if (!signedIn) {
     return (
       <Screen title="Scanned label">
         <EmptyState
           title="Sign in to open this part."
           body="The label names a traveler. After you sign in it opens by itself."
-          action={<Button label="Sign in" testID="token-sign-in" onPress={() => { setPendingHref(`/t/${token}`); router.replace('/sign-in'); }} />}
+          action={<Button label="Sign in" testID="token-sign-in" onPress={() => { setPendingHref(labelHref); router.replace('/sign-in'); }} />}
         />
       </Screen>
     );
