@@ -1,5 +1,5 @@
 import { Platform } from 'react-native';
-import type { HoleStatus } from '@/db/contracts';
+import type { FindingStatus, HoleStatus } from '@/db/contracts';
 
 /**
  * The drafting-sheet look: warm paper, near-black ink, thin rules and one strong accent (cobalt, like a
@@ -33,6 +33,19 @@ export const statusColors: Record<HoleStatus, string> = {
   held: '#9A6400',
   reworked: '#6A3D9E',
   accepted: '#0D6C70',
+};
+
+/**
+ * A finding's states, each its own colour (and, in status-mark.tsx, its own shape). The states that put
+ * holes in a hole status share that status's colour, so the traveler and the finding read alike;
+ * waiting for the design authority and closed have colours no hole status uses.
+ */
+export const findingStatusColors: Record<FindingStatus, string> = {
+  raised: statusColors.flagged,
+  awaiting_approval: '#8B2F6B',
+  work_ordered: statusColors.held,
+  work_done: statusColors.reworked,
+  closed: '#3D4650',
 };
 
 export const space = { xs: 4, sm: 8, md: 12, lg: 16, xl: 24, xxl: 32 } as const;

@@ -1,5 +1,5 @@
 import { Platform } from 'react-native';
-import type { FindingInput } from '@/db/contracts';
+import type { FindingActionInput, FindingInput } from '@/db/contracts';
 
 /** A photo picked for a finding, as kept in the draft: a URI that can be read back when sending. */
 export type DraftPhoto = { uri: string; name: string; type: string; width?: number; height?: number };
@@ -11,15 +11,10 @@ export class PhotoReadError extends Error {
 }
 
 /**
- * The multipart body of POST /api/findings. On the web the picker gives blob: (or data:) URIs, which
- * must be fetched into a Blob; React Native's FormData takes { uri, name, type } directly.
+ * On the web the picker gives blob: (or data:) URIs, which must be fetched into a Blob; React Native's
+ * FormData takes { uri, name, type } directly.
  */
-export async function findingFormData(input: FindingInput, photos: DraftPhoto[]): Promise<FormData> {
-  const form = new FormData();
-  form.append('travelerId', input.travelerId);
-  form.append('holeIds', JSON.stringify(input.holeIds));
-  form.append('kind', input.kind);
-  form.append('note', input.note);
+async function appendPhotos(form: FormData, photos: DraftPhoto[]): Promise<void> {
   for (const p of photos) {
     if (Platform.OS === 'web') {
       let blob: Blob;
@@ -34,5 +29,29 @@ export async function findingFormData(input: FindingInput, photos: DraftPhoto[])
       form.append('photos', { uri: p.uri, name: p.name, type: p.type } as unknown as Blob);
     }
   }
+}
+
+/**
+ * The multipart body of POST /api/findings. Multipart fields are strings, so the hole list and the
+ * measurements go as JSON (the server parses both).
+ */
+export async function findingFormData(input: FindingInput, photos: DraftPhoto[]): Promise<FormData> {
+  const form = new FormData();
+  form.append('travelerId', input.travelerId);
+  form.append('holeIds', JSON.stringify(input.holeIds));
+  form.append('kind', input.kind);
+  form.append('note', input.note);
+  form.append('measurements', JSON.stringify(input.measurements ?? {}));
+  await appendPhotos(form, photos);
+  return form;
+}
+
+/** The multipart body of a finding action that carries photos (the work done): its text fields, then the photos. */
+export async function findingActionFormData(input: FindingActionInput, photos: DraftPhoto[]): Promise<FormData> {
+  const form = new FormData();
+  for (const [key, value] of Object.entries(input)) {
+    if (typeof value === 'string') form.append(key, value);
+  }
+  await appendPhotos(form, photos);
   return form;
 }

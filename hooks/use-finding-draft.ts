@@ -1,16 +1,18 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
-import type { FindingKind } from '@/db/contracts';
+import type { FindingKind, Measurements } from '@/db/contracts';
 import type { DraftPhoto } from './photo-form-data';
 import { readJson, removeKey, storageKeys, writeJson } from './storage';
 
 export type FindingDraft = {
-  values: { holeIds: string[]; kind?: FindingKind; note: string };
+  /** Measurements in inches, as the form holds them. */
+  values: { holeIds: string[]; kind?: FindingKind; note: string; measurements?: Measurements };
   photos: DraftPhoto[];
   savedAt: string;
 };
 
 function isEmpty(d: Omit<FindingDraft, 'savedAt'>): boolean {
-  return !d.values.holeIds.length && !d.values.kind && !d.values.note.trim() && !d.photos.length;
+  return !d.values.holeIds.length && !d.values.kind && !d.values.note.trim() && !d.photos.length
+    && !Object.values(d.values.measurements ?? {}).some((v) => typeof v === 'number');
 }
 
 /**

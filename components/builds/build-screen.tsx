@@ -1,7 +1,7 @@
 import { useRouter } from 'expo-router';
 import { View } from 'react-native';
 import { space } from '@/constants/theme';
-import { TravelerCard } from '@/components/travelers/traveler-card';
+import { liveFirst, TravelerCard } from '@/components/travelers/traveler-card';
 import { Button } from '@/components/ui/button';
 import { ProgressBar } from '@/components/ui/progress-bar';
 import { Screen } from '@/components/ui/screen';
@@ -27,7 +27,7 @@ export function BuildScreen({ buildId }: { buildId: string }) {
         <KeyValue label="Inspector">{b.inspectors.map((x) => `${x.name} <${x.email}>`).join(', ') || '–'}</KeyValue>
         <KeyValue label="Open findings"><Mono bold>{String(b.openFindings)}</Mono></KeyValue>
       </View>
-      <ProgressBar done={b.holesDone} total={b.holesTotal} />
+      <ProgressBar done={b.holesDone} awaiting={b.travelers.reduce((n, t) => n + t.holesAwaitingInspector, 0)} total={b.holesTotal} />
       <Button label="Build log" variant="secondary" onPress={() => router.push(`/builds/${b.id}/log`)} testID="build-log" />
       {role === 'supplier' ? (
         <Button label="Print QR labels" variant="secondary" onPress={() => router.push(`/builds/${b.id}/labels`)} testID="labels" />
@@ -35,7 +35,7 @@ export function BuildScreen({ buildId }: { buildId: string }) {
       <Section title={`Parts (${b.travelers.length})`}>
         {b.travelers.length ? (
           <View testID="build-travelers">
-            {b.travelers.map((t) => <TravelerCard key={t.id} t={t} onPress={() => router.push(`/travelers/${t.id}`)} />)}
+            {liveFirst(b.travelers).map((t) => <TravelerCard key={t.id} t={t} onPress={() => router.push(`/travelers/${t.id}`)} />)}
           </View>
         ) : <EmptyState title="No parts in this build." body="No part of this kit had a published revision when it was shipped." />}
       </Section>

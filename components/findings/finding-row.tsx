@@ -9,7 +9,7 @@ export function shortDate(iso: string): string {
   return Number.isNaN(d.getTime()) ? iso : d.toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 }
 
-/** One finding in a list: its status mark, the holes, what is wrong and who flagged it. */
+/** One finding in a list: its status mark, the holes, what is wrong and who raised it. */
 export function FindingRow({ f, onPress, showPart = true }: { f: FindingSummary; onPress: () => void; showPart?: boolean }) {
   return (
     <Pressable
@@ -22,13 +22,13 @@ export function FindingRow({ f, onPress, showPart = true }: { f: FindingSummary;
       {f.thumbUrl ? <Image source={{ uri: f.thumbUrl }} style={styles.thumb} accessibilityIgnoresInvertColors /> : <View style={[styles.thumb, styles.noThumb]} />}
       <View style={{ flex: 1, gap: 2 }}>
         <View style={styles.top}>
-          <FindingStatusTag status={f.status} disposition={f.disposition} />
+          <FindingStatusTag status={f.status} disposition={f.disposition} closure={f.closure} />
           <Mono bold>{f.holeIds.join(' ')}</Mono>
         </View>
         <Txt>{findingKindLabels[f.kind]}</Txt>
         <Txt variant="small" tone="soft">
           {showPart ? <><Mono variant="small">{f.partNumber} · {f.serial}</Mono> · </> : null}
-          {f.flaggedByName} · {shortDate(f.createdAt)}
+          raised by {f.raisedByName} · <Mono variant="small">{shortDate(f.createdAt)}</Mono>
         </Txt>
       </View>
     </Pressable>

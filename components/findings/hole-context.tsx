@@ -1,28 +1,29 @@
 import { StyleSheet, View } from 'react-native';
-import type { FindingDetail } from '@/db/contracts';
+import { holeStatuses, measureKeys, type FindingDetail, type HoleInContext, type HoleStatus } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
 import { Caution } from '@/components/ui/caution';
+import { HoleMark, holeStatusLabels } from '@/components/ui/status-mark';
 import { Label, Mono, Txt } from '@/components/ui/text';
 import { formatDiameters } from '@/constants/units';
 import { useUnits } from '@/hooks/use-units';
+import { basisOfFinding } from './measure-basis';
+import { MeasurementJudgement } from './measurement-line';
 
 export type HoleNumbers = {
   pitchBefore: number | null;
   pitchAfter: number | null;
-  edgeInDiameters: number;
   pitchBeforeInDiameters: number | null;
   pitchAfterInDiameters: number | null;
 };
 
-/** Distances to the neighbouring holes, and the layout ratios an inspector reads first. */
-export function holeNumbers(c: FindingDetail['context']): HoleNumbers {
-  const d = c.drillDiameterIn;
-  const pitchBefore = c.prevStationIn == null ? null : c.stationIn - c.prevStationIn;
-  const pitchAfter = c.nextStationIn == null ? null : c.nextStationIn - c.stationIn;
+/** Distances to a hole's neighbours along its line, and in drill diameters: what an inspector reads first. */
+export function holeNumbers(h: Pick<HoleInContext, 'stationIn' | 'prevStationIn' | 'nextStationIn'>, drillDiameterIn: number): HoleNumbers {
+  const d = drillDiameterIn;
+  const pitchBefore = h.prevStationIn == null ? null : h.stationIn - h.prevStationIn;
+  const pitchAfter = h.nextStationIn == null ? null : h.nextStationIn - h.stationIn;
   return {
     pitchBefore,
     pitchAfter,
-    edgeInDiameters: d > 0 ? c.edgeDistanceIn / d : Number.NaN,
     pitchBeforeInDiameters: pitchBefore == null || !(d > 0) ? null : pitchBefore / d,
     pitchAfterInDiameters: pitchAfter == null || !(d > 0) ? null : pitchAfter / d,
   };
@@ -38,41 +39,77 @@ function Row({ label, value, extra, testID }: { label: string; value: string; ex
   );
 }
 
-/** The suspect hole where it sits: its line and station, its neighbours, and the layout numbers. */
+const isHoleStatus = (s: string): s is HoleStatus => (holeStatuses as readonly string[]).includes(s);
+
+/** One hole of the finding where it sits: line, station, its neighbours and the pitch to them. */
+function HoleLine({ h, drillDiameterIn }: { h: HoleInContext; drillDiameterIn: number }) {
+  const u = useUnits();
+  const n = holeNumbers(h, drillDiameterIn);
+  return (
+    <View style={styles.hole} testID={`context-hole-${h.holeId}`}>
+      <View style={styles.holeHead}>
+        {isHoleStatus(h.status) ? <HoleMark status={h.status} size={20} /> : null}
+        <Mono bold variant="heading">{h.holeId}</Mono>
+        <Txt variant="small" tone="soft">
+          line <Mono variant="small" bold>{h.line}</Mono> · station <Mono variant="small" bold>{u.station(h.stationIn)}</Mono>
+          {isHoleStatus(h.status) ? ` · ${holeStatusLabels[h.status].toLowerCase()}` : ''}
+        </Txt>
+      </View>
+      <Row
+        label={h.prevStationIn == null ? 'Hole before: none (line start)' : 'Pitch to the hole before'}
+        value={n.pitchBefore == null ? '–' : u.length(n.pitchBefore)}
+        extra={n.pitchBeforeInDiameters == null ? '' : formatDiameters(n.pitchBeforeInDiameters)}
+        testID={`context-hole-${h.holeId}-pitch-before`}
+      />
+      <Row
+        label={h.nextStationIn == null ? 'Hole after: none (line end)' : 'Pitch to the hole after'}
+        value={n.pitchAfter == null ? '–' : u.length(n.pitchAfter)}
+        extra={n.pitchAfterInDiameters == null ? '' : formatDiameters(n.pitchAfterInDiameters)}
+        testID={`context-hole-${h.holeId}-pitch-after`}
+      />
+    </View>
+  );
+}
+
+/** Every hole of the finding where it sits, the layout numbers of the part, and what was measured against its rule. */
 export function HoleContext({ f }: { f: FindingDetail }) {
   const u = useUnits();
   const c = f.context;
-  const n = holeNumbers(c);
+  const d = c.drillDiameterIn;
+  const basis = basisOfFinding(c);
+  const measured = measureKeys.filter((k) => typeof f.measurements[k] === 'number');
   return (
-    <View style={{ gap: space.sm }} testID="hole-context">
-      <View style={styles.head}>
-        <View style={{ flex: 1 }}>
-          <Label>Hole</Label>
-          <Mono bold variant="title">{f.holeIds.join(' ')}</Mono>
-        </View>
-        <View style={{ flex: 1 }}>
-          <Label>Line · station</Label>
-          <Mono bold>{c.line} · {u.length(c.stationIn)}</Mono>
-        </View>
+    <View style={{ gap: space.md }} testID="hole-context">
+      <View style={{ gap: space.sm }}>
+        {c.holes.map((h) => <HoleLine key={h.holeId} h={h} drillDiameterIn={d} />)}
       </View>
       <View style={styles.table}>
-        <Row label="Station of the hole before" value={c.prevStationIn == null ? 'none (line start)' : u.length(c.prevStationIn)} />
-        <Row label="Pitch to the hole before" value={n.pitchBefore == null ? '–' : u.length(n.pitchBefore)} extra={n.pitchBeforeInDiameters == null ? '' : formatDiameters(n.pitchBeforeInDiameters)} testID="pitch-before" />
-        <Row label="Station of the hole after" value={c.nextStationIn == null ? 'none (line end)' : u.length(c.nextStationIn)} />
-        <Row label="Pitch to the hole after" value={n.pitchAfter == null ? '–' : u.length(n.pitchAfter)} extra={n.pitchAfterInDiameters == null ? '' : formatDiameters(n.pitchAfterInDiameters)} testID="pitch-after" />
-        <Row label="Edge distance (as laid out)" value={u.length(c.edgeDistanceIn)} extra={formatDiameters(n.edgeInDiameters)} testID="context-edge-distance" />
-        <Row label="Drill diameter" value={u.length(c.drillDiameterIn)} />
-        <Row label="Rivet" value={c.rivetSpec} />
+        <Row label="Edge distance (as laid out)" value={u.length(c.edgeDistanceIn)} extra={d > 0 ? formatDiameters(c.edgeDistanceIn / d) : ''} testID="context-edge-distance" />
+        <Row label="Drill diameter" value={u.length(d)} />
+        <Row
+          label="Rivet"
+          value={c.rivetSpec}
+          extra={c.rivetDiameterIn == null ? '' : `⌀ ${u.lengthNumber(c.rivetDiameterIn)}`}
+          testID="context-rivet"
+        />
+        {c.countersunk ? <Row label="Head" value="countersunk" /> : null}
         <Row label="Gauge · material" value={`${u.length(c.gaugeIn)} ${c.material}`} />
       </View>
       <Txt variant="small" tone="faint">D = drill diameter. Ratios are of the layout on the traveler, not of the hole as found.</Txt>
+      {measured.length ? (
+        <View style={{ gap: space.sm }} testID="finding-measurements">
+          <Label>As measured</Label>
+          {measured.map((k) => <MeasurementJudgement key={k} measure={k} value={f.measurements[k]} basis={basis} showValue />)}
+        </View>
+      ) : null}
       <Caution />
     </View>
   );
 }
 
 const styles = StyleSheet.create({
-  head: { flexDirection: 'row', gap: space.md },
   table: { borderTopWidth: hairline, borderColor: colors.ink },
+  hole: { gap: 2, paddingBottom: space.sm, borderBottomWidth: hairline, borderColor: colors.rule },
+  holeHead: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap' },
   row: { flexDirection: 'row', alignItems: 'baseline', gap: space.sm, paddingVertical: space.xs, borderBottomWidth: hairline, borderColor: colors.rule, flexWrap: 'wrap' },
 });

@@ -1,22 +1,23 @@
 import { useRouter } from 'expo-router';
 import { useMemo, useState } from 'react';
 import { FlatList, View } from 'react-native';
+import { isOpenFinding } from '@/db/contracts';
 import { space } from '@/constants/theme';
 import { Choice } from '@/components/ui/choice';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { useFindingsQuery } from '@/hooks/queries/findings';
 import { FindingRow } from './finding-row';
-import { isOpen, sortFindings } from './review-filter';
+import { sortFindings } from './review-filter';
 
-/** The builder's own findings: what is waiting on the inspector and what needs rework. */
+/** The builder's own findings: what waits on the inspector or the design authority, and the work ordered. */
 export function MyFindingsScreen() {
   const router = useRouter();
   const q = useFindingsQuery();
   const [show, setShow] = useState<'open' | 'all'>('open');
-  const rows = useMemo(() => sortFindings((q.data ?? []).filter((f) => show === 'all' || isOpen(f)), { key: 'date', dir: 'desc' }), [q.data, show]);
+  const rows = useMemo(() => sortFindings((q.data ?? []).filter((f) => show === 'all' || isOpenFinding(f.status)), { key: 'date', dir: 'desc' }), [q.data, show]);
   return (
-    <Screen title="Findings" subtitle="Holes flagged on your builds" account scroll={false} testID="my-findings-screen">
+    <Screen title="Findings" subtitle="Findings on your builds" account scroll={false} testID="my-findings-screen">
       {q.isPending ? <LoadingState what="Loading findings" />
         : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
           : (

@@ -45,9 +45,12 @@ export async function pickPhotos(from: 'library' | 'camera', room: number): Prom
   }
 }
 
-/** The photos of a finding being written: thumbnails with remove buttons, and the add buttons. */
-export function PhotoPicker({ photos, onAdd, onRemove, error }: {
-  photos: DraftPhoto[]; onAdd: (from: 'library' | 'camera') => void; onRemove: (i: number) => void; error?: string | null;
+/**
+ * Photos being added (a new finding's, or the work done's): thumbnails with remove buttons, and the add
+ * buttons. `empty` says what a good photo shows, in the words of the form it is in.
+ */
+export function PhotoPicker({ photos, onAdd, onRemove, error, empty = 'No photo yet. A close, sharp photo of the hole helps the inspector most.' }: {
+  photos: DraftPhoto[]; onAdd: (from: 'library' | 'camera') => void; onRemove: (i: number) => void; error?: string | null; empty?: string;
 }) {
   return (
     <View style={{ gap: space.sm }} testID="photos">
@@ -68,7 +71,7 @@ export function PhotoPicker({ photos, onAdd, onRemove, error }: {
             </View>
           ))}
         </View>
-      ) : <Txt tone="soft">No photo yet. A close, sharp photo of the hole helps the inspector most.</Txt>}
+      ) : <Txt tone="soft">{empty}</Txt>}
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
         <Button label="Add a photo" variant="secondary" onPress={() => onAdd('library')} disabled={photos.length >= maxPhotos} testID="add-photo" />
         <Button label="Take a photo" variant="secondary" onPress={() => onAdd('camera')} disabled={photos.length >= maxPhotos} testID="take-photo" />

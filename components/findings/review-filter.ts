@@ -1,4 +1,4 @@
-import { findingKindLabels, findingStatuses, type FindingStatus, type FindingSummary } from '@/db/contracts';
+import { findingKindLabels, findingStatuses, isOpenFinding, type FindingStatus, type FindingSummary } from '@/db/contracts';
 
 /** The review queue's filters and sort, as plain functions so the table stays a view. */
 export type StatusFilter = 'open' | 'all' | FindingStatus;
@@ -6,20 +6,14 @@ export type ReviewFilters = { status: StatusFilter; build: string | 'all'; text:
 export type ReviewSortKey = 'date' | 'part' | 'status';
 export type ReviewSort = { key: ReviewSortKey; dir: 'asc' | 'desc' };
 
-export const closedStatuses: readonly FindingStatus[] = ['verified', 'closed'];
-
-export function isOpen(f: Pick<FindingSummary, 'status'>): boolean {
-  return !closedStatuses.includes(f.status);
-}
-
 export function filterFindings(rows: readonly FindingSummary[], f: ReviewFilters): FindingSummary[] {
   const words = f.text.trim().toLowerCase().split(/\s+/).filter(Boolean);
   return rows.filter((r) => {
-    if (f.status === 'open' && !isOpen(r)) return false;
+    if (f.status === 'open' && !isOpenFinding(r.status)) return false;
     if (f.status !== 'open' && f.status !== 'all' && r.status !== f.status) return false;
     if (f.build !== 'all' && r.kitSerial !== f.build) return false;
     if (!words.length) return true;
-    const hay = [r.partNumber, r.serial, r.kitSerial, r.flaggedByName, findingKindLabels[r.kind], ...r.holeIds].join(' ').toLowerCase();
+    const hay = [r.partNumber, r.serial, r.kitSerial, r.raisedByName, findingKindLabels[r.kind], ...r.holeIds].join(' ').toLowerCase();
     return words.every((w) => hay.includes(w));
   });
 }

@@ -1,18 +1,19 @@
 import { useRouter } from 'expo-router';
 import { useMemo, useState } from 'react';
 import { Image, View } from 'react-native';
-import { findingKindLabels, findingStatuses, findingStatusLabels, type FindingSummary } from '@/db/contracts';
+import { findingKindLabels, findingStatuses, findingStatusLabels, isOpenFinding, type FindingStatus, type FindingSummary } from '@/db/contracts';
 import { colors, space } from '@/constants/theme';
 import { Choice } from '@/components/ui/choice';
 import { Field, FindField } from '@/components/ui/field';
 import { Screen } from '@/components/ui/screen';
+import { Section } from '@/components/ui/sheet';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { FindingStatusTag } from '@/components/ui/status-mark';
 import { Table, type Column } from '@/components/ui/table';
 import { Mono, Txt } from '@/components/ui/text';
 import { useFindingsQuery } from '@/hooks/queries/findings';
-import { shortDate } from './finding-row';
-import { buildsIn, filterFindings, isOpen, nextSort, sortFindings, type ReviewFilters, type ReviewSort, type ReviewSortKey, type StatusFilter } from './review-filter';
+import { FindingRow, shortDate } from './finding-row';
+import { buildsIn, filterFindings, nextSort, sortFindings, type ReviewFilters, type ReviewSort, type ReviewSortKey, type StatusFilter } from './review-filter';
 
 const statusOptions: { value: StatusFilter; label: string }[] = [
   { value: 'open', label: 'Open' },
@@ -20,32 +21,72 @@ const statusOptions: { value: StatusFilter; label: string }[] = [
   ...findingStatuses.map((s) => ({ value: s, label: findingStatusLabels[s] })),
 ];
 
-/** The inspector's queue: every finding on the builds assigned to them, to sort and filter. */
-export function ReviewQueueScreen() {
+export type ReviewQueueProps = {
+  title?: string;
+  subtitle?: string;
+  testID?: string;
+  /** Said when there is no finding at all. */
+  emptyBody?: string;
+  /**
+   * Findings in one state listed first, apart from the table: what waits on this reader (the design
+   * authority's approvals). Asked of the server by that state, so the list is complete however long
+   * the table is.
+   */
+  first?: { status: FindingStatus; title: string; empty: string };
+};
+
+/**
+ * A queue of findings to sort and filter: the inspector's review of the builds they inspect, and the
+ * design authority's view of the builds of their kits (with what awaits their approval first).
+ */
+export function ReviewQueueScreen({
+  title = 'Review',
+  subtitle = 'Findings on the builds you inspect',
+  testID = 'review-screen',
+  emptyBody = 'When a hole is flagged on one of your builds, it shows here and you get an e-mail.',
+  first,
+}: ReviewQueueProps) {
   const router = useRouter();
   const q = useFindingsQuery();
+  const firstQ = useFindingsQuery({ status: first?.status }, { enabled: !!first });
   const [filters, setFilters] = useState<ReviewFilters>({ status: 'open', build: 'all', text: '' });
   const [sort, setSort] = useState<ReviewSort>({ key: 'date', dir: 'desc' });
   const all = useMemo(() => q.data ?? [], [q.data]);
   const rows = useMemo(() => sortFindings(filterFindings(all, filters), sort), [all, filters, sort]);
+  // Oldest first: the longest wait is answered first.
+  const waiting = useMemo(() => sortFindings(firstQ.data ?? [], { key: 'date', dir: 'asc' }), [firstQ.data]);
   const builds = useMemo(() => buildsIn(all), [all]);
-  const openCount = all.filter(isOpen).length;
+  const openCount = all.filter((f) => isOpenFinding(f.status)).length;
 
   const columns: Column<FindingSummary, ReviewSortKey>[] = [
     { key: 'photo', title: 'Photo', flex: 0.7, hideOnPhone: true, render: (f) => (f.thumbUrl
       ? <Image source={{ uri: f.thumbUrl }} style={{ width: 48, height: 48, borderWidth: 1, borderColor: colors.rule }} />
       : <Txt variant="small" tone="faint">none</Txt>) },
-    { key: 'date', title: 'Flagged', sortKey: 'date', flex: 1.3, render: (f) => <Mono variant="small">{shortDate(f.createdAt)}</Mono> },
+    { key: 'date', title: 'Raised', sortKey: 'date', flex: 1.3, render: (f) => <Mono variant="small">{shortDate(f.createdAt)}</Mono> },
     { key: 'part', title: 'Part', sortKey: 'part', flex: 1.4, render: (f) => <Txt variant="small"><Mono variant="small" bold>{f.partNumber}</Mono> · <Mono variant="small">{f.serial}</Mono></Txt> },
     { key: 'holes', title: 'Holes', flex: 1, render: (f) => <Mono bold>{[...f.holeIds].sort().join(' ')}</Mono> },
     { key: 'kind', title: 'Kind', flex: 1.3, render: (f) => <Txt variant="small">{findingKindLabels[f.kind]}</Txt> },
-    { key: 'status', title: 'Status', sortKey: 'status', flex: 1.9, render: (f) => <FindingStatusTag status={f.status} disposition={f.disposition} /> },
+    { key: 'status', title: 'Status', sortKey: 'status', flex: 1.9, render: (f) => <FindingStatusTag status={f.status} disposition={f.disposition} closure={f.closure} /> },
     { key: 'build', title: 'Build', flex: 0.9, render: (f) => <Mono variant="small">{f.kitSerial}</Mono> },
-    { key: 'by', title: 'By', flex: 1, render: (f) => <Txt variant="small">{f.flaggedByName}{f.photoCount ? ` · ${f.photoCount} photo${f.photoCount === 1 ? '' : 's'}` : ''}</Txt> },
+    { key: 'by', title: 'By', flex: 1, render: (f) => <Txt variant="small">{f.raisedByName}{f.photoCount ? ` · ${f.photoCount} photo${f.photoCount === 1 ? '' : 's'}` : ''}</Txt> },
   ];
+
+  const firstBlock = first ? (
+    <Section title={`${first.title} (${firstQ.data?.length ?? '…'})`} testID="review-first">
+      {firstQ.isPending ? <LoadingState what={`Loading: ${first.title.toLowerCase()}`} />
+        : firstQ.isError ? <ErrorState error={firstQ.error} onRetry={() => void firstQ.refetch()} />
+          : waiting.length ? (
+            <View>
+              {waiting.map((f) => <FindingRow key={f.id} f={f} onPress={() => router.push(`/findings/${f.id}`)} />)}
+            </View>
+          ) : <Txt tone="soft" testID="review-first-empty">{first.empty}</Txt>}
+    </Section>
+  ) : null;
 
   const header = (
     <View style={{ gap: space.md, paddingBottom: space.md }}>
+      {firstBlock}
+      {first ? <Section title="Every finding" /> : null}
       <Field label="Status">
         <Choice testIDPrefix="filter-status" value={filters.status} onChange={(status) => setFilters((f) => ({ ...f, status }))} options={statusOptions} />
       </Field>
@@ -65,8 +106,8 @@ export function ReviewQueueScreen() {
   );
 
   return (
-    <Screen title="Review" subtitle="Flagged holes on the builds you inspect" account scroll={false} full testID="review-screen">
-      {q.isPending ? <LoadingState what="Loading the queue" />
+    <Screen title={title} subtitle={subtitle} account scroll={false} full testID={testID}>
+      {q.isPending ? <LoadingState what="Loading the findings" />
         : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
           : (
             <Table
@@ -81,8 +122,8 @@ export function ReviewQueueScreen() {
               header={header}
               empty={
                 <EmptyState
-                  title={all.length ? 'Nothing matches these filters.' : 'The queue is empty.'}
-                  body={all.length ? 'Show all statuses, or clear the search.' : 'When a builder flags a hole on one of your builds, it shows here and you get an e-mail.'}
+                  title={all.length ? 'Nothing matches these filters.' : 'No findings yet.'}
+                  body={all.length ? 'Show all states, or clear the search.' : emptyBody}
                 />
               }
             />

@@ -1,6 +1,6 @@
 import { memo } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
-import type { FastenerLine, Hole } from '@/db/contracts';
+import { holesDoneStatuses, type FastenerLine, type Hole } from '@/db/contracts';
 import { colors, hairline, radius, space, touch } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
 import { HoleMark, holeStatusLabels } from '@/components/ui/status-mark';
@@ -21,7 +21,8 @@ type ChipProps = {
 
 /** One hole: its mark, id and station, big enough for a gloved thumb. */
 const HoleChip = memo(function HoleChip({ hole, station, inRun, isRunStart, focused, disabled, onPress }: ChipProps) {
-  const done = hole.status === 'installed' || hole.status === 'reworked' || hole.status === 'accepted';
+  // Done for good, as the rules module counts it: a reworked hole still waits for the inspector.
+  const done = holesDoneStatuses.includes(hole.status);
   return (
     <Pressable
       testID={`hole-${hole.holeId}`}
@@ -99,7 +100,7 @@ export function HolesPanel({ lines, holes, canTick, mode, pick, run, plan, focus
       {message ? <Notice tone={message.tone} testID={message.tone === 'error' ? 'tick-error' : 'tick-info'}>{message.text}</Notice> : null}
       {lines.map((line) => {
         const onLine = holes.filter((h) => h.line === line.code).sort((a, b) => a.seq - b.seq);
-        const done = onLine.filter((h) => h.status === 'installed' || h.status === 'reworked' || h.status === 'accepted').length;
+        const done = onLine.filter((h) => holesDoneStatuses.includes(h.status)).length;
         return (
           <View key={line.code} style={{ gap: space.sm }} testID={`holes-${line.code}`}>
             <Txt bold>

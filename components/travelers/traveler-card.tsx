@@ -1,27 +1,45 @@
 import { Pressable, StyleSheet, View } from 'react-native';
-import type { TravelerSummary } from '@/db/contracts';
+import { dispositionLabels, type TravelerSummary } from '@/db/contracts';
 import { colors, hairline, space, statusColors, touch } from '@/constants/theme';
 import { Mono, Txt } from '@/components/ui/text';
 
-/** A traveler in a list: part, revision, serial and short code, and how far along it is. */
+/** Live parts first, replaced ones after them: a replaced part stays in the record but is not worked. */
+export function liveFirst<T extends Pick<TravelerSummary, 'replaced'>>(rows: readonly T[]): T[] {
+  return [...rows].sort((a, b) => Number(!!a.replaced) - Number(!!b.replaced));
+}
+
+/**
+ * A traveler in a list: part, revision, serial and short code, how far along it is (holes done, and
+ * holes waiting for the inspector apart), and whether it was replaced.
+ */
 export function TravelerCard({ t, onPress }: { t: TravelerSummary; onPress: () => void }) {
   const frac = t.holesTotal ? t.holesDone / t.holesTotal : 0;
+  const waitFrac = t.holesTotal ? Math.min(1 - frac, t.holesAwaitingInspector / t.holesTotal) : 0;
   return (
     <Pressable
       testID={`traveler-${t.shortCode}`}
       accessibilityRole="button"
-      accessibilityLabel={`${t.partNumber} ${t.partName}, revision ${t.letter}, ${t.holesDone} of ${t.holesTotal} holes done`}
+      accessibilityLabel={`${t.partNumber} ${t.partName}, revision ${t.letter}, ${t.replaced ? 'replaced, ' : ''}${t.holesDone} of ${t.holesTotal} holes done`}
       onPress={onPress}
-      style={({ pressed }) => [styles.row, pressed && { backgroundColor: colors.accentSoft }]}
+      style={({ pressed }) => [styles.row, t.replaced && styles.replaced, pressed && { backgroundColor: colors.accentSoft }]}
     >
       <View style={{ flex: 1, gap: 2 }}>
         <Txt bold><Mono bold>{t.partNumber}</Mono> {t.partName}</Txt>
         <Txt variant="small" tone="soft">
           Rev <Mono variant="small" bold>{t.letter}</Mono> · <Mono variant="small">{t.serial}</Mono> · code <Mono variant="small" bold>{t.shortCode}</Mono> · build {t.kitSerial}
         </Txt>
-        <View style={styles.bar}><View style={[styles.fill, { width: `${frac * 100}%` }]} /></View>
+        <View style={styles.bar}>
+          <View style={[styles.fill, { width: `${frac * 100}%` }]} />
+          {waitFrac > 0 ? <View style={[styles.wait, { left: `${frac * 100}%`, width: `${waitFrac * 100}%` }]} /> : null}
+        </View>
         <View style={styles.flags}>
-          <Mono variant="small">{t.holesDone}/{t.holesTotal} holes</Mono>
+          {t.replaced ? (
+            <Txt variant="small" bold tone="error" testID={`traveler-replaced-${t.shortCode}`}>
+              ✕ Replaced ({dispositionLabels[t.replaced.reason].toLowerCase()})
+            </Txt>
+          ) : null}
+          <Mono variant="small">{t.holesDone}/{t.holesTotal} holes done</Mono>
+          {t.holesAwaitingInspector ? <Mono variant="small" tone="soft">{t.holesAwaitingInspector} awaiting the inspector</Mono> : null}
           {t.openFindings ? <Txt variant="small" bold style={{ color: statusColors.flagged }}>▲ {t.openFindings} open finding{t.openFindings === 1 ? '' : 's'}</Txt> : null}
           {t.newerRevision ? <Txt variant="small" bold tone="caution">Rev {t.newerRevision} is out</Txt> : null}
           {t.signedOff ? <Txt variant="small" bold style={{ color: statusColors.accepted }}>Signed off</Txt> : null}
@@ -34,7 +52,9 @@ export function TravelerCard({ t, onPress }: { t: TravelerSummary; onPress: () =
 
 const styles = StyleSheet.create({
   row: { flexDirection: 'row', alignItems: 'center', gap: space.md, paddingVertical: space.md, paddingHorizontal: space.xs, minHeight: touch, borderBottomWidth: hairline, borderColor: colors.rule },
-  bar: { height: 6, backgroundColor: colors.paperSunk, borderWidth: hairline, borderColor: colors.ruleStrong, marginTop: space.xs },
+  bar: { height: 6, overflow: 'hidden', backgroundColor: colors.paperSunk, borderWidth: hairline, borderColor: colors.ruleStrong, marginTop: space.xs },
   fill: { height: '100%', backgroundColor: statusColors.installed },
+  wait: { position: 'absolute', top: 0, bottom: 0, backgroundColor: statusColors.reworked, opacity: 0.45 },
+  replaced: { opacity: 0.75 },
   flags: { flexDirection: 'row', gap: space.md, flexWrap: 'wrap' },
 });

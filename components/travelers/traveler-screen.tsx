@@ -1,7 +1,7 @@
 import { useRouter } from 'expo-router';
 import { useCallback, useMemo, useState } from 'react';
 import { View } from 'react-native';
-import { doneStatuses, type Hole, type HoleStatus, type TickHolesInput, type TravelerDetail } from '@/db/contracts';
+import { dispositionLabels, type Hole, type HoleStatus, type TickHolesInput, type TravelerDetail } from '@/db/contracts';
 import { space } from '@/constants/theme';
 import { FindingRow } from '@/components/findings/finding-row';
 import { Button } from '@/components/ui/button';
@@ -13,10 +13,9 @@ import { HoleMark, holeStatusHelp, holeStatusLabels, HoleStatusLegend } from '@/
 import { Mono, Txt } from '@/components/ui/text';
 import { TwoPane } from '@/components/ui/two-pane';
 import { errorMessage } from '@/hooks/api-client';
-import { useTravelerQuery, useTravelerSignOffMutation, useTravelerStepMutation, useTravelerTickMutation } from '@/hooks/queries/travelers';
+import { countHoles, useTravelerQuery, useTravelerSignOffMutation, useTravelerStepMutation, useTravelerTickMutation } from '@/hooks/queries/travelers';
 import { usePendingTicks } from '@/hooks/use-tick-outbox';
 import { useFlash } from '@/hooks/use-flash';
-import { useRole } from '@/hooks/use-session';
 import { useUnits } from '@/hooks/use-units';
 import { HolesPanel } from './holes-panel';
 import { PartDrawing } from './part-drawing';
@@ -39,15 +38,17 @@ export function TravelerScreen({ travelerId }: { travelerId: string }) {
 function TravelerBody({ t }: { t: TravelerDetail }) {
   const [sentFindingId, clearSent] = useFlash(`finding-sent:${t.id}`);
   const router = useRouter();
-  const role = useRole();
   const units = useUnits();
   const tick = useTravelerTickMutation(t.id);
   const waiting = usePendingTicks(t.id);
   const step = useTravelerStepMutation(t.id);
   const signOff = useTravelerSignOffMutation(t.id);
 
-  const isBuilder = role === 'builder';
-  const canTick = isBuilder && !t.signedOff;
+  // What this reader may do on the part comes from the server's answer (the rules module), never from the role alone.
+  const canTick = t.allowedActions.includes('tick');
+  const canStep = t.allowedActions.includes('step');
+  const canRaise = t.allowedActions.includes('raise');
+  const canSignOff = t.allowedActions.includes('sign-off');
   const [mode, setMode] = useState<'tap' | 'run'>('tap');
   const [pick, setPick] = useState<RunPick>(null);
   const [focusId, setFocusId] = useState<string | null>(null);
@@ -56,14 +57,13 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
   const run = useMemo(() => (mode === 'run' ? runHoles(t.holes, pick) : []), [mode, pick, t.holes]);
   const plan = useMemo(() => (pick?.lastId ? planRun(run) : null), [pick, run]);
   const runIds = useMemo(() => new Set(run.map((h) => h.holeId)), [run]);
-  const done = t.holes.filter((h) => doneStatuses.includes(h.status)).length;
+  const progress = useMemo(() => countHoles(t.holes), [t.holes]);
   const counts = useMemo(() => {
     const c: Partial<Record<HoleStatus, number>> = {};
     for (const h of t.holes) c[h.status] = (c[h.status] ?? 0) + 1;
     return c;
   }, [t.holes]);
   const focus = focusId ? t.holes.find((h) => h.holeId === focusId) ?? null : null;
-  const openFindings = t.findings.filter((f) => f.status !== 'closed' && f.status !== 'verified');
 
   const send = useCallback((action: TickHolesInput) => {
     setMessage(null);
@@ -92,6 +92,23 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
 
   const left = (
     <>
+      {t.replaced ? (
+        <Notice tone="error" testID="replaced-by">
+          <Txt bold>This part was replaced ({dispositionLabels[t.replaced.reason].toLowerCase()}): work its replacement.</Txt>
+          <Txt>It stays in the record as it was; nothing more is done on it.</Txt>
+          <Button
+            label={t.replacedBy ? `Open the replacement, serial ${t.replacedBy.serial}` : 'Open the replacement'}
+            onPress={() => router.push(`/travelers/${t.replacedBy?.id ?? t.replaced!.byId}`)}
+            testID="replaced-by-open"
+          />
+        </Notice>
+      ) : null}
+      {t.replaces ? (
+        <Notice testID="replaces">
+          <Txt>This part replaces serial <Mono bold>{t.replaces.serial}</Mono>, taken out of the build after a finding.</Txt>
+          <Button label="Open the part it replaces" variant="quiet" compact onPress={() => router.push(`/travelers/${t.replaces!.id}`)} testID="replaces-open" />
+        </Notice>
+      ) : null}
       <TravelerHeader t={t} />
       {t.signedOff ? (
         <Notice tone="ok" testID="signed-off">
@@ -119,7 +136,7 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
                   testID="focus-tick"
                 />
               ) : null}
-              {isBuilder && !t.signedOff ? (
+              {canRaise ? (
                 <Button label="Flag this hole" variant="secondary" onPress={() => router.push(flagHref([focus.holeId]))} testID="flag-this-hole" />
               ) : null}
               <Button label="Close" variant="quiet" onPress={() => setFocusId(null)} testID="focus-close" />
@@ -137,7 +154,7 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
     <>
       {sentFindingId ? (
         <Notice tone="ok" testID="finding-sent">
-          <Txt>Finding sent. The inspector has been told by e-mail.</Txt>
+          <Txt>Finding sent. Whoever acts on it next has been told by e-mail.</Txt>
           <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
             <Button label="See the finding" variant="quiet" compact onPress={() => { clearSent(); router.push(`/findings/${sentFindingId}`); }} testID="open-sent-finding" />
             <Button label="OK" variant="quiet" compact onPress={clearSent} testID="dismiss-sent" />
@@ -155,8 +172,8 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
           <Button label="OK" variant="quiet" compact onPress={waiting.clearRefused} testID="dismiss-tick-refused" />
         </Notice>
       ) : null}
-      <ProgressBar done={done} total={t.holes.length} />
-      {isBuilder && !t.signedOff ? (
+      <ProgressBar done={progress.done} awaiting={progress.awaiting} total={t.holes.length} />
+      {canRaise ? (
         <Button label="Flag a hole" variant="danger" onPress={() => router.push(flagHref(focusId ? [focusId] : undefined))} testID="flag-hole" />
       ) : null}
       <Section title="Holes">
@@ -183,7 +200,7 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
       <Section title="Shop steps">
         <StepsList
           steps={t.steps}
-          canToggle={isBuilder && !t.signedOff}
+          canToggle={canStep}
           onToggle={(s) => step.mutate({ stepId: s.id, done: !s.doneAt }, {
             onError: (e) => setMessage({ tone: 'error', text: `Step not saved: ${errorMessage(e)}` }),
           })}
@@ -197,16 +214,15 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
             ))}
           </View>
         ) : (
-          <EmptyState title="No findings." body={isBuilder ? 'If a hole looks wrong, flag it with a photo.' : undefined} />
+          <EmptyState title="No findings." body={canRaise ? 'If a hole looks wrong, flag it with a photo.' : undefined} />
         )}
       </Section>
       <Button label={`Build log of kit ${t.kitSerial}`} variant="quiet" onPress={() => router.push(`/builds/${t.buildId}/log`)} testID="traveler-build-log" />
-      {role === 'inspector' && !t.signedOff ? (
+      {canSignOff || (t.place === 'inspector' && !t.signedOff) ? (
         <Section title="Sign-off">
           <SignOff
-            ready={done === t.holes.length && openFindings.length === 0}
-            remaining={t.holes.length - done}
-            open={openFindings.length}
+            can={canSignOff}
+            reasons={t.readiness.reasons}
             busy={signOff.isPending}
             error={signOff.error}
             onSignOff={() => signOff.mutate()}
@@ -229,20 +245,23 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
   );
 }
 
-function SignOff({ ready, remaining, open, busy, error, onSignOff }: {
-  ready: boolean; remaining: number; open: number; busy: boolean; error: unknown; onSignOff: () => void;
+/**
+ * The inspector's sign-off: the button when the server says the part may be signed off now; otherwise
+ * why not, in the rules module's words (holes, steps, findings still open).
+ */
+function SignOff({ can, reasons, busy, error, onSignOff }: {
+  can: boolean; reasons: string[]; busy: boolean; error: unknown; onSignOff: () => void;
 }) {
   return (
     <View style={{ gap: space.sm }}>
-      {!ready ? (
-        <Txt tone="soft">
-          Not ready: {remaining > 0 ? `${remaining} hole${remaining === 1 ? '' : 's'} not done` : ''}
-          {remaining > 0 && open > 0 ? ' and ' : ''}
-          {open > 0 ? `${open} finding${open === 1 ? '' : 's'} still open` : ''}.
-        </Txt>
-      ) : <Txt>Every hole is done and every finding is closed.</Txt>}
+      {can ? <Txt>Every hole and step is done and every finding is closed.</Txt> : (
+        <View style={{ gap: space.xs }} testID="readiness-reasons">
+          <Txt bold>Not ready to sign off:</Txt>
+          {reasons.map((r, i) => <Txt key={i}>– {r}</Txt>)}
+        </View>
+      )}
       {error ? <Notice tone="error" testID="sign-off-error">{errorMessage(error)}</Notice> : null}
-      <Button label="Sign off this part" busyLabel="Signing off" busy={busy} disabled={!ready} onPress={onSignOff} testID="sign-off" />
+      {can ? <Button label="Sign off this part" busyLabel="Signing off" busy={busy} onPress={onSignOff} testID="sign-off" /> : null}
     </View>
   );
 }

@@ -8,13 +8,14 @@ import { TextBox } from '@/components/ui/field';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { useTravelersQuery } from '@/hooks/queries/travelers';
-import { TravelerCard } from './traveler-card';
+import { liveFirst, TravelerCard } from './traveler-card';
 
 type Show = 'open' | 'all' | 'signed';
 
+/** The parts shown: by sign-off and text, live parts before replaced ones. */
 export function filterTravelers(rows: readonly TravelerSummary[], show: Show, text: string): TravelerSummary[] {
   const t = text.trim().toLowerCase();
-  return rows.filter((r) => {
+  return liveFirst(rows).filter((r) => {
     if (show === 'open' && r.signedOff) return false;
     if (show === 'signed' && !r.signedOff) return false;
     if (!t) return true;

@@ -2,15 +2,25 @@ import { StyleSheet, View } from 'react-native';
 import { colors, hairline, space, statusColors } from '@/constants/theme';
 import { Mono, Txt } from './text';
 
-/** Done over total, drawn as a scale bar with tick marks every tenth. */
-export function ProgressBar({ done, total, label = 'holes done', testID = 'progress' }: { done: number; total: number; label?: string; testID?: string }) {
+/**
+ * Done over total, drawn as a scale bar with tick marks every tenth. `awaiting` (holes waiting for the
+ * inspector) is a second, hatched segment after the done one, counted apart in words: a hole waiting
+ * for a check is not done, but it is not untouched either.
+ */
+export function ProgressBar({ done, total, awaiting, label = 'holes done', awaitingLabel = 'awaiting the inspector', testID = 'progress' }: {
+  done: number; total: number; awaiting?: number; label?: string; awaitingLabel?: string; testID?: string;
+}) {
   const frac = total > 0 ? Math.min(1, done / total) : 0;
+  const waitFrac = total > 0 && awaiting ? Math.min(1 - frac, awaiting / total) : 0;
   const pct = Math.round(frac * 100);
   return (
     <View
       testID={testID}
       accessibilityRole="progressbar"
-      accessibilityValue={{ min: 0, max: total, now: done, text: `${done} of ${total} ${label}` }}
+      accessibilityValue={{
+        min: 0, max: total, now: done,
+        text: `${done} of ${total} ${label}${awaiting ? `, ${awaiting} ${awaitingLabel}` : ''}`,
+      }}
       style={{ gap: space.xs }}
     >
       <View style={styles.row}>
@@ -20,10 +30,23 @@ export function ProgressBar({ done, total, label = 'holes done', testID = 'progr
       </View>
       <View style={styles.track}>
         <View style={[styles.fill, { width: `${frac * 100}%` }]} />
+        {waitFrac > 0 ? (
+          <View style={[styles.wait, { left: `${frac * 100}%`, width: `${waitFrac * 100}%` }]}>
+            {/* Hatching, so the second segment reads without colour. */}
+            {Array.from({ length: 80 }, (_, i) => <View key={i} style={[styles.hatch, { left: i * 8 }]} />)}
+          </View>
+        ) : null}
         {Array.from({ length: 9 }, (_, i) => (
           <View key={i} style={[styles.tick, { left: `${(i + 1) * 10}%` }]} />
         ))}
       </View>
+      {awaiting !== undefined ? (
+        <View style={styles.row} testID={`${testID}-awaiting`}>
+          <View style={styles.key}><View style={[styles.hatch, { left: 3 }]} /></View>
+          <Mono bold>{awaiting}</Mono>
+          <Txt variant="small" tone="soft">{awaiting === 1 ? 'hole' : 'holes'} {awaitingLabel}</Txt>
+        </View>
+      ) : null}
     </View>
   );
 }
@@ -32,5 +55,8 @@ const styles = StyleSheet.create({
   row: { flexDirection: 'row', alignItems: 'baseline', gap: space.sm },
   track: { height: 14, borderWidth: hairline, borderColor: colors.ink, backgroundColor: colors.paperRaised, overflow: 'hidden' },
   fill: { position: 'absolute', left: 0, top: 0, bottom: 0, backgroundColor: statusColors.installed },
+  wait: { position: 'absolute', top: 0, bottom: 0, backgroundColor: colors.paperSunk, overflow: 'hidden', borderLeftWidth: hairline, borderColor: colors.ink },
+  hatch: { position: 'absolute', top: -4, bottom: -4, width: 2, backgroundColor: statusColors.reworked, transform: [{ rotate: '30deg' }] },
+  key: { width: 14, height: 10, borderWidth: hairline, borderColor: colors.ink, backgroundColor: colors.paperSunk, overflow: 'hidden', alignSelf: 'center' },
   tick: { position: 'absolute', top: 0, width: hairline, height: 5, backgroundColor: colors.ink },
 });

@@ -1,11 +1,14 @@
 import { StyleSheet, View } from 'react-native';
 import Svg, { Circle, G, Path, Rect } from 'react-native-svg';
-import { holeStatuses, type FindingStatus, type HoleStatus, findingStatusLabels, dispositionLabels, type Disposition } from '@/db/contracts';
-import { colors, hairline, radius, space, statusColors } from '@/constants/theme';
+import {
+  dispositionLabels, findingClosureLabels, findingStatusLabels, holeStatuses,
+  type Disposition, type FindingClosure, type FindingStatus, type HoleStatus,
+} from '@/db/contracts';
+import { colors, findingStatusColors, hairline, radius, space, statusColors } from '@/constants/theme';
 import { Txt } from './text';
 
-/** Each hole status has its own shape as well as its own colour. */
-export type MarkShape = 'open-circle' | 'dot' | 'triangle' | 'square' | 'diamond' | 'ringed-check';
+/** Each hole status has its own shape as well as its own colour; so has each finding state. */
+export type MarkShape = 'open-circle' | 'dot' | 'triangle' | 'square' | 'diamond' | 'ringed-check' | 'hourglass';
 
 export const holeShapes: Record<HoleStatus, MarkShape> = {
   pending: 'open-circle',
@@ -24,8 +27,8 @@ export const holeStatusHelp: Record<HoleStatus, string> = {
   pending: 'not riveted yet',
   installed: 'riveted',
   flagged: 'suspect, waiting for the inspector',
-  held: 'stop: rework, repair or scrap ordered',
-  reworked: 'rework done, waiting to be checked',
+  held: 'stop: dispositioned, wait for the work ordered',
+  reworked: 'work done, waiting for the inspector',
   accepted: 'passed by the inspector',
 };
 
@@ -53,6 +56,12 @@ export function MarkGlyph({ shape, color, cx, cy, r, strokeWidth }: {
     case 'diamond': {
       const d = r * 1.2;
       return <Path d={`M ${cx} ${cy - d} L ${cx + d} ${cy} L ${cx} ${cy + d} L ${cx - d} ${cy} Z`} fill={color} />;
+    }
+    case 'hourglass': {
+      // Two triangles tip to tip: waiting on someone else's word.
+      const w = r * 0.95;
+      const h = r * 0.95;
+      return <Path d={`M ${cx - w} ${cy - h} L ${cx + w} ${cy - h} L ${cx} ${cy} L ${cx + w} ${cy + h} L ${cx - w} ${cy + h} L ${cx} ${cy} Z`} fill={color} />;
     }
     case 'ringed-check': {
       const inner = r * 0.72;
@@ -101,25 +110,55 @@ export function HoleStatusLegend({ counts }: { counts?: Partial<Record<HoleStatu
   );
 }
 
-/** Finding statuses borrow the hole marks they lead to, with the words beside them. */
-const findingShape: Record<FindingStatus, { shape: MarkShape; color: string }> = {
-  flagged: { shape: 'triangle', color: statusColors.flagged },
-  in_review: { shape: 'open-circle', color: statusColors.flagged },
-  dispositioned: { shape: 'square', color: statusColors.held },
-  rework_done: { shape: 'diamond', color: statusColors.reworked },
-  verified: { shape: 'ringed-check', color: statusColors.accepted },
-  closed: { shape: 'ringed-check', color: colors.inkFaint },
+/**
+ * A finding's states: no two share a shape, and closed has a shape no open state uses. The states that
+ * hold holes in a hole status borrow that status's mark (raised = flagged, work ordered = held, work done
+ * = reworked), so the traveler and the finding read alike; waiting for the design authority is an hourglass.
+ */
+export const findingShapes: Record<FindingStatus, MarkShape> = {
+  raised: 'triangle',
+  awaiting_approval: 'hourglass',
+  work_ordered: 'square',
+  work_done: 'diamond',
+  closed: 'ringed-check',
 };
 
-export function FindingStatusTag({ status, disposition }: { status: FindingStatus; disposition?: Disposition | null }) {
-  const m = findingShape[status];
+const shapeWords: Record<MarkShape, string> = {
+  'open-circle': 'open circle', dot: 'dot', triangle: 'triangle', square: 'square', diamond: 'diamond',
+  'ringed-check': 'ringed tick', hourglass: 'hourglass',
+};
+
+/** A finding state's mark on its own (lists, legends). */
+export function FindingMark({ status, size = 14 }: { status: FindingStatus; size?: number }) {
+  const shape = findingShapes[status];
   return (
-    <View style={[styles.tag, { borderColor: m.color }]} testID={`finding-status-${status}`}>
-      <Svg width={14} height={14} viewBox="0 0 14 14">
-        <MarkGlyph shape={m.shape} color={m.color} cx={7} cy={7} r={6} />
+    <View
+      testID={`finding-mark-${status}`}
+      accessibilityLabel={`${findingStatusLabels[status]} (${shapeWords[shape]})`}
+      style={{ width: size, height: size }}
+    >
+      <Svg width={size} height={size} viewBox={`0 0 ${size} ${size}`}>
+        <MarkGlyph shape={shape} color={findingStatusColors[status]} cx={size / 2} cy={size / 2} r={size / 2 - 1} />
       </Svg>
+    </View>
+  );
+}
+
+/**
+ * A finding's state: its mark, its words, and what it came to. A closed finding says how it closed
+ * (closure); an open one names the disposition it is working to, when there is one.
+ */
+export function FindingStatusTag({ status, disposition, closure }: {
+  status: FindingStatus; disposition?: Disposition | null; closure?: FindingClosure | null;
+}) {
+  const color = findingStatusColors[status];
+  return (
+    <View style={[styles.tag, { borderColor: color }]} testID={`finding-status-${status}`}>
+      <FindingMark status={status} />
       <Txt variant="small" bold>{findingStatusLabels[status]}</Txt>
-      {disposition ? <Txt variant="small" tone="soft">· {dispositionLabels[disposition]}</Txt> : null}
+      {status === 'closed' && closure ? (
+        <Txt variant="small" testID="closure">· {findingClosureLabels[closure]}</Txt>
+      ) : disposition ? <Txt variant="small" tone="soft">· {dispositionLabels[disposition]}</Txt> : null}
     </View>
   );
 }

@@ -1,46 +1,111 @@
 import { queryOptions, useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
-import type { DispositionInput, FindingDetail, FindingInput, FindingStatus, FindingSummary, ReworkResult } from '@/db/contracts';
-import { api, qs } from '../api-client';
-import { findingFormData, type DraftPhoto } from '../photo-form-data';
+import {
+  findingActionInput, findingActions, type FindingAction, type FindingActionInput, type FindingDetail, type FindingInput,
+  type FindingStatus, type FindingSummary, type ReworkMargins,
+} from '@/db/contracts';
+import { api, ApiError, qs } from '../api-client';
+import { findingActionFormData, findingFormData, type DraftPhoto } from '../photo-form-data';
+import { buildKeys } from './builds';
 import { travelerKeys } from './travelers';
 
-export type FindingFilters = { status?: FindingStatus | 'open'; buildId?: string };
+export type FindingFilters = { status?: FindingStatus | 'open'; buildId?: string; travelerId?: string };
 
 export const findingKeys = {
   all: ['findings'] as const,
   lists: () => [...findingKeys.all, 'list'] as const,
-  list: (f: FindingFilters = {}) => [...findingKeys.lists(), { status: f.status ?? null, buildId: f.buildId ?? null }] as const,
+  list: (f: FindingFilters = {}) => [
+    ...findingKeys.lists(), { status: f.status ?? null, buildId: f.buildId ?? null, travelerId: f.travelerId ?? null },
+  ] as const,
   details: () => [...findingKeys.all, 'detail'] as const,
   detail: (id: string) => [...findingKeys.details(), id] as const,
+  /** Under the detail, so a finding's checks go with it; `spec` null is the server's choice (next size up). */
+  repairCheck: (id: string, spec: string | null) => [...findingKeys.detail(id), 'repair-check', spec ?? 'next'] as const,
 };
+
+/*
+ * The engine's repair check as the server sends it (server/engineering/repair-check.ts). Typed here
+ * because db/contracts/engineering.ts does not re-export it yet and the app may not import from server/;
+ * lengths in inches, margins null where no load was applied.
+ */
+export type RepairAlternative = 'repair with doubler' | 'scrap' | null;
+
+export type RepairHoleResult = {
+  holeId: string;
+  pass: boolean;
+  reasons: string[];
+  edgeDistanceUsedIn: number;
+  /** true when the inspector's measured edge distance replaced the nominal one */
+  edgeDistanceMeasured: boolean;
+  pitchToNeighboursIn: [number | null, number | null];
+  margins: ReworkMargins;
+  alternative: RepairAlternative;
+};
+
+export type RepairCheckResult = {
+  inputs: {
+    rivetSpec: string; proposedSpec: string; gaugeIn: number; material: string;
+    holes: { holeId: string; stationIn: number; edgeDistanceIn: number; measured?: { holeDiameterIn?: number; edgeDistanceIn?: number } }[];
+  };
+  rules: string[];
+  warnings: string[];
+  caution: string;
+  pass: boolean;
+  /** every failing hole's reasons, each prefixed with its hole id */
+  reasons: string[];
+  holes: RepairHoleResult[];
+  newDrill: { name: string; diameterIn: number };
+  requiredEdgeIn: number;
+  requiredPitchIn: number;
+  /** null when the proposed rivet has a protruding head */
+  countersink: { required: boolean; headHeightIn: number | null; limitIn: number | null; pass: boolean } | null;
+  alternative: RepairAlternative;
+};
+
+const findingPath = (id: string, rest = '') => `/api/findings/${encodeURIComponent(id)}${rest}`;
 
 export const findingQueries = {
   list: (f: FindingFilters = {}) => queryOptions({
     queryKey: findingKeys.list(f),
-    queryFn: ({ signal }) => api.get<FindingSummary[]>(`/api/findings${qs({ status: f.status, buildId: f.buildId })}`, signal),
+    queryFn: ({ signal }) => api.get<FindingSummary[]>(`/api/findings${qs({ status: f.status, buildId: f.buildId, travelerId: f.travelerId })}`, signal),
   }),
   detail: (id: string) => queryOptions({
     queryKey: findingKeys.detail(id),
-    queryFn: ({ signal }) => api.get<FindingDetail>(`/api/findings/${encodeURIComponent(id)}`, signal),
+    queryFn: ({ signal }) => api.get<FindingDetail>(findingPath(id), signal),
+  }),
+  /**
+   * A question asked of the engine, nothing stored: a POST, but cached like a read so the check panel
+   * and the disposition form show the same answer for the same rivet.
+   */
+  repairCheck: (id: string, spec: string | null) => queryOptions({
+    queryKey: findingKeys.repairCheck(id, spec),
+    queryFn: () => api.post<RepairCheckResult>(findingPath(id, '/repair-check'), spec ? { proposedSpec: spec } : {}),
+    staleTime: Infinity,
+    retry: false,
   }),
 };
 
-export function useFindingsQuery(filters: FindingFilters = {}) {
-  return useQuery(findingQueries.list(filters));
+export function useFindingsQuery(filters: FindingFilters = {}, opts: { enabled?: boolean } = {}) {
+  return useQuery({ ...findingQueries.list(filters), enabled: opts.enabled ?? true });
 }
 
 export function useFindingQuery(id: string) {
   return useQuery({ ...findingQueries.detail(id), enabled: !!id });
 }
 
-/** A finding's change shows on its traveler (hole statuses, findings list) and in every list. */
+/** The repair check for one rivet: run on demand (`refetch`), never by itself. */
+export function useRepairCheckQuery(findingId: string, spec: string | null) {
+  return useQuery({ ...findingQueries.repairCheck(findingId, spec), enabled: false });
+}
+
+/** A finding's change shows on its traveler (hole statuses, findings list, readiness), its build and every list. */
 function refreshAround(qc: QueryClient, f: FindingDetail) {
   qc.setQueryData(findingKeys.detail(f.id), f);
   return Promise.all([
     qc.invalidateQueries({ queryKey: findingKeys.lists() }),
     qc.invalidateQueries({ queryKey: travelerKeys.detail(f.travelerId) }),
+    // Scrap and return to supplier add a traveler to the build.
     qc.invalidateQueries({ queryKey: travelerKeys.list() }),
-    qc.invalidateQueries({ queryKey: ['builds'] }),
+    qc.invalidateQueries({ queryKey: buildKeys.all }),
   ]);
 }
 
@@ -55,41 +120,37 @@ export function useFindingCreateMutation() {
   });
 }
 
-function useFindingStep<TVars>(findingId: string, path: string, body: (v: TVars) => unknown) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (v: TVars) => api.post<FindingDetail>(`/api/findings/${encodeURIComponent(findingId)}/${path}`, body(v)),
-    onSuccess: (f) => refreshAround(qc, f),
-  });
-}
+export type FindingActionVars = { action: FindingAction; input: FindingActionInput; photos?: DraftPhoto[] };
 
-export function useFindingReviewMutation(findingId: string) {
-  return useFindingStep<void>(findingId, 'review', () => ({}));
+/** The URL segment of each action is its name in the rules module's list. */
+export function findingActionPath(findingId: string, action: FindingAction): string {
+  if (!findingActions.includes(action)) throw new Error(`unknown finding action ${String(action)}`);
+  return findingPath(findingId, `/${action}`);
 }
-
-export function useFindingDispositionMutation(findingId: string) {
-  return useFindingStep<DispositionInput>(findingId, 'disposition', (v) => v);
-}
-
-export function useFindingReworkDoneMutation(findingId: string) {
-  return useFindingStep<{ note: string }>(findingId, 'rework-done', (v) => v);
-}
-
-export function useFindingVerifyMutation(findingId: string) {
-  return useFindingStep<{ note: string }>(findingId, 'verify', (v) => v);
-}
-
-/** The engine's answer as the server sends it: lengths in inches, margins null where no load was applied. */
-export type ReworkCheckResult = ReworkResult;
 
 /**
- * The inspector's check of drilling the finding's hole out for a larger rivet. Without `proposedSpec`
- * the server takes the next size up of the traveler's rivet. Nothing is stored: it is a question asked.
+ * Every move on a finding, one request per decision: JSON, or multipart when photos go with it (the
+ * work done). The answer is the finding as it now stands, with its new `allowedActions`.
  */
-export function useFindingReworkCheckMutation(findingId: string) {
+export function useFindingActionMutation(findingId: string) {
+  const qc = useQueryClient();
   return useMutation({
-    mutationKey: [...findingKeys.detail(findingId), 'rework-check'],
-    mutationFn: (proposedSpec?: string) =>
-      api.post<ReworkCheckResult>(`/api/findings/${encodeURIComponent(findingId)}/rework-check`, proposedSpec ? { proposedSpec } : {}),
+    mutationKey: [...findingKeys.detail(findingId), 'action'],
+    // A decision is not sent twice by itself: a retry after a lost answer would be refused as "not now".
+    retry: false,
+    mutationFn: async ({ action, input, photos }: FindingActionVars) => {
+      const body = findingActionInput.parse(input);
+      const path = findingActionPath(findingId, action);
+      if (photos?.length) return api.upload<FindingDetail>(path, await findingActionFormData(body, photos));
+      return api.post<FindingDetail>(path, body);
+    },
+    onSuccess: (f) => refreshAround(qc, f),
+    onError: (e) => {
+      // Not yours or not now: someone moved the finding meanwhile, so fetch what may be done now.
+      if (e instanceof ApiError && (e.status === 403 || e.status === 409)) {
+        return qc.invalidateQueries({ queryKey: findingKeys.detail(findingId) });
+      }
+      return undefined;
+    },
   });
 }

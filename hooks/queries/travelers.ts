@@ -1,7 +1,10 @@
 import { queryOptions, useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
-import { doneStatuses, type Hole, type TickHolesInput, type TravelerDetail, type TravelerSummary } from '@/db/contracts';
+import {
+  holesAwaitingInspectorStatuses, holesDoneStatuses, type Hole, type TickHolesInput, type TravelerDetail, type TravelerSummary,
+} from '@/db/contracts';
 import { api, ApiError } from '../api-client';
 import { queueTick, readOutbox, withPendingTicks } from '../tick-outbox';
+import { buildKeys } from './builds';
 
 export type TravelerStep = TravelerDetail['steps'][number];
 
@@ -48,8 +51,20 @@ export function lookupTraveler(qc: QueryClient, code: string): Promise<{ id: str
   return qc.fetchQuery(travelerQueries.lookup(code.trim()));
 }
 
-function countDone(holes: Hole[]): number {
-  return holes.filter((h) => doneStatuses.includes(h.status)).length;
+/** Holes done for good and holes waiting for the inspector, by the rules module's groupings. */
+export function countHoles(holes: readonly Pick<Hole, 'status'>[]): { done: number; awaiting: number } {
+  let done = 0;
+  let awaiting = 0;
+  for (const h of holes) {
+    if (holesDoneStatuses.includes(h.status)) done++;
+    else if (holesAwaitingInspectorStatuses.includes(h.status)) awaiting++;
+  }
+  return { done, awaiting };
+}
+
+function recount(detail: TravelerDetail, holes: Hole[]): TravelerDetail {
+  const c = countHoles(holes);
+  return { ...detail, holes, holesDone: c.done, holesAwaitingInspector: c.awaiting };
 }
 
 /** The change a tick makes on the client before the server answers: only pending ↔ installed move. */
@@ -57,13 +72,13 @@ export function applyTick(detail: TravelerDetail, input: TickHolesInput): Travel
   const ids = new Set(input.holeIds);
   const holes = detail.holes.map((h) =>
     ids.has(h.holeId) && (h.status === 'pending' || h.status === 'installed') ? { ...h, status: input.status } : h);
-  return { ...detail, holes, holesDone: countDone(holes) };
+  return recount(detail, holes);
 }
 
 function mergeHoles(detail: TravelerDetail, changed: Hole[]): TravelerDetail {
   const byId = new Map(changed.map((h) => [h.holeId, h]));
   const holes = detail.holes.map((h) => byId.get(h.holeId) ?? h);
-  return { ...detail, holes, holesDone: countDone(holes) };
+  return recount(detail, holes);
 }
 
 export const postTick = (travelerId: string, input: TickHolesInput) =>
@@ -114,7 +129,7 @@ export function useTravelerTickMutation(travelerId: string) {
       return Promise.all([
         qc.invalidateQueries({ queryKey: key }),
         qc.invalidateQueries({ queryKey: travelerKeys.list() }),
-        qc.invalidateQueries({ queryKey: ['builds'] }),
+        qc.invalidateQueries({ queryKey: buildKeys.all }),
       ]);
     },
   });
@@ -140,7 +155,11 @@ export function useTravelerStepMutation(travelerId: string) {
     onError: (_e, _v, ctx) => {
       if (ctx?.previous) qc.setQueryData(key, ctx.previous);
     },
-    onSettled: () => qc.invalidateQueries({ queryKey: key }),
+    // A step done can make the part ready to sign off: the readiness and the build's count come from the server.
+    onSettled: () => Promise.all([
+      qc.invalidateQueries({ queryKey: key }),
+      qc.invalidateQueries({ queryKey: buildKeys.all }),
+    ]),
   });
 }
 
@@ -152,7 +171,7 @@ export function useTravelerSignOffMutation(travelerId: string) {
       qc.setQueryData(travelerKeys.detail(travelerId), detail);
       return Promise.all([
         qc.invalidateQueries({ queryKey: travelerKeys.list() }),
-        qc.invalidateQueries({ queryKey: ['builds'] }),
+        qc.invalidateQueries({ queryKey: buildKeys.all }),
       ]);
     },
   });

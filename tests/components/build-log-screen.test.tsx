@@ -18,7 +18,7 @@ const entry = (over: Partial<BuildLogEntry>): BuildLogEntry => ({
 });
 
 const flag = entry({
-  id: 'f:1', at: '2026-11-04T15:00:00.000Z', kind: 'finding_flagged', group: 'findings', text: 'Flagged hole U-09 as suspect: elongated hole.',
+  id: 'f:1', at: '2026-11-04T15:00:00.000Z', kind: 'finding_raised', group: 'findings', text: 'Flagged hole U-09 as suspect: elongated hole.',
   holeIds: ['U-09'], note: 'Hole looks oval', findingId: 'find-1', photos: [{ id: 'p1', thumbUrl: '/api/photos/p1/thumb?sig=x', url: '/api/photos/p1/full?sig=x' }],
 });
 const tick = entry({ id: 't:1' });

@@ -10,7 +10,7 @@ const e = (over: Partial<BuildLogEntry>): BuildLogEntry => ({
 // Newest first, as the server sends them.
 const log = [
   e({ id: 'sign', at: '2026-11-04T16:00:00.000Z', kind: 'signed_off', group: 'sign_off', travelerId: 'outer', partNumber: 'W-105', travelerSerial: 'NK2-0147-W-105', actorName: 'Priya Ashdown', actorRole: 'inspector', text: 'Signed the part off.', holeIds: undefined }),
-  e({ id: 'flag', at: '2026-11-04T02:30:00.000Z', kind: 'finding_flagged', group: 'findings', text: 'Flagged hole U-09 as suspect: elongated hole.', holeIds: ['U-09'], note: 'Oval, about a drill size long', findingId: 'f1' }),
+  e({ id: 'flag', at: '2026-11-04T02:30:00.000Z', kind: 'finding_raised', group: 'findings', text: 'Flagged hole U-09 as suspect: elongated hole.', holeIds: ['U-09'], note: 'Oval, about a drill size long', findingId: 'f1' }),
   e({ id: 'step', at: '2026-11-03T18:00:00.000Z', kind: 'step_done', group: 'bench', text: 'Step 1 done: Deburr all holes', holeIds: undefined }),
   e({ id: 'tick', at: '2026-11-03T15:00:00.000Z' }),
 ];
@@ -74,7 +74,7 @@ describe('the build log view', () => {
 
   it('reads a kind family as its kinds', () => {
     expect(expandKindFilter(['sign_off'])).toEqual(['signed_off']);
-    expect(expandKindFilter(['bench'])).toEqual(['holes_installed', 'holes_pending', 'step_done', 'step_undone', 'other']);
-    expect(expandKindFilter(['findings', 'finding_flagged'])).toHaveLength(6);
+    expect(expandKindFilter(['bench'])).toEqual(['holes_installed', 'holes_pending', 'step_done', 'step_undone', 'part_replaced', 'other']);
+    expect(expandKindFilter(['findings', 'finding_raised'])).toHaveLength(6);
   });
 });

@@ -1,0 +1,162 @@
+import { findingKindGroups, judgeMeasurement, type FindingDetail, type TravelerDetail } from '@/db/contracts';
+import { FlagScreen, measurementsFor } from '@/components/findings/flag-screen';
+import { basisOfTraveler, rivetOfCallout } from '@/components/findings/measure-basis';
+import { MeasurementJudgement } from '@/components/findings/measurement-line';
+import { storageKeys } from '@/hooks/storage';
+import { finding, recordFetch, wrap } from './finding-fixtures';
+
+const mockDismissTo = jest.fn();
+jest.mock('expo-router', () => ({
+  useRouter: () => ({ push: jest.fn(), replace: jest.fn(), back: jest.fn(), dismissTo: mockDismissTo, canGoBack: () => false }),
+}));
+// A phone: one column, the hole grid behind "Change holes".
+jest.mock('@/hooks/use-wide', () => ({ useWide: () => false }));
+
+const traveler = {
+  id: '0b7e9a52-5a1c-4b8e-9d0e-3f1f2a6c7d11', serial: 'NK2-0147-W-104', shortCode: 'EDN-CY6', buildId: 'b1', kitSerial: 'NK2-0147',
+  partNumber: 'W-104', partName: 'Wing rib, inboard', kind: 'rib', letter: 'A',
+  holesTotal: 3, holesDone: 1, holesAwaitingInspector: 0, openFindings: 0, signedOff: false, newerRevision: null, replaced: null, replacesId: null,
+  material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 10,
+  lines: [{ code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 4, zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }] }],
+  outline: [[0, 0], [10, 0], [10, -0.5], [0, -0.5]],
+  holes: [
+    { holeId: 'U-01', line: 'U', seq: 1, stationIn: 0.25, status: 'installed' },
+    { holeId: 'U-02', line: 'U', seq: 2, stationIn: 1.25, status: 'pending' },
+    { holeId: 'U-03', line: 'U', seq: 3, stationIn: 2.25, status: 'installed' },
+  ],
+  steps: [], findings: [], approvedByName: null, signedOffAt: null, signedOffByName: null,
+  place: 'builder', allowedActions: ['tick', 'step', 'raise'], readiness: { ready: false, reasons: [] }, replacedBy: null, replaces: null,
+} as TravelerDetail;
+
+const basis = basisOfTraveler(traveler)!;
+const flag = (holes: string[] = ['U-03'], system: 'imperial' | 'metric' = 'imperial') =>
+  wrap(<FlagScreen travelerId={traveler.id} initialHoleIds={holes} />, { traveler }, system);
+
+afterEach(() => window.localStorage.clear());
+
+describe('reading the rivet of a traveler', () => {
+  it('takes the diameter from the dash number in 32nds, and knows a countersunk head', () => {
+    expect(rivetOfCallout('MS20470AD4')).toEqual({ diameterIn: 0.125, countersunk: false });
+    expect(rivetOfCallout('MS20426AD3-4')).toEqual({ diameterIn: 3 / 32, countersunk: true });
+    expect(rivetOfCallout('PULLED-4-CSK')).toEqual({ diameterIn: 0.125, countersunk: true });
+    expect(rivetOfCallout('CR3213-4')).toBeNull();
+  });
+});
+
+describe('a measurement beside its rule', () => {
+  it('shows the rule, its source and whether the value passes, as judgeMeasurement says', () => {
+    const over = judgeMeasurement('holeDiameterIn', 0.14, basis);
+    const r = wrap(<MeasurementJudgement measure="holeDiameterIn" value={0.14} basis={basis} />);
+    const line = r.byTestId('measure-judgement-holeDiameterIn');
+    expect(over.pass).toBe(false);
+    expect(line.textContent).toContain('Outside the limit');
+    expect(line.textContent).toContain(over.limit);
+    expect(line.textContent).toContain(`Rule: ${over.rule}`);
+    expect(line.textContent).toContain(`Source: ${over.source}`);
+    expect(line.querySelector('[aria-label="fails (cross in a square)"]')).toBeTruthy();
+  });
+
+  it('passes a value within the rule', () => {
+    const r = wrap(<MeasurementJudgement measure="shopHeadDiameterIn" value={0.19} basis={basis} />);
+    expect(judgeMeasurement('shopHeadDiameterIn', 0.19, basis).pass).toBe(true);
+    expect(r.byTestId('measure-judgement-shopHeadDiameterIn').textContent).toContain('Within the limit');
+  });
+
+  it('shows the rule alone before anything is typed', () => {
+    const r = wrap(<MeasurementJudgement measure="edgeDistanceIn" value={undefined} basis={basis} />);
+    const text = r.byTestId('measure-judgement-edgeDistanceIn').textContent;
+    expect(text).toContain('Limit');
+    expect(text).toContain(judgeMeasurement('edgeDistanceIn', 0, basis).rule);
+    expect(text).not.toContain('Within');
+    expect(text).not.toContain('Outside');
+  });
+
+  it('gives no verdict when the rivet cannot be read', () => {
+    const r = wrap(<MeasurementJudgement measure="edgeDistanceIn" value={0.2} basis={null} />);
+    expect(r.byTestId('measure-judgement-edgeDistanceIn').textContent).toContain('the inspector judges it');
+  });
+});
+
+describe('the flag form', () => {
+  it('groups the kinds under what was looked at', async () => {
+    const r = flag();
+    await r.settle();
+    for (const g of findingKindGroups) {
+      const group = r.byTestId(`finding-kind-group-${g.group}`);
+      expect(group.textContent).toContain(g.label);
+      for (const k of g.kinds) expect(group.querySelector(`[data-testid="finding-kind-${k}"]`)).toBeTruthy();
+    }
+  });
+
+  it('offers only the measurements the kind allows, each beside its rule', async () => {
+    const r = flag();
+    await r.settle();
+    expect(r.queryByTestId('finding-measures')).toBeNull();
+    await r.press('finding-kind-hole_elongated');
+    expect(r.byTestId('measure-holeDiameterIn')).toBeTruthy();
+    expect(r.queryByTestId('measure-edgeDistanceIn')).toBeNull();
+    await r.type('measure-holeDiameterIn', '0.140');
+    expect(r.byTestId('measure-judgement-holeDiameterIn').textContent).toContain('Outside the limit');
+    await r.press('finding-kind-shop_head_small');
+    expect(r.queryByTestId('measure-holeDiameterIn')).toBeNull();
+    expect(r.byTestId('measure-shopHeadDiameterIn')).toBeTruthy();
+    expect(r.byTestId('measure-shopHeadHeightIn')).toBeTruthy();
+    await r.press('finding-kind-hole_burrs');
+    expect(r.queryByTestId('finding-measures')).toBeNull();
+  });
+
+  it('takes millimetres on the metric switch and judges the value in inches', async () => {
+    const r = flag(['U-03'], 'metric');
+    await r.settle();
+    await r.press('finding-kind-hole_elongated');
+    await r.type('measure-holeDiameterIn', '3.2');
+    // 3.2 mm = 0.126 in: inside the 0.1285 in drill plus clearance.
+    expect(r.byTestId('measure-judgement-holeDiameterIn').textContent).toContain('Within the limit');
+  });
+
+  it('lists the holes brought from the traveler in one line, the grid behind "Change holes"', async () => {
+    const r = flag(['U-03']);
+    await r.settle();
+    expect(r.byTestId('chosen-holes').textContent).toContain('U-03');
+    expect(r.queryByTestId('pick-hole-U-01')).toBeNull();
+    await r.press('change-holes');
+    expect(r.byTestId('pick-hole-U-03').getAttribute('aria-checked')).toBe('true');
+    // The form comes before the grid.
+    const order = Array.from(r.container.querySelectorAll('[data-testid]')).map((e) => e.getAttribute('data-testid'));
+    expect(order.indexOf('finding-note')).toBeLessThan(order.indexOf('pick-hole-U-01'));
+  });
+
+  it('opens the grid at once when no hole was brought', async () => {
+    const r = flag([]);
+    await r.settle();
+    expect(r.byTestId('pick-hole-U-01')).toBeTruthy();
+  });
+
+  it('sends the measurements as one JSON field, in inches, and only those of the kind', async () => {
+    window.localStorage.setItem(storageKeys.findingDraft(traveler.id), JSON.stringify({
+      values: { holeIds: ['U-03'], kind: 'hole_elongated', note: 'Oval toward the trailing edge', measurements: { holeDiameterIn: 0.2, shopHeadDiameterIn: 0.3 } },
+      photos: [{ uri: 'data:image/jpeg;base64,AAAA', name: 'hole.jpg', type: 'image/jpeg' }],
+      savedAt: '2026-11-04T10:00:00.000Z',
+    }));
+    const created: FindingDetail = { ...finding, id: 'f-9' };
+    const calls = recordFetch({ '/api/findings': { status: 201, body: created } });
+    const r = flag(['U-03'], 'metric');
+    await r.settle();
+    expect(r.byTestId('draft-restored')).toBeTruthy();
+    await r.type('measure-holeDiameterIn', '3.556');
+    await r.press('submit-finding');
+    const post = calls.find((c) => c.url === '/api/findings' && c.method === 'POST');
+    const form = post?.body as FormData;
+    expect(JSON.parse(String(form.get('measurements')))).toEqual({ holeDiameterIn: expect.closeTo(0.14, 6) });
+    expect(JSON.parse(String(form.get('holeIds')))).toEqual(['U-03']);
+    expect(form.get('kind')).toBe('hole_elongated');
+    expect(form.getAll('photos')).toHaveLength(1);
+    expect(mockDismissTo).toHaveBeenCalledWith(`/travelers/${traveler.id}`);
+  });
+
+  it('keeps only the measurements a kind allows', () => {
+    expect(measurementsFor('hole_burrs', { holeDiameterIn: 0.2 })).toEqual({});
+    expect(measurementsFor('hole_mislocated', { holeDiameterIn: 0.2, edgeDistanceIn: 0.22, headGapIn: 0.01 })).toEqual({ holeDiameterIn: 0.2, edgeDistanceIn: 0.22 });
+    expect(measurementsFor('hole_oversize', { holeDiameterIn: Number.NaN })).toEqual({});
+  });
+});
