@@ -7,7 +7,7 @@ import { Screen } from '@/components/ui/screen';
 import { Section } from '@/components/ui/sheet';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { TwoPane } from '@/components/ui/two-pane';
-import { TravelerCard } from '@/components/travelers/traveler-card';
+import { liveFirst, TravelerCard } from '@/components/travelers/traveler-card';
 import { errorMessage } from '@/hooks/api-client';
 import { lookupTraveler, useTravelersQuery } from '@/hooks/queries/travelers';
 import { Scanner } from './scanner';
@@ -35,7 +35,7 @@ export function BenchScreen() {
   }, [open]);
 
   const inProgress = useMemo(
-    () => (parts.data ?? []).filter((t) => !t.signedOff).sort((a, b) => (b.holesDone / (b.holesTotal || 1)) - (a.holesDone / (a.holesTotal || 1))),
+    () => liveFirst((parts.data ?? []).filter((t) => !t.signedOff).sort((a, b) => (b.holesDone / (b.holesTotal || 1)) - (a.holesDone / (a.holesTotal || 1)))),
     [parts.data],
   );
 

@@ -4,7 +4,7 @@ import { Controller, useForm, type Resolver } from 'react-hook-form';
 import { View } from 'react-native';
 import type { z } from 'zod';
 import {
-  dispositionHelp, dispositionLabels, dispositions, findingActionInput, findingActionLabels, noteRequired, repairSchemeLabels,
+  dispositionHelp, dispositionLabels, dispositions, findingActionInput, findingActionLabels, NOTE_MIN_LENGTH, noteRequired, repairSchemeLabels,
   repairSchemes, type FindingAction, type FindingActionInput, type FindingDetail,
 } from '@/db/contracts';
 import { space } from '@/constants/theme';
@@ -32,7 +32,6 @@ type Parsed = z.output<typeof findingActionInput>;
 const shapesDisposition = (a: FindingAction) => a === 'disposition' || a === 'amend';
 
 /** A note "in a few words": the same floor the server and the new-finding form hold to. */
-const NOTE_MIN = 3;
 
 type Need = { checkFailed: boolean; askOverride: boolean; rivetListed: boolean };
 
@@ -42,7 +41,7 @@ type Need = { checkFailed: boolean; askOverride: boolean; rivetListed: boolean }
  */
 function schemaFor(action: FindingAction, need: Need) {
   return findingActionInput.superRefine((v, ctx) => {
-    if (noteRequired[action] && v.note.length < NOTE_MIN) {
+    if (noteRequired[action] && v.note.length < NOTE_MIN_LENGTH) {
       ctx.addIssue({ code: 'custom', path: ['note'], message: `say why, in a few words, to ${findingActionLabels[action].toLowerCase()}` });
     }
     if (!shapesDisposition(action)) return;
@@ -57,7 +56,7 @@ function schemaFor(action: FindingAction, need: Need) {
     }
     if (v.repairScheme !== 'oversize_rivet') return;
     if (need.rivetListed && !v.repairRivetSpec) ctx.addIssue({ code: 'custom', path: ['repairRivetSpec'], message: 'choose the rivet' });
-    if ((need.checkFailed || need.askOverride) && (v.overrideReason ?? '').length < NOTE_MIN) {
+    if ((need.checkFailed || need.askOverride) && (v.overrideReason ?? '').length < NOTE_MIN_LENGTH) {
       ctx.addIssue({ code: 'custom', path: ['overrideReason'], message: 'the check fails: say why you choose this repair anyway' });
     }
   });

@@ -243,7 +243,10 @@ export function restoredHoleStatus(before: HoleStatus, acceptInstalled: boolean)
   return acceptInstalled ? 'accepted' : 'installed';
 }
 
-/** Whose note a move needs, and how long at least: a refusal or a send-back must say why. */
+/** The fewest characters a required note may have. */
+export const NOTE_MIN_LENGTH = 3;
+
+/** Which moves need a note (at least NOTE_MIN_LENGTH): a refusal or a send-back must say why. */
 export const noteRequired: Record<FindingAction, boolean> = {
   disposition: true, amend: true, 'not-a-defect': true, approve: false, refuse: true, 'report-done': true, accept: false, 'send-back': true,
 };

@@ -35,6 +35,8 @@ export type TravelerSummary = {
 export type TravelerDetail = TravelerSummary & {
   material: string; gaugeIn: number; rivetSpec: string; drillSize: string; drillDiameterIn: number;
   edgeDistanceIn: number; chordIn: number; lines: FastenerLine[];
+  /** The rivet from the engine's catalogue (null: a rivet outside it), for judging measured values. */
+  rivetDiameterIn: number | null; countersunk: boolean;
   /** Part outline in inches (x aft, y up), for the drawing; closed polygon. */
   outline: [number, number][];
   holes: Hole[];

@@ -1,5 +1,5 @@
 import {
-  checkRaise, decide, flaggableHoleStatuses, measuresOfKind, noteRequired, restoredHoleStatus, allowedActions,
+  checkRaise, decide, flaggableHoleStatuses, measuresOfKind, NOTE_MIN_LENGTH, noteRequired, restoredHoleStatus, allowedActions,
   type FindingAction, type FindingActionInput, type FindingDetail, type FindingInput, type FindingSummary, type HoleStatus,
   type Measurements, type RepairRecord,
 } from '../../db/contracts';
@@ -18,7 +18,7 @@ import {
   findFinding, findTravelerBrief, holesOf, insertFinding, insertFindingEvent, insertFindingPhotos, listEvents, listFindingRows,
   markTravelerReplaced, openFindingsOf, setHoleStatus, updateFinding, type FindingFilter, type FindingRow,
 } from './findings-repository';
-import { oversizeOptions } from './oversize-options';
+import { oversizeOptions, rivetOfCallout } from './oversize-options';
 
 type Deps = Pick<AppContext, 'db' | 'pool' | 'storage' | 'signer' | 'mailQueue'>;
 export type UploadedPhoto = { buffer: Buffer; originalname: string };
@@ -73,17 +73,13 @@ export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) 
     });
   }
 
-  function rivetOf(spec: string) {
-    try { return findRivetByCallout(spec); } catch { return null; }
-  }
-
   async function detail(user: Express.User, id: string): Promise<FindingDetail> {
     const row = await visibleRow(user, id);
     const [parts, events, place, holesCtx] = await Promise.all([
       findTravelerParts(db, row.travelerId), listEvents(db, id), placeOnBuild(db, user, row.buildId), holesInContext(db, row.travelerId, row.holeIds),
     ]);
     const rev = parts!.revision;
-    const rivet = rivetOf(rev.rivetSpec);
+    const rivet = rivetOfCallout(rev.rivetSpec);
     const replacement = parts!.traveler.replacedById ? await findTravelerBrief(db, parts!.traveler.replacedById) : null;
     return {
       ...summary(row), note: row.note, dispositionNote: row.dispositionNote, measurements: row.measurements, repair: row.repair,
@@ -135,7 +131,7 @@ export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) 
 
   /** Checks a decision's words before anything is locked: a missing note or repair scheme is a 400 naming the field. */
   async function prepareDecision(row: FindingRow, action: FindingAction, input: FindingActionInput & { note: string }, photoCount: number) {
-    if (noteRequired[action] && (input.note ?? '').length < 3) throw badRequest('say why, in a few words', { note: 'say why, in a few words' });
+    if (noteRequired[action] && (input.note ?? '').length < NOTE_MIN_LENGTH) throw badRequest('say why, in a few words', { note: 'say why, in a few words' });
     if (action === 'report-done' && photoCount === 0) throw badRequest('attach at least one photo of the finished work', { photos: 'attach at least one photo' });
     if (action !== 'report-done' && photoCount > 0) throw badRequest('photos go with the finding or with the work done', { photos: 'not taken with this step' });
     if (action !== 'disposition' && action !== 'amend') return { repair: undefined };
@@ -147,7 +143,7 @@ export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) 
     if (input.repairScheme === 'oversize_rivet') {
       check = await runRepairCheck(row, input.repairRivetSpec);
       rivetSpec = check.inputs.proposedSpec;
-      if (!check.pass && (input.overrideReason ?? '').length < 3) {
+      if (!check.pass && (input.overrideReason ?? '').length < NOTE_MIN_LENGTH) {
         throw badRequest(`the repair check fails: ${check.reasons.join('; ')}. Say why you choose it anyway, or choose another repair`, {
           overrideReason: 'the check fails: say why you choose this repair anyway',
         });

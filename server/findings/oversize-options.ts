@@ -20,3 +20,13 @@ export function oversizeOptions(rivetSpec: string): OversizeOption[] | null {
   }
   return out;
 }
+
+/** The catalogue rivet a callout names, or null for a rivet outside the engine's catalogue. */
+export function rivetOfCallout(rivetSpec: string) {
+  try {
+    return findRivetByCallout(rivetSpec);
+  } catch (err) {
+    if (err instanceof EngineeringInputError) return null;
+    throw err;
+  }
+}

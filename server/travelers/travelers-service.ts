@@ -8,6 +8,7 @@ import { holes, travelerEvents, travelerSteps, travelers, users } from '../../db
 import { placeOnBuild } from '../builds/build-access';
 import { findTravelerBrief } from '../findings/findings-repository';
 import { badRequest, conflict, HttpError, notFound } from '../http-error';
+import { rivetOfCallout } from '../findings/oversize-options';
 import { parseTravelerCode } from './codes';
 import { partOutline } from './part-outline';
 import { findTravelerParts, listTravelers, lockTraveler, readPartFacts } from './travelers-repository';
@@ -40,6 +41,7 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
   async function detail(user: Express.User, id: string): Promise<TravelerDetail> {
     const summary = await visible(user, id);
     const { traveler, revision, design, kit } = (await findTravelerParts(db, id))!;
+    const rivet = rivetOfCallout(revision.rivetSpec);
     const [holeRows, stepRows, approver, signer, travelerFindings, place, facts, replacedBy, replaces] = await Promise.all([
       db.select({ holeId: holes.holeId, line: holes.line, seq: holes.seq, stationIn: holes.stationIn, status: holes.status })
         .from(holes).where(eq(holes.travelerId, id)).orderBy(asc(holes.line), asc(holes.seq)),
@@ -57,6 +59,7 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
       ...summary,
       material: revision.material, gaugeIn: revision.gaugeIn, rivetSpec: revision.rivetSpec, drillSize: revision.drillSize,
       drillDiameterIn: revision.drillDiameterIn, edgeDistanceIn: revision.edgeDistanceIn, chordIn: revision.chordIn, lines: revision.lines,
+      rivetDiameterIn: rivet?.nominalDiameterIn ?? null, countersunk: rivet?.countersunk ?? false,
       outline: partOutline(design.kind, kit.airfoil, revision.chordIn),
       holes: holeRows,
       steps: stepRows.map((s) => ({ ...s, doneAt: s.doneAt?.toISOString() ?? null })),

@@ -1,6 +1,6 @@
 import { findingKindGroups, judgeMeasurement, type FindingDetail, type TravelerDetail } from '@/db/contracts';
 import { FlagScreen, measurementsFor } from '@/components/findings/flag-screen';
-import { basisOfTraveler, rivetOfCallout } from '@/components/findings/measure-basis';
+import { basisOfTraveler } from '@/components/findings/measure-basis';
 import { MeasurementJudgement } from '@/components/findings/measurement-line';
 import { storageKeys } from '@/hooks/storage';
 import { finding, recordFetch, wrap } from './finding-fixtures';
@@ -25,6 +25,7 @@ const traveler = {
     { holeId: 'U-03', line: 'U', seq: 3, stationIn: 2.25, status: 'installed' },
   ],
   steps: [], findings: [], approvedByName: null, signedOffAt: null, signedOffByName: null,
+  rivetDiameterIn: 0.125, countersunk: false,
   place: 'builder', allowedActions: ['tick', 'step', 'raise'], readiness: { ready: false, reasons: [] }, replacedBy: null, replaces: null,
 } as TravelerDetail;
 
@@ -33,15 +34,6 @@ const flag = (holes: string[] = ['U-03'], system: 'imperial' | 'metric' = 'imper
   wrap(<FlagScreen travelerId={traveler.id} initialHoleIds={holes} />, { traveler }, system);
 
 afterEach(() => window.localStorage.clear());
-
-describe('reading the rivet of a traveler', () => {
-  it('takes the diameter from the dash number in 32nds, and knows a countersunk head', () => {
-    expect(rivetOfCallout('MS20470AD4')).toEqual({ diameterIn: 0.125, countersunk: false });
-    expect(rivetOfCallout('MS20426AD3-4')).toEqual({ diameterIn: 3 / 32, countersunk: true });
-    expect(rivetOfCallout('PULLED-4-CSK')).toEqual({ diameterIn: 0.125, countersunk: true });
-    expect(rivetOfCallout('CR3213-4')).toBeNull();
-  });
-});
 
 describe('a measurement beside its rule', () => {
   it('shows the rule, its source and whether the value passes, as judgeMeasurement says', () => {

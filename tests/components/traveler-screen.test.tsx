@@ -28,6 +28,7 @@ const detail: TravelerDetail = {
   ],
   steps: [{ id: 's1', seq: 1, text: 'Deburr all holes', doneAt: null, doneByName: null }],
   findings: [], approvedByName: 'Maren Holt', signedOffAt: null, signedOffByName: null,
+  rivetDiameterIn: 0.125, countersunk: false,
   place: 'builder', allowedActions: ['tick', 'step', 'raise'],
   readiness: { ready: false, reasons: ['2 holes not done', '1 step not done', '1 finding open'] },
   replacedBy: null, replaces: null,

@@ -169,7 +169,7 @@ describe('the loop in a real browser at phone size', () => {
     await page.getByTestId('flag-hole').click();
     await page.getByTestId('flag-screen').waitFor();
     await page.getByTestId('pick-hole-U-07').click();
-    await page.getByTestId('finding-kind-elongated').click();
+    await page.getByTestId('finding-kind-hole_elongated').click();
     await page.getByTestId('finding-note').fill('Hole U-07 looks oval toward the trailing edge');
     const chooser = page.waitForEvent('filechooser');
     await page.getByTestId('add-photo').click();
@@ -197,10 +197,10 @@ describe('the loop in a real browser at phone size', () => {
     await page.getByTestId('photo-viewer').waitFor();
     await page.getByTestId('photo-close').click();
     await page.getByTestId('disposition-rework').click();
-    await page.getByTestId('disposition-note').fill('Drill out to #21 and fit MS20470AD5');
-    await page.getByTestId('submit-disposition').click();
+    await page.getByTestId('action-note').fill('Drill out and set the same rivet again, checking the edge distance');
+    await page.getByTestId('finding-action-disposition').click();
     await page.getByTestId('disposition').waitFor({ timeout: 15000 });
-    expect(await page.getByTestId('history').textContent()).toContain('Drill out to #21');
+    expect(await page.getByTestId('history').textContent()).toContain('Drill out and set the same rivet again');
 
     await t.waitForMail((m) => m.to.includes(DEMO_USERS.builder.email) && m.subject.includes(`R-${stamp}`) && /Rework/.test(m.subject));
 
