@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { positiveInches } from './common';
+import { plainText } from './common';
+import { GAUGE_RANGE_IN, listOf, measured } from './engineering';
 
 export const partKinds = ['rib', 'nose_rib', 'skin_panel', 'spar_web'] as const;
 export type PartKind = (typeof partKinds)[number];
@@ -7,22 +8,60 @@ export const partKindLabels: Record<PartKind, string> = {
   rib: 'Rib', nose_rib: 'Nose rib', skin_panel: 'Skin panel', spar_web: 'Spar web',
 };
 
+/*
+ * Ranges of a part revision. Lengths are inches along the part; a skin panel may run longer than a rib's
+ * chord, so 400 in bounds them all. Holes are rows a traveler is shipped with and a builder ticks: a
+ * revision is held to MAX_REVISION_HOLES, counted from its zones before anything is placed.
+ */
+/** Longest part, line or zone station, in. */
+export const MAX_PART_LENGTH_IN = 400;
+/**
+ * Smallest zone pitch, in: 3 diameters of the smallest drill this tool takes (0.040 in), rounded up to
+ * 1/8 in. The layout check then holds every line to 3D of its own rivet.
+ */
+export const MIN_ZONE_PITCH_IN = 0.125;
+/** Largest zone pitch, in: beyond a foot a row of rivets holds nothing together. */
+export const MAX_ZONE_PITCH_IN = 12;
+/** Holes one revision may have (the engine's MAX_REVISION_HOLES: server/engineering/bounds.ts). */
+export const MAX_REVISION_HOLES = 5000;
+
+const station = (what: string) => measured(what, 0, MAX_PART_LENGTH_IN, 'in');
+const length = (what: string) => measured(what, 0.01, MAX_PART_LENGTH_IN, 'in');
+
 /** A stretch of a fastener line with one pitch. Stations are inches from the line's start. */
 export const pitchZone = z.object({
-  fromIn: z.number({ message: 'zone start must be a number' }).min(0, 'zone start cannot be negative'),
-  toIn: positiveInches('zone end'),
-  pitchIn: positiveInches('pitch'),
+  /** in: 0 – 400 */
+  fromIn: z.number({ message: 'zone start must be a number' }).min(0, 'zone start cannot be negative').max(MAX_PART_LENGTH_IN, `zone start must be between 0 and ${MAX_PART_LENGTH_IN} in`),
+  /** in: 0.01 – 400 */
+  toIn: length('zone end'),
+  /** in: 0.125 – 12 */
+  pitchIn: measured('pitch', MIN_ZONE_PITCH_IN, MAX_ZONE_PITCH_IN, 'in'),
 }).refine((zn) => zn.toIn > zn.fromIn, { path: ['toIn'], message: 'zone end must be after its start' });
 export type PitchZone = z.infer<typeof pitchZone>;
 
+/**
+ * The most holes each zone of a line can take: its length over its pitch, plus one where it begins.
+ * With one more for the line's end this is the engine's estimateHoles over the whole line (which the
+ * edge distances only shorten): never an underestimate of what is placed.
+ */
+export function zoneHoleCounts(zones: readonly { fromIn: number; toIn: number; pitchIn: number }[]): number[] {
+  return zones.map((z) => Math.ceil(Math.max(0, z.toIn - z.fromIn) / z.pitchIn) + 1);
+}
+
+/** The most holes a revision's lines can place, as the contract counts them. */
+export const revisionHoleBound = (lines: readonly { zones: readonly { fromIn: number; toIn: number; pitchIn: number }[] }[]): number =>
+  lines.reduce((n, l) => n + 1 + zoneHoleCounts(l.zones).reduce((a, b) => a + b, 0), 0);
+
 export const fastenerLine = z.object({
-  code: z.string().trim().regex(/^[A-Z]{1,3}$/, 'line code is 1–3 capital letters, e.g. U'),
-  name: z.string().trim().min(1, 'name the line').max(60),
+  code: z.string({ message: 'line code must be text' }).trim().regex(/^[A-Z]{1,3}$/, 'line code is 1–3 capital letters, e.g. U'),
+  name: plainText('the line name', 1, 60, 'name the line'),
   surface: z.enum(['upper', 'lower', 'flat']),
-  /** Where the line starts, in inches aft of the part's leading edge (or left edge of a panel). */
-  startIn: z.number().min(0, 'line start cannot be negative'),
-  lengthIn: positiveInches('line length'),
-  zones: z.array(pitchZone).min(1, 'a line needs at least one pitch zone').max(12, 'at most 12 zones per line'),
+  /** Where the line starts, in inches aft of the part's leading edge (or left edge of a panel): 0 – 400. */
+  startIn: station('line start'),
+  /** in: 0.01 – 400 */
+  lengthIn: length('line length'),
+  /** 1 – 12 zones */
+  zones: listOf(pitchZone, 'zones per line', 1, 12, 'a line needs at least one pitch zone'),
 }).superRefine((line, ctx) => {
   const zones = [...line.zones].sort((a, b) => a.fromIn - b.fromIn);
   if (zones[0].fromIn > 1e-6) ctx.addIssue({ code: 'custom', path: ['zones', 0, 'fromIn'], message: 'the first zone must start at 0' });
@@ -39,24 +78,30 @@ export type FastenerLine = z.infer<typeof fastenerLine>;
 
 export const partDesignInput = z.object({
   kitModelId: z.uuid({ message: 'choose a kit model' }),
-  partNumber: z.string().trim().min(1, 'give the part a number').max(40),
-  name: z.string().trim().min(1, 'give the part a name').max(120),
+  partNumber: plainText('the part number', 1, 40, 'give the part a number'),
+  name: plainText('the part name', 1, 120, 'give the part a name'),
   kind: z.enum(partKinds, { message: 'choose what kind of part it is' }),
 });
 export type PartDesignInput = z.input<typeof partDesignInput>;
 
 /** The editable body of a draft revision. */
 export const revisionInput = z.object({
-  material: z.string().trim().min(1, 'name the material').max(40),
-  gaugeIn: z.number({ message: 'gauge must be a number' }).positive('gauge must be greater than zero').max(0.25, 'gauge over 0.25 in is outside this tool'),
-  rivetSpec: z.string().trim().min(3, 'give the rivet callout, e.g. MS20470AD4').max(40),
-  drillSize: z.string().trim().min(1, 'give the drill size, e.g. #30').max(20),
-  drillDiameterIn: z.number().positive('drill diameter must be greater than zero').max(0.5),
-  edgeDistanceIn: positiveInches('edge distance'),
-  chordIn: positiveInches('chord'),
-  lines: z.array(fastenerLine).min(1, 'a part needs at least one fastener line').max(8),
-  steps: z.array(z.string().trim().min(1).max(300)).max(40).default([]),
-  changeNote: z.string().trim().max(2000).default(''),
+  material: plainText('the material', 1, 40, 'name the material'),
+  /** in: 0.008 – 0.25 */
+  gaugeIn: measured('gauge', GAUGE_RANGE_IN.min, GAUGE_RANGE_IN.max, 'in'),
+  rivetSpec: plainText('the rivet callout', 3, 40, 'give the rivet callout, e.g. MS20470AD4'),
+  drillSize: plainText('the drill size', 1, 20, 'give the drill size, e.g. #30'),
+  /** in: 0.04 (#60) – 0.5 */
+  drillDiameterIn: measured('drill diameter', 0.04, 0.5, 'in'),
+  /** in: 0.05 – 2 */
+  edgeDistanceIn: measured('edge distance', 0.05, 2, 'in'),
+  /** in: 1 – 400 */
+  chordIn: measured('chord', 1, MAX_PART_LENGTH_IN, 'in'),
+  /** 1 – 8 lines */
+  lines: listOf(fastenerLine, 'fastener lines', 1, 8, 'a part needs at least one fastener line'),
+  /** 0 – 40 steps of 1 – 300 characters */
+  steps: listOf(plainText('a step', 1, 300, 'a step needs some text'), 'steps', 0, 40).default([]),
+  changeNote: plainText('the change note', 0, 2000).default(''),
 }).superRefine((r, ctx) => {
   r.lines.forEach((line, i) => {
     if (line.lengthIn <= 2 * r.edgeDistanceIn) {
@@ -68,6 +113,17 @@ export const revisionInput = z.object({
   });
   const codes = r.lines.map((l) => l.code);
   if (new Set(codes).size !== codes.length) ctx.addIssue({ code: 'custom', path: ['lines'], message: 'each line needs its own code' });
+  // Counted from the zones before any hole is placed; told on the pitch of the zone with the most holes.
+  const counts = r.lines.map((l) => zoneHoleCounts(l.zones));
+  const total = revisionHoleBound(r.lines);
+  if (total > MAX_REVISION_HOLES) {
+    let at: [number, number] = [0, 0];
+    counts.forEach((c, i) => c.forEach((n, j) => { if (n > counts[at[0]][at[1]]) at = [i, j]; }));
+    ctx.addIssue({
+      code: 'custom', path: ['lines', at[0], 'zones', at[1], 'pitchIn'],
+      message: `the zones give up to ${total.toLocaleString('en-US')} holes; a revision has at most ${MAX_REVISION_HOLES.toLocaleString('en-US')}: widen this pitch (${counts[at[0]][at[1]].toLocaleString('en-US')} holes in this zone)`,
+    });
+  }
 });
 export type RevisionInput = z.input<typeof revisionInput>;
 

@@ -1,20 +1,31 @@
 import { z } from 'zod';
+import { plainText } from './common';
+import { checkWing, measured } from './engineering';
 
 export const aircraftCategories = ['normal', 'utility', 'acrobatic'] as const;
 
+/**
+ * A kit model as the supplier describes it. Ranges are those of light aircraft kits under 14 CFR 23
+ * (the engine's bounds, server/engineering/bounds.ts): a study made from the kit starts inside them.
+ */
 export const kitModelInput = z.object({
-  code: z.string().trim().min(1, 'give the kit a short code').max(20, 'keep the code to 20 characters'),
-  name: z.string().trim().min(1, 'give the kit a name').max(120),
-  weightLb: z.number({ message: 'weight must be a number' }).positive('weight must be greater than zero').max(20000, 'weight over 20,000 lb is outside this tool'),
-  wingAreaSqFt: z.number({ message: 'wing area must be a number' }).positive('wing area must be greater than zero').max(2000),
-  meanChordIn: z.number({ message: 'mean chord must be a number' }).positive('mean chord must be greater than zero').max(400),
-  stallSpeedKeas: z.number({ message: 'stall speed must be a number' }).positive('stall speed must be greater than zero').max(200),
-  cruiseSpeedKeas: z.number().positive('cruise speed must be greater than zero').max(400).nullable().optional(),
+  code: plainText('the code', 1, 20, 'give the kit a short code'),
+  name: plainText('the name', 1, 120, 'give the kit a name'),
+  /** gross weight, lb: 100 – 20,000 */
+  weightLb: measured('weight', 100, 20_000, 'lb'),
+  /** wing area, ft²: 10 – 2,000 */
+  wingAreaSqFt: measured('wing area', 10, 2_000, 'ft²'),
+  /** mean geometric chord, in: 10 – 300 */
+  meanChordIn: measured('mean chord', 10, 300, 'in'),
+  /** stall speed, KEAS: 20 – 200 */
+  stallSpeedKeas: measured('stall speed', 20, 200, 'KEAS'),
+  /** design cruise speed VC, KEAS: 30 – 400 */
+  cruiseSpeedKeas: measured('cruise speed', 30, 400, 'KEAS').nullable().optional(),
   category: z.enum(aircraftCategories, { message: 'category is normal, utility or acrobatic' }),
-  airfoil: z.string().trim().regex(/^NACA \d{4,5}$/, 'airfoil is a NACA designation such as "NACA 2412"'),
+  airfoil: z.string({ message: 'airfoil must be text' }).trim().regex(/^NACA \d{4,5}$/, 'airfoil is a NACA designation such as "NACA 2412"'),
 }).refine((k) => k.cruiseSpeedKeas == null || k.cruiseSpeedKeas > k.stallSpeedKeas, {
   path: ['cruiseSpeedKeas'], message: 'cruise speed must be above the stall speed',
-});
+}).superRefine(checkWing);
 export type KitModelInput = z.input<typeof kitModelInput>;
 
 export type KitModel = z.output<typeof kitModelInput> & { id: string; organizationId: string; createdAt: string };

@@ -1,92 +1,126 @@
 import { z } from 'zod';
+import { plainText } from './common';
+import { checkWing, GAUGE_RANGE_IN, listOf, measured, whole } from './engineering';
 import { aircraftCategories } from './kits';
 
 /**
- * A rib load study's inputs, in the engine's units (in, lb, ft², KEAS). This schema checks shape and
- * plain ranges as the supplier types; the engine then refuses what makes no physical sense, naming the
- * same field paths.
+ * A rib load study's inputs, in the engine's units (in, lb, ft², KEAS). Every number carries its
+ * physical range here, the engine's own (server/engineering/bounds.ts) or a narrower one, so a request
+ * never reaches the engine outside it; the engine then refuses what makes no physical sense in
+ * combination (and a study whose work is over its budget), naming the same field paths.
  */
 const num = (what: string) => z.number({ message: `${what} must be a number` });
-const positive = (what: string) => num(what).positive(`${what} must be greater than zero`);
+const fraction = (what: string) => num(what).min(0, `${what} is a fraction of chord from 0 to 1`).max(1, `${what} is a fraction of chord from 0 to 1`);
 
 export const studyKitInput = z.object({
-  weightLb: positive('weight'),
-  wingAreaSqFt: positive('wing area'),
-  meanChordIn: positive('mean chord'),
-  liftSlopePerRad: positive('lift slope').max(2 * Math.PI, 'lift slope above 2π per radian is not a wing').optional(),
-  stallSpeedKeas: positive('stall speed'),
-  cruiseSpeedKeas: positive('cruise speed').optional(),
-  diveSpeedKeas: positive('dive speed').optional(),
+  /** gross weight, lb: 100 – 20,000 */
+  weightLb: measured('weight', 100, 20_000, 'lb'),
+  /** wing area, ft²: 10 – 2,000 */
+  wingAreaSqFt: measured('wing area', 10, 2_000, 'ft²'),
+  /** mean geometric chord, in: 10 – 300 */
+  meanChordIn: measured('mean chord', 10, 300, 'in'),
+  /** wing lift slope, per radian: 0.5 – 2π */
+  liftSlopePerRad: measured('lift slope', 0.5, 2 * Math.PI, 'per radian (2π is the thin-airfoil limit)').optional(),
+  /** stall speed, KEAS: 20 – 200 */
+  stallSpeedKeas: measured('stall speed', 20, 200, 'KEAS'),
+  /** design cruise speed VC, KEAS: 30 – 400 */
+  cruiseSpeedKeas: measured('cruise speed', 30, 400, 'KEAS').optional(),
+  /** design dive speed VD, KEAS: 40 – 500 */
+  diveSpeedKeas: measured('dive speed', 40, 500, 'KEAS').optional(),
   category: z.enum(aircraftCategories, { message: 'category is normal, utility or acrobatic' }),
+  /** gust altitude, ft: 0 – 36,000 (the atmosphere model stops at the tropopause) */
   altitudeFt: num('altitude').min(0, 'altitude cannot be below sea level').max(36000, 'the atmosphere model stops at the tropopause').optional(),
 }).refine((k) => k.cruiseSpeedKeas === undefined || k.cruiseSpeedKeas > k.stallSpeedKeas, {
   path: ['cruiseSpeedKeas'], message: 'cruise speed must be above the stall speed',
 }).refine((k) => k.diveSpeedKeas === undefined || k.cruiseSpeedKeas === undefined || k.diveSpeedKeas > k.cruiseSpeedKeas, {
   path: ['diveSpeedKeas'], message: 'dive speed must be above the cruise speed',
-});
+}).superRefine(checkWing);
+
+/** One coordinate of an uploaded outline, in the file's own unit (unit chord, mm, in): ±10,000. */
+const coordinate = measured('a coordinate', -10_000, 10_000, '(in the file\'s unit)');
 
 export const studyAirfoilInput = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('naca'), designation: z.string().trim().regex(/^(NACA\s*)?\d{4,5}$/i, 'a NACA designation such as 2412 or 23012') }),
+  z.object({ kind: z.literal('naca'), designation: z.string({ message: 'the designation must be text' }).trim().regex(/^(NACA\s*)?\d{4,5}$/i, 'a NACA designation such as 2412 or 23012') }),
   z.object({
     kind: z.literal('coordinates'),
-    name: z.string().trim().max(80).optional(),
-    points: z.array(z.tuple([z.number(), z.number()]), { message: 'coordinates are x, y pairs' })
-      .min(10, 'an airfoil needs at least ten points').max(2000, 'at most 2000 points'),
+    name: plainText('the airfoil name', 0, 80).optional(),
+    /** 10 – 2,000 [x, y] points */
+    points: listOf(z.tuple([coordinate, coordinate], { message: 'coordinates are x, y pairs' }), 'points', 10, 2000, 'an airfoil needs at least ten points'),
   }),
 ]);
 
 export const studyLineInput = z.object({
-  name: z.string().trim().min(1, 'name the line').max(40),
+  name: plainText('the line name', 1, 40, 'name the line'),
   surface: z.enum(['upper', 'lower'], { message: 'the line runs along the upper or the lower surface' }),
-  startXc: num('line start').min(0, 'line start is a fraction of chord from 0 to 1').max(1, 'line start is a fraction of chord from 0 to 1'),
-  endXc: num('line end').min(0, 'line end is a fraction of chord from 0 to 1').max(1, 'line end is a fraction of chord from 0 to 1'),
+  /** x/c: 0 – 1 */
+  startXc: fraction('line start'),
+  /** x/c: 0 – 1, aft of the start */
+  endXc: fraction('line end'),
 }).refine((l) => l.endXc > l.startXc, { path: ['endXc'], message: 'the line must end aft of its start' });
+
+/** One row of a Cp table: x/c 0 – 1, Cp upper and lower −30 – 1 (1 is stagnation). */
+const cp = (what: string) => num(what).min(-30, `${what} below −30 is not a plausible pressure`).max(1, `${what} above 1 is more than stagnation pressure: impossible in subsonic flow`);
+const cpRow = z.tuple([fraction('x/c'), cp('Cp upper'), cp('Cp lower')], { message: 'rows are x/c, Cp upper, Cp lower' });
 
 export const ribStudyInputSchema = z.object({
   kit: studyKitInput,
   airfoil: studyAirfoilInput,
   rib: z.object({
-    chordIn: positive('rib chord'),
-    spacingIn: positive('rib spacing'),
-    internalCp: num('internal pressure coefficient').min(-3).max(1).optional(),
-    flangeWidthIn: positive('flange width').optional(),
+    /** in: 4 – 300 */
+    chordIn: measured('rib chord', 4, 300, 'in'),
+    /** in: 2 – 60 (the tributary width each rivet line carries) */
+    spacingIn: measured('rib spacing', 2, 60, 'in'),
+    /** −3 – 1 */
+    internalCp: num('internal pressure coefficient').min(-3, 'internal pressure coefficient must be between −3 and 1').max(1, 'internal pressure coefficient must be between −3 and 1').optional(),
+    /** in: 0.2 – 4 */
+    flangeWidthIn: measured('flange width', 0.2, 4, 'in').optional(),
   }),
-  lines: z.array(studyLineInput).min(1, 'add at least one fastener line').max(6),
-  material: z.string().trim().min(1, 'choose the sheet material'),
-  gaugeCandidates: z.array(positive('gauge').max(0.25)).min(1, 'choose at least one gauge').max(10),
-  rivetCandidates: z.array(z.string().trim().min(1)).min(1, 'choose at least one rivet').max(8),
+  /** 1 – 6 lines */
+  lines: listOf(studyLineInput, 'fastener lines', 1, 6, 'add at least one fastener line'),
+  material: plainText('the material', 1, 40, 'choose the sheet material'),
+  /** 1 – 10 gauges, each 0.008 – 0.25 in */
+  gaugeCandidates: listOf(measured('gauge', GAUGE_RANGE_IN.min, GAUGE_RANGE_IN.max, 'in'), 'gauges', 1, 10, 'choose at least one gauge'),
+  /** 1 – 8 rivet specs */
+  rivetCandidates: listOf(plainText('the rivet', 1, 40, 'choose the rivet'), 'rivets', 1, 8, 'choose at least one rivet'),
+  /** diameters: 4 – 16 (the engine takes 3 – 24) */
   maxPitchDiameters: num('maximum pitch').min(4, 'maximum pitch below 4D leaves no room').max(16, 'maximum pitch over 16D is outside the layout rules'),
-  pitchIncrementIn: positive('pitch increment'),
-  maxZones: z.number().int('zones must be a whole number').min(1, 'at least one zone').max(8, 'at most 8 zones'),
-  panels: z.number({ message: 'panels must be a number' }).int('panels is a whole number').min(40, 'at least 40 panels').max(400, 'at most 400 panels')
-    .refine((n) => n % 2 === 0, 'the number of panels must be even: half on each surface').optional(),
-  minutesPerHole: positive('minutes per hole').optional(),
-  /** Measured or computed pressure to use instead of the panel method: one table per lift coefficient. */
-  cpTables: z.array(z.object({
-    cl: num('lift coefficient of the table'),
-    rows: z.array(z.tuple([z.number(), z.number(), z.number()]), { message: 'rows are x/c, Cp upper, Cp lower' })
-      .min(5, 'a Cp table needs at least five rows').max(500, 'at most 500 rows'),
-  })).min(1).max(12, 'at most 12 Cp tables').optional(),
+  /**
+   * in: 0.01 – 1. The engine also holds the pitch grid (maximum pitch ÷ increment) and the stations ×
+   * pitches it makes to its work budget, and names this field when a study is over it.
+   */
+  pitchIncrementIn: measured('pitch increment', 0.01, 1, 'in'),
+  /** 1 – 8 */
+  maxZones: whole('zones', 1, 8),
+  /** 40 – 400, even */
+  panels: whole('panels', 40, 400).refine((n) => n % 2 === 0, 'the number of panels must be even: half on each surface').optional(),
+  /** min: 0.1 – 30 */
+  minutesPerHole: measured('minutes per hole', 0.1, 30, 'min').optional(),
+  /** Measured or computed pressure to use instead of the panel method: 1 – 12 tables, one per lift coefficient, 5 – 500 rows each. */
+  cpTables: listOf(z.object({
+    /** −3 – 3, not zero */
+    cl: num('lift coefficient of the table').min(-3, 'lift coefficient of the table must be between −3 and 3').max(3, 'lift coefficient of the table must be between −3 and 3'),
+    rows: listOf(cpRow, 'rows', 5, 500, 'a Cp table needs at least five rows'),
+  }), 'Cp tables', 1, 12).optional(),
   rankBy: z.enum(['weight', 'buildTime']).optional(),
 });
 export type RibStudyInputValues = z.infer<typeof ribStudyInputSchema>;
 
 export const studyInput = z.object({
   kitModelId: z.uuid({ message: 'choose a kit model' }),
-  name: z.string().trim().min(1, 'name the study').max(120),
+  name: plainText('the study name', 1, 120, 'name the study'),
   inputs: ribStudyInputSchema,
 });
 export type StudyInput = z.input<typeof studyInput>;
 
 export const applyStudyInput = z.object({
   partDesignId: z.uuid({ message: 'choose the part design to apply it to' }),
-  gaugeIn: positive('gauge'),
-  rivet: z.string().trim().min(1, 'choose the rivet'),
+  gaugeIn: measured('gauge', GAUGE_RANGE_IN.min, GAUGE_RANGE_IN.max, 'in'),
+  rivet: plainText('the rivet', 1, 40, 'choose the rivet'),
 });
 export type ApplyStudyInput = z.infer<typeof applyStudyInput>;
 
 export const reworkCheckInput = z.object({
-  proposedSpec: z.string().trim().min(1, 'choose the oversize rivet').optional(),
+  proposedSpec: plainText('the oversize rivet', 1, 40, 'choose the oversize rivet').optional(),
 });
 
 export type StudySummary = { id: string; kitModelId: string; kitName: string; name: string; revision: number; updatedAt: string; recommended: { gaugeIn: number; rivet: string } | null };

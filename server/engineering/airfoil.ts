@@ -1,7 +1,8 @@
 import { EngineeringInputError } from './errors';
 import { envelope, type EngineeringResult } from './result';
 import { evaluateSpline, naturalSpline } from './spline';
-import { requireArray, requireInteger } from './validate';
+import { requireCount, requireStudyBound, STUDY_BOUNDS } from './bounds';
+import { requireArray } from './validate';
 
 /**
  * Airfoil geometry at unit chord, as one contour in the usual file order: trailing edge, over the upper
@@ -116,7 +117,7 @@ export function parseNacaDesignation(designation: string): NacaSection {
 }
 
 function requirePanels(panels: number): number {
-  requireInteger(panels, 'panels', 20, 1000, 'the number of panels');
+  requireStudyBound(panels, 'panels');
   if (panels % 2 !== 0) throw new EngineeringInputError('panels', 'the number of panels must be even (half on each surface)');
   return panels;
 }
@@ -216,17 +217,20 @@ export interface CoordinateCheck {
 export function normaliseCoordinates(input: unknown): CoordinateCheck {
   const field = 'airfoil.points';
   const raw = requireArray<unknown>(input, field, MIN_AIRFOIL_POINTS, 'list of [x, y] points');
-  if (raw.length > 5000) throw new EngineeringInputError(field, `too many points (${raw.length}); 5000 at most`);
+  // The self-crossing check is quadratic in the points: the count is capped before it runs.
+  requireCount(raw, field, STUDY_BOUNDS['airfoil.points']);
   const pts: Point[] = raw.map((p, i) => {
     if (!Array.isArray(p) || p.length !== 2 || !p.every((v) => typeof v === 'number' && Number.isFinite(v))) {
       throw new EngineeringInputError(`${field}[${i}]`, 'each point must be a pair of numbers [x, y]');
     }
+    p.forEach((v, k) => requireStudyBound(v, 'airfoil.points[][]', `${field}[${i}][${k}]`));
     return [p[0], p[1]];
   });
   const warnings: string[] = [];
   const xs = pts.map((p) => p[0]);
   const size = Math.max(...xs) - Math.min(...xs);
-  if (!(size > 0)) throw new EngineeringInputError(field, 'the points have no extent along the chord');
+  // Normalising divides by the extent: one too small for its own rounding would blow the shape up.
+  if (!(size > 1e-6 * Math.max(1, ...xs.map(Math.abs)))) throw new EngineeringInputError(field, 'the points have no extent along the chord');
   let contour = dropRepeats(toContour(pts), 1e-9 * size);
   const head = contour[0];
   const tail = contour[contour.length - 1];

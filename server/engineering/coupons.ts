@@ -1,5 +1,6 @@
 import { EngineeringInputError } from './errors';
 import { envelope, type EngineeringResult } from './result';
+import { requireCount, requireStudyBound, STUDY_BOUNDS } from './bounds';
 import { requireArray, requireOneOf, requirePositive } from './validate';
 
 /**
@@ -54,13 +55,17 @@ export function validateCouponTest(test: unknown, field: string): CouponTest {
   if (typeof t.rivetSpec !== 'string' || !t.rivetSpec.trim()) throw new EngineeringInputError(`${field}.rivetSpec`, 'the rivet spec is missing');
   requirePositive(t.gaugeIn, `${field}.gaugeIn`, 'the gauge');
   requirePositive(t.loadLb, `${field}.loadLb`, 'the test load');
-  if (t.couponWidthIn !== undefined) requirePositive(t.couponWidthIn, `${field}.couponWidthIn`, 'the coupon width');
+  requireStudyBound(t.gaugeIn, 'coupons[].gaugeIn', `${field}.gaugeIn`);
+  requireStudyBound(t.loadLb, 'coupons[].loadLb', `${field}.loadLb`);
+  if (t.couponWidthIn !== undefined) requireStudyBound(t.couponWidthIn, 'coupons[].couponWidthIn', `${field}.couponWidthIn`);
   requireOneOf(t.outcome, `${field}.outcome`, COUPON_OUTCOMES);
   return t;
 }
 
 export function validateCoupons(tests: unknown, field = 'coupons'): CouponTest[] {
   const list = requireArray<unknown>(tests, field, 0);
+  // Every candidate reads every test: the count is part of a study's work.
+  requireCount(list, field, STUDY_BOUNDS.coupons);
   return list.map((t, i) => validateCouponTest(t, `${field}[${i}]`));
 }
 

@@ -1,6 +1,7 @@
 import { EngineeringInputError } from './errors';
 import { interpolateCp, type CpSample } from './panel-method';
-import { requireArray, requireFinite } from './validate';
+import { requireCount, requireStudyBound, STUDY_BOUNDS } from './bounds';
+import { requireArray } from './validate';
 
 /**
  * A supplier's own pressure distribution (wind tunnel, or a viscous code) in place of the panel method:
@@ -24,12 +25,14 @@ export const MIN_CP_TABLE_ROWS = 5;
 
 export function validateCpTables(input: unknown, field = 'cpTables'): CpTable[] {
   const tables = requireArray<CpTableInput>(input, field, 1, 'list of Cp tables');
+  requireCount(tables, field, STUDY_BOUNDS.cpTables);
   return tables.map((t, k) => {
     const f = `${field}[${k}]`;
     if (t === null || typeof t !== 'object') throw new EngineeringInputError(f, 'each Cp table must be an object');
-    const cl = requireFinite(t.cl, `${f}.cl`);
+    const cl = requireStudyBound(t.cl, 'cpTables[].cl', `${f}.cl`);
     if (cl === 0) throw new EngineeringInputError(`${f}.cl`, 'a Cp table needs the (non-zero) lift coefficient it was measured at');
     const rows = requireArray<unknown>(t.rows, `${f}.rows`, MIN_CP_TABLE_ROWS, 'list of [x/c, Cp upper, Cp lower] rows');
+    requireCount(rows, `${f}.rows`, STUDY_BOUNDS['cpTables[].rows']);
     let prev = -Infinity;
     const upper: CpSample[] = [];
     const lower: CpSample[] = [];

@@ -1,9 +1,10 @@
 import { densitySlugPerFt3, dynamicPressurePsi, GRAVITY_FT_S2 } from './atmosphere';
 import { EngineeringInputError } from './errors';
+import { ASPECT_RATIO_RANGE, requireStudyBound, WING_LOADING_RANGE_PSF } from './bounds';
 import { envelope, type EngineeringResult } from './result';
 import { THIN_AIRFOIL_LIFT_SLOPE } from './thin-airfoil';
 import { inToFt, SQIN_PER_SQFT } from './units';
-import { requireInRange, requireNonNegative, requireOneOf, requirePositive } from './validate';
+import { requireNonNegative, requireOneOf, requirePositive } from './validate';
 
 /**
  * Flight-envelope design conditions after 14 CFR part 23 as written before the 2017 rewrite
@@ -129,17 +130,39 @@ function validateKit(kit: KitInput): void {
   requirePositive(kit.wingAreaSqFt, 'kit.wingAreaSqFt', 'the wing area');
   requirePositive(kit.meanChordIn, 'kit.meanChordIn', 'the mean chord');
   requirePositive(kit.stallSpeedKeas, 'kit.stallSpeedKeas', 'the stall speed');
+  requireStudyBound(kit.weightLb, 'kit.weightLb');
+  requireStudyBound(kit.wingAreaSqFt, 'kit.wingAreaSqFt');
+  requireStudyBound(kit.meanChordIn, 'kit.meanChordIn');
+  requireStudyBound(kit.stallSpeedKeas, 'kit.stallSpeedKeas');
   requireOneOf(kit.category, 'kit.category', CATEGORIES);
-  if (kit.liftSlopePerRad !== undefined) requireInRange(kit.liftSlopePerRad, 'kit.liftSlopePerRad', 0.5, 2 * Math.PI, 'the wing lift slope (per radian)');
-  if (kit.altitudeFt !== undefined) requireInRange(kit.altitudeFt, 'kit.altitudeFt', 0, 36089, 'the altitude (ft)');
+  if (kit.liftSlopePerRad !== undefined) requireStudyBound(kit.liftSlopePerRad, 'kit.liftSlopePerRad');
+  if (kit.altitudeFt !== undefined) requireStudyBound(kit.altitudeFt, 'kit.altitudeFt');
+  // Derived quantities checked against the field that makes them absurd, before they reach a formula
+  // that would only fail later and name something the supplier never typed (the lift slope).
+  const aspectRatio = (kit.wingAreaSqFt * SQIN_PER_SQFT) / (kit.meanChordIn * kit.meanChordIn);
+  if (aspectRatio < ASPECT_RATIO_RANGE.min || aspectRatio > ASPECT_RATIO_RANGE.max) {
+    throw new EngineeringInputError(
+      'kit.meanChordIn',
+      `a mean chord of ${kit.meanChordIn} in on ${kit.wingAreaSqFt} ft² gives an aspect ratio S/c² of ${aspectRatio.toPrecision(3)}: a wing has ${ASPECT_RATIO_RANGE.min} to ${ASPECT_RATIO_RANGE.max}`,
+    );
+  }
+  const wingLoading = kit.weightLb / kit.wingAreaSqFt;
+  if (wingLoading < WING_LOADING_RANGE_PSF.min || wingLoading > WING_LOADING_RANGE_PSF.max) {
+    throw new EngineeringInputError(
+      'kit.weightLb',
+      `${kit.weightLb} lb on ${kit.wingAreaSqFt} ft² is a wing loading of ${wingLoading.toPrecision(3)} psf: this tool takes ${WING_LOADING_RANGE_PSF.min} to ${WING_LOADING_RANGE_PSF.max} psf`,
+    );
+  }
   if (kit.cruiseSpeedKeas !== undefined) {
     requirePositive(kit.cruiseSpeedKeas, 'kit.cruiseSpeedKeas', 'the cruise speed');
+    requireStudyBound(kit.cruiseSpeedKeas, 'kit.cruiseSpeedKeas');
     if (kit.stallSpeedKeas >= kit.cruiseSpeedKeas) {
       throw new EngineeringInputError('kit.stallSpeedKeas', `the stall speed (${kit.stallSpeedKeas} kt) must be below the cruise speed (${kit.cruiseSpeedKeas} kt)`);
     }
   }
   if (kit.diveSpeedKeas !== undefined) {
     requirePositive(kit.diveSpeedKeas, 'kit.diveSpeedKeas', 'the dive speed');
+    requireStudyBound(kit.diveSpeedKeas, 'kit.diveSpeedKeas');
     if (kit.cruiseSpeedKeas !== undefined && kit.diveSpeedKeas <= kit.cruiseSpeedKeas) {
       throw new EngineeringInputError('kit.diveSpeedKeas', `the dive speed (${kit.diveSpeedKeas} kt) must be above the cruise speed (${kit.cruiseSpeedKeas} kt)`);
     }

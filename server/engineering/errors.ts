@@ -14,3 +14,14 @@ export class EngineeringInputError extends Error {
     this.reason = reason;
   }
 }
+
+/**
+ * The same refusal with its field placed inside a larger input ("inputs" + "lines[1].name" →
+ * "inputs.lines.1.name"): the engine names fields relative to what it was given, the API names them
+ * from the root of the request body in the dotted form its contracts (zod) use, so one form can put
+ * every message next to its box.
+ */
+export function fieldAt(prefix: string, field: string): string {
+  const dotted = field.replace(/\[(\d+)\]/g, '.$1');
+  return prefix ? `${prefix}.${dotted}` : dotted;
+}

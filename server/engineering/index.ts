@@ -1,5 +1,20 @@
 // Public API of the engineering core: pure functions, plain data in and out, no I/O.
-export { EngineeringInputError } from './errors';
+export { EngineeringInputError, fieldAt } from './errors';
+export {
+  requireCount,
+  requireStudyBound,
+  requireWithin,
+  ASPECT_RATIO_RANGE,
+  MAX_LINE_HOLES,
+  MAX_REVISION_HOLES,
+  MAX_ZONING_RUNS,
+  STUDY_BOUNDS,
+  STUDY_BUDGET,
+  WING_LOADING_RANGE_PSF,
+  type Bound,
+  type StudyBoundKey,
+} from './bounds';
+export { estimateStudyWork, requireStudyBudget, type StudyWork } from './study-work';
 export { ENGINEERING_CAUTION, marginOfSafety, type EngineeringResult } from './result';
 export * from './units';
 export { densitySlugPerFt3, dynamicPressurePsf, dynamicPressurePsi, SEA_LEVEL_DENSITY_SLUG_FT3, GRAVITY_FT_S2 } from './atmosphere';
@@ -88,7 +103,9 @@ export {
   type JointInput,
 } from './allowables';
 export {
+  pitchGridSize,
   pitchSchedule,
+  requirePitchGrid,
   type AllowableSummary,
   type PitchScheduleInput,
   type PitchScheduleResult,
@@ -111,7 +128,7 @@ export {
   type RepairHoleResult,
 } from './repair-check';
 export { lineStations, ribOutline, type FastenerLineInput } from './rib-geometry';
-export { placeHoles, type Zone } from './zoning';
+export { coarsenRuns, estimateHoles, groupIntoZones, placeHoles, type Zone } from './zoning';
 export {
   ribStudy,
   type EnvelopePoint,

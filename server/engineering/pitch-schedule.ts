@@ -6,8 +6,8 @@ import { findRivet, type RivetSpec, type SheetMaterial } from './materials';
 import { envelope, type EngineeringResult } from './result';
 import { ULTIMATE_FACTOR } from './rivet-loads';
 import { prepareStations, type PreparedLine, type StationLoad } from './station-loads';
-import { requireFinite, requireInteger, requirePositive } from './validate';
-import { groupIntoZones, placeHoles, type Zone } from './zoning';
+import { STUDY_BUDGET, requireStudyBound } from './bounds';
+import { coarsenRuns, groupIntoZones, placeHoles, type Zone } from './zoning';
 
 export { prepareStations, type PreparedLine, type StationLoad } from './station-loads';
 
@@ -109,15 +109,34 @@ export interface PitchScheduleResult extends EngineeringResult<PitchScheduleInpu
 const EPS = 1e-9;
 
 export function validateScheduleSettings(s: ScheduleSettings, rivetDiameterIn: number): void {
-  const maxD = requireFinite(s.maxPitchDiameters, 'maxPitchDiameters');
-  if (maxD < 3) throw new EngineeringInputError('maxPitchDiameters', `the maximum pitch (${maxD}D) cannot be below the 3D minimum pitch`);
-  if (maxD > 60) throw new EngineeringInputError('maxPitchDiameters', `a maximum pitch of ${maxD} diameters is not a rivet line`);
-  const inc = requirePositive(s.pitchIncrementIn, 'pitchIncrementIn', 'the pitch increment');
+  const maxD = requireStudyBound(s.maxPitchDiameters, 'maxPitchDiameters');
+  const inc = requireStudyBound(s.pitchIncrementIn, 'pitchIncrementIn');
   const maxPitch = maxD * rivetDiameterIn;
   if (inc > maxPitch + EPS) {
     throw new EngineeringInputError('pitchIncrementIn', `the pitch increment (${inc} in) is larger than the maximum pitch (${maxPitch.toFixed(3)} in)`);
   }
-  requireInteger(s.maxZones, 'maxZones', 1, 20, 'the number of zones');
+  requireStudyBound(s.maxZones, 'maxZones');
+}
+
+/**
+ * Pitches tried for a rivet: every multiple of the increment from the maximum pitch down to just above
+ * the 3D minimum, then the minimum itself. The loop that builds it runs this many times.
+ */
+export function pitchGridSize(s: Pick<ScheduleSettings, 'maxPitchDiameters' | 'pitchIncrementIn'>, rivetDiameterIn: number): number {
+  return Math.max(0, Math.floor((s.maxPitchDiameters * rivetDiameterIn) / s.pitchIncrementIn + EPS)) + 1;
+}
+
+/** Refuses an increment so fine that the pitch grid of the largest rivet outgrows the budget. */
+export function requirePitchGrid(s: ScheduleSettings, largestRivetDiameterIn: number): number {
+  const size = pitchGridSize(s, largestRivetDiameterIn);
+  if (size > STUDY_BUDGET.pitchGrid) {
+    const coarsest = (s.maxPitchDiameters * largestRivetDiameterIn) / (STUDY_BUDGET.pitchGrid - 1);
+    throw new EngineeringInputError(
+      'pitchIncrementIn',
+      `an increment of ${s.pitchIncrementIn} in makes ${size.toLocaleString('en-US')} pitches to try up to ${s.maxPitchDiameters}D of a ${largestRivetDiameterIn.toFixed(3)} in rivet; at most ${STUDY_BUDGET.pitchGrid}: use an increment of at least ${(Math.ceil(coarsest * 1000) / 1000).toFixed(3)} in`,
+    );
+  }
+  return size;
 }
 
 /** Load per inch of pitch relative to the allowables: pitch × demand ≤ 1 passes. Infinity for a zero allowable. */
@@ -159,6 +178,7 @@ export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine
   const rivet = findRivet(input.rivetSpec, input.rivetData);
   const layout = layoutRules(rivet);
   validateScheduleSettings(input, layout.diameterIn);
+  requirePitchGrid(input, layout.diameterIn);
   const lineData = prepared ?? prepareStations(input.stations);
   const allow = jointAllowables({
     material: input.material,
@@ -236,7 +256,11 @@ export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine
     if (last && Math.abs(last.pitch - n.pitch) < EPS) last.to = to;
     else runs.push({ from, to, pitch: n.pitch });
   });
-  const zones = groupIntoZones(runs, input.maxZones);
+  const coarse = coarsenRuns(runs);
+  if (coarse.merged) {
+    warnings.push(`the needed pitch changes ${runs.length} times along ${line}: neighbouring stretches were merged, each keeping the tighter pitch, before zoning`);
+  }
+  const zones = groupIntoZones(coarse.runs, input.maxZones);
 
   const edge = layout.minEdgeIn;
   const start = along[0] + edge;

@@ -71,15 +71,25 @@ export function validateLine(line: FastenerLineInput, field: string): void {
   }
 }
 
-/** Stations along a line at most `stepIn` apart (along the surface), at the rib's chord. */
-export function lineStations(geometry: AirfoilGeometry, line: FastenerLineInput, chordIn: number, stepIn: number): LineStation[] {
+/** A line's surface at the rib's chord and where it starts and ends along it (arc length, in). */
+function lineArc(geometry: AirfoilGeometry, line: FastenerLineInput, chordIn: number) {
   const surface = surfacePoints(geometry, line.surface).map(([x, y]): Point => [x * chordIn, y * chordIn]);
   const cumulative = [0];
   for (let i = 1; i < surface.length; i++) {
     cumulative.push(cumulative[i - 1] + Math.hypot(surface[i][0] - surface[i - 1][0], surface[i][1] - surface[i - 1][1]));
   }
-  const s0 = arcAt(surface, cumulative, line.startXc * chordIn);
-  const s1 = arcAt(surface, cumulative, line.endXc * chordIn);
+  return { surface, cumulative, s0: arcAt(surface, cumulative, line.startXc * chordIn), s1: arcAt(surface, cumulative, line.endXc * chordIn) };
+}
+
+/** How many stations `lineStations` makes: known before any is made, for the study's work budget. */
+export function lineStationCount(geometry: AirfoilGeometry, line: FastenerLineInput, chordIn: number, stepIn: number): { count: number; lengthIn: number } {
+  const { s0, s1 } = lineArc(geometry, line, chordIn);
+  return { count: Math.max(2, Math.ceil((s1 - s0) / stepIn) + 1), lengthIn: s1 - s0 };
+}
+
+/** Stations along a line at most `stepIn` apart (along the surface), at the rib's chord. */
+export function lineStations(geometry: AirfoilGeometry, line: FastenerLineInput, chordIn: number, stepIn: number): LineStation[] {
+  const { surface, cumulative, s0, s1 } = lineArc(geometry, line, chordIn);
   const count = Math.max(2, Math.ceil((s1 - s0) / stepIn) + 1);
   return Array.from({ length: count }, (_, k) => {
     const s = s0 + ((s1 - s0) * k) / (count - 1);

@@ -7,13 +7,15 @@ import { EngineeringInputError } from './errors';
 import { layoutRules, rivetWeightLb } from './layout';
 import { findMaterial, findRivet, type RivetSpec, type SheetMaterial } from './materials';
 import { alphaForLiftCoefficient, cpOnSurface, pressureDistribution, solvePanelMethod, type CpSample, type PanelSolution } from './panel-method';
-import { holePrefixFor, pitchSchedule, prepareStations, validateScheduleSettings, type PitchScheduleResult, type PreparedLine, type StationLoad } from './pitch-schedule';
+import { holePrefixFor, pitchSchedule, prepareStations, requirePitchGrid, validateScheduleSettings, type PitchScheduleResult, type PreparedLine, type StationLoad } from './pitch-schedule';
 import { compactNumbers, envelope, type EngineeringResult } from './result';
 import { lineStations, outlineAreaSqIn, ribOutline, validateLine, type FastenerLineInput } from './rib-geometry';
 import { loadEnvelope, shearFlowLbPerIn, ULTIMATE_FACTOR } from './rivet-loads';
 import { tradeStudy, type RankBy, type TradeCandidate, type TradeRow } from './trade-study';
 import { radToDeg } from './units';
-import { requireArray, requireInRange, requireOneOf, requirePositive } from './validate';
+import { requireCount, requireStudyBound, STUDY_BOUNDS } from './bounds';
+import { estimateStudyWork, requireStudyBudget, type StudyWork } from './study-work';
+import { requireArray, requireOneOf, requirePositive } from './validate';
 
 /**
  * The whole chain for one rib (step 1–8 of the chain): kit data → flight conditions → airfoil →
@@ -114,6 +116,8 @@ export interface RibStudyResult extends EngineeringResult<RibStudyInput> {
   candidates: StudyCandidate[];
   trade: TradeRow[];
   recommended: { gaugeIn: number; rivet: string } | null;
+  /** what the study cost, as counted before it ran (see study-work.ts) */
+  work: StudyWork;
 }
 
 const DEFAULT_PANELS = 160;
@@ -125,38 +129,55 @@ const ENVELOPE_POINTS = 150;
 /** beyond this angle of attack the inviscid pressure peak is well past what real flow sustains */
 const HIGH_ALPHA_DEG = 10;
 
-function validateStudy(input: RibStudyInput): void {
+/** Ranges and counts of everything the study takes; returns the rivet specs of the candidates. */
+function validateStudy(input: RibStudyInput): RivetSpec[] {
   if (input === null || typeof input !== 'object') throw new EngineeringInputError('input', 'the study input is missing');
   const rib = input.rib;
   if (rib === null || typeof rib !== 'object') throw new EngineeringInputError('rib', 'the rib data are missing');
   requirePositive(rib.chordIn, 'rib.chordIn', 'the rib chord');
   requirePositive(rib.spacingIn, 'rib.spacingIn', 'the rib spacing');
-  if (rib.internalCp !== undefined) requireInRange(rib.internalCp, 'rib.internalCp', -3, 1, 'the internal pressure coefficient');
-  if (rib.flangeWidthIn !== undefined) requirePositive(rib.flangeWidthIn, 'rib.flangeWidthIn', 'the flange width');
-  if (rib.skinGaugeIn !== undefined) requireInRange(rib.skinGaugeIn, 'rib.skinGaugeIn', 0.005, 0.5, 'the skin gauge (in)');
+  requireStudyBound(rib.chordIn, 'rib.chordIn');
+  requireStudyBound(rib.spacingIn, 'rib.spacingIn');
+  if (rib.internalCp !== undefined) requireStudyBound(rib.internalCp, 'rib.internalCp');
+  if (rib.flangeWidthIn !== undefined) requireStudyBound(rib.flangeWidthIn, 'rib.flangeWidthIn');
+  if (rib.skinGaugeIn !== undefined) requireStudyBound(rib.skinGaugeIn, 'rib.skinGaugeIn');
   const lines = requireArray<FastenerLineInput>(input.lines, 'lines', 1, 'list of fastener lines');
+  requireCount(lines, 'lines', STUDY_BOUNDS.lines);
   lines.forEach((l, i) => validateLine(l, `lines[${i}]`));
   const names = lines.map((l) => l.name.trim().toLowerCase());
   names.forEach((n, i) => {
     if (names.indexOf(n) !== i) throw new EngineeringInputError(`lines[${i}].name`, `two lines are called "${lines[i].name}"`);
   });
   findMaterial(input.material, input.materialData, 'material');
-  requireArray<number>(input.gaugeCandidates, 'gaugeCandidates', 1, 'list of gauges').forEach((g, i) =>
-    requireInRange(g, `gaugeCandidates[${i}]`, 0.005, 0.5, 'a gauge (in)'),
-  );
-  const rivets = requireArray<string>(input.rivetCandidates, 'rivetCandidates', 1, 'list of rivet specs').map((c, i) => findRivet(c, input.rivetData, `rivetCandidates[${i}]`));
-  // The smallest rivet has the smallest maximum pitch: the settings must suit it.
+  const gauges = requireArray<number>(input.gaugeCandidates, 'gaugeCandidates', 1, 'list of gauges');
+  requireCount(gauges, 'gaugeCandidates', STUDY_BOUNDS.gaugeCandidates);
+  gauges.forEach((g, i) => requireStudyBound(g, 'gaugeCandidates[]', `gaugeCandidates[${i}]`));
+  const codes = requireArray<string>(input.rivetCandidates, 'rivetCandidates', 1, 'list of rivet specs');
+  requireCount(codes, 'rivetCandidates', STUDY_BOUNDS.rivetCandidates);
+  const rivets = codes.map((c, i) => findRivet(c, input.rivetData, `rivetCandidates[${i}]`));
+  // The smallest rivet has the smallest maximum pitch: the settings must suit it; the largest has the
+  // longest pitch grid: the increment must keep it within the budget.
   const smallest = Math.min(...rivets.map((r) => r.nominalDiameterIn));
   validateScheduleSettings(input, smallest);
+  requirePitchGrid(input, Math.max(...rivets.map((r) => r.nominalDiameterIn)));
+  if (input.panels !== undefined) requireStudyBound(input.panels, 'panels');
   if (input.coupons !== undefined) validateCoupons(input.coupons, 'coupons');
   if (input.cpTables !== undefined) validateCpTables(input.cpTables, 'cpTables');
   if ((input.wingTorqueInLb === undefined) !== (input.cellAreaSqIn === undefined)) {
     const missing = input.wingTorqueInLb === undefined ? 'wingTorqueInLb' : 'cellAreaSqIn';
     throw new EngineeringInputError(missing, 'the wing torque and the cell area go together: give both or neither');
   }
-  if (input.cellAreaSqIn !== undefined) requirePositive(input.cellAreaSqIn, 'cellAreaSqIn', 'the cell area');
-  if (input.minutesPerHole !== undefined) requirePositive(input.minutesPerHole, 'minutesPerHole', 'the minutes per hole');
+  if (input.wingTorqueInLb !== undefined) requireStudyBound(input.wingTorqueInLb, 'wingTorqueInLb');
+  if (input.cellAreaSqIn !== undefined) {
+    requirePositive(input.cellAreaSqIn, 'cellAreaSqIn', 'the cell area');
+    requireStudyBound(input.cellAreaSqIn, 'cellAreaSqIn');
+  }
+  if (input.minutesPerHole !== undefined) {
+    requirePositive(input.minutesPerHole, 'minutesPerHole', 'the minutes per hole');
+    requireStudyBound(input.minutesPerHole, 'minutesPerHole');
+  }
   if (input.rankBy !== undefined) requireOneOf(input.rankBy, 'rankBy', ['weight', 'buildTime'] as const);
+  return rivets;
 }
 
 function thin<T>(items: T[], keep: number): T[] {
@@ -304,13 +325,16 @@ function tradeCandidate(input: RibStudyInput, c: StudyCandidate, webAreaSqIn: nu
 }
 
 export function ribStudy(input: RibStudyInput): RibStudyResult {
-  validateStudy(input);
+  const rivets = validateStudy(input);
   const { rib } = input;
   const panels = input.panels ?? DEFAULT_PANELS;
   const warnings: string[] = [];
 
   const design = designConditions(input.kit);
   const geometry = buildAirfoil(input.airfoil, panels);
+  // Everything so far is small and capped; what follows runs on counts the input multiplies up.
+  const work = estimateStudyWork(input, geometry, rivets, design.conditions.length, STATION_STEP_IN);
+  requireStudyBudget(input, work, rivets.length);
   // The panel matrix depends on the geometry only: one factorisation serves every condition.
   const flow = solvePanelMethod(geometry.points, geometry.leadingEdgeIndex);
   warnings.push(...design.warnings, ...geometry.warnings);
@@ -367,5 +391,6 @@ export function ribStudy(input: RibStudyInput): RibStudyResult {
     candidates: compactNumbers(candidates),
     trade: trade.rows,
     recommended: trade.recommended,
+    work: { stations: work.stations, conditions: work.conditions, candidates: work.candidates, pitchGrid: work.pitchGrid, gridCells: work.gridCells, stationChecks: work.stationChecks, holes: work.holes },
   };
 }

@@ -1,3 +1,4 @@
+import { STUDY_BUDGET } from './bounds';
 import { EngineeringInputError } from './errors';
 import { requireArray, requireFinite, requireNonNegative } from './validate';
 
@@ -139,6 +140,9 @@ export function prepareStations(stations: StationLoad[]): PreparedLine {
 
 function validateStations(stations: unknown): StationLoad[] {
   const list = requireArray<StationLoad>(stations, 'stations', 2, 'list of station loads');
+  if (list.length > STUDY_BUDGET.stations) {
+    throw new EngineeringInputError('stations', `at most ${STUDY_BUDGET.stations.toLocaleString('en-US')} stations on a line (got ${list.length.toLocaleString('en-US')})`);
+  }
   list.forEach((s, i) => {
     requireFinite(s.stationIn, `stations[${i}].stationIn`);
     requireFinite(s.alongIn, `stations[${i}].alongIn`);

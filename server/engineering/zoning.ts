@@ -1,3 +1,6 @@
+import { MAX_LINE_HOLES, MAX_ZONING_RUNS } from './bounds';
+import { EngineeringInputError } from './errors';
+
 /**
  * Grouping a line's stations into zones of one pitch, and placing the holes along the zones.
  */
@@ -12,31 +15,64 @@ export interface Zone {
 }
 
 /**
+ * At most `max` runs: neighbours are merged pairwise, each pair keeping the tighter pitch (never less
+ * safe, only a few more rivets), until few enough remain. A line whose needed pitch changes hundreds of
+ * times (a saw-tooth Cp table, a very fine increment) would otherwise make the grouping below cost
+ * maxZones × runs² for every candidate.
+ */
+export function coarsenRuns(runs: Zone[], max = MAX_ZONING_RUNS): { runs: Zone[]; merged: boolean } {
+  let out = runs;
+  let merged = false;
+  while (out.length > max) {
+    merged = true;
+    const next: Zone[] = [];
+    for (let i = 0; i < out.length; i += 2) {
+      const a = out[i];
+      const b = out[i + 1];
+      const z = b ? { from: a.from, to: b.to, pitch: Math.min(a.pitch, b.pitch) } : { ...a };
+      const last = next[next.length - 1];
+      if (last && Math.abs(last.pitch - z.pitch) < EPS) last.to = z.to;
+      else next.push(z);
+    }
+    out = next;
+  }
+  return { runs: out, merged };
+}
+
+/**
  * Contiguous grouping of runs of equal pitch into at most maxZones zones, minimising the estimated rivet
- * count Σ length / pitch (dynamic programming). A zone is only added if it saves at least one rivet.
+ * count Σ length / pitch (dynamic programming, maxZones × runs²). A zone is only added if it saves at
+ * least one rivet.
  */
 export function groupIntoZones(runs: Zone[], maxZones: number): Zone[] {
   const r = runs.length;
   const kMax = Math.min(maxZones, r);
-  const cost = (a: number, b: number) => {
-    let p = Infinity;
-    for (let i = a; i <= b; i++) p = Math.min(p, runs[i].pitch);
-    return (runs[b].to - runs[a].from) / p;
-  };
-  const best: number[][] = [runs.map((_, b) => cost(0, b))];
+  const first: number[] = [];
+  let p0 = Infinity;
+  for (let b = 0; b < r; b++) {
+    p0 = Math.min(p0, runs[b].pitch);
+    first.push((runs[b].to - runs[0].from) / p0);
+  }
+  const best: number[][] = [first];
   const from: number[][] = [runs.map(() => 0)];
   for (let k = 1; k < kMax; k++) {
-    best.push(runs.map(() => Infinity));
-    from.push(runs.map(() => 0));
+    const row = runs.map(() => Infinity);
+    const rowFrom = runs.map(() => 0);
     for (let b = k; b < r; b++) {
-      for (let a = k; a <= b; a++) {
-        const c = best[k - 1][a - 1] + cost(a, b);
-        if (c < best[k][b]) {
-          best[k][b] = c;
-          from[k][b] = a;
+      // The zone a..b takes the tightest pitch in it: kept as a running minimum while a moves back.
+      let p = Infinity;
+      for (let a = b; a >= k; a--) {
+        p = Math.min(p, runs[a].pitch);
+        const c = best[k - 1][a - 1] + (runs[b].to - runs[a].from) / p;
+        // "≤" walking backwards keeps the earliest start among equal costs.
+        if (c <= row[b]) {
+          row[b] = c;
+          rowFrom[b] = a;
         }
       }
     }
+    best.push(row);
+    from.push(rowFrom);
   }
   const totals = best.map((row) => row[r - 1]);
   const least = Math.min(...totals);
@@ -54,17 +90,40 @@ export function groupIntoZones(runs: Zone[], maxZones: number): Zone[] {
 }
 
 /**
- * Hole positions from the first hole at the start edge distance to the last at the end edge distance,
- * stepping by the tightest zone pitch the step touches. A last gap shorter than the minimum pitch is
- * evened out with the one before it, or else left as a longer end distance.
+ * How many holes `placeHoles` can put between start and end at most: each zone's overlap over its
+ * pitch, plus one where each zone begins and one at the end. Cheap, and never an underestimate, so a
+ * caller can refuse a schedule before placing a single hole.
  */
-export function placeHoles(zones: Zone[], start: number, end: number, minPitch: number): { positions: number[]; note: string | null } {
+export function estimateHoles(zones: Zone[], start: number, end: number, minPitch: number): number {
+  if (end < start - EPS) return 0;
+  let n = 1;
+  for (const z of zones) {
+    const overlap = Math.min(z.to, end) - Math.max(z.from, start);
+    if (overlap > 0) n += Math.ceil(overlap / Math.max(z.pitch, minPitch, EPS)) + 1;
+  }
+  return n;
+}
+
+/**
+ * Hole positions from the first hole at the start edge distance to the last at the end edge distance,
+ * stepping by the tightest zone pitch the step touches, never closer than the minimum pitch. A last gap
+ * shorter than the minimum pitch is evened out with the one before it, or else left as a longer end
+ * distance. Refuses (field "zones") a line that would take more than `maxHoles` holes.
+ */
+export function placeHoles(zones: Zone[], start: number, end: number, minPitch: number, maxHoles = MAX_LINE_HOLES): { positions: number[]; note: string | null } {
   if (end < start - EPS) return { positions: [], note: null };
   if (end - start < minPitch - EPS) return { positions: [(start + end) / 2], note: null };
-  const tightest = (a: number, b: number) => Math.min(...zones.filter((z) => z.from <= b + EPS && z.to >= a - EPS).map((z) => z.pitch));
+  // A zero or negative minimum would let a step stand still: the loop below must always advance.
+  const floor = Math.max(minPitch, EPS);
+  const estimate = estimateHoles(zones, start, end, floor);
+  if (estimate > maxHoles) {
+    throw new EngineeringInputError('zones', `these zones would place about ${estimate.toLocaleString('en-US')} holes on one line; at most ${maxHoles.toLocaleString('en-US')}`);
+  }
+  const tightest = (a: number, b: number) => Math.max(floor, Math.min(...zones.filter((z) => z.from <= b + EPS && z.to >= a - EPS).map((z) => z.pitch)));
   const positions = [start];
   let note: string | null = null;
-  for (;;) {
+  // Bounded by the estimate: every step advances by at least the minimum pitch.
+  while (positions.length <= maxHoles) {
     const h = positions[positions.length - 1];
     let p = tightest(h, h);
     for (let q = tightest(h, h + p); q < p - EPS; q = tightest(h, h + p)) p = q;
@@ -85,4 +144,5 @@ export function placeHoles(zones: Zone[], start: number, end: number, minPitch: 
     }
     return { positions, note };
   }
+  throw new EngineeringInputError('zones', `these zones place more than ${maxHoles.toLocaleString('en-US')} holes on one line`);
 }

@@ -6,10 +6,14 @@ import { loadStudies, loadStudyRevisions } from '../../db/schema';
 import { organizationOf } from '../auth/organization';
 import { couponsForEngine } from '../coupons/coupons-repository';
 import { designsService } from '../designs/designs-service';
-import { ribStudy, type RibStudyResult } from '../engineering';
+import { EngineeringInputError, fieldAt, type RibStudyResult } from '../engineering';
 import { conflict, notFound } from '../http-error';
 import { kitsService } from '../kits/kits-service';
 import { findStudy, findStudyRevision, listStudyRevisions, listStudyRows } from './studies-repository';
+import { runStudy } from './study-pool';
+
+/** Ends the study threads: the server calls it on shutdown, after it stops taking requests. */
+export { closeStudyPool } from './study-pool';
 
 type Result = RibStudyResult & Record<string, unknown>;
 
@@ -17,10 +21,19 @@ export const studiesService = (db: Db) => {
   const kits = kitsService(db);
   const designs = designsService(db);
 
-  /** Runs the engine with the supplier's own coupon tests of that material as the pull-through basis. */
+  /**
+   * Runs the engine on a study thread with the supplier's own coupon tests of that material as the
+   * pull-through basis. The engine names fields from its own input; the request has them under
+   * "inputs", so its refusals are told with the whole path (inputs.lines.1.name).
+   */
   async function compute(user: Express.User, inputs: RibStudyInputValues): Promise<Result> {
     const tests = await couponsForEngine(db, organizationOf(user), inputs.material);
-    return ribStudy({ ...inputs, coupons: tests }) as Result;
+    try {
+      return (await runStudy({ ...inputs, coupons: tests })) as Result;
+    } catch (err) {
+      if (err instanceof EngineeringInputError) throw new EngineeringInputError(fieldAt('inputs', err.field), err.reason);
+      throw err;
+    }
   }
 
   async function own(user: Express.User, id: string) {

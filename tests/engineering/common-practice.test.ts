@@ -194,8 +194,8 @@ describe('the engine refuses nonsense and names the field', () => {
   });
 
   it('refuses a pitch increment larger than the maximum pitch', () => {
-    // 8D of a 1/8 in rivet is 1 in.
-    const e = refusal(() => ribStudy({ ...study, pitchIncrementIn: 1.5 }));
+    // 6D of a 1/8 in rivet is 0.75 in; 0.9 in is inside the increment's own range (0.01 to 1 in).
+    const e = refusal(() => ribStudy({ ...study, maxPitchDiameters: 6, pitchIncrementIn: 0.9 }));
     expect(e.field).toBe('pitchIncrementIn');
     expect(e.reason).toMatch(/larger than the maximum pitch/);
   });
