@@ -78,8 +78,8 @@ export async function seedDemo(database: Database, storage: PhotoStorage, mailQu
   const made: Record<string, Express.User> = {};
   for (const [key, u] of Object.entries(DEMO_USERS)) {
     const organizationId = u.role === 'supplier' ? supplierOrg.id : u.role === 'admin' ? null : shop.id;
-    const [row] = await db.insert(users).values({ ...u, organizationId, passwordHash }).returning();
-    made[key] = { id: row.id, email: row.email, name: row.name, role: row.role, organizationId, organizationName: organizationId === supplierOrg.id ? supplierOrg.name : organizationId ? shop.name : null };
+    const [row] = await db.insert(users).values({ ...u, organizationId, passwordHash, lead: u.role === 'supplier' }).returning();
+    made[key] = { id: row.id, email: row.email, name: row.name, role: row.role, lead: row.lead, organizationId, organizationName: organizationId === supplierOrg.id ? supplierOrg.name : organizationId ? shop.name : null };
   }
   const { supplier, builder } = made;
 
@@ -93,7 +93,7 @@ export async function seedDemo(database: Database, storage: PhotoStorage, mailQu
   const outer = await designs.create(supplier, { design: { kitModelId: kit.id, partNumber: 'W-105', name: 'Wing rib, outboard', kind: 'rib' }, revision: ribRevision({ gaugeIn: 0.02 }) });
   await designs.publish(supplier, outer.revisions[0].id);
 
-  await buildsService(db, '').create(supplier, {
+  await buildsService({ db, pool, mailQueue, config: { publicUrl: '' } }).create(supplier, {
     kitModelId: kit.id, kitSerial: 'NK2-0147', builderEmail: DEMO_USERS.builder.email, inspectorEmail: DEMO_USERS.inspector.email,
   });
 

@@ -4,7 +4,7 @@ set -euo pipefail
 root=$(cd "$(dirname "$0")/.." && pwd)
 cd "$root"
 stamp=dist/index.html
-if [ -f "$stamp" ] && [ -z "$(find app components hooks constants assets db/contracts app.json babel.config.js package-lock.json -newer "$stamp" -type f 2>/dev/null | head -1)" ]; then
+if [ -f "$stamp" ] && [ -z "$(find index.ts app components hooks constants assets db/contracts app.json babel.config.js package.json package-lock.json -newer "$stamp" -type f 2>/dev/null | head -1)" ]; then
   exit 0
 fi
 echo "exporting the web app…"

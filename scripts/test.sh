@@ -9,8 +9,10 @@ cd "$root"
 pgport=${TEST_PGPORT:-54330}
 bash scripts/pg.sh start test "$pgport" test
 trap 'bash scripts/pg.sh stop test "$pgport"' EXIT
-# Each test file makes its own database on this cluster.
-export TEST_DATABASE_URL="postgres://postgres@127.0.0.1:$pgport/postgres"
+# Each test file makes its own database on this cluster. The URL carries the cluster's password;
+# by hand: TEST_DATABASE_URL=$(bash scripts/pg.sh url test 54330)
+TEST_DATABASE_URL=$(bash scripts/pg.sh url test "$pgport")
+export TEST_DATABASE_URL
 
 node_modules/.bin/tsc --noEmit -p .
 bash scripts/build-web.sh

@@ -2,6 +2,7 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import compression from 'compression';
 import express, { type Express } from 'express';
+import type { Logger } from 'pino';
 import type { Database } from '../db';
 import { authRouter } from './auth/auth-router';
 import { createPassport } from './auth/passport';
@@ -19,16 +20,20 @@ import { kitsRouter } from './kits/kits-router';
 import type { SmtpFake } from './mail/smtp-fake';
 import { authenticate } from './middleware/authenticate';
 import { errorHandler } from './middleware/error-handler';
+import { limitByIpAndAddress } from './middleware/rate-limit';
+import { createLogger, requestLog } from './middleware/request-log';
+import { securityHeaders } from './middleware/security-headers';
+import { invitationsRouter, peopleRouter } from './people/people-router';
 import { photosRouter } from './photos/photos-router';
 import { createUrlSigner } from './photos/url-signer';
 import { localPhotoStorage, type PhotoStorage } from './storage/photo-storage';
 import { studiesRouter } from './studies/studies-router';
 import { travelersRouter } from './travelers/travelers-router';
 
-export type AppDeps = { config: Config; database: Database; mailQueue: MailQueue; storage?: PhotoStorage; smtpFake?: SmtpFake };
+export type AppDeps = { config: Config; database: Database; mailQueue: MailQueue; storage?: PhotoStorage; smtpFake?: SmtpFake; logger?: Logger };
 
 /** Builds the Express app: the API under /api and the exported web app on the same origin. */
-export function createApp({ config, database, mailQueue, storage, smtpFake }: AppDeps): { app: Express; ctx: AppContext } {
+export function createApp({ config, database, mailQueue, storage, smtpFake, logger }: AppDeps): { app: Express; ctx: AppContext } {
   const ctx: AppContext = {
     config, db: database.db, pool: database.pool, mailQueue,
     passport: createPassport(database.db, config.jwtSecret),
@@ -38,6 +43,9 @@ export function createApp({ config, database, mailQueue, storage, smtpFake }: Ap
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
+  // First, so that every answer (errors and static files included) has its request id and headers.
+  app.use(requestLog(logger ?? createLogger(config)));
+  app.use(securityHeaders(config));
   // A stored study result is some hundreds of kB of JSON and the web bundle 2 MB: both shrink ~10× gzipped.
   app.use(compression());
   app.use(ctx.passport.initialize());
@@ -45,10 +53,17 @@ export function createApp({ config, database, mailQueue, storage, smtpFake }: Ap
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
   api.get('/health', (_req, res) => { res.json({ ok: true }); });
-  api.use('/auth', authRouter(ctx));
+  // Counted in PostgreSQL, so the limits hold across server processes (server/middleware/rate-limit.ts).
+  api.use('/auth', authRouter(ctx, {
+    signIn: limitByIpAndAddress(ctx, 'sign-in', config.rateLimits.signIn, 'too many sign-in attempts'),
+    reset: limitByIpAndAddress(ctx, 'password-reset', config.rateLimits.passwordReset, 'too many password reset requests'),
+  }));
+  const inviteLimits = limitByIpAndAddress(ctx, 'invitations', config.rateLimits.invitations, 'too many invitation requests');
+  api.use('/invitations', invitationsRouter(ctx, inviteLimits));
   api.use('/photos', photosRouter(ctx));
   if (smtpFake && config.env !== 'production') api.use('/dev', devRouter(smtpFake));
   const signedIn = authenticate(ctx);
+  api.use('/people', signedIn, peopleRouter(ctx, inviteLimits));
   api.use('/kits', signedIn, kitsRouter(ctx));
   api.use('/designs', signedIn, designsRouter(ctx));
   api.use('/revisions', signedIn, revisionsRouter(ctx));

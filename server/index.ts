@@ -3,15 +3,22 @@ import { createDatabase } from '../db';
 import { runMigrations } from '../db/migrate';
 import { seedDemo } from '../db/seed';
 import { createApp } from './app';
-import { loadConfig } from './config';
+import { closeStudyPool } from './studies/study-pool';
+import { ConfigError, loadConfig } from './config';
 import { findingMailWorker } from './jobs/finding-mail-worker';
 import { startMailQueue } from './jobs/mail-queue';
+import { schedulePhotoSweep } from './jobs/photo-sweep';
 import { startSmtpFake, type SmtpFake } from './mail/smtp-fake';
 import { createMailer } from './mail/transport';
+import { createLogger } from './middleware/request-log';
 import { localPhotoStorage } from './storage/photo-storage';
+
+/** Tells scripts/supervise.sh that restarting cannot help (sysexits' EX_CONFIG). */
+const EXIT_CONFIG = 78;
 
 async function main() {
   const config = loadConfig();
+  const logger = createLogger(config);
   await runMigrations(config.databaseUrl);
   const database = createDatabase(config.databaseUrl);
   const storage = localPhotoStorage(config.uploadsDir);
@@ -20,8 +27,9 @@ async function main() {
   const mailQueue = await startMailQueue(config.databaseUrl);
   if (process.env.SEED_DEMO === '1' && (await seedDemo(database, storage, mailQueue, config.jwtSecret))) console.log('demo scenario loaded');
   await mailQueue.work(findingMailWorker({ db: database.db, mailer, storage, publicUrl: config.publicUrl }));
+  const sweep = schedulePhotoSweep({ db: database.db, storage, logger, ...config.photoSweep });
 
-  const { app } = createApp({ config, database, mailQueue, storage, smtpFake });
+  const { app } = createApp({ config, database, mailQueue, storage, smtpFake, logger });
   const server: Server = app.listen(config.port, config.host, () => {
     console.log(`Pitchcard is up at ${config.publicUrl}${smtpFake ? ` (mail fake on SMTP port ${smtpFake.port}; received mail at ${config.publicUrl}/dev/mail)` : ''}`);
   });
@@ -32,7 +40,11 @@ async function main() {
     stopping = true;
     console.log(`${signal}: draining`);
     // Stop taking requests, let the queue finish the job in hand, then close mail and the pool.
+    // Bounded: a request still running after 10 s (a long study) is cut rather than holding the exit.
+    setTimeout(() => server.closeAllConnections(), 10_000).unref();
     await new Promise<void>((resolve) => server.close(() => resolve()));
+    await sweep.stop();
+    await closeStudyPool();
     await mailQueue.stop();
     mailer.close();
     await smtpFake?.close();
@@ -45,5 +57,5 @@ async function main() {
 
 main().catch((err) => {
   console.error(err instanceof Error ? err.message : err);
-  process.exit(1);
+  process.exit(err instanceof ConfigError ? EXIT_CONFIG : 1);
 });

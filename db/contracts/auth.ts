@@ -12,6 +12,8 @@ export const sessionUser = z.object({
   email: z.string(),
   name: z.string(),
   role: z.enum(roles),
+  /** A supplier's lead engineer, who manages their own organisation's engineers. */
+  lead: z.boolean(),
   organizationId: z.string().nullable(),
   organizationName: z.string().nullable(),
 });

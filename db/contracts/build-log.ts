@@ -9,26 +9,29 @@ import type { Role } from './common';
 export const buildLogKinds = [
   'holes_installed', 'holes_pending', 'step_done', 'step_undone', 'signed_off', 'part_replaced',
   'finding_raised', 'finding_dispositioned', 'finding_approval', 'finding_work_done', 'finding_sent_back', 'finding_closed',
+  'member_added', 'member_invited', 'member_joined', 'member_removed', 'owner_changed',
   /** A bench event of a kind this version does not know yet: still listed, never dropped. */
   'other',
 ] as const;
 export type BuildLogKind = (typeof buildLogKinds)[number];
 
-/** The three families the screen's chips filter by. */
-export const buildLogGroups = ['bench', 'findings', 'sign_off'] as const;
+/** The families the screen's chips filter by. */
+export const buildLogGroups = ['bench', 'findings', 'sign_off', 'people'] as const;
 export type BuildLogGroup = (typeof buildLogGroups)[number];
 
-export const buildLogGroupLabels: Record<BuildLogGroup, string> = { bench: 'Bench', findings: 'Findings', sign_off: 'Sign-off' };
+export const buildLogGroupLabels: Record<BuildLogGroup, string> = { bench: 'Bench', findings: 'Findings', sign_off: 'Sign-off', people: 'People' };
 
 export const buildLogKindLabels: Record<BuildLogKind, string> = {
   holes_installed: 'Holes installed', holes_pending: 'Holes back to pending', step_done: 'Step done', step_undone: 'Step undone',
   signed_off: 'Signed off', part_replaced: 'Part replaced', finding_raised: 'Finding raised',
   finding_dispositioned: 'Dispositioned', finding_approval: 'Design authority', finding_work_done: 'Work done',
-  finding_sent_back: 'Work sent back', finding_closed: 'Finding closed', other: 'Bench event',
+  finding_sent_back: 'Work sent back', finding_closed: 'Finding closed', member_added: 'Person added', member_invited: 'Person invited',
+  member_joined: 'Person joined', member_removed: 'Person removed', owner_changed: 'Build handed over', other: 'Bench event',
 };
 
 export function groupOfKind(kind: BuildLogKind): BuildLogGroup {
   if (kind === 'signed_off') return 'sign_off';
+  if (kind.startsWith('member_') || kind === 'owner_changed') return 'people';
   return kind.startsWith('finding_') ? 'findings' : 'bench';
 }
 
@@ -52,14 +55,18 @@ export const buildLogCaution =
 const DATE_ONLY = /^\d{4}-\d{2}-\d{2}$/;
 const DATE_TIME = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d{1,6})?)?(Z|[+-]\d{2}:\d{2})$/;
 
-/** A real calendar day (2026-02-31 is not), or an ISO date and time that carries its offset. */
+/** The years a build log can speak of: nothing was riveted with this tool before 2000 or after 2199. */
+const LOG_YEARS = { min: 2000, max: 2199 } as const;
+
+/** A real calendar day (2026-02-31 is not), or an ISO date and time that carries its offset, within LOG_YEARS. */
 export function isLogDate(s: string): boolean {
   if (DATE_ONLY.test(s)) {
     const [y, m, d] = s.split('-').map(Number);
     const t = new Date(Date.UTC(y, m - 1, d));
-    return t.getUTCFullYear() === y && t.getUTCMonth() === m - 1 && t.getUTCDate() === d;
+    return y >= LOG_YEARS.min && y <= LOG_YEARS.max && t.getUTCFullYear() === y && t.getUTCMonth() === m - 1 && t.getUTCDate() === d;
   }
-  return DATE_TIME.test(s) && !Number.isNaN(Date.parse(s));
+  const year = Number(s.slice(0, 4));
+  return DATE_TIME.test(s) && !Number.isNaN(Date.parse(s)) && year >= LOG_YEARS.min && year <= LOG_YEARS.max;
 }
 
 export function isTimeZone(tz: string): boolean {
@@ -72,7 +79,7 @@ export function isTimeZone(tz: string): boolean {
 }
 
 const dateParam = (what: string) => z.string({ message: `${what} must be a single date` }).trim()
-  .refine(isLogDate, `${what} must be a date such as 2026-11-03, or a date and time with its offset such as 2026-11-03T14:00:00Z`);
+  .refine(isLogDate, `${what} must be a date between 2000 and 2199 such as 2026-11-03, or a date and time with its offset such as 2026-11-03T14:00:00Z`);
 
 /** `kind=bench,finding_flagged` or `kind=bench&kind=findings`. */
 const kindList = z.preprocess(
@@ -106,7 +113,8 @@ export type BuildLogEntry = {
   actorRole: Role;
   kind: BuildLogKind;
   group: BuildLogGroup;
-  travelerId: string;
+  /** null for what happened to the build itself (its people): then the part fields name the build. */
+  travelerId: string | null;
   travelerSerial: string;
   partNumber: string;
   partName: string;

@@ -21,3 +21,7 @@ export const plainText = (what: string, min: number, max: number, tooShort = `${
     .min(min, tooShort)
     .max(max, `keep ${what} under ${max} characters`)
     .refine((s) => !CONTROL.test(s), `${what} contains a control character: type plain text`);
+
+export const roleLabels: Record<Role, string> = {
+  supplier: 'Supplier’s engineer', builder: 'Builder', inspector: 'Inspector', admin: 'Administrator',
+};

@@ -8,4 +8,5 @@ export * from './findings';
 export * from './coupons';
 export * from './studies';
 export * from './build-log';
+export * from './people';
 export type * from './engineering';

@@ -1,7 +1,7 @@
-import { pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { index, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { kitModels } from './designs';
 import { organizations } from './organizations';
-import { users } from './users';
+import { memberPlace, users } from './users';
 
 export const buildMemberRole = pgEnum('build_member_role', ['builder', 'inspector']);
 
@@ -15,8 +15,22 @@ export const builds = pgTable('builds', {
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 });
 
+/** A person on a build: their account role (what they may do) and their place (owner, helper, adviser…). */
 export const buildMembers = pgTable('build_members', {
   buildId: uuid('build_id').notNull().references(() => builds.id, { onDelete: 'cascade' }),
   userId: uuid('user_id').notNull().references(() => users.id),
   role: buildMemberRole('role').notNull(),
+  place: memberPlace('place').notNull(),
+  addedBy: uuid('added_by').references(() => users.id),
+  addedAt: timestamp('added_at', { withTimezone: true }).notNull().defaultNow(),
 }, (t) => [primaryKey({ columns: [t.buildId, t.userId] })]);
+
+/** What happened to the build itself (people added, removed, handed over): the build's part of the log. */
+export const buildEvents = pgTable('build_events', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  buildId: uuid('build_id').notNull().references(() => builds.id, { onDelete: 'cascade' }),
+  actorId: uuid('actor_id').notNull().references(() => users.id),
+  kind: text('kind').notNull(),
+  detail: jsonb('detail').$type<Record<string, unknown>>().notNull(),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+}, (t) => [index('build_events_build').on(t.buildId, t.createdAt)]);

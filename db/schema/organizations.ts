@@ -1,6 +1,7 @@
 import { pgEnum, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { organizationKinds } from '../contracts/people';
 
-export const organizationKind = pgEnum('organization_kind', ['supplier', 'shop']);
+export const organizationKind = pgEnum('organization_kind', organizationKinds);
 
 export const organizations = pgTable('organizations', {
   id: uuid('id').primaryKey().defaultRandom(),

@@ -1,7 +1,9 @@
-import { pgEnum, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { boolean, index, integer, pgEnum, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { roles } from '../contracts/common';
+import { memberPlaces } from '../contracts/people';
 import { organizations } from './organizations';
 
-export const userRole = pgEnum('user_role', ['supplier', 'builder', 'inspector', 'admin']);
+export const userRole = pgEnum('user_role', roles);
 
 export const users = pgTable('users', {
   id: uuid('id').primaryKey().defaultRandom(),
@@ -11,5 +13,42 @@ export const users = pgTable('users', {
   role: userRole('role').notNull(),
   organizationId: uuid('organization_id').references(() => organizations.id),
   passwordHash: text('password_hash').notNull(),
+  /** A deactivated person cannot sign in, and their sign-ins end at once. */
+  active: boolean('active').notNull().default(true),
+  /** Every token carries it; deactivating, a new password or "sign out everywhere" bumps it, ending them all. */
+  sessionVersion: integer('session_version').notNull().default(0),
+  /** A supplier's lead engineer manages their own organisation's engineers. */
+  lead: boolean('lead').notNull().default(false),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+});
+
+export const memberPlace = pgEnum('member_place', memberPlaces);
+
+/**
+ * A one-time link by mail to join: the token itself is never stored, only its SHA-256. An invitation
+ * made by shipping a build (or adding to one) carries the build and the place it grants on joining.
+ */
+export const invitations = pgTable('invitations', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  email: text('email').notNull(),
+  name: text('name').notNull(),
+  role: userRole('role').notNull(),
+  organizationId: uuid('organization_id').references(() => organizations.id),
+  lead: boolean('lead').notNull().default(false),
+  buildId: uuid('build_id'),
+  place: memberPlace('place'),
+  tokenHash: text('token_hash').notNull().unique(),
+  invitedBy: uuid('invited_by').notNull().references(() => users.id),
+  expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+  acceptedAt: timestamp('accepted_at', { withTimezone: true }),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+}, (t) => [index('invitations_email').on(t.email)]);
+
+export const passwordResets = pgTable('password_resets', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  userId: uuid('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  tokenHash: text('token_hash').notNull().unique(),
+  expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+  usedAt: timestamp('used_at', { withTimezone: true }),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 });

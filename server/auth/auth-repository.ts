@@ -1,20 +1,45 @@
-import { eq } from 'drizzle-orm';
+import { and, eq, gt, isNull, sql } from 'drizzle-orm';
 import type { SessionUser } from '../../db/contracts';
 import type { Db } from '../../db';
-import { organizations, users } from '../../db/schema';
+import { organizations, passwordResets, users } from '../../db/schema';
 
 const sessionColumns = {
-  id: users.id, email: users.email, name: users.name, role: users.role,
+  id: users.id, email: users.email, name: users.name, role: users.role, lead: users.lead,
   organizationId: users.organizationId, organizationName: organizations.name,
 };
 
-export async function findSessionUser(db: Db, id: string): Promise<SessionUser | undefined> {
-  const [row] = await db.select(sessionColumns).from(users).leftJoin(organizations, eq(organizations.id, users.organizationId)).where(eq(users.id, id));
+export async function findSessionUser(db: Db, id: string): Promise<(SessionUser & { active: boolean; sessionVersion: number }) | undefined> {
+  const [row] = await db.select({ ...sessionColumns, active: users.active, sessionVersion: users.sessionVersion })
+    .from(users).leftJoin(organizations, eq(organizations.id, users.organizationId)).where(eq(users.id, id));
   return row;
 }
 
 export async function findUserForSignIn(db: Db, email: string) {
-  const [row] = await db.select({ ...sessionColumns, passwordHash: users.passwordHash }).from(users)
-    .leftJoin(organizations, eq(organizations.id, users.organizationId)).where(eq(users.email, email));
+  const [row] = await db.select({ ...sessionColumns, passwordHash: users.passwordHash, active: users.active, sessionVersion: users.sessionVersion })
+    .from(users).leftJoin(organizations, eq(organizations.id, users.organizationId)).where(eq(users.email, email));
   return row;
+}
+
+/** Ends every sign-in of the person: their tokens carry the old version. Returns the new one. */
+export async function bumpSessionVersion(db: Db, userId: string, set: Partial<typeof users.$inferInsert> = {}): Promise<number> {
+  const [row] = await db.update(users).set({ ...set, sessionVersion: sql`${users.sessionVersion} + 1` })
+    .where(eq(users.id, userId)).returning({ v: users.sessionVersion });
+  return row.v;
+}
+
+export async function insertPasswordReset(db: Db, userId: string, tokenHash: string, expiresAt: Date) {
+  await db.insert(passwordResets).values({ userId, tokenHash, expiresAt });
+}
+
+/** Takes a live reset link once: marks it used in the same statement that finds it. */
+export async function takePasswordReset(db: Db, tokenHash: string) {
+  const [row] = await db.update(passwordResets).set({ usedAt: new Date() })
+    .where(and(eq(passwordResets.tokenHash, tokenHash), isNull(passwordResets.usedAt), gt(passwordResets.expiresAt, new Date())))
+    .returning({ userId: passwordResets.userId });
+  return row;
+}
+
+export async function findPasswordHash(db: Db, userId: string) {
+  const [row] = await db.select({ passwordHash: users.passwordHash }).from(users).where(eq(users.id, userId));
+  return row?.passwordHash;
 }

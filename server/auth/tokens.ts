@@ -1,8 +1,18 @@
+import { createHash, randomBytes } from 'node:crypto';
 import jwt from 'jsonwebtoken';
 
 export const JWT_ALGORITHM = 'HS256' as const;
 
-export function issueToken(secret: string, ttlSeconds: number, userId: string): { token: string; expiresAt: string } {
-  const token = jwt.sign({}, secret, { algorithm: JWT_ALGORITHM, subject: userId, expiresIn: ttlSeconds });
+/** A bearer token carries the person's session version: bumping it ends every sign-in they have. */
+export function issueToken(secret: string, ttlSeconds: number, userId: string, sessionVersion: number): { token: string; expiresAt: string } {
+  const token = jwt.sign({ ver: sessionVersion }, secret, { algorithm: JWT_ALGORITHM, subject: userId, expiresIn: ttlSeconds });
   return { token, expiresAt: new Date(Date.now() + ttlSeconds * 1000).toISOString() };
 }
+
+/** A one-time link's token (sent by mail) and its SHA-256 (all we keep). */
+export function newOneTimeToken(): { token: string; hash: string } {
+  const token = randomBytes(32).toString('base64url');
+  return { token, hash: hashOneTimeToken(token) };
+}
+
+export const hashOneTimeToken = (token: string) => createHash('sha256').update(token).digest('hex');

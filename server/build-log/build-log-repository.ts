@@ -9,7 +9,7 @@ function findingKindCondition(kind: FindingLogKind): SQL {
   const actions = findingEventActions.filter((a) => findingLogKindOfAction[a] === kind);
   return actions.length ? inArray(findingEvents.action, actions) : sql`false`;
 }
-import { builds, designRevisions, findingEvents, findingPhotos, findings, partDesigns, travelerEvents, travelers, users } from '../../db/schema';
+import { buildEvents, builds, designRevisions, findingEvents, findingPhotos, findings, partDesigns, travelerEvents, travelers, users } from '../../db/schema';
 import { visibleBuilds } from '../builds/build-access';
 
 /**
@@ -28,10 +28,12 @@ export type LogWindow = {
   knownBenchKinds: readonly string[];
   /** Finding event kinds to read; null reads all. */
   findingKinds: FindingLogKind[] | null;
+  /** Build event kinds (its people) to read; null reads all. */
+  buildKinds: string[] | null;
 };
 
 /** Microsecond-exact UTC sort key: two events in the same millisecond still keep their order. */
-const sortKey = (col: typeof travelerEvents.createdAt | typeof findingEvents.createdAt) =>
+const sortKey = (col: typeof travelerEvents.createdAt | typeof findingEvents.createdAt | typeof buildEvents.createdAt) =>
   sql<string>`to_char(${col} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US')`;
 
 function travelerScope(db: Db, user: Express.User, w: LogWindow): SQL[] {
@@ -108,4 +110,21 @@ export async function listLogPhotos(db: Db, user: Express.User, buildId: string,
     .innerJoin(builds, eq(builds.id, travelers.buildId))
     .where(and(visibleBuilds(db, user), eq(travelers.buildId, buildId), inArray(findingPhotos.findingId, findingIds)))
     .orderBy(asc(findingPhotos.createdAt), asc(findingPhotos.id));
+}
+
+/** What happened to the build itself (its people), in the window; only when the build is visible. */
+export async function listBuildEvents(db: Db, user: Express.User, w: LogWindow) {
+  if (w.travelerId || (w.buildKinds && w.buildKinds.length === 0)) return [];
+  const c: SQL[] = [visibleBuilds(db, user), eq(buildEvents.buildId, w.buildId)];
+  if (w.from) c.push(gte(buildEvents.createdAt, w.from));
+  if (w.before) c.push(lt(buildEvents.createdAt, w.before));
+  if (w.buildKinds) c.push(inArray(buildEvents.kind, w.buildKinds));
+  return db.select({
+    id: buildEvents.id, kind: buildEvents.kind, detail: buildEvents.detail, createdAt: buildEvents.createdAt,
+    sortKey: sortKey(buildEvents.createdAt), actorName: users.name, actorRole: users.role, kitSerial: builds.kitSerial,
+  }).from(buildEvents)
+    .innerJoin(builds, eq(builds.id, buildEvents.buildId))
+    .innerJoin(users, eq(users.id, buildEvents.actorId))
+    .where(and(...c))
+    .orderBy(desc(buildEvents.createdAt), desc(buildEvents.id));
 }

@@ -1,5 +1,5 @@
 import {
-  describeHoleRuns, dispositionLabels, expandKindFilter, findingKindLabels, findingLogKindOfAction, groupOfKind, logEntryMatches,
+  describeHoleRuns, dispositionLabels, memberPlaceLabels, memberPlaces, type MemberPlace, expandKindFilter, findingKindLabels, findingLogKindOfAction, groupOfKind, logEntryMatches,
   type BuildLog, type BuildLogEntry, type BuildLogKind, type BuildLogQuery,
 } from '../../db/contracts';
 import type { AppContext } from '../context';
@@ -7,7 +7,7 @@ import { listVisibleBuilds } from '../builds/builds-repository';
 import { badRequest, notFound } from '../http-error';
 import { renderLogCsv } from './build-log-csv';
 import { renderLogPdf } from './build-log-pdf';
-import { listBenchEvents, listFindingLogEvents, listLogParts, listLogPhotos, type FindingLogKind, type LogWindow } from './build-log-repository';
+import { listBenchEvents, listBuildEvents, listFindingLogEvents, listLogParts, listLogPhotos, type FindingLogKind, type LogWindow } from './build-log-repository';
 import { nextDay, startOfDay } from './zoned-time';
 
 type Deps = Pick<AppContext, 'db' | 'signer' | 'storage'>;
@@ -77,6 +77,23 @@ export function describeFinding(
   }
 }
 
+const PEOPLE_KINDS = ['member_added', 'member_invited', 'member_joined', 'member_removed', 'owner_changed'] as const;
+
+/** A change of the build's people as a sentence. */
+export function describeBuildEvent(kind: string, detail: Record<string, unknown>): { kind: BuildLogKind; text: string } {
+  const name = typeof detail.name === 'string' ? detail.name : 'someone';
+  const place = typeof detail.place === 'string' && (memberPlaces as readonly string[]).includes(detail.place)
+    ? memberPlaceLabels[detail.place as MemberPlace].toLowerCase() : 'a member';
+  switch (kind) {
+    case 'member_added': return { kind, text: `Added ${name} to the build as ${place}.` };
+    case 'member_invited': return { kind, text: `Invited ${name} by mail to join the build as ${place}.` };
+    case 'member_joined': return { kind, text: `${name} joined the build as ${place}.` };
+    case 'member_removed': return { kind, text: `Took ${name} (${place}) off the build.` };
+    case 'owner_changed': return { kind, text: `Handed the build${typeof detail.from === 'string' ? ` from ${detail.from}` : ''} to ${typeof detail.to === 'string' ? detail.to : 'a new owner'}, with its whole log.` };
+    default: return { kind: 'other', text: `Recorded a change to the build (${kind.replace(/_/g, ' ')}).` };
+  }
+}
+
 /** The person's filters as the repository's window; a day given as a date is a whole day in `tz`. */
 function windowOf(buildId: string, q: BuildLogQuery): LogWindow {
   const tz = q.tz ?? 'UTC';
@@ -92,6 +109,7 @@ function windowOf(buildId: string, q: BuildLogQuery): LogWindow {
     benchKinds: kinds ? kinds.filter((k) => knownBenchKinds.includes(k)) : null,
     otherBench: kinds ? kinds.includes('other') : true,
     findingKinds: kinds ? kinds.filter((k): k is FindingLogKind => k.startsWith('finding_')) : null,
+    buildKinds: kinds ? kinds.filter((k) => (PEOPLE_KINDS as readonly string[]).includes(k)) : null,
   };
 }
 
@@ -101,8 +119,8 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
     const [build] = await listVisibleBuilds(db, user, buildId);
     if (!build) throw notFound('build');
     const w = windowOf(buildId, q);
-    const [parts, bench, findingRows] = await Promise.all([
-      listLogParts(db, user, buildId), listBenchEvents(db, user, w), listFindingLogEvents(db, user, w),
+    const [parts, bench, findingRows, buildRows] = await Promise.all([
+      listLogParts(db, user, buildId), listBenchEvents(db, user, w), listFindingLogEvents(db, user, w), listBuildEvents(db, user, w),
     ]);
     if (q.travelerId && !parts.some((p) => p.travelerId === q.travelerId)) throw notFound('part of this build');
 
@@ -122,6 +140,17 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
         entry: { id: `t:${r.id}`, ...common(r), kind: d.kind, group: groupOfKind(d.kind), text: d.text, ...(d.holeIds ? { holeIds: d.holeIds } : {}) },
       });
     }
+    for (const r of buildRows) {
+      const d = describeBuildEvent(r.kind, r.detail ?? {});
+      keyed.push({
+        sortKey: `${r.sortKey}|b|${r.id}`,
+        entry: {
+          id: `b:${r.id}`, at: r.createdAt.toISOString(), actorName: r.actorName, actorRole: r.actorRole,
+          travelerId: null, travelerSerial: r.kitSerial, partNumber: 'Build', partName: 'the whole build',
+          kind: d.kind, group: groupOfKind(d.kind), text: d.text,
+        },
+      });
+    }
     for (const r of findingRows) {
       const d = describeFinding(r);
       // The photos of the hole as found go with the raise; those of the work with the event they came with.
@@ -132,7 +161,7 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
           id: `f:${r.id}`, ...common(r), kind: d.kind, group: groupOfKind(d.kind), text: d.text,
           holeIds: [...r.holeIds].sort(natural), findingId: r.findingId,
           ...(r.note ? { note: r.note } : {}),
-          ...(own.length ? { photos: own.map((p) => ({ id: p.id, thumbUrl: signer.sign(p.id, 'thumb'), url: signer.sign(p.id, 'full') })) } : {}),
+          ...(own.length ? { photos: own.map((p) => ({ id: p.id, thumbUrl: signer.sign(p.id, 'thumb', user.id), url: signer.sign(p.id, 'full', user.id) })) } : {}),
         },
       });
     }

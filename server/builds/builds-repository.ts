@@ -1,7 +1,7 @@
 import { and, asc, count, desc, eq, inArray, sql } from 'drizzle-orm';
 import type { Db } from '../../db';
-import { buildMembers, builds, findings, holes, kitModels, organizations, travelers, users } from '../../db/schema';
-import { holesDoneStatuses, openFindingStatuses } from '../../db/contracts';
+import { buildEvents, buildMembers, builds, findings, holes, kitModels, organizations, travelers, users } from '../../db/schema';
+import { holesDoneStatuses, openFindingStatuses, type MemberPlace } from '../../db/contracts';
 import { visibleBuilds } from './build-access';
 
 export async function listVisibleBuilds(db: Db, user: Express.User, onlyId?: string) {
@@ -37,7 +37,27 @@ export async function listVisibleBuilds(db: Db, user: Express.User, onlyId?: str
   }));
 }
 
-export async function findUserByEmail(db: Db, email: string) {
-  const [row] = await db.select({ id: users.id, role: users.role, name: users.name }).from(users).where(eq(users.email, email));
+/** The people of one build with their places, oldest first. */
+export async function listBuildMembers(db: Db, buildId: string) {
+  return db.select({ userId: users.id, name: users.name, email: users.email, place: buildMembers.place, role: buildMembers.role, addedAt: buildMembers.addedAt })
+    .from(buildMembers).innerJoin(users, eq(users.id, buildMembers.userId))
+    .where(eq(buildMembers.buildId, buildId)).orderBy(asc(buildMembers.addedAt), asc(users.name));
+}
+
+export async function removeBuildMember(db: Db, buildId: string, userId: string) {
+  await db.delete(buildMembers).where(and(eq(buildMembers.buildId, buildId), eq(buildMembers.userId, userId)));
+}
+
+export async function setMemberPlace(db: Db, buildId: string, userId: string, place: MemberPlace) {
+  await db.update(buildMembers).set({ place }).where(and(eq(buildMembers.buildId, buildId), eq(buildMembers.userId, userId)));
+}
+
+/** Locks the build's row: membership changes (add, remove, hand over) go one at a time per build. */
+export async function lockBuild(db: Db, buildId: string) {
+  const [row] = await db.select().from(builds).where(eq(builds.id, buildId)).for('no key update');
   return row;
+}
+
+export async function insertBuildEvent(db: Db, values: typeof buildEvents.$inferInsert) {
+  await db.insert(buildEvents).values(values);
 }

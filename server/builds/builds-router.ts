@@ -1,16 +1,25 @@
 import { Router } from 'express';
-import { buildInput, idParam } from '../../db/contracts';
+import { z } from 'zod';
+import { addMemberInput, buildInput, handOverInput, idParam } from '../../db/contracts';
 import type { AppContext } from '../context';
 import { requireRole } from '../middleware/require-role';
 import { validateBody } from '../middleware/validate';
 import { buildsService } from './builds-service';
 
+const memberParams = z.object({ id: z.uuid({ message: 'must be an id' }), userId: z.uuid({ message: 'must be an id' }) });
+
 export function buildsRouter(ctx: AppContext): Router {
   const r = Router();
-  const builds = buildsService(ctx.db, ctx.config.publicUrl);
+  const builds = buildsService(ctx);
   r.get('/', async (req, res) => { res.json(await builds.list(req.user!)); });
   r.post('/', requireRole('supplier'), validateBody(buildInput), async (req, res) => { res.status(201).json(await builds.create(req.user!, req.body)); });
   r.get('/:id', async (req, res) => { res.json(await builds.detail(req.user!, idParam.parse(req.params).id)); });
+  r.post('/:id/members', validateBody(addMemberInput), async (req, res) => { res.json(await builds.addMember(req.user!, idParam.parse(req.params).id, req.body)); });
+  r.delete('/:id/members/:userId', async (req, res) => {
+    const { id, userId } = memberParams.parse(req.params);
+    res.json(await builds.removeMember(req.user!, id, userId));
+  });
+  r.post('/:id/owner', validateBody(handOverInput), async (req, res) => { res.json(await builds.handOver(req.user!, idParam.parse(req.params).id, req.body.userId)); });
   r.get('/:id/labels', requireRole('supplier'), async (req, res) => { res.json(await builds.labels(req.user!, idParam.parse(req.params).id)); });
   return r;
 }

@@ -1,16 +1,29 @@
 import { and, eq, inArray } from 'drizzle-orm';
 import QRCode from 'qrcode';
-import type { BuildSummary, QrLabel } from '../../db/contracts';
-import type { Db } from '../../db';
-import { buildMembers, builds, designRevisions, partDesigns, travelers } from '../../db/schema';
+import {
+  allowedBuildPeopleActions, memberRoleOfPlace, removalRefusal, singlePlaces,
+  type BuildPeople, type BuildPeopleAction, type BuildSummary, type MemberPlace, type QrLabel,
+} from '../../db/contracts';
+import { withTransaction, type Db, type Tx } from '../../db';
+import { builds, designRevisions, partDesigns, travelers } from '../../db/schema';
+import type { AppContext } from '../context';
+import { invite } from '../people/invitations';
+import { addBuildMember, findUserByEmail, listPendingInvitations } from '../people/people-repository';
 import { badRequest, conflict, forbidden, notFound } from '../http-error';
 import { kitsService } from '../kits/kits-service';
 import { insertTraveler, listTravelers } from '../travelers/travelers-repository';
-import { findUserByEmail, listVisibleBuilds } from './builds-repository';
+import {
+  insertBuildEvent, listBuildMembers, listVisibleBuilds, lockBuild, removeBuildMember, setMemberPlace,
+} from './builds-repository';
 
-type BuildBody = { kitModelId: string; kitSerial: string; builderEmail: string; inspectorEmail: string };
+type BuildBody = { kitModelId: string; kitSerial: string; builderEmail: string; builderName?: string; inspectorEmail: string; inspectorName?: string };
+type Deps = Pick<AppContext, 'db' | 'pool' | 'mailQueue'> & { config: Pick<AppContext['config'], 'publicUrl'> };
 
-export const buildsService = (db: Db, publicUrl: string) => {
+const nameFromEmail = (email: string) => email.split('@')[0].replace(/[._-]+/g, ' ').trim() || email;
+
+export const buildsService = (ctx: Deps) => {
+  const { db, pool } = ctx;
+  const publicUrl = ctx.config.publicUrl;
   const kits = kitsService(db);
 
   async function summary(user: Express.User, id: string): Promise<BuildSummary> {
@@ -19,43 +32,123 @@ export const buildsService = (db: Db, publicUrl: string) => {
     return build;
   }
 
+  /** The build's people as the reader may manage them. */
+  async function people(user: Express.User, buildId: string, organizationId: string): Promise<BuildPeople> {
+    const [members, pending] = await Promise.all([listBuildMembers(db, buildId), listPendingInvitations(db, { buildId })]);
+    const mine = members.find((m) => m.userId === user.id)?.place ?? null;
+    return {
+      members: members.map((m) => ({ userId: m.userId, name: m.name, email: m.email, place: m.place, addedAt: m.addedAt.toISOString() })),
+      pending: pending.filter((p) => p.place).map((p) => ({ email: p.email, name: p.name, place: p.place!, expiresAt: p.expiresAt.toISOString() })),
+      allowed: allowedBuildPeopleActions(user, { organizationId }, mine),
+    };
+  }
+
+  /** The build locked, and the reader's right to change its people checked on it. */
+  async function forPeopleChange(tx: Db, user: Express.User, buildId: string, action: BuildPeopleAction) {
+    const [visible] = await listVisibleBuilds(db, user, buildId);
+    if (!visible) throw notFound('build');
+    const build = await lockBuild(tx, buildId);
+    const members = await listBuildMembers(tx, buildId);
+    const mine = members.find((m) => m.userId === user.id)?.place ?? null;
+    if (!allowedBuildPeopleActions(user, build, mine).includes(action)) {
+      throw forbidden('only the supplier who shipped the build or its owner changes its people');
+    }
+    return { build, members };
+  }
+
+  /**
+   * A person for a place on a build: their account when they have one (of the right role), else an
+   * invitation that makes them a member when they join.
+   */
+  async function placePerson(tx: Tx, user: Express.User, buildId: string, p: { email: string; name?: string; place: MemberPlace }, field: string) {
+    const role = memberRoleOfPlace[p.place];
+    const existing = await findUserByEmail(tx.db, p.email);
+    if (existing) {
+      if (existing.role !== role) throw badRequest(`${p.email} has an account as ${existing.role}, not as ${role}`, { [field]: `not a ${role}'s account` });
+      if (!existing.active) throw conflict(`${p.email} is deactivated`, { [field]: 'deactivated' });
+      await addBuildMember(tx.db, { buildId, userId: existing.id, place: p.place, role, addedBy: user.id });
+      await insertBuildEvent(tx.db, { buildId, actorId: user.id, kind: 'member_added', detail: { name: existing.name, place: p.place } });
+      return;
+    }
+    const name = p.name ?? nameFromEmail(p.email);
+    await invite(ctx, tx, { email: p.email, name, role, organizationId: null, build: { id: buildId, place: p.place }, invitedBy: user }, null);
+    await insertBuildEvent(tx.db, { buildId, actorId: user.id, kind: 'member_invited', detail: { name, email: p.email, place: p.place } });
+  }
+
   return {
     list: (user: Express.User) => listVisibleBuilds(db, user),
 
     async detail(user: Express.User, id: string) {
       const build = await summary(user, id);
-      return { ...build, travelers: await listTravelers(db, user, { buildId: id }) };
+      const [b] = await db.select({ organizationId: builds.organizationId }).from(builds).where(eq(builds.id, id));
+      return { ...build, people: await people(user, id, b.organizationId), travelers: await listTravelers(db, user, { buildId: id }) };
     },
 
-    /** Ships a kit: the build, its people, and a traveler (holes and steps included) per published part. */
+    /**
+     * Ships a kit: the build, its people (invited by mail when they have no account yet), and a traveler
+     * (holes and steps included) per published part.
+     */
     async create(user: Express.User, input: BuildBody) {
       await kits.get(user, input.kitModelId);
-      const [builder, inspector] = await Promise.all([findUserByEmail(db, input.builderEmail), findUserByEmail(db, input.inspectorEmail)]);
-      const fields: Record<string, string> = {};
-      if (!builder || builder.role !== 'builder') fields.builderEmail = 'no builder has an account with this address';
-      if (!inspector || inspector.role !== 'inspector') fields.inspectorEmail = 'no inspector has an account with this address';
-      if (Object.keys(fields).length) throw badRequest(Object.values(fields).join('; '), fields);
-
       const revisions = await db.select().from(designRevisions).innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
         .where(and(eq(partDesigns.kitModelId, input.kitModelId), eq(designRevisions.status, 'published')));
       if (revisions.length === 0) throw badRequest('this kit has no published part designs yet: publish a revision first', { kitModelId: 'no published parts' });
 
-      const id = await db.transaction(async (tx) => {
-        const clash = await tx.select({ id: builds.id }).from(builds).where(eq(builds.kitSerial, input.kitSerial));
+      const id = await withTransaction(pool, async (tx) => {
+        const clash = await tx.db.select({ id: builds.id }).from(builds).where(eq(builds.kitSerial, input.kitSerial));
         if (clash.length) throw conflict(`kit serial ${input.kitSerial} is already shipped`, { kitSerial: 'already used' });
-        const [build] = await tx.insert(builds).values({
+        const [build] = await tx.db.insert(builds).values({
           organizationId: user.organizationId!, kitModelId: input.kitModelId, kitSerial: input.kitSerial, createdBy: user.id,
         }).returning();
-        await tx.insert(buildMembers).values([
-          { buildId: build.id, userId: builder!.id, role: 'builder' },
-          { buildId: build.id, userId: inspector!.id, role: 'inspector' },
-        ]);
+        await placePerson(tx, user, build.id, { email: input.builderEmail, name: input.builderName, place: 'owner' }, 'builderEmail');
+        await placePerson(tx, user, build.id, { email: input.inspectorEmail, name: input.inspectorName, place: 'final_inspector' }, 'inspectorEmail');
         for (const { design_revisions: rev, part_designs: design } of revisions) {
-          await insertTraveler(tx, { buildId: build.id, serial: `${input.kitSerial}-${design.partNumber}`, revision: rev });
+          await insertTraveler(tx.db, { buildId: build.id, serial: `${input.kitSerial}-${design.partNumber}`, revision: rev });
         }
         return build.id;
       });
       return summary(user, id);
+    },
+
+    /** Adds a builder or inspector to the build in the place given; an address with no account is invited. */
+    async addMember(user: Express.User, buildId: string, input: { email: string; place: MemberPlace; name?: string }) {
+      if (singlePlaces.includes(input.place)) throw conflict('a build has one owner: hand the build over instead', { place: 'hand the build over instead' });
+      await withTransaction(pool, async (tx) => {
+        const { members } = await forPeopleChange(tx.db, user, buildId, 'add');
+        const already = members.find((m) => m.email === input.email);
+        if (already) throw conflict(`${already.name} is already on this build`, { email: 'already on this build' });
+        await placePerson(tx, user, buildId, input, 'email');
+      });
+      return this.detail(user, buildId);
+    },
+
+    /** Takes a person off the build: their access (photo links included) ends with this request. */
+    async removeMember(user: Express.User, buildId: string, userId: string) {
+      await withTransaction(pool, async (tx) => {
+        const { members } = await forPeopleChange(tx.db, user, buildId, 'remove');
+        const member = members.find((m) => m.userId === userId);
+        if (!member) throw notFound('person on this build');
+        const why = removalRefusal(member);
+        if (why) throw conflict(why);
+        await removeBuildMember(tx.db, buildId, userId);
+        await insertBuildEvent(tx.db, { buildId, actorId: user.id, kind: 'member_removed', detail: { name: member.name, place: member.place } });
+      });
+      return this.detail(user, buildId);
+    },
+
+    /** Hands the build, its whole log included, to another builder on it; the old owner stays as a helper. */
+    async handOver(user: Express.User, buildId: string, userId: string) {
+      await withTransaction(pool, async (tx) => {
+        const { members } = await forPeopleChange(tx.db, user, buildId, 'hand-over');
+        const next = members.find((m) => m.userId === userId);
+        if (!next || next.role !== 'builder') throw badRequest('hand the build to a builder who is on it', { userId: 'not a builder of this build' });
+        if (next.place === 'owner') throw conflict(`${next.name} already owns this build`);
+        const owner = members.find((m) => m.place === 'owner');
+        if (owner) await setMemberPlace(tx.db, buildId, owner.userId, 'helper');
+        await setMemberPlace(tx.db, buildId, userId, 'owner');
+        await insertBuildEvent(tx.db, { buildId, actorId: user.id, kind: 'owner_changed', detail: { from: owner?.name ?? null, to: next.name } });
+      });
+      return this.detail(user, buildId);
     },
 
     /** One printable label per traveler: the QR carries a URL, so a phone's own camera opens it too. */

@@ -107,3 +107,8 @@ export async function recipientsOf(db: Db, buildId: string, audiences: MailAudie
   }
   return [...out].sort();
 }
+
+export async function findPhotoRow(db: Db, id: string) {
+  const [row] = await db.select().from(findingPhotos).where(eq(findingPhotos.id, id));
+  return row;
+}

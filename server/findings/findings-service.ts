@@ -46,11 +46,11 @@ type StoredPhoto = { fileKey: string; thumbKey: string; width: number; height: n
 const refused = (r: { code: 403 | 409; message: string }) => new HttpError(r.code, r.code === 403 ? 'forbidden' : 'conflict', r.message);
 
 export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) => {
-  const summary = (r: FindingRow): FindingSummary => ({
+  const summary = (r: FindingRow, viewerId: string): FindingSummary => ({
     id: r.id, travelerId: r.travelerId, serial: r.serial, partNumber: r.partNumber, kitSerial: r.kitSerial, buildId: r.buildId,
     holeIds: r.holeIds, kind: r.kind, status: r.status, disposition: r.disposition, closure: r.closure, raisedByName: r.raisedByName,
     createdAt: r.createdAt.toISOString(), updatedAt: r.updatedAt.toISOString(), photoCount: r.photos.length,
-    thumbUrl: r.photos[0] ? signer.sign(r.photos[0].id, 'thumb') : null,
+    thumbUrl: r.photos[0] ? signer.sign(r.photos[0].id, 'thumb', viewerId) : null,
   });
 
   async function visibleRow(user: Express.User, id: string) {
@@ -82,9 +82,9 @@ export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) 
     const rivet = rivetOfCallout(rev.rivetSpec);
     const replacement = parts!.traveler.replacedById ? await findTravelerBrief(db, parts!.traveler.replacedById) : null;
     return {
-      ...summary(row), note: row.note, dispositionNote: row.dispositionNote, measurements: row.measurements, repair: row.repair,
+      ...summary(row, user.id), note: row.note, dispositionNote: row.dispositionNote, measurements: row.measurements, repair: row.repair,
       photos: row.photos.map((p) => ({
-        id: p.id, width: p.width, height: p.height, url: signer.sign(p.id, 'full'), thumbUrl: signer.sign(p.id, 'thumb'),
+        id: p.id, width: p.width, height: p.height, url: signer.sign(p.id, 'full', user.id), thumbUrl: signer.sign(p.id, 'thumb', user.id),
         stage: p.eventId ? 'work' : 'found', eventId: p.eventId,
       })),
       events: events.map((e) => ({ ...e, createdAt: e.createdAt.toISOString() })),
@@ -162,7 +162,7 @@ export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) 
     repairCheck: async (user: Express.User, id: string, proposedSpec?: string) => runRepairCheck(await visibleRow(user, id), proposedSpec),
 
     async list(user: Express.User, filter: FindingFilter) {
-      return (await listFindingRows(db, user, filter)).map(summary);
+      return (await listFindingRows(db, user, filter)).map((r) => summary(r, user.id));
     },
 
     /**

@@ -7,7 +7,7 @@ import { findingMail } from '../mail/finding-mail';
 import type { Mailer } from '../mail/transport';
 import type { PhotoStorage } from '../storage/photo-storage';
 import { findTravelerParts } from '../travelers/travelers-repository';
-import type { FindingMailJob } from './mail-queue';
+import type { MailJob } from './mail-queue';
 
 /**
  * Sends the mail for one finding event to everyone who must act on it (the rules module says who).
@@ -15,7 +15,10 @@ import type { FindingMailJob } from './mail-queue';
  */
 export function findingMailWorker(deps: { db: Db; mailer: Mailer; storage: PhotoStorage; publicUrl: string }) {
   const { db, mailer, storage, publicUrl } = deps;
-  return async ({ eventId }: FindingMailJob) => {
+  return async (job: MailJob) => {
+    // An account mail goes to its one person as written.
+    if ('message' in job) return mailer.send(job.message);
+    const { eventId } = job;
     const [row] = await db.select({ event: findingEvents, finding: findings, actorName: users.name, buildId: travelers.buildId, kitSerial: builds.kitSerial })
       .from(findingEvents)
       .innerJoin(findings, eq(findings.id, findingEvents.findingId))

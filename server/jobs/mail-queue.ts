@@ -4,12 +4,16 @@ import type { Tx } from '../../db';
 export const MAIL_QUEUE = 'finding-mail';
 const DEAD_QUEUE = 'finding-mail-dead';
 
+/** The mails of one finding event (recipients worked out when sent). */
 export type FindingMailJob = { eventId: string };
+/** An account mail to one person (an invitation, a password reset), written when it was asked for. */
+export type MessageMailJob = { message: { to: string; subject: string; text: string; html: string } };
+export type MailJob = FindingMailJob | MessageMailJob;
 
 export type MailQueue = {
-  /** Enqueue inside the caller's transaction: the job exists if and only if the event does. */
-  enqueue: (tx: Tx, job: FindingMailJob) => Promise<void>;
-  work: (handler: (job: FindingMailJob) => Promise<void>) => Promise<void>;
+  /** Enqueue inside the caller's transaction: the job exists if and only if what it tells of does. */
+  enqueue: (tx: Tx, job: MailJob) => Promise<void>;
+  work: (handler: (job: MailJob) => Promise<void>) => Promise<void>;
   stop: () => Promise<void>;
 };
 
@@ -28,7 +32,7 @@ export async function startMailQueue(databaseUrl: string, opts: { pollingInterva
       await boss.send(MAIL_QUEUE, job, { db: tx });
     },
     async work(handler) {
-      await boss.work<FindingMailJob>(MAIL_QUEUE, { pollingIntervalSeconds: opts.pollingIntervalSeconds ?? 2, batchSize: 1 }, async (jobs) => {
+      await boss.work<MailJob>(MAIL_QUEUE, { pollingIntervalSeconds: opts.pollingIntervalSeconds ?? 2, batchSize: 1 }, async (jobs) => {
         for (const job of jobs) await handler(job.data);
       });
     },

@@ -1,12 +1,17 @@
 import { randomUUID } from 'node:crypto';
-import { mkdir, readFile, rm, writeFile } from 'node:fs/promises';
+import { mkdir, opendir, readFile, rm, stat, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 
-/** Where photo bytes live. Local folder by default; an object store would implement the same three calls. */
+/** A stored file as the sweep sees it. */
+export type StoredFile = { key: string; modifiedAt: Date };
+
+/** Where photo bytes live. Local folder by default; an object store would implement the same calls. */
 export type PhotoStorage = {
   put: (bytes: Buffer, ext: string) => Promise<string>;
   get: (key: string) => Promise<Buffer>;
   remove: (key: string) => Promise<void>;
+  /** Every stored file, in pages of at most `pageSize` (the sweep never holds the whole folder at once). */
+  list: (pageSize?: number) => AsyncIterable<StoredFile[]>;
 };
 
 const KEY = /^[0-9a-f-]{36}\.(jpg|webp)$/;
@@ -26,5 +31,24 @@ export function localPhotoStorage(dir: string): PhotoStorage {
     },
     get: (key) => readFile(fileOf(key)),
     remove: (key) => rm(fileOf(key), { force: true }),
+    async *list(pageSize = 500) {
+      let folder;
+      try {
+        folder = await opendir(dir);
+      } catch (err) {
+        if ((err as NodeJS.ErrnoException).code === 'ENOENT') return; // nothing stored yet
+        throw err;
+      }
+      let page: StoredFile[] = [];
+      // Only names that are our keys: .gitkeep and anything a person put there are left alone.
+      for await (const entry of folder) {
+        if (!entry.isFile() || !KEY.test(entry.name)) continue;
+        const info = await stat(path.join(dir, entry.name)).catch(() => null); // removed meanwhile
+        if (!info) continue;
+        page.push({ key: entry.name, modifiedAt: info.mtime });
+        if (page.length >= pageSize) { yield page; page = []; }
+      }
+      if (page.length) yield page;
+    },
   };
 }

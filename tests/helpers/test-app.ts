@@ -6,6 +6,7 @@ import { createDatabase } from '@/db';
 import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from '@/db/seed';
 import { organizations, users } from '@/db/schema';
 import { createApp } from '@/server/app';
+import { closeStudyPool } from '@/server/studies/study-pool';
 import { hashPassword } from '@/server/auth/passwords';
 import { loadConfig } from '@/server/config';
 import { findingMailWorker } from '@/server/jobs/finding-mail-worker';
@@ -21,14 +22,25 @@ export type TestApp = Awaited<ReturnType<typeof startTestApp>>;
  * The real thing, wired as server/index.ts wires it: own database, own SMTP fake on a free port, the
  * PostgreSQL job queue and its mail worker, photos in a temporary folder, and the demo scenario.
  */
-export async function startTestApp(opts: { seed?: boolean; port?: number; webDist?: string } = {}) {
-  const testDb = await createTestDatabase();
+export async function startTestApp(opts: {
+  seed?: boolean; port?: number; webDist?: string;
+  /** Share this database (made by another test app, which drops it) instead of making one: two server processes. */
+  databaseUrl?: string;
+  /** More configuration, e.g. a lower rate limit. */
+  env?: Record<string, string>;
+} = {}) {
+  const testDb = opts.databaseUrl ? { url: opts.databaseUrl, drop: async () => undefined } : await createTestDatabase();
   const uploadsDir = await mkdtemp(path.join(os.tmpdir(), 'pc-uploads-'));
   const smtp = await startSmtpFake(0);
   const config = loadConfig({
     NODE_ENV: 'test', DATABASE_URL: testDb.url, JWT_SECRET: 'test-secret-that-is-long-enough', SMTP_PORT: String(smtp.port),
     UPLOADS_DIR: uploadsDir, PORT: String(opts.port ?? 8080), WEB_DIST: opts.webDist ?? path.join(uploadsDir, 'no-web'),
     PUBLIC_URL: `http://localhost:${opts.port ?? 8080}`,
+    // Tests sign the same people in again and again from one address: the real limits are tested on their own.
+    SIGN_IN_LIMIT_PER_ADDRESS: '100000', SIGN_IN_LIMIT_PER_IP: '100000',
+    PASSWORD_RESET_LIMIT_PER_ADDRESS: '100000', PASSWORD_RESET_LIMIT_PER_IP: '100000',
+    INVITATION_LIMIT_PER_ADDRESS: '100000', INVITATION_LIMIT_PER_IP: '100000',
+    ...opts.env,
   });
   const database = createDatabase(config.databaseUrl);
   const storage = localPhotoStorage(uploadsDir);
@@ -80,6 +92,7 @@ export async function startTestApp(opts: { seed?: boolean; port?: number; webDis
       throw new Error(`no matching mail within ${ms} ms; received: ${smtp.messages.map((m) => m.subject).join(' | ') || 'none'}`);
     },
     async close() {
+      await closeStudyPool();
       await mailQueue.stop();
       mailer.close();
       await smtp.close();

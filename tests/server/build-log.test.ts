@@ -54,7 +54,7 @@ describe('the build log', () => {
     expect(res.status).toBe(200);
     expect(res.body.build).toMatchObject({ id: buildId, kitSerial: 'NK2-0147', supplierName: 'Northfold Kitworks' });
     expect(res.body.parts.map((p: { partNumber: string }) => p.partNumber)).toEqual(['W-104', 'W-105']);
-    expect(kinds(res.body)).toEqual(['finding_raised', 'step_done', 'holes_installed']);
+    expect(kinds(res.body)).toEqual(['finding_raised', 'step_done', 'holes_installed', 'member_added', 'member_added']);
     const [flag, step, ticks] = res.body.entries as Entry[];
     expect(ticks).toMatchObject({ actorName: DEMO_USERS.builder.name, partNumber: 'W-104', holeIds: ['U-01', 'U-02', 'U-03', 'U-04', 'U-05', 'U-06', 'U-07', 'U-08'] });
     expect(ticks.text).toBe('Installed 8 holes: U-01 to U-08.');
@@ -65,7 +65,8 @@ describe('the build log', () => {
     expect(findingId).toBeTruthy();
     const entries = res.body.entries as Entry[];
     for (let i = 1; i < entries.length; i++) expect(entries[i - 1].at >= entries[i].at).toBe(true);
-    expect(res.body.range).toEqual({ from: ticks.at, to: flag.at });
+    expect(res.body.range).toEqual({ from: res.body.entries.at(-1).at, to: flag.at });
+    expect(res.body.entries.at(-1).kind).toBe('member_added');
   });
 
   it('carries the finding photo as a signed thumbnail and full-size link that load without a bearer header', async () => {
@@ -81,7 +82,7 @@ describe('the build log', () => {
     for (const token of [tok.inspector, tok.supplier, tok.admin]) {
       const res = await log(token);
       expect(res.status).toBe(200);
-      expect(kinds(res.body)).toEqual(['finding_raised', 'step_done', 'holes_installed']);
+      expect(kinds(res.body)).toEqual(['finding_raised', 'step_done', 'holes_installed', 'member_added', 'member_added']);
     }
   });
 
@@ -95,10 +96,11 @@ describe('the build log', () => {
     const today = new Date().toISOString().slice(0, 10);
     const tomorrow = new Date(Date.now() + 86400000).toISOString().slice(0, 10);
     const yesterday = new Date(Date.now() - 86400000).toISOString().slice(0, 10);
-    expect(kinds((await log(tok.builder, { from: today, to: today })).body)).toHaveLength(3);
+    expect(kinds((await log(tok.builder, { from: today, to: today })).body)).toHaveLength(5);
     expect(kinds((await log(tok.builder, { from: tomorrow })).body)).toEqual([]);
     expect(kinds((await log(tok.builder, { to: yesterday })).body)).toEqual([]);
-    expect(kinds((await log(tok.builder, { from: new Date(Date.now() - 3600000).toISOString() })).body)).toHaveLength(3);
+    expect(kinds((await log(tok.builder, { from: new Date(Date.now() - 3600000).toISOString() })).body)).toHaveLength(5);
+    expect(kinds((await log(tok.builder, { kind: 'people' })).body)).toEqual(['member_added', 'member_added']);
     expect(kinds((await log(tok.builder, { q: 'u-09' })).body)).toEqual(['finding_raised']);
     expect(kinds((await log(tok.builder, { q: 'deburr step' })).body)).toEqual(['step_done']);
     // The parts list stays whole, so the picker can switch back.
@@ -111,6 +113,11 @@ describe('the build log', () => {
     expect(Object.keys(bad.body.error.fields)).toEqual(['from']);
     expect(bad.body.error.message).toMatch(/from/);
     expect((await log(tok.builder, { from: 'yesterday' })).body.error.fields).toHaveProperty('from');
+    // Far-off days are refused by name rather than breaking the day arithmetic, and the server goes on.
+    const far = await log(tok.builder, { to: '9999-12-31' });
+    expect([far.status, Object.keys(far.body.error.fields)]).toEqual([400, ['to']]);
+    expect((await log(tok.builder, { from: '0001-01-01T00:00:00Z' })).body.error.fields).toHaveProperty('from');
+    expect((await log(tok.builder)).status).toBe(200);
     const backwards = await log(tok.builder, { from: '2026-11-05', to: '2026-11-01' });
     expect(backwards.status).toBe(400);
     expect(backwards.body.error.fields).toHaveProperty('to');
@@ -140,7 +147,7 @@ describe('the build log', () => {
       .send({ disposition: 'rework', note: 'Drill out to AD5, per the "oversize" sheet; check edge distance' });
     expect(res.status).toBe(200);
     const after = await log(tok.builder);
-    expect(kinds(after.body)).toEqual(['finding_dispositioned', 'finding_raised', 'step_done', 'holes_installed']);
+    expect(kinds(after.body)).toEqual(['finding_dispositioned', 'finding_raised', 'step_done', 'holes_installed', 'member_added', 'member_added']);
     expect(after.body.entries[0]).toMatchObject({ actorName: DEMO_USERS.inspector.name, text: 'Dispositioned hole U-09: rework.', findingId });
   });
 
@@ -150,7 +157,10 @@ describe('the build log', () => {
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
     expect(res.headers['content-disposition']).toMatch(/^attachment; filename="build-log-NK2-0147-\d{4}-\d{2}-\d{2}\.csv"/);
     const rows = parseCsv(res.text);
-    const [header, ...body] = rows;
+    const [header, ...all] = rows;
+    // The build's own entries (its people at shipping) come first; the part's follow.
+    expect(all.slice(0, 2).map((r) => r[header.indexOf('Kind')])).toEqual(['member_added', 'member_added']);
+    const body = all.slice(2);
     expect(header.slice(0, 7)).toEqual(['Date', 'Time', 'Time zone', 'UTC', 'Who', 'Role', 'Kind']);
     expect(body.every((r) => r.length === header.length)).toBe(true);
     const col = (name: string) => header.indexOf(name);
