@@ -3,9 +3,18 @@
 # DATABASE_URL points it at an existing server instead; PORT (8080) and PGPORT (54329) move the ports.
 # A server process that dies (out of memory, say) is started again by scripts/supervise.sh while the
 # database stays up; Ctrl-C or SIGTERM stops the server (drained) and then the database.
+# `npm start -- --lan` (or LAN=1): network mode for phones on the shop's network — listens on every
+# interface, serves HTTPS with a certificate made on first start (kept in .cache/tls), and puts the
+# machine's network address in QR labels and mail links. Plain `npm start` stays on loopback.
 set -euo pipefail
 root=$(cd "$(dirname "$0")/.." && pwd)
 cd "$root"
+for arg in "$@"; do
+  case "$arg" in
+    --lan) export LAN=1 ;;
+    *) echo "unknown option $arg (use --lan for network mode)" >&2; exit 2 ;;
+  esac
+done
 [ -d node_modules ] || npm ci
 
 export PORT=${PORT:-8080}

@@ -23,6 +23,8 @@ import { errorHandler } from './middleware/error-handler';
 import { limitByIpAndAddress } from './middleware/rate-limit';
 import { createLogger, requestLog } from './middleware/request-log';
 import { securityHeaders } from './middleware/security-headers';
+import { networkRouter } from './network/network-router';
+import type { TlsMaterial } from './network/tls';
 import { invitationsRouter, peopleRouter } from './people/people-router';
 import { photosRouter } from './photos/photos-router';
 import { createUrlSigner } from './photos/url-signer';
@@ -30,15 +32,16 @@ import { localPhotoStorage, type PhotoStorage } from './storage/photo-storage';
 import { studiesRouter } from './studies/studies-router';
 import { travelersRouter } from './travelers/travelers-router';
 
-export type AppDeps = { config: Config; database: Database; mailQueue: MailQueue; storage?: PhotoStorage; smtpFake?: SmtpFake; logger?: Logger };
+export type AppDeps = { config: Config; database: Database; mailQueue: MailQueue; storage?: PhotoStorage; smtpFake?: SmtpFake; logger?: Logger; tls?: TlsMaterial | null };
 
 /** Builds the Express app: the API under /api and the exported web app on the same origin. */
-export function createApp({ config, database, mailQueue, storage, smtpFake, logger }: AppDeps): { app: Express; ctx: AppContext } {
+export function createApp({ config, database, mailQueue, storage, smtpFake, logger, tls }: AppDeps): { app: Express; ctx: AppContext } {
   const ctx: AppContext = {
     config, db: database.db, pool: database.pool, mailQueue,
     passport: createPassport(database.db, config.jwtSecret),
     storage: storage ?? localPhotoStorage(config.uploadsDir),
     signer: createUrlSigner(config.jwtSecret),
+    tls: tls ?? null,
   };
   const app = express();
   app.disable('x-powered-by');
@@ -64,6 +67,7 @@ export function createApp({ config, database, mailQueue, storage, smtpFake, logg
   if (smtpFake && config.env !== 'production') api.use('/dev', devRouter(smtpFake));
   const signedIn = authenticate(ctx);
   api.use('/people', signedIn, peopleRouter(ctx, inviteLimits));
+  api.use('/network', networkRouter(ctx, signedIn));
   api.use('/kits', signedIn, kitsRouter(ctx));
   api.use('/designs', signedIn, designsRouter(ctx));
   api.use('/revisions', signedIn, revisionsRouter(ctx));

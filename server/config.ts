@@ -1,4 +1,6 @@
+import os from 'node:os';
 import path from 'node:path';
+import { certificateNames, pickLanAddress } from './network/lan';
 import { z } from 'zod';
 
 const count = (fallback: number) => z.coerce.number().int().min(1).max(1_000_000).default(fallback);
@@ -7,7 +9,8 @@ const seconds = (fallback: number) => z.coerce.number().int().min(1).max(7 * 24 
 const schema = z.object({
   NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
   PORT: z.coerce.number().int().min(1).max(65535).default(8080),
-  HOST: z.string().default('127.0.0.1'),
+  /** Defaults to loopback only, or every interface in network mode. */
+  HOST: z.string().optional(),
   DATABASE_URL: z.string().regex(/^postgres(ql)?:\/\//, 'DATABASE_URL must be a postgres:// URL'),
   JWT_SECRET: z.string().min(16, 'JWT_SECRET must be at least 16 characters'),
   TOKEN_TTL_SECONDS: z.coerce.number().int().positive().default(12 * 3600),
@@ -34,7 +37,16 @@ const schema = z.object({
   /** A photo file no row points to is removed once it is this old (a crash between write and commit). */
   PHOTO_SWEEP_GRACE_SECONDS: seconds(3600),
   PHOTO_SWEEP_INTERVAL_SECONDS: seconds(3600),
+  /** Network mode: listen on every interface, serve HTTPS, and put the LAN address in labels and mails. */
+  LAN: z.enum(['0', '1']).default('0'),
+  /** The address phones reach this machine by, when the one picked from its interfaces is not the right one. */
+  LAN_ADDRESS: z.ipv4({ message: 'LAN_ADDRESS must be an IPv4 address such as 192.168.1.20' }).optional(),
+  /** A certificate the shop supplies (PEM files); without them network mode makes one and keeps it in TLS_DIR. */
+  TLS_CERT: z.string().optional(),
+  TLS_KEY: z.string().optional(),
+  TLS_DIR: z.string().default(path.join(__dirname, '..', '.cache', 'tls')),
 }).superRefine((e, issue) => {
+  if (!!e.TLS_CERT !== !!e.TLS_KEY) issue.addIssue({ code: 'custom', path: [e.TLS_CERT ? 'TLS_KEY' : 'TLS_CERT'], message: 'give both TLS_CERT and TLS_KEY, or neither' });
   // Whoever guesses the secret signs tokens for anyone: in production it must be long enough not to be guessed.
   if (e.NODE_ENV === 'production' && e.JWT_SECRET.length < 32) {
     issue.addIssue({ code: 'custom', path: ['JWT_SECRET'], message: 'JWT_SECRET must be at least 32 characters in production' });
@@ -52,22 +64,38 @@ export type Config = {
   logLevel: 'fatal' | 'error' | 'warn' | 'info' | 'debug' | 'trace' | 'silent';
   rateLimits: { signIn: RateLimitConfig; passwordReset: RateLimitConfig; invitations: RateLimitConfig };
   photoSweep: { graceSeconds: number; intervalSeconds: number };
+  /** Network mode and HTTPS: null `tls` serves plain HTTP (the loopback default). */
+  network: {
+    lan: boolean; lanAddress: string | null;
+    tls: { certFile?: string; keyFile?: string; dir: string; names: { dns: string[]; ips: string[] } } | null;
+  };
 };
 
 /** A configuration that cannot work: start-up stops, and the supervisor does not retry (exit code 78). */
 export class ConfigError extends Error {}
 
 /** Parses the environment once; a bad value stops start-up with a message naming the variable. */
-export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+export function loadConfig(
+  env: NodeJS.ProcessEnv = process.env,
+  machine: { interfaces: NodeJS.Dict<os.NetworkInterfaceInfo[]>; hostname: string } = { interfaces: os.networkInterfaces(), hostname: os.hostname() },
+): Config {
   const parsed = schema.safeParse(env);
   if (!parsed.success) {
     const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`).join('\n');
     throw new ConfigError(`configuration is not valid:\n${lines}`);
   }
   const e = parsed.data;
+  const lan = e.LAN === '1';
+  const lanAddress = lan ? e.LAN_ADDRESS ?? pickLanAddress(machine.interfaces) : null;
+  if (lan && !lanAddress && !e.PUBLIC_URL) {
+    throw new ConfigError('network mode found no network address on this machine: connect it to the shop network, or set LAN_ADDRESS or PUBLIC_URL');
+  }
+  const https = lan || !!e.TLS_CERT;
+  const scheme = https ? 'https' : 'http';
   return {
-    env: e.NODE_ENV, port: e.PORT, host: e.HOST, databaseUrl: e.DATABASE_URL, jwtSecret: e.JWT_SECRET,
-    tokenTtlSeconds: e.TOKEN_TTL_SECONDS, publicUrl: e.PUBLIC_URL ?? `http://localhost:${e.PORT}`,
+    env: e.NODE_ENV, port: e.PORT, host: e.HOST ?? (lan ? '0.0.0.0' : '127.0.0.1'), databaseUrl: e.DATABASE_URL, jwtSecret: e.JWT_SECRET,
+    tokenTtlSeconds: e.TOKEN_TTL_SECONDS,
+    publicUrl: e.PUBLIC_URL ?? `${scheme}://${lanAddress ?? 'localhost'}:${e.PORT}`,
     smtp: { host: e.SMTP_HOST, port: e.SMTP_PORT, from: e.MAIL_FROM, fake: e.SMTP_FAKE === '1' },
     uploadsDir: e.UPLOADS_DIR, webDist: e.WEB_DIST,
     logLevel: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'silent' : 'info'),
@@ -77,5 +105,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       invitations: { perAddress: e.INVITATION_LIMIT_PER_ADDRESS, perIp: e.INVITATION_LIMIT_PER_IP, windowSeconds: e.INVITATION_LIMIT_WINDOW_SECONDS },
     },
     photoSweep: { graceSeconds: e.PHOTO_SWEEP_GRACE_SECONDS, intervalSeconds: e.PHOTO_SWEEP_INTERVAL_SECONDS },
+    network: {
+      lan, lanAddress,
+      tls: https ? { certFile: e.TLS_CERT, keyFile: e.TLS_KEY, dir: e.TLS_DIR, names: certificateNames(lanAddress, machine.hostname, e.PUBLIC_URL) } : null,
+    },
   };
 }

@@ -1,4 +1,5 @@
-import type { Server } from 'node:http';
+import { createServer as createHttpServer, type Server } from 'node:http';
+import { createServer as createHttpsServer } from 'node:https';
 import { createDatabase } from '../db';
 import { runMigrations } from '../db/migrate';
 import { seedDemo } from '../db/seed';
@@ -11,6 +12,7 @@ import { schedulePhotoSweep } from './jobs/photo-sweep';
 import { startSmtpFake, type SmtpFake } from './mail/smtp-fake';
 import { createMailer } from './mail/transport';
 import { createLogger } from './middleware/request-log';
+import { loadOrMakeCertificate } from './network/tls';
 import { localPhotoStorage } from './storage/photo-storage';
 
 /** Tells scripts/supervise.sh that restarting cannot help (sysexits' EX_CONFIG). */
@@ -29,8 +31,11 @@ async function main() {
   await mailQueue.work(findingMailWorker({ db: database.db, mailer, storage, publicUrl: config.publicUrl }));
   const sweep = schedulePhotoSweep({ db: database.db, storage, logger, ...config.photoSweep });
 
-  const { app } = createApp({ config, database, mailQueue, storage, smtpFake, logger });
-  const server: Server = app.listen(config.port, config.host, () => {
+  // Network mode speaks HTTPS itself: browsers allow the camera only in a secure context.
+  const tls = config.network.tls ? await loadOrMakeCertificate(config.network.tls) : null;
+  if (tls?.made) console.log(`made a certificate for ${[...tls.names.dns, ...tls.names.ips].join(', ')} (fingerprint ${tls.fingerprint})`);
+  const { app } = createApp({ config, database, mailQueue, storage, smtpFake, logger, tls });
+  const server: Server = (tls ? createHttpsServer({ key: tls.key, cert: tls.cert }, app) : createHttpServer(app)).listen(config.port, config.host, () => {
     console.log(`Pitchcard is up at ${config.publicUrl}${smtpFake ? ` (mail fake on SMTP port ${smtpFake.port}; received mail at ${config.publicUrl}/dev/mail)` : ''}`);
   });
 

@@ -9,4 +9,5 @@ export * from './coupons';
 export * from './studies';
 export * from './build-log';
 export * from './people';
+export * from './network';
 export type * from './engineering';

@@ -11,6 +11,7 @@ import { invite } from '../people/invitations';
 import { addBuildMember, findUserByEmail, listPendingInvitations } from '../people/people-repository';
 import { badRequest, conflict, forbidden, notFound } from '../http-error';
 import { kitsService } from '../kits/kits-service';
+import { isLoopbackUrl } from '../network/lan';
 import { insertTraveler, listTravelers } from '../travelers/travelers-repository';
 import {
   insertBuildEvent, listBuildMembers, listVisibleBuilds, lockBuild, removeBuildMember, setMemberPlace,
@@ -154,6 +155,10 @@ export const buildsService = (ctx: Deps) => {
     /** One printable label per traveler: the QR carries a URL, so a phone's own camera opens it too. */
     async labels(user: Express.User, id: string): Promise<QrLabel[]> {
       if (user.role !== 'supplier' && user.role !== 'admin') throw forbidden('only the supplier prints labels');
+      // A label's link must open on a phone's own camera: an address of this machine's loopback would not.
+      if (isLoopbackUrl(publicUrl)) {
+        throw conflict(`labels would carry ${publicUrl}, which a phone cannot open: start Pitchcard in network mode (npm start -- --lan) or set PUBLIC_URL to the address phones reach this machine by, then print again`);
+      }
       await summary(user, id);
       const rows = await db.select({
         travelerId: travelers.id, serial: travelers.serial, shortCode: travelers.shortCode, qrToken: travelers.qrToken,

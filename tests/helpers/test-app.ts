@@ -35,7 +35,8 @@ export async function startTestApp(opts: {
   const config = loadConfig({
     NODE_ENV: 'test', DATABASE_URL: testDb.url, JWT_SECRET: 'test-secret-that-is-long-enough', SMTP_PORT: String(smtp.port),
     UPLOADS_DIR: uploadsDir, PORT: String(opts.port ?? 8080), WEB_DIST: opts.webDist ?? path.join(uploadsDir, 'no-web'),
-    PUBLIC_URL: `http://localhost:${opts.port ?? 8080}`,
+    // A name of the reserved .test domain: not a loopback address, so labels print (browser tests map it to 127.0.0.1).
+    PUBLIC_URL: `http://pitchcard.test:${opts.port ?? 8080}`,
     // Tests sign the same people in again and again from one address: the real limits are tested on their own.
     SIGN_IN_LIMIT_PER_ADDRESS: '100000', SIGN_IN_LIMIT_PER_IP: '100000',
     PASSWORD_RESET_LIMIT_PER_ADDRESS: '100000', PASSWORD_RESET_LIMIT_PER_IP: '100000',
