@@ -8,6 +8,7 @@ import { z } from 'zod';
 export type {
   ReworkResult, ReworkMargins, RibStudyResult, StudyCandidate, StudyCondition, LineLoads, EnvelopePoint,
   LineSchedule, TradeRow, ScheduleZone, ScheduleHole, AllowableSummary, DesignCondition, CpSample, StudyWork,
+  RepairCheckResult, RepairHoleResult, RepairAlternative,
 } from '../../server/engineering';
 
 /*

@@ -1,7 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import {
   findingActionInput, findingActions, type FindingAction, type FindingActionInput, type FindingDetail, type FindingInput,
-  type FindingStatus, type FindingSummary, type ReworkMargins,
+  type FindingStatus, type FindingSummary, type RepairCheckResult,
 } from '@/db/contracts';
 import { api, ApiError, qs } from '../api-client';
 import { findingActionFormData, findingFormData, type DraftPhoto } from '../photo-form-data';
@@ -22,44 +22,8 @@ export const findingKeys = {
   repairCheck: (id: string, spec: string | null) => [...findingKeys.detail(id), 'repair-check', spec ?? 'next'] as const,
 };
 
-/*
- * The engine's repair check as the server sends it (server/engineering/repair-check.ts). Typed here
- * because db/contracts/engineering.ts does not re-export it yet and the app may not import from server/;
- * lengths in inches, margins null where no load was applied.
- */
-export type RepairAlternative = 'repair with doubler' | 'scrap' | null;
-
-export type RepairHoleResult = {
-  holeId: string;
-  pass: boolean;
-  reasons: string[];
-  edgeDistanceUsedIn: number;
-  /** true when the inspector's measured edge distance replaced the nominal one */
-  edgeDistanceMeasured: boolean;
-  pitchToNeighboursIn: [number | null, number | null];
-  margins: ReworkMargins;
-  alternative: RepairAlternative;
-};
-
-export type RepairCheckResult = {
-  inputs: {
-    rivetSpec: string; proposedSpec: string; gaugeIn: number; material: string;
-    holes: { holeId: string; stationIn: number; edgeDistanceIn: number; measured?: { holeDiameterIn?: number; edgeDistanceIn?: number } }[];
-  };
-  rules: string[];
-  warnings: string[];
-  caution: string;
-  pass: boolean;
-  /** every failing hole's reasons, each prefixed with its hole id */
-  reasons: string[];
-  holes: RepairHoleResult[];
-  newDrill: { name: string; diameterIn: number };
-  requiredEdgeIn: number;
-  requiredPitchIn: number;
-  /** null when the proposed rivet has a protruding head */
-  countersink: { required: boolean; headHeightIn: number | null; limitIn: number | null; pass: boolean } | null;
-  alternative: RepairAlternative;
-};
+/** The engine's repair check as the server sends it (server/engineering/repair-check.ts), one definition for both sides. */
+export type { RepairAlternative, RepairCheckResult, RepairHoleResult } from '@/db/contracts';
 
 const findingPath = (id: string, rest = '') => `/api/findings/${encodeURIComponent(id)}${rest}`;
 

@@ -45,8 +45,8 @@ export const failedCheck: RepairCheckResult = {
   inputs: {
     rivetSpec: 'MS20470AD4', proposedSpec: 'MS20470AD5', gaugeIn: 0.032, material: '6061-T6',
     holes: [
-      { holeId: 'U-08', stationIn: 8, edgeDistanceIn: 0.25, measured: { edgeDistanceIn: 0.28 } },
-      { holeId: 'U-09', stationIn: 9, edgeDistanceIn: 0.25 },
+      { holeId: 'U-08', stationIn: 8, neighbourStationsIn: [7, 9], edgeDistanceIn: 0.25, measured: { edgeDistanceIn: 0.28 } },
+      { holeId: 'U-09', stationIn: 9, neighbourStationsIn: [8, 10], edgeDistanceIn: 0.25 },
     ],
   },
   rules: ['layout: edge distance ≥ 2D, pitch ≥ 3D of the new diameter (FAA AC 43.13-1B ch. 4)'],
