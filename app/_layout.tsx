@@ -6,7 +6,7 @@ import { QueryClientProvider } from '@tanstack/react-query';
 import { useFonts } from 'expo-font';
 import { DefaultTheme, Stack, ThemeProvider } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';
-import { useEffect, useState, type ReactNode } from 'react';
+import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { View } from 'react-native';
 import { colors } from '@/constants/theme';
 import { useArrivalHref } from '@/components/navigation/use-arrival-href';
@@ -50,9 +50,16 @@ function SessionWithArrival({ children }: { children: ReactNode }) {
 
 function Guarded({ onSignedOut }: { onSignedOut: () => void }) {
   const { status, user } = useSession();
-  // Nothing cached for one person may show to the next.
+  // Nothing cached for one person may show to the next: cleared when a session ends. Not when the app
+  // starts signed out: nothing is cached yet, and clearing then would cancel the first request of a page
+  // open to everyone (an invitation, a password reset) while it is on its way, leaving it waiting forever.
+  const hadSession = useRef(false);
   useEffect(() => {
-    if (status === 'signed-out') onSignedOut();
+    if (status === 'signed-in') hadSession.current = true;
+    if (status === 'signed-out' && hadSession.current) {
+      hadSession.current = false;
+      onSignedOut();
+    }
   }, [status, user?.id, onSignedOut]);
 
   if (status === 'loading') {
@@ -71,7 +78,10 @@ function Guarded({ onSignedOut }: { onSignedOut: () => void }) {
       <Stack.Protected guard={!signedIn}>
         <Stack.Screen name="(auth)" />
       </Stack.Protected>
+      {/* Open signed in or out: a scanned label, and the one-time links of an invitation and a password reset. */}
       <Stack.Screen name="t/[token]" />
+      <Stack.Screen name="invite/[token]" />
+      <Stack.Screen name="reset/[token]" />
       <Stack.Screen name="dev/mail" />
       <Stack.Screen name="+not-found" />
     </Stack>

@@ -10,6 +10,10 @@ export function makeQueryClient(): QueryClient {
   return new QueryClient({
     defaultOptions: {
       queries: {
+        // Ask even when the browser says there is no signal: on the web the service worker answers from
+        // what the phone kept (lib/service-worker.web.ts), so a part opens at the bench without signal.
+        // Retries still wait for the signal.
+        networkMode: 'offlineFirst',
         staleTime: 15_000,
         retry: (count, e) => retryable(e) && count < 2,
         refetchOnWindowFocus: true,

@@ -3,6 +3,7 @@ import type { Role, SessionUser, SignInResult } from '@/db/contracts';
 import { safeInAppPath } from '@/components/navigation/pending-link';
 import { configureApiClient } from './api-client';
 import { readJson, removeKey, storageKeys, tabScoped, writeJson } from './storage';
+import { clearOfflineCaches } from '@/lib/service-worker';
 
 type Stored = { token: string; expiresAt: string; user: SessionUser };
 
@@ -67,6 +68,8 @@ export function SessionProvider({ children, arrivalHref = null }: { children: Re
     // A link followed by the last person is not the next person's business.
     setPendingHref(null);
     await removeKey(storageKeys.session);
+    // Nothing one person's device cached (API answers kept for work without signal) may show to the next.
+    await clearOfflineCaches();
   }, [setPendingHref]);
 
   const signIn = useCallback(async (result: SignInResult) => {
@@ -85,7 +88,7 @@ export function SessionProvider({ children, arrivalHref = null }: { children: Re
     configureApiClient({
       getToken: () => tokenRef.current,
       onUnauthorized: () => {
-        if (tokenRef.current) void signOut('Your session ran out. Please sign in again.');
+        if (tokenRef.current) void signOut('You were signed out (the session ended, or was ended from another device). Please sign in again.');
       },
     });
   }
@@ -104,7 +107,10 @@ export function SessionProvider({ children, arrivalHref = null }: { children: Re
         // A page opened just now wins over one kept from before; a reload of the sign-in page keeps the old one.
         setPendingHref(arrivalRef.current ?? kept);
         setStatus('signed-out');
-        if (s) void removeKey(storageKeys.session);
+        if (s) {
+          void removeKey(storageKeys.session);
+          void clearOfflineCaches();
+        }
       }
     });
     return () => { alive = false; };

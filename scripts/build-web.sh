@@ -1,10 +1,12 @@
 #!/usr/bin/env bash
-# Exports the web app into dist/ when its sources changed since the last export.
+# Exports the web app into dist/ when its sources changed since the last export, then makes the service
+# worker that lets it open without signal (scripts/build-offline.mjs).
 set -euo pipefail
 root=$(cd "$(dirname "$0")/.." && pwd)
 cd "$root"
-stamp=dist/index.html
-if [ -f "$stamp" ] && [ -z "$(find index.ts app components hooks constants assets db/contracts app.json babel.config.js package.json package-lock.json -newer "$stamp" -type f 2>/dev/null | head -1)" ]; then
+# The service worker is written last, so an export that stopped half-way is done again next time.
+stamp=dist/sw.js
+if [ -f "$stamp" ] && [ -z "$(find index.ts app components hooks constants assets lib public db/contracts app.json babel.config.js package.json package-lock.json scripts/build-web.sh scripts/build-offline.mjs -newer "$stamp" -type f 2>/dev/null | head -1)" ]; then
   exit 0
 fi
 echo "exporting the web app…"
@@ -12,7 +14,11 @@ echo "exporting the web app…"
 # it must be the copy of the zxing-wasm that barcode-detector bundles.
 mkdir -p public
 cp "$(node -p "require.resolve('zxing-wasm/reader/zxing_reader.wasm')")" public/zxing_reader.wasm
-# Metro's cache in a known folder makes a second export take seconds.
+# The manifest's icons, made from assets/images/icon.png (public/manifest.webmanifest names them).
+node scripts/build-offline.mjs icons
+# Metro's cache in a known folder makes a second export take seconds. public/index.html is Expo's own
+# page template for web output "single" (it links the manifest); expo export fills in the bundles.
 export EXPO_NO_TELEMETRY=1 CI=${CI:-1}
 node_modules/.bin/expo export --platform web --output-dir dist --max-workers 2 > .cache-export.log 2>&1 || { cat .cache-export.log; exit 1; }
 rm -f .cache-export.log
+node scripts/build-offline.mjs service-worker

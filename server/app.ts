@@ -32,6 +32,15 @@ import { localPhotoStorage, type PhotoStorage } from './storage/photo-storage';
 import { studiesRouter } from './studies/studies-router';
 import { travelersRouter } from './travelers/travelers-router';
 
+/**
+ * The service worker, the page it serves offline and the manifest are asked for again at each load
+ * (hashed bundles keep their hour): a phone then picks up a new build on its next load instead of up to
+ * an hour later.
+ */
+function revalidateAppShell(res: express.Response, file: string): void {
+  if (/(^|[\\/])(sw\.js|index\.html|manifest\.webmanifest)$/.test(file)) res.setHeader('Cache-Control', 'no-cache');
+}
+
 export type AppDeps = { config: Config; database: Database; mailQueue: MailQueue; storage?: PhotoStorage; smtpFake?: SmtpFake; logger?: Logger; tls?: TlsMaterial | null };
 
 /** Builds the Express app: the API under /api and the exported web app on the same origin. */
@@ -84,7 +93,7 @@ export function createApp({ config, database, mailQueue, storage, smtpFake, logg
   // The exported single-page app: files as they are, every other path gets index.html for the router.
   const index = path.join(config.webDist, 'index.html');
   if (existsSync(index)) {
-    app.use(express.static(config.webDist, { index: false, maxAge: '1h' }));
+    app.use(express.static(config.webDist, { index: false, maxAge: '1h', setHeaders: revalidateAppShell }));
     app.get('/{*splat}', (_req, res) => res.sendFile(index));
   }
   return { app, ctx };

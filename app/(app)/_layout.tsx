@@ -2,17 +2,17 @@ import { Tabs } from 'expo-router';
 import { colors, fonts, hairline } from '@/constants/theme';
 import { allTabRoutes, tabsFor } from '@/components/navigation/role-tabs';
 import { TabIcon } from '@/components/navigation/tab-icon';
-import { useRole } from '@/hooks/use-session';
+import { useSession } from '@/hooks/use-session';
 import { useTickOutboxSender } from '@/hooks/use-tick-outbox';
 import { useWide } from '@/hooks/use-wide';
 
 export const unstable_settings = { initialRouteName: 'index' };
 
 export default function AppLayout() {
-  const role = useRole();
+  const { user } = useSession();
   useTickOutboxSender();
   const wide = useWide();
-  const shown = tabsFor(role);
+  const shown = tabsFor(user);
   return (
     <Tabs
       backBehavior="history"

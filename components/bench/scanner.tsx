@@ -1,11 +1,12 @@
 import { CameraView, useCameraPermissions, type BarcodeScanningResult } from 'expo-camera';
 import { useIsFocused } from 'expo-router';
-import { useCallback, useEffect, useRef, useState } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Platform, StyleSheet, View } from 'react-native';
 import { colors, space } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
+import { cameraRefusedMessage, cameraUnavailableReason, currentCameraSetting } from './camera-access';
 import { setUpScanner } from './scanner-setup';
 
 type Props = {
@@ -21,6 +22,8 @@ export function Scanner({ onCode }: Props) {
   const [problem, setProblem] = useState<string | null>(null);
   const busy = useRef(false);
   const last = useRef<{ text: string; at: number } | null>(null);
+  // Read once: a page's address (http or https) does not change while it is open.
+  const unavailable = useMemo(() => cameraUnavailableReason(currentCameraSetting()), []);
 
   // On a phone app with the camera already allowed, open straight away; the web waits for a tap.
   useEffect(() => {
@@ -32,8 +35,7 @@ export function Scanner({ onCode }: Props) {
     setUpScanner(true);
     const p = permission?.granted ? permission : await requestPermission();
     if (p.granted) setOpen(true);
-    else setProblem(p.canAskAgain ? 'The camera was not allowed. Tap “Scan a label” to ask again, or type the code below.'
-      : 'The camera is blocked for Pitchcard. Allow it in the settings, or type the code below.');
+    else setProblem(cameraRefusedMessage(p));
   };
 
   const handle = useCallback((r: BarcodeScanningResult) => {
@@ -45,6 +47,15 @@ export function Scanner({ onCode }: Props) {
     busy.current = true;
     void onCode(text).finally(() => { busy.current = false; });
   }, [onCode]);
+
+  if (unavailable) {
+    // No button that cannot work: the reason, and the short code beside it still opens the part.
+    return (
+      <View style={styles.closed}>
+        <Notice tone="caution" testID="scan-needs-https">{unavailable}</Notice>
+      </View>
+    );
+  }
 
   if (!open || !focused) {
     return (

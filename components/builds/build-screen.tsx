@@ -9,22 +9,24 @@ import { KeyValue, Section } from '@/components/ui/sheet';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Mono } from '@/components/ui/text';
 import { useBuildQuery } from '@/hooks/queries/builds';
-import { useRole } from '@/hooks/use-session';
+import { TwoPane } from '@/components/ui/two-pane';
+import { useSession } from '@/hooks/use-session';
 import { shortDate } from '@/components/findings/finding-row';
+import { BuildPeopleSection } from './build-people';
 
 export function BuildScreen({ buildId }: { buildId: string }) {
   const router = useRouter();
-  const role = useRole();
+  const { user } = useSession();
+  const role = user?.role ?? null;
   const q = useBuildQuery(buildId);
   if (q.isPending) return <Screen title="Build" backTo="/builds"><LoadingState what="Loading the build" /></Screen>;
   if (q.isError) return <Screen title="Build" backTo="/builds"><ErrorState error={q.error} onRetry={() => void q.refetch()} /></Screen>;
   const b = q.data;
-  return (
-    <Screen title={`Build ${b.kitSerial}`} subtitle={`${b.kitName} · ${b.supplierName}`} backTo="/builds" testID="build-screen">
+  // The parts read first on a phone; from 900 px the people sit beside them.
+  const parts = (
+    <>
       <View style={{ gap: space.sm }}>
         <KeyValue label="Shipped">{shortDate(b.createdAt)}</KeyValue>
-        <KeyValue label="Builder">{b.builders.map((x) => `${x.name} <${x.email}>`).join(', ') || '–'}</KeyValue>
-        <KeyValue label="Inspector">{b.inspectors.map((x) => `${x.name} <${x.email}>`).join(', ') || '–'}</KeyValue>
         <KeyValue label="Open findings"><Mono bold>{String(b.openFindings)}</Mono></KeyValue>
       </View>
       <ProgressBar done={b.holesDone} awaiting={b.travelers.reduce((n, t) => n + t.holesAwaitingInspector, 0)} total={b.holesTotal} />
@@ -39,6 +41,17 @@ export function BuildScreen({ buildId }: { buildId: string }) {
           </View>
         ) : <EmptyState title="No parts in this build." body="No part of this kit had a published revision when it was shipped." />}
       </Section>
+    </>
+  );
+  return (
+    <Screen title={`Build ${b.kitSerial}`} subtitle={`${b.kitName} · ${b.supplierName}`} backTo="/builds" full testID="build-screen">
+      <View style={{ width: '100%', maxWidth: 1200, alignSelf: 'center' }}>
+        <TwoPane
+          leftWidth={0.58}
+          left={parts}
+          right={<BuildPeopleSection buildId={b.id} kitSerial={b.kitSerial} people={b.people} meId={user?.id} />}
+        />
+      </View>
     </Screen>
   );
 }

@@ -15,7 +15,7 @@ export function BuildsScreen() {
   return (
     <Screen
       title="Builds"
-      subtitle={isSupplier ? 'Kits you have shipped' : 'Builds you inspect'}
+      subtitle={isSupplier ? 'Kits you have shipped' : role === 'builder' ? 'Builds you work on' : 'Builds you inspect'}
       account
       scroll={false}
       testID="builds-screen"
@@ -31,7 +31,9 @@ export function BuildsScreen() {
               ListEmptyComponent={
                 <EmptyState
                   title="No builds yet."
-                  body={isSupplier ? 'Ship a kit to a builder: each published part becomes a traveler with its own QR label.' : 'Builds show here when a supplier names you as their inspector.'}
+                  body={isSupplier ? 'Ship a kit to a builder: each published part becomes a traveler with its own QR label.'
+                    : role === 'builder' ? 'Builds show here when a supplier ships you a kit, or a build’s owner adds you as a helper.'
+                      : 'Builds show here when a supplier or a build’s owner adds you as an inspector.'}
                 />
               }
               refreshing={q.isRefetching}

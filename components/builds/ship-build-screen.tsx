@@ -1,7 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'expo-router';
-import { useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useCallback, useState } from 'react';
+import { useForm, type Resolver } from 'react-hook-form';
 import type { z } from 'zod';
 import { buildInput } from '@/db/contracts';
 import { FormChoiceField, FormTextField } from '@/components/forms/form-fields';
@@ -16,6 +16,10 @@ import { useBuildCreateMutation } from '@/hooks/queries/builds';
 import { useKitsQuery } from '@/hooks/queries/kits';
 
 type Values = z.input<typeof buildInput>;
+type Parsed = z.output<typeof buildInput>;
+
+/** An empty name box means "no name given" (the invitation then greets the address), not a name too short. */
+const blankToUndefined = (s: string | undefined) => (s?.trim() ? s : undefined);
 
 /** Shipping a kit: one traveler per published part, each with its own serial, QR token and short code. */
 export function ShipBuildScreen() {
@@ -23,10 +27,16 @@ export function ShipBuildScreen() {
   const kits = useKitsQuery();
   const create = useBuildCreateMutation();
   const [formError, setFormError] = useState<string | null>(null);
-  const { control, handleSubmit, setError, formState } = useForm<Values, unknown, z.output<typeof buildInput>>({
-    resolver: zodResolver(buildInput, plainParse),
+  const resolver = useCallback<Resolver<Values, unknown, Parsed>>(
+    (values, context, options) => zodResolver(buildInput, plainParse)(
+      { ...values, builderName: blankToUndefined(values.builderName), inspectorName: blankToUndefined(values.inspectorName) }, context, options,
+    ),
+    [],
+  );
+  const { control, handleSubmit, setError, formState } = useForm<Values, unknown, Parsed>({
+    resolver,
     mode: 'onChange',
-    defaultValues: { kitModelId: '', kitSerial: '', builderEmail: '', inspectorEmail: '' },
+    defaultValues: { kitModelId: '', kitSerial: '', builderEmail: '', builderName: '', inspectorEmail: '', inspectorName: '' },
   });
   const submit = handleSubmit(async (v) => {
     setFormError(null);
@@ -50,8 +60,15 @@ export function ShipBuildScreen() {
                   <FormTextField control={control} name="kitSerial" label="Kit serial" testID="build-serial" autoCapitalize="characters" mono />
                 </Section>
                 <Section title="People">
-                  <FormTextField control={control} name="builderEmail" label="Builder’s e-mail" hint="They must already have a builder sign-in." testID="build-builder-email" autoCapitalize="none" keyboardType="email-address" inputMode="email" />
-                  <FormTextField control={control} name="inspectorEmail" label="Inspector’s e-mail" hint="Findings on this build go to them." testID="build-inspector-email" autoCapitalize="none" keyboardType="email-address" inputMode="email" />
+                  <Txt variant="small" tone="soft" testID="build-invite-note">
+                    An address without a Pitchcard account gets an invitation by mail: the person sets a password from its link and
+                    joins the build. Until then the build shows them as not joined yet. Give their names for the invitation.
+                  </Txt>
+                  <FormTextField control={control} name="builderEmail" label="Builder’s e-mail" hint="The build’s owner: they build it and keep its log." testID="build-builder-email" autoCapitalize="none" autoCorrect={false} keyboardType="email-address" inputMode="email" maxLength={254} />
+                  <FormTextField control={control} name="builderName" label="Builder’s name (if they have no account yet)" testID="build-builder-name" autoComplete="off" maxLength={120} />
+                  <FormTextField control={control} name="inspectorEmail" label="Inspector’s e-mail" hint="The final inspector: findings on this build go to them." testID="build-inspector-email" autoCapitalize="none" autoCorrect={false} keyboardType="email-address" inputMode="email" maxLength={254} />
+                  <FormTextField control={control} name="inspectorName" label="Inspector’s name (if they have no account yet)" testID="build-inspector-name" autoComplete="off" maxLength={120} />
+                  <Txt variant="small" tone="faint">Helpers and a technical adviser are added on the build’s page once it is shipped.</Txt>
                 </Section>
                 {formError ? <Notice tone="error" testID="build-error">{formError}</Notice> : null}
                 <Button label="Ship it" busyLabel="Making travelers" busy={formState.isSubmitting} onPress={() => void submit()} testID="submit-build" />

@@ -7,7 +7,7 @@ export const homeFor: Record<Role, Href> = {
   builder: '/bench',
   inspector: '/findings',
   supplier: '/catalogue',
-  admin: '/admin',
+  admin: '/people',
 };
 
 /**

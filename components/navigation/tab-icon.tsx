@@ -1,6 +1,6 @@
 import Svg, { Circle, Line, Path, Rect } from 'react-native-svg';
 
-export type TabGlyph = 'bench' | 'parts' | 'findings' | 'review' | 'builds' | 'catalogue' | 'studies' | 'coupons' | 'session';
+export type TabGlyph = 'bench' | 'parts' | 'findings' | 'review' | 'builds' | 'catalogue' | 'studies' | 'coupons' | 'session' | 'people';
 
 /** Line drawings in the drafting style; the label under each says what it is. */
 export function TabIcon({ glyph, color, size = 26 }: { glyph: TabGlyph; color: string; size?: number }) {
@@ -54,6 +54,14 @@ export function TabIcon({ glyph, color, size = 26 }: { glyph: TabGlyph; color: s
           <Rect x={3} y={8} width={18} height={8} {...s} />
           <Circle cx={12} cy={12} r={1.6} {...s} />
           <Path d="M1 12h2M21 12h2" {...s} />
+        </>
+      )}
+      {glyph === 'people' && (
+        <>
+          <Circle cx={9} cy={8} r={3.2} {...s} />
+          <Path d="M2.5 20c.8-4 3.6-6 6.5-6s5.7 2 6.5 6" {...s} />
+          <Circle cx={17} cy={7} r={2.6} {...s} />
+          <Path d="M16.5 12.6c2.6 0 4.6 1.7 5.2 5" {...s} />
         </>
       )}
       {glyph === 'session' && (

@@ -1,5 +1,6 @@
 import { useRouter, type Href } from 'expo-router';
-import { ScrollView, StyleSheet, View, type ScrollViewProps } from 'react-native';
+import { TabIcon } from '@/components/navigation/tab-icon';
+import { Pressable, ScrollView, StyleSheet, View, type ScrollViewProps } from 'react-native';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import { colors, hairline, space, touch } from '@/constants/theme';
 import { useSession } from '@/hooks/use-session';
@@ -15,13 +16,16 @@ type HeaderProps = {
   /** Tab screens show the units switch and sign-out. */
   account?: boolean;
   right?: React.ReactNode;
+  /** The link to the person's own account page; off on that page itself. */
+  accountLink?: boolean;
 };
 
 /** The title block of a sheet: title, what it is, and the controls that apply to the whole screen. */
-export function ScreenHeader({ title, subtitle, backTo, account, right }: HeaderProps) {
+export function ScreenHeader({ title, subtitle, backTo, account, right, accountLink = true }: HeaderProps) {
   const router = useRouter();
   const insets = useSafeAreaInsets();
-  const { signOut, status } = useSession();
+  const { signOut, status, user } = useSession();
+  const signedIn = status === 'signed-in';
   return (
     <View style={[styles.header, { paddingTop: insets.top + space.sm }]}>
       <View style={styles.headerRow}>
@@ -43,13 +47,34 @@ export function ScreenHeader({ title, subtitle, backTo, account, right }: Header
         <View style={styles.right}>
           {right}
           {account ? <UnitsSwitch /> : null}
-          {account && status === 'signed-in' ? (
+          {signedIn && accountLink ? (
+            // On every signed-in screen: the person's own page (password, sign out everywhere). Only the
+            // figure on a detail screen, where the title needs the room; the first name beside it on a tab.
+            <Pressable
+              accessibilityRole="button"
+              accessibilityLabel={`Your account${user ? `: ${user.name}` : ''}`}
+              testID="account"
+              hitSlop={4}
+              onPress={() => router.push('/account')}
+              style={({ pressed }) => [styles.account, pressed && { opacity: 0.75 }]}
+            >
+              <TabIcon glyph="session" color={colors.accent} size={22} />
+              {account ? <Txt bold tone="accent" numberOfLines={1}>{firstName(user?.name)}</Txt> : null}
+            </Pressable>
+          ) : null}
+          {account && signedIn ? (
             <Button label="Sign out" variant="quiet" compact testID="sign-out" onPress={() => void signOut()} />
           ) : null}
         </View>
       </View>
     </View>
   );
+}
+
+/** "Maren" of "Maren Holt": enough to recognise oneself by in a crowded header. */
+function firstName(name: string | undefined): string {
+  const first = (name ?? '').trim().split(/\s+/)[0] ?? '';
+  return first.length > 14 ? `${first.slice(0, 13)}…` : first || 'Account';
 }
 
 type ScreenProps = HeaderProps & {
@@ -95,6 +120,7 @@ const styles = StyleSheet.create({
   },
   headerRow: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap', minHeight: touch },
   right: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap' },
+  account: { minHeight: touch, minWidth: touch, paddingHorizontal: space.sm, flexDirection: 'row', alignItems: 'center', justifyContent: 'center', gap: space.xs },
   body: { flex: 1, padding: space.lg, gap: space.xl, width: '100%', alignSelf: 'center' },
   narrow: { maxWidth: 760 },
 });

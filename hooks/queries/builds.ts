@@ -1,8 +1,9 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { BuildInput, BuildSummary, QrLabel, TravelerSummary } from '@/db/contracts';
-import { api } from '../api-client';
+import type { AddMemberInput, BuildDetail, BuildInput, BuildSummary, QrLabel, TravelerSummary } from '@/db/contracts';
+import { api, apiRequest } from '../api-client';
 
-export type BuildDetail = BuildSummary & { travelers: TravelerSummary[] };
+/** The build's page: the contract's detail (its people with what the reader may do) and its parts. */
+export type BuildPage = BuildDetail & { travelers: TravelerSummary[] };
 
 export const buildKeys = {
   all: ['builds'] as const,
@@ -16,7 +17,7 @@ export const buildQueries = {
   list: () => queryOptions({ queryKey: buildKeys.list(), queryFn: ({ signal }) => api.get<BuildSummary[]>('/api/builds', signal) }),
   detail: (id: string) => queryOptions({
     queryKey: buildKeys.detail(id),
-    queryFn: ({ signal }) => api.get<BuildDetail>(`/api/builds/${encodeURIComponent(id)}`, signal),
+    queryFn: ({ signal }) => api.get<BuildPage>(`/api/builds/${encodeURIComponent(id)}`, signal),
   }),
   labels: (id: string) => queryOptions({
     queryKey: buildKeys.labels(id),
@@ -46,4 +47,36 @@ export function useBuildCreateMutation() {
       qc.invalidateQueries({ queryKey: ['travelers'] }),
     ]),
   });
+}
+
+/**
+ * A change to the build's people answers with the whole build as the reader now sees it: it replaces the
+ * cached page at once, and the list (which names builders and inspectors) is asked again.
+ */
+function usePeopleChange<V>(buildId: string, send: (v: V) => Promise<BuildPage>) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: send,
+    onSuccess: (page) => {
+      qc.setQueryData(buildKeys.detail(buildId), page);
+      return qc.invalidateQueries({ queryKey: buildKeys.list() });
+    },
+  });
+}
+
+const buildPath = (id: string) => `/api/builds/${encodeURIComponent(id)}`;
+
+/** Adds a builder or inspector in a place; an address without an account gets an invitation. */
+export function useBuildMemberAddMutation(buildId: string) {
+  return usePeopleChange(buildId, (input: AddMemberInput) => api.post<BuildPage>(`${buildPath(buildId)}/members`, input));
+}
+
+export function useBuildMemberRemoveMutation(buildId: string) {
+  return usePeopleChange(buildId, (userId: string) =>
+    apiRequest<BuildPage>(`${buildPath(buildId)}/members/${encodeURIComponent(userId)}`, { method: 'DELETE' }));
+}
+
+/** Hands the build, its log included, to another builder on it. */
+export function useBuildHandOverMutation(buildId: string) {
+  return usePeopleChange(buildId, (userId: string) => api.post<BuildPage>(`${buildPath(buildId)}/owner`, { userId }));
 }

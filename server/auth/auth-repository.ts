@@ -31,6 +31,13 @@ export async function insertPasswordReset(db: Db, userId: string, tokenHash: str
   await db.insert(passwordResets).values({ userId, tokenHash, expiresAt });
 }
 
+/** Whose live reset link this is, without using it up (a weak new password must not spend the link). */
+export async function findLiveReset(db: Db, tokenHash: string) {
+  const [row] = await db.select({ userId: passwordResets.userId }).from(passwordResets)
+    .where(and(eq(passwordResets.tokenHash, tokenHash), isNull(passwordResets.usedAt), gt(passwordResets.expiresAt, new Date())));
+  return row;
+}
+
 /** Takes a live reset link once: marks it used in the same statement that finds it. */
 export async function takePasswordReset(db: Db, tokenHash: string) {
   const [row] = await db.update(passwordResets).set({ usedAt: new Date() })

@@ -9,7 +9,7 @@ import { resetMail } from '../mail/account-mail';
 import { authenticate } from '../middleware/authenticate';
 import { validateBody } from '../middleware/validate';
 import {
-  bumpSessionVersion, findPasswordHash, findSessionUser, findUserForSignIn, insertPasswordReset, takePasswordReset,
+  bumpSessionVersion, findLiveReset, findPasswordHash, findSessionUser, findUserForSignIn, insertPasswordReset, takePasswordReset,
 } from './auth-repository';
 import { requireStrongPassword } from './password-strength';
 import { hashPassword, verifyPassword } from './passwords';
@@ -53,10 +53,14 @@ export function authRouter(ctx: AppContext, limits: { signIn?: import('express')
 
   r.post('/reset', ...(limits.reset ?? []), validateBody(resetPasswordInput), async (req, res) => {
     const { token, password } = req.body as { token: string; password: string };
-    const found = await takePasswordReset(ctx.db, hashOneTimeToken(token));
-    if (!found) throw badRequest('this link has expired or was already used: ask for a new one', { token: 'expired or already used' });
-    const u = (await findSessionUser(ctx.db, found.userId))!;
+    const gone = () => badRequest('this link has expired or was already used: ask for a new one', { token: 'expired or already used' });
+    const live = await findLiveReset(ctx.db, hashOneTimeToken(token));
+    if (!live) throw gone();
+    const u = (await findSessionUser(ctx.db, live.userId))!;
+    // Judged before the link is used up, so a weak try leaves the link working for the next one.
     requireStrongPassword(password, [u.email, u.name]);
+    const found = await takePasswordReset(ctx.db, hashOneTimeToken(token));
+    if (!found) throw gone();
     // A new password ends every sign-in the person had.
     await bumpSessionVersion(ctx.db, u.id, { passwordHash: await hashPassword(password) });
     res.json(await session(u.id));

@@ -25,7 +25,10 @@ export function securityHeaders(config: Pick<Config, 'env'>) {
         // The picked photo's data:/blob: URI is fetched back into a Blob for the upload; nothing leaves for another origin.
         connectSrc: ["'self'", 'data:', 'blob:'],
         mediaSrc: ["'self'", 'blob:'],
+        // 'self': the service worker (dist/sw.js, made by scripts/build-offline.mjs) that keeps the app
+        // working without signal; and the web app manifest, named outright rather than left to default-src.
         workerSrc: ["'self'", 'blob:'],
+        manifestSrc: ["'self'"],
         objectSrc: ["'none'"],
         baseUri: ["'self'"],
         formAction: ["'self'"],

@@ -91,6 +91,9 @@ describe('passwords and sign-ins', () => {
     await new Promise((r) => setTimeout(r, 500));
     expect(t.smtp.messages.some((m) => m.to.includes('nobody@nowhere.example'))).toBe(false);
     const before = await t.signIn(DEMO_USERS.inspector.email);
+    // A weak try is refused with the advice and leaves the link working.
+    const weak = await request(t.app).post('/api/auth/reset').send({ token: resetToken, password: 'password1234' });
+    expect(weak.body.error.fields).toHaveProperty('password');
     const reset = await request(t.app).post('/api/auth/reset').send({ token: resetToken, password: STRONG });
     expect(reset.status).toBe(200);
     // The new password ends the sign-ins made with the old one.

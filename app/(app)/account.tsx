@@ -1,0 +1,5 @@
+import { AccountScreen } from '@/components/account/account-screen';
+
+export default function Account() {
+  return <AccountScreen />;
+}

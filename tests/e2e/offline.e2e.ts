@@ -1,0 +1,209 @@
+import { createServer, type Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import path from 'node:path';
+import type { Browser, Page } from 'playwright-core';
+import sharp from 'sharp';
+import request from 'supertest';
+import type { SessionUser, TravelerDetail, TravelerSummary } from '@/db/contracts';
+import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
+import { startTestApp, type TestApp } from '../helpers/test-app';
+import { launchBrowser, phonePage } from './helpers/browser';
+
+/**
+ * The installable app at the bench with no signal, in Debian's headless Chromium against the real server:
+ * the manifest and its icons; the service worker keeping the app shell and the bench's answers, so the
+ * bench and a part in progress open after a reload with no signal; a tick made then waits on the phone
+ * and reaches the server when the signal returns. And on a plain-http shop address (no secure context)
+ * the scanner says the camera needs the https address, while the short code still opens the part.
+ *
+ * "No signal" is both Chromium's offline mode and a server that drops every connection: Chromium's
+ * offline mode has not always reached the requests a service worker makes itself (Playwright issue
+ * 2311), and with the server dropping them too the test cannot pass on a signal it should not have.
+ */
+jest.setTimeout(240_000);
+
+const webDist = path.join(__dirname, '..', '..', 'dist');
+
+let t: TestApp;
+let server: Server;
+let port: number;
+let base: string;
+let browser: Browser;
+let signal = true;
+
+beforeAll(async () => {
+  server = createServer();
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  port = (server.address() as AddressInfo).port;
+  t = await startTestApp({ port, webDist });
+  server.on('request', (req, res) => {
+    if (signal) {
+      t.app(req, res);
+      return;
+    }
+    req.socket.destroy();
+  });
+  base = `http://localhost:${port}`;
+  browser = await launchBrowser();
+});
+// A test that fails while offline must not leave the server dropping the next test's connections.
+afterEach(() => {
+  signal = true;
+});
+afterAll(async () => {
+  await browser?.close().catch(() => undefined);
+  server?.closeAllConnections();
+  await new Promise((r) => server?.close(r));
+  await t?.close();
+});
+
+const visible = (page: Page, id: string) => page.locator(`[data-testid="${id}"]:visible`).first();
+
+async function api<T>(url: string): Promise<T> {
+  const token = await t.signIn(DEMO_USERS.builder.email);
+  const res = await request(t.app).get(url).set({ Authorization: `Bearer ${token}` });
+  if (res.status !== 200) throw new Error(`GET ${url}: ${res.status} ${JSON.stringify(res.body)}`);
+  return res.body as T;
+}
+
+async function signIn(page: Page, at: string) {
+  await page.goto(at);
+  await page.getByTestId('email').fill(DEMO_USERS.builder.email);
+  await page.getByTestId('password').fill(DEMO_PASSWORD);
+  await page.getByTestId('sign-in').click();
+  await visible(page, 'bench-screen').waitFor({ timeout: 30_000 });
+}
+
+/** Until the service worker is active and answers this page's requests. */
+async function controlledByServiceWorker(page: Page): Promise<string> {
+  return page.evaluate(async () => {
+    const reg = await navigator.serviceWorker.ready;
+    if (!navigator.serviceWorker.controller) {
+      await new Promise((r) => navigator.serviceWorker.addEventListener('controllerchange', r, { once: true }));
+    }
+    return new URL(reg.active!.scriptURL).pathname;
+  });
+}
+
+async function goOffline(page: Page) {
+  signal = false;
+  await page.context().setOffline(true);
+}
+
+async function goOnline(page: Page) {
+  signal = true;
+  await page.context().setOffline(false);
+}
+
+describe('the installable app', () => {
+  it('links a manifest that parses, opens standalone in our colours, and names icons that are served', async () => {
+    const page = await phonePage(browser, base);
+    await page.goto('/');
+    const href = await page.locator('link[rel="manifest"]').getAttribute('href');
+    expect(href).toBe('/manifest.webmanifest');
+    const res = await page.request.get(href!);
+    expect(res.status()).toBe(200);
+    expect(res.headers()['content-type']).toMatch(/^application\/manifest\+json/);
+    expect(res.headers()['cache-control']).toBe('no-cache');
+    const manifest = JSON.parse(await res.text());
+    expect(manifest).toMatchObject({ name: 'Pitchcard', short_name: 'Pitchcard', display: 'standalone', start_url: '/', background_color: '#F3EEE2', theme_color: '#1C1A16' });
+
+    const icons = manifest.icons as { src: string; sizes: string; type: string; purpose: string }[];
+    expect(icons.map((i) => `${i.sizes} ${i.purpose}`).sort()).toEqual(['192x192 any', '512x512 any', '512x512 maskable']);
+    const appleIcon = await page.locator('link[rel="apple-touch-icon"]').getAttribute('href');
+    for (const [src, size] of [...icons.map((i) => [i.src, Number(i.sizes.split('x')[0])] as const), [appleIcon!, 180] as const]) {
+      const icon = await page.request.get(src);
+      expect(icon.status()).toBe(200);
+      expect(icon.headers()['content-type']).toBe('image/png');
+      const meta = await sharp(await icon.body()).metadata();
+      expect([meta.format, meta.width, meta.height]).toEqual(['png', size, size]);
+    }
+
+    // The service worker and the page it serves offline are asked for again at every load.
+    const sw = await page.request.get('/sw.js');
+    expect(sw.status()).toBe(200);
+    expect(sw.headers()['content-type']).toMatch(/javascript/);
+    expect(sw.headers()['cache-control']).toBe('no-cache');
+    await page.context().close();
+  });
+});
+
+describe('the bench with no signal', () => {
+  it('reloads the bench and a part in progress from the phone, and a tick made offline reaches the server later', async () => {
+    const parts = await api<TravelerSummary[]>('/api/travelers');
+    const part = parts.find((p) => p.partNumber === 'W-104')!;
+    const before = await api<TravelerDetail>(`/api/travelers/${part.id}`);
+    const hole = before.holes.find((h) => h.status === 'pending')!.holeId;
+    const me = await api<SessionUser>('/api/auth/me');
+
+    const page = await phonePage(browser, base);
+    // The service worker runs under the same content security policy as the page: neither may report a refusal.
+    const refused: string[] = [];
+    const watch = (m: { text: () => string }) => { if (/content security policy|refused to/i.test(m.text())) refused.push(m.text()); };
+    page.on('console', watch);
+    page.context().on('serviceworker', (w) => w.on('console', watch));
+    await signIn(page, '/');
+    expect(await controlledByServiceWorker(page)).toBe('/sw.js');
+
+    // Online once more under the service worker, which keeps what the bench and the part answered.
+    await page.reload();
+    await visible(page, `traveler-${part.shortCode}`).click();
+    await visible(page, 'traveler-screen').waitFor({ timeout: 30_000 });
+    await page.goto('/');
+    await visible(page, `traveler-${part.shortCode}`).waitFor({ timeout: 30_000 });
+    // Kept under the person who fetched them, never for whoever signs in next on this phone.
+    const kept = await page.evaluate(async () => (await (await caches.open('pitchcard-api')).keys()).map((r) => r.url));
+    expect(kept.length).toBeGreaterThan(0);
+    for (const url of kept) expect(new URL(url).searchParams.get('pitchcard-person')).toBe(me.id);
+
+    // The signal drops with the bench open: the part still opens, from what the phone kept.
+    await goOffline(page);
+    await visible(page, `traveler-${part.shortCode}`).click();
+    await visible(page, 'traveler-screen').waitFor({ timeout: 30_000 });
+    expect(await visible(page, 'part-number').textContent()).toContain('W-104');
+    // Reloaded with no signal, the part's own address opens again (every app path is the same page,
+    // kept on the phone), and so does the bench.
+    await page.reload();
+    await visible(page, 'traveler-screen').waitFor({ timeout: 30_000 });
+    expect(await page.evaluate(() => fetch('/api/health').then(() => 'answered', () => 'no signal'))).toBe('no signal');
+    await visible(page, 'tab-bench').click();
+    await visible(page, `traveler-${part.shortCode}`).waitFor({ timeout: 30_000 });
+    await page.reload();
+    await visible(page, `traveler-${part.shortCode}`).click();
+    await visible(page, 'traveler-screen').waitFor({ timeout: 30_000 });
+
+    await visible(page, `hole-${hole}`).click();
+    await visible(page, 'ticks-waiting').waitFor({ timeout: 15_000 });
+    expect(await visible(page, `hole-${hole}`).getAttribute('aria-checked')).toBe('true');
+    const meanwhile = await api<TravelerDetail>(`/api/travelers/${part.id}`);
+    expect(meanwhile.holes.find((h) => h.holeId === hole)!.status).toBe('pending');
+
+    await goOnline(page);
+    await visible(page, 'ticks-waiting').waitFor({ state: 'detached', timeout: 30_000 });
+    const after = await api<TravelerDetail>(`/api/travelers/${part.id}`);
+    expect(after.holes.find((h) => h.holeId === hole)!.status).toBe('installed');
+    expect(refused).toEqual([]);
+    await page.context().close();
+  });
+});
+
+describe('the scanner on a plain-http shop address', () => {
+  it('says the camera needs the https address, and the short code still opens the part', async () => {
+    const part = (await api<TravelerSummary[]>('/api/travelers')).find((p) => p.partNumber === 'W-104')!;
+    // A name other than localhost (mapped to 127.0.0.1 by the browser helper): not a secure context.
+    const shop = `http://pitchcard.test:${port}`;
+    const page = await phonePage(browser, shop);
+    await signIn(page, `${shop}/`);
+    expect(await page.evaluate(() => [window.isSecureContext, 'serviceWorker' in navigator])).toEqual([false, false]);
+    const notice = await visible(page, 'scan-needs-https').textContent();
+    expect(notice).toContain('https://');
+    expect(notice).toContain(shop);
+    expect(notice).not.toMatch(/not allowed/);
+    expect(await page.locator('[data-testid="start-scan"]:visible').count()).toBe(0);
+
+    await visible(page, 'short-code').fill(part.shortCode);
+    await visible(page, 'open-code').click();
+    await visible(page, 'traveler-screen').waitFor({ timeout: 30_000 });
+    await page.context().close();
+  });
+});
