@@ -6,6 +6,13 @@ root=$(cd "$(dirname "$0")/.." && pwd)
 cd "$root"
 [ -d node_modules ] || npm ci
 
+# The browser tests drive Debian's Chromium: installed here when missing, as pg.sh installs PostgreSQL.
+if [ -z "${CHROMIUM_PATH:-}" ] && ! command -v chromium >/dev/null 2>&1; then
+  [ "$(id -u)" = 0 ] || { echo "Debian's chromium is missing: install it (apt-get install chromium) or set CHROMIUM_PATH" >&2; exit 1; }
+  echo "Chromium not found: installing Debian's package" >&2
+  apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null
+fi
+
 pgport=${TEST_PGPORT:-54330}
 bash scripts/pg.sh start test "$pgport" test
 trap 'bash scripts/pg.sh stop test "$pgport"' EXIT
