@@ -179,23 +179,55 @@ function signedArea(points: Point[]): number {
 }
 
 /**
- * Puts an uploaded contour into file order TE → upper → LE → lower → TE. Two layouts are accepted:
- * one continuous loop starting at the trailing edge, or the two surfaces each listed from the leading
- * edge to the trailing edge, one after the other.
+ * Puts an uploaded contour into file order TE → upper → LE → lower → TE. Two layouts are accepted, in
+ * either direction and with the nose at either end of the x axis:
+ * - one continuous loop starting at the trailing edge, its last point back at (or repeating) the first;
+ *   a closed loop starting anywhere else (at the nose) is turned to start at the point farthest from
+ *   where it starts;
+ * - the two surfaces each listed from the leading edge to the trailing edge, one after the other.
  */
 function toContour(raw: Point[]): Point[] {
   const xs = raw.map((p) => p[0]);
+  const ys = raw.map((p) => p[1]);
   const xmin = Math.min(...xs);
-  const span = Math.max(...xs) - xmin;
-  if (raw[0][0] - xmin > 0.25 * span) return raw;
-  const split = raw.findIndex((p, i) => i > 0 && p[0] - raw[i - 1][0] < -0.5 * span);
-  if (split < 0) {
-    throw new EngineeringInputError('airfoil.points', 'the points start at the leading edge but never jump back to it: list the surfaces one after the other, or go round from the trailing edge');
+  const xspan = Math.max(...xs) - xmin;
+  const size = Math.max(xspan, Math.max(...ys) - Math.min(...ys));
+  const dist = (a: Point, b: Point) => Math.hypot(a[0] - b[0], a[1] - b[1]);
+  const first = raw[0];
+  // The last point that is not the first again: a closing repeat says nothing about the shape.
+  let lastIndex = raw.length - 1;
+  while (lastIndex > 0 && dist(raw[lastIndex], first) <= 1e-9 * size) lastIndex--;
+  const last = raw[lastIndex];
+  const closedEnds = lastIndex < raw.length - 1 || dist(first, last) <= 0.1 * size;
+  // Starting well aft of the smallest x: a loop from the trailing edge, the usual file.
+  const startsAft = first[0] - xmin > 0.25 * xspan;
+  if (!closedEnds) {
+    // Two surfaces: somewhere the list jumps from one surface's trailing edge back to the nose.
+    const split = raw.findIndex((p, i) => i > 0 && dist(p, raw[i - 1]) > 0.5 * size);
+    if (split > 0) {
+      const upper = raw.slice(0, split).reverse();
+      const lower = raw.slice(split);
+      const sameNose = dist(upper[upper.length - 1], lower[0]) < 1e-9 * size;
+      return [...upper, ...(sameNose ? lower.slice(1) : lower)];
+    }
+    if (startsAft) return raw; // an open loop: refused below with the size of its gap
+    throw new EngineeringInputError('airfoil.points', 'the points neither go round from the trailing edge and back, nor list two surfaces one after the other from the nose: list them in one of those orders');
   }
-  const first = raw.slice(0, split).reverse();
-  const second = raw.slice(split);
-  const sameNose = Math.hypot(first[first.length - 1][0] - second[0][0], first[first.length - 1][1] - second[0][1]) < 1e-9 * span;
-  return [...first, ...(sameNose ? second.slice(1) : second)];
+  if (startsAft || lastIndex < 2) return raw;
+  // A closed loop starting at the small-x end: a file drawn nose to the right starting at its trailing
+  // edge, or a loop starting at its nose. At a trailing edge the surfaces meet at a sharp angle (a
+  // blunt base at about a right angle); at a rounded nose neighbouring panels run on almost straight.
+  const a: Point = [raw[1][0] - first[0], raw[1][1] - first[1]];
+  const b: Point = [last[0] - first[0], last[1] - first[1]];
+  const cosAngle = (a[0] * b[0] + a[1] * b[1]) / (Math.hypot(...a) * Math.hypot(...b));
+  if (cosAngle > Math.cos((120 * Math.PI) / 180)) return raw;
+  // From the nose: start instead at the point farthest from it, the trailing edge.
+  const loop = raw.slice(0, lastIndex + 1);
+  let k = 0;
+  loop.forEach((p, i) => {
+    if (dist(p, first) > dist(loop[k], first)) k = i;
+  });
+  return [...loop.slice(k), ...loop.slice(0, k)];
 }
 
 function dropRepeats(points: Point[], tolerance: number): Point[] {
@@ -205,6 +237,58 @@ function dropRepeats(points: Point[], tolerance: number): Point[] {
     if (!q || Math.hypot(p[0] - q[0], p[1] - q[1]) > tolerance) out.push(p);
   }
   return out;
+}
+
+/**
+ * The trailing edge of a closed polygon listed from it: either a single vertex (a sharp edge) or the
+ * short base between the first and the last point (a blunt, "open" edge). The closing segment, last
+ * point → first, decides: running along the chord it is the last panel of a surface that ends in a
+ * sharp edge at whichever of its ends lies further aft, which is then put at both ends of the list;
+ * running across the chord it is the base of a blunt edge, and the list is left as it is.
+ */
+function closeContour(contour: Point[]): Point[] {
+  const first = contour[0];
+  const last = contour[contour.length - 1];
+  // The nose is the point farthest from the trailing-edge end of the list; the chord runs from it.
+  let nose = first;
+  let far = -1;
+  for (const p of contour) {
+    const d = Math.hypot(p[0] - first[0], p[1] - first[1]);
+    if (d > far) {
+      far = d;
+      nose = p;
+    }
+  }
+  if (!(far > 0)) return contour;
+  const ux = (first[0] - nose[0]) / far;
+  const uy = (first[1] - nose[1]) / far;
+  const dx = first[0] - last[0];
+  const dy = first[1] - last[1];
+  const along = Math.abs(dx * ux + dy * uy);
+  const across = Math.abs(dx * uy - dy * ux);
+  if (along <= across) return contour;
+  const aft = (p: Point) => (p[0] - nose[0]) * ux + (p[1] - nose[1]) * uy;
+  return aft(first) >= aft(last) ? [...contour, first] : [last, ...contour];
+}
+
+/** Below this mean camber (fraction of chord, negative) a section is reported as possibly upside down. */
+export const UPSIDE_DOWN_CAMBER = 0.002;
+
+/**
+ * Mean camber of a unit-chord contour (TE → upper → LE → lower → TE): ∫ ½(y_upper + y_lower) dx over
+ * the chord, from the two surfaces' trapezoid integrals, both taken with x increasing. Positive for a
+ * section that lifts at zero angle of attack (NACA 2412: 0.0133).
+ */
+function meanCamberArea(unit: Point[]): number {
+  const le = unit.reduce((best, p, i) => (p[0] < unit[best][0] ? i : best), 0);
+  const integral = (pts: Point[]) => {
+    let a = 0;
+    for (let i = 1; i < pts.length; i++) a += ((pts[i][0] - pts[i - 1][0]) * (pts[i][1] + pts[i - 1][1])) / 2;
+    return a;
+  };
+  const upper = unit.slice(0, le + 1).reverse();
+  const lower = unit.slice(le);
+  return (integral(upper) + integral(lower)) / 2;
 }
 
 export interface CoordinateCheck {
@@ -234,10 +318,14 @@ export function normaliseCoordinates(input: unknown): CoordinateCheck {
   let contour = dropRepeats(toContour(pts), 1e-9 * size);
   const head = contour[0];
   const tail = contour[contour.length - 1];
+  // A list of points is a closed polygon whether or not its last point repeats the first: the repeat is
+  // dropped, and where the trailing edge lies is decided from the polygon alone (closeContour), so a
+  // file reads the same with or without it.
   if (contour.length > 2 && Math.hypot(head[0] - tail[0], head[1] - tail[1]) <= 1e-9 * size) contour = contour.slice(0, -1);
   if (contour.length < MIN_AIRFOIL_POINTS) {
     throw new EngineeringInputError(field, `needs at least ${MIN_AIRFOIL_POINTS} distinct points (got ${contour.length})`);
   }
+  contour = closeContour(contour);
   const crossing = findSelfCrossing(contour);
   if (crossing) {
     throw new EngineeringInputError(field, `the outline crosses itself (segments after points ${crossing[0] + 1} and ${crossing[1] + 1})`);
@@ -263,7 +351,20 @@ export function normaliseCoordinates(input: unknown): CoordinateCheck {
   });
   const area = signedArea(unit);
   if (Math.abs(area) < 1e-4) throw new EngineeringInputError(field, 'the outline encloses (almost) no area: it is not an airfoil contour');
-  if (area < 0) unit = unit.reverse(); // clockwise file: make the first surface the upper one
+  // The file's own frame: a nose at larger x than the trailing edge means the outline was drawn or
+  // exported turned round.
+  if (ux < -0.5) warnings.push('the outline runs with its nose to the right (at larger x than the trailing edge): it was turned round to put the nose at x = 0; check the file is the section meant');
+  if (area < 0) {
+    // clockwise file: make the first surface the upper one
+    unit = unit.reverse();
+    warnings.push('the points run clockwise (lower surface first): read in the other direction, upper surface first');
+  }
+  const camber = meanCamberArea(unit);
+  if (camber < -UPSIDE_DOWN_CAMBER) {
+    warnings.push(
+      `the section's mean line lies below its chord (mean camber ${(camber * 100).toFixed(2)} % of chord): is the file upside down? It is used as given, lifting downward at positive angles; turn it over if it was not meant so`,
+    );
+  }
   if (le === 0 || le === contour.length - 1) {
     throw new EngineeringInputError(field, 'the nose of the outline is at one end of the list: the contour must start and end at the trailing edge');
   }

@@ -1,9 +1,9 @@
-import { couponAllowables, type CouponTest } from './coupons';
+import { couponAllowables, GAUGE_MATCH_TOLERANCE_IN, groupCouponAllowables, validateCoupons, type CouponTest } from './coupons';
 import { EngineeringInputError } from './errors';
 import { layoutRules } from './layout';
 import { findMaterial, findRivet, type RivetSpec, type SheetMaterial } from './materials';
 import { envelope, type EngineeringResult } from './result';
-import { requireInRange, requirePositive } from './validate';
+import { requireInRange, requireNonNegative, requirePositive } from './validate';
 
 /**
  * Allowable loads of one rivet in one flange: rivet single shear, sheet bearing by e/D, rivet tension and
@@ -18,7 +18,7 @@ export interface JointInput {
   /** defaults to the layout minimum (2D, 2.5D countersunk) */
   edgeDistanceIn?: number;
   coupons?: CouponTest[];
-  /** pull-through fallback without coupons, fraction of the joint's shear strength (default 8 %) */
+  /** pull-through fallback without coupons, fraction of the sheet's bearing strength at the hole (default 8 %) */
   pullThroughFallbackFraction?: number;
   materialData?: SheetMaterial[];
   rivetData?: RivetSpec[];
@@ -94,6 +94,49 @@ export function combinedMargin(tensionLb: number, shearLb: number, tensionAllowa
   return Number.isFinite(r) ? 1 / r - 1 : -1;
 }
 
+/**
+ * The pull-through allowable of a flange with no coupons of its own:
+ * - ultimate = fraction × the sheet's bearing strength at the hole, F_bru(e/D)·d·t: in proportion to the
+ *   gauge, so it falls with thinner sheet (the rivet's own shear strength, which does not, is no part
+ *   of it); limit = ultimate / 1.5;
+ * - never more than the supplier's coupons show for the same rivet in the same or a thicker gauge, of
+ *   any sheet material: a thinner flange does not hold more than a thicker one was shown to.
+ */
+export function pullThroughFallback(p: { fraction: number; bearingUltimateLb: number; rivetCode: string; gaugeIn: number; coupons: CouponTest[] }): {
+  limitLb: number;
+  ultimateLb: number;
+  cappedBy: { gaugeIn: number; material: string } | null;
+  rules: string[];
+  warnings: string[];
+} {
+  requireInRange(p.fraction, 'pullThroughFallbackFraction', 0.001, 0.5, 'the pull-through fallback fraction');
+  requireInRange(p.gaugeIn, 'gaugeIn', 0.005, 0.5, 'the gauge (in)');
+  requireNonNegative(p.bearingUltimateLb, 'bearingUltimateLb', 'the bearing strength');
+  let ultimateLb = p.fraction * p.bearingUltimateLb;
+  let limitLb = ultimateLb / 1.5;
+  const rules = [
+    `pull-through without coupons: ultimate ${(p.fraction * 100).toFixed(0)} % of the sheet's bearing strength at the hole (F_bru·d·t, in proportion to the gauge), limit = ultimate / 1.5`,
+    "pull-through without coupons: never above the coupons' allowables for the same rivet in the same or a thicker gauge (any sheet material)",
+  ];
+  const warnings: string[] = [];
+  const code = p.rivetCode.trim().toUpperCase();
+  const sameRivet = validateCoupons(p.coupons).filter((t) => t.rivetSpec.trim().toUpperCase() === code && t.gaugeIn >= p.gaugeIn - GAUGE_MATCH_TOLERANCE_IN);
+  let cappedBy: { gaugeIn: number; material: string } | null = null;
+  // Groups come sorted by material, then gauge: the thinnest binding one is named.
+  for (const g of groupCouponAllowables(sameRivet)) {
+    if (g.limitLb >= limitLb && g.ultimateLb >= ultimateLb) continue;
+    limitLb = Math.min(limitLb, g.limitLb);
+    ultimateLb = Math.min(ultimateLb, g.ultimateLb);
+    if (!cappedBy || g.gaugeIn < cappedBy.gaugeIn) cappedBy = { gaugeIn: g.gaugeIn, material: g.material };
+  }
+  if (cappedBy) {
+    warnings.push(
+      `${p.rivetCode} in ${p.gaugeIn} in: the pull-through fallback is held to what the coupons of the same rivet in ${cappedBy.gaugeIn} in ${cappedBy.material} or thicker show: limit ${limitLb.toFixed(1)} lb, ultimate ${ultimateLb.toFixed(1)} lb`,
+    );
+  }
+  return { limitLb, ultimateLb, cappedBy, rules, warnings };
+}
+
 export function jointAllowables(input: JointInput): JointAllowables {
   const material = findMaterial(input.material, input.materialData);
   const rivet = findRivet(input.rivetSpec, input.rivetData);
@@ -133,11 +176,13 @@ export function jointAllowables(input: JointInput): JointAllowables {
     warnings.push(...coupons.warnings);
   } else {
     basis = 'fallback';
-    pullThroughUltimateLb = fraction * shearUltimate;
-    pullThroughLimitLb = pullThroughUltimateLb / 1.5;
-    rules.push(`pull-through without coupons: ultimate ${(fraction * 100).toFixed(0)} % of the joint shear strength (lesser of rivet shear and bearing), limit = ultimate / 1.5`);
+    const fallback = pullThroughFallback({ fraction, bearingUltimateLb, rivetCode: rivet.code, gaugeIn, coupons: input.coupons ?? [] });
+    pullThroughUltimateLb = fallback.ultimateLb;
+    pullThroughLimitLb = fallback.limitLb;
+    rules.push(...fallback.rules);
     warnings.push(
-      `no coupon data for ${gaugeIn} in ${material.key} with ${rivet.code}: pull-through allowable is a conservative fraction (${(fraction * 100).toFixed(0)} %) of the joint's shear strength (lesser of rivet shear and flange bearing)`,
+      `no coupon data for ${gaugeIn} in ${material.key} with ${rivet.code}: pull-through allowable is a conservative fraction (${(fraction * 100).toFixed(0)} %) of the sheet's bearing strength at the hole (in proportion to the gauge)`,
+      ...fallback.warnings,
     );
   }
   if (rivet.kind === 'pulled') warnings.push(`${rivet.code}: ${rivet.source}`);

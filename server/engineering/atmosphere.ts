@@ -11,9 +11,25 @@ export const GRAVITY_FT_S2 = 32.174;
 /** Tropopause of the standard atmosphere; above it the temperature lapse no longer applies. */
 export const TROPOPAUSE_FT = 36089;
 
-export function densitySlugPerFt3(altitudeFt: number): number {
+/** Speed of sound at sea level, standard day (U.S. Standard Atmosphere 1976: 340.294 m/s). */
+export const SEA_LEVEL_SPEED_OF_SOUND_FT_S = 1116.45;
+
+/**
+ * Temperature ratio θ = T/T0 = 1 − h/145442 (the troposphere's lapse of 6.5 K/km, h in ft); the density
+ * ratio is θ^4.255876.
+ */
+export function temperatureRatio(altitudeFt: number): number {
   const h = requireInRange(altitudeFt, 'altitudeFt', -2000, TROPOPAUSE_FT, 'altitude (ft, troposphere)');
-  return SEA_LEVEL_DENSITY_SLUG_FT3 * (1 - h / 145442) ** 4.255876;
+  return 1 - h / 145442;
+}
+
+export function densitySlugPerFt3(altitudeFt: number): number {
+  return SEA_LEVEL_DENSITY_SLUG_FT3 * temperatureRatio(altitudeFt) ** 4.255876;
+}
+
+/** Speed of sound a = a0·√θ, ft/s (a ∝ √T). */
+export function speedOfSoundFtPerS(altitudeFt: number): number {
+  return SEA_LEVEL_SPEED_OF_SOUND_FT_S * Math.sqrt(temperatureRatio(altitudeFt));
 }
 
 /**

@@ -18,6 +18,8 @@ export interface Bound {
   max: number;
   unit: string;
   integer?: boolean;
+  /** the maximum itself is refused (a limit that must be stayed below, such as Mach 0.7) */
+  maxExclusive?: boolean;
 }
 
 export const STUDY_BOUNDS = {
@@ -70,6 +72,51 @@ export const STUDY_BOUNDS = {
 
 export type StudyBoundKey = keyof typeof STUDY_BOUNDS;
 
+/**
+ * The physical range of every number the whole-wing pieces take (planform, compressibility, flaps, skin
+ * panels, inter-rivet buckling). Keys are field names relative to each function's input, as its refusals
+ * name them ("planform.spanIn", "mach", "panel.thicknessIn"); a caller that nests the input (the wing
+ * study) places them with `fieldAt`. Kept apart from STUDY_BOUNDS, which is the rib study's input and
+ * is checked key by key against its contract.
+ */
+export const WING_BOUNDS = {
+  // Planform: from a small single-seater's wing to a large light twin's; chords as for the rib.
+  'planform.spanIn': { what: 'the wing span', min: 60, max: 1_200, unit: 'in' },
+  'planform.rootChordIn': { what: 'the root chord', min: 4, max: 300, unit: 'in' },
+  'planform.tipChordIn': { what: 'the tip chord', min: 4, max: 300, unit: 'in' },
+  'planform.chordIn': { what: 'the chord', min: 4, max: 300, unit: 'in' },
+  /** tip chord / root chord: tapered, not pointed (Schrenk's chord ratio grows without bound at a pointed tip), not inverse */
+  'planform.taperRatio': { what: 'the taper ratio (tip chord / root chord)', min: 0.1, max: 1, unit: '' },
+  /** η = 2y/b, from the root (0) to the tip (1) */
+  eta: { what: 'the span station η = 2y/b', min: 0, max: 1, unit: '' },
+
+  // Compressibility: subsonic and below the transonic range, where neither rule holds.
+  mach: { what: 'the Mach number', min: 0, max: 0.7, unit: '', maxExclusive: true },
+  /** incompressible pressure coefficient: stagnation is 1; inviscid suction peaks near stall reach −15 or so */
+  cp: { what: 'the incompressible pressure coefficient', min: -30, max: 1, unit: '' },
+  speedKeas: { what: 'the speed', min: 0, max: 500, unit: 'KEAS' },
+  altitudeFt: { what: 'the altitude', min: 0, max: 36_089, unit: 'ft' },
+
+  // Flaps (14 CFR 23.345).
+  'flaps.stallSpeedKeas': { what: 'the stall speed with flaps extended', min: 15, max: 200, unit: 'KEAS' },
+  'flaps.designSpeedKeas': { what: 'the flap design speed', min: 20, max: 400, unit: 'KEAS' },
+
+  // Skin panels and inter-rivet buckling: light-alloy to steel sheet.
+  'panel.elasticModulusPsi': { what: 'the elastic modulus', min: 5e6, max: 3.2e7, unit: 'psi' },
+  'panel.poissonRatio': { what: "Poisson's ratio", min: 0.2, max: 0.4, unit: '' },
+  'panel.thicknessIn': { what: 'the skin thickness', min: 0.008, max: 0.25, unit: 'in' },
+  /** the loaded panel's short side (rib or stringer spacing) */
+  'panel.widthIn': { what: 'the panel width', min: 0.5, max: 60, unit: 'in' },
+  'panel.appliedStressPsi': { what: 'the applied stress', min: 0, max: 200_000, unit: 'psi' },
+  'panel.compressiveYieldPsi': { what: 'the compressive yield strength', min: 5_000, max: 250_000, unit: 'psi' },
+  'panel.bucklingCoefficient': { what: 'the buckling coefficient', min: 0.4, max: 20, unit: '' },
+  'rivetLine.pitchIn': { what: 'the rivet pitch', min: 0.1, max: 12, unit: 'in' },
+  /** end fixity of the sheet between two rivets: 1 (countersunk) to 4 (flat head) */
+  'rivetLine.endFixity': { what: 'the end-fixity coefficient', min: 0.25, max: 4, unit: '' },
+} as const satisfies Record<string, Bound>;
+
+export type WingBoundKey = keyof typeof WING_BOUNDS;
+
 /** Wing aspect ratio S/c² from the kit's area and mean chord: a wing, not a strip or a plank. */
 export const ASPECT_RATIO_RANGE = { min: 2, max: 40 } as const;
 /** Wing loading W/S, psf: from a light ultralight-like kit to a heavy twin. */
@@ -104,8 +151,13 @@ export const MAX_ZONING_RUNS = 200;
 export function requireWithin(value: unknown, field: string, bound: Bound): number {
   const v = requireFinite(value, field);
   if (bound.integer && !Number.isInteger(v)) throw new EngineeringInputError(field, `${bound.what} must be a whole number (got ${v})`);
+  const unit = bound.unit ? ` ${bound.unit}` : '';
+  if (bound.maxExclusive) {
+    if (v < bound.min || v >= bound.max) throw new EngineeringInputError(field, `${bound.what} must be at least ${formatBound(bound.min)} and below ${formatBound(bound.max)}${unit} (got ${v})`);
+    return v;
+  }
   if (v < bound.min || v > bound.max) {
-    throw new EngineeringInputError(field, `${bound.what} must be between ${formatBound(bound.min)} and ${formatBound(bound.max)}${bound.unit ? ` ${bound.unit}` : ''} (got ${v})`);
+    throw new EngineeringInputError(field, `${bound.what} must be between ${formatBound(bound.min)} and ${formatBound(bound.max)}${unit} (got ${v})`);
   }
   return v;
 }
@@ -119,6 +171,11 @@ export function requireCount(list: unknown[], field: string, bound: Bound): void
 
 export function requireStudyBound(value: unknown, key: StudyBoundKey, field: string = key): number {
   return requireWithin(value, field, STUDY_BOUNDS[key]);
+}
+
+/** Refuses a value outside its whole-wing range (WING_BOUNDS), naming `field` (the key unless given). */
+export function requireWingBound(value: unknown, key: WingBoundKey, field: string = key): number {
+  return requireWithin(value, field, WING_BOUNDS[key]);
 }
 
 function formatBound(n: number): string {

@@ -10,14 +10,27 @@ export {
   MAX_ZONING_RUNS,
   STUDY_BOUNDS,
   STUDY_BUDGET,
+  WING_BOUNDS,
   WING_LOADING_RANGE_PSF,
+  requireWingBound,
   type Bound,
   type StudyBoundKey,
+  type WingBoundKey,
 } from './bounds';
+export { roundSignificant, roundStored, STORED_SIGNIFICANT_DIGITS, STORED_ZERO } from './rounding';
 export { estimateStudyWork, requireStudyBudget, type StudyWork } from './study-work';
 export { ENGINEERING_CAUTION, marginOfSafety, type EngineeringResult } from './result';
 export * from './units';
-export { densitySlugPerFt3, dynamicPressurePsf, dynamicPressurePsi, SEA_LEVEL_DENSITY_SLUG_FT3, GRAVITY_FT_S2 } from './atmosphere';
+export {
+  densitySlugPerFt3,
+  dynamicPressurePsf,
+  dynamicPressurePsi,
+  speedOfSoundFtPerS,
+  temperatureRatio,
+  SEA_LEVEL_DENSITY_SLUG_FT3,
+  SEA_LEVEL_SPEED_OF_SOUND_FT_S,
+  GRAVITY_FT_S2,
+} from './atmosphere';
 export {
   CATEGORIES,
   designConditions,
@@ -35,6 +48,82 @@ export {
   type KitInput,
 } from './design-conditions';
 export {
+  flapConditions,
+  flapDesignSpeedKeas,
+  FLAP_GUST_FPS,
+  FLAP_MANEUVER_FACTOR,
+  FLAP_SPEED_FACTORS,
+  type FlapConditionsResult,
+  type FlapInput,
+} from './flap-conditions';
+export {
+  envelopeConditions,
+  negativeEnvelopeCorners,
+  NEGATIVE_FACTOR_AT_DIVE,
+  type EnvelopeConditionsResult,
+  type EnvelopeCorner,
+  type NegativeCornersResult,
+} from './envelope-corners';
+export {
+  chordAt,
+  planformGeometry,
+  schrenkDistribution,
+  schrenkLiftRatio,
+  schrenkStation,
+  stationEta,
+  MAX_SCHRENK_STATIONS,
+  SCHRENK_ASSUMPTIONS,
+  SCHRENK_RULE,
+  type Planform,
+  type PlanformInput,
+  type SchrenkResult,
+  type SchrenkStation,
+} from './schrenk';
+export {
+  compressibilityBeta,
+  compressibleCp,
+  correctCpDistribution,
+  criticalPressureCoefficient,
+  karmanTsienCp,
+  machNumber,
+  prandtlGlauertCp,
+  requireMach,
+  trueAirspeedKnots,
+  vacuumPressureCoefficient,
+  COMPRESSIBILITY_RULES,
+  COMPRESSIBILITY_RULE_TEXT,
+  GAMMA_AIR,
+  MAX_CP_SAMPLES,
+  type CompressibilityRule,
+  type CorrectedDistribution,
+} from './compressibility';
+export {
+  johnsonElasticFor,
+  johnsonReduced,
+  panelBuckling,
+  plateBucklingStressPsi,
+  sheetBucklingProperties,
+  PANEL_EDGES,
+  PANEL_LOADINGS,
+  PLATE_BUCKLING_COEFFICIENTS,
+  type PanelBucklingInput,
+  type PanelBucklingResult,
+  type PanelEdges,
+  type PanelLoading,
+} from './plate-buckling';
+export {
+  endFixity,
+  interRivetBuckling,
+  interRivetElasticStressPsi,
+  interRivetPitchLimitIn,
+  rivetHeadOf,
+  END_FIXITY,
+  RIVET_HEADS,
+  type InterRivetInput,
+  type InterRivetResult,
+  type RivetHead,
+} from './inter-rivet-buckling';
+export {
   buildAirfoil,
   closeTrailingEdge,
   cosineSpacing,
@@ -44,6 +133,7 @@ export {
   nacaGeometry,
   nacaThickness,
   normaliseCoordinates,
+  UPSIDE_DOWN_CAMBER,
   parseNacaDesignation,
   surfacePoints,
   MIN_AIRFOIL_POINTS,
@@ -95,6 +185,7 @@ export {
   bearingStrengthPsi,
   combinedMargin,
   jointAllowables,
+  pullThroughFallback,
   rivetShearStrengthLb,
   rivetsPerInchOfWidth,
   rivetTensionStrengthLb,

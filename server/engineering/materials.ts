@@ -17,6 +17,11 @@ export interface SheetMaterial {
   fbruPsi: { e15: number; e20: number };
   fbryPsi: { e15: number; e20: number };
   densityLbPerIn3: number;
+  /** compressive yield strength, psi (buckling and crippling of compression skin) */
+  fcyPsi?: number;
+  /** elastic modulus in compression, psi */
+  compressiveModulusPsi?: number;
+  poissonRatio?: number;
   source: string;
 }
 
@@ -52,6 +57,9 @@ export const MATERIALS: SheetMaterial[] = [
     fbruPsi: { e15: 67000, e20: 88000 },
     fbryPsi: { e15: 50000, e20: 58000 },
     densityLbPerIn3: 0.098,
+    fcyPsi: 35000,
+    compressiveModulusPsi: 10.1e6,
+    poissonRatio: 0.33,
     source: 'MMPDS / MIL-HDBK-5 S-basis, values from memory: verify against the supplier\'s approved data',
   },
   {
@@ -63,6 +71,9 @@ export const MATERIALS: SheetMaterial[] = [
     fbruPsi: { e15: 104000, e20: 129000 },
     fbryPsi: { e15: 73000, e20: 88000 },
     densityLbPerIn3: 0.1,
+    fcyPsi: 39000,
+    compressiveModulusPsi: 10.7e6,
+    poissonRatio: 0.33,
     source: 'MMPDS / MIL-HDBK-5 A-basis, values from memory: verify against the supplier\'s approved data',
   },
 ];

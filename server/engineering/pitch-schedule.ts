@@ -191,7 +191,7 @@ export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine
     rivetData: input.rivetData,
   });
   const rules = [
-    'per-rivet load = largest pull per inch over the rivet\'s share of the line × its share (half the gap to each neighbour; the one gap at a line end)',
+    'per-rivet load = largest pull per inch over the rivet\'s share of the line × its share (half the gap to each neighbour; an end rivet\'s share runs on to the line\'s end)',
     'required pitch: limit load ≤ limit allowable and 1.5 × limit load ≤ ultimate allowable (14 CFR 23.303, 23.305)',
     `${layoutRuleText(rivet.countersunk)}; pitch ≤ ${input.maxPitchDiameters}D; rounded down to ${input.pitchIncrementIn} in (the 3D minimum itself is allowed)`,
     `at most ${input.maxZones} zones; each zone's pitch is the smallest any of its stations needs; a zone is added only if it saves a rivet`,
@@ -231,6 +231,46 @@ export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine
     return { pitch: minPitch, short: 1 / worst };
   });
 
+  // The end rivets carry more than a pitch: the first carries the pull from the line's start, the edge
+  // distance ahead of it, as well as half the gap behind it (the last, mirrored). Their share is
+  // edge + p/2, which is more than p wherever p < 2·edge; the stretch the first (last) gap spans is held
+  // to the largest pitch at which the end rivet carries that share.
+  const edge = layout.minEdgeIn;
+  const endNeeds = (['first', 'last'] as const).map((end) => {
+    const a0 = along[0];
+    const a1 = along[along.length - 1];
+    const endPasses = (g: number) => {
+      const p = grid[g];
+      const share = edge + p / 2;
+      const [lo, hi] = end === 'first' ? [a0, Math.min(a1, a0 + share)] : [Math.max(a0, a1 - share), a1];
+      return passes(share, tension.maxOver(lo, hi), shear.maxOver(lo, hi));
+    };
+    let lo = 0;
+    let hi = grid.length - 1;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (endPasses(mid)) hi = mid;
+      else lo = mid + 1;
+    }
+    return { end, pitch: grid[lo], passes: endPasses(lo) };
+  });
+  const twoEnds = lengthIn >= 2 * edge + minPitch - EPS;
+  if (twoEnds) {
+    const [first, last] = endNeeds;
+    const reach = (p: number) => edge + p + lineData.spacingIn;
+    needs.forEach((n, i) => {
+      if (along[i] <= along[0] + reach(first.pitch) && first.pitch < n.pitch) n.pitch = first.pitch;
+      if (along[i] >= along[along.length - 1] - reach(last.pitch) && last.pitch < n.pitch) n.pitch = last.pitch;
+    });
+    for (const e of endNeeds) {
+      if (!e.passes) {
+        reasons.push(
+          `the ${e.end} rivet carries the pull over the ${edge.toFixed(3)} in edge distance beyond it as well as half the gap to its neighbour: even at the ${minPitch.toFixed(3)} in (3D) minimum it is overloaded: ${input.gaugeIn} in with ${rivet.code} is insufficient`,
+        );
+      }
+    }
+  }
+
   const insufficient: InsufficientRange[] = [];
   needs.forEach((n, i) => {
     if (n.short === null) return;
@@ -262,7 +302,6 @@ export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine
   }
   const zones = groupIntoZones(coarse.runs, input.maxZones);
 
-  const edge = layout.minEdgeIn;
   const start = along[0] + edge;
   const end = along[along.length - 1] - edge;
   const placed = placeHoles(zones, start, end, minPitch);
@@ -274,11 +313,10 @@ export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine
   const holes: ScheduleHole[] = pos.map((h, k) => {
     const before = k > 0 ? h - pos[k - 1] : undefined;
     const after = k < pos.length - 1 ? pos[k + 1] - h : undefined;
-    const gapBefore = before ?? after ?? lengthIn;
-    const gapAfter = after ?? before ?? lengthIn;
-    const lo = pos.length === 1 ? along[0] : h - gapBefore / 2;
-    const hi = pos.length === 1 ? along[along.length - 1] : h + gapAfter / 2;
-    const tributaryIn = pos.length === 1 ? lengthIn : (gapBefore + gapAfter) / 2;
+    // The end rivets' shares run to the line's ends: what lies beyond them is theirs too.
+    const lo = before === undefined ? along[0] : h - before / 2;
+    const hi = after === undefined ? along[along.length - 1] : h + after / 2;
+    const tributaryIn = hi - lo;
     const t = tension.maxOver(lo, hi) * tributaryIn;
     const v = shear.maxOver(lo, hi) * tributaryIn;
     return {

@@ -13,6 +13,7 @@ import { lineStations, outlineAreaSqIn, ribOutline, validateLine, type FastenerL
 import { loadEnvelope, shearFlowLbPerIn, ULTIMATE_FACTOR } from './rivet-loads';
 import { tradeStudy, type RankBy, type TradeCandidate, type TradeRow } from './trade-study';
 import { radToDeg } from './units';
+import { roundStored } from './rounding';
 import { requireCount, requireStudyBound, STUDY_BOUNDS } from './bounds';
 import { estimateStudyWork, requireStudyBudget, type StudyWork } from './study-work';
 import { requireArray, requireOneOf, requirePositive } from './validate';
@@ -383,13 +384,15 @@ export function ribStudy(input: RibStudyInput): RibStudyResult {
 
   return {
     ...envelope(input, unique(rules), unique(warnings)),
-    design: { wingLoadingPsf: design.wingLoadingPsf, loadFactors: design.loadFactors, speeds: design.speeds, gust: design.gust },
-    conditions: conditions.map((c) => ({ ...c, cp: compactNumbers(c.cp) })),
-    airfoil: { name: geometry.name, panels, trailingEdgeGap: geometry.trailingEdgeGap },
+    // Stored numbers rounded to what they mean (rounding.ts; pressures and geometry to 0.0001 in their
+    // units), after every check above was made at full precision.
+    design: roundStored({ wingLoadingPsf: design.wingLoadingPsf, loadFactors: design.loadFactors, speeds: design.speeds, gust: design.gust }),
+    conditions: conditions.map(({ cp, ...c }) => ({ ...roundStored(c), cp: compactNumbers(cp) })),
+    airfoil: roundStored({ name: geometry.name, panels, trailingEdgeGap: geometry.trailingEdgeGap }),
     outline: { chordIn: rib.chordIn, points: compactNumbers(outline) },
     lines: compactNumbers(lines.map((d) => d.summary)),
     candidates: compactNumbers(candidates),
-    trade: trade.rows,
+    trade: roundStored(trade.rows),
     recommended: trade.recommended,
     work: { stations: work.stations, conditions: work.conditions, candidates: work.candidates, pitchGrid: work.pitchGrid, gridCells: work.gridCells, stationChecks: work.stationChecks, holes: work.holes },
   };

@@ -107,8 +107,8 @@ export function estimateHoles(zones: Zone[], start: number, end: number, minPitc
 /**
  * Hole positions from the first hole at the start edge distance to the last at the end edge distance,
  * stepping by the tightest zone pitch the step touches, never closer than the minimum pitch. A last gap
- * shorter than the minimum pitch is evened out with the one before it, or else left as a longer end
- * distance. Refuses (field "zones") a line that would take more than `maxHoles` holes.
+ * shorter than the minimum pitch is evened out with as few of the gaps before it as will do, or else left
+ * as a longer end distance. Refuses (field "zones") a line that would take more than `maxHoles` holes.
  */
 export function placeHoles(zones: Zone[], start: number, end: number, minPitch: number, maxHoles = MAX_LINE_HOLES): { positions: number[]; note: string | null } {
   if (end < start - EPS) return { positions: [], note: null };
@@ -132,16 +132,25 @@ export function placeHoles(zones: Zone[], start: number, end: number, minPitch: 
       continue;
     }
     const rest = end - h;
-    const prev = positions.length > 1 ? positions[positions.length - 2] : null;
-    const even = prev === null ? 0 : (end - prev) / 2;
     if (rest <= EPS) return { positions, note };
-    if (rest >= minPitch - EPS) positions.push(end);
-    else if (prev !== null && even >= minPitch - EPS && even <= tightest(prev, end) + EPS) {
-      positions[positions.length - 1] = prev + even;
+    if (rest >= minPitch - EPS) {
       positions.push(end);
-    } else {
-      note = `the last hole sits ${rest.toFixed(3)} in further from the line end than the edge distance, to keep the ${minPitch.toFixed(3)} in minimum pitch`;
+      return { positions, note };
     }
+    // A last gap shorter than the minimum pitch: the last m gaps and it are evened out over m + 1 gaps
+    // ending at `end`, with the fewest m that keeps them at the minimum pitch or more, and never more than
+    // any zone they touch allows. The last hole then sits at the edge distance, and the last rivet's
+    // share (the edge distance and half a gap) stays what the schedule allowed for. It adds a hole, and
+    // is done only while the holes stay within the estimate (which callers and contracts rely on).
+    for (let m = 1; m < positions.length && positions.length < estimate; m++) {
+      const from = positions[positions.length - 1 - m];
+      const gap = (end - from) / (m + 1);
+      if (gap < minPitch - EPS) continue;
+      if (gap > tightest(from, end) + EPS) break;
+      positions.splice(positions.length - m, m, ...Array.from({ length: m + 1 }, (_, i) => (i === m ? end : from + gap * (i + 1))));
+      return { positions, note };
+    }
+    note = `the last hole sits ${rest.toFixed(3)} in further from the line end than the edge distance, to keep the ${minPitch.toFixed(3)} in minimum pitch`;
     return { positions, note };
   }
   throw new EngineeringInputError('zones', `these zones place more than ${maxHoles.toLocaleString('en-US')} holes on one line`);

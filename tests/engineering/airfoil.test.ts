@@ -2,6 +2,9 @@ import {
   buildAirfoil,
   closeTrailingEdge,
   cosineSpacing,
+  degToRad,
+  liftCoefficientAt,
+  solvePanelMethod,
   nacaGeometry,
   normaliseCoordinates,
   parseNacaDesignation,
@@ -126,5 +129,76 @@ describe('uploaded coordinates', () => {
   it('refuse an outline with no area', () => {
     const flat = Array.from({ length: 12 }, (_, i): Point => [Math.abs(1 - i / 5.5), 0]);
     expect(refusal(() => normaliseCoordinates(flat)).field).toBe('airfoil.points');
+  });
+});
+
+describe('a closed contour (issue 9)', () => {
+  // A list of points is a closed polygon: a last point that repeats the first changes nothing.
+  const lift = (points: Point[]) => {
+    const a = buildAirfoil({ kind: 'coordinates', points }, 160);
+    return { cl: liftCoefficientAt(solvePanelMethod(a.points, a.leadingEdgeIndex), degToRad(5)), gap: a.trailingEdgeGap, warnings: a.warnings };
+  };
+  const sharp = nacaGeometry('2412', 60, true).points; // closed trailing edge: the last point repeats the first
+  const blunt = nacaGeometry('2412', 60).points; // open trailing edge, 0.25 % of chord
+
+  it('gives the same CL with and without the repeated closing point, and reads a sharp edge as closed', () => {
+    expect(sharp[sharp.length - 1][0]).toBe(sharp[0][0]);
+    expect(sharp[sharp.length - 1][1]).toBeCloseTo(sharp[0][1], 15);
+    const withRepeat = lift(sharp);
+    const without = lift(sharp.slice(0, -1));
+    expect(withRepeat.cl).toBe(without.cl);
+    expect(withRepeat.gap).toBe(0);
+    expect(without.gap).toBe(0);
+    expect(withRepeat.warnings).toEqual([]);
+  });
+
+  it('gives the closed section the CL of the same section panelled directly (no reshaping)', () => {
+    const direct = nacaGeometry('2412', 160, true);
+    const cl = liftCoefficientAt(solvePanelMethod(direct.points, direct.leadingEdgeIndex), degToRad(5));
+    expect(Math.abs(lift(sharp).cl - cl) / cl).toBeLessThan(1e-4);
+  });
+
+  it('reads a blunt trailing edge the same with its first point repeated at the end', () => {
+    const a = lift(blunt);
+    const b = lift([...blunt, blunt[0]]);
+    expect(b.cl).toBe(a.cl);
+    expect(b.gap).toBeCloseTo(0.00252, 5);
+  });
+
+  it('accepts a closed loop that starts at the nose, as the same section', () => {
+    const le = 30;
+    const fromNose = [...sharp.slice(le), ...sharp.slice(1, le + 1)];
+    expect(lift(fromNose).cl).toBeCloseTo(lift(sharp).cl, 12);
+  });
+});
+
+describe('reversed and upside-down outlines (issue 9)', () => {
+  const sharp = nacaGeometry('2412', 60, true).points;
+  const warningsOf = (points: Point[]) => buildAirfoil({ kind: 'coordinates', points }, 80).warnings.join(' ');
+
+  it('warns about points listed clockwise, and reads them upper surface first', () => {
+    expect(warningsOf([...sharp].reverse())).toMatch(/run clockwise/);
+    expect(warningsOf(sharp)).not.toMatch(/clockwise|upside down|nose to the right/);
+  });
+
+  it('warns about an upside-down file (mean line below the chord) and uses it as given', () => {
+    const flipped = sharp.map(([x, y]): Point => [x, -y]);
+    expect(warningsOf(flipped)).toMatch(/upside down/);
+    const { contour } = normaliseCoordinates(flipped);
+    expect(Math.min(...contour.slice(5, 25).map((p) => p[1]))).toBeGreaterThan(0); // upper surface first
+  });
+
+  it('warns about an outline drawn nose to the right, and about the mirror image it makes', () => {
+    const turned = sharp.map(([x, y]): Point => [2 - x, -y]); // turned round: the same section
+    expect(warningsOf(turned)).toMatch(/nose to the right/);
+    expect(warningsOf(turned)).not.toMatch(/upside down/);
+    const mirrored = sharp.map(([x, y]): Point => [2 - x, y]); // mirrored: upside down once turned round
+    expect(warningsOf(mirrored)).toMatch(/nose to the right/);
+    expect(warningsOf(mirrored)).toMatch(/upside down/);
+  });
+
+  it('does not call a symmetric section upside down', () => {
+    const sym = nacaGeometry('0012', 60, true).points.map(([x, y]): Point => [x, -y]);
+    expect(warningsOf(sym)).not.toMatch(/upside down/);
   });
 });

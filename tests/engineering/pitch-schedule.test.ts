@@ -194,3 +194,48 @@ describe('schedule settings', () => {
     expect(s.feasible).toBe(false);
   });
 });
+
+describe('the end rivets of a line (issue 9)', () => {
+  // Coupons fix the allowables at 10 lb limit and 15 lb ultimate (1.5 × 10: both criteria alike).
+  const coupons = [
+    { material: '6061-T6', gaugeIn: 0.032, rivetSpec: 'MS20470AD4', loadLb: 10, outcome: 'no_deformation' as const },
+    { material: '6061-T6', gaugeIn: 0.032, rivetSpec: 'MS20470AD4', loadLb: 15, outcome: 'slight_deformation' as const },
+  ];
+  const stations = line(6, () => 22);
+  const s = pitchSchedule({ ...base, stations, coupons, pitchIncrementIn: 0.01, maxZones: 3 });
+
+  it('give the first rivet its real share, the 0.25 in ahead of it as well as half the gap behind it: 9.9 lb', () => {
+    // By hand: 22 lb/in uniform; a rivet may carry 10 lb, so 10/22 = 0.4545 in of line. Inside the line
+    // that is a pitch of 0.45 in (on the 0.01 in increment). The first rivet sits at the 0.25 in (2D) edge
+    // distance and carries 0.25 + p/2: p ≤ 2·(0.4545 − 0.25) = 0.409 → 0.40 in, a share of
+    // 0.25 + 0.20 = 0.45 in and 22 × 0.45 = 9.9 lb (MS 10/9.9 − 1 = 0.0101). Taking its share as one
+    // gap, the old way, a 0.45 in first gap looked like 9.9 lb but carried 22 × 0.475 = 10.45 lb.
+    const [h0, h1] = s.holes;
+    expect(h0.alongIn).toBeCloseTo(0.25, 10);
+    expect(h1.alongIn - h0.alongIn).toBeCloseTo(0.4, 10);
+    expect(h0.tributaryIn).toBeCloseTo(0.45, 10);
+    expect(h0.appliedLimitLb).toBeCloseTo(9.9, 10);
+    expect(h0.msLimit).toBeCloseTo(10 / 9.9 - 1, 10);
+  });
+
+  it('hold the first and last gaps to what the end rivets carry, and open up to 0.45 in between', () => {
+    expect(s.feasible).toBe(true);
+    expect(s.zones.map((z) => z.pitchIn)).toEqual([0.4, 0.45, 0.4]);
+    const n = s.holes.length;
+    expect(s.holes[n - 1].alongIn).toBeCloseTo(6 - 0.25, 10);
+    expect(s.holes[n - 1].tributaryIn).toBeCloseTo(0.25 + (s.holes[n - 1].alongIn - s.holes[n - 2].alongIn) / 2, 10);
+    for (const h of s.holes) expect(h.msLimit!).toBeGreaterThanOrEqual(-1e-9);
+  });
+
+  it('make the shares add up to the whole line', () => {
+    expect(s.holes.reduce((a, h) => a + h.tributaryIn, 0)).toBeCloseTo(6, 10);
+  });
+
+  it('call the gauge insufficient when even the 3D minimum overloads the first rivet', () => {
+    // 25 lb/in: 0.4 in per rivet; the first carries at least 0.25 + 0.375/2 = 0.4375 in = 10.9 lb.
+    const over = pitchSchedule({ ...base, stations: line(6, () => 25), coupons, pitchIncrementIn: 0.01, maxZones: 3 });
+    expect(over.feasible).toBe(false);
+    expect(over.reasons.join(' ')).toMatch(/the first rivet carries the pull over the 0\.250 in edge distance/);
+    expect(over.holes[0].msLimit!).toBeLessThan(0);
+  });
+});
