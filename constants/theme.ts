@@ -24,13 +24,31 @@ export const colors = {
   caution: '#7A5300',
   cautionSoft: '#F3E6C4',
   ok: '#2D6A3E',
+  /**
+   * Warnings in words ("1 open finding"), and the flagged mark: 4.7:1 on the paper and 5.2:1 on the raised
+   * paper, so it passes as small text (the orange it replaces was 4.47:1).
+   */
+  warning: '#BD3D0A',
+  /**
+   * The keyboard focus ring (components/ui/focus-ring.ts). A lighter cobalt than the accent so that it
+   * reads against both ends of the sheet: 4.4:1 on the paper, 3.4:1 on the ink of a chosen chip (the
+   * accent is 2.3:1 there), 3.9:1 or more on every tinted background.
+   */
+  focus: '#3A66E0',
 } as const;
 
+/**
+ * Flagged and held are both "something is wrong here" and both warm, so under deuteranopia hue cannot
+ * tell them apart (the earlier orange and ochre were ΔE 2.6 apart there): held is a deep umber, 19 L*
+ * darker than flagged, which keeps them ΔE 29 apart under simulated deuteranopia, besides their shapes
+ * (triangle, square). Each mark is 3:1 or more on the paper (held: 9.5:1); where a mark sits on the
+ * ink of a chosen chip it is drawn on a paper disc (status-mark.tsx), since held is near the ink.
+ */
 export const statusColors: Record<HoleStatus, string> = {
   pending: '#6B655A',
   installed: '#2D6A3E',
-  flagged: '#C2410C',
-  held: '#9A6400',
+  flagged: colors.warning,
+  held: '#553600',
   reworked: '#6A3D9E',
   accepted: '#0D6C70',
 };

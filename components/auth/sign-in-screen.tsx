@@ -9,6 +9,7 @@ import { plainParse } from '@/components/forms/plain-errors';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { signInMessage } from '@/components/navigation/pending-link';
 import { Button } from '@/components/ui/button';
+import { focusNextHeading, takeHeadingFocus } from '@/components/ui/focus';
 import { Notice } from '@/components/ui/states';
 import { useAuthSignInMutation } from '@/hooks/queries/auth';
 import { useSession } from '@/hooks/use-session';
@@ -28,11 +29,14 @@ export function SignInScreen() {
 
   const submit = handleSubmit(async (values) => {
     setFormError(null);
+    // Asked before the request: the home screen may open before the answer is read here.
+    focusNextHeading();
     try {
       await signIn.mutateAsync(values);
       // The root guard swaps the sign-in screen for the app once the session is stored; the app's first
       // screen then opens the pending page, if one waits.
     } catch (e) {
+      takeHeadingFocus();
       setFormError(applyServerErrors(setError, e));
     }
   });
@@ -65,7 +69,8 @@ export function SignInScreen() {
         returnKeyType="go"
         onSubmitEditing={() => void submit()}
       />
-      {formError ? <Notice tone="error" testID="sign-in-error">{formError}</Notice> : null}
+      {/* Focused when it shows: a keyboard or screen-reader user hears why, and is back in the form. */}
+      {formError ? <Notice tone="error" testID="sign-in-error" focusOnShow>{formError}</Notice> : null}
       <Button
         label="Sign in"
         busyLabel="Signing in"

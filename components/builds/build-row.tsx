@@ -9,7 +9,8 @@ export function BuildRow({ b, onPress }: { b: BuildSummary; onPress: () => void 
     <Pressable
       testID={`build-${b.kitSerial}`}
       accessibilityRole="button"
-      accessibilityLabel={`Build ${b.kitSerial}, ${b.kitName}`}
+      // Everything the row shows in words, its warning included: a button's name is all that is read of it.
+      accessibilityLabel={`Build ${b.kitSerial}, ${b.kitName}, builder ${b.builders.map((x) => x.name).join(', ') || 'none'}, inspector ${b.inspectors.map((x) => x.name).join(', ') || 'none'}, ${b.travelerCount} parts, ${b.holesDone} of ${b.holesTotal} holes${b.openFindings ? `, ${b.openFindings} open finding${b.openFindings === 1 ? '' : 's'}` : ''}`}
       onPress={onPress}
       style={({ pressed }) => [styles.row, pressed && { backgroundColor: colors.accentSoft }]}
     >
@@ -21,10 +22,10 @@ export function BuildRow({ b, onPress }: { b: BuildSummary; onPress: () => void 
         <View style={styles.bar}><View style={[styles.fill, { width: `${frac * 100}%` }]} /></View>
         <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
           <Mono variant="small">{b.travelerCount} parts · {b.holesDone}/{b.holesTotal} holes</Mono>
-          {b.openFindings ? <Txt variant="small" bold style={{ color: statusColors.flagged }}>▲ {b.openFindings} open</Txt> : null}
+          {b.openFindings ? <Txt variant="small" bold tone="warning">▲ {b.openFindings} open</Txt> : null}
         </View>
       </View>
-      <Txt tone="accent" bold>›</Txt>
+      <Txt tone="accent" bold aria-hidden>›</Txt>
     </Pressable>
   );
 }

@@ -18,7 +18,11 @@ function DesignRow({ d, onPress }: { d: PartDesignSummary; onPress: () => void }
     <Pressable
       testID={`design-${d.partNumber}`}
       accessibilityRole="button"
-      accessibilityLabel={`${d.partNumber} ${d.name}`}
+      accessibilityLabel={[
+        `${d.partNumber} ${d.name}, ${partKindLabels[d.kind]}`,
+        d.latest ? `latest revision ${d.latest.letter} ${statusWords[d.latest.status]}` : null,
+        d.publishedLetter ? `builders get revision ${d.publishedLetter}` : 'not published',
+      ].filter(Boolean).join(', ')}
       onPress={onPress}
       style={({ pressed }) => [styles.row, pressed && { backgroundColor: colors.accentSoft }]}
     >
@@ -30,7 +34,7 @@ function DesignRow({ d, onPress }: { d: PartDesignSummary; onPress: () => void }
           {d.publishedLetter ? <> · builders get <Mono variant="small" bold>{d.publishedLetter}</Mono></> : ' · not published'}
         </Txt>
       </View>
-      <Txt tone="accent" bold>›</Txt>
+      <Txt tone="accent" bold aria-hidden>›</Txt>
     </Pressable>
   );
 }

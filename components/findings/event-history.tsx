@@ -50,7 +50,7 @@ export function EventHistory({ events, photos = [], onPhoto }: {
                     <Pressable
                       key={p.id}
                       onPress={() => onPhoto?.(p)}
-                      accessibilityRole="imagebutton"
+                      accessibilityRole="button"
                       accessibilityLabel="Photo of this step, open large"
                     >
                       <Image source={{ uri: p.thumbUrl }} style={styles.thumb} />

@@ -198,6 +198,7 @@ export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (acti
                 <Choice
                   columns
                   testIDPrefix="disposition"
+                  label={shaping === 'amend' ? 'New disposition' : 'Disposition'}
                   value={field.value}
                   onChange={field.onChange}
                   invalid={!!fieldState.error}
@@ -218,6 +219,7 @@ export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (acti
                 <Field label="How the repair is made" error={fieldState.error?.message} testID="repair-scheme-field">
                   <Choice
                     testIDPrefix="repair-scheme"
+                    label="How the repair is made"
                     value={field.value}
                     onChange={field.onChange}
                     invalid={!!fieldState.error}
@@ -240,6 +242,7 @@ export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (acti
                     <Field label="Next-size rivet" error={fieldState.error?.message} testID="repair-rivet-field">
                       <Choice
                         testIDPrefix="repair-rivet"
+                        label="Next-size rivet"
                         value={field.value}
                         onChange={field.onChange}
                         invalid={!!fieldState.error}

@@ -16,7 +16,7 @@ function Group({ title, photos, prefix, empty, onOpen }: {
               key={p.id}
               onPress={() => onOpen(i)}
               testID={`${prefix}-${i}`}
-              accessibilityRole="imagebutton"
+              accessibilityRole="button"
               accessibilityLabel={`${title}, photo ${i + 1}, open large`}
             >
               <Image source={{ uri: p.thumbUrl }} style={styles.thumb} />

@@ -1,5 +1,5 @@
 import { Image, Pressable, StyleSheet, View } from 'react-native';
-import { findingKindLabels, type FindingSummary } from '@/db/contracts';
+import { dispositionLabels, findingClosureLabels, findingKindLabels, findingStatusLabels, type FindingSummary } from '@/db/contracts';
 import { colors, hairline, space, touch } from '@/constants/theme';
 import { FindingStatusTag } from '@/components/ui/status-mark';
 import { Mono, Txt } from '@/components/ui/text';
@@ -9,13 +9,26 @@ export function shortDate(iso: string): string {
   return Number.isNaN(d.getTime()) ? iso : d.toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 }
 
+/** A finding row's name: what the row shows, its state first, since the name is all that is read of it. */
+export function findingRowLabel(f: FindingSummary, showPart = true): string {
+  const state = f.status === 'closed' && f.closure
+    ? `${findingStatusLabels[f.status]}, ${findingClosureLabels[f.closure]}`
+    : f.disposition ? `${findingStatusLabels[f.status]}, ${dispositionLabels[f.disposition]}` : findingStatusLabels[f.status];
+  return [
+    `Finding on ${f.holeIds.join(', ')}: ${findingKindLabels[f.kind]}`,
+    state,
+    showPart ? `part ${f.partNumber}, serial ${f.serial}` : null,
+    `raised by ${f.raisedByName}, ${shortDate(f.createdAt)}`,
+  ].filter(Boolean).join('; ');
+}
+
 /** One finding in a list: its status mark, the holes, what is wrong and who raised it. */
 export function FindingRow({ f, onPress, showPart = true }: { f: FindingSummary; onPress: () => void; showPart?: boolean }) {
   return (
     <Pressable
       testID={`finding-${f.id}`}
       accessibilityRole="button"
-      accessibilityLabel={`Finding on ${f.holeIds.join(', ')}: ${findingKindLabels[f.kind]}`}
+      accessibilityLabel={findingRowLabel(f, showPart)}
       onPress={onPress}
       style={({ pressed }) => [styles.row, pressed && { backgroundColor: colors.accentSoft }]}
     >

@@ -2,7 +2,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'expo-router';
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { Controller, useForm, type Resolver } from 'react-hook-form';
-import { Pressable, StyleSheet, View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 import type { z } from 'zod';
 import {
   findingInput, findingKindGroups, findingKindLabels, findingKinds, measureKeys, measureLabels, measuresOfKind,
@@ -18,7 +18,8 @@ import { Field } from '@/components/ui/field';
 import { Screen } from '@/components/ui/screen';
 import { Section } from '@/components/ui/sheet';
 import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
-import { HoleMark } from '@/components/ui/status-mark';
+import { HoleMark, holeStatusLabels } from '@/components/ui/status-mark';
+import { Toggle } from '@/components/ui/toggle';
 import { Label, Mono, Txt } from '@/components/ui/text';
 import { TwoPane } from '@/components/ui/two-pane';
 import { ApiError } from '@/hooks/api-client';
@@ -39,8 +40,8 @@ type Parsed = z.output<typeof findingInput>;
 export function FlagScreen({ travelerId, initialHoleIds }: { travelerId: string; initialHoleIds: string[] }) {
   const q = useTravelerQuery(travelerId);
   const back = `/travelers/${travelerId}` as const;
-  if (q.isPending) return <Screen title="Flag a hole" backTo={back}><LoadingState what="Loading the part" /></Screen>;
-  if (q.isError) return <Screen title="Flag a hole" backTo={back}><ErrorState error={q.error} onRetry={() => void q.refetch()} /></Screen>;
+  if (q.isPending) return <Screen title="Flag a hole" focusTitle backTo={back}><LoadingState what="Loading the part" /></Screen>;
+  if (q.isError) return <Screen title="Flag a hole" focusTitle backTo={back}><ErrorState error={q.error} onRetry={() => void q.refetch()} /></Screen>;
   return <FlagForm t={q.data} initialHoleIds={initialHoleIds.filter((id) => q.data.holes.some((h) => h.holeId === id))} />;
 }
 
@@ -86,18 +87,18 @@ function HolePicker({ holes, lines, value, onChange, invalid }: {
             {holes.filter((h) => h.line === l.code).sort((a, b) => a.seq - b.seq).map((h) => {
               const on = value.includes(h.holeId);
               return (
-                <Pressable
+                <Toggle
                   key={h.holeId}
+                  kind="checkbox"
+                  checked={on}
                   testID={`pick-hole-${h.holeId}`}
-                  accessibilityRole="checkbox"
-                  aria-checked={on}
-                  accessibilityLabel={`Hole ${h.holeId}`}
+                  accessibilityLabel={`Hole ${h.holeId}, ${holeStatusLabels[h.status]}`}
                   onPress={() => toggle(h.holeId)}
                   style={[styles.hole, on && styles.holeOn, invalid && !value.length && { borderColor: colors.error }]}
                 >
-                  <HoleMark status={h.status} size={16} />
+                  <HoleMark status={h.status} size={16} decorative onInk={on} />
                   <Mono bold={on} tone={on ? 'inverse' : 'ink'}>{h.holeId}</Mono>
-                </Pressable>
+                </Toggle>
               );
             })}
           </View>
@@ -302,6 +303,7 @@ function FlagForm({ t, initialHoleIds }: { t: TravelerDetail; initialHoleIds: st
                     <Label accessibilityRole="header">{g.label}</Label>
                     <Choice
                       testIDPrefix="finding-kind"
+                      label={`Kind: ${g.label}`}
                       value={field.value ?? null}
                       onChange={(v) => { field.onChange(v); field.onBlur(); }}
                       invalid={!!fieldState.error}
@@ -355,6 +357,7 @@ function FlagForm({ t, initialHoleIds }: { t: TravelerDetail; initialHoleIds: st
   return (
     <Screen
       title="Flag a hole"
+      focusTitle
       subtitle={`${t.partNumber} ${t.partName} · rev ${t.letter} · ${t.serial}`}
       backTo={`/travelers/${t.id}`}
       full={wide}

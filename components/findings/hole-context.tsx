@@ -48,7 +48,7 @@ function HoleLine({ h, drillDiameterIn }: { h: HoleInContext; drillDiameterIn: n
   return (
     <View style={styles.hole} testID={`context-hole-${h.holeId}`}>
       <View style={styles.holeHead}>
-        {isHoleStatus(h.status) ? <HoleMark status={h.status} size={20} /> : null}
+        {isHoleStatus(h.status) ? <HoleMark status={h.status} size={20} decorative /> : null}
         <Mono bold variant="heading">{h.holeId}</Mono>
         <Txt variant="small" tone="soft">
           line <Mono variant="small" bold>{h.line}</Mono> · station <Mono variant="small" bold>{u.station(h.stationIn)}</Mono>

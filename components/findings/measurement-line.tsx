@@ -29,6 +29,7 @@ export function MeasurementJudgement({ measure, value, basis, showValue = false 
     <View
       style={[styles.box, has && !j.pass && styles.fail]}
       testID={`measure-judgement-${measure}`}
+      role={has ? 'group' : undefined}
       accessibilityLabel={has ? `${measureLabels[measure]} ${u.length(value)}: ${j.pass ? 'within the limit' : 'outside the limit'} ${j.limit}` : undefined}
     >
       <View style={styles.row}>

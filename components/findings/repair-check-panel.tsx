@@ -110,6 +110,8 @@ function MarginCell({ value, testID }: { value: number | null; testID: string })
     <View
       style={[styles.msCell, negative && styles.msNegative]}
       testID={testID}
+      // Named as a group: a margin read as "negative margin −0.12", not as a bare number.
+      role="group"
       accessibilityLabel={value === null ? 'not checked, no applied load' : `${negative ? 'negative margin ' : 'margin '}${formatMargin(value)}`}
     >
       <Mono bold={negative} tone={negative ? 'error' : value === null ? 'faint' : 'ink'} align="right">{formatMargin(value)}</Mono>

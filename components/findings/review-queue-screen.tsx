@@ -12,7 +12,7 @@ import { FindingStatusTag } from '@/components/ui/status-mark';
 import { Table, type Column } from '@/components/ui/table';
 import { Mono, Txt } from '@/components/ui/text';
 import { useFindingsQuery } from '@/hooks/queries/findings';
-import { FindingRow, shortDate } from './finding-row';
+import { FindingRow, findingRowLabel, shortDate } from './finding-row';
 import { buildsIn, filterFindings, nextSort, sortFindings, type ReviewFilters, type ReviewSort, type ReviewSortKey, type StatusFilter } from './review-filter';
 
 const statusOptions: { value: StatusFilter; label: string }[] = [
@@ -118,7 +118,7 @@ export function ReviewQueueScreen({
               onSort={(key) => setSort((s) => nextSort(s, key))}
               onRowPress={(f) => router.push(`/findings/${f.id}`)}
               rowTestID={(f) => `review-row-${f.id}`}
-              rowLabel={(f) => `${f.partNumber} ${f.serial}, holes ${f.holeIds.join(', ')}, ${findingKindLabels[f.kind]}, ${findingStatusLabels[f.status]}`}
+              rowLabel={(f) => `${findingRowLabel(f)}; build ${f.kitSerial}${f.photoCount ? `; ${f.photoCount} photo${f.photoCount === 1 ? '' : 's'}` : ''}`}
               header={header}
               empty={
                 <EmptyState

@@ -8,7 +8,7 @@ export function VerdictMark({ pass, size = 20 }: { pass: boolean; size?: number 
   const k = s * 0.28;
   const c = s / 2;
   return (
-    <View style={{ width: s, height: s }} accessibilityLabel={pass ? 'meets (tick in a circle)' : 'fails (cross in a square)'}>
+    <View style={{ width: s, height: s }} role="img" aria-label={pass ? 'meets (tick in a circle)' : 'fails (cross in a square)'}>
       <Svg width={s} height={s} viewBox={`0 0 ${s} ${s}`}>
         {pass ? (
           <>

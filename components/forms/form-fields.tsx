@@ -121,6 +121,7 @@ export function FormChoiceField<T extends FieldValues, V extends string>({ contr
             onChange={(v) => { field.onChange(v); field.onBlur(); }}
             testIDPrefix={testID}
             invalid={!!fieldState.error}
+            label={label}
           />
         </Field>
       )}

@@ -1,7 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect, useMemo, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
-import { Pressable, StyleSheet, View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 import type { z } from 'zod';
 import { INVITATION_TTL_HOURS, inviteInput, roleLabels, roles, type OrganizationSummary, type SessionUser } from '@/db/contracts';
 import { colors, radius, space, touch } from '@/constants/theme';
@@ -14,6 +14,7 @@ import { Field } from '@/components/ui/field';
 import { KeyValue, Section } from '@/components/ui/sheet';
 import { Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
+import { Toggle } from '@/components/ui/toggle';
 import { usePeopleInviteMutation } from '@/hooks/queries/people';
 import { organizationsFor } from './people-view';
 
@@ -113,17 +114,17 @@ export function InviteForm({ me, organizations }: { me: SessionUser; organizatio
           name="lead"
           render={({ field, fieldState }) => (
             <Field label="Lead engineer" error={fieldState.error?.message}>
-              <Pressable
+              <Toggle
+                kind="checkbox"
+                checked={!!field.value}
                 testID="invite-lead"
-                accessibilityRole="checkbox"
-                aria-checked={!!field.value}
                 accessibilityLabel="Lead engineer: may invite and manage the engineers of their organisation"
                 onPress={() => field.onChange(!field.value)}
                 style={({ pressed }) => [styles.check, pressed && { opacity: 0.75 }]}
               >
                 <View style={[styles.box, field.value && styles.boxOn]}>{field.value ? <Txt tone="inverse" bold>✓</Txt> : null}</View>
                 <Txt style={{ flex: 1 }}>May invite and manage the engineers of their organisation</Txt>
-              </Pressable>
+              </Toggle>
             </Field>
           )}
         />

@@ -16,7 +16,9 @@ function StudyRow({ s, onPress }: { s: StudySummary; onPress: () => void }) {
     <Pressable
       testID={`study-row-${s.id}`}
       accessibilityRole="button"
-      accessibilityLabel={`${s.name}, ${s.kitName}, revision ${s.revision}`}
+      accessibilityLabel={`${s.name}, ${s.kitName}, revision ${s.revision}, ${whenText(s.updatedAt)}, ${s.recommended
+        ? `recommended ${u.length(s.recommended.gaugeIn)} with ${s.recommended.rivet}`
+        : 'no gauge and rivet pair carries the loads'}`}
       onPress={onPress}
       style={({ pressed }) => [styles.row, pressed && { backgroundColor: colors.accentSoft }]}
     >
@@ -31,7 +33,7 @@ function StudyRow({ s, onPress }: { s: StudySummary; onPress: () => void }) {
             : <Txt variant="small" tone="error">No gauge and rivet pair carries the loads</Txt>}
         </Txt>
       </View>
-      <Txt tone="accent" bold>›</Txt>
+      <Txt tone="accent" bold aria-hidden>›</Txt>
     </Pressable>
   );
 }

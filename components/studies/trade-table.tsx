@@ -24,7 +24,7 @@ export function TradeTable({ rows, recommended, chosen, onChoose }: {
     {
       key: 'gauge', title: `Gauge, ${units.label('length')}`, sortKey: 'gauge', flex: 0.9, render: (r) => (
         <View style={styles.gauge}>
-          {sameCandidate(r, chosen) ? <Txt bold tone="accent" testID={`${tradeRowTestId(r)}-chosen`} accessibilityLabel="shown">▶</Txt> : null}
+          {sameCandidate(r, chosen) ? <Txt bold tone="accent" testID={`${tradeRowTestId(r)}-chosen`} role="img" aria-label="shown">▶</Txt> : null}
           <Mono bold tone={sameCandidate(r, chosen) ? 'accent' : 'ink'}>{units.lengthNumber(r.gaugeIn)}</Mono>
         </View>
       ),

@@ -1,17 +1,18 @@
-import { ScrollView, StyleSheet, View } from 'react-native';
-import { colors, hairline, space } from '@/constants/theme';
+import { StyleSheet, View } from 'react-native';
+import { colors, space } from '@/constants/theme';
+import { GridTable } from '@/components/ui/grid-table';
 import { Notice } from '@/components/ui/states';
-import { Label, Mono, Txt } from '@/components/ui/text';
+import { Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
 import { forceNumber, marginText, pitchNumber } from './study-numbers';
 import type { StudyCandidate } from './study-result';
 
-const W = { span: 110, pitch: 60, n: 60, worst: 100, load: 62, ms: 64 };
+const W = { span: 120, pitch: 64, n: 60, worst: 120, load: 72, ms: 72 };
 
 function Ms({ value, testID }: { value: number | null; testID: string }) {
   const bad = value !== null && value < 0;
   return (
-    <View style={[styles.cell, { width: W.ms }, bad && styles.bad]} testID={testID}>
+    <View style={[styles.ms, bad && styles.bad]} testID={testID}>
       <Mono variant="small" bold={bad} tone={bad ? 'error' : 'ink'}>{bad ? '✕' : ''}{marginText(value)}</Mono>
     </View>
   );
@@ -38,36 +39,37 @@ export function ZoneTable({ candidate }: { candidate: StudyCandidate }) {
             <Mono variant="small">{u.length(l.layout.edgeDistanceIn)}</Mono> · pitch <Mono variant="small">{u.lengthNumber(l.layout.minPitchIn)}</Mono>–<Mono variant="small">{u.length(l.layout.maxPitchIn)}</Mono>
             {' '}· allowables <Mono variant="small">{u.force(l.allowables.tensionLimitLb)}</Mono> limit, <Mono variant="small">{u.force(l.allowables.tensionUltimateLb)}</Mono> ultimate ({l.allowables.tensionBasis === 'coupons' ? 'from coupons' : 'fallback'})
           </Txt>
-          <ScrollView horizontal showsHorizontalScrollIndicator>
-            <View style={styles.table}>
-              <View style={[styles.row, styles.head]}>
-                <Label style={[styles.cell, { width: W.span }]}>From – to, {lu}</Label>
-                <Label style={[styles.cell, { width: W.pitch }]}>Pitch</Label>
-                <Label style={[styles.cell, { width: W.n }]}>Holes</Label>
-                <Label style={[styles.cell, { width: W.worst }]}>Worst rivet</Label>
-                <Label style={[styles.cell, { width: W.load }]}>Limit, {fu}</Label>
-                <Label style={[styles.cell, { width: W.load }]}>Ult., {fu}</Label>
-                <Label style={[styles.cell, { width: W.load }]}>Allow. limit</Label>
-                <Label style={[styles.cell, { width: W.load }]}>Allow. ult.</Label>
-                <Label style={[styles.cell, { width: W.ms }]}>MS limit</Label>
-                <Label style={[styles.cell, { width: W.ms }]}>MS ult.</Label>
-              </View>
-              {l.zones.map((z, k) => (
-                <View key={k} style={styles.row} testID={`zone-row-${li}-${k}`}>
-                  <Mono variant="small" style={[styles.cell, { width: W.span }]}>{u.station(z.fromIn)}–{u.station(z.toIn)}</Mono>
-                  <Mono variant="small" bold style={[styles.cell, { width: W.pitch }]}>{pitchNumber(z.pitchIn, u.system)}</Mono>
-                  <Mono variant="small" style={[styles.cell, { width: W.n }]}>{z.count}</Mono>
-                  <Mono variant="small" style={[styles.cell, { width: W.worst }]}>{z.worstHoleId ?? '–'} @ {u.station(z.worstStationIn)}</Mono>
-                  <Mono variant="small" style={[styles.cell, { width: W.load }]}>{forceNumber(z.appliedLimitLb, u.system)}</Mono>
-                  <Mono variant="small" style={[styles.cell, { width: W.load }]}>{forceNumber(z.appliedUltimateLb, u.system)}</Mono>
-                  <Mono variant="small" style={[styles.cell, { width: W.load }]}>{forceNumber(z.limitAllowableLb, u.system)}</Mono>
-                  <Mono variant="small" style={[styles.cell, { width: W.load }]}>{forceNumber(z.ultimateAllowableLb, u.system)}</Mono>
-                  <Ms value={z.msLimit} testID={`zone-ms-limit-${li}-${k}`} />
-                  <Ms value={z.msUltimate} testID={`zone-ms-ultimate-${li}-${k}`} />
-                </View>
-              ))}
-            </View>
-          </ScrollView>
+          <GridTable
+            label={`Zones of ${l.line}`}
+            columns={[
+              { key: 'span', title: `From – to, ${lu}`, width: W.span },
+              { key: 'pitch', title: 'Pitch', width: W.pitch, align: 'right' },
+              { key: 'n', title: 'Holes', width: W.n, align: 'right' },
+              { key: 'worst', title: 'Worst rivet', width: W.worst },
+              { key: 'limit', title: `Limit, ${fu}`, width: W.load, align: 'right' },
+              { key: 'ult', title: `Ult., ${fu}`, width: W.load, align: 'right' },
+              { key: 'allowLimit', title: 'Allow. limit', width: W.load, align: 'right' },
+              { key: 'allowUlt', title: 'Allow. ult.', width: W.load, align: 'right' },
+              { key: 'msLimit', title: 'MS limit', width: W.ms, align: 'right' },
+              { key: 'msUlt', title: 'MS ult.', width: W.ms, align: 'right' },
+            ]}
+            rows={l.zones.map((z, k) => ({
+              key: String(k),
+              testID: `zone-row-${li}-${k}`,
+              cells: {
+                span: <Mono variant="small">{u.station(z.fromIn)}–{u.station(z.toIn)}</Mono>,
+                pitch: <Mono variant="small" bold>{pitchNumber(z.pitchIn, u.system)}</Mono>,
+                n: <Mono variant="small">{z.count}</Mono>,
+                worst: <Mono variant="small">{z.worstHoleId ?? '–'} @ {u.station(z.worstStationIn)}</Mono>,
+                limit: <Mono variant="small">{forceNumber(z.appliedLimitLb, u.system)}</Mono>,
+                ult: <Mono variant="small">{forceNumber(z.appliedUltimateLb, u.system)}</Mono>,
+                allowLimit: <Mono variant="small">{forceNumber(z.limitAllowableLb, u.system)}</Mono>,
+                allowUlt: <Mono variant="small">{forceNumber(z.ultimateAllowableLb, u.system)}</Mono>,
+                msLimit: <Ms value={z.msLimit} testID={`zone-ms-limit-${li}-${k}`} />,
+                msUlt: <Ms value={z.msUltimate} testID={`zone-ms-ultimate-${li}-${k}`} />,
+              },
+            }))}
+          />
           {l.insufficient?.length ? (
             <Txt variant="small" tone="error">
               Too loaded for the closest pitch (3D):{' '}
@@ -87,9 +89,6 @@ export function ZoneTable({ candidate }: { candidate: StudyCandidate }) {
 }
 
 const styles = StyleSheet.create({
-  table: { borderTopWidth: hairline, borderColor: colors.ink },
-  row: { flexDirection: 'row', alignItems: 'center', borderBottomWidth: hairline, borderColor: colors.rule, minHeight: 40 },
-  head: { borderColor: colors.ink },
-  cell: { paddingHorizontal: space.xs, paddingVertical: space.xs },
+  ms: { paddingHorizontal: 2 },
   bad: { backgroundColor: colors.errorSoft },
 });

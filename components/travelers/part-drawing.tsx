@@ -1,15 +1,27 @@
 import { useMemo, useState } from 'react';
 import { Platform, ScrollView, StyleSheet, View, type LayoutChangeEvent } from 'react-native';
 import Svg, { Circle, G, Line, Polygon, Polyline, Text as SvgText } from 'react-native-svg';
-import type { Hole, TravelerDetail } from '@/db/contracts';
+import { holeStatuses, type Hole, type HoleStatus, type TravelerDetail } from '@/db/contracts';
 import { colors, fonts, space, statusColors } from '@/constants/theme';
 import { Choice } from '@/components/ui/choice';
 import { holeShapes, holeStatusLabels, MarkGlyph } from '@/components/ui/status-mark';
+import { Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
 import { linePath, makeProjection, outlineBounds, placeHoles, smallestPitch, type Bounds } from './part-geometry';
 
 type Zoom = 'fit' | 'closer' | 'closest';
 const zoomFactor: Record<Zoom, number> = { fit: 1, closer: 2.5, closest: 6 };
+
+/** A mark is never drawn smaller than this across (px): below it a triangle and a square look alike. */
+const MARK_MIN = 12;
+/** The smallest tap target on the drawing (px, WCAG 2.5.8); closer holes are picked in the holes list. */
+const TARGET_MIN = 24;
+
+/**
+ * Where marks overlap (a whole part on a phone), the ones that ask for attention are drawn last, on
+ * top: a flagged or held hole is never hidden under its pending neighbours.
+ */
+const drawOrder: Record<HoleStatus, number> = { pending: 0, installed: 1, accepted: 2, reworked: 3, held: 4, flagged: 5 };
 
 /** testID for SVG shapes: react-native-svg passes unknown props through to the DOM on the web. */
 function svgTestId(id: string): object {
@@ -52,44 +64,69 @@ export function PartDrawing({ detail, runIds, focusId, onHolePress }: Props) {
   const scale = fit * (zoom === 'fit' ? 1 : zoomFactor[zoom] * shallowBoost);
   const proj = makeProjection(bounds, scale, pad);
   const pitchPx = smallestPitch(detail.lines) * scale;
-  const r = Math.max(3, Math.min(10, pitchPx * 0.36));
+  const r = Math.max(MARK_MIN / 2, Math.min(10, pitchPx * 0.36));
   // Each hole's tap target reaches halfway to its nearest neighbour, so targets never overlap.
-  const hitRadius = useMemo(() => {
+  const { hitRadius, closest } = useMemo(() => {
     const byLine = new Map<string, typeof placed>();
     for (const h of placed) byLine.set(h.line, [...(byLine.get(h.line) ?? []), h]);
     const out = new Map<string, number>();
+    let nearest = Infinity;
     for (const hs of byLine.values()) {
       const sorted = [...hs].sort((a, b) => a.seq - b.seq);
       sorted.forEach((h, i) => {
         const d = (o?: { x: number; y: number }) => (o ? Math.hypot(o.x - h.x, o.y - h.y) * scale : Infinity);
         const near = Math.min(d(sorted[i - 1]), d(sorted[i + 1]));
-        out.set(h.holeId, Math.max(2, Math.min(24, near / 2)));
+        nearest = Math.min(nearest, near);
+        out.set(h.holeId, Math.min(TARGET_MIN, near / 2));
       });
     }
-    return out;
+    return { hitRadius: out, closest: nearest };
   }, [placed, scale]);
+  // Holes are picked on the drawing only at a zoom where every target is 24 px or more; closer than
+  // that (a whole rib on a phone) a tap could not say which hole was meant, and the holes list below
+  // ticks and flags the same holes with large chips.
+  const pickable = !!onHolePress && width > 0 && closest >= TARGET_MIN;
+  const ordered = useMemo(() => [...placed].sort((a, b) => drawOrder[a.status] - drawOrder[b.status]), [placed]);
+  const summary = useMemo(() => {
+    const n: Partial<Record<HoleStatus, number>> = {};
+    for (const h of detail.holes) n[h.status] = (n[h.status] ?? 0) + 1;
+    return holeStatuses.filter((st) => n[st]).map((st) => `${n[st]} ${holeStatusLabels[st].toLowerCase()}`).join(', ');
+  }, [detail.holes]);
+  const svgW = Math.max(width, Math.ceil(proj.width));
+  const scrolls = svgW > width + 1;
   const svgH = proj.height + 34;
 
   const gridStep = scale * 1 >= 10 ? 1 : scale * 5 >= 10 ? 5 : 10;
   const rulerStep = scale * 5 >= 40 ? 5 : scale * 10 >= 40 ? 10 : 20;
 
-  const onLayout = (e: LayoutChangeEvent) => setWidth(Math.round(e.nativeEvent.layout.width));
+  // The frame's inside: its outer width less its two borders (a drawing 2 px too wide made the whole
+  // part scroll by 2 px, a scroll region a keyboard could not reach).
+  const onLayout = (e: LayoutChangeEvent) => setWidth(Math.floor(e.nativeEvent.layout.width) - 2 * FRAME_BORDER);
 
   return (
     <View style={{ gap: space.sm }}>
       <Choice
         testIDPrefix="zoom"
+        label="Zoom of the drawing"
         value={zoom}
         onChange={setZoom}
         options={[{ value: 'fit', label: 'Whole part' }, { value: 'closer', label: 'Closer' }, { value: 'closest', label: 'Closest' }]}
       />
       <View onLayout={onLayout} style={styles.frame} testID="part-drawing">
         {width > 0 ? (
-          <ScrollView horizontal showsHorizontalScrollIndicator contentContainerStyle={{ minWidth: width }}>
+          <ScrollView
+            horizontal
+            showsHorizontalScrollIndicator
+            contentContainerStyle={{ minWidth: width }}
+            // Zoomed in, the drawing scrolls sideways: a keyboard can scroll it only if it takes focus.
+            {...(scrolls ? { focusable: true, role: 'region', 'aria-label': 'Drawing, scrolls sideways' } : {})}
+          >
             <Svg
-              width={Math.max(width, proj.width)}
+              width={svgW}
               height={svgH}
-              accessibilityLabel={`Drawing of the part with ${detail.holes.length} holes`}
+              // One picture with its facts in words; each hole is in the holes list, so the marks are not read one by one.
+              role="img"
+              accessibilityLabel={`Drawing of the part with ${detail.holes.length} holes: ${summary}`}
             >
               {/* Drafting grid, one line per inch (or every 5 or 10 when zoomed out). */}
               <G opacity={0.9}>
@@ -129,24 +166,23 @@ export function PartDrawing({ detail, runIds, focusId, onHolePress }: Props) {
                   </G>
                 );
               })}
-              {placed.map((h) => {
+              {ordered.map((h) => {
                 const cx = proj.x(h.x);
                 const cy = proj.y(h.y);
                 const inRun = runIds?.has(h.holeId);
                 const focused = focusId === h.holeId;
                 return (
-                  <G key={h.holeId}>
+                  <G key={h.holeId} aria-hidden>
                     {inRun ? <Circle cx={cx} cy={cy} r={r + 4} fill={colors.accentSoft} stroke={colors.accent} strokeWidth={1} /> : null}
                     <MarkGlyph shape={holeShapes[h.status]} color={statusColors[h.status]} cx={cx} cy={cy} r={r} />
                     {focused ? <Circle cx={cx} cy={cy} r={r + 6} fill="none" stroke={colors.accent} strokeWidth={2.5} /> : null}
-                    {onHolePress ? (
+                    {pickable ? (
                       <Circle
                         cx={cx}
                         cy={cy}
-                        r={hitRadius.get(h.holeId) ?? r}
+                        r={hitRadius.get(h.holeId) ?? TARGET_MIN / 2}
                         fill="transparent"
-                        onPress={() => onHolePress(h)}
-                        accessibilityLabel={`${h.holeId}, ${holeStatusLabels[h.status]}`}
+                        onPress={() => onHolePress?.(h)}
                         {...svgTestId(`drawing-hole-${h.holeId}`)}
                       />
                     ) : null}
@@ -175,10 +211,15 @@ export function PartDrawing({ detail, runIds, focusId, onHolePress }: Props) {
           <View style={{ height: 140 }} />
         )}
       </View>
+      {onHolePress && width > 0 && !pickable ? (
+        <Txt variant="small" tone="soft" testID="drawing-pick-hint">Zoom closer to pick a hole on the drawing, or use the holes list.</Txt>
+      ) : null}
     </View>
   );
 }
 
+const FRAME_BORDER = 1;
+
 const styles = StyleSheet.create({
-  frame: { borderWidth: 1, borderColor: colors.ink, backgroundColor: colors.paper, overflow: 'hidden' },
+  frame: { borderWidth: FRAME_BORDER, borderColor: colors.ink, backgroundColor: colors.paper, overflow: 'hidden' },
 });

@@ -1,11 +1,12 @@
-import { Pressable, StyleSheet, View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 import { colors, hairline, space, touch } from '@/constants/theme';
 import { Mono, Txt } from '@/components/ui/text';
+import { Toggle } from '@/components/ui/toggle';
 import type { TravelerStep } from '@/hooks/queries/travelers';
 
 function Box({ on }: { on: boolean }) {
   return (
-    <View style={[styles.box, on && { backgroundColor: colors.ink }]}>
+    <View style={[styles.box, on && { backgroundColor: colors.ink }]} aria-hidden>
       {on ? <Txt bold tone="inverse" style={{ lineHeight: 20 }}>✓</Txt> : null}
     </View>
   );
@@ -19,13 +20,12 @@ export function StepsList({ steps, canToggle, onToggle }: { steps: TravelerStep[
       {[...steps].sort((a, b) => a.seq - b.seq).map((s) => {
         const done = !!s.doneAt;
         return (
-          <Pressable
+          <Toggle
             key={s.id}
+            kind="checkbox"
+            checked={done}
             testID={`step-${s.seq}`}
-            accessibilityRole="checkbox"
-            aria-checked={done}
-            aria-disabled={!canToggle}
-            accessibilityLabel={`Step ${s.seq}: ${s.text}`}
+            accessibilityLabel={`Step ${s.seq}: ${s.text}${done && s.doneByName ? `, done by ${s.doneByName}` : ''}`}
             disabled={!canToggle}
             onPress={() => onToggle(s)}
             style={({ pressed }) => [styles.row, pressed && { opacity: 0.7 }]}
@@ -39,7 +39,7 @@ export function StepsList({ steps, canToggle, onToggle }: { steps: TravelerStep[
                 </Txt>
               ) : null}
             </View>
-          </Pressable>
+          </Toggle>
         );
       })}
     </View>

@@ -12,6 +12,22 @@ export function liveFirst<T extends Pick<TravelerSummary, 'replaced'>>(rows: rea
  * A traveler in a list: part, revision, serial and short code, how far along it is (holes done, and
  * holes waiting for the inspector apart), and whether it was replaced.
  */
+/**
+ * The card's name for a screen reader: everything the card shows in words, warnings included ("1 open
+ * finding", a newer revision), since a button's name is all that is read of it.
+ */
+export function travelerCardLabel(t: TravelerSummary): string {
+  return [
+    `${t.partNumber} ${t.partName}, revision ${t.letter}, serial ${t.serial}, code ${t.shortCode}, build ${t.kitSerial}`,
+    t.replaced ? `replaced (${dispositionLabels[t.replaced.reason].toLowerCase()})` : null,
+    `${t.holesDone} of ${t.holesTotal} holes done`,
+    t.holesAwaitingInspector ? `${t.holesAwaitingInspector} awaiting the inspector` : null,
+    t.openFindings ? `${t.openFindings} open finding${t.openFindings === 1 ? '' : 's'}` : null,
+    t.newerRevision ? `revision ${t.newerRevision} is out` : null,
+    t.signedOff ? 'signed off' : null,
+  ].filter(Boolean).join(', ');
+}
+
 export function TravelerCard({ t, onPress }: { t: TravelerSummary; onPress: () => void }) {
   const frac = t.holesTotal ? t.holesDone / t.holesTotal : 0;
   const waitFrac = t.holesTotal ? Math.min(1 - frac, t.holesAwaitingInspector / t.holesTotal) : 0;
@@ -19,7 +35,7 @@ export function TravelerCard({ t, onPress }: { t: TravelerSummary; onPress: () =
     <Pressable
       testID={`traveler-${t.shortCode}`}
       accessibilityRole="button"
-      accessibilityLabel={`${t.partNumber} ${t.partName}, revision ${t.letter}, ${t.replaced ? 'replaced, ' : ''}${t.holesDone} of ${t.holesTotal} holes done`}
+      accessibilityLabel={travelerCardLabel(t)}
       onPress={onPress}
       style={({ pressed }) => [styles.row, t.replaced && styles.replaced, pressed && { backgroundColor: colors.accentSoft }]}
     >
@@ -40,12 +56,12 @@ export function TravelerCard({ t, onPress }: { t: TravelerSummary; onPress: () =
           ) : null}
           <Mono variant="small">{t.holesDone}/{t.holesTotal} holes done</Mono>
           {t.holesAwaitingInspector ? <Mono variant="small" tone="soft">{t.holesAwaitingInspector} awaiting the inspector</Mono> : null}
-          {t.openFindings ? <Txt variant="small" bold style={{ color: statusColors.flagged }}>▲ {t.openFindings} open finding{t.openFindings === 1 ? '' : 's'}</Txt> : null}
+          {t.openFindings ? <Txt variant="small" bold tone="warning">▲ {t.openFindings} open finding{t.openFindings === 1 ? '' : 's'}</Txt> : null}
           {t.newerRevision ? <Txt variant="small" bold tone="caution">Rev {t.newerRevision} is out</Txt> : null}
           {t.signedOff ? <Txt variant="small" bold style={{ color: statusColors.accepted }}>Signed off</Txt> : null}
         </View>
       </View>
-      <Txt tone="accent" bold>›</Txt>
+      <Txt tone="accent" bold aria-hidden>›</Txt>
     </Pressable>
   );
 }

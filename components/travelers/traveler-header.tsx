@@ -1,4 +1,4 @@
-import { StyleSheet, View } from 'react-native';
+import { Platform, StyleSheet, View, type ViewStyle } from 'react-native';
 import { partKindLabels, type TravelerDetail } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
 import { Caution } from '@/components/ui/caution';
@@ -23,7 +23,7 @@ export function TravelerHeader({ t }: { t: TravelerDetail }) {
       <View style={styles.grid}>
         <Cell label="Part"><Mono bold testID="part-number">{t.partNumber}</Mono><Txt variant="small">{t.partName}</Txt></Cell>
         <Cell label="Revision"><Mono bold variant="title" testID="revision-letter">{t.letter}</Mono></Cell>
-        <Cell label="Serial"><Mono testID="traveler-serial">{t.serial}</Mono><Mono variant="small" tone="soft">{t.shortCode}</Mono></Cell>
+        <Cell label="Serial"><Mono wrap testID="traveler-serial">{t.serial}</Mono><Mono variant="small" tone="soft">{t.shortCode}</Mono></Cell>
         <Cell label="Material"><Txt>{t.material}</Txt><Txt variant="small" tone="soft">{partKindLabels[t.kind]}</Txt></Cell>
         <Cell label="Gauge" testID="gauge"><Mono bold>{u.length(t.gaugeIn)}</Mono></Cell>
         <Cell label="Rivet" testID="rivet-spec"><Mono bold>{t.rivetSpec}</Mono></Cell>
@@ -46,6 +46,12 @@ export function TravelerHeader({ t }: { t: TravelerDetail }) {
   );
 }
 
+/**
+ * A cell is never narrower than its longest value (a serial, a callout): values do not break, so a
+ * cell that cannot fit one takes a row of its own instead of letting it run into the next cell.
+ */
+const fitValues = (Platform.OS === 'web' ? { minWidth: 'min-content' } : {}) as ViewStyle;
+
 const styles = StyleSheet.create({
   grid: { flexDirection: 'row', flexWrap: 'wrap', borderTopWidth: hairline, borderLeftWidth: hairline, borderColor: colors.ink },
   cell: {
@@ -57,5 +63,6 @@ const styles = StyleSheet.create({
     borderBottomWidth: hairline,
     borderColor: colors.ink,
     backgroundColor: colors.paperRaised,
+    ...fitValues,
   },
 });

@@ -111,7 +111,8 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
       ) : null}
       <TravelerHeader t={t} />
       {t.signedOff ? (
-        <Notice tone="ok" testID="signed-off">
+        // Focused when it appears: the sign-off button it replaces had focus.
+        <Notice tone="ok" testID="signed-off" focusOnShow={signOff.isSuccess}>
           Signed off{t.signedOffByName ? ` by ${t.signedOffByName}` : ''}{t.signedOffAt ? ` on ${new Date(t.signedOffAt).toLocaleString()}` : ''}.
         </Notice>
       ) : null}
@@ -121,7 +122,7 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
         {focus ? (
           <Sheet testID="hole-focus">
             <View style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm }}>
-              <HoleMark status={focus.status} size={24} />
+              <HoleMark status={focus.status} size={24} decorative />
               <Mono bold variant="heading">{focus.holeId}</Mono>
               <Txt>{holeStatusLabels[focus.status]}: {holeStatusHelp[focus.status]}</Txt>
             </View>
@@ -153,7 +154,8 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
   const right = (
     <>
       {sentFindingId ? (
-        <Notice tone="ok" testID="finding-sent">
+        // Focused on arrival from the flag screen: the answer to what was just done, with where to go next.
+        <Notice tone="ok" testID="finding-sent" focusOnShow>
           <Txt>Finding sent. Whoever acts on it next has been told by e-mail.</Txt>
           <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
             <Button label="See the finding" variant="quiet" compact onPress={() => { clearSent(); router.push(`/findings/${sentFindingId}`); }} testID="open-sent-finding" />

@@ -1,6 +1,10 @@
+import { forwardRef } from 'react';
 import { ActivityIndicator, Pressable, StyleSheet, View, type PressableProps, type StyleProp, type ViewStyle } from 'react-native';
 import { colors, fonts, radius, space, touch, type as typeScale } from '@/constants/theme';
+import { installFocusRing } from './focus-ring';
 import { Txt } from './text';
+
+installFocusRing();
 
 type Variant = 'primary' | 'secondary' | 'quiet' | 'danger';
 
@@ -13,20 +17,22 @@ type Props = Omit<PressableProps, 'children' | 'style'> & {
   compact?: boolean;
   icon?: React.ReactNode;
   style?: StyleProp<ViewStyle>;
+  /** A button that stays pressed in (a mode that is on): `aria-pressed`, as a button takes no `aria-selected`. */
   selected?: boolean;
 };
 
-export function Button({ label, variant = 'primary', busy, busyLabel, disabled, compact, icon, style, selected, accessibilityLabel, ...rest }: Props) {
+export const Button = forwardRef<View, Props>(function Button({ label, variant = 'primary', busy, busyLabel, disabled, compact, icon, style, selected, accessibilityLabel, ...rest }, ref) {
   const off = disabled || busy;
   const filled = variant === 'primary' || variant === 'danger' || selected;
   const bg = variant === 'danger' ? colors.error : colors.accent;
   return (
     <Pressable
+      ref={ref}
       accessibilityRole="button"
       accessibilityLabel={accessibilityLabel ?? label}
       aria-disabled={!!off}
       aria-busy={!!busy}
-      aria-selected={selected || undefined}
+      aria-pressed={selected}
       disabled={off}
       hitSlop={4}
       {...rest}
@@ -52,7 +58,7 @@ export function Button({ label, variant = 'primary', busy, busyLabel, disabled, 
       </View>
     </Pressable>
   );
-}
+});
 
 const styles = StyleSheet.create({
   base: {

@@ -1,7 +1,10 @@
 import { forwardRef } from 'react';
 import { StyleSheet, TextInput, View, type TextInputProps } from 'react-native';
 import { colors, fonts, radius, space, touch, type as typeScale } from '@/constants/theme';
+import { installFocusRing } from './focus-ring';
 import { Txt } from './text';
+
+installFocusRing();
 
 type FieldProps = {
   label: string;

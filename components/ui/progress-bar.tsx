@@ -6,6 +6,10 @@ import { Mono, Txt } from './text';
  * Done over total, drawn as a scale bar with tick marks every tenth. `awaiting` (holes waiting for the
  * inspector) is a second, hatched segment after the done one, counted apart in words: a hole waiting
  * for a check is not done, but it is not untouched either.
+ *
+ * Only the bar itself is the progressbar (named, with its value): a progressbar's children are
+ * presentational, so with the role on the whole block "8 / 55 holes done" was hidden from screen
+ * readers. The words stay outside it, read as text.
  */
 export function ProgressBar({ done, total, awaiting, label = 'holes done', awaitingLabel = 'awaiting the inspector', testID = 'progress' }: {
   done: number; total: number; awaiting?: number; label?: string; awaitingLabel?: string; testID?: string;
@@ -14,21 +18,22 @@ export function ProgressBar({ done, total, awaiting, label = 'holes done', await
   const waitFrac = total > 0 && awaiting ? Math.min(1 - frac, awaiting / total) : 0;
   const pct = Math.round(frac * 100);
   return (
-    <View
-      testID={testID}
-      accessibilityRole="progressbar"
-      accessibilityValue={{
-        min: 0, max: total, now: done,
-        text: `${done} of ${total} ${label}${awaiting ? `, ${awaiting} ${awaitingLabel}` : ''}`,
-      }}
-      style={{ gap: space.xs }}
-    >
+    <View testID={testID} style={{ gap: space.xs }}>
       <View style={styles.row}>
         <Mono bold testID={`${testID}-count`}>{done} / {total}</Mono>
         <Txt variant="small" tone="soft">{label}</Txt>
         <Mono variant="small" tone="soft" style={{ marginLeft: 'auto' }}>{pct}%</Mono>
       </View>
-      <View style={styles.track}>
+      <View
+        style={styles.track}
+        role="progressbar"
+        aria-label={label.charAt(0).toUpperCase() + label.slice(1)}
+        aria-valuemin={0}
+        aria-valuemax={total}
+        aria-valuenow={done}
+        aria-valuetext={`${done} of ${total} ${label}${awaiting ? `, ${awaiting} ${awaitingLabel}` : ''}`}
+        testID={`${testID}-bar`}
+      >
         <View style={[styles.fill, { width: `${frac * 100}%` }]} />
         {waitFrac > 0 ? (
           <View style={[styles.wait, { left: `${frac * 100}%`, width: `${waitFrac * 100}%` }]}>
@@ -42,7 +47,7 @@ export function ProgressBar({ done, total, awaiting, label = 'holes done', await
       </View>
       {awaiting !== undefined ? (
         <View style={styles.row} testID={`${testID}-awaiting`}>
-          <View style={styles.key}><View style={[styles.hatch, { left: 3 }]} /></View>
+          <View style={styles.key} aria-hidden><View style={[styles.hatch, { left: 3 }]} /></View>
           <Mono bold>{awaiting}</Mono>
           <Txt variant="small" tone="soft">{awaiting === 1 ? 'hole' : 'holes'} {awaitingLabel}</Txt>
         </View>

@@ -1,10 +1,12 @@
 import { useRouter, type Href } from 'expo-router';
 import { TabIcon } from '@/components/navigation/tab-icon';
-import { Pressable, ScrollView, StyleSheet, View, type ScrollViewProps } from 'react-native';
+import { useRef, useState } from 'react';
+import { Pressable, ScrollView, StyleSheet, useWindowDimensions, View, type ScrollViewProps } from 'react-native';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import { colors, hairline, space, touch } from '@/constants/theme';
 import { useSession } from '@/hooks/use-session';
 import { Button } from './button';
+import { keepScrollReachable, takeHeadingFocus, useFocusOnMount } from './focus';
 import { Txt } from './text';
 import { UnitsSwitch } from './units-switch';
 
@@ -18,14 +20,29 @@ type HeaderProps = {
   right?: React.ReactNode;
   /** The link to the person's own account page; off on that page itself. */
   accountLink?: boolean;
+  /** Focus the title when the screen opens (a screen opened to do one thing, e.g. flag a hole). */
+  focusTitle?: boolean;
 };
 
+/**
+ * A window this short (a phone at 200 % text, a phone on its side) cannot spare a fixed header: the
+ * header and tab bar left 175 of 422 px for the part. Below it the header scrolls away with the page.
+ */
+const SHORT_WINDOW = 560;
+
 /** The title block of a sheet: title, what it is, and the controls that apply to the whole screen. */
-export function ScreenHeader({ title, subtitle, backTo, account, right, accountLink = true }: HeaderProps) {
+export function ScreenHeader({ title, subtitle, backTo, account, right, accountLink = true, focusTitle }: HeaderProps) {
   const router = useRouter();
   const insets = useSafeAreaInsets();
   const { signOut, status, user } = useSession();
   const signedIn = status === 'signed-in';
+  // Where the work continues: the title of a screen opened for one task, or of the first screen after
+  // signing in (asked for by the sign-in form); taken once, when the screen opens.
+  const titleRef = useRef<React.ComponentRef<typeof Txt>>(null);
+  // In a short window the header scrolls away with the page, so it can give its words all the lines they need.
+  const lines = useWindowDimensions().height < SHORT_WINDOW ? undefined : 2;
+  const [focusOnOpen] = useState(() => !!focusTitle || takeHeadingFocus());
+  useFocusOnMount(titleRef, focusOnOpen);
   return (
     <View style={[styles.header, { paddingTop: insets.top + space.sm }]}>
       <View style={styles.headerRow}>
@@ -41,8 +58,8 @@ export function ScreenHeader({ title, subtitle, backTo, account, right, accountL
           />
         ) : null}
         <View style={{ flex: 1, minWidth: 160 }}>
-          <Txt variant="title" accessibilityRole="header" numberOfLines={2} testID="screen-title">{title}</Txt>
-          {subtitle ? <Txt variant="small" tone="soft" numberOfLines={2}>{subtitle}</Txt> : null}
+          <Txt ref={titleRef} variant="title" accessibilityRole="header" aria-level={1} numberOfLines={lines} testID="screen-title">{title}</Txt>
+          {subtitle ? <Txt variant="small" tone="soft" numberOfLines={lines}>{subtitle}</Txt> : null}
         </View>
         <View style={styles.right}>
           {right}
@@ -88,18 +105,27 @@ type ScreenProps = HeaderProps & {
 };
 
 export function Screen({ children, scroll = true, contentStyle, testID, full, ...header }: ScreenProps) {
+  const { height } = useWindowDimensions();
+  // Chosen once, when the screen opens: a phone's keyboard shortens the window too, and moving the
+  // header then would remount it under the person typing.
+  const [short] = useState(() => height < SHORT_WINDOW);
+  const headerScrolls = scroll && short;
+  const scrollRef = useRef<ScrollView>(null);
   const body = (
     <View style={[styles.body, !full && styles.narrow]}>{children}</View>
   );
   return (
     <View style={styles.page} testID={testID}>
-      <ScreenHeader {...header} />
+      {headerScrolls ? null : <ScreenHeader {...header} />}
       {scroll ? (
         <ScrollView
+          ref={scrollRef}
           style={{ flex: 1 }}
           contentContainerStyle={[{ paddingBottom: space.xxl * 2 }, contentStyle]}
           keyboardShouldPersistTaps="handled"
+          onContentSizeChange={() => keepScrollReachable(scrollRef.current, header.title)}
         >
+          {headerScrolls ? <ScreenHeader {...header} /> : null}
           {body}
         </ScrollView>
       ) : (
@@ -119,7 +145,9 @@ const styles = StyleSheet.create({
     backgroundColor: colors.paper,
   },
   headerRow: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap', minHeight: touch },
-  right: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap' },
+  // May shrink and wrap: on a narrow window (200 % text) the units switch and the account link go onto
+  // lines of their own instead of running off the edge.
+  right: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap', flexShrink: 1, maxWidth: '100%' },
   account: { minHeight: touch, minWidth: touch, paddingHorizontal: space.sm, flexDirection: 'row', alignItems: 'center', justifyContent: 'center', gap: space.xs },
   body: { flex: 1, padding: space.lg, gap: space.xl, width: '100%', alignSelf: 'center' },
   narrow: { maxWidth: 760 },

@@ -1,7 +1,9 @@
+import { useRef } from 'react';
 import { ActivityIndicator, StyleSheet, View } from 'react-native';
 import { colors, hairline, space } from '@/constants/theme';
 import { ApiError, errorMessage } from '@/hooks/api-client';
 import { Button } from './button';
+import { useFocusOnMount } from './focus';
 import { Txt } from './text';
 
 export function LoadingState({ what = 'Loading' }: { what?: string }) {
@@ -34,12 +36,20 @@ export function EmptyState({ title, body, action }: { title: string; body?: stri
   );
 }
 
-/** A one-line message inside a form or a section (not a whole screen). */
-export function Notice({ tone = 'info', children, testID }: { tone?: 'info' | 'error' | 'ok' | 'caution'; children: React.ReactNode; testID?: string }) {
+/**
+ * A one-line message inside a form or a section (not a whole screen). `focusOnShow` moves focus to it
+ * when it appears: the answer to what the person just did (a failed sign-in), where they read on from.
+ */
+export function Notice({ tone = 'info', children, testID, focusOnShow }: {
+  tone?: 'info' | 'error' | 'ok' | 'caution'; children: React.ReactNode; testID?: string; focusOnShow?: boolean;
+}) {
   const c = tone === 'error' ? colors.error : tone === 'ok' ? colors.ok : tone === 'caution' ? colors.caution : colors.accent;
   const bg = tone === 'error' ? colors.errorSoft : tone === 'caution' ? colors.cautionSoft : colors.paperRaised;
+  const ref = useRef<View>(null);
+  useFocusOnMount(ref, !!focusOnShow);
   return (
     <View
+      ref={ref}
       testID={testID}
       accessibilityRole={tone === 'error' ? 'alert' : undefined}
       accessibilityLiveRegion="polite"

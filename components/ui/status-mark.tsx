@@ -80,30 +80,58 @@ export function MarkGlyph({ shape, color, cx, cy, r, strokeWidth }: {
   }
 }
 
-/** A hole status mark on its own, e.g. in a list or the legend. */
-export function HoleMark({ status, size = 20 }: { status: HoleStatus; size?: number }) {
+/** What each shape is called, so that the mark can be told in words too. */
+const shapeWords: Record<MarkShape, string> = {
+  'open-circle': 'open circle', dot: 'dot', triangle: 'triangle', square: 'square', diamond: 'diamond',
+  'ringed-check': 'ringed tick', hourglass: 'hourglass',
+};
+
+/**
+ * The accessibility of a mark: an image named by its state and shape, or (`decorative`) hidden, where
+ * the words beside it already say the state (a legend, a chip's own name, a tag) and it would only be
+ * read twice.
+ */
+function markA11y(label: string, decorative?: boolean): object {
+  return decorative ? { 'aria-hidden': true } : { role: 'img', 'aria-label': label };
+}
+
+/**
+ * A hole status mark on its own, e.g. in a list or the legend. `onInk` draws it on a paper disc, for a
+ * chosen (ink) chip: held's umber is close to the ink.
+ */
+export function HoleMark({ status, size = 20, decorative, onInk }: { status: HoleStatus; size?: number; decorative?: boolean; onInk?: boolean }) {
   const shape = holeShapes[status];
   return (
     <View
       testID={`mark-${status}`}
-      accessibilityLabel={`${holeStatusLabels[status]} (${shape.replace('-', ' ')})`}
+      {...markA11y(`${holeStatusLabels[status]} (${shapeWords[shape]})`, decorative)}
       style={{ width: size, height: size }}
     >
       <Svg width={size} height={size} viewBox={`0 0 ${size} ${size}`}>
-        <MarkGlyph shape={shape} color={statusColors[status]} cx={size / 2} cy={size / 2} r={size / 2 - 1} />
+        {onInk ? <Circle cx={size / 2} cy={size / 2} r={size / 2} fill={colors.paperRaised} /> : null}
+        <MarkGlyph shape={shape} color={statusColors[status]} cx={size / 2} cy={size / 2} r={onInk ? size / 2 - 2.5 : size / 2 - 1} />
       </Svg>
     </View>
   );
 }
 
+/**
+ * Every hole status with its mark and, given `counts`, how many holes are in it: a list, each item
+ * read as "Flagged, 1" (the mark itself is hidden, as its words are right beside it).
+ */
 export function HoleStatusLegend({ counts }: { counts?: Partial<Record<HoleStatus, number>> }) {
   return (
-    <View style={styles.legend} testID="hole-legend">
+    <View style={styles.legend} testID="hole-legend" role="list" aria-label="Hole status key">
       {holeStatuses.map((s) => (
-        <View key={s} style={styles.legendItem}>
-          <HoleMark status={s} size={18} />
-          <Txt variant="small">{holeStatusLabels[s]}</Txt>
-          {counts ? <Txt variant="small" tone="faint" style={{ fontVariant: ['tabular-nums'] }}>{counts[s] ?? 0}</Txt> : null}
+        <View
+          key={s}
+          style={styles.legendItem}
+          role="listitem"
+          aria-label={`${holeStatusLabels[s]} (${shapeWords[holeShapes[s]]})${counts ? `: ${counts[s] ?? 0}` : ''}`}
+        >
+          <HoleMark status={s} size={18} decorative />
+          <Txt variant="small" aria-hidden>{holeStatusLabels[s]}</Txt>
+          {counts ? <Txt variant="small" tone="soft" style={{ fontVariant: ['tabular-nums'] }} aria-hidden>{counts[s] ?? 0}</Txt> : null}
         </View>
       ))}
     </View>
@@ -123,18 +151,13 @@ export const findingShapes: Record<FindingStatus, MarkShape> = {
   closed: 'ringed-check',
 };
 
-const shapeWords: Record<MarkShape, string> = {
-  'open-circle': 'open circle', dot: 'dot', triangle: 'triangle', square: 'square', diamond: 'diamond',
-  'ringed-check': 'ringed tick', hourglass: 'hourglass',
-};
-
-/** A finding state's mark on its own (lists, legends). */
-export function FindingMark({ status, size = 14 }: { status: FindingStatus; size?: number }) {
+/** A finding state's mark on its own (lists, legends); `decorative` where its words are beside it. */
+export function FindingMark({ status, size = 14, decorative }: { status: FindingStatus; size?: number; decorative?: boolean }) {
   const shape = findingShapes[status];
   return (
     <View
       testID={`finding-mark-${status}`}
-      accessibilityLabel={`${findingStatusLabels[status]} (${shapeWords[shape]})`}
+      {...markA11y(`${findingStatusLabels[status]} (${shapeWords[shape]})`, decorative)}
       style={{ width: size, height: size }}
     >
       <Svg width={size} height={size} viewBox={`0 0 ${size} ${size}`}>
@@ -154,7 +177,7 @@ export function FindingStatusTag({ status, disposition, closure }: {
   const color = findingStatusColors[status];
   return (
     <View style={[styles.tag, { borderColor: color }]} testID={`finding-status-${status}`}>
-      <FindingMark status={status} />
+      <FindingMark status={status} decorative />
       <Txt variant="small" bold>{findingStatusLabels[status]}</Txt>
       {status === 'closed' && closure ? (
         <Txt variant="small" testID="closure">· {findingClosureLabels[closure]}</Txt>

@@ -1,16 +1,18 @@
-import { Text, type TextProps, type TextStyle } from 'react-native';
+import { Platform, Text, type TextProps, type TextStyle } from 'react-native';
 import { colors, fonts, type as typeScale, type TextVariant } from '@/constants/theme';
 
 type Props = TextProps & {
+  /** The text's node, e.g. to move focus to a heading (a plain prop since React 19). */
+  ref?: React.Ref<Text>;
   variant?: TextVariant;
   bold?: boolean;
-  tone?: 'ink' | 'soft' | 'faint' | 'accent' | 'error' | 'caution' | 'inverse';
+  tone?: 'ink' | 'soft' | 'faint' | 'accent' | 'error' | 'caution' | 'warning' | 'inverse';
   align?: TextStyle['textAlign'];
 };
 
 const toneColor = {
   ink: colors.ink, soft: colors.inkSoft, faint: colors.inkFaint, accent: colors.accent,
-  error: colors.error, caution: colors.caution, inverse: colors.accentInk,
+  error: colors.error, caution: colors.caution, warning: colors.warning, inverse: colors.accentInk,
 } as const;
 
 /** Running text in Atkinson Hyperlegible. */
@@ -29,17 +31,50 @@ export function Txt({ variant = 'body', bold, tone = 'ink', align, style, ...res
   );
 }
 
+/** The longest text still read as one value (a callout, a size with its unit, a hole id, "8 / 55"). */
+const TOKEN_MAX = 24;
+
+function plain(children: React.ReactNode): string | null {
+  if (typeof children === 'string' || typeof children === 'number') return String(children);
+  if (Array.isArray(children)) {
+    let s = '';
+    for (const c of children) {
+      const p = plain(c);
+      if (p === null) return null;
+      s += p;
+    }
+    return s;
+  }
+  return children == null || typeof children === 'boolean' ? '' : null;
+}
+
+/**
+ * A value is read whole or not at all: "MS20470AD4", "#30", "0.125 in", "U-03" broken over two lines
+ * read as two values (at 200 % text a narrow cell broke them mid-value). So on the web a short value
+ * never wraps inside; the line breaks before it instead. Longer monospaced text (an address, a
+ * fingerprint, a mail) wraps as running text does.
+ */
+const keepWhole = Platform.OS === 'web' ? ({ whiteSpace: 'nowrap' } as unknown as TextStyle) : null;
+
 /** Numbers, hole ids, codes: IBM Plex Mono so columns line up and 0/O, 1/l never mix. */
-export function Mono({ variant = 'body', bold, tone = 'ink', align, style, ...rest }: Props) {
+export function Mono({ variant = 'body', bold, tone = 'ink', align, style, children, wrap, ...rest }: Props & {
+  /** Long monospaced text that may wrap anywhere a line of text would. */
+  wrap?: boolean;
+}) {
+  const text = plain(children);
+  const whole = !wrap && rest.numberOfLines == null && text !== null && text.length <= TOKEN_MAX;
   return (
     <Text
       {...rest}
       style={[
         typeScale[variant],
         { color: toneColor[tone], fontFamily: bold ? fonts.monoBold : fonts.mono, textAlign: align, letterSpacing: 0 },
+        whole && keepWhole,
         style,
       ]}
-    />
+    >
+      {children}
+    </Text>
   );
 }
 

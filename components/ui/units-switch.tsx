@@ -1,8 +1,9 @@
-import { Pressable, StyleSheet, View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 import { unitSystemLabels, unitSystems } from '@/constants/units';
 import { colors, hairline, radius, space, touch } from '@/constants/theme';
 import { useUnits } from '@/hooks/use-units';
 import { Mono } from './text';
+import { Toggle } from './toggle';
 
 /** in·lb or mm·N for every number on screen; the choice is kept on the device. */
 export function UnitsSwitch() {
@@ -12,17 +13,17 @@ export function UnitsSwitch() {
       {unitSystems.map((s) => {
         const on = s === system;
         return (
-          <Pressable
+          <Toggle
             key={s}
+            kind="radio"
+            checked={on}
             testID={`units-${s}`}
-            accessibilityRole="radio"
-            aria-checked={on}
             accessibilityLabel={s === 'imperial' ? 'Inches and pounds' : 'Millimetres and newtons'}
             onPress={() => setSystem(s)}
-            style={[styles.opt, on && styles.on]}
+            style={[styles.opt, s === unitSystems[0] ? styles.first : styles.last, on && styles.on]}
           >
             <Mono variant="small" bold={on} tone={on ? 'inverse' : 'soft'}>{unitSystemLabels[s]}</Mono>
-          </Pressable>
+          </Toggle>
         );
       })}
     </View>
@@ -30,7 +31,10 @@ export function UnitsSwitch() {
 }
 
 const styles = StyleSheet.create({
-  wrap: { flexDirection: 'row', borderWidth: hairline, borderColor: colors.ruleStrong, borderRadius: radius.md, overflow: 'hidden' },
+  // Rounded by its ends rather than clipped: a clipping frame would cut off the focus ring.
+  wrap: { flexDirection: 'row', borderWidth: hairline, borderColor: colors.ruleStrong, borderRadius: radius.md },
+  first: { borderTopLeftRadius: radius.md - hairline, borderBottomLeftRadius: radius.md - hairline },
+  last: { borderTopRightRadius: radius.md - hairline, borderBottomRightRadius: radius.md - hairline },
   opt: { minHeight: touch, minWidth: 64, paddingHorizontal: space.sm, alignItems: 'center', justifyContent: 'center', backgroundColor: colors.paperRaised },
   on: { backgroundColor: colors.ink },
 });

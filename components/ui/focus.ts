@@ -1,0 +1,73 @@
+import { useEffect, type RefObject } from 'react';
+import { Platform } from 'react-native';
+
+/**
+ * Moves keyboard and screen-reader focus to `node` (a View, a Text, a TextInput), where the work
+ * continues after an action; without it focus falls back to the page and a keyboard user starts over
+ * from the top. A node that is not a control takes focus by script only (tabindex -1).
+ */
+export function moveFocusTo(node: unknown, opts: { scroll?: boolean } = {}): void {
+  if (Platform.OS !== 'web' || !node) return;
+  const el = node as HTMLElement;
+  if (typeof el.focus !== 'function') return;
+  if (!el.hasAttribute?.('tabindex') && !/^(A|BUTTON|INPUT|SELECT|TEXTAREA)$/.test(el.tagName)) el.setAttribute('tabindex', '-1');
+  el.focus({ preventScroll: !opts.scroll });
+  if (opts.scroll) el.scrollIntoView?.({ block: 'nearest' });
+}
+
+/** Focus `ref` once it is on screen, when `when` holds (e.g. a screen's heading on arrival). */
+export function useFocusOnMount(ref: RefObject<unknown>, when = true): void {
+  useEffect(() => {
+    if (!when) return;
+    // After the frame in which it appears: a screen pushed onto a stack is laid out first.
+    const id = setTimeout(() => moveFocusTo(ref.current), 0);
+    return () => clearTimeout(id);
+    // Once per mount: focus is given on arrival, never taken back on a later render.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, []);
+}
+
+let headingWanted = false;
+
+/**
+ * Asks the next screen that shows to focus its heading (sign-in → the home screen's title). The
+ * request is used up by the first heading that takes it, so a later screen is left alone.
+ */
+export function focusNextHeading(): void {
+  headingWanted = true;
+}
+
+/** For a screen's heading: true once, after focusNextHeading(). */
+export function takeHeadingFocus(): boolean {
+  const wanted = headingWanted;
+  headingWanted = false;
+  return wanted;
+}
+
+const FOCUSABLE = 'a[href], button, input, select, textarea, [tabindex]:not([tabindex="-1"])';
+
+/**
+ * A scrolling page with nothing in it that takes focus (a page of text and a picture) cannot be
+ * scrolled from the keyboard in every browser: such a page's scroll view takes focus itself, named by
+ * the page's title. Called whenever its content changes size; a page with controls is left as it is.
+ */
+export function keepScrollReachable(scrollView: unknown, label: string): void {
+  if (Platform.OS !== 'web') return;
+  const node = (scrollView as { getScrollableNode?: () => unknown } | null)?.getScrollableNode?.() as HTMLElement | undefined;
+  if (!node?.querySelector) return;
+  const own = node.dataset.scrollReachable === 'yes';
+  if (node.querySelector(FOCUSABLE)) {
+    if (own) {
+      node.removeAttribute('tabindex');
+      node.removeAttribute('role');
+      node.removeAttribute('aria-label');
+      delete node.dataset.scrollReachable;
+    }
+    return;
+  }
+  if (own) return;
+  node.tabIndex = 0;
+  node.setAttribute('role', 'region');
+  node.setAttribute('aria-label', label);
+  node.dataset.scrollReachable = 'yes';
+}

@@ -1,0 +1,99 @@
+import { useState } from 'react';
+import { ScrollView, StyleSheet, View, type LayoutChangeEvent } from 'react-native';
+import { colors, hairline, space } from '@/constants/theme';
+import { Label } from './text';
+
+export type GridColumn = {
+  key: string;
+  title: string;
+  /** Width in the table layout (px): wide enough for the column's longest value, never shrunk. */
+  width: number;
+  align?: 'left' | 'right';
+};
+
+export type GridRow = {
+  key: string;
+  testID?: string;
+  cells: Record<string, React.ReactNode>;
+};
+
+/** A table narrower than its columns stacks below this width (a phone); wider, it scrolls sideways. */
+const STACK_BELOW = 600;
+
+/**
+ * A small table of numbers (a pitch schedule, a zone's loads). Columns keep their width, so values
+ * never run together ("0.008.001.00") or break; when the space is narrower than the columns (a phone,
+ * or text at 200 %) each row stacks into a block of "name value" pairs, and between the two a wide
+ * table scrolls sideways and can be scrolled from the keyboard. Table roles, so a screen reader reads
+ * each value with its column's name.
+ */
+export function GridTable({ columns, rows, label, testID }: {
+  columns: GridColumn[]; rows: GridRow[]; label: string; testID?: string;
+}) {
+  const [width, setWidth] = useState(0);
+  const needed = columns.reduce((n, c) => n + c.width, 0);
+  const stacked = width > 0 && width < needed && width < STACK_BELOW;
+  const scrolls = width > 0 && !stacked && width < needed;
+  const onLayout = (e: LayoutChangeEvent) => setWidth(Math.round(e.nativeEvent.layout.width));
+
+  if (stacked) {
+    return (
+      <View onLayout={onLayout} testID={testID} role="list" aria-label={label} style={styles.stack}>
+        {rows.map((r) => (
+          <View key={r.key} testID={r.testID} role="listitem" style={styles.block}>
+            {columns.map((c) => (
+              <View key={c.key} style={styles.pair}>
+                <Label style={styles.pairName}>{c.title}</Label>
+                <View style={styles.pairValue}>{r.cells[c.key]}</View>
+              </View>
+            ))}
+          </View>
+        ))}
+      </View>
+    );
+  }
+
+  const table = (
+    <View role="table" aria-label={label} style={[styles.table, { minWidth: needed }]}>
+      <View role="row" style={[styles.row, styles.head]}>
+        {columns.map((c) => (
+          <View key={c.key} role="columnheader" style={[styles.cell, { width: c.width }, !scrolls && { flexGrow: c.width }]}>
+            <Label align={c.align}>{c.title}</Label>
+          </View>
+        ))}
+      </View>
+      {rows.map((r) => (
+        <View key={r.key} role="row" style={styles.row} testID={r.testID}>
+          {columns.map((c) => (
+            <View key={c.key} role="cell" style={[styles.cell, { width: c.width }, !scrolls && { flexGrow: c.width }, c.align === 'right' && styles.right]}>
+              {r.cells[c.key]}
+            </View>
+          ))}
+        </View>
+      ))}
+    </View>
+  );
+  return (
+    <View onLayout={onLayout} testID={testID}>
+      {scrolls ? (
+        // A keyboard scrolls a region only if it can take focus.
+        <ScrollView horizontal showsHorizontalScrollIndicator focusable role="region" aria-label={`${label}, scrolls sideways`}>
+          {table}
+        </ScrollView>
+      ) : table}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  table: { borderTopWidth: hairline, borderColor: colors.ink },
+  row: { flexDirection: 'row', alignItems: 'stretch', borderBottomWidth: hairline, borderColor: colors.rule, minHeight: 36 },
+  head: { borderColor: colors.ink, alignItems: 'flex-end' },
+  cell: { paddingHorizontal: space.xs, paddingVertical: space.xs, justifyContent: 'center', flexShrink: 0 },
+  right: { alignItems: 'flex-end' },
+  stack: { gap: space.sm },
+  block: { borderTopWidth: hairline, borderColor: colors.ink, paddingTop: space.xs, gap: 2 },
+  pair: { flexDirection: 'row', alignItems: 'baseline', gap: space.sm, flexWrap: 'wrap' },
+  pairName: { minWidth: 96 },
+  pairValue: { flexShrink: 1, alignItems: 'flex-start' },
+});

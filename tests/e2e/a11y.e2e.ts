@@ -1,0 +1,402 @@
+import { readFileSync } from 'node:fs';
+import { mkdir } from 'node:fs/promises';
+import path from 'node:path';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import sharp from 'sharp';
+import request from 'supertest';
+import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
+import type { TestApp } from '../helpers/test-app';
+import { contrast } from '../components/colour-math';
+import { launchBrowser } from './helpers/browser';
+import { serveTestApp } from './helpers/served-app';
+
+/**
+ * Readable and operable for everyone at the bench, checked in Debian's Chromium against the real
+ * server: axe-core (WCAG 2.1 A and AA) over every route of every role at a phone's and an office
+ * screen's width, failing on any serious or critical violation; and the checkboxes and radios of the
+ * traveler, flag and finding screens driven by the keyboard alone, Space and Enter both, with what
+ * was recorded read back through the API.
+ */
+jest.setTimeout(900_000);
+
+// axe's own source, put into the page as a script (no CDN). The app's content security policy allows
+// no inline script, so the audit's pages bypass it: the product's policy is tested in security-headers.e2e.ts.
+const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
+const artefacts = path.join(__dirname, 'artifacts', 'a11y');
+
+let t: TestApp;
+let base: string;
+let closeApp: () => Promise<void>;
+let browser: Browser;
+
+const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
+const visible = (page: Page, id: string) => page.locator(`[data-testid="${id}"]:visible`).first();
+
+type Role = 'builder' | 'inspector' | 'supplier' | 'admin';
+type Ids = {
+  buildId: string; travelerId: string; findingId: string; kitId: string; designId: string; studyId: string;
+  walkTravelerId: string; walkFindingId: string;
+};
+type Route = { role: Role; name: string; path: (ids: Ids) => string; ready: string };
+
+const routes: Route[] = [
+  { role: 'builder', name: 'bench', path: () => '/bench', ready: 'bench-screen' },
+  { role: 'builder', name: 'parts', path: () => '/travelers', ready: 'travelers-screen' },
+  { role: 'builder', name: 'a traveler', path: (i) => `/travelers/${i.travelerId}`, ready: 'traveler-screen' },
+  { role: 'builder', name: 'the flag screen', path: (i) => `/travelers/${i.travelerId}/flag?holes=U-10`, ready: 'flag-screen' },
+  { role: 'builder', name: 'findings', path: () => '/findings', ready: 'my-findings-screen' },
+  { role: 'builder', name: 'a finding', path: (i) => `/findings/${i.findingId}`, ready: 'finding-screen' },
+  { role: 'builder', name: 'build log', path: (i) => `/builds/${i.buildId}/log`, ready: 'build-log-screen' },
+  { role: 'inspector', name: 'review queue', path: () => '/findings', ready: 'review-screen' },
+  { role: 'inspector', name: 'a finding with its decision form', path: (i) => `/findings/${i.findingId}`, ready: 'finding-decision' },
+  { role: 'inspector', name: 'builds', path: () => '/builds', ready: 'builds-screen' },
+  { role: 'inspector', name: 'a build', path: (i) => `/builds/${i.buildId}`, ready: 'build-screen' },
+  { role: 'inspector', name: 'a traveler', path: (i) => `/travelers/${i.travelerId}`, ready: 'traveler-screen' },
+  { role: 'supplier', name: 'catalogue', path: () => '/catalogue', ready: 'catalogue-screen' },
+  { role: 'supplier', name: 'a design', path: (i) => `/catalogue/designs/${i.designId}`, ready: 'design-screen' },
+  { role: 'supplier', name: 'a new kit', path: () => '/catalogue/new-kit', ready: 'kit-form-screen' },
+  { role: 'supplier', name: 'a new design', path: (i) => `/catalogue/designs/new?kitModelId=${i.kitId}`, ready: 'design-create-screen' },
+  { role: 'supplier', name: 'load studies', path: () => '/studies', ready: 'studies-screen' },
+  { role: 'supplier', name: 'a study', path: (i) => `/studies/${i.studyId}`, ready: 'study-screen' },
+  { role: 'supplier', name: 'a new study', path: (i) => `/studies/new?kitModelId=${i.kitId}`, ready: 'new-study-screen' },
+  { role: 'supplier', name: 'coupons', path: () => '/coupons', ready: 'coupons-screen' },
+  { role: 'supplier', name: 'builds', path: () => '/builds', ready: 'builds-screen' },
+  { role: 'supplier', name: 'a build', path: (i) => `/builds/${i.buildId}`, ready: 'build-screen' },
+  { role: 'supplier', name: 'shipping a build', path: () => '/builds/new', ready: 'ship-build-screen' },
+  { role: 'supplier', name: 'labels', path: (i) => `/builds/${i.buildId}/labels`, ready: 'labels-screen' },
+  { role: 'supplier', name: 'approvals', path: () => '/findings', ready: 'supplier-findings-screen' },
+  { role: 'supplier', name: 'phone setup', path: () => '/phone', ready: 'phone-setup-screen' },
+  { role: 'admin', name: 'people', path: () => '/people', ready: 'people-screen' },
+  { role: 'admin', name: 'account', path: () => '/account', ready: 'account-screen' },
+];
+
+const widths = [
+  { name: 'phone', viewport: { width: 390, height: 844 }, isMobile: true },
+  { name: 'office', viewport: { width: 1280, height: 800 }, isMobile: false },
+  // The same phone with its text at 200 % (page zoom): 195 × 422 CSS pixels.
+  { name: 'phone at 200 %', viewport: { width: 195, height: 422 }, isMobile: true },
+] as const;
+
+let ids: Ids;
+
+beforeAll(async () => {
+  ({ t, base, close: closeApp } = await serveTestApp());
+  browser = await launchBrowser();
+  await mkdir(artefacts, { recursive: true });
+  const tokens = await t.tokens();
+  // The demo scenario: build NK2-0147, its inboard rib part-riveted with a raised finding, a study, coupons.
+  const parts = (await request(t.app).get('/api/travelers').set(auth(tokens.builder))).body as { id: string; partNumber: string; buildId: string }[];
+  const inner = parts.find((p) => p.partNumber === 'W-104')!;
+  const detail = (await request(t.app).get(`/api/travelers/${inner.id}`).set(auth(tokens.builder))).body;
+  const kits = (await request(t.app).get('/api/kits').set(auth(tokens.supplier))).body as { id: string; code: string }[];
+  const kit = kits.find((k) => k.code === 'NK-2')!;
+  const designs = (await request(t.app).get(`/api/designs?kitModelId=${kit.id}`).set(auth(tokens.supplier))).body as { id: string; partNumber: string }[];
+  const studies = (await request(t.app).get('/api/studies').set(auth(tokens.supplier))).body as { id: string }[];
+  const walk = await walkKit(tokens.supplier, tokens.builder);
+  ids = {
+    buildId: inner.buildId, travelerId: inner.id, findingId: detail.findings[0].id, kitId: kit.id,
+    designId: designs.find((d) => d.partNumber === 'W-104')!.id, studyId: studies[0].id, ...walk,
+  };
+});
+afterAll(async () => {
+  await browser?.close().catch(() => undefined);
+  await closeApp?.();
+});
+
+/** A small kit of our own (one rib, two short lines), shipped, with one hole flagged: for the keyboard walk. */
+async function walkKit(supplier: string, builder: string) {
+  const kitId = (await request(t.app).post('/api/kits').set(auth(supplier)).send({
+    code: 'AX-1', name: 'Keyboard walk kit', weightLb: 1200, wingAreaSqFt: 110, meanChordIn: 50, stallSpeedKeas: 45, category: 'normal', airfoil: 'NACA 2412',
+  })).body.id;
+  const design = await request(t.app).post('/api/designs').set(auth(supplier)).send({
+    design: { kitModelId: kitId, partNumber: 'AX-R1', name: 'Walk rib', kind: 'rib' },
+    revision: {
+      material: '6061-T6', gaugeIn: 0.032, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 10,
+      lines: [
+        { code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 4, zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }] },
+        { code: 'L', name: 'Lower flange', surface: 'lower', startIn: 1, lengthIn: 4, zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }] },
+      ],
+      steps: ['Rivet both flanges', 'Deburr and prime'],
+    },
+  });
+  await request(t.app).post(`/api/revisions/${design.body.revisions[0].id}/publish`).set(auth(supplier)).send({});
+  const build = await request(t.app).post('/api/builds').set(auth(supplier)).send({
+    kitModelId: kitId, kitSerial: 'AX-0001', builderEmail: DEMO_USERS.builder.email, inspectorEmail: DEMO_USERS.inspector.email,
+  });
+  const walkTravelerId = (await request(t.app).get(`/api/builds/${build.body.id}`).set(auth(supplier))).body.travelers[0].id as string;
+  const raised = await request(t.app).post('/api/findings').set(auth(builder))
+    .field('travelerId', walkTravelerId).field('holeIds', '["L-02"]').field('kind', 'hole_elongated').field('note', 'oval after deburring')
+    .attach('photos', await sharp({ create: { width: 320, height: 240, channels: 3, background: '#8a9096' } }).jpeg().toBuffer(), 'l02.jpg');
+  if (raised.status !== 201) throw new Error(`raising the walk finding failed: ${raised.status} ${JSON.stringify(raised.body)}`);
+  return { walkTravelerId, walkFindingId: raised.body.id as string };
+}
+
+async function signedInContext(role: Role, w: (typeof widths)[number]): Promise<{ context: BrowserContext; page: Page }> {
+  const context = await browser.newContext({
+    baseURL: base, viewport: w.viewport, isMobile: w.isMobile, hasTouch: w.isMobile, deviceScaleFactor: 1, bypassCSP: true,
+    // No service worker: every route is loaded fresh from the server under test.
+    serviceWorkers: 'block',
+  });
+  const page = await context.newPage();
+  await page.goto('/');
+  await page.getByTestId('email').fill(DEMO_USERS[role].email);
+  await page.getByTestId('password').fill(DEMO_PASSWORD);
+  await page.getByTestId('sign-in').click();
+  await visible(page, 'screen-title').waitFor({ timeout: 30000 });
+  return { context, page };
+}
+
+type Violation = { id: string; impact: string; help: string; nodes: { target: string[]; html: string; failureSummary: string }[] };
+
+/** axe over the page as shown; the serious and critical violations, each named with its elements and measurements. */
+async function audit(page: Page): Promise<Violation[]> {
+  if (!(await page.evaluate(() => 'axe' in window))) await page.addScriptTag({ content: axeSource });
+  const violations = await page.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run: (ctx: unknown, opts: unknown) => Promise<{ violations: Violation[] }> } }).axe;
+    const r = await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] }, resultTypes: ['violations'] });
+    return r.violations.map((v) => ({
+      id: v.id, impact: v.impact, help: v.help,
+      nodes: v.nodes.map((n) => ({ target: n.target, html: n.html.slice(0, 160), failureSummary: n.failureSummary })),
+    }));
+  });
+  return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+}
+
+/**
+ * The whole screen as a picture (git-ignored, under tests/e2e/artifacts/a11y): the app scrolls inside
+ * its own scroll view, so the page is made as tall as the longest scrolling content for the shot.
+ */
+async function keepScreenshot(page: Page, name: string, viewport: { width: number; height: number }) {
+  const tall = await page.evaluate(() => Math.max(...Array.from(document.querySelectorAll('*'))
+    .filter((e) => e.scrollHeight > e.clientHeight + 1 && /(auto|scroll)/.test(getComputedStyle(e).overflowY))
+    .map((e) => e.scrollHeight - e.clientHeight), 0));
+  await page.setViewportSize({ width: viewport.width, height: Math.min(12000, viewport.height + tall) });
+  await page.waitForTimeout(200);
+  await page.screenshot({ path: path.join(artefacts, `${name}.png`) });
+  await page.setViewportSize(viewport);
+}
+
+function describeViolations(route: string, width: string, vs: Violation[]): string {
+  return vs.map((v) => [
+    `${route} at ${width}: ${v.id} (${v.impact}) — ${v.help}`,
+    ...v.nodes.slice(0, 8).map((n) => `    ${n.target.join(' ')}  ${n.html}\n      ${n.failureSummary.replace(/\n/g, '\n      ')}`),
+    v.nodes.length > 8 ? `    … and ${v.nodes.length - 8} more` : '',
+  ].filter(Boolean).join('\n')).join('\n');
+}
+
+describe.each(widths)('every route of every role passes axe (WCAG 2.1 A/AA) at $name width', (w) => {
+  const pages = new Map<Role, { context: BrowserContext; page: Page }>();
+  afterAll(async () => {
+    for (const p of pages.values()) await p.context.close().catch(() => undefined);
+  });
+
+  it.each(routes)('$role: $name', async (r) => {
+    if (!pages.has(r.role)) pages.set(r.role, await signedInContext(r.role, w));
+    const { page } = pages.get(r.role)!;
+    await page.goto(r.path(ids));
+    await visible(page, r.ready).waitFor({ timeout: 30000 });
+    await page.waitForFunction(() => !document.querySelector('[data-testid="loading"]'), undefined, { timeout: 30000 }).catch(() => undefined);
+    // Fonts in, layout settled.
+    await page.evaluate(() => document.fonts.ready);
+    await page.waitForTimeout(300);
+    const found = await audit(page);
+    await keepScreenshot(page, `${w.name}-${r.role}-${r.name}`.replace(/[^a-z0-9]+/gi, '-'), w.viewport);
+    if (found.length) throw new Error(`${found.reduce((n, v) => n + v.nodes.length, 0)} failing elements\n${describeViolations(`${r.role} ${r.name} (${r.path(ids)})`, w.name, found)}`);
+  });
+});
+
+/** The data-testid of whatever has keyboard focus (or of its nearest marked ancestor). */
+const focusedTestId = (page: Page) => page.evaluate(() => document.activeElement?.closest('[data-testid]')?.getAttribute('data-testid') ?? null);
+const checked = (page: Page, id: string) => visible(page, id).getAttribute('aria-checked');
+
+/** Puts keyboard focus on a control (as Tab would) without pressing it; the keys then do the work. */
+async function keyOn(page: Page, id: string, key: 'Space' | 'Enter') {
+  await visible(page, id).focus();
+  await page.keyboard.press(key);
+}
+
+/** Polls the API until `test` holds for what `read` returns. */
+async function until<T>(read: () => Promise<T>, test: (v: T) => boolean, what: string): Promise<T> {
+  const end = Date.now() + 20000;
+  for (;;) {
+    const v = await read();
+    if (test(v)) return v;
+    if (Date.now() > end) throw new Error(`${what}: still ${JSON.stringify(v)}`);
+    await new Promise((r) => setTimeout(r, 150));
+  }
+}
+
+describe('the keyboard alone, Space and Enter both', () => {
+  let builderToken: string;
+  let inspectorToken: string;
+  const holeStatus = async (holeId: string) => {
+    const d = (await request(t.app).get(`/api/travelers/${ids.walkTravelerId}`).set(auth(builderToken))).body;
+    return (d.holes as { holeId: string; status: string }[]).find((h) => h.holeId === holeId)!.status;
+  };
+  beforeAll(async () => {
+    builderToken = await t.signIn(DEMO_USERS.builder.email);
+    inspectorToken = await t.signIn(DEMO_USERS.inspector.email);
+  });
+
+  it('rings the focused control in our own colour, 3:1 or more against the paper and against a chosen (ink) chip', async () => {
+    const { context, page } = await signedInContext('builder', widths[0]);
+    try {
+      await page.goto(`/travelers/${ids.walkTravelerId}`);
+      await visible(page, 'traveler-screen').waitFor({ timeout: 30000 });
+      // From "Closer" back to the chosen "Whole part" by Shift+Tab: focus by keyboard, as :focus-visible wants it.
+      await visible(page, 'zoom-closer').focus();
+      await page.keyboard.press('Shift+Tab');
+      expect(await focusedTestId(page)).toBe('zoom-fit');
+      const ring = await page.evaluate(() => {
+        const el = document.activeElement as HTMLElement;
+        const css = getComputedStyle(el);
+        const parentBg = getComputedStyle(el.parentElement!.closest('[data-testid="traveler-screen"]')!).backgroundColor;
+        return { color: css.outlineColor, width: css.outlineWidth, style: css.outlineStyle, offset: css.outlineOffset, chip: css.backgroundColor, paper: parentBg };
+      });
+      const hex = (rgb: string) => `#${(rgb.match(/\d+/g) ?? []).slice(0, 3).map((n) => Number(n).toString(16).padStart(2, '0')).join('')}`;
+      expect(ring.style).toBe('solid');
+      expect(parseFloat(ring.width)).toBeGreaterThanOrEqual(3);
+      expect(parseFloat(ring.offset)).toBeGreaterThanOrEqual(2);
+      expect(contrast(hex(ring.color), hex(ring.chip))).toBeGreaterThanOrEqual(3);
+      expect(contrast(hex(ring.color), hex(ring.paper))).toBeGreaterThanOrEqual(3);
+      const box = (await visible(page, 'zoom-fit').boundingBox())!;
+      await page.screenshot({ path: path.join(artefacts, 'focus-ring-on-a-chosen-chip.png'), clip: { x: box.x - 12, y: box.y - 12, width: box.width * 3, height: box.height + 24 } });
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('focuses the home screen’s heading after signing in, and the error after a failed sign-in', async () => {
+    const context = await browser.newContext({ baseURL: base, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+    const page = await context.newPage();
+    try {
+      await page.goto('/');
+      await visible(page, 'email').focus();
+      await page.keyboard.type(DEMO_USERS.builder.email);
+      await page.keyboard.press('Tab');
+      await page.keyboard.type('not the password');
+      await page.keyboard.press('Enter');
+      await visible(page, 'sign-in-error').waitFor({ timeout: 30000 });
+      await until(() => focusedTestId(page), (v) => v === 'sign-in-error', 'focus after a failed sign-in');
+
+      await visible(page, 'password').fill('');
+      await visible(page, 'password').focus();
+      await page.keyboard.type(DEMO_PASSWORD);
+      await page.keyboard.press('Enter');
+      await visible(page, 'bench-screen').waitFor({ timeout: 30000 });
+      await until(() => focusedTestId(page), (v) => v === 'screen-title', 'focus after signing in');
+      expect(await page.evaluate(() => document.activeElement?.textContent)).toBe('Bench');
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('ticks holes and steps, zooms and ticks a run on the traveler (and switches units on the bench)', async () => {
+    const { context, page } = await signedInContext('builder', widths[0]);
+    try {
+      await page.goto('/bench');
+      await visible(page, 'bench-screen').waitFor({ timeout: 30000 });
+      await keyOn(page, 'units-metric', 'Space');
+      expect(await checked(page, 'units-metric')).toBe('true');
+      await keyOn(page, 'units-imperial', 'Enter');
+      expect(await checked(page, 'units-imperial')).toBe('true');
+
+      await page.goto(`/travelers/${ids.walkTravelerId}`);
+      await visible(page, 'traveler-screen').waitFor({ timeout: 30000 });
+
+      // Holes: Space ticks one in, Enter another; Space again takes the first tick off.
+      await keyOn(page, 'hole-U-01', 'Space');
+      await until(() => holeStatus('U-01'), (s) => s === 'installed', 'U-01 after Space');
+      await keyOn(page, 'hole-U-02', 'Enter');
+      await until(() => holeStatus('U-02'), (s) => s === 'installed', 'U-02 after Enter');
+      expect(await checked(page, 'hole-U-01')).toBe('true');
+      await keyOn(page, 'hole-U-01', 'Space');
+      await until(() => holeStatus('U-01'), (s) => s === 'pending', 'U-01 after Space again');
+      // Space on a control is the control's: the page did not scroll away under it.
+      expect(await focusedTestId(page)).toBe('hole-U-01');
+
+      // Shop steps.
+      const stepDone = async (seq: number) => {
+        const d = (await request(t.app).get(`/api/travelers/${ids.walkTravelerId}`).set(auth(builderToken))).body;
+        return !!(d.steps as { seq: number; doneAt: string | null }[]).find((s) => s.seq === seq)!.doneAt;
+      };
+      await keyOn(page, 'step-1', 'Space');
+      await until(() => stepDone(1), (v) => v, 'step 1 after Space');
+      await keyOn(page, 'step-2', 'Enter');
+      await until(() => stepDone(2), (v) => v, 'step 2 after Enter');
+
+      // The drawing's zoom: radios.
+      await keyOn(page, 'zoom-closer', 'Space');
+      expect(await checked(page, 'zoom-closer')).toBe('true');
+      expect(await checked(page, 'zoom-fit')).toBe('false');
+      await keyOn(page, 'zoom-closest', 'Enter');
+      expect(await checked(page, 'zoom-closest')).toBe('true');
+
+      // A run: focus goes to the run bar, the ends are picked by Space and Enter, and back to "Tick a run" after.
+      await keyOn(page, 'run-mode', 'Enter');
+      await until(() => focusedTestId(page), (v) => v === 'run-bar', 'focus after "Tick a run"');
+      await keyOn(page, 'hole-U-03', 'Space');
+      expect(await visible(page, 'hole-U-03').getAttribute('aria-pressed')).toBe('true');
+      await keyOn(page, 'hole-U-05', 'Enter');
+      await keyOn(page, 'tick-run', 'Space');
+      for (const h of ['U-03', 'U-04', 'U-05']) await until(() => holeStatus(h), (s) => s === 'installed', `${h} after the run`);
+      await until(() => focusedTestId(page), (v) => v === 'run-mode', 'focus after the run is ticked');
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('chooses holes and the kind on the flag screen, whose heading has focus when it opens', async () => {
+    const { context, page } = await signedInContext('builder', widths[0]);
+    try {
+      await page.goto(`/travelers/${ids.walkTravelerId}/flag?holes=U-04`);
+      await visible(page, 'flag-screen').waitFor({ timeout: 30000 });
+      await until(() => focusedTestId(page), (v) => v === 'screen-title', 'focus on opening the flag screen');
+
+      await keyOn(page, 'change-holes', 'Enter');
+      await keyOn(page, 'pick-hole-U-05', 'Space');
+      expect(await checked(page, 'pick-hole-U-05')).toBe('true');
+      await keyOn(page, 'pick-hole-U-04', 'Enter');
+      expect(await checked(page, 'pick-hole-U-04')).toBe('false');
+
+      await keyOn(page, 'finding-kind-hole_cracked', 'Enter');
+      expect(await checked(page, 'finding-kind-hole_cracked')).toBe('true');
+      await keyOn(page, 'finding-kind-hole_burrs', 'Space');
+      expect(await checked(page, 'finding-kind-hole_burrs')).toBe('true');
+      expect(await checked(page, 'finding-kind-hole_cracked')).toBe('false');
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('records the disposition chosen by Space, after another was chosen by Enter, and focuses the result', async () => {
+    const { context, page } = await signedInContext('inspector', widths[0]);
+    try {
+      await page.goto(`/findings/${ids.walkFindingId}`);
+      await visible(page, 'finding-decision').waitFor({ timeout: 30000 });
+
+      await keyOn(page, 'disposition-repair', 'Enter');
+      expect(await checked(page, 'disposition-repair')).toBe('true');
+      await keyOn(page, 'repair-scheme-doubler', 'Space');
+      expect(await checked(page, 'repair-scheme-doubler')).toBe('true');
+      await keyOn(page, 'repair-scheme-other', 'Enter');
+      expect(await checked(page, 'repair-scheme-other')).toBe('true');
+      // What the issue saw go wrong: Space on Rework, then the form sent a Repair.
+      await keyOn(page, 'disposition-rework', 'Space');
+      expect(await checked(page, 'disposition-rework')).toBe('true');
+      expect(await checked(page, 'disposition-repair')).toBe('false');
+
+      await visible(page, 'action-note').focus();
+      await page.keyboard.type('Drill out L-02 and set the same rivet again');
+      await keyOn(page, 'finding-action-disposition', 'Enter');
+      const f = await until(
+        async () => (await request(t.app).get(`/api/findings/${ids.walkFindingId}`).set(auth(inspectorToken))).body as { status: string; disposition: string | null },
+        (b) => b.status !== 'raised', 'the finding after recording',
+      );
+      expect(f.disposition).toBe('rework');
+      await until(() => focusedTestId(page), (v) => v === 'action-result', 'focus after recording the disposition');
+    } finally {
+      await context.close();
+    }
+  });
+});
