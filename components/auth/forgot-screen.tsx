@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { forgotPasswordInput } from '@/db/contracts';
-import { FormTextField } from '@/components/forms/form-fields';
+import { emailInputProps, FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { Button } from '@/components/ui/button';
@@ -74,12 +74,7 @@ export function ForgotScreen() {
         name="email"
         label="E-mail"
         testID="forgot-email"
-        autoCapitalize="none"
-        autoComplete="email"
-        keyboardType="email-address"
-        inputMode="email"
-        textContentType="username"
-        autoCorrect={false}
+        {...emailInputProps}
         returnKeyType="send"
         onSubmitEditing={() => void submit()}
       />

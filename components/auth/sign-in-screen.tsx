@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { signInInput, type SignInInput } from '@/db/contracts';
-import { FormTextField } from '@/components/forms/form-fields';
+import { emailInputProps, FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { signInMessage } from '@/components/navigation/pending-link';
@@ -50,12 +50,7 @@ export function SignInScreen() {
         name="email"
         label="E-mail"
         testID="email"
-        autoCapitalize="none"
-        autoComplete="email"
-        keyboardType="email-address"
-        inputMode="email"
-        textContentType="username"
-        autoCorrect={false}
+        {...emailInputProps}
         returnKeyType="next"
       />
       <FormTextField

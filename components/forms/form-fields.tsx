@@ -13,6 +13,11 @@ type Base<T extends FieldValues> = {
   testID: string;
 };
 
+/** How an e-mail address is typed on every form that asks for one: no capitals, no corrections, the address keyboard. */
+export const emailInputProps = {
+  autoCapitalize: 'none', autoComplete: 'email', keyboardType: 'email-address', inputMode: 'email', textContentType: 'username', autoCorrect: false,
+} as const;
+
 /** A text field bound to react-hook-form, with its error right under it. */
 export function FormTextField<T extends FieldValues>({ control, name, label, hint, testID, ...input }: Base<T> & Omit<TextBoxProps, 'value' | 'onChangeText' | 'testID'>) {
   return (
