@@ -121,4 +121,14 @@ describe('bad input gets a clear error and saves nothing', () => {
     expect(res.status).toBe(400);
     expect(res.body.error.fields.id).toBeDefined();
   });
+
+  it('refuses a kit serial with a control character, naming the field, and ships nothing', async () => {
+    const kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body[0].id;
+    const before = (await request(t.app).get('/api/builds').set(auth(tok.supplier))).body.length;
+    const res = await request(t.app).post('/api/builds').set(auth(tok.supplier)).send({
+      kitModelId, kitSerial: 'NK2-\u00000999', builderEmail: 'tobias@benchwork.example', inspectorEmail: 'priya@checkpoint.example',
+    });
+    expect([res.status, Object.keys(res.body.error.fields)]).toEqual([400, ['kitSerial']]);
+    expect((await request(t.app).get('/api/builds').set(auth(tok.supplier))).body).toHaveLength(before);
+  });
 });
