@@ -8,7 +8,7 @@ import { withTransaction, type Db, type Tx } from '../../db';
 import { builds, designRevisions, partDesigns, travelers } from '../../db/schema';
 import type { AppContext } from '../context';
 import { invite } from '../people/invitations';
-import { addBuildMember, findUserByEmail, listPendingInvitations } from '../people/people-repository';
+import { addBuildMember, findBuildBrief, findUserByEmail, listPendingInvitations } from '../people/people-repository';
 import { badRequest, conflict, forbidden, notFound } from '../http-error';
 import { kitsService } from '../kits/kits-service';
 import { isLoopbackUrl } from '../network/lan';
@@ -81,7 +81,7 @@ export const buildsService = (ctx: Deps) => {
 
     async detail(user: Express.User, id: string) {
       const build = await summary(user, id);
-      const [b] = await db.select({ organizationId: builds.organizationId }).from(builds).where(eq(builds.id, id));
+      const b = (await findBuildBrief(db, id))!;
       return { ...build, people: await people(user, id, b.organizationId), travelers: await listTravelers(db, user, { buildId: id }) };
     },
 
