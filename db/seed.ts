@@ -36,7 +36,7 @@ function ribRevision(over: Partial<RevisionInput> = {}): Required<Omit<RevisionI
   } as never;
 }
 
-const DEMO_COUPONS: [number, number, CouponOutcome, string][] = [
+export const DEMO_COUPONS: [number, number, CouponOutcome, string][] = [
   [0.016, 20, 'excessive_deformation', 'hole pulled oval, flange dished around the head'],
   [0.016, 30, 'excessive_deformation', 'rivet head pulled into the flange'],
   [0.02, 13.5, 'no_deformation', 'no set after unloading'],

@@ -221,7 +221,10 @@ export {
 export { lineStations, ribOutline, type FastenerLineInput } from './rib-geometry';
 export { coarsenRuns, estimateHoles, groupIntoZones, placeHoles, type Zone } from './zoning';
 export {
+  ribCandidate,
   ribStudy,
+  PRESSURE_RULES,
+  type PressureRule,
   type EnvelopePoint,
   type LineLoads,
   type LineSchedule,

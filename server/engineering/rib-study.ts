@@ -7,16 +7,19 @@ import { EngineeringInputError } from './errors';
 import { layoutRules, rivetWeightLb } from './layout';
 import { findMaterial, findRivet, type RivetSpec, type SheetMaterial } from './materials';
 import { alphaForLiftCoefficient, cpOnSurface, pressureDistribution, solvePanelMethod, type CpSample, type PanelSolution } from './panel-method';
-import { holePrefixFor, pitchSchedule, prepareStations, requirePitchGrid, validateScheduleSettings, type PitchScheduleResult, type PreparedLine, type StationLoad } from './pitch-schedule';
+import { holePrefixFor, pitchSchedule, prepareStations, requirePitchGrid, validateScheduleSettings, type PitchScheduleResult, type PreparedLine, type ScheduleHole, type StationLoad } from './pitch-schedule';
 import { compactNumbers, envelope, type EngineeringResult } from './result';
 import { lineStations, outlineAreaSqIn, ribOutline, validateLine, type FastenerLineInput } from './rib-geometry';
 import { loadEnvelope, shearFlowLbPerIn, ULTIMATE_FACTOR } from './rivet-loads';
 import { tradeStudy, type RankBy, type TradeCandidate, type TradeRow } from './trade-study';
 import { radToDeg } from './units';
 import { roundStored } from './rounding';
-import { requireCount, requireStudyBound, STUDY_BOUNDS } from './bounds';
+import { requireCount, requireStudyBound, STUDY_BOUNDS, WING_BOUNDS } from './bounds';
 import { estimateStudyWork, requireStudyBudget, type StudyWork } from './study-work';
 import { requireArray, requireOneOf, requirePositive } from './validate';
+import { COMPRESSIBILITY_RULE_TEXT, COMPRESSIBILITY_RULES, correctCpDistribution, machNumber, type CompressibilityRule } from './compressibility';
+import { envelopeConditions } from './envelope-corners';
+import type { FlapInput } from './flap-conditions';
 
 /**
  * The whole chain for one rib (step 1–8 of the chain): kit data → flight conditions → airfoil →
@@ -58,12 +61,24 @@ export interface RibStudyInput {
   /** build-time proxy; 1.5 min per solid rivet and 1.0 per pulled rivet when absent */
   minutesPerHole?: number;
   rankBy?: RankBy;
+  /** flaps-extended conditions (14 CFR 23.345) are studied when given */
+  flaps?: FlapInput;
+  /** the correction of Cp to each condition's Mach number; Kármán–Tsien when absent */
+  compressibility?: PressureRule;
   pullThroughFallbackFraction?: number;
   materialData?: SheetMaterial[];
   rivetData?: RivetSpec[];
 }
 
+/** A compressibility rule, or 'none' for incompressible pressures (low-speed kits, or checks against them). */
+export type PressureRule = CompressibilityRule | 'none';
+export const PRESSURE_RULES = [...COMPRESSIBILITY_RULES, 'none'] as const;
+
 export interface StudyCondition extends DesignCondition {
+  /** the section's own lift coefficient: the wing's CL × its spanwise (Schrenk) ratio × the tail's share */
+  sectionCl: number;
+  /** flight Mach number of the condition (its speed at the kit's altitude) */
+  mach: number;
   alphaRad: number;
   alphaDeg: number;
   pressureSource: 'panel method' | 'Cp table';
@@ -95,9 +110,12 @@ export interface LineLoads {
   envelope: EnvelopePoint[];
 }
 
-export type LineSchedule = Omit<PitchScheduleResult, 'inputs' | 'rules' | 'caution'>;
+/** A line's schedule as stored: its warnings are the candidate's, its holes' line is the line's (each said once). */
+export type LineSchedule = Omit<PitchScheduleResult, 'inputs' | 'rules' | 'caution' | 'warnings' | 'holes'> & { holes: Omit<ScheduleHole, 'line'>[] };
 
 export interface StudyCandidate {
+  /** the holes of each line are kept for the recommended candidate only; others are recomputed on demand */
+  holesStored: boolean;
   gaugeIn: number;
   rivet: string;
   feasible: boolean;
@@ -126,7 +144,9 @@ const MINUTES_PER_HOLE = { solid: 1.5, pulled: 1.0 };
 /** largest spacing of load stations along a line, in */
 const STATION_STEP_IN = 0.1;
 /** envelope points kept per line in the stored result */
-const ENVELOPE_POINTS = 150;
+const ENVELOPE_POINTS = 24;
+/** Cp samples kept per surface and condition in the stored result (for the pressure picture) */
+const CP_POINTS = 41;
 /** beyond this angle of attack the inviscid pressure peak is well past what real flow sustains */
 const HIGH_ALPHA_DEG = 10;
 
@@ -178,6 +198,7 @@ function validateStudy(input: RibStudyInput): RivetSpec[] {
     requireStudyBound(input.minutesPerHole, 'minutesPerHole');
   }
   if (input.rankBy !== undefined) requireOneOf(input.rankBy, 'rankBy', ['weight', 'buildTime'] as const);
+  if (input.compressibility !== undefined) requireOneOf(input.compressibility, 'compressibility', PRESSURE_RULES);
   return rivets;
 }
 
@@ -189,11 +210,11 @@ function thin<T>(items: T[], keep: number): T[] {
 
 const unique = (xs: string[]): string[] => [...new Set(xs)];
 
-/** A line's schedule without what the study already carries once (its inputs, rules and caution). */
+/** A line's schedule without what the study already carries once (its inputs, rules, caution and warnings). */
 function withoutEnvelope(s: PitchScheduleResult): LineSchedule {
-  const { inputs, rules, caution, ...rest } = s;
-  void inputs, void rules, void caution;
-  return rest;
+  const { inputs, rules, caution, warnings, holes, ...rest } = s;
+  void inputs, void rules, void caution, void warnings;
+  return { ...rest, holes: holes.map(({ line, ...h }) => (void line, h)) };
 }
 
 interface PreparedStudyLine {
@@ -204,20 +225,77 @@ interface PreparedStudyLine {
   summary: LineLoads;
 }
 
-/** Pressure for every condition: from the Cp tables where they cover it, else from the panel method. */
-function conditionPressures(input: RibStudyInput, design: DesignConditionsResult, flow: PanelSolution, warnings: string[]): StudyCondition[] {
-  const tables = input.cpTables ? validateCpTables(input.cpTables) : null;
-  return design.conditions.map((c) => {
-    const alphaRad = alphaForLiftCoefficient(flow, c.clNeeded);
+/**
+ * What the ribs of one wing share, worked out once: the flight conditions, the section's flow (one
+ * factorisation serves every rib, the airfoil being the same at unit chord), and the pressure rule. A
+ * lone rib study makes its own with a section ratio of 1.
+ */
+export interface SectionContext {
+  design: DesignConditionsResult;
+  /** every condition of the envelope, with the wing's CL */
+  conditions: DesignCondition[];
+  geometry: AirfoilGeometry;
+  flow: PanelSolution;
+  tables: ReturnType<typeof validateCpTables> | null;
+  pressureRule: PressureRule;
+  altitudeFt: number;
+  rules: string[];
+  warnings: string[];
+}
+
+export function sectionContext(
+  input: Pick<RibStudyInput, 'kit' | 'airfoil' | 'cpTables' | 'panels' | 'flaps' | 'compressibility'>,
+  /** called with the outline and the number of conditions before the flow is solved: the work budget's place */
+  beforeFlow: (geometry: AirfoilGeometry, conditions: number) => void = () => {},
+): SectionContext {
+  const env = envelopeConditions(input.kit, input.flaps);
+  const design = designConditions(input.kit);
+  const geometry = buildAirfoil(input.airfoil, input.panels ?? DEFAULT_PANELS);
+  beforeFlow(geometry, env.conditions.length);
+  // The panel matrix depends on the geometry only: one factorisation serves every condition (and rib).
+  const flow = solvePanelMethod(geometry.points, geometry.leadingEdgeIndex);
+  const pressureRule = input.compressibility ?? 'karman-tsien';
+  const rules = [
+    ...env.rules,
+    ...geometry.rules,
+    'pressure: 2-D inviscid linear-vortex panel method (stream-function form) with the Kutta condition; the angle of each condition from its section CL',
+    pressureRule === 'none' ? 'compressibility: none (incompressible pressures, as asked)' : COMPRESSIBILITY_RULE_TEXT[pressureRule],
+  ];
+  if (input.cpTables) rules.push('Cp tables: interpolated in CL between tables of the same sign, scaled by CL/CL_table outside them');
+  return {
+    design, conditions: env.conditions, geometry, flow, tables: input.cpTables ? validateCpTables(input.cpTables) : null,
+    pressureRule, altitudeFt: input.kit.altitudeFt ?? 0, rules, warnings: [...env.warnings, ...geometry.warnings],
+  };
+}
+
+/**
+ * Pressure for every condition at a section working at `sectionRatio` × the condition's lift (Schrenk and
+ * the tail for a rib of a wing, 1 for a lone rib): from the Cp tables where they cover it, else from the
+ * panel method; then corrected to the condition's Mach number.
+ */
+export function conditionPressures(ctx: SectionContext, sectionRatio: (c: DesignCondition) => number, warnings: string[]): StudyCondition[] {
+  const { flow, tables } = ctx;
+  return ctx.conditions.map((c) => {
+    const sectionCl = c.clNeeded * sectionRatio(c);
+    const alphaRad = alphaForLiftCoefficient(flow, sectionCl);
     const alphaDeg = radToDeg(alphaRad);
-    const fromTable = tables ? cpFromTables(tables, c.clNeeded) : null;
+    const fromTable = tables ? cpFromTables(tables, sectionCl) : null;
     if (tables && !fromTable) warnings.push(`${c.label}: no Cp table for a lift coefficient of this sign; panel-method pressures used`);
     if (fromTable?.warning) warnings.push(`${c.label}: ${fromTable.warning}`);
-    const cp = fromTable ?? pressureDistribution(flow, alphaRad);
+    let cp: { upper: CpSample[]; lower: CpSample[] } = fromTable ?? pressureDistribution(flow, alphaRad);
     if (!fromTable && (c.id === 'maneuver-up-va' || Math.abs(alphaDeg) > HIGH_ALPHA_DEG)) {
-      warnings.push(`${c.label} (CL ${c.clNeeded.toFixed(2)}, α ${alphaDeg.toFixed(1)}°): inviscid suction peak near stall is conservative`);
+      warnings.push(`${c.label} (CL ${sectionCl.toFixed(2)}, α ${alphaDeg.toFixed(1)}°): inviscid suction peak near stall is conservative`);
     }
-    return { ...c, alphaRad, alphaDeg, pressureSource: fromTable ? 'Cp table' : 'panel method', cp: { upper: cp.upper, lower: cp.lower } };
+    const mach = machNumber(c.speedKeas, ctx.altitudeFt);
+    if (ctx.pressureRule !== 'none') {
+      if (mach >= WING_BOUNDS.mach.max) {
+        throw new EngineeringInputError('kit.diveSpeedKeas', `${c.label} is at Mach ${mach.toFixed(2)}: this tool stops below Mach ${WING_BOUNDS.mach.max}, where neither compressibility rule holds`);
+      }
+      const corrected = correctCpDistribution(cp, mach, ctx.pressureRule);
+      warnings.push(...corrected.warnings.map((w) => `${c.label}: ${w}`));
+      cp = { upper: corrected.upper, lower: corrected.lower };
+    }
+    return { ...c, sectionCl, mach, alphaRad, alphaDeg, pressureSource: fromTable ? 'Cp table' : 'panel method', cp: { upper: cp.upper, lower: cp.lower } };
   });
 }
 
@@ -293,6 +371,7 @@ function candidate(input: RibStudyInput, lines: PreparedStudyLine[], gaugeIn: nu
   }
   return {
     candidate: {
+      holesStored: true,
       gaugeIn,
       rivet: rivet.code,
       feasible: reasons.length === 0,
@@ -325,32 +404,63 @@ function tradeCandidate(input: RibStudyInput, c: StudyCandidate, webAreaSqIn: nu
   };
 }
 
-export function ribStudy(input: RibStudyInput): RibStudyResult {
-  const rivets = validateStudy(input);
-  const { rib } = input;
-  const panels = input.panels ?? DEFAULT_PANELS;
-  const warnings: string[] = [];
+/** Where a rib sits in its wing: its share of each condition's lift and the skin's shear flow there. */
+export interface RibPlace {
+  sectionRatio: (c: DesignCondition) => number;
+  shearFlowLbPerIn: number;
+  rules: string[];
+  warnings: string[];
+}
 
-  const design = designConditions(input.kit);
-  const geometry = buildAirfoil(input.airfoil, panels);
-  // Everything so far is small and capped; what follows runs on counts the input multiplies up.
-  const work = estimateStudyWork(input, geometry, rivets, design.conditions.length, STATION_STEP_IN);
-  requireStudyBudget(input, work, rivets.length);
-  // The panel matrix depends on the geometry only: one factorisation serves every condition.
-  const flow = solvePanelMethod(geometry.points, geometry.leadingEdgeIndex);
-  warnings.push(...design.warnings, ...geometry.warnings);
-  const conditions = conditionPressures(input, design, flow, warnings);
+/** A rib alone: the section works at the wing's CL, the wing torque (if given) by Bredt–Batho. */
+function lonePlace(input: RibStudyInput): RibPlace {
+  const rules = ['lone rib: the section taken at the wing CL of each condition (no spanwise distribution, no tail load)'];
+  const q = input.wingTorqueInLb !== undefined && input.cellAreaSqIn !== undefined ? shearFlowLbPerIn(input.wingTorqueInLb, input.cellAreaSqIn) : 0;
+  if (q !== 0) rules.push(`skin shear flow from wing torque q = T/(2A) = ${Math.abs(q).toFixed(2)} lb/in (Bredt–Batho), taken together with the largest pull at every station`);
+  return { sectionRatio: () => 1, shearFlowLbPerIn: q, rules, warnings: [] };
+}
+
+/** Checks the input and counts the work before the flow is solved (refusing what is over budget). */
+function prepareRib(input: RibStudyInput): { rivets: RivetSpec[]; ctx: SectionContext; work: StudyWork } {
+  const rivets = validateStudy(input);
+  let work: StudyWork | null = null;
+  const ctx = sectionContext(input, (geometry, conditions) => {
+    // Everything so far is small and capped; what follows runs on counts the input multiplies up.
+    const w = estimateStudyWork(input, geometry, rivets, conditions, STATION_STEP_IN);
+    requireStudyBudget(input, w, rivets.length);
+    work = w;
+  });
+  return { rivets, ctx, work: work! };
+}
+
+/** The pressures and the loads along every line of a rib at its place. */
+function ribLoads(input: RibStudyInput, ctx: SectionContext, place: RibPlace) {
+  const warnings: string[] = [];
+  const conditions = conditionPressures(ctx, place.sectionRatio, warnings);
+  const lines = lineLoads(input, ctx.geometry, conditions, place.shearFlowLbPerIn);
+  return { conditions, lines, warnings };
+}
+
+/** Keeps the holes of one candidate only: the rest can be recomputed (ribCandidate) when someone asks. */
+function keepHolesOf(candidates: StudyCandidate[], keep: { gaugeIn: number; rivet: string } | null): StudyCandidate[] {
+  return candidates.map((c) =>
+    keep && c.gaugeIn === keep.gaugeIn && c.rivet === keep.rivet ? c : { ...c, holesStored: false, lines: c.lines.map((l) => ({ ...l, holes: [] })) },
+  );
+}
+
+/**
+ * The study of a rib at its place, given its section context: the rib study of a lone rib, and of every
+ * rib of a wing (wing-study.ts).
+ */
+export function studyRibAt(input: RibStudyInput, ctx: SectionContext, place: RibPlace, work: StudyWork): RibStudyResult {
+  const { rib } = input;
+  const { conditions, lines, warnings: pressureWarnings } = ribLoads(input, ctx, place);
+  const warnings: string[] = [...ctx.warnings, ...place.warnings, ...pressureWarnings];
   const rules = [
-    ...design.rules,
-    ...geometry.rules,
-    'pressure: 2-D inviscid linear-vortex panel method (stream-function form) with the Kutta condition; the angle of each condition from its CL',
+    ...ctx.rules,
+    ...place.rules,
     `rivet tension T = max(0, Cp,int − Cp)·q·s·b with b = ${rib.spacingIn} in, Cp,int = ${rib.internalCp ?? 0}; envelope of all conditions; ultimate = 1.5 × limit`,
   ];
-  if (input.cpTables) rules.push('Cp tables: interpolated in CL between tables of the same sign, scaled by CL/CL_table outside them');
-
-  const shearFlow = input.wingTorqueInLb !== undefined && input.cellAreaSqIn !== undefined ? shearFlowLbPerIn(input.wingTorqueInLb, input.cellAreaSqIn) : 0;
-  if (shearFlow !== 0) rules.push(`skin shear flow from wing torque q = T/(2A) = ${Math.abs(shearFlow).toFixed(2)} lb/in (Bredt–Batho), taken together with the largest pull at every station`);
-  const lines = lineLoads(input, geometry, conditions, shearFlow);
 
   const candidates: StudyCandidate[] = [];
   const candidateRules: string[] = [];
@@ -366,7 +476,7 @@ export function ribStudy(input: RibStudyInput): RibStudyResult {
   const fallbacks = candidates.filter((c) => c.pullThroughBasis === 'fallback').length;
   if (fallbacks > 0) warnings.push(`${fallbacks} of ${candidates.length} candidates have no coupon data and use the conservative pull-through fallback: see their warnings`);
 
-  const outline = ribOutline(geometry, rib.chordIn);
+  const outline = ribOutline(ctx.geometry, rib.chordIn);
   const density = findMaterial(input.material, input.materialData).densityLbPerIn3;
   const trade = tradeStudy(
     candidates.map((c) => tradeCandidate(input, c, outlineAreaSqIn(outline), density)),
@@ -381,19 +491,40 @@ export function ribStudy(input: RibStudyInput): RibStudyResult {
       : `build-time proxy: ${MINUTES_PER_HOLE.solid} min per solid and ${MINUTES_PER_HOLE.pulled} min per pulled rivet (common practice)`,
   );
   warnings.push(...trade.warnings);
+  const { design } = ctx;
 
   return {
     ...envelope(input, unique(rules), unique(warnings)),
     // Stored numbers rounded to what they mean (rounding.ts; pressures and geometry to 0.0001 in their
     // units), after every check above was made at full precision.
     design: roundStored({ wingLoadingPsf: design.wingLoadingPsf, loadFactors: design.loadFactors, speeds: design.speeds, gust: design.gust }),
-    conditions: conditions.map(({ cp, ...c }) => ({ ...roundStored(c), cp: compactNumbers(cp) })),
-    airfoil: roundStored({ name: geometry.name, panels, trailingEdgeGap: geometry.trailingEdgeGap }),
+    // Pressures and loads to 0.001 (Cp, lb, in): finer than anything they are read or drawn to.
+    conditions: conditions.map(({ cp, ...c }) => ({ ...roundStored(c), cp: compactNumbers({ upper: thin(cp.upper, CP_POINTS), lower: thin(cp.lower, CP_POINTS) }, 3) })),
+    airfoil: roundStored({ name: ctx.geometry.name, panels: input.panels ?? DEFAULT_PANELS, trailingEdgeGap: ctx.geometry.trailingEdgeGap }),
     outline: { chordIn: rib.chordIn, points: compactNumbers(outline) },
     lines: compactNumbers(lines.map((d) => d.summary)),
-    candidates: compactNumbers(candidates),
+    candidates: compactNumbers(keepHolesOf(candidates, trade.recommended), 3),
     trade: roundStored(trade.rows),
     recommended: trade.recommended,
     work: { stations: work.stations, conditions: work.conditions, candidates: work.candidates, pitchGrid: work.pitchGrid, gridCells: work.gridCells, stationChecks: work.stationChecks, holes: work.holes },
   };
+}
+
+export function ribStudy(input: RibStudyInput): RibStudyResult {
+  const { ctx, work } = prepareRib(input);
+  return studyRibAt(input, ctx, lonePlace(input), work);
+}
+
+/**
+ * One candidate of a lone rib study with its holes: the stored result keeps the holes of the recommended
+ * candidate only, and this recomputes another's when someone looks at it. Refuses a candidate the study
+ * did not have.
+ */
+export function ribCandidate(input: RibStudyInput, pick: { gaugeIn: number; rivet: string }, place?: RibPlace): StudyCandidate {
+  const gaugeIndex = input.gaugeCandidates?.findIndex((g) => Math.abs(g - pick.gaugeIn) < 1e-9) ?? -1;
+  if (gaugeIndex < 0) throw new EngineeringInputError('gaugeIn', `${pick.gaugeIn} in is not one of the study's gauges`);
+  if (!input.rivetCandidates?.includes(pick.rivet)) throw new EngineeringInputError('rivet', `${pick.rivet} is not one of the study's rivets`);
+  const { ctx } = prepareRib(input);
+  const { lines } = ribLoads(input, ctx, place ?? lonePlace(input));
+  return compactNumbers(candidate(input, lines, input.gaugeCandidates[gaugeIndex], findRivet(pick.rivet, input.rivetData)).candidate, 3);
 }
