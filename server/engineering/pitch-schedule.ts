@@ -107,6 +107,8 @@ export interface PitchScheduleResult extends EngineeringResult<PitchScheduleInpu
 }
 
 const EPS = 1e-9;
+/** read once: an imported binding read in the hot loop costs a getter call once compiled to CommonJS (tsx, jest) */
+const UF = ULTIMATE_FACTOR;
 
 export function validateScheduleSettings(s: ScheduleSettings, rivetDiameterIn: number): void {
   const maxD = requireStudyBound(s.maxPitchDiameters, 'maxPitchDiameters');
@@ -201,11 +203,10 @@ export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine
   const reasons: string[] = [];
   const line = input.line;
   const prefix = input.holePrefix ?? holePrefixFor(line);
-  const { stations, along, tension, shear, lengthIn } = lineData;
+  const { stations, along, lengthIn } = lineData;
 
   const { tension: ta, shear: sa } = allow;
-  const passes = (pitch: number, w: number, q: number) =>
-    pitch * demand(w, q, ta.limitLb, sa.limitLb) <= 1 + EPS && ULTIMATE_FACTOR * pitch * demand(w, q, ta.ultimateLb, sa.ultimateLb) <= 1 + EPS;
+  const cap: Capacity = { tl: ta.limitLb, tu: ta.ultimateLb, sl: sa.limitLb, su: sa.ultimateLb };
 
   const minPitch = layout.minPitchIn;
   const maxPitch = input.maxPitchDiameters * layout.diameterIn;
@@ -214,54 +215,25 @@ export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine
   for (let k = Math.floor(maxPitch / inc + EPS); k * inc > minPitch + EPS; k--) grid.push(k * inc);
   grid.push(minPitch);
 
-  const windows = grid.map((p) => lineData.windowMax(p));
-  const passesAt = (i: number, g: number) => passes(grid[g], windows[g].tension[i], windows[g].shear[i]);
-  const needs = along.map((_, i) => {
-    // Passing is monotone in the pitch (a longer pitch carries more, over a wider window): bisect the grid.
-    let lo = 0;
-    let hi = grid.length - 1;
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (passesAt(i, mid)) hi = mid;
-      else lo = mid + 1;
-    }
-    if (passesAt(i, lo)) return { pitch: grid[lo], short: null as number | null };
-    const w = windows[grid.length - 1];
-    const worst = Math.max(demand(w.tension[i], w.shear[i], ta.limitLb, sa.limitLb), ULTIMATE_FACTOR * demand(w.tension[i], w.shear[i], ta.ultimateLb, sa.ultimateLb));
-    return { pitch: minPitch, short: 1 / worst };
-  });
+  const { needPitch, shortPitch } = stationNeeds(lineData, grid, cap);
+  const n = along.length;
 
   // The end rivets carry more than a pitch: the first carries the pull from the line's start, the edge
   // distance ahead of it, as well as half the gap behind it (the last, mirrored). Their share is
   // edge + p/2, which is more than p wherever p < 2·edge; the stretch the first (last) gap spans is held
   // to the largest pitch at which the end rivet carries that share.
   const edge = layout.minEdgeIn;
-  const endNeeds = (['first', 'last'] as const).map((end) => {
-    const a0 = along[0];
-    const a1 = along[along.length - 1];
-    const endPasses = (g: number) => {
-      const p = grid[g];
-      const share = edge + p / 2;
-      const [lo, hi] = end === 'first' ? [a0, Math.min(a1, a0 + share)] : [Math.max(a0, a1 - share), a1];
-      return passes(share, tension.maxOver(lo, hi), shear.maxOver(lo, hi));
-    };
-    let lo = 0;
-    let hi = grid.length - 1;
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (endPasses(mid)) hi = mid;
-      else lo = mid + 1;
-    }
-    return { end, pitch: grid[lo], passes: endPasses(lo) };
-  });
+  const endNeeds = [endNeed('first', lineData, grid, edge, cap), endNeed('last', lineData, grid, edge, cap)];
   const twoEnds = lengthIn >= 2 * edge + minPitch - EPS;
   if (twoEnds) {
-    const [first, last] = endNeeds;
+    const [first, final] = endNeeds;
     const reach = (p: number) => edge + p + lineData.spacingIn;
-    needs.forEach((n, i) => {
-      if (along[i] <= along[0] + reach(first.pitch) && first.pitch < n.pitch) n.pitch = first.pitch;
-      if (along[i] >= along[along.length - 1] - reach(last.pitch) && last.pitch < n.pitch) n.pitch = last.pitch;
-    });
+    const firstTo = along[0] + reach(first.pitch);
+    const lastFrom = along[n - 1] - reach(final.pitch);
+    for (let i = 0; i < n; i++) {
+      if (along[i] <= firstTo && first.pitch < needPitch[i]) needPitch[i] = first.pitch;
+      if (along[i] >= lastFrom && final.pitch < needPitch[i]) needPitch[i] = final.pitch;
+    }
     for (const e of endNeeds) {
       if (!e.passes) {
         reasons.push(
@@ -271,16 +243,7 @@ export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine
     }
   }
 
-  const insufficient: InsufficientRange[] = [];
-  needs.forEach((n, i) => {
-    if (n.short === null) return;
-    const last = insufficient[insufficient.length - 1];
-    const continues = i > 0 && needs[i - 1].short !== null;
-    if (last && continues) {
-      last.toIn = stations[i].stationIn;
-      last.neededPitchIn = Math.min(last.neededPitchIn, n.short);
-    } else insufficient.push({ fromIn: stations[i].stationIn, toIn: stations[i].stationIn, neededPitchIn: n.short });
-  });
+  const insufficient = insufficientRanges(stations, shortPitch);
   for (const r of insufficient) {
     reasons.push(
       `from station ${r.fromIn.toFixed(2)} to ${r.toIn.toFixed(2)} in the rivet would need a pitch of ${r.neededPitchIn.toFixed(3)} in, below the ${minPitch.toFixed(3)} in (3D) minimum: ${input.gaugeIn} in with ${rivet.code} is insufficient`,
@@ -288,14 +251,7 @@ export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine
   }
   if (ta.limitLb <= 0 || ta.ultimateLb <= 0) reasons.push(`the pull-through allowable of ${input.gaugeIn} in ${allow.material} with ${rivet.code} is zero by its coupons`);
 
-  const runs: Zone[] = [];
-  needs.forEach((n, i) => {
-    const from = i === 0 ? along[0] : (along[i - 1] + along[i]) / 2;
-    const to = i === along.length - 1 ? along[i] : (along[i] + along[i + 1]) / 2;
-    const last = runs[runs.length - 1];
-    if (last && Math.abs(last.pitch - n.pitch) < EPS) last.to = to;
-    else runs.push({ from, to, pitch: n.pitch });
-  });
+  const runs = pitchRuns(along, needPitch);
   const coarse = coarsenRuns(runs);
   if (coarse.merged) {
     warnings.push(`the needed pitch changes ${runs.length} times along ${line}: neighbouring stretches were merged, each keeping the tighter pitch, before zoning`);
@@ -303,64 +259,17 @@ export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine
   const zones = groupIntoZones(coarse.runs, input.maxZones);
 
   const start = along[0] + edge;
-  const end = along[along.length - 1] - edge;
+  const end = along[n - 1] - edge;
   const placed = placeHoles(zones, start, end, minPitch);
   if (placed.positions.length === 0) reasons.push(`the line (${lengthIn.toFixed(3)} in) is shorter than twice the ${edge.toFixed(3)} in edge distance`);
   if (placed.note) warnings.push(placed.note);
 
-  const zoneOf = (pos: number) => Math.max(0, zones.findIndex((z) => pos <= z.to + EPS));
-  const pos = placed.positions;
-  const holes: ScheduleHole[] = pos.map((h, k) => {
-    const before = k > 0 ? h - pos[k - 1] : undefined;
-    const after = k < pos.length - 1 ? pos[k + 1] - h : undefined;
-    // The end rivets' shares run to the line's ends: what lies beyond them is theirs too.
-    const lo = before === undefined ? along[0] : h - before / 2;
-    const hi = after === undefined ? along[along.length - 1] : h + after / 2;
-    const tributaryIn = hi - lo;
-    const t = tension.maxOver(lo, hi) * tributaryIn;
-    const v = shear.maxOver(lo, hi) * tributaryIn;
-    return {
-      id: `${prefix}-${String(k + 1).padStart(pos.length > 99 ? 3 : 2, '0')}`,
-      line,
-      stationIn: lineData.station.at(h),
-      alongIn: h,
-      ...(lineData.x && lineData.y ? { xIn: lineData.x.at(h), yIn: lineData.y.at(h) } : {}),
-      zone: zoneOf(h),
-      tributaryIn,
-      appliedLimitLb: t,
-      appliedUltimateLb: ULTIMATE_FACTOR * t,
-      appliedLimitShearLb: v,
-      msLimit: combinedMargin(t, v, ta.limitLb, sa.limitLb),
-      msUltimate: combinedMargin(ULTIMATE_FACTOR * t, ULTIMATE_FACTOR * v, ta.ultimateLb, sa.ultimateLb),
-    };
-  });
-  const lowest = (h: ScheduleHole) => Math.min(h.msLimit ?? Infinity, h.msUltimate ?? Infinity);
-  const failing = holes.filter((h) => lowest(h) < -EPS);
+  const holes = scheduleHoles(placed.positions, zones, lineData, line, prefix, cap);
+  const failing = holes.filter((h) => lowestMargin(h) < -EPS);
   if (failing.length > 0 && insufficient.length === 0) {
     reasons.push(`${failing.length} rivet(s) have a negative margin of safety (first ${failing[0].id})`);
   }
-
-  const zoneReports: ScheduleZone[] = zones.map((z, i) => {
-    const inZone = holes.filter((h) => h.zone === i);
-    const worst = inZone.reduce<ScheduleHole | null>((w, h) => (w === null || lowest(h) < lowest(w) ? h : w), null);
-    return {
-      fromIn: lineData.station.at(z.from),
-      toIn: lineData.station.at(z.to),
-      fromAlongIn: z.from,
-      toAlongIn: z.to,
-      pitchIn: z.pitch,
-      count: inZone.length,
-      worstStationIn: worst ? worst.stationIn : lineData.station.at((z.from + z.to) / 2),
-      worstHoleId: worst ? worst.id : null,
-      appliedLimitLb: worst ? worst.appliedLimitLb : 0,
-      appliedUltimateLb: worst ? worst.appliedUltimateLb : 0,
-      limitAllowableLb: ta.limitLb,
-      ultimateAllowableLb: ta.ultimateLb,
-      appliedLimitShearLb: worst ? worst.appliedLimitShearLb : 0,
-      msLimit: worst ? worst.msLimit : null,
-      msUltimate: worst ? worst.msUltimate : null,
-    };
-  });
+  const zoneReports = reportZones(zones, holes, lineData, cap);
 
   return {
     ...envelope(input, rules, warnings),
@@ -377,4 +286,183 @@ export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine
     holes,
     insufficient,
   };
+}
+
+/** The allowables the checks read, as plain numbers: limit and ultimate, tension and shear, lb. */
+interface Capacity {
+  tl: number;
+  tu: number;
+  sl: number;
+  su: number;
+}
+
+/** Whether a rivet at `pitch` under a pull w and a shear q per inch passes at limit and at ultimate. */
+function passes(pitch: number, w: number, q: number, c: Capacity): boolean {
+  return pitch * demand(w, q, c.tl, c.sl) <= 1 + EPS && UF * pitch * demand(w, q, c.tu, c.su) <= 1 + EPS;
+}
+
+/**
+ * The pitch every station needs: the longest on the grid (longest first, the 3D minimum last) that
+ * carries the largest load within its reach. Where not even the minimum does, the pitch it would need
+ * is kept in `shortPitch` (NaN elsewhere). This is the hot loop of a study (every station of every line
+ * for every candidate): typed arrays, and no object per station.
+ */
+function stationNeeds(lineData: PreparedLine, grid: number[], c: Capacity): { needPitch: Float64Array; shortPitch: Float64Array } {
+  const n = lineData.along.length;
+  const last = grid.length - 1;
+  const tension: Float64Array[] = [];
+  const shear: Float64Array[] = [];
+  for (const p of grid) {
+    const w = lineData.windowMax(p);
+    tension.push(w.tension);
+    shear.push(w.shear);
+  }
+  const passesAt = (i: number, g: number) => passes(grid[g], tension[g][i], shear[g][i], c);
+  const needPitch = new Float64Array(n);
+  const shortPitch = new Float64Array(n).fill(NaN);
+  let hint = last >> 1;
+  for (let i = 0; i < n; i++) {
+    // Passing is monotone in the pitch (a longer pitch carries more, over a wider window), so the first
+    // passing grid index is found by bisection. Neighbouring stations mostly need the same pitch: the
+    // previous station's answer is tried first, which takes one or two checks instead of a bisection.
+    let lo: number;
+    let hi: number;
+    if (passesAt(i, hint)) {
+      if (hint === 0 || !passesAt(i, hint - 1)) {
+        needPitch[i] = grid[hint];
+        continue;
+      }
+      lo = 0;
+      hi = hint - 1;
+    } else {
+      lo = Math.min(hint + 1, last);
+      hi = last;
+    }
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (passesAt(i, mid)) hi = mid;
+      else lo = mid + 1;
+    }
+    hint = lo;
+    needPitch[i] = grid[lo];
+    if (!passesAt(i, lo)) {
+      const w = tension[last][i];
+      const q = shear[last][i];
+      shortPitch[i] = 1 / Math.max(demand(w, q, c.tl, c.sl), UF * demand(w, q, c.tu, c.su));
+    }
+  }
+  return { needPitch, shortPitch };
+}
+
+/** The longest pitch on the grid at which an end rivet carries its share: the edge distance and half a gap. */
+function endNeed(end: 'first' | 'last', lineData: PreparedLine, grid: number[], edge: number, c: Capacity): { end: 'first' | 'last'; pitch: number; passes: boolean } {
+  const { along, tension, shear } = lineData;
+  const a0 = along[0];
+  const a1 = along[along.length - 1];
+  const endPasses = (g: number) => {
+    const share = edge + grid[g] / 2;
+    const lo = end === 'first' ? a0 : Math.max(a0, a1 - share);
+    const hi = end === 'first' ? Math.min(a1, a0 + share) : a1;
+    return passes(share, tension.maxOver(lo, hi), shear.maxOver(lo, hi), c);
+  };
+  let lo = 0;
+  let hi = grid.length - 1;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (endPasses(mid)) hi = mid;
+    else lo = mid + 1;
+  }
+  return { end, pitch: grid[lo], passes: endPasses(lo) };
+}
+
+/** Neighbouring stations that not even the minimum pitch carries, as ranges with the pitch they would need. */
+function insufficientRanges(stations: StationLoad[], shortPitch: Float64Array): InsufficientRange[] {
+  const ranges: InsufficientRange[] = [];
+  for (let i = 0; i < shortPitch.length; i++) {
+    if (Number.isNaN(shortPitch[i])) continue;
+    const range = ranges[ranges.length - 1];
+    if (range && i > 0 && !Number.isNaN(shortPitch[i - 1])) {
+      range.toIn = stations[i].stationIn;
+      range.neededPitchIn = Math.min(range.neededPitchIn, shortPitch[i]);
+    } else ranges.push({ fromIn: stations[i].stationIn, toIn: stations[i].stationIn, neededPitchIn: shortPitch[i] });
+  }
+  return ranges;
+}
+
+/** Stretches of one needed pitch; each station stands for the line halfway to its neighbours. */
+function pitchRuns(along: number[], needPitch: Float64Array): Zone[] {
+  const n = along.length;
+  const runs: Zone[] = [];
+  for (let i = 0; i < n; i++) {
+    const from = i === 0 ? along[0] : (along[i - 1] + along[i]) / 2;
+    const to = i === n - 1 ? along[i] : (along[i] + along[i + 1]) / 2;
+    const run = runs[runs.length - 1];
+    if (run && Math.abs(run.pitch - needPitch[i]) < EPS) run.to = to;
+    else runs.push({ from, to, pitch: needPitch[i] });
+  }
+  return runs;
+}
+
+/** Each hole with its share of the line, the largest loads over that share and its margins. */
+function scheduleHoles(pos: number[], zones: Zone[], lineData: PreparedLine, line: string, prefix: string, c: Capacity): ScheduleHole[] {
+  const { along, tension, shear, station, x, y } = lineData;
+  const width = pos.length > 99 ? 3 : 2;
+  const holes: ScheduleHole[] = [];
+  // Positions and zones both ascend: the zone of a hole is the first that reaches it, found by walking on.
+  let z = 0;
+  for (let k = 0; k < pos.length; k++) {
+    const h = pos[k];
+    while (z < zones.length && !(h <= zones[z].to + EPS)) z++;
+    // The end rivets' shares run to the line's ends: what lies beyond them is theirs too.
+    const lo = k === 0 ? along[0] : h - (h - pos[k - 1]) / 2;
+    const hi = k === pos.length - 1 ? along[along.length - 1] : h + (pos[k + 1] - h) / 2;
+    const tributaryIn = hi - lo;
+    const t = tension.maxOver(lo, hi) * tributaryIn;
+    const v = shear.maxOver(lo, hi) * tributaryIn;
+    const id = `${prefix}-${String(k + 1).padStart(width, '0')}`;
+    const stationIn = station.at(h);
+    const zone = z < zones.length ? z : 0;
+    const msLimit = combinedMargin(t, v, c.tl, c.sl);
+    const msUltimate = combinedMargin(UF * t, UF * v, c.tu, c.su);
+    // Two literals rather than a spread: one shape per kind of line, and the same key order either way.
+    holes.push(
+      x && y
+        ? { id, line, stationIn, alongIn: h, xIn: x.at(h), yIn: y.at(h), zone, tributaryIn, appliedLimitLb: t, appliedUltimateLb: UF * t, appliedLimitShearLb: v, msLimit, msUltimate }
+        : { id, line, stationIn, alongIn: h, zone, tributaryIn, appliedLimitLb: t, appliedUltimateLb: UF * t, appliedLimitShearLb: v, msLimit, msUltimate },
+    );
+  }
+  return holes;
+}
+
+const lowestMargin = (h: ScheduleHole) => Math.min(h.msLimit ?? Infinity, h.msUltimate ?? Infinity);
+
+/** Per zone: its holes, and the one with the lowest margin (the first of equals), in one pass over the holes. */
+function reportZones(zones: Zone[], holes: ScheduleHole[], lineData: PreparedLine, c: Capacity): ScheduleZone[] {
+  const count = new Array<number>(zones.length).fill(0);
+  const worstOf = new Array<ScheduleHole | null>(zones.length).fill(null);
+  for (const h of holes) {
+    count[h.zone]++;
+    const w = worstOf[h.zone];
+    if (w === null || lowestMargin(h) < lowestMargin(w)) worstOf[h.zone] = h;
+  }
+  return zones.map((z, i) => {
+    const worst = worstOf[i];
+    return {
+      fromIn: lineData.station.at(z.from),
+      toIn: lineData.station.at(z.to),
+      fromAlongIn: z.from,
+      toAlongIn: z.to,
+      pitchIn: z.pitch,
+      count: count[i],
+      worstStationIn: worst ? worst.stationIn : lineData.station.at((z.from + z.to) / 2),
+      worstHoleId: worst ? worst.id : null,
+      appliedLimitLb: worst ? worst.appliedLimitLb : 0,
+      appliedUltimateLb: worst ? worst.appliedUltimateLb : 0,
+      limitAllowableLb: c.tl,
+      ultimateAllowableLb: c.tu,
+      appliedLimitShearLb: worst ? worst.appliedLimitShearLb : 0,
+      msLimit: worst ? worst.msLimit : null,
+      msUltimate: worst ? worst.msUltimate : null,
+    };
+  });
 }
