@@ -89,6 +89,15 @@ export const WING_BOUNDS = {
   'planform.taperRatio': { what: 'the taper ratio (tip chord / root chord)', min: 0.1, max: 1, unit: '' },
   /** η = 2y/b, from the root (0) to the tip (1) */
   eta: { what: 'the span station η = 2y/b', min: 0, max: 1, unit: '' },
+  /** a rib's distance from the centre line (within the half-span, checked with the planform) */
+  'ribs[].stationIn': { what: 'the rib station', min: 0, max: 600, unit: 'in' },
+  // The tail and the box of a wing study.
+  'tail.armIn': { what: 'the tail arm', min: 24, max: 600, unit: 'in' },
+  /** positive down; a tail that lifts at 1 g is a negative number */
+  'tail.balancingLoadLb': { what: 'the tail balancing load', min: -5_000, max: 5_000, unit: 'lb' },
+  'spars.frontXc': { what: 'the front spar position', min: 0.05, max: 0.5, unit: 'x/c' },
+  'spars.rearXc': { what: 'the rear spar position', min: 0.2, max: 0.9, unit: 'x/c' },
+  'spars.capAreaSqIn': { what: 'the spar-cap area on one surface', min: 0, max: 20, unit: 'in²' },
 
   // Compressibility: subsonic and below the transonic range, where neither rule holds.
   mach: { what: 'the Mach number', min: 0, max: 0.7, unit: '', maxExclusive: true },

@@ -1,0 +1,235 @@
+import type { Surface } from './airfoil';
+import type { CouponTest } from './coupons';
+import { endFixity, interRivetPitchLimitIn, INTER_RIVET_RULE, rivetHeadOf } from './inter-rivet-buckling';
+import { layoutRules, rivetWeightLb } from './layout';
+import { findMaterial, findRivet, type RivetSpec, type SheetMaterial } from './materials';
+import { pitchSchedule, prepareStations, type PitchScheduleResult, type StationLoad } from './pitch-schedule';
+import { panelBuckling, sheetBucklingProperties } from './plate-buckling';
+
+/**
+ * One skin panel of a wing box: the sheet on one surface between two ribs and the front and rear spars,
+ * riveted along both spars (spanwise lines) and along both ribs (chordwise lines). What its rivets carry:
+ *
+ * - pull from the pressure (suction) on the panel: along a rib line over the rib's tributary width, as
+ *   for the rib; along a spar line over half the panel's shorter side (a plate between its supports puts
+ *   about that on each long edge);
+ * - shear from the wing's torsion, q_t = T/(2A) (Bredt–Batho, single cell between the spars);
+ * - shear from bending where the skin carries it: the skin and the spar caps of one surface carry the
+ *   bending moment as a couple over the box depth h, so the skin's spanwise load grows inboard at
+ *   dP/dy = V·(w·t/2)/(h·(A_caps + w·t)) per spar line, which its spar-line rivets pass into the cap;
+ * - on the compression surface, the sheet between two rivets of a spanwise line buckles as a column:
+ *   σ_ir = 0.9·c·E·(t/p)² sets the largest pitch (inter-rivet-buckling.ts);
+ * - the panel itself buckles in shear at τ_cr = k_s·π²E/(12(1 − ν²))·(t/b)² and in compression at
+ *   k = 4.0 (plate-buckling.ts): its margins are reported, and whether the design relies on post-buckled
+ *   diagonal tension (not credited here).
+ *
+ * Tension and shear are taken together at every station (the largest of each over all conditions: on
+ * the safe side), combined by (Rt)² + (Rs)² ≤ 1 in the pitch schedule.
+ */
+
+export interface SkinPanelSpec {
+  name: string;
+  surface: Surface;
+  innerRib: string;
+  outerRib: string;
+  innerStationIn: number;
+  outerStationIn: number;
+  /** box width between the spars (w), depth between the skins (h) and enclosed area, at the inner rib */
+  boxWidthIn: number;
+  boxDepthIn: number;
+  cellAreaSqIn: number;
+  /** spar-cap area on this surface (both spars), in² */
+  capAreaSqIn: number;
+  /** limit loads at the inner rib (larger than at the outer), magnitudes over every condition */
+  torqueInLb: number;
+  shearLb: number;
+  /** the largest bending moment that puts this surface in compression, in·lb (0 if none does) */
+  compressionMomentInLb: number;
+  /** the largest pull per inch along each spar line from the surface pressure, lb/in (limit) */
+  sparPullLbPerIn: { front: number; rear: number };
+  /** tension per inch along each rib line between the spars (limit): stations as for a rib line */
+  ribLines: { inner: StationLoad[]; outer: StationLoad[] };
+}
+
+export interface SkinSettings {
+  material: string;
+  gaugeCandidates: number[];
+  rivetCandidates: string[];
+  maxPitchDiameters: number;
+  pitchIncrementIn: number;
+  maxZones: number;
+  minutesPerHole?: number;
+  coupons?: CouponTest[];
+  pullThroughFallbackFraction?: number;
+  materialData?: SheetMaterial[];
+  rivetData?: RivetSpec[];
+}
+
+export type SkinLineSchedule = Omit<PitchScheduleResult, 'inputs' | 'rules' | 'caution' | 'warnings'>;
+
+export interface SkinCandidate {
+  gaugeIn: number;
+  rivet: string;
+  feasible: boolean;
+  reasons: string[];
+  warnings: string[];
+  /** the shear flows on this gauge, lb/in (limit) */
+  torsionShearFlowLbPerIn: number;
+  bendingShearFlowLbPerIn: number;
+  /** spanwise compression in the skin, psi (limit); 0 on the tension surface */
+  compressionPsi: number;
+  interRivet: { endFixity: number; source: string; pitchLimitIn: number | null };
+  shearBuckling: { criticalPsi: number; appliedPsi: number; marginOfSafety: number | null; diagonalTension: boolean };
+  compressionBuckling: { criticalPsi: number; appliedPsi: number; marginOfSafety: number | null };
+  rivetCount: number;
+  weightLb: number;
+  buildMinutes: number;
+  lines: SkinLineSchedule[];
+}
+
+export interface SkinPanelResult {
+  name: string;
+  surface: Surface;
+  innerRib: string;
+  outerRib: string;
+  innerStationIn: number;
+  outerStationIn: number;
+  widthIn: number;
+  boxWidthIn: number;
+  boxDepthIn: number;
+  candidates: SkinCandidate[];
+  /** the lightest feasible candidate (fewest rivets between equals) */
+  recommended: { gaugeIn: number; rivet: string } | null;
+}
+
+const STATION_STEP_IN = 0.1;
+const MINUTES_PER_HOLE = { solid: 1.5, pulled: 1.0 };
+
+export const SKIN_RULES = [
+  'skin panel: pull from pressure along a rib line over the rib\'s tributary width; along a spar line over half the panel\'s shorter side',
+  'skin shear from torsion q_t = T/(2A) over the box between the spars (Bredt–Batho, single cell)',
+  'skin shear from bending at the spar lines q_b = V·(w·t/2)/(h·(A_caps + w·t)) (skin and caps as a couple over the box depth)',
+  INTER_RIVET_RULE,
+  'panel buckling: long plate, simply supported, k = 4.0 in compression and k_s = 5.35 in shear (Timoshenko & Gere), Johnson above half the yield',
+];
+
+function lineStations(lengthIn: number, tension: number, shear: number): StationLoad[] {
+  const count = Math.max(2, Math.ceil(lengthIn / STATION_STEP_IN) + 1);
+  return Array.from({ length: count }, (_, k) => {
+    const along = (lengthIn * k) / (count - 1);
+    return { stationIn: along, alongIn: along, limitTensionLbPerIn: tension, limitShearLbPerIn: shear, xIn: along, yIn: 0 };
+  });
+}
+
+const strip = (s: PitchScheduleResult): SkinLineSchedule => {
+  const { inputs, rules, caution, warnings, ...rest } = s;
+  void inputs, void rules, void caution, void warnings;
+  return rest;
+};
+
+export function skinPanelStudy(spec: SkinPanelSpec, settings: SkinSettings): SkinPanelResult {
+  const widthIn = spec.outerStationIn - spec.innerStationIn;
+  const props = sheetBucklingProperties(settings.material, settings.materialData);
+  const density = findMaterial(settings.material, settings.materialData).densityLbPerIn3;
+  const qt = spec.torqueInLb / (2 * spec.cellAreaSqIn);
+  const shortSide = Math.min(widthIn, spec.boxWidthIn);
+  const candidates: SkinCandidate[] = [];
+  for (const gaugeIn of settings.gaugeCandidates) {
+    const carrying = spec.capAreaSqIn + spec.boxWidthIn * gaugeIn;
+    const compressionPsi = spec.compressionMomentInLb / (spec.boxDepthIn * carrying);
+    const qb = (spec.shearLb * spec.boxWidthIn * gaugeIn) / (2 * spec.boxDepthIn * carrying);
+    for (const code of settings.rivetCandidates) {
+      const rivet = findRivet(code, settings.rivetData);
+      const layout = layoutRules(rivet);
+      const reasons: string[] = [];
+      const warnings: string[] = [];
+      const fix = endFixity(rivetHeadOf(rivet));
+      const pitchLimitIn =
+        compressionPsi > 0 ? interRivetPitchLimitIn(fix.c, props.elasticModulusPsi, props.compressiveYieldPsi, gaugeIn, Math.min(compressionPsi, 200_000)) : null;
+      let sparMaxDiameters = settings.maxPitchDiameters;
+      if (compressionPsi >= props.compressiveYieldPsi) {
+        reasons.push(`the skin's ${compressionPsi.toFixed(0)} psi compression reaches its yield: a thicker skin or larger spar caps are needed`);
+        sparMaxDiameters = 3;
+      } else if (pitchLimitIn !== null) {
+        const limitD = pitchLimitIn / layout.diameterIn;
+        if (limitD < 3) {
+          reasons.push(`the skin buckles between rivets even at the 3D minimum pitch (largest pitch ${pitchLimitIn.toFixed(3)} in at ${compressionPsi.toFixed(0)} psi)`);
+          sparMaxDiameters = 3;
+        } else if (limitD < sparMaxDiameters) {
+          sparMaxDiameters = limitD;
+        }
+      }
+      const schedule = (line: string, prefix: string, stations: StationLoad[], maxD: number) =>
+        pitchSchedule(
+          {
+            line,
+            holePrefix: prefix,
+            stations,
+            material: settings.material,
+            gaugeIn,
+            rivetSpec: rivet.code,
+            coupons: settings.coupons,
+            maxPitchDiameters: maxD,
+            pitchIncrementIn: Math.min(settings.pitchIncrementIn, maxD * layout.diameterIn),
+            maxZones: settings.maxZones,
+            pullThroughFallbackFraction: settings.pullThroughFallbackFraction,
+            materialData: settings.materialData,
+            rivetData: settings.rivetData,
+          },
+          prepareStations(stations),
+        );
+      const sparShear = qt + qb;
+      const ribShear = qt;
+      const lines = [
+        schedule('front spar', 'FS', lineStations(widthIn, spec.sparPullLbPerIn.front, sparShear), sparMaxDiameters),
+        schedule('rear spar', 'RS', lineStations(widthIn, spec.sparPullLbPerIn.rear, sparShear), sparMaxDiameters),
+        schedule(`rib ${spec.innerRib}`, 'IR', spec.ribLines.inner.map((s) => ({ ...s, limitShearLbPerIn: ribShear })), settings.maxPitchDiameters),
+        schedule(`rib ${spec.outerRib}`, 'OR', spec.ribLines.outer.map((s) => ({ ...s, limitShearLbPerIn: ribShear })), settings.maxPitchDiameters),
+      ];
+      for (const l of lines) reasons.push(...l.reasons.map((r) => `${l.line}: ${r}`));
+      for (const l of lines) warnings.push(...l.warnings);
+      const tau = sparShear / gaugeIn;
+      const shear = panelBuckling({
+        loading: 'shear', edges: 'simply-supported', ...props, thicknessIn: gaugeIn, widthIn: Math.min(60, shortSide), appliedStressPsi: Math.min(tau, 200_000),
+      });
+      const compression = panelBuckling({
+        loading: 'compression', edges: 'simply-supported', ...props, thicknessIn: gaugeIn, widthIn: Math.min(60, shortSide), appliedStressPsi: Math.min(compressionPsi, 200_000),
+      });
+      if (shear.diagonalTension.reliedOn) warnings.push(`panel ${spec.name}: ${shear.diagonalTension.note}`);
+      if (compression.buckles) warnings.push(`panel ${spec.name}: the skin buckles in compression at ${compression.criticalPsi.toFixed(0)} psi under ${compressionPsi.toFixed(0)} psi; stringers or a thicker skin would carry it unbuckled (post-buckled strength is not credited)`);
+      const rivetCount = lines.reduce((n, l) => n + l.holes.length, 0);
+      const grip = 2 * gaugeIn;
+      candidates.push({
+        gaugeIn,
+        rivet: rivet.code,
+        feasible: reasons.length === 0,
+        reasons,
+        warnings: [...new Set(warnings)],
+        torsionShearFlowLbPerIn: qt,
+        bendingShearFlowLbPerIn: qb,
+        compressionPsi,
+        interRivet: { endFixity: fix.c, source: fix.source, pitchLimitIn },
+        shearBuckling: { criticalPsi: shear.criticalPsi, appliedPsi: tau, marginOfSafety: shear.marginOfSafety, diagonalTension: shear.diagonalTension.reliedOn },
+        compressionBuckling: { criticalPsi: compression.criticalPsi, appliedPsi: compressionPsi, marginOfSafety: compression.marginOfSafety },
+        rivetCount,
+        weightLb: widthIn * spec.boxWidthIn * gaugeIn * density + rivetCount * rivetWeightLb(rivet, grip),
+        buildMinutes: rivetCount * (settings.minutesPerHole ?? MINUTES_PER_HOLE[rivet.kind]),
+        lines: lines.map(strip),
+      });
+    }
+  }
+  const feasible = candidates.filter((c) => c.feasible).sort((a, b) => a.weightLb - b.weightLb || a.rivetCount - b.rivetCount);
+  return {
+    name: spec.name,
+    surface: spec.surface,
+    innerRib: spec.innerRib,
+    outerRib: spec.outerRib,
+    innerStationIn: spec.innerStationIn,
+    outerStationIn: spec.outerStationIn,
+    widthIn,
+    boxWidthIn: spec.boxWidthIn,
+    boxDepthIn: spec.boxDepthIn,
+    candidates,
+    recommended: feasible.length ? { gaugeIn: feasible[0].gaugeIn, rivet: feasible[0].rivet } : null,
+  };
+}
