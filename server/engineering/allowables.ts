@@ -1,8 +1,8 @@
-import { couponAllowables, GAUGE_MATCH_TOLERANCE_IN, groupCouponAllowables, validateCoupons, type CouponTest } from './coupons';
+import { COUPON_RULES, GAUGE_MATCH_TOLERANCE_IN, groupCouponAllowables, matchedCouponAllowables, validateCoupons, type CouponTest } from './coupons';
 import { EngineeringInputError } from './errors';
 import { layoutRules } from './layout';
 import { findMaterial, findRivet, type RivetSpec, type SheetMaterial } from './materials';
-import { envelope, type EngineeringResult } from './result';
+import { ENGINEERING_CAUTION, type EngineeringResult } from './result';
 import { requireInRange, requireNonNegative, requirePositive } from './validate';
 
 /**
@@ -90,7 +90,8 @@ export function combinedMargin(tensionLb: number, shearLb: number, tensionAllowa
   if (tensionLb <= 0 && shearLb <= 0) return null;
   const rt = tensionLb <= 0 ? 0 : tensionAllowableLb > 0 ? tensionLb / tensionAllowableLb : Infinity;
   const rs = shearLb <= 0 ? 0 : shearAllowableLb > 0 ? shearLb / shearAllowableLb : Infinity;
-  const r = Math.hypot(rt, rs);
+  // hypot is slow in V8; with one ratio zero it is exactly the other, which is the common case (no torque).
+  const r = rs === 0 ? rt : rt === 0 ? rs : Math.hypot(rt, rs);
   return Number.isFinite(r) ? 1 / r - 1 : -1;
 }
 
@@ -102,7 +103,11 @@ export function combinedMargin(tensionLb: number, shearLb: number, tensionAllowa
  * - never more than the supplier's coupons show for the same rivet in the same or a thicker gauge, of
  *   any sheet material: a thinner flange does not hold more than a thicker one was shown to.
  */
-export function pullThroughFallback(p: { fraction: number; bearingUltimateLb: number; rivetCode: string; gaugeIn: number; coupons: CouponTest[] }): {
+export function pullThroughFallback(
+  p: { fraction: number; bearingUltimateLb: number; rivetCode: string; gaugeIn: number; coupons: CouponTest[] },
+  /** `validateCoupons(p.coupons)`, when the caller has it already */
+  validated?: CouponTest[],
+): {
   limitLb: number;
   ultimateLb: number;
   cappedBy: { gaugeIn: number; material: string } | null;
@@ -120,7 +125,7 @@ export function pullThroughFallback(p: { fraction: number; bearingUltimateLb: nu
   ];
   const warnings: string[] = [];
   const code = p.rivetCode.trim().toUpperCase();
-  const sameRivet = validateCoupons(p.coupons).filter((t) => t.rivetSpec.trim().toUpperCase() === code && t.gaugeIn >= p.gaugeIn - GAUGE_MATCH_TOLERANCE_IN);
+  const sameRivet = (validated ?? validateCoupons(p.coupons)).filter((t) => t.rivetSpec.trim().toUpperCase() === code && t.gaugeIn >= p.gaugeIn - GAUGE_MATCH_TOLERANCE_IN);
   let cappedBy: { gaugeIn: number; material: string } | null = null;
   // Groups come sorted by material, then gauge: the thinnest binding one is named.
   for (const g of groupCouponAllowables(sameRivet)) {
@@ -164,7 +169,8 @@ export function jointAllowables(input: JointInput): JointAllowables {
 
   const rivetTension = rivetTensionStrengthLb(rivet);
   if (rivet.tensionLb === undefined) rules.push(`solid rivet tension taken as ${rivet.countersunk ? '50' : '70'} % of its shear strength (head-limited; our assumption)`);
-  const coupons = couponAllowables(input.coupons ?? [], { material: material.key, gaugeIn, rivetSpec: rivet.code });
+  const tests = validateCoupons(input.coupons ?? []);
+  const coupons = matchedCouponAllowables(tests, { material: material.key, gaugeIn, rivetSpec: rivet.code });
   let basis: 'coupons' | 'fallback';
   let pullThroughLimitLb: number;
   let pullThroughUltimateLb: number;
@@ -172,11 +178,11 @@ export function jointAllowables(input: JointInput): JointAllowables {
     basis = 'coupons';
     pullThroughLimitLb = coupons.limitLb;
     pullThroughUltimateLb = coupons.ultimateLb;
-    rules.push(...coupons.rules);
+    rules.push(...COUPON_RULES);
     warnings.push(...coupons.warnings);
   } else {
     basis = 'fallback';
-    const fallback = pullThroughFallback({ fraction, bearingUltimateLb, rivetCode: rivet.code, gaugeIn, coupons: input.coupons ?? [] });
+    const fallback = pullThroughFallback({ fraction, bearingUltimateLb, rivetCode: rivet.code, gaugeIn, coupons: input.coupons ?? [] }, tests);
     pullThroughUltimateLb = fallback.ultimateLb;
     pullThroughLimitLb = fallback.limitLb;
     rules.push(...fallback.rules);
@@ -187,8 +193,13 @@ export function jointAllowables(input: JointInput): JointAllowables {
   }
   if (rivet.kind === 'pulled') warnings.push(`${rivet.code}: ${rivet.source}`);
 
+  // Spelled out rather than `...envelope(…)` followed by more fields: V8 builds such a literal some 50
+  // times slower, and a rib study asks for the allowables of every candidate on every line.
   return {
-    ...envelope(input, rules, warnings),
+    inputs: input,
+    rules,
+    warnings,
+    caution: ENGINEERING_CAUTION,
     material: material.key,
     rivetSpec: rivet.code,
     gaugeIn,

@@ -1,5 +1,5 @@
 import { EngineeringInputError } from './errors';
-import { envelope, type EngineeringResult } from './result';
+import { ENGINEERING_CAUTION, type EngineeringResult } from './result';
 import { requireCount, requireStudyBound, STUDY_BOUNDS } from './bounds';
 import { requireArray, requireOneOf, requirePositive } from './validate';
 
@@ -77,6 +77,16 @@ export function matchesCoupon(test: CouponTest, q: CouponQuery): boolean {
   );
 }
 
+/** The tests `matchesCoupon` takes, with the query normalised once rather than once per test. */
+function matchingCoupons(tests: CouponTest[], q: CouponQuery): CouponTest[] {
+  if (tests.length === 0) return [];
+  const material = q.material.trim().toUpperCase();
+  const rivetSpec = q.rivetSpec.trim().toUpperCase();
+  return tests.filter(
+    (t) => t.material.trim().toUpperCase() === material && t.rivetSpec.trim().toUpperCase() === rivetSpec && Math.abs(t.gaugeIn - q.gaugeIn) <= GAUGE_MATCH_TOLERANCE_IN,
+  );
+}
+
 const highestBelow = (tests: CouponTest[], good: CouponOutcome[], bad: CouponOutcome[]): number => {
   const worst = Math.min(Infinity, ...tests.filter((t) => bad.includes(t.outcome)).map((t) => t.loadLb));
   return Math.max(0, ...tests.filter((t) => good.includes(t.outcome) && t.loadLb < worst).map((t) => t.loadLb));
@@ -84,17 +94,29 @@ const highestBelow = (tests: CouponTest[], good: CouponOutcome[], bad: CouponOut
 
 export function couponAllowables(tests: CouponTest[], query: CouponQuery): CouponAllowables {
   const all = validateCoupons(tests);
-  const matched = all.filter((t) => matchesCoupon(t, query));
+  const { matched, limitLb, ultimateLb, warnings } = matchedCouponAllowables(all, query);
+  // Spelled out rather than `...envelope(…)` followed by more fields: V8 builds such a literal some 50
+  // times slower, and every candidate of a study comes through here.
+  return { inputs: { ...query, tests: all }, rules: COUPON_RULES, warnings, caution: ENGINEERING_CAUTION, matched, limitLb, ultimateLb };
+}
+
+/**
+ * `couponAllowables` on tests already validated, without the record of its inputs: what a study's
+ * allowables read. Limit and ultimate are null when no test matches.
+ */
+export function matchedCouponAllowables(
+  tests: CouponTest[],
+  query: CouponQuery,
+): { matched: CouponTest[]; limitLb: number | null; ultimateLb: number | null; warnings: string[] } {
+  const matched = matchingCoupons(tests, query);
   const label = `${query.gaugeIn} in ${query.material} with ${query.rivetSpec}`;
+  if (matched.length === 0) return { matched, limitLb: null, ultimateLb: null, warnings: [`no coupon tests for ${label}`] };
   const warnings: string[] = [];
-  if (matched.length === 0) {
-    return { ...envelope({ ...query, tests: all }, COUPON_RULES, [`no coupon tests for ${label}`]), matched, limitLb: null, ultimateLb: null };
-  }
   const limitLb = highestBelow(matched, ['no_deformation'], ['slight_deformation', 'excessive_deformation', 'failure']);
   const ultimateLb = highestBelow(matched, ['no_deformation', 'slight_deformation'], ['excessive_deformation', 'failure']);
   if (limitLb === 0) warnings.push(`no coupon of ${label} came through without permanent deformation: limit allowable 0`);
   if (ultimateLb === 0) warnings.push(`no coupon of ${label} carried its load without excessive deformation or failure: ultimate allowable 0`);
-  return { ...envelope({ ...query, tests: all }, COUPON_RULES, warnings), matched, limitLb, ultimateLb };
+  return { matched, limitLb, ultimateLb, warnings };
 }
 
 export interface CouponGroup<T extends CouponTest = CouponTest> {
@@ -120,7 +142,7 @@ export function groupCouponAllowables<T extends CouponTest>(tests: T[]): CouponG
     else groups.push({ material: t.material.trim(), gaugeIn: t.gaugeIn, rivetSpec: t.rivetSpec.trim(), tests: [t], limitLb: 0, ultimateLb: 0, warnings: [] });
   }
   for (const g of groups) {
-    const a = couponAllowables(g.tests, g);
+    const a = matchedCouponAllowables(validateCoupons(g.tests), g);
     g.tests.sort((x, y) => x.loadLb - y.loadLb);
     Object.assign(g, { limitLb: a.limitLb ?? 0, ultimateLb: a.ultimateLb ?? 0, warnings: a.warnings });
   }
