@@ -4,7 +4,7 @@ import { lengthNumber, unitLabel, type UnitSystem } from '@/constants/units';
 /**
  * The study form holds a StudyInput in the engine's units (in, lb, sq ft, KEAS), exactly what is sent:
  * the number fields convert what the person types in mm, kg or N as they type (FormNumberField with a
- * quantity), so zodResolver(studyInput) checks the very values the server gets.
+ * quantity), so zodResolver(ribStudyForm) checks the very values the server gets.
  */
 export type StudyFormValues = StudyInput;
 
@@ -105,7 +105,7 @@ export function newStudyValues(kit?: KitModel): StudyFormValues {
 
 /** A stored revision back into the form, to look at or to compute again as the next revision. */
 export function studyValues(d: Pick<StudyDetail, 'kitModelId' | 'name' | 'inputs'>): StudyFormValues {
-  return { kitModelId: d.kitModelId, name: d.name, inputs: structuredCloneSafe(d.inputs) };
+  return { kitModelId: d.kitModelId, name: d.name, inputs: structuredCloneSafe(d.inputs as StudyFormValues['inputs']) };
 }
 
 function structuredCloneSafe<T>(v: T): T {

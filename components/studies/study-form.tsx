@@ -3,7 +3,7 @@ import { useState } from 'react';
 import { Controller, useFieldArray, useForm, useWatch, type Control } from 'react-hook-form';
 import { View } from 'react-native';
 import type { z } from 'zod';
-import { studyInput, type KitModel } from '@/db/contracts';
+import { ribStudyForm, type KitModel } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
 import { FormChoiceField, FormNumberField, FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
@@ -22,9 +22,9 @@ import {
   type StudyFormValues,
 } from './study-form-values';
 
-export type StudyOutput = z.output<typeof studyInput>;
+export type StudyOutput = z.output<typeof ribStudyForm>;
 
-const resolver = zodResolver(studyInput, plainParse);
+const resolver = zodResolver(ribStudyForm, plainParse);
 
 /** Two or three fields side by side where there is room; one under the other on a phone. */
 function Row({ children }: { children: React.ReactNode }) {

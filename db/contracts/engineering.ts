@@ -9,6 +9,7 @@ export type {
   ReworkResult, ReworkMargins, RibStudyResult, StudyCandidate, StudyCondition, LineLoads, EnvelopePoint,
   LineSchedule, TradeRow, ScheduleZone, ScheduleHole, AllowableSummary, DesignCondition, CpSample, StudyWork,
   RepairCheckResult, RepairHoleResult, RepairAlternative,
+  WingStudyResult, WingRib, WingCondition, WingTradeRow, SkinPanelResult, SkinCandidate, SkinLineSchedule, Planform,
 } from '../../server/engineering';
 
 /*

@@ -234,3 +234,15 @@ export {
   type StudyCandidate,
   type StudyCondition,
 } from './rib-study';
+export {
+  wingStudy,
+  MAX_WING_RIBS,
+  type WingCondition,
+  type WingRib,
+  type WingRibInput,
+  type WingStudyInput,
+  type WingStudyResult,
+  type WingTradeRow,
+} from './wing-study';
+export { skinPanelStudy, type SkinCandidate, type SkinLineSchedule, type SkinPanelResult, type SkinPanelSpec } from './skin-panel';
+export { momentCoefficientAbout, spanwiseLoads, type SectionMoment, type StationLoads } from './wing-loads';
