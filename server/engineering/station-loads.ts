@@ -27,19 +27,26 @@ export interface StationLoad {
  * overestimate, never an underestimate, which is the side to err on.
  */
 export class LineFunction {
-  private readonly table: Float64Array[];
+  /** the sparse table, built on the first `maxOver`: a line's station, x and y are only ever read with `at` */
+  private table: Float64Array[] | null = null;
 
   constructor(
     readonly along: number[],
     readonly values: number[],
-  ) {
-    this.table = [Float64Array.from(values)];
+  ) {}
+
+  private sparseTable(): Float64Array[] {
+    if (this.table) return this.table;
+    const values = this.values;
+    const table = [Float64Array.from(values)];
     for (let w = 1; 2 * w <= values.length; w *= 2) {
-      const prev = this.table[this.table.length - 1];
+      const prev = table[table.length - 1];
       const next = new Float64Array(values.length - 2 * w + 1);
       for (let i = 0; i < next.length; i++) next[i] = Math.max(prev[i], prev[i + w]);
-      this.table.push(next);
+      table.push(next);
     }
+    this.table = table;
+    return table;
   }
 
   at(x: number): number {
@@ -71,7 +78,7 @@ export class LineFunction {
   /** largest sample value with index in [lo, hi] */
   maxBetween(lo: number, hi: number): number {
     const level = 31 - Math.clz32(hi - lo + 1);
-    const row = this.table[level];
+    const row = (this.table ?? this.sparseTable())[level];
     return Math.max(row[lo], row[hi - (1 << level) + 1]);
   }
 }
@@ -103,23 +110,27 @@ export function prepareStations(stations: StationLoad[]): PreparedLine {
   for (let i = 1; i < along.length; i++) spacingIn = Math.max(spacingIn, along[i] - along[i - 1]);
   const tension = fn(list.map((s) => s.limitTensionLbPerIn));
   const shear = fn(list.map((s) => Math.abs(s.limitShearLbPerIn ?? 0)));
+  const n = along.length;
+  // Without wing torque the shear is zero everywhere, and so is every window of it: one array serves.
+  const noShear = shear.values.every((v) => v === 0) ? new Float64Array(n) : null;
   const cache = new Map<number, { tension: Float64Array; shear: Float64Array }>();
   const windowMax = (pitchIn: number) => {
     const key = Math.round(pitchIn * 1e6);
     let hit = cache.get(key);
     if (!hit) {
       const half = pitchIn / 2 + spacingIn;
-      const n = along.length;
-      hit = { tension: new Float64Array(n), shear: new Float64Array(n) };
+      const t = new Float64Array(n);
+      const q = noShear ?? new Float64Array(n);
       // Sliding window over the sorted stations: the samples bracketing [x − half, x + half].
       let lo = 0;
       let hi = 0;
       for (let i = 0; i < n; i++) {
         while (lo + 1 < n && along[lo + 1] <= along[i] - half) lo++;
         while (hi < n - 1 && along[hi] < along[i] + half) hi++;
-        hit.tension[i] = tension.maxBetween(lo, hi);
-        hit.shear[i] = shear.maxBetween(lo, hi);
+        t[i] = tension.maxBetween(lo, hi);
+        if (!noShear) q[i] = shear.maxBetween(lo, hi);
       }
+      hit = { tension: t, shear: q };
       cache.set(key, hit);
     }
     return hit;
@@ -143,12 +154,33 @@ function validateStations(stations: unknown): StationLoad[] {
   if (list.length > STUDY_BUDGET.stations) {
     throw new EngineeringInputError('stations', `at most ${STUDY_BUDGET.stations.toLocaleString('en-US')} stations on a line (got ${list.length.toLocaleString('en-US')})`);
   }
-  list.forEach((s, i) => {
-    requireFinite(s.stationIn, `stations[${i}].stationIn`);
-    requireFinite(s.alongIn, `stations[${i}].alongIn`);
-    requireNonNegative(s.limitTensionLbPerIn, `stations[${i}].limitTensionLbPerIn`, 'the load');
-    if (s.limitShearLbPerIn !== undefined) requireFinite(s.limitShearLbPerIn, `stations[${i}].limitShearLbPerIn`);
-    if (i > 0 && !(s.alongIn > list[i - 1].alongIn)) throw new EngineeringInputError(`stations[${i}].alongIn`, 'stations must be in order along the line');
-  });
+  // Every station of every line comes through here: a sound one is passed on a quick look, and the
+  // checks that name the field (and build its name) run only for one that is not.
+  for (let i = 0; i < list.length; i++) {
+    if (!soundStation(list[i], i > 0 ? list[i - 1] : null)) validateStation(list, i);
+  }
   return list;
+}
+
+const finite = (v: unknown): boolean => typeof v === 'number' && Number.isFinite(v);
+
+/** What `validateStation` lets through (it may let through more: it has the last word). */
+function soundStation(s: StationLoad, prev: StationLoad | null): boolean {
+  return (
+    finite(s.stationIn) &&
+    finite(s.alongIn) &&
+    finite(s.limitTensionLbPerIn) &&
+    s.limitTensionLbPerIn >= 0 &&
+    (s.limitShearLbPerIn === undefined || finite(s.limitShearLbPerIn)) &&
+    (prev === null || s.alongIn > prev.alongIn)
+  );
+}
+
+function validateStation(list: StationLoad[], i: number): void {
+  const s = list[i];
+  requireFinite(s.stationIn, `stations[${i}].stationIn`);
+  requireFinite(s.alongIn, `stations[${i}].alongIn`);
+  requireNonNegative(s.limitTensionLbPerIn, `stations[${i}].limitTensionLbPerIn`, 'the load');
+  if (s.limitShearLbPerIn !== undefined) requireFinite(s.limitShearLbPerIn, `stations[${i}].limitShearLbPerIn`);
+  if (i > 0 && !(s.alongIn > list[i - 1].alongIn)) throw new EngineeringInputError(`stations[${i}].alongIn`, 'stations must be in order along the line');
 }
