@@ -1,11 +1,19 @@
-import { index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { studyKinds } from '../contracts/studies';
 import { kitModels } from './designs';
 import { organizations } from './organizations';
 import { users } from './users';
 
-/** A supplier's load study for one rib of a kit; each save is a new numbered revision of it. */
+/** What a study looks at: one rib, or a whole wing (every rib and skin panel). */
+export const studyKind = pgEnum('study_kind', studyKinds);
+
+/**
+ * A supplier's load study of one rib or of a whole wing of a kit; each save is a new numbered revision
+ * of it. Its kind is fixed when it is made (a revision of another kind would not compare with the earlier ones).
+ */
 export const loadStudies = pgTable('load_studies', {
   id: uuid('id').primaryKey().defaultRandom(),
+  kind: studyKind('kind').notNull().default('rib'),
   organizationId: uuid('organization_id').notNull().references(() => organizations.id),
   kitModelId: uuid('kit_model_id').notNull().references(() => kitModels.id),
   name: text('name').notNull(),
