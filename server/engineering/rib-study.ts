@@ -151,7 +151,7 @@ const CP_POINTS = 41;
 const HIGH_ALPHA_DEG = 10;
 
 /** Ranges and counts of everything the study takes; returns the rivet specs of the candidates. */
-function validateStudy(input: RibStudyInput): RivetSpec[] {
+export function validateStudy(input: RibStudyInput): RivetSpec[] {
   if (input === null || typeof input !== 'object') throw new EngineeringInputError('input', 'the study input is missing');
   const rib = input.rib;
   if (rib === null || typeof rib !== 'object') throw new EngineeringInputError('rib', 'the rib data are missing');

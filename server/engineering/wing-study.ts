@@ -13,6 +13,7 @@ import {
   PRESSURE_RULES,
   sectionContext,
   studyRibAt,
+  validateStudy,
   type PressureRule,
   type RibPlace,
   type RibStudyInput,
@@ -279,6 +280,14 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
     materialData: input.materialData,
     rivetData: input.rivetData,
   }));
+  // Everything a rib takes (material, candidates, layout, lines, flange) is checked as a rib study checks
+  // it, its refusals placed where the wing input has the field.
+  try {
+    validateStudy(ribInputs[0]);
+  } catch (e) {
+    if (e instanceof EngineeringInputError) throw new EngineeringInputError(e.field.startsWith('lines') ? `rib.${e.field}` : e.field, e.reason);
+    throw e;
+  }
   spacings.forEach((s, i) => {
     if (s > 60) throw new EngineeringInputError(`ribs[${i}].stationIn`, `rib ${input.ribs[i].name} carries a ${s.toFixed(1)} in wide strip of wing: at most 60 in; add a rib`);
   });

@@ -223,3 +223,15 @@ describe('refusals of a wing study name the field', () => {
     expect(refusal(() => wingStudy({ ...wing, ...change } as WingStudyInput)).field).toBe(field);
   });
 });
+
+describe('a wing study checks what every rib takes as a rib study does', () => {
+  it.each([
+    ['a gauge of 1 in', { gaugeCandidates: [1] }, 'gaugeCandidates[0]'],
+    ['an unknown rivet', { rivetCandidates: ['NOPE-1'] }, 'rivetCandidates[0]'],
+    ['an unknown material', { material: 'unobtainium' }, 'material'],
+    ['a line that ends before it starts', { rib: { lines: [{ name: 'U', surface: 'upper', startXc: 0.5, endXc: 0.2 }] } }, 'rib.lines[0].endXc'],
+    ['a pitch increment of 1e-9 in', { pitchIncrementIn: 1e-9 }, 'pitchIncrementIn'],
+  ] as [string, Partial<WingStudyInput>, string][])('%s', (_what, change, field) => {
+    expect(refusal(() => wingStudy({ ...wing, ...change } as WingStudyInput)).field).toBe(field);
+  });
+});
