@@ -5,7 +5,7 @@ import { layoutRules, layoutRuleText } from './layout';
 import { findRivet, type RivetSpec, type SheetMaterial } from './materials';
 import { ENGINEERING_CAUTION, type EngineeringResult } from './result';
 import { ULTIMATE_FACTOR } from './rivet-loads';
-import { prepareStations, type PreparedLine, type StationLoad } from './station-loads';
+import { prepareStations, StationCursor, type PreparedLine, type StationLoad } from './station-loads';
 import { STUDY_BUDGET, requireStudyBound } from './bounds';
 import { coarsenRuns, groupIntoZones, placeHoles, type Zone } from './zoning';
 
@@ -411,6 +411,12 @@ function pitchRuns(along: number[], needPitch: Float64Array): Zone[] {
 /** Each hole with its share of the line, the largest loads over that share and its margins. */
 function scheduleHoles(pos: number[], zones: Zone[], lineData: PreparedLine, line: string, prefix: string, c: Capacity): ScheduleHole[] {
   const { along, tension, shear, station, x, y } = lineData;
+  const n = along.length;
+  // Every load and position is sampled at the same stations, and the holes ascend: a cursor each for the
+  // shares' starts, their ends and the holes finds them among the stations in a step or two.
+  const fromAt = new StationCursor(along);
+  const toAt = new StationCursor(along);
+  const holeAt = new StationCursor(along);
   const width = pos.length > 99 ? 3 : 2;
   const holes: ScheduleHole[] = [];
   // Positions and zones both ascend: the zone of a hole is the first that reaches it, found by walking on.
@@ -422,17 +428,21 @@ function scheduleHoles(pos: number[], zones: Zone[], lineData: PreparedLine, lin
     const lo = k === 0 ? along[0] : h - (h - pos[k - 1]) / 2;
     const hi = k === pos.length - 1 ? along[along.length - 1] : h + (pos[k + 1] - h) / 2;
     const tributaryIn = hi - lo;
-    const t = tension.maxOver(lo, hi) * tributaryIn;
-    const v = shear.maxOver(lo, hi) * tributaryIn;
+    // maxOver(lo, hi), the stations bracketing the share found once for the tension and the shear
+    const first = Math.max(0, fromAt.after(lo) - 1);
+    const last = Math.min(n - 1, toAt.after(hi));
+    const t = tension.maxBetween(first, last) * tributaryIn;
+    const v = shear.maxBetween(first, last) * tributaryIn;
     const id = `${prefix}-${String(k + 1).padStart(width, '0')}`;
-    const stationIn = station.at(h);
+    const after = holeAt.after(h);
+    const stationIn = station.atIndex(h, after);
     const zone = z < zones.length ? z : 0;
     const msLimit = combinedMargin(t, v, c.tl, c.sl);
     const msUltimate = combinedMargin(UF * t, UF * v, c.tu, c.su);
     // Two literals rather than a spread: one shape per kind of line, and the same key order either way.
     holes.push(
       x && y
-        ? { id, line, stationIn, alongIn: h, xIn: x.at(h), yIn: y.at(h), zone, tributaryIn, appliedLimitLb: t, appliedUltimateLb: UF * t, appliedLimitShearLb: v, msLimit, msUltimate }
+        ? { id, line, stationIn, alongIn: h, xIn: x.atIndex(h, after), yIn: y.atIndex(h, after), zone, tributaryIn, appliedLimitLb: t, appliedUltimateLb: UF * t, appliedLimitShearLb: v, msLimit, msUltimate }
         : { id, line, stationIn, alongIn: h, zone, tributaryIn, appliedLimitLb: t, appliedUltimateLb: UF * t, appliedLimitShearLb: v, msLimit, msUltimate },
     );
   }

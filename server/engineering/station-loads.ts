@@ -50,16 +50,21 @@ export class LineFunction {
   }
 
   at(x: number): number {
+    return this.atIndex(x, this.indexAfter(x));
+  }
+
+  /** `at(x)` given `indexAfter(x)`: functions sampled at the same stations (a line's station, x, y) share one search */
+  atIndex(x: number, after: number): number {
     const a = this.along;
     if (x <= a[0]) return this.values[0];
     if (x >= a[a.length - 1]) return this.values[a.length - 1];
-    const i = this.indexAfter(x);
+    const i = after;
     const t = (x - a[i - 1]) / (a[i] - a[i - 1]);
     return this.values[i - 1] + t * (this.values[i] - this.values[i - 1]);
   }
 
   /** first sample index with along > x */
-  private indexAfter(x: number): number {
+  indexAfter(x: number): number {
     let lo = 0;
     let hi = this.along.length;
     while (lo < hi) {
@@ -80,6 +85,27 @@ export class LineFunction {
     const level = 31 - Math.clz32(hi - lo + 1);
     const row = (this.table ?? this.sparseTable())[level];
     return Math.max(row[lo], row[hi - (1 << level) + 1]);
+  }
+}
+
+/**
+ * `LineFunction.indexAfter` by walking on from where the last call ended rather than bisecting: for
+ * queries that ascend along the line (the holes of a schedule) that is a step or two each. Exact for
+ * queries in any order.
+ */
+export class StationCursor {
+  private i = 0;
+
+  constructor(private readonly along: number[]) {}
+
+  /** first sample index with along > x */
+  after(x: number): number {
+    const a = this.along;
+    let i = this.i;
+    while (i > 0 && a[i - 1] > x) i--;
+    while (i < a.length && a[i] <= x) i++;
+    this.i = i;
+    return i;
   }
 }
 

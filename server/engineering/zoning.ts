@@ -119,7 +119,12 @@ export function placeHoles(zones: Zone[], start: number, end: number, minPitch: 
   if (estimate > maxHoles) {
     throw new EngineeringInputError('zones', `these zones would place about ${estimate.toLocaleString('en-US')} holes on one line; at most ${maxHoles.toLocaleString('en-US')}`);
   }
-  const tightest = (a: number, b: number) => Math.max(floor, Math.min(...zones.filter((z) => z.from <= b + EPS && z.to >= a - EPS).map((z) => z.pitch)));
+  // The tightest pitch of the zones [a, b] touches (a loop, not filter/map/spread: it runs a few times per hole).
+  const tightest = (a: number, b: number) => {
+    let p = Infinity;
+    for (const z of zones) if (z.from <= b + EPS && z.to >= a - EPS) p = Math.min(p, z.pitch);
+    return Math.max(floor, p);
+  };
   const positions = [start];
   let note: string | null = null;
   // Bounded by the estimate: every step advances by at least the minimum pitch.
