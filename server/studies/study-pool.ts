@@ -2,9 +2,9 @@ import os from 'node:os';
 import path from 'node:path';
 import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
-import { EngineeringInputError, type RibStudyInput, type RibStudyResult } from '../engineering';
+import { EngineeringInputError } from '../engineering';
 import { HttpError } from '../http-error';
-import type { StudyOutcome, StudyTask } from './study-task';
+import type { StudyJob, StudyJobResult, StudyOutcome, StudyTask } from './study-task';
 
 /**
  * Load studies run here, off the request thread: a small pool of worker threads (Piscina) with a
@@ -85,11 +85,12 @@ const tooBig = () =>
   new HttpError(422, 'study_too_large', 'the study needed more memory than a study may use and was stopped: study fewer gauges or rivets at once, or fewer or shorter lines');
 
 /**
- * Runs a rib study on a worker thread. Resolves with the result; rejects with the engine's refusal
- * (its field as the engine names it), or an HttpError when the pool is full (503), the study waited or
- * ran too long (503 / 422) or outgrew its memory (422).
+ * Runs a study job (a rib, a whole wing, or one rib candidate with its holes) on a worker thread.
+ * Resolves with the result; rejects with the engine's refusal (its field as the engine names it), or an
+ * HttpError when the pool is full (503), the study waited or ran too long (503 / 422) or outgrew its
+ * memory (422).
  */
-export async function runStudy(input: RibStudyInput): Promise<RibStudyResult> {
+export async function runStudy<J extends StudyJob>(job: J): Promise<StudyJobResult<J>> {
   const { runMs, waitMs } = limits;
   const p = thePool();
   const { port1, port2 } = new MessageChannel();
@@ -105,9 +106,9 @@ export async function runStudy(input: RibStudyInput): Promise<RibStudyResult> {
     timer = setTimeout(() => stop.abort(new Error('ran too long')), runMs);
   });
   try {
-    const outcome = await p.run({ input, started: port2 }, { transferList: [port2], signal: stop.signal });
+    const outcome = await p.run({ ...job, started: port2 }, { transferList: [port2], signal: stop.signal });
     if (!outcome.ok) throw new EngineeringInputError(outcome.field, outcome.reason);
-    return outcome.result;
+    return outcome.result as StudyJobResult<J>;
   } catch (err) {
     if (err instanceof EngineeringInputError) throw err;
     if (stop.signal.aborted) throw state.phase === 'running' ? tooLong(runMs) : busy();
