@@ -1,11 +1,21 @@
-import { and, desc, eq } from 'drizzle-orm';
+import { and, desc, eq, sql } from 'drizzle-orm';
 import type { Db } from '../../db';
 import { kitModels, loadStudies, loadStudyRevisions, users } from '../../db/schema';
 
+type Choice = { gaugeIn: number; rivet: string } | null;
+
+/**
+ * The list reads each study's one recommended choice out of its latest result in the database, never
+ * the result itself: a whole wing's is some 400 KB. A rib study recommends one gauge and rivet; a wing
+ * study's headline is its one-for-all choice.
+ */
 export const listStudyRows = (db: Db, organizationId: string) =>
   db.select({
-    id: loadStudies.id, kitModelId: loadStudies.kitModelId, kitName: kitModels.name, name: loadStudies.name,
-    revision: loadStudies.latestRevision, updatedAt: loadStudies.updatedAt, result: loadStudyRevisions.result,
+    id: loadStudies.id, kind: loadStudies.kind, kitModelId: loadStudies.kitModelId, kitName: kitModels.name, name: loadStudies.name,
+    revision: loadStudies.latestRevision, updatedAt: loadStudies.updatedAt,
+    recommended: sql<Choice>`case when ${loadStudies.kind} = 'wing'
+      then ${loadStudyRevisions.result} -> 'trade' -> 'recommendedUniform'
+      else ${loadStudyRevisions.result} -> 'recommended' end`,
   }).from(loadStudies)
     .innerJoin(kitModels, eq(kitModels.id, loadStudies.kitModelId))
     .innerJoin(loadStudyRevisions, and(eq(loadStudyRevisions.studyId, loadStudies.id), eq(loadStudyRevisions.revision, loadStudies.latestRevision)))
@@ -18,6 +28,13 @@ export async function findStudy(db: Db, id: string) {
 
 export async function findStudyRevision(db: Db, studyId: string, revision: number) {
   const [row] = await db.select().from(loadStudyRevisions)
+    .where(and(eq(loadStudyRevisions.studyId, studyId), eq(loadStudyRevisions.revision, revision)));
+  return row;
+}
+
+/** The engine's input a revision was computed from (with the coupons it used), without the result. */
+export async function findStudyEngineInput(db: Db, studyId: string, revision: number) {
+  const [row] = await db.select({ input: sql<Record<string, unknown> | null>`${loadStudyRevisions.result} -> 'inputs'` }).from(loadStudyRevisions)
     .where(and(eq(loadStudyRevisions.studyId, studyId), eq(loadStudyRevisions.revision, revision)));
   return row;
 }
