@@ -1,5 +1,5 @@
 import sharp from 'sharp';
-import type { CouponOutcome, RevisionInput, RibStudyInputValues } from './contracts';
+import type { CouponOutcome, RevisionInput, RibStudyInputValues, WingStudyInputValues } from './contracts';
 import type { Database } from '.';
 import { organizations, users } from './schema';
 import { hashPassword } from '../server/auth/passwords';
@@ -58,6 +58,43 @@ export const DEMO_STUDY_INPUTS: RibStudyInputValues = {
   maxPitchDiameters: 8, pitchIncrementIn: 0.125, maxZones: 4,
 };
 
+/**
+ * The demo kit's whole wing: a rectangle of its 120 ft² (320 in × 54 in), ten ribs from root to tip
+ * (W-104 and W-105 are the demo's rib parts), the rib study's flange lines, spars at 15 % and 70 % of the
+ * chord. Ribs 14.5 in apart: the rib study's spacing.
+ */
+export const DEMO_WING_INPUTS: WingStudyInputValues = {
+  kit: DEMO_STUDY_INPUTS.kit,
+  airfoil: DEMO_STUDY_INPUTS.airfoil,
+  planform: { kind: 'rectangle', spanIn: 320, chordIn: 54 },
+  tail: { armIn: 170 },
+  ribs: Array.from({ length: 10 }, (_, i) => ({ name: `W-${101 + i}`, stationIn: 24 + i * 14.5 })),
+  rib: { lines: DEMO_STUDY_INPUTS.lines },
+  spars: { frontXc: 0.15, rearXc: 0.7, capAreaSqIn: 0.4 },
+  skin: { gaugeCandidates: [0.016, 0.02, 0.025, 0.032], rivetCandidates: ['MS20426AD3', 'MS20426AD4'] },
+  material: DEMO_STUDY_INPUTS.material,
+  gaugeCandidates: DEMO_STUDY_INPUTS.gaugeCandidates,
+  rivetCandidates: DEMO_STUDY_INPUTS.rivetCandidates,
+  maxPitchDiameters: 8, pitchIncrementIn: 0.125, maxZones: 4,
+};
+
+/**
+ * A draft upper skin of the root bay (W-101 to W-102) for the wing study to be applied to: the spar lines
+ * run the bay's 14.5 in, the rib lines the 29.7 in between the spars along the surface. A revision's
+ * lines all run one way within its chord, so the chord here is the panel's longest side.
+ */
+const DEMO_SKIN_REVISION: Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & { steps: string[]; changeNote: string } = {
+  material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20426AD3', drillSize: '#40', drillDiameterIn: 0.098, edgeDistanceIn: 0.25, chordIn: 30,
+  lines: [
+    { code: 'FS', name: 'Front spar', surface: 'upper', startIn: 0, lengthIn: 14.5, zones: [{ fromIn: 0, toIn: 14.5, pitchIn: 1 }] },
+    { code: 'RS', name: 'Rear spar', surface: 'upper', startIn: 0, lengthIn: 14.5, zones: [{ fromIn: 0, toIn: 14.5, pitchIn: 1 }] },
+    { code: 'IR', name: 'Rib W-101 (inboard)', surface: 'upper', startIn: 0, lengthIn: 29.7, zones: [{ fromIn: 0, toIn: 29.7, pitchIn: 1 }] },
+    { code: 'OR', name: 'Rib W-102 (outboard)', surface: 'upper', startIn: 0, lengthIn: 29.7, zones: [{ fromIn: 0, toIn: 29.7, pitchIn: 1 }] },
+  ],
+  steps: ['Deburr and dimple the skin holes', 'Cleco skin to spars and ribs', 'Rivet spars, then ribs, from the middle out'],
+  changeNote: '',
+};
+
 /** A stand-in bench photo: a drilled hole in a sheet, drawn, so the demo needs no binary files. */
 async function demoPhoto(): Promise<Buffer> {
   const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="800" height="600">
@@ -106,7 +143,11 @@ export async function seedDemo(database: Database, storage: PhotoStorage, mailQu
   for (const [gaugeIn, loadLb, outcome, note] of DEMO_COUPONS) {
     await coupons.create(supplier, { material: '6061-T6', gaugeIn, couponWidthIn: 1, rivetSpec: 'PULLED-4', loadLb, outcome, note, testedOn: '2026-10-14' });
   }
-  await studiesService(db).create(supplier, { kitModelId: kit.id, name: 'Inboard rib W-104, flight envelope', inputs: DEMO_STUDY_INPUTS });
+  // The wing study first, so the rib study stays the newest (first in the list, as before wing studies).
+  const studies = studiesService(db);
+  await studies.create(supplier, { kind: 'wing', kitModelId: kit.id, name: 'Whole wing, ten ribs, flight envelope', inputs: DEMO_WING_INPUTS });
+  await studies.create(supplier, { kind: 'rib', kitModelId: kit.id, name: 'Inboard rib W-104, flight envelope', inputs: DEMO_STUDY_INPUTS });
+  await designs.create(supplier, { design: { kitModelId: kit.id, partNumber: 'W-201', name: 'Wing skin, upper, root bay', kind: 'skin_panel' }, revision: DEMO_SKIN_REVISION });
 
   const signer = createUrlSigner(jwtSecret);
   const findings = findingsService({ db, pool, storage, signer, mailQueue });
