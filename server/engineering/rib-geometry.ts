@@ -49,9 +49,14 @@ function arcAt(surface: Point[], cumulative: number[], x: number): number {
   return x <= surface[0][0] ? 0 : cumulative[cumulative.length - 1];
 }
 
-function pointAtArc(surface: Point[], cumulative: number[], s: number): Point {
-  let i = 1;
+/** The segment holding arc length s (the index of its end point), looking from segment `from` on. */
+function segmentAt(cumulative: number[], s: number, from = 1): number {
+  let i = from;
   while (i < cumulative.length - 1 && cumulative[i] < s) i++;
+  return i;
+}
+
+function pointAtArc(surface: Point[], cumulative: number[], s: number, i = segmentAt(cumulative, s)): Point {
   const span = cumulative[i] - cumulative[i - 1];
   const t = span > 0 ? Math.min(1, Math.max(0, (s - cumulative[i - 1]) / span)) : 0;
   const a = surface[i - 1];
@@ -91,9 +96,15 @@ export function lineStationCount(geometry: AirfoilGeometry, line: FastenerLineIn
 export function lineStations(geometry: AirfoilGeometry, line: FastenerLineInput, chordIn: number, stepIn: number): LineStation[] {
   const { surface, cumulative, s0, s1 } = lineArc(geometry, line, chordIn);
   const count = Math.max(2, Math.ceil((s1 - s0) / stepIn) + 1);
+  // The stations come in order along the surface: the search for each picks up where the last one ended
+  // (every segment it skipped ends before the station), instead of walking from the start each time.
+  let segment = 1;
+  let last = -Infinity;
   return Array.from({ length: count }, (_, k) => {
     const s = s0 + ((s1 - s0) * k) / (count - 1);
-    const [x, y] = pointAtArc(surface, cumulative, s);
+    segment = segmentAt(cumulative, s, s >= last ? segment : 1);
+    last = s;
+    const [x, y] = pointAtArc(surface, cumulative, s, segment);
     return { xc: x / chordIn, stationIn: x, alongIn: s - s0, xIn: x, yIn: y };
   });
 }

@@ -53,16 +53,22 @@ export function loadEnvelope(
   internalCp: number,
   tributaryWidthIn: number,
 ): EnvelopeStation[] {
-  return xcs.map((xc) => {
-    let best = 0;
-    let governing: string | null = null;
-    for (const c of conditions) {
-      const w = suctionIntensityLbPerIn(c.cpAt(xc), internalCp, c.qPsi, tributaryWidthIn);
-      if (w > best) {
-        best = w;
-        governing = c.id;
+  const n = xcs.length;
+  const best = new Float64Array(n);
+  const governing: (string | null)[] = new Array(n).fill(null);
+  // One condition at a time along the line (rather than every condition at each station): each Cp
+  // look-up then follows the last one along the same samples, which is what the caches are good at. The
+  // conditions still come in their order at every station, so the first of equal pulls governs.
+  for (const c of conditions) {
+    for (let i = 0; i < n; i++) {
+      const w = suctionIntensityLbPerIn(c.cpAt(xcs[i]), internalCp, c.qPsi, tributaryWidthIn);
+      if (w > best[i]) {
+        best[i] = w;
+        governing[i] = c.id;
       }
     }
-    return { xc, limitLbPerIn: best, governing };
-  });
+  }
+  const out: EnvelopeStation[] = new Array(n);
+  for (let i = 0; i < n; i++) out[i] = { xc: xcs[i], limitLbPerIn: best[i], governing: governing[i] };
+  return out;
 }
