@@ -9,7 +9,7 @@ import { organizationOf } from '../auth/organization';
 import { couponsForEngine } from '../coupons/coupons-repository';
 import { designsService } from '../designs/designs-service';
 import {
-  EngineeringInputError, fieldAt,
+  EngineeringInputError, fieldAt, findRivetByCallout, layoutRules,
   type RibStudyInput, type RibStudyResult, type SkinPanelResult, type StudyCandidate, type WingRib, type WingStudyResult,
 } from '../engineering';
 import { badRequest, conflict, notFound } from '../http-error';
@@ -56,12 +56,22 @@ function ribRevisionLines(schedules: Schedule[], loads: RibStudyResult['lines'])
   }));
 }
 
-/** The sheet, rivet, drill and edge distance a candidate's schedules share. */
+/**
+ * The sheet, rivet, drill and edge distance a candidate's schedules share. A stored edge distance is
+ * rounded (a wing's skins to 0.001 in: 2.5 × 3/32 = 0.234375 is kept as 0.234), so it is held to the
+ * rivet's own layout rule, which the part design checks again, and rounded up.
+ */
 function sheetOf(material: string, candidate: Choice, schedules: Schedule[]) {
   const first = schedules[0];
+  let ruleIn = 0;
+  try {
+    ruleIn = layoutRules(findRivetByCallout(candidate.rivet)).minEdgeIn;
+  } catch (err) {
+    if (!(err instanceof EngineeringInputError)) throw err; // a rivet of the supplier's own data: its stored figure stands
+  }
   return {
     material, gaugeIn: candidate.gaugeIn, rivetSpec: candidate.rivet, drillSize: first.drill.name, drillDiameterIn: first.drill.diameterIn,
-    edgeDistanceIn: Math.ceil(Math.max(...schedules.map((s) => s.layout.edgeDistanceIn)) * 1000) / 1000,
+    edgeDistanceIn: Math.ceil(Math.max(ruleIn, ...schedules.map((s) => s.layout.edgeDistanceIn)) * 1000) / 1000,
   };
 }
 
