@@ -17,7 +17,7 @@ import { pitchNumber } from './study-numbers';
 import type { StudyCandidate } from './study-result';
 
 /** A refusal from the server said as it is; a 409 is the server explaining why not, in its own words. */
-function applyErrorText(e: unknown): string {
+export function applyErrorText(e: unknown): string {
   if (e instanceof ApiError && e.status === 409) return `Not applied: ${e.message}`;
   return errorMessage(e);
 }
@@ -104,7 +104,8 @@ export function ApplyPanel({ studyId, kitModelId, kitName, candidate, viewingRev
   );
 }
 
-function AppliedRevision({ rev, partNumber, onOpen }: { rev: Revision; partNumber: string; onOpen: () => void }) {
+/** What the draft revision holds after applying, with the way to it. */
+export function AppliedRevision({ rev, partNumber, onOpen }: { rev: Revision; partNumber: string; onOpen: () => void }) {
   const u = useUnits();
   return (
     <Sheet testID="apply-result">

@@ -1,27 +1,41 @@
 import { useRouter } from 'expo-router';
 import { Pressable, StyleSheet, View } from 'react-native';
-import type { StudySummary } from '@/db/contracts';
-import { colors, hairline, space, touch } from '@/constants/theme';
+import type { StudyKind, StudySummary } from '@/db/contracts';
+import { colors, hairline, radius, space, touch } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
 import { useStudiesQuery } from '@/hooks/queries/studies';
 import { useUnits } from '@/hooks/use-units';
-import { whenText } from './study-screen';
+import { whenText } from './study-links';
+
+export const studyKindLabels: Record<StudyKind, string> = { rib: 'Rib', wing: 'Wing' };
+
+/** What a summary's recommendation is of: one rib's candidate, or the one gauge and rivet for every rib of a wing. */
+function recommendedWords(s: StudySummary): string {
+  return s.kind === 'wing' ? 'Every rib' : 'Recommended';
+}
+
+/** A stored summary without a kind is a rib study (the only kind there was). */
+const kindOf = (s: StudySummary): StudyKind => (s.kind === 'wing' ? 'wing' : 'rib');
 
 function StudyRow({ s, onPress }: { s: StudySummary; onPress: () => void }) {
   const u = useUnits();
+  const kind = kindOf(s);
   return (
     <Pressable
       testID={`study-row-${s.id}`}
       accessibilityRole="button"
-      accessibilityLabel={`${s.name}, ${s.kitName}, revision ${s.revision}, ${whenText(s.updatedAt)}, ${s.recommended
-        ? `recommended ${u.length(s.recommended.gaugeIn)} with ${s.recommended.rivet}`
+      accessibilityLabel={`${studyKindLabels[kind]} study: ${s.name}, ${s.kitName}, revision ${s.revision}, ${whenText(s.updatedAt)}, ${s.recommended
+        ? `${recommendedWords(s).toLowerCase()} ${u.length(s.recommended.gaugeIn)} with ${s.recommended.rivet}`
         : 'no gauge and rivet pair carries the loads'}`}
       onPress={onPress}
       style={({ pressed }) => [styles.row, pressed && { backgroundColor: colors.accentSoft }]}
     >
+      <View style={styles.kind} testID={`study-row-${s.id}-kind`}>
+        <Txt variant="small" bold>{studyKindLabels[kind]}</Txt>
+      </View>
       <View style={{ flex: 1, gap: 2 }}>
         <Txt bold>{s.name}</Txt>
         <Txt variant="small" tone="soft">
@@ -29,7 +43,7 @@ function StudyRow({ s, onPress }: { s: StudySummary; onPress: () => void }) {
         </Txt>
         <Txt variant="small" testID={`study-row-${s.id}-recommended`}>
           {s.recommended
-            ? <>Recommended <Mono variant="small" bold>{u.length(s.recommended.gaugeIn)}</Mono> with <Mono variant="small" bold>{s.recommended.rivet}</Mono></>
+            ? <>{recommendedWords(s)} <Mono variant="small" bold>{u.length(s.recommended.gaugeIn)}</Mono> with <Mono variant="small" bold>{s.recommended.rivet}</Mono></>
             : <Txt variant="small" tone="error">No gauge and rivet pair carries the loads</Txt>}
         </Txt>
       </View>
@@ -49,15 +63,25 @@ export function StudiesScreen() {
       subtitle="Design loads to rivet loads, gauge and pitch schedule"
       account
       testID="studies-screen"
-      right={<Button label="New study" variant="secondary" compact onPress={() => router.push('/studies/new')} testID="new-study" />}
+      right={(
+        <View style={styles.newButtons}>
+          <Button label="New rib study" variant="secondary" compact onPress={() => router.push('/studies/new')} testID="new-study" />
+          <Button label="New wing study" variant="secondary" compact onPress={() => router.push('/studies/new-wing')} testID="new-wing-study" />
+        </View>
+      )}
     >
       {q.isPending ? <LoadingState what="Loading the studies" />
         : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
           : !rows.length ? (
             <EmptyState
               title="No load studies yet."
-              body="A study takes a kit's weight, speeds and airfoil and works out the load on every rivet of a rib, the gauge and the pitch zones."
-              action={<Button label="Start a study" onPress={() => router.push('/studies/new')} testID="new-study-empty" />}
+              body="A study takes a kit's weight, speeds and airfoil and works out the load on every rivet of a rib, the gauge and the pitch zones; a wing study does it for every rib from root to tip and for the skin panels between them."
+              action={(
+                <View style={styles.newButtons}>
+                  <Button label="Start a rib study" onPress={() => router.push('/studies/new')} testID="new-study-empty" />
+                  <Button label="Start a wing study" variant="secondary" onPress={() => router.push('/studies/new-wing')} testID="new-wing-study-empty" />
+                </View>
+              )}
             />
           ) : (
             <View testID="studies-list">
@@ -69,5 +93,7 @@ export function StudiesScreen() {
 }
 
 const styles = StyleSheet.create({
+  kind: { minWidth: 52, alignItems: 'center', paddingVertical: 2, paddingHorizontal: space.sm, borderWidth: hairline, borderColor: colors.ruleStrong, borderRadius: radius.sm },
+  newButtons: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, justifyContent: 'flex-end' },
   row: { flexDirection: 'row', alignItems: 'center', gap: space.md, minHeight: touch, paddingVertical: space.md, borderBottomWidth: hairline, borderColor: colors.rule },
 });

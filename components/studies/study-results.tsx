@@ -4,14 +4,17 @@ import type { StudyDetail } from '@/db/contracts';
 import { space } from '@/constants/theme';
 import { Caution, cautionText } from '@/components/ui/caution';
 import { Section, Sheet } from '@/components/ui/sheet';
-import { ErrorState } from '@/components/ui/states';
+import { ErrorState, LoadingState } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
+import { useStudyCandidateQuery } from '@/hooks/queries/studies';
 import { useUnits } from '@/hooks/use-units';
 import { ApplyPanel } from './apply-panel';
 import { LoadPlot } from './load-plot';
 import { PressurePicture } from './pressure-picture';
 import { ResultNotes } from './result-notes';
-import { findCandidate, initialCandidate, readStudyResult, sameCandidate, type CandidateKey, type StudyResult } from './study-result';
+import {
+  findCandidate, initialCandidate, readStudyResult, sameCandidate, type CandidateKey, type StudyCandidate, type StudyResult,
+} from './study-result';
 import { TradeTable } from './trade-table';
 import { ZoneTable } from './zone-table';
 import { ZonesDrawing } from './zones-drawing';
@@ -50,6 +53,10 @@ export function StudyResults({ detail, latestRevision }: { detail: StudyDetail; 
     const r = readStudyResult(detail.result);
     setChosen(r ? initialCandidate(r) : null);
   }, [detail.id, detail.revision, detail.result]);
+  // The stored result keeps the holes of the recommended candidate only; another one's come from the server.
+  const stored = result ? findCandidate(result, chosen) : null;
+  const needsHoles = !!stored && stored.holesStored === false;
+  const fetched = useStudyCandidateQuery(detail.id, detail.revision, needsHoles && stored ? { gaugeIn: stored.gaugeIn, rivet: stored.rivet } : null);
 
   if (!result) {
     return (
@@ -59,7 +66,12 @@ export function StudyResults({ detail, latestRevision }: { detail: StudyDetail; 
       </View>
     );
   }
-  const candidate = findCandidate(result, chosen);
+  const candidate = stored;
+  const withHoles: StudyCandidate | null = needsHoles ? fetched.data ?? null : candidate;
+  // The pictures need every hole: while they are worked out, say so (the zone table below has the zones).
+  const holesState = (what: string) => (fetched.isError
+    ? <ErrorState title={`The holes of this candidate did not load, so the ${what} cannot be drawn`} error={fetched.error} onRetry={() => void fetched.refetch()} />
+    : <LoadingState what={`Working out every hole of ${candidate ? `${u(candidate.gaugeIn)} · ${candidate.rivet}` : 'the candidate'} for the ${what}`} />);
 
   return (
     <View style={{ gap: space.xl }} testID="study-results">
@@ -75,7 +87,8 @@ export function StudyResults({ detail, latestRevision }: { detail: StudyDetail; 
         testID="section-loads"
         aside={candidate ? <Mono variant="small" bold>{u(candidate.gaugeIn)} · {candidate.rivet}</Mono> : undefined}
       >
-        {candidate ? <LoadPlot candidate={candidate} chordIn={result.outline.chordIn} /> : <Txt tone="soft">Choose a candidate in the trade table.</Txt>}
+        {!candidate ? <Txt tone="soft">Choose a candidate in the trade table.</Txt>
+          : withHoles ? <LoadPlot candidate={withHoles} chordIn={result.outline.chordIn} /> : holesState('load plot')}
       </Section>
 
       <Section
@@ -83,7 +96,8 @@ export function StudyResults({ detail, latestRevision }: { detail: StudyDetail; 
         testID="section-zones"
         aside={candidate ? <Mono variant="small" bold>{u(candidate.gaugeIn)} · {candidate.rivet}</Mono> : undefined}
       >
-        {candidate ? <ZonesDrawing outline={result.outline.points} chordIn={result.outline.chordIn} candidate={candidate} lines={result.lines} /> : null}
+        {!candidate ? null
+          : withHoles ? <ZonesDrawing outline={result.outline.points} chordIn={result.outline.chordIn} candidate={withHoles} lines={result.lines} /> : holesState('drawing')}
       </Section>
 
       <Section title="Gauge and rivet trade" testID="section-trade">

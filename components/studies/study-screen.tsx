@@ -18,17 +18,16 @@ import { useStudyCreateMutation, useStudyQuery, useStudyUpdateMutation } from '@
 import { useWide } from '@/hooks/use-wide';
 import { StudyForm } from './study-form';
 import { newStudyValues, studyValues } from './study-form-values';
+import { studyHref, whenText } from './study-links';
 import { StudyResults } from './study-results';
+import { WingStudyBody } from './wing-screen';
 
-/** "14 Oct 2026, 09:30" in the reader's own locale. */
-export function whenText(iso: string): string {
-  const d = new Date(iso);
-  return Number.isNaN(d.getTime()) ? iso : d.toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
-}
+export { whenText };
 
-const studyHref = (id: string, revision?: number) => `/studies/${id}${revision ? `?revision=${revision}` : ''}`;
-
-/** One load study: its inputs on the left, the computed revision's pictures and tables on the right. */
+/**
+ * One load study: its inputs on the left, the computed revision's pictures and tables on the right; a
+ * rib's or a whole wing's by the study's kind.
+ */
 export function StudyScreen({ studyId, revision }: { studyId: string; revision?: number }) {
   const q = useStudyQuery(studyId, revision);
   const kits = useKitsQuery();
@@ -48,7 +47,7 @@ export function StudyScreen({ studyId, revision }: { studyId: string; revision?:
       </Screen>
     );
   }
-  return <StudyBody d={q.data} kits={kits.data} />;
+  return q.data.kind === 'wing' ? <WingStudyBody d={q.data} kits={kits.data} /> : <StudyBody d={q.data} kits={kits.data} />;
 }
 
 function StudyBody({ d, kits }: { d: StudyDetail; kits: KitModel[] }) {

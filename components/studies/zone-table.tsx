@@ -18,21 +18,28 @@ function Ms({ value, testID }: { value: number | null; testID: string }) {
   );
 }
 
-/** For the shown candidate, each line's zones: where, what pitch, the worst rivet's loads and margins. */
-export function ZoneTable({ candidate }: { candidate: StudyCandidate }) {
+/** What the table reads of a candidate: a rib's, or a skin panel's (whose lines are schedules of the same shape). */
+export type ZoneCandidate = Pick<StudyCandidate, 'gaugeIn' | 'rivet' | 'feasible' | 'reasons' | 'lines'>;
+
+/**
+ * For the shown candidate, each line's zones: where, what pitch, the worst rivet's loads and margins.
+ * `idPrefix` keeps testIDs apart where two tables show at once (a wing's rib and its skin panel); `where`
+ * says what the stations are measured from.
+ */
+export function ZoneTable({ candidate, idPrefix = 'zone', where }: { candidate: ZoneCandidate; idPrefix?: string; where?: string }) {
   const u = useUnits();
   const lu = u.label('length');
   const fu = u.label('force');
   return (
-    <View style={{ gap: space.xl }} testID="zone-table">
+    <View style={{ gap: space.xl }} testID={`${idPrefix}-table`}>
       {!candidate.feasible ? (
-        <Notice tone="error" testID="candidate-reasons">
+        <Notice tone="error" testID={idPrefix === 'zone' ? 'candidate-reasons' : `${idPrefix}-reasons`}>
           <Txt bold tone="error">{u.length(candidate.gaugeIn)} with {candidate.rivet} does not carry the loads:</Txt>
           {candidate.reasons.map((r, i) => <Txt key={i} variant="small">• {r}</Txt>)}
         </Notice>
       ) : null}
       {candidate.lines.map((l, li) => (
-        <View key={l.line} style={{ gap: space.xs }} testID={`zone-table-${li}`}>
+        <View key={l.line} style={{ gap: space.xs }} testID={`${idPrefix}-table-${li}`}>
           <Txt bold>{l.line}</Txt>
           <Txt variant="small" tone="soft">
             drill <Mono variant="small" bold>{l.drill.name}</Mono> (<Mono variant="small">{u.length(l.drill.diameterIn)}</Mono>) · edge distance{' '}
@@ -55,7 +62,7 @@ export function ZoneTable({ candidate }: { candidate: StudyCandidate }) {
             ]}
             rows={l.zones.map((z, k) => ({
               key: String(k),
-              testID: `zone-row-${li}-${k}`,
+              testID: `${idPrefix}-row-${li}-${k}`,
               cells: {
                 span: <Mono variant="small">{u.station(z.fromIn)}–{u.station(z.toIn)}</Mono>,
                 pitch: <Mono variant="small" bold>{pitchNumber(z.pitchIn, u.system)}</Mono>,
@@ -65,8 +72,8 @@ export function ZoneTable({ candidate }: { candidate: StudyCandidate }) {
                 ult: <Mono variant="small">{forceNumber(z.appliedUltimateLb, u.system)}</Mono>,
                 allowLimit: <Mono variant="small">{forceNumber(z.limitAllowableLb, u.system)}</Mono>,
                 allowUlt: <Mono variant="small">{forceNumber(z.ultimateAllowableLb, u.system)}</Mono>,
-                msLimit: <Ms value={z.msLimit} testID={`zone-ms-limit-${li}-${k}`} />,
-                msUlt: <Ms value={z.msUltimate} testID={`zone-ms-ultimate-${li}-${k}`} />,
+                msLimit: <Ms value={z.msLimit} testID={`${idPrefix}-ms-limit-${li}-${k}`} />,
+                msUlt: <Ms value={z.msUltimate} testID={`${idPrefix}-ms-ultimate-${li}-${k}`} />,
               },
             }))}
           />
@@ -81,7 +88,7 @@ export function ZoneTable({ candidate }: { candidate: StudyCandidate }) {
         </View>
       ))}
       <Txt variant="small" tone="faint">
-        Stations and pitch in {lu} aft of the rib’s leading edge; loads and allowables per rivet in {fu}. MS = allowable ÷ applied − 1: a negative
+        Stations and pitch in {lu} {where ?? 'aft of the rib’s leading edge'}; loads and allowables per rivet in {fu}. MS = allowable ÷ applied − 1: a negative
         margin (marked ✕) does not hold.
       </Txt>
     </View>

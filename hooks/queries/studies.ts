@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { ApplyStudyInput, Revision, StudyDetail, StudyInput, StudySummary } from '@/db/contracts';
+import type { ApplyStudyInput, Revision, StudyCandidate, StudyDetail, StudyInput, StudySummary, WingStudyInput } from '@/db/contracts';
 import { api, apiRequest, qs } from '../api-client';
 import { designKeys } from './designs';
 
@@ -10,7 +10,13 @@ export const studyKeys = {
   /** Every revision of one study: what a new revision or an apply refreshes. */
   study: (id: string) => [...studyKeys.details(), id] as const,
   detail: (id: string, revision?: number) => [...studyKeys.study(id), { revision: revision ?? null }] as const,
+  /** One candidate of one revision, with its holes: a stored revision's never changes. */
+  candidate: (id: string, revision: number, gaugeIn: number, rivet: string) =>
+    [...studyKeys.study(id), 'candidate', { revision, gaugeIn, rivet }] as const,
 };
+
+/** What the study endpoints take: a rib study (no kind) or a whole wing (kind 'wing'). */
+export type StudyBodyInput = StudyInput | WingStudyInput;
 
 export const studyQueries = {
   list: () => queryOptions({
@@ -23,10 +29,24 @@ export const studyQueries = {
     // A stored revision never changes; only "latest" can move on.
     staleTime: revision ? Infinity : 0,
   }),
+  /** A rib study's candidate with its holes, recomputed by the server (only the recommended one is stored whole). */
+  candidate: (id: string, revision: number, gaugeIn: number, rivet: string) => queryOptions({
+    queryKey: studyKeys.candidate(id, revision, gaugeIn, rivet),
+    queryFn: ({ signal }) => api.get<StudyCandidate>(`/api/studies/${encodeURIComponent(id)}/candidate${qs({ gaugeIn, rivet, revision })}`, signal),
+    staleTime: Infinity,
+  }),
 };
 
 export function useStudiesQuery() {
   return useQuery(studyQueries.list());
+}
+
+/** The candidate's holes when the stored result has only its zones; off while `key` is null. */
+export function useStudyCandidateQuery(id: string, revision: number, key: { gaugeIn: number; rivet: string } | null) {
+  return useQuery({
+    ...studyQueries.candidate(id, revision, key?.gaugeIn ?? 0, key?.rivet ?? ''),
+    enabled: !!id && !!key,
+  });
 }
 
 /** `revision` undefined = the latest one. */
@@ -43,7 +63,7 @@ function remember(qc: ReturnType<typeof useQueryClient>, detail: StudyDetail) {
 export function useStudyCreateMutation() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (input: StudyInput) => api.post<StudyDetail>('/api/studies', input),
+    mutationFn: (input: StudyBodyInput) => api.post<StudyDetail>('/api/studies', input),
     onSuccess: (detail) => {
       remember(qc, detail);
       return qc.invalidateQueries({ queryKey: studyKeys.lists() });
@@ -55,7 +75,7 @@ export function useStudyCreateMutation() {
 export function useStudyUpdateMutation(id: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (input: StudyInput) => apiRequest<StudyDetail>(`/api/studies/${encodeURIComponent(id)}`, { method: 'PUT', body: input }),
+    mutationFn: (input: StudyBodyInput) => apiRequest<StudyDetail>(`/api/studies/${encodeURIComponent(id)}`, { method: 'PUT', body: input }),
     onSuccess: async (detail) => {
       // The revision list of every cached revision is out of date now.
       await qc.invalidateQueries({ queryKey: studyKeys.study(id) });
@@ -65,7 +85,10 @@ export function useStudyUpdateMutation(id: string) {
   });
 }
 
-/** Writes the chosen candidate into the part design's draft revision (made when there is none). */
+/**
+ * Writes the chosen candidate into the part design's draft revision (made when there is none); a wing
+ * study names its rib or skin panel in `target`.
+ */
 export function useStudyApplyMutation(id: string) {
   const qc = useQueryClient();
   return useMutation({

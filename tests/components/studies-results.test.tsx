@@ -4,10 +4,11 @@ import type { PartDesignSummary, StudyDetail } from '@/db/contracts';
 import { StudyResults } from '@/components/studies/study-results';
 import { initialCandidate, readStudyResult, tradeRowTestId } from '@/components/studies/study-result';
 import { designKeys } from '@/hooks/queries/designs';
+import { studyKeys } from '@/hooks/queries/studies';
 import { UnitsProvider } from '@/hooks/use-units';
 // The test computes the demo study with the real engine, so the screen is checked against the very
 // shape the server stores (the app itself never imports server/).
-import { ribStudy } from '@/server/engineering';
+import { ribCandidate, ribStudy } from '@/server/engineering';
 import { renderWeb } from './render-web';
 
 // Whole screens render in jsdom: slower than a unit test, more so when the machine is busy.
@@ -44,9 +45,12 @@ const coupons = ([
   [0.02, 13.5, 'no_deformation'], [0.02, 20, 'slight_deformation'], [0.02, 30, 'slight_deformation'],
 ] as const).map(([gaugeIn, loadLb, outcome]) => ({ material: '6061-T6', gaugeIn, couponWidthIn: 1, rivetSpec: 'PULLED-4', loadLb, outcome }));
 const result = ribStudy({ ...inputs, coupons });
+// What GET /api/studies/:id/candidate answers for a candidate stored without its holes.
+const unstored = { gaugeIn: 0.016, rivet: 'PULLED-4' };
+const unstoredWhole = ribCandidate({ ...inputs, coupons }, unstored);
 
 const detail = (revision = 2): StudyDetail => ({
-  id: 'study-1', kitModelId: KIT, kitName: 'NK-2 Quillon', name: 'Inboard rib', revision, updatedAt: '2026-10-14T10:00:00Z',
+  id: 'study-1', kind: 'rib', kitModelId: KIT, kitName: 'NK-2 Quillon', name: 'Inboard rib', revision, updatedAt: '2026-10-14T10:00:00Z',
   recommended: result.recommended, inputs, result: result as never,
   revisions: [{ revision: 1, createdAt: '2026-10-13T10:00:00Z', createdByName: 'Maren' }, { revision: 2, createdAt: '2026-10-14T10:00:00Z', createdByName: 'Maren' }],
 });
@@ -55,9 +59,10 @@ const designs: PartDesignSummary[] = [
   { id: 'd-104', kitModelId: KIT, kitName: 'NK-2', partNumber: 'W-104', name: 'Wing rib, inboard', kind: 'rib', latest: { id: 'r', letter: 'A', status: 'published' }, publishedLetter: 'A' },
 ];
 
-async function renderResults(d = detail(), latest = 2, system: 'imperial' | 'metric' = 'imperial') {
+async function renderResults(d = detail(), latest = 2, system: 'imperial' | 'metric' = 'imperial', candidates: { holes: boolean } = { holes: true }) {
   const qc = new QueryClient({ defaultOptions: { queries: { retry: false, staleTime: Infinity } } });
   qc.setQueryData(designKeys.list(KIT), designs);
+  if (candidates.holes) qc.setQueryData(studyKeys.candidate(d.id, d.revision, unstored.gaugeIn, unstored.rivet), unstoredWhole);
   const r = renderWeb(
     <QueryClientProvider client={qc}>
       <UnitsProvider initial={system}>
@@ -74,6 +79,14 @@ describe('reading a stored study result', () => {
     const r = readStudyResult(result)!;
     expect(r).not.toBeNull();
     expect(initialCandidate(r)).toEqual({ gaugeIn: 0.02, rivet: 'PULLED-4' });
+  });
+
+  it('keeps the holes of the recommended candidate only', () => {
+    const r = readStudyResult(result)!;
+    const stored = r.candidates.filter((c) => c.holesStored);
+    expect(stored.map((c) => `${c.gaugeIn} ${c.rivet}`)).toEqual(['0.02 PULLED-4']);
+    const other = r.candidates.find((c) => c.gaugeIn === 0.016 && c.rivet === 'PULLED-4')!;
+    expect(other.lines.every((l) => l.holes.length === 0 && l.zones.length > 0)).toBe(true);
   });
 
   it('refuses a stored result of another shape instead of drawing nonsense', () => {
@@ -125,6 +138,35 @@ describe('the results of a load study', () => {
     expect(r.byTestId('candidate-reasons').textContent).toContain('does not carry the loads');
     expect(r.byTestId('zone-ms-limit-0-0').textContent).toContain('✕');
     expect(r.byTestId('apply-not-feasible')).toBeTruthy();
+  });
+
+  it('asks the server for the holes of a candidate stored without them, showing its zones meanwhile', async () => {
+    const asked: string[] = [];
+    const saved = global.fetch;
+    // Never answers: the screen stays in its waiting state.
+    global.fetch = jest.fn((url: string) => { asked.push(String(url)); return new Promise(() => {}); }) as never;
+    try {
+      const r = await renderResults(detail(), 2, 'imperial', { holes: false });
+      await r.press('trade-row-0.016-PULLED-4');
+      expect(asked.some((u) => u.includes('/api/studies/study-1/candidate?gaugeIn=0.016&rivet=PULLED-4&revision=2'))).toBe(true);
+      expect(r.byTestId('section-loads').textContent).toContain('Working out every hole of 0.016 in · PULLED-4');
+      expect(r.queryByTestId('load-plot')).toBeNull();
+      expect(r.byTestId('zone-row-0-0')).toBeTruthy();
+    } finally {
+      global.fetch = saved;
+    }
+  });
+
+  it('draws the fetched candidate’s holes once they arrive', async () => {
+    const r = await renderResults();
+    await r.press('trade-row-0.016-PULLED-4');
+    // Every hole of the fetched schedule is a point of the load plot (two series of them).
+    const holes = unstoredWhole.lines.reduce((n, l) => n + l.holes.length, 0);
+    expect(holes).toBeGreaterThan(20);
+    expect(r.byTestId('load-plot')).toBeTruthy();
+    const drawing = r.byTestId('zones-drawing').querySelector('svg[aria-label^="Pitch zones"]')!;
+    expect(drawing.getAttribute('aria-label')).toContain('PULLED-4');
+    expect(drawing.querySelectorAll('circle').length).toBe(holes);
   });
 
   it('sorts the trade table by weight when its header is pressed', async () => {
