@@ -17,6 +17,7 @@ import { Label, Mono, Txt } from '@/components/ui/text';
 import { ApiError } from '@/hooks/api-client';
 import { useUnits } from '@/hooks/use-units';
 import { AirfoilFields } from './airfoil-fields';
+import { Cell, KitFields, Row } from './kit-fields';
 import {
   gaugeKey, gaugeLabel, kitIntoStudy, RIVET_FAMILIES, STOCK_GAUGES_IN, STUDY_MATERIALS, studyFieldFor, toggleGauge, toggleRivet,
   type StudyFormValues,
@@ -25,14 +26,6 @@ import {
 export type StudyOutput = z.output<typeof ribStudyForm>;
 
 const resolver = zodResolver(ribStudyForm, plainParse);
-
-/** Two or three fields side by side where there is room; one under the other on a phone. */
-function Row({ children }: { children: React.ReactNode }) {
-  return <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.md }}>{children}</View>;
-}
-function Cell({ children }: { children: React.ReactNode }) {
-  return <View style={{ flexGrow: 1, flexBasis: 180, minWidth: 160 }}>{children}</View>;
-}
 
 type Props = {
   kits: KitModel[];
@@ -107,28 +100,7 @@ export function StudyForm({ kits, defaultValues, isNew, submitLabel, onSubmit, n
       </Section>
 
       <Section title="Aircraft">
-        <Row>
-          <Cell><FormNumberField control={control} name="inputs.kit.weightLb" label="Gross weight" quantity="mass" testID="study-weight" /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.kit.wingAreaSqFt" label="Wing area" quantity="area" testID="study-wing-area" /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.kit.meanChordIn" label="Mean chord" quantity="length" testID="study-mean-chord" /></Cell>
-        </Row>
-        <Row>
-          <Cell><FormNumberField control={control} name="inputs.kit.stallSpeedKeas" label="Stall speed" unit="KEAS" testID="study-stall" /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.kit.cruiseSpeedKeas" label="Cruise speed" unit="KEAS" hint="Blank: the rule minimum" testID="study-cruise" /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.kit.diveSpeedKeas" label="Dive speed" unit="KEAS" hint="Blank: the rule minimum" testID="study-dive" /></Cell>
-        </Row>
-        <FormChoiceField
-          control={control}
-          name="inputs.kit.category"
-          label="Category"
-          testID="study-category"
-          options={[{ value: 'normal', label: 'Normal' }, { value: 'utility', label: 'Utility' }, { value: 'acrobatic', label: 'Acrobatic' }]}
-        />
-        <Row>
-          <Cell><FormNumberField control={control} name="inputs.kit.altitudeFt" label="Altitude of the gust cases" unit="ft" hint="Blank: sea level" testID="study-altitude" /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.kit.liftSlopePerRad" label="Wing lift slope" unit="per rad" hint="Blank: estimated from the aspect ratio" testID="study-lift-slope" /></Cell>
-        </Row>
-        <Txt variant="small" tone="faint">Speeds in knots equivalent airspeed and altitude in feet, as flight data are given in every unit system.</Txt>
+        <KitFields control={control} prefix="study" />
       </Section>
 
       <Section title="Airfoil">

@@ -1,0 +1,150 @@
+import type { KitModel, StudyDetail, WingStudyInput } from '@/db/contracts';
+import { nacaDigits, normaliseFieldPath } from './study-form-values';
+
+/**
+ * The wing study form holds the POST body itself (kind 'wing') in the engine's units (in, lb, sq ft,
+ * KEAS), as the rib form does: the number fields convert what is typed in mm, kg or N, so
+ * zodResolver(wingStudyBody) checks the very values the server gets.
+ */
+export type WingFormValues = WingStudyInput;
+export type WingRibRow = WingFormValues['inputs']['ribs'][number];
+
+/** The contract's bounds on the rib list (db/contracts/studies.ts). */
+export const WING_RIBS = { min: 2, max: 24 } as const;
+export const SKIN_GAUGES_MAX = 6;
+export const SKIN_RIVETS_MAX = 4;
+
+export const PRESSURE_RULE_OPTIONS = [
+  { value: 'karman-tsien', label: 'Kármán–Tsien', hint: 'The default' },
+  { value: 'prandtl-glauert', label: 'Prandtl–Glauert' },
+  { value: 'none', label: 'None', hint: 'Incompressible Cp' },
+] as const;
+
+const SQIN_PER_SQFT = 144;
+
+/** A rectangular wing of the kit's area and mean chord: span = S / c̄. */
+export function kitPlanform(kit: Pick<KitModel, 'wingAreaSqFt' | 'meanChordIn'>): WingFormValues['inputs']['planform'] {
+  return { kind: 'rectangle', spanIn: Math.round(((kit.wingAreaSqFt * SQIN_PER_SQFT) / kit.meanChordIn) * 10) / 10, chordIn: kit.meanChordIn };
+}
+
+/**
+ * The next name after `first` for the k-th rib: the trailing number counts up ("W-101" → "W-103" for
+ * k = 2), or a number is added ("Rib" → "Rib 3").
+ */
+export function ribName(first: string, k: number): string {
+  const base = first.trim() || 'Rib';
+  const m = /^(.*?)(\d+)$/.exec(base);
+  if (!m) return `${base} ${k + 1}`;
+  const n = String(Number(m[2]) + k);
+  return `${m[1]}${n.padStart(m[2].length, '0')}`;
+}
+
+/**
+ * `count` ribs evenly from `firstIn` to `lastIn` (stations to a hundredth of an inch), named up from
+ * `firstName`; or, when the numbers cannot make such a list, why not (the helper says it).
+ */
+export function evenlySpacedRibs(count: number, firstIn: number, lastIn: number, firstName: string): WingRibRow[] | string {
+  if (!Number.isInteger(count) || count < WING_RIBS.min || count > WING_RIBS.max) return `a wing study takes ${WING_RIBS.min} to ${WING_RIBS.max} ribs`;
+  if (!Number.isFinite(firstIn) || !Number.isFinite(lastIn) || firstIn < 0) return 'give the first and last rib stations';
+  const step = (lastIn - firstIn) / (count - 1);
+  if (step < 0.5) return 'the last rib must be outboard of the first, at least 0.5 in per bay';
+  return Array.from({ length: count }, (_, k) => ({ name: ribName(firstName, k), stationIn: Math.round((firstIn + k * step) * 100) / 100 }));
+}
+
+/** The kit model's design data into the wing study: the kit block, the airfoil and a planform to start from. */
+export function kitIntoWing(values: WingFormValues, kit: KitModel, opts: { planform?: boolean } = {}): WingFormValues {
+  return {
+    ...values,
+    kitModelId: kit.id,
+    inputs: {
+      ...values.inputs,
+      kit: {
+        ...values.inputs.kit,
+        weightLb: kit.weightLb,
+        wingAreaSqFt: kit.wingAreaSqFt,
+        meanChordIn: kit.meanChordIn,
+        stallSpeedKeas: kit.stallSpeedKeas,
+        cruiseSpeedKeas: kit.cruiseSpeedKeas ?? undefined,
+        category: kit.category,
+      },
+      airfoil: nacaDigits(kit.airfoil) ? { kind: 'naca', designation: nacaDigits(kit.airfoil) } : values.inputs.airfoil,
+      planform: opts.planform === false ? values.inputs.planform : kitPlanform(kit),
+    },
+  };
+}
+
+/**
+ * A new wing study: ten ribs a 14.5 in bay apart from 24 in outboard, the rib flanges of a lone rib, spars
+ * at 15 % and 70 %, flush rivets on the skin, common stock. What only the supplier knows (the tail arm,
+ * the study's name) is blank.
+ */
+export function newWingValues(kit?: KitModel): WingFormValues {
+  const blank = {
+    kind: 'wing',
+    kitModelId: '',
+    name: '',
+    inputs: {
+      kit: { category: 'normal' },
+      airfoil: { kind: 'naca', designation: '' },
+      planform: { kind: 'rectangle' },
+      tail: {},
+      ribs: evenlySpacedRibs(10, 24, 154.5, 'W-101') as WingRibRow[],
+      rib: {
+        lines: [
+          { name: 'Upper flange', surface: 'upper', startXc: 0.02, endXc: 0.85 },
+          { name: 'Lower flange', surface: 'lower', startXc: 0.02, endXc: 0.85 },
+        ],
+      },
+      spars: { frontXc: 0.15, rearXc: 0.7 },
+      skin: { gaugeCandidates: [0.016, 0.02, 0.025, 0.032], rivetCandidates: ['MS20426AD3', 'MS20426AD4'] },
+      compressibility: 'karman-tsien',
+      material: '6061-T6',
+      gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04],
+      rivetCandidates: ['PULLED-4', 'MS20470AD4'],
+      maxPitchDiameters: 8,
+      pitchIncrementIn: 0.125,
+      maxZones: 4,
+    },
+  } as unknown as WingFormValues;
+  return kit ? kitIntoWing(blank, kit) : blank;
+}
+
+/** A stored wing revision back into the form (a copy: editing never touches the cached revision). */
+export function wingValues(d: Pick<StudyDetail, 'kitModelId' | 'name' | 'inputs'>): WingFormValues {
+  return { kind: 'wing', kitModelId: d.kitModelId, name: d.name, inputs: JSON.parse(JSON.stringify(d.inputs)) as WingFormValues['inputs'] };
+}
+
+/** Form fields that carry a message of their own; anything else is said at the top of the form. */
+const PLACED = new Set([
+  'kitModelId', 'name',
+  'inputs.kit.weightLb', 'inputs.kit.wingAreaSqFt', 'inputs.kit.meanChordIn', 'inputs.kit.stallSpeedKeas', 'inputs.kit.cruiseSpeedKeas',
+  'inputs.kit.diveSpeedKeas', 'inputs.kit.category', 'inputs.kit.altitudeFt', 'inputs.kit.liftSlopePerRad',
+  'inputs.airfoil', 'inputs.airfoil.designation', 'inputs.airfoil.points', 'inputs.airfoil.name',
+  'inputs.planform', 'inputs.planform.kind', 'inputs.planform.spanIn', 'inputs.planform.chordIn', 'inputs.planform.rootChordIn', 'inputs.planform.tipChordIn',
+  'inputs.tail.armIn', 'inputs.tail.balancingLoadLb',
+  'inputs.ribs', 'inputs.rib.lines', 'inputs.rib.internalCp', 'inputs.rib.flangeWidthIn', 'inputs.rib.skinGaugeIn',
+  'inputs.spars.frontXc', 'inputs.spars.rearXc', 'inputs.spars.capAreaSqIn',
+  'inputs.skin.gaugeCandidates', 'inputs.skin.rivetCandidates',
+  'inputs.flaps.stallSpeedKeas', 'inputs.flaps.designSpeedKeas', 'inputs.compressibility',
+  'inputs.material', 'inputs.gaugeCandidates', 'inputs.rivetCandidates',
+  'inputs.maxPitchDiameters', 'inputs.pitchIncrementIn', 'inputs.maxZones', 'inputs.rankBy', 'inputs.minutesPerHole', 'inputs.panels',
+]);
+const LINE_FIELDS = new Set(['name', 'surface', 'startXc', 'endXc']);
+const RIB_FIELDS = new Set(['name', 'stationIn']);
+
+/**
+ * The wing form's field for a server path, whoever named it (zod: "inputs.ribs.3.stationIn", the engine:
+ * "ribs[3].stationIn"), or null when the form has no place for it (said at the top of the form).
+ */
+export function wingFieldFor(path: string): string | null {
+  const p = normaliseFieldPath(path);
+  // Chosen with chips: one field for the whole list.
+  const list = /^inputs\.((?:skin\.)?(?:gaugeCandidates|rivetCandidates))\.\d+$/.exec(p);
+  if (list) return `inputs.${list[1]}`;
+  if (/^inputs\.airfoil\.points\.\d+(\.\d+)?$/.test(p)) return 'inputs.airfoil.points';
+  const rib = /^inputs\.ribs\.(\d+)(?:\.(\w+))?$/.exec(p);
+  if (rib) return rib[2] && RIB_FIELDS.has(rib[2]) ? `inputs.ribs.${rib[1]}.${rib[2]}` : `inputs.ribs.${rib[1]}.stationIn`;
+  const line = /^inputs\.rib\.lines\.(\d+)(?:\.(\w+))?$/.exec(p);
+  if (line) return line[2] && LINE_FIELDS.has(line[2]) ? `inputs.rib.lines.${line[1]}.${line[2]}` : `inputs.rib.lines.${line[1]}.name`;
+  return PLACED.has(p) ? p : null;
+}

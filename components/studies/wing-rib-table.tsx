@@ -1,0 +1,88 @@
+import { View } from 'react-native';
+import { space } from '@/constants/theme';
+import { Button } from '@/components/ui/button';
+import { GridTable } from '@/components/ui/grid-table';
+import { Mono, Txt } from '@/components/ui/text';
+import { useUnits } from '@/hooks/use-units';
+import { forceNumber, momentNumber, momentUnit, shearFlowNumber, shearFlowUnit } from './study-numbers';
+import { idPart, type WingCondition, type WingRib } from './wing-result';
+
+const W = { rib: 116, station: 76, chord: 72, ratio: 60, force: 76, moment: 84, flow: 72, rec: 178, ok: 64 };
+
+/**
+ * Every rib root to tip: where it is, the loads there (limit, the largest of any condition) and its own
+ * recommendation. The rib's name is the button that shows its zones below.
+ */
+export function WingRibTable({ ribs, conditions, chosen, onChoose }: {
+  ribs: WingRib[]; conditions: WingCondition[]; chosen: string | null; onChoose: (name: string) => void;
+}) {
+  const u = useUnits();
+  const lu = u.label('length');
+  const fu = u.label('force');
+  const mu = momentUnit(u.system);
+  const qu = shearFlowUnit(u.system);
+  const label = (id: string) => conditions.find((c) => c.id === id)?.label ?? id;
+  return (
+    <View style={{ gap: space.sm }} testID="wing-rib-table">
+      <GridTable
+        label="Ribs root to tip"
+        columns={[
+          { key: 'rib', title: 'Rib', width: W.rib },
+          { key: 'station', title: `Station, ${lu}`, width: W.station, align: 'right' },
+          { key: 'chord', title: `Chord, ${lu}`, width: W.chord, align: 'right' },
+          { key: 'ratio', title: 'cl/CL', width: W.ratio, align: 'right' },
+          { key: 'shear', title: `Shear, ${fu}`, width: W.force, align: 'right' },
+          { key: 'bending', title: `Bending, ${mu}`, width: W.moment, align: 'right' },
+          { key: 'torque', title: `Torque, ${mu}`, width: W.moment, align: 'right' },
+          { key: 'flow', title: `Shear flow, ${qu}`, width: W.flow, align: 'right' },
+          { key: 'rec', title: 'Recommended', width: W.rec },
+          { key: 'ok', title: 'Carries it', width: W.ok },
+        ]}
+        rows={ribs.map((r) => {
+          const on = r.name === chosen;
+          const id = idPart(r.name);
+          const rec = r.study.recommended;
+          return {
+            key: r.name,
+            testID: `wing-rib-row-${id}`,
+            cells: {
+              rib: (
+                <Button
+                  label={`${on ? '▶ ' : ''}${r.name}`}
+                  variant="quiet"
+                  compact
+                  selected={on}
+                  onPress={() => onChoose(r.name)}
+                  testID={`wing-rib-${id}`}
+                  accessibilityLabel={`Rib ${r.name}: show its zones${on ? ' (shown)' : ''}`}
+                  style={{ alignSelf: 'flex-start' }}
+                />
+              ),
+              station: <Mono variant="small">{u.station(r.stationIn)}</Mono>,
+              chord: <Mono variant="small">{u.lengthNumber(r.chordIn)}</Mono>,
+              ratio: <Mono variant="small">{r.clRatio.toFixed(3)}</Mono>,
+              shear: <Mono variant="small" accessibilityLabel={`${forceNumber(r.loads.shearLb, u.system)} ${fu}, ${label(r.loads.governing.shear)}`}>{forceNumber(r.loads.shearLb, u.system)}</Mono>,
+              bending: <Mono variant="small">{momentNumber(r.loads.bendingInLb, u.system)}</Mono>,
+              torque: <Mono variant="small">{momentNumber(r.loads.torqueInLb, u.system)}</Mono>,
+              flow: <Mono variant="small">{shearFlowNumber(r.loads.shearFlowLbPerIn, u.system)}</Mono>,
+              rec: rec
+                ? <Mono variant="small" bold testID={`wing-rib-rec-${id}`}>{u.length(rec.gaugeIn)} · {rec.rivet}</Mono>
+                : <Txt variant="small" tone="error" testID={`wing-rib-rec-${id}`}>none</Txt>,
+              ok: <Txt variant="small" bold tone={rec ? 'ink' : 'error'}>{rec ? '✓ yes' : '✕ no'}</Txt>,
+            },
+          };
+        })}
+      />
+      <Txt variant="small" tone="faint">
+        Station: outboard of the centre line. cl/CL: the section’s share of the wing’s lift coefficient (Schrenk). Loads at limit, the largest of
+        every condition ({governingSummary(ribs, label)}). Shear flow: the torque’s in the box between the spars, q = T/2A.
+      </Txt>
+    </View>
+  );
+}
+
+/** Which conditions govern, said once under the table rather than in every row. */
+function governingSummary(ribs: WingRib[], label: (id: string) => string): string {
+  const said = (pick: (r: WingRib) => string) => [...new Set(ribs.map(pick))].map(label).join(', ');
+  return `shear: ${said((r) => r.loads.governing.shear)}; bending: ${said((r) => r.loads.governing.bending)}; torque: ${said((r) => r.loads.governing.torque)}`;
+}
