@@ -227,9 +227,9 @@ export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine
   const twoEnds = lengthIn >= 2 * edge + minPitch - EPS;
   if (twoEnds) {
     const [first, final] = endNeeds;
-    const reach = (p: number) => edge + p + lineData.spacingIn;
-    const firstTo = along[0] + reach(first.pitch);
-    const lastFrom = along[n - 1] - reach(final.pitch);
+    // how far from each end the end rivet's pitch holds: its gap, the edge distance and a station spacing
+    const firstTo = along[0] + (edge + first.pitch + lineData.spacingIn);
+    const lastFrom = along[n - 1] - (edge + final.pitch + lineData.spacingIn);
     for (let i = 0; i < n; i++) {
       if (along[i] <= firstTo && first.pitch < needPitch[i]) needPitch[i] = first.pitch;
       if (along[i] >= lastFrom && final.pitch < needPitch[i]) needPitch[i] = final.pitch;
@@ -293,6 +293,12 @@ export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine
   };
 }
 
+/*
+ * The helpers below are module functions, not closures made inside the schedule: tsx (which runs the
+ * benchmark) compiles with esbuild's keepNames, which names every closure as it is made (a
+ * defineProperty call each time), and these run for every candidate on every line.
+ */
+
 /** The allowables the checks read, as plain numbers: limit and ultimate, tension and shear, lb. */
 interface Capacity {
   tl: number;
@@ -304,6 +310,11 @@ interface Capacity {
 /** Whether a rivet at `pitch` under a pull w and a shear q per inch passes at limit and at ultimate. */
 function passes(pitch: number, w: number, q: number, c: Capacity): boolean {
   return pitch * demand(w, q, c.tl, c.sl) <= 1 + EPS && UF * pitch * demand(w, q, c.tu, c.su) <= 1 + EPS;
+}
+
+/** Whether station i passes at grid pitch g, with the windows of every pitch. */
+function passesAt(grid: number[], tension: Float64Array[], shear: Float64Array[], c: Capacity, i: number, g: number): boolean {
+  return passes(grid[g], tension[g][i], shear[g][i], c);
 }
 
 /**
@@ -322,7 +333,6 @@ function stationNeeds(lineData: PreparedLine, grid: number[], c: Capacity): { ne
     tension.push(w.tension);
     shear.push(w.shear);
   }
-  const passesAt = (i: number, g: number) => passes(grid[g], tension[g][i], shear[g][i], c);
   const needPitch = new Float64Array(n);
   const shortPitch = new Float64Array(n).fill(NaN);
   let hint = last >> 1;
@@ -332,8 +342,8 @@ function stationNeeds(lineData: PreparedLine, grid: number[], c: Capacity): { ne
     // previous station's answer is tried first, which takes one or two checks instead of a bisection.
     let lo: number;
     let hi: number;
-    if (passesAt(i, hint)) {
-      if (hint === 0 || !passesAt(i, hint - 1)) {
+    if (passesAt(grid, tension, shear, c, i, hint)) {
+      if (hint === 0 || !passesAt(grid, tension, shear, c, i, hint - 1)) {
         needPitch[i] = grid[hint];
         continue;
       }
@@ -345,12 +355,12 @@ function stationNeeds(lineData: PreparedLine, grid: number[], c: Capacity): { ne
     }
     while (lo < hi) {
       const mid = (lo + hi) >> 1;
-      if (passesAt(i, mid)) hi = mid;
+      if (passesAt(grid, tension, shear, c, i, mid)) hi = mid;
       else lo = mid + 1;
     }
     hint = lo;
     needPitch[i] = grid[lo];
-    if (!passesAt(i, lo)) {
+    if (!passesAt(grid, tension, shear, c, i, lo)) {
       const w = tension[last][i];
       const q = shear[last][i];
       shortPitch[i] = 1 / Math.max(demand(w, q, c.tl, c.sl), UF * demand(w, q, c.tu, c.su));
@@ -361,23 +371,24 @@ function stationNeeds(lineData: PreparedLine, grid: number[], c: Capacity): { ne
 
 /** The longest pitch on the grid at which an end rivet carries its share: the edge distance and half a gap. */
 function endNeed(end: 'first' | 'last', lineData: PreparedLine, grid: number[], edge: number, c: Capacity): { end: 'first' | 'last'; pitch: number; passes: boolean } {
-  const { along, tension, shear } = lineData;
-  const a0 = along[0];
-  const a1 = along[along.length - 1];
-  const endPasses = (g: number) => {
-    const share = edge + grid[g] / 2;
-    const lo = end === 'first' ? a0 : Math.max(a0, a1 - share);
-    const hi = end === 'first' ? Math.min(a1, a0 + share) : a1;
-    return passes(share, tension.maxOver(lo, hi), shear.maxOver(lo, hi), c);
-  };
   let lo = 0;
   let hi = grid.length - 1;
   while (lo < hi) {
     const mid = (lo + hi) >> 1;
-    if (endPasses(mid)) hi = mid;
+    if (endPasses(end, lineData, grid[mid], edge, c)) hi = mid;
     else lo = mid + 1;
   }
-  return { end, pitch: grid[lo], passes: endPasses(lo) };
+  return { end, pitch: grid[lo], passes: endPasses(end, lineData, grid[lo], edge, c) };
+}
+
+function endPasses(end: 'first' | 'last', lineData: PreparedLine, pitch: number, edge: number, c: Capacity): boolean {
+  const { along, tension, shear } = lineData;
+  const a0 = along[0];
+  const a1 = along[along.length - 1];
+  const share = edge + pitch / 2;
+  const lo = end === 'first' ? a0 : Math.max(a0, a1 - share);
+  const hi = end === 'first' ? Math.min(a1, a0 + share) : a1;
+  return passes(share, tension.maxOver(lo, hi), shear.maxOver(lo, hi), c);
 }
 
 /** Neighbouring stations that not even the minimum pitch carries, as ranges with the pitch they would need. */

@@ -105,6 +105,16 @@ export function estimateHoles(zones: Zone[], start: number, end: number, minPitc
 }
 
 /**
+ * The tightest pitch of the zones that [a, b] touches, never below `floor`. A loop, not filter/map/spread:
+ * it runs a few times for every hole.
+ */
+function tightestPitch(zones: Zone[], a: number, b: number, floor: number): number {
+  let p = Infinity;
+  for (const z of zones) if (z.from <= b + EPS && z.to >= a - EPS) p = Math.min(p, z.pitch);
+  return Math.max(floor, p);
+}
+
+/**
  * Hole positions from the first hole at the start edge distance to the last at the end edge distance,
  * stepping by the tightest zone pitch the step touches, never closer than the minimum pitch. A last gap
  * shorter than the minimum pitch is evened out with as few of the gaps before it as will do, or else left
@@ -119,12 +129,7 @@ export function placeHoles(zones: Zone[], start: number, end: number, minPitch: 
   if (estimate > maxHoles) {
     throw new EngineeringInputError('zones', `these zones would place about ${estimate.toLocaleString('en-US')} holes on one line; at most ${maxHoles.toLocaleString('en-US')}`);
   }
-  // The tightest pitch of the zones [a, b] touches (a loop, not filter/map/spread: it runs a few times per hole).
-  const tightest = (a: number, b: number) => {
-    let p = Infinity;
-    for (const z of zones) if (z.from <= b + EPS && z.to >= a - EPS) p = Math.min(p, z.pitch);
-    return Math.max(floor, p);
-  };
+  const tightest = (a: number, b: number) => tightestPitch(zones, a, b, floor);
   const positions = [start];
   let note: string | null = null;
   // Bounded by the estimate: every step advances by at least the minimum pitch.
