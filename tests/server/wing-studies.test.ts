@@ -180,9 +180,19 @@ describe('applying a wing study to a part design', () => {
     expect(toRib.body.error.fields.partDesignId).toMatch(/skin_panel/);
   });
 
+  it("refuses a skin candidate whose zones the wing did not keep, pointing to the panel's recommended one", async () => {
+    const panel = wing.result.skins.find((s: any) => s.candidates.some((c: any) => c.feasible && c.lines.length === 0));
+    const other = panel.candidates.find((c: any) => c.feasible && c.lines.length === 0);
+    const res = await apply(wing.id, { partDesignId: designIds['W-201'], gaugeIn: other.gaugeIn, rivet: other.rivet, target: { kind: 'skin', name: panel.name } });
+    expect(res.status).toBe(409);
+    expect(res.body.error.message).toContain(`recommended candidate (${panel.recommended.gaugeIn} in with ${panel.recommended.rivet})`);
+  });
+
   it('answers 404 for a rib or panel the study does not have', async () => {
-    const res = await apply(wing.id, { partDesignId: designIds['W-104'], ...wing.result.trade.recommendedUniform, target: { kind: 'rib', name: 'W-999' } });
-    expect(res.status).toBe(404);
+    const rib = await apply(wing.id, { partDesignId: designIds['W-104'], ...wing.result.trade.recommendedUniform, target: { kind: 'rib', name: 'W-999' } });
+    expect(rib.status).toBe(404);
+    const panel = await apply(wing.id, { partDesignId: designIds['W-201'], ...wing.result.skins[0].recommended, target: { kind: 'skin', name: 'W-101–W-110 upper' } });
+    expect(panel.status).toBe(404);
   });
 });
 
