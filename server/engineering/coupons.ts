@@ -1,6 +1,6 @@
 import { EngineeringInputError } from './errors';
 import { ENGINEERING_CAUTION, type EngineeringResult } from './result';
-import { requireCount, requireStudyBound, STUDY_BOUNDS } from './bounds';
+import { requireCount, requireStudyBound, STUDY_BOUNDS, type Bound } from './bounds';
 import { requireArray, requireOneOf, requirePositive } from './validate';
 
 /**
@@ -66,7 +66,30 @@ export function validateCoupons(tests: unknown, field = 'coupons'): CouponTest[]
   const list = requireArray<unknown>(tests, field, 0);
   // Every candidate reads every test: the count is part of a study's work.
   requireCount(list, field, STUDY_BOUNDS.coupons);
-  return list.map((t, i) => validateCouponTest(t, `${field}[${i}]`));
+  // Every candidate validates every test: a sound one is passed on a quick look, and the checks that
+  // name the field (and build its name) run only for one that is not.
+  return list.map((t, i) => (soundCoupon(t) ? (t as CouponTest) : validateCouponTest(t, `${field}[${i}]`)));
+}
+
+const within = (v: unknown, b: Bound): boolean =>
+  typeof v === 'number' && Number.isFinite(v) && (!b.integer || Number.isInteger(v)) && v >= b.min && (b.maxExclusive ? v < b.max : v <= b.max);
+
+/** What `validateCouponTest` lets through (it may let through more: it has the last word). */
+function soundCoupon(test: unknown): boolean {
+  if (test === null || typeof test !== 'object') return false;
+  const t = test as CouponTest;
+  return (
+    typeof t.material === 'string' &&
+    t.material.trim() !== '' &&
+    typeof t.rivetSpec === 'string' &&
+    t.rivetSpec.trim() !== '' &&
+    within(t.gaugeIn, STUDY_BOUNDS['coupons[].gaugeIn']) &&
+    t.gaugeIn > 0 &&
+    within(t.loadLb, STUDY_BOUNDS['coupons[].loadLb']) &&
+    t.loadLb > 0 &&
+    (t.couponWidthIn === undefined || within(t.couponWidthIn, STUDY_BOUNDS['coupons[].couponWidthIn'])) &&
+    (COUPON_OUTCOMES as readonly unknown[]).includes(t.outcome)
+  );
 }
 
 export function matchesCoupon(test: CouponTest, q: CouponQuery): boolean {
