@@ -207,12 +207,13 @@ export const studiesService = (db: Db) => {
     const design = await targetDesign(user, study, body.partDesignId, ['skin_panel'], `skin panel ${name}`);
     const inputs = study.inputs as WingStudyInputValues;
     const lines = candidate.lines.map((schedule, i) => ({
-      code: SKIN_LINES[i].code, name: SKIN_LINES[i].name(panel), surface: panel.surface,
+      // A panel's lines are 'flat' (a panel's convention): drawn as rows of their own, not along an airfoil.
+      code: SKIN_LINES[i].code, name: SKIN_LINES[i].name(panel), surface: 'flat' as const,
       startIn: 0, lengthIn: thou(schedule.lengthIn), zones: revisionZones(schedule),
     }));
-    // A revision's lines all run one way from startIn, held within chordIn; a panel's spar lines run
-    // spanwise (its width) and its rib lines chordwise between the spars. chordIn is the panel's longest
-    // side so that every line fits; its true sides are in the basis. (See server/studies/README.md.)
+    // A revision's lines all run one way from startIn; a panel's spar lines run spanwise (its width) and
+    // its rib lines chordwise between the spars. chordIn is the panel's longest side so that the drawing
+    // holds every line; its true sides are in the basis. (See server/studies/README.md.)
     const chordIn = Math.ceil(Math.max(panel.outerStationIn - panel.innerStationIn, ...lines.map((l) => l.lengthIn)) * 1000) / 1000;
     const { candidates: _all, ...place } = panel;
     void _all;

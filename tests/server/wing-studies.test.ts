@@ -130,7 +130,7 @@ describe('applying a wing study to a part design', () => {
     expect(res.body.error.message).toMatch(/recommended candidate .* one-for-all choice/);
   });
 
-  it('writes the root upper panel into the skin part: front spar, rear spar and both rib lines on the upper surface', async () => {
+  it('writes the root upper panel into the skin part: front spar, rear spar and both rib lines, as the flat rows of a panel', async () => {
     const panel = wing.result.skins.find((s: { surface: string; innerRib: string }) => s.surface === 'upper' && s.innerRib === 'W-101');
     const pick: Choice = panel.recommended;
     const res = await apply(wing.id, { partDesignId: designIds['W-201'], ...pick, target: { kind: 'skin', name: panel.name } });
@@ -142,7 +142,7 @@ describe('applying a wing study to a part design', () => {
     // the diameter in 32nds of an inch (common practice): the stored, rounded figure must not undercut it.
     const d = Number(pick.rivet.match(/AD(\d+)$/)![1]) / 32;
     expect(res.body.edgeDistanceIn).toBeGreaterThanOrEqual(2.5 * d);
-    for (const line of res.body.lines) expect(line).toMatchObject({ surface: 'upper', startIn: 0 });
+    for (const line of res.body.lines) expect(line).toMatchObject({ surface: 'flat', startIn: 0 });
     // The spar lines run the bay between ribs at 24 and 38.5 in: 14.5 in (geometry).
     expect(res.body.lines[0].lengthIn).toBeCloseTo(14.5, 3);
     expect(res.body.lines[1].lengthIn).toBeCloseTo(14.5, 3);
