@@ -1,4 +1,5 @@
 import { EngineeringInputError } from './errors';
+import { interpolateCp, type CpSample } from './panel-method';
 import { requireFinite, requireNonNegative, requirePositive } from './validate';
 
 /**
@@ -46,13 +47,37 @@ export interface EnvelopeStation {
   governing: string | null;
 }
 
+/**
+ * A flight condition's pressure along the surface: as a function of x/c, or as the samples it is linear
+ * between (x/c from the leading edge to the trailing edge, as `interpolateCp` reads them), which the
+ * envelope reads in step with the stations instead of searching them afresh for each.
+ */
+export type EnvelopeCondition = { id: string; qPsi: number } & ({ cpAt: (xc: number) => number } | { cpSamples: CpSample[] });
+
+/**
+ * `interpolateCp(samples, ·)` for queries that mostly follow on from the last: the bracketing samples
+ * are walked to from the last ones. Samples in order of x/c have one bracket for every x/c, so this is
+ * exactly the bisection's answer; samples out of order are left to the bisection itself.
+ */
+function steppedCp(samples: CpSample[]): (xc: number) => number {
+  for (let k = 1; k < samples.length; k++) if (!(samples[k].xc >= samples[k - 1].xc)) return (xc) => interpolateCp(samples, xc);
+  let lo = 0;
+  return (xc) => {
+    if (xc <= samples[0].xc) return samples[0].cp;
+    const last = samples[samples.length - 1];
+    if (xc >= last.xc) return last.cp;
+    // samples[0].xc < xc < last.xc: both walks stop inside the list
+    while (samples[lo].xc > xc) lo--;
+    while (samples[lo + 1].xc <= xc) lo++;
+    const p = samples[lo];
+    const q = samples[lo + 1];
+    if (q.xc === p.xc) return Math.min(p.cp, q.cp);
+    return p.cp + ((q.cp - p.cp) * (xc - p.xc)) / (q.xc - p.xc);
+  };
+}
+
 /** Largest pull over all conditions at each station. */
-export function loadEnvelope(
-  xcs: number[],
-  conditions: { id: string; qPsi: number; cpAt: (xc: number) => number }[],
-  internalCp: number,
-  tributaryWidthIn: number,
-): EnvelopeStation[] {
+export function loadEnvelope(xcs: number[], conditions: EnvelopeCondition[], internalCp: number, tributaryWidthIn: number): EnvelopeStation[] {
   const n = xcs.length;
   const best = new Float64Array(n);
   const governing: (string | null)[] = new Array(n).fill(null);
@@ -60,8 +85,9 @@ export function loadEnvelope(
   // look-up then follows the last one along the same samples, which is what the caches are good at. The
   // conditions still come in their order at every station, so the first of equal pulls governs.
   for (const c of conditions) {
+    const cpAt = 'cpSamples' in c ? steppedCp(c.cpSamples) : c.cpAt;
     for (let i = 0; i < n; i++) {
-      const w = suctionIntensityLbPerIn(c.cpAt(xcs[i]), internalCp, c.qPsi, tributaryWidthIn);
+      const w = suctionIntensityLbPerIn(cpAt(xcs[i]), internalCp, c.qPsi, tributaryWidthIn);
       if (w > best[i]) {
         best[i] = w;
         governing[i] = c.id;
