@@ -172,26 +172,39 @@ export function holePrefixFor(line: string): string {
   return initials.slice(0, 3) || 'H';
 }
 
+type AllowablesInput = Pick<PitchScheduleInput, 'material' | 'gaugeIn' | 'rivetSpec' | 'coupons' | 'pullThroughFallbackFraction' | 'materialData' | 'rivetData'>;
+
 /**
- * Schedules one line. `prepared` lets a caller that schedules many candidates on the same line (the rib
- * study) prepare its loads once; it must come from `prepareStations(input.stations)`.
+ * The joint allowables a schedule works to: at the layout's minimum edge distance. They depend on the
+ * gauge and rivet, not the line: a caller that schedules one candidate on several lines (the rib study)
+ * can work them out once and hand them to each `pitchSchedule`.
  */
-export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine): PitchScheduleResult {
+export function scheduleAllowables(input: AllowablesInput): JointAllowables {
   const rivet = findRivet(input.rivetSpec, input.rivetData);
-  const layout = layoutRules(rivet);
-  validateScheduleSettings(input, layout.diameterIn);
-  requirePitchGrid(input, layout.diameterIn);
-  const lineData = prepared ?? prepareStations(input.stations);
-  const allow = jointAllowables({
+  return jointAllowables({
     material: input.material,
     gaugeIn: input.gaugeIn,
     rivetSpec: rivet.code,
-    edgeDistanceIn: layout.minEdgeIn,
+    edgeDistanceIn: layoutRules(rivet).minEdgeIn,
     coupons: input.coupons,
     pullThroughFallbackFraction: input.pullThroughFallbackFraction,
     materialData: input.materialData,
     rivetData: input.rivetData,
   });
+}
+
+/**
+ * Schedules one line. A caller that schedules many candidates on the same line (the rib study) can
+ * prepare its loads once (`prepared`, from `prepareStations(input.stations)`), and one that schedules a
+ * candidate on several lines its allowables once (`allowables`, from `scheduleAllowables(input)`).
+ */
+export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine, allowables?: JointAllowables): PitchScheduleResult {
+  const rivet = findRivet(input.rivetSpec, input.rivetData);
+  const layout = layoutRules(rivet);
+  validateScheduleSettings(input, layout.diameterIn);
+  requirePitchGrid(input, layout.diameterIn);
+  const lineData = prepared ?? prepareStations(input.stations);
+  const allow = allowables ?? scheduleAllowables(input);
   const rules = [
     'per-rivet load = largest pull per inch over the rivet\'s share of the line × its share (half the gap to each neighbour; an end rivet\'s share runs on to the line\'s end)',
     'required pitch: limit load ≤ limit allowable and 1.5 × limit load ≤ ultimate allowable (14 CFR 23.303, 23.305)',
