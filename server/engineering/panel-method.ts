@@ -53,16 +53,12 @@ const TWO_PI = 2 * Math.PI;
 /**
  * Stream function at (x, y), in the panel's own axes, of a vortex panel from (0, 0) to (s, 0) whose
  * strength runs linearly from γa to γb: ψ = (1/2π)∫γ ln r dξ. Returns the coefficients of γa and γb.
- * Written with squared distances (one log each, no square roots) and an output buffer (no allocation):
- * this is the inner loop of building the matrix.
+ * r1s, r2s are the squared distances to the panel's ends and ln1, ln2 their ln r: a node's distance to
+ * each other node serves the two panels that meet there, so the caller takes each logarithm once.
+ * Written with an output buffer (no allocation): this is the inner loop of building the matrix.
  */
-function streamCoefficients(x: number, y: number, s: number, out: Float64Array): void {
+function streamCoefficients(x: number, y: number, s: number, r1s: number, r2s: number, ln1: number, ln2: number, out: Float64Array): void {
   const xs = x - s;
-  const r1s = x * x + y * y;
-  const r2s = xs * xs + y * y;
-  // ln r at a panel's own end node is multiplied by zero: take the limit.
-  const ln1 = r1s > 0 ? 0.5 * Math.log(r1s) : 0;
-  const ln2 = r2s > 0 ? 0.5 * Math.log(r2s) : 0;
   const subtended = r1s > 0 && r2s > 0 ? Math.atan2(y * s, x * xs + y * y) : 0;
   const i0 = x * ln1 - xs * ln2 - s + y * subtended; // ∫ ln r dξ
   const i1 = x * i0 - (0.5 * r1s * ln1 - 0.25 * x * x - 0.5 * r2s * ln2 + 0.25 * xs * xs); // ∫ ξ ln r dξ
@@ -108,14 +104,23 @@ export function solvePanelMethod(contour: Point[], leadingEdgeIndex?: number): P
   const m = n + 1;
   const a = new Float64Array(m * m);
   const c = new Float64Array(2);
+  const r2 = new Float64Array(n);
+  const lnr = new Float64Array(n);
   for (let i = 0; i < n - 1; i++) {
     const row = i * m;
     const xi = nodes[i][0];
     const yi = nodes[i][1];
+    // ln r at a panel's own end node is multiplied by zero: take the limit (0).
+    for (let k = 0; k < n; k++) {
+      const dx = xi - nodes[k][0];
+      const dy = yi - nodes[k][1];
+      r2[k] = dx * dx + dy * dy;
+      lnr[k] = r2[k] > 0 ? 0.5 * Math.log(r2[k]) : 0;
+    }
     for (let j = 0; j < panels; j++) {
       const dx = xi - nodes[j][0];
       const dy = yi - nodes[j][1];
-      streamCoefficients(dx * tx[j] + dy * ty[j], -dx * ty[j] + dy * tx[j], len[j], c);
+      streamCoefficients(dx * tx[j] + dy * ty[j], -dx * ty[j] + dy * tx[j], len[j], r2[j], r2[j + 1], lnr[j], lnr[j + 1], c);
       a[row + j] += c[0];
       a[row + j + 1] += c[1];
     }

@@ -6,8 +6,8 @@ import { designConditions, type DesignCondition, type DesignConditionsResult, ty
 import { EngineeringInputError } from './errors';
 import { layoutRules, rivetWeightLb } from './layout';
 import { findMaterial, findRivet, type RivetSpec, type SheetMaterial } from './materials';
-import { alphaForLiftCoefficient, cpOnSurface, pressureDistribution, solvePanelMethod, type CpSample, type PanelSolution } from './panel-method';
-import { holePrefixFor, pitchSchedule, prepareStations, requirePitchGrid, validateScheduleSettings, type PitchScheduleResult, type PreparedLine, type ScheduleHole, type StationLoad } from './pitch-schedule';
+import { alphaForLiftCoefficient, pressureDistribution, solvePanelMethod, type CpSample, type PanelSolution } from './panel-method';
+import { holePrefixFor, pitchSchedule, prepareStations, scheduleAllowables, requirePitchGrid, validateScheduleSettings, type PitchScheduleResult, type PreparedLine, type ScheduleHole, type StationLoad } from './pitch-schedule';
 import { compactNumbers, envelope, type EngineeringResult } from './result';
 import { lineStations, outlineAreaSqIn, ribOutline, validateLine, type FastenerLineInput } from './rib-geometry';
 import { loadEnvelope, shearFlowLbPerIn, ULTIMATE_FACTOR } from './rivet-loads';
@@ -212,9 +212,14 @@ const unique = (xs: string[]): string[] => [...new Set(xs)];
 
 /** A line's schedule without what the study already carries once (its inputs, rules, caution and warnings). */
 function withoutEnvelope(s: PitchScheduleResult): LineSchedule {
-  const { inputs, rules, caution, warnings, holes, ...rest } = s;
+  const { inputs, rules, caution, warnings, ...rest } = s;
   void inputs, void rules, void caution, void warnings;
-  return { ...rest, holes: holes.map(({ line, ...h }) => (void line, h)) };
+  return rest;
+}
+
+/** Holes as stored: each line says its name once, not on every hole (only for a candidate whose holes are kept). */
+function holesWithoutLine(c: StudyCandidate): StudyCandidate {
+  return { ...c, lines: c.lines.map((l) => ({ ...l, holes: l.holes.map(({ line, ...h }: Omit<ScheduleHole, 'line'> & { line?: string }) => (void line, h)) })) };
 }
 
 interface PreparedStudyLine {
@@ -309,7 +314,7 @@ function lineLoads(input: RibStudyInput, geometry: AirfoilGeometry, conditions: 
     const stations = lineStations(geometry, line, rib.chordIn, STATION_STEP_IN);
     const env = loadEnvelope(
       stations.map((s) => s.xc),
-      conditions.map((c) => ({ id: c.id, qPsi: c.qPsi, cpAt: (xc: number) => cpOnSurface(c.cp, line.surface, xc) })),
+      conditions.map((c) => ({ id: c.id, qPsi: c.qPsi, cpSamples: line.surface === 'upper' ? c.cp.upper : c.cp.lower })),
       internalCp,
       rib.spacingIn,
     );
@@ -335,7 +340,10 @@ function lineLoads(input: RibStudyInput, geometry: AirfoilGeometry, conditions: 
       fromStationIn: stations[0].stationIn,
       toStationIn: stations[stations.length - 1].stationIn,
       shearFlowLbPerIn: Math.abs(shearFlow),
-      envelope: kept.map((k) => ({ ...stations[k], limitLbPerIn: env[k].limitLbPerIn, ultimateLbPerIn: ULTIMATE_FACTOR * env[k].limitLbPerIn, governing: env[k].governing })),
+      envelope: kept.map((k) => {
+        const s = stations[k];
+        return { xc: s.xc, stationIn: s.stationIn, alongIn: s.alongIn, xIn: s.xIn, yIn: s.yIn, limitLbPerIn: env[k].limitLbPerIn, ultimateLbPerIn: ULTIMATE_FACTOR * env[k].limitLbPerIn, governing: env[k].governing };
+      }),
     };
     return { line, prefix, loads, prepared: prepareStations(loads), summary };
   });
@@ -345,6 +353,11 @@ function lineLoads(input: RibStudyInput, geometry: AirfoilGeometry, conditions: 
 function candidate(input: RibStudyInput, lines: PreparedStudyLine[], gaugeIn: number, rivet: RivetSpec): { candidate: StudyCandidate; rules: string[] } {
   const { rib } = input;
   const layout = layoutRules(rivet);
+  // One joint, one set of allowables: worked out once for every line of the candidate.
+  const allowables = scheduleAllowables({
+    material: input.material, gaugeIn, rivetSpec: rivet.code, coupons: input.coupons,
+    pullThroughFallbackFraction: input.pullThroughFallbackFraction, materialData: input.materialData, rivetData: input.rivetData,
+  });
   const schedules = lines.map((d) =>
     pitchSchedule(
       {
@@ -363,6 +376,7 @@ function candidate(input: RibStudyInput, lines: PreparedStudyLine[], gaugeIn: nu
         rivetData: input.rivetData,
       },
       d.prepared,
+      allowables,
     ),
   );
   const reasons = schedules.flatMap((s) => s.reasons.map((r) => `${s.line}: ${r}`));
@@ -444,7 +458,7 @@ function ribLoads(input: RibStudyInput, ctx: SectionContext, place: RibPlace) {
 /** Keeps the holes of one candidate only: the rest can be recomputed (ribCandidate) when someone asks. */
 function keepHolesOf(candidates: StudyCandidate[], keep: { gaugeIn: number; rivet: string } | null): StudyCandidate[] {
   return candidates.map((c) =>
-    keep && c.gaugeIn === keep.gaugeIn && c.rivet === keep.rivet ? c : { ...c, holesStored: false, lines: c.lines.map((l) => ({ ...l, holes: [] })) },
+    keep && c.gaugeIn === keep.gaugeIn && c.rivet === keep.rivet ? holesWithoutLine(c) : { ...c, holesStored: false, lines: c.lines.map((l) => ({ ...l, holes: [] })) },
   );
 }
 
@@ -526,5 +540,5 @@ export function ribCandidate(input: RibStudyInput, pick: { gaugeIn: number; rive
   if (!input.rivetCandidates?.includes(pick.rivet)) throw new EngineeringInputError('rivet', `${pick.rivet} is not one of the study's rivets`);
   const { ctx } = prepareRib(input);
   const { lines } = ribLoads(input, ctx, place ?? lonePlace(input));
-  return compactNumbers(candidate(input, lines, input.gaugeCandidates[gaugeIndex], findRivet(pick.rivet, input.rivetData)).candidate, 3);
+  return compactNumbers(holesWithoutLine(candidate(input, lines, input.gaugeCandidates[gaugeIndex], findRivet(pick.rivet, input.rivetData)).candidate), 3);
 }
