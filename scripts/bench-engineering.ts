@@ -2,17 +2,23 @@
  * Benchmark of the engineering core: the time for one whole rib study (all flight conditions, six
  * gauges × three rivet sizes) at 40, 80, 160 and 320 panels; within it the flow solution (influence
  * matrix, one LU factorisation, two solves serving every condition); and the LU factorisation on its
- * own with its fitted O(N³) constant. Medians of several runs after a warm-up.
+ * own with its fitted O(N³) constant; the rib study as a ratio to that LU (target ≤ 3×); and the demo kit's
+ * whole wing (ten ribs at their stations, eighteen skin panels; target under a second). Medians of several
+ * runs after a warm-up.
  *
  *   npx tsx scripts/bench-engineering.ts            (npm run bench:engineering)
  */
-import { buildAirfoil, luFactor, ribStudy, solvePanelMethod, type RibStudyInput } from '../server/engineering';
+import { buildAirfoil, luFactor, ribStudy, solvePanelMethod, wingStudy, type RibStudyInput, type WingStudyInput } from '../server/engineering';
+import { DEMO_COUPONS, DEMO_WING_INPUTS } from '../db/seed';
 
 const WARM_UP = 5;
 const RUNS = 21;
 const TARGET_MS = 100;
 /** the rib study at 160 panels against the LU factorisation of its own size, in the same run */
 const TARGET_LU_RATIO = 3;
+/** A ten-rib wing with its skin panels: under a second; fewer runs (each is a few hundred ms). */
+const WING_TARGET_MS = 1000;
+const WING_RUNS = 7;
 
 /** A light two-seat kit's inner wing rib, a typical case: 1320 lb, 14.5 in rib spacing, pulled rivets. */
 const study = (panels: number): RibStudyInput => ({
@@ -39,10 +45,10 @@ const study = (panels: number): RibStudyInput => ({
   ],
 });
 
-function medianMs(run: () => void): number {
+function medianMs(run: () => void, runs = RUNS): number {
   for (let i = 0; i < WARM_UP; i++) run();
   const times: number[] = [];
-  for (let i = 0; i < RUNS; i++) {
+  for (let i = 0; i < runs; i++) {
     const t0 = performance.now();
     run();
     times.push(performance.now() - t0);
@@ -110,5 +116,12 @@ console.log(`\nLU constant: t ≈ ${(c * 1e6).toFixed(3)} ns × n³ (${((2 / 3) 
 const at160 = rows.find((r) => r.panels === 160)!;
 console.log(`rib study at 160 panels: ${at160.studyMs.toFixed(1)} ms (target well under ${TARGET_MS} ms): ${at160.studyMs < TARGET_MS / 2 ? 'met' : 'NOT met'}`);
 console.log(luRatioLine('rib study', at160.studyMs, at160.luMs, TARGET_LU_RATIO));
-// Whole-wing line: goes here, timed with medianMs and reported with luRatioLine like the rib study.
+// The demo kit's whole wing: ten ribs each at its own station, eighteen skin panels (the seed's study).
+const wingInput = { ...DEMO_WING_INPUTS, coupons: DEMO_COUPONS.map(([gaugeIn, loadLb, outcome]) => ({ material: '6061-T6', gaugeIn, rivetSpec: 'PULLED-4', loadLb, outcome })) } as WingStudyInput;
+const wing = wingStudy(wingInput);
+const wingMs = medianMs(() => wingStudy(wingInput), WING_RUNS);
+console.log(
+  `whole wing, ${wing.ribs.length} ribs and ${wing.skins.length} skin panels (${wing.work.candidates} rib candidates, ${wing.work.skinSchedules} skin line schedules): ` +
+    `${wingMs.toFixed(0)} ms (target under ${WING_TARGET_MS} ms): ${wingMs < WING_TARGET_MS ? 'met' : 'NOT met'}`,
+);
 console.log(`recommended: ${result.recommended ? `${result.recommended.gaugeIn} in with ${result.recommended.rivet}` : 'none feasible'}`);
