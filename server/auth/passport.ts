@@ -1,7 +1,7 @@
 import passport from 'passport';
 import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
 import type { Db } from '../../db';
-import { JWT_ALGORITHM } from './tokens';
+import { JWT_ALGORITHM, signingKey } from './tokens';
 import { findSessionUser } from './auth-repository';
 
 type Payload = { sub?: string; exp?: number; ver?: number };
@@ -10,7 +10,7 @@ type Payload = { sub?: string; exp?: number; ver?: number };
 export function createPassport(db: Db, secret: string): passport.PassportStatic {
   const instance = new passport.Passport() as unknown as passport.PassportStatic;
   instance.use(new JwtStrategy(
-    { jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(), secretOrKey: secret, algorithms: [JWT_ALGORITHM] },
+    { jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(), secretOrKey: signingKey(secret) as unknown as string, algorithms: [JWT_ALGORITHM] },
     (payload: Payload, done: (err: unknown, user?: Express.User | false) => void) => {
       // A token without an expiry would never end: refused, as is one from before the last "sign out everywhere".
       if (!payload.sub || typeof payload.exp !== 'number' || typeof payload.ver !== 'number') return done(null, false);
