@@ -7,7 +7,8 @@ import { useUnits } from '@/hooks/use-units';
 import { marginText, partWeight, pitchNumber, shearFlowNumber, shearFlowUnit, stressNumber, stressUnit } from './study-numbers';
 import { idPart, skinCandidate, type SkinCandidate, type SkinPanelResult } from './wing-result';
 
-const W = { panel: 190, surface: 72, ribs: 150, rec: 178, flow: 76, stress: 84, pitch: 150, ms: 150 };
+// The longest values in the 15 px mono (9 px a character): "MS20426AD4" under its gauge, "111.00–125.50" under the ribs' names.
+const W = { panel: 196, surface: 72, ribs: 128, rec: 108, flow: 76, stress: 84, pitch: 150, ms: 150 };
 
 /** A buckling margin as the trade writes it; a negative one marked ✕ on its own tint. */
 function BucklingMargin({ ms, testID, note }: { ms: number | null; testID: string; note?: string }) {
@@ -82,7 +83,7 @@ export function SkinPanelTable({ panels, chosen, onChoose }: { panels: SkinPanel
             cells: {
               panel: (
                 <Button
-                  label={`${on ? '▶ ' : ''}${p.name}`}
+                  label={p.name}
                   variant="quiet"
                   compact
                   selected={on}
@@ -93,9 +94,19 @@ export function SkinPanelTable({ panels, chosen, onChoose }: { panels: SkinPanel
                 />
               ),
               surface: <Txt variant="small">{p.surface}</Txt>,
-              ribs: <Mono variant="small">{p.innerRib}–{p.outerRib} ({u.station(p.innerStationIn)}–{u.station(p.outerStationIn)})</Mono>,
+              ribs: (
+                <View>
+                  <Mono variant="small">{p.innerRib}–{p.outerRib}</Mono>
+                  <Mono variant="small" tone="soft">{u.station(p.innerStationIn)}–{u.station(p.outerStationIn)}</Mono>
+                </View>
+              ),
               rec: rec
-                ? <Mono variant="small" bold testID={`skin-rec-${id}`}>{u.length(rec.gaugeIn)} · {rec.rivet}</Mono>
+                ? (
+                  <View testID={`skin-rec-${id}`} accessibilityLabel={`${u.length(rec.gaugeIn)} with ${rec.rivet}`}>
+                    <Mono variant="small" bold>{u.length(rec.gaugeIn)}</Mono>
+                    <Mono variant="small" bold>{rec.rivet}</Mono>
+                  </View>
+                )
                 : <Txt variant="small" bold tone="error" testID={`skin-rec-${id}`}>✕ none carries it</Txt>,
               torsion: figures?.torsion ?? none,
               bending: figures?.bending ?? none,

@@ -7,7 +7,9 @@ import { useUnits } from '@/hooks/use-units';
 import { forceNumber, momentNumber, momentUnit, shearFlowNumber, shearFlowUnit } from './study-numbers';
 import { idPart, type WingCondition, type WingRib } from './wing-result';
 
-const W = { rib: 116, station: 76, chord: 72, ratio: 60, force: 76, moment: 84, flow: 72, rec: 178, ok: 64 };
+// Wide enough for the longest value of each column in the 15 px mono (9 px a character: a 6-digit moment,
+// "MS20470AD4" under its gauge), no wider: the table fits beside the form on a wide screen.
+const W = { rib: 100, station: 72, chord: 64, ratio: 56, force: 64, moment: 76, flow: 64, rec: 108, ok: 64 };
 
 /**
  * Every rib root to tip: where it is, the loads there (limit, the largest of any condition) and its own
@@ -48,7 +50,7 @@ export function WingRibTable({ ribs, conditions, chosen, onChoose }: {
             cells: {
               rib: (
                 <Button
-                  label={`${on ? '▶ ' : ''}${r.name}`}
+                  label={r.name}
                   variant="quiet"
                   compact
                   selected={on}
@@ -65,8 +67,14 @@ export function WingRibTable({ ribs, conditions, chosen, onChoose }: {
               bending: <Mono variant="small">{momentNumber(r.loads.bendingInLb, u.system)}</Mono>,
               torque: <Mono variant="small">{momentNumber(r.loads.torqueInLb, u.system)}</Mono>,
               flow: <Mono variant="small">{shearFlowNumber(r.loads.shearFlowLbPerIn, u.system)}</Mono>,
+              // Gauge over rivet: two short lines instead of one long one.
               rec: rec
-                ? <Mono variant="small" bold testID={`wing-rib-rec-${id}`}>{u.length(rec.gaugeIn)} · {rec.rivet}</Mono>
+                ? (
+                  <View testID={`wing-rib-rec-${id}`} accessibilityLabel={`${u.length(rec.gaugeIn)} with ${rec.rivet}`}>
+                    <Mono variant="small" bold>{u.length(rec.gaugeIn)}</Mono>
+                    <Mono variant="small" bold>{rec.rivet}</Mono>
+                  </View>
+                )
                 : <Txt variant="small" tone="error" testID={`wing-rib-rec-${id}`}>none</Txt>,
               ok: <Txt variant="small" bold tone={rec ? 'ink' : 'error'}>{rec ? '✓ yes' : '✕ no'}</Txt>,
             },

@@ -79,7 +79,8 @@ export function WingStudyBody({ d, kits }: { d: StudyDetail; kits: KitModel[] })
         {!wide && shownRev ? <Txt variant="small" tone="soft">Revision {shownRev.revision}: {whenText(shownRev.createdAt)} · {shownRev.createdByName}</Txt> : null}
       </Section>
       {wide ? (
-        <TwoPane leftWidth={0.36} left={form} right={results} />
+        // The results' tables are wide: they get two thirds of the screen.
+        <TwoPane leftWidth={0.3} left={form} right={results} />
       ) : (
         <>
           <Choice
