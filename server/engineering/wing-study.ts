@@ -129,6 +129,8 @@ export interface WingTradeRow {
   rivet: string;
   /** feasible on every rib */
   feasible: boolean;
+  /** 'coupons' when every rib's pull-through allowable for it comes from the supplier's coupons */
+  pullThroughBasis: 'coupons' | 'fallback';
   infeasibleRibs: string[];
   rivetCount: number;
   weightLb: number;
@@ -367,6 +369,7 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
     'wing lift in each condition L = n·W + tail download; each rib\'s section at the wing CL × its Schrenk cl/CL',
     'spanwise shear, bending and torque by integrating the lift and the sections\' moment about the mid-box from the tip inward (trapezoid rule, 2,000 steps)',
     'rib lines carry the skin\'s torsion shear flow at their station, q = T/(2A), together with the largest pull',
+    `one gauge and rivet for every rib: feasible on every rib, ranked with pull-through backed by coupons on every rib first, then by ${input.rankBy === 'buildTime' ? 'build time' : 'weight'}`,
     ...SKIN_RULES,
   ];
 
@@ -479,7 +482,7 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
     ...skins.flatMap((s) => (s.recommended ? [] : [`skin panel ${s.name}: no candidate carries its loads`])),
   );
 
-  const trade = wingTrade(ribs);
+  const trade = wingTrade(ribs, input.rankBy ?? 'weight');
   // What is kept of each rib's candidates: see WingRib.study.
   for (const rib of ribs) {
     rib.study.candidates = rib.study.candidates.map((c) =>
@@ -518,8 +521,11 @@ function withoutHoles<T extends { lines: { holes: unknown[] }[] }>(c: T): T & { 
 
 const sameKey = (a: { gaugeIn: number; rivet: string }, b: { gaugeIn: number; rivet: string } | null) => !!b && a.gaugeIn === b.gaugeIn && a.rivet === b.rivet;
 
-/** One gauge and rivet on every rib, against each rib with its own recommendation. */
-function wingTrade(ribs: WingRib[]): WingStudyResult['trade'] {
+/**
+ * One gauge and rivet on every rib, against each rib with its own recommendation. Ranked as a rib's trade
+ * table ranks (trade-study.ts): backed by coupons on every rib first, then by the chosen measure.
+ */
+function wingTrade(ribs: WingRib[], rankBy: RankBy): WingStudyResult['trade'] {
   const keys = ribs[0].study.trade.map((t) => ({ gaugeIn: t.gaugeIn, rivet: t.rivet }));
   const uniform: WingTradeRow[] = keys.map((k) => {
     const rows = ribs.map((r) => r.study.trade.find((t) => sameKey(t, k))!);
@@ -527,6 +533,7 @@ function wingTrade(ribs: WingRib[]): WingStudyResult['trade'] {
     return {
       ...k,
       feasible: infeasibleRibs.length === 0,
+      pullThroughBasis: rows.every((t) => t.pullThroughBasis === 'coupons') ? ('coupons' as const) : ('fallback' as const),
       infeasibleRibs,
       rivetCount: rows.reduce((n, t) => n + t.rivetCount, 0),
       weightLb: rows.reduce((n, t) => n + t.totalWeightLb, 0),
@@ -534,7 +541,11 @@ function wingTrade(ribs: WingRib[]): WingStudyResult['trade'] {
       rank: null,
     };
   });
-  const ranked = uniform.filter((u) => u.feasible).sort((a, b) => a.weightLb - b.weightLb || a.rivetCount - b.rivetCount);
+  const tested = (u: WingTradeRow) => (u.pullThroughBasis === 'coupons' ? 0 : 1);
+  const order = rankBy === 'weight'
+    ? (a: WingTradeRow, b: WingTradeRow) => a.weightLb - b.weightLb || a.buildMinutes - b.buildMinutes
+    : (a: WingTradeRow, b: WingTradeRow) => a.buildMinutes - b.buildMinutes || a.weightLb - b.weightLb;
+  const ranked = uniform.filter((u) => u.feasible).sort((a, b) => tested(a) - tested(b) || order(a, b));
   ranked.forEach((u, i) => (u.rank = i + 1));
   uniform.sort((a, b) => (a.rank ?? Infinity) - (b.rank ?? Infinity) || a.weightLb - b.weightLb);
   const choices = ribs.map((r) => ({ rib: r.name, gaugeIn: r.study.recommended?.gaugeIn ?? NaN, rivet: r.study.recommended?.rivet ?? '' }));

@@ -7,6 +7,7 @@ import {
   type WingStudyInput,
 } from '@/server/engineering';
 import { refusal } from './refusal';
+import { DEMO_COUPONS, DEMO_WING_INPUTS } from '@/db/seed';
 
 // An invented two-seat kit's wing: rectangular, 320 in span, 54 in chord (120 ft²), ten ribs.
 const wing: WingStudyInput = {
@@ -233,5 +234,27 @@ describe('a wing study checks what every rib takes as a rib study does', () => {
     ['a pitch increment of 1e-9 in', { pitchIncrementIn: 1e-9 }, 'pitchIncrementIn'],
   ] as [string, Partial<WingStudyInput>, string][])('%s', (_what, change, field) => {
     expect(refusal(() => wingStudy({ ...wing, ...change } as WingStudyInput)).field).toBe(field);
+  });
+});
+
+describe('the one-for-all choice of a wing with coupon tests', () => {
+  const coupons = DEMO_COUPONS.map(([gaugeIn, loadLb, outcome]) => ({ material: '6061-T6', gaugeIn, rivetSpec: 'PULLED-4', loadLb, outcome }));
+  const study = wingStudy({ ...(DEMO_WING_INPUTS as WingStudyInput), coupons });
+
+  it('never puts a candidate resting on the pull-through fallback ahead of one backed by coupons on every rib, as a rib does', () => {
+    const ranked = study.trade.uniform.filter((u) => u.rank !== null).sort((a, b) => a.rank! - b.rank!);
+    const firstFallback = ranked.findIndex((u) => u.pullThroughBasis === 'fallback');
+    const lastCoupons = ranked.map((u) => u.pullThroughBasis).lastIndexOf('coupons');
+    expect(lastCoupons).toBeGreaterThanOrEqual(0);
+    if (firstFallback >= 0) expect(lastCoupons).toBeLessThan(firstFallback);
+    expect(study.trade.uniform.find((u) => u.rank === 1)!.pullThroughBasis).toBe('coupons');
+    // and within each basis, lighter first
+    for (let i = 1; i < ranked.length; i++) {
+      if (ranked[i].pullThroughBasis === ranked[i - 1].pullThroughBasis) expect(ranked[i].weightLb).toBeGreaterThanOrEqual(ranked[i - 1].weightLb);
+    }
+  });
+
+  it('takes each rib\'s own recommendation for the choice per rib', () => {
+    expect(study.trade.perRib.choices).toEqual(study.ribs.map((r) => ({ rib: r.name, ...r.study.recommended! })));
   });
 });
