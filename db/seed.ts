@@ -70,7 +70,7 @@ export const DEMO_WING_INPUTS: WingStudyInputValues = {
   tail: { armIn: 170 },
   ribs: Array.from({ length: 10 }, (_, i) => ({ name: `W-${101 + i}`, stationIn: 24 + i * 14.5 })),
   rib: { lines: DEMO_STUDY_INPUTS.lines },
-  spars: { frontXc: 0.15, rearXc: 0.7, capAreaSqIn: 0.4 },
+  spars: { frontXc: 0.15, rearXc: 0.7, capAreaSqIn: 1 },
   skin: { gaugeCandidates: [0.016, 0.02, 0.025, 0.032], rivetCandidates: ['MS20426AD3', 'MS20426AD4'] },
   material: DEMO_STUDY_INPUTS.material,
   gaugeCandidates: DEMO_STUDY_INPUTS.gaugeCandidates,

@@ -95,7 +95,7 @@ export function newWingValues(kit?: KitModel): WingFormValues {
           { name: 'Lower flange', surface: 'lower', startXc: 0.02, endXc: 0.85 },
         ],
       },
-      spars: { frontXc: 0.15, rearXc: 0.7 },
+      spars: { frontXc: 0.15, rearXc: 0.7, capAreaSqIn: 1 },
       skin: { gaugeCandidates: [0.016, 0.02, 0.025, 0.032], rivetCandidates: ['MS20426AD3', 'MS20426AD4'] },
       compressibility: 'karman-tsien',
       material: '6061-T6',

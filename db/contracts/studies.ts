@@ -177,7 +177,7 @@ export const wingStudyInputSchema = z.object({
     frontXc: num('front spar position').min(0.05, 'the front spar is at x/c 0.05 to 0.5').max(0.5, 'the front spar is at x/c 0.05 to 0.5'),
     /** x/c: 0.2 – 0.9, at least 0.1 aft of the front spar */
     rearXc: num('rear spar position').min(0.2, 'the rear spar is at x/c 0.2 to 0.9').max(0.9, 'the rear spar is at x/c 0.2 to 0.9'),
-    /** in², both caps of one surface: 0 – 20 */
+    /** in², both caps of one surface: 0 – 20 (about 1 in² for a light two-seater's root) */
     capAreaSqIn: num('spar-cap area').min(0, 'the spar-cap area cannot be negative').max(20, 'the spar-cap area is at most 20 in²').optional(),
   }).refine((s) => s.rearXc >= s.frontXc + 0.1, { path: ['rearXc'], message: 'the rear spar must be at least 0.1 chord aft of the front spar' }),
   skin: z.object({

@@ -115,7 +115,7 @@ export const WING_BOUNDS = {
   'panel.poissonRatio': { what: "Poisson's ratio", min: 0.2, max: 0.4, unit: '' },
   'panel.thicknessIn': { what: 'the skin thickness', min: 0.008, max: 0.25, unit: 'in' },
   /** the loaded panel's short side (rib or stringer spacing) */
-  'panel.widthIn': { what: 'the panel width', min: 0.5, max: 60, unit: 'in' },
+  'panel.widthIn': { what: 'the panel width', min: 0.5, max: 300, unit: 'in' },
   'panel.appliedStressPsi': { what: 'the applied stress', min: 0, max: 200_000, unit: 'psi' },
   'panel.compressiveYieldPsi': { what: 'the compressive yield strength', min: 5_000, max: 250_000, unit: 'psi' },
   'panel.bucklingCoefficient': { what: 'the buckling coefficient', min: 0.4, max: 20, unit: '' },

@@ -244,5 +244,5 @@ export {
   type WingStudyResult,
   type WingTradeRow,
 } from './wing-study';
-export { skinPanelStudy, type SkinCandidate, type SkinLineSchedule, type SkinPanelResult, type SkinPanelSpec } from './skin-panel';
+export { compressionBucklingCoefficient, effectiveWidthIn, skinPanelStudy, type SkinCandidate, type SkinLineSchedule, type SkinPanelResult, type SkinPanelSpec } from './skin-panel';
 export { momentCoefficientAbout, spanwiseLoads, type SectionMoment, type StationLoads } from './wing-loads';

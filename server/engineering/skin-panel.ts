@@ -76,11 +76,12 @@ export interface SkinCandidate {
   /** the shear flows on this gauge, lb/in (limit) */
   torsionShearFlowLbPerIn: number;
   bendingShearFlowLbPerIn: number;
-  /** spanwise compression in the skin, psi (limit); 0 on the tension surface */
+  /** spanwise compression in the skin beside the spars, psi (limit; past buckling, in the effective width); 0 on the tension surface */
   compressionPsi: number;
   interRivet: { endFixity: number; source: string; pitchLimitIn: number | null };
   shearBuckling: { criticalPsi: number; appliedPsi: number; marginOfSafety: number | null; diagonalTension: boolean };
-  compressionBuckling: { criticalPsi: number; appliedPsi: number; marginOfSafety: number | null };
+  /** of the whole panel between the spars, at the stress it would carry unbuckled; then the width that carries the load */
+  compressionBuckling: { criticalPsi: number; appliedPsi: number; marginOfSafety: number | null; effectiveWidthIn: number };
   rivetCount: number;
   weightLb: number;
   buildMinutes: number;
@@ -110,7 +111,8 @@ export const SKIN_RULES = [
   'skin shear from torsion q_t = T/(2A) over the box between the spars (Bredt–Batho, single cell)',
   'skin shear from bending at the spar lines q_b = V·(w·t/2)/(h·(A_caps + w·t)) (skin and caps as a couple over the box depth)',
   INTER_RIVET_RULE,
-  'panel buckling: long plate, simply supported, k = 4.0 in compression and k_s = 5.35 in shear (Timoshenko & Gere), Johnson above half the yield',
+  'panel buckling, simply supported: in spanwise compression between the spars k = (b/a + a/b)² for a bay a shorter than the box width b, else 4.0; in shear k_s = 5.35 on the shorter side (Timoshenko & Gere); Johnson above half the yield',
+  'compression skin past buckling: only the effective width b_e = 1.9·t·√(E/σ) beside the spars carries the bending, at the caps\' stress (von Kármán; Bruhn ch. C7, from memory)',
 ];
 
 function lineStations(lengthIn: number, tension: number, shear: number): StationLoad[] {
@@ -127,6 +129,52 @@ const strip = (s: PitchScheduleResult): SkinLineSchedule => {
   return rest;
 };
 
+/**
+ * Buckling coefficient of the panel in spanwise compression: loaded on its rib edges (a = the bay), simply
+ * supported on the spars (b = the box width). k = (b/a + a/b)² for a < b (one half-wave), 4.0 for a ≥ b
+ * (the long plate's minimum: Timoshenko & Gere, Theory of Elastic Stability, ch. 9).
+ */
+export function compressionBucklingCoefficient(bayIn: number, boxWidthIn: number): number {
+  if (bayIn >= boxWidthIn) return 4;
+  const r = boxWidthIn / bayIn;
+  return (r + 1 / r) ** 2;
+}
+
+/** Effective width of a buckled plate supported on both unloaded edges, b_e = 1.9·t·√(E/σ) (von Kármán). */
+export function effectiveWidthIn(thicknessIn: number, elasticModulusPsi: number, edgeStressPsi: number): number {
+  return 1.9 * thicknessIn * Math.sqrt(elasticModulusPsi / edgeStressPsi);
+}
+
+const EFFECTIVE_WIDTH_ITERATIONS = 60;
+
+/**
+ * The compression skin under the largest bending moment that compresses it: unbuckled, the whole width
+ * between the spars works with the caps, σ = M/(h·(A_caps + w·t)); past its buckling stress only the
+ * effective width beside the spars does, at the stress of the caps, found by fixed-point iteration
+ * (σ grows as b_e shrinks; a bounded number of steps, each a contraction).
+ */
+function compressionSkin(spec: SkinPanelSpec, t: number, k: number, props: ReturnType<typeof sheetBucklingProperties>) {
+  const w = spec.boxWidthIn;
+  const grossPsi = spec.compressionMomentInLb / (spec.boxDepthIn * (spec.capAreaSqIn + w * t));
+  if (grossPsi <= 0) return { compressionPsi: 0, grossPsi: 0, effectiveWidthIn: w, buckling: null };
+  const buckling = panelBuckling({
+    loading: 'compression', edges: 'simply-supported', ...props, thicknessIn: t, widthIn: w, bucklingCoefficient: k, appliedStressPsi: Math.min(grossPsi, 200_000),
+  });
+  if (!buckling.buckles) return { compressionPsi: grossPsi, grossPsi, effectiveWidthIn: w, buckling };
+  let sigma = grossPsi;
+  let be = w;
+  for (let i = 0; i < EFFECTIVE_WIDTH_ITERATIONS; i++) {
+    be = Math.min(w, effectiveWidthIn(t, props.elasticModulusPsi, sigma));
+    const next = spec.compressionMomentInLb / (spec.boxDepthIn * (spec.capAreaSqIn + be * t));
+    if (Math.abs(next - sigma) <= 1e-9 * sigma) {
+      sigma = next;
+      break;
+    }
+    sigma = next;
+  }
+  return { compressionPsi: sigma, grossPsi, effectiveWidthIn: be, buckling };
+}
+
 export function skinPanelStudy(spec: SkinPanelSpec, settings: SkinSettings): SkinPanelResult {
   const widthIn = spec.outerStationIn - spec.innerStationIn;
   const props = sheetBucklingProperties(settings.material, settings.materialData);
@@ -134,10 +182,12 @@ export function skinPanelStudy(spec: SkinPanelSpec, settings: SkinSettings): Ski
   const qt = spec.torqueInLb / (2 * spec.cellAreaSqIn);
   const shortSide = Math.min(widthIn, spec.boxWidthIn);
   const candidates: SkinCandidate[] = [];
+  const compressionK = compressionBucklingCoefficient(widthIn, spec.boxWidthIn);
   for (const gaugeIn of settings.gaugeCandidates) {
-    const carrying = spec.capAreaSqIn + spec.boxWidthIn * gaugeIn;
-    const compressionPsi = spec.compressionMomentInLb / (spec.boxDepthIn * carrying);
-    const qb = (spec.shearLb * spec.boxWidthIn * gaugeIn) / (2 * spec.boxDepthIn * carrying);
+    const compressed = compressionSkin(spec, gaugeIn, compressionK, props);
+    const { compressionPsi, effectiveWidthIn } = compressed;
+    const carrying = spec.capAreaSqIn + effectiveWidthIn * gaugeIn;
+    const qb = (spec.shearLb * effectiveWidthIn * gaugeIn) / (2 * spec.boxDepthIn * carrying);
     for (const code of settings.rivetCandidates) {
       const rivet = findRivet(code, settings.rivetData);
       const layout = layoutRules(rivet);
@@ -190,13 +240,15 @@ export function skinPanelStudy(spec: SkinPanelSpec, settings: SkinSettings): Ski
       for (const l of lines) warnings.push(...l.warnings);
       const tau = sparShear / gaugeIn;
       const shear = panelBuckling({
-        loading: 'shear', edges: 'simply-supported', ...props, thicknessIn: gaugeIn, widthIn: Math.min(60, shortSide), appliedStressPsi: Math.min(tau, 200_000),
+        loading: 'shear', edges: 'simply-supported', ...props, thicknessIn: gaugeIn, widthIn: shortSide, appliedStressPsi: Math.min(tau, 200_000),
       });
-      const compression = panelBuckling({
-        loading: 'compression', edges: 'simply-supported', ...props, thicknessIn: gaugeIn, widthIn: Math.min(60, shortSide), appliedStressPsi: Math.min(compressionPsi, 200_000),
-      });
+      const compression = compressed.buckling;
       if (shear.diagonalTension.reliedOn) warnings.push(`panel ${spec.name}: ${shear.diagonalTension.note}`);
-      if (compression.buckles) warnings.push(`panel ${spec.name}: the skin buckles in compression at ${compression.criticalPsi.toFixed(0)} psi under ${compressionPsi.toFixed(0)} psi; stringers or a thicker skin would carry it unbuckled (post-buckled strength is not credited)`);
+      if (compression && compression.buckles) {
+        warnings.push(
+          `panel ${spec.name}: the skin buckles in compression at ${compression.criticalPsi.toFixed(0)} psi; past that only ${effectiveWidthIn.toFixed(2)} in of it beside the spars carries the bending (effective width), at ${compressionPsi.toFixed(0)} psi`,
+        );
+      }
       const rivetCount = lines.reduce((n, l) => n + l.holes.length, 0);
       const grip = 2 * gaugeIn;
       candidates.push({
@@ -210,7 +262,12 @@ export function skinPanelStudy(spec: SkinPanelSpec, settings: SkinSettings): Ski
         compressionPsi,
         interRivet: { endFixity: fix.c, source: fix.source, pitchLimitIn },
         shearBuckling: { criticalPsi: shear.criticalPsi, appliedPsi: tau, marginOfSafety: shear.marginOfSafety, diagonalTension: shear.diagonalTension.reliedOn },
-        compressionBuckling: { criticalPsi: compression.criticalPsi, appliedPsi: compressionPsi, marginOfSafety: compression.marginOfSafety },
+        compressionBuckling: {
+          criticalPsi: compression?.criticalPsi ?? 0,
+          appliedPsi: compressed.grossPsi,
+          marginOfSafety: compression?.marginOfSafety ?? null,
+          effectiveWidthIn,
+        },
         rivetCount,
         weightLb: widthIn * spec.boxWidthIn * gaugeIn * density + rivetCount * rivetWeightLb(rivet, grip),
         buildMinutes: rivetCount * (settings.minutesPerHole ?? MINUTES_PER_HOLE[rivet.kind]),

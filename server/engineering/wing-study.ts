@@ -505,7 +505,7 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
     conditions: roundStored(conditions),
     ribs: roundStored(ribs),
     // A panel keeps its recommended candidate whole; the others as their verdicts and figures.
-    skins: compactNumbers(skins.map((s) => ({ ...s, candidates: s.candidates.map((c) => (sameKey(c, s.recommended) ? withoutHoles(c) : { ...c, warnings: [], lines: [] })) })), 3),
+    skins: compactNumbers(skins.map((s) => ({ ...s, candidates: s.candidates.map((c) => (sameKey(c, s.recommended) ? withoutHoles(c) : { ...c, warnings: [], lines: [] })) }))),
     trade: roundStored(trade),
     work: { ...totalWork, ribs: ribs.length, skinPanels: skins.length, skinSchedules },
   };

@@ -35,7 +35,7 @@ const inputs: WingStudyInput = {
   airfoil: { kind: 'naca', designation: '2412' },
   ribs: [{ name: 'W-101', stationIn: 24 }, { name: 'W-102', stationIn: 62 }, { name: 'W-103', stationIn: 100 }, { name: 'W-104', stationIn: 138 }],
   rib: { lines: [{ name: 'Upper flange', surface: 'upper', startXc: 0.02, endXc: 0.85 }, { name: 'Lower flange', surface: 'lower', startXc: 0.02, endXc: 0.85 }] },
-  spars: { frontXc: 0.15, rearXc: 0.7, capAreaSqIn: 0.4 },
+  spars: { frontXc: 0.15, rearXc: 0.7, capAreaSqIn: 1 },
   skin: { gaugeCandidates: [0.016, 0.02, 0.025, 0.032], rivetCandidates: ['MS20426AD3', 'MS20426AD4'] },
   material: '6061-T6', gaugeCandidates: [0.025, 0.032, 0.04, 0.05], rivetCandidates: ['PULLED-4', 'MS20470AD4'],
   maxPitchDiameters: 8, pitchIncrementIn: 0.125, maxZones: 4,
