@@ -144,7 +144,7 @@ const MINUTES_PER_HOLE = { solid: 1.5, pulled: 1.0 };
 /** largest spacing of load stations along a line, in */
 const STATION_STEP_IN = 0.1;
 /** envelope points kept per line in the stored result */
-const ENVELOPE_POINTS = 24;
+const ENVELOPE_POINTS = 20;
 /** Cp samples kept per surface and condition in the stored result (for the pressure picture) */
 const CP_POINTS = 41;
 /** beyond this angle of attack the inviscid pressure peak is well past what real flow sustains */
@@ -517,7 +517,8 @@ export function studyRibAt(input: RibStudyInput, ctx: SectionContext, place: Rib
     airfoil: roundStored({ name: ctx.geometry.name, panels: input.panels ?? DEFAULT_PANELS, trailingEdgeGap: ctx.geometry.trailingEdgeGap }),
     outline: { chordIn: rib.chordIn, points: compactNumbers(outline) },
     lines: compactNumbers(lines.map((d) => d.summary)),
-    candidates: compactNumbers(keepHolesOf(candidates, trade.recommended), 3),
+    // To 0.0001: a 3D pitch of a 3/32 in rivet is 0.28125 in, and 0.281 would be under the layout minimum.
+    candidates: compactNumbers(keepHolesOf(candidates, trade.recommended)),
     trade: roundStored(trade.rows),
     recommended: trade.recommended,
     work: { stations: work.stations, conditions: work.conditions, candidates: work.candidates, pitchGrid: work.pitchGrid, gridCells: work.gridCells, stationChecks: work.stationChecks, holes: work.holes },
@@ -540,5 +541,5 @@ export function ribCandidate(input: RibStudyInput, pick: { gaugeIn: number; rive
   if (!input.rivetCandidates?.includes(pick.rivet)) throw new EngineeringInputError('rivet', `${pick.rivet} is not one of the study's rivets`);
   const { ctx } = prepareRib(input);
   const { lines } = ribLoads(input, ctx, place ?? lonePlace(input));
-  return compactNumbers(holesWithoutLine(candidate(input, lines, input.gaugeCandidates[gaugeIndex], findRivet(pick.rivet, input.rivetData)).candidate), 3);
+  return compactNumbers(holesWithoutLine(candidate(input, lines, input.gaugeCandidates[gaugeIndex], findRivet(pick.rivet, input.rivetData)).candidate));
 }

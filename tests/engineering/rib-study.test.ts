@@ -129,6 +129,13 @@ describe('a rib study', () => {
     expect(() => ribCandidate(input, { gaugeIn: 0.071, rivet: 'PULLED-4' })).toThrow(/gaugeIn: 0.071 in is not one of the study's gauges/);
   });
 
+  it('never stores a zone pitch under its rivet\'s 3D minimum (a 3/32 in rivet\'s 0.28125 in is not rounded to 0.281)', () => {
+    const small = ribStudy({ ...input, rib: { ...input.rib, spacingIn: 30 }, rivetCandidates: ['MS20470AD3'], gaugeCandidates: [0.016] });
+    const zones = small.candidates.flatMap((c) => c.lines.flatMap((l) => l.zones));
+    expect(zones.some((z) => Math.abs(z.pitchIn - 0.28125) < 1e-4)).toBe(true);
+    for (const c of small.candidates) for (const l of c.lines) for (const z of l.zones) expect(z.pitchIn).toBeGreaterThanOrEqual(3 * (3 / 32));
+  });
+
   it('keeps the stored result of the demo rib under 100 KB', () => {
     const coupons = DEMO_COUPONS.map(([gaugeIn, loadLb, outcome]) => ({ material: '6061-T6', gaugeIn, rivetSpec: 'PULLED-4', loadLb, outcome }));
     const demo = ribStudy({ ...DEMO_STUDY_INPUTS, coupons });
