@@ -26,6 +26,22 @@ export interface ScheduleSettings {
   maxZones: number;
 }
 
+/**
+ * What every study that schedules candidates takes beside its loads: the sheet, the gauge × rivet
+ * candidates, the layout, the build-time proxy, and the supplier's coupons and catalogue data.
+ */
+export interface CandidateSettings extends ScheduleSettings {
+  material: string;
+  gaugeCandidates: number[];
+  rivetCandidates: string[];
+  /** build-time proxy; 1.5 min per solid rivet and 1.0 per pulled rivet when absent */
+  minutesPerHole?: number;
+  coupons?: CouponTest[];
+  pullThroughFallbackFraction?: number;
+  materialData?: SheetMaterial[];
+  rivetData?: RivetSpec[];
+}
+
 export interface PitchScheduleInput extends ScheduleSettings {
   line: string;
   /** hole id prefix, "U" gives U-01, U-02…; from the line name when absent */

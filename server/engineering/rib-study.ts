@@ -1,13 +1,12 @@
 import { buildAirfoil, type AirfoilGeometry, type AirfoilInput } from './airfoil';
-import type { CouponTest } from './coupons';
 import { validateCoupons } from './coupons';
 import { cpFromTables, validateCpTables, type CpTableInput } from './cp-table';
 import { designConditions, type DesignCondition, type DesignConditionsResult, type KitInput } from './design-conditions';
 import { EngineeringInputError } from './errors';
 import { layoutRules, rivetWeightLb } from './layout';
-import { findMaterial, findRivet, type RivetSpec, type SheetMaterial } from './materials';
+import { findMaterial, findRivet, type RivetSpec } from './materials';
 import { alphaForLiftCoefficient, pressureDistribution, solvePanelMethod, type CpSample, type PanelSolution } from './panel-method';
-import { holePrefixFor, pitchSchedule, prepareStations, scheduleAllowables, requirePitchGrid, validateScheduleSettings, type PitchScheduleResult, type PreparedLine, type ScheduleHole, type StationLoad } from './pitch-schedule';
+import { holePrefixFor, pitchSchedule, prepareStations, scheduleAllowables, requirePitchGrid, validateScheduleSettings, type CandidateSettings, type PitchScheduleResult, type PreparedLine, type ScheduleHole, type StationLoad } from './pitch-schedule';
 import { compactNumbers, envelope, type EngineeringResult } from './result';
 import { lineStations, outlineAreaSqIn, ribOutline, validateLine, type FastenerLineInput } from './rib-geometry';
 import { loadEnvelope, shearFlowLbPerIn, ULTIMATE_FACTOR } from './rivet-loads';
@@ -39,35 +38,23 @@ export interface RibInput {
   skinGaugeIn?: number;
 }
 
-export interface RibStudyInput {
+export interface RibStudyInput extends CandidateSettings {
   kit: KitInput;
   airfoil: AirfoilInput;
   /** measured or computed pressure tables to use instead of the panel method */
   cpTables?: CpTableInput[];
   rib: RibInput;
   lines: FastenerLineInput[];
-  material: string;
-  gaugeCandidates: number[];
-  rivetCandidates: string[];
-  maxPitchDiameters: number;
-  pitchIncrementIn: number;
-  maxZones: number;
   /** panels of the pressure solution; 160 when absent */
   panels?: number;
-  coupons?: CouponTest[];
   /** limit torque on the wing cell at this rib, in·lb, with the cell's enclosed area, in² (Bredt–Batho) */
   wingTorqueInLb?: number;
   cellAreaSqIn?: number;
-  /** build-time proxy; 1.5 min per solid rivet and 1.0 per pulled rivet when absent */
-  minutesPerHole?: number;
   rankBy?: RankBy;
   /** flaps-extended conditions (14 CFR 23.345) are studied when given */
   flaps?: FlapInput;
   /** the correction of Cp to each condition's Mach number; Kármán–Tsien when absent */
   compressibility?: PressureRule;
-  pullThroughFallbackFraction?: number;
-  materialData?: SheetMaterial[];
-  rivetData?: RivetSpec[];
 }
 
 /** A compressibility rule, or 'none' for incompressible pressures (low-speed kits, or checks against them). */

@@ -1,9 +1,8 @@
 import type { Surface } from './airfoil';
-import type { CouponTest } from './coupons';
 import { endFixity, interRivetPitchLimitIn, INTER_RIVET_RULE, rivetHeadOf } from './inter-rivet-buckling';
 import { layoutRules, rivetWeightLb } from './layout';
-import { findMaterial, findRivet, type RivetSpec, type SheetMaterial } from './materials';
-import { pitchSchedule, prepareStations, type PitchScheduleResult, type StationLoad } from './pitch-schedule';
+import { findMaterial, findRivet } from './materials';
+import { pitchSchedule, prepareStations, type CandidateSettings, type PitchScheduleResult, type StationLoad } from './pitch-schedule';
 import { panelBuckling, sheetBucklingProperties } from './plate-buckling';
 
 /**
@@ -51,19 +50,8 @@ export interface SkinPanelSpec {
   ribLines: { inner: StationLoad[]; outer: StationLoad[] };
 }
 
-export interface SkinSettings {
-  material: string;
-  gaugeCandidates: number[];
-  rivetCandidates: string[];
-  maxPitchDiameters: number;
-  pitchIncrementIn: number;
-  maxZones: number;
-  minutesPerHole?: number;
-  coupons?: CouponTest[];
-  pullThroughFallbackFraction?: number;
-  materialData?: SheetMaterial[];
-  rivetData?: RivetSpec[];
-}
+/** A skin panel's candidates and layout: the wing's settings with the skin's own gauges and rivets. */
+export type SkinSettings = CandidateSettings;
 
 export type SkinLineSchedule = Omit<PitchScheduleResult, 'inputs' | 'rules' | 'caution' | 'warnings'>;
 

@@ -1,11 +1,10 @@
 import { surfacePoints, type AirfoilGeometry, type AirfoilInput, type Point } from './airfoil';
 import { requireCount, requireWingBound, STUDY_BUDGET } from './bounds';
-import type { CouponTest } from './coupons';
 import type { CpTableInput } from './cp-table';
 import type { DesignCondition, KitInput } from './design-conditions';
 import { EngineeringInputError } from './errors';
 import type { FlapInput } from './flap-conditions';
-import { findRivet, type RivetSpec, type SheetMaterial } from './materials';
+import { findRivet } from './materials';
 import { cpOnSurface, pressureDistribution, alphaForLiftCoefficient } from './panel-method';
 import { compactNumbers, envelope, type EngineeringResult } from './result';
 import { lineStations, validateLine, type FastenerLineInput } from './rib-geometry';
@@ -24,6 +23,7 @@ import {
 import { loadEnvelope } from './rivet-loads';
 import { roundStored } from './rounding';
 import { chordAt, planformGeometry, SCHRENK_ASSUMPTIONS, SCHRENK_RULE, type Planform, type PlanformInput } from './schrenk';
+import type { CandidateSettings } from './pitch-schedule';
 import { skinPanelStudy, SKIN_RULES, type SkinPanelResult, type SkinPanelSpec } from './skin-panel';
 import { estimateStudyWork, requireStudyBudget, type StudyWork } from './study-work';
 import type { RankBy } from './trade-study';
@@ -61,7 +61,7 @@ export interface TailInput {
   balancingLoadLb?: number;
 }
 
-export interface WingStudyInput {
+export interface WingStudyInput extends CandidateSettings {
   kit: KitInput;
   flaps?: FlapInput;
   compressibility?: PressureRule;
@@ -78,18 +78,7 @@ export interface WingStudyInput {
   spars: { frontXc: number; rearXc: number; capAreaSqIn?: number };
   /** skin panels between every two neighbouring ribs, on both surfaces, between the spars */
   skin: { gaugeCandidates: number[]; rivetCandidates: string[] };
-  material: string;
-  gaugeCandidates: number[];
-  rivetCandidates: string[];
-  maxPitchDiameters: number;
-  pitchIncrementIn: number;
-  maxZones: number;
-  minutesPerHole?: number;
   rankBy?: RankBy;
-  coupons?: CouponTest[];
-  pullThroughFallbackFraction?: number;
-  materialData?: SheetMaterial[];
-  rivetData?: RivetSpec[];
 }
 
 export interface WingCondition extends DesignCondition {
