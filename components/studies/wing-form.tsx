@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
-import { Controller, useFieldArray, useForm, useFormState, useWatch, type Control, type FieldPath, type UseFormSetValue } from 'react-hook-form';
+import { useFieldArray, useForm, useFormState, useWatch, type Control, type FieldPath, type UseFormSetValue } from 'react-hook-form';
 import { View } from 'react-native';
 import type { z } from 'zod';
 import { wingStudyBody, type KitModel } from '@/db/contracts';
@@ -8,18 +8,19 @@ import { parseNumber } from '@/constants/units';
 import { colors, hairline, space } from '@/constants/theme';
 import { FormChoiceField, FormNumberField, FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
-import { applyServerErrors, errorAt } from '@/components/forms/server-errors';
+import { errorAt } from '@/components/forms/server-errors';
 import { Button } from '@/components/ui/button';
-import { Choice, MultiChoice } from '@/components/ui/choice';
+import { Choice } from '@/components/ui/choice';
 import { Field, TextBox } from '@/components/ui/field';
 import { Section } from '@/components/ui/sheet';
 import { Notice } from '@/components/ui/states';
-import { Label, Mono, Txt } from '@/components/ui/text';
-import { ApiError } from '@/hooks/api-client';
+import { Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
 import { AirfoilFields } from './airfoil-fields';
 import { Cell, KitFields, Row } from './kit-fields';
-import { gaugeKey, gaugeLabel, RIVET_FAMILIES, STOCK_GAUGES_IN, STUDY_MATERIALS, toggleGauge, toggleRivet, type StudyFormValues } from './study-form-values';
+import { FastenerLinesSection, GaugeChips, KitModelField, MaterialField, RivetChips, ScheduleFields } from './study-form-parts';
+import type { StudyFormValues } from './study-form-values';
+import { useStudySubmit } from './use-study-submit';
 import {
   evenlySpacedRibs, kitIntoWing, PRESSURE_RULE_OPTIONS, SKIN_GAUGES_MAX, SKIN_RIVETS_MAX, WING_RIBS, wingFieldFor, type WingFormValues,
 } from './wing-form-values';
@@ -44,64 +45,25 @@ type Props = {
  */
 export function WingForm({ kits, defaultValues, isNew, submitLabel, onSubmit, note }: Props) {
   const units = useUnits();
-  const [formError, setFormError] = useState<string | null>(null);
   const { control, handleSubmit, setError, setValue, getValues, reset, formState } = useForm<WingFormValues, unknown, WingOutput>({
     resolver,
     mode: 'onChange',
     defaultValues,
   });
-  const lines = useFieldArray({ control, name: 'inputs.rib.lines' });
-  const kitModelId = useWatch({ control, name: 'kitModelId' });
-  const kit = kits.find((k) => k.id === kitModelId);
   const errors = formState.errors;
-  // The kit and airfoil blocks are the rib form's own (same paths, same shapes): they take this form's control.
+  // The blocks at the same paths as the rib form's (kit, airfoil, material, settings) take this form's control.
   const shared = control as unknown as Control<StudyFormValues>;
+  const { submit, formError } = useStudySubmit({ handleSubmit, setError, onSubmit, fieldFor: wingFieldFor });
 
-  const takeKit = (k: KitModel, planform = true) =>
-    reset(kitIntoWing(getValues(), k, { planform }), { keepDefaultValues: true, keepDirty: false, keepErrors: false });
-
-  const submit = handleSubmit(async (values) => {
-    setFormError(null);
-    try {
-      await onSubmit(values);
-    } catch (e) {
-      const said = applyServerErrors(setError, e, wingFieldFor);
-      if (e instanceof ApiError && e.fields && Object.keys(e.fields).length) {
-        const unplaced = Object.entries(e.fields).filter(([p]) => !wingFieldFor(p)).map(([, m]) => m.trim().replace(/[.]$/, ''));
-        setFormError(unplaced.length ? `Not computed: ${unplaced.join('; ')}.` : 'Not computed: some inputs were refused. See the marked fields.');
-      } else {
-        setFormError(said);
-      }
-    }
-  }, () => setFormError('Some inputs need a look: see the messages in red.'));
+  // Taken again, the kit keeps the planform: the person may have drawn their own.
+  const takeKit = (k: KitModel, when: 'chosen' | 'again') =>
+    reset(kitIntoWing(getValues(), k, { planform: when === 'chosen' }), { keepDefaultValues: true, keepDirty: false, keepErrors: false });
 
   return (
     <View style={{ gap: space.xl }} testID="wing-form">
       <Section title="Study">
         <FormTextField control={control} name="name" label="Name of the study" hint="e.g. Left wing, flight envelope" testID="wing-name" />
-        <Controller
-          control={control}
-          name="kitModelId"
-          render={({ field, fieldState }) => (
-            <Field label="Kit model" error={fieldState.error?.message} testID="wing-kit-field">
-              <Choice
-                testIDPrefix="wing-kit"
-                value={field.value}
-                invalid={!!fieldState.error}
-                options={kits.map((k) => ({ value: k.id, key: k.code, label: `${k.code} · ${k.name}` }))}
-                onChange={(id) => {
-                  const k = kits.find((x) => x.id === id);
-                  // A new study starts from the kit model's design data; an existing one keeps its own.
-                  if (isNew && k) takeKit(k);
-                  else field.onChange(id);
-                }}
-              />
-            </Field>
-          )}
-        />
-        {kit && !isNew ? (
-          <Button label={`Take ${kit.code}'s weight, wing, speeds and airfoil`} variant="quiet" compact onPress={() => takeKit(kit, false)} testID="wing-take-kit" style={{ alignSelf: 'flex-start', marginLeft: -space.md }} />
-        ) : null}
+        <KitModelField control={shared} kits={kits} isNew={isNew} prefix="wing" onTake={takeKit} />
       </Section>
 
       <Section title="Aircraft">
@@ -135,49 +97,19 @@ export function WingForm({ kits, defaultValues, isNew, submitLabel, onSubmit, no
 
       <RibsFields control={control} setValue={setValue} />
 
-      <Section
+      <FastenerLinesSection
+        control={control}
+        name="inputs.rib.lines"
+        prefix="wing"
         title="On every rib: fastener lines"
-        aside={lines.fields.length < 6 ? (
-          <Button
-            label="Add a line"
-            variant="quiet"
-            compact
-            testID="wing-line-add"
-            onPress={() => lines.append({ name: `Line ${lines.fields.length + 1}`, surface: 'upper', startXc: 0.1, endXc: 0.8 })}
-          />
-        ) : undefined}
+        intro="Where each row of rivets runs on a rib, as fractions of its chord (x/c) from the leading edge."
       >
-        <Txt variant="small" tone="soft">Where each row of rivets runs on a rib, as fractions of its chord (x/c) from the leading edge.</Txt>
-        {errorAt(errors, 'inputs.rib.lines') ? <Notice tone="error">{errorAt(errors, 'inputs.rib.lines')!}</Notice> : null}
-        {lines.fields.map((f, i) => (
-          <View key={f.id} style={{ gap: space.sm, paddingBottom: space.md, borderBottomWidth: hairline, borderColor: colors.rule }} testID={`wing-line-${i}`}>
-            <Row>
-              <Cell><FormTextField control={control} name={`inputs.rib.lines.${i}.name`} label={`Line ${i + 1} name`} testID={`wing-line-${i}-name`} /></Cell>
-              <Cell>
-                <FormChoiceField
-                  control={control}
-                  name={`inputs.rib.lines.${i}.surface`}
-                  label="Surface"
-                  testID={`wing-line-${i}-surface`}
-                  options={[{ value: 'upper', label: 'Upper' }, { value: 'lower', label: 'Lower' }]}
-                />
-              </Cell>
-            </Row>
-            <Row>
-              <Cell><FormNumberField control={control} name={`inputs.rib.lines.${i}.startXc`} label="Starts at" unit="x/c" testID={`wing-line-${i}-start`} /></Cell>
-              <Cell><FormNumberField control={control} name={`inputs.rib.lines.${i}.endXc`} label="Ends at" unit="x/c" testID={`wing-line-${i}-end`} /></Cell>
-            </Row>
-            {lines.fields.length > 1 ? (
-              <Button label={`Remove line ${i + 1}`} variant="quiet" compact onPress={() => lines.remove(i)} testID={`wing-line-${i}-remove`} style={{ alignSelf: 'flex-start' }} />
-            ) : null}
-          </View>
-        ))}
         <Row>
           <Cell><FormNumberField control={control} name="inputs.rib.internalCp" label="Pressure inside the wing" unit="Cp" hint="Blank: 0 (no vents or leaks)" testID="wing-internal-cp" /></Cell>
           <Cell><FormNumberField control={control} name="inputs.rib.flangeWidthIn" label="Flange width" quantity="length" hint="Blank: 4 rivet diameters" testID="wing-flange-width" /></Cell>
           <Cell><FormNumberField control={control} name="inputs.rib.skinGaugeIn" label="Skin gauge for the grip" quantity="length" hint="Blank: twice the flange gauge" testID="wing-rib-skin-gauge" /></Cell>
         </Row>
-      </Section>
+      </FastenerLinesSection>
 
       <Section title="Spars and skin">
         <Row>
@@ -199,21 +131,7 @@ export function WingForm({ kits, defaultValues, isNew, submitLabel, onSubmit, no
       </Section>
 
       <Section title="Rib material and candidates">
-        <Controller
-          control={control}
-          name="inputs.material"
-          render={({ field, fieldState }) => (
-            <Field label="Sheet material (ribs and skin)" error={fieldState.error?.message}>
-              <Choice
-                testIDPrefix="wing-material"
-                value={field.value}
-                onChange={field.onChange}
-                invalid={!!fieldState.error}
-                options={[...new Set([...STUDY_MATERIALS, ...(field.value ? [field.value] : [])])].map((m) => ({ value: m, label: m }))}
-              />
-            </Field>
-          )}
-        />
+        <MaterialField control={shared} label="Sheet material (ribs and skin)" prefix="wing" />
         <GaugeChips control={control} name="inputs.gaugeCandidates" label="Rib gauges to try" hint="Stock sheet; each gauge is tried with each rivet on every rib." testIDPrefix="wing-gauge" max={10} />
         <RivetChips control={control} name="inputs.rivetCandidates" label="Rib rivets to try" testIDPrefix="wing-rivet" max={8} />
       </Section>
@@ -229,24 +147,7 @@ export function WingForm({ kits, defaultValues, isNew, submitLabel, onSubmit, no
         />
       </Section>
 
-      <Section title="Schedule settings">
-        <Row>
-          <Cell><FormNumberField control={control} name="inputs.maxPitchDiameters" label="Largest pitch" unit="D" hint="In rivet diameters, 4 to 16" testID="wing-max-pitch" /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.pitchIncrementIn" label="Pitch rounded to" quantity="length" hint="The pitch steps down in these" testID="wing-pitch-increment" /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.maxZones" label="Zones per line, at most" unit="zones" testID="wing-max-zones" /></Cell>
-        </Row>
-        <Row>
-          <Cell><FormNumberField control={control} name="inputs.minutesPerHole" label="Minutes per hole" unit="min" hint="Blank: 1.5 solid, 1.0 pulled" testID="wing-minutes-per-hole" /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.panels" label="Panels on the airfoil" unit="panels" hint="Even, 40 to 400; blank: 160" testID="wing-panels" /></Cell>
-        </Row>
-        <FormChoiceField
-          control={control}
-          name="inputs.rankBy"
-          label="Rank each rib's feasible candidates by"
-          testID="wing-rank-by"
-          options={[{ value: 'weight', label: 'Lightest first' }, { value: 'buildTime', label: 'Quickest to build first' }]}
-        />
-      </Section>
+      <ScheduleFields control={shared} prefix="wing" minutesHint="Blank: 1.5 solid, 1.0 pulled" rankLabel="Rank each rib's feasible candidates by" />
 
       {note}
       {formError ? <Notice tone="error" testID="wing-form-error">{formError}</Notice> : null}
@@ -412,70 +313,5 @@ function FlapsFields({ control, setValue }: { control: Ctl; setValue: UseFormSet
         </Row>
       ) : null}
     </View>
-  );
-}
-
-type ListName = 'inputs.gaugeCandidates' | 'inputs.skin.gaugeCandidates';
-type RivetListName = 'inputs.rivetCandidates' | 'inputs.skin.rivetCandidates';
-
-function GaugeChips({ control, name, label, hint, testIDPrefix, max }: { control: Ctl; name: ListName; label: string; hint: string; testIDPrefix: string; max: number }) {
-  const units = useUnits();
-  // A list's own error ("choose at least one") sits on the list or under its root: errorAt reads both.
-  const { errors } = useFormState({ control, name });
-  return (
-    <Controller
-      control={control}
-      name={name}
-      render={({ field }) => {
-        const values = (field.value ?? []) as number[];
-        const all = [...new Set([...STOCK_GAUGES_IN, ...values])].sort((a, b) => a - b);
-        return (
-          <Field label={label} hint={hint} error={errorAt(errors, name)} testID={`${testIDPrefix}s-field`}>
-            <MultiChoice
-              testIDPrefix={testIDPrefix}
-              label={label}
-              values={values.map(gaugeKey)}
-              onToggle={(k) => field.onChange(toggleGauge(values, k))}
-              options={all.map((g) => ({ value: gaugeKey(g), label: gaugeLabel(g, units.system) }))}
-            />
-            <Txt variant="small" tone={values.length > max ? 'error' : 'soft'}><Mono variant="small" bold>{values.length}</Mono> of at most {max} chosen</Txt>
-          </Field>
-        );
-      }}
-    />
-  );
-}
-
-function RivetChips({ control, name, label, testIDPrefix, max }: { control: Ctl; name: RivetListName; label: string; testIDPrefix: string; max: number }) {
-  const { errors } = useFormState({ control, name });
-  return (
-    <Controller
-      control={control}
-      name={name}
-      render={({ field }) => {
-        const values = (field.value ?? []) as string[];
-        const known = new Set(RIVET_FAMILIES.flatMap((f) => f.codes));
-        const others = values.filter((v) => !known.has(v));
-        return (
-          <Field label={label} error={errorAt(errors, name)} testID={`${testIDPrefix}s-field`}>
-            <View style={{ gap: space.sm }}>
-              {RIVET_FAMILIES.map((fam) => (
-                <View key={fam.family} style={{ gap: space.xs }}>
-                  <Label>{fam.label}</Label>
-                  <MultiChoice testIDPrefix={testIDPrefix} values={values} onToggle={(c) => field.onChange(toggleRivet(values, c))} options={fam.codes.map((c) => ({ value: c, label: c }))} />
-                </View>
-              ))}
-              {others.length ? (
-                <View style={{ gap: space.xs }}>
-                  <Label>Others in this study</Label>
-                  <MultiChoice testIDPrefix={testIDPrefix} values={values} onToggle={(c) => field.onChange(toggleRivet(values, c))} options={others.map((c) => ({ value: c, label: c }))} />
-                </View>
-              ) : null}
-              <Txt variant="small" tone={values.length > max ? 'error' : 'soft'}><Mono variant="small" bold>{values.length}</Mono> of at most {max} chosen</Txt>
-            </View>
-          </Field>
-        );
-      }}
-    />
   );
 }
