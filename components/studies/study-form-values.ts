@@ -54,6 +54,27 @@ export function nacaDigits(airfoil: string | undefined | null): string {
   return m ? m[1] : '';
 }
 
+type KitAndAirfoil = Pick<StudyFormValues['inputs'], 'kit' | 'airfoil'>;
+
+/**
+ * What a kit model says of a study's aircraft, rib or wing alike: the kit block (over what the study
+ * had) and the airfoil, when the kit's is a NACA section.
+ */
+export function kitDesignData(inputs: KitAndAirfoil, kit: KitModel): KitAndAirfoil {
+  return {
+    kit: {
+      ...inputs.kit,
+      weightLb: kit.weightLb,
+      wingAreaSqFt: kit.wingAreaSqFt,
+      meanChordIn: kit.meanChordIn,
+      stallSpeedKeas: kit.stallSpeedKeas,
+      cruiseSpeedKeas: kit.cruiseSpeedKeas ?? undefined,
+      category: kit.category,
+    },
+    airfoil: nacaDigits(kit.airfoil) ? { kind: 'naca', designation: nacaDigits(kit.airfoil) } : inputs.airfoil,
+  };
+}
+
 /** The kit model's design data into the study's kit block (and the rib chord, when not set yet). */
 export function kitIntoStudy(values: StudyFormValues, kit: KitModel): StudyFormValues {
   return {
@@ -61,16 +82,7 @@ export function kitIntoStudy(values: StudyFormValues, kit: KitModel): StudyFormV
     kitModelId: kit.id,
     inputs: {
       ...values.inputs,
-      kit: {
-        ...values.inputs.kit,
-        weightLb: kit.weightLb,
-        wingAreaSqFt: kit.wingAreaSqFt,
-        meanChordIn: kit.meanChordIn,
-        stallSpeedKeas: kit.stallSpeedKeas,
-        cruiseSpeedKeas: kit.cruiseSpeedKeas ?? undefined,
-        category: kit.category,
-      },
-      airfoil: nacaDigits(kit.airfoil) ? { kind: 'naca', designation: nacaDigits(kit.airfoil) } : values.inputs.airfoil,
+      ...kitDesignData(values.inputs, kit),
       rib: { ...values.inputs.rib, chordIn: values.inputs.rib.chordIn ?? kit.meanChordIn },
     },
   };
@@ -105,24 +117,41 @@ export function newStudyValues(kit?: KitModel): StudyFormValues {
 
 /** A stored revision back into the form, to look at or to compute again as the next revision. */
 export function studyValues(d: Pick<StudyDetail, 'kitModelId' | 'name' | 'inputs'>): StudyFormValues {
-  return { kitModelId: d.kitModelId, name: d.name, inputs: structuredCloneSafe(d.inputs as StudyFormValues['inputs']) };
+  return { kitModelId: d.kitModelId, name: d.name, inputs: copyInputs(d.inputs as StudyFormValues['inputs']) };
 }
 
-function structuredCloneSafe<T>(v: T): T {
+/** A deep copy of stored inputs (plain JSON), so that editing the form never touches the cached revision. */
+export function copyInputs<T>(v: T): T {
   return JSON.parse(JSON.stringify(v)) as T;
 }
 
-/** Form fields that can carry a message of their own; anything else is said at the top of the form. */
-const PLACED = new Set([
+/** Fields both study forms have at the same paths; each form's own are added to these. */
+export const COMMON_PLACED = [
   'kitModelId', 'name',
   'inputs.kit.weightLb', 'inputs.kit.wingAreaSqFt', 'inputs.kit.meanChordIn', 'inputs.kit.stallSpeedKeas', 'inputs.kit.cruiseSpeedKeas',
   'inputs.kit.diveSpeedKeas', 'inputs.kit.category', 'inputs.kit.altitudeFt', 'inputs.kit.liftSlopePerRad',
   'inputs.airfoil', 'inputs.airfoil.designation', 'inputs.airfoil.points', 'inputs.airfoil.name',
-  'inputs.rib.chordIn', 'inputs.rib.spacingIn', 'inputs.rib.internalCp', 'inputs.rib.flangeWidthIn',
-  'inputs.lines', 'inputs.material', 'inputs.gaugeCandidates', 'inputs.rivetCandidates',
+  'inputs.material', 'inputs.gaugeCandidates', 'inputs.rivetCandidates',
   'inputs.maxPitchDiameters', 'inputs.pitchIncrementIn', 'inputs.maxZones', 'inputs.rankBy', 'inputs.minutesPerHole', 'inputs.panels',
+] as const;
+
+/** Form fields that can carry a message of their own; anything else is said at the top of the form. */
+const PLACED = new Set<string>([
+  ...COMMON_PLACED,
+  'inputs.rib.chordIn', 'inputs.rib.spacingIn', 'inputs.rib.internalCp', 'inputs.rib.flangeWidthIn', 'inputs.lines',
 ]);
-const LINE_FIELDS = new Set(['name', 'surface', 'startXc', 'endXc']);
+export const LINE_FIELDS = new Set(['name', 'surface', 'startXc', 'endXc']);
+
+/**
+ * A path into a list of rows (`${list}.3.endXc`): the row's own field when the form has one by that
+ * name, else the row's `fallback` field (a message about the whole row); null when not in that list.
+ */
+export function rowFieldFor(path: string, list: string, fields: ReadonlySet<string>, fallback: string): string | null {
+  if (!path.startsWith(`${list}.`)) return null;
+  const m = /^(\d+)(?:\.(\w+))?$/.exec(path.slice(list.length + 1));
+  if (!m) return null;
+  return m[2] && fields.has(m[2]) ? `${list}.${m[1]}.${m[2]}` : `${list}.${m[1]}.${fallback}`;
+}
 
 /**
  * One spelling for a field, whoever named it: zod says "inputs.lines.0.endXc", the engine says
@@ -144,7 +173,5 @@ export function studyFieldFor(path: string): string | null {
   const list = /^inputs\.(gaugeCandidates|rivetCandidates)\.\d+$/.exec(p);
   if (list) return `inputs.${list[1]}`;
   if (/^inputs\.airfoil\.points\.\d+(\.\d+)?$/.test(p)) return 'inputs.airfoil.points';
-  const line = /^inputs\.lines\.(\d+)(?:\.(\w+))?$/.exec(p);
-  if (line) return line[2] && LINE_FIELDS.has(line[2]) ? `inputs.lines.${line[1]}.${line[2]}` : `inputs.lines.${line[1]}.name`;
-  return PLACED.has(p) ? p : null;
+  return rowFieldFor(p, 'inputs.lines', LINE_FIELDS, 'name') ?? (PLACED.has(p) ? p : null);
 }

@@ -1,5 +1,5 @@
 import type { KitModel, StudyDetail, WingStudyInput } from '@/db/contracts';
-import { nacaDigits, normaliseFieldPath } from './study-form-values';
+import { COMMON_PLACED, copyInputs, kitDesignData, LINE_FIELDS, normaliseFieldPath, rowFieldFor } from './study-form-values';
 
 /**
  * The wing study form holds the POST body itself (kind 'wing') in the engine's units (in, lb, sq ft,
@@ -58,16 +58,7 @@ export function kitIntoWing(values: WingFormValues, kit: KitModel, opts: { planf
     kitModelId: kit.id,
     inputs: {
       ...values.inputs,
-      kit: {
-        ...values.inputs.kit,
-        weightLb: kit.weightLb,
-        wingAreaSqFt: kit.wingAreaSqFt,
-        meanChordIn: kit.meanChordIn,
-        stallSpeedKeas: kit.stallSpeedKeas,
-        cruiseSpeedKeas: kit.cruiseSpeedKeas ?? undefined,
-        category: kit.category,
-      },
-      airfoil: nacaDigits(kit.airfoil) ? { kind: 'naca', designation: nacaDigits(kit.airfoil) } : values.inputs.airfoil,
+      ...kitDesignData(values.inputs, kit),
       planform: opts.planform === false ? values.inputs.planform : kitPlanform(kit),
     },
   };
@@ -111,25 +102,19 @@ export function newWingValues(kit?: KitModel): WingFormValues {
 
 /** A stored wing revision back into the form (a copy: editing never touches the cached revision). */
 export function wingValues(d: Pick<StudyDetail, 'kitModelId' | 'name' | 'inputs'>): WingFormValues {
-  return { kind: 'wing', kitModelId: d.kitModelId, name: d.name, inputs: JSON.parse(JSON.stringify(d.inputs)) as WingFormValues['inputs'] };
+  return { kind: 'wing', kitModelId: d.kitModelId, name: d.name, inputs: copyInputs(d.inputs as WingFormValues['inputs']) };
 }
 
 /** Form fields that carry a message of their own; anything else is said at the top of the form. */
-const PLACED = new Set([
-  'kitModelId', 'name',
-  'inputs.kit.weightLb', 'inputs.kit.wingAreaSqFt', 'inputs.kit.meanChordIn', 'inputs.kit.stallSpeedKeas', 'inputs.kit.cruiseSpeedKeas',
-  'inputs.kit.diveSpeedKeas', 'inputs.kit.category', 'inputs.kit.altitudeFt', 'inputs.kit.liftSlopePerRad',
-  'inputs.airfoil', 'inputs.airfoil.designation', 'inputs.airfoil.points', 'inputs.airfoil.name',
+const PLACED = new Set<string>([
+  ...COMMON_PLACED,
   'inputs.planform', 'inputs.planform.kind', 'inputs.planform.spanIn', 'inputs.planform.chordIn', 'inputs.planform.rootChordIn', 'inputs.planform.tipChordIn',
   'inputs.tail.armIn', 'inputs.tail.balancingLoadLb',
   'inputs.ribs', 'inputs.rib.lines', 'inputs.rib.internalCp', 'inputs.rib.flangeWidthIn', 'inputs.rib.skinGaugeIn',
   'inputs.spars.frontXc', 'inputs.spars.rearXc', 'inputs.spars.capAreaSqIn',
   'inputs.skin.gaugeCandidates', 'inputs.skin.rivetCandidates',
   'inputs.flaps.stallSpeedKeas', 'inputs.flaps.designSpeedKeas', 'inputs.compressibility',
-  'inputs.material', 'inputs.gaugeCandidates', 'inputs.rivetCandidates',
-  'inputs.maxPitchDiameters', 'inputs.pitchIncrementIn', 'inputs.maxZones', 'inputs.rankBy', 'inputs.minutesPerHole', 'inputs.panels',
 ]);
-const LINE_FIELDS = new Set(['name', 'surface', 'startXc', 'endXc']);
 const RIB_FIELDS = new Set(['name', 'stationIn']);
 
 /**
@@ -142,9 +127,7 @@ export function wingFieldFor(path: string): string | null {
   const list = /^inputs\.((?:skin\.)?(?:gaugeCandidates|rivetCandidates))\.\d+$/.exec(p);
   if (list) return `inputs.${list[1]}`;
   if (/^inputs\.airfoil\.points\.\d+(\.\d+)?$/.test(p)) return 'inputs.airfoil.points';
-  const rib = /^inputs\.ribs\.(\d+)(?:\.(\w+))?$/.exec(p);
-  if (rib) return rib[2] && RIB_FIELDS.has(rib[2]) ? `inputs.ribs.${rib[1]}.${rib[2]}` : `inputs.ribs.${rib[1]}.stationIn`;
-  const line = /^inputs\.rib\.lines\.(\d+)(?:\.(\w+))?$/.exec(p);
-  if (line) return line[2] && LINE_FIELDS.has(line[2]) ? `inputs.rib.lines.${line[1]}.${line[2]}` : `inputs.rib.lines.${line[1]}.name`;
-  return PLACED.has(p) ? p : null;
+  return rowFieldFor(p, 'inputs.ribs', RIB_FIELDS, 'stationIn')
+    ?? rowFieldFor(p, 'inputs.rib.lines', LINE_FIELDS, 'name')
+    ?? (PLACED.has(p) ? p : null);
 }
