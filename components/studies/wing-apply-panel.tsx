@@ -1,17 +1,14 @@
-import { useRouter } from 'expo-router';
 import { useState } from 'react';
 import { View } from 'react-native';
-import { partKindLabels, type PartKind, type Revision } from '@/db/contracts';
+import { partKindLabels, type PartKind } from '@/db/contracts';
 import { space } from '@/constants/theme';
-import { Button } from '@/components/ui/button';
 import { Choice } from '@/components/ui/choice';
 import { Field } from '@/components/ui/field';
-import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
+import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
 import { useDesignsQuery } from '@/hooks/queries/designs';
-import { useStudyApplyMutation } from '@/hooks/queries/studies';
 import { useUnits } from '@/hooks/use-units';
-import { AppliedRevision, applyErrorText } from './apply-panel';
+import { ApplyFooter, DesignChoice, LatestOnlyNotice, NoDesigns, useApplyToDesign, WritesInto } from './apply-panel';
 import { sameCandidate, type CandidateKey } from './study-result';
 import { idPart, ribCandidate, ribChoices, skinCandidate, skinChoices, type WingResult } from './wing-result';
 
@@ -32,25 +29,17 @@ export function WingApplyPanel({ studyId, kitModelId, kitName, result, viewingRe
   /** What the tables above show: the panel opens on it. */
   initial: { kind: TargetKind; name: string } | null;
 }) {
-  const router = useRouter();
   const u = useUnits();
   const designs = useDesignsQuery(kitModelId);
-  const apply = useStudyApplyMutation(studyId);
+  const state = useApplyToDesign(studyId);
   const [kind, setKind] = useState<TargetKind>(initial?.kind ?? 'skin');
   const [name, setName] = useState<string | null>(initial?.name ?? null);
   const [pick, setPick] = useState<string | null>(null);
   const [designId, setDesignId] = useState<string | null>(null);
-  const [done, setDone] = useState<{ rev: Revision; partNumber: string } | null>(null);
 
-  if (viewingRevision !== latestRevision) {
-    return (
-      <Notice tone="caution" testID="apply-latest-only">
-        {`Applying uses the latest revision (${latestRevision}) of the study. Open it, or compute these inputs again as a new revision, to apply them.`}
-      </Notice>
-    );
-  }
+  if (viewingRevision !== latestRevision) return <LatestOnlyNotice latestRevision={latestRevision} />;
 
-  const fresh = () => { setDone(null); apply.reset(); };
+  const { fresh } = state;
   const uniform = result.trade.recommendedUniform;
   const rib = kind === 'rib' ? result.ribs.find((r) => r.name === name) ?? null : null;
   const panel = kind === 'skin' ? result.skins.find((p) => p.name === name) ?? null : null;
@@ -67,15 +56,6 @@ export function WingApplyPanel({ studyId, kitModelId, kitName, result, viewingRe
   const fitting = (designs.data ?? []).filter((d) => TARGET_PART_KINDS[kind].includes(d.kind));
   const target = fitting.find((d) => d.id === designId) ?? null;
   const what = kind === 'rib' ? 'rib' : 'skin panel';
-
-  const onApply = () => {
-    if (!candidate || !target || !name) return;
-    setDone(null);
-    apply.mutate(
-      { partDesignId: target.id, gaugeIn: candidate.gaugeIn, rivet: candidate.rivet, target: { kind, name } },
-      { onSuccess: (rev) => setDone({ rev, partNumber: target.partNumber }) },
-    );
-  };
 
   return (
     <View style={{ gap: space.md }} testID="wing-apply-panel">
@@ -116,49 +96,36 @@ export function WingApplyPanel({ studyId, kitModelId, kitName, result, viewingRe
       {designs.isPending ? <LoadingState what="Loading the kit's part designs" />
         : designs.isError ? <ErrorState error={designs.error} onRetry={() => void designs.refetch()} />
           : !fitting.length ? (
-            <EmptyState
+            <NoDesigns
+              kitModelId={kitModelId}
               title={`No ${TARGET_PART_KINDS[kind].map((k) => partKindLabels[k].toLowerCase()).join(' or ')} part designs in ${kitName} yet.`}
               body={`Make the ${what}'s part design in the catalogue first; then apply the study to it.`}
-              action={<Button label="New part design" variant="secondary" onPress={() => router.push(`/catalogue/designs/new?kitModelId=${kitModelId}`)} testID="apply-new-design" />}
             />
           ) : (
-            <Field label="Part design to receive it" hint={`${TARGET_PART_KINDS[kind].map((k) => partKindLabels[k]).join(' and ')} part designs of ${kitName}`}>
-              <Choice
-                testIDPrefix="apply-design"
-                label="Part design to receive it"
-                value={designId}
-                onChange={(id) => { setDesignId(id); fresh(); }}
-                options={fitting.map((d) => ({
-                  value: d.id,
-                  key: d.partNumber,
-                  label: `${d.partNumber} · ${d.name}`,
-                  hint: `${partKindLabels[d.kind]}${d.latest ? ` · latest ${d.latest.letter} ${d.latest.status}` : ''}`,
-                }))}
-              />
-            </Field>
+            <DesignChoice
+              designs={fitting}
+              value={designId}
+              onChange={(id) => { setDesignId(id); fresh(); }}
+              hint={`${TARGET_PART_KINDS[kind].map((k) => partKindLabels[k]).join(' and ')} part designs of ${kitName}`}
+            />
           )}
 
       {candidate && name ? (
         <Txt testID="apply-what">
-          Writes {what} <Mono bold>{name}</Mono>’s <Mono bold>{u.length(candidate.gaugeIn)}</Mono> with <Mono bold>{candidate.rivet}</Mono>, its drill, edge distance
-          and the zones of {candidate.lines.length} line{candidate.lines.length === 1 ? '' : 's'} into {target ? <Mono bold>{target.partNumber}</Mono> : 'the chosen part'}’s
-          draft revision (a new draft when it has none). Published revisions stay as they are.
+          Writes {what} <Mono bold>{name}</Mono>’s <Mono bold>{u.length(candidate.gaugeIn)}</Mono> with <Mono bold>{candidate.rivet}</Mono>
+          <WritesInto lines={candidate.lines.length} partNumber={target?.partNumber} />
           {sameCandidate(candidate, uniform) && kind === 'rib' ? ' This is the gauge and rivet chosen for every rib.' : ''}
         </Txt>
       ) : null}
       {candidate && !candidate.feasible ? (
         <Notice tone="error" testID="apply-not-feasible">{`${u.length(candidate.gaugeIn)} with ${candidate.rivet} does not carry the loads of ${name}, so it cannot be applied.`}</Notice>
       ) : null}
-      {apply.isError ? <Notice tone="error" testID="apply-error">{applyErrorText(apply.error)}</Notice> : null}
-      <Button
+      <ApplyFooter
+        state={state}
         label={target && candidate ? `Apply ${name} to ${target.partNumber}` : 'Apply to the part design'}
-        busyLabel="Applying"
-        busy={apply.isPending}
         disabled={!target || !candidate || !candidate.feasible}
-        onPress={onApply}
-        testID="apply-study"
+        onApply={() => { if (candidate && target && name) state.send(target, { gaugeIn: candidate.gaugeIn, rivet: candidate.rivet, target: { kind, name } }); }}
       />
-      {done ? <AppliedRevision rev={done.rev} partNumber={done.partNumber} onOpen={() => router.push(`/catalogue/designs/${done.rev.partDesignId}`)} /> : null}
     </View>
   );
 }
