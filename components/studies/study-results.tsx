@@ -12,6 +12,7 @@ import { ApplyPanel } from './apply-panel';
 import { LoadPlot } from './load-plot';
 import { PressurePicture } from './pressure-picture';
 import { ResultNotes } from './result-notes';
+import { CandidateTag, DesignFigures, UnreadableResult } from './result-parts';
 import {
   findCandidate, initialCandidate, readStudyResult, sameCandidate, type CandidateKey, type StudyCandidate, type StudyResult,
 } from './study-result';
@@ -32,7 +33,7 @@ function Headline({ result, shown }: { result: StudyResult; shown: CandidateKey 
       ) : <Txt variant="heading" tone="error" testID="study-recommended">No candidate carries the loads</Txt>}
       <Txt variant="small" tone="soft">
         <Mono variant="small">{feasible}</Mono> of <Mono variant="small">{result.trade.length}</Mono> gauge and rivet pairs carry the loads
-        {result.design ? <> · n <Mono variant="small">{result.design.loadFactors.positive.toFixed(2)}</Mono> / <Mono variant="small">{result.design.loadFactors.negative.toFixed(2)}</Mono> · W/S <Mono variant="small">{result.design.wingLoadingPsf.toFixed(1)} psf</Mono></> : null}
+        <DesignFigures design={result.design} />
         {result.airfoil ? <> · {result.airfoil.name}, <Mono variant="small">{result.airfoil.panels}</Mono> panels</> : null}
       </Txt>
       {shown && !sameCandidate(shown, rec) ? (
@@ -59,12 +60,7 @@ export function StudyResults({ detail, latestRevision }: { detail: StudyDetail; 
   const fetched = useStudyCandidateQuery(detail.id, detail.revision, needsHoles && stored ? { gaugeIn: stored.gaugeIn, rivet: stored.rivet } : null);
 
   if (!result) {
-    return (
-      <View style={{ gap: space.lg }}>
-        <Caution testID="study-caution" />
-        <ErrorState title="This result cannot be drawn" error={new Error('The stored result of this revision is not in the shape this screen reads. Compute it again to make a new revision.')} />
-      </View>
-    );
+    return <UnreadableResult />;
   }
   const candidate = stored;
   const withHoles: StudyCandidate | null = needsHoles ? fetched.data ?? null : candidate;
@@ -85,7 +81,7 @@ export function StudyResults({ detail, latestRevision }: { detail: StudyDetail; 
       <Section
         title="Load per rivet against the allowables"
         testID="section-loads"
-        aside={candidate ? <Mono variant="small" bold>{u(candidate.gaugeIn)} · {candidate.rivet}</Mono> : undefined}
+        aside={candidate ? <CandidateTag c={candidate} /> : undefined}
       >
         {!candidate ? <Txt tone="soft">Choose a candidate in the trade table.</Txt>
           : withHoles ? <LoadPlot candidate={withHoles} chordIn={result.outline.chordIn} /> : holesState('load plot')}
@@ -94,7 +90,7 @@ export function StudyResults({ detail, latestRevision }: { detail: StudyDetail; 
       <Section
         title="Pitch zones on the rib"
         testID="section-zones"
-        aside={candidate ? <Mono variant="small" bold>{u(candidate.gaugeIn)} · {candidate.rivet}</Mono> : undefined}
+        aside={candidate ? <CandidateTag c={candidate} /> : undefined}
       >
         {!candidate ? null
           : withHoles ? <ZonesDrawing outline={result.outline.points} chordIn={result.outline.chordIn} candidate={withHoles} lines={result.lines} /> : holesState('drawing')}
@@ -107,7 +103,7 @@ export function StudyResults({ detail, latestRevision }: { detail: StudyDetail; 
       <Section
         title="Zones, loads and margins"
         testID="section-zone-table"
-        aside={candidate ? <Mono variant="small" bold>{u(candidate.gaugeIn)} · {candidate.rivet}</Mono> : undefined}
+        aside={candidate ? <CandidateTag c={candidate} /> : undefined}
       >
         {candidate ? <ZoneTable candidate={candidate} /> : <Txt tone="soft">Choose a candidate in the trade table.</Txt>}
       </Section>

@@ -6,10 +6,11 @@ import { Caution, cautionText } from '@/components/ui/caution';
 import { Choice } from '@/components/ui/choice';
 import { GridTable } from '@/components/ui/grid-table';
 import { Section, Sheet } from '@/components/ui/sheet';
-import { ErrorState, Notice } from '@/components/ui/states';
+import { Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
 import { ResultNotes } from './result-notes';
+import { CandidateTag, DesignFigures, UnreadableResult } from './result-parts';
 import { SkinCandidates, SkinPanelTable } from './skin-panel-table';
 import { forceNumber } from './study-numbers';
 import { sameCandidate, type CandidateKey } from './study-result';
@@ -40,7 +41,7 @@ function Headline({ result }: { result: WingResult }) {
         Span <Mono variant="small">{u.length(p.spanIn)}</Mono> · chord <Mono variant="small">{u.lengthNumber(p.rootChordIn)}</Mono>
         {p.tipChordIn !== p.rootChordIn ? <>–<Mono variant="small">{u.lengthNumber(p.tipChordIn)}</Mono></> : null} {u.label('length')} · AR{' '}
         <Mono variant="small">{p.aspectRatio.toFixed(2)}</Mono>
-        {result.design ? <> · n <Mono variant="small">{result.design.loadFactors.positive.toFixed(2)}</Mono> / <Mono variant="small">{result.design.loadFactors.negative.toFixed(2)}</Mono> · W/S <Mono variant="small">{result.design.wingLoadingPsf.toFixed(1)} psf</Mono></> : null}
+        <DesignFigures design={result.design} />
         {result.airfoil ? <> · {result.airfoil.name}</> : null}
       </Txt>
       <Txt variant="small" tone="soft" testID="wing-tail">
@@ -101,12 +102,7 @@ export function WingResults({ detail, latestRevision }: { detail: StudyDetail; l
   }, [detail.id, detail.revision, detail.result]);
 
   if (!result) {
-    return (
-      <View style={{ gap: space.lg }}>
-        <Caution testID="study-caution" />
-        <ErrorState title="This result cannot be drawn" error={new Error('The stored result of this revision is not in the shape this screen reads. Compute it again to make a new revision.')} />
-      </View>
-    );
+    return <UnreadableResult />;
   }
   const rib = result.ribs.find((r) => r.name === ribName) ?? null;
   const choices = rib ? ribChoices(rib, result.trade.recommendedUniform) : [];
@@ -131,7 +127,7 @@ export function WingResults({ detail, latestRevision }: { detail: StudyDetail; l
       <Section
         title={rib ? `Zones of rib ${rib.name}` : 'Zones of the rib'}
         testID="section-rib-zones"
-        aside={ribShown ? <Mono variant="small" bold>{u.length(ribShown.gaugeIn)} · {ribShown.rivet}</Mono> : undefined}
+        aside={ribShown ? <CandidateTag c={ribShown} /> : undefined}
       >
         {!rib ? <Txt tone="soft">Choose a rib in the table.</Txt> : !ribShown ? (
           <Notice tone="error" testID="rib-zones-none">{`No candidate carries the loads of rib ${rib.name}: see why in the warnings, or try thicker gauges or larger rivets.`}</Notice>
@@ -166,7 +162,7 @@ export function WingResults({ detail, latestRevision }: { detail: StudyDetail; l
       <Section
         title={panel ? `Skin panel ${panel.name}` : 'Skin panel'}
         testID="section-skin-zones"
-        aside={skinShown ? <Mono variant="small" bold>{u.length(skinShown.gaugeIn)} · {skinShown.rivet}</Mono> : undefined}
+        aside={skinShown ? <CandidateTag c={skinShown} /> : undefined}
       >
         {!panel ? <Txt tone="soft">Choose a skin panel in the table.</Txt> : (
           <View style={{ gap: space.lg }} testID={`skin-detail-${idPart(panel.name)}`}>
