@@ -1,10 +1,10 @@
 import { StyleSheet, View } from 'react-native';
 import { colors, space } from '@/constants/theme';
-import { Button } from '@/components/ui/button';
 import { GridTable } from '@/components/ui/grid-table';
 import { Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
 import { marginText, partWeight, pitchNumber, shearFlowNumber, shearFlowUnit, stressNumber, stressUnit } from './study-numbers';
+import { GaugeOverRivet, RowPickButton } from './table-cells';
 import { idPart, skinCandidate, type SkinCandidate, type SkinPanelResult } from './wing-result';
 
 // The longest values in the 15 px mono (9 px a character): "MS20426AD4" under its gauge, "111.00–125.50" under the ribs' names.
@@ -81,18 +81,7 @@ export function SkinPanelTable({ panels, chosen, onChoose }: { panels: SkinPanel
             key: p.name,
             testID: `skin-row-${id}`,
             cells: {
-              panel: (
-                <Button
-                  label={p.name}
-                  variant="quiet"
-                  compact
-                  selected={on}
-                  onPress={() => onChoose(p.name)}
-                  testID={`skin-${id}`}
-                  accessibilityLabel={`Skin panel ${p.name}: show its candidates and zones${on ? ' (shown)' : ''}`}
-                  style={{ alignSelf: 'flex-start' }}
-                />
-              ),
+              panel: <RowPickButton name={p.name} on={on} onPick={onChoose} testID={`skin-${id}`} says={`Skin panel ${p.name}: show its candidates and zones`} />,
               surface: <Txt variant="small">{p.surface}</Txt>,
               ribs: (
                 <View>
@@ -101,12 +90,7 @@ export function SkinPanelTable({ panels, chosen, onChoose }: { panels: SkinPanel
                 </View>
               ),
               rec: rec
-                ? (
-                  <View testID={`skin-rec-${id}`} accessibilityLabel={`${u.length(rec.gaugeIn)} with ${rec.rivet}`}>
-                    <Mono variant="small" bold>{u.length(rec.gaugeIn)}</Mono>
-                    <Mono variant="small" bold>{rec.rivet}</Mono>
-                  </View>
-                )
+                ? <GaugeOverRivet c={rec} testID={`skin-rec-${id}`} />
                 : <Txt variant="small" bold tone="error" testID={`skin-rec-${id}`}>✕ none carries it</Txt>,
               torsion: figures?.torsion ?? none,
               bending: figures?.bending ?? none,

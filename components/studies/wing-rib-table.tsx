@@ -1,10 +1,10 @@
 import { View } from 'react-native';
 import { space } from '@/constants/theme';
-import { Button } from '@/components/ui/button';
 import { GridTable } from '@/components/ui/grid-table';
 import { Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
 import { forceNumber, momentNumber, momentUnit, shearFlowNumber, shearFlowUnit } from './study-numbers';
+import { GaugeOverRivet, RowPickButton } from './table-cells';
 import { idPart, type WingCondition, type WingRib } from './wing-result';
 
 // Wide enough for the longest value of each column in the 15 px mono (9 px a character: a 6-digit moment,
@@ -48,18 +48,7 @@ export function WingRibTable({ ribs, conditions, chosen, onChoose }: {
             key: r.name,
             testID: `wing-rib-row-${id}`,
             cells: {
-              rib: (
-                <Button
-                  label={r.name}
-                  variant="quiet"
-                  compact
-                  selected={on}
-                  onPress={() => onChoose(r.name)}
-                  testID={`wing-rib-${id}`}
-                  accessibilityLabel={`Rib ${r.name}: show its zones${on ? ' (shown)' : ''}`}
-                  style={{ alignSelf: 'flex-start' }}
-                />
-              ),
+              rib: <RowPickButton name={r.name} on={on} onPick={onChoose} testID={`wing-rib-${id}`} says={`Rib ${r.name}: show its zones`} />,
               station: <Mono variant="small">{u.station(r.stationIn)}</Mono>,
               chord: <Mono variant="small">{u.lengthNumber(r.chordIn)}</Mono>,
               ratio: <Mono variant="small">{r.clRatio.toFixed(3)}</Mono>,
@@ -67,14 +56,8 @@ export function WingRibTable({ ribs, conditions, chosen, onChoose }: {
               bending: <Mono variant="small">{momentNumber(r.loads.bendingInLb, u.system)}</Mono>,
               torque: <Mono variant="small">{momentNumber(r.loads.torqueInLb, u.system)}</Mono>,
               flow: <Mono variant="small">{shearFlowNumber(r.loads.shearFlowLbPerIn, u.system)}</Mono>,
-              // Gauge over rivet: two short lines instead of one long one.
               rec: rec
-                ? (
-                  <View testID={`wing-rib-rec-${id}`} accessibilityLabel={`${u.length(rec.gaugeIn)} with ${rec.rivet}`}>
-                    <Mono variant="small" bold>{u.length(rec.gaugeIn)}</Mono>
-                    <Mono variant="small" bold>{rec.rivet}</Mono>
-                  </View>
-                )
+                ? <GaugeOverRivet c={rec} testID={`wing-rib-rec-${id}`} />
                 : <Txt variant="small" tone="error" testID={`wing-rib-rec-${id}`}>none</Txt>,
               ok: <Txt variant="small" bold tone={rec ? 'ink' : 'error'}>{rec ? '✓ yes' : '✕ no'}</Txt>,
             },
