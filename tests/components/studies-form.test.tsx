@@ -1,25 +1,15 @@
-import type { KitModel } from '@/db/contracts';
 import { StudyForm, type StudyOutput } from '@/components/studies/study-form';
 import { gaugeLabel, kitIntoStudy, nacaDigits, newStudyValues, studyValues, toggleGauge, toggleRivet } from '@/components/studies/study-form-values';
 import { ApiError } from '@/hooks/api-client';
-import { UnitsProvider } from '@/hooks/use-units';
-import { renderWeb } from './render-web';
+import { demoKit, renderInUnits } from './studies-render';
 
 // Whole screens render in jsdom: slower than a unit test, more so when the machine is busy.
 jest.setTimeout(30_000);
 
-const kit: KitModel = {
-  id: '3f1c9a52-8a1e-4c47-9b7e-2f3a4d5e6f70', organizationId: 'org', createdAt: '2026-10-01T00:00:00Z',
-  code: 'NK-2', name: 'NK-2 Quillon', weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 54, stallSpeedKeas: 47, cruiseSpeedKeas: 118,
-  category: 'utility', airfoil: 'NACA 2412',
-};
+const kit = demoKit;
 
 function renderForm(system: 'imperial' | 'metric', onSubmit: (v: StudyOutput) => Promise<void>) {
-  return renderWeb(
-    <UnitsProvider initial={system}>
-      <StudyForm kits={[kit]} defaultValues={newStudyValues(kit)} isNew submitLabel="Compute" onSubmit={onSubmit} />
-    </UnitsProvider>,
-  );
+  return renderInUnits(system, <StudyForm kits={[kit]} defaultValues={newStudyValues(kit)} isNew submitLabel="Compute" onSubmit={onSubmit} />);
 }
 
 describe('the study form’s values', () => {

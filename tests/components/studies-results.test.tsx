@@ -1,32 +1,21 @@
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { act } from 'react';
 import type { PartDesignSummary, StudyDetail } from '@/db/contracts';
 import { StudyResults } from '@/components/studies/study-results';
 import { initialCandidate, readStudyResult, tradeRowTestId } from '@/components/studies/study-result';
 import { designKeys } from '@/hooks/queries/designs';
 import { studyKeys } from '@/hooks/queries/studies';
-import { UnitsProvider } from '@/hooks/use-units';
 // The test computes the demo study with the real engine, so the screen is checked against the very
 // shape the server stores (the app itself never imports server/).
 import { ribCandidate, ribStudy } from '@/server/engineering';
-import { renderWeb } from './render-web';
+import { fakeLayout, KIT_ID, renderWithQueries } from './studies-render';
 
 // Whole screens render in jsdom: slower than a unit test, more so when the machine is busy.
 jest.setTimeout(30_000);
 
-// jsdom lays nothing out: give every element a width and report it, so the pictures draw.
-beforeAll(() => {
-  Object.defineProperty(HTMLElement.prototype, 'offsetWidth', { configurable: true, get: () => 640 });
-  Object.defineProperty(HTMLElement.prototype, 'offsetHeight', { configurable: true, get: () => 300 });
-  (window as unknown as { ResizeObserver: unknown }).ResizeObserver = class {
-    constructor(private cb: (entries: { target: Element }[]) => void) {}
-    observe(target: Element) { setTimeout(() => this.cb([{ target }]), 0); }
-    unobserve() {}
-    disconnect() {}
-  };
-});
+// jsdom lays nothing out: every element is as wide as a results pane.
+fakeLayout(() => 640);
 
-const KIT = '3f1c9a52-8a1e-4c47-9b7e-2f3a4d5e6f70';
+const KIT = KIT_ID;
 const inputs = {
   kit: { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 54, stallSpeedKeas: 47, cruiseSpeedKeas: 118, category: 'utility' as const },
   airfoil: { kind: 'naca' as const, designation: '2412' },
@@ -59,19 +48,11 @@ const designs: PartDesignSummary[] = [
   { id: 'd-104', kitModelId: KIT, kitName: 'NK-2', partNumber: 'W-104', name: 'Wing rib, inboard', kind: 'rib', latest: { id: 'r', letter: 'A', status: 'published' }, publishedLetter: 'A' },
 ];
 
-async function renderResults(d = detail(), latest = 2, system: 'imperial' | 'metric' = 'imperial', candidates: { holes: boolean } = { holes: true }) {
-  const qc = new QueryClient({ defaultOptions: { queries: { retry: false, staleTime: Infinity } } });
-  qc.setQueryData(designKeys.list(KIT), designs);
-  if (candidates.holes) qc.setQueryData(studyKeys.candidate(d.id, d.revision, unstored.gaugeIn, unstored.rivet), unstoredWhole);
-  const r = renderWeb(
-    <QueryClientProvider client={qc}>
-      <UnitsProvider initial={system}>
-        <StudyResults detail={d} latestRevision={latest} />
-      </UnitsProvider>
-    </QueryClientProvider>,
-  );
-  await r.settle();
-  return r;
+function renderResults(d = detail(), latest = 2, system: 'imperial' | 'metric' = 'imperial', candidates: { holes: boolean } = { holes: true }) {
+  return renderWithQueries(system, (qc) => {
+    qc.setQueryData(designKeys.list(KIT), designs);
+    if (candidates.holes) qc.setQueryData(studyKeys.candidate(d.id, d.revision, unstored.gaugeIn, unstored.rivet), unstoredWhole);
+  }, <StudyResults detail={d} latestRevision={latest} />);
 }
 
 describe('reading a stored study result', () => {

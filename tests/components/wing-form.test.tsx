@@ -1,24 +1,21 @@
-import { wingStudyBody, type KitModel } from '@/db/contracts';
+import { wingStudyBody } from '@/db/contracts';
 import { WingForm, type WingOutput } from '@/components/studies/wing-form';
 import { evenlySpacedRibs, kitPlanform, newWingValues, ribName, wingFieldFor, wingValues } from '@/components/studies/wing-form-values';
 import { ApiError } from '@/hooks/api-client';
-import { UnitsProvider } from '@/hooks/use-units';
-import { renderWeb } from './render-web';
+import { demoKit, renderInUnits } from './studies-render';
 
 jest.setTimeout(60_000);
 
-const kit: KitModel = {
-  id: '3f1c9a52-8a1e-4c47-9b7e-2f3a4d5e6f70', organizationId: 'org', createdAt: '2026-10-01T00:00:00Z',
-  code: 'NK-2', name: 'NK-2 Quillon', weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 54, stallSpeedKeas: 47, cruiseSpeedKeas: 118,
-  category: 'utility', airfoil: 'NACA 2412',
-};
+const kit = demoKit;
 
 function renderForm(system: 'imperial' | 'metric', onSubmit: (v: WingOutput) => Promise<void>) {
-  return renderWeb(
-    <UnitsProvider initial={system}>
-      <WingForm kits={[kit]} defaultValues={newWingValues(kit)} isNew submitLabel="Compute" onSubmit={onSubmit} />
-    </UnitsProvider>,
-  );
+  return renderInUnits(system, <WingForm kits={[kit]} defaultValues={newWingValues(kit)} isNew submitLabel="Compute" onSubmit={onSubmit} />);
+}
+
+/** What a new wing lacks before the contract accepts it: a name, and the tail arm (170 in). */
+async function nameWithTailArm(r: ReturnType<typeof renderForm>, name: string) {
+  await r.type('wing-name', name);
+  await r.type('wing-tail-arm', '170');
 }
 
 describe('the wing form’s values', () => {
@@ -72,8 +69,7 @@ describe('the wing form', () => {
   it('sends a whole-wing body the contract accepts once named and given a tail arm', async () => {
     const sent: WingOutput[] = [];
     const r = renderForm('imperial', async (v) => { sent.push(v); });
-    await r.type('wing-name', 'Left wing');
-    await r.type('wing-tail-arm', '170');
+    await nameWithTailArm(r, 'Left wing');
     await r.press('wing-compute');
     expect(sent).toHaveLength(1);
     expect(wingStudyBody.safeParse(sent[0]).success).toBe(true);
@@ -96,8 +92,7 @@ describe('the wing form', () => {
   it('says as it is typed that ribs go root to tip and stay inside the half-span', async () => {
     const r = renderForm('imperial', async () => {});
     // The contract checks the rib order once the rest of the body reads: name it and give the tail arm first.
-    await r.type('wing-name', 'Order');
-    await r.type('wing-tail-arm', '170');
+    await nameWithTailArm(r, 'Order');
     await r.type('wing-rib-3-station', '30');
     expect(r.byTestId('wing-rib-3-station-field-error').textContent).toContain('root to tip');
     await r.type('wing-rib-3-station', '67.5');
@@ -111,8 +106,7 @@ describe('the wing form', () => {
         'inputs.ribs.3.stationIn': 'rib W-104 carries a 61.0 in wide strip of wing: at most 60 in; add a rib',
       });
     });
-    await r.type('wing-name', 'Refused');
-    await r.type('wing-tail-arm', '170');
+    await nameWithTailArm(r, 'Refused');
     await r.press('wing-compute');
     expect(r.byTestId('wing-rib-3-station-field-error').textContent).toContain('add a rib');
     expect(r.byTestId('wing-form-error').textContent).toContain('See the marked fields');
@@ -152,8 +146,7 @@ describe('the wing form', () => {
   it('asks for the flaps-extended stall speed once flaps are studied', async () => {
     const sent: WingOutput[] = [];
     const r = renderForm('imperial', async (v) => { sent.push(v); });
-    await r.type('wing-name', 'Flaps');
-    await r.type('wing-tail-arm', '170');
+    await nameWithTailArm(r, 'Flaps');
     await r.press('wing-flaps-on');
     await r.press('wing-compute');
     expect(sent).toHaveLength(0);
@@ -165,8 +158,7 @@ describe('the wing form', () => {
   it('does not send a wing without a skin rivet', async () => {
     const sent: WingOutput[] = [];
     const r = renderForm('imperial', async (v) => { sent.push(v); });
-    await r.type('wing-name', 'No skin rivets');
-    await r.type('wing-tail-arm', '170');
+    await nameWithTailArm(r, 'No skin rivets');
     await r.press('wing-skin-rivet-MS20426AD3');
     await r.press('wing-skin-rivet-MS20426AD4');
     await r.press('wing-compute');

@@ -1,32 +1,21 @@
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { act } from 'react';
 import type { PartDesignSummary, StudyDetail } from '@/db/contracts';
 import { WingResults } from '@/components/studies/wing-results';
 import { hasZones, idPart, readWingResult, ribChoices, skinChoices } from '@/components/studies/wing-result';
 import { designKeys } from '@/hooks/queries/designs';
-import { UnitsProvider } from '@/hooks/use-units';
 // The real engine computes the wing, so the screen is checked against the very shape the server stores
 // (the app itself never imports server/).
 import { ribStudy, wingStudy, type WingStudyInput } from '@/server/engineering';
-import { renderWeb } from './render-web';
+import { fakeLayout, KIT_ID, renderWithQueries } from './studies-render';
 
 jest.setTimeout(60_000);
 
 // jsdom lays nothing out: every element reports this width (a wide pane, or a phone's column).
 let layoutWidth = 1000;
-beforeAll(() => {
-  Object.defineProperty(HTMLElement.prototype, 'offsetWidth', { configurable: true, get: () => layoutWidth });
-  Object.defineProperty(HTMLElement.prototype, 'offsetHeight', { configurable: true, get: () => 300 });
-  (window as unknown as { ResizeObserver: unknown }).ResizeObserver = class {
-    constructor(private cb: (entries: { target: Element }[]) => void) {}
-    observe(target: Element) { setTimeout(() => this.cb([{ target }]), 0); }
-    unobserve() {}
-    disconnect() {}
-  };
-});
+fakeLayout(() => layoutWidth);
 afterEach(() => { layoutWidth = 1000; });
 
-const KIT = '3f1c9a52-8a1e-4c47-9b7e-2f3a4d5e6f70';
+const KIT = KIT_ID;
 // The form's default wing (a rectangle of the kit's area and chord), with four ribs to keep the test quick.
 const inputs: WingStudyInput = {
   kit: { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 54, stallSpeedKeas: 47, cruiseSpeedKeas: 118, category: 'utility' },
@@ -53,18 +42,10 @@ const designs: PartDesignSummary[] = [
   { id: '7c1d2e3f-0000-4000-8000-000000000201', kitModelId: KIT, kitName: 'NK-2', partNumber: 'S-201', name: 'Top skin, inboard', kind: 'skin_panel', latest: null, publishedLetter: null },
 ];
 
-async function renderResults(opts: { revision?: number; latest?: number; system?: 'imperial' | 'metric' } = {}) {
-  const qc = new QueryClient({ defaultOptions: { queries: { retry: false, staleTime: Infinity } } });
-  qc.setQueryData(designKeys.list(KIT), designs);
-  const r = renderWeb(
-    <QueryClientProvider client={qc}>
-      <UnitsProvider initial={opts.system ?? 'imperial'}>
-        <WingResults detail={detail(opts.revision ?? 1)} latestRevision={opts.latest ?? 1} />
-      </UnitsProvider>
-    </QueryClientProvider>,
-  );
-  await r.settle();
-  return r;
+function renderResults(opts: { revision?: number; latest?: number; system?: 'imperial' | 'metric' } = {}) {
+  return renderWithQueries(opts.system ?? 'imperial', (qc) => qc.setQueryData(designKeys.list(KIT), designs), (
+    <WingResults detail={detail(opts.revision ?? 1)} latestRevision={opts.latest ?? 1} />
+  ));
 }
 
 const firstPanel = result.skins[0];
