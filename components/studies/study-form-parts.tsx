@@ -1,4 +1,6 @@
-import { Controller, useFieldArray, useFormState, useWatch, type ArrayPath, type Control, type FieldArray, type FieldValues, type Path } from 'react-hook-form';
+import {
+  Controller, useFieldArray, useFormState, useWatch, type ArrayPath, type Control, type FieldArray, type FieldValues, type Path, type UseFormSetValue,
+} from 'react-hook-form';
 import { View } from 'react-native';
 import type { KitModel } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
@@ -11,7 +13,8 @@ import { Section } from '@/components/ui/sheet';
 import { Notice } from '@/components/ui/states';
 import { Label, Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
-import { Cell, Row } from './kit-fields';
+import { AirfoilFields } from './airfoil-fields';
+import { Cell, KitFields, Row } from './kit-fields';
 import { gaugeKey, gaugeLabel, RIVET_FAMILIES, STOCK_GAUGES_IN, STUDY_MATERIALS, toggleGauge, toggleRivet, type StudyFormValues } from './study-form-values';
 
 /*
@@ -20,8 +23,41 @@ import { gaugeKey, gaugeLabel, RIVET_FAMILIES, STOCK_GAUGES_IN, STUDY_MATERIALS,
  * those at different paths take the path. testIDs start with the form's prefix ("study", "wing").
  */
 
+/**
+ * The head of a study's form: its name and kit model, then the aircraft's numbers and the airfoil
+ * (`inputs.kit`, `inputs.airfoil`: the same blocks in a rib and a wing study).
+ */
+export function StudyBasics({ control, setValue, kits, isNew, prefix, nameHint, onTake }: {
+  control: Control<StudyFormValues>; setValue: UseFormSetValue<StudyFormValues>; kits: KitModel[]; isNew: boolean; prefix: string;
+  /** An example name, e.g. "e.g. Left wing, flight envelope". */
+  nameHint: string;
+  onTake: (kit: KitModel, when: 'chosen' | 'again') => void;
+}) {
+  const { errors } = useFormState({ control, name: 'inputs.airfoil' });
+  return (
+    <>
+      <Section title="Study">
+        <FormTextField control={control} name="name" label="Name of the study" hint={nameHint} testID={`${prefix}-name`} />
+        <KitModelField control={control} kits={kits} isNew={isNew} prefix={prefix} onTake={onTake} />
+      </Section>
+
+      <Section title="Aircraft">
+        <KitFields control={control} prefix={prefix} />
+      </Section>
+
+      <Section title="Airfoil">
+        <AirfoilFields
+          control={control}
+          setValue={setValue}
+          errors={{ root: errorAt(errors, 'inputs.airfoil'), points: errorAt(errors, 'inputs.airfoil.points') }}
+        />
+      </Section>
+    </>
+  );
+}
+
 /** The kit model; a new study starts from its design data, an existing one keeps its own unless asked. */
-export function KitModelField({ control, kits, isNew, prefix, onTake }: {
+function KitModelField({ control, kits, isNew, prefix, onTake }: {
   control: Control<StudyFormValues>; kits: KitModel[]; isNew: boolean; prefix: string;
   /** Fills the form from the kit: on choosing it for a new study, or on the button for an existing one. */
   onTake: (kit: KitModel, when: 'chosen' | 'again') => void;

@@ -4,16 +4,14 @@ import { View } from 'react-native';
 import type { z } from 'zod';
 import { ribStudyForm, type KitModel } from '@/db/contracts';
 import { space } from '@/constants/theme';
-import { FormNumberField, FormTextField } from '@/components/forms/form-fields';
+import { FormNumberField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
-import { errorAt } from '@/components/forms/server-errors';
 import { Button } from '@/components/ui/button';
 import { Section } from '@/components/ui/sheet';
 import { Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
-import { AirfoilFields } from './airfoil-fields';
-import { Cell, KitFields, Row } from './kit-fields';
-import { FastenerLinesSection, GaugeChips, KitModelField, MaterialField, RivetChips, ScheduleFields } from './study-form-parts';
+import { Cell, Row } from './kit-fields';
+import { FastenerLinesSection, GaugeChips, MaterialField, RivetChips, ScheduleFields, StudyBasics } from './study-form-parts';
 import { kitIntoStudy, studyFieldFor, type StudyFormValues } from './study-form-values';
 import { useStudySubmit } from './use-study-submit';
 
@@ -39,29 +37,21 @@ export function StudyForm({ kits, defaultValues, isNew, submitLabel, onSubmit, n
     mode: 'onChange',
     defaultValues,
   });
-  const errors = formState.errors;
   const { submit, formError } = useStudySubmit({ handleSubmit, setError, onSubmit, fieldFor: studyFieldFor });
 
   const takeKit = (k: KitModel) => reset(kitIntoStudy(getValues(), k), { keepDefaultValues: true, keepDirty: false, keepErrors: false });
 
   return (
     <View style={{ gap: space.xl }} testID="study-form">
-      <Section title="Study">
-        <FormTextField control={control} name="name" label="Name of the study" hint="e.g. Inboard rib W-104, flight envelope" testID="study-name" />
-        <KitModelField control={control} kits={kits} isNew={isNew} prefix="study" onTake={takeKit} />
-      </Section>
-
-      <Section title="Aircraft">
-        <KitFields control={control} prefix="study" />
-      </Section>
-
-      <Section title="Airfoil">
-        <AirfoilFields
-          control={control}
-          setValue={setValue}
-          errors={{ root: errorAt(errors, 'inputs.airfoil'), points: errorAt(errors, 'inputs.airfoil.points') }}
-        />
-      </Section>
+      <StudyBasics
+        control={control}
+        setValue={setValue}
+        kits={kits}
+        isNew={isNew}
+        prefix="study"
+        nameHint="e.g. Inboard rib W-104, flight envelope"
+        onTake={takeKit}
+      />
 
       <Section title="Rib">
         <Row>

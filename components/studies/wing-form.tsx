@@ -16,9 +16,8 @@ import { Section } from '@/components/ui/sheet';
 import { Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
-import { AirfoilFields } from './airfoil-fields';
-import { Cell, KitFields, Row } from './kit-fields';
-import { FastenerLinesSection, GaugeChips, KitModelField, MaterialField, RivetChips, ScheduleFields } from './study-form-parts';
+import { Cell, Row } from './kit-fields';
+import { FastenerLinesSection, GaugeChips, MaterialField, RivetChips, ScheduleFields, StudyBasics } from './study-form-parts';
 import type { StudyFormValues } from './study-form-values';
 import { useStudySubmit } from './use-study-submit';
 import {
@@ -50,7 +49,6 @@ export function WingForm({ kits, defaultValues, isNew, submitLabel, onSubmit, no
     mode: 'onChange',
     defaultValues,
   });
-  const errors = formState.errors;
   // The blocks at the same paths as the rib form's (kit, airfoil, material, settings) take this form's control.
   const shared = control as unknown as Control<StudyFormValues>;
   const { submit, formError } = useStudySubmit({ handleSubmit, setError, onSubmit, fieldFor: wingFieldFor });
@@ -61,22 +59,15 @@ export function WingForm({ kits, defaultValues, isNew, submitLabel, onSubmit, no
 
   return (
     <View style={{ gap: space.xl }} testID="wing-form">
-      <Section title="Study">
-        <FormTextField control={control} name="name" label="Name of the study" hint="e.g. Left wing, flight envelope" testID="wing-name" />
-        <KitModelField control={shared} kits={kits} isNew={isNew} prefix="wing" onTake={takeKit} />
-      </Section>
-
-      <Section title="Aircraft">
-        <KitFields control={shared} prefix="wing" />
-      </Section>
-
-      <Section title="Airfoil">
-        <AirfoilFields
-          control={shared}
-          setValue={setValue as unknown as UseFormSetValue<StudyFormValues>}
-          errors={{ root: errorAt(errors, 'inputs.airfoil'), points: errorAt(errors, 'inputs.airfoil.points') }}
-        />
-      </Section>
+      <StudyBasics
+        control={shared}
+        setValue={setValue as unknown as UseFormSetValue<StudyFormValues>}
+        kits={kits}
+        isNew={isNew}
+        prefix="wing"
+        nameHint="e.g. Left wing, flight envelope"
+        onTake={takeKit}
+      />
 
       <Section title="Planform and tail">
         <PlanformFields control={control} setValue={setValue} />
