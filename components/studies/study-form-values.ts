@@ -88,6 +88,31 @@ export function kitIntoStudy(values: StudyFormValues, kit: KitModel): StudyFormV
   };
 }
 
+/** A rib's two flange lines from 2 % to 85 % of the chord: a new rib's, and every rib's of a new wing. */
+export function flangeLines(): StudyFormValues['inputs']['lines'] {
+  return [
+    { name: 'Upper flange', surface: 'upper', startXc: 0.02, endXc: 0.85 },
+    { name: 'Lower flange', surface: 'lower', startXc: 0.02, endXc: 0.85 },
+  ];
+}
+
+/**
+ * What a new rib or wing study starts from besides its own blocks: a normal-category kit to fill in,
+ * a NACA airfoil to name, common stock and rivets, 8D maximum pitch in eighths of an inch, four zones.
+ */
+export function newStudyInputs() {
+  return {
+    kit: { category: 'normal' },
+    airfoil: { kind: 'naca', designation: '' },
+    material: '6061-T6',
+    gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04],
+    rivetCandidates: ['PULLED-4', 'MS20470AD4'],
+    maxPitchDiameters: 8,
+    pitchIncrementIn: 0.125,
+    maxZones: 4,
+  };
+}
+
 /**
  * A new study: two flange lines from 2 % to 85 % of the chord, common stock and rivets, 8D maximum
  * pitch in eighths of an inch. What only the supplier knows (rib spacing, the study's name) is blank.
@@ -96,21 +121,7 @@ export function newStudyValues(kit?: KitModel): StudyFormValues {
   const blank = {
     kitModelId: '',
     name: '',
-    inputs: {
-      kit: { category: 'normal' },
-      airfoil: { kind: 'naca', designation: '' },
-      rib: {},
-      lines: [
-        { name: 'Upper flange', surface: 'upper', startXc: 0.02, endXc: 0.85 },
-        { name: 'Lower flange', surface: 'lower', startXc: 0.02, endXc: 0.85 },
-      ],
-      material: '6061-T6',
-      gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04],
-      rivetCandidates: ['PULLED-4', 'MS20470AD4'],
-      maxPitchDiameters: 8,
-      pitchIncrementIn: 0.125,
-      maxZones: 4,
-    },
+    inputs: { ...newStudyInputs(), rib: {}, lines: flangeLines() },
   } as unknown as StudyFormValues;
   return kit ? kitIntoStudy(blank, kit) : blank;
 }

@@ -1,5 +1,7 @@
 import type { KitModel, StudyDetail, WingStudyInput } from '@/db/contracts';
-import { COMMON_PLACED, copyInputs, kitDesignData, LINE_FIELDS, normaliseFieldPath, rowFieldFor } from './study-form-values';
+import {
+  COMMON_PLACED, copyInputs, flangeLines, kitDesignData, LINE_FIELDS, newStudyInputs, normaliseFieldPath, rowFieldFor,
+} from './study-form-values';
 
 /**
  * The wing study form holds the POST body itself (kind 'wing') in the engine's units (in, lb, sq ft,
@@ -75,26 +77,14 @@ export function newWingValues(kit?: KitModel): WingFormValues {
     kitModelId: '',
     name: '',
     inputs: {
-      kit: { category: 'normal' },
-      airfoil: { kind: 'naca', designation: '' },
+      ...newStudyInputs(),
       planform: { kind: 'rectangle' },
       tail: {},
       ribs: evenlySpacedRibs(10, 24, 154.5, 'W-101') as WingRibRow[],
-      rib: {
-        lines: [
-          { name: 'Upper flange', surface: 'upper', startXc: 0.02, endXc: 0.85 },
-          { name: 'Lower flange', surface: 'lower', startXc: 0.02, endXc: 0.85 },
-        ],
-      },
+      rib: { lines: flangeLines() },
       spars: { frontXc: 0.15, rearXc: 0.7, capAreaSqIn: 1 },
       skin: { gaugeCandidates: [0.016, 0.02, 0.025, 0.032], rivetCandidates: ['MS20426AD3', 'MS20426AD4'] },
       compressibility: 'karman-tsien',
-      material: '6061-T6',
-      gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04],
-      rivetCandidates: ['PULLED-4', 'MS20470AD4'],
-      maxPitchDiameters: 8,
-      pitchIncrementIn: 0.125,
-      maxZones: 4,
     },
   } as unknown as WingFormValues;
   return kit ? kitIntoWing(blank, kit) : blank;
