@@ -30,7 +30,59 @@ export const couponInput = z.object({
 });
 export type CouponInput = z.input<typeof couponInput>;
 
-export type CouponTest = z.output<typeof couponInput> & { id: string; createdAt: string; createdByName: string };
+/** A correction of a recorded test: the whole test as it should have been, and why. */
+export const couponCorrectionInput = couponInput.safeExtend({
+  reason: plainText('the reason', 3, 500, 'say why the record is corrected'),
+});
+export type CouponCorrectionInput = z.input<typeof couponCorrectionInput>;
+
+export const couponActions = ['correct', 'delete'] as const;
+export type CouponAction = (typeof couponActions)[number];
+
+export type CouponTest = z.output<typeof couponInput> & {
+  id: string; createdAt: string; createdByName: string;
+  /** Why this entry corrects an earlier one ('' for a first record). */
+  correctionReason: string;
+  /** The entry that corrected this one: this one is kept as it was recorded and no longer counts. */
+  correctedBy: { id: string; byName: string; at: string; reason: string } | null;
+  /** Published part revisions a study may have drawn from this test (or the entries it corrected). */
+  backs: string[];
+  /** What the reader may do with it: the screen's buttons come from this list only. */
+  allowedActions: CouponAction[];
+};
+
+/** The engine's own tolerance for one stock gauge (GAUGE_MATCH_TOLERANCE_IN): 0.050 and 0.051 in are one gauge. */
+export const COUPON_GAUGE_TOLERANCE_IN = 0.0011;
+
+/** A published (or since superseded) part revision, as the coupon rules read it. */
+export type CouponBackedRevision = { rivetSpec: string; gaugeIn: number; publishedAt: Date | string; fromStudy: boolean };
+
+/**
+ * Whether a test may stand behind a published revision. Tests reach a schedule only through a load
+ * study, which reads them for the same rivet at the same gauge (its coupon allowables) or a thicker one
+ * (the cap on its fallback), whatever the material: any test of that rivet and gauge or thicker, on
+ * record before the revision was published, may have been read.
+ */
+export function couponBacks(test: { rivetSpec: string; gaugeIn: number; createdAt: Date | string }, rev: CouponBackedRevision): boolean {
+  return rev.fromStudy
+    && test.rivetSpec.trim().toUpperCase() === rev.rivetSpec.trim().toUpperCase()
+    && test.gaugeIn >= rev.gaugeIn - COUPON_GAUGE_TOLERANCE_IN
+    && new Date(test.createdAt).getTime() <= new Date(rev.publishedAt).getTime();
+}
+
+/** Why a test cannot be deleted, or null. A corrected entry goes with its correction, never alone. */
+export function couponDeleteRefusal(t: { superseded: boolean; backs: readonly string[] }): string | null {
+  if (t.superseded) return 'this entry was corrected: it stays in the record as it was (delete the current entry to remove the test)';
+  if (t.backs.length) return `this test may back the published ${t.backs.join(', ')}: it stays in the record (correct it instead; published revisions keep the numbers they were approved with)`;
+  return null;
+}
+
+/** Why a test cannot be corrected, or null: only the current entry is corrected. */
+export const couponCorrectRefusal = (t: { superseded: boolean }): string | null =>
+  (t.superseded ? 'this entry was already corrected: correct the current entry' : null);
+
+export const allowedCouponActions = (t: { superseded: boolean; backs: readonly string[] }): CouponAction[] =>
+  couponActions.filter((a) => (a === 'correct' ? couponCorrectRefusal(t) : couponDeleteRefusal(t)) === null);
 
 /** A (material, gauge, rivet) with its tests and the pull-through allowables studies take from them. */
 export type CouponAllowance = {

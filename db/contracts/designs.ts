@@ -132,9 +132,29 @@ export const publishInput = z.object({}).strict();
 
 export type RevisionStatus = 'draft' | 'published' | 'superseded';
 
+export const revisionActions = ['edit', 'publish', 'discard'] as const;
+export type RevisionAction = (typeof revisionActions)[number];
+
+/**
+ * Why a revision cannot be changed, published or discarded, or null: only a draft moves. Publishing is
+ * the approval and is final; a change after it is a new revision with a change note.
+ */
+export function revisionActionRefusal(r: { letter: string; status: RevisionStatus }): string | null {
+  return r.status === 'draft' ? null : `revision ${r.letter} is ${r.status} and can no longer be changed: start a new revision with a change note`;
+}
+
+export const allowedRevisionActions = (r: { letter: string; status: RevisionStatus }): RevisionAction[] =>
+  (revisionActionRefusal(r) ? [] : [...revisionActions]);
+
+/** What the confirmation before publishing says: the approval cannot be taken back. */
+export const publishWarning = (letter: string) =>
+  `Publishing revision ${letter} is your approval, and it cannot be undone: the revision is frozen, every traveler made from it names you as approver, and a later change needs a new revision.`;
+
 export type Revision = z.output<typeof revisionInput> & {
   id: string; partDesignId: string; letter: string; status: RevisionStatus; basis: Record<string, unknown> | null;
   studyId: string | null; createdAt: string; publishedAt: string | null; publishedByName: string | null;
+  /** What the reader may do with this revision: the screen's buttons come from this list only. */
+  allowedActions: RevisionAction[];
 };
 
 export type PartDesignSummary = {

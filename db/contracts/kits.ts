@@ -29,3 +29,61 @@ export const kitModelInput = z.object({
 export type KitModelInput = z.input<typeof kitModelInput>;
 
 export type KitModel = z.output<typeof kitModelInput> & { id: string; organizationId: string; createdAt: string };
+
+// ---- Changing and removing a kit model ----
+
+/** A kit's data as it is edited: the kit's fields, and why (required once studies or parts rely on the kit). */
+export const kitChangeInput = kitModelInput.safeExtend({
+  reason: plainText('the reason', 0, 500).default(''),
+});
+export type KitChangeInput = z.input<typeof kitChangeInput>;
+
+/** The fields studies and parts are computed from: a change to one of these is history once the kit is relied on. */
+export const kitDesignFields = ['weightLb', 'wingAreaSqFt', 'meanChordIn', 'stallSpeedKeas', 'cruiseSpeedKeas', 'category', 'airfoil'] as const;
+export type KitDesignField = (typeof kitDesignFields)[number];
+export const kitFieldLabels: Record<'code' | 'name' | KitDesignField, string> = {
+  code: 'code', name: 'name', weightLb: 'gross weight', wingAreaSqFt: 'wing area', meanChordIn: 'mean chord',
+  stallSpeedKeas: 'stall speed', cruiseSpeedKeas: 'cruise speed', category: 'category', airfoil: 'airfoil',
+};
+
+/** What relies on a kit model: counted on the server, read by the rules below. */
+export type KitReliance = { studies: number; publishedParts: number; builds: number };
+
+export const kitActions = ['edit', 'delete'] as const;
+export type KitAction = (typeof kitActions)[number];
+
+const count = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
+
+/** Whether anything was made from the kit's numbers: a study, a published part or a shipped build. */
+export const kitReliedOn = (r: KitReliance) => r.studies + r.publishedParts + r.builds > 0;
+
+/** Why the kit cannot be deleted, or null: studies, published parts and shipped builds were made from it. */
+export function kitDeleteRefusal(r: KitReliance): string | null {
+  if (!kitReliedOn(r)) return null;
+  const what = [
+    r.publishedParts ? count(r.publishedParts, 'part design with a published revision', 'part designs with published revisions') : '',
+    r.builds ? count(r.builds, 'shipped build') : '',
+    r.studies ? count(r.studies, 'load study', 'load studies') : '',
+  ].filter(Boolean).join(', ');
+  return `this kit model has ${what}: it stays in the catalogue (its data can still be changed, with the change kept in its history)`;
+}
+
+/** Why this change needs a reason, or null: changing the numbers of a relied-on kit is recorded with why. */
+export function kitChangeReasonRefusal(r: KitReliance, changed: readonly string[], reason: string): string | null {
+  if (!kitReliedOn(r) || !changed.some((f) => (kitDesignFields as readonly string[]).includes(f)) || reason.trim().length >= 3) return null;
+  return 'studies or published parts were made from the old numbers: say why they change';
+}
+
+/** What the supplier may do with their kit: edit always, delete while nothing relies on it. */
+export const allowedKitActions = (r: KitReliance): KitAction[] => (kitDeleteRefusal(r) ? ['edit'] : ['edit', 'delete']);
+
+/** One change of a kit's data, the changed fields' old and new values. */
+export type KitModelChange = {
+  id: string; changedByName: string; reason: string; createdAt: string;
+  before: Record<string, unknown>; after: Record<string, unknown>;
+};
+
+/** A kit model as its own page shows it: what relies on it, what may be done, and its history. */
+export type KitModelDetail = KitModel & {
+  reliance: KitReliance; allowedActions: KitAction[]; deleteRefusal: string | null; changes: KitModelChange[];
+};

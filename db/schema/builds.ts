@@ -11,6 +11,8 @@ export const builds = pgTable('builds', {
   organizationId: uuid('organization_id').notNull().references(() => organizations.id),
   kitModelId: uuid('kit_model_id').notNull().references(() => kitModels.id),
   kitSerial: text('kit_serial').notNull().unique(),
+  /** The supplier's note on the shipment (what went in the crate, what follows later). */
+  note: text('note').notNull().default(''),
   createdBy: uuid('created_by').notNull().references(() => users.id),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 });

@@ -1,10 +1,14 @@
-import { date, index, pgEnum, pgTable, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { type AnyPgColumn, date, index, pgEnum, pgTable, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { organizations } from './organizations';
 import { users } from './users';
 
 export const couponOutcome = pgEnum('coupon_outcome', ['no_deformation', 'slight_deformation', 'excessive_deformation', 'failure']);
 
-/** A supplier's test of one fastener in a flange coupon; allowables are derived from these. */
+/**
+ * A supplier's test of one fastener in a flange coupon; allowables are derived from these. A recorded
+ * test is never edited: a correction is a new row (with its reason) and the old one points to it, kept
+ * as it was. Only rows nobody has superseded feed the engine.
+ */
 export const couponTests = pgTable('coupon_tests', {
   id: uuid('id').primaryKey().defaultRandom(),
   organizationId: uuid('organization_id').notNull().references(() => organizations.id),
@@ -19,4 +23,8 @@ export const couponTests = pgTable('coupon_tests', {
   testedOn: date('tested_on').notNull(),
   createdBy: uuid('created_by').notNull().references(() => users.id),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  /** Why this row corrects an earlier one (empty for a first record). */
+  correctionReason: text('correction_reason').notNull().default(''),
+  supersededById: uuid('superseded_by_id').references((): AnyPgColumn => couponTests.id),
+  supersededAt: timestamp('superseded_at', { withTimezone: true }),
 }, (t) => [index('coupon_tests_org_key').on(t.organizationId, t.material, t.gaugeIn, t.rivetSpec)]);

@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { integer, jsonb, pgEnum, pgTable, real, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { index, integer, jsonb, pgEnum, pgTable, real, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import type { FastenerLine } from '../contracts/designs';
 import { organizations } from './organizations';
 import { users } from './users';
@@ -23,6 +23,21 @@ export const kitModels = pgTable('kit_models', {
   airfoil: text('airfoil').notNull(),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 }, (t) => [uniqueIndex('kit_models_org_code').on(t.organizationId, t.code)]);
+
+/**
+ * A change to a kit model's data, old and new values side by side: studies and published parts were made
+ * from the old numbers, so they are never silently overwritten.
+ */
+export const kitModelChanges = pgTable('kit_model_changes', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  kitModelId: uuid('kit_model_id').notNull().references(() => kitModels.id, { onDelete: 'cascade' }),
+  changedBy: uuid('changed_by').notNull().references(() => users.id),
+  reason: text('reason').notNull().default(''),
+  /** Only the fields that changed: { field: value } before and after. */
+  before: jsonb('before').$type<Record<string, unknown>>().notNull(),
+  after: jsonb('after').$type<Record<string, unknown>>().notNull(),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+}, (t) => [index('kit_model_changes_kit').on(t.kitModelId, t.createdAt)]);
 
 export const partDesigns = pgTable('part_designs', {
   id: uuid('id').primaryKey().defaultRandom(),

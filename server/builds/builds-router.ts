@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { addMemberInput, buildInput, handOverInput, idParam } from '../../db/contracts';
+import { addMemberInput, buildChangeInput, buildInput, handOverInput, idParam } from '../../db/contracts';
 import type { AppContext } from '../context';
 import { requireRole } from '../middleware/require-role';
 import { validateBody } from '../middleware/validate';
@@ -14,6 +14,8 @@ export function buildsRouter(ctx: AppContext): Router {
   r.get('/', async (req, res) => { res.json(await builds.list(req.user!)); });
   r.post('/', requireRole('supplier'), validateBody(buildInput), async (req, res) => { res.status(201).json(await builds.create(req.user!, req.body)); });
   r.get('/:id', async (req, res) => { res.json(await builds.detail(req.user!, idParam.parse(req.params).id)); });
+  r.patch('/:id', validateBody(buildChangeInput), async (req, res) => { res.json(await builds.update(req.user!, idParam.parse(req.params).id, req.body)); });
+  r.delete('/:id', async (req, res) => { await builds.remove(req.user!, idParam.parse(req.params).id); res.status(204).end(); });
   r.post('/:id/members', validateBody(addMemberInput), async (req, res) => { res.json(await builds.addMember(req.user!, idParam.parse(req.params).id, req.body)); });
   r.delete('/:id/members/:userId', async (req, res) => {
     const { id, userId } = memberParams.parse(req.params);

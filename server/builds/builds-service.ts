@@ -1,7 +1,8 @@
 import { and, eq, inArray } from 'drizzle-orm';
 import QRCode from 'qrcode';
 import {
-  allowedBuildPeopleActions, memberRoleOfPlace, removalRefusal, singlePlaces,
+  allowedBuildActions, allowedBuildPeopleActions, buildWorkRefusal, checkBuildAction, memberRoleOfPlace, removalRefusal, singlePlaces,
+  type BuildAction, type BuildChangeInput,
   type BuildPeople, type BuildPeopleAction, type BuildSummary, type MemberPlace, type QrLabel,
 } from '../../db/contracts';
 import { withTransaction, type Db, type Tx } from '../../db';
@@ -14,7 +15,8 @@ import { kitsService } from '../kits/kits-service';
 import { isLoopbackUrl } from '../network/lan';
 import { insertTraveler, listTravelers } from '../travelers/travelers-repository';
 import {
-  insertBuildEvent, listBuildMembers, listVisibleBuilds, lockBuild, removeBuildMember, setMemberPlace,
+  buildWork, deleteBuild, findBuildRow, insertBuildEvent, kitSerialTaken, listBuildMembers, listVisibleBuilds, lockBuild,
+  removeBuildMember, renameBuildSerial, setBuildNote, setMemberPlace,
 } from './builds-repository';
 
 type BuildBody = { kitModelId: string; kitSerial: string; builderEmail: string; builderName?: string; inspectorEmail: string; inspectorName?: string };
@@ -76,13 +78,58 @@ export const buildsService = (ctx: Deps) => {
     await insertBuildEvent(tx.db, { buildId, actorId: user.id, kind: 'member_invited', detail: { name, email: p.email, place: p.place } });
   }
 
+  /** The build locked (and its travelers, when the work on them decides), with the reader's right to `action` checked on it. */
+  async function guarded(tx: Db, user: Express.User, buildId: string, actionOf: (b: { kitSerial: string }) => BuildAction) {
+    const build = await lockBuild(tx, buildId);
+    if (!build) throw notFound('build');
+    const action = actionOf(build);
+    const why = checkBuildAction(user, build, await buildWork(tx, buildId, action !== 'edit-note'), action);
+    if (why) throw why.code === 403 ? forbidden(why.message) : conflict(why.message);
+    return build;
+  }
+
   return {
     list: (user: Express.User) => listVisibleBuilds(db, user),
 
     async detail(user: Express.User, id: string) {
       const build = await summary(user, id);
       const b = (await findBuildBrief(db, id))!;
-      return { ...build, people: await people(user, id, b.organizationId), travelers: await listTravelers(db, user, { buildId: id }) };
+      const [row, work] = await Promise.all([findBuildRow(db, id), buildWork(db, id)]);
+      return {
+        ...build, note: row.note, allowedActions: allowedBuildActions(user, b, work), fixedBecause: buildWorkRefusal(work),
+        people: await people(user, id, b.organizationId), travelers: await listTravelers(db, user, { buildId: id }),
+      };
+    },
+
+    /**
+     * Corrects the build as shipped: its note at any time, its kit serial (and the travelers' serials made
+     * from it) only while no work is recorded. Each change goes into the build's events with old and new.
+     */
+    async update(user: Express.User, id: string, input: BuildChangeInput) {
+      await summary(user, id);
+      await withTransaction(pool, async (tx) => {
+        // A form sends the serial as it stands: only a different one is a change of serial.
+        const build = await guarded(tx.db, user, id, (b) => (input.kitSerial !== undefined && input.kitSerial !== b.kitSerial ? 'change-serial' : 'edit-note'));
+        if (input.kitSerial !== undefined && input.kitSerial !== build.kitSerial) {
+          if (await kitSerialTaken(tx.db, input.kitSerial, id)) throw conflict(`kit serial ${input.kitSerial} is already shipped`, { kitSerial: 'already used' });
+          await renameBuildSerial(tx.db, id, build.kitSerial, input.kitSerial);
+          await insertBuildEvent(tx.db, { buildId: id, actorId: user.id, kind: 'serial_changed', detail: { from: build.kitSerial, to: input.kitSerial } });
+        }
+        if (input.note !== undefined && input.note !== build.note) {
+          await setBuildNote(tx.db, id, input.note);
+          await insertBuildEvent(tx.db, { buildId: id, actorId: user.id, kind: 'note_changed', detail: { from: build.note, to: input.note } });
+        }
+      });
+      return this.detail(user, id);
+    },
+
+    /** Deletes a build shipped by mistake, while nothing is recorded on it: its travelers, people and invitations go with it. */
+    async remove(user: Express.User, id: string) {
+      await summary(user, id);
+      await withTransaction(pool, async (tx) => {
+        await guarded(tx.db, user, id, () => 'delete');
+        await deleteBuild(tx.db, id);
+      });
     },
 
     /**

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { couponInput } from '../../db/contracts';
+import { couponCorrectionInput, couponInput, idParam } from '../../db/contracts';
 import type { AppContext } from '../context';
 import { requireRole } from '../middleware/require-role';
 import { validateBody } from '../middleware/validate';
@@ -12,5 +12,9 @@ export function couponsRouter(ctx: AppContext): Router {
   r.get('/', async (req, res) => { res.json(await coupons.list(req.user!)); });
   r.get('/allowables', async (req, res) => { res.json(await coupons.allowables(req.user!)); });
   r.post('/', validateBody(couponInput), async (req, res) => { res.status(201).json(await coupons.create(req.user!, req.body)); });
+  r.post('/:id/corrections', validateBody(couponCorrectionInput), async (req, res) => {
+    res.status(201).json(await coupons.correct(req.user!, idParam.parse(req.params).id, req.body));
+  });
+  r.delete('/:id', async (req, res) => { await coupons.remove(req.user!, idParam.parse(req.params).id); res.status(204).end(); });
   return r;
 }

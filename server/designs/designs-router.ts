@@ -28,6 +28,7 @@ export function revisionsRouter(ctx: AppContext): Router {
   const designs = designsService(ctx.db);
   r.use(requireRole('supplier'));
   r.patch('/:id', validateBody(revisionInput), async (req, res) => { res.json(await designs.updateRevision(req.user!, idParam.parse(req.params).id, req.body)); });
+  r.delete('/:id', async (req, res) => { res.json(await designs.discard(req.user!, idParam.parse(req.params).id)); });
   r.post('/:id/publish', validateBody(publishInput), async (req, res) => { res.json(await designs.publish(req.user!, idParam.parse(req.params).id)); });
   return r;
 }

@@ -1,5 +1,5 @@
 import { and, eq } from 'drizzle-orm';
-import type { FindingCluster, PartDesignDetail, PartDesignInput, PartDesignSummary, RevisionInput } from '../../db/contracts';
+import { allowedRevisionActions, revisionActionRefusal, type FindingCluster, type PartDesignDetail, type PartDesignInput, type PartDesignSummary, type Revision, type RevisionInput } from '../../db/contracts';
 import type { Db } from '../../db';
 import { designRevisions, partDesigns } from '../../db/schema';
 import { badRequest, conflict, notFound } from '../http-error';
@@ -35,8 +35,7 @@ export const designsService = (db: Db) => {
     return revision;
   }
 
-  const frozen = (letter: string, status: string) =>
-    conflict(`revision ${letter} is ${status} and can no longer be changed: start a new revision with a change note`);
+  const frozen = (letter: string, status: 'published' | 'superseded') => conflict(revisionActionRefusal({ letter, status })!);
 
   return {
     async list(user: Express.User, kitModelId?: string): Promise<PartDesignSummary[]> {
@@ -117,10 +116,28 @@ export const designsService = (db: Db) => {
       return serialiseRevision((await findRevision(db, revisionId))!);
     },
 
+    /**
+     * Discards a draft: the revision goes, the part and its published revisions stay (a part whose only
+     * revision was the draft is left with none, ready for a new one). A published revision is refused.
+     */
+    async discard(user: Express.User, revisionId: string) {
+      const revision = await ownRevision(user, revisionId);
+      if (revision.status !== 'draft') throw frozen(revision.letter, revision.status);
+      // The status guard in the WHERE: a publish that slips in first wins, and nothing is deleted.
+      const gone = await db.delete(designRevisions)
+        .where(and(eq(designRevisions.id, revisionId), eq(designRevisions.status, 'draft'))).returning({ id: designRevisions.id });
+      if (!gone.length) throw frozen(revision.letter, 'published');
+      return detail(user, revision.partDesignId);
+    },
+
     async publish(user: Express.User, revisionId: string) {
       const revision = await ownRevision(user, revisionId);
       if (revision.status !== 'draft') throw frozen(revision.letter, revision.status);
       await db.transaction(async (tx) => {
+        // Checked again on the locked row: a discard or another publish that came first wins.
+        const [row] = await tx.select({ status: designRevisions.status }).from(designRevisions).where(eq(designRevisions.id, revisionId)).for('update');
+        if (!row) throw notFound('revision');
+        if (row.status !== 'draft') throw frozen(revision.letter, row.status);
         await tx.update(designRevisions).set({ status: 'superseded' })
           .where(and(eq(designRevisions.partDesignId, revision.partDesignId), eq(designRevisions.status, 'published')));
         await tx.update(designRevisions).set({ status: 'published', publishedAt: new Date(), publishedBy: user.id })
@@ -132,9 +149,10 @@ export const designsService = (db: Db) => {
 };
 
 type RevisionRow = NonNullable<Awaited<ReturnType<typeof findRevision>>>;
-function serialiseRevision(r: RevisionRow) {
+function serialiseRevision(r: RevisionRow): Revision {
   return {
     ...r, createdAt: r.createdAt.toISOString(), publishedAt: r.publishedAt?.toISOString() ?? null,
+    allowedActions: allowedRevisionActions(r),
   };
 }
 

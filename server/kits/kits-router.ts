@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { kitModelInput } from '../../db/contracts';
+import { idParam, kitChangeInput, kitModelInput } from '../../db/contracts';
 import type { AppContext } from '../context';
 import { requireRole } from '../middleware/require-role';
 import { validateBody } from '../middleware/validate';
@@ -11,5 +11,8 @@ export function kitsRouter(ctx: AppContext): Router {
   r.use(requireRole('supplier'));
   r.get('/', async (req, res) => { res.json(await kits.list(req.user!)); });
   r.post('/', validateBody(kitModelInput), async (req, res) => { res.status(201).json(await kits.create(req.user!, req.body)); });
+  r.get('/:id', async (req, res) => { res.json(await kits.detail(req.user!, idParam.parse(req.params).id)); });
+  r.patch('/:id', validateBody(kitChangeInput), async (req, res) => { res.json(await kits.update(req.user!, idParam.parse(req.params).id, req.body)); });
+  r.delete('/:id', async (req, res) => { await kits.remove(req.user!, idParam.parse(req.params).id); res.status(204).end(); });
   return r;
 }
