@@ -300,7 +300,7 @@ export function signOffReadiness(p: PartFacts): Readiness {
   return { ready: reasons.length === 0, reasons };
 }
 
-export const partActions = ['tick', 'step', 'raise', 'sign-off'] as const;
+export const partActions = ['tick', 'step', 'raise', 'sign-off', 'withdraw-sign-off'] as const;
 export type PartAction = (typeof partActions)[number];
 
 /** What a person may do on a part now. Sign-off needs readiness; the rest need an open part. */
@@ -310,6 +310,7 @@ export function allowedPartActions(p: PartFacts, place: BuildPlace): PartAction[
   if (open && place === 'builder') out.push('tick', 'step');
   if (checkRaise(place, !open).ok) out.push('raise');
   if (place === 'inspector' && signOffReadiness(p).ready) out.push('sign-off');
+  if (checkPartAction(p, 'withdraw-sign-off', place) === null) out.push('withdraw-sign-off');
   return out;
 }
 
@@ -331,6 +332,12 @@ export function checkPartAction(p: PartFacts, action: PartAction, place: BuildPl
       const r = signOffReadiness(p);
       return r.ready ? null : { code: 409, message: `not ready to sign off: ${r.reasons.join(', ')}` };
     }
+    // Whoever may sign a part off may take the sign-off back (with a reason, logged); the part reopens.
+    case 'withdraw-sign-off':
+      if (place !== 'inspector') return { code: 403, message: 'only an inspector of this build withdraws a sign-off' };
+      if (p.replaced) return { code: 409, message: 'this part was replaced: its record stays as it is' };
+      if (!p.signedOff) return { code: 409, message: 'this part is not signed off: there is no sign-off to withdraw' };
+      return null;
   }
 }
 

@@ -1,7 +1,8 @@
 import { z } from 'zod';
 import type { FastenerLine, PartKind } from './designs';
 import type { FindingSummary } from './findings';
-import type { BuildPlace, PartAction, Readiness, ReplacementReason } from './findings-rules';
+import { plainText } from './common';
+import { NOTE_MIN_LENGTH, type BuildPlace, type PartAction, type Readiness, type ReplacementReason } from './findings-rules';
 
 export const holeStatuses = ['pending', 'installed', 'flagged', 'held', 'reworked', 'accepted'] as const;
 export type HoleStatus = (typeof holeStatuses)[number];
@@ -14,6 +15,12 @@ export const tickHolesInput = z.object({
 export type TickHolesInput = z.infer<typeof tickHolesInput>;
 
 export const stepInput = z.object({ done: z.boolean() });
+
+/** Taking a sign-off back must say why, in the inspector's own words: it goes into the build log and the builder's mail. */
+export const withdrawSignOffInput = z.object({
+  reason: plainText('the reason', NOTE_MIN_LENGTH, 1000, 'say in a few words why the sign-off is withdrawn'),
+});
+export type WithdrawSignOffInput = z.input<typeof withdrawSignOffInput>;
 
 export const lookupInput = z.object({
   code: z.string().trim().min(4, 'enter the code from the label').max(200),
@@ -50,4 +57,45 @@ export type TravelerDetail = TravelerSummary & {
   readiness: Readiness;
   replacedBy: { id: string; serial: string } | null;
   replaces: { id: string; serial: string } | null;
+  /**
+   * Whether the reader may print this part's QR label again (mayPrintLabels, one part). Optional: a detail
+   * kept on the device from before labels could be reprinted lacks it, and then no link shows.
+   */
+  labelAllowed?: boolean;
 };
+
+// ---- QR labels ----
+
+/**
+ * Who prints labels: the kit's supplier (and an admin) a whole build's when shipping it; one part's
+ * label also its builder, to replace one lost or worn at the bench.
+ */
+export function mayPrintLabels(place: BuildPlace, isAdmin: boolean, scope: 'build' | 'part'): boolean {
+  if (isAdmin || place === 'design_authority') return true;
+  return scope === 'part' && place === 'builder';
+}
+
+/** What a label says: enough to tell the part from any other on a shelf, without the app. */
+export type PartLabel = {
+  travelerId: string; serial: string; shortCode: string; partNumber: string; partName: string; letter: string;
+  kitModelCode: string; kitModelName: string; supplierName: string; kitSerial: string;
+  url: string; qrDataUrl: string;
+};
+
+/** The label stocks we lay out for; each prints one label per page except the sheet. */
+export const labelSizes = ['sheet', '2x1in', '62mm'] as const;
+export type LabelSize = (typeof labelSizes)[number];
+export const labelSizeInfo: Record<LabelSize, { name: string; hint: string; pageCss: string; widthMm: number; heightMm: number | null }> = {
+  sheet: { name: 'Sheet', hint: 'Letter or A4 paper, as many labels a page as fit; cut them out', pageCss: 'size: auto; margin: 10mm;', widthMm: 85, heightMm: null },
+  // 2 × 1 in die-cut labels are 50.8 × 25.4 mm (common practice for small thermal label printers).
+  '2x1in': { name: '2 × 1 in', hint: 'Die-cut 2 × 1 in labels, one per label', pageCss: 'size: 2in 1in; margin: 0;', widthMm: 50.8, heightMm: 25.4 },
+  // A 62 mm continuous roll is cut to length after each label; 32 mm holds the QR and six lines.
+  '62mm': { name: '62 mm roll', hint: '62 mm continuous roll, cut after each label', pageCss: 'size: 62mm 32mm; margin: 0;', widthMm: 62, heightMm: 32 },
+};
+
+/** GET /api/travelers/labels: a whole build's labels, or one part's. */
+export const labelsQuery = z.object({
+  buildId: z.uuid({ message: 'buildId must be the id of a build' }).optional(),
+  travelerId: z.uuid({ message: 'travelerId must be the id of a part' }).optional(),
+}).refine((q) => (q.buildId ? 1 : 0) + (q.travelerId ? 1 : 0) === 1, { message: 'give either a buildId or a travelerId', path: ['buildId'] });
+export type LabelsQuery = z.infer<typeof labelsQuery>;

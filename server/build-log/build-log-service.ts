@@ -1,6 +1,6 @@
 import {
   describeHoleRuns, dispositionLabels, memberPlaceLabels, memberPlaces, type MemberPlace, expandKindFilter, findingKindLabels, findingLogKindOfAction, groupOfKind, logEntryMatches,
-  type BuildLog, type BuildLogEntry, type BuildLogKind, type BuildLogQuery,
+  type BuildLog, type BuildLogEntry, type BuildLogGroup, type BuildLogKind, type BuildLogQuery,
 } from '../../db/contracts';
 import type { AppContext } from '../context';
 import { listVisibleBuilds } from '../builds/builds-repository';
@@ -15,6 +15,8 @@ type BenchRow = Awaited<ReturnType<typeof listBenchEvents>>[number];
 type FindingRow = Awaited<ReturnType<typeof listFindingLogEvents>>[number];
 
 const BENCH_KINDS = ['holes_installed', 'holes_pending', 'step_done', 'step_undone', 'signed_off', 'part_replaced'] as const;
+/** The travelers service's event of a sign-off taken back; read with the sign-offs, shown as `other` (see describeBench). */
+const SIGN_OFF_WITHDRAWN = 'sign_off_withdrawn';
 
 const natural = (a: string, b: string) => a.localeCompare(b, undefined, { numeric: true });
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
@@ -25,7 +27,7 @@ function holesOf(detail: Record<string, unknown>): string[] {
 }
 
 /** A bench event as a sentence. The detail is free JSON written by the travelers service. */
-export function describeBench(kind: string, detail: Record<string, unknown>): { kind: BuildLogKind; text: string; holeIds?: string[] } {
+export function describeBench(kind: string, detail: Record<string, unknown>): { kind: BuildLogKind; text: string; holeIds?: string[]; note?: string; group?: BuildLogGroup } {
   switch (kind) {
     case 'holes_installed':
     case 'holes_pending': {
@@ -45,6 +47,16 @@ export function describeBench(kind: string, detail: Record<string, unknown>): { 
     }
     case 'signed_off':
       return { kind, text: 'Signed the part off: every hole and step done, no finding open.' };
+    case SIGN_OFF_WITHDRAWN: {
+      // The contract's kinds have no word of their own for it yet: listed as a bench event of the sign-off group.
+      const by = typeof detail.signedOffByName === 'string' ? ` by ${detail.signedOffByName}` : '';
+      const at = typeof detail.signedOffAt === 'string' ? ` of ${detail.signedOffAt.slice(0, 16).replace('T', ' ')} UTC` : '';
+      return {
+        kind: 'other', group: 'sign_off',
+        text: `Withdrew the sign-off${by}${at}: the part is open again. The sign-off stays in the log.`,
+        ...(typeof detail.reason === 'string' && detail.reason ? { note: detail.reason } : {}),
+      };
+    }
     case 'part_replaced': {
       const by = typeof detail.replacementSerial === 'string' ? detail.replacementSerial : 'a new part';
       const why = detail.reason === 'return_to_supplier' ? 'returned to the supplier' : 'scrapped';
@@ -106,7 +118,8 @@ function windowOf(buildId: string, q: BuildLogQuery): LogWindow {
   const knownBenchKinds: readonly string[] = BENCH_KINDS;
   return {
     buildId, travelerId: q.travelerId, from, before, knownBenchKinds,
-    benchKinds: kinds ? kinds.filter((k) => knownBenchKinds.includes(k)) : null,
+    // A withdrawal goes with the sign-offs: a filtered log never shows a sign-off without its withdrawal.
+    benchKinds: kinds ? [...kinds.filter((k) => knownBenchKinds.includes(k)), ...(kinds.includes('signed_off') ? [SIGN_OFF_WITHDRAWN] : [])] : null,
     otherBench: kinds ? kinds.includes('other') : true,
     findingKinds: kinds ? kinds.filter((k): k is FindingLogKind => k.startsWith('finding_')) : null,
     buildKinds: kinds ? kinds.filter((k) => (PEOPLE_KINDS as readonly string[]).includes(k)) : null,
@@ -137,7 +150,10 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
       const d = describeBench(r.kind, r.detail ?? {});
       keyed.push({
         sortKey: `${r.sortKey}|t|${r.id}`,
-        entry: { id: `t:${r.id}`, ...common(r), kind: d.kind, group: groupOfKind(d.kind), text: d.text, ...(d.holeIds ? { holeIds: d.holeIds } : {}) },
+        entry: {
+          id: `t:${r.id}`, ...common(r), kind: d.kind, group: d.group ?? groupOfKind(d.kind), text: d.text,
+          ...(d.holeIds ? { holeIds: d.holeIds } : {}), ...(d.note ? { note: d.note } : {}),
+        },
       });
     }
     for (const r of buildRows) {

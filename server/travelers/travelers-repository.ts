@@ -1,6 +1,6 @@
 import { and, asc, count, eq, inArray, isNull, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
-import { builds, designRevisions, findings, holes, kitModels, partDesigns, travelerSteps, travelers } from '../../db/schema';
+import { builds, designRevisions, findings, holes, kitModels, organizations, partDesigns, travelerSteps, travelers } from '../../db/schema';
 import {
   holesAwaitingInspectorStatuses, holesDoneStatuses, openFindingStatuses,
   type HoleStatus, type PartFacts, type TravelerSummary,
@@ -140,4 +140,25 @@ export async function replacementSerial(tx: Db, t: typeof travelers.$inferSelect
   const base = t.replacesId ? t.serial.replace(/-R\d+$/, '') : t.serial;
   const [{ n }] = await tx.select({ n: count() }).from(travelers).where(sql`${travelers.serial} like ${`${base}-R%`}`);
   return `${base}-R${n + 1}`;
+}
+
+/** What a QR label prints, for one part or a whole build (the caller has checked who may print). */
+export async function listLabelRows(db: Db, by: { buildId: string } | { travelerId: string }) {
+  return db.select({
+    travelerId: travelers.id, serial: travelers.serial, shortCode: travelers.shortCode, qrToken: travelers.qrToken,
+    partNumber: partDesigns.partNumber, partName: partDesigns.name, letter: designRevisions.letter,
+    kitModelCode: kitModels.code, kitModelName: kitModels.name, supplierName: organizations.name, kitSerial: builds.kitSerial,
+  }).from(travelers)
+    .innerJoin(builds, eq(builds.id, travelers.buildId))
+    .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
+    .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
+    .innerJoin(kitModels, eq(kitModels.id, partDesigns.kitModelId))
+    .innerJoin(organizations, eq(organizations.id, kitModels.organizationId))
+    .where('buildId' in by ? eq(travelers.buildId, by.buildId) : eq(travelers.id, by.travelerId))
+    .orderBy(asc(partDesigns.partNumber), asc(travelers.serial));
+}
+
+/** Clears a part's sign-off (the withdrawal's event keeps who signed and when). */
+export async function clearSignOff(tx: Db, id: string) {
+  await tx.update(travelers).set({ signedOffAt: null, signedOffBy: null }).where(eq(travelers.id, id));
 }

@@ -1,21 +1,33 @@
 import { and, asc, eq, inArray } from 'drizzle-orm';
+import QRCode from 'qrcode';
 import {
-  allowedPartActions, checkPartAction, signOffReadiness, type PartAction, type TickHolesInput, type TravelerDetail,
+  allowedPartActions, checkPartAction, mayPrintLabels, signOffReadiness,
+  type LabelsQuery, type PartAction, type PartLabel, type TickHolesInput, type TravelerDetail,
 } from '../../db/contracts';
-import { withTransaction, type Db } from '../../db';
+import { withTransaction, type Db, type Tx } from '../../db';
 import type { Pool } from 'pg';
 import { holes, travelerEvents, travelerSteps, travelers, users } from '../../db/schema';
 import { placeOnBuild } from '../builds/build-access';
-import { findTravelerBrief } from '../findings/findings-repository';
-import { badRequest, conflict, HttpError, notFound } from '../http-error';
+import type { AppContext } from '../context';
+import { findTravelerBrief, recipientsOf } from '../findings/findings-repository';
+import { badRequest, conflict, forbidden, HttpError, notFound } from '../http-error';
 import { rivetOfCallout } from '../findings/oversize-options';
+import { isLoopbackUrl } from '../network/lan';
 import { parseTravelerCode } from './codes';
 import { partOutline } from './part-outline';
-import { findTravelerParts, listTravelers, lockTraveler, readPartFacts } from './travelers-repository';
+import { signOffWithdrawnMail } from './sign-off-mail';
+import { clearSignOff, findTravelerParts, listLabelRows, listTravelers, lockTraveler, readPartFacts } from './travelers-repository';
 
 type FindingLister = (user: Express.User, filter: { travelerId: string }) => Promise<TravelerDetail['findings']>;
+/** What reaches outside: the mail queue (withdrawal notices) and the address labels and mails carry. The seed runs without. */
+type Outward = { mailQueue: AppContext['mailQueue']; publicUrl: string };
 
-export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister) => {
+export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister, outward?: Outward) => {
+  function out(): Outward {
+    if (!outward) throw new Error('travelersService was made without its mail queue and public address');
+    return outward;
+  }
+
   async function visible(user: Express.User, id: string) {
     const [summary] = await listTravelers(db, user, { id });
     if (!summary) throw notFound('traveler');
@@ -26,15 +38,19 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
    * A write to the part under its lock: the rules module decides with the part as it stands inside
    * the transaction, so a racing change either lands first or is refused here.
    */
-  async function underLock<T>(user: Express.User, id: string, action: PartAction, work: (tx: Db) => Promise<T>): Promise<T> {
+  async function underLock<T>(
+    user: Express.User, id: string, action: PartAction,
+    work: (tx: Db, locked: Awaited<ReturnType<typeof lockTraveler>>, unit: Tx) => Promise<T>,
+  ): Promise<T> {
     await visible(user, id);
-    return withTransaction(pool, async ({ db: tx }) => {
+    return withTransaction(pool, async (unit) => {
+      const tx = unit.db;
       const t = await lockTraveler(tx, id);
       const place = await placeOnBuild(tx, user, t.buildId);
       const facts = await readPartFacts(tx, t);
       const refusal = checkPartAction(facts, action, place);
       if (refusal) throw new HttpError(refusal.code, refusal.code === 403 ? 'forbidden' : 'conflict', refusal.message);
-      return work(tx);
+      return work(tx, t, unit);
     });
   }
 
@@ -68,6 +84,7 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
       signedOffAt: traveler.signedOffAt?.toISOString() ?? null, signedOffByName: signer[0]?.name ?? null,
       place, allowedActions: allowedPartActions(facts, place), readiness: signOffReadiness(facts),
       replacedBy, replaces,
+      labelAllowed: mayPrintLabels(place, user.role === 'admin', 'part'),
     };
   }
 
@@ -123,6 +140,54 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
         await tx.insert(travelerEvents).values({ travelerId: id, actorId: user.id, kind: 'signed_off', detail: {} });
       });
       return detail(user, id);
+    },
+
+    /**
+     * Takes a sign-off back: the part is open again. The sign-off's own log entry stays; the withdrawal is
+     * a new one with the reason, and every builder of the build is mailed in the same unit of work.
+     */
+    async withdrawSignOff(user: Express.User, id: string, reason: string) {
+      const { mailQueue, publicUrl } = out();
+      const part = await visible(user, id);
+      await underLock(user, id, 'withdraw-sign-off', async (tx, locked, unit) => {
+        const [signer] = locked.signedOffBy ? await tx.select({ name: users.name }).from(users).where(eq(users.id, locked.signedOffBy)) : [];
+        await clearSignOff(tx, id);
+        await tx.insert(travelerEvents).values({
+          travelerId: id, actorId: user.id, kind: 'sign_off_withdrawn',
+          detail: { reason, signedOffAt: locked.signedOffAt?.toISOString() ?? null, signedOffByName: signer?.name ?? null },
+        });
+        // One job per builder: a retry after one mail server refusal does not send the others again.
+        for (const to of await recipientsOf(tx, locked.buildId, ['builders'], user.id)) {
+          await mailQueue.enqueue(unit, {
+            message: signOffWithdrawnMail({
+              to, kitSerial: part.kitSerial, partNumber: part.partNumber, partName: part.partName, letter: part.letter, serial: part.serial,
+              actorName: user.name, reason, signedOffAt: locked.signedOffAt, link: `${publicUrl}/travelers/${id}`,
+            }),
+          });
+        }
+      });
+      return detail(user, id);
+    },
+
+    /** QR labels of a whole build (its supplier) or of one part (also its builder, to reprint a lost one). */
+    async labels(user: Express.User, q: LabelsQuery): Promise<PartLabel[]> {
+      const { publicUrl } = out();
+      // What the person may not see is not there (404) before what they may not do (403).
+      const [first] = await listTravelers(db, user, q.travelerId ? { id: q.travelerId } : { buildId: q.buildId });
+      if (!first) throw notFound(q.travelerId ? 'traveler' : 'build with parts');
+      const place = await placeOnBuild(db, user, first.buildId);
+      if (!mayPrintLabels(place, user.role === 'admin', q.travelerId ? 'part' : 'build')) {
+        throw forbidden(q.travelerId ? 'only a builder of this build or its kit supplier prints a part’s label' : 'only the kit supplier prints a whole build’s labels');
+      }
+      // A label's link must open on a phone's own camera: an address of this machine's loopback would not.
+      if (isLoopbackUrl(publicUrl)) {
+        throw conflict(`labels would carry ${publicUrl}, which a phone cannot open: start Pitchcard in network mode (npm start -- --lan) or set PUBLIC_URL to the address phones reach this machine by, then print again`);
+      }
+      const rows = await listLabelRows(db, q.travelerId ? { travelerId: q.travelerId } : { buildId: first.buildId });
+      return Promise.all(rows.map(async ({ qrToken, ...r }) => {
+        const url = `${publicUrl}/t/${qrToken}`;
+        return { ...r, url, qrDataUrl: await QRCode.toDataURL(url, { errorCorrectionLevel: 'M', margin: 2, scale: 8 }) };
+      }));
     },
   };
 };
