@@ -22,6 +22,7 @@ import { PartDrawing } from './part-drawing';
 import { pickRunEnd, planRun, runHoles, toggleHole, type RunPick } from './run-selection';
 import { StepsList } from './steps-list';
 import { TravelerHeader } from './traveler-header';
+import { WithdrawSignOff } from './withdraw-sign-off';
 import { ZonesTable } from './zones-table';
 
 export function TravelerScreen({ travelerId }: { travelerId: string }) {
@@ -49,6 +50,7 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
   const canStep = t.allowedActions.includes('step');
   const canRaise = t.allowedActions.includes('raise');
   const canSignOff = t.allowedActions.includes('sign-off');
+  const canWithdraw = t.allowedActions.includes('withdraw-sign-off');
   const [mode, setMode] = useState<'tap' | 'run'>('tap');
   const [pick, setPick] = useState<RunPick>(null);
   const [focusId, setFocusId] = useState<string | null>(null);
@@ -113,7 +115,10 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
       {t.signedOff ? (
         // Focused when it appears: the sign-off button it replaces had focus.
         <Notice tone="ok" testID="signed-off" focusOnShow={signOff.isSuccess}>
-          Signed off{t.signedOffByName ? ` by ${t.signedOffByName}` : ''}{t.signedOffAt ? ` on ${new Date(t.signedOffAt).toLocaleString()}` : ''}.
+          <Txt>
+            Signed off{t.signedOffByName ? ` by ${t.signedOffByName}` : ''}{t.signedOffAt ? ` on ${new Date(t.signedOffAt).toLocaleString()}` : ''}.
+          </Txt>
+          {canWithdraw ? <WithdrawSignOff travelerId={t.id} /> : null}
         </Notice>
       ) : null}
       <Section title="Drawing" aside={<Txt variant="small" tone="faint">Leading edge at left · stations in {units.label('length')}</Txt>}>
@@ -220,6 +225,9 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
         )}
       </Section>
       <Button label={`Build log of kit ${t.kitSerial}`} variant="quiet" onPress={() => router.push(`/builds/${t.buildId}/log`)} testID="traveler-build-log" />
+      {t.labelAllowed ? (
+        <Button label="Print this part’s label again" variant="quiet" onPress={() => router.push(`/travelers/${t.id}/label`)} testID="traveler-label" />
+      ) : null}
       {canSignOff || (t.place === 'inspector' && !t.signedOff) ? (
         <Section title="Sign-off">
           <SignOff

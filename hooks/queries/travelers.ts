@@ -1,6 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import {
-  holesAwaitingInspectorStatuses, holesDoneStatuses, type Hole, type TickHolesInput, type TravelerDetail, type TravelerSummary,
+  holesAwaitingInspectorStatuses, holesDoneStatuses, type Hole, type LabelsQuery, type PartLabel, type TickHolesInput, type TravelerDetail,
+  type TravelerSummary, type WithdrawSignOffInput,
 } from '@/db/contracts';
 import { api, ApiError } from '../api-client';
 import { queueTick, readOutbox, withPendingTicks } from '../tick-outbox';
@@ -14,6 +15,7 @@ export const travelerKeys = {
   details: () => [...travelerKeys.all, 'detail'] as const,
   detail: (id: string) => [...travelerKeys.details(), id] as const,
   lookup: (code: string) => [...travelerKeys.all, 'lookup', code] as const,
+  labels: (q: LabelsQuery) => [...travelerKeys.all, 'labels', q.buildId ?? null, q.travelerId ?? null] as const,
   /** Mutation key for ticks, so a burst of taps refetches only once, after the last one. */
   tick: (id: string) => [...travelerKeys.all, 'tick', id] as const,
 };
@@ -32,7 +34,21 @@ export const travelerQueries = {
     staleTime: 60_000,
     retry: false,
   }),
+  labels: (q: LabelsQuery) => queryOptions({
+    queryKey: travelerKeys.labels(q),
+    queryFn: ({ signal }) => {
+      const qs = q.travelerId ? `travelerId=${encodeURIComponent(q.travelerId)}` : `buildId=${encodeURIComponent(q.buildId ?? '')}`;
+      return api.get<PartLabel[]>(`/api/travelers/labels?${qs}`, signal);
+    },
+    // A refusal (loopback address, not allowed) will not change by asking again.
+    retry: false,
+  }),
 };
+
+/** QR labels of a whole build or of one part. */
+export function useLabelsQuery(q: LabelsQuery) {
+  return useQuery({ ...travelerQueries.labels(q), enabled: !!(q.buildId || q.travelerId) });
+}
 
 export function useTravelersQuery() {
   return useQuery(travelerQueries.list());
@@ -167,6 +183,22 @@ export function useTravelerSignOffMutation(travelerId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: () => api.post<TravelerDetail>(`/api/travelers/${encodeURIComponent(travelerId)}/sign-off`),
+    onSuccess: (detail) => {
+      qc.setQueryData(travelerKeys.detail(travelerId), detail);
+      return Promise.all([
+        qc.invalidateQueries({ queryKey: travelerKeys.list() }),
+        qc.invalidateQueries({ queryKey: buildKeys.all }),
+      ]);
+    },
+  });
+}
+
+/** Takes a part's sign-off back, with the inspector's reason; the answer is the part as it now stands. */
+export function useTravelerWithdrawSignOffMutation(travelerId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: WithdrawSignOffInput) =>
+      api.post<TravelerDetail>(`/api/travelers/${encodeURIComponent(travelerId)}/sign-off/withdraw`, input),
     onSuccess: (detail) => {
       qc.setQueryData(travelerKeys.detail(travelerId), detail);
       return Promise.all([
