@@ -13,6 +13,7 @@ import { TwoPane } from '@/components/ui/two-pane';
 import { useSession } from '@/hooks/use-session';
 import { shortDate } from '@/components/findings/finding-row';
 import { BuildPeopleSection } from './build-people';
+import { BuildRecordSection } from './build-record';
 
 export function BuildScreen({ buildId }: { buildId: string }) {
   const router = useRouter();
@@ -34,6 +35,7 @@ export function BuildScreen({ buildId }: { buildId: string }) {
       {role === 'supplier' ? (
         <Button label="Print QR labels" variant="secondary" onPress={() => router.push(`/builds/${b.id}/labels`)} testID="labels" />
       ) : null}
+      <BuildRecordSection b={b} />
       <Section title={`Parts (${b.travelers.length})`}>
         {b.travelers.length ? (
           <View testID="build-travelers">

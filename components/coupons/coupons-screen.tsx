@@ -11,9 +11,14 @@ import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Table, type Column, type SortState } from '@/components/ui/table';
 import { Mono, Txt } from '@/components/ui/text';
 import { TwoPane } from '@/components/ui/two-pane';
-import { useCouponAllowablesQuery, useCouponsQuery } from '@/hooks/queries/coupons';
+import { errorMessage } from '@/hooks/api-client';
+import { useCouponAllowablesQuery, useCouponDeleteMutation, useCouponsQuery } from '@/hooks/queries/coupons';
 import { useUnits } from '@/hooks/use-units';
 import { forceNumber } from '@/components/studies/study-numbers';
+import { ConfirmStep } from '@/components/designs/confirm-step';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/states';
+import { CouponCorrectionForm } from './coupon-correction';
 import { CouponForm } from './coupon-form';
 import { ALL, filterAllowances, filterCoupons, filterValues, sortCoupons, type CouponFilters, type CouponSortKey } from './coupon-groups';
 
@@ -21,6 +26,8 @@ import { ALL, filterAllowances, filterCoupons, filterValues, sortCoupons, type C
 const outcomeTone: Record<CouponOutcome, 'ink' | 'soft' | 'error'> = {
   no_deformation: 'ink', slight_deformation: 'ink', excessive_deformation: 'error', failure: 'error',
 };
+/** A corrected entry's numbers are struck through: still readable, plainly no longer in use. */
+const struck = (t: CouponTest) => (t.correctedBy ? { textDecorationLine: 'line-through' as const, opacity: 0.7 } : undefined);
 const outcomeMark: Record<CouponOutcome, string> = { no_deformation: '○', slight_deformation: '◐', excessive_deformation: '◉', failure: '✕' };
 
 export const groupTestId = (g: Pick<CouponAllowance, 'material' | 'gaugeIn' | 'rivetSpec'>) => `coupon-group-${g.material}-${g.gaugeIn}-${g.rivetSpec}`;
@@ -67,21 +74,73 @@ export function CouponsScreen() {
   const allowances = useCouponAllowablesQuery();
   const groups = useMemo(() => filterAllowances(allowances.data ?? [], filters), [allowances.data, filters]);
 
+  const [correcting, setCorrecting] = useState<CouponTest | null>(null);
+  const [deleting, setDeleting] = useState<CouponTest | null>(null);
+  const [said, setSaid] = useState<string | null>(null);
+  const remove = useCouponDeleteMutation();
+  const confirmDelete = async () => {
+    if (!deleting) return;
+    try {
+      await remove.mutateAsync(deleting.id);
+      setSaid(`Deleted the test of ${u.force(deleting.loadLb)} on ${u.length(deleting.gaugeIn)} ${deleting.material}.`);
+      setDeleting(null);
+    } catch {
+      // The error shows in the confirmation, from the mutation's own state.
+    }
+  };
+
+  /** Where the test stands in the record, and what may be done with it (from the answer's list only). */
+  const record = (t: CouponTest) => (
+    <View style={{ gap: space.xs }}>
+      {t.correctedBy ? (
+        <Txt variant="small" tone="caution" testID={`coupon-corrected-${t.id}`}>
+          ✎ Corrected {t.correctedBy.at.slice(0, 10)} by {t.correctedBy.byName}: {t.correctedBy.reason}. Kept as recorded; not used.
+        </Txt>
+      ) : t.correctionReason ? (
+        <Txt variant="small" testID={`coupon-correction-of-${t.id}`}>Correction: {t.correctionReason}</Txt>
+      ) : null}
+      {t.backs.length ? <Txt variant="small" tone="soft">May back {t.backs.join(', ')}</Txt> : null}
+      {t.allowedActions.length ? (
+        <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.sm }}>
+          {t.allowedActions.includes('correct') ? (
+            <Button label="Correct…" variant="secondary" compact onPress={() => { setCorrecting(t); setDeleting(null); setSaid(null); }} testID={`coupon-correct-${t.id}`} />
+          ) : null}
+          {t.allowedActions.includes('delete') ? (
+            <Button label="Delete…" variant="quiet" compact onPress={() => { setDeleting(t); setCorrecting(null); setSaid(null); remove.reset(); }} testID={`coupon-delete-${t.id}`} />
+          ) : null}
+        </View>
+      ) : null}
+      {deleting?.id === t.id ? (
+        <ConfirmStep
+          testID="coupon-delete-ask"
+          message={`Delete this test (${u.force(t.loadLb)}, ${couponOutcomeLabels[t.outcome].toLowerCase()})${t.correctionReason ? ' and the entries it corrected' : ''}? It leaves the record and the allowables; no published revision rests on it.`}
+          confirmLabel="Delete the test"
+          danger
+          busy={remove.isPending}
+          error={remove.error ? errorMessage(remove.error) : null}
+          onConfirm={() => void confirmDelete()}
+          onCancel={() => setDeleting(null)}
+        />
+      ) : null}
+    </View>
+  );
+
   const lu = u.label('length');
   const fu = u.label('force');
   const columns: Column<CouponTest, CouponSortKey>[] = [
     { key: 'tested', title: 'Tested', sortKey: 'tested', flex: 1.35, render: (t) => <Mono variant="small">{t.testedOn}</Mono> },
     { key: 'material', title: 'Material', sortKey: 'material', flex: 1.1, render: (t) => <Mono variant="small">{t.material}</Mono> },
-    { key: 'gauge', title: `Gauge, ${lu}`, sortKey: 'gauge', flex: 0.9, render: (t) => <Mono bold>{u.lengthNumber(t.gaugeIn)}</Mono> },
+    { key: 'gauge', title: `Gauge, ${lu}`, sortKey: 'gauge', flex: 0.9, render: (t) => <Mono bold style={struck(t)}>{u.lengthNumber(t.gaugeIn)}</Mono> },
     { key: 'width', title: `Width, ${lu}`, flex: 0.8, render: (t) => <Mono variant="small">{u.lengthNumber(t.couponWidthIn)}</Mono> },
     { key: 'rivet', title: 'Rivet', sortKey: 'rivet', flex: 1.25, render: (t) => <Mono variant="small">{t.rivetSpec}</Mono> },
-    { key: 'load', title: `Load, ${fu}`, sortKey: 'load', flex: 0.85, render: (t) => <Mono bold>{forceNumber(t.loadLb, u.system)}</Mono> },
+    { key: 'load', title: `Load, ${fu}`, sortKey: 'load', flex: 0.85, render: (t) => <Mono bold style={struck(t)} testID={`coupon-load-${t.id}`}>{forceNumber(t.loadLb, u.system)}</Mono> },
     {
       key: 'outcome', title: 'Outcome', sortKey: 'outcome', flex: 1.5, render: (t) => (
         <Txt variant="small" bold={outcomeTone[t.outcome] === 'error'} tone={outcomeTone[t.outcome]}>{outcomeMark[t.outcome]} {couponOutcomeLabels[t.outcome]}</Txt>
       ),
     },
     { key: 'note', title: 'Note', flex: 1.8, render: (t) => <Txt variant="small" tone="soft">{t.note || '–'}{t.createdByName ? ` · ${t.createdByName}` : ''}</Txt> },
+    { key: 'record', title: 'Record', flex: 1.8, render: record },
   ];
 
   const chip = (v: string, label: string) => ({ value: v, label });
@@ -134,9 +193,16 @@ export function CouponsScreen() {
             : <Allowables groups={groups} />}
         <Caution testID="coupon-caution" />
       </Section>
-      <Section title="Record a test">
-        <CouponForm />
-      </Section>
+      {said ? <Notice tone="ok" testID="coupon-change-done">{said}</Notice> : null}
+      {correcting ? (
+        <Section title={`Correct the test of ${u.force(correcting.loadLb)} on ${u.length(correcting.gaugeIn)}`}>
+          <CouponCorrectionForm key={correcting.id} test={correcting} onDone={(m) => { setCorrecting(null); setSaid(m || null); }} />
+        </Section>
+      ) : (
+        <Section title="Record a test">
+          <CouponForm />
+        </Section>
+      )}
     </>
   );
 

@@ -1,9 +1,10 @@
 import { zodResolver } from '@hookform/resolvers/zod';
+import { useRouter } from 'expo-router';
 import { useState } from 'react';
 import { useForm, type Resolver } from 'react-hook-form';
 import { View } from 'react-native';
 import type { z } from 'zod';
-import { findingKindLabels, partKindLabels, revisionInput, type FindingKind, type PartDesignDetail, type Revision, type RevisionInput, type RevisionStatus } from '@/db/contracts';
+import { findingKindLabels, partKindLabels, publishWarning, revisionInput, type FindingKind, type PartDesignDetail, type Revision, type RevisionInput, type RevisionStatus } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
 import { FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
@@ -16,9 +17,13 @@ import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/st
 import { Mono, Txt } from '@/components/ui/text';
 import { errorMessage } from '@/hooks/api-client';
 import { useSession } from '@/hooks/use-session';
-import { useDesignFindingClustersQuery, useDesignQuery, useDesignRevisionCreateMutation, useDesignRevisionPublishMutation, useDesignRevisionUpdateMutation } from '@/hooks/queries/designs';
+import {
+  useDesignFindingClustersQuery, useDesignQuery, useDesignRevisionCreateMutation, useDesignRevisionDiscardMutation, useDesignRevisionPublishMutation,
+  useDesignRevisionUpdateMutation,
+} from '@/hooks/queries/designs';
 import { shortDate } from '@/components/findings/finding-row';
 import { revisionToInput, RevisionFields } from './revision-fields';
+import { ConfirmStep } from './confirm-step';
 import { RevisionView } from './revision-view';
 
 const statusWords: Record<RevisionStatus, string> = { draft: 'Draft', published: 'Published', superseded: 'Superseded' };
@@ -59,6 +64,7 @@ function DesignBody({ d }: { d: PartDesignDetail }) {
   const draft = revisions.find((r) => r.status === 'draft');
   const published = revisions.find((r) => r.status === 'published');
   const [making, setMaking] = useState(false);
+  const router = useRouter();
   return (
     <Screen
       title={`${d.partNumber} · ${d.name}`}
@@ -66,6 +72,7 @@ function DesignBody({ d }: { d: PartDesignDetail }) {
       backTo="/catalogue"
       testID="design-screen"
     >
+      <Button label={`Kit model: ${d.kitName}`} variant="quiet" compact onPress={() => router.push(`/catalogue/kits/${d.kitModelId}`)} testID="open-kit" />
       {draft ? <DraftEditor designId={d.id} r={draft} /> : null}
       {!draft && !making ? (
         <Button label="Start a new revision" variant="secondary" onPress={() => setMaking(true)} testID="new-revision" />
@@ -115,8 +122,12 @@ function FindingClusters({ designId }: { designId: string }) {
 function DraftEditor({ designId, r }: { designId: string; r: Revision }) {
   const update = useDesignRevisionUpdateMutation(designId);
   const publish = useDesignRevisionPublishMutation(designId);
+  const discard = useDesignRevisionDiscardMutation(designId);
   const [formError, setFormError] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
+  /** Which final step is being confirmed: both are asked before the request goes. */
+  const [asking, setAsking] = useState<'publish' | 'discard' | null>(null);
+  const may = (a: Revision['allowedActions'][number]) => r.allowedActions.includes(a);
   const { control, handleSubmit, setError, formState, reset } = useForm<RevValues, unknown, RevOut>({
     resolver: baseResolver,
     mode: 'onChange',
@@ -144,6 +155,7 @@ function DraftEditor({ designId, r }: { designId: string; r: Revision }) {
     const go = async () => {
       try {
         await publish.mutateAsync(r.id);
+        setAsking(null);
       } catch (e) {
         setFormError(errorMessage(e));
       }
@@ -156,23 +168,60 @@ function DraftEditor({ designId, r }: { designId: string; r: Revision }) {
     }
   };
 
+  const onDiscard = async () => {
+    setFormError(null);
+    try {
+      await discard.mutateAsync(r.id);
+    } catch (e) {
+      setFormError(errorMessage(e));
+    }
+  };
+
   return (
     <View style={{ gap: space.xl }} testID={`revision-${r.letter}`}>
       <Sheet style={{ borderColor: colors.caution, borderWidth: 2 }}>
         <RevisionHead r={r} />
         <Txt>This draft can still change. Builders see nothing of it until it is published.</Txt>
+        {may('discard') && asking !== 'discard' ? (
+          <Button label="Discard this draft…" variant="secondary" compact onPress={() => { setAsking('discard'); setFormError(null); }} testID="discard-draft" />
+        ) : null}
+        {asking === 'discard' ? (
+          <ConfirmStep
+            testID="discard-ask"
+            message={`Discard draft revision ${r.letter}? Its edits are thrown away. ${r.letter === 'A' ? 'The part stays in the catalogue, with no revision until you start one.' : 'The published revisions of this part stay as they are.'}`}
+            confirmLabel={`Discard revision ${r.letter}`}
+            danger
+            busy={discard.isPending}
+            error={formError}
+            onConfirm={() => void onDiscard()}
+            onCancel={() => setAsking(null)}
+          />
+        ) : null}
       </Sheet>
       <RevisionFields control={control} />
       <FormTextField control={control} name="changeNote" label="Change note" hint="What changed from the last revision, and why." testID="rev-change-note" multiline />
       {formError ? <Notice tone="error" testID="revision-error">{formError}</Notice> : null}
       {saved && !formState.isDirty ? <Notice tone="ok" testID="draft-saved">Draft saved.</Notice> : null}
-      <Button label="Save draft" variant="secondary" busy={update.isPending && !publish.isPending} onPress={() => void onSave()} testID="save-draft" />
-      <Section title={`Publish revision ${r.letter}`}>
-        <Txt>Publishing freezes this revision. New builds get travelers made from it; unfinished travelers of an older revision show a notice.</Txt>
-        <Txt testID="approver">Publishing is your approval: every traveler made from revision {r.letter} names {user?.name ?? 'you'} as the approver.</Txt>
-        <View style={{ borderTopWidth: hairline, borderColor: colors.rule }} />
-        <Button label={`Publish revision ${r.letter}`} busyLabel="Publishing" busy={publish.isPending} onPress={() => void onPublish()} testID="publish" />
-      </Section>
+      {may('edit') ? <Button label="Save draft" variant="secondary" busy={update.isPending && !publish.isPending} onPress={() => void onSave()} testID="save-draft" /> : null}
+      {may('publish') ? (
+        <Section title={`Publish revision ${r.letter}`}>
+          <Txt>Publishing freezes this revision. New builds get travelers made from it; unfinished travelers of an older revision show a notice.</Txt>
+          <Txt testID="approver">Publishing is your approval: every traveler made from revision {r.letter} names {user?.name ?? 'you'} as the approver.</Txt>
+          <View style={{ borderTopWidth: hairline, borderColor: colors.rule }} />
+          {asking === 'publish' ? (
+            <ConfirmStep
+              testID="publish-ask"
+              message={publishWarning(r.letter)}
+              confirmLabel={`Approve and publish ${r.letter}`}
+              busy={publish.isPending || update.isPending}
+              onConfirm={() => void onPublish()}
+              onCancel={() => setAsking(null)}
+            />
+          ) : (
+            <Button label={`Publish revision ${r.letter}…`} onPress={() => { setAsking('publish'); setFormError(null); }} testID="publish" />
+          )}
+        </Section>
+      ) : null}
     </View>
   );
 }
@@ -196,7 +245,7 @@ function NewRevisionForm({ designId, from, onDone }: { designId: string; from?: 
   }, () => setFormError('Some fields need a look: see the messages in red.'));
   return (
     <View style={{ gap: space.xl }} testID="new-revision-form">
-      <Notice>The new revision starts as a copy of revision {from?.letter ?? '–'}. It stays a draft until you publish it.</Notice>
+      <Notice>{from ? `The new revision starts as a copy of revision ${from.letter}.` : 'The part has no revision yet: fill in the new one.'} It stays a draft until you publish it.</Notice>
       <FormTextField control={control} name="changeNote" label="Change note" hint="What changes, and why (required)." testID="rev-change-note" multiline />
       <RevisionFields control={control} />
       {formError ? <Notice tone="error" testID="revision-error">{formError}</Notice> : null}

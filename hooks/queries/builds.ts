@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { AddMemberInput, BuildDetail, BuildInput, BuildSummary, QrLabel, TravelerSummary } from '@/db/contracts';
+import type { AddMemberInput, BuildChangeInput, BuildDetail, BuildInput, BuildSummary, QrLabel, TravelerSummary } from '@/db/contracts';
 import { api, apiRequest } from '../api-client';
 
 /** The build's page: the contract's detail (its people with what the reader may do) and its parts. */
@@ -79,4 +79,27 @@ export function useBuildMemberRemoveMutation(buildId: string) {
 /** Hands the build, its log included, to another builder on it. */
 export function useBuildHandOverMutation(buildId: string) {
   return usePeopleChange(buildId, (userId: string) => api.post<BuildPage>(`${buildPath(buildId)}/owner`, { userId }));
+}
+
+/** Corrects the shipped build (note, and the serial while no work is recorded); its travelers' serials follow. */
+export function useBuildUpdateMutation(buildId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: BuildChangeInput) => api.patch<BuildPage>(buildPath(buildId), input),
+    onSuccess: (page) => {
+      qc.setQueryData(buildKeys.detail(buildId), page);
+      return Promise.all([qc.invalidateQueries({ queryKey: buildKeys.list() }), qc.invalidateQueries({ queryKey: buildKeys.labels(buildId) }), qc.invalidateQueries({ queryKey: ['travelers'] })]);
+    },
+  });
+}
+
+export function useBuildDeleteMutation(buildId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: () => apiRequest<void>(buildPath(buildId), { method: 'DELETE' }),
+    onSuccess: () => {
+      qc.removeQueries({ queryKey: buildKeys.detail(buildId) });
+      return Promise.all([qc.invalidateQueries({ queryKey: buildKeys.list() }), qc.invalidateQueries({ queryKey: ['travelers'] })]);
+    },
+  });
 }

@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { CouponAllowance, CouponInput, CouponTest } from '@/db/contracts';
-import { api } from '../api-client';
+import type { CouponAllowance, CouponCorrectionInput, CouponInput, CouponTest } from '@/db/contracts';
+import { api, apiRequest } from '../api-client';
 
 export const couponKeys = {
   all: ['coupons'] as const,
@@ -31,5 +31,23 @@ export function useCouponCreateMutation() {
       qc.setQueryData<CouponTest[]>(couponKeys.list(), (old) => (old ? [made, ...old] : old));
       return qc.invalidateQueries({ queryKey: couponKeys.all });
     },
+  });
+}
+
+/** A correction is a new entry; the old one stays in the list marked as corrected, and the allowables change. */
+export function useCouponCorrectMutation() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, input }: { id: string; input: CouponCorrectionInput }) =>
+      api.post<CouponTest>(`/api/coupons/${encodeURIComponent(id)}/corrections`, input),
+    onSuccess: () => qc.invalidateQueries({ queryKey: couponKeys.all }),
+  });
+}
+
+export function useCouponDeleteMutation() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (id: string) => apiRequest<void>(`/api/coupons/${encodeURIComponent(id)}`, { method: 'DELETE' }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: couponKeys.all }),
   });
 }

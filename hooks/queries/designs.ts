@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { FindingCluster, PartDesignDetail, PartDesignInput, PartDesignSummary, Revision, RevisionInput } from '@/db/contracts';
-import { api, qs } from '../api-client';
+import { api, apiRequest, qs } from '../api-client';
 
 export const designKeys = {
   all: ['designs'] as const,
@@ -73,5 +73,17 @@ export function useDesignRevisionPublishMutation(designId: string) {
     // Publishing is the approval: the server names the signed-in supplier as the approver.
     mutationFn: (revisionId: string) => api.post<Revision>(`/api/revisions/${encodeURIComponent(revisionId)}/publish`, {}),
     onSuccess: () => qc.invalidateQueries({ queryKey: designKeys.all }),
+  });
+}
+
+/** Discards the draft: the answer is the design as it now stands (its published revisions kept). */
+export function useDesignRevisionDiscardMutation(designId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (revisionId: string) => apiRequest<PartDesignDetail>(`/api/revisions/${encodeURIComponent(revisionId)}`, { method: 'DELETE' }),
+    onSuccess: (detail) => {
+      qc.setQueryData(designKeys.detail(designId), detail);
+      return qc.invalidateQueries({ queryKey: designKeys.lists() });
+    },
   });
 }
