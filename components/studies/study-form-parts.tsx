@@ -23,6 +23,18 @@ import { gaugeKey, gaugeLabel, RIVET_FAMILIES, STOCK_GAUGES_IN, STUDY_MATERIALS,
  * those at different paths take the path. testIDs start with the form's prefix ("study", "wing").
  */
 
+/** What a study form takes, the rib's and the wing's: `V` the values it holds, `O` what it sends. */
+export type StudyFormProps<V, O> = {
+  kits: KitModel[];
+  defaultValues: V;
+  isNew: boolean;
+  submitLabel: string;
+  /** Sends the study; throws the server's error, which the form puts on its fields. */
+  onSubmit: (values: O) => Promise<void>;
+  /** Said above the button, e.g. that an earlier revision is on show. */
+  note?: React.ReactNode;
+};
+
 /**
  * The head of a study's form: its name and kit model, then the aircraft's numbers and the airfoil
  * (`inputs.kit`, `inputs.airfoil`: the same blocks in a rib and a wing study).

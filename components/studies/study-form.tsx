@@ -11,7 +11,7 @@ import { Section } from '@/components/ui/sheet';
 import { Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
 import { Cell, Row } from './kit-fields';
-import { FastenerLinesSection, GaugeChips, MaterialField, RivetChips, ScheduleFields, StudyBasics } from './study-form-parts';
+import { FastenerLinesSection, GaugeChips, MaterialField, RivetChips, ScheduleFields, StudyBasics, type StudyFormProps } from './study-form-parts';
 import { kitIntoStudy, studyFieldFor, type StudyFormValues } from './study-form-values';
 import { useStudySubmit } from './use-study-submit';
 
@@ -19,16 +19,7 @@ export type StudyOutput = z.output<typeof ribStudyForm>;
 
 const resolver = zodResolver(ribStudyForm, plainParse);
 
-type Props = {
-  kits: KitModel[];
-  defaultValues: StudyFormValues;
-  isNew: boolean;
-  submitLabel: string;
-  /** Sends the study; throws the server's error, which the form puts on its fields. */
-  onSubmit: (values: StudyOutput) => Promise<void>;
-  /** Said above the button, e.g. that an earlier revision is on show. */
-  note?: React.ReactNode;
-};
+type Props = StudyFormProps<StudyFormValues, StudyOutput>;
 
 /** The load study's inputs: kit data, airfoil, rib, fastener lines, material and candidates, settings. */
 export function StudyForm({ kits, defaultValues, isNew, submitLabel, onSubmit, note }: Props) {

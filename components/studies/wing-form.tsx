@@ -17,7 +17,7 @@ import { Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
 import { Cell, Row } from './kit-fields';
-import { FastenerLinesSection, GaugeChips, MaterialField, RivetChips, ScheduleFields, StudyBasics } from './study-form-parts';
+import { FastenerLinesSection, GaugeChips, MaterialField, RivetChips, ScheduleFields, StudyBasics, type StudyFormProps } from './study-form-parts';
 import type { StudyFormValues } from './study-form-values';
 import { useStudySubmit } from './use-study-submit';
 import {
@@ -28,15 +28,7 @@ export type WingOutput = z.output<typeof wingStudyBody>;
 
 const resolver = zodResolver(wingStudyBody, plainParse);
 
-type Props = {
-  kits: KitModel[];
-  defaultValues: WingFormValues;
-  isNew: boolean;
-  submitLabel: string;
-  /** Sends the study; throws the server's error, which the form puts on its fields. */
-  onSubmit: (values: WingOutput) => Promise<void>;
-  note?: React.ReactNode;
-};
+type Props = StudyFormProps<WingFormValues, WingOutput>;
 
 /**
  * The whole-wing study's inputs: kit data, airfoil, planform and tail, the ribs root to tip, what every
