@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray } from 'drizzle-orm';
+import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import QRCode from 'qrcode';
 import {
   allowedPartActions, checkPartAction, mayPrintLabels, signOffReadiness,
@@ -17,6 +17,12 @@ import { parseTravelerCode } from './codes';
 import { partOutline } from './part-outline';
 import { signOffWithdrawnMail } from './sign-off-mail';
 import { clearSignOff, findTravelerParts, listLabelRows, listTravelers, lockTraveler, readPartFacts } from './travelers-repository';
+
+/**
+ * When a bench event happened: the moment it is written, under the part's lock. The column's default is
+ * the transaction's start, which puts a write that waited for the lock before the one it waited for.
+ */
+const underLockNow = () => sql`clock_timestamp()`;
 
 type FindingLister = (user: Express.User, filter: { travelerId: string }) => Promise<TravelerDetail['findings']>;
 /** What reaches outside: the mail queue (withdrawal notices) and the address labels and mails carry. The seed runs without. */
@@ -116,7 +122,7 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
           .where(and(eq(holes.travelerId, id), inArray(holes.holeId, ids), eq(holes.status, from)))
           .returning({ holeId: holes.holeId, line: holes.line, seq: holes.seq, stationIn: holes.stationIn, status: holes.status });
         if (changed.length) {
-          await tx.insert(travelerEvents).values({ travelerId: id, actorId: user.id, kind: `holes_${input.status}`, detail: { holeIds: changed.map((c) => c.holeId) } });
+          await tx.insert(travelerEvents).values({ travelerId: id, actorId: user.id, createdAt: underLockNow(), kind: `holes_${input.status}`, detail: { holeIds: changed.map((c) => c.holeId) } });
         }
         const all = rows.map((r) => changed.find((c) => c.holeId === r.holeId) ?? { holeId: r.holeId, line: r.line, seq: r.seq, stationIn: r.stationIn, status: r.status });
         return { holes: all };
@@ -128,7 +134,7 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
         const [step] = await tx.update(travelerSteps).set(done ? { doneAt: new Date(), doneBy: user.id } : { doneAt: null, doneBy: null })
           .where(and(eq(travelerSteps.id, stepId), eq(travelerSteps.travelerId, id))).returning();
         if (!step) throw notFound('step');
-        await tx.insert(travelerEvents).values({ travelerId: id, actorId: user.id, kind: done ? 'step_done' : 'step_undone', detail: { seq: step.seq, text: step.text } });
+        await tx.insert(travelerEvents).values({ travelerId: id, actorId: user.id, createdAt: underLockNow(), kind: done ? 'step_done' : 'step_undone', detail: { seq: step.seq, text: step.text } });
         return { id: step.id, seq: step.seq, text: step.text, doneAt: step.doneAt?.toISOString() ?? null, doneByName: done ? user.name : null };
       });
     },
@@ -137,7 +143,7 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
     async signOff(user: Express.User, id: string) {
       await underLock(user, id, 'sign-off', async (tx) => {
         await tx.update(travelers).set({ signedOffAt: new Date(), signedOffBy: user.id }).where(eq(travelers.id, id));
-        await tx.insert(travelerEvents).values({ travelerId: id, actorId: user.id, kind: 'signed_off', detail: {} });
+        await tx.insert(travelerEvents).values({ travelerId: id, actorId: user.id, createdAt: underLockNow(), kind: 'signed_off', detail: {} });
       });
       return detail(user, id);
     },
@@ -153,7 +159,7 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
         const [signer] = locked.signedOffBy ? await tx.select({ name: users.name }).from(users).where(eq(users.id, locked.signedOffBy)) : [];
         await clearSignOff(tx, id);
         await tx.insert(travelerEvents).values({
-          travelerId: id, actorId: user.id, kind: 'sign_off_withdrawn',
+          travelerId: id, actorId: user.id, createdAt: underLockNow(), kind: 'sign_off_withdrawn',
           detail: { reason, signedOffAt: locked.signedOffAt?.toISOString() ?? null, signedOffByName: signer?.name ?? null },
         });
         // One job per builder: a retry after one mail server refusal does not send the others again.
