@@ -28,8 +28,15 @@ function headline(f: FindingMailFacts): string {
   }
 }
 
+/**
+ * The Content-ID the photo is attached under and the HTML names it by. Many mail clients hide a data:
+ * image, but show an inline part named by cid:; the finding's id keeps it unique, as RFC 2392 asks.
+ */
+export const holePhotoCid = (findingId: string) => `hole-${findingId}@pitchcard`;
+
 /** The message for one step of a finding's life, for whoever must act next. */
 export function findingMail(f: FindingMailFacts) {
+  const cid = holePhotoCid(f.findingId);
   const holes = f.holeIds.join(', ');
   const what = headline(f);
   const subject = `[${f.kitSerial}] ${f.partNumber} rev ${f.letter} hole ${holes}: ${what}`;
@@ -57,10 +64,11 @@ export function findingMail(f: FindingMailFacts) {
 <p>Hole <code>${esc(holes)}</code> — ${esc(findingKindLabels[f.kind])}, by ${esc(f.actorName)}</p>
 ${f.note ? `<p>${esc(f.note)}</p>` : ''}
 ${f.action === 'disposition' || f.action === 'amend' ? repair.map((l) => `<p>${esc(l)}</p>`).join('\n') : ''}
-${f.thumbnail ? '<p><img src="cid:thumb" alt="photo of the hole" width="240"></p>' : ''}
+${f.thumbnail ? `<p><img src="cid:${esc(cid)}" alt="photo of the hole" width="240"></p>` : ''}
 <p><a href="${esc(f.link)}">Open the finding</a></p></div>`;
   return {
     subject, text: lines.join('\n'), html,
-    attachments: f.thumbnail ? [{ filename: 'hole.jpg', content: f.thumbnail, cid: 'thumb', contentType: 'image/jpeg' }] : [],
+    // contentDisposition inline: shown in the text where the HTML names it, not listed as a file to open.
+    attachments: f.thumbnail ? [{ filename: 'hole.jpg', content: f.thumbnail, cid, contentType: 'image/jpeg', contentDisposition: 'inline' as const }] : [],
   };
 }
