@@ -1,10 +1,10 @@
-import { useRef } from 'react';
+import { Children, isValidElement, useRef } from 'react';
 import { ActivityIndicator, StyleSheet, View } from 'react-native';
 import { colors, hairline, space } from '@/constants/theme';
 import { ApiError, errorMessage } from '@/hooks/api-client';
 import { Button } from './button';
 import { useFocusOnMount } from './focus';
-import { Txt } from './text';
+import { Mono, Txt } from './text';
 
 export function LoadingState({ what = 'Loading' }: { what?: string }) {
   return (
@@ -40,6 +40,18 @@ export function EmptyState({ title, body, action }: { title: string; body?: stri
  * A one-line message inside a form or a section (not a whole screen). `focusOnShow` moves focus to it
  * when it appears: the answer to what the person just did (a failed sign-in), where they read on from.
  */
+/**
+ * Plain words, however JSX split them: "Signed off{by ? ` by ${by}` : ''}." is an array of strings, and
+ * outside a Txt it fell to the browser's serif face.
+ */
+function isWords(children: React.ReactNode): boolean {
+  const kids = Children.toArray(children);
+  const word = (c: unknown) => typeof c === 'string' || typeof c === 'number';
+  // Words with a value set inline ("replaces serial <Mono>…</Mono>") are one line of text too.
+  const inline = (c: unknown) => isValidElement(c) && (c.type === Mono || c.type === Txt);
+  return kids.some(word) && kids.every((c) => word(c) || inline(c));
+}
+
 export function Notice({ tone = 'info', children, testID, focusOnShow }: {
   tone?: 'info' | 'error' | 'ok' | 'caution'; children: React.ReactNode; testID?: string; focusOnShow?: boolean;
 }) {
@@ -55,7 +67,7 @@ export function Notice({ tone = 'info', children, testID, focusOnShow }: {
       accessibilityLiveRegion="polite"
       style={[styles.notice, { borderLeftColor: c, backgroundColor: bg }]}
     >
-      {typeof children === 'string' ? <Txt tone={tone === 'error' ? 'error' : 'ink'}>{children}</Txt> : children}
+      {isWords(children) ? <Txt tone={tone === 'error' ? 'error' : 'ink'}>{children}</Txt> : children}
     </View>
   );
 }

@@ -132,7 +132,8 @@ const styles = StyleSheet.create({
   phoneRow: { paddingVertical: space.md, paddingHorizontal: space.xs, gap: space.xs },
   phoneCell: { flexDirection: 'row', alignItems: 'baseline', gap: space.sm },
   sep: { height: hairline, backgroundColor: colors.rule },
-  sortBtn: { minHeight: 40, justifyContent: 'center' },
+  // 48 px like every other control: a sort header is tapped by a gloved hand on a wide tablet too.
+  sortBtn: { minHeight: touch, minWidth: touch, justifyContent: 'center' },
   sortOn: {},
   phoneSort: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap', paddingBottom: space.sm, borderBottomWidth: 2, borderBottomColor: colors.ink },
   phoneSortBtn: { minHeight: touch, paddingHorizontal: space.md, borderWidth: hairline, borderColor: colors.rule, backgroundColor: colors.paperRaised },

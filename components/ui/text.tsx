@@ -62,7 +62,9 @@ export function Mono({ variant = 'body', bold, tone = 'ink', align, style, child
   wrap?: boolean;
 }) {
   const text = plain(children);
-  const whole = !wrap && rest.numberOfLines == null && text !== null && text.length <= TOKEN_MAX;
+  // An address (e-mail or link) is no value read at a glance, and a phone's row may be narrower than it.
+  const address = text !== null && (text.includes('@') || text.includes('://'));
+  const whole = !wrap && !address && rest.numberOfLines == null && text !== null && text.length <= TOKEN_MAX;
   return (
     <Text
       {...rest}
