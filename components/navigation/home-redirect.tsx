@@ -2,6 +2,7 @@ import { useFocusEffect, useRouter, type Href } from 'expo-router';
 import { useCallback } from 'react';
 import type { Role } from '@/db/contracts';
 import { useSession } from '@/hooks/use-session';
+import { mayOpenPath } from './role-tabs';
 
 export const homeFor: Record<Role, Href> = {
   builder: '/bench',
@@ -23,8 +24,10 @@ export function HomeRedirect() {
   const role = user?.role ?? null;
   useFocusEffect(
     useCallback(() => {
+      // A link to another role's page (the last page of whoever used this browser before) is dropped.
       const pending = takePendingHref();
-      router.replace((pending ?? (role ? homeFor[role] : '/sign-in')) as Href);
+      const usable = pending && role && mayOpenPath(role, pending) ? pending : null;
+      router.replace((usable ?? (role ? homeFor[role] : '/sign-in')) as Href);
     }, [router, role, takePendingHref]),
   );
   return null;

@@ -1,4 +1,4 @@
-import type { SessionUser } from '@/db/contracts';
+import type { Role, SessionUser } from '@/db/contracts';
 import type { TabGlyph } from './tab-icon';
 
 export type Tab = { name: string; title: string; glyph: TabGlyph; testID: string };
@@ -47,3 +47,30 @@ export function tabsFor(user: Pick<SessionUser, 'role' | 'lead'> | null): Tab[] 
 // opens from a supplier's account page.
 export const allTabRoutes = ['index', 'bench', 'travelers', 'findings', 'catalogue', 'studies', 'coupons', 'builds', 'people', 'account', 'phone'] as const;
 
+
+export type AppRoute = (typeof allTabRoutes)[number];
+
+/**
+ * Pages that are no part of a role's work: opened by a link or a previous person's last page, they only
+ * answered "only a supplier may do this", or showed the admin builds "you inspect". Such a page is
+ * closed to the role, and the person lands on their own first page instead. Pages other roles reach by
+ * a link in their work (a build, a part, the phones set-up) stay open; the server checks every request.
+ */
+const closedTo: Record<Role, readonly AppRoute[]> = {
+  builder: ['catalogue', 'studies', 'coupons'],
+  inspector: ['catalogue', 'studies', 'coupons'],
+  supplier: [],
+  // The admin keeps people, organisations and phones; the shop's work is the other roles'.
+  admin: ['bench', 'travelers', 'findings', 'catalogue', 'studies', 'coupons', 'builds'],
+};
+
+export function mayOpen(role: Role | null | undefined, route: AppRoute): boolean {
+  return !role || !closedTo[role].includes(route);
+}
+
+/** Whether a path inside the app (a pending link) is a page the role works on; its first segment decides. */
+export function mayOpenPath(role: Role | null | undefined, path: string): boolean {
+  const first = path.split(/[?#]/)[0].split('/').find((seg) => seg && !/^\(.*\)$/.test(seg));
+  const route = (allTabRoutes as readonly string[]).find((r) => r === first) as AppRoute | undefined;
+  return route ? mayOpen(role, route) : true;
+}
