@@ -21,7 +21,7 @@ import { ApiError, errorMessage } from '@/hooks/api-client';
 import { PhotoReadError, type DraftPhoto } from '@/hooks/photo-form-data';
 import { useFindingActionMutation, useRepairCheckQuery } from '@/hooks/queries/findings';
 import { useUnits } from '@/hooks/use-units';
-import { maxPhotos, pickPhotos, PhotoPicker } from './photo-picker';
+import { maxPhotos, photoRefusal, pickPhotos, PhotoPicker } from './photo-picker';
 import { alternativeWords, oversizeChoices } from './repair-check-panel';
 import { VerdictMark } from './verdict-mark';
 
@@ -167,6 +167,13 @@ export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (acti
           setFormError('No connection, so nothing was sent. What you wrote is still here: send it again when you have signal.');
           return;
         }
+        // A refused photo is said once, under the photos; the line by the buttons only points there.
+        const refused = photoRefusal(e);
+        if (refused) {
+          setPhotoError(refused);
+          setFormError('Not sent: a photo was refused (see the photos). What you wrote is still here.');
+          return;
+        }
         if (e instanceof ApiError && e.fields?.overrideReason) setAskOverride(true);
         setFormError(applyServerErrors(setError, e, (path) => {
           if (path === 'photos' || path.startsWith('photos.')) {
@@ -182,8 +189,8 @@ export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (acti
   const addPhotos = async (from: 'library' | 'camera') => {
     setPhotoError(null);
     const r = await pickPhotos(from, maxPhotos - photos.length);
-    if ('error' in r) setPhotoError(r.error);
-    else if (r.length) setPhotos((p) => [...p, ...r].slice(0, maxPhotos));
+    setPhotoError(r.error);
+    if (r.photos.length) setPhotos((p) => [...p, ...r.photos].slice(0, maxPhotos));
   };
 
   return (

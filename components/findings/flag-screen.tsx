@@ -31,7 +31,7 @@ import { setFlash } from '@/hooks/use-flash';
 import { useWide } from '@/hooks/use-wide';
 import { basisOfTraveler } from './measure-basis';
 import { MeasurementJudgement } from './measurement-line';
-import { maxPhotos, pickPhotos, PhotoPicker } from './photo-picker';
+import { maxPhotos, photoRefusal, pickPhotos, PhotoPicker } from './photo-picker';
 import { shortDate } from './finding-row';
 
 type Values = z.input<typeof findingInput>;
@@ -202,8 +202,8 @@ function FlagForm({ t, initialHoleIds }: { t: TravelerDetail; initialHoleIds: st
   const add = async (from: 'library' | 'camera') => {
     setPhotoError(null);
     const r = await pickPhotos(from, maxPhotos - photos.length);
-    if ('error' in r) setPhotoError(r.error);
-    else if (r.length) setPhotos((p) => [...p, ...r].slice(0, maxPhotos));
+    setPhotoError(r.error);
+    if (r.photos.length) setPhotos((p) => [...p, ...r.photos].slice(0, maxPhotos));
   };
 
   const startOver = async () => {
@@ -238,6 +238,13 @@ function FlagForm({ t, initialHoleIds }: { t: TravelerDetail; initialHoleIds: st
         setFormError({ text: 'No connection, so the finding was not sent. It is kept on this device: send it again when you have signal.', kept: true });
         return;
       }
+      // A refused photo is said once, under the photos; the line by the button only points there.
+      const refused = photoRefusal(e);
+      if (refused) {
+        setPhotoError(refused);
+        setFormError({ text: 'Not sent: a photo was refused (see Photos). Your finding is still here.', kept: true });
+        return;
+      }
       const text = applyServerErrors(setError, e, (path) => {
         if (path.startsWith('photos')) {
           setPhotoError(e instanceof ApiError ? e.fields?.[path] ?? e.message : null);
@@ -246,7 +253,6 @@ function FlagForm({ t, initialHoleIds }: { t: TravelerDetail; initialHoleIds: st
         if (path.startsWith('measurements.')) return path;
         return ['holeIds', 'kind', 'note'].some((f) => path === f || path.startsWith(`${f}.`)) ? path.split('.')[0] : null;
       });
-      if (e instanceof ApiError && (e.status === 413 || e.status === 415)) setPhotoError(e.message);
       setFormError({ text: `Not sent. ${text} Your finding is still here.`, kept: true });
     }
   }, (errors) => {

@@ -19,7 +19,9 @@ export async function processPhoto(bytes: Buffer, originalName: string): Promise
     format = undefined;
   }
   if (!format || !ACCEPTED.has(format)) {
-    throw new HttpError(415, 'not_an_image', `"${originalName}" is not a photo (JPEG, PNG, WebP or HEIC)`, { photos: 'not an image' });
+    // One sentence, said once: the field carries the same words rather than a second way of saying them.
+    const said = `"${originalName}" is not a photo: send a JPEG, PNG, WebP or HEIC image`;
+    throw new HttpError(415, 'not_an_image', said, { photos: said });
   }
   // rotate() applies the EXIF orientation before the metadata is dropped.
   const base = sharp(bytes, { limitInputPixels: 80_000_000 }).rotate();
