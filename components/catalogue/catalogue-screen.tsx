@@ -46,7 +46,12 @@ function KitBlock({ kit, designs }: { kit: KitModel; designs: PartDesignSummary[
     <Section
       title={`${kit.code} · ${kit.name}`}
       testID={`kit-${kit.code}`}
-      aside={<Button label="New part design" variant="quiet" compact onPress={() => router.push(`/catalogue/designs/new?kitModelId=${kit.id}`)} testID={`new-design-${kit.code}`} />}
+      aside={
+        <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.xs }}>
+          <Button label="Kit model…" variant="quiet" compact onPress={() => router.push(`/catalogue/kits/${kit.id}`)} testID={`kit-page-${kit.code}`} />
+          <Button label="New part design" variant="quiet" compact onPress={() => router.push(`/catalogue/designs/new?kitModelId=${kit.id}`)} testID={`new-design-${kit.code}`} />
+        </View>
+      }
     >
       <Txt variant="small" tone="soft">
         <Mono variant="small">{u.mass(kit.weightLb)}</Mono> gross · wing <Mono variant="small">{u.area(kit.wingAreaSqFt)}</Mono> · stall <Mono variant="small">{kit.stallSpeedKeas} KEAS</Mono> · {kit.airfoil} · {kit.category}

@@ -7,7 +7,7 @@ import type { Role } from './common';
  * as plain sentences. The screen, the CSV and the PDF all read the same entries.
  */
 export const buildLogKinds = [
-  'holes_installed', 'holes_pending', 'step_done', 'step_undone', 'signed_off', 'part_replaced',
+  'holes_installed', 'holes_pending', 'step_done', 'step_undone', 'signed_off', 'sign_off_withdrawn', 'part_replaced',
   'finding_raised', 'finding_dispositioned', 'finding_approval', 'finding_work_done', 'finding_sent_back', 'finding_closed',
   'member_added', 'member_invited', 'member_joined', 'member_removed', 'owner_changed',
   /** A bench event of a kind this version does not know yet: still listed, never dropped. */
@@ -23,14 +23,14 @@ export const buildLogGroupLabels: Record<BuildLogGroup, string> = { bench: 'Benc
 
 export const buildLogKindLabels: Record<BuildLogKind, string> = {
   holes_installed: 'Holes installed', holes_pending: 'Holes back to pending', step_done: 'Step done', step_undone: 'Step undone',
-  signed_off: 'Signed off', part_replaced: 'Part replaced', finding_raised: 'Finding raised',
+  signed_off: 'Signed off', sign_off_withdrawn: 'Sign-off withdrawn', part_replaced: 'Part replaced', finding_raised: 'Finding raised',
   finding_dispositioned: 'Dispositioned', finding_approval: 'Design authority', finding_work_done: 'Work done',
   finding_sent_back: 'Work sent back', finding_closed: 'Finding closed', member_added: 'Person added', member_invited: 'Person invited',
   member_joined: 'Person joined', member_removed: 'Person removed', owner_changed: 'Build handed over', other: 'Bench event',
 };
 
 export function groupOfKind(kind: BuildLogKind): BuildLogGroup {
-  if (kind === 'signed_off') return 'sign_off';
+  if (kind === 'signed_off' || kind === 'sign_off_withdrawn') return 'sign_off';
   if (kind.startsWith('member_') || kind === 'owner_changed') return 'people';
   return kind.startsWith('finding_') ? 'findings' : 'bench';
 }

@@ -14,9 +14,7 @@ type Deps = Pick<AppContext, 'db' | 'signer' | 'storage'>;
 type BenchRow = Awaited<ReturnType<typeof listBenchEvents>>[number];
 type FindingRow = Awaited<ReturnType<typeof listFindingLogEvents>>[number];
 
-const BENCH_KINDS = ['holes_installed', 'holes_pending', 'step_done', 'step_undone', 'signed_off', 'part_replaced'] as const;
-/** The travelers service's event of a sign-off taken back; read with the sign-offs, shown as `other` (see describeBench). */
-const SIGN_OFF_WITHDRAWN = 'sign_off_withdrawn';
+const BENCH_KINDS = ['holes_installed', 'holes_pending', 'step_done', 'step_undone', 'signed_off', 'sign_off_withdrawn', 'part_replaced'] as const;
 
 const natural = (a: string, b: string) => a.localeCompare(b, undefined, { numeric: true });
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
@@ -47,12 +45,11 @@ export function describeBench(kind: string, detail: Record<string, unknown>): { 
     }
     case 'signed_off':
       return { kind, text: 'Signed the part off: every hole and step done, no finding open.' };
-    case SIGN_OFF_WITHDRAWN: {
-      // The contract's kinds have no word of their own for it yet: listed as a bench event of the sign-off group.
+    case 'sign_off_withdrawn': {
       const by = typeof detail.signedOffByName === 'string' ? ` by ${detail.signedOffByName}` : '';
       const at = typeof detail.signedOffAt === 'string' ? ` of ${detail.signedOffAt.slice(0, 16).replace('T', ' ')} UTC` : '';
       return {
-        kind: 'other', group: 'sign_off',
+        kind,
         text: `Withdrew the sign-off${by}${at}: the part is open again. The sign-off stays in the log.`,
         ...(typeof detail.reason === 'string' && detail.reason ? { note: detail.reason } : {}),
       };
@@ -101,6 +98,10 @@ export function describeBuildEvent(kind: string, detail: Record<string, unknown>
     case 'member_invited': return { kind, text: `Invited ${name} by mail to join the build as ${place}.` };
     case 'member_joined': return { kind, text: `${name} joined the build as ${place}.` };
     case 'member_removed': return { kind, text: `Took ${name} (${place}) off the build.` };
+    case 'serial_changed':
+      return { kind: 'other', text: `Changed the kit serial${typeof detail.from === 'string' ? ` from ${detail.from}` : ''} to ${typeof detail.to === 'string' ? detail.to : 'a new one'} (before any work was recorded).` };
+    case 'note_changed':
+      return { kind: 'other', text: typeof detail.to === 'string' && detail.to ? `Changed the build's note to: ${detail.to}` : "Cleared the build's note." };
     case 'owner_changed': return { kind, text: `Handed the build${typeof detail.from === 'string' ? ` from ${detail.from}` : ''} to ${typeof detail.to === 'string' ? detail.to : 'a new owner'}, with its whole log.` };
     default: return { kind: 'other', text: `Recorded a change to the build (${kind.replace(/_/g, ' ')}).` };
   }
@@ -119,7 +120,7 @@ function windowOf(buildId: string, q: BuildLogQuery): LogWindow {
   return {
     buildId, travelerId: q.travelerId, from, before, knownBenchKinds,
     // A withdrawal goes with the sign-offs: a filtered log never shows a sign-off without its withdrawal.
-    benchKinds: kinds ? [...kinds.filter((k) => knownBenchKinds.includes(k)), ...(kinds.includes('signed_off') ? [SIGN_OFF_WITHDRAWN] : [])] : null,
+    benchKinds: kinds ? [...new Set([...kinds.filter((k) => knownBenchKinds.includes(k)), ...(kinds.includes('signed_off') ? ['sign_off_withdrawn'] : [])])] : null,
     otherBench: kinds ? kinds.includes('other') : true,
     findingKinds: kinds ? kinds.filter((k): k is FindingLogKind => k.startsWith('finding_')) : null,
     buildKinds: kinds ? kinds.filter((k) => (PEOPLE_KINDS as readonly string[]).includes(k)) : null,

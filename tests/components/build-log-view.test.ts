@@ -73,7 +73,7 @@ describe('the build log view', () => {
   });
 
   it('reads a kind family as its kinds', () => {
-    expect(expandKindFilter(['sign_off'])).toEqual(['signed_off']);
+    expect(expandKindFilter(['sign_off'])).toEqual(['signed_off', 'sign_off_withdrawn']);
     expect(expandKindFilter(['bench'])).toEqual(['holes_installed', 'holes_pending', 'step_done', 'step_undone', 'part_replaced', 'other']);
     expect(expandKindFilter(['findings', 'finding_raised'])).toHaveLength(6);
   });

@@ -104,6 +104,8 @@ describe('the loop in a real browser at phone size', () => {
     await page.getByTestId('submit-design').click();
     await page.getByTestId('design-screen').waitFor({ timeout: 15000 });
     await page.getByTestId('publish').click();
+    // Publishing is the approval and cannot be undone: the screen asks first.
+    await page.getByTestId('publish-ask-confirm').click();
     await page.getByTestId('revision-A-approved').waitFor({ timeout: 15000 });
     expect(await page.getByTestId('revision-A-approved').textContent()).toContain(DEMO_USERS.supplier.name);
     // Published means frozen: no draft fields remain to edit.

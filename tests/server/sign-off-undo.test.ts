@@ -93,7 +93,7 @@ describe('withdrawing a sign-off', () => {
     const withdrawal = log.find((e) => e.text.startsWith('Withdrew the sign-off'));
     const signOffEntry = log.find((e) => e.kind === 'signed_off');
     expect(signOffEntry).toBeDefined();
-    expect(withdrawal).toMatchObject({ group: 'sign_off', note: REASON, actorName: expect.any(String) });
+    expect(withdrawal).toMatchObject({ kind: 'sign_off_withdrawn', group: 'sign_off', note: REASON, actorName: expect.any(String) });
     expect(log.indexOf(withdrawal!)).toBeLessThan(log.indexOf(signOffEntry!)); // newest first
     // Filtering by sign-off shows both: a sign-off is never shown without its withdrawal.
     const filtered = await logOf(p, { kind: 'sign_off' });
@@ -109,7 +109,7 @@ describe('withdrawing a sign-off', () => {
 
     // The part can be signed off again, and that is a third entry.
     expect((await request(t.app).post(`/api/travelers/${p.id}/sign-off`).set(auth(tok.inspector))).status).toBe(200);
-    expect((await logOf(p, { kind: 'sign_off' })).map((e) => e.kind)).toEqual(['signed_off', 'other', 'signed_off']);
+    expect((await logOf(p, { kind: 'sign_off' })).map((e) => e.kind)).toEqual(['signed_off', 'sign_off_withdrawn', 'signed_off']);
   });
 
   it(`a double submit withdraws once under the part's lock: one entry, one mail (${ROUNDS} rounds)`, async () => {
