@@ -1,7 +1,12 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../api-client';
 
-export type DevMail = { id: string; from: string; to: string[]; subject: string; text: string; html: string; receivedAt: string };
+export type DevMailPart = { cid: string | null; filename: string | null; contentType: string; disposition: string | null; size: number };
+export type DevMail = {
+  id: string; from: string; to: string[]; subject: string; text: string; receivedAt: string;
+  /** As sent (inline images as cid: links); `previewHtml` has them swapped for data: URLs, to look at. */
+  html: string; previewHtml: string; attachments: DevMailPart[];
+};
 
 export const devKeys = {
   all: ['dev'] as const,

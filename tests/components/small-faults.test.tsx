@@ -1,5 +1,5 @@
 import * as ImagePicker from 'expo-image-picker';
-import type { FindingDetail, TravelerDetail } from '@/db/contracts';
+import type { TravelerDetail } from '@/db/contracts';
 import { FlagScreen } from '@/components/findings/flag-screen';
 import { isPhotoBytes, notPhotosMessage, pickPhotos } from '@/components/findings/photo-picker';
 import { mayOpen, mayOpenPath } from '@/components/navigation/role-tabs';
@@ -8,7 +8,7 @@ import { Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
 import { fonts } from '@/constants/theme';
 import { storageKeys } from '@/hooks/storage';
-import { finding, recordFetch, wrap } from './finding-fixtures';
+import { recordFetch, wrap } from './finding-fixtures';
 import { renderWeb } from './render-web';
 
 jest.mock('expo-image-picker', () => ({
@@ -120,7 +120,6 @@ describe('a photo the server refuses', () => {
     expect(r.byTestId('finding-error').textContent).toContain('a photo was refused');
     // "is not a photo" appears once on the whole screen.
     expect(r.text().split('is not a photo').length - 1).toBe(1);
-    void (finding as FindingDetail);
   });
 });
 
