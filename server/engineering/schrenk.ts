@@ -112,7 +112,8 @@ export function chordAt(planform: Planform, eta: number): number {
   return planform.rootChordIn + (planform.tipChordIn - planform.rootChordIn) * eta;
 }
 
-function stationAt(p: Planform, eta: number): SchrenkStation {
+/** Schrenk's station of a checked planform (no checks: the wing study's integration calls it thousands of times). */
+export function schrenkStationOf(p: Planform, eta: number): SchrenkStation {
   const chordIn = chordAt(p, eta);
   const ellipticChordIn = ((4 * p.meanChordIn) / Math.PI) * Math.sqrt(Math.max(0, 1 - eta * eta));
   const schrenkChordIn = (chordIn + ellipticChordIn) / 2;
@@ -122,13 +123,13 @@ function stationAt(p: Planform, eta: number): SchrenkStation {
 /** Schrenk's section cl / wing CL at span station η (0 root, 1 tip). */
 export function schrenkLiftRatio(planform: PlanformInput, eta: number, field = 'eta'): number {
   const p = planformGeometry(planform);
-  return stationAt(p, requireWingBound(eta, 'eta', field)).clRatio;
+  return schrenkStationOf(p, requireWingBound(eta, 'eta', field)).clRatio;
 }
 
 /** The whole station (chords, cl/CL, load grading) at η. */
 export function schrenkStation(planform: PlanformInput, eta: number, field = 'eta'): SchrenkStation {
   const p = planformGeometry(planform);
-  return stationAt(p, requireWingBound(eta, 'eta', field));
+  return schrenkStationOf(p, requireWingBound(eta, 'eta', field));
 }
 
 /** Schrenk's distribution at a list of span stations (a wing's ribs), with the rule and its assumptions. */
@@ -136,7 +137,7 @@ export function schrenkDistribution(planform: PlanformInput, etas: number[]): Sc
   const p = planformGeometry(planform);
   const list = requireArray<number>(etas, 'etas', 1, 'list of span stations');
   requireCount(list, 'etas', { what: 'the number of span stations', min: 1, max: MAX_SCHRENK_STATIONS, unit: 'stations', integer: true });
-  const stations = list.map((eta, i) => stationAt(p, requireWingBound(eta, 'eta', `etas[${i}]`)));
+  const stations = list.map((eta, i) => schrenkStationOf(p, requireWingBound(eta, 'eta', `etas[${i}]`)));
   const warnings: string[] = [];
   if (stations.some((s) => s.eta > 0.95)) warnings.push('Schrenk overstates the lift close to the tip, where the real lift falls to zero: stations beyond η = 0.95 are approximate');
   return { ...envelope({ planform, etas }, [SCHRENK_RULE, SCHRENK_ASSUMPTIONS], warnings), planform: p, stations };

@@ -22,7 +22,7 @@ import {
 } from './rib-study';
 import { loadEnvelope } from './rivet-loads';
 import { roundStored } from './rounding';
-import { chordAt, planformGeometry, SCHRENK_ASSUMPTIONS, SCHRENK_RULE, type Planform, type PlanformInput } from './schrenk';
+import { chordAt, planformGeometry, schrenkStationOf, SCHRENK_ASSUMPTIONS, SCHRENK_RULE, type Planform, type PlanformInput } from './schrenk';
 import type { CandidateSettings } from './pitch-schedule';
 import { skinPanelStudy, SKIN_RULES, type SkinPanelResult, type SkinPanelSpec } from './skin-panel';
 import { estimateStudyWork, requireStudyBudget, type StudyWork } from './study-work';
@@ -324,11 +324,16 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
   const byId = new Map(conditions.map((c) => [c.id, c]));
 
   const grading = {
-    loadRatio: (eta: number) => (chordAt(planform, eta) + ((4 * planform.meanChordIn) / Math.PI) * Math.sqrt(Math.max(0, 1 - eta * eta))) / 2 / planform.meanChordIn,
-    clRatio: (eta: number) => {
-      const c = chordAt(planform, eta);
-      return (c + ((4 * planform.meanChordIn) / Math.PI) * Math.sqrt(Math.max(0, 1 - eta * eta))) / 2 / c;
-    },
+    loadRatio: (eta: number) => schrenkStationOf(planform, eta).loadRatio,
+    clRatio: (eta: number) => schrenkStationOf(planform, eta).clRatio,
+  };
+  /**
+   * A section's share of each condition's lift at η: the wing's CL (the tail changes the wing's lift) graded
+   * by Schrenk, as a ratio to the condition's n·W-based CL.
+   */
+  const sectionRatioAt = (eta: number) => {
+    const clRatio = grading.clRatio(eta);
+    return (c: DesignCondition) => (c.clNeeded === 0 ? 0 : (byId.get(c.id)!.wingCl / c.clNeeded) * clRatio);
   };
   const box = boxAtUnitChord(ctx.geometry, input.spars.frontXc, input.spars.rearXc);
   // Loads at every rib, per condition.
@@ -371,11 +376,7 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
     const cellAreaSqIn = box.area * chord * chord;
     const shearFlowLbPerIn = env.torque.value / (2 * cellAreaSqIn);
     const place: RibPlace = {
-      sectionRatio: (c) => {
-        const w = byId.get(c.id)!;
-        // The section's lift coefficient is the wing's, graded by Schrenk; the tail changes the wing's.
-        return c.clNeeded === 0 ? 0 : (w.wingCl / c.clNeeded) * clRatio;
-      },
+      sectionRatio: sectionRatioAt(eta),
       shearFlowLbPerIn,
       rules: [],
       warnings: eta > 0.95 ? ['Schrenk overstates the lift close to the tip: this rib\'s loads are approximate (conservative)'] : [],
@@ -413,13 +414,12 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
   if (input.spars.capAreaSqIn === undefined) warnings.push('spar-cap area not given: the skin alone is taken to carry the bending (conservative for the skin, not for the caps)');
   const skins: SkinPanelResult[] = [];
   let skinSchedules = 0;
+  // Each rib's pressures, made once: an inner rib bounds the bay on each side of it.
+  const pressuresAtRib = stations.map((y) => conditionPressures(ctx, sectionRatioAt(y / half), []));
   for (let i = 0; i + 1 < input.ribs.length; i++) {
     const chord = ribInputs[i].rib.chordIn;
     const inner = perCondition.map((l) => l[i]);
-    const ribPressures = [i, i + 1].map((k) => conditionPressures(ctx, (c) => {
-      const w = byId.get(c.id)!;
-      return c.clNeeded === 0 ? 0 : (w.wingCl / c.clNeeded) * grading.clRatio(stations[k] / half);
-    }, []));
+    const ribPressures = [pressuresAtRib[i], pressuresAtRib[i + 1]];
     for (const surface of ['upper', 'lower'] as const) {
       // Positive bending (lift up) compresses the upper skin; negative, the lower.
       const compressionMomentInLb = Math.max(0, ...inner.map((l) => (surface === 'upper' ? l.bendingInLb : -l.bendingInLb)));
