@@ -103,7 +103,8 @@ export const SKIN_RULES = [
   'compression skin past buckling: only the effective width b_e = 1.9·t·√(E/σ) beside the spars carries the bending, at the caps\' stress (von Kármán; Bruhn ch. C7, from memory)',
 ];
 
-function lineStations(lengthIn: number, tension: number, shear: number): StationLoad[] {
+/** Stations every 0.1 in along a straight spanwise line, with one pull and one shear all along. */
+function spanwiseStations(lengthIn: number, tension: number, shear: number): StationLoad[] {
   const count = Math.max(2, Math.ceil(lengthIn / STATION_STEP_IN) + 1);
   return Array.from({ length: count }, (_, k) => {
     const along = (lengthIn * k) / (count - 1);
@@ -219,8 +220,8 @@ export function skinPanelStudy(spec: SkinPanelSpec, settings: SkinSettings): Ski
       const sparShear = qt + qb;
       const ribShear = qt;
       const lines = [
-        schedule('front spar', 'FS', lineStations(widthIn, spec.sparPullLbPerIn.front, sparShear), sparMaxDiameters),
-        schedule('rear spar', 'RS', lineStations(widthIn, spec.sparPullLbPerIn.rear, sparShear), sparMaxDiameters),
+        schedule('front spar', 'FS', spanwiseStations(widthIn, spec.sparPullLbPerIn.front, sparShear), sparMaxDiameters),
+        schedule('rear spar', 'RS', spanwiseStations(widthIn, spec.sparPullLbPerIn.rear, sparShear), sparMaxDiameters),
         schedule(`rib ${spec.innerRib}`, 'IR', spec.ribLines.inner.map((s) => ({ ...s, limitShearLbPerIn: ribShear })), settings.maxPitchDiameters),
         schedule(`rib ${spec.outerRib}`, 'OR', spec.ribLines.outer.map((s) => ({ ...s, limitShearLbPerIn: ribShear })), settings.maxPitchDiameters),
       ];

@@ -7,7 +7,7 @@ import type { FlapInput } from './flap-conditions';
 import { findRivet } from './materials';
 import { cpOnSurface, pressureDistribution, alphaForLiftCoefficient } from './panel-method';
 import { compactNumbers, envelope, type EngineeringResult } from './result';
-import { lineStations, validateLine, type FastenerLineInput } from './rib-geometry';
+import { lineStationCount, lineStations, validateLine, type FastenerLineInput } from './rib-geometry';
 import {
   PRESSURE_RULES,
   sectionContext,
@@ -152,6 +152,8 @@ export interface WingStudyResult extends EngineeringResult<WingStudyInput> {
 export const MAX_WING_RIBS = 24;
 /** A whole wing's work: its ribs' and panels' counts summed, against this many single-rib budgets. */
 export const WING_BUDGET_FACTOR = 6;
+/** Skin load stations × skin candidates a wing may schedule (the demo wing: about 130,000). */
+export const WING_SKIN_BUDGET = 1_000_000;
 /** x/c of the section's aerodynamic centre for the tail estimate (thin-airfoil theory) */
 const QUARTER_CHORD = 0.25;
 const STATION_STEP_IN = 0.1;
@@ -300,6 +302,22 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
     const total = works.reduce((n, w) => n + w.stationChecks, 0);
     if (total > STUDY_BUDGET.stationChecks * WING_BUDGET_FACTOR) {
       throw new EngineeringInputError('gaugeCandidates', `${input.ribs.length} ribs make ${Math.round(total).toLocaleString('en-US')} load checks; at most ${(STUDY_BUDGET.stationChecks * WING_BUDGET_FACTOR).toLocaleString('en-US')}: study fewer gauges or rivets at once`);
+    }
+    // The skin panels: two spar lines across each bay and two rib lines between the spars, every one
+    // scheduled for each skin candidate, on both surfaces.
+    const skinCandidates = input.skin.gaugeCandidates.length * input.skin.rivetCandidates.length;
+    let skinStations = 0;
+    for (let i = 0; i + 1 < stations.length; i++) {
+      for (const surface of ['upper', 'lower'] as const) {
+        const ribLine = (k: number) => lineStationCount(geometry, { name: 'skin', surface, startXc: input.spars.frontXc, endXc: input.spars.rearXc }, ribInputs[k].rib.chordIn, STATION_STEP_IN).count;
+        skinStations += 2 * (Math.ceil((stations[i + 1] - stations[i]) / STATION_STEP_IN) + 1) + ribLine(i) + ribLine(i + 1);
+      }
+    }
+    if (skinStations * skinCandidates > WING_SKIN_BUDGET) {
+      throw new EngineeringInputError(
+        skinCandidates > 1 ? 'skin.gaugeCandidates' : 'ribs',
+        `the skin panels have ${skinStations.toLocaleString('en-US')} load stations × ${skinCandidates} candidates to schedule; at most ${WING_SKIN_BUDGET.toLocaleString('en-US')}: study fewer skin gauges or rivets at once`,
+      );
     }
   });
   const wingAreaSqIn = kit.wingAreaSqFt * SQIN_PER_SQFT;

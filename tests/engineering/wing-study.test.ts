@@ -265,3 +265,21 @@ describe('the one-for-all choice of a wing with coupon tests', () => {
     expect(study.trade.perRib.choices).toEqual(study.ribs.map((r) => ({ rib: r.name, ...r.study.recommended! })));
   });
 });
+
+describe('a wing study holds its skin panels to a work budget', () => {
+  it('refuses, before it solves anything, a wing whose skin panels would take too long to schedule, naming the skin candidates', () => {
+    // 24 ribs of a large wing, 6 skin gauges × 4 rivets: millions of station schedules.
+    const big: WingStudyInput = {
+      ...wing,
+      kit: { ...wing.kit, weightLb: 9000, wingAreaSqFt: 600, meanChordIn: 120 },
+      planform: { kind: 'rectangle', spanIn: 720, chordIn: 120 },
+      ribs: Array.from({ length: 24 }, (_, i) => ({ name: `R${i}`, stationIn: 10 + i * 15 })),
+      skin: { gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04, 0.05], rivetCandidates: ['MS20426AD3', 'MS20426AD4', 'MS20470AD3', 'MS20470AD4'] },
+      gaugeCandidates: [0.032],
+      rivetCandidates: ['MS20470AD4'],
+    };
+    const e = refusal(() => wingStudy(big));
+    expect(e.field).toBe('skin.gaugeCandidates');
+    expect(e.reason).toMatch(/at most 1,000,000/);
+  });
+});
