@@ -101,6 +101,13 @@ export function formatArea(sqft: number, system: UnitSystem): string {
   return `${v.toFixed(Math.abs(v) >= 100 ? 0 : 1)} ${unitLabel('area', system)}`;
 }
 
+/** Wing loading, stored as pounds per square foot; shown metric as kilograms per square metre, as pilots quote it. */
+export function formatWingLoading(psf: number, system: UnitSystem): string {
+  if (!Number.isFinite(psf)) return '–';
+  if (system === 'imperial') return `${psf.toFixed(1)} psf`;
+  return `${(psf * KG_PER_LB / M2_PER_FT2).toFixed(1)} kg/m²`;
+}
+
 /** A ratio such as edge distance over diameter: "2.4 D". */
 export function formatDiameters(ratio: number): string {
   if (!Number.isFinite(ratio)) return '–';

@@ -1,6 +1,6 @@
 import { createContext, createElement, useCallback, useContext, useEffect, useMemo, useState, type ReactNode } from 'react';
 import {
-  formatArea, formatForce, formatLength, formatMass, lengthNumber, rulerNumber, stationNumber, unitLabel, type Quantity, type UnitSystem,
+  formatArea, formatForce, formatWingLoading, formatLength, formatMass, lengthNumber, rulerNumber, stationNumber, unitLabel, type Quantity, type UnitSystem,
 } from '@/constants/units';
 import { readJson, storageKeys, writeJson } from './storage';
 
@@ -14,6 +14,7 @@ export type Units = {
   force: (lbf: number) => string;
   mass: (lb: number) => string;
   area: (sqft: number) => string;
+  wingLoading: (psf: number) => string;
   label: (q: Quantity) => string;
 };
 
@@ -30,6 +31,7 @@ function make(system: UnitSystem, setSystem: (s: UnitSystem) => void): Units {
     force: (v) => formatForce(v, system),
     mass: (v) => formatMass(v, system),
     area: (v) => formatArea(v, system),
+    wingLoading: (v) => formatWingLoading(v, system),
     label: (q) => unitLabel(q, system),
   };
 }

@@ -4,8 +4,16 @@ import { Button } from '@/components/ui/button';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { useBuildsQuery } from '@/hooks/queries/builds';
+import type { Role } from '@/db/contracts';
 import { useRole } from '@/hooks/use-session';
 import { BuildRow } from './build-row';
+
+/** What the list holds for each reader (the admin's tabs have no builds page: see role-tabs). */
+const subtitles: Partial<Record<Role, string>> = {
+  supplier: 'Kits you have shipped',
+  builder: 'Builds you work on',
+  inspector: 'Builds you inspect',
+};
 
 export function BuildsScreen() {
   const router = useRouter();
@@ -15,7 +23,7 @@ export function BuildsScreen() {
   return (
     <Screen
       title="Builds"
-      subtitle={isSupplier ? 'Kits you have shipped' : role === 'builder' ? 'Builds you work on' : 'Builds you inspect'}
+      subtitle={role ? subtitles[role] : undefined}
       account
       scroll={false}
       testID="builds-screen"

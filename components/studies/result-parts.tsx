@@ -24,11 +24,12 @@ export function CandidateTag({ c }: { c: CandidateKey }) {
 
 /** The design conditions behind a result, said in a headline: " · n +3.80 / −1.52 · W/S 11.0 psf". */
 export function DesignFigures({ design }: { design?: { loadFactors: { positive: number; negative: number }; wingLoadingPsf: number } | null }) {
+  const u = useUnits();
   if (!design) return null;
   return (
     <>
       {' · n '}<Mono variant="small">{design.loadFactors.positive.toFixed(2)}</Mono> / <Mono variant="small">{design.loadFactors.negative.toFixed(2)}</Mono> · W/S{' '}
-      <Mono variant="small">{design.wingLoadingPsf.toFixed(1)} psf</Mono>
+      <Mono variant="small">{u.wingLoading(design.wingLoadingPsf)}</Mono>
     </>
   );
 }

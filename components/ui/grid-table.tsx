@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { ScrollView, StyleSheet, View, type LayoutChangeEvent } from 'react-native';
+import { StyleSheet, View, type LayoutChangeEvent } from 'react-native';
 import { colors, hairline, space } from '@/constants/theme';
 import { Label } from './text';
 
@@ -17,30 +17,30 @@ export type GridRow = {
   cells: Record<string, React.ReactNode>;
 };
 
-/** A table narrower than its columns stacks below this width (a phone); wider, it scrolls sideways. */
-const STACK_BELOW = 600;
+/** A stacked row's block: blocks sit side by side where the space holds two or more of this width. */
+const BLOCK_WIDTH = 280;
 
 /**
  * A small table of numbers (a pitch schedule, a zone's loads). Columns keep their width, so values
- * never run together ("0.008.001.00") or break; when the space is narrower than the columns (a phone,
- * or text at 200 %) each row stacks into a block of "name value" pairs, and between the two a wide
- * table scrolls sideways and can be scrolled from the keyboard. Table roles, so a screen reader reads
- * each value with its column's name.
+ * never run together ("0.008.001.00") or break. When the space is narrower than the columns (a phone, a
+ * pane beside a form, or text at 200 %) each row stacks into a block of "name value" pairs, blocks side
+ * by side where they fit: nothing is hidden off an edge (a sideways-scrolling table hid the margins,
+ * the last columns, with no hint). Table and list roles, so a screen reader reads each value with its
+ * column's name.
  */
 export function GridTable({ columns, rows, label, testID }: {
   columns: GridColumn[]; rows: GridRow[]; label: string; testID?: string;
 }) {
   const [width, setWidth] = useState(0);
   const needed = columns.reduce((n, c) => n + c.width, 0);
-  const stacked = width > 0 && width < needed && width < STACK_BELOW;
-  const scrolls = width > 0 && !stacked && width < needed;
+  const stacked = width > 0 && width < needed;
   const onLayout = (e: LayoutChangeEvent) => setWidth(Math.round(e.nativeEvent.layout.width));
 
   if (stacked) {
     return (
-      <View onLayout={onLayout} testID={testID} role="list" aria-label={label} style={styles.stack}>
+      <View onLayout={onLayout} testID={testID} role="list" aria-label={label} style={[styles.stack, width >= 2 * BLOCK_WIDTH && styles.stackWide]}>
         {rows.map((r) => (
-          <View key={r.key} testID={r.testID} role="listitem" style={styles.block}>
+          <View key={r.key} testID={r.testID} role="listitem" style={[styles.block, width >= 2 * BLOCK_WIDTH && styles.blockWide]}>
             {columns.map((c) => (
               <View key={c.key} style={styles.pair}>
                 <Label style={styles.pairName}>{c.title}</Label>
@@ -57,7 +57,7 @@ export function GridTable({ columns, rows, label, testID }: {
     <View role="table" aria-label={label} style={[styles.table, { minWidth: needed }]}>
       <View role="row" style={[styles.row, styles.head]}>
         {columns.map((c) => (
-          <View key={c.key} role="columnheader" style={[styles.cell, { width: c.width }, !scrolls && { flexGrow: c.width }]}>
+          <View key={c.key} role="columnheader" style={[styles.cell, { width: c.width, flexGrow: c.width }]}>
             <Label align={c.align}>{c.title}</Label>
           </View>
         ))}
@@ -65,7 +65,7 @@ export function GridTable({ columns, rows, label, testID }: {
       {rows.map((r) => (
         <View key={r.key} role="row" style={styles.row} testID={r.testID}>
           {columns.map((c) => (
-            <View key={c.key} role="cell" style={[styles.cell, { width: c.width }, !scrolls && { flexGrow: c.width }, c.align === 'right' && styles.right]}>
+            <View key={c.key} role="cell" style={[styles.cell, { width: c.width, flexGrow: c.width }, c.align === 'right' && styles.right]}>
               {r.cells[c.key]}
             </View>
           ))}
@@ -73,16 +73,7 @@ export function GridTable({ columns, rows, label, testID }: {
       ))}
     </View>
   );
-  return (
-    <View onLayout={onLayout} testID={testID}>
-      {scrolls ? (
-        // A keyboard scrolls a region only if it can take focus.
-        <ScrollView horizontal showsHorizontalScrollIndicator focusable role="region" aria-label={`${label}, scrolls sideways`}>
-          {table}
-        </ScrollView>
-      ) : table}
-    </View>
-  );
+  return <View onLayout={onLayout} testID={testID}>{table}</View>;
 }
 
 const styles = StyleSheet.create({
@@ -92,7 +83,9 @@ const styles = StyleSheet.create({
   cell: { paddingHorizontal: space.xs, paddingVertical: space.xs, justifyContent: 'center', flexShrink: 0 },
   right: { alignItems: 'flex-end' },
   stack: { gap: space.sm },
+  stackWide: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.lg },
   block: { borderTopWidth: hairline, borderColor: colors.ink, paddingTop: space.xs, gap: 2 },
+  blockWide: { flexBasis: BLOCK_WIDTH, flexGrow: 1, maxWidth: 2 * BLOCK_WIDTH },
   pair: { flexDirection: 'row', alignItems: 'baseline', gap: space.sm, flexWrap: 'wrap' },
   pairName: { minWidth: 96 },
   pairValue: { flexShrink: 1, alignItems: 'flex-start' },

@@ -65,6 +65,9 @@ export function Mono({ variant = 'body', bold, tone = 'ink', align, style, child
   // An address (e-mail or link) is no value read at a glance, and a phone's row may be narrower than it.
   const address = text !== null && (text.includes('@') || text.includes('://'));
   const whole = !wrap && !address && rest.numberOfLines == null && text !== null && text.length <= TOKEN_MAX;
+  // A longer run of values ("U-11 U-12 U-13 …") breaks between them, never inside one: a browser would
+  // break "U-12" after its hyphen.
+  const byToken = keepWhole && !whole && !wrap && !address && rest.numberOfLines == null && text !== null;
   return (
     <Text
       {...rest}
@@ -75,9 +78,14 @@ export function Mono({ variant = 'body', bold, tone = 'ink', align, style, child
         style,
       ]}
     >
-      {children}
+      {byToken ? tokensKeptWhole(text) : children}
     </Text>
   );
+}
+
+function tokensKeptWhole(text: string): React.ReactNode[] {
+  return text.split(/(\s+)/).map((part, i) =>
+    part && !/\s/.test(part) && part.length <= TOKEN_MAX ? <Text key={i} style={keepWhole}>{part}</Text> : part);
 }
 
 export function Label(props: Props) {

@@ -72,4 +72,3 @@ export type BuildDetail = BuildSummary & {
   fixedBecause?: string | null;
 };
 
-export type QrLabel = { travelerId: string; serial: string; shortCode: string; partNumber: string; partName: string; letter: string; qrDataUrl: string; url: string };

@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { AddMemberInput, BuildChangeInput, BuildDetail, BuildInput, BuildSummary, QrLabel, TravelerSummary } from '@/db/contracts';
+import type { AddMemberInput, BuildChangeInput, BuildDetail, BuildInput, BuildSummary, TravelerSummary } from '@/db/contracts';
 import { api, apiRequest } from '../api-client';
 
 /** The build's page: the contract's detail (its people with what the reader may do) and its parts. */
@@ -10,7 +10,6 @@ export const buildKeys = {
   list: () => [...buildKeys.all, 'list'] as const,
   details: () => [...buildKeys.all, 'detail'] as const,
   detail: (id: string) => [...buildKeys.details(), id] as const,
-  labels: (id: string) => [...buildKeys.all, 'labels', id] as const,
 };
 
 export const buildQueries = {
@@ -18,11 +17,6 @@ export const buildQueries = {
   detail: (id: string) => queryOptions({
     queryKey: buildKeys.detail(id),
     queryFn: ({ signal }) => api.get<BuildPage>(`/api/builds/${encodeURIComponent(id)}`, signal),
-  }),
-  labels: (id: string) => queryOptions({
-    queryKey: buildKeys.labels(id),
-    queryFn: ({ signal }) => api.get<QrLabel[]>(`/api/builds/${encodeURIComponent(id)}/labels`, signal),
-    staleTime: 5 * 60_000,
   }),
 };
 
@@ -32,10 +26,6 @@ export function useBuildsQuery() {
 
 export function useBuildQuery(id: string) {
   return useQuery({ ...buildQueries.detail(id), enabled: !!id });
-}
-
-export function useBuildLabelsQuery(id: string) {
-  return useQuery({ ...buildQueries.labels(id), enabled: !!id });
 }
 
 export function useBuildCreateMutation() {
@@ -88,7 +78,7 @@ export function useBuildUpdateMutation(buildId: string) {
     mutationFn: (input: BuildChangeInput) => api.patch<BuildPage>(buildPath(buildId), input),
     onSuccess: (page) => {
       qc.setQueryData(buildKeys.detail(buildId), page);
-      return Promise.all([qc.invalidateQueries({ queryKey: buildKeys.list() }), qc.invalidateQueries({ queryKey: buildKeys.labels(buildId) }), qc.invalidateQueries({ queryKey: ['travelers'] })]);
+      return Promise.all([qc.invalidateQueries({ queryKey: buildKeys.list() }), qc.invalidateQueries({ queryKey: ['travelers'] })]);
     },
   });
 }

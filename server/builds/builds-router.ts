@@ -22,6 +22,5 @@ export function buildsRouter(ctx: AppContext): Router {
     res.json(await builds.removeMember(req.user!, id, userId));
   });
   r.post('/:id/owner', validateBody(handOverInput), async (req, res) => { res.json(await builds.handOver(req.user!, idParam.parse(req.params).id, req.body.userId)); });
-  r.get('/:id/labels', requireRole('supplier'), async (req, res) => { res.json(await builds.labels(req.user!, idParam.parse(req.params).id)); });
   return r;
 }

@@ -1,9 +1,8 @@
 import { and, eq, inArray } from 'drizzle-orm';
-import QRCode from 'qrcode';
 import {
   allowedBuildActions, allowedBuildPeopleActions, buildWorkRefusal, checkBuildAction, memberRoleOfPlace, removalRefusal, singlePlaces,
   type BuildAction, type BuildChangeInput,
-  type BuildPeople, type BuildPeopleAction, type BuildSummary, type MemberPlace, type QrLabel,
+  type BuildPeople, type BuildPeopleAction, type BuildSummary, type MemberPlace,
 } from '../../db/contracts';
 import { withTransaction, type Db, type Tx } from '../../db';
 import { builds, designRevisions, partDesigns, travelers } from '../../db/schema';
@@ -12,7 +11,6 @@ import { invite } from '../people/invitations';
 import { addBuildMember, findBuildBrief, findUserByEmail, listPendingInvitations } from '../people/people-repository';
 import { badRequest, conflict, forbidden, notFound } from '../http-error';
 import { kitsService } from '../kits/kits-service';
-import { isLoopbackUrl } from '../network/lan';
 import { insertTraveler, listTravelers } from '../travelers/travelers-repository';
 import {
   buildWork, deleteBuild, findBuildRow, insertBuildEvent, kitSerialTaken, listBuildMembers, listVisibleBuilds, lockBuild,
@@ -197,26 +195,6 @@ export const buildsService = (ctx: Deps) => {
         await insertBuildEvent(tx.db, { buildId, actorId: user.id, kind: 'owner_changed', detail: { from: owner?.name ?? null, to: next.name } });
       });
       return this.detail(user, buildId);
-    },
-
-    /** One printable label per traveler: the QR carries a URL, so a phone's own camera opens it too. */
-    async labels(user: Express.User, id: string): Promise<QrLabel[]> {
-      if (user.role !== 'supplier' && user.role !== 'admin') throw forbidden('only the supplier prints labels');
-      // A label's link must open on a phone's own camera: an address of this machine's loopback would not.
-      if (isLoopbackUrl(publicUrl)) {
-        throw conflict(`labels would carry ${publicUrl}, which a phone cannot open: start Pitchcard in network mode (npm start -- --lan) or set PUBLIC_URL to the address phones reach this machine by, then print again`);
-      }
-      await summary(user, id);
-      const rows = await db.select({
-        travelerId: travelers.id, serial: travelers.serial, shortCode: travelers.shortCode, qrToken: travelers.qrToken,
-        partNumber: partDesigns.partNumber, partName: partDesigns.name, letter: designRevisions.letter,
-      }).from(travelers).innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
-        .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
-        .where(inArray(travelers.buildId, [id])).orderBy(partDesigns.partNumber);
-      return Promise.all(rows.map(async ({ qrToken, ...r }) => {
-        const url = `${publicUrl}/t/${qrToken}`;
-        return { ...r, url, qrDataUrl: await QRCode.toDataURL(url, { errorCorrectionLevel: 'M', margin: 2, scale: 8 }) };
-      }));
     },
   };
 };

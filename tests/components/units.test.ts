@@ -1,6 +1,13 @@
-import { editableNumber, formatDiameters, formatForce, formatLength, formatMass, fromDisplay, lengthNumber, parseNumber, toDisplay } from '@/constants/units';
+import { editableNumber, formatDiameters, formatForce, formatLength, formatMass, formatWingLoading, fromDisplay, lengthNumber, parseNumber, toDisplay } from '@/constants/units';
 
 describe('units formatting', () => {
+  it('says wing loading in kg/m² on the metric switch', () => {
+    expect(formatWingLoading(11, 'imperial')).toBe('11.0 psf');
+    // 1 lb/ft² = 0.45359237 kg / 0.09290304 m² = 4.88243 kg/m² (the pound and foot's exact definitions, NIST SP 811 appendix B).
+    expect(formatWingLoading(11, 'metric')).toBe('53.7 kg/m²');
+    expect(formatWingLoading(20, 'metric')).toBe('97.6 kg/m²');
+  });
+
   it('shows a sheet gauge in inches with three places', () => {
     expect(formatLength(0.032, 'imperial')).toBe('0.032 in');
     expect(formatLength(0.025, 'imperial')).toBe('0.025 in');

@@ -120,9 +120,9 @@ describe('the loop in a real browser at phone size', () => {
     await page.getByTestId('submit-build').click();
     await page.getByTestId('build-screen').waitFor({ timeout: 15000 });
     await visible(page, 'labels').click();
-    const label = page.locator('[data-testid^="label-"]').first();
+    const label = page.locator('[data-testid^="part-label-"]').first();
     await label.waitFor({ timeout: 15000 });
-    shortCode = ((await label.getAttribute('data-testid')) ?? '').replace('label-', '');
+    shortCode = ((await label.getAttribute('data-testid')) ?? '').replace('part-label-', '');
     expect(shortCode).toMatch(/^[A-Z0-9]{3}-[A-Z0-9]{3}$/);
 
     // Read the printed QR back off the page, as a phone would.

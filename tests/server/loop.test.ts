@@ -55,7 +55,7 @@ describe('the main loop through the API', () => {
     expect(res.status).toBe(201);
     buildId = res.body.id;
     expect(res.body.travelerCount).toBe(1);
-    const labels = await request(t.app).get(`/api/builds/${buildId}/labels`).set(auth(tok.supplier));
+    const labels = await request(t.app).get(`/api/travelers/labels?buildId=${buildId}`).set(auth(tok.supplier));
     expect(labels.status).toBe(200);
     expect(labels.body[0].qrDataUrl).toMatch(/^data:image\/png;base64,/);
     expect(labels.body[0].shortCode).toMatch(/^[A-Z0-9]{3}-[A-Z0-9]{3}$/);

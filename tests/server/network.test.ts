@@ -110,7 +110,7 @@ describe('network mode served', () => {
   it('puts the public address it was given in labels and on the phone setup page, with the certificate to trust', async () => {
     const tok = await t.tokens();
     const buildId = (await request(t.app).get('/api/builds').set({ Authorization: `Bearer ${tok.supplier}` })).body[0].id;
-    const labels = await request(t.app).get(`/api/builds/${buildId}/labels`).set({ Authorization: `Bearer ${tok.supplier}` });
+    const labels = await request(t.app).get(`/api/travelers/labels?buildId=${buildId}`).set({ Authorization: `Bearer ${tok.supplier}` });
     expect(labels.body[0].url).toMatch(new RegExp(`^https://192\\.0\\.2\\.44:${port}/t/`));
     const setup = await request(t.app).get('/api/network').set({ Authorization: `Bearer ${tok.admin}` });
     expect(setup.body).toMatchObject({ publicUrl: `https://192.0.2.44:${port}`, loopback: false, https: true, certificate: { downloadUrl: '/api/network/certificate' } });
@@ -129,7 +129,7 @@ describe('a loopback public address', () => {
   it('refuses to print labels, saying how to set the address', async () => {
     const tok = await t.tokens();
     const buildId = (await request(t.app).get('/api/builds').set({ Authorization: `Bearer ${tok.supplier}` })).body[0].id;
-    const res = await request(t.app).get(`/api/builds/${buildId}/labels`).set({ Authorization: `Bearer ${tok.supplier}` });
+    const res = await request(t.app).get(`/api/travelers/labels?buildId=${buildId}`).set({ Authorization: `Bearer ${tok.supplier}` });
     expect(res.status).toBe(409);
     expect(res.body.error.message).toMatch(/npm start -- --lan|PUBLIC_URL/);
     expect((await request(t.app).get('/api/network').set({ Authorization: `Bearer ${tok.supplier}` })).body).toMatchObject({ loopback: true, https: false, certificate: null });
