@@ -3,6 +3,7 @@ import { useMemo, useState } from 'react';
 import { Image, View } from 'react-native';
 import { findingKindLabels, findingStatuses, findingStatusLabels, isOpenFinding, type FindingStatus, type FindingSummary } from '@/db/contracts';
 import { colors, space } from '@/constants/theme';
+import { Button } from '@/components/ui/button';
 import { Choice } from '@/components/ui/choice';
 import { Field, FindField } from '@/components/ui/field';
 import { Screen } from '@/components/ui/screen';
@@ -12,6 +13,7 @@ import { FindingStatusTag } from '@/components/ui/status-mark';
 import { Table, type Column } from '@/components/ui/table';
 import { Mono, Txt } from '@/components/ui/text';
 import { useFindingsQuery } from '@/hooks/queries/findings';
+import { useWide } from '@/hooks/use-wide';
 import { FindingRow, findingRowLabel, shortDate } from './finding-row';
 import { buildsIn, filterFindings, nextSort, sortFindings, type ReviewFilters, type ReviewSort, type ReviewSortKey, type StatusFilter } from './review-filter';
 
@@ -51,6 +53,9 @@ export function ReviewQueueScreen({
   const firstQ = useFindingsQuery({ status: first?.status }, { enabled: !!first });
   const [filters, setFilters] = useState<ReviewFilters>({ status: 'open', build: 'all', text: '' });
   const [sort, setSort] = useState<ReviewSort>({ key: 'date', dir: 'desc' });
+  const wide = useWide();
+  // On a phone the filters fold behind one button, so the first finding shows on the first screen.
+  const [filtersOpen, setFiltersOpen] = useState(false);
   const all = useMemo(() => q.data ?? [], [q.data]);
   const rows = useMemo(() => sortFindings(filterFindings(all, filters), sort), [all, filters, sort]);
   // Oldest first: the longest wait is answered first.
@@ -59,8 +64,8 @@ export function ReviewQueueScreen({
   const openCount = all.filter((f) => isOpenFinding(f.status)).length;
 
   const columns: Column<FindingSummary, ReviewSortKey>[] = [
-    { key: 'photo', title: 'Photo', flex: 0.7, hideOnPhone: true, render: (f) => (f.thumbUrl
-      ? <Image source={{ uri: f.thumbUrl }} style={{ width: 48, height: 48, borderWidth: 1, borderColor: colors.rule }} />
+    { key: 'photo', title: 'Photo', flex: 0.7, render: (f) => (f.thumbUrl
+      ? <Image source={{ uri: f.thumbUrl }} style={{ width: wide ? 48 : 96, height: wide ? 48 : 72, borderWidth: 1, borderColor: colors.rule }} accessibilityLabel={`Photo of ${[...f.holeIds].sort().join(' ')}`} />
       : <Txt variant="small" tone="faint">none</Txt>) },
     { key: 'date', title: 'Raised', sortKey: 'date', flex: 1.3, render: (f) => <Mono variant="small">{shortDate(f.createdAt)}</Mono> },
     { key: 'part', title: 'Part', sortKey: 'part', flex: 1.4, render: (f) => <Txt variant="small"><Mono variant="small" bold>{f.partNumber}</Mono> · <Mono variant="small">{f.serial}</Mono></Txt> },
@@ -83,10 +88,10 @@ export function ReviewQueueScreen({
     </Section>
   ) : null;
 
-  const header = (
-    <View style={{ gap: space.md, paddingBottom: space.md }}>
-      {firstBlock}
-      {first ? <Section title="Every finding" /> : null}
+  const statusLabel = statusOptions.find((o) => o.value === filters.status)?.label ?? filters.status;
+  const filterSummary = `${statusLabel} · ${filters.build === 'all' ? 'all builds' : filters.build}`;
+  const choices = (
+    <>
       <Field label="Status">
         <Choice testIDPrefix="filter-status" value={filters.status} onChange={(status) => setFilters((f) => ({ ...f, status }))} options={statusOptions} />
       </Field>
@@ -100,6 +105,25 @@ export function ReviewQueueScreen({
           />
         </Field>
       ) : null}
+    </>
+  );
+
+  const header = (
+    <View style={{ gap: space.md, paddingBottom: space.md }}>
+      {firstBlock}
+      {first ? <Section title="Every finding" /> : null}
+      {wide ? choices : (
+        <Button
+          label={filtersOpen ? 'Hide filters' : `Filters: ${filterSummary}`}
+          variant="secondary"
+          compact
+          onPress={() => setFiltersOpen((o) => !o)}
+          aria-expanded={filtersOpen}
+          testID="toggle-filters"
+          style={{ alignSelf: 'flex-start' }}
+        />
+      )}
+      {!wide && filtersOpen ? choices : null}
       <FindField value={filters.text} onChange={(text) => setFilters((f) => ({ ...f, text }))} placeholder="Part, serial, hole, kind or name" where="the queue" testID="filter-text" />
       <Txt variant="small" tone="soft" testID="review-count">{rows.length} shown · {openCount} open in all</Txt>
     </View>
