@@ -53,7 +53,7 @@ export default function AppLayout() {
                 tabBarButtonTestID: tab.testID,
                 tabBarAccessibilityLabel: tab.title,
                 tabBarIcon: ({ color }) => <TabIcon glyph={tab.glyph} color={String(color)} />,
-                ...(wide ? null : { tabBarLabel: ({ color }) => <TabLabel text={tab.title} color={String(color)} fontSize={fit.fontSize} /> }),
+                ...(wide ? null : { tabBarLabel: ({ color }) => <TabLabel text={fit.short ? tab.short ?? tab.title : tab.title} color={String(color)} fontSize={fit.fontSize} /> }),
               } : { href: null }}
             />
           </Tabs.Protected>

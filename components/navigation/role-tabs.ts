@@ -1,7 +1,14 @@
 import type { Role, SessionUser } from '@/db/contracts';
 import type { TabGlyph } from './tab-icon';
 
-export type Tab = { name: string; title: string; glyph: TabGlyph; testID: string };
+export type Tab = {
+  name: string; title: string; glyph: TabGlyph; testID: string;
+  /**
+   * The label under the icon where a phone's tabs are narrow (a supplier's six share 390 px, 53 px of
+   * label each): "Catalogue" and "Approvals" broke inside the word there.
+   */
+  short?: string;
+};
 
 const peopleTab: Tab = { name: 'people', title: 'People', glyph: 'people', testID: 'tab-people' };
 
@@ -26,12 +33,12 @@ export function tabsFor(user: Pick<SessionUser, 'role' | 'lead'> | null): Tab[] 
       ];
     case 'supplier':
       return [
-        { name: 'catalogue', title: 'Catalogue', glyph: 'catalogue', testID: 'tab-catalogue' },
+        { name: 'catalogue', title: 'Catalogue', short: 'Kits', glyph: 'catalogue', testID: 'tab-catalogue' },
         { name: 'studies', title: 'Load studies', glyph: 'studies', testID: 'tab-studies' },
         { name: 'coupons', title: 'Coupons', glyph: 'coupons', testID: 'tab-coupons' },
         { name: 'builds', title: 'Builds', glyph: 'builds', testID: 'tab-builds' },
         // Findings that wait on the supplier's approval; the ticked-list glyph, as the inspector's review.
-        { name: 'findings', title: 'Approvals', glyph: 'review', testID: 'tab-approvals' },
+        { name: 'findings', title: 'Approvals', short: 'Approve', glyph: 'review', testID: 'tab-approvals' },
         // A stored session from before `lead` existed reads as not a lead.
         ...(user?.lead ? [peopleTab] : []),
       ];

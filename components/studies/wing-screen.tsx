@@ -27,7 +27,7 @@ export function NewWingStudyScreen({ kitModelId }: { kitModelId?: string }) {
     <NewStudyShell
       kitModelId={kitModelId}
       title="New wing study"
-      subtitle="Every rib root to tip and the skin panels between them, from weight, speeds, planform and airfoil"
+      subtitle="Every rib and skin panel, root to tip, from the kit's loads"
       testID="new-wing-study-screen"
       needs="A wing study works from a kit model's weight, wing, speeds and airfoil."
       promise={

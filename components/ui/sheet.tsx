@@ -32,7 +32,8 @@ export function KeyValue({ label, children, testID }: { label: string; children:
   return (
     <View style={styles.kv} testID={testID}>
       <Txt variant="small" tone="soft" style={{ minWidth: 120 }}>{label}</Txt>
-      <View style={{ flex: 1, alignItems: 'flex-start' }}>{typeof children === 'string' ? <Txt>{children}</Txt> : children}</View>
+      {/* minWidth 0: a long unbroken value (an address) may narrow the column instead of pushing it off the screen. */}
+      <View style={{ flex: 1, minWidth: 0, alignItems: 'flex-start' }}>{typeof children === 'string' ? <Txt>{children}</Txt> : children}</View>
     </View>
   );
 }

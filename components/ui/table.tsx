@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { FlatList, Pressable, StyleSheet, View, type ListRenderItem } from 'react-native';
 import { colors, hairline, space, touch } from '@/constants/theme';
 import { useWide } from '@/hooks/use-wide';
@@ -16,7 +17,14 @@ export type Column<T, K extends string = string> = {
   sortKey?: K;
   /** Left out of the stacked phone layout (e.g. repeated in the row's title). */
   hideOnPhone?: boolean;
+  /** The narrowest the column may be before its values no longer fit (px, padding included); default 88. */
+  minWidth?: number;
 };
+
+const COLUMN_MIN = 88;
+
+/** A wide row's cell: never under its column's least width, sharing what is left by `flex`. */
+const cellSize = (c: { flex?: number; minWidth?: number }) => ({ flexGrow: c.flex ?? 1, flexShrink: 0, flexBasis: c.minWidth ?? COLUMN_MIN });
 
 type Props<T, K extends string> = {
   rows: readonly T[];
@@ -32,11 +40,16 @@ type Props<T, K extends string> = {
 };
 
 /**
- * A drawing-sheet table: thin rules, sortable headers. On a phone each row stacks its cells, and the
- * sort headers become a row of buttons above the list. Rows are a FlatList so long queues stay fast.
+ * A drawing-sheet table: thin rules, sortable headers. On a phone, or in a pane narrower than its
+ * columns need (a table beside a form), each row stacks its cells and the sort headers become a row of
+ * buttons above the list: squeezed columns broke words and ran values over each other. Rows are a
+ * FlatList so long queues stay fast.
  */
 export function Table<T, K extends string>({ rows, columns, rowKey, sort, onSort, onRowPress, rowTestID, rowLabel, empty, header }: Props<T, K>) {
-  const wide = useWide();
+  const wideScreen = useWide();
+  const [width, setWidth] = useState(0);
+  const needed = columns.reduce((n, c) => n + (c.minWidth ?? COLUMN_MIN), 0);
+  const wide = wideScreen && !(width > 0 && width < needed);
   const sortable = columns.filter((c) => c.sortKey);
 
   const sortButton = (c: Column<T, K>, style?: object) => {
@@ -60,7 +73,7 @@ export function Table<T, K extends string>({ rows, columns, rowKey, sort, onSort
     const cells = wide ? (
       <View style={styles.wideRow}>
         {columns.map((c) => (
-          <View key={c.key} style={[styles.cell, { flex: c.flex ?? 1 }]}>{c.render(item)}</View>
+          <View key={c.key} style={[styles.cell, cellSize(c)]}>{c.render(item)}</View>
         ))}
       </View>
     ) : (
@@ -103,7 +116,7 @@ export function Table<T, K extends string>({ rows, columns, rowKey, sort, onSort
           {wide ? (
             <View style={styles.headRow}>
               {columns.map((c) => (
-                <View key={c.key} style={[styles.cell, { flex: c.flex ?? 1 }]}>
+                <View key={c.key} style={[styles.cell, cellSize(c)]}>
                   {c.sortKey && onSort ? sortButton(c) : <Txt variant="label" tone="soft">{c.title}</Txt>}
                 </View>
               ))}
@@ -120,6 +133,7 @@ export function Table<T, K extends string>({ rows, columns, rowKey, sort, onSort
       initialNumToRender={20}
       windowSize={7}
       style={{ flex: 1 }}
+      onLayout={(e) => setWidth(Math.round(e.nativeEvent.layout.width))}
       contentContainerStyle={{ paddingBottom: space.xxl }}
     />
   );

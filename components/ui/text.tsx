@@ -55,6 +55,8 @@ function plain(children: React.ReactNode): string | null {
  * fingerprint, a mail) wraps as running text does.
  */
 const keepWhole = Platform.OS === 'web' ? ({ whiteSpace: 'nowrap' } as unknown as TextStyle) : null;
+/** An address has no spaces to break at: it may break anywhere rather than run off a phone's screen. */
+const breakAnywhere = Platform.OS === 'web' ? ({ overflowWrap: 'anywhere' } as unknown as TextStyle) : null;
 
 /** Numbers, hole ids, codes: IBM Plex Mono so columns line up and 0/O, 1/l never mix. */
 export function Mono({ variant = 'body', bold, tone = 'ink', align, style, children, wrap, ...rest }: Props & {
@@ -64,9 +66,11 @@ export function Mono({ variant = 'body', bold, tone = 'ink', align, style, child
   const text = plain(children);
   // An address (e-mail or link) is no value read at a glance, and a phone's row may be narrower than it.
   const address = text !== null && (text.includes('@') || text.includes('://'));
-  const whole = !wrap && !address && rest.numberOfLines == null && text !== null && text.length <= TOKEN_MAX;
-  // A longer run of values ("U-11 U-12 U-13 …") breaks between them, never inside one: a browser would
-  // break "U-12" after its hyphen.
+  // A short value stays on one line; a list of values (", " or " · " between them) breaks between them.
+  const listed = text !== null && /,\s|\s·\s/.test(text);
+  const whole = !wrap && !address && !listed && rest.numberOfLines == null && text !== null && text.length <= TOKEN_MAX;
+  // A longer run of values ("U-11 U-12 U-13 …", "0.016 in · MS20426AD3") breaks between them, never
+  // inside one: a browser would break "U-12" after its hyphen, or a number from its unit.
   const byToken = keepWhole && !whole && !wrap && !address && rest.numberOfLines == null && text !== null;
   return (
     <Text
@@ -75,6 +79,7 @@ export function Mono({ variant = 'body', bold, tone = 'ink', align, style, child
         typeScale[variant],
         { color: toneColor[tone], fontFamily: bold ? fonts.monoBold : fonts.mono, textAlign: align, letterSpacing: 0 },
         whole && keepWhole,
+        address && breakAnywhere,
         style,
       ]}
     >
@@ -83,9 +88,29 @@ export function Mono({ variant = 'body', bold, tone = 'ink', align, style, child
   );
 }
 
+/** A unit, a clock's half-day or a separator: kept on the line of what it follows. */
+const FOLLOWER = /^(in|mm|lb|N|kN|kg|g|psf|psi|D|AM|PM|ft|m|m²|kg\/m²|°|%|·|–|\/)[,.;:]?$/;
+
+/** Groups of words read as one value: "0.016 in", "12:46 PM"; a separator stays with what it follows. */
+export function valueGroups(text: string): string[] {
+  const groups: string[] = [];
+  for (const word of text.split(/\s+/).filter(Boolean)) {
+    if (groups.length && FOLLOWER.test(word)) groups[groups.length - 1] += ` ${word}`;
+    else groups.push(word);
+  }
+  return groups;
+}
+
 function tokensKeptWhole(text: string): React.ReactNode[] {
-  return text.split(/(\s+)/).map((part, i) =>
-    part && !/\s/.test(part) && part.length <= TOKEN_MAX ? <Text key={i} style={keepWhole}>{part}</Text> : part);
+  const lead = /^\s/.test(text) ? ' ' : '';
+  const trail = /\s$/.test(text) ? ' ' : '';
+  const out: React.ReactNode[] = lead ? [lead] : [];
+  valueGroups(text).forEach((g, i) => {
+    if (i) out.push(' ');
+    out.push(g.length <= TOKEN_MAX ? <Text key={i} style={keepWhole}>{g}</Text> : g);
+  });
+  if (trail) out.push(trail);
+  return out;
 }
 
 export function Label(props: Props) {

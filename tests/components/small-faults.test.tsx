@@ -182,8 +182,9 @@ describe('places by role', () => {
 
 describe('tab labels on a phone', () => {
   it('give a supplier\'s six tabs at 390 px a smaller size and room for a second line; four tabs keep 14 px', () => {
-    expect(tabLabelFit(390, 6, false)).toMatchObject({ fontSize: 12, barMinHeight: 72 });
-    expect(tabLabelFit(390, 4, false)).toMatchObject({ fontSize: 14 });
+    expect(tabLabelFit(390, 6, false)).toMatchObject({ fontSize: 12, barMinHeight: 72, short: true });
+    expect(tabLabelFit(390, 5, false)).toMatchObject({ fontSize: 12, short: false });
+    expect(tabLabelFit(390, 4, false)).toMatchObject({ fontSize: 14, short: false });
     expect(tabLabelFit(1280, 6, true)).toMatchObject({ fontSize: 14 });
   });
 });
