@@ -5,7 +5,7 @@ import { isPhotoBytes, notPhotosMessage, pickPhotos } from '@/components/finding
 import { mayOpen, mayOpenPath } from '@/components/navigation/role-tabs';
 import { tabLabelFit } from '@/components/navigation/tab-label';
 import { Notice } from '@/components/ui/states';
-import { Mono, Txt } from '@/components/ui/text';
+import { Mono, Txt, valueGroups } from '@/components/ui/text';
 import { fonts } from '@/constants/theme';
 import { storageKeys } from '@/hooks/storage';
 import { recordFetch, wrap } from './finding-fixtures';
@@ -155,6 +155,19 @@ describe('text in the app\'s own faces', () => {
     const r = renderWeb(<><Mono testID="mail">admin@pitchcard.example</Mono><Mono testID="callout">MS20470AD4-4</Mono></>);
     expect(r.byTestId('mail').style.whiteSpace).not.toBe('nowrap');
     expect(r.byTestId('callout').style.whiteSpace).toBe('nowrap');
+  });
+
+  it('breaks a run of values between values only: never inside a hole id, nor a number from its unit', () => {
+    expect(valueGroups('U-11 U-12 U-13')).toEqual(['U-11', 'U-12', 'U-13']);
+    expect(valueGroups('0.016 in · MS20426AD3')).toEqual(['0.016 in ·', 'MS20426AD3']);
+    expect(valueGroups('Dec 2, 2026, 12:46 PM')).toEqual(['Dec', '2,', '2026,', '12:46 PM']);
+    const r = renderWeb(<><Mono testID="holes">U-11 U-12 U-13 U-14 U-15 U-16</Mono><Mono testID="pair">0.016 in · MS20426AD3</Mono></>);
+    const spans = (id: string) => Array.from(r.byTestId(id).children as HTMLCollectionOf<HTMLElement>);
+    // The run itself may wrap; each id inside it is kept whole.
+    expect(r.byTestId('holes').style.whiteSpace).not.toBe('nowrap');
+    expect(spans('holes').map((s) => [s.textContent, s.style.whiteSpace])).toEqual(['U-11', 'U-12', 'U-13', 'U-14', 'U-15', 'U-16'].map((h) => [h, 'nowrap']));
+    expect(spans('pair').map((s) => s.textContent)).toEqual(['0.016 in ·', 'MS20426AD3']);
+    expect(r.byTestId('pair').textContent).toBe('0.016 in · MS20426AD3');
   });
 });
 
