@@ -22,28 +22,29 @@ export function TradeTable({ rows, recommended, chosen, onChoose }: {
   const wu = units.system === 'metric' ? 'g' : 'lb';
   const columns: Column<TradeRow, TradeSortKey>[] = [
     {
-      key: 'gauge', title: `Gauge, ${units.label('length')}`, sortKey: 'gauge', minWidth: 76, flex: 0.9, render: (r) => (
+      key: 'gauge', title: `Gauge, ${units.label('length')}`, sortKey: 'gauge', minWidth: 72, flex: 0.9, render: (r) => (
         <View style={styles.gauge}>
           {sameCandidate(r, chosen) ? <Txt bold tone="accent" testID={`${tradeRowTestId(r)}-chosen`} role="img" aria-label="shown">▶</Txt> : null}
           <Mono bold tone={sameCandidate(r, chosen) ? 'accent' : 'ink'}>{units.lengthNumber(r.gaugeIn)}</Mono>
         </View>
       ),
     },
-    { key: 'rivet', title: 'Rivet', sortKey: 'rivet', minWidth: 112, flex: 1.5, render: (r) => <Mono>{r.rivet}</Mono> },
+    { key: 'rivet', title: 'Rivet', sortKey: 'rivet', minWidth: 104, flex: 1.5, render: (r) => <Mono>{r.rivet}</Mono> },
     {
-      key: 'feasible', title: 'Carries it', sortKey: 'feasible', minWidth: 80, flex: 1, render: (r) => (
+      key: 'feasible', title: 'Carries it', sortKey: 'feasible', minWidth: 76, flex: 1, render: (r) => (
         <View>
           <Txt bold tone={r.feasible ? 'ink' : 'error'}>{r.feasible ? '✓ yes' : '✕ no'}</Txt>
           {r.pullThroughBasis ? <Txt variant="small" tone="faint">{r.pullThroughBasis === 'coupons' ? 'coupons' : 'fallback'}</Txt> : null}
         </View>
       ),
     },
-    { key: 'count', title: 'Rivets', sortKey: 'count', minWidth: 64, flex: 0.7, render: (r) => <Mono>{r.rivetCount}</Mono> },
-    { key: 'weight', title: `Weight, ${wu}`, sortKey: 'weight', minWidth: 88, flex: 0.8, render: (r) => <Mono>{partWeight(r.totalWeightLb, units.system).replace(/ (lb|g)$/, '')}</Mono> },
-    { key: 'time', title: 'Build, min', sortKey: 'time', minWidth: 80, flex: 0.8, render: (r) => <Mono>{Math.round(r.buildMinutes)}</Mono> },
+    { key: 'count', title: 'Rivets', sortKey: 'count', minWidth: 60, flex: 0.7, render: (r) => <Mono>{r.rivetCount}</Mono> },
+    { key: 'weight', title: `Weight, ${wu}`, sortKey: 'weight', minWidth: 84, flex: 0.8, render: (r) => <Mono>{partWeight(r.totalWeightLb, units.system).replace(/ (lb|g)$/, '')}</Mono> },
+    { key: 'time', title: 'Build, min', sortKey: 'time', minWidth: 76, flex: 0.8, render: (r) => <Mono>{Math.round(r.buildMinutes)}</Mono> },
     {
-      key: 'rank', title: 'Rank', sortKey: 'rank', minWidth: 120, flex: 1.4, render: (r) => (sameCandidate(r, recommended)
-        ? <View style={styles.tag} testID={`${tradeRowTestId(r)}-recommended`}><Mono variant="small" bold tone="inverse">1</Mono><Txt variant="small" bold tone="inverse">recommended</Txt></View>
+      key: 'rank', title: 'Rank', sortKey: 'rank', minWidth: 112, flex: 1.4, render: (r) => (sameCandidate(r, recommended)
+        // The rank in the badge, the word under it: a badge holding the word was wider than its column.
+        ? <View testID={`${tradeRowTestId(r)}-recommended`} style={styles.rec}><View style={styles.tag}><Mono variant="small" bold tone="inverse">1</Mono></View><Txt variant="small" bold tone="accent">recommended</Txt></View>
         : <Mono tone={r.rank === null ? 'faint' : 'ink'}>{r.rank ?? '–'}</Mono>),
     },
   ];
@@ -71,5 +72,6 @@ export function TradeTable({ rows, recommended, chosen, onChoose }: {
 
 const styles = StyleSheet.create({
   gauge: { flexDirection: 'row', alignItems: 'center', gap: space.xs },
+  rec: { alignItems: 'flex-start', gap: 2 },
   tag: { flexDirection: 'row', alignItems: 'center', gap: space.xs, alignSelf: 'flex-start', flexWrap: 'wrap', backgroundColor: colors.accent, borderRadius: radius.md, paddingHorizontal: space.sm, paddingVertical: 2 },
 });
