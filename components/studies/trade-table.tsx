@@ -1,9 +1,11 @@
 import { useMemo, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { colors, radius, space } from '@/constants/theme';
+import { Button } from '@/components/ui/button';
 import { Table, type Column } from '@/components/ui/table';
 import { Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
+import { useWide } from '@/hooks/use-wide';
 import { partWeight } from './study-numbers';
 import { sameCandidate, tradeRowTestId, type CandidateKey, type TradeRow } from './study-result';
 import { nextTradeSort, sortTrade, type TradeSort, type TradeSortKey } from './trade-sort';
@@ -18,6 +20,11 @@ export function TradeTable({ rows, recommended, chosen, onChoose }: {
   const units = useUnits();
   const [sort, setSort] = useState<TradeSort>({ key: 'rank', dir: 'asc' });
   const sorted = useMemo(() => sortTrade(rows, sort), [rows, sort]);
+  // On a phone each candidate stacks into a tall block: the first few (and the one shown) come first,
+  // the rest on request, so the zones and the apply button are not eighteen blocks down.
+  const wide = useWide();
+  const [all, setAll] = useState(false);
+  const listed = useMemo(() => (wide || all ? sorted : firstFew(sorted, chosen)), [wide, all, sorted, chosen]);
 
   const wu = units.system === 'metric' ? 'g' : 'lb';
   const columns: Column<TradeRow, TradeSortKey>[] = [
@@ -52,7 +59,7 @@ export function TradeTable({ rows, recommended, chosen, onChoose }: {
   return (
     <View testID="trade-table">
       <Table
-        rows={sorted}
+        rows={listed}
         columns={columns}
         rowKey={(r) => `${r.gaugeIn}-${r.rivet}`}
         sort={sort}
@@ -62,12 +69,31 @@ export function TradeTable({ rows, recommended, chosen, onChoose }: {
         rowLabel={(r) => `${units.length(r.gaugeIn)} with ${r.rivet}: ${r.feasible ? 'carries the loads' : 'does not carry the loads'}, ${r.rivetCount} rivets, ${partWeight(r.totalWeightLb, units.system)}, ${Math.round(r.buildMinutes)} minutes${sameCandidate(r, recommended) ? ', recommended' : ''}${sameCandidate(r, chosen) ? ', shown' : ''}`}
         empty={<Txt tone="soft">No candidates in this result.</Txt>}
       />
+      {listed.length < sorted.length || (all && !wide) ? (
+        <Button
+          label={all ? `Show the first ${PHONE_ROWS}` : `Show all ${sorted.length} candidates`}
+          variant="secondary"
+          compact
+          onPress={() => setAll((a) => !a)}
+          testID="trade-show-all"
+          style={{ alignSelf: 'flex-start', marginTop: space.sm }}
+        />
+      ) : null}
       <Txt variant="small" tone="faint" style={{ paddingTop: space.sm }}>
         Weight: flange along the lines, unlightened web and rivets. Build: holes × minutes per hole. Feasible rows rank by
         pull-through backed by coupons first, then by the chosen order.
       </Txt>
     </View>
   );
+}
+
+const PHONE_ROWS = 4;
+
+/** The first rows in the order shown, and the candidate on show wherever it sorts. */
+export function firstFew<T extends CandidateKey>(sorted: T[], chosen: CandidateKey | null, n = PHONE_ROWS): T[] {
+  const head = sorted.slice(0, n);
+  const shown = sorted.find((r) => sameCandidate(r, chosen));
+  return shown && !head.includes(shown) ? [...head, shown] : head;
 }
 
 const styles = StyleSheet.create({

@@ -112,8 +112,23 @@ describe('the results of a load study', () => {
     expect(r.byTestId('cp-curve-upper').getAttribute('points')).not.toBe(before);
   });
 
+  it('lists the first four candidates on a phone, the rest on request, keeping the one on show', async () => {
+    const r = await renderResults();
+    const rows = () => r.allByTestIdPrefix('trade-row-').filter((e) => /^trade-row-[\d.]+-[A-Z0-9-]+$/.test(e.getAttribute('data-testid')!) && !/-(chosen|recommended)$/.test(e.getAttribute('data-testid')!));
+    expect(rows()).toHaveLength(4);
+    expect(r.byTestId('trade-show-all').textContent).toBe('Show all 18 candidates');
+    await r.press('trade-show-all');
+    expect(rows()).toHaveLength(18);
+    await r.press('trade-row-0.016-PULLED-4');
+    await r.press('trade-show-all');
+    // Folded again, the candidate tapped stays listed under the first four.
+    expect(rows().map((e) => e.getAttribute('data-testid'))).toContain('trade-row-0.016-PULLED-4');
+    expect(rows()).toHaveLength(5);
+  });
+
   it('shows the candidate tapped in the trade table, with its negative margins marked', async () => {
     const r = await renderResults();
+    await r.press('trade-show-all');
     await r.press('trade-row-0.016-PULLED-4');
     expect(r.byTestId('trade-row-0.016-PULLED-4-chosen')).toBeTruthy();
     expect(r.byTestId('candidate-reasons').textContent).toContain('does not carry the loads');
@@ -128,7 +143,8 @@ describe('the results of a load study', () => {
     global.fetch = jest.fn((url: string) => { asked.push(String(url)); return new Promise(() => {}); }) as never;
     try {
       const r = await renderResults(detail(), 2, 'imperial', { holes: false });
-      await r.press('trade-row-0.016-PULLED-4');
+      await r.press('trade-show-all');
+    await r.press('trade-row-0.016-PULLED-4');
       expect(asked.some((u) => u.includes('/api/studies/study-1/candidate?gaugeIn=0.016&rivet=PULLED-4&revision=2'))).toBe(true);
       expect(r.byTestId('section-loads').textContent).toContain('Working out every hole of 0.016 in · PULLED-4');
       expect(r.queryByTestId('load-plot')).toBeNull();
@@ -140,6 +156,7 @@ describe('the results of a load study', () => {
 
   it('draws the fetched candidate’s holes once they arrive', async () => {
     const r = await renderResults();
+    await r.press('trade-show-all');
     await r.press('trade-row-0.016-PULLED-4');
     // Every hole of the fetched schedule is a point of the load plot (two series of them).
     const holes = unstoredWhole.lines.reduce((n, l) => n + l.holes.length, 0);
