@@ -59,6 +59,8 @@ export function SkinPanelTable({ panels, chosen, onChoose }: { panels: SkinPanel
     <View style={{ gap: space.sm }} testID="skin-panel-table">
       <GridTable
         label="Skin panels"
+        fold={4}
+        testID="skin-panel-grid"
         columns={[
           { key: 'panel', title: 'Panel', width: W.panel },
           { key: 'surface', title: 'Surface', width: W.surface },
@@ -79,6 +81,7 @@ export function SkinPanelTable({ panels, chosen, onChoose }: { panels: SkinPanel
           const figures = rec ? skinFigures(rec, u.system, `skin-${id}`) : null;
           return {
             key: p.name,
+            keep: on,
             testID: `skin-row-${id}`,
             cells: {
               panel: <RowPickButton name={p.name} on={on} onPick={onChoose} testID={`skin-${id}`} says={`Skin panel ${p.name}: show its candidates and zones`} />,

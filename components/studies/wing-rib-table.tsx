@@ -28,6 +28,8 @@ export function WingRibTable({ ribs, conditions, chosen, onChoose }: {
     <View style={{ gap: space.sm }} testID="wing-rib-table">
       <GridTable
         label="Ribs root to tip"
+        fold={4}
+        testID="wing-rib-grid"
         columns={[
           { key: 'rib', title: 'Rib', width: W.rib },
           { key: 'station', title: `Station, ${lu}`, width: W.station, align: 'right' },
@@ -46,6 +48,7 @@ export function WingRibTable({ ribs, conditions, chosen, onChoose }: {
           const rec = r.study.recommended;
           return {
             key: r.name,
+            keep: on,
             testID: `wing-rib-row-${id}`,
             cells: {
               rib: <RowPickButton name={r.name} on={on} onPick={onChoose} testID={`wing-rib-${id}`} says={`Rib ${r.name}: show its zones`} />,

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { StyleSheet, View, type LayoutChangeEvent } from 'react-native';
 import { colors, hairline, space } from '@/constants/theme';
+import { Button } from './button';
 import { Label } from './text';
 
 export type GridColumn = {
@@ -14,6 +15,8 @@ export type GridColumn = {
 export type GridRow = {
   key: string;
   testID?: string;
+  /** Listed even when a stacked table folds (the row on show). */
+  keep?: boolean;
   cells: Record<string, React.ReactNode>;
 };
 
@@ -28,18 +31,27 @@ const BLOCK_WIDTH = 280;
  * the last columns, with no hint). Table and list roles, so a screen reader reads each value with its
  * column's name.
  */
-export function GridTable({ columns, rows, label, testID }: {
+export function GridTable({ columns, rows, label, testID, fold }: {
   columns: GridColumn[]; rows: GridRow[]; label: string; testID?: string;
+  /**
+   * Stacked, list this many rows (and any row to keep) and the rest on request: ten ribs' blocks of ten
+   * figures each buried what follows them on a phone.
+   */
+  fold?: number;
 }) {
   const [width, setWidth] = useState(0);
+  const [all, setAll] = useState(false);
   const needed = columns.reduce((n, c) => n + c.width, 0);
   const stacked = width > 0 && width < needed;
   const onLayout = (e: LayoutChangeEvent) => setWidth(Math.round(e.nativeEvent.layout.width));
 
   if (stacked) {
+    const folds = fold !== undefined && rows.length > fold + 1;
+    const listed = folds && !all ? rows.filter((r, i) => i < fold || r.keep) : rows;
     return (
-      <View onLayout={onLayout} testID={testID} role="list" aria-label={label} style={[styles.stack, width >= 2 * BLOCK_WIDTH && styles.stackWide]}>
-        {rows.map((r) => (
+      <View onLayout={onLayout} testID={testID} style={{ gap: space.sm }}>
+      <View role="list" aria-label={label} style={[styles.stack, width >= 2 * BLOCK_WIDTH && styles.stackWide]}>
+        {listed.map((r) => (
           <View key={r.key} testID={r.testID} role="listitem" style={[styles.block, width >= 2 * BLOCK_WIDTH && styles.blockWide]}>
             {columns.map((c) => (
               <View key={c.key} style={styles.pair}>
@@ -49,6 +61,18 @@ export function GridTable({ columns, rows, label, testID }: {
             ))}
           </View>
         ))}
+      </View>
+      {folds ? (
+        <Button
+          label={all ? `Show the first ${fold}` : `Show all ${rows.length}`}
+          variant="secondary"
+          compact
+          onPress={() => setAll((a) => !a)}
+          testID={testID ? `${testID}-show-all` : undefined}
+          accessibilityLabel={all ? `${label}: show the first ${fold}` : `${label}: show all ${rows.length}`}
+          style={{ alignSelf: 'flex-start' }}
+        />
+      ) : null}
       </View>
     );
   }

@@ -117,6 +117,10 @@ describe('the results of a wing study', () => {
 
   it('shows each skin panel’s recommendation, shear flows, pitch limit with its end fixity’s source and buckling margins', async () => {
     const r = await renderResults();
+    // Stacked (a phone), the first four panels show and the rest on request.
+    expect(r.allByTestIdPrefix('skin-row-')).toHaveLength(4);
+    expect(r.byTestId('skin-panel-grid-show-all').textContent).toBe(`Show all ${2 * (inputs.ribs.length - 1)}`);
+    await r.press('skin-panel-grid-show-all');
     // Between every two neighbouring ribs, upper and lower.
     expect(r.allByTestIdPrefix('skin-row-')).toHaveLength(2 * (inputs.ribs.length - 1));
     const rec = firstPanel.candidates.find((c) => c.gaugeIn === firstPanel.recommended!.gaugeIn && c.rivet === firstPanel.recommended!.rivet)!;
@@ -138,7 +142,11 @@ describe('the results of a wing study', () => {
   it('shows the chosen panel’s candidates and the zones of its recommendation', async () => {
     const r = await renderResults();
     const last = result.skins[result.skins.length - 1];
+    await r.press('skin-panel-grid-show-all');
     await r.press(`skin-${idPart(last.name)}`);
+    // Folded again, the panel on show stays listed.
+    await r.press('skin-panel-grid-show-all');
+    expect(r.allByTestIdPrefix('skin-row-').map((e) => e.getAttribute('data-testid'))).toContain(`skin-row-${idPart(last.name)}`);
     expect(r.byTestId('section-skin-zones').textContent).toContain(`Skin panel ${last.name}`);
     expect(r.allByTestIdPrefix(`skin-candidate-${idPart(last.name)}-`)).toHaveLength(last.candidates.length);
     // Two spar lines and two rib lines.
