@@ -74,8 +74,12 @@ describe('a whole-wing study on the supplier’s phone', () => {
     const cautionBox = await caution.boundingBox();
     const ribsBox = await visible('wing-rib-table').boundingBox();
     expect(cautionBox!.y).toBeLessThan(ribsBox!.y);
-    // Ten ribs, each a stacked block on a 390 px screen.
+    // Ten ribs, each a stacked block on a 390 px screen: the first four, then all on request; so the skins.
+    expect(await page.locator('[data-testid="wing-rib-table"] [role="listitem"]').count()).toBe(4);
+    await visible('wing-rib-grid-show-all').click();
     expect(await page.locator('[data-testid="wing-rib-table"] [role="listitem"]').count()).toBe(10);
+    expect(await page.locator('[data-testid^="skin-row-"]').count()).toBe(4);
+    await visible('skin-panel-grid-show-all').click();
     expect(await page.locator('[data-testid^="skin-row-"]').count()).toBe(18);
     await visible('skin-row-W-101-W-102-upper').waitFor();
     // Nothing runs off the side: not the page, not the tables, not a number inside them.
