@@ -36,7 +36,7 @@ export function TradeTable({ rows, recommended, chosen, onChoose }: {
         </View>
       ),
     },
-    { key: 'rivet', title: 'Rivet', sortKey: 'rivet', minWidth: 104, flex: 1.5, render: (r) => <Mono>{r.rivet}</Mono> },
+    { key: 'rivet', title: 'Rivet', sortKey: 'rivet', minWidth: 112, flex: 1.5, render: (r) => <Mono variant="small">{r.rivet}</Mono> },
     {
       key: 'feasible', title: 'Carries it', sortKey: 'feasible', minWidth: 76, flex: 1, render: (r) => (
         <View>
@@ -45,7 +45,7 @@ export function TradeTable({ rows, recommended, chosen, onChoose }: {
         </View>
       ),
     },
-    { key: 'count', title: 'Rivets', sortKey: 'count', minWidth: 60, flex: 0.7, render: (r) => <Mono>{r.rivetCount}</Mono> },
+    { key: 'count', title: 'Rivets', sortKey: 'count', minWidth: 72, flex: 0.7, render: (r) => <Mono>{r.rivetCount}</Mono> },
     { key: 'weight', title: `Weight, ${wu}`, sortKey: 'weight', minWidth: 84, flex: 0.8, render: (r) => <Mono>{partWeight(r.totalWeightLb, units.system).replace(/ (lb|g)$/, '')}</Mono> },
     { key: 'time', title: 'Build, min', sortKey: 'time', minWidth: 76, flex: 0.8, render: (r) => <Mono>{Math.round(r.buildMinutes)}</Mono> },
     {

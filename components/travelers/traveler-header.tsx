@@ -23,7 +23,7 @@ export function TravelerHeader({ t }: { t: TravelerDetail }) {
       <View style={styles.grid}>
         <Cell label="Part"><Mono bold testID="part-number">{t.partNumber}</Mono><Txt variant="small">{t.partName}</Txt></Cell>
         <Cell label="Revision"><Mono bold variant="title" testID="revision-letter">{t.letter}</Mono></Cell>
-        <Cell label="Serial"><Mono wrap testID="traveler-serial">{t.serial}</Mono><Mono variant="small" tone="soft">{t.shortCode}</Mono></Cell>
+        <Cell label="Serial"><Mono testID="traveler-serial">{t.serial}</Mono><Mono variant="small" tone="soft">{t.shortCode}</Mono></Cell>
         <Cell label="Material"><Txt>{t.material}</Txt><Txt variant="small" tone="soft">{partKindLabels[t.kind]}</Txt></Cell>
         <Cell label="Gauge" testID="gauge"><Mono bold>{u.length(t.gaugeIn)}</Mono></Cell>
         <Cell label="Rivet" testID="rivet-spec"><Mono bold>{t.rivetSpec}</Mono></Cell>
