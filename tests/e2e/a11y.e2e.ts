@@ -2,11 +2,11 @@ import { readFileSync } from 'node:fs';
 import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import sharp from 'sharp';
 import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
 import type { TestApp } from '../helpers/test-app';
 import { contrast } from '../components/colour-math';
+import { gatherIds, keepScreenshot, routes, shotName, signedInContext, visible, type Ids, type Role } from './helpers/audit-routes';
 import { launchBrowser } from './helpers/browser';
 import { serveTestApp } from './helpers/served-app';
 
@@ -30,45 +30,6 @@ let closeApp: () => Promise<void>;
 let browser: Browser;
 
 const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-const visible = (page: Page, id: string) => page.locator(`[data-testid="${id}"]:visible`).first();
-
-type Role = 'builder' | 'inspector' | 'supplier' | 'admin';
-type Ids = {
-  buildId: string; travelerId: string; findingId: string; kitId: string; designId: string; studyId: string;
-  walkTravelerId: string; walkFindingId: string;
-};
-type Route = { role: Role; name: string; path: (ids: Ids) => string; ready: string };
-
-const routes: Route[] = [
-  { role: 'builder', name: 'bench', path: () => '/bench', ready: 'bench-screen' },
-  { role: 'builder', name: 'parts', path: () => '/travelers', ready: 'travelers-screen' },
-  { role: 'builder', name: 'a traveler', path: (i) => `/travelers/${i.travelerId}`, ready: 'traveler-screen' },
-  { role: 'builder', name: 'the flag screen', path: (i) => `/travelers/${i.travelerId}/flag?holes=U-10`, ready: 'flag-screen' },
-  { role: 'builder', name: 'findings', path: () => '/findings', ready: 'my-findings-screen' },
-  { role: 'builder', name: 'a finding', path: (i) => `/findings/${i.findingId}`, ready: 'finding-screen' },
-  { role: 'builder', name: 'build log', path: (i) => `/builds/${i.buildId}/log`, ready: 'build-log-screen' },
-  { role: 'inspector', name: 'review queue', path: () => '/findings', ready: 'review-screen' },
-  { role: 'inspector', name: 'a finding with its decision form', path: (i) => `/findings/${i.findingId}`, ready: 'finding-decision' },
-  { role: 'inspector', name: 'builds', path: () => '/builds', ready: 'builds-screen' },
-  { role: 'inspector', name: 'a build', path: (i) => `/builds/${i.buildId}`, ready: 'build-screen' },
-  { role: 'inspector', name: 'a traveler', path: (i) => `/travelers/${i.travelerId}`, ready: 'traveler-screen' },
-  { role: 'supplier', name: 'catalogue', path: () => '/catalogue', ready: 'catalogue-screen' },
-  { role: 'supplier', name: 'a design', path: (i) => `/catalogue/designs/${i.designId}`, ready: 'design-screen' },
-  { role: 'supplier', name: 'a new kit', path: () => '/catalogue/new-kit', ready: 'kit-form-screen' },
-  { role: 'supplier', name: 'a new design', path: (i) => `/catalogue/designs/new?kitModelId=${i.kitId}`, ready: 'design-create-screen' },
-  { role: 'supplier', name: 'load studies', path: () => '/studies', ready: 'studies-screen' },
-  { role: 'supplier', name: 'a study', path: (i) => `/studies/${i.studyId}`, ready: 'study-screen' },
-  { role: 'supplier', name: 'a new study', path: (i) => `/studies/new?kitModelId=${i.kitId}`, ready: 'new-study-screen' },
-  { role: 'supplier', name: 'coupons', path: () => '/coupons', ready: 'coupons-screen' },
-  { role: 'supplier', name: 'builds', path: () => '/builds', ready: 'builds-screen' },
-  { role: 'supplier', name: 'a build', path: (i) => `/builds/${i.buildId}`, ready: 'build-screen' },
-  { role: 'supplier', name: 'shipping a build', path: () => '/builds/new', ready: 'ship-build-screen' },
-  { role: 'supplier', name: 'labels', path: (i) => `/builds/${i.buildId}/labels`, ready: 'labels-screen' },
-  { role: 'supplier', name: 'approvals', path: () => '/findings', ready: 'supplier-findings-screen' },
-  { role: 'supplier', name: 'phone setup', path: () => '/phone', ready: 'phone-setup-screen' },
-  { role: 'admin', name: 'people', path: () => '/people', ready: 'people-screen' },
-  { role: 'admin', name: 'account', path: () => '/account', ready: 'account-screen' },
-];
 
 const widths = [
   { name: 'phone', viewport: { width: 390, height: 844 }, isMobile: true },
@@ -83,68 +44,12 @@ beforeAll(async () => {
   ({ t, base, close: closeApp } = await serveTestApp());
   browser = await launchBrowser();
   await mkdir(artefacts, { recursive: true });
-  const tokens = await t.tokens();
-  // The demo scenario: build NK2-0147, its inboard rib part-riveted with a raised finding, a study, coupons.
-  const parts = (await request(t.app).get('/api/travelers').set(auth(tokens.builder))).body as { id: string; partNumber: string; buildId: string }[];
-  const inner = parts.find((p) => p.partNumber === 'W-104')!;
-  const detail = (await request(t.app).get(`/api/travelers/${inner.id}`).set(auth(tokens.builder))).body;
-  const kits = (await request(t.app).get('/api/kits').set(auth(tokens.supplier))).body as { id: string; code: string }[];
-  const kit = kits.find((k) => k.code === 'NK-2')!;
-  const designs = (await request(t.app).get(`/api/designs?kitModelId=${kit.id}`).set(auth(tokens.supplier))).body as { id: string; partNumber: string }[];
-  const studies = (await request(t.app).get('/api/studies').set(auth(tokens.supplier))).body as { id: string }[];
-  const walk = await walkKit(tokens.supplier, tokens.builder);
-  ids = {
-    buildId: inner.buildId, travelerId: inner.id, findingId: detail.findings[0].id, kitId: kit.id,
-    designId: designs.find((d) => d.partNumber === 'W-104')!.id, studyId: studies[0].id, ...walk,
-  };
+  ids = await gatherIds(t);
 });
 afterAll(async () => {
   await browser?.close().catch(() => undefined);
   await closeApp?.();
 });
-
-/** A small kit of our own (one rib, two short lines), shipped, with one hole flagged: for the keyboard walk. */
-async function walkKit(supplier: string, builder: string) {
-  const kitId = (await request(t.app).post('/api/kits').set(auth(supplier)).send({
-    code: 'AX-1', name: 'Keyboard walk kit', weightLb: 1200, wingAreaSqFt: 110, meanChordIn: 50, stallSpeedKeas: 45, category: 'normal', airfoil: 'NACA 2412',
-  })).body.id;
-  const design = await request(t.app).post('/api/designs').set(auth(supplier)).send({
-    design: { kitModelId: kitId, partNumber: 'AX-R1', name: 'Walk rib', kind: 'rib' },
-    revision: {
-      material: '6061-T6', gaugeIn: 0.032, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 10,
-      lines: [
-        { code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 4, zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }] },
-        { code: 'L', name: 'Lower flange', surface: 'lower', startIn: 1, lengthIn: 4, zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }] },
-      ],
-      steps: ['Rivet both flanges', 'Deburr and prime'],
-    },
-  });
-  await request(t.app).post(`/api/revisions/${design.body.revisions[0].id}/publish`).set(auth(supplier)).send({});
-  const build = await request(t.app).post('/api/builds').set(auth(supplier)).send({
-    kitModelId: kitId, kitSerial: 'AX-0001', builderEmail: DEMO_USERS.builder.email, inspectorEmail: DEMO_USERS.inspector.email,
-  });
-  const walkTravelerId = (await request(t.app).get(`/api/builds/${build.body.id}`).set(auth(supplier))).body.travelers[0].id as string;
-  const raised = await request(t.app).post('/api/findings').set(auth(builder))
-    .field('travelerId', walkTravelerId).field('holeIds', '["L-02"]').field('kind', 'hole_elongated').field('note', 'oval after deburring')
-    .attach('photos', await sharp({ create: { width: 320, height: 240, channels: 3, background: '#8a9096' } }).jpeg().toBuffer(), 'l02.jpg');
-  if (raised.status !== 201) throw new Error(`raising the walk finding failed: ${raised.status} ${JSON.stringify(raised.body)}`);
-  return { walkTravelerId, walkFindingId: raised.body.id as string };
-}
-
-async function signedInContext(role: Role, w: (typeof widths)[number]): Promise<{ context: BrowserContext; page: Page }> {
-  const context = await browser.newContext({
-    baseURL: base, viewport: w.viewport, isMobile: w.isMobile, hasTouch: w.isMobile, deviceScaleFactor: 1, bypassCSP: true,
-    // No service worker: every route is loaded fresh from the server under test.
-    serviceWorkers: 'block',
-  });
-  const page = await context.newPage();
-  await page.goto('/');
-  await page.getByTestId('email').fill(DEMO_USERS[role].email);
-  await page.getByTestId('password').fill(DEMO_PASSWORD);
-  await page.getByTestId('sign-in').click();
-  await visible(page, 'screen-title').waitFor({ timeout: 30000 });
-  return { context, page };
-}
 
 type Violation = { id: string; impact: string; help: string; nodes: { target: string[]; html: string; failureSummary: string }[] };
 
@@ -162,20 +67,6 @@ async function audit(page: Page): Promise<Violation[]> {
   return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
 }
 
-/**
- * The whole screen as a picture (git-ignored, under tests/e2e/artifacts/a11y): the app scrolls inside
- * its own scroll view, so the page is made as tall as the longest scrolling content for the shot.
- */
-async function keepScreenshot(page: Page, name: string, viewport: { width: number; height: number }) {
-  const tall = await page.evaluate(() => Math.max(...Array.from(document.querySelectorAll('*'))
-    .filter((e) => e.scrollHeight > e.clientHeight + 1 && /(auto|scroll)/.test(getComputedStyle(e).overflowY))
-    .map((e) => e.scrollHeight - e.clientHeight), 0));
-  await page.setViewportSize({ width: viewport.width, height: Math.min(12000, viewport.height + tall) });
-  await page.waitForTimeout(200);
-  await page.screenshot({ path: path.join(artefacts, `${name}.png`) });
-  await page.setViewportSize(viewport);
-}
-
 function describeViolations(route: string, width: string, vs: Violation[]): string {
   return vs.map((v) => [
     `${route} at ${width}: ${v.id} (${v.impact}) — ${v.help}`,
@@ -191,7 +82,7 @@ describe.each(widths)('every route of every role passes axe (WCAG 2.1 A/AA) at $
   });
 
   it.each(routes)('$role: $name', async (r) => {
-    if (!pages.has(r.role)) pages.set(r.role, await signedInContext(r.role, w));
+    if (!pages.has(r.role)) pages.set(r.role, await signedInContext(browser, base, r.role, w));
     const { page } = pages.get(r.role)!;
     await page.goto(r.path(ids));
     await visible(page, r.ready).waitFor({ timeout: 30000 });
@@ -200,7 +91,7 @@ describe.each(widths)('every route of every role passes axe (WCAG 2.1 A/AA) at $
     await page.evaluate(() => document.fonts.ready);
     await page.waitForTimeout(300);
     const found = await audit(page);
-    await keepScreenshot(page, `${w.name}-${r.role}-${r.name}`.replace(/[^a-z0-9]+/gi, '-'), w.viewport);
+    await keepScreenshot(page, artefacts, shotName(w.name, r.role, r.name), w.viewport);
     if (found.length) throw new Error(`${found.reduce((n, v) => n + v.nodes.length, 0)} failing elements\n${describeViolations(`${r.role} ${r.name} (${r.path(ids)})`, w.name, found)}`);
   });
 });
@@ -239,7 +130,7 @@ describe('the keyboard alone, Space and Enter both', () => {
   });
 
   it('rings the focused control in our own colour, 3:1 or more against the paper and against a chosen (ink) chip', async () => {
-    const { context, page } = await signedInContext('builder', widths[0]);
+    const { context, page } = await signedInContext(browser, base, 'builder', widths[0]);
     try {
       await page.goto(`/travelers/${ids.walkTravelerId}`);
       await visible(page, 'traveler-screen').waitFor({ timeout: 30000 });
@@ -292,7 +183,7 @@ describe('the keyboard alone, Space and Enter both', () => {
   });
 
   it('ticks holes and steps, zooms and ticks a run on the traveler (and switches units on the bench)', async () => {
-    const { context, page } = await signedInContext('builder', widths[0]);
+    const { context, page } = await signedInContext(browser, base, 'builder', widths[0]);
     try {
       await page.goto('/bench');
       await visible(page, 'bench-screen').waitFor({ timeout: 30000 });
@@ -347,7 +238,7 @@ describe('the keyboard alone, Space and Enter both', () => {
   });
 
   it('chooses holes and the kind on the flag screen, whose heading has focus when it opens', async () => {
-    const { context, page } = await signedInContext('builder', widths[0]);
+    const { context, page } = await signedInContext(browser, base, 'builder', widths[0]);
     try {
       await page.goto(`/travelers/${ids.walkTravelerId}/flag?holes=U-04`);
       await visible(page, 'flag-screen').waitFor({ timeout: 30000 });
@@ -370,7 +261,7 @@ describe('the keyboard alone, Space and Enter both', () => {
   });
 
   it('records the disposition chosen by Space, after another was chosen by Enter, and focuses the result', async () => {
-    const { context, page } = await signedInContext('inspector', widths[0]);
+    const { context, page } = await signedInContext(browser, base, 'inspector', widths[0]);
     try {
       await page.goto(`/findings/${ids.walkFindingId}`);
       await visible(page, 'finding-decision').waitFor({ timeout: 30000 });
