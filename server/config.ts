@@ -1,7 +1,20 @@
+import { existsSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { certificateNames, pickLanAddress } from './network/lan';
 import { z } from 'zod';
+
+/**
+ * The folder with package.json: the default home of uploads/, dist/ and .cache/ whether this file runs
+ * from its source (server/) or compiled (build/server/).
+ */
+function projectRoot(from = __dirname): string {
+  for (let dir = from, i = 0; i < 8; i++, dir = path.dirname(dir)) {
+    if (existsSync(path.join(dir, 'package.json'))) return dir;
+  }
+  return path.join(from, '..');
+}
+const root = projectRoot();
 
 const count = (fallback: number) => z.coerce.number().int().min(1).max(1_000_000).default(fallback);
 const seconds = (fallback: number) => z.coerce.number().int().min(1).max(7 * 24 * 3600).default(fallback);
@@ -20,8 +33,23 @@ const schema = z.object({
   MAIL_FROM: z.string().default('Pitchcard <noreply@pitchcard.local>'),
   /** Start the local SMTP fake inside this process and expose /api/dev/mail (development only). */
   SMTP_FAKE: z.enum(['0', '1']).default('0'),
-  UPLOADS_DIR: z.string().default(path.join(__dirname, '..', 'uploads')),
-  WEB_DIST: z.string().default(path.join(__dirname, '..', 'dist')),
+  UPLOADS_DIR: z.string().default(path.join(root, 'uploads')),
+  WEB_DIST: z.string().default(path.join(root, 'dist')),
+  /** Where photo bytes live: this machine's UPLOADS_DIR, or an S3-compatible bucket that every server process shares. */
+  PHOTO_STORE: z.enum(['local', 's3']).default('local'),
+  S3_BUCKET: z.string().regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, 'S3_BUCKET must be a bucket name (3–63 of a-z, 0-9, dot, hyphen)').optional(),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  /** An S3-compatible service's address; unset for AWS itself. */
+  S3_ENDPOINT: z.string().url('S3_ENDPOINT must be a URL such as http://127.0.0.1:9000').optional(),
+  /** Bucket in the path (most S3-compatible services want it); defaults to on when S3_ENDPOINT is set. */
+  S3_FORCE_PATH_STYLE: z.enum(['0', '1']).optional(),
+  /** Keys go under this prefix, so one bucket can hold more than photos. */
+  S3_PREFIX: z.string().regex(/^([A-Za-z0-9_.-]+\/)*$/, 'S3_PREFIX must be empty or end with / (e.g. photos/)').default(''),
+  /** Both or neither; without them the AWS SDK's own chain is used (AWS_ACCESS_KEY_ID, a role, a profile). */
+  S3_ACCESS_KEY_ID: z.string().optional(),
+  S3_SECRET_ACCESS_KEY: z.string().optional(),
+  /** 1: this server process also runs the job queue's consumers and the photo sweep; 0 when `npm run worker` does. */
+  RUN_JOBS: z.enum(['0', '1']).default('1'),
   /** pino's level; tests default to silent. */
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
   /** Attempts allowed per window, counted in PostgreSQL so every server process shares them. */
@@ -44,8 +72,16 @@ const schema = z.object({
   /** A certificate the shop supplies (PEM files); without them network mode makes one and keeps it in TLS_DIR. */
   TLS_CERT: z.string().optional(),
   TLS_KEY: z.string().optional(),
-  TLS_DIR: z.string().default(path.join(__dirname, '..', '.cache', 'tls')),
+  TLS_DIR: z.string().default(path.join(root, '.cache', 'tls')),
 }).superRefine((e, issue) => {
+  if (e.PHOTO_STORE === 's3' && !e.S3_BUCKET) issue.addIssue({ code: 'custom', path: ['S3_BUCKET'], message: 'PHOTO_STORE=s3 needs S3_BUCKET' });
+  if (!!e.S3_ACCESS_KEY_ID !== !!e.S3_SECRET_ACCESS_KEY) {
+    issue.addIssue({ code: 'custom', path: [e.S3_ACCESS_KEY_ID ? 'S3_SECRET_ACCESS_KEY' : 'S3_ACCESS_KEY_ID'], message: 'give both S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY, or neither' });
+  }
+  // The fake keeps mail in memory and shows it at /api/dev/mail: real mail must reach a real relay.
+  if (e.NODE_ENV === 'production' && e.SMTP_FAKE === '1') {
+    issue.addIssue({ code: 'custom', path: ['SMTP_FAKE'], message: 'the SMTP fake is for development and tests: in production set SMTP_HOST and SMTP_PORT to a mail relay' });
+  }
   if (!!e.TLS_CERT !== !!e.TLS_KEY) issue.addIssue({ code: 'custom', path: [e.TLS_CERT ? 'TLS_KEY' : 'TLS_CERT'], message: 'give both TLS_CERT and TLS_KEY, or neither' });
   // Whoever guesses the secret signs tokens for anyone: in production it must be long enough not to be guessed.
   if (e.NODE_ENV === 'production' && e.JWT_SECRET.length < 32) {
@@ -61,6 +97,12 @@ export type Config = {
   port: number; host: string; databaseUrl: string; jwtSecret: string; tokenTtlSeconds: number;
   publicUrl: string; smtp: { host: string; port: number; from: string; fake: boolean };
   uploadsDir: string; webDist: string;
+  photoStore: { kind: 'local' } | {
+    kind: 's3'; bucket: string; region: string; endpoint: string | null; forcePathStyle: boolean; prefix: string;
+    credentials: { accessKeyId: string; secretAccessKey: string } | null;
+  };
+  /** Whether this server process runs the queue's consumers and the photo sweep (else a worker process does). */
+  runJobs: boolean;
   logLevel: 'fatal' | 'error' | 'warn' | 'info' | 'debug' | 'trace' | 'silent';
   rateLimits: { signIn: RateLimitConfig; passwordReset: RateLimitConfig; invitations: RateLimitConfig };
   photoSweep: { graceSeconds: number; intervalSeconds: number };
@@ -98,6 +140,12 @@ export function loadConfig(
     publicUrl: e.PUBLIC_URL ?? `${scheme}://${lanAddress ?? 'localhost'}:${e.PORT}`,
     smtp: { host: e.SMTP_HOST, port: e.SMTP_PORT, from: e.MAIL_FROM, fake: e.SMTP_FAKE === '1' },
     uploadsDir: e.UPLOADS_DIR, webDist: e.WEB_DIST,
+    photoStore: e.PHOTO_STORE === 's3' ? {
+      kind: 's3', bucket: e.S3_BUCKET!, region: e.S3_REGION, endpoint: e.S3_ENDPOINT ?? null,
+      forcePathStyle: e.S3_FORCE_PATH_STYLE ? e.S3_FORCE_PATH_STYLE === '1' : !!e.S3_ENDPOINT, prefix: e.S3_PREFIX,
+      credentials: e.S3_ACCESS_KEY_ID ? { accessKeyId: e.S3_ACCESS_KEY_ID, secretAccessKey: e.S3_SECRET_ACCESS_KEY! } : null,
+    } : { kind: 'local' },
+    runJobs: e.RUN_JOBS === '1',
     logLevel: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'silent' : 'info'),
     rateLimits: {
       signIn: { perAddress: e.SIGN_IN_LIMIT_PER_ADDRESS, perIp: e.SIGN_IN_LIMIT_PER_IP, windowSeconds: e.SIGN_IN_LIMIT_WINDOW_SECONDS },

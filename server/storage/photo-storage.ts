@@ -5,7 +5,7 @@ import path from 'node:path';
 /** A stored file as the sweep sees it. */
 export type StoredFile = { key: string; modifiedAt: Date };
 
-/** Where photo bytes live. Local folder by default; an object store would implement the same calls. */
+/** Where photo bytes live: a local folder by default, or an S3-compatible bucket (s3-photo-storage.ts). */
 export type PhotoStorage = {
   put: (bytes: Buffer, ext: string) => Promise<string>;
   get: (key: string) => Promise<Buffer>;
@@ -14,7 +14,8 @@ export type PhotoStorage = {
   list: (pageSize?: number) => AsyncIterable<StoredFile[]>;
 };
 
-const KEY = /^[0-9a-f-]{36}\.(jpg|webp)$/;
+/** Every key we make: a random UUID and the file type. Anything else is not ours to read or remove. */
+export const KEY = /^[0-9a-f-]{36}\.(jpg|webp)$/;
 
 export function localPhotoStorage(dir: string): PhotoStorage {
   const fileOf = (key: string) => {
