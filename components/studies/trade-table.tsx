@@ -29,10 +29,10 @@ export function TradeTable({ rows, recommended, chosen, onChoose }: {
   const wu = units.system === 'metric' ? 'g' : 'lb';
   const columns: Column<TradeRow, TradeSortKey>[] = [
     {
-      key: 'gauge', title: `Gauge, ${units.label('length')}`, sortKey: 'gauge', minWidth: 72, flex: 0.9, render: (r) => (
+      key: 'gauge', title: `Gauge, ${units.label('length')}`, sortKey: 'gauge', minWidth: 76, flex: 0.9, render: (r) => (
         <View style={styles.gauge}>
-          {sameCandidate(r, chosen) ? <Txt bold tone="accent" testID={`${tradeRowTestId(r)}-chosen`} role="img" aria-label="shown">▶</Txt> : null}
-          <Mono bold tone={sameCandidate(r, chosen) ? 'accent' : 'ink'}>{units.lengthNumber(r.gaugeIn)}</Mono>
+          {sameCandidate(r, chosen) ? <Txt variant="small" bold tone="accent" testID={`${tradeRowTestId(r)}-chosen`} role="img" aria-label="shown">▶</Txt> : null}
+          <Mono variant="small" bold tone={sameCandidate(r, chosen) ? 'accent' : 'ink'}>{units.lengthNumber(r.gaugeIn)}</Mono>
         </View>
       ),
     },
