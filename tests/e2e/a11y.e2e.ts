@@ -1,12 +1,12 @@
 import { readFileSync } from 'node:fs';
 import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
 import type { TestApp } from '../helpers/test-app';
 import { contrast } from '../components/colour-math';
-import { gatherIds, keepScreenshot, routes, shotName, signedInContext, visible, type Ids, type Role } from './helpers/audit-routes';
+import { gatherIds, keepScreenshot, routes, shotName, routeWalker, signedInContext, visible, type Ids } from './helpers/audit-routes';
 import { launchBrowser } from './helpers/browser';
 import { serveTestApp } from './helpers/served-app';
 
@@ -76,20 +76,11 @@ function describeViolations(route: string, width: string, vs: Violation[]): stri
 }
 
 describe.each(widths)('every route of every role passes axe (WCAG 2.1 A/AA) at $name width', (w) => {
-  const pages = new Map<Role, { context: BrowserContext; page: Page }>();
-  afterAll(async () => {
-    for (const p of pages.values()) await p.context.close().catch(() => undefined);
-  });
+  const walker = routeWalker(w, () => ({ browser, base, ids }));
+  afterAll(() => walker.closeAll());
 
   it.each(routes)('$role: $name', async (r) => {
-    if (!pages.has(r.role)) pages.set(r.role, await signedInContext(browser, base, r.role, w));
-    const { page } = pages.get(r.role)!;
-    await page.goto(r.path(ids));
-    await visible(page, r.ready).waitFor({ timeout: 30000 });
-    await page.waitForFunction(() => !document.querySelector('[data-testid="loading"]'), undefined, { timeout: 30000 }).catch(() => undefined);
-    // Fonts in, layout settled.
-    await page.evaluate(() => document.fonts.ready);
-    await page.waitForTimeout(300);
+    const page = await walker.open(r);
     const found = await audit(page);
     await keepScreenshot(page, artefacts, shotName(w.name, r.role, r.name), w.viewport);
     if (found.length) throw new Error(`${found.reduce((n, v) => n + v.nodes.length, 0)} failing elements\n${describeViolations(`${r.role} ${r.name} (${r.path(ids)})`, w.name, found)}`);

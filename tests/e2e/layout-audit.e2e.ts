@@ -1,8 +1,8 @@
 import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import type { TestApp } from '../helpers/test-app';
-import { gatherIds, keepScreenshot, routes, shotName, signedInContext, visible, type Ids, type Role, type Width } from './helpers/audit-routes';
+import { gatherIds, keepScreenshot, routes, shotName, routeWalker, type Ids, type Width } from './helpers/audit-routes';
 import { launchBrowser } from './helpers/browser';
 import { serveTestApp } from './helpers/served-app';
 
@@ -340,20 +340,11 @@ afterAll(async () => {
 });
 
 describe.each(widths)('every route of every role lays out at $name width', (w) => {
-  const pages = new Map<Role, { context: BrowserContext; page: Page }>();
-  afterAll(async () => {
-    for (const p of pages.values()) await p.context.close().catch(() => undefined);
-  });
+  const walker = routeWalker(w, () => ({ browser, base, ids }));
+  afterAll(() => walker.closeAll());
 
   it.each(routes)('$role: $name', async (r) => {
-    if (!pages.has(r.role)) pages.set(r.role, await signedInContext(browser, base, r.role, w));
-    const { page } = pages.get(r.role)!;
-    await page.goto(r.path(ids));
-    await visible(page, r.ready).waitFor({ timeout: 30000 });
-    await page.waitForFunction(() => !document.querySelector('[data-testid="loading"]'), undefined, { timeout: 30000 }).catch(() => undefined);
-    // Fonts in, layout settled.
-    await page.evaluate(() => document.fonts.ready);
-    await page.waitForTimeout(300);
+    const page = await walker.open(r);
     const failures = await page.evaluate(measureLayout, { appFonts: APP_FONTS, minTarget: MIN_TARGET });
     await keepScreenshot(page, artefacts, shotName(w.name, r.role, r.name), w.viewport);
     // Every failure of the route in one message.

@@ -195,3 +195,27 @@ export async function keepScreenshot(page: Page, dir: string, name: string, view
 
 /** A file name from a route and width. */
 export const shotName = (...parts: string[]) => parts.join('-').replace(/[^a-z0-9]+/gi, '-');
+
+/**
+ * One signed-in page per role at one width, for a walk over the routes: each route opened, its ready
+ * mark shown, loading gone, fonts in and layout settled. Close them with `closeAll` after the walk.
+ */
+export function routeWalker(w: Width, env: () => { browser: Browser; base: string; ids: Ids }) {
+  const pages = new Map<Role, { context: BrowserContext; page: Page }>();
+  return {
+    async open(r: Route): Promise<Page> {
+      const { browser, base, ids } = env();
+      if (!pages.has(r.role)) pages.set(r.role, await signedInContext(browser, base, r.role, w));
+      const { page } = pages.get(r.role)!;
+      await page.goto(r.path(ids));
+      await visible(page, r.ready).waitFor({ timeout: 30000 });
+      await page.waitForFunction(() => !document.querySelector('[data-testid="loading"]'), undefined, { timeout: 30000 }).catch(() => undefined);
+      await page.evaluate(() => document.fonts.ready);
+      await page.waitForTimeout(300);
+      return page;
+    },
+    async closeAll() {
+      for (const p of pages.values()) await p.context.close().catch(() => undefined);
+    },
+  };
+}
