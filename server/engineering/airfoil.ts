@@ -1,5 +1,5 @@
 import { EngineeringInputError } from './errors';
-import { envelope, type EngineeringResult } from './result';
+import { ENGINEERING_CAUTION, envelope, type EngineeringResult } from './result';
 import { evaluateSpline, naturalSpline } from './spline';
 import { requireCount, requireStudyBound, STUDY_BOUNDS } from './bounds';
 import { requireArray } from './validate';
@@ -428,7 +428,17 @@ export function buildAirfoil(input: AirfoilInput, panels: number): AirfoilResult
       `${g.name}: NACA Report 824 ordinates, cosine spacing, ${panels} panels`,
       `trailing edge closed (gap ${(g.trailingEdgeGap * 100).toFixed(3)} % of chord taken out with weight (x/c)⁴)`,
     );
-    return { ...envelope(input, rules, []), ...g, points: closeTrailingEdge(g.points, g.leadingEdgeIndex) };
+    // Spelled out rather than spreads followed by more fields: V8 builds such a literal far slower.
+    return {
+      inputs: input,
+      rules,
+      warnings: [],
+      caution: ENGINEERING_CAUTION,
+      name: g.name,
+      points: closeTrailingEdge(g.points, g.leadingEdgeIndex),
+      leadingEdgeIndex: g.leadingEdgeIndex,
+      trailingEdgeGap: g.trailingEdgeGap,
+    };
   }
   if (input.kind === 'coordinates') {
     const check = normaliseCoordinates(input.points);

@@ -51,6 +51,11 @@ export const DEFAULT_PULL_THROUGH_FRACTION = 0.08;
  */
 export const SOLID_RIVET_TENSION_FRACTION = { protruding: 0.7, countersunk: 0.5 };
 
+const SOLID_TENSION_RULES = {
+  countersunk: 'solid rivet tension taken as 50 % of its shear strength (head-limited; our assumption)',
+  protruding: 'solid rivet tension taken as 70 % of its shear strength (head-limited; our assumption)',
+};
+
 export const COMBINED_RULE = 'combined tension + shear: (Rt)² + (Rs)² ≤ 1, MS = 1/√(Rt² + Rs²) − 1';
 
 /** Single-shear strength of the rivet: tabulated, or F_su·π/4·d_hole². */
@@ -103,6 +108,22 @@ export function combinedMargin(tensionLb: number, shearLb: number, tensionAllowa
  * - never more than the supplier's coupons show for the same rivet in the same or a thicker gauge, of
  *   any sheet material: a thinner flange does not hold more than a thicker one was shown to.
  */
+/**
+ * The fallback's rules by fraction, the same strings from call to call (the last few kept): a study
+ * states them for most of its candidates, and merges them by value.
+ */
+const fallbackRuleMemo: { fraction: number; rules: string[] }[] = [];
+function fallbackRules(fraction: number): string[] {
+  for (const m of fallbackRuleMemo) if (m.fraction === fraction) return m.rules;
+  const rules = [
+    `pull-through without coupons: ultimate ${(fraction * 100).toFixed(0)} % of the sheet's bearing strength at the hole (F_bru·d·t, in proportion to the gauge), limit = ultimate / 1.5`,
+    "pull-through without coupons: never above the coupons' allowables for the same rivet in the same or a thicker gauge (any sheet material)",
+  ];
+  if (fallbackRuleMemo.length >= 4) fallbackRuleMemo.shift();
+  fallbackRuleMemo.push({ fraction, rules });
+  return rules;
+}
+
 export function pullThroughFallback(
   p: { fraction: number; bearingUltimateLb: number; rivetCode: string; gaugeIn: number; coupons: CouponTest[] },
   /** `validateCoupons(p.coupons)`, when the caller has it already */
@@ -119,10 +140,7 @@ export function pullThroughFallback(
   requireNonNegative(p.bearingUltimateLb, 'bearingUltimateLb', 'the bearing strength');
   let ultimateLb = p.fraction * p.bearingUltimateLb;
   let limitLb = ultimateLb / 1.5;
-  const rules = [
-    `pull-through without coupons: ultimate ${(p.fraction * 100).toFixed(0)} % of the sheet's bearing strength at the hole (F_bru·d·t, in proportion to the gauge), limit = ultimate / 1.5`,
-    "pull-through without coupons: never above the coupons' allowables for the same rivet in the same or a thicker gauge (any sheet material)",
-  ];
+  const rules = [...fallbackRules(p.fraction)];
   const warnings: string[] = [];
   const code = p.rivetCode.trim().toUpperCase();
   const sameRivet = (validated ?? validateCoupons(p.coupons)).filter((t) => t.rivetSpec.trim().toUpperCase() === code && t.gaugeIn >= p.gaugeIn - GAUGE_MATCH_TOLERANCE_IN);
@@ -168,7 +186,7 @@ export function jointAllowables(input: JointInput): JointAllowables {
   const shearUltimate = Math.min(rivetShear, bearingUltimateLb);
 
   const rivetTension = rivetTensionStrengthLb(rivet);
-  if (rivet.tensionLb === undefined) rules.push(`solid rivet tension taken as ${rivet.countersunk ? '50' : '70'} % of its shear strength (head-limited; our assumption)`);
+  if (rivet.tensionLb === undefined) rules.push(rivet.countersunk ? SOLID_TENSION_RULES.countersunk : SOLID_TENSION_RULES.protruding);
   const tests = validateCoupons(input.coupons ?? []);
   const coupons = matchedCouponAllowables(tests, { material: material.key, gaugeIn, rivetSpec: rivet.code });
   let basis: 'coupons' | 'fallback';

@@ -160,13 +160,13 @@ export const MAX_ZONING_RUNS = 200;
 export function requireWithin(value: unknown, field: string, bound: Bound): number {
   const v = requireFinite(value, field);
   if (bound.integer && !Number.isInteger(v)) throw new EngineeringInputError(field, `${bound.what} must be a whole number (got ${v})`);
-  const unit = bound.unit ? ` ${bound.unit}` : '';
+  // (the unit's text is made only for a refusal: a study checks some hundred values)
   if (bound.maxExclusive) {
-    if (v < bound.min || v >= bound.max) throw new EngineeringInputError(field, `${bound.what} must be at least ${formatBound(bound.min)} and below ${formatBound(bound.max)}${unit} (got ${v})`);
+    if (v < bound.min || v >= bound.max) throw new EngineeringInputError(field, `${bound.what} must be at least ${formatBound(bound.min)} and below ${formatBound(bound.max)}${unitText(bound)} (got ${v})`);
     return v;
   }
   if (v < bound.min || v > bound.max) {
-    throw new EngineeringInputError(field, `${bound.what} must be between ${formatBound(bound.min)} and ${formatBound(bound.max)}${unit} (got ${v})`);
+    throw new EngineeringInputError(field, `${bound.what} must be between ${formatBound(bound.min)} and ${formatBound(bound.max)}${unitText(bound)} (got ${v})`);
   }
   return v;
 }
@@ -186,6 +186,8 @@ export function requireStudyBound(value: unknown, key: StudyBoundKey, field: str
 export function requireWingBound(value: unknown, key: WingBoundKey, field: string = key): number {
   return requireWithin(value, field, WING_BOUNDS[key]);
 }
+
+const unitText = (bound: Bound): string => (bound.unit ? ` ${bound.unit}` : '');
 
 function formatBound(n: number): string {
   return Number.isInteger(n) ? n.toLocaleString('en-US') : String(Math.round(n * 1e4) / 1e4);

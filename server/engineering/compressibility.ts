@@ -1,7 +1,7 @@
 import { densitySlugPerFt3, SEA_LEVEL_DENSITY_SLUG_FT3, speedOfSoundFtPerS } from './atmosphere';
-import { requireCount, requireWingBound } from './bounds';
+import { requireCount, requireWingBound, WING_BOUNDS } from './bounds';
 import { EngineeringInputError } from './errors';
-import type { CpSample } from './panel-method';
+import type { CpSample, PanelSolution, SurfaceSolution } from './panel-method';
 import { FT_PER_S_PER_KNOT } from './units';
 import { requireArray, requireFinite } from './validate';
 
@@ -121,6 +121,76 @@ export interface CorrectedDistribution {
   warnings: string[];
 }
 
+const CP_BOUND = WING_BOUNDS.cp;
+
+/**
+ * `compressibleCp` of every sample, the same arithmetic with β and the vacuum limit worked out once (a
+ * study corrects some 160 samples for each of its conditions); null when any sample is not a finite Cp
+ * within its bound, has no correction, or is not a plain object, which the sample-by-sample path then
+ * refuses with the sample's name.
+ */
+function correctedQuickly(samples: CpSample[], m: number, rule: CompressibilityRule): CpSample[] | null {
+  if (rule !== 'prandtl-glauert' && rule !== 'karman-tsien') return null;
+  const beta = Math.sqrt(1 - m * m);
+  const k = (m * m) / (1 + beta);
+  const vacuum = m === 0 ? -Infinity : -2 / (GAMMA_AIR * m * m);
+  const out: CpSample[] = new Array(samples.length);
+  for (let i = 0; i < samples.length; i++) {
+    const s = samples[i];
+    if (s === null || typeof s !== 'object') return null;
+    const c = s.cp;
+    if (typeof c !== 'number' || !(c >= CP_BOUND.min && c <= CP_BOUND.max)) return null;
+    let v: number;
+    if (rule === 'prandtl-glauert') v = c / beta;
+    else {
+      const denominator = beta + k * (c / 2);
+      v = denominator > 0 ? c / denominator : -Infinity;
+    }
+    if (!(v >= vacuum)) return null;
+    out[i] = { xc: s.xc, cp: v };
+  }
+  return out;
+}
+
+/**
+ * `correctCpDistribution(pressureDistribution(flow, alphaRad), mach, rule)` without the uncorrected
+ * samples (every condition of every study makes them, to throw them away): the same arithmetic, Cp₀ taken
+ * from the surface speeds as `pressureDistribution` takes it. Null where `correctCpDistribution` would
+ * refuse anything, which the caller then leaves to it to refuse by name.
+ */
+export function correctFlowPressures(flow: PanelSolution, alphaRad: number, mach: number, rule: CompressibilityRule): CorrectedDistribution | null {
+  if (!(typeof mach === 'number' && mach >= WING_BOUNDS.mach.min && mach < WING_BOUNDS.mach.max)) return null;
+  const ca = Math.cos(alphaRad);
+  const sa = Math.sin(alphaRad);
+  const upper = correctedSurface(flow.upper, ca, sa, mach, rule);
+  const lower = upper && correctedSurface(flow.lower, ca, sa, mach, rule);
+  return upper && lower ? corrected(mach, rule, upper, lower) : null;
+}
+
+/** `correctedQuickly` of one surface's Cp₀ = 1 − v², v = cos α·ga + sin α·gb (as surfaceCp makes them). */
+function correctedSurface(surf: SurfaceSolution, ca: number, sa: number, m: number, rule: CompressibilityRule): CpSample[] | null {
+  const n = surf.x.length;
+  if (n < 1 || n > MAX_CP_SAMPLES) return null;
+  const beta = Math.sqrt(1 - m * m);
+  const k = (m * m) / (1 + beta);
+  const vacuum = m === 0 ? -Infinity : -2 / (GAMMA_AIR * m * m);
+  const out: CpSample[] = new Array(n);
+  for (let i = 0; i < n; i++) {
+    const speed = ca * surf.ga[i] + sa * surf.gb[i];
+    const c = 1 - speed * speed;
+    if (!(c >= CP_BOUND.min && c <= CP_BOUND.max)) return null;
+    let v: number;
+    if (rule === 'prandtl-glauert') v = c / beta;
+    else if (rule === 'karman-tsien') {
+      const denominator = beta + k * (c / 2);
+      v = denominator > 0 ? c / denominator : -Infinity;
+    } else return null;
+    if (!(v >= vacuum)) return null;
+    out[i] = { xc: surf.x[i], cp: v };
+  }
+  return out;
+}
+
 /**
  * A section's Cp on both surfaces corrected to Mach `mach` by `rule` (the wing study applies this to
  * each condition at its own Mach number). At M = 0 the samples come back unchanged.
@@ -130,6 +200,9 @@ export function correctCpDistribution(cp: { upper: CpSample[]; lower: CpSample[]
   const fix = (samples: CpSample[], field: string) => {
     requireArray<CpSample>(samples, field, 1, 'list of Cp samples');
     requireCount(samples, field, { what: 'the number of Cp samples', min: 1, max: MAX_CP_SAMPLES, unit: 'samples', integer: true });
+    const quick = correctedQuickly(samples, m, rule);
+    if (quick) return quick;
+    // A sample the quick pass does not take: sample by sample, to refuse the first bad one by name.
     return samples.map((s, i) => {
       const at = `${field}[${i}].cp`;
       try {
@@ -141,8 +214,11 @@ export function correctCpDistribution(cp: { upper: CpSample[]; lower: CpSample[]
       }
     });
   };
-  const upper = fix(cp.upper, 'cp.upper');
-  const lower = fix(cp.lower, 'cp.lower');
+  return corrected(m, rule, fix(cp.upper, 'cp.upper'), fix(cp.lower, 'cp.lower'));
+}
+
+/** The corrected samples with their peak, Cp* and the warning when the peak passes it. */
+function corrected(m: number, rule: CompressibilityRule, upper: CpSample[], lower: CpSample[]): CorrectedDistribution {
   let peakCp = Infinity;
   for (const s of upper) peakCp = Math.min(peakCp, s.cp);
   for (const s of lower) peakCp = Math.min(peakCp, s.cp);

@@ -1,7 +1,7 @@
 import { densitySlugPerFt3, dynamicPressurePsi, GRAVITY_FT_S2 } from './atmosphere';
 import { EngineeringInputError } from './errors';
 import { ASPECT_RATIO_RANGE, requireStudyBound, WING_LOADING_RANGE_PSF } from './bounds';
-import { envelope, type EngineeringResult } from './result';
+import { ENGINEERING_CAUTION, type EngineeringResult } from './result';
 import { THIN_AIRFOIL_LIFT_SLOPE } from './thin-airfoil';
 import { inToFt, SQIN_PER_SQFT } from './units';
 import { requireNonNegative, requireOneOf, requirePositive } from './validate';
@@ -235,8 +235,12 @@ export function designConditions(kit: KitInput): DesignConditionsResult {
     make('gust-down-vd', 'down-gust at VD', 'gust', gustD.negative, diveKeas),
   ];
 
+  // Spelled out rather than `...envelope(…)` followed by more fields: V8 builds such a literal far slower.
   return {
-    ...envelope(kit, rules, warnings),
+    inputs: kit,
+    rules,
+    warnings,
+    caution: ENGINEERING_CAUTION,
     wingLoadingPsf,
     loadFactors,
     speeds: { stallKeas: kit.stallSpeedKeas, maneuveringKeas, cruiseKeas, diveKeas, cruiseMinKeas, diveMinKeas },

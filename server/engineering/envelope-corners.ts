@@ -1,7 +1,7 @@
 import { dynamicPressurePsi } from './atmosphere';
-import { designConditions, type Category, type DesignCondition, type KitInput } from './design-conditions';
+import { designConditions, type Category, type DesignCondition, type DesignConditionsResult, type KitInput } from './design-conditions';
 import { flapConditions, type FlapInput } from './flap-conditions';
-import { envelope, type EngineeringResult } from './result';
+import { ENGINEERING_CAUTION, type EngineeringResult } from './result';
 import { SQIN_PER_SQFT } from './units';
 
 /**
@@ -42,8 +42,12 @@ export interface NegativeCornersResult extends EngineeringResult<KitInput> {
   conditions: DesignCondition[];
 }
 
-export function negativeEnvelopeCorners(kit: KitInput): NegativeCornersResult {
-  const design = designConditions(kit);
+export function negativeEnvelopeCorners(
+  kit: KitInput,
+  /** `designConditions(kit)`, when the caller has it already */
+  known?: DesignConditionsResult,
+): NegativeCornersResult {
+  const design = known ?? designConditions(kit);
   const byId = (id: string) => design.conditions.find((c) => c.id === id) as DesignCondition;
   const diveKeas = design.speeds.diveKeas;
   const qPsi = dynamicPressurePsi(diveKeas);
@@ -72,8 +76,12 @@ export function negativeEnvelopeCorners(kit: KitInput): NegativeCornersResult {
     `negative maneuvering factor ${design.loadFactors.negative.toFixed(2)} at VC, varying linearly to ${nDive.toFixed(1)} at VD (14 CFR 23.333(b)(2), (3))`,
     'negative corners of the flight envelope at VC and VD: the more negative of the maneuver and down-gust factors (14 CFR 23.333(d))',
   ];
+  // Spelled out rather than `...envelope(…)` followed by more fields: V8 builds such a literal far slower.
   return {
-    ...envelope(kit, rules, []),
+    inputs: kit,
+    rules,
+    warnings: [],
+    caution: ENGINEERING_CAUTION,
     atCruise: corner(byId('maneuver-down-vc'), byId('gust-down-vc')),
     atDive: corner(maneuverAtDive, byId('gust-down-vd')),
     conditions: [maneuverAtDive],
@@ -88,14 +96,23 @@ export interface EnvelopeConditionsResult extends EngineeringResult<{ kit: KitIn
  * Every condition of the envelope a wing study takes: the clean conditions of design-conditions.ts, the
  * negative maneuver at VD, and, when the kit has flaps, the flaps-extended conditions of 23.345.
  */
-export function envelopeConditions(kit: KitInput, flaps?: FlapInput): EnvelopeConditionsResult {
-  const design = designConditions(kit);
-  const corners = negativeEnvelopeCorners(kit);
-  const flapped = flaps === undefined ? null : flapConditions(kit, flaps);
+export function envelopeConditions(
+  kit: KitInput,
+  flaps?: FlapInput,
+  /** `designConditions(kit)`, when the caller has it already: the clean conditions are worked out once */
+  known?: DesignConditionsResult,
+): EnvelopeConditionsResult {
+  const design = known ?? designConditions(kit);
+  const corners = negativeEnvelopeCorners(kit, design);
+  const flapped = flaps === undefined ? null : flapConditions(kit, flaps, design);
   const rules = [...design.rules, ...corners.rules, ...(flapped ? flapped.rules : [])];
   const warnings = [...design.warnings, ...(flapped ? flapped.warnings : [])];
+  // Spelled out rather than `...envelope(…)` followed by more fields: V8 builds such a literal far slower.
   return {
-    ...envelope({ kit, flaps }, rules, warnings),
+    inputs: { kit, flaps },
+    rules,
+    warnings,
+    caution: ENGINEERING_CAUTION,
     conditions: [...design.conditions, ...corners.conditions, ...(flapped ? flapped.conditions : [])],
   };
 }

@@ -1,8 +1,8 @@
 import { requireWingBound } from './bounds';
-import { designConditions, gustLoadFactors, type DesignCondition, type KitInput } from './design-conditions';
+import { designConditions, gustLoadFactors, type DesignCondition, type DesignConditionsResult, type KitInput } from './design-conditions';
 import { dynamicPressurePsi } from './atmosphere';
 import { EngineeringInputError } from './errors';
-import { envelope, type EngineeringResult } from './result';
+import { ENGINEERING_CAUTION, type EngineeringResult } from './result';
 import { inToFt, SQIN_PER_SQFT } from './units';
 
 /**
@@ -73,9 +73,14 @@ function validateFlaps(flaps: FlapInput, kit: KitInput): void {
  * The flaps-extended conditions of a kit: the 2.0 maneuver and the ±25 ft/s gusts at VF, each with its
  * CL needed = nW/(qS) in the form of the clean-wing conditions (design-conditions.ts).
  */
-export function flapConditions(kit: KitInput, flaps: FlapInput): FlapConditionsResult {
+export function flapConditions(
+  kit: KitInput,
+  flaps: FlapInput,
+  /** `designConditions(kit)`, when the caller has it already */
+  design?: DesignConditionsResult,
+): FlapConditionsResult {
   // The clean conditions validate the kit and give the lift slope, density and VC the flaps case reads.
-  const clean = designConditions(kit);
+  const clean = design ?? designConditions(kit);
   validateFlaps(flaps, kit);
   const warnings: string[] = [];
   const designMinKeas = flapDesignSpeedKeas(kit.stallSpeedKeas, flaps.stallSpeedKeas);
@@ -119,8 +124,12 @@ export function flapConditions(kit: KitInput, flaps: FlapInput): FlapConditionsR
     'flaps extended: the section pressure with the flap deflected differs from the clean section\'s (more load aft); give a Cp table of the flapped section for these conditions',
     'the flap itself, its mechanism and supports (23.345(d): head-on gust and slipstream) are not checked here',
   );
+  // Spelled out rather than `...envelope(…)` followed by more fields: V8 builds such a literal far slower.
   return {
-    ...envelope({ kit, flaps }, rules, warnings),
+    inputs: { kit, flaps },
+    rules,
+    warnings,
+    caution: ENGINEERING_CAUTION,
     speeds: { stallCleanKeas: kit.stallSpeedKeas, stallFlapsKeas: flaps.stallSpeedKeas, designMinKeas, designKeas },
     loadFactors: { maneuver: FLAP_MANEUVER_FACTOR, gustUp: gust.positive, gustDown: gust.negative },
     conditions,

@@ -156,9 +156,29 @@ export const RIVETS: RivetSpec[] = [
   }),
 ];
 
+/**
+ * The built-in entries by upper-cased key, the first of equals kept (as `find` over the list would): a
+ * study looks a rivet up some hundred times. Rebuilt should the list change length.
+ */
+function byKey<T>(list: T[], key: (t: T) => string): () => Map<string, T> {
+  let map = new Map<string, T>();
+  let size = -1;
+  return () => {
+    if (size !== list.length) {
+      map = new Map();
+      for (const t of list) if (!map.has(key(t).toUpperCase())) map.set(key(t).toUpperCase(), t);
+      size = list.length;
+    }
+    return map;
+  };
+}
+const materialsByKey = byKey(MATERIALS, (m) => m.key);
+const rivetsByCode = byKey(RIVETS, (r) => r.code);
+
 export function findMaterial(key: string, extra: SheetMaterial[] = [], field = 'material'): SheetMaterial {
   const k = String(key ?? '').trim().toUpperCase();
-  const found = [...extra, ...MATERIALS].find((m) => m.key.toUpperCase() === k);
+  // The caller's entries first, then the built-in ones: [...extra, ...MATERIALS].find without the copy.
+  const found = (extra.length > 0 ? extra.find((m) => m.key.toUpperCase() === k) : undefined) ?? materialsByKey().get(k);
   if (!found) {
     throw new EngineeringInputError(field, `unknown sheet material "${key}"; known: ${[...extra, ...MATERIALS].map((m) => m.key).join(', ')}`);
   }
@@ -167,7 +187,7 @@ export function findMaterial(key: string, extra: SheetMaterial[] = [], field = '
 
 export function findRivet(code: string, extra: RivetSpec[] = [], field = 'rivetSpec'): RivetSpec {
   const k = String(code ?? '').trim().toUpperCase();
-  const found = [...extra, ...RIVETS].find((r) => r.code.toUpperCase() === k);
+  const found = (extra.length > 0 ? extra.find((r) => r.code.toUpperCase() === k) : undefined) ?? rivetsByCode().get(k);
   if (!found) throw new EngineeringInputError(field, `unknown rivet spec "${code}"`);
   return found;
 }

@@ -1,6 +1,6 @@
 import type { Point, Surface } from './airfoil';
 import { EngineeringInputError } from './errors';
-import { luFactor, luSolve, SingularMatrixError } from './linear-solve';
+import { luFactorInPlace, luSolve, SingularMatrixError } from './linear-solve';
 
 /**
  * Two-dimensional inviscid flow about an airfoil: linear-strength vortex panels in the stream-function
@@ -66,6 +66,53 @@ function streamCoefficients(x: number, y: number, s: number, r1s: number, r2s: n
   out[1] = i1 / s / TWO_PI;
 }
 
+/**
+ * Room for the node-to-node tables, kept from one solution to the next (every entry a solution reads it
+ * writes first): two n² tables per study are some 400 kB that would otherwise be made and collected.
+ */
+let tables: { dist2: Float64Array; lnDist: Float64Array } | null = null;
+function distanceTables(n: number): { dist2: Float64Array; lnDist: Float64Array } {
+  if (!tables || tables.dist2.length < n * n) tables = { dist2: new Float64Array(n * n), lnDist: new Float64Array(n * n) };
+  return tables;
+}
+
+/** Node i's distances to the nodes after it, and their ln r, into both halves of the tables. */
+function distanceRow(nodes: Point[], i: number, dist2: Float64Array, lnDist: Float64Array): void {
+  const n = nodes.length;
+  const xi = nodes[i][0];
+  const yi = nodes[i][1];
+  dist2[i * n + i] = 0;
+  lnDist[i * n + i] = 0;
+  for (let k = i + 1; k < n; k++) {
+    const dx = xi - nodes[k][0];
+    const dy = yi - nodes[k][1];
+    const d2 = dx * dx + dy * dy;
+    const ln = d2 > 0 ? 0.5 * Math.log(d2) : 0;
+    dist2[i * n + k] = d2;
+    dist2[k * n + i] = d2;
+    lnDist[i * n + k] = ln;
+    lnDist[k * n + i] = ln;
+  }
+}
+
+/** Row i of the matrix: ψ at node i from every panel's vortex sheet, less the body's ψ₀. */
+function streamRow(nodes: Point[], i: number, m: number, len: Float64Array, tx: Float64Array, ty: Float64Array, dist2: Float64Array, lnDist: Float64Array, a: Float64Array, c: Float64Array): void {
+  const n = nodes.length;
+  const panels = n - 1;
+  const row = i * m;
+  const xi = nodes[i][0];
+  const yi = nodes[i][1];
+  const at = i * n;
+  for (let j = 0; j < panels; j++) {
+    const dx = xi - nodes[j][0];
+    const dy = yi - nodes[j][1];
+    streamCoefficients(dx * tx[j] + dy * ty[j], -dx * ty[j] + dy * tx[j], len[j], dist2[at + j], dist2[at + j + 1], lnDist[at + j], lnDist[at + j + 1], c);
+    a[row + j] += c[0];
+    a[row + j + 1] += c[1];
+  }
+  a[row + n] = -1;
+}
+
 /** Velocity (u along the panel, v normal to it) at (x, y) off the panel, coefficients of γa and γb. */
 function velocityCoefficients(x: number, y: number, s: number): { ua: number; ub: number; va: number; vb: number } {
   const subtended = Math.atan2(y * s, x * (x - s) + y * y);
@@ -104,28 +151,14 @@ export function solvePanelMethod(contour: Point[], leadingEdgeIndex?: number): P
   const m = n + 1;
   const a = new Float64Array(m * m);
   const c = new Float64Array(2);
-  const r2 = new Float64Array(n);
-  const lnr = new Float64Array(n);
-  for (let i = 0; i < n - 1; i++) {
-    const row = i * m;
-    const xi = nodes[i][0];
-    const yi = nodes[i][1];
-    // ln r at a panel's own end node is multiplied by zero: take the limit (0).
-    for (let k = 0; k < n; k++) {
-      const dx = xi - nodes[k][0];
-      const dy = yi - nodes[k][1];
-      r2[k] = dx * dx + dy * dy;
-      lnr[k] = r2[k] > 0 ? 0.5 * Math.log(r2[k]) : 0;
-    }
-    for (let j = 0; j < panels; j++) {
-      const dx = xi - nodes[j][0];
-      const dy = yi - nodes[j][1];
-      streamCoefficients(dx * tx[j] + dy * ty[j], -dx * ty[j] + dy * tx[j], len[j], r2[j], r2[j + 1], lnr[j], lnr[j + 1], c);
-      a[row + j] += c[0];
-      a[row + j + 1] += c[1];
-    }
-    a[row + n] = -1;
-  }
+  // Squared distances between nodes and their ln r, row by row. The distance from i to k is the one from
+  // k to i (the same bits: only the signs of dx, dy differ), so each logarithm is taken once for the
+  // pair: half the logarithms. ln r at a panel's own end node is multiplied by zero: take the limit (0).
+  const { dist2, lnDist } = distanceTables(n);
+  // Row by row, each in a function of its own: V8 compiles such a function whole, where a loop this long
+  // in here was compiled from inside it and the code after it, not yet run, then threw that away.
+  for (let i = 0; i < n; i++) distanceRow(nodes, i, dist2, lnDist);
+  for (let i = 0; i < n - 1; i++) streamRow(nodes, i, m, len, tx, ty, dist2, lnDist, a, c);
 
   const te = nodes[0];
   const d1x = nodes[1][0] - te[0];
@@ -158,7 +191,7 @@ export function solvePanelMethod(contour: Point[], leadingEdgeIndex?: number): P
 
   let factors;
   try {
-    factors = luFactor(a, m);
+    factors = luFactorInPlace(a, m); // the matrix is not read again: factored where it lies
   } catch (e) {
     if (e instanceof SingularMatrixError) throw new EngineeringInputError('airfoil.points', 'the outline is degenerate: the flow about it cannot be solved');
     throw e;

@@ -1,3 +1,4 @@
+import { packed } from './arrays';
 import { surfacePoints, type AirfoilGeometry, type Point, type Surface } from './airfoil';
 import { EngineeringInputError } from './errors';
 
@@ -56,14 +57,6 @@ function segmentAt(cumulative: number[], s: number, from = 1): number {
   return i;
 }
 
-function pointAtArc(surface: Point[], cumulative: number[], s: number, i = segmentAt(cumulative, s)): Point {
-  const span = cumulative[i] - cumulative[i - 1];
-  const t = span > 0 ? Math.min(1, Math.max(0, (s - cumulative[i - 1]) / span)) : 0;
-  const a = surface[i - 1];
-  const b = surface[i];
-  return [a[0] + t * (b[0] - a[0]), a[1] + t * (b[1] - a[1])];
-}
-
 export function validateLine(line: FastenerLineInput, field: string): void {
   if (line === null || typeof line !== 'object') throw new EngineeringInputError(field, 'each fastener line must be an object');
   if (typeof line.name !== 'string' || !line.name.trim()) throw new EngineeringInputError(`${field}.name`, 'the line needs a name');
@@ -94,17 +87,39 @@ export function lineStationCount(geometry: AirfoilGeometry, line: FastenerLineIn
 
 /** Stations along a line at most `stepIn` apart (along the surface), at the rib's chord. */
 export function lineStations(geometry: AirfoilGeometry, line: FastenerLineInput, chordIn: number, stepIn: number): LineStation[] {
+  const c = lineStationColumns(geometry, line, chordIn, stepIn);
+  const stations: LineStation[] = new Array(c.x.length);
+  for (let k = 0; k < stations.length; k++) stations[k] = { xc: c.xc[k], stationIn: c.x[k], alongIn: c.along[k], xIn: c.x[k], yIn: c.y[k] };
+  return stations;
+}
+
+/** `lineStations` as columns, one entry per station (x is also the station): what a study's loads are made from. */
+export function lineStationColumns(geometry: AirfoilGeometry, line: FastenerLineInput, chordIn: number, stepIn: number): { xc: number[]; x: number[]; y: number[]; along: number[] } {
   const { surface, cumulative, s0, s1 } = lineArc(geometry, line, chordIn);
   const count = Math.max(2, Math.ceil((s1 - s0) / stepIn) + 1);
+  // (packed arrays: see arrays.ts)
+  const xc = packed(count, 0);
+  const xs = packed(count, 0);
+  const ys = packed(count, 0);
+  const along = packed(count, 0);
   // The stations come in order along the surface: the search for each picks up where the last one ended
   // (every segment it skipped ends before the station), instead of walking from the start each time.
   let segment = 1;
   let last = -Infinity;
-  return Array.from({ length: count }, (_, k) => {
+  for (let k = 0; k < count; k++) {
     const s = s0 + ((s1 - s0) * k) / (count - 1);
     segment = segmentAt(cumulative, s, s >= last ? segment : 1);
     last = s;
-    const [x, y] = pointAtArc(surface, cumulative, s, segment);
-    return { xc: x / chordIn, stationIn: x, alongIn: s - s0, xIn: x, yIn: y };
-  });
+    // the point at arc length s on its segment
+    const span = cumulative[segment] - cumulative[segment - 1];
+    const t = span > 0 ? Math.min(1, Math.max(0, (s - cumulative[segment - 1]) / span)) : 0;
+    const a = surface[segment - 1];
+    const b = surface[segment];
+    const x = a[0] + t * (b[0] - a[0]);
+    xc[k] = x / chordIn;
+    xs[k] = x;
+    ys[k] = a[1] + t * (b[1] - a[1]);
+    along[k] = s - s0;
+  }
+  return { xc, x: xs, y: ys, along };
 }

@@ -1,4 +1,5 @@
-import { buildAirfoil, type AirfoilGeometry, type AirfoilInput } from './airfoil';
+import { packed } from './arrays';
+import { buildAirfoil, type AirfoilGeometry, type AirfoilInput, type Point } from './airfoil';
 import { validateCoupons } from './coupons';
 import { cpFromTables, validateCpTables, type CpTableInput } from './cp-table';
 import { designConditions, type DesignCondition, type DesignConditionsResult, type KitInput } from './design-conditions';
@@ -6,17 +7,17 @@ import { EngineeringInputError } from './errors';
 import { layoutRules, rivetWeightLb } from './layout';
 import { findMaterial, findRivet, type RivetSpec } from './materials';
 import { alphaForLiftCoefficient, pressureDistribution, solvePanelMethod, type CpSample, type PanelSolution } from './panel-method';
-import { holePrefixFor, pitchSchedule, prepareStations, scheduleAllowables, requirePitchGrid, validateScheduleSettings, type CandidateSettings, type PitchScheduleResult, type PreparedLine, type ScheduleHole, type StationLoad } from './pitch-schedule';
-import { compactNumbers, envelope, type EngineeringResult } from './result';
-import { lineStations, outlineAreaSqIn, ribOutline, validateLine, type FastenerLineInput } from './rib-geometry';
-import { loadEnvelope, shearFlowLbPerIn, ULTIMATE_FACTOR } from './rivet-loads';
+import { holePrefixFor, prepareColumns, scheduleAllowables, scheduleLine, requirePitchGrid, validateScheduleSettings, type CandidateSettings, type InsufficientRange, type PitchScheduleResult, type PreparedLine, type ScheduledLine, type ScheduleHole, type ScheduleZone } from './pitch-schedule';
+import { compactNumbers, ENGINEERING_CAUTION, type EngineeringResult } from './result';
+import { lineStationColumns, outlineAreaSqIn, ribOutline, validateLine, type FastenerLineInput } from './rib-geometry';
+import { envelopeColumns, shearFlowLbPerIn, ULTIMATE_FACTOR } from './rivet-loads';
 import { tradeStudy, type RankBy, type TradeCandidate, type TradeRow } from './trade-study';
 import { radToDeg } from './units';
 import { roundStored } from './rounding';
 import { requireCount, requireStudyBound, STUDY_BOUNDS, WING_BOUNDS } from './bounds';
 import { estimateStudyWork, requireStudyBudget, type StudyWork } from './study-work';
 import { requireArray, requireOneOf, requirePositive } from './validate';
-import { COMPRESSIBILITY_RULE_TEXT, COMPRESSIBILITY_RULES, correctCpDistribution, machNumber, type CompressibilityRule } from './compressibility';
+import { COMPRESSIBILITY_RULE_TEXT, COMPRESSIBILITY_RULES, correctCpDistribution, correctFlowPressures, machNumber, type CompressibilityRule } from './compressibility';
 import { envelopeConditions } from './envelope-corners';
 import type { FlapInput } from './flap-conditions';
 
@@ -192,27 +193,104 @@ export function validateStudy(input: RibStudyInput): RivetSpec[] {
 function thin<T>(items: T[], keep: number): T[] {
   if (items.length <= keep) return items;
   const step = (items.length - 1) / (keep - 1);
-  return Array.from({ length: keep }, (_, k) => items[Math.round(k * step)]);
+  const out: T[] = new Array(keep);
+  for (let k = 0; k < keep; k++) out[k] = items[Math.round(k * step)];
+  return out;
+}
+
+/** The indices `thin` keeps of `count` items. */
+function thinIndices(count: number, keep: number): number[] {
+  if (count <= keep) return Array.from({ length: count }, (_, k) => k);
+  const step = (count - 1) / (keep - 1);
+  const out: number[] = new Array(keep);
+  for (let k = 0; k < keep; k++) out[k] = Math.round(k * step);
+  return out;
 }
 
 const unique = (xs: string[]): string[] => [...new Set(xs)];
 
-/** A line's schedule without what the study already carries once (its inputs, rules, caution and warnings). */
-function withoutEnvelope(s: PitchScheduleResult): LineSchedule {
-  const { inputs, rules, caution, warnings, ...rest } = s;
-  void inputs, void rules, void caution, void warnings;
-  return rest;
+/*
+ * The stored candidates, Cp samples and outline, to 4 decimals (3 for Cp): what `compactNumbers` makes of
+ * them, written out field by field. A study stores some 2,000 objects, and the generic walk (a key list and
+ * a new object built key by key for each) cost as much as all the pitch schedules' zoning. A field added
+ * to these types must be added here too (the literals are typed: a required one is asked for).
+ */
+const d4 = (v: number): number => (Number.isFinite(v) ? Math.round(v * 1e4) / 1e4 : v);
+const d3 = (v: number): number => (Number.isFinite(v) ? Math.round(v * 1e3) / 1e3 : v);
+const d4OrNull = (v: number | null): number | null => (v === null ? null : d4(v));
+
+function storedZone(z: ScheduleZone): ScheduleZone {
+  return {
+    fromIn: d4(z.fromIn),
+    toIn: d4(z.toIn),
+    fromAlongIn: d4(z.fromAlongIn),
+    toAlongIn: d4(z.toAlongIn),
+    pitchIn: d4(z.pitchIn),
+    count: d4(z.count),
+    worstStationIn: d4(z.worstStationIn),
+    worstHoleId: z.worstHoleId,
+    appliedLimitLb: d4(z.appliedLimitLb),
+    appliedUltimateLb: d4(z.appliedUltimateLb),
+    limitAllowableLb: d4(z.limitAllowableLb),
+    ultimateAllowableLb: d4(z.ultimateAllowableLb),
+    appliedLimitShearLb: d4(z.appliedLimitShearLb),
+    msLimit: d4OrNull(z.msLimit),
+    msUltimate: d4OrNull(z.msUltimate),
+  };
 }
 
-/** Holes as stored: each line says its name once, not on every hole (only for a candidate whose holes are kept). */
-function holesWithoutLine(c: StudyCandidate): StudyCandidate {
-  return { ...c, lines: c.lines.map((l) => ({ ...l, holes: l.holes.map(({ line, ...h }: Omit<ScheduleHole, 'line'> & { line?: string }) => (void line, h)) })) };
+const storedRange = (r: InsufficientRange): InsufficientRange => ({ fromIn: d4(r.fromIn), toIn: d4(r.toIn), neededPitchIn: d4(r.neededPitchIn) });
+
+/**
+ * A line's schedule as stored: without what the study already carries once (its inputs, rules, caution
+ * and warnings), and with its holes or none; a hole without the line's name (the line says it once).
+ */
+function storedLine(s: ScheduledLine, withHoles: boolean): LineSchedule {
+  const b = s.body;
+  const a = b.allowables;
+  return {
+    line: b.line,
+    rivetSpec: b.rivetSpec,
+    drill: { name: b.drill.name, diameterIn: d4(b.drill.diameterIn) },
+    gaugeIn: d4(b.gaugeIn),
+    feasible: b.feasible,
+    reasons: b.reasons,
+    lengthIn: d4(b.lengthIn),
+    layout: { edgeDistanceIn: d4(b.layout.edgeDistanceIn), minPitchIn: d4(b.layout.minPitchIn), maxPitchIn: d4(b.layout.maxPitchIn), pitchIncrementIn: d4(b.layout.pitchIncrementIn) },
+    allowables: {
+      tensionLimitLb: d4(a.tensionLimitLb),
+      tensionUltimateLb: d4(a.tensionUltimateLb),
+      tensionBasis: a.tensionBasis,
+      tensionGoverning: a.tensionGoverning,
+      shearLimitLb: d4(a.shearLimitLb),
+      shearUltimateLb: d4(a.shearUltimateLb),
+      shearGoverning: a.shearGoverning,
+    },
+    zones: b.zones.map(storedZone),
+    holes: withHoles ? s.holes.objects(null, d4) : [],
+    insufficient: b.insufficient.map(storedRange),
+  };
+}
+
+/** Cp samples as stored for the pressure picture: thinned, to 0.001. */
+function storedCp(samples: CpSample[]): CpSample[] {
+  const kept = thin(samples, CP_POINTS);
+  const out: CpSample[] = new Array(kept.length);
+  for (let i = 0; i < kept.length; i++) out[i] = { xc: d3(kept[i].xc), cp: d3(kept[i].cp) };
+  return out;
+}
+
+/** A condition as stored: its figures to six significant figures (roundStored), its Cp thinned (storedCp), last. */
+function storedCondition(c: StudyCondition): StudyCondition {
+  const out: Record<string, unknown> = {};
+  for (const key of Object.keys(c) as (keyof StudyCondition)[]) if (key !== 'cp') out[key] = roundStored(c[key]);
+  out.cp = { upper: storedCp(c.cp.upper), lower: storedCp(c.cp.lower) };
+  return out as unknown as StudyCondition;
 }
 
 interface PreparedStudyLine {
   line: FastenerLineInput;
   prefix: string;
-  loads: StationLoad[];
   prepared: PreparedLine;
   summary: LineLoads;
 }
@@ -240,8 +318,8 @@ export function sectionContext(
   /** called with the outline and the number of conditions before the flow is solved: the work budget's place */
   beforeFlow: (geometry: AirfoilGeometry, conditions: number) => void = () => {},
 ): SectionContext {
-  const env = envelopeConditions(input.kit, input.flaps);
   const design = designConditions(input.kit);
+  const env = envelopeConditions(input.kit, input.flaps, design);
   const geometry = buildAirfoil(input.airfoil, input.panels ?? DEFAULT_PANELS);
   beforeFlow(geometry, env.conditions.length);
   // The panel matrix depends on the geometry only: one factorisation serves every condition (and rib).
@@ -274,20 +352,40 @@ export function conditionPressures(ctx: SectionContext, sectionRatio: (c: Design
     const fromTable = tables ? cpFromTables(tables, sectionCl) : null;
     if (tables && !fromTable) warnings.push(`${c.label}: no Cp table for a lift coefficient of this sign; panel-method pressures used`);
     if (fromTable?.warning) warnings.push(`${c.label}: ${fromTable.warning}`);
-    let cp: { upper: CpSample[]; lower: CpSample[] } = fromTable ?? pressureDistribution(flow, alphaRad);
     if (!fromTable && (c.id === 'maneuver-up-va' || Math.abs(alphaDeg) > HIGH_ALPHA_DEG)) {
       warnings.push(`${c.label} (CL ${sectionCl.toFixed(2)}, α ${alphaDeg.toFixed(1)}°): inviscid suction peak near stall is conservative`);
     }
     const mach = machNumber(c.speedKeas, ctx.altitudeFt);
+    let cp: { upper: CpSample[]; lower: CpSample[] };
     if (ctx.pressureRule !== 'none') {
       if (mach >= WING_BOUNDS.mach.max) {
         throw new EngineeringInputError('kit.diveSpeedKeas', `${c.label} is at Mach ${mach.toFixed(2)}: this tool stops below Mach ${WING_BOUNDS.mach.max}, where neither compressibility rule holds`);
       }
-      const corrected = correctCpDistribution(cp, mach, ctx.pressureRule);
+      // From the flow's surface speeds straight to the corrected pressures where that is sound (see
+      // correctFlowPressures), else by way of the incompressible samples.
+      const corrected =
+        (fromTable ? null : correctFlowPressures(flow, alphaRad, mach, ctx.pressureRule)) ??
+        correctCpDistribution(fromTable ?? pressureDistribution(flow, alphaRad), mach, ctx.pressureRule);
       warnings.push(...corrected.warnings.map((w) => `${c.label}: ${w}`));
       cp = { upper: corrected.upper, lower: corrected.lower };
-    }
-    return { ...c, sectionCl, mach, alphaRad, alphaDeg, pressureSource: fromTable ? 'Cp table' : 'panel method', cp: { upper: cp.upper, lower: cp.lower } };
+    } else cp = fromTable ?? pressureDistribution(flow, alphaRad);
+    // Spelled out rather than `{ ...c, more }`, which V8 builds some hundred times slower.
+    const condition: StudyCondition = {
+      id: c.id,
+      label: c.label,
+      kind: c.kind,
+      n: c.n,
+      speedKeas: c.speedKeas,
+      qPsi: c.qPsi,
+      clNeeded: c.clNeeded,
+      sectionCl,
+      mach,
+      alphaRad,
+      alphaDeg,
+      pressureSource: fromTable ? 'Cp table' : 'panel method',
+      cp: { upper: cp.upper, lower: cp.lower },
+    };
+    return condition;
   });
 }
 
@@ -298,46 +396,74 @@ function lineLoads(input: RibStudyInput, geometry: AirfoilGeometry, conditions: 
   const prefixes = input.lines.map((l) => holePrefixFor(l.name));
   return input.lines.map((line, i) => {
     const prefix = prefixes.indexOf(prefixes[i]) === i ? prefixes[i] : `${prefixes[i]}${i + 1}`;
-    const stations = lineStations(geometry, line, rib.chordIn, STATION_STEP_IN);
-    const env = loadEnvelope(
-      stations.map((s) => s.xc),
+    // Columns, not an object per station: some 600 stations a line go from the outline to the schedules.
+    const st = lineStationColumns(geometry, line, rib.chordIn, STATION_STEP_IN);
+    const n = st.along.length;
+    const env = envelopeColumns(
+      st.xc,
       conditions.map((c) => ({ id: c.id, qPsi: c.qPsi, cpSamples: line.surface === 'upper' ? c.cp.upper : c.cp.lower })),
       internalCp,
       rib.spacingIn,
     );
-    const loads: StationLoad[] = stations.map((s, k) => ({
-      stationIn: s.stationIn,
-      alongIn: s.alongIn,
-      limitTensionLbPerIn: env[k].limitLbPerIn,
-      limitShearLbPerIn: shearFlow,
-      xIn: s.xIn,
-      yIn: s.yIn,
-    }));
-    const kept = thin(
-      stations.map((_, k) => k),
-      ENVELOPE_POINTS,
-    );
+    const prepared = prepareColumns({ along: st.along, tension: env.limitLbPerIn, shear: packed(n, shearFlow), station: st.x, x: st.x, y: st.y });
+    const envelopePoints: EnvelopePoint[] = [];
+    for (const k of thinIndices(n, ENVELOPE_POINTS)) {
+      const w = env.limitLbPerIn[k];
+      envelopePoints.push({ xc: st.xc[k], stationIn: st.x[k], alongIn: st.along[k], xIn: st.x[k], yIn: st.y[k], limitLbPerIn: w, ultimateLbPerIn: ULTIMATE_FACTOR * w, governing: env.governing[k] });
+    }
     const summary: LineLoads = {
       name: line.name,
       surface: line.surface,
       startXc: line.startXc,
       endXc: line.endXc,
       holePrefix: prefix,
-      lengthIn: stations[stations.length - 1].alongIn,
-      fromStationIn: stations[0].stationIn,
-      toStationIn: stations[stations.length - 1].stationIn,
+      lengthIn: st.along[n - 1],
+      fromStationIn: st.x[0],
+      toStationIn: st.x[n - 1],
       shearFlowLbPerIn: Math.abs(shearFlow),
-      envelope: kept.map((k) => {
-        const s = stations[k];
-        return { xc: s.xc, stationIn: s.stationIn, alongIn: s.alongIn, xIn: s.xIn, yIn: s.yIn, limitLbPerIn: env[k].limitLbPerIn, ultimateLbPerIn: ULTIMATE_FACTOR * env[k].limitLbPerIn, governing: env[k].governing };
-      }),
+      envelope: envelopePoints,
     };
-    return { line, prefix, loads, prepared: prepareStations(loads), summary };
+    return { line, prefix, prepared, summary };
   });
 }
 
+/**
+ * A candidate as worked out: its verdict, its lines' schedules with their holes as numbers, and the
+ * number of holes. Every candidate needs its count (the trade table); the stored result keeps the holes
+ * of one (`storedCandidate`).
+ */
+interface BuiltCandidate {
+  gaugeIn: number;
+  rivet: RivetSpec;
+  feasible: boolean;
+  reasons: string[];
+  warnings: string[];
+  pullThroughBasis: 'coupons' | 'fallback';
+  flangeWidthIn: number;
+  rules: string[];
+  rivetCount: number;
+  schedules: ScheduledLine[];
+}
+
+/** The candidate as stored, with the holes of every line or without. */
+function storedCandidate(b: BuiltCandidate, withHoles: boolean): StudyCandidate {
+  const lines: LineSchedule[] = new Array(b.schedules.length);
+  for (let i = 0; i < lines.length; i++) lines[i] = storedLine(b.schedules[i], withHoles);
+  return {
+    holesStored: withHoles,
+    gaugeIn: d4(b.gaugeIn),
+    rivet: b.rivet.code,
+    feasible: b.feasible,
+    reasons: b.reasons,
+    warnings: b.warnings,
+    pullThroughBasis: b.pullThroughBasis,
+    flangeWidthIn: d4(b.flangeWidthIn),
+    lines,
+  };
+}
+
 /** One gauge × rivet candidate: a schedule for every line, and whether the flange fits the rivet. */
-function candidate(input: RibStudyInput, lines: PreparedStudyLine[], gaugeIn: number, rivet: RivetSpec): { candidate: StudyCandidate; rules: string[] } {
+function candidate(input: RibStudyInput, lines: PreparedStudyLine[], gaugeIn: number, rivet: RivetSpec): BuiltCandidate {
   const { rib } = input;
   const layout = layoutRules(rivet);
   // One joint, one set of allowables: worked out once for every line of the candidate.
@@ -346,11 +472,10 @@ function candidate(input: RibStudyInput, lines: PreparedStudyLine[], gaugeIn: nu
     pullThroughFallbackFraction: input.pullThroughFallbackFraction, materialData: input.materialData, rivetData: input.rivetData,
   });
   const schedules = lines.map((d) =>
-    pitchSchedule(
+    scheduleLine(
       {
         line: d.line.name,
         holePrefix: d.prefix,
-        stations: d.loads,
         material: input.material,
         gaugeIn,
         rivetSpec: rivet.code,
@@ -366,35 +491,35 @@ function candidate(input: RibStudyInput, lines: PreparedStudyLine[], gaugeIn: nu
       allowables,
     ),
   );
-  const reasons = schedules.flatMap((s) => s.reasons.map((r) => `${s.line}: ${r}`));
+  const reasons = schedules.flatMap((s) => s.body.reasons.map((r) => `${s.body.line}: ${r}`));
   if (rib.flangeWidthIn !== undefined && rib.flangeWidthIn < 2 * layout.minEdgeIn - 1e-9) {
     reasons.push(`the ${rib.flangeWidthIn} in flange is narrower than twice the ${layout.minEdgeIn.toFixed(3)} in edge distance of ${rivet.code}`);
   }
+  let rivetCount = 0;
+  for (const s of schedules) rivetCount += s.holes.count;
   return {
-    candidate: {
-      holesStored: true,
-      gaugeIn,
-      rivet: rivet.code,
-      feasible: reasons.length === 0,
-      reasons,
-      warnings: unique(schedules.flatMap((s) => s.warnings)),
-      pullThroughBasis: schedules[0].allowables.tensionBasis,
-      flangeWidthIn: rib.flangeWidthIn ?? 2 * layout.minEdgeIn,
-      lines: schedules.map(withoutEnvelope),
-    },
+    gaugeIn,
+    rivet,
+    feasible: reasons.length === 0,
+    reasons,
+    warnings: unique(schedules.flatMap((s) => s.warnings)),
+    pullThroughBasis: schedules[0].body.allowables.tensionBasis,
+    flangeWidthIn: rib.flangeWidthIn ?? 2 * layout.minEdgeIn,
     rules: schedules.flatMap((s) => s.rules),
+    rivetCount,
+    schedules,
   };
 }
 
 /** Weights and build time of a candidate, for the trade table. */
-function tradeCandidate(input: RibStudyInput, c: StudyCandidate, webAreaSqIn: number, density: number): TradeCandidate {
-  const rivet = findRivet(c.rivet, input.rivetData);
-  const rivetCount = c.lines.reduce((n, l) => n + l.holes.length, 0);
-  const lengthIn = c.lines.reduce((n, l) => n + l.lengthIn, 0);
+function tradeCandidate(input: RibStudyInput, c: BuiltCandidate, webAreaSqIn: number, density: number): TradeCandidate {
+  const { rivet, rivetCount } = c;
+  let lengthIn = 0;
+  for (const s of c.schedules) lengthIn += s.body.lengthIn;
   const grip = c.gaugeIn + (input.rib.skinGaugeIn ?? c.gaugeIn);
   return {
     gaugeIn: c.gaugeIn,
-    rivet: c.rivet,
+    rivet: rivet.code,
     feasible: c.feasible,
     rivetCount,
     flangeWeightLb: lengthIn * c.flangeWidthIn * c.gaugeIn * density,
@@ -443,10 +568,8 @@ function ribLoads(input: RibStudyInput, ctx: SectionContext, place: RibPlace) {
 }
 
 /** Keeps the holes of one candidate only: the rest can be recomputed (ribCandidate) when someone asks. */
-function keepHolesOf(candidates: StudyCandidate[], keep: { gaugeIn: number; rivet: string } | null): StudyCandidate[] {
-  return candidates.map((c) =>
-    keep && c.gaugeIn === keep.gaugeIn && c.rivet === keep.rivet ? holesWithoutLine(c) : { ...c, holesStored: false, lines: c.lines.map((l) => ({ ...l, holes: [] })) },
-  );
+function keepHolesOf(candidates: BuiltCandidate[], keep: { gaugeIn: number; rivet: string } | null): StudyCandidate[] {
+  return candidates.map((b) => storedCandidate(b, !!keep && b.gaugeIn === keep.gaugeIn && b.rivet.code === keep.rivet));
 }
 
 /**
@@ -463,28 +586,30 @@ export function studyRibAt(input: RibStudyInput, ctx: SectionContext, place: Rib
     `rivet tension T = max(0, Cp,int − Cp)·q·s·b with b = ${rib.spacingIn} in, Cp,int = ${rib.internalCp ?? 0}; envelope of all conditions; ultimate = 1.5 × limit`,
   ];
 
-  const candidates: StudyCandidate[] = [];
-  const candidateRules: string[] = [];
+  const built: BuiltCandidate[] = [];
+  // Every schedule states its rules, mostly the same ones: merged as they come, first ones first.
+  const candidateRules = new Set<string>();
   for (const gaugeIn of input.gaugeCandidates) {
     for (const code of input.rivetCandidates) {
       const c = candidate(input, lines, gaugeIn, findRivet(code, input.rivetData));
-      candidates.push(c.candidate);
-      candidateRules.push(...c.rules);
+      built.push(c);
+      for (const r of c.rules) candidateRules.add(r);
     }
   }
   if (rib.flangeWidthIn === undefined) warnings.push('flange width not given: taken as twice the edge distance (4D) of each rivet for its weight');
   if (rib.skinGaugeIn === undefined) warnings.push('skin gauge not given: the rivet grip is taken as twice the flange gauge');
-  const fallbacks = candidates.filter((c) => c.pullThroughBasis === 'fallback').length;
-  if (fallbacks > 0) warnings.push(`${fallbacks} of ${candidates.length} candidates have no coupon data and use the conservative pull-through fallback: see their warnings`);
+  const fallbacks = built.filter((c) => c.pullThroughBasis === 'fallback').length;
+  if (fallbacks > 0) warnings.push(`${fallbacks} of ${built.length} candidates have no coupon data and use the conservative pull-through fallback: see their warnings`);
 
   const outline = ribOutline(ctx.geometry, rib.chordIn);
   const density = findMaterial(input.material, input.materialData).densityLbPerIn3;
+  const webAreaSqIn = outlineAreaSqIn(outline);
   const trade = tradeStudy(
-    candidates.map((c) => tradeCandidate(input, c, outlineAreaSqIn(outline), density)),
+    built.map((b) => tradeCandidate(input, b, webAreaSqIn, density)),
     input.rankBy ?? 'weight',
   );
   rules.push(
-    ...unique(candidateRules),
+    ...candidateRules,
     ...trade.rules,
     'web weight is that of an unlightened web; flange weight along the fastener lines',
     input.minutesPerHole
@@ -494,18 +619,22 @@ export function studyRibAt(input: RibStudyInput, ctx: SectionContext, place: Rib
   warnings.push(...trade.warnings);
   const { design } = ctx;
 
+  // Spelled out rather than `...envelope(…)` followed by more fields: V8 builds such a literal far slower.
   return {
-    ...envelope(input, unique(rules), unique(warnings)),
+    inputs: input,
+    rules: unique(rules),
+    warnings: unique(warnings),
+    caution: ENGINEERING_CAUTION,
     // Stored numbers rounded to what they mean (rounding.ts; pressures and geometry to 0.0001 in their
     // units), after every check above was made at full precision.
     design: roundStored({ wingLoadingPsf: design.wingLoadingPsf, loadFactors: design.loadFactors, speeds: design.speeds, gust: design.gust }),
     // Pressures and loads to 0.001 (Cp, lb, in): finer than anything they are read or drawn to.
-    conditions: conditions.map(({ cp, ...c }) => ({ ...roundStored(c), cp: compactNumbers({ upper: thin(cp.upper, CP_POINTS), lower: thin(cp.lower, CP_POINTS) }, 3) })),
+    conditions: conditions.map(storedCondition),
     airfoil: roundStored({ name: ctx.geometry.name, panels: input.panels ?? DEFAULT_PANELS, trailingEdgeGap: ctx.geometry.trailingEdgeGap }),
-    outline: { chordIn: rib.chordIn, points: compactNumbers(outline) },
+    outline: { chordIn: rib.chordIn, points: outline.map((p): Point => [d4(p[0]), d4(p[1])]) },
     lines: compactNumbers(lines.map((d) => d.summary)),
     // To 0.0001: a 3D pitch of a 3/32 in rivet is 0.28125 in, and 0.281 would be under the layout minimum.
-    candidates: compactNumbers(keepHolesOf(candidates, trade.recommended)),
+    candidates: keepHolesOf(built, trade.recommended),
     trade: roundStored(trade.rows),
     recommended: trade.recommended,
     work: { stations: work.stations, conditions: work.conditions, candidates: work.candidates, pitchGrid: work.pitchGrid, gridCells: work.gridCells, stationChecks: work.stationChecks, holes: work.holes },
@@ -528,5 +657,5 @@ export function ribCandidate(input: RibStudyInput, pick: { gaugeIn: number; rive
   if (!input.rivetCandidates?.includes(pick.rivet)) throw new EngineeringInputError('rivet', `${pick.rivet} is not one of the study's rivets`);
   const { ctx } = prepareRib(input);
   const { lines } = ribLoads(input, ctx, place ?? lonePlace(input));
-  return compactNumbers(holesWithoutLine(candidate(input, lines, input.gaugeCandidates[gaugeIndex], findRivet(pick.rivet, input.rivetData)).candidate));
+  return storedCandidate(candidate(input, lines, input.gaugeCandidates[gaugeIndex], findRivet(pick.rivet, input.rivetData)), true);
 }

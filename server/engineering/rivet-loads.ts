@@ -1,3 +1,4 @@
+import { packed } from './arrays';
 import { EngineeringInputError } from './errors';
 import { interpolateCp, type CpSample } from './panel-method';
 import { requireFinite, requireNonNegative, requirePositive } from './validate';
@@ -55,37 +56,75 @@ export interface EnvelopeStation {
 export type EnvelopeCondition = { id: string; qPsi: number } & ({ cpAt: (xc: number) => number } | { cpSamples: CpSample[] });
 
 /**
- * `interpolateCp(samples, ·)` for queries that mostly follow on from the last: the bracketing samples
- * are walked to from the last ones. Samples in order of x/c have one bracket for every x/c, so this is
- * exactly the bisection's answer; samples out of order are left to the bisection itself.
+ * One condition's pull at every station into the envelope: `suctionIntensityLbPerIn` of the Cp that
+ * `steppedCp` gives, written out in one loop (the same arithmetic), as this runs for every station of
+ * every line in every condition. Samples out of order of x/c are only so near the nose (a cambered
+ * section's nose reaches a hair ahead of its leading-edge point, where the upper surface starts): past
+ * the last of them (`from`) they ascend, and every x/c beyond all the samples up to there (`beyond`) has
+ * its bracket there, the one `interpolateCp`'s bisection finds, found instead by walking on. An x/c not
+ * beyond them is left to the bisection itself.
  */
-function steppedCp(samples: CpSample[]): (xc: number) => number {
-  for (let k = 1; k < samples.length; k++) if (!(samples[k].xc >= samples[k - 1].xc)) return (xc) => interpolateCp(samples, xc);
-  let lo = 0;
-  return (xc) => {
-    if (xc <= samples[0].xc) return samples[0].cp;
-    const last = samples[samples.length - 1];
-    if (xc >= last.xc) return last.cp;
-    // samples[0].xc < xc < last.xc: both walks stop inside the list
-    while (samples[lo].xc > xc) lo--;
-    while (samples[lo + 1].xc <= xc) lo++;
-    const p = samples[lo];
-    const q = samples[lo + 1];
-    if (q.xc === p.xc) return Math.min(p.cp, q.cp);
-    return p.cp + ((q.cp - p.cp) * (xc - p.xc)) / (q.xc - p.xc);
-  };
+function envelopeOfSamples(
+  xcs: number[],
+  samples: CpSample[],
+  id: string,
+  qPsi: number,
+  internalCp: number,
+  tributaryWidthIn: number,
+  best: number[],
+  governing: (string | null)[],
+): void {
+  const first = samples[0];
+  const last = samples[samples.length - 1];
+  let from = 0;
+  for (let k = 1; k < samples.length; k++) if (!(samples[k].xc >= samples[k - 1].xc)) from = k;
+  let beyond = -Infinity;
+  if (from > 0) for (let k = 0; k <= from; k++) beyond = Math.max(beyond, samples[k].xc);
+  let lo = from;
+  for (let i = 0; i < xcs.length; i++) {
+    const xc = xcs[i];
+    let cp: number;
+    if (xc <= first.xc) cp = first.cp;
+    else if (xc >= last.xc) cp = last.cp;
+    else if (!(xc > beyond)) cp = interpolateCp(samples, xc);
+    else {
+      // first.xc < xc < last.xc and xc beyond the samples before `from`: both walks stop inside the list
+      while (samples[lo].xc > xc) lo--;
+      while (samples[lo + 1].xc <= xc) lo++;
+      const p = samples[lo];
+      const q = samples[lo + 1];
+      cp = q.xc === p.xc ? Math.min(p.cp, q.cp) : p.cp + ((q.cp - p.cp) * (xc - p.xc)) / (q.xc - p.xc);
+    }
+    const w = Math.max(0, internalCp - cp) * qPsi * tributaryWidthIn;
+    if (w > best[i]) {
+      best[i] = w;
+      governing[i] = id;
+    }
+  }
 }
 
 /** Largest pull over all conditions at each station. */
 export function loadEnvelope(xcs: number[], conditions: EnvelopeCondition[], internalCp: number, tributaryWidthIn: number): EnvelopeStation[] {
+  const { limitLbPerIn, governing } = envelopeColumns(xcs, conditions, internalCp, tributaryWidthIn);
+  const out: EnvelopeStation[] = new Array(xcs.length);
+  for (let i = 0; i < xcs.length; i++) out[i] = { xc: xcs[i], limitLbPerIn: limitLbPerIn[i], governing: governing[i] };
+  return out;
+}
+
+/** `loadEnvelope` as columns, one entry per station (the rib study's loads are made from them). */
+export function envelopeColumns(xcs: number[], conditions: EnvelopeCondition[], internalCp: number, tributaryWidthIn: number): { limitLbPerIn: number[]; governing: (string | null)[] } {
   const n = xcs.length;
-  const best = new Float64Array(n);
-  const governing: (string | null)[] = new Array(n).fill(null);
+  const best = packed(n, 0);
+  const governing: (string | null)[] = Array.from({ length: n }, () => null);
   // One condition at a time along the line (rather than every condition at each station): each Cp
   // look-up then follows the last one along the same samples, which is what the caches are good at. The
   // conditions still come in their order at every station, so the first of equal pulls governs.
   for (const c of conditions) {
-    const cpAt = 'cpSamples' in c ? steppedCp(c.cpSamples) : c.cpAt;
+    if ('cpSamples' in c) {
+      envelopeOfSamples(xcs, c.cpSamples, c.id, c.qPsi, internalCp, tributaryWidthIn, best, governing);
+      continue;
+    }
+    const cpAt = c.cpAt;
     for (let i = 0; i < n; i++) {
       const w = suctionIntensityLbPerIn(cpAt(xcs[i]), internalCp, c.qPsi, tributaryWidthIn);
       if (w > best[i]) {
@@ -94,7 +133,5 @@ export function loadEnvelope(xcs: number[], conditions: EnvelopeCondition[], int
       }
     }
   }
-  const out: EnvelopeStation[] = new Array(n);
-  for (let i = 0; i < n; i++) out[i] = { xc: xcs[i], limitLbPerIn: best[i], governing: governing[i] };
-  return out;
+  return { limitLbPerIn: best, governing };
 }

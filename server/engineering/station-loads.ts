@@ -1,3 +1,4 @@
+import { packed } from './arrays';
 import { STUDY_BUDGET } from './bounds';
 import { EngineeringInputError } from './errors';
 import { requireArray, requireFinite, requireNonNegative } from './validate';
@@ -28,20 +29,30 @@ export interface StationLoad {
  */
 export class LineFunction {
   /** the sparse table, built on the first `maxOver`: a line's station, x and y are only ever read with `at` */
-  private table: Float64Array[] | null = null;
+  private table: number[][] | null = null;
 
   constructor(
     readonly along: number[],
     readonly values: number[],
   ) {}
 
-  private sparseTable(): Float64Array[] {
+  /** the sparse table: row k holds the largest of every 2^k neighbouring samples */
+  levels(): number[][] {
+    return this.table ?? this.sparseTable();
+  }
+
+  private sparseTable(): number[][] {
     if (this.table) return this.table;
     const values = this.values;
-    const table = [Float64Array.from(values)];
+    // Plain arrays: a typed array of more than a few numbers is made outside the heap, which costs
+    // microseconds each, and a study makes hundreds of these small tables and windows.
+    // (packed arrays: see arrays.ts)
+    const first = packed(values.length, 0);
+    for (let i = 0; i < values.length; i++) first[i] = values[i];
+    const table: number[][] = [first];
     for (let w = 1; 2 * w <= values.length; w *= 2) {
       const prev = table[table.length - 1];
-      const next = new Float64Array(values.length - 2 * w + 1);
+      const next = packed(values.length - 2 * w + 1, 0);
       for (let i = 0; i < next.length; i++) next[i] = Math.max(prev[i], prev[i + w]);
       table.push(next);
     }
@@ -95,13 +106,22 @@ export class LineFunction {
  */
 export class StationCursor {
   private i = 0;
+  /** stations per inch, on average: where evenly spaced stations would put x */
+  private readonly perIn: number;
 
-  constructor(private readonly along: number[]) {}
+  constructor(private readonly along: number[]) {
+    const n = along.length;
+    this.perIn = n > 1 ? (n - 1) / (along[n - 1] - along[0]) : 0;
+  }
 
   /** first sample index with along > x */
   after(x: number): number {
     const a = this.along;
     let i = this.i;
+    // A query well ahead (the next hole, some ten stations on) starts where evenly spaced stations would
+    // put it; the walk below makes the answer exact however they are spaced.
+    const guess = Math.floor((x - a[0]) * this.perIn);
+    if (guess > i + 2 && guess < a.length) i = guess;
     while (i > 0 && a[i - 1] > x) i--;
     while (i < a.length && a[i] <= x) i++;
     this.i = i;
@@ -111,7 +131,6 @@ export class StationCursor {
 
 /** The loads of one line, prepared once and shared by every gauge × rivet candidate scheduled on it. */
 export interface PreparedLine {
-  stations: StationLoad[];
   along: number[];
   lengthIn: number;
   /** largest distance between neighbouring stations */
@@ -121,58 +140,196 @@ export interface PreparedLine {
   station: LineFunction;
   x: LineFunction | null;
   y: LineFunction | null;
+  /** true when the shear is zero all along (no wing torque): every largest shear is then zero */
+  noShear: boolean;
   /**
-   * Largest tension and shear within ±(pitch/2 + one station spacing) of every station, by pitch: the
-   * same few pitches come up for every candidate, so they are worked out once per line.
+   * Largest tension and shear within ±(pitch/2 + one station spacing) of each station, by pitch: the
+   * same few pitches come up for every candidate, so they are kept for the line (see LoadWindow).
    */
-  windowMax(pitchIn: number): { tension: Float64Array; shear: Float64Array };
+  window(pitchIn: number): LoadWindow;
+  /**
+   * Largest tension and shear over the first (last) `share` inches of the line: what an end rivet
+   * carries. The same shares come up for every candidate with the same rivet, so they are kept.
+   */
+  endMax(end: 'first' | 'last', share: number): { tension: number; shear: number };
 }
 
 export function prepareStations(stations: StationLoad[]): PreparedLine {
   const list = validateStations(stations);
-  const along = list.map((s) => s.alongIn);
-  const fn = (values: number[]) => new LineFunction(along, values);
+  const n = list.length;
+  // One pass over the stations for every sampled quantity (a study prepares some 600 a line).
+  // (packed arrays: see arrays.ts)
+  const along = packed(n, 0);
+  const tension = packed(n, 0);
+  const shear = packed(n, 0);
+  const station = packed(n, 0);
+  let x: number[] | null = packed(n, 0);
+  let y: number[] | null = packed(n, 0);
+  for (let i = 0; i < n; i++) {
+    const s = list[i];
+    along[i] = s.alongIn;
+    tension[i] = s.limitTensionLbPerIn;
+    shear[i] = s.limitShearLbPerIn ?? 0;
+    station[i] = s.stationIn;
+    if (x !== null) {
+      if (s.xIn === undefined) x = null;
+      else x[i] = s.xIn;
+    }
+    if (y !== null) {
+      if (s.yIn === undefined) y = null;
+      else y[i] = s.yIn;
+    }
+  }
+  return preparedLine({ along, tension, shear, station, x, y });
+}
+
+/** A line's loads as columns, one entry per station: what `StationLoad`s say, without an object each. */
+export interface LineColumns {
+  along: number[];
+  tension: number[];
+  /** limit shear flow (its sign is dropped) */
+  shear: number[];
+  station: number[];
+  x: number[] | null;
+  y: number[] | null;
+}
+
+/**
+ * `prepareStations` for loads a caller made as columns (the rib study's, some 600 a line). Held to the
+ * same checks: columns it would refuse go through it as stations, to be refused naming the station.
+ */
+export function prepareColumns(c: LineColumns): PreparedLine {
+  const n = c.along.length;
+  let sound = n >= 2 && n <= STUDY_BUDGET.stations;
+  for (let i = 0; sound && i < n; i++) {
+    sound =
+      finite(c.station[i]) &&
+      finite(c.along[i]) &&
+      finite(c.tension[i]) &&
+      c.tension[i] >= 0 &&
+      finite(c.shear[i]) &&
+      (c.x === null || finite(c.x[i])) &&
+      (c.y === null || finite(c.y[i])) &&
+      (i === 0 || c.along[i] > c.along[i - 1]);
+  }
+  if (sound) return preparedLine(c);
+  const stations: StationLoad[] = c.along.map((alongIn, i) => ({
+    stationIn: c.station[i],
+    alongIn,
+    limitTensionLbPerIn: c.tension[i],
+    limitShearLbPerIn: c.shear[i],
+    ...(c.x && c.y ? { xIn: c.x[i], yIn: c.y[i] } : {}),
+  }));
+  return prepareStations(stations);
+}
+
+function preparedLine(c: LineColumns): PreparedLine {
+  const { along } = c;
+  const n = along.length;
   let spacingIn = 0;
   for (let i = 1; i < along.length; i++) spacingIn = Math.max(spacingIn, along[i] - along[i - 1]);
-  const tension = fn(list.map((s) => s.limitTensionLbPerIn));
-  const shear = fn(list.map((s) => Math.abs(s.limitShearLbPerIn ?? 0)));
-  const n = along.length;
+  const shears = packed(n, 0);
+  let anyShear = false;
+  for (let i = 0; i < n; i++) {
+    shears[i] = Math.abs(c.shear[i]);
+    if (shears[i] !== 0) anyShear = true;
+  }
+  const tension = new LineFunction(along, c.tension);
+  const shear = new LineFunction(along, shears);
   // Without wing torque the shear is zero everywhere, and so is every window of it: one array serves.
-  const noShear = shear.values.every((v) => v === 0) ? new Float64Array(n) : null;
-  const cache = new Map<number, { tension: Float64Array; shear: Float64Array }>();
-  const windowMax = (pitchIn: number) => {
+  const noShear = anyShear ? null : new Float64Array(n);
+  const cache = new Map<number, LoadWindow>();
+  const window = (pitchIn: number) => {
     const key = Math.round(pitchIn * 1e6);
     let hit = cache.get(key);
     if (!hit) {
-      const half = pitchIn / 2 + spacingIn;
-      const t = new Float64Array(n);
-      const q = noShear ?? new Float64Array(n);
-      // Sliding window over the sorted stations: the samples bracketing [x − half, x + half].
-      let lo = 0;
-      let hi = 0;
-      for (let i = 0; i < n; i++) {
-        while (lo + 1 < n && along[lo + 1] <= along[i] - half) lo++;
-        while (hi < n - 1 && along[hi] < along[i] + half) hi++;
-        t[i] = tension.maxBetween(lo, hi);
-        if (!noShear) q[i] = shear.maxBetween(lo, hi);
-      }
-      hit = { tension: t, shear: q };
+      hit = new LoadWindow(along, pitchIn / 2 + spacingIn, tension, noShear ? null : shear, noShear);
       cache.set(key, hit);
     }
     return hit;
   };
+  const ends = { first: new Map<number, { tension: number; shear: number }>(), last: new Map<number, { tension: number; shear: number }>() };
+  const endMax = (end: 'first' | 'last', share: number) => {
+    const kept = ends[end];
+    let hit = kept.get(share);
+    if (!hit) {
+      const a0 = along[0];
+      const a1 = along[n - 1];
+      const lo = end === 'first' ? a0 : Math.max(a0, a1 - share);
+      const hi = end === 'first' ? Math.min(a1, a0 + share) : a1;
+      hit = { tension: tension.maxOver(lo, hi), shear: noShear ? 0 : shear.maxOver(lo, hi) };
+      kept.set(share, hit);
+    }
+    return hit;
+  };
   return {
-    stations: list,
     along,
     lengthIn: along[along.length - 1] - along[0],
     spacingIn,
     tension,
     shear,
-    station: fn(list.map((s) => s.stationIn)),
-    x: list.every((s) => s.xIn !== undefined) ? fn(list.map((s) => s.xIn as number)) : null,
-    y: list.every((s) => s.yIn !== undefined) ? fn(list.map((s) => s.yIn as number)) : null,
-    windowMax,
+    station: new LineFunction(along, c.station),
+    x: c.x && new LineFunction(along, c.x),
+    y: c.y && new LineFunction(along, c.y),
+    noShear: noShear !== null,
+    window,
+    endMax,
   };
+}
+
+/**
+ * The largest tension and shear over the samples bracketing [along[i] − half, along[i] + half], station by
+ * station as they are asked for (`at`) and kept (NaN until then): the schedules of all candidates read
+ * about a third of a line's windows, a few pitches about each station's own.
+ */
+export class LoadWindow {
+  readonly tension: number[];
+  /** all zeros (one array for every window) when the line has no shear; typed, so every read is a double */
+  readonly shear: Float64Array;
+  /** stations per half window, on average: where the search for a window's ends starts */
+  private readonly reach: number;
+
+  constructor(
+    private readonly along: number[],
+    private readonly half: number,
+    private readonly tensionFn: LineFunction,
+    private readonly shearFn: LineFunction | null,
+    zeros: Float64Array | null,
+  ) {
+    const n = along.length;
+    this.tension = packed(n, NaN);
+    this.shear = zeros ?? new Float64Array(n);
+    this.reach = n > 1 ? Math.floor(half / ((along[n - 1] - along[0]) / (n - 1))) : 0;
+  }
+
+  /**
+   * Works out station i's window: from index lo, the last sample at or before along[i] − half (else 0),
+   * to hi, the first at or after along[i] + half (else the last). (It returns nothing: a number returned
+   * from a call V8 does not inline is boxed, and this runs some 8,000 times a study.)
+   */
+  at(i: number): void {
+    const along = this.along;
+    const n = along.length;
+    const a = along[i];
+    const from = a - this.half;
+    const to = a + this.half;
+    // Start where evenly spaced stations would put the ends, then step to them (exact however spaced).
+    let lo = Math.max(0, Math.min(n - 1, i - this.reach));
+    while (lo > 0 && along[lo] > from) lo--;
+    while (lo + 1 < n && along[lo + 1] <= from) lo++;
+    let hi = Math.max(0, Math.min(n - 1, i + this.reach));
+    while (hi > 0 && along[hi - 1] >= to) hi--;
+    while (hi < n - 1 && along[hi] < to) hi++;
+    // maxBetween(lo, hi), written out: the level's row read from the sparse tables directly
+    const level = 31 - Math.clz32(hi - lo + 1);
+    const at = hi - (1 << level) + 1;
+    const t = this.tensionFn.levels()[level];
+    this.tension[i] = Math.max(t[lo], t[at]);
+    if (this.shearFn) {
+      const q = this.shearFn.levels()[level];
+      this.shear[i] = Math.max(q[lo], q[at]);
+    }
+  }
 }
 
 function validateStations(stations: unknown): StationLoad[] {

@@ -1,3 +1,4 @@
+import { packed } from './arrays';
 import { MAX_LINE_HOLES, MAX_ZONING_RUNS } from './bounds';
 import { EngineeringInputError } from './errors';
 
@@ -47,23 +48,26 @@ export function coarsenRuns(runs: Zone[], max = MAX_ZONING_RUNS): { runs: Zone[]
 export function groupIntoZones(runs: Zone[], maxZones: number): Zone[] {
   const r = runs.length;
   const kMax = Math.min(maxZones, r);
-  const first: number[] = [];
+  // Loops rather than runs.map(() => …): a schedule groups its runs for every candidate (arrays.ts).
+  const first = packed(r, 0);
   let p0 = Infinity;
   for (let b = 0; b < r; b++) {
     p0 = Math.min(p0, runs[b].pitch);
-    first.push((runs[b].to - runs[0].from) / p0);
+    first[b] = (runs[b].to - runs[0].from) / p0;
   }
   const best: number[][] = [first];
-  const from: number[][] = [runs.map(() => 0)];
+  const from: number[][] = [packed(r, 0)];
   for (let k = 1; k < kMax; k++) {
-    const row = runs.map(() => Infinity);
-    const rowFrom = runs.map(() => 0);
+    const prev = best[k - 1];
+    const row = packed(r, Infinity);
+    const rowFrom = packed(r, 0);
     for (let b = k; b < r; b++) {
+      const to = runs[b].to;
       // The zone a..b takes the tightest pitch in it: kept as a running minimum while a moves back.
       let p = Infinity;
       for (let a = b; a >= k; a--) {
         p = Math.min(p, runs[a].pitch);
-        const c = best[k - 1][a - 1] + (runs[b].to - runs[a].from) / p;
+        const c = prev[a - 1] + (to - runs[a].from) / p;
         // "≤" walking backwards keeps the earliest start among equal costs.
         if (c <= row[b]) {
           row[b] = c;
@@ -129,14 +133,13 @@ export function placeHoles(zones: Zone[], start: number, end: number, minPitch: 
   if (estimate > maxHoles) {
     throw new EngineeringInputError('zones', `these zones would place about ${estimate.toLocaleString('en-US')} holes on one line; at most ${maxHoles.toLocaleString('en-US')}`);
   }
-  const tightest = (a: number, b: number) => tightestPitch(zones, a, b, floor);
   const positions = [start];
   let note: string | null = null;
   // Bounded by the estimate: every step advances by at least the minimum pitch.
   while (positions.length <= maxHoles) {
     const h = positions[positions.length - 1];
-    let p = tightest(h, h);
-    for (let q = tightest(h, h + p); q < p - EPS; q = tightest(h, h + p)) p = q;
+    let p = tightestPitch(zones, h, h, floor);
+    for (let q = tightestPitch(zones, h, h + p, floor); q < p - EPS; q = tightestPitch(zones, h, h + p, floor)) p = q;
     if (h + p < end - EPS) {
       positions.push(h + p);
       continue;
@@ -156,7 +159,7 @@ export function placeHoles(zones: Zone[], start: number, end: number, minPitch: 
       const from = positions[positions.length - 1 - m];
       const gap = (end - from) / (m + 1);
       if (gap < minPitch - EPS) continue;
-      if (gap > tightest(from, end) + EPS) break;
+      if (gap > tightestPitch(zones, from, end, floor) + EPS) break;
       positions.splice(positions.length - m, m, ...Array.from({ length: m + 1 }, (_, i) => (i === m ? end : from + gap * (i + 1))));
       return { positions, note };
     }
