@@ -25,3 +25,18 @@ export const plainText = (what: string, min: number, max: number, tooShort = `${
 export const roleLabels: Record<Role, string> = {
   supplier: 'Supplier’s engineer', builder: 'Builder', inspector: 'Inspector', admin: 'Administrator',
 };
+
+/** One page of a list: `next` is the cursor of the page after it, null on the last page. */
+export type Page<T> = { items: T[]; next: string | null };
+
+export const PAGE_SIZE_DEFAULT = 50;
+export const PAGE_SIZE_MAX = 100;
+
+/** `?cursor=&limit=` on every list: the cursor is opaque (one the server gave), the size bounded. */
+export const pageQuery = z.object({
+  cursor: z.string().max(400, 'cursor is too long: use the `next` value a page gave')
+    .regex(/^[A-Za-z0-9_-]+$/, 'cursor is not one this server gave: use the `next` value a page gave').optional(),
+  limit: z.coerce.number({ message: 'limit must be a number' }).int('limit must be a whole number')
+    .min(1, 'limit must be at least 1').max(PAGE_SIZE_MAX, `limit is at most ${PAGE_SIZE_MAX}`).default(PAGE_SIZE_DEFAULT),
+});
+export type PageQuery = z.infer<typeof pageQuery>;
