@@ -8,10 +8,15 @@
 let template: number[] = [0.5];
 
 export function packed(n: number, value: number): number[] {
+  return room(n).fill(value);
+}
+
+/** A packed array of `n` numbers for a caller that writes every one of them (it holds 0.5 until then). */
+export function room(n: number): number[] {
   if (template.length < n) {
     const grown = template.slice();
     while (grown.length < n) grown.push(0.5);
     template = grown;
   }
-  return template.slice(0, n).fill(value);
+  return template.slice(0, n);
 }

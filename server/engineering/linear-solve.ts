@@ -18,55 +18,11 @@ export class SingularMatrixError extends Error {
   }
 }
 
+/** Factors a copy of the matrix (row-major Float64Array or rows), leaving the caller's matrix as it was. */
 export function luFactor(matrix: Float64Array | number[][], size?: number): LuFactors {
   const n = size ?? (matrix as number[][]).length;
   const a = matrix instanceof Float64Array ? Float64Array.from(matrix) : Float64Array.from((matrix as number[][]).flat());
-  if (a.length !== n * n) throw new Error(`expected ${n}×${n} entries, got ${a.length}`);
-  const perm = new Int32Array(n);
-  for (let i = 0; i < n; i++) perm[i] = i;
-  let scale = 0;
-  for (let i = 0; i < a.length; i++) scale = Math.max(scale, Math.abs(a[i]));
-  const tiny = scale * n * Number.EPSILON;
-
-  for (let k = 0; k < n; k++) {
-    let p = k;
-    let best = Math.abs(a[k * n + k]);
-    for (let i = k + 1; i < n; i++) {
-      const v = Math.abs(a[i * n + k]);
-      if (v > best) {
-        best = v;
-        p = i;
-      }
-    }
-    if (!(best > tiny)) throw new SingularMatrixError(k);
-    if (p !== k) {
-      for (let j = 0; j < n; j++) {
-        const t = a[k * n + j];
-        a[k * n + j] = a[p * n + j];
-        a[p * n + j] = t;
-      }
-      const t = perm[k];
-      perm[k] = perm[p];
-      perm[p] = t;
-    }
-    const pivot = a[k * n + k];
-    const krow = k * n;
-    for (let i = k + 1; i < n; i++) {
-      const row = i * n;
-      const f = (a[row + k] /= pivot);
-      if (f === 0) continue;
-      // The O(N³) inner loop, unrolled by four: V8 does not vectorise, and this halves the time.
-      let j = k + 1;
-      for (const end = n - 3; j < end; j += 4) {
-        a[row + j] -= f * a[krow + j];
-        a[row + j + 1] -= f * a[krow + j + 1];
-        a[row + j + 2] -= f * a[krow + j + 2];
-        a[row + j + 3] -= f * a[krow + j + 3];
-      }
-      for (; j < n; j++) a[row + j] -= f * a[krow + j];
-    }
-  }
-  return { n, lu: a, perm };
+  return luFactorInPlace(a, n);
 }
 
 /**

@@ -71,21 +71,32 @@ function streamCoefficients(x: number, y: number, s: number, r1s: number, r2s: n
  * writes first): two n² tables per study are some 400 kB that would otherwise be made and collected.
  */
 let tables: { dist2: Float64Array; lnDist: Float64Array } | null = null;
+let matrix: Float64Array | null = null;
+
+/**
+ * The m × m matrix, zeroed, in room kept from one solution to the next: it is factored where it lies and
+ * read by the two solves only, all within one call (a fresh one is some 200 kB made and collected).
+ */
+function zeroedMatrix(m: number): Float64Array {
+  if (!matrix || matrix.length !== m * m) matrix = new Float64Array(m * m);
+  else matrix.fill(0);
+  return matrix;
+}
 function distanceTables(n: number): { dist2: Float64Array; lnDist: Float64Array } {
   if (!tables || tables.dist2.length < n * n) tables = { dist2: new Float64Array(n * n), lnDist: new Float64Array(n * n) };
   return tables;
 }
 
 /** Node i's distances to the nodes after it, and their ln r, into both halves of the tables. */
-function distanceRow(nodes: Point[], i: number, dist2: Float64Array, lnDist: Float64Array): void {
-  const n = nodes.length;
-  const xi = nodes[i][0];
-  const yi = nodes[i][1];
+function distanceRow(nx: Float64Array, ny: Float64Array, i: number, dist2: Float64Array, lnDist: Float64Array): void {
+  const n = nx.length;
+  const xi = nx[i];
+  const yi = ny[i];
   dist2[i * n + i] = 0;
   lnDist[i * n + i] = 0;
   for (let k = i + 1; k < n; k++) {
-    const dx = xi - nodes[k][0];
-    const dy = yi - nodes[k][1];
+    const dx = xi - nx[k];
+    const dy = yi - ny[k];
     const d2 = dx * dx + dy * dy;
     const ln = d2 > 0 ? 0.5 * Math.log(d2) : 0;
     dist2[i * n + k] = d2;
@@ -96,16 +107,16 @@ function distanceRow(nodes: Point[], i: number, dist2: Float64Array, lnDist: Flo
 }
 
 /** Row i of the matrix: ψ at node i from every panel's vortex sheet, less the body's ψ₀. */
-function streamRow(nodes: Point[], i: number, m: number, len: Float64Array, tx: Float64Array, ty: Float64Array, dist2: Float64Array, lnDist: Float64Array, a: Float64Array, c: Float64Array): void {
-  const n = nodes.length;
+function streamRow(nx: Float64Array, ny: Float64Array, i: number, m: number, len: Float64Array, tx: Float64Array, ty: Float64Array, dist2: Float64Array, lnDist: Float64Array, a: Float64Array, c: Float64Array): void {
+  const n = nx.length;
   const panels = n - 1;
   const row = i * m;
-  const xi = nodes[i][0];
-  const yi = nodes[i][1];
+  const xi = nx[i];
+  const yi = ny[i];
   const at = i * n;
   for (let j = 0; j < panels; j++) {
-    const dx = xi - nodes[j][0];
-    const dy = yi - nodes[j][1];
+    const dx = xi - nx[j];
+    const dy = yi - ny[j];
     streamCoefficients(dx * tx[j] + dy * ty[j], -dx * ty[j] + dy * tx[j], len[j], dist2[at + j], dist2[at + j + 1], lnDist[at + j], lnDist[at + j + 1], c);
     a[row + j] += c[0];
     a[row + j + 1] += c[1];
@@ -149,16 +160,23 @@ export function solvePanelMethod(contour: Point[], leadingEdgeIndex?: number): P
 
   // Unknowns: γ at nodes 0…n−1, then ψ₀. Rows: ψ at nodes 0…n−2, the bisector row, the Kutta row.
   const m = n + 1;
-  const a = new Float64Array(m * m);
+  const a = zeroedMatrix(m);
   const c = new Float64Array(2);
   // Squared distances between nodes and their ln r, row by row. The distance from i to k is the one from
   // k to i (the same bits: only the signs of dx, dy differ), so each logarithm is taken once for the
   // pair: half the logarithms. ln r at a panel's own end node is multiplied by zero: take the limit (0).
   const { dist2, lnDist } = distanceTables(n);
-  // Row by row, each in a function of its own: V8 compiles such a function whole, where a loop this long
-  // in here was compiled from inside it and the code after it, not yet run, then threw that away.
-  for (let i = 0; i < n; i++) distanceRow(nodes, i, dist2, lnDist);
-  for (let i = 0; i < n - 1; i++) streamRow(nodes, i, m, len, tx, ty, dist2, lnDist, a, c);
+  // The nodes' coordinates as two arrays of numbers: the rows read them n² times. Row by row, each in a
+  // function of its own: V8 compiles such a function whole, where a loop this long in here was compiled
+  // from inside it and the code after it, not yet run, then threw that away.
+  const nx = new Float64Array(n);
+  const ny = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    nx[k] = nodes[k][0];
+    ny[k] = nodes[k][1];
+  }
+  for (let i = 0; i < n; i++) distanceRow(nx, ny, i, dist2, lnDist);
+  for (let i = 0; i < n - 1; i++) streamRow(nx, ny, i, m, len, tx, ty, dist2, lnDist, a, c);
 
   const te = nodes[0];
   const d1x = nodes[1][0] - te[0];
@@ -231,8 +249,10 @@ export function solvePanelMethod(contour: Point[], leadingEdgeIndex?: number): P
     ga: indices.map((i) => gCos[i]),
     gb: indices.map((i) => gSin[i]),
   });
-  const upper = Array.from({ length: le + 1 }, (_, k) => le - k);
-  const lower = Array.from({ length: n - le }, (_, k) => le + k);
+  const upper: number[] = [];
+  for (let k = 0; k <= le; k++) upper.push(le - k);
+  const lower: number[] = [];
+  for (let k = 0; k < n - le; k++) lower.push(le + k);
   return { panels, chord, clCos, clSin, upper: pick(upper), lower: pick(lower) };
 }
 

@@ -1,4 +1,4 @@
-import { combinedMargin, jointAllowables, type JointAllowables } from './allowables';
+import { jointAllowables, type JointAllowables } from './allowables';
 import type { CouponTest } from './coupons';
 import { EngineeringInputError } from './errors';
 import { layoutRules, layoutRuleText } from './layout';
@@ -598,8 +598,17 @@ function endPasses(end: 'first' | 'last', lineData: PreparedLine, pitch: number,
 }
 
 const asIs = (v: number): number => v;
-/** A hole's margin as stored: NaN for none (nothing applied), as `combinedMargin`'s null. */
-const marginOrNaN = (m: number | null): number => (m === null ? NaN : m);
+/**
+ * `combinedMargin`, the same arithmetic, with NaN for its null (nothing applied): a number either way,
+ * so not boxed on its way back from a call V8 does not inline (two for every hole of every candidate).
+ */
+function marginOf(tensionLb: number, shearLb: number, tensionAllowableLb: number, shearAllowableLb: number): number {
+  if (tensionLb <= 0 && shearLb <= 0) return NaN;
+  const rt = tensionLb <= 0 ? 0 : tensionAllowableLb > 0 ? tensionLb / tensionAllowableLb : Infinity;
+  const rs = shearLb <= 0 ? 0 : shearAllowableLb > 0 ? shearLb / shearAllowableLb : Infinity;
+  const r = rs === 0 ? rt : rt === 0 ? rs : Math.hypot(rt, rs);
+  return Number.isFinite(r) ? 1 / r - 1 : -1;
+}
 const marginOrNull = (m: number): number | null => (m !== m ? null : m);
 /** The lower of a hole's two margins, a missing one counting as no limit. */
 const lowerMargin = (a: number, b: number): number => Math.min(a !== a ? Infinity : a, b !== b ? Infinity : b);
@@ -658,8 +667,8 @@ class HoleWalk {
     this.tributaryIn = tributaryIn;
     this.tension = t;
     this.shear = v;
-    this.msLimit = marginOrNaN(combinedMargin(t, v, c.tl, c.sl));
-    this.msUltimate = marginOrNaN(combinedMargin(UF * t, UF * v, c.tu, c.su));
+    this.msLimit = marginOf(t, v, c.tl, c.sl);
+    this.msUltimate = marginOf(UF * t, UF * v, c.tu, c.su);
     this.after = this.holeAt.after(h);
   }
 }
@@ -714,9 +723,17 @@ export class HoleSet {
       }
       const z = walk.zone;
       this.zoneCount[z]++;
-      const worst = this.zoneWorst[z];
+      let worst = this.zoneWorst[z];
       if (worst === null || lowest < lowerMargin(worst.msLimit, worst.msUltimate)) {
-        this.zoneWorst[z] = { index: k, position: positions[k], after: walk.after, tension: walk.tension, shear: walk.shear, msLimit: walk.msLimit, msUltimate: walk.msUltimate };
+        // one record a zone, written over by each new worst
+        worst ??= this.zoneWorst[z] = { index: 0, position: NaN, after: 0, tension: NaN, shear: NaN, msLimit: NaN, msUltimate: NaN };
+        worst.index = k;
+        worst.position = positions[k];
+        worst.after = walk.after;
+        worst.tension = walk.tension;
+        worst.shear = walk.shear;
+        worst.msLimit = walk.msLimit;
+        worst.msUltimate = walk.msUltimate;
       }
     }
     this.failing = failing;

@@ -1,4 +1,4 @@
-import { packed } from './arrays';
+import { room } from './arrays';
 import { surfacePoints, type AirfoilGeometry, type Point, type Surface } from './airfoil';
 import { EngineeringInputError } from './errors';
 
@@ -98,10 +98,10 @@ export function lineStationColumns(geometry: AirfoilGeometry, line: FastenerLine
   const { surface, cumulative, s0, s1 } = lineArc(geometry, line, chordIn);
   const count = Math.max(2, Math.ceil((s1 - s0) / stepIn) + 1);
   // (packed arrays: see arrays.ts)
-  const xc = packed(count, 0);
-  const xs = packed(count, 0);
-  const ys = packed(count, 0);
-  const along = packed(count, 0);
+  const xc = room(count);
+  const xs = room(count);
+  const ys = room(count);
+  const along = room(count);
   // The stations come in order along the surface: the search for each picks up where the last one ended
   // (every segment it skipped ends before the station), instead of walking from the start each time.
   let segment = 1;

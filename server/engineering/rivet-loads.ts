@@ -1,4 +1,4 @@
-import { packed } from './arrays';
+import { packed, room } from './arrays';
 import { EngineeringInputError } from './errors';
 import { interpolateCp, type CpSample } from './panel-method';
 import { requireFinite, requireNonNegative, requirePositive } from './validate';
@@ -67,19 +67,27 @@ export type EnvelopeCondition = { id: string; qPsi: number } & ({ cpAt: (xc: num
 function envelopeOfSamples(
   xcs: number[],
   samples: CpSample[],
-  id: string,
+  index: number,
   qPsi: number,
   internalCp: number,
   tributaryWidthIn: number,
   best: number[],
-  governing: (string | null)[],
+  governing: number[],
 ): void {
   const first = samples[0];
   const last = samples[samples.length - 1];
+  // The samples' x/c and Cp as arrays of numbers: the walk reads them some 600 times a line.
+  const m = samples.length;
+  const sx = room(m);
+  const sc = room(m);
+  for (let k = 0; k < m; k++) {
+    sx[k] = samples[k].xc;
+    sc[k] = samples[k].cp;
+  }
   let from = 0;
-  for (let k = 1; k < samples.length; k++) if (!(samples[k].xc >= samples[k - 1].xc)) from = k;
+  for (let k = 1; k < m; k++) if (!(sx[k] >= sx[k - 1])) from = k;
   let beyond = -Infinity;
-  if (from > 0) for (let k = 0; k <= from; k++) beyond = Math.max(beyond, samples[k].xc);
+  if (from > 0) for (let k = 0; k <= from; k++) beyond = Math.max(beyond, sx[k]);
   let lo = from;
   for (let i = 0; i < xcs.length; i++) {
     const xc = xcs[i];
@@ -89,39 +97,59 @@ function envelopeOfSamples(
     else if (!(xc > beyond)) cp = interpolateCp(samples, xc);
     else {
       // first.xc < xc < last.xc and xc beyond the samples before `from`: both walks stop inside the list
-      while (samples[lo].xc > xc) lo--;
-      while (samples[lo + 1].xc <= xc) lo++;
-      const p = samples[lo];
-      const q = samples[lo + 1];
-      cp = q.xc === p.xc ? Math.min(p.cp, q.cp) : p.cp + ((q.cp - p.cp) * (xc - p.xc)) / (q.xc - p.xc);
+      while (sx[lo] > xc) lo--;
+      while (sx[lo + 1] <= xc) lo++;
+      const px = sx[lo];
+      const qx = sx[lo + 1];
+      const pc = sc[lo];
+      const qc = sc[lo + 1];
+      cp = qx === px ? Math.min(pc, qc) : pc + ((qc - pc) * (xc - px)) / (qx - px);
     }
     const w = Math.max(0, internalCp - cp) * qPsi * tributaryWidthIn;
     if (w > best[i]) {
       best[i] = w;
-      governing[i] = id;
+      governing[i] = index;
     }
   }
 }
 
 /** Largest pull over all conditions at each station. */
 export function loadEnvelope(xcs: number[], conditions: EnvelopeCondition[], internalCp: number, tributaryWidthIn: number): EnvelopeStation[] {
-  const { limitLbPerIn, governing } = envelopeColumns(xcs, conditions, internalCp, tributaryWidthIn);
+  const env = envelopeColumns(xcs, conditions, internalCp, tributaryWidthIn);
   const out: EnvelopeStation[] = new Array(xcs.length);
-  for (let i = 0; i < xcs.length; i++) out[i] = { xc: xcs[i], limitLbPerIn: limitLbPerIn[i], governing: governing[i] };
+  for (let i = 0; i < xcs.length; i++) out[i] = { xc: xcs[i], limitLbPerIn: env.limitLbPerIn[i], governing: env.governingAt(i) };
   return out;
 }
 
+/** `loadEnvelope` as columns: the largest pull at each station, and which condition gives it (by index). */
+export class EnvelopeColumns {
+  constructor(
+    readonly limitLbPerIn: number[],
+    /** index of the governing condition, −1 where no condition pulls */
+    private readonly governing: number[],
+    private readonly ids: string[],
+  ) {}
+
+  /** id of the condition that gives the largest pull at station i, null where no condition pulls */
+  governingAt(i: number): string | null {
+    const k = this.governing[i];
+    return k < 0 ? null : this.ids[k];
+  }
+}
+
 /** `loadEnvelope` as columns, one entry per station (the rib study's loads are made from them). */
-export function envelopeColumns(xcs: number[], conditions: EnvelopeCondition[], internalCp: number, tributaryWidthIn: number): { limitLbPerIn: number[]; governing: (string | null)[] } {
+export function envelopeColumns(xcs: number[], conditions: EnvelopeCondition[], internalCp: number, tributaryWidthIn: number): EnvelopeColumns {
   const n = xcs.length;
   const best = packed(n, 0);
-  const governing: (string | null)[] = Array.from({ length: n }, () => null);
+  // the governing condition by index (−1 for none): numbers, made and filled far faster than ids
+  const governing = packed(n, -1);
   // One condition at a time along the line (rather than every condition at each station): each Cp
   // look-up then follows the last one along the same samples, which is what the caches are good at. The
   // conditions still come in their order at every station, so the first of equal pulls governs.
-  for (const c of conditions) {
+  for (let index = 0; index < conditions.length; index++) {
+    const c = conditions[index];
     if ('cpSamples' in c) {
-      envelopeOfSamples(xcs, c.cpSamples, c.id, c.qPsi, internalCp, tributaryWidthIn, best, governing);
+      envelopeOfSamples(xcs, c.cpSamples, index, c.qPsi, internalCp, tributaryWidthIn, best, governing);
       continue;
     }
     const cpAt = c.cpAt;
@@ -129,9 +157,9 @@ export function envelopeColumns(xcs: number[], conditions: EnvelopeCondition[], 
       const w = suctionIntensityLbPerIn(cpAt(xcs[i]), internalCp, c.qPsi, tributaryWidthIn);
       if (w > best[i]) {
         best[i] = w;
-        governing[i] = c.id;
+        governing[i] = index;
       }
     }
   }
-  return { limitLbPerIn: best, governing };
+  return new EnvelopeColumns(best, governing, conditions.map((c) => c.id));
 }

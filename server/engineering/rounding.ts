@@ -19,6 +19,8 @@ export const STORED_ZERO = 1e-9;
 export function roundSignificant(x: number, digits: number = STORED_SIGNIFICANT_DIGITS): number {
   if (!Number.isFinite(x)) return x;
   if (Math.abs(x) < STORED_ZERO) return 0;
+  // A whole number of up to six digits prints as itself (rivet counts, ranks): no string made and read back.
+  if (Number.isInteger(x) && Math.abs(x) < 1e6 && digits >= 6) return x;
   // toPrecision gives the decimal; parsing it back gives the double nearest to that decimal, which
   // prints as the decimal itself.
   return Number(x.toPrecision(digits));

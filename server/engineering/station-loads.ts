@@ -1,4 +1,4 @@
-import { packed } from './arrays';
+import { packed, room } from './arrays';
 import { STUDY_BUDGET } from './bounds';
 import { EngineeringInputError } from './errors';
 import { requireArray, requireFinite, requireNonNegative } from './validate';
@@ -47,12 +47,12 @@ export class LineFunction {
     // Plain arrays: a typed array of more than a few numbers is made outside the heap, which costs
     // microseconds each, and a study makes hundreds of these small tables and windows.
     // (packed arrays: see arrays.ts)
-    const first = packed(values.length, 0);
+    const first = room(values.length);
     for (let i = 0; i < values.length; i++) first[i] = values[i];
     const table: number[][] = [first];
     for (let w = 1; 2 * w <= values.length; w *= 2) {
       const prev = table[table.length - 1];
-      const next = packed(values.length - 2 * w + 1, 0);
+      const next = room(values.length - 2 * w + 1);
       for (let i = 0; i < next.length; i++) next[i] = Math.max(prev[i], prev[i + w]);
       table.push(next);
     }
@@ -159,12 +159,12 @@ export function prepareStations(stations: StationLoad[]): PreparedLine {
   const n = list.length;
   // One pass over the stations for every sampled quantity (a study prepares some 600 a line).
   // (packed arrays: see arrays.ts)
-  const along = packed(n, 0);
-  const tension = packed(n, 0);
-  const shear = packed(n, 0);
-  const station = packed(n, 0);
-  let x: number[] | null = packed(n, 0);
-  let y: number[] | null = packed(n, 0);
+  const along = room(n);
+  const tension = room(n);
+  const shear = room(n);
+  const station = room(n);
+  let x: number[] | null = room(n);
+  let y: number[] | null = room(n);
   for (let i = 0; i < n; i++) {
     const s = list[i];
     along[i] = s.alongIn;
@@ -228,7 +228,7 @@ function preparedLine(c: LineColumns): PreparedLine {
   const n = along.length;
   let spacingIn = 0;
   for (let i = 1; i < along.length; i++) spacingIn = Math.max(spacingIn, along[i] - along[i - 1]);
-  const shears = packed(n, 0);
+  const shears = room(n);
   let anyShear = false;
   for (let i = 0; i < n; i++) {
     shears[i] = Math.abs(c.shear[i]);

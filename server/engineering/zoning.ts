@@ -1,4 +1,4 @@
-import { packed } from './arrays';
+import { packed, room } from './arrays';
 import { MAX_LINE_HOLES, MAX_ZONING_RUNS } from './bounds';
 import { EngineeringInputError } from './errors';
 
@@ -49,7 +49,7 @@ export function groupIntoZones(runs: Zone[], maxZones: number): Zone[] {
   const r = runs.length;
   const kMax = Math.min(maxZones, r);
   // Loops rather than runs.map(() => …): a schedule groups its runs for every candidate (arrays.ts).
-  const first = packed(r, 0);
+  const first = room(r);
   let p0 = Infinity;
   for (let b = 0; b < r; b++) {
     p0 = Math.min(p0, runs[b].pitch);
@@ -160,7 +160,9 @@ export function placeHoles(zones: Zone[], start: number, end: number, minPitch: 
       const gap = (end - from) / (m + 1);
       if (gap < minPitch - EPS) continue;
       if (gap > tightestPitch(zones, from, end, floor) + EPS) break;
-      positions.splice(positions.length - m, m, ...Array.from({ length: m + 1 }, (_, i) => (i === m ? end : from + gap * (i + 1))));
+      positions.length -= m;
+      for (let i = 0; i < m; i++) positions.push(from + gap * (i + 1));
+      positions.push(end);
       return { positions, note };
     }
     note = `the last hole sits ${rest.toFixed(3)} in further from the line end than the edge distance, to keep the ${minPitch.toFixed(3)} in minimum pitch`;

@@ -1,4 +1,5 @@
 import { luFactor, luSolve, SingularMatrixError, solveLinear } from '@/server/engineering';
+import { luFactorInPlace } from '@/server/engineering/linear-solve';
 
 describe('LU with partial pivoting', () => {
   it('solves a system whose first pivot is zero', () => {
@@ -24,6 +25,23 @@ describe('LU with partial pivoting', () => {
       const residual = Math.max(...a.map((row, i) => Math.abs(row.reduce((s, v, j) => s + v * x[j], 0) - b[i])));
       expect(residual).toBeLessThan(1e-10);
     }
+  });
+
+  it('factors a matrix handed over in place to the very factors a copy gives (the panel method\'s way)', () => {
+    // The first-pivot-zero system above: x = (1, 2, 3).
+    const rows = [
+      [0, 2, 1],
+      [1, 1, 1],
+      [2, 1, 3],
+    ];
+    const handed = Float64Array.from(rows.flat());
+    const f = luFactorInPlace(handed, 3);
+    expect(f.lu).toBe(handed);
+    const copied = luFactor(rows);
+    expect(Array.from(f.lu)).toEqual(Array.from(copied.lu));
+    expect(Array.from(f.perm)).toEqual(Array.from(copied.perm));
+    const x = luSolve(f, [7, 6, 13]);
+    [1, 2, 3].forEach((v, i) => expect(x[i]).toBeCloseTo(v, 12));
   });
 
   it('refuses a singular matrix', () => {

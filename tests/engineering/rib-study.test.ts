@@ -118,6 +118,22 @@ describe('a rib study', () => {
     expect(ribCandidate(input, { gaugeIn: 0.016, rivet: 'PULLED-4' }).lines[0].holes[0].id).toBe('U-001');
   });
 
+  it('reports in each zone its number of holes and its weakest rivet, the one with the lowest margin of safety', () => {
+    const chosen = study.candidates.find((c) => c.holesStored)!;
+    const lowest = (h: { msLimit: number | null; msUltimate: number | null }) => Math.min(h.msLimit ?? Infinity, h.msUltimate ?? Infinity);
+    for (const l of chosen.lines) {
+      expect(l.zones.reduce((n, z) => n + z.count, 0)).toBe(l.holes.length);
+      l.zones.forEach((z, i) => {
+        const inZone = l.holes.filter((h) => h.zone === i);
+        expect(z.count).toBe(inZone.length);
+        const worst = inZone.find((h) => h.id === z.worstHoleId)!;
+        expect(lowest(worst)).toBe(Math.min(...inZone.map(lowest)));
+        expect(z.msLimit).toBe(worst.msLimit);
+        expect(z.appliedLimitLb).toBe(worst.appliedLimitLb);
+      });
+    }
+  });
+
   it('stores the holes of the recommended candidate only, and recomputes any other the same as a study of it alone', () => {
     const stored = study.candidates.filter((c) => c.holesStored);
     expect(stored.map((c) => [c.gaugeIn, c.rivet])).toEqual([[0.02, 'PULLED-4']]);

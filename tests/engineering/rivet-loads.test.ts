@@ -1,4 +1,4 @@
-import { loadEnvelope, type CpSample } from '@/server/engineering';
+import { interpolateCp, loadEnvelope, type CpSample } from '@/server/engineering';
 
 // The pull on a rib's fastener line per inch of pitch, T/s = max(0, Cp,int − Cp)·q·b (the chain's step 5:
 // the net outward pressure on the skin times its tributary width). With Cp linear between samples the
@@ -48,6 +48,24 @@ describe('the load envelope along a fastener line', () => {
       expect(fromSamples[i].limitLbPerIn).toBeCloseTo(w, 12);
       expect(fromFunctions[i].limitLbPerIn).toBeCloseTo(w, 12);
     });
+  });
+
+  it('reads samples whose x/c dips back at the nose (a cambered upper surface) as interpolateCp reads them', () => {
+    // x/c runs 0, 0.001, then back to −0.002 before the surface turns aft: past the dip the envelope walks
+    // the samples in step, short of it it leaves the reading to interpolateCp; either way the same pull.
+    const dipped: CpSample[] = [
+      { xc: 0, cp: -1 },
+      { xc: 0.001, cp: -1.5 },
+      { xc: -0.002, cp: -2 },
+      { xc: 0.2, cp: -1 },
+      { xc: 1, cp: 0 },
+    ];
+    const xcs = [0, 0.0005, 0.1, 0.6, 1];
+    const env = loadEnvelope(xcs, [{ id: 'dip', qPsi: q, cpSamples: dipped }], 0, b);
+    env.forEach((e, i) => expect(e.limitLbPerIn).toBe(Math.max(0, 0 - interpolateCp(dipped, xcs[i])) * q * b));
+    // Past the dip, linear between the samples either side of it (by hand): Cp(0.1) = −2 + 0.102/0.202, Cp(0.6) = −0.5.
+    expect(env[2].limitLbPerIn).toBeCloseTo((2 - 0.102 / 0.202) * q * b, 12);
+    expect(env[3].limitLbPerIn).toBeCloseTo(0.5 * q * b, 12);
   });
 
   it('has no pull and no governing condition where the inside pressure matches the outside suction', () => {
