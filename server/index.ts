@@ -1,29 +1,19 @@
 import { createServer as createHttpServer, type Server } from 'node:http';
 import { createServer as createHttpsServer } from 'node:https';
-import { createDatabase } from '../db';
 import { seedDemo } from '../db/seed';
 import { createApp } from './app';
 import { closeStudyPool } from './studies/study-pool';
-import { loadConfig } from './config';
-import { startMailQueue } from './jobs/mail-queue';
 import { startJobs } from './jobs/run-jobs';
 import type { SmtpFake } from './mail/smtp-fake';
-import { createLogger } from './middleware/request-log';
 import { loadOrMakeCertificate } from './network/tls';
-import { exitOnStartError, migrateUnderLock, onStopSignal } from './start-up';
-import { openPhotoStorage } from './storage/open-photo-storage';
+import { exitOnStartError, onStopSignal, openShared } from './start-up';
 
 async function main() {
-  const config = loadConfig();
-  const logger = createLogger(config);
-  await migrateUnderLock(config.databaseUrl);
-  const database = createDatabase(config.databaseUrl);
-  const photos = await openPhotoStorage(config);
+  const { config, logger, database, photos, mailQueue } = await openShared();
   const storage = photos.storage;
   // Loaded only when asked for: smtp-server is a development dependency, absent from a production install.
   const smtpFake: SmtpFake | undefined = config.smtp.fake
     ? await (await import('./mail/smtp-fake')).startSmtpFake(config.smtp.port, config.smtp.host) : undefined;
-  const mailQueue = await startMailQueue(config.databaseUrl);
   if (process.env.SEED_DEMO === '1' && (await seedDemo(database, storage, mailQueue, config.jwtSecret))) console.log('demo scenario loaded');
   // RUN_JOBS=0: this process only enqueues; `npm run worker` sends the mail and sweeps the photos.
   const jobs = config.runJobs ? await startJobs({ config, db: database.db, storage, mailQueue, logger }) : null;

@@ -1,6 +1,10 @@
 import { Client } from 'pg';
+import { createDatabase } from '../db';
 import { runMigrations } from '../db/migrate';
-import { ConfigError } from './config';
+import { ConfigError, loadConfig } from './config';
+import { startMailQueue } from './jobs/mail-queue';
+import { createLogger } from './middleware/request-log';
+import { openPhotoStorage } from './storage/open-photo-storage';
 
 /** Tells scripts/supervise.sh (and any process manager) that restarting cannot help (sysexits' EX_CONFIG). */
 export const EXIT_CONFIG = 78;
@@ -43,4 +47,18 @@ export function onStopSignal(stop: (signal: string) => Promise<void>): void {
 export function exitOnStartError(err: unknown): never {
   console.error(err instanceof Error ? err.message : err);
   process.exit(err instanceof ConfigError ? EXIT_CONFIG : 1);
+}
+
+/**
+ * What an API process and a worker both open, in this order: configuration, log, the schema brought up
+ * to date (under the lock), the database, the photo store and the job queue.
+ */
+export async function openShared() {
+  const config = loadConfig();
+  const logger = createLogger(config);
+  await migrateUnderLock(config.databaseUrl);
+  const database = createDatabase(config.databaseUrl);
+  const photos = await openPhotoStorage(config);
+  const mailQueue = await startMailQueue(config.databaseUrl);
+  return { config, logger, database, photos, mailQueue };
 }

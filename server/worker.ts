@@ -1,10 +1,5 @@
-import { createDatabase } from '../db';
-import { loadConfig } from './config';
-import { startMailQueue } from './jobs/mail-queue';
 import { startJobs } from './jobs/run-jobs';
-import { createLogger } from './middleware/request-log';
-import { exitOnStartError, migrateUnderLock, onStopSignal } from './start-up';
-import { openPhotoStorage } from './storage/open-photo-storage';
+import { exitOnStartError, onStopSignal, openShared } from './start-up';
 
 /**
  * `npm run worker`: the job queue's consumers (mail) and the photo sweep, without the HTTP server.
@@ -12,12 +7,7 @@ import { openPhotoStorage } from './storage/open-photo-storage';
  * database, same photo store: a mail carries the finding's photo). It never starts the SMTP fake.
  */
 async function main() {
-  const config = loadConfig();
-  const logger = createLogger(config);
-  await migrateUnderLock(config.databaseUrl);
-  const database = createDatabase(config.databaseUrl);
-  const photos = await openPhotoStorage(config);
-  const mailQueue = await startMailQueue(config.databaseUrl);
+  const { config, logger, database, photos, mailQueue } = await openShared();
   const jobs = await startJobs({ config, db: database.db, storage: photos.storage, mailQueue, logger });
   console.log(`Pitchcard worker is up (mail through ${config.smtp.host}:${config.smtp.port}; photos in ${photos.where})`);
 
