@@ -1,14 +1,10 @@
 import { readFileSync } from 'node:fs';
-import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
-import type { TestApp } from '../helpers/test-app';
 import { contrast } from '../components/colour-math';
-import { gatherIds, keepScreenshot, routes, shotName, routeWalker, signedInContext, visible, type Ids } from './helpers/audit-routes';
-import { launchBrowser } from './helpers/browser';
-import { serveTestApp } from './helpers/served-app';
+import { auditSession, keepScreenshot, routes, shotName, routeWalker, signedInContext, visible } from './helpers/audit-routes';
 
 /**
  * Readable and operable for everyone at the bench, checked in Debian's Chromium against the real
@@ -24,10 +20,7 @@ jest.setTimeout(900_000);
 const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
 const artefacts = path.join(__dirname, 'artifacts', 'a11y');
 
-let t: TestApp;
-let base: string;
-let closeApp: () => Promise<void>;
-let browser: Browser;
+const s = auditSession(artefacts);
 
 const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 
@@ -37,19 +30,6 @@ const widths = [
   // The same phone with its text at 200 % (page zoom): 195 × 422 CSS pixels.
   { name: 'phone at 200 %', viewport: { width: 195, height: 422 }, isMobile: true },
 ] as const;
-
-let ids: Ids;
-
-beforeAll(async () => {
-  ({ t, base, close: closeApp } = await serveTestApp());
-  browser = await launchBrowser();
-  await mkdir(artefacts, { recursive: true });
-  ids = await gatherIds(t);
-});
-afterAll(async () => {
-  await browser?.close().catch(() => undefined);
-  await closeApp?.();
-});
 
 type Violation = { id: string; impact: string; help: string; nodes: { target: string[]; html: string; failureSummary: string }[] };
 
@@ -76,14 +56,14 @@ function describeViolations(route: string, width: string, vs: Violation[]): stri
 }
 
 describe.each(widths)('every route of every role passes axe (WCAG 2.1 A/AA) at $name width', (w) => {
-  const walker = routeWalker(w, () => ({ browser, base, ids }));
+  const walker = routeWalker(w, () => s);
   afterAll(() => walker.closeAll());
 
   it.each(routes)('$role: $name', async (r) => {
     const page = await walker.open(r);
     const found = await audit(page);
     await keepScreenshot(page, artefacts, shotName(w.name, r.role, r.name), w.viewport);
-    if (found.length) throw new Error(`${found.reduce((n, v) => n + v.nodes.length, 0)} failing elements\n${describeViolations(`${r.role} ${r.name} (${r.path(ids)})`, w.name, found)}`);
+    if (found.length) throw new Error(`${found.reduce((n, v) => n + v.nodes.length, 0)} failing elements\n${describeViolations(`${r.role} ${r.name} (${r.path(s.ids)})`, w.name, found)}`);
   });
 });
 
@@ -112,18 +92,18 @@ describe('the keyboard alone, Space and Enter both', () => {
   let builderToken: string;
   let inspectorToken: string;
   const holeStatus = async (holeId: string) => {
-    const d = (await request(t.app).get(`/api/travelers/${ids.walkTravelerId}`).set(auth(builderToken))).body;
+    const d = (await request(s.t.app).get(`/api/travelers/${s.ids.walkTravelerId}`).set(auth(builderToken))).body;
     return (d.holes as { holeId: string; status: string }[]).find((h) => h.holeId === holeId)!.status;
   };
   beforeAll(async () => {
-    builderToken = await t.signIn(DEMO_USERS.builder.email);
-    inspectorToken = await t.signIn(DEMO_USERS.inspector.email);
+    builderToken = await s.t.signIn(DEMO_USERS.builder.email);
+    inspectorToken = await s.t.signIn(DEMO_USERS.inspector.email);
   });
 
   it('rings the focused control in our own colour, 3:1 or more against the paper and against a chosen (ink) chip', async () => {
-    const { context, page } = await signedInContext(browser, base, 'builder', widths[0]);
+    const { context, page } = await signedInContext(s.browser, s.base, 'builder', widths[0]);
     try {
-      await page.goto(`/travelers/${ids.walkTravelerId}`);
+      await page.goto(`/travelers/${s.ids.walkTravelerId}`);
       await visible(page, 'traveler-screen').waitFor({ timeout: 30000 });
       // From "Closer" back to the chosen "Whole part" by Shift+Tab: focus by keyboard, as :focus-visible wants it.
       await visible(page, 'zoom-closer').focus();
@@ -149,7 +129,7 @@ describe('the keyboard alone, Space and Enter both', () => {
   });
 
   it('focuses the home screen’s heading after signing in, and the error after a failed sign-in', async () => {
-    const context = await browser.newContext({ baseURL: base, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+    const context = await s.browser.newContext({ baseURL: s.base, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
     const page = await context.newPage();
     try {
       await page.goto('/');
@@ -174,7 +154,7 @@ describe('the keyboard alone, Space and Enter both', () => {
   });
 
   it('ticks holes and steps, zooms and ticks a run on the traveler (and switches units on the bench)', async () => {
-    const { context, page } = await signedInContext(browser, base, 'builder', widths[0]);
+    const { context, page } = await signedInContext(s.browser, s.base, 'builder', widths[0]);
     try {
       await page.goto('/bench');
       await visible(page, 'bench-screen').waitFor({ timeout: 30000 });
@@ -183,7 +163,7 @@ describe('the keyboard alone, Space and Enter both', () => {
       await keyOn(page, 'units-imperial', 'Enter');
       expect(await checked(page, 'units-imperial')).toBe('true');
 
-      await page.goto(`/travelers/${ids.walkTravelerId}`);
+      await page.goto(`/travelers/${s.ids.walkTravelerId}`);
       await visible(page, 'traveler-screen').waitFor({ timeout: 30000 });
 
       // Holes: Space ticks one in, Enter another; Space again takes the first tick off.
@@ -199,7 +179,7 @@ describe('the keyboard alone, Space and Enter both', () => {
 
       // Shop steps.
       const stepDone = async (seq: number) => {
-        const d = (await request(t.app).get(`/api/travelers/${ids.walkTravelerId}`).set(auth(builderToken))).body;
+        const d = (await request(s.t.app).get(`/api/travelers/${s.ids.walkTravelerId}`).set(auth(builderToken))).body;
         return !!(d.steps as { seq: number; doneAt: string | null }[]).find((s) => s.seq === seq)!.doneAt;
       };
       await keyOn(page, 'step-1', 'Space');
@@ -229,9 +209,9 @@ describe('the keyboard alone, Space and Enter both', () => {
   });
 
   it('chooses holes and the kind on the flag screen, whose heading has focus when it opens', async () => {
-    const { context, page } = await signedInContext(browser, base, 'builder', widths[0]);
+    const { context, page } = await signedInContext(s.browser, s.base, 'builder', widths[0]);
     try {
-      await page.goto(`/travelers/${ids.walkTravelerId}/flag?holes=U-04`);
+      await page.goto(`/travelers/${s.ids.walkTravelerId}/flag?holes=U-04`);
       await visible(page, 'flag-screen').waitFor({ timeout: 30000 });
       await until(() => focusedTestId(page), (v) => v === 'screen-title', 'focus on opening the flag screen');
 
@@ -252,9 +232,9 @@ describe('the keyboard alone, Space and Enter both', () => {
   });
 
   it('records the disposition chosen by Space, after another was chosen by Enter, and focuses the result', async () => {
-    const { context, page } = await signedInContext(browser, base, 'inspector', widths[0]);
+    const { context, page } = await signedInContext(s.browser, s.base, 'inspector', widths[0]);
     try {
-      await page.goto(`/findings/${ids.walkFindingId}`);
+      await page.goto(`/findings/${s.ids.walkFindingId}`);
       await visible(page, 'finding-decision').waitFor({ timeout: 30000 });
 
       await keyOn(page, 'disposition-repair', 'Enter');
@@ -272,7 +252,7 @@ describe('the keyboard alone, Space and Enter both', () => {
       await page.keyboard.type('Drill out L-02 and set the same rivet again');
       await keyOn(page, 'finding-action-disposition', 'Enter');
       const f = await until(
-        async () => (await request(t.app).get(`/api/findings/${ids.walkFindingId}`).set(auth(inspectorToken))).body as { status: string; disposition: string | null },
+        async () => (await request(s.t.app).get(`/api/findings/${s.ids.walkFindingId}`).set(auth(inspectorToken))).body as { status: string; disposition: string | null },
         (b) => b.status !== 'raised', 'the finding after recording',
       );
       expect(f.disposition).toBe('rework');

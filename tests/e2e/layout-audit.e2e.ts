@@ -1,10 +1,5 @@
-import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
-import type { Browser } from 'playwright-core';
-import type { TestApp } from '../helpers/test-app';
-import { gatherIds, keepScreenshot, routes, shotName, routeWalker, type Ids, type Width } from './helpers/audit-routes';
-import { launchBrowser } from './helpers/browser';
-import { serveTestApp } from './helpers/served-app';
+import { auditSession, keepScreenshot, routes, shotName, routeWalker, type Width } from './helpers/audit-routes';
 
 /**
  * The layout audit, in Debian's Chromium against the real server: every route of every role, at a
@@ -322,25 +317,10 @@ function report(route: string, width: string, fs: LayoutFailure[]): string {
   }).join('\n')}`;
 }
 
-let t: TestApp;
-let base: string;
-let closeApp: () => Promise<void>;
-let browser: Browser;
-let ids: Ids;
-
-beforeAll(async () => {
-  ({ t, base, close: closeApp } = await serveTestApp());
-  browser = await launchBrowser();
-  await mkdir(artefacts, { recursive: true });
-  ids = await gatherIds(t);
-});
-afterAll(async () => {
-  await browser?.close().catch(() => undefined);
-  await closeApp?.();
-});
+const s = auditSession(artefacts);
 
 describe.each(widths)('every route of every role lays out at $name width', (w) => {
-  const walker = routeWalker(w, () => ({ browser, base, ids }));
+  const walker = routeWalker(w, () => s);
   afterAll(() => walker.closeAll());
 
   it.each(routes)('$role: $name', async (r) => {
@@ -348,6 +328,6 @@ describe.each(widths)('every route of every role lays out at $name width', (w) =
     const failures = await page.evaluate(measureLayout, { appFonts: APP_FONTS, minTarget: MIN_TARGET });
     await keepScreenshot(page, artefacts, shotName(w.name, r.role, r.name), w.viewport);
     // Every failure of the route in one message.
-    if (failures.length) throw new Error(report(`${r.role} ${r.name} (${r.path(ids)})`, w.name, failures));
+    if (failures.length) throw new Error(report(`${r.role} ${r.name} (${r.path(s.ids)})`, w.name, failures));
   });
 });

@@ -1,9 +1,12 @@
+import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import sharp from 'sharp';
 import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
 import type { TestApp } from '../../helpers/test-app';
+import { launchBrowser } from './browser';
+import { serveTestApp } from './served-app';
 
 /**
  * What the whole-app browser audits share (a11y.e2e.ts, layout-audit.e2e.ts): the routes of every role
@@ -218,4 +221,24 @@ export function routeWalker(w: Width, env: () => { browser: Browser; base: strin
       for (const p of pages.values()) await p.context.close().catch(() => undefined);
     },
   };
+}
+
+/**
+ * What both walks open before their tests and close after: the served app with the demo, one browser,
+ * the demo's ids and the folder the screenshots go to. Read its fields inside tests (they are set in beforeAll).
+ */
+export function auditSession(artefacts: string) {
+  const s = {} as { t: TestApp; base: string; browser: Browser; ids: Ids; close?: () => Promise<void> };
+  beforeAll(async () => {
+    const served = await serveTestApp();
+    Object.assign(s, { t: served.t, base: served.base, close: served.close });
+    s.browser = await launchBrowser();
+    await mkdir(artefacts, { recursive: true });
+    s.ids = await gatherIds(s.t);
+  });
+  afterAll(async () => {
+    await s.browser?.close().catch(() => undefined);
+    await s.close?.();
+  });
+  return s;
 }
