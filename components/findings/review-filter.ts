@@ -6,6 +6,17 @@ export type ReviewFilters = { status: StatusFilter; build: string | 'all'; text:
 export type ReviewSortKey = 'date' | 'part' | 'status';
 export type ReviewSort = { key: ReviewSortKey; dir: 'asc' | 'desc' };
 
+/**
+ * What of the filters the server answers (state and build), so every page it sends is made of what
+ * is asked for; `buildIds` maps the kit serials met so far to their build. The words stay here.
+ */
+export function serverFilters(f: ReviewFilters, buildIds: ReadonlyMap<string, string>): { status?: FindingStatus | 'open'; buildId?: string } {
+  return {
+    status: f.status === 'all' ? undefined : f.status,
+    buildId: f.build === 'all' ? undefined : buildIds.get(f.build),
+  };
+}
+
 export function filterFindings(rows: readonly FindingSummary[], f: ReviewFilters): FindingSummary[] {
   const words = f.text.trim().toLowerCase().split(/\s+/).filter(Boolean);
   return rows.filter((r) => {

@@ -1,11 +1,12 @@
 import { useRouter } from 'expo-router';
-import { useMemo, useState } from 'react';
+import { useMemo, useRef, useState } from 'react';
 import { Image, View } from 'react-native';
-import { findingKindLabels, findingStatuses, findingStatusLabels, isOpenFinding, type FindingStatus, type FindingSummary } from '@/db/contracts';
+import { findingKindLabels, findingStatuses, findingStatusLabels, type FindingStatus, type FindingSummary } from '@/db/contracts';
 import { colors, space } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
 import { Choice } from '@/components/ui/choice';
 import { Field, FindField } from '@/components/ui/field';
+import { LoadMore } from '@/components/ui/load-more';
 import { Screen } from '@/components/ui/screen';
 import { Section } from '@/components/ui/sheet';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
@@ -13,9 +14,10 @@ import { FindingStatusTag } from '@/components/ui/status-mark';
 import { Table, type Column } from '@/components/ui/table';
 import { Mono, Txt } from '@/components/ui/text';
 import { useFindingsQuery } from '@/hooks/queries/findings';
+import { pagedItems } from '@/hooks/queries/paged';
 import { useWide } from '@/hooks/use-wide';
 import { FindingRow, findingRowLabel, shortDate } from './finding-row';
-import { buildsIn, filterFindings, nextSort, sortFindings, type ReviewFilters, type ReviewSort, type ReviewSortKey, type StatusFilter } from './review-filter';
+import { filterFindings, nextSort, serverFilters, sortFindings, type ReviewFilters, type ReviewSort, type ReviewSortKey, type StatusFilter } from './review-filter';
 
 const statusOptions: { value: StatusFilter; label: string }[] = [
   { value: 'open', label: 'Open' },
@@ -49,19 +51,24 @@ export function ReviewQueueScreen({
   first,
 }: ReviewQueueProps) {
   const router = useRouter();
-  const q = useFindingsQuery();
-  const firstQ = useFindingsQuery({ status: first?.status }, { enabled: !!first });
   const [filters, setFilters] = useState<ReviewFilters>({ status: 'open', build: 'all', text: '' });
+  // Every build met in any page so far (kit serial → id): the build choice keeps its options while one is chosen.
+  const seenBuilds = useRef(new Map<string, string>());
+  // State and build are asked of the server, so each page is full of what is asked for; the words search the rows loaded.
+  const q = useFindingsQuery(serverFilters(filters, seenBuilds.current), { keepPrevious: true });
+  // Oldest first, from the server: the longest wait is answered first, however many wait.
+  const firstQ = useFindingsQuery({ status: first?.status, order: 'oldest' }, { enabled: !!first });
   const [sort, setSort] = useState<ReviewSort>({ key: 'date', dir: 'desc' });
   const wide = useWide();
   // On a phone the filters fold behind one button, so the first finding shows on the first screen.
   const [filtersOpen, setFiltersOpen] = useState(false);
-  const all = useMemo(() => q.data ?? [], [q.data]);
+  const all = useMemo(() => pagedItems(q.data), [q.data]);
   const rows = useMemo(() => sortFindings(filterFindings(all, filters), sort), [all, filters, sort]);
-  // Oldest first: the longest wait is answered first.
-  const waiting = useMemo(() => sortFindings(firstQ.data ?? [], { key: 'date', dir: 'asc' }), [firstQ.data]);
-  const builds = useMemo(() => buildsIn(all), [all]);
-  const openCount = all.filter((f) => isOpenFinding(f.status)).length;
+  const waiting = useMemo(() => pagedItems(firstQ.data), [firstQ.data]);
+  const builds = useMemo(() => {
+    for (const f of [...all, ...waiting]) seenBuilds.current.set(f.kitSerial, f.buildId);
+    return [...seenBuilds.current.keys()].sort((a, b) => a.localeCompare(b, undefined, { numeric: true }));
+  }, [all, waiting]);
 
   const columns: Column<FindingSummary, ReviewSortKey>[] = [
     { key: 'photo', title: 'Photo', flex: 0.7, render: (f) => (f.thumbUrl
@@ -77,12 +84,16 @@ export function ReviewQueueScreen({
   ];
 
   const firstBlock = first ? (
-    <Section title={`${first.title} (${firstQ.data?.length ?? '…'})`} testID="review-first">
+    <Section title={`${first.title} (${firstQ.data ? `${waiting.length}${firstQ.hasNextPage ? '+' : ''}` : '…'})`} testID="review-first">
       {firstQ.isPending ? <LoadingState what={`Loading: ${first.title.toLowerCase()}`} />
         : firstQ.isError ? <ErrorState error={firstQ.error} onRetry={() => void firstQ.refetch()} />
           : waiting.length ? (
             <View>
               {waiting.map((f) => <FindingRow key={f.id} f={f} onPress={() => router.push(`/findings/${f.id}`)} />)}
+              <LoadMore
+                hasNextPage={firstQ.hasNextPage} isFetchingNextPage={firstQ.isFetchingNextPage} fetchNextPage={firstQ.fetchNextPage}
+                shown={waiting.length} what="findings" testID="review-first-more"
+              />
             </View>
           ) : <Txt tone="soft" testID="review-first-empty">{first.empty}</Txt>}
     </Section>
@@ -125,7 +136,9 @@ export function ReviewQueueScreen({
       )}
       {!wide && filtersOpen ? choices : null}
       <FindField value={filters.text} onChange={(text) => setFilters((f) => ({ ...f, text }))} placeholder="Part, serial, hole, kind or name" where="the queue" testID="filter-text" />
-      <Txt variant="small" tone="soft" testID="review-count">{rows.length} shown · {openCount} open in all</Txt>
+      <Txt variant="small" tone="soft" testID="review-count">
+        {rows.length} shown{rows.length < all.length ? ` of ${all.length} loaded` : ''}{q.hasNextPage ? ' · more to load' : ''}
+      </Txt>
     </View>
   );
 
@@ -134,23 +147,27 @@ export function ReviewQueueScreen({
       {q.isPending ? <LoadingState what="Loading the findings" />
         : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
           : (
-            <Table
-              rows={rows}
-              columns={columns}
-              rowKey={(f) => f.id}
-              sort={sort}
-              onSort={(key) => setSort((s) => nextSort(s, key))}
-              onRowPress={(f) => router.push(`/findings/${f.id}`)}
-              rowTestID={(f) => `review-row-${f.id}`}
-              rowLabel={(f) => `${findingRowLabel(f)}; build ${f.kitSerial}${f.photoCount ? `; ${f.photoCount} photo${f.photoCount === 1 ? '' : 's'}` : ''}`}
-              header={header}
-              empty={
-                <EmptyState
-                  title={all.length ? 'Nothing matches these filters.' : 'No findings yet.'}
-                  body={all.length ? 'Show all states, or clear the search.' : emptyBody}
-                />
-              }
-            />
+            <View style={{ flex: 1 }}>
+              <Table
+                rows={rows}
+                columns={columns}
+                rowKey={(f) => f.id}
+                sort={sort}
+                onSort={(key) => setSort((s) => nextSort(s, key))}
+                onRowPress={(f) => router.push(`/findings/${f.id}`)}
+                rowTestID={(f) => `review-row-${f.id}`}
+                rowLabel={(f) => `${findingRowLabel(f)}; build ${f.kitSerial}${f.photoCount ? `; ${f.photoCount} photo${f.photoCount === 1 ? '' : 's'}` : ''}`}
+                header={header}
+                empty={
+                  <EmptyState
+                    title={all.length ? 'Nothing loaded matches these words.' : filters.status === 'all' && filters.build === 'all' ? 'No findings yet.' : 'Nothing matches these filters.'}
+                    body={all.length ? 'Clear the search, or load more.' : filters.status === 'all' && filters.build === 'all' ? emptyBody : 'Show all states and builds.'}
+                  />
+                }
+              />
+              {/* The table's own foot: the list's count and the next page (loaded as it shows on the web). */}
+              <LoadMore hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage} shown={all.length} what="findings" testID="review-more" />
+            </View>
           )}
     </Screen>
   );

@@ -4,7 +4,7 @@ import {
   dispositions, findingStatuses, repairSchemes, type BuildPlace, type Disposition, type FindingAction, type FindingClosure,
   type FindingEventAction, type FindingStatus, type RepairScheme,
 } from './findings-rules';
-import { plainText } from './common';
+import { pageQuery, plainText } from './common';
 
 export * from './finding-kinds';
 export * from './findings-rules';
@@ -37,11 +37,18 @@ export const findingActionInput = z.object({
 });
 export type FindingActionInput = z.input<typeof findingActionInput>;
 
-export const findingListQuery = z.object({
+/**
+ * GET /api/findings: one page (`Page<FindingSummary>`) of the findings the reader may see, newest
+ * first by default; `order=oldest` puts the longest wait first (the design authority's approvals).
+ * Ties on the time fall back to the id, so a page never repeats or skips a row.
+ */
+export const findingListQuery = pageQuery.extend({
   status: z.enum([...findingStatuses, 'open'] as const, { message: `status is open or one of ${findingStatuses.join(', ')}` }).optional(),
   buildId: z.uuid({ message: 'buildId must be an id' }).optional(),
   travelerId: z.uuid({ message: 'travelerId must be an id' }).optional(),
+  order: z.enum(['newest', 'oldest'], { message: 'order is newest or oldest' }).default('newest'),
 });
+export type FindingListQuery = z.infer<typeof findingListQuery>;
 
 export type FindingPhoto = { id: string; width: number; height: number; url: string; thumbUrl: string; stage: 'found' | 'work'; eventId: string | null };
 

@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import { index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import {
   buildPlaces, dispositions, findingClosures, findingEventActions, findingKinds, findingStatuses,
@@ -35,7 +36,14 @@ export const findings = pgTable('findings', {
   raisedBy: uuid('raised_by').notNull().references(() => users.id),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
-}, (t) => [index('findings_traveler').on(t.travelerId), index('findings_status').on(t.status)]);
+}, (t) => [
+  // The list's pages read in (created_at, id) order, newest or oldest first, and stop after one page:
+  // all findings, open ones (the predicate GET /api/findings?status=open writes), one state, one traveler.
+  index('findings_created').on(t.createdAt, t.id),
+  index('findings_open_created').on(t.createdAt, t.id).where(sql`${t.status} <> 'closed'`),
+  index('findings_status_created').on(t.status, t.createdAt, t.id),
+  index('findings_traveler_created').on(t.travelerId, t.createdAt, t.id),
+]);
 
 /** Every change to a finding: who, in what place on the build, when, what and why. */
 export const findingEvents = pgTable('finding_events', {
@@ -63,7 +71,10 @@ export const findingPhotos = pgTable('finding_photos', {
   height: integer('height').notNull(),
   uploadedBy: uuid('uploaded_by').notNull().references(() => users.id),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-});
+}, (t) => [
+  // A list row's photo count and first photo, and a finding's photos in order.
+  index('finding_photos_finding').on(t.findingId, t.createdAt, t.id),
+]);
 
 /**
  * One row per (event, recipient) once the mail is handed to SMTP: the queue delivers at least once,

@@ -1,20 +1,25 @@
-import { queryOptions, useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
+import {
+  infiniteQueryOptions, keepPreviousData, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient, type InfiniteData, type QueryClient,
+} from '@tanstack/react-query';
 import {
   findingActionInput, findingActions, type FindingAction, type FindingActionInput, type FindingDetail, type FindingInput,
-  type FindingStatus, type FindingSummary, type RepairCheckResult,
+  type FindingStatus, type FindingSummary, type Page, type RepairCheckResult,
 } from '@/db/contracts';
-import { api, ApiError, qs } from '../api-client';
+import { api, ApiError } from '../api-client';
+import { pageParams, pagePath } from './paged';
 import { findingActionFormData, findingFormData, type DraftPhoto } from '../photo-form-data';
 import { buildKeys } from './builds';
 import { travelerKeys } from './travelers';
 
-export type FindingFilters = { status?: FindingStatus | 'open'; buildId?: string; travelerId?: string };
+/** The server's filters and order of GET /api/findings (db/contracts/findings.ts `findingListQuery`). */
+export type FindingFilters = { status?: FindingStatus | 'open'; buildId?: string; travelerId?: string; order?: 'newest' | 'oldest' };
 
 export const findingKeys = {
   all: ['findings'] as const,
   lists: () => [...findingKeys.all, 'list'] as const,
   list: (f: FindingFilters = {}) => [
-    ...findingKeys.lists(), { status: f.status ?? null, buildId: f.buildId ?? null, travelerId: f.travelerId ?? null },
+    ...findingKeys.lists(),
+    { status: f.status ?? null, buildId: f.buildId ?? null, travelerId: f.travelerId ?? null, order: f.order ?? 'newest' },
   ] as const,
   details: () => [...findingKeys.all, 'detail'] as const,
   detail: (id: string) => [...findingKeys.details(), id] as const,
@@ -28,9 +33,13 @@ export type { RepairAlternative, RepairCheckResult, RepairHoleResult } from '@/d
 const findingPath = (id: string, rest = '') => `/api/findings/${encodeURIComponent(id)}${rest}`;
 
 export const findingQueries = {
-  list: (f: FindingFilters = {}) => queryOptions({
+  /** The findings in pages, newest first unless `order` says oldest; the server's filters go with every page. */
+  list: (f: FindingFilters = {}) => infiniteQueryOptions({
     queryKey: findingKeys.list(f),
-    queryFn: ({ signal }) => api.get<FindingSummary[]>(`/api/findings${qs({ status: f.status, buildId: f.buildId, travelerId: f.travelerId })}`, signal),
+    queryFn: ({ pageParam, signal }) => api.get<Page<FindingSummary>>(pagePath('/api/findings', pageParam, {
+      status: f.status, buildId: f.buildId, travelerId: f.travelerId, order: f.order === 'oldest' ? 'oldest' : undefined,
+    }), signal),
+    ...pageParams,
   }),
   detail: (id: string) => queryOptions({
     queryKey: findingKeys.detail(id),
@@ -48,8 +57,44 @@ export const findingQueries = {
   }),
 };
 
-export function useFindingsQuery(filters: FindingFilters = {}, opts: { enabled?: boolean } = {}) {
-  return useQuery({ ...findingQueries.list(filters), enabled: opts.enabled ?? true });
+/**
+ * The findings list, a page at a time: `pagedItems(q.data)` are the rows so far, `fetchNextPage` asks
+ * for more. `keepPrevious` shows the rows of the last filters while the new ones load (a filter change
+ * does not blank the screen).
+ */
+export function useFindingsQuery(filters: FindingFilters = {}, opts: { enabled?: boolean; keepPrevious?: boolean } = {}) {
+  return useInfiniteQuery({
+    ...findingQueries.list(filters), enabled: opts.enabled ?? true, placeholderData: opts.keepPrevious ? keepPreviousData : undefined,
+  });
+}
+
+/**
+ * A finding as it now stands, written into every loaded page that shows it (the pages keep their
+ * shape and order), so the row changes at once; the lists are then fetched again to move or drop it.
+ */
+export function patchFindingInLists(qc: QueryClient, f: FindingSummary) {
+  qc.setQueriesData<InfiniteData<Page<FindingSummary>>>({ queryKey: findingKeys.lists() }, (data) => {
+    if (!data?.pages) return data;
+    let changed = false;
+    const pages = data.pages.map((p) => {
+      if (!p.items.some((r) => r.id === f.id)) return p;
+      changed = true;
+      return { ...p, items: p.items.map((r) => (r.id === f.id ? { ...r, ...summaryOf(f) } : r)) };
+    });
+    return changed ? { ...data, pages } : data;
+  });
+}
+
+/** The list row's fields of a finding's detail. */
+function summaryOf(f: FindingSummary): FindingSummary {
+  const {
+    id, travelerId, serial, partNumber, kitSerial, buildId, holeIds, kind, status, disposition, closure, raisedByName, createdAt, updatedAt,
+    photoCount, thumbUrl,
+  } = f;
+  return {
+    id, travelerId, serial, partNumber, kitSerial, buildId, holeIds, kind, status, disposition, closure, raisedByName, createdAt, updatedAt,
+    photoCount, thumbUrl,
+  };
 }
 
 export function useFindingQuery(id: string) {
@@ -64,6 +109,7 @@ export function useRepairCheckQuery(findingId: string, spec: string | null) {
 /** A finding's change shows on its traveler (hole statuses, findings list, readiness), its build and every list. */
 function refreshAround(qc: QueryClient, f: FindingDetail) {
   qc.setQueryData(findingKeys.detail(f.id), f);
+  patchFindingInLists(qc, f);
   return Promise.all([
     qc.invalidateQueries({ queryKey: findingKeys.lists() }),
     qc.invalidateQueries({ queryKey: travelerKeys.detail(f.travelerId) }),

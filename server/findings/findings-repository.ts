@@ -1,20 +1,32 @@
-import { and, asc, desc, eq, inArray, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
 import {
   buildMembers, builds, designRevisions, findingEvents, findingPhotos, findings, holes, partDesigns, travelerEvents, travelers, users,
 } from '../../db/schema';
 import { openFindingStatuses, type FindingStatus, type HoleStatus, type MailAudience } from '../../db/contracts';
 import { visibleBuilds } from '../builds/build-access';
+import { afterKey } from '../pagination';
 
 export type FindingFilter = { id?: string; travelerId?: string; buildId?: string; status?: FindingStatus | 'open' };
 
+/** A status filter as a condition: "open" is written as `status <> 'closed'`, the very predicate of the partial index `findings_open_created`. */
+function statusCondition(status: FindingFilter['status']): SQL | undefined {
+  // A literal, not a bound value, so the planner can match it to the index's predicate in any plan.
+  if (status === 'open') return sql`${findings.status} <> 'closed'`;
+  return status ? eq(findings.status, status) : undefined;
+}
+
+/**
+ * One finding (or a few) with all its photos, for the detail and the photo check. Not for lists:
+ * a list reads its pages through `listFindingPage`.
+ */
 export async function listFindingRows(db: Db, user: Express.User, filter: FindingFilter) {
   const conditions: SQL[] = [visibleBuilds(db, user)];
   if (filter.id) conditions.push(eq(findings.id, filter.id));
   if (filter.travelerId) conditions.push(eq(findings.travelerId, filter.travelerId));
   if (filter.buildId) conditions.push(eq(travelers.buildId, filter.buildId));
-  if (filter.status === 'open') conditions.push(inArray(findings.status, [...openFindingStatuses]));
-  else if (filter.status) conditions.push(eq(findings.status, filter.status));
+  const byStatus = statusCondition(filter.status);
+  if (byStatus) conditions.push(byStatus);
   const rows = await db.select({
     id: findings.id, travelerId: findings.travelerId, serial: travelers.serial, partNumber: partDesigns.partNumber,
     kitSerial: builds.kitSerial, buildId: builds.id, holeIds: findings.holeIds, kind: findings.kind, status: findings.status,
@@ -30,10 +42,66 @@ export async function listFindingRows(db: Db, user: Express.User, filter: Findin
     .innerJoin(users, eq(users.id, findings.raisedBy))
     .where(and(...conditions)).orderBy(desc(findings.createdAt));
   const photos = rows.length === 0 ? [] : await db.select().from(findingPhotos)
-    .where(inArray(findingPhotos.findingId, rows.map((r) => r.id))).orderBy(asc(findingPhotos.createdAt));
+    .where(inArray(findingPhotos.findingId, rows.map((r) => r.id))).orderBy(asc(findingPhotos.createdAt), asc(findingPhotos.id));
   return rows.map((r) => ({ ...r, photos: photos.filter((p) => p.findingId === r.id) }));
 }
 export type FindingRow = Awaited<ReturnType<typeof listFindingRows>>[number];
+
+export type FindingOrder = 'newest' | 'oldest';
+
+/**
+ * One page of findings in one statement. The inner query picks the page's rows (visibility, filters,
+ * keyset, limit) from findings, travelers and builds, so an index on the sort key can stop after
+ * `limit + 1` rows; only those rows are then joined to their part, raiser and photos (a lateral count
+ * and first photo per row, served by `finding_photos_finding`).
+ * `after` is [created_at as PostgreSQL's text, id] of the last row shown; `limit` null reads every row (one traveler's).
+ */
+export function listFindingPage(
+  db: Db, user: Express.User, filter: Omit<FindingFilter, 'id'>, order: FindingOrder, after: readonly [string, string] | null, limit: number | null,
+) {
+  const dir = order === 'oldest' ? 'asc' : 'desc';
+  const by = dir === 'asc' ? asc : desc;
+  const conditions: (SQL | undefined)[] = [
+    visibleBuilds(db, user),
+    filter.travelerId ? eq(findings.travelerId, filter.travelerId) : undefined,
+    filter.buildId ? eq(travelers.buildId, filter.buildId) : undefined,
+    statusCondition(filter.status),
+    afterKey([findings.createdAt, findings.id], after, dir),
+  ];
+  // The page's rows carry every column the list shows from findings, travelers and builds: those rows are
+  // read by then, and joining findings again by id would let the planner scan the whole table to do it.
+  const keys = db.select({
+    at: sql<string>`${findings.createdAt}::text`.as('at'),
+    id: findings.id, travelerId: findings.travelerId, holeIds: findings.holeIds, kind: findings.kind, status: findings.status,
+    disposition: findings.disposition, closure: findings.closure, raisedBy: findings.raisedBy,
+    createdAt: findings.createdAt, updatedAt: findings.updatedAt,
+    serial: travelers.serial, revisionId: travelers.revisionId, buildId: travelers.buildId, kitSerial: builds.kitSerial,
+  })
+    .from(findings)
+    .innerJoin(travelers, eq(travelers.id, findings.travelerId))
+    .innerJoin(builds, eq(builds.id, travelers.buildId))
+    .where(and(...conditions))
+    .orderBy(by(findings.createdAt), by(findings.id))
+    .$dynamic();
+  const page = (limit === null ? keys : keys.limit(limit + 1)).as('page');
+  const photos = db.select({
+    count: sql<number>`count(*)::int`.as('photo_count'),
+    firstId: sql<string | null>`(array_agg(${findingPhotos.id} order by ${findingPhotos.createdAt}, ${findingPhotos.id}))[1]`.as('first_photo_id'),
+  }).from(findingPhotos).where(eq(findingPhotos.findingId, page.id)).as('photos');
+  return db.select({
+    at: page.at,
+    id: page.id, travelerId: page.travelerId, serial: page.serial, partNumber: partDesigns.partNumber,
+    kitSerial: page.kitSerial, buildId: page.buildId, holeIds: page.holeIds, kind: page.kind, status: page.status,
+    disposition: page.disposition, closure: page.closure, raisedByName: users.name, createdAt: page.createdAt,
+    updatedAt: page.updatedAt, photoCount: photos.count, firstPhotoId: photos.firstId,
+  }).from(page)
+    .innerJoin(designRevisions, eq(designRevisions.id, page.revisionId))
+    .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
+    .innerJoin(users, eq(users.id, page.raisedBy))
+    .leftJoinLateral(photos, sql`true`)
+    .orderBy(by(page.createdAt), by(page.id));
+}
+export type FindingPageRow = Awaited<ReturnType<typeof listFindingPage>>[number];
 
 export const listEvents = (db: Db, findingId: string) =>
   db.select({

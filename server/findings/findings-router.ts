@@ -30,7 +30,7 @@ export function findingsRouter(ctx: AppContext): Router {
   const service = findingsService(ctx);
   const files = (req: { files?: unknown }) => ((req.files as Express.Multer.File[] | undefined) ?? []);
 
-  r.get('/', validateQuery(findingListQuery), async (req, res) => { res.json(await service.list(req.user!, res.locals.query)); });
+  r.get('/', validateQuery(findingListQuery), async (req, res) => { res.json(await service.page(req.user!, res.locals.query)); });
   r.post('/', upload.array('photos', MAX_PHOTOS), async (req, res) => {
     const input = findingInput.parse({
       ...req.body,

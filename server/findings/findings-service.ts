@@ -1,7 +1,7 @@
 import {
   checkRaise, decide, flaggableHoleStatuses, measuresOfKind, NOTE_MIN_LENGTH, noteRequired, restoredHoleStatus, allowedActions,
   type FindingAction, type FindingActionInput, type FindingDetail, type FindingInput, type FindingSummary, type HoleStatus,
-  type Measurements, type RepairRecord,
+  type FindingListQuery, type Measurements, type Page, type RepairRecord,
 } from '../../db/contracts';
 import { withTransaction, type Db } from '../../db';
 import type { AppContext } from '../context';
@@ -9,14 +9,15 @@ import { placeOnBuild } from '../builds/build-access';
 import { couponsForEngine } from '../coupons/coupons-repository';
 import { findRivetByCallout, nextRivetSize, repairCheck, type RepairCheckResult } from '../engineering';
 import { badRequest, conflict, HttpError, notFound } from '../http-error';
+import { decodeCursor, pageOf } from '../pagination';
 import { processPhoto } from '../photos/image-processing';
 import type { PhotoStorage } from '../storage/photo-storage';
 import {
   currentRevisionOf, findTravelerParts, insertTraveler, listTravelers, lockTraveler, replacementSerial,
 } from '../travelers/travelers-repository';
 import {
-  findFinding, findTravelerBrief, holesOf, insertFinding, insertFindingEvent, insertFindingPhotos, listEvents, listFindingRows,
-  markTravelerReplaced, openFindingsOf, setHoleStatus, updateFinding, type FindingFilter, type FindingRow,
+  findFinding, findTravelerBrief, holesOf, insertFinding, insertFindingEvent, insertFindingPhotos, listEvents, listFindingPage, listFindingRows,
+  markTravelerReplaced, openFindingsOf, setHoleStatus, updateFinding, type FindingOrder, type FindingPageRow, type FindingRow,
 } from './findings-repository';
 import { oversizeOptions, rivetOfCallout } from './oversize-options';
 
@@ -46,11 +47,12 @@ type StoredPhoto = { fileKey: string; thumbKey: string; width: number; height: n
 const refused = (r: { code: 403 | 409; message: string }) => new HttpError(r.code, r.code === 403 ? 'forbidden' : 'conflict', r.message);
 
 export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) => {
-  const summary = (r: FindingRow, viewerId: string): FindingSummary => ({
+  /** The list's row and the detail's head alike: the first photo (oldest, then by id) is the thumbnail. */
+  const summary = (r: Omit<FindingPageRow, 'at' | 'photoCount' | 'firstPhotoId'>, photoCount: number, firstPhotoId: string | null, viewerId: string): FindingSummary => ({
     id: r.id, travelerId: r.travelerId, serial: r.serial, partNumber: r.partNumber, kitSerial: r.kitSerial, buildId: r.buildId,
     holeIds: r.holeIds, kind: r.kind, status: r.status, disposition: r.disposition, closure: r.closure, raisedByName: r.raisedByName,
-    createdAt: r.createdAt.toISOString(), updatedAt: r.updatedAt.toISOString(), photoCount: r.photos.length,
-    thumbUrl: r.photos[0] ? signer.sign(r.photos[0].id, 'thumb', viewerId) : null,
+    createdAt: r.createdAt.toISOString(), updatedAt: r.updatedAt.toISOString(), photoCount,
+    thumbUrl: firstPhotoId ? signer.sign(firstPhotoId, 'thumb', viewerId) : null,
   });
 
   async function visibleRow(user: Express.User, id: string) {
@@ -82,7 +84,7 @@ export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) 
     const rivet = rivetOfCallout(rev.rivetSpec);
     const replacement = parts!.traveler.replacedById ? await findTravelerBrief(db, parts!.traveler.replacedById) : null;
     return {
-      ...summary(row, user.id), note: row.note, dispositionNote: row.dispositionNote, measurements: row.measurements, repair: row.repair,
+      ...summary(row, row.photos.length, row.photos[0]?.id ?? null, user.id), note: row.note, dispositionNote: row.dispositionNote, measurements: row.measurements, repair: row.repair,
       photos: row.photos.map((p) => ({
         id: p.id, width: p.width, height: p.height, url: signer.sign(p.id, 'full', user.id), thumbUrl: signer.sign(p.id, 'thumb', user.id),
         stage: p.eventId ? 'work' : 'found', eventId: p.eventId,
@@ -161,8 +163,21 @@ export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) 
     detail,
     repairCheck: async (user: Express.User, id: string, proposedSpec?: string) => runRepairCheck(await visibleRow(user, id), proposedSpec),
 
-    async list(user: Express.User, filter: FindingFilter) {
-      return (await listFindingRows(db, user, filter)).map((r) => summary(r, user.id));
+    /**
+     * Every finding of one traveler the reader may see, newest first, for the traveler's own page: a
+     * part's findings are few (its holes bound them), so this one is not paged. Same statement as a page.
+     */
+    async list(user: Express.User, filter: { travelerId: string }): Promise<FindingSummary[]> {
+      const rows = await listFindingPage(db, user, { travelerId: filter.travelerId }, 'newest', null, null);
+      return rows.map((r) => summary(r, r.photoCount, r.firstPhotoId, user.id));
+    },
+
+    /** One page of the findings the reader may see; the cursor names its order, so it cannot be carried over to the other one. */
+    async page(user: Express.User, q: FindingListQuery): Promise<Page<FindingSummary>> {
+      const after = readCursor(q.cursor, q.order);
+      const rows = await listFindingPage(db, user, q, q.order, after, q.limit);
+      const page = pageOf(rows, q.limit, (r) => [q.order, r.at, r.id]);
+      return { items: page.items.map((r) => summary(r, r.photoCount, r.firstPhotoId, user.id)), next: page.next };
     },
 
     /**
@@ -237,6 +252,31 @@ export const findingsService = ({ db, pool, storage, signer, mailQueue }: Deps) 
     },
   };
 };
+
+// created_at as PostgreSQL prints a timestamptz (microseconds, zone offset), and a uuid: a cursor carrying
+// anything else is refused here rather than left for the database to fail on.
+const PG_TIMESTAMPTZ = /^(\d{4})-(\d{2})-(\d{2}) ([01]\d|2[0-3]):[0-5]\d:[0-5]\d(\.\d{1,6})?[+-]\d{2}(:\d{2}){0,2}$/;
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** A real calendar day too (no 31 February), which PostgreSQL would refuse with an error of its own. */
+function isPgTimestamp(at: string): boolean {
+  const m = PG_TIMESTAMPTZ.exec(at);
+  if (!m) return false;
+  const [y, mo, d] = [Number(m[1]), Number(m[2]), Number(m[3])];
+  const day = new Date(Date.UTC(y, mo - 1, d));
+  return day.getUTCFullYear() === y && day.getUTCMonth() === mo - 1 && day.getUTCDate() === d;
+}
+
+/** The key after which a page starts: [order, created_at text, id], checked against the order asked for. */
+function readCursor(cursor: string | undefined, order: FindingOrder): [string, string] | null {
+  const key = decodeCursor(cursor, ['string', 'string', 'string']);
+  if (!key) return null;
+  const [of, at, id] = key as [string, string, string];
+  if (of !== order || !isPgTimestamp(at) || !UUID.test(id)) {
+    throw badRequest('cursor is not one this list gave: start again from the first page', { cursor: 'not a cursor of this list' });
+  }
+  return [at, id];
+}
 
 /** The rules' view of a finding row and its part. */
 function factsOf(r: { status: FindingRow['status']; disposition: FindingRow['disposition']; workReportedAt: Date | null; signedOffAt: Date | null; replacedById: string | null }) {

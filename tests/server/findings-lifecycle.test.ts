@@ -211,7 +211,8 @@ describe('every path of a finding ends closed, with the part signed off or repla
     await request(t.app).post(`/api/travelers/${fresh.id}/steps/${fresh.steps[0].id}`).set(auth(tok.builder)).send({ done: true });
     expect((await request(t.app).post(`/api/travelers/${fresh.id}/sign-off`).set(auth(tok.inspector))).status).toBe(200);
     const log = await request(t.app).get(`/api/builds/${b.buildId}/log`).set(auth(tok.builder));
-    expect(log.body.entries.map((e: { kind: string }) => e.kind)).toContain('part_replaced');
+    // The log answers in pages now (`items`, newest first): the replacement is on the first.
+    expect((log.body.items ?? log.body.entries).map((e: { kind: string }) => e.kind)).toContain('part_replaced');
   });
 
   it('return to supplier: the supplier is mailed and the build gets a replacement', async () => {
@@ -327,6 +328,6 @@ describe('double submits and the mail worker', () => {
       .field('kind', 'hole_burrs').field('note', 'bad \u0000 note').attach('photos', await jpeg(), { filename: 'h.jpg', contentType: 'image/jpeg' });
     expect(nul.status).toBe(400);
     expect(nul.body.error.fields).toHaveProperty('note');
-    expect((await request(t.app).get(`/api/findings?travelerId=${b.travelerId}`).set(auth(tok.builder))).body).toEqual([]);
+    expect((await request(t.app).get(`/api/findings?travelerId=${b.travelerId}`).set(auth(tok.builder))).body).toEqual({ items: [], next: null });
   });
 });
