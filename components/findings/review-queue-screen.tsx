@@ -158,6 +158,8 @@ export function ReviewQueueScreen({
                 rowTestID={(f) => `review-row-${f.id}`}
                 rowLabel={(f) => `${findingRowLabel(f)}; build ${f.kitSerial}${f.photoCount ? `; ${f.photoCount} photo${f.photoCount === 1 ? '' : 's'}` : ''}`}
                 header={header}
+                // The table's own foot: the list's count and the next page (loaded as it scrolls into view on the web).
+                footer={<LoadMore hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage} shown={all.length} what="findings" testID="review-more" />}
                 empty={
                   <EmptyState
                     title={all.length ? 'Nothing loaded matches these words.' : filters.status === 'all' && filters.build === 'all' ? 'No findings yet.' : 'Nothing matches these filters.'}
@@ -165,8 +167,6 @@ export function ReviewQueueScreen({
                   />
                 }
               />
-              {/* The table's own foot: the list's count and the next page (loaded as it shows on the web). */}
-              <LoadMore hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage} shown={all.length} what="findings" testID="review-more" />
             </View>
           )}
     </Screen>

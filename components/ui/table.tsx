@@ -37,6 +37,8 @@ type Props<T, K extends string> = {
   rowLabel?: (row: T) => string;
   empty?: React.ReactNode;
   header?: React.ReactElement;
+  /** Under the last row, scrolled with the rows (a paged list's LoadMore). */
+  footer?: React.ReactElement;
 };
 
 /**
@@ -45,7 +47,7 @@ type Props<T, K extends string> = {
  * buttons above the list: squeezed columns broke words and ran values over each other. Rows are a
  * FlatList so long queues stay fast.
  */
-export function Table<T, K extends string>({ rows, columns, rowKey, sort, onSort, onRowPress, rowTestID, rowLabel, empty, header }: Props<T, K>) {
+export function Table<T, K extends string>({ rows, columns, rowKey, sort, onSort, onRowPress, rowTestID, rowLabel, empty, header, footer }: Props<T, K>) {
   const wideScreen = useWide();
   const [width, setWidth] = useState(0);
   const needed = columns.reduce((n, c) => n + (c.minWidth ?? COLUMN_MIN), 0);
@@ -110,6 +112,7 @@ export function Table<T, K extends string>({ rows, columns, rowKey, sort, onSort
       renderItem={renderItem}
       ItemSeparatorComponent={() => <View style={styles.sep} />}
       ListEmptyComponent={empty ? <View>{empty}</View> : null}
+      ListFooterComponent={footer}
       ListHeaderComponent={
         <View>
           {header}
