@@ -44,7 +44,7 @@ async function signInHere(page: Page, email: string) {
 
 describe('a link opened while signed out opens after sign-in', () => {
   it('a mail’s link to a finding: sign-in says what will open, survives a reload, then shows that finding', async () => {
-    const findings = await api<{ id: string }[]>(DEMO_USERS.inspector.email, '/api/findings');
+    const findings = (await api<{ items: { id: string }[] }>(DEMO_USERS.inspector.email, '/api/findings')).items;
     expect(findings.length).toBeGreaterThan(0);
     const findingId = findings[0].id;
 

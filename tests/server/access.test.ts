@@ -20,7 +20,7 @@ beforeAll(async () => {
   const parts = await request(t.app).get('/api/travelers').set(auth(tok.builder));
   travelerId = parts.body.find((p: { partNumber: string }) => p.partNumber === 'W-104').id;
   const open = await request(t.app).get('/api/findings?status=open').set(auth(tok.builder));
-  findingId = open.body[0].id;
+  findingId = open.body.items[0].id;
   photoUrl = (await request(t.app).get(`/api/findings/${findingId}`).set(auth(tok.builder))).body.photos[0].url;
 });
 afterAll(async () => { await t?.close(); });
@@ -66,7 +66,7 @@ describe('role boundaries', () => {
   });
 
   it('keeps an inspector not assigned to the build away from its findings', async () => {
-    expect((await request(t.app).get('/api/findings').set(auth(otherInspector))).body).toEqual([]);
+    expect((await request(t.app).get('/api/findings').set(auth(otherInspector))).body).toEqual({ items: [], next: null });
     const res = await request(t.app).post(`/api/findings/${findingId}/disposition`).set(auth(otherInspector)).send({ disposition: 'scrap', note: 'not mine' });
     expect(res.status).toBe(404);
   });

@@ -25,7 +25,7 @@ beforeAll(async () => {
     if (res.status !== 200) throw new Error(`add ${email}: ${res.status} ${JSON.stringify(res.body)}`);
   }
   travelerId = (await request(t.app).get('/api/travelers').set(auth(tok.builder))).body.find((p: { partNumber: string }) => p.partNumber === 'W-104').id;
-  findingId = (await request(t.app).get('/api/findings?status=open').set(auth(tok.builder))).body[0].id;
+  findingId = (await request(t.app).get('/api/findings?status=open').set(auth(tok.builder))).body.items[0].id;
   removedPhotoUrl = (await request(t.app).get(`/api/findings/${findingId}`).set(auth(removed))).body.photos[0].url;
   const rexId = (await request(t.app).get(`/api/builds/${buildId}`).set(auth(tok.builder))).body.people.members
     .find((m: { email: string }) => m.email === 'rex.removed@shop.example').userId;

@@ -110,7 +110,7 @@ describe('the main loop through the API', () => {
 
   it('lets the inspector disposition it in one request; the builder sees it on the traveler and gets a mail', async () => {
     const queue = await request(t.app).get('/api/findings?status=open').set(auth(tok.inspector));
-    expect(queue.body.map((f: { id: string }) => f.id)).toContain(findingId);
+    expect(queue.body.items.map((f: { id: string }) => f.id)).toContain(findingId);
     const seen = await request(t.app).get(`/api/findings/${findingId}`).set(auth(tok.inspector));
     expect(seen.body.allowedActions).toEqual(['disposition', 'not-a-defect']);
     const res = await request(t.app).post(`/api/findings/${findingId}/disposition`).set(auth(tok.inspector)).send({ disposition: 'rework', note: 'drill out and set the same rivet again' });
