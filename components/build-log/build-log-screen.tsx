@@ -1,5 +1,5 @@
 import { useRouter } from 'expo-router';
-import { useCallback, useMemo, useState } from 'react';
+import { useCallback, useEffect, useMemo, useState } from 'react';
 import { FlatList, ScrollView, View } from 'react-native';
 import { buildLogCaution, buildLogGroupLabels, buildLogGroups, type BuildLogGroup } from '@/db/contracts';
 import { space } from '@/constants/theme';
@@ -7,11 +7,13 @@ import { Button } from '@/components/ui/button';
 import { Caution } from '@/components/ui/caution';
 import { Choice } from '@/components/ui/choice';
 import { Field, FindField } from '@/components/ui/field';
+import { LoadMore } from '@/components/ui/load-more';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
 import { errorMessage } from '@/hooks/api-client';
 import { deviceTimeZone, useBuildLogExportMutation, useBuildLogQuery, type BuildLogFormat } from '@/hooks/queries/build-log';
+import { pagedItems } from '@/hooks/queries/paged';
 import { useWide } from '@/hooks/use-wide';
 import { LogDayHeading, LogEntryRow } from './log-entry-row';
 import { countLine, filterEntries, isFiltered, logRows, noLogFilters, type LogFilters, type LogRow } from './log-view';
@@ -27,18 +29,27 @@ export function BuildLogScreen({ buildId }: { buildId: string }) {
   const router = useRouter();
   const wide = useWide();
   const [filters, setFilters] = useState<LogFilters>(noLogFilters);
-  const q = useBuildLogQuery(buildId, { group: filters.group, travelerId: filters.travelerId });
+  // Words go to the server once typing pauses (the log comes in pages); the pages on screen narrow at once.
+  const [words, setWords] = useState('');
+  useEffect(() => {
+    const t = setTimeout(() => setWords(filters.text.trim()), 350);
+    return () => clearTimeout(t);
+  }, [filters.text]);
+  const q = useBuildLogQuery(buildId, { group: filters.group, travelerId: filters.travelerId, text: words });
   const exporter = useBuildLogExportMutation(buildId);
   const [exporting, setExporting] = useState<BuildLogFormat | null>(null);
 
-  const entries = useMemo(() => filterEntries(q.data?.entries ?? [], filters), [q.data, filters]);
+  const loaded = useMemo(() => pagedItems(q.data), [q.data]);
+  const entries = useMemo(() => filterEntries(loaded, filters), [loaded, filters]);
   const rows = useMemo(() => logRows(entries), [entries]);
   const openFinding = useCallback((id: string) => router.push(`/findings/${id}`), [router]);
   const backTo = `/builds/${buildId}` as const;
 
   if (q.isPending) return <Screen title="Build log" backTo={backTo}><LoadingState what="Loading the build log" /></Screen>;
   if (q.isError && !q.data) return <Screen title="Build log" backTo={backTo}><ErrorState error={q.error} onRetry={() => void q.refetch()} /></Screen>;
-  const { build, parts } = q.data;
+  // The first page names the build and its parts.
+  const { build, parts = [] } = q.data.pages[0];
+  if (!build) return <Screen title="Build log" backTo={backTo}><ErrorState error={new Error('The log came without its build: try again.')} onRetry={() => void q.refetch()} /></Screen>;
   const filtered = isFiltered(filters);
 
   const runExport = (format: BuildLogFormat) => {
@@ -78,7 +89,7 @@ export function BuildLogScreen({ buildId }: { buildId: string }) {
       ) : null}
       <FindField value={filters.text} onChange={(text) => setFilters((f) => ({ ...f, text }))} placeholder="Hole, part, name or words" where="the build log" testID="log-search" />
       <View style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap' }}>
-        <Txt variant="small" tone="soft" testID="log-count">{countLine(entries)}{q.isFetching ? ' · updating…' : ''}</Txt>
+        <Txt variant="small" tone="soft" testID="log-count">{countLine(entries)}{q.hasNextPage ? ' loaded so far' : ''}{q.isFetching && !q.isFetchingNextPage ? ' · updating…' : ''}</Txt>
         {filtered ? <Button label="Clear filters" variant="quiet" compact onPress={() => setFilters(noLogFilters)} testID="log-clear" /> : null}
       </View>
       {q.isError ? <Notice tone="error">{`Could not refresh the log: ${errorMessage(q.error)}`}</Notice> : null}
@@ -93,7 +104,17 @@ export function BuildLogScreen({ buildId }: { buildId: string }) {
         ? <LogDayHeading day={item.day} count={item.count} />
         : <LogEntryRow e={item.entry} onOpenFinding={openFinding} />)}
       ListHeaderComponent={wide ? null : header}
-      ListFooterComponent={<View style={{ paddingTop: space.xl }}><Caution text={buildLogCaution} testID="log-caution" /></View>}
+      ListFooterComponent={(
+        <View style={{ paddingTop: space.md, gap: space.xl }}>
+          <LoadMore
+            hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage}
+            shown={entries.length} what={entries.length === 1 ? 'entry' : 'entries'} testID="log-load-more"
+          />
+          <Caution text={buildLogCaution} testID="log-caution" />
+        </View>
+      )}
+      onEndReached={() => { if (q.hasNextPage && !q.isFetchingNextPage) void q.fetchNextPage(); }}
+      onEndReachedThreshold={0.5}
       ListEmptyComponent={
         filtered ? (
           <EmptyState

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { BuildSummary } from './builds';
-import type { Role } from './common';
+import { pageQuery, type Page, type Role } from './common';
 
 /**
  * The build log: every bench event (holes ticked, steps, sign-off) and every finding event of one build,
@@ -101,6 +101,10 @@ export const buildLogQuery = z.object({
   tz: z.string({ message: 'tz must be a single time zone' }).trim().refine(isTimeZone, 'tz must be a time zone such as Europe/Berlin or America/Denver').optional(),
 });
 export type BuildLogQuery = z.infer<typeof buildLogQuery>;
+
+/** GET /api/builds/:id/log: the same filters, one page at a time (`cursor`, `limit`). */
+export const buildLogPageQuery = buildLogQuery.extend(pageQuery.shape);
+export type BuildLogPageQuery = z.infer<typeof buildLogPageQuery>;
 export type BuildLogFilterInput = z.input<typeof buildLogQuery>;
 
 export type BuildLogPhoto = { id: string; thumbUrl: string; url: string };
@@ -129,14 +133,12 @@ export type BuildLogEntry = {
 
 export type BuildLogPart = { travelerId: string; serial: string; partNumber: string; partName: string };
 
-export type BuildLog = {
-  build: BuildSummary;
-  parts: BuildLogPart[];
-  /** Newest first. */
-  entries: BuildLogEntry[];
-  /** First and last moment of the entries shown, null when there are none. */
-  range: { from: string | null; to: string | null };
-};
+/**
+ * One page of the log, newest first (time, then source and id: a stable place for every entry). The first
+ * page (no cursor) also carries the build and its parts, for the screen's title and part picker; later
+ * pages carry only entries.
+ */
+export type BuildLogPage = Page<BuildLogEntry> & { build?: BuildSummary; parts?: BuildLogPart[] };
 
 /** Whether an entry matches every word of a search (part, serial, hole, person, kind, words said). */
 export function logEntryMatches(e: BuildLogEntry, text: string): boolean {

@@ -1,11 +1,15 @@
-import { keepPreviousData, queryOptions, useMutation, useQuery } from '@tanstack/react-query';
+import { infiniteQueryOptions, keepPreviousData, useInfiniteQuery, useMutation } from '@tanstack/react-query';
 import { Platform } from 'react-native';
-import type { ApiErrorBody, BuildLog, BuildLogGroup } from '@/db/contracts';
+import type { ApiErrorBody, BuildLogGroup, BuildLogPage } from '@/db/contracts';
 import { api, ApiError, networkMessage, qs, url } from '../api-client';
 import { useSession } from '../use-session';
+import { pageParams, pagePath } from './paged';
 
-/** What the server narrows: a kind family and one part. Words are searched on the device, as they are typed. */
-export type BuildLogServerFilters = { group?: BuildLogGroup | 'all'; travelerId?: string | null };
+/**
+ * What the server narrows: a kind family, one part, and search words (the log comes in pages, so words
+ * must be searched where the whole log is; the screen also narrows the pages it has at once, as they are typed).
+ */
+export type BuildLogServerFilters = { group?: BuildLogGroup | 'all'; travelerId?: string | null; text?: string };
 /** What an export carries: the screen's filters, words included, and the zone to print times in. */
 export type BuildLogExportFilters = BuildLogServerFilters & { text?: string; tz?: string };
 export type BuildLogFormat = 'csv' | 'pdf';
@@ -25,19 +29,25 @@ export const buildLogKeys = {
   all: ['builds', 'log'] as const,
   build: (buildId: string) => [...buildLogKeys.all, buildId] as const,
   filtered: (buildId: string, f: BuildLogServerFilters = {}) =>
-    [...buildLogKeys.build(buildId), { group: f.group ?? 'all', travelerId: f.travelerId ?? null }] as const,
+    [...buildLogKeys.build(buildId), { group: f.group ?? 'all', travelerId: f.travelerId ?? null, ...(f.text?.trim() ? { text: f.text.trim() } : {}) }] as const,
 };
 
 export const buildLogQueries = {
-  filtered: (buildId: string, f: BuildLogServerFilters = {}) => queryOptions({
+  /** The log newest first, a page at a time; the first page also names the build and its parts. */
+  filtered: (buildId: string, f: BuildLogServerFilters = {}) => infiniteQueryOptions({
     queryKey: buildLogKeys.filtered(buildId, f),
-    queryFn: ({ signal }) => api.get<BuildLog>(`${logPath(buildId)}${logQueryString({ group: f.group, travelerId: f.travelerId })}`, signal),
+    queryFn: ({ pageParam, signal }) => api.get<BuildLogPage>(pagePath(logPath(buildId), pageParam, {
+      kind: f.group && f.group !== 'all' ? f.group : undefined,
+      travelerId: f.travelerId ?? undefined,
+      q: f.text?.trim() || undefined,
+    }), signal),
+    ...pageParams,
   }),
 };
 
 /** The log of one build; switching a filter keeps the last answer on screen until the new one arrives. */
 export function useBuildLogQuery(buildId: string, f: BuildLogServerFilters = {}) {
-  return useQuery({ ...buildLogQueries.filtered(buildId, f), enabled: !!buildId, placeholderData: keepPreviousData });
+  return useInfiniteQuery({ ...buildLogQueries.filtered(buildId, f), enabled: !!buildId, placeholderData: keepPreviousData });
 }
 
 /** The zone the device's clock is in, so an export prints the times the person saw. */

@@ -1,4 +1,4 @@
-import type { BuildLog } from '../../db/contracts';
+import type { BuildLogEntry } from '../../db/contracts';
 import { zonedDateTime } from './zoned-time';
 
 /**
@@ -14,17 +14,21 @@ export function csvField(value: string | number | null | undefined): string {
 
 export const csvRow = (fields: readonly (string | number | null | undefined)[]) => fields.map(csvField).join(',');
 
-/** Oldest first, like a log book: a record reads from the start of the build. */
-export function renderLogCsv(log: BuildLog, { tz }: { tz: string }): string {
-  const header = ['Date', 'Time', 'Time zone', 'UTC', 'Who', 'Role', 'Kind', 'Part number', 'Part name', 'Traveler serial',
-    'Holes', 'What happened', 'Note', 'Finding id', 'Photos'];
-  const rows = [...log.entries].reverse().map((e) => {
+const HEADER = ['Date', 'Time', 'Time zone', 'UTC', 'Who', 'Role', 'Kind', 'Part number', 'Part name', 'Traveler serial',
+  'Holes', 'What happened', 'Note', 'Finding id', 'Photos'];
+
+/** The file's start: the byte-order mark lets spreadsheet programs read it as UTF-8 (names, curly quotes). */
+export const csvHead = () => `\uFEFF${csvRow(HEADER)}\r\n`;
+
+/** Rows of entries, each ended by CRLF; the caller writes them oldest first, like a log book. */
+export function csvLines(entries: readonly BuildLogEntry[], tz: string): string {
+  let out = '';
+  for (const e of entries) {
     const local = zonedDateTime(new Date(e.at), tz);
-    return csvRow([
+    out += `${csvRow([
       local.date, local.time, tz, e.at, e.actorName, e.actorRole, e.kind, e.partNumber, e.partName, e.travelerSerial,
       (e.holeIds ?? []).join(' '), e.text, e.note ?? '', e.findingId ?? '', e.photos?.length ?? '',
-    ]);
-  });
-  // The byte-order mark lets spreadsheet programs read the file as UTF-8 (names, curly quotes).
-  return `\uFEFF${[csvRow(header), ...rows].join('\r\n')}\r\n`;
+    ])}\r\n`;
+  }
+  return out;
 }

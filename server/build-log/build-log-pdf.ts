@@ -1,15 +1,29 @@
+import type { Writable } from 'node:stream';
 import PDFDocument from 'pdfkit';
-import { buildLogCaution, buildLogKindLabels, type BuildLog, type BuildLogEntry } from '../../db/contracts';
+import { buildLogCaution, buildLogKindLabels, type BuildLogEntry, type BuildSummary } from '../../db/contracts';
 import { longDay, zonedDateTime } from './zoned-time';
 
 export type PdfOptions = {
   tz: string;
-  /** Thumbnail bytes by photo id; a missing one prints as an empty frame with a word. */
-  thumbs: Map<string, Buffer>;
   generatedAt: Date;
   generatedBy: string;
   /** The filters in words: a filtered print must never pass for the whole log. */
   filters: string;
+};
+
+/** What the title block says before any entry is read: how many entries and their first and last moment. */
+export type PdfHead = { build: BuildSummary; count: number; range: { from: string | null; to: string | null } };
+
+/** Thumbnail bytes by photo id, for one batch of entries; a missing one prints as an empty frame with a word. */
+export type Thumbs = Map<string, Buffer>;
+
+/** The PDF as it is written: entries go in oldest first, batch by batch, and each finished page leaves at once. */
+export type LogPdfWriter = {
+  add(entries: readonly BuildLogEntry[], thumbs: Thumbs): void;
+  /** Closes the document; resolves when its last byte has been handed to the output. */
+  end(): Promise<void>;
+  /** The document stream, piped into the output: `readableLength` is what waits for the reader. */
+  doc: PDFKit.PDFDocument;
 };
 
 // The drafting-sheet look on white paper (it gets printed): near-black ink, thin warm rules, one accent.
@@ -70,28 +84,53 @@ function when(iso: string | null, tz: string): string {
   return `${z.date} ${z.hm}`;
 }
 
-export function renderLogPdf(log: BuildLog, opts: PdfOptions): Promise<Buffer> {
-  const { build } = log;
+/**
+ * Starts the PDF and pipes it into `out`. Pages are not buffered (pdfkit writes a page out when the next
+ * one starts), so the memory it takes is one page and one batch, whatever the length of the log; the
+ * footer is drawn as each page starts and says "Page n", the count of pages not being known until the end.
+ */
+export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): LogPdfWriter {
+  const { build } = head;
   const doc = new PDFDocument({
-    size: 'LETTER', margins: M, bufferPages: true,
+    size: 'LETTER', margins: M, bufferPages: false,
     info: {
       Title: `Build log ${build.kitSerial}`, Author: 'Pitchcard', Subject: `${build.kitName}, ${build.supplierName}`,
       CreationDate: opts.generatedAt,
     },
   });
   const mono = registerFonts(doc);
-  const done = new Promise<Buffer>((resolve, reject) => {
-    const chunks: Buffer[] = [];
-    doc.on('data', (c: Buffer) => chunks.push(c));
-    doc.on('end', () => resolve(Buffer.concat(chunks)));
+  const done = new Promise<void>((resolve, reject) => {
+    doc.on('end', resolve);
     doc.on('error', reject);
   });
+  doc.pipe(out);
 
   const hrule = (y: number, color = C.rule, width = 0.5) => {
     doc.save().moveTo(M.left, y).lineTo(PAGE.width - M.right, y).lineWidth(width).strokeColor(color).stroke().restore();
   };
   const label = (s: string, x: number, y: number, width: number, color = C.faint) =>
     doc.font('bold').fontSize(6.5).fillColor(color).text(s.toUpperCase(), x, y, { width, characterSpacing: 0.6, lineBreak: true });
+
+  // ── Footer, drawn as each page starts (also a page pdfkit adds itself for an entry taller than the room left) ──
+  let pageNo = 0;
+  const footer = () => {
+    pageNo += 1;
+    const keep = { x: doc.x, y: doc.y };
+    const bottom = doc.page.margins.bottom;
+    doc.page.margins.bottom = 0; // writing below the margin must not start a new page
+    const fy = PAGE.height - 40;
+    hrule(fy - 4, C.ruleStrong);
+    doc.font('text').fontSize(7).fillColor(C.faint)
+      .text(`Pitchcard build log · ${build.kitSerial} · printed ${when(opts.generatedAt.toISOString(), opts.tz)} (${opts.tz}) · an aid, not certification`,
+        M.left, fy, { width: CONTENT_W - 80, lineBreak: false });
+    doc.font('text').fontSize(7.5).fillColor(C.ink)
+      .text(`Page ${pageNo}`, PAGE.width - M.right - 80, fy, { width: 80, align: 'right', lineBreak: false });
+    doc.page.margins.bottom = bottom;
+    doc.x = keep.x;
+    doc.y = keep.y;
+  };
+  footer();
+  doc.on('pageAdded', footer);
 
   // ── Title block ────────────────────────────────────────────────────────────────────────────────
   let y = M.top;
@@ -106,7 +145,7 @@ export function renderLogPdf(log: BuildLog, opts: PdfOptions): Promise<Buffer> {
   const cells: [string, string, boolean?][][] = [
     [['Kit serial', build.kitSerial, true], ['Kit', build.kitName], ['Supplier', build.supplierName]],
     [['Builder(s)', people(build.builders)], ['Inspector(s)', people(build.inspectors)],
-      ['Entries', log.entries.length ? `${when(log.range.from, opts.tz)}\nto ${when(log.range.to, opts.tz)}\n${log.entries.length} in all` : 'none']],
+      ['Entries', head.count ? `${when(head.range.from, opts.tz)}\nto ${when(head.range.to, opts.tz)}\n${head.count} in all` : 'none']],
     [['Filters', opts.filters], ['Times shown in', opts.tz], ['Printed', `${when(opts.generatedAt.toISOString(), opts.tz)}\nby ${opts.generatedBy}`]],
   ];
   const cellW = CONTENT_W / 3;
@@ -169,7 +208,7 @@ export function renderLogPdf(log: BuildLog, opts: PdfOptions): Promise<Buffer> {
     return { note, photos, perRow, h, w };
   };
 
-  const drawEntry = (e: BuildLogEntry) => {
+  const drawEntry = (e: BuildLogEntry, thumbs: Thumbs) => {
     const p = entryParts(e);
     if (y + p.h > BOTTOM) newPage();
     const top = y + PAD;
@@ -187,7 +226,7 @@ export function renderLogPdf(log: BuildLog, opts: PdfOptions): Promise<Buffer> {
       p.photos.forEach((ph, i) => {
         const px = x.entry + PAD + (i % p.perRow) * (THUMB + 4);
         const row = Math.floor(i / p.perRow) * (THUMB + 4);
-        const bytes = opts.thumbs.get(ph.id);
+        const bytes = thumbs.get(ph.id);
         let drawn = false;
         if (bytes) {
           try {
@@ -203,46 +242,37 @@ export function renderLogPdf(log: BuildLog, opts: PdfOptions): Promise<Buffer> {
     hrule(y, C.rule);
   };
 
-  const chronological = [...log.entries].reverse();
-  if (!chronological.length) {
-    tableHeader();
-    doc.font('text').fontSize(10).fillColor(C.soft).text('No entries match these filters.', M.left + PAD, y + 8, { width: CONTENT_W });
-  } else {
-    tableHeader();
-    let day = '';
-    for (const e of chronological) {
-      const d = zonedDateTime(new Date(e.at), opts.tz).date;
-      if (d !== day) {
-        // A day band never sits alone at the foot of a page.
-        if (y + 18 + entryParts(e).h > BOTTOM) newPage();
-        doc.save().rect(M.left, y, CONTENT_W, 17).fill(C.band).restore();
-        doc.font('bold').fontSize(9).fillColor(C.ink).text(longDay(d), M.left + PAD, y + 4, { width: CONTENT_W - 2 * PAD });
-        y += 17;
-        hrule(y, C.ruleStrong);
-        day = d;
+  tableHeader();
+  let day = '';
+  let written = 0;
+  return {
+    doc,
+    add(entries, thumbs) {
+      for (const e of entries) {
+        const d = zonedDateTime(new Date(e.at), opts.tz).date;
+        if (d !== day) {
+          // A day band never sits alone at the foot of a page.
+          if (y + 18 + entryParts(e).h > BOTTOM) newPage();
+          doc.save().rect(M.left, y, CONTENT_W, 17).fill(C.band).restore();
+          doc.font('bold').fontSize(9).fillColor(C.ink).text(longDay(d), M.left + PAD, y + 4, { width: CONTENT_W - 2 * PAD });
+          y += 17;
+          hrule(y, C.ruleStrong);
+          day = d;
+        }
+        drawEntry(e, thumbs);
+        written += 1;
       }
-      drawEntry(e);
-    }
-    y += 8;
-    if (y + 12 > BOTTOM) newPage();
-    doc.font('text').fontSize(8).fillColor(C.faint).text(`End of log: ${log.entries.length} ${log.entries.length === 1 ? 'entry' : 'entries'}.`, M.left, y, { width: CONTENT_W });
-  }
-
-  // ── Footer on every page: what it is, the short caution, page n of N ───────────────────────────
-  const range = doc.bufferedPageRange();
-  for (let i = range.start; i < range.start + range.count; i++) {
-    doc.switchToPage(i);
-    const bottom = doc.page.margins.bottom;
-    doc.page.margins.bottom = 0; // writing below the margin must not start a new page
-    const fy = PAGE.height - 40;
-    hrule(fy - 4, C.ruleStrong);
-    doc.font('text').fontSize(7).fillColor(C.faint)
-      .text(`Pitchcard build log · ${build.kitSerial} · printed ${when(opts.generatedAt.toISOString(), opts.tz)} (${opts.tz}) · an aid, not certification`,
-        M.left, fy, { width: CONTENT_W - 80, lineBreak: false });
-    doc.font('text').fontSize(7.5).fillColor(C.ink)
-      .text(`Page ${i - range.start + 1} of ${range.count}`, PAGE.width - M.right - 80, fy, { width: 80, align: 'right', lineBreak: false });
-    doc.page.margins.bottom = bottom;
-  }
-  doc.end();
-  return done;
+    },
+    end() {
+      if (!written) {
+        doc.font('text').fontSize(10).fillColor(C.soft).text('No entries match these filters.', M.left + PAD, y + 8, { width: CONTENT_W });
+      } else {
+        y += 8;
+        if (y + 12 > BOTTOM) newPage();
+        doc.font('text').fontSize(8).fillColor(C.faint).text(`End of log: ${written} ${written === 1 ? 'entry' : 'entries'}.`, M.left, y, { width: CONTENT_W });
+      }
+      doc.end();
+      return done;
+    },
+  };
 }

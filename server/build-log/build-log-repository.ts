@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, gte, inArray, lt, notInArray, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, gt, gte, inArray, lt, lte, max, min, notInArray, or, sql, type AnyColumn, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
 import { findingEventActions, findingLogKindOfAction, type BuildLogKind } from '../../db/contracts';
 
@@ -32,6 +32,43 @@ export type LogWindow = {
   buildKinds: string[] | null;
 };
 
+/** Where a row comes from: build events, finding events, traveler (bench) events; also the tie-break at one instant. */
+export type LogSource = 'b' | 'f' | 't';
+/**
+ * A row's place in the log: its microsecond UTC time as text, its source, its id. The log is ordered by
+ * this triple (newest first on screen, oldest first in the exports), so every row has one stable place.
+ */
+export type LogKey = readonly [at: string, src: LogSource, id: string];
+export type LogOrder = 'asc' | 'desc';
+/** One keyset read: the rows after `after` in `order`, at most `limit`. */
+export type LogRead = { after: LogKey | null; order: LogOrder; limit: number };
+
+/** -1 when a comes before b in `order`, 1 after, 0 equal: the same order the queries below sort by. */
+export function compareKeys(a: LogKey, b: LogKey, order: LogOrder): number {
+  for (let i = 0; i < 3; i++) {
+    if (a[i] !== b[i]) return (a[i] < b[i] ? -1 : 1) * (order === 'asc' ? 1 : -1);
+  }
+  return 0;
+}
+
+/**
+ * "After this key" for one source. The order is (time, source, id), so at the key's own instant a source
+ * that sorts later than the key's (asc) or earlier (desc) still has rows to come, the key's own source only
+ * those past its id, and the others none.
+ */
+function afterKeyOf(src: LogSource, col: AnyColumn, idCol: AnyColumn, r: LogRead): SQL | undefined {
+  if (!r.after) return undefined;
+  const [at, s, id] = r.after;
+  const t = sql`(${at}::timestamp at time zone 'UTC')`;
+  if (src === s) return r.order === 'desc' ? sql`(${col}, ${idCol}) < (${t}, ${id}::uuid)` : sql`(${col}, ${idCol}) > (${t}, ${id}::uuid)`;
+  const sameInstantFollows = r.order === 'desc' ? src < s : src > s;
+  if (r.order === 'desc') return sameInstantFollows ? lte(col, t) : lt(col, t);
+  return sameInstantFollows ? gte(col, t) : gt(col, t);
+}
+
+const ordered = (order: LogOrder, col: AnyColumn, id: AnyColumn) =>
+  order === 'desc' ? [desc(col), desc(id)] : [asc(col), asc(id)];
+
 /** Microsecond-exact UTC sort key: two events in the same millisecond still keep their order. */
 const sortKey = (col: typeof travelerEvents.createdAt | typeof findingEvents.createdAt | typeof buildEvents.createdAt) =>
   sql<string>`to_char(${col} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US')`;
@@ -52,8 +89,8 @@ export async function listLogParts(db: Db, user: Express.User, buildId: string) 
     .orderBy(asc(partDesigns.partNumber), asc(travelers.serial));
 }
 
-export async function listBenchEvents(db: Db, user: Express.User, w: LogWindow) {
-  if (w.benchKinds && w.benchKinds.length === 0 && !w.otherBench) return [];
+function benchConditions(db: Db, user: Express.User, w: LogWindow): SQL[] | null {
+  if (w.benchKinds && w.benchKinds.length === 0 && !w.otherBench) return null;
   const c = travelerScope(db, user, w);
   if (w.from) c.push(gte(travelerEvents.createdAt, w.from));
   if (w.before) c.push(lt(travelerEvents.createdAt, w.before));
@@ -63,6 +100,13 @@ export async function listBenchEvents(db: Db, user: Express.User, w: LogWindow) 
     if (w.otherBench) kinds.push(notInArray(travelerEvents.kind, [...w.knownBenchKinds]));
     c.push(or(...kinds)!);
   }
+  return c;
+}
+
+/** Bench events of the window, one keyset read. */
+export async function listBenchEvents(db: Db, user: Express.User, w: LogWindow, r: LogRead) {
+  const c = benchConditions(db, user, w);
+  if (!c) return [];
   return db.select({
     id: travelerEvents.id, kind: travelerEvents.kind, detail: travelerEvents.detail, createdAt: travelerEvents.createdAt,
     sortKey: sortKey(travelerEvents.createdAt), actorName: users.name, actorRole: users.role,
@@ -73,16 +117,24 @@ export async function listBenchEvents(db: Db, user: Express.User, w: LogWindow) 
     .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
     .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
     .innerJoin(users, eq(users.id, travelerEvents.actorId))
-    .where(and(...c))
-    .orderBy(desc(travelerEvents.createdAt), desc(travelerEvents.id));
+    .where(and(...c, afterKeyOf('t', travelerEvents.createdAt, travelerEvents.id, r)))
+    .orderBy(...ordered(r.order, travelerEvents.createdAt, travelerEvents.id))
+    .limit(r.limit);
 }
 
-export async function listFindingLogEvents(db: Db, user: Express.User, w: LogWindow) {
-  if (w.findingKinds && w.findingKinds.length === 0) return [];
+function findingConditions(db: Db, user: Express.User, w: LogWindow): SQL[] | null {
+  if (w.findingKinds && w.findingKinds.length === 0) return null;
   const c = travelerScope(db, user, w);
   if (w.from) c.push(gte(findingEvents.createdAt, w.from));
   if (w.before) c.push(lt(findingEvents.createdAt, w.before));
   if (w.findingKinds) c.push(or(...w.findingKinds.map(findingKindCondition))!);
+  return c;
+}
+
+/** Finding events of the window, one keyset read. */
+export async function listFindingLogEvents(db: Db, user: Express.User, w: LogWindow, r: LogRead) {
+  const c = findingConditions(db, user, w);
+  if (!c) return [];
   return db.select({
     id: findingEvents.id, findingId: findings.id, action: findingEvents.action, toStatus: findingEvents.toStatus, fromStatus: findingEvents.fromStatus,
     disposition: findingEvents.disposition, note: findingEvents.note, createdAt: findingEvents.createdAt,
@@ -96,8 +148,9 @@ export async function listFindingLogEvents(db: Db, user: Express.User, w: LogWin
     .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
     .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
     .innerJoin(users, eq(users.id, findingEvents.actorId))
-    .where(and(...c))
-    .orderBy(desc(findingEvents.createdAt), desc(findingEvents.id));
+    .where(and(...c, afterKeyOf('f', findingEvents.createdAt, findingEvents.id, r)))
+    .orderBy(...ordered(r.order, findingEvents.createdAt, findingEvents.id))
+    .limit(r.limit);
 }
 
 /** Photos of these findings (as found: no event; of the work: its event), oldest first, only where the finding's build is visible. */
@@ -112,19 +165,54 @@ export async function listLogPhotos(db: Db, user: Express.User, buildId: string,
     .orderBy(asc(findingPhotos.createdAt), asc(findingPhotos.id));
 }
 
-/** What happened to the build itself (its people), in the window; only when the build is visible. */
-export async function listBuildEvents(db: Db, user: Express.User, w: LogWindow) {
-  if (w.travelerId || (w.buildKinds && w.buildKinds.length === 0)) return [];
+function buildConditions(db: Db, user: Express.User, w: LogWindow): SQL[] | null {
+  if (w.travelerId || (w.buildKinds && w.buildKinds.length === 0)) return null;
   const c: SQL[] = [visibleBuilds(db, user), eq(buildEvents.buildId, w.buildId)];
   if (w.from) c.push(gte(buildEvents.createdAt, w.from));
   if (w.before) c.push(lt(buildEvents.createdAt, w.before));
   if (w.buildKinds) c.push(inArray(buildEvents.kind, w.buildKinds));
+  return c;
+}
+
+/** What happened to the build itself (its people) in the window, one keyset read; only when the build is visible. */
+export async function listBuildEvents(db: Db, user: Express.User, w: LogWindow, r: LogRead) {
+  const c = buildConditions(db, user, w);
+  if (!c) return [];
   return db.select({
     id: buildEvents.id, kind: buildEvents.kind, detail: buildEvents.detail, createdAt: buildEvents.createdAt,
     sortKey: sortKey(buildEvents.createdAt), actorName: users.name, actorRole: users.role, kitSerial: builds.kitSerial,
   }).from(buildEvents)
     .innerJoin(builds, eq(builds.id, buildEvents.buildId))
     .innerJoin(users, eq(users.id, buildEvents.actorId))
-    .where(and(...c))
-    .orderBy(desc(buildEvents.createdAt), desc(buildEvents.id));
+    .where(and(...c, afterKeyOf('b', buildEvents.createdAt, buildEvents.id, r)))
+    .orderBy(...ordered(r.order, buildEvents.createdAt, buildEvents.id))
+    .limit(r.limit);
+}
+
+type Tally = { n: number; first: string | null; last: string | null };
+const tallyOf = (col: AnyColumn) => ({
+  n: count(), first: sql<string | null>`to_char(${min(col)} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US')`,
+  last: sql<string | null>`to_char(${max(col)} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US')`,
+});
+
+/**
+ * How many entries the window holds and their first and last moment, counted by PostgreSQL, for the
+ * PDF's title block, which is printed before any entry is read.
+ */
+export async function tallyLog(db: Db, user: Express.User, w: LogWindow): Promise<Tally> {
+  const bc = benchConditions(db, user, w);
+  const fc = findingConditions(db, user, w);
+  const uc = buildConditions(db, user, w);
+  const none: Tally[] = [{ n: 0, first: null, last: null }];
+  const parts = await Promise.all([
+    bc ? db.select(tallyOf(travelerEvents.createdAt)).from(travelerEvents)
+      .innerJoin(travelers, eq(travelers.id, travelerEvents.travelerId)).innerJoin(builds, eq(builds.id, travelers.buildId)).where(and(...bc)) : none,
+    fc ? db.select(tallyOf(findingEvents.createdAt)).from(findingEvents).innerJoin(findings, eq(findings.id, findingEvents.findingId))
+      .innerJoin(travelers, eq(travelers.id, findings.travelerId)).innerJoin(builds, eq(builds.id, travelers.buildId)).where(and(...fc)) : none,
+    uc ? db.select(tallyOf(buildEvents.createdAt)).from(buildEvents).innerJoin(builds, eq(builds.id, buildEvents.buildId)).where(and(...uc)) : none,
+  ]);
+  const all = parts.map((p) => p[0]);
+  const firsts = all.map((t) => t.first).filter((x): x is string => !!x).sort();
+  const lasts = all.map((t) => t.last).filter((x): x is string => !!x).sort();
+  return { n: all.reduce((s, t) => s + Number(t.n), 0), first: firsts[0] ?? null, last: lasts.at(-1) ?? null };
 }

@@ -1,5 +1,5 @@
-import { Router, type RequestHandler } from 'express';
-import { buildLogQuery, idParam, type BuildLogQuery } from '../../db/contracts';
+import { Router, type RequestHandler, type Response } from 'express';
+import { buildLogPageQuery, buildLogQuery, idParam, type BuildLogPageQuery, type BuildLogQuery } from '../../db/contracts';
 import type { AppContext } from '../context';
 import { validateQuery } from '../middleware/validate';
 import { buildLogService } from './build-log-service';
@@ -11,7 +11,22 @@ function attachment(filename: string): string {
 }
 
 /**
- * GET /api/builds/:id/log (JSON), /log.csv and /log.pdf, same filters. Mounted on /builds ahead of the
+ * Streams an export once its checks have passed (they answer 4xx as JSON, before any byte). Once bytes
+ * went out an error can no longer become a JSON answer: the response is cut off instead, so the reader
+ * sees a failed download, never a file that looks whole.
+ */
+async function stream(res: Response, headers: Record<string, string>, write: (out: Response) => Promise<void>) {
+  res.set({ ...headers, 'Cache-Control': 'private, no-store' });
+  res.status(200);
+  try {
+    await write(res);
+  } catch (err) {
+    res.destroy(err instanceof Error ? err : new Error(String(err)));
+  }
+}
+
+/**
+ * GET /api/builds/:id/log (JSON, one page at a time), /log.csv and /log.pdf, same filters. Mounted on /builds ahead of the
  * builds router; it signs in only its own routes, so other /builds requests are not authenticated twice.
  * The exports take the bearer header like every other route: the app fetches them and hands the file
  * to the browser, so no token ever sits in a URL.
@@ -21,19 +36,17 @@ export function buildLogRouter(ctx: AppContext, signedIn: RequestHandler): Route
   const service = buildLogService(ctx);
   const query = validateQuery(buildLogQuery);
 
-  r.get('/:id/log', signedIn, query, async (req, res) => {
+  r.get('/:id/log', signedIn, validateQuery(buildLogPageQuery), async (req, res) => {
     res.set('Cache-Control', 'private, no-store');
-    res.json(await service.log(req.user!, idParam.parse(req.params).id, res.locals.query as BuildLogQuery));
+    res.json(await service.page(req.user!, idParam.parse(req.params).id, res.locals.query as BuildLogPageQuery));
   });
   r.get('/:id/log.csv', signedIn, query, async (req, res) => {
-    const { filename, body } = await service.csv(req.user!, idParam.parse(req.params).id, res.locals.query as BuildLogQuery);
-    res.set({ 'Content-Type': 'text/csv; charset=utf-8; header=present', 'Content-Disposition': attachment(filename), 'Cache-Control': 'private, no-store' });
-    res.send(body);
+    const csv = await service.csv(req.user!, idParam.parse(req.params).id, res.locals.query as BuildLogQuery);
+    await stream(res, { 'Content-Type': 'text/csv; charset=utf-8; header=present', 'Content-Disposition': attachment(csv.filename) }, csv.write);
   });
   r.get('/:id/log.pdf', signedIn, query, async (req, res) => {
-    const { filename, body } = await service.pdf(req.user!, idParam.parse(req.params).id, res.locals.query as BuildLogQuery);
-    res.set({ 'Content-Type': 'application/pdf', 'Content-Disposition': attachment(filename), 'Cache-Control': 'private, no-store' });
-    res.send(body);
+    const pdf = await service.pdf(req.user!, idParam.parse(req.params).id, res.locals.query as BuildLogQuery);
+    await stream(res, { 'Content-Type': 'application/pdf', 'Content-Disposition': attachment(pdf.filename) }, pdf.write);
   });
   return r;
 }

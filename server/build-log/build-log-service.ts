@@ -1,22 +1,87 @@
+import type { Writable } from 'node:stream';
 import {
   describeHoleRuns, dispositionLabels, memberPlaceLabels, memberPlaces, type MemberPlace, expandKindFilter, findingKindLabels, findingLogKindOfAction, groupOfKind, logEntryMatches,
-  type BuildLog, type BuildLogEntry, type BuildLogGroup, type BuildLogKind, type BuildLogQuery,
+  type BuildLogEntry, type BuildLogGroup, type BuildLogKind, type BuildLogPage, type BuildLogPageQuery, type BuildLogPart, type BuildLogQuery,
 } from '../../db/contracts';
 import type { AppContext } from '../context';
 import { listVisibleBuilds } from '../builds/builds-repository';
 import { badRequest, notFound } from '../http-error';
-import { renderLogCsv } from './build-log-csv';
-import { renderLogPdf } from './build-log-pdf';
-import { listBenchEvents, listBuildEvents, listFindingLogEvents, listLogParts, listLogPhotos, type FindingLogKind, type LogWindow } from './build-log-repository';
+import { encodeCursor } from '../pagination';
+import { csvHead, csvLines } from './build-log-csv';
+import { startLogPdf, type Thumbs } from './build-log-pdf';
+import {
+  compareKeys, listBenchEvents, listBuildEvents, listFindingLogEvents, listLogParts, listLogPhotos, tallyLog,
+  type FindingLogKind, type LogKey, type LogOrder, type LogRead, type LogSource, type LogWindow,
+} from './build-log-repository';
 import { nextDay, startOfDay } from './zoned-time';
 
 type Deps = Pick<AppContext, 'db' | 'signer' | 'storage'>;
 type BenchRow = Awaited<ReturnType<typeof listBenchEvents>>[number];
 type FindingRow = Awaited<ReturnType<typeof listFindingLogEvents>>[number];
+type BuildRow = Awaited<ReturnType<typeof listBuildEvents>>[number];
+/** A row of any source with its place in the log. */
+type Raw =
+  | { key: LogKey; src: 't'; row: BenchRow }
+  | { key: LogKey; src: 'f'; row: FindingRow }
+  | { key: LogKey; src: 'b'; row: BuildRow };
+
+/** Rows an export reads and writes at a time: one keyset read per source, one write, then the event loop's turn. */
+export const EXPORT_BATCH = 1000;
+/** Rows a page request looks through for search words before it answers with what it found and a cursor. */
+const SEARCH_SCAN_MAX = 5000;
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/;
+const KEY_TIME = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{6}$/;
+
+export const encodeLogCursor = (k: LogKey) => encodeCursor(k);
+
+/** The key a cursor carries; anything this server did not give (or made for another list) is a 400, never a database error. */
+export function decodeLogCursor(cursor: string): LogKey {
+  let key: unknown;
+  try { key = JSON.parse(Buffer.from(cursor, 'base64url').toString('utf8')); } catch { key = null; }
+  const ok = Array.isArray(key) && key.length === 3
+    && typeof key[0] === 'string' && KEY_TIME.test(key[0]) && !Number.isNaN(Date.parse(`${key[0].slice(0, 23)}Z`))
+    && (key[1] === 'b' || key[1] === 'f' || key[1] === 't')
+    && typeof key[2] === 'string' && UUID.test(key[2]);
+  if (!ok) throw badRequest('cursor is not one this log gave: start again from the first page', { cursor: 'not a cursor of this log' });
+  return key as unknown as LogKey;
+}
+
+/** Yields to the event loop: other requests (the health check among them) run between two batches. */
+const turn = () => new Promise<void>((resolve) => setImmediate(resolve));
+
+/** Longest stretch an export works before it lets other requests run: the health check's budget is 100 ms at p99. */
+const SLICE_MS = 8;
+
+/**
+ * Runs `fn` over `items` a few at a time, giving the event loop its turn whenever SLICE_MS has passed
+ * (laying out a PDF entry costs about a millisecond, so a whole batch in one go would stall the server).
+ */
+async function inSlices<T>(items: readonly T[], fn: (slice: readonly T[]) => void | Promise<void>, size = 8): Promise<void> {
+  let since = performance.now();
+  for (let i = 0; i < items.length; i += size) {
+    await fn(items.slice(i, i + size));
+    if (performance.now() - since > SLICE_MS) {
+      await turn();
+      since = performance.now();
+    }
+  }
+}
+
+/** Resolves when `out` can take more, or when it is gone (a reader that left never drains). */
+function drained(out: Writable): Promise<void> {
+  if (!out.writableNeedDrain || out.destroyed) return Promise.resolve();
+  return new Promise((resolve) => {
+    const done = () => { out.off('drain', done); out.off('close', done); resolve(); };
+    out.on('drain', done);
+    out.on('close', done);
+  });
+}
 
 const BENCH_KINDS = ['holes_installed', 'holes_pending', 'step_done', 'step_undone', 'signed_off', 'sign_off_withdrawn', 'part_replaced'] as const;
 
-const natural = (a: string, b: string) => a.localeCompare(b, undefined, { numeric: true });
+// One collator for every comparison: localeCompare with options builds a new one each call (slow over 50,000 entries).
+const natural = new Intl.Collator(undefined, { numeric: true }).compare;
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
 function holesOf(detail: Record<string, unknown>): string[] {
@@ -128,99 +193,216 @@ function windowOf(buildId: string, q: BuildLogQuery): LogWindow {
 }
 
 export const buildLogService = ({ db, signer, storage }: Deps) => {
-  /** The log and, for the PDF, where each listed photo's thumbnail lives. */
-  async function collect(user: Express.User, buildId: string, q: BuildLogQuery) {
+  /** The build, its parts and the window, or the 404/400 that answers before anything is read or sent. */
+  async function open(user: Express.User, buildId: string, q: BuildLogQuery) {
     const [build] = await listVisibleBuilds(db, user, buildId);
     if (!build) throw notFound('build');
     const w = windowOf(buildId, q);
-    const [parts, bench, findingRows, buildRows] = await Promise.all([
-      listLogParts(db, user, buildId), listBenchEvents(db, user, w), listFindingLogEvents(db, user, w), listBuildEvents(db, user, w),
-    ]);
+    const parts: BuildLogPart[] = await listLogParts(db, user, buildId);
     if (q.travelerId && !parts.some((p) => p.travelerId === q.travelerId)) throw notFound('part of this build');
+    return { build, parts, w };
+  }
 
-    const withPhotos = [...new Set(findingRows.filter((r) => r.action === 'raise' || r.action === 'report-done').map((r) => r.findingId))];
-    const photos = await listLogPhotos(db, user, buildId, withPhotos);
-    const thumbKeys = new Map(photos.map((p) => [p.id, p.thumbKey]));
-
-    const keyed: { sortKey: string; entry: BuildLogEntry }[] = [];
-    const common = (r: BenchRow | FindingRow) => ({
-      at: r.createdAt.toISOString(), actorName: r.actorName, actorRole: r.actorRole,
-      travelerId: r.travelerId, travelerSerial: r.serial, partNumber: r.partNumber, partName: r.partName,
-    });
-    for (const r of bench) {
-      const d = describeBench(r.kind, r.detail ?? {});
-      keyed.push({
-        sortKey: `${r.sortKey}|t|${r.id}`,
-        entry: {
-          id: `t:${r.id}`, ...common(r), kind: d.kind, group: d.group ?? groupOfKind(d.kind), text: d.text,
-          ...(d.holeIds ? { holeIds: d.holeIds } : {}), ...(d.note ? { note: d.note } : {}),
-        },
-      });
+  /** One keyset read of one source, its rows tagged with their keys. */
+  async function readSource(user: Express.User, w: LogWindow, src: LogSource, r: LogRead): Promise<Raw[]> {
+    switch (src) {
+      case 't': return (await listBenchEvents(db, user, w, r)).map((row) => ({ key: [row.sortKey, 't', row.id] as const, src, row }));
+      case 'f': return (await listFindingLogEvents(db, user, w, r)).map((row) => ({ key: [row.sortKey, 'f', row.id] as const, src, row }));
+      case 'b': return (await listBuildEvents(db, user, w, r)).map((row) => ({ key: [row.sortKey, 'b', row.id] as const, src, row }));
     }
-    for (const r of buildRows) {
-      const d = describeBuildEvent(r.kind, r.detail ?? {});
-      keyed.push({
-        sortKey: `${r.sortKey}|b|${r.id}`,
-        entry: {
+  }
+
+  /**
+   * The three sources merged in one order, in batches of at most `batch` rows: each source is read by
+   * keyset `batch` rows at a time, and a batch ends early when a source must be read again before the
+   * merge can go on. Memory is three reads, whatever the length of the log.
+   */
+  async function* merged(user: Express.User, w: LogWindow, start: LogKey | null, order: LogOrder, batch: number): AsyncGenerator<Raw[]> {
+    const readers = (['b', 'f', 't'] as const).map((src) => ({ src, buf: [] as Raw[], pos: 0, done: false, after: start }));
+    const fill = async (r: (typeof readers)[number]) => {
+      if (r.done || r.pos < r.buf.length) return;
+      r.buf = await readSource(user, w, r.src, { after: r.after, order, limit: batch });
+      r.pos = 0;
+      r.done = r.buf.length < batch;
+      if (r.buf.length) r.after = r.buf[r.buf.length - 1].key;
+    };
+    // Each turn yields at least one row or ends, so the rows of the log bound it.
+    for (;;) {
+      await Promise.all(readers.map(fill));
+      const out: Raw[] = [];
+      while (out.length < batch) {
+        let best: (typeof readers)[number] | null = null;
+        for (const r of readers) {
+          if (r.pos < r.buf.length && (!best || compareKeys(r.buf[r.pos].key, best.buf[best.pos].key, order) < 0)) best = r;
+        }
+        if (!best) break;
+        out.push(best.buf[best.pos++]);
+        if (best.pos === best.buf.length && !best.done) break; // its next rows must be read before anything else is placed
+      }
+      if (!out.length) return;
+      yield out;
+    }
+  }
+
+  /** Rows as entries, with the photos of this batch only (signed links), in the rows' order. */
+  async function entriesOf(user: Express.User, buildId: string, rows: Raw[], withPhotos: boolean) {
+    const photoFindings = withPhotos
+      ? [...new Set(rows.flatMap((r) => (r.src === 'f' && (r.row.action === 'raise' || r.row.action === 'report-done') ? [r.row.findingId] : [])))]
+      : [];
+    const photos = await listLogPhotos(db, user, buildId, photoFindings);
+    const entries: BuildLogEntry[] = rows.map((raw) => {
+      if (raw.src === 'b') {
+        const r = raw.row;
+        const d = describeBuildEvent(r.kind, r.detail ?? {});
+        return {
           id: `b:${r.id}`, at: r.createdAt.toISOString(), actorName: r.actorName, actorRole: r.actorRole,
           travelerId: null, travelerSerial: r.kitSerial, partNumber: 'Build', partName: 'the whole build',
           kind: d.kind, group: groupOfKind(d.kind), text: d.text,
-        },
-      });
-    }
-    for (const r of findingRows) {
-      const d = describeFinding(r);
+        };
+      }
+      const r = raw.row;
+      const common = {
+        at: r.createdAt.toISOString(), actorName: r.actorName, actorRole: r.actorRole,
+        travelerId: r.travelerId, travelerSerial: r.serial, partNumber: r.partNumber, partName: r.partName,
+      };
+      if (raw.src === 't') {
+        const b = raw.row;
+        const d = describeBench(b.kind, b.detail ?? {});
+        return {
+          id: `t:${b.id}`, ...common, kind: d.kind, group: d.group ?? groupOfKind(d.kind), text: d.text,
+          ...(d.holeIds ? { holeIds: d.holeIds } : {}), ...(d.note ? { note: d.note } : {}),
+        };
+      }
+      const f = raw.row;
+      const d = describeFinding(f);
       // The photos of the hole as found go with the raise; those of the work with the event they came with.
-      const own = photos.filter((p) => p.findingId === r.findingId && (r.action === 'raise' ? p.eventId === null : p.eventId === r.id));
-      keyed.push({
-        sortKey: `${r.sortKey}|f|${r.id}`,
-        entry: {
-          id: `f:${r.id}`, ...common(r), kind: d.kind, group: groupOfKind(d.kind), text: d.text,
-          holeIds: [...r.holeIds].sort(natural), findingId: r.findingId,
-          ...(r.note ? { note: r.note } : {}),
-          ...(own.length ? { photos: own.map((p) => ({ id: p.id, thumbUrl: signer.sign(p.id, 'thumb', user.id), url: signer.sign(p.id, 'full', user.id) })) } : {}),
-        },
-      });
+      const own = photos.filter((p) => p.findingId === f.findingId && (f.action === 'raise' ? p.eventId === null : p.eventId === f.id));
+      return {
+        id: `f:${f.id}`, ...common, kind: d.kind, group: groupOfKind(d.kind), text: d.text,
+        holeIds: [...f.holeIds].sort(natural), findingId: f.findingId,
+        ...(f.note ? { note: f.note } : {}),
+        ...(own.length ? { photos: own.map((p) => ({ id: p.id, thumbUrl: signer.sign(p.id, 'thumb', user.id), url: signer.sign(p.id, 'full', user.id) })) } : {}),
+      };
+    });
+    return { entries, photos };
+  }
+
+  /**
+   * An export's batches, oldest first: entries with the search words applied, and the photos' storage
+   * keys of the batch. Between two batches the event loop gets its turn.
+   */
+  async function* exportBatches(user: Express.User, buildId: string, w: LogWindow, q: BuildLogQuery, withPhotos: boolean) {
+    for await (const rows of merged(user, w, null, 'asc', EXPORT_BATCH)) {
+      const { entries, photos } = await entriesOf(user, buildId, rows, withPhotos);
+      const shown = q.q ? entries.filter((e) => logEntryMatches(e, q.q!)) : entries;
+      const listed = new Set(shown.flatMap((e) => e.photos?.map((p) => p.id) ?? []));
+      yield { entries: shown, thumbKeys: photos.filter((p) => listed.has(p.id)).map((p) => [p.id, p.thumbKey] as const) };
+      await turn();
     }
-    keyed.sort((a, b) => (a.sortKey < b.sortKey ? 1 : a.sortKey > b.sortKey ? -1 : 0));
-    const entries = keyed.map((k) => k.entry).filter((e) => !q.q || logEntryMatches(e, q.q));
-    const log: BuildLog = {
-      build, parts, entries,
-      range: { from: entries.at(-1)?.at ?? null, to: entries[0]?.at ?? null },
-    };
-    return { log, thumbKeys };
   }
 
   const fileStem = (kitSerial: string) => `build-log-${kitSerial.replace(/[^A-Za-z0-9._-]+/g, '_')}-${new Date().toISOString().slice(0, 10)}`;
+  const isoOf = (key: string | null) => (key ? new Date(`${key.slice(0, 23)}Z`).toISOString() : null);
 
   return {
-    async log(user: Express.User, buildId: string, q: BuildLogQuery): Promise<BuildLog> {
-      return (await collect(user, buildId, q)).log;
+    /**
+     * One page, newest first. Search words are matched on the sentences, which are made here, so a page
+     * with words reads on in batches until it is full, or until SEARCH_SCAN_MAX rows were looked at: then
+     * it answers with what it found and a cursor at the last row looked at.
+     */
+    async page(user: Express.User, buildId: string, q: BuildLogPageQuery): Promise<BuildLogPage> {
+      const start = q.cursor ? decodeLogCursor(q.cursor) : null;
+      const { build, parts, w } = await open(user, buildId, q);
+      const found: { key: LogKey; entry: BuildLogEntry }[] = [];
+      let scanned = 0;
+      let lastSeen: LogKey | null = null;
+      let exhausted = true;
+      for await (const rows of merged(user, w, start, 'desc', q.limit + 1)) {
+        const { entries } = await entriesOf(user, buildId, rows, true);
+        entries.forEach((entry, i) => { if (!q.q || logEntryMatches(entry, q.q)) found.push({ key: rows[i].key, entry }); });
+        scanned += rows.length;
+        lastSeen = rows[rows.length - 1].key;
+        if (found.length > q.limit || (q.q && scanned >= SEARCH_SCAN_MAX)) { exhausted = false; break; }
+      }
+      const items = found.slice(0, q.limit);
+      const next = found.length > q.limit ? encodeLogCursor(items[items.length - 1].key)
+        : !exhausted && lastSeen ? encodeLogCursor(lastSeen) : null;
+      return { items: items.map((f) => f.entry), next, ...(start ? {} : { build, parts }) };
     },
 
+    /**
+     * The CSV: checks first (a 404 or 400 is still a JSON answer), then `write` streams it into `out`
+     * batch by batch, waiting whenever the reader is behind and stopping when the reader is gone.
+     */
     async csv(user: Express.User, buildId: string, q: BuildLogQuery) {
-      const { log } = await collect(user, buildId, q);
-      return { filename: `${fileStem(log.build.kitSerial)}.csv`, body: renderLogCsv(log, { tz: q.tz ?? 'UTC' }) };
+      const { build, w } = await open(user, buildId, q);
+      const tz = q.tz ?? 'UTC';
+      return {
+        filename: `${fileStem(build.kitSerial)}.csv`,
+        async write(out: Writable) {
+          const gone = () => out.destroyed || out.writableEnded;
+          out.write(csvHead());
+          for await (const { entries } of exportBatches(user, buildId, w, q, true)) {
+            if (gone()) return;
+            await inSlices(entries, async (slice) => {
+              if (!gone() && !out.write(csvLines(slice, tz))) await drained(out);
+            }, 64);
+          }
+          if (!gone()) out.end();
+        },
+      };
     },
 
-    /** Thumbnails come from storage; a photo that cannot be read shows as a gap, it does not fail the log. */
+    /**
+     * The PDF: checks and the title block's count first, then `write` renders it into `out` batch by
+     * batch, each batch's thumbnails read from storage and dropped with it. A photo that cannot be read
+     * shows as a gap; it does not fail the log.
+     */
     async pdf(user: Express.User, buildId: string, q: BuildLogQuery) {
-      const { log, thumbKeys } = await collect(user, buildId, q);
-      const thumbs = new Map<string, Buffer>();
-      await Promise.all([...thumbKeys].map(async ([id, key]) => {
-        try { thumbs.set(id, await storage.get(key)); } catch { /* shown as "photo not available" */ }
-      }));
-      const body = await renderLogPdf(log, {
-        tz: q.tz ?? 'UTC', thumbs, generatedAt: new Date(), generatedBy: user.name,
-        filters: describeFilters(q, log),
-      });
-      return { filename: `${fileStem(log.build.kitSerial)}.pdf`, body };
+      const { build, parts, w } = await open(user, buildId, q);
+      let tally: { n: number; first: string | null; last: string | null };
+      if (!q.q) tally = await tallyLog(db, user, w);
+      else {
+        // Search words are matched on the sentences made here: a first pass counts them, batch by batch.
+        tally = { n: 0, first: null, last: null };
+        for await (const { entries } of exportBatches(user, buildId, w, q, false)) {
+          if (!entries.length) continue;
+          tally.n += entries.length;
+          tally.first ??= entries[0].at;
+          tally.last = entries[entries.length - 1].at;
+        }
+        tally = { n: tally.n, first: tally.first && tally.first.replace('Z', '000'), last: tally.last && tally.last.replace('Z', '000') };
+      }
+      const generatedAt = new Date();
+      return {
+        filename: `${fileStem(build.kitSerial)}.pdf`,
+        async write(out: Writable) {
+          const gone = () => out.destroyed || out.writableEnded;
+          const pdf = startLogPdf(out, { build, count: tally.n, range: { from: isoOf(tally.first), to: isoOf(tally.last) } }, {
+            tz: q.tz ?? 'UTC', generatedAt, generatedBy: user.name, filters: describeFilters(q, { parts }),
+          });
+          for await (const { entries, thumbKeys } of exportBatches(user, buildId, w, q, true)) {
+            if (gone()) { pdf.doc.unpipe(out); return; }
+            const thumbs: Thumbs = new Map();
+            await Promise.all(thumbKeys.map(async ([id, key]) => {
+              try { thumbs.set(id, await storage.get(key)); } catch { /* shown as "photo not available" */ }
+            }));
+            await inSlices(entries, async (slice) => {
+              if (gone()) return;
+              pdf.add(slice, thumbs);
+              await drained(out);
+            });
+          }
+          if (gone()) { pdf.doc.unpipe(out); return; }
+          await pdf.end();
+        },
+      };
     },
   };
 };
 
 /** The filters in words, for the PDF title block, so a filtered print is never mistaken for the whole log. */
-export function describeFilters(q: BuildLogQuery, log: Pick<BuildLog, 'parts'>): string {
+export function describeFilters(q: BuildLogQuery, log: { parts: readonly BuildLogPart[] }): string {
   const out: string[] = [];
   if (q.kind?.length) out.push(`kinds: ${q.kind.map((k) => k.replace(/_/g, ' ')).join(', ')}`);
   if (q.travelerId) {

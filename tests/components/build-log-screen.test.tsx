@@ -1,6 +1,6 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
-import type { BuildLog, BuildLogEntry } from '@/db/contracts';
+import type { BuildLogPage, BuildLogEntry } from '@/db/contracts';
 import { BuildLogScreen } from '@/components/build-log/build-log-screen';
 import { buildLogKeys } from '@/hooks/queries/build-log';
 import { SessionProvider } from '@/hooks/use-session';
@@ -23,7 +23,7 @@ const flag = entry({
 });
 const tick = entry({ id: 't:1' });
 
-const log = (entries: BuildLogEntry[]): BuildLog => ({
+const log = (entries: BuildLogEntry[]): BuildLogPage => ({
   build: {
     id: 'b1', kitSerial: 'NK2-0147', kitName: 'NK-2 Quillon', supplierName: 'Northfold Kitworks', createdAt: '2026-11-01T10:00:00Z',
     builders: [{ id: 'u1', name: 'Tobias Fenn', email: 't@x.example' }], inspectors: [{ id: 'u2', name: 'Priya Ashdown', email: 'p@x.example' }],
@@ -33,13 +33,13 @@ const log = (entries: BuildLogEntry[]): BuildLog => ({
     { travelerId: 'inner', serial: 'NK2-0147-W-104', partNumber: 'W-104', partName: 'Wing rib, inboard' },
     { travelerId: 'outer', serial: 'NK2-0147-W-105', partNumber: 'W-105', partName: 'Wing rib, outboard' },
   ],
-  entries, range: { from: entries.at(-1)?.at ?? null, to: entries[0]?.at ?? null },
+  items: entries, next: null,
 });
 
-function renderLog(data: BuildLog, more: [Parameters<typeof buildLogKeys.filtered>[1], BuildLog][] = []) {
+function renderLog(data: BuildLogPage, more: [Parameters<typeof buildLogKeys.filtered>[1], BuildLogPage][] = []) {
   const qc = new QueryClient({ defaultOptions: { queries: { retry: false, staleTime: Infinity } } });
-  qc.setQueryData(buildLogKeys.filtered('b1', {}), data);
-  for (const [f, d] of more) qc.setQueryData(buildLogKeys.filtered('b1', f), d);
+  qc.setQueryData(buildLogKeys.filtered('b1', {}), { pages: [data], pageParams: [null] });
+  for (const [f, d] of more) qc.setQueryData(buildLogKeys.filtered('b1', f), { pages: [d], pageParams: [null] });
   return renderWeb(
     <SafeAreaProvider initialMetrics={{ frame: { x: 0, y: 0, width: 390, height: 844 }, insets: { top: 0, left: 0, right: 0, bottom: 0 } }}>
       <QueryClientProvider client={qc}>

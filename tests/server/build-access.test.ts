@@ -119,7 +119,7 @@ describe('what each place may do', () => {
     // The old owner, now a helper, may no longer change the build's people; the new owner may.
     expect((await request(t.app).get(`/api/builds/${buildId}`).set(auth(people.owner))).body.people.allowed).toEqual([]);
     expect((await request(t.app).get(`/api/builds/${buildId}`).set(auth(people.helper))).body.people.allowed).toEqual(['add', 'remove', 'hand-over']);
-    const log = (await request(t.app).get(`/api/builds/${buildId}/log?kind=owner_changed`).set(auth(people.helper))).body.entries;
+    const log = (await request(t.app).get(`/api/builds/${buildId}/log?kind=owner_changed`).set(auth(people.helper))).body.items;
     expect(log[0].text).toContain('to hal.helper');
   });
 });

@@ -56,7 +56,7 @@ const withdraw = (token: string, id: string, body: unknown = { reason: REASON })
   request(t.app).post(`/api/travelers/${id}/sign-off/withdraw`).set(auth(token)).send(body as object);
 const part = async (id: string, token = tok.inspector) => (await request(t.app).get(`/api/travelers/${id}`).set(auth(token))).body;
 const logOf = async (p: Part, query: Record<string, string> = {}) =>
-  (await request(t.app).get(`/api/builds/${p.buildId}/log`).query(query).set(auth(tok.builder))).body.entries as
+  (await request(t.app).get(`/api/builds/${p.buildId}/log`).query(query).set(auth(tok.builder))).body.items as
     { kind: string; group: string; text: string; note?: string; actorName: string }[];
 const withdrawalMails = (kitSerial: string) => t.smtp.messages.filter((m) => m.subject.includes(`[${kitSerial}]`) && m.subject.includes('Sign-off withdrawn'));
 
