@@ -1,18 +1,23 @@
 import { useRouter } from 'expo-router';
-import { useMemo, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { FlatList, View } from 'react-native';
 import type { TravelerSummary } from '@/db/contracts';
 import { space } from '@/constants/theme';
 import { Choice } from '@/components/ui/choice';
 import { TextBox } from '@/components/ui/field';
 import { Screen } from '@/components/ui/screen';
+import { LoadMore } from '@/components/ui/load-more';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
+import { pagedItems } from '@/hooks/queries/paged';
 import { useTravelersQuery } from '@/hooks/queries/travelers';
 import { liveFirst, TravelerCard } from './traveler-card';
 
 type Show = 'open' | 'all' | 'signed';
 
-/** The parts shown: by sign-off and text, live parts before replaced ones. */
+/**
+ * The parts shown: by sign-off and text, live parts before replaced ones. The server filters the same
+ * way; this one narrows the rows already loaded at once, while the server's answer for the new filter comes.
+ */
 export function filterTravelers(rows: readonly TravelerSummary[], show: Show, text: string): TravelerSummary[] {
   const t = text.trim().toLowerCase();
   return liveFirst(rows).filter((r) => {
@@ -23,13 +28,26 @@ export function filterTravelers(rows: readonly TravelerSummary[], show: Show, te
   });
 }
 
-/** Every part of the person's builds. */
+/** The text as typed, once typing has paused: one request per search, not one per key. */
+function useSettled(text: string, ms = 300): string {
+  const [settled, setSettled] = useState(text);
+  useEffect(() => {
+    const timer = setTimeout(() => setSettled(text), ms);
+    return () => clearTimeout(timer);
+  }, [text, ms]);
+  return settled;
+}
+
+/** Every part of the person's builds, a page at a time. */
 export function TravelersScreen() {
   const router = useRouter();
-  const q = useTravelersQuery();
   const [show, setShow] = useState<Show>('open');
   const [text, setText] = useState('');
-  const rows = useMemo(() => filterTravelers(q.data ?? [], show, text), [q.data, show, text]);
+  const search = useSettled(text.trim());
+  const q = useTravelersQuery({ show, q: search }, { keepPrevious: true });
+  const loaded = useMemo(() => pagedItems(q.data), [q.data]);
+  const rows = useMemo(() => filterTravelers(loaded, show, text), [loaded, show, text]);
+  const filtered = show !== 'all' || search !== '';
 
   return (
     <Screen title="Parts" subtitle="The travelers of your builds" account scroll={false} testID="travelers-screen">
@@ -53,11 +71,17 @@ export function TravelersScreen() {
               }
               ListEmptyComponent={
                 <EmptyState
-                  title={q.data?.length ? 'Nothing matches.' : 'No parts yet.'}
-                  body={q.data?.length ? 'Try another filter or search.' : 'Parts appear here when a supplier ships you a build.'}
+                  title={filtered ? 'Nothing matches.' : 'No parts yet.'}
+                  body={filtered ? 'Try another filter or search.' : 'Parts appear here when a supplier ships you a build.'}
                 />
               }
-              refreshing={q.isRefetching}
+              ListFooterComponent={
+                <LoadMore
+                  hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage}
+                  shown={rows.length} what="parts" testID="parts-more"
+                />
+              }
+              refreshing={q.isRefetching && !q.isFetchingNextPage}
               onRefresh={() => void q.refetch()}
             />
           )}

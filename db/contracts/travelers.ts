@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { FastenerLine, PartKind } from './designs';
 import type { FindingSummary } from './findings';
-import { plainText } from './common';
+import { pageQuery, plainText } from './common';
 import { NOTE_MIN_LENGTH, type BuildPlace, type PartAction, type Readiness, type ReplacementReason } from './findings-rules';
 
 export const holeStatuses = ['pending', 'installed', 'flagged', 'held', 'reworked', 'accepted'] as const;
@@ -38,6 +38,18 @@ export type TravelerSummary = {
   replaced: { byId: string; reason: ReplacementReason } | null;
   replacesId: string | null;
 };
+
+/**
+ * GET /api/travelers: one page (`Page<TravelerSummary>`) of the parts the reader may see, live parts
+ * before replaced ones, then by serial (kit serial and part number) and id. `show` and `q` narrow it in
+ * the database, so every page is full and the count of what is shown is what matches.
+ */
+export const travelerListQuery = pageQuery.extend({
+  show: z.enum(['open', 'signed', 'all'], { message: 'show is open, signed or all' }).default('all'),
+  q: z.string({ message: 'q must be text' }).trim().max(100, 'keep the search under 100 characters').optional(),
+});
+export type TravelerListQuery = z.infer<typeof travelerListQuery>;
+export type TravelerListShow = TravelerListQuery['show'];
 
 export type TravelerDetail = TravelerSummary & {
   material: string; gaugeIn: number; rivetSpec: string; drillSize: string; drillDiameterIn: number;

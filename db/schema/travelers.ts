@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import { type AnyPgColumn, index, integer, jsonb, pgEnum, pgTable, real, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import { holeStatuses, replacementReasons } from '../contracts';
 import { builds } from './builds';
@@ -25,7 +26,11 @@ export const travelers = pgTable('travelers', {
   replacedReason: replacedReason('replaced_reason'),
   replacesId: uuid('replaces_id').references((): AnyPgColumn => travelers.id),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-}, (t) => [index('travelers_build').on(t.buildId)]);
+}, (t) => [
+  index('travelers_build').on(t.buildId),
+  // The travelers list's order (live parts first, then serial, id): a page reads its rows straight off it.
+  index('travelers_list_order').on(sql`(${t.replacedById} is not null)`, t.serial, t.id),
+]);
 
 export const holes = pgTable('holes', {
   id: uuid('id').primaryKey().defaultRandom(),

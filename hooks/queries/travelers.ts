@@ -1,17 +1,27 @@
-import { queryOptions, useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
+import {
+  infiniteQueryOptions, keepPreviousData, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient, type QueryClient,
+} from '@tanstack/react-query';
 import {
   holesAwaitingInspectorStatuses, holesDoneStatuses, type Hole, type LabelsQuery, type PartLabel, type TickHolesInput, type TravelerDetail,
-  type TravelerSummary, type WithdrawSignOffInput,
+  type Page, type TravelerListShow, type TravelerSummary, type WithdrawSignOffInput,
 } from '@/db/contracts';
 import { api, ApiError } from '../api-client';
 import { queueTick, readOutbox, withPendingTicks } from '../tick-outbox';
 import { buildKeys } from './builds';
+import { pageParams, pagePath } from './paged';
+
+/** The server's filters of GET /api/travelers (db/contracts/travelers.ts `travelerListQuery`). */
+export type TravelerFilters = { show?: TravelerListShow; q?: string };
 
 export type TravelerStep = TravelerDetail['steps'][number];
 
 export const travelerKeys = {
   all: ['travelers'] as const,
-  list: () => [...travelerKeys.all, 'list'] as const,
+  lists: () => [...travelerKeys.all, 'list'] as const,
+  /** One list's key with its filters; with none, the prefix of every list (what a change invalidates). */
+  list: (f?: TravelerFilters) => (f
+    ? [...travelerKeys.lists(), { show: f.show ?? 'all', q: f.q?.trim() ?? '' }] as const
+    : travelerKeys.lists()),
   details: () => [...travelerKeys.all, 'detail'] as const,
   detail: (id: string) => [...travelerKeys.details(), id] as const,
   lookup: (code: string) => [...travelerKeys.all, 'lookup', code] as const,
@@ -21,7 +31,14 @@ export const travelerKeys = {
 };
 
 export const travelerQueries = {
-  list: () => queryOptions({ queryKey: travelerKeys.list(), queryFn: ({ signal }) => api.get<TravelerSummary[]>('/api/travelers', signal) }),
+  /** The parts in pages, live ones first, by serial; the server's filters go with every page. */
+  list: (f: TravelerFilters = {}) => infiniteQueryOptions({
+    queryKey: travelerKeys.list(f),
+    queryFn: ({ pageParam, signal }) => api.get<Page<TravelerSummary>>(pagePath('/api/travelers', pageParam, {
+      show: f.show && f.show !== 'all' ? f.show : undefined, q: f.q?.trim() || undefined,
+    }), signal),
+    ...pageParams,
+  }),
   detail: (id: string) => queryOptions({
     queryKey: travelerKeys.detail(id),
     // Ticks still waiting on the device are shown as made, whatever the server has seen so far.
@@ -50,8 +67,12 @@ export function useLabelsQuery(q: LabelsQuery) {
   return useQuery({ ...travelerQueries.labels(q), enabled: !!(q.buildId || q.travelerId) });
 }
 
-export function useTravelersQuery() {
-  return useQuery(travelerQueries.list());
+/**
+ * The parts list, a page at a time: `pagedItems(q.data)` are the rows so far, `fetchNextPage` asks for
+ * more. `keepPrevious` shows the last filters' rows while the new ones load (typing does not blank the list).
+ */
+export function useTravelersQuery(filters: TravelerFilters = {}, opts: { keepPrevious?: boolean } = {}) {
+  return useInfiniteQuery({ ...travelerQueries.list(filters), placeholderData: opts.keepPrevious ? keepPreviousData : undefined });
 }
 
 export function useTravelerQuery(id: string) {

@@ -39,3 +39,22 @@ export async function placeOnBuild(db: Db, user: Express.User, buildId: string):
       return 'none';
   }
 }
+
+/**
+ * The same place as `placeOnBuild`, as a column of a query that already reads `builds`: the part's
+ * own read answers it, so a request does not look the person's place up in a statement of its own.
+ */
+export function placeColumn(user: Express.User): SQL<BuildPlace> {
+  switch (user.role) {
+    case 'supplier':
+      return user.organizationId
+        ? sql<BuildPlace>`case when ${builds.organizationId} = ${user.organizationId} then 'design_authority' else 'none' end`
+        : sql<BuildPlace>`'none'`;
+    case 'builder':
+    case 'inspector':
+      return sql<BuildPlace>`case when exists (select 1 from ${buildMembers} where ${buildMembers.buildId} = ${builds.id}
+        and ${buildMembers.userId} = ${user.id} and ${buildMembers.role} = ${user.role}) then ${user.role} else 'none' end`;
+    case 'admin':
+      return sql<BuildPlace>`'none'`;
+  }
+}

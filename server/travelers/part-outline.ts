@@ -1,11 +1,25 @@
 import type { PartKind } from '../../db/contracts';
 import { nacaGeometry } from '../engineering/airfoil';
 
+/** Unit-chord outlines by airfoil: the same few kits' airfoils are drawn on every part page. */
+const unitOutlines = new Map<string, readonly (readonly [number, number])[]>();
+const KEEP = 64;
+
+function unitOutline(airfoil: string): readonly (readonly [number, number])[] {
+  let points = unitOutlines.get(airfoil);
+  if (!points) {
+    points = nacaGeometry(airfoil, 80).points.map(([x, y]) => [x, y] as const);
+    if (unitOutlines.size >= KEEP) unitOutlines.delete(unitOutlines.keys().next().value!);
+    unitOutlines.set(airfoil, points);
+  }
+  return points;
+}
+
 /** The part's outline in inches for the traveler drawing: the airfoil at the rib's chord, or a panel rectangle. */
 export function partOutline(kind: PartKind, airfoil: string, chordIn: number): [number, number][] {
   if (kind === 'rib' || kind === 'nose_rib') {
     try {
-      return nacaGeometry(airfoil, 80).points.map(([x, y]) => [x * chordIn, y * chordIn]);
+      return unitOutline(airfoil).map(([x, y]) => [x * chordIn, y * chordIn]);
     } catch {
       // A kit whose airfoil the engine cannot draw still gets a traveler: fall through to a plain outline.
     }

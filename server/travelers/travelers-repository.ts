@@ -1,60 +1,166 @@
-import { and, asc, count, eq, inArray, isNull, sql, type SQL } from 'drizzle-orm';
+import { and, asc, count, eq, ilike, inArray, isNotNull, isNull, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
 import { builds, designRevisions, findings, holes, kitModels, organizations, partDesigns, travelerSteps, travelers } from '../../db/schema';
 import {
   holesAwaitingInspectorStatuses, holesDoneStatuses, openFindingStatuses,
-  type HoleStatus, type PartFacts, type TravelerSummary,
+  type Hole, type HoleStatus, type PartFacts, type TravelerSummary,
 } from '../../db/contracts';
-import { visibleBuilds } from '../builds/build-access';
+import { placeColumn, visibleBuilds } from '../builds/build-access';
+import { afterKey } from '../pagination';
 import { checkLayout } from '../designs/layout-check';
 import { newQrToken, newShortCode } from './codes';
 import { placeHoles } from './hole-layout';
 
 
-/** Travelers the user may see, with progress; `by` narrows further (one build, one traveler, a code). */
-export async function listTravelers(db: Db, user: Express.User, by: { buildId?: string; id?: string; qrToken?: string; shortCode?: string } = {}): Promise<TravelerSummary[]> {
+/** Live parts first, then by serial (kit serial and part number, a replacement right after its original), then id. */
+const replacedRank = sql<boolean>`(${travelers.replacedById} is not null)`;
+
+/** Filters of the travelers list, all applied in SQL. */
+export type TravelerListFilter = { buildId?: string; id?: string; qrToken?: string; shortCode?: string; show?: 'open' | 'signed' | 'all'; text?: string };
+
+const likeText = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+
+function listConditions(db: Db, user: Express.User, by: TravelerListFilter): SQL[] {
   const conditions: SQL[] = [visibleBuilds(db, user)];
   if (by.buildId) conditions.push(eq(travelers.buildId, by.buildId));
   if (by.id) conditions.push(eq(travelers.id, by.id));
   if (by.qrToken) conditions.push(eq(travelers.qrToken, by.qrToken));
   if (by.shortCode) conditions.push(eq(travelers.shortCode, by.shortCode));
-  const rows = await db.select({
+  if (by.show === 'open') conditions.push(isNull(travelers.signedOffAt));
+  if (by.show === 'signed') conditions.push(isNotNull(travelers.signedOffAt));
+  if (by.text) {
+    const like = likeText(by.text);
+    conditions.push(or(ilike(partDesigns.partNumber, like), ilike(partDesigns.name, like), ilike(travelers.serial, like),
+      ilike(travelers.shortCode, like), ilike(builds.kitSerial, like))!);
+  }
+  return conditions;
+}
+
+/** The open findings of the row's traveler, counted in the same statement. */
+const openFindingsColumn = sql<number>`(select count(*)::int from ${findings} where ${findings.travelerId} = ${travelers.id}
+  and ${inArray(findings.status, [...openFindingStatuses])})`;
+
+/** The published letter of the part when the row's revision is superseded. */
+const newerRevisionColumn = sql<string | null>`case when ${designRevisions.status} = 'superseded' then
+  (select nr.letter from design_revisions nr where nr.part_design_id = ${partDesigns.id} and nr.status = 'published' limit 1) end`;
+
+/** The ids of the travelers the user may see, filtered: the inner query of a list. */
+function pickIds(db: Db, user: Express.User, by: TravelerListFilter, after?: SQL) {
+  return db.select({ id: travelers.id }).from(travelers)
+    .innerJoin(builds, eq(builds.id, travelers.buildId))
+    .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
+    .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
+    .where(and(...listConditions(db, user, by), after)).$dynamic();
+}
+
+/**
+ * Summaries of the travelers whose ids the inner query picks, every count done by the database for
+ * those rows alone (a lateral count of holes, a counted subquery of open findings): one statement.
+ */
+function summaries(db: Db, picked: ReturnType<typeof pickIds>, order: 'list' | 'build') {
+  const page = picked.as('page');
+  const holeCounts = db.select({
+    total: sql<number>`count(*)::int`.as('holes_total'),
+    done: sql<number>`(count(*) filter (where ${inArray(holes.status, [...holesDoneStatuses])}))::int`.as('holes_done'),
+    awaiting: sql<number>`(count(*) filter (where ${inArray(holes.status, [...holesAwaitingInspectorStatuses])}))::int`.as('holes_awaiting'),
+  }).from(holes).where(eq(holes.travelerId, travelers.id)).as('hole_counts');
+  return db.select({
     id: travelers.id, serial: travelers.serial, shortCode: travelers.shortCode, buildId: travelers.buildId, kitSerial: builds.kitSerial,
     partNumber: partDesigns.partNumber, partName: partDesigns.name, kind: partDesigns.kind, letter: designRevisions.letter,
-    revisionStatus: designRevisions.status, partDesignId: partDesigns.id, signedOffAt: travelers.signedOffAt,
-    replacedById: travelers.replacedById, replacedReason: travelers.replacedReason, replacesId: travelers.replacesId,
+    signedOffAt: travelers.signedOffAt, replacedById: travelers.replacedById, replacedReason: travelers.replacedReason, replacesId: travelers.replacesId,
+    holesTotal: holeCounts.total, holesDone: holeCounts.done, holesAwaitingInspector: holeCounts.awaiting,
+    openFindings: openFindingsColumn, newerRevision: newerRevisionColumn,
+  }).from(page)
+    .innerJoin(travelers, eq(travelers.id, page.id))
+    .innerJoin(builds, eq(builds.id, travelers.buildId))
+    .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
+    .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
+    .leftJoinLateral(holeCounts, sql`true`)
+    .orderBy(...(order === 'list'
+      ? [asc(replacedRank), asc(travelers.serial), asc(travelers.id)]
+      : [asc(builds.kitSerial), asc(partDesigns.partNumber), asc(travelers.createdAt), asc(travelers.id)]));
+}
+
+type SummaryRow = Awaited<ReturnType<typeof summaries>>[number];
+
+function toSummary({ signedOffAt, replacedById, replacedReason, replacesId, ...t }: SummaryRow): TravelerSummary {
+  return {
+    ...t,
+    holesTotal: t.holesTotal ?? 0, holesDone: t.holesDone ?? 0, holesAwaitingInspector: t.holesAwaitingInspector ?? 0,
+    signedOff: signedOffAt !== null,
+    replaced: replacedById ? { byId: replacedById, reason: replacedReason! } : null,
+    replacesId,
+  };
+}
+
+/** Travelers the user may see, with progress; `by` narrows further (one build, one traveler, a code). Unpaged: for one build or one part. */
+export async function listTravelers(db: Db, user: Express.User, by: TravelerListFilter = {}): Promise<TravelerSummary[]> {
+  return (await summaries(db, pickIds(db, user, by), 'build')).map(toSummary);
+}
+
+/** Where a page of the travelers list starts: after [replaced 0/1, serial, id] of the last row shown. */
+export type TravelerCursor = readonly [number, string, string];
+
+/**
+ * One page of the travelers the user may see, live parts first, then by serial and id. The inner query
+ * picks the page's ids alone (visibility, filters, keyset, limit + 1), which an index on the order
+ * answers without reading the rest; only those rows are then counted and joined.
+ */
+export async function listTravelerPage(db: Db, user: Express.User, by: TravelerListFilter, after: TravelerCursor | null, limit: number) {
+  const key = after ? [after[0] === 1 ? 'true' : 'false', after[1], after[2]] as const : null;
+  const ids = pickIds(db, user, by, afterKey([replacedRank, travelers.serial, travelers.id], key, 'asc'))
+    .orderBy(asc(replacedRank), asc(travelers.serial), asc(travelers.id))
+    .limit(limit + 1);
+  return (await summaries(db, ids, 'list')).map(toSummary);
+}
+
+/**
+ * Everything the part's page shows, in one statement: the part and its revision, design and kit; the
+ * reader's place on its build; progress counted; who approved and signed; the parts it replaced or
+ * was replaced by; its holes and steps as JSON. Visibility is part of the condition: nothing, not 403.
+ */
+export async function readTravelerPage(db: Db, user: Express.User, id: string) {
+  const [row] = await db.select({
+    traveler: travelers,
+    // The revision's own columns the page shows, not its study basis (which can be large).
+    revision: {
+      letter: designRevisions.letter, status: designRevisions.status, material: designRevisions.material, gaugeIn: designRevisions.gaugeIn,
+      rivetSpec: designRevisions.rivetSpec, drillSize: designRevisions.drillSize, drillDiameterIn: designRevisions.drillDiameterIn,
+      edgeDistanceIn: designRevisions.edgeDistanceIn, chordIn: designRevisions.chordIn, lines: designRevisions.lines, publishedBy: designRevisions.publishedBy,
+    },
+    design: { partNumber: partDesigns.partNumber, name: partDesigns.name, kind: partDesigns.kind },
+    kit: { airfoil: kitModels.airfoil },
+    kitSerial: builds.kitSerial, place: placeColumn(user),
+    openFindings: openFindingsColumn, newerRevision: newerRevisionColumn,
+    approvedByName: sql<string | null>`(select u.name from users u where u.id = ${designRevisions.publishedBy})`,
+    signedOffByName: sql<string | null>`(select u.name from users u where u.id = ${travelers.signedOffBy})`,
+    replacedBySerial: sql<string | null>`(select r.serial from travelers r where r.id = ${travelers.replacedById})`,
+    replacesSerial: sql<string | null>`(select r.serial from travelers r where r.id = ${travelers.replacesId})`,
+    holes: sql<Hole[]>`(select coalesce(json_agg(json_build_object('holeId', h.hole_id, 'line', h.line, 'seq', h.seq,
+      'stationIn', h.station_in, 'status', h.status) order by h.line, h.seq), '[]'::json) from holes h where h.traveler_id = ${travelers.id})`,
+    steps: sql<{ id: string; seq: number; text: string; doneAt: string | null; doneByName: string | null }[]>`(select coalesce(json_agg(json_build_object(
+      'id', s.id, 'seq', s.seq, 'text', s.text, 'doneAt', s.done_at, 'doneByName', u.name) order by s.seq), '[]'::json)
+      from traveler_steps s left join users u on u.id = s.done_by where s.traveler_id = ${travelers.id})`,
   }).from(travelers)
     .innerJoin(builds, eq(builds.id, travelers.buildId))
     .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
     .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
-    .where(and(...conditions)).orderBy(asc(builds.kitSerial), asc(partDesigns.partNumber), asc(travelers.createdAt));
-  if (rows.length === 0) return [];
-  const ids = rows.map((r) => r.id);
-  const [holeCounts, openFindings, published] = await Promise.all([
-    db.select({
-      travelerId: holes.travelerId, total: count(),
-      done: sql<number>`count(*) filter (where ${inArray(holes.status, [...holesDoneStatuses])})`.mapWith(Number),
-      awaiting: sql<number>`count(*) filter (where ${inArray(holes.status, [...holesAwaitingInspectorStatuses])})`.mapWith(Number),
-    }).from(holes).where(inArray(holes.travelerId, ids)).groupBy(holes.travelerId),
-    db.select({ travelerId: findings.travelerId, n: count() }).from(findings)
-      .where(and(inArray(findings.travelerId, ids), inArray(findings.status, [...openFindingStatuses]))).groupBy(findings.travelerId),
-    db.select({ partDesignId: designRevisions.partDesignId, letter: designRevisions.letter }).from(designRevisions)
-      .where(and(inArray(designRevisions.partDesignId, rows.map((r) => r.partDesignId)), eq(designRevisions.status, 'published'))),
-  ]);
-  return rows.map(({ revisionStatus, partDesignId, signedOffAt, replacedById, replacedReason, replacesId, ...t }) => {
-    const c = holeCounts.find((x) => x.travelerId === t.id);
-    return {
-      ...t,
-      holesTotal: c?.total ?? 0,
-      holesDone: c?.done ?? 0,
-      holesAwaitingInspector: c?.awaiting ?? 0,
-      openFindings: openFindings.find((x) => x.travelerId === t.id)?.n ?? 0,
-      signedOff: signedOffAt !== null,
-      replaced: replacedById ? { byId: replacedById, reason: replacedReason! } : null,
-      replacesId,
-      newerRevision: revisionStatus === 'superseded' ? published.find((p) => p.partDesignId === partDesignId)?.letter ?? null : null,
-    };
-  });
+    .innerJoin(kitModels, eq(kitModels.id, partDesigns.kitModelId))
+    .where(and(eq(travelers.id, id), visibleBuilds(db, user)));
+  return row;
+}
+
+/**
+ * Takes the row lock of a part the user may see, with their place on its build (null: not theirs).
+ * The lock comes first and alone: what the rules count is read after it, in a statement of its own,
+ * so it sees every write that held the lock before.
+ */
+export async function lockVisibleTraveler(tx: Db, user: Express.User, id: string) {
+  const [row] = await tx.select({ traveler: travelers, place: placeColumn(user) }).from(travelers)
+    .innerJoin(builds, eq(builds.id, travelers.buildId))
+    .where(and(eq(travelers.id, id), visibleBuilds(tx, user)))
+    .for('no key update', { of: travelers });
+  return row;
 }
 
 export async function findTravelerParts(db: Db, id: string) {
@@ -77,17 +183,43 @@ export async function lockTraveler(tx: Db, id: string) {
   return row;
 }
 
-/** What the part rules read, counted by the database (call it with the traveler locked). */
-export async function readPartFacts(tx: Db, t: typeof travelers.$inferSelect): Promise<PartFacts> {
-  // One after the other: inside a transaction they share one connection.
-  const holeRows = await tx.select({ status: holes.status, n: count() }).from(holes).where(eq(holes.travelerId, t.id)).groupBy(holes.status);
-  const [steps] = await tx.select({ n: count() }).from(travelerSteps).where(and(eq(travelerSteps.travelerId, t.id), isNull(travelerSteps.doneAt)));
-  const [open] = await tx.select({ n: count() }).from(findings)
-    .where(and(eq(findings.travelerId, t.id), inArray(findings.status, [...openFindingStatuses])));
+/**
+ * What the part rules read, counted by the database in one statement (call it with the traveler locked);
+ * with `holeIds`, those holes of the part as they stand, for a tick to check.
+ */
+export async function readPartFacts(tx: Db, t: typeof travelers.$inferSelect, holeIds?: string[]): Promise<PartFacts & { picked: Hole[] }> {
+  const picked = holeIds?.length
+    ? sql`(select coalesce(json_agg(json_build_object('holeId', h.hole_id, 'line', h.line, 'seq', h.seq, 'stationIn', h.station_in, 'status', h.status)), '[]'::json)
+        from holes h where h.traveler_id = ${t.id} and h.hole_id in ${holeIds})`
+    : sql`'[]'::json`;
+  const res = await tx.execute(sql`select
+    (select coalesce(json_object_agg(c.status, c.n), '{}'::json)
+      from (select status, count(*)::int as n from holes where traveler_id = ${t.id} group by status) c) as holes,
+    (select count(*)::int from traveler_steps where traveler_id = ${t.id} and done_at is null) as "stepsOpen",
+    (select count(*)::int from findings where traveler_id = ${t.id} and ${inArray(findings.status, [...openFindingStatuses])}) as "openFindings",
+    ${picked} as picked`);
+  const row = res.rows[0] as { holes: Partial<Record<HoleStatus, number>>; stepsOpen: number; openFindings: number; picked: Hole[] };
   return {
-    holes: Object.fromEntries(holeRows.map((r) => [r.status, r.n])) as Partial<Record<HoleStatus, number>>,
-    stepsOpen: steps.n, openFindings: open.n, signedOff: t.signedOffAt !== null, replaced: t.replacedById !== null,
+    holes: row.holes, stepsOpen: row.stepsOpen, openFindings: row.openFindings,
+    signedOff: t.signedOffAt !== null, replaced: t.replacedById !== null, picked: row.picked,
   };
+}
+
+/**
+ * Sets holes of a part from one status to another and writes the bench event, in one statement; the
+ * event only when some hole changed. Returns the holes changed.
+ */
+export async function setHolesWithEvent(tx: Db, travelerId: string, actorId: string, holeIds: string[], from: HoleStatus, to: HoleStatus): Promise<Hole[]> {
+  const res = await tx.execute(sql`with changed as (
+      update holes set status = ${to}, updated_by = ${actorId}, updated_at = now()
+      where traveler_id = ${travelerId} and hole_id in ${holeIds} and status = ${from}
+      returning hole_id, line, seq, station_in, status),
+    event as (
+      insert into traveler_events (traveler_id, actor_id, created_at, kind, detail)
+      select ${travelerId}::uuid, ${actorId}::uuid, clock_timestamp(), ${`holes_${to}`}, jsonb_build_object('holeIds', jsonb_agg(hole_id))
+      from changed having count(*) > 0)
+    select hole_id as "holeId", line, seq, station_in as "stationIn", status from changed`);
+  return res.rows as Hole[];
 }
 
 /** A short code no traveler has yet: collisions are rare (one in hundreds of millions) but not impossible. */

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { idParam, labelsQuery, lookupInput, stepInput, tickHolesInput, withdrawSignOffInput } from '../../db/contracts';
+import { idParam, labelsQuery, lookupInput, stepInput, tickHolesInput, travelerListQuery, withdrawSignOffInput } from '../../db/contracts';
 import type { AppContext } from '../context';
 import { findingsService } from '../findings/findings-service';
 import { validateBody, validateQuery } from '../middleware/validate';
@@ -12,7 +12,7 @@ export function travelersRouter(ctx: AppContext): Router {
   const r = Router();
   const findings = findingsService(ctx);
   const service = travelersService(ctx.db, ctx.pool, findings.list, { mailQueue: ctx.mailQueue, publicUrl: ctx.config.publicUrl });
-  r.get('/', async (req, res) => { res.json(await service.list(req.user!)); });
+  r.get('/', validateQuery(travelerListQuery), async (req, res) => { res.json(await service.page(req.user!, res.locals.query)); });
   r.get('/labels', validateQuery(labelsQuery), async (req, res) => { res.json(await service.labels(req.user!, res.locals.query)); });
   r.get('/lookup', validateQuery(lookupInput), async (req, res) => { res.json(await service.lookup(req.user!, res.locals.query.code)); });
   r.get('/:id', async (req, res) => { res.json(await service.detail(req.user!, idParam.parse(req.params).id)); });

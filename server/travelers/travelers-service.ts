@@ -1,22 +1,27 @@
 import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import QRCode from 'qrcode';
 import {
-  allowedPartActions, checkPartAction, mayPrintLabels, signOffReadiness,
-  type LabelsQuery, type PartAction, type PartLabel, type TickHolesInput, type TravelerDetail,
+  allowedPartActions, checkPartAction, holesAwaitingInspectorStatuses, holesDoneStatuses, mayPrintLabels, signOffReadiness,
+  type HoleStatus, type LabelsQuery, type Page, type PartAction, type PartFacts, type PartLabel, type TickHolesInput, type TravelerDetail,
+  type TravelerListQuery, type TravelerSummary,
 } from '../../db/contracts';
 import { withTransaction, type Db, type Tx } from '../../db';
 import type { Pool } from 'pg';
 import { holes, travelerEvents, travelerSteps, travelers, users } from '../../db/schema';
 import { placeOnBuild } from '../builds/build-access';
+import { decodeCursor, pageOf } from '../pagination';
 import type { AppContext } from '../context';
-import { findTravelerBrief, recipientsOf } from '../findings/findings-repository';
+import { recipientsOf } from '../findings/findings-repository';
 import { badRequest, conflict, forbidden, HttpError, notFound } from '../http-error';
 import { rivetOfCallout } from '../findings/oversize-options';
 import { isLoopbackUrl } from '../network/lan';
 import { parseTravelerCode } from './codes';
 import { partOutline } from './part-outline';
 import { signOffWithdrawnMail } from './sign-off-mail';
-import { clearSignOff, findTravelerParts, listLabelRows, listTravelers, lockTraveler, readPartFacts } from './travelers-repository';
+import {
+  clearSignOff, listLabelRows, listTravelerPage, listTravelers, lockTraveler, lockVisibleTraveler, readPartFacts, readTravelerPage,
+  setHolesWithEvent, type TravelerCursor,
+} from './travelers-repository';
 
 /**
  * When a bench event happened: the moment it is written, under the part's lock. The column's default is
@@ -42,60 +47,76 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
 
   /**
    * A write to the part under its lock: the rules module decides with the part as it stands inside
-   * the transaction, so a racing change either lands first or is refused here.
+   * the transaction, so a racing change either lands first or is refused here. The lock's own
+   * statement also answers whether the person may see the part (404) and their place on its build;
+   * the facts follow it in one statement (with `holeIds`, those holes as they stand).
    */
   async function underLock<T>(
     user: Express.User, id: string, action: PartAction,
-    work: (tx: Db, locked: Awaited<ReturnType<typeof lockTraveler>>, unit: Tx) => Promise<T>,
+    work: (tx: Db, locked: Awaited<ReturnType<typeof lockTraveler>>, unit: Tx, facts: Awaited<ReturnType<typeof readPartFacts>>) => Promise<T>,
+    holeIds?: string[],
   ): Promise<T> {
-    await visible(user, id);
     return withTransaction(pool, async (unit) => {
       const tx = unit.db;
-      const t = await lockTraveler(tx, id);
-      const place = await placeOnBuild(tx, user, t.buildId);
-      const facts = await readPartFacts(tx, t);
-      const refusal = checkPartAction(facts, action, place);
+      const mine = await lockVisibleTraveler(tx, user, id);
+      if (!mine) throw notFound('traveler');
+      const t = mine.traveler;
+      const facts = await readPartFacts(tx, t, holeIds);
+      const refusal = checkPartAction(facts, action, mine.place);
       if (refusal) throw new HttpError(refusal.code, refusal.code === 403 ? 'forbidden' : 'conflict', refusal.message);
-      return work(tx, t, unit);
+      return work(tx, t, unit, facts);
     });
   }
 
+  /** The part's page: one statement for the part, its holes, steps and the reader's place, one for its findings, side by side. */
   async function detail(user: Express.User, id: string): Promise<TravelerDetail> {
-    const summary = await visible(user, id);
-    const { traveler, revision, design, kit } = (await findTravelerParts(db, id))!;
+    const [row, travelerFindings] = await Promise.all([readTravelerPage(db, user, id), listFindings(user, { travelerId: id })]);
+    if (!row) throw notFound('traveler');
+    const { traveler, revision, design, kit, place } = row;
     const rivet = rivetOfCallout(revision.rivetSpec);
-    const [holeRows, stepRows, approver, signer, travelerFindings, place, facts, replacedBy, replaces] = await Promise.all([
-      db.select({ holeId: holes.holeId, line: holes.line, seq: holes.seq, stationIn: holes.stationIn, status: holes.status })
-        .from(holes).where(eq(holes.travelerId, id)).orderBy(asc(holes.line), asc(holes.seq)),
-      db.select({ id: travelerSteps.id, seq: travelerSteps.seq, text: travelerSteps.text, doneAt: travelerSteps.doneAt, doneByName: users.name })
-        .from(travelerSteps).leftJoin(users, eq(users.id, travelerSteps.doneBy)).where(eq(travelerSteps.travelerId, id)).orderBy(asc(travelerSteps.seq)),
-      revision.publishedBy ? db.select({ name: users.name }).from(users).where(eq(users.id, revision.publishedBy)) : Promise.resolve([]),
-      traveler.signedOffBy ? db.select({ name: users.name }).from(users).where(eq(users.id, traveler.signedOffBy)) : Promise.resolve([]),
-      listFindings(user, { travelerId: id }),
-      placeOnBuild(db, user, traveler.buildId),
-      readPartFacts(db, traveler),
-      traveler.replacedById ? findTravelerBrief(db, traveler.replacedById) : Promise.resolve(null),
-      traveler.replacesId ? findTravelerBrief(db, traveler.replacesId) : Promise.resolve(null),
-    ]);
+    const holeRows = row.holes;
+    const stepRows = row.steps.map((s) => ({ ...s, doneAt: s.doneAt ? new Date(s.doneAt).toISOString() : null }));
+    const byStatus: Partial<Record<HoleStatus, number>> = {};
+    for (const h of holeRows) byStatus[h.status] = (byStatus[h.status] ?? 0) + 1;
+    const facts: PartFacts = {
+      holes: byStatus, stepsOpen: stepRows.filter((s) => s.doneAt === null).length, openFindings: row.openFindings,
+      signedOff: traveler.signedOffAt !== null, replaced: traveler.replacedById !== null,
+    };
+    const counted = countHoles(holeRows);
     return {
-      ...summary,
+      id: traveler.id, serial: traveler.serial, shortCode: traveler.shortCode, buildId: traveler.buildId, kitSerial: row.kitSerial,
+      partNumber: design.partNumber, partName: design.name, kind: design.kind, letter: revision.letter,
+      holesTotal: holeRows.length, holesDone: counted.done, holesAwaitingInspector: counted.awaiting, openFindings: row.openFindings,
+      signedOff: facts.signedOff, newerRevision: row.newerRevision,
+      replaced: traveler.replacedById ? { byId: traveler.replacedById, reason: traveler.replacedReason! } : null,
+      replacesId: traveler.replacesId,
       material: revision.material, gaugeIn: revision.gaugeIn, rivetSpec: revision.rivetSpec, drillSize: revision.drillSize,
       drillDiameterIn: revision.drillDiameterIn, edgeDistanceIn: revision.edgeDistanceIn, chordIn: revision.chordIn, lines: revision.lines,
       rivetDiameterIn: rivet?.nominalDiameterIn ?? null, countersunk: rivet?.countersunk ?? false,
       outline: partOutline(design.kind, kit.airfoil, revision.chordIn),
       holes: holeRows,
-      steps: stepRows.map((s) => ({ ...s, doneAt: s.doneAt?.toISOString() ?? null })),
+      steps: stepRows,
       findings: travelerFindings,
-      approvedByName: approver[0]?.name ?? null,
-      signedOffAt: traveler.signedOffAt?.toISOString() ?? null, signedOffByName: signer[0]?.name ?? null,
+      approvedByName: revision.publishedBy ? row.approvedByName : null,
+      signedOffAt: traveler.signedOffAt?.toISOString() ?? null, signedOffByName: row.signedOffByName,
       place, allowedActions: allowedPartActions(facts, place), readiness: signOffReadiness(facts),
-      replacedBy, replaces,
+      replacedBy: traveler.replacedById && row.replacedBySerial ? { id: traveler.replacedById, serial: row.replacedBySerial } : null,
+      replaces: traveler.replacesId && row.replacesSerial ? { id: traveler.replacesId, serial: row.replacesSerial } : null,
       labelAllowed: mayPrintLabels(place, user.role === 'admin', 'part'),
     };
   }
 
+  /** One page of the parts the person may see, live ones first, by serial; filters and counts in SQL. */
+  async function page(user: Express.User, q: TravelerListQuery): Promise<Page<TravelerSummary>> {
+    const after = readCursor(q.cursor);
+    const rows = await listTravelerPage(db, user, { show: q.show, text: q.q || undefined }, after, q.limit);
+    return pageOf(rows, q.limit, (r) => [r.replaced ? 1 : 0, r.serial, r.id]);
+  }
+
   return {
+    /** Every part the person may see, unpaged (the seed and scripts); the API serves `page`. */
     list: (user: Express.User) => listTravelers(db, user),
+    page,
     detail,
 
     async lookup(user: Express.User, code: string) {
@@ -109,24 +130,20 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
     /** Ticks holes installed (or back to pending). Holes under a finding are the inspector's, not the bench's. */
     async tickHoles(user: Express.User, id: string, input: TickHolesInput) {
       const ids = [...new Set(input.holeIds)];
-      return underLock(user, id, 'tick', async (tx) => {
-        const rows = await tx.select().from(holes).where(and(eq(holes.travelerId, id), inArray(holes.holeId, ids)));
-        const missing = ids.filter((h) => !rows.some((r) => r.holeId === h));
+      return underLock(user, id, 'tick', async (tx, _t, _unit, facts) => {
+        const rows = facts.picked;
+        const known = new Set(rows.map((r) => r.holeId));
+        const missing = ids.filter((h) => !known.has(h));
         if (missing.length) throw badRequest(`no hole ${missing.join(', ')} on this traveler`, { holeIds: `unknown hole ${missing.join(', ')}` });
         const from = input.status === 'installed' ? 'pending' : 'installed';
         const locked = rows.filter((r) => r.status !== from && r.status !== input.status);
         if (locked.length) {
           throw conflict(`hole ${locked.map((h) => `${h.holeId} (${h.status})`).join(', ')} is under a finding and cannot be ticked here`, { holeIds: 'under a finding' });
         }
-        const changed = await tx.update(holes).set({ status: input.status, updatedBy: user.id, updatedAt: new Date() })
-          .where(and(eq(holes.travelerId, id), inArray(holes.holeId, ids), eq(holes.status, from)))
-          .returning({ holeId: holes.holeId, line: holes.line, seq: holes.seq, stationIn: holes.stationIn, status: holes.status });
-        if (changed.length) {
-          await tx.insert(travelerEvents).values({ travelerId: id, actorId: user.id, createdAt: underLockNow(), kind: `holes_${input.status}`, detail: { holeIds: changed.map((c) => c.holeId) } });
-        }
-        const all = rows.map((r) => changed.find((c) => c.holeId === r.holeId) ?? { holeId: r.holeId, line: r.line, seq: r.seq, stationIn: r.stationIn, status: r.status });
-        return { holes: all };
-      });
+        const changed = await setHolesWithEvent(tx, id, user.id, ids, from, input.status);
+        const byId = new Map(changed.map((c) => [c.holeId, c]));
+        return { holes: rows.map((r) => byId.get(r.holeId) ?? r) };
+      }, ids);
     },
 
     async setStep(user: Express.User, id: string, stepId: string, done: boolean) {
@@ -197,3 +214,27 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
     },
   };
 };
+
+/** Holes done for good and holes waiting for the inspector, by the rules module's groupings. */
+function countHoles(rows: readonly { status: HoleStatus }[]): { done: number; awaiting: number } {
+  let done = 0;
+  let awaiting = 0;
+  for (const h of rows) {
+    if (holesDoneStatuses.includes(h.status)) done++;
+    else if (holesAwaitingInspectorStatuses.includes(h.status)) awaiting++;
+  }
+  return { done, awaiting };
+}
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** The list's cursor: [0 live / 1 replaced, serial, id]; one whose parts are not of that form is refused before the database sees it. */
+function readCursor(cursor: string | undefined): TravelerCursor | null {
+  const key = decodeCursor(cursor, ['number', 'string', 'string']);
+  if (!key) return null;
+  const [rank, serial, id] = key as [number, string, string];
+  if ((rank !== 0 && rank !== 1) || !UUID.test(id) || serial.length === 0) {
+    throw badRequest('cursor is not one this list gave: start again from the first page', { cursor: 'not a cursor of this list' });
+  }
+  return [rank, serial, id];
+}
