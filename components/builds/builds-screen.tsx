@@ -1,9 +1,11 @@
 import { useRouter } from 'expo-router';
 import { FlatList } from 'react-native';
 import { Button } from '@/components/ui/button';
+import { LoadMore } from '@/components/ui/load-more';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { useBuildsQuery } from '@/hooks/queries/builds';
+import { pagedItems } from '@/hooks/queries/paged';
 import type { Role } from '@/db/contracts';
 import { useRole } from '@/hooks/use-session';
 import { BuildRow } from './build-row';
@@ -20,6 +22,7 @@ export function BuildsScreen() {
   const role = useRole();
   const q = useBuildsQuery();
   const isSupplier = role === 'supplier';
+  const rows = pagedItems(q.data);
   return (
     <Screen
       title="Builds"
@@ -33,7 +36,7 @@ export function BuildsScreen() {
         : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
           : (
             <FlatList
-              data={q.data}
+              data={rows}
               keyExtractor={(b) => b.id}
               renderItem={({ item }) => <BuildRow b={item} onPress={() => router.push(`/builds/${item.id}`)} />}
               ListEmptyComponent={
@@ -44,7 +47,10 @@ export function BuildsScreen() {
                       : 'Builds show here when a supplier or a build’s owner adds you as an inspector.'}
                 />
               }
-              refreshing={q.isRefetching}
+              ListFooterComponent={
+                <LoadMore hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage} shown={rows.length} what="builds" testID="builds-more" />
+              }
+              refreshing={q.isRefetching && !q.isFetchingNextPage}
               onRefresh={() => void q.refetch()}
             />
           )}

@@ -3,12 +3,14 @@ import { Pressable, StyleSheet, View } from 'react-native';
 import { partKindLabels, type KitModel, type PartDesignSummary } from '@/db/contracts';
 import { colors, hairline, space, touch } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
+import { LoadMore } from '@/components/ui/load-more';
 import { Screen } from '@/components/ui/screen';
 import { Section } from '@/components/ui/sheet';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
-import { useDesignsQuery } from '@/hooks/queries/designs';
-import { useKitsQuery } from '@/hooks/queries/kits';
+import { useDesignPagesQuery } from '@/hooks/queries/designs';
+import { useKitPagesQuery } from '@/hooks/queries/kits';
+import { pagedItems } from '@/hooks/queries/paged';
 import { useUnits } from '@/hooks/use-units';
 
 const statusWords = { draft: 'draft', published: 'published', superseded: 'superseded' } as const;
@@ -39,9 +41,12 @@ function DesignRow({ d, onPress }: { d: PartDesignSummary; onPress: () => void }
   );
 }
 
-function KitBlock({ kit, designs }: { kit: KitModel; designs: PartDesignSummary[] }) {
+/** One kit with its part designs, a page at a time (by part number). */
+function KitBlock({ kit }: { kit: KitModel }) {
   const router = useRouter();
   const u = useUnits();
+  const q = useDesignPagesQuery(kit.id);
+  const designs = pagedItems(q.data);
   return (
     <Section
       title={`${kit.code} · ${kit.name}`}
@@ -56,9 +61,14 @@ function KitBlock({ kit, designs }: { kit: KitModel; designs: PartDesignSummary[
       <Txt variant="small" tone="soft">
         <Mono variant="small">{u.mass(kit.weightLb)}</Mono> gross · wing <Mono variant="small">{u.area(kit.wingAreaSqFt)}</Mono> · stall <Mono variant="small">{kit.stallSpeedKeas} KEAS</Mono> · {kit.airfoil} · {kit.category}
       </Txt>
-      {designs.length ? (
-        <View>{designs.map((d) => <DesignRow key={d.id} d={d} onPress={() => router.push(`/catalogue/designs/${d.id}`)} />)}</View>
-      ) : <Txt tone="soft">No part designs yet.</Txt>}
+      {q.isPending ? <LoadingState what={`Loading the part designs of ${kit.code}`} />
+        : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+          : designs.length ? (
+            <View>
+              {designs.map((d) => <DesignRow key={d.id} d={d} onPress={() => router.push(`/catalogue/designs/${d.id}`)} />)}
+              <LoadMore hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage} shown={designs.length} what="part designs" testID={`designs-more-${kit.code}`} />
+            </View>
+          ) : <Txt tone="soft">No part designs yet.</Txt>}
     </Section>
   );
 }
@@ -66,10 +76,8 @@ function KitBlock({ kit, designs }: { kit: KitModel; designs: PartDesignSummary[
 /** The supplier's catalogue: kit models and the part designs of each. */
 export function CatalogueScreen() {
   const router = useRouter();
-  const kits = useKitsQuery();
-  const designs = useDesignsQuery();
-  const loading = kits.isPending || designs.isPending;
-  const error = kits.error ?? designs.error;
+  const kits = useKitPagesQuery();
+  const rows = pagedItems(kits.data);
   return (
     <Screen
       title="Catalogue"
@@ -78,15 +86,20 @@ export function CatalogueScreen() {
       testID="catalogue-screen"
       right={<Button label="New kit model" variant="secondary" compact onPress={() => router.push('/catalogue/new-kit')} testID="new-kit" />}
     >
-      {loading ? <LoadingState what="Loading the catalogue" />
-        : error ? <ErrorState error={error} onRetry={() => { void kits.refetch(); void designs.refetch(); }} />
-          : !kits.data?.length ? (
+      {kits.isPending ? <LoadingState what="Loading the catalogue" />
+        : kits.isError ? <ErrorState error={kits.error} onRetry={() => void kits.refetch()} />
+          : !rows.length ? (
             <EmptyState
               title="No kit models yet."
               body="Start with a kit model: its weight, wing and speeds. Then add the parts."
               action={<Button label="New kit model" onPress={() => router.push('/catalogue/new-kit')} testID="new-kit-empty" />}
             />
-          ) : kits.data.map((k) => <KitBlock key={k.id} kit={k} designs={(designs.data ?? []).filter((d) => d.kitModelId === k.id)} />)}
+          ) : (
+            <>
+              {rows.map((k) => <KitBlock key={k.id} kit={k} />)}
+              <LoadMore hasNextPage={kits.hasNextPage} isFetchingNextPage={kits.isFetchingNextPage} fetchNextPage={kits.fetchNextPage} shown={rows.length} what="kit models" testID="kits-more" />
+            </>
+          )}
     </Screen>
   );
 }

@@ -5,6 +5,7 @@ import { colors, hairline, space } from '@/constants/theme';
 import { Caution } from '@/components/ui/caution';
 import { Choice } from '@/components/ui/choice';
 import { Field } from '@/components/ui/field';
+import { LoadMore } from '@/components/ui/load-more';
 import { Screen } from '@/components/ui/screen';
 import { Section } from '@/components/ui/sheet';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
@@ -13,6 +14,7 @@ import { Mono, Txt } from '@/components/ui/text';
 import { TwoPane } from '@/components/ui/two-pane';
 import { errorMessage } from '@/hooks/api-client';
 import { useCouponAllowablesQuery, useCouponDeleteMutation, useCouponsQuery } from '@/hooks/queries/coupons';
+import { pagedItems } from '@/hooks/queries/paged';
 import { useUnits } from '@/hooks/use-units';
 import { forceNumber } from '@/components/studies/study-numbers';
 import { ConfirmStep } from '@/components/designs/confirm-step';
@@ -66,7 +68,8 @@ function Allowables({ groups }: { groups: CouponAllowance[] }) {
 export function CouponsScreen() {
   const u = useUnits();
   const q = useCouponsQuery();
-  const all = useMemo(() => q.data ?? [], [q.data]);
+  // The pages of the record loaded so far; the filters and the sort work on these (the allowables cover every test).
+  const all = useMemo(() => pagedItems(q.data), [q.data]);
   const [filters, setFilters] = useState<CouponFilters>({ material: ALL, gauge: ALL, rivet: ALL });
   const [sort, setSort] = useState<SortState<CouponSortKey>>({ key: 'tested', dir: 'desc' });
   const values = useMemo(() => filterValues(all), [all]);
@@ -160,7 +163,7 @@ export function CouponsScreen() {
         <Choice testIDPrefix="coupon-filter-rivet" value={filters.rivet} onChange={(rivet) => setFilters((f) => ({ ...f, rivet }))}
           options={[chip(ALL, 'All'), ...values.rivets.map((r) => chip(r, r))]} />
       </Field>
-      <Txt variant="small" tone="soft" testID="coupon-count">{shown.length} of {all.length} tests shown</Txt>
+      <Txt variant="small" tone="soft" testID="coupon-count">{shown.length} of {all.length}{q.hasNextPage ? ' loaded' : ''} tests shown</Txt>
     </View>
   );
 
@@ -182,6 +185,9 @@ export function CouponsScreen() {
               empty={<EmptyState title="Nothing matches these filters." body="Choose All to see every test." />}
             />
           )}
+      {q.isSuccess && all.length ? (
+        <LoadMore hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage} shown={all.length} what="tests" testID="coupons-more" />
+      ) : null}
     </Section>
   );
 

@@ -9,9 +9,11 @@ import { FormChoiceField, FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { Button } from '@/components/ui/button';
+import { LoadMore } from '@/components/ui/load-more';
 import { Section } from '@/components/ui/sheet';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
+import { pagedItems } from '@/hooks/queries/paged';
 import { usePeopleOrganizationCreateMutation, usePeopleOrganizationsQuery } from '@/hooks/queries/people';
 import { organizationWords } from './people-view';
 
@@ -20,6 +22,7 @@ type Values = z.input<typeof organizationInput>;
 /** The admin's organisations: kit suppliers, build shops and inspection bodies, and a form for a new one. */
 export function OrganizationsSection() {
   const q = usePeopleOrganizationsQuery();
+  const rows = pagedItems(q.data);
   const [adding, setAdding] = useState(false);
   return (
     <Section
@@ -30,15 +33,17 @@ export function OrganizationsSection() {
       {adding ? <NewOrganization onClose={() => setAdding(false)} /> : null}
       {q.isPending ? <LoadingState what="Loading organisations" />
         : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
-          : !q.data.length ? <EmptyState title="No organisations yet." body="Add the kit suppliers, build shops and inspection bodies whose people use Pitchcard." />
+          : !rows.length ? <EmptyState title="No organisations yet." body="Add the kit suppliers, build shops and inspection bodies whose people use Pitchcard." />
             : (
               <View>
-                {[...q.data].sort((a, b) => a.name.localeCompare(b.name)).map((o) => (
+                {/* The server's order (by name, then id): pages append without rows moving. */}
+                {rows.map((o) => (
                   <View key={o.id} style={styles.row} testID={`org-${o.id}`}>
                     <Txt bold>{o.name}</Txt>
                     <Txt variant="small" tone="soft">{organizationWords(o)}</Txt>
                   </View>
                 ))}
+                <LoadMore hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage} shown={rows.length} what="organisations" testID="organizations-more" />
               </View>
             )}
     </Section>

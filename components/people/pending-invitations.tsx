@@ -2,21 +2,29 @@ import { StyleSheet, View } from 'react-native';
 import { memberPlaceLabels, roleLabels, type PendingInvitation } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
 import { shortDate } from '@/components/findings/finding-row';
+import { LoadMore } from '@/components/ui/load-more';
 import { Section } from '@/components/ui/sheet';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
+import { pagedItems } from '@/hooks/queries/paged';
 import { usePeopleInvitationsQuery } from '@/hooks/queries/people';
 import { wrapAnywhere } from './long-words';
 
 /** Invited, not joined yet: who, as what, by whom, and until when the link works. */
 export function PendingInvitations() {
   const q = usePeopleInvitationsQuery();
+  const rows = pagedItems(q.data);
   return (
-    <Section title="Waiting to join" testID="pending-invitations" aside={q.data?.length ? <Mono variant="small" tone="soft">{q.data.length}</Mono> : undefined}>
+    <Section title="Waiting to join" testID="pending-invitations" aside={rows.length ? <Mono variant="small" tone="soft">{rows.length}{q.hasNextPage ? '+' : ''}</Mono> : undefined}>
       {q.isPending ? <LoadingState what="Loading invitations" />
         : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
-          : !q.data.length ? <EmptyState title="Nobody is waiting to join." body="Everyone invited has set their password, or their link ran out." />
-            : <View>{q.data.map((i) => <InvitationRow key={i.id} i={i} />)}</View>}
+          : !rows.length ? <EmptyState title="Nobody is waiting to join." body="Everyone invited has set their password, or their link ran out." />
+            : (
+              <View>
+                {rows.map((i) => <InvitationRow key={i.id} i={i} />)}
+                <LoadMore hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage} shown={rows.length} what="invitations" testID="invitations-more" />
+              </View>
+            )}
     </Section>
   );
 }

@@ -2,20 +2,18 @@ import { useMemo, useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { OrganizationSummary, PersonSummary } from '@/db/contracts';
 import { colors, hairline, space, touch } from '@/constants/theme';
-import { Button } from '@/components/ui/button';
 import { Choice } from '@/components/ui/choice';
 import { FindField } from '@/components/ui/field';
+import { LoadMore } from '@/components/ui/load-more';
 import { Section } from '@/components/ui/sheet';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
+import { pagedItems } from '@/hooks/queries/paged';
 import { usePeopleQuery } from '@/hooks/queries/people';
 import { PersonActions } from './person-actions';
 import { filterPeople, peopleCount, roleWords, rolesFor, type PeopleShow } from './people-view';
 import { wrapAnywhere } from './long-words';
 
-// Rows drawn at first and added per press: a supplier with thousands of builders stays quick to
-// scroll, and the find box narrows the list long before anyone pages that far.
-const PAGE = 50;
 
 const showOptions: { value: PeopleShow; label: string }[] = [
   { value: 'all', label: 'Everyone' },
@@ -28,17 +26,17 @@ export function PeopleList({ organizations, meId }: { organizations: readonly Or
   const q = usePeopleQuery();
   const [text, setText] = useState('');
   const [show, setShow] = useState<PeopleShow>('all');
-  const [limit, setLimit] = useState(PAGE);
   const [openId, setOpenId] = useState<string | null>(null);
   const [said, setSaid] = useState<string | null>(null);
-  const all = useMemo(() => q.data ?? [], [q.data]);
+  // The pages loaded so far, by name; the find box and the choice narrow what is loaded.
+  const all = useMemo(() => pagedItems(q.data), [q.data]);
   const rows = useMemo(() => filterPeople(all, text, show), [all, text, show]);
   const kindOf = (orgId: string | null) => organizations?.find((o) => o.id === orgId)?.kind;
 
   return (
     <Section title="People" testID="people-list" aside={q.isSuccess ? <Txt variant="small" tone="soft" testID="people-count">{peopleCount(all, rows.length)}</Txt> : undefined}>
-      <FindField value={text} onChange={(t) => { setText(t); setLimit(PAGE); }} placeholder="Name, e-mail, organisation or role" where="people" testID="people-find" />
-      <Choice options={showOptions} value={show} onChange={(v) => { setShow(v); setLimit(PAGE); }} testIDPrefix="people-show" />
+      <FindField value={text} onChange={setText} placeholder="Name, e-mail, organisation or role" where="people" testID="people-find" />
+      <Choice options={showOptions} value={show} onChange={setShow} testIDPrefix="people-show" />
       {said ? <Notice tone="ok" testID="person-done">{said}</Notice> : null}
       {q.isPending ? <LoadingState what="Loading people" />
         : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
@@ -50,7 +48,7 @@ export function PeopleList({ organizations, meId }: { organizations: readonly Or
               />
             ) : (
               <View>
-                {rows.slice(0, limit).map((p) => (
+                {rows.map((p) => (
                   <PersonRow
                     key={p.id}
                     p={p}
@@ -61,17 +59,11 @@ export function PeopleList({ organizations, meId }: { organizations: readonly Or
                     <PersonActions p={p} roleOptions={rolesFor(kindOf(p.organizationId))} onDone={setSaid} />
                   </PersonRow>
                 ))}
-                {rows.length > limit ? (
-                  <Button
-                    label={`Show ${Math.min(PAGE, rows.length - limit)} more of ${rows.length - limit}`}
-                    variant="secondary"
-                    onPress={() => setLimit((n) => n + PAGE)}
-                    testID="people-more"
-                    style={{ marginTop: space.md }}
-                  />
-                ) : null}
               </View>
             )}
+      {q.isSuccess && all.length ? (
+        <LoadMore hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage} shown={all.length} what="people" testID="people-more" />
+      ) : null}
     </Section>
   );
 }

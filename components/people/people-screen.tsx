@@ -2,6 +2,7 @@ import { View } from 'react-native';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState } from '@/components/ui/states';
 import { TwoPane } from '@/components/ui/two-pane';
+import { pagedItems } from '@/hooks/queries/paged';
 import { usePeopleOrganizationsQuery } from '@/hooks/queries/people';
 import { useSession } from '@/hooks/use-session';
 import { InviteForm } from './invite-form';
@@ -18,7 +19,9 @@ export function PeopleScreen() {
   const admin = user?.role === 'admin';
   const manages = admin || (user?.role === 'supplier' && user.lead);
   // Role and organisation choices of the admin's forms read the organisations' kinds.
+  // The pages loaded so far (the organisations section loads more): what the forms choose from.
   const orgs = usePeopleOrganizationsQuery(admin);
+  const organizations = orgs.data ? pagedItems(orgs.data) : undefined;
 
   if (!user || !manages) {
     return (
@@ -38,10 +41,10 @@ export function PeopleScreen() {
       <View style={{ width: '100%', maxWidth: 1200, alignSelf: 'center' }}>
         <TwoPane
           leftWidth={0.55}
-          left={<PeopleList organizations={orgs.data} meId={user.id} />}
+          left={<PeopleList organizations={organizations} meId={user.id} />}
           right={
             <>
-              <InviteForm me={user} organizations={orgs.data} />
+              <InviteForm me={user} organizations={organizations} />
               <PendingInvitations />
               {admin ? <OrganizationsSection /> : null}
             </>

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { plainText } from './common';
+import { pageQuery, plainText } from './common';
 import { GAUGE_RANGE_IN, measured } from './engineering';
 
 export const couponOutcomes = ['no_deformation', 'slight_deformation', 'excessive_deformation', 'failure'] as const;
@@ -35,6 +35,13 @@ export const couponCorrectionInput = couponInput.safeExtend({
   reason: plainText('the reason', 3, 500, 'say why the record is corrected'),
 });
 export type CouponCorrectionInput = z.input<typeof couponCorrectionInput>;
+
+/** `GET /api/coupons`: a page of the record, of one material or rivet when asked. */
+export const couponListQuery = pageQuery.extend({
+  material: plainText('the material', 1, 60).optional(),
+  rivetSpec: plainText('the rivet', 1, 40).optional(),
+});
+export type CouponListQuery = z.input<typeof couponListQuery>;
 
 export const couponActions = ['correct', 'delete'] as const;
 export type CouponAction = (typeof couponActions)[number];

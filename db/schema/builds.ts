@@ -15,7 +15,11 @@ export const builds = pgTable('builds', {
   note: text('note').notNull().default(''),
   createdBy: uuid('created_by').notNull().references(() => users.id),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-});
+}, (t) => [
+  // The list's order (newest first, then id): the admin's whole list and a supplier's own.
+  index('builds_created').on(t.createdAt, t.id),
+  index('builds_org_created').on(t.organizationId, t.createdAt, t.id),
+]);
 
 /** A person on a build: their account role (what they may do) and their place (owner, helper, adviser…). */
 export const buildMembers = pgTable('build_members', {
@@ -25,7 +29,11 @@ export const buildMembers = pgTable('build_members', {
   place: memberPlace('place').notNull(),
   addedBy: uuid('added_by').references(() => users.id),
   addedAt: timestamp('added_at', { withTimezone: true }).notNull().defaultNow(),
-}, (t) => [primaryKey({ columns: [t.buildId, t.userId] })]);
+}, (t) => [
+  primaryKey({ columns: [t.buildId, t.userId] }),
+  // A builder's or inspector's builds: which builds a person is on, from the person's side.
+  index('build_members_user').on(t.userId, t.role),
+]);
 
 /** What happened to the build itself (people added, removed, handed over): the build's part of the log. */
 export const buildEvents = pgTable('build_events', {

@@ -27,4 +27,9 @@ export const couponTests = pgTable('coupon_tests', {
   correctionReason: text('correction_reason').notNull().default(''),
   supersededById: uuid('superseded_by_id').references((): AnyPgColumn => couponTests.id),
   supersededAt: timestamp('superseded_at', { withTimezone: true }),
-}, (t) => [index('coupon_tests_org_key').on(t.organizationId, t.material, t.gaugeIn, t.rivetSpec)]);
+}, (t) => [
+  // The record's order (material, gauge, rivet, load, when, id): its first columns serve the engine's per-material read too.
+  index('coupon_tests_org_order').on(t.organizationId, t.material, t.gaugeIn, t.rivetSpec, t.loadLb, t.createdAt, t.id),
+  // What an entry corrected: the correction chain is walked from the entry that corrected it.
+  index('coupon_tests_superseded_by').on(t.supersededById),
+]);

@@ -46,7 +46,11 @@ export const partDesigns = pgTable('part_designs', {
   name: text('name').notNull(),
   kind: partKind('kind').notNull(),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-}, (t) => [uniqueIndex('part_designs_kit_number').on(t.kitModelId, t.partNumber)]);
+}, (t) => [
+  uniqueIndex('part_designs_kit_number').on(t.kitModelId, t.partNumber),
+  // The catalogue's order across kits: part number, then id.
+  index('part_designs_number').on(t.partNumber, t.id),
+]);
 
 /**
  * One revision (A, B, C…) of a part design. A published revision is frozen: the service refuses
@@ -75,4 +79,8 @@ export const designRevisions = pgTable('design_revisions', {
   publishedAt: timestamp('published_at', { withTimezone: true }),
   version: integer('version').notNull().default(1),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-}, (t) => [uniqueIndex('design_revisions_design_letter').on(t.partDesignId, t.letter)]);
+}, (t) => [
+  uniqueIndex('design_revisions_design_letter').on(t.partDesignId, t.letter),
+  // A design's latest revision, read for every row of the catalogue.
+  index('design_revisions_design_created').on(t.partDesignId, t.createdAt),
+]);

@@ -21,7 +21,10 @@ export const loadStudies = pgTable('load_studies', {
   createdBy: uuid('created_by').notNull().references(() => users.id),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
-}, (t) => [index('load_studies_org').on(t.organizationId)]);
+}, (t) => [
+  // The list's order within an organisation: last changed first, then id.
+  index('load_studies_org_updated').on(t.organizationId, t.updatedAt, t.id),
+]);
 
 /** Inputs and the computed result, frozen per revision: a draft part design cites one as its basis. */
 export const loadStudyRevisions = pgTable('load_study_revisions', {

@@ -20,7 +20,11 @@ export const users = pgTable('users', {
   /** A supplier's lead engineer manages their own organisation's engineers. */
   lead: boolean('lead').notNull().default(false),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-});
+}, (t) => [
+  // The people list's order (name, then id), for everyone and within one organisation (also its head count).
+  index('users_name').on(t.name, t.id),
+  index('users_org_name').on(t.organizationId, t.name, t.id),
+]);
 
 export const memberPlace = pgEnum('member_place', memberPlaces);
 
@@ -42,7 +46,12 @@ export const invitations = pgTable('invitations', {
   expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
   acceptedAt: timestamp('accepted_at', { withTimezone: true }),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-}, (t) => [index('invitations_email').on(t.email)]);
+}, (t) => [
+  index('invitations_email').on(t.email),
+  // Pending invitations in the order they were sent, for everyone and within one organisation.
+  index('invitations_created').on(t.createdAt, t.id),
+  index('invitations_org_created').on(t.organizationId, t.createdAt, t.id),
+]);
 
 export const passwordResets = pgTable('password_resets', {
   id: uuid('id').primaryKey().defaultRandom(),

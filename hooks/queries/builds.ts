@@ -1,6 +1,7 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { AddMemberInput, BuildChangeInput, BuildDetail, BuildInput, BuildSummary, TravelerSummary } from '@/db/contracts';
+import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { AddMemberInput, BuildChangeInput, BuildDetail, BuildInput, BuildSummary, Page, TravelerSummary } from '@/db/contracts';
 import { api, apiRequest } from '../api-client';
+import { pageParams, pagePath } from './paged';
 
 /** The build's page: the contract's detail (its people with what the reader may do) and its parts. */
 export type BuildPage = BuildDetail & { travelers: TravelerSummary[] };
@@ -13,7 +14,12 @@ export const buildKeys = {
 };
 
 export const buildQueries = {
-  list: () => queryOptions({ queryKey: buildKeys.list(), queryFn: ({ signal }) => api.get<BuildSummary[]>('/api/builds', signal) }),
+  /** The reader's builds, a page at a time (newest first). */
+  list: () => infiniteQueryOptions({
+    queryKey: buildKeys.list(),
+    queryFn: ({ signal, pageParam }) => api.get<Page<BuildSummary>>(pagePath('/api/builds', pageParam), signal),
+    ...pageParams,
+  }),
   detail: (id: string) => queryOptions({
     queryKey: buildKeys.detail(id),
     queryFn: ({ signal }) => api.get<BuildPage>(`/api/builds/${encodeURIComponent(id)}`, signal),
@@ -21,7 +27,7 @@ export const buildQueries = {
 };
 
 export function useBuildsQuery() {
-  return useQuery(buildQueries.list());
+  return useInfiniteQuery(buildQueries.list());
 }
 
 export function useBuildQuery(id: string) {

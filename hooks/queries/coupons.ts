@@ -1,6 +1,7 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { CouponAllowance, CouponCorrectionInput, CouponInput, CouponTest } from '@/db/contracts';
+import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient, type InfiniteData } from '@tanstack/react-query';
+import type { CouponAllowance, CouponCorrectionInput, CouponInput, CouponTest, Page } from '@/db/contracts';
 import { api, apiRequest } from '../api-client';
+import { pageParams, pagePath } from './paged';
 
 export const couponKeys = {
   all: ['coupons'] as const,
@@ -9,12 +10,17 @@ export const couponKeys = {
 };
 
 export const couponQueries = {
-  list: () => queryOptions({ queryKey: couponKeys.list(), queryFn: ({ signal }) => api.get<CouponTest[]>('/api/coupons', signal) }),
+  /** The record of tests, a page at a time (material, gauge, rivet, load). */
+  list: () => infiniteQueryOptions({
+    queryKey: couponKeys.list(),
+    queryFn: ({ signal, pageParam }) => api.get<Page<CouponTest>>(pagePath('/api/coupons', pageParam), signal),
+    ...pageParams,
+  }),
   allowables: () => queryOptions({ queryKey: couponKeys.allowables(), queryFn: ({ signal }) => api.get<CouponAllowance[]>('/api/coupons/allowables', signal) }),
 };
 
 export function useCouponsQuery() {
-  return useQuery(couponQueries.list());
+  return useInfiniteQuery(couponQueries.list());
 }
 
 /** The allowables per material, gauge and rivet, derived on the server by the engine's own rule. */
@@ -28,7 +34,9 @@ export function useCouponCreateMutation() {
   return useMutation({
     mutationFn: (input: CouponInput) => api.post<CouponTest>('/api/coupons', input),
     onSuccess: (made) => {
-      qc.setQueryData<CouponTest[]>(couponKeys.list(), (old) => (old ? [made, ...old] : old));
+      // Shown at once at the head of the first page; the refetch below puts it in its place in the order.
+      qc.setQueryData<InfiniteData<Page<CouponTest>>>(couponKeys.list(), (old) => (old?.pages.length
+        ? { ...old, pages: [{ ...old.pages[0], items: [made, ...old.pages[0].items] }, ...old.pages.slice(1)] } : old));
       return qc.invalidateQueries({ queryKey: couponKeys.all });
     },
   });

@@ -1,20 +1,31 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { FindingCluster, PartDesignDetail, PartDesignInput, PartDesignSummary, Revision, RevisionInput } from '@/db/contracts';
-import { api, apiRequest, qs } from '../api-client';
+import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { FindingCluster, Page, PartDesignDetail, PartDesignInput, PartDesignSummary, Revision, RevisionInput } from '@/db/contracts';
+import { api, apiRequest } from '../api-client';
+import { readPages } from './kits';
+import { pageParams, pagePath } from './paged';
 
 export const designKeys = {
   all: ['designs'] as const,
   lists: () => [...designKeys.all, 'list'] as const,
   list: (kitModelId?: string) => [...designKeys.lists(), { kitModelId: kitModelId ?? null }] as const,
+  /** One kit's designs at once, for choosing a part in a form (under lists: whatever refreshes lists refreshes it). */
+  choices: (kitModelId: string) => [...designKeys.lists(), 'choices', kitModelId] as const,
   details: () => [...designKeys.all, 'detail'] as const,
   detail: (id: string) => [...designKeys.details(), id] as const,
   clusters: (id: string) => [...designKeys.detail(id), 'finding-clusters'] as const,
 };
 
 export const designQueries = {
-  list: (kitModelId?: string) => queryOptions({
+  /** The part designs (of one kit, or all), a page at a time by part number. */
+  list: (kitModelId?: string) => infiniteQueryOptions({
     queryKey: designKeys.list(kitModelId),
-    queryFn: ({ signal }) => api.get<PartDesignSummary[]>(`/api/designs${qs({ kitModelId })}`, signal),
+    queryFn: ({ signal, pageParam }) => api.get<Page<PartDesignSummary>>(pagePath('/api/designs', pageParam, { kitModelId }), signal),
+    ...pageParams,
+  }),
+  /** One kit's part designs as one array, read page after page within the chooser's bound (hooks/queries/kits.ts). */
+  choices: (kitModelId: string) => queryOptions({
+    queryKey: designKeys.choices(kitModelId),
+    queryFn: ({ signal }) => readPages<PartDesignSummary>('/api/designs', { kitModelId }, signal),
   }),
   detail: (id: string) => queryOptions({
     queryKey: designKeys.detail(id),
@@ -22,8 +33,14 @@ export const designQueries = {
   }),
 };
 
-export function useDesignsQuery(kitModelId?: string) {
-  return useQuery(designQueries.list(kitModelId));
+/** The catalogue's list, paged: pagedItems(data) and <LoadMore/> show it. */
+export function useDesignPagesQuery(kitModelId?: string) {
+  return useInfiniteQuery(designQueries.list(kitModelId));
+}
+
+/** One kit's part designs (within the chooser's bound) as one array, for choosing a part. */
+export function useDesignsQuery(kitModelId: string) {
+  return useQuery({ ...designQueries.choices(kitModelId), enabled: !!kitModelId });
 }
 
 export function useDesignFindingClustersQuery(id: string) {

@@ -1,10 +1,11 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient, type InfiniteData } from '@tanstack/react-query';
 import type {
-  AcceptInvitationInput, InvitationView, InviteInput, OrganizationInput, OrganizationSummary, PendingInvitation, PersonSummary,
+  AcceptInvitationInput, InvitationView, InviteInput, OrganizationInput, OrganizationSummary, Page, PendingInvitation, PersonSummary,
   PersonUpdateInput, SignInResult,
 } from '@/db/contracts';
 import { api, apiRequest } from '../api-client';
 import { useSession } from '../use-session';
+import { pageParams, pagePath } from './paged';
 
 /** Organisations, people and their invitations, as the admin and a supplier's lead engineer manage them. */
 export const peopleKeys = {
@@ -21,14 +22,23 @@ export const invitationKeys = {
 };
 
 export const peopleQueries = {
-  list: () => queryOptions({ queryKey: peopleKeys.list(), queryFn: ({ signal }) => api.get<PersonSummary[]>('/api/people', signal) }),
-  invitations: () => queryOptions({
-    queryKey: peopleKeys.invitations(),
-    queryFn: ({ signal }) => api.get<PendingInvitation[]>('/api/people/invitations', signal),
+  /** People by name, a page at a time. */
+  list: () => infiniteQueryOptions({
+    queryKey: peopleKeys.list(),
+    queryFn: ({ signal, pageParam }) => api.get<Page<PersonSummary>>(pagePath('/api/people', pageParam), signal),
+    ...pageParams,
   }),
-  organizations: () => queryOptions({
+  /** Invitations not yet taken up, oldest first, a page at a time. */
+  invitations: () => infiniteQueryOptions({
+    queryKey: peopleKeys.invitations(),
+    queryFn: ({ signal, pageParam }) => api.get<Page<PendingInvitation>>(pagePath('/api/people/invitations', pageParam), signal),
+    ...pageParams,
+  }),
+  /** Organisations by name, a page at a time. */
+  organizations: () => infiniteQueryOptions({
     queryKey: peopleKeys.organizations(),
-    queryFn: ({ signal }) => api.get<OrganizationSummary[]>('/api/people/organizations', signal),
+    queryFn: ({ signal, pageParam }) => api.get<Page<OrganizationSummary>>(pagePath('/api/people/organizations', pageParam), signal),
+    ...pageParams,
   }),
   invitation: (token: string) => queryOptions({
     queryKey: invitationKeys.detail(token),
@@ -40,15 +50,15 @@ export const peopleQueries = {
 };
 
 export function usePeopleQuery() {
-  return useQuery(peopleQueries.list());
+  return useInfiniteQuery(peopleQueries.list());
 }
 
 export function usePeopleInvitationsQuery() {
-  return useQuery(peopleQueries.invitations());
+  return useInfiniteQuery(peopleQueries.invitations());
 }
 
 export function usePeopleOrganizationsQuery(enabled = true) {
-  return useQuery({ ...peopleQueries.organizations(), enabled });
+  return useInfiniteQuery({ ...peopleQueries.organizations(), enabled });
 }
 
 export function useInvitationQuery(token: string) {
@@ -78,7 +88,8 @@ export function usePeopleUpdateMutation() {
     mutationFn: ({ id, change }: { id: string; change: PersonUpdateInput }) =>
       api.patch<PersonSummary>(`/api/people/${encodeURIComponent(id)}`, change),
     onSuccess: (person) => {
-      qc.setQueryData<PersonSummary[]>(peopleKeys.list(), (list) => list?.map((p) => (p.id === person.id ? person : p)));
+      qc.setQueryData<InfiniteData<Page<PersonSummary>>>(peopleKeys.list(), (list) => (list
+        ? { ...list, pages: list.pages.map((pg) => ({ ...pg, items: pg.items.map((p) => (p.id === person.id ? person : p)) })) } : list));
       // Organisation head counts and anything else derived from people.
       return qc.invalidateQueries({ queryKey: peopleKeys.all });
     },

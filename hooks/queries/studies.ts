@@ -1,7 +1,8 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { ApplyStudyInput, Revision, StudyCandidate, StudyDetail, StudyInput, StudySummary, WingStudyInput } from '@/db/contracts';
+import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { ApplyStudyInput, Page, Revision, StudyCandidate, StudyDetail, StudyInput, StudySummary, WingStudyInput } from '@/db/contracts';
 import { api, apiRequest, qs } from '../api-client';
 import { designKeys } from './designs';
+import { pageParams, pagePath } from './paged';
 
 export const studyKeys = {
   all: ['studies'] as const,
@@ -19,9 +20,11 @@ export const studyKeys = {
 export type StudyBodyInput = StudyInput | WingStudyInput;
 
 export const studyQueries = {
-  list: () => queryOptions({
+  /** The organisation's studies, a page at a time (last changed first). */
+  list: () => infiniteQueryOptions({
     queryKey: studyKeys.lists(),
-    queryFn: ({ signal }) => api.get<StudySummary[]>('/api/studies', signal),
+    queryFn: ({ signal, pageParam }) => api.get<Page<StudySummary>>(pagePath('/api/studies', pageParam), signal),
+    ...pageParams,
   }),
   detail: (id: string, revision?: number) => queryOptions({
     queryKey: studyKeys.detail(id, revision),
@@ -38,7 +41,7 @@ export const studyQueries = {
 };
 
 export function useStudiesQuery() {
-  return useQuery(studyQueries.list());
+  return useInfiniteQuery(studyQueries.list());
 }
 
 /** The candidate's holes when the stored result has only its zones; off while `key` is null. */

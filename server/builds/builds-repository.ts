@@ -1,40 +1,51 @@
-import { and, asc, count, desc, eq, inArray, isNotNull, isNull, ne, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, inArray, isNotNull, isNull, ne, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
 import { buildEvents, buildMembers, builds, findings, holes, invitations, kitModels, organizations, travelerEvents, travelerSteps, travelers, users } from '../../db/schema';
-import { holesDoneStatuses, openFindingStatuses, type BuildWork, type MemberPlace } from '../../db/contracts';
+import { holesDoneStatuses, openFindingStatuses, type BuildSummary, type BuildWork, type MemberPlace, type Page, type PageQuery } from '../../db/contracts';
+import { afterKey, decodeCursor, pageOf } from '../pagination';
 import { visibleBuilds } from './build-access';
 
-export async function listVisibleBuilds(db: Db, user: Express.User, onlyId?: string) {
-  const where = onlyId ? and(visibleBuilds(db, user), eq(builds.id, onlyId)) : visibleBuilds(db, user);
-  const rows = await db.select({
+const person = (role: 'builder' | 'inspector') => sql<{ id: string; name: string; email: string }[]>`coalesce((
+  select json_agg(json_build_object('id', ${users.id}, 'name', ${users.name}, 'email', ${users.email}) order by ${users.name}, ${users.id})
+  from ${buildMembers} join ${users} on ${users.id} = ${buildMembers.userId}
+  where ${buildMembers.buildId} = ${builds.id} and ${buildMembers.role} = ${role}), '[]'::json)`;
+const ofBuild = (from: SQL, extra?: SQL) =>
+  sql<number>`(select count(*) from ${from} where ${travelers.buildId} = ${builds.id}${extra ? sql` and ${extra}` : sql``})`.mapWith(Number);
+const holesOfBuild = sql`${holes} join ${travelers} on ${travelers.id} = ${holes.travelerId}`;
+const findingsOfBuild = sql`${findings} join ${travelers} on ${travelers.id} = ${findings.travelerId}`;
+
+/**
+ * Builds as the list shows them, their people and counts worked out by PostgreSQL in the same query (one
+ * correlated subquery each, answered from the build's own rows), newest first and then by id.
+ */
+function buildSummaries(db: Db, where: SQL | undefined, limit: number) {
+  return db.select({
     id: builds.id, kitSerial: builds.kitSerial, kitName: kitModels.name, supplierName: organizations.name,
-    organizationId: builds.organizationId, createdAt: builds.createdAt,
+    createdAt: sql<string>`${builds.createdAt}::text`,
+    builders: person('builder'), inspectors: person('inspector'),
+    travelerCount: ofBuild(sql`${travelers}`),
+    holesTotal: ofBuild(holesOfBuild),
+    holesDone: ofBuild(holesOfBuild, inArray(holes.status, [...holesDoneStatuses])),
+    openFindings: ofBuild(findingsOfBuild, inArray(findings.status, [...openFindingStatuses])),
   }).from(builds).innerJoin(kitModels, eq(kitModels.id, builds.kitModelId)).innerJoin(organizations, eq(organizations.id, builds.organizationId))
-    .where(where).orderBy(desc(builds.createdAt));
-  if (rows.length === 0) return [];
-  const ids = rows.map((r) => r.id);
-  const [members, travelerCounts, holeCounts, openFindings] = await Promise.all([
-    db.select({ buildId: buildMembers.buildId, role: buildMembers.role, id: users.id, name: users.name, email: users.email })
-      .from(buildMembers).innerJoin(users, eq(users.id, buildMembers.userId)).where(inArray(buildMembers.buildId, ids)).orderBy(asc(users.name)),
-    db.select({ buildId: travelers.buildId, n: count() }).from(travelers).where(inArray(travelers.buildId, ids)).groupBy(travelers.buildId),
-    db.select({
-      buildId: travelers.buildId, total: count(),
-      done: sql<number>`count(*) filter (where ${inArray(holes.status, [...holesDoneStatuses])})`.mapWith(Number),
-    }).from(holes).innerJoin(travelers, eq(travelers.id, holes.travelerId)).where(inArray(travelers.buildId, ids)).groupBy(travelers.buildId),
-    db.select({ buildId: travelers.buildId, n: count() }).from(findings).innerJoin(travelers, eq(travelers.id, findings.travelerId))
-      .where(and(inArray(travelers.buildId, ids), inArray(findings.status, [...openFindingStatuses]))).groupBy(travelers.buildId),
-  ]);
-  const person = ({ id, name, email }: { id: string; name: string; email: string }) => ({ id, name, email });
-  return rows.map(({ organizationId: _, ...b }) => ({
-    ...b,
-    createdAt: b.createdAt.toISOString(),
-    builders: members.filter((m) => m.buildId === b.id && m.role === 'builder').map(person),
-    inspectors: members.filter((m) => m.buildId === b.id && m.role === 'inspector').map(person),
-    travelerCount: travelerCounts.find((c) => c.buildId === b.id)?.n ?? 0,
-    holesTotal: holeCounts.find((c) => c.buildId === b.id)?.total ?? 0,
-    holesDone: holeCounts.find((c) => c.buildId === b.id)?.done ?? 0,
-    openFindings: openFindings.find((c) => c.buildId === b.id)?.n ?? 0,
-  }));
+    .where(where).orderBy(desc(builds.createdAt), desc(builds.id)).limit(limit);
+}
+
+type SummaryRow = Awaited<ReturnType<typeof buildSummaries>>[number];
+/** The key is the column's own text (microseconds); the answer carries the ISO time every other date has. */
+const serialise = (b: SummaryRow): BuildSummary => ({ ...b, createdAt: new Date(b.createdAt).toISOString() });
+
+/** One build as the list shows it, when the reader may see it. */
+export async function listVisibleBuilds(db: Db, user: Express.User, onlyId: string): Promise<BuildSummary[]> {
+  return (await buildSummaries(db, and(visibleBuilds(db, user), eq(builds.id, onlyId)), 1)).map(serialise);
+}
+
+/** One page of the builds the reader may see, newest first (ties by id). */
+export async function pageVisibleBuilds(db: Db, user: Express.User, q: PageQuery): Promise<Page<BuildSummary>> {
+  const key = decodeCursor(q.cursor, ['string', 'string']);
+  const rows = await buildSummaries(db, and(visibleBuilds(db, user), afterKey([builds.createdAt, builds.id], key, 'desc')), q.limit + 1);
+  const page = pageOf(rows, q.limit, (b) => [b.createdAt, b.id]);
+  return { items: page.items.map(serialise), next: page.next };
 }
 
 /** The people of one build with their places, oldest first. */

@@ -1,9 +1,9 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { addMemberInput, buildChangeInput, buildInput, handOverInput, idParam } from '../../db/contracts';
+import { addMemberInput, buildChangeInput, buildInput, handOverInput, idParam, pageQuery } from '../../db/contracts';
 import type { AppContext } from '../context';
 import { requireRole } from '../middleware/require-role';
-import { validateBody } from '../middleware/validate';
+import { validateBody, validateQuery } from '../middleware/validate';
 import { buildsService } from './builds-service';
 
 const memberParams = z.object({ id: z.uuid({ message: 'must be an id' }), userId: z.uuid({ message: 'must be an id' }) });
@@ -11,7 +11,7 @@ const memberParams = z.object({ id: z.uuid({ message: 'must be an id' }), userId
 export function buildsRouter(ctx: AppContext): Router {
   const r = Router();
   const builds = buildsService(ctx);
-  r.get('/', async (req, res) => { res.json(await builds.list(req.user!)); });
+  r.get('/', validateQuery(pageQuery), async (req, res) => { res.json(await builds.list(req.user!, res.locals.query)); });
   r.post('/', requireRole('supplier'), validateBody(buildInput), async (req, res) => { res.status(201).json(await builds.create(req.user!, req.body)); });
   r.get('/:id', async (req, res) => { res.json(await builds.detail(req.user!, idParam.parse(req.params).id)); });
   r.patch('/:id', validateBody(buildChangeInput), async (req, res) => { res.json(await builds.update(req.user!, idParam.parse(req.params).id, req.body)); });

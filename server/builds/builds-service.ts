@@ -2,7 +2,7 @@ import { and, eq, inArray } from 'drizzle-orm';
 import {
   allowedBuildActions, allowedBuildPeopleActions, buildWorkRefusal, checkBuildAction, memberRoleOfPlace, removalRefusal, singlePlaces,
   type BuildAction, type BuildChangeInput,
-  type BuildPeople, type BuildPeopleAction, type BuildSummary, type MemberPlace,
+  type BuildPeople, type BuildPeopleAction, type BuildSummary, type MemberPlace, type PageQuery,
 } from '../../db/contracts';
 import { withTransaction, type Db, type Tx } from '../../db';
 import { builds, designRevisions, partDesigns, travelers } from '../../db/schema';
@@ -13,7 +13,7 @@ import { badRequest, conflict, forbidden, notFound } from '../http-error';
 import { kitsService } from '../kits/kits-service';
 import { insertTraveler, listTravelers } from '../travelers/travelers-repository';
 import {
-  buildWork, deleteBuild, findBuildRow, insertBuildEvent, kitSerialTaken, listBuildMembers, listVisibleBuilds, lockBuild,
+  buildWork, deleteBuild, findBuildRow, insertBuildEvent, kitSerialTaken, listBuildMembers, listVisibleBuilds, lockBuild, pageVisibleBuilds,
   removeBuildMember, renameBuildSerial, setBuildNote, setMemberPlace,
 } from './builds-repository';
 
@@ -87,7 +87,7 @@ export const buildsService = (ctx: Deps) => {
   }
 
   return {
-    list: (user: Express.User) => listVisibleBuilds(db, user),
+    list: (user: Express.User, q: PageQuery) => pageVisibleBuilds(db, user, q),
 
     async detail(user: Express.User, id: string) {
       const build = await summary(user, id);

@@ -1,4 +1,6 @@
-import { and, asc, eq, inArray, isNotNull, isNull } from 'drizzle-orm';
+import { and, asc, eq, inArray, isNotNull, isNull, sql, type SQL } from 'drizzle-orm';
+import { COUPON_GAUGE_TOLERANCE_IN, type Page, type PageQuery } from '../../db/contracts';
+import { afterKey, decodeCursor, pageOf } from '../pagination';
 import { alias } from 'drizzle-orm/pg-core';
 import type { Db } from '../../db';
 import type { CouponTest as EngineCouponTest } from '../engineering';
@@ -11,16 +13,43 @@ const corrector = alias(couponTests, 'corrector');
 const correctorUser = alias(users, 'corrector_user');
 
 /**
- * The supplier's record of tests, corrected entries included (with who corrected them, when and why):
- * `current` leaves those out, as everything that derives allowables must.
+ * The published revisions (of the test's organisation, made from a study) that a test may stand behind:
+ * any entry of its record (it and, step by step, the entries it corrected) of the same rivet at the same
+ * gauge or thicker, on record before the revision was published. The rule is couponBacks' (db/contracts/coupons.ts),
+ * answered by PostgreSQL for each row of the page.
  */
-export const listCoupons = (db: Db, organizationId: string, filter: { material?: string; rivetSpec?: string; current?: boolean } = {}) =>
-  db.select({
+const backsOf = sql<string[]>`coalesce((
+  with recursive chain as (
+    select e.id, e.rivet_spec, e.gauge_in, e.created_at from coupon_tests e where e.id = ${couponTests.id}
+    union all
+    select e.id, e.rivet_spec, e.gauge_in, e.created_at from coupon_tests e join chain c on e.superseded_by_id = c.id
+  )
+  select array_agg(p.part_number || ' revision ' || r.letter order by p.part_number, r.letter)
+  from design_revisions r join part_designs p on p.id = r.part_design_id join kit_models k on k.id = p.kit_model_id
+  where k.organization_id = ${couponTests.organizationId} and r.status in ('published', 'superseded')
+    and r.published_at is not null and r.study_id is not null
+    and exists (select 1 from chain e where upper(btrim(e.rivet_spec)) = upper(btrim(r.rivet_spec))
+      and e.gauge_in::numeric >= r.gauge_in::numeric - ${COUPON_GAUGE_TOLERANCE_IN} and e.created_at <= r.published_at)
+), '{}')`;
+
+/** The order of the record: material, gauge, rivet, load, then when it was recorded and its id. */
+const order = [couponTests.material, couponTests.gaugeIn, couponTests.rivetSpec, couponTests.loadLb, couponTests.createdAt, couponTests.id] as const;
+const keyShape = ['string', 'number', 'string', 'number', 'string', 'string'] as const;
+
+export type CouponFilter = { material?: string; rivetSpec?: string; current?: boolean; id?: string };
+
+/**
+ * The supplier's record of tests, corrected entries included (with who corrected them, when and why), and
+ * what each may back: `current` leaves corrected entries out, as everything that derives allowables must.
+ */
+function couponRows(db: Db, organizationId: string, filter: CouponFilter, after: SQL | undefined, limit: number) {
+  return db.select({
     id: couponTests.id, material: couponTests.material, gaugeIn: couponTests.gaugeIn, couponWidthIn: couponTests.couponWidthIn,
     rivetSpec: couponTests.rivetSpec, loadLb: couponTests.loadLb, outcome: couponTests.outcome, note: couponTests.note,
-    testedOn: couponTests.testedOn, createdAt: couponTests.createdAt, createdByName: users.name,
+    testedOn: couponTests.testedOn, createdAt: sql<string>`${couponTests.createdAt}::text`, createdByName: users.name,
     correctionReason: couponTests.correctionReason, supersededById: couponTests.supersededById,
     correctedAt: couponTests.supersededAt, correctedReason: corrector.correctionReason, correctedByName: correctorUser.name,
+    backs: sql<string[]>`case when ${couponTests.supersededById} is null then ${backsOf} else '{}' end`,
   }).from(couponTests).innerJoin(users, eq(users.id, couponTests.createdBy))
     .leftJoin(corrector, eq(corrector.id, couponTests.supersededById))
     .leftJoin(correctorUser, eq(correctorUser.id, corrector.createdBy))
@@ -29,8 +58,23 @@ export const listCoupons = (db: Db, organizationId: string, filter: { material?:
       filter.material ? eq(couponTests.material, filter.material) : undefined,
       filter.rivetSpec ? eq(couponTests.rivetSpec, filter.rivetSpec) : undefined,
       filter.current ? isNull(couponTests.supersededById) : undefined,
+      filter.id ? eq(couponTests.id, filter.id) : undefined,
+      after,
     ))
-    .orderBy(asc(couponTests.material), asc(couponTests.gaugeIn), asc(couponTests.rivetSpec), asc(couponTests.loadLb), asc(couponTests.createdAt));
+    .orderBy(...order.map((c) => asc(c))).limit(limit);
+}
+export type CouponRow = Awaited<ReturnType<typeof couponRows>>[number];
+
+/** One page of the record. */
+export async function pageCoupons(db: Db, organizationId: string, q: PageQuery & CouponFilter): Promise<Page<CouponRow>> {
+  const key = decodeCursor(q.cursor, keyShape);
+  const rows = await couponRows(db, organizationId, q, afterKey(order, key, 'asc'), q.limit + 1);
+  return pageOf(rows, q.limit, (c) => [c.material, c.gaugeIn, c.rivetSpec, c.loadLb, c.createdAt, c.id]);
+}
+
+/** Rows of the record without a page, read up to `max` (one more says the record is longer). */
+export const couponRowsUpTo = (db: Db, organizationId: string, filter: CouponFilter, max: number) =>
+  couponRows(db, organizationId, filter, undefined, max + 1);
 
 export async function insertCoupon(db: Conn, values: typeof couponTests.$inferInsert) {
   const [row] = await db.insert(couponTests).values(values).returning({ id: couponTests.id });
@@ -82,6 +126,10 @@ export const listPublishedRevisions = (db: Conn, organizationId: string) =>
 
 /** A supplier's current tests of one material in the engine's shape: what studies and rework checks allow from. Corrected entries are left out. */
 export async function couponsForEngine(db: Db, organizationId: string, material: string): Promise<EngineCouponTest[]> {
-  const rows = await listCoupons(db, organizationId, { material, current: true });
-  return rows.map(({ material: m, gaugeIn, couponWidthIn, rivetSpec, loadLb, outcome, note }) => ({ material: m, gaugeIn, couponWidthIn, rivetSpec, loadLb, outcome, note }));
+  return db.select({
+    material: couponTests.material, gaugeIn: couponTests.gaugeIn, couponWidthIn: couponTests.couponWidthIn, rivetSpec: couponTests.rivetSpec,
+    loadLb: couponTests.loadLb, outcome: couponTests.outcome, note: couponTests.note,
+  }).from(couponTests)
+    .where(and(eq(couponTests.organizationId, organizationId), eq(couponTests.material, material), isNull(couponTests.supersededById)))
+    .orderBy(...order.map((c) => asc(c)));
 }

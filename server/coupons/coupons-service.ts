@@ -1,18 +1,25 @@
 import {
   allowedCouponActions, couponBacks, couponCorrectRefusal, couponDeleteRefusal,
-  type CouponAllowance, type CouponTest,
+  type CouponAllowance, type CouponTest, type Page, type PageQuery,
 } from '../../db/contracts';
 import { groupCouponAllowables } from '../engineering';
 import type { Db } from '../../db';
 import { organizationOf } from '../auth/organization';
-import { conflict, notFound } from '../http-error';
+import { conflict, HttpError, notFound } from '../http-error';
 import {
-  correctionChain, deleteCoupons, findCouponOrganization, insertCoupon, listCoupons, listPublishedRevisions, lockCoupon, markSuperseded,
+  correctionChain, couponRowsUpTo, deleteCoupons, findCouponOrganization, insertCoupon, listPublishedRevisions, lockCoupon, markSuperseded, pageCoupons,
+  type CouponRow,
 } from './coupons-repository';
 
 type CouponBody = Omit<CouponTest, 'id' | 'createdAt' | 'createdByName' | 'correctionReason' | 'correctedBy' | 'backs' | 'allowedActions'>;
 type Entry = { rivetSpec: string; gaugeIn: number; createdAt: Date };
 type PublishedRevision = Awaited<ReturnType<typeof listPublishedRevisions>>[number];
+
+/**
+ * Current tests the allowables are worked out from, at most: far above any supplier's record, and a
+ * bound on what one request reads and groups.
+ */
+export const ALLOWABLES_MAX_TESTS = 5000;
 
 /** The published revisions any entry of a test's record (the current one and those it corrected) may back. */
 function backedBy(entries: Entry[], revisions: PublishedRevision[]): string[] {
@@ -21,25 +28,24 @@ function backedBy(entries: Entry[], revisions: PublishedRevision[]): string[] {
     .map((r) => `${r.partNumber} revision ${r.letter}`);
 }
 
-export const couponsService = (db: Db) => {
-  const list = async (user: Express.User, filter: { material?: string; rivetSpec?: string } = {}): Promise<CouponTest[]> => {
-    const organizationId = organizationOf(user);
-    const [rows, revisions] = await Promise.all([listCoupons(db, organizationId, filter), listPublishedRevisions(db, organizationId)]);
-    // Each corrected entry under the id of the entry that corrected it.
-    const corrects = new Map(rows.filter((r) => r.supersededById).map((r) => [r.supersededById!, r]));
-    return rows.map(({ supersededById, correctedAt, correctedReason, correctedByName, ...c }) => {
-      // The record of one test: this entry and the ones it corrected, each one step back (bounded by the rows read).
-      const entries: Entry[] = [c];
-      for (let e = corrects.get(c.id); e && entries.length <= rows.length; e = corrects.get(e.id)) entries.push(e);
-      const superseded = supersededById !== null;
-      const backs = superseded ? [] : backedBy(entries, revisions);
-      return {
-        ...c, createdAt: c.createdAt.toISOString(), backs,
-        correctedBy: superseded ? { id: supersededById, byName: correctedByName ?? '', at: correctedAt!.toISOString(), reason: correctedReason ?? '' } : null,
-        allowedActions: allowedCouponActions({ superseded, backs }),
-      };
-    });
+/** A row of the record as the API answers it: what corrected it, and what the reader may do with it. */
+function serialise({ supersededById, correctedAt, correctedReason, correctedByName, backs, ...c }: CouponRow): CouponTest {
+  const superseded = supersededById !== null;
+  return {
+    ...c, createdAt: new Date(c.createdAt).toISOString(), backs,
+    correctedBy: superseded ? { id: supersededById, byName: correctedByName ?? '', at: correctedAt!.toISOString(), reason: correctedReason ?? '' } : null,
+    allowedActions: allowedCouponActions({ superseded, backs }),
   };
+}
+
+export const couponsService = (db: Db) => {
+  const list = async (user: Express.User, q: PageQuery & { material?: string; rivetSpec?: string }): Promise<Page<CouponTest>> => {
+    const page = await pageCoupons(db, organizationOf(user), q);
+    return { items: page.items.map(serialise), next: page.next };
+  };
+
+  /** One entry as the list shows it. */
+  const one = async (user: Express.User, id: string) => serialise((await couponRowsUpTo(db, organizationOf(user), { id }, 1))[0]);
 
   /** The test, of the reader's organisation (another's is not revealed). */
   async function own(user: Express.User, id: string) {
@@ -52,11 +58,15 @@ export const couponsService = (db: Db) => {
     list,
     /** The allowables exactly as a study will derive them (current entries only), grouped for the coupon table. */
     async allowables(user: Express.User): Promise<CouponAllowance[]> {
-      return groupCouponAllowables((await list(user)).filter((c) => c.correctedBy === null));
+      const rows = await couponRowsUpTo(db, organizationOf(user), { current: true }, ALLOWABLES_MAX_TESTS);
+      if (rows.length > ALLOWABLES_MAX_TESTS) {
+        throw new HttpError(413, 'too_large', `the allowables are worked out from at most ${ALLOWABLES_MAX_TESTS} current tests: this record holds more`);
+      }
+      return groupCouponAllowables(rows.map(serialise));
     },
     async create(user: Express.User, body: CouponBody) {
       const id = await insertCoupon(db, { ...body, organizationId: organizationOf(user), createdBy: user.id });
-      return (await list(user)).find((c) => c.id === id)!;
+      return one(user, id);
     },
 
     /**
@@ -74,7 +84,7 @@ export const couponsService = (db: Db) => {
         await markSuperseded(tx, id, made);
         return made;
       });
-      return (await list(user)).find((c) => c.id === newId)!;
+      return one(user, newId);
     },
 
     /** Deletes a test (its corrected entries with it) that no published revision may rest on; otherwise 409 naming them. */

@@ -1,4 +1,6 @@
-import { and, asc, desc, eq, inArray } from 'drizzle-orm';
+import { and, asc, desc, eq, sql } from 'drizzle-orm';
+import type { Page, PageQuery, PartDesignSummary } from '../../db/contracts';
+import { afterKey, decodeCursor, pageOf } from '../pagination';
 import type { Db } from '../../db';
 import { designRevisions, findings, kitModels, partDesigns, travelers, users } from '../../db/schema';
 
@@ -11,18 +13,29 @@ export const revisionColumns = {
   publishedAt: designRevisions.publishedAt, publishedByName: users.name,
 };
 
-export async function listDesigns(db: Db, organizationId: string, kitModelId?: string) {
-  const where = kitModelId
-    ? and(eq(kitModels.organizationId, organizationId), eq(partDesigns.kitModelId, kitModelId))
-    : eq(kitModels.organizationId, organizationId);
-  const designs = await db.select({
-    id: partDesigns.id, kitModelId: partDesigns.kitModelId, kitName: kitModels.name, organizationId: kitModels.organizationId,
+/**
+ * One page of the organisation's part designs (of one kit, or all), by part number then id. Each row's
+ * latest revision and its published letter come from PostgreSQL in the same query.
+ */
+export async function pageDesigns(db: Db, organizationId: string, q: PageQuery & { kitModelId?: string }): Promise<Page<PartDesignSummary>> {
+  const key = decodeCursor(q.cursor, ['string', 'string']);
+  const rows = await db.select({
+    id: partDesigns.id, kitModelId: partDesigns.kitModelId, kitName: kitModels.name,
     partNumber: partDesigns.partNumber, name: partDesigns.name, kind: partDesigns.kind,
-  }).from(partDesigns).innerJoin(kitModels, eq(kitModels.id, partDesigns.kitModelId)).where(where).orderBy(asc(partDesigns.partNumber));
-  const revisions = designs.length === 0 ? [] : await db.select({
-    id: designRevisions.id, partDesignId: designRevisions.partDesignId, letter: designRevisions.letter, status: designRevisions.status,
-  }).from(designRevisions).where(inArray(designRevisions.partDesignId, designs.map((d) => d.id))).orderBy(desc(designRevisions.createdAt));
-  return { designs, revisions };
+    latest: sql<PartDesignSummary['latest']>`(select json_build_object('id', ${designRevisions.id}, 'letter', ${designRevisions.letter}, 'status', ${designRevisions.status})
+      from ${designRevisions} where ${designRevisions.partDesignId} = ${partDesigns.id}
+      order by ${designRevisions.createdAt} desc, ${designRevisions.id} desc limit 1)`,
+    publishedLetter: sql<string | null>`(select ${designRevisions.letter} from ${designRevisions}
+      where ${designRevisions.partDesignId} = ${partDesigns.id} and ${designRevisions.status} = 'published'
+      order by ${designRevisions.createdAt} desc limit 1)`,
+  }).from(partDesigns).innerJoin(kitModels, eq(kitModels.id, partDesigns.kitModelId))
+    .where(and(
+      eq(kitModels.organizationId, organizationId),
+      q.kitModelId ? eq(partDesigns.kitModelId, q.kitModelId) : undefined,
+      afterKey([partDesigns.partNumber, partDesigns.id], key, 'asc'),
+    ))
+    .orderBy(asc(partDesigns.partNumber), asc(partDesigns.id)).limit(q.limit + 1);
+  return pageOf(rows, q.limit, (d) => [d.partNumber, d.id]);
 }
 
 export async function findDesign(db: Db, id: string) {

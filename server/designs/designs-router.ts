@@ -1,19 +1,19 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { idParam, partDesignInput, publishInput, revisionInput } from '../../db/contracts';
+import { idParam, pageQuery, partDesignInput, publishInput, revisionInput } from '../../db/contracts';
 import type { AppContext } from '../context';
 import { requireRole } from '../middleware/require-role';
 import { validateBody, validateQuery } from '../middleware/validate';
 import { designsService } from './designs-service';
 
-const listQuery = z.object({ kitModelId: z.uuid({ message: 'kitModelId must be an id' }).optional() });
+const listQuery = pageQuery.extend({ kitModelId: z.uuid({ message: 'kitModelId must be an id' }).optional() });
 const createBody = z.object({ design: partDesignInput, revision: revisionInput });
 
 export function designsRouter(ctx: AppContext): Router {
   const r = Router();
   const designs = designsService(ctx.db);
   r.use(requireRole('supplier'));
-  r.get('/', validateQuery(listQuery), async (req, res) => { res.json(await designs.list(req.user!, res.locals.query.kitModelId)); });
+  r.get('/', validateQuery(listQuery), async (req, res) => { res.json(await designs.list(req.user!, res.locals.query)); });
   r.post('/', validateBody(createBody), async (req, res) => { res.status(201).json(await designs.create(req.user!, req.body)); });
   r.get('/:id', async (req, res) => { res.json(await designs.detail(req.user!, idParam.parse(req.params).id)); });
   r.get('/:id/finding-clusters', async (req, res) => { res.json(await designs.findingClusters(req.user!, idParam.parse(req.params).id)); });

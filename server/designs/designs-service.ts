@@ -1,11 +1,11 @@
 import { and, eq } from 'drizzle-orm';
-import { allowedRevisionActions, revisionActionRefusal, type FindingCluster, type PartDesignDetail, type PartDesignInput, type PartDesignSummary, type Revision, type RevisionInput } from '../../db/contracts';
+import { allowedRevisionActions, revisionActionRefusal, type FindingCluster, type PartDesignDetail, type Page, type PageQuery, type PartDesignInput, type PartDesignSummary, type Revision, type RevisionInput } from '../../db/contracts';
 import type { Db } from '../../db';
 import { designRevisions, partDesigns } from '../../db/schema';
 import { badRequest, conflict, notFound } from '../http-error';
 import { checkLayout } from './layout-check';
 import { kitsService } from '../kits/kits-service';
-import { findDesign, findRevision, listDesignFindingHoles, listDesigns, listRevisions } from './designs-repository';
+import { findDesign, findRevision, listDesignFindingHoles, listRevisions, pageDesigns } from './designs-repository';
 import { nextRevisionLetter } from './revision-letters';
 
 type RevisionBody = Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & { steps: string[]; changeNote: string };
@@ -38,13 +38,9 @@ export const designsService = (db: Db) => {
   const frozen = (letter: string, status: 'published' | 'superseded') => conflict(revisionActionRefusal({ letter, status })!);
 
   return {
-    async list(user: Express.User, kitModelId?: string): Promise<PartDesignSummary[]> {
-      if (!user.organizationId) return [];
-      const { designs, revisions } = await listDesigns(db, user.organizationId, kitModelId);
-      return designs.map(({ organizationId: _, ...d }) => {
-        const mine = revisions.filter((r) => r.partDesignId === d.id);
-        return { ...d, latest: mine[0] ?? null, publishedLetter: mine.find((r) => r.status === 'published')?.letter ?? null };
-      });
+    async list(user: Express.User, q: PageQuery & { kitModelId?: string }): Promise<Page<PartDesignSummary>> {
+      if (!user.organizationId) return { items: [], next: null };
+      return pageDesigns(db, user.organizationId, q);
     },
 
     detail,

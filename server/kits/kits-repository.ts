@@ -1,13 +1,27 @@
-import { and, asc, count, countDistinct, desc, eq, inArray } from 'drizzle-orm';
+import { and, asc, count, countDistinct, desc, eq, inArray, ne } from 'drizzle-orm';
 import type { Db } from '../../db';
-import type { KitReliance } from '../../db/contracts';
+import type { KitReliance, Page, PageQuery } from '../../db/contracts';
+import { afterKey, decodeCursor, pageOf } from '../pagination';
 import { builds, designRevisions, kitModelChanges, kitModels, loadStudies, partDesigns, users } from '../../db/schema';
 
 /** A client or a transaction of it: the guards of a write read inside the transaction that writes. */
 type Conn = Db | Parameters<Parameters<Db['transaction']>[0]>[0];
 
-export const listKits = (db: Db, organizationId: string) =>
-  db.select().from(kitModels).where(eq(kitModels.organizationId, organizationId)).orderBy(asc(kitModels.code));
+/** One page of the organisation's kit models by code (then id; a code is the organisation's own, so ties do not occur). */
+export async function pageKits(db: Db, organizationId: string, q: PageQuery): Promise<Page<typeof kitModels.$inferSelect>> {
+  const key = decodeCursor(q.cursor, ['string', 'string']);
+  const rows = await db.select().from(kitModels)
+    .where(and(eq(kitModels.organizationId, organizationId), afterKey([kitModels.code, kitModels.id], key, 'asc')))
+    .orderBy(asc(kitModels.code), asc(kitModels.id)).limit(q.limit + 1);
+  return pageOf(rows, q.limit, (k) => [k.code, k.id]);
+}
+
+/** Whether another kit of the organisation has this code (answered from the (organisation, code) index). */
+export async function kitCodeTaken(db: Conn, organizationId: string, code: string, except?: string) {
+  const rows = await db.select({ id: kitModels.id }).from(kitModels)
+    .where(and(eq(kitModels.organizationId, organizationId), eq(kitModels.code, code), except ? ne(kitModels.id, except) : undefined)).limit(1);
+  return rows.length > 0;
+}
 
 export async function findKit(db: Conn, id: string) {
   const [row] = await db.select().from(kitModels).where(eq(kitModels.id, id));

@@ -1,13 +1,13 @@
 import {
   allowedKitActions, kitChangeReasonRefusal, kitDeleteRefusal, kitFieldLabels,
-  type KitChangeInput, type KitModelDetail, type KitModelInput,
+  type KitChangeInput, type KitModelDetail, type KitModelInput, type PageQuery,
 } from '../../db/contracts';
 import type { Db } from '../../db';
 import type { kitModels } from '../../db/schema';
 import { organizationOf } from '../auth/organization';
 import { badRequest, conflict, notFound } from '../http-error';
 import {
-  deleteKit, findKit, insertKit, insertKitChange, kitReliance, listKitChanges, listKits, lockKit, updateKit,
+  deleteKit, findKit, insertKit, insertKitChange, kitCodeTaken, kitReliance, listKitChanges, lockKit, pageKits, updateKit,
 } from './kits-repository';
 
 type KitRow = typeof kitModels.$inferSelect;
@@ -22,12 +22,11 @@ export const kitsService = (db: Db) => {
     return kit;
   }
 
-  const codeClash = async (organizationId: string, code: string, except?: string) =>
-    (await listKits(db, organizationId)).some((k) => k.code === code && k.id !== except);
+  const codeClash = (organizationId: string, code: string, except?: string) => kitCodeTaken(db, organizationId, code, except);
   const clashError = (code: string) => conflict(`kit code ${code} is already used`, { code: 'already used' });
 
   return {
-    list: (user: Express.User) => listKits(db, organizationOf(user)),
+    list: (user: Express.User, q: PageQuery) => pageKits(db, organizationOf(user), q),
 
     get,
 

@@ -1,12 +1,19 @@
-import { and, asc, count, eq, gt, isNull, sql } from 'drizzle-orm';
+import { and, asc, eq, gt, isNull, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
 import { buildMembers, builds, invitations, kitModels, organizations, users } from '../../db/schema';
-import type { MemberPlace, OrganizationKind, Role } from '../../db/contracts';
+import type { MemberPlace, OrganizationKind, PageQuery, Role } from '../../db/contracts';
+import { afterKey, decodeCursor, pageOf } from '../pagination';
 
-export async function listOrganizations(db: Db) {
-  const people = db.select({ organizationId: users.organizationId, n: count().as('n') }).from(users).groupBy(users.organizationId).as('people');
-  return db.select({ id: organizations.id, name: organizations.name, kind: organizations.kind, createdAt: organizations.createdAt, people: sql<number>`coalesce(${people.n}, 0)`.mapWith(Number) })
-    .from(organizations).leftJoin(people, eq(people.organizationId, organizations.id)).orderBy(asc(organizations.name));
+/** One page of the organisations by name (then id), each with its head count counted by PostgreSQL. */
+export async function pageOrganizations(db: Db, q: PageQuery) {
+  const key = decodeCursor(q.cursor, ['string', 'string']);
+  const rows = await db.select({
+    id: organizations.id, name: organizations.name, kind: organizations.kind, createdAt: organizations.createdAt,
+    // Spelled out: a one-table select names its columns bare, which inside the subquery would mean the users'.
+    people: sql<number>`(select count(*) from ${users} u where u.organization_id = "organizations"."id")`.mapWith(Number),
+  }).from(organizations).where(afterKey([organizations.name, organizations.id], key, 'asc'))
+    .orderBy(asc(organizations.name), asc(organizations.id)).limit(q.limit + 1);
+  return pageOf(rows, q.limit, (o) => [o.name, o.id]);
 }
 
 export async function findOrganization(db: Db, id: string) {
@@ -19,17 +26,22 @@ export async function insertOrganization(db: Db, name: string, kind: Organizatio
   return row;
 }
 
-export async function listPeople(db: Db, organizationId?: string) {
-  return db.select({
-    id: users.id, email: users.email, name: users.name, role: users.role, organizationId: users.organizationId,
-    organizationName: organizations.name, active: users.active, lead: users.lead, createdAt: users.createdAt,
-  }).from(users).leftJoin(organizations, eq(organizations.id, users.organizationId))
-    .where(organizationId ? eq(users.organizationId, organizationId) : undefined)
-    .orderBy(asc(users.name));
+const personColumns = {
+  id: users.id, email: users.email, name: users.name, role: users.role, organizationId: users.organizationId,
+  organizationName: organizations.name, active: users.active, lead: users.lead, createdAt: users.createdAt,
+};
+
+/** One page of people (of one organisation, or everyone) by name, then id. */
+export async function pagePeople(db: Db, organizationId: string | undefined, q: PageQuery) {
+  const key = decodeCursor(q.cursor, ['string', 'string']);
+  const rows = await db.select(personColumns).from(users).leftJoin(organizations, eq(organizations.id, users.organizationId))
+    .where(and(organizationId ? eq(users.organizationId, organizationId) : undefined, afterKey([users.name, users.id], key, 'asc')))
+    .orderBy(asc(users.name), asc(users.id)).limit(q.limit + 1);
+  return pageOf(rows, q.limit, (p) => [p.name, p.id]);
 }
 
 export async function findPerson(db: Db, id: string) {
-  const [row] = (await listPeople(db)).filter((p) => p.id === id);
+  const [row] = await db.select(personColumns).from(users).leftJoin(organizations, eq(organizations.id, users.organizationId)).where(eq(users.id, id));
   return row;
 }
 
@@ -64,17 +76,33 @@ export async function takeOpenInvitations(db: Db, email: string) {
     .returning();
 }
 
-export async function listPendingInvitations(db: Db, by: { organizationId?: string; buildId?: string } = {}) {
+type PendingBy = { organizationId?: string; buildId?: string };
+
+/** Invitations not yet taken up and still live, oldest first (then id). */
+function pendingInvitations(db: Db, by: PendingBy, after: SQL | undefined, limit?: number) {
   const c = [isNull(invitations.acceptedAt), gt(invitations.expiresAt, new Date())];
   if (by.organizationId) c.push(eq(invitations.organizationId, by.organizationId));
   if (by.buildId) c.push(eq(invitations.buildId, by.buildId));
-  return db.select({
+  if (after) c.push(after);
+  const q = db.select({
     id: invitations.id, email: invitations.email, name: invitations.name, role: invitations.role, organizationName: organizations.name,
     invitedByName: users.name, expiresAt: invitations.expiresAt, buildKitSerial: builds.kitSerial, place: invitations.place,
+    createdKey: sql<string>`${invitations.createdAt}::text`,
   }).from(invitations).innerJoin(users, eq(users.id, invitations.invitedBy))
     .leftJoin(organizations, eq(organizations.id, invitations.organizationId))
     .leftJoin(builds, eq(builds.id, invitations.buildId))
-    .where(and(...c)).orderBy(asc(invitations.createdAt));
+    .where(and(...c)).orderBy(asc(invitations.createdAt), asc(invitations.id));
+  return limit === undefined ? q : q.limit(limit);
+}
+
+/** The pending invitations of one build (a handful: its places). */
+export const listPendingInvitations = (db: Db, by: { buildId: string }) => pendingInvitations(db, by, undefined);
+
+/** One page of the pending invitations (of one organisation, or all). */
+export async function pagePendingInvitations(db: Db, organizationId: string | undefined, q: PageQuery) {
+  const key = decodeCursor(q.cursor, ['string', 'string']);
+  const rows = await pendingInvitations(db, { organizationId }, afterKey([invitations.createdAt, invitations.id], key, 'asc'), q.limit + 1);
+  return pageOf(rows, q.limit, (i) => [i.createdKey, i.id]);
 }
 
 export async function insertUser(db: Db, values: typeof users.$inferInsert) {

@@ -1,8 +1,8 @@
 import { Router, type RequestHandler } from 'express';
-import { acceptInvitationInput, idParam, inviteInput, organizationInput, personUpdateInput } from '../../db/contracts';
+import { acceptInvitationInput, idParam, inviteInput, organizationInput, pageQuery, personUpdateInput } from '../../db/contracts';
 import { z } from 'zod';
 import type { AppContext } from '../context';
-import { validateBody } from '../middleware/validate';
+import { validateBody, validateQuery } from '../middleware/validate';
 import { peopleService } from './people-service';
 
 const tokenParam = z.object({ token: z.string().regex(/^[A-Za-z0-9_-]{20,100}$/, 'the link is incomplete or damaged: open it again from the mail') });
@@ -11,10 +11,10 @@ const tokenParam = z.object({ token: z.string().regex(/^[A-Za-z0-9_-]{20,100}$/,
 export function peopleRouter(ctx: AppContext, inviteLimits: RequestHandler[] = []): Router {
   const r = Router();
   const s = peopleService(ctx);
-  r.get('/organizations', async (req, res) => { res.json(await s.organizations(req.user!)); });
+  r.get('/organizations', validateQuery(pageQuery), async (req, res) => { res.json(await s.organizations(req.user!, res.locals.query)); });
   r.post('/organizations', validateBody(organizationInput), async (req, res) => { res.status(201).json(await s.createOrganization(req.user!, req.body)); });
-  r.get('/', async (req, res) => { res.json(await s.people(req.user!)); });
-  r.get('/invitations', async (req, res) => { res.json(await s.pending(req.user!)); });
+  r.get('/', validateQuery(pageQuery), async (req, res) => { res.json(await s.people(req.user!, res.locals.query)); });
+  r.get('/invitations', validateQuery(pageQuery), async (req, res) => { res.json(await s.pending(req.user!, res.locals.query)); });
   r.post('/invitations', ...inviteLimits, validateBody(inviteInput), async (req, res) => { res.status(201).json(await s.invite(req.user!, req.body)); });
   r.patch('/:id', validateBody(personUpdateInput), async (req, res) => { res.json(await s.update(req.user!, idParam.parse(req.params).id, req.body)); });
   return r;

@@ -1,7 +1,7 @@
 import {
   allowedPersonActions, memberRoleOfPlace, mayInvite, rolesOfOrganizationKind,
   type AcceptInvitationInput, type InvitationView, type InviteInput, type Manager, type OrganizationInput,
-  type OrganizationSummary, type PendingInvitation, type PersonSummary, type PersonUpdateInput,
+  type OrganizationSummary, type Page, type PageQuery, type PendingInvitation, type PersonSummary, type PersonUpdateInput,
 } from '../../db/contracts';
 import { withTransaction } from '../../db';
 import type { AppContext } from '../context';
@@ -13,8 +13,8 @@ import { insertBuildEvent } from '../builds/builds-repository';
 import { badRequest, conflict, forbidden, HttpError, notFound } from '../http-error';
 import { invite } from './invitations';
 import {
-  addBuildMember, findLiveInvitation, findOrganization, findPerson, findUserByEmail, insertOrganization, insertUser, listOrganizations,
-  listPendingInvitations, listPeople, takeOpenInvitations, updatePerson,
+  addBuildMember, findLiveInvitation, findOrganization, findPerson, findUserByEmail, insertOrganization, insertUser,
+  pageOrganizations, pagePendingInvitations, pagePeople, takeOpenInvitations, updatePerson,
 } from './people-repository';
 
 type Deps = Pick<AppContext, 'db' | 'pool' | 'config' | 'mailQueue'>;
@@ -31,9 +31,10 @@ export const peopleService = (ctx: Deps) => {
   };
 
   return {
-    async organizations(user: Express.User): Promise<OrganizationSummary[]> {
+    async organizations(user: Express.User, q: PageQuery): Promise<Page<OrganizationSummary>> {
       if (user.role !== 'admin') throw forbidden('only an admin manages organisations');
-      return (await listOrganizations(db)).map((o) => ({ ...o, createdAt: o.createdAt.toISOString() }));
+      const page = await pageOrganizations(db, q);
+      return { items: page.items.map((o) => ({ ...o, createdAt: o.createdAt.toISOString() })), next: page.next };
     },
 
     async createOrganization(user: Express.User, input: OrganizationInput & { kind: OrganizationSummary['kind'] }) {
@@ -42,14 +43,14 @@ export const peopleService = (ctx: Deps) => {
       return { ...o, people: 0, createdAt: o.createdAt.toISOString() };
     },
 
-    async people(user: Express.User): Promise<PersonSummary[]> {
-      const orgId = scope(user);
-      return (await listPeople(db, orgId)).map((p) => ({ ...p, createdAt: p.createdAt.toISOString(), allowed: allowedPersonActions(managerOf(user), p) }));
+    async people(user: Express.User, q: PageQuery): Promise<Page<PersonSummary>> {
+      const page = await pagePeople(db, scope(user), q);
+      return { items: page.items.map((p) => ({ ...p, createdAt: p.createdAt.toISOString(), allowed: allowedPersonActions(managerOf(user), p) })), next: page.next };
     },
 
-    async pending(user: Express.User): Promise<PendingInvitation[]> {
-      const orgId = scope(user);
-      return (await listPendingInvitations(db, { organizationId: orgId })).map((i) => ({ ...i, expiresAt: i.expiresAt.toISOString() }));
+    async pending(user: Express.User, q: PageQuery): Promise<Page<PendingInvitation>> {
+      const page = await pagePendingInvitations(db, scope(user), q);
+      return { items: page.items.map(({ createdKey: _, ...i }) => ({ ...i, expiresAt: i.expiresAt.toISOString() })), next: page.next };
     },
 
     async invite(user: Express.User, input: Required<Pick<InviteInput, 'email' | 'name' | 'role'>> & { organizationId: string | null; lead: boolean }) {

@@ -1,25 +1,31 @@
 import { and, desc, eq, sql } from 'drizzle-orm';
 import type { Db } from '../../db';
 import { kitModels, loadStudies, loadStudyRevisions, users } from '../../db/schema';
+import type { PageQuery } from '../../db/contracts';
+import { afterKey, decodeCursor, pageOf } from '../pagination';
 
 type Choice = { gaugeIn: number; rivet: string } | null;
 
 /**
- * The list reads each study's one recommended choice out of its latest result in the database, never
+ * One page of the organisation's studies, last changed first (then id). The list reads each study's one recommended choice out of its latest result in the database, never
  * the result itself: a whole wing's is some 400 KB. A rib study recommends one gauge and rivet; a wing
  * study's headline is its one-for-all choice.
  */
-export const listStudyRows = (db: Db, organizationId: string) =>
-  db.select({
+export async function pageStudyRows(db: Db, organizationId: string, q: PageQuery) {
+  const key = decodeCursor(q.cursor, ['string', 'string']);
+  const rows = await db.select({
     id: loadStudies.id, kind: loadStudies.kind, kitModelId: loadStudies.kitModelId, kitName: kitModels.name, name: loadStudies.name,
-    revision: loadStudies.latestRevision, updatedAt: loadStudies.updatedAt,
+    revision: loadStudies.latestRevision, updatedAt: sql<string>`${loadStudies.updatedAt}::text`,
     recommended: sql<Choice>`case when ${loadStudies.kind} = 'wing'
       then ${loadStudyRevisions.result} -> 'trade' -> 'recommendedUniform'
       else ${loadStudyRevisions.result} -> 'recommended' end`,
   }).from(loadStudies)
     .innerJoin(kitModels, eq(kitModels.id, loadStudies.kitModelId))
     .innerJoin(loadStudyRevisions, and(eq(loadStudyRevisions.studyId, loadStudies.id), eq(loadStudyRevisions.revision, loadStudies.latestRevision)))
-    .where(eq(loadStudies.organizationId, organizationId)).orderBy(desc(loadStudies.updatedAt));
+    .where(and(eq(loadStudies.organizationId, organizationId), afterKey([loadStudies.updatedAt, loadStudies.id], key, 'desc')))
+    .orderBy(desc(loadStudies.updatedAt), desc(loadStudies.id)).limit(q.limit + 1);
+  return pageOf(rows, q.limit, (s) => [s.updatedAt, s.id]);
+}
 
 export async function findStudy(db: Db, id: string) {
   const [row] = await db.select().from(loadStudies).where(eq(loadStudies.id, id));

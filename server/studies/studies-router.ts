@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { applyStudyInput, idParam, plainText, studyInput } from '../../db/contracts';
+import { applyStudyInput, idParam, pageQuery, plainText, studyInput } from '../../db/contracts';
 import { GAUGE_RANGE_IN, measured } from '../../db/contracts/engineering';
 import type { AppContext } from '../context';
 import { requireRole } from '../middleware/require-role';
@@ -20,7 +20,7 @@ export function studiesRouter(ctx: AppContext): Router {
   const r = Router();
   const studies = studiesService(ctx.db);
   r.use(requireRole('supplier'));
-  r.get('/', async (req, res) => { res.json(await studies.list(req.user!)); });
+  r.get('/', validateQuery(pageQuery), async (req, res) => { res.json(await studies.list(req.user!, res.locals.query)); });
   r.post('/', validateBody(studyInput), async (req, res) => { res.status(201).json(await studies.create(req.user!, req.body)); });
   r.get('/:id', validateQuery(detailQuery), async (req, res) => { res.json(await studies.detail(req.user!, idParam.parse(req.params).id, res.locals.query.revision)); });
   r.get('/:id/candidate', validateQuery(candidateQuery), async (req, res) => {

@@ -1,6 +1,6 @@
 import { eq, sql } from 'drizzle-orm';
 import type {
-  ApplyStudyInput, PartDesignDetail, RibStudyInputValues, StudyBody, StudyDetail, StudyKind, StudySummary, WingStudyInputValues,
+  ApplyStudyInput, Page, PageQuery, PartDesignDetail, RibStudyInputValues, StudyBody, StudyDetail, StudyKind, StudySummary, WingStudyInputValues,
 } from '../../db/contracts';
 import { revisionInput } from '../../db/contracts';
 import type { Db } from '../../db';
@@ -14,7 +14,7 @@ import {
 } from '../engineering';
 import { badRequest, conflict, notFound } from '../http-error';
 import { kitsService } from '../kits/kits-service';
-import { findStudy, findStudyEngineInput, findStudyRevision, listStudyRevisions, listStudyRows } from './studies-repository';
+import { findStudy, findStudyEngineInput, findStudyRevision, listStudyRevisions, pageStudyRows } from './studies-repository';
 import { runStudy } from './study-pool';
 
 /** Ends the study threads: the server calls it on shutdown, after it stops taking requests. */
@@ -227,11 +227,13 @@ export const studiesService = (db: Db) => {
   return {
     detail,
 
-    async list(user: Express.User): Promise<StudySummary[]> {
-      if (!user.organizationId) return [];
-      return (await listStudyRows(db, user.organizationId)).map(({ updatedAt, recommended, ...s }) => ({
-        ...s, updatedAt: updatedAt.toISOString(), recommended: recommended ?? null,
-      }));
+    async list(user: Express.User, q: PageQuery): Promise<Page<StudySummary>> {
+      if (!user.organizationId) return { items: [], next: null };
+      const page = await pageStudyRows(db, user.organizationId, q);
+      return {
+        items: page.items.map(({ updatedAt, recommended, ...s }) => ({ ...s, updatedAt: new Date(updatedAt).toISOString(), recommended: recommended ?? null })),
+        next: page.next,
+      };
     },
 
     async create(user: Express.User, body: StudyBody) {

@@ -7,9 +7,15 @@ jest.mock('expo-router', () => ({
   useRouter: () => ({ push: jest.fn(), replace: jest.fn(), back: jest.fn(), canGoBack: () => false }),
 }));
 
-const seeded = (list: PersonSummary[] = people): [readonly unknown[], unknown][] => [
-  [peopleKeys.list(), list], [peopleKeys.invitations(), []], [peopleKeys.organizations(), organizations],
+/** A list as the infinite query holds it: the pages loaded so far (one here), and where the next one starts. */
+const paged = <T,>(items: T[], next: string | null = null) => ({ pages: [{ items, next }], pageParams: [null] });
+
+const seeded = (list: PersonSummary[] = people, next: string | null = null): [readonly unknown[], unknown][] => [
+  [peopleKeys.list(), paged(list, next)], [peopleKeys.invitations(), paged([])], [peopleKeys.organizations(), paged(organizations)],
 ];
+
+/** POST answers the invitation made; GET (the list asked again after it) an empty page. */
+const invitationsRoute = (sent: unknown) => (sent ? { status: 201, body: { ok: true } } : { body: { items: [], next: null } });
 
 async function shown(user = admin, list: PersonSummary[] = people) {
   recordFetch({});
@@ -56,7 +62,7 @@ describe('deactivating and reactivating', () => {
         list = people.map((p) => (p.id === next.id ? next : p));
         return { body: next };
       },
-      '/api/people': () => ({ body: list }),
+      '/api/people': () => ({ body: { items: list, next: null } }),
     });
     const r = wrapSignedIn(<PeopleScreen />, admin, seeded());
     await r.settle();
@@ -84,7 +90,7 @@ describe('deactivating and reactivating', () => {
   });
 
   it('changes a role to one of the organisation’s roles only', async () => {
-    const calls = recordFetch({ '/api/people/u-tobias': { body: { ...people[0], role: 'inspector' } }, '/api/people': { body: people } });
+    const calls = recordFetch({ '/api/people/u-tobias': { body: { ...people[0], role: 'inspector' } }, '/api/people': { body: { items: people, next: null } } });
     const r = wrapSignedIn(<PeopleScreen />, admin, seeded());
     await r.settle();
     await r.press('person-tobias@benchwork.example');
@@ -109,9 +115,31 @@ describe('finding people', () => {
   });
 });
 
+describe('people in pages', () => {
+  it('appends the next page under the first when asked, with the cursor the first page gave, and then says all are shown', async () => {
+    const more = [person({ id: 'u-zed', email: 'zed@benchwork.example', name: 'Zed Later' })];
+    const calls = recordFetch({ '/api/people': { body: { items: more, next: null } } });
+    const r = wrapSignedIn(<PeopleScreen />, admin, seeded(people, 'cursor-of-page-1'));
+    await r.settle();
+    const before = r.allByTestIdPrefix('person-').filter((el) => /^person-[^-]+@/.test(el.getAttribute('data-testid')!)).length;
+    expect(r.queryByTestId('person-zed@benchwork.example')).toBeNull();
+    await r.press('people-more');
+    await r.settle();
+    expect(calls.filter((c) => c.url.startsWith('/api/people')).map((c) => c.url)).toEqual(['/api/people?cursor=cursor-of-page-1']);
+    const rows = r.allByTestIdPrefix('person-').filter((el) => /^person-[^-]+@/.test(el.getAttribute('data-testid')!));
+    expect(rows).toHaveLength(before + 1);
+    // The first page's people stay; the second page's person joins them (active people first, as the list shows them).
+    const ids = rows.map((el) => el.getAttribute('data-testid'));
+    expect(ids).toContain('person-zed@benchwork.example');
+    for (const p of people) expect(ids).toContain(`person-${p.email}`);
+    expect(r.queryByTestId('people-more')).toBeNull();
+    expect(r.byTestId('people-more-end').textContent).toBe(`All ${before + 1} people shown`);
+  });
+});
+
 describe('inviting', () => {
   it('the admin chooses role and organisation; the organisations offered hold the role', async () => {
-    const calls = recordFetch({ '/api/people/invitations': { status: 201, body: { ok: true } } });
+    const calls = recordFetch({ '/api/people/invitations': invitationsRoute });
     const r = wrapSignedIn(<PeopleScreen />, admin, seeded());
     await r.settle();
     await r.press('invite-send');
@@ -142,7 +170,7 @@ describe('inviting', () => {
   });
 
   it('a lead engineer invites engineers of their own organisation, with no organisations to manage', async () => {
-    const calls = recordFetch({ '/api/people/invitations': { status: 201, body: { ok: true } } });
+    const calls = recordFetch({ '/api/people/invitations': invitationsRoute });
     const r = wrapSignedIn(<PeopleScreen />, lead, seeded(people.filter((p) => p.organizationId === NORTH)));
     await r.settle();
     expect(r.queryByTestId('organizations')).toBeNull();

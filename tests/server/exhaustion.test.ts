@@ -21,7 +21,7 @@ const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 beforeAll(async () => {
   t = await startTestApp();
   tok = await t.tokens();
-  kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body[0].id;
+  kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items[0].id;
 });
 afterAll(async () => {
   await t?.close();

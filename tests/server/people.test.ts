@@ -54,7 +54,7 @@ describe('invitations: a mail with a one-time link where the person sets their o
   it('refuses an address that already has an account, and a role the organisation does not hold', async () => {
     const dup = await request(t.app).post('/api/people/invitations').set(auth(tok.admin)).send({ email: DEMO_USERS.builder.email, name: 'X', role: 'builder' });
     expect(dup.status).toBe(409);
-    const orgs = (await request(t.app).get('/api/people/organizations').set(auth(tok.admin))).body as { id: string; kind: string }[];
+    const orgs = (await request(t.app).get('/api/people/organizations').set(auth(tok.admin))).body.items as { id: string; kind: string }[];
     const supplierOrg = orgs.find((o) => o.kind === 'supplier')!;
     const wrong = await request(t.app).post('/api/people/invitations').set(auth(tok.admin)).send({ email: 'b@x.example', name: 'B', role: 'builder', organizationId: supplierOrg.id });
     expect([wrong.status, Object.keys(wrong.body.error.fields)]).toEqual([400, ['role']]);
@@ -75,7 +75,7 @@ describe('invitations: a mail with a one-time link where the person sets their o
       expect((await request(t.app).post('/api/people/invitations').set(auth(who)).send({ email: 'y@shop.example', name: 'Y', role: 'builder' })).status).toBe(403);
       expect((await request(t.app).get('/api/people').set(auth(who))).status).toBe(403);
     }
-    const mine = (await request(t.app).get('/api/people').set(auth(tok.supplier))).body as { email: string; organizationId: string }[];
+    const mine = (await request(t.app).get('/api/people').set(auth(tok.supplier))).body.items as { email: string; organizationId: string }[];
     expect(mine.every((p) => p.organizationId === me.organizationId)).toBe(true);
     expect((await request(t.app).get('/api/people/organizations').set(auth(tok.supplier))).status).toBe(403);
   });
@@ -157,7 +157,7 @@ describe('passwords and sign-ins', () => {
 describe('people on a build', () => {
   let kitId: string;
   beforeAll(async () => {
-    kitId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body[0].id;
+    kitId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items[0].id;
   });
 
   it('ships to addresses with no account: both are invited, the build shows them as not joined, and joining makes them members', async () => {
@@ -173,13 +173,13 @@ describe('people on a build', () => {
     expect(detail.people.allowed).toEqual(['add', 'remove', 'hand-over']);
     const owner = (await join(await linkIn('owen.owner@home.example', 'NK2-0900', 'invite'), 'Owen Owner')).body;
     const inspector = (await join(await linkIn('ines.insp@checks.example', 'NK2-0900', 'invite'), 'Ines Insp')).body;
-    expect((await request(t.app).get('/api/travelers').set(auth(owner.token))).body.length).toBeGreaterThan(0);
+    expect((await request(t.app).get('/api/travelers').set(auth(owner.token))).body.items.length).toBeGreaterThan(0);
     expect((await request(t.app).get(`/api/builds/${res.body.id}`).set(auth(inspector.token))).status).toBe(200);
     const after = (await request(t.app).get(`/api/builds/${res.body.id}`).set(auth(owner.token))).body.people;
     expect(after.members.map((m: { place: string }) => m.place).sort()).toEqual(['final_inspector', 'owner']);
     expect(after.pending).toEqual([]);
     expect(after.allowed).toEqual(['add', 'remove', 'hand-over']);
-    const log = (await request(t.app).get(`/api/builds/${res.body.id}/log?kind=people`).set(auth(owner.token))).body.entries;
+    const log = (await request(t.app).get(`/api/builds/${res.body.id}/log?kind=people`).set(auth(owner.token))).body.items;
     expect(log.map((e: { kind: string }) => e.kind).sort()).toEqual(['member_invited', 'member_invited', 'member_joined', 'member_joined']);
   });
 });

@@ -44,7 +44,7 @@ const ribRevision = (over: Record<string, unknown> = {}) => ({
 });
 
 async function demoKit() {
-  const kits = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body as { id: string; code: string }[];
+  const kits = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items as { id: string; code: string }[];
   return kits.find((k) => k.code === 'NK-2')!;
 }
 
@@ -175,7 +175,7 @@ describe('kit models: edit with history, delete while nothing relies on them', (
 });
 
 describe('coupon tests: corrected by a new entry, deleted only when no published schedule may rest on them', () => {
-  const list = async () => (await request(t.app).get('/api/coupons').set(auth(tok.supplier))).body as CouponTest[];
+  const list = async () => (await request(t.app).get('/api/coupons').set(auth(tok.supplier))).body.items as CouponTest[];
 
   it('corrects a test with a new entry: the old one kept as recorded and marked, the engine reading only the new one', async () => {
     const old = (await list()).find((c) => c.gaugeIn === 0.02 && c.loadLb === 30)!;
@@ -220,7 +220,7 @@ describe('coupon tests: corrected by a new entry, deleted only when no published
 
   it('refuses to delete a test a published study-made revision may rest on, naming it; deletes one recorded after', async () => {
     // The demo rib study's PULLED-4 candidate, applied to a new part and published.
-    const studies = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body as { id: string; kind: string }[];
+    const studies = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body.items as { id: string; kind: string }[];
     const study = (await request(t.app).get(`/api/studies/${studies.find((s) => s.kind === 'rib')!.id}`).set(auth(tok.supplier))).body;
     const candidate = study.result.candidates.find((c: { rivet: string; feasible: boolean }) => c.rivet === 'PULLED-4' && c.feasible);
     const kit = await demoKit();
@@ -318,7 +318,7 @@ describe('builds: the shipping supplier corrects the note always, the serial and
   });
 
   it('refuses to rename or delete the demo build, where work is recorded, but takes a new note', async () => {
-    const [demo] = (await request(t.app).get('/api/builds').set(auth(tok.supplier))).body.filter((b: { kitSerial: string }) => b.kitSerial === 'NK2-0147');
+    const [demo] = (await request(t.app).get('/api/builds').set(auth(tok.supplier))).body.items.filter((b: { kitSerial: string }) => b.kitSerial === 'NK2-0147');
     const page = (await request(t.app).get(`/api/builds/${demo.id}`).set(auth(tok.supplier))).body;
     expect(page.allowedActions).toEqual(['edit-note']);
     // The demo (db/seed.ts): U-01…U-08 ticked, U-09 flagged, the first step done, one finding.
@@ -353,7 +353,7 @@ describe('builds: the shipping supplier corrects the note always, the serial and
 
 describe('draft revisions: discarded, never once published', () => {
   it('discards a draft after published revisions: the part keeps them', async () => {
-    const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body as { id: string; partNumber: string }[];
+    const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body.items as { id: string; partNumber: string }[];
     const w105 = designs.find((d) => d.partNumber === 'W-105')!;
     const draft = await request(t.app).post(`/api/designs/${w105.id}/revisions`).set(auth(tok.supplier)).send({ ...ribRevision(), changeNote: 'Try a wider pitch' });
     expect(draft.status).toBe(201);
@@ -377,7 +377,7 @@ describe('draft revisions: discarded, never once published', () => {
   });
 
   it('refuses to discard or edit a published revision, to another supplier (404) and to other roles (403)', async () => {
-    const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body as { id: string; partNumber: string }[];
+    const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body.items as { id: string; partNumber: string }[];
     const w104 = (await request(t.app).get(`/api/designs/${designs.find((d) => d.partNumber === 'W-104')!.id}`).set(auth(tok.supplier))).body;
     const published = w104.revisions.find((r: { status: string }) => r.status === 'published');
     const before = await rows(designRevisions);

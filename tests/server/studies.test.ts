@@ -13,7 +13,7 @@ const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 beforeAll(async () => {
   t = await startTestApp();
   tok = await t.tokens();
-  kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body[0].id;
+  kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items[0].id;
 });
 afterAll(async () => {
   await t?.close();
@@ -60,9 +60,9 @@ describe('load studies', () => {
   });
 
   it('applies the recommended gauge and rivet to a draft revision with the computed zones and the study as basis', async () => {
-    const [study] = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body;
+    const [study] = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body.items;
     const detail = (await request(t.app).get(`/api/studies/${study.id}`).set(auth(tok.supplier))).body;
-    const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body;
+    const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body.items;
     const rib = designs.find((d: { partNumber: string }) => d.partNumber === 'W-104');
     const { gaugeIn, rivet } = detail.result.recommended;
     const res = await request(t.app).post(`/api/studies/${study.id}/apply`).set(auth(tok.supplier)).send({ partDesignId: rib.id, gaugeIn, rivet });
@@ -74,10 +74,10 @@ describe('load studies', () => {
   });
 
   it('refuses to apply a candidate that does not carry the load', async () => {
-    const [study] = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body;
+    const [study] = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body.items;
     const detail = (await request(t.app).get(`/api/studies/${study.id}`).set(auth(tok.supplier))).body;
     const bad = detail.result.candidates.find((c: { feasible: boolean }) => !c.feasible);
-    const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body;
+    const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body.items;
     const res = await request(t.app).post(`/api/studies/${study.id}/apply`).set(auth(tok.supplier)).send({ partDesignId: designs[0].id, gaugeIn: bad.gaugeIn, rivet: bad.rivet });
     expect(res.status).toBe(409);
   });
@@ -116,7 +116,7 @@ describe('load studies', () => {
 describe('the rework check for an inspector', () => {
   it('fails AD4 → AD5 at the existing 0.25 in edge distance and offers the alternative', async () => {
     // FAA AC 43.13-1B 4-57: an oversize rivet needs 2D of the new diameter, 2 × 5/32 = 0.3125 in.
-    const [finding] = (await request(t.app).get('/api/findings?status=open').set(auth(tok.inspector))).body;
+    const [finding] = (await request(t.app).get('/api/findings?status=open').set(auth(tok.inspector))).body.items;
     const res = await request(t.app).post(`/api/findings/${finding.id}/repair-check`).set(auth(tok.inspector)).send({});
     expect(res.status).toBe(200);
     expect(res.body.pass).toBe(false);

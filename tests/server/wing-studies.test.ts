@@ -20,13 +20,13 @@ beforeAll(async () => {
   t = await startTestApp();
   tok = await t.tokens();
   otherSupplier = await t.addUser('supplier', 'other.supplier@elsewhere.example');
-  kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body[0].id;
+  kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items[0].id;
   const res = await request(t.app).post('/api/studies').set(auth(tok.supplier)).send({ kind: 'wing', kitModelId, name: 'Wing, ten ribs', inputs: DEMO_WING_INPUTS });
   if (res.status !== 201) throw new Error(`the wing study was refused: ${JSON.stringify(res.body)}`);
   wing = res.body;
-  const list = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body as { id: string; kind: string }[];
+  const list = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body.items as { id: string; kind: string }[];
   ribStudyId = list.find((s) => s.kind === 'rib')!.id;
-  const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body as { id: string; partNumber: string }[];
+  const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body.items as { id: string; partNumber: string }[];
   designIds = Object.fromEntries(designs.map((d) => [d.partNumber, d.id]));
 });
 afterAll(async () => { await t?.close(); });
@@ -92,14 +92,14 @@ describe('a whole-wing study', () => {
   it('lists rib and wing studies with their kind and headline choice, without their results', async () => {
     const res = await request(t.app).get('/api/studies').set(auth(tok.supplier));
     expect(res.status).toBe(200);
-    const mine = res.body.find((s: { id: string }) => s.id === wing.id);
+    const mine = res.body.items.find((s: { id: string }) => s.id === wing.id);
     expect(mine).toMatchObject({ kind: 'wing', revision: 2, recommended: wing.result.trade.recommendedUniform });
-    const demoWing = res.body.find((s: { name: string }) => s.name.startsWith('Whole wing'));
+    const demoWing = res.body.items.find((s: { name: string }) => s.name.startsWith('Whole wing'));
     expect(demoWing.kind).toBe('wing');
-    const rib = res.body.find((s: { id: string }) => s.id === ribStudyId);
+    const rib = res.body.items.find((s: { id: string }) => s.id === ribStudyId);
     const ribDetail = (await request(t.app).get(`/api/studies/${ribStudyId}`).set(auth(tok.supplier))).body;
     expect(rib).toMatchObject({ kind: 'rib', recommended: ribDetail.result.recommended });
-    for (const s of res.body) expect(Object.keys(s).sort()).toEqual(['id', 'kind', 'kitModelId', 'kitName', 'name', 'recommended', 'revision', 'updatedAt']);
+    for (const s of res.body.items) expect(Object.keys(s).sort()).toEqual(['id', 'kind', 'kitModelId', 'kitName', 'name', 'recommended', 'revision', 'updatedAt']);
   });
 });
 
@@ -235,7 +235,7 @@ describe("a rib study candidate's holes on demand", () => {
 describe('who may see and use a wing study', () => {
   it("hides one supplier's study from another: 404 to read, list, revise, ask a candidate of or apply", async () => {
     expect((await request(t.app).get(`/api/studies/${wing.id}`).set(auth(otherSupplier))).status).toBe(404);
-    expect((await request(t.app).get('/api/studies').set(auth(otherSupplier))).body).toEqual([]);
+    expect((await request(t.app).get('/api/studies').set(auth(otherSupplier))).body.items).toEqual([]);
     expect((await request(t.app).put(`/api/studies/${wing.id}`).set(auth(otherSupplier)).send({ kind: 'wing', kitModelId, name: 'x', inputs: DEMO_WING_INPUTS })).status).toBe(404);
     expect((await request(t.app).get(`/api/studies/${ribStudyId}/candidate?gaugeIn=0.02&rivet=PULLED-4`).set(auth(otherSupplier))).status).toBe(404);
     expect((await apply(wing.id, { partDesignId: designIds['W-201'], ...wing.result.skins[0].recommended, target: { kind: 'skin', name: wing.result.skins[0].name } }, otherSupplier)).status).toBe(404);
