@@ -3,9 +3,11 @@ import { Pressable, StyleSheet, View } from 'react-native';
 import type { StudyKind, StudySummary } from '@/db/contracts';
 import { colors, hairline, radius, space, touch } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
+import { LoadMore } from '@/components/ui/load-more';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
+import { pagedItems } from '@/hooks/queries/paged';
 import { useStudiesQuery } from '@/hooks/queries/studies';
 import { useUnits } from '@/hooks/use-units';
 import { whenText } from './study-links';
@@ -56,7 +58,8 @@ function StudyRow({ s, onPress }: { s: StudySummary; onPress: () => void }) {
 export function StudiesScreen() {
   const router = useRouter();
   const q = useStudiesQuery();
-  const rows = [...(q.data ?? [])].sort((a, b) => b.updatedAt.localeCompare(a.updatedAt));
+  // The server's order (last changed first, then id): sorting the loaded pages again would move rows as pages arrive.
+  const rows = pagedItems(q.data);
   return (
     <Screen
       title="Load studies"
@@ -86,6 +89,7 @@ export function StudiesScreen() {
           ) : (
             <View testID="studies-list">
               {rows.map((s) => <StudyRow key={s.id} s={s} onPress={() => router.push(`/studies/${s.id}`)} />)}
+              <LoadMore hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage} shown={rows.length} what="studies" testID="studies-more" />
             </View>
           )}
     </Screen>
