@@ -5,10 +5,12 @@ import { FlatList, View } from 'react-native';
 import { space } from '@/constants/theme';
 import { Screen } from '@/components/ui/screen';
 import { Section } from '@/components/ui/sheet';
+import { LoadMore } from '@/components/ui/load-more';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { TwoPane } from '@/components/ui/two-pane';
 import { liveFirst, TravelerCard } from '@/components/travelers/traveler-card';
 import { errorMessage } from '@/hooks/api-client';
+import { pagedItems } from '@/hooks/queries/paged';
 import { lookupTraveler, useTravelersQuery } from '@/hooks/queries/travelers';
 import { Scanner } from './scanner';
 import { ShortCodeEntry } from './short-code-entry';
@@ -17,7 +19,8 @@ import { ShortCodeEntry } from './short-code-entry';
 export function BenchScreen() {
   const router = useRouter();
   const qc = useQueryClient();
-  const parts = useTravelersQuery();
+  // Only the parts not yet signed off, a page at a time; the loaded ones are shown nearest done first.
+  const parts = useTravelersQuery({ show: 'open' });
   const [scanProblem, setScanProblem] = useState<string | null>(null);
 
   const open = useCallback(async (code: string) => {
@@ -35,7 +38,7 @@ export function BenchScreen() {
   }, [open]);
 
   const inProgress = useMemo(
-    () => liveFirst((parts.data ?? []).filter((t) => !t.signedOff).sort((a, b) => (b.holesDone / (b.holesTotal || 1)) - (a.holesDone / (a.holesTotal || 1)))),
+    () => liveFirst(pagedItems(parts.data).filter((t) => !t.signedOff).sort((a, b) => (b.holesDone / (b.holesTotal || 1)) - (a.holesDone / (a.holesTotal || 1)))),
     [parts.data],
   );
 
@@ -71,8 +74,11 @@ export function BenchScreen() {
         ListEmptyComponent={
           parts.isPending ? <LoadingState what="Loading your parts" />
             : parts.isError ? <ErrorState error={parts.error} onRetry={() => void parts.refetch()} />
-              : <EmptyState title="Nothing in progress." body={parts.data?.length ? 'Every part you have is signed off.' : 'Parts appear here when a supplier ships you a build.'} />
+              : <EmptyState title="Nothing in progress." body="Parts appear here when a supplier ships you a build; signed-off parts stay under Travelers." />
         }
+        ListFooterComponent={parts.isSuccess ? (
+          <LoadMore hasNextPage={parts.hasNextPage} isFetchingNextPage={parts.isFetchingNextPage} fetchNextPage={parts.fetchNextPage} shown={inProgress.length} what="parts" testID="bench-more" />
+        ) : null}
         keyboardShouldPersistTaps="handled"
         contentContainerStyle={{ paddingBottom: space.xxl }}
       />
