@@ -43,4 +43,4 @@ export const buildEvents = pgTable('build_events', {
   kind: text('kind').notNull(),
   detail: jsonb('detail').$type<Record<string, unknown>>().notNull(),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-}, (t) => [index('build_events_build').on(t.buildId, t.createdAt)]);
+}, (t) => [index('build_events_build').on(t.buildId, t.createdAt, t.id)]);

@@ -57,7 +57,7 @@ export const findingEvents = pgTable('finding_events', {
   disposition: disposition('disposition'),
   note: text('note').notNull().default(''),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-}, (t) => [index('finding_events_finding').on(t.findingId, t.createdAt)]);
+}, (t) => [index('finding_events_finding').on(t.findingId, t.createdAt, t.id)]);
 
 export const findingPhotos = pgTable('finding_photos', {
   id: uuid('id').primaryKey().defaultRandom(),

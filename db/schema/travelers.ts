@@ -61,4 +61,4 @@ export const travelerEvents = pgTable('traveler_events', {
   kind: text('kind').notNull(),
   detail: jsonb('detail').$type<Record<string, unknown>>().notNull(),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-}, (t) => [index('traveler_events_traveler').on(t.travelerId, t.createdAt)]);
+}, (t) => [index('traveler_events_traveler').on(t.travelerId, t.createdAt, t.id)]);
