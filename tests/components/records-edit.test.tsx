@@ -72,7 +72,7 @@ const coupon = (over: Partial<CouponTest>): CouponTest => ({
 describe('the coupon record', () => {
   const show = (tests: CouponTest[]) => {
     const calls = recordFetch({ '/api/coupons/c-3': { status: 204, body: '' } });
-    const r = wrapSignedIn(<CouponsScreen />, lead, [[couponKeys.list(), tests], [couponKeys.allowables(), []]]);
+    const r = wrapSignedIn(<CouponsScreen />, lead, [[couponKeys.list(), { pages: [{ items: tests, next: null }], pageParams: [null] }], [couponKeys.allowables(), []]]);
     return { r, calls };
   };
 

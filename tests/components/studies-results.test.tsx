@@ -50,7 +50,7 @@ const designs: PartDesignSummary[] = [
 
 function renderResults(d = detail(), latest = 2, system: 'imperial' | 'metric' = 'imperial', candidates: { holes: boolean } = { holes: true }) {
   return renderWithQueries(system, (qc) => {
-    qc.setQueryData(designKeys.list(KIT), designs);
+    qc.setQueryData(designKeys.choices(KIT), designs);
     if (candidates.holes) qc.setQueryData(studyKeys.candidate(d.id, d.revision, unstored.gaugeIn, unstored.rivet), unstoredWhole);
   }, <StudyResults detail={d} latestRevision={latest} />);
 }

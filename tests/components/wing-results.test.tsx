@@ -43,7 +43,7 @@ const designs: PartDesignSummary[] = [
 ];
 
 function renderResults(opts: { revision?: number; latest?: number; system?: 'imperial' | 'metric' } = {}) {
-  return renderWithQueries(opts.system ?? 'imperial', (qc) => qc.setQueryData(designKeys.list(KIT), designs), (
+  return renderWithQueries(opts.system ?? 'imperial', (qc) => qc.setQueryData(designKeys.choices(KIT), designs), (
     <WingResults detail={detail(opts.revision ?? 1)} latestRevision={opts.latest ?? 1} />
   ));
 }

@@ -27,7 +27,7 @@ beforeAll(async () => {
   // A finding raised with a photo, so that the inspector's mail carries it.
   const tok = await t.tokens();
   const list = await request(t.app).get('/api/travelers').set(auth(tok.builder));
-  const traveler = await request(t.app).get(`/api/travelers/${list.body[0].id}`).set(auth(tok.builder));
+  const traveler = await request(t.app).get(`/api/travelers/${list.body.items[0].id}`).set(auth(tok.builder));
   const hole = traveler.body.holes.find((h: { status: string }) => h.status === 'pending');
   const photo = await sharp({ create: { width: 80, height: 60, channels: 3, background: '#5a5a5a' } }).jpeg().toBuffer();
   const res = await request(t.app).post('/api/findings').set(auth(tok.builder))

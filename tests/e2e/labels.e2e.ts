@@ -50,7 +50,7 @@ function pageBoxes(pdf: Buffer): number[][] {
 describe('QR labels in a real browser', () => {
   it('a builder reprints one part’s label from the traveler: kit model, supplier, part, revision, serial, short code and a QR that opens it', async () => {
     const token = (await request(t.app).post('/api/auth/sign-in').send({ email: DEMO_USERS.builder.email, password: DEMO_PASSWORD })).body.token;
-    const parts = (await request(t.app).get('/api/travelers').set({ Authorization: `Bearer ${token}` })).body as { id: string; shortCode: string; serial: string; partNumber: string; letter: string }[];
+    const parts = (await request(t.app).get('/api/travelers').set({ Authorization: `Bearer ${token}` })).body.items as { id: string; shortCode: string; serial: string; partNumber: string; letter: string }[];
     const part = parts[0];
     const page = await phonePage(browser, base);
     await signIn(page, DEMO_USERS.builder.email);
@@ -79,7 +79,7 @@ describe('QR labels in a real browser', () => {
     await signIn(page, DEMO_USERS.supplier.email);
     await page.getByTestId('email').waitFor({ state: 'detached', timeout: 20000 });
     const supplierToken = (await request(t.app).post('/api/auth/sign-in').send({ email: DEMO_USERS.supplier.email, password: DEMO_PASSWORD })).body.token;
-    const builds = (await request(t.app).get('/api/builds').set({ Authorization: `Bearer ${supplierToken}` })).body as { id: string; travelerCount: number }[];
+    const builds = (await request(t.app).get('/api/builds').set({ Authorization: `Bearer ${supplierToken}` })).body.items as { id: string; travelerCount: number }[];
     const build = builds.find((b) => b.travelerCount > 1)!;
     await page.goto(`/travelers/labels?build=${build.id}`);
     await page.locator('[data-testid^="part-label-"]').first().waitFor({ timeout: 15000 });

@@ -72,7 +72,7 @@ describe('a link opened while signed out opens after sign-in', () => {
   });
 
   it('a scanned label: straight to sign-in with no button to press, then the part', async () => {
-    const builds = await api<{ id: string }[]>(DEMO_USERS.supplier.email, '/api/builds');
+    const builds = (await api<{ items: { id: string }[] }>(DEMO_USERS.supplier.email, '/api/builds')).items;
     expect(builds.length).toBeGreaterThan(0);
     const labels = await api<{ travelerId: string; url: string }[]>(DEMO_USERS.supplier.email, `/api/travelers/labels?buildId=${builds[0].id}`);
     expect(labels.length).toBeGreaterThan(0);

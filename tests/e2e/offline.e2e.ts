@@ -130,7 +130,7 @@ describe('the installable app', () => {
 
 describe('the bench with no signal', () => {
   it('reloads the bench and a part in progress from the phone, and a tick made offline reaches the server later', async () => {
-    const parts = await api<TravelerSummary[]>('/api/travelers');
+    const parts = (await api<{ items: TravelerSummary[] }>('/api/travelers')).items;
     const part = parts.find((p) => p.partNumber === 'W-104')!;
     const before = await api<TravelerDetail>(`/api/travelers/${part.id}`);
     const hole = before.holes.find((h) => h.status === 'pending')!.holeId;
@@ -189,7 +189,7 @@ describe('the bench with no signal', () => {
 
 describe('the scanner on a plain-http shop address', () => {
   it('says the camera needs the https address, and the short code still opens the part', async () => {
-    const part = (await api<TravelerSummary[]>('/api/travelers')).find((p) => p.partNumber === 'W-104')!;
+    const part = (await api<{ items: TravelerSummary[] }>('/api/travelers')).items.find((p) => p.partNumber === 'W-104')!;
     // A name other than localhost (mapped to 127.0.0.1 by the browser helper): not a secure context.
     const shop = `http://pitchcard.test:${port}`;
     const page = await phonePage(browser, shop);

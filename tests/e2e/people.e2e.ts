@@ -120,7 +120,7 @@ describe('people join and leave through the screens', () => {
   it('the admin invites someone who joins; deactivated, their sign-in ends at once', async () => {
     const person = { email: `juno.${stamp()}@benchwork.example`, name: 'Juno Marsh' };
     const adminToken = await t.signIn(DEMO_USERS.admin.email);
-    const orgs = (await request(t.app).get('/api/people/organizations').set(auth(adminToken))).body as { id: string; kind: string }[];
+    const orgs = (await request(t.app).get('/api/people/organizations').set(auth(adminToken))).body.items as { id: string; kind: string }[];
     const shop = orgs.find((o) => o.kind === 'shop')!;
 
     const office = await widePage();

@@ -37,7 +37,7 @@ afterAll(async () => {
 });
 
 async function designOf(partNumber: string) {
-  const list = (await request(t.app).get('/api/designs').set(auth())).body as { id: string; partNumber: string }[];
+  const list = (await request(t.app).get('/api/designs').set(auth())).body.items as { id: string; partNumber: string }[];
   return list.find((d) => d.partNumber === partNumber)!.id;
 }
 
@@ -52,7 +52,7 @@ async function draftOf(designId: string, changeNote: string) {
 
 describe('taking back what can be taken back, on a phone', () => {
   it('corrects a recorded coupon: the new value counts, the old one stays shown as corrected', async () => {
-    const tests = (await request(t.app).get('/api/coupons').set(auth())).body as { id: string; gaugeIn: number; loadLb: number }[];
+    const tests = (await request(t.app).get('/api/coupons').set(auth())).body.items as { id: string; gaugeIn: number; loadLb: number }[];
     const old = tests.find((c) => c.gaugeIn === 0.02 && c.loadLb === 30)!;
     await page.goto('/coupons');
     await visible(`coupon-correct-${old.id}`).click();
@@ -65,7 +65,7 @@ describe('taking back what can be taken back, on a phone', () => {
     // The old value is still there to read; no button offers to change it again.
     expect(await visible(`coupon-load-${old.id}`).textContent()).toBe('30.0');
     expect(await page.locator(`[data-testid="coupon-correct-${old.id}"]`).count()).toBe(0);
-    const after = (await request(t.app).get('/api/coupons').set(auth())).body as { id: string; loadLb: number; correctionReason: string }[];
+    const after = (await request(t.app).get('/api/coupons').set(auth())).body.items as { id: string; loadLb: number; correctionReason: string }[];
     expect(after.filter((c) => c.correctionReason.includes('tare')).map((c) => c.loadLb)).toEqual([25]);
   });
 

@@ -76,7 +76,7 @@ async function api<T>(email: string, url: string): Promise<T> {
 
 describe('security headers in a real browser', () => {
   it('the builder signs in, scans a label, opens the part and picks a photo with no policy violation', async () => {
-    const builds = await api<{ id: string }[]>(DEMO_USERS.supplier.email, '/api/builds');
+    const builds = (await api<{ items: { id: string }[] }>(DEMO_USERS.supplier.email, '/api/builds')).items;
     const labels = await api<{ url: string }[]>(DEMO_USERS.supplier.email, `/api/travelers/labels?buildId=${builds[0].id}`);
     expect(labels.length).toBeGreaterThan(0);
     const video = path.join(work, 'label.y4m');

@@ -29,7 +29,7 @@ beforeAll(async () => {
   ({ t, base, close: closeApp } = await serveTestApp());
   auth = { Authorization: `Bearer ${await t.signIn(DEMO_USERS.supplier.email)}` };
   // A skin panel of the root bay of our own, so the test does not lean on what the demo happens to hold.
-  const kit = (await request(t.app).get('/api/kits').set(auth)).body.find((k: { code: string }) => k.code === 'NK-2');
+  const kit = (await request(t.app).get('/api/kits').set(auth)).body.items.find((k: { code: string }) => k.code === 'NK-2');
   const made = await request(t.app).post('/api/designs').set(auth).send({
     design: { kitModelId: kit.id, partNumber: 'S-390', name: 'Upper skin, root bay (phone test)', kind: 'skin_panel' },
     revision: {
@@ -112,7 +112,7 @@ describe('a whole-wing study on the supplier’s phone', () => {
     await visible('apply-result').scrollIntoViewIfNeeded();
     await page.screenshot({ path: path.join(SHOTS, 'wing-phone-applied.png') });
 
-    const studies = (await request(t.app).get('/api/studies').set(auth)).body as { id: string; name: string; kind: string }[];
+    const studies = (await request(t.app).get('/api/studies').set(auth)).body.items as { id: string; name: string; kind: string }[];
     const mine = studies.find((s) => s.name === 'Left wing from the phone')!;
     expect(mine.kind).toBe('wing');
     const result = (await request(t.app).get(`/api/studies/${mine.id}`).set(auth)).body.result;

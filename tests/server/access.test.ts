@@ -18,7 +18,7 @@ beforeAll(async () => {
   tok = await t.tokens();
   ({ builder: otherBuilder, inspector: otherInspector, supplier: otherSupplier } = await t.outsiders());
   const parts = await request(t.app).get('/api/travelers').set(auth(tok.builder));
-  travelerId = parts.body.find((p: { partNumber: string }) => p.partNumber === 'W-104').id;
+  travelerId = parts.body.items.find((p: { partNumber: string }) => p.partNumber === 'W-104').id;
   const open = await request(t.app).get('/api/findings?status=open').set(auth(tok.builder));
   findingId = open.body.items[0].id;
   photoUrl = (await request(t.app).get(`/api/findings/${findingId}`).set(auth(tok.builder))).body.photos[0].url;
@@ -54,7 +54,7 @@ describe('sign-in', () => {
 
 describe('role boundaries', () => {
   it('keeps another builder away from this build, its traveler, finding and holes', async () => {
-    expect((await request(t.app).get('/api/travelers').set(auth(otherBuilder))).body).toEqual([]);
+    expect((await request(t.app).get('/api/travelers').set(auth(otherBuilder))).body).toEqual({ items: [], next: null });
     expect((await request(t.app).get(`/api/travelers/${travelerId}`).set(auth(otherBuilder))).status).toBe(404);
     expect((await request(t.app).get(`/api/findings/${findingId}`).set(auth(otherBuilder))).status).toBe(404);
     const tick = await request(t.app).post(`/api/travelers/${travelerId}/holes`).set(auth(otherBuilder)).send({ holeIds: ['L-01'], status: 'installed' });
@@ -72,16 +72,16 @@ describe('role boundaries', () => {
   });
 
   it("keeps another supplier away from this supplier's kits, designs and builds", async () => {
-    expect((await request(t.app).get('/api/kits').set(auth(otherSupplier))).body).toEqual([]);
-    expect((await request(t.app).get('/api/designs').set(auth(otherSupplier))).body).toEqual([]);
-    expect((await request(t.app).get('/api/builds').set(auth(otherSupplier))).body).toEqual([]);
+    expect((await request(t.app).get('/api/kits').set(auth(otherSupplier))).body).toEqual({ items: [], next: null });
+    expect((await request(t.app).get('/api/designs').set(auth(otherSupplier))).body).toEqual({ items: [], next: null });
+    expect((await request(t.app).get('/api/builds').set(auth(otherSupplier))).body).toEqual({ items: [], next: null });
     const designs = await request(t.app).get('/api/designs').set(auth(tok.supplier));
-    expect((await request(t.app).get(`/api/designs/${designs.body[0].id}`).set(auth(otherSupplier))).status).toBe(404);
+    expect((await request(t.app).get(`/api/designs/${designs.body.items[0].id}`).set(auth(otherSupplier))).status).toBe(404);
   });
 
   it("shows the supplier where findings cluster on a part across builds, and no one else's", async () => {
     const designs = await request(t.app).get('/api/designs').set(auth(tok.supplier));
-    const rib = designs.body.find((d: { partNumber: string }) => d.partNumber === 'W-104');
+    const rib = designs.body.items.find((d: { partNumber: string }) => d.partNumber === 'W-104');
     const res = await request(t.app).get(`/api/designs/${rib.id}/finding-clusters`).set(auth(tok.supplier));
     expect(res.status).toBe(200);
     expect(res.body[0]).toMatchObject({ letter: 'A', holeId: 'U-09', count: 1, builds: 1, open: 1, kinds: { hole_elongated: 1 } });

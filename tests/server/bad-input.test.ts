@@ -24,7 +24,7 @@ beforeAll(async () => {
   t = await startTestApp();
   tok = await t.tokens();
   const parts = await request(t.app).get('/api/travelers').set(auth(tok.builder));
-  travelerId = parts.body.find((p: { partNumber: string }) => p.partNumber === 'W-104').id;
+  travelerId = parts.body.items.find((p: { partNumber: string }) => p.partNumber === 'W-104').id;
 });
 afterAll(async () => { await t?.close(); });
 
@@ -46,7 +46,7 @@ describe('bad input gets a clear error and saves nothing', () => {
   it('refuses pitch zones with a gap and names the zone', async () => {
     const kits = await request(t.app).get('/api/kits').set(auth(tok.supplier));
     const res = await request(t.app).post('/api/designs').set(auth(tok.supplier)).send({
-      design: { kitModelId: kits.body[0].id, partNumber: 'X-1', name: 'gappy', kind: 'rib' },
+      design: { kitModelId: kits.body.items[0].id, partNumber: 'X-1', name: 'gappy', kind: 'rib' },
       revision: {
         material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 40,
         lines: [{ code: 'U', name: 'Upper', surface: 'upper', startIn: 1, lengthIn: 30, zones: [{ fromIn: 0, toIn: 10, pitchIn: 1 }, { fromIn: 12, toIn: 30, pitchIn: 2 }] }],
@@ -60,7 +60,7 @@ describe('bad input gets a clear error and saves nothing', () => {
     // FAA AC 43.13-1B ch. 4: pitch ≥ 3D, edge distance ≥ 2D; MS20470AD4 is 1/8 in, so 0.375 and 0.25 in.
     const kits = await request(t.app).get('/api/kits').set(auth(tok.supplier));
     const res = await request(t.app).post('/api/designs').set(auth(tok.supplier)).send({
-      design: { kitModelId: kits.body[0].id, partNumber: 'X-2', name: 'tight', kind: 'rib' },
+      design: { kitModelId: kits.body.items[0].id, partNumber: 'X-2', name: 'tight', kind: 'rib' },
       revision: {
         material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20470AD4-4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.2, chordIn: 40,
         lines: [{ code: 'U', name: 'Upper', surface: 'upper', startIn: 1, lengthIn: 30, zones: [{ fromIn: 0, toIn: 10, pitchIn: 0.3 }, { fromIn: 10, toIn: 30, pitchIn: 2 }] }],
@@ -123,12 +123,12 @@ describe('bad input gets a clear error and saves nothing', () => {
   });
 
   it('refuses a kit serial with a control character, naming the field, and ships nothing', async () => {
-    const kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body[0].id;
-    const before = (await request(t.app).get('/api/builds').set(auth(tok.supplier))).body.length;
+    const kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items[0].id;
+    const before = (await request(t.app).get('/api/builds').set(auth(tok.supplier))).body.items.length;
     const res = await request(t.app).post('/api/builds').set(auth(tok.supplier)).send({
       kitModelId, kitSerial: 'NK2-\u00000999', builderEmail: 'tobias@benchwork.example', inspectorEmail: 'priya@checkpoint.example',
     });
     expect([res.status, Object.keys(res.body.error.fields)]).toEqual([400, ['kitSerial']]);
-    expect((await request(t.app).get('/api/builds').set(auth(tok.supplier))).body).toHaveLength(before);
+    expect((await request(t.app).get('/api/builds').set(auth(tok.supplier))).body.items).toHaveLength(before);
   });
 });

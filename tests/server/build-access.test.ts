@@ -18,13 +18,13 @@ beforeAll(async () => {
   const helper = await t.addUser('builder', 'hal.helper@shop.example');
   const adviser = await t.addUser('inspector', 'ada.adviser@checks.example');
   const removed = await t.addUser('builder', 'rex.removed@shop.example');
-  buildId = (await request(t.app).get('/api/builds').set(auth(tok.supplier))).body[0].id;
+  buildId = (await request(t.app).get('/api/builds').set(auth(tok.supplier))).body.items[0].id;
   // The owner adds a helper and the one to be removed; the supplier adds a technical adviser.
   for (const [token, email, place] of [[tok.builder, 'hal.helper@shop.example', 'helper'], [tok.builder, 'rex.removed@shop.example', 'helper'], [tok.supplier, 'ada.adviser@checks.example', 'adviser']] as const) {
     const res = await request(t.app).post(`/api/builds/${buildId}/members`).set(auth(token)).send({ email, place });
     if (res.status !== 200) throw new Error(`add ${email}: ${res.status} ${JSON.stringify(res.body)}`);
   }
-  travelerId = (await request(t.app).get('/api/travelers').set(auth(tok.builder))).body.find((p: { partNumber: string }) => p.partNumber === 'W-104').id;
+  travelerId = (await request(t.app).get('/api/travelers').set(auth(tok.builder))).body.items.find((p: { partNumber: string }) => p.partNumber === 'W-104').id;
   findingId = (await request(t.app).get('/api/findings?status=open').set(auth(tok.builder))).body.items[0].id;
   removedPhotoUrl = (await request(t.app).get(`/api/findings/${findingId}`).set(auth(removed))).body.photos[0].url;
   const rexId = (await request(t.app).get(`/api/builds/${buildId}`).set(auth(tok.builder))).body.people.members

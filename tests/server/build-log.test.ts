@@ -14,7 +14,6 @@ const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 type Entry = { id: string; at: string; kind: string; actorName: string; holeIds?: string[]; text: string; note?: string; findingId?: string; partNumber: string; photos?: { thumbUrl: string; url: string }[] };
 const kinds = (body: { items: Entry[] }) => body.items.map((e) => e.kind);
 /** A list answer, whether it is a page (`{ items, next }`) or a bare array. */
-const rowsOf = <T>(body: T[] | { items: T[] }): T[] => (Array.isArray(body) ? body : body.items);
 const log = (token: string, query: Record<string, string> = {}) => request(t.app).get(`/api/builds/${buildId}/log`).query(query).set(auth(token));
 
 /** RFC 4180 reader: quoted fields may hold commas, doubled quotes and line breaks. */
@@ -38,10 +37,10 @@ beforeAll(async () => {
   tok = await t.tokens();
   ({ builder: otherBuilder, inspector: otherInspector, supplier: otherSupplier } = await t.outsiders());
   const builds = await request(t.app).get('/api/builds').set(auth(tok.supplier));
-  buildId = rowsOf<{ id: string; kitSerial: string }>(builds.body).find((b) => b.kitSerial === 'NK2-0147')!.id;
+  buildId = (builds.body.items as { id: string; kitSerial: string }[]).find((b) => b.kitSerial === 'NK2-0147')!.id;
   const parts = await request(t.app).get('/api/travelers').set(auth(tok.builder));
-  innerId = rowsOf<{ id: string; partNumber: string }>(parts.body).find((p) => p.partNumber === 'W-104')!.id;
-  outerId = rowsOf<{ id: string; partNumber: string }>(parts.body).find((p) => p.partNumber === 'W-105')!.id;
+  innerId = (parts.body.items as { id: string; partNumber: string }[]).find((p) => p.partNumber === 'W-104')!.id;
+  outerId = (parts.body.items as { id: string; partNumber: string }[]).find((p) => p.partNumber === 'W-105')!.id;
 });
 afterAll(async () => { await t?.close(); });
 

@@ -55,13 +55,13 @@ beforeAll(async () => {
   tok = await t.tokens();
   other = await t.outsiders();
   const kits = await request(t.app).get('/api/kits').set(auth(tok.supplier));
-  const kitModelId = (kits.body.items ?? kits.body)[0].id;
+  const kitModelId = kits.body.items[0].id;
   const built = await request(t.app).post('/api/builds').set(auth(tok.supplier)).send({
     kitModelId, kitSerial: 'PG-0001', builderEmail: 'other.builder@elsewhere.example', inspectorEmail: 'other.inspector@elsewhere.example',
   });
   expect(built.status).toBe(201);
   const builds = await request(t.app).get('/api/builds').set(auth(tok.supplier));
-  const demoBuild = (builds.body.items ?? builds.body).find((b: { kitSerial: string }) => b.kitSerial === 'NK2-0147');
+  const demoBuild = builds.body.items.find((b: { kitSerial: string }) => b.kitSerial === 'NK2-0147');
   demo = { buildId: demoBuild.id, travelerIds: await travelersOf(demoBuild.id) };
   second = { buildId: built.body.id, travelerIds: await travelersOf(built.body.id) };
 

@@ -87,7 +87,7 @@ describe('the main loop through the API', () => {
     expect(res.status).toBe(200);
     expect(res.body.holes.every((h: { status: string }) => h.status === 'installed')).toBe(true);
     const list = await request(t.app).get('/api/travelers').set(auth(tok.builder));
-    expect(list.body.find((x: { id: string }) => x.id === travelerId).holesDone).toBe(3);
+    expect(list.body.items.find((x: { id: string }) => x.id === travelerId).holesDone).toBe(3);
   });
 
   it('raises a finding on a suspect hole with a photo and mails the inspector with part, hole, kind, link and thumbnail', async () => {

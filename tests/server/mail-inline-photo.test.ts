@@ -77,7 +77,7 @@ describe('a finding raised with a photo, through the job queue', () => {
     const tok = await t.tokens();
     const list = await request(t.app).get('/api/travelers').set(auth(tok.builder));
     expect(list.status).toBe(200);
-    const traveler = await request(t.app).get(`/api/travelers/${list.body[0].id}`).set(auth(tok.builder));
+    const traveler = await request(t.app).get(`/api/travelers/${list.body.items[0].id}`).set(auth(tok.builder));
     const hole = traveler.body.holes.find((h: { status: string }) => h.status === 'pending');
     const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
       .field('travelerId', traveler.body.id).field('holeIds', JSON.stringify([hole.holeId])).field('kind', 'hole_cracked').field('note', 'crack at the edge')

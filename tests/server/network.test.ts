@@ -109,7 +109,7 @@ describe('network mode served', () => {
 
   it('puts the public address it was given in labels and on the phone setup page, with the certificate to trust', async () => {
     const tok = await t.tokens();
-    const buildId = (await request(t.app).get('/api/builds').set({ Authorization: `Bearer ${tok.supplier}` })).body[0].id;
+    const buildId = (await request(t.app).get('/api/builds').set({ Authorization: `Bearer ${tok.supplier}` })).body.items[0].id;
     const labels = await request(t.app).get(`/api/travelers/labels?buildId=${buildId}`).set({ Authorization: `Bearer ${tok.supplier}` });
     expect(labels.body[0].url).toMatch(new RegExp(`^https://192\\.0\\.2\\.44:${port}/t/`));
     const setup = await request(t.app).get('/api/network').set({ Authorization: `Bearer ${tok.admin}` });
@@ -128,7 +128,7 @@ describe('a loopback public address', () => {
 
   it('refuses to print labels, saying how to set the address', async () => {
     const tok = await t.tokens();
-    const buildId = (await request(t.app).get('/api/builds').set({ Authorization: `Bearer ${tok.supplier}` })).body[0].id;
+    const buildId = (await request(t.app).get('/api/builds').set({ Authorization: `Bearer ${tok.supplier}` })).body.items[0].id;
     const res = await request(t.app).get(`/api/travelers/labels?buildId=${buildId}`).set({ Authorization: `Bearer ${tok.supplier}` });
     expect(res.status).toBe(409);
     expect(res.body.error.message).toMatch(/npm start -- --lan|PUBLIC_URL/);

@@ -167,7 +167,7 @@ describe('two API processes and one worker on one database and one object store'
       method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: DEMO_USERS.builder.email, password: DEMO_PASSWORD }),
     });
     const auth = { Authorization: `Bearer ${token}` };
-    const [first] = await json(`${api[0]}/api/travelers`, { headers: auth });
+    const { items: [first] } = await json(`${api[0]}/api/travelers`, { headers: auth });
     const traveler = await json(`${api[0]}/api/travelers/${first.id}`, { headers: auth });
     const hole = traveler.holes.find((h: { status: string }) => h.status === 'pending');
 

@@ -240,7 +240,7 @@ describe('labels with a loopback public address', () => {
 
   it('are refused with how to set the address, even for one part', async () => {
     const tokens = await local.tokens();
-    const parts = (await request(local.app).get('/api/travelers').set(auth(tokens.builder))).body;
+    const parts = (await request(local.app).get('/api/travelers').set(auth(tokens.builder))).body.items;
     const res = await request(local.app).get('/api/travelers/labels').query({ travelerId: parts[0].id }).set(auth(tokens.builder));
     expect([res.status, res.body.error.message]).toEqual([409, expect.stringMatching(/phone cannot open.*PUBLIC_URL/)]);
   });

@@ -93,13 +93,13 @@ export const visible = (page: Page, id: string) => page.locator(`[data-testid="$
  */
 export async function gatherIds(t: TestApp): Promise<Ids> {
   const tokens = await t.tokens();
-  const parts = (await request(t.app).get('/api/travelers').set(auth(tokens.builder))).body as { id: string; partNumber: string; buildId: string }[];
+  const parts = (await request(t.app).get('/api/travelers').set(auth(tokens.builder))).body.items as { id: string; partNumber: string; buildId: string }[];
   const inner = parts.find((p) => p.partNumber === 'W-104')!;
   const detail = (await request(t.app).get(`/api/travelers/${inner.id}`).set(auth(tokens.builder))).body;
-  const kits = (await request(t.app).get('/api/kits').set(auth(tokens.supplier))).body as { id: string; code: string }[];
+  const kits = (await request(t.app).get('/api/kits').set(auth(tokens.supplier))).body.items as { id: string; code: string }[];
   const kit = kits.find((k) => k.code === 'NK-2')!;
-  const designs = (await request(t.app).get(`/api/designs?kitModelId=${kit.id}`).set(auth(tokens.supplier))).body as { id: string; partNumber: string }[];
-  const studies = (await request(t.app).get('/api/studies').set(auth(tokens.supplier))).body as { id: string; kind: string }[];
+  const designs = (await request(t.app).get(`/api/designs?kitModelId=${kit.id}`).set(auth(tokens.supplier))).body.items as { id: string; partNumber: string }[];
+  const studies = (await request(t.app).get('/api/studies').set(auth(tokens.supplier))).body.items as { id: string; kind: string }[];
   const walk = await walkKit(t, tokens.supplier, tokens.builder);
   return {
     buildId: inner.buildId, travelerId: inner.id, findingId: detail.findings[0].id, kitId: kit.id,
