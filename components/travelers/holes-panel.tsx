@@ -1,84 +1,30 @@
-import { memo, useEffect, useRef } from 'react';
-import { Pressable, StyleSheet, View } from 'react-native';
-import { holesDoneStatuses, type FastenerLine, type Hole } from '@/db/contracts';
-import { colors, hairline, radius, space, touch } from '@/constants/theme';
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
+import { Platform, StyleSheet, View, type LayoutChangeEvent } from 'react-native';
+import type { FastenerLine, Hole } from '@/db/contracts';
+import { colors, hairline, space } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
-import { HoleMark, holeStatusLabels } from '@/components/ui/status-mark';
+import { Field, TextBox } from '@/components/ui/field';
 import { moveFocusTo } from '@/components/ui/focus';
 import { Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
-import { Toggle } from '@/components/ui/toggle';
 import { useUnits } from '@/hooks/use-units';
+import { CHIP_GAP, CHIP_MIN, ChipProbe, HoleChip } from './hole-chip';
+import { findTarget, holeItems, itemOffsets, renderRuns, windowRange, type HoleItem } from './hole-window';
 import type { RunPick, RunPlan } from './run-selection';
-
-type ChipProps = {
-  hole: Hole;
-  station: string;
-  /** Picking a run's ends: the chip picks, it does not tick. */
-  picking: boolean;
-  inRun: boolean;
-  isRunStart: boolean;
-  focused: boolean;
-  disabled: boolean;
-  onPress: (h: Hole) => void;
-};
+import { usePageScroll, visibleSpan } from './use-page-scroll';
 
 /**
- * One hole: its mark, id, station and status in words, big enough for a gloved thumb. Ticking, it is
- * a checkbox (checked when done); picking a run's ends, a button that is pressed while the hole is in
- * the run: a press then picks, it does not tick, and a checkbox would say otherwise.
+ * A part with up to this many holes is drawn whole (every demo part; the page's find and a screen
+ * reader's reading order see every hole). Beyond it only the holes near the screen are drawn.
  */
-const HoleChip = memo(function HoleChip({ hole, station, picking, inRun, isRunStart, focused, disabled, onPress }: ChipProps) {
-  // Done for good, as the rules module counts it: a reworked hole still waits for the inspector.
-  const done = holesDoneStatuses.includes(hole.status);
-  const name = `${hole.holeId}, station ${station}, ${holeStatusLabels[hole.status]}`;
-  const style = ({ pressed }: { pressed: boolean }) => [
-    styles.chip,
-    done && { backgroundColor: colors.paper },
-    inRun && styles.inRun,
-    isRunStart && styles.runStart,
-    focused && styles.focused,
-    pressed && { opacity: 0.7 },
-  ];
-  const body = (
-    <>
-      <View style={styles.chipTop}>
-        <HoleMark status={hole.status} size={20} decorative />
-        <Mono bold>{hole.holeId}</Mono>
-      </View>
-      <Mono variant="small" tone="soft">{station}</Mono>
-      {/* The state in words as well as in the mark's shape and colour: read in bad light, and without colour. */}
-      <Txt variant="small" bold={hole.status !== 'pending' && hole.status !== 'installed'}>{holeStatusLabels[hole.status]}</Txt>
-    </>
-  );
-  if (picking) {
-    return (
-      <Pressable
-        testID={`hole-${hole.holeId}`}
-        accessibilityRole="button"
-        aria-pressed={inRun}
-        accessibilityLabel={`${name}${isRunStart ? ', first of the run' : inRun ? ', in the run' : ''}`}
-        onPress={() => onPress(hole)}
-        style={style}
-      >
-        {body}
-      </Pressable>
-    );
-  }
-  return (
-    <Toggle
-      kind="checkbox"
-      checked={done}
-      testID={`hole-${hole.holeId}`}
-      accessibilityLabel={name}
-      disabled={disabled}
-      onPress={() => onPress(hole)}
-      style={style}
-    >
-      {body}
-    </Toggle>
-  );
-});
+export const DRAW_ALL_HOLES = 200;
+/** Columns before the list's width is known (a test's DOM, the first frame). */
+const DEFAULT_COLS = 4;
+/** At the least this many holes are drawn about the screen, however short the window. */
+const MIN_HOLES = 60;
+/** Heights used until an item has been laid out once (px, chip and heading at 100 % text). */
+const ROW_GUESS = 84;
+const HEAD_GUESS = 40;
 
 type Props = {
   lines: FastenerLine[];
@@ -98,7 +44,7 @@ type Props = {
 
 export function HolesPanel({ lines, holes, canTick, mode, pick, run, plan, focusId, onHolePress, onStartRun, onCancelRun, onTickRun, message }: Props) {
   const u = useUnits();
-  const runSet = new Set(run.map((h) => h.holeId));
+  const runSet = useMemo(() => new Set(run.map((h) => h.holeId)), [run]);
   // Focus follows the work: into the run bar when a run starts (its button is gone), back to
   // "Tick a run" when it ends; without this focus fell to the page and a keyboard user started over.
   const runBarRef = useRef<View>(null);
@@ -109,6 +55,181 @@ export function HolesPanel({ lines, holes, canTick, mode, pick, run, plan, focus
     lastMode.current = mode;
     moveFocusTo(mode === 'run' ? runBarRef.current : runModeRef.current);
   }, [mode]);
+
+  // Columns: as many chips of the widest content as fit across the list.
+  const [listWidth, setListWidth] = useState(0);
+  const [chipWidth, setChipWidth] = useState(0);
+  const measured = listWidth > 0 && chipWidth > 0;
+  const cols = measured ? Math.max(1, Math.floor((listWidth + CHIP_GAP) / (Math.max(CHIP_MIN, chipWidth) + CHIP_GAP))) : DEFAULT_COLS;
+  const colWidth = measured ? Math.floor((listWidth - CHIP_GAP * (cols - 1)) / cols) : undefined;
+
+  const { items, itemOfHole, itemOfLine, holeCount } = useMemo(() => holeItems(lines, holes, cols), [lines, holes, cols]);
+  const windowed = Platform.OS === 'web' && holeCount > DRAW_ALL_HOLES;
+
+  // Heights of items laid out so far, by key; the rest are guessed from the rows already seen.
+  const heights = useRef(new Map<string, number>());
+  const [heightsVersion, setHeightsVersion] = useState(0);
+  useEffect(() => { heights.current.clear(); }, [cols]);
+  // Unmeasured items are guessed at the height last measured for their kind (rows are all alike).
+  const guess = useRef({ row: ROW_GUESS, head: HEAD_GUESS });
+  const onItemLayout = useCallback((key: string, h: number) => {
+    if (!(h > 0) || heights.current.get(key) === h) return;
+    const kind = key.startsWith('row:') ? 'row' : 'head';
+    // As guessed: nothing moves, so nothing to draw again.
+    if (!heights.current.has(key) && guess.current[kind] === h) return;
+    heights.current.set(key, h);
+    guess.current[kind] = h;
+    setHeightsVersion((v) => v + 1);
+  }, []);
+  const offsets = useMemo(() => {
+    if (!windowed) return [];
+    const { row, head } = guess.current;
+    return itemOffsets(items.map((it) => heights.current.get(it.key) ?? (it.kind === 'row' ? row : head)));
+    // heightsVersion: the map is read afresh whenever a new height comes in.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [items, windowed, heightsVersion]);
+
+  const minItems = Math.ceil(MIN_HOLES / cols) + 2;
+  const [range, setRange] = useState<[number, number]>([0, minItems]);
+  const listRef = useRef<View>(null);
+  const placeWindow = useCallback(() => {
+    if (!windowed) return;
+    const span = visibleSpan(listRef.current);
+    const next: [number, number] = span
+      // Half a window's height drawn beyond each edge of the screen: a fling or a Tab lands on drawn holes.
+      ? windowRange(offsets, span.top, span.bottom, Math.max(300, (span.bottom - span.top) / 2), minItems)
+      : windowRange(offsets, 0, 0, 0, minItems);
+    setRange((r) => (r[0] === next[0] && r[1] === next[1] ? r : next));
+  }, [windowed, offsets, minItems]);
+  useLayoutEffect(placeWindow, [placeWindow]);
+  usePageScroll(placeWindow, windowed);
+
+  // The list's width and the widest chip's, read before the first paint and again on every resize
+  // (fonts arriving, a phone turned, text made larger).
+  const probeRef = useRef<View>(null);
+  useLayoutEffect(() => {
+    const w = visibleSpan(listRef.current)?.width ?? 0;
+    if (w > 0) setListWidth(Math.floor(w));
+    const p = visibleSpan(probeRef.current)?.width ?? 0;
+    if (p > 0) setChipWidth(Math.ceil(p));
+  }, []);
+  const onListLayout = useCallback((e: LayoutChangeEvent) => setListWidth(Math.floor(e.nativeEvent.layout.width)), []);
+
+  // Keyboard focus and a hole asked for by id stay drawn however far the page scrolls from them.
+  const [focusedHole, setFocusedHole] = useState<string | null>(null);
+  // Let go only once focus has left the list, after the blur: dropping the pin during the blur would
+  // take away the row that Tab is moving focus to (it landed on the page's body).
+  const onFocusHole = useCallback((id: string | null) => {
+    if (id) {
+      setFocusedHole(id);
+      return;
+    }
+    setTimeout(() => {
+      const list = listRef.current as unknown as HTMLElement | null;
+      const now = typeof document === 'undefined' ? null : document.activeElement;
+      if (!list?.contains?.(now)) setFocusedHole(null);
+    }, 0);
+  }, []);
+  const [wanted, setWanted] = useState<{ holeId?: string; line?: string; n: number } | null>(null);
+  const keep: number[] = [];
+  // With two items either side of it (one may be a heading), so Tab and Shift+Tab go on to the next
+  // hole along the line, not to whatever is drawn where the page has been scrolled to.
+  if (focusedHole && itemOfHole.has(focusedHole)) {
+    const at = itemOfHole.get(focusedHole)!;
+    keep.push(at - 2, at - 1, at, at + 1, at + 2);
+  }
+  if (wanted?.holeId && itemOfHole.has(wanted.holeId)) keep.push(itemOfHole.get(wanted.holeId)!);
+  // A line's heading with its first rows, so Tab from the heading lands on the line's first hole.
+  if (wanted?.line && itemOfLine.has(wanted.line)) for (let i = 0; i < 4; i++) keep.push(itemOfLine.get(wanted.line)! + i);
+  useLayoutEffect(() => {
+    if (!wanted) return;
+    const list = listRef.current as unknown as HTMLElement | null;
+    const node = list?.querySelector?.<HTMLElement>(`[data-testid="${wanted.holeId ? `hole-${wanted.holeId}` : `holes-${wanted.line}`}"]`);
+    if (node) {
+      node.scrollIntoView?.({ block: 'center' });
+      moveFocusTo(node);
+    }
+  }, [wanted]);
+  // Once the page has scrolled there the window covers it (and focus holds it): let it go.
+  useEffect(() => {
+    if (!wanted) return;
+    const id = setTimeout(() => setWanted((w) => (w === wanted ? null : w)), 500);
+    return () => clearTimeout(id);
+  }, [wanted]);
+
+  const [goTo, setGoTo] = useState('');
+  const [goToError, setGoToError] = useState<string | undefined>();
+  const go = () => {
+    const target = findTarget(goTo, holes, lines);
+    if (!target) {
+      setGoToError(goTo.trim() ? `No hole or line ${goTo.trim()} on this part.` : 'Type a hole id, such as U-07, or a line, such as U.');
+      return;
+    }
+    setGoToError(undefined);
+    setWanted((w) => ('hole' in target ? { holeId: target.hole.holeId, n: (w?.n ?? 0) + 1 } : { line: target.line.code, n: (w?.n ?? 0) + 1 }));
+  };
+
+  // The longest id and station of the part set the width of every column.
+  const probe = useMemo(() => {
+    let holeId = '';
+    let station = '';
+    for (const h of holes) {
+      if (h.holeId.length > holeId.length) holeId = h.holeId;
+      const s = u.station(h.stationIn);
+      if (s.length > station.length) station = s;
+    }
+    return { holeId, station };
+  }, [holes, u]);
+
+  const renderItem = (it: HoleItem) => {
+    if (it.kind === 'head') {
+      return (
+        <Measured key={it.key} id={it.key} onSize={windowed ? onItemLayout : undefined} style={[styles.head, it !== items[0] && styles.headAfter]}>
+          <View testID={`holes-${it.line.code}`}>
+            <Txt bold accessibilityRole="header" aria-level={3}>
+              <Mono bold>{it.line.code}</Mono> {it.line.name} <Mono variant="small" tone="soft">{it.done}/{it.total}</Mono>
+            </Txt>
+          </View>
+        </Measured>
+      );
+    }
+    return (
+      <Measured key={it.key} id={it.key} onSize={windowed ? onItemLayout : undefined} style={styles.row}>
+        {it.holes.map((h) => (
+          <HoleChip
+            key={h.holeId}
+            hole={h}
+            station={u.station(h.stationIn)}
+            picking={mode === 'run'}
+            inRun={mode === 'run' && runSet.has(h.holeId)}
+            isRunStart={mode === 'run' && pick?.firstId === h.holeId}
+            focused={focusId === h.holeId}
+            disabled={!canTick}
+            width={colWidth}
+            onPress={onHolePress}
+            onFocusHole={windowed ? onFocusHole : undefined}
+          />
+        ))}
+      </Measured>
+    );
+  };
+
+  let body: React.ReactNode[];
+  if (!windowed) {
+    body = items.map(renderItem);
+  } else {
+    const runs = renderRuns(offsets, range, keep);
+    body = [];
+    let end = 0;
+    for (const r of runs) {
+      if (r.gapBefore > 0) body.push(<View key={`gap:${r.from}`} style={{ height: r.gapBefore }} />);
+      for (let i = r.from; i < r.to; i++) body.push(renderItem(items[i]));
+      end = r.to;
+    }
+    const tail = offsets[items.length] - offsets[end];
+    if (tail > 0) body.push(<View key="gap:end" style={{ height: tail }} />);
+  }
+
   return (
     <View style={{ gap: space.md }} testID="holes">
       {canTick ? (
@@ -143,32 +264,48 @@ export function HolesPanel({ lines, holes, canTick, mode, pick, run, plan, focus
         )
       ) : null}
       {message ? <Notice tone={message.tone} testID={message.tone === 'error' ? 'tick-error' : 'tick-info'}>{message.text}</Notice> : null}
-      {lines.map((line) => {
-        const onLine = holes.filter((h) => h.line === line.code).sort((a, b) => a.seq - b.seq);
-        const done = onLine.filter((h) => holesDoneStatuses.includes(h.status)).length;
-        return (
-          <View key={line.code} style={{ gap: space.sm }} testID={`holes-${line.code}`}>
-            <Txt bold>
-              <Mono bold>{line.code}</Mono> {line.name} <Mono variant="small" tone="soft">{done}/{onLine.length}</Mono>
-            </Txt>
-            <View style={styles.grid}>
-              {onLine.map((h) => (
-                <HoleChip
-                  key={h.holeId}
-                  hole={h}
-                  station={u.station(h.stationIn)}
-                  picking={mode === 'run'}
-                  inRun={mode === 'run' && runSet.has(h.holeId)}
-                  isRunStart={mode === 'run' && pick?.firstId === h.holeId}
-                  focused={focusId === h.holeId}
-                  disabled={!canTick}
-                  onPress={onHolePress}
-                />
-              ))}
-            </View>
+      {windowed ? (
+        // A long list shows only the holes near the screen: this reaches any of them at once, by
+        // keyboard or screen reader as well as by thumb (and picks a run's far end without scrolling to it).
+        <View style={styles.bar}>
+          <View style={{ flex: 1, minWidth: 180 }}>
+            <Field
+              label="Go to a hole"
+              hint={`${holeCount} holes on ${lines.length} line${lines.length === 1 ? '' : 's'}: those near the screen are shown as you scroll.`}
+              error={goToError}
+              testID="hole-go-to-field"
+            >
+              <TextBox
+                value={goTo}
+                onChangeText={(s) => { setGoTo(s); setGoToError(undefined); }}
+                onSubmitEditing={go}
+                placeholder="Hole id or line, e.g. U-120"
+                accessibilityLabel="Go to a hole: its id or its line"
+                autoCorrect={false}
+                autoCapitalize="characters"
+                mono
+                testID="hole-go-to"
+              />
+            </Field>
           </View>
-        );
-      })}
+          <Button label="Go" variant="secondary" onPress={go} testID="hole-go-to-go" style={{ alignSelf: 'flex-end' }} />
+        </View>
+      ) : null}
+      <View ref={listRef} onLayout={onListLayout} testID="holes-list">
+        <ChipProbe holeId={probe.holeId} station={probe.station} onWidth={setChipWidth} ref={probeRef} />
+        {body}
+      </View>
+    </View>
+  );
+}
+
+/** An item of the list that reports its height once laid out (only when the list is windowed). */
+function Measured({ id, onSize, style, children }: {
+  id: string; onSize?: (key: string, h: number) => void; style: React.ComponentProps<typeof View>['style']; children: React.ReactNode;
+}) {
+  return (
+    <View style={style} onLayout={onSize ? (e) => onSize(id, e.nativeEvent.layout.height) : undefined}>
+      {children}
     </View>
   );
 }
@@ -177,22 +314,8 @@ const styles = StyleSheet.create({
   bar: { flexDirection: 'row', alignItems: 'center', gap: space.md, flexWrap: 'wrap' },
   runBar: { backgroundColor: colors.accentSoft, padding: space.md, borderWidth: hairline, borderColor: colors.accent },
   runButtons: { flexDirection: 'row', gap: space.sm },
-  grid: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
-  chip: {
-    // Two to a row even on a phone at 200 % text; a longer hole id widens its chip rather than breaking.
-    minWidth: 76,
-    minHeight: touch + 8,
-    paddingHorizontal: space.sm,
-    paddingVertical: space.xs,
-    borderWidth: hairline,
-    borderColor: colors.ruleStrong,
-    borderRadius: radius.sm,
-    backgroundColor: colors.paperRaised,
-    justifyContent: 'center',
-    gap: 2,
-  },
-  chipTop: { flexDirection: 'row', alignItems: 'center', gap: space.xs },
-  inRun: { borderColor: colors.accent, borderWidth: 2, backgroundColor: colors.accentSoft },
-  runStart: { borderStyle: 'dashed' },
-  focused: { borderColor: colors.accent, borderWidth: 3 },
+  // Spacing inside each item, so an item's measured height is the whole step to the next one.
+  head: { paddingBottom: space.sm },
+  headAfter: { paddingTop: space.md },
+  row: { flexDirection: 'row', gap: CHIP_GAP, paddingBottom: CHIP_GAP },
 });

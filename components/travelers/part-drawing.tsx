@@ -1,12 +1,13 @@
 import { useMemo, useState } from 'react';
 import { Platform, ScrollView, StyleSheet, View, type LayoutChangeEvent } from 'react-native';
-import Svg, { Circle, G, Line, Polygon, Polyline, Text as SvgText } from 'react-native-svg';
+import Svg, { Circle, G, Line, Path, Polygon, Polyline, Text as SvgText } from 'react-native-svg';
 import { holeStatuses, type Hole, type HoleStatus, type TravelerDetail } from '@/db/contracts';
 import { colors, fonts, space, statusColors } from '@/constants/theme';
 import { Choice } from '@/components/ui/choice';
-import { holeShapes, holeStatusLabels, MarkGlyph } from '@/components/ui/status-mark';
+import { holeShapes, holeStatusLabels } from '@/components/ui/status-mark';
 import { Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
+import { markLayers, ringsPath } from './mark-paths';
 import { linePath, makeProjection, outlineBounds, placeHoles, smallestPitch, type Bounds } from './part-geometry';
 
 type Zoom = 'fit' | 'closer' | 'closest';
@@ -19,7 +20,7 @@ const TARGET_MIN = 24;
 
 /**
  * Where marks overlap (a whole part on a phone), the ones that ask for attention are drawn last, on
- * top: a flagged or held hole is never hidden under its pending neighbours.
+ * top: a flagged or held hole is never hidden under its pending neighbours. Each status is one layer.
  */
 const drawOrder: Record<HoleStatus, number> = { pending: 0, installed: 1, accepted: 2, reworked: 3, held: 4, flagged: 5 };
 
@@ -68,7 +69,11 @@ export function PartDrawing({ detail, runIds, focusId, onHolePress }: Props) {
   // Each hole's tap target reaches halfway to its nearest neighbour, so targets never overlap.
   const { hitRadius, closest } = useMemo(() => {
     const byLine = new Map<string, typeof placed>();
-    for (const h of placed) byLine.set(h.line, [...(byLine.get(h.line) ?? []), h]);
+    for (const h of placed) {
+      const on = byLine.get(h.line);
+      if (on) on.push(h);
+      else byLine.set(h.line, [h]);
+    }
     const out = new Map<string, number>();
     let nearest = Infinity;
     for (const hs of byLine.values()) {
@@ -86,7 +91,22 @@ export function PartDrawing({ detail, runIds, focusId, onHolePress }: Props) {
   // that (a whole rib on a phone) a tap could not say which hole was meant, and the holes list below
   // ticks and flags the same holes with large chips.
   const pickable = !!onHolePress && width > 0 && closest >= TARGET_MIN;
-  const ordered = useMemo(() => [...placed].sort((a, b) => drawOrder[a.status] - drawOrder[b.status]), [placed]);
+  const marks = useMemo(() => {
+    const byStatus = new Map<HoleStatus, { x: number; y: number }[]>();
+    for (const h of placed) {
+      const at = byStatus.get(h.status) ?? [];
+      at.push({ x: proj.x(h.x), y: proj.y(h.y) });
+      byStatus.set(h.status, at);
+    }
+    return holeStatuses
+      .slice()
+      .sort((a, b) => drawOrder[a] - drawOrder[b])
+      .flatMap((st) => markLayers(holeShapes[st], statusColors[st], byStatus.get(st) ?? [], r));
+    // proj is remade each render from these same numbers.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [placed, scale, r, bounds]);
+  const runPlaced = useMemo(() => (runIds?.size ? placed.filter((h) => runIds.has(h.holeId)) : []), [placed, runIds]);
+  const focusPlaced = focusId ? placed.find((h) => h.holeId === focusId) : undefined;
   const summary = useMemo(() => {
     const n: Partial<Record<HoleStatus, number>> = {};
     for (const h of detail.holes) n[h.status] = (n[h.status] ?? 0) + 1;
@@ -166,29 +186,38 @@ export function PartDrawing({ detail, runIds, focusId, onHolePress }: Props) {
                   </G>
                 );
               })}
-              {ordered.map((h) => {
-                const cx = proj.x(h.x);
-                const cy = proj.y(h.y);
-                const inRun = runIds?.has(h.holeId);
-                const focused = focusId === h.holeId;
-                return (
-                  <G key={h.holeId} aria-hidden>
-                    {inRun ? <Circle cx={cx} cy={cy} r={r + 4} fill={colors.accentSoft} stroke={colors.accent} strokeWidth={1} /> : null}
-                    <MarkGlyph shape={holeShapes[h.status]} color={statusColors[h.status]} cx={cx} cy={cy} r={r} />
-                    {focused ? <Circle cx={cx} cy={cy} r={r + 6} fill="none" stroke={colors.accent} strokeWidth={2.5} /> : null}
-                    {pickable ? (
-                      <Circle
-                        cx={cx}
-                        cy={cy}
-                        r={hitRadius.get(h.holeId) ?? TARGET_MIN / 2}
-                        fill="transparent"
-                        onPress={() => onHolePress?.(h)}
-                        {...svgTestId(`drawing-hole-${h.holeId}`)}
-                      />
-                    ) : null}
-                  </G>
-                );
-              })}
+              {/* The run being picked: a halo under each of its marks. */}
+              {runPlaced.length ? (
+                <Path d={ringsPath(runPlaced.map((h) => ({ x: proj.x(h.x), y: proj.y(h.y) })), r + 4)} fill={colors.accentSoft} stroke={colors.accent} strokeWidth={1} aria-hidden />
+              ) : null}
+              {/* One path per status and layer, whatever the number of holes (see mark-paths.ts). */}
+              {marks.map((m, i) => (
+                <Path
+                  key={i}
+                  d={m.d}
+                  fill={m.fill}
+                  stroke={m.stroke}
+                  strokeWidth={m.strokeWidth}
+                  strokeLinecap={m.round ? 'round' : undefined}
+                  strokeLinejoin={m.round ? 'round' : undefined}
+                  aria-hidden
+                />
+              ))}
+              {focusPlaced ? (
+                <Circle cx={proj.x(focusPlaced.x)} cy={proj.y(focusPlaced.y)} r={r + 6} fill="none" stroke={colors.accent} strokeWidth={2.5} aria-hidden />
+              ) : null}
+              {pickable ? placed.map((h) => (
+                <Circle
+                  key={h.holeId}
+                  cx={proj.x(h.x)}
+                  cy={proj.y(h.y)}
+                  r={hitRadius.get(h.holeId) ?? TARGET_MIN / 2}
+                  fill="transparent"
+                  onPress={() => onHolePress?.(h)}
+                  aria-hidden
+                  {...svgTestId(`drawing-hole-${h.holeId}`)}
+                />
+              )) : null}
               {/* Station ruler along the chord, from the leading edge. */}
               <G>
                 <Line x1={proj.x(bounds.minX)} y1={proj.height + 6} x2={proj.x(bounds.maxX)} y2={proj.height + 6} stroke={colors.ink} strokeWidth={1} />

@@ -68,3 +68,16 @@ export function toggleHole(hole: Hole): { action: TickHolesInput | null; reason?
   if (hole.status === 'installed') return { action: { holeIds: [hole.holeId], status: 'pending' } };
   return { action: null, reason: `${hole.holeId} is ${hole.status}. It changes through its finding, not by ticking.` };
 }
+
+/** The most holes one tick request may carry (tickHolesInput in db/contracts/travelers.ts). */
+export const TICK_BATCH_MAX = 500;
+
+/**
+ * A run longer than one request may carry, as requests of at most TICK_BATCH_MAX holes in order along
+ * the line: a whole line of a large part is more than 500 holes.
+ */
+export function tickBatches(action: TickHolesInput, max = TICK_BATCH_MAX): TickHolesInput[] {
+  const out: TickHolesInput[] = [];
+  for (let i = 0; i < action.holeIds.length; i += max) out.push({ ...action, holeIds: action.holeIds.slice(i, i + max) });
+  return out;
+}

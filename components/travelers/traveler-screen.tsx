@@ -19,7 +19,7 @@ import { useFlash } from '@/hooks/use-flash';
 import { useUnits } from '@/hooks/use-units';
 import { HolesPanel } from './holes-panel';
 import { PartDrawing } from './part-drawing';
-import { pickRunEnd, planRun, runHoles, toggleHole, type RunPick } from './run-selection';
+import { pickRunEnd, planRun, runHoles, tickBatches, toggleHole, type RunPick } from './run-selection';
 import { StepsList } from './steps-list';
 import { TravelerHeader } from './traveler-header';
 import { WithdrawSignOff } from './withdraw-sign-off';
@@ -197,7 +197,7 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
           onStartRun={() => { setMode('run'); setPick(null); setMessage(null); }}
           onCancelRun={() => { setMode('tap'); setPick(null); }}
           onTickRun={() => {
-            if (plan?.action) send(plan.action);
+            if (plan?.action) for (const batch of tickBatches(plan.action)) send(batch);
             setMode('tap');
             setPick(null);
           }}
