@@ -1,9 +1,4 @@
-import { AtkinsonHyperlegible_400Regular } from '@expo-google-fonts/atkinson-hyperlegible/400Regular';
-import { AtkinsonHyperlegible_700Bold } from '@expo-google-fonts/atkinson-hyperlegible/700Bold';
-import { IBMPlexMono_400Regular } from '@expo-google-fonts/ibm-plex-mono/400Regular';
-import { IBMPlexMono_600SemiBold } from '@expo-google-fonts/ibm-plex-mono/600SemiBold';
 import { QueryClientProvider } from '@tanstack/react-query';
-import { useFonts } from 'expo-font';
 import { DefaultTheme, Stack, ThemeProvider } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';
 import { useEffect, useRef, useState, type ReactNode } from 'react';
@@ -14,6 +9,7 @@ import { LoadingState } from '@/components/ui/states';
 import { makeQueryClient } from '@/hooks/query-client';
 import { SessionProvider, useSession } from '@/hooks/use-session';
 import { UnitsProvider } from '@/hooks/use-units';
+import { useAppFonts } from '@/lib/app-fonts';
 
 const navTheme = {
   ...DefaultTheme,
@@ -21,8 +17,9 @@ const navTheme = {
 };
 
 export default function RootLayout() {
-  // Fonts ship in the bundle; text shows at once in the fallback face and switches when they load.
-  useFonts({ AtkinsonHyperlegible_400Regular, AtkinsonHyperlegible_700Bold, IBMPlexMono_400Regular, IBMPlexMono_600SemiBold });
+  // The app's faces (lib/app-fonts.ts; on the web the page declares them): text shows at once in the
+  // fallback face and switches when they load.
+  useAppFonts();
   const [queryClient] = useState(makeQueryClient);
   return (
     <QueryClientProvider client={queryClient}>

@@ -2,7 +2,8 @@
 // scripts/build-web.sh runs around `expo export`:
 //
 //   node scripts/build-offline.mjs icons            before: the manifest's icons into public/icons/
-//   node scripts/build-offline.mjs service-worker   after:  dist/sw.js (Workbox), precaching the export
+//   node scripts/build-offline.mjs service-worker [DIR]   after:  DIR/sw.js (Workbox, DIR defaults to
+//                                                            dist/), precaching the export
 //
 // Plain JavaScript on purpose: Workbox writes the route matchers and plugins below into sw.js from
 // their source text (Function#toString), so they must reach it exactly as written here, not as a
@@ -14,7 +15,6 @@ import sharp from 'sharp';
 import { generateSW } from 'workbox-build';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
-const dist = path.join(root, 'dist');
 const offline = JSON.parse(readFileSync(path.join(root, 'lib', 'offline-caches.json'), 'utf8'));
 
 const iconSource = path.join(root, 'assets', 'images', 'icon.png');
@@ -70,19 +70,20 @@ const perPerson = {
   },
 };
 
-async function serviceWorker() {
-  if (!existsSync(path.join(dist, 'index.html'))) throw new Error('dist/index.html is missing: export the web app first');
+async function serviceWorker(dist) {
+  if (!existsSync(path.join(dist, 'index.html'))) throw new Error(`${dist}/index.html is missing: export the web app first`);
   const { count, size, warnings } = await generateSW({
     globDirectory: dist,
-    // The app shell: the page, the JS bundles (the QR reader's chunk too), fonts and images, the QR
-    // reader's wasm, the icons and the manifest. Enough to open every screen with no signal.
+    // The app shell: the page, the JS bundles (the entry and every screen's chunk: async routes load
+    // a screen's code when it is first opened, so all of them are kept for opening it with no signal;
+    // the QR reader's chunk too), fonts and images, the QR reader's wasm, the icons and the manifest.
     globPatterns: [
-      'index.html', '_expo/static/**/*.{js,css}', 'assets/**/*.{ttf,otf,woff,woff2,png,jpg,svg}',
+      'index.html', '_expo/static/**/*.{js,css}', 'assets/**/*.{ttf,otf,woff,woff2,png,jpg,svg}', 'fonts/*.woff2',
       'zxing_reader.wasm', 'icons/*.png', 'manifest.webmanifest', 'favicon.ico',
     ],
     // Expo puts the fonts and images of packages under assets/node_modules/, which Workbox skips by default.
     globIgnores: [],
-    // The main bundle is about 2.4 MB and the wasm about 1.1 MB; Workbox's default limit is 2 MB.
+    // The wasm is about 1.1 MB and the entry bundle about as much; Workbox's default limit is 2 MB.
     maximumFileSizeToCacheInBytes: 8 * 1024 * 1024,
     // Expo names bundles, fonts and images by their content hash: no extra revision needed for those.
     dontCacheBustURLsMatching: /[.-][0-9a-f]{32}(@\dx)?\.\w+$/,
@@ -138,8 +139,8 @@ async function serviceWorker() {
 
 const step = process.argv[2];
 if (step === 'icons') await icons();
-else if (step === 'service-worker') await serviceWorker();
+else if (step === 'service-worker') await serviceWorker(path.resolve(root, process.argv[3] ?? 'dist'));
 else {
-  console.error('usage: node scripts/build-offline.mjs icons|service-worker');
+  console.error('usage: node scripts/build-offline.mjs icons | service-worker [DIR]');
   process.exit(2);
 }
