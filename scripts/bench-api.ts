@@ -17,7 +17,6 @@
  * BENCH_REQUESTS (300, at most 2000) timed requests per case after BENCH_WARM_UP (50); a row stops early at BENCH_ROW_SECONDS
  * (45) with the requests it timed (the count is printed), and the whole run at 10 minutes.
  */
-import { execFileSync } from 'node:child_process';
 import { timingSafeEqual } from 'node:crypto';
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
@@ -27,6 +26,7 @@ import { Pool, type PoolClient, type QueryConfig } from 'pg';
 import { sql } from 'drizzle-orm';
 import { DEMO_USERS } from '../db/seed';
 import { startTestApp } from '../tests/helpers/test-app';
+import { pg } from './bench-common';
 
 const root = path.join(__dirname, '..');
 const REQUESTS = Math.min(2000, Math.max(20, Number(process.env.BENCH_REQUESTS ?? 300) || 300));
@@ -39,7 +39,6 @@ const PG_NAME = 'bench-api';
 const PG_PORT = process.env.BENCH_PGPORT ?? '54351';
 const FLOOR_TOKEN = 'floor-token-0123456789abcdef0123456789abcdef';
 
-const pg = (...args: string[]) => execFileSync('bash', [path.join(root, 'scripts', 'pg.sh'), ...args], { encoding: 'utf8' }).trim();
 const pct = (xs: number[], p: number) => {
   const s = [...xs].sort((a, b) => a - b);
   return s[Math.min(s.length - 1, Math.max(0, Math.ceil((p / 100) * s.length) - 1))];

@@ -10,13 +10,14 @@
  * measured is the server's alone. Traffic goes to 127.0.0.1 only; every loop is bounded and the run
  * stops after TIME_LIMIT_MS whatever happens.
  */
-import { execFileSync, spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { Pool } from 'pg';
 import { DEMO_PASSWORD, DEMO_USERS } from '../db/seed';
+import { pg } from './bench-common';
 
 const root = path.join(__dirname, '..');
 const ENTRIES = Math.min(200_000, Math.max(1_000, Number(process.env.BENCH_LOG_ENTRIES ?? 50_000) || 50_000));
@@ -26,7 +27,6 @@ const TIME_LIMIT_MS = 15 * 60_000;
 const HEALTH_EVERY_MS = 50;
 const TARGET = { healthP99Ms: 100, rssMb: 400 };
 
-const pg = (...args: string[]) => execFileSync('bash', [path.join(root, 'scripts', 'pg.sh'), ...args], { encoding: 'utf8' }).trim();
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const deadline = Date.now() + TIME_LIMIT_MS;
 const left = () => Math.max(1_000, deadline - Date.now());

@@ -8,12 +8,13 @@
  * started it), and the real app on 127.0.0.1 with a port the system picks; requests go there only.
  * BENCH_ROUNDS (40, at most 200) sign-ins of each kind, interleaved so drift affects both alike.
  */
-import { execFileSync, spawnSync } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import { DEMO_USERS } from '../db/seed';
 import { startTestApp } from '../tests/helpers/test-app';
+import { median, pg } from './bench-common';
 
 const root = path.join(__dirname, '..');
 const ROUNDS = Math.min(200, Math.max(5, Number(process.env.BENCH_ROUNDS ?? 40) || 40));
@@ -21,12 +22,6 @@ const WARM_UP = 3;
 /** The whole run stops here even if the server crawls. */
 const TIME_LIMIT_MS = 180_000;
 
-const median = (xs: number[]) => {
-  const s = [...xs].sort((a, b) => a - b);
-  const m = Math.floor(s.length / 2);
-  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
-};
-const pg = (...args: string[]) => execFileSync('bash', [path.join(root, 'scripts', 'pg.sh'), ...args], { encoding: 'utf8' }).trim();
 
 async function main() {
   let stopCluster: (() => void) | undefined;

@@ -33,6 +33,7 @@ import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_USERS } from '../db/seed';
 import { launchBrowser } from '../tests/e2e/helpers/browser';
 import { startTestApp, type TestApp } from '../tests/helpers/test-app';
+import { median, pg } from './bench-common';
 
 const root = path.join(__dirname, '..');
 const work = path.join(os.tmpdir(), 'pitchcard-bench-web');
@@ -47,15 +48,9 @@ const TARGET_PAINT = 1.5;
 const TARGET_BIG_PART = 1.3;
 const BIG_PART_HOLES = 2000;
 
-const median = (xs: number[]) => {
-  const s = [...xs].sort((a, b) => a - b);
-  const m = Math.floor(s.length / 2);
-  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
-};
 const kB = (n: number) => `${(n / 1000).toFixed(1)} kB`;
 const ms = (n: number) => `${n.toFixed(0)} ms`;
 const ratio = (a: number, b: number, target: number) => `${(a / b).toFixed(2)}× (target ≤ ${target}×: ${a / b <= target ? 'within' : 'over'})`;
-const pg = (...args: string[]) => execFileSync('bash', [path.join(root, 'scripts', 'pg.sh'), ...args], { encoding: 'utf8' }).trim();
 
 /** The empty app: one screen, this project's lock file and node_modules, the same web output. */
 function exportEmptyApp() {

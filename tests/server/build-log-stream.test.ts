@@ -3,6 +3,7 @@ import request from 'supertest';
 import { DEMO_USERS } from '@/db/seed';
 import { pdfText } from '../helpers/pdf-text';
 import { startTestApp, type TestApp } from '../helpers/test-app';
+import { parseCsv } from '../helpers/csv';
 
 jest.setTimeout(180000);
 
@@ -20,24 +21,7 @@ const NOTES = 100;
 
 const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 type Entry = { id: string; at: string; kind: string; holeIds?: string[]; text: string };
-const rowsOf = <T>(body: T[] | { items: T[] }): T[] => (Array.isArray(body) ? body : body.items);
 const hole = (i: number) => `H${String(i).padStart(4, '0')}`;
-
-/** RFC 4180 reader: quoted fields may hold commas, doubled quotes and line breaks. */
-function parseCsv(text: string): string[][] {
-  const rows: string[][] = [];
-  let row: string[] = []; let field = ''; let quoted = false;
-  const s = text.replace(/^\uFEFF/, '');
-  for (let i = 0; i < s.length; i++) {
-    const c = s[i];
-    if (quoted) {
-      if (c === '"' && s[i + 1] === '"') { field += '"'; i++; } else if (c === '"') quoted = false; else field += c;
-    } else if (c === '"') quoted = true;
-    else if (c === ',') { row.push(field); field = ''; } else if (c === '\r' && s[i + 1] === '\n') { row.push(field); rows.push(row); row = []; field = ''; i++; } else field += c;
-  }
-  if (field || row.length) { row.push(field); rows.push(row); }
-  return rows;
-}
 
 const binary = (r: request.Response, cb: (err: Error | null, body: Buffer) => void) => {
   const c: Buffer[] = []; r.on('data', (d: Buffer) => c.push(d)); r.on('end', () => cb(null, Buffer.concat(c)));
@@ -46,7 +30,7 @@ const binary = (r: request.Response, cb: (err: Error | null, body: Buffer) => vo
 beforeAll(async () => {
   t = await startTestApp();
   tok = await t.tokens();
-  buildId = rowsOf<{ id: string; kitSerial: string }>((await request(t.app).get('/api/builds').set(auth(tok.supplier))).body)
+  buildId = ((await request(t.app).get('/api/builds').set(auth(tok.supplier))).body.items as { id: string; kitSerial: string }[])
     .find((b) => b.kitSerial === 'NK2-0147')!.id;
   const first = await request(t.app).get(`/api/builds/${buildId}/log`).query({ limit: 100 }).set(auth(tok.builder));
   expect(first.body.next).toBeNull();

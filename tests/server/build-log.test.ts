@@ -2,6 +2,7 @@ import request from 'supertest';
 import { DEMO_USERS } from '@/db/seed';
 import { pdfText } from '../helpers/pdf-text';
 import { startTestApp, type TestApp } from '../helpers/test-app';
+import { parseCsv } from '../helpers/csv';
 
 jest.setTimeout(60000);
 
@@ -13,24 +14,7 @@ let buildId: string; let innerId: string; let outerId: string; let findingId: st
 const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 type Entry = { id: string; at: string; kind: string; actorName: string; holeIds?: string[]; text: string; note?: string; findingId?: string; partNumber: string; photos?: { thumbUrl: string; url: string }[] };
 const kinds = (body: { items: Entry[] }) => body.items.map((e) => e.kind);
-/** A list answer, whether it is a page (`{ items, next }`) or a bare array. */
 const log = (token: string, query: Record<string, string> = {}) => request(t.app).get(`/api/builds/${buildId}/log`).query(query).set(auth(token));
-
-/** RFC 4180 reader: quoted fields may hold commas, doubled quotes and line breaks. */
-function parseCsv(text: string): string[][] {
-  const rows: string[][] = [];
-  let row: string[] = []; let field = ''; let quoted = false;
-  const s = text.replace(/^\uFEFF/, '');
-  for (let i = 0; i < s.length; i++) {
-    const c = s[i];
-    if (quoted) {
-      if (c === '"' && s[i + 1] === '"') { field += '"'; i++; } else if (c === '"') quoted = false; else field += c;
-    } else if (c === '"') quoted = true;
-    else if (c === ',') { row.push(field); field = ''; } else if (c === '\r' && s[i + 1] === '\n') { row.push(field); rows.push(row); row = []; field = ''; i++; } else field += c;
-  }
-  if (field || row.length) { row.push(field); rows.push(row); }
-  return rows;
-}
 
 beforeAll(async () => {
   t = await startTestApp();
