@@ -1,4 +1,4 @@
-import { sql, type AnyColumn, type SQL } from 'drizzle-orm';
+import { sql, type AnyColumn, type Placeholder, type SQL } from 'drizzle-orm';
 import type { Page } from '../db/contracts';
 import { badRequest } from './http-error';
 
@@ -28,7 +28,7 @@ export function decodeCursor(cursor: string | undefined, shape: Shape): CursorKe
 }
 
 /** `(a, b) < (x, y)` for a descending list, `>` for an ascending one: a row comparison PostgreSQL answers from a two-column index. */
-export function afterKey(columns: readonly (AnyColumn | SQL)[], key: CursorKey | null, order: 'asc' | 'desc'): SQL | undefined {
+export function afterKey(columns: readonly (AnyColumn | SQL)[], key: CursorKey | readonly Placeholder[] | null, order: 'asc' | 'desc'): SQL | undefined {
   if (!key) return undefined;
   const cols = sql.join(columns.map((c) => sql`${c}`), sql`, `);
   const vals = sql.join(key.map((v) => sql`${v}`), sql`, `);

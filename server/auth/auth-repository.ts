@@ -8,9 +8,19 @@ const sessionColumns = {
   organizationId: users.organizationId, organizationName: organizations.name,
 };
 
+/**
+ * Every signed-in request reads its person: prepared once per client, so drizzle builds the statement
+ * once and PostgreSQL parses it once per connection (the first name keeps it on each).
+ */
+const sessionUserQueries = new WeakMap<Db, ReturnType<typeof prepareSessionUser>>();
+const prepareSessionUser = (db: Db) => db.select({ ...sessionColumns, active: users.active, sessionVersion: users.sessionVersion })
+  .from(users).leftJoin(organizations, eq(organizations.id, users.organizationId)).where(eq(users.id, sql.placeholder('id')))
+  .prepare('session_user');
+
 export async function findSessionUser(db: Db, id: string): Promise<(SessionUser & { active: boolean; sessionVersion: number }) | undefined> {
-  const [row] = await db.select({ ...sessionColumns, active: users.active, sessionVersion: users.sessionVersion })
-    .from(users).leftJoin(organizations, eq(organizations.id, users.organizationId)).where(eq(users.id, id));
+  let query = sessionUserQueries.get(db);
+  if (!query) sessionUserQueries.set(db, query = prepareSessionUser(db));
+  const [row] = await query.execute({ id });
   return row;
 }
 

@@ -2,13 +2,14 @@ import { and, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
 import { buildMembers, builds } from '../../db/schema';
 import type { BuildPlace } from '../../db/contracts';
+import type { Viewer } from '../prepared';
 
 /**
  * The one rule of who sees a build, as a condition on `builds`: a supplier sees its organisation's,
  * a builder the builds they build, an inspector the builds assigned to them, an admin all.
  * Every traveler, finding and photo query goes through it.
  */
-export function visibleBuilds(db: Db, user: Express.User): SQL {
+export function visibleBuilds(db: Db, user: Viewer): SQL {
   switch (user.role) {
     case 'admin': return sql`true`;
     case 'supplier': return user.organizationId ? eq(builds.organizationId, user.organizationId) : sql`false`;
@@ -44,7 +45,7 @@ export async function placeOnBuild(db: Db, user: Express.User, buildId: string):
  * The same place as `placeOnBuild`, as a column of a query that already reads `builds`: the part's
  * own read answers it, so a request does not look the person's place up in a statement of its own.
  */
-export function placeColumn(user: Express.User): SQL<BuildPlace> {
+export function placeColumn(user: Viewer): SQL<BuildPlace> {
   switch (user.role) {
     case 'supplier':
       return user.organizationId

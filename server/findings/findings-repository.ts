@@ -6,6 +6,7 @@ import {
 import { openFindingStatuses, type FindingStatus, type HoleStatus, type MailAudience } from '../../db/contracts';
 import { visibleBuilds } from '../builds/build-access';
 import { afterKey } from '../pagination';
+import { preparedFor, viewerAsParams, type Viewer } from '../prepared';
 
 export type FindingFilter = { id?: string; travelerId?: string; buildId?: string; status?: FindingStatus | 'open' };
 
@@ -56,17 +57,39 @@ export type FindingOrder = 'newest' | 'oldest';
  * and first photo per row, served by `finding_photos_finding`).
  * `after` is [created_at as PostgreSQL's text, id] of the last row shown; `limit` null reads every row (one traveler's).
  */
-export function listFindingPage(
+export async function listFindingPage(
   db: Db, user: Express.User, filter: Omit<FindingFilter, 'id'>, order: FindingOrder, after: readonly [string, string] | null, limit: number | null,
 ) {
-  const dir = order === 'oldest' ? 'asc' : 'desc';
+  const { shape: viewerShape, viewer, params } = viewerAsParams(user);
+  // Every part of the SQL that a request can change, spelled out: the statement is prepared once per shape.
+  const shape = [
+    viewerShape, filter.travelerId ? 't' : '', filter.buildId ? 'b' : '', filter.status === 'open' ? 'o' : filter.status ? 's' : '',
+    order === 'oldest' ? 'a' : 'd', after ? 'k' : '', limit === null ? '' : 'l',
+  ].join('');
+  const statement = preparedFor(db, `finding_page_${shape}`, (name) => findingPageQuery(db, viewer, {
+    travelerId: !!filter.travelerId, buildId: !!filter.buildId, status: filter.status === 'open' ? 'open' : filter.status ? 'one' : null,
+    order, after: !!after, limit: limit !== null,
+  }).prepare(name));
+  return statement.execute({
+    ...params, travelerId: filter.travelerId, buildId: filter.buildId, status: filter.status,
+    afterAt: after?.[0], afterId: after?.[1], limit: limit === null ? undefined : limit + 1,
+  });
+}
+export type FindingPageRow = Awaited<ReturnType<typeof listFindingPage>>[number];
+
+/** The page's statement for one shape: which filters it has (their values are placeholders), its order, keyset and limit. */
+function findingPageQuery(
+  db: Db, user: Viewer,
+  has: { travelerId: boolean; buildId: boolean; status: 'open' | 'one' | null; order: FindingOrder; after: boolean; limit: boolean },
+) {
+  const dir = has.order === 'oldest' ? 'asc' : 'desc';
   const by = dir === 'asc' ? asc : desc;
   const conditions: (SQL | undefined)[] = [
     visibleBuilds(db, user),
-    filter.travelerId ? eq(findings.travelerId, filter.travelerId) : undefined,
-    filter.buildId ? eq(travelers.buildId, filter.buildId) : undefined,
-    statusCondition(filter.status),
-    afterKey([findings.createdAt, findings.id], after, dir),
+    has.travelerId ? eq(findings.travelerId, sql.placeholder('travelerId')) : undefined,
+    has.buildId ? eq(travelers.buildId, sql.placeholder('buildId')) : undefined,
+    has.status === 'open' ? statusCondition('open') : has.status ? eq(findings.status, sql.placeholder('status')) : undefined,
+    afterKey([findings.createdAt, findings.id], has.after ? [sql.placeholder('afterAt'), sql.placeholder('afterId')] : null, dir),
   ];
   // The page's rows carry every column the list shows from findings, travelers and builds: those rows are
   // read by then, and joining findings again by id would let the planner scan the whole table to do it.
@@ -83,7 +106,7 @@ export function listFindingPage(
     .where(and(...conditions))
     .orderBy(by(findings.createdAt), by(findings.id))
     .$dynamic();
-  const page = (limit === null ? keys : keys.limit(limit + 1)).as('page');
+  const page = (has.limit ? keys.limit(sql.placeholder('limit')) : keys).as('page');
   const photos = db.select({
     count: sql<number>`count(*)::int`.as('photo_count'),
     firstId: sql<string | null>`(array_agg(${findingPhotos.id} order by ${findingPhotos.createdAt}, ${findingPhotos.id}))[1]`.as('first_photo_id'),
@@ -101,7 +124,6 @@ export function listFindingPage(
     .leftJoinLateral(photos, sql`true`)
     .orderBy(by(page.createdAt), by(page.id));
 }
-export type FindingPageRow = Awaited<ReturnType<typeof listFindingPage>>[number];
 
 export const listEvents = (db: Db, findingId: string) =>
   db.select({

@@ -6,6 +6,7 @@ import {
   type Hole, type HoleStatus, type PartFacts, type TravelerSummary,
 } from '../../db/contracts';
 import { placeColumn, visibleBuilds } from '../builds/build-access';
+import { preparedFor, viewerAsParams, type Viewer } from '../prepared';
 import { afterKey } from '../pagination';
 import { checkLayout } from '../designs/layout-check';
 import { newQrToken, newShortCode } from './codes';
@@ -120,7 +121,14 @@ export async function listTravelerPage(db: Db, user: Express.User, by: TravelerL
  * was replaced by; its holes and steps as JSON. Visibility is part of the condition: nothing, not 403.
  */
 export async function readTravelerPage(db: Db, user: Express.User, id: string) {
-  const [row] = await db.select({
+  const { shape, viewer, params } = viewerAsParams(user);
+  const statement = preparedFor(db, `traveler_page_${shape}`, (name) => travelerPageQuery(db, viewer).prepare(name));
+  const [row] = await statement.execute({ ...params, id });
+  return row;
+}
+
+function travelerPageQuery(db: Db, user: Viewer) {
+  return db.select({
     traveler: travelers,
     // The revision's own columns the page shows, not its study basis (which can be large).
     revision: {
@@ -146,8 +154,7 @@ export async function readTravelerPage(db: Db, user: Express.User, id: string) {
     .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
     .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
     .innerJoin(kitModels, eq(kitModels.id, partDesigns.kitModelId))
-    .where(and(eq(travelers.id, id), visibleBuilds(db, user)));
-  return row;
+    .where(and(eq(travelers.id, sql.placeholder('id')), visibleBuilds(db, user)));
 }
 
 /**
@@ -156,10 +163,14 @@ export async function readTravelerPage(db: Db, user: Express.User, id: string) {
  * so it sees every write that held the lock before.
  */
 export async function lockVisibleTraveler(tx: Db, user: Express.User, id: string) {
-  const [row] = await tx.select({ traveler: travelers, place: placeColumn(user) }).from(travelers)
+  const { shape, viewer, params } = viewerAsParams(user);
+  // Prepared on the unit of work's connection (db/index.ts keeps one client per connection): every bench write starts here.
+  const statement = preparedFor(tx, `traveler_lock_${shape}`, (name) => tx.select({ traveler: travelers, place: placeColumn(viewer) }).from(travelers)
     .innerJoin(builds, eq(builds.id, travelers.buildId))
-    .where(and(eq(travelers.id, id), visibleBuilds(tx, user)))
-    .for('no key update', { of: travelers });
+    .where(and(eq(travelers.id, sql.placeholder('id')), visibleBuilds(tx, viewer)))
+    .for('no key update', { of: travelers })
+    .prepare(name));
+  const [row] = await statement.execute({ ...params, id });
   return row;
 }
 
