@@ -60,7 +60,8 @@ export function createApp({ config, database, mailQueue, storage, smtpFake, logg
   app.use(securityHeaders(config));
   // A stored study result is some hundreds of kB of JSON and the web bundle 2 MB: both shrink ~10× gzipped.
   app.use(compression());
-  app.use(ctx.passport.initialize());
+  // No passport.initialize(): sign-in is stateless (a bearer token checked per route by `authenticate`),
+  // and initialize only decorates every request, static files included, for session log-ins we do not use.
 
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
