@@ -6,17 +6,21 @@
  * (health p99 < 100 ms, process < 400 MB). Figures, not assertions.
  *
  * It runs its own PostgreSQL cluster (scripts/pg.sh, name bench-log, port BENCH_PGPORT or 54352; stopped
- * at the end if it started it) and the product's server as a child process on 127.0.0.1, so the memory
- * measured is the server's alone. Traffic goes to 127.0.0.1 only; every loop is bounded and the run
- * stops after TIME_LIMIT_MS whatever happens.
+ * at the end if it started it) and measures the server as it runs in production: compiled by
+ * scripts/build-server.sh into a folder of its own under .cache/ and started with plain `node`
+ * (NODE_ENV=production, as scripts/start-prod.sh does), a child process on 127.0.0.1, so the memory
+ * measured is the server's alone and carries no tsx. The demo is loaded first by the sources' server in
+ * development mode (the only mode that seeds), which is stopped before the compiled one starts.
+ * Traffic goes to 127.0.0.1 only; every loop is bounded and the run stops after TIME_LIMIT_MS whatever happens.
  */
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { Pool } from 'pg';
 import { DEMO_PASSWORD, DEMO_USERS } from '../db/seed';
+import { startSmtpFake, type SmtpFake } from '../server/mail/smtp-fake';
 import { pg } from './bench-common';
 
 const root = path.join(__dirname, '..');
@@ -26,6 +30,8 @@ const CLUSTER = 'bench-log';
 const TIME_LIMIT_MS = 15 * 60_000;
 const HEALTH_EVERY_MS = 50;
 const TARGET = { healthP99Ms: 100, rssMb: 400 };
+/** Node flags for the measured server only, e.g. BENCH_SERVER_FLAGS='--cpu-prof --cpu-prof-dir=/tmp/prof' (written when it exits). */
+const SERVER_FLAGS = (process.env.BENCH_SERVER_FLAGS ?? '').split(/\s+/).filter(Boolean);
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const deadline = Date.now() + TIME_LIMIT_MS;
@@ -50,37 +56,99 @@ function memoryOf(pid: number): { rss: number; hwm: number } | null {
   }
 }
 
+/**
+ * CPU seconds used so far (user + system, from /proc) by the whole process and by its main thread alone,
+ * the thread that answers requests: on a busy machine latencies wander, these do not.
+ */
+function cpuOf(pid: number): { process: number; main: number } | null {
+  const seconds = (stat: string) => {
+    const f = stat.slice(stat.lastIndexOf(')') + 2).split(' '); // after "pid (comm) ": field 3 is f[0]
+    return (Number(f[11]) + Number(f[12])) / 100; // utime, stime in clock ticks (USER_HZ, 100 on Linux)
+  };
+  try {
+    return { process: seconds(readFileSync(`/proc/${pid}/stat`, 'utf8')), main: seconds(readFileSync(`/proc/${pid}/task/${pid}/stat`, 'utf8')) };
+  } catch {
+    return null;
+  }
+}
+
 const pct = (xs: number[], p: number) => {
   if (!xs.length) return NaN;
   const s = [...xs].sort((a, b) => a - b);
   return s[Math.min(s.length - 1, Math.ceil((p / 100) * s.length) - 1)];
 };
 
-/** The server's own process: `node --import tsx server/index.ts` with a fresh database and the demo loaded. */
-async function startServer(databaseUrl: string, uploads: string): Promise<{ child: ChildProcess; base: string }> {
-  const port = await freePort();
-  const smtpPort = await freePort();
-  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    cwd: root, stdio: ['ignore', 'pipe', 'pipe'],
-    env: {
-      ...process.env, NODE_ENV: 'development', DATABASE_URL: databaseUrl, PORT: String(port), HOST: '127.0.0.1',
-      JWT_SECRET: 'bench-log-secret-that-is-long-enough-for-hs256', SMTP_FAKE: '1', SMTP_PORT: String(smtpPort), SMTP_HOST: '127.0.0.1',
-      SEED_DEMO: '1', UPLOADS_DIR: uploads, WEB_DIST: path.join(uploads, 'no-web'), LOG_LEVEL: 'warn', PUBLIC_URL: `http://127.0.0.1:${port}`,
-    },
-  });
-  let output = '';
-  child.stdout!.on('data', (d) => { output += d; });
-  child.stderr!.on('data', (d) => { output += d; });
-  const base = `http://127.0.0.1:${port}`;
+/** Waits until `base` answers /api/health; throws with the process's output if it stops or never answers. */
+async function waitHealthy(child: ChildProcess, base: string, output: () => string): Promise<void> {
   for (let i = 0; i < 600; i++) {
-    if (child.exitCode !== null) throw new Error(`the server stopped at start-up:\n${output}`);
+    if (child.exitCode !== null) throw new Error(`the server stopped at start-up:\n${output()}`);
     try {
-      if ((await fetch(`${base}/api/health`, { signal: AbortSignal.timeout(1_000) })).ok) return { child, base };
+      if ((await fetch(`${base}/api/health`, { signal: AbortSignal.timeout(1_000) })).ok) return;
     } catch { /* not up yet */ }
     await sleep(100);
   }
   child.kill('SIGTERM');
-  throw new Error(`the server did not answer within 60 s:\n${output}`);
+  throw new Error(`the server did not answer within 60 s:\n${output()}`);
+}
+
+/** SIGTERM, then (after 10 s) SIGKILL: the server drains and exits on its own. */
+async function stop(child: ChildProcess): Promise<void> {
+  if (child.exitCode !== null || child.signalCode !== null) return;
+  const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
+  child.kill('SIGTERM');
+  await Promise.race([exited, sleep(10_000)]);
+  if (child.exitCode === null && child.signalCode === null) { child.kill('SIGKILL'); await exited; }
+}
+
+function spawnLogged(args: string[], env: NodeJS.ProcessEnv) {
+  const child = spawn(process.execPath, args, { cwd: root, stdio: ['ignore', 'pipe', 'pipe'], env });
+  let output = '';
+  child.stdout!.on('data', (d) => { output += d; });
+  child.stderr!.on('data', (d) => { output += d; });
+  return { child, output: () => output };
+}
+
+/**
+ * The demo scenario, loaded the only way the product loads it: the server from its sources in
+ * development mode with SEED_DEMO=1 (a production server never seeds, and refuses the SMTP fake).
+ * It migrates, seeds, answers once, and is stopped again; the measured server is the compiled one.
+ */
+async function seedThroughSources(env: NodeJS.ProcessEnv): Promise<void> {
+  const port = await freePort();
+  const smtpPort = await freePort();
+  const { child, output } = spawnLogged(['--import', 'tsx', 'server/index.ts'], {
+    ...env, NODE_ENV: 'development', PORT: String(port), PUBLIC_URL: `http://127.0.0.1:${port}`,
+    SMTP_FAKE: '1', SMTP_PORT: String(smtpPort), SEED_DEMO: '1',
+  });
+  try {
+    await waitHealthy(child, `http://127.0.0.1:${port}`, output);
+  } finally {
+    await stop(child);
+  }
+}
+
+/** `npm run build:server` into a folder of its own inside the project (node_modules resolves from there, as in build/). */
+function compileServer(): string {
+  mkdirSync(path.join(root, '.cache'), { recursive: true });
+  const dir = mkdtempSync(path.join(root, '.cache', 'bench-log-build-'));
+  const made = spawnSync('bash', [path.join(root, 'scripts', 'build-server.sh'), dir], { cwd: root, encoding: 'utf8' });
+  if (made.status !== 0) throw new Error(`scripts/build-server.sh failed:\n${made.stdout}${made.stderr}`);
+  return dir;
+}
+
+/**
+ * The measured process: the compiled server as scripts/start-prod.sh runs it (`node <build>/server/index.js`,
+ * NODE_ENV=production), no tsx, no demo seeding, its mail going over SMTP to a relay on loopback (the
+ * bench's own SMTP fake), so that the queue's consumers run as they would in production.
+ */
+async function startServer(build: string, env: NodeJS.ProcessEnv): Promise<{ child: ChildProcess; base: string; output: () => string }> {
+  const port = await freePort();
+  const base = `http://127.0.0.1:${port}`;
+  const { child, output } = spawnLogged([...SERVER_FLAGS, path.join(build, 'server', 'index.js')], {
+    ...env, NODE_ENV: 'production', PORT: String(port), PUBLIC_URL: base, SMTP_FAKE: '0', SEED_DEMO: '0',
+  });
+  await waitHealthy(child, base, output);
+  return { child, base, output };
 }
 
 /**
@@ -106,7 +174,10 @@ async function seedLog(pool: Pool): Promise<string> {
   return b.id;
 }
 
-type Run = { label: string; ms: number; bytes: number; status: number; health: number[]; healthFailed: number; peakRss: number };
+type Run = {
+  label: string; ms: number; bytes: number; status: number; health: number[]; healthFailed: number; peakRss: number;
+  cpu: { process: number; main: number } | null;
+};
 
 /** Downloads one export while asking for /api/health every 50 ms and sampling the server's memory. */
 async function download(base: string, token: string, pid: number, label: string, suffix: string): Promise<Run> {
@@ -128,6 +199,7 @@ async function download(base: string, token: string, pid: number, label: string,
       if (wait > 0) await sleep(wait);
     }
   })();
+  const cpuBefore = cpuOf(pid);
   const start = performance.now();
   let bytes = 0;
   let status = 0;
@@ -145,8 +217,10 @@ async function download(base: string, token: string, pid: number, label: string,
     running = false;
   }
   const ms = performance.now() - start;
+  const cpuAfter = cpuOf(pid);
   await sampler;
-  return { label, ms, bytes, status, health, healthFailed, peakRss };
+  const cpu = cpuBefore && cpuAfter ? { process: cpuAfter.process - cpuBefore.process, main: cpuAfter.main - cpuBefore.main } : null;
+  return { label, ms, bytes, status, health, healthFailed, peakRss, cpu };
 }
 
 async function main() {
@@ -158,8 +232,23 @@ async function main() {
   const uploads = mkdtempSync(path.join(os.tmpdir(), 'pc-bench-log-'));
   let server: ChildProcess | undefined;
   const pool = new Pool({ connectionString: databaseUrl, max: 2 });
+  let build: string | undefined;
+  let relay: SmtpFake | undefined;
   try {
-    const started = await startServer(databaseUrl, uploads);
+    let t = performance.now();
+    build = compileServer();
+    console.log(`compiled the server (scripts/build-server.sh) in ${((performance.now() - t) / 1000).toFixed(1)} s`);
+    relay = await startSmtpFake(await freePort());
+    // One environment for both processes; each sets its own mode, port and mail below.
+    const env: NodeJS.ProcessEnv = {
+      ...process.env, DATABASE_URL: databaseUrl, HOST: '127.0.0.1',
+      JWT_SECRET: 'bench-log-secret-that-is-long-enough-for-hs256-in-production', SMTP_HOST: '127.0.0.1', SMTP_PORT: String(relay.port),
+      UPLOADS_DIR: uploads, WEB_DIST: path.join(uploads, 'no-web'), LOG_LEVEL: 'warn',
+    };
+    t = performance.now();
+    await seedThroughSources(env);
+    console.log(`seeded the demo through the sources (tsx, development) in ${((performance.now() - t) / 1000).toFixed(1)} s`);
+    const started = await startServer(build, env);
     server = started.child;
     const { base } = started;
     const t0 = performance.now();
@@ -172,6 +261,8 @@ async function main() {
     if (!token) throw new Error(`sign-in failed (${signIn.status})`);
     const pid = server.pid!;
 
+    // The machine's own load: on a shared machine the latencies below wander with it.
+    console.log(`load average ${os.loadavg().map((x) => x.toFixed(1)).join(' ')} on ${os.availableParallelism()} cores`);
     const idle: number[] = [];
     for (let i = 0; i < 40; i++) {
       const s = performance.now();
@@ -193,13 +284,14 @@ async function main() {
 
     const mb = (n: number) => `${n.toFixed(0)} MB`;
     const ok = (good: boolean) => (good ? 'meets target' : 'MISSES target');
-    console.log(`\nbuild log of ${(ENTRIES + 5).toLocaleString('en-US')} entries, server on 127.0.0.1 (pid ${pid}), health asked every ${HEALTH_EVERY_MS} ms`);
+    console.log(`\nbuild log of ${(ENTRIES + 5).toLocaleString('en-US')} entries, compiled server (node ${path.relative(root, build)}/server/index.js, NODE_ENV=production, Node ${process.version}) on 127.0.0.1 (pid ${pid}), health asked every ${HEALTH_EVERY_MS} ms`);
     console.log(`  idle health:         p50 ${pct(idle, 50).toFixed(1)} ms, p99 ${pct(idle, 99).toFixed(1)} ms`);
     console.log(`  JSON log, first page: ${pageMs.toFixed(0)} ms, ${(firstBytes / 1024).toFixed(1)} kB (status ${first.status})`);
     console.log(`  server memory before exports: ${before ? mb(before.rss) : '?'} RSS`);
     for (const r of runs) {
       const p99 = pct(r.health, 99);
-      console.log(`  ${r.label}: status ${r.status}, ${(r.ms / 1000).toFixed(1)} s, ${(r.bytes / 1e6).toFixed(1)} MB`);
+      console.log(`  ${r.label}: status ${r.status}, ${(r.ms / 1000).toFixed(1)} s, ${(r.bytes / 1e6).toFixed(1)} MB`
+        + (r.cpu ? `; server CPU ${r.cpu.process.toFixed(1)} s, of it the request (main) thread ${r.cpu.main.toFixed(1)} s` : ''));
       console.log(`    health during it: ${r.health.length} answers, p50 ${pct(r.health, 50).toFixed(1)} ms, p99 ${p99.toFixed(1)} ms, max ${Math.max(...r.health).toFixed(1)} ms`
         + `${r.healthFailed ? `, ${r.healthFailed} failed` : ''}  [target p99 < ${TARGET.healthP99Ms} ms: ${ok(p99 < TARGET.healthP99Ms)}]`);
     }
@@ -207,12 +299,10 @@ async function main() {
     console.log(`  server peak memory: ${mb(peak)} (VmHWM ${after ? mb(after.hwm) : '?'}; RSS after both ${after ? mb(after.rss) : '?'})  [target < ${TARGET.rssMb} MB: ${ok(peak < TARGET.rssMb)}]`);
   } finally {
     await pool.end().catch(() => undefined);
-    if (server && server.exitCode === null) {
-      server.kill('SIGTERM');
-      for (let i = 0; i < 100 && server.exitCode === null; i++) await sleep(100);
-      if (server.exitCode === null) server.kill('SIGKILL');
-    }
+    if (server) await stop(server);
+    await relay?.close();
     rmSync(uploads, { recursive: true, force: true });
+    if (build) rmSync(build, { recursive: true, force: true });
     try {
       const admin = pg('url', CLUSTER, PG_PORT);
       const p = new Pool({ connectionString: admin, max: 1 });

@@ -5,10 +5,11 @@ import {
 } from '../../db/contracts';
 import type { AppContext } from '../context';
 import { listVisibleBuilds } from '../builds/builds-repository';
-import { badRequest, notFound } from '../http-error';
+import { badRequest, HttpError, notFound } from '../http-error';
 import { encodeCursor } from '../pagination';
 import { csvHead, csvLines } from './build-log-csv';
-import { startLogPdf, type Thumbs } from './build-log-pdf';
+import type { Thumbs } from './build-log-pdf';
+import { MAX_PDF_THREADS, reservePdfThread, startPdfThread, type PdfThread } from './build-log-pdf-thread';
 import {
   compareKeys, listBenchEvents, listBuildEvents, listFindingLogEvents, listLogParts, listLogPhotos, tallyLog,
   type FindingLogKind, type LogKey, type LogOrder, type LogRead, type LogSource, type LogWindow,
@@ -250,7 +251,7 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
       ? [...new Set(rows.flatMap((r) => (r.src === 'f' && (r.row.action === 'raise' || r.row.action === 'report-done') ? [r.row.findingId] : [])))]
       : [];
     const photos = await listLogPhotos(db, user, buildId, photoFindings);
-    const entries: BuildLogEntry[] = rows.map((raw) => {
+    const entryOf = (raw: Raw): BuildLogEntry => {
       if (raw.src === 'b') {
         const r = raw.row;
         const d = describeBuildEvent(r.kind, r.detail ?? {});
@@ -283,7 +284,10 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
         ...(f.note ? { note: f.note } : {}),
         ...(own.length ? { photos: own.map((p) => ({ id: p.id, thumbUrl: signer.sign(p.id, 'thumb', user.id), url: signer.sign(p.id, 'full', user.id) })) } : {}),
       };
-    });
+    };
+    // A thousand sentences (hole runs sorted, times placed) are a stretch of work of their own: in slices.
+    const entries: BuildLogEntry[] = [];
+    await inSlices(rows, (slice) => { for (const raw of slice) entries.push(entryOf(raw)); }, 50);
     return { entries, photos };
   }
 
@@ -359,46 +363,72 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
      * shows as a gap; it does not fail the log.
      */
     async pdf(user: Express.User, buildId: string, q: BuildLogQuery) {
-      const { build, parts, w } = await open(user, buildId, q);
-      let tally: { n: number; first: string | null; last: string | null };
-      if (!q.q) tally = await tallyLog(db, user, w);
-      else {
-        // Search words are matched on the sentences made here: a first pass counts them, batch by batch.
-        tally = { n: 0, first: null, last: null };
-        for await (const { entries } of exportBatches(user, buildId, w, q, false)) {
-          if (!entries.length) continue;
-          tally.n += entries.length;
-          tally.first ??= entries[0].at;
-          tally.last = entries[entries.length - 1].at;
-        }
-        tally = { n: tally.n, first: tally.first && tally.first.replace('Z', '000'), last: tally.last && tally.last.replace('Z', '000') };
+      const release = reservePdfThread();
+      if (!release) throw new HttpError(503, 'busy', `${MAX_PDF_THREADS} PDF logs are being made already: try again in a minute (the CSV is not limited)`);
+      try {
+        return await pdfExport(user, buildId, q, release);
+      } catch (err) {
+        release();
+        throw err;
       }
-      const generatedAt = new Date();
-      return {
-        filename: `${fileStem(build.kitSerial)}.pdf`,
-        async write(out: Writable) {
-          const gone = () => out.destroyed || out.writableEnded;
-          const pdf = startLogPdf(out, { build, count: tally.n, range: { from: isoOf(tally.first), to: isoOf(tally.last) } }, {
+    },
+  };
+
+  async function pdfExport(user: Express.User, buildId: string, q: BuildLogQuery, release: () => void) {
+    const { build, parts, w } = await open(user, buildId, q);
+    let tally: { n: number; first: string | null; last: string | null };
+    if (!q.q) tally = await tallyLog(db, user, w);
+    else {
+      // Search words are matched on the sentences made here: a first pass counts them, batch by batch.
+      tally = { n: 0, first: null, last: null };
+      for await (const { entries } of exportBatches(user, buildId, w, q, false)) {
+        if (!entries.length) continue;
+        tally.n += entries.length;
+        tally.first ??= entries[0].at;
+        tally.last = entries[entries.length - 1].at;
+      }
+      tally = { n: tally.n, first: tally.first && tally.first.replace('Z', '000'), last: tally.last && tally.last.replace('Z', '000') };
+    }
+    const generatedAt = new Date();
+    return {
+      filename: `${fileStem(build.kitSerial)}.pdf`,
+      async write(out: Writable) {
+        const gone = () => out.destroyed || out.writableEnded;
+        let pdf: PdfThread;
+        try {
+          pdf = startPdfThread({ build, count: tally.n, range: { from: isoOf(tally.first), to: isoOf(tally.last) } }, {
             tz: q.tz ?? 'UTC', generatedAt, generatedBy: user.name, filters: describeFilters(q, { parts }),
-          });
+          }, (chunk) => { if (!gone()) out.write(chunk); });
+        } catch (err) {
+          release();
+          throw err;
+        }
+        try {
+          // One batch laid out in the thread while the next is read here; the reader's pace is kept between batches.
+          let laying: Promise<void> = Promise.resolve();
           for await (const { entries, thumbKeys } of exportBatches(user, buildId, w, q, true)) {
-            if (gone()) { pdf.doc.unpipe(out); return; }
             const thumbs: Thumbs = new Map();
             await Promise.all(thumbKeys.map(async ([id, key]) => {
               try { thumbs.set(id, await storage.get(key)); } catch { /* shown as "photo not available" */ }
             }));
-            await inSlices(entries, async (slice) => {
-              if (gone()) return;
-              pdf.add(slice, thumbs);
-              await drained(out);
-            });
+            await laying;
+            await drained(out);
+            if (gone()) return;
+            laying = pdf.add(entries, thumbs);
+            laying.catch(() => undefined); // handled where it is awaited; meanwhile not an unhandled rejection
           }
-          if (gone()) { pdf.doc.unpipe(out); return; }
+          await laying;
+          if (gone()) return;
           await pdf.end();
-        },
-      };
-    },
-  };
+          await drained(out);
+          if (!gone()) out.end();
+        } finally {
+          await pdf.stop();
+          release();
+        }
+      },
+    };
+  }
 };
 
 /** The filters in words, for the PDF title block, so a filtered print is never mistaken for the whole log. */

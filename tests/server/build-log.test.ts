@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { DEMO_USERS } from '@/db/seed';
+import { MAX_PDF_THREADS, reservePdfThread } from '@/server/build-log/build-log-pdf-thread';
 import { pdfText } from '../helpers/pdf-text';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 import { parseCsv } from '../helpers/csv';
@@ -179,6 +180,30 @@ describe('the build log', () => {
     const outer = await log(tok.supplier, { travelerId: outerId });
     expect(kinds(outer.body)[0]).toBe('signed_off');
     expect(outer.body.items.find((e: Entry) => e.kind === 'holes_installed').text).toMatch(new RegExp(`^Installed ${holeIds.length} holes: L-01 to L-\\d+, U-01 to U-\\d+\\.$`));
+  });
+
+  it('answers 503 (before any byte) while every PDF thread place is taken, and makes the PDF again once one frees', async () => {
+    // The app runs in this process: taking the places here is what two long exports in progress would do.
+    const held = Array.from({ length: MAX_PDF_THREADS }, () => reservePdfThread());
+    try {
+      expect(held.every(Boolean)).toBe(true);
+      const busy = await request(t.app).get(`/api/builds/${buildId}/log.pdf`).set(auth(tok.inspector));
+      expect(busy.status).toBe(503);
+      expect(busy.headers['content-type']).toMatch(/json/);
+      expect(busy.body.error.message).toMatch(/PDF logs are being made already: try again/);
+      // The CSV has no thread and is not limited.
+      expect((await request(t.app).get(`/api/builds/${buildId}/log.csv`).set(auth(tok.inspector))).status).toBe(200);
+    } finally {
+      held.forEach((release) => release?.());
+    }
+    const again = await request(t.app).get(`/api/builds/${buildId}/log.pdf`).set(auth(tok.inspector)).buffer(true)
+      .parse((r, cb) => { const c: Buffer[] = []; r.on('data', (d: Buffer) => c.push(d)); r.on('end', () => cb(null, Buffer.concat(c))); });
+    expect(again.status).toBe(200);
+    // A refused or finished export gives its place back: all of them are free again.
+    const all = Array.from({ length: MAX_PDF_THREADS }, () => reservePdfThread());
+    expect(all.every(Boolean)).toBe(true);
+    expect(reservePdfThread()).toBeNull();
+    all.forEach((release) => release?.());
   });
 
   it('exports a PDF with the title block, the caution, every entry, the photo and page numbers', async () => {
