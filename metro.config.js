@@ -1,4 +1,4 @@
-// Expo's own Metro set-up, with two changes for the web bundle. First, zod's locale index (every language it
+// Expo's own Metro set-up, with changes for the web bundle. First, zod's locale index (every language it
 // ships, some 330 kB) is swapped for a module that has English only. The app never picks another
 // locale, and English is the one zod registers by default (zod/v4/classic/schemas.js imports
 // ../locales/en.js itself), so every message reads exactly as before. The server runs zod from
@@ -44,10 +44,23 @@ fs.mkdirSync(path.dirname(settingsFile), { recursive: true });
 const settingsJson = JSON.stringify(layoutSettings(), null, 2);
 if (!fs.existsSync(settingsFile) || fs.readFileSync(settingsFile, 'utf8') !== settingsJson) fs.writeFileSync(settingsFile, settingsJson);
 
+// Two more of zod's modules that the app never calls, swapped on the web for modules of the same names
+// that throw when called: `z.compile` (generated parsers; the app parses jitless, index.ts) and
+// `z.fromJSONSchema` (the schemas are written in db/contracts). Together some 40 kB of script that every
+// page would otherwise load at start. Only these two imports, from zod's own index modules.
+const zodLeftOut = {
+  './compile.js': { from: /[\\/]node_modules[\\/]zod[\\/]v4[\\/]core[\\/]index\.js$/, to: path.join(__dirname, 'lib', 'zod-web', 'compile.ts') },
+  './from-json-schema.js': { from: /[\\/]node_modules[\\/]zod[\\/]v4[\\/]classic[\\/]external\.js$/, to: path.join(__dirname, 'lib', 'zod-web', 'from-json-schema.ts') },
+};
+
 const upstream = config.resolver.resolveRequest;
 config.resolver.resolveRequest = (context, moduleName, platform) => {
   if (platform === 'web' && zodLocalesIndex.test(moduleName) && insideZodV4.test(context.originModulePath)) {
     return { type: 'sourceFile', filePath: englishOnly };
+  }
+  const leftOut = platform === 'web' && Object.hasOwn(zodLeftOut, moduleName) ? zodLeftOut[moduleName] : null;
+  if (leftOut && leftOut.from.test(context.originModulePath)) {
+    return { type: 'sourceFile', filePath: leftOut.to };
   }
   if (platform === 'web' && moduleName === 'expo-router/_ctx') {
     return { type: 'sourceFile', filePath: routerCtx };

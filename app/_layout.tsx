@@ -5,6 +5,7 @@ import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { View } from 'react-native';
 import { colors } from '@/constants/theme';
 import { useArrivalHref } from '@/components/navigation/use-arrival-href';
+import { usePreloadArrival } from '@/components/navigation/preload-arrival';
 import { LoadingState } from '@/components/ui/states';
 import { makeQueryClient } from '@/hooks/query-client';
 import { SessionProvider, useSession } from '@/hooks/use-session';
@@ -47,6 +48,7 @@ function SessionWithArrival({ children }: { children: ReactNode }) {
 
 function Guarded({ onSignedOut }: { onSignedOut: () => void }) {
   const { status, user } = useSession();
+  usePreloadArrival(status);
   // Nothing cached for one person may show to the next: cleared when a session ends. Not when the app
   // starts signed out: nothing is cached yet, and clearing then would cancel the first request of a page
   // open to everyone (an invitation, a password reset) while it is on its way, leaving it waiting forever.

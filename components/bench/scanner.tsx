@@ -30,12 +30,17 @@ export function Scanner({ onCode }: Props) {
     if (Platform.OS !== 'web' && permission?.granted) setOpen(true);
   }, [permission?.granted]);
 
+  // The decoder's own chunk, fetched once the bench is up rather than with the app.
+  useEffect(() => { setUpScanner().catch(() => undefined); }, []);
+
   const start = async () => {
     setProblem(null);
-    setUpScanner(true);
+    // In place before the camera opens: the camera would otherwise load the decoder without our wasm path.
+    const ready = setUpScanner(true).then(() => true, () => false);
     const p = permission?.granted ? permission : await requestPermission();
-    if (p.granted) setOpen(true);
-    else setProblem(cameraRefusedMessage(p));
+    if (!p.granted) setProblem(cameraRefusedMessage(p));
+    else if (await ready) setOpen(true);
+    else setProblem('The code reader did not load. Check the connection and try again, or type the short code.');
   };
 
   const handle = useCallback((r: BarcodeScanningResult) => {

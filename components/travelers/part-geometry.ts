@@ -46,7 +46,12 @@ export function crossings(outline: readonly Point[], x: number): number[] {
  */
 export function surfaceY(outline: readonly Point[], x: number, side: Side): number {
   if (!outline.length) return 0;
-  const b = outlineBounds(outline);
+  return surfaceYWithin(outline, outlineBounds(outline), x, side);
+}
+
+/** surfaceY with the outline's bounds worked out once by the caller (a walker samples a side 1000 times). */
+function surfaceYWithin(outline: readonly Point[], b: Bounds, x: number, side: Side): number {
+  if (!outline.length) return 0;
   const cx = Math.min(b.maxX, Math.max(b.minX, x));
   const ys = crossings(outline, cx);
   if (!ys.length) return side === 'upper' ? b.maxY : b.minY;
@@ -69,14 +74,34 @@ export type PlacedHole = { holeId: string; line: string; seq: number; stationIn:
  * is sampled once (1000 steps over the chord), so placing every hole of a line stays cheap.
  */
 export function surfaceWalker(outline: readonly Point[], side: Side, x0: number): (distance: number) => number {
+  // Kept per outline: the drawing asks again for the same line's walker on every render (its path,
+  // its holes), and sampling a side costs 1000 crossings of the outline. Outlines come from query data,
+  // which is replaced, never changed in place.
+  let walkers = walkerCache.get(outline);
+  if (!walkers) {
+    walkers = new Map();
+    walkerCache.set(outline, walkers);
+  }
+  const key = `${side} ${x0}`;
+  let walk = walkers.get(key);
+  if (!walk) {
+    walk = makeWalker(outline, side, x0);
+    walkers.set(key, walk);
+  }
+  return walk;
+}
+
+const walkerCache = new WeakMap<readonly Point[], Map<string, (distance: number) => number>>();
+
+function makeWalker(outline: readonly Point[], side: Side, x0: number): (distance: number) => number {
   const b = outlineBounds(outline);
   const n = 1000;
   const xs: number[] = [x0];
   const along: number[] = [0];
-  let y = surfaceY(outline, x0, side);
+  let y = surfaceYWithin(outline, b, x0, side);
   for (let i = 1; i <= n && xs[xs.length - 1] < b.maxX; i++) {
     const x = Math.min(b.maxX, x0 + ((b.maxX - x0) * i) / n);
-    const ny = surfaceY(outline, x, side);
+    const ny = surfaceYWithin(outline, b, x, side);
     along.push(along[along.length - 1] + Math.hypot(x - xs[xs.length - 1], ny - y));
     xs.push(x);
     y = ny;

@@ -1,6 +1,6 @@
 import { useLocalSearchParams } from 'expo-router';
 import { oneParam } from '@/components/navigation/param';
-import { StudyScreen } from '@/components/studies/study-screen';
+import { StudyScreen } from '@/components/studies/lazy-screens';
 
 export default function Study() {
   const params = useLocalSearchParams<{ studyId: string; revision?: string }>();

@@ -1,4 +1,4 @@
-import { StudiesScreen } from '@/components/studies/studies-screen';
+import { StudiesScreen } from '@/components/studies/lazy-screens';
 
 export default function Studies() {
   return <StudiesScreen />;
