@@ -105,7 +105,6 @@ export type BuildLogQuery = z.infer<typeof buildLogQuery>;
 /** GET /api/builds/:id/log: the same filters, one page at a time (`cursor`, `limit`). */
 export const buildLogPageQuery = buildLogQuery.extend(pageQuery.shape);
 export type BuildLogPageQuery = z.infer<typeof buildLogPageQuery>;
-export type BuildLogFilterInput = z.input<typeof buildLogQuery>;
 
 export type BuildLogPhoto = { id: string; thumbUrl: string; url: string };
 

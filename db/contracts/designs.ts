@@ -37,7 +37,6 @@ export const pitchZone = z.object({
   /** in: 0.125 – 12 */
   pitchIn: measured('pitch', MIN_ZONE_PITCH_IN, MAX_ZONE_PITCH_IN, 'in'),
 }).refine((zn) => zn.toIn > zn.fromIn, { path: ['toIn'], message: 'zone end must be after its start' });
-export type PitchZone = z.infer<typeof pitchZone>;
 
 /**
  * The most holes each zone of a line can take: its length over its pitch, plus one where it begins.

@@ -1,4 +1,4 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ChangePasswordInput, ResetPasswordInput, SessionUser, SignInInput, SignInResult } from '@/db/contracts';
 import { apiRequest, api } from '../api-client';
 import { useSession } from '../use-session';
@@ -11,10 +11,6 @@ export const authKeys = {
 export const authQueries = {
   me: () => queryOptions({ queryKey: authKeys.me(), queryFn: ({ signal }) => api.get<SessionUser>('/api/auth/me', signal) }),
 };
-
-export function useAuthMeQuery(enabled = true) {
-  return useQuery({ ...authQueries.me(), enabled });
-}
 
 export function useAuthSignInMutation() {
   const session = useSession();
