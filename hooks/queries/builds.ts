@@ -2,6 +2,7 @@ import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQ
 import type { AddMemberInput, BuildChangeInput, BuildDetail, BuildInput, BuildSummary, Page, TravelerSummary } from '@/db/contracts';
 import { api, apiRequest } from '../api-client';
 import { pageParams, pagePath } from './paged';
+import { travelerKeys } from './travelers';
 
 /** The build's page: the contract's detail (its people with what the reader may do) and its parts. */
 export type BuildPage = BuildDetail & { travelers: TravelerSummary[] };
@@ -40,7 +41,7 @@ export function useBuildCreateMutation() {
     mutationFn: (input: BuildInput) => api.post<BuildSummary>('/api/builds', input),
     onSuccess: () => Promise.all([
       qc.invalidateQueries({ queryKey: buildKeys.all }),
-      qc.invalidateQueries({ queryKey: ['travelers'] }),
+      qc.invalidateQueries({ queryKey: travelerKeys.all }),
     ]),
   });
 }
@@ -84,7 +85,7 @@ export function useBuildUpdateMutation(buildId: string) {
     mutationFn: (input: BuildChangeInput) => api.patch<BuildPage>(buildPath(buildId), input),
     onSuccess: (page) => {
       qc.setQueryData(buildKeys.detail(buildId), page);
-      return Promise.all([qc.invalidateQueries({ queryKey: buildKeys.list() }), qc.invalidateQueries({ queryKey: ['travelers'] })]);
+      return Promise.all([qc.invalidateQueries({ queryKey: buildKeys.list() }), qc.invalidateQueries({ queryKey: travelerKeys.all })]);
     },
   });
 }
@@ -95,7 +96,7 @@ export function useBuildDeleteMutation(buildId: string) {
     mutationFn: () => apiRequest<void>(buildPath(buildId), { method: 'DELETE' }),
     onSuccess: () => {
       qc.removeQueries({ queryKey: buildKeys.detail(buildId) });
-      return Promise.all([qc.invalidateQueries({ queryKey: buildKeys.list() }), qc.invalidateQueries({ queryKey: ['travelers'] })]);
+      return Promise.all([qc.invalidateQueries({ queryKey: buildKeys.list() }), qc.invalidateQueries({ queryKey: travelerKeys.all })]);
     },
   });
 }

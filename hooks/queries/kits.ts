@@ -1,6 +1,7 @@
 import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { PAGE_SIZE_MAX, type KitChangeInput, type KitModel, type KitModelDetail, type KitModelInput, type Page } from '@/db/contracts';
 import { api, apiRequest } from '../api-client';
+import { designKeys } from './designs';
 import { pageParams, pagePath } from './paged';
 
 export const kitKeys = {
@@ -78,7 +79,7 @@ export function useKitUpdateMutation(id: string) {
     mutationFn: (input: KitChangeInput) => api.patch<KitModelDetail>(kitPath(id), input),
     onSuccess: (detail) => {
       qc.setQueryData(kitKeys.detail(id), detail);
-      return Promise.all([qc.invalidateQueries({ queryKey: kitKeys.list() }), qc.invalidateQueries({ queryKey: ['designs'] })]);
+      return Promise.all([qc.invalidateQueries({ queryKey: kitKeys.list() }), qc.invalidateQueries({ queryKey: designKeys.all })]);
     },
   });
 }
@@ -89,7 +90,7 @@ export function useKitDeleteMutation(id: string) {
     mutationFn: () => apiRequest<void>(kitPath(id), { method: 'DELETE' }),
     onSuccess: () => {
       qc.removeQueries({ queryKey: kitKeys.detail(id) });
-      return Promise.all([qc.invalidateQueries({ queryKey: kitKeys.list() }), qc.invalidateQueries({ queryKey: ['designs'] })]);
+      return Promise.all([qc.invalidateQueries({ queryKey: kitKeys.list() }), qc.invalidateQueries({ queryKey: designKeys.all })]);
     },
   });
 }
