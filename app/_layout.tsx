@@ -12,6 +12,8 @@ import { SessionProvider, useSession } from '@/hooks/use-session';
 import { UnitsProvider } from '@/hooks/use-units';
 import { useAppFonts } from '@/lib/app-fonts';
 
+export { ScreenErrorBoundary as ErrorBoundary } from '@/components/ui/screen-error-boundary';
+
 const navTheme = {
   ...DefaultTheme,
   colors: { ...DefaultTheme.colors, background: colors.paper, card: colors.paper, text: colors.ink, border: colors.rule, primary: colors.accent },

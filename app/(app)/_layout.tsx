@@ -8,6 +8,8 @@ import { useSession } from '@/hooks/use-session';
 import { useTickOutboxSender } from '@/hooks/use-tick-outbox';
 import { useWide } from '@/hooks/use-wide';
 
+export { ScreenErrorBoundary as ErrorBoundary } from '@/components/ui/screen-error-boundary';
+
 export const unstable_settings = { initialRouteName: 'index' };
 
 export default function AppLayout() {
