@@ -7,7 +7,7 @@ import { colors } from '@/constants/theme';
 import { useArrivalHref } from '@/components/navigation/use-arrival-href';
 import { usePreloadArrival } from '@/components/navigation/preload-arrival';
 import { LoadingState } from '@/components/ui/states';
-import { makeQueryClient } from '@/hooks/query-client';
+import { makeQueryClient } from '@/lib/query-client';
 import { SessionProvider, useSession } from '@/hooks/use-session';
 import { UnitsProvider } from '@/hooks/use-units';
 import { useAppFonts } from '@/lib/app-fonts';

@@ -1,7 +1,7 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { FindingKind, Measurements } from '@/db/contracts';
-import type { DraftPhoto } from './photo-form-data';
-import { readJson, removeKey, storageKeys, writeJson } from './storage';
+import type { DraftPhoto } from '@/lib/photo-form-data';
+import { readJson, removeKey, storageKeys, writeJson } from '@/lib/storage';
 
 export type FindingDraft = {
   /** Measurements in inches, as the form holds them. */

@@ -1,8 +1,8 @@
 import { createContext, createElement, useCallback, useContext, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import type { Role, SessionUser, SignInResult } from '@/db/contracts';
 import { safeInAppPath } from '@/components/navigation/pending-link';
-import { configureApiClient } from './api-client';
-import { readJson, removeKey, storageKeys, tabScoped, writeJson } from './storage';
+import { configureApiClient } from '@/lib/api-client';
+import { readJson, removeKey, storageKeys, tabScoped, writeJson } from '@/lib/storage';
 import { clearOfflineCaches } from '@/lib/service-worker';
 
 type Stored = { token: string; expiresAt: string; user: SessionUser };

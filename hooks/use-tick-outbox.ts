@@ -1,8 +1,8 @@
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
-import { ApiError, errorMessage } from './api-client';
+import { ApiError, errorMessage } from '@/lib/api-client';
 import { postTick, travelerKeys } from './queries/travelers';
-import { dropTick, onOutboxChange, readOutbox, type PendingTick } from './tick-outbox';
+import { dropTick, onOutboxChange, readOutbox, type PendingTick } from '@/lib/tick-outbox';
 
 const RETRY_MS = 5000;
 let flushing = false;

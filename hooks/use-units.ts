@@ -2,7 +2,7 @@ import { createContext, createElement, useCallback, useContext, useEffect, useMe
 import {
   formatArea, formatForce, formatWingLoading, formatLength, formatMass, lengthNumber, rulerNumber, stationNumber, unitLabel, type Quantity, type UnitSystem,
 } from '@/constants/units';
-import { readJson, storageKeys, writeJson } from './storage';
+import { readJson, storageKeys, writeJson } from '@/lib/storage';
 
 export type Units = {
   system: UnitSystem;

@@ -240,7 +240,7 @@ async function main() {
     await page.getByTestId('email').fill(DEMO_USERS.builder.email);
     await page.getByTestId('password').fill(DEMO_PASSWORD);
     await page.getByTestId('sign-in').click();
-    // Signed in once the session is kept on the device (hooks/storage.ts, storageKeys.session).
+    // Signed in once the session is kept on the device (lib/storage.ts, storageKeys.session).
     await page.waitForFunction(() => !!localStorage.getItem('pitchcard.session'), undefined, { timeout: LOAD_TIMEOUT_MS }).catch(async (err) => {
       await page.screenshot({ path: path.join(work, 'sign-in-failed.png') });
       throw new Error(`signing in did not finish (screen in ${path.join(work, 'sign-in-failed.png')}): ${err}`);

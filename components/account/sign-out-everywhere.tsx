@@ -5,7 +5,7 @@ import { Button } from '@/components/ui/button';
 import { Section } from '@/components/ui/sheet';
 import { Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
-import { errorMessage } from '@/hooks/api-client';
+import { errorMessage } from '@/lib/api-client';
 import { useAuthSignOutEverywhereMutation } from '@/hooks/queries/auth';
 
 /** Ends every sign-in of the person at once (a lost phone, a shared shop computer), after saying what follows. */

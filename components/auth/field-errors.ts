@@ -1,6 +1,6 @@
 import type { FieldValues, UseFormSetError } from 'react-hook-form';
 import { applyServerErrors } from '@/components/forms/server-errors';
-import { ApiError } from '@/hooks/api-client';
+import { ApiError } from '@/lib/api-client';
 
 /**
  * The server's field messages onto the form, and what is left to say above the button, or null. For the

@@ -14,7 +14,7 @@ import { Button } from '@/components/ui/button';
 import { KeyValue } from '@/components/ui/sheet';
 import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
-import { ApiError } from '@/hooks/api-client';
+import { ApiError } from '@/lib/api-client';
 import { useInvitationAcceptMutation, useInvitationQuery } from '@/hooks/queries/people';
 import { AuthPage } from './auth-page';
 import { asSentence, leftAfterFields } from './field-errors';

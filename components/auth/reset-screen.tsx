@@ -8,7 +8,7 @@ import { plainParse } from '@/components/forms/plain-errors';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
-import { ApiError } from '@/hooks/api-client';
+import { ApiError } from '@/lib/api-client';
 import { useAuthResetMutation } from '@/hooks/queries/auth';
 import { AuthPage } from './auth-page';
 import { leftAfterFields } from './field-errors';

@@ -9,7 +9,7 @@ import { LoadMore } from '@/components/ui/load-more';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { TwoPane } from '@/components/ui/two-pane';
 import { liveFirst, TravelerCard } from '@/components/travelers/traveler-card';
-import { errorMessage } from '@/hooks/api-client';
+import { errorMessage } from '@/lib/api-client';
 import { pagedItems } from '@/hooks/queries/paged';
 import { lookupTraveler, useTravelersQuery } from '@/hooks/queries/travelers';
 import { Scanner } from './scanner';

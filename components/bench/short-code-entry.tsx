@@ -9,7 +9,7 @@ import { FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/states';
-import { ApiError, errorMessage } from '@/hooks/api-client';
+import { ApiError, errorMessage } from '@/lib/api-client';
 
 /** Typing the short code from the label, for when the camera cannot read it. */
 export function ShortCodeEntry({ onOpen }: { onOpen: (code: string) => Promise<void> }) {

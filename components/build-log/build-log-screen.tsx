@@ -11,7 +11,7 @@ import { LoadMore } from '@/components/ui/load-more';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
-import { errorMessage } from '@/hooks/api-client';
+import { errorMessage } from '@/lib/api-client';
 import { deviceTimeZone, useBuildLogExportMutation, useBuildLogQuery, type BuildLogFormat } from '@/hooks/queries/build-log';
 import { pagedItems } from '@/hooks/queries/paged';
 import { useWide } from '@/hooks/use-wide';

@@ -4,7 +4,7 @@ import { buildLogKindLabels, type BuildLogEntry } from '@/db/contracts';
 import { colors, hairline, space, touch } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
 import { Label, Mono, Txt } from '@/components/ui/text';
-import { url } from '@/hooks/api-client';
+import { url } from '@/lib/api-client';
 import { dayLabel, timeOf } from './log-view';
 
 /** A day's heading in the timeline, like a dated line across a log book page. */

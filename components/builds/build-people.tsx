@@ -17,7 +17,7 @@ import { Button } from '@/components/ui/button';
 import { Section } from '@/components/ui/sheet';
 import { Notice } from '@/components/ui/states';
 import { Label, Mono, Txt } from '@/components/ui/text';
-import { errorMessage } from '@/hooks/api-client';
+import { errorMessage } from '@/lib/api-client';
 import { useBuildHandOverMutation, useBuildMemberAddMutation, useBuildMemberRemoveMutation } from '@/hooks/queries/builds';
 
 /** Builders first (the owner at the head), then inspectors: the order people think of a build's crew. */

@@ -8,7 +8,7 @@ import { Field, TextBox } from '@/components/ui/field';
 import { Section } from '@/components/ui/sheet';
 import { Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
-import { errorMessage } from '@/hooks/api-client';
+import { errorMessage } from '@/lib/api-client';
 import { useBuildDeleteMutation, useBuildUpdateMutation, type BuildPage } from '@/hooks/queries/builds';
 
 /**

@@ -12,7 +12,7 @@ import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Table, type Column, type SortState } from '@/components/ui/table';
 import { Mono, Txt } from '@/components/ui/text';
 import { TwoPane } from '@/components/ui/two-pane';
-import { errorMessage } from '@/hooks/api-client';
+import { errorMessage } from '@/lib/api-client';
 import { useCouponAllowablesQuery, useCouponDeleteMutation, useCouponsQuery } from '@/hooks/queries/coupons';
 import { pagedItems } from '@/hooks/queries/paged';
 import { useUnits } from '@/hooks/use-units';

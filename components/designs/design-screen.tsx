@@ -15,7 +15,7 @@ import { Screen } from '@/components/ui/screen';
 import { Section, Sheet } from '@/components/ui/sheet';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
-import { errorMessage } from '@/hooks/api-client';
+import { errorMessage } from '@/lib/api-client';
 import { useSession } from '@/hooks/use-session';
 import {
   useDesignFindingClustersQuery, useDesignQuery, useDesignRevisionCreateMutation, useDesignRevisionDiscardMutation, useDesignRevisionPublishMutation,

@@ -3,8 +3,8 @@ import { Image, Platform, Pressable, StyleSheet, View } from 'react-native';
 import { colors, hairline, space } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
 import { Txt } from '@/components/ui/text';
-import { ApiError } from '@/hooks/api-client';
-import type { DraftPhoto } from '@/hooks/photo-form-data';
+import { ApiError } from '@/lib/api-client';
+import type { DraftPhoto } from '@/lib/photo-form-data';
 
 export const maxPhotos = 6;
 /** On the web a picked photo is a blob: URI that dies with the page; small ones are kept inline. */

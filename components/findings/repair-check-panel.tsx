@@ -7,7 +7,7 @@ import { Caution } from '@/components/ui/caution';
 import { Choice } from '@/components/ui/choice';
 import { Notice } from '@/components/ui/states';
 import { Label, Mono, Txt } from '@/components/ui/text';
-import { errorMessage } from '@/hooks/api-client';
+import { errorMessage } from '@/lib/api-client';
 import { useRepairCheckQuery, type RepairAlternative, type RepairCheckResult, type RepairHoleResult } from '@/hooks/queries/findings';
 import { useUnits, type Units } from '@/hooks/use-units';
 import { VerdictMark } from './verdict-mark';

@@ -1,5 +1,5 @@
 import type { FieldValues, Path, UseFormSetError } from 'react-hook-form';
-import { ApiError, errorMessage } from '@/hooks/api-client';
+import { ApiError, errorMessage } from '@/lib/api-client';
 
 /**
  * Puts the server's `fields` messages (dotted paths) onto the form's fields and returns what is left

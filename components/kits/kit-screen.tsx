@@ -15,7 +15,7 @@ import { Screen } from '@/components/ui/screen';
 import { Section } from '@/components/ui/sheet';
 import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
-import { errorMessage } from '@/hooks/api-client';
+import { errorMessage } from '@/lib/api-client';
 import { useKitDeleteMutation, useKitQuery, useKitUpdateMutation } from '@/hooks/queries/kits';
 
 type Values = z.input<typeof kitChangeInput>;

@@ -7,7 +7,7 @@ import { Choice } from '@/components/ui/choice';
 import { Field } from '@/components/ui/field';
 import { Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
-import { errorMessage } from '@/hooks/api-client';
+import { errorMessage } from '@/lib/api-client';
 import { usePeopleUpdateMutation } from '@/hooks/queries/people';
 
 /** The two changes that end or restore someone's access are said out loud and confirmed first. */

@@ -9,7 +9,7 @@ import { Field } from '@/components/ui/field';
 import { Sheet } from '@/components/ui/sheet';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
-import { ApiError, errorMessage } from '@/hooks/api-client';
+import { ApiError, errorMessage } from '@/lib/api-client';
 import { useDesignsQuery } from '@/hooks/queries/designs';
 import { useStudyApplyMutation } from '@/hooks/queries/studies';
 import { useUnits } from '@/hooks/use-units';

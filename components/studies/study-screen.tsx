@@ -2,7 +2,7 @@ import { useMemo } from 'react';
 import type { KitModel, StudyDetail } from '@/db/contracts';
 import { Screen } from '@/components/ui/screen';
 import { ErrorState, LoadingState } from '@/components/ui/states';
-import { ApiError } from '@/hooks/api-client';
+import { ApiError } from '@/lib/api-client';
 import { useKitsQuery } from '@/hooks/queries/kits';
 import { useStudyQuery } from '@/hooks/queries/studies';
 import { StudyForm } from './study-form';

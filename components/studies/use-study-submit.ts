@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import type { FieldValues, UseFormHandleSubmit, UseFormSetError } from 'react-hook-form';
 import { applyServerErrors } from '@/components/forms/server-errors';
-import { ApiError } from '@/hooks/api-client';
+import { ApiError } from '@/lib/api-client';
 
 /**
  * How a study form sends and hears back, the rib's and the wing's alike: the server's refusals go onto

@@ -12,7 +12,7 @@ import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/st
 import { HoleMark, holeStatusHelp, holeStatusLabels, HoleStatusLegend } from '@/components/ui/status-mark';
 import { Mono, Txt } from '@/components/ui/text';
 import { TwoPane } from '@/components/ui/two-pane';
-import { errorMessage } from '@/hooks/api-client';
+import { errorMessage } from '@/lib/api-client';
 import { countHoles, useTravelerQuery, useTravelerSignOffMutation, useTravelerStepMutation, useTravelerTickMutation } from '@/hooks/queries/travelers';
 import { usePendingTicks } from '@/hooks/use-tick-outbox';
 import { useFlash } from '@/hooks/use-flash';

@@ -6,7 +6,7 @@ import { Button } from '@/components/ui/button';
 import { Field, TextBox } from '@/components/ui/field';
 import { Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
-import { ApiError, errorMessage } from '@/hooks/api-client';
+import { ApiError, errorMessage } from '@/lib/api-client';
 import { useTravelerWithdrawSignOffMutation } from '@/hooks/queries/travelers';
 
 /** The contract's own words for a reason it refuses (too short, too long, a control character). */

@@ -1,7 +1,7 @@
 import { Children, isValidElement, useRef } from 'react';
 import { ActivityIndicator, StyleSheet, View } from 'react-native';
 import { colors, hairline, space } from '@/constants/theme';
-import { ApiError, errorMessage } from '@/hooks/api-client';
+import { ApiError, errorMessage } from '@/lib/api-client';
 import { Button } from './button';
 import { useFocusOnMount } from './focus';
 import { Mono, Txt } from './text';

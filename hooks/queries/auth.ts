@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ChangePasswordInput, ResetPasswordInput, SessionUser, SignInInput, SignInResult } from '@/db/contracts';
-import { apiRequest, api } from '../api-client';
+import { apiRequest, api } from '@/lib/api-client';
 import { useSession } from '../use-session';
 
 export const authKeys = {

@@ -1,7 +1,7 @@
 import { infiniteQueryOptions, keepPreviousData, useInfiniteQuery, useMutation } from '@tanstack/react-query';
 import { Platform } from 'react-native';
 import type { ApiErrorBody, BuildLogGroup, BuildLogPage } from '@/db/contracts';
-import { api, ApiError, networkMessage, qs, url } from '../api-client';
+import { api, ApiError, networkMessage, qs, url } from '@/lib/api-client';
 import { useSession } from '../use-session';
 import { pageParams, pagePath } from './paged';
 

@@ -1,6 +1,6 @@
 import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { AddMemberInput, BuildChangeInput, BuildDetail, BuildInput, BuildSummary, Page, TravelerSummary } from '@/db/contracts';
-import { api, apiRequest } from '../api-client';
+import { api, apiRequest } from '@/lib/api-client';
 import { pageParams, pagePath } from './paged';
 import { travelerKeys } from './travelers';
 

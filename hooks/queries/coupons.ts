@@ -1,6 +1,6 @@
 import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient, type InfiniteData } from '@tanstack/react-query';
 import type { CouponAllowance, CouponCorrectionInput, CouponInput, CouponTest, Page } from '@/db/contracts';
-import { api, apiRequest } from '../api-client';
+import { api, apiRequest } from '@/lib/api-client';
 import { pageParams, pagePath } from './paged';
 
 export const couponKeys = {

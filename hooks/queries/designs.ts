@@ -1,6 +1,6 @@
 import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { FindingCluster, Page, PartDesignDetail, PartDesignInput, PartDesignSummary, Revision, RevisionInput } from '@/db/contracts';
-import { api, apiRequest } from '../api-client';
+import { api, apiRequest } from '@/lib/api-client';
 import { readPages } from './kits';
 import { pageParams, pagePath } from './paged';
 

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '../api-client';
+import { api } from '@/lib/api-client';
 
 export type DevMailPart = { cid: string | null; filename: string | null; contentType: string; disposition: string | null; size: number };
 export type DevMail = {

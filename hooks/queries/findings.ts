@@ -5,9 +5,9 @@ import {
   findingActionInput, findingActions, type FindingAction, type FindingActionInput, type FindingDetail, type FindingInput,
   type FindingStatus, type FindingSummary, type Page, type RepairCheckResult,
 } from '@/db/contracts';
-import { api, ApiError } from '../api-client';
+import { api, ApiError } from '@/lib/api-client';
 import { pageParams, pagePath } from './paged';
-import { findingActionFormData, findingFormData, type DraftPhoto } from '../photo-form-data';
+import { findingActionFormData, findingFormData, type DraftPhoto } from '@/lib/photo-form-data';
 import { buildKeys } from './builds';
 import { travelerKeys } from './travelers';
 

@@ -1,6 +1,6 @@
 import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { PAGE_SIZE_MAX, type KitChangeInput, type KitModel, type KitModelDetail, type KitModelInput, type Page } from '@/db/contracts';
-import { api, apiRequest } from '../api-client';
+import { api, apiRequest } from '@/lib/api-client';
 import { designKeys } from './designs';
 import { pageParams, pagePath } from './paged';
 

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { PhoneSetup } from '@/db/contracts';
-import { api } from '../api-client';
+import { api } from '@/lib/api-client';
 
 export const networkKeys = {
   all: ['network'] as const,

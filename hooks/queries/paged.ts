@@ -1,6 +1,6 @@
 import type { InfiniteData } from '@tanstack/react-query';
 import type { Page } from '@/db/contracts';
-import { qs } from '../api-client';
+import { qs } from '@/lib/api-client';
 
 /**
  * Every list the API returns comes in pages (`{ items, next }`); these are the pieces each domain's

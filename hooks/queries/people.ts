@@ -3,7 +3,7 @@ import type {
   AcceptInvitationInput, InvitationView, InviteInput, OrganizationInput, OrganizationSummary, Page, PendingInvitation, PersonSummary,
   PersonUpdateInput, SignInResult,
 } from '@/db/contracts';
-import { api, apiRequest } from '../api-client';
+import { api, apiRequest } from '@/lib/api-client';
 import { useSession } from '../use-session';
 import { pageParams, pagePath } from './paged';
 

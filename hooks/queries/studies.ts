@@ -1,6 +1,6 @@
 import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { ApplyStudyInput, Page, Revision, StudyCandidate, StudyDetail, StudyInput, StudySummary, WingStudyInput } from '@/db/contracts';
-import { api, apiRequest, qs } from '../api-client';
+import { api, apiRequest, qs } from '@/lib/api-client';
 import { designKeys } from './designs';
 import { pageParams, pagePath } from './paged';
 

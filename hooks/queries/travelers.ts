@@ -5,8 +5,8 @@ import {
   holesAwaitingInspectorStatuses, holesDoneStatuses, type Hole, type LabelsQuery, type PartLabel, type TickHolesInput, type TravelerDetail,
   type Page, type TravelerListShow, type TravelerSummary, type WithdrawSignOffInput,
 } from '@/db/contracts';
-import { api, ApiError } from '../api-client';
-import { queueTick, readOutbox, withPendingTicks } from '../tick-outbox';
+import { api, ApiError } from '@/lib/api-client';
+import { queueTick, readOutbox, withPendingTicks } from '@/lib/tick-outbox';
 import { buildKeys } from './builds';
 import { pageParams, pagePath } from './paged';
 

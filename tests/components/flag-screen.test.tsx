@@ -2,7 +2,7 @@ import { findingKindGroups, judgeMeasurement, type FindingDetail, type TravelerD
 import { FlagScreen, measurementsFor } from '@/components/findings/flag-screen';
 import { basisOfTraveler } from '@/components/findings/measure-basis';
 import { MeasurementJudgement } from '@/components/findings/measurement-line';
-import { storageKeys } from '@/hooks/storage';
+import { storageKeys } from '@/lib/storage';
 import { finding, recordFetch, wrap } from './finding-fixtures';
 
 const mockDismissTo = jest.fn();

@@ -7,7 +7,7 @@ import { ShortCodeEntry } from '@/components/bench/short-code-entry';
 import { FormNumberField, FormTextField } from '@/components/forms/form-fields';
 import { plainIssue, plainParse } from '@/components/forms/plain-errors';
 import { applyServerErrors } from '@/components/forms/server-errors';
-import { ApiError } from '@/hooks/api-client';
+import { ApiError } from '@/lib/api-client';
 import { UnitsProvider } from '@/hooks/use-units';
 import { renderWeb } from './render-web';
 

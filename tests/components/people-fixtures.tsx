@@ -3,7 +3,7 @@ import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import type { ReactElement } from 'react';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
 import type { BuildPeople, OrganizationSummary, PersonSummary, SessionUser } from '@/db/contracts';
-import { storageKeys } from '@/hooks/storage';
+import { storageKeys } from '@/lib/storage';
 import { SessionProvider } from '@/hooks/use-session';
 import { UnitsProvider } from '@/hooks/use-units';
 import { renderWeb } from './render-web';

@@ -7,7 +7,7 @@ import { tabLabelFit } from '@/components/navigation/tab-label';
 import { Notice } from '@/components/ui/states';
 import { Mono, Txt, valueGroups } from '@/components/ui/text';
 import { fonts } from '@/constants/theme';
-import { storageKeys } from '@/hooks/storage';
+import { storageKeys } from '@/lib/storage';
 import { recordFetch, wrap } from './finding-fixtures';
 import { renderWeb } from './render-web';
 

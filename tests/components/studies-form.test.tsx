@@ -1,6 +1,6 @@
 import { StudyForm, type StudyOutput } from '@/components/studies/study-form';
 import { gaugeLabel, kitIntoStudy, nacaDigits, newStudyValues, studyValues, toggleGauge, toggleRivet } from '@/components/studies/study-form-values';
-import { ApiError } from '@/hooks/api-client';
+import { ApiError } from '@/lib/api-client';
 import { demoKit, renderInUnits } from './studies-render';
 
 // Whole screens render in jsdom: slower than a unit test, more so when the machine is busy.

@@ -1,7 +1,7 @@
 import { QueryClient } from '@tanstack/react-query';
 import type { TravelerDetail } from '@/db/contracts';
 import { applyTick } from '@/hooks/queries/travelers';
-import { dropTick, queueTick, readOutbox, withPendingTicks } from '@/hooks/tick-outbox';
+import { dropTick, queueTick, readOutbox, withPendingTicks } from '@/lib/tick-outbox';
 import { flushOutbox } from '@/hooks/use-tick-outbox';
 
 const detail = (id: string) => ({

@@ -1,7 +1,7 @@
 import { wingStudyBody } from '@/db/contracts';
 import { WingForm, type WingOutput } from '@/components/studies/wing-form';
 import { evenlySpacedRibs, kitPlanform, newWingValues, ribName, wingFieldFor, wingValues } from '@/components/studies/wing-form-values';
-import { ApiError } from '@/hooks/api-client';
+import { ApiError } from '@/lib/api-client';
 import { demoKit, renderInUnits } from './studies-render';
 
 jest.setTimeout(60_000);
