@@ -20,7 +20,6 @@
 import { timingSafeEqual } from 'node:crypto';
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import path from 'node:path';
 import express from 'express';
 import { Pool, type PoolClient, type QueryConfig } from 'pg';
 import { sql } from 'drizzle-orm';
@@ -28,7 +27,6 @@ import { DEMO_USERS } from '../db/seed';
 import { startTestApp } from '../tests/helpers/test-app';
 import { pg } from './bench-common';
 
-const root = path.join(__dirname, '..');
 const REQUESTS = Math.min(2000, Math.max(20, Number(process.env.BENCH_REQUESTS ?? 300) || 300));
 const WARM_UP = Math.min(500, Math.max(5, Number(process.env.BENCH_WARM_UP ?? 50) || 50));
 const CONCURRENCY = 4;

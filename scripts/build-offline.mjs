@@ -60,7 +60,7 @@ const perPerson = {
     if (token) {
       try {
         person = String(JSON.parse(atob(token[1].replace(/-/g, '+').replace(/_/g, '/'))).sub || person);
-      } catch (e) {
+      } catch {
         person = 'nobody';
       }
     }

@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# Every test: type check, then jest (engineering, server against a private PostgreSQL and SMTP fake,
+# Every test: type check, lint (ESLint, Expo's rules) and format check (Prettier), then jest (engineering, server against a private PostgreSQL and SMTP fake,
 # components, and the real-browser walk in headless Chromium). Extra arguments go to jest.
 set -euo pipefail
 root=$(cd "$(dirname "$0")/.." && pwd)
@@ -22,5 +22,8 @@ TEST_DATABASE_URL=$(bash scripts/pg.sh url test "$pgport")
 export TEST_DATABASE_URL
 
 node_modules/.bin/tsc --noEmit -p .
+# Cached between runs under .cache/ (git-ignored); warnings print, errors fail.
+node_modules/.bin/eslint --cache --cache-location .cache/eslint/ .
+node_modules/.bin/prettier --check --log-level warn .
 bash scripts/build-web.sh
 node_modules/.bin/jest --ci "$@"

@@ -1,7 +1,6 @@
 import { useRouter } from 'expo-router';
 import { View } from 'react-native';
 import { roleLabels } from '@/db/contracts';
-import { space } from '@/constants/theme';
 import { shortDate } from '@/components/findings/finding-row';
 import { wrapAnywhere } from '@/components/people/long-words';
 import { Button } from '@/components/ui/button';
@@ -42,7 +41,7 @@ export function AccountScreen() {
               </Section>
               {user.role === 'supplier' || user.role === 'admin' ? (
                 <Section title="Phones at the bench">
-                  <Txt>How the shop's phones open Pitchcard: the address as a QR code, and the certificate to trust.</Txt>
+                  <Txt>How the shop’s phones open Pitchcard: the address as a QR code, and the certificate to trust.</Txt>
                   <Button label="Set up phones" variant="secondary" onPress={() => router.push('/phone')} testID="account-phones" />
                 </Section>
               ) : null}

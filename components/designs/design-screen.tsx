@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { useForm, type Resolver } from 'react-hook-form';
 import { View } from 'react-native';
 import type { z } from 'zod';
-import { findingKindLabels, partKindLabels, publishWarning, revisionInput, type FindingKind, type PartDesignDetail, type Revision, type RevisionInput, type RevisionStatus } from '@/db/contracts';
+import { findingKindLabels, partKindLabels, publishWarning, revisionInput, type FindingKind, type PartDesignDetail, type Revision, type RevisionStatus } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
 import { FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';

@@ -1,4 +1,3 @@
-/* eslint-disable @typescript-eslint/no-explicit-any */
 import { Controller, useFieldArray, useFormState, useWatch, type Control } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import type { RevisionInput } from '@/db/contracts';

@@ -1,6 +1,8 @@
 import { and, asc, count, desc, eq, gt, gte, inArray, lt, lte, max, min, notInArray, or, sql, type AnyColumn, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
 import { findingEventActions, findingLogKindOfAction, type BuildLogKind } from '../../db/contracts';
+import { buildEvents, builds, designRevisions, findingEvents, findingPhotos, findings, partDesigns, travelerEvents, travelers, users } from '../../db/schema';
+import { visibleBuilds } from '../builds/build-access';
 
 export type FindingLogKind = Extract<BuildLogKind, `finding_${string}`>;
 
@@ -9,8 +11,6 @@ function findingKindCondition(kind: FindingLogKind): SQL {
   const actions = findingEventActions.filter((a) => findingLogKindOfAction[a] === kind);
   return actions.length ? inArray(findingEvents.action, actions) : sql`false`;
 }
-import { buildEvents, builds, designRevisions, findingEvents, findingPhotos, findings, partDesigns, travelerEvents, travelers, users } from '../../db/schema';
-import { visibleBuilds } from '../builds/build-access';
 
 /**
  * What to read of one build's history. Every query below also carries `visibleBuilds`, so a build the

@@ -1,11 +1,11 @@
-import { and, eq, inArray } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import {
   allowedBuildActions, allowedBuildPeopleActions, buildWorkRefusal, checkBuildAction, memberRoleOfPlace, removalRefusal, singlePlaces,
   type BuildAction, type BuildChangeInput,
   type BuildPeople, type BuildPeopleAction, type BuildSummary, type MemberPlace, type PageQuery,
 } from '../../db/contracts';
 import { withTransaction, type Db, type Tx } from '../../db';
-import { builds, designRevisions, partDesigns, travelers } from '../../db/schema';
+import { builds, designRevisions, partDesigns } from '../../db/schema';
 import type { AppContext } from '../context';
 import { invite } from '../people/invitations';
 import { addBuildMember, findBuildBrief, findUserByEmail, listPendingInvitations } from '../people/people-repository';
@@ -24,7 +24,6 @@ const nameFromEmail = (email: string) => email.split('@')[0].replace(/[._-]+/g, 
 
 export const buildsService = (ctx: Deps) => {
   const { db, pool } = ctx;
-  const publicUrl = ctx.config.publicUrl;
   const kits = kitsService(db);
 
   async function summary(user: Express.User, id: string): Promise<BuildSummary> {

@@ -114,7 +114,7 @@ function spanwiseStations(lengthIn: number, tension: number, shear: number): Sta
 
 const strip = (s: PitchScheduleResult): SkinLineSchedule => {
   const { inputs, rules, caution, warnings, ...rest } = s;
-  void inputs, void rules, void caution, void warnings;
+  void inputs; void rules; void caution; void warnings;
   return rest;
 };
 

@@ -407,7 +407,7 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
       throw e;
     }
     const { inputs: _i, rules: _r, caution: _c, design: _d, airfoil: _a, outline: _o, conditions: conds, ...rest } = study;
-    void _i, void _r, void _c, void _d, void _a, void _o;
+    void _i; void _r; void _c; void _d; void _a; void _o;
     return {
       name: r.name,
       stationIn: r.stationIn,

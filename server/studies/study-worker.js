@@ -1,3 +1,4 @@
+/* global __filename */
 'use strict';
 // The entry Piscina starts in each study thread. A worker thread starts with plain Node: whatever made
 // the parent understand TypeScript (tsx's loader under `npm start`, ts-jest's transform under jest)

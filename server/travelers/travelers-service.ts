@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray, sql } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import QRCode from 'qrcode';
 import {
   allowedPartActions, checkPartAction, holesAwaitingInspectorStatuses, holesDoneStatuses, mayPrintLabels, signOffReadiness,
@@ -7,7 +7,7 @@ import {
 } from '../../db/contracts';
 import { withTransaction, type Db, type Tx } from '../../db';
 import type { Pool } from 'pg';
-import { holes, travelerEvents, travelerSteps, travelers, users } from '../../db/schema';
+import { travelerEvents, travelerSteps, travelers, users } from '../../db/schema';
 import { placeOnBuild } from '../builds/build-access';
 import { decodeCursor, pageOf } from '../pagination';
 import type { AppContext } from '../context';

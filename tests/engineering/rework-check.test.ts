@@ -56,7 +56,7 @@ describe('the rework check for an oversize rivet', () => {
 
   it('checks only the layout, and says so, when no loads are given', () => {
     const { appliedLimitTensionLb, appliedLimitShearLb, ...layoutOnly } = hole;
-    void appliedLimitTensionLb, void appliedLimitShearLb;
+    void appliedLimitTensionLb; void appliedLimitShearLb;
     const r = reworkCheck(layoutOnly);
     expect(r.margins.combinedLimit).toBeNull();
     expect(r.warnings.join(' ')).toMatch(/no applied loads/);

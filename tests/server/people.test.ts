@@ -1,6 +1,5 @@
 import jwt from 'jsonwebtoken';
 import request from 'supertest';
-import sharp from 'sharp';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 
