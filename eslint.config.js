@@ -13,6 +13,16 @@ module.exports = defineConfig([
   },
   {
     // Generated or installed, never written by hand.
-    ignores: ['dist/**', 'build/**', '.cache/**', '.expo/**', '.pgdata/**', 'uploads/**', 'public/**', 'db/migrations/**', 'coverage/**'],
+    ignores: [
+      'dist/**',
+      'build/**',
+      '.cache/**',
+      '.expo/**',
+      '.pgdata/**',
+      'uploads/**',
+      'public/**',
+      'db/migrations/**',
+      'coverage/**',
+    ],
   },
 ]);

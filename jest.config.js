@@ -7,7 +7,21 @@ module.exports = {
       testEnvironment: 'node',
       roots: ['<rootDir>/tests/engineering', '<rootDir>/tests/server'],
       testMatch: ['**/*.test.ts'],
-      transform: { '^.+\\.ts$': ['ts-jest', { tsconfig: { module: 'commonjs', esModuleInterop: true, strict: true, skipLibCheck: true, target: 'es2022', isolatedModules: true } }] },
+      transform: {
+        '^.+\\.ts$': [
+          'ts-jest',
+          {
+            tsconfig: {
+              module: 'commonjs',
+              esModuleInterop: true,
+              strict: true,
+              skipLibCheck: true,
+              target: 'es2022',
+              isolatedModules: true,
+            },
+          },
+        ],
+      },
       moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1' },
     },
     {
@@ -22,7 +36,21 @@ module.exports = {
       testEnvironment: 'node',
       roots: ['<rootDir>/tests/e2e'],
       testMatch: ['**/*.e2e.ts'],
-      transform: { '^.+\\.ts$': ['ts-jest', { tsconfig: { module: 'commonjs', esModuleInterop: true, strict: true, skipLibCheck: true, target: 'es2022', isolatedModules: true } }] },
+      transform: {
+        '^.+\\.ts$': [
+          'ts-jest',
+          {
+            tsconfig: {
+              module: 'commonjs',
+              esModuleInterop: true,
+              strict: true,
+              skipLibCheck: true,
+              target: 'es2022',
+              isolatedModules: true,
+            },
+          },
+        ],
+      },
       moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1' },
     },
   ],

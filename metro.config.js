@@ -30,8 +30,14 @@ function layoutSettings() {
       else if (/^_layout\.[tj]sx?$/.test(entry.name)) {
         const source = fs.readFileSync(p, 'utf8');
         if (!/\bunstable_settings\b/.test(source)) continue;
-        const plain = /export\s+const\s+unstable_settings\s*=\s*\{\s*(initialRouteName|anchor)\s*:\s*(['"])([^'"]+)\2\s*,?\s*\}\s*;/.exec(source);
-        if (!plain) throw new Error(`${path.relative(__dirname, p)}: write unstable_settings as { initialRouteName: '…' } (metro.config.js reads it from the source for async routes)`);
+        const plain =
+          /export\s+const\s+unstable_settings\s*=\s*\{\s*(initialRouteName|anchor)\s*:\s*(['"])([^'"]+)\2\s*,?\s*\}\s*;/.exec(
+            source,
+          );
+        if (!plain)
+          throw new Error(
+            `${path.relative(__dirname, p)}: write unstable_settings as { initialRouteName: '…' } (metro.config.js reads it from the source for async routes)`,
+          );
         found[`./${path.relative(appDir, p).split(path.sep).join('/')}`] = { [plain[1]]: plain[3] };
       }
     }
@@ -42,15 +48,22 @@ function layoutSettings() {
 const settingsFile = path.join(__dirname, 'node_modules', '.cache', 'pitchcard', 'router-layouts.json');
 fs.mkdirSync(path.dirname(settingsFile), { recursive: true });
 const settingsJson = JSON.stringify(layoutSettings(), null, 2);
-if (!fs.existsSync(settingsFile) || fs.readFileSync(settingsFile, 'utf8') !== settingsJson) fs.writeFileSync(settingsFile, settingsJson);
+if (!fs.existsSync(settingsFile) || fs.readFileSync(settingsFile, 'utf8') !== settingsJson)
+  fs.writeFileSync(settingsFile, settingsJson);
 
 // Two more of zod's modules that the app never calls, swapped on the web for modules of the same names
 // that throw when called: `z.compile` (generated parsers; the app parses jitless, index.ts) and
 // `z.fromJSONSchema` (the schemas are written in db/contracts). Together some 40 kB of script that every
 // page would otherwise load at start. Only these two imports, from zod's own index modules.
 const zodLeftOut = {
-  './compile.js': { from: /[\\/]node_modules[\\/]zod[\\/]v4[\\/]core[\\/]index\.js$/, to: path.join(__dirname, 'lib', 'zod-web', 'compile.ts') },
-  './from-json-schema.js': { from: /[\\/]node_modules[\\/]zod[\\/]v4[\\/]classic[\\/]external\.js$/, to: path.join(__dirname, 'lib', 'zod-web', 'from-json-schema.ts') },
+  './compile.js': {
+    from: /[\\/]node_modules[\\/]zod[\\/]v4[\\/]core[\\/]index\.js$/,
+    to: path.join(__dirname, 'lib', 'zod-web', 'compile.ts'),
+  },
+  './from-json-schema.js': {
+    from: /[\\/]node_modules[\\/]zod[\\/]v4[\\/]classic[\\/]external\.js$/,
+    to: path.join(__dirname, 'lib', 'zod-web', 'from-json-schema.ts'),
+  },
 };
 
 const upstream = config.resolver.resolveRequest;

@@ -11,7 +11,7 @@ const routes = require.context(
   './app',
   true,
   /^(?:\.\/)(?!(?:(?:(?:.*\+api)|(?:\+middleware)|(?:\+(html|native-intent))))\.[tj]sx?$).*(?:\.android|\.ios|\.native)?\.[tj]sx?$/,
-  'lazy'
+  'lazy',
 );
 
 function load(key) {

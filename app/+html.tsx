@@ -2,8 +2,16 @@ import { ScrollViewStyleReset } from 'expo-router/html';
 import type { PropsWithChildren } from 'react';
 
 /** The app's faces, as public/index.html declares them (WOFF2 subsets made by scripts/make-fonts.mjs). */
-const fontFaces = ['AtkinsonHyperlegible_400Regular', 'AtkinsonHyperlegible_700Bold', 'IBMPlexMono_400Regular', 'IBMPlexMono_600SemiBold']
-  .map((family) => `@font-face { font-family: ${family}; src: url(/fonts/${family}.woff2) format("woff2"); font-display: swap; }`)
+const fontFaces = [
+  'AtkinsonHyperlegible_400Regular',
+  'AtkinsonHyperlegible_700Bold',
+  'IBMPlexMono_400Regular',
+  'IBMPlexMono_600SemiBold',
+]
+  .map(
+    (family) =>
+      `@font-face { font-family: ${family}; src: url(/fonts/${family}.woff2) format("woff2"); font-display: swap; }`,
+  )
   .join('\n');
 
 /**
@@ -23,8 +31,20 @@ export default function Root({ children }: PropsWithChildren) {
         <link rel="manifest" href="/manifest.webmanifest" />
         <link rel="apple-touch-icon" href="/icons/apple-touch-icon.png" />
         <title>Pitchcard</title>
-        <link rel="preload" href="/fonts/AtkinsonHyperlegible_400Regular.woff2" as="font" type="font/woff2" crossOrigin="" />
-        <link rel="preload" href="/fonts/AtkinsonHyperlegible_700Bold.woff2" as="font" type="font/woff2" crossOrigin="" />
+        <link
+          rel="preload"
+          href="/fonts/AtkinsonHyperlegible_400Regular.woff2"
+          as="font"
+          type="font/woff2"
+          crossOrigin=""
+        />
+        <link
+          rel="preload"
+          href="/fonts/AtkinsonHyperlegible_700Bold.woff2"
+          as="font"
+          type="font/woff2"
+          crossOrigin=""
+        />
         <style id="app-fonts" dangerouslySetInnerHTML={{ __html: fontFaces }} />
         <ScrollViewStyleReset />
         <style dangerouslySetInnerHTML={{ __html: 'body { background-color: #F3EEE2; }' }} />

@@ -16,7 +16,14 @@ export { ScreenErrorBoundary as ErrorBoundary } from '@/components/ui/screen-err
 
 const navTheme = {
   ...DefaultTheme,
-  colors: { ...DefaultTheme.colors, background: colors.paper, card: colors.paper, text: colors.ink, border: colors.rule, primary: colors.accent },
+  colors: {
+    ...DefaultTheme.colors,
+    background: colors.paper,
+    card: colors.paper,
+    text: colors.ink,
+    border: colors.rule,
+    primary: colors.accent,
+  },
 };
 
 export default function RootLayout() {

@@ -23,10 +23,14 @@ export function unitLabel(q: Quantity, system: UnitSystem): string {
 export function toDisplay(q: Quantity, stored: number, system: UnitSystem): number {
   if (system === 'imperial') return stored;
   switch (q) {
-    case 'length': return stored * MM_PER_IN;
-    case 'force': return stored * N_PER_LBF;
-    case 'mass': return stored * KG_PER_LB;
-    case 'area': return stored * M2_PER_FT2;
+    case 'length':
+      return stored * MM_PER_IN;
+    case 'force':
+      return stored * N_PER_LBF;
+    case 'mass':
+      return stored * KG_PER_LB;
+    case 'area':
+      return stored * M2_PER_FT2;
   }
 }
 
@@ -34,10 +38,14 @@ export function toDisplay(q: Quantity, stored: number, system: UnitSystem): numb
 export function fromDisplay(q: Quantity, shown: number, system: UnitSystem): number {
   if (system === 'imperial') return shown;
   switch (q) {
-    case 'length': return shown / MM_PER_IN;
-    case 'force': return shown / N_PER_LBF;
-    case 'mass': return shown / KG_PER_LB;
-    case 'area': return shown / M2_PER_FT2;
+    case 'length':
+      return shown / MM_PER_IN;
+    case 'force':
+      return shown / N_PER_LBF;
+    case 'mass':
+      return shown / KG_PER_LB;
+    case 'area':
+      return shown / M2_PER_FT2;
   }
 }
 
@@ -105,7 +113,7 @@ export function formatArea(sqft: number, system: UnitSystem): string {
 export function formatWingLoading(psf: number, system: UnitSystem): string {
   if (!Number.isFinite(psf)) return '–';
   if (system === 'imperial') return `${psf.toFixed(1)} psf`;
-  return `${(psf * KG_PER_LB / M2_PER_FT2).toFixed(1)} kg/m²`;
+  return `${((psf * KG_PER_LB) / M2_PER_FT2).toFixed(1)} kg/m²`;
 }
 
 /** A ratio such as edge distance over diameter: "2.4 D". */

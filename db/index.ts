@@ -28,7 +28,7 @@ export type Tx = { db: Db; executeSql: (text: string, values: unknown[]) => Prom
 const connectionDbs = new WeakMap<PoolClient, Db>();
 function clientDb(client: PoolClient): Db {
   let db = connectionDbs.get(client);
-  if (!db) connectionDbs.set(client, db = drizzle(client));
+  if (!db) connectionDbs.set(client, (db = drizzle(client)));
   return db;
 }
 

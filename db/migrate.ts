@@ -17,6 +17,15 @@ export async function runMigrations(url: string): Promise<void> {
 
 if (require.main === module) {
   const url = process.env.DATABASE_URL;
-  if (!url) { console.error('DATABASE_URL is not set'); process.exit(2); }
-  runMigrations(url).then(() => console.log('migrations applied'), (err) => { console.error('migration failed:', err.message); process.exit(1); });
+  if (!url) {
+    console.error('DATABASE_URL is not set');
+    process.exit(2);
+  }
+  runMigrations(url).then(
+    () => console.log('migrations applied'),
+    (err) => {
+      console.error('migration failed:', err.message);
+      process.exit(1);
+    },
+  );
 }

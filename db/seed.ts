@@ -23,14 +23,49 @@ export const DEMO_USERS = {
   admin: { email: 'admin@pitchcard.example', name: 'Site Admin', role: 'admin' as const },
 };
 
-function ribRevision(over: Partial<RevisionInput> = {}): Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & { steps: string[]; changeNote: string } {
+function ribRevision(
+  over: Partial<RevisionInput> = {},
+): Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & { steps: string[]; changeNote: string } {
   return {
-    material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 54,
+    material: '6061-T6',
+    gaugeIn: 0.025,
+    rivetSpec: 'MS20470AD4',
+    drillSize: '#30',
+    drillDiameterIn: 0.1285,
+    edgeDistanceIn: 0.25,
+    chordIn: 54,
     lines: [
-      { code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 44, zones: [{ fromIn: 0, toIn: 8, pitchIn: 1 }, { fromIn: 8, toIn: 24, pitchIn: 1.5 }, { fromIn: 24, toIn: 44, pitchIn: 2 }] },
-      { code: 'L', name: 'Lower flange', surface: 'lower', startIn: 1, lengthIn: 44, zones: [{ fromIn: 0, toIn: 12, pitchIn: 1.5 }, { fromIn: 12, toIn: 44, pitchIn: 2 }] },
+      {
+        code: 'U',
+        name: 'Upper flange',
+        surface: 'upper',
+        startIn: 1,
+        lengthIn: 44,
+        zones: [
+          { fromIn: 0, toIn: 8, pitchIn: 1 },
+          { fromIn: 8, toIn: 24, pitchIn: 1.5 },
+          { fromIn: 24, toIn: 44, pitchIn: 2 },
+        ],
+      },
+      {
+        code: 'L',
+        name: 'Lower flange',
+        surface: 'lower',
+        startIn: 1,
+        lengthIn: 44,
+        zones: [
+          { fromIn: 0, toIn: 12, pitchIn: 1.5 },
+          { fromIn: 12, toIn: 44, pitchIn: 2 },
+        ],
+      },
     ],
-    steps: ['Deburr all holes and flute the flanges straight', 'Cleco rib to spar and skin; check flange fit', 'Rivet upper flange', 'Rivet lower flange', 'Inspect shop heads'],
+    steps: [
+      'Deburr all holes and flute the flanges straight',
+      'Cleco rib to spar and skin; check flange fit',
+      'Rivet upper flange',
+      'Rivet lower flange',
+      'Inspect shop heads',
+    ],
     changeNote: '',
     ...over,
   } as never;
@@ -45,7 +80,14 @@ export const DEMO_COUPONS: [number, number, CouponOutcome, string][] = [
 ];
 
 export const DEMO_STUDY_INPUTS: RibStudyInputValues = {
-  kit: { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 54, stallSpeedKeas: 47, cruiseSpeedKeas: 118, category: 'utility' },
+  kit: {
+    weightLb: 1320,
+    wingAreaSqFt: 120,
+    meanChordIn: 54,
+    stallSpeedKeas: 47,
+    cruiseSpeedKeas: 118,
+    category: 'utility',
+  },
   airfoil: { kind: 'naca', designation: '2412' },
   rib: { chordIn: 54, spacingIn: 14.5 },
   lines: [
@@ -55,7 +97,9 @@ export const DEMO_STUDY_INPUTS: RibStudyInputValues = {
   material: '6061-T6',
   gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04, 0.05],
   rivetCandidates: ['PULLED-4', 'MS20470AD3', 'MS20470AD4'],
-  maxPitchDiameters: 8, pitchIncrementIn: 0.125, maxZones: 4,
+  maxPitchDiameters: 8,
+  pitchIncrementIn: 0.125,
+  maxZones: 4,
 };
 
 /**
@@ -75,7 +119,9 @@ export const DEMO_WING_INPUTS: WingStudyInputValues = {
   material: DEMO_STUDY_INPUTS.material,
   gaugeCandidates: DEMO_STUDY_INPUTS.gaugeCandidates,
   rivetCandidates: DEMO_STUDY_INPUTS.rivetCandidates,
-  maxPitchDiameters: 8, pitchIncrementIn: 0.125, maxZones: 4,
+  maxPitchDiameters: 8,
+  pitchIncrementIn: 0.125,
+  maxZones: 4,
 };
 
 /**
@@ -83,15 +129,56 @@ export const DEMO_WING_INPUTS: WingStudyInputValues = {
  * run the bay's 14.5 in, the rib lines the 29.7 in between the spars along the surface. A revision's
  * lines all run one way within its chord, so the chord here is the panel's longest side.
  */
-const DEMO_SKIN_REVISION: Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & { steps: string[]; changeNote: string } = {
-  material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20426AD3', drillSize: '#40', drillDiameterIn: 0.098, edgeDistanceIn: 0.25, chordIn: 30,
+const DEMO_SKIN_REVISION: Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & {
+  steps: string[];
+  changeNote: string;
+} = {
+  material: '6061-T6',
+  gaugeIn: 0.025,
+  rivetSpec: 'MS20426AD3',
+  drillSize: '#40',
+  drillDiameterIn: 0.098,
+  edgeDistanceIn: 0.25,
+  chordIn: 30,
   lines: [
-    { code: 'FS', name: 'Front spar', surface: 'upper', startIn: 0, lengthIn: 14.5, zones: [{ fromIn: 0, toIn: 14.5, pitchIn: 1 }] },
-    { code: 'RS', name: 'Rear spar', surface: 'upper', startIn: 0, lengthIn: 14.5, zones: [{ fromIn: 0, toIn: 14.5, pitchIn: 1 }] },
-    { code: 'IR', name: 'Rib W-101 (inboard)', surface: 'upper', startIn: 0, lengthIn: 29.7, zones: [{ fromIn: 0, toIn: 29.7, pitchIn: 1 }] },
-    { code: 'OR', name: 'Rib W-102 (outboard)', surface: 'upper', startIn: 0, lengthIn: 29.7, zones: [{ fromIn: 0, toIn: 29.7, pitchIn: 1 }] },
+    {
+      code: 'FS',
+      name: 'Front spar',
+      surface: 'upper',
+      startIn: 0,
+      lengthIn: 14.5,
+      zones: [{ fromIn: 0, toIn: 14.5, pitchIn: 1 }],
+    },
+    {
+      code: 'RS',
+      name: 'Rear spar',
+      surface: 'upper',
+      startIn: 0,
+      lengthIn: 14.5,
+      zones: [{ fromIn: 0, toIn: 14.5, pitchIn: 1 }],
+    },
+    {
+      code: 'IR',
+      name: 'Rib W-101 (inboard)',
+      surface: 'upper',
+      startIn: 0,
+      lengthIn: 29.7,
+      zones: [{ fromIn: 0, toIn: 29.7, pitchIn: 1 }],
+    },
+    {
+      code: 'OR',
+      name: 'Rib W-102 (outboard)',
+      surface: 'upper',
+      startIn: 0,
+      lengthIn: 29.7,
+      zones: [{ fromIn: 0, toIn: 29.7, pitchIn: 1 }],
+    },
   ],
-  steps: ['Deburr and dimple the skin holes', 'Cleco skin to spars and ribs', 'Rivet spars, then ribs, from the middle out'],
+  steps: [
+    'Deburr and dimple the skin holes',
+    'Cleco skin to spars and ribs',
+    'Rivet spars, then ribs, from the middle out',
+  ],
   changeNote: '',
 };
 
@@ -105,60 +192,135 @@ async function demoPhoto(): Promise<Buffer> {
 }
 
 /** Loads the demo when the database has no users yet; a second run changes nothing. */
-export async function seedDemo(database: Database, storage: PhotoStorage, mailQueue: MailQueue, jwtSecret: string): Promise<boolean> {
+export async function seedDemo(
+  database: Database,
+  storage: PhotoStorage,
+  mailQueue: MailQueue,
+  jwtSecret: string,
+): Promise<boolean> {
   const { db, pool } = database;
   if ((await db.select({ id: users.id }).from(users).limit(1)).length) return false;
 
-  const [supplierOrg] = await db.insert(organizations).values({ name: 'Northfold Kitworks', kind: 'supplier' }).returning();
+  const [supplierOrg] = await db
+    .insert(organizations)
+    .values({ name: 'Northfold Kitworks', kind: 'supplier' })
+    .returning();
   const [shop] = await db.insert(organizations).values({ name: 'Benchwork Hangar 3', kind: 'shop' }).returning();
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   const made: Record<string, Express.User> = {};
   for (const [key, u] of Object.entries(DEMO_USERS)) {
     const organizationId = u.role === 'supplier' ? supplierOrg.id : u.role === 'admin' ? null : shop.id;
-    const [row] = await db.insert(users).values({ ...u, organizationId, passwordHash, lead: u.role === 'supplier' }).returning();
-    made[key] = { id: row.id, email: row.email, name: row.name, role: row.role, lead: row.lead, organizationId, organizationName: organizationId === supplierOrg.id ? supplierOrg.name : organizationId ? shop.name : null };
+    const [row] = await db
+      .insert(users)
+      .values({ ...u, organizationId, passwordHash, lead: u.role === 'supplier' })
+      .returning();
+    made[key] = {
+      id: row.id,
+      email: row.email,
+      name: row.name,
+      role: row.role,
+      lead: row.lead,
+      organizationId,
+      organizationName: organizationId === supplierOrg.id ? supplierOrg.name : organizationId ? shop.name : null,
+    };
   }
   const { supplier, builder } = made;
 
   const kit = await kitsService(db).create(supplier, {
-    code: 'NK-2', name: 'NK-2 Quillon two-seat trainer', weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 54,
-    stallSpeedKeas: 47, cruiseSpeedKeas: 118, category: 'utility', airfoil: 'NACA 2412',
+    code: 'NK-2',
+    name: 'NK-2 Quillon two-seat trainer',
+    weightLb: 1320,
+    wingAreaSqFt: 120,
+    meanChordIn: 54,
+    stallSpeedKeas: 47,
+    cruiseSpeedKeas: 118,
+    category: 'utility',
+    airfoil: 'NACA 2412',
   });
   const designs = designsService(db);
-  const inner = await designs.create(supplier, { design: { kitModelId: kit.id, partNumber: 'W-104', name: 'Wing rib, inboard', kind: 'rib' }, revision: ribRevision() });
+  const inner = await designs.create(supplier, {
+    design: { kitModelId: kit.id, partNumber: 'W-104', name: 'Wing rib, inboard', kind: 'rib' },
+    revision: ribRevision(),
+  });
   await designs.publish(supplier, inner.revisions[0].id);
-  const outer = await designs.create(supplier, { design: { kitModelId: kit.id, partNumber: 'W-105', name: 'Wing rib, outboard', kind: 'rib' }, revision: ribRevision({ gaugeIn: 0.02 }) });
+  const outer = await designs.create(supplier, {
+    design: { kitModelId: kit.id, partNumber: 'W-105', name: 'Wing rib, outboard', kind: 'rib' },
+    revision: ribRevision({ gaugeIn: 0.02 }),
+  });
   await designs.publish(supplier, outer.revisions[0].id);
 
   await buildsService({ db, pool, mailQueue, config: { publicUrl: '' } }).create(supplier, {
-    kitModelId: kit.id, kitSerial: 'NK2-0147', builderEmail: DEMO_USERS.builder.email, inspectorEmail: DEMO_USERS.inspector.email,
+    kitModelId: kit.id,
+    kitSerial: 'NK2-0147',
+    builderEmail: DEMO_USERS.builder.email,
+    inspectorEmail: DEMO_USERS.inspector.email,
   });
 
   // A later change to the outboard rib: its traveler in the build shows the newer revision.
-  const revB = await designs.newRevision(supplier, outer.id, { ...ribRevision({ gaugeIn: 0.025 }), changeNote: 'Gauge up to 0.025 in: flange pull-through margin at the nose was thin' });
+  const revB = await designs.newRevision(supplier, outer.id, {
+    ...ribRevision({ gaugeIn: 0.025 }),
+    changeNote: 'Gauge up to 0.025 in: flange pull-through margin at the nose was thin',
+  });
   await designs.publish(supplier, revB.id);
 
   // The supplier's flange coupons (6061-T6, pulled 1/8 in rivets, 1 in wide) and the rib study they back.
   const coupons = couponsService(db);
   for (const [gaugeIn, loadLb, outcome, note] of DEMO_COUPONS) {
-    await coupons.create(supplier, { material: '6061-T6', gaugeIn, couponWidthIn: 1, rivetSpec: 'PULLED-4', loadLb, outcome, note, testedOn: '2026-10-14' });
+    await coupons.create(supplier, {
+      material: '6061-T6',
+      gaugeIn,
+      couponWidthIn: 1,
+      rivetSpec: 'PULLED-4',
+      loadLb,
+      outcome,
+      note,
+      testedOn: '2026-10-14',
+    });
   }
   // The wing study first, so the rib study stays the newest (first in the list, as before wing studies).
   const studies = studiesService(db);
-  await studies.create(supplier, { kind: 'wing', kitModelId: kit.id, name: 'Whole wing, ten ribs, flight envelope', inputs: DEMO_WING_INPUTS });
-  await studies.create(supplier, { kind: 'rib', kitModelId: kit.id, name: 'Inboard rib W-104, flight envelope', inputs: DEMO_STUDY_INPUTS });
-  await designs.create(supplier, { design: { kitModelId: kit.id, partNumber: 'W-201', name: 'Wing skin, upper, root bay', kind: 'skin_panel' }, revision: DEMO_SKIN_REVISION });
+  await studies.create(supplier, {
+    kind: 'wing',
+    kitModelId: kit.id,
+    name: 'Whole wing, ten ribs, flight envelope',
+    inputs: DEMO_WING_INPUTS,
+  });
+  await studies.create(supplier, {
+    kind: 'rib',
+    kitModelId: kit.id,
+    name: 'Inboard rib W-104, flight envelope',
+    inputs: DEMO_STUDY_INPUTS,
+  });
+  await designs.create(supplier, {
+    design: { kitModelId: kit.id, partNumber: 'W-201', name: 'Wing skin, upper, root bay', kind: 'skin_panel' },
+    revision: DEMO_SKIN_REVISION,
+  });
 
   const signer = createUrlSigner(jwtSecret);
   const findings = findingsService({ db, pool, storage, signer, mailQueue });
   const travelers = travelersService(db, pool, findings.list);
   const parts = await travelers.list(builder);
   const innerTraveler = parts.find((t) => t.partNumber === 'W-104')!;
-  await travelers.tickHoles(builder, innerTraveler.id, { holeIds: ['U-01', 'U-02', 'U-03', 'U-04', 'U-05', 'U-06', 'U-07', 'U-08'], status: 'installed' });
-  await travelers.setStep(builder, innerTraveler.id, (await travelers.detail(builder, innerTraveler.id)).steps[0].id, true);
-  await findings.create(builder, {
-    travelerId: innerTraveler.id, holeIds: ['U-09'], kind: 'hole_elongated', measurements: { holeDiameterIn: 0.141 },
-    note: 'Hole looks oval after deburring, about a drill size long fore and aft.',
-  }, [{ buffer: await demoPhoto(), originalname: 'hole-u09.jpg' }]);
+  await travelers.tickHoles(builder, innerTraveler.id, {
+    holeIds: ['U-01', 'U-02', 'U-03', 'U-04', 'U-05', 'U-06', 'U-07', 'U-08'],
+    status: 'installed',
+  });
+  await travelers.setStep(
+    builder,
+    innerTraveler.id,
+    (await travelers.detail(builder, innerTraveler.id)).steps[0].id,
+    true,
+  );
+  await findings.create(
+    builder,
+    {
+      travelerId: innerTraveler.id,
+      holeIds: ['U-09'],
+      kind: 'hole_elongated',
+      measurements: { holeDiameterIn: 0.141 },
+      note: 'Hole looks oval after deburring, about a drill size long fore and aft.',
+    },
+    [{ buffer: await demoPhoto(), originalname: 'hole-u09.jpg' }],
+  );
   return true;
 }

@@ -11,8 +11,13 @@ export type FindingDraft = {
 };
 
 function isEmpty(d: Omit<FindingDraft, 'savedAt'>): boolean {
-  return !d.values.holeIds.length && !d.values.kind && !d.values.note.trim() && !d.photos.length
-    && !Object.values(d.values.measurements ?? {}).some((v) => typeof v === 'number');
+  return (
+    !d.values.holeIds.length &&
+    !d.values.kind &&
+    !d.values.note.trim() &&
+    !d.photos.length &&
+    !Object.values(d.values.measurements ?? {}).some((v) => typeof v === 'number')
+  );
 }
 
 /**
@@ -33,7 +38,9 @@ export function useFindingDraft(travelerId: string) {
       setRestored(d && !isEmpty(d) ? d : null);
       setLoaded(true);
     });
-    return () => { alive = false; };
+    return () => {
+      alive = false;
+    };
   }, [key]);
 
   const flush = useCallback(async () => {
@@ -47,12 +54,15 @@ export function useFindingDraft(travelerId: string) {
   }, [key]);
 
   /** Saves shortly after the last change; nothing is written before the old draft has been read. */
-  const save = useCallback((d: Omit<FindingDraft, 'savedAt'>) => {
-    if (!loaded) return;
-    pending.current = d;
-    if (timer.current) clearTimeout(timer.current);
-    timer.current = setTimeout(() => void flush(), 250);
-  }, [loaded, flush]);
+  const save = useCallback(
+    (d: Omit<FindingDraft, 'savedAt'>) => {
+      if (!loaded) return;
+      pending.current = d;
+      if (timer.current) clearTimeout(timer.current);
+      timer.current = setTimeout(() => void flush(), 250);
+    },
+    [loaded, flush],
+  );
 
   const clear = useCallback(async () => {
     if (timer.current) clearTimeout(timer.current);
@@ -63,7 +73,12 @@ export function useFindingDraft(travelerId: string) {
   }, [key]);
 
   // Write what is pending when the screen goes away.
-  useEffect(() => () => { void flush(); }, [flush]);
+  useEffect(
+    () => () => {
+      void flush();
+    },
+    [flush],
+  );
 
   return { loaded, restored, save, clear, flush };
 }

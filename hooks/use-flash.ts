@@ -14,7 +14,10 @@ export function setFlash(key: string, value: string): void {
 
 export function useFlash(key: string): [string | null, () => void] {
   const value = useSyncExternalStore(
-    (l) => { listeners.add(l); return () => listeners.delete(l); },
+    (l) => {
+      listeners.add(l);
+      return () => listeners.delete(l);
+    },
     () => store.get(key) ?? null,
     () => null,
   );

@@ -1,4 +1,14 @@
-import { createContext, createElement, useCallback, useContext, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import {
+  createContext,
+  createElement,
+  useCallback,
+  useContext,
+  useEffect,
+  useMemo,
+  useRef,
+  useState,
+  type ReactNode,
+} from 'react';
 import type { Role, SessionUser, SignInResult } from '@/db/contracts';
 import { safeInAppPath } from '@/components/navigation/pending-link';
 import { configureApiClient } from '@/lib/api-client';
@@ -36,7 +46,13 @@ function isLive(s: Stored | null): s is Stored {
  * `arrivalHref`: the page the app was opened at, if the sign-in guard hides it (read once, at start).
  * It becomes the pending path when no live session turns up.
  */
-export function SessionProvider({ children, arrivalHref = null }: { children: ReactNode; arrivalHref?: string | null }) {
+export function SessionProvider({
+  children,
+  arrivalHref = null,
+}: {
+  children: ReactNode;
+  arrivalHref?: string | null;
+}) {
   const [status, setStatus] = useState<Session['status']>('loading');
   const [stored, setStored] = useState<Stored | null>(null);
   const [endedBecause, setEndedBecause] = useState<string | null>(null);
@@ -60,17 +76,20 @@ export function SessionProvider({ children, arrivalHref = null }: { children: Re
     return href;
   }, [setPendingHref]);
 
-  const signOut = useCallback(async (reason?: string) => {
-    tokenRef.current = null;
-    setStored(null);
-    setStatus('signed-out');
-    setEndedBecause(reason ?? null);
-    // A link followed by the last person is not the next person's business.
-    setPendingHref(null);
-    await removeKey(storageKeys.session);
-    // Nothing one person's device cached (API answers kept for work without signal) may show to the next.
-    await clearOfflineCaches();
-  }, [setPendingHref]);
+  const signOut = useCallback(
+    async (reason?: string) => {
+      tokenRef.current = null;
+      setStored(null);
+      setStatus('signed-out');
+      setEndedBecause(reason ?? null);
+      // A link followed by the last person is not the next person's business.
+      setPendingHref(null);
+      await removeKey(storageKeys.session);
+      // Nothing one person's device cached (API answers kept for work without signal) may show to the next.
+      await clearOfflineCaches();
+    },
+    [setPendingHref],
+  );
 
   const signIn = useCallback(async (result: SignInResult) => {
     const next: Stored = { token: result.token, expiresAt: result.expiresAt, user: result.user };
@@ -88,7 +107,10 @@ export function SessionProvider({ children, arrivalHref = null }: { children: Re
     configureApiClient({
       getToken: () => tokenRef.current,
       onUnauthorized: () => {
-        if (tokenRef.current) void signOut('You were signed out (the session ended, or was ended from another device). Please sign in again.');
+        if (tokenRef.current)
+          void signOut(
+            'You were signed out (the session ended, or was ended from another device). Please sign in again.',
+          );
       },
     });
   }
@@ -113,7 +135,9 @@ export function SessionProvider({ children, arrivalHref = null }: { children: Re
         }
       }
     });
-    return () => { alive = false; };
+    return () => {
+      alive = false;
+    };
   }, [setPendingHref]);
 
   // End the session when the token expires rather than on the next refused request.
@@ -121,22 +145,28 @@ export function SessionProvider({ children, arrivalHref = null }: { children: Re
     if (!stored) return;
     const ms = new Date(stored.expiresAt).getTime() - Date.now();
     if (!Number.isFinite(ms)) return;
-    const t = setTimeout(() => void signOut('Your session ran out. Please sign in again.'), Math.max(0, Math.min(ms, 2 ** 31 - 1)));
+    const t = setTimeout(
+      () => void signOut('Your session ran out. Please sign in again.'),
+      Math.max(0, Math.min(ms, 2 ** 31 - 1)),
+    );
     return () => clearTimeout(t);
   }, [stored, signOut]);
 
-  const value = useMemo<Session>(() => ({
-    status,
-    user: stored?.user ?? null,
-    token: stored?.token ?? null,
-    expiresAt: stored?.expiresAt ?? null,
-    endedBecause,
-    signIn,
-    signOut,
-    pendingHref,
-    setPendingHref,
-    takePendingHref,
-  }), [status, stored, endedBecause, signIn, signOut, pendingHref, setPendingHref, takePendingHref]);
+  const value = useMemo<Session>(
+    () => ({
+      status,
+      user: stored?.user ?? null,
+      token: stored?.token ?? null,
+      expiresAt: stored?.expiresAt ?? null,
+      endedBecause,
+      signIn,
+      signOut,
+      pendingHref,
+      setPendingHref,
+      takePendingHref,
+    }),
+    [status, stored, endedBecause, signIn, signOut, pendingHref, setPendingHref, takePendingHref],
+  );
 
   return createElement(SessionContext.Provider, { value }, children);
 }

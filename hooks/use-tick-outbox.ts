@@ -24,7 +24,9 @@ export async function flushOutbox(qc: QueryClient): Promise<void> {
         if (worthRetrying(e)) break;
         // Refused for good (the hole went under a finding meanwhile, say): say so rather than keep it.
         await dropTick(t.id);
-        refusals.forEach((r) => r(`A tick made without signal (${t.holeIds.join(', ')}) was not saved: ${errorMessage(e)}`));
+        refusals.forEach((r) =>
+          r(`A tick made without signal (${t.holeIds.join(', ')}) was not saved: ${errorMessage(e)}`),
+        );
       }
       await qc.invalidateQueries({ queryKey: travelerKeys.detail(t.travelerId) });
     }
@@ -50,7 +52,11 @@ export function useTickOutboxSender(): void {
 }
 
 /** The ticks of one traveler still on the device, and the last refusal of one, for the bench to show. */
-export function usePendingTicks(travelerId: string): { pending: PendingTick[]; refused: string | null; clearRefused: () => void } {
+export function usePendingTicks(travelerId: string): {
+  pending: PendingTick[];
+  refused: string | null;
+  clearRefused: () => void;
+} {
   const [all, setAll] = useState<PendingTick[]>([]);
   const [refused, setRefused] = useState<string | null>(null);
   useEffect(() => {

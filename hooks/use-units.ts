@@ -1,6 +1,25 @@
-import { createContext, createElement, useCallback, useContext, useEffect, useMemo, useState, type ReactNode } from 'react';
 import {
-  formatArea, formatForce, formatWingLoading, formatLength, formatMass, lengthNumber, rulerNumber, stationNumber, unitLabel, type Quantity, type UnitSystem,
+  createContext,
+  createElement,
+  useCallback,
+  useContext,
+  useEffect,
+  useMemo,
+  useState,
+  type ReactNode,
+} from 'react';
+import {
+  formatArea,
+  formatForce,
+  formatWingLoading,
+  formatLength,
+  formatMass,
+  lengthNumber,
+  rulerNumber,
+  stationNumber,
+  unitLabel,
+  type Quantity,
+  type UnitSystem,
 } from '@/constants/units';
 import { readJson, storageKeys, writeJson } from '@/lib/storage';
 

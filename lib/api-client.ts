@@ -49,8 +49,13 @@ const statusWords: Record<number, string> = {
 };
 
 function isErrorBody(x: unknown): x is ApiErrorBody {
-  return !!x && typeof x === 'object' && 'error' in x && !!(x as ApiErrorBody).error
-    && typeof (x as ApiErrorBody).error.message === 'string';
+  return (
+    !!x &&
+    typeof x === 'object' &&
+    'error' in x &&
+    !!(x as ApiErrorBody).error &&
+    typeof (x as ApiErrorBody).error.message === 'string'
+  );
 }
 
 export function url(path: string): string {
@@ -80,7 +85,12 @@ export async function apiRequest<T>(path: string, opts: RequestOptions = {}): Pr
 
   let res: Response;
   try {
-    res = await fetch(url(path), { method: opts.method ?? (body ? 'POST' : 'GET'), headers, body, signal: opts.signal });
+    res = await fetch(url(path), {
+      method: opts.method ?? (body ? 'POST' : 'GET'),
+      headers,
+      body,
+      signal: opts.signal,
+    });
   } catch (e) {
     if ((e as Error)?.name === 'AbortError') throw e;
     throw new ApiError(0, 'network', networkMessage);

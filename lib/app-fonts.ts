@@ -9,5 +9,10 @@ import { useFonts } from 'expo-font';
  * system face and switches when they load. The web has its own file (app-fonts.web.ts).
  */
 export function useAppFonts(): void {
-  useFonts({ AtkinsonHyperlegible_400Regular, AtkinsonHyperlegible_700Bold, IBMPlexMono_400Regular, IBMPlexMono_600SemiBold });
+  useFonts({
+    AtkinsonHyperlegible_400Regular,
+    AtkinsonHyperlegible_700Bold,
+    IBMPlexMono_400Regular,
+    IBMPlexMono_600SemiBold,
+  });
 }

@@ -6,7 +6,9 @@ export type DraftPhoto = { uri: string; name: string; type: string; width?: numb
 
 export class PhotoReadError extends Error {
   constructor(readonly photo: DraftPhoto) {
-    super(`The photo "${photo.name}" can no longer be read (the page was reloaded or the file moved). Remove it and add it again.`);
+    super(
+      `The photo "${photo.name}" can no longer be read (the page was reloaded or the file moved). Remove it and add it again.`,
+    );
   }
 }
 

@@ -17,10 +17,12 @@ export function registerServiceWorker(): void {
   const register = () => {
     // updateViaCache 'none': the browser asks the server for sw.js itself on every update check rather
     // than trusting its HTTP cache, so a new build reaches the phone on its next load.
-    navigator.serviceWorker.register(offline.serviceWorker, { scope: '/', updateViaCache: 'none' }).catch((e: unknown) => {
-      // The app works without it (only not offline): say why in the console and carry on.
-      console.warn('Pitchcard could not install its offline copy:', e);
-    });
+    navigator.serviceWorker
+      .register(offline.serviceWorker, { scope: '/', updateViaCache: 'none' })
+      .catch((e: unknown) => {
+        // The app works without it (only not offline): say why in the console and carry on.
+        console.warn('Pitchcard could not install its offline copy:', e);
+      });
   };
   // After the page has loaded, so that installing (downloading the whole shell) does not compete with
   // the first screen for a weak signal.

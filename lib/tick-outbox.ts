@@ -28,7 +28,12 @@ function update(change: (ticks: PendingTick[]) => PendingTick[]): Promise<Pendin
 }
 
 export function queueTick(travelerId: string, input: TickHolesInput): Promise<PendingTick[]> {
-  const tick: PendingTick = { ...input, travelerId, id: `${Date.now()}-${Math.random().toString(36).slice(2, 8)}`, at: new Date().toISOString() };
+  const tick: PendingTick = {
+    ...input,
+    travelerId,
+    id: `${Date.now()}-${Math.random().toString(36).slice(2, 8)}`,
+    at: new Date().toISOString(),
+  };
   return update((ticks) => [...ticks, tick]);
 }
 
@@ -41,7 +46,9 @@ export function onOutboxChange(listener: Listener): () => void {
 
 /** What the server's copy of a traveler looks like once the ticks still on the device are counted in. */
 export function withPendingTicks(
-  detail: TravelerDetail, pending: PendingTick[], apply: (d: TravelerDetail, t: TickHolesInput) => TravelerDetail,
+  detail: TravelerDetail,
+  pending: PendingTick[],
+  apply: (d: TravelerDetail, t: TickHolesInput) => TravelerDetail,
 ): TravelerDetail {
   return pending.filter((t) => t.travelerId === detail.id).reduce((d, t) => apply(d, t), detail);
 }

@@ -8,7 +8,15 @@
  *
  *   npx tsx scripts/bench-engineering.ts            (npm run bench:engineering)
  */
-import { buildAirfoil, luFactor, ribStudy, solvePanelMethod, wingStudy, type RibStudyInput, type WingStudyInput } from '../server/engineering';
+import {
+  buildAirfoil,
+  luFactor,
+  ribStudy,
+  solvePanelMethod,
+  wingStudy,
+  type RibStudyInput,
+  type WingStudyInput,
+} from '../server/engineering';
 import { DEMO_COUPONS, DEMO_WING_INPUTS } from '../db/seed';
 
 const WARM_UP = 5;
@@ -22,7 +30,14 @@ const WING_RUNS = 7;
 
 /** A light two-seat kit's inner wing rib, a typical case: 1320 lb, 14.5 in rib spacing, pulled rivets. */
 const study = (panels: number): RibStudyInput => ({
-  kit: { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 58, stallSpeedKeas: 45, cruiseSpeedKeas: 110, category: 'utility' },
+  kit: {
+    weightLb: 1320,
+    wingAreaSqFt: 120,
+    meanChordIn: 58,
+    stallSpeedKeas: 45,
+    cruiseSpeedKeas: 110,
+    category: 'utility',
+  },
   airfoil: { kind: 'naca', designation: '23015' },
   rib: { chordIn: 58, spacingIn: 14.5, flangeWidthIn: 0.75, skinGaugeIn: 0.025 },
   lines: [
@@ -95,9 +110,12 @@ const rows = panelCounts.map((panels) => {
 // Least-squares fit of t = c·n³ to the LU times.
 const c = rows.reduce((s, r) => s + r.luMs * r.unknowns ** 3, 0) / rows.reduce((s, r) => s + r.unknowns ** 6, 0);
 
-
-console.log(`engineering core benchmark (median of ${RUNS} runs after ${WARM_UP} warm-up runs; Node ${process.version})`);
-console.log(`rib study: ${result.conditions.length} conditions, ${result.candidates.length} gauge × rivet candidates, ${result.lines.length} fastener lines\n`);
+console.log(
+  `engineering core benchmark (median of ${RUNS} runs after ${WARM_UP} warm-up runs; Node ${process.version})`,
+);
+console.log(
+  `rib study: ${result.conditions.length} conditions, ${result.candidates.length} gauge × rivet candidates, ${result.lines.length} fastener lines\n`,
+);
 console.log('panels  unknowns  rib study (ms)  flow solution (ms)  LU factor (ms)  LU fit c·n³ (ms)');
 for (const r of rows) {
   console.log(
@@ -111,17 +129,34 @@ for (const r of rows) {
     ].join('  '),
   );
 }
-console.log(`(the rest of the study: loads, ${result.candidates.length * result.lines.length} line schedules and the trade table, hardly depends on the panel count)`);
-console.log(`\nLU constant: t ≈ ${(c * 1e6).toFixed(3)} ns × n³ (${((2 / 3) / (c * 1e6)).toFixed(2)} GFLOP/s at 2n³/3 flops)`);
+console.log(
+  `(the rest of the study: loads, ${result.candidates.length * result.lines.length} line schedules and the trade table, hardly depends on the panel count)`,
+);
+console.log(
+  `\nLU constant: t ≈ ${(c * 1e6).toFixed(3)} ns × n³ (${(2 / 3 / (c * 1e6)).toFixed(2)} GFLOP/s at 2n³/3 flops)`,
+);
 const at160 = rows.find((r) => r.panels === 160)!;
-console.log(`rib study at 160 panels: ${at160.studyMs.toFixed(1)} ms (target well under ${TARGET_MS} ms): ${at160.studyMs < TARGET_MS / 2 ? 'met' : 'NOT met'}`);
+console.log(
+  `rib study at 160 panels: ${at160.studyMs.toFixed(1)} ms (target well under ${TARGET_MS} ms): ${at160.studyMs < TARGET_MS / 2 ? 'met' : 'NOT met'}`,
+);
 console.log(luRatioLine('rib study', at160.studyMs, at160.luMs, TARGET_LU_RATIO));
 // The demo kit's whole wing: ten ribs each at its own station, eighteen skin panels (the seed's study).
-const wingInput = { ...DEMO_WING_INPUTS, coupons: DEMO_COUPONS.map(([gaugeIn, loadLb, outcome]) => ({ material: '6061-T6', gaugeIn, rivetSpec: 'PULLED-4', loadLb, outcome })) } as WingStudyInput;
+const wingInput = {
+  ...DEMO_WING_INPUTS,
+  coupons: DEMO_COUPONS.map(([gaugeIn, loadLb, outcome]) => ({
+    material: '6061-T6',
+    gaugeIn,
+    rivetSpec: 'PULLED-4',
+    loadLb,
+    outcome,
+  })),
+} as WingStudyInput;
 const wing = wingStudy(wingInput);
 const wingMs = medianMs(() => wingStudy(wingInput), WING_RUNS);
 console.log(
   `whole wing, ${wing.ribs.length} ribs and ${wing.skins.length} skin panels (${wing.work.candidates} rib candidates, ${wing.work.skinSchedules} skin line schedules): ` +
     `${wingMs.toFixed(0)} ms (target under ${WING_TARGET_MS} ms): ${wingMs < WING_TARGET_MS ? 'met' : 'NOT met'}`,
 );
-console.log(`recommended: ${result.recommended ? `${result.recommended.gaugeIn} in with ${result.recommended.rivet}` : 'none feasible'}`);
+console.log(
+  `recommended: ${result.recommended ? `${result.recommended.gaugeIn} in with ${result.recommended.rivet}` : 'none feasible'}`,
+);

@@ -41,7 +41,10 @@ function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
     const s = createServer();
     s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => { const { port } = s.address() as { port: number }; s.close(() => resolve(port)); });
+    s.listen(0, '127.0.0.1', () => {
+      const { port } = s.address() as { port: number };
+      s.close(() => resolve(port));
+    });
   });
 }
 
@@ -66,7 +69,10 @@ function cpuOf(pid: number): { process: number; main: number } | null {
     return (Number(f[11]) + Number(f[12])) / 100; // utime, stime in clock ticks (USER_HZ, 100 on Linux)
   };
   try {
-    return { process: seconds(readFileSync(`/proc/${pid}/stat`, 'utf8')), main: seconds(readFileSync(`/proc/${pid}/task/${pid}/stat`, 'utf8')) };
+    return {
+      process: seconds(readFileSync(`/proc/${pid}/stat`, 'utf8')),
+      main: seconds(readFileSync(`/proc/${pid}/task/${pid}/stat`, 'utf8')),
+    };
   } catch {
     return null;
   }
@@ -84,7 +90,9 @@ async function waitHealthy(child: ChildProcess, base: string, output: () => stri
     if (child.exitCode !== null) throw new Error(`the server stopped at start-up:\n${output()}`);
     try {
       if ((await fetch(`${base}/api/health`, { signal: AbortSignal.timeout(1_000) })).ok) return;
-    } catch { /* not up yet */ }
+    } catch {
+      /* not up yet */
+    }
     await sleep(100);
   }
   child.kill('SIGTERM');
@@ -97,14 +105,21 @@ async function stop(child: ChildProcess): Promise<void> {
   const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
   child.kill('SIGTERM');
   await Promise.race([exited, sleep(10_000)]);
-  if (child.exitCode === null && child.signalCode === null) { child.kill('SIGKILL'); await exited; }
+  if (child.exitCode === null && child.signalCode === null) {
+    child.kill('SIGKILL');
+    await exited;
+  }
 }
 
 function spawnLogged(args: string[], env: NodeJS.ProcessEnv) {
   const child = spawn(process.execPath, args, { cwd: root, stdio: ['ignore', 'pipe', 'pipe'], env });
   let output = '';
-  child.stdout!.on('data', (d) => { output += d; });
-  child.stderr!.on('data', (d) => { output += d; });
+  child.stdout!.on('data', (d) => {
+    output += d;
+  });
+  child.stderr!.on('data', (d) => {
+    output += d;
+  });
   return { child, output: () => output };
 }
 
@@ -117,8 +132,13 @@ async function seedThroughSources(env: NodeJS.ProcessEnv): Promise<void> {
   const port = await freePort();
   const smtpPort = await freePort();
   const { child, output } = spawnLogged(['--import', 'tsx', 'server/index.ts'], {
-    ...env, NODE_ENV: 'development', PORT: String(port), PUBLIC_URL: `http://127.0.0.1:${port}`,
-    SMTP_FAKE: '1', SMTP_PORT: String(smtpPort), SEED_DEMO: '1',
+    ...env,
+    NODE_ENV: 'development',
+    PORT: String(port),
+    PUBLIC_URL: `http://127.0.0.1:${port}`,
+    SMTP_FAKE: '1',
+    SMTP_PORT: String(smtpPort),
+    SEED_DEMO: '1',
   });
   try {
     await waitHealthy(child, `http://127.0.0.1:${port}`, output);
@@ -141,11 +161,19 @@ function compileServer(): string {
  * NODE_ENV=production), no tsx, no demo seeding, its mail going over SMTP to a relay on loopback (the
  * bench's own SMTP fake), so that the queue's consumers run as they would in production.
  */
-async function startServer(build: string, env: NodeJS.ProcessEnv): Promise<{ child: ChildProcess; base: string; output: () => string }> {
+async function startServer(
+  build: string,
+  env: NodeJS.ProcessEnv,
+): Promise<{ child: ChildProcess; base: string; output: () => string }> {
   const port = await freePort();
   const base = `http://127.0.0.1:${port}`;
   const { child, output } = spawnLogged([...SERVER_FLAGS, path.join(build, 'server', 'index.js')], {
-    ...env, NODE_ENV: 'production', PORT: String(port), PUBLIC_URL: base, SMTP_FAKE: '0', SEED_DEMO: '0',
+    ...env,
+    NODE_ENV: 'production',
+    PORT: String(port),
+    PUBLIC_URL: base,
+    SMTP_FAKE: '0',
+    SEED_DEMO: '0',
   });
   await waitHealthy(child, base, output);
   return { child, base, output };
@@ -157,10 +185,18 @@ async function startServer(build: string, env: NodeJS.ProcessEnv): Promise<{ chi
  * one second apart and now and then several in one second, in one statement.
  */
 async function seedLog(pool: Pool): Promise<string> {
-  const { rows: [b] } = await pool.query<{ id: string }>(`select id from builds where kit_serial = 'NK2-0147'`);
-  const { rows: [u] } = await pool.query<{ id: string }>(`select id from users where email = $1`, [DEMO_USERS.builder.email]);
-  const { rows: parts } = await pool.query<{ id: string }>(`select id from travelers where build_id = $1 order by serial`, [b.id]);
-  await pool.query(`
+  const {
+    rows: [b],
+  } = await pool.query<{ id: string }>(`select id from builds where kit_serial = 'NK2-0147'`);
+  const {
+    rows: [u],
+  } = await pool.query<{ id: string }>(`select id from users where email = $1`, [DEMO_USERS.builder.email]);
+  const { rows: parts } = await pool.query<{ id: string }>(
+    `select id from travelers where build_id = $1 order by serial`,
+    [b.id],
+  );
+  await pool.query(
+    `
     insert into traveler_events (traveler_id, actor_id, created_at, kind, detail)
     select ($1::uuid[])[1 + i % array_length($1::uuid[], 1)], $2::uuid,
       timestamptz '2026-06-01 07:00:00+00' + (i - i % 4 / 3) * interval '1 second',
@@ -169,13 +205,21 @@ async function seedLog(pool: Pool): Promise<string> {
         then jsonb_build_object('holeIds', (select jsonb_agg(format('%s-%s', case when (i + k) % 2 = 0 then 'U' else 'L' end, lpad(((i * 7 + k) % 60 + 1)::text, 2, '0'))) from generate_series(1, 1 + i % 8) k))
         else jsonb_build_object('seq', 1 + i % 12, 'text', 'Deburr all holes, "both sides", and check edge distance')
       end
-    from generate_series(1, $3::int) i`, [parts.map((p) => p.id), u.id, ENTRIES]);
+    from generate_series(1, $3::int) i`,
+    [parts.map((p) => p.id), u.id, ENTRIES],
+  );
   await pool.query('analyze traveler_events');
   return b.id;
 }
 
 type Run = {
-  label: string; ms: number; bytes: number; status: number; health: number[]; healthFailed: number; peakRss: number;
+  label: string;
+  ms: number;
+  bytes: number;
+  status: number;
+  health: number[];
+  healthFailed: number;
+  peakRss: number;
   cpu: { process: number; main: number } | null;
 };
 
@@ -193,8 +237,11 @@ async function download(base: string, token: string, pid: number, label: string,
       try {
         const res = await fetch(`${base}/api/health`, { signal: AbortSignal.timeout(10_000) });
         await res.arrayBuffer();
-        if (res.ok) health.push(performance.now() - start); else healthFailed++;
-      } catch { healthFailed++; }
+        if (res.ok) health.push(performance.now() - start);
+        else healthFailed++;
+      } catch {
+        healthFailed++;
+      }
       const wait = HEALTH_EVERY_MS - (performance.now() - start);
       if (wait > 0) await sleep(wait);
     }
@@ -204,7 +251,10 @@ async function download(base: string, token: string, pid: number, label: string,
   let bytes = 0;
   let status = 0;
   try {
-    const res = await fetch(`${base}/api/builds/${suffix}`, { headers: { Authorization: `Bearer ${token}` }, signal: AbortSignal.timeout(left()) });
+    const res = await fetch(`${base}/api/builds/${suffix}`, {
+      headers: { Authorization: `Bearer ${token}` },
+      signal: AbortSignal.timeout(left()),
+    });
     status = res.status;
     // Counted as it arrives, not kept: the bench's own memory is not the point.
     const reader = res.body!.getReader();
@@ -219,7 +269,10 @@ async function download(base: string, token: string, pid: number, label: string,
   const ms = performance.now() - start;
   const cpuAfter = cpuOf(pid);
   await sampler;
-  const cpu = cpuBefore && cpuAfter ? { process: cpuAfter.process - cpuBefore.process, main: cpuAfter.main - cpuBefore.main } : null;
+  const cpu =
+    cpuBefore && cpuAfter
+      ? { process: cpuAfter.process - cpuBefore.process, main: cpuAfter.main - cpuBefore.main }
+      : null;
   return { label, ms, bytes, status, health, healthFailed, peakRss, cpu };
 }
 
@@ -241,28 +294,45 @@ async function main() {
     relay = await startSmtpFake(await freePort());
     // One environment for both processes; each sets its own mode, port and mail below.
     const env: NodeJS.ProcessEnv = {
-      ...process.env, DATABASE_URL: databaseUrl, HOST: '127.0.0.1',
-      JWT_SECRET: 'bench-log-secret-that-is-long-enough-for-hs256-in-production', SMTP_HOST: '127.0.0.1', SMTP_PORT: String(relay.port),
-      UPLOADS_DIR: uploads, WEB_DIST: path.join(uploads, 'no-web'), LOG_LEVEL: 'warn',
+      ...process.env,
+      DATABASE_URL: databaseUrl,
+      HOST: '127.0.0.1',
+      JWT_SECRET: 'bench-log-secret-that-is-long-enough-for-hs256-in-production',
+      SMTP_HOST: '127.0.0.1',
+      SMTP_PORT: String(relay.port),
+      UPLOADS_DIR: uploads,
+      WEB_DIST: path.join(uploads, 'no-web'),
+      LOG_LEVEL: 'warn',
     };
     t = performance.now();
     await seedThroughSources(env);
-    console.log(`seeded the demo through the sources (tsx, development) in ${((performance.now() - t) / 1000).toFixed(1)} s`);
+    console.log(
+      `seeded the demo through the sources (tsx, development) in ${((performance.now() - t) / 1000).toFixed(1)} s`,
+    );
     const started = await startServer(build, env);
     server = started.child;
     const { base } = started;
     const t0 = performance.now();
     const buildId = await seedLog(pool);
-    console.log(`seeded ${ENTRIES.toLocaleString('en-US')} bench events in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+    console.log(
+      `seeded ${ENTRIES.toLocaleString('en-US')} bench events in ${((performance.now() - t0) / 1000).toFixed(1)} s`,
+    );
     const signIn = await fetch(`${base}/api/auth/sign-in`, {
-      method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: DEMO_USERS.builder.email, password: DEMO_PASSWORD }),
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify({ email: DEMO_USERS.builder.email, password: DEMO_PASSWORD }),
     });
     const { token } = (await signIn.json()) as { token: string };
     if (!token) throw new Error(`sign-in failed (${signIn.status})`);
     const pid = server.pid!;
 
     // The machine's own load: on a shared machine the latencies below wander with it.
-    console.log(`load average ${os.loadavg().map((x) => x.toFixed(1)).join(' ')} on ${os.availableParallelism()} cores`);
+    console.log(
+      `load average ${os
+        .loadavg()
+        .map((x) => x.toFixed(1))
+        .join(' ')} on ${os.availableParallelism()} cores`,
+    );
     const idle: number[] = [];
     for (let i = 0; i < 40; i++) {
       const s = performance.now();
@@ -284,19 +354,31 @@ async function main() {
 
     const mb = (n: number) => `${n.toFixed(0)} MB`;
     const ok = (good: boolean) => (good ? 'meets target' : 'MISSES target');
-    console.log(`\nbuild log of ${(ENTRIES + 5).toLocaleString('en-US')} entries, compiled server (node ${path.relative(root, build)}/server/index.js, NODE_ENV=production, Node ${process.version}) on 127.0.0.1 (pid ${pid}), health asked every ${HEALTH_EVERY_MS} ms`);
+    console.log(
+      `\nbuild log of ${(ENTRIES + 5).toLocaleString('en-US')} entries, compiled server (node ${path.relative(root, build)}/server/index.js, NODE_ENV=production, Node ${process.version}) on 127.0.0.1 (pid ${pid}), health asked every ${HEALTH_EVERY_MS} ms`,
+    );
     console.log(`  idle health:         p50 ${pct(idle, 50).toFixed(1)} ms, p99 ${pct(idle, 99).toFixed(1)} ms`);
-    console.log(`  JSON log, first page: ${pageMs.toFixed(0)} ms, ${(firstBytes / 1024).toFixed(1)} kB (status ${first.status})`);
+    console.log(
+      `  JSON log, first page: ${pageMs.toFixed(0)} ms, ${(firstBytes / 1024).toFixed(1)} kB (status ${first.status})`,
+    );
     console.log(`  server memory before exports: ${before ? mb(before.rss) : '?'} RSS`);
     for (const r of runs) {
       const p99 = pct(r.health, 99);
-      console.log(`  ${r.label}: status ${r.status}, ${(r.ms / 1000).toFixed(1)} s, ${(r.bytes / 1e6).toFixed(1)} MB`
-        + (r.cpu ? `; server CPU ${r.cpu.process.toFixed(1)} s, of it the request (main) thread ${r.cpu.main.toFixed(1)} s` : ''));
-      console.log(`    health during it: ${r.health.length} answers, p50 ${pct(r.health, 50).toFixed(1)} ms, p99 ${p99.toFixed(1)} ms, max ${Math.max(...r.health).toFixed(1)} ms`
-        + `${r.healthFailed ? `, ${r.healthFailed} failed` : ''}  [target p99 < ${TARGET.healthP99Ms} ms: ${ok(p99 < TARGET.healthP99Ms)}]`);
+      console.log(
+        `  ${r.label}: status ${r.status}, ${(r.ms / 1000).toFixed(1)} s, ${(r.bytes / 1e6).toFixed(1)} MB` +
+          (r.cpu
+            ? `; server CPU ${r.cpu.process.toFixed(1)} s, of it the request (main) thread ${r.cpu.main.toFixed(1)} s`
+            : ''),
+      );
+      console.log(
+        `    health during it: ${r.health.length} answers, p50 ${pct(r.health, 50).toFixed(1)} ms, p99 ${p99.toFixed(1)} ms, max ${Math.max(...r.health).toFixed(1)} ms` +
+          `${r.healthFailed ? `, ${r.healthFailed} failed` : ''}  [target p99 < ${TARGET.healthP99Ms} ms: ${ok(p99 < TARGET.healthP99Ms)}]`,
+      );
     }
     const peak = Math.max(...runs.map((r) => r.peakRss), after?.hwm ?? 0);
-    console.log(`  server peak memory: ${mb(peak)} (VmHWM ${after ? mb(after.hwm) : '?'}; RSS after both ${after ? mb(after.rss) : '?'})  [target < ${TARGET.rssMb} MB: ${ok(peak < TARGET.rssMb)}]`);
+    console.log(
+      `  server peak memory: ${mb(peak)} (VmHWM ${after ? mb(after.hwm) : '?'}; RSS after both ${after ? mb(after.rss) : '?'})  [target < ${TARGET.rssMb} MB: ${ok(peak < TARGET.rssMb)}]`,
+    );
   } finally {
     await pool.end().catch(() => undefined);
     if (server) await stop(server);
@@ -307,9 +389,17 @@ async function main() {
       const admin = pg('url', CLUSTER, PG_PORT);
       const p = new Pool({ connectionString: admin, max: 1 });
       await p.query(`drop database if exists ${dbName} with (force)`).finally(() => p.end());
-    } catch { /* the cluster is stopped below anyway, or kept for the next run */ }
+    } catch {
+      /* the cluster is stopped below anyway, or kept for the next run */
+    }
     if (!wasRunning) pg('stop', CLUSTER, PG_PORT);
   }
 }
 
-main().then(() => process.exit(0), (err) => { console.error(err instanceof Error ? err.message : err); process.exit(1); });
+main().then(
+  () => process.exit(0),
+  (err) => {
+    console.error(err instanceof Error ? err.message : err);
+    process.exit(1);
+  },
+);

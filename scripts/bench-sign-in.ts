@@ -22,7 +22,6 @@ const WARM_UP = 3;
 /** The whole run stops here even if the server crawls. */
 const TIME_LIMIT_MS = 180_000;
 
-
 async function main() {
   let stopCluster: (() => void) | undefined;
   if (!process.env.TEST_DATABASE_URL) {
@@ -44,8 +43,10 @@ async function main() {
     if (Date.now() > deadline) throw new Error(`gave up after ${TIME_LIMIT_MS / 1000} s`);
     const start = performance.now();
     const res = await fetch(url, {
-      method: 'POST', headers: { 'content-type': 'application/json' },
-      body: JSON.stringify({ email, password: 'not-the-password-1' }), signal: AbortSignal.timeout(30_000),
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify({ email, password: 'not-the-password-1' }),
+      signal: AbortSignal.timeout(30_000),
     });
     await res.arrayBuffer();
     const ms = performance.now() - start;
@@ -57,24 +58,38 @@ async function main() {
     const known = DEMO_USERS.builder.email;
     // Each unknown try a different address, as someone listing addresses would send them.
     const unknown = (i: number) => `nobody-${i}-${Date.now().toString(36)}@example.com`;
-    for (let i = 0; i < WARM_UP; i++) { await signIn(unknown(-1 - i)); await signIn(known); }
+    for (let i = 0; i < WARM_UP; i++) {
+      await signIn(unknown(-1 - i));
+      await signIn(known);
+    }
     const times = { unknown: [] as number[], known: [] as number[] };
     for (let i = 0; i < ROUNDS; i++) {
       // Alternate which goes first, so neither always follows the other.
-      if (i % 2) { times.known.push(await signIn(known)); times.unknown.push(await signIn(unknown(i))); }
-      else { times.unknown.push(await signIn(unknown(i))); times.known.push(await signIn(known)); }
+      if (i % 2) {
+        times.known.push(await signIn(known));
+        times.unknown.push(await signIn(unknown(i)));
+      } else {
+        times.unknown.push(await signIn(unknown(i)));
+        times.known.push(await signIn(known));
+      }
     }
     const mu = median(times.unknown);
     const mk = median(times.known);
     const ratio = mk / mu;
     console.log(`sign-in timing, ${ROUNDS} tries each, over HTTP on 127.0.0.1 (after ${WARM_UP} warm-up tries)`);
-    console.log(`  unknown e-mail:                 median ${mu.toFixed(1)} ms  (min ${Math.min(...times.unknown).toFixed(1)}, max ${Math.max(...times.unknown).toFixed(1)})`);
-    console.log(`  known e-mail, wrong password:   median ${mk.toFixed(1)} ms  (min ${Math.min(...times.known).toFixed(1)}, max ${Math.max(...times.known).toFixed(1)})`);
+    console.log(
+      `  unknown e-mail:                 median ${mu.toFixed(1)} ms  (min ${Math.min(...times.unknown).toFixed(1)}, max ${Math.max(...times.unknown).toFixed(1)})`,
+    );
+    console.log(
+      `  known e-mail, wrong password:   median ${mk.toFixed(1)} ms  (min ${Math.min(...times.known).toFixed(1)}, max ${Math.max(...times.known).toFixed(1)})`,
+    );
     console.log(`  ratio known / unknown:          ${ratio.toFixed(2)}`);
     // Within a quarter either way the medians overlap the run-to-run noise here; a missing dummy hash shows as ×10 or more.
-    console.log(ratio > 0.8 && ratio < 1.25
-      ? '  → the same work for both: timing does not tell whether an address has an account'
-      : '  → the two differ: timing tells whether an address has an account');
+    console.log(
+      ratio > 0.8 && ratio < 1.25
+        ? '  → the same work for both: timing does not tell whether an address has an account'
+        : '  → the two differ: timing tells whether an address has an account',
+    );
   } finally {
     await new Promise((r) => server.close(r));
     await t.close();
@@ -82,7 +97,10 @@ async function main() {
   }
 }
 
-main().then(() => process.exit(0), (err) => {
-  console.error(err instanceof Error ? err.message : err);
-  process.exit(1);
-});
+main().then(
+  () => process.exit(0),
+  (err) => {
+    console.error(err instanceof Error ? err.message : err);
+    process.exit(1);
+  },
+);

@@ -25,14 +25,21 @@ async function icons() {
   mkdirSync(iconDir, { recursive: true });
   const made = statSync(iconSource).mtimeMs;
   // The icon's own paper colour fills what the maskable and Apple icons add around it, so no seam shows.
-  const { data } = await sharp(iconSource).extract({ left: 0, top: 0, width: 1, height: 1 }).removeAlpha().raw().toBuffer({ resolveWithObject: true });
+  const { data } = await sharp(iconSource)
+    .extract({ left: 0, top: 0, width: 1, height: 1 })
+    .removeAlpha()
+    .raw()
+    .toBuffer({ resolveWithObject: true });
   const paper = { r: data[0], g: data[1], b: data[2], alpha: 1 };
   const jobs = [
     ['icon-192.png', (s) => s.resize(192, 192)],
     ['icon-512.png', (s) => s.resize(512, 512)],
     // A launcher may cut a maskable icon to any shape inside the middle 80 %: the drawing (which
     // reaches the icon's edges) is shrunk to 80 % and set on paper, so no rivet is cut off.
-    ['icon-maskable-512.png', (s) => s.resize(410, 410).extend({ top: 51, bottom: 51, left: 51, right: 51, background: paper })],
+    [
+      'icon-maskable-512.png',
+      (s) => s.resize(410, 410).extend({ top: 51, bottom: 51, left: 51, right: 51, background: paper }),
+    ],
     // iOS ignores the manifest's icons for the home screen and wants an opaque square of its own.
     ['apple-touch-icon.png', (s) => s.resize(180, 180).flatten({ background: paper })],
   ];
@@ -71,15 +78,22 @@ const perPerson = {
 };
 
 async function serviceWorker(dist) {
-  if (!existsSync(path.join(dist, 'index.html'))) throw new Error(`${dist}/index.html is missing: export the web app first`);
+  if (!existsSync(path.join(dist, 'index.html')))
+    throw new Error(`${dist}/index.html is missing: export the web app first`);
   const { count, size, warnings } = await generateSW({
     globDirectory: dist,
     // The app shell: the page, the JS bundles (the entry and every screen's chunk: async routes load
     // a screen's code when it is first opened, so all of them are kept for opening it with no signal;
     // the QR reader's chunk too), fonts and images, the QR reader's wasm, the icons and the manifest.
     globPatterns: [
-      'index.html', '_expo/static/**/*.{js,css}', 'assets/**/*.{ttf,otf,woff,woff2,png,jpg,svg}', 'fonts/*.woff2',
-      'zxing_reader.wasm', 'icons/*.png', 'manifest.webmanifest', 'favicon.ico',
+      'index.html',
+      '_expo/static/**/*.{js,css}',
+      'assets/**/*.{ttf,otf,woff,woff2,png,jpg,svg}',
+      'fonts/*.woff2',
+      'zxing_reader.wasm',
+      'icons/*.png',
+      'manifest.webmanifest',
+      'favicon.ico',
     ],
     // Expo puts the fonts and images of packages under assets/node_modules/, which Workbox skips by default.
     globIgnores: [],
@@ -108,8 +122,8 @@ async function serviceWorker(dist) {
         // findings, and a label's look-up. Fresh from the server when it answers within a few seconds;
         // otherwise the last answer kept on the phone. Only GET (a tick is a POST and never cached: it
         // waits in the app's own outbox instead).
-        urlPattern: ({ url, sameOrigin }) => sameOrigin
-          && /^\/api\/(auth\/me|travelers|travelers\/[^/]+|findings)$/.test(url.pathname),
+        urlPattern: ({ url, sameOrigin }) =>
+          sameOrigin && /^\/api\/(auth\/me|travelers|travelers\/[^/]+|findings)$/.test(url.pathname),
         handler: 'NetworkFirst',
         method: 'GET',
         options: {

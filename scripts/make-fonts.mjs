@@ -19,7 +19,10 @@ const require = createRequire(import.meta.url);
 const out = path.join(root, 'assets', 'fonts');
 
 const faces = [
-  ['AtkinsonHyperlegible_400Regular', '@expo-google-fonts/atkinson-hyperlegible/400Regular/AtkinsonHyperlegible_400Regular.ttf'],
+  [
+    'AtkinsonHyperlegible_400Regular',
+    '@expo-google-fonts/atkinson-hyperlegible/400Regular/AtkinsonHyperlegible_400Regular.ttf',
+  ],
   ['AtkinsonHyperlegible_700Bold', '@expo-google-fonts/atkinson-hyperlegible/700Bold/AtkinsonHyperlegible_700Bold.ttf'],
   ['IBMPlexMono_400Regular', '@expo-google-fonts/ibm-plex-mono/400Regular/IBMPlexMono_400Regular.ttf'],
   ['IBMPlexMono_600SemiBold', '@expo-google-fonts/ibm-plex-mono/600SemiBold/IBMPlexMono_600SemiBold.ttf'],
@@ -29,8 +32,7 @@ const range = (from, to) => Array.from({ length: to - from + 1 }, (_, i) => Stri
 
 // Latin (Basic, Latin-1 Supplement with × · ° ± µ ² ÷, Extended-A for people's and places' names) and
 // the typography and signs the app writes: dashes, quotes, ellipsis, bullets, minus, arrows, ≤ ≥, ⌀.
-const fixed = range(0x20, 0x7e) + range(0xa0, 0x17f)
-  + '–—‘’‚“”„•…‹›′″−×·°±µ²³≤≥≈≠→←↔↑↓⌀π∆Δ✓✕';
+const fixed = range(0x20, 0x7e) + range(0xa0, 0x17f) + '–—‘’‚“”„•…‹›′″−×·°±µ²³≤≥≈≠→←↔↑↓⌀π∆Δ✓✕';
 
 /** Every non-ASCII character in the app's own sources (screens, components, contracts' messages). */
 function sourceCharacters() {
@@ -39,7 +41,8 @@ function sourceCharacters() {
     for (const name of readdirSync(dir)) {
       const p = path.join(dir, name);
       if (statSync(p).isDirectory()) walk(p);
-      else if (/\.(ts|tsx)$/.test(name)) for (const ch of readFileSync(p, 'utf8')) if (ch.codePointAt(0) > 0x7e) seen.add(ch);
+      else if (/\.(ts|tsx)$/.test(name))
+        for (const ch of readFileSync(p, 'utf8')) if (ch.codePointAt(0) > 0x7e) seen.add(ch);
     }
   };
   for (const dir of ['app', 'components', 'hooks', 'constants', 'lib', 'db/contracts']) walk(path.join(root, dir));

@@ -41,12 +41,26 @@ function revalidateAppShell(res: express.Response, file: string): void {
   if (/(^|[\\/])(sw\.js|index\.html|manifest\.webmanifest)$/.test(file)) res.setHeader('Cache-Control', 'no-cache');
 }
 
-export type AppDeps = { config: Config; database: Database; mailQueue: MailQueue; storage?: PhotoStorage; smtpFake?: SmtpFake; logger?: Logger; tls?: TlsMaterial | null };
+export type AppDeps = {
+  config: Config;
+  database: Database;
+  mailQueue: MailQueue;
+  storage?: PhotoStorage;
+  smtpFake?: SmtpFake;
+  logger?: Logger;
+  tls?: TlsMaterial | null;
+};
 
 /** Builds the Express app: the API under /api and the exported web app on the same origin. */
-export function createApp({ config, database, mailQueue, storage, smtpFake, logger, tls }: AppDeps): { app: Express; ctx: AppContext } {
+export function createApp({ config, database, mailQueue, storage, smtpFake, logger, tls }: AppDeps): {
+  app: Express;
+  ctx: AppContext;
+} {
   const ctx: AppContext = {
-    config, db: database.db, pool: database.pool, mailQueue,
+    config,
+    db: database.db,
+    pool: database.pool,
+    mailQueue,
     passport: createPassport(database.db, config.jwtSecret),
     storage: storage ?? localPhotoStorage(config.uploadsDir),
     signer: createUrlSigner(config.jwtSecret),
@@ -65,13 +79,28 @@ export function createApp({ config, database, mailQueue, storage, smtpFake, logg
 
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
-  api.get('/health', (_req, res) => { res.json({ ok: true }); });
+  api.get('/health', (_req, res) => {
+    res.json({ ok: true });
+  });
   // Counted in PostgreSQL, so the limits hold across server processes (server/middleware/rate-limit.ts).
-  api.use('/auth', authRouter(ctx, {
-    signIn: limitByIpAndAddress(ctx, 'sign-in', config.rateLimits.signIn, 'too many sign-in attempts'),
-    reset: limitByIpAndAddress(ctx, 'password-reset', config.rateLimits.passwordReset, 'too many password reset requests'),
-  }));
-  const inviteLimits = limitByIpAndAddress(ctx, 'invitations', config.rateLimits.invitations, 'too many invitation requests');
+  api.use(
+    '/auth',
+    authRouter(ctx, {
+      signIn: limitByIpAndAddress(ctx, 'sign-in', config.rateLimits.signIn, 'too many sign-in attempts'),
+      reset: limitByIpAndAddress(
+        ctx,
+        'password-reset',
+        config.rateLimits.passwordReset,
+        'too many password reset requests',
+      ),
+    }),
+  );
+  const inviteLimits = limitByIpAndAddress(
+    ctx,
+    'invitations',
+    config.rateLimits.invitations,
+    'too many invitation requests',
+  );
   api.use('/invitations', invitationsRouter(ctx, inviteLimits));
   api.use('/photos', photosRouter(ctx));
   if (smtpFake && config.env !== 'production') api.use('/dev', devRouter(smtpFake));

@@ -13,16 +13,23 @@ async function main() {
   const storage = photos.storage;
   // Loaded only when asked for: smtp-server is a development dependency, absent from a production install.
   const smtpFake: SmtpFake | undefined = config.smtp.fake
-    ? await (await import('./mail/smtp-fake')).startSmtpFake(config.smtp.port, config.smtp.host) : undefined;
-  if (process.env.SEED_DEMO === '1' && (await seedDemo(database, storage, mailQueue, config.jwtSecret))) console.log('demo scenario loaded');
+    ? await (await import('./mail/smtp-fake')).startSmtpFake(config.smtp.port, config.smtp.host)
+    : undefined;
+  if (process.env.SEED_DEMO === '1' && (await seedDemo(database, storage, mailQueue, config.jwtSecret)))
+    console.log('demo scenario loaded');
   // RUN_JOBS=0: this process only enqueues; `npm run worker` sends the mail and sweeps the photos.
   const jobs = config.runJobs ? await startJobs({ config, db: database.db, storage, mailQueue, logger }) : null;
 
   // Network mode speaks HTTPS itself: browsers allow the camera only in a secure context.
   const tls = config.network.tls ? await loadOrMakeCertificate(config.network.tls) : null;
-  if (tls?.made) console.log(`made a certificate for ${[...tls.names.dns, ...tls.names.ips].join(', ')} (fingerprint ${tls.fingerprint})`);
+  if (tls?.made)
+    console.log(
+      `made a certificate for ${[...tls.names.dns, ...tls.names.ips].join(', ')} (fingerprint ${tls.fingerprint})`,
+    );
   const { app } = createApp({ config, database, mailQueue, storage, smtpFake, logger, tls });
-  const server: Server = (tls ? createHttpsServer({ key: tls.key, cert: tls.cert }, app) : createHttpServer(app)).listen(config.port, config.host, () => {
+  const server: Server = (
+    tls ? createHttpsServer({ key: tls.key, cert: tls.cert }, app) : createHttpServer(app)
+  ).listen(config.port, config.host, () => {
     const notes = [
       smtpFake ? `mail fake on SMTP port ${smtpFake.port}; received mail at ${config.publicUrl}/dev/mail` : '',
       config.photoStore.kind === 's3' ? `photos in ${photos.where}` : '',

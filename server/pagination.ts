@@ -20,18 +20,42 @@ export function encodeCursor(key: CursorKey): string {
 export function decodeCursor(cursor: string | undefined, shape: Shape): CursorKey | null {
   if (cursor === undefined) return null;
   let key: unknown;
-  try { key = JSON.parse(Buffer.from(cursor, 'base64url').toString('utf8')); } catch { key = null; }
-  const fits = Array.isArray(key) && key.length === shape.length
-    && key.every((v, i) => typeof v === shape[i] && (typeof v !== 'string' || v.length <= 200) && (typeof v !== 'number' || Number.isFinite(v)));
-  if (!fits) throw badRequest('cursor is not one this list gave: start again from the first page', { cursor: 'not a cursor of this list' });
+  try {
+    key = JSON.parse(Buffer.from(cursor, 'base64url').toString('utf8'));
+  } catch {
+    key = null;
+  }
+  const fits =
+    Array.isArray(key) &&
+    key.length === shape.length &&
+    key.every(
+      (v, i) =>
+        typeof v === shape[i] &&
+        (typeof v !== 'string' || v.length <= 200) &&
+        (typeof v !== 'number' || Number.isFinite(v)),
+    );
+  if (!fits)
+    throw badRequest('cursor is not one this list gave: start again from the first page', {
+      cursor: 'not a cursor of this list',
+    });
   return key as CursorKey;
 }
 
 /** `(a, b) < (x, y)` for a descending list, `>` for an ascending one: a row comparison PostgreSQL answers from a two-column index. */
-export function afterKey(columns: readonly (AnyColumn | SQL)[], key: CursorKey | readonly Placeholder[] | null, order: 'asc' | 'desc'): SQL | undefined {
+export function afterKey(
+  columns: readonly (AnyColumn | SQL)[],
+  key: CursorKey | readonly Placeholder[] | null,
+  order: 'asc' | 'desc',
+): SQL | undefined {
   if (!key) return undefined;
-  const cols = sql.join(columns.map((c) => sql`${c}`), sql`, `);
-  const vals = sql.join(key.map((v) => sql`${v}`), sql`, `);
+  const cols = sql.join(
+    columns.map((c) => sql`${c}`),
+    sql`, `,
+  );
+  const vals = sql.join(
+    key.map((v) => sql`${v}`),
+    sql`, `,
+  );
   return order === 'desc' ? sql`(${cols}) < (${vals})` : sql`(${cols}) > (${vals})`;
 }
 

@@ -13,18 +13,22 @@ const MAX_SHAPES = 256;
 
 export function preparedFor<P>(db: Db, name: string, make: (name: string) => P): P {
   let shapes = byClient.get(db);
-  if (!shapes) byClient.set(db, shapes = new Map());
+  if (!shapes) byClient.set(db, (shapes = new Map()));
   let statement = shapes.get(name) as P | undefined;
   if (!statement) {
     if (shapes.size >= MAX_SHAPES) shapes.clear();
     // PostgreSQL cuts statement names at 63 bytes; shapes are named well within that.
-    shapes.set(name, statement = make(name));
+    shapes.set(name, (statement = make(name)));
   }
   return statement;
 }
 
 /** Who reads, as the visibility rule needs them: values, or a prepared statement's placeholders. */
-export type Viewer = { role: Express.User['role']; id: string | Placeholder; organizationId: string | null | Placeholder };
+export type Viewer = {
+  role: Express.User['role'];
+  id: string | Placeholder;
+  organizationId: string | null | Placeholder;
+};
 
 /**
  * The reader as placeholders for a prepared statement, with the shape their role gives the SQL
@@ -34,7 +38,11 @@ export function viewerAsParams(user: Express.User) {
   const orgless = user.role === 'supplier' && !user.organizationId;
   return {
     shape: orgless ? 'so' : user.role.slice(0, 2),
-    viewer: { role: user.role, id: sql.placeholder('viewerId'), organizationId: orgless ? null : sql.placeholder('viewerOrg') } satisfies Viewer,
+    viewer: {
+      role: user.role,
+      id: sql.placeholder('viewerId'),
+      organizationId: orgless ? null : sql.placeholder('viewerOrg'),
+    } satisfies Viewer,
     params: { viewerId: user.id, viewerOrg: user.organizationId },
   };
 }

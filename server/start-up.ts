@@ -37,7 +37,13 @@ export function onStopSignal(stop: (signal: string) => Promise<void>): void {
     if (stopping) return;
     stopping = true;
     console.log(`${signal}: draining`);
-    stop(signal).then(() => process.exit(0), (err) => { console.error('stopping failed:', err instanceof Error ? err.message : err); process.exit(1); });
+    stop(signal).then(
+      () => process.exit(0),
+      (err) => {
+        console.error('stopping failed:', err instanceof Error ? err.message : err);
+        process.exit(1);
+      },
+    );
   };
   process.on('SIGINT', () => handle('SIGINT'));
   process.on('SIGTERM', () => handle('SIGTERM'));

@@ -9,7 +9,9 @@ import { exitOnStartError, onStopSignal, openShared } from './start-up';
 async function main() {
   const { config, logger, database, photos, mailQueue } = await openShared();
   const jobs = await startJobs({ config, db: database.db, storage: photos.storage, mailQueue, logger });
-  console.log(`Pitchcard worker is up (mail through ${config.smtp.host}:${config.smtp.port}; photos in ${photos.where})`);
+  console.log(
+    `Pitchcard worker is up (mail through ${config.smtp.host}:${config.smtp.port}; photos in ${photos.where})`,
+  );
 
   onStopSignal(async () => {
     await jobs.stopSchedules();

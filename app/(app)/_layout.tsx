@@ -50,13 +50,27 @@ export default function AppLayout() {
           <Tabs.Protected key={name} guard={mayOpen(user?.role, name)}>
             <Tabs.Screen
               name={name}
-              options={tab ? {
-                title: tab.title,
-                tabBarButtonTestID: tab.testID,
-                tabBarAccessibilityLabel: tab.title,
-                tabBarIcon: ({ color }) => <TabIcon glyph={tab.glyph} color={String(color)} />,
-                ...(wide ? null : { tabBarLabel: ({ color }) => <TabLabel text={fit.short ? tab.short ?? tab.title : tab.title} color={String(color)} fontSize={fit.fontSize} /> }),
-              } : { href: null }}
+              options={
+                tab
+                  ? {
+                      title: tab.title,
+                      tabBarButtonTestID: tab.testID,
+                      tabBarAccessibilityLabel: tab.title,
+                      tabBarIcon: ({ color }) => <TabIcon glyph={tab.glyph} color={String(color)} />,
+                      ...(wide
+                        ? null
+                        : {
+                            tabBarLabel: ({ color }) => (
+                              <TabLabel
+                                text={fit.short ? (tab.short ?? tab.title) : tab.title}
+                                color={String(color)}
+                                fontSize={fit.fontSize}
+                              />
+                            ),
+                          }),
+                    }
+                  : { href: null }
+              }
             />
           </Tabs.Protected>
         );

@@ -18,31 +18,59 @@ export function AccountScreen() {
   const { user, expiresAt } = useSession();
   const router = useRouter();
   if (!user) {
-    return <Screen title="Your account" backTo="/" accountLink={false}><EmptyState title="Not signed in." /></Screen>;
+    return (
+      <Screen title="Your account" backTo="/" accountLink={false}>
+        <EmptyState title="Not signed in." />
+      </Screen>
+    );
   }
   return (
-    <Screen title="Your account" subtitle={user.name} backTo="/" account accountLink={false} full testID="account-screen">
+    <Screen
+      title="Your account"
+      subtitle={user.name}
+      backTo="/"
+      account
+      accountLink={false}
+      full
+      testID="account-screen"
+    >
       <View style={{ width: '100%', maxWidth: 1100, alignSelf: 'center' }}>
         <TwoPane
           leftWidth={0.5}
           left={
             <>
               <Section title="You">
-                <KeyValue label="Name" testID="account-name">{user.name}</KeyValue>
-                <KeyValue label="E-mail" testID="account-email"><Mono style={wrapAnywhere}>{user.email}</Mono></KeyValue>
-                <KeyValue label="Role" testID="account-role">
-                  {user.role === 'supplier' && user.lead ? `${roleLabels[user.role]}, lead engineer` : roleLabels[user.role]}
+                <KeyValue label="Name" testID="account-name">
+                  {user.name}
                 </KeyValue>
-                <KeyValue label="Organisation" testID="account-organization">{user.organizationName ?? 'None'}</KeyValue>
+                <KeyValue label="E-mail" testID="account-email">
+                  <Mono style={wrapAnywhere}>{user.email}</Mono>
+                </KeyValue>
+                <KeyValue label="Role" testID="account-role">
+                  {user.role === 'supplier' && user.lead
+                    ? `${roleLabels[user.role]}, lead engineer`
+                    : roleLabels[user.role]}
+                </KeyValue>
+                <KeyValue label="Organisation" testID="account-organization">
+                  {user.organizationName ?? 'None'}
+                </KeyValue>
                 <KeyValue label="This sign-in ends">{expiresAt ? shortDate(expiresAt) : '–'}</KeyValue>
                 <Txt variant="small" tone="faint">
-                  Your name, address and role are kept by {user.role === 'admin' ? 'the administrators' : 'your administrator'}: ask them to change these.
+                  Your name, address and role are kept by{' '}
+                  {user.role === 'admin' ? 'the administrators' : 'your administrator'}: ask them to change these.
                 </Txt>
               </Section>
               {user.role === 'supplier' || user.role === 'admin' ? (
                 <Section title="Phones at the bench">
-                  <Txt>How the shop’s phones open Pitchcard: the address as a QR code, and the certificate to trust.</Txt>
-                  <Button label="Set up phones" variant="secondary" onPress={() => router.push('/phone')} testID="account-phones" />
+                  <Txt>
+                    How the shop’s phones open Pitchcard: the address as a QR code, and the certificate to trust.
+                  </Txt>
+                  <Button
+                    label="Set up phones"
+                    variant="secondary"
+                    onPress={() => router.push('/phone')}
+                    testID="account-phones"
+                  />
                 </Section>
               ) : null}
               <SignOutEverywhere />

@@ -22,7 +22,11 @@ export function ChangePasswordForm() {
   const change = useAuthChangePasswordMutation();
   const [formError, setFormError] = useState<string | null>(null);
   const [changed, setChanged] = useState(false);
-  const { control, handleSubmit, setError, formState, reset } = useForm<Values, unknown, z.output<typeof changePasswordInput>>({
+  const { control, handleSubmit, setError, formState, reset } = useForm<
+    Values,
+    unknown,
+    z.output<typeof changePasswordInput>
+  >({
     resolver: zodResolver(changePasswordInput, plainParse),
     mode: 'onChange',
     defaultValues: { currentPassword: '', newPassword: '' },
@@ -42,12 +46,41 @@ export function ChangePasswordForm() {
 
   return (
     <Section title="Change your password" testID="change-password-section">
-      <Txt variant="small" tone="soft">Every other device where you are signed in is signed out. This one stays signed in.</Txt>
-      <PasswordField control={control} name="currentPassword" label="Current password" autoComplete="current-password" testID="current-password" />
-      <PasswordField control={control} name="newPassword" label="New password" hint={newPasswordHint} testID="new-password" onSubmit={() => void submit()} />
-      {formError ? <Notice tone="error" testID="password-error">{formError}</Notice> : null}
-      {changed ? <Notice tone="ok" testID="password-changed">Password changed. Other devices were signed out; use the new password there.</Notice> : null}
-      <Button label="Change password" busyLabel="Changing" busy={formState.isSubmitting} onPress={() => void submit()} testID="change-password" />
+      <Txt variant="small" tone="soft">
+        Every other device where you are signed in is signed out. This one stays signed in.
+      </Txt>
+      <PasswordField
+        control={control}
+        name="currentPassword"
+        label="Current password"
+        autoComplete="current-password"
+        testID="current-password"
+      />
+      <PasswordField
+        control={control}
+        name="newPassword"
+        label="New password"
+        hint={newPasswordHint}
+        testID="new-password"
+        onSubmit={() => void submit()}
+      />
+      {formError ? (
+        <Notice tone="error" testID="password-error">
+          {formError}
+        </Notice>
+      ) : null}
+      {changed ? (
+        <Notice tone="ok" testID="password-changed">
+          Password changed. Other devices were signed out; use the new password there.
+        </Notice>
+      ) : null}
+      <Button
+        label="Change password"
+        busyLabel="Changing"
+        busy={formState.isSubmitting}
+        onPress={() => void submit()}
+        testID="change-password"
+      />
     </Section>
   );
 }

@@ -15,12 +15,19 @@ export function SignOutEverywhere() {
   return (
     <Section title="Sign out everywhere" testID="sign-out-everywhere-section">
       <Txt variant="small" tone="soft">
-        For a lost phone or a shop computer you forgot to sign out of. Work waiting to be sent from another device is lost there.
+        For a lost phone or a shop computer you forgot to sign out of. Work waiting to be sent from another device is
+        lost there.
       </Txt>
       {asking ? (
         <View style={{ gap: space.sm }} testID="sign-out-everywhere-ask">
-          <Notice tone="caution">Every device signs out now, this one too. You sign in again with your password.</Notice>
-          {end.isError ? <Notice tone="error" testID="sign-out-everywhere-error">{errorMessage(end.error)}</Notice> : null}
+          <Notice tone="caution">
+            Every device signs out now, this one too. You sign in again with your password.
+          </Notice>
+          {end.isError ? (
+            <Notice tone="error" testID="sign-out-everywhere-error">
+              {errorMessage(end.error)}
+            </Notice>
+          ) : null}
           <Button
             label="Sign out on every device"
             variant="danger"
@@ -29,10 +36,24 @@ export function SignOutEverywhere() {
             onPress={() => end.mutate()}
             testID="sign-out-everywhere-confirm"
           />
-          <Button label="Keep my sign-ins" variant="quiet" disabled={end.isPending} onPress={() => { setAsking(false); end.reset(); }} testID="sign-out-everywhere-cancel" />
+          <Button
+            label="Keep my sign-ins"
+            variant="quiet"
+            disabled={end.isPending}
+            onPress={() => {
+              setAsking(false);
+              end.reset();
+            }}
+            testID="sign-out-everywhere-cancel"
+          />
         </View>
       ) : (
-        <Button label="Sign out everywhere…" variant="secondary" onPress={() => setAsking(true)} testID="sign-out-everywhere" />
+        <Button
+          label="Sign out everywhere…"
+          variant="secondary"
+          onPress={() => setAsking(true)}
+          testID="sign-out-everywhere"
+        />
       )}
     </Section>
   );

@@ -6,9 +6,17 @@ import { ApiError } from '@/lib/api-client';
  * The server's field messages onto the form, and what is left to say above the button, or null. For the
  * password forms: the strength advice is long, and said once under its box reads better than twice.
  */
-export function leftAfterFields<T extends FieldValues>(setError: UseFormSetError<T>, e: unknown, fields: readonly string[]): string | null {
+export function leftAfterFields<T extends FieldValues>(
+  setError: UseFormSetError<T>,
+  e: unknown,
+  fields: readonly string[],
+): string | null {
   const toField = (path: string) => (fields.includes(path) ? path : null);
-  const placedAll = e instanceof ApiError && !!e.fields && Object.keys(e.fields).length > 0 && Object.keys(e.fields).every((p) => toField(p) !== null);
+  const placedAll =
+    e instanceof ApiError &&
+    !!e.fields &&
+    Object.keys(e.fields).length > 0 &&
+    Object.keys(e.fields).every((p) => toField(p) !== null);
   const said = applyServerErrors(setError, e, toField);
   return placedAll ? null : said;
 }

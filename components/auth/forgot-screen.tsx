@@ -24,7 +24,11 @@ export function ForgotScreen() {
   const forgot = useAuthForgotMutation();
   const [sent, setSent] = useState<{ to: string; message: string } | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
-  const { control, handleSubmit, setError, formState, reset } = useForm<Values, unknown, z.output<typeof forgotPasswordInput>>({
+  const { control, handleSubmit, setError, formState, reset } = useForm<
+    Values,
+    unknown,
+    z.output<typeof forgotPasswordInput>
+  >({
     resolver: zodResolver(forgotPasswordInput, plainParse),
     mode: 'onChange',
     defaultValues: { email: '' },
@@ -53,12 +57,16 @@ export function ForgotScreen() {
   if (sent) {
     return (
       <AuthPage heading="Check your mail" testID="forgot-screen">
-        <Notice tone="ok" testID="forgot-sent">{sent.message}</Notice>
+        <Notice tone="ok" testID="forgot-sent">
+          {sent.message}
+        </Notice>
         <Txt>
-          We wrote to <Txt bold>{sent.to}</Txt> if it has an account. Open the link in the mail on this device or any other.
+          We wrote to <Txt bold>{sent.to}</Txt> if it has an account. Open the link in the mail on this device or any
+          other.
         </Txt>
         <Txt variant="small" tone="soft">
-          No mail after a few minutes? Look in the junk folder, check the address, or ask your shop’s administrator: they can see whether you have an account.
+          No mail after a few minutes? Look in the junk folder, check the address, or ask your shop’s administrator:
+          they can see whether you have an account.
         </Txt>
         <Button label="Use another address" variant="secondary" onPress={() => setSent(null)} testID="forgot-again" />
         {backToSignIn}
@@ -68,7 +76,10 @@ export function ForgotScreen() {
 
   return (
     <AuthPage heading="Set a new password" testID="forgot-screen">
-      <Txt>Give the address you sign in with. We send it a link that lets you choose a new password; it works once, for one hour.</Txt>
+      <Txt>
+        Give the address you sign in with. We send it a link that lets you choose a new password; it works once, for one
+        hour.
+      </Txt>
       <FormTextField
         control={control}
         name="email"
@@ -78,8 +89,18 @@ export function ForgotScreen() {
         returnKeyType="send"
         onSubmitEditing={() => void submit()}
       />
-      {formError ? <Notice tone="error" testID="forgot-error">{formError}</Notice> : null}
-      <Button label="Send me the link" busyLabel="Sending" busy={formState.isSubmitting} onPress={() => void submit()} testID="forgot-send" />
+      {formError ? (
+        <Notice tone="error" testID="forgot-error">
+          {formError}
+        </Notice>
+      ) : null}
+      <Button
+        label="Send me the link"
+        busyLabel="Sending"
+        busy={formState.isSubmitting}
+        onPress={() => void submit()}
+        testID="forgot-send"
+      />
       {backToSignIn}
     </AuthPage>
   );

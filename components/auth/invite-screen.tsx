@@ -30,30 +30,61 @@ export function InviteScreen({ token }: { token: string }) {
 
   const gone = (message: string) => (
     <AuthPage heading="This invitation no longer works" testID="invite-screen">
-      <Notice tone="caution" testID="invite-gone">{asSentence(message)}</Notice>
-      <Txt>An invitation works once and for a week. Ask whoever invited you to send a new one. If you already joined, sign in.</Txt>
-      <Button label="Go to sign in" variant="secondary" onPress={() => router.replace('/sign-in')} testID="back-to-sign-in" />
+      <Notice tone="caution" testID="invite-gone">
+        {asSentence(message)}
+      </Notice>
+      <Txt>
+        An invitation works once and for a week. Ask whoever invited you to send a new one. If you already joined, sign
+        in.
+      </Txt>
+      <Button
+        label="Go to sign in"
+        variant="secondary"
+        onPress={() => router.replace('/sign-in')}
+        testID="back-to-sign-in"
+      />
     </AuthPage>
   );
 
   if (!valid) return gone('This link is incomplete or damaged: open it again from the mail.');
-  if (q.isPending) return <AuthPage heading="Your invitation" testID="invite-screen"><LoadingState what="Reading the invitation" /></AuthPage>;
+  if (q.isPending)
+    return (
+      <AuthPage heading="Your invitation" testID="invite-screen">
+        <LoadingState what="Reading the invitation" />
+      </AuthPage>
+    );
   if (q.isError) {
     if (q.error instanceof ApiError && q.error.status === 404) return gone(q.error.message);
-    return <AuthPage heading="Your invitation" testID="invite-screen"><ErrorState error={q.error} onRetry={() => void q.refetch()} /></AuthPage>;
+    return (
+      <AuthPage heading="Your invitation" testID="invite-screen">
+        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+      </AuthPage>
+    );
   }
   return <JoinForm token={token} invitation={q.data} onGone={gone} />;
 }
 
 type Values = z.input<typeof acceptInvitationInput>;
 
-function JoinForm({ token, invitation: i, onGone }: { token: string; invitation: InvitationView; onGone: (message: string) => React.ReactElement }) {
+function JoinForm({
+  token,
+  invitation: i,
+  onGone,
+}: {
+  token: string;
+  invitation: InvitationView;
+  onGone: (message: string) => React.ReactElement;
+}) {
   const signedIn = useSignedIn();
   const accept = useInvitationAcceptMutation();
   const land = useLandSignedIn();
   const [formError, setFormError] = useState<string | null>(null);
   const [goneMessage, setGoneMessage] = useState<string | null>(null);
-  const { control, handleSubmit, setError, formState } = useForm<Values, unknown, z.output<typeof acceptInvitationInput>>({
+  const { control, handleSubmit, setError, formState } = useForm<
+    Values,
+    unknown,
+    z.output<typeof acceptInvitationInput>
+  >({
     resolver: zodResolver(acceptInvitationInput, plainParse),
     mode: 'onChange',
     defaultValues: { token, name: i.name, password: '' },
@@ -80,14 +111,24 @@ function JoinForm({ token, invitation: i, onGone }: { token: string; invitation:
     <AuthPage heading="Join Pitchcard" testID="invite-screen">
       <Txt testID="invite-what">
         <Txt bold>{i.invitedByName}</Txt> invites you as <Txt bold>{roleLabels[i.role].toLowerCase()}</Txt>
-        {i.organizationName ? <> of <Txt bold>{i.organizationName}</Txt></> : null}.
+        {i.organizationName ? (
+          <>
+            {' '}
+            of <Txt bold>{i.organizationName}</Txt>
+          </>
+        ) : null}
+        .
       </Txt>
       <View style={{ gap: space.xs }}>
-        <KeyValue label="You sign in with" testID="invite-email"><Mono style={wrapAnywhere}>{i.email}</Mono></KeyValue>
+        <KeyValue label="You sign in with" testID="invite-email">
+          <Mono style={wrapAnywhere}>{i.email}</Mono>
+        </KeyValue>
         <KeyValue label="Invitation runs until">{shortDate(i.expiresAt)}</KeyValue>
       </View>
       {/* Once joined, the session is the new person's own: no need to ask them to sign out. */}
-      {signedIn && accept.isIdle ? <SignedInElsewhere what="join as yourself" /> : (
+      {signedIn && accept.isIdle ? (
+        <SignedInElsewhere what="join as yourself" />
+      ) : (
         <>
           <FormTextField
             control={control}
@@ -99,8 +140,19 @@ function JoinForm({ token, invitation: i, onGone }: { token: string; invitation:
             textContentType="name"
             maxLength={120}
           />
-          <PasswordField control={control} name="password" label="Choose a password" hint={newPasswordHint} testID="invite-password" onSubmit={() => void submit()} />
-          {formError ? <Notice tone="error" testID="invite-error">{formError}</Notice> : null}
+          <PasswordField
+            control={control}
+            name="password"
+            label="Choose a password"
+            hint={newPasswordHint}
+            testID="invite-password"
+            onSubmit={() => void submit()}
+          />
+          {formError ? (
+            <Notice tone="error" testID="invite-error">
+              {formError}
+            </Notice>
+          ) : null}
           <Button
             label={accept.isSuccess ? 'Joined: opening Pitchcard' : 'Join and sign in'}
             busyLabel="Joining"

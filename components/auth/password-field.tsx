@@ -10,7 +10,15 @@ import { Field, TextBox } from '@/components/ui/field';
  * phone, seeing what you typed catches more slips than typing it twice. The server's advice on a weak
  * password lands under the box like any other error.
  */
-export function PasswordField<T extends FieldValues>({ control, name, label, hint, testID, autoComplete = 'new-password', onSubmit }: {
+export function PasswordField<T extends FieldValues>({
+  control,
+  name,
+  label,
+  hint,
+  testID,
+  autoComplete = 'new-password',
+  onSubmit,
+}: {
   control: Control<T>;
   name: Path<T>;
   label: string;
@@ -61,4 +69,5 @@ export function PasswordField<T extends FieldValues>({ control, name, label, hin
 }
 
 /** Said under every new-password box: the server judges strength, these words help pass it first time. */
-export const newPasswordHint = 'At least 10 characters. Four or five unrelated words, with a number, make one that is strong and easy to remember.';
+export const newPasswordHint =
+  'At least 10 characters. Four or five unrelated words, with a number, make one that is strong and easy to remember.';

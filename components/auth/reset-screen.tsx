@@ -25,7 +25,9 @@ export function ResetScreen({ token }: { token: string }) {
   const signedIn = useSignedIn();
   const land = useLandSignedIn();
   // A link cut short by a mail program is known to be useless before anything is sent.
-  const [gone, setGone] = useState<string | null>(() => (resetPasswordInput.shape.token.safeParse(token).success ? null : 'This link is incomplete or damaged.'));
+  const [gone, setGone] = useState<string | null>(() =>
+    resetPasswordInput.shape.token.safeParse(token).success ? null : 'This link is incomplete or damaged.',
+  );
   const [formError, setFormError] = useState<string | null>(null);
   const { control, handleSubmit, setError, formState } = useForm<Values, unknown, z.output<typeof resetPasswordInput>>({
     resolver: zodResolver(resetPasswordInput, plainParse),
@@ -51,21 +53,47 @@ export function ResetScreen({ token }: { token: string }) {
   if (gone) {
     return (
       <AuthPage heading="This link no longer works" testID="reset-screen">
-        <Notice tone="caution" testID="reset-gone">{gone}</Notice>
-        <Txt>A link to set a new password works once, for {RESET_TTL_MINUTES} minutes. Ask for a fresh one: it comes by mail at once.</Txt>
+        <Notice tone="caution" testID="reset-gone">
+          {gone}
+        </Notice>
+        <Txt>
+          A link to set a new password works once, for {RESET_TTL_MINUTES} minutes. Ask for a fresh one: it comes by
+          mail at once.
+        </Txt>
         <Button label="Send me a new link" onPress={() => router.replace('/forgot')} testID="reset-ask-again" />
-        <Button label="Back to sign in" variant="quiet" onPress={() => router.replace('/sign-in')} testID="back-to-sign-in" />
+        <Button
+          label="Back to sign in"
+          variant="quiet"
+          onPress={() => router.replace('/sign-in')}
+          testID="back-to-sign-in"
+        />
       </AuthPage>
     );
   }
 
   return (
     <AuthPage heading="Choose a new password" testID="reset-screen">
-      <Txt>Your old password stops working, and every device where you are signed in is signed out. This one signs in with the new password.</Txt>
-      {signedIn && reset.isIdle ? <SignedInElsewhere what="set the new password" /> : (
+      <Txt>
+        Your old password stops working, and every device where you are signed in is signed out. This one signs in with
+        the new password.
+      </Txt>
+      {signedIn && reset.isIdle ? (
+        <SignedInElsewhere what="set the new password" />
+      ) : (
         <>
-          <PasswordField control={control} name="password" label="New password" hint={newPasswordHint} testID="reset-password" onSubmit={() => void submit()} />
-          {formError ? <Notice tone="error" testID="reset-error">{formError}</Notice> : null}
+          <PasswordField
+            control={control}
+            name="password"
+            label="New password"
+            hint={newPasswordHint}
+            testID="reset-password"
+            onSubmit={() => void submit()}
+          />
+          {formError ? (
+            <Notice tone="error" testID="reset-error">
+              {formError}
+            </Notice>
+          ) : null}
           <Button
             label={reset.isSuccess ? 'Password set: opening Pitchcard' : 'Set the password and sign in'}
             busyLabel="Setting the password"

@@ -65,7 +65,11 @@ export function SignInScreen() {
         onSubmitEditing={() => void submit()}
       />
       {/* Focused when it shows: a keyboard or screen-reader user hears why, and is back in the form. */}
-      {formError ? <Notice tone="error" testID="sign-in-error" focusOnShow>{formError}</Notice> : null}
+      {formError ? (
+        <Notice tone="error" testID="sign-in-error" focusOnShow>
+          {formError}
+        </Notice>
+      ) : null}
       <Button
         label="Sign in"
         busyLabel="Signing in"

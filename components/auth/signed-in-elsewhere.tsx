@@ -15,7 +15,12 @@ export function SignedInElsewhere({ what }: { what: string }) {
       <Notice tone="caution" testID="signed-in-other">
         {`This device is signed in as ${session.user.name}. Sign out first, then ${what}.`}
       </Notice>
-      <Button label={`Sign ${session.user.name.split(/\s+/)[0]} out`} variant="secondary" onPress={() => void session.signOut()} testID="signed-in-other-sign-out" />
+      <Button
+        label={`Sign ${session.user.name.split(/\s+/)[0]} out`}
+        variant="secondary"
+        onPress={() => void session.signOut()}
+        testID="signed-in-other-sign-out"
+      />
     </>
   );
 }

@@ -23,22 +23,33 @@ export function BenchScreen() {
   const parts = useTravelersQuery({ show: 'open' });
   const [scanProblem, setScanProblem] = useState<string | null>(null);
 
-  const open = useCallback(async (code: string) => {
-    const { id } = await lookupTraveler(qc, code);
-    router.push(`/travelers/${id}`);
-  }, [qc, router]);
+  const open = useCallback(
+    async (code: string) => {
+      const { id } = await lookupTraveler(qc, code);
+      router.push(`/travelers/${id}`);
+    },
+    [qc, router],
+  );
 
-  const onScanned = useCallback(async (text: string) => {
-    setScanProblem(null);
-    try {
-      await open(text);
-    } catch (e) {
-      setScanProblem(`That label did not open a part of yours: ${errorMessage(e)}`);
-    }
-  }, [open]);
+  const onScanned = useCallback(
+    async (text: string) => {
+      setScanProblem(null);
+      try {
+        await open(text);
+      } catch (e) {
+        setScanProblem(`That label did not open a part of yours: ${errorMessage(e)}`);
+      }
+    },
+    [open],
+  );
 
   const inProgress = useMemo(
-    () => liveFirst(pagedItems(parts.data).filter((t) => !t.signedOff).sort((a, b) => (b.holesDone / (b.holesTotal || 1)) - (a.holesDone / (a.holesTotal || 1)))),
+    () =>
+      liveFirst(
+        pagedItems(parts.data)
+          .filter((t) => !t.signedOff)
+          .sort((a, b) => b.holesDone / (b.holesTotal || 1) - a.holesDone / (a.holesTotal || 1)),
+      ),
     [parts.data],
   );
 
@@ -48,7 +59,11 @@ export function BenchScreen() {
       left={
         <Section title="Scan">
           <Scanner onCode={onScanned} />
-          {scanProblem ? <Notice tone="error" testID="scan-lookup-problem">{scanProblem}</Notice> : null}
+          {scanProblem ? (
+            <Notice tone="error" testID="scan-lookup-problem">
+              {scanProblem}
+            </Notice>
+          ) : null}
         </Section>
       }
       right={
@@ -72,13 +87,29 @@ export function BenchScreen() {
           </View>
         }
         ListEmptyComponent={
-          parts.isPending ? <LoadingState what="Loading your parts" />
-            : parts.isError ? <ErrorState error={parts.error} onRetry={() => void parts.refetch()} />
-              : <EmptyState title="Nothing in progress." body="Parts appear here when a supplier ships you a build; signed-off parts stay under Travelers." />
+          parts.isPending ? (
+            <LoadingState what="Loading your parts" />
+          ) : parts.isError ? (
+            <ErrorState error={parts.error} onRetry={() => void parts.refetch()} />
+          ) : (
+            <EmptyState
+              title="Nothing in progress."
+              body="Parts appear here when a supplier ships you a build; signed-off parts stay under Travelers."
+            />
+          )
         }
-        ListFooterComponent={parts.isSuccess ? (
-          <LoadMore hasNextPage={parts.hasNextPage} isFetchingNextPage={parts.isFetchingNextPage} fetchNextPage={parts.fetchNextPage} shown={inProgress.length} what="parts" testID="bench-more" />
-        ) : null}
+        ListFooterComponent={
+          parts.isSuccess ? (
+            <LoadMore
+              hasNextPage={parts.hasNextPage}
+              isFetchingNextPage={parts.isFetchingNextPage}
+              fetchNextPage={parts.fetchNextPage}
+              shown={inProgress.length}
+              what="parts"
+              testID="bench-more"
+            />
+          ) : null
+        }
         keyboardShouldPersistTaps="handled"
         contentContainerStyle={{ paddingBottom: space.xxl }}
       />

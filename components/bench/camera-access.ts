@@ -20,9 +20,11 @@ export type CameraSetting = {
 export function cameraUnavailableReason(s: CameraSetting): string | null {
   if (s.platform !== 'web') return null;
   if (!s.secureContext) {
-    return `The camera works only on Pitchcard's secure address, one starting with https://, and this page is open at ${s.origin || 'a plain http:// address'}. `
-      + 'Ask whoever runs Pitchcard to start it in network mode, then open the https:// address it shows (as a QR code on its page for phones). '
-      + 'Until then, type the short code printed on the label.';
+    return (
+      `The camera works only on Pitchcard's secure address, one starting with https://, and this page is open at ${s.origin || 'a plain http:// address'}. ` +
+      'Ask whoever runs Pitchcard to start it in network mode, then open the https:// address it shows (as a QR code on its page for phones). ' +
+      'Until then, type the short code printed on the label.'
+    );
   }
   if (!s.canCapture) return 'This browser cannot use the camera. Type the short code printed on the label instead.';
   return null;
@@ -37,7 +39,8 @@ export function cameraRefusedMessage(p: { canAskAgain: boolean }): string {
 
 /** The setting of this device, read from the browser on the web. */
 export function currentCameraSetting(): CameraSetting {
-  if (Platform.OS !== 'web' || typeof window === 'undefined') return { platform: Platform.OS, secureContext: true, canCapture: true, origin: '' };
+  if (Platform.OS !== 'web' || typeof window === 'undefined')
+    return { platform: Platform.OS, secureContext: true, canCapture: true, origin: '' };
   return {
     platform: 'web',
     // Browsers before secure contexts existed have no flag; they also had no such camera rule.

@@ -20,7 +20,9 @@ export const zxingWasmPath = '/zxing_reader.wasm';
 
 const overrides = {
   locateFile: (path: string, prefix: string) =>
-    path.endsWith('.wasm') ? new URL(zxingWasmPath, globalThis.location?.origin ?? 'http://localhost').href : prefix + path,
+    path.endsWith('.wasm')
+      ? new URL(zxingWasmPath, globalThis.location?.origin ?? 'http://localhost').href
+      : prefix + path,
 };
 
 let installing: Promise<typeof import('barcode-detector')> | null = null;
@@ -37,7 +39,9 @@ export async function setUpScanner(warm = false): Promise<void> {
       return zxing;
     });
     // A failed load is tried again on the next call rather than remembered.
-    installing.catch(() => { installing = null; });
+    installing.catch(() => {
+      installing = null;
+    });
   }
   const zxing = await installing;
   if (warm) {

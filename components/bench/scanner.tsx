@@ -31,33 +31,45 @@ export function Scanner({ onCode }: Props) {
   }, [permission?.granted]);
 
   // The decoder's own chunk, fetched once the bench is up rather than with the app.
-  useEffect(() => { setUpScanner().catch(() => undefined); }, []);
+  useEffect(() => {
+    setUpScanner().catch(() => undefined);
+  }, []);
 
   const start = async () => {
     setProblem(null);
     // In place before the camera opens: the camera would otherwise load the decoder without our wasm path.
-    const ready = setUpScanner(true).then(() => true, () => false);
+    const ready = setUpScanner(true).then(
+      () => true,
+      () => false,
+    );
     const p = permission?.granted ? permission : await requestPermission();
     if (!p.granted) setProblem(cameraRefusedMessage(p));
     else if (await ready) setOpen(true);
     else setProblem('The code reader did not load. Check the connection and try again, or type the short code.');
   };
 
-  const handle = useCallback((r: BarcodeScanningResult) => {
-    const text = r.data?.trim();
-    if (!text || busy.current) return;
-    const now = Date.now();
-    if (last.current && last.current.text === text && now - last.current.at < 4000) return;
-    last.current = { text, at: now };
-    busy.current = true;
-    void onCode(text).finally(() => { busy.current = false; });
-  }, [onCode]);
+  const handle = useCallback(
+    (r: BarcodeScanningResult) => {
+      const text = r.data?.trim();
+      if (!text || busy.current) return;
+      const now = Date.now();
+      if (last.current && last.current.text === text && now - last.current.at < 4000) return;
+      last.current = { text, at: now };
+      busy.current = true;
+      void onCode(text).finally(() => {
+        busy.current = false;
+      });
+    },
+    [onCode],
+  );
 
   if (unavailable) {
     // No button that cannot work: the reason, and the short code beside it still opens the part.
     return (
       <View style={styles.closed}>
-        <Notice tone="caution" testID="scan-needs-https">{unavailable}</Notice>
+        <Notice tone="caution" testID="scan-needs-https">
+          {unavailable}
+        </Notice>
       </View>
     );
   }
@@ -66,8 +78,14 @@ export function Scanner({ onCode }: Props) {
     return (
       <View style={styles.closed}>
         <Button label="Scan a label" onPress={() => void start()} testID="start-scan" />
-        <Txt variant="small" tone="soft">Point the camera at the QR code on the part.</Txt>
-        {problem ? <Notice tone="error" testID="scan-problem">{problem}</Notice> : null}
+        <Txt variant="small" tone="soft">
+          Point the camera at the QR code on the part.
+        </Txt>
+        {problem ? (
+          <Notice tone="error" testID="scan-problem">
+            {problem}
+          </Notice>
+        ) : null}
       </View>
     );
   }
@@ -85,10 +103,16 @@ export function Scanner({ onCode }: Props) {
         <View pointerEvents="none" style={styles.frame} />
       </View>
       <View style={{ flexDirection: 'row', gap: space.sm, alignItems: 'center' }}>
-        <Txt variant="small" tone="soft" style={{ flex: 1 }}>Hold the label inside the frame.</Txt>
+        <Txt variant="small" tone="soft" style={{ flex: 1 }}>
+          Hold the label inside the frame.
+        </Txt>
         <Button label="Stop camera" variant="secondary" onPress={() => setOpen(false)} testID="stop-scan" />
       </View>
-      {problem ? <Notice tone="error" testID="scan-problem">{problem}</Notice> : null}
+      {problem ? (
+        <Notice tone="error" testID="scan-problem">
+          {problem}
+        </Notice>
+      ) : null}
     </View>
   );
 }
@@ -96,5 +120,14 @@ export function Scanner({ onCode }: Props) {
 const styles = StyleSheet.create({
   closed: { gap: space.sm, alignItems: 'flex-start' },
   viewfinder: { height: 280, backgroundColor: colors.ink, overflow: 'hidden', borderWidth: 1, borderColor: colors.ink },
-  frame: { position: 'absolute', left: '18%', right: '18%', top: '12%', bottom: '12%', borderWidth: 3, borderColor: colors.paperRaised, borderStyle: 'dashed' },
+  frame: {
+    position: 'absolute',
+    left: '18%',
+    right: '18%',
+    top: '12%',
+    bottom: '12%',
+    borderWidth: 3,
+    borderColor: colors.paperRaised,
+    borderStyle: 'dashed',
+  },
 });

@@ -14,7 +14,11 @@ import { ApiError, errorMessage } from '@/lib/api-client';
 /** Typing the short code from the label, for when the camera cannot read it. */
 export function ShortCodeEntry({ onOpen }: { onOpen: (code: string) => Promise<void> }) {
   const [problem, setProblem] = useState<string | null>(null);
-  const { control, handleSubmit, formState } = useForm<z.input<typeof lookupInput>, unknown, z.output<typeof lookupInput>>({
+  const { control, handleSubmit, formState } = useForm<
+    z.input<typeof lookupInput>,
+    unknown,
+    z.output<typeof lookupInput>
+  >({
     resolver: zodResolver(lookupInput, plainParse),
     mode: 'onChange',
     defaultValues: { code: '' },
@@ -24,9 +28,11 @@ export function ShortCodeEntry({ onOpen }: { onOpen: (code: string) => Promise<v
     try {
       await onOpen(code);
     } catch (e) {
-      setProblem(e instanceof ApiError && e.status === 404
-        ? `No part with the code “${code.toUpperCase()}” in your builds. Check the label and try again.`
-        : errorMessage(e));
+      setProblem(
+        e instanceof ApiError && e.status === 404
+          ? `No part with the code “${code.toUpperCase()}” in your builds. Check the label and try again.`
+          : errorMessage(e),
+      );
     }
   });
   return (
@@ -43,8 +49,18 @@ export function ShortCodeEntry({ onOpen }: { onOpen: (code: string) => Promise<v
         onSubmitEditing={() => void submit()}
         returnKeyType="go"
       />
-      {problem ? <Notice tone="error" testID="short-code-problem">{problem}</Notice> : null}
-      <Button label="Open part" busyLabel="Looking it up" busy={formState.isSubmitting} onPress={() => void submit()} testID="open-code" />
+      {problem ? (
+        <Notice tone="error" testID="short-code-problem">
+          {problem}
+        </Notice>
+      ) : null}
+      <Button
+        label="Open part"
+        busyLabel="Looking it up"
+        busy={formState.isSubmitting}
+        onPress={() => void submit()}
+        testID="open-code"
+      />
     </View>
   );
 }

@@ -12,7 +12,12 @@ import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
 import { errorMessage } from '@/lib/api-client';
-import { deviceTimeZone, useBuildLogExportMutation, useBuildLogQuery, type BuildLogFormat } from '@/hooks/queries/build-log';
+import {
+  deviceTimeZone,
+  useBuildLogExportMutation,
+  useBuildLogQuery,
+  type BuildLogFormat,
+} from '@/hooks/queries/build-log';
 import { pagedItems } from '@/hooks/queries/paged';
 import { useWide } from '@/hooks/use-wide';
 import { LogDayHeading, LogEntryRow } from './log-entry-row';
@@ -45,11 +50,26 @@ export function BuildLogScreen({ buildId }: { buildId: string }) {
   const openFinding = useCallback((id: string) => router.push(`/findings/${id}`), [router]);
   const backTo = `/builds/${buildId}` as const;
 
-  if (q.isPending) return <Screen title="Build log" backTo={backTo}><LoadingState what="Loading the build log" /></Screen>;
-  if (q.isError && !q.data) return <Screen title="Build log" backTo={backTo}><ErrorState error={q.error} onRetry={() => void q.refetch()} /></Screen>;
+  if (q.isPending)
+    return (
+      <Screen title="Build log" backTo={backTo}>
+        <LoadingState what="Loading the build log" />
+      </Screen>
+    );
+  if (q.isError && !q.data)
+    return (
+      <Screen title="Build log" backTo={backTo}>
+        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+      </Screen>
+    );
   // The first page names the build and its parts.
   const { build, parts = [] } = q.data.pages[0];
-  if (!build) return <Screen title="Build log" backTo={backTo}><ErrorState error={new Error('The log came without its build: try again.')} onRetry={() => void q.refetch()} /></Screen>;
+  if (!build)
+    return (
+      <Screen title="Build log" backTo={backTo}>
+        <ErrorState error={new Error('The log came without its build: try again.')} onRetry={() => void q.refetch()} />
+      </Screen>
+    );
   const filtered = isFiltered(filters);
 
   const runExport = (format: BuildLogFormat) => {
@@ -60,37 +80,83 @@ export function BuildLogScreen({ buildId }: { buildId: string }) {
   const header = (
     <View style={{ gap: space.lg, paddingBottom: space.md }}>
       <Txt variant="small" tone="soft" testID="log-people">
-        Builder {build.builders.map((b) => b.name).join(', ') || '–'} · Inspector {build.inspectors.map((b) => b.name).join(', ') || '–'}
+        Builder {build.builders.map((b) => b.name).join(', ') || '–'} · Inspector{' '}
+        {build.inspectors.map((b) => b.name).join(', ') || '–'}
       </Txt>
       <View style={{ gap: space.sm }}>
         <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
           <Button
-            label="Export CSV" variant="secondary" testID="export-csv" onPress={() => runExport('csv')}
-            busy={exporting === 'csv'} busyLabel="Preparing CSV" disabled={exporting !== null}
+            label="Export CSV"
+            variant="secondary"
+            testID="export-csv"
+            onPress={() => runExport('csv')}
+            busy={exporting === 'csv'}
+            busyLabel="Preparing CSV"
+            disabled={exporting !== null}
           />
           <Button
-            label="Export PDF" variant="secondary" testID="export-pdf" onPress={() => runExport('pdf')}
-            busy={exporting === 'pdf'} busyLabel="Preparing PDF" disabled={exporting !== null}
+            label="Export PDF"
+            variant="secondary"
+            testID="export-pdf"
+            onPress={() => runExport('pdf')}
+            busy={exporting === 'pdf'}
+            busyLabel="Preparing PDF"
+            disabled={exporting !== null}
           />
         </View>
         <Txt variant="small" tone="soft">
-          {filtered ? 'An export holds what the filters below show, oldest first, and says which filters on its first page.' : 'An export holds the whole log, oldest entry first, with the caution below on its first page.'}
+          {filtered
+            ? 'An export holds what the filters below show, oldest first, and says which filters on its first page.'
+            : 'An export holds the whole log, oldest entry first, with the caution below on its first page.'}
         </Txt>
-        {exporter.isError ? <Notice tone="error" testID="export-error">{errorMessage(exporter.error)}</Notice> : null}
-        {exporter.isSuccess && !exporting ? <Notice tone="ok" testID="export-done">{`Saved ${exporter.data.name}.`}</Notice> : null}
+        {exporter.isError ? (
+          <Notice tone="error" testID="export-error">
+            {errorMessage(exporter.error)}
+          </Notice>
+        ) : null}
+        {exporter.isSuccess && !exporting ? (
+          <Notice tone="ok" testID="export-done">{`Saved ${exporter.data.name}.`}</Notice>
+        ) : null}
       </View>
       <Field label="Show">
-        <Choice testIDPrefix="log-kind" value={filters.group} onChange={(group) => setFilters((f) => ({ ...f, group }))} options={kindOptions} />
+        <Choice
+          testIDPrefix="log-kind"
+          value={filters.group}
+          onChange={(group) => setFilters((f) => ({ ...f, group }))}
+          options={kindOptions}
+        />
       </Field>
       {parts.length > 1 ? (
         <Field label="Part">
-          <PartPicker parts={parts} value={filters.travelerId} onChange={(travelerId) => setFilters((f) => ({ ...f, travelerId }))} />
+          <PartPicker
+            parts={parts}
+            value={filters.travelerId}
+            onChange={(travelerId) => setFilters((f) => ({ ...f, travelerId }))}
+          />
         </Field>
       ) : null}
-      <FindField value={filters.text} onChange={(text) => setFilters((f) => ({ ...f, text }))} placeholder="Hole, part, name or words" where="the build log" testID="log-search" />
+      <FindField
+        value={filters.text}
+        onChange={(text) => setFilters((f) => ({ ...f, text }))}
+        placeholder="Hole, part, name or words"
+        where="the build log"
+        testID="log-search"
+      />
       <View style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap' }}>
-        <Txt variant="small" tone="soft" testID="log-count">{countLine(entries)}{q.hasNextPage ? ' loaded so far' : ''}{q.isFetching && !q.isFetchingNextPage ? ' · updating…' : ''}</Txt>
-        {filtered ? <Button label="Clear filters" variant="quiet" compact onPress={() => setFilters(noLogFilters)} testID="log-clear" /> : null}
+        <Txt variant="small" tone="soft" testID="log-count">
+          {countLine(entries)}
+          {q.hasNextPage ? ' loaded so far' : ''}
+          {q.isFetching && !q.isFetchingNextPage ? ' · updating…' : ''}
+        </Txt>
+        {filtered ? (
+          <Button
+            label="Clear filters"
+            variant="quiet"
+            compact
+            onPress={() => setFilters(noLogFilters)}
+            testID="log-clear"
+          />
+        ) : null}
       </View>
       {q.isError ? <Notice tone="error">{`Could not refresh the log: ${errorMessage(q.error)}`}</Notice> : null}
     </View>
@@ -100,27 +166,44 @@ export function BuildLogScreen({ buildId }: { buildId: string }) {
     <FlatList<LogRow>
       data={rows}
       keyExtractor={(r) => r.key}
-      renderItem={({ item }) => (item.type === 'day'
-        ? <LogDayHeading day={item.day} count={item.count} />
-        : <LogEntryRow e={item.entry} onOpenFinding={openFinding} />)}
+      renderItem={({ item }) =>
+        item.type === 'day' ? (
+          <LogDayHeading day={item.day} count={item.count} />
+        ) : (
+          <LogEntryRow e={item.entry} onOpenFinding={openFinding} />
+        )
+      }
       ListHeaderComponent={wide ? null : header}
-      ListFooterComponent={(
+      ListFooterComponent={
         <View style={{ paddingTop: space.md, gap: space.xl }}>
           <LoadMore
-            hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage}
-            shown={entries.length} what={entries.length === 1 ? 'entry' : 'entries'} testID="log-load-more"
+            hasNextPage={q.hasNextPage}
+            isFetchingNextPage={q.isFetchingNextPage}
+            fetchNextPage={q.fetchNextPage}
+            shown={entries.length}
+            what={entries.length === 1 ? 'entry' : 'entries'}
+            testID="log-load-more"
           />
           <Caution text={buildLogCaution} testID="log-caution" />
         </View>
-      )}
-      onEndReached={() => { if (q.hasNextPage && !q.isFetchingNextPage) void q.fetchNextPage(); }}
+      }
+      onEndReached={() => {
+        if (q.hasNextPage && !q.isFetchingNextPage) void q.fetchNextPage();
+      }}
       onEndReachedThreshold={0.5}
       ListEmptyComponent={
         filtered ? (
           <EmptyState
             title="Nothing matches these filters."
             body="Show everything, pick all parts, or clear the search."
-            action={<Button label="Clear filters" variant="secondary" onPress={() => setFilters(noLogFilters)} testID="log-empty-clear" />}
+            action={
+              <Button
+                label="Clear filters"
+                variant="secondary"
+                onPress={() => setFilters(noLogFilters)}
+                testID="log-empty-clear"
+              />
+            }
           />
         ) : (
           <EmptyState
@@ -141,16 +224,24 @@ export function BuildLogScreen({ buildId }: { buildId: string }) {
 
   return (
     <Screen
-      title="Build log" subtitle={`${build.kitSerial} · ${build.kitName} · ${build.supplierName}`} backTo={backTo}
-      scroll={false} full={wide} testID="build-log-screen"
+      title="Build log"
+      subtitle={`${build.kitSerial} · ${build.kitName} · ${build.supplierName}`}
+      backTo={backTo}
+      scroll={false}
+      full={wide}
+      testID="build-log-screen"
     >
       {wide ? (
         // Two panes: the filters and exports stay put at the left while the timeline scrolls.
         <View style={{ flex: 1, flexDirection: 'row', gap: space.xl }}>
-          <ScrollView style={{ width: 340, flexGrow: 0 }} keyboardShouldPersistTaps="handled">{header}</ScrollView>
+          <ScrollView style={{ width: 340, flexGrow: 0 }} keyboardShouldPersistTaps="handled">
+            {header}
+          </ScrollView>
           <View style={{ flex: 1, minWidth: 0, maxWidth: 760 }}>{timeline}</View>
         </View>
-      ) : timeline}
+      ) : (
+        timeline
+      )}
     </Screen>
   );
 }

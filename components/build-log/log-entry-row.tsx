@@ -11,27 +11,54 @@ import { dayLabel, timeOf } from './log-view';
 export function LogDayHeading({ day, count }: { day: string; count: number }) {
   return (
     <View style={styles.day} testID={`log-day-${day}`} accessibilityRole="header">
-      <Txt bold style={{ flex: 1 }}>{dayLabel(day)}</Txt>
-      <Txt variant="small" tone="soft">{count} {count === 1 ? 'entry' : 'entries'}</Txt>
+      <Txt bold style={{ flex: 1 }}>
+        {dayLabel(day)}
+      </Txt>
+      <Txt variant="small" tone="soft">
+        {count} {count === 1 ? 'entry' : 'entries'}
+      </Txt>
     </View>
   );
 }
 
 /** One thing that happened: when, what kind, on which part, who, their words and the finding's photos. */
-export const LogEntryRow = memo(function LogEntryRow({ e, onOpenFinding }: { e: BuildLogEntry; onOpenFinding: (findingId: string) => void }) {
+export const LogEntryRow = memo(function LogEntryRow({
+  e,
+  onOpenFinding,
+}: {
+  e: BuildLogEntry;
+  onOpenFinding: (findingId: string) => void;
+}) {
   const finding = e.group === 'findings';
   return (
     <View style={styles.row} testID={`log-entry-${e.id}`}>
-      <View style={[styles.tick, finding && { backgroundColor: colors.ink }, e.group === 'sign_off' && { backgroundColor: colors.accent, borderColor: colors.accent }]} />
+      <View
+        style={[
+          styles.tick,
+          finding && { backgroundColor: colors.ink },
+          e.group === 'sign_off' && { backgroundColor: colors.accent, borderColor: colors.accent },
+        ]}
+      />
       <View style={{ flex: 1, gap: 2 }}>
         <View style={styles.top}>
-          <Mono variant="small" bold>{timeOf(e.at)}</Mono>
-          <Label tone={e.group === 'sign_off' ? 'accent' : finding ? 'ink' : 'soft'}>{buildLogKindLabels[e.kind]}</Label>
-          <Mono variant="small" tone="soft">{e.partNumber}</Mono>
+          <Mono variant="small" bold>
+            {timeOf(e.at)}
+          </Mono>
+          <Label tone={e.group === 'sign_off' ? 'accent' : finding ? 'ink' : 'soft'}>
+            {buildLogKindLabels[e.kind]}
+          </Label>
+          <Mono variant="small" tone="soft">
+            {e.partNumber}
+          </Mono>
         </View>
         <Txt>{e.text}</Txt>
         {e.note ? <Txt tone="soft">“{e.note}”</Txt> : null}
-        <Txt variant="small" tone="soft">{e.actorName} · {e.actorRole} · <Mono variant="small" tone="soft">{e.travelerSerial}</Mono></Txt>
+        <Txt variant="small" tone="soft">
+          {e.actorName} · {e.actorRole} ·{' '}
+          <Mono variant="small" tone="soft">
+            {e.travelerSerial}
+          </Mono>
+        </Txt>
         {e.photos?.length ? (
           <View style={styles.photos}>
             {e.photos.map((p, i) => (
@@ -65,14 +92,35 @@ export const LogEntryRow = memo(function LogEntryRow({ e, onOpenFinding }: { e: 
 
 const styles = StyleSheet.create({
   day: {
-    flexDirection: 'row', alignItems: 'baseline', gap: space.sm, paddingTop: space.lg, paddingBottom: space.xs,
-    borderBottomWidth: hairline, borderColor: colors.ink, backgroundColor: colors.paper,
+    flexDirection: 'row',
+    alignItems: 'baseline',
+    gap: space.sm,
+    paddingTop: space.lg,
+    paddingBottom: space.xs,
+    borderBottomWidth: hairline,
+    borderColor: colors.ink,
+    backgroundColor: colors.paper,
   },
   row: {
-    flexDirection: 'row', gap: space.md, paddingVertical: space.sm, paddingLeft: space.md, marginLeft: 6,
-    borderLeftWidth: hairline, borderColor: colors.ruleStrong, minHeight: touch,
+    flexDirection: 'row',
+    gap: space.md,
+    paddingVertical: space.sm,
+    paddingLeft: space.md,
+    marginLeft: 6,
+    borderLeftWidth: hairline,
+    borderColor: colors.ruleStrong,
+    minHeight: touch,
   },
-  tick: { position: 'absolute', left: -6, top: space.md + 2, width: 11, height: 11, backgroundColor: colors.paper, borderWidth: 2, borderColor: colors.ink },
+  tick: {
+    position: 'absolute',
+    left: -6,
+    top: space.md + 2,
+    width: 11,
+    height: 11,
+    backgroundColor: colors.paper,
+    borderWidth: 2,
+    borderColor: colors.ink,
+  },
   top: { flexDirection: 'row', alignItems: 'baseline', gap: space.sm, flexWrap: 'wrap' },
   photos: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, paddingTop: space.xs },
   thumb: { width: 72, height: 72, borderWidth: hairline, borderColor: colors.rule, backgroundColor: colors.paperSunk },

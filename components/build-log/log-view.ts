@@ -14,9 +14,12 @@ export function isFiltered(f: LogFilters): boolean {
 }
 
 export function filterEntries(entries: readonly BuildLogEntry[], f: LogFilters): BuildLogEntry[] {
-  return entries.filter((e) => (f.group === 'all' || e.group === f.group)
-    && (f.travelerId === null || e.travelerId === f.travelerId)
-    && logEntryMatches(e, f.text));
+  return entries.filter(
+    (e) =>
+      (f.group === 'all' || e.group === f.group) &&
+      (f.travelerId === null || e.travelerId === f.travelerId) &&
+      logEntryMatches(e, f.text),
+  );
 }
 
 const dayFormats = new Map<string, Intl.DateTimeFormat>();
@@ -41,7 +44,13 @@ export function dayOf(iso: string, timeZone?: string): string {
 /** "Tuesday, 1 December 2026" for a YYYY-MM-DD day; the day itself is the calendar's, no zone applies. */
 export function dayLabel(day: string): string {
   const [y, m, d] = day.split('-').map(Number);
-  return new Date(Date.UTC(y, m - 1, d)).toLocaleDateString(undefined, { timeZone: 'UTC', weekday: 'long', day: 'numeric', month: 'long', year: 'numeric' });
+  return new Date(Date.UTC(y, m - 1, d)).toLocaleDateString(undefined, {
+    timeZone: 'UTC',
+    weekday: 'long',
+    day: 'numeric',
+    month: 'long',
+    year: 'numeric',
+  });
 }
 
 export type LogDay = { day: string; entries: BuildLogEntry[] };
@@ -60,8 +69,7 @@ export function groupByDay(entries: readonly BuildLogEntry[], timeZone?: string)
 
 /** One flat list for a FlatList: a heading row per day, then its entries. */
 export type LogRow =
-  | { type: 'day'; key: string; day: string; count: number }
-  | { type: 'entry'; key: string; entry: BuildLogEntry };
+  { type: 'day'; key: string; day: string; count: number } | { type: 'entry'; key: string; entry: BuildLogEntry };
 
 export function logRows(entries: readonly BuildLogEntry[], timeZone?: string): LogRow[] {
   return groupByDay(entries, timeZone).flatMap(({ day, entries: es }) => [

@@ -15,14 +15,22 @@ export const partKey = (p: Pick<BuildLogPart, 'partNumber'>) => p.partNumber.rep
  * One part or all of them. A small kit shows every part as a chip; a big one shows a box to type the
  * part number into and the first few parts that match, so hundreds of parts never become a wall of chips.
  */
-export function PartPicker({ parts, value, onChange }: {
-  parts: readonly BuildLogPart[]; value: string | null; onChange: (travelerId: string | null) => void;
+export function PartPicker({
+  parts,
+  value,
+  onChange,
+}: {
+  parts: readonly BuildLogPart[];
+  value: string | null;
+  onChange: (travelerId: string | null) => void;
 }) {
   const [typed, setTyped] = useState('');
   const many = parts.length > SHOWN;
   const matching = useMemo(() => {
     const words = typed.trim().toLowerCase().split(/\s+/).filter(Boolean);
-    const hits = parts.filter((p) => words.every((w) => `${p.partNumber} ${p.partName} ${p.serial}`.toLowerCase().includes(w)));
+    const hits = parts.filter((p) =>
+      words.every((w) => `${p.partNumber} ${p.partName} ${p.serial}`.toLowerCase().includes(w)),
+    );
     const chosen = parts.find((p) => p.travelerId === value);
     const shown = hits.slice(0, SHOWN);
     return chosen && !shown.includes(chosen) ? [chosen, ...shown] : shown;
@@ -50,7 +58,11 @@ export function PartPicker({ parts, value, onChange }: {
           ...matching.map((p) => ({ value: p.travelerId, label: p.partNumber, hint: p.partName, key: partKey(p) })),
         ]}
       />
-      {hidden > 0 ? <Txt variant="small" tone="faint">{hidden} more {hidden === 1 ? 'part' : 'parts'}: type to narrow.</Txt> : null}
+      {hidden > 0 ? (
+        <Txt variant="small" tone="faint">
+          {hidden} more {hidden === 1 ? 'part' : 'parts'}: type to narrow.
+        </Txt>
+      ) : null}
     </View>
   );
 }

@@ -4,8 +4,14 @@ import { useForm, type Resolver } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import type { z } from 'zod';
 import {
-  addMemberInput, memberPlaceLabels, memberPlaces, memberRoleOfPlace, removalRefusal, singlePlaces,
-  type BuildMember, type BuildPeople,
+  addMemberInput,
+  memberPlaceLabels,
+  memberPlaces,
+  memberRoleOfPlace,
+  removalRefusal,
+  singlePlaces,
+  type BuildMember,
+  type BuildPeople,
 } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
 import { shortDate } from '@/components/findings/finding-row';
@@ -18,7 +24,11 @@ import { Section } from '@/components/ui/sheet';
 import { Notice } from '@/components/ui/states';
 import { Label, Mono, Txt } from '@/components/ui/text';
 import { errorMessage } from '@/lib/api-client';
-import { useBuildHandOverMutation, useBuildMemberAddMutation, useBuildMemberRemoveMutation } from '@/hooks/queries/builds';
+import {
+  useBuildHandOverMutation,
+  useBuildMemberAddMutation,
+  useBuildMemberRemoveMutation,
+} from '@/hooks/queries/builds';
 
 /** Builders first (the owner at the head), then inspectors: the order people think of a build's crew. */
 const placeOrder = Object.fromEntries(memberPlaces.map((p, i) => [p, i])) as Record<BuildMember['place'], number>;
@@ -28,14 +38,26 @@ const placeOrder = Object.fromEntries(memberPlaces.map((p, i) => [p, i])) as Rec
  * and handing over appear only when `people.allowed` has them; the owner is never offered for removal
  * (the contract's `removalRefusal`), and the build goes only to a builder already on it.
  */
-export function BuildPeopleSection({ buildId, kitSerial, people, meId }: { buildId: string; kitSerial: string; people: BuildPeople; meId: string | undefined }) {
+export function BuildPeopleSection({
+  buildId,
+  kitSerial,
+  people,
+  meId,
+}: {
+  buildId: string;
+  kitSerial: string;
+  people: BuildPeople;
+  meId: string | undefined;
+}) {
   const remove = useBuildMemberRemoveMutation(buildId);
   const handOver = useBuildHandOverMutation(buildId);
   const [asking, setAsking] = useState<{ kind: 'remove' | 'hand-over'; m: BuildMember } | null>(null);
   const [error, setError] = useState<string | null>(null);
   const [said, setSaid] = useState<string | null>(null);
   const may = (a: BuildPeople['allowed'][number]) => people.allowed.includes(a);
-  const members = [...people.members].sort((a, b) => placeOrder[a.place] - placeOrder[b.place] || a.name.localeCompare(b.name));
+  const members = [...people.members].sort(
+    (a, b) => placeOrder[a.place] - placeOrder[b.place] || a.name.localeCompare(b.name),
+  );
   const busy = remove.isPending || handOver.isPending;
 
   const confirm = async () => {
@@ -57,7 +79,11 @@ export function BuildPeopleSection({ buildId, kitSerial, people, meId }: { build
 
   return (
     <Section title="People on this build" testID="build-people">
-      {said ? <Notice tone="ok" testID="member-done">{said}</Notice> : null}
+      {said ? (
+        <Notice tone="ok" testID="member-done">
+          {said}
+        </Notice>
+      ) : null}
       <View>
         {members.map((m) => {
           const removable = may('remove') && removalRefusal(m) === null;
@@ -66,17 +92,47 @@ export function BuildPeopleSection({ buildId, kitSerial, people, meId }: { build
             <View key={m.userId} style={styles.row} testID={`member-${m.email}`}>
               <View style={styles.line}>
                 <Txt bold>{m.name}</Txt>
-                {m.userId === meId ? <Txt variant="small" tone="accent" bold>you</Txt> : null}
+                {m.userId === meId ? (
+                  <Txt variant="small" tone="accent" bold>
+                    you
+                  </Txt>
+                ) : null}
               </View>
-              <Txt variant="small" testID={`member-placed-${m.email}`}>{memberPlaceLabels[m.place]}</Txt>
-              <Mono variant="small" tone="soft" style={wrapAnywhere}>{m.email}</Mono>
+              <Txt variant="small" testID={`member-placed-${m.email}`}>
+                {memberPlaceLabels[m.place]}
+              </Txt>
+              <Mono variant="small" tone="soft" style={wrapAnywhere}>
+                {m.email}
+              </Mono>
               {removable || heir ? (
                 <View style={styles.buttons}>
                   {heir ? (
-                    <Button label="Hand the build over…" variant="secondary" compact disabled={busy} onPress={() => { setAsking({ kind: 'hand-over', m }); setSaid(null); setError(null); }} testID={`member-hand-over-${m.email}`} />
+                    <Button
+                      label="Hand the build over…"
+                      variant="secondary"
+                      compact
+                      disabled={busy}
+                      onPress={() => {
+                        setAsking({ kind: 'hand-over', m });
+                        setSaid(null);
+                        setError(null);
+                      }}
+                      testID={`member-hand-over-${m.email}`}
+                    />
                   ) : null}
                   {removable ? (
-                    <Button label="Take off the build…" variant="secondary" compact disabled={busy} onPress={() => { setAsking({ kind: 'remove', m }); setSaid(null); setError(null); }} testID={`member-remove-${m.email}`} />
+                    <Button
+                      label="Take off the build…"
+                      variant="secondary"
+                      compact
+                      disabled={busy}
+                      onPress={() => {
+                        setAsking({ kind: 'remove', m });
+                        setSaid(null);
+                        setError(null);
+                      }}
+                      testID={`member-remove-${m.email}`}
+                    />
                   ) : null}
                 </View>
               ) : null}
@@ -87,7 +143,11 @@ export function BuildPeopleSection({ buildId, kitSerial, people, meId }: { build
                       ? `Take ${m.name} off build ${kitSerial}? They lose access to its parts, findings, photos and log at once. What they did stays in the log.`
                       : `Hand build ${kitSerial} to ${m.name}? They become its owner with the whole build log; the present owner stays on as a helper.`}
                   </Notice>
-                  {error ? <Notice tone="error" testID="member-change-error">{error}</Notice> : null}
+                  {error ? (
+                    <Notice tone="error" testID="member-change-error">
+                      {error}
+                    </Notice>
+                  ) : null}
                   <Button
                     label={asking.kind === 'remove' ? `Take ${m.name} off` : `Hand over to ${m.name}`}
                     variant={asking.kind === 'remove' ? 'danger' : 'primary'}
@@ -96,7 +156,16 @@ export function BuildPeopleSection({ buildId, kitSerial, people, meId }: { build
                     onPress={() => void confirm()}
                     testID="member-confirm"
                   />
-                  <Button label="Leave it as it is" variant="quiet" disabled={busy} onPress={() => { setAsking(null); setError(null); }} testID="member-confirm-cancel" />
+                  <Button
+                    label="Leave it as it is"
+                    variant="quiet"
+                    disabled={busy}
+                    onPress={() => {
+                      setAsking(null);
+                      setError(null);
+                    }}
+                    testID="member-confirm-cancel"
+                  />
                 </View>
               ) : null}
             </View>
@@ -105,12 +174,20 @@ export function BuildPeopleSection({ buildId, kitSerial, people, meId }: { build
         {people.pending.map((p) => (
           <View key={`${p.email}-${p.place}`} style={styles.row} testID={`pending-${p.email}`}>
             <View style={styles.line}>
-              <Txt bold tone="soft">{p.name}</Txt>
-              <Txt variant="small" bold tone="caution" testID={`pending-state-${p.email}`}>○ not joined yet</Txt>
+              <Txt bold tone="soft">
+                {p.name}
+              </Txt>
+              <Txt variant="small" bold tone="caution" testID={`pending-state-${p.email}`}>
+                ○ not joined yet
+              </Txt>
             </View>
             <Txt variant="small">{memberPlaceLabels[p.place]}</Txt>
-            <Mono variant="small" tone="soft" style={wrapAnywhere}>{p.email}</Mono>
-            <Txt variant="small" tone="faint">Invited by mail; the link works until {shortDate(p.expiresAt)}.</Txt>
+            <Mono variant="small" tone="soft" style={wrapAnywhere}>
+              {p.email}
+            </Mono>
+            <Txt variant="small" tone="faint">
+              Invited by mail; the link works until {shortDate(p.expiresAt)}.
+            </Txt>
           </View>
         ))}
         {!members.length && !people.pending.length ? <Txt tone="soft">Nobody is on this build.</Txt> : null}
@@ -139,7 +216,12 @@ function AddMember({ buildId }: { buildId: string }) {
   const [added, setAdded] = useState<string | null>(null);
   // The name is optional: an empty box means "none given", not a name too short.
   const resolver = useCallback<Resolver<Values, unknown, Parsed>>(
-    (values, context, options) => zodResolver(addMemberInput, plainParse)({ ...values, name: values.name?.trim() ? values.name : undefined }, context, options),
+    (values, context, options) =>
+      zodResolver(addMemberInput, plainParse)(
+        { ...values, name: values.name?.trim() ? values.name : undefined },
+        context,
+        options,
+      ),
     [],
   );
   const { control, handleSubmit, setError, reset, formState } = useForm<Values, unknown, Parsed>({
@@ -153,9 +235,11 @@ function AddMember({ buildId }: { buildId: string }) {
     try {
       const page = await add.mutateAsync(v);
       const joined = page.people.members.some((m) => m.email === v.email);
-      setAdded(joined
-        ? `${v.email} is on the build as ${memberPlaceLabels[v.place].toLowerCase()}.`
-        : `${v.email} has no account yet: an invitation is on its way, and they show as not joined until they set a password.`);
+      setAdded(
+        joined
+          ? `${v.email} is on the build as ${memberPlaceLabels[v.place].toLowerCase()}.`
+          : `${v.email} has no account yet: an invitation is on its way, and they show as not joined until they set a password.`,
+      );
       reset({ email: '', place: v.place, name: '' });
     } catch (e) {
       setFormError(applyServerErrors(setError, e, (path) => (['email', 'place', 'name'].includes(path) ? path : null)));
@@ -164,7 +248,17 @@ function AddMember({ buildId }: { buildId: string }) {
   return (
     <View style={styles.add} testID="member-add-form">
       <Label>Add someone</Label>
-      <FormTextField control={control} name="email" label="E-mail" testID="member-email" autoCapitalize="none" autoCorrect={false} keyboardType="email-address" inputMode="email" maxLength={254} />
+      <FormTextField
+        control={control}
+        name="email"
+        label="E-mail"
+        testID="member-email"
+        autoCapitalize="none"
+        autoCorrect={false}
+        keyboardType="email-address"
+        inputMode="email"
+        maxLength={254}
+      />
       <FormChoiceField
         control={control}
         name="place"
@@ -180,9 +274,23 @@ function AddMember({ buildId }: { buildId: string }) {
         testID="member-name"
         maxLength={120}
       />
-      {formError ? <Notice tone="error" testID="member-add-error">{formError}</Notice> : null}
-      {added ? <Notice tone="ok" testID="member-added">{added}</Notice> : null}
-      <Button label="Add to the build" busyLabel="Adding" busy={formState.isSubmitting} onPress={() => void submit()} testID="member-add" />
+      {formError ? (
+        <Notice tone="error" testID="member-add-error">
+          {formError}
+        </Notice>
+      ) : null}
+      {added ? (
+        <Notice tone="ok" testID="member-added">
+          {added}
+        </Notice>
+      ) : null}
+      <Button
+        label="Add to the build"
+        busyLabel="Adding"
+        busy={formState.isSubmitting}
+        onPress={() => void submit()}
+        testID="member-add"
+      />
     </View>
   );
 }

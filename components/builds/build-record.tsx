@@ -52,20 +52,56 @@ export function BuildRecordSection({ b }: { b: BuildPage }) {
         <View style={{ gap: space.md }}>
           {allowed.includes('change-serial') ? (
             <Field label="Kit serial" hint="Part serials follow it; reprint the labels afterwards.">
-              <TextBox value={serial} onChangeText={setSerial} mono autoCapitalize="characters" testID="build-serial-edit" />
+              <TextBox
+                value={serial}
+                onChangeText={setSerial}
+                mono
+                autoCapitalize="characters"
+                testID="build-serial-edit"
+              />
             </Field>
           ) : null}
           <Field label="Shipping note" hint="What went in the crate, what follows later.">
             <TextBox value={note} onChangeText={setNote} multiline testID="build-note-edit" />
           </Field>
-          {error ? <Notice tone="error" testID="build-edit-error">{error}</Notice> : null}
-          <Button label="Save" busy={update.isPending} busyLabel="Saving" onPress={() => void save()} testID="build-edit-save" />
-          <Button label="Leave it as it is" variant="quiet" disabled={update.isPending} onPress={() => { setEditing(false); setSerial(b.kitSerial); setNote(b.note ?? ''); }} testID="build-edit-cancel" />
+          {error ? (
+            <Notice tone="error" testID="build-edit-error">
+              {error}
+            </Notice>
+          ) : null}
+          <Button
+            label="Save"
+            busy={update.isPending}
+            busyLabel="Saving"
+            onPress={() => void save()}
+            testID="build-edit-save"
+          />
+          <Button
+            label="Leave it as it is"
+            variant="quiet"
+            disabled={update.isPending}
+            onPress={() => {
+              setEditing(false);
+              setSerial(b.kitSerial);
+              setNote(b.note ?? '');
+            }}
+            testID="build-edit-cancel"
+          />
         </View>
       ) : allowed.includes('edit-note') ? (
-        <Button label={allowed.includes('change-serial') ? 'Change serial or note…' : 'Change the note…'} variant="secondary" compact onPress={() => setEditing(true)} testID="build-edit" />
+        <Button
+          label={allowed.includes('change-serial') ? 'Change serial or note…' : 'Change the note…'}
+          variant="secondary"
+          compact
+          onPress={() => setEditing(true)}
+          testID="build-edit"
+        />
       ) : null}
-      {allowed.length && b.fixedBecause ? <Txt variant="small" tone="soft" testID="build-fixed">{b.fixedBecause}</Txt> : null}
+      {allowed.length && b.fixedBecause ? (
+        <Txt variant="small" tone="soft" testID="build-fixed">
+          {b.fixedBecause}
+        </Txt>
+      ) : null}
       {allowed.includes('delete') ? (
         asking ? (
           <ConfirmStep
@@ -78,7 +114,18 @@ export function BuildRecordSection({ b }: { b: BuildPage }) {
             onConfirm={() => void confirmDelete()}
             onCancel={() => setAsking(false)}
           />
-        ) : <Button label="Delete this build…" variant="quiet" compact onPress={() => { setAsking(true); remove.reset(); }} testID="build-delete" />
+        ) : (
+          <Button
+            label="Delete this build…"
+            variant="quiet"
+            compact
+            onPress={() => {
+              setAsking(true);
+              remove.reset();
+            }}
+            testID="build-delete"
+          />
+        )
       ) : null}
     </Section>
   );

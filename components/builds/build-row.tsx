@@ -15,23 +15,50 @@ export function BuildRow({ b, onPress }: { b: BuildSummary; onPress: () => void 
       style={({ pressed }) => [styles.row, pressed && { backgroundColor: colors.accentSoft }]}
     >
       <View style={{ flex: 1, gap: 2 }}>
-        <Txt bold><Mono bold>{b.kitSerial}</Mono> {b.kitName}</Txt>
-        <Txt variant="small" tone="soft">
-          Builder {b.builders.map((x) => x.name).join(', ') || '–'} · inspector {b.inspectors.map((x) => x.name).join(', ') || '–'}
+        <Txt bold>
+          <Mono bold>{b.kitSerial}</Mono> {b.kitName}
         </Txt>
-        <View style={styles.bar}><View style={[styles.fill, { width: `${frac * 100}%` }]} /></View>
+        <Txt variant="small" tone="soft">
+          Builder {b.builders.map((x) => x.name).join(', ') || '–'} · inspector{' '}
+          {b.inspectors.map((x) => x.name).join(', ') || '–'}
+        </Txt>
+        <View style={styles.bar}>
+          <View style={[styles.fill, { width: `${frac * 100}%` }]} />
+        </View>
         <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
-          <Mono variant="small">{b.travelerCount} parts · {b.holesDone}/{b.holesTotal} holes</Mono>
-          {b.openFindings ? <Txt variant="small" bold tone="warning">▲ {b.openFindings} open</Txt> : null}
+          <Mono variant="small">
+            {b.travelerCount} parts · {b.holesDone}/{b.holesTotal} holes
+          </Mono>
+          {b.openFindings ? (
+            <Txt variant="small" bold tone="warning">
+              ▲ {b.openFindings} open
+            </Txt>
+          ) : null}
         </View>
       </View>
-      <Txt tone="accent" bold aria-hidden>›</Txt>
+      <Txt tone="accent" bold aria-hidden>
+        ›
+      </Txt>
     </Pressable>
   );
 }
 
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', alignItems: 'center', gap: space.md, minHeight: touch, paddingVertical: space.md, borderBottomWidth: hairline, borderColor: colors.rule },
-  bar: { height: 6, backgroundColor: colors.paperSunk, borderWidth: hairline, borderColor: colors.ruleStrong, marginTop: space.xs },
+  row: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.md,
+    minHeight: touch,
+    paddingVertical: space.md,
+    borderBottomWidth: hairline,
+    borderColor: colors.rule,
+  },
+  bar: {
+    height: 6,
+    backgroundColor: colors.paperSunk,
+    borderWidth: hairline,
+    borderColor: colors.ruleStrong,
+    marginTop: space.xs,
+  },
   fill: { height: '100%', backgroundColor: statusColors.installed },
 });

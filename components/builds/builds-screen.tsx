@@ -30,30 +30,47 @@ export function BuildsScreen() {
       account
       scroll={false}
       testID="builds-screen"
-      right={isSupplier ? <Button label="Ship a build" compact onPress={() => router.push('/builds/new')} testID="ship-build" /> : undefined}
+      right={
+        isSupplier ? (
+          <Button label="Ship a build" compact onPress={() => router.push('/builds/new')} testID="ship-build" />
+        ) : undefined
+      }
     >
-      {q.isPending ? <LoadingState what="Loading builds" />
-        : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
-          : (
-            <FlatList
-              data={rows}
-              keyExtractor={(b) => b.id}
-              renderItem={({ item }) => <BuildRow b={item} onPress={() => router.push(`/builds/${item.id}`)} />}
-              ListEmptyComponent={
-                <EmptyState
-                  title="No builds yet."
-                  body={isSupplier ? 'Ship a kit to a builder: each published part becomes a traveler with its own QR label.'
-                    : role === 'builder' ? 'Builds show here when a supplier ships you a kit, or a build’s owner adds you as a helper.'
-                      : 'Builds show here when a supplier or a build’s owner adds you as an inspector.'}
-                />
+      {q.isPending ? (
+        <LoadingState what="Loading builds" />
+      ) : q.isError ? (
+        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+      ) : (
+        <FlatList
+          data={rows}
+          keyExtractor={(b) => b.id}
+          renderItem={({ item }) => <BuildRow b={item} onPress={() => router.push(`/builds/${item.id}`)} />}
+          ListEmptyComponent={
+            <EmptyState
+              title="No builds yet."
+              body={
+                isSupplier
+                  ? 'Ship a kit to a builder: each published part becomes a traveler with its own QR label.'
+                  : role === 'builder'
+                    ? 'Builds show here when a supplier ships you a kit, or a build’s owner adds you as a helper.'
+                    : 'Builds show here when a supplier or a build’s owner adds you as an inspector.'
               }
-              ListFooterComponent={
-                <LoadMore hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage} shown={rows.length} what="builds" testID="builds-more" />
-              }
-              refreshing={q.isRefetching && !q.isFetchingNextPage}
-              onRefresh={() => void q.refetch()}
             />
-          )}
+          }
+          ListFooterComponent={
+            <LoadMore
+              hasNextPage={q.hasNextPage}
+              isFetchingNextPage={q.isFetchingNextPage}
+              fetchNextPage={q.fetchNextPage}
+              shown={rows.length}
+              what="builds"
+              testID="builds-more"
+            />
+          }
+          refreshing={q.isRefetching && !q.isFetchingNextPage}
+          onRefresh={() => void q.refetch()}
+        />
+      )}
     </Screen>
   );
 }

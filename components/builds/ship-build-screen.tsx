@@ -28,15 +28,29 @@ export function ShipBuildScreen() {
   const create = useBuildCreateMutation();
   const [formError, setFormError] = useState<string | null>(null);
   const resolver = useCallback<Resolver<Values, unknown, Parsed>>(
-    (values, context, options) => zodResolver(buildInput, plainParse)(
-      { ...values, builderName: blankToUndefined(values.builderName), inspectorName: blankToUndefined(values.inspectorName) }, context, options,
-    ),
+    (values, context, options) =>
+      zodResolver(buildInput, plainParse)(
+        {
+          ...values,
+          builderName: blankToUndefined(values.builderName),
+          inspectorName: blankToUndefined(values.inspectorName),
+        },
+        context,
+        options,
+      ),
     [],
   );
   const { control, handleSubmit, setError, formState } = useForm<Values, unknown, Parsed>({
     resolver,
     mode: 'onChange',
-    defaultValues: { kitModelId: '', kitSerial: '', builderEmail: '', builderName: '', inspectorEmail: '', inspectorName: '' },
+    defaultValues: {
+      kitModelId: '',
+      kitSerial: '',
+      builderEmail: '',
+      builderName: '',
+      inspectorEmail: '',
+      inspectorName: '',
+    },
   });
   const submit = handleSubmit(async (v) => {
     setFormError(null);
@@ -50,31 +64,98 @@ export function ShipBuildScreen() {
 
   return (
     <Screen title="Ship a build" backTo="/builds" testID="ship-build-screen">
-      {kits.isPending ? <LoadingState what="Loading kit models" />
-        : kits.isError ? <ErrorState error={kits.error} onRetry={() => void kits.refetch()} />
-          : !kits.data.length ? <EmptyState title="No kit models yet." body="Make a kit model and publish its parts in the catalogue first." />
-            : (
-              <>
-                <Section title="The kit">
-                  <FormChoiceField control={control} name="kitModelId" label="Kit model" testID="build-kit" options={kits.data.map((k) => ({ value: k.id, key: k.code, label: `${k.code} · ${k.name}` }))} />
-                  <FormTextField control={control} name="kitSerial" label="Kit serial" testID="build-serial" autoCapitalize="characters" mono />
-                </Section>
-                <Section title="People">
-                  <Txt variant="small" tone="soft" testID="build-invite-note">
-                    An address without a Pitchcard account gets an invitation by mail: the person sets a password from its link and
-                    joins the build. Until then the build shows them as not joined yet. Give their names for the invitation.
-                  </Txt>
-                  <FormTextField control={control} name="builderEmail" label="Builder’s e-mail" hint="The build’s owner: they build it and keep its log." testID="build-builder-email" autoCapitalize="none" autoCorrect={false} keyboardType="email-address" inputMode="email" maxLength={254} />
-                  <FormTextField control={control} name="builderName" label="Builder’s name (if they have no account yet)" testID="build-builder-name" autoComplete="off" maxLength={120} />
-                  <FormTextField control={control} name="inspectorEmail" label="Inspector’s e-mail" hint="The final inspector: findings on this build go to them." testID="build-inspector-email" autoCapitalize="none" autoCorrect={false} keyboardType="email-address" inputMode="email" maxLength={254} />
-                  <FormTextField control={control} name="inspectorName" label="Inspector’s name (if they have no account yet)" testID="build-inspector-name" autoComplete="off" maxLength={120} />
-                  <Txt variant="small" tone="faint">Helpers and a technical adviser are added on the build’s page once it is shipped.</Txt>
-                </Section>
-                {formError ? <Notice tone="error" testID="build-error">{formError}</Notice> : null}
-                <Button label="Ship it" busyLabel="Making travelers" busy={formState.isSubmitting} onPress={() => void submit()} testID="submit-build" />
-                <Txt variant="small" tone="faint">Only parts with a published revision get a traveler.</Txt>
-              </>
-            )}
+      {kits.isPending ? (
+        <LoadingState what="Loading kit models" />
+      ) : kits.isError ? (
+        <ErrorState error={kits.error} onRetry={() => void kits.refetch()} />
+      ) : !kits.data.length ? (
+        <EmptyState title="No kit models yet." body="Make a kit model and publish its parts in the catalogue first." />
+      ) : (
+        <>
+          <Section title="The kit">
+            <FormChoiceField
+              control={control}
+              name="kitModelId"
+              label="Kit model"
+              testID="build-kit"
+              options={kits.data.map((k) => ({ value: k.id, key: k.code, label: `${k.code} · ${k.name}` }))}
+            />
+            <FormTextField
+              control={control}
+              name="kitSerial"
+              label="Kit serial"
+              testID="build-serial"
+              autoCapitalize="characters"
+              mono
+            />
+          </Section>
+          <Section title="People">
+            <Txt variant="small" tone="soft" testID="build-invite-note">
+              An address without a Pitchcard account gets an invitation by mail: the person sets a password from its
+              link and joins the build. Until then the build shows them as not joined yet. Give their names for the
+              invitation.
+            </Txt>
+            <FormTextField
+              control={control}
+              name="builderEmail"
+              label="Builder’s e-mail"
+              hint="The build’s owner: they build it and keep its log."
+              testID="build-builder-email"
+              autoCapitalize="none"
+              autoCorrect={false}
+              keyboardType="email-address"
+              inputMode="email"
+              maxLength={254}
+            />
+            <FormTextField
+              control={control}
+              name="builderName"
+              label="Builder’s name (if they have no account yet)"
+              testID="build-builder-name"
+              autoComplete="off"
+              maxLength={120}
+            />
+            <FormTextField
+              control={control}
+              name="inspectorEmail"
+              label="Inspector’s e-mail"
+              hint="The final inspector: findings on this build go to them."
+              testID="build-inspector-email"
+              autoCapitalize="none"
+              autoCorrect={false}
+              keyboardType="email-address"
+              inputMode="email"
+              maxLength={254}
+            />
+            <FormTextField
+              control={control}
+              name="inspectorName"
+              label="Inspector’s name (if they have no account yet)"
+              testID="build-inspector-name"
+              autoComplete="off"
+              maxLength={120}
+            />
+            <Txt variant="small" tone="faint">
+              Helpers and a technical adviser are added on the build’s page once it is shipped.
+            </Txt>
+          </Section>
+          {formError ? (
+            <Notice tone="error" testID="build-error">
+              {formError}
+            </Notice>
+          ) : null}
+          <Button
+            label="Ship it"
+            busyLabel="Making travelers"
+            busy={formState.isSubmitting}
+            onPress={() => void submit()}
+            testID="submit-build"
+          />
+          <Txt variant="small" tone="faint">
+            Only parts with a published revision get a traveler.
+          </Txt>
+        </>
+      )}
     </Screen>
   );
 }

@@ -24,19 +24,44 @@ function DesignRow({ d, onPress }: { d: PartDesignSummary; onPress: () => void }
         `${d.partNumber} ${d.name}, ${partKindLabels[d.kind]}`,
         d.latest ? `latest revision ${d.latest.letter} ${statusWords[d.latest.status]}` : null,
         d.publishedLetter ? `builders get revision ${d.publishedLetter}` : 'not published',
-      ].filter(Boolean).join(', ')}
+      ]
+        .filter(Boolean)
+        .join(', ')}
       onPress={onPress}
       style={({ pressed }) => [styles.row, pressed && { backgroundColor: colors.accentSoft }]}
     >
       <View style={{ flex: 1 }}>
-        <Txt bold><Mono bold>{d.partNumber}</Mono> {d.name}</Txt>
+        <Txt bold>
+          <Mono bold>{d.partNumber}</Mono> {d.name}
+        </Txt>
         <Txt variant="small" tone="soft">
           {partKindLabels[d.kind]}
-          {d.latest ? <> · latest <Mono variant="small" bold>{d.latest.letter}</Mono> {statusWords[d.latest.status]}</> : null}
-          {d.publishedLetter ? <> · builders get <Mono variant="small" bold>{d.publishedLetter}</Mono></> : ' · not published'}
+          {d.latest ? (
+            <>
+              {' '}
+              · latest{' '}
+              <Mono variant="small" bold>
+                {d.latest.letter}
+              </Mono>{' '}
+              {statusWords[d.latest.status]}
+            </>
+          ) : null}
+          {d.publishedLetter ? (
+            <>
+              {' '}
+              · builders get{' '}
+              <Mono variant="small" bold>
+                {d.publishedLetter}
+              </Mono>
+            </>
+          ) : (
+            ' · not published'
+          )}
         </Txt>
       </View>
-      <Txt tone="accent" bold aria-hidden>›</Txt>
+      <Txt tone="accent" bold aria-hidden>
+        ›
+      </Txt>
     </Pressable>
   );
 }
@@ -53,22 +78,49 @@ function KitBlock({ kit }: { kit: KitModel }) {
       testID={`kit-${kit.code}`}
       aside={
         <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.xs }}>
-          <Button label="Kit model…" variant="quiet" compact onPress={() => router.push(`/catalogue/kits/${kit.id}`)} testID={`kit-page-${kit.code}`} />
-          <Button label="New part design" variant="quiet" compact onPress={() => router.push(`/catalogue/designs/new?kitModelId=${kit.id}`)} testID={`new-design-${kit.code}`} />
+          <Button
+            label="Kit model…"
+            variant="quiet"
+            compact
+            onPress={() => router.push(`/catalogue/kits/${kit.id}`)}
+            testID={`kit-page-${kit.code}`}
+          />
+          <Button
+            label="New part design"
+            variant="quiet"
+            compact
+            onPress={() => router.push(`/catalogue/designs/new?kitModelId=${kit.id}`)}
+            testID={`new-design-${kit.code}`}
+          />
         </View>
       }
     >
       <Txt variant="small" tone="soft">
-        <Mono variant="small">{u.mass(kit.weightLb)}</Mono> gross · wing <Mono variant="small">{u.area(kit.wingAreaSqFt)}</Mono> · stall <Mono variant="small">{kit.stallSpeedKeas} KEAS</Mono> · {kit.airfoil} · {kit.category}
+        <Mono variant="small">{u.mass(kit.weightLb)}</Mono> gross · wing{' '}
+        <Mono variant="small">{u.area(kit.wingAreaSqFt)}</Mono> · stall{' '}
+        <Mono variant="small">{kit.stallSpeedKeas} KEAS</Mono> · {kit.airfoil} · {kit.category}
       </Txt>
-      {q.isPending ? <LoadingState what={`Loading the part designs of ${kit.code}`} />
-        : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
-          : designs.length ? (
-            <View>
-              {designs.map((d) => <DesignRow key={d.id} d={d} onPress={() => router.push(`/catalogue/designs/${d.id}`)} />)}
-              <LoadMore hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage} shown={designs.length} what="part designs" testID={`designs-more-${kit.code}`} />
-            </View>
-          ) : <Txt tone="soft">No part designs yet.</Txt>}
+      {q.isPending ? (
+        <LoadingState what={`Loading the part designs of ${kit.code}`} />
+      ) : q.isError ? (
+        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+      ) : designs.length ? (
+        <View>
+          {designs.map((d) => (
+            <DesignRow key={d.id} d={d} onPress={() => router.push(`/catalogue/designs/${d.id}`)} />
+          ))}
+          <LoadMore
+            hasNextPage={q.hasNextPage}
+            isFetchingNextPage={q.isFetchingNextPage}
+            fetchNextPage={q.fetchNextPage}
+            shown={designs.length}
+            what="part designs"
+            testID={`designs-more-${kit.code}`}
+          />
+        </View>
+      ) : (
+        <Txt tone="soft">No part designs yet.</Txt>
+      )}
     </Section>
   );
 }
@@ -84,26 +136,55 @@ export function CatalogueScreen() {
       subtitle="Kit models and their part designs"
       account
       testID="catalogue-screen"
-      right={<Button label="New kit model" variant="secondary" compact onPress={() => router.push('/catalogue/new-kit')} testID="new-kit" />}
+      right={
+        <Button
+          label="New kit model"
+          variant="secondary"
+          compact
+          onPress={() => router.push('/catalogue/new-kit')}
+          testID="new-kit"
+        />
+      }
     >
-      {kits.isPending ? <LoadingState what="Loading the catalogue" />
-        : kits.isError ? <ErrorState error={kits.error} onRetry={() => void kits.refetch()} />
-          : !rows.length ? (
-            <EmptyState
-              title="No kit models yet."
-              body="Start with a kit model: its weight, wing and speeds. Then add the parts."
-              action={<Button label="New kit model" onPress={() => router.push('/catalogue/new-kit')} testID="new-kit-empty" />}
-            />
-          ) : (
-            <>
-              {rows.map((k) => <KitBlock key={k.id} kit={k} />)}
-              <LoadMore hasNextPage={kits.hasNextPage} isFetchingNextPage={kits.isFetchingNextPage} fetchNextPage={kits.fetchNextPage} shown={rows.length} what="kit models" testID="kits-more" />
-            </>
-          )}
+      {kits.isPending ? (
+        <LoadingState what="Loading the catalogue" />
+      ) : kits.isError ? (
+        <ErrorState error={kits.error} onRetry={() => void kits.refetch()} />
+      ) : !rows.length ? (
+        <EmptyState
+          title="No kit models yet."
+          body="Start with a kit model: its weight, wing and speeds. Then add the parts."
+          action={
+            <Button label="New kit model" onPress={() => router.push('/catalogue/new-kit')} testID="new-kit-empty" />
+          }
+        />
+      ) : (
+        <>
+          {rows.map((k) => (
+            <KitBlock key={k.id} kit={k} />
+          ))}
+          <LoadMore
+            hasNextPage={kits.hasNextPage}
+            isFetchingNextPage={kits.isFetchingNextPage}
+            fetchNextPage={kits.fetchNextPage}
+            shown={rows.length}
+            what="kit models"
+            testID="kits-more"
+          />
+        </>
+      )}
     </Screen>
   );
 }
 
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', alignItems: 'center', gap: space.md, minHeight: touch, paddingVertical: space.sm, borderBottomWidth: hairline, borderColor: colors.rule },
+  row: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.md,
+    minHeight: touch,
+    paddingVertical: space.sm,
+    borderBottomWidth: hairline,
+    borderColor: colors.rule,
+  },
 });

@@ -21,9 +21,14 @@ export function todayIso(now = new Date()): string {
   return `${now.getFullYear()}-${p(now.getMonth() + 1)}-${p(now.getDate())}`;
 }
 
-const blank = (): CouponInput => ({
-  material: '6061-T6', couponWidthIn: 1, rivetSpec: 'PULLED-4', testedOn: todayIso(), note: '',
-} as CouponInput);
+const blank = (): CouponInput =>
+  ({
+    material: '6061-T6',
+    couponWidthIn: 1,
+    rivetSpec: 'PULLED-4',
+    testedOn: todayIso(),
+    note: '',
+  }) as CouponInput;
 
 /**
  * Records one coupon test. After saving, the set-up (material, gauge, width, rivet, date) stays so a
@@ -39,25 +44,64 @@ export function CouponForm() {
     defaultValues: blank(),
   });
 
-  const submit = handleSubmit(async (v) => {
-    setMessage(null);
-    try {
-      const made = await create.mutateAsync(v);
-      reset({ material: made.material, gaugeIn: made.gaugeIn, couponWidthIn: made.couponWidthIn, rivetSpec: made.rivetSpec, testedOn: made.testedOn, note: '' } as CouponInput);
-      setMessage({ tone: 'ok', text: `Recorded: ${units.length(made.gaugeIn)} ${made.material} with ${made.rivetSpec} at ${units.force(made.loadLb)}, ${couponOutcomeLabels[made.outcome].toLowerCase()}.` });
-    } catch (e) {
-      setMessage({ tone: 'error', text: applyServerErrors(setError, e) });
-    }
-  }, () => setMessage({ tone: 'error', text: 'Some fields need a look: see the messages in red.' }));
+  const submit = handleSubmit(
+    async (v) => {
+      setMessage(null);
+      try {
+        const made = await create.mutateAsync(v);
+        reset({
+          material: made.material,
+          gaugeIn: made.gaugeIn,
+          couponWidthIn: made.couponWidthIn,
+          rivetSpec: made.rivetSpec,
+          testedOn: made.testedOn,
+          note: '',
+        } as CouponInput);
+        setMessage({
+          tone: 'ok',
+          text: `Recorded: ${units.length(made.gaugeIn)} ${made.material} with ${made.rivetSpec} at ${units.force(made.loadLb)}, ${couponOutcomeLabels[made.outcome].toLowerCase()}.`,
+        });
+      } catch (e) {
+        setMessage({ tone: 'error', text: applyServerErrors(setError, e) });
+      }
+    },
+    () => setMessage({ tone: 'error', text: 'Some fields need a look: see the messages in red.' }),
+  );
 
   return (
     <View style={{ gap: space.md }} testID="coupon-form">
-      <FormTextField control={control} name="material" label="Material" hint="e.g. 6061-T6" testID="coupon-material" autoCapitalize="characters" mono />
+      <FormTextField
+        control={control}
+        name="material"
+        label="Material"
+        hint="e.g. 6061-T6"
+        testID="coupon-material"
+        autoCapitalize="characters"
+        mono
+      />
       <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.md }}>
-        <View style={{ flexGrow: 1, flexBasis: 150 }}><FormNumberField control={control} name="gaugeIn" label="Gauge" quantity="length" testID="coupon-gauge" /></View>
-        <View style={{ flexGrow: 1, flexBasis: 150 }}><FormNumberField control={control} name="couponWidthIn" label="Coupon width" quantity="length" testID="coupon-width" /></View>
+        <View style={{ flexGrow: 1, flexBasis: 150 }}>
+          <FormNumberField control={control} name="gaugeIn" label="Gauge" quantity="length" testID="coupon-gauge" />
+        </View>
+        <View style={{ flexGrow: 1, flexBasis: 150 }}>
+          <FormNumberField
+            control={control}
+            name="couponWidthIn"
+            label="Coupon width"
+            quantity="length"
+            testID="coupon-width"
+          />
+        </View>
       </View>
-      <FormTextField control={control} name="rivetSpec" label="Rivet" hint="The callout, e.g. MS20470AD4 or PULLED-4" testID="coupon-rivet" autoCapitalize="characters" mono />
+      <FormTextField
+        control={control}
+        name="rivetSpec"
+        label="Rivet"
+        hint="The callout, e.g. MS20470AD4 or PULLED-4"
+        testID="coupon-rivet"
+        autoCapitalize="characters"
+        mono
+      />
       <FormNumberField control={control} name="loadLb" label="Applied load" quantity="force" testID="coupon-load" />
       <FormChoiceField
         control={control}
@@ -66,10 +110,34 @@ export function CouponForm() {
         testID="coupon-outcome"
         options={couponOutcomes.map((o) => ({ value: o, label: couponOutcomeLabels[o] }))}
       />
-      <FormTextField control={control} name="testedOn" label="Tested on" hint="Year-month-day, e.g. 2026-10-14" testID="coupon-date" mono />
-      <FormTextField control={control} name="note" label="Note (optional)" hint="What you saw: dimple, oval hole, head pulled in…" testID="coupon-note" multiline />
-      {message ? <Notice tone={message.tone} testID={message.tone === 'ok' ? 'coupon-saved' : 'coupon-error'}>{message.text}</Notice> : null}
-      <Button label="Record the test" busyLabel="Recording" busy={formState.isSubmitting} onPress={() => void submit()} testID="coupon-submit" />
+      <FormTextField
+        control={control}
+        name="testedOn"
+        label="Tested on"
+        hint="Year-month-day, e.g. 2026-10-14"
+        testID="coupon-date"
+        mono
+      />
+      <FormTextField
+        control={control}
+        name="note"
+        label="Note (optional)"
+        hint="What you saw: dimple, oval hole, head pulled in…"
+        testID="coupon-note"
+        multiline
+      />
+      {message ? (
+        <Notice tone={message.tone} testID={message.tone === 'ok' ? 'coupon-saved' : 'coupon-error'}>
+          {message.text}
+        </Notice>
+      ) : null}
+      <Button
+        label="Record the test"
+        busyLabel="Recording"
+        busy={formState.isSubmitting}
+        onPress={() => void submit()}
+        testID="coupon-submit"
+      />
     </View>
   );
 }

@@ -23,11 +23,24 @@ type Values = z.input<typeof newDesignSchema>;
 export function DesignCreateScreen({ kitModelId }: { kitModelId?: string }) {
   const kits = useKitsQuery();
   return (
-    <Screen title="New part design" subtitle="Revision A starts as a draft" backTo="/catalogue" testID="design-create-screen">
-      {kits.isPending ? <LoadingState what="Loading kit models" />
-        : kits.isError ? <ErrorState error={kits.error} onRetry={() => void kits.refetch()} />
-          : !kits.data.length ? <EmptyState title="Make a kit model first." body="Every part design belongs to a kit model." />
-            : <DesignForm kits={kits.data} kitModelId={kitModelId ?? (kits.data.length === 1 ? kits.data[0].id : undefined)} />}
+    <Screen
+      title="New part design"
+      subtitle="Revision A starts as a draft"
+      backTo="/catalogue"
+      testID="design-create-screen"
+    >
+      {kits.isPending ? (
+        <LoadingState what="Loading kit models" />
+      ) : kits.isError ? (
+        <ErrorState error={kits.error} onRetry={() => void kits.refetch()} />
+      ) : !kits.data.length ? (
+        <EmptyState title="Make a kit model first." body="Every part design belongs to a kit model." />
+      ) : (
+        <DesignForm
+          kits={kits.data}
+          kitModelId={kitModelId ?? (kits.data.length === 1 ? kits.data[0].id : undefined)}
+        />
+      )}
     </Screen>
   );
 }
@@ -45,15 +58,20 @@ function DesignForm({ kits, kitModelId }: { kits: { id: string; code: string; na
     },
   });
 
-  const submit = handleSubmit(async (values) => {
-    setFormError(null);
-    try {
-      const d = await create.mutateAsync(values);
-      router.replace(`/catalogue/designs/${d.id}`);
-    } catch (e) {
-      setFormError(applyServerErrors(setError, e, (p) => (p.startsWith('design.') || p.startsWith('revision.') ? p : null)));
-    }
-  }, () => setFormError('Some fields need a look: see the messages in red.'));
+  const submit = handleSubmit(
+    async (values) => {
+      setFormError(null);
+      try {
+        const d = await create.mutateAsync(values);
+        router.replace(`/catalogue/designs/${d.id}`);
+      } catch (e) {
+        setFormError(
+          applyServerErrors(setError, e, (p) => (p.startsWith('design.') || p.startsWith('revision.') ? p : null)),
+        );
+      }
+    },
+    () => setFormError('Some fields need a look: see the messages in red.'),
+  );
 
   return (
     <>
@@ -65,8 +83,21 @@ function DesignForm({ kits, kitModelId }: { kits: { id: string; code: string; na
           testID="design-kit"
           options={kits.map((k) => ({ value: k.id, key: k.code, label: `${k.code} · ${k.name}` }))}
         />
-        <FormTextField control={control} name="design.partNumber" label="Part number" testID="design-part-number" autoCapitalize="characters" mono />
-        <FormTextField control={control} name="design.name" label="Name" hint="e.g. Wing rib, station 42" testID="design-name" />
+        <FormTextField
+          control={control}
+          name="design.partNumber"
+          label="Part number"
+          testID="design-part-number"
+          autoCapitalize="characters"
+          mono
+        />
+        <FormTextField
+          control={control}
+          name="design.name"
+          label="Name"
+          hint="e.g. Wing rib, station 42"
+          testID="design-name"
+        />
         <FormChoiceField
           control={control}
           name="design.kind"
@@ -76,9 +107,21 @@ function DesignForm({ kits, kitModelId }: { kits: { id: string; code: string; na
         />
       </Section>
       <RevisionFields control={control} prefix="revision." />
-      {formError ? <Notice tone="error" testID="design-error">{formError}</Notice> : null}
-      <Button label="Save as draft revision A" busyLabel="Saving" busy={formState.isSubmitting} onPress={() => void submit()} testID="submit-design" />
-      <Txt variant="small" tone="faint">Nothing reaches builders until a revision is published.</Txt>
+      {formError ? (
+        <Notice tone="error" testID="design-error">
+          {formError}
+        </Notice>
+      ) : null}
+      <Button
+        label="Save as draft revision A"
+        busyLabel="Saving"
+        busy={formState.isSubmitting}
+        onPress={() => void submit()}
+        testID="submit-design"
+      />
+      <Txt variant="small" tone="faint">
+        Nothing reaches builders until a revision is published.
+      </Txt>
     </>
   );
 }

@@ -4,7 +4,16 @@ import { useState } from 'react';
 import { useForm, type Resolver } from 'react-hook-form';
 import { View } from 'react-native';
 import type { z } from 'zod';
-import { findingKindLabels, partKindLabels, publishWarning, revisionInput, type FindingKind, type PartDesignDetail, type Revision, type RevisionStatus } from '@/db/contracts';
+import {
+  findingKindLabels,
+  partKindLabels,
+  publishWarning,
+  revisionInput,
+  type FindingKind,
+  type PartDesignDetail,
+  type Revision,
+  type RevisionStatus,
+} from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
 import { FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
@@ -18,7 +27,11 @@ import { Mono, Txt } from '@/components/ui/text';
 import { errorMessage } from '@/lib/api-client';
 import { useSession } from '@/hooks/use-session';
 import {
-  useDesignFindingClustersQuery, useDesignQuery, useDesignRevisionCreateMutation, useDesignRevisionDiscardMutation, useDesignRevisionPublishMutation,
+  useDesignFindingClustersQuery,
+  useDesignQuery,
+  useDesignRevisionCreateMutation,
+  useDesignRevisionDiscardMutation,
+  useDesignRevisionPublishMutation,
   useDesignRevisionUpdateMutation,
 } from '@/hooks/queries/designs';
 import { shortDate } from '@/components/findings/finding-row';
@@ -26,7 +39,11 @@ import { revisionToInput, RevisionFields } from './revision-fields';
 import { ConfirmStep } from './confirm-step';
 import { RevisionView } from './revision-view';
 
-const statusWords: Record<RevisionStatus, string> = { draft: 'Draft', published: 'Published', superseded: 'Superseded' };
+const statusWords: Record<RevisionStatus, string> = {
+  draft: 'Draft',
+  published: 'Published',
+  superseded: 'Superseded',
+};
 
 type RevValues = z.input<typeof revisionInput>;
 type RevOut = z.output<typeof revisionInput>;
@@ -37,24 +54,47 @@ const baseResolver = zodResolver(revisionInput, plainParse);
 const newRevisionResolver: Resolver<RevValues, unknown, RevOut> = async (values, ctx, opts) => {
   const r = await baseResolver(values, ctx, opts);
   if ((values.changeNote ?? '').trim().length < 3) {
-    return { values: {}, errors: { ...r.errors, changeNote: { type: 'custom', message: 'say what changed and why, in a few words' } } };
+    return {
+      values: {},
+      errors: { ...r.errors, changeNote: { type: 'custom', message: 'say what changed and why, in a few words' } },
+    };
   }
   return r;
 };
 
 export function DesignScreen({ designId }: { designId: string }) {
   const q = useDesignQuery(designId);
-  if (q.isPending) return <Screen title="Part design" backTo="/catalogue"><LoadingState what="Loading the design" /></Screen>;
-  if (q.isError) return <Screen title="Part design" backTo="/catalogue"><ErrorState error={q.error} onRetry={() => void q.refetch()} /></Screen>;
+  if (q.isPending)
+    return (
+      <Screen title="Part design" backTo="/catalogue">
+        <LoadingState what="Loading the design" />
+      </Screen>
+    );
+  if (q.isError)
+    return (
+      <Screen title="Part design" backTo="/catalogue">
+        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+      </Screen>
+    );
   return <DesignBody d={q.data} />;
 }
 
 function RevisionHead({ r }: { r: Revision }) {
   return (
     <View style={{ flexDirection: 'row', gap: space.sm, alignItems: 'baseline', flexWrap: 'wrap' }}>
-      <Mono bold variant="title">{r.letter}</Mono>
-      <Txt bold tone={r.status === 'published' ? 'accent' : r.status === 'draft' ? 'caution' : 'faint'} testID={`revision-${r.letter}-status`}>{statusWords[r.status]}</Txt>
-      <Txt variant="small" tone="soft">made {shortDate(r.createdAt)}</Txt>
+      <Mono bold variant="title">
+        {r.letter}
+      </Mono>
+      <Txt
+        bold
+        tone={r.status === 'published' ? 'accent' : r.status === 'draft' ? 'caution' : 'faint'}
+        testID={`revision-${r.letter}-status`}
+      >
+        {statusWords[r.status]}
+      </Txt>
+      <Txt variant="small" tone="soft">
+        made {shortDate(r.createdAt)}
+      </Txt>
     </View>
   );
 }
@@ -72,24 +112,41 @@ function DesignBody({ d }: { d: PartDesignDetail }) {
       backTo="/catalogue"
       testID="design-screen"
     >
-      <Button label={`Kit model: ${d.kitName}`} variant="quiet" compact onPress={() => router.push(`/catalogue/kits/${d.kitModelId}`)} testID="open-kit" />
+      <Button
+        label={`Kit model: ${d.kitName}`}
+        variant="quiet"
+        compact
+        onPress={() => router.push(`/catalogue/kits/${d.kitModelId}`)}
+        testID="open-kit"
+      />
       {draft ? <DraftEditor designId={d.id} r={draft} /> : null}
       {!draft && !making ? (
-        <Button label="Start a new revision" variant="secondary" onPress={() => setMaking(true)} testID="new-revision" />
+        <Button
+          label="Start a new revision"
+          variant="secondary"
+          onPress={() => setMaking(true)}
+          testID="new-revision"
+        />
       ) : null}
-      {!draft && making ? <NewRevisionForm designId={d.id} from={published ?? revisions[0]} onDone={() => setMaking(false)} /> : null}
-      {revisions.filter((r) => r.status !== 'draft').map((r) => (
-        <Sheet key={r.id} testID={`revision-${r.letter}`}>
-          <RevisionHead r={r} />
-          <Txt testID={`revision-${r.letter}-approved`}>
-            {r.publishedAt ? `Published ${shortDate(r.publishedAt)}` : ''}
-            {r.publishedByName ? ` · approved by ${r.publishedByName}` : ''}
-          </Txt>
-          {r.changeNote ? <Txt tone="soft">Change: “{r.changeNote}”</Txt> : null}
-          <Txt variant="small" tone="faint">A published revision is frozen. Changes go into a new revision.</Txt>
-          <RevisionView r={r} />
-        </Sheet>
-      ))}
+      {!draft && making ? (
+        <NewRevisionForm designId={d.id} from={published ?? revisions[0]} onDone={() => setMaking(false)} />
+      ) : null}
+      {revisions
+        .filter((r) => r.status !== 'draft')
+        .map((r) => (
+          <Sheet key={r.id} testID={`revision-${r.letter}`}>
+            <RevisionHead r={r} />
+            <Txt testID={`revision-${r.letter}-approved`}>
+              {r.publishedAt ? `Published ${shortDate(r.publishedAt)}` : ''}
+              {r.publishedByName ? ` · approved by ${r.publishedByName}` : ''}
+            </Txt>
+            {r.changeNote ? <Txt tone="soft">Change: “{r.changeNote}”</Txt> : null}
+            <Txt variant="small" tone="faint">
+              A published revision is frozen. Changes go into a new revision.
+            </Txt>
+            <RevisionView r={r} />
+          </Sheet>
+        ))}
       <FindingClusters designId={d.id} />
       <Caution />
     </Screen>
@@ -101,20 +158,33 @@ function FindingClusters({ designId }: { designId: string }) {
   const q = useDesignFindingClustersQuery(designId);
   return (
     <Section title="Findings across builds" testID="finding-clusters">
-      {q.isPending ? <LoadingState what="Counting findings across builds" />
-        : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
-          : q.data.length === 0 ? <EmptyState title="No findings on this part in any build yet." />
-            : q.data.map((c) => (
-              <View key={`${c.letter}-${c.holeId}`} style={{ paddingVertical: space.sm, borderBottomWidth: hairline, borderColor: colors.rule }} testID={`cluster-${c.letter}-${c.holeId}`}>
-                <Txt>
-                  <Mono bold>{c.holeId}</Mono> · rev <Mono>{c.letter}</Mono> · <Txt bold>{c.count}</Txt> finding{c.count === 1 ? '' : 's'} in {c.builds} build{c.builds === 1 ? '' : 's'}
-                  {c.open ? <Txt tone="caution"> · {c.open} open</Txt> : null}
-                </Txt>
-                <Txt variant="small" tone="soft">
-                  {Object.entries(c.kinds).map(([k, n]) => `${findingKindLabels[k as FindingKind]} ×${n}`).join(' · ')} · last {shortDate(c.lastAt)}
-                </Txt>
-              </View>
-            ))}
+      {q.isPending ? (
+        <LoadingState what="Counting findings across builds" />
+      ) : q.isError ? (
+        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+      ) : q.data.length === 0 ? (
+        <EmptyState title="No findings on this part in any build yet." />
+      ) : (
+        q.data.map((c) => (
+          <View
+            key={`${c.letter}-${c.holeId}`}
+            style={{ paddingVertical: space.sm, borderBottomWidth: hairline, borderColor: colors.rule }}
+            testID={`cluster-${c.letter}-${c.holeId}`}
+          >
+            <Txt>
+              <Mono bold>{c.holeId}</Mono> · rev <Mono>{c.letter}</Mono> · <Txt bold>{c.count}</Txt> finding
+              {c.count === 1 ? '' : 's'} in {c.builds} build{c.builds === 1 ? '' : 's'}
+              {c.open ? <Txt tone="caution"> · {c.open} open</Txt> : null}
+            </Txt>
+            <Txt variant="small" tone="soft">
+              {Object.entries(c.kinds)
+                .map(([k, n]) => `${findingKindLabels[k as FindingKind]} ×${n}`)
+                .join(' · ')}{' '}
+              · last {shortDate(c.lastAt)}
+            </Txt>
+          </View>
+        ))
+      )}
     </Section>
   );
 }
@@ -148,7 +218,12 @@ function DraftEditor({ designId, r }: { designId: string; r: Revision }) {
     }
   };
 
-  const onSave = handleSubmit(async (v) => { await save(v); }, () => setFormError('Some fields need a look: see the messages in red.'));
+  const onSave = handleSubmit(
+    async (v) => {
+      await save(v);
+    },
+    () => setFormError('Some fields need a look: see the messages in red.'),
+  );
 
   const onPublish = async () => {
     setFormError(null);
@@ -162,7 +237,12 @@ function DraftEditor({ designId, r }: { designId: string; r: Revision }) {
     };
     if (formState.isDirty) {
       // Publish what is on screen: save the edits first.
-      await handleSubmit(async (v) => { if (await save(v)) await go(); }, () => setFormError('Fix the marked fields before publishing.'))();
+      await handleSubmit(
+        async (v) => {
+          if (await save(v)) await go();
+        },
+        () => setFormError('Fix the marked fields before publishing.'),
+      )();
     } else {
       await go();
     }
@@ -183,7 +263,16 @@ function DraftEditor({ designId, r }: { designId: string; r: Revision }) {
         <RevisionHead r={r} />
         <Txt>This draft can still change. Builders see nothing of it until it is published.</Txt>
         {may('discard') && asking !== 'discard' ? (
-          <Button label="Discard this draft…" variant="secondary" compact onPress={() => { setAsking('discard'); setFormError(null); }} testID="discard-draft" />
+          <Button
+            label="Discard this draft…"
+            variant="secondary"
+            compact
+            onPress={() => {
+              setAsking('discard');
+              setFormError(null);
+            }}
+            testID="discard-draft"
+          />
         ) : null}
         {asking === 'discard' ? (
           <ConfirmStep
@@ -199,14 +288,43 @@ function DraftEditor({ designId, r }: { designId: string; r: Revision }) {
         ) : null}
       </Sheet>
       <RevisionFields control={control} />
-      <FormTextField control={control} name="changeNote" label="Change note" hint="What changed from the last revision, and why." testID="rev-change-note" multiline />
-      {formError ? <Notice tone="error" testID="revision-error">{formError}</Notice> : null}
-      {saved && !formState.isDirty ? <Notice tone="ok" testID="draft-saved">Draft saved.</Notice> : null}
-      {may('edit') ? <Button label="Save draft" variant="secondary" busy={update.isPending && !publish.isPending} onPress={() => void onSave()} testID="save-draft" /> : null}
+      <FormTextField
+        control={control}
+        name="changeNote"
+        label="Change note"
+        hint="What changed from the last revision, and why."
+        testID="rev-change-note"
+        multiline
+      />
+      {formError ? (
+        <Notice tone="error" testID="revision-error">
+          {formError}
+        </Notice>
+      ) : null}
+      {saved && !formState.isDirty ? (
+        <Notice tone="ok" testID="draft-saved">
+          Draft saved.
+        </Notice>
+      ) : null}
+      {may('edit') ? (
+        <Button
+          label="Save draft"
+          variant="secondary"
+          busy={update.isPending && !publish.isPending}
+          onPress={() => void onSave()}
+          testID="save-draft"
+        />
+      ) : null}
       {may('publish') ? (
         <Section title={`Publish revision ${r.letter}`}>
-          <Txt>Publishing freezes this revision. New builds get travelers made from it; unfinished travelers of an older revision show a notice.</Txt>
-          <Txt testID="approver">Publishing is your approval: every traveler made from revision {r.letter} names {user?.name ?? 'you'} as the approver.</Txt>
+          <Txt>
+            Publishing freezes this revision. New builds get travelers made from it; unfinished travelers of an older
+            revision show a notice.
+          </Txt>
+          <Txt testID="approver">
+            Publishing is your approval: every traveler made from revision {r.letter} names {user?.name ?? 'you'} as the
+            approver.
+          </Txt>
           <View style={{ borderTopWidth: hairline, borderColor: colors.rule }} />
           {asking === 'publish' ? (
             <ConfirmStep
@@ -218,7 +336,14 @@ function DraftEditor({ designId, r }: { designId: string; r: Revision }) {
               onCancel={() => setAsking(null)}
             />
           ) : (
-            <Button label={`Publish revision ${r.letter}…`} onPress={() => { setAsking('publish'); setFormError(null); }} testID="publish" />
+            <Button
+              label={`Publish revision ${r.letter}…`}
+              onPress={() => {
+                setAsking('publish');
+                setFormError(null);
+              }}
+              testID="publish"
+            />
           )}
         </Section>
       ) : null}
@@ -234,23 +359,47 @@ function NewRevisionForm({ designId, from, onDone }: { designId: string; from?: 
     mode: 'onChange',
     defaultValues: from ? revisionToInput(from) : undefined,
   });
-  const submit = handleSubmit(async (v) => {
-    setFormError(null);
-    try {
-      await create.mutateAsync(v);
-      onDone();
-    } catch (e) {
-      setFormError(applyServerErrors(setError, e));
-    }
-  }, () => setFormError('Some fields need a look: see the messages in red.'));
+  const submit = handleSubmit(
+    async (v) => {
+      setFormError(null);
+      try {
+        await create.mutateAsync(v);
+        onDone();
+      } catch (e) {
+        setFormError(applyServerErrors(setError, e));
+      }
+    },
+    () => setFormError('Some fields need a look: see the messages in red.'),
+  );
   return (
     <View style={{ gap: space.xl }} testID="new-revision-form">
-      <Notice>{from ? `The new revision starts as a copy of revision ${from.letter}.` : 'The part has no revision yet: fill in the new one.'} It stays a draft until you publish it.</Notice>
-      <FormTextField control={control} name="changeNote" label="Change note" hint="What changes, and why (required)." testID="rev-change-note" multiline />
+      <Notice>
+        {from
+          ? `The new revision starts as a copy of revision ${from.letter}.`
+          : 'The part has no revision yet: fill in the new one.'}{' '}
+        It stays a draft until you publish it.
+      </Notice>
+      <FormTextField
+        control={control}
+        name="changeNote"
+        label="Change note"
+        hint="What changes, and why (required)."
+        testID="rev-change-note"
+        multiline
+      />
       <RevisionFields control={control} />
-      {formError ? <Notice tone="error" testID="revision-error">{formError}</Notice> : null}
+      {formError ? (
+        <Notice tone="error" testID="revision-error">
+          {formError}
+        </Notice>
+      ) : null}
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-        <Button label="Make the draft" busy={formState.isSubmitting} onPress={() => void submit()} testID="submit-new-revision" />
+        <Button
+          label="Make the draft"
+          busy={formState.isSubmitting}
+          onPress={() => void submit()}
+          testID="submit-new-revision"
+        />
         <Button label="Cancel" variant="quiet" onPress={onDone} testID="cancel-new-revision" />
       </View>
     </View>

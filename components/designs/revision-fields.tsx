@@ -16,8 +16,16 @@ import { Mono, Txt } from '@/components/ui/text';
  */
 type Props = { control: unknown; prefix?: '' | 'revision.' };
 
-export const emptyLine = (code: string, name: string, surface: 'upper' | 'lower' | 'flat'): RevisionInput['lines'][number] => ({
-  code, name, surface, startIn: 0, lengthIn: undefined as unknown as number,
+export const emptyLine = (
+  code: string,
+  name: string,
+  surface: 'upper' | 'lower' | 'flat',
+): RevisionInput['lines'][number] => ({
+  code,
+  name,
+  surface,
+  startIn: 0,
+  lengthIn: undefined as unknown as number,
   zones: [{ fromIn: 0, toIn: undefined as unknown as number, pitchIn: undefined as unknown as number }],
 });
 
@@ -37,10 +45,16 @@ export const emptyRevision = (): RevisionInput => ({
 /** A published revision's body as the start of the next one. */
 export function revisionToInput(r: RevisionInput): RevisionInput {
   return {
-    material: r.material, gaugeIn: r.gaugeIn, rivetSpec: r.rivetSpec, drillSize: r.drillSize, drillDiameterIn: r.drillDiameterIn,
-    edgeDistanceIn: r.edgeDistanceIn, chordIn: r.chordIn,
+    material: r.material,
+    gaugeIn: r.gaugeIn,
+    rivetSpec: r.rivetSpec,
+    drillSize: r.drillSize,
+    drillDiameterIn: r.drillDiameterIn,
+    edgeDistanceIn: r.edgeDistanceIn,
+    chordIn: r.chordIn,
     lines: r.lines.map((l) => ({ ...l, zones: l.zones.map((z) => ({ ...z })) })),
-    steps: [...(r.steps ?? [])], changeNote: '',
+    steps: [...(r.steps ?? [])],
+    changeNote: '',
   };
 }
 
@@ -52,18 +66,54 @@ function ZonesEditor({ control, base, lineIndex }: { control: Control<any>; base
   const formState = useFormState({ control, name });
   return (
     <View style={{ gap: space.sm }}>
-      <Txt variant="small" bold>Pitch zones (stations from the line’s start)</Txt>
+      <Txt variant="small" bold>
+        Pitch zones (stations from the line’s start)
+      </Txt>
       {zones.fields.map((z, j) => (
         <View key={z.id} style={styles.zone} testID={`line-${lineIndex}-zone-${j}`}>
-          <View style={styles.zoneCell}><FormNumberField control={control} name={`${name}.${j}.fromIn`} label="From" quantity="length" testID={`line-${lineIndex}-zone-${j}-from`} /></View>
-          <View style={styles.zoneCell}><FormNumberField control={control} name={`${name}.${j}.toIn`} label="To" quantity="length" testID={`line-${lineIndex}-zone-${j}-to`} /></View>
-          <View style={styles.zoneCell}><FormNumberField control={control} name={`${name}.${j}.pitchIn`} label="Pitch" quantity="length" testID={`line-${lineIndex}-zone-${j}-pitch`} /></View>
+          <View style={styles.zoneCell}>
+            <FormNumberField
+              control={control}
+              name={`${name}.${j}.fromIn`}
+              label="From"
+              quantity="length"
+              testID={`line-${lineIndex}-zone-${j}-from`}
+            />
+          </View>
+          <View style={styles.zoneCell}>
+            <FormNumberField
+              control={control}
+              name={`${name}.${j}.toIn`}
+              label="To"
+              quantity="length"
+              testID={`line-${lineIndex}-zone-${j}-to`}
+            />
+          </View>
+          <View style={styles.zoneCell}>
+            <FormNumberField
+              control={control}
+              name={`${name}.${j}.pitchIn`}
+              label="Pitch"
+              quantity="length"
+              testID={`line-${lineIndex}-zone-${j}-pitch`}
+            />
+          </View>
           {zones.fields.length > 1 ? (
-            <Button label="Remove" variant="quiet" compact onPress={() => zones.remove(j)} testID={`line-${lineIndex}-zone-${j}-remove`} />
+            <Button
+              label="Remove"
+              variant="quiet"
+              compact
+              onPress={() => zones.remove(j)}
+              testID={`line-${lineIndex}-zone-${j}-remove`}
+            />
           ) : null}
         </View>
       ))}
-      {errorAt(formState.errors, name) ? <Txt variant="small" tone="error">{errorAt(formState.errors, name)}</Txt> : null}
+      {errorAt(formState.errors, name) ? (
+        <Txt variant="small" tone="error">
+          {errorAt(formState.errors, name)}
+        </Txt>
+      ) : null}
       <Button
         label="Add a zone"
         variant="secondary"
@@ -87,7 +137,8 @@ function StepsEditor({ control, name }: { control: Control<any>; name: string })
       name={name}
       render={({ field, fieldState }) => {
         const steps: string[] = field.value ?? [];
-        const errs = fieldState.error as unknown as (Record<number, { message?: string }> & { message?: string }) | undefined;
+        const errs = fieldState.error as unknown as
+          (Record<number, { message?: string }> & { message?: string }) | undefined;
         return (
           <View style={{ gap: space.sm }} testID="steps-editor">
             {steps.map((s, i) => (
@@ -101,12 +152,29 @@ function StepsEditor({ control, name }: { control: Control<any>; name: string })
                     onChangeText={(t) => field.onChange(steps.map((x, j) => (j === i ? t : x)))}
                     invalid={!!errs?.[i]}
                   />
-                  <Button label="Remove" variant="quiet" compact onPress={() => field.onChange(steps.filter((_, j) => j !== i))} testID={`step-text-${i}-remove`} />
+                  <Button
+                    label="Remove"
+                    variant="quiet"
+                    compact
+                    onPress={() => field.onChange(steps.filter((_, j) => j !== i))}
+                    testID={`step-text-${i}-remove`}
+                  />
                 </View>
               </Field>
             ))}
-            {errs?.message ? <Txt variant="small" tone="error">{errs.message}</Txt> : null}
-            <Button label="Add a step" variant="secondary" compact onPress={() => field.onChange([...steps, ''])} testID="add-step" style={{ alignSelf: 'flex-start' }} />
+            {errs?.message ? (
+              <Txt variant="small" tone="error">
+                {errs.message}
+              </Txt>
+            ) : null}
+            <Button
+              label="Add a step"
+              variant="secondary"
+              compact
+              onPress={() => field.onChange([...steps, ''])}
+              testID="add-step"
+              style={{ alignSelf: 'flex-start' }}
+            />
           </View>
         );
       }}
@@ -117,7 +185,11 @@ function StepsEditor({ control, name }: { control: Control<any>; name: string })
 function LinesError({ control, name }: { control: Control<any>; name: string }) {
   const { errors } = useFormState({ control, name });
   const msg = errorAt(errors, name);
-  return msg ? <Txt variant="small" tone="error" testID="lines-error">{msg}</Txt> : null;
+  return msg ? (
+    <Txt variant="small" tone="error" testID="lines-error">
+      {msg}
+    </Txt>
+  ) : null;
 }
 
 export function RevisionFields({ control: anyControl, prefix = '' }: Props) {
@@ -127,39 +199,132 @@ export function RevisionFields({ control: anyControl, prefix = '' }: Props) {
   return (
     <>
       <Section title="Sheet and fastener">
-        <FormTextField control={control} name={`${p}material`} label="Material" hint="e.g. 2024-T3 or 6061-T6" testID="rev-material" />
+        <FormTextField
+          control={control}
+          name={`${p}material`}
+          label="Material"
+          hint="e.g. 2024-T3 or 6061-T6"
+          testID="rev-material"
+        />
         <View style={styles.pair}>
-          <View style={styles.cell}><FormNumberField control={control} name={`${p}gaugeIn`} label="Gauge" quantity="length" testID="rev-gauge" /></View>
-          <View style={styles.cell}><FormNumberField control={control} name={`${p}chordIn`} label="Chord" quantity="length" testID="rev-chord" /></View>
+          <View style={styles.cell}>
+            <FormNumberField
+              control={control}
+              name={`${p}gaugeIn`}
+              label="Gauge"
+              quantity="length"
+              testID="rev-gauge"
+            />
+          </View>
+          <View style={styles.cell}>
+            <FormNumberField
+              control={control}
+              name={`${p}chordIn`}
+              label="Chord"
+              quantity="length"
+              testID="rev-chord"
+            />
+          </View>
         </View>
-        <FormTextField control={control} name={`${p}rivetSpec`} label="Rivet callout" hint="e.g. MS20470AD4-4" testID="rev-rivet" autoCapitalize="characters" mono />
+        <FormTextField
+          control={control}
+          name={`${p}rivetSpec`}
+          label="Rivet callout"
+          hint="e.g. MS20470AD4-4"
+          testID="rev-rivet"
+          autoCapitalize="characters"
+          mono
+        />
         <View style={styles.pair}>
-          <View style={styles.cell}><FormTextField control={control} name={`${p}drillSize`} label="Drill size" hint="e.g. #30" testID="rev-drill-size" mono /></View>
-          <View style={styles.cell}><FormNumberField control={control} name={`${p}drillDiameterIn`} label="Drill diameter" quantity="length" testID="rev-drill-diameter" /></View>
+          <View style={styles.cell}>
+            <FormTextField
+              control={control}
+              name={`${p}drillSize`}
+              label="Drill size"
+              hint="e.g. #30"
+              testID="rev-drill-size"
+              mono
+            />
+          </View>
+          <View style={styles.cell}>
+            <FormNumberField
+              control={control}
+              name={`${p}drillDiameterIn`}
+              label="Drill diameter"
+              quantity="length"
+              testID="rev-drill-diameter"
+            />
+          </View>
         </View>
-        <FormNumberField control={control} name={`${p}edgeDistanceIn`} label="Edge distance" quantity="length" testID="rev-edge-distance" />
+        <FormNumberField
+          control={control}
+          name={`${p}edgeDistanceIn`}
+          label="Edge distance"
+          quantity="length"
+          testID="rev-edge-distance"
+        />
       </Section>
       <Section title="Fastener lines">
         {lines.fields.map((l, i) => (
           <View key={l.id} style={styles.line} testID={`line-${i}`}>
             <View style={styles.lineHead}>
               <Mono bold>Line {i + 1}</Mono>
-              {lines.fields.length > 1 ? <Button label="Remove line" variant="quiet" compact onPress={() => lines.remove(i)} testID={`line-${i}-remove`} /> : null}
+              {lines.fields.length > 1 ? (
+                <Button
+                  label="Remove line"
+                  variant="quiet"
+                  compact
+                  onPress={() => lines.remove(i)}
+                  testID={`line-${i}-remove`}
+                />
+              ) : null}
             </View>
             <View style={styles.pair}>
-              <View style={{ width: 110 }}><FormTextField control={control} name={`${p}lines.${i}.code`} label="Code" testID={`line-${i}-code`} autoCapitalize="characters" mono maxLength={3} /></View>
-              <View style={styles.cell}><FormTextField control={control} name={`${p}lines.${i}.name`} label="Name" testID={`line-${i}-name`} /></View>
+              <View style={{ width: 110 }}>
+                <FormTextField
+                  control={control}
+                  name={`${p}lines.${i}.code`}
+                  label="Code"
+                  testID={`line-${i}-code`}
+                  autoCapitalize="characters"
+                  mono
+                  maxLength={3}
+                />
+              </View>
+              <View style={styles.cell}>
+                <FormTextField control={control} name={`${p}lines.${i}.name`} label="Name" testID={`line-${i}-name`} />
+              </View>
             </View>
             <FormChoiceField
               control={control}
               name={`${p}lines.${i}.surface`}
               label="Runs along"
               testID={`line-${i}-surface`}
-              options={[{ value: 'upper', label: 'Upper surface' }, { value: 'lower', label: 'Lower surface' }, { value: 'flat', label: 'Flat' }]}
+              options={[
+                { value: 'upper', label: 'Upper surface' },
+                { value: 'lower', label: 'Lower surface' },
+                { value: 'flat', label: 'Flat' },
+              ]}
             />
             <View style={styles.pair}>
-              <View style={styles.cell}><FormNumberField control={control} name={`${p}lines.${i}.startIn`} label="Starts aft of leading edge" quantity="length" testID={`line-${i}-start`} /></View>
-              <View style={styles.cell}><FormNumberField control={control} name={`${p}lines.${i}.lengthIn`} label="Length" quantity="length" testID={`line-${i}-length`} /></View>
+              <View style={styles.cell}>
+                <FormNumberField
+                  control={control}
+                  name={`${p}lines.${i}.startIn`}
+                  label="Starts aft of leading edge"
+                  quantity="length"
+                  testID={`line-${i}-start`}
+                />
+              </View>
+              <View style={styles.cell}>
+                <FormNumberField
+                  control={control}
+                  name={`${p}lines.${i}.lengthIn`}
+                  label="Length"
+                  quantity="length"
+                  testID={`line-${i}-length`}
+                />
+              </View>
             </View>
             <ZonesEditor control={control} base={p} lineIndex={i} />
           </View>
@@ -184,7 +349,13 @@ export function RevisionFields({ control: anyControl, prefix = '' }: Props) {
 const styles = StyleSheet.create({
   pair: { flexDirection: 'row', gap: space.md, flexWrap: 'wrap' },
   cell: { flex: 1, minWidth: 150 },
-  line: { gap: space.md, borderWidth: hairline, borderColor: colors.ruleStrong, padding: space.md, backgroundColor: colors.paperRaised },
+  line: {
+    gap: space.md,
+    borderWidth: hairline,
+    borderColor: colors.ruleStrong,
+    padding: space.md,
+    backgroundColor: colors.paperRaised,
+  },
   lineHead: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between' },
   zone: { flexDirection: 'row', gap: space.sm, alignItems: 'flex-start', flexWrap: 'wrap' },
   zoneCell: { flex: 1, minWidth: 90 },

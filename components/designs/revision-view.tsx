@@ -12,16 +12,32 @@ export function RevisionView({ r }: { r: Revision }) {
   return (
     <View style={{ gap: space.md }} testID={`revision-view-${r.letter}`}>
       <KeyValue label="Material">{r.material}</KeyValue>
-      <KeyValue label="Gauge"><Mono bold>{u.length(r.gaugeIn)}</Mono></KeyValue>
-      <KeyValue label="Rivet"><Mono bold>{r.rivetSpec}</Mono></KeyValue>
-      <KeyValue label="Drill"><Mono bold>{r.drillSize} · ⌀ {u.length(r.drillDiameterIn)}</Mono></KeyValue>
-      <KeyValue label="Edge distance"><Mono bold>{u.length(r.edgeDistanceIn)}</Mono></KeyValue>
-      <KeyValue label="Chord"><Mono>{u.length(r.chordIn)}</Mono></KeyValue>
+      <KeyValue label="Gauge">
+        <Mono bold>{u.length(r.gaugeIn)}</Mono>
+      </KeyValue>
+      <KeyValue label="Rivet">
+        <Mono bold>{r.rivetSpec}</Mono>
+      </KeyValue>
+      <KeyValue label="Drill">
+        <Mono bold>
+          {r.drillSize} · ⌀ {u.length(r.drillDiameterIn)}
+        </Mono>
+      </KeyValue>
+      <KeyValue label="Edge distance">
+        <Mono bold>{u.length(r.edgeDistanceIn)}</Mono>
+      </KeyValue>
+      <KeyValue label="Chord">
+        <Mono>{u.length(r.chordIn)}</Mono>
+      </KeyValue>
       <ZonesTable lines={r.lines} />
       {r.steps.length ? (
         <View style={{ gap: space.xs }}>
           <Txt bold>Shop steps</Txt>
-          {r.steps.map((s, i) => <Txt key={i}><Mono>{i + 1}.</Mono> {s}</Txt>)}
+          {r.steps.map((s, i) => (
+            <Txt key={i}>
+              <Mono>{i + 1}.</Mono> {s}
+            </Txt>
+          ))}
         </View>
       ) : null}
     </View>

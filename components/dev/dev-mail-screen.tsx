@@ -13,11 +13,17 @@ function Message({ m, open, onToggle }: { m: DevMail; open: boolean; onToggle: (
   const inline = m.attachments.filter((a) => a.cid);
   return (
     <View style={styles.msg} testID={`mail-${m.id}`}>
-      <Txt bold testID="mail-subject">{m.subject}</Txt>
-      <Txt variant="small" tone="soft">To <Mono variant="small">{m.to.join(', ')}</Mono> · from <Mono variant="small">{m.from}</Mono> · {shortDate(m.receivedAt)}</Txt>
+      <Txt bold testID="mail-subject">
+        {m.subject}
+      </Txt>
+      <Txt variant="small" tone="soft">
+        To <Mono variant="small">{m.to.join(', ')}</Mono> · from <Mono variant="small">{m.from}</Mono> ·{' '}
+        {shortDate(m.receivedAt)}
+      </Txt>
       {m.attachments.length ? (
         <Txt variant="small" tone="soft" testID="mail-parts">
-          {m.attachments.length} attached{inline.length ? `, ${inline.length} shown inline (${inline.map((a) => `cid:${a.cid}`).join(', ')})` : ''}
+          {m.attachments.length} attached
+          {inline.length ? `, ${inline.length} shown inline (${inline.map((a) => `cid:${a.cid}`).join(', ')})` : ''}
         </Txt>
       ) : null}
       {m.html ? (
@@ -30,7 +36,13 @@ function Message({ m, open, onToggle }: { m: DevMail; open: boolean; onToggle: (
           style={{ alignSelf: 'flex-start' }}
         />
       ) : null}
-      {open && m.html ? <MailHtml html={m.previewHtml} title={m.subject} /> : <Mono variant="small" wrap style={styles.body}>{m.text}</Mono>}
+      {open && m.html ? (
+        <MailHtml html={m.previewHtml} title={m.subject} />
+      ) : (
+        <Mono variant="small" wrap style={styles.body}>
+          {m.text}
+        </Mono>
+      )}
     </View>
   );
 }
@@ -43,19 +55,32 @@ export function DevMailScreen() {
   const rows = [...(q.data ?? [])].sort((a, b) => b.receivedAt.localeCompare(a.receivedAt));
   const isOpen = (m: DevMail, i: number) => toggled[m.id] ?? i === 0;
   return (
-    <Screen title="Mail received" subtitle="Development only: messages the local mail catcher took in" scroll={false} testID="dev-mail-screen">
-      {q.isPending ? <LoadingState what="Loading mail" />
-        : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
-          : (
-            <FlatList
-              data={rows}
-              keyExtractor={(m) => m.id}
-              renderItem={({ item, index }) => (
-                <Message m={item} open={isOpen(item, index)} onToggle={() => setToggled((t) => ({ ...t, [item.id]: !isOpen(item, index) }))} />
-              )}
-              ListEmptyComponent={<EmptyState title="No mail yet." body="Flag a hole or disposition a finding, and the message shows here." />}
+    <Screen
+      title="Mail received"
+      subtitle="Development only: messages the local mail catcher took in"
+      scroll={false}
+      testID="dev-mail-screen"
+    >
+      {q.isPending ? (
+        <LoadingState what="Loading mail" />
+      ) : q.isError ? (
+        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+      ) : (
+        <FlatList
+          data={rows}
+          keyExtractor={(m) => m.id}
+          renderItem={({ item, index }) => (
+            <Message
+              m={item}
+              open={isOpen(item, index)}
+              onToggle={() => setToggled((t) => ({ ...t, [item.id]: !isOpen(item, index) }))}
             />
           )}
+          ListEmptyComponent={
+            <EmptyState title="No mail yet." body="Flag a hole or disposition a finding, and the message shows here." />
+          }
+        />
+      )}
     </Screen>
   );
 }

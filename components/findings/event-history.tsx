@@ -1,7 +1,14 @@
 import { Image, Pressable, StyleSheet, View } from 'react-native';
 import {
-  buildPlaceLabels, dispositionLabels, findingActionLabels, findingActions, findingStatusLabels,
-  type FindingAction, type FindingEvent, type FindingEventAction, type FindingPhoto,
+  buildPlaceLabels,
+  dispositionLabels,
+  findingActionLabels,
+  findingActions,
+  findingStatusLabels,
+  type FindingAction,
+  type FindingEvent,
+  type FindingEventAction,
+  type FindingPhoto,
 } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
 import { Mono, Txt } from '@/components/ui/text';
@@ -18,8 +25,14 @@ export function eventWords(action: FindingEventAction): string {
  * Every change to the finding: what was done, by whom and in what place on the build, when, the state
  * it moved to, why, and the photos that went with it (the work done). Oldest first, like a log book.
  */
-export function EventHistory({ events, photos = [], onPhoto }: {
-  events: FindingEvent[]; photos?: FindingPhoto[]; onPhoto?: (photo: FindingPhoto) => void;
+export function EventHistory({
+  events,
+  photos = [],
+  onPhoto,
+}: {
+  events: FindingEvent[];
+  photos?: FindingPhoto[];
+  onPhoto?: (photo: FindingPhoto) => void;
 }) {
   if (!events.length) return <Txt tone="soft">No changes recorded yet.</Txt>;
   const sorted = [...events].sort((a, b) => a.createdAt.localeCompare(b.createdAt));
@@ -37,11 +50,14 @@ export function EventHistory({ events, photos = [], onPhoto }: {
               </Txt>
               {e.fromStatus ? (
                 <Txt variant="small" tone="soft">
-                  {e.fromStatus !== e.toStatus ? `${findingStatusLabels[e.fromStatus]} → ` : ''}{findingStatusLabels[e.toStatus]}
+                  {e.fromStatus !== e.toStatus ? `${findingStatusLabels[e.fromStatus]} → ` : ''}
+                  {findingStatusLabels[e.toStatus]}
                 </Txt>
               ) : null}
               <Txt variant="small" tone="soft">
-                {e.actorName}{e.actorPlace !== 'none' ? `, ${buildPlaceLabels[e.actorPlace]}` : ''} · <Mono variant="small">{shortDate(e.createdAt)}</Mono>
+                {e.actorName}
+                {e.actorPlace !== 'none' ? `, ${buildPlaceLabels[e.actorPlace]}` : ''} ·{' '}
+                <Mono variant="small">{shortDate(e.createdAt)}</Mono>
               </Txt>
               {e.note ? <Txt>“{e.note}”</Txt> : null}
               {withIt.length ? (
@@ -67,8 +83,25 @@ export function EventHistory({ events, photos = [], onPhoto }: {
 }
 
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', gap: space.md, paddingVertical: space.sm, borderLeftWidth: hairline, borderColor: colors.ink, marginLeft: 6, paddingLeft: space.md },
-  dot: { position: 'absolute', left: -6, top: space.md, width: 11, height: 11, backgroundColor: colors.paper, borderWidth: 2, borderColor: colors.ink },
+  row: {
+    flexDirection: 'row',
+    gap: space.md,
+    paddingVertical: space.sm,
+    borderLeftWidth: hairline,
+    borderColor: colors.ink,
+    marginLeft: 6,
+    paddingLeft: space.md,
+  },
+  dot: {
+    position: 'absolute',
+    left: -6,
+    top: space.md,
+    width: 11,
+    height: 11,
+    backgroundColor: colors.paper,
+    borderWidth: 2,
+    borderColor: colors.ink,
+  },
   photos: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs, paddingTop: space.xs },
   thumb: { width: 56, height: 56, borderWidth: hairline, borderColor: colors.ink, backgroundColor: colors.paperSunk },
 });

@@ -4,8 +4,18 @@ import { Controller, useForm, type Resolver } from 'react-hook-form';
 import { View } from 'react-native';
 import type { z } from 'zod';
 import {
-  dispositionHelp, dispositionLabels, dispositions, findingActionInput, findingActionLabels, NOTE_MIN_LENGTH, noteRequired, repairSchemeLabels,
-  repairSchemes, type FindingAction, type FindingActionInput, type FindingDetail,
+  dispositionHelp,
+  dispositionLabels,
+  dispositions,
+  findingActionInput,
+  findingActionLabels,
+  NOTE_MIN_LENGTH,
+  noteRequired,
+  repairSchemeLabels,
+  repairSchemes,
+  type FindingAction,
+  type FindingActionInput,
+  type FindingDetail,
 } from '@/db/contracts';
 import { space } from '@/constants/theme';
 import { FormTextField } from '@/components/forms/form-fields';
@@ -42,7 +52,11 @@ type Need = { checkFailed: boolean; askOverride: boolean; rivetListed: boolean }
 function schemaFor(action: FindingAction, need: Need) {
   return findingActionInput.superRefine((v, ctx) => {
     if (noteRequired[action] && v.note.length < NOTE_MIN_LENGTH) {
-      ctx.addIssue({ code: 'custom', path: ['note'], message: `say why, in a few words, to ${findingActionLabels[action].toLowerCase()}` });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['note'],
+        message: `say why, in a few words, to ${findingActionLabels[action].toLowerCase()}`,
+      });
     }
     if (!shapesDisposition(action)) return;
     if (!v.disposition) {
@@ -55,9 +69,14 @@ function schemaFor(action: FindingAction, need: Need) {
       return;
     }
     if (v.repairScheme !== 'oversize_rivet') return;
-    if (need.rivetListed && !v.repairRivetSpec) ctx.addIssue({ code: 'custom', path: ['repairRivetSpec'], message: 'choose the rivet' });
+    if (need.rivetListed && !v.repairRivetSpec)
+      ctx.addIssue({ code: 'custom', path: ['repairRivetSpec'], message: 'choose the rivet' });
     if ((need.checkFailed || need.askOverride) && (v.overrideReason ?? '').length < NOTE_MIN_LENGTH) {
-      ctx.addIssue({ code: 'custom', path: ['overrideReason'], message: 'the check fails: say why you choose this repair anyway' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['overrideReason'],
+        message: 'the check fails: say why you choose this repair anyway',
+      });
     }
   });
 }
@@ -79,22 +98,35 @@ function inputFor(action: FindingAction, v: Parsed, showOverride: boolean): Find
 /** The note's words for who is reading: the first allowed action sets the tone. */
 function noteWords(actions: readonly FindingAction[]): { label: string; hint: string } {
   const first = actions[0];
-  const label = first === 'disposition' || first === 'amend' || first === 'not-a-defect' ? 'Note to the builder'
-    : first === 'approve' || first === 'refuse' ? 'Your note to the inspector'
-      : first === 'report-done' ? 'What you did'
-        : 'What you checked';
+  const label =
+    first === 'disposition' || first === 'amend' || first === 'not-a-defect'
+      ? 'Note to the builder'
+      : first === 'approve' || first === 'refuse'
+        ? 'Your note to the inspector'
+        : first === 'report-done'
+          ? 'What you did'
+          : 'What you checked';
   const needed = actions.filter((a) => noteRequired[a]).map((a) => findingActionLabels[a]);
   const optional = actions.filter((a) => !noteRequired[a]).map((a) => findingActionLabels[a]);
   const hint = [
     needed.length ? `Needed for: ${needed.join(', ')}.` : '',
     optional.length ? `Optional for: ${optional.join(', ')}.` : '',
-  ].filter(Boolean).join(' ');
+  ]
+    .filter(Boolean)
+    .join(' ');
   return { label, hint };
 }
 
 /** Solid buttons move the finding on; outlined ones turn it back or end it another way. */
 const forward: Record<FindingAction, boolean> = {
-  disposition: true, amend: true, 'not-a-defect': false, approve: true, refuse: false, 'report-done': true, accept: true, 'send-back': false,
+  disposition: true,
+  amend: true,
+  'not-a-defect': false,
+  approve: true,
+  refuse: false,
+  'report-done': true,
+  accept: true,
+  'send-back': false,
 };
 
 /**
@@ -102,7 +134,13 @@ const forward: Record<FindingAction, boolean> = {
  * offered), each sending one request. The note (`action-note`) goes with whichever button is pressed;
  * the disposition's parts appear only when disposition or amend is allowed; photos only with report-done.
  */
-export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (action: FindingAction, next: FindingDetail) => void }) {
+export function FindingDecision({
+  f,
+  onDone,
+}: {
+  f: FindingDetail;
+  onDone: (action: FindingAction, next: FindingDetail) => void;
+}) {
   const actions = f.allowedActions;
   const mutation = useFindingActionMutation(f.id);
   const u = useUnits();
@@ -118,14 +156,21 @@ export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (acti
   const actionRef = useRef<FindingAction>(actions[0] ?? 'disposition');
   const needRef = useRef<Need>({ checkFailed: false, askOverride: false, rivetListed: false });
   const resolver = useCallback<Resolver<Values, unknown, Parsed>>(
-    (values, context, options) => zodResolver(schemaFor(actionRef.current, needRef.current), plainParse)(values, context, options),
+    (values, context, options) =>
+      zodResolver(schemaFor(actionRef.current, needRef.current), plainParse)(values, context, options),
     [],
   );
   const { control, handleSubmit, setError, watch, reset, formState } = useForm<Values, unknown, Parsed>({
     resolver,
     mode: 'onSubmit',
     reValidateMode: 'onChange',
-    defaultValues: { note: '', disposition: undefined, repairScheme: undefined, repairRivetSpec: undefined, overrideReason: '' },
+    defaultValues: {
+      note: '',
+      disposition: undefined,
+      repairScheme: undefined,
+      repairRivetSpec: undefined,
+      overrideReason: '',
+    },
   });
 
   const chosen = watch('disposition');
@@ -134,7 +179,7 @@ export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (acti
   const options = f.context.oversizeOptions;
   const oversize = chosen === 'repair' && scheme === 'oversize_rivet';
   // The check for the rivet chosen, shared with the repair check panel through the query cache.
-  const check = useRepairCheckQuery(f.id, options ? rivet ?? null : null);
+  const check = useRepairCheckQuery(f.id, options ? (rivet ?? null) : null);
   const checked = oversize && (!options || !!rivet) ? check.data : undefined;
   const checkFailed = checked?.pass === false;
   const showOverride = oversize && (checkFailed || askOverride);
@@ -152,7 +197,9 @@ export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (acti
       if (action === 'report-done' && !photos.length) return;
       try {
         const next = await mutation.mutateAsync({
-          action, input: inputFor(action, values, showOverride), photos: action === 'report-done' ? photos : undefined,
+          action,
+          input: inputFor(action, values, showOverride),
+          photos: action === 'report-done' ? photos : undefined,
         });
         reset();
         setPhotos([]);
@@ -164,7 +211,9 @@ export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (acti
           return;
         }
         if (e instanceof ApiError && e.isNetwork) {
-          setFormError('No connection, so nothing was sent. What you wrote is still here: send it again when you have signal.');
+          setFormError(
+            'No connection, so nothing was sent. What you wrote is still here: send it again when you have signal.',
+          );
           return;
         }
         // A refused photo is said once, under the photos; the line by the buttons only points there.
@@ -175,13 +224,17 @@ export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (acti
           return;
         }
         if (e instanceof ApiError && e.fields?.overrideReason) setAskOverride(true);
-        setFormError(applyServerErrors(setError, e, (path) => {
-          if (path === 'photos' || path.startsWith('photos.')) {
-            setPhotoError(e instanceof ApiError ? e.fields?.[path] ?? e.message : errorMessage(e));
-            return null;
-          }
-          return ['note', 'disposition', 'repairScheme', 'repairRivetSpec', 'overrideReason'].includes(path) ? path : null;
-        }));
+        setFormError(
+          applyServerErrors(setError, e, (path) => {
+            if (path === 'photos' || path.startsWith('photos.')) {
+              setPhotoError(e instanceof ApiError ? (e.fields?.[path] ?? e.message) : errorMessage(e));
+              return null;
+            }
+            return ['note', 'disposition', 'repairScheme', 'repairRivetSpec', 'overrideReason'].includes(path)
+              ? path
+              : null;
+          }),
+        );
       }
     })();
   };
@@ -201,7 +254,11 @@ export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (acti
             control={control}
             name="disposition"
             render={({ field, fieldState }) => (
-              <Field label={shaping === 'amend' ? 'New disposition' : 'Disposition'} error={fieldState.error?.message} testID="disposition-field">
+              <Field
+                label={shaping === 'amend' ? 'New disposition' : 'Disposition'}
+                error={fieldState.error?.message}
+                testID="disposition-field"
+              >
                 <Choice
                   columns
                   testIDPrefix="disposition"
@@ -211,7 +268,10 @@ export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (acti
                   invalid={!!fieldState.error}
                   options={dispositions.map((d) => ({
                     value: d,
-                    label: shaping === 'amend' && f.disposition === d ? `${dispositionLabels[d]} (as now)` : dispositionLabels[d],
+                    label:
+                      shaping === 'amend' && f.disposition === d
+                        ? `${dispositionLabels[d]} (as now)`
+                        : dispositionLabels[d],
                     hint: dispositionHelp[d],
                   }))}
                 />
@@ -237,7 +297,9 @@ export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (acti
             />
           ) : null}
           {chosen === 'repair' && scheme && scheme !== 'oversize_rivet' ? (
-            <Txt variant="small" tone="soft">Describe the scheme in the note: the design authority approves it from what you write.</Txt>
+            <Txt variant="small" tone="soft">
+              Describe the scheme in the note: the design authority approves it from what you write.
+            </Txt>
           ) : null}
           {oversize ? (
             <View style={{ gap: space.md }} testID="repair-rivet">
@@ -263,7 +325,9 @@ export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (acti
                   {`${f.context.rivetSpec} is the largest size of its family: choose a doubler, or another disposition.`}
                 </Notice>
               ) : (
-                <Txt variant="small" tone="faint">The server takes the next size up of {f.context.rivetSpec}.</Txt>
+                <Txt variant="small" tone="faint">
+                  The server takes the next size up of {f.context.rivetSpec}.
+                </Txt>
               )}
               {!options || rivet ? (
                 <Button
@@ -276,24 +340,44 @@ export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (acti
                 />
               ) : null}
               {check.isError && !check.isFetching && (!options || rivet) ? (
-                <Notice tone="error" testID="repair-rivet-error">{`The check could not be made: ${errorMessage(check.error)}`}</Notice>
+                <Notice
+                  tone="error"
+                  testID="repair-rivet-error"
+                >{`The check could not be made: ${errorMessage(check.error)}`}</Notice>
               ) : null}
               {checked ? (
                 <View style={{ gap: space.sm }} testID="repair-rivet-result">
                   <View style={{ flexDirection: 'row', gap: space.sm, alignItems: 'center', flexWrap: 'wrap' }}>
                     <VerdictMark pass={checked.pass} size={24} />
                     <Txt bold tone={checked.pass ? 'ink' : 'error'}>
-                      {checked.pass ? 'Passes' : 'Fails'} at {checked.holes.length === 1 ? 'the hole' : `${checked.holes.filter((h) => !h.pass).length} of ${checked.holes.length} holes`}
+                      {checked.pass ? 'Passes' : 'Fails'} at{' '}
+                      {checked.holes.length === 1
+                        ? 'the hole'
+                        : `${checked.holes.filter((h) => !h.pass).length} of ${checked.holes.length} holes`}
                     </Txt>
-                    <Mono variant="small">{checked.inputs.proposedSpec} · drill {checked.newDrill.name}</Mono>
+                    <Mono variant="small">
+                      {checked.inputs.proposedSpec} · drill {checked.newDrill.name}
+                    </Mono>
                   </View>
-                  {checked.reasons.map((r, i) => <Txt key={i} variant="small" tone="error">– {r}</Txt>)}
-                  {checked.alternative ? <Txt variant="small" tone="caution">The check points to: {alternativeWords[checked.alternative].title.toLowerCase()}.</Txt> : null}
-                  <Txt variant="small" tone="faint">Hole by hole, with the numbers, under “Repair check”.</Txt>
+                  {checked.reasons.map((r, i) => (
+                    <Txt key={i} variant="small" tone="error">
+                      – {r}
+                    </Txt>
+                  ))}
+                  {checked.alternative ? (
+                    <Txt variant="small" tone="caution">
+                      The check points to: {alternativeWords[checked.alternative].title.toLowerCase()}.
+                    </Txt>
+                  ) : null}
+                  <Txt variant="small" tone="faint">
+                    Hole by hole, with the numbers, under “Repair check”.
+                  </Txt>
                   <Caution testID="repair-rivet-caution" text={checked.caution || undefined} />
                 </View>
               ) : (!options || rivet) && !check.isFetching ? (
-                <Txt variant="small" tone="faint" testID="repair-rivet-unchecked">Not checked yet: the server checks it when you record it, and asks for a reason if it fails.</Txt>
+                <Txt variant="small" tone="faint" testID="repair-rivet-unchecked">
+                  Not checked yet: the server checks it when you record it, and asks for a reason if it fails.
+                </Txt>
               ) : null}
               {showOverride ? (
                 <FormTextField
@@ -311,7 +395,15 @@ export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (acti
         </View>
       ) : null}
 
-      <FormTextField control={control} name="note" label={note.label} hint={note.hint} testID="action-note" multiline maxLength={2000} />
+      <FormTextField
+        control={control}
+        name="note"
+        label={note.label}
+        hint={note.hint}
+        testID="action-note"
+        multiline
+        maxLength={2000}
+      />
 
       {takesPhotos ? (
         <View style={{ gap: space.xs }}>
@@ -326,7 +418,11 @@ export function FindingDecision({ f, onDone }: { f: FindingDetail; onDone: (acti
         </View>
       ) : null}
 
-      {formError ? <Notice tone="error" testID="action-error">{formError}</Notice> : null}
+      {formError ? (
+        <Notice tone="error" testID="action-error">
+          {formError}
+        </Notice>
+      ) : null}
 
       <View style={{ gap: space.sm }}>
         {actions.map((a) => (

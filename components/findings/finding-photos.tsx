@@ -3,8 +3,18 @@ import type { FindingPhoto } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
 import { Label, Txt } from '@/components/ui/text';
 
-function Group({ title, photos, prefix, empty, onOpen }: {
-  title: string; photos: FindingPhoto[]; prefix: string; empty: string; onOpen: (i: number) => void;
+function Group({
+  title,
+  photos,
+  prefix,
+  empty,
+  onOpen,
+}: {
+  title: string;
+  photos: FindingPhoto[];
+  prefix: string;
+  empty: string;
+  onOpen: (i: number) => void;
 }) {
   return (
     <View style={{ gap: space.xs }} testID={`${prefix}s`}>
@@ -23,7 +33,11 @@ function Group({ title, photos, prefix, empty, onOpen }: {
             </Pressable>
           ))}
         </View>
-      ) : <Txt variant="small" tone="soft">{empty}</Txt>}
+      ) : (
+        <Txt variant="small" tone="soft">
+          {empty}
+        </Txt>
+      )}
     </View>
   );
 }
@@ -32,16 +46,30 @@ function Group({ title, photos, prefix, empty, onOpen }: {
  * The photos of a finding, as found and of the work done kept apart: the inspector compares the two,
  * and a photo of the work must never pass for one of the defect. `onOpen` gets the group and the index.
  */
-export function FindingPhotos({ photos, onOpen }: { photos: FindingPhoto[]; onOpen: (group: FindingPhoto[], i: number) => void }) {
+export function FindingPhotos({
+  photos,
+  onOpen,
+}: {
+  photos: FindingPhoto[];
+  onOpen: (group: FindingPhoto[], i: number) => void;
+}) {
   const found = photos.filter((p) => p.stage === 'found');
   const work = photos.filter((p) => p.stage === 'work');
   return (
     <View style={{ gap: space.md }}>
-      <Group title="As found" photos={found} prefix="finding-photo" empty="No photo of the finding." onOpen={(i) => onOpen(found, i)} />
+      <Group
+        title="As found"
+        photos={found}
+        prefix="finding-photo"
+        empty="No photo of the finding."
+        onOpen={(i) => onOpen(found, i)}
+      />
       {work.length ? (
         <Group title="Work done" photos={work} prefix="work-photo" empty="" onOpen={(i) => onOpen(work, i)} />
       ) : null}
-      <Txt variant="small" tone="faint">Tap a photo to see it large and zoom in.</Txt>
+      <Txt variant="small" tone="faint">
+        Tap a photo to see it large and zoom in.
+      </Txt>
     </View>
   );
 }

@@ -1,5 +1,11 @@
 import { Image, Pressable, StyleSheet, View } from 'react-native';
-import { dispositionLabels, findingClosureLabels, findingKindLabels, findingStatusLabels, type FindingSummary } from '@/db/contracts';
+import {
+  dispositionLabels,
+  findingClosureLabels,
+  findingKindLabels,
+  findingStatusLabels,
+  type FindingSummary,
+} from '@/db/contracts';
 import { colors, hairline, space, touch } from '@/constants/theme';
 import { FindingStatusTag } from '@/components/ui/status-mark';
 import { Mono, Txt } from '@/components/ui/text';
@@ -11,19 +17,32 @@ export function shortDate(iso: string): string {
 
 /** A finding row's name: what the row shows, its state first, since the name is all that is read of it. */
 export function findingRowLabel(f: FindingSummary, showPart = true): string {
-  const state = f.status === 'closed' && f.closure
-    ? `${findingStatusLabels[f.status]}, ${findingClosureLabels[f.closure]}`
-    : f.disposition ? `${findingStatusLabels[f.status]}, ${dispositionLabels[f.disposition]}` : findingStatusLabels[f.status];
+  const state =
+    f.status === 'closed' && f.closure
+      ? `${findingStatusLabels[f.status]}, ${findingClosureLabels[f.closure]}`
+      : f.disposition
+        ? `${findingStatusLabels[f.status]}, ${dispositionLabels[f.disposition]}`
+        : findingStatusLabels[f.status];
   return [
     `Finding on ${f.holeIds.join(', ')}: ${findingKindLabels[f.kind]}`,
     state,
     showPart ? `part ${f.partNumber}, serial ${f.serial}` : null,
     `raised by ${f.raisedByName}, ${shortDate(f.createdAt)}`,
-  ].filter(Boolean).join('; ');
+  ]
+    .filter(Boolean)
+    .join('; ');
 }
 
 /** One finding in a list: its status mark, the holes, what is wrong and who raised it. */
-export function FindingRow({ f, onPress, showPart = true }: { f: FindingSummary; onPress: () => void; showPart?: boolean }) {
+export function FindingRow({
+  f,
+  onPress,
+  showPart = true,
+}: {
+  f: FindingSummary;
+  onPress: () => void;
+  showPart?: boolean;
+}) {
   return (
     <Pressable
       testID={`finding-${f.id}`}
@@ -32,7 +51,11 @@ export function FindingRow({ f, onPress, showPart = true }: { f: FindingSummary;
       onPress={onPress}
       style={({ pressed }) => [styles.row, pressed && { backgroundColor: colors.accentSoft }]}
     >
-      {f.thumbUrl ? <Image source={{ uri: f.thumbUrl }} style={styles.thumb} accessibilityIgnoresInvertColors /> : <View style={[styles.thumb, styles.noThumb]} />}
+      {f.thumbUrl ? (
+        <Image source={{ uri: f.thumbUrl }} style={styles.thumb} accessibilityIgnoresInvertColors />
+      ) : (
+        <View style={[styles.thumb, styles.noThumb]} />
+      )}
       <View style={{ flex: 1, gap: 2 }}>
         <View style={styles.top}>
           <FindingStatusTag status={f.status} disposition={f.disposition} closure={f.closure} />
@@ -40,7 +63,14 @@ export function FindingRow({ f, onPress, showPart = true }: { f: FindingSummary;
         </View>
         <Txt>{findingKindLabels[f.kind]}</Txt>
         <Txt variant="small" tone="soft">
-          {showPart ? <><Mono variant="small">{f.partNumber} · {f.serial}</Mono> · </> : null}
+          {showPart ? (
+            <>
+              <Mono variant="small">
+                {f.partNumber} · {f.serial}
+              </Mono>{' '}
+              ·{' '}
+            </>
+          ) : null}
           raised by {f.raisedByName} · <Mono variant="small">{shortDate(f.createdAt)}</Mono>
         </Txt>
       </View>
@@ -49,7 +79,15 @@ export function FindingRow({ f, onPress, showPart = true }: { f: FindingSummary;
 }
 
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', gap: space.md, paddingVertical: space.sm, minHeight: touch, borderBottomWidth: hairline, borderColor: colors.rule, alignItems: 'center' },
+  row: {
+    flexDirection: 'row',
+    gap: space.md,
+    paddingVertical: space.sm,
+    minHeight: touch,
+    borderBottomWidth: hairline,
+    borderColor: colors.rule,
+    alignItems: 'center',
+  },
   top: { flexDirection: 'row', gap: space.sm, alignItems: 'center', flexWrap: 'wrap' },
   thumb: { width: 56, height: 56, borderWidth: hairline, borderColor: colors.rule, backgroundColor: colors.paperSunk },
   noThumb: {},

@@ -2,8 +2,16 @@ import { useRouter } from 'expo-router';
 import { useEffect, useRef, useState } from 'react';
 import { AccessibilityInfo, findNodeHandle, Platform, ScrollView, View } from 'react-native';
 import {
-  dispositionLabels, findingActionLabels, findingClosureLabels, findingKindLabels, findingStatusLabels,
-  isOpenFinding, type FindingAction, type FindingDetail, type FindingPhoto, type FindingStatus,
+  dispositionLabels,
+  findingActionLabels,
+  findingClosureLabels,
+  findingKindLabels,
+  findingStatusLabels,
+  isOpenFinding,
+  type FindingAction,
+  type FindingDetail,
+  type FindingPhoto,
+  type FindingStatus,
 } from '@/db/contracts';
 import { space } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
@@ -24,8 +32,18 @@ import { RepairCheckPanel, StoredRepair } from './repair-check-panel';
 
 export function FindingScreen({ findingId }: { findingId: string }) {
   const q = useFindingQuery(findingId);
-  if (q.isPending) return <Screen title="Finding" backTo="/findings"><LoadingState what="Loading the finding" /></Screen>;
-  if (q.isError) return <Screen title="Finding" backTo="/findings"><ErrorState error={q.error} onRetry={() => void q.refetch()} /></Screen>;
+  if (q.isPending)
+    return (
+      <Screen title="Finding" backTo="/findings">
+        <LoadingState what="Loading the finding" />
+      </Screen>
+    );
+  if (q.isError)
+    return (
+      <Screen title="Finding" backTo="/findings">
+        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+      </Screen>
+    );
   return <FindingBody f={q.data} />;
 }
 
@@ -89,10 +107,21 @@ function FindingBody({ f }: { f: FindingDetail }) {
         <Txt bold>{findingKindLabels[f.kind] ?? f.kind}</Txt>
       </View>
       <KeyValue label="Raised by">{`${f.raisedByName} · ${shortDate(f.createdAt)}`}</KeyValue>
-      <KeyValue label="Part"><Txt><Mono bold>{f.partNumber}</Mono> · serial <Mono>{f.serial}</Mono> · build <Mono>{f.kitSerial}</Mono></Txt></KeyValue>
-      <KeyValue label="Holes"><Mono bold>{f.holeIds.join(' ')}</Mono></KeyValue>
+      <KeyValue label="Part">
+        <Txt>
+          <Mono bold>{f.partNumber}</Mono> · serial <Mono>{f.serial}</Mono> · build <Mono>{f.kitSerial}</Mono>
+        </Txt>
+      </KeyValue>
+      <KeyValue label="Holes">
+        <Mono bold>{f.holeIds.join(' ')}</Mono>
+      </KeyValue>
       <KeyValue label="What was seen">{f.note}</KeyValue>
-      <Button label="Open the traveler" variant="secondary" onPress={() => router.push(`/travelers/${f.travelerId}`)} testID="open-traveler" />
+      <Button
+        label="Open the traveler"
+        variant="secondary"
+        onPress={() => router.push(`/travelers/${f.travelerId}`)}
+        testID="open-traveler"
+      />
     </View>
   );
 
@@ -113,18 +142,29 @@ function FindingBody({ f }: { f: FindingDetail }) {
     </>
   );
 
-  const decided = f.disposition || f.repair ? (
-    <Section title="The disposition">
-      <Notice
-        tone={f.disposition === 'use_as_is' ? 'ok' : f.disposition === 'scrap' || f.disposition === 'return_to_supplier' ? 'error' : 'caution'}
-        testID="disposition"
-      >
-        {f.disposition ? <Txt bold variant="heading">{dispositionLabels[f.disposition]}</Txt> : null}
-        {f.dispositionNote ? <Txt>“{f.dispositionNote}”</Txt> : null}
-        {f.repair ? <StoredRepair repair={f.repair} /> : null}
-      </Notice>
-    </Section>
-  ) : null;
+  const decided =
+    f.disposition || f.repair ? (
+      <Section title="The disposition">
+        <Notice
+          tone={
+            f.disposition === 'use_as_is'
+              ? 'ok'
+              : f.disposition === 'scrap' || f.disposition === 'return_to_supplier'
+                ? 'error'
+                : 'caution'
+          }
+          testID="disposition"
+        >
+          {f.disposition ? (
+            <Txt bold variant="heading">
+              {dispositionLabels[f.disposition]}
+            </Txt>
+          ) : null}
+          {f.dispositionNote ? <Txt>“{f.dispositionNote}”</Txt> : null}
+          {f.repair ? <StoredRepair repair={f.repair} /> : null}
+        </Notice>
+      </Section>
+    ) : null;
 
   const right = (
     <>
@@ -143,10 +183,15 @@ function FindingBody({ f }: { f: FindingDetail }) {
           testID="finding-replacement"
         />
       ) : null}
-      {open && !f.allowedActions.length ? <Notice testID="finding-waiting">{waitingWords[f.status as Exclude<FindingStatus, 'closed'>]}</Notice> : null}
+      {open && !f.allowedActions.length ? (
+        <Notice testID="finding-waiting">{waitingWords[f.status as Exclude<FindingStatus, 'closed'>]}</Notice>
+      ) : null}
       {f.allowedActions.length ? (
         <Section title={decisionTitle[f.place]}>
-          <FindingDecision f={f} onDone={(action, next) => setOutcome({ action, status: next.status, at: Date.now() })} />
+          <FindingDecision
+            f={f}
+            onDone={(action, next) => setOutcome({ action, status: next.status, at: Date.now() })}
+          />
         </Section>
       ) : null}
       <Section title="History">
@@ -172,16 +217,33 @@ function FindingBody({ f }: { f: FindingDetail }) {
       testID="finding-screen"
     >
       {/* Its own scroll view, so the screen can bring the reader back to the result of an action. */}
-      <ScrollView ref={scrollRef} style={{ flex: 1 }} contentContainerStyle={{ gap: space.xl, paddingBottom: space.xxl * 2 }} keyboardShouldPersistTaps="handled">
+      <ScrollView
+        ref={scrollRef}
+        style={{ flex: 1 }}
+        contentContainerStyle={{ gap: space.xl, paddingBottom: space.xxl * 2 }}
+        keyboardShouldPersistTaps="handled"
+      >
         {outcome ? (
-          <View ref={outcomeRef} tabIndex={-1} testID="action-result" accessibilityLiveRegion="polite" accessibilityRole="alert">
+          <View
+            ref={outcomeRef}
+            tabIndex={-1}
+            testID="action-result"
+            accessibilityLiveRegion="polite"
+            accessibilityRole="alert"
+          >
             <Notice tone="ok">
               <Txt bold>{findingActionLabels[outcome.action]}: recorded.</Txt>
               <Txt>
                 The finding is now {findingStatusLabels[outcome.status].toLowerCase()}
                 {f.status === 'closed' && f.closure ? ` (${findingClosureLabels[f.closure].toLowerCase()})` : ''}.
               </Txt>
-              <Button label="OK" variant="quiet" compact onPress={() => setOutcome(null)} testID="action-result-dismiss" />
+              <Button
+                label="OK"
+                variant="quiet"
+                compact
+                onPress={() => setOutcome(null)}
+                testID="action-result-dismiss"
+              />
             </Notice>
           </View>
         ) : null}

@@ -17,7 +17,10 @@ export type HoleNumbers = {
 };
 
 /** Distances to a hole's neighbours along its line, and in drill diameters: what an inspector reads first. */
-export function holeNumbers(h: Pick<HoleInContext, 'stationIn' | 'prevStationIn' | 'nextStationIn'>, drillDiameterIn: number): HoleNumbers {
+export function holeNumbers(
+  h: Pick<HoleInContext, 'stationIn' | 'prevStationIn' | 'nextStationIn'>,
+  drillDiameterIn: number,
+): HoleNumbers {
   const d = drillDiameterIn;
   const pitchBefore = h.prevStationIn == null ? null : h.stationIn - h.prevStationIn;
   const pitchAfter = h.nextStationIn == null ? null : h.nextStationIn - h.stationIn;
@@ -32,9 +35,13 @@ export function holeNumbers(h: Pick<HoleInContext, 'stationIn' | 'prevStationIn'
 function Row({ label, value, extra, testID }: { label: string; value: string; extra?: string; testID?: string }) {
   return (
     <View style={styles.row} testID={testID}>
-      <Txt variant="small" tone="soft" style={{ flex: 1 }}>{label}</Txt>
+      <Txt variant="small" tone="soft" style={{ flex: 1 }}>
+        {label}
+      </Txt>
       <Mono bold>{value}</Mono>
-      <Mono variant="small" tone="soft" style={{ width: 64, textAlign: 'right' }}>{extra ?? ''}</Mono>
+      <Mono variant="small" tone="soft" style={{ width: 64, textAlign: 'right' }}>
+        {extra ?? ''}
+      </Mono>
     </View>
   );
 }
@@ -49,9 +56,18 @@ function HoleLine({ h, drillDiameterIn }: { h: HoleInContext; drillDiameterIn: n
     <View style={styles.hole} testID={`context-hole-${h.holeId}`}>
       <View style={styles.holeHead}>
         {isHoleStatus(h.status) ? <HoleMark status={h.status} size={20} decorative /> : null}
-        <Mono bold variant="heading">{h.holeId}</Mono>
+        <Mono bold variant="heading">
+          {h.holeId}
+        </Mono>
         <Txt variant="small" tone="soft">
-          line <Mono variant="small" bold>{h.line}</Mono> · station <Mono variant="small" bold>{u.station(h.stationIn)}</Mono>
+          line{' '}
+          <Mono variant="small" bold>
+            {h.line}
+          </Mono>{' '}
+          · station{' '}
+          <Mono variant="small" bold>
+            {u.station(h.stationIn)}
+          </Mono>
           {isHoleStatus(h.status) ? ` · ${holeStatusLabels[h.status].toLowerCase()}` : ''}
         </Txt>
       </View>
@@ -81,10 +97,17 @@ export function HoleContext({ f }: { f: FindingDetail }) {
   return (
     <View style={{ gap: space.md }} testID="hole-context">
       <View style={{ gap: space.sm }}>
-        {c.holes.map((h) => <HoleLine key={h.holeId} h={h} drillDiameterIn={d} />)}
+        {c.holes.map((h) => (
+          <HoleLine key={h.holeId} h={h} drillDiameterIn={d} />
+        ))}
       </View>
       <View style={styles.table}>
-        <Row label="Edge distance (as laid out)" value={u.length(c.edgeDistanceIn)} extra={d > 0 ? formatDiameters(c.edgeDistanceIn / d) : ''} testID="context-edge-distance" />
+        <Row
+          label="Edge distance (as laid out)"
+          value={u.length(c.edgeDistanceIn)}
+          extra={d > 0 ? formatDiameters(c.edgeDistanceIn / d) : ''}
+          testID="context-edge-distance"
+        />
         <Row label="Drill diameter" value={u.length(d)} />
         <Row
           label="Rivet"
@@ -95,11 +118,15 @@ export function HoleContext({ f }: { f: FindingDetail }) {
         {c.countersunk ? <Row label="Head" value="countersunk" /> : null}
         <Row label="Gauge · material" value={`${u.length(c.gaugeIn)} ${c.material}`} />
       </View>
-      <Txt variant="small" tone="faint">D = drill diameter. Ratios are of the layout on the traveler, not of the hole as found.</Txt>
+      <Txt variant="small" tone="faint">
+        D = drill diameter. Ratios are of the layout on the traveler, not of the hole as found.
+      </Txt>
       {measured.length ? (
         <View style={{ gap: space.sm }} testID="finding-measurements">
           <Label>As measured</Label>
-          {measured.map((k) => <MeasurementJudgement key={k} measure={k} value={f.measurements[k]} basis={basis} showValue />)}
+          {measured.map((k) => (
+            <MeasurementJudgement key={k} measure={k} value={f.measurements[k]} basis={basis} showValue />
+          ))}
         </View>
       ) : null}
       <Caution />
@@ -111,5 +138,13 @@ const styles = StyleSheet.create({
   table: { borderTopWidth: hairline, borderColor: colors.ink },
   hole: { gap: 2, paddingBottom: space.sm, borderBottomWidth: hairline, borderColor: colors.rule },
   holeHead: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap' },
-  row: { flexDirection: 'row', alignItems: 'baseline', gap: space.sm, paddingVertical: space.xs, borderBottomWidth: hairline, borderColor: colors.rule, flexWrap: 'wrap' },
+  row: {
+    flexDirection: 'row',
+    alignItems: 'baseline',
+    gap: space.sm,
+    paddingVertical: space.xs,
+    borderBottomWidth: hairline,
+    borderColor: colors.rule,
+    flexWrap: 'wrap',
+  },
 });

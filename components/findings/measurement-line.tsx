@@ -10,16 +10,33 @@ import { VerdictMark } from './verdict-mark';
  * `judgeMeasurement` says. With no value yet it shows the rule alone; with no basis (a rivet the app
  * cannot read) it shows the value without a verdict, and says so.
  */
-export function MeasurementJudgement({ measure, value, basis, showValue = false }: {
-  measure: MeasureKey; value: number | undefined; basis: MeasureBasis | null; showValue?: boolean;
+export function MeasurementJudgement({
+  measure,
+  value,
+  basis,
+  showValue = false,
+}: {
+  measure: MeasureKey;
+  value: number | undefined;
+  basis: MeasureBasis | null;
+  showValue?: boolean;
 }) {
   const u = useUnits();
   const has = typeof value === 'number' && Number.isFinite(value);
   if (!basis) {
     return (
       <View style={styles.box} testID={`measure-judgement-${measure}`}>
-        {showValue && has ? <Txt variant="small">{measureLabels[measure]}: <Mono variant="small" bold>{u.length(value)}</Mono></Txt> : null}
-        <Txt variant="small" tone="faint">The rivet of this part is not one the app can read, so no limit is shown: the inspector judges it.</Txt>
+        {showValue && has ? (
+          <Txt variant="small">
+            {measureLabels[measure]}:{' '}
+            <Mono variant="small" bold>
+              {u.length(value)}
+            </Mono>
+          </Txt>
+        ) : null}
+        <Txt variant="small" tone="faint">
+          The rivet of this part is not one the app can read, so no limit is shown: the inspector judges it.
+        </Txt>
       </View>
     );
   }
@@ -30,24 +47,48 @@ export function MeasurementJudgement({ measure, value, basis, showValue = false 
       style={[styles.box, has && !j.pass && styles.fail]}
       testID={`measure-judgement-${measure}`}
       role={has ? 'group' : undefined}
-      accessibilityLabel={has ? `${measureLabels[measure]} ${u.length(value)}: ${j.pass ? 'within the limit' : 'outside the limit'} ${j.limit}` : undefined}
+      accessibilityLabel={
+        has
+          ? `${measureLabels[measure]} ${u.length(value)}: ${j.pass ? 'within the limit' : 'outside the limit'} ${j.limit}`
+          : undefined
+      }
     >
       <View style={styles.row}>
         {has ? <VerdictMark pass={j.pass} size={18} /> : null}
-        {showValue && has ? <Txt variant="small" bold>{measureLabels[measure]}: <Mono variant="small" bold>{u.length(value)}</Mono></Txt> : null}
+        {showValue && has ? (
+          <Txt variant="small" bold>
+            {measureLabels[measure]}:{' '}
+            <Mono variant="small" bold>
+              {u.length(value)}
+            </Mono>
+          </Txt>
+        ) : null}
         <Txt variant="small" bold tone={!has ? 'soft' : j.pass ? 'ink' : 'error'}>
           {!has ? 'Limit' : j.pass ? 'Within the limit' : 'Outside the limit'}
         </Txt>
-        <Mono variant="small" bold>{j.limit}</Mono>
+        <Mono variant="small" bold>
+          {j.limit}
+        </Mono>
       </View>
       <Txt variant="small">Rule: {j.rule}</Txt>
-      <Txt variant="small" tone="faint">Source: {j.source}</Txt>
+      <Txt variant="small" tone="faint">
+        Source: {j.source}
+      </Txt>
     </View>
   );
 }
 
 const styles = StyleSheet.create({
-  box: { gap: 2, paddingVertical: space.xs, paddingHorizontal: space.sm, borderLeftWidth: 3, borderLeftColor: colors.rule, borderWidth: hairline, borderColor: colors.rule, backgroundColor: colors.paperRaised },
+  box: {
+    gap: 2,
+    paddingVertical: space.xs,
+    paddingHorizontal: space.sm,
+    borderLeftWidth: 3,
+    borderLeftColor: colors.rule,
+    borderWidth: hairline,
+    borderColor: colors.rule,
+    backgroundColor: colors.paperRaised,
+  },
   fail: { borderLeftColor: colors.error, backgroundColor: colors.errorSoft },
   row: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap' },
 });

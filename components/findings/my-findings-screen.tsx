@@ -18,29 +18,56 @@ export function MyFindingsScreen() {
   // Open or all is asked of the server, newest first, a page at a time.
   const q = useFindingsQuery({ status: show === 'open' ? 'open' : undefined }, { keepPrevious: true });
   // While the other choice loads, the rows of the last one stay shown, less those it does not take.
-  const rows = useMemo(() => pagedItems(q.data).filter((f) => show === 'all' || isOpenFinding(f.status)), [q.data, show]);
+  const rows = useMemo(
+    () => pagedItems(q.data).filter((f) => show === 'all' || isOpenFinding(f.status)),
+    [q.data, show],
+  );
   return (
     <Screen title="Findings" subtitle="Findings on your builds" account scroll={false} testID="my-findings-screen">
-      {q.isPending ? <LoadingState what="Loading findings" />
-        : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
-          : (
-            <FlatList
-              data={rows}
-              keyExtractor={(f) => f.id}
-              renderItem={({ item }) => <FindingRow f={item} onPress={() => router.push(`/findings/${item.id}`)} />}
-              ListHeaderComponent={
-                <View style={{ paddingBottom: space.md }}>
-                  <Choice testIDPrefix="findings-show" value={show} onChange={setShow} options={[{ value: 'open', label: 'Open' }, { value: 'all', label: 'All' }]} />
-                </View>
-              }
-              ListEmptyComponent={q.isPlaceholderData ? null : <EmptyState title={show === 'open' ? 'No open findings.' : 'No findings yet.'} body="Flag a suspect hole from its traveler; it shows here until it is closed." />}
-              ListFooterComponent={
-                <LoadMore hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage} shown={rows.length} what="findings" testID="findings-more" />
-              }
-              refreshing={q.isRefetching && !q.isFetchingNextPage}
-              onRefresh={() => void q.refetch()}
+      {q.isPending ? (
+        <LoadingState what="Loading findings" />
+      ) : q.isError ? (
+        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+      ) : (
+        <FlatList
+          data={rows}
+          keyExtractor={(f) => f.id}
+          renderItem={({ item }) => <FindingRow f={item} onPress={() => router.push(`/findings/${item.id}`)} />}
+          ListHeaderComponent={
+            <View style={{ paddingBottom: space.md }}>
+              <Choice
+                testIDPrefix="findings-show"
+                value={show}
+                onChange={setShow}
+                options={[
+                  { value: 'open', label: 'Open' },
+                  { value: 'all', label: 'All' },
+                ]}
+              />
+            </View>
+          }
+          ListEmptyComponent={
+            q.isPlaceholderData ? null : (
+              <EmptyState
+                title={show === 'open' ? 'No open findings.' : 'No findings yet.'}
+                body="Flag a suspect hole from its traveler; it shows here until it is closed."
+              />
+            )
+          }
+          ListFooterComponent={
+            <LoadMore
+              hasNextPage={q.hasNextPage}
+              isFetchingNextPage={q.isFetchingNextPage}
+              fetchNextPage={q.fetchNextPage}
+              shown={rows.length}
+              what="findings"
+              testID="findings-more"
             />
-          )}
+          }
+          refreshing={q.isRefetching && !q.isFetchingNextPage}
+          onRefresh={() => void q.refetch()}
+        />
+      )}
     </Screen>
   );
 }

@@ -34,7 +34,10 @@ export function isPhotoBytes(b: Uint8Array): boolean {
   if (ascii(0, 4) === 'RIFF' && ascii(8, 12) === 'WEBP') return true; // WebP in its RIFF container
   if (ascii(0, 4) === 'II*\0' || ascii(0, 4) === 'MM\0*') return true; // TIFF, either byte order
   // HEIC, HEIF and AVIF: an ISO base media file whose ftyp box names an image brand.
-  return ascii(4, 8) === 'ftyp' && ['heic', 'heix', 'hevc', 'hevx', 'heim', 'heis', 'mif1', 'msf1', 'avif', 'avis'].includes(ascii(8, 12));
+  return (
+    ascii(4, 8) === 'ftyp' &&
+    ['heic', 'heix', 'hevc', 'hevx', 'heim', 'heis', 'mif1', 'msf1', 'avif', 'avis'].includes(ascii(8, 12))
+  );
 }
 
 function readHead(file: Blob, n: number): Promise<Uint8Array> {
@@ -69,7 +72,11 @@ async function toDraftPhoto(a: ImagePicker.ImagePickerAsset, i: number): Promise
   const name = a.fileName ?? `photo-${Date.now()}-${i}.${ext}`;
   let uri = a.uri;
   if (Platform.OS === 'web' && a.file && a.file.size <= keepInlineBytes && uri.startsWith('blob:')) {
-    try { uri = await readAsDataUrl(a.file); } catch { /* keep the blob: URI */ }
+    try {
+      uri = await readAsDataUrl(a.file);
+    } catch {
+      /* keep the blob: URI */
+    }
   }
   return { uri, name, type, width: a.width, height: a.height };
 }
@@ -82,15 +89,28 @@ export async function pickPhotos(from: 'library' | 'camera', room: number): Prom
   try {
     if (from === 'camera') {
       const perm = await ImagePicker.requestCameraPermissionsAsync();
-      if (!perm.granted) return { photos: [], error: 'The camera was not allowed. Choose a photo from the library instead, or allow the camera in the settings.' };
+      if (!perm.granted)
+        return {
+          photos: [],
+          error:
+            'The camera was not allowed. Choose a photo from the library instead, or allow the camera in the settings.',
+        };
     }
-    const opts: ImagePicker.ImagePickerOptions = { mediaTypes: ['images'], quality: 0.85, allowsMultipleSelection: from === 'library', selectionLimit: room, exif: false };
+    const opts: ImagePicker.ImagePickerOptions = {
+      mediaTypes: ['images'],
+      quality: 0.85,
+      allowsMultipleSelection: from === 'library',
+      selectionLimit: room,
+      exif: false,
+    };
     let res: ImagePicker.ImagePickerResult;
     try {
-      res = from === 'camera' ? await ImagePicker.launchCameraAsync(opts) : await ImagePicker.launchImageLibraryAsync(opts);
+      res =
+        from === 'camera' ? await ImagePicker.launchCameraAsync(opts) : await ImagePicker.launchImageLibraryAsync(opts);
     } catch (e) {
       // The web picker refuses a file that is neither image nor video outright, for the whole choice.
-      if (/unsupported file type/i.test((e as Error)?.message ?? '')) return { photos: [], error: notPhotosMessage([]) };
+      if (/unsupported file type/i.test((e as Error)?.message ?? ''))
+        return { photos: [], error: notPhotosMessage([]) };
       throw e;
     }
     if (res.canceled) return { photos: [], error: null };
@@ -111,7 +131,9 @@ export async function pickPhotos(from: 'library' | 'camera', room: number): Prom
 export function photoRefusal(e: unknown): string | null {
   if (!(e instanceof ApiError) || e.isNetwork) return null;
   const keys = Object.keys(e.fields ?? {});
-  const aboutPhotos = keys.length ? keys.every((k) => k === 'photos' || k.startsWith('photos.')) : e.status === 413 || e.status === 415;
+  const aboutPhotos = keys.length
+    ? keys.every((k) => k === 'photos' || k.startsWith('photos.'))
+    : e.status === 413 || e.status === 415;
   if (!aboutPhotos) return null;
   const m = e.message.trim();
   const sentence = `${m.charAt(0).toUpperCase()}${m.slice(1)}`;
@@ -122,8 +144,18 @@ export function photoRefusal(e: unknown): string | null {
  * Photos being added (a new finding's, or the work done's): thumbnails with remove buttons, and the add
  * buttons. `empty` says what a good photo shows, in the words of the form it is in.
  */
-export function PhotoPicker({ photos, onAdd, onRemove, error, empty = 'No photo yet. A close, sharp photo of the hole helps the inspector most.' }: {
-  photos: DraftPhoto[]; onAdd: (from: 'library' | 'camera') => void; onRemove: (i: number) => void; error?: string | null; empty?: string;
+export function PhotoPicker({
+  photos,
+  onAdd,
+  onRemove,
+  error,
+  empty = 'No photo yet. A close, sharp photo of the hole helps the inspector most.',
+}: {
+  photos: DraftPhoto[];
+  onAdd: (from: 'library' | 'camera') => void;
+  onRemove: (i: number) => void;
+  error?: string | null;
+  empty?: string;
 }) {
   return (
     <View style={{ gap: space.sm }} testID="photos">
@@ -139,18 +171,40 @@ export function PhotoPicker({ photos, onAdd, onRemove, error, empty = 'No photo 
                 accessibilityLabel={`Remove photo ${i + 1}`}
                 style={styles.remove}
               >
-                <Txt variant="small" bold tone="error">Remove</Txt>
+                <Txt variant="small" bold tone="error">
+                  Remove
+                </Txt>
               </Pressable>
             </View>
           ))}
         </View>
-      ) : <Txt tone="soft">{empty}</Txt>}
+      ) : (
+        <Txt tone="soft">{empty}</Txt>
+      )}
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-        <Button label="Add a photo" variant="secondary" onPress={() => onAdd('library')} disabled={photos.length >= maxPhotos} testID="add-photo" />
-        <Button label="Take a photo" variant="secondary" onPress={() => onAdd('camera')} disabled={photos.length >= maxPhotos} testID="take-photo" />
+        <Button
+          label="Add a photo"
+          variant="secondary"
+          onPress={() => onAdd('library')}
+          disabled={photos.length >= maxPhotos}
+          testID="add-photo"
+        />
+        <Button
+          label="Take a photo"
+          variant="secondary"
+          onPress={() => onAdd('camera')}
+          disabled={photos.length >= maxPhotos}
+          testID="take-photo"
+        />
       </View>
-      <Txt variant="small" tone="faint">{photos.length}/{maxPhotos} photos. Location data is removed on the server.</Txt>
-      {error ? <Txt variant="small" tone="error" accessibilityRole="alert" testID="photos-error">{error}</Txt> : null}
+      <Txt variant="small" tone="faint">
+        {photos.length}/{maxPhotos} photos. Location data is removed on the server.
+      </Txt>
+      {error ? (
+        <Txt variant="small" tone="error" accessibilityRole="alert" testID="photos-error">
+          {error}
+        </Txt>
+      ) : null}
     </View>
   );
 }

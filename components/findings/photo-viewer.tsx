@@ -10,8 +10,16 @@ import { Mono } from '@/components/ui/text';
 type Zoom = '1' | '2' | '4';
 
 /** A photo full screen: pinch on iOS, and a zoom switch everywhere, scrolling both ways. */
-export function PhotoViewer({ photos, index, onClose, onIndex }: {
-  photos: FindingPhoto[]; index: number | null; onClose: () => void; onIndex: (i: number) => void;
+export function PhotoViewer({
+  photos,
+  index,
+  onClose,
+  onIndex,
+}: {
+  photos: FindingPhoto[];
+  index: number | null;
+  onClose: () => void;
+  onIndex: (i: number) => void;
 }) {
   const { width, height } = useWindowDimensions();
   const insets = useSafeAreaInsets();
@@ -31,7 +39,15 @@ export function PhotoViewer({ photos, index, onClose, onIndex }: {
         <View style={styles.bar}>
           <Mono tone="inverse">{index == null ? '' : `${index + 1} / ${photos.length}`}</Mono>
           <View style={{ flex: 1 }} />
-          <Button label="Close" variant="secondary" onPress={() => { setZoom('1'); onClose(); }} testID="photo-close" />
+          <Button
+            label="Close"
+            variant="secondary"
+            onPress={() => {
+              setZoom('1');
+              onClose();
+            }}
+            testID="photo-close"
+          />
         </View>
         <ScrollView
           style={{ flex: 1 }}
@@ -40,7 +56,10 @@ export function PhotoViewer({ photos, index, onClose, onIndex }: {
           minimumZoomScale={1}
           centerContent
         >
-          <ScrollView horizontal contentContainerStyle={{ minWidth: boxW, alignItems: 'center', justifyContent: 'center' }}>
+          <ScrollView
+            horizontal
+            contentContainerStyle={{ minWidth: boxW, alignItems: 'center', justifyContent: 'center' }}
+          >
             {photo ? (
               <Image
                 source={{ uri: photo.url }}
@@ -53,13 +72,24 @@ export function PhotoViewer({ photos, index, onClose, onIndex }: {
           </ScrollView>
         </ScrollView>
         <View style={[styles.bar, styles.bottom, { paddingBottom: insets.bottom + space.sm }]}>
-          <Button label="‹" variant="secondary" disabled={!index} onPress={() => index && onIndex(index - 1)} testID="photo-prev" accessibilityLabel="Previous photo" />
+          <Button
+            label="‹"
+            variant="secondary"
+            disabled={!index}
+            onPress={() => index && onIndex(index - 1)}
+            testID="photo-prev"
+            accessibilityLabel="Previous photo"
+          />
           <View style={{ flex: 1, alignItems: 'center' }}>
             <Choice
               testIDPrefix="photo-zoom"
               value={zoom}
               onChange={setZoom}
-              options={[{ value: '1', label: 'Fit' }, { value: '2', label: '2×' }, { value: '4', label: '4×' }]}
+              options={[
+                { value: '1', label: 'Fit' },
+                { value: '2', label: '2×' },
+                { value: '4', label: '4×' },
+              ]}
             />
           </View>
           <Button

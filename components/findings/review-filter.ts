@@ -1,4 +1,10 @@
-import { findingKindLabels, findingStatuses, isOpenFinding, type FindingStatus, type FindingSummary } from '@/db/contracts';
+import {
+  findingKindLabels,
+  findingStatuses,
+  isOpenFinding,
+  type FindingStatus,
+  type FindingSummary,
+} from '@/db/contracts';
 
 /** The review queue's filters and sort, as plain functions so the table stays a view. */
 export type StatusFilter = 'open' | 'all' | FindingStatus;
@@ -10,7 +16,10 @@ export type ReviewSort = { key: ReviewSortKey; dir: 'asc' | 'desc' };
  * What of the filters the server answers (state and build), so every page it sends is made of what
  * is asked for; `buildIds` maps the kit serials met so far to their build. The words stay here.
  */
-export function serverFilters(f: ReviewFilters, buildIds: ReadonlyMap<string, string>): { status?: FindingStatus | 'open'; buildId?: string } {
+export function serverFilters(
+  f: ReviewFilters,
+  buildIds: ReadonlyMap<string, string>,
+): { status?: FindingStatus | 'open'; buildId?: string } {
   return {
     status: f.status === 'all' ? undefined : f.status,
     buildId: f.build === 'all' ? undefined : buildIds.get(f.build),
@@ -24,7 +33,9 @@ export function filterFindings(rows: readonly FindingSummary[], f: ReviewFilters
     if (f.status !== 'open' && f.status !== 'all' && r.status !== f.status) return false;
     if (f.build !== 'all' && r.kitSerial !== f.build) return false;
     if (!words.length) return true;
-    const hay = [r.partNumber, r.serial, r.kitSerial, r.raisedByName, findingKindLabels[r.kind], ...r.holeIds].join(' ').toLowerCase();
+    const hay = [r.partNumber, r.serial, r.kitSerial, r.raisedByName, findingKindLabels[r.kind], ...r.holeIds]
+      .join(' ')
+      .toLowerCase();
     return words.every((w) => hay.includes(w));
   });
 }
@@ -36,9 +47,11 @@ function compare(a: FindingSummary, b: FindingSummary, key: ReviewSortKey): numb
     case 'date':
       return a.createdAt.localeCompare(b.createdAt);
     case 'part':
-      return a.partNumber.localeCompare(b.partNumber, undefined, { numeric: true })
-        || a.serial.localeCompare(b.serial, undefined, { numeric: true })
-        || (a.holeIds[0] ?? '').localeCompare(b.holeIds[0] ?? '', undefined, { numeric: true });
+      return (
+        a.partNumber.localeCompare(b.partNumber, undefined, { numeric: true }) ||
+        a.serial.localeCompare(b.serial, undefined, { numeric: true }) ||
+        (a.holeIds[0] ?? '').localeCompare(b.holeIds[0] ?? '', undefined, { numeric: true })
+      );
     case 'status':
       return (statusOrder.get(a.status) ?? 0) - (statusOrder.get(b.status) ?? 0);
   }
@@ -57,5 +70,7 @@ export function nextSort(current: ReviewSort, key: ReviewSortKey): ReviewSort {
 }
 
 export function buildsIn(rows: readonly FindingSummary[]): string[] {
-  return Array.from(new Set(rows.map((r) => r.kitSerial))).sort((a, b) => a.localeCompare(b, undefined, { numeric: true }));
+  return Array.from(new Set(rows.map((r) => r.kitSerial))).sort((a, b) =>
+    a.localeCompare(b, undefined, { numeric: true }),
+  );
 }

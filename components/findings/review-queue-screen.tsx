@@ -1,7 +1,13 @@
 import { useRouter } from 'expo-router';
 import { useMemo, useRef, useState } from 'react';
 import { Image, View } from 'react-native';
-import { findingKindLabels, findingStatuses, findingStatusLabels, type FindingStatus, type FindingSummary } from '@/db/contracts';
+import {
+  findingKindLabels,
+  findingStatuses,
+  findingStatusLabels,
+  type FindingStatus,
+  type FindingSummary,
+} from '@/db/contracts';
 import { colors, space } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
 import { Choice } from '@/components/ui/choice';
@@ -17,7 +23,16 @@ import { useFindingsQuery } from '@/hooks/queries/findings';
 import { pagedItems } from '@/hooks/queries/paged';
 import { useWide } from '@/hooks/use-wide';
 import { FindingRow, findingRowLabel, shortDate } from './finding-row';
-import { filterFindings, nextSort, serverFilters, sortFindings, type ReviewFilters, type ReviewSort, type ReviewSortKey, type StatusFilter } from './review-filter';
+import {
+  filterFindings,
+  nextSort,
+  serverFilters,
+  sortFindings,
+  type ReviewFilters,
+  type ReviewSort,
+  type ReviewSortKey,
+  type StatusFilter,
+} from './review-filter';
 
 const statusOptions: { value: StatusFilter; label: string }[] = [
   { value: 'open', label: 'Open' },
@@ -71,31 +86,95 @@ export function ReviewQueueScreen({
   }, [all, waiting]);
 
   const columns: Column<FindingSummary, ReviewSortKey>[] = [
-    { key: 'photo', title: 'Photo', flex: 0.7, render: (f) => (f.thumbUrl
-      ? <Image source={{ uri: f.thumbUrl }} style={{ width: wide ? 48 : 96, height: wide ? 48 : 72, borderWidth: 1, borderColor: colors.rule }} accessibilityLabel={`Photo of ${[...f.holeIds].sort().join(' ')}`} />
-      : <Txt variant="small" tone="faint">none</Txt>) },
-    { key: 'date', title: 'Raised', sortKey: 'date', flex: 1.3, render: (f) => <Mono variant="small">{shortDate(f.createdAt)}</Mono> },
-    { key: 'part', title: 'Part', sortKey: 'part', flex: 1.4, render: (f) => <Txt variant="small"><Mono variant="small" bold>{f.partNumber}</Mono> · <Mono variant="small">{f.serial}</Mono></Txt> },
+    {
+      key: 'photo',
+      title: 'Photo',
+      flex: 0.7,
+      render: (f) =>
+        f.thumbUrl ? (
+          <Image
+            source={{ uri: f.thumbUrl }}
+            style={{ width: wide ? 48 : 96, height: wide ? 48 : 72, borderWidth: 1, borderColor: colors.rule }}
+            accessibilityLabel={`Photo of ${[...f.holeIds].sort().join(' ')}`}
+          />
+        ) : (
+          <Txt variant="small" tone="faint">
+            none
+          </Txt>
+        ),
+    },
+    {
+      key: 'date',
+      title: 'Raised',
+      sortKey: 'date',
+      flex: 1.3,
+      render: (f) => <Mono variant="small">{shortDate(f.createdAt)}</Mono>,
+    },
+    {
+      key: 'part',
+      title: 'Part',
+      sortKey: 'part',
+      flex: 1.4,
+      render: (f) => (
+        <Txt variant="small">
+          <Mono variant="small" bold>
+            {f.partNumber}
+          </Mono>{' '}
+          · <Mono variant="small">{f.serial}</Mono>
+        </Txt>
+      ),
+    },
     { key: 'holes', title: 'Holes', flex: 1, render: (f) => <Mono bold>{[...f.holeIds].sort().join(' ')}</Mono> },
     { key: 'kind', title: 'Kind', flex: 1.3, render: (f) => <Txt variant="small">{findingKindLabels[f.kind]}</Txt> },
-    { key: 'status', title: 'Status', sortKey: 'status', flex: 1.9, render: (f) => <FindingStatusTag status={f.status} disposition={f.disposition} closure={f.closure} /> },
+    {
+      key: 'status',
+      title: 'Status',
+      sortKey: 'status',
+      flex: 1.9,
+      render: (f) => <FindingStatusTag status={f.status} disposition={f.disposition} closure={f.closure} />,
+    },
     { key: 'build', title: 'Build', flex: 0.9, render: (f) => <Mono variant="small">{f.kitSerial}</Mono> },
-    { key: 'by', title: 'By', flex: 1, render: (f) => <Txt variant="small">{f.raisedByName}{f.photoCount ? ` · ${f.photoCount} photo${f.photoCount === 1 ? '' : 's'}` : ''}</Txt> },
+    {
+      key: 'by',
+      title: 'By',
+      flex: 1,
+      render: (f) => (
+        <Txt variant="small">
+          {f.raisedByName}
+          {f.photoCount ? ` · ${f.photoCount} photo${f.photoCount === 1 ? '' : 's'}` : ''}
+        </Txt>
+      ),
+    },
   ];
 
   const firstBlock = first ? (
-    <Section title={`${first.title} (${firstQ.data ? `${waiting.length}${firstQ.hasNextPage ? '+' : ''}` : '…'})`} testID="review-first">
-      {firstQ.isPending ? <LoadingState what={`Loading: ${first.title.toLowerCase()}`} />
-        : firstQ.isError ? <ErrorState error={firstQ.error} onRetry={() => void firstQ.refetch()} />
-          : waiting.length ? (
-            <View>
-              {waiting.map((f) => <FindingRow key={f.id} f={f} onPress={() => router.push(`/findings/${f.id}`)} />)}
-              <LoadMore
-                hasNextPage={firstQ.hasNextPage} isFetchingNextPage={firstQ.isFetchingNextPage} fetchNextPage={firstQ.fetchNextPage}
-                shown={waiting.length} what="findings" testID="review-first-more"
-              />
-            </View>
-          ) : <Txt tone="soft" testID="review-first-empty">{first.empty}</Txt>}
+    <Section
+      title={`${first.title} (${firstQ.data ? `${waiting.length}${firstQ.hasNextPage ? '+' : ''}` : '…'})`}
+      testID="review-first"
+    >
+      {firstQ.isPending ? (
+        <LoadingState what={`Loading: ${first.title.toLowerCase()}`} />
+      ) : firstQ.isError ? (
+        <ErrorState error={firstQ.error} onRetry={() => void firstQ.refetch()} />
+      ) : waiting.length ? (
+        <View>
+          {waiting.map((f) => (
+            <FindingRow key={f.id} f={f} onPress={() => router.push(`/findings/${f.id}`)} />
+          ))}
+          <LoadMore
+            hasNextPage={firstQ.hasNextPage}
+            isFetchingNextPage={firstQ.isFetchingNextPage}
+            fetchNextPage={firstQ.fetchNextPage}
+            shown={waiting.length}
+            what="findings"
+            testID="review-first-more"
+          />
+        </View>
+      ) : (
+        <Txt tone="soft" testID="review-first-empty">
+          {first.empty}
+        </Txt>
+      )}
     </Section>
   ) : null;
 
@@ -104,7 +183,12 @@ export function ReviewQueueScreen({
   const choices = (
     <>
       <Field label="Status">
-        <Choice testIDPrefix="filter-status" value={filters.status} onChange={(status) => setFilters((f) => ({ ...f, status }))} options={statusOptions} />
+        <Choice
+          testIDPrefix="filter-status"
+          value={filters.status}
+          onChange={(status) => setFilters((f) => ({ ...f, status }))}
+          options={statusOptions}
+        />
       </Field>
       {builds.length > 1 ? (
         <Field label="Build">
@@ -123,7 +207,9 @@ export function ReviewQueueScreen({
     <View style={{ gap: space.md, paddingBottom: space.md }}>
       {firstBlock}
       {first ? <Section title="Every finding" /> : null}
-      {wide ? choices : (
+      {wide ? (
+        choices
+      ) : (
         <Button
           label={filtersOpen ? 'Hide filters' : `Filters: ${filterSummary}`}
           variant="secondary"
@@ -135,40 +221,72 @@ export function ReviewQueueScreen({
         />
       )}
       {!wide && filtersOpen ? choices : null}
-      <FindField value={filters.text} onChange={(text) => setFilters((f) => ({ ...f, text }))} placeholder="Part, serial, hole, kind or name" where="the queue" testID="filter-text" />
+      <FindField
+        value={filters.text}
+        onChange={(text) => setFilters((f) => ({ ...f, text }))}
+        placeholder="Part, serial, hole, kind or name"
+        where="the queue"
+        testID="filter-text"
+      />
       <Txt variant="small" tone="soft" testID="review-count">
-        {rows.length} shown{rows.length < all.length ? ` of ${all.length} loaded` : ''}{q.hasNextPage ? ' · more to load' : ''}
+        {rows.length} shown{rows.length < all.length ? ` of ${all.length} loaded` : ''}
+        {q.hasNextPage ? ' · more to load' : ''}
       </Txt>
     </View>
   );
 
   return (
     <Screen title={title} subtitle={subtitle} account scroll={false} full testID={testID}>
-      {q.isPending ? <LoadingState what="Loading the findings" />
-        : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
-          : (
-            <View style={{ flex: 1 }}>
-              <Table
-                rows={rows}
-                columns={columns}
-                rowKey={(f) => f.id}
-                sort={sort}
-                onSort={(key) => setSort((s) => nextSort(s, key))}
-                onRowPress={(f) => router.push(`/findings/${f.id}`)}
-                rowTestID={(f) => `review-row-${f.id}`}
-                rowLabel={(f) => `${findingRowLabel(f)}; build ${f.kitSerial}${f.photoCount ? `; ${f.photoCount} photo${f.photoCount === 1 ? '' : 's'}` : ''}`}
-                header={header}
-                // The table's own foot: the list's count and the next page (loaded as it scrolls into view on the web).
-                footer={<LoadMore hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage} shown={all.length} what="findings" testID="review-more" />}
-                empty={
-                  <EmptyState
-                    title={all.length ? 'Nothing loaded matches these words.' : filters.status === 'all' && filters.build === 'all' ? 'No findings yet.' : 'Nothing matches these filters.'}
-                    body={all.length ? 'Clear the search, or load more.' : filters.status === 'all' && filters.build === 'all' ? emptyBody : 'Show all states and builds.'}
-                  />
+      {q.isPending ? (
+        <LoadingState what="Loading the findings" />
+      ) : q.isError ? (
+        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+      ) : (
+        <View style={{ flex: 1 }}>
+          <Table
+            rows={rows}
+            columns={columns}
+            rowKey={(f) => f.id}
+            sort={sort}
+            onSort={(key) => setSort((s) => nextSort(s, key))}
+            onRowPress={(f) => router.push(`/findings/${f.id}`)}
+            rowTestID={(f) => `review-row-${f.id}`}
+            rowLabel={(f) =>
+              `${findingRowLabel(f)}; build ${f.kitSerial}${f.photoCount ? `; ${f.photoCount} photo${f.photoCount === 1 ? '' : 's'}` : ''}`
+            }
+            header={header}
+            // The table's own foot: the list's count and the next page (loaded as it scrolls into view on the web).
+            footer={
+              <LoadMore
+                hasNextPage={q.hasNextPage}
+                isFetchingNextPage={q.isFetchingNextPage}
+                fetchNextPage={q.fetchNextPage}
+                shown={all.length}
+                what="findings"
+                testID="review-more"
+              />
+            }
+            empty={
+              <EmptyState
+                title={
+                  all.length
+                    ? 'Nothing loaded matches these words.'
+                    : filters.status === 'all' && filters.build === 'all'
+                      ? 'No findings yet.'
+                      : 'Nothing matches these filters.'
+                }
+                body={
+                  all.length
+                    ? 'Clear the search, or load more.'
+                    : filters.status === 'all' && filters.build === 'all'
+                      ? emptyBody
+                      : 'Show all states and builds.'
                 }
               />
-            </View>
-          )}
+            }
+          />
+        </View>
+      )}
     </Screen>
   );
 }

@@ -15,11 +15,23 @@ type Base<T extends FieldValues> = {
 
 /** How an e-mail address is typed on every form that asks for one: no capitals, no corrections, the address keyboard. */
 export const emailInputProps = {
-  autoCapitalize: 'none', autoComplete: 'email', keyboardType: 'email-address', inputMode: 'email', textContentType: 'username', autoCorrect: false,
+  autoCapitalize: 'none',
+  autoComplete: 'email',
+  keyboardType: 'email-address',
+  inputMode: 'email',
+  textContentType: 'username',
+  autoCorrect: false,
 } as const;
 
 /** A text field bound to react-hook-form, with its error right under it. */
-export function FormTextField<T extends FieldValues>({ control, name, label, hint, testID, ...input }: Base<T> & Omit<TextBoxProps, 'value' | 'onChangeText' | 'testID'>) {
+export function FormTextField<T extends FieldValues>({
+  control,
+  name,
+  label,
+  hint,
+  testID,
+  ...input
+}: Base<T> & Omit<TextBoxProps, 'value' | 'onChangeText' | 'testID'>) {
   return (
     <Controller
       control={control}
@@ -46,7 +58,15 @@ export function FormTextField<T extends FieldValues>({ control, name, label, hin
  * A number field. The form holds the stored value (inches, pounds); with `quantity` the person types
  * in the unit they chose and the field converts. What they typed stays as typed while they type.
  */
-export function FormNumberField<T extends FieldValues>({ control, name, label, hint, testID, quantity, unit }: Base<T> & { quantity?: Quantity; unit?: string }) {
+export function FormNumberField<T extends FieldValues>({
+  control,
+  name,
+  label,
+  hint,
+  testID,
+  quantity,
+  unit,
+}: Base<T> & { quantity?: Quantity; unit?: string }) {
   const units = useUnits();
   return (
     <Controller
@@ -60,7 +80,9 @@ export function FormNumberField<T extends FieldValues>({ control, name, label, h
           unit={quantity ? units.label(quantity) : unit}
           error={fieldState.error?.message}
           value={field.value as number | undefined}
-          toText={(v) => (quantity ? editableNumber(quantity, v, units.system) : editableNumber('length', v, 'imperial'))}
+          toText={(v) =>
+            quantity ? editableNumber(quantity, v, units.system) : editableNumber('length', v, 'imperial')
+          }
           fromText={(t) => {
             const n = parseNumber(t);
             if (n === undefined || Number.isNaN(n) || !quantity) return n;
@@ -75,17 +97,39 @@ export function FormNumberField<T extends FieldValues>({ control, name, label, h
   );
 }
 
-function NumberBox({ label, hint, testID, unit, error, value, toText, fromText, onChange, onBlur, system }: {
-  label: string; hint?: string; testID: string; unit?: string; error?: string; value: number | undefined;
-  toText: (v: number | undefined) => string; fromText: (t: string) => number | undefined;
-  onChange: (v: number | undefined) => void; onBlur: () => void; system: string;
+function NumberBox({
+  label,
+  hint,
+  testID,
+  unit,
+  error,
+  value,
+  toText,
+  fromText,
+  onChange,
+  onBlur,
+  system,
+}: {
+  label: string;
+  hint?: string;
+  testID: string;
+  unit?: string;
+  error?: string;
+  value: number | undefined;
+  toText: (v: number | undefined) => string;
+  fromText: (t: string) => number | undefined;
+  onChange: (v: number | undefined) => void;
+  onBlur: () => void;
+  system: string;
 }) {
   const [text, setText] = useState(() => toText(value));
   // Follow outside changes (a reset, a units switch), but not the echo of our own typing.
   useEffect(() => {
     const mine = fromText(text);
-    const same = (mine === undefined && value === undefined) || (typeof mine === 'number' && typeof value === 'number' && Math.abs(mine - value) < 1e-9)
-      || (Number.isNaN(mine) && Number.isNaN(value));
+    const same =
+      (mine === undefined && value === undefined) ||
+      (typeof mine === 'number' && typeof value === 'number' && Math.abs(mine - value) < 1e-9) ||
+      (Number.isNaN(mine) && Number.isNaN(value));
     if (!same) setText(toText(value));
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [value]);
@@ -113,7 +157,14 @@ function NumberBox({ label, hint, testID, unit, error, value, toText, fromText, 
   );
 }
 
-export function FormChoiceField<T extends FieldValues, V extends string>({ control, name, label, hint, testID, options }: Base<T> & { options: readonly ChoiceOption<V>[] }) {
+export function FormChoiceField<T extends FieldValues, V extends string>({
+  control,
+  name,
+  label,
+  hint,
+  testID,
+  options,
+}: Base<T> & { options: readonly ChoiceOption<V>[] }) {
   return (
     <Controller
       control={control}
@@ -123,7 +174,10 @@ export function FormChoiceField<T extends FieldValues, V extends string>({ contr
           <Choice
             options={options}
             value={field.value as V | undefined}
-            onChange={(v) => { field.onChange(v); field.onBlur(); }}
+            onChange={(v) => {
+              field.onChange(v);
+              field.onBlur();
+            }}
             testIDPrefix={testID}
             invalid={!!fieldState.error}
             label={label}

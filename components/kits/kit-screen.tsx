@@ -21,14 +21,28 @@ import { useKitDeleteMutation, useKitQuery, useKitUpdateMutation } from '@/hooks
 type Values = z.input<typeof kitChangeInput>;
 type Out = z.output<typeof kitChangeInput>;
 
-const categoryWords: Record<(typeof aircraftCategories)[number], string> = { normal: 'Normal', utility: 'Utility', acrobatic: 'Acrobatic' };
+const categoryWords: Record<(typeof aircraftCategories)[number], string> = {
+  normal: 'Normal',
+  utility: 'Utility',
+  acrobatic: 'Acrobatic',
+};
 const show = (v: unknown) => (v === null || v === undefined || v === '' ? '–' : String(v));
 
 /** A kit model's own page: its data to correct, what relies on it, its history, and delete while nothing does. */
 export function KitScreen({ kitId }: { kitId: string }) {
   const q = useKitQuery(kitId);
-  if (q.isPending) return <Screen title="Kit model" backTo="/catalogue"><LoadingState what="Loading the kit model" /></Screen>;
-  if (q.isError) return <Screen title="Kit model" backTo="/catalogue"><ErrorState error={q.error} onRetry={() => void q.refetch()} /></Screen>;
+  if (q.isPending)
+    return (
+      <Screen title="Kit model" backTo="/catalogue">
+        <LoadingState what="Loading the kit model" />
+      </Screen>
+    );
+  if (q.isError)
+    return (
+      <Screen title="Kit model" backTo="/catalogue">
+        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+      </Screen>
+    );
   return <KitBody kit={q.data} />;
 }
 
@@ -44,20 +58,31 @@ function KitBody({ kit }: { kit: KitModelDetail }) {
     resolver: zodResolver(kitChangeInput, plainParse),
     mode: 'onChange',
     defaultValues: {
-      code: kit.code, name: kit.name, weightLb: kit.weightLb, wingAreaSqFt: kit.wingAreaSqFt, meanChordIn: kit.meanChordIn,
-      stallSpeedKeas: kit.stallSpeedKeas, cruiseSpeedKeas: kit.cruiseSpeedKeas ?? undefined, category: kit.category, airfoil: kit.airfoil, reason: '',
+      code: kit.code,
+      name: kit.name,
+      weightLb: kit.weightLb,
+      wingAreaSqFt: kit.wingAreaSqFt,
+      meanChordIn: kit.meanChordIn,
+      stallSpeedKeas: kit.stallSpeedKeas,
+      cruiseSpeedKeas: kit.cruiseSpeedKeas ?? undefined,
+      category: kit.category,
+      airfoil: kit.airfoil,
+      reason: '',
     },
   });
-  const submit = handleSubmit(async (v) => {
-    setFormError(null);
-    try {
-      const next = await update.mutateAsync(v);
-      reset({ ...v, cruiseSpeedKeas: next.cruiseSpeedKeas ?? undefined, reason: '' });
-      setSaved(true);
-    } catch (e) {
-      setFormError(applyServerErrors(setError, e));
-    }
-  }, () => setFormError('Some fields need a look: see the messages in red.'));
+  const submit = handleSubmit(
+    async (v) => {
+      setFormError(null);
+      try {
+        const next = await update.mutateAsync(v);
+        reset({ ...v, cruiseSpeedKeas: next.cruiseSpeedKeas ?? undefined, reason: '' });
+        setSaved(true);
+      } catch (e) {
+        setFormError(applyServerErrors(setError, e));
+      }
+    },
+    () => setFormError('Some fields need a look: see the messages in red.'),
+  );
   const confirmDelete = async () => {
     try {
       await remove.mutateAsync();
@@ -71,36 +96,123 @@ function KitBody({ kit }: { kit: KitModelDetail }) {
     <Screen title={`${kit.code} · ${kit.name}`} subtitle="Kit model" backTo="/catalogue" testID="kit-screen">
       <Section title="What relies on it">
         <Txt testID="kit-reliance">
-          <Mono bold>{kit.reliance.publishedParts}</Mono> published part{kit.reliance.publishedParts === 1 ? '' : 's'} · <Mono bold>{kit.reliance.builds}</Mono> shipped build{kit.reliance.builds === 1 ? '' : 's'} · <Mono bold>{kit.reliance.studies}</Mono> load stud{kit.reliance.studies === 1 ? 'y' : 'ies'}
+          <Mono bold>{kit.reliance.publishedParts}</Mono> published part{kit.reliance.publishedParts === 1 ? '' : 's'} ·{' '}
+          <Mono bold>{kit.reliance.builds}</Mono> shipped build{kit.reliance.builds === 1 ? '' : 's'} ·{' '}
+          <Mono bold>{kit.reliance.studies}</Mono> load stud{kit.reliance.studies === 1 ? 'y' : 'ies'}
         </Txt>
-        {relied ? <Txt variant="small" tone="soft">A change of its numbers is kept in its history with the old values and your reason; studies and published parts keep the numbers they were made from.</Txt> : null}
+        {relied ? (
+          <Txt variant="small" tone="soft">
+            A change of its numbers is kept in its history with the old values and your reason; studies and published
+            parts keep the numbers they were made from.
+          </Txt>
+        ) : null}
       </Section>
       {kit.allowedActions.includes('edit') ? (
         <Section title="The kit">
-          <FormTextField control={control} name="code" label="Code" testID="kit-code" autoCapitalize="characters" mono />
+          <FormTextField
+            control={control}
+            name="code"
+            label="Code"
+            testID="kit-code"
+            autoCapitalize="characters"
+            mono
+          />
           <FormTextField control={control} name="name" label="Name" testID="kit-name" />
-          <FormChoiceField control={control} name="category" label="Category" testID="kit-category" options={aircraftCategories.map((c) => ({ value: c, label: categoryWords[c] }))} />
-          <FormTextField control={control} name="airfoil" label="Airfoil" testID="kit-airfoil" autoCapitalize="characters" mono />
+          <FormChoiceField
+            control={control}
+            name="category"
+            label="Category"
+            testID="kit-category"
+            options={aircraftCategories.map((c) => ({ value: c, label: categoryWords[c] }))}
+          />
+          <FormTextField
+            control={control}
+            name="airfoil"
+            label="Airfoil"
+            testID="kit-airfoil"
+            autoCapitalize="characters"
+            mono
+          />
           <FormNumberField control={control} name="weightLb" label="Gross weight" quantity="mass" testID="kit-weight" />
-          <FormNumberField control={control} name="wingAreaSqFt" label="Wing area" quantity="area" testID="kit-wing-area" />
-          <FormNumberField control={control} name="meanChordIn" label="Mean chord" quantity="length" testID="kit-mean-chord" />
+          <FormNumberField
+            control={control}
+            name="wingAreaSqFt"
+            label="Wing area"
+            quantity="area"
+            testID="kit-wing-area"
+          />
+          <FormNumberField
+            control={control}
+            name="meanChordIn"
+            label="Mean chord"
+            quantity="length"
+            testID="kit-mean-chord"
+          />
           <FormNumberField control={control} name="stallSpeedKeas" label="Stall speed" unit="KEAS" testID="kit-stall" />
-          <FormNumberField control={control} name="cruiseSpeedKeas" label="Cruise speed (optional)" unit="KEAS" testID="kit-cruise" />
-          <FormTextField control={control} name="reason" label={relied ? 'Why it changes (needed for its numbers)' : 'Why it changes (optional)'} testID="kit-reason" multiline />
-          {formError ? <Notice tone="error" testID="kit-error">{formError}</Notice> : null}
-          {saved && !formState.isDirty ? <Notice tone="ok" testID="kit-saved">Saved; the change is in the history below.</Notice> : null}
-          <Button label="Save the changes" busyLabel="Saving" busy={formState.isSubmitting} onPress={() => void submit()} testID="kit-save" />
+          <FormNumberField
+            control={control}
+            name="cruiseSpeedKeas"
+            label="Cruise speed (optional)"
+            unit="KEAS"
+            testID="kit-cruise"
+          />
+          <FormTextField
+            control={control}
+            name="reason"
+            label={relied ? 'Why it changes (needed for its numbers)' : 'Why it changes (optional)'}
+            testID="kit-reason"
+            multiline
+          />
+          {formError ? (
+            <Notice tone="error" testID="kit-error">
+              {formError}
+            </Notice>
+          ) : null}
+          {saved && !formState.isDirty ? (
+            <Notice tone="ok" testID="kit-saved">
+              Saved; the change is in the history below.
+            </Notice>
+          ) : null}
+          <Button
+            label="Save the changes"
+            busyLabel="Saving"
+            busy={formState.isSubmitting}
+            onPress={() => void submit()}
+            testID="kit-save"
+          />
         </Section>
       ) : null}
       <Section title="History" testID="kit-history">
-        {kit.changes.length ? kit.changes.map((c) => (
-          <View key={c.id} style={{ paddingVertical: space.sm, borderBottomWidth: hairline, borderColor: colors.rule, gap: space.xs }} testID={`kit-change-${c.id}`}>
-            <Txt variant="small" tone="soft">{c.createdAt.slice(0, 10)} · {c.changedByName}{c.reason ? ` · “${c.reason}”` : ''}</Txt>
-            {Object.keys(c.after).map((f) => (
-              <Txt key={f} variant="small">{kitFieldLabels[f as keyof typeof kitFieldLabels] ?? f}: <Mono variant="small">{show(c.before[f])}</Mono> → <Mono variant="small" bold>{show(c.after[f])}</Mono></Txt>
-            ))}
-          </View>
-        )) : <Txt tone="soft">No changes since it was made.</Txt>}
+        {kit.changes.length ? (
+          kit.changes.map((c) => (
+            <View
+              key={c.id}
+              style={{
+                paddingVertical: space.sm,
+                borderBottomWidth: hairline,
+                borderColor: colors.rule,
+                gap: space.xs,
+              }}
+              testID={`kit-change-${c.id}`}
+            >
+              <Txt variant="small" tone="soft">
+                {c.createdAt.slice(0, 10)} · {c.changedByName}
+                {c.reason ? ` · “${c.reason}”` : ''}
+              </Txt>
+              {Object.keys(c.after).map((f) => (
+                <Txt key={f} variant="small">
+                  {kitFieldLabels[f as keyof typeof kitFieldLabels] ?? f}:{' '}
+                  <Mono variant="small">{show(c.before[f])}</Mono> →{' '}
+                  <Mono variant="small" bold>
+                    {show(c.after[f])}
+                  </Mono>
+                </Txt>
+              ))}
+            </View>
+          ))
+        ) : (
+          <Txt tone="soft">No changes since it was made.</Txt>
+        )}
       </Section>
       <Section title="Delete">
         {kit.allowedActions.includes('delete') ? (
@@ -115,8 +227,22 @@ function KitBody({ kit }: { kit: KitModelDetail }) {
               onConfirm={() => void confirmDelete()}
               onCancel={() => setAsking(false)}
             />
-          ) : <Button label="Delete this kit model…" variant="secondary" onPress={() => { setAsking(true); remove.reset(); }} testID="kit-delete" />
-        ) : <Txt tone="soft" testID="kit-delete-refusal">{kit.deleteRefusal}</Txt>}
+          ) : (
+            <Button
+              label="Delete this kit model…"
+              variant="secondary"
+              onPress={() => {
+                setAsking(true);
+                remove.reset();
+              }}
+              testID="kit-delete"
+            />
+          )
+        ) : (
+          <Txt tone="soft" testID="kit-delete-refusal">
+            {kit.deleteRefusal}
+          </Txt>
+        )}
       </Section>
     </Screen>
   );

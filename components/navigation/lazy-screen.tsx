@@ -19,7 +19,13 @@ export function lazyScreen<P extends object>(title: string, load: () => Promise<
     const [Body, setBody] = useState(make);
     return (
       <Retry title={title} onRetry={() => setBody(make)}>
-        <Suspense fallback={<Plain><LoadingState what={`Opening ${title.toLowerCase()}`} /></Plain>}>
+        <Suspense
+          fallback={
+            <Plain>
+              <LoadingState what={`Opening ${title.toLowerCase()}`} />
+            </Plain>
+          }
+        >
           <Body {...props} />
         </Suspense>
       </Retry>
@@ -39,12 +45,21 @@ function Plain({ children }: { children: ReactNode }) {
 
 class Retry extends Component<{ title: string; onRetry: () => void; children: ReactNode }, { error: unknown }> {
   state = { error: undefined as unknown };
-  static getDerivedStateFromError(error: unknown) { return { error }; }
+  static getDerivedStateFromError(error: unknown) {
+    return { error };
+  }
   render() {
     if (this.state.error === undefined) return this.props.children;
     return (
       <Plain>
-        <ErrorState error={this.state.error} title={`${this.props.title} did not load`} onRetry={() => { this.props.onRetry(); this.setState({ error: undefined }); }} />
+        <ErrorState
+          error={this.state.error}
+          title={`${this.props.title} did not load`}
+          onRetry={() => {
+            this.props.onRetry();
+            this.setState({ error: undefined });
+          }}
+        />
       </Plain>
     );
   }

@@ -94,7 +94,8 @@ export function hiddenPageHref(route: RouteSnapshot): string | null {
   for (const [key, value] of Object.entries(route.params)) {
     // Path parameters are already in the path; `#` and `__…` are the router's own bookkeeping.
     if (fromPath.has(key) || key === '#' || key.startsWith('__') || value === undefined) continue;
-    for (const v of Array.isArray(value) ? value : [value]) query.push(`${encodeURIComponent(key)}=${encodeURIComponent(v)}`);
+    for (const v of Array.isArray(value) ? value : [value])
+      query.push(`${encodeURIComponent(key)}=${encodeURIComponent(v)}`);
   }
   return safeInAppPath(query.length ? `${path}?${query.join('&')}` : path);
 }

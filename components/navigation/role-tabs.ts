@@ -2,7 +2,10 @@ import type { Role, SessionUser } from '@/db/contracts';
 import type { TabGlyph } from './tab-icon';
 
 export type Tab = {
-  name: string; title: string; glyph: TabGlyph; testID: string;
+  name: string;
+  title: string;
+  glyph: TabGlyph;
+  testID: string;
   /**
    * The label under the icon where a phone's tabs are narrow (a supplier's six share 390 px, 53 px of
    * label each): "Catalogue" and "Approvals" broke inside the word there.
@@ -52,8 +55,19 @@ export function tabsFor(user: Pick<SessionUser, 'role' | 'lead'> | null): Tab[] 
 // 'index' first: it is the navigator's first route, which sends each role to its own first tab.
 // 'account' is no tab of anyone's: it opens from every screen's header; 'phone' is the admin's tab and
 // opens from a supplier's account page.
-export const allTabRoutes = ['index', 'bench', 'travelers', 'findings', 'catalogue', 'studies', 'coupons', 'builds', 'people', 'account', 'phone'] as const;
-
+export const allTabRoutes = [
+  'index',
+  'bench',
+  'travelers',
+  'findings',
+  'catalogue',
+  'studies',
+  'coupons',
+  'builds',
+  'people',
+  'account',
+  'phone',
+] as const;
 
 export type AppRoute = (typeof allTabRoutes)[number];
 
@@ -77,7 +91,10 @@ export function mayOpen(role: Role | null | undefined, route: AppRoute): boolean
 
 /** Whether a path inside the app (a pending link) is a page the role works on; its first segment decides. */
 export function mayOpenPath(role: Role | null | undefined, path: string): boolean {
-  const first = path.split(/[?#]/)[0].split('/').find((seg) => seg && !/^\(.*\)$/.test(seg));
+  const first = path
+    .split(/[?#]/)[0]
+    .split('/')
+    .find((seg) => seg && !/^\(.*\)$/.test(seg));
   const route = (allTabRoutes as readonly string[]).find((r) => r === first) as AppRoute | undefined;
   return route ? mayOpen(role, route) : true;
 }

@@ -1,10 +1,17 @@
 import Svg, { Circle, Line, Path, Rect } from 'react-native-svg';
 
-export type TabGlyph = 'bench' | 'parts' | 'findings' | 'review' | 'builds' | 'catalogue' | 'studies' | 'coupons' | 'session' | 'people';
+export type TabGlyph =
+  'bench' | 'parts' | 'findings' | 'review' | 'builds' | 'catalogue' | 'studies' | 'coupons' | 'session' | 'people';
 
 /** Line drawings in the drafting style; the label under each says what it is. */
 export function TabIcon({ glyph, color, size = 26 }: { glyph: TabGlyph; color: string; size?: number }) {
-  const s = { stroke: color, strokeWidth: 2, fill: 'none', strokeLinecap: 'round' as const, strokeLinejoin: 'round' as const };
+  const s = {
+    stroke: color,
+    strokeWidth: 2,
+    fill: 'none',
+    strokeLinecap: 'round' as const,
+    strokeLinejoin: 'round' as const,
+  };
   return (
     <Svg width={size} height={size} viewBox="0 0 24 24">
       {glyph === 'bench' && (

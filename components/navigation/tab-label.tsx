@@ -6,7 +6,11 @@ import { fonts } from '@/constants/theme';
  * were cut to "Appro…" in a supplier's six 65 px tabs. Narrow tabs take 12 px, two lines and less padding;
  * the bar grows to hold the second line.
  */
-export function tabLabelFit(width: number, tabs: number, wide: boolean): { fontSize: number; itemPadding: number; barMinHeight: number; short: boolean } {
+export function tabLabelFit(
+  width: number,
+  tabs: number,
+  wide: boolean,
+): { fontSize: number; itemPadding: number; barMinHeight: number; short: boolean } {
   const perTab = width / Math.max(1, tabs);
   if (wide || perTab >= 96) return { fontSize: 14, itemPadding: 5, barMinHeight: 64, short: false };
   // Under 72 px a tab's long words ("Catalogue", "Approvals") do not fit whole even at 12 px: their short names do.
@@ -18,7 +22,14 @@ export function TabLabel({ text, color, fontSize }: { text: string; color: strin
   return (
     <Text
       numberOfLines={2}
-      style={{ color, fontFamily: fonts.textBold, fontSize, lineHeight: Math.round(fontSize * 1.2), textAlign: 'center', marginTop: 2 }}
+      style={{
+        color,
+        fontFamily: fonts.textBold,
+        fontSize,
+        lineHeight: Math.round(fontSize * 1.2),
+        textAlign: 'center',
+        marginTop: 2,
+      }}
     >
       {text}
     </Text>

@@ -3,7 +3,14 @@ import { useEffect, useMemo, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import type { z } from 'zod';
-import { INVITATION_TTL_HOURS, inviteInput, roleLabels, roles, type OrganizationSummary, type SessionUser } from '@/db/contracts';
+import {
+  INVITATION_TTL_HOURS,
+  inviteInput,
+  roleLabels,
+  roles,
+  type OrganizationSummary,
+  type SessionUser,
+} from '@/db/contracts';
 import { colors, radius, space, touch } from '@/constants/theme';
 import { FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
@@ -26,12 +33,22 @@ const NONE = 'none';
  * Invites a person by mail: the admin chooses the role and the organisation; a supplier's lead engineer
  * invites engineers into their own organisation, so for them both are fixed and only said.
  */
-export function InviteForm({ me, organizations }: { me: SessionUser; organizations: readonly OrganizationSummary[] | undefined }) {
+export function InviteForm({
+  me,
+  organizations,
+}: {
+  me: SessionUser;
+  organizations: readonly OrganizationSummary[] | undefined;
+}) {
   const invite = usePeopleInviteMutation();
   const admin = me.role === 'admin';
   const [sent, setSent] = useState<string | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
-  const { control, handleSubmit, setError, setValue, watch, reset, getValues, formState } = useForm<Values, unknown, z.output<typeof inviteInput>>({
+  const { control, handleSubmit, setError, setValue, watch, reset, getValues, formState } = useForm<
+    Values,
+    unknown,
+    z.output<typeof inviteInput>
+  >({
     resolver: zodResolver(inviteInput, plainParse),
     mode: 'onChange',
     defaultValues: admin
@@ -54,18 +71,41 @@ export function InviteForm({ me, organizations }: { me: SessionUser; organizatio
     setSent(null);
     try {
       await invite.mutateAsync(v);
-      setSent(`Invitation sent to ${v.email}. The link in it works once, for ${Math.round(INVITATION_TTL_HOURS / 24)} days.`);
+      setSent(
+        `Invitation sent to ${v.email}. The link in it works once, for ${Math.round(INVITATION_TTL_HOURS / 24)} days.`,
+      );
       // The next invitation is often for a colleague of the same place: role and organisation stay.
       reset({ ...getValues(), email: '', name: '', lead: false });
     } catch (e) {
-      setFormError(applyServerErrors(setError, e, (path) => (['email', 'name', 'role', 'organizationId', 'lead'].includes(path) ? path : null)));
+      setFormError(
+        applyServerErrors(setError, e, (path) =>
+          ['email', 'name', 'role', 'organizationId', 'lead'].includes(path) ? path : null,
+        ),
+      );
     }
   });
 
   return (
     <Section title={admin ? 'Invite someone' : 'Invite an engineer'} testID="invite-person">
-      <FormTextField control={control} name="email" label="E-mail" testID="invite-person-email" autoCapitalize="none" autoCorrect={false} keyboardType="email-address" inputMode="email" maxLength={254} />
-      <FormTextField control={control} name="name" label="Name" hint="Used in the invitation; they can correct it when they join." testID="invite-person-name" maxLength={120} />
+      <FormTextField
+        control={control}
+        name="email"
+        label="E-mail"
+        testID="invite-person-email"
+        autoCapitalize="none"
+        autoCorrect={false}
+        keyboardType="email-address"
+        inputMode="email"
+        maxLength={254}
+      />
+      <FormTextField
+        control={control}
+        name="name"
+        label="Name"
+        hint="Used in the invitation; they can correct it when they join."
+        testID="invite-person-name"
+        maxLength={120}
+      />
       {admin ? (
         <>
           <Controller
@@ -73,7 +113,16 @@ export function InviteForm({ me, organizations }: { me: SessionUser; organizatio
             name="role"
             render={({ field, fieldState }) => (
               <Field label="Role" error={fieldState.error?.message} testID="invite-role-field">
-                <Choice options={roles.map((r) => ({ value: r, label: roleLabels[r] }))} value={field.value} onChange={(v) => { field.onChange(v); field.onBlur(); }} testIDPrefix="invite-role" invalid={!!fieldState.error} />
+                <Choice
+                  options={roles.map((r) => ({ value: r, label: roleLabels[r] }))}
+                  value={field.value}
+                  onChange={(v) => {
+                    field.onChange(v);
+                    field.onBlur();
+                  }}
+                  testIDPrefix="invite-role"
+                  invalid={!!fieldState.error}
+                />
               </Field>
             )}
           />
@@ -83,18 +132,32 @@ export function InviteForm({ me, organizations }: { me: SessionUser; organizatio
             render={({ field, fieldState }) => (
               <Field
                 label="Organisation"
-                hint={role === 'admin' ? 'An administrator belongs to no organisation.' : role ? 'Only organisations that hold this role are offered.' : 'Choose the role first.'}
+                hint={
+                  role === 'admin'
+                    ? 'An administrator belongs to no organisation.'
+                    : role
+                      ? 'Only organisations that hold this role are offered.'
+                      : 'Choose the role first.'
+                }
                 error={fieldState.error?.message}
                 testID="invite-org-field"
               >
                 <Choice
                   columns={orgChoices.length > 3}
                   options={[
-                    { value: NONE, label: 'No organisation', hint: role === 'builder' || role === 'inspector' ? 'An independent builder or inspector' : undefined },
+                    {
+                      value: NONE,
+                      label: 'No organisation',
+                      hint:
+                        role === 'builder' || role === 'inspector' ? 'An independent builder or inspector' : undefined,
+                    },
                     ...orgChoices.map((o) => ({ value: o.id, key: o.id, label: o.name })),
                   ]}
                   value={field.value ?? NONE}
-                  onChange={(v) => { field.onChange(v === NONE ? null : v); field.onBlur(); }}
+                  onChange={(v) => {
+                    field.onChange(v === NONE ? null : v);
+                    field.onBlur();
+                  }}
                   testIDPrefix="invite-org"
                   invalid={!!fieldState.error}
                 />
@@ -122,22 +185,51 @@ export function InviteForm({ me, organizations }: { me: SessionUser; organizatio
                 onPress={() => field.onChange(!field.value)}
                 style={({ pressed }) => [styles.check, pressed && { opacity: 0.75 }]}
               >
-                <View style={[styles.box, field.value && styles.boxOn]}>{field.value ? <Txt tone="inverse" bold>✓</Txt> : null}</View>
+                <View style={[styles.box, field.value && styles.boxOn]}>
+                  {field.value ? (
+                    <Txt tone="inverse" bold>
+                      ✓
+                    </Txt>
+                  ) : null}
+                </View>
                 <Txt style={{ flex: 1 }}>May invite and manage the engineers of their organisation</Txt>
               </Toggle>
             </Field>
           )}
         />
       ) : null}
-      {formError ? <Notice tone="error" testID="invite-person-error">{formError}</Notice> : null}
-      {sent ? <Notice tone="ok" testID="invite-sent">{sent}</Notice> : null}
-      <Button label="Send the invitation" busyLabel="Sending" busy={formState.isSubmitting} onPress={() => void submit()} testID="invite-send" />
+      {formError ? (
+        <Notice tone="error" testID="invite-person-error">
+          {formError}
+        </Notice>
+      ) : null}
+      {sent ? (
+        <Notice tone="ok" testID="invite-sent">
+          {sent}
+        </Notice>
+      ) : null}
+      <Button
+        label="Send the invitation"
+        busyLabel="Sending"
+        busy={formState.isSubmitting}
+        onPress={() => void submit()}
+        testID="invite-send"
+      />
     </Section>
   );
 }
 
 const styles = StyleSheet.create({
   check: { flexDirection: 'row', alignItems: 'center', gap: space.md, minHeight: touch },
-  box: { width: 28, height: 28, borderWidth: 2, borderColor: colors.ink, borderRadius: radius.sm, alignItems: 'center', justifyContent: 'center', backgroundColor: colors.paperRaised },
+  box: {
+    width: 28,
+    height: 28,
+    borderWidth: 2,
+    borderColor: colors.ink,
+    borderRadius: radius.sm,
+    alignItems: 'center',
+    justifyContent: 'center',
+    backgroundColor: colors.paperRaised,
+  },
   boxOn: { backgroundColor: colors.ink },
 });

@@ -28,24 +28,43 @@ export function OrganizationsSection() {
     <Section
       title="Organisations"
       testID="organizations"
-      aside={!adding ? <Button label="New organisation" variant="quiet" compact onPress={() => setAdding(true)} testID="org-new" /> : undefined}
+      aside={
+        !adding ? (
+          <Button label="New organisation" variant="quiet" compact onPress={() => setAdding(true)} testID="org-new" />
+        ) : undefined
+      }
     >
       {adding ? <NewOrganization onClose={() => setAdding(false)} /> : null}
-      {q.isPending ? <LoadingState what="Loading organisations" />
-        : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
-          : !rows.length ? <EmptyState title="No organisations yet." body="Add the kit suppliers, build shops and inspection bodies whose people use Pitchcard." />
-            : (
-              <View>
-                {/* The server's order (by name, then id): pages append without rows moving. */}
-                {rows.map((o) => (
-                  <View key={o.id} style={styles.row} testID={`org-${o.id}`}>
-                    <Txt bold>{o.name}</Txt>
-                    <Txt variant="small" tone="soft">{organizationWords(o)}</Txt>
-                  </View>
-                ))}
-                <LoadMore hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage} shown={rows.length} what="organisations" testID="organizations-more" />
-              </View>
-            )}
+      {q.isPending ? (
+        <LoadingState what="Loading organisations" />
+      ) : q.isError ? (
+        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+      ) : !rows.length ? (
+        <EmptyState
+          title="No organisations yet."
+          body="Add the kit suppliers, build shops and inspection bodies whose people use Pitchcard."
+        />
+      ) : (
+        <View>
+          {/* The server's order (by name, then id): pages append without rows moving. */}
+          {rows.map((o) => (
+            <View key={o.id} style={styles.row} testID={`org-${o.id}`}>
+              <Txt bold>{o.name}</Txt>
+              <Txt variant="small" tone="soft">
+                {organizationWords(o)}
+              </Txt>
+            </View>
+          ))}
+          <LoadMore
+            hasNextPage={q.hasNextPage}
+            isFetchingNextPage={q.isFetchingNextPage}
+            fetchNextPage={q.fetchNextPage}
+            shown={rows.length}
+            what="organisations"
+            testID="organizations-more"
+          />
+        </View>
+      )}
     </Section>
   );
 }
@@ -54,7 +73,11 @@ function NewOrganization({ onClose }: { onClose: () => void }) {
   const create = usePeopleOrganizationCreateMutation();
   const [formError, setFormError] = useState<string | null>(null);
   const [made, setMade] = useState<string | null>(null);
-  const { control, handleSubmit, setError, reset, formState } = useForm<Values, unknown, z.output<typeof organizationInput>>({
+  const { control, handleSubmit, setError, reset, formState } = useForm<
+    Values,
+    unknown,
+    z.output<typeof organizationInput>
+  >({
     resolver: zodResolver(organizationInput, plainParse),
     mode: 'onChange',
     defaultValues: { name: '', kind: undefined },
@@ -72,11 +95,31 @@ function NewOrganization({ onClose }: { onClose: () => void }) {
   return (
     <View style={styles.form} testID="org-form">
       <FormTextField control={control} name="name" label="Name" testID="org-name" maxLength={120} />
-      <FormChoiceField control={control} name="kind" label="Kind" testID="org-kind" options={organizationKinds.map((k) => ({ value: k, label: organizationKindLabels[k] }))} />
-      {formError ? <Notice tone="error" testID="org-error">{formError}</Notice> : null}
-      {made ? <Notice tone="ok" testID="org-created">{made}</Notice> : null}
+      <FormChoiceField
+        control={control}
+        name="kind"
+        label="Kind"
+        testID="org-kind"
+        options={organizationKinds.map((k) => ({ value: k, label: organizationKindLabels[k] }))}
+      />
+      {formError ? (
+        <Notice tone="error" testID="org-error">
+          {formError}
+        </Notice>
+      ) : null}
+      {made ? (
+        <Notice tone="ok" testID="org-created">
+          {made}
+        </Notice>
+      ) : null}
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-        <Button label="Add the organisation" busyLabel="Adding" busy={formState.isSubmitting} onPress={() => void submit()} testID="org-create" />
+        <Button
+          label="Add the organisation"
+          busyLabel="Adding"
+          busy={formState.isSubmitting}
+          onPress={() => void submit()}
+          testID="org-create"
+        />
         <Button label="Close" variant="quiet" onPress={onClose} testID="org-close" />
       </View>
     </View>

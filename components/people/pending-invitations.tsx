@@ -15,30 +15,66 @@ export function PendingInvitations() {
   const q = usePeopleInvitationsQuery();
   const rows = pagedItems(q.data);
   return (
-    <Section title="Waiting to join" testID="pending-invitations" aside={rows.length ? <Mono variant="small" tone="soft">{rows.length}{q.hasNextPage ? '+' : ''}</Mono> : undefined}>
-      {q.isPending ? <LoadingState what="Loading invitations" />
-        : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
-          : !rows.length ? <EmptyState title="Nobody is waiting to join." body="Everyone invited has set their password, or their link ran out." />
-            : (
-              <View>
-                {rows.map((i) => <InvitationRow key={i.id} i={i} />)}
-                <LoadMore hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage} shown={rows.length} what="invitations" testID="invitations-more" />
-              </View>
-            )}
+    <Section
+      title="Waiting to join"
+      testID="pending-invitations"
+      aside={
+        rows.length ? (
+          <Mono variant="small" tone="soft">
+            {rows.length}
+            {q.hasNextPage ? '+' : ''}
+          </Mono>
+        ) : undefined
+      }
+    >
+      {q.isPending ? (
+        <LoadingState what="Loading invitations" />
+      ) : q.isError ? (
+        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+      ) : !rows.length ? (
+        <EmptyState
+          title="Nobody is waiting to join."
+          body="Everyone invited has set their password, or their link ran out."
+        />
+      ) : (
+        <View>
+          {rows.map((i) => (
+            <InvitationRow key={i.id} i={i} />
+          ))}
+          <LoadMore
+            hasNextPage={q.hasNextPage}
+            isFetchingNextPage={q.isFetchingNextPage}
+            fetchNextPage={q.fetchNextPage}
+            shown={rows.length}
+            what="invitations"
+            testID="invitations-more"
+          />
+        </View>
+      )}
     </Section>
   );
 }
 
 function InvitationRow({ i }: { i: PendingInvitation }) {
-  const what = i.buildKitSerial && i.place
-    ? `${memberPlaceLabels[i.place]} on build ${i.buildKitSerial}`
-    : `${roleLabels[i.role]}${i.organizationName ? ` · ${i.organizationName}` : ''}`;
+  const what =
+    i.buildKitSerial && i.place
+      ? `${memberPlaceLabels[i.place]} on build ${i.buildKitSerial}`
+      : `${roleLabels[i.role]}${i.organizationName ? ` · ${i.organizationName}` : ''}`;
   return (
     <View style={styles.row} testID={`invitation-${i.email}`}>
-      <Txt bold>{i.name} <Txt variant="small" tone="caution">· not joined yet</Txt></Txt>
-      <Mono variant="small" tone="soft" style={wrapAnywhere}>{i.email}</Mono>
+      <Txt bold>
+        {i.name}{' '}
+        <Txt variant="small" tone="caution">
+          · not joined yet
+        </Txt>
+      </Txt>
+      <Mono variant="small" tone="soft" style={wrapAnywhere}>
+        {i.email}
+      </Mono>
       <Txt variant="small">{what}</Txt>
-      <Txt variant="small" tone="faint">Invited by {i.invitedByName} · link works until {shortDate(i.expiresAt)}</Txt>
+      <Txt variant="small" tone="faint">
+        Invited by {i.invitedByName} · link works until {shortDate(i.expiresAt)}
+      </Txt>
     </View>
   );
 }

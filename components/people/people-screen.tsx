@@ -26,14 +26,19 @@ export function PeopleScreen() {
   if (!user || !manages) {
     return (
       <Screen title="People" account testID="people-screen">
-        <EmptyState title="Not yours to manage." body="An administrator, or a supplier’s lead engineer for their own engineers, manages people here." />
+        <EmptyState
+          title="Not yours to manage."
+          body="An administrator, or a supplier’s lead engineer for their own engineers, manages people here."
+        />
       </Screen>
     );
   }
   return (
     <Screen
       title="People"
-      subtitle={admin ? 'Organisations, people and their roles' : `Engineers of ${user.organizationName ?? 'your organisation'}`}
+      subtitle={
+        admin ? 'Organisations, people and their roles' : `Engineers of ${user.organizationName ?? 'your organisation'}`
+      }
       account
       full
       testID="people-screen"

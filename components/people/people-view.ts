@@ -1,6 +1,12 @@
 import {
-  organizationKindLabels, roleLabels, roles, rolesOfOrganizationKind,
-  type OrganizationKind, type OrganizationSummary, type PersonSummary, type Role,
+  organizationKindLabels,
+  roleLabels,
+  roles,
+  rolesOfOrganizationKind,
+  type OrganizationKind,
+  type OrganizationSummary,
+  type PersonSummary,
+  type Role,
 } from '@/db/contracts';
 
 /**
@@ -15,7 +21,14 @@ export type PeopleShow = 'all' | 'active' | 'inactive';
 export function matchesPerson(p: PersonSummary, text: string): boolean {
   const words = text.toLowerCase().split(/\s+/).filter(Boolean);
   if (!words.length) return true;
-  const hay = [p.name, p.email, p.organizationName ?? '', roleLabels[p.role], p.lead ? 'lead engineer' : '', p.active ? '' : 'deactivated']
+  const hay = [
+    p.name,
+    p.email,
+    p.organizationName ?? '',
+    roleLabels[p.role],
+    p.lead ? 'lead engineer' : '',
+    p.active ? '' : 'deactivated',
+  ]
     .join(' ')
     .toLowerCase();
   return words.every((w) => hay.includes(w));
@@ -23,7 +36,9 @@ export function matchesPerson(p: PersonSummary, text: string): boolean {
 
 /** Active people first, each group by name: the people one works with before those who left. */
 export function sortPeople(list: readonly PersonSummary[]): PersonSummary[] {
-  return [...list].sort((a, b) => Number(b.active) - Number(a.active) || a.name.localeCompare(b.name) || a.email.localeCompare(b.email));
+  return [...list].sort(
+    (a, b) => Number(b.active) - Number(a.active) || a.name.localeCompare(b.name) || a.email.localeCompare(b.email),
+  );
 }
 
 export function filterPeople(list: readonly PersonSummary[], text: string, show: PeopleShow): PersonSummary[] {
@@ -49,7 +64,9 @@ export function rolesFor(kind: OrganizationKind | null | undefined): readonly Ro
 /** The organisations an invitation for this role can name: those whose kind holds the role. */
 export function organizationsFor(role: Role | undefined, orgs: readonly OrganizationSummary[]): OrganizationSummary[] {
   if (!role) return [...orgs];
-  return orgs.filter((o) => rolesOfOrganizationKind[o.kind].includes(role)).sort((a, b) => a.name.localeCompare(b.name));
+  return orgs
+    .filter((o) => rolesOfOrganizationKind[o.kind].includes(role))
+    .sort((a, b) => a.name.localeCompare(b.name));
 }
 
 export function organizationWords(o: Pick<OrganizationSummary, 'kind' | 'people'>): string {

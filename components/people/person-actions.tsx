@@ -27,14 +27,25 @@ function question(action: PersonAction, p: PersonSummary): { text: string; yes: 
       yes: `Deactivate ${p.name}`,
     };
   }
-  return { text: `Reactivate ${p.name}? They can sign in again with the password they had.`, yes: `Reactivate ${p.name}` };
+  return {
+    text: `Reactivate ${p.name}? They can sign in again with the password they had.`,
+    yes: `Reactivate ${p.name}`,
+  };
 }
 
 /**
  * The changes the reader may make to one person: exactly `p.allowed`, one request per press. `roleOptions`
  * are the roles this person's organisation can hold.
  */
-export function PersonActions({ p, roleOptions, onDone }: { p: PersonSummary; roleOptions: readonly Role[]; onDone: (said: string) => void }) {
+export function PersonActions({
+  p,
+  roleOptions,
+  onDone,
+}: {
+  p: PersonSummary;
+  roleOptions: readonly Role[];
+  onDone: (said: string) => void;
+}) {
   const update = usePeopleUpdateMutation();
   const [role, setRole] = useState<Role>(p.role);
   const [asking, setAsking] = useState<PersonAction | null>(null);
@@ -42,19 +53,31 @@ export function PersonActions({ p, roleOptions, onDone }: { p: PersonSummary; ro
   const allowed = p.allowed;
 
   if (!allowed.length) {
-    return <Txt variant="small" tone="soft" testID="person-nothing">Nothing here is yours to change.</Txt>;
+    return (
+      <Txt variant="small" tone="soft" testID="person-nothing">
+        Nothing here is yours to change.
+      </Txt>
+    );
   }
 
   const send = async (action: PersonAction) => {
     setError(null);
-    const change = action === 'change-role' ? { role } : action === 'make-lead' ? { lead: true } : { active: action === 'reactivate' };
+    const change =
+      action === 'change-role'
+        ? { role }
+        : action === 'make-lead'
+          ? { lead: true }
+          : { active: action === 'reactivate' };
     try {
       const next = await update.mutateAsync({ id: p.id, change });
       setAsking(null);
       onDone(
-        action === 'change-role' ? `${next.name} is now ${roleLabels[next.role].toLowerCase()}.`
-          : action === 'make-lead' ? `${next.name} is now a lead engineer.`
-            : action === 'deactivate' ? `${next.name} is deactivated: every sign-in of theirs has ended.`
+        action === 'change-role'
+          ? `${next.name} is now ${roleLabels[next.role].toLowerCase()}.`
+          : action === 'make-lead'
+            ? `${next.name} is now a lead engineer.`
+            : action === 'deactivate'
+              ? `${next.name} is deactivated: every sign-in of theirs has ended.`
               : `${next.name} can sign in again.`,
       );
     } catch (e) {
@@ -62,16 +85,24 @@ export function PersonActions({ p, roleOptions, onDone }: { p: PersonSummary; ro
     }
   };
 
-  const busy = (a: PersonAction) => update.isPending && update.variables?.id === p.id && (
-    a === 'change-role' ? 'role' in update.variables.change : a === 'make-lead' ? 'lead' in update.variables.change : 'active' in update.variables.change
-  );
+  const busy = (a: PersonAction) =>
+    update.isPending &&
+    update.variables?.id === p.id &&
+    (a === 'change-role'
+      ? 'role' in update.variables.change
+      : a === 'make-lead'
+        ? 'lead' in update.variables.change
+        : 'active' in update.variables.change);
 
   return (
     <View style={{ gap: space.md }} testID="person-actions">
       {allowed.includes('change-role') ? (
         <Field label="Role" hint={role === p.role ? 'Choose another role, then change it.' : undefined}>
           <Choice
-            options={roleOptions.map((r) => ({ value: r, label: r === p.role ? `${roleLabels[r]} (now)` : roleLabels[r] }))}
+            options={roleOptions.map((r) => ({
+              value: r,
+              label: r === p.role ? `${roleLabels[r]} (now)` : roleLabels[r],
+            }))}
             value={role}
             onChange={setRole}
             testIDPrefix="person-role"
@@ -89,14 +120,24 @@ export function PersonActions({ p, roleOptions, onDone }: { p: PersonSummary; ro
             onPress={() => void send(asking)}
             testID="person-confirm"
           />
-          <Button label="Leave it as it is" variant="quiet" disabled={update.isPending} onPress={() => setAsking(null)} testID="person-confirm-cancel" />
+          <Button
+            label="Leave it as it is"
+            variant="quiet"
+            disabled={update.isPending}
+            onPress={() => setAsking(null)}
+            testID="person-confirm-cancel"
+          />
         </View>
       ) : (
         <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.sm }}>
           {allowed.map((a) => (
             <Button
               key={a}
-              label={a === 'change-role' && role !== p.role ? `Change role to ${roleLabels[role].toLowerCase()}` : actionLabels[a]}
+              label={
+                a === 'change-role' && role !== p.role
+                  ? `Change role to ${roleLabels[role].toLowerCase()}`
+                  : actionLabels[a]
+              }
               variant={a === 'deactivate' ? 'secondary' : a === 'change-role' ? 'primary' : 'secondary'}
               disabled={(a === 'change-role' && role === p.role) || (update.isPending && !busy(a))}
               busy={busy(a)}
@@ -108,9 +149,15 @@ export function PersonActions({ p, roleOptions, onDone }: { p: PersonSummary; ro
         </View>
       )}
       {allowed.includes('make-lead') && !asking ? (
-        <Txt variant="small" tone="faint">A lead engineer invites and manages the engineers of their own organisation.</Txt>
+        <Txt variant="small" tone="faint">
+          A lead engineer invites and manages the engineers of their own organisation.
+        </Txt>
       ) : null}
-      {error ? <Notice tone="error" testID="person-error">{error}</Notice> : null}
+      {error ? (
+        <Notice tone="error" testID="person-error">
+          {error}
+        </Notice>
+      ) : null}
     </View>
   );
 }

@@ -21,12 +21,18 @@ function pickTextFile(): Promise<{ name: string; text: string } | { error: strin
     input.type = 'file';
     input.accept = '.dat,.txt,.csv,text/plain';
     input.style.display = 'none';
-    const done = (v: Parameters<typeof resolve>[0]) => { input.remove(); resolve(v); };
+    const done = (v: Parameters<typeof resolve>[0]) => {
+      input.remove();
+      resolve(v);
+    };
     input.addEventListener('cancel', () => done(null));
     input.onchange = async () => {
       const f = input.files?.[0];
       if (!f) return done(null);
-      if (f.size > MAX_FILE_BYTES) return done({ error: `${f.name} is ${Math.round(f.size / 1024)} kB: an airfoil file is a few kB of x y pairs.` });
+      if (f.size > MAX_FILE_BYTES)
+        return done({
+          error: `${f.name} is ${Math.round(f.size / 1024)} kB: an airfoil file is a few kB of x y pairs.`,
+        });
       try {
         done({ name: f.name, text: await f.text() });
       } catch {
@@ -38,10 +44,15 @@ function pickTextFile(): Promise<{ name: string; text: string } | { error: strin
   });
 }
 
-export const pointsToText = (points: readonly [number, number][]): string => points.map(([x, y]) => `${x} ${y}`).join('\n');
+export const pointsToText = (points: readonly [number, number][]): string =>
+  points.map(([x, y]) => `${x} ${y}`).join('\n');
 
 /** Airfoil as a NACA designation, or as coordinates pasted or loaded from a file (x y a line). */
-export function AirfoilFields({ control, setValue, errors }: {
+export function AirfoilFields({
+  control,
+  setValue,
+  errors,
+}: {
   control: Control<StudyFormValues>;
   setValue: UseFormSetValue<StudyFormValues>;
   errors: { root?: string; points?: string };
@@ -49,10 +60,10 @@ export function AirfoilFields({ control, setValue, errors }: {
   const airfoil = useWatch({ control, name: 'inputs.airfoil' });
   const kind = airfoil?.kind ?? 'naca';
   // What was typed in the other mode stays, so switching back and forth loses nothing.
-  const [designation, setDesignation] = useState(airfoil?.kind === 'naca' ? airfoil.designation ?? '' : '');
+  const [designation, setDesignation] = useState(airfoil?.kind === 'naca' ? (airfoil.designation ?? '') : '');
   const [text, setText] = useState(() => (airfoil?.kind === 'coordinates' ? pointsToText(airfoil.points ?? []) : ''));
   const [fileNote, setFileNote] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
-  const count = airfoil?.kind === 'coordinates' ? airfoil.points?.length ?? 0 : 0;
+  const count = airfoil?.kind === 'coordinates' ? (airfoil.points?.length ?? 0) : 0;
 
   const opts = { shouldValidate: true, shouldDirty: true } as const;
   const takeText = (t: string, name?: string) => {
@@ -75,10 +86,17 @@ export function AirfoilFields({ control, setValue, errors }: {
     setFileNote(null);
     const got = await pickTextFile();
     if (!got) return;
-    if ('error' in got) { setFileNote({ tone: 'error', text: got.error }); return; }
+    if ('error' in got) {
+      setFileNote({ tone: 'error', text: got.error });
+      return;
+    }
     const pts = parseCoordinateText(got.text);
     takeText(got.text, got.name.replace(/\.[^.]+$/, '').slice(0, 80));
-    setFileNote(pts.length ? { tone: 'ok', text: `${got.name}: ${pts.length} points read.` } : { tone: 'error', text: `${got.name} has no lines of two numbers.` });
+    setFileNote(
+      pts.length
+        ? { tone: 'ok', text: `${got.name}: ${pts.length} points read.` }
+        : { tone: 'error', text: `${got.name} has no lines of two numbers.` },
+    );
   };
 
   return (
@@ -88,7 +106,10 @@ export function AirfoilFields({ control, setValue, errors }: {
           testIDPrefix="study-airfoil-kind"
           value={kind}
           onChange={switchTo}
-          options={[{ value: 'naca', label: 'NACA designation' }, { value: 'coordinates', label: 'Coordinates' }]}
+          options={[
+            { value: 'naca', label: 'NACA designation' },
+            { value: 'coordinates', label: 'Coordinates' },
+          ]}
         />
       </Field>
       {kind === 'naca' ? (
@@ -103,7 +124,12 @@ export function AirfoilFields({ control, setValue, errors }: {
         />
       ) : (
         <>
-          <FormTextField control={control} name="inputs.airfoil.name" label="Airfoil name (optional)" testID="study-airfoil-name" />
+          <FormTextField
+            control={control}
+            name="inputs.airfoil.name"
+            label="Airfoil name (optional)"
+            testID="study-airfoil-name"
+          />
           <Controller
             control={control}
             name="inputs.airfoil.points"
@@ -129,8 +155,21 @@ export function AirfoilFields({ control, setValue, errors }: {
             )}
           />
           <View style={{ flexDirection: 'row', gap: space.md, alignItems: 'center', flexWrap: 'wrap' }}>
-            {Platform.OS === 'web' ? <Button label="Load a coordinate file" variant="secondary" compact onPress={() => void load()} testID="study-coordinates-file" /> : null}
-            <Txt variant="small" tone="soft" testID="study-coordinates-count"><Mono variant="small" bold>{count}</Mono> points read</Txt>
+            {Platform.OS === 'web' ? (
+              <Button
+                label="Load a coordinate file"
+                variant="secondary"
+                compact
+                onPress={() => void load()}
+                testID="study-coordinates-file"
+              />
+            ) : null}
+            <Txt variant="small" tone="soft" testID="study-coordinates-count">
+              <Mono variant="small" bold>
+                {count}
+              </Mono>{' '}
+              points read
+            </Txt>
           </View>
           {fileNote ? <Notice tone={fileNote.tone}>{fileNote.text}</Notice> : null}
         </>

@@ -40,15 +40,29 @@ export function useApplyToDesign(studyId: string) {
   const [done, setDone] = useState<{ rev: Revision; partNumber: string } | null>(null);
   const send = (target: PartDesignSummary, body: Omit<ApplyStudyInput, 'partDesignId'>) => {
     setDone(null);
-    apply.mutate({ ...body, partDesignId: target.id }, { onSuccess: (rev) => setDone({ rev, partNumber: target.partNumber }) });
+    apply.mutate(
+      { ...body, partDesignId: target.id },
+      { onSuccess: (rev) => setDone({ rev, partNumber: target.partNumber }) },
+    );
   };
-  const fresh = () => { setDone(null); apply.reset(); };
+  const fresh = () => {
+    setDone(null);
+    apply.reset();
+  };
   return { apply, done, send, fresh };
 }
 
 /** The kit's part designs to choose from, each with its kind and latest revision. */
-export function DesignChoice({ designs, value, onChange, hint }: {
-  designs: PartDesignSummary[]; value: string | null; onChange: (id: string) => void; hint?: string;
+export function DesignChoice({
+  designs,
+  value,
+  onChange,
+  hint,
+}: {
+  designs: PartDesignSummary[];
+  value: string | null;
+  onChange: (id: string) => void;
+  hint?: string;
 }) {
   return (
     <Field label="Part design to receive it" hint={hint}>
@@ -75,7 +89,14 @@ export function NoDesigns({ kitModelId, title, body }: { kitModelId: string; tit
     <EmptyState
       title={title}
       body={body}
-      action={<Button label="New part design" variant="secondary" onPress={() => router.push(`/catalogue/designs/new?kitModelId=${kitModelId}`)} testID="apply-new-design" />}
+      action={
+        <Button
+          label="New part design"
+          variant="secondary"
+          onPress={() => router.push(`/catalogue/designs/new?kitModelId=${kitModelId}`)}
+          testID="apply-new-design"
+        />
+      }
     />
   );
 }
@@ -84,23 +105,49 @@ export function NoDesigns({ kitModelId, title, body }: { kitModelId: string; tit
 export function WritesInto({ lines, partNumber }: { lines: number; partNumber?: string }) {
   return (
     <>
-      , its drill, edge distance and the zones of {lines} line{lines === 1 ? '' : 's'} into {partNumber ? <Mono bold>{partNumber}</Mono> : 'the chosen part'}’s
-      draft revision (a new draft when it has none). Published revisions stay as they are.
+      , its drill, edge distance and the zones of {lines} line{lines === 1 ? '' : 's'} into{' '}
+      {partNumber ? <Mono bold>{partNumber}</Mono> : 'the chosen part'}’s draft revision (a new draft when it has none).
+      Published revisions stay as they are.
     </>
   );
 }
 
 /** The refusal, the button and, once applied, what the draft revision now holds. */
-export function ApplyFooter({ state, label, disabled, onApply }: {
-  state: ReturnType<typeof useApplyToDesign>; label: string; disabled: boolean; onApply: () => void;
+export function ApplyFooter({
+  state,
+  label,
+  disabled,
+  onApply,
+}: {
+  state: ReturnType<typeof useApplyToDesign>;
+  label: string;
+  disabled: boolean;
+  onApply: () => void;
 }) {
   const router = useRouter();
   const { apply, done } = state;
   return (
     <>
-      {apply.isError ? <Notice tone="error" testID="apply-error">{applyErrorText(apply.error)}</Notice> : null}
-      <Button label={label} busyLabel="Applying" busy={apply.isPending} disabled={disabled} onPress={onApply} testID="apply-study" />
-      {done ? <AppliedRevision rev={done.rev} partNumber={done.partNumber} onOpen={() => router.push(`/catalogue/designs/${done.rev.partDesignId}`)} /> : null}
+      {apply.isError ? (
+        <Notice tone="error" testID="apply-error">
+          {applyErrorText(apply.error)}
+        </Notice>
+      ) : null}
+      <Button
+        label={label}
+        busyLabel="Applying"
+        busy={apply.isPending}
+        disabled={disabled}
+        onPress={onApply}
+        testID="apply-study"
+      />
+      {done ? (
+        <AppliedRevision
+          rev={done.rev}
+          partNumber={done.partNumber}
+          onOpen={() => router.push(`/catalogue/designs/${done.rev.partDesignId}`)}
+        />
+      ) : null}
     </>
   );
 }
@@ -109,8 +156,20 @@ export function ApplyFooter({ state, label, disabled, onApply }: {
  * "Apply to part design": the shown candidate's gauge, rivet, drill, edge distance and zones go into
  * the chosen part design's draft revision (a new draft when it has none), with this study as its basis.
  */
-export function ApplyPanel({ studyId, kitModelId, kitName, candidate, viewingRevision, latestRevision }: {
-  studyId: string; kitModelId: string; kitName: string; candidate: StudyCandidate | null; viewingRevision: number; latestRevision: number;
+export function ApplyPanel({
+  studyId,
+  kitModelId,
+  kitName,
+  candidate,
+  viewingRevision,
+  latestRevision,
+}: {
+  studyId: string;
+  kitModelId: string;
+  kitName: string;
+  candidate: StudyCandidate | null;
+  viewingRevision: number;
+  latestRevision: number;
 }) {
   const u = useUnits();
   const designs = useDesignsQuery(kitModelId);
@@ -121,34 +180,62 @@ export function ApplyPanel({ studyId, kitModelId, kitName, candidate, viewingRev
   if (designs.isPending) return <LoadingState what="Loading the kit's part designs" />;
   if (designs.isError) return <ErrorState error={designs.error} onRetry={() => void designs.refetch()} />;
   if (!designs.data.length) {
-    return <NoDesigns kitModelId={kitModelId} title={`No part designs in ${kitName} yet.`} body="Make the part design in the catalogue first; then apply the study to it." />;
+    return (
+      <NoDesigns
+        kitModelId={kitModelId}
+        title={`No part designs in ${kitName} yet.`}
+        body="Make the part design in the catalogue first; then apply the study to it."
+      />
+    );
   }
   const target = designs.data.find((d) => d.id === designId) ?? null;
 
   return (
     <View style={{ gap: space.md }} testID="apply-panel">
-      <DesignChoice designs={designs.data} value={designId} onChange={(id) => { setDesignId(id); state.fresh(); }} />
+      <DesignChoice
+        designs={designs.data}
+        value={designId}
+        onChange={(id) => {
+          setDesignId(id);
+          state.fresh();
+        }}
+      />
       {candidate ? (
         <Txt testID="apply-what">
           Writes <Mono bold>{u.length(candidate.gaugeIn)}</Mono> with <Mono bold>{candidate.rivet}</Mono>
           <WritesInto lines={candidate.lines.length} partNumber={target?.partNumber} />
         </Txt>
-      ) : <Txt tone="soft">Choose a candidate in the table first.</Txt>}
+      ) : (
+        <Txt tone="soft">Choose a candidate in the table first.</Txt>
+      )}
       {candidate && !candidate.feasible ? (
-        <Notice tone="error" testID="apply-not-feasible">{`${u.length(candidate.gaugeIn)} with ${candidate.rivet} does not carry the loads, so it cannot be applied. Choose a row marked “yes”.`}</Notice>
+        <Notice
+          tone="error"
+          testID="apply-not-feasible"
+        >{`${u.length(candidate.gaugeIn)} with ${candidate.rivet} does not carry the loads, so it cannot be applied. Choose a row marked “yes”.`}</Notice>
       ) : null}
       <ApplyFooter
         state={state}
         label={target && candidate ? `Apply to ${target.partNumber}` : 'Apply to the part design'}
         disabled={!target || !candidate || !candidate.feasible}
-        onApply={() => { if (candidate && target) state.send(target, { gaugeIn: candidate.gaugeIn, rivet: candidate.rivet }); }}
+        onApply={() => {
+          if (candidate && target) state.send(target, { gaugeIn: candidate.gaugeIn, rivet: candidate.rivet });
+        }}
       />
     </View>
   );
 }
 
 /** What the draft revision holds after applying, with the way to it. */
-export function AppliedRevision({ rev, partNumber, onOpen }: { rev: Revision; partNumber: string; onOpen: () => void }) {
+export function AppliedRevision({
+  rev,
+  partNumber,
+  onOpen,
+}: {
+  rev: Revision;
+  partNumber: string;
+  onOpen: () => void;
+}) {
   const u = useUnits();
   return (
     <Sheet testID="apply-result">
@@ -156,19 +243,39 @@ export function AppliedRevision({ rev, partNumber, onOpen }: { rev: Revision; pa
         <Mono bold>{partNumber}</Mono> draft revision <Mono bold>{rev.letter}</Mono> now has:
       </Txt>
       <Txt variant="small">
-        <Mono variant="small" bold>{u.length(rev.gaugeIn)}</Mono> {rev.material} · <Mono variant="small" bold>{rev.rivetSpec}</Mono> · drill{' '}
-        <Mono variant="small">{rev.drillSize}</Mono> · edge distance <Mono variant="small">{u.length(rev.edgeDistanceIn)}</Mono>
+        <Mono variant="small" bold>
+          {u.length(rev.gaugeIn)}
+        </Mono>{' '}
+        {rev.material} ·{' '}
+        <Mono variant="small" bold>
+          {rev.rivetSpec}
+        </Mono>{' '}
+        · drill <Mono variant="small">{rev.drillSize}</Mono> · edge distance{' '}
+        <Mono variant="small">{u.length(rev.edgeDistanceIn)}</Mono>
       </Txt>
       {rev.lines.map((l) => (
         <Txt key={l.code} variant="small">
-          <Mono variant="small" bold>{l.code}</Mono> {l.name}:{' '}
+          <Mono variant="small" bold>
+            {l.code}
+          </Mono>{' '}
+          {l.name}:{' '}
           {l.zones.map((z, i) => (
-            <Mono key={i} variant="small">{i ? ', ' : ''}{u.station(z.fromIn)}–{u.station(z.toIn)} @ {pitchNumber(z.pitchIn, u.system)}</Mono>
+            <Mono key={i} variant="small">
+              {i ? ', ' : ''}
+              {u.station(z.fromIn)}–{u.station(z.toIn)} @ {pitchNumber(z.pitchIn, u.system)}
+            </Mono>
           ))}
         </Txt>
       ))}
-      <Txt variant="small" tone="soft">A draft: nobody builds from it until you check it and publish it.</Txt>
-      <Button label={`Open ${partNumber} revision ${rev.letter}`} variant="secondary" onPress={onOpen} testID="apply-open-design" />
+      <Txt variant="small" tone="soft">
+        A draft: nobody builds from it until you check it and publish it.
+      </Txt>
+      <Button
+        label={`Open ${partNumber} revision ${rev.letter}`}
+        variant="secondary"
+        onPress={onOpen}
+        testID="apply-open-design"
+      />
     </Sheet>
   );
 }

@@ -20,28 +20,102 @@ export function Cell({ children }: { children: React.ReactNode }) {
 export function KitFields({ control, prefix }: { control: Control<StudyFormValues>; prefix: string }) {
   return (
     <>
-        <Row>
-          <Cell><FormNumberField control={control} name="inputs.kit.weightLb" label="Gross weight" quantity="mass" testID={`${prefix}-weight`} /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.kit.wingAreaSqFt" label="Wing area" quantity="area" testID={`${prefix}-wing-area`} /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.kit.meanChordIn" label="Mean chord" quantity="length" testID={`${prefix}-mean-chord`} /></Cell>
-        </Row>
-        <Row>
-          <Cell><FormNumberField control={control} name="inputs.kit.stallSpeedKeas" label="Stall speed" unit="KEAS" testID={`${prefix}-stall`} /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.kit.cruiseSpeedKeas" label="Cruise speed" unit="KEAS" hint="Blank: the rule minimum" testID={`${prefix}-cruise`} /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.kit.diveSpeedKeas" label="Dive speed" unit="KEAS" hint="Blank: the rule minimum" testID={`${prefix}-dive`} /></Cell>
-        </Row>
-        <FormChoiceField
-          control={control}
-          name="inputs.kit.category"
-          label="Category"
-          testID={`${prefix}-category`}
-          options={[{ value: 'normal', label: 'Normal' }, { value: 'utility', label: 'Utility' }, { value: 'acrobatic', label: 'Acrobatic' }]}
-        />
-        <Row>
-          <Cell><FormNumberField control={control} name="inputs.kit.altitudeFt" label="Altitude of the gust cases" unit="ft" hint="Blank: sea level" testID={`${prefix}-altitude`} /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.kit.liftSlopePerRad" label="Wing lift slope" unit="per rad" hint="Blank: estimated from the aspect ratio" testID={`${prefix}-lift-slope`} /></Cell>
-        </Row>
-        <Txt variant="small" tone="faint">Speeds in knots equivalent airspeed and altitude in feet, as flight data are given in every unit system.</Txt>
+      <Row>
+        <Cell>
+          <FormNumberField
+            control={control}
+            name="inputs.kit.weightLb"
+            label="Gross weight"
+            quantity="mass"
+            testID={`${prefix}-weight`}
+          />
+        </Cell>
+        <Cell>
+          <FormNumberField
+            control={control}
+            name="inputs.kit.wingAreaSqFt"
+            label="Wing area"
+            quantity="area"
+            testID={`${prefix}-wing-area`}
+          />
+        </Cell>
+        <Cell>
+          <FormNumberField
+            control={control}
+            name="inputs.kit.meanChordIn"
+            label="Mean chord"
+            quantity="length"
+            testID={`${prefix}-mean-chord`}
+          />
+        </Cell>
+      </Row>
+      <Row>
+        <Cell>
+          <FormNumberField
+            control={control}
+            name="inputs.kit.stallSpeedKeas"
+            label="Stall speed"
+            unit="KEAS"
+            testID={`${prefix}-stall`}
+          />
+        </Cell>
+        <Cell>
+          <FormNumberField
+            control={control}
+            name="inputs.kit.cruiseSpeedKeas"
+            label="Cruise speed"
+            unit="KEAS"
+            hint="Blank: the rule minimum"
+            testID={`${prefix}-cruise`}
+          />
+        </Cell>
+        <Cell>
+          <FormNumberField
+            control={control}
+            name="inputs.kit.diveSpeedKeas"
+            label="Dive speed"
+            unit="KEAS"
+            hint="Blank: the rule minimum"
+            testID={`${prefix}-dive`}
+          />
+        </Cell>
+      </Row>
+      <FormChoiceField
+        control={control}
+        name="inputs.kit.category"
+        label="Category"
+        testID={`${prefix}-category`}
+        options={[
+          { value: 'normal', label: 'Normal' },
+          { value: 'utility', label: 'Utility' },
+          { value: 'acrobatic', label: 'Acrobatic' },
+        ]}
+      />
+      <Row>
+        <Cell>
+          <FormNumberField
+            control={control}
+            name="inputs.kit.altitudeFt"
+            label="Altitude of the gust cases"
+            unit="ft"
+            hint="Blank: sea level"
+            testID={`${prefix}-altitude`}
+          />
+        </Cell>
+        <Cell>
+          <FormNumberField
+            control={control}
+            name="inputs.kit.liftSlopePerRad"
+            label="Wing lift slope"
+            unit="per rad"
+            hint="Blank: estimated from the aspect ratio"
+            testID={`${prefix}-lift-slope`}
+          />
+        </Cell>
+      </Row>
+      <Txt variant="small" tone="faint">
+        Speeds in knots equivalent airspeed and altitude in feet, as flight data are given in every unit system.
+      </Txt>
     </>
   );
 }

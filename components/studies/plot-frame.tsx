@@ -9,8 +9,14 @@ export function svgTestId(id: string): object {
 }
 
 /** A bordered drawing area that measures its width and draws once it knows it. */
-export function PlotFrame({ children, testID, placeholderHeight = 200 }: {
-  children: (width: number) => React.ReactNode; testID?: string; placeholderHeight?: number;
+export function PlotFrame({
+  children,
+  testID,
+  placeholderHeight = 200,
+}: {
+  children: (width: number) => React.ReactNode;
+  testID?: string;
+  placeholderHeight?: number;
 }) {
   const [width, setWidth] = useState(0);
   const onLayout = (e: LayoutChangeEvent) => {
@@ -25,7 +31,21 @@ export function PlotFrame({ children, testID, placeholderHeight = 200 }: {
 }
 
 /** An arrowhead at (x, y) pointing along (dx, dy). */
-export function ArrowHead({ x, y, dx, dy, size, color }: { x: number; y: number; dx: number; dy: number; size: number; color: string }) {
+export function ArrowHead({
+  x,
+  y,
+  dx,
+  dy,
+  size,
+  color,
+}: {
+  x: number;
+  y: number;
+  dx: number;
+  dy: number;
+  size: number;
+  color: string;
+}) {
   const len = Math.hypot(dx, dy) || 1;
   const ux = dx / len;
   const uy = dy / len;
@@ -37,18 +57,31 @@ export function ArrowHead({ x, y, dx, dy, size, color }: { x: number; y: number;
 }
 
 /** A legend entry: a short sample of the stroke or mark beside its words. */
-export function LegendSwatch({ color, dash, mark }: { color: string; dash?: string; mark?: 'dot' | 'triangle' | 'arrow' | 'bar' }) {
+export function LegendSwatch({
+  color,
+  dash,
+  mark,
+}: {
+  color: string;
+  dash?: string;
+  mark?: 'dot' | 'triangle' | 'arrow' | 'bar';
+}) {
   return (
     <Svg width={34} height={16}>
-      {mark === 'dot' ? <Circle cx={17} cy={8} r={4} fill={color} />
-        : mark === 'triangle' ? <Polygon points="17,2 23,13 11,13" fill={colors.paperRaised} stroke={color} strokeWidth={1.75} />
-          : mark === 'bar' ? <Line x1={3} y1={8} x2={31} y2={8} stroke={color} strokeWidth={6} />
-            : mark === 'arrow' ? (
-              <>
-                <Line x1={3} y1={8} x2={26} y2={8} stroke={color} strokeWidth={1.75} />
-                <ArrowHead x={32} y={8} dx={1} dy={0} size={7} color={color} />
-              </>
-            ) : <Line x1={2} y1={8} x2={32} y2={8} stroke={color} strokeWidth={2} strokeDasharray={dash} />}
+      {mark === 'dot' ? (
+        <Circle cx={17} cy={8} r={4} fill={color} />
+      ) : mark === 'triangle' ? (
+        <Polygon points="17,2 23,13 11,13" fill={colors.paperRaised} stroke={color} strokeWidth={1.75} />
+      ) : mark === 'bar' ? (
+        <Line x1={3} y1={8} x2={31} y2={8} stroke={color} strokeWidth={6} />
+      ) : mark === 'arrow' ? (
+        <>
+          <Line x1={3} y1={8} x2={26} y2={8} stroke={color} strokeWidth={1.75} />
+          <ArrowHead x={32} y={8} dx={1} dy={0} size={7} color={color} />
+        </>
+      ) : (
+        <Line x1={2} y1={8} x2={32} y2={8} stroke={color} strokeWidth={2} strokeDasharray={dash} />
+      )}
     </Svg>
   );
 }
@@ -58,7 +91,12 @@ export function Legend({ children }: { children: React.ReactNode }) {
 }
 
 export function LegendItem({ swatch, children }: { swatch: React.ReactNode; children: React.ReactNode }) {
-  return <View style={styles.item}>{swatch}{children}</View>;
+  return (
+    <View style={styles.item}>
+      {swatch}
+      {children}
+    </View>
+  );
 }
 
 const styles = StyleSheet.create({

@@ -25,11 +25,20 @@ export function niceStep(span: number, maxTicks = 5): number {
 }
 
 /** The domain widened to whole steps, and the ticks on it: [lo, hi] always contains [min, max]. */
-export function niceAxis(min: number, max: number, maxTicks = 5): { lo: number; hi: number; step: number; ticks: number[] } {
+export function niceAxis(
+  min: number,
+  max: number,
+  maxTicks = 5,
+): { lo: number; hi: number; step: number; ticks: number[] } {
   let a = Math.min(min, max);
   let b = Math.max(min, max);
-  if (!Number.isFinite(a) || !Number.isFinite(b)) { a = 0; b = 1; }
-  if (a === b) { b = a + 1; }
+  if (!Number.isFinite(a) || !Number.isFinite(b)) {
+    a = 0;
+    b = 1;
+  }
+  if (a === b) {
+    b = a + 1;
+  }
   const step = niceStep(b - a, maxTicks);
   const lo = Math.floor(a / step + 1e-9) * step;
   const hi = Math.ceil(b / step - 1e-9) * step;
@@ -45,7 +54,10 @@ export function tickLabel(v: number, step: number): string {
 }
 
 export function boundsOf(points: readonly Pt[]): Box {
-  let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity;
+  let minX = Infinity,
+    maxX = -Infinity,
+    minY = Infinity,
+    maxY = -Infinity;
   for (const [x, y] of points) {
     if (x < minX) minX = x;
     if (x > maxX) maxX = x;
@@ -57,10 +69,21 @@ export function boundsOf(points: readonly Pt[]): Box {
 }
 
 export function growBox(b: Box, by: { left?: number; right?: number; top?: number; bottom?: number }): Box {
-  return { minX: b.minX - (by.left ?? 0), maxX: b.maxX + (by.right ?? 0), minY: b.minY - (by.bottom ?? 0), maxY: b.maxY + (by.top ?? 0) };
+  return {
+    minX: b.minX - (by.left ?? 0),
+    maxX: b.maxX + (by.right ?? 0),
+    minY: b.minY - (by.bottom ?? 0),
+    maxY: b.maxY + (by.top ?? 0),
+  };
 }
 
-export type Projection = { scale: number; width: number; height: number; x: (v: number) => number; y: (v: number) => number };
+export type Projection = {
+  scale: number;
+  width: number;
+  height: number;
+  x: (v: number) => number;
+  y: (v: number) => number;
+};
 
 /**
  * True-scale drawing of `box` into `width` px (y up on paper, down on screen), with `pad` px round it.
@@ -98,7 +121,11 @@ export function splitOutline(points: readonly Pt[]): { upper: Pt[]; lower: Pt[] 
  * The point of a surface (leading edge aft) at chordwise x, with the unit normal pointing out of the
  * section (up on the upper surface, down on the lower, forward at the nose).
  */
-export function surfaceAt(surface: readonly Pt[], x: number, side: 'upper' | 'lower'): { x: number; y: number; nx: number; ny: number } {
+export function surfaceAt(
+  surface: readonly Pt[],
+  x: number,
+  side: 'upper' | 'lower',
+): { x: number; y: number; nx: number; ny: number } {
   const n = surface.length;
   if (n < 2) return { x, y: surface[0]?.[1] ?? 0, nx: 0, ny: side === 'upper' ? 1 : -1 };
   let i = 1;
@@ -116,9 +143,11 @@ export function surfaceAt(surface: readonly Pt[], x: number, side: 'upper' | 'lo
 
 export type PressureArrow = {
   /** on the surface */
-  x0: number; y0: number;
+  x0: number;
+  y0: number;
   /** outside the surface, |Cp| × lengthPerCp away along the outward normal */
-  x1: number; y1: number;
+  x1: number;
+  y1: number;
   cp: number;
   /** suction (Cp below the inside pressure) pulls the skin outward: the arrow points away */
   suction: boolean;
@@ -129,7 +158,14 @@ export type PressureArrow = {
  * Cp drawn normal to the surface, outside it: the length is |Cp − Cp,int|, suction pointing away from
  * the surface, pressure pointing at it. In the outline's units (inches).
  */
-export function pressureArrows(surface: readonly Pt[], samples: readonly CpSample[], side: 'upper' | 'lower', chordIn: number, lengthPerCp: number, internalCp = 0): PressureArrow[] {
+export function pressureArrows(
+  surface: readonly Pt[],
+  samples: readonly CpSample[],
+  side: 'upper' | 'lower',
+  chordIn: number,
+  lengthPerCp: number,
+  internalCp = 0,
+): PressureArrow[] {
   return samples.map((s) => {
     const p = surfaceAt(surface, s.xc * chordIn, side);
     const d = s.cp - internalCp;
@@ -139,9 +175,13 @@ export function pressureArrows(surface: readonly Pt[], samples: readonly CpSampl
 }
 
 /** The largest |Cp − Cp,int| over every condition and both surfaces: one length scale for them all. */
-export function largestCp(conditions: readonly { cp: { upper: readonly CpSample[]; lower: readonly CpSample[] } }[], internalCp = 0): number {
+export function largestCp(
+  conditions: readonly { cp: { upper: readonly CpSample[]; lower: readonly CpSample[] } }[],
+  internalCp = 0,
+): number {
   let m = 0;
-  for (const c of conditions) for (const s of [...c.cp.upper, ...c.cp.lower]) m = Math.max(m, Math.abs(s.cp - internalCp));
+  for (const c of conditions)
+    for (const s of [...c.cp.upper, ...c.cp.lower]) m = Math.max(m, Math.abs(s.cp - internalCp));
   return m;
 }
 
@@ -164,7 +204,10 @@ export function stackLabels(items: readonly { x0: number; x1: number }[], gap = 
   const rows = new Array<number>(items.length).fill(0);
   for (const it of order) {
     let r = rowEnds.findIndex((end) => end + gap <= it.x0);
-    if (r < 0) { r = rowEnds.length; rowEnds.push(it.x1); } else rowEnds[r] = it.x1;
+    if (r < 0) {
+      r = rowEnds.length;
+      rowEnds.push(it.x1);
+    } else rowEnds[r] = it.x1;
     rows[it.i] = r;
   }
   return rows;

@@ -4,7 +4,19 @@ import { space } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
 import { Txt } from '@/components/ui/text';
 
-function Fold({ title, items, open: initial, testID, tone }: { title: string; items: string[]; open: boolean; testID: string; tone?: 'caution' }) {
+function Fold({
+  title,
+  items,
+  open: initial,
+  testID,
+  tone,
+}: {
+  title: string;
+  items: string[];
+  open: boolean;
+  testID: string;
+  tone?: 'caution';
+}) {
   const [open, setOpen] = useState(initial);
   return (
     <View style={{ gap: space.xs }} testID={testID}>
@@ -18,16 +30,32 @@ function Fold({ title, items, open: initial, testID, tone }: { title: string; it
         style={{ alignSelf: 'flex-start', marginLeft: -space.md }}
       />
       {open ? (
-        items.length ? items.map((w, i) => (
-          <Txt key={i} variant="small" tone={tone} style={{ paddingLeft: space.md }}>• {w}</Txt>
-        )) : <Txt variant="small" tone="soft" style={{ paddingLeft: space.md }}>None.</Txt>
+        items.length ? (
+          items.map((w, i) => (
+            <Txt key={i} variant="small" tone={tone} style={{ paddingLeft: space.md }}>
+              • {w}
+            </Txt>
+          ))
+        ) : (
+          <Txt variant="small" tone="soft" style={{ paddingLeft: space.md }}>
+            None.
+          </Txt>
+        )
       ) : null}
     </View>
   );
 }
 
 /** What to be wary of (open) and the rules the engine applied (folded), from the stored result. */
-export function ResultNotes({ warnings, candidateWarnings, rules }: { warnings: string[]; candidateWarnings: string[]; rules: string[] }) {
+export function ResultNotes({
+  warnings,
+  candidateWarnings,
+  rules,
+}: {
+  warnings: string[];
+  candidateWarnings: string[];
+  rules: string[];
+}) {
   const extra = candidateWarnings.filter((w) => !warnings.includes(w));
   return (
     <View style={{ gap: space.sm }} testID="result-notes">

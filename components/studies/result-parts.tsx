@@ -11,7 +11,14 @@ export function UnreadableResult() {
   return (
     <View style={{ gap: space.lg }}>
       <Caution testID="study-caution" />
-      <ErrorState title="This result cannot be drawn" error={new Error('The stored result of this revision is not in the shape this screen reads. Compute it again to make a new revision.')} />
+      <ErrorState
+        title="This result cannot be drawn"
+        error={
+          new Error(
+            'The stored result of this revision is not in the shape this screen reads. Compute it again to make a new revision.',
+          )
+        }
+      />
     </View>
   );
 }
@@ -19,16 +26,26 @@ export function UnreadableResult() {
 /** The candidate a section shows, in its header: "0.032 in · MS20470AD4". */
 export function CandidateTag({ c }: { c: CandidateKey }) {
   const u = useUnits();
-  return <Mono variant="small" bold>{u.length(c.gaugeIn)} · {c.rivet}</Mono>;
+  return (
+    <Mono variant="small" bold>
+      {u.length(c.gaugeIn)} · {c.rivet}
+    </Mono>
+  );
 }
 
 /** The design conditions behind a result, said in a headline: " · n +3.80 / −1.52 · W/S 11.0 psf". */
-export function DesignFigures({ design }: { design?: { loadFactors: { positive: number; negative: number }; wingLoadingPsf: number } | null }) {
+export function DesignFigures({
+  design,
+}: {
+  design?: { loadFactors: { positive: number; negative: number }; wingLoadingPsf: number } | null;
+}) {
   const u = useUnits();
   if (!design) return null;
   return (
     <>
-      {' · n '}<Mono variant="small">{design.loadFactors.positive.toFixed(2)}</Mono> / <Mono variant="small">{design.loadFactors.negative.toFixed(2)}</Mono> · W/S{' '}
+      {' · n '}
+      <Mono variant="small">{design.loadFactors.positive.toFixed(2)}</Mono> /{' '}
+      <Mono variant="small">{design.loadFactors.negative.toFixed(2)}</Mono> · W/S{' '}
       <Mono variant="small">{u.wingLoading(design.wingLoadingPsf)}</Mono>
     </>
   );

@@ -3,7 +3,15 @@ import { colors, space } from '@/constants/theme';
 import { GridTable } from '@/components/ui/grid-table';
 import { Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
-import { marginText, partWeight, pitchNumber, shearFlowNumber, shearFlowUnit, stressNumber, stressUnit } from './study-numbers';
+import {
+  marginText,
+  partWeight,
+  pitchNumber,
+  shearFlowNumber,
+  shearFlowUnit,
+  stressNumber,
+  stressUnit,
+} from './study-numbers';
 import { GaugeOverRivet, RowPickButton } from './table-cells';
 import { idPart, skinCandidate, type SkinCandidate, type SkinPanelResult } from './wing-result';
 
@@ -15,8 +23,15 @@ function BucklingMargin({ ms, testID, note }: { ms: number | null; testID: strin
   const bad = ms !== null && ms < 0;
   return (
     <View style={[styles.ms, bad && styles.bad]} testID={testID}>
-      <Mono variant="small" bold={bad} tone={bad ? 'error' : 'ink'}>{bad ? '✕' : ''}{marginText(ms)}</Mono>
-      {note ? <Txt variant="small" tone="caution">{note}</Txt> : null}
+      <Mono variant="small" bold={bad} tone={bad ? 'error' : 'ink'}>
+        {bad ? '✕' : ''}
+        {marginText(ms)}
+      </Mono>
+      {note ? (
+        <Txt variant="small" tone="caution">
+          {note}
+        </Txt>
+      ) : null}
     </View>
   );
 }
@@ -26,13 +41,22 @@ export function skinFigures(c: SkinCandidate, system: 'imperial' | 'metric', tes
   return {
     torsion: <Mono variant="small">{shearFlowNumber(c.torsionShearFlowLbPerIn, system)}</Mono>,
     bending: <Mono variant="small">{shearFlowNumber(c.bendingShearFlowLbPerIn, system)}</Mono>,
-    compression: <Mono variant="small">{c.compressionPsi > 0 ? stressNumber(c.compressionPsi, system) : '0 (tension side)'}</Mono>,
-    pitch: c.interRivet.pitchLimitIn === null
-      ? <Txt variant="small" tone="soft">none (not in compression)</Txt>
-      : (
+    compression: (
+      <Mono variant="small">{c.compressionPsi > 0 ? stressNumber(c.compressionPsi, system) : '0 (tension side)'}</Mono>
+    ),
+    pitch:
+      c.interRivet.pitchLimitIn === null ? (
+        <Txt variant="small" tone="soft">
+          none (not in compression)
+        </Txt>
+      ) : (
         <View>
-          <Mono variant="small" bold>{pitchNumber(c.interRivet.pitchLimitIn, system)}</Mono>
-          <Txt variant="small" tone="soft" testID={`${testID}-fixity`}>c = {c.interRivet.endFixity.toFixed(1)} ({c.interRivet.source})</Txt>
+          <Mono variant="small" bold>
+            {pitchNumber(c.interRivet.pitchLimitIn, system)}
+          </Mono>
+          <Txt variant="small" tone="soft" testID={`${testID}-fixity`}>
+            c = {c.interRivet.endFixity.toFixed(1)} ({c.interRivet.source})
+          </Txt>
         </View>
       ),
     shearBuckling: (
@@ -42,7 +66,9 @@ export function skinFigures(c: SkinCandidate, system: 'imperial' | 'metric', tes
         note={c.shearBuckling.diagonalTension ? 'relies on diagonal tension' : undefined}
       />
     ),
-    compressionBuckling: <BucklingMargin ms={c.compressionBuckling.marginOfSafety} testID={`${testID}-compression-ms`} />,
+    compressionBuckling: (
+      <BucklingMargin ms={c.compressionBuckling.marginOfSafety} testID={`${testID}-compression-ms`} />
+    ),
   };
 }
 
@@ -50,7 +76,15 @@ export function skinFigures(c: SkinCandidate, system: 'imperial' | 'metric', tes
  * The skin panels between every two neighbouring ribs, upper and lower: each with its recommended gauge
  * and rivet and that candidate's figures. The panel's name is the button that shows its zones below.
  */
-export function SkinPanelTable({ panels, chosen, onChoose }: { panels: SkinPanelResult[]; chosen: string | null; onChoose: (name: string) => void }) {
+export function SkinPanelTable({
+  panels,
+  chosen,
+  onChoose,
+}: {
+  panels: SkinPanelResult[];
+  chosen: string | null;
+  onChoose: (name: string) => void;
+}) {
   const u = useUnits();
   const lu = u.label('length');
   const qu = shearFlowUnit(u.system);
@@ -77,24 +111,44 @@ export function SkinPanelTable({ panels, chosen, onChoose }: { panels: SkinPanel
           const on = p.name === chosen;
           const id = idPart(p.name);
           const rec = skinCandidate(p, p.recommended);
-          const none = <Txt variant="small" tone="faint">–</Txt>;
+          const none = (
+            <Txt variant="small" tone="faint">
+              –
+            </Txt>
+          );
           const figures = rec ? skinFigures(rec, u.system, `skin-${id}`) : null;
           return {
             key: p.name,
             keep: on,
             testID: `skin-row-${id}`,
             cells: {
-              panel: <RowPickButton name={p.name} on={on} onPick={onChoose} testID={`skin-${id}`} says={`Skin panel ${p.name}: show its candidates and zones`} />,
+              panel: (
+                <RowPickButton
+                  name={p.name}
+                  on={on}
+                  onPick={onChoose}
+                  testID={`skin-${id}`}
+                  says={`Skin panel ${p.name}: show its candidates and zones`}
+                />
+              ),
               surface: <Txt variant="small">{p.surface}</Txt>,
               ribs: (
                 <View>
-                  <Mono variant="small">{p.innerRib}–{p.outerRib}</Mono>
-                  <Mono variant="small" tone="soft">{u.station(p.innerStationIn)}–{u.station(p.outerStationIn)}</Mono>
+                  <Mono variant="small">
+                    {p.innerRib}–{p.outerRib}
+                  </Mono>
+                  <Mono variant="small" tone="soft">
+                    {u.station(p.innerStationIn)}–{u.station(p.outerStationIn)}
+                  </Mono>
                 </View>
               ),
-              rec: rec
-                ? <GaugeOverRivet c={rec} testID={`skin-rec-${id}`} />
-                : <Txt variant="small" bold tone="error" testID={`skin-rec-${id}`}>✕ none carries it</Txt>,
+              rec: rec ? (
+                <GaugeOverRivet c={rec} testID={`skin-rec-${id}`} />
+              ) : (
+                <Txt variant="small" bold tone="error" testID={`skin-rec-${id}`}>
+                  ✕ none carries it
+                </Txt>
+              ),
               torsion: figures?.torsion ?? none,
               bending: figures?.bending ?? none,
               compression: figures?.compression ?? none,
@@ -106,10 +160,11 @@ export function SkinPanelTable({ panels, chosen, onChoose }: { panels: SkinPanel
         })}
       />
       <Txt variant="small" tone="faint">
-        Figures of each panel’s recommended candidate, at limit load. Torsion q = T/2A over the box; bending q passes the skin’s share of
-        the bending into the spar caps. The inter-rivet limit is the largest spanwise pitch before the skin buckles between two rivets, with
-        the end fixity c of the rivet head and where it comes from. Buckling MS = critical ÷ applied − 1 of the whole panel; a panel that
-        relies on diagonal tension carries its shear buckled, which this study does not credit.
+        Figures of each panel’s recommended candidate, at limit load. Torsion q = T/2A over the box; bending q passes
+        the skin’s share of the bending into the spar caps. The inter-rivet limit is the largest spanwise pitch before
+        the skin buckles between two rivets, with the end fixity c of the rivet head and where it comes from. Buckling
+        MS = critical ÷ applied − 1 of the whole panel; a panel that relies on diagonal tension carries its shear
+        buckled, which this study does not credit.
       </Txt>
     </View>
   );
@@ -135,11 +190,30 @@ export function SkinCandidates({ panel }: { panel: SkinPanelResult }) {
         key: `${c.gaugeIn}-${c.rivet}`,
         testID: `skin-candidate-${id}-${c.gaugeIn}-${c.rivet}`,
         cells: {
-          pair: <Mono variant="small" bold={!!panel.recommended && c.gaugeIn === panel.recommended.gaugeIn && c.rivet === panel.recommended.rivet}>{u.length(c.gaugeIn)} · {c.rivet}</Mono>,
-          ok: <Txt variant="small" bold tone={c.feasible ? 'ink' : 'error'}>{c.feasible ? '✓ yes' : '✕ no'}</Txt>,
+          pair: (
+            <Mono
+              variant="small"
+              bold={
+                !!panel.recommended && c.gaugeIn === panel.recommended.gaugeIn && c.rivet === panel.recommended.rivet
+              }
+            >
+              {u.length(c.gaugeIn)} · {c.rivet}
+            </Mono>
+          ),
+          ok: (
+            <Txt variant="small" bold tone={c.feasible ? 'ink' : 'error'}>
+              {c.feasible ? '✓ yes' : '✕ no'}
+            </Txt>
+          ),
           count: <Mono variant="small">{c.rivetCount}</Mono>,
           weight: <Mono variant="small">{partWeight(c.weightLb, u.system).replace(/ (lb|g)$/, '')}</Mono>,
-          why: c.reasons.length ? <Txt variant="small">{c.reasons.join('; ')}</Txt> : <Txt variant="small" tone="faint">–</Txt>,
+          why: c.reasons.length ? (
+            <Txt variant="small">{c.reasons.join('; ')}</Txt>
+          ) : (
+            <Txt variant="small" tone="faint">
+              –
+            </Txt>
+          ),
         },
       }))}
     />

@@ -29,27 +29,50 @@ function StudyRow({ s, onPress }: { s: StudySummary; onPress: () => void }) {
     <Pressable
       testID={`study-row-${s.id}`}
       accessibilityRole="button"
-      accessibilityLabel={`${studyKindLabels[kind]} study: ${s.name}, ${s.kitName}, revision ${s.revision}, ${whenText(s.updatedAt)}, ${s.recommended
-        ? `${recommendedWords(s).toLowerCase()} ${u.length(s.recommended.gaugeIn)} with ${s.recommended.rivet}`
-        : 'no gauge and rivet pair carries the loads'}`}
+      accessibilityLabel={`${studyKindLabels[kind]} study: ${s.name}, ${s.kitName}, revision ${s.revision}, ${whenText(s.updatedAt)}, ${
+        s.recommended
+          ? `${recommendedWords(s).toLowerCase()} ${u.length(s.recommended.gaugeIn)} with ${s.recommended.rivet}`
+          : 'no gauge and rivet pair carries the loads'
+      }`}
       onPress={onPress}
       style={({ pressed }) => [styles.row, pressed && { backgroundColor: colors.accentSoft }]}
     >
       <View style={styles.kind} testID={`study-row-${s.id}-kind`}>
-        <Txt variant="small" bold>{studyKindLabels[kind]}</Txt>
+        <Txt variant="small" bold>
+          {studyKindLabels[kind]}
+        </Txt>
       </View>
       <View style={{ flex: 1, gap: 2 }}>
         <Txt bold>{s.name}</Txt>
         <Txt variant="small" tone="soft">
-          {s.kitName} · revision <Mono variant="small" bold>{s.revision}</Mono> · {whenText(s.updatedAt)}
+          {s.kitName} · revision{' '}
+          <Mono variant="small" bold>
+            {s.revision}
+          </Mono>{' '}
+          · {whenText(s.updatedAt)}
         </Txt>
         <Txt variant="small" testID={`study-row-${s.id}-recommended`}>
-          {s.recommended
-            ? <>{recommendedWords(s)} <Mono variant="small" bold>{u.length(s.recommended.gaugeIn)}</Mono> with <Mono variant="small" bold>{s.recommended.rivet}</Mono></>
-            : <Txt variant="small" tone="error">No gauge and rivet pair carries the loads</Txt>}
+          {s.recommended ? (
+            <>
+              {recommendedWords(s)}{' '}
+              <Mono variant="small" bold>
+                {u.length(s.recommended.gaugeIn)}
+              </Mono>{' '}
+              with{' '}
+              <Mono variant="small" bold>
+                {s.recommended.rivet}
+              </Mono>
+            </>
+          ) : (
+            <Txt variant="small" tone="error">
+              No gauge and rivet pair carries the loads
+            </Txt>
+          )}
         </Txt>
       </View>
-      <Txt tone="accent" bold aria-hidden>›</Txt>
+      <Txt tone="accent" bold aria-hidden>
+        ›
+      </Txt>
     </Pressable>
   );
 }
@@ -66,38 +89,82 @@ export function StudiesScreen() {
       subtitle="Design loads to rivet loads, gauge and pitch schedule"
       account
       testID="studies-screen"
-      right={(
+      right={
         <View style={styles.newButtons}>
-          <Button label="New rib study" variant="secondary" compact onPress={() => router.push('/studies/new')} testID="new-study" />
-          <Button label="New wing study" variant="secondary" compact onPress={() => router.push('/studies/new-wing')} testID="new-wing-study" />
+          <Button
+            label="New rib study"
+            variant="secondary"
+            compact
+            onPress={() => router.push('/studies/new')}
+            testID="new-study"
+          />
+          <Button
+            label="New wing study"
+            variant="secondary"
+            compact
+            onPress={() => router.push('/studies/new-wing')}
+            testID="new-wing-study"
+          />
+        </View>
+      }
+    >
+      {q.isPending ? (
+        <LoadingState what="Loading the studies" />
+      ) : q.isError ? (
+        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+      ) : !rows.length ? (
+        <EmptyState
+          title="No load studies yet."
+          body="A study takes a kit's weight, speeds and airfoil and works out the load on every rivet of a rib, the gauge and the pitch zones; a wing study does it for every rib from root to tip and for the skin panels between them."
+          action={
+            <View style={styles.newButtons}>
+              <Button label="Start a rib study" onPress={() => router.push('/studies/new')} testID="new-study-empty" />
+              <Button
+                label="Start a wing study"
+                variant="secondary"
+                onPress={() => router.push('/studies/new-wing')}
+                testID="new-wing-study-empty"
+              />
+            </View>
+          }
+        />
+      ) : (
+        <View testID="studies-list">
+          {rows.map((s) => (
+            <StudyRow key={s.id} s={s} onPress={() => router.push(`/studies/${s.id}`)} />
+          ))}
+          <LoadMore
+            hasNextPage={q.hasNextPage}
+            isFetchingNextPage={q.isFetchingNextPage}
+            fetchNextPage={q.fetchNextPage}
+            shown={rows.length}
+            what="studies"
+            testID="studies-more"
+          />
         </View>
       )}
-    >
-      {q.isPending ? <LoadingState what="Loading the studies" />
-        : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
-          : !rows.length ? (
-            <EmptyState
-              title="No load studies yet."
-              body="A study takes a kit's weight, speeds and airfoil and works out the load on every rivet of a rib, the gauge and the pitch zones; a wing study does it for every rib from root to tip and for the skin panels between them."
-              action={(
-                <View style={styles.newButtons}>
-                  <Button label="Start a rib study" onPress={() => router.push('/studies/new')} testID="new-study-empty" />
-                  <Button label="Start a wing study" variant="secondary" onPress={() => router.push('/studies/new-wing')} testID="new-wing-study-empty" />
-                </View>
-              )}
-            />
-          ) : (
-            <View testID="studies-list">
-              {rows.map((s) => <StudyRow key={s.id} s={s} onPress={() => router.push(`/studies/${s.id}`)} />)}
-              <LoadMore hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage} shown={rows.length} what="studies" testID="studies-more" />
-            </View>
-          )}
     </Screen>
   );
 }
 
 const styles = StyleSheet.create({
-  kind: { minWidth: 52, alignItems: 'center', paddingVertical: 2, paddingHorizontal: space.sm, borderWidth: hairline, borderColor: colors.ruleStrong, borderRadius: radius.sm },
+  kind: {
+    minWidth: 52,
+    alignItems: 'center',
+    paddingVertical: 2,
+    paddingHorizontal: space.sm,
+    borderWidth: hairline,
+    borderColor: colors.ruleStrong,
+    borderRadius: radius.sm,
+  },
   newButtons: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, justifyContent: 'flex-end' },
-  row: { flexDirection: 'row', alignItems: 'center', gap: space.md, minHeight: touch, paddingVertical: space.md, borderBottomWidth: hairline, borderColor: colors.rule },
+  row: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.md,
+    minHeight: touch,
+    paddingVertical: space.md,
+    borderBottomWidth: hairline,
+    borderColor: colors.rule,
+  },
 });

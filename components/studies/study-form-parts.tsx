@@ -1,5 +1,14 @@
 import {
-  Controller, useFieldArray, useFormState, useWatch, type ArrayPath, type Control, type FieldArray, type FieldValues, type Path, type UseFormSetValue,
+  Controller,
+  useFieldArray,
+  useFormState,
+  useWatch,
+  type ArrayPath,
+  type Control,
+  type FieldArray,
+  type FieldValues,
+  type Path,
+  type UseFormSetValue,
 } from 'react-hook-form';
 import { View } from 'react-native';
 import type { KitModel } from '@/db/contracts';
@@ -15,7 +24,16 @@ import { Label, Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
 import { AirfoilFields } from './airfoil-fields';
 import { Cell, KitFields, Row } from './kit-fields';
-import { gaugeKey, gaugeLabel, RIVET_FAMILIES, STOCK_GAUGES_IN, STUDY_MATERIALS, toggleGauge, toggleRivet, type StudyFormValues } from './study-form-values';
+import {
+  gaugeKey,
+  gaugeLabel,
+  RIVET_FAMILIES,
+  STOCK_GAUGES_IN,
+  STUDY_MATERIALS,
+  toggleGauge,
+  toggleRivet,
+  type StudyFormValues,
+} from './study-form-values';
 
 /*
  * Blocks the rib and the wing form both have. Those at the same path in both take the rib form's
@@ -39,8 +57,20 @@ export type StudyFormProps<V, O> = {
  * The head of a study's form: its name and kit model, then the aircraft's numbers and the airfoil
  * (`inputs.kit`, `inputs.airfoil`: the same blocks in a rib and a wing study).
  */
-export function StudyBasics({ control, setValue, kits, isNew, prefix, nameHint, onTake }: {
-  control: Control<StudyFormValues>; setValue: UseFormSetValue<StudyFormValues>; kits: KitModel[]; isNew: boolean; prefix: string;
+export function StudyBasics({
+  control,
+  setValue,
+  kits,
+  isNew,
+  prefix,
+  nameHint,
+  onTake,
+}: {
+  control: Control<StudyFormValues>;
+  setValue: UseFormSetValue<StudyFormValues>;
+  kits: KitModel[];
+  isNew: boolean;
+  prefix: string;
   /** An example name, e.g. "e.g. Left wing, flight envelope". */
   nameHint: string;
   onTake: (kit: KitModel, when: 'chosen' | 'again') => void;
@@ -49,7 +79,13 @@ export function StudyBasics({ control, setValue, kits, isNew, prefix, nameHint, 
   return (
     <>
       <Section title="Study">
-        <FormTextField control={control} name="name" label="Name of the study" hint={nameHint} testID={`${prefix}-name`} />
+        <FormTextField
+          control={control}
+          name="name"
+          label="Name of the study"
+          hint={nameHint}
+          testID={`${prefix}-name`}
+        />
         <KitModelField control={control} kits={kits} isNew={isNew} prefix={prefix} onTake={onTake} />
       </Section>
 
@@ -69,8 +105,17 @@ export function StudyBasics({ control, setValue, kits, isNew, prefix, nameHint, 
 }
 
 /** The kit model; a new study starts from its design data, an existing one keeps its own unless asked. */
-function KitModelField({ control, kits, isNew, prefix, onTake }: {
-  control: Control<StudyFormValues>; kits: KitModel[]; isNew: boolean; prefix: string;
+function KitModelField({
+  control,
+  kits,
+  isNew,
+  prefix,
+  onTake,
+}: {
+  control: Control<StudyFormValues>;
+  kits: KitModel[];
+  isNew: boolean;
+  prefix: string;
   /** Fills the form from the kit: on choosing it for a new study, or on the button for an existing one. */
   onTake: (kit: KitModel, when: 'chosen' | 'again') => void;
 }) {
@@ -112,8 +157,20 @@ function KitModelField({ control, kits, isNew, prefix, onTake }: {
 }
 
 /** A rib's fastener lines (at most six), each a name, a surface and where it starts and ends in x/c. */
-export function FastenerLinesSection<T extends FieldValues>({ control, name, prefix, title, intro, children }: {
-  control: Control<T>; name: ArrayPath<T>; prefix: string; title: string; intro: string; children?: React.ReactNode;
+export function FastenerLinesSection<T extends FieldValues>({
+  control,
+  name,
+  prefix,
+  title,
+  intro,
+  children,
+}: {
+  control: Control<T>;
+  name: ArrayPath<T>;
+  prefix: string;
+  title: string;
+  intro: string;
+  children?: React.ReactNode;
 }) {
   const lines = useFieldArray({ control, name });
   const { errors } = useFormState({ control, name: name as Path<T> });
@@ -122,38 +179,86 @@ export function FastenerLinesSection<T extends FieldValues>({ control, name, pre
   return (
     <Section
       title={title}
-      aside={lines.fields.length < 6 ? (
-        <Button
-          label="Add a line"
-          variant="quiet"
-          compact
-          testID={`${prefix}-line-add`}
-          onPress={() => lines.append({ name: `Line ${lines.fields.length + 1}`, surface: 'upper', startXc: 0.1, endXc: 0.8 } as FieldArray<T, ArrayPath<T>>)}
-        />
-      ) : undefined}
+      aside={
+        lines.fields.length < 6 ? (
+          <Button
+            label="Add a line"
+            variant="quiet"
+            compact
+            testID={`${prefix}-line-add`}
+            onPress={() =>
+              lines.append({
+                name: `Line ${lines.fields.length + 1}`,
+                surface: 'upper',
+                startXc: 0.1,
+                endXc: 0.8,
+              } as FieldArray<T, ArrayPath<T>>)
+            }
+          />
+        ) : undefined
+      }
     >
-      <Txt variant="small" tone="soft">{intro}</Txt>
+      <Txt variant="small" tone="soft">
+        {intro}
+      </Txt>
       {listError ? <Notice tone="error">{listError}</Notice> : null}
       {lines.fields.map((f, i) => (
-        <View key={f.id} style={{ gap: space.sm, paddingBottom: space.md, borderBottomWidth: hairline, borderColor: colors.rule }} testID={`${prefix}-line-${i}`}>
+        <View
+          key={f.id}
+          style={{ gap: space.sm, paddingBottom: space.md, borderBottomWidth: hairline, borderColor: colors.rule }}
+          testID={`${prefix}-line-${i}`}
+        >
           <Row>
-            <Cell><FormTextField control={control} name={at(i, 'name')} label={`Line ${i + 1} name`} testID={`${prefix}-line-${i}-name`} /></Cell>
+            <Cell>
+              <FormTextField
+                control={control}
+                name={at(i, 'name')}
+                label={`Line ${i + 1} name`}
+                testID={`${prefix}-line-${i}-name`}
+              />
+            </Cell>
             <Cell>
               <FormChoiceField
                 control={control}
                 name={at(i, 'surface')}
                 label="Surface"
                 testID={`${prefix}-line-${i}-surface`}
-                options={[{ value: 'upper', label: 'Upper' }, { value: 'lower', label: 'Lower' }]}
+                options={[
+                  { value: 'upper', label: 'Upper' },
+                  { value: 'lower', label: 'Lower' },
+                ]}
               />
             </Cell>
           </Row>
           <Row>
-            <Cell><FormNumberField control={control} name={at(i, 'startXc')} label="Starts at" unit="x/c" testID={`${prefix}-line-${i}-start`} /></Cell>
-            <Cell><FormNumberField control={control} name={at(i, 'endXc')} label="Ends at" unit="x/c" testID={`${prefix}-line-${i}-end`} /></Cell>
+            <Cell>
+              <FormNumberField
+                control={control}
+                name={at(i, 'startXc')}
+                label="Starts at"
+                unit="x/c"
+                testID={`${prefix}-line-${i}-start`}
+              />
+            </Cell>
+            <Cell>
+              <FormNumberField
+                control={control}
+                name={at(i, 'endXc')}
+                label="Ends at"
+                unit="x/c"
+                testID={`${prefix}-line-${i}-end`}
+              />
+            </Cell>
           </Row>
           {lines.fields.length > 1 ? (
-            <Button label={`Remove line ${i + 1}`} variant="quiet" compact onPress={() => lines.remove(i)} testID={`${prefix}-line-${i}-remove`} style={{ alignSelf: 'flex-start' }} />
+            <Button
+              label={`Remove line ${i + 1}`}
+              variant="quiet"
+              compact
+              onPress={() => lines.remove(i)}
+              testID={`${prefix}-line-${i}-remove`}
+              style={{ alignSelf: 'flex-start' }}
+            />
           ) : null}
         </View>
       ))}
@@ -163,7 +268,15 @@ export function FastenerLinesSection<T extends FieldValues>({ control, name, pre
 }
 
 /** The sheet material: the ones the engine knows, and the study's own if it is another. */
-export function MaterialField({ control, label, prefix }: { control: Control<StudyFormValues>; label: string; prefix: string }) {
+export function MaterialField({
+  control,
+  label,
+  prefix,
+}: {
+  control: Control<StudyFormValues>;
+  label: string;
+  prefix: string;
+}) {
   return (
     <Controller
       control={control}
@@ -175,7 +288,10 @@ export function MaterialField({ control, label, prefix }: { control: Control<Stu
             value={field.value}
             onChange={field.onChange}
             invalid={!!fieldState.error}
-            options={[...new Set([...STUDY_MATERIALS, ...(field.value ? [field.value] : [])])].map((m) => ({ value: m, label: m }))}
+            options={[...new Set([...STUDY_MATERIALS, ...(field.value ? [field.value] : [])])].map((m) => ({
+              value: m,
+              label: m,
+            }))}
           />
         </Field>
       )}
@@ -187,7 +303,10 @@ export function MaterialField({ control, label, prefix }: { control: Control<Stu
 function ChosenCount({ n, max }: { n: number; max?: number }) {
   return (
     <Txt variant="small" tone={max !== undefined && n > max ? 'error' : 'soft'}>
-      <Mono variant="small" bold>{n}</Mono> {max !== undefined ? `of at most ${max} ` : ''}chosen
+      <Mono variant="small" bold>
+        {n}
+      </Mono>{' '}
+      {max !== undefined ? `of at most ${max} ` : ''}chosen
     </Txt>
   );
 }
@@ -196,8 +315,20 @@ function ChosenCount({ n, max }: { n: number; max?: number }) {
  * Stock gauges as chips (and any other the study holds), kept in inches. With a cap, the count chosen
  * is said under them. The field's testID is `${testIDPrefix}s-field`.
  */
-export function GaugeChips<T extends FieldValues>({ control, name, label, hint, testIDPrefix, max }: {
-  control: Control<T>; name: Path<T>; label: string; hint: string; testIDPrefix: string; max?: number;
+export function GaugeChips<T extends FieldValues>({
+  control,
+  name,
+  label,
+  hint,
+  testIDPrefix,
+  max,
+}: {
+  control: Control<T>;
+  name: Path<T>;
+  label: string;
+  hint: string;
+  testIDPrefix: string;
+  max?: number;
 }) {
   const units = useUnits();
   // A list's own error ("choose at least one") sits on the list or under its root: errorAt reads both.
@@ -227,8 +358,18 @@ export function GaugeChips<T extends FieldValues>({ control, name, label, hint, 
 }
 
 /** Rivets as chips by family (and any other the study holds), in family and size order; the count under them. */
-export function RivetChips<T extends FieldValues>({ control, name, label, testIDPrefix, max }: {
-  control: Control<T>; name: Path<T>; label: string; testIDPrefix: string; max?: number;
+export function RivetChips<T extends FieldValues>({
+  control,
+  name,
+  label,
+  testIDPrefix,
+  max,
+}: {
+  control: Control<T>;
+  name: Path<T>;
+  label: string;
+  testIDPrefix: string;
+  max?: number;
 }) {
   const { errors } = useFormState({ control, name });
   return (
@@ -242,7 +383,12 @@ export function RivetChips<T extends FieldValues>({ control, name, label, testID
         const group = (title: string, codes: string[], key: string) => (
           <View key={key} style={{ gap: space.xs }}>
             <Label>{title}</Label>
-            <MultiChoice testIDPrefix={testIDPrefix} values={values} onToggle={(c) => field.onChange(toggleRivet(values, c))} options={codes.map((c) => ({ value: c, label: c }))} />
+            <MultiChoice
+              testIDPrefix={testIDPrefix}
+              values={values}
+              onToggle={(c) => field.onChange(toggleRivet(values, c))}
+              options={codes.map((c) => ({ value: c, label: c }))}
+            />
           </View>
         );
         return (
@@ -260,26 +406,81 @@ export function RivetChips<T extends FieldValues>({ control, name, label, testID
 }
 
 /** How the pitch is laid out and the candidates ranked: the same settings for a rib and a wing. */
-export function ScheduleFields({ control, prefix, minutesHint, rankLabel }: {
-  control: Control<StudyFormValues>; prefix: string; minutesHint: string; rankLabel: string;
+export function ScheduleFields({
+  control,
+  prefix,
+  minutesHint,
+  rankLabel,
+}: {
+  control: Control<StudyFormValues>;
+  prefix: string;
+  minutesHint: string;
+  rankLabel: string;
 }) {
   return (
     <Section title="Schedule settings">
       <Row>
-        <Cell><FormNumberField control={control} name="inputs.maxPitchDiameters" label="Largest pitch" unit="D" hint="In rivet diameters, 4 to 16" testID={`${prefix}-max-pitch`} /></Cell>
-        <Cell><FormNumberField control={control} name="inputs.pitchIncrementIn" label="Pitch rounded to" quantity="length" hint="The pitch steps down in these" testID={`${prefix}-pitch-increment`} /></Cell>
-        <Cell><FormNumberField control={control} name="inputs.maxZones" label="Zones per line, at most" unit="zones" testID={`${prefix}-max-zones`} /></Cell>
+        <Cell>
+          <FormNumberField
+            control={control}
+            name="inputs.maxPitchDiameters"
+            label="Largest pitch"
+            unit="D"
+            hint="In rivet diameters, 4 to 16"
+            testID={`${prefix}-max-pitch`}
+          />
+        </Cell>
+        <Cell>
+          <FormNumberField
+            control={control}
+            name="inputs.pitchIncrementIn"
+            label="Pitch rounded to"
+            quantity="length"
+            hint="The pitch steps down in these"
+            testID={`${prefix}-pitch-increment`}
+          />
+        </Cell>
+        <Cell>
+          <FormNumberField
+            control={control}
+            name="inputs.maxZones"
+            label="Zones per line, at most"
+            unit="zones"
+            testID={`${prefix}-max-zones`}
+          />
+        </Cell>
       </Row>
       <Row>
-        <Cell><FormNumberField control={control} name="inputs.minutesPerHole" label="Minutes per hole" unit="min" hint={minutesHint} testID={`${prefix}-minutes-per-hole`} /></Cell>
-        <Cell><FormNumberField control={control} name="inputs.panels" label="Panels on the airfoil" unit="panels" hint="Even, 40 to 400; blank: 160" testID={`${prefix}-panels`} /></Cell>
+        <Cell>
+          <FormNumberField
+            control={control}
+            name="inputs.minutesPerHole"
+            label="Minutes per hole"
+            unit="min"
+            hint={minutesHint}
+            testID={`${prefix}-minutes-per-hole`}
+          />
+        </Cell>
+        <Cell>
+          <FormNumberField
+            control={control}
+            name="inputs.panels"
+            label="Panels on the airfoil"
+            unit="panels"
+            hint="Even, 40 to 400; blank: 160"
+            testID={`${prefix}-panels`}
+          />
+        </Cell>
       </Row>
       <FormChoiceField
         control={control}
         name="inputs.rankBy"
         label={rankLabel}
         testID={`${prefix}-rank-by`}
-        options={[{ value: 'weight', label: 'Lightest first' }, { value: 'buildTime', label: 'Quickest to build first' }]}
+        options={[
+          { value: 'weight', label: 'Lightest first' },
+          { value: 'buildTime', label: 'Quickest to build first' },
+        ]}
       />
     </Section>
   );

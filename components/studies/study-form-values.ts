@@ -138,18 +138,40 @@ export function copyInputs<T>(v: T): T {
 
 /** Fields both study forms have at the same paths; each form's own are added to these. */
 export const COMMON_PLACED = [
-  'kitModelId', 'name',
-  'inputs.kit.weightLb', 'inputs.kit.wingAreaSqFt', 'inputs.kit.meanChordIn', 'inputs.kit.stallSpeedKeas', 'inputs.kit.cruiseSpeedKeas',
-  'inputs.kit.diveSpeedKeas', 'inputs.kit.category', 'inputs.kit.altitudeFt', 'inputs.kit.liftSlopePerRad',
-  'inputs.airfoil', 'inputs.airfoil.designation', 'inputs.airfoil.points', 'inputs.airfoil.name',
-  'inputs.material', 'inputs.gaugeCandidates', 'inputs.rivetCandidates',
-  'inputs.maxPitchDiameters', 'inputs.pitchIncrementIn', 'inputs.maxZones', 'inputs.rankBy', 'inputs.minutesPerHole', 'inputs.panels',
+  'kitModelId',
+  'name',
+  'inputs.kit.weightLb',
+  'inputs.kit.wingAreaSqFt',
+  'inputs.kit.meanChordIn',
+  'inputs.kit.stallSpeedKeas',
+  'inputs.kit.cruiseSpeedKeas',
+  'inputs.kit.diveSpeedKeas',
+  'inputs.kit.category',
+  'inputs.kit.altitudeFt',
+  'inputs.kit.liftSlopePerRad',
+  'inputs.airfoil',
+  'inputs.airfoil.designation',
+  'inputs.airfoil.points',
+  'inputs.airfoil.name',
+  'inputs.material',
+  'inputs.gaugeCandidates',
+  'inputs.rivetCandidates',
+  'inputs.maxPitchDiameters',
+  'inputs.pitchIncrementIn',
+  'inputs.maxZones',
+  'inputs.rankBy',
+  'inputs.minutesPerHole',
+  'inputs.panels',
 ] as const;
 
 /** Form fields that can carry a message of their own; anything else is said at the top of the form. */
 const PLACED = new Set<string>([
   ...COMMON_PLACED,
-  'inputs.rib.chordIn', 'inputs.rib.spacingIn', 'inputs.rib.internalCp', 'inputs.rib.flangeWidthIn', 'inputs.lines',
+  'inputs.rib.chordIn',
+  'inputs.rib.spacingIn',
+  'inputs.rib.internalCp',
+  'inputs.rib.flangeWidthIn',
+  'inputs.lines',
 ]);
 export const LINE_FIELDS = new Set(['name', 'surface', 'startXc', 'endXc']);
 
@@ -169,8 +191,12 @@ export function rowFieldFor(path: string, list: string, fields: ReadonlySet<stri
  * "lines[0].endXc" (no "inputs." and brackets for indices). Both become the form's "inputs.lines.0.endXc".
  */
 export function normaliseFieldPath(path: string): string {
-  const dotted = path.trim().replace(/\[(\d+)\]/g, '.$1').replace(/^\.+|\.+$/g, '');
-  if (dotted === 'kitModelId' || dotted === 'name' || dotted === 'inputs' || dotted.startsWith('inputs.')) return dotted;
+  const dotted = path
+    .trim()
+    .replace(/\[(\d+)\]/g, '.$1')
+    .replace(/^\.+|\.+$/g, '');
+  if (dotted === 'kitModelId' || dotted === 'name' || dotted === 'inputs' || dotted.startsWith('inputs.'))
+    return dotted;
   return `inputs.${dotted}`;
 }
 

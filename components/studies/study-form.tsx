@@ -11,7 +11,15 @@ import { Section } from '@/components/ui/sheet';
 import { Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
 import { Cell, Row } from './kit-fields';
-import { FastenerLinesSection, GaugeChips, MaterialField, RivetChips, ScheduleFields, StudyBasics, type StudyFormProps } from './study-form-parts';
+import {
+  FastenerLinesSection,
+  GaugeChips,
+  MaterialField,
+  RivetChips,
+  ScheduleFields,
+  StudyBasics,
+  type StudyFormProps,
+} from './study-form-parts';
 import { kitIntoStudy, studyFieldFor, type StudyFormValues } from './study-form-values';
 import { useStudySubmit } from './use-study-submit';
 
@@ -23,14 +31,19 @@ type Props = StudyFormProps<StudyFormValues, StudyOutput>;
 
 /** The load study's inputs: kit data, airfoil, rib, fastener lines, material and candidates, settings. */
 export function StudyForm({ kits, defaultValues, isNew, submitLabel, onSubmit, note }: Props) {
-  const { control, handleSubmit, setError, setValue, getValues, reset, formState } = useForm<StudyFormValues, unknown, StudyOutput>({
+  const { control, handleSubmit, setError, setValue, getValues, reset, formState } = useForm<
+    StudyFormValues,
+    unknown,
+    StudyOutput
+  >({
     resolver,
     mode: 'onChange',
     defaultValues,
   });
   const { submit, formError } = useStudySubmit({ handleSubmit, setError, onSubmit, fieldFor: studyFieldFor });
 
-  const takeKit = (k: KitModel) => reset(kitIntoStudy(getValues(), k), { keepDefaultValues: true, keepDirty: false, keepErrors: false });
+  const takeKit = (k: KitModel) =>
+    reset(kitIntoStudy(getValues(), k), { keepDefaultValues: true, keepDirty: false, keepErrors: false });
 
   return (
     <View style={{ gap: space.xl }} testID="study-form">
@@ -46,12 +59,47 @@ export function StudyForm({ kits, defaultValues, isNew, submitLabel, onSubmit, n
 
       <Section title="Rib">
         <Row>
-          <Cell><FormNumberField control={control} name="inputs.rib.chordIn" label="Rib chord" quantity="length" testID="study-rib-chord" /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.rib.spacingIn" label="Rib spacing" quantity="length" hint="The width of skin each rib carries" testID="study-rib-spacing" /></Cell>
+          <Cell>
+            <FormNumberField
+              control={control}
+              name="inputs.rib.chordIn"
+              label="Rib chord"
+              quantity="length"
+              testID="study-rib-chord"
+            />
+          </Cell>
+          <Cell>
+            <FormNumberField
+              control={control}
+              name="inputs.rib.spacingIn"
+              label="Rib spacing"
+              quantity="length"
+              hint="The width of skin each rib carries"
+              testID="study-rib-spacing"
+            />
+          </Cell>
         </Row>
         <Row>
-          <Cell><FormNumberField control={control} name="inputs.rib.internalCp" label="Pressure inside the wing" unit="Cp" hint="Blank: 0 (no vents or leaks)" testID="study-internal-cp" /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.rib.flangeWidthIn" label="Flange width" quantity="length" hint="Blank: 4 rivet diameters" testID="study-flange-width" /></Cell>
+          <Cell>
+            <FormNumberField
+              control={control}
+              name="inputs.rib.internalCp"
+              label="Pressure inside the wing"
+              unit="Cp"
+              hint="Blank: 0 (no vents or leaks)"
+              testID="study-internal-cp"
+            />
+          </Cell>
+          <Cell>
+            <FormNumberField
+              control={control}
+              name="inputs.rib.flangeWidthIn"
+              label="Flange width"
+              quantity="length"
+              hint="Blank: 4 rivet diameters"
+              testID="study-flange-width"
+            />
+          </Cell>
         </Row>
       </Section>
 
@@ -65,7 +113,13 @@ export function StudyForm({ kits, defaultValues, isNew, submitLabel, onSubmit, n
 
       <Section title="Material and candidates">
         <MaterialField control={control} label="Sheet material" prefix="study" />
-        <GaugeChips control={control} name="inputs.gaugeCandidates" label="Gauges to try" hint="Stock sheet; each gauge is tried with each rivet." testIDPrefix="study-gauge" />
+        <GaugeChips
+          control={control}
+          name="inputs.gaugeCandidates"
+          label="Gauges to try"
+          hint="Stock sheet; each gauge is tried with each rivet."
+          testIDPrefix="study-gauge"
+        />
         <RivetChips control={control} name="inputs.rivetCandidates" label="Rivets to try" testIDPrefix="study-rivet" />
       </Section>
 
@@ -77,7 +131,11 @@ export function StudyForm({ kits, defaultValues, isNew, submitLabel, onSubmit, n
       />
 
       {note}
-      {formError ? <Notice tone="error" testID="study-form-error">{formError}</Notice> : null}
+      {formError ? (
+        <Notice tone="error" testID="study-form-error">
+          {formError}
+        </Notice>
+      ) : null}
       <Button
         label={submitLabel}
         busyLabel="Computing"
@@ -85,7 +143,9 @@ export function StudyForm({ kits, defaultValues, isNew, submitLabel, onSubmit, n
         onPress={() => void submit()}
         testID="study-compute"
       />
-      <Txt variant="small" tone="faint">The server computes every gauge with every rivet. Stored in inches and pounds whatever units you typed in.</Txt>
+      <Txt variant="small" tone="faint">
+        The server computes every gauge with every rivet. Stored in inches and pounds whatever units you typed in.
+      </Txt>
     </View>
   );
 }

@@ -1,17 +1,49 @@
 import type {
-  AllowableSummary, CpSample, EnvelopePoint, LineLoads, LineSchedule, RibStudyResult, ScheduleHole, ScheduleZone,
-  StudyCandidate, StudyCondition, TradeRow,
+  AllowableSummary,
+  CpSample,
+  EnvelopePoint,
+  LineLoads,
+  LineSchedule,
+  RibStudyResult,
+  ScheduleHole,
+  ScheduleZone,
+  StudyCandidate,
+  StudyCondition,
+  TradeRow,
 } from '@/db/contracts';
 
 /**
  * The stored result of a rib study as the screen reads it: the engine's own types (in, lb, psi, KEAS),
  * less what the pictures do not use. `readStudyResult` checks it before anything is drawn.
  */
-export type { CpSample, EnvelopePoint, LineLoads, LineSchedule, ScheduleHole, ScheduleZone, StudyCandidate, StudyCondition, TradeRow };
+export type {
+  CpSample,
+  EnvelopePoint,
+  LineLoads,
+  LineSchedule,
+  ScheduleHole,
+  ScheduleZone,
+  StudyCandidate,
+  StudyCondition,
+  TradeRow,
+};
 export type Pt = [number, number];
 export type Allowables = AllowableSummary;
 export type CandidateKey = { gaugeIn: number; rivet: string };
-export type StudyResult = Pick<RibStudyResult, 'conditions' | 'outline' | 'airfoil' | 'design' | 'lines' | 'candidates' | 'trade' | 'recommended' | 'rules' | 'warnings' | 'caution'>;
+export type StudyResult = Pick<
+  RibStudyResult,
+  | 'conditions'
+  | 'outline'
+  | 'airfoil'
+  | 'design'
+  | 'lines'
+  | 'candidates'
+  | 'trade'
+  | 'recommended'
+  | 'rules'
+  | 'warnings'
+  | 'caution'
+>;
 
 const isArr = (v: unknown): v is unknown[] => Array.isArray(v);
 
@@ -40,7 +72,8 @@ export function findCandidate(result: StudyResult, key: CandidateKey | null | un
 
 /** What the pictures show first: the recommended candidate, else the first feasible, else the first. */
 export function initialCandidate(result: StudyResult): CandidateKey | null {
-  const c = findCandidate(result, result.recommended) ?? result.candidates.find((x) => x.feasible) ?? result.candidates[0];
+  const c =
+    findCandidate(result, result.recommended) ?? result.candidates.find((x) => x.feasible) ?? result.candidates[0];
   return c ? { gaugeIn: c.gaugeIn, rivet: c.rivet } : null;
 }
 

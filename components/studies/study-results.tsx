@@ -14,7 +14,13 @@ import { PressurePicture } from './pressure-picture';
 import { ResultNotes } from './result-notes';
 import { CandidateTag, DesignFigures, UnreadableResult } from './result-parts';
 import {
-  findCandidate, initialCandidate, readStudyResult, sameCandidate, type CandidateKey, type StudyCandidate, type StudyResult,
+  findCandidate,
+  initialCandidate,
+  readStudyResult,
+  sameCandidate,
+  type CandidateKey,
+  type StudyCandidate,
+  type StudyResult,
 } from './study-result';
 import { TradeTable } from './trade-table';
 import { ZoneTable } from './zone-table';
@@ -28,16 +34,39 @@ function Headline({ result, shown }: { result: StudyResult; shown: CandidateKey 
     <Sheet testID="study-headline">
       {rec ? (
         <Txt variant="heading" testID="study-recommended">
-          Recommended: <Mono variant="heading" bold>{u.length(rec.gaugeIn)}</Mono> with <Mono variant="heading" bold>{rec.rivet}</Mono>
+          Recommended:{' '}
+          <Mono variant="heading" bold>
+            {u.length(rec.gaugeIn)}
+          </Mono>{' '}
+          with{' '}
+          <Mono variant="heading" bold>
+            {rec.rivet}
+          </Mono>
         </Txt>
-      ) : <Txt variant="heading" tone="error" testID="study-recommended">No candidate carries the loads</Txt>}
+      ) : (
+        <Txt variant="heading" tone="error" testID="study-recommended">
+          No candidate carries the loads
+        </Txt>
+      )}
       <Txt variant="small" tone="soft">
-        <Mono variant="small">{feasible}</Mono> of <Mono variant="small">{result.trade.length}</Mono> gauge and rivet pairs carry the loads
+        <Mono variant="small">{feasible}</Mono> of <Mono variant="small">{result.trade.length}</Mono> gauge and rivet
+        pairs carry the loads
         <DesignFigures design={result.design} />
-        {result.airfoil ? <> · {result.airfoil.name}, <Mono variant="small">{result.airfoil.panels}</Mono> panels</> : null}
+        {result.airfoil ? (
+          <>
+            {' '}
+            · {result.airfoil.name}, <Mono variant="small">{result.airfoil.panels}</Mono> panels
+          </>
+        ) : null}
       </Txt>
       {shown && !sameCandidate(shown, rec) ? (
-        <Txt variant="small" testID="study-shown">Pictures and zones show <Mono variant="small" bold>{u.length(shown.gaugeIn)} · {shown.rivet}</Mono> (chosen in the trade table).</Txt>
+        <Txt variant="small" testID="study-shown">
+          Pictures and zones show{' '}
+          <Mono variant="small" bold>
+            {u.length(shown.gaugeIn)} · {shown.rivet}
+          </Mono>{' '}
+          (chosen in the trade table).
+        </Txt>
       ) : null}
     </Sheet>
   );
@@ -57,17 +86,30 @@ export function StudyResults({ detail, latestRevision }: { detail: StudyDetail; 
   // The stored result keeps the holes of the recommended candidate only; another one's come from the server.
   const stored = result ? findCandidate(result, chosen) : null;
   const needsHoles = !!stored && stored.holesStored === false;
-  const fetched = useStudyCandidateQuery(detail.id, detail.revision, needsHoles && stored ? { gaugeIn: stored.gaugeIn, rivet: stored.rivet } : null);
+  const fetched = useStudyCandidateQuery(
+    detail.id,
+    detail.revision,
+    needsHoles && stored ? { gaugeIn: stored.gaugeIn, rivet: stored.rivet } : null,
+  );
 
   if (!result) {
     return <UnreadableResult />;
   }
   const candidate = stored;
-  const withHoles: StudyCandidate | null = needsHoles ? fetched.data ?? null : candidate;
+  const withHoles: StudyCandidate | null = needsHoles ? (fetched.data ?? null) : candidate;
   // The pictures need every hole: while they are worked out, say so (the zone table below has the zones).
-  const holesState = (what: string) => (fetched.isError
-    ? <ErrorState title={`The holes of this candidate did not load, so the ${what} cannot be drawn`} error={fetched.error} onRetry={() => void fetched.refetch()} />
-    : <LoadingState what={`Working out every hole of ${candidate ? `${u(candidate.gaugeIn)} · ${candidate.rivet}` : 'the candidate'} for the ${what}`} />);
+  const holesState = (what: string) =>
+    fetched.isError ? (
+      <ErrorState
+        title={`The holes of this candidate did not load, so the ${what} cannot be drawn`}
+        error={fetched.error}
+        onRetry={() => void fetched.refetch()}
+      />
+    ) : (
+      <LoadingState
+        what={`Working out every hole of ${candidate ? `${u(candidate.gaugeIn)} · ${candidate.rivet}` : 'the candidate'} for the ${what}`}
+      />
+    );
 
   return (
     <View style={{ gap: space.xl }} testID="study-results">
@@ -83,8 +125,13 @@ export function StudyResults({ detail, latestRevision }: { detail: StudyDetail; 
         testID="section-loads"
         aside={candidate ? <CandidateTag c={candidate} /> : undefined}
       >
-        {!candidate ? <Txt tone="soft">Choose a candidate in the trade table.</Txt>
-          : withHoles ? <LoadPlot candidate={withHoles} chordIn={result.outline.chordIn} /> : holesState('load plot')}
+        {!candidate ? (
+          <Txt tone="soft">Choose a candidate in the trade table.</Txt>
+        ) : withHoles ? (
+          <LoadPlot candidate={withHoles} chordIn={result.outline.chordIn} />
+        ) : (
+          holesState('load plot')
+        )}
       </Section>
 
       <Section
@@ -92,8 +139,16 @@ export function StudyResults({ detail, latestRevision }: { detail: StudyDetail; 
         testID="section-zones"
         aside={candidate ? <CandidateTag c={candidate} /> : undefined}
       >
-        {!candidate ? null
-          : withHoles ? <ZonesDrawing outline={result.outline.points} chordIn={result.outline.chordIn} candidate={withHoles} lines={result.lines} /> : holesState('drawing')}
+        {!candidate ? null : withHoles ? (
+          <ZonesDrawing
+            outline={result.outline.points}
+            chordIn={result.outline.chordIn}
+            candidate={withHoles}
+            lines={result.lines}
+          />
+        ) : (
+          holesState('drawing')
+        )}
       </Section>
 
       <Section title="Gauge and rivet trade" testID="section-trade">
@@ -105,7 +160,11 @@ export function StudyResults({ detail, latestRevision }: { detail: StudyDetail; 
         testID="section-zone-table"
         aside={candidate ? <CandidateTag c={candidate} /> : undefined}
       >
-        {candidate ? <ZoneTable candidate={candidate} /> : <Txt tone="soft">Choose a candidate in the trade table.</Txt>}
+        {candidate ? (
+          <ZoneTable candidate={candidate} />
+        ) : (
+          <Txt tone="soft">Choose a candidate in the trade table.</Txt>
+        )}
       </Section>
 
       <Section title="Apply to part design" testID="section-apply">

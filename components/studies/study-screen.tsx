@@ -22,7 +22,11 @@ export function StudyScreen({ studyId, revision }: { studyId: string; revision?:
   const q = useStudyQuery(studyId, revision);
   const kits = useKitsQuery();
   if (q.isPending || kits.isPending) {
-    return <Screen title="Load study" backTo="/studies"><LoadingState what={revision ? `Loading revision ${revision}` : 'Loading the study'} /></Screen>;
+    return (
+      <Screen title="Load study" backTo="/studies">
+        <LoadingState what={revision ? `Loading revision ${revision}` : 'Loading the study'} />
+      </Screen>
+    );
   }
   if (q.isError || kits.isError) {
     const error = q.error ?? kits.error;
@@ -32,12 +36,23 @@ export function StudyScreen({ studyId, revision }: { studyId: string; revision?:
           error={error}
           title={revision ? `Revision ${revision} did not load` : undefined}
           // Not found or not yours does not change by trying again.
-          onRetry={error instanceof ApiError && (error.status === 404 || error.status === 403) ? undefined : () => { void q.refetch(); void kits.refetch(); }}
+          onRetry={
+            error instanceof ApiError && (error.status === 404 || error.status === 403)
+              ? undefined
+              : () => {
+                  void q.refetch();
+                  void kits.refetch();
+                }
+          }
         />
       </Screen>
     );
   }
-  return q.data.kind === 'wing' ? <WingStudyBody d={q.data} kits={kits.data} /> : <StudyBody d={q.data} kits={kits.data} />;
+  return q.data.kind === 'wing' ? (
+    <WingStudyBody d={q.data} kits={kits.data} />
+  ) : (
+    <StudyBody d={q.data} kits={kits.data} />
+  );
 }
 
 function StudyBody({ d, kits }: { d: StudyDetail; kits: KitModel[] }) {
@@ -63,8 +78,8 @@ export function NewStudyScreen({ kitModelId }: { kitModelId?: string }) {
       testID="new-study-screen"
       needs="A load study works from a kit model's weight, wing, speeds and airfoil."
       promise={
-        'Fill in the inputs and press Compute. You get the pressure on the rib for every flight condition, the load on each rivet '
-        + 'against its allowables, the gauge and rivet trade table and the pitch zones, stored as revision 1.'
+        'Fill in the inputs and press Compute. You get the pressure on the rib for every flight condition, the load on each rivet ' +
+        'against its allowables, the gauge and rivet trade table and the pitch zones, stored as revision 1.'
       }
       valuesFor={newStudyValues}
       form={(p) => <StudyForm {...p} />}

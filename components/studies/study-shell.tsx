@@ -30,7 +30,14 @@ export type ShellFormProps = {
  * on a wide screen, or one at a time on a phone (results first; the other stays mounted so no typing is
  * lost). Computing makes the next revision and goes back to the latest.
  */
-export function StudyDetailShell({ d, testID, kindLabel, leftWidth, form, results }: {
+export function StudyDetailShell({
+  d,
+  testID,
+  kindLabel,
+  leftWidth,
+  form,
+  results,
+}: {
   d: StudyDetail;
   testID: string;
   /** Said before the kit's name in the subtitle ("Wing study"). */
@@ -89,12 +96,18 @@ export function StudyDetailShell({ d, testID, kindLabel, leftWidth, form, result
           }}
           options={revisions.map((r) => ({
             value: String(r.revision),
-            label: wide ? `Revision ${r.revision}${r.revision === latest ? ' · latest' : ''}` : `${r.revision}${r.revision === latest ? ' · latest' : ''}`,
+            label: wide
+              ? `Revision ${r.revision}${r.revision === latest ? ' · latest' : ''}`
+              : `${r.revision}${r.revision === latest ? ' · latest' : ''}`,
             // On a phone the chips stay small; the one on show says who computed it and when, below.
             hint: wide ? `${whenText(r.createdAt)} · ${r.createdByName}` : undefined,
           }))}
         />
-        {!wide && shownRev ? <Txt variant="small" tone="soft">Revision {shownRev.revision}: {whenText(shownRev.createdAt)} · {shownRev.createdByName}</Txt> : null}
+        {!wide && shownRev ? (
+          <Txt variant="small" tone="soft">
+            Revision {shownRev.revision}: {whenText(shownRev.createdAt)} · {shownRev.createdByName}
+          </Txt>
+        ) : null}
       </Section>
       {wide ? (
         <TwoPane leftWidth={leftWidth} left={inputs} right={shown} />
@@ -104,7 +117,10 @@ export function StudyDetailShell({ d, testID, kindLabel, leftWidth, form, result
             testIDPrefix="study-pane"
             value={pane}
             onChange={setPane}
-            options={[{ value: 'results', label: 'Results' }, { value: 'inputs', label: 'Inputs' }]}
+            options={[
+              { value: 'results', label: 'Results' },
+              { value: 'inputs', label: 'Inputs' },
+            ]}
           />
           <View style={{ display: pane === 'inputs' ? 'flex' : 'none' }}>{inputs}</View>
           <View style={{ display: pane === 'results' ? 'flex' : 'none' }}>{shown}</View>
@@ -118,7 +134,16 @@ export function StudyDetailShell({ d, testID, kindLabel, leftWidth, form, result
  * A new study, rib or wing: the kit models first (each study works from one), then the form beside
  * what the results will hold; "Compute" makes revision 1 and opens it.
  */
-export function NewStudyShell<V>({ kitModelId, title, subtitle, testID, needs, promise, valuesFor, form }: {
+export function NewStudyShell<V>({
+  kitModelId,
+  title,
+  subtitle,
+  testID,
+  needs,
+  promise,
+  valuesFor,
+  form,
+}: {
   kitModelId?: string;
   title: string;
   subtitle: string;
@@ -139,43 +164,47 @@ export function NewStudyShell<V>({ kitModelId, title, subtitle, testID, needs, p
 
   return (
     <Screen title={title} subtitle={subtitle} backTo="/studies" full testID={testID} right={<UnitsSwitch />}>
-      {kits.isPending ? <LoadingState what="Loading kit models" />
-        : kits.isError ? <ErrorState error={kits.error} onRetry={() => void kits.refetch()} />
-          : !kits.data.length ? (
-            <EmptyState
-              title="Make a kit model first."
-              body={needs}
-              action={<Button label="New kit model" onPress={() => router.push('/catalogue/new-kit')} testID="study-new-kit" />}
-            />
-          ) : (
-            <TwoPane
-              leftWidth={0.55}
-              left={(
-                // A kit chosen in the address starts the form afresh from its data.
-                <Fragment key={kit?.id ?? 'none'}>
-                  {form({
-                    kits: kits.data,
-                    defaultValues: defaults,
-                    isNew: true,
-                    submitLabel: 'Compute',
-                    onSubmit: async (values) => {
-                      const made = await create.mutateAsync(values);
-                      router.replace(studyHref(made.id));
-                    },
-                  })}
-                </Fragment>
-              )}
-              right={(
-                <View style={{ gap: space.lg }}>
-                  <Caution />
-                  <Sheet>
-                    <Txt bold>Results show here once computed.</Txt>
-                    <Txt tone="soft">{promise}</Txt>
-                  </Sheet>
-                </View>
-              )}
-            />
-          )}
+      {kits.isPending ? (
+        <LoadingState what="Loading kit models" />
+      ) : kits.isError ? (
+        <ErrorState error={kits.error} onRetry={() => void kits.refetch()} />
+      ) : !kits.data.length ? (
+        <EmptyState
+          title="Make a kit model first."
+          body={needs}
+          action={
+            <Button label="New kit model" onPress={() => router.push('/catalogue/new-kit')} testID="study-new-kit" />
+          }
+        />
+      ) : (
+        <TwoPane
+          leftWidth={0.55}
+          left={
+            // A kit chosen in the address starts the form afresh from its data.
+            <Fragment key={kit?.id ?? 'none'}>
+              {form({
+                kits: kits.data,
+                defaultValues: defaults,
+                isNew: true,
+                submitLabel: 'Compute',
+                onSubmit: async (values) => {
+                  const made = await create.mutateAsync(values);
+                  router.replace(studyHref(made.id));
+                },
+              })}
+            </Fragment>
+          }
+          right={
+            <View style={{ gap: space.lg }}>
+              <Caution />
+              <Sheet>
+                <Txt bold>Results show here once computed.</Txt>
+                <Txt tone="soft">{promise}</Txt>
+              </Sheet>
+            </View>
+          }
+        />
+      )}
     </Screen>
   );
 }

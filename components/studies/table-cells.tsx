@@ -5,8 +5,17 @@ import { useUnits } from '@/hooks/use-units';
 import type { CandidateKey } from './study-result';
 
 /** A row's name as the button that shows its details below the table; marked while shown. */
-export function RowPickButton({ name, on, onPick, testID, says }: {
-  name: string; on: boolean; onPick: (name: string) => void; testID: string;
+export function RowPickButton({
+  name,
+  on,
+  onPick,
+  testID,
+  says,
+}: {
+  name: string;
+  on: boolean;
+  onPick: (name: string) => void;
+  testID: string;
   /** What pressing it shows, for a screen reader ("Rib W-101: show its zones"). */
   says: string;
 }) {
@@ -29,8 +38,12 @@ export function GaugeOverRivet({ c, testID }: { c: CandidateKey; testID: string 
   const u = useUnits();
   return (
     <View testID={testID} accessibilityLabel={`${u.length(c.gaugeIn)} with ${c.rivet}`}>
-      <Mono variant="small" bold>{u.length(c.gaugeIn)}</Mono>
-      <Mono variant="small" bold>{c.rivet}</Mono>
+      <Mono variant="small" bold>
+        {u.length(c.gaugeIn)}
+      </Mono>
+      <Mono variant="small" bold>
+        {c.rivet}
+      </Mono>
     </View>
   );
 }

@@ -19,11 +19,16 @@ const value: Record<TradeSortKey, (r: TradeRow) => number | string> = {
 export function sortTrade(rows: readonly TradeRow[], sort: TradeSort): TradeRow[] {
   const get = value[sort.key];
   const sign = sort.dir === 'asc' ? 1 : -1;
-  const cmp = (a: number | string, b: number | string) => (typeof a === 'string' ? a.localeCompare(String(b)) : a === b ? 0 : a < (b as number) ? -1 : 1);
+  const cmp = (a: number | string, b: number | string) =>
+    typeof a === 'string' ? a.localeCompare(String(b)) : a === b ? 0 : a < (b as number) ? -1 : 1;
   return [...rows].sort((a, b) => {
     if (sort.key === 'rank' && (a.rank === null) !== (b.rank === null)) return a.rank === null ? 1 : -1;
-    return sign * cmp(get(a), get(b))
-      || cmp(value.rank(a), value.rank(b)) || a.gaugeIn - b.gaugeIn || a.rivet.localeCompare(b.rivet);
+    return (
+      sign * cmp(get(a), get(b)) ||
+      cmp(value.rank(a), value.rank(b)) ||
+      a.gaugeIn - b.gaugeIn ||
+      a.rivet.localeCompare(b.rivet)
+    );
   });
 }
 

@@ -14,8 +14,16 @@ import { nextTradeSort, sortTrade, type TradeSort, type TradeSortKey } from './t
  * Every gauge × rivet candidate: whether it carries the loads, how many rivets, what it weighs and how
  * long it takes to build. Tapping a row shows that candidate (▶) in the pictures and zone tables.
  */
-export function TradeTable({ rows, recommended, chosen, onChoose }: {
-  rows: TradeRow[]; recommended: CandidateKey | null; chosen: CandidateKey | null; onChoose: (k: CandidateKey) => void;
+export function TradeTable({
+  rows,
+  recommended,
+  chosen,
+  onChoose,
+}: {
+  rows: TradeRow[];
+  recommended: CandidateKey | null;
+  chosen: CandidateKey | null;
+  onChoose: (k: CandidateKey) => void;
 }) {
   const units = useUnits();
   const [sort, setSort] = useState<TradeSort>({ key: 'rank', dir: 'asc' });
@@ -29,30 +37,104 @@ export function TradeTable({ rows, recommended, chosen, onChoose }: {
   const wu = units.system === 'metric' ? 'g' : 'lb';
   const columns: Column<TradeRow, TradeSortKey>[] = [
     {
-      key: 'gauge', title: `Gauge, ${units.label('length')}`, sortKey: 'gauge', minWidth: 76, flex: 0.9, render: (r) => (
+      key: 'gauge',
+      title: `Gauge, ${units.label('length')}`,
+      sortKey: 'gauge',
+      minWidth: 76,
+      flex: 0.9,
+      render: (r) => (
         <View style={styles.gauge}>
-          {sameCandidate(r, chosen) ? <Txt variant="small" bold tone="accent" testID={`${tradeRowTestId(r)}-chosen`} role="img" aria-label="shown">▶</Txt> : null}
-          <Mono variant="small" bold tone={sameCandidate(r, chosen) ? 'accent' : 'ink'}>{units.lengthNumber(r.gaugeIn)}</Mono>
+          {sameCandidate(r, chosen) ? (
+            <Txt
+              variant="small"
+              bold
+              tone="accent"
+              testID={`${tradeRowTestId(r)}-chosen`}
+              role="img"
+              aria-label="shown"
+            >
+              ▶
+            </Txt>
+          ) : null}
+          <Mono variant="small" bold tone={sameCandidate(r, chosen) ? 'accent' : 'ink'}>
+            {units.lengthNumber(r.gaugeIn)}
+          </Mono>
         </View>
       ),
     },
-    { key: 'rivet', title: 'Rivet', sortKey: 'rivet', minWidth: 112, flex: 1.5, render: (r) => <Mono variant="small">{r.rivet}</Mono> },
     {
-      key: 'feasible', title: 'Carries it', sortKey: 'feasible', minWidth: 76, flex: 1, render: (r) => (
+      key: 'rivet',
+      title: 'Rivet',
+      sortKey: 'rivet',
+      minWidth: 112,
+      flex: 1.5,
+      render: (r) => <Mono variant="small">{r.rivet}</Mono>,
+    },
+    {
+      key: 'feasible',
+      title: 'Carries it',
+      sortKey: 'feasible',
+      minWidth: 76,
+      flex: 1,
+      render: (r) => (
         <View>
-          <Txt bold tone={r.feasible ? 'ink' : 'error'}>{r.feasible ? '✓ yes' : '✕ no'}</Txt>
-          {r.pullThroughBasis ? <Txt variant="small" tone="faint">{r.pullThroughBasis === 'coupons' ? 'coupons' : 'fallback'}</Txt> : null}
+          <Txt bold tone={r.feasible ? 'ink' : 'error'}>
+            {r.feasible ? '✓ yes' : '✕ no'}
+          </Txt>
+          {r.pullThroughBasis ? (
+            <Txt variant="small" tone="faint">
+              {r.pullThroughBasis === 'coupons' ? 'coupons' : 'fallback'}
+            </Txt>
+          ) : null}
         </View>
       ),
     },
-    { key: 'count', title: 'Rivets', sortKey: 'count', minWidth: 72, flex: 0.7, render: (r) => <Mono>{r.rivetCount}</Mono> },
-    { key: 'weight', title: `Weight, ${wu}`, sortKey: 'weight', minWidth: 84, flex: 0.8, render: (r) => <Mono>{partWeight(r.totalWeightLb, units.system).replace(/ (lb|g)$/, '')}</Mono> },
-    { key: 'time', title: 'Build, min', sortKey: 'time', minWidth: 76, flex: 0.8, render: (r) => <Mono>{Math.round(r.buildMinutes)}</Mono> },
     {
-      key: 'rank', title: 'Rank', sortKey: 'rank', minWidth: 112, flex: 1.4, render: (r) => (sameCandidate(r, recommended)
-        // The rank in the badge, the word under it: a badge holding the word was wider than its column.
-        ? <View testID={`${tradeRowTestId(r)}-recommended`} style={styles.rec}><View style={styles.tag}><Mono variant="small" bold tone="inverse">1</Mono></View><Txt variant="small" bold tone="accent">recommended</Txt></View>
-        : <Mono tone={r.rank === null ? 'faint' : 'ink'}>{r.rank ?? '–'}</Mono>),
+      key: 'count',
+      title: 'Rivets',
+      sortKey: 'count',
+      minWidth: 72,
+      flex: 0.7,
+      render: (r) => <Mono>{r.rivetCount}</Mono>,
+    },
+    {
+      key: 'weight',
+      title: `Weight, ${wu}`,
+      sortKey: 'weight',
+      minWidth: 84,
+      flex: 0.8,
+      render: (r) => <Mono>{partWeight(r.totalWeightLb, units.system).replace(/ (lb|g)$/, '')}</Mono>,
+    },
+    {
+      key: 'time',
+      title: 'Build, min',
+      sortKey: 'time',
+      minWidth: 76,
+      flex: 0.8,
+      render: (r) => <Mono>{Math.round(r.buildMinutes)}</Mono>,
+    },
+    {
+      key: 'rank',
+      title: 'Rank',
+      sortKey: 'rank',
+      minWidth: 112,
+      flex: 1.4,
+      render: (r) =>
+        sameCandidate(r, recommended) ? (
+          // The rank in the badge, the word under it: a badge holding the word was wider than its column.
+          <View testID={`${tradeRowTestId(r)}-recommended`} style={styles.rec}>
+            <View style={styles.tag}>
+              <Mono variant="small" bold tone="inverse">
+                1
+              </Mono>
+            </View>
+            <Txt variant="small" bold tone="accent">
+              recommended
+            </Txt>
+          </View>
+        ) : (
+          <Mono tone={r.rank === null ? 'faint' : 'ink'}>{r.rank ?? '–'}</Mono>
+        ),
     },
   ];
 
@@ -66,7 +148,9 @@ export function TradeTable({ rows, recommended, chosen, onChoose }: {
         onSort={(k) => setSort((s) => nextTradeSort(s, k))}
         onRowPress={(r) => onChoose({ gaugeIn: r.gaugeIn, rivet: r.rivet })}
         rowTestID={tradeRowTestId}
-        rowLabel={(r) => `${units.length(r.gaugeIn)} with ${r.rivet}: ${r.feasible ? 'carries the loads' : 'does not carry the loads'}, ${r.rivetCount} rivets, ${partWeight(r.totalWeightLb, units.system)}, ${Math.round(r.buildMinutes)} minutes${sameCandidate(r, recommended) ? ', recommended' : ''}${sameCandidate(r, chosen) ? ', shown' : ''}`}
+        rowLabel={(r) =>
+          `${units.length(r.gaugeIn)} with ${r.rivet}: ${r.feasible ? 'carries the loads' : 'does not carry the loads'}, ${r.rivetCount} rivets, ${partWeight(r.totalWeightLb, units.system)}, ${Math.round(r.buildMinutes)} minutes${sameCandidate(r, recommended) ? ', recommended' : ''}${sameCandidate(r, chosen) ? ', shown' : ''}`
+        }
         empty={<Txt tone="soft">No candidates in this result.</Txt>}
       />
       {listed.length < sorted.length || (all && !wide) ? (
@@ -80,8 +164,8 @@ export function TradeTable({ rows, recommended, chosen, onChoose }: {
         />
       ) : null}
       <Txt variant="small" tone="faint" style={{ paddingTop: space.sm }}>
-        Weight: flange along the lines, unlightened web and rivets. Build: holes × minutes per hole. Feasible rows rank by
-        pull-through backed by coupons first, then by the chosen order.
+        Weight: flange along the lines, unlightened web and rivets. Build: holes × minutes per hole. Feasible rows rank
+        by pull-through backed by coupons first, then by the chosen order.
       </Txt>
     </View>
   );
@@ -99,5 +183,15 @@ export function firstFew<T extends CandidateKey>(sorted: T[], chosen: CandidateK
 const styles = StyleSheet.create({
   gauge: { flexDirection: 'row', alignItems: 'center', gap: space.xs },
   rec: { alignItems: 'flex-start', gap: 2 },
-  tag: { flexDirection: 'row', alignItems: 'center', gap: space.xs, alignSelf: 'flex-start', flexWrap: 'wrap', backgroundColor: colors.accent, borderRadius: radius.md, paddingHorizontal: space.sm, paddingVertical: 2 },
+  tag: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.xs,
+    alignSelf: 'flex-start',
+    flexWrap: 'wrap',
+    backgroundColor: colors.accent,
+    borderRadius: radius.md,
+    paddingHorizontal: space.sm,
+    paddingVertical: 2,
+  },
 });

@@ -1,6 +1,13 @@
 import type { KitModel, StudyDetail, WingStudyInput } from '@/db/contracts';
 import {
-  COMMON_PLACED, copyInputs, flangeLines, kitDesignData, LINE_FIELDS, newStudyInputs, normaliseFieldPath, rowFieldFor,
+  COMMON_PLACED,
+  copyInputs,
+  flangeLines,
+  kitDesignData,
+  LINE_FIELDS,
+  newStudyInputs,
+  normaliseFieldPath,
+  rowFieldFor,
 } from './study-form-values';
 
 /**
@@ -26,7 +33,11 @@ const SQIN_PER_SQFT = 144;
 
 /** A rectangular wing of the kit's area and mean chord: span = S / c̄. */
 export function kitPlanform(kit: Pick<KitModel, 'wingAreaSqFt' | 'meanChordIn'>): WingFormValues['inputs']['planform'] {
-  return { kind: 'rectangle', spanIn: Math.round(((kit.wingAreaSqFt * SQIN_PER_SQFT) / kit.meanChordIn) * 10) / 10, chordIn: kit.meanChordIn };
+  return {
+    kind: 'rectangle',
+    spanIn: Math.round(((kit.wingAreaSqFt * SQIN_PER_SQFT) / kit.meanChordIn) * 10) / 10,
+    chordIn: kit.meanChordIn,
+  };
 }
 
 /**
@@ -45,12 +56,22 @@ export function ribName(first: string, k: number): string {
  * `count` ribs evenly from `firstIn` to `lastIn` (stations to a hundredth of an inch), named up from
  * `firstName`; or, when the numbers cannot make such a list, why not (the helper says it).
  */
-export function evenlySpacedRibs(count: number, firstIn: number, lastIn: number, firstName: string): WingRibRow[] | string {
-  if (!Number.isInteger(count) || count < WING_RIBS.min || count > WING_RIBS.max) return `a wing study takes ${WING_RIBS.min} to ${WING_RIBS.max} ribs`;
-  if (!Number.isFinite(firstIn) || !Number.isFinite(lastIn) || firstIn < 0) return 'give the first and last rib stations';
+export function evenlySpacedRibs(
+  count: number,
+  firstIn: number,
+  lastIn: number,
+  firstName: string,
+): WingRibRow[] | string {
+  if (!Number.isInteger(count) || count < WING_RIBS.min || count > WING_RIBS.max)
+    return `a wing study takes ${WING_RIBS.min} to ${WING_RIBS.max} ribs`;
+  if (!Number.isFinite(firstIn) || !Number.isFinite(lastIn) || firstIn < 0)
+    return 'give the first and last rib stations';
   const step = (lastIn - firstIn) / (count - 1);
   if (step < 0.5) return 'the last rib must be outboard of the first, at least 0.5 in per bay';
-  return Array.from({ length: count }, (_, k) => ({ name: ribName(firstName, k), stationIn: Math.round((firstIn + k * step) * 100) / 100 }));
+  return Array.from({ length: count }, (_, k) => ({
+    name: ribName(firstName, k),
+    stationIn: Math.round((firstIn + k * step) * 100) / 100,
+  }));
 }
 
 /** The kit model's design data into the wing study: the kit block, the airfoil and a planform to start from. */
@@ -92,18 +113,38 @@ export function newWingValues(kit?: KitModel): WingFormValues {
 
 /** A stored wing revision back into the form (a copy: editing never touches the cached revision). */
 export function wingValues(d: Pick<StudyDetail, 'kitModelId' | 'name' | 'inputs'>): WingFormValues {
-  return { kind: 'wing', kitModelId: d.kitModelId, name: d.name, inputs: copyInputs(d.inputs as WingFormValues['inputs']) };
+  return {
+    kind: 'wing',
+    kitModelId: d.kitModelId,
+    name: d.name,
+    inputs: copyInputs(d.inputs as WingFormValues['inputs']),
+  };
 }
 
 /** Form fields that carry a message of their own; anything else is said at the top of the form. */
 const PLACED = new Set<string>([
   ...COMMON_PLACED,
-  'inputs.planform', 'inputs.planform.kind', 'inputs.planform.spanIn', 'inputs.planform.chordIn', 'inputs.planform.rootChordIn', 'inputs.planform.tipChordIn',
-  'inputs.tail.armIn', 'inputs.tail.balancingLoadLb',
-  'inputs.ribs', 'inputs.rib.lines', 'inputs.rib.internalCp', 'inputs.rib.flangeWidthIn', 'inputs.rib.skinGaugeIn',
-  'inputs.spars.frontXc', 'inputs.spars.rearXc', 'inputs.spars.capAreaSqIn',
-  'inputs.skin.gaugeCandidates', 'inputs.skin.rivetCandidates',
-  'inputs.flaps.stallSpeedKeas', 'inputs.flaps.designSpeedKeas', 'inputs.compressibility',
+  'inputs.planform',
+  'inputs.planform.kind',
+  'inputs.planform.spanIn',
+  'inputs.planform.chordIn',
+  'inputs.planform.rootChordIn',
+  'inputs.planform.tipChordIn',
+  'inputs.tail.armIn',
+  'inputs.tail.balancingLoadLb',
+  'inputs.ribs',
+  'inputs.rib.lines',
+  'inputs.rib.internalCp',
+  'inputs.rib.flangeWidthIn',
+  'inputs.rib.skinGaugeIn',
+  'inputs.spars.frontXc',
+  'inputs.spars.rearXc',
+  'inputs.spars.capAreaSqIn',
+  'inputs.skin.gaugeCandidates',
+  'inputs.skin.rivetCandidates',
+  'inputs.flaps.stallSpeedKeas',
+  'inputs.flaps.designSpeedKeas',
+  'inputs.compressibility',
 ]);
 const RIB_FIELDS = new Set(['name', 'stationIn']);
 
@@ -117,7 +158,9 @@ export function wingFieldFor(path: string): string | null {
   const list = /^inputs\.((?:skin\.)?(?:gaugeCandidates|rivetCandidates))\.\d+$/.exec(p);
   if (list) return `inputs.${list[1]}`;
   if (/^inputs\.airfoil\.points\.\d+(\.\d+)?$/.test(p)) return 'inputs.airfoil.points';
-  return rowFieldFor(p, 'inputs.ribs', RIB_FIELDS, 'stationIn')
-    ?? rowFieldFor(p, 'inputs.rib.lines', LINE_FIELDS, 'name')
-    ?? (PLACED.has(p) ? p : null);
+  return (
+    rowFieldFor(p, 'inputs.ribs', RIB_FIELDS, 'stationIn') ??
+    rowFieldFor(p, 'inputs.rib.lines', LINE_FIELDS, 'name') ??
+    (PLACED.has(p) ? p : null)
+  );
 }

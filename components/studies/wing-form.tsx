@@ -1,6 +1,14 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
-import { useFieldArray, useForm, useFormState, useWatch, type Control, type FieldPath, type UseFormSetValue } from 'react-hook-form';
+import {
+  useFieldArray,
+  useForm,
+  useFormState,
+  useWatch,
+  type Control,
+  type FieldPath,
+  type UseFormSetValue,
+} from 'react-hook-form';
 import { View } from 'react-native';
 import type { z } from 'zod';
 import { wingStudyBody, type KitModel } from '@/db/contracts';
@@ -17,11 +25,26 @@ import { Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
 import { Cell, Row } from './kit-fields';
-import { FastenerLinesSection, GaugeChips, MaterialField, RivetChips, ScheduleFields, StudyBasics, type StudyFormProps } from './study-form-parts';
+import {
+  FastenerLinesSection,
+  GaugeChips,
+  MaterialField,
+  RivetChips,
+  ScheduleFields,
+  StudyBasics,
+  type StudyFormProps,
+} from './study-form-parts';
 import type { StudyFormValues } from './study-form-values';
 import { useStudySubmit } from './use-study-submit';
 import {
-  evenlySpacedRibs, kitIntoWing, PRESSURE_RULE_OPTIONS, SKIN_GAUGES_MAX, SKIN_RIVETS_MAX, WING_RIBS, wingFieldFor, type WingFormValues,
+  evenlySpacedRibs,
+  kitIntoWing,
+  PRESSURE_RULE_OPTIONS,
+  SKIN_GAUGES_MAX,
+  SKIN_RIVETS_MAX,
+  WING_RIBS,
+  wingFieldFor,
+  type WingFormValues,
 } from './wing-form-values';
 
 export type WingOutput = z.output<typeof wingStudyBody>;
@@ -36,7 +59,11 @@ type Props = StudyFormProps<WingFormValues, WingOutput>;
  */
 export function WingForm({ kits, defaultValues, isNew, submitLabel, onSubmit, note }: Props) {
   const units = useUnits();
-  const { control, handleSubmit, setError, setValue, getValues, reset, formState } = useForm<WingFormValues, unknown, WingOutput>({
+  const { control, handleSubmit, setError, setValue, getValues, reset, formState } = useForm<
+    WingFormValues,
+    unknown,
+    WingOutput
+  >({
     resolver,
     mode: 'onChange',
     defaultValues,
@@ -47,7 +74,11 @@ export function WingForm({ kits, defaultValues, isNew, submitLabel, onSubmit, no
 
   // Taken again, the kit keeps the planform: the person may have drawn their own.
   const takeKit = (k: KitModel, when: 'chosen' | 'again') =>
-    reset(kitIntoWing(getValues(), k, { planform: when === 'chosen' }), { keepDefaultValues: true, keepDirty: false, keepErrors: false });
+    reset(kitIntoWing(getValues(), k, { planform: when === 'chosen' }), {
+      keepDefaultValues: true,
+      keepDirty: false,
+      keepErrors: false,
+    });
 
   return (
     <View style={{ gap: space.xl }} testID="wing-form">
@@ -64,7 +95,16 @@ export function WingForm({ kits, defaultValues, isNew, submitLabel, onSubmit, no
       <Section title="Planform and tail">
         <PlanformFields control={control} setValue={setValue} />
         <Row>
-          <Cell><FormNumberField control={control} name="inputs.tail.armIn" label="Tail arm" quantity="length" hint="Wing quarter chord to the tail's" testID="wing-tail-arm" /></Cell>
+          <Cell>
+            <FormNumberField
+              control={control}
+              name="inputs.tail.armIn"
+              label="Tail arm"
+              quantity="length"
+              hint="Wing quarter chord to the tail's"
+              testID="wing-tail-arm"
+            />
+          </Cell>
           <Cell>
             <FormNumberField
               control={control}
@@ -88,16 +128,61 @@ export function WingForm({ kits, defaultValues, isNew, submitLabel, onSubmit, no
         intro="Where each row of rivets runs on a rib, as fractions of its chord (x/c) from the leading edge."
       >
         <Row>
-          <Cell><FormNumberField control={control} name="inputs.rib.internalCp" label="Pressure inside the wing" unit="Cp" hint="Blank: 0 (no vents or leaks)" testID="wing-internal-cp" /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.rib.flangeWidthIn" label="Flange width" quantity="length" hint="Blank: 4 rivet diameters" testID="wing-flange-width" /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.rib.skinGaugeIn" label="Skin gauge for the grip" quantity="length" hint="Blank: twice the flange gauge" testID="wing-rib-skin-gauge" /></Cell>
+          <Cell>
+            <FormNumberField
+              control={control}
+              name="inputs.rib.internalCp"
+              label="Pressure inside the wing"
+              unit="Cp"
+              hint="Blank: 0 (no vents or leaks)"
+              testID="wing-internal-cp"
+            />
+          </Cell>
+          <Cell>
+            <FormNumberField
+              control={control}
+              name="inputs.rib.flangeWidthIn"
+              label="Flange width"
+              quantity="length"
+              hint="Blank: 4 rivet diameters"
+              testID="wing-flange-width"
+            />
+          </Cell>
+          <Cell>
+            <FormNumberField
+              control={control}
+              name="inputs.rib.skinGaugeIn"
+              label="Skin gauge for the grip"
+              quantity="length"
+              hint="Blank: twice the flange gauge"
+              testID="wing-rib-skin-gauge"
+            />
+          </Cell>
         </Row>
       </FastenerLinesSection>
 
       <Section title="Spars and skin">
         <Row>
-          <Cell><FormNumberField control={control} name="inputs.spars.frontXc" label="Front spar at" unit="x/c" hint="0.05 to 0.5" testID="wing-front-spar" /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.spars.rearXc" label="Rear spar at" unit="x/c" hint="0.2 to 0.9" testID="wing-rear-spar" /></Cell>
+          <Cell>
+            <FormNumberField
+              control={control}
+              name="inputs.spars.frontXc"
+              label="Front spar at"
+              unit="x/c"
+              hint="0.05 to 0.5"
+              testID="wing-front-spar"
+            />
+          </Cell>
+          <Cell>
+            <FormNumberField
+              control={control}
+              name="inputs.spars.rearXc"
+              label="Rear spar at"
+              unit="x/c"
+              hint="0.2 to 0.9"
+              testID="wing-rear-spar"
+            />
+          </Cell>
           <Cell>
             <FormNumberField
               control={control}
@@ -109,14 +194,40 @@ export function WingForm({ kits, defaultValues, isNew, submitLabel, onSubmit, no
             />
           </Cell>
         </Row>
-        <GaugeChips control={control} name="inputs.skin.gaugeCandidates" label="Skin gauges to try" hint={`Up to ${SKIN_GAUGES_MAX}, each with each skin rivet.`} testIDPrefix="wing-skin-gauge" max={SKIN_GAUGES_MAX} />
-        <RivetChips control={control} name="inputs.skin.rivetCandidates" label="Skin rivets to try" testIDPrefix="wing-skin-rivet" max={SKIN_RIVETS_MAX} />
+        <GaugeChips
+          control={control}
+          name="inputs.skin.gaugeCandidates"
+          label="Skin gauges to try"
+          hint={`Up to ${SKIN_GAUGES_MAX}, each with each skin rivet.`}
+          testIDPrefix="wing-skin-gauge"
+          max={SKIN_GAUGES_MAX}
+        />
+        <RivetChips
+          control={control}
+          name="inputs.skin.rivetCandidates"
+          label="Skin rivets to try"
+          testIDPrefix="wing-skin-rivet"
+          max={SKIN_RIVETS_MAX}
+        />
       </Section>
 
       <Section title="Rib material and candidates">
         <MaterialField control={shared} label="Sheet material (ribs and skin)" prefix="wing" />
-        <GaugeChips control={control} name="inputs.gaugeCandidates" label="Rib gauges to try" hint="Stock sheet; each gauge is tried with each rivet on every rib." testIDPrefix="wing-gauge" max={10} />
-        <RivetChips control={control} name="inputs.rivetCandidates" label="Rib rivets to try" testIDPrefix="wing-rivet" max={8} />
+        <GaugeChips
+          control={control}
+          name="inputs.gaugeCandidates"
+          label="Rib gauges to try"
+          hint="Stock sheet; each gauge is tried with each rivet on every rib."
+          testIDPrefix="wing-gauge"
+          max={10}
+        />
+        <RivetChips
+          control={control}
+          name="inputs.rivetCandidates"
+          label="Rib rivets to try"
+          testIDPrefix="wing-rivet"
+          max={8}
+        />
       </Section>
 
       <Section title="Flight conditions">
@@ -130,14 +241,29 @@ export function WingForm({ kits, defaultValues, isNew, submitLabel, onSubmit, no
         />
       </Section>
 
-      <ScheduleFields control={shared} prefix="wing" minutesHint="Blank: 1.5 solid, 1.0 pulled" rankLabel="Rank each rib's feasible candidates by" />
+      <ScheduleFields
+        control={shared}
+        prefix="wing"
+        minutesHint="Blank: 1.5 solid, 1.0 pulled"
+        rankLabel="Rank each rib's feasible candidates by"
+      />
 
       {note}
-      {formError ? <Notice tone="error" testID="wing-form-error">{formError}</Notice> : null}
-      <Button label={submitLabel} busyLabel="Computing" busy={formState.isSubmitting} onPress={() => void submit()} testID="wing-compute" />
+      {formError ? (
+        <Notice tone="error" testID="wing-form-error">
+          {formError}
+        </Notice>
+      ) : null}
+      <Button
+        label={submitLabel}
+        busyLabel="Computing"
+        busy={formState.isSubmitting}
+        onPress={() => void submit()}
+        testID="wing-compute"
+      />
       <Txt variant="small" tone="faint">
-        The server computes every rib and every skin panel with every candidate; a wing takes longer than one rib. Stored in inches and
-        pounds whatever units you typed in ({units.label('length')}).
+        The server computes every rib and every skin panel with every candidate; a wing takes longer than one rib.
+        Stored in inches and pounds whatever units you typed in ({units.label('length')}).
       </Txt>
     </View>
   );
@@ -154,10 +280,23 @@ function PlanformFields({ control, setValue }: { control: Ctl; setValue: UseForm
     const opts = { shouldValidate: true, shouldDirty: true } as const;
     if (k === 'tapered') {
       const c = planform.kind === 'rectangle' ? planform.chordIn : undefined;
-      setValue('inputs.planform', { kind: 'tapered', spanIn: planform.spanIn, rootChordIn: c, tipChordIn: c } as WingFormValues['inputs']['planform'], opts);
+      setValue(
+        'inputs.planform',
+        {
+          kind: 'tapered',
+          spanIn: planform.spanIn,
+          rootChordIn: c,
+          tipChordIn: c,
+        } as WingFormValues['inputs']['planform'],
+        opts,
+      );
     } else {
       const c = planform.kind === 'tapered' ? planform.rootChordIn : undefined;
-      setValue('inputs.planform', { kind: 'rectangle', spanIn: planform.spanIn, chordIn: c } as WingFormValues['inputs']['planform'], opts);
+      setValue(
+        'inputs.planform',
+        { kind: 'rectangle', spanIn: planform.spanIn, chordIn: c } as WingFormValues['inputs']['planform'],
+        opts,
+      );
     }
   };
   return (
@@ -168,17 +307,53 @@ function PlanformFields({ control, setValue }: { control: Ctl; setValue: UseForm
           label="Planform"
           value={kind}
           onChange={switchTo}
-          options={[{ value: 'rectangle', label: 'Rectangle' }, { value: 'tapered', label: 'Tapered', hint: 'Straight taper, root to tip' }]}
+          options={[
+            { value: 'rectangle', label: 'Rectangle' },
+            { value: 'tapered', label: 'Tapered', hint: 'Straight taper, root to tip' },
+          ]}
         />
       </Field>
       <Row>
-        <Cell><FormNumberField control={control} name="inputs.planform.spanIn" label="Span, tip to tip" quantity="length" testID="wing-span" /></Cell>
+        <Cell>
+          <FormNumberField
+            control={control}
+            name="inputs.planform.spanIn"
+            label="Span, tip to tip"
+            quantity="length"
+            testID="wing-span"
+          />
+        </Cell>
         {kind === 'rectangle' ? (
-          <Cell><FormNumberField control={control} name={'inputs.planform.chordIn' as FieldPath<WingFormValues>} label="Chord" quantity="length" testID="wing-chord" /></Cell>
+          <Cell>
+            <FormNumberField
+              control={control}
+              name={'inputs.planform.chordIn' as FieldPath<WingFormValues>}
+              label="Chord"
+              quantity="length"
+              testID="wing-chord"
+            />
+          </Cell>
         ) : (
           <>
-            <Cell><FormNumberField control={control} name={'inputs.planform.rootChordIn' as FieldPath<WingFormValues>} label="Root chord" quantity="length" testID="wing-root-chord" /></Cell>
-            <Cell><FormNumberField control={control} name={'inputs.planform.tipChordIn' as FieldPath<WingFormValues>} label="Tip chord" quantity="length" hint="0.1 to 1 times the root chord" testID="wing-tip-chord" /></Cell>
+            <Cell>
+              <FormNumberField
+                control={control}
+                name={'inputs.planform.rootChordIn' as FieldPath<WingFormValues>}
+                label="Root chord"
+                quantity="length"
+                testID="wing-root-chord"
+              />
+            </Cell>
+            <Cell>
+              <FormNumberField
+                control={control}
+                name={'inputs.planform.tipChordIn' as FieldPath<WingFormValues>}
+                label="Tip chord"
+                quantity="length"
+                hint="0.1 to 1 times the root chord"
+                testID="wing-tip-chord"
+              />
+            </Cell>
           </>
         )}
       </Row>
@@ -198,7 +373,8 @@ function RibsFields({ control, setValue }: { control: Ctl; setValue: UseFormSetV
     const n = parseNumber(t);
     return n === undefined ? Number.NaN : units.system === 'metric' ? n / 25.4 : n;
   };
-  const fromLen = (v: number | undefined) => (v === undefined || !Number.isFinite(v) ? '' : units.system === 'metric' ? String(Math.round(v * 25.4)) : String(v));
+  const fromLen = (v: number | undefined) =>
+    v === undefined || !Number.isFinite(v) ? '' : units.system === 'metric' ? String(Math.round(v * 25.4)) : String(v);
 
   const openHelper = () => {
     setHelperError(null);
@@ -212,7 +388,10 @@ function RibsFields({ control, setValue }: { control: Ctl; setValue: UseFormSetV
   const spread = () => {
     if (!helper) return;
     const made = evenlySpacedRibs(Number(helper.count), toLen(helper.first), toLen(helper.last), helper.name);
-    if (typeof made === 'string') { setHelperError(made); return; }
+    if (typeof made === 'string') {
+      setHelperError(made);
+      return;
+    }
     setValue('inputs.ribs', made, { shouldValidate: true, shouldDirty: true });
     setHelper(null);
   };
@@ -222,35 +401,146 @@ function RibsFields({ control, setValue }: { control: Ctl; setValue: UseFormSetV
     <Section
       title="Ribs, root to tip"
       testID="wing-ribs"
-      aside={<Txt variant="small" tone="soft" testID="wing-rib-count"><Mono variant="small" bold>{ribs.fields.length}</Mono> ribs</Txt>}
+      aside={
+        <Txt variant="small" tone="soft" testID="wing-rib-count">
+          <Mono variant="small" bold>
+            {ribs.fields.length}
+          </Mono>{' '}
+          ribs
+        </Txt>
+      }
     >
-      <Txt variant="small" tone="soft">Each rib by its station: its distance outboard of the aeroplane’s centre line. Each is studied at its own chord and load.</Txt>
-      {errorAt(errors, 'inputs.ribs') ? <Notice tone="error" testID="wing-ribs-error">{errorAt(errors, 'inputs.ribs')!}</Notice> : null}
+      <Txt variant="small" tone="soft">
+        Each rib by its station: its distance outboard of the aeroplane’s centre line. Each is studied at its own chord
+        and load.
+      </Txt>
+      {errorAt(errors, 'inputs.ribs') ? (
+        <Notice tone="error" testID="wing-ribs-error">
+          {errorAt(errors, 'inputs.ribs')!}
+        </Notice>
+      ) : null}
       {helper ? (
-        <View style={{ gap: space.sm, padding: space.md, borderWidth: hairline, borderColor: colors.rule, backgroundColor: colors.paperRaised }} testID="wing-even">
+        <View
+          style={{
+            gap: space.sm,
+            padding: space.md,
+            borderWidth: hairline,
+            borderColor: colors.rule,
+            backgroundColor: colors.paperRaised,
+          }}
+          testID="wing-even"
+        >
           <Row>
-            <Cell><Field label="Ribs"><TextBox mono value={helper.count} onChangeText={(t) => setHelper({ ...helper, count: t })} inputMode="numeric" testID="wing-even-count" accessibilityLabel="Number of ribs" /></Field></Cell>
-            <Cell><Field label="First rib name"><TextBox value={helper.name} onChangeText={(t) => setHelper({ ...helper, name: t })} testID="wing-even-name" accessibilityLabel="First rib name" /></Field></Cell>
+            <Cell>
+              <Field label="Ribs">
+                <TextBox
+                  mono
+                  value={helper.count}
+                  onChangeText={(t) => setHelper({ ...helper, count: t })}
+                  inputMode="numeric"
+                  testID="wing-even-count"
+                  accessibilityLabel="Number of ribs"
+                />
+              </Field>
+            </Cell>
+            <Cell>
+              <Field label="First rib name">
+                <TextBox
+                  value={helper.name}
+                  onChangeText={(t) => setHelper({ ...helper, name: t })}
+                  testID="wing-even-name"
+                  accessibilityLabel="First rib name"
+                />
+              </Field>
+            </Cell>
           </Row>
           <Row>
-            <Cell><Field label="First station" unit={lu}><TextBox mono value={helper.first} onChangeText={(t) => setHelper({ ...helper, first: t })} inputMode="decimal" testID="wing-even-first" accessibilityLabel={`First station (${lu})`} /></Field></Cell>
-            <Cell><Field label="Last station" unit={lu}><TextBox mono value={helper.last} onChangeText={(t) => setHelper({ ...helper, last: t })} inputMode="decimal" testID="wing-even-last" accessibilityLabel={`Last station (${lu})`} /></Field></Cell>
+            <Cell>
+              <Field label="First station" unit={lu}>
+                <TextBox
+                  mono
+                  value={helper.first}
+                  onChangeText={(t) => setHelper({ ...helper, first: t })}
+                  inputMode="decimal"
+                  testID="wing-even-first"
+                  accessibilityLabel={`First station (${lu})`}
+                />
+              </Field>
+            </Cell>
+            <Cell>
+              <Field label="Last station" unit={lu}>
+                <TextBox
+                  mono
+                  value={helper.last}
+                  onChangeText={(t) => setHelper({ ...helper, last: t })}
+                  inputMode="decimal"
+                  testID="wing-even-last"
+                  accessibilityLabel={`Last station (${lu})`}
+                />
+              </Field>
+            </Cell>
           </Row>
-          {helperError ? <Notice tone="error" testID="wing-even-error">{helperError}</Notice> : null}
+          {helperError ? (
+            <Notice tone="error" testID="wing-even-error">
+              {helperError}
+            </Notice>
+          ) : null}
           <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
             <Button label="Replace the ribs" compact onPress={spread} testID="wing-even-apply" />
             <Button label="Cancel" variant="quiet" compact onPress={() => setHelper(null)} testID="wing-even-cancel" />
           </View>
         </View>
       ) : (
-        <Button label="Evenly spaced…" variant="secondary" compact onPress={openHelper} testID="wing-even-open" style={{ alignSelf: 'flex-start' }} />
+        <Button
+          label="Evenly spaced…"
+          variant="secondary"
+          compact
+          onPress={openHelper}
+          testID="wing-even-open"
+          style={{ alignSelf: 'flex-start' }}
+        />
       )}
       {ribs.fields.map((f, i) => (
-        <View key={f.id} style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.md, alignItems: 'flex-end', paddingBottom: space.sm, borderBottomWidth: hairline, borderColor: colors.rule }} testID={`wing-rib-${i}`}>
-          <View style={{ flexGrow: 1, flexBasis: 120, minWidth: 110 }}><FormTextField control={control} name={`inputs.ribs.${i}.name`} label={`Rib ${i + 1}`} testID={`wing-rib-${i}-name`} mono /></View>
-          <View style={{ flexGrow: 1, flexBasis: 120, minWidth: 110 }}><FormNumberField control={control} name={`inputs.ribs.${i}.stationIn`} label="Station" quantity="length" testID={`wing-rib-${i}-station`} /></View>
+        <View
+          key={f.id}
+          style={{
+            flexDirection: 'row',
+            flexWrap: 'wrap',
+            gap: space.md,
+            alignItems: 'flex-end',
+            paddingBottom: space.sm,
+            borderBottomWidth: hairline,
+            borderColor: colors.rule,
+          }}
+          testID={`wing-rib-${i}`}
+        >
+          <View style={{ flexGrow: 1, flexBasis: 120, minWidth: 110 }}>
+            <FormTextField
+              control={control}
+              name={`inputs.ribs.${i}.name`}
+              label={`Rib ${i + 1}`}
+              testID={`wing-rib-${i}-name`}
+              mono
+            />
+          </View>
+          <View style={{ flexGrow: 1, flexBasis: 120, minWidth: 110 }}>
+            <FormNumberField
+              control={control}
+              name={`inputs.ribs.${i}.stationIn`}
+              label="Station"
+              quantity="length"
+              testID={`wing-rib-${i}-station`}
+            />
+          </View>
           {ribs.fields.length > WING_RIBS.min ? (
-            <Button label="Remove" variant="quiet" compact onPress={() => ribs.remove(i)} testID={`wing-rib-${i}-remove`} accessibilityLabel={`Remove rib ${i + 1}`} />
+            <Button
+              label="Remove"
+              variant="quiet"
+              compact
+              onPress={() => ribs.remove(i)}
+              testID={`wing-rib-${i}-remove`}
+              accessibilityLabel={`Remove rib ${i + 1}`}
+            />
           ) : null}
         </View>
       ))}
@@ -264,8 +554,12 @@ function RibsFields({ control, setValue }: { control: Ctl; setValue: UseFormSetV
           onPress={() => {
             const last = current[current.length - 1];
             const prev = current[current.length - 2];
-            const step = last && prev && Number.isFinite(last.stationIn - prev.stationIn) ? last.stationIn - prev.stationIn : 12;
-            ribs.append({ name: `Rib ${current.length + 1}`, stationIn: last && Number.isFinite(last.stationIn) ? Math.round((last.stationIn + step) * 100) / 100 : 0 });
+            const step =
+              last && prev && Number.isFinite(last.stationIn - prev.stationIn) ? last.stationIn - prev.stationIn : 12;
+            ribs.append({
+              name: `Rib ${current.length + 1}`,
+              stationIn: last && Number.isFinite(last.stationIn) ? Math.round((last.stationIn + step) * 100) / 100 : 0,
+            });
           }}
         />
       ) : null}
@@ -285,14 +579,40 @@ function FlapsFields({ control, setValue }: { control: Ctl; setValue: UseFormSet
           testIDPrefix="wing-flaps"
           label="Flaps extended"
           value={on ? 'on' : 'off'}
-          onChange={(v) => setValue('inputs.flaps', v === 'on' ? ({ stallSpeedKeas: undefined } as unknown as WingFormValues['inputs']['flaps']) : undefined, opts)}
-          options={[{ value: 'off', label: 'Not studied' }, { value: 'on', label: 'Studied', hint: '14 CFR 23.345 conditions' }]}
+          onChange={(v) =>
+            setValue(
+              'inputs.flaps',
+              v === 'on' ? ({ stallSpeedKeas: undefined } as unknown as WingFormValues['inputs']['flaps']) : undefined,
+              opts,
+            )
+          }
+          options={[
+            { value: 'off', label: 'Not studied' },
+            { value: 'on', label: 'Studied', hint: '14 CFR 23.345 conditions' },
+          ]}
         />
       </Field>
       {on ? (
         <Row>
-          <Cell><FormNumberField control={control} name="inputs.flaps.stallSpeedKeas" label="Stall speed, flaps extended" unit="KEAS" testID="wing-flaps-stall" /></Cell>
-          <Cell><FormNumberField control={control} name="inputs.flaps.designSpeedKeas" label="Flap design speed" unit="KEAS" hint="Blank: the rule minimum" testID="wing-flaps-speed" /></Cell>
+          <Cell>
+            <FormNumberField
+              control={control}
+              name="inputs.flaps.stallSpeedKeas"
+              label="Stall speed, flaps extended"
+              unit="KEAS"
+              testID="wing-flaps-stall"
+            />
+          </Cell>
+          <Cell>
+            <FormNumberField
+              control={control}
+              name="inputs.flaps.designSpeedKeas"
+              label="Flap design speed"
+              unit="KEAS"
+              hint="Blank: the rule minimum"
+              testID="wing-flaps-speed"
+            />
+          </Cell>
         </Row>
       ) : null}
     </View>

@@ -1,4 +1,12 @@
-import type { SkinCandidate, SkinPanelResult, StudyCandidate, WingCondition, WingRib, WingStudyResult, WingTradeRow } from '@/db/contracts';
+import type {
+  SkinCandidate,
+  SkinPanelResult,
+  StudyCandidate,
+  WingCondition,
+  WingRib,
+  WingStudyResult,
+  WingTradeRow,
+} from '@/db/contracts';
 import { sameCandidate, type CandidateKey } from './study-result';
 
 /**
@@ -6,15 +14,39 @@ import { sameCandidate, type CandidateKey } from './study-result';
  * psi, KEAS). `readWingResult` checks its shape before anything is drawn.
  */
 export type { SkinCandidate, SkinPanelResult, WingCondition, WingRib, WingTradeRow };
-export type WingResult = Pick<WingStudyResult, 'kind' | 'design' | 'planform' | 'tail' | 'airfoil' | 'conditions' | 'ribs' | 'skins' | 'trade' | 'rules' | 'warnings' | 'caution'>;
+export type WingResult = Pick<
+  WingStudyResult,
+  | 'kind'
+  | 'design'
+  | 'planform'
+  | 'tail'
+  | 'airfoil'
+  | 'conditions'
+  | 'ribs'
+  | 'skins'
+  | 'trade'
+  | 'rules'
+  | 'warnings'
+  | 'caution'
+>;
 
 const isArr = (v: unknown): v is unknown[] => Array.isArray(v);
 
 export function readWingResult(raw: unknown): WingResult | null {
   if (!raw || typeof raw !== 'object') return null;
   const r = raw as Partial<WingResult>;
-  if (r.kind !== 'wing' || !isArr(r.conditions) || !isArr(r.ribs) || !isArr(r.skins) || !r.trade || !isArr(r.trade.uniform) || !r.planform) return null;
-  if (!r.ribs.every((rib) => rib && typeof rib === 'object' && rib.study && isArr(rib.study.candidates) && rib.loads)) return null;
+  if (
+    r.kind !== 'wing' ||
+    !isArr(r.conditions) ||
+    !isArr(r.ribs) ||
+    !isArr(r.skins) ||
+    !r.trade ||
+    !isArr(r.trade.uniform) ||
+    !r.planform
+  )
+    return null;
+  if (!r.ribs.every((rib) => rib && typeof rib === 'object' && rib.study && isArr(rib.study.candidates) && rib.loads))
+    return null;
   return {
     ...(r as WingResult),
     rules: isArr(r.rules) ? (r.rules as string[]) : [],
@@ -39,11 +71,16 @@ export function skinCandidate(panel: SkinPanelResult, key: CandidateKey | null |
 }
 
 /** What the rib's zones can be shown for: its recommendation, then the wing's one-for-all choice. */
-export function ribChoices(rib: WingRib, uniform: CandidateKey | null): { key: CandidateKey; why: 'recommended' | 'uniform' | 'both' }[] {
+export function ribChoices(
+  rib: WingRib,
+  uniform: CandidateKey | null,
+): { key: CandidateKey; why: 'recommended' | 'uniform' | 'both' }[] {
   const out: { key: CandidateKey; why: 'recommended' | 'uniform' | 'both' }[] = [];
   const rec = rib.study.recommended;
-  if (rec && hasZones(ribCandidate(rib, rec))) out.push({ key: rec, why: sameCandidate(rec, uniform) ? 'both' : 'recommended' });
-  if (uniform && !sameCandidate(rec, uniform) && hasZones(ribCandidate(rib, uniform))) out.push({ key: uniform, why: 'uniform' });
+  if (rec && hasZones(ribCandidate(rib, rec)))
+    out.push({ key: rec, why: sameCandidate(rec, uniform) ? 'both' : 'recommended' });
+  if (uniform && !sameCandidate(rec, uniform) && hasZones(ribCandidate(rib, uniform)))
+    out.push({ key: uniform, why: 'uniform' });
   return out;
 }
 

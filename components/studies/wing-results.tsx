@@ -30,23 +30,46 @@ function Headline({ result }: { result: WingResult }) {
     <Sheet testID="wing-headline">
       {rec ? (
         <Txt variant="heading" testID="wing-recommended">
-          Every rib: <Mono variant="heading" bold>{u.length(rec.gaugeIn)}</Mono> with <Mono variant="heading" bold>{rec.rivet}</Mono>
+          Every rib:{' '}
+          <Mono variant="heading" bold>
+            {u.length(rec.gaugeIn)}
+          </Mono>{' '}
+          with{' '}
+          <Mono variant="heading" bold>
+            {rec.rivet}
+          </Mono>
         </Txt>
-      ) : <Txt variant="heading" tone="error" testID="wing-recommended">No one gauge and rivet carries every rib</Txt>}
+      ) : (
+        <Txt variant="heading" tone="error" testID="wing-recommended">
+          No one gauge and rivet carries every rib
+        </Txt>
+      )}
       <Txt variant="small" testID="wing-carried">
-        <Mono variant="small" bold>{carried}</Mono> of <Mono variant="small">{result.ribs.length}</Mono> ribs and{' '}
-        <Mono variant="small" bold>{skins}</Mono> of <Mono variant="small">{result.skins.length}</Mono> skin panels have a candidate that carries their loads
+        <Mono variant="small" bold>
+          {carried}
+        </Mono>{' '}
+        of <Mono variant="small">{result.ribs.length}</Mono> ribs and{' '}
+        <Mono variant="small" bold>
+          {skins}
+        </Mono>{' '}
+        of <Mono variant="small">{result.skins.length}</Mono> skin panels have a candidate that carries their loads
       </Txt>
       <Txt variant="small" tone="soft">
-        Span <Mono variant="small">{u.length(p.spanIn)}</Mono> · chord <Mono variant="small">{u.lengthNumber(p.rootChordIn)}</Mono>
-        {p.tipChordIn !== p.rootChordIn ? <>–<Mono variant="small">{u.lengthNumber(p.tipChordIn)}</Mono></> : null} {u.label('length')} · AR{' '}
-        <Mono variant="small">{p.aspectRatio.toFixed(2)}</Mono>
+        Span <Mono variant="small">{u.length(p.spanIn)}</Mono> · chord{' '}
+        <Mono variant="small">{u.lengthNumber(p.rootChordIn)}</Mono>
+        {p.tipChordIn !== p.rootChordIn ? (
+          <>
+            –<Mono variant="small">{u.lengthNumber(p.tipChordIn)}</Mono>
+          </>
+        ) : null}{' '}
+        {u.label('length')} · AR <Mono variant="small">{p.aspectRatio.toFixed(2)}</Mono>
         <DesignFigures design={result.design} />
         {result.airfoil ? <> · {result.airfoil.name}</> : null}
       </Txt>
       <Txt variant="small" tone="soft" testID="wing-tail">
         Tail arm <Mono variant="small">{u.length(result.tail.armIn)}</Mono>, balancing load at 1 g{' '}
-        <Mono variant="small">{u.force(result.tail.balancingLoadLb)}</Mono> down ({result.tail.estimated ? `estimated from the section's cm_ac ${result.tail.cmAc.toFixed(4)}` : 'as given'})
+        <Mono variant="small">{u.force(result.tail.balancingLoadLb)}</Mono> down (
+        {result.tail.estimated ? `estimated from the section's cm_ac ${result.tail.cmAc.toFixed(4)}` : 'as given'})
       </Txt>
     </Sheet>
   );
@@ -121,7 +144,15 @@ export function WingResults({ detail, latestRevision }: { detail: StudyDetail; l
       </Section>
 
       <Section title="Ribs root to tip" testID="section-ribs">
-        <WingRibTable ribs={result.ribs} conditions={result.conditions} chosen={ribName} onChoose={(n) => { setRibName(n); setRibPick(null); }} />
+        <WingRibTable
+          ribs={result.ribs}
+          conditions={result.conditions}
+          chosen={ribName}
+          onChoose={(n) => {
+            setRibName(n);
+            setRibPick(null);
+          }}
+        />
       </Section>
 
       <Section
@@ -129,8 +160,13 @@ export function WingResults({ detail, latestRevision }: { detail: StudyDetail; l
         testID="section-rib-zones"
         aside={ribShown ? <CandidateTag c={ribShown} /> : undefined}
       >
-        {!rib ? <Txt tone="soft">Choose a rib in the table.</Txt> : !ribShown ? (
-          <Notice tone="error" testID="rib-zones-none">{`No candidate carries the loads of rib ${rib.name}: see why in the warnings, or try thicker gauges or larger rivets.`}</Notice>
+        {!rib ? (
+          <Txt tone="soft">Choose a rib in the table.</Txt>
+        ) : !ribShown ? (
+          <Notice
+            tone="error"
+            testID="rib-zones-none"
+          >{`No candidate carries the loads of rib ${rib.name}: see why in the warnings, or try thicker gauges or larger rivets.`}</Notice>
         ) : (
           <>
             {choices.length > 1 ? (
@@ -148,7 +184,8 @@ export function WingResults({ detail, latestRevision }: { detail: StudyDetail; l
               />
             ) : null}
             <Txt variant="small" tone="soft">
-              Chord <Mono variant="small">{u.length(rib.chordIn)}</Mono>, carrying a <Mono variant="small">{u.length(rib.spacingIn)}</Mono> strip of wing.
+              Chord <Mono variant="small">{u.length(rib.chordIn)}</Mono>, carrying a{' '}
+              <Mono variant="small">{u.length(rib.spacingIn)}</Mono> strip of wing.
             </Txt>
             <ZoneTable candidate={ribShown} idPrefix="rib-zone" />
           </>
@@ -164,16 +201,28 @@ export function WingResults({ detail, latestRevision }: { detail: StudyDetail; l
         testID="section-skin-zones"
         aside={skinShown ? <CandidateTag c={skinShown} /> : undefined}
       >
-        {!panel ? <Txt tone="soft">Choose a skin panel in the table.</Txt> : (
+        {!panel ? (
+          <Txt tone="soft">Choose a skin panel in the table.</Txt>
+        ) : (
           <View style={{ gap: space.lg }} testID={`skin-detail-${idPart(panel.name)}`}>
             <Txt variant="small" tone="soft">
-              <Mono variant="small">{u.length(panel.widthIn)}</Mono> wide between {panel.innerRib} and {panel.outerRib}; the box between the spars{' '}
-              <Mono variant="small">{u.length(panel.boxWidthIn)}</Mono> by <Mono variant="small">{u.length(panel.boxDepthIn)}</Mono> deep.
+              <Mono variant="small">{u.length(panel.widthIn)}</Mono> wide between {panel.innerRib} and {panel.outerRib};
+              the box between the spars <Mono variant="small">{u.length(panel.boxWidthIn)}</Mono> by{' '}
+              <Mono variant="small">{u.length(panel.boxDepthIn)}</Mono> deep.
             </Txt>
             <SkinCandidates panel={panel} />
             {skinShown ? (
-              <ZoneTable candidate={skinShown} idPrefix="skin-zone" where="along each line: the spar lines from the inner rib, the rib lines aft of the leading edge" />
-            ) : <Notice tone="error" testID="skin-zones-none">{`No candidate carries the loads of ${panel.name}: see each candidate's reasons above.`}</Notice>}
+              <ZoneTable
+                candidate={skinShown}
+                idPrefix="skin-zone"
+                where="along each line: the spar lines from the inner rib, the rib lines aft of the leading edge"
+              />
+            ) : (
+              <Notice
+                tone="error"
+                testID="skin-zones-none"
+              >{`No candidate carries the loads of ${panel.name}: see each candidate's reasons above.`}</Notice>
+            )}
           </View>
         )}
       </Section>
@@ -195,7 +244,11 @@ export function WingResults({ detail, latestRevision }: { detail: StudyDetail; l
       </Section>
 
       <Section title="Warnings and rules" testID="section-notes">
-        <ResultNotes warnings={result.warnings} candidateWarnings={[...(ribShown?.warnings ?? []), ...(skinShown?.warnings ?? [])]} rules={result.rules} />
+        <ResultNotes
+          warnings={result.warnings}
+          candidateWarnings={[...(ribShown?.warnings ?? []), ...(skinShown?.warnings ?? [])]}
+          rules={result.rules}
+        />
       </Section>
     </View>
   );

@@ -15,8 +15,16 @@ const W = { rib: 100, station: 72, chord: 64, ratio: 56, force: 64, moment: 76, 
  * Every rib root to tip: where it is, the loads there (limit, the largest of any condition) and its own
  * recommendation. The rib's name is the button that shows its zones below.
  */
-export function WingRibTable({ ribs, conditions, chosen, onChoose }: {
-  ribs: WingRib[]; conditions: WingCondition[]; chosen: string | null; onChoose: (name: string) => void;
+export function WingRibTable({
+  ribs,
+  conditions,
+  chosen,
+  onChoose,
+}: {
+  ribs: WingRib[];
+  conditions: WingCondition[];
+  chosen: string | null;
+  onChoose: (name: string) => void;
 }) {
   const u = useUnits();
   const lu = u.label('length');
@@ -51,25 +59,49 @@ export function WingRibTable({ ribs, conditions, chosen, onChoose }: {
             keep: on,
             testID: `wing-rib-row-${id}`,
             cells: {
-              rib: <RowPickButton name={r.name} on={on} onPick={onChoose} testID={`wing-rib-${id}`} says={`Rib ${r.name}: show its zones`} />,
+              rib: (
+                <RowPickButton
+                  name={r.name}
+                  on={on}
+                  onPick={onChoose}
+                  testID={`wing-rib-${id}`}
+                  says={`Rib ${r.name}: show its zones`}
+                />
+              ),
               station: <Mono variant="small">{u.station(r.stationIn)}</Mono>,
               chord: <Mono variant="small">{u.lengthNumber(r.chordIn)}</Mono>,
               ratio: <Mono variant="small">{r.clRatio.toFixed(3)}</Mono>,
-              shear: <Mono variant="small" accessibilityLabel={`${forceNumber(r.loads.shearLb, u.system)} ${fu}, ${label(r.loads.governing.shear)}`}>{forceNumber(r.loads.shearLb, u.system)}</Mono>,
+              shear: (
+                <Mono
+                  variant="small"
+                  accessibilityLabel={`${forceNumber(r.loads.shearLb, u.system)} ${fu}, ${label(r.loads.governing.shear)}`}
+                >
+                  {forceNumber(r.loads.shearLb, u.system)}
+                </Mono>
+              ),
               bending: <Mono variant="small">{momentNumber(r.loads.bendingInLb, u.system)}</Mono>,
               torque: <Mono variant="small">{momentNumber(r.loads.torqueInLb, u.system)}</Mono>,
               flow: <Mono variant="small">{shearFlowNumber(r.loads.shearFlowLbPerIn, u.system)}</Mono>,
-              rec: rec
-                ? <GaugeOverRivet c={rec} testID={`wing-rib-rec-${id}`} />
-                : <Txt variant="small" tone="error" testID={`wing-rib-rec-${id}`}>none</Txt>,
-              ok: <Txt variant="small" bold tone={rec ? 'ink' : 'error'}>{rec ? '✓ yes' : '✕ no'}</Txt>,
+              rec: rec ? (
+                <GaugeOverRivet c={rec} testID={`wing-rib-rec-${id}`} />
+              ) : (
+                <Txt variant="small" tone="error" testID={`wing-rib-rec-${id}`}>
+                  none
+                </Txt>
+              ),
+              ok: (
+                <Txt variant="small" bold tone={rec ? 'ink' : 'error'}>
+                  {rec ? '✓ yes' : '✕ no'}
+                </Txt>
+              ),
             },
           };
         })}
       />
       <Txt variant="small" tone="faint">
-        Station: outboard of the centre line. cl/CL: the section’s share of the wing’s lift coefficient (Schrenk). Loads at limit, the largest of
-        every condition ({governingSummary(ribs, label)}). Shear flow: the torque’s in the box between the spars, q = T/2A.
+        Station: outboard of the centre line. cl/CL: the section’s share of the wing’s lift coefficient (Schrenk). Loads
+        at limit, the largest of every condition ({governingSummary(ribs, label)}). Shear flow: the torque’s in the box
+        between the spars, q = T/2A.
       </Txt>
     </View>
   );

@@ -31,9 +31,9 @@ export function NewWingStudyScreen({ kitModelId }: { kitModelId?: string }) {
       testID="new-wing-study-screen"
       needs="A wing study works from a kit model's weight, wing, speeds and airfoil."
       promise={
-        'Fill in the inputs and press Compute. You get the loads at every rib (shear, bending, torque), each rib’s gauge, rivet '
-        + 'and pitch zones, every skin panel’s with its buckling margins, and the trade of one gauge and rivet for every rib against '
-        + 'each its own, stored as revision 1.'
+        'Fill in the inputs and press Compute. You get the loads at every rib (shear, bending, torque), each rib’s gauge, rivet ' +
+        'and pitch zones, every skin panel’s with its buckling margins, and the trade of one gauge and rivet for every rib against ' +
+        'each its own, stored as revision 1.'
       }
       valuesFor={newWingValues}
       form={(p) => <WingForm {...p} />}

@@ -27,18 +27,36 @@ export function WingTradeTable({ trade }: { trade: WingResult['trade'] }) {
       <Sheet testID="wing-trade-compare">
         <Txt bold>One for every rib, against each rib its own</Txt>
         <Txt variant="small" testID="wing-trade-uniform">
-          {best
-            ? <>One for all: <Mono variant="small" bold>{u.length(best.gaugeIn)} · {best.rivet}</Mono> — <Mono variant="small">{partWeight(best.weightLb, u.system)}</Mono>, <Mono variant="small">{best.rivetCount}</Mono> rivets, <Mono variant="small">{Math.round(best.buildMinutes)}</Mono> min</>
-            : <Txt variant="small" tone="error">No one gauge and rivet carries the loads on every rib.</Txt>}
+          {best ? (
+            <>
+              One for all:{' '}
+              <Mono variant="small" bold>
+                {u.length(best.gaugeIn)} · {best.rivet}
+              </Mono>{' '}
+              — <Mono variant="small">{partWeight(best.weightLb, u.system)}</Mono>,{' '}
+              <Mono variant="small">{best.rivetCount}</Mono> rivets,{' '}
+              <Mono variant="small">{Math.round(best.buildMinutes)}</Mono> min
+            </>
+          ) : (
+            <Txt variant="small" tone="error">
+              No one gauge and rivet carries the loads on every rib.
+            </Txt>
+          )}
         </Txt>
         <Txt variant="small" testID="wing-trade-per-rib">
-          Each rib its own ({pairs} different pair{pairs === 1 ? '' : 's'}{per.feasible ? '' : ', some ribs with none'}): <Mono variant="small">{partWeight(per.weightLb, u.system)}</Mono>,{' '}
-          <Mono variant="small">{per.rivetCount}</Mono> rivets, <Mono variant="small">{Math.round(per.buildMinutes)}</Mono> min
+          Each rib its own ({pairs} different pair{pairs === 1 ? '' : 's'}
+          {per.feasible ? '' : ', some ribs with none'}):{' '}
+          <Mono variant="small">{partWeight(per.weightLb, u.system)}</Mono>,{' '}
+          <Mono variant="small">{per.rivetCount}</Mono> rivets,{' '}
+          <Mono variant="small">{Math.round(per.buildMinutes)}</Mono> min
         </Txt>
         {best && per.feasible ? (
           <Txt variant="small" tone="soft" testID="wing-trade-difference">
-            One for all weighs <Mono variant="small">{partWeight(Math.abs(best.weightLb - per.weightLb), u.system)}</Mono> {best.weightLb >= per.weightLb ? 'more' : 'less'} and
-            takes <Mono variant="small">{Math.abs(Math.round(best.buildMinutes - per.buildMinutes))}</Mono> min {best.buildMinutes >= per.buildMinutes ? 'more' : 'less'} to build.
+            One for all weighs{' '}
+            <Mono variant="small">{partWeight(Math.abs(best.weightLb - per.weightLb), u.system)}</Mono>{' '}
+            {best.weightLb >= per.weightLb ? 'more' : 'less'} and takes{' '}
+            <Mono variant="small">{Math.abs(Math.round(best.buildMinutes - per.buildMinutes))}</Mono> min{' '}
+            {best.buildMinutes >= per.buildMinutes ? 'more' : 'less'} to build.
           </Txt>
         ) : null}
       </Sheet>
@@ -59,26 +77,63 @@ export function WingTradeTable({ trade }: { trade: WingResult['trade'] }) {
             key: `${r.gaugeIn}-${r.rivet}`,
             testID: `wing-trade-row-${r.gaugeIn}-${r.rivet}`,
             cells: {
-              pair: <Mono variant="small" bold>{u.length(r.gaugeIn)} · {r.rivet}</Mono>,
-              ok: <Txt variant="small" bold tone={r.feasible ? 'ink' : 'error'}>{r.feasible ? '✓ yes' : '✕ no'}</Txt>,
-              bad: r.infeasibleRibs.length ? <Mono variant="small" tone="error">{r.infeasibleRibs.join(', ')}</Mono> : <Txt variant="small" tone="faint">–</Txt>,
+              pair: (
+                <Mono variant="small" bold>
+                  {u.length(r.gaugeIn)} · {r.rivet}
+                </Mono>
+              ),
+              ok: (
+                <Txt variant="small" bold tone={r.feasible ? 'ink' : 'error'}>
+                  {r.feasible ? '✓ yes' : '✕ no'}
+                </Txt>
+              ),
+              bad: r.infeasibleRibs.length ? (
+                <Mono variant="small" tone="error">
+                  {r.infeasibleRibs.join(', ')}
+                </Mono>
+              ) : (
+                <Txt variant="small" tone="faint">
+                  –
+                </Txt>
+              ),
               count: <Mono variant="small">{r.rivetCount}</Mono>,
               weight: <Mono variant="small">{trim(partWeight(r.weightLb, u.system))}</Mono>,
               time: <Mono variant="small">{Math.round(r.buildMinutes)}</Mono>,
-              rank: rec
-                ? <View style={styles.tag} testID={`wing-trade-row-${r.gaugeIn}-${r.rivet}-recommended`}><Mono variant="small" bold tone="inverse">1</Mono><Txt variant="small" bold tone="inverse">for all</Txt></View>
-                : <Mono variant="small" tone={r.rank === null ? 'faint' : 'ink'}>{r.rank ?? '–'}</Mono>,
+              rank: rec ? (
+                <View style={styles.tag} testID={`wing-trade-row-${r.gaugeIn}-${r.rivet}-recommended`}>
+                  <Mono variant="small" bold tone="inverse">
+                    1
+                  </Mono>
+                  <Txt variant="small" bold tone="inverse">
+                    for all
+                  </Txt>
+                </View>
+              ) : (
+                <Mono variant="small" tone={r.rank === null ? 'faint' : 'ink'}>
+                  {r.rank ?? '–'}
+                </Mono>
+              ),
             },
           };
         })}
       />
       <Txt variant="small" tone="faint">
-        Totals over every rib: flanges along the lines, unlightened webs and rivets. Feasible rows rank lightest first, fewer rivets between equals.
+        Totals over every rib: flanges along the lines, unlightened webs and rivets. Feasible rows rank lightest first,
+        fewer rivets between equals.
       </Txt>
     </View>
   );
 }
 
 const styles = StyleSheet.create({
-  tag: { flexDirection: 'row', alignItems: 'center', gap: space.xs, alignSelf: 'flex-start', backgroundColor: colors.accent, borderRadius: radius.md, paddingHorizontal: space.sm, paddingVertical: 2 },
+  tag: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.xs,
+    alignSelf: 'flex-start',
+    backgroundColor: colors.accent,
+    borderRadius: radius.md,
+    paddingHorizontal: space.sm,
+    paddingVertical: 2,
+  },
 });

@@ -13,7 +13,10 @@ function Ms({ value, testID }: { value: number | null; testID: string }) {
   const bad = value !== null && value < 0;
   return (
     <View style={[styles.ms, bad && styles.bad]} testID={testID}>
-      <Mono variant="small" bold={bad} tone={bad ? 'error' : 'ink'}>{bad ? '✕' : ''}{marginText(value)}</Mono>
+      <Mono variant="small" bold={bad} tone={bad ? 'error' : 'ink'}>
+        {bad ? '✕' : ''}
+        {marginText(value)}
+      </Mono>
     </View>
   );
 }
@@ -26,7 +29,15 @@ export type ZoneCandidate = Pick<StudyCandidate, 'gaugeIn' | 'rivet' | 'feasible
  * `idPrefix` keeps testIDs apart where two tables show at once (a wing's rib and its skin panel); `where`
  * says what the stations are measured from.
  */
-export function ZoneTable({ candidate, idPrefix = 'zone', where }: { candidate: ZoneCandidate; idPrefix?: string; where?: string }) {
+export function ZoneTable({
+  candidate,
+  idPrefix = 'zone',
+  where,
+}: {
+  candidate: ZoneCandidate;
+  idPrefix?: string;
+  where?: string;
+}) {
   const u = useUnits();
   const lu = u.label('length');
   const fu = u.label('force');
@@ -34,17 +45,31 @@ export function ZoneTable({ candidate, idPrefix = 'zone', where }: { candidate: 
     <View style={{ gap: space.xl }} testID={`${idPrefix}-table`}>
       {!candidate.feasible ? (
         <Notice tone="error" testID={idPrefix === 'zone' ? 'candidate-reasons' : `${idPrefix}-reasons`}>
-          <Txt bold tone="error">{u.length(candidate.gaugeIn)} with {candidate.rivet} does not carry the loads:</Txt>
-          {candidate.reasons.map((r, i) => <Txt key={i} variant="small">• {r}</Txt>)}
+          <Txt bold tone="error">
+            {u.length(candidate.gaugeIn)} with {candidate.rivet} does not carry the loads:
+          </Txt>
+          {candidate.reasons.map((r, i) => (
+            <Txt key={i} variant="small">
+              • {r}
+            </Txt>
+          ))}
         </Notice>
       ) : null}
       {candidate.lines.map((l, li) => (
         <View key={l.line} style={{ gap: space.xs }} testID={`${idPrefix}-table-${li}`}>
           <Txt bold>{l.line}</Txt>
           <Txt variant="small" tone="soft">
-            drill <Mono variant="small" bold>{l.drill.name}</Mono> (<Mono variant="small">{u.length(l.drill.diameterIn)}</Mono>) · edge distance{' '}
-            <Mono variant="small">{u.length(l.layout.edgeDistanceIn)}</Mono> · pitch <Mono variant="small">{u.lengthNumber(l.layout.minPitchIn)}</Mono>–<Mono variant="small">{u.length(l.layout.maxPitchIn)}</Mono>
-            {' '}· allowables <Mono variant="small">{u.force(l.allowables.tensionLimitLb)}</Mono> limit, <Mono variant="small">{u.force(l.allowables.tensionUltimateLb)}</Mono> ultimate ({l.allowables.tensionBasis === 'coupons' ? 'from coupons' : 'fallback'})
+            drill{' '}
+            <Mono variant="small" bold>
+              {l.drill.name}
+            </Mono>{' '}
+            (<Mono variant="small">{u.length(l.drill.diameterIn)}</Mono>) · edge distance{' '}
+            <Mono variant="small">{u.length(l.layout.edgeDistanceIn)}</Mono> · pitch{' '}
+            <Mono variant="small">{u.lengthNumber(l.layout.minPitchIn)}</Mono>–
+            <Mono variant="small">{u.length(l.layout.maxPitchIn)}</Mono> · allowables{' '}
+            <Mono variant="small">{u.force(l.allowables.tensionLimitLb)}</Mono> limit,{' '}
+            <Mono variant="small">{u.force(l.allowables.tensionUltimateLb)}</Mono> ultimate (
+            {l.allowables.tensionBasis === 'coupons' ? 'from coupons' : 'fallback'})
           </Txt>
           <GridTable
             label={`Zones of ${l.line}`}
@@ -64,10 +89,22 @@ export function ZoneTable({ candidate, idPrefix = 'zone', where }: { candidate: 
               key: String(k),
               testID: `${idPrefix}-row-${li}-${k}`,
               cells: {
-                span: <Mono variant="small">{u.station(z.fromIn)}–{u.station(z.toIn)}</Mono>,
-                pitch: <Mono variant="small" bold>{pitchNumber(z.pitchIn, u.system)}</Mono>,
+                span: (
+                  <Mono variant="small">
+                    {u.station(z.fromIn)}–{u.station(z.toIn)}
+                  </Mono>
+                ),
+                pitch: (
+                  <Mono variant="small" bold>
+                    {pitchNumber(z.pitchIn, u.system)}
+                  </Mono>
+                ),
                 n: <Mono variant="small">{z.count}</Mono>,
-                worst: <Mono variant="small">{z.worstHoleId ?? '–'} @ {u.station(z.worstStationIn)}</Mono>,
+                worst: (
+                  <Mono variant="small">
+                    {z.worstHoleId ?? '–'} @ {u.station(z.worstStationIn)}
+                  </Mono>
+                ),
                 limit: <Mono variant="small">{forceNumber(z.appliedLimitLb, u.system)}</Mono>,
                 ult: <Mono variant="small">{forceNumber(z.appliedUltimateLb, u.system)}</Mono>,
                 allowLimit: <Mono variant="small">{forceNumber(z.limitAllowableLb, u.system)}</Mono>,
@@ -81,15 +118,18 @@ export function ZoneTable({ candidate, idPrefix = 'zone', where }: { candidate: 
             <Txt variant="small" tone="error">
               Too loaded for the closest pitch (3D):{' '}
               {l.insufficient.map((r, i) => (
-                <Mono key={i} variant="small" tone="error">{i ? '; ' : ''}{u.station(r.fromIn)}–{u.station(r.toIn)} needs {pitchNumber(r.neededPitchIn, u.system)}</Mono>
+                <Mono key={i} variant="small" tone="error">
+                  {i ? '; ' : ''}
+                  {u.station(r.fromIn)}–{u.station(r.toIn)} needs {pitchNumber(r.neededPitchIn, u.system)}
+                </Mono>
               ))}
             </Txt>
           ) : null}
         </View>
       ))}
       <Txt variant="small" tone="faint">
-        Stations and pitch in {lu} {where ?? 'aft of the rib’s leading edge'}; loads and allowables per rivet in {fu}. MS = allowable ÷ applied − 1: a negative
-        margin (marked ✕) does not hold.
+        Stations and pitch in {lu} {where ?? 'aft of the rib’s leading edge'}; loads and allowables per rivet in {fu}.
+        MS = allowable ÷ applied − 1: a negative margin (marked ✕) does not hold.
       </Txt>
     </View>
   );

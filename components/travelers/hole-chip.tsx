@@ -35,9 +35,13 @@ function ChipBody({ hole, station }: { hole: Pick<Hole, 'holeId' | 'status'>; st
         <HoleMark status={hole.status} size={20} decorative />
         <Mono bold>{hole.holeId}</Mono>
       </View>
-      <Mono variant="small" tone="soft">{station}</Mono>
+      <Mono variant="small" tone="soft">
+        {station}
+      </Mono>
       {/* The state in words as well as in the mark's shape and colour: read in bad light, and without colour. */}
-      <Txt variant="small" bold={bolded(hole.status)}>{holeStatusLabels[hole.status]}</Txt>
+      <Txt variant="small" bold={bolded(hole.status)}>
+        {holeStatusLabels[hole.status]}
+      </Txt>
     </>
   );
 }
@@ -49,7 +53,18 @@ function ChipBody({ hole, station }: { hole: Pick<Hole, 'holeId' | 'status'>; st
  * Everything it shows comes from its props (the hole and the run, by hole id), so a chip drawn again
  * for another row after scrolling shows that hole's state, never the last one's.
  */
-export const HoleChip = memo(function HoleChip({ hole, station, picking, inRun, isRunStart, focused, disabled, width, onPress, onFocusHole }: ChipProps) {
+export const HoleChip = memo(function HoleChip({
+  hole,
+  station,
+  picking,
+  inRun,
+  isRunStart,
+  focused,
+  disabled,
+  width,
+  onPress,
+  onFocusHole,
+}: ChipProps) {
   // Done for good, as the rules module counts it: a reworked hole still waits for the inspector.
   const done = holesDoneStatuses.includes(hole.status);
   const name = `${hole.holeId}, station ${station}, ${holeStatusLabels[hole.status]}`;
@@ -99,7 +114,17 @@ export const HoleChip = memo(function HoleChip({ hole, station, picking, inRun, 
  * width of every column, measured in the fonts and text size on screen, so no chip's words break or
  * run over whichever hole it is showing.
  */
-export function ChipProbe({ holeId, station, onWidth, ref }: { holeId: string; station: string; onWidth: (w: number) => void; ref?: React.Ref<View> }) {
+export function ChipProbe({
+  holeId,
+  station,
+  onWidth,
+  ref,
+}: {
+  holeId: string;
+  station: string;
+  onWidth: (w: number) => void;
+  ref?: React.Ref<View>;
+}) {
   return (
     <View
       ref={ref}
@@ -112,7 +137,9 @@ export function ChipProbe({ holeId, station, onWidth, ref }: { holeId: string; s
     >
       <ChipBody hole={{ holeId, status: 'pending' }} station={station} />
       {holeStatuses.map((s) => (
-        <Txt key={s} variant="small" bold={bolded(s)}>{holeStatusLabels[s]}</Txt>
+        <Txt key={s} variant="small" bold={bolded(s)}>
+          {holeStatusLabels[s]}
+        </Txt>
       ))}
     </View>
   );

@@ -71,13 +71,22 @@ function itemAt(offsets: readonly number[], y: number): number {
  * screen), widened to at least `minItems` around them so a list just off screen is ready when it
  * scrolls in, and a keyboard's next Tab always has a row to land on.
  */
-export function windowRange(offsets: readonly number[], top: number, bottom: number, overscan: number, minItems: number): [number, number] {
+export function windowRange(
+  offsets: readonly number[],
+  top: number,
+  bottom: number,
+  overscan: number,
+  minItems: number,
+): [number, number] {
   const n = offsets.length - 1;
   if (n <= 0) return [0, 0];
   const min = Math.min(n, Math.max(1, minItems));
   let first = itemAt(offsets, Math.max(0, top - overscan));
   // The items that start above the lower edge.
-  let end = Math.min(n, itemAt(offsets, bottom + overscan) + (offsets[itemAt(offsets, bottom + overscan)] < bottom + overscan ? 1 : 0));
+  let end = Math.min(
+    n,
+    itemAt(offsets, bottom + overscan) + (offsets[itemAt(offsets, bottom + overscan)] < bottom + overscan ? 1 : 0),
+  );
   if (first >= n) first = n; // the whole list has scrolled away above
   if (end < first) end = first;
   // Widen evenly about the middle, then against whichever end of the list it meets.
@@ -94,7 +103,11 @@ export function windowRange(offsets: readonly number[], top: number, bottom: num
  * Runs of items to draw, in order: the window plus any item that must stay (the one holding focus,
  * the one just asked for), each run with the height of the skipped items before it.
  */
-export function renderRuns(offsets: readonly number[], range: [number, number], keep: readonly number[]): { from: number; to: number; gapBefore: number }[] {
+export function renderRuns(
+  offsets: readonly number[],
+  range: [number, number],
+  keep: readonly number[],
+): { from: number; to: number; gapBefore: number }[] {
   const n = offsets.length - 1;
   const spans: [number, number][] = [];
   if (range[1] > range[0]) spans.push(range);
@@ -119,11 +132,19 @@ export function renderRuns(offsets: readonly number[], range: [number, number], 
  * matter ("u-7" finds U-007).
  */
 export function normaliseHoleId(s: string): string {
-  return s.trim().toUpperCase().replace(/\s+/g, '').replace(/-0+(?=\d)/g, '-');
+  return s
+    .trim()
+    .toUpperCase()
+    .replace(/\s+/g, '')
+    .replace(/-0+(?=\d)/g, '-');
 }
 
 /** The hole or line that a "go to" query names, or null. A line code alone goes to its heading. */
-export function findTarget(q: string, holes: readonly Hole[], lines: readonly FastenerLine[]): { hole: Hole } | { line: FastenerLine } | null {
+export function findTarget(
+  q: string,
+  holes: readonly Hole[],
+  lines: readonly FastenerLine[],
+): { hole: Hole } | { line: FastenerLine } | null {
   const want = normaliseHoleId(q);
   if (!want) return null;
   const hole = holes.find((h) => normaliseHoleId(h.holeId) === want);

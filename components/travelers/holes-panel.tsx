@@ -42,7 +42,21 @@ type Props = {
   message: { tone: 'error' | 'info'; text: string } | null;
 };
 
-export function HolesPanel({ lines, holes, canTick, mode, pick, run, plan, focusId, onHolePress, onStartRun, onCancelRun, onTickRun, message }: Props) {
+export function HolesPanel({
+  lines,
+  holes,
+  canTick,
+  mode,
+  pick,
+  run,
+  plan,
+  focusId,
+  onHolePress,
+  onStartRun,
+  onCancelRun,
+  onTickRun,
+  message,
+}: Props) {
   const u = useUnits();
   const runSet = useMemo(() => new Set(run.map((h) => h.holeId)), [run]);
   // Focus follows the work: into the run bar when a run starts (its button is gone), back to
@@ -60,16 +74,23 @@ export function HolesPanel({ lines, holes, canTick, mode, pick, run, plan, focus
   const [listWidth, setListWidth] = useState(0);
   const [chipWidth, setChipWidth] = useState(0);
   const measured = listWidth > 0 && chipWidth > 0;
-  const cols = measured ? Math.max(1, Math.floor((listWidth + CHIP_GAP) / (Math.max(CHIP_MIN, chipWidth) + CHIP_GAP))) : DEFAULT_COLS;
+  const cols = measured
+    ? Math.max(1, Math.floor((listWidth + CHIP_GAP) / (Math.max(CHIP_MIN, chipWidth) + CHIP_GAP)))
+    : DEFAULT_COLS;
   const colWidth = measured ? Math.floor((listWidth - CHIP_GAP * (cols - 1)) / cols) : undefined;
 
-  const { items, itemOfHole, itemOfLine, holeCount } = useMemo(() => holeItems(lines, holes, cols), [lines, holes, cols]);
+  const { items, itemOfHole, itemOfLine, holeCount } = useMemo(
+    () => holeItems(lines, holes, cols),
+    [lines, holes, cols],
+  );
   const windowed = Platform.OS === 'web' && holeCount > DRAW_ALL_HOLES;
 
   // Heights of items laid out so far, by key; the rest are guessed from the rows already seen.
   const heights = useRef(new Map<string, number>());
   const [heightsVersion, setHeightsVersion] = useState(0);
-  useEffect(() => { heights.current.clear(); }, [cols]);
+  useEffect(() => {
+    heights.current.clear();
+  }, [cols]);
   // Unmeasured items are guessed at the height last measured for their kind (rows are all alike).
   const guess = useRef({ row: ROW_GUESS, head: HEAD_GUESS });
   const onItemLayout = useCallback((key: string, h: number) => {
@@ -96,8 +117,8 @@ export function HolesPanel({ lines, holes, canTick, mode, pick, run, plan, focus
     if (!windowed) return;
     const span = visibleSpan(listRef.current);
     const next: [number, number] = span
-      // Half a window's height drawn beyond each edge of the screen: a fling or a Tab lands on drawn holes.
-      ? windowRange(offsets, span.top, span.bottom, Math.max(300, (span.bottom - span.top) / 2), minItems)
+      ? // Half a window's height drawn beyond each edge of the screen: a fling or a Tab lands on drawn holes.
+        windowRange(offsets, span.top, span.bottom, Math.max(300, (span.bottom - span.top) / 2), minItems)
       : windowRange(offsets, 0, 0, 0, minItems);
     setRange((r) => (r[0] === next[0] && r[1] === next[1] ? r : next));
   }, [windowed, offsets, minItems]);
@@ -140,11 +161,14 @@ export function HolesPanel({ lines, holes, canTick, mode, pick, run, plan, focus
   }
   if (wanted?.holeId && itemOfHole.has(wanted.holeId)) keep.push(itemOfHole.get(wanted.holeId)!);
   // A line's heading with its first rows, so Tab from the heading lands on the line's first hole.
-  if (wanted?.line && itemOfLine.has(wanted.line)) for (let i = 0; i < 4; i++) keep.push(itemOfLine.get(wanted.line)! + i);
+  if (wanted?.line && itemOfLine.has(wanted.line))
+    for (let i = 0; i < 4; i++) keep.push(itemOfLine.get(wanted.line)! + i);
   useLayoutEffect(() => {
     if (!wanted) return;
     const list = listRef.current as unknown as HTMLElement | null;
-    const node = list?.querySelector?.<HTMLElement>(`[data-testid="${wanted.holeId ? `hole-${wanted.holeId}` : `holes-${wanted.line}`}"]`);
+    const node = list?.querySelector?.<HTMLElement>(
+      `[data-testid="${wanted.holeId ? `hole-${wanted.holeId}` : `holes-${wanted.line}`}"]`,
+    );
     if (node) {
       node.scrollIntoView?.({ block: 'center' });
       moveFocusTo(node);
@@ -162,11 +186,19 @@ export function HolesPanel({ lines, holes, canTick, mode, pick, run, plan, focus
   const go = () => {
     const target = findTarget(goTo, holes, lines);
     if (!target) {
-      setGoToError(goTo.trim() ? `No hole or line ${goTo.trim()} on this part.` : 'Type a hole id, such as U-07, or a line, such as U.');
+      setGoToError(
+        goTo.trim()
+          ? `No hole or line ${goTo.trim()} on this part.`
+          : 'Type a hole id, such as U-07, or a line, such as U.',
+      );
       return;
     }
     setGoToError(undefined);
-    setWanted((w) => ('hole' in target ? { holeId: target.hole.holeId, n: (w?.n ?? 0) + 1 } : { line: target.line.code, n: (w?.n ?? 0) + 1 }));
+    setWanted((w) =>
+      'hole' in target
+        ? { holeId: target.hole.holeId, n: (w?.n ?? 0) + 1 }
+        : { line: target.line.code, n: (w?.n ?? 0) + 1 },
+    );
   };
 
   // The longest id and station of the part set the width of every column.
@@ -184,10 +216,18 @@ export function HolesPanel({ lines, holes, canTick, mode, pick, run, plan, focus
   const renderItem = (it: HoleItem) => {
     if (it.kind === 'head') {
       return (
-        <Measured key={it.key} id={it.key} onSize={windowed ? onItemLayout : undefined} style={[styles.head, it !== items[0] && styles.headAfter]}>
+        <Measured
+          key={it.key}
+          id={it.key}
+          onSize={windowed ? onItemLayout : undefined}
+          style={[styles.head, it !== items[0] && styles.headAfter]}
+        >
           <View testID={`holes-${it.line.code}`}>
             <Txt bold accessibilityRole="header" aria-level={3}>
-              <Mono bold>{it.line.code}</Mono> {it.line.name} <Mono variant="small" tone="soft">{it.done}/{it.total}</Mono>
+              <Mono bold>{it.line.code}</Mono> {it.line.name}{' '}
+              <Mono variant="small" tone="soft">
+                {it.done}/{it.total}
+              </Mono>
             </Txt>
           </View>
         </Measured>
@@ -235,7 +275,9 @@ export function HolesPanel({ lines, holes, canTick, mode, pick, run, plan, focus
       {canTick ? (
         mode === 'tap' ? (
           <View style={styles.bar}>
-            <Txt variant="small" tone="soft" style={{ flex: 1, minWidth: 160 }}>Tap a hole to tick it in, or tap again to take the tick off.</Txt>
+            <Txt variant="small" tone="soft" style={{ flex: 1, minWidth: 160 }}>
+              Tap a hole to tick it in, or tap again to take the tick off.
+            </Txt>
             <Button ref={runModeRef} label="Tick a run" variant="secondary" onPress={onStartRun} testID="run-mode" />
           </View>
         ) : (
@@ -247,14 +289,20 @@ export function HolesPanel({ lines, holes, canTick, mode, pick, run, plan, focus
             aria-label="Tick a run"
           >
             <Txt style={{ flex: 1, minWidth: 180 }} testID="run-summary" accessibilityLiveRegion="polite">
-              {!pick ? 'Tap the first hole of the run.'
-                : !pick.lastId ? `From ${pick.firstId}: now tap the last hole of the run on line ${pick.line}.`
+              {!pick
+                ? 'Tap the first hole of the run.'
+                : !pick.lastId
+                  ? `From ${pick.firstId}: now tap the last hole of the run on line ${pick.line}.`
                   : plan?.summary}
             </Txt>
             <View style={styles.runButtons}>
               <Button label="Cancel" variant="quiet" onPress={onCancelRun} testID="run-cancel" />
               <Button
-                label={plan?.action?.status === 'pending' ? `Untick ${plan.action.holeIds.length}` : `Tick ${plan?.action?.holeIds.length ?? 0} holes`}
+                label={
+                  plan?.action?.status === 'pending'
+                    ? `Untick ${plan.action.holeIds.length}`
+                    : `Tick ${plan?.action?.holeIds.length ?? 0} holes`
+                }
                 disabled={!pick?.lastId || !plan?.action}
                 onPress={onTickRun}
                 testID="tick-run"
@@ -263,7 +311,11 @@ export function HolesPanel({ lines, holes, canTick, mode, pick, run, plan, focus
           </View>
         )
       ) : null}
-      {message ? <Notice tone={message.tone} testID={message.tone === 'error' ? 'tick-error' : 'tick-info'}>{message.text}</Notice> : null}
+      {message ? (
+        <Notice tone={message.tone} testID={message.tone === 'error' ? 'tick-error' : 'tick-info'}>
+          {message.text}
+        </Notice>
+      ) : null}
       {windowed ? (
         // A long list shows only the holes near the screen: this reaches any of them at once, by
         // keyboard or screen reader as well as by thumb (and picks a run's far end without scrolling to it).
@@ -277,7 +329,10 @@ export function HolesPanel({ lines, holes, canTick, mode, pick, run, plan, focus
             >
               <TextBox
                 value={goTo}
-                onChangeText={(s) => { setGoTo(s); setGoToError(undefined); }}
+                onChangeText={(s) => {
+                  setGoTo(s);
+                  setGoToError(undefined);
+                }}
                 onSubmitEditing={go}
                 placeholder="Hole id or line, e.g. U-120"
                 accessibilityLabel="Go to a hole: its id or its line"
@@ -288,7 +343,13 @@ export function HolesPanel({ lines, holes, canTick, mode, pick, run, plan, focus
               />
             </Field>
           </View>
-          <Button label="Go" variant="secondary" onPress={go} testID="hole-go-to-go" style={{ alignSelf: 'flex-end' }} />
+          <Button
+            label="Go"
+            variant="secondary"
+            onPress={go}
+            testID="hole-go-to-go"
+            style={{ alignSelf: 'flex-end' }}
+          />
         </View>
       ) : null}
       <View ref={listRef} onLayout={onListLayout} testID="holes-list">
@@ -300,8 +361,16 @@ export function HolesPanel({ lines, holes, canTick, mode, pick, run, plan, focus
 }
 
 /** An item of the list that reports its height once laid out (only when the list is windowed). */
-function Measured({ id, onSize, style, children }: {
-  id: string; onSize?: (key: string, h: number) => void; style: React.ComponentProps<typeof View>['style']; children: React.ReactNode;
+function Measured({
+  id,
+  onSize,
+  style,
+  children,
+}: {
+  id: string;
+  onSize?: (key: string, h: number) => void;
+  style: React.ComponentProps<typeof View>['style'];
+  children: React.ReactNode;
 }) {
   return (
     <View style={style} onLayout={onSize ? (e) => onSize(id, e.nativeEvent.layout.height) : undefined}>

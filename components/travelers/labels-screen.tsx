@@ -35,10 +35,14 @@ export function labelPrintCss(size: LabelSize): string {
   body *:not(:has(#print-area)):not(#print-area):not(#print-area *) { display: none !important; }
   :has(#print-area) { background: #fff !important; overflow: visible !important; height: auto !important; max-height: none !important; flex: none !important; position: static !important;${roll ? ' padding: 0 !important; margin: 0 !important; border: none !important;' : ''} }
   #print-area [data-testid="print-bar"] { display: none !important; }
-  #print-area [data-testid^="part-label-"] { break-inside: avoid; page-break-inside: avoid; }${roll ? `
+  #print-area [data-testid^="part-label-"] { break-inside: avoid; page-break-inside: avoid; }${
+    roll
+      ? `
   #print-area, #print-area [data-testid="part-labels"] { gap: 0 !important; display: block !important; padding: 0 !important; }
   #print-area [data-testid^="part-label-"] { border: none !important; margin: 0 !important; }
-  #print-area [data-testid^="part-label-"]:not(:last-child) { break-after: page; page-break-after: always; }` : ''}
+  #print-area [data-testid^="part-label-"]:not(:last-child) { break-after: page; page-break-after: always; }`
+      : ''
+  }
 }`;
 }
 
@@ -50,7 +54,9 @@ function usePrintCss(size: LabelSize) {
     el.setAttribute('data-label-size', size);
     el.textContent = labelPrintCss(size);
     document.head.appendChild(el);
-    return () => { el.remove(); };
+    return () => {
+      el.remove();
+    };
   }, [size]);
 }
 
@@ -63,20 +69,41 @@ export function PartLabelCard({ l, size }: { l: PartLabel; size: LabelSize }) {
   const one = size === 'sheet' ? undefined : 1;
   return (
     <View
-      style={[styles.card, { width: px(info.widthMm), padding: px(k.padMm), gap: px(k.padMm) }, info.heightMm ? { height: px(info.heightMm) } : null]}
+      style={[
+        styles.card,
+        { width: px(info.widthMm), padding: px(k.padMm), gap: px(k.padMm) },
+        info.heightMm ? { height: px(info.heightMm) } : null,
+      ]}
       testID={`part-label-${l.shortCode}`}
     >
-      <Image source={{ uri: l.qrDataUrl }} style={{ width: px(k.qrMm), height: px(k.qrMm) }} accessibilityLabel={`QR code for ${l.serial}`} />
+      <Image
+        source={{ uri: l.qrDataUrl }}
+        style={{ width: px(k.qrMm), height: px(k.qrMm) }}
+        accessibilityLabel={`QR code for ${l.serial}`}
+      />
       <View style={{ flex: 1, minWidth: 0 }}>
-        <Mono bold style={{ fontSize: k.code, lineHeight: Math.round(k.code * 1.2) }} testID="label-code">{l.shortCode}</Mono>
-        <Mono style={line} numberOfLines={one} testID="label-serial">{l.serial}</Mono>
+        <Mono bold style={{ fontSize: k.code, lineHeight: Math.round(k.code * 1.2) }} testID="label-code">
+          {l.shortCode}
+        </Mono>
+        <Mono style={line} numberOfLines={one} testID="label-serial">
+          {l.serial}
+        </Mono>
         <Txt style={line} numberOfLines={one} testID="label-part">
-          <Mono bold style={line}>{l.partNumber}</Mono> rev <Mono bold style={line} testID="label-revision">{l.letter}</Mono> {l.partName}
+          <Mono bold style={line}>
+            {l.partNumber}
+          </Mono>{' '}
+          rev{' '}
+          <Mono bold style={line} testID="label-revision">
+            {l.letter}
+          </Mono>{' '}
+          {l.partName}
         </Txt>
         <Txt style={line} numberOfLines={one} testID="label-kit">
           <Mono style={line}>{l.kitModelCode}</Mono> {l.kitModelName} · kit <Mono style={line}>{l.kitSerial}</Mono>
         </Txt>
-        <Txt style={line} numberOfLines={one} tone="soft" testID="label-supplier">{l.supplierName}</Txt>
+        <Txt style={line} numberOfLines={one} tone="soft" testID="label-supplier">
+          {l.supplierName}
+        </Txt>
       </View>
     </View>
   );
@@ -88,43 +115,59 @@ export function LabelsScreen({ buildId, travelerId }: { buildId?: string; travel
   usePrintCss(size);
   const q = useLabelsQuery(travelerId ? { travelerId } : { buildId });
   const first = q.data?.[0];
-  const title = travelerId ? (first ? `Label · ${first.serial}` : 'QR label') : first ? `Labels · build ${first.kitSerial}` : 'QR labels';
+  const title = travelerId
+    ? first
+      ? `Label · ${first.serial}`
+      : 'QR label'
+    : first
+      ? `Labels · build ${first.kitSerial}`
+      : 'QR labels';
   const n = q.data?.length ?? 0;
   return (
     <Screen
       title={title}
-      subtitle={travelerId ? 'Print this part’s label again: for one lost, worn or unreadable' : 'One label per part: stick it where the builder will scan it'}
+      subtitle={
+        travelerId
+          ? 'Print this part’s label again: for one lost, worn or unreadable'
+          : 'One label per part: stick it where the builder will scan it'
+      }
       backTo={travelerId ? `/travelers/${travelerId}` : `/builds/${buildId}`}
       full
       testID="labels-screen"
     >
-      {q.isPending ? <LoadingState what="Making the labels" />
-        : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
-          : !q.data.length ? <EmptyState title="No labels." body="This build has no parts." />
-            : (
-              <View nativeID="print-area" style={{ gap: space.lg }}>
-                <View style={{ gap: space.md }} testID="print-bar">
-                  <Field label="Label stock" hint={labelSizeInfo[size].hint}>
-                    <Choice
-                      label="Label stock"
-                      testIDPrefix="label-size"
-                      value={size}
-                      onChange={setSize}
-                      options={labelSizes.map((s) => ({ value: s, label: labelSizeInfo[s].name }))}
-                    />
-                  </Field>
-                  <View style={styles.bar}>
-                    <Txt tone="soft" style={{ flex: 1, minWidth: 200 }}>
-                      {n} label{n === 1 ? '' : 's'}, shown at print size. The short code under each QR can be typed on the bench if the camera cannot read it.
-                    </Txt>
-                    {Platform.OS === 'web' ? <Button label="Print" onPress={() => window.print()} testID="print" /> : null}
-                  </View>
-                </View>
-                <View style={styles.grid} testID="part-labels">
-                  {q.data.map((l) => <PartLabelCard key={l.travelerId} l={l} size={size} />)}
-                </View>
-              </View>
-            )}
+      {q.isPending ? (
+        <LoadingState what="Making the labels" />
+      ) : q.isError ? (
+        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+      ) : !q.data.length ? (
+        <EmptyState title="No labels." body="This build has no parts." />
+      ) : (
+        <View nativeID="print-area" style={{ gap: space.lg }}>
+          <View style={{ gap: space.md }} testID="print-bar">
+            <Field label="Label stock" hint={labelSizeInfo[size].hint}>
+              <Choice
+                label="Label stock"
+                testIDPrefix="label-size"
+                value={size}
+                onChange={setSize}
+                options={labelSizes.map((s) => ({ value: s, label: labelSizeInfo[s].name }))}
+              />
+            </Field>
+            <View style={styles.bar}>
+              <Txt tone="soft" style={{ flex: 1, minWidth: 200 }}>
+                {n} label{n === 1 ? '' : 's'}, shown at print size. The short code under each QR can be typed on the
+                bench if the camera cannot read it.
+              </Txt>
+              {Platform.OS === 'web' ? <Button label="Print" onPress={() => window.print()} testID="print" /> : null}
+            </View>
+          </View>
+          <View style={styles.grid} testID="part-labels">
+            {q.data.map((l) => (
+              <PartLabelCard key={l.travelerId} l={l} size={size} />
+            ))}
+          </View>
+        </View>
+      )}
     </Screen>
   );
 }

@@ -26,31 +26,87 @@ function poly(pts: [number, number][], close = true): string {
  * MarkGlyph (components/ui/status-mark.tsx): a 2,000-hole part drew 2,000 SVG groups; this draws at
  * most three elements a status, so a drawing of any size costs the page about the same.
  */
-export function markLayers(shape: MarkShape, color: string, at: readonly { x: number; y: number }[], r: number): MarkLayer[] {
+export function markLayers(
+  shape: MarkShape,
+  color: string,
+  at: readonly { x: number; y: number }[],
+  r: number,
+): MarkLayer[] {
   if (!at.length) return [];
   const sw = Math.max(1.5, r * 0.28);
   const each = (g: (cx: number, cy: number) => string) => at.map((p) => g(p.x, p.y)).join('');
   switch (shape) {
     case 'open-circle':
-      return [{ d: each((x, y) => circle(x, y, r - sw / 2)), fill: colors.paperRaised, stroke: color, strokeWidth: sw }];
+      return [
+        { d: each((x, y) => circle(x, y, r - sw / 2)), fill: colors.paperRaised, stroke: color, strokeWidth: sw },
+      ];
     case 'dot':
       return [{ d: each((x, y) => circle(x, y, r)), fill: color }];
     case 'triangle': {
       const h = r * 1.9;
       const half = r * 1.1;
-      return [{ d: each((x, y) => poly([[x, y - h * 0.6], [x + half, y + h * 0.4], [x - half, y + h * 0.4]])), fill: color }];
+      return [
+        {
+          d: each((x, y) =>
+            poly([
+              [x, y - h * 0.6],
+              [x + half, y + h * 0.4],
+              [x - half, y + h * 0.4],
+            ]),
+          ),
+          fill: color,
+        },
+      ];
     }
     case 'square': {
       const s = r * 1.6;
-      return [{ d: each((x, y) => poly([[x - s / 2, y - s / 2], [x + s / 2, y - s / 2], [x + s / 2, y + s / 2], [x - s / 2, y + s / 2]])), fill: color }];
+      return [
+        {
+          d: each((x, y) =>
+            poly([
+              [x - s / 2, y - s / 2],
+              [x + s / 2, y - s / 2],
+              [x + s / 2, y + s / 2],
+              [x - s / 2, y + s / 2],
+            ]),
+          ),
+          fill: color,
+        },
+      ];
     }
     case 'diamond': {
       const d = r * 1.2;
-      return [{ d: each((x, y) => poly([[x, y - d], [x + d, y], [x, y + d], [x - d, y]])), fill: color }];
+      return [
+        {
+          d: each((x, y) =>
+            poly([
+              [x, y - d],
+              [x + d, y],
+              [x, y + d],
+              [x - d, y],
+            ]),
+          ),
+          fill: color,
+        },
+      ];
     }
     case 'hourglass': {
       const w = r * 0.95;
-      return [{ d: each((x, y) => poly([[x - w, y - w], [x + w, y - w], [x, y], [x + w, y + w], [x - w, y + w], [x, y]])), fill: color }];
+      return [
+        {
+          d: each((x, y) =>
+            poly([
+              [x - w, y - w],
+              [x + w, y - w],
+              [x, y],
+              [x + w, y + w],
+              [x - w, y + w],
+              [x, y],
+            ]),
+          ),
+          fill: color,
+        },
+      ];
     }
     case 'ringed-check': {
       const inner = r * 0.72;
@@ -59,8 +115,20 @@ export function markLayers(shape: MarkShape, color: string, at: readonly { x: nu
         { d: each((x, y) => circle(x, y, r - sw / 4)), fill: 'none', stroke: color, strokeWidth: sw / 2 },
         { d: each((x, y) => circle(x, y, inner)), fill: color },
         {
-          d: each((x, y) => poly([[x - k, y], [x - k * 0.25, y + k * 0.7], [x + k, y - k * 0.6]], false)),
-          fill: 'none', stroke: colors.paperRaised, strokeWidth: Math.max(1.2, inner * 0.3), round: true,
+          d: each((x, y) =>
+            poly(
+              [
+                [x - k, y],
+                [x - k * 0.25, y + k * 0.7],
+                [x + k, y - k * 0.6],
+              ],
+              false,
+            ),
+          ),
+          fill: 'none',
+          stroke: colors.paperRaised,
+          strokeWidth: Math.max(1.2, inner * 0.3),
+          round: true,
         },
       ];
     }

@@ -22,7 +22,14 @@ const TARGET_MIN = 24;
  * Where marks overlap (a whole part on a phone), the ones that ask for attention are drawn last, on
  * top: a flagged or held hole is never hidden under its pending neighbours. Each status is one layer.
  */
-const drawOrder: Record<HoleStatus, number> = { pending: 0, installed: 1, accepted: 2, reworked: 3, held: 4, flagged: 5 };
+const drawOrder: Record<HoleStatus, number> = {
+  pending: 0,
+  installed: 1,
+  accepted: 2,
+  reworked: 3,
+  held: 4,
+  flagged: 5,
+};
 
 /** testID for SVG shapes: react-native-svg passes unknown props through to the DOM on the web. */
 function svgTestId(id: string): object {
@@ -50,11 +57,17 @@ export function PartDrawing({ detail, runIds, focusId, onHolePress }: Props) {
     const b = outlineBounds(detail.outline);
     // Flat lines can run past the outline (a panel's overhang); keep them in the picture.
     for (const l of detail.lines) b.maxX = Math.max(b.maxX, l.startIn + l.lengthIn);
-    if (b.maxY - b.minY < 1e-6) { b.maxY += 0.5; b.minY -= 0.5; }
+    if (b.maxY - b.minY < 1e-6) {
+      b.maxY += 0.5;
+      b.minY -= 0.5;
+    }
     return b;
   }, [detail.outline, detail.lines]);
 
-  const placed = useMemo(() => placeHoles(detail.outline, detail.lines, detail.holes), [detail.outline, detail.lines, detail.holes]);
+  const placed = useMemo(
+    () => placeHoles(detail.outline, detail.lines, detail.holes),
+    [detail.outline, detail.lines, detail.holes],
+  );
 
   const pad = 28;
   const spanX = Math.max(1e-6, bounds.maxX - bounds.minX);
@@ -110,7 +123,10 @@ export function PartDrawing({ detail, runIds, focusId, onHolePress }: Props) {
   const summary = useMemo(() => {
     const n: Partial<Record<HoleStatus, number>> = {};
     for (const h of detail.holes) n[h.status] = (n[h.status] ?? 0) + 1;
-    return holeStatuses.filter((st) => n[st]).map((st) => `${n[st]} ${holeStatusLabels[st].toLowerCase()}`).join(', ');
+    return holeStatuses
+      .filter((st) => n[st])
+      .map((st) => `${n[st]} ${holeStatusLabels[st].toLowerCase()}`)
+      .join(', ');
   }, [detail.holes]);
   const svgW = Math.max(width, Math.ceil(proj.width));
   const scrolls = svgW > width + 1;
@@ -130,7 +146,11 @@ export function PartDrawing({ detail, runIds, focusId, onHolePress }: Props) {
         label="Zoom of the drawing"
         value={zoom}
         onChange={setZoom}
-        options={[{ value: 'fit', label: 'Whole part' }, { value: 'closer', label: 'Closer' }, { value: 'closest', label: 'Closest' }]}
+        options={[
+          { value: 'fit', label: 'Whole part' },
+          { value: 'closer', label: 'Closer' },
+          { value: 'closest', label: 'Closest' },
+        ]}
       />
       <View onLayout={onLayout} style={styles.frame} testID="part-drawing">
         {width > 0 ? (
@@ -152,7 +172,17 @@ export function PartDrawing({ detail, runIds, focusId, onHolePress }: Props) {
               <G opacity={0.9}>
                 {Array.from({ length: Math.floor(spanX / gridStep) + 1 }, (_, i) => {
                   const x = proj.x(bounds.minX + i * gridStep);
-                  return <Line key={`gx${i}`} x1={x} y1={pad / 2} x2={x} y2={proj.height - pad / 2} stroke={colors.grid} strokeWidth={1} />;
+                  return (
+                    <Line
+                      key={`gx${i}`}
+                      x1={x}
+                      y1={pad / 2}
+                      x2={x}
+                      y2={proj.height - pad / 2}
+                      stroke={colors.grid}
+                      strokeWidth={1}
+                    />
+                  );
                 })}
               </G>
               <Polygon
@@ -188,7 +218,16 @@ export function PartDrawing({ detail, runIds, focusId, onHolePress }: Props) {
               })}
               {/* The run being picked: a halo under each of its marks. */}
               {runPlaced.length ? (
-                <Path d={ringsPath(runPlaced.map((h) => ({ x: proj.x(h.x), y: proj.y(h.y) })), r + 4)} fill={colors.accentSoft} stroke={colors.accent} strokeWidth={1} aria-hidden />
+                <Path
+                  d={ringsPath(
+                    runPlaced.map((h) => ({ x: proj.x(h.x), y: proj.y(h.y) })),
+                    r + 4,
+                  )}
+                  fill={colors.accentSoft}
+                  stroke={colors.accent}
+                  strokeWidth={1}
+                  aria-hidden
+                />
               ) : null}
               {/* One path per status and layer, whatever the number of holes (see mark-paths.ts). */}
               {marks.map((m, i) => (
@@ -204,30 +243,61 @@ export function PartDrawing({ detail, runIds, focusId, onHolePress }: Props) {
                 />
               ))}
               {focusPlaced ? (
-                <Circle cx={proj.x(focusPlaced.x)} cy={proj.y(focusPlaced.y)} r={r + 6} fill="none" stroke={colors.accent} strokeWidth={2.5} aria-hidden />
-              ) : null}
-              {pickable ? placed.map((h) => (
                 <Circle
-                  key={h.holeId}
-                  cx={proj.x(h.x)}
-                  cy={proj.y(h.y)}
-                  r={hitRadius.get(h.holeId) ?? TARGET_MIN / 2}
-                  fill="transparent"
-                  onPress={() => onHolePress?.(h)}
+                  cx={proj.x(focusPlaced.x)}
+                  cy={proj.y(focusPlaced.y)}
+                  r={r + 6}
+                  fill="none"
+                  stroke={colors.accent}
+                  strokeWidth={2.5}
                   aria-hidden
-                  {...svgTestId(`drawing-hole-${h.holeId}`)}
                 />
-              )) : null}
+              ) : null}
+              {pickable
+                ? placed.map((h) => (
+                    <Circle
+                      key={h.holeId}
+                      cx={proj.x(h.x)}
+                      cy={proj.y(h.y)}
+                      r={hitRadius.get(h.holeId) ?? TARGET_MIN / 2}
+                      fill="transparent"
+                      onPress={() => onHolePress?.(h)}
+                      aria-hidden
+                      {...svgTestId(`drawing-hole-${h.holeId}`)}
+                    />
+                  ))
+                : null}
               {/* Station ruler along the chord, from the leading edge. */}
               <G>
-                <Line x1={proj.x(bounds.minX)} y1={proj.height + 6} x2={proj.x(bounds.maxX)} y2={proj.height + 6} stroke={colors.ink} strokeWidth={1} />
+                <Line
+                  x1={proj.x(bounds.minX)}
+                  y1={proj.height + 6}
+                  x2={proj.x(bounds.maxX)}
+                  y2={proj.height + 6}
+                  stroke={colors.ink}
+                  strokeWidth={1}
+                />
                 {Array.from({ length: Math.floor(spanX / rulerStep) + 1 }, (_, i) => {
                   const xi = bounds.minX + i * rulerStep;
                   const x = proj.x(xi);
                   return (
                     <G key={`r${i}`}>
-                      <Line x1={x} y1={proj.height + 2} x2={x} y2={proj.height + 10} stroke={colors.ink} strokeWidth={1} />
-                      <SvgText x={x} y={proj.height + 24} fontSize={11} fontFamily={fonts.mono} fill={colors.inkSoft} textAnchor="middle">
+                      <Line
+                        x1={x}
+                        y1={proj.height + 2}
+                        x2={x}
+                        y2={proj.height + 10}
+                        stroke={colors.ink}
+                        strokeWidth={1}
+                      />
+                      <SvgText
+                        x={x}
+                        y={proj.height + 24}
+                        fontSize={11}
+                        fontFamily={fonts.mono}
+                        fill={colors.inkSoft}
+                        textAnchor="middle"
+                      >
                         {units.ruler(xi)}
                       </SvgText>
                     </G>
@@ -241,7 +311,9 @@ export function PartDrawing({ detail, runIds, focusId, onHolePress }: Props) {
         )}
       </View>
       {onHolePress && width > 0 && !pickable ? (
-        <Txt variant="small" tone="soft" testID="drawing-pick-hint">Zoom closer to pick a hole on the drawing, or use the holes list.</Txt>
+        <Txt variant="small" tone="soft" testID="drawing-pick-hint">
+          Zoom closer to pick a hole on the drawing, or use the holes list.
+        </Txt>
       ) : null}
     </View>
   );

@@ -11,7 +11,10 @@ export type Bounds = { minX: number; maxX: number; minY: number; maxY: number };
 
 export function outlineBounds(outline: readonly Point[]): Bounds {
   if (!outline.length) return { minX: 0, maxX: 1, minY: 0, maxY: 1 };
-  let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity;
+  let minX = Infinity,
+    maxX = -Infinity,
+    minY = Infinity,
+    maxY = -Infinity;
   for (const [x, y] of outline) {
     if (x < minX) minX = x;
     if (x > maxX) maxX = x;
@@ -59,14 +62,29 @@ function surfaceYWithin(outline: readonly Point[], b: Bounds, x: number, side: S
 }
 
 /** Flat lines (panels) have no surface to follow: spread them evenly across the part's height. */
-export function flatLineY(outline: readonly Point[], lines: readonly Pick<FastenerLine, 'code' | 'surface'>[], code: string): number {
+export function flatLineY(
+  outline: readonly Point[],
+  lines: readonly Pick<FastenerLine, 'code' | 'surface'>[],
+  code: string,
+): number {
   const b = outlineBounds(outline);
   const flats = lines.filter((l) => l.surface === 'flat');
-  const i = Math.max(0, flats.findIndex((l) => l.code === code));
+  const i = Math.max(
+    0,
+    flats.findIndex((l) => l.code === code),
+  );
   return b.minY + ((i + 1) / (flats.length + 1)) * (b.maxY - b.minY);
 }
 
-export type PlacedHole = { holeId: string; line: string; seq: number; stationIn: number; status: HoleStatus; x: number; y: number };
+export type PlacedHole = {
+  holeId: string;
+  line: string;
+  seq: number;
+  stationIn: number;
+  status: HoleStatus;
+  x: number;
+  y: number;
+};
 
 /**
  * Distance along the outline's upper or lower side from x0 → the x reached: a hole's station is
@@ -113,7 +131,8 @@ function makeWalker(outline: readonly Point[], side: Side, x0: number): (distanc
     if (distance >= along[hi]) return xs[hi];
     while (hi - lo > 1) {
       const mid = (lo + hi) >> 1;
-      if (along[mid] < distance) lo = mid; else hi = mid;
+      if (along[mid] < distance) lo = mid;
+      else hi = mid;
     }
     return xs[lo] + ((xs[hi] - xs[lo]) * (distance - along[lo])) / (along[hi] - along[lo]);
   };
@@ -123,7 +142,11 @@ export const xAlongSurface = (outline: readonly Point[], side: Side, x0: number,
   surfaceWalker(outline, side, x0)(distance);
 
 /** Holes' places: each station walked along its line's side from the line's start (straight for a flat line). */
-export function placeHoles(outline: readonly Point[], lines: readonly FastenerLine[], holes: readonly Hole[]): PlacedHole[] {
+export function placeHoles(
+  outline: readonly Point[],
+  lines: readonly FastenerLine[],
+  holes: readonly Hole[],
+): PlacedHole[] {
   const walkers = new Map<string, (d: number) => number>();
   return holes.map((h) => {
     const line = lines.find((l) => l.code === h.line);
@@ -145,11 +168,19 @@ export const placeHole = (outline: readonly Point[], lines: readonly FastenerLin
   placeHoles(outline, lines, [hole])[0];
 
 /** Points that trace a fastener line along its surface, for drawing it as a polyline. */
-export function linePath(outline: readonly Point[], lines: readonly FastenerLine[], line: FastenerLine, samples = 48): Point[] {
+export function linePath(
+  outline: readonly Point[],
+  lines: readonly FastenerLine[],
+  line: FastenerLine,
+  samples = 48,
+): Point[] {
   const x0 = line.startIn;
   if (line.surface === 'flat') {
     const y = flatLineY(outline, lines, line.code);
-    return [[x0, y], [x0 + line.lengthIn, y]];
+    return [
+      [x0, y],
+      [x0 + line.lengthIn, y],
+    ];
   }
   const x1 = xAlongSurface(outline, line.surface, x0, line.lengthIn);
   const pts: Point[] = [];

@@ -78,6 +78,7 @@ export const TICK_BATCH_MAX = 500;
  */
 export function tickBatches(action: TickHolesInput, max = TICK_BATCH_MAX): TickHolesInput[] {
   const out: TickHolesInput[] = [];
-  for (let i = 0; i < action.holeIds.length; i += max) out.push({ ...action, holeIds: action.holeIds.slice(i, i + max) });
+  for (let i = 0; i < action.holeIds.length; i += max)
+    out.push({ ...action, holeIds: action.holeIds.slice(i, i + max) });
   return out;
 }

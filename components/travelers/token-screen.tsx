@@ -33,17 +33,37 @@ export function TokenScreen({ token }: { token: string }) {
         <EmptyState
           title="Sign in to open this part."
           body="The label names a traveler. After you sign in it opens by itself."
-          action={<Button label="Sign in" testID="token-sign-in" onPress={() => { setPendingHref(labelHref); router.replace('/sign-in'); }} />}
+          action={
+            <Button
+              label="Sign in"
+              testID="token-sign-in"
+              onPress={() => {
+                setPendingHref(labelHref);
+                router.replace('/sign-in');
+              }}
+            />
+          }
         />
       </Screen>
     );
   }
   if (token.length < 4) {
-    return <Screen title="Scanned label" backTo="/"><EmptyState title="This label link is incomplete." body="Scan the label again, or type the short code on the bench." /></Screen>;
+    return (
+      <Screen title="Scanned label" backTo="/">
+        <EmptyState
+          title="This label link is incomplete."
+          body="Scan the label again, or type the short code on the bench."
+        />
+      </Screen>
+    );
   }
   return (
     <Screen title="Scanned label" backTo="/">
-      {q.isError ? <ErrorState error={q.error} title="No part for this label" onRetry={() => void q.refetch()} /> : <LoadingState what="Finding the part" />}
+      {q.isError ? (
+        <ErrorState error={q.error} title="No part for this label" onRetry={() => void q.refetch()} />
+      ) : (
+        <LoadingState what="Finding the part" />
+      )}
     </Screen>
   );
 }

@@ -25,7 +25,9 @@ export function travelerCardLabel(t: TravelerSummary): string {
     t.openFindings ? `${t.openFindings} open finding${t.openFindings === 1 ? '' : 's'}` : null,
     t.newerRevision ? `revision ${t.newerRevision} is out` : null,
     t.signedOff ? 'signed off' : null,
-  ].filter(Boolean).join(', ');
+  ]
+    .filter(Boolean)
+    .join(', ');
 }
 
 export function TravelerCard({ t, onPress }: { t: TravelerSummary; onPress: () => void }) {
@@ -37,16 +39,32 @@ export function TravelerCard({ t, onPress }: { t: TravelerSummary; onPress: () =
       accessibilityRole="button"
       accessibilityLabel={travelerCardLabel(t)}
       onPress={onPress}
-      style={({ pressed }) => [styles.row, t.replaced && styles.replaced, pressed && { backgroundColor: colors.accentSoft }]}
+      style={({ pressed }) => [
+        styles.row,
+        t.replaced && styles.replaced,
+        pressed && { backgroundColor: colors.accentSoft },
+      ]}
     >
       <View style={{ flex: 1, gap: 2 }}>
-        <Txt bold><Mono bold>{t.partNumber}</Mono> {t.partName}</Txt>
+        <Txt bold>
+          <Mono bold>{t.partNumber}</Mono> {t.partName}
+        </Txt>
         <Txt variant="small" tone="soft">
-          Rev <Mono variant="small" bold>{t.letter}</Mono> · <Mono variant="small">{t.serial}</Mono> · code <Mono variant="small" bold>{t.shortCode}</Mono> · build {t.kitSerial}
+          Rev{' '}
+          <Mono variant="small" bold>
+            {t.letter}
+          </Mono>{' '}
+          · <Mono variant="small">{t.serial}</Mono> · code{' '}
+          <Mono variant="small" bold>
+            {t.shortCode}
+          </Mono>{' '}
+          · build {t.kitSerial}
         </Txt>
         <View style={styles.bar}>
           <View style={[styles.fill, { width: `${frac * 100}%` }]} />
-          {waitFrac > 0 ? <View style={[styles.wait, { left: `${frac * 100}%`, width: `${waitFrac * 100}%` }]} /> : null}
+          {waitFrac > 0 ? (
+            <View style={[styles.wait, { left: `${frac * 100}%`, width: `${waitFrac * 100}%` }]} />
+          ) : null}
         </View>
         <View style={styles.flags}>
           {t.replaced ? (
@@ -54,21 +72,57 @@ export function TravelerCard({ t, onPress }: { t: TravelerSummary; onPress: () =
               ✕ Replaced ({dispositionLabels[t.replaced.reason].toLowerCase()})
             </Txt>
           ) : null}
-          <Mono variant="small">{t.holesDone}/{t.holesTotal} holes done</Mono>
-          {t.holesAwaitingInspector ? <Mono variant="small" tone="soft">{t.holesAwaitingInspector} awaiting the inspector</Mono> : null}
-          {t.openFindings ? <Txt variant="small" bold tone="warning">▲ {t.openFindings} open finding{t.openFindings === 1 ? '' : 's'}</Txt> : null}
-          {t.newerRevision ? <Txt variant="small" bold tone="caution">Rev {t.newerRevision} is out</Txt> : null}
-          {t.signedOff ? <Txt variant="small" bold style={{ color: statusColors.accepted }}>Signed off</Txt> : null}
+          <Mono variant="small">
+            {t.holesDone}/{t.holesTotal} holes done
+          </Mono>
+          {t.holesAwaitingInspector ? (
+            <Mono variant="small" tone="soft">
+              {t.holesAwaitingInspector} awaiting the inspector
+            </Mono>
+          ) : null}
+          {t.openFindings ? (
+            <Txt variant="small" bold tone="warning">
+              ▲ {t.openFindings} open finding{t.openFindings === 1 ? '' : 's'}
+            </Txt>
+          ) : null}
+          {t.newerRevision ? (
+            <Txt variant="small" bold tone="caution">
+              Rev {t.newerRevision} is out
+            </Txt>
+          ) : null}
+          {t.signedOff ? (
+            <Txt variant="small" bold style={{ color: statusColors.accepted }}>
+              Signed off
+            </Txt>
+          ) : null}
         </View>
       </View>
-      <Txt tone="accent" bold aria-hidden>›</Txt>
+      <Txt tone="accent" bold aria-hidden>
+        ›
+      </Txt>
     </Pressable>
   );
 }
 
 const styles = StyleSheet.create({
-  row: { flexDirection: 'row', alignItems: 'center', gap: space.md, paddingVertical: space.md, paddingHorizontal: space.xs, minHeight: touch, borderBottomWidth: hairline, borderColor: colors.rule },
-  bar: { height: 6, overflow: 'hidden', backgroundColor: colors.paperSunk, borderWidth: hairline, borderColor: colors.ruleStrong, marginTop: space.xs },
+  row: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.md,
+    paddingVertical: space.md,
+    paddingHorizontal: space.xs,
+    minHeight: touch,
+    borderBottomWidth: hairline,
+    borderColor: colors.rule,
+  },
+  bar: {
+    height: 6,
+    overflow: 'hidden',
+    backgroundColor: colors.paperSunk,
+    borderWidth: hairline,
+    borderColor: colors.ruleStrong,
+    marginTop: space.xs,
+  },
   fill: { height: '100%', backgroundColor: statusColors.installed },
   wait: { position: 'absolute', top: 0, bottom: 0, backgroundColor: statusColors.reworked, opacity: 0.45 },
   replaced: { opacity: 0.75 },

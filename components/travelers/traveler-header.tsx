@@ -21,19 +21,51 @@ export function TravelerHeader({ t }: { t: TravelerDetail }) {
   return (
     <View style={{ gap: space.md }} testID="traveler-header">
       <View style={styles.grid}>
-        <Cell label="Part"><Mono bold testID="part-number">{t.partNumber}</Mono><Txt variant="small">{t.partName}</Txt></Cell>
-        <Cell label="Revision"><Mono bold variant="title" testID="revision-letter">{t.letter}</Mono></Cell>
-        <Cell label="Serial"><Mono testID="traveler-serial">{t.serial}</Mono><Mono variant="small" tone="soft">{t.shortCode}</Mono></Cell>
-        <Cell label="Material"><Txt>{t.material}</Txt><Txt variant="small" tone="soft">{partKindLabels[t.kind]}</Txt></Cell>
-        <Cell label="Gauge" testID="gauge"><Mono bold>{u.length(t.gaugeIn)}</Mono></Cell>
-        <Cell label="Rivet" testID="rivet-spec"><Mono bold>{t.rivetSpec}</Mono></Cell>
-        <Cell label="Drill" testID="drill"><Mono bold>{t.drillSize}</Mono><Mono variant="small">⌀ {u.length(t.drillDiameterIn)}</Mono></Cell>
-        <Cell label="Edge distance" testID="edge-distance"><Mono bold>{u.length(t.edgeDistanceIn)}</Mono></Cell>
-        <Cell label="Chord"><Mono>{u.length(t.chordIn)}</Mono></Cell>
+        <Cell label="Part">
+          <Mono bold testID="part-number">
+            {t.partNumber}
+          </Mono>
+          <Txt variant="small">{t.partName}</Txt>
+        </Cell>
+        <Cell label="Revision">
+          <Mono bold variant="title" testID="revision-letter">
+            {t.letter}
+          </Mono>
+        </Cell>
+        <Cell label="Serial">
+          <Mono testID="traveler-serial">{t.serial}</Mono>
+          <Mono variant="small" tone="soft">
+            {t.shortCode}
+          </Mono>
+        </Cell>
+        <Cell label="Material">
+          <Txt>{t.material}</Txt>
+          <Txt variant="small" tone="soft">
+            {partKindLabels[t.kind]}
+          </Txt>
+        </Cell>
+        <Cell label="Gauge" testID="gauge">
+          <Mono bold>{u.length(t.gaugeIn)}</Mono>
+        </Cell>
+        <Cell label="Rivet" testID="rivet-spec">
+          <Mono bold>{t.rivetSpec}</Mono>
+        </Cell>
+        <Cell label="Drill" testID="drill">
+          <Mono bold>{t.drillSize}</Mono>
+          <Mono variant="small">⌀ {u.length(t.drillDiameterIn)}</Mono>
+        </Cell>
+        <Cell label="Edge distance" testID="edge-distance">
+          <Mono bold>{u.length(t.edgeDistanceIn)}</Mono>
+        </Cell>
+        <Cell label="Chord">
+          <Mono>{u.length(t.chordIn)}</Mono>
+        </Cell>
       </View>
       <Txt variant="small" tone="soft" testID="approved-by">
-        {t.approvedByName ? `Revision ${t.letter} approved by ${t.approvedByName}.` : `Revision ${t.letter}: approver not recorded.`}
-        {' '}Build {t.kitSerial}.
+        {t.approvedByName
+          ? `Revision ${t.letter} approved by ${t.approvedByName}.`
+          : `Revision ${t.letter}: approver not recorded.`}{' '}
+        Build {t.kitSerial}.
       </Txt>
       {t.newerRevision ? (
         <Notice tone="caution" testID="newer-revision">
@@ -53,7 +85,13 @@ export function TravelerHeader({ t }: { t: TravelerDetail }) {
 const fitValues = (Platform.OS === 'web' ? { minWidth: 'min-content' } : {}) as ViewStyle;
 
 const styles = StyleSheet.create({
-  grid: { flexDirection: 'row', flexWrap: 'wrap', borderTopWidth: hairline, borderLeftWidth: hairline, borderColor: colors.ink },
+  grid: {
+    flexDirection: 'row',
+    flexWrap: 'wrap',
+    borderTopWidth: hairline,
+    borderLeftWidth: hairline,
+    borderColor: colors.ink,
+  },
   cell: {
     flexGrow: 1,
     flexBasis: 110,

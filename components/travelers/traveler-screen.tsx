@@ -1,7 +1,13 @@
 import { useRouter } from 'expo-router';
 import { useCallback, useMemo, useState } from 'react';
 import { View } from 'react-native';
-import { dispositionLabels, type Hole, type HoleStatus, type TickHolesInput, type TravelerDetail } from '@/db/contracts';
+import {
+  dispositionLabels,
+  type Hole,
+  type HoleStatus,
+  type TickHolesInput,
+  type TravelerDetail,
+} from '@/db/contracts';
 import { space } from '@/constants/theme';
 import { FindingRow } from '@/components/findings/finding-row';
 import { Button } from '@/components/ui/button';
@@ -13,7 +19,13 @@ import { HoleMark, holeStatusHelp, holeStatusLabels, HoleStatusLegend } from '@/
 import { Mono, Txt } from '@/components/ui/text';
 import { TwoPane } from '@/components/ui/two-pane';
 import { errorMessage } from '@/lib/api-client';
-import { countHoles, useTravelerQuery, useTravelerSignOffMutation, useTravelerStepMutation, useTravelerTickMutation } from '@/hooks/queries/travelers';
+import {
+  countHoles,
+  useTravelerQuery,
+  useTravelerSignOffMutation,
+  useTravelerStepMutation,
+  useTravelerTickMutation,
+} from '@/hooks/queries/travelers';
 import { usePendingTicks } from '@/hooks/use-tick-outbox';
 import { useFlash } from '@/hooks/use-flash';
 import { useUnits } from '@/hooks/use-units';
@@ -28,10 +40,18 @@ import { ZonesTable } from './zones-table';
 export function TravelerScreen({ travelerId }: { travelerId: string }) {
   const q = useTravelerQuery(travelerId);
   if (q.isPending) {
-    return <Screen title="Traveler" backTo="/travelers"><LoadingState what="Loading the traveler" /></Screen>;
+    return (
+      <Screen title="Traveler" backTo="/travelers">
+        <LoadingState what="Loading the traveler" />
+      </Screen>
+    );
   }
   if (q.isError) {
-    return <Screen title="Traveler" backTo="/travelers"><ErrorState error={q.error} onRetry={() => void q.refetch()} /></Screen>;
+    return (
+      <Screen title="Traveler" backTo="/travelers">
+        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+      </Screen>
+    );
   }
   return <TravelerBody t={q.data} />;
 }
@@ -65,29 +85,38 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
     for (const h of t.holes) c[h.status] = (c[h.status] ?? 0) + 1;
     return c;
   }, [t.holes]);
-  const focus = focusId ? t.holes.find((h) => h.holeId === focusId) ?? null : null;
+  const focus = focusId ? (t.holes.find((h) => h.holeId === focusId) ?? null) : null;
 
-  const send = useCallback((action: TickHolesInput) => {
-    setMessage(null);
-    tick.mutate(action, {
-      onError: (e) => setMessage({ tone: 'error', text: `Not saved: ${errorMessage(e)} The tick was taken back.` }),
-    });
-  }, [tick]);
+  const send = useCallback(
+    (action: TickHolesInput) => {
+      setMessage(null);
+      tick.mutate(action, {
+        onError: (e) => setMessage({ tone: 'error', text: `Not saved: ${errorMessage(e)} The tick was taken back.` }),
+      });
+    },
+    [tick],
+  );
 
-  const onHolePress = useCallback((h: Hole) => {
-    if (mode === 'run') {
-      setPick((p) => pickRunEnd(p, h));
-      return;
-    }
-    const r = toggleHole(h);
-    if (r.action) send(r.action);
-    else setMessage({ tone: 'info', text: r.reason ?? '' });
-  }, [mode, send]);
+  const onHolePress = useCallback(
+    (h: Hole) => {
+      if (mode === 'run') {
+        setPick((p) => pickRunEnd(p, h));
+        return;
+      }
+      const r = toggleHole(h);
+      if (r.action) send(r.action);
+      else setMessage({ tone: 'info', text: r.reason ?? '' });
+    },
+    [mode, send],
+  );
 
-  const onDrawingPress = useCallback((h: Hole) => {
-    if (mode === 'run') setPick((p) => pickRunEnd(p, h));
-    else setFocusId((f) => (f === h.holeId ? null : h.holeId));
-  }, [mode]);
+  const onDrawingPress = useCallback(
+    (h: Hole) => {
+      if (mode === 'run') setPick((p) => pickRunEnd(p, h));
+      else setFocusId((f) => (f === h.holeId ? null : h.holeId));
+    },
+    [mode],
+  );
 
   const flagHref = (holes?: string[]) =>
     `/travelers/${t.id}/flag${holes?.length ? `?holes=${encodeURIComponent(holes.join(','))}` : ''}` as const;
@@ -96,7 +125,9 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
     <>
       {t.replaced ? (
         <Notice tone="error" testID="replaced-by">
-          <Txt bold>This part was replaced ({dispositionLabels[t.replaced.reason].toLowerCase()}): work its replacement.</Txt>
+          <Txt bold>
+            This part was replaced ({dispositionLabels[t.replaced.reason].toLowerCase()}): work its replacement.
+          </Txt>
           <Txt>It stays in the record as it was; nothing more is done on it.</Txt>
           <Button
             label={t.replacedBy ? `Open the replacement, serial ${t.replacedBy.serial}` : 'Open the replacement'}
@@ -107,8 +138,16 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
       ) : null}
       {t.replaces ? (
         <Notice testID="replaces">
-          <Txt>This part replaces serial <Mono bold>{t.replaces.serial}</Mono>, taken out of the build after a finding.</Txt>
-          <Button label="Open the part it replaces" variant="quiet" compact onPress={() => router.push(`/travelers/${t.replaces!.id}`)} testID="replaces-open" />
+          <Txt>
+            This part replaces serial <Mono bold>{t.replaces.serial}</Mono>, taken out of the build after a finding.
+          </Txt>
+          <Button
+            label="Open the part it replaces"
+            variant="quiet"
+            compact
+            onPress={() => router.push(`/travelers/${t.replaces!.id}`)}
+            testID="replaces-open"
+          />
         </Notice>
       ) : null}
       <TravelerHeader t={t} />
@@ -116,34 +155,55 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
         // Focused when it appears: the sign-off button it replaces had focus.
         <Notice tone="ok" testID="signed-off" focusOnShow={signOff.isSuccess}>
           <Txt>
-            Signed off{t.signedOffByName ? ` by ${t.signedOffByName}` : ''}{t.signedOffAt ? ` on ${new Date(t.signedOffAt).toLocaleString()}` : ''}.
+            Signed off{t.signedOffByName ? ` by ${t.signedOffByName}` : ''}
+            {t.signedOffAt ? ` on ${new Date(t.signedOffAt).toLocaleString()}` : ''}.
           </Txt>
           {canWithdraw ? <WithdrawSignOff travelerId={t.id} /> : null}
         </Notice>
       ) : null}
-      <Section title="Drawing" aside={<Txt variant="small" tone="faint">Leading edge at left · stations in {units.label('length')}</Txt>}>
+      <Section
+        title="Drawing"
+        aside={
+          <Txt variant="small" tone="faint">
+            Leading edge at left · stations in {units.label('length')}
+          </Txt>
+        }
+      >
         <PartDrawing detail={t} runIds={runIds} focusId={focusId} onHolePress={onDrawingPress} />
         <HoleStatusLegend counts={counts} />
         {focus ? (
           <Sheet testID="hole-focus">
             <View style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm }}>
               <HoleMark status={focus.status} size={24} decorative />
-              <Mono bold variant="heading">{focus.holeId}</Mono>
-              <Txt>{holeStatusLabels[focus.status]}: {holeStatusHelp[focus.status]}</Txt>
+              <Mono bold variant="heading">
+                {focus.holeId}
+              </Mono>
+              <Txt>
+                {holeStatusLabels[focus.status]}: {holeStatusHelp[focus.status]}
+              </Txt>
             </View>
             <Txt variant="small" tone="soft">
-              Line {focus.line} · station <Mono variant="small">{units.length(focus.stationIn)}</Mono> from the line’s start
+              Line {focus.line} · station <Mono variant="small">{units.length(focus.stationIn)}</Mono> from the line’s
+              start
             </Txt>
             <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
               {canTick && (focus.status === 'pending' || focus.status === 'installed') ? (
                 <Button
                   label={focus.status === 'pending' ? 'Tick in' : 'Take tick off'}
-                  onPress={() => { const r = toggleHole(focus); if (r.action) send(r.action); }}
+                  onPress={() => {
+                    const r = toggleHole(focus);
+                    if (r.action) send(r.action);
+                  }}
                   testID="focus-tick"
                 />
               ) : null}
               {canRaise ? (
-                <Button label="Flag this hole" variant="secondary" onPress={() => router.push(flagHref([focus.holeId]))} testID="flag-this-hole" />
+                <Button
+                  label="Flag this hole"
+                  variant="secondary"
+                  onPress={() => router.push(flagHref([focus.holeId]))}
+                  testID="flag-this-hole"
+                />
               ) : null}
               <Button label="Close" variant="quiet" onPress={() => setFocusId(null)} testID="focus-close" />
             </View>
@@ -163,7 +223,16 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
         <Notice tone="ok" testID="finding-sent" focusOnShow>
           <Txt>Finding sent. Whoever acts on it next has been told by e-mail.</Txt>
           <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-            <Button label="See the finding" variant="quiet" compact onPress={() => { clearSent(); router.push(`/findings/${sentFindingId}`); }} testID="open-sent-finding" />
+            <Button
+              label="See the finding"
+              variant="quiet"
+              compact
+              onPress={() => {
+                clearSent();
+                router.push(`/findings/${sentFindingId}`);
+              }}
+              testID="open-sent-finding"
+            />
             <Button label="OK" variant="quiet" compact onPress={clearSent} testID="dismiss-sent" />
           </View>
         </Notice>
@@ -181,7 +250,12 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
       ) : null}
       <ProgressBar done={progress.done} awaiting={progress.awaiting} total={t.holes.length} />
       {canRaise ? (
-        <Button label="Flag a hole" variant="danger" onPress={() => router.push(flagHref(focusId ? [focusId] : undefined))} testID="flag-hole" />
+        <Button
+          label="Flag a hole"
+          variant="danger"
+          onPress={() => router.push(flagHref(focusId ? [focusId] : undefined))}
+          testID="flag-hole"
+        />
       ) : null}
       <Section title="Holes">
         <HolesPanel
@@ -194,8 +268,15 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
           plan={plan}
           focusId={focusId}
           onHolePress={onHolePress}
-          onStartRun={() => { setMode('run'); setPick(null); setMessage(null); }}
-          onCancelRun={() => { setMode('tap'); setPick(null); }}
+          onStartRun={() => {
+            setMode('run');
+            setPick(null);
+            setMessage(null);
+          }}
+          onCancelRun={() => {
+            setMode('tap');
+            setPick(null);
+          }}
           onTickRun={() => {
             if (plan?.action) for (const batch of tickBatches(plan.action)) send(batch);
             setMode('tap');
@@ -208,9 +289,14 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
         <StepsList
           steps={t.steps}
           canToggle={canStep}
-          onToggle={(s) => step.mutate({ stepId: s.id, done: !s.doneAt }, {
-            onError: (e) => setMessage({ tone: 'error', text: `Step not saved: ${errorMessage(e)}` }),
-          })}
+          onToggle={(s) =>
+            step.mutate(
+              { stepId: s.id, done: !s.doneAt },
+              {
+                onError: (e) => setMessage({ tone: 'error', text: `Step not saved: ${errorMessage(e)}` }),
+              },
+            )
+          }
         />
       </Section>
       <Section title="Findings on this part">
@@ -221,12 +307,25 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
             ))}
           </View>
         ) : (
-          <EmptyState title="No findings." body={canRaise ? 'If a hole looks wrong, flag it with a photo.' : undefined} />
+          <EmptyState
+            title="No findings."
+            body={canRaise ? 'If a hole looks wrong, flag it with a photo.' : undefined}
+          />
         )}
       </Section>
-      <Button label={`Build log of kit ${t.kitSerial}`} variant="quiet" onPress={() => router.push(`/builds/${t.buildId}/log`)} testID="traveler-build-log" />
+      <Button
+        label={`Build log of kit ${t.kitSerial}`}
+        variant="quiet"
+        onPress={() => router.push(`/builds/${t.buildId}/log`)}
+        testID="traveler-build-log"
+      />
       {t.labelAllowed ? (
-        <Button label="Print this part’s label again" variant="quiet" onPress={() => router.push(`/travelers/${t.id}/label`)} testID="traveler-label" />
+        <Button
+          label="Print this part’s label again"
+          variant="quiet"
+          onPress={() => router.push(`/travelers/${t.id}/label`)}
+          testID="traveler-label"
+        />
       ) : null}
       {canSignOff || (t.place === 'inspector' && !t.signedOff) ? (
         <Section title="Sign-off">
@@ -259,19 +358,39 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
  * The inspector's sign-off: the button when the server says the part may be signed off now; otherwise
  * why not, in the rules module's words (holes, steps, findings still open).
  */
-function SignOff({ can, reasons, busy, error, onSignOff }: {
-  can: boolean; reasons: string[]; busy: boolean; error: unknown; onSignOff: () => void;
+function SignOff({
+  can,
+  reasons,
+  busy,
+  error,
+  onSignOff,
+}: {
+  can: boolean;
+  reasons: string[];
+  busy: boolean;
+  error: unknown;
+  onSignOff: () => void;
 }) {
   return (
     <View style={{ gap: space.sm }}>
-      {can ? <Txt>Every hole and step is done and every finding is closed.</Txt> : (
+      {can ? (
+        <Txt>Every hole and step is done and every finding is closed.</Txt>
+      ) : (
         <View style={{ gap: space.xs }} testID="readiness-reasons">
           <Txt bold>Not ready to sign off:</Txt>
-          {reasons.map((r, i) => <Txt key={i}>– {r}</Txt>)}
+          {reasons.map((r, i) => (
+            <Txt key={i}>– {r}</Txt>
+          ))}
         </View>
       )}
-      {error ? <Notice tone="error" testID="sign-off-error">{errorMessage(error)}</Notice> : null}
-      {can ? <Button label="Sign off this part" busyLabel="Signing off" busy={busy} onPress={onSignOff} testID="sign-off" /> : null}
+      {error ? (
+        <Notice tone="error" testID="sign-off-error">
+          {errorMessage(error)}
+        </Notice>
+      ) : null}
+      {can ? (
+        <Button label="Sign off this part" busyLabel="Signing off" busy={busy} onPress={onSignOff} testID="sign-off" />
+      ) : null}
     </View>
   );
 }

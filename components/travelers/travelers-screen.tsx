@@ -51,40 +51,56 @@ export function TravelersScreen() {
 
   return (
     <Screen title="Parts" subtitle="The travelers of your builds" account scroll={false} testID="travelers-screen">
-      {q.isPending ? <LoadingState what="Loading parts" />
-        : q.isError ? <ErrorState error={q.error} onRetry={() => void q.refetch()} />
-          : (
-            <FlatList
-              data={rows}
-              keyExtractor={(r) => r.id}
-              renderItem={({ item }) => <TravelerCard t={item} onPress={() => router.push(`/travelers/${item.id}`)} />}
-              ListHeaderComponent={
-                <View style={{ gap: space.md, paddingBottom: space.md }}>
-                  <Choice
-                    testIDPrefix="parts-show"
-                    value={show}
-                    onChange={setShow}
-                    options={[{ value: 'open', label: 'In progress' }, { value: 'signed', label: 'Signed off' }, { value: 'all', label: 'All' }]}
-                  />
-                  <TextBox value={text} onChangeText={setText} placeholder="Find by part, serial or code" testID="parts-search" accessibilityLabel="Find a part" />
-                </View>
-              }
-              ListEmptyComponent={
-                <EmptyState
-                  title={filtered ? 'Nothing matches.' : 'No parts yet.'}
-                  body={filtered ? 'Try another filter or search.' : 'Parts appear here when a supplier ships you a build.'}
-                />
-              }
-              ListFooterComponent={
-                <LoadMore
-                  hasNextPage={q.hasNextPage} isFetchingNextPage={q.isFetchingNextPage} fetchNextPage={q.fetchNextPage}
-                  shown={rows.length} what="parts" testID="parts-more"
-                />
-              }
-              refreshing={q.isRefetching && !q.isFetchingNextPage}
-              onRefresh={() => void q.refetch()}
+      {q.isPending ? (
+        <LoadingState what="Loading parts" />
+      ) : q.isError ? (
+        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
+      ) : (
+        <FlatList
+          data={rows}
+          keyExtractor={(r) => r.id}
+          renderItem={({ item }) => <TravelerCard t={item} onPress={() => router.push(`/travelers/${item.id}`)} />}
+          ListHeaderComponent={
+            <View style={{ gap: space.md, paddingBottom: space.md }}>
+              <Choice
+                testIDPrefix="parts-show"
+                value={show}
+                onChange={setShow}
+                options={[
+                  { value: 'open', label: 'In progress' },
+                  { value: 'signed', label: 'Signed off' },
+                  { value: 'all', label: 'All' },
+                ]}
+              />
+              <TextBox
+                value={text}
+                onChangeText={setText}
+                placeholder="Find by part, serial or code"
+                testID="parts-search"
+                accessibilityLabel="Find a part"
+              />
+            </View>
+          }
+          ListEmptyComponent={
+            <EmptyState
+              title={filtered ? 'Nothing matches.' : 'No parts yet.'}
+              body={filtered ? 'Try another filter or search.' : 'Parts appear here when a supplier ships you a build.'}
             />
-          )}
+          }
+          ListFooterComponent={
+            <LoadMore
+              hasNextPage={q.hasNextPage}
+              isFetchingNextPage={q.isFetchingNextPage}
+              fetchNextPage={q.fetchNextPage}
+              shown={rows.length}
+              what="parts"
+              testID="parts-more"
+            />
+          }
+          refreshing={q.isRefetching && !q.isFetchingNextPage}
+          onRefresh={() => void q.refetch()}
+        />
+      )}
     </Screen>
   );
 }

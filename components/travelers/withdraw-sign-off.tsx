@@ -12,7 +12,7 @@ import { useTravelerWithdrawSignOffMutation } from '@/hooks/queries/travelers';
 /** The contract's own words for a reason it refuses (too short, too long, a control character). */
 function reasonProblem(reason: string): string | null {
   const r = withdrawSignOffInput.safeParse({ reason });
-  return r.success ? null : r.error.issues[0]?.message ?? 'check the reason';
+  return r.success ? null : (r.error.issues[0]?.message ?? 'check the reason');
 }
 
 /**
@@ -29,7 +29,15 @@ export function WithdrawSignOff({ travelerId, onDone }: { travelerId: string; on
 
   if (!open) {
     return (
-      <Button label="Withdraw sign-off…" variant="secondary" onPress={() => { setOpen(true); withdraw.reset(); }} testID="withdraw-sign-off" />
+      <Button
+        label="Withdraw sign-off…"
+        variant="secondary"
+        onPress={() => {
+          setOpen(true);
+          withdraw.reset();
+        }}
+        testID="withdraw-sign-off"
+      />
     );
   }
 
@@ -37,13 +45,21 @@ export function WithdrawSignOff({ travelerId, onDone }: { travelerId: string; on
     setTouched(true);
     setServerError(null);
     if (problem) return;
-    withdraw.mutate({ reason: reason.trim() }, {
-      onSuccess: () => { setOpen(false); setReason(''); setTouched(false); onDone?.(); },
-      onError: (e) => {
-        const field = e instanceof ApiError ? e.fields?.reason : undefined;
-        setServerError(field ?? errorMessage(e));
+    withdraw.mutate(
+      { reason: reason.trim() },
+      {
+        onSuccess: () => {
+          setOpen(false);
+          setReason('');
+          setTouched(false);
+          onDone?.();
+        },
+        onError: (e) => {
+          const field = e instanceof ApiError ? e.fields?.reason : undefined;
+          setServerError(field ?? errorMessage(e));
+        },
       },
-    });
+    );
   };
 
   return (
@@ -53,10 +69,18 @@ export function WithdrawSignOff({ travelerId, onDone }: { travelerId: string; on
         The part opens again for work and a new sign-off. The sign-off stays in the build log; the withdrawal and your
         reason are added after it, and the builders are told by e-mail.
       </Txt>
-      <Field label="Reason" hint="Say what you found, in a few words: the builders read it." error={touched && problem ? problem : undefined} testID="withdraw-reason-field">
+      <Field
+        label="Reason"
+        hint="Say what you found, in a few words: the builders read it."
+        error={touched && problem ? problem : undefined}
+        testID="withdraw-reason-field"
+      >
         <TextBox
           value={reason}
-          onChangeText={(v) => { setReason(v); setTouched(true); }}
+          onChangeText={(v) => {
+            setReason(v);
+            setTouched(true);
+          }}
           multiline
           maxLength={1000}
           invalid={touched && !!problem}
@@ -64,10 +88,29 @@ export function WithdrawSignOff({ travelerId, onDone }: { travelerId: string; on
           testID="withdraw-reason"
         />
       </Field>
-      {serverError ? <Notice tone="error" testID="withdraw-error">{serverError}</Notice> : null}
+      {serverError ? (
+        <Notice tone="error" testID="withdraw-error">
+          {serverError}
+        </Notice>
+      ) : null}
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-        <Button label="Withdraw the sign-off" busyLabel="Withdrawing" variant="danger" busy={withdraw.isPending} onPress={send} testID="withdraw-confirm" />
-        <Button label="Keep it signed off" variant="quiet" onPress={() => { setOpen(false); setServerError(null); }} testID="withdraw-cancel" />
+        <Button
+          label="Withdraw the sign-off"
+          busyLabel="Withdrawing"
+          variant="danger"
+          busy={withdraw.isPending}
+          onPress={send}
+          testID="withdraw-confirm"
+        />
+        <Button
+          label="Keep it signed off"
+          variant="quiet"
+          onPress={() => {
+            setOpen(false);
+            setServerError(null);
+          }}
+          testID="withdraw-cancel"
+        />
       </View>
     </View>
   );

@@ -25,25 +25,37 @@ export function ZonesTable({ lines, holes }: { lines: FastenerLine[]; holes?: Ho
           <View key={line.code} style={{ gap: space.xs }} testID={`zones-${line.code}`}>
             <Txt bold>
               <Mono bold>{line.code}</Mono> {line.name}
-              <Txt variant="small" tone="soft"> · {surfaceWords[line.surface]} · starts <Mono variant="small">{u.length(line.startIn)}</Mono> aft · <Mono variant="small">{u.length(line.lengthIn)}</Mono> long</Txt>
+              <Txt variant="small" tone="soft">
+                {' '}
+                · {surfaceWords[line.surface]} · starts <Mono variant="small">{u.length(line.startIn)}</Mono> aft ·{' '}
+                <Mono variant="small">{u.length(line.lengthIn)}</Mono> long
+              </Txt>
             </Txt>
             <GridTable
               label={`Pitch schedule of line ${line.code}`}
               columns={columns}
-              rows={[...line.zones].sort((a, b) => a.fromIn - b.fromIn).map((z, i) => {
-                const n = onLine.filter((h) => h.stationIn >= z.fromIn - 1e-9 && (h.stationIn < z.toIn - 1e-9 || (z.toIn >= line.lengthIn - 1e-9 && h.stationIn <= z.toIn + 1e-9))).length;
-                return {
-                  key: String(i),
-                  cells: {
-                    from: <Mono>{u.station(z.fromIn)}</Mono>,
-                    to: <Mono>{u.station(z.toIn)}</Mono>,
-                    pitch: <Mono bold>{u.lengthNumber(z.pitchIn)}</Mono>,
-                    n: <Mono>{n}</Mono>,
-                  },
-                };
-              })}
+              rows={[...line.zones]
+                .sort((a, b) => a.fromIn - b.fromIn)
+                .map((z, i) => {
+                  const n = onLine.filter(
+                    (h) =>
+                      h.stationIn >= z.fromIn - 1e-9 &&
+                      (h.stationIn < z.toIn - 1e-9 || (z.toIn >= line.lengthIn - 1e-9 && h.stationIn <= z.toIn + 1e-9)),
+                  ).length;
+                  return {
+                    key: String(i),
+                    cells: {
+                      from: <Mono>{u.station(z.fromIn)}</Mono>,
+                      to: <Mono>{u.station(z.toIn)}</Mono>,
+                      pitch: <Mono bold>{u.lengthNumber(z.pitchIn)}</Mono>,
+                      n: <Mono>{n}</Mono>,
+                    },
+                  };
+                })}
             />
-            <Txt variant="small" tone="soft">Stations in {lu} from the line’s start.</Txt>
+            <Txt variant="small" tone="soft">
+              Stations in {lu} from the line’s start.
+            </Txt>
           </View>
         );
       })}

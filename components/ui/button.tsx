@@ -1,5 +1,13 @@
 import { forwardRef } from 'react';
-import { ActivityIndicator, Pressable, StyleSheet, View, type PressableProps, type StyleProp, type ViewStyle } from 'react-native';
+import {
+  ActivityIndicator,
+  Pressable,
+  StyleSheet,
+  View,
+  type PressableProps,
+  type StyleProp,
+  type ViewStyle,
+} from 'react-native';
 import { colors, fonts, radius, space, touch, type as typeScale } from '@/constants/theme';
 import { installFocusRing } from './focus-ring';
 import { Txt } from './text';
@@ -21,7 +29,22 @@ type Props = Omit<PressableProps, 'children' | 'style'> & {
   selected?: boolean;
 };
 
-export const Button = forwardRef<View, Props>(function Button({ label, variant = 'primary', busy, busyLabel, disabled, compact, icon, style, selected, accessibilityLabel, ...rest }, ref) {
+export const Button = forwardRef<View, Props>(function Button(
+  {
+    label,
+    variant = 'primary',
+    busy,
+    busyLabel,
+    disabled,
+    compact,
+    icon,
+    style,
+    selected,
+    accessibilityLabel,
+    ...rest
+  },
+  ref,
+) {
   const off = disabled || busy;
   const filled = variant === 'primary' || variant === 'danger' || selected;
   const bg = variant === 'danger' ? colors.error : colors.accent;
@@ -49,10 +72,7 @@ export const Button = forwardRef<View, Props>(function Button({ label, variant =
     >
       <View style={styles.row}>
         {busy ? <ActivityIndicator size="small" color={filled ? colors.accentInk : colors.accent} /> : icon}
-        <Txt
-          numberOfLines={2}
-          style={[styles.text, { color: filled ? colors.accentInk : colors.accent }]}
-        >
+        <Txt numberOfLines={2} style={[styles.text, { color: filled ? colors.accentInk : colors.accent }]}>
           {busy && busyLabel ? busyLabel : label}
         </Txt>
       </View>

@@ -10,8 +10,12 @@ export const cautionText =
 export function Caution({ text = cautionText, testID = 'caution' }: { text?: string; testID?: string }) {
   return (
     <View style={styles.box} testID={testID} accessibilityRole="text">
-      <Txt variant="small" bold tone="caution">Caution</Txt>
-      <Txt variant="small" tone="caution" style={{ flex: 1 }}>{text}</Txt>
+      <Txt variant="small" bold tone="caution">
+        Caution
+      </Txt>
+      <Txt variant="small" tone="caution" style={{ flex: 1 }}>
+        {text}
+      </Txt>
     </View>
   );
 }

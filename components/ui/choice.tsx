@@ -11,7 +11,15 @@ export type ChoiceOption<T extends string> = { value: T; label: string; hint?: s
  * testID is `${testIDPrefix}-${value}` (or its `key`). `label` names the group for a screen reader
  * (a Field's label above it, or what the chips choose: "Zoom").
  */
-export function Choice<T extends string>({ options, value, onChange, testIDPrefix, invalid, columns, label }: {
+export function Choice<T extends string>({
+  options,
+  value,
+  onChange,
+  testIDPrefix,
+  invalid,
+  columns,
+  label,
+}: {
   options: readonly ChoiceOption<T>[];
   value: T | null | undefined;
   onChange: (v: T) => void;
@@ -45,8 +53,14 @@ export function Choice<T extends string>({ options, value, onChange, testIDPrefi
               pressed && { opacity: 0.75 },
             ]}
           >
-            <Txt bold={on} tone={on ? 'inverse' : 'ink'}>{o.label}</Txt>
-            {o.hint ? <Txt variant="small" tone={on ? 'inverse' : 'faint'}>{o.hint}</Txt> : null}
+            <Txt bold={on} tone={on ? 'inverse' : 'ink'}>
+              {o.label}
+            </Txt>
+            {o.hint ? (
+              <Txt variant="small" tone={on ? 'inverse' : 'faint'}>
+                {o.hint}
+              </Txt>
+            ) : null}
           </Toggle>
         );
       })}
@@ -55,11 +69,21 @@ export function Choice<T extends string>({ options, value, onChange, testIDPrefi
 }
 
 /** Several chips on/off: each a checkbox, by tap, Enter or Space. */
-export function MultiChoice<T extends string>({ options, values, onToggle, testIDPrefix, label }: {
-  options: readonly ChoiceOption<T>[]; values: readonly T[]; onToggle: (v: T) => void; testIDPrefix: string; label?: string;
+export function MultiChoice<T extends string>({
+  options,
+  values,
+  onToggle,
+  testIDPrefix,
+  label,
+}: {
+  options: readonly ChoiceOption<T>[];
+  values: readonly T[];
+  onToggle: (v: T) => void;
+  testIDPrefix: string;
+  label?: string;
 }) {
   return (
-    <View style={styles.row} accessibilityRole={label ? 'group' as never : undefined} accessibilityLabel={label}>
+    <View style={styles.row} accessibilityRole={label ? ('group' as never) : undefined} accessibilityLabel={label}>
       {options.map((o) => {
         const on = values.includes(o.value);
         return (
@@ -72,7 +96,9 @@ export function MultiChoice<T extends string>({ options, values, onToggle, testI
             onPress={() => onToggle(o.value)}
             style={({ pressed }) => [styles.chip, on && styles.on, pressed && { opacity: 0.75 }]}
           >
-            <Txt bold={on} tone={on ? 'inverse' : 'ink'}>{o.label}</Txt>
+            <Txt bold={on} tone={on ? 'inverse' : 'ink'}>
+              {o.label}
+            </Txt>
           </Toggle>
         );
       })}

@@ -21,22 +21,41 @@ export function Field({ label, hint, error, unit, children, testID }: FieldProps
   return (
     <View style={styles.field} testID={testID}>
       <View style={styles.labelRow}>
-        <Txt variant="small" bold style={{ flex: 1 }}>{label}</Txt>
-        {unit ? <Txt variant="small" tone="faint">{unit}</Txt> : null}
+        <Txt variant="small" bold style={{ flex: 1 }}>
+          {label}
+        </Txt>
+        {unit ? (
+          <Txt variant="small" tone="faint">
+            {unit}
+          </Txt>
+        ) : null}
       </View>
       {children}
       {error ? (
-        <Txt variant="small" tone="error" accessibilityRole="alert" accessibilityLiveRegion="polite" testID={testID ? `${testID}-error` : undefined}>
+        <Txt
+          variant="small"
+          tone="error"
+          accessibilityRole="alert"
+          accessibilityLiveRegion="polite"
+          testID={testID ? `${testID}-error` : undefined}
+        >
           {error}
         </Txt>
-      ) : hint ? <Txt variant="small" tone="faint">{hint}</Txt> : null}
+      ) : hint ? (
+        <Txt variant="small" tone="faint">
+          {hint}
+        </Txt>
+      ) : null}
     </View>
   );
 }
 
 export type TextBoxProps = TextInputProps & { invalid?: boolean; mono?: boolean };
 
-export const TextBox = forwardRef<TextInput, TextBoxProps>(function TextBox({ invalid, mono, style, multiline, ...rest }, ref) {
+export const TextBox = forwardRef<TextInput, TextBoxProps>(function TextBox(
+  { invalid, mono, style, multiline, ...rest },
+  ref,
+) {
   return (
     <TextInput
       ref={ref}
@@ -72,12 +91,29 @@ const styles = StyleSheet.create({
 });
 
 /** The "Find" box of a list: narrows what is shown as the person types. */
-export function FindField({ value, onChange, placeholder, where, testID }: {
-  value: string; onChange: (text: string) => void; placeholder: string; where: string; testID: string;
+export function FindField({
+  value,
+  onChange,
+  placeholder,
+  where,
+  testID,
+}: {
+  value: string;
+  onChange: (text: string) => void;
+  placeholder: string;
+  where: string;
+  testID: string;
 }) {
   return (
     <Field label="Find">
-      <TextBox value={value} onChangeText={onChange} placeholder={placeholder} testID={testID} accessibilityLabel={`Find in ${where}`} autoCorrect={false} />
+      <TextBox
+        value={value}
+        onChangeText={onChange}
+        placeholder={placeholder}
+        testID={testID}
+        accessibilityLabel={`Find in ${where}`}
+        autoCorrect={false}
+      />
     </Field>
   );
 }

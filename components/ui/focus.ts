@@ -10,7 +10,8 @@ export function moveFocusTo(node: unknown, opts: { scroll?: boolean } = {}): voi
   if (Platform.OS !== 'web' || !node) return;
   const el = node as HTMLElement;
   if (typeof el.focus !== 'function') return;
-  if (!el.hasAttribute?.('tabindex') && !/^(A|BUTTON|INPUT|SELECT|TEXTAREA)$/.test(el.tagName)) el.setAttribute('tabindex', '-1');
+  if (!el.hasAttribute?.('tabindex') && !/^(A|BUTTON|INPUT|SELECT|TEXTAREA)$/.test(el.tagName))
+    el.setAttribute('tabindex', '-1');
   el.focus({ preventScroll: !opts.scroll });
   if (opts.scroll) el.scrollIntoView?.({ block: 'nearest' });
 }
@@ -53,7 +54,8 @@ const FOCUSABLE = 'a[href], button, input, select, textarea, [tabindex]:not([tab
  */
 export function keepScrollReachable(scrollView: unknown, label: string): void {
   if (Platform.OS !== 'web') return;
-  const node = (scrollView as { getScrollableNode?: () => unknown } | null)?.getScrollableNode?.() as HTMLElement | undefined;
+  const node = (scrollView as { getScrollableNode?: () => unknown } | null)?.getScrollableNode?.() as
+    HTMLElement | undefined;
   if (!node?.querySelector) return;
   const own = node.dataset.scrollReachable === 'yes';
   if (node.querySelector(FOCUSABLE)) {

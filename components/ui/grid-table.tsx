@@ -31,8 +31,17 @@ const BLOCK_WIDTH = 280;
  * the last columns, with no hint). Table and list roles, so a screen reader reads each value with its
  * column's name.
  */
-export function GridTable({ columns, rows, label, testID, fold }: {
-  columns: GridColumn[]; rows: GridRow[]; label: string; testID?: string;
+export function GridTable({
+  columns,
+  rows,
+  label,
+  testID,
+  fold,
+}: {
+  columns: GridColumn[];
+  rows: GridRow[];
+  label: string;
+  testID?: string;
   /**
    * Stacked, list this many rows (and any row to keep) and the rest on request: ten ribs' blocks of ten
    * figures each buried what follows them on a phone.
@@ -50,29 +59,34 @@ export function GridTable({ columns, rows, label, testID, fold }: {
     const listed = folds && !all ? rows.filter((r, i) => i < fold || r.keep) : rows;
     return (
       <View onLayout={onLayout} testID={testID} style={{ gap: space.sm }}>
-      <View role="list" aria-label={label} style={[styles.stack, width >= 2 * BLOCK_WIDTH && styles.stackWide]}>
-        {listed.map((r) => (
-          <View key={r.key} testID={r.testID} role="listitem" style={[styles.block, width >= 2 * BLOCK_WIDTH && styles.blockWide]}>
-            {columns.map((c) => (
-              <View key={c.key} style={styles.pair}>
-                <Label style={styles.pairName}>{c.title}</Label>
-                <View style={styles.pairValue}>{r.cells[c.key]}</View>
-              </View>
-            ))}
-          </View>
-        ))}
-      </View>
-      {folds ? (
-        <Button
-          label={all ? `Show the first ${fold}` : `Show all ${rows.length}`}
-          variant="secondary"
-          compact
-          onPress={() => setAll((a) => !a)}
-          testID={testID ? `${testID}-show-all` : undefined}
-          accessibilityLabel={all ? `${label}: show the first ${fold}` : `${label}: show all ${rows.length}`}
-          style={{ alignSelf: 'flex-start' }}
-        />
-      ) : null}
+        <View role="list" aria-label={label} style={[styles.stack, width >= 2 * BLOCK_WIDTH && styles.stackWide]}>
+          {listed.map((r) => (
+            <View
+              key={r.key}
+              testID={r.testID}
+              role="listitem"
+              style={[styles.block, width >= 2 * BLOCK_WIDTH && styles.blockWide]}
+            >
+              {columns.map((c) => (
+                <View key={c.key} style={styles.pair}>
+                  <Label style={styles.pairName}>{c.title}</Label>
+                  <View style={styles.pairValue}>{r.cells[c.key]}</View>
+                </View>
+              ))}
+            </View>
+          ))}
+        </View>
+        {folds ? (
+          <Button
+            label={all ? `Show the first ${fold}` : `Show all ${rows.length}`}
+            variant="secondary"
+            compact
+            onPress={() => setAll((a) => !a)}
+            testID={testID ? `${testID}-show-all` : undefined}
+            accessibilityLabel={all ? `${label}: show the first ${fold}` : `${label}: show all ${rows.length}`}
+            style={{ alignSelf: 'flex-start' }}
+          />
+        ) : null}
       </View>
     );
   }
@@ -89,7 +103,11 @@ export function GridTable({ columns, rows, label, testID, fold }: {
       {rows.map((r) => (
         <View key={r.key} role="row" style={styles.row} testID={r.testID}>
           {columns.map((c) => (
-            <View key={c.key} role="cell" style={[styles.cell, { width: c.width, flexGrow: c.width }, c.align === 'right' && styles.right]}>
+            <View
+              key={c.key}
+              role="cell"
+              style={[styles.cell, { width: c.width, flexGrow: c.width }, c.align === 'right' && styles.right]}
+            >
               {r.cells[c.key]}
             </View>
           ))}
@@ -97,12 +115,22 @@ export function GridTable({ columns, rows, label, testID, fold }: {
       ))}
     </View>
   );
-  return <View onLayout={onLayout} testID={testID}>{table}</View>;
+  return (
+    <View onLayout={onLayout} testID={testID}>
+      {table}
+    </View>
+  );
 }
 
 const styles = StyleSheet.create({
   table: { borderTopWidth: hairline, borderColor: colors.ink },
-  row: { flexDirection: 'row', alignItems: 'stretch', borderBottomWidth: hairline, borderColor: colors.rule, minHeight: 36 },
+  row: {
+    flexDirection: 'row',
+    alignItems: 'stretch',
+    borderBottomWidth: hairline,
+    borderColor: colors.rule,
+    minHeight: 36,
+  },
   head: { borderColor: colors.ink, alignItems: 'flex-end' },
   cell: { paddingHorizontal: space.xs, paddingVertical: space.xs, justifyContent: 'center', flexShrink: 0 },
   right: { alignItems: 'flex-end' },

@@ -19,7 +19,14 @@ type Props = {
  * The foot of a paged list: loads the next page when it scrolls into view (web) and is a plain button
  * everywhere, so a keyboard, a screen reader or a test can always ask for more.
  */
-export function LoadMore({ hasNextPage, isFetchingNextPage, fetchNextPage, shown, what = 'rows', testID = 'load-more' }: Props) {
+export function LoadMore({
+  hasNextPage,
+  isFetchingNextPage,
+  fetchNextPage,
+  shown,
+  what = 'rows',
+  testID = 'load-more',
+}: Props) {
   const ref = useRef<View>(null);
   const busy = useRef(false);
   busy.current = isFetchingNextPage;
@@ -28,18 +35,35 @@ export function LoadMore({ hasNextPage, isFetchingNextPage, fetchNextPage, shown
     if (Platform.OS !== 'web' || !hasNextPage || typeof IntersectionObserver === 'undefined') return;
     const node = ref.current as unknown as Element | null;
     if (!node) return;
-    const seen = new IntersectionObserver((entries) => {
-      if (entries.some((e) => e.isIntersecting) && !busy.current) fetchNextPage();
-    }, { rootMargin: '400px 0px' });
+    const seen = new IntersectionObserver(
+      (entries) => {
+        if (entries.some((e) => e.isIntersecting) && !busy.current) fetchNextPage();
+      },
+      { rootMargin: '400px 0px' },
+    );
     seen.observe(node);
     return () => seen.disconnect();
   }, [hasNextPage, fetchNextPage]);
 
-  if (!hasNextPage) return shown > 0 ? <Txt tone="soft" style={styles.end} testID={`${testID}-end`}>All {shown} {what} shown</Txt> : null;
+  if (!hasNextPage)
+    return shown > 0 ? (
+      <Txt tone="soft" style={styles.end} testID={`${testID}-end`}>
+        All {shown} {what} shown
+      </Txt>
+    ) : null;
   return (
     <View ref={ref} style={styles.foot}>
-      <Txt tone="soft">{shown} {what} shown</Txt>
-      <Button label="Load more" variant="secondary" busy={isFetchingNextPage} busyLabel="Loading more…" onPress={() => fetchNextPage()} testID={testID} />
+      <Txt tone="soft">
+        {shown} {what} shown
+      </Txt>
+      <Button
+        label="Load more"
+        variant="secondary"
+        busy={isFetchingNextPage}
+        busyLabel="Loading more…"
+        onPress={() => fetchNextPage()}
+        testID={testID}
+      />
     </View>
   );
 }

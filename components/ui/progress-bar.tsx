@@ -11,8 +11,20 @@ import { Mono, Txt } from './text';
  * presentational, so with the role on the whole block "8 / 55 holes done" was hidden from screen
  * readers. The words stay outside it, read as text.
  */
-export function ProgressBar({ done, total, awaiting, label = 'holes done', awaitingLabel = 'awaiting the inspector', testID = 'progress' }: {
-  done: number; total: number; awaiting?: number; label?: string; awaitingLabel?: string; testID?: string;
+export function ProgressBar({
+  done,
+  total,
+  awaiting,
+  label = 'holes done',
+  awaitingLabel = 'awaiting the inspector',
+  testID = 'progress',
+}: {
+  done: number;
+  total: number;
+  awaiting?: number;
+  label?: string;
+  awaitingLabel?: string;
+  testID?: string;
 }) {
   const frac = total > 0 ? Math.min(1, done / total) : 0;
   const waitFrac = total > 0 && awaiting ? Math.min(1 - frac, awaiting / total) : 0;
@@ -20,9 +32,15 @@ export function ProgressBar({ done, total, awaiting, label = 'holes done', await
   return (
     <View testID={testID} style={{ gap: space.xs }}>
       <View style={styles.row}>
-        <Mono bold testID={`${testID}-count`}>{done} / {total}</Mono>
-        <Txt variant="small" tone="soft">{label}</Txt>
-        <Mono variant="small" tone="soft" style={{ marginLeft: 'auto' }}>{pct}%</Mono>
+        <Mono bold testID={`${testID}-count`}>
+          {done} / {total}
+        </Mono>
+        <Txt variant="small" tone="soft">
+          {label}
+        </Txt>
+        <Mono variant="small" tone="soft" style={{ marginLeft: 'auto' }}>
+          {pct}%
+        </Mono>
       </View>
       <View
         style={styles.track}
@@ -38,7 +56,9 @@ export function ProgressBar({ done, total, awaiting, label = 'holes done', await
         {waitFrac > 0 ? (
           <View style={[styles.wait, { left: `${frac * 100}%`, width: `${waitFrac * 100}%` }]}>
             {/* Hatching, so the second segment reads without colour. */}
-            {Array.from({ length: 80 }, (_, i) => <View key={i} style={[styles.hatch, { left: i * 8 }]} />)}
+            {Array.from({ length: 80 }, (_, i) => (
+              <View key={i} style={[styles.hatch, { left: i * 8 }]} />
+            ))}
           </View>
         ) : null}
         {Array.from({ length: 9 }, (_, i) => (
@@ -47,9 +67,13 @@ export function ProgressBar({ done, total, awaiting, label = 'holes done', await
       </View>
       {awaiting !== undefined ? (
         <View style={styles.row} testID={`${testID}-awaiting`}>
-          <View style={styles.key} aria-hidden><View style={[styles.hatch, { left: 3 }]} /></View>
+          <View style={styles.key} aria-hidden>
+            <View style={[styles.hatch, { left: 3 }]} />
+          </View>
           <Mono bold>{awaiting}</Mono>
-          <Txt variant="small" tone="soft">{awaiting === 1 ? 'hole' : 'holes'} {awaitingLabel}</Txt>
+          <Txt variant="small" tone="soft">
+            {awaiting === 1 ? 'hole' : 'holes'} {awaitingLabel}
+          </Txt>
         </View>
       ) : null}
     </View>
@@ -58,10 +82,39 @@ export function ProgressBar({ done, total, awaiting, label = 'holes done', await
 
 const styles = StyleSheet.create({
   row: { flexDirection: 'row', alignItems: 'baseline', gap: space.sm },
-  track: { height: 14, borderWidth: hairline, borderColor: colors.ink, backgroundColor: colors.paperRaised, overflow: 'hidden' },
+  track: {
+    height: 14,
+    borderWidth: hairline,
+    borderColor: colors.ink,
+    backgroundColor: colors.paperRaised,
+    overflow: 'hidden',
+  },
   fill: { position: 'absolute', left: 0, top: 0, bottom: 0, backgroundColor: statusColors.installed },
-  wait: { position: 'absolute', top: 0, bottom: 0, backgroundColor: colors.paperSunk, overflow: 'hidden', borderLeftWidth: hairline, borderColor: colors.ink },
-  hatch: { position: 'absolute', top: -4, bottom: -4, width: 2, backgroundColor: statusColors.reworked, transform: [{ rotate: '30deg' }] },
-  key: { width: 14, height: 10, borderWidth: hairline, borderColor: colors.ink, backgroundColor: colors.paperSunk, overflow: 'hidden', alignSelf: 'center' },
+  wait: {
+    position: 'absolute',
+    top: 0,
+    bottom: 0,
+    backgroundColor: colors.paperSunk,
+    overflow: 'hidden',
+    borderLeftWidth: hairline,
+    borderColor: colors.ink,
+  },
+  hatch: {
+    position: 'absolute',
+    top: -4,
+    bottom: -4,
+    width: 2,
+    backgroundColor: statusColors.reworked,
+    transform: [{ rotate: '30deg' }],
+  },
+  key: {
+    width: 14,
+    height: 10,
+    borderWidth: hairline,
+    borderColor: colors.ink,
+    backgroundColor: colors.paperSunk,
+    overflow: 'hidden',
+    alignSelf: 'center',
+  },
   tick: { position: 'absolute', top: 0, width: hairline, height: 5, backgroundColor: colors.ink },
 });

@@ -12,7 +12,13 @@ import { ErrorState } from './states';
 export function ScreenErrorBoundary({ error, retry }: ErrorBoundaryProps) {
   return (
     <View style={styles.page} testID="screen-error">
-      <ErrorState error={error} title="This screen stopped working" onRetry={() => { void retry(); }} />
+      <ErrorState
+        error={error}
+        title="This screen stopped working"
+        onRetry={() => {
+          void retry();
+        }}
+      />
     </View>
   );
 }

@@ -58,8 +58,21 @@ export function ScreenHeader({ title, subtitle, backTo, account, right, accountL
           />
         ) : null}
         <View style={{ flex: 1, minWidth: 160 }}>
-          <Txt ref={titleRef} variant="title" accessibilityRole="header" aria-level={1} numberOfLines={lines} testID="screen-title">{title}</Txt>
-          {subtitle ? <Txt variant="small" tone="soft" numberOfLines={lines}>{subtitle}</Txt> : null}
+          <Txt
+            ref={titleRef}
+            variant="title"
+            accessibilityRole="header"
+            aria-level={1}
+            numberOfLines={lines}
+            testID="screen-title"
+          >
+            {title}
+          </Txt>
+          {subtitle ? (
+            <Txt variant="small" tone="soft" numberOfLines={lines}>
+              {subtitle}
+            </Txt>
+          ) : null}
         </View>
         <View style={styles.right}>
           {right}
@@ -76,7 +89,11 @@ export function ScreenHeader({ title, subtitle, backTo, account, right, accountL
               style={({ pressed }) => [styles.account, pressed && { opacity: 0.75 }]}
             >
               <TabIcon glyph="session" color={colors.accent} size={22} />
-              {account ? <Txt bold tone="accent" numberOfLines={1}>{firstName(user?.name)}</Txt> : null}
+              {account ? (
+                <Txt bold tone="accent" numberOfLines={1}>
+                  {firstName(user?.name)}
+                </Txt>
+              ) : null}
             </Pressable>
           ) : null}
           {account && signedIn ? (
@@ -111,9 +128,7 @@ export function Screen({ children, scroll = true, contentStyle, testID, full, ..
   const [short] = useState(() => height < SHORT_WINDOW);
   const headerScrolls = scroll && short;
   const scrollRef = useRef<ScrollView>(null);
-  const body = (
-    <View style={[styles.body, !full && styles.narrow]}>{children}</View>
-  );
+  const body = <View style={[styles.body, !full && styles.narrow]}>{children}</View>;
   return (
     <View style={styles.page} testID={testID}>
       {headerScrolls ? null : <ScreenHeader {...header} />}
@@ -147,8 +162,23 @@ const styles = StyleSheet.create({
   headerRow: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap', minHeight: touch },
   // May shrink and wrap: on a narrow window (200 % text) the units switch and the account link go onto
   // lines of their own instead of running off the edge.
-  right: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap', flexShrink: 1, maxWidth: '100%' },
-  account: { minHeight: touch, minWidth: touch, paddingHorizontal: space.sm, flexDirection: 'row', alignItems: 'center', justifyContent: 'center', gap: space.xs },
+  right: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.sm,
+    flexWrap: 'wrap',
+    flexShrink: 1,
+    maxWidth: '100%',
+  },
+  account: {
+    minHeight: touch,
+    minWidth: touch,
+    paddingHorizontal: space.sm,
+    flexDirection: 'row',
+    alignItems: 'center',
+    justifyContent: 'center',
+    gap: space.xs,
+  },
   body: { flex: 1, padding: space.lg, gap: space.xl, width: '100%', alignSelf: 'center' },
   narrow: { maxWidth: 760 },
 });

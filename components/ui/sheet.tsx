@@ -12,13 +12,25 @@ export function Rule({ strong, style }: { strong?: boolean; style?: ViewProps['s
 }
 
 /** A titled block on a screen, like a boxed area on a drawing with its name in the corner. */
-export function Section({ title, aside, children, testID, style }: {
-  title: string; aside?: React.ReactNode; children?: React.ReactNode; testID?: string; style?: ViewProps['style'];
+export function Section({
+  title,
+  aside,
+  children,
+  testID,
+  style,
+}: {
+  title: string;
+  aside?: React.ReactNode;
+  children?: React.ReactNode;
+  testID?: string;
+  style?: ViewProps['style'];
 }) {
   return (
     <View testID={testID} style={[styles.section, style]}>
       <View style={styles.head}>
-        <Label accessibilityRole="header" style={{ flex: 1 }}>{title}</Label>
+        <Label accessibilityRole="header" style={{ flex: 1 }}>
+          {title}
+        </Label>
         {aside}
       </View>
       <Rule strong />
@@ -31,9 +43,13 @@ export function Section({ title, aside, children, testID, style }: {
 export function KeyValue({ label, children, testID }: { label: string; children: React.ReactNode; testID?: string }) {
   return (
     <View style={styles.kv} testID={testID}>
-      <Txt variant="small" tone="soft" style={{ minWidth: 120 }}>{label}</Txt>
+      <Txt variant="small" tone="soft" style={{ minWidth: 120 }}>
+        {label}
+      </Txt>
       {/* minWidth 0: a long unbroken value (an address) may narrow the column instead of pushing it off the screen. */}
-      <View style={{ flex: 1, minWidth: 0, alignItems: 'flex-start' }}>{typeof children === 'string' ? <Txt>{children}</Txt> : children}</View>
+      <View style={{ flex: 1, minWidth: 0, alignItems: 'flex-start' }}>
+        {typeof children === 'string' ? <Txt>{children}</Txt> : children}
+      </View>
     </View>
   );
 }

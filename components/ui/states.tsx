@@ -19,7 +19,9 @@ export function ErrorState({ error, title, onRetry }: { error: unknown; title?: 
   const net = error instanceof ApiError && error.isNetwork;
   return (
     <View style={[styles.box, styles.error]} testID="error" accessibilityRole="alert">
-      <Txt bold tone="error">{title ?? (net ? 'No connection' : 'That did not work')}</Txt>
+      <Txt bold tone="error">
+        {title ?? (net ? 'No connection' : 'That did not work')}
+      </Txt>
       <Txt>{errorMessage(error)}</Txt>
       {onRetry ? <Button label="Try again" variant="secondary" onPress={onRetry} testID="retry" /> : null}
     </View>
@@ -30,7 +32,11 @@ export function EmptyState({ title, body, action }: { title: string; body?: stri
   return (
     <View style={styles.box} testID="empty">
       <Txt bold>{title}</Txt>
-      {body ? <Txt tone="soft" align="center">{body}</Txt> : null}
+      {body ? (
+        <Txt tone="soft" align="center">
+          {body}
+        </Txt>
+      ) : null}
       {action}
     </View>
   );
@@ -52,10 +58,19 @@ function isWords(children: React.ReactNode): boolean {
   return kids.some(word) && kids.every((c) => word(c) || inline(c));
 }
 
-export function Notice({ tone = 'info', children, testID, focusOnShow }: {
-  tone?: 'info' | 'error' | 'ok' | 'caution'; children: React.ReactNode; testID?: string; focusOnShow?: boolean;
+export function Notice({
+  tone = 'info',
+  children,
+  testID,
+  focusOnShow,
+}: {
+  tone?: 'info' | 'error' | 'ok' | 'caution';
+  children: React.ReactNode;
+  testID?: string;
+  focusOnShow?: boolean;
 }) {
-  const c = tone === 'error' ? colors.error : tone === 'ok' ? colors.ok : tone === 'caution' ? colors.caution : colors.accent;
+  const c =
+    tone === 'error' ? colors.error : tone === 'ok' ? colors.ok : tone === 'caution' ? colors.caution : colors.accent;
   const bg = tone === 'error' ? colors.errorSoft : tone === 'caution' ? colors.cautionSoft : colors.paperRaised;
   const ref = useRef<View>(null);
   useFocusOnMount(ref, !!focusOnShow);

@@ -1,8 +1,14 @@
 import { StyleSheet, View } from 'react-native';
 import Svg, { Circle, G, Path, Rect } from 'react-native-svg';
 import {
-  dispositionLabels, findingClosureLabels, findingStatusLabels, holeStatuses,
-  type Disposition, type FindingClosure, type FindingStatus, type HoleStatus,
+  dispositionLabels,
+  findingClosureLabels,
+  findingStatusLabels,
+  holeStatuses,
+  type Disposition,
+  type FindingClosure,
+  type FindingStatus,
+  type HoleStatus,
 } from '@/db/contracts';
 import { colors, findingStatusColors, hairline, radius, space, statusColors } from '@/constants/theme';
 import { Txt } from './text';
@@ -20,7 +26,12 @@ export const holeShapes: Record<HoleStatus, MarkShape> = {
 };
 
 export const holeStatusLabels: Record<HoleStatus, string> = {
-  pending: 'Pending', installed: 'Installed', flagged: 'Flagged', held: 'Held', reworked: 'Reworked', accepted: 'Accepted',
+  pending: 'Pending',
+  installed: 'Installed',
+  flagged: 'Flagged',
+  held: 'Held',
+  reworked: 'Reworked',
+  accepted: 'Accepted',
 };
 
 export const holeStatusHelp: Record<HoleStatus, string> = {
@@ -33,8 +44,20 @@ export const holeStatusHelp: Record<HoleStatus, string> = {
 };
 
 /** The SVG of one mark centred on (cx, cy) with radius r, for use inside an <Svg>. */
-export function MarkGlyph({ shape, color, cx, cy, r, strokeWidth }: {
-  shape: MarkShape; color: string; cx: number; cy: number; r: number; strokeWidth?: number;
+export function MarkGlyph({
+  shape,
+  color,
+  cx,
+  cy,
+  r,
+  strokeWidth,
+}: {
+  shape: MarkShape;
+  color: string;
+  cx: number;
+  cy: number;
+  r: number;
+  strokeWidth?: number;
 }) {
   const sw = strokeWidth ?? Math.max(1.5, r * 0.28);
   switch (shape) {
@@ -61,7 +84,12 @@ export function MarkGlyph({ shape, color, cx, cy, r, strokeWidth }: {
       // Two triangles tip to tip: waiting on someone else's word.
       const w = r * 0.95;
       const h = r * 0.95;
-      return <Path d={`M ${cx - w} ${cy - h} L ${cx + w} ${cy - h} L ${cx} ${cy} L ${cx + w} ${cy + h} L ${cx - w} ${cy + h} L ${cx} ${cy} Z`} fill={color} />;
+      return (
+        <Path
+          d={`M ${cx - w} ${cy - h} L ${cx + w} ${cy - h} L ${cx} ${cy} L ${cx + w} ${cy + h} L ${cx - w} ${cy + h} L ${cx} ${cy} Z`}
+          fill={color}
+        />
+      );
     }
     case 'ringed-check': {
       const inner = r * 0.72;
@@ -72,7 +100,11 @@ export function MarkGlyph({ shape, color, cx, cy, r, strokeWidth }: {
           <Circle cx={cx} cy={cy} r={inner} fill={color} />
           <Path
             d={`M ${cx - k} ${cy} L ${cx - k * 0.25} ${cy + k * 0.7} L ${cx + k} ${cy - k * 0.6}`}
-            fill="none" stroke={colors.paperRaised} strokeWidth={Math.max(1.2, inner * 0.3)} strokeLinecap="round" strokeLinejoin="round"
+            fill="none"
+            stroke={colors.paperRaised}
+            strokeWidth={Math.max(1.2, inner * 0.3)}
+            strokeLinecap="round"
+            strokeLinejoin="round"
           />
         </G>
       );
@@ -82,8 +114,13 @@ export function MarkGlyph({ shape, color, cx, cy, r, strokeWidth }: {
 
 /** What each shape is called, so that the mark can be told in words too. */
 const shapeWords: Record<MarkShape, string> = {
-  'open-circle': 'open circle', dot: 'dot', triangle: 'triangle', square: 'square', diamond: 'diamond',
-  'ringed-check': 'ringed tick', hourglass: 'hourglass',
+  'open-circle': 'open circle',
+  dot: 'dot',
+  triangle: 'triangle',
+  square: 'square',
+  diamond: 'diamond',
+  'ringed-check': 'ringed tick',
+  hourglass: 'hourglass',
 };
 
 /**
@@ -99,7 +136,17 @@ function markA11y(label: string, decorative?: boolean): object {
  * A hole status mark on its own, e.g. in a list or the legend. `onInk` draws it on a paper disc, for a
  * chosen (ink) chip: held's umber is close to the ink.
  */
-export function HoleMark({ status, size = 20, decorative, onInk }: { status: HoleStatus; size?: number; decorative?: boolean; onInk?: boolean }) {
+export function HoleMark({
+  status,
+  size = 20,
+  decorative,
+  onInk,
+}: {
+  status: HoleStatus;
+  size?: number;
+  decorative?: boolean;
+  onInk?: boolean;
+}) {
   const shape = holeShapes[status];
   return (
     <View
@@ -109,7 +156,13 @@ export function HoleMark({ status, size = 20, decorative, onInk }: { status: Hol
     >
       <Svg width={size} height={size} viewBox={`0 0 ${size} ${size}`}>
         {onInk ? <Circle cx={size / 2} cy={size / 2} r={size / 2} fill={colors.paperRaised} /> : null}
-        <MarkGlyph shape={shape} color={statusColors[status]} cx={size / 2} cy={size / 2} r={onInk ? size / 2 - 2.5 : size / 2 - 1} />
+        <MarkGlyph
+          shape={shape}
+          color={statusColors[status]}
+          cx={size / 2}
+          cy={size / 2}
+          r={onInk ? size / 2 - 2.5 : size / 2 - 1}
+        />
       </Svg>
     </View>
   );
@@ -130,8 +183,14 @@ export function HoleStatusLegend({ counts }: { counts?: Partial<Record<HoleStatu
           aria-label={`${holeStatusLabels[s]} (${shapeWords[holeShapes[s]]})${counts ? `: ${counts[s] ?? 0}` : ''}`}
         >
           <HoleMark status={s} size={18} decorative />
-          <Txt variant="small" aria-hidden>{holeStatusLabels[s]}</Txt>
-          {counts ? <Txt variant="small" tone="soft" style={{ fontVariant: ['tabular-nums'] }} aria-hidden>{counts[s] ?? 0}</Txt> : null}
+          <Txt variant="small" aria-hidden>
+            {holeStatusLabels[s]}
+          </Txt>
+          {counts ? (
+            <Txt variant="small" tone="soft" style={{ fontVariant: ['tabular-nums'] }} aria-hidden>
+              {counts[s] ?? 0}
+            </Txt>
+          ) : null}
         </View>
       ))}
     </View>
@@ -152,7 +211,15 @@ export const findingShapes: Record<FindingStatus, MarkShape> = {
 };
 
 /** A finding state's mark on its own (lists, legends); `decorative` where its words are beside it. */
-export function FindingMark({ status, size = 14, decorative }: { status: FindingStatus; size?: number; decorative?: boolean }) {
+export function FindingMark({
+  status,
+  size = 14,
+  decorative,
+}: {
+  status: FindingStatus;
+  size?: number;
+  decorative?: boolean;
+}) {
   const shape = findingShapes[status];
   return (
     <View
@@ -171,17 +238,31 @@ export function FindingMark({ status, size = 14, decorative }: { status: Finding
  * A finding's state: its mark, its words, and what it came to. A closed finding says how it closed
  * (closure); an open one names the disposition it is working to, when there is one.
  */
-export function FindingStatusTag({ status, disposition, closure }: {
-  status: FindingStatus; disposition?: Disposition | null; closure?: FindingClosure | null;
+export function FindingStatusTag({
+  status,
+  disposition,
+  closure,
+}: {
+  status: FindingStatus;
+  disposition?: Disposition | null;
+  closure?: FindingClosure | null;
 }) {
   const color = findingStatusColors[status];
   return (
     <View style={[styles.tag, { borderColor: color }]} testID={`finding-status-${status}`}>
       <FindingMark status={status} decorative />
-      <Txt variant="small" bold>{findingStatusLabels[status]}</Txt>
+      <Txt variant="small" bold>
+        {findingStatusLabels[status]}
+      </Txt>
       {status === 'closed' && closure ? (
-        <Txt variant="small" testID="closure">· {findingClosureLabels[closure]}</Txt>
-      ) : disposition ? <Txt variant="small" tone="soft">· {dispositionLabels[disposition]}</Txt> : null}
+        <Txt variant="small" testID="closure">
+          · {findingClosureLabels[closure]}
+        </Txt>
+      ) : disposition ? (
+        <Txt variant="small" tone="soft">
+          · {dispositionLabels[disposition]}
+        </Txt>
+      ) : null}
     </View>
   );
 }
@@ -190,8 +271,17 @@ const styles = StyleSheet.create({
   legend: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
   legendItem: { flexDirection: 'row', alignItems: 'center', gap: space.xs },
   tag: {
-    flexDirection: 'row', flexWrap: 'wrap', flexShrink: 1, maxWidth: '100%', alignItems: 'center', gap: space.xs, alignSelf: 'flex-start',
-    borderWidth: hairline, borderRadius: radius.sm, paddingHorizontal: space.sm, paddingVertical: 2,
+    flexDirection: 'row',
+    flexWrap: 'wrap',
+    flexShrink: 1,
+    maxWidth: '100%',
+    alignItems: 'center',
+    gap: space.xs,
+    alignSelf: 'flex-start',
+    borderWidth: hairline,
+    borderRadius: radius.sm,
+    paddingHorizontal: space.sm,
+    paddingVertical: 2,
     backgroundColor: colors.paperRaised,
   },
 });

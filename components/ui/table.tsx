@@ -24,7 +24,11 @@ export type Column<T, K extends string = string> = {
 const COLUMN_MIN = 88;
 
 /** A wide row's cell: never under its column's least width, sharing what is left by `flex`. */
-const cellSize = (c: { flex?: number; minWidth?: number }) => ({ flexGrow: c.flex ?? 1, flexShrink: 0, flexBasis: c.minWidth ?? COLUMN_MIN });
+const cellSize = (c: { flex?: number; minWidth?: number }) => ({
+  flexGrow: c.flex ?? 1,
+  flexShrink: 0,
+  flexBasis: c.minWidth ?? COLUMN_MIN,
+});
 
 type Props<T, K extends string> = {
   rows: readonly T[];
@@ -47,7 +51,19 @@ type Props<T, K extends string> = {
  * buttons above the list: squeezed columns broke words and ran values over each other. Rows are a
  * FlatList so long queues stay fast.
  */
-export function Table<T, K extends string>({ rows, columns, rowKey, sort, onSort, onRowPress, rowTestID, rowLabel, empty, header, footer }: Props<T, K>) {
+export function Table<T, K extends string>({
+  rows,
+  columns,
+  rowKey,
+  sort,
+  onSort,
+  onRowPress,
+  rowTestID,
+  rowLabel,
+  empty,
+  header,
+  footer,
+}: Props<T, K>) {
   const wideScreen = useWide();
   const [width, setWidth] = useState(0);
   const needed = columns.reduce((n, c) => n + (c.minWidth ?? COLUMN_MIN), 0);
@@ -66,7 +82,10 @@ export function Table<T, K extends string>({ rows, columns, rowKey, sort, onSort
         onPress={() => c.sortKey && onSort?.(c.sortKey)}
         style={[styles.sortBtn, on && styles.sortOn, style]}
       >
-        <Txt variant="label" tone={on ? 'accent' : 'soft'} bold={on}>{c.title}{arrow}</Txt>
+        <Txt variant="label" tone={on ? 'accent' : 'soft'} bold={on}>
+          {c.title}
+          {arrow}
+        </Txt>
       </Pressable>
     );
   };
@@ -75,17 +94,23 @@ export function Table<T, K extends string>({ rows, columns, rowKey, sort, onSort
     const cells = wide ? (
       <View style={styles.wideRow}>
         {columns.map((c) => (
-          <View key={c.key} style={[styles.cell, cellSize(c)]}>{c.render(item)}</View>
+          <View key={c.key} style={[styles.cell, cellSize(c)]}>
+            {c.render(item)}
+          </View>
         ))}
       </View>
     ) : (
       <View style={styles.phoneRow}>
-        {columns.filter((c) => !c.hideOnPhone).map((c) => (
-          <View key={c.key} style={styles.phoneCell}>
-            <Txt variant="label" tone="faint" style={{ width: 84 }}>{c.title}</Txt>
-            <View style={{ flex: 1 }}>{c.render(item)}</View>
-          </View>
-        ))}
+        {columns
+          .filter((c) => !c.hideOnPhone)
+          .map((c) => (
+            <View key={c.key} style={styles.phoneCell}>
+              <Txt variant="label" tone="faint" style={{ width: 84 }}>
+                {c.title}
+              </Txt>
+              <View style={{ flex: 1 }}>{c.render(item)}</View>
+            </View>
+          ))}
       </View>
     );
     if (!onRowPress) return <View testID={rowTestID?.(item)}>{cells}</View>;
@@ -120,13 +145,21 @@ export function Table<T, K extends string>({ rows, columns, rowKey, sort, onSort
             <View style={styles.headRow}>
               {columns.map((c) => (
                 <View key={c.key} style={[styles.cell, cellSize(c)]}>
-                  {c.sortKey && onSort ? sortButton(c) : <Txt variant="label" tone="soft">{c.title}</Txt>}
+                  {c.sortKey && onSort ? (
+                    sortButton(c)
+                  ) : (
+                    <Txt variant="label" tone="soft">
+                      {c.title}
+                    </Txt>
+                  )}
                 </View>
               ))}
             </View>
           ) : sortable.length && onSort ? (
             <View style={styles.phoneSort}>
-              <Txt variant="label" tone="soft">Sort by</Txt>
+              <Txt variant="label" tone="soft">
+                Sort by
+              </Txt>
               {sortable.map((c) => sortButton(c, styles.phoneSortBtn))}
             </View>
           ) : null}
@@ -143,7 +176,13 @@ export function Table<T, K extends string>({ rows, columns, rowKey, sort, onSort
 }
 
 const styles = StyleSheet.create({
-  headRow: { flexDirection: 'row', alignItems: 'center', borderBottomWidth: 2, borderBottomColor: colors.ink, paddingVertical: space.xs },
+  headRow: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    borderBottomWidth: 2,
+    borderBottomColor: colors.ink,
+    paddingVertical: space.xs,
+  },
   wideRow: { flexDirection: 'row', alignItems: 'center', paddingVertical: space.sm, minHeight: touch },
   cell: { paddingHorizontal: space.sm, minWidth: 0 },
   phoneRow: { paddingVertical: space.md, paddingHorizontal: space.xs, gap: space.xs },
@@ -152,6 +191,20 @@ const styles = StyleSheet.create({
   // 48 px like every other control: a sort header is tapped by a gloved hand on a wide tablet too.
   sortBtn: { minHeight: touch, minWidth: touch, justifyContent: 'center' },
   sortOn: {},
-  phoneSort: { flexDirection: 'row', alignItems: 'center', gap: space.sm, flexWrap: 'wrap', paddingBottom: space.sm, borderBottomWidth: 2, borderBottomColor: colors.ink },
-  phoneSortBtn: { minHeight: touch, paddingHorizontal: space.md, borderWidth: hairline, borderColor: colors.rule, backgroundColor: colors.paperRaised },
+  phoneSort: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.sm,
+    flexWrap: 'wrap',
+    paddingBottom: space.sm,
+    borderBottomWidth: 2,
+    borderBottomColor: colors.ink,
+  },
+  phoneSortBtn: {
+    minHeight: touch,
+    paddingHorizontal: space.md,
+    borderWidth: hairline,
+    borderColor: colors.rule,
+    backgroundColor: colors.paperRaised,
+  },
 });

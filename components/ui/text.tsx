@@ -11,8 +11,14 @@ type Props = TextProps & {
 };
 
 const toneColor = {
-  ink: colors.ink, soft: colors.inkSoft, faint: colors.inkFaint, accent: colors.accent,
-  error: colors.error, caution: colors.caution, warning: colors.warning, inverse: colors.accentInk,
+  ink: colors.ink,
+  soft: colors.inkSoft,
+  faint: colors.inkFaint,
+  accent: colors.accent,
+  error: colors.error,
+  caution: colors.caution,
+  warning: colors.warning,
+  inverse: colors.accentInk,
 } as const;
 
 /** Running text in Atkinson Hyperlegible. */
@@ -59,7 +65,16 @@ const keepWhole = Platform.OS === 'web' ? ({ whiteSpace: 'nowrap' } as unknown a
 const breakAnywhere = Platform.OS === 'web' ? ({ overflowWrap: 'anywhere' } as unknown as TextStyle) : null;
 
 /** Numbers, hole ids, codes: IBM Plex Mono so columns line up and 0/O, 1/l never mix. */
-export function Mono({ variant = 'body', bold, tone = 'ink', align, style, children, wrap, ...rest }: Props & {
+export function Mono({
+  variant = 'body',
+  bold,
+  tone = 'ink',
+  align,
+  style,
+  children,
+  wrap,
+  ...rest
+}: Props & {
   /** Long monospaced text that may wrap anywhere a line of text would. */
   wrap?: boolean;
 }) {
@@ -107,7 +122,15 @@ function tokensKeptWhole(text: string): React.ReactNode[] {
   const out: React.ReactNode[] = lead ? [lead] : [];
   valueGroups(text).forEach((g, i) => {
     if (i) out.push(' ');
-    out.push(g.length <= TOKEN_MAX ? <Text key={i} style={keepWhole}>{g}</Text> : g);
+    out.push(
+      g.length <= TOKEN_MAX ? (
+        <Text key={i} style={keepWhole}>
+          {g}
+        </Text>
+      ) : (
+        g
+      ),
+    );
   });
   if (trail) out.push(trail);
   return out;

@@ -4,7 +4,14 @@ import { installFocusRing } from './focus-ring';
 
 installFocusRing();
 
-type KeyEvent = { key: string; repeat?: boolean; nativeEvent?: { repeat?: boolean }; preventDefault: () => void; target: unknown; currentTarget: unknown };
+type KeyEvent = {
+  key: string;
+  repeat?: boolean;
+  nativeEvent?: { repeat?: boolean };
+  preventDefault: () => void;
+  target: unknown;
+  currentTarget: unknown;
+};
 
 /**
  * Space as well as Enter: react-native-web's Pressable presses on Enter for every role but on Space
@@ -12,7 +19,11 @@ type KeyEvent = { key: string; repeat?: boolean; nativeEvent?: { repeat?: boolea
  * user who pressed Space on "Rework" and then submitted recorded what was chosen before). Space is
  * taken on the control itself only, not from a field inside it, and held-down repeats are ignored.
  */
-export function spaceActivates(onPress: (() => void) | undefined, disabled?: boolean | null, then?: (e: KeyEvent) => void) {
+export function spaceActivates(
+  onPress: (() => void) | undefined,
+  disabled?: boolean | null,
+  then?: (e: KeyEvent) => void,
+) {
   return (e: KeyEvent) => {
     if ((e.key === ' ' || e.key === 'Spacebar') && e.target === e.currentTarget) {
       e.preventDefault();
@@ -22,7 +33,10 @@ export function spaceActivates(onPress: (() => void) | undefined, disabled?: boo
   };
 }
 
-export type ToggleProps = Omit<PressableProps, 'role' | 'accessibilityRole' | 'onPress' | 'aria-checked' | 'aria-selected'> & {
+export type ToggleProps = Omit<
+  PressableProps,
+  'role' | 'accessibilityRole' | 'onPress' | 'aria-checked' | 'aria-selected'
+> & {
   /** A checkbox stands alone; a radio is one of a group (its parent carries role radiogroup). */
   kind: 'checkbox' | 'radio';
   checked: boolean;
@@ -33,7 +47,10 @@ export type ToggleProps = Omit<PressableProps, 'role' | 'accessibilityRole' | 'o
  * Every chip, box and option that is on or off: the checkbox or radio role with `aria-checked` (never
  * `aria-selected`, which these roles do not take), operated by tap, Enter and Space, with our focus ring.
  */
-export const Toggle = forwardRef<View, ToggleProps>(function Toggle({ kind, checked, onPress, disabled, ...rest }, ref) {
+export const Toggle = forwardRef<View, ToggleProps>(function Toggle(
+  { kind, checked, onPress, disabled, ...rest },
+  ref,
+) {
   const { onKeyDown } = rest as { onKeyDown?: (e: KeyEvent) => void };
   const keys = { onKeyDown: spaceActivates(onPress, disabled, onKeyDown) } as object;
   return (

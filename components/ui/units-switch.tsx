@@ -22,7 +22,9 @@ export function UnitsSwitch() {
             onPress={() => setSystem(s)}
             style={[styles.opt, s === unitSystems[0] ? styles.first : styles.last, on && styles.on]}
           >
-            <Mono variant="small" bold={on} tone={on ? 'inverse' : 'soft'}>{unitSystemLabels[s]}</Mono>
+            <Mono variant="small" bold={on} tone={on ? 'inverse' : 'soft'}>
+              {unitSystemLabels[s]}
+            </Mono>
           </Toggle>
         );
       })}
@@ -35,6 +37,13 @@ const styles = StyleSheet.create({
   wrap: { flexDirection: 'row', borderWidth: hairline, borderColor: colors.ruleStrong, borderRadius: radius.md },
   first: { borderTopLeftRadius: radius.md - hairline, borderBottomLeftRadius: radius.md - hairline },
   last: { borderTopRightRadius: radius.md - hairline, borderBottomRightRadius: radius.md - hairline },
-  opt: { minHeight: touch, minWidth: 64, paddingHorizontal: space.sm, alignItems: 'center', justifyContent: 'center', backgroundColor: colors.paperRaised },
+  opt: {
+    minHeight: touch,
+    minWidth: 64,
+    paddingHorizontal: space.sm,
+    alignItems: 'center',
+    justifyContent: 'center',
+    backgroundColor: colors.paperRaised,
+  },
   on: { backgroundColor: colors.ink },
 });

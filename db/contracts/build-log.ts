@@ -7,9 +7,24 @@ import { pageQuery, type Page, type Role } from './common';
  * as plain sentences. The screen, the CSV and the PDF all read the same entries.
  */
 export const buildLogKinds = [
-  'holes_installed', 'holes_pending', 'step_done', 'step_undone', 'signed_off', 'sign_off_withdrawn', 'part_replaced',
-  'finding_raised', 'finding_dispositioned', 'finding_approval', 'finding_work_done', 'finding_sent_back', 'finding_closed',
-  'member_added', 'member_invited', 'member_joined', 'member_removed', 'owner_changed',
+  'holes_installed',
+  'holes_pending',
+  'step_done',
+  'step_undone',
+  'signed_off',
+  'sign_off_withdrawn',
+  'part_replaced',
+  'finding_raised',
+  'finding_dispositioned',
+  'finding_approval',
+  'finding_work_done',
+  'finding_sent_back',
+  'finding_closed',
+  'member_added',
+  'member_invited',
+  'member_joined',
+  'member_removed',
+  'owner_changed',
   /** A bench event of a kind this version does not know yet: still listed, never dropped. */
   'other',
 ] as const;
@@ -19,14 +34,33 @@ export type BuildLogKind = (typeof buildLogKinds)[number];
 export const buildLogGroups = ['bench', 'findings', 'sign_off', 'people'] as const;
 export type BuildLogGroup = (typeof buildLogGroups)[number];
 
-export const buildLogGroupLabels: Record<BuildLogGroup, string> = { bench: 'Bench', findings: 'Findings', sign_off: 'Sign-off', people: 'People' };
+export const buildLogGroupLabels: Record<BuildLogGroup, string> = {
+  bench: 'Bench',
+  findings: 'Findings',
+  sign_off: 'Sign-off',
+  people: 'People',
+};
 
 export const buildLogKindLabels: Record<BuildLogKind, string> = {
-  holes_installed: 'Holes installed', holes_pending: 'Holes back to pending', step_done: 'Step done', step_undone: 'Step undone',
-  signed_off: 'Signed off', sign_off_withdrawn: 'Sign-off withdrawn', part_replaced: 'Part replaced', finding_raised: 'Finding raised',
-  finding_dispositioned: 'Dispositioned', finding_approval: 'Design authority', finding_work_done: 'Work done',
-  finding_sent_back: 'Work sent back', finding_closed: 'Finding closed', member_added: 'Person added', member_invited: 'Person invited',
-  member_joined: 'Person joined', member_removed: 'Person removed', owner_changed: 'Build handed over', other: 'Bench event',
+  holes_installed: 'Holes installed',
+  holes_pending: 'Holes back to pending',
+  step_done: 'Step done',
+  step_undone: 'Step undone',
+  signed_off: 'Signed off',
+  sign_off_withdrawn: 'Sign-off withdrawn',
+  part_replaced: 'Part replaced',
+  finding_raised: 'Finding raised',
+  finding_dispositioned: 'Dispositioned',
+  finding_approval: 'Design authority',
+  finding_work_done: 'Work done',
+  finding_sent_back: 'Work sent back',
+  finding_closed: 'Finding closed',
+  member_added: 'Person added',
+  member_invited: 'Person invited',
+  member_joined: 'Person joined',
+  member_removed: 'Person removed',
+  owner_changed: 'Build handed over',
+  other: 'Bench event',
 };
 
 export function groupOfKind(kind: BuildLogKind): BuildLogGroup {
@@ -63,7 +97,13 @@ export function isLogDate(s: string): boolean {
   if (DATE_ONLY.test(s)) {
     const [y, m, d] = s.split('-').map(Number);
     const t = new Date(Date.UTC(y, m - 1, d));
-    return y >= LOG_YEARS.min && y <= LOG_YEARS.max && t.getUTCFullYear() === y && t.getUTCMonth() === m - 1 && t.getUTCDate() === d;
+    return (
+      y >= LOG_YEARS.min &&
+      y <= LOG_YEARS.max &&
+      t.getUTCFullYear() === y &&
+      t.getUTCMonth() === m - 1 &&
+      t.getUTCDate() === d
+    );
   }
   const year = Number(s.slice(0, 4));
   return DATE_TIME.test(s) && !Number.isNaN(Date.parse(s)) && year >= LOG_YEARS.min && year <= LOG_YEARS.max;
@@ -78,17 +118,28 @@ export function isTimeZone(tz: string): boolean {
   }
 }
 
-const dateParam = (what: string) => z.string({ message: `${what} must be a single date` }).trim()
-  .refine(isLogDate, `${what} must be a date between 2000 and 2199 such as 2026-11-03, or a date and time with its offset such as 2026-11-03T14:00:00Z`);
+const dateParam = (what: string) =>
+  z
+    .string({ message: `${what} must be a single date` })
+    .trim()
+    .refine(
+      isLogDate,
+      `${what} must be a date between 2000 and 2199 such as 2026-11-03, or a date and time with its offset such as 2026-11-03T14:00:00Z`,
+    );
 
 /** `kind=bench,finding_flagged` or `kind=bench&kind=findings`. */
 const kindList = z.preprocess(
   (v) => (typeof v === 'string' ? v.split(',') : v),
-  z.array(z.string().trim()).transform((a) => a.filter(Boolean)).pipe(
-    z.array(z.enum([...buildLogKinds, ...buildLogGroups] as const, {
-      message: `kind is one of ${[...buildLogGroups, ...buildLogKinds].join(', ')}`,
-    })),
-  ),
+  z
+    .array(z.string().trim())
+    .transform((a) => a.filter(Boolean))
+    .pipe(
+      z.array(
+        z.enum([...buildLogKinds, ...buildLogGroups] as const, {
+          message: `kind is one of ${[...buildLogGroups, ...buildLogKinds].join(', ')}`,
+        }),
+      ),
+    ),
 );
 
 /** Query of GET /api/builds/:id/log (and .csv, .pdf). A day given as a date is read in `tz`. */
@@ -97,8 +148,16 @@ export const buildLogQuery = z.object({
   travelerId: z.uuid({ message: 'travelerId must be the id of a part of this build' }).optional(),
   from: dateParam('from').optional(),
   to: dateParam('to').optional(),
-  q: z.string({ message: 'q must be a single search' }).trim().max(200, 'keep the search under 200 characters').optional(),
-  tz: z.string({ message: 'tz must be a single time zone' }).trim().refine(isTimeZone, 'tz must be a time zone such as Europe/Berlin or America/Denver').optional(),
+  q: z
+    .string({ message: 'q must be a single search' })
+    .trim()
+    .max(200, 'keep the search under 200 characters')
+    .optional(),
+  tz: z
+    .string({ message: 'tz must be a single time zone' })
+    .trim()
+    .refine(isTimeZone, 'tz must be a time zone such as Europe/Berlin or America/Denver')
+    .optional(),
 });
 export type BuildLogQuery = z.infer<typeof buildLogQuery>;
 
@@ -144,8 +203,17 @@ export function logEntryMatches(e: BuildLogEntry, text: string): boolean {
   const words = text.trim().toLowerCase().split(/\s+/).filter(Boolean);
   if (!words.length) return true;
   const hay = [
-    e.partNumber, e.partName, e.travelerSerial, e.actorName, buildLogKindLabels[e.kind], e.text, e.note ?? '', ...(e.holeIds ?? []),
-  ].join(' ').toLowerCase();
+    e.partNumber,
+    e.partName,
+    e.travelerSerial,
+    e.actorName,
+    buildLogKindLabels[e.kind],
+    e.text,
+    e.note ?? '',
+    ...(e.holeIds ?? []),
+  ]
+    .join(' ')
+    .toLowerCase();
   return words.every((w) => hay.includes(w));
 }
 
@@ -162,9 +230,22 @@ export function describeHoleRuns(ids: readonly string[]): string {
   let i = 0;
   while (i < parsed.length) {
     let j = i;
-    while (j + 1 < parsed.length && !Number.isNaN(parsed[j].n) && parsed[j + 1].prefix === parsed[j].prefix
-      && parsed[j + 1].width === parsed[j].width && parsed[j + 1].n === parsed[j].n + 1) j++;
-    runs.push(j - i >= 2 ? `${parsed[i].id} to ${parsed[j].id}` : parsed.slice(i, j + 1).map((p) => p.id).join(', '));
+    while (
+      j + 1 < parsed.length &&
+      !Number.isNaN(parsed[j].n) &&
+      parsed[j + 1].prefix === parsed[j].prefix &&
+      parsed[j + 1].width === parsed[j].width &&
+      parsed[j + 1].n === parsed[j].n + 1
+    )
+      j++;
+    runs.push(
+      j - i >= 2
+        ? `${parsed[i].id} to ${parsed[j].id}`
+        : parsed
+            .slice(i, j + 1)
+            .map((p) => p.id)
+            .join(', '),
+    );
     i = j + 1;
   }
   return runs.join(', ');

@@ -7,7 +7,10 @@ export const idParam = z.object({ id: z.uuid({ message: 'must be an id' }) });
 
 /** A positive length in inches, with the field's own words in the message. */
 export const positiveInches = (what: string) =>
-  z.number({ message: `${what} must be a number` }).positive(`${what} must be greater than zero`).max(1000, `${what} is over 1000 in`);
+  z
+    .number({ message: `${what} must be a number` })
+    .positive(`${what} must be greater than zero`)
+    .max(1000, `${what} is over 1000 in`);
 
 export const roles = ['supplier', 'builder', 'inspector', 'admin'] as const;
 export type Role = (typeof roles)[number];
@@ -16,14 +19,24 @@ export type Role = (typeof roles)[number];
 const CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/;
 
 /** Free text a person typed: trimmed, bounded, and refused with the field's own words when it carries control characters. */
-export const plainText = (what: string, min: number, max: number, tooShort = `${what} needs at least ${min} characters`) =>
-  z.string({ message: `${what} must be text` }).trim()
+export const plainText = (
+  what: string,
+  min: number,
+  max: number,
+  tooShort = `${what} needs at least ${min} characters`,
+) =>
+  z
+    .string({ message: `${what} must be text` })
+    .trim()
     .min(min, tooShort)
     .max(max, `keep ${what} under ${max} characters`)
     .refine((s) => !CONTROL.test(s), `${what} contains a control character: type plain text`);
 
 export const roleLabels: Record<Role, string> = {
-  supplier: 'Supplier’s engineer', builder: 'Builder', inspector: 'Inspector', admin: 'Administrator',
+  supplier: 'Supplier’s engineer',
+  builder: 'Builder',
+  inspector: 'Inspector',
+  admin: 'Administrator',
 };
 
 /** One page of a list: `next` is the cursor of the page after it, null on the last page. */
@@ -34,9 +47,16 @@ export const PAGE_SIZE_MAX = 100;
 
 /** `?cursor=&limit=` on every list: the cursor is opaque (one the server gave), the size bounded. */
 export const pageQuery = z.object({
-  cursor: z.string().max(400, 'cursor is too long: use the `next` value a page gave')
-    .regex(/^[A-Za-z0-9_-]+$/, 'cursor is not one this server gave: use the `next` value a page gave').optional(),
-  limit: z.coerce.number({ message: 'limit must be a number' }).int('limit must be a whole number')
-    .min(1, 'limit must be at least 1').max(PAGE_SIZE_MAX, `limit is at most ${PAGE_SIZE_MAX}`).default(PAGE_SIZE_DEFAULT),
+  cursor: z
+    .string()
+    .max(400, 'cursor is too long: use the `next` value a page gave')
+    .regex(/^[A-Za-z0-9_-]+$/, 'cursor is not one this server gave: use the `next` value a page gave')
+    .optional(),
+  limit: z.coerce
+    .number({ message: 'limit must be a number' })
+    .int('limit must be a whole number')
+    .min(1, 'limit must be at least 1')
+    .max(PAGE_SIZE_MAX, `limit is at most ${PAGE_SIZE_MAX}`)
+    .default(PAGE_SIZE_DEFAULT),
 });
 export type PageQuery = z.infer<typeof pageQuery>;

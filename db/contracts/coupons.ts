@@ -5,8 +5,10 @@ import { GAUGE_RANGE_IN, measured } from './engineering';
 export const couponOutcomes = ['no_deformation', 'slight_deformation', 'excessive_deformation', 'failure'] as const;
 export type CouponOutcome = (typeof couponOutcomes)[number];
 export const couponOutcomeLabels: Record<CouponOutcome, string> = {
-  no_deformation: 'No permanent deformation', slight_deformation: 'Slight deformation',
-  excessive_deformation: 'Excessive deformation', failure: 'Failure',
+  no_deformation: 'No permanent deformation',
+  slight_deformation: 'Slight deformation',
+  excessive_deformation: 'Excessive deformation',
+  failure: 'Failure',
 };
 
 /** The earliest test date taken: older records are typed from paper, not tested for this kit. */
@@ -24,9 +26,13 @@ export const couponInput = z.object({
   outcome: z.enum(couponOutcomes, { message: 'choose what the coupon did' }),
   note: plainText('the note', 0, 2000).default(''),
   /** from 1950-01-01 to tomorrow (a test dated ahead of every time zone has not happened yet) */
-  testedOn: z.iso.date({ message: 'test date is a date like 2026-11-30' })
+  testedOn: z.iso
+    .date({ message: 'test date is a date like 2026-11-30' })
     .refine((d) => d >= EARLIEST_COUPON_DATE, `test date cannot be before ${EARLIEST_COUPON_DATE}`)
-    .refine((d) => d <= new Date(Date.now() + 86_400_000).toISOString().slice(0, 10), 'test date cannot be in the future'),
+    .refine(
+      (d) => d <= new Date(Date.now() + 86_400_000).toISOString().slice(0, 10),
+      'test date cannot be in the future',
+    ),
 });
 export type CouponInput = z.input<typeof couponInput>;
 
@@ -47,7 +53,9 @@ export const couponActions = ['correct', 'delete'] as const;
 export type CouponAction = (typeof couponActions)[number];
 
 export type CouponTest = z.output<typeof couponInput> & {
-  id: string; createdAt: string; createdByName: string;
+  id: string;
+  createdAt: string;
+  createdByName: string;
   /** Why this entry corrects an earlier one ('' for a first record). */
   correctionReason: string;
   /** The entry that corrected this one: this one is kept as it was recorded and no longer counts. */
@@ -62,7 +70,12 @@ export type CouponTest = z.output<typeof couponInput> & {
 export const COUPON_GAUGE_TOLERANCE_IN = 0.0011;
 
 /** A published (or since superseded) part revision, as the coupon rules read it. */
-export type CouponBackedRevision = { rivetSpec: string; gaugeIn: number; publishedAt: Date | string; fromStudy: boolean };
+export type CouponBackedRevision = {
+  rivetSpec: string;
+  gaugeIn: number;
+  publishedAt: Date | string;
+  fromStudy: boolean;
+};
 
 /**
  * Whether a test may stand behind a published revision. Tests reach a schedule only through a load
@@ -70,29 +83,41 @@ export type CouponBackedRevision = { rivetSpec: string; gaugeIn: number; publish
  * (the cap on its fallback), whatever the material: any test of that rivet and gauge or thicker, on
  * record before the revision was published, may have been read.
  */
-export function couponBacks(test: { rivetSpec: string; gaugeIn: number; createdAt: Date | string }, rev: CouponBackedRevision): boolean {
-  return rev.fromStudy
-    && test.rivetSpec.trim().toUpperCase() === rev.rivetSpec.trim().toUpperCase()
-    && test.gaugeIn >= rev.gaugeIn - COUPON_GAUGE_TOLERANCE_IN
-    && new Date(test.createdAt).getTime() <= new Date(rev.publishedAt).getTime();
+export function couponBacks(
+  test: { rivetSpec: string; gaugeIn: number; createdAt: Date | string },
+  rev: CouponBackedRevision,
+): boolean {
+  return (
+    rev.fromStudy &&
+    test.rivetSpec.trim().toUpperCase() === rev.rivetSpec.trim().toUpperCase() &&
+    test.gaugeIn >= rev.gaugeIn - COUPON_GAUGE_TOLERANCE_IN &&
+    new Date(test.createdAt).getTime() <= new Date(rev.publishedAt).getTime()
+  );
 }
 
 /** Why a test cannot be deleted, or null. A corrected entry goes with its correction, never alone. */
 export function couponDeleteRefusal(t: { superseded: boolean; backs: readonly string[] }): string | null {
-  if (t.superseded) return 'this entry was corrected: it stays in the record as it was (delete the current entry to remove the test)';
-  if (t.backs.length) return `this test may back the published ${t.backs.join(', ')}: it stays in the record (correct it instead; published revisions keep the numbers they were approved with)`;
+  if (t.superseded)
+    return 'this entry was corrected: it stays in the record as it was (delete the current entry to remove the test)';
+  if (t.backs.length)
+    return `this test may back the published ${t.backs.join(', ')}: it stays in the record (correct it instead; published revisions keep the numbers they were approved with)`;
   return null;
 }
 
 /** Why a test cannot be corrected, or null: only the current entry is corrected. */
 export const couponCorrectRefusal = (t: { superseded: boolean }): string | null =>
-  (t.superseded ? 'this entry was already corrected: correct the current entry' : null);
+  t.superseded ? 'this entry was already corrected: correct the current entry' : null;
 
 export const allowedCouponActions = (t: { superseded: boolean; backs: readonly string[] }): CouponAction[] =>
   couponActions.filter((a) => (a === 'correct' ? couponCorrectRefusal(t) : couponDeleteRefusal(t)) === null);
 
 /** A (material, gauge, rivet) with its tests and the pull-through allowables studies take from them. */
 export type CouponAllowance = {
-  material: string; gaugeIn: number; rivetSpec: string; tests: CouponTest[];
-  limitLb: number; ultimateLb: number; warnings: string[];
+  material: string;
+  gaugeIn: number;
+  rivetSpec: string;
+  tests: CouponTest[];
+  limitLb: number;
+  ultimateLb: number;
+  warnings: string[];
 };

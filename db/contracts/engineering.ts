@@ -6,10 +6,32 @@ import { z } from 'zod';
  * any server code.
  */
 export type {
-  ReworkResult, ReworkMargins, RibStudyResult, StudyCandidate, StudyCondition, LineLoads, EnvelopePoint,
-  LineSchedule, TradeRow, ScheduleZone, ScheduleHole, AllowableSummary, DesignCondition, CpSample, StudyWork,
-  RepairCheckResult, RepairHoleResult, RepairAlternative,
-  WingStudyResult, WingRib, WingCondition, WingTradeRow, SkinPanelResult, SkinCandidate, SkinLineSchedule, Planform,
+  ReworkResult,
+  ReworkMargins,
+  RibStudyResult,
+  StudyCandidate,
+  StudyCondition,
+  LineLoads,
+  EnvelopePoint,
+  LineSchedule,
+  TradeRow,
+  ScheduleZone,
+  ScheduleHole,
+  AllowableSummary,
+  DesignCondition,
+  CpSample,
+  StudyWork,
+  RepairCheckResult,
+  RepairHoleResult,
+  RepairAlternative,
+  WingStudyResult,
+  WingRib,
+  WingCondition,
+  WingTradeRow,
+  SkinPanelResult,
+  SkinCandidate,
+  SkinLineSchedule,
+  Planform,
 } from '../../server/engineering';
 
 /*
@@ -33,12 +55,16 @@ export const measured = (what: string, min: number, max: number, unit: string) =
 
 /** A count: a whole number between min and max. */
 export const whole = (what: string, min: number, max: number) =>
-  z.number({ message: `${what} must be a number` }).int(`${what} must be a whole number`)
-    .min(min, `${what} must be from ${fmt(min)} to ${fmt(max)}`).max(max, `${what} must be from ${fmt(min)} to ${fmt(max)}`);
+  z
+    .number({ message: `${what} must be a number` })
+    .int(`${what} must be a whole number`)
+    .min(min, `${what} must be from ${fmt(min)} to ${fmt(max)}`)
+    .max(max, `${what} must be from ${fmt(min)} to ${fmt(max)}`);
 
 /** A list whose length is bounded, with the field's own words. */
 export const listOf = <T extends z.ZodType>(item: T, what: string, min: number, max: number, tooFew?: string) =>
-  z.array(item, { message: `${what} must be a list` })
+  z
+    .array(item, { message: `${what} must be a list` })
     .min(min, tooFew ?? `give at least ${min} ${what}`)
     .max(max, `at most ${fmt(max)} ${what}`);
 
@@ -55,20 +81,25 @@ const SQIN_PER_SQFT = 144;
  * The wing made from a kit's numbers must be a wing: aspect ratio and wing loading in range, each told
  * against the field that makes it absurd (the same checks and words as the engine's).
  */
-export function checkWing(k: { weightLb: number; wingAreaSqFt: number; meanChordIn: number }, ctx: z.RefinementCtx): void {
+export function checkWing(
+  k: { weightLb: number; wingAreaSqFt: number; meanChordIn: number },
+  ctx: z.RefinementCtx,
+): void {
   // Fields already refused on their own are told once, by their own message.
   if (![k.weightLb, k.wingAreaSqFt, k.meanChordIn].every((v) => typeof v === 'number' && v > 0)) return;
   const ar = (k.wingAreaSqFt * SQIN_PER_SQFT) / (k.meanChordIn * k.meanChordIn);
   if (ar < ASPECT_RATIO_RANGE.min || ar > ASPECT_RATIO_RANGE.max) {
     ctx.addIssue({
-      code: 'custom', path: ['meanChordIn'],
+      code: 'custom',
+      path: ['meanChordIn'],
       message: `a mean chord of ${k.meanChordIn} in on ${k.wingAreaSqFt} ft² gives an aspect ratio S/c² of ${ar.toPrecision(3)}: a wing has ${ASPECT_RATIO_RANGE.min} to ${ASPECT_RATIO_RANGE.max}`,
     });
   }
   const ws = k.weightLb / k.wingAreaSqFt;
   if (ws < WING_LOADING_RANGE_PSF.min || ws > WING_LOADING_RANGE_PSF.max) {
     ctx.addIssue({
-      code: 'custom', path: ['weightLb'],
+      code: 'custom',
+      path: ['weightLb'],
       message: `${k.weightLb} lb on ${k.wingAreaSqFt} ft² is a wing loading of ${ws.toPrecision(3)} psf: this tool takes ${WING_LOADING_RANGE_PSF.min} to ${WING_LOADING_RANGE_PSF.max} psf`,
     });
   }

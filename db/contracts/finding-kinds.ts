@@ -5,8 +5,16 @@
  */
 
 export const findingKindGroups = [
-  { group: 'hole', label: 'The hole', kinds: ['hole_elongated', 'hole_oversize', 'hole_burrs', 'hole_cracked', 'hole_edge_short', 'hole_mislocated'] },
-  { group: 'shop_head', label: 'Shop head (solid rivet)', kinds: ['shop_head_small', 'shop_head_flat_or_tall', 'shop_head_clinched', 'shop_head_cracked'] },
+  {
+    group: 'hole',
+    label: 'The hole',
+    kinds: ['hole_elongated', 'hole_oversize', 'hole_burrs', 'hole_cracked', 'hole_edge_short', 'hole_mislocated'],
+  },
+  {
+    group: 'shop_head',
+    label: 'Shop head (solid rivet)',
+    kinds: ['shop_head_small', 'shop_head_flat_or_tall', 'shop_head_clinched', 'shop_head_cracked'],
+  },
   { group: 'manufactured_head', label: 'Manufactured head', kinds: ['head_not_seated', 'head_proud'] },
   { group: 'countersink', label: 'Countersink or dimple', kinds: ['countersink_too_deep', 'dimple_cracked'] },
   { group: 'blind_rivet', label: 'Blind rivet', kinds: ['blind_stem', 'blind_head_gap', 'blind_wrong_grip'] },
@@ -18,7 +26,10 @@ export type FindingKindGroup = (typeof findingKindGroups)[number]['group'];
 export type FindingKind = (typeof findingKindGroups)[number]['kinds'][number];
 
 /** Every kind, in picker order: the one list the table's enum and the contract both use. */
-export const findingKinds = findingKindGroups.flatMap((g) => g.kinds) as unknown as readonly [FindingKind, ...FindingKind[]];
+export const findingKinds = findingKindGroups.flatMap((g) => g.kinds) as unknown as readonly [
+  FindingKind,
+  ...FindingKind[],
+];
 
 export const findingKindLabels: Record<FindingKind, string> = {
   hole_elongated: 'Elongated hole',
@@ -48,7 +59,13 @@ export function groupOfFindingKind(kind: FindingKind): (typeof findingKindGroups
 }
 
 /** Measurements a finding can carry, in inches. */
-export const measureKeys = ['holeDiameterIn', 'edgeDistanceIn', 'shopHeadDiameterIn', 'shopHeadHeightIn', 'headGapIn'] as const;
+export const measureKeys = [
+  'holeDiameterIn',
+  'edgeDistanceIn',
+  'shopHeadDiameterIn',
+  'shopHeadHeightIn',
+  'headGapIn',
+] as const;
 export type MeasureKey = (typeof measureKeys)[number];
 export type Measurements = Partial<Record<MeasureKey, number>>;
 
@@ -97,7 +114,13 @@ export type MeasureBasis = { rivetDiameterIn: number; drillDiameterIn: number; c
 export const HOLE_CLEARANCE_IN = 0.003;
 /** Shop head of a solid rivet, FAA AC 43.13-1B ch. 4 and FAA-H-8083-31 ch. 4: 1.5D across, 0.5D high;
  * accepted from 1.4D across and 0.3D to 0.6D high (the acceptance band is from memory). */
-export const SHOP_HEAD = { nominalDiameter: 1.5, minDiameter: 1.4, nominalHeight: 0.5, minHeight: 0.3, maxHeight: 0.6 } as const;
+export const SHOP_HEAD = {
+  nominalDiameter: 1.5,
+  minDiameter: 1.4,
+  nominalHeight: 0.5,
+  minHeight: 0.3,
+  maxHeight: 0.6,
+} as const;
 /** A head must sit down on the sheet; a 0.002 in feeler must not enter under it (common practice, from memory). */
 export const MAX_HEAD_GAP_IN = 0.002;
 
@@ -114,7 +137,8 @@ export function judgeMeasurement(key: MeasureKey, value: number, b: MeasureBasis
       return {
         rule: `no more than the drill (${f3(b.drillDiameterIn)} in) + ${f3(HOLE_CLEARANCE_IN)} in`,
         source: 'FAA-H-8083-31 ch. 4, drill sizes for rivets (clearance from memory)',
-        pass: value <= max + 1e-6, limit: `≤ ${f3(max)} in`,
+        pass: value <= max + 1e-6,
+        limit: `≤ ${f3(max)} in`,
       };
     }
     case 'edgeDistanceIn': {
@@ -123,7 +147,8 @@ export function judgeMeasurement(key: MeasureKey, value: number, b: MeasureBasis
       return {
         rule: `at least ${k}D = ${f3(min)} in${b.countersunk ? ' (countersunk head)' : ''}`,
         source: 'FAA AC 43.13-1B ch. 4, rivet edge distance',
-        pass: value >= min - 0.0005, limit: `≥ ${f3(min)} in`,
+        pass: value >= min - 0.0005,
+        limit: `≥ ${f3(min)} in`,
       };
     }
     case 'shopHeadDiameterIn': {
@@ -131,7 +156,8 @@ export function judgeMeasurement(key: MeasureKey, value: number, b: MeasureBasis
       return {
         rule: `${SHOP_HEAD.nominalDiameter}D = ${f3(SHOP_HEAD.nominalDiameter * d)} in nominal, at least ${SHOP_HEAD.minDiameter}D = ${f3(min)} in`,
         source: 'FAA AC 43.13-1B ch. 4; FAA-H-8083-31 ch. 4 (minimum from memory)',
-        pass: value >= min - 0.0005, limit: `≥ ${f3(min)} in`,
+        pass: value >= min - 0.0005,
+        limit: `≥ ${f3(min)} in`,
       };
     }
     case 'shopHeadHeightIn': {
@@ -140,14 +166,16 @@ export function judgeMeasurement(key: MeasureKey, value: number, b: MeasureBasis
       return {
         rule: `${SHOP_HEAD.nominalHeight}D = ${f3(SHOP_HEAD.nominalHeight * d)} in nominal, ${SHOP_HEAD.minHeight}D to ${SHOP_HEAD.maxHeight}D`,
         source: 'FAA AC 43.13-1B ch. 4; FAA-H-8083-31 ch. 4 (band from memory)',
-        pass: value >= min - 0.0005 && value <= max + 0.0005, limit: `${f3(min)} to ${f3(max)} in`,
+        pass: value >= min - 0.0005 && value <= max + 0.0005,
+        limit: `${f3(min)} to ${f3(max)} in`,
       };
     }
     case 'headGapIn':
       return {
         rule: `no gap a ${f3(MAX_HEAD_GAP_IN)} in feeler enters`,
         source: 'common practice (from memory); the fastener maker’s limit governs for blind rivets',
-        pass: value <= MAX_HEAD_GAP_IN + 1e-6, limit: `≤ ${f3(MAX_HEAD_GAP_IN)} in`,
+        pass: value <= MAX_HEAD_GAP_IN + 1e-6,
+        limit: `≤ ${f3(MAX_HEAD_GAP_IN)} in`,
       };
   }
 }

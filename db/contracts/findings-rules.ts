@@ -27,12 +27,17 @@ export const dispositions = ['rework', 'repair', 'use_as_is', 'scrap', 'return_t
 export type Disposition = (typeof dispositions)[number];
 
 export const dispositionLabels: Record<Disposition, string> = {
-  rework: 'Rework', repair: 'Repair', use_as_is: 'Use as is', scrap: 'Scrap', return_to_supplier: 'Return to supplier',
+  rework: 'Rework',
+  repair: 'Repair',
+  use_as_is: 'Use as is',
+  scrap: 'Scrap',
+  return_to_supplier: 'Return to supplier',
 };
 
 export const dispositionHelp: Record<Disposition, string> = {
   rework: 'Bring the hole back to the drawing: drill out and set the same rivet again.',
-  repair: 'A departure from the drawing made acceptable (next-size rivet, doubler): the design authority approves it first.',
+  repair:
+    'A departure from the drawing made acceptable (next-size rivet, doubler): the design authority approves it first.',
   use_as_is: 'Accept the departure as it stands: the design authority approves it first.',
   scrap: 'The part is not to be used: the build gets a replacement part.',
   return_to_supplier: 'A defect of the kit part itself: it goes back, and the build gets a replacement part.',
@@ -47,17 +52,32 @@ export const findingClosures = ['accepted', 'use_as_is', 'not_a_defect', 'scrapp
 export type FindingClosure = (typeof findingClosures)[number];
 
 export const findingClosureLabels: Record<FindingClosure, string> = {
-  accepted: 'Work accepted', use_as_is: 'Used as is', not_a_defect: 'Not a defect', scrapped: 'Part scrapped', returned: 'Returned to supplier',
+  accepted: 'Work accepted',
+  use_as_is: 'Used as is',
+  not_a_defect: 'Not a defect',
+  scrapped: 'Part scrapped',
+  returned: 'Returned to supplier',
 };
 
 /** How a repair makes the departure acceptable. */
 export const repairSchemes = ['oversize_rivet', 'doubler', 'other'] as const;
 export type RepairScheme = (typeof repairSchemes)[number];
 export const repairSchemeLabels: Record<RepairScheme, string> = {
-  oversize_rivet: 'Next-size rivet', doubler: 'Doubler', other: 'Other scheme (in the note)',
+  oversize_rivet: 'Next-size rivet',
+  doubler: 'Doubler',
+  other: 'Other scheme (in the note)',
 };
 
-export const findingActions = ['disposition', 'amend', 'not-a-defect', 'approve', 'refuse', 'report-done', 'accept', 'send-back'] as const;
+export const findingActions = [
+  'disposition',
+  'amend',
+  'not-a-defect',
+  'approve',
+  'refuse',
+  'report-done',
+  'accept',
+  'send-back',
+] as const;
 export type FindingAction = (typeof findingActions)[number];
 
 export const findingActionLabels: Record<FindingAction, string> = {
@@ -76,8 +96,10 @@ export const buildPlaces = ['builder', 'inspector', 'design_authority', 'none'] 
 export type BuildPlace = (typeof buildPlaces)[number];
 
 export const buildPlaceLabels: Record<BuildPlace, string> = {
-  builder: 'a builder of this build', inspector: 'an inspector of this build',
-  design_authority: "the kit supplier's engineer (design authority)", none: 'not on this build',
+  builder: 'a builder of this build',
+  inspector: 'an inspector of this build',
+  design_authority: "the kit supplier's engineer (design authority)",
+  none: 'not on this build',
 };
 
 /** Who is mailed about an event. */
@@ -98,18 +120,19 @@ export type FindingFacts = {
 };
 
 /** What a move does to the finding's holes. `restore` puts back what they were before the flag. */
-export type HoleEffect =
-  | { to: HoleStatus }
-  | { to: 'restore'; acceptInstalled: boolean }
-  | null;
+export type HoleEffect = { to: HoleStatus } | { to: 'restore'; acceptInstalled: boolean } | null;
 
 export type Decision =
   | {
-    ok: true; status: FindingStatus; disposition: Disposition | null; closure: FindingClosure | null; holes: HoleEffect;
-    /** Scrap and return to supplier give the build a replacement traveler for the same part. */
-    replacePart: ReplacementReason | null;
-    mail: MailAudience[];
-  }
+      ok: true;
+      status: FindingStatus;
+      disposition: Disposition | null;
+      closure: FindingClosure | null;
+      holes: HoleEffect;
+      /** Scrap and return to supplier give the build a replacement traveler for the same part. */
+      replacePart: ReplacementReason | null;
+      mail: MailAudience[];
+    }
   | { ok: false; code: 403 | 409; message: string };
 
 type Rule = {
@@ -122,15 +145,18 @@ type Rule = {
 const RULES: Record<FindingAction, Rule> = {
   disposition: { who: 'inspector', from: ['raised'] },
   amend: {
-    who: 'inspector', from: ['awaiting_approval', 'work_ordered'],
+    who: 'inspector',
+    from: ['awaiting_approval', 'work_ordered'],
     when: (f) => (f.workReported ? 'the work has started: the disposition can no longer be amended' : null),
   },
   'not-a-defect': { who: 'inspector', from: ['raised'] },
   approve: { who: 'design_authority', from: ['awaiting_approval'] },
   refuse: { who: 'design_authority', from: ['awaiting_approval'] },
   'report-done': {
-    who: 'builder', from: ['work_ordered'],
-    when: (f) => (f.disposition === 'rework' || f.disposition === 'repair' ? null : 'no work is ordered on this finding'),
+    who: 'builder',
+    from: ['work_ordered'],
+    when: (f) =>
+      f.disposition === 'rework' || f.disposition === 'repair' ? null : 'no work is ordered on this finding',
   },
   accept: { who: 'inspector', from: ['work_done'] },
   'send-back': { who: 'inspector', from: ['work_done'] },
@@ -139,14 +165,27 @@ const RULES: Record<FindingAction, Rule> = {
 const words = (s: string) => s.replace(/_/g, ' ');
 
 /** Whether `action` is allowed, and if not, why (403: not yours to do; 409: not now). */
-export function checkAction(f: FindingFacts, action: FindingAction, place: BuildPlace): { ok: true } | { ok: false; code: 403 | 409; message: string } {
+export function checkAction(
+  f: FindingFacts,
+  action: FindingAction,
+  place: BuildPlace,
+): { ok: true } | { ok: false; code: 403 | 409; message: string } {
   const rule = RULES[action];
   if (place !== rule.who) {
-    return { ok: false, code: 403, message: `only ${buildPlaceLabels[rule.who]} may ${findingActionLabels[action].toLowerCase()}` };
+    return {
+      ok: false,
+      code: 403,
+      message: `only ${buildPlaceLabels[rule.who]} may ${findingActionLabels[action].toLowerCase()}`,
+    };
   }
-  if (f.partClosed) return { ok: false, code: 409, message: 'this part is signed off or replaced: its findings no longer move' };
+  if (f.partClosed)
+    return { ok: false, code: 409, message: 'this part is signed off or replaced: its findings no longer move' };
   if (!rule.from.includes(f.status)) {
-    return { ok: false, code: 409, message: `the finding is ${findingStatusLabels[f.status].toLowerCase()}: it cannot be moved this way now` };
+    return {
+      ok: false,
+      code: 409,
+      message: `the finding is ${findingStatusLabels[f.status].toLowerCase()}: it cannot be moved this way now`,
+    };
   }
   const why = rule.when?.(f);
   if (why) return { ok: false, code: 409, message: why };
@@ -177,21 +216,33 @@ function afterDisposition(d: Disposition): Omit<Extract<Decision, { ok: true }>,
  * Who is mailed about an event: whoever must act next, and the builders whenever a decision touches
  * their part. The mail worker reads the same function, so the rule and the mail cannot drift apart.
  */
-export function mailAudienceOf(action: FindingEventAction, disposition: Disposition | null, actorPlace: BuildPlace): MailAudience[] {
+export function mailAudienceOf(
+  action: FindingEventAction,
+  disposition: Disposition | null,
+  actorPlace: BuildPlace,
+): MailAudience[] {
   switch (action) {
-    case 'raise': return raiseAudience(actorPlace);
+    case 'raise':
+      return raiseAudience(actorPlace);
     case 'disposition':
     case 'amend':
       if (disposition === 'repair' || disposition === 'use_as_is') return ['design_authority', 'builders'];
       if (disposition === 'return_to_supplier') return ['builders', 'design_authority'];
       return ['builders'];
-    case 'not-a-defect': return ['builders'];
-    case 'approve': return ['inspectors', 'builders'];
-    case 'refuse': return ['inspectors'];
-    case 'report-done': return ['inspectors'];
-    case 'accept': return ['builders'];
-    case 'send-back': return ['builders'];
-    case 'part-replaced': return [];
+    case 'not-a-defect':
+      return ['builders'];
+    case 'approve':
+      return ['inspectors', 'builders'];
+    case 'refuse':
+      return ['inspectors'];
+    case 'report-done':
+      return ['inspectors'];
+    case 'accept':
+      return ['builders'];
+    case 'send-back':
+      return ['builders'];
+    case 'part-replaced':
+      return [];
   }
 }
 
@@ -219,20 +270,56 @@ function nextOf(f: FindingFacts, action: FindingAction, disposition?: Dispositio
       }
       return { disposition, ...afterDisposition(disposition) };
     case 'not-a-defect':
-      return { status: 'closed', disposition: null, closure: 'not_a_defect', holes: { to: 'restore', acceptInstalled: false }, replacePart: null };
+      return {
+        status: 'closed',
+        disposition: null,
+        closure: 'not_a_defect',
+        holes: { to: 'restore', acceptInstalled: false },
+        replacePart: null,
+      };
     case 'approve':
       return f.disposition === 'use_as_is'
-        ? { status: 'closed', disposition: f.disposition, closure: 'use_as_is', holes: { to: 'restore', acceptInstalled: true }, replacePart: null }
-        : { status: 'work_ordered', disposition: f.disposition, closure: null, holes: { to: 'held' }, replacePart: null };
+        ? {
+            status: 'closed',
+            disposition: f.disposition,
+            closure: 'use_as_is',
+            holes: { to: 'restore', acceptInstalled: true },
+            replacePart: null,
+          }
+        : {
+            status: 'work_ordered',
+            disposition: f.disposition,
+            closure: null,
+            holes: { to: 'held' },
+            replacePart: null,
+          };
     case 'refuse':
       // Back to the inspector to decide again; the holes are suspect once more.
       return { status: 'raised', disposition: null, closure: null, holes: { to: 'flagged' }, replacePart: null };
     case 'report-done':
-      return { status: 'work_done', disposition: f.disposition, closure: null, holes: { to: 'reworked' }, replacePart: null };
+      return {
+        status: 'work_done',
+        disposition: f.disposition,
+        closure: null,
+        holes: { to: 'reworked' },
+        replacePart: null,
+      };
     case 'accept':
-      return { status: 'closed', disposition: f.disposition, closure: 'accepted', holes: { to: 'accepted' }, replacePart: null };
+      return {
+        status: 'closed',
+        disposition: f.disposition,
+        closure: 'accepted',
+        holes: { to: 'accepted' },
+        replacePart: null,
+      };
     case 'send-back':
-      return { status: 'work_ordered', disposition: f.disposition, closure: null, holes: { to: 'held' }, replacePart: null };
+      return {
+        status: 'work_ordered',
+        disposition: f.disposition,
+        closure: null,
+        holes: { to: 'held' },
+        replacePart: null,
+      };
   }
 }
 
@@ -248,11 +335,21 @@ export const NOTE_MIN_LENGTH = 3;
 
 /** Which moves need a note (at least NOTE_MIN_LENGTH): a refusal or a send-back must say why. */
 export const noteRequired: Record<FindingAction, boolean> = {
-  disposition: true, amend: true, 'not-a-defect': true, approve: false, refuse: true, 'report-done': true, accept: false, 'send-back': true,
+  disposition: true,
+  amend: true,
+  'not-a-defect': true,
+  approve: false,
+  refuse: true,
+  'report-done': true,
+  accept: false,
+  'send-back': true,
 };
 
 /** Raising a finding: the builder at the bench, the inspector, or the supplier's engineer on a visit. */
-export function checkRaise(place: BuildPlace, partClosed: boolean): { ok: true } | { ok: false; code: 403 | 409; message: string } {
+export function checkRaise(
+  place: BuildPlace,
+  partClosed: boolean,
+): { ok: true } | { ok: false; code: 403 | 409; message: string } {
   if (place === 'none') return { ok: false, code: 403, message: 'only people on this build may raise a finding' };
   if (partClosed) return { ok: false, code: 409, message: 'this part is signed off or replaced: no new findings' };
   return { ok: true };
@@ -291,7 +388,9 @@ const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? o
 export function signOffReadiness(p: PartFacts): Readiness {
   if (p.replaced) return { ready: false, reasons: ['this part was replaced: sign off its replacement'] };
   if (p.signedOff) return { ready: false, reasons: ['this part is already signed off'] };
-  const notDone = Object.entries(p.holes).filter(([s]) => !holesDoneStatuses.includes(s as HoleStatus)).reduce((n, [, c]) => n + (c ?? 0), 0);
+  const notDone = Object.entries(p.holes)
+    .filter(([s]) => !holesDoneStatuses.includes(s as HoleStatus))
+    .reduce((n, [, c]) => n + (c ?? 0), 0);
   const reasons = [
     notDone ? `${plural(notDone, 'hole')} not done` : '',
     p.stepsOpen ? `${plural(p.stepsOpen, 'step')} not done` : '',
@@ -315,7 +414,11 @@ export function allowedPartActions(p: PartFacts, place: BuildPlace): PartAction[
 }
 
 /** Why a part action is refused, or null when it is allowed: the server's words for 403/409. */
-export function checkPartAction(p: PartFacts, action: PartAction, place: BuildPlace): { code: 403 | 409; message: string } | null {
+export function checkPartAction(
+  p: PartFacts,
+  action: PartAction,
+  place: BuildPlace,
+): { code: 403 | 409; message: string } | null {
   switch (action) {
     case 'tick':
     case 'step':

@@ -9,22 +9,32 @@ import { plainText, roles, type Role } from './common';
 export const organizationKinds = ['supplier', 'shop', 'inspection'] as const;
 export type OrganizationKind = (typeof organizationKinds)[number];
 export const organizationKindLabels: Record<OrganizationKind, string> = {
-  supplier: 'Kit supplier', shop: 'Build shop', inspection: 'Inspection body',
+  supplier: 'Kit supplier',
+  shop: 'Build shop',
+  inspection: 'Inspection body',
 };
 
 /** A person's place on one build; each place belongs to one account role. */
 export const memberPlaces = ['owner', 'helper', 'adviser', 'final_inspector'] as const;
 export type MemberPlace = (typeof memberPlaces)[number];
 export const memberPlaceLabels: Record<MemberPlace, string> = {
-  owner: 'Owner and builder', helper: 'Helper', adviser: 'Technical adviser', final_inspector: 'Final inspector',
+  owner: 'Owner and builder',
+  helper: 'Helper',
+  adviser: 'Technical adviser',
+  final_inspector: 'Final inspector',
 };
 export const memberRoleOfPlace: Record<MemberPlace, 'builder' | 'inspector'> = {
-  owner: 'builder', helper: 'builder', adviser: 'inspector', final_inspector: 'inspector',
+  owner: 'builder',
+  helper: 'builder',
+  adviser: 'inspector',
+  final_inspector: 'inspector',
 };
 
 /** Which account roles an organisation of each kind holds. */
 export const rolesOfOrganizationKind: Record<OrganizationKind, readonly Role[]> = {
-  supplier: ['supplier'], shop: ['builder', 'inspector'], inspection: ['inspector'],
+  supplier: ['supplier'],
+  shop: ['builder', 'inspector'],
+  inspection: ['inspector'],
 };
 
 /** One-time links: an invitation lasts a week, a password reset an hour (common practice). */
@@ -33,12 +43,19 @@ export const RESET_TTL_MINUTES = 60;
 /** The least password strength accepted, on the strength package's 0–4 scale. */
 export const MIN_PASSWORD_SCORE = 3;
 
-const email = z.email({ message: 'enter an e-mail address like name@example.com' }).max(254, 'an e-mail address is at most 254 characters')
+const email = z
+  .email({ message: 'enter an e-mail address like name@example.com' })
+  .max(254, 'an e-mail address is at most 254 characters')
   .transform((s) => s.toLowerCase());
 const personName = plainText('the name', 1, 120, 'give the person’s name');
 /** Strength is judged by the server with the strength package; here only the bounds. */
-const newPassword = z.string({ message: 'enter a password' }).min(10, 'use at least 10 characters').max(200, 'keep the password under 200 characters');
-const oneTimeToken = z.string({ message: 'the link is incomplete' }).regex(/^[A-Za-z0-9_-]{20,100}$/, 'the link is incomplete or damaged: open it again from the mail');
+const newPassword = z
+  .string({ message: 'enter a password' })
+  .min(10, 'use at least 10 characters')
+  .max(200, 'keep the password under 200 characters');
+const oneTimeToken = z
+  .string({ message: 'the link is incomplete' })
+  .regex(/^[A-Za-z0-9_-]{20,100}$/, 'the link is incomplete or damaged: open it again from the mail');
 
 export const organizationInput = z.object({
   name: plainText('the name', 2, 120, 'give the organisation’s name'),
@@ -56,11 +73,13 @@ export const inviteInput = z.object({
 });
 export type InviteInput = z.input<typeof inviteInput>;
 
-export const personUpdateInput = z.object({
-  role: z.enum(roles, { message: 'choose a role' }).optional(),
-  active: z.boolean().optional(),
-  lead: z.boolean().optional(),
-}).refine((v) => v.role !== undefined || v.active !== undefined || v.lead !== undefined, 'say what to change');
+export const personUpdateInput = z
+  .object({
+    role: z.enum(roles, { message: 'choose a role' }).optional(),
+    active: z.boolean().optional(),
+    lead: z.boolean().optional(),
+  })
+  .refine((v) => v.role !== undefined || v.active !== undefined || v.lead !== undefined, 'say what to change');
 export type PersonUpdateInput = z.input<typeof personUpdateInput>;
 
 export const acceptInvitationInput = z.object({ token: oneTimeToken, name: personName, password: newPassword });
@@ -85,18 +104,45 @@ export type AddMemberInput = z.input<typeof addMemberInput>;
 
 export const handOverInput = z.object({ userId: z.uuid({ message: 'choose the new owner' }) });
 
-export type OrganizationSummary = { id: string; name: string; kind: OrganizationKind; people: number; createdAt: string };
+export type OrganizationSummary = {
+  id: string;
+  name: string;
+  kind: OrganizationKind;
+  people: number;
+  createdAt: string;
+};
 export type PersonSummary = {
-  id: string; email: string; name: string; role: Role; organizationId: string | null; organizationName: string | null;
-  active: boolean; lead: boolean; createdAt: string;
+  id: string;
+  email: string;
+  name: string;
+  role: Role;
+  organizationId: string | null;
+  organizationName: string | null;
+  active: boolean;
+  lead: boolean;
+  createdAt: string;
   /** What the reader may change on this person. */
   allowed: PersonAction[];
 };
 export type PendingInvitation = {
-  id: string; email: string; name: string; role: Role; organizationName: string | null; invitedByName: string;
-  expiresAt: string; buildKitSerial: string | null; place: MemberPlace | null;
+  id: string;
+  email: string;
+  name: string;
+  role: Role;
+  organizationName: string | null;
+  invitedByName: string;
+  expiresAt: string;
+  buildKitSerial: string | null;
+  place: MemberPlace | null;
 };
-export type InvitationView = { email: string; name: string; role: Role; organizationName: string | null; invitedByName: string; expiresAt: string };
+export type InvitationView = {
+  email: string;
+  name: string;
+  role: Role;
+  organizationName: string | null;
+  invitedByName: string;
+  expiresAt: string;
+};
 
 export type BuildMember = { userId: string; name: string; email: string; place: MemberPlace; addedAt: string };
 export type BuildPeople = {
@@ -122,16 +168,22 @@ export type PersonAction = (typeof personActions)[number];
 export function mayInvite(who: Manager, role: Role, organizationId: string | null): string | null {
   if (who.role === 'admin') return null;
   if (who.role === 'supplier' && who.lead) {
-    return role === 'supplier' && organizationId === who.organizationId ? null : 'a lead engineer invites engineers of their own organisation only';
+    return role === 'supplier' && organizationId === who.organizationId
+      ? null
+      : 'a lead engineer invites engineers of their own organisation only';
   }
   return 'only an admin or a supplier’s lead engineer manages people';
 }
 
 /** What `who` may change on `person`: nobody changes themselves here (their own account page does that). */
-export function allowedPersonActions(who: Manager, person: { id: string; role: Role; organizationId: string | null; active: boolean; lead: boolean }): PersonAction[] {
+export function allowedPersonActions(
+  who: Manager,
+  person: { id: string; role: Role; organizationId: string | null; active: boolean; lead: boolean },
+): PersonAction[] {
   if (who.id === person.id) return [];
-  const manages = who.role === 'admin'
-    || (who.role === 'supplier' && who.lead && person.role === 'supplier' && person.organizationId === who.organizationId);
+  const manages =
+    who.role === 'admin' ||
+    (who.role === 'supplier' && who.lead && person.role === 'supplier' && person.organizationId === who.organizationId);
   if (!manages) return [];
   const out: PersonAction[] = [];
   if (who.role === 'admin') out.push('change-role');
@@ -144,7 +196,11 @@ export const buildPeopleActions = ['add', 'remove', 'hand-over'] as const;
 export type BuildPeopleAction = (typeof buildPeopleActions)[number];
 
 /** The supplier who shipped the build (its engineers) and the build's owner manage its people. */
-export function allowedBuildPeopleActions(who: { role: Role; organizationId: string | null }, build: { organizationId: string }, readerPlace: MemberPlace | null): BuildPeopleAction[] {
+export function allowedBuildPeopleActions(
+  who: { role: Role; organizationId: string | null },
+  build: { organizationId: string },
+  readerPlace: MemberPlace | null,
+): BuildPeopleAction[] {
   const supplier = who.role === 'supplier' && who.organizationId === build.organizationId;
   if (supplier || readerPlace === 'owner') return ['add', 'remove', 'hand-over'];
   return [];

@@ -2,7 +2,13 @@ import { z } from 'zod';
 import type { FastenerLine, PartKind } from './designs';
 import type { FindingSummary } from './findings';
 import { pageQuery, plainText } from './common';
-import { NOTE_MIN_LENGTH, type BuildPlace, type PartAction, type Readiness, type ReplacementReason } from './findings-rules';
+import {
+  NOTE_MIN_LENGTH,
+  type BuildPlace,
+  type PartAction,
+  type Readiness,
+  type ReplacementReason,
+} from './findings-rules';
 
 export const holeStatuses = ['pending', 'installed', 'flagged', 'held', 'reworked', 'accepted'] as const;
 export type HoleStatus = (typeof holeStatuses)[number];
@@ -29,10 +35,21 @@ export const lookupInput = z.object({
 export type Hole = { holeId: string; line: string; seq: number; stationIn: number; status: HoleStatus };
 
 export type TravelerSummary = {
-  id: string; serial: string; shortCode: string; buildId: string; kitSerial: string;
-  partNumber: string; partName: string; kind: PartKind; letter: string;
+  id: string;
+  serial: string;
+  shortCode: string;
+  buildId: string;
+  kitSerial: string;
+  partNumber: string;
+  partName: string;
+  kind: PartKind;
+  letter: string;
   /** Done for good (installed, accepted); awaiting the inspector (flagged, reworked) counted apart. */
-  holesTotal: number; holesDone: number; holesAwaitingInspector: number; openFindings: number; signedOff: boolean;
+  holesTotal: number;
+  holesDone: number;
+  holesAwaitingInspector: number;
+  openFindings: number;
+  signedOff: boolean;
   newerRevision: string | null;
   /** Scrapped or returned: the part stays in the record, and `byId` carries on in its place. */
   replaced: { byId: string; reason: ReplacementReason } | null;
@@ -52,17 +69,25 @@ export type TravelerListQuery = z.infer<typeof travelerListQuery>;
 export type TravelerListShow = TravelerListQuery['show'];
 
 export type TravelerDetail = TravelerSummary & {
-  material: string; gaugeIn: number; rivetSpec: string; drillSize: string; drillDiameterIn: number;
-  edgeDistanceIn: number; chordIn: number; lines: FastenerLine[];
+  material: string;
+  gaugeIn: number;
+  rivetSpec: string;
+  drillSize: string;
+  drillDiameterIn: number;
+  edgeDistanceIn: number;
+  chordIn: number;
+  lines: FastenerLine[];
   /** The rivet from the engine's catalogue (null: a rivet outside it), for judging measured values. */
-  rivetDiameterIn: number | null; countersunk: boolean;
+  rivetDiameterIn: number | null;
+  countersunk: boolean;
   /** Part outline in inches (x aft, y up), for the drawing; closed polygon. */
   outline: [number, number][];
   holes: Hole[];
   steps: { id: string; seq: number; text: string; doneAt: string | null; doneByName: string | null }[];
   findings: FindingSummary[];
   approvedByName: string | null;
-  signedOffAt: string | null; signedOffByName: string | null;
+  signedOffAt: string | null;
+  signedOffByName: string | null;
   /** The reader's place on the build, what they may do on the part now, and why it cannot be signed off yet. */
   place: BuildPlace;
   allowedActions: PartAction[];
@@ -89,25 +114,60 @@ export function mayPrintLabels(place: BuildPlace, isAdmin: boolean, scope: 'buil
 
 /** What a label says: enough to tell the part from any other on a shelf, without the app. */
 export type PartLabel = {
-  travelerId: string; serial: string; shortCode: string; partNumber: string; partName: string; letter: string;
-  kitModelCode: string; kitModelName: string; supplierName: string; kitSerial: string;
-  url: string; qrDataUrl: string;
+  travelerId: string;
+  serial: string;
+  shortCode: string;
+  partNumber: string;
+  partName: string;
+  letter: string;
+  kitModelCode: string;
+  kitModelName: string;
+  supplierName: string;
+  kitSerial: string;
+  url: string;
+  qrDataUrl: string;
 };
 
 /** The label stocks we lay out for; each prints one label per page except the sheet. */
 export const labelSizes = ['sheet', '2x1in', '62mm'] as const;
 export type LabelSize = (typeof labelSizes)[number];
-export const labelSizeInfo: Record<LabelSize, { name: string; hint: string; pageCss: string; widthMm: number; heightMm: number | null }> = {
-  sheet: { name: 'Sheet', hint: 'Letter or A4 paper, as many labels a page as fit; cut them out', pageCss: 'size: auto; margin: 10mm;', widthMm: 85, heightMm: null },
+export const labelSizeInfo: Record<
+  LabelSize,
+  { name: string; hint: string; pageCss: string; widthMm: number; heightMm: number | null }
+> = {
+  sheet: {
+    name: 'Sheet',
+    hint: 'Letter or A4 paper, as many labels a page as fit; cut them out',
+    pageCss: 'size: auto; margin: 10mm;',
+    widthMm: 85,
+    heightMm: null,
+  },
   // 2 × 1 in die-cut labels are 50.8 × 25.4 mm (common practice for small thermal label printers).
-  '2x1in': { name: '2 × 1 in', hint: 'Die-cut 2 × 1 in labels, one per label', pageCss: 'size: 2in 1in; margin: 0;', widthMm: 50.8, heightMm: 25.4 },
+  '2x1in': {
+    name: '2 × 1 in',
+    hint: 'Die-cut 2 × 1 in labels, one per label',
+    pageCss: 'size: 2in 1in; margin: 0;',
+    widthMm: 50.8,
+    heightMm: 25.4,
+  },
   // A 62 mm continuous roll is cut to length after each label; 32 mm holds the QR and six lines.
-  '62mm': { name: '62 mm roll', hint: '62 mm continuous roll, cut after each label', pageCss: 'size: 62mm 32mm; margin: 0;', widthMm: 62, heightMm: 32 },
+  '62mm': {
+    name: '62 mm roll',
+    hint: '62 mm continuous roll, cut after each label',
+    pageCss: 'size: 62mm 32mm; margin: 0;',
+    widthMm: 62,
+    heightMm: 32,
+  },
 };
 
 /** GET /api/travelers/labels: a whole build's labels, or one part's. */
-export const labelsQuery = z.object({
-  buildId: z.uuid({ message: 'buildId must be the id of a build' }).optional(),
-  travelerId: z.uuid({ message: 'travelerId must be the id of a part' }).optional(),
-}).refine((q) => (q.buildId ? 1 : 0) + (q.travelerId ? 1 : 0) === 1, { message: 'give either a buildId or a travelerId', path: ['buildId'] });
+export const labelsQuery = z
+  .object({
+    buildId: z.uuid({ message: 'buildId must be the id of a build' }).optional(),
+    travelerId: z.uuid({ message: 'travelerId must be the id of a part' }).optional(),
+  })
+  .refine((q) => (q.buildId ? 1 : 0) + (q.travelerId ? 1 : 0) === 1, {
+    message: 'give either a buildId or a travelerId',
+    path: ['buildId'],
+  });
 export type LabelsQuery = z.infer<typeof labelsQuery>;

@@ -9,7 +9,8 @@ export const authKeys = {
 };
 
 export const authQueries = {
-  me: () => queryOptions({ queryKey: authKeys.me(), queryFn: ({ signal }) => api.get<SessionUser>('/api/auth/me', signal) }),
+  me: () =>
+    queryOptions({ queryKey: authKeys.me(), queryFn: ({ signal }) => api.get<SessionUser>('/api/auth/me', signal) }),
 };
 
 export function useAuthSignInMutation() {

@@ -29,25 +29,37 @@ export const buildLogKeys = {
   all: ['builds', 'log'] as const,
   build: (buildId: string) => [...buildLogKeys.all, buildId] as const,
   filtered: (buildId: string, f: BuildLogServerFilters = {}) =>
-    [...buildLogKeys.build(buildId), { group: f.group ?? 'all', travelerId: f.travelerId ?? null, ...(f.text?.trim() ? { text: f.text.trim() } : {}) }] as const,
+    [
+      ...buildLogKeys.build(buildId),
+      { group: f.group ?? 'all', travelerId: f.travelerId ?? null, ...(f.text?.trim() ? { text: f.text.trim() } : {}) },
+    ] as const,
 };
 
 export const buildLogQueries = {
   /** The log newest first, a page at a time; the first page also names the build and its parts. */
-  filtered: (buildId: string, f: BuildLogServerFilters = {}) => infiniteQueryOptions({
-    queryKey: buildLogKeys.filtered(buildId, f),
-    queryFn: ({ pageParam, signal }) => api.get<BuildLogPage>(pagePath(logPath(buildId), pageParam, {
-      kind: f.group && f.group !== 'all' ? f.group : undefined,
-      travelerId: f.travelerId ?? undefined,
-      q: f.text?.trim() || undefined,
-    }), signal),
-    ...pageParams,
-  }),
+  filtered: (buildId: string, f: BuildLogServerFilters = {}) =>
+    infiniteQueryOptions({
+      queryKey: buildLogKeys.filtered(buildId, f),
+      queryFn: ({ pageParam, signal }) =>
+        api.get<BuildLogPage>(
+          pagePath(logPath(buildId), pageParam, {
+            kind: f.group && f.group !== 'all' ? f.group : undefined,
+            travelerId: f.travelerId ?? undefined,
+            q: f.text?.trim() || undefined,
+          }),
+          signal,
+        ),
+      ...pageParams,
+    }),
 };
 
 /** The log of one build; switching a filter keeps the last answer on screen until the new one arrives. */
 export function useBuildLogQuery(buildId: string, f: BuildLogServerFilters = {}) {
-  return useInfiniteQuery({ ...buildLogQueries.filtered(buildId, f), enabled: !!buildId, placeholderData: keepPreviousData });
+  return useInfiniteQuery({
+    ...buildLogQueries.filtered(buildId, f),
+    enabled: !!buildId,
+    placeholderData: keepPreviousData,
+  });
 }
 
 /** The zone the device's clock is in, so an export prints the times the person saw. */
@@ -62,7 +74,11 @@ export function deviceTimeZone(): string | undefined {
 function fileNameFrom(disposition: string | null, fallback: string): string {
   const star = disposition?.match(/filename\*=UTF-8''([^;]+)/i);
   if (star) {
-    try { return decodeURIComponent(star[1]); } catch { /* fall through to the plain name */ }
+    try {
+      return decodeURIComponent(star[1]);
+    } catch {
+      /* fall through to the plain name */
+    }
   }
   return disposition?.match(/filename="([^"]+)"/i)?.[1] ?? fallback;
 }
@@ -90,11 +106,15 @@ export function useBuildLogExportMutation(buildId: string) {
   return useMutation({
     retry: false,
     mutationFn: async ({ format, filters }: { format: BuildLogFormat; filters: BuildLogExportFilters }) => {
-      if (Platform.OS !== 'web') throw new Error('Exports are saved from the web app: open Pitchcard in a browser to export the log.');
+      if (Platform.OS !== 'web')
+        throw new Error('Exports are saved from the web app: open Pitchcard in a browser to export the log.');
       let res: Response;
       try {
         res = await fetch(url(`${logPath(buildId, `.${format}`)}${logQueryString(filters)}`), {
-          headers: { Accept: format === 'pdf' ? 'application/pdf' : 'text/csv', ...(session.token ? { Authorization: `Bearer ${session.token}` } : {}) },
+          headers: {
+            Accept: format === 'pdf' ? 'application/pdf' : 'text/csv',
+            ...(session.token ? { Authorization: `Bearer ${session.token}` } : {}),
+          },
         });
       } catch {
         throw new ApiError(0, 'network', networkMessage);
@@ -102,7 +122,12 @@ export function useBuildLogExportMutation(buildId: string) {
       if (!res.ok) {
         if (res.status === 401) void session.signOut('Your session ran out. Please sign in again.');
         const body = (await res.json().catch(() => null)) as ApiErrorBody | null;
-        throw new ApiError(res.status, body?.error?.code ?? String(res.status), body?.error?.message ?? `The export failed (${res.status}). Try again.`, body?.error?.fields);
+        throw new ApiError(
+          res.status,
+          body?.error?.code ?? String(res.status),
+          body?.error?.message ?? `The export failed (${res.status}). Try again.`,
+          body?.error?.fields,
+        );
       }
       const name = fileNameFrom(res.headers.get('Content-Disposition'), `build-log.${format}`);
       saveInBrowser(await res.blob(), name);

@@ -1,5 +1,20 @@
-import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { AddMemberInput, BuildChangeInput, BuildDetail, BuildInput, BuildSummary, Page, TravelerSummary } from '@/db/contracts';
+import {
+  infiniteQueryOptions,
+  queryOptions,
+  useInfiniteQuery,
+  useMutation,
+  useQuery,
+  useQueryClient,
+} from '@tanstack/react-query';
+import type {
+  AddMemberInput,
+  BuildChangeInput,
+  BuildDetail,
+  BuildInput,
+  BuildSummary,
+  Page,
+  TravelerSummary,
+} from '@/db/contracts';
 import { api, apiRequest } from '@/lib/api-client';
 import { pageParams, pagePath } from './paged';
 import { travelerKeys } from './travelers';
@@ -16,15 +31,17 @@ export const buildKeys = {
 
 export const buildQueries = {
   /** The reader's builds, a page at a time (newest first). */
-  list: () => infiniteQueryOptions({
-    queryKey: buildKeys.list(),
-    queryFn: ({ signal, pageParam }) => api.get<Page<BuildSummary>>(pagePath('/api/builds', pageParam), signal),
-    ...pageParams,
-  }),
-  detail: (id: string) => queryOptions({
-    queryKey: buildKeys.detail(id),
-    queryFn: ({ signal }) => api.get<BuildPage>(`/api/builds/${encodeURIComponent(id)}`, signal),
-  }),
+  list: () =>
+    infiniteQueryOptions({
+      queryKey: buildKeys.list(),
+      queryFn: ({ signal, pageParam }) => api.get<Page<BuildSummary>>(pagePath('/api/builds', pageParam), signal),
+      ...pageParams,
+    }),
+  detail: (id: string) =>
+    queryOptions({
+      queryKey: buildKeys.detail(id),
+      queryFn: ({ signal }) => api.get<BuildPage>(`/api/builds/${encodeURIComponent(id)}`, signal),
+    }),
 };
 
 export function useBuildsQuery() {
@@ -39,10 +56,11 @@ export function useBuildCreateMutation() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (input: BuildInput) => api.post<BuildSummary>('/api/builds', input),
-    onSuccess: () => Promise.all([
-      qc.invalidateQueries({ queryKey: buildKeys.all }),
-      qc.invalidateQueries({ queryKey: travelerKeys.all }),
-    ]),
+    onSuccess: () =>
+      Promise.all([
+        qc.invalidateQueries({ queryKey: buildKeys.all }),
+        qc.invalidateQueries({ queryKey: travelerKeys.all }),
+      ]),
   });
 }
 
@@ -65,12 +83,15 @@ const buildPath = (id: string) => `/api/builds/${encodeURIComponent(id)}`;
 
 /** Adds a builder or inspector in a place; an address without an account gets an invitation. */
 export function useBuildMemberAddMutation(buildId: string) {
-  return usePeopleChange(buildId, (input: AddMemberInput) => api.post<BuildPage>(`${buildPath(buildId)}/members`, input));
+  return usePeopleChange(buildId, (input: AddMemberInput) =>
+    api.post<BuildPage>(`${buildPath(buildId)}/members`, input),
+  );
 }
 
 export function useBuildMemberRemoveMutation(buildId: string) {
   return usePeopleChange(buildId, (userId: string) =>
-    apiRequest<BuildPage>(`${buildPath(buildId)}/members/${encodeURIComponent(userId)}`, { method: 'DELETE' }));
+    apiRequest<BuildPage>(`${buildPath(buildId)}/members/${encodeURIComponent(userId)}`, { method: 'DELETE' }),
+  );
 }
 
 /** Hands the build, its log included, to another builder on it. */
@@ -85,7 +106,10 @@ export function useBuildUpdateMutation(buildId: string) {
     mutationFn: (input: BuildChangeInput) => api.patch<BuildPage>(buildPath(buildId), input),
     onSuccess: (page) => {
       qc.setQueryData(buildKeys.detail(buildId), page);
-      return Promise.all([qc.invalidateQueries({ queryKey: buildKeys.list() }), qc.invalidateQueries({ queryKey: travelerKeys.all })]);
+      return Promise.all([
+        qc.invalidateQueries({ queryKey: buildKeys.list() }),
+        qc.invalidateQueries({ queryKey: travelerKeys.all }),
+      ]);
     },
   });
 }
@@ -96,7 +120,10 @@ export function useBuildDeleteMutation(buildId: string) {
     mutationFn: () => apiRequest<void>(buildPath(buildId), { method: 'DELETE' }),
     onSuccess: () => {
       qc.removeQueries({ queryKey: buildKeys.detail(buildId) });
-      return Promise.all([qc.invalidateQueries({ queryKey: buildKeys.list() }), qc.invalidateQueries({ queryKey: travelerKeys.all })]);
+      return Promise.all([
+        qc.invalidateQueries({ queryKey: buildKeys.list() }),
+        qc.invalidateQueries({ queryKey: travelerKeys.all }),
+      ]);
     },
   });
 }

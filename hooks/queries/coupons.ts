@@ -1,4 +1,12 @@
-import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient, type InfiniteData } from '@tanstack/react-query';
+import {
+  infiniteQueryOptions,
+  queryOptions,
+  useInfiniteQuery,
+  useMutation,
+  useQuery,
+  useQueryClient,
+  type InfiniteData,
+} from '@tanstack/react-query';
 import type { CouponAllowance, CouponCorrectionInput, CouponInput, CouponTest, Page } from '@/db/contracts';
 import { api, apiRequest } from '@/lib/api-client';
 import { pageParams, pagePath } from './paged';
@@ -11,12 +19,17 @@ export const couponKeys = {
 
 export const couponQueries = {
   /** The record of tests, a page at a time (material, gauge, rivet, load). */
-  list: () => infiniteQueryOptions({
-    queryKey: couponKeys.list(),
-    queryFn: ({ signal, pageParam }) => api.get<Page<CouponTest>>(pagePath('/api/coupons', pageParam), signal),
-    ...pageParams,
-  }),
-  allowables: () => queryOptions({ queryKey: couponKeys.allowables(), queryFn: ({ signal }) => api.get<CouponAllowance[]>('/api/coupons/allowables', signal) }),
+  list: () =>
+    infiniteQueryOptions({
+      queryKey: couponKeys.list(),
+      queryFn: ({ signal, pageParam }) => api.get<Page<CouponTest>>(pagePath('/api/coupons', pageParam), signal),
+      ...pageParams,
+    }),
+  allowables: () =>
+    queryOptions({
+      queryKey: couponKeys.allowables(),
+      queryFn: ({ signal }) => api.get<CouponAllowance[]>('/api/coupons/allowables', signal),
+    }),
 };
 
 export function useCouponsQuery() {
@@ -35,8 +48,11 @@ export function useCouponCreateMutation() {
     mutationFn: (input: CouponInput) => api.post<CouponTest>('/api/coupons', input),
     onSuccess: (made) => {
       // Shown at once at the head of the first page; the refetch below puts it in its place in the order.
-      qc.setQueryData<InfiniteData<Page<CouponTest>>>(couponKeys.list(), (old) => (old?.pages.length
-        ? { ...old, pages: [{ ...old.pages[0], items: [made, ...old.pages[0].items] }, ...old.pages.slice(1)] } : old));
+      qc.setQueryData<InfiniteData<Page<CouponTest>>>(couponKeys.list(), (old) =>
+        old?.pages.length
+          ? { ...old, pages: [{ ...old.pages[0], items: [made, ...old.pages[0].items] }, ...old.pages.slice(1)] }
+          : old,
+      );
       return qc.invalidateQueries({ queryKey: couponKeys.all });
     },
   });

@@ -1,5 +1,20 @@
-import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { FindingCluster, Page, PartDesignDetail, PartDesignInput, PartDesignSummary, Revision, RevisionInput } from '@/db/contracts';
+import {
+  infiniteQueryOptions,
+  queryOptions,
+  useInfiniteQuery,
+  useMutation,
+  useQuery,
+  useQueryClient,
+} from '@tanstack/react-query';
+import type {
+  FindingCluster,
+  Page,
+  PartDesignDetail,
+  PartDesignInput,
+  PartDesignSummary,
+  Revision,
+  RevisionInput,
+} from '@/db/contracts';
 import { api, apiRequest } from '@/lib/api-client';
 import { readPages } from './kits';
 import { pageParams, pagePath } from './paged';
@@ -17,20 +32,24 @@ export const designKeys = {
 
 export const designQueries = {
   /** The part designs (of one kit, or all), a page at a time by part number. */
-  list: (kitModelId?: string) => infiniteQueryOptions({
-    queryKey: designKeys.list(kitModelId),
-    queryFn: ({ signal, pageParam }) => api.get<Page<PartDesignSummary>>(pagePath('/api/designs', pageParam, { kitModelId }), signal),
-    ...pageParams,
-  }),
+  list: (kitModelId?: string) =>
+    infiniteQueryOptions({
+      queryKey: designKeys.list(kitModelId),
+      queryFn: ({ signal, pageParam }) =>
+        api.get<Page<PartDesignSummary>>(pagePath('/api/designs', pageParam, { kitModelId }), signal),
+      ...pageParams,
+    }),
   /** One kit's part designs as one array, read page after page within the chooser's bound (hooks/queries/kits.ts). */
-  choices: (kitModelId: string) => queryOptions({
-    queryKey: designKeys.choices(kitModelId),
-    queryFn: ({ signal }) => readPages<PartDesignSummary>('/api/designs', { kitModelId }, signal),
-  }),
-  detail: (id: string) => queryOptions({
-    queryKey: designKeys.detail(id),
-    queryFn: ({ signal }) => api.get<PartDesignDetail>(`/api/designs/${encodeURIComponent(id)}`, signal),
-  }),
+  choices: (kitModelId: string) =>
+    queryOptions({
+      queryKey: designKeys.choices(kitModelId),
+      queryFn: ({ signal }) => readPages<PartDesignSummary>('/api/designs', { kitModelId }, signal),
+    }),
+  detail: (id: string) =>
+    queryOptions({
+      queryKey: designKeys.detail(id),
+      queryFn: ({ signal }) => api.get<PartDesignDetail>(`/api/designs/${encodeURIComponent(id)}`, signal),
+    }),
 };
 
 /** The catalogue's list, paged: pagedItems(data) and <LoadMore/> show it. */
@@ -46,7 +65,8 @@ export function useDesignsQuery(kitModelId: string) {
 export function useDesignFindingClustersQuery(id: string) {
   return useQuery({
     queryKey: designKeys.clusters(id),
-    queryFn: ({ signal }) => api.get<FindingCluster[]>(`/api/designs/${encodeURIComponent(id)}/finding-clusters`, signal),
+    queryFn: ({ signal }) =>
+      api.get<FindingCluster[]>(`/api/designs/${encodeURIComponent(id)}/finding-clusters`, signal),
     enabled: !!id,
   });
 }
@@ -58,7 +78,8 @@ export function useDesignQuery(id: string) {
 export function useDesignCreateMutation() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (input: { design: PartDesignInput; revision: RevisionInput }) => api.post<PartDesignDetail>('/api/designs', input),
+    mutationFn: (input: { design: PartDesignInput; revision: RevisionInput }) =>
+      api.post<PartDesignDetail>('/api/designs', input),
     onSuccess: (detail) => {
       qc.setQueryData(designKeys.detail(detail.id), detail);
       return qc.invalidateQueries({ queryKey: designKeys.lists() });
@@ -70,7 +91,8 @@ export function useDesignCreateMutation() {
 export function useDesignRevisionCreateMutation(designId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (input: RevisionInput) => api.post<Revision>(`/api/designs/${encodeURIComponent(designId)}/revisions`, input),
+    mutationFn: (input: RevisionInput) =>
+      api.post<Revision>(`/api/designs/${encodeURIComponent(designId)}/revisions`, input),
     onSuccess: () => qc.invalidateQueries({ queryKey: designKeys.all }),
   });
 }
@@ -88,7 +110,8 @@ export function useDesignRevisionPublishMutation(designId: string) {
   const qc = useQueryClient();
   return useMutation({
     // Publishing is the approval: the server names the signed-in supplier as the approver.
-    mutationFn: (revisionId: string) => api.post<Revision>(`/api/revisions/${encodeURIComponent(revisionId)}/publish`, {}),
+    mutationFn: (revisionId: string) =>
+      api.post<Revision>(`/api/revisions/${encodeURIComponent(revisionId)}/publish`, {}),
     onSuccess: () => qc.invalidateQueries({ queryKey: designKeys.all }),
   });
 }
@@ -97,7 +120,8 @@ export function useDesignRevisionPublishMutation(designId: string) {
 export function useDesignRevisionDiscardMutation(designId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (revisionId: string) => apiRequest<PartDesignDetail>(`/api/revisions/${encodeURIComponent(revisionId)}`, { method: 'DELETE' }),
+    mutationFn: (revisionId: string) =>
+      apiRequest<PartDesignDetail>(`/api/revisions/${encodeURIComponent(revisionId)}`, { method: 'DELETE' }),
     onSuccess: (detail) => {
       qc.setQueryData(designKeys.detail(designId), detail);
       return qc.invalidateQueries({ queryKey: designKeys.lists() });

@@ -1,9 +1,25 @@
 import {
-  infiniteQueryOptions, keepPreviousData, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient, type InfiniteData, type QueryClient,
+  infiniteQueryOptions,
+  keepPreviousData,
+  queryOptions,
+  useInfiniteQuery,
+  useMutation,
+  useQuery,
+  useQueryClient,
+  type InfiniteData,
+  type QueryClient,
 } from '@tanstack/react-query';
 import {
-  findingActionInput, findingActions, type FindingAction, type FindingActionInput, type FindingDetail, type FindingInput,
-  type FindingStatus, type FindingSummary, type Page, type RepairCheckResult,
+  findingActionInput,
+  findingActions,
+  type FindingAction,
+  type FindingActionInput,
+  type FindingDetail,
+  type FindingInput,
+  type FindingStatus,
+  type FindingSummary,
+  type Page,
+  type RepairCheckResult,
 } from '@/db/contracts';
 import { api, ApiError } from '@/lib/api-client';
 import { pageParams, pagePath } from './paged';
@@ -12,19 +28,31 @@ import { buildKeys } from './builds';
 import { travelerKeys } from './travelers';
 
 /** The server's filters and order of GET /api/findings (db/contracts/findings.ts `findingListQuery`). */
-export type FindingFilters = { status?: FindingStatus | 'open'; buildId?: string; travelerId?: string; order?: 'newest' | 'oldest' };
+export type FindingFilters = {
+  status?: FindingStatus | 'open';
+  buildId?: string;
+  travelerId?: string;
+  order?: 'newest' | 'oldest';
+};
 
 export const findingKeys = {
   all: ['findings'] as const,
   lists: () => [...findingKeys.all, 'list'] as const,
-  list: (f: FindingFilters = {}) => [
-    ...findingKeys.lists(),
-    { status: f.status ?? null, buildId: f.buildId ?? null, travelerId: f.travelerId ?? null, order: f.order ?? 'newest' },
-  ] as const,
+  list: (f: FindingFilters = {}) =>
+    [
+      ...findingKeys.lists(),
+      {
+        status: f.status ?? null,
+        buildId: f.buildId ?? null,
+        travelerId: f.travelerId ?? null,
+        order: f.order ?? 'newest',
+      },
+    ] as const,
   details: () => [...findingKeys.all, 'detail'] as const,
   detail: (id: string) => [...findingKeys.details(), id] as const,
   /** Under the detail, so a finding's checks go with it; `spec` null is the server's choice (next size up). */
-  repairCheck: (id: string, spec: string | null) => [...findingKeys.detail(id), 'repair-check', spec ?? 'next'] as const,
+  repairCheck: (id: string, spec: string | null) =>
+    [...findingKeys.detail(id), 'repair-check', spec ?? 'next'] as const,
 };
 
 /** The engine's repair check as the server sends it (server/engineering/repair-check.ts), one definition for both sides. */
@@ -34,27 +62,37 @@ const findingPath = (id: string, rest = '') => `/api/findings/${encodeURICompone
 
 export const findingQueries = {
   /** The findings in pages, newest first unless `order` says oldest; the server's filters go with every page. */
-  list: (f: FindingFilters = {}) => infiniteQueryOptions({
-    queryKey: findingKeys.list(f),
-    queryFn: ({ pageParam, signal }) => api.get<Page<FindingSummary>>(pagePath('/api/findings', pageParam, {
-      status: f.status, buildId: f.buildId, travelerId: f.travelerId, order: f.order === 'oldest' ? 'oldest' : undefined,
-    }), signal),
-    ...pageParams,
-  }),
-  detail: (id: string) => queryOptions({
-    queryKey: findingKeys.detail(id),
-    queryFn: ({ signal }) => api.get<FindingDetail>(findingPath(id), signal),
-  }),
+  list: (f: FindingFilters = {}) =>
+    infiniteQueryOptions({
+      queryKey: findingKeys.list(f),
+      queryFn: ({ pageParam, signal }) =>
+        api.get<Page<FindingSummary>>(
+          pagePath('/api/findings', pageParam, {
+            status: f.status,
+            buildId: f.buildId,
+            travelerId: f.travelerId,
+            order: f.order === 'oldest' ? 'oldest' : undefined,
+          }),
+          signal,
+        ),
+      ...pageParams,
+    }),
+  detail: (id: string) =>
+    queryOptions({
+      queryKey: findingKeys.detail(id),
+      queryFn: ({ signal }) => api.get<FindingDetail>(findingPath(id), signal),
+    }),
   /**
    * A question asked of the engine, nothing stored: a POST, but cached like a read so the check panel
    * and the disposition form show the same answer for the same rivet.
    */
-  repairCheck: (id: string, spec: string | null) => queryOptions({
-    queryKey: findingKeys.repairCheck(id, spec),
-    queryFn: () => api.post<RepairCheckResult>(findingPath(id, '/repair-check'), spec ? { proposedSpec: spec } : {}),
-    staleTime: Infinity,
-    retry: false,
-  }),
+  repairCheck: (id: string, spec: string | null) =>
+    queryOptions({
+      queryKey: findingKeys.repairCheck(id, spec),
+      queryFn: () => api.post<RepairCheckResult>(findingPath(id, '/repair-check'), spec ? { proposedSpec: spec } : {}),
+      staleTime: Infinity,
+      retry: false,
+    }),
 };
 
 /**
@@ -62,9 +100,14 @@ export const findingQueries = {
  * for more. `keepPrevious` shows the rows of the last filters while the new ones load (a filter change
  * does not blank the screen).
  */
-export function useFindingsQuery(filters: FindingFilters = {}, opts: { enabled?: boolean; keepPrevious?: boolean } = {}) {
+export function useFindingsQuery(
+  filters: FindingFilters = {},
+  opts: { enabled?: boolean; keepPrevious?: boolean } = {},
+) {
   return useInfiniteQuery({
-    ...findingQueries.list(filters), enabled: opts.enabled ?? true, placeholderData: opts.keepPrevious ? keepPreviousData : undefined,
+    ...findingQueries.list(filters),
+    enabled: opts.enabled ?? true,
+    placeholderData: opts.keepPrevious ? keepPreviousData : undefined,
   });
 }
 
@@ -88,12 +131,40 @@ export function patchFindingInLists(qc: QueryClient, f: FindingSummary) {
 /** The list row's fields of a finding's detail. */
 function summaryOf(f: FindingSummary): FindingSummary {
   const {
-    id, travelerId, serial, partNumber, kitSerial, buildId, holeIds, kind, status, disposition, closure, raisedByName, createdAt, updatedAt,
-    photoCount, thumbUrl,
+    id,
+    travelerId,
+    serial,
+    partNumber,
+    kitSerial,
+    buildId,
+    holeIds,
+    kind,
+    status,
+    disposition,
+    closure,
+    raisedByName,
+    createdAt,
+    updatedAt,
+    photoCount,
+    thumbUrl,
   } = f;
   return {
-    id, travelerId, serial, partNumber, kitSerial, buildId, holeIds, kind, status, disposition, closure, raisedByName, createdAt, updatedAt,
-    photoCount, thumbUrl,
+    id,
+    travelerId,
+    serial,
+    partNumber,
+    kitSerial,
+    buildId,
+    holeIds,
+    kind,
+    status,
+    disposition,
+    closure,
+    raisedByName,
+    createdAt,
+    updatedAt,
+    photoCount,
+    thumbUrl,
   };
 }
 

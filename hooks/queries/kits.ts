@@ -1,5 +1,19 @@
-import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { PAGE_SIZE_MAX, type KitChangeInput, type KitModel, type KitModelDetail, type KitModelInput, type Page } from '@/db/contracts';
+import {
+  infiniteQueryOptions,
+  queryOptions,
+  useInfiniteQuery,
+  useMutation,
+  useQuery,
+  useQueryClient,
+} from '@tanstack/react-query';
+import {
+  PAGE_SIZE_MAX,
+  type KitChangeInput,
+  type KitModel,
+  type KitModelDetail,
+  type KitModelInput,
+  type Page,
+} from '@/db/contracts';
 import { api, apiRequest } from '@/lib/api-client';
 import { designKeys } from './designs';
 import { pageParams, pagePath } from './paged';
@@ -17,20 +31,26 @@ const kitPath = (id: string) => `/api/kits/${encodeURIComponent(id)}`;
 
 export const kitQueries = {
   /** The kit models, a page at a time (by code). */
-  list: () => infiniteQueryOptions({
-    queryKey: kitKeys.list(),
-    queryFn: ({ signal, pageParam }) => api.get<Page<KitModel>>(pagePath('/api/kits', pageParam), signal),
-    ...pageParams,
-  }),
+  list: () =>
+    infiniteQueryOptions({
+      queryKey: kitKeys.list(),
+      queryFn: ({ signal, pageParam }) => api.get<Page<KitModel>>(pagePath('/api/kits', pageParam), signal),
+      ...pageParams,
+    }),
   /**
    * The kit models a form chooses from: pages of the largest size read one after another, at most
    * KIT_CHOICES_MAX_PAGES of them (a supplier has a few kits; the bound keeps a runaway list from being read whole).
    */
-  choices: () => queryOptions({
-    queryKey: kitKeys.choices(),
-    queryFn: ({ signal }) => readPages<KitModel>('/api/kits', {}, signal),
-  }),
-  detail: (id: string) => queryOptions({ queryKey: kitKeys.detail(id), queryFn: ({ signal }) => api.get<KitModelDetail>(kitPath(id), signal) }),
+  choices: () =>
+    queryOptions({
+      queryKey: kitKeys.choices(),
+      queryFn: ({ signal }) => readPages<KitModel>('/api/kits', {}, signal),
+    }),
+  detail: (id: string) =>
+    queryOptions({
+      queryKey: kitKeys.detail(id),
+      queryFn: ({ signal }) => api.get<KitModelDetail>(kitPath(id), signal),
+    }),
 };
 
 /** The kit models list, paged: pagedItems(data) and <LoadMore/> show it. */
@@ -47,7 +67,11 @@ export function useKitsQuery() {
 export const CHOICES_MAX_PAGES = 10;
 
 /** A list read page after page for a chooser, up to CHOICES_MAX_PAGES pages. */
-export async function readPages<T>(path: string, filters: Record<string, string | undefined>, signal?: AbortSignal): Promise<T[]> {
+export async function readPages<T>(
+  path: string,
+  filters: Record<string, string | undefined>,
+  signal?: AbortSignal,
+): Promise<T[]> {
   const rows: T[] = [];
   let cursor: string | null = null;
   for (let n = 0; n < CHOICES_MAX_PAGES; n++) {
@@ -79,7 +103,10 @@ export function useKitUpdateMutation(id: string) {
     mutationFn: (input: KitChangeInput) => api.patch<KitModelDetail>(kitPath(id), input),
     onSuccess: (detail) => {
       qc.setQueryData(kitKeys.detail(id), detail);
-      return Promise.all([qc.invalidateQueries({ queryKey: kitKeys.list() }), qc.invalidateQueries({ queryKey: designKeys.all })]);
+      return Promise.all([
+        qc.invalidateQueries({ queryKey: kitKeys.list() }),
+        qc.invalidateQueries({ queryKey: designKeys.all }),
+      ]);
     },
   });
 }
@@ -90,7 +117,10 @@ export function useKitDeleteMutation(id: string) {
     mutationFn: () => apiRequest<void>(kitPath(id), { method: 'DELETE' }),
     onSuccess: () => {
       qc.removeQueries({ queryKey: kitKeys.detail(id) });
-      return Promise.all([qc.invalidateQueries({ queryKey: kitKeys.list() }), qc.invalidateQueries({ queryKey: designKeys.all })]);
+      return Promise.all([
+        qc.invalidateQueries({ queryKey: kitKeys.list() }),
+        qc.invalidateQueries({ queryKey: designKeys.all }),
+      ]);
     },
   });
 }

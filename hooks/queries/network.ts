@@ -8,7 +8,11 @@ export const networkKeys = {
 };
 
 export const networkQueries = {
-  setup: () => queryOptions({ queryKey: networkKeys.setup(), queryFn: ({ signal }) => api.get<PhoneSetup>('/api/network', signal) }),
+  setup: () =>
+    queryOptions({
+      queryKey: networkKeys.setup(),
+      queryFn: ({ signal }) => api.get<PhoneSetup>('/api/network', signal),
+    }),
 };
 
 export function usePhoneSetupQuery() {

@@ -12,8 +12,11 @@ export const pageParams = {
 };
 
 /** The query string of one page of a list, with the list's own filters. */
-export const pagePath = (path: string, cursor: string | null, filters: Record<string, string | number | undefined> = {}) =>
-  `${path}${qs({ ...filters, cursor: cursor ?? undefined })}`;
+export const pagePath = (
+  path: string,
+  cursor: string | null,
+  filters: Record<string, string | number | undefined> = {},
+) => `${path}${qs({ ...filters, cursor: cursor ?? undefined })}`;
 
 /** The rows of every page loaded so far, in order. */
 export function pagedItems<T>(data: InfiniteData<Page<T>> | undefined): T[] {

@@ -1,7 +1,23 @@
-import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient, type InfiniteData } from '@tanstack/react-query';
+import {
+  infiniteQueryOptions,
+  queryOptions,
+  useInfiniteQuery,
+  useMutation,
+  useQuery,
+  useQueryClient,
+  type InfiniteData,
+} from '@tanstack/react-query';
 import type {
-  AcceptInvitationInput, InvitationView, InviteInput, OrganizationInput, OrganizationSummary, Page, PendingInvitation, PersonSummary,
-  PersonUpdateInput, SignInResult,
+  AcceptInvitationInput,
+  InvitationView,
+  InviteInput,
+  OrganizationInput,
+  OrganizationSummary,
+  Page,
+  PendingInvitation,
+  PersonSummary,
+  PersonUpdateInput,
+  SignInResult,
 } from '@/db/contracts';
 import { api, apiRequest } from '@/lib/api-client';
 import { useSession } from '../use-session';
@@ -23,30 +39,40 @@ export const invitationKeys = {
 
 export const peopleQueries = {
   /** People by name, a page at a time. */
-  list: () => infiniteQueryOptions({
-    queryKey: peopleKeys.list(),
-    queryFn: ({ signal, pageParam }) => api.get<Page<PersonSummary>>(pagePath('/api/people', pageParam), signal),
-    ...pageParams,
-  }),
+  list: () =>
+    infiniteQueryOptions({
+      queryKey: peopleKeys.list(),
+      queryFn: ({ signal, pageParam }) => api.get<Page<PersonSummary>>(pagePath('/api/people', pageParam), signal),
+      ...pageParams,
+    }),
   /** Invitations not yet taken up, oldest first, a page at a time. */
-  invitations: () => infiniteQueryOptions({
-    queryKey: peopleKeys.invitations(),
-    queryFn: ({ signal, pageParam }) => api.get<Page<PendingInvitation>>(pagePath('/api/people/invitations', pageParam), signal),
-    ...pageParams,
-  }),
+  invitations: () =>
+    infiniteQueryOptions({
+      queryKey: peopleKeys.invitations(),
+      queryFn: ({ signal, pageParam }) =>
+        api.get<Page<PendingInvitation>>(pagePath('/api/people/invitations', pageParam), signal),
+      ...pageParams,
+    }),
   /** Organisations by name, a page at a time. */
-  organizations: () => infiniteQueryOptions({
-    queryKey: peopleKeys.organizations(),
-    queryFn: ({ signal, pageParam }) => api.get<Page<OrganizationSummary>>(pagePath('/api/people/organizations', pageParam), signal),
-    ...pageParams,
-  }),
-  invitation: (token: string) => queryOptions({
-    queryKey: invitationKeys.detail(token),
-    queryFn: ({ signal }) => apiRequest<InvitationView>(`/api/invitations/${encodeURIComponent(token)}`, { signal, skipUnauthorizedHook: true }),
-    // A used or expired link stays so: asking again tells nothing new.
-    retry: false,
-    staleTime: Infinity,
-  }),
+  organizations: () =>
+    infiniteQueryOptions({
+      queryKey: peopleKeys.organizations(),
+      queryFn: ({ signal, pageParam }) =>
+        api.get<Page<OrganizationSummary>>(pagePath('/api/people/organizations', pageParam), signal),
+      ...pageParams,
+    }),
+  invitation: (token: string) =>
+    queryOptions({
+      queryKey: invitationKeys.detail(token),
+      queryFn: ({ signal }) =>
+        apiRequest<InvitationView>(`/api/invitations/${encodeURIComponent(token)}`, {
+          signal,
+          skipUnauthorizedHook: true,
+        }),
+      // A used or expired link stays so: asking again tells nothing new.
+      retry: false,
+      staleTime: Infinity,
+    }),
 };
 
 export function usePeopleQuery() {
@@ -88,8 +114,14 @@ export function usePeopleUpdateMutation() {
     mutationFn: ({ id, change }: { id: string; change: PersonUpdateInput }) =>
       api.patch<PersonSummary>(`/api/people/${encodeURIComponent(id)}`, change),
     onSuccess: (person) => {
-      qc.setQueryData<InfiniteData<Page<PersonSummary>>>(peopleKeys.list(), (list) => (list
-        ? { ...list, pages: list.pages.map((pg) => ({ ...pg, items: pg.items.map((p) => (p.id === person.id ? person : p)) })) } : list));
+      qc.setQueryData<InfiniteData<Page<PersonSummary>>>(peopleKeys.list(), (list) =>
+        list
+          ? {
+              ...list,
+              pages: list.pages.map((pg) => ({ ...pg, items: pg.items.map((p) => (p.id === person.id ? person : p)) })),
+            }
+          : list,
+      );
       // Organisation head counts and anything else derived from people.
       return qc.invalidateQueries({ queryKey: peopleKeys.all });
     },

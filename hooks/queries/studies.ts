@@ -1,5 +1,21 @@
-import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { ApplyStudyInput, Page, Revision, StudyCandidate, StudyDetail, StudyInput, StudySummary, WingStudyInput } from '@/db/contracts';
+import {
+  infiniteQueryOptions,
+  queryOptions,
+  useInfiniteQuery,
+  useMutation,
+  useQuery,
+  useQueryClient,
+} from '@tanstack/react-query';
+import type {
+  ApplyStudyInput,
+  Page,
+  Revision,
+  StudyCandidate,
+  StudyDetail,
+  StudyInput,
+  StudySummary,
+  WingStudyInput,
+} from '@/db/contracts';
 import { api, apiRequest, qs } from '@/lib/api-client';
 import { designKeys } from './designs';
 import { pageParams, pagePath } from './paged';
@@ -21,23 +37,31 @@ export type StudyBodyInput = StudyInput | WingStudyInput;
 
 export const studyQueries = {
   /** The organisation's studies, a page at a time (last changed first). */
-  list: () => infiniteQueryOptions({
-    queryKey: studyKeys.lists(),
-    queryFn: ({ signal, pageParam }) => api.get<Page<StudySummary>>(pagePath('/api/studies', pageParam), signal),
-    ...pageParams,
-  }),
-  detail: (id: string, revision?: number) => queryOptions({
-    queryKey: studyKeys.detail(id, revision),
-    queryFn: ({ signal }) => api.get<StudyDetail>(`/api/studies/${encodeURIComponent(id)}${qs({ revision })}`, signal),
-    // A stored revision never changes; only "latest" can move on.
-    staleTime: revision ? Infinity : 0,
-  }),
+  list: () =>
+    infiniteQueryOptions({
+      queryKey: studyKeys.lists(),
+      queryFn: ({ signal, pageParam }) => api.get<Page<StudySummary>>(pagePath('/api/studies', pageParam), signal),
+      ...pageParams,
+    }),
+  detail: (id: string, revision?: number) =>
+    queryOptions({
+      queryKey: studyKeys.detail(id, revision),
+      queryFn: ({ signal }) =>
+        api.get<StudyDetail>(`/api/studies/${encodeURIComponent(id)}${qs({ revision })}`, signal),
+      // A stored revision never changes; only "latest" can move on.
+      staleTime: revision ? Infinity : 0,
+    }),
   /** A rib study's candidate with its holes, recomputed by the server (only the recommended one is stored whole). */
-  candidate: (id: string, revision: number, gaugeIn: number, rivet: string) => queryOptions({
-    queryKey: studyKeys.candidate(id, revision, gaugeIn, rivet),
-    queryFn: ({ signal }) => api.get<StudyCandidate>(`/api/studies/${encodeURIComponent(id)}/candidate${qs({ gaugeIn, rivet, revision })}`, signal),
-    staleTime: Infinity,
-  }),
+  candidate: (id: string, revision: number, gaugeIn: number, rivet: string) =>
+    queryOptions({
+      queryKey: studyKeys.candidate(id, revision, gaugeIn, rivet),
+      queryFn: ({ signal }) =>
+        api.get<StudyCandidate>(
+          `/api/studies/${encodeURIComponent(id)}/candidate${qs({ gaugeIn, rivet, revision })}`,
+          signal,
+        ),
+      staleTime: Infinity,
+    }),
 };
 
 export function useStudiesQuery() {
@@ -78,7 +102,8 @@ export function useStudyCreateMutation() {
 export function useStudyUpdateMutation(id: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (input: StudyBodyInput) => apiRequest<StudyDetail>(`/api/studies/${encodeURIComponent(id)}`, { method: 'PUT', body: input }),
+    mutationFn: (input: StudyBodyInput) =>
+      apiRequest<StudyDetail>(`/api/studies/${encodeURIComponent(id)}`, { method: 'PUT', body: input }),
     onSuccess: async (detail) => {
       // The revision list of every cached revision is out of date now.
       await qc.invalidateQueries({ queryKey: studyKeys.study(id) });

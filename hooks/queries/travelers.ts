@@ -1,9 +1,25 @@
 import {
-  infiniteQueryOptions, keepPreviousData, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient, type QueryClient,
+  infiniteQueryOptions,
+  keepPreviousData,
+  queryOptions,
+  useInfiniteQuery,
+  useMutation,
+  useQuery,
+  useQueryClient,
+  type QueryClient,
 } from '@tanstack/react-query';
 import {
-  holesAwaitingInspectorStatuses, holesDoneStatuses, type Hole, type LabelsQuery, type PartLabel, type TickHolesInput, type TravelerDetail,
-  type Page, type TravelerListShow, type TravelerSummary, type WithdrawSignOffInput,
+  holesAwaitingInspectorStatuses,
+  holesDoneStatuses,
+  type Hole,
+  type LabelsQuery,
+  type PartLabel,
+  type TickHolesInput,
+  type TravelerDetail,
+  type Page,
+  type TravelerListShow,
+  type TravelerSummary,
+  type WithdrawSignOffInput,
 } from '@/db/contracts';
 import { api, ApiError } from '@/lib/api-client';
 import { queueTick, readOutbox, withPendingTicks } from '@/lib/tick-outbox';
@@ -19,9 +35,8 @@ export const travelerKeys = {
   all: ['travelers'] as const,
   lists: () => [...travelerKeys.all, 'list'] as const,
   /** One list's key with its filters; with none, the prefix of every list (what a change invalidates). */
-  list: (f?: TravelerFilters) => (f
-    ? [...travelerKeys.lists(), { show: f.show ?? 'all', q: f.q?.trim() ?? '' }] as const
-    : travelerKeys.lists()),
+  list: (f?: TravelerFilters) =>
+    f ? ([...travelerKeys.lists(), { show: f.show ?? 'all', q: f.q?.trim() ?? '' }] as const) : travelerKeys.lists(),
   details: () => [...travelerKeys.all, 'detail'] as const,
   detail: (id: string) => [...travelerKeys.details(), id] as const,
   lookup: (code: string) => [...travelerKeys.all, 'lookup', code] as const,
@@ -32,34 +47,50 @@ export const travelerKeys = {
 
 export const travelerQueries = {
   /** The parts in pages, live ones first, by serial; the server's filters go with every page. */
-  list: (f: TravelerFilters = {}) => infiniteQueryOptions({
-    queryKey: travelerKeys.list(f),
-    queryFn: ({ pageParam, signal }) => api.get<Page<TravelerSummary>>(pagePath('/api/travelers', pageParam, {
-      show: f.show && f.show !== 'all' ? f.show : undefined, q: f.q?.trim() || undefined,
-    }), signal),
-    ...pageParams,
-  }),
-  detail: (id: string) => queryOptions({
-    queryKey: travelerKeys.detail(id),
-    // Ticks still waiting on the device are shown as made, whatever the server has seen so far.
-    queryFn: async ({ signal }) => withPendingTicks(
-      await api.get<TravelerDetail>(`/api/travelers/${encodeURIComponent(id)}`, signal), await readOutbox(), applyTick),
-  }),
-  lookup: (code: string) => queryOptions({
-    queryKey: travelerKeys.lookup(code),
-    queryFn: ({ signal }) => api.get<{ id: string }>(`/api/travelers/lookup?code=${encodeURIComponent(code)}`, signal),
-    staleTime: 60_000,
-    retry: false,
-  }),
-  labels: (q: LabelsQuery) => queryOptions({
-    queryKey: travelerKeys.labels(q),
-    queryFn: ({ signal }) => {
-      const qs = q.travelerId ? `travelerId=${encodeURIComponent(q.travelerId)}` : `buildId=${encodeURIComponent(q.buildId ?? '')}`;
-      return api.get<PartLabel[]>(`/api/travelers/labels?${qs}`, signal);
-    },
-    // A refusal (loopback address, not allowed) will not change by asking again.
-    retry: false,
-  }),
+  list: (f: TravelerFilters = {}) =>
+    infiniteQueryOptions({
+      queryKey: travelerKeys.list(f),
+      queryFn: ({ pageParam, signal }) =>
+        api.get<Page<TravelerSummary>>(
+          pagePath('/api/travelers', pageParam, {
+            show: f.show && f.show !== 'all' ? f.show : undefined,
+            q: f.q?.trim() || undefined,
+          }),
+          signal,
+        ),
+      ...pageParams,
+    }),
+  detail: (id: string) =>
+    queryOptions({
+      queryKey: travelerKeys.detail(id),
+      // Ticks still waiting on the device are shown as made, whatever the server has seen so far.
+      queryFn: async ({ signal }) =>
+        withPendingTicks(
+          await api.get<TravelerDetail>(`/api/travelers/${encodeURIComponent(id)}`, signal),
+          await readOutbox(),
+          applyTick,
+        ),
+    }),
+  lookup: (code: string) =>
+    queryOptions({
+      queryKey: travelerKeys.lookup(code),
+      queryFn: ({ signal }) =>
+        api.get<{ id: string }>(`/api/travelers/lookup?code=${encodeURIComponent(code)}`, signal),
+      staleTime: 60_000,
+      retry: false,
+    }),
+  labels: (q: LabelsQuery) =>
+    queryOptions({
+      queryKey: travelerKeys.labels(q),
+      queryFn: ({ signal }) => {
+        const qs = q.travelerId
+          ? `travelerId=${encodeURIComponent(q.travelerId)}`
+          : `buildId=${encodeURIComponent(q.buildId ?? '')}`;
+        return api.get<PartLabel[]>(`/api/travelers/labels?${qs}`, signal);
+      },
+      // A refusal (loopback address, not allowed) will not change by asking again.
+      retry: false,
+    }),
 };
 
 /** QR labels of a whole build or of one part. */
@@ -72,7 +103,10 @@ export function useLabelsQuery(q: LabelsQuery) {
  * more. `keepPrevious` shows the last filters' rows while the new ones load (typing does not blank the list).
  */
 export function useTravelersQuery(filters: TravelerFilters = {}, opts: { keepPrevious?: boolean } = {}) {
-  return useInfiniteQuery({ ...travelerQueries.list(filters), placeholderData: opts.keepPrevious ? keepPreviousData : undefined });
+  return useInfiniteQuery({
+    ...travelerQueries.list(filters),
+    placeholderData: opts.keepPrevious ? keepPreviousData : undefined,
+  });
 }
 
 export function useTravelerQuery(id: string) {
@@ -108,7 +142,8 @@ function recount(detail: TravelerDetail, holes: Hole[]): TravelerDetail {
 export function applyTick(detail: TravelerDetail, input: TickHolesInput): TravelerDetail {
   const ids = new Set(input.holeIds);
   const holes = detail.holes.map((h) =>
-    ids.has(h.holeId) && (h.status === 'pending' || h.status === 'installed') ? { ...h, status: input.status } : h);
+    ids.has(h.holeId) && (h.status === 'pending' || h.status === 'installed') ? { ...h, status: input.status } : h,
+  );
   return recount(detail, holes);
 }
 
@@ -119,7 +154,10 @@ function mergeHoles(detail: TravelerDetail, changed: Hole[]): TravelerDetail {
 }
 
 export const postTick = (travelerId: string, input: TickHolesInput) =>
-  api.post<{ holes: Hole[] }>(`/api/travelers/${encodeURIComponent(travelerId)}/holes`, { holeIds: input.holeIds, status: input.status });
+  api.post<{ holes: Hole[] }>(`/api/travelers/${encodeURIComponent(travelerId)}/holes`, {
+    holeIds: input.holeIds,
+    status: input.status,
+  });
 
 /**
  * Ticking holes: shown at once (optimistic), rolled back with a message if the server refuses. With no
@@ -155,7 +193,13 @@ export function useTravelerTickMutation(travelerId: string) {
       const before = ctx?.previous;
       if (!now || !before) return;
       const prior = new Map(before.holes.map((h) => [h.holeId, h]));
-      qc.setQueryData<TravelerDetail>(key, mergeHoles(now, input.holeIds.map((id) => prior.get(id)).filter((h): h is Hole => !!h)));
+      qc.setQueryData<TravelerDetail>(
+        key,
+        mergeHoles(
+          now,
+          input.holeIds.map((id) => prior.get(id)).filter((h): h is Hole => !!h),
+        ),
+      );
     },
     onSuccess: (res) => {
       const now = qc.getQueryData<TravelerDetail>(key);
@@ -177,14 +221,18 @@ export function useTravelerStepMutation(travelerId: string) {
   const key = travelerKeys.detail(travelerId);
   return useMutation({
     mutationFn: ({ stepId, done }: { stepId: string; done: boolean }) =>
-      api.post<TravelerStep>(`/api/travelers/${encodeURIComponent(travelerId)}/steps/${encodeURIComponent(stepId)}`, { done }),
+      api.post<TravelerStep>(`/api/travelers/${encodeURIComponent(travelerId)}/steps/${encodeURIComponent(stepId)}`, {
+        done,
+      }),
     onMutate: async ({ stepId, done }) => {
       await qc.cancelQueries({ queryKey: key });
       const previous = qc.getQueryData<TravelerDetail>(key);
       if (previous) {
         qc.setQueryData<TravelerDetail>(key, {
           ...previous,
-          steps: previous.steps.map((s) => (s.id === stepId ? { ...s, doneAt: done ? new Date().toISOString() : null } : s)),
+          steps: previous.steps.map((s) =>
+            s.id === stepId ? { ...s, doneAt: done ? new Date().toISOString() : null } : s,
+          ),
         });
       }
       return { previous };
@@ -193,10 +241,8 @@ export function useTravelerStepMutation(travelerId: string) {
       if (ctx?.previous) qc.setQueryData(key, ctx.previous);
     },
     // A step done can make the part ready to sign off: the readiness and the build's count come from the server.
-    onSettled: () => Promise.all([
-      qc.invalidateQueries({ queryKey: key }),
-      qc.invalidateQueries({ queryKey: buildKeys.all }),
-    ]),
+    onSettled: () =>
+      Promise.all([qc.invalidateQueries({ queryKey: key }), qc.invalidateQueries({ queryKey: buildKeys.all })]),
   });
 }
 

@@ -22,7 +22,9 @@ export class ZodCompileUnsupportedError extends Error {
 }
 
 const leftOut = (name: string) => (): never => {
-  throw new Error(`zod's ${name} is left out of the web app (metro.config.js): schemas parse with zod's runtime parser`);
+  throw new Error(
+    `zod's ${name} is left out of the web app (metro.config.js): schemas parse with zod's runtime parser`,
+  );
 };
 
 export const compile = leftOut('z.compile');

@@ -1,6 +1,10 @@
 import { Router } from 'express';
 import {
-  changePasswordInput, forgotPasswordInput, resetPasswordInput, RESET_TTL_MINUTES, signInInput,
+  changePasswordInput,
+  forgotPasswordInput,
+  resetPasswordInput,
+  RESET_TTL_MINUTES,
+  signInInput,
 } from '../../db/contracts';
 import { withTransaction } from '../../db';
 import type { AppContext } from '../context';
@@ -9,7 +13,13 @@ import { resetMail } from '../mail/account-mail';
 import { authenticate } from '../middleware/authenticate';
 import { validateBody } from '../middleware/validate';
 import {
-  bumpSessionVersion, findLiveReset, findPasswordHash, findSessionUser, findUserForSignIn, insertPasswordReset, takePasswordReset,
+  bumpSessionVersion,
+  findLiveReset,
+  findPasswordHash,
+  findSessionUser,
+  findUserForSignIn,
+  insertPasswordReset,
+  takePasswordReset,
 } from './auth-repository';
 import { requireStrongPassword } from './password-strength';
 import { hashPassword, verifyPassword } from './passwords';
@@ -20,7 +30,10 @@ import { hashOneTimeToken, newOneTimeToken } from './tokens';
 let dummyHash: Promise<string> | null = null;
 const dummy = () => (dummyHash ??= hashPassword('no account has this password'));
 
-export function authRouter(ctx: AppContext, limits: { signIn?: import('express').RequestHandler[]; reset?: import('express').RequestHandler[] } = {}): Router {
+export function authRouter(
+  ctx: AppContext,
+  limits: { signIn?: import('express').RequestHandler[]; reset?: import('express').RequestHandler[] } = {},
+): Router {
   const r = Router();
   const signedIn = authenticate(ctx);
   const session = (userId: string) => signInResult(ctx, userId);
@@ -43,17 +56,27 @@ export function authRouter(ctx: AppContext, limits: { signIn?: import('express')
       const { token, hash } = newOneTimeToken();
       await withTransaction(ctx.pool, async (tx) => {
         await insertPasswordReset(tx.db, row.id, hash, new Date(Date.now() + RESET_TTL_MINUTES * 60_000));
-        await ctx.mailQueue.enqueue(tx, { message: resetMail({ to: row.email, name: row.name, link: `${ctx.config.publicUrl}/reset/${token}`, minutes: RESET_TTL_MINUTES }) });
+        await ctx.mailQueue.enqueue(tx, {
+          message: resetMail({
+            to: row.email,
+            name: row.name,
+            link: `${ctx.config.publicUrl}/reset/${token}`,
+            minutes: RESET_TTL_MINUTES,
+          }),
+        });
       });
     } else {
       await dummy();
     }
-    res.status(202).json({ message: 'If this address has an account, a link to set a new password is on its way. It works for one hour.' });
+    res.status(202).json({
+      message: 'If this address has an account, a link to set a new password is on its way. It works for one hour.',
+    });
   });
 
   r.post('/reset', ...(limits.reset ?? []), validateBody(resetPasswordInput), async (req, res) => {
     const { token, password } = req.body as { token: string; password: string };
-    const gone = () => badRequest('this link has expired or was already used: ask for a new one', { token: 'expired or already used' });
+    const gone = () =>
+      badRequest('this link has expired or was already used: ask for a new one', { token: 'expired or already used' });
     const live = await findLiveReset(ctx.db, hashOneTimeToken(token));
     if (!live) throw gone();
     const u = (await findSessionUser(ctx.db, live.userId))!;

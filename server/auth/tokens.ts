@@ -20,8 +20,17 @@ export function signingKey(secret: string): KeyObject {
 }
 
 /** A bearer token carries the person's session version: bumping it ends every sign-in they have. */
-export function issueToken(secret: string, ttlSeconds: number, userId: string, sessionVersion: number): { token: string; expiresAt: string } {
-  const token = jwt.sign({ ver: sessionVersion }, signingKey(secret), { algorithm: JWT_ALGORITHM, subject: userId, expiresIn: ttlSeconds });
+export function issueToken(
+  secret: string,
+  ttlSeconds: number,
+  userId: string,
+  sessionVersion: number,
+): { token: string; expiresAt: string } {
+  const token = jwt.sign({ ver: sessionVersion }, signingKey(secret), {
+    algorithm: JWT_ALGORITHM,
+    subject: userId,
+    expiresIn: ttlSeconds,
+  });
   return { token, expiresAt: new Date(Date.now() + ttlSeconds * 1000).toISOString() };
 }
 

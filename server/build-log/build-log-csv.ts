@@ -14,8 +14,23 @@ export function csvField(value: string | number | null | undefined): string {
 
 export const csvRow = (fields: readonly (string | number | null | undefined)[]) => fields.map(csvField).join(',');
 
-const HEADER = ['Date', 'Time', 'Time zone', 'UTC', 'Who', 'Role', 'Kind', 'Part number', 'Part name', 'Traveler serial',
-  'Holes', 'What happened', 'Note', 'Finding id', 'Photos'];
+const HEADER = [
+  'Date',
+  'Time',
+  'Time zone',
+  'UTC',
+  'Who',
+  'Role',
+  'Kind',
+  'Part number',
+  'Part name',
+  'Traveler serial',
+  'Holes',
+  'What happened',
+  'Note',
+  'Finding id',
+  'Photos',
+];
 
 /** The file's start: the byte-order mark lets spreadsheet programs read it as UTF-8 (names, curly quotes). */
 export const csvHead = () => `\uFEFF${csvRow(HEADER)}\r\n`;
@@ -26,8 +41,21 @@ export function csvLines(entries: readonly BuildLogEntry[], tz: string): string 
   for (const e of entries) {
     const local = zonedDateTime(new Date(e.at), tz);
     out += `${csvRow([
-      local.date, local.time, tz, e.at, e.actorName, e.actorRole, e.kind, e.partNumber, e.partName, e.travelerSerial,
-      (e.holeIds ?? []).join(' '), e.text, e.note ?? '', e.findingId ?? '', e.photos?.length ?? '',
+      local.date,
+      local.time,
+      tz,
+      e.at,
+      e.actorName,
+      e.actorRole,
+      e.kind,
+      e.partNumber,
+      e.partName,
+      e.travelerSerial,
+      (e.holeIds ?? []).join(' '),
+      e.text,
+      e.note ?? '',
+      e.findingId ?? '',
+      e.photos?.length ?? '',
     ])}\r\n`;
   }
   return out;

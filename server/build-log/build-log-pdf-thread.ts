@@ -28,7 +28,12 @@ export function reservePdfThread(): (() => void) | null {
   if (threadsReserved >= MAX_PDF_THREADS) return null;
   threadsReserved++;
   let released = false;
-  return () => { if (!released) { released = true; threadsReserved--; } };
+  return () => {
+    if (!released) {
+      released = true;
+      threadsReserved--;
+    }
+  };
 }
 /** The thread's nice value (0 normal, 19 lowest): an export may wait; the requests beside it should not. */
 const NICE = 10;
@@ -46,7 +51,11 @@ function serveThread(port: NonNullable<typeof parentPort>): void {
   // On Linux a nice value belongs to the thread (setpriority with pid 0, see setpriority(2)): this one
   // yields the CPU to the request thread when cores are short. Elsewhere it would be the whole process.
   if (process.platform === 'linux') {
-    try { os.setPriority(NICE); } catch { /* not allowed here: the export still runs */ }
+    try {
+      os.setPriority(NICE);
+    } catch {
+      /* not allowed here: the export still runs */
+    }
   }
   let pdf: ReturnType<typeof startLogPdf> | null = null;
   const out = new Writable({
@@ -59,7 +68,9 @@ function serveThread(port: NonNullable<typeof parentPort>): void {
     if (m.type === 'start') pdf = startLogPdf(out, m.head, m.opts);
     else if (m.type === 'add') {
       // Structured clone hands Buffers over as plain Uint8Arrays; pdfkit reads images from Buffers.
-      const thumbs: Thumbs = new Map(m.thumbs.map(([id, b]) => [id, Buffer.from(b.buffer, b.byteOffset, b.byteLength)]));
+      const thumbs: Thumbs = new Map(
+        m.thumbs.map(([id, b]) => [id, Buffer.from(b.buffer, b.byteOffset, b.byteLength)]),
+      );
       pdf!.add(m.entries, thumbs);
       port.postMessage({ type: 'added' } satisfies FromThread);
     } else {
@@ -73,7 +84,10 @@ function serveThread(port: NonNullable<typeof parentPort>): void {
 function threadEntry(): { file: string; eval: boolean } {
   if (__filename.endsWith('.js')) return { file: __filename, eval: false };
   // A worker thread starts with plain Node: the parent's TypeScript loader (tsx, ts-jest) is not there.
-  return { file: `require('tsx/cjs/api').require(${JSON.stringify(`./${path.basename(__filename)}`)}, ${JSON.stringify(__filename)});`, eval: true };
+  return {
+    file: `require('tsx/cjs/api').require(${JSON.stringify(`./${path.basename(__filename)}`)}, ${JSON.stringify(__filename)});`,
+    eval: true,
+  };
 }
 
 export type PdfThread = {
@@ -88,7 +102,13 @@ export type PdfThread = {
 /** Starts a document in a new thread; its bytes go to `onBytes` in order. */
 export function startPdfThread(head: PdfHead, opts: PdfOptions, onBytes: (chunk: Buffer) => void): PdfThread {
   const entry = threadEntry();
-  const worker = new Worker(entry.file, { eval: entry.eval, workerData: MARK, resourceLimits: { maxOldGenerationSizeMb: HEAP_MB }, stdout: false, stderr: false });
+  const worker = new Worker(entry.file, {
+    eval: entry.eval,
+    workerData: MARK,
+    resourceLimits: { maxOldGenerationSizeMb: HEAP_MB },
+    stdout: false,
+    stderr: false,
+  });
   let waiting: { type: FromThread['type']; resolve: () => void; reject: (err: Error) => void } | null = null;
   let failure: Error | null = null;
   const fail = (err: Error) => {
@@ -98,15 +118,25 @@ export function startPdfThread(head: PdfHead, opts: PdfOptions, onBytes: (chunk:
   };
   worker.on('message', (m: FromThread) => {
     if (m.type === 'bytes') onBytes(Buffer.from(m.chunk.buffer, m.chunk.byteOffset, m.chunk.byteLength));
-    else if (waiting?.type === m.type) { const w = waiting; waiting = null; w.resolve(); }
+    else if (waiting?.type === m.type) {
+      const w = waiting;
+      waiting = null;
+      w.resolve();
+    }
   });
   worker.on('error', (err) => fail(err));
-  worker.on('exit', (code) => fail(new Error(`the PDF thread ended (exit code ${code}) before the document was finished`)));
-  const ask = (msg: ToThread, answer: FromThread['type']) => new Promise<void>((resolve, reject) => {
-    if (failure) { reject(failure); return; }
-    waiting = { type: answer, resolve, reject };
-    worker.postMessage(msg);
-  });
+  worker.on('exit', (code) =>
+    fail(new Error(`the PDF thread ended (exit code ${code}) before the document was finished`)),
+  );
+  const ask = (msg: ToThread, answer: FromThread['type']) =>
+    new Promise<void>((resolve, reject) => {
+      if (failure) {
+        reject(failure);
+        return;
+      }
+      waiting = { type: answer, resolve, reject };
+      worker.postMessage(msg);
+    });
   worker.postMessage({ type: 'start', head, opts } satisfies ToThread);
   return {
     add: (entries, thumbs) => ask({ type: 'add', entries, thumbs: [...thumbs] }, 'added'),
@@ -114,7 +144,9 @@ export function startPdfThread(head: PdfHead, opts: PdfOptions, onBytes: (chunk:
       await ask({ type: 'end' }, 'ended');
       await worker.terminate();
     },
-    stop: async () => { await worker.terminate(); },
+    stop: async () => {
+      await worker.terminate();
+    },
   };
 }
 

@@ -35,8 +35,16 @@ export const OUT_CHUNK = 64 * 1024;
 
 // The drafting-sheet look on white paper (it gets printed): near-black ink, thin warm rules, one accent.
 const C = {
-  ink: '#1C1A16', soft: '#47433B', faint: '#6F695E', rule: '#CBC1AD', ruleStrong: '#9C917C',
-  accent: '#1F4BC2', caution: '#7A5300', cautionSoft: '#F3E6C4', band: '#EFE9DC', flag: '#C2410C',
+  ink: '#1C1A16',
+  soft: '#47433B',
+  faint: '#6F695E',
+  rule: '#CBC1AD',
+  ruleStrong: '#9C917C',
+  accent: '#1F4BC2',
+  caution: '#7A5300',
+  cautionSoft: '#F3E6C4',
+  band: '#EFE9DC',
+  flag: '#C2410C',
 };
 
 const PAGE = { width: 612, height: 792 }; // US Letter: inches are the product's default units
@@ -65,7 +73,11 @@ function registerFonts(doc: PDFKit.PDFDocument): (s: string, bold?: boolean) => 
   const faces: [string, string | null, string][] = [
     ['text', fontFile('atkinson-hyperlegible', '400Regular/AtkinsonHyperlegible_400Regular.ttf'), 'Helvetica'],
     ['bold', fontFile('atkinson-hyperlegible', '700Bold/AtkinsonHyperlegible_700Bold.ttf'), 'Helvetica-Bold'],
-    ['italic', fontFile('atkinson-hyperlegible', '400Regular_Italic/AtkinsonHyperlegible_400Regular_Italic.ttf'), 'Helvetica-Oblique'],
+    [
+      'italic',
+      fontFile('atkinson-hyperlegible', '400Regular_Italic/AtkinsonHyperlegible_400Regular_Italic.ttf'),
+      'Helvetica-Oblique',
+    ],
     ['mono', fontFile('ibm-plex-mono', '400Regular/IBMPlexMono_400Regular.ttf'), 'Courier'],
     ['monoBold', fontFile('ibm-plex-mono', '600SemiBold/IBMPlexMono_600SemiBold.ttf'), 'Courier-Bold'],
   ];
@@ -80,7 +92,12 @@ function registerFonts(doc: PDFKit.PDFDocument): (s: string, bold?: boolean) => 
   doc.registerFont('monoPlain', 'Courier');
   doc.registerFont('monoPlainBold', 'Courier-Bold');
   let spaces = true;
-  try { doc.font('mono').widthOfString('a b'); doc.font('monoBold').widthOfString('a b'); } catch { spaces = false; }
+  try {
+    doc.font('mono').widthOfString('a b');
+    doc.font('monoBold').widthOfString('a b');
+  } catch {
+    spaces = false;
+  }
   doc.font('text');
   return (s, bold) => (spaces || !/\s/.test(s) ? (bold ? 'monoBold' : 'mono') : bold ? 'monoPlainBold' : 'monoPlain');
 }
@@ -99,9 +116,13 @@ function when(iso: string | null, tz: string): string {
 export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): LogPdfWriter {
   const { build } = head;
   const doc = new PDFDocument({
-    size: 'LETTER', margins: M, bufferPages: false,
+    size: 'LETTER',
+    margins: M,
+    bufferPages: false,
     info: {
-      Title: `Build log ${build.kitSerial}`, Author: 'Pitchcard', Subject: `${build.kitName}, ${build.supplierName}`,
+      Title: `Build log ${build.kitSerial}`,
+      Author: 'Pitchcard',
+      Subject: `${build.kitName}, ${build.supplierName}`,
       CreationDate: opts.generatedAt,
     },
   });
@@ -111,7 +132,8 @@ export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): Log
   let heldBytes = 0;
   let attached = true;
   const flush = () => {
-    if (heldBytes && attached && !out.destroyed && !out.writableEnded) out.write(held.length === 1 ? held[0] : Buffer.concat(held, heldBytes));
+    if (heldBytes && attached && !out.destroyed && !out.writableEnded)
+      out.write(held.length === 1 ? held[0] : Buffer.concat(held, heldBytes));
     held = [];
     heldBytes = 0;
   };
@@ -130,10 +152,21 @@ export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): Log
   });
 
   const hrule = (y: number, color = C.rule, width = 0.5) => {
-    doc.save().moveTo(M.left, y).lineTo(PAGE.width - M.right, y).lineWidth(width).strokeColor(color).stroke().restore();
+    doc
+      .save()
+      .moveTo(M.left, y)
+      .lineTo(PAGE.width - M.right, y)
+      .lineWidth(width)
+      .strokeColor(color)
+      .stroke()
+      .restore();
   };
   const label = (s: string, x: number, y: number, width: number, color = C.faint) =>
-    doc.font('bold').fontSize(6.5).fillColor(color).text(s.toUpperCase(), x, y, { width, characterSpacing: 0.6, lineBreak: true });
+    doc
+      .font('bold')
+      .fontSize(6.5)
+      .fillColor(color)
+      .text(s.toUpperCase(), x, y, { width, characterSpacing: 0.6, lineBreak: true });
 
   // ── Footer, drawn as each page starts (also a page pdfkit adds itself for an entry taller than the room left) ──
   let pageNo = 0;
@@ -144,10 +177,20 @@ export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): Log
     doc.page.margins.bottom = 0; // writing below the margin must not start a new page
     const fy = PAGE.height - 40;
     hrule(fy - 4, C.ruleStrong);
-    doc.font('text').fontSize(7).fillColor(C.faint)
-      .text(`Pitchcard build log · ${build.kitSerial} · printed ${when(opts.generatedAt.toISOString(), opts.tz)} (${opts.tz}) · an aid, not certification`,
-        M.left, fy, { width: CONTENT_W - 80, lineBreak: false });
-    doc.font('text').fontSize(7.5).fillColor(C.ink)
+    doc
+      .font('text')
+      .fontSize(7)
+      .fillColor(C.faint)
+      .text(
+        `Pitchcard build log · ${build.kitSerial} · printed ${when(opts.generatedAt.toISOString(), opts.tz)} (${opts.tz}) · an aid, not certification`,
+        M.left,
+        fy,
+        { width: CONTENT_W - 80, lineBreak: false },
+      );
+    doc
+      .font('text')
+      .fontSize(7.5)
+      .fillColor(C.ink)
       .text(`Page ${pageNo}`, PAGE.width - M.right - 80, fy, { width: 80, align: 'right', lineBreak: false });
     doc.page.margins.bottom = bottom;
     doc.x = keep.x;
@@ -160,47 +203,107 @@ export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): Log
   let y = M.top;
   label('Build log', M.left, y, CONTENT_W, C.accent);
   y += 11;
-  doc.font(mono(build.kitSerial, true)).fontSize(20).fillColor(C.ink).text(build.kitSerial, M.left, y, { width: CONTENT_W });
+  doc
+    .font(mono(build.kitSerial, true))
+    .fontSize(20)
+    .fillColor(C.ink)
+    .text(build.kitSerial, M.left, y, { width: CONTENT_W });
   y = doc.y + 1;
-  doc.font('text').fontSize(11).fillColor(C.soft).text(`${build.kitName} · ${build.supplierName}`, M.left, y, { width: CONTENT_W });
+  doc
+    .font('text')
+    .fontSize(11)
+    .fillColor(C.soft)
+    .text(`${build.kitName} · ${build.supplierName}`, M.left, y, { width: CONTENT_W });
   y = doc.y + 8;
 
   const people = (xs: { name: string; email: string }[]) => xs.map((p) => `${p.name} <${p.email}>`).join('\n') || '–';
   const cells: [string, string, boolean?][][] = [
-    [['Kit serial', build.kitSerial, true], ['Kit', build.kitName], ['Supplier', build.supplierName]],
-    [['Builder(s)', people(build.builders)], ['Inspector(s)', people(build.inspectors)],
-      ['Entries', head.count ? `${when(head.range.from, opts.tz)}\nto ${when(head.range.to, opts.tz)}\n${head.count} in all` : 'none']],
-    [['Filters', opts.filters], ['Times shown in', opts.tz], ['Printed', `${when(opts.generatedAt.toISOString(), opts.tz)}\nby ${opts.generatedBy}`]],
+    [
+      ['Kit serial', build.kitSerial, true],
+      ['Kit', build.kitName],
+      ['Supplier', build.supplierName],
+    ],
+    [
+      ['Builder(s)', people(build.builders)],
+      ['Inspector(s)', people(build.inspectors)],
+      [
+        'Entries',
+        head.count
+          ? `${when(head.range.from, opts.tz)}\nto ${when(head.range.to, opts.tz)}\n${head.count} in all`
+          : 'none',
+      ],
+    ],
+    [
+      ['Filters', opts.filters],
+      ['Times shown in', opts.tz],
+      ['Printed', `${when(opts.generatedAt.toISOString(), opts.tz)}\nby ${opts.generatedBy}`],
+    ],
   ];
   const cellW = CONTENT_W / 3;
   const blockTop = y;
   hrule(y, C.ink, 1);
   for (const row of cells) {
-    const heights = row.map(([, v, isMono]) => doc.font(isMono ? mono(v, true) : 'text').fontSize(9).heightOfString(v, { width: cellW - 2 * PAD }));
+    const heights = row.map(([, v, isMono]) =>
+      doc
+        .font(isMono ? mono(v, true) : 'text')
+        .fontSize(9)
+        .heightOfString(v, { width: cellW - 2 * PAD }),
+    );
     const h = 10 + Math.max(...heights) + 2 * PAD;
     row.forEach(([k, v, isMono], i) => {
       const x = M.left + i * cellW;
       label(k, x + PAD, y + PAD, cellW - 2 * PAD);
-      doc.font(isMono ? mono(v, true) : 'text').fontSize(9).fillColor(C.ink).text(v, x + PAD, y + PAD + 10, { width: cellW - 2 * PAD });
-      if (i > 0) doc.save().moveTo(x, y).lineTo(x, y + h).lineWidth(0.5).strokeColor(C.rule).stroke().restore();
+      doc
+        .font(isMono ? mono(v, true) : 'text')
+        .fontSize(9)
+        .fillColor(C.ink)
+        .text(v, x + PAD, y + PAD + 10, { width: cellW - 2 * PAD });
+      if (i > 0)
+        doc
+          .save()
+          .moveTo(x, y)
+          .lineTo(x, y + h)
+          .lineWidth(0.5)
+          .strokeColor(C.rule)
+          .stroke()
+          .restore();
     });
     y += h;
     hrule(y, C.rule);
   }
   hrule(y, C.ink, 1);
-  doc.save().rect(M.left, blockTop, CONTENT_W, y - blockTop).lineWidth(1).strokeColor(C.ink).stroke().restore();
+  doc
+    .save()
+    .rect(M.left, blockTop, CONTENT_W, y - blockTop)
+    .lineWidth(1)
+    .strokeColor(C.ink)
+    .stroke()
+    .restore();
   y += 10;
 
   // ── Caution (the product's safety caution) ─────────────────────────────────────────────────────────────────
-  const cautionH = doc.font('text').fontSize(8.5).heightOfString(buildLogCaution, { width: CONTENT_W - 24 }) + 22;
+  const cautionH =
+    doc
+      .font('text')
+      .fontSize(8.5)
+      .heightOfString(buildLogCaution, { width: CONTENT_W - 24 }) + 22;
   doc.save().rect(M.left, y, CONTENT_W, cautionH).fill(C.cautionSoft).restore();
   doc.save().rect(M.left, y, 3, cautionH).fill(C.caution).restore();
   label('Caution', M.left + 12, y + 6, CONTENT_W - 24, C.caution);
-  doc.font('text').fontSize(8.5).fillColor(C.caution).text(buildLogCaution, M.left + 12, y + 16, { width: CONTENT_W - 24 });
+  doc
+    .font('text')
+    .fontSize(8.5)
+    .fillColor(C.caution)
+    .text(buildLogCaution, M.left + 12, y + 16, { width: CONTENT_W - 24 });
   y += cautionH + 14;
 
   // ── The chronological list, oldest first ───────────────────────────────────────────────────────
-  const x = { time: M.left, part: M.left + COLS.time, who: M.left + COLS.time + COLS.part, entry: M.left + COLS.time + COLS.part + COLS.who };
+  const x = {
+    time: M.left,
+    part: M.left + COLS.time,
+    who: M.left + COLS.time + COLS.part,
+    entry: M.left + COLS.time + COLS.part + COLS.who,
+  };
   const tableHeader = () => {
     hrule(y, C.ink, 1);
     label('Time', x.time + PAD, y + 4, COLS.time - PAD);
@@ -225,9 +328,20 @@ export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): Log
     const photos = e.photos ?? [];
     const perRow = Math.max(1, Math.floor((w + 4) / (THUMB + 4)));
     const photoH = photos.length ? Math.ceil(photos.length / perRow) * (THUMB + 4) + 2 : 0;
-    const partH = doc.font(mono(e.partNumber, true)).fontSize(8.5).heightOfString(e.partNumber, { width: COLS.part - 2 * PAD })
-      + doc.font(mono(e.travelerSerial)).fontSize(7).heightOfString(e.travelerSerial, { width: COLS.part - 2 * PAD });
-    const whoH = doc.font('text').fontSize(8.5).heightOfString(e.actorName, { width: COLS.who - 2 * PAD }) + 9;
+    const partH =
+      doc
+        .font(mono(e.partNumber, true))
+        .fontSize(8.5)
+        .heightOfString(e.partNumber, { width: COLS.part - 2 * PAD }) +
+      doc
+        .font(mono(e.travelerSerial))
+        .fontSize(7)
+        .heightOfString(e.travelerSerial, { width: COLS.part - 2 * PAD });
+    const whoH =
+      doc
+        .font('text')
+        .fontSize(8.5)
+        .heightOfString(e.actorName, { width: COLS.who - 2 * PAD }) + 9;
     const h = Math.max(kindH + textH + noteH + photoH, partH, whoH) + 2 * PAD;
     return { note, photos, perRow, h, w };
   };
@@ -236,15 +350,50 @@ export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): Log
     const p = entryParts(e);
     if (y + p.h > BOTTOM) newPage();
     const top = y + PAD;
-    doc.font('mono').fontSize(8.5).fillColor(C.ink).text(zonedDateTime(new Date(e.at), opts.tz).hm, x.time + PAD, top, { width: COLS.time - 2 * PAD });
-    doc.font(mono(e.partNumber, true)).fontSize(8.5).fillColor(C.ink).text(e.partNumber, x.part + PAD, top, { width: COLS.part - 2 * PAD });
-    doc.font(mono(e.travelerSerial)).fontSize(7).fillColor(C.soft).text(e.travelerSerial, x.part + PAD, doc.y, { width: COLS.part - 2 * PAD });
-    doc.font('text').fontSize(8.5).fillColor(C.ink).text(e.actorName, x.who + PAD, top, { width: COLS.who - 2 * PAD });
-    doc.font('text').fontSize(7).fillColor(C.faint).text(e.actorRole, x.who + PAD, doc.y, { width: COLS.who - 2 * PAD });
+    doc
+      .font('mono')
+      .fontSize(8.5)
+      .fillColor(C.ink)
+      .text(zonedDateTime(new Date(e.at), opts.tz).hm, x.time + PAD, top, { width: COLS.time - 2 * PAD });
+    doc
+      .font(mono(e.partNumber, true))
+      .fontSize(8.5)
+      .fillColor(C.ink)
+      .text(e.partNumber, x.part + PAD, top, { width: COLS.part - 2 * PAD });
+    doc
+      .font(mono(e.travelerSerial))
+      .fontSize(7)
+      .fillColor(C.soft)
+      .text(e.travelerSerial, x.part + PAD, doc.y, { width: COLS.part - 2 * PAD });
+    doc
+      .font('text')
+      .fontSize(8.5)
+      .fillColor(C.ink)
+      .text(e.actorName, x.who + PAD, top, { width: COLS.who - 2 * PAD });
+    doc
+      .font('text')
+      .fontSize(7)
+      .fillColor(C.faint)
+      .text(e.actorRole, x.who + PAD, doc.y, { width: COLS.who - 2 * PAD });
 
-    label(buildLogKindLabels[e.kind], x.entry + PAD, top, p.w, e.group === 'findings' ? C.flag : e.group === 'sign_off' ? C.accent : C.soft);
-    doc.font('text').fontSize(9).fillColor(C.ink).text(e.text, x.entry + PAD, top + 9, { width: p.w });
-    if (p.note) doc.font('italic').fontSize(9).fillColor(C.soft).text(p.note, x.entry + PAD, doc.y + 2, { width: p.w });
+    label(
+      buildLogKindLabels[e.kind],
+      x.entry + PAD,
+      top,
+      p.w,
+      e.group === 'findings' ? C.flag : e.group === 'sign_off' ? C.accent : C.soft,
+    );
+    doc
+      .font('text')
+      .fontSize(9)
+      .fillColor(C.ink)
+      .text(e.text, x.entry + PAD, top + 9, { width: p.w });
+    if (p.note)
+      doc
+        .font('italic')
+        .fontSize(9)
+        .fillColor(C.soft)
+        .text(p.note, x.entry + PAD, doc.y + 2, { width: p.w });
     if (p.photos.length) {
       const py = doc.y + 4;
       p.photos.forEach((ph, i) => {
@@ -256,10 +405,23 @@ export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): Log
           try {
             doc.image(bytes, px, py + row, { fit: [THUMB, THUMB], align: 'center', valign: 'center' });
             drawn = true;
-          } catch { /* not an image pdfkit reads: framed gap below */ }
+          } catch {
+            /* not an image pdfkit reads: framed gap below */
+          }
         }
-        if (!drawn) doc.font('text').fontSize(6).fillColor(C.faint).text('photo not available', px + 3, py + row + 14, { width: THUMB - 6, align: 'center' });
-        doc.save().rect(px, py + row, THUMB, THUMB).lineWidth(0.5).strokeColor(C.ruleStrong).stroke().restore();
+        if (!drawn)
+          doc
+            .font('text')
+            .fontSize(6)
+            .fillColor(C.faint)
+            .text('photo not available', px + 3, py + row + 14, { width: THUMB - 6, align: 'center' });
+        doc
+          .save()
+          .rect(px, py + row, THUMB, THUMB)
+          .lineWidth(0.5)
+          .strokeColor(C.ruleStrong)
+          .stroke()
+          .restore();
       });
     }
     y += p.h;
@@ -282,7 +444,11 @@ export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): Log
           // A day band never sits alone at the foot of a page.
           if (y + 18 + entryParts(e).h > BOTTOM) newPage();
           doc.save().rect(M.left, y, CONTENT_W, 17).fill(C.band).restore();
-          doc.font('bold').fontSize(9).fillColor(C.ink).text(longDay(d), M.left + PAD, y + 4, { width: CONTENT_W - 2 * PAD });
+          doc
+            .font('bold')
+            .fontSize(9)
+            .fillColor(C.ink)
+            .text(longDay(d), M.left + PAD, y + 4, { width: CONTENT_W - 2 * PAD });
           y += 17;
           hrule(y, C.ruleStrong);
           day = d;
@@ -293,11 +459,19 @@ export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): Log
     },
     end() {
       if (!written) {
-        doc.font('text').fontSize(10).fillColor(C.soft).text('No entries match these filters.', M.left + PAD, y + 8, { width: CONTENT_W });
+        doc
+          .font('text')
+          .fontSize(10)
+          .fillColor(C.soft)
+          .text('No entries match these filters.', M.left + PAD, y + 8, { width: CONTENT_W });
       } else {
         y += 8;
         if (y + 12 > BOTTOM) newPage();
-        doc.font('text').fontSize(8).fillColor(C.faint).text(`End of log: ${written} ${written === 1 ? 'entry' : 'entries'}.`, M.left, y, { width: CONTENT_W });
+        doc
+          .font('text')
+          .fontSize(8)
+          .fillColor(C.faint)
+          .text(`End of log: ${written} ${written === 1 ? 'entry' : 'entries'}.`, M.left, y, { width: CONTENT_W });
       }
       doc.end();
       return done;

@@ -1,7 +1,36 @@
-import { and, asc, count, desc, eq, gt, gte, inArray, lt, lte, max, min, notInArray, or, sql, type AnyColumn, type SQL } from 'drizzle-orm';
+import {
+  and,
+  asc,
+  count,
+  desc,
+  eq,
+  gt,
+  gte,
+  inArray,
+  lt,
+  lte,
+  max,
+  min,
+  notInArray,
+  or,
+  sql,
+  type AnyColumn,
+  type SQL,
+} from 'drizzle-orm';
 import type { Db } from '../../db';
 import { findingEventActions, findingLogKindOfAction, type BuildLogKind } from '../../db/contracts';
-import { buildEvents, builds, designRevisions, findingEvents, findingPhotos, findings, partDesigns, travelerEvents, travelers, users } from '../../db/schema';
+import {
+  buildEvents,
+  builds,
+  designRevisions,
+  findingEvents,
+  findingPhotos,
+  findings,
+  partDesigns,
+  travelerEvents,
+  travelers,
+  users,
+} from '../../db/schema';
 import { visibleBuilds } from '../builds/build-access';
 
 export type FindingLogKind = Extract<BuildLogKind, `finding_${string}`>;
@@ -60,7 +89,10 @@ function afterKeyOf(src: LogSource, col: AnyColumn, idCol: AnyColumn, r: LogRead
   if (!r.after) return undefined;
   const [at, s, id] = r.after;
   const t = sql`(${at}::timestamp at time zone 'UTC')`;
-  if (src === s) return r.order === 'desc' ? sql`(${col}, ${idCol}) < (${t}, ${id}::uuid)` : sql`(${col}, ${idCol}) > (${t}, ${id}::uuid)`;
+  if (src === s)
+    return r.order === 'desc'
+      ? sql`(${col}, ${idCol}) < (${t}, ${id}::uuid)`
+      : sql`(${col}, ${idCol}) > (${t}, ${id}::uuid)`;
   const sameInstantFollows = r.order === 'desc' ? src < s : src > s;
   if (r.order === 'desc') return sameInstantFollows ? lte(col, t) : lt(col, t);
   return sameInstantFollows ? gte(col, t) : gt(col, t);
@@ -70,8 +102,9 @@ const ordered = (order: LogOrder, col: AnyColumn, id: AnyColumn) =>
   order === 'desc' ? [desc(col), desc(id)] : [asc(col), asc(id)];
 
 /** Microsecond-exact UTC sort key: two events in the same millisecond still keep their order. */
-const sortKey = (col: typeof travelerEvents.createdAt | typeof findingEvents.createdAt | typeof buildEvents.createdAt) =>
-  sql<string>`to_char(${col} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US')`;
+const sortKey = (
+  col: typeof travelerEvents.createdAt | typeof findingEvents.createdAt | typeof buildEvents.createdAt,
+) => sql<string>`to_char(${col} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US')`;
 
 function travelerScope(db: Db, user: Express.User, w: LogWindow): SQL[] {
   const c: SQL[] = [visibleBuilds(db, user), eq(travelers.buildId, w.buildId)];
@@ -80,7 +113,13 @@ function travelerScope(db: Db, user: Express.User, w: LogWindow): SQL[] {
 }
 
 export async function listLogParts(db: Db, user: Express.User, buildId: string) {
-  return db.select({ travelerId: travelers.id, serial: travelers.serial, partNumber: partDesigns.partNumber, partName: partDesigns.name })
+  return db
+    .select({
+      travelerId: travelers.id,
+      serial: travelers.serial,
+      partNumber: partDesigns.partNumber,
+      partName: partDesigns.name,
+    })
     .from(travelers)
     .innerJoin(builds, eq(builds.id, travelers.buildId))
     .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
@@ -107,11 +146,21 @@ function benchConditions(db: Db, user: Express.User, w: LogWindow): SQL[] | null
 export async function listBenchEvents(db: Db, user: Express.User, w: LogWindow, r: LogRead) {
   const c = benchConditions(db, user, w);
   if (!c) return [];
-  return db.select({
-    id: travelerEvents.id, kind: travelerEvents.kind, detail: travelerEvents.detail, createdAt: travelerEvents.createdAt,
-    sortKey: sortKey(travelerEvents.createdAt), actorName: users.name, actorRole: users.role,
-    travelerId: travelers.id, serial: travelers.serial, partNumber: partDesigns.partNumber, partName: partDesigns.name,
-  }).from(travelerEvents)
+  return db
+    .select({
+      id: travelerEvents.id,
+      kind: travelerEvents.kind,
+      detail: travelerEvents.detail,
+      createdAt: travelerEvents.createdAt,
+      sortKey: sortKey(travelerEvents.createdAt),
+      actorName: users.name,
+      actorRole: users.role,
+      travelerId: travelers.id,
+      serial: travelers.serial,
+      partNumber: partDesigns.partNumber,
+      partName: partDesigns.name,
+    })
+    .from(travelerEvents)
     .innerJoin(travelers, eq(travelers.id, travelerEvents.travelerId))
     .innerJoin(builds, eq(builds.id, travelers.buildId))
     .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
@@ -135,13 +184,28 @@ function findingConditions(db: Db, user: Express.User, w: LogWindow): SQL[] | nu
 export async function listFindingLogEvents(db: Db, user: Express.User, w: LogWindow, r: LogRead) {
   const c = findingConditions(db, user, w);
   if (!c) return [];
-  return db.select({
-    id: findingEvents.id, findingId: findings.id, action: findingEvents.action, toStatus: findingEvents.toStatus, fromStatus: findingEvents.fromStatus,
-    disposition: findingEvents.disposition, note: findingEvents.note, createdAt: findingEvents.createdAt,
-    sortKey: sortKey(findingEvents.createdAt), actorName: users.name, actorRole: users.role,
-    holeIds: findings.holeIds, findingKind: findings.kind, closure: findings.closure,
-    travelerId: travelers.id, serial: travelers.serial, partNumber: partDesigns.partNumber, partName: partDesigns.name,
-  }).from(findingEvents)
+  return db
+    .select({
+      id: findingEvents.id,
+      findingId: findings.id,
+      action: findingEvents.action,
+      toStatus: findingEvents.toStatus,
+      fromStatus: findingEvents.fromStatus,
+      disposition: findingEvents.disposition,
+      note: findingEvents.note,
+      createdAt: findingEvents.createdAt,
+      sortKey: sortKey(findingEvents.createdAt),
+      actorName: users.name,
+      actorRole: users.role,
+      holeIds: findings.holeIds,
+      findingKind: findings.kind,
+      closure: findings.closure,
+      travelerId: travelers.id,
+      serial: travelers.serial,
+      partNumber: partDesigns.partNumber,
+      partName: partDesigns.name,
+    })
+    .from(findingEvents)
     .innerJoin(findings, eq(findings.id, findingEvents.findingId))
     .innerJoin(travelers, eq(travelers.id, findings.travelerId))
     .innerJoin(builds, eq(builds.id, travelers.buildId))
@@ -156,7 +220,13 @@ export async function listFindingLogEvents(db: Db, user: Express.User, w: LogWin
 /** Photos of these findings (as found: no event; of the work: its event), oldest first, only where the finding's build is visible. */
 export async function listLogPhotos(db: Db, user: Express.User, buildId: string, findingIds: string[]) {
   if (findingIds.length === 0) return [];
-  return db.select({ id: findingPhotos.id, findingId: findingPhotos.findingId, eventId: findingPhotos.eventId, thumbKey: findingPhotos.thumbKey })
+  return db
+    .select({
+      id: findingPhotos.id,
+      findingId: findingPhotos.findingId,
+      eventId: findingPhotos.eventId,
+      thumbKey: findingPhotos.thumbKey,
+    })
     .from(findingPhotos)
     .innerJoin(findings, eq(findings.id, findingPhotos.findingId))
     .innerJoin(travelers, eq(travelers.id, findings.travelerId))
@@ -178,10 +248,18 @@ function buildConditions(db: Db, user: Express.User, w: LogWindow): SQL[] | null
 export async function listBuildEvents(db: Db, user: Express.User, w: LogWindow, r: LogRead) {
   const c = buildConditions(db, user, w);
   if (!c) return [];
-  return db.select({
-    id: buildEvents.id, kind: buildEvents.kind, detail: buildEvents.detail, createdAt: buildEvents.createdAt,
-    sortKey: sortKey(buildEvents.createdAt), actorName: users.name, actorRole: users.role, kitSerial: builds.kitSerial,
-  }).from(buildEvents)
+  return db
+    .select({
+      id: buildEvents.id,
+      kind: buildEvents.kind,
+      detail: buildEvents.detail,
+      createdAt: buildEvents.createdAt,
+      sortKey: sortKey(buildEvents.createdAt),
+      actorName: users.name,
+      actorRole: users.role,
+      kitSerial: builds.kitSerial,
+    })
+    .from(buildEvents)
     .innerJoin(builds, eq(builds.id, buildEvents.buildId))
     .innerJoin(users, eq(users.id, buildEvents.actorId))
     .where(and(...c, afterKeyOf('b', buildEvents.createdAt, buildEvents.id, r)))
@@ -191,7 +269,8 @@ export async function listBuildEvents(db: Db, user: Express.User, w: LogWindow, 
 
 type Tally = { n: number; first: string | null; last: string | null };
 const tallyOf = (col: AnyColumn) => ({
-  n: count(), first: sql<string | null>`to_char(${min(col)} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US')`,
+  n: count(),
+  first: sql<string | null>`to_char(${min(col)} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US')`,
   last: sql<string | null>`to_char(${max(col)} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US')`,
 });
 
@@ -205,14 +284,39 @@ export async function tallyLog(db: Db, user: Express.User, w: LogWindow): Promis
   const uc = buildConditions(db, user, w);
   const none: Tally[] = [{ n: 0, first: null, last: null }];
   const parts = await Promise.all([
-    bc ? db.select(tallyOf(travelerEvents.createdAt)).from(travelerEvents)
-      .innerJoin(travelers, eq(travelers.id, travelerEvents.travelerId)).innerJoin(builds, eq(builds.id, travelers.buildId)).where(and(...bc)) : none,
-    fc ? db.select(tallyOf(findingEvents.createdAt)).from(findingEvents).innerJoin(findings, eq(findings.id, findingEvents.findingId))
-      .innerJoin(travelers, eq(travelers.id, findings.travelerId)).innerJoin(builds, eq(builds.id, travelers.buildId)).where(and(...fc)) : none,
-    uc ? db.select(tallyOf(buildEvents.createdAt)).from(buildEvents).innerJoin(builds, eq(builds.id, buildEvents.buildId)).where(and(...uc)) : none,
+    bc
+      ? db
+          .select(tallyOf(travelerEvents.createdAt))
+          .from(travelerEvents)
+          .innerJoin(travelers, eq(travelers.id, travelerEvents.travelerId))
+          .innerJoin(builds, eq(builds.id, travelers.buildId))
+          .where(and(...bc))
+      : none,
+    fc
+      ? db
+          .select(tallyOf(findingEvents.createdAt))
+          .from(findingEvents)
+          .innerJoin(findings, eq(findings.id, findingEvents.findingId))
+          .innerJoin(travelers, eq(travelers.id, findings.travelerId))
+          .innerJoin(builds, eq(builds.id, travelers.buildId))
+          .where(and(...fc))
+      : none,
+    uc
+      ? db
+          .select(tallyOf(buildEvents.createdAt))
+          .from(buildEvents)
+          .innerJoin(builds, eq(builds.id, buildEvents.buildId))
+          .where(and(...uc))
+      : none,
   ]);
   const all = parts.map((p) => p[0]);
-  const firsts = all.map((t) => t.first).filter((x): x is string => !!x).sort();
-  const lasts = all.map((t) => t.last).filter((x): x is string => !!x).sort();
+  const firsts = all
+    .map((t) => t.first)
+    .filter((x): x is string => !!x)
+    .sort();
+  const lasts = all
+    .map((t) => t.last)
+    .filter((x): x is string => !!x)
+    .sort();
   return { n: all.reduce((s, t) => s + Number(t.n), 0), first: firsts[0] ?? null, last: lasts.at(-1) ?? null };
 }

@@ -1,5 +1,11 @@
 import { Router, type RequestHandler, type Response } from 'express';
-import { buildLogPageQuery, buildLogQuery, idParam, type BuildLogPageQuery, type BuildLogQuery } from '../../db/contracts';
+import {
+  buildLogPageQuery,
+  buildLogQuery,
+  idParam,
+  type BuildLogPageQuery,
+  type BuildLogQuery,
+} from '../../db/contracts';
 import type { AppContext } from '../context';
 import { validateQuery } from '../middleware/validate';
 import { buildLogService } from './build-log-service';
@@ -42,11 +48,19 @@ export function buildLogRouter(ctx: AppContext, signedIn: RequestHandler): Route
   });
   r.get('/:id/log.csv', signedIn, query, async (req, res) => {
     const csv = await service.csv(req.user!, idParam.parse(req.params).id, res.locals.query as BuildLogQuery);
-    await stream(res, { 'Content-Type': 'text/csv; charset=utf-8; header=present', 'Content-Disposition': attachment(csv.filename) }, csv.write);
+    await stream(
+      res,
+      { 'Content-Type': 'text/csv; charset=utf-8; header=present', 'Content-Disposition': attachment(csv.filename) },
+      csv.write,
+    );
   });
   r.get('/:id/log.pdf', signedIn, query, async (req, res) => {
     const pdf = await service.pdf(req.user!, idParam.parse(req.params).id, res.locals.query as BuildLogQuery);
-    await stream(res, { 'Content-Type': 'application/pdf', 'Content-Disposition': attachment(pdf.filename) }, pdf.write);
+    await stream(
+      res,
+      { 'Content-Type': 'application/pdf', 'Content-Disposition': attachment(pdf.filename) },
+      pdf.write,
+    );
   });
   return r;
 }

@@ -1,7 +1,22 @@
 import type { Writable } from 'node:stream';
 import {
-  describeHoleRuns, dispositionLabels, memberPlaceLabels, memberPlaces, type MemberPlace, expandKindFilter, findingKindLabels, findingLogKindOfAction, groupOfKind, logEntryMatches,
-  type BuildLogEntry, type BuildLogGroup, type BuildLogKind, type BuildLogPage, type BuildLogPageQuery, type BuildLogPart, type BuildLogQuery,
+  describeHoleRuns,
+  dispositionLabels,
+  memberPlaceLabels,
+  memberPlaces,
+  type MemberPlace,
+  expandKindFilter,
+  findingKindLabels,
+  findingLogKindOfAction,
+  groupOfKind,
+  logEntryMatches,
+  type BuildLogEntry,
+  type BuildLogGroup,
+  type BuildLogKind,
+  type BuildLogPage,
+  type BuildLogPageQuery,
+  type BuildLogPart,
+  type BuildLogQuery,
 } from '../../db/contracts';
 import type { AppContext } from '../context';
 import { listVisibleBuilds } from '../builds/builds-repository';
@@ -11,8 +26,19 @@ import { csvHead, csvLines } from './build-log-csv';
 import type { Thumbs } from './build-log-pdf';
 import { MAX_PDF_THREADS, reservePdfThread, startPdfThread, type PdfThread } from './build-log-pdf-thread';
 import {
-  compareKeys, listBenchEvents, listBuildEvents, listFindingLogEvents, listLogParts, listLogPhotos, tallyLog,
-  type FindingLogKind, type LogKey, type LogOrder, type LogRead, type LogSource, type LogWindow,
+  compareKeys,
+  listBenchEvents,
+  listBuildEvents,
+  listFindingLogEvents,
+  listLogParts,
+  listLogPhotos,
+  tallyLog,
+  type FindingLogKind,
+  type LogKey,
+  type LogOrder,
+  type LogRead,
+  type LogSource,
+  type LogWindow,
 } from './build-log-repository';
 import { nextDay, startOfDay } from './zoned-time';
 
@@ -39,12 +65,24 @@ export const encodeLogCursor = (k: LogKey) => encodeCursor(k);
 /** The key a cursor carries; anything this server did not give (or made for another list) is a 400, never a database error. */
 export function decodeLogCursor(cursor: string): LogKey {
   let key: unknown;
-  try { key = JSON.parse(Buffer.from(cursor, 'base64url').toString('utf8')); } catch { key = null; }
-  const ok = Array.isArray(key) && key.length === 3
-    && typeof key[0] === 'string' && KEY_TIME.test(key[0]) && !Number.isNaN(Date.parse(`${key[0].slice(0, 23)}Z`))
-    && (key[1] === 'b' || key[1] === 'f' || key[1] === 't')
-    && typeof key[2] === 'string' && UUID.test(key[2]);
-  if (!ok) throw badRequest('cursor is not one this log gave: start again from the first page', { cursor: 'not a cursor of this log' });
+  try {
+    key = JSON.parse(Buffer.from(cursor, 'base64url').toString('utf8'));
+  } catch {
+    key = null;
+  }
+  const ok =
+    Array.isArray(key) &&
+    key.length === 3 &&
+    typeof key[0] === 'string' &&
+    KEY_TIME.test(key[0]) &&
+    !Number.isNaN(Date.parse(`${key[0].slice(0, 23)}Z`)) &&
+    (key[1] === 'b' || key[1] === 'f' || key[1] === 't') &&
+    typeof key[2] === 'string' &&
+    UUID.test(key[2]);
+  if (!ok)
+    throw badRequest('cursor is not one this log gave: start again from the first page', {
+      cursor: 'not a cursor of this log',
+    });
   return key as unknown as LogKey;
 }
 
@@ -58,7 +96,11 @@ const SLICE_MS = 8;
  * Runs `fn` over `items` a few at a time, giving the event loop its turn whenever SLICE_MS has passed
  * (laying out a PDF entry costs about a millisecond, so a whole batch in one go would stall the server).
  */
-async function inSlices<T>(items: readonly T[], fn: (slice: readonly T[]) => void | Promise<void>, size = 8): Promise<void> {
+async function inSlices<T>(
+  items: readonly T[],
+  fn: (slice: readonly T[]) => void | Promise<void>,
+  size = 8,
+): Promise<void> {
   let since = performance.now();
   for (let i = 0; i < items.length; i += size) {
     await fn(items.slice(i, i + size));
@@ -73,13 +115,25 @@ async function inSlices<T>(items: readonly T[], fn: (slice: readonly T[]) => voi
 function drained(out: Writable): Promise<void> {
   if (!out.writableNeedDrain || out.destroyed) return Promise.resolve();
   return new Promise((resolve) => {
-    const done = () => { out.off('drain', done); out.off('close', done); resolve(); };
+    const done = () => {
+      out.off('drain', done);
+      out.off('close', done);
+      resolve();
+    };
     out.on('drain', done);
     out.on('close', done);
   });
 }
 
-const BENCH_KINDS = ['holes_installed', 'holes_pending', 'step_done', 'step_undone', 'signed_off', 'sign_off_withdrawn', 'part_replaced'] as const;
+const BENCH_KINDS = [
+  'holes_installed',
+  'holes_pending',
+  'step_done',
+  'step_undone',
+  'signed_off',
+  'sign_off_withdrawn',
+  'part_replaced',
+] as const;
 
 // One collator for every comparison: localeCompare with options builds a new one each call (slow over 50,000 entries).
 const natural = new Intl.Collator(undefined, { numeric: true }).compare;
@@ -91,15 +145,23 @@ function holesOf(detail: Record<string, unknown>): string[] {
 }
 
 /** A bench event as a sentence. The detail is free JSON written by the travelers service. */
-export function describeBench(kind: string, detail: Record<string, unknown>): { kind: BuildLogKind; text: string; holeIds?: string[]; note?: string; group?: BuildLogGroup } {
+export function describeBench(
+  kind: string,
+  detail: Record<string, unknown>,
+): { kind: BuildLogKind; text: string; holeIds?: string[]; note?: string; group?: BuildLogGroup } {
   switch (kind) {
     case 'holes_installed':
     case 'holes_pending': {
       const holeIds = holesOf(detail);
       const runs = describeHoleRuns(holeIds);
-      const text = kind === 'holes_installed'
-        ? holeIds.length === 1 ? `Installed hole ${runs}.` : `Installed ${plural(holeIds.length, 'hole')}: ${runs}.`
-        : holeIds.length === 1 ? `Set hole ${runs} back to pending.` : `Set ${plural(holeIds.length, 'hole')} back to pending: ${runs}.`;
+      const text =
+        kind === 'holes_installed'
+          ? holeIds.length === 1
+            ? `Installed hole ${runs}.`
+            : `Installed ${plural(holeIds.length, 'hole')}: ${runs}.`
+          : holeIds.length === 1
+            ? `Set hole ${runs} back to pending.`
+            : `Set ${plural(holeIds.length, 'hole')} back to pending: ${runs}.`;
       return { kind, text, holeIds };
     }
     case 'step_done':
@@ -113,7 +175,8 @@ export function describeBench(kind: string, detail: Record<string, unknown>): { 
       return { kind, text: 'Signed the part off: every hole and step done, no finding open.' };
     case 'sign_off_withdrawn': {
       const by = typeof detail.signedOffByName === 'string' ? ` by ${detail.signedOffByName}` : '';
-      const at = typeof detail.signedOffAt === 'string' ? ` of ${detail.signedOffAt.slice(0, 16).replace('T', ' ')} UTC` : '';
+      const at =
+        typeof detail.signedOffAt === 'string' ? ` of ${detail.signedOffAt.slice(0, 16).replace('T', ' ')} UTC` : '';
       return {
         kind,
         text: `Withdrew the sign-off${by}${at}: the part is open again. The sign-off stays in the log.`,
@@ -139,37 +202,73 @@ export function describeFinding(
   const kind = findingLogKindOfAction[r.action];
   const disposition = r.disposition ? dispositionLabels[r.disposition].toLowerCase() : '';
   switch (r.action) {
-    case 'raise': return { kind, text: `Raised a finding on ${on}: ${findingKindLabels[r.findingKind].toLowerCase()}.` };
-    case 'disposition': return { kind, text: `Dispositioned ${on}: ${disposition}${r.toStatus === 'closed' ? '; the part is replaced' : ''}.` };
-    case 'amend': return { kind, text: `Amended the disposition of ${on} to ${disposition}.` };
-    case 'not-a-defect': return { kind, text: `Closed the finding on ${on}: not a defect.` };
-    case 'approve': return { kind, text: `Approved the disposition of ${on} as design authority.` };
-    case 'refuse': return { kind, text: `Refused the disposition of ${on} as design authority: back to the inspector.` };
-    case 'report-done': return { kind, text: `Reported the ordered work on ${on} as done.` };
-    case 'accept': return { kind, text: `Accepted the work on ${on}; the finding is closed.` };
-    case 'send-back': return { kind, text: `Sent the work on ${on} back to be done again.` };
-    case 'part-replaced': return { kind, text: `Closed the finding on ${on}: the part was replaced.` };
+    case 'raise':
+      return { kind, text: `Raised a finding on ${on}: ${findingKindLabels[r.findingKind].toLowerCase()}.` };
+    case 'disposition':
+      return {
+        kind,
+        text: `Dispositioned ${on}: ${disposition}${r.toStatus === 'closed' ? '; the part is replaced' : ''}.`,
+      };
+    case 'amend':
+      return { kind, text: `Amended the disposition of ${on} to ${disposition}.` };
+    case 'not-a-defect':
+      return { kind, text: `Closed the finding on ${on}: not a defect.` };
+    case 'approve':
+      return { kind, text: `Approved the disposition of ${on} as design authority.` };
+    case 'refuse':
+      return { kind, text: `Refused the disposition of ${on} as design authority: back to the inspector.` };
+    case 'report-done':
+      return { kind, text: `Reported the ordered work on ${on} as done.` };
+    case 'accept':
+      return { kind, text: `Accepted the work on ${on}; the finding is closed.` };
+    case 'send-back':
+      return { kind, text: `Sent the work on ${on} back to be done again.` };
+    case 'part-replaced':
+      return { kind, text: `Closed the finding on ${on}: the part was replaced.` };
   }
 }
 
 const PEOPLE_KINDS = ['member_added', 'member_invited', 'member_joined', 'member_removed', 'owner_changed'] as const;
 
 /** A change of the build's people as a sentence. */
-export function describeBuildEvent(kind: string, detail: Record<string, unknown>): { kind: BuildLogKind; text: string } {
+export function describeBuildEvent(
+  kind: string,
+  detail: Record<string, unknown>,
+): { kind: BuildLogKind; text: string } {
   const name = typeof detail.name === 'string' ? detail.name : 'someone';
-  const place = typeof detail.place === 'string' && (memberPlaces as readonly string[]).includes(detail.place)
-    ? memberPlaceLabels[detail.place as MemberPlace].toLowerCase() : 'a member';
+  const place =
+    typeof detail.place === 'string' && (memberPlaces as readonly string[]).includes(detail.place)
+      ? memberPlaceLabels[detail.place as MemberPlace].toLowerCase()
+      : 'a member';
   switch (kind) {
-    case 'member_added': return { kind, text: `Added ${name} to the build as ${place}.` };
-    case 'member_invited': return { kind, text: `Invited ${name} by mail to join the build as ${place}.` };
-    case 'member_joined': return { kind, text: `${name} joined the build as ${place}.` };
-    case 'member_removed': return { kind, text: `Took ${name} (${place}) off the build.` };
+    case 'member_added':
+      return { kind, text: `Added ${name} to the build as ${place}.` };
+    case 'member_invited':
+      return { kind, text: `Invited ${name} by mail to join the build as ${place}.` };
+    case 'member_joined':
+      return { kind, text: `${name} joined the build as ${place}.` };
+    case 'member_removed':
+      return { kind, text: `Took ${name} (${place}) off the build.` };
     case 'serial_changed':
-      return { kind: 'other', text: `Changed the kit serial${typeof detail.from === 'string' ? ` from ${detail.from}` : ''} to ${typeof detail.to === 'string' ? detail.to : 'a new one'} (before any work was recorded).` };
+      return {
+        kind: 'other',
+        text: `Changed the kit serial${typeof detail.from === 'string' ? ` from ${detail.from}` : ''} to ${typeof detail.to === 'string' ? detail.to : 'a new one'} (before any work was recorded).`,
+      };
     case 'note_changed':
-      return { kind: 'other', text: typeof detail.to === 'string' && detail.to ? `Changed the build's note to: ${detail.to}` : "Cleared the build's note." };
-    case 'owner_changed': return { kind, text: `Handed the build${typeof detail.from === 'string' ? ` from ${detail.from}` : ''} to ${typeof detail.to === 'string' ? detail.to : 'a new owner'}, with its whole log.` };
-    default: return { kind: 'other', text: `Recorded a change to the build (${kind.replace(/_/g, ' ')}).` };
+      return {
+        kind: 'other',
+        text:
+          typeof detail.to === 'string' && detail.to
+            ? `Changed the build's note to: ${detail.to}`
+            : "Cleared the build's note.",
+      };
+    case 'owner_changed':
+      return {
+        kind,
+        text: `Handed the build${typeof detail.from === 'string' ? ` from ${detail.from}` : ''} to ${typeof detail.to === 'string' ? detail.to : 'a new owner'}, with its whole log.`,
+      };
+    default:
+      return { kind: 'other', text: `Recorded a change to the build (${kind.replace(/_/g, ' ')}).` };
   }
 }
 
@@ -178,15 +277,31 @@ function windowOf(buildId: string, q: BuildLogQuery): LogWindow {
   const tz = q.tz ?? 'UTC';
   const dateOnly = (s: string) => /^\d{4}-\d{2}-\d{2}$/.test(s);
   const from = q.from ? (dateOnly(q.from) ? startOfDay(q.from, tz) : new Date(q.from)) : undefined;
-  const before = q.to ? (dateOnly(q.to) ? startOfDay(nextDay(q.to), tz) : new Date(new Date(q.to).getTime() + 1)) : undefined;
-  if (from && before && from >= before) throw badRequest('the end of the date range (to) is before its start (from)', { to: 'is before from' });
+  const before = q.to
+    ? dateOnly(q.to)
+      ? startOfDay(nextDay(q.to), tz)
+      : new Date(new Date(q.to).getTime() + 1)
+    : undefined;
+  if (from && before && from >= before)
+    throw badRequest('the end of the date range (to) is before its start (from)', { to: 'is before from' });
 
   const kinds = q.kind?.length ? expandKindFilter(q.kind) : null;
   const knownBenchKinds: readonly string[] = BENCH_KINDS;
   return {
-    buildId, travelerId: q.travelerId, from, before, knownBenchKinds,
+    buildId,
+    travelerId: q.travelerId,
+    from,
+    before,
+    knownBenchKinds,
     // A withdrawal goes with the sign-offs: a filtered log never shows a sign-off without its withdrawal.
-    benchKinds: kinds ? [...new Set([...kinds.filter((k) => knownBenchKinds.includes(k)), ...(kinds.includes('signed_off') ? ['sign_off_withdrawn'] : [])])] : null,
+    benchKinds: kinds
+      ? [
+          ...new Set([
+            ...kinds.filter((k) => knownBenchKinds.includes(k)),
+            ...(kinds.includes('signed_off') ? ['sign_off_withdrawn'] : []),
+          ]),
+        ]
+      : null,
     otherBench: kinds ? kinds.includes('other') : true,
     findingKinds: kinds ? kinds.filter((k): k is FindingLogKind => k.startsWith('finding_')) : null,
     buildKinds: kinds ? kinds.filter((k) => (PEOPLE_KINDS as readonly string[]).includes(k)) : null,
@@ -207,9 +322,24 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
   /** One keyset read of one source, its rows tagged with their keys. */
   async function readSource(user: Express.User, w: LogWindow, src: LogSource, r: LogRead): Promise<Raw[]> {
     switch (src) {
-      case 't': return (await listBenchEvents(db, user, w, r)).map((row) => ({ key: [row.sortKey, 't', row.id] as const, src, row }));
-      case 'f': return (await listFindingLogEvents(db, user, w, r)).map((row) => ({ key: [row.sortKey, 'f', row.id] as const, src, row }));
-      case 'b': return (await listBuildEvents(db, user, w, r)).map((row) => ({ key: [row.sortKey, 'b', row.id] as const, src, row }));
+      case 't':
+        return (await listBenchEvents(db, user, w, r)).map((row) => ({
+          key: [row.sortKey, 't', row.id] as const,
+          src,
+          row,
+        }));
+      case 'f':
+        return (await listFindingLogEvents(db, user, w, r)).map((row) => ({
+          key: [row.sortKey, 'f', row.id] as const,
+          src,
+          row,
+        }));
+      case 'b':
+        return (await listBuildEvents(db, user, w, r)).map((row) => ({
+          key: [row.sortKey, 'b', row.id] as const,
+          src,
+          row,
+        }));
     }
   }
 
@@ -218,8 +348,20 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
    * keyset `batch` rows at a time, and a batch ends early when a source must be read again before the
    * merge can go on. Memory is three reads, whatever the length of the log.
    */
-  async function* merged(user: Express.User, w: LogWindow, start: LogKey | null, order: LogOrder, batch: number): AsyncGenerator<Raw[]> {
-    const readers = (['b', 'f', 't'] as const).map((src) => ({ src, buf: [] as Raw[], pos: 0, done: false, after: start }));
+  async function* merged(
+    user: Express.User,
+    w: LogWindow,
+    start: LogKey | null,
+    order: LogOrder,
+    batch: number,
+  ): AsyncGenerator<Raw[]> {
+    const readers = (['b', 'f', 't'] as const).map((src) => ({
+      src,
+      buf: [] as Raw[],
+      pos: 0,
+      done: false,
+      after: start,
+    }));
     const fill = async (r: (typeof readers)[number]) => {
       if (r.done || r.pos < r.buf.length) return;
       r.buf = await readSource(user, w, r.src, { after: r.after, order, limit: batch });
@@ -234,7 +376,8 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
       while (out.length < batch) {
         let best: (typeof readers)[number] | null = null;
         for (const r of readers) {
-          if (r.pos < r.buf.length && (!best || compareKeys(r.buf[r.pos].key, best.buf[best.pos].key, order) < 0)) best = r;
+          if (r.pos < r.buf.length && (!best || compareKeys(r.buf[r.pos].key, best.buf[best.pos].key, order) < 0))
+            best = r;
         }
         if (!best) break;
         out.push(best.buf[best.pos++]);
@@ -248,7 +391,13 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
   /** Rows as entries, with the photos of this batch only (signed links), in the rows' order. */
   async function entriesOf(user: Express.User, buildId: string, rows: Raw[], withPhotos: boolean) {
     const photoFindings = withPhotos
-      ? [...new Set(rows.flatMap((r) => (r.src === 'f' && (r.row.action === 'raise' || r.row.action === 'report-done') ? [r.row.findingId] : [])))]
+      ? [
+          ...new Set(
+            rows.flatMap((r) =>
+              r.src === 'f' && (r.row.action === 'raise' || r.row.action === 'report-done') ? [r.row.findingId] : [],
+            ),
+          ),
+        ]
       : [];
     const photos = await listLogPhotos(db, user, buildId, photoFindings);
     const entryOf = (raw: Raw): BuildLogEntry => {
@@ -256,38 +405,77 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
         const r = raw.row;
         const d = describeBuildEvent(r.kind, r.detail ?? {});
         return {
-          id: `b:${r.id}`, at: r.createdAt.toISOString(), actorName: r.actorName, actorRole: r.actorRole,
-          travelerId: null, travelerSerial: r.kitSerial, partNumber: 'Build', partName: 'the whole build',
-          kind: d.kind, group: groupOfKind(d.kind), text: d.text,
+          id: `b:${r.id}`,
+          at: r.createdAt.toISOString(),
+          actorName: r.actorName,
+          actorRole: r.actorRole,
+          travelerId: null,
+          travelerSerial: r.kitSerial,
+          partNumber: 'Build',
+          partName: 'the whole build',
+          kind: d.kind,
+          group: groupOfKind(d.kind),
+          text: d.text,
         };
       }
       const r = raw.row;
       const common = {
-        at: r.createdAt.toISOString(), actorName: r.actorName, actorRole: r.actorRole,
-        travelerId: r.travelerId, travelerSerial: r.serial, partNumber: r.partNumber, partName: r.partName,
+        at: r.createdAt.toISOString(),
+        actorName: r.actorName,
+        actorRole: r.actorRole,
+        travelerId: r.travelerId,
+        travelerSerial: r.serial,
+        partNumber: r.partNumber,
+        partName: r.partName,
       };
       if (raw.src === 't') {
         const b = raw.row;
         const d = describeBench(b.kind, b.detail ?? {});
         return {
-          id: `t:${b.id}`, ...common, kind: d.kind, group: d.group ?? groupOfKind(d.kind), text: d.text,
-          ...(d.holeIds ? { holeIds: d.holeIds } : {}), ...(d.note ? { note: d.note } : {}),
+          id: `t:${b.id}`,
+          ...common,
+          kind: d.kind,
+          group: d.group ?? groupOfKind(d.kind),
+          text: d.text,
+          ...(d.holeIds ? { holeIds: d.holeIds } : {}),
+          ...(d.note ? { note: d.note } : {}),
         };
       }
       const f = raw.row;
       const d = describeFinding(f);
       // The photos of the hole as found go with the raise; those of the work with the event they came with.
-      const own = photos.filter((p) => p.findingId === f.findingId && (f.action === 'raise' ? p.eventId === null : p.eventId === f.id));
+      const own = photos.filter(
+        (p) => p.findingId === f.findingId && (f.action === 'raise' ? p.eventId === null : p.eventId === f.id),
+      );
       return {
-        id: `f:${f.id}`, ...common, kind: d.kind, group: groupOfKind(d.kind), text: d.text,
-        holeIds: [...f.holeIds].sort(natural), findingId: f.findingId,
+        id: `f:${f.id}`,
+        ...common,
+        kind: d.kind,
+        group: groupOfKind(d.kind),
+        text: d.text,
+        holeIds: [...f.holeIds].sort(natural),
+        findingId: f.findingId,
         ...(f.note ? { note: f.note } : {}),
-        ...(own.length ? { photos: own.map((p) => ({ id: p.id, thumbUrl: signer.sign(p.id, 'thumb', user.id), url: signer.sign(p.id, 'full', user.id) })) } : {}),
+        ...(own.length
+          ? {
+              photos: own.map((p) => ({
+                id: p.id,
+                thumbUrl: signer.sign(p.id, 'thumb', user.id),
+                url: signer.sign(p.id, 'full', user.id),
+              })),
+            }
+          : {}),
       };
     };
     // A thousand sentences (hole runs sorted, times placed) are a stretch of work of their own: in slices.
     const entries: BuildLogEntry[] = [];
-    await inSlices(rows, (slice) => { for (const raw of slice) entries.push(entryOf(raw)); }, 50);
+    await inSlices(
+      rows,
+      (slice) => {
+        for (const raw of slice) entries.push(entryOf(raw));
+      },
+      50,
+    );
     return { entries, photos };
   }
 
@@ -295,17 +483,27 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
    * An export's batches, oldest first: entries with the search words applied, and the photos' storage
    * keys of the batch. Between two batches the event loop gets its turn.
    */
-  async function* exportBatches(user: Express.User, buildId: string, w: LogWindow, q: BuildLogQuery, withPhotos: boolean) {
+  async function* exportBatches(
+    user: Express.User,
+    buildId: string,
+    w: LogWindow,
+    q: BuildLogQuery,
+    withPhotos: boolean,
+  ) {
     for await (const rows of merged(user, w, null, 'asc', EXPORT_BATCH)) {
       const { entries, photos } = await entriesOf(user, buildId, rows, withPhotos);
       const shown = q.q ? entries.filter((e) => logEntryMatches(e, q.q!)) : entries;
       const listed = new Set(shown.flatMap((e) => e.photos?.map((p) => p.id) ?? []));
-      yield { entries: shown, thumbKeys: photos.filter((p) => listed.has(p.id)).map((p) => [p.id, p.thumbKey] as const) };
+      yield {
+        entries: shown,
+        thumbKeys: photos.filter((p) => listed.has(p.id)).map((p) => [p.id, p.thumbKey] as const),
+      };
       await turn();
     }
   }
 
-  const fileStem = (kitSerial: string) => `build-log-${kitSerial.replace(/[^A-Za-z0-9._-]+/g, '_')}-${new Date().toISOString().slice(0, 10)}`;
+  const fileStem = (kitSerial: string) =>
+    `build-log-${kitSerial.replace(/[^A-Za-z0-9._-]+/g, '_')}-${new Date().toISOString().slice(0, 10)}`;
   const isoOf = (key: string | null) => (key ? new Date(`${key.slice(0, 23)}Z`).toISOString() : null);
 
   return {
@@ -323,14 +521,23 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
       let exhausted = true;
       for await (const rows of merged(user, w, start, 'desc', q.limit + 1)) {
         const { entries } = await entriesOf(user, buildId, rows, true);
-        entries.forEach((entry, i) => { if (!q.q || logEntryMatches(entry, q.q)) found.push({ key: rows[i].key, entry }); });
+        entries.forEach((entry, i) => {
+          if (!q.q || logEntryMatches(entry, q.q)) found.push({ key: rows[i].key, entry });
+        });
         scanned += rows.length;
         lastSeen = rows[rows.length - 1].key;
-        if (found.length > q.limit || (q.q && scanned >= SEARCH_SCAN_MAX)) { exhausted = false; break; }
+        if (found.length > q.limit || (q.q && scanned >= SEARCH_SCAN_MAX)) {
+          exhausted = false;
+          break;
+        }
       }
       const items = found.slice(0, q.limit);
-      const next = found.length > q.limit ? encodeLogCursor(items[items.length - 1].key)
-        : !exhausted && lastSeen ? encodeLogCursor(lastSeen) : null;
+      const next =
+        found.length > q.limit
+          ? encodeLogCursor(items[items.length - 1].key)
+          : !exhausted && lastSeen
+            ? encodeLogCursor(lastSeen)
+            : null;
       return { items: items.map((f) => f.entry), next, ...(start ? {} : { build, parts }) };
     },
 
@@ -348,9 +555,13 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
           out.write(csvHead());
           for await (const { entries } of exportBatches(user, buildId, w, q, true)) {
             if (gone()) return;
-            await inSlices(entries, async (slice) => {
-              if (!gone() && !out.write(csvLines(slice, tz))) await drained(out);
-            }, 64);
+            await inSlices(
+              entries,
+              async (slice) => {
+                if (!gone() && !out.write(csvLines(slice, tz))) await drained(out);
+              },
+              64,
+            );
           }
           if (!gone()) out.end();
         },
@@ -364,7 +575,12 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
      */
     async pdf(user: Express.User, buildId: string, q: BuildLogQuery) {
       const release = reservePdfThread();
-      if (!release) throw new HttpError(503, 'busy', `${MAX_PDF_THREADS} PDF logs are being made already: try again in a minute (the CSV is not limited)`);
+      if (!release)
+        throw new HttpError(
+          503,
+          'busy',
+          `${MAX_PDF_THREADS} PDF logs are being made already: try again in a minute (the CSV is not limited)`,
+        );
       try {
         return await pdfExport(user, buildId, q, release);
       } catch (err) {
@@ -387,7 +603,11 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
         tally.first ??= entries[0].at;
         tally.last = entries[entries.length - 1].at;
       }
-      tally = { n: tally.n, first: tally.first && tally.first.replace('Z', '000'), last: tally.last && tally.last.replace('Z', '000') };
+      tally = {
+        n: tally.n,
+        first: tally.first && tally.first.replace('Z', '000'),
+        last: tally.last && tally.last.replace('Z', '000'),
+      };
     }
     const generatedAt = new Date();
     return {
@@ -396,9 +616,18 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
         const gone = () => out.destroyed || out.writableEnded;
         let pdf: PdfThread;
         try {
-          pdf = startPdfThread({ build, count: tally.n, range: { from: isoOf(tally.first), to: isoOf(tally.last) } }, {
-            tz: q.tz ?? 'UTC', generatedAt, generatedBy: user.name, filters: describeFilters(q, { parts }),
-          }, (chunk) => { if (!gone()) out.write(chunk); });
+          pdf = startPdfThread(
+            { build, count: tally.n, range: { from: isoOf(tally.first), to: isoOf(tally.last) } },
+            {
+              tz: q.tz ?? 'UTC',
+              generatedAt,
+              generatedBy: user.name,
+              filters: describeFilters(q, { parts }),
+            },
+            (chunk) => {
+              if (!gone()) out.write(chunk);
+            },
+          );
         } catch (err) {
           release();
           throw err;
@@ -408,9 +637,15 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
           let laying: Promise<void> = Promise.resolve();
           for await (const { entries, thumbKeys } of exportBatches(user, buildId, w, q, true)) {
             const thumbs: Thumbs = new Map();
-            await Promise.all(thumbKeys.map(async ([id, key]) => {
-              try { thumbs.set(id, await storage.get(key)); } catch { /* shown as "photo not available" */ }
-            }));
+            await Promise.all(
+              thumbKeys.map(async ([id, key]) => {
+                try {
+                  thumbs.set(id, await storage.get(key));
+                } catch {
+                  /* shown as "photo not available" */
+                }
+              }),
+            );
             await laying;
             await drained(out);
             if (gone()) return;
@@ -444,4 +679,3 @@ export function describeFilters(q: BuildLogQuery, log: { parts: readonly BuildLo
   if (q.q) out.push(`search “${q.q}”`);
   return out.length ? out.join('; ') : 'none: the whole log';
 }
-

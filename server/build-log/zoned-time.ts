@@ -8,7 +8,14 @@ function formatter(tz: string): Intl.DateTimeFormat {
   let f = partsFormat.get(tz);
   if (!f) {
     f = new Intl.DateTimeFormat('en-US', {
-      timeZone: tz, hourCycle: 'h23', year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit', second: '2-digit',
+      timeZone: tz,
+      hourCycle: 'h23',
+      year: 'numeric',
+      month: '2-digit',
+      day: '2-digit',
+      hour: '2-digit',
+      minute: '2-digit',
+      second: '2-digit',
     });
     partsFormat.set(tz, f);
   }
@@ -18,7 +25,14 @@ function formatter(tz: string): Intl.DateTimeFormat {
 function parts(at: Date, tz: string) {
   const p: Record<string, string> = {};
   for (const x of formatter(tz).formatToParts(at)) p[x.type] = x.value;
-  return { y: Number(p.year), mo: Number(p.month), d: Number(p.day), h: Number(p.hour) % 24, mi: Number(p.minute), s: Number(p.second) };
+  return {
+    y: Number(p.year),
+    mo: Number(p.month),
+    d: Number(p.day),
+    h: Number(p.hour) % 24,
+    mi: Number(p.minute),
+    s: Number(p.second),
+  };
 }
 
 /** Milliseconds the zone is ahead of UTC at that moment. */
@@ -66,13 +80,31 @@ function quarterOffset(at: Date, tz: string): number {
 /** `2026-11-03` and `14:05:09` on the zone's clock. */
 export function zonedDateTime(at: Date, tz: string): { date: string; time: string; hm: string } {
   const d = new Date(Math.floor(at.getTime() / 1000) * 1000 + quarterOffset(at, tz));
-  const p = { y: d.getUTCFullYear(), mo: d.getUTCMonth() + 1, d: d.getUTCDate(), h: d.getUTCHours(), mi: d.getUTCMinutes(), s: d.getUTCSeconds() };
-  return { date: `${p.y}-${pad(p.mo)}-${pad(p.d)}`, time: `${pad(p.h)}:${pad(p.mi)}:${pad(p.s)}`, hm: `${pad(p.h)}:${pad(p.mi)}` };
+  const p = {
+    y: d.getUTCFullYear(),
+    mo: d.getUTCMonth() + 1,
+    d: d.getUTCDate(),
+    h: d.getUTCHours(),
+    mi: d.getUTCMinutes(),
+    s: d.getUTCSeconds(),
+  };
+  return {
+    date: `${p.y}-${pad(p.mo)}-${pad(p.d)}`,
+    time: `${pad(p.h)}:${pad(p.mi)}:${pad(p.s)}`,
+    hm: `${pad(p.h)}:${pad(p.mi)}`,
+  };
 }
 
 /** "Tuesday 3 November 2026" for a YYYY-MM-DD day. */
 export function longDay(day: string): string {
   const [y, m, d] = day.split('-').map(Number);
-  return new Intl.DateTimeFormat('en-GB', { timeZone: 'UTC', weekday: 'long', day: 'numeric', month: 'long', year: 'numeric' })
-    .format(new Date(Date.UTC(y, m - 1, d))).replace(',', '');
+  return new Intl.DateTimeFormat('en-GB', {
+    timeZone: 'UTC',
+    weekday: 'long',
+    day: 'numeric',
+    month: 'long',
+    year: 'numeric',
+  })
+    .format(new Date(Date.UTC(y, m - 1, d)))
+    .replace(',', '');
 }

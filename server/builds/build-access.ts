@@ -11,12 +11,19 @@ import type { Viewer } from '../prepared';
  */
 export function visibleBuilds(db: Db, user: Viewer): SQL {
   switch (user.role) {
-    case 'admin': return sql`true`;
-    case 'supplier': return user.organizationId ? eq(builds.organizationId, user.organizationId) : sql`false`;
+    case 'admin':
+      return sql`true`;
+    case 'supplier':
+      return user.organizationId ? eq(builds.organizationId, user.organizationId) : sql`false`;
     case 'builder':
     case 'inspector':
-      return inArray(builds.id, db.select({ id: buildMembers.buildId }).from(buildMembers)
-        .where(and(eq(buildMembers.userId, user.id), eq(buildMembers.role, user.role))));
+      return inArray(
+        builds.id,
+        db
+          .select({ id: buildMembers.buildId })
+          .from(buildMembers)
+          .where(and(eq(buildMembers.userId, user.id), eq(buildMembers.role, user.role))),
+      );
   }
 }
 
@@ -32,8 +39,12 @@ export async function placeOnBuild(db: Db, user: Express.User, buildId: string):
     }
     case 'builder':
     case 'inspector': {
-      const [m] = await db.select({ role: buildMembers.role }).from(buildMembers)
-        .where(and(eq(buildMembers.buildId, buildId), eq(buildMembers.userId, user.id), eq(buildMembers.role, user.role)));
+      const [m] = await db
+        .select({ role: buildMembers.role })
+        .from(buildMembers)
+        .where(
+          and(eq(buildMembers.buildId, buildId), eq(buildMembers.userId, user.id), eq(buildMembers.role, user.role)),
+        );
       return m ? m.role : 'none';
     }
     case 'admin':

@@ -1,7 +1,28 @@
 import { and, asc, count, desc, eq, inArray, isNotNull, isNull, ne, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
-import { buildEvents, buildMembers, builds, findings, holes, invitations, kitModels, organizations, travelerEvents, travelerSteps, travelers, users } from '../../db/schema';
-import { holesDoneStatuses, openFindingStatuses, type BuildSummary, type BuildWork, type MemberPlace, type Page, type PageQuery } from '../../db/contracts';
+import {
+  buildEvents,
+  buildMembers,
+  builds,
+  findings,
+  holes,
+  invitations,
+  kitModels,
+  organizations,
+  travelerEvents,
+  travelerSteps,
+  travelers,
+  users,
+} from '../../db/schema';
+import {
+  holesDoneStatuses,
+  openFindingStatuses,
+  type BuildSummary,
+  type BuildWork,
+  type MemberPlace,
+  type Page,
+  type PageQuery,
+} from '../../db/contracts';
 import { afterKey, decodeCursor, pageOf } from '../pagination';
 import { visibleBuilds } from './build-access';
 
@@ -10,7 +31,9 @@ const person = (role: 'builder' | 'inspector') => sql<{ id: string; name: string
   from ${buildMembers} join ${users} on ${users.id} = ${buildMembers.userId}
   where ${buildMembers.buildId} = ${builds.id} and ${buildMembers.role} = ${role}), '[]'::json)`;
 const ofBuild = (from: SQL, extra?: SQL) =>
-  sql<number>`(select count(*) from ${from} where ${travelers.buildId} = ${builds.id}${extra ? sql` and ${extra}` : sql``})`.mapWith(Number);
+  sql<number>`(select count(*) from ${from} where ${travelers.buildId} = ${builds.id}${extra ? sql` and ${extra}` : sql``})`.mapWith(
+    Number,
+  );
 const holesOfBuild = sql`${holes} join ${travelers} on ${travelers.id} = ${holes.travelerId}`;
 const findingsOfBuild = sql`${findings} join ${travelers} on ${travelers.id} = ${findings.travelerId}`;
 
@@ -19,16 +42,26 @@ const findingsOfBuild = sql`${findings} join ${travelers} on ${travelers.id} = $
  * correlated subquery each, answered from the build's own rows), newest first and then by id.
  */
 function buildSummaries(db: Db, where: SQL | undefined, limit: number) {
-  return db.select({
-    id: builds.id, kitSerial: builds.kitSerial, kitName: kitModels.name, supplierName: organizations.name,
-    createdAt: sql<string>`${builds.createdAt}::text`,
-    builders: person('builder'), inspectors: person('inspector'),
-    travelerCount: ofBuild(sql`${travelers}`),
-    holesTotal: ofBuild(holesOfBuild),
-    holesDone: ofBuild(holesOfBuild, inArray(holes.status, [...holesDoneStatuses])),
-    openFindings: ofBuild(findingsOfBuild, inArray(findings.status, [...openFindingStatuses])),
-  }).from(builds).innerJoin(kitModels, eq(kitModels.id, builds.kitModelId)).innerJoin(organizations, eq(organizations.id, builds.organizationId))
-    .where(where).orderBy(desc(builds.createdAt), desc(builds.id)).limit(limit);
+  return db
+    .select({
+      id: builds.id,
+      kitSerial: builds.kitSerial,
+      kitName: kitModels.name,
+      supplierName: organizations.name,
+      createdAt: sql<string>`${builds.createdAt}::text`,
+      builders: person('builder'),
+      inspectors: person('inspector'),
+      travelerCount: ofBuild(sql`${travelers}`),
+      holesTotal: ofBuild(holesOfBuild),
+      holesDone: ofBuild(holesOfBuild, inArray(holes.status, [...holesDoneStatuses])),
+      openFindings: ofBuild(findingsOfBuild, inArray(findings.status, [...openFindingStatuses])),
+    })
+    .from(builds)
+    .innerJoin(kitModels, eq(kitModels.id, builds.kitModelId))
+    .innerJoin(organizations, eq(organizations.id, builds.organizationId))
+    .where(where)
+    .orderBy(desc(builds.createdAt), desc(builds.id))
+    .limit(limit);
 }
 
 type SummaryRow = Awaited<ReturnType<typeof buildSummaries>>[number];
@@ -43,16 +76,30 @@ export async function listVisibleBuilds(db: Db, user: Express.User, onlyId: stri
 /** One page of the builds the reader may see, newest first (ties by id). */
 export async function pageVisibleBuilds(db: Db, user: Express.User, q: PageQuery): Promise<Page<BuildSummary>> {
   const key = decodeCursor(q.cursor, ['string', 'string']);
-  const rows = await buildSummaries(db, and(visibleBuilds(db, user), afterKey([builds.createdAt, builds.id], key, 'desc')), q.limit + 1);
+  const rows = await buildSummaries(
+    db,
+    and(visibleBuilds(db, user), afterKey([builds.createdAt, builds.id], key, 'desc')),
+    q.limit + 1,
+  );
   const page = pageOf(rows, q.limit, (b) => [b.createdAt, b.id]);
   return { items: page.items.map(serialise), next: page.next };
 }
 
 /** The people of one build with their places, oldest first. */
 export async function listBuildMembers(db: Db, buildId: string) {
-  return db.select({ userId: users.id, name: users.name, email: users.email, place: buildMembers.place, role: buildMembers.role, addedAt: buildMembers.addedAt })
-    .from(buildMembers).innerJoin(users, eq(users.id, buildMembers.userId))
-    .where(eq(buildMembers.buildId, buildId)).orderBy(asc(buildMembers.addedAt), asc(users.name));
+  return db
+    .select({
+      userId: users.id,
+      name: users.name,
+      email: users.email,
+      place: buildMembers.place,
+      role: buildMembers.role,
+      addedAt: buildMembers.addedAt,
+    })
+    .from(buildMembers)
+    .innerJoin(users, eq(users.id, buildMembers.userId))
+    .where(eq(buildMembers.buildId, buildId))
+    .orderBy(asc(buildMembers.addedAt), asc(users.name));
 }
 
 export async function removeBuildMember(db: Db, buildId: string, userId: string) {
@@ -60,7 +107,10 @@ export async function removeBuildMember(db: Db, buildId: string, userId: string)
 }
 
 export async function setMemberPlace(db: Db, buildId: string, userId: string, place: MemberPlace) {
-  await db.update(buildMembers).set({ place }).where(and(eq(buildMembers.buildId, buildId), eq(buildMembers.userId, userId)));
+  await db
+    .update(buildMembers)
+    .set({ place })
+    .where(and(eq(buildMembers.buildId, buildId), eq(buildMembers.userId, userId)));
 }
 
 /** Locks the build's row: membership changes (add, remove, hand over) go one at a time per build. */
@@ -81,10 +131,19 @@ export async function buildWork(db: Db, buildId: string, lock = false): Promise<
   if (lock) await db.select({ id: travelers.id }).from(travelers).where(eq(travelers.buildId, buildId)).for('update');
   const mine = db.select({ id: travelers.id }).from(travelers).where(eq(travelers.buildId, buildId));
   // One after another: inside a transaction they share one connection.
-  const [h] = await db.select({ n: count() }).from(holes).where(and(inArray(holes.travelerId, mine), sql`${holes.status} <> 'pending'`));
-  const [s] = await db.select({ n: count() }).from(travelerSteps).where(and(inArray(travelerSteps.travelerId, mine), isNotNull(travelerSteps.doneAt)));
+  const [h] = await db
+    .select({ n: count() })
+    .from(holes)
+    .where(and(inArray(holes.travelerId, mine), sql`${holes.status} <> 'pending'`));
+  const [s] = await db
+    .select({ n: count() })
+    .from(travelerSteps)
+    .where(and(inArray(travelerSteps.travelerId, mine), isNotNull(travelerSteps.doneAt)));
   const [f] = await db.select({ n: count() }).from(findings).where(inArray(findings.travelerId, mine));
-  const [t] = await db.select({ n: count() }).from(travelers).where(and(eq(travelers.buildId, buildId), isNotNull(travelers.signedOffAt)));
+  const [t] = await db
+    .select({ n: count() })
+    .from(travelers)
+    .where(and(eq(travelers.buildId, buildId), isNotNull(travelers.signedOffAt)));
   const [e] = await db.select({ n: count() }).from(travelerEvents).where(inArray(travelerEvents.travelerId, mine));
   return { holesWorked: h.n, stepsDone: s.n, findings: f.n, signedOff: t.n, logEntries: e.n };
 }
@@ -95,16 +154,26 @@ export async function findBuildRow(db: Db, buildId: string) {
 }
 
 export async function kitSerialTaken(db: Db, kitSerial: string, except: string) {
-  const rows = await db.select({ id: builds.id }).from(builds).where(and(eq(builds.kitSerial, kitSerial), ne(builds.id, except)));
+  const rows = await db
+    .select({ id: builds.id })
+    .from(builds)
+    .where(and(eq(builds.kitSerial, kitSerial), ne(builds.id, except)));
   return rows.length > 0;
 }
 
 /** The build's new serial, and its travelers' serials that were made from the old one (kit serial, dash, part). */
 export async function renameBuildSerial(db: Db, buildId: string, from: string, to: string) {
   await db.update(builds).set({ kitSerial: to }).where(eq(builds.id, buildId));
-  const parts = await db.select({ id: travelers.id, serial: travelers.serial }).from(travelers).where(eq(travelers.buildId, buildId));
+  const parts = await db
+    .select({ id: travelers.id, serial: travelers.serial })
+    .from(travelers)
+    .where(eq(travelers.buildId, buildId));
   for (const p of parts) {
-    if (p.serial.startsWith(`${from}-`)) await db.update(travelers).set({ serial: `${to}${p.serial.slice(from.length)}` }).where(eq(travelers.id, p.id));
+    if (p.serial.startsWith(`${from}-`))
+      await db
+        .update(travelers)
+        .set({ serial: `${to}${p.serial.slice(from.length)}` })
+        .where(eq(travelers.id, p.id));
   }
 }
 

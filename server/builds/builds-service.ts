@@ -1,8 +1,19 @@
 import { and, eq } from 'drizzle-orm';
 import {
-  allowedBuildActions, allowedBuildPeopleActions, buildWorkRefusal, checkBuildAction, memberRoleOfPlace, removalRefusal, singlePlaces,
-  type BuildAction, type BuildChangeInput,
-  type BuildPeople, type BuildPeopleAction, type BuildSummary, type MemberPlace, type PageQuery,
+  allowedBuildActions,
+  allowedBuildPeopleActions,
+  buildWorkRefusal,
+  checkBuildAction,
+  memberRoleOfPlace,
+  removalRefusal,
+  singlePlaces,
+  type BuildAction,
+  type BuildChangeInput,
+  type BuildPeople,
+  type BuildPeopleAction,
+  type BuildSummary,
+  type MemberPlace,
+  type PageQuery,
 } from '../../db/contracts';
 import { withTransaction, type Db, type Tx } from '../../db';
 import { builds, designRevisions, partDesigns } from '../../db/schema';
@@ -13,14 +24,36 @@ import { badRequest, conflict, forbidden, notFound } from '../http-error';
 import { kitsService } from '../kits/kits-service';
 import { insertTraveler, listTravelers } from '../travelers/travelers-repository';
 import {
-  buildWork, deleteBuild, findBuildRow, insertBuildEvent, kitSerialTaken, listBuildMembers, listVisibleBuilds, lockBuild, pageVisibleBuilds,
-  removeBuildMember, renameBuildSerial, setBuildNote, setMemberPlace,
+  buildWork,
+  deleteBuild,
+  findBuildRow,
+  insertBuildEvent,
+  kitSerialTaken,
+  listBuildMembers,
+  listVisibleBuilds,
+  lockBuild,
+  pageVisibleBuilds,
+  removeBuildMember,
+  renameBuildSerial,
+  setBuildNote,
+  setMemberPlace,
 } from './builds-repository';
 
-type BuildBody = { kitModelId: string; kitSerial: string; builderEmail: string; builderName?: string; inspectorEmail: string; inspectorName?: string };
+type BuildBody = {
+  kitModelId: string;
+  kitSerial: string;
+  builderEmail: string;
+  builderName?: string;
+  inspectorEmail: string;
+  inspectorName?: string;
+};
 type Deps = Pick<AppContext, 'db' | 'pool' | 'mailQueue'> & { config: Pick<AppContext['config'], 'publicUrl'> };
 
-const nameFromEmail = (email: string) => email.split('@')[0].replace(/[._-]+/g, ' ').trim() || email;
+const nameFromEmail = (email: string) =>
+  email
+    .split('@')[0]
+    .replace(/[._-]+/g, ' ')
+    .trim() || email;
 
 export const buildsService = (ctx: Deps) => {
   const { db, pool } = ctx;
@@ -34,11 +67,22 @@ export const buildsService = (ctx: Deps) => {
 
   /** The build's people as the reader may manage them. */
   async function people(user: Express.User, buildId: string, organizationId: string): Promise<BuildPeople> {
-    const [members, pending] = await Promise.all([listBuildMembers(db, buildId), listPendingInvitations(db, { buildId })]);
+    const [members, pending] = await Promise.all([
+      listBuildMembers(db, buildId),
+      listPendingInvitations(db, { buildId }),
+    ]);
     const mine = members.find((m) => m.userId === user.id)?.place ?? null;
     return {
-      members: members.map((m) => ({ userId: m.userId, name: m.name, email: m.email, place: m.place, addedAt: m.addedAt.toISOString() })),
-      pending: pending.filter((p) => p.place).map((p) => ({ email: p.email, name: p.name, place: p.place!, expiresAt: p.expiresAt.toISOString() })),
+      members: members.map((m) => ({
+        userId: m.userId,
+        name: m.name,
+        email: m.email,
+        place: m.place,
+        addedAt: m.addedAt.toISOString(),
+      })),
+      pending: pending
+        .filter((p) => p.place)
+        .map((p) => ({ email: p.email, name: p.name, place: p.place!, expiresAt: p.expiresAt.toISOString() })),
       allowed: allowedBuildPeopleActions(user, { organizationId }, mine),
     };
   }
@@ -60,23 +104,52 @@ export const buildsService = (ctx: Deps) => {
    * A person for a place on a build: their account when they have one (of the right role), else an
    * invitation that makes them a member when they join.
    */
-  async function placePerson(tx: Tx, user: Express.User, buildId: string, p: { email: string; name?: string; place: MemberPlace }, field: string) {
+  async function placePerson(
+    tx: Tx,
+    user: Express.User,
+    buildId: string,
+    p: { email: string; name?: string; place: MemberPlace },
+    field: string,
+  ) {
     const role = memberRoleOfPlace[p.place];
     const existing = await findUserByEmail(tx.db, p.email);
     if (existing) {
-      if (existing.role !== role) throw badRequest(`${p.email} has an account as ${existing.role}, not as ${role}`, { [field]: `not a ${role}'s account` });
+      if (existing.role !== role)
+        throw badRequest(`${p.email} has an account as ${existing.role}, not as ${role}`, {
+          [field]: `not a ${role}'s account`,
+        });
       if (!existing.active) throw conflict(`${p.email} is deactivated`, { [field]: 'deactivated' });
       await addBuildMember(tx.db, { buildId, userId: existing.id, place: p.place, role, addedBy: user.id });
-      await insertBuildEvent(tx.db, { buildId, actorId: user.id, kind: 'member_added', detail: { name: existing.name, place: p.place } });
+      await insertBuildEvent(tx.db, {
+        buildId,
+        actorId: user.id,
+        kind: 'member_added',
+        detail: { name: existing.name, place: p.place },
+      });
       return;
     }
     const name = p.name ?? nameFromEmail(p.email);
-    await invite(ctx, tx, { email: p.email, name, role, organizationId: null, build: { id: buildId, place: p.place }, invitedBy: user }, null);
-    await insertBuildEvent(tx.db, { buildId, actorId: user.id, kind: 'member_invited', detail: { name, email: p.email, place: p.place } });
+    await invite(
+      ctx,
+      tx,
+      { email: p.email, name, role, organizationId: null, build: { id: buildId, place: p.place }, invitedBy: user },
+      null,
+    );
+    await insertBuildEvent(tx.db, {
+      buildId,
+      actorId: user.id,
+      kind: 'member_invited',
+      detail: { name, email: p.email, place: p.place },
+    });
   }
 
   /** The build locked (and its travelers, when the work on them decides), with the reader's right to `action` checked on it. */
-  async function guarded(tx: Db, user: Express.User, buildId: string, actionOf: (b: { kitSerial: string }) => BuildAction) {
+  async function guarded(
+    tx: Db,
+    user: Express.User,
+    buildId: string,
+    actionOf: (b: { kitSerial: string }) => BuildAction,
+  ) {
     const build = await lockBuild(tx, buildId);
     if (!build) throw notFound('build');
     const action = actionOf(build);
@@ -93,8 +166,12 @@ export const buildsService = (ctx: Deps) => {
       const b = (await findBuildBrief(db, id))!;
       const [row, work] = await Promise.all([findBuildRow(db, id), buildWork(db, id)]);
       return {
-        ...build, note: row.note, allowedActions: allowedBuildActions(user, b, work), fixedBecause: buildWorkRefusal(work),
-        people: await people(user, id, b.organizationId), travelers: await listTravelers(db, user, { buildId: id }),
+        ...build,
+        note: row.note,
+        allowedActions: allowedBuildActions(user, b, work),
+        fixedBecause: buildWorkRefusal(work),
+        people: await people(user, id, b.organizationId),
+        travelers: await listTravelers(db, user, { buildId: id }),
       };
     },
 
@@ -106,15 +183,28 @@ export const buildsService = (ctx: Deps) => {
       await summary(user, id);
       await withTransaction(pool, async (tx) => {
         // A form sends the serial as it stands: only a different one is a change of serial.
-        const build = await guarded(tx.db, user, id, (b) => (input.kitSerial !== undefined && input.kitSerial !== b.kitSerial ? 'change-serial' : 'edit-note'));
+        const build = await guarded(tx.db, user, id, (b) =>
+          input.kitSerial !== undefined && input.kitSerial !== b.kitSerial ? 'change-serial' : 'edit-note',
+        );
         if (input.kitSerial !== undefined && input.kitSerial !== build.kitSerial) {
-          if (await kitSerialTaken(tx.db, input.kitSerial, id)) throw conflict(`kit serial ${input.kitSerial} is already shipped`, { kitSerial: 'already used' });
+          if (await kitSerialTaken(tx.db, input.kitSerial, id))
+            throw conflict(`kit serial ${input.kitSerial} is already shipped`, { kitSerial: 'already used' });
           await renameBuildSerial(tx.db, id, build.kitSerial, input.kitSerial);
-          await insertBuildEvent(tx.db, { buildId: id, actorId: user.id, kind: 'serial_changed', detail: { from: build.kitSerial, to: input.kitSerial } });
+          await insertBuildEvent(tx.db, {
+            buildId: id,
+            actorId: user.id,
+            kind: 'serial_changed',
+            detail: { from: build.kitSerial, to: input.kitSerial },
+          });
         }
         if (input.note !== undefined && input.note !== build.note) {
           await setBuildNote(tx.db, id, input.note);
-          await insertBuildEvent(tx.db, { buildId: id, actorId: user.id, kind: 'note_changed', detail: { from: build.note, to: input.note } });
+          await insertBuildEvent(tx.db, {
+            buildId: id,
+            actorId: user.id,
+            kind: 'note_changed',
+            detail: { from: build.note, to: input.note },
+          });
         }
       });
       return this.detail(user, id);
@@ -135,20 +225,49 @@ export const buildsService = (ctx: Deps) => {
      */
     async create(user: Express.User, input: BuildBody) {
       await kits.get(user, input.kitModelId);
-      const revisions = await db.select().from(designRevisions).innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
+      const revisions = await db
+        .select()
+        .from(designRevisions)
+        .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
         .where(and(eq(partDesigns.kitModelId, input.kitModelId), eq(designRevisions.status, 'published')));
-      if (revisions.length === 0) throw badRequest('this kit has no published part designs yet: publish a revision first', { kitModelId: 'no published parts' });
+      if (revisions.length === 0)
+        throw badRequest('this kit has no published part designs yet: publish a revision first', {
+          kitModelId: 'no published parts',
+        });
 
       const id = await withTransaction(pool, async (tx) => {
         const clash = await tx.db.select({ id: builds.id }).from(builds).where(eq(builds.kitSerial, input.kitSerial));
-        if (clash.length) throw conflict(`kit serial ${input.kitSerial} is already shipped`, { kitSerial: 'already used' });
-        const [build] = await tx.db.insert(builds).values({
-          organizationId: user.organizationId!, kitModelId: input.kitModelId, kitSerial: input.kitSerial, createdBy: user.id,
-        }).returning();
-        await placePerson(tx, user, build.id, { email: input.builderEmail, name: input.builderName, place: 'owner' }, 'builderEmail');
-        await placePerson(tx, user, build.id, { email: input.inspectorEmail, name: input.inspectorName, place: 'final_inspector' }, 'inspectorEmail');
+        if (clash.length)
+          throw conflict(`kit serial ${input.kitSerial} is already shipped`, { kitSerial: 'already used' });
+        const [build] = await tx.db
+          .insert(builds)
+          .values({
+            organizationId: user.organizationId!,
+            kitModelId: input.kitModelId,
+            kitSerial: input.kitSerial,
+            createdBy: user.id,
+          })
+          .returning();
+        await placePerson(
+          tx,
+          user,
+          build.id,
+          { email: input.builderEmail, name: input.builderName, place: 'owner' },
+          'builderEmail',
+        );
+        await placePerson(
+          tx,
+          user,
+          build.id,
+          { email: input.inspectorEmail, name: input.inspectorName, place: 'final_inspector' },
+          'inspectorEmail',
+        );
         for (const { design_revisions: rev, part_designs: design } of revisions) {
-          await insertTraveler(tx.db, { buildId: build.id, serial: `${input.kitSerial}-${design.partNumber}`, revision: rev });
+          await insertTraveler(tx.db, {
+            buildId: build.id,
+            serial: `${input.kitSerial}-${design.partNumber}`,
+            revision: rev,
+          });
         }
         return build.id;
       });
@@ -157,7 +276,8 @@ export const buildsService = (ctx: Deps) => {
 
     /** Adds a builder or inspector to the build in the place given; an address with no account is invited. */
     async addMember(user: Express.User, buildId: string, input: { email: string; place: MemberPlace; name?: string }) {
-      if (singlePlaces.includes(input.place)) throw conflict('a build has one owner: hand the build over instead', { place: 'hand the build over instead' });
+      if (singlePlaces.includes(input.place))
+        throw conflict('a build has one owner: hand the build over instead', { place: 'hand the build over instead' });
       await withTransaction(pool, async (tx) => {
         const { members } = await forPeopleChange(tx.db, user, buildId, 'add');
         const already = members.find((m) => m.email === input.email);
@@ -176,7 +296,12 @@ export const buildsService = (ctx: Deps) => {
         const why = removalRefusal(member);
         if (why) throw conflict(why);
         await removeBuildMember(tx.db, buildId, userId);
-        await insertBuildEvent(tx.db, { buildId, actorId: user.id, kind: 'member_removed', detail: { name: member.name, place: member.place } });
+        await insertBuildEvent(tx.db, {
+          buildId,
+          actorId: user.id,
+          kind: 'member_removed',
+          detail: { name: member.name, place: member.place },
+        });
       });
       return this.detail(user, buildId);
     },
@@ -186,12 +311,18 @@ export const buildsService = (ctx: Deps) => {
       await withTransaction(pool, async (tx) => {
         const { members } = await forPeopleChange(tx.db, user, buildId, 'hand-over');
         const next = members.find((m) => m.userId === userId);
-        if (!next || next.role !== 'builder') throw badRequest('hand the build to a builder who is on it', { userId: 'not a builder of this build' });
+        if (!next || next.role !== 'builder')
+          throw badRequest('hand the build to a builder who is on it', { userId: 'not a builder of this build' });
         if (next.place === 'owner') throw conflict(`${next.name} already owns this build`);
         const owner = members.find((m) => m.place === 'owner');
         if (owner) await setMemberPlace(tx.db, buildId, owner.userId, 'helper');
         await setMemberPlace(tx.db, buildId, userId, 'owner');
-        await insertBuildEvent(tx.db, { buildId, actorId: user.id, kind: 'owner_changed', detail: { from: owner?.name ?? null, to: next.name } });
+        await insertBuildEvent(tx.db, {
+          buildId,
+          actorId: user.id,
+          kind: 'owner_changed',
+          detail: { from: owner?.name ?? null, to: next.name },
+        });
       });
       return this.detail(user, buildId);
     },

@@ -33,7 +33,14 @@ const backsOf = sql<string[]>`coalesce((
 ), '{}')`;
 
 /** The order of the record: material, gauge, rivet, load, then when it was recorded and its id. */
-const order = [couponTests.material, couponTests.gaugeIn, couponTests.rivetSpec, couponTests.loadLb, couponTests.createdAt, couponTests.id] as const;
+const order = [
+  couponTests.material,
+  couponTests.gaugeIn,
+  couponTests.rivetSpec,
+  couponTests.loadLb,
+  couponTests.createdAt,
+  couponTests.id,
+] as const;
 const keyShape = ['string', 'number', 'string', 'number', 'string', 'string'] as const;
 
 export type CouponFilter = { material?: string; rivetSpec?: string; current?: boolean; id?: string };
@@ -43,30 +50,51 @@ export type CouponFilter = { material?: string; rivetSpec?: string; current?: bo
  * what each may back: `current` leaves corrected entries out, as everything that derives allowables must.
  */
 function couponRows(db: Db, organizationId: string, filter: CouponFilter, after: SQL | undefined, limit: number) {
-  return db.select({
-    id: couponTests.id, material: couponTests.material, gaugeIn: couponTests.gaugeIn, couponWidthIn: couponTests.couponWidthIn,
-    rivetSpec: couponTests.rivetSpec, loadLb: couponTests.loadLb, outcome: couponTests.outcome, note: couponTests.note,
-    testedOn: couponTests.testedOn, createdAt: sql<string>`${couponTests.createdAt}::text`, createdByName: users.name,
-    correctionReason: couponTests.correctionReason, supersededById: couponTests.supersededById,
-    correctedAt: couponTests.supersededAt, correctedReason: corrector.correctionReason, correctedByName: correctorUser.name,
-    backs: sql<string[]>`case when ${couponTests.supersededById} is null then ${backsOf} else '{}' end`,
-  }).from(couponTests).innerJoin(users, eq(users.id, couponTests.createdBy))
+  return db
+    .select({
+      id: couponTests.id,
+      material: couponTests.material,
+      gaugeIn: couponTests.gaugeIn,
+      couponWidthIn: couponTests.couponWidthIn,
+      rivetSpec: couponTests.rivetSpec,
+      loadLb: couponTests.loadLb,
+      outcome: couponTests.outcome,
+      note: couponTests.note,
+      testedOn: couponTests.testedOn,
+      createdAt: sql<string>`${couponTests.createdAt}::text`,
+      createdByName: users.name,
+      correctionReason: couponTests.correctionReason,
+      supersededById: couponTests.supersededById,
+      correctedAt: couponTests.supersededAt,
+      correctedReason: corrector.correctionReason,
+      correctedByName: correctorUser.name,
+      backs: sql<string[]>`case when ${couponTests.supersededById} is null then ${backsOf} else '{}' end`,
+    })
+    .from(couponTests)
+    .innerJoin(users, eq(users.id, couponTests.createdBy))
     .leftJoin(corrector, eq(corrector.id, couponTests.supersededById))
     .leftJoin(correctorUser, eq(correctorUser.id, corrector.createdBy))
-    .where(and(
-      eq(couponTests.organizationId, organizationId),
-      filter.material ? eq(couponTests.material, filter.material) : undefined,
-      filter.rivetSpec ? eq(couponTests.rivetSpec, filter.rivetSpec) : undefined,
-      filter.current ? isNull(couponTests.supersededById) : undefined,
-      filter.id ? eq(couponTests.id, filter.id) : undefined,
-      after,
-    ))
-    .orderBy(...order.map((c) => asc(c))).limit(limit);
+    .where(
+      and(
+        eq(couponTests.organizationId, organizationId),
+        filter.material ? eq(couponTests.material, filter.material) : undefined,
+        filter.rivetSpec ? eq(couponTests.rivetSpec, filter.rivetSpec) : undefined,
+        filter.current ? isNull(couponTests.supersededById) : undefined,
+        filter.id ? eq(couponTests.id, filter.id) : undefined,
+        after,
+      ),
+    )
+    .orderBy(...order.map((c) => asc(c)))
+    .limit(limit);
 }
 export type CouponRow = Awaited<ReturnType<typeof couponRows>>[number];
 
 /** One page of the record. */
-export async function pageCoupons(db: Db, organizationId: string, q: PageQuery & CouponFilter): Promise<Page<CouponRow>> {
+export async function pageCoupons(
+  db: Db,
+  organizationId: string,
+  q: PageQuery & CouponFilter,
+): Promise<Page<CouponRow>> {
   const key = decodeCursor(q.cursor, keyShape);
   const rows = await couponRows(db, organizationId, q, afterKey(order, key, 'asc'), q.limit + 1);
   return pageOf(rows, q.limit, (c) => [c.material, c.gaugeIn, c.rivetSpec, c.loadLb, c.createdAt, c.id]);
@@ -88,7 +116,10 @@ export async function lockCoupon(db: Conn, id: string) {
 }
 
 export async function findCouponOrganization(db: Db, id: string) {
-  const [row] = await db.select({ organizationId: couponTests.organizationId }).from(couponTests).where(eq(couponTests.id, id));
+  const [row] = await db
+    .select({ organizationId: couponTests.organizationId })
+    .from(couponTests)
+    .where(eq(couponTests.id, id));
   return row?.organizationId;
 }
 
@@ -102,7 +133,11 @@ export async function correctionChain(db: Conn, currentId: string, max = 200) {
   let next: string | null = currentId;
   // Each step finds the entry superseded by the last one: a chain is as long as the corrections made.
   while (next && chain.length < max) {
-    const [row] = await db.select().from(couponTests).where(chain.length ? eq(couponTests.supersededById, next) : eq(couponTests.id, next)).for('update');
+    const [row] = await db
+      .select()
+      .from(couponTests)
+      .where(chain.length ? eq(couponTests.supersededById, next) : eq(couponTests.id, next))
+      .for('update');
     if (!row) break;
     chain.push(row);
     next = row.id;
@@ -116,20 +151,46 @@ export async function deleteCoupons(db: Conn, ids: string[]) {
 
 /** Published (or since superseded) revisions of the supplier's parts, with whether a study made them. */
 export const listPublishedRevisions = (db: Conn, organizationId: string) =>
-  db.select({
-    partNumber: partDesigns.partNumber, letter: designRevisions.letter, rivetSpec: designRevisions.rivetSpec,
-    gaugeIn: designRevisions.gaugeIn, publishedAt: designRevisions.publishedAt, studyId: designRevisions.studyId,
-  }).from(designRevisions).innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
+  db
+    .select({
+      partNumber: partDesigns.partNumber,
+      letter: designRevisions.letter,
+      rivetSpec: designRevisions.rivetSpec,
+      gaugeIn: designRevisions.gaugeIn,
+      publishedAt: designRevisions.publishedAt,
+      studyId: designRevisions.studyId,
+    })
+    .from(designRevisions)
+    .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
     .innerJoin(kitModels, eq(kitModels.id, partDesigns.kitModelId))
-    .where(and(eq(kitModels.organizationId, organizationId), inArray(designRevisions.status, ['published', 'superseded']), isNotNull(designRevisions.publishedAt)))
+    .where(
+      and(
+        eq(kitModels.organizationId, organizationId),
+        inArray(designRevisions.status, ['published', 'superseded']),
+        isNotNull(designRevisions.publishedAt),
+      ),
+    )
     .orderBy(asc(partDesigns.partNumber), asc(designRevisions.letter));
 
 /** A supplier's current tests of one material in the engine's shape: what studies and rework checks allow from. Corrected entries are left out. */
 export async function couponsForEngine(db: Db, organizationId: string, material: string): Promise<EngineCouponTest[]> {
-  return db.select({
-    material: couponTests.material, gaugeIn: couponTests.gaugeIn, couponWidthIn: couponTests.couponWidthIn, rivetSpec: couponTests.rivetSpec,
-    loadLb: couponTests.loadLb, outcome: couponTests.outcome, note: couponTests.note,
-  }).from(couponTests)
-    .where(and(eq(couponTests.organizationId, organizationId), eq(couponTests.material, material), isNull(couponTests.supersededById)))
+  return db
+    .select({
+      material: couponTests.material,
+      gaugeIn: couponTests.gaugeIn,
+      couponWidthIn: couponTests.couponWidthIn,
+      rivetSpec: couponTests.rivetSpec,
+      loadLb: couponTests.loadLb,
+      outcome: couponTests.outcome,
+      note: couponTests.note,
+    })
+    .from(couponTests)
+    .where(
+      and(
+        eq(couponTests.organizationId, organizationId),
+        eq(couponTests.material, material),
+        isNull(couponTests.supersededById),
+      ),
+    )
     .orderBy(...order.map((c) => asc(c)));
 }

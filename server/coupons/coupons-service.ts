@@ -1,17 +1,34 @@
 import {
-  allowedCouponActions, couponBacks, couponCorrectRefusal, couponDeleteRefusal,
-  type CouponAllowance, type CouponTest, type Page, type PageQuery,
+  allowedCouponActions,
+  couponBacks,
+  couponCorrectRefusal,
+  couponDeleteRefusal,
+  type CouponAllowance,
+  type CouponTest,
+  type Page,
+  type PageQuery,
 } from '../../db/contracts';
 import { groupCouponAllowables } from '../engineering';
 import type { Db } from '../../db';
 import { organizationOf } from '../auth/organization';
 import { conflict, HttpError, notFound } from '../http-error';
 import {
-  correctionChain, couponRowsUpTo, deleteCoupons, findCouponOrganization, insertCoupon, listPublishedRevisions, lockCoupon, markSuperseded, pageCoupons,
+  correctionChain,
+  couponRowsUpTo,
+  deleteCoupons,
+  findCouponOrganization,
+  insertCoupon,
+  listPublishedRevisions,
+  lockCoupon,
+  markSuperseded,
+  pageCoupons,
   type CouponRow,
 } from './coupons-repository';
 
-type CouponBody = Omit<CouponTest, 'id' | 'createdAt' | 'createdByName' | 'correctionReason' | 'correctedBy' | 'backs' | 'allowedActions'>;
+type CouponBody = Omit<
+  CouponTest,
+  'id' | 'createdAt' | 'createdByName' | 'correctionReason' | 'correctedBy' | 'backs' | 'allowedActions'
+>;
 type Entry = { rivetSpec: string; gaugeIn: number; createdAt: Date };
 type PublishedRevision = Awaited<ReturnType<typeof listPublishedRevisions>>[number];
 
@@ -24,28 +41,50 @@ export const ALLOWABLES_MAX_TESTS = 5000;
 /** The published revisions any entry of a test's record (the current one and those it corrected) may back. */
 function backedBy(entries: Entry[], revisions: PublishedRevision[]): string[] {
   return revisions
-    .filter((r) => entries.some((e) => couponBacks(e, { ...r, publishedAt: r.publishedAt!, fromStudy: r.studyId !== null })))
+    .filter((r) =>
+      entries.some((e) => couponBacks(e, { ...r, publishedAt: r.publishedAt!, fromStudy: r.studyId !== null })),
+    )
     .map((r) => `${r.partNumber} revision ${r.letter}`);
 }
 
 /** A row of the record as the API answers it: what corrected it, and what the reader may do with it. */
-function serialise({ supersededById, correctedAt, correctedReason, correctedByName, backs, ...c }: CouponRow): CouponTest {
+function serialise({
+  supersededById,
+  correctedAt,
+  correctedReason,
+  correctedByName,
+  backs,
+  ...c
+}: CouponRow): CouponTest {
   const superseded = supersededById !== null;
   return {
-    ...c, createdAt: new Date(c.createdAt).toISOString(), backs,
-    correctedBy: superseded ? { id: supersededById, byName: correctedByName ?? '', at: correctedAt!.toISOString(), reason: correctedReason ?? '' } : null,
+    ...c,
+    createdAt: new Date(c.createdAt).toISOString(),
+    backs,
+    correctedBy: superseded
+      ? {
+          id: supersededById,
+          byName: correctedByName ?? '',
+          at: correctedAt!.toISOString(),
+          reason: correctedReason ?? '',
+        }
+      : null,
     allowedActions: allowedCouponActions({ superseded, backs }),
   };
 }
 
 export const couponsService = (db: Db) => {
-  const list = async (user: Express.User, q: PageQuery & { material?: string; rivetSpec?: string }): Promise<Page<CouponTest>> => {
+  const list = async (
+    user: Express.User,
+    q: PageQuery & { material?: string; rivetSpec?: string },
+  ): Promise<Page<CouponTest>> => {
     const page = await pageCoupons(db, organizationOf(user), q);
     return { items: page.items.map(serialise), next: page.next };
   };
 
   /** One entry as the list shows it. */
-  const one = async (user: Express.User, id: string) => serialise((await couponRowsUpTo(db, organizationOf(user), { id }, 1))[0]);
+  const one = async (user: Express.User, id: string) =>
+    serialise((await couponRowsUpTo(db, organizationOf(user), { id }, 1))[0]);
 
   /** The test, of the reader's organisation (another's is not revealed). */
   async function own(user: Express.User, id: string) {
@@ -60,7 +99,11 @@ export const couponsService = (db: Db) => {
     async allowables(user: Express.User): Promise<CouponAllowance[]> {
       const rows = await couponRowsUpTo(db, organizationOf(user), { current: true }, ALLOWABLES_MAX_TESTS);
       if (rows.length > ALLOWABLES_MAX_TESTS) {
-        throw new HttpError(413, 'too_large', `the allowables are worked out from at most ${ALLOWABLES_MAX_TESTS} current tests: this record holds more`);
+        throw new HttpError(
+          413,
+          'too_large',
+          `the allowables are worked out from at most ${ALLOWABLES_MAX_TESTS} current tests: this record holds more`,
+        );
       }
       return groupCouponAllowables(rows.map(serialise));
     },
@@ -94,9 +137,15 @@ export const couponsService = (db: Db) => {
         const chain = await correctionChain(tx, id);
         if (!chain.length) throw notFound('coupon test');
         const revisions = await listPublishedRevisions(tx, organizationId);
-        const why = couponDeleteRefusal({ superseded: chain[0].supersededById !== null, backs: backedBy(chain, revisions) });
+        const why = couponDeleteRefusal({
+          superseded: chain[0].supersededById !== null,
+          backs: backedBy(chain, revisions),
+        });
         if (why) throw conflict(why);
-        await deleteCoupons(tx, chain.map((c) => c.id));
+        await deleteCoupons(
+          tx,
+          chain.map((c) => c.id),
+        );
       });
     },
   };

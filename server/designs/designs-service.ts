@@ -1,5 +1,16 @@
 import { and, eq } from 'drizzle-orm';
-import { allowedRevisionActions, revisionActionRefusal, type FindingCluster, type PartDesignDetail, type Page, type PageQuery, type PartDesignInput, type PartDesignSummary, type Revision, type RevisionInput } from '../../db/contracts';
+import {
+  allowedRevisionActions,
+  revisionActionRefusal,
+  type FindingCluster,
+  type PartDesignDetail,
+  type Page,
+  type PageQuery,
+  type PartDesignInput,
+  type PartDesignSummary,
+  type Revision,
+  type RevisionInput,
+} from '../../db/contracts';
 import type { Db } from '../../db';
 import { designRevisions, partDesigns } from '../../db/schema';
 import { badRequest, conflict, notFound } from '../http-error';
@@ -17,7 +28,8 @@ export const designsService = (db: Db) => {
 
   async function ownDesign(user: Express.User, id: string) {
     const design = await findDesign(db, id);
-    if (!design || (user.role !== 'admin' && design.organizationId !== user.organizationId)) throw notFound('part design');
+    if (!design || (user.role !== 'admin' && design.organizationId !== user.organizationId))
+      throw notFound('part design');
     return design;
   }
 
@@ -35,7 +47,8 @@ export const designsService = (db: Db) => {
     return revision;
   }
 
-  const frozen = (letter: string, status: 'published' | 'superseded') => conflict(revisionActionRefusal({ letter, status })!);
+  const frozen = (letter: string, status: 'published' | 'superseded') =>
+    conflict(revisionActionRefusal({ letter, status })!);
 
   return {
     async list(user: Express.User, q: PageQuery & { kitModelId?: string }): Promise<Page<PartDesignSummary>> {
@@ -56,7 +69,16 @@ export const designsService = (db: Db) => {
       for (const r of rows) {
         for (const holeId of r.holeIds) {
           const key = `${r.letter} ${holeId}`;
-          const c = byHole.get(key) ?? { letter: r.letter, holeId, count: 0, builds: 0, open: 0, kinds: {}, lastAt: r.createdAt.toISOString(), buildIds: new Set<string>() };
+          const c = byHole.get(key) ?? {
+            letter: r.letter,
+            holeId,
+            count: 0,
+            builds: 0,
+            open: 0,
+            kinds: {},
+            lastAt: r.createdAt.toISOString(),
+            buildIds: new Set<string>(),
+          };
           c.count += 1;
           c.buildIds.add(r.buildId);
           if (r.status !== 'closed') c.open += 1;
@@ -74,11 +96,23 @@ export const designsService = (db: Db) => {
       await kits.get(user, input.design.kitModelId);
       checkLayout(input.revision, 'revision.');
       const id = await db.transaction(async (tx) => {
-        const clash = await tx.select({ id: partDesigns.id }).from(partDesigns)
-          .where(and(eq(partDesigns.kitModelId, input.design.kitModelId), eq(partDesigns.partNumber, input.design.partNumber)));
-        if (clash.length) throw conflict(`part number ${input.design.partNumber} already exists in this kit`, { 'design.partNumber': 'already used in this kit' });
+        const clash = await tx
+          .select({ id: partDesigns.id })
+          .from(partDesigns)
+          .where(
+            and(
+              eq(partDesigns.kitModelId, input.design.kitModelId),
+              eq(partDesigns.partNumber, input.design.partNumber),
+            ),
+          );
+        if (clash.length)
+          throw conflict(`part number ${input.design.partNumber} already exists in this kit`, {
+            'design.partNumber': 'already used in this kit',
+          });
         const [design] = await tx.insert(partDesigns).values(input.design).returning();
-        await tx.insert(designRevisions).values({ ...input.revision, partDesignId: design.id, letter: 'A', createdBy: user.id });
+        await tx
+          .insert(designRevisions)
+          .values({ ...input.revision, partDesignId: design.id, letter: 'A', createdBy: user.id });
         return design.id;
       });
       return detail(user, id);
@@ -87,15 +121,26 @@ export const designsService = (db: Db) => {
     async newRevision(user: Express.User, designId: string, body: RevisionBody, engineering?: EngineeringBasis) {
       await ownDesign(user, designId);
       checkLayout(body);
-      if (body.changeNote.length < 3) throw badRequest('a new revision needs a change note', { changeNote: 'say what changed and why' });
+      if (body.changeNote.length < 3)
+        throw badRequest('a new revision needs a change note', { changeNote: 'say what changed and why' });
       const id = await db.transaction(async (tx) => {
-        const existing = await tx.select({ letter: designRevisions.letter, status: designRevisions.status }).from(designRevisions)
-          .where(eq(designRevisions.partDesignId, designId)).for('update');
+        const existing = await tx
+          .select({ letter: designRevisions.letter, status: designRevisions.status })
+          .from(designRevisions)
+          .where(eq(designRevisions.partDesignId, designId))
+          .for('update');
         const draft = existing.find((r) => r.status === 'draft');
         if (draft) throw conflict(`revision ${draft.letter} is still a draft: edit or publish it first`);
-        const [row] = await tx.insert(designRevisions).values({
-          ...body, ...engineering, partDesignId: designId, letter: nextRevisionLetter(existing.map((r) => r.letter)), createdBy: user.id,
-        }).returning({ id: designRevisions.id });
+        const [row] = await tx
+          .insert(designRevisions)
+          .values({
+            ...body,
+            ...engineering,
+            partDesignId: designId,
+            letter: nextRevisionLetter(existing.map((r) => r.letter)),
+            createdBy: user.id,
+          })
+          .returning({ id: designRevisions.id });
         return row.id;
       });
       return serialiseRevision((await findRevision(db, id))!);
@@ -106,8 +151,11 @@ export const designsService = (db: Db) => {
       if (revision.status !== 'draft') throw frozen(revision.letter, revision.status);
       checkLayout(body);
       // The status guard in the WHERE makes a publish that slips in between win: the edit then changes nothing.
-      const updated = await db.update(designRevisions).set({ ...body, ...engineering })
-        .where(and(eq(designRevisions.id, revisionId), eq(designRevisions.status, 'draft'))).returning({ id: designRevisions.id });
+      const updated = await db
+        .update(designRevisions)
+        .set({ ...body, ...engineering })
+        .where(and(eq(designRevisions.id, revisionId), eq(designRevisions.status, 'draft')))
+        .returning({ id: designRevisions.id });
       if (!updated.length) throw frozen(revision.letter, 'published');
       return serialiseRevision((await findRevision(db, revisionId))!);
     },
@@ -120,8 +168,10 @@ export const designsService = (db: Db) => {
       const revision = await ownRevision(user, revisionId);
       if (revision.status !== 'draft') throw frozen(revision.letter, revision.status);
       // The status guard in the WHERE: a publish that slips in first wins, and nothing is deleted.
-      const gone = await db.delete(designRevisions)
-        .where(and(eq(designRevisions.id, revisionId), eq(designRevisions.status, 'draft'))).returning({ id: designRevisions.id });
+      const gone = await db
+        .delete(designRevisions)
+        .where(and(eq(designRevisions.id, revisionId), eq(designRevisions.status, 'draft')))
+        .returning({ id: designRevisions.id });
       if (!gone.length) throw frozen(revision.letter, 'published');
       return detail(user, revision.partDesignId);
     },
@@ -131,12 +181,20 @@ export const designsService = (db: Db) => {
       if (revision.status !== 'draft') throw frozen(revision.letter, revision.status);
       await db.transaction(async (tx) => {
         // Checked again on the locked row: a discard or another publish that came first wins.
-        const [row] = await tx.select({ status: designRevisions.status }).from(designRevisions).where(eq(designRevisions.id, revisionId)).for('update');
+        const [row] = await tx
+          .select({ status: designRevisions.status })
+          .from(designRevisions)
+          .where(eq(designRevisions.id, revisionId))
+          .for('update');
         if (!row) throw notFound('revision');
         if (row.status !== 'draft') throw frozen(revision.letter, row.status);
-        await tx.update(designRevisions).set({ status: 'superseded' })
+        await tx
+          .update(designRevisions)
+          .set({ status: 'superseded' })
           .where(and(eq(designRevisions.partDesignId, revision.partDesignId), eq(designRevisions.status, 'published')));
-        await tx.update(designRevisions).set({ status: 'published', publishedAt: new Date(), publishedBy: user.id })
+        await tx
+          .update(designRevisions)
+          .set({ status: 'published', publishedAt: new Date(), publishedBy: user.id })
           .where(eq(designRevisions.id, revisionId));
       });
       return serialiseRevision((await findRevision(db, revisionId))!);
@@ -147,8 +205,9 @@ export const designsService = (db: Db) => {
 type RevisionRow = NonNullable<Awaited<ReturnType<typeof findRevision>>>;
 function serialiseRevision(r: RevisionRow): Revision {
   return {
-    ...r, createdAt: r.createdAt.toISOString(), publishedAt: r.publishedAt?.toISOString() ?? null,
+    ...r,
+    createdAt: r.createdAt.toISOString(),
+    publishedAt: r.publishedAt?.toISOString() ?? null,
     allowedActions: allowedRevisionActions(r),
   };
 }
-

@@ -1,5 +1,12 @@
 import type { FastenerLine } from '../../db/contracts';
-import { EngineeringInputError, estimateHoles, findRivetByCallout, layoutRules, MAX_REVISION_HOLES, type LayoutRules } from '../engineering';
+import {
+  EngineeringInputError,
+  estimateHoles,
+  findRivetByCallout,
+  layoutRules,
+  MAX_REVISION_HOLES,
+  type LayoutRules,
+} from '../engineering';
 import { badRequest } from '../http-error';
 
 /**
@@ -28,13 +35,16 @@ export function checkLayout(
   const minPitchIn = rules?.minPitchIn ?? 3 * r.drillDiameterIn;
   const fields: Record<string, string> = {};
   if (rules && r.edgeDistanceIn < rules.minEdgeIn - 1e-6) {
-    fields[`${at}edgeDistanceIn`] = `edge distance must be at least ${rules.minEdgeIn.toFixed(3)} in for ${r.rivetSpec} (${rules.countersunk ? '2.5D, countersunk head' : '2D'})`;
+    fields[`${at}edgeDistanceIn`] =
+      `edge distance must be at least ${rules.minEdgeIn.toFixed(3)} in for ${r.rivetSpec} (${rules.countersunk ? '2.5D, countersunk head' : '2D'})`;
   }
-  r.lines.forEach((line, i) => line.zones.forEach((z, j) => {
-    if (!(z.pitchIn >= minPitchIn - 1e-6)) {
-      fields[`${at}lines.${i}.zones.${j}.pitchIn`] = `pitch must be at least ${minPitchIn.toFixed(3)} in ${basis}`;
-    }
-  }));
+  r.lines.forEach((line, i) =>
+    line.zones.forEach((z, j) => {
+      if (!(z.pitchIn >= minPitchIn - 1e-6)) {
+        fields[`${at}lines.${i}.zones.${j}.pitchIn`] = `pitch must be at least ${minPitchIn.toFixed(3)} in ${basis}`;
+      }
+    }),
+  );
   if (Object.keys(fields).length) throw badRequest(Object.values(fields)[0], fields);
 
   // Holes as placed between the edge distances, counted per line from its zones (cheap, never under).

@@ -7,6 +7,10 @@ export function nextRevisionLetter(used: string[]): string {
   const top = used.reduce((m, l) => Math.max(m, index(l)), 0);
   let n = top + 1;
   let out = '';
-  while (n > 0) { const r = (n - 1) % LETTERS.length; out = LETTERS[r] + out; n = Math.floor((n - 1) / LETTERS.length); }
+  while (n > 0) {
+    const r = (n - 1) % LETTERS.length;
+    out = LETTERS[r] + out;
+    n = Math.floor((n - 1) / LETTERS.length);
+  }
   return out;
 }

@@ -19,11 +19,25 @@ export function previewHtml(m: Pick<ReceivedMail, 'html' | 'parts'>): string {
 export function devRouter(fake: SmtpFake): Router {
   const r = Router();
   r.get('/mail', (_req, res) => {
-    res.json([...fake.messages].reverse().map((m) => ({
-      id: String(m.id), from: m.from, to: m.to, subject: m.subject, text: m.text, html: m.html, receivedAt: m.receivedAt,
-      attachments: m.parts.map(({ cid, filename, contentType, disposition, size }) => ({ cid, filename, contentType, disposition, size })),
-      previewHtml: previewHtml(m),
-    })));
+    res.json(
+      [...fake.messages].reverse().map((m) => ({
+        id: String(m.id),
+        from: m.from,
+        to: m.to,
+        subject: m.subject,
+        text: m.text,
+        html: m.html,
+        receivedAt: m.receivedAt,
+        attachments: m.parts.map(({ cid, filename, contentType, disposition, size }) => ({
+          cid,
+          filename,
+          contentType,
+          disposition,
+          size,
+        })),
+        previewHtml: previewHtml(m),
+      })),
+    );
   });
   return r;
 }

@@ -14,8 +14,7 @@ export type Point = [number, number];
 export type Surface = 'upper' | 'lower';
 
 export type AirfoilInput =
-  | { kind: 'naca'; designation: string }
-  | { kind: 'coordinates'; points: Point[]; name?: string };
+  { kind: 'naca'; designation: string } | { kind: 'coordinates'; points: Point[]; name?: string };
 
 export interface AirfoilGeometry {
   name: string;
@@ -79,7 +78,10 @@ export function nacaFiveDigitMeanLine(designCl: number, positionDigit: number): 
   return {
     camber(x) {
       if (x < r) {
-        return { yc: (k1 / 6) * (x ** 3 - 3 * r * x * x + r * r * (3 - r) * x), slope: (k1 / 6) * (3 * x * x - 6 * r * x + r * r * (3 - r)) };
+        return {
+          yc: (k1 / 6) * (x ** 3 - 3 * r * x * x + r * r * (3 - r) * x),
+          slope: (k1 / 6) * (3 * x * x - 6 * r * x + r * r * (3 - r)),
+        };
       }
       return { yc: ((k1 * r ** 3) / 6) * (1 - x), slope: (-k1 * r ** 3) / 6 };
     },
@@ -94,13 +96,17 @@ export interface NacaSection {
 
 export function parseNacaDesignation(designation: string): NacaSection {
   const field = 'airfoil.designation';
-  const digits = String(designation ?? '').toUpperCase().replace(/^NACA/, '').replace(/[\s-]/g, '');
+  const digits = String(designation ?? '')
+    .toUpperCase()
+    .replace(/^NACA/, '')
+    .replace(/[\s-]/g, '');
   if (/^\d{4}$/.test(digits)) {
     const m = Number(digits[0]) / 100;
     const p = Number(digits[1]) / 10;
     const t = Number(digits.slice(2)) / 100;
     if (t <= 0) throw new EngineeringInputError(field, `NACA ${digits} has no thickness`);
-    if (m > 0 && p === 0) throw new EngineeringInputError(field, `NACA ${digits} has camber but no position of maximum camber`);
+    if (m > 0 && p === 0)
+      throw new EngineeringInputError(field, `NACA ${digits} has camber but no position of maximum camber`);
     return { name: `NACA ${digits}`, thickness: t, meanLine: nacaFourDigitMeanLine(m, p) };
   }
   if (/^\d{5}$/.test(digits)) {
@@ -108,8 +114,13 @@ export function parseNacaDesignation(designation: string): NacaSection {
     const p = Number(digits[1]);
     const q = Number(digits[2]);
     const t = Number(digits.slice(3)) / 100;
-    if (q !== 0) throw new EngineeringInputError(field, `NACA ${digits} has a reflexed mean line, which is not supported: upload its coordinates instead`);
-    if (!FIVE_DIGIT_MEAN_LINES[p]) throw new EngineeringInputError(field, `NACA ${digits}: the second digit must be 1 to 5`);
+    if (q !== 0)
+      throw new EngineeringInputError(
+        field,
+        `NACA ${digits} has a reflexed mean line, which is not supported: upload its coordinates instead`,
+      );
+    if (!FIVE_DIGIT_MEAN_LINES[p])
+      throw new EngineeringInputError(field, `NACA ${digits}: the second digit must be 1 to 5`);
     if (t <= 0) throw new EngineeringInputError(field, `NACA ${digits} has no thickness`);
     return { name: `NACA ${digits}`, thickness: t, meanLine: nacaFiveDigitMeanLine(0.15 * l, p) };
   }
@@ -118,7 +129,8 @@ export function parseNacaDesignation(designation: string): NacaSection {
 
 function requirePanels(panels: number): number {
   requireStudyBound(panels, 'panels');
-  if (panels % 2 !== 0) throw new EngineeringInputError('panels', 'the number of panels must be even (half on each surface)');
+  if (panels % 2 !== 0)
+    throw new EngineeringInputError('panels', 'the number of panels must be even (half on each surface)');
   return panels;
 }
 
@@ -138,7 +150,12 @@ export function nacaGeometry(designation: string, panels: number, closedTrailing
   const points = [...upper, ...lower];
   const first = points[0];
   const last = points[points.length - 1];
-  return { name: section.name, points, leadingEdgeIndex: panels / 2, trailingEdgeGap: Math.hypot(first[0] - last[0], first[1] - last[1]) };
+  return {
+    name: section.name,
+    points,
+    leadingEdgeIndex: panels / 2,
+    trailingEdgeGap: Math.hypot(first[0] - last[0], first[1] - last[1]),
+  };
 }
 
 function cross(o: Point, a: Point, b: Point): number {
@@ -211,7 +228,10 @@ function toContour(raw: Point[]): Point[] {
       return [...upper, ...(sameNose ? lower.slice(1) : lower)];
     }
     if (startsAft) return raw; // an open loop: refused below with the size of its gap
-    throw new EngineeringInputError('airfoil.points', 'the points neither go round from the trailing edge and back, nor list two surfaces one after the other from the nose: list them in one of those orders');
+    throw new EngineeringInputError(
+      'airfoil.points',
+      'the points neither go round from the trailing edge and back, nor list two surfaces one after the other from the nose: list them in one of those orders',
+    );
   }
   if (startsAft || lastIndex < 2) return raw;
   // A closed loop starting at the small-x end: a file drawn nose to the right starting at its trailing
@@ -314,25 +334,36 @@ export function normaliseCoordinates(input: unknown): CoordinateCheck {
   const xs = pts.map((p) => p[0]);
   const size = Math.max(...xs) - Math.min(...xs);
   // Normalising divides by the extent: one too small for its own rounding would blow the shape up.
-  if (!(size > 1e-6 * Math.max(1, ...xs.map(Math.abs)))) throw new EngineeringInputError(field, 'the points have no extent along the chord');
+  if (!(size > 1e-6 * Math.max(1, ...xs.map(Math.abs))))
+    throw new EngineeringInputError(field, 'the points have no extent along the chord');
   let contour = dropRepeats(toContour(pts), 1e-9 * size);
   const head = contour[0];
   const tail = contour[contour.length - 1];
   // A list of points is a closed polygon whether or not its last point repeats the first: the repeat is
   // dropped, and where the trailing edge lies is decided from the polygon alone (closeContour), so a
   // file reads the same with or without it.
-  if (contour.length > 2 && Math.hypot(head[0] - tail[0], head[1] - tail[1]) <= 1e-9 * size) contour = contour.slice(0, -1);
+  if (contour.length > 2 && Math.hypot(head[0] - tail[0], head[1] - tail[1]) <= 1e-9 * size)
+    contour = contour.slice(0, -1);
   if (contour.length < MIN_AIRFOIL_POINTS) {
-    throw new EngineeringInputError(field, `needs at least ${MIN_AIRFOIL_POINTS} distinct points (got ${contour.length})`);
+    throw new EngineeringInputError(
+      field,
+      `needs at least ${MIN_AIRFOIL_POINTS} distinct points (got ${contour.length})`,
+    );
   }
   contour = closeContour(contour);
   const crossing = findSelfCrossing(contour);
   if (crossing) {
-    throw new EngineeringInputError(field, `the outline crosses itself (segments after points ${crossing[0] + 1} and ${crossing[1] + 1})`);
+    throw new EngineeringInputError(
+      field,
+      `the outline crosses itself (segments after points ${crossing[0] + 1} and ${crossing[1] + 1})`,
+    );
   }
 
   // Chord line: from the point farthest from the trailing-edge midpoint (the nose) to that midpoint.
-  const te: Point = [(contour[0][0] + contour[contour.length - 1][0]) / 2, (contour[0][1] + contour[contour.length - 1][1]) / 2];
+  const te: Point = [
+    (contour[0][0] + contour[contour.length - 1][0]) / 2,
+    (contour[0][1] + contour[contour.length - 1][1]) / 2,
+  ];
   let le = 0;
   let far = -1;
   contour.forEach((p, i) => {
@@ -350,10 +381,14 @@ export function normaliseCoordinates(input: unknown): CoordinateCheck {
     return [(dx * ux + dy * uy) / far, (-dx * uy + dy * ux) / far];
   });
   const area = signedArea(unit);
-  if (Math.abs(area) < 1e-4) throw new EngineeringInputError(field, 'the outline encloses (almost) no area: it is not an airfoil contour');
+  if (Math.abs(area) < 1e-4)
+    throw new EngineeringInputError(field, 'the outline encloses (almost) no area: it is not an airfoil contour');
   // The file's own frame: a nose at larger x than the trailing edge means the outline was drawn or
   // exported turned round.
-  if (ux < -0.5) warnings.push('the outline runs with its nose to the right (at larger x than the trailing edge): it was turned round to put the nose at x = 0; check the file is the section meant');
+  if (ux < -0.5)
+    warnings.push(
+      'the outline runs with its nose to the right (at larger x than the trailing edge): it was turned round to put the nose at x = 0; check the file is the section meant',
+    );
   if (area < 0) {
     // clockwise file: make the first surface the upper one
     unit = unit.reverse();
@@ -366,13 +401,22 @@ export function normaliseCoordinates(input: unknown): CoordinateCheck {
     );
   }
   if (le === 0 || le === contour.length - 1) {
-    throw new EngineeringInputError(field, 'the nose of the outline is at one end of the list: the contour must start and end at the trailing edge');
+    throw new EngineeringInputError(
+      field,
+      'the nose of the outline is at one end of the list: the contour must start and end at the trailing edge',
+    );
   }
   const gap = Math.hypot(unit[0][0] - unit[unit.length - 1][0], unit[0][1] - unit[unit.length - 1][1]);
   if (gap > MAX_TRAILING_EDGE_GAP) {
-    throw new EngineeringInputError(field, `the outline is not a closed contour: its ends are ${(gap * 100).toFixed(1)} % of the chord apart (at most ${MAX_TRAILING_EDGE_GAP * 100} %)`);
+    throw new EngineeringInputError(
+      field,
+      `the outline is not a closed contour: its ends are ${(gap * 100).toFixed(1)} % of the chord apart (at most ${MAX_TRAILING_EDGE_GAP * 100} %)`,
+    );
   }
-  if (gap > 0.005) warnings.push(`the trailing edge is open by ${(gap * 100).toFixed(2)} % of the chord; it is treated as nearly closed`);
+  if (gap > 0.005)
+    warnings.push(
+      `the trailing edge is open by ${(gap * 100).toFixed(2)} % of the chord; it is treated as nearly closed`,
+    );
   return { contour: unit, trailingEdgeGap: gap, warnings };
 }
 
@@ -381,9 +425,16 @@ export function repanel(contour: Point[], panels: number): { points: Point[]; le
   requirePanels(panels);
   const le = contour.reduce((best, p, i) => (p[0] < contour[best][0] ? i : best), 0);
   const s = [0];
-  for (let i = 1; i < contour.length; i++) s.push(s[i - 1] + Math.hypot(contour[i][0] - contour[i - 1][0], contour[i][1] - contour[i - 1][1]));
-  const sx = naturalSpline(s, contour.map((p) => p[0]));
-  const sy = naturalSpline(s, contour.map((p) => p[1]));
+  for (let i = 1; i < contour.length; i++)
+    s.push(s[i - 1] + Math.hypot(contour[i][0] - contour[i - 1][0], contour[i][1] - contour[i - 1][1]));
+  const sx = naturalSpline(
+    s,
+    contour.map((p) => p[0]),
+  );
+  const sy = naturalSpline(
+    s,
+    contour.map((p) => p[1]),
+  );
   const half = panels / 2;
   const spacing = cosineSpacing(half);
   const sLe = s[le];

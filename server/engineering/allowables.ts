@@ -1,4 +1,11 @@
-import { COUPON_RULES, GAUGE_MATCH_TOLERANCE_IN, groupCouponAllowables, matchedCouponAllowables, validateCoupons, type CouponTest } from './coupons';
+import {
+  COUPON_RULES,
+  GAUGE_MATCH_TOLERANCE_IN,
+  groupCouponAllowables,
+  matchedCouponAllowables,
+  validateCoupons,
+  type CouponTest,
+} from './coupons';
 import { EngineeringInputError } from './errors';
 import { layoutRules } from './layout';
 import { findMaterial, findRivet, type RivetSpec, type SheetMaterial } from './materials';
@@ -31,7 +38,14 @@ export interface JointAllowables extends EngineeringResult<JointInput> {
   holeDiameterIn: number;
   edgeDistanceIn: number;
   eOverD: number;
-  shear: { rivetLb: number; bearingUltimateLb: number; bearingYieldLb: number; limitLb: number; ultimateLb: number; governing: 'rivet shear' | 'sheet bearing' };
+  shear: {
+    rivetLb: number;
+    bearingUltimateLb: number;
+    bearingYieldLb: number;
+    limitLb: number;
+    ultimateLb: number;
+    governing: 'rivet shear' | 'sheet bearing';
+  };
   tension: {
     rivetLb: number;
     pullThroughLimitLb: number;
@@ -61,13 +75,17 @@ export const COMBINED_RULE = 'combined tension + shear: (Rt)² + (Rs)² ≤ 1, M
 /** Single-shear strength of the rivet: tabulated, or F_su·π/4·d_hole². */
 export function rivetShearStrengthLb(spec: RivetSpec): number {
   if (spec.shearLb !== undefined) return spec.shearLb;
-  if (spec.fsuPsi === undefined) throw new EngineeringInputError('rivetSpec', `${spec.code} has neither a shear strength nor an F_su`);
+  if (spec.fsuPsi === undefined)
+    throw new EngineeringInputError('rivetSpec', `${spec.code} has neither a shear strength nor an F_su`);
   return (spec.fsuPsi * Math.PI * spec.holeDiameterIn * spec.holeDiameterIn) / 4;
 }
 
 export function rivetTensionStrengthLb(spec: RivetSpec): number {
   if (spec.tensionLb !== undefined) return spec.tensionLb;
-  return rivetShearStrengthLb(spec) * (spec.countersunk ? SOLID_RIVET_TENSION_FRACTION.countersunk : SOLID_RIVET_TENSION_FRACTION.protruding);
+  return (
+    rivetShearStrengthLb(spec) *
+    (spec.countersunk ? SOLID_RIVET_TENSION_FRACTION.countersunk : SOLID_RIVET_TENSION_FRACTION.protruding)
+  );
 }
 
 /**
@@ -84,14 +102,25 @@ export function bearingStrengthPsi(values: { e15: number; e20: number }, eOverD:
  * Rivets per inch of joint width for a joint as strong as the sheet (FAA AC 43.13-1B Tables 4-9, 4-10):
  * F_tu·t over the lesser of rivet single shear and sheet bearing (both on the hole diameter).
  */
-export function rivetsPerInchOfWidth(p: { sheetFtuPsi: number; sheetFbruPsi: number; thicknessIn: number; rivetFsuPsi: number; holeDiameterIn: number }): number {
+export function rivetsPerInchOfWidth(p: {
+  sheetFtuPsi: number;
+  sheetFbruPsi: number;
+  thicknessIn: number;
+  rivetFsuPsi: number;
+  holeDiameterIn: number;
+}): number {
   const shear = (p.rivetFsuPsi * Math.PI * p.holeDiameterIn ** 2) / 4;
   const bearing = p.sheetFbruPsi * p.holeDiameterIn * p.thicknessIn;
   return (p.sheetFtuPsi * p.thicknessIn) / Math.min(shear, bearing);
 }
 
 /** MS of a rivet under tension and shear together; null when it carries nothing. */
-export function combinedMargin(tensionLb: number, shearLb: number, tensionAllowableLb: number, shearAllowableLb: number): number | null {
+export function combinedMargin(
+  tensionLb: number,
+  shearLb: number,
+  tensionAllowableLb: number,
+  shearAllowableLb: number,
+): number | null {
   if (tensionLb <= 0 && shearLb <= 0) return null;
   const rt = tensionLb <= 0 ? 0 : tensionAllowableLb > 0 ? tensionLb / tensionAllowableLb : Infinity;
   const rs = shearLb <= 0 ? 0 : shearAllowableLb > 0 ? shearLb / shearAllowableLb : Infinity;
@@ -143,7 +172,9 @@ export function pullThroughFallback(
   const rules = [...fallbackRules(p.fraction)];
   const warnings: string[] = [];
   const code = p.rivetCode.trim().toUpperCase();
-  const sameRivet = (validated ?? validateCoupons(p.coupons)).filter((t) => t.rivetSpec.trim().toUpperCase() === code && t.gaugeIn >= p.gaugeIn - GAUGE_MATCH_TOLERANCE_IN);
+  const sameRivet = (validated ?? validateCoupons(p.coupons)).filter(
+    (t) => t.rivetSpec.trim().toUpperCase() === code && t.gaugeIn >= p.gaugeIn - GAUGE_MATCH_TOLERANCE_IN,
+  );
   let cappedBy: { gaugeIn: number; material: string } | null = null;
   // Groups come sorted by material, then gauge: the thinnest binding one is named.
   for (const g of groupCouponAllowables(sameRivet)) {
@@ -165,7 +196,10 @@ export function jointAllowables(input: JointInput): JointAllowables {
   const rivet = findRivet(input.rivetSpec, input.rivetData);
   const gaugeIn = requireInRange(input.gaugeIn, 'gaugeIn', 0.005, 0.5, 'the gauge (in)');
   const layout = layoutRules(rivet);
-  const edgeDistanceIn = input.edgeDistanceIn === undefined ? layout.minEdgeIn : requirePositive(input.edgeDistanceIn, 'edgeDistanceIn', 'the edge distance');
+  const edgeDistanceIn =
+    input.edgeDistanceIn === undefined
+      ? layout.minEdgeIn
+      : requirePositive(input.edgeDistanceIn, 'edgeDistanceIn', 'the edge distance');
   const fraction = input.pullThroughFallbackFraction ?? DEFAULT_PULL_THROUGH_FRACTION;
   requireInRange(fraction, 'pullThroughFallbackFraction', 0.001, 0.5, 'the pull-through fallback fraction');
   const rules: string[] = [
@@ -179,14 +213,18 @@ export function jointAllowables(input: JointInput): JointAllowables {
   const d = rivet.holeDiameterIn;
   // e/D in nominal diameters, as the layout rules are written: a 2D edge distance earns the e/D 2.0 value.
   const eOverD = edgeDistanceIn / rivet.nominalDiameterIn;
-  if (eOverD < 1.5) warnings.push(`edge distance ${edgeDistanceIn.toFixed(3)} in is below 1.5D: bearing taken in proportion to e/D, outside published data`);
+  if (eOverD < 1.5)
+    warnings.push(
+      `edge distance ${edgeDistanceIn.toFixed(3)} in is below 1.5D: bearing taken in proportion to e/D, outside published data`,
+    );
   const rivetShear = rivetShearStrengthLb(rivet);
   const bearingUltimateLb = bearingStrengthPsi(material.fbruPsi, eOverD) * d * gaugeIn;
   const bearingYieldLb = bearingStrengthPsi(material.fbryPsi, eOverD) * d * gaugeIn;
   const shearUltimate = Math.min(rivetShear, bearingUltimateLb);
 
   const rivetTension = rivetTensionStrengthLb(rivet);
-  if (rivet.tensionLb === undefined) rules.push(rivet.countersunk ? SOLID_TENSION_RULES.countersunk : SOLID_TENSION_RULES.protruding);
+  if (rivet.tensionLb === undefined)
+    rules.push(rivet.countersunk ? SOLID_TENSION_RULES.countersunk : SOLID_TENSION_RULES.protruding);
   const tests = validateCoupons(input.coupons ?? []);
   const coupons = matchedCouponAllowables(tests, { material: material.key, gaugeIn, rivetSpec: rivet.code });
   let basis: 'coupons' | 'fallback';
@@ -200,7 +238,10 @@ export function jointAllowables(input: JointInput): JointAllowables {
     warnings.push(...coupons.warnings);
   } else {
     basis = 'fallback';
-    const fallback = pullThroughFallback({ fraction, bearingUltimateLb, rivetCode: rivet.code, gaugeIn, coupons: input.coupons ?? [] }, tests);
+    const fallback = pullThroughFallback(
+      { fraction, bearingUltimateLb, rivetCode: rivet.code, gaugeIn, coupons: input.coupons ?? [] },
+      tests,
+    );
     pullThroughUltimateLb = fallback.ultimateLb;
     pullThroughLimitLb = fallback.limitLb;
     rules.push(...fallback.rules);

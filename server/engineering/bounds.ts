@@ -62,8 +62,8 @@ export const STUDY_BOUNDS = {
   'cpTables[].cl': { what: 'the lift coefficient of a Cp table', min: -3, max: 3, unit: '' },
   'cpTables[].rows': { what: 'the number of Cp rows', min: 5, max: 500, unit: 'rows', integer: true },
 
-  'wingTorqueInLb': { what: 'the wing torque', min: -1e7, max: 1e7, unit: 'in·lb' },
-  'cellAreaSqIn': { what: 'the cell area', min: 1, max: 100_000, unit: 'in²' },
+  wingTorqueInLb: { what: 'the wing torque', min: -1e7, max: 1e7, unit: 'in·lb' },
+  cellAreaSqIn: { what: 'the cell area', min: 1, max: 100_000, unit: 'in²' },
   coupons: { what: 'the number of coupon tests', min: 0, max: 5_000, unit: 'tests', integer: true },
   'coupons[].gaugeIn': { what: 'the coupon gauge', min: 0.008, max: 0.25, unit: 'in' },
   'coupons[].loadLb': { what: 'the coupon test load', min: 0.1, max: 20_000, unit: 'lb' },
@@ -159,14 +159,22 @@ export const MAX_ZONING_RUNS = 200;
 /** Refuses a value outside its bound, naming `field` (the bound's key with list indices filled in). */
 export function requireWithin(value: unknown, field: string, bound: Bound): number {
   const v = requireFinite(value, field);
-  if (bound.integer && !Number.isInteger(v)) throw new EngineeringInputError(field, `${bound.what} must be a whole number (got ${v})`);
+  if (bound.integer && !Number.isInteger(v))
+    throw new EngineeringInputError(field, `${bound.what} must be a whole number (got ${v})`);
   // (the unit's text is made only for a refusal: a study checks some hundred values)
   if (bound.maxExclusive) {
-    if (v < bound.min || v >= bound.max) throw new EngineeringInputError(field, `${bound.what} must be at least ${formatBound(bound.min)} and below ${formatBound(bound.max)}${unitText(bound)} (got ${v})`);
+    if (v < bound.min || v >= bound.max)
+      throw new EngineeringInputError(
+        field,
+        `${bound.what} must be at least ${formatBound(bound.min)} and below ${formatBound(bound.max)}${unitText(bound)} (got ${v})`,
+      );
     return v;
   }
   if (v < bound.min || v > bound.max) {
-    throw new EngineeringInputError(field, `${bound.what} must be between ${formatBound(bound.min)} and ${formatBound(bound.max)}${unitText(bound)} (got ${v})`);
+    throw new EngineeringInputError(
+      field,
+      `${bound.what} must be between ${formatBound(bound.min)} and ${formatBound(bound.max)}${unitText(bound)} (got ${v})`,
+    );
   }
   return v;
 }
@@ -174,7 +182,10 @@ export function requireWithin(value: unknown, field: string, bound: Bound): numb
 /** Refuses a list whose length is outside its bound. */
 export function requireCount(list: unknown[], field: string, bound: Bound): void {
   if (list.length < bound.min || list.length > bound.max) {
-    throw new EngineeringInputError(field, `${bound.what} must be from ${bound.min} to ${bound.max} (got ${list.length})`);
+    throw new EngineeringInputError(
+      field,
+      `${bound.what} must be from ${bound.min} to ${bound.max} (got ${list.length})`,
+    );
   }
 }
 

@@ -25,8 +25,10 @@ export const COMPRESSIBILITY_RULES = ['prandtl-glauert', 'karman-tsien'] as cons
 export type CompressibilityRule = (typeof COMPRESSIBILITY_RULES)[number];
 
 export const COMPRESSIBILITY_RULE_TEXT: Record<CompressibilityRule, string> = {
-  'prandtl-glauert': 'compressibility: Prandtl–Glauert, Cp = Cp₀/β, β = √(1 − M²), at each condition\'s Mach number (subsonic, below M 0.7)',
-  'karman-tsien': 'compressibility: Kármán–Tsien, Cp = Cp₀/(β + M²/(1 + β)·Cp₀/2), β = √(1 − M²), at each condition\'s Mach number (subsonic, below M 0.7)',
+  'prandtl-glauert':
+    "compressibility: Prandtl–Glauert, Cp = Cp₀/β, β = √(1 − M²), at each condition's Mach number (subsonic, below M 0.7)",
+  'karman-tsien':
+    "compressibility: Kármán–Tsien, Cp = Cp₀/(β + M²/(1 + β)·Cp₀/2), β = √(1 − M²), at each condition's Mach number (subsonic, below M 0.7)",
 };
 
 /** Ratio of specific heats of air. */
@@ -69,7 +71,10 @@ export function vacuumPressureCoefficient(mach: number): number {
 
 function requirePhysical(cp: number, cp0: number, mach: number, rule: string): number {
   if (!(cp >= vacuumPressureCoefficient(mach))) {
-    throw new EngineeringInputError('cp', `a pressure coefficient of ${cp0} at Mach ${mach} has no ${rule} correction: it would be beyond a vacuum (the flow there is far supersonic)`);
+    throw new EngineeringInputError(
+      'cp',
+      `a pressure coefficient of ${cp0} at Mach ${mach} has no ${rule} correction: it would be beyond a vacuum (the flow there is far supersonic)`,
+    );
   }
   return cp;
 }
@@ -158,7 +163,12 @@ function correctedQuickly(samples: CpSample[], m: number, rule: CompressibilityR
  * from the surface speeds as `pressureDistribution` takes it. Null where `correctCpDistribution` would
  * refuse anything, which the caller then leaves to it to refuse by name.
  */
-export function correctFlowPressures(flow: PanelSolution, alphaRad: number, mach: number, rule: CompressibilityRule): CorrectedDistribution | null {
+export function correctFlowPressures(
+  flow: PanelSolution,
+  alphaRad: number,
+  mach: number,
+  rule: CompressibilityRule,
+): CorrectedDistribution | null {
   if (!(typeof mach === 'number' && mach >= WING_BOUNDS.mach.min && mach < WING_BOUNDS.mach.max)) return null;
   const ca = Math.cos(alphaRad);
   const sa = Math.sin(alphaRad);
@@ -168,7 +178,13 @@ export function correctFlowPressures(flow: PanelSolution, alphaRad: number, mach
 }
 
 /** `correctedQuickly` of one surface's Cp₀ = 1 − v², v = cos α·ga + sin α·gb (as surfaceCp makes them). */
-function correctedSurface(surf: SurfaceSolution, ca: number, sa: number, m: number, rule: CompressibilityRule): CpSample[] | null {
+function correctedSurface(
+  surf: SurfaceSolution,
+  ca: number,
+  sa: number,
+  m: number,
+  rule: CompressibilityRule,
+): CpSample[] | null {
   const n = surf.x.length;
   if (n < 1 || n > MAX_CP_SAMPLES) return null;
   const beta = Math.sqrt(1 - m * m);
@@ -195,11 +211,21 @@ function correctedSurface(surf: SurfaceSolution, ca: number, sa: number, m: numb
  * A section's Cp on both surfaces corrected to Mach `mach` by `rule` (the wing study applies this to
  * each condition at its own Mach number). At M = 0 the samples come back unchanged.
  */
-export function correctCpDistribution(cp: { upper: CpSample[]; lower: CpSample[] }, mach: number, rule: CompressibilityRule): CorrectedDistribution {
+export function correctCpDistribution(
+  cp: { upper: CpSample[]; lower: CpSample[] },
+  mach: number,
+  rule: CompressibilityRule,
+): CorrectedDistribution {
   const m = requireMach(mach);
   const fix = (samples: CpSample[], field: string) => {
     requireArray<CpSample>(samples, field, 1, 'list of Cp samples');
-    requireCount(samples, field, { what: 'the number of Cp samples', min: 1, max: MAX_CP_SAMPLES, unit: 'samples', integer: true });
+    requireCount(samples, field, {
+      what: 'the number of Cp samples',
+      min: 1,
+      max: MAX_CP_SAMPLES,
+      unit: 'samples',
+      integer: true,
+    });
     const quick = correctedQuickly(samples, m, rule);
     if (quick) return quick;
     // A sample the quick pass does not take: sample by sample, to refuse the first bad one by name.

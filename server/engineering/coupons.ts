@@ -49,15 +49,19 @@ export const COUPON_RULES = [
 ];
 
 export function validateCouponTest(test: unknown, field: string): CouponTest {
-  if (test === null || typeof test !== 'object') throw new EngineeringInputError(field, 'each coupon test must be an object');
+  if (test === null || typeof test !== 'object')
+    throw new EngineeringInputError(field, 'each coupon test must be an object');
   const t = test as CouponTest;
-  if (typeof t.material !== 'string' || !t.material.trim()) throw new EngineeringInputError(`${field}.material`, 'the material is missing');
-  if (typeof t.rivetSpec !== 'string' || !t.rivetSpec.trim()) throw new EngineeringInputError(`${field}.rivetSpec`, 'the rivet spec is missing');
+  if (typeof t.material !== 'string' || !t.material.trim())
+    throw new EngineeringInputError(`${field}.material`, 'the material is missing');
+  if (typeof t.rivetSpec !== 'string' || !t.rivetSpec.trim())
+    throw new EngineeringInputError(`${field}.rivetSpec`, 'the rivet spec is missing');
   requirePositive(t.gaugeIn, `${field}.gaugeIn`, 'the gauge');
   requirePositive(t.loadLb, `${field}.loadLb`, 'the test load');
   requireStudyBound(t.gaugeIn, 'coupons[].gaugeIn', `${field}.gaugeIn`);
   requireStudyBound(t.loadLb, 'coupons[].loadLb', `${field}.loadLb`);
-  if (t.couponWidthIn !== undefined) requireStudyBound(t.couponWidthIn, 'coupons[].couponWidthIn', `${field}.couponWidthIn`);
+  if (t.couponWidthIn !== undefined)
+    requireStudyBound(t.couponWidthIn, 'coupons[].couponWidthIn', `${field}.couponWidthIn`);
   requireOneOf(t.outcome, `${field}.outcome`, COUPON_OUTCOMES);
   return t;
 }
@@ -72,7 +76,11 @@ export function validateCoupons(tests: unknown, field = 'coupons'): CouponTest[]
 }
 
 const within = (v: unknown, b: Bound): boolean =>
-  typeof v === 'number' && Number.isFinite(v) && (!b.integer || Number.isInteger(v)) && v >= b.min && (b.maxExclusive ? v < b.max : v <= b.max);
+  typeof v === 'number' &&
+  Number.isFinite(v) &&
+  (!b.integer || Number.isInteger(v)) &&
+  v >= b.min &&
+  (b.maxExclusive ? v < b.max : v <= b.max);
 
 /** What `validateCouponTest` lets through (it may let through more: it has the last word). */
 function soundCoupon(test: unknown): boolean {
@@ -106,7 +114,10 @@ function matchingCoupons(tests: CouponTest[], q: CouponQuery): CouponTest[] {
   const material = q.material.trim().toUpperCase();
   const rivetSpec = q.rivetSpec.trim().toUpperCase();
   return tests.filter(
-    (t) => t.material.trim().toUpperCase() === material && t.rivetSpec.trim().toUpperCase() === rivetSpec && Math.abs(t.gaugeIn - q.gaugeIn) <= GAUGE_MATCH_TOLERANCE_IN,
+    (t) =>
+      t.material.trim().toUpperCase() === material &&
+      t.rivetSpec.trim().toUpperCase() === rivetSpec &&
+      Math.abs(t.gaugeIn - q.gaugeIn) <= GAUGE_MATCH_TOLERANCE_IN,
   );
 }
 
@@ -120,7 +131,15 @@ export function couponAllowables(tests: CouponTest[], query: CouponQuery): Coupo
   const { matched, limitLb, ultimateLb, warnings } = matchedCouponAllowables(all, query);
   // Spelled out rather than `...envelope(…)` followed by more fields: V8 builds such a literal some 50
   // times slower, and every candidate of a study comes through here.
-  return { inputs: { ...query, tests: all }, rules: COUPON_RULES, warnings, caution: ENGINEERING_CAUTION, matched, limitLb, ultimateLb };
+  return {
+    inputs: { ...query, tests: all },
+    rules: COUPON_RULES,
+    warnings,
+    caution: ENGINEERING_CAUTION,
+    matched,
+    limitLb,
+    ultimateLb,
+  };
 }
 
 /**
@@ -133,12 +152,21 @@ export function matchedCouponAllowables(
 ): { matched: CouponTest[]; limitLb: number | null; ultimateLb: number | null; warnings: string[] } {
   const matched = matchingCoupons(tests, query);
   const label = `${query.gaugeIn} in ${query.material} with ${query.rivetSpec}`;
-  if (matched.length === 0) return { matched, limitLb: null, ultimateLb: null, warnings: [`no coupon tests for ${label}`] };
+  if (matched.length === 0)
+    return { matched, limitLb: null, ultimateLb: null, warnings: [`no coupon tests for ${label}`] };
   const warnings: string[] = [];
   const limitLb = highestBelow(matched, ['no_deformation'], ['slight_deformation', 'excessive_deformation', 'failure']);
-  const ultimateLb = highestBelow(matched, ['no_deformation', 'slight_deformation'], ['excessive_deformation', 'failure']);
-  if (limitLb === 0) warnings.push(`no coupon of ${label} came through without permanent deformation: limit allowable 0`);
-  if (ultimateLb === 0) warnings.push(`no coupon of ${label} carried its load without excessive deformation or failure: ultimate allowable 0`);
+  const ultimateLb = highestBelow(
+    matched,
+    ['no_deformation', 'slight_deformation'],
+    ['excessive_deformation', 'failure'],
+  );
+  if (limitLb === 0)
+    warnings.push(`no coupon of ${label} came through without permanent deformation: limit allowable 0`);
+  if (ultimateLb === 0)
+    warnings.push(
+      `no coupon of ${label} carried its load without excessive deformation or failure: ultimate allowable 0`,
+    );
   return { matched, limitLb, ultimateLb, warnings };
 }
 
@@ -162,7 +190,16 @@ export function groupCouponAllowables<T extends CouponTest>(tests: T[]): CouponG
   for (const t of tests) {
     const g = groups.find((x) => matchesCoupon(t, x));
     if (g) g.tests.push(t);
-    else groups.push({ material: t.material.trim(), gaugeIn: t.gaugeIn, rivetSpec: t.rivetSpec.trim(), tests: [t], limitLb: 0, ultimateLb: 0, warnings: [] });
+    else
+      groups.push({
+        material: t.material.trim(),
+        gaugeIn: t.gaugeIn,
+        rivetSpec: t.rivetSpec.trim(),
+        tests: [t],
+        limitLb: 0,
+        ultimateLb: 0,
+        warnings: [],
+      });
   }
   for (const g of groups) {
     const a = matchedCouponAllowables(validateCoupons(g.tests), g);
@@ -170,5 +207,10 @@ export function groupCouponAllowables<T extends CouponTest>(tests: T[]): CouponG
     Object.assign(g, { limitLb: a.limitLb ?? 0, ultimateLb: a.ultimateLb ?? 0, warnings: a.warnings });
   }
   const key = (s: string) => s.toUpperCase();
-  return groups.sort((a, b) => key(a.material).localeCompare(key(b.material)) || a.gaugeIn - b.gaugeIn || key(a.rivetSpec).localeCompare(key(b.rivetSpec)));
+  return groups.sort(
+    (a, b) =>
+      key(a.material).localeCompare(key(b.material)) ||
+      a.gaugeIn - b.gaugeIn ||
+      key(a.rivetSpec).localeCompare(key(b.rivetSpec)),
+  );
 }

@@ -30,8 +30,14 @@ export function validateCpTables(input: unknown, field = 'cpTables'): CpTable[] 
     const f = `${field}[${k}]`;
     if (t === null || typeof t !== 'object') throw new EngineeringInputError(f, 'each Cp table must be an object');
     const cl = requireStudyBound(t.cl, 'cpTables[].cl', `${f}.cl`);
-    if (cl === 0) throw new EngineeringInputError(`${f}.cl`, 'a Cp table needs the (non-zero) lift coefficient it was measured at');
-    const rows = requireArray<unknown>(t.rows, `${f}.rows`, MIN_CP_TABLE_ROWS, 'list of [x/c, Cp upper, Cp lower] rows');
+    if (cl === 0)
+      throw new EngineeringInputError(`${f}.cl`, 'a Cp table needs the (non-zero) lift coefficient it was measured at');
+    const rows = requireArray<unknown>(
+      t.rows,
+      `${f}.rows`,
+      MIN_CP_TABLE_ROWS,
+      'list of [x/c, Cp upper, Cp lower] rows',
+    );
     requireCount(rows, `${f}.rows`, STUDY_BOUNDS['cpTables[].rows']);
     let prev = -Infinity;
     const upper: CpSample[] = [];
@@ -44,7 +50,11 @@ export function validateCpTables(input: unknown, field = 'cpTables'): CpTable[] 
       const [xc, cu, cl2] = r as number[];
       if (xc < 0 || xc > 1) throw new EngineeringInputError(rf, `x/c must be between 0 and 1 (got ${xc})`);
       if (xc <= prev) throw new EngineeringInputError(rf, 'x/c must increase from row to row');
-      if (cu > 1.001 || cl2 > 1.001) throw new EngineeringInputError(rf, 'Cp above 1 (more than stagnation pressure) is impossible in subsonic flow');
+      if (cu > 1.001 || cl2 > 1.001)
+        throw new EngineeringInputError(
+          rf,
+          'Cp above 1 (more than stagnation pressure) is impossible in subsonic flow',
+        );
       if (cu < -30 || cl2 < -30) throw new EngineeringInputError(rf, 'Cp below −30 is not a plausible pressure');
       prev = xc;
       upper.push({ xc, cp: cu });

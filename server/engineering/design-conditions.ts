@@ -46,8 +46,22 @@ export interface DesignCondition {
 export interface DesignConditionsResult extends EngineeringResult<KitInput> {
   wingLoadingPsf: number;
   loadFactors: { positive: number; negative: number };
-  speeds: { stallKeas: number; maneuveringKeas: number; cruiseKeas: number; diveKeas: number; cruiseMinKeas: number; diveMinKeas: number };
-  gust: { liftSlopePerRad: number; densitySlugFt3: number; massRatio: number; alleviationFactor: number; atCruiseFps: number; atDiveFps: number };
+  speeds: {
+    stallKeas: number;
+    maneuveringKeas: number;
+    cruiseKeas: number;
+    diveKeas: number;
+    cruiseMinKeas: number;
+    diveMinKeas: number;
+  };
+  gust: {
+    liftSlopePerRad: number;
+    densitySlugFt3: number;
+    massRatio: number;
+    alleviationFactor: number;
+    atCruiseFps: number;
+    atDiveFps: number;
+  };
   conditions: DesignCondition[];
 }
 
@@ -106,7 +120,12 @@ export interface GustInput {
 }
 
 /** 23.341: μ = 2(W/S)/(ρ c a g), Kg = 0.88μ/(5.3+μ), n = 1 ± Kg·Ude·V·a/(498·W/S) (ft, psf, ft/s, kt EAS). */
-export function gustLoadFactors(g: GustInput): { massRatio: number; alleviationFactor: number; positive: number; negative: number } {
+export function gustLoadFactors(g: GustInput): {
+  massRatio: number;
+  alleviationFactor: number;
+  positive: number;
+  negative: number;
+} {
   requirePositive(g.wingLoadingPsf, 'wingLoadingPsf', 'the wing loading');
   requirePositive(g.meanChordFt, 'meanChordFt', 'the mean chord');
   requirePositive(g.liftSlopePerRad, 'liftSlopePerRad', 'the lift slope');
@@ -157,14 +176,20 @@ function validateKit(kit: KitInput): void {
     requirePositive(kit.cruiseSpeedKeas, 'kit.cruiseSpeedKeas', 'the cruise speed');
     requireStudyBound(kit.cruiseSpeedKeas, 'kit.cruiseSpeedKeas');
     if (kit.stallSpeedKeas >= kit.cruiseSpeedKeas) {
-      throw new EngineeringInputError('kit.stallSpeedKeas', `the stall speed (${kit.stallSpeedKeas} kt) must be below the cruise speed (${kit.cruiseSpeedKeas} kt)`);
+      throw new EngineeringInputError(
+        'kit.stallSpeedKeas',
+        `the stall speed (${kit.stallSpeedKeas} kt) must be below the cruise speed (${kit.cruiseSpeedKeas} kt)`,
+      );
     }
   }
   if (kit.diveSpeedKeas !== undefined) {
     requirePositive(kit.diveSpeedKeas, 'kit.diveSpeedKeas', 'the dive speed');
     requireStudyBound(kit.diveSpeedKeas, 'kit.diveSpeedKeas');
     if (kit.cruiseSpeedKeas !== undefined && kit.diveSpeedKeas <= kit.cruiseSpeedKeas) {
-      throw new EngineeringInputError('kit.diveSpeedKeas', `the dive speed (${kit.diveSpeedKeas} kt) must be above the cruise speed (${kit.cruiseSpeedKeas} kt)`);
+      throw new EngineeringInputError(
+        'kit.diveSpeedKeas',
+        `the dive speed (${kit.diveSpeedKeas} kt) must be above the cruise speed (${kit.cruiseSpeedKeas} kt)`,
+      );
     }
   }
 }
@@ -186,19 +211,28 @@ export function designConditions(kit: KitInput): DesignConditionsResult {
 
   const cruiseMinKeas = minimumCruiseSpeedKeas(wingLoadingPsf, category);
   const diveMinKeas = minimumDiveSpeedKeas(cruiseMinKeas, wingLoadingPsf, category);
-  rules.push(`VC,min = ${CRUISE_FACTOR[category]}·√(W/S) kt, VD,min = ${DIVE_FACTOR[category]}·VC,min, VD ≥ 1.25·VC (14 CFR 23.335)`);
+  rules.push(
+    `VC,min = ${CRUISE_FACTOR[category]}·√(W/S) kt, VD,min = ${DIVE_FACTOR[category]}·VC,min, VD ≥ 1.25·VC (14 CFR 23.335)`,
+  );
   if (kit.stallSpeedKeas >= cruiseMinKeas && kit.cruiseSpeedKeas === undefined) {
-    throw new EngineeringInputError('kit.stallSpeedKeas', `the stall speed (${kit.stallSpeedKeas} kt) is not below the minimum design cruise speed (${cruiseMinKeas.toFixed(1)} kt) for this wing loading`);
+    throw new EngineeringInputError(
+      'kit.stallSpeedKeas',
+      `the stall speed (${kit.stallSpeedKeas} kt) is not below the minimum design cruise speed (${cruiseMinKeas.toFixed(1)} kt) for this wing loading`,
+    );
   }
   let cruiseKeas = kit.cruiseSpeedKeas ?? cruiseMinKeas;
   if (cruiseKeas < cruiseMinKeas) {
-    warnings.push(`the given cruise speed ${cruiseKeas} kt is below the rule minimum ${cruiseMinKeas.toFixed(1)} kt for W/S = ${wingLoadingPsf.toFixed(2)} psf: the minimum is used`);
+    warnings.push(
+      `the given cruise speed ${cruiseKeas} kt is below the rule minimum ${cruiseMinKeas.toFixed(1)} kt for W/S = ${wingLoadingPsf.toFixed(2)} psf: the minimum is used`,
+    );
     cruiseKeas = cruiseMinKeas;
   }
   const diveFloor = Math.max(diveMinKeas, 1.25 * cruiseKeas);
   let diveKeas = kit.diveSpeedKeas ?? diveFloor;
   if (diveKeas < diveFloor) {
-    warnings.push(`the given dive speed ${diveKeas} kt is below the rule minimum ${diveFloor.toFixed(1)} kt: the minimum is used`);
+    warnings.push(
+      `the given dive speed ${diveKeas} kt is below the rule minimum ${diveFloor.toFixed(1)} kt: the minimum is used`,
+    );
     diveKeas = diveFloor;
   }
   const maneuveringKeas = Math.min(maneuveringSpeedKeas(kit.stallSpeedKeas, loadFactors.positive), cruiseKeas);
@@ -207,13 +241,22 @@ export function designConditions(kit: KitInput): DesignConditionsResult {
   const aspectRatio = (wingAreaSqFt * SQIN_PER_SQFT) / (kit.meanChordIn * kit.meanChordIn);
   const liftSlopePerRad = kit.liftSlopePerRad ?? estimatedWingLiftSlope(aspectRatio);
   if (kit.liftSlopePerRad === undefined) {
-    warnings.push(`wing lift slope not given: estimated ${liftSlopePerRad.toFixed(3)}/rad from aspect ratio S/c² = ${aspectRatio.toFixed(2)} (Helmbold, straight wing)`);
+    warnings.push(
+      `wing lift slope not given: estimated ${liftSlopePerRad.toFixed(3)}/rad from aspect ratio S/c² = ${aspectRatio.toFixed(2)} (Helmbold, straight wing)`,
+    );
   }
   const altitudeFt = kit.altitudeFt ?? 0;
   const densitySlugFt3 = densitySlugPerFt3(altitudeFt);
   const ude = gustVelocitiesFps(altitudeFt);
   const gustAt = (speedKeas: number, gustFps: number) =>
-    gustLoadFactors({ wingLoadingPsf, meanChordFt: inToFt(kit.meanChordIn), liftSlopePerRad, densitySlugFt3, speedKeas, gustFps });
+    gustLoadFactors({
+      wingLoadingPsf,
+      meanChordFt: inToFt(kit.meanChordIn),
+      liftSlopePerRad,
+      densitySlugFt3,
+      speedKeas,
+      gustFps,
+    });
   const gustC = gustAt(cruiseKeas, ude.atCruise);
   const gustD = gustAt(diveKeas, ude.atDive);
   rules.push(
@@ -221,7 +264,13 @@ export function designConditions(kit: KitInput): DesignConditionsResult {
     'lift coefficient needed CL = n·W/(q·S); the rib section is taken to work at the wing CL (uniform spanwise lift)',
   );
 
-  const make = (id: string, label: string, kind: 'maneuver' | 'gust', n: number, speedKeas: number): DesignCondition => {
+  const make = (
+    id: string,
+    label: string,
+    kind: 'maneuver' | 'gust',
+    n: number,
+    speedKeas: number,
+  ): DesignCondition => {
     const qPsi = dynamicPressurePsi(speedKeas);
     return { id, label, kind, n, speedKeas, qPsi, clNeeded: (n * weightLb) / (qPsi * wingAreaSqFt * SQIN_PER_SQFT) };
   };
@@ -244,7 +293,14 @@ export function designConditions(kit: KitInput): DesignConditionsResult {
     wingLoadingPsf,
     loadFactors,
     speeds: { stallKeas: kit.stallSpeedKeas, maneuveringKeas, cruiseKeas, diveKeas, cruiseMinKeas, diveMinKeas },
-    gust: { liftSlopePerRad, densitySlugFt3, massRatio: gustC.massRatio, alleviationFactor: gustC.alleviationFactor, atCruiseFps: ude.atCruise, atDiveFps: ude.atDive },
+    gust: {
+      liftSlopePerRad,
+      densitySlugFt3,
+      massRatio: gustC.massRatio,
+      alleviationFactor: gustC.alleviationFactor,
+      atCruiseFps: ude.atCruise,
+      atDiveFps: ude.atDive,
+    },
     conditions,
   };
 }

@@ -1,5 +1,11 @@
 import { dynamicPressurePsi } from './atmosphere';
-import { designConditions, type Category, type DesignCondition, type DesignConditionsResult, type KitInput } from './design-conditions';
+import {
+  designConditions,
+  type Category,
+  type DesignCondition,
+  type DesignConditionsResult,
+  type KitInput,
+} from './design-conditions';
 import { flapConditions, type FlapInput } from './flap-conditions';
 import { ENGINEERING_CAUTION, type EngineeringResult } from './result';
 import { SQIN_PER_SQFT } from './units';

@@ -1,5 +1,11 @@
 import { requireWingBound } from './bounds';
-import { designConditions, gustLoadFactors, type DesignCondition, type DesignConditionsResult, type KitInput } from './design-conditions';
+import {
+  designConditions,
+  gustLoadFactors,
+  type DesignCondition,
+  type DesignConditionsResult,
+  type KitInput,
+} from './design-conditions';
 import { dynamicPressurePsi } from './atmosphere';
 import { EngineeringInputError } from './errors';
 import { ENGINEERING_CAUTION, type EngineeringResult } from './result';
@@ -58,7 +64,8 @@ export function flapDesignSpeedKeas(stallSpeedKeas: number, stallSpeedFlapsKeas:
 }
 
 function validateFlaps(flaps: FlapInput, kit: KitInput): void {
-  if (flaps === null || typeof flaps !== 'object') throw new EngineeringInputError('flaps', 'the flap data are missing');
+  if (flaps === null || typeof flaps !== 'object')
+    throw new EngineeringInputError('flaps', 'the flap data are missing');
   requireWingBound(flaps.stallSpeedKeas, 'flaps.stallSpeedKeas');
   if (flaps.stallSpeedKeas > kit.stallSpeedKeas) {
     throw new EngineeringInputError(
@@ -86,11 +93,15 @@ export function flapConditions(
   const designMinKeas = flapDesignSpeedKeas(kit.stallSpeedKeas, flaps.stallSpeedKeas);
   let designKeas = flaps.designSpeedKeas ?? designMinKeas;
   if (designKeas < designMinKeas) {
-    warnings.push(`the given flap design speed ${designKeas} kt is below the rule minimum ${designMinKeas.toFixed(1)} kt (1.4 VS, 1.8 VSF): the minimum is used`);
+    warnings.push(
+      `the given flap design speed ${designKeas} kt is below the rule minimum ${designMinKeas.toFixed(1)} kt (1.4 VS, 1.8 VSF): the minimum is used`,
+    );
     designKeas = designMinKeas;
   }
   if (designKeas > clean.speeds.cruiseKeas) {
-    warnings.push(`the flap design speed ${designKeas.toFixed(1)} kt is above VC (${clean.speeds.cruiseKeas.toFixed(1)} kt): flaps used en route are a separate case of 23.345 not covered here`);
+    warnings.push(
+      `the flap design speed ${designKeas.toFixed(1)} kt is above VC (${clean.speeds.cruiseKeas.toFixed(1)} kt): flaps used en route are a separate case of 23.345 not covered here`,
+    );
   }
   const gust = gustLoadFactors({
     wingLoadingPsf: clean.wingLoadingPsf,
@@ -121,7 +132,7 @@ export function flapConditions(
     `flap gust factor by 23.341 at VF with Ude = ${FLAP_GUST_FPS} ft/s and the clean wing's lift slope ${clean.gust.liftSlopePerRad.toFixed(3)}/rad`,
   ];
   warnings.push(
-    'flaps extended: the section pressure with the flap deflected differs from the clean section\'s (more load aft); give a Cp table of the flapped section for these conditions',
+    "flaps extended: the section pressure with the flap deflected differs from the clean section's (more load aft); give a Cp table of the flapped section for these conditions",
     'the flap itself, its mechanism and supports (23.345(d): head-on gust and slipstream) are not checked here',
   );
   // Spelled out rather than `...envelope(…)` followed by more fields: V8 builds such a literal far slower.

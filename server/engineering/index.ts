@@ -168,8 +168,25 @@ export {
   suctionIntensityLbPerIn,
   ULTIMATE_FACTOR,
 } from './rivet-loads';
-export { findMaterial, findRivet, findRivetByCallout, nextRivetSize, MATERIALS, RIVETS, STOCK_GAUGES_IN, type RivetSpec, type SheetMaterial } from './materials';
-export { layoutRules, rivetLengthDash, rivetLengthIn, rivetWeightLb, transversePitchIn, type LayoutRules } from './layout';
+export {
+  findMaterial,
+  findRivet,
+  findRivetByCallout,
+  nextRivetSize,
+  MATERIALS,
+  RIVETS,
+  STOCK_GAUGES_IN,
+  type RivetSpec,
+  type SheetMaterial,
+} from './materials';
+export {
+  layoutRules,
+  rivetLengthDash,
+  rivetLengthIn,
+  rivetWeightLb,
+  transversePitchIn,
+  type LayoutRules,
+} from './layout';
 export {
   couponAllowables,
   groupCouponAllowables,
@@ -205,7 +222,13 @@ export {
   type StationLoad,
 } from './pitch-schedule';
 export { tradeStudy, type RankBy, type TradeCandidate, type TradeRow, type TradeStudyResult } from './trade-study';
-export { LAYOUT_TOLERANCE_IN, reworkCheck, type ReworkInput, type ReworkMargins, type ReworkResult } from './rework-check';
+export {
+  LAYOUT_TOLERANCE_IN,
+  reworkCheck,
+  type ReworkInput,
+  type ReworkMargins,
+  type ReworkResult,
+} from './rework-check';
 export {
   countersunkHeadHeightIn,
   repairCheck,
@@ -244,5 +267,13 @@ export {
   type WingStudyResult,
   type WingTradeRow,
 } from './wing-study';
-export { compressionBucklingCoefficient, effectiveWidthIn, skinPanelStudy, type SkinCandidate, type SkinLineSchedule, type SkinPanelResult, type SkinPanelSpec } from './skin-panel';
+export {
+  compressionBucklingCoefficient,
+  effectiveWidthIn,
+  skinPanelStudy,
+  type SkinCandidate,
+  type SkinLineSchedule,
+  type SkinPanelResult,
+  type SkinPanelSpec,
+} from './skin-panel';
 export { momentCoefficientAbout, spanwiseLoads, type SectionMoment, type StationLoads } from './wing-loads';

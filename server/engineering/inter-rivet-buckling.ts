@@ -38,7 +38,8 @@ export const END_FIXITY: Record<RivetHead, { c: number; source: string }> = {
   countersunk: { c: 1.0, source: 'Bruhn C7, from memory: verify' },
 };
 
-export const INTER_RIVET_RULE = 'inter-rivet buckling σ_ir = 0.9·c·E·(t/p)², c the end fixity of the rivet head (Bruhn C7)';
+export const INTER_RIVET_RULE =
+  'inter-rivet buckling σ_ir = 0.9·c·E·(t/p)², c the end fixity of the rivet head (Bruhn C7)';
 
 /** The head a catalogue rivet's end fixity is read for. */
 export function rivetHeadOf(spec: RivetSpec): RivetHead {
@@ -54,7 +55,12 @@ export function endFixity(head: RivetHead | undefined, given?: number): { c: num
 }
 
 /** Elastic σ_ir = 0.9·c·E·(t/p)², psi. */
-export function interRivetElasticStressPsi(c: number, elasticModulusPsi: number, thicknessIn: number, pitchIn: number): number {
+export function interRivetElasticStressPsi(
+  c: number,
+  elasticModulusPsi: number,
+  thicknessIn: number,
+  pitchIn: number,
+): number {
   requireWingBound(c, 'rivetLine.endFixity');
   const e = requireWingBound(elasticModulusPsi, 'panel.elasticModulusPsi');
   const t = requireWingBound(thicknessIn, 'panel.thicknessIn');
@@ -78,7 +84,13 @@ export interface InterRivetInput {
 export interface InterRivetResult extends EngineeringResult<InterRivetInput> {
   endFixity: { c: number; source: string };
   /** at the given pitch (null without one) */
-  atPitch: { pitchIn: number; elasticPsi: number; criticalPsi: number; plasticityReduced: boolean; marginOfSafety: number | null } | null;
+  atPitch: {
+    pitchIn: number;
+    elasticPsi: number;
+    criticalPsi: number;
+    plasticityReduced: boolean;
+    marginOfSafety: number | null;
+  } | null;
   /**
    * The largest pitch whose σ_ir is at least the applied compression; null when nothing is applied (no
    * limit) or when the compression reaches the yield (no pitch will do: `reason` says which).
@@ -88,7 +100,13 @@ export interface InterRivetResult extends EngineeringResult<InterRivetInput> {
 }
 
 /** The pitch limit p ≤ t·√(0.9·c·E/σ_e), σ_e the elastic stress Johnson's parabola needs to reach f. */
-export function interRivetPitchLimitIn(c: number, elasticModulusPsi: number, compressiveYieldPsi: number, thicknessIn: number, appliedStressPsi: number): number | null {
+export function interRivetPitchLimitIn(
+  c: number,
+  elasticModulusPsi: number,
+  compressiveYieldPsi: number,
+  thicknessIn: number,
+  appliedStressPsi: number,
+): number | null {
   requireWingBound(c, 'rivetLine.endFixity');
   const e = requireWingBound(elasticModulusPsi, 'panel.elasticModulusPsi');
   const fcy = requireWingBound(compressiveYieldPsi, 'panel.compressiveYieldPsi');
@@ -101,24 +119,41 @@ export function interRivetPitchLimitIn(c: number, elasticModulusPsi: number, com
 }
 
 export function interRivetBuckling(input: InterRivetInput): InterRivetResult {
-  if (input === null || typeof input !== 'object') throw new EngineeringInputError('rivetLine', 'the rivet line data are missing');
+  if (input === null || typeof input !== 'object')
+    throw new EngineeringInputError('rivetLine', 'the rivet line data are missing');
   const fixity = endFixity(input.head, input.endFixity);
   const { c } = fixity;
   const fcy = requireWingBound(input.compressiveYieldPsi, 'panel.compressiveYieldPsi');
   const f = requireWingBound(input.appliedStressPsi, 'panel.appliedStressPsi');
-  const rules = [INTER_RIVET_RULE, `end fixity c = ${c} (${fixity.source})`, "plasticity: Johnson's parabola above half the compressive yield, σ = F_cy(1 − F_cy/(4σ_elastic))"];
+  const rules = [
+    INTER_RIVET_RULE,
+    `end fixity c = ${c} (${fixity.source})`,
+    "plasticity: Johnson's parabola above half the compressive yield, σ = F_cy(1 − F_cy/(4σ_elastic))",
+  ];
   const warnings: string[] = [];
   let atPitch: InterRivetResult['atPitch'] = null;
   if (input.pitchIn !== undefined) {
     const elasticPsi = interRivetElasticStressPsi(c, input.elasticModulusPsi, input.thicknessIn, input.pitchIn);
     const criticalPsi = johnsonReduced(elasticPsi, fcy);
-    atPitch = { pitchIn: input.pitchIn, elasticPsi, criticalPsi, plasticityReduced: criticalPsi < elasticPsi, marginOfSafety: marginOfSafety(criticalPsi, f) };
-    if (f > criticalPsi) warnings.push(`at ${input.pitchIn} in pitch the skin buckles between rivets at ${criticalPsi.toFixed(0)} psi, below the applied ${f.toFixed(0)} psi`);
+    atPitch = {
+      pitchIn: input.pitchIn,
+      elasticPsi,
+      criticalPsi,
+      plasticityReduced: criticalPsi < elasticPsi,
+      marginOfSafety: marginOfSafety(criticalPsi, f),
+    };
+    if (f > criticalPsi)
+      warnings.push(
+        `at ${input.pitchIn} in pitch the skin buckles between rivets at ${criticalPsi.toFixed(0)} psi, below the applied ${f.toFixed(0)} psi`,
+      );
   }
   const maxPitchIn = interRivetPitchLimitIn(c, input.elasticModulusPsi, fcy, input.thicknessIn, f);
   let reason: string | null = null;
   if (maxPitchIn === null) {
-    reason = f === 0 ? 'no compression applied: inter-rivet buckling sets no pitch limit' : `the applied ${f.toFixed(0)} psi reaches the compressive yield ${fcy.toFixed(0)} psi: no pitch keeps the skin from yielding; a thicker skin is needed`;
+    reason =
+      f === 0
+        ? 'no compression applied: inter-rivet buckling sets no pitch limit'
+        : `the applied ${f.toFixed(0)} psi reaches the compressive yield ${fcy.toFixed(0)} psi: no pitch keeps the skin from yielding; a thicker skin is needed`;
     if (f > 0) warnings.push(reason);
   }
   return { ...envelope(input, rules, warnings), endFixity: fixity, atPitch, maxPitchIn, reason };

@@ -21,7 +21,8 @@ export class SingularMatrixError extends Error {
 /** Factors a copy of the matrix (row-major Float64Array or rows), leaving the caller's matrix as it was. */
 export function luFactor(matrix: Float64Array | number[][], size?: number): LuFactors {
   const n = size ?? (matrix as number[][]).length;
-  const a = matrix instanceof Float64Array ? Float64Array.from(matrix) : Float64Array.from((matrix as number[][]).flat());
+  const a =
+    matrix instanceof Float64Array ? Float64Array.from(matrix) : Float64Array.from((matrix as number[][]).flat());
   return luFactorInPlace(a, n);
 }
 

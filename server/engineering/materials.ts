@@ -60,7 +60,7 @@ export const MATERIALS: SheetMaterial[] = [
     fcyPsi: 35000,
     compressiveModulusPsi: 10.1e6,
     poissonRatio: 0.33,
-    source: 'MMPDS / MIL-HDBK-5 S-basis, values from memory: verify against the supplier\'s approved data',
+    source: "MMPDS / MIL-HDBK-5 S-basis, values from memory: verify against the supplier's approved data",
   },
   {
     key: '2024-T3',
@@ -74,7 +74,7 @@ export const MATERIALS: SheetMaterial[] = [
     fcyPsi: 39000,
     compressiveModulusPsi: 10.7e6,
     poissonRatio: 0.33,
-    source: 'MMPDS / MIL-HDBK-5 A-basis, values from memory: verify against the supplier\'s approved data',
+    source: "MMPDS / MIL-HDBK-5 A-basis, values from memory: verify against the supplier's approved data",
   },
 ];
 
@@ -82,9 +82,10 @@ export const MATERIALS: SheetMaterial[] = [
 export const STOCK_GAUGES_IN = [0.016, 0.02, 0.025, 0.032, 0.04, 0.05, 0.063];
 
 const AD_FSU_PSI = 30000;
-const AD_SOURCE = 'MS20470/MS20426 2117-T4 (AD), driven F_su 30 ksi on the MIL-HDBK-5 Table 8.1.2 hole diameters (F_su from memory)';
+const AD_SOURCE =
+  'MS20470/MS20426 2117-T4 (AD), driven F_su 30 ksi on the MIL-HDBK-5 Table 8.1.2 hole diameters (F_su from memory)';
 const PULLED_SOURCE =
-  'generic aluminium-body pulled (blind) rivet with a steel mandrel: typical catalogue-order strengths (common practice), not a standard\'s values: enter the supplier\'s approved data';
+  "generic aluminium-body pulled (blind) rivet with a steel mandrel: typical catalogue-order strengths (common practice), not a standard's values: enter the supplier's approved data";
 
 // Nominal size, the hole the strength tables use, and the drill of common practice.
 const SIZES = [
@@ -105,38 +106,34 @@ const PULLED_STRENGTH: Record<number, { shearLb: number; tensionLb: number }> = 
 };
 
 export const RIVETS: RivetSpec[] = [
-  ...SIZES.map(
-    (s): RivetSpec => ({
-      code: `MS20470AD${s.dash}`,
-      description: `solid rivet, universal head, 2117-T4, ${s.label} in`,
-      kind: 'solid',
-      family: 'MS20470AD',
-      dash: s.dash,
-      countersunk: false,
-      nominalDiameterIn: s.d,
-      holeDiameterIn: s.hole,
-      drill: s.drill,
-      fsuPsi: AD_FSU_PSI,
-      densityLbPerIn3: 0.099,
-      source: AD_SOURCE,
-    }),
-  ),
-  ...SIZES.filter((s) => s.dash <= 6).map(
-    (s): RivetSpec => ({
-      code: `MS20426AD${s.dash}`,
-      description: `solid rivet, 100° countersunk head, 2117-T4, ${s.label} in`,
-      kind: 'solid',
-      family: 'MS20426AD',
-      dash: s.dash,
-      countersunk: true,
-      nominalDiameterIn: s.d,
-      holeDiameterIn: s.hole,
-      drill: s.drill,
-      fsuPsi: AD_FSU_PSI,
-      densityLbPerIn3: 0.099,
-      source: AD_SOURCE,
-    }),
-  ),
+  ...SIZES.map((s): RivetSpec => ({
+    code: `MS20470AD${s.dash}`,
+    description: `solid rivet, universal head, 2117-T4, ${s.label} in`,
+    kind: 'solid',
+    family: 'MS20470AD',
+    dash: s.dash,
+    countersunk: false,
+    nominalDiameterIn: s.d,
+    holeDiameterIn: s.hole,
+    drill: s.drill,
+    fsuPsi: AD_FSU_PSI,
+    densityLbPerIn3: 0.099,
+    source: AD_SOURCE,
+  })),
+  ...SIZES.filter((s) => s.dash <= 6).map((s): RivetSpec => ({
+    code: `MS20426AD${s.dash}`,
+    description: `solid rivet, 100° countersunk head, 2117-T4, ${s.label} in`,
+    kind: 'solid',
+    family: 'MS20426AD',
+    dash: s.dash,
+    countersunk: true,
+    nominalDiameterIn: s.d,
+    holeDiameterIn: s.hole,
+    drill: s.drill,
+    fsuPsi: AD_FSU_PSI,
+    densityLbPerIn3: 0.099,
+    source: AD_SOURCE,
+  })),
   ...SIZES.filter((s) => PULLED_STRENGTH[s.dash]).flatMap((s): RivetSpec[] => {
     const base = {
       kind: 'pulled' as const,
@@ -149,9 +146,23 @@ export const RIVETS: RivetSpec[] = [
       source: PULLED_SOURCE,
     };
     return [
-      { ...base, code: `PULLED-${s.dash}`, description: `pulled rivet, protruding head, ${s.label} in`, family: 'PULLED', countersunk: false, tensionLb: PULLED_STRENGTH[s.dash].tensionLb },
+      {
+        ...base,
+        code: `PULLED-${s.dash}`,
+        description: `pulled rivet, protruding head, ${s.label} in`,
+        family: 'PULLED',
+        countersunk: false,
+        tensionLb: PULLED_STRENGTH[s.dash].tensionLb,
+      },
       // A countersunk head holds less in tension; 80 % of the protruding-head value is our assumption.
-      { ...base, code: `PULLED-${s.dash}-CSK`, description: `pulled rivet, countersunk head, ${s.label} in`, family: 'PULLED-CSK', countersunk: true, tensionLb: Math.round(0.8 * PULLED_STRENGTH[s.dash].tensionLb) },
+      {
+        ...base,
+        code: `PULLED-${s.dash}-CSK`,
+        description: `pulled rivet, countersunk head, ${s.label} in`,
+        family: 'PULLED-CSK',
+        countersunk: true,
+        tensionLb: Math.round(0.8 * PULLED_STRENGTH[s.dash].tensionLb),
+      },
     ];
   }),
 ];
@@ -176,17 +187,25 @@ const materialsByKey = byKey(MATERIALS, (m) => m.key);
 const rivetsByCode = byKey(RIVETS, (r) => r.code);
 
 export function findMaterial(key: string, extra: SheetMaterial[] = [], field = 'material'): SheetMaterial {
-  const k = String(key ?? '').trim().toUpperCase();
+  const k = String(key ?? '')
+    .trim()
+    .toUpperCase();
   // The caller's entries first, then the built-in ones: [...extra, ...MATERIALS].find without the copy.
-  const found = (extra.length > 0 ? extra.find((m) => m.key.toUpperCase() === k) : undefined) ?? materialsByKey().get(k);
+  const found =
+    (extra.length > 0 ? extra.find((m) => m.key.toUpperCase() === k) : undefined) ?? materialsByKey().get(k);
   if (!found) {
-    throw new EngineeringInputError(field, `unknown sheet material "${key}"; known: ${[...extra, ...MATERIALS].map((m) => m.key).join(', ')}`);
+    throw new EngineeringInputError(
+      field,
+      `unknown sheet material "${key}"; known: ${[...extra, ...MATERIALS].map((m) => m.key).join(', ')}`,
+    );
   }
   return found;
 }
 
 export function findRivet(code: string, extra: RivetSpec[] = [], field = 'rivetSpec'): RivetSpec {
-  const k = String(code ?? '').trim().toUpperCase();
+  const k = String(code ?? '')
+    .trim()
+    .toUpperCase();
   const found = (extra.length > 0 ? extra.find((r) => r.code.toUpperCase() === k) : undefined) ?? rivetsByCode().get(k);
   if (!found) throw new EngineeringInputError(field, `unknown rivet spec "${code}"`);
   return found;
@@ -197,7 +216,9 @@ export function findRivet(code: string, extra: RivetSpec[] = [], field = 'rivetS
  * (MS20470AD4-4: 1/8 in, 4/16 in long), which does not change the layout rules or strengths.
  */
 export function findRivetByCallout(callout: string, extra: RivetSpec[] = [], field = 'rivetSpec'): RivetSpec {
-  const k = String(callout ?? '').trim().toUpperCase();
+  const k = String(callout ?? '')
+    .trim()
+    .toUpperCase();
   const base = k.match(/^(MS\d{5}[A-Z]+\d+)-\d+$/)?.[1];
   return findRivet(base ?? k, extra, field);
 }

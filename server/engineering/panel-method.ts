@@ -57,7 +57,16 @@ const TWO_PI = 2 * Math.PI;
  * each other node serves the two panels that meet there, so the caller takes each logarithm once.
  * Written with an output buffer (no allocation): this is the inner loop of building the matrix.
  */
-function streamCoefficients(x: number, y: number, s: number, r1s: number, r2s: number, ln1: number, ln2: number, out: Float64Array): void {
+function streamCoefficients(
+  x: number,
+  y: number,
+  s: number,
+  r1s: number,
+  r2s: number,
+  ln1: number,
+  ln2: number,
+  out: Float64Array,
+): void {
   const xs = x - s;
   const subtended = r1s > 0 && r2s > 0 ? Math.atan2(y * s, x * xs + y * y) : 0;
   const i0 = x * ln1 - xs * ln2 - s + y * subtended; // ∫ ln r dξ
@@ -83,7 +92,8 @@ function zeroedMatrix(m: number): Float64Array {
   return matrix;
 }
 function distanceTables(n: number): { dist2: Float64Array; lnDist: Float64Array } {
-  if (!tables || tables.dist2.length < n * n) tables = { dist2: new Float64Array(n * n), lnDist: new Float64Array(n * n) };
+  if (!tables || tables.dist2.length < n * n)
+    tables = { dist2: new Float64Array(n * n), lnDist: new Float64Array(n * n) };
   return tables;
 }
 
@@ -107,7 +117,19 @@ function distanceRow(nx: Float64Array, ny: Float64Array, i: number, dist2: Float
 }
 
 /** Row i of the matrix: ψ at node i from every panel's vortex sheet, less the body's ψ₀. */
-function streamRow(nx: Float64Array, ny: Float64Array, i: number, m: number, len: Float64Array, tx: Float64Array, ty: Float64Array, dist2: Float64Array, lnDist: Float64Array, a: Float64Array, c: Float64Array): void {
+function streamRow(
+  nx: Float64Array,
+  ny: Float64Array,
+  i: number,
+  m: number,
+  len: Float64Array,
+  tx: Float64Array,
+  ty: Float64Array,
+  dist2: Float64Array,
+  lnDist: Float64Array,
+  a: Float64Array,
+  c: Float64Array,
+): void {
   const n = nx.length;
   const panels = n - 1;
   const row = i * m;
@@ -117,7 +139,16 @@ function streamRow(nx: Float64Array, ny: Float64Array, i: number, m: number, len
   for (let j = 0; j < panels; j++) {
     const dx = xi - nx[j];
     const dy = yi - ny[j];
-    streamCoefficients(dx * tx[j] + dy * ty[j], -dx * ty[j] + dy * tx[j], len[j], dist2[at + j], dist2[at + j + 1], lnDist[at + j], lnDist[at + j + 1], c);
+    streamCoefficients(
+      dx * tx[j] + dy * ty[j],
+      -dx * ty[j] + dy * tx[j],
+      len[j],
+      dist2[at + j],
+      dist2[at + j + 1],
+      lnDist[at + j],
+      lnDist[at + j + 1],
+      c,
+    );
     a[row + j] += c[0];
     a[row + j + 1] += c[1];
   }
@@ -130,7 +161,12 @@ function velocityCoefficients(x: number, y: number, s: number): { ua: number; ub
   const logRatio = 0.5 * Math.log((x * x + y * y) / ((x - s) * (x - s) + y * y));
   const j1 = x * subtended - y * logRatio;
   const k1 = x * logRatio - s + y * subtended;
-  return { ua: (subtended - j1 / s) / TWO_PI, ub: j1 / s / TWO_PI, va: -(logRatio - k1 / s) / TWO_PI, vb: -k1 / s / TWO_PI };
+  return {
+    ua: (subtended - j1 / s) / TWO_PI,
+    ub: j1 / s / TWO_PI,
+    va: -(logRatio - k1 / s) / TWO_PI,
+    vb: -k1 / s / TWO_PI,
+  };
 }
 
 /**
@@ -144,7 +180,11 @@ export function solvePanelMethod(contour: Point[], leadingEdgeIndex?: number): P
   const n = nodes.length;
   if (n < 11) throw new EngineeringInputError('airfoil.points', 'too few points for the panel method');
   const gap = Math.hypot(nodes[0][0] - nodes[n - 1][0], nodes[0][1] - nodes[n - 1][1]);
-  if (gap > 1e-9) throw new EngineeringInputError('airfoil.points', 'the panel method needs the trailing edge closed (first and last point the same)');
+  if (gap > 1e-9)
+    throw new EngineeringInputError(
+      'airfoil.points',
+      'the panel method needs the trailing edge closed (first and last point the same)',
+    );
   const panels = n - 1;
   const len = new Float64Array(panels);
   const tx = new Float64Array(panels);
@@ -153,7 +193,8 @@ export function solvePanelMethod(contour: Point[], leadingEdgeIndex?: number): P
     const dx = nodes[j + 1][0] - nodes[j][0];
     const dy = nodes[j + 1][1] - nodes[j][1];
     len[j] = Math.hypot(dx, dy);
-    if (!(len[j] > 0)) throw new EngineeringInputError('airfoil.points', `two consecutive points coincide (point ${j + 1})`);
+    if (!(len[j] > 0))
+      throw new EngineeringInputError('airfoil.points', `two consecutive points coincide (point ${j + 1})`);
     tx[j] = dx / len[j];
     ty[j] = dy / len[j];
   }
@@ -211,7 +252,11 @@ export function solvePanelMethod(contour: Point[], leadingEdgeIndex?: number): P
   try {
     factors = luFactorInPlace(a, m); // the matrix is not read again: factored where it lies
   } catch (e) {
-    if (e instanceof SingularMatrixError) throw new EngineeringInputError('airfoil.points', 'the outline is degenerate: the flow about it cannot be solved');
+    if (e instanceof SingularMatrixError)
+      throw new EngineeringInputError(
+        'airfoil.points',
+        'the outline is degenerate: the flow about it cannot be solved',
+      );
     throw e;
   }
   // ψ∞ = y cos α − x sin α moves to the right-hand side; the bisector row gets −V∞·b.
@@ -264,7 +309,10 @@ export function liftCoefficientAt(sol: PanelSolution, alphaRad: number): number 
 export function alphaForLiftCoefficient(sol: PanelSolution, cl: number): number {
   const r = Math.hypot(sol.clCos, sol.clSin);
   if (!(Math.abs(cl) < 0.9 * r)) {
-    throw new EngineeringInputError('kit', `a lift coefficient of ${cl.toFixed(2)} is beyond what the section can give; check the weight, wing area and stall speed`);
+    throw new EngineeringInputError(
+      'kit',
+      `a lift coefficient of ${cl.toFixed(2)} is beyond what the section can give; check the weight, wing area and stall speed`,
+    );
   }
   return Math.atan2(sol.clSin, sol.clCos) - Math.acos(cl / r);
 }
@@ -279,7 +327,12 @@ function surfaceCp(surf: SurfaceSolution, ca: number, sa: number): CpSample[] {
 export function pressureDistribution(sol: PanelSolution, alphaRad: number): PressureDistribution {
   const ca = Math.cos(alphaRad);
   const sa = Math.sin(alphaRad);
-  return { alphaRad, cl: liftCoefficientAt(sol, alphaRad), upper: surfaceCp(sol.upper, ca, sa), lower: surfaceCp(sol.lower, ca, sa) };
+  return {
+    alphaRad,
+    cl: liftCoefficientAt(sol, alphaRad),
+    upper: surfaceCp(sol.upper, ca, sa),
+    lower: surfaceCp(sol.lower, ca, sa),
+  };
 }
 
 /** Cp at x/c on one surface, linear between samples ordered from the leading edge to the trailing edge. */

@@ -9,7 +9,13 @@ import { prepareStations, StationCursor, type LoadWindow, type PreparedLine, typ
 import { STUDY_BUDGET, requireStudyBound } from './bounds';
 import { coarsenRuns, groupIntoZones, placeHoles, type Zone } from './zoning';
 
-export { prepareColumns, prepareStations, type LineColumns, type PreparedLine, type StationLoad } from './station-loads';
+export {
+  prepareColumns,
+  prepareStations,
+  type LineColumns,
+  type PreparedLine,
+  type StationLoad,
+} from './station-loads';
 
 /**
  * The pitch schedule of one fastener line (step 7 of the chain): the pitch each station needs, clamped
@@ -131,7 +137,10 @@ export function validateScheduleSettings(s: ScheduleSettings, rivetDiameterIn: n
   const inc = requireStudyBound(s.pitchIncrementIn, 'pitchIncrementIn');
   const maxPitch = maxD * rivetDiameterIn;
   if (inc > maxPitch + EPS) {
-    throw new EngineeringInputError('pitchIncrementIn', `the pitch increment (${inc} in) is larger than the maximum pitch (${maxPitch.toFixed(3)} in)`);
+    throw new EngineeringInputError(
+      'pitchIncrementIn',
+      `the pitch increment (${inc} in) is larger than the maximum pitch (${maxPitch.toFixed(3)} in)`,
+    );
   }
   requireStudyBound(s.maxZones, 'maxZones');
 }
@@ -140,7 +149,10 @@ export function validateScheduleSettings(s: ScheduleSettings, rivetDiameterIn: n
  * Pitches tried for a rivet: every multiple of the increment from the maximum pitch down to just above
  * the 3D minimum, then the minimum itself. The loop that builds it runs this many times.
  */
-export function pitchGridSize(s: Pick<ScheduleSettings, 'maxPitchDiameters' | 'pitchIncrementIn'>, rivetDiameterIn: number): number {
+export function pitchGridSize(
+  s: Pick<ScheduleSettings, 'maxPitchDiameters' | 'pitchIncrementIn'>,
+  rivetDiameterIn: number,
+): number {
   return Math.max(0, Math.floor((s.maxPitchDiameters * rivetDiameterIn) / s.pitchIncrementIn + EPS)) + 1;
 }
 
@@ -191,7 +203,10 @@ export function holePrefixFor(line: string): string {
   return initials.slice(0, 3) || 'H';
 }
 
-type AllowablesInput = Pick<PitchScheduleInput, 'material' | 'gaugeIn' | 'rivetSpec' | 'coupons' | 'pullThroughFallbackFraction' | 'materialData' | 'rivetData'>;
+type AllowablesInput = Pick<
+  PitchScheduleInput,
+  'material' | 'gaugeIn' | 'rivetSpec' | 'coupons' | 'pullThroughFallbackFraction' | 'materialData' | 'rivetData'
+>;
 
 /**
  * The joint allowables a schedule works to: at the layout's minimum edge distance. They depend on the
@@ -217,7 +232,11 @@ export function scheduleAllowables(input: AllowablesInput): JointAllowables {
  * prepare its loads once (`prepared`, from `prepareStations(input.stations)`), and one that schedules a
  * candidate on several lines its allowables once (`allowables`, from `scheduleAllowables(input)`).
  */
-export function pitchSchedule(input: PitchScheduleInput, prepared?: PreparedLine, allowables?: JointAllowables): PitchScheduleResult {
+export function pitchSchedule(
+  input: PitchScheduleInput,
+  prepared?: PreparedLine,
+  allowables?: JointAllowables,
+): PitchScheduleResult {
   if (!prepared) {
     // the settings are refused before the stations, as they always were
     const diameterIn = layoutRules(findRivet(input.rivetSpec, input.rivetData)).diameterIn;
@@ -261,13 +280,20 @@ export interface ScheduledLine {
  * keeps the holes of one candidate only, and for the others needs their count (the zones' worst holes
  * and the margins are worked out here either way).
  */
-export function scheduleLine(input: Omit<PitchScheduleInput, 'stations'>, lineData: PreparedLine, allowables?: JointAllowables): ScheduledLine {
+export function scheduleLine(
+  input: Omit<PitchScheduleInput, 'stations'>,
+  lineData: PreparedLine,
+  allowables?: JointAllowables,
+): ScheduledLine {
   const rivet = findRivet(input.rivetSpec, input.rivetData);
   const layout = layoutRules(rivet);
   validateScheduleSettings(input, layout.diameterIn);
   requirePitchGrid(input, layout.diameterIn);
   const allow = allowables ?? scheduleAllowables(input);
-  const rules = [...scheduleRuleTexts(rivet.countersunk, input.maxPitchDiameters, input.pitchIncrementIn, input.maxZones), ...allow.rules];
+  const rules = [
+    ...scheduleRuleTexts(rivet.countersunk, input.maxPitchDiameters, input.pitchIncrementIn, input.maxZones),
+    ...allow.rules,
+  ];
   const warnings = [...allow.warnings];
   const reasons: string[] = [];
   const line = input.line;
@@ -315,18 +341,24 @@ export function scheduleLine(input: Omit<PitchScheduleInput, 'stations'>, lineDa
       `from station ${r.fromIn.toFixed(2)} to ${r.toIn.toFixed(2)} in the rivet would need a pitch of ${r.neededPitchIn.toFixed(3)} in, below the ${minPitch.toFixed(3)} in (3D) minimum: ${input.gaugeIn} in with ${rivet.code} is insufficient`,
     );
   }
-  if (ta.limitLb <= 0 || ta.ultimateLb <= 0) reasons.push(`the pull-through allowable of ${input.gaugeIn} in ${allow.material} with ${rivet.code} is zero by its coupons`);
+  if (ta.limitLb <= 0 || ta.ultimateLb <= 0)
+    reasons.push(
+      `the pull-through allowable of ${input.gaugeIn} in ${allow.material} with ${rivet.code} is zero by its coupons`,
+    );
 
   const coarse = coarsenRuns(runs);
   if (coarse.merged) {
-    warnings.push(`the needed pitch changes ${runs.length} times along ${line}: neighbouring stretches were merged, each keeping the tighter pitch, before zoning`);
+    warnings.push(
+      `the needed pitch changes ${runs.length} times along ${line}: neighbouring stretches were merged, each keeping the tighter pitch, before zoning`,
+    );
   }
   const zones = groupIntoZones(coarse.runs, input.maxZones);
 
   const start = along[0] + edge;
   const end = along[n - 1] - edge;
   const placed = placeHoles(zones, start, end, minPitch);
-  if (placed.positions.length === 0) reasons.push(`the line (${lengthIn.toFixed(3)} in) is shorter than twice the ${edge.toFixed(3)} in edge distance`);
+  if (placed.positions.length === 0)
+    reasons.push(`the line (${lengthIn.toFixed(3)} in) is shorter than twice the ${edge.toFixed(3)} in edge distance`);
   if (placed.note) warnings.push(placed.note);
 
   const holes = new HoleSet(placed.positions, zones, lineData, prefix, cap);
@@ -362,9 +394,10 @@ export function scheduleLine(input: Omit<PitchScheduleInput, 'stations'>, lineDa
 const ruleMemo: { countersunk: boolean; maxD: number; inc: number; zones: number; texts: string[] }[] = [];
 
 function scheduleRuleTexts(countersunk: boolean, maxD: number, inc: number, zones: number): string[] {
-  for (const m of ruleMemo) if (m.countersunk === countersunk && m.maxD === maxD && m.inc === inc && m.zones === zones) return m.texts;
+  for (const m of ruleMemo)
+    if (m.countersunk === countersunk && m.maxD === maxD && m.inc === inc && m.zones === zones) return m.texts;
   const texts = [
-    'per-rivet load = largest pull per inch over the rivet\'s share of the line × its share (half the gap to each neighbour; an end rivet\'s share runs on to the line\'s end)',
+    "per-rivet load = largest pull per inch over the rivet's share of the line × its share (half the gap to each neighbour; an end rivet's share runs on to the line's end)",
     'required pitch: limit load ≤ limit allowable and 1.5 × limit load ≤ ultimate allowable (14 CFR 23.303, 23.305)',
     `${layoutRuleText(countersunk)}; pitch ≤ ${maxD}D; rounded down to ${inc} in (the 3D minimum itself is allowed)`,
     `at most ${zones} zones; each zone's pitch is the smallest any of its stations needs; a zone is added only if it saves a rivet`,
@@ -454,7 +487,12 @@ interface EndClamps {
  * need. This is the hot loop of a study (every station of every line for every candidate): one pass,
  * typed arrays, and no object per station.
  */
-function stationNeeds(lineData: PreparedLine, grid: number[], c: Capacity, ends: EndClamps): { runs: Zone[]; insufficient: InsufficientRange[] } {
+function stationNeeds(
+  lineData: PreparedLine,
+  grid: number[],
+  c: Capacity,
+  ends: EndClamps,
+): { runs: Zone[]; insufficient: InsufficientRange[] } {
   const { along } = lineData;
   const stationIn = lineData.station.values;
   const n = along.length;
@@ -580,7 +618,13 @@ function shortPitchAt(w: Windows, c: Capacity, i: number, g: number): number {
 }
 
 /** The longest pitch on the grid at which an end rivet carries its share: the edge distance and half a gap. */
-function endNeed(end: 'first' | 'last', lineData: PreparedLine, grid: number[], edge: number, c: Capacity): { end: 'first' | 'last'; pitch: number; passes: boolean } {
+function endNeed(
+  end: 'first' | 'last',
+  lineData: PreparedLine,
+  grid: number[],
+  edge: number,
+  c: Capacity,
+): { end: 'first' | 'last'; pitch: number; passes: boolean } {
   let lo = 0;
   let hi = grid.length - 1;
   while (lo < hi) {
@@ -726,7 +770,15 @@ export class HoleSet {
       let worst = this.zoneWorst[z];
       if (worst === null || lowest < lowerMargin(worst.msLimit, worst.msUltimate)) {
         // one record a zone, written over by each new worst
-        worst ??= this.zoneWorst[z] = { index: 0, position: NaN, after: 0, tension: NaN, shear: NaN, msLimit: NaN, msUltimate: NaN };
+        worst ??= this.zoneWorst[z] = {
+          index: 0,
+          position: NaN,
+          after: 0,
+          tension: NaN,
+          shear: NaN,
+          msLimit: NaN,
+          msUltimate: NaN,
+        };
         worst.index = k;
         worst.position = positions[k];
         worst.after = walk.after;
@@ -779,13 +831,63 @@ export class HoleSet {
       if (line === null) {
         holes[k] =
           x && y
-            ? { id, stationIn, alongIn, xIn: round(x.atIndex(p, after)), yIn: round(y.atIndex(p, after)), zone, tributaryIn, appliedLimitLb, appliedUltimateLb, appliedLimitShearLb, msLimit, msUltimate }
-            : { id, stationIn, alongIn, zone, tributaryIn, appliedLimitLb, appliedUltimateLb, appliedLimitShearLb, msLimit, msUltimate };
+            ? {
+                id,
+                stationIn,
+                alongIn,
+                xIn: round(x.atIndex(p, after)),
+                yIn: round(y.atIndex(p, after)),
+                zone,
+                tributaryIn,
+                appliedLimitLb,
+                appliedUltimateLb,
+                appliedLimitShearLb,
+                msLimit,
+                msUltimate,
+              }
+            : {
+                id,
+                stationIn,
+                alongIn,
+                zone,
+                tributaryIn,
+                appliedLimitLb,
+                appliedUltimateLb,
+                appliedLimitShearLb,
+                msLimit,
+                msUltimate,
+              };
       } else {
         holes[k] =
           x && y
-            ? { id, line, stationIn, alongIn, xIn: round(x.atIndex(p, after)), yIn: round(y.atIndex(p, after)), zone, tributaryIn, appliedLimitLb, appliedUltimateLb, appliedLimitShearLb, msLimit, msUltimate }
-            : { id, line, stationIn, alongIn, zone, tributaryIn, appliedLimitLb, appliedUltimateLb, appliedLimitShearLb, msLimit, msUltimate };
+            ? {
+                id,
+                line,
+                stationIn,
+                alongIn,
+                xIn: round(x.atIndex(p, after)),
+                yIn: round(y.atIndex(p, after)),
+                zone,
+                tributaryIn,
+                appliedLimitLb,
+                appliedUltimateLb,
+                appliedLimitShearLb,
+                msLimit,
+                msUltimate,
+              }
+            : {
+                id,
+                line,
+                stationIn,
+                alongIn,
+                zone,
+                tributaryIn,
+                appliedLimitLb,
+                appliedUltimateLb,
+                appliedLimitShearLb,
+                msLimit,
+                msUltimate,
+              };
       }
     }
     return holes;

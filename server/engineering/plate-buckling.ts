@@ -35,11 +35,19 @@ export const PLATE_BUCKLING_COEFFICIENTS = {
   shear: { 'simply-supported': 5.35, clamped: 8.98 },
 } as const;
 
-export const PLATE_BUCKLING_RULE = 'panel buckling F_cr = k·π²E/(12(1 − ν²))·(t/b)², long plate: k = 4.0 compression (simply supported), k_s = 5.35 simply supported / 8.98 clamped in shear (Timoshenko & Gere)';
-export const JOHNSON_RULE = "plasticity: Johnson's parabola above half the yield, F = F_y(1 − F_y/(4F_elastic)), F_y = F_cy in compression, F_cy/√3 in shear";
+export const PLATE_BUCKLING_RULE =
+  'panel buckling F_cr = k·π²E/(12(1 − ν²))·(t/b)², long plate: k = 4.0 compression (simply supported), k_s = 5.35 simply supported / 8.98 clamped in shear (Timoshenko & Gere)';
+export const JOHNSON_RULE =
+  "plasticity: Johnson's parabola above half the yield, F = F_y(1 − F_y/(4F_elastic)), F_y = F_cy in compression, F_cy/√3 in shear";
 
 /** The elastic buckling stress, psi: k·π²E/(12(1 − ν²))·(t/b)². */
-export function plateBucklingStressPsi(p: { bucklingCoefficient: number; elasticModulusPsi: number; poissonRatio: number; thicknessIn: number; widthIn: number }): number {
+export function plateBucklingStressPsi(p: {
+  bucklingCoefficient: number;
+  elasticModulusPsi: number;
+  poissonRatio: number;
+  thicknessIn: number;
+  widthIn: number;
+}): number {
   const k = requireWingBound(p.bucklingCoefficient, 'panel.bucklingCoefficient');
   const e = requireWingBound(p.elasticModulusPsi, 'panel.elasticModulusPsi');
   const nu = requireWingBound(p.poissonRatio, 'panel.poissonRatio');
@@ -96,13 +104,17 @@ export interface PanelBucklingResult extends EngineeringResult<PanelBucklingInpu
 }
 
 export function panelBuckling(input: PanelBucklingInput): PanelBucklingResult {
-  if (input === null || typeof input !== 'object') throw new EngineeringInputError('panel', 'the panel data are missing');
+  if (input === null || typeof input !== 'object')
+    throw new EngineeringInputError('panel', 'the panel data are missing');
   const loading = requireOneOf(input.loading, 'panel.loading', PANEL_LOADINGS);
   const edges = requireOneOf(input.edges, 'panel.edges', PANEL_EDGES);
   const table = PLATE_BUCKLING_COEFFICIENTS[loading] as Partial<Record<PanelEdges, number>>;
   const k = input.bucklingCoefficient ?? table[edges];
   if (k === undefined) {
-    throw new EngineeringInputError('panel.bucklingCoefficient', `no long-plate coefficient is held for ${edges} edges in ${loading}: give the buckling coefficient k`);
+    throw new EngineeringInputError(
+      'panel.bucklingCoefficient',
+      `no long-plate coefficient is held for ${edges} edges in ${loading}: give the buckling coefficient k`,
+    );
   }
   const fcy = requireWingBound(input.compressiveYieldPsi, 'panel.compressiveYieldPsi');
   const applied = requireWingBound(input.appliedStressPsi, 'panel.appliedStressPsi');
@@ -114,8 +126,14 @@ export function panelBuckling(input: PanelBucklingInput): PanelBucklingResult {
   const rules = [PLATE_BUCKLING_RULE, JOHNSON_RULE, 'margin of safety MS = F_cr / f − 1 at the applied stress'];
   const warnings: string[] = [];
   if (input.bucklingCoefficient !== undefined) rules.push(`buckling coefficient k = ${k} as given`);
-  if (input.widthIn / input.thicknessIn < 20) warnings.push(`a panel only ${(input.widthIn / input.thicknessIn).toFixed(1)} thicknesses wide is outside thin-plate theory: its buckling stress is approximate`);
-  if (plasticityReduced) warnings.push(`the elastic buckling stress ${elasticCriticalPsi.toFixed(0)} psi is past half the yield: reduced to ${criticalPsi.toFixed(0)} psi (Johnson)`);
+  if (input.widthIn / input.thicknessIn < 20)
+    warnings.push(
+      `a panel only ${(input.widthIn / input.thicknessIn).toFixed(1)} thicknesses wide is outside thin-plate theory: its buckling stress is approximate`,
+    );
+  if (plasticityReduced)
+    warnings.push(
+      `the elastic buckling stress ${elasticCriticalPsi.toFixed(0)} psi is past half the yield: reduced to ${criticalPsi.toFixed(0)} psi (Johnson)`,
+    );
   let note: string;
   if (loading === 'shear') {
     note = buckles
@@ -124,7 +142,10 @@ export function panelBuckling(input: PanelBucklingInput): PanelBucklingResult {
     if (buckles) warnings.push(note);
   } else {
     note = 'compression: no diagonal tension';
-    if (buckles) warnings.push(`the panel buckles at ${criticalPsi.toFixed(0)} psi, below the applied ${applied.toFixed(0)} psi compression; post-buckled strength (effective width) is not credited here`);
+    if (buckles)
+      warnings.push(
+        `the panel buckles at ${criticalPsi.toFixed(0)} psi, below the applied ${applied.toFixed(0)} psi compression; post-buckled strength (effective width) is not credited here`,
+      );
   }
   return {
     ...envelope(input, rules, warnings),
@@ -141,10 +162,21 @@ export function panelBuckling(input: PanelBucklingInput): PanelBucklingResult {
 }
 
 /** E (compression), ν and F_cy of a catalogue (or supplier's) sheet material, refused if it lacks them. */
-export function sheetBucklingProperties(material: string, materialData?: SheetMaterial[]): { elasticModulusPsi: number; poissonRatio: number; compressiveYieldPsi: number; source: string } {
+export function sheetBucklingProperties(
+  material: string,
+  materialData?: SheetMaterial[],
+): { elasticModulusPsi: number; poissonRatio: number; compressiveYieldPsi: number; source: string } {
   const m = findMaterial(material, materialData);
   if (m.compressiveModulusPsi === undefined || m.poissonRatio === undefined || m.fcyPsi === undefined) {
-    throw new EngineeringInputError('material', `${m.key} has no compressive modulus, Poisson's ratio and compressive yield: give them in the material data`);
+    throw new EngineeringInputError(
+      'material',
+      `${m.key} has no compressive modulus, Poisson's ratio and compressive yield: give them in the material data`,
+    );
   }
-  return { elasticModulusPsi: m.compressiveModulusPsi, poissonRatio: m.poissonRatio, compressiveYieldPsi: m.fcyPsi, source: m.source };
+  return {
+    elasticModulusPsi: m.compressiveModulusPsi,
+    poissonRatio: m.poissonRatio,
+    compressiveYieldPsi: m.fcyPsi,
+    source: m.source,
+  };
 }

@@ -236,8 +236,10 @@ function countersinkCheck(proposed: RivetSpec, gaugeIn: number): CountersinkChec
 function countersinkFailure(check: CountersinkCheck | null, proposed: RivetSpec, gaugeIn: number): string | null {
   if (!check || check.pass) return null;
   if (check.headHeightIn === null) {
-    return `the head height of ${proposed.code} is not known here, so the countersink depth cannot be checked: ` +
-      `dimple, or check it against the supplier's head dimensions`;
+    return (
+      `the head height of ${proposed.code} is not known here, so the countersink depth cannot be checked: ` +
+      `dimple, or check it against the supplier's head dimensions`
+    );
   }
   return (
     'countersink would knife-edge the sheet: dimple instead ' +

@@ -3,7 +3,7 @@
  * numbers it came from, the rules it applied, what to be wary of, and the product's safety caution.
  */
 export const ENGINEERING_CAUTION =
-  'An aid only: the kit supplier\'s approved data and the applicable airworthiness rules and local ' +
+  "An aid only: the kit supplier's approved data and the applicable airworthiness rules and local " +
   'authority govern. Margins come from the inputs given and are only as good as they are. Nothing ' +
   'here is certification or approval of a design or repair.';
 

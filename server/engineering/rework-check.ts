@@ -73,22 +73,35 @@ export function reworkCheck(input: ReworkInput): ReworkResult {
   const current = findRivet(input.rivetSpec, input.rivetData, 'rivetSpec');
   const proposed = findRivet(input.proposedSpec, input.rivetData, 'proposedSpec');
   if (proposed.nominalDiameterIn <= current.nominalDiameterIn) {
-    throw new EngineeringInputError('proposedSpec', `${proposed.code} is not larger than the ${current.code} it would replace`);
+    throw new EngineeringInputError(
+      'proposedSpec',
+      `${proposed.code} is not larger than the ${current.code} it would replace`,
+    );
   }
   const hole = requireFinite(input.holeStationIn, 'holeStationIn');
   const edge = requirePositive(input.edgeDistanceIn, 'edgeDistanceIn', 'the edge distance');
   requirePositive(input.gaugeIn, 'gaugeIn', 'the gauge');
   if (!Array.isArray(input.neighbourStationsIn) || input.neighbourStationsIn.length !== 2) {
-    throw new EngineeringInputError('neighbourStationsIn', 'give the previous and the next hole station (null where there is none)');
+    throw new EngineeringInputError(
+      'neighbourStationsIn',
+      'give the previous and the next hole station (null where there is none)',
+    );
   }
   const neighbours = input.neighbourStationsIn.map((s, i) => {
     if (s === null) return null;
     const v = requireFinite(s, `neighbourStationsIn[${i}]`);
-    if (v === hole) throw new EngineeringInputError(`neighbourStationsIn[${i}]`, 'a neighbour cannot sit at the hole itself');
+    if (v === hole)
+      throw new EngineeringInputError(`neighbourStationsIn[${i}]`, 'a neighbour cannot sit at the hole itself');
     return v;
   }) as [number | null, number | null];
-  const tension = input.appliedLimitTensionLb === undefined ? undefined : requireNonNegative(input.appliedLimitTensionLb, 'appliedLimitTensionLb', 'the load');
-  const shear = input.appliedLimitShearLb === undefined ? undefined : requireNonNegative(input.appliedLimitShearLb, 'appliedLimitShearLb', 'the load');
+  const tension =
+    input.appliedLimitTensionLb === undefined
+      ? undefined
+      : requireNonNegative(input.appliedLimitTensionLb, 'appliedLimitTensionLb', 'the load');
+  const shear =
+    input.appliedLimitShearLb === undefined
+      ? undefined
+      : requireNonNegative(input.appliedLimitShearLb, 'appliedLimitShearLb', 'the load');
 
   const layout = layoutRules(proposed);
   const d = layout.diameterIn;
@@ -103,15 +116,20 @@ export function reworkCheck(input: ReworkInput): ReworkResult {
   if (next && next.code !== proposed.code && next.nominalDiameterIn < proposed.nominalDiameterIn) {
     warnings.push(`${proposed.code} skips a size: the next size up from ${current.code} is ${next.code}`);
   }
-  if (proposed.family !== current.family) warnings.push(`${proposed.code} is of another rivet family than ${current.code}`);
+  if (proposed.family !== current.family)
+    warnings.push(`${proposed.code} is of another rivet family than ${current.code}`);
 
   if (edge < layout.minEdgeIn - LAYOUT_TOLERANCE_IN) {
-    reasons.push(`edge distance ${edge.toFixed(4)} in is less than ${proposed.countersunk ? '2.5' : '2'}D = ${layout.minEdgeIn.toFixed(4)} in for ${proposed.code}`);
+    reasons.push(
+      `edge distance ${edge.toFixed(4)} in is less than ${proposed.countersunk ? '2.5' : '2'}D = ${layout.minEdgeIn.toFixed(4)} in for ${proposed.code}`,
+    );
   }
   const pitches = neighbours.map((n) => (n === null ? null : Math.abs(hole - n))) as [number | null, number | null];
   pitches.forEach((p, i) => {
     if (p !== null && p < layout.minPitchIn - LAYOUT_TOLERANCE_IN) {
-      reasons.push(`pitch to the ${i === 0 ? 'previous' : 'next'} hole ${p.toFixed(4)} in is less than 3D = ${layout.minPitchIn.toFixed(4)} in for ${proposed.code}`);
+      reasons.push(
+        `pitch to the ${i === 0 ? 'previous' : 'next'} hole ${p.toFixed(4)} in is less than 3D = ${layout.minPitchIn.toFixed(4)} in for ${proposed.code}`,
+      );
     }
   });
 
@@ -134,11 +152,19 @@ export function reworkCheck(input: ReworkInput): ReworkResult {
     tensionLimit: marginOfSafety(allow.tension.limitLb, t),
     tensionUltimate: marginOfSafety(allow.tension.ultimateLb, ULTIMATE_FACTOR * t),
     combinedLimit: combinedMargin(t, v, allow.tension.limitLb, allow.shear.limitLb),
-    combinedUltimate: combinedMargin(ULTIMATE_FACTOR * t, ULTIMATE_FACTOR * v, allow.tension.ultimateLb, allow.shear.ultimateLb),
+    combinedUltimate: combinedMargin(
+      ULTIMATE_FACTOR * t,
+      ULTIMATE_FACTOR * v,
+      allow.tension.ultimateLb,
+      allow.shear.ultimateLb,
+    ),
   };
-  if (tension === undefined && shear === undefined) warnings.push('no applied loads given: strength margins are not checked, only the layout');
-  if (margins.combinedLimit !== null && margins.combinedLimit < 0) reasons.push(`margin of safety at limit load is ${margins.combinedLimit.toFixed(2)} with ${proposed.code}`);
-  if (margins.combinedUltimate !== null && margins.combinedUltimate < 0) reasons.push(`margin of safety at ultimate load is ${margins.combinedUltimate.toFixed(2)} with ${proposed.code}`);
+  if (tension === undefined && shear === undefined)
+    warnings.push('no applied loads given: strength margins are not checked, only the layout');
+  if (margins.combinedLimit !== null && margins.combinedLimit < 0)
+    reasons.push(`margin of safety at limit load is ${margins.combinedLimit.toFixed(2)} with ${proposed.code}`);
+  if (margins.combinedUltimate !== null && margins.combinedUltimate < 0)
+    reasons.push(`margin of safety at ultimate load is ${margins.combinedUltimate.toFixed(2)} with ${proposed.code}`);
 
   const pass = reasons.length === 0;
   const ruinedEdge = edge < SCRAP_EDGE_DIAMETERS * d;

@@ -58,14 +58,20 @@ function segmentAt(cumulative: number[], s: number, from = 1): number {
 }
 
 export function validateLine(line: FastenerLineInput, field: string): void {
-  if (line === null || typeof line !== 'object') throw new EngineeringInputError(field, 'each fastener line must be an object');
-  if (typeof line.name !== 'string' || !line.name.trim()) throw new EngineeringInputError(`${field}.name`, 'the line needs a name');
-  if (line.surface !== 'upper' && line.surface !== 'lower') throw new EngineeringInputError(`${field}.surface`, 'must be "upper" or "lower"');
+  if (line === null || typeof line !== 'object')
+    throw new EngineeringInputError(field, 'each fastener line must be an object');
+  if (typeof line.name !== 'string' || !line.name.trim())
+    throw new EngineeringInputError(`${field}.name`, 'the line needs a name');
+  if (line.surface !== 'upper' && line.surface !== 'lower')
+    throw new EngineeringInputError(`${field}.surface`, 'must be "upper" or "lower"');
   if (!(typeof line.startXc === 'number' && line.startXc >= 0 && line.startXc < 1)) {
     throw new EngineeringInputError(`${field}.startXc`, 'the start must be a fraction of the chord from 0 to below 1');
   }
   if (!(typeof line.endXc === 'number' && line.endXc > line.startXc && line.endXc <= 1)) {
-    throw new EngineeringInputError(`${field}.endXc`, 'the end must be a fraction of the chord after the start and at most 1');
+    throw new EngineeringInputError(
+      `${field}.endXc`,
+      'the end must be a fraction of the chord after the start and at most 1',
+    );
   }
 }
 
@@ -74,27 +80,50 @@ function lineArc(geometry: AirfoilGeometry, line: FastenerLineInput, chordIn: nu
   const surface = surfacePoints(geometry, line.surface).map(([x, y]): Point => [x * chordIn, y * chordIn]);
   const cumulative = [0];
   for (let i = 1; i < surface.length; i++) {
-    cumulative.push(cumulative[i - 1] + Math.hypot(surface[i][0] - surface[i - 1][0], surface[i][1] - surface[i - 1][1]));
+    cumulative.push(
+      cumulative[i - 1] + Math.hypot(surface[i][0] - surface[i - 1][0], surface[i][1] - surface[i - 1][1]),
+    );
   }
-  return { surface, cumulative, s0: arcAt(surface, cumulative, line.startXc * chordIn), s1: arcAt(surface, cumulative, line.endXc * chordIn) };
+  return {
+    surface,
+    cumulative,
+    s0: arcAt(surface, cumulative, line.startXc * chordIn),
+    s1: arcAt(surface, cumulative, line.endXc * chordIn),
+  };
 }
 
 /** How many stations `lineStations` makes: known before any is made, for the study's work budget. */
-export function lineStationCount(geometry: AirfoilGeometry, line: FastenerLineInput, chordIn: number, stepIn: number): { count: number; lengthIn: number } {
+export function lineStationCount(
+  geometry: AirfoilGeometry,
+  line: FastenerLineInput,
+  chordIn: number,
+  stepIn: number,
+): { count: number; lengthIn: number } {
   const { s0, s1 } = lineArc(geometry, line, chordIn);
   return { count: Math.max(2, Math.ceil((s1 - s0) / stepIn) + 1), lengthIn: s1 - s0 };
 }
 
 /** Stations along a line at most `stepIn` apart (along the surface), at the rib's chord. */
-export function lineStations(geometry: AirfoilGeometry, line: FastenerLineInput, chordIn: number, stepIn: number): LineStation[] {
+export function lineStations(
+  geometry: AirfoilGeometry,
+  line: FastenerLineInput,
+  chordIn: number,
+  stepIn: number,
+): LineStation[] {
   const c = lineStationColumns(geometry, line, chordIn, stepIn);
   const stations: LineStation[] = new Array(c.x.length);
-  for (let k = 0; k < stations.length; k++) stations[k] = { xc: c.xc[k], stationIn: c.x[k], alongIn: c.along[k], xIn: c.x[k], yIn: c.y[k] };
+  for (let k = 0; k < stations.length; k++)
+    stations[k] = { xc: c.xc[k], stationIn: c.x[k], alongIn: c.along[k], xIn: c.x[k], yIn: c.y[k] };
   return stations;
 }
 
 /** `lineStations` as columns, one entry per station (x is also the station): what a study's loads are made from. */
-export function lineStationColumns(geometry: AirfoilGeometry, line: FastenerLineInput, chordIn: number, stepIn: number): { xc: number[]; x: number[]; y: number[]; along: number[] } {
+export function lineStationColumns(
+  geometry: AirfoilGeometry,
+  line: FastenerLineInput,
+  chordIn: number,
+  stepIn: number,
+): { xc: number[]; x: number[]; y: number[]; along: number[] } {
   const { surface, cumulative, s0, s1 } = lineArc(geometry, line, chordIn);
   const count = Math.max(2, Math.ceil((s1 - s0) / stepIn) + 1);
   // (packed arrays: see arrays.ts)

@@ -2,12 +2,37 @@ import { packed } from './arrays';
 import { buildAirfoil, type AirfoilGeometry, type AirfoilInput, type Point } from './airfoil';
 import { validateCoupons } from './coupons';
 import { cpFromTables, validateCpTables, type CpTableInput } from './cp-table';
-import { designConditions, type DesignCondition, type DesignConditionsResult, type KitInput } from './design-conditions';
+import {
+  designConditions,
+  type DesignCondition,
+  type DesignConditionsResult,
+  type KitInput,
+} from './design-conditions';
 import { EngineeringInputError } from './errors';
 import { layoutRules, rivetWeightLb } from './layout';
 import { findMaterial, findRivet, type RivetSpec } from './materials';
-import { alphaForLiftCoefficient, pressureDistribution, solvePanelMethod, type CpSample, type PanelSolution } from './panel-method';
-import { holePrefixFor, prepareColumns, scheduleAllowables, scheduleLine, requirePitchGrid, validateScheduleSettings, type CandidateSettings, type InsufficientRange, type PitchScheduleResult, type PreparedLine, type ScheduledLine, type ScheduleHole, type ScheduleZone } from './pitch-schedule';
+import {
+  alphaForLiftCoefficient,
+  pressureDistribution,
+  solvePanelMethod,
+  type CpSample,
+  type PanelSolution,
+} from './panel-method';
+import {
+  holePrefixFor,
+  prepareColumns,
+  scheduleAllowables,
+  scheduleLine,
+  requirePitchGrid,
+  validateScheduleSettings,
+  type CandidateSettings,
+  type InsufficientRange,
+  type PitchScheduleResult,
+  type PreparedLine,
+  type ScheduledLine,
+  type ScheduleHole,
+  type ScheduleZone,
+} from './pitch-schedule';
 import { compactNumbers, ENGINEERING_CAUTION, type EngineeringResult } from './result';
 import { lineStationColumns, outlineAreaSqIn, ribOutline, validateLine, type FastenerLineInput } from './rib-geometry';
 import { envelopeColumns, shearFlowLbPerIn, ULTIMATE_FACTOR } from './rivet-loads';
@@ -17,7 +42,14 @@ import { roundStored } from './rounding';
 import { requireCount, requireStudyBound, STUDY_BOUNDS, WING_BOUNDS } from './bounds';
 import { estimateStudyWork, requireStudyBudget, type StudyWork } from './study-work';
 import { requireArray, requireOneOf, requirePositive } from './validate';
-import { COMPRESSIBILITY_RULE_TEXT, COMPRESSIBILITY_RULES, correctCpDistribution, correctFlowPressures, machNumber, type CompressibilityRule } from './compressibility';
+import {
+  COMPRESSIBILITY_RULE_TEXT,
+  COMPRESSIBILITY_RULES,
+  correctCpDistribution,
+  correctFlowPressures,
+  machNumber,
+  type CompressibilityRule,
+} from './compressibility';
 import { envelopeConditions } from './envelope-corners';
 import type { FlapInput } from './flap-conditions';
 
@@ -99,7 +131,9 @@ export interface LineLoads {
 }
 
 /** A line's schedule as stored: its warnings are the candidate's, its holes' line is the line's (each said once). */
-export type LineSchedule = Omit<PitchScheduleResult, 'inputs' | 'rules' | 'caution' | 'warnings' | 'holes'> & { holes: Omit<ScheduleHole, 'line'>[] };
+export type LineSchedule = Omit<PitchScheduleResult, 'inputs' | 'rules' | 'caution' | 'warnings' | 'holes'> & {
+  holes: Omit<ScheduleHole, 'line'>[];
+};
 
 export interface StudyCandidate {
   /** the holes of each line are kept for the recommended candidate only; others are recomputed on demand */
@@ -140,7 +174,8 @@ const HIGH_ALPHA_DEG = 10;
 
 /** Ranges and counts of everything the study takes; returns the rivet specs of the candidates. */
 export function validateStudy(input: RibStudyInput): RivetSpec[] {
-  if (input === null || typeof input !== 'object') throw new EngineeringInputError('input', 'the study input is missing');
+  if (input === null || typeof input !== 'object')
+    throw new EngineeringInputError('input', 'the study input is missing');
   const rib = input.rib;
   if (rib === null || typeof rib !== 'object') throw new EngineeringInputError('rib', 'the rib data are missing');
   requirePositive(rib.chordIn, 'rib.chordIn', 'the rib chord');
@@ -155,7 +190,8 @@ export function validateStudy(input: RibStudyInput): RivetSpec[] {
   lines.forEach((l, i) => validateLine(l, `lines[${i}]`));
   const names = lines.map((l) => l.name.trim().toLowerCase());
   names.forEach((n, i) => {
-    if (names.indexOf(n) !== i) throw new EngineeringInputError(`lines[${i}].name`, `two lines are called "${lines[i].name}"`);
+    if (names.indexOf(n) !== i)
+      throw new EngineeringInputError(`lines[${i}].name`, `two lines are called "${lines[i].name}"`);
   });
   findMaterial(input.material, input.materialData, 'material');
   const gauges = requireArray<number>(input.gaugeCandidates, 'gaugeCandidates', 1, 'list of gauges');
@@ -239,7 +275,11 @@ function storedZone(z: ScheduleZone): ScheduleZone {
   };
 }
 
-const storedRange = (r: InsufficientRange): InsufficientRange => ({ fromIn: d4(r.fromIn), toIn: d4(r.toIn), neededPitchIn: d4(r.neededPitchIn) });
+const storedRange = (r: InsufficientRange): InsufficientRange => ({
+  fromIn: d4(r.fromIn),
+  toIn: d4(r.toIn),
+  neededPitchIn: d4(r.neededPitchIn),
+});
 
 /**
  * A line's schedule as stored: without what the study already carries once (its inputs, rules, caution
@@ -256,7 +296,12 @@ function storedLine(s: ScheduledLine, withHoles: boolean): LineSchedule {
     feasible: b.feasible,
     reasons: b.reasons,
     lengthIn: d4(b.lengthIn),
-    layout: { edgeDistanceIn: d4(b.layout.edgeDistanceIn), minPitchIn: d4(b.layout.minPitchIn), maxPitchIn: d4(b.layout.maxPitchIn), pitchIncrementIn: d4(b.layout.pitchIncrementIn) },
+    layout: {
+      edgeDistanceIn: d4(b.layout.edgeDistanceIn),
+      minPitchIn: d4(b.layout.minPitchIn),
+      maxPitchIn: d4(b.layout.maxPitchIn),
+      pitchIncrementIn: d4(b.layout.pitchIncrementIn),
+    },
     allowables: {
       tensionLimitLb: d4(a.tensionLimitLb),
       tensionUltimateLb: d4(a.tensionUltimateLb),
@@ -329,12 +374,22 @@ export function sectionContext(
     ...env.rules,
     ...geometry.rules,
     'pressure: 2-D inviscid linear-vortex panel method (stream-function form) with the Kutta condition; the angle of each condition from its section CL',
-    pressureRule === 'none' ? 'compressibility: none (incompressible pressures, as asked)' : COMPRESSIBILITY_RULE_TEXT[pressureRule],
+    pressureRule === 'none'
+      ? 'compressibility: none (incompressible pressures, as asked)'
+      : COMPRESSIBILITY_RULE_TEXT[pressureRule],
   ];
-  if (input.cpTables) rules.push('Cp tables: interpolated in CL between tables of the same sign, scaled by CL/CL_table outside them');
+  if (input.cpTables)
+    rules.push('Cp tables: interpolated in CL between tables of the same sign, scaled by CL/CL_table outside them');
   return {
-    design, conditions: env.conditions, geometry, flow, tables: input.cpTables ? validateCpTables(input.cpTables) : null,
-    pressureRule, altitudeFt: input.kit.altitudeFt ?? 0, rules, warnings: [...env.warnings, ...geometry.warnings],
+    design,
+    conditions: env.conditions,
+    geometry,
+    flow,
+    tables: input.cpTables ? validateCpTables(input.cpTables) : null,
+    pressureRule,
+    altitudeFt: input.kit.altitudeFt ?? 0,
+    rules,
+    warnings: [...env.warnings, ...geometry.warnings],
   };
 }
 
@@ -343,23 +398,33 @@ export function sectionContext(
  * the tail for a rib of a wing, 1 for a lone rib): from the Cp tables where they cover it, else from the
  * panel method; then corrected to the condition's Mach number.
  */
-export function conditionPressures(ctx: SectionContext, sectionRatio: (c: DesignCondition) => number, warnings: string[]): StudyCondition[] {
+export function conditionPressures(
+  ctx: SectionContext,
+  sectionRatio: (c: DesignCondition) => number,
+  warnings: string[],
+): StudyCondition[] {
   const { flow, tables } = ctx;
   return ctx.conditions.map((c) => {
     const sectionCl = c.clNeeded * sectionRatio(c);
     const alphaRad = alphaForLiftCoefficient(flow, sectionCl);
     const alphaDeg = radToDeg(alphaRad);
     const fromTable = tables ? cpFromTables(tables, sectionCl) : null;
-    if (tables && !fromTable) warnings.push(`${c.label}: no Cp table for a lift coefficient of this sign; panel-method pressures used`);
+    if (tables && !fromTable)
+      warnings.push(`${c.label}: no Cp table for a lift coefficient of this sign; panel-method pressures used`);
     if (fromTable?.warning) warnings.push(`${c.label}: ${fromTable.warning}`);
     if (!fromTable && (c.id === 'maneuver-up-va' || Math.abs(alphaDeg) > HIGH_ALPHA_DEG)) {
-      warnings.push(`${c.label} (CL ${sectionCl.toFixed(2)}, α ${alphaDeg.toFixed(1)}°): inviscid suction peak near stall is conservative`);
+      warnings.push(
+        `${c.label} (CL ${sectionCl.toFixed(2)}, α ${alphaDeg.toFixed(1)}°): inviscid suction peak near stall is conservative`,
+      );
     }
     const mach = machNumber(c.speedKeas, ctx.altitudeFt);
     let cp: { upper: CpSample[]; lower: CpSample[] };
     if (ctx.pressureRule !== 'none') {
       if (mach >= WING_BOUNDS.mach.max) {
-        throw new EngineeringInputError('kit.diveSpeedKeas', `${c.label} is at Mach ${mach.toFixed(2)}: this tool stops below Mach ${WING_BOUNDS.mach.max}, where neither compressibility rule holds`);
+        throw new EngineeringInputError(
+          'kit.diveSpeedKeas',
+          `${c.label} is at Mach ${mach.toFixed(2)}: this tool stops below Mach ${WING_BOUNDS.mach.max}, where neither compressibility rule holds`,
+        );
       }
       // From the flow's surface speeds straight to the corrected pressures where that is sound (see
       // correctFlowPressures), else by way of the incompressible samples.
@@ -390,7 +455,12 @@ export function conditionPressures(ctx: SectionContext, sectionRatio: (c: Design
 }
 
 /** Stations along each fastener line with the largest pull of any condition, and the torque shear. */
-function lineLoads(input: RibStudyInput, geometry: AirfoilGeometry, conditions: StudyCondition[], shearFlow: number): PreparedStudyLine[] {
+function lineLoads(
+  input: RibStudyInput,
+  geometry: AirfoilGeometry,
+  conditions: StudyCondition[],
+  shearFlow: number,
+): PreparedStudyLine[] {
   const { rib } = input;
   const internalCp = rib.internalCp ?? 0;
   const prefixes = input.lines.map((l) => holePrefixFor(l.name));
@@ -401,15 +471,35 @@ function lineLoads(input: RibStudyInput, geometry: AirfoilGeometry, conditions: 
     const n = st.along.length;
     const env = envelopeColumns(
       st.xc,
-      conditions.map((c) => ({ id: c.id, qPsi: c.qPsi, cpSamples: line.surface === 'upper' ? c.cp.upper : c.cp.lower })),
+      conditions.map((c) => ({
+        id: c.id,
+        qPsi: c.qPsi,
+        cpSamples: line.surface === 'upper' ? c.cp.upper : c.cp.lower,
+      })),
       internalCp,
       rib.spacingIn,
     );
-    const prepared = prepareColumns({ along: st.along, tension: env.limitLbPerIn, shear: packed(n, shearFlow), station: st.x, x: st.x, y: st.y });
+    const prepared = prepareColumns({
+      along: st.along,
+      tension: env.limitLbPerIn,
+      shear: packed(n, shearFlow),
+      station: st.x,
+      x: st.x,
+      y: st.y,
+    });
     const envelopePoints: EnvelopePoint[] = [];
     for (const k of thinIndices(n, ENVELOPE_POINTS)) {
       const w = env.limitLbPerIn[k];
-      envelopePoints.push({ xc: st.xc[k], stationIn: st.x[k], alongIn: st.along[k], xIn: st.x[k], yIn: st.y[k], limitLbPerIn: w, ultimateLbPerIn: ULTIMATE_FACTOR * w, governing: env.governingAt(k) });
+      envelopePoints.push({
+        xc: st.xc[k],
+        stationIn: st.x[k],
+        alongIn: st.along[k],
+        xIn: st.x[k],
+        yIn: st.y[k],
+        limitLbPerIn: w,
+        ultimateLbPerIn: ULTIMATE_FACTOR * w,
+        governing: env.governingAt(k),
+      });
     }
     const summary: LineLoads = {
       name: line.name,
@@ -462,13 +552,23 @@ function storedCandidate(b: BuiltCandidate, withHoles: boolean): StudyCandidate 
 }
 
 /** One gauge × rivet candidate: a schedule for every line, and whether the flange fits the rivet. */
-function candidate(input: RibStudyInput, lines: PreparedStudyLine[], gaugeIn: number, rivet: RivetSpec): BuiltCandidate {
+function candidate(
+  input: RibStudyInput,
+  lines: PreparedStudyLine[],
+  gaugeIn: number,
+  rivet: RivetSpec,
+): BuiltCandidate {
   const { rib } = input;
   const layout = layoutRules(rivet);
   // One joint, one set of allowables: worked out once for every line of the candidate.
   const allowables = scheduleAllowables({
-    material: input.material, gaugeIn, rivetSpec: rivet.code, coupons: input.coupons,
-    pullThroughFallbackFraction: input.pullThroughFallbackFraction, materialData: input.materialData, rivetData: input.rivetData,
+    material: input.material,
+    gaugeIn,
+    rivetSpec: rivet.code,
+    coupons: input.coupons,
+    pullThroughFallbackFraction: input.pullThroughFallbackFraction,
+    materialData: input.materialData,
+    rivetData: input.rivetData,
   });
   const schedules = lines.map((d) =>
     scheduleLine(
@@ -494,7 +594,9 @@ function candidate(input: RibStudyInput, lines: PreparedStudyLine[], gaugeIn: nu
   const reasons: string[] = [];
   for (const s of schedules) for (const r of s.body.reasons) reasons.push(`${s.body.line}: ${r}`);
   if (rib.flangeWidthIn !== undefined && rib.flangeWidthIn < 2 * layout.minEdgeIn - 1e-9) {
-    reasons.push(`the ${rib.flangeWidthIn} in flange is narrower than twice the ${layout.minEdgeIn.toFixed(3)} in edge distance of ${rivet.code}`);
+    reasons.push(
+      `the ${rib.flangeWidthIn} in flange is narrower than twice the ${layout.minEdgeIn.toFixed(3)} in edge distance of ${rivet.code}`,
+    );
   }
   let rivetCount = 0;
   const warnings = new Set<string>();
@@ -544,9 +646,17 @@ export interface RibPlace {
 
 /** A rib alone: the section works at the wing's CL, the wing torque (if given) by Bredt–Batho. */
 function lonePlace(input: RibStudyInput): RibPlace {
-  const rules = ['lone rib: the section taken at the wing CL of each condition (no spanwise distribution, no tail load)'];
-  const q = input.wingTorqueInLb !== undefined && input.cellAreaSqIn !== undefined ? shearFlowLbPerIn(input.wingTorqueInLb, input.cellAreaSqIn) : 0;
-  if (q !== 0) rules.push(`skin shear flow from wing torque q = T/(2A) = ${Math.abs(q).toFixed(2)} lb/in (Bredt–Batho), taken together with the largest pull at every station`);
+  const rules = [
+    'lone rib: the section taken at the wing CL of each condition (no spanwise distribution, no tail load)',
+  ];
+  const q =
+    input.wingTorqueInLb !== undefined && input.cellAreaSqIn !== undefined
+      ? shearFlowLbPerIn(input.wingTorqueInLb, input.cellAreaSqIn)
+      : 0;
+  if (q !== 0)
+    rules.push(
+      `skin shear flow from wing torque q = T/(2A) = ${Math.abs(q).toFixed(2)} lb/in (Bredt–Batho), taken together with the largest pull at every station`,
+    );
   return { sectionRatio: () => 1, shearFlowLbPerIn: q, rules, warnings: [] };
 }
 
@@ -580,7 +690,12 @@ function keepHolesOf(candidates: BuiltCandidate[], keep: { gaugeIn: number; rive
  * The study of a rib at its place, given its section context: the rib study of a lone rib, and of every
  * rib of a wing (wing-study.ts).
  */
-export function studyRibAt(input: RibStudyInput, ctx: SectionContext, place: RibPlace, work: StudyWork): RibStudyResult {
+export function studyRibAt(
+  input: RibStudyInput,
+  ctx: SectionContext,
+  place: RibPlace,
+  work: StudyWork,
+): RibStudyResult {
   const { rib } = input;
   const { conditions, lines, warnings: pressureWarnings } = ribLoads(input, ctx, place);
   const warnings: string[] = [...ctx.warnings, ...place.warnings, ...pressureWarnings];
@@ -600,10 +715,15 @@ export function studyRibAt(input: RibStudyInput, ctx: SectionContext, place: Rib
       for (const sl of c.schedules) for (const r of sl.rules) candidateRules.add(r);
     }
   }
-  if (rib.flangeWidthIn === undefined) warnings.push('flange width not given: taken as twice the edge distance (4D) of each rivet for its weight');
-  if (rib.skinGaugeIn === undefined) warnings.push('skin gauge not given: the rivet grip is taken as twice the flange gauge');
+  if (rib.flangeWidthIn === undefined)
+    warnings.push('flange width not given: taken as twice the edge distance (4D) of each rivet for its weight');
+  if (rib.skinGaugeIn === undefined)
+    warnings.push('skin gauge not given: the rivet grip is taken as twice the flange gauge');
   const fallbacks = built.filter((c) => c.pullThroughBasis === 'fallback').length;
-  if (fallbacks > 0) warnings.push(`${fallbacks} of ${built.length} candidates have no coupon data and use the conservative pull-through fallback: see their warnings`);
+  if (fallbacks > 0)
+    warnings.push(
+      `${fallbacks} of ${built.length} candidates have no coupon data and use the conservative pull-through fallback: see their warnings`,
+    );
 
   const outline = ribOutline(ctx.geometry, rib.chordIn);
   const density = findMaterial(input.material, input.materialData).densityLbPerIn3;
@@ -631,17 +751,34 @@ export function studyRibAt(input: RibStudyInput, ctx: SectionContext, place: Rib
     caution: ENGINEERING_CAUTION,
     // Stored numbers rounded to what they mean (rounding.ts; pressures and geometry to 0.0001 in their
     // units), after every check above was made at full precision.
-    design: roundStored({ wingLoadingPsf: design.wingLoadingPsf, loadFactors: design.loadFactors, speeds: design.speeds, gust: design.gust }),
+    design: roundStored({
+      wingLoadingPsf: design.wingLoadingPsf,
+      loadFactors: design.loadFactors,
+      speeds: design.speeds,
+      gust: design.gust,
+    }),
     // Pressures and loads to 0.001 (Cp, lb, in): finer than anything they are read or drawn to.
     conditions: conditions.map(storedCondition),
-    airfoil: roundStored({ name: ctx.geometry.name, panels: input.panels ?? DEFAULT_PANELS, trailingEdgeGap: ctx.geometry.trailingEdgeGap }),
+    airfoil: roundStored({
+      name: ctx.geometry.name,
+      panels: input.panels ?? DEFAULT_PANELS,
+      trailingEdgeGap: ctx.geometry.trailingEdgeGap,
+    }),
     outline: { chordIn: rib.chordIn, points: outline.map((p): Point => [d4(p[0]), d4(p[1])]) },
     lines: compactNumbers(lines.map((d) => d.summary)),
     // To 0.0001: a 3D pitch of a 3/32 in rivet is 0.28125 in, and 0.281 would be under the layout minimum.
     candidates: keepHolesOf(built, trade.recommended),
     trade: roundStored(trade.rows),
     recommended: trade.recommended,
-    work: { stations: work.stations, conditions: work.conditions, candidates: work.candidates, pitchGrid: work.pitchGrid, gridCells: work.gridCells, stationChecks: work.stationChecks, holes: work.holes },
+    work: {
+      stations: work.stations,
+      conditions: work.conditions,
+      candidates: work.candidates,
+      pitchGrid: work.pitchGrid,
+      gridCells: work.gridCells,
+      stationChecks: work.stationChecks,
+      holes: work.holes,
+    },
   };
 }
 
@@ -655,11 +792,19 @@ export function ribStudy(input: RibStudyInput): RibStudyResult {
  * candidate only, and this recomputes another's when someone looks at it. Refuses a candidate the study
  * did not have.
  */
-export function ribCandidate(input: RibStudyInput, pick: { gaugeIn: number; rivet: string }, place?: RibPlace): StudyCandidate {
+export function ribCandidate(
+  input: RibStudyInput,
+  pick: { gaugeIn: number; rivet: string },
+  place?: RibPlace,
+): StudyCandidate {
   const gaugeIndex = input.gaugeCandidates?.findIndex((g) => Math.abs(g - pick.gaugeIn) < 1e-9) ?? -1;
   if (gaugeIndex < 0) throw new EngineeringInputError('gaugeIn', `${pick.gaugeIn} in is not one of the study's gauges`);
-  if (!input.rivetCandidates?.includes(pick.rivet)) throw new EngineeringInputError('rivet', `${pick.rivet} is not one of the study's rivets`);
+  if (!input.rivetCandidates?.includes(pick.rivet))
+    throw new EngineeringInputError('rivet', `${pick.rivet} is not one of the study's rivets`);
   const { ctx } = prepareRib(input);
   const { lines } = ribLoads(input, ctx, place ?? lonePlace(input));
-  return storedCandidate(candidate(input, lines, input.gaugeCandidates[gaugeIndex], findRivet(pick.rivet, input.rivetData)), true);
+  return storedCandidate(
+    candidate(input, lines, input.gaugeCandidates[gaugeIndex], findRivet(pick.rivet, input.rivetData)),
+    true,
+  );
 }

@@ -12,11 +12,22 @@ import { requireFinite, requireNonNegative, requirePositive } from './validate';
 export const ULTIMATE_FACTOR = 1.5;
 
 /** Pull on the flange per inch of pitch, lb/in: net outward pressure times the tributary width. */
-export function suctionIntensityLbPerIn(cp: number, internalCp: number, qPsi: number, tributaryWidthIn: number): number {
+export function suctionIntensityLbPerIn(
+  cp: number,
+  internalCp: number,
+  qPsi: number,
+  tributaryWidthIn: number,
+): number {
   return Math.max(0, internalCp - cp) * qPsi * tributaryWidthIn;
 }
 
-export function rivetTensionLb(p: { cp: number; internalCp?: number; qPsi: number; pitchIn: number; tributaryWidthIn: number }): number {
+export function rivetTensionLb(p: {
+  cp: number;
+  internalCp?: number;
+  qPsi: number;
+  pitchIn: number;
+  tributaryWidthIn: number;
+}): number {
   requireFinite(p.cp, 'cp');
   requireNonNegative(p.qPsi, 'qPsi', 'the dynamic pressure');
   requirePositive(p.pitchIn, 'pitchIn', 'the pitch');
@@ -33,7 +44,8 @@ export function suctionForRivetLoadPsi(loadLb: number, pitchIn: number, tributar
 
 /** Bredt–Batho: shear flow of a closed single cell under torque, q = T/(2A), lb/in. */
 export function shearFlowLbPerIn(torqueInLb: number, cellAreaSqIn: number): number {
-  if (!(cellAreaSqIn > 0)) throw new EngineeringInputError('cellAreaSqIn', 'the enclosed cell area must be greater than zero');
+  if (!(cellAreaSqIn > 0))
+    throw new EngineeringInputError('cellAreaSqIn', 'the enclosed cell area must be greater than zero');
   return torqueInLb / (2 * cellAreaSqIn);
 }
 
@@ -53,7 +65,9 @@ export interface EnvelopeStation {
  * between (x/c from the leading edge to the trailing edge, as `interpolateCp` reads them), which the
  * envelope reads in step with the stations instead of searching them afresh for each.
  */
-export type EnvelopeCondition = { id: string; qPsi: number } & ({ cpAt: (xc: number) => number } | { cpSamples: CpSample[] });
+export type EnvelopeCondition = { id: string; qPsi: number } & (
+  { cpAt: (xc: number) => number } | { cpSamples: CpSample[] }
+);
 
 /**
  * One condition's pull at every station into the envelope: `suctionIntensityLbPerIn` of the Cp that
@@ -114,10 +128,16 @@ function envelopeOfSamples(
 }
 
 /** Largest pull over all conditions at each station. */
-export function loadEnvelope(xcs: number[], conditions: EnvelopeCondition[], internalCp: number, tributaryWidthIn: number): EnvelopeStation[] {
+export function loadEnvelope(
+  xcs: number[],
+  conditions: EnvelopeCondition[],
+  internalCp: number,
+  tributaryWidthIn: number,
+): EnvelopeStation[] {
   const env = envelopeColumns(xcs, conditions, internalCp, tributaryWidthIn);
   const out: EnvelopeStation[] = new Array(xcs.length);
-  for (let i = 0; i < xcs.length; i++) out[i] = { xc: xcs[i], limitLbPerIn: env.limitLbPerIn[i], governing: env.governingAt(i) };
+  for (let i = 0; i < xcs.length; i++)
+    out[i] = { xc: xcs[i], limitLbPerIn: env.limitLbPerIn[i], governing: env.governingAt(i) };
   return out;
 }
 
@@ -138,7 +158,12 @@ export class EnvelopeColumns {
 }
 
 /** `loadEnvelope` as columns, one entry per station (the rib study's loads are made from them). */
-export function envelopeColumns(xcs: number[], conditions: EnvelopeCondition[], internalCp: number, tributaryWidthIn: number): EnvelopeColumns {
+export function envelopeColumns(
+  xcs: number[],
+  conditions: EnvelopeCondition[],
+  internalCp: number,
+  tributaryWidthIn: number,
+): EnvelopeColumns {
   const n = xcs.length;
   const best = packed(n, 0);
   // the governing condition by index (−1 for none): numbers, made and filled far faster than ids
@@ -161,5 +186,9 @@ export function envelopeColumns(xcs: number[], conditions: EnvelopeCondition[], 
       }
     }
   }
-  return new EnvelopeColumns(best, governing, conditions.map((c) => c.id));
+  return new EnvelopeColumns(
+    best,
+    governing,
+    conditions.map((c) => c.id),
+  );
 }

@@ -66,7 +66,8 @@ export const MAX_SCHRENK_STATIONS = 200;
 
 /** Checks a planform and gives its derived quantities; refusals name `planform.…`. */
 export function planformGeometry(input: PlanformInput): Planform {
-  if (input === null || typeof input !== 'object') throw new EngineeringInputError('planform', 'the planform is missing');
+  if (input === null || typeof input !== 'object')
+    throw new EngineeringInputError('planform', 'the planform is missing');
   const spanIn = requireWingBound(input.spanIn, 'planform.spanIn');
   let rootChordIn: number;
   let tipChordIn: number;
@@ -102,7 +103,10 @@ export function planformGeometry(input: PlanformInput): Planform {
 export function stationEta(planform: Planform, yIn: number, field = 'yIn'): number {
   const eta = (2 * yIn) / planform.spanIn;
   if (!Number.isFinite(eta) || eta < 0 || eta > 1) {
-    throw new EngineeringInputError(field, `a station ${yIn} in from the centre line is off the ${planform.spanIn / 2} in half-span`);
+    throw new EngineeringInputError(
+      field,
+      `a station ${yIn} in from the centre line is off the ${planform.spanIn / 2} in half-span`,
+    );
   }
   return eta;
 }
@@ -117,7 +121,15 @@ export function schrenkStationOf(p: Planform, eta: number): SchrenkStation {
   const chordIn = chordAt(p, eta);
   const ellipticChordIn = ((4 * p.meanChordIn) / Math.PI) * Math.sqrt(Math.max(0, 1 - eta * eta));
   const schrenkChordIn = (chordIn + ellipticChordIn) / 2;
-  return { eta, yIn: (eta * p.spanIn) / 2, chordIn, ellipticChordIn, schrenkChordIn, clRatio: schrenkChordIn / chordIn, loadRatio: schrenkChordIn / p.meanChordIn };
+  return {
+    eta,
+    yIn: (eta * p.spanIn) / 2,
+    chordIn,
+    ellipticChordIn,
+    schrenkChordIn,
+    clRatio: schrenkChordIn / chordIn,
+    loadRatio: schrenkChordIn / p.meanChordIn,
+  };
 }
 
 /** Schrenk's section cl / wing CL at span station η (0 root, 1 tip). */
@@ -136,9 +148,18 @@ export function schrenkStation(planform: PlanformInput, eta: number, field = 'et
 export function schrenkDistribution(planform: PlanformInput, etas: number[]): SchrenkResult {
   const p = planformGeometry(planform);
   const list = requireArray<number>(etas, 'etas', 1, 'list of span stations');
-  requireCount(list, 'etas', { what: 'the number of span stations', min: 1, max: MAX_SCHRENK_STATIONS, unit: 'stations', integer: true });
+  requireCount(list, 'etas', {
+    what: 'the number of span stations',
+    min: 1,
+    max: MAX_SCHRENK_STATIONS,
+    unit: 'stations',
+    integer: true,
+  });
   const stations = list.map((eta, i) => schrenkStationOf(p, requireWingBound(eta, 'eta', `etas[${i}]`)));
   const warnings: string[] = [];
-  if (stations.some((s) => s.eta > 0.95)) warnings.push('Schrenk overstates the lift close to the tip, where the real lift falls to zero: stations beyond η = 0.95 are approximate');
+  if (stations.some((s) => s.eta > 0.95))
+    warnings.push(
+      'Schrenk overstates the lift close to the tip, where the real lift falls to zero: stations beyond η = 0.95 are approximate',
+    );
   return { ...envelope({ planform, etas }, [SCHRENK_RULE, SCHRENK_ASSUMPTIONS], warnings), planform: p, stations };
 }

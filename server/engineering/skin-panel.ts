@@ -2,7 +2,13 @@ import type { Surface } from './airfoil';
 import { endFixity, interRivetPitchLimitIn, INTER_RIVET_RULE, rivetHeadOf } from './inter-rivet-buckling';
 import { layoutRules, rivetWeightLb } from './layout';
 import { findMaterial, findRivet } from './materials';
-import { pitchSchedule, prepareStations, type CandidateSettings, type PitchScheduleResult, type StationLoad } from './pitch-schedule';
+import {
+  pitchSchedule,
+  prepareStations,
+  type CandidateSettings,
+  type PitchScheduleResult,
+  type StationLoad,
+} from './pitch-schedule';
 import { panelBuckling, sheetBucklingProperties } from './plate-buckling';
 
 /**
@@ -69,7 +75,12 @@ export interface SkinCandidate {
   interRivet: { endFixity: number; source: string; pitchLimitIn: number | null };
   shearBuckling: { criticalPsi: number; appliedPsi: number; marginOfSafety: number | null; diagonalTension: boolean };
   /** of the whole panel between the spars, at the stress it would carry unbuckled; then the width that carries the load */
-  compressionBuckling: { criticalPsi: number; appliedPsi: number; marginOfSafety: number | null; effectiveWidthIn: number };
+  compressionBuckling: {
+    criticalPsi: number;
+    appliedPsi: number;
+    marginOfSafety: number | null;
+    effectiveWidthIn: number;
+  };
   rivetCount: number;
   weightLb: number;
   buildMinutes: number;
@@ -95,12 +106,12 @@ const STATION_STEP_IN = 0.1;
 const MINUTES_PER_HOLE = { solid: 1.5, pulled: 1.0 };
 
 export const SKIN_RULES = [
-  'skin panel: pull from pressure along a rib line over the rib\'s tributary width; along a spar line over half the panel\'s shorter side',
+  "skin panel: pull from pressure along a rib line over the rib's tributary width; along a spar line over half the panel's shorter side",
   'skin shear from torsion q_t = T/(2A) over the box between the spars (Bredt–Batho, single cell)',
   'skin shear from bending at the spar lines q_b = V·(w·t/2)/(h·(A_caps + w·t)) (skin and caps as a couple over the box depth)',
   INTER_RIVET_RULE,
   'panel buckling, simply supported: in spanwise compression between the spars k = (b/a + a/b)² for a bay a shorter than the box width b, else 4.0; in shear k_s = 5.35 on the shorter side (Timoshenko & Gere); Johnson above half the yield',
-  'compression skin past buckling: only the effective width b_e = 1.9·t·√(E/σ) beside the spars carries the bending, at the caps\' stress (von Kármán; Bruhn ch. C7, from memory)',
+  "compression skin past buckling: only the effective width b_e = 1.9·t·√(E/σ) beside the spars carries the bending, at the caps' stress (von Kármán; Bruhn ch. C7, from memory)",
 ];
 
 /** Stations every 0.1 in along a straight spanwise line, with one pull and one shear all along. */
@@ -108,13 +119,23 @@ function spanwiseStations(lengthIn: number, tension: number, shear: number): Sta
   const count = Math.max(2, Math.ceil(lengthIn / STATION_STEP_IN) + 1);
   return Array.from({ length: count }, (_, k) => {
     const along = (lengthIn * k) / (count - 1);
-    return { stationIn: along, alongIn: along, limitTensionLbPerIn: tension, limitShearLbPerIn: shear, xIn: along, yIn: 0 };
+    return {
+      stationIn: along,
+      alongIn: along,
+      limitTensionLbPerIn: tension,
+      limitShearLbPerIn: shear,
+      xIn: along,
+      yIn: 0,
+    };
   });
 }
 
 const strip = (s: PitchScheduleResult): SkinLineSchedule => {
   const { inputs, rules, caution, warnings, ...rest } = s;
-  void inputs; void rules; void caution; void warnings;
+  void inputs;
+  void rules;
+  void caution;
+  void warnings;
   return rest;
 };
 
@@ -147,7 +168,13 @@ function compressionSkin(spec: SkinPanelSpec, t: number, k: number, props: Retur
   const grossPsi = spec.compressionMomentInLb / (spec.boxDepthIn * (spec.capAreaSqIn + w * t));
   if (grossPsi <= 0) return { compressionPsi: 0, grossPsi: 0, effectiveWidthIn: w, buckling: null };
   const buckling = panelBuckling({
-    loading: 'compression', edges: 'simply-supported', ...props, thicknessIn: t, widthIn: w, bucklingCoefficient: k, appliedStressPsi: Math.min(grossPsi, 200_000),
+    loading: 'compression',
+    edges: 'simply-supported',
+    ...props,
+    thicknessIn: t,
+    widthIn: w,
+    bucklingCoefficient: k,
+    appliedStressPsi: Math.min(grossPsi, 200_000),
   });
   if (!buckling.buckles) return { compressionPsi: grossPsi, grossPsi, effectiveWidthIn: w, buckling };
   let sigma = grossPsi;
@@ -184,15 +211,27 @@ export function skinPanelStudy(spec: SkinPanelSpec, settings: SkinSettings): Ski
       const warnings: string[] = [];
       const fix = endFixity(rivetHeadOf(rivet));
       const pitchLimitIn =
-        compressionPsi > 0 ? interRivetPitchLimitIn(fix.c, props.elasticModulusPsi, props.compressiveYieldPsi, gaugeIn, Math.min(compressionPsi, 200_000)) : null;
+        compressionPsi > 0
+          ? interRivetPitchLimitIn(
+              fix.c,
+              props.elasticModulusPsi,
+              props.compressiveYieldPsi,
+              gaugeIn,
+              Math.min(compressionPsi, 200_000),
+            )
+          : null;
       let sparMaxDiameters = settings.maxPitchDiameters;
       if (compressionPsi >= props.compressiveYieldPsi) {
-        reasons.push(`the skin's ${compressionPsi.toFixed(0)} psi compression reaches its yield: a thicker skin or larger spar caps are needed`);
+        reasons.push(
+          `the skin's ${compressionPsi.toFixed(0)} psi compression reaches its yield: a thicker skin or larger spar caps are needed`,
+        );
         sparMaxDiameters = 3;
       } else if (pitchLimitIn !== null) {
         const limitD = pitchLimitIn / layout.diameterIn;
         if (limitD < 3) {
-          reasons.push(`the skin buckles between rivets even at the 3D minimum pitch (largest pitch ${pitchLimitIn.toFixed(3)} in at ${compressionPsi.toFixed(0)} psi)`);
+          reasons.push(
+            `the skin buckles between rivets even at the 3D minimum pitch (largest pitch ${pitchLimitIn.toFixed(3)} in at ${compressionPsi.toFixed(0)} psi)`,
+          );
           sparMaxDiameters = 3;
         } else if (limitD < sparMaxDiameters) {
           sparMaxDiameters = limitD;
@@ -220,16 +259,36 @@ export function skinPanelStudy(spec: SkinPanelSpec, settings: SkinSettings): Ski
       const sparShear = qt + qb;
       const ribShear = qt;
       const lines = [
-        schedule('front spar', 'FS', spanwiseStations(widthIn, spec.sparPullLbPerIn.front, sparShear), sparMaxDiameters),
+        schedule(
+          'front spar',
+          'FS',
+          spanwiseStations(widthIn, spec.sparPullLbPerIn.front, sparShear),
+          sparMaxDiameters,
+        ),
         schedule('rear spar', 'RS', spanwiseStations(widthIn, spec.sparPullLbPerIn.rear, sparShear), sparMaxDiameters),
-        schedule(`rib ${spec.innerRib}`, 'IR', spec.ribLines.inner.map((s) => ({ ...s, limitShearLbPerIn: ribShear })), settings.maxPitchDiameters),
-        schedule(`rib ${spec.outerRib}`, 'OR', spec.ribLines.outer.map((s) => ({ ...s, limitShearLbPerIn: ribShear })), settings.maxPitchDiameters),
+        schedule(
+          `rib ${spec.innerRib}`,
+          'IR',
+          spec.ribLines.inner.map((s) => ({ ...s, limitShearLbPerIn: ribShear })),
+          settings.maxPitchDiameters,
+        ),
+        schedule(
+          `rib ${spec.outerRib}`,
+          'OR',
+          spec.ribLines.outer.map((s) => ({ ...s, limitShearLbPerIn: ribShear })),
+          settings.maxPitchDiameters,
+        ),
       ];
       for (const l of lines) reasons.push(...l.reasons.map((r) => `${l.line}: ${r}`));
       for (const l of lines) warnings.push(...l.warnings);
       const tau = sparShear / gaugeIn;
       const shear = panelBuckling({
-        loading: 'shear', edges: 'simply-supported', ...props, thicknessIn: gaugeIn, widthIn: shortSide, appliedStressPsi: Math.min(tau, 200_000),
+        loading: 'shear',
+        edges: 'simply-supported',
+        ...props,
+        thicknessIn: gaugeIn,
+        widthIn: shortSide,
+        appliedStressPsi: Math.min(tau, 200_000),
       });
       const compression = compressed.buckling;
       if (shear.diagonalTension.reliedOn) warnings.push(`panel ${spec.name}: ${shear.diagonalTension.note}`);
@@ -250,7 +309,12 @@ export function skinPanelStudy(spec: SkinPanelSpec, settings: SkinSettings): Ski
         bendingShearFlowLbPerIn: qb,
         compressionPsi,
         interRivet: { endFixity: fix.c, source: fix.source, pitchLimitIn },
-        shearBuckling: { criticalPsi: shear.criticalPsi, appliedPsi: tau, marginOfSafety: shear.marginOfSafety, diagonalTension: shear.diagonalTension.reliedOn },
+        shearBuckling: {
+          criticalPsi: shear.criticalPsi,
+          appliedPsi: tau,
+          marginOfSafety: shear.marginOfSafety,
+          diagonalTension: shear.diagonalTension.reliedOn,
+        },
         compressionBuckling: {
           criticalPsi: compression?.criticalPsi ?? 0,
           appliedPsi: compressed.grossPsi,
@@ -264,7 +328,9 @@ export function skinPanelStudy(spec: SkinPanelSpec, settings: SkinSettings): Ski
       });
     }
   }
-  const feasible = candidates.filter((c) => c.feasible).sort((a, b) => a.weightLb - b.weightLb || a.rivetCount - b.rivetCount);
+  const feasible = candidates
+    .filter((c) => c.feasible)
+    .sort((a, b) => a.weightLb - b.weightLb || a.rivetCount - b.rivetCount);
   return {
     name: spec.name,
     surface: spec.surface,

@@ -248,7 +248,10 @@ function preparedLine(c: LineColumns): PreparedLine {
     }
     return hit;
   };
-  const ends = { first: new Map<number, { tension: number; shear: number }>(), last: new Map<number, { tension: number; shear: number }>() };
+  const ends = {
+    first: new Map<number, { tension: number; shear: number }>(),
+    last: new Map<number, { tension: number; shear: number }>(),
+  };
   const endMax = (end: 'first' | 'last', share: number) => {
     const kept = ends[end];
     let hit = kept.get(share);
@@ -335,7 +338,10 @@ export class LoadWindow {
 function validateStations(stations: unknown): StationLoad[] {
   const list = requireArray<StationLoad>(stations, 'stations', 2, 'list of station loads');
   if (list.length > STUDY_BUDGET.stations) {
-    throw new EngineeringInputError('stations', `at most ${STUDY_BUDGET.stations.toLocaleString('en-US')} stations on a line (got ${list.length.toLocaleString('en-US')})`);
+    throw new EngineeringInputError(
+      'stations',
+      `at most ${STUDY_BUDGET.stations.toLocaleString('en-US')} stations on a line (got ${list.length.toLocaleString('en-US')})`,
+    );
   }
   // Every station of every line comes through here: a sound one is passed on a quick look, and the
   // checks that name the field (and build its name) run only for one that is not.
@@ -365,5 +371,6 @@ function validateStation(list: StationLoad[], i: number): void {
   requireFinite(s.alongIn, `stations[${i}].alongIn`);
   requireNonNegative(s.limitTensionLbPerIn, `stations[${i}].limitTensionLbPerIn`, 'the load');
   if (s.limitShearLbPerIn !== undefined) requireFinite(s.limitShearLbPerIn, `stations[${i}].limitShearLbPerIn`);
-  if (i > 0 && !(s.alongIn > list[i - 1].alongIn)) throw new EngineeringInputError(`stations[${i}].alongIn`, 'stations must be in order along the line');
+  if (i > 0 && !(s.alongIn > list[i - 1].alongIn))
+    throw new EngineeringInputError(`stations[${i}].alongIn`, 'stations must be in order along the line');
 }

@@ -70,7 +70,11 @@ function candidateField(input: StudyWorkInput, rivetCount: number): string {
 }
 
 /** Refuses a study over its budget, naming the field that drives the count that is over. */
-export function requireStudyBudget(input: StudyWorkInput, work: StudyWork & { lineLengthsIn: number[] }, rivetCount: number): void {
+export function requireStudyBudget(
+  input: StudyWorkInput,
+  work: StudyWork & { lineLengthsIn: number[] },
+  rivetCount: number,
+): void {
   if (work.stations > STUDY_BUDGET.stations) {
     const total = work.lineLengthsIn.reduce((a, b) => a + b, 0);
     const nominal = input.lines.reduce((a, l) => a + (l.endXc - l.startXc) * input.rib.chordIn, 0);
@@ -79,7 +83,9 @@ export function requireStudyBudget(input: StudyWorkInput, work: StudyWork & { li
     throw new EngineeringInputError(
       wavy ? 'airfoil.points' : 'rib.chordIn',
       `the fastener lines run ${fmt(total)} in along the surface, ${fmt(work.stations)} load stations; at most ${fmt(STUDY_BUDGET.stations)}: ` +
-        (wavy ? `the outline's surface is ${(total / nominal).toFixed(0)} times as long as its chord: smooth the coordinates` : 'use a smaller chord, or fewer or shorter lines'),
+        (wavy
+          ? `the outline's surface is ${(total / nominal).toFixed(0)} times as long as its chord: smooth the coordinates`
+          : 'use a smaller chord, or fewer or shorter lines'),
     );
   }
   if (work.gridCells > STUDY_BUDGET.gridCells) {

@@ -63,7 +63,10 @@ export function tradeStudy(candidates: TradeCandidate[], rankBy: RankBy = 'weigh
   ];
   const warnings: string[] = [];
   const best = ranked[0];
-  if (!best) warnings.push('no gauge and rivet combination carries the loads: thicker stock, larger rivets or a closer minimum pitch are needed');
+  if (!best)
+    warnings.push(
+      'no gauge and rivet combination carries the loads: thicker stock, larger rivets or a closer minimum pitch are needed',
+    );
   else {
     const better = ranked.filter((r) => r.pullThroughBasis === 'fallback' && order(r, best) < 0);
     if (best.pullThroughBasis === 'coupons' && better.length > 0) {
@@ -72,7 +75,10 @@ export function tradeStudy(candidates: TradeCandidate[], rankBy: RankBy = 'weigh
         `${first.gaugeIn} in with ${first.rivet} would be ${rankBy === 'weight' ? 'lighter' : 'quicker to build'} but rests on the pull-through fallback: coupon tests of it may be worth making`,
       );
     }
-    if (best.pullThroughBasis === 'fallback') warnings.push('the recommendation rests on the conservative pull-through fallback: no feasible candidate is backed by coupon tests');
+    if (best.pullThroughBasis === 'fallback')
+      warnings.push(
+        'the recommendation rests on the conservative pull-through fallback: no feasible candidate is backed by coupon tests',
+      );
   }
   // Spelled out rather than `...envelope(…)` followed by more fields: V8 builds such a literal far slower.
   return {

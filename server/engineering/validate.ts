@@ -23,7 +23,8 @@ export function requireNonNegative(value: unknown, field: string, what = 'this v
 
 export function requireInRange(value: unknown, field: string, min: number, max: number, what = 'this value'): number {
   const v = requireFinite(value, field);
-  if (v < min || v > max) throw new EngineeringInputError(field, `${what} must be between ${min} and ${max} (got ${v})`);
+  if (v < min || v > max)
+    throw new EngineeringInputError(field, `${what} must be between ${min} and ${max} (got ${v})`);
   return v;
 }
 
@@ -45,7 +46,10 @@ export function requireOneOf<T extends string>(value: unknown, field: string, al
 export function requireArray<T>(value: unknown, field: string, minLength: number, what = 'list'): T[] {
   if (!Array.isArray(value)) throw new EngineeringInputError(field, `must be a ${what}`);
   if (value.length < minLength) {
-    throw new EngineeringInputError(field, `needs at least ${minLength} entr${minLength === 1 ? 'y' : 'ies'} (got ${value.length})`);
+    throw new EngineeringInputError(
+      field,
+      `needs at least ${minLength} entr${minLength === 1 ? 'y' : 'ies'} (got ${value.length})`,
+    );
   }
   return value as T[];
 }

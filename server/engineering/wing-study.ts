@@ -22,7 +22,15 @@ import {
 } from './rib-study';
 import { loadEnvelope } from './rivet-loads';
 import { roundStored } from './rounding';
-import { chordAt, planformGeometry, schrenkStationOf, SCHRENK_ASSUMPTIONS, SCHRENK_RULE, type Planform, type PlanformInput } from './schrenk';
+import {
+  chordAt,
+  planformGeometry,
+  schrenkStationOf,
+  SCHRENK_ASSUMPTIONS,
+  SCHRENK_RULE,
+  type Planform,
+  type PlanformInput,
+} from './schrenk';
 import type { CandidateSettings } from './pitch-schedule';
 import { skinPanelStudy, SKIN_RULES, type SkinPanelResult, type SkinPanelSpec } from './skin-panel';
 import { estimateStudyWork, requireStudyBudget, type StudyWork } from './study-work';
@@ -102,7 +110,13 @@ export interface WingRib {
   /** Schrenk's section cl / wing CL */
   clRatio: number;
   /** limit loads at the station, the largest magnitude over all conditions, with the condition */
-  loads: { shearLb: number; bendingInLb: number; torqueInLb: number; shearFlowLbPerIn: number; governing: { shear: string; bending: string; torque: string } };
+  loads: {
+    shearLb: number;
+    bendingInLb: number;
+    torqueInLb: number;
+    shearFlowLbPerIn: number;
+    governing: { shear: string; bending: string; torque: string };
+  };
   /**
    * The rib's own study, slimmed for a whole wing: the recommended candidate with its holes, the wing's
    * one-for-all choice with its zones, and every other candidate as its verdict only (feasible, reasons;
@@ -142,7 +156,13 @@ export interface WingStudyResult extends EngineeringResult<WingStudyInput> {
     /** one gauge and rivet for every rib, ranked */
     uniform: WingTradeRow[];
     /** each rib its own recommendation */
-    perRib: { choices: { rib: string; gaugeIn: number; rivet: string }[]; feasible: boolean; rivetCount: number; weightLb: number; buildMinutes: number };
+    perRib: {
+      choices: { rib: string; gaugeIn: number; rivet: string }[];
+      feasible: boolean;
+      rivetCount: number;
+      weightLb: number;
+      buildMinutes: number;
+    };
     recommendedUniform: { gaugeIn: number; rivet: string } | null;
   };
   work: StudyWork & { ribs: number; skinPanels: number; skinSchedules: number };
@@ -159,42 +179,73 @@ const QUARTER_CHORD = 0.25;
 const STATION_STEP_IN = 0.1;
 
 function validateWing(input: WingStudyInput): Planform {
-  if (input === null || typeof input !== 'object') throw new EngineeringInputError('input', 'the study input is missing');
+  if (input === null || typeof input !== 'object')
+    throw new EngineeringInputError('input', 'the study input is missing');
   const planform = planformGeometry(input.planform);
   const half = planform.spanIn / 2;
   const ribs = requireArray<WingRibInput>(input.ribs, 'ribs', 2, 'list of ribs');
   requireCount(ribs, 'ribs', { what: 'the number of ribs', min: 2, max: MAX_WING_RIBS, unit: 'ribs', integer: true });
   let last = -Infinity;
   ribs.forEach((r, i) => {
-    if (r === null || typeof r !== 'object') throw new EngineeringInputError(`ribs[${i}]`, 'each rib needs a name and a station');
-    if (typeof r.name !== 'string' || !r.name.trim()) throw new EngineeringInputError(`ribs[${i}].name`, 'name the rib');
+    if (r === null || typeof r !== 'object')
+      throw new EngineeringInputError(`ribs[${i}]`, 'each rib needs a name and a station');
+    if (typeof r.name !== 'string' || !r.name.trim())
+      throw new EngineeringInputError(`ribs[${i}].name`, 'name the rib');
     const y = requireWingBound(r.stationIn, 'ribs[].stationIn', `ribs[${i}].stationIn`);
-    if (y > half) throw new EngineeringInputError(`ribs[${i}].stationIn`, `a rib ${y} in from the centre line is beyond the ${half} in half-span`);
-    if (y <= last + 0.5) throw new EngineeringInputError(`ribs[${i}].stationIn`, `ribs go from root to tip, each at least 0.5 in outboard of the one before (got ${y} in after ${last} in)`);
+    if (y > half)
+      throw new EngineeringInputError(
+        `ribs[${i}].stationIn`,
+        `a rib ${y} in from the centre line is beyond the ${half} in half-span`,
+      );
+    if (y <= last + 0.5)
+      throw new EngineeringInputError(
+        `ribs[${i}].stationIn`,
+        `ribs go from root to tip, each at least 0.5 in outboard of the one before (got ${y} in after ${last} in)`,
+      );
     last = y;
   });
   const names = ribs.map((r) => r.name.trim().toLowerCase());
   names.forEach((n, i) => {
-    if (names.indexOf(n) !== i) throw new EngineeringInputError(`ribs[${i}].name`, `two ribs are called "${ribs[i].name}"`);
+    if (names.indexOf(n) !== i)
+      throw new EngineeringInputError(`ribs[${i}].name`, `two ribs are called "${ribs[i].name}"`);
   });
-  if (input.tail === null || typeof input.tail !== 'object') throw new EngineeringInputError('tail', 'give the tail arm (and its balancing load, or leave that to the estimate)');
+  if (input.tail === null || typeof input.tail !== 'object')
+    throw new EngineeringInputError(
+      'tail',
+      'give the tail arm (and its balancing load, or leave that to the estimate)',
+    );
   requireWingBound(input.tail.armIn, 'tail.armIn');
   if (input.tail.balancingLoadLb !== undefined) requireWingBound(input.tail.balancingLoadLb, 'tail.balancingLoadLb');
   const spars = input.spars;
-  if (spars === null || typeof spars !== 'object') throw new EngineeringInputError('spars', 'give the front and rear spar positions');
+  if (spars === null || typeof spars !== 'object')
+    throw new EngineeringInputError('spars', 'give the front and rear spar positions');
   requireWingBound(spars.frontXc, 'spars.frontXc');
   requireWingBound(spars.rearXc, 'spars.rearXc');
-  if (spars.rearXc - spars.frontXc < 0.1) throw new EngineeringInputError('spars.rearXc', 'the rear spar must be at least 0.1 chord aft of the front spar');
+  if (spars.rearXc - spars.frontXc < 0.1)
+    throw new EngineeringInputError('spars.rearXc', 'the rear spar must be at least 0.1 chord aft of the front spar');
   if (spars.capAreaSqIn !== undefined) requireWingBound(spars.capAreaSqIn, 'spars.capAreaSqIn');
   const rib = input.rib;
   if (rib === null || typeof rib !== 'object') throw new EngineeringInputError('rib', 'the rib data are missing');
   const skin = input.skin;
-  if (skin === null || typeof skin !== 'object') throw new EngineeringInputError('skin', 'choose the skin gauges and rivets');
+  if (skin === null || typeof skin !== 'object')
+    throw new EngineeringInputError('skin', 'choose the skin gauges and rivets');
   requireArray<number>(skin.gaugeCandidates, 'skin.gaugeCandidates', 1, 'list of gauges');
-  requireCount(skin.gaugeCandidates, 'skin.gaugeCandidates', { what: 'the number of skin gauges', min: 1, max: 6, unit: 'gauges', integer: true });
+  requireCount(skin.gaugeCandidates, 'skin.gaugeCandidates', {
+    what: 'the number of skin gauges',
+    min: 1,
+    max: 6,
+    unit: 'gauges',
+    integer: true,
+  });
   skin.gaugeCandidates.forEach((g, i) => requireWingBound(g, 'panel.thicknessIn', `skin.gaugeCandidates[${i}]`));
   requireArray<string>(skin.rivetCandidates, 'skin.rivetCandidates', 1, 'list of rivet specs');
-  requireCount(skin.rivetCandidates, 'skin.rivetCandidates', { what: 'the number of skin rivets', min: 1, max: 4, unit: 'rivets', integer: true });
+  requireCount(skin.rivetCandidates, 'skin.rivetCandidates', {
+    what: 'the number of skin rivets',
+    min: 1,
+    max: 4,
+    unit: 'rivets',
+    integer: true,
+  });
   skin.rivetCandidates.forEach((c, i) => findRivet(c, input.rivetData, `skin.rivetCandidates[${i}]`));
   if (input.compressibility !== undefined) requireOneOf(input.compressibility, 'compressibility', PRESSURE_RULES);
   const lines = requireArray<FastenerLineInput>(rib.lines, 'rib.lines', 1, 'list of fastener lines');
@@ -217,7 +268,8 @@ function thicknessAt(geometry: AirfoilGeometry, xc: number): number {
     for (let i = 1; i < pts.length; i++) {
       const [x0, y0] = pts[i - 1];
       const [x1, y1] = pts[i];
-      if ((x0 <= xc && xc <= x1) || (x1 <= xc && xc <= x0)) return x1 === x0 ? y0 : y0 + ((y1 - y0) * (xc - x0)) / (x1 - x0);
+      if ((x0 <= xc && xc <= x1) || (x1 <= xc && xc <= x0))
+        return x1 === x0 ? y0 : y0 + ((y1 - y0) * (xc - x0)) / (x1 - x0);
     }
     return 0;
   };
@@ -258,7 +310,13 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
     panels: input.panels,
     flaps: input.flaps,
     compressibility: input.compressibility,
-    rib: { chordIn: chordAt(planform, r.stationIn / half), spacingIn: Math.min(60, Math.max(2, spacings[i])), internalCp: input.rib.internalCp, flangeWidthIn: input.rib.flangeWidthIn, skinGaugeIn: input.rib.skinGaugeIn },
+    rib: {
+      chordIn: chordAt(planform, r.stationIn / half),
+      spacingIn: Math.min(60, Math.max(2, spacings[i])),
+      internalCp: input.rib.internalCp,
+      flangeWidthIn: input.rib.flangeWidthIn,
+      skinGaugeIn: input.rib.skinGaugeIn,
+    },
     lines: input.rib.lines,
     material: input.material,
     gaugeCandidates: input.gaugeCandidates,
@@ -278,11 +336,16 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
   try {
     validateStudy(ribInputs[0]);
   } catch (e) {
-    if (e instanceof EngineeringInputError) throw new EngineeringInputError(e.field.startsWith('lines') ? `rib.${e.field}` : e.field, e.reason);
+    if (e instanceof EngineeringInputError)
+      throw new EngineeringInputError(e.field.startsWith('lines') ? `rib.${e.field}` : e.field, e.reason);
     throw e;
   }
   spacings.forEach((s, i) => {
-    if (s > 60) throw new EngineeringInputError(`ribs[${i}].stationIn`, `rib ${input.ribs[i].name} carries a ${s.toFixed(1)} in wide strip of wing: at most 60 in; add a rib`);
+    if (s > 60)
+      throw new EngineeringInputError(
+        `ribs[${i}].stationIn`,
+        `rib ${input.ribs[i].name} carries a ${s.toFixed(1)} in wide strip of wing: at most 60 in; add a rib`,
+      );
   });
 
   // The work of every rib, counted before anything is solved; the sum against the wing's budget.
@@ -295,13 +358,20 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
         requireStudyBudget(ri, w, rivets.length);
         return w;
       } catch (e) {
-        if (e instanceof EngineeringInputError) throw new EngineeringInputError(e.field.startsWith('rib.') ? `ribs[${i}].stationIn` : e.field, `rib ${input.ribs[i].name}: ${e.reason}`);
+        if (e instanceof EngineeringInputError)
+          throw new EngineeringInputError(
+            e.field.startsWith('rib.') ? `ribs[${i}].stationIn` : e.field,
+            `rib ${input.ribs[i].name}: ${e.reason}`,
+          );
         throw e;
       }
     });
     const total = works.reduce((n, w) => n + w.stationChecks, 0);
     if (total > STUDY_BUDGET.stationChecks * WING_BUDGET_FACTOR) {
-      throw new EngineeringInputError('gaugeCandidates', `${input.ribs.length} ribs make ${Math.round(total).toLocaleString('en-US')} load checks; at most ${(STUDY_BUDGET.stationChecks * WING_BUDGET_FACTOR).toLocaleString('en-US')}: study fewer gauges or rivets at once`);
+      throw new EngineeringInputError(
+        'gaugeCandidates',
+        `${input.ribs.length} ribs make ${Math.round(total).toLocaleString('en-US')} load checks; at most ${(STUDY_BUDGET.stationChecks * WING_BUDGET_FACTOR).toLocaleString('en-US')}: study fewer gauges or rivets at once`,
+      );
     }
     // The skin panels: two spar lines across each bay and two rib lines between the spars, every one
     // scheduled for each skin candidate, on both surfaces.
@@ -309,8 +379,15 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
     let skinStations = 0;
     for (let i = 0; i + 1 < stations.length; i++) {
       for (const surface of ['upper', 'lower'] as const) {
-        const ribLine = (k: number) => lineStationCount(geometry, { name: 'skin', surface, startXc: input.spars.frontXc, endXc: input.spars.rearXc }, ribInputs[k].rib.chordIn, STATION_STEP_IN).count;
-        skinStations += 2 * (Math.ceil((stations[i + 1] - stations[i]) / STATION_STEP_IN) + 1) + ribLine(i) + ribLine(i + 1);
+        const ribLine = (k: number) =>
+          lineStationCount(
+            geometry,
+            { name: 'skin', surface, startXc: input.spars.frontXc, endXc: input.spars.rearXc },
+            ribInputs[k].rib.chordIn,
+            STATION_STEP_IN,
+          ).count;
+        skinStations +=
+          2 * (Math.ceil((stations[i + 1] - stations[i]) / STATION_STEP_IN) + 1) + ribLine(i) + ribLine(i + 1);
       }
     }
     if (skinStations * skinCandidates > WING_SKIN_BUDGET) {
@@ -323,7 +400,9 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
   const wingAreaSqIn = kit.wingAreaSqFt * SQIN_PER_SQFT;
   const warnings: string[] = [];
   if (Math.abs(planform.areaSqIn - wingAreaSqIn) > 0.05 * wingAreaSqIn) {
-    warnings.push(`the planform's area (${(planform.areaSqIn / SQIN_PER_SQFT).toFixed(1)} ft²) differs from the kit's wing area (${kit.wingAreaSqFt} ft²) by more than 5 %: the lift is spread over the planform as given`);
+    warnings.push(
+      `the planform's area (${(planform.areaSqIn / SQIN_PER_SQFT).toFixed(1)} ft²) differs from the kit's wing area (${kit.wingAreaSqFt} ft²) by more than 5 %: the lift is spread over the planform as given`,
+    );
   }
 
   // The tail: its 1-g balancing download, given or from the section's zero-lift moment, scaled with q.
@@ -331,10 +410,14 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
   const moment = sectionMoment(ctx, mid);
   const tailEstimated = input.tail.balancingLoadLb === undefined;
   const cruiseQ = ctx.conditions.find((c) => c.id.endsWith('-vc'))?.qPsi ?? ctx.conditions[0].qPsi;
-  const oneGTail = tailEstimated ? (-moment.cmAc * cruiseQ * wingAreaSqIn * kit.meanChordIn) / input.tail.armIn : input.tail.balancingLoadLb!;
+  const oneGTail = tailEstimated
+    ? (-moment.cmAc * cruiseQ * wingAreaSqIn * kit.meanChordIn) / input.tail.armIn
+    : input.tail.balancingLoadLb!;
   const conditions: WingCondition[] = ctx.conditions.map((c) => {
     // The moment part grows with q (cm_ac·q·S·c̄): a download at speed whatever the load factor.
-    const tailLoadLb = tailEstimated ? (-moment.cmAc * c.qPsi * wingAreaSqIn * kit.meanChordIn) / input.tail.armIn : (input.tail.balancingLoadLb! * c.qPsi) / cruiseQ;
+    const tailLoadLb = tailEstimated
+      ? (-moment.cmAc * c.qPsi * wingAreaSqIn * kit.meanChordIn) / input.tail.armIn
+      : (input.tail.balancingLoadLb! * c.qPsi) / cruiseQ;
     const wingLiftLb = c.n * kit.weightLb + tailLoadLb;
     const wingCl = wingLiftLb / (c.qPsi * wingAreaSqIn);
     return { ...c, mach: machNumber(c.speedKeas, ctx.altitudeFt), tailLoadLb, wingLiftLb, wingCl };
@@ -355,7 +438,9 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
   };
   const box = boxAtUnitChord(ctx.geometry, input.spars.frontXc, input.spars.rearXc);
   // Loads at every rib, per condition.
-  const perCondition = conditions.map((c) => spanwiseLoads(planform, grading, moment, { wingLiftLb: c.wingLiftLb, wingCl: c.wingCl, qPsi: c.qPsi }, stations));
+  const perCondition = conditions.map((c) =>
+    spanwiseLoads(planform, grading, moment, { wingLiftLb: c.wingLiftLb, wingCl: c.wingCl, qPsi: c.qPsi }, stations),
+  );
   const envelopeAt = (i: number) => {
     const pick = (f: (l: StationLoads) => number) => {
       let best = 0;
@@ -378,9 +463,9 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
     tailEstimated
       ? `tail balancing load estimated from the section's zero-lift moment cm_ac = ${moment.cmAc.toFixed(4)}: P = −cm_ac·q·S·c̄ / l_t (download +), l_t = ${input.tail.armIn} in; c.g. at the wing's aerodynamic centre`
       : `tail balancing load ${input.tail.balancingLoadLb} lb (down +) at VC as given, scaled with the dynamic pressure`,
-    'wing lift in each condition L = n·W + tail download; each rib\'s section at the wing CL × its Schrenk cl/CL',
-    'spanwise shear, bending and torque by integrating the lift and the sections\' moment about the mid-box from the tip inward (trapezoid rule, 2,000 steps)',
-    'rib lines carry the skin\'s torsion shear flow at their station, q = T/(2A), together with the largest pull',
+    "wing lift in each condition L = n·W + tail download; each rib's section at the wing CL × its Schrenk cl/CL",
+    "spanwise shear, bending and torque by integrating the lift and the sections' moment about the mid-box from the tip inward (trapezoid rule, 2,000 steps)",
+    "rib lines carry the skin's torsion shear flow at their station, q = T/(2A), together with the largest pull",
     `one gauge and rivet for every rib: feasible on every rib, ranked with pull-through backed by coupons on every rib first, then by ${input.rankBy === 'buildTime' ? 'build time' : 'weight'}`,
     ...SKIN_RULES,
   ];
@@ -397,7 +482,10 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
       sectionRatio: sectionRatioAt(eta),
       shearFlowLbPerIn,
       rules: [],
-      warnings: eta > 0.95 ? ['Schrenk overstates the lift close to the tip: this rib\'s loads are approximate (conservative)'] : [],
+      warnings:
+        eta > 0.95
+          ? ["Schrenk overstates the lift close to the tip: this rib's loads are approximate (conservative)"]
+          : [],
     };
     let study: RibStudyResult;
     try {
@@ -406,8 +494,22 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
       if (e instanceof EngineeringInputError) throw new EngineeringInputError(e.field, `rib ${r.name}: ${e.reason}`);
       throw e;
     }
-    const { inputs: _i, rules: _r, caution: _c, design: _d, airfoil: _a, outline: _o, conditions: conds, ...rest } = study;
-    void _i; void _r; void _c; void _d; void _a; void _o;
+    const {
+      inputs: _i,
+      rules: _r,
+      caution: _c,
+      design: _d,
+      airfoil: _a,
+      outline: _o,
+      conditions: conds,
+      ...rest
+    } = study;
+    void _i;
+    void _r;
+    void _c;
+    void _d;
+    void _a;
+    void _o;
     return {
       name: r.name,
       stationIn: r.stationIn,
@@ -429,7 +531,10 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
 
   // Skin panels between every two neighbouring ribs, on both surfaces.
   const capArea = input.spars.capAreaSqIn ?? 0;
-  if (input.spars.capAreaSqIn === undefined) warnings.push('spar-cap area not given: the skin alone is taken to carry the bending (conservative for the skin, not for the caps)');
+  if (input.spars.capAreaSqIn === undefined)
+    warnings.push(
+      'spar-cap area not given: the skin alone is taken to carry the bending (conservative for the skin, not for the caps)',
+    );
   const skins: SkinPanelResult[] = [];
   let skinSchedules = 0;
   // Each rib's pressures, made once: an inner rib bounds the bay on each side of it.
@@ -440,16 +545,51 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
     const ribPressures = [pressuresAtRib[i], pressuresAtRib[i + 1]];
     for (const surface of ['upper', 'lower'] as const) {
       // Positive bending (lift up) compresses the upper skin; negative, the lower.
-      const compressionMomentInLb = Math.max(0, ...inner.map((l) => (surface === 'upper' ? l.bendingInLb : -l.bendingInLb)));
+      const compressionMomentInLb = Math.max(
+        0,
+        ...inner.map((l) => (surface === 'upper' ? l.bendingInLb : -l.bendingInLb)),
+      );
       const pullAt = (xc: number, width: number) =>
-        Math.max(0, ...ribPressures.flatMap((conds) => loadEnvelope([xc], conds.map((c) => ({ id: c.id, qPsi: c.qPsi, cpAt: (x: number) => cpOnSurface(c.cp, surface, x) })), input.rib.internalCp ?? 0, width)[0].limitLbPerIn));
+        Math.max(
+          0,
+          ...ribPressures.flatMap(
+            (conds) =>
+              loadEnvelope(
+                [xc],
+                conds.map((c) => ({ id: c.id, qPsi: c.qPsi, cpAt: (x: number) => cpOnSurface(c.cp, surface, x) })),
+                input.rib.internalCp ?? 0,
+                width,
+              )[0].limitLbPerIn,
+          ),
+        );
       const widthIn = stations[i + 1] - stations[i];
       const shortSide = Math.min(widthIn, box.width * chord);
       const ribLine = (k: number) => {
         const c = ribInputs[k].rib.chordIn;
-        const st = lineStations(ctx.geometry, { name: 'skin', surface, startXc: input.spars.frontXc, endXc: input.spars.rearXc }, c, STATION_STEP_IN);
-        const env = loadEnvelope(st.map((s) => s.xc), ribPressures[k - i].map((cd) => ({ id: cd.id, qPsi: cd.qPsi, cpAt: (x: number) => cpOnSurface(cd.cp, surface, x) })), input.rib.internalCp ?? 0, ribInputs[k].rib.spacingIn);
-        return st.map((s, j) => ({ stationIn: s.stationIn, alongIn: s.alongIn, limitTensionLbPerIn: env[j].limitLbPerIn, limitShearLbPerIn: 0, xIn: s.xIn, yIn: s.yIn }));
+        const st = lineStations(
+          ctx.geometry,
+          { name: 'skin', surface, startXc: input.spars.frontXc, endXc: input.spars.rearXc },
+          c,
+          STATION_STEP_IN,
+        );
+        const env = loadEnvelope(
+          st.map((s) => s.xc),
+          ribPressures[k - i].map((cd) => ({
+            id: cd.id,
+            qPsi: cd.qPsi,
+            cpAt: (x: number) => cpOnSurface(cd.cp, surface, x),
+          })),
+          input.rib.internalCp ?? 0,
+          ribInputs[k].rib.spacingIn,
+        );
+        return st.map((s, j) => ({
+          stationIn: s.stationIn,
+          alongIn: s.alongIn,
+          limitTensionLbPerIn: env[j].limitLbPerIn,
+          limitShearLbPerIn: 0,
+          xIn: s.xIn,
+          yIn: s.yIn,
+        }));
       };
       const spec: SkinPanelSpec = {
         name: `${input.ribs[i].name}–${input.ribs[i + 1].name} ${surface}`,
@@ -465,20 +605,34 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
         torqueInLb: Math.max(...inner.map((l) => Math.abs(l.torqueInLb))),
         shearLb: Math.max(...inner.map((l) => Math.abs(l.shearLb))),
         compressionMomentInLb,
-        sparPullLbPerIn: { front: pullAt(input.spars.frontXc, shortSide / 2), rear: pullAt(input.spars.rearXc, shortSide / 2) },
+        sparPullLbPerIn: {
+          front: pullAt(input.spars.frontXc, shortSide / 2),
+          rear: pullAt(input.spars.rearXc, shortSide / 2),
+        },
         ribLines: { inner: ribLine(i), outer: ribLine(i + 1) },
       };
       try {
         skins.push(
           skinPanelStudy(spec, {
-            material: input.material, gaugeCandidates: input.skin.gaugeCandidates, rivetCandidates: input.skin.rivetCandidates,
-            maxPitchDiameters: input.maxPitchDiameters, pitchIncrementIn: input.pitchIncrementIn, maxZones: input.maxZones,
-            minutesPerHole: input.minutesPerHole, coupons: input.coupons, pullThroughFallbackFraction: input.pullThroughFallbackFraction,
-            materialData: input.materialData, rivetData: input.rivetData,
+            material: input.material,
+            gaugeCandidates: input.skin.gaugeCandidates,
+            rivetCandidates: input.skin.rivetCandidates,
+            maxPitchDiameters: input.maxPitchDiameters,
+            pitchIncrementIn: input.pitchIncrementIn,
+            maxZones: input.maxZones,
+            minutesPerHole: input.minutesPerHole,
+            coupons: input.coupons,
+            pullThroughFallbackFraction: input.pullThroughFallbackFraction,
+            materialData: input.materialData,
+            rivetData: input.rivetData,
           }),
         );
       } catch (e) {
-        if (e instanceof EngineeringInputError) throw new EngineeringInputError(e.field.startsWith('panel.') ? 'skin.gaugeCandidates' : e.field, `skin panel ${spec.name}: ${e.reason}`);
+        if (e instanceof EngineeringInputError)
+          throw new EngineeringInputError(
+            e.field.startsWith('panel.') ? 'skin.gaugeCandidates' : e.field,
+            `skin panel ${spec.name}: ${e.reason}`,
+          );
         throw e;
       }
       skinSchedules += input.skin.gaugeCandidates.length * input.skin.rivetCandidates.length * 4;
@@ -493,26 +647,57 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
   // What is kept of each rib's candidates: see WingRib.study.
   for (const rib of ribs) {
     rib.study.candidates = rib.study.candidates.map((c) =>
-      c.holesStored || sameKey(c, trade.recommendedUniform) ? withoutHoles(c) : { ...c, holesStored: false, warnings: [], lines: [] },
+      c.holesStored || sameKey(c, trade.recommendedUniform)
+        ? withoutHoles(c)
+        : { ...c, holesStored: false, warnings: [], lines: [] },
     );
   }
   const totalWork = works.reduce(
-    (t, w) => ({ stations: t.stations + w.stations, conditions: w.conditions, candidates: t.candidates + w.candidates, pitchGrid: Math.max(t.pitchGrid, w.pitchGrid), gridCells: t.gridCells + w.gridCells, stationChecks: t.stationChecks + w.stationChecks, holes: t.holes + w.holes }),
+    (t, w) => ({
+      stations: t.stations + w.stations,
+      conditions: w.conditions,
+      candidates: t.candidates + w.candidates,
+      pitchGrid: Math.max(t.pitchGrid, w.pitchGrid),
+      gridCells: t.gridCells + w.gridCells,
+      stationChecks: t.stationChecks + w.stationChecks,
+      holes: t.holes + w.holes,
+    }),
     { stations: 0, conditions: 0, candidates: 0, pitchGrid: 0, gridCells: 0, stationChecks: 0, holes: 0 },
   );
   const { design } = ctx;
   return {
     ...envelope(input, [...new Set(rules)], [...new Set(warnings)]),
     kind: 'wing',
-    design: roundStored({ wingLoadingPsf: design.wingLoadingPsf, loadFactors: design.loadFactors, speeds: design.speeds, gust: design.gust }),
+    design: roundStored({
+      wingLoadingPsf: design.wingLoadingPsf,
+      loadFactors: design.loadFactors,
+      speeds: design.speeds,
+      gust: design.gust,
+    }),
     planform: roundStored(planform),
-    tail: roundStored({ armIn: input.tail.armIn, estimated: tailEstimated, balancingLoadLb: oneGTail, cmAc: moment.cmAc }),
-    airfoil: roundStored({ name: ctx.geometry.name, panels: input.panels ?? 160, trailingEdgeGap: ctx.geometry.trailingEdgeGap }),
+    tail: roundStored({
+      armIn: input.tail.armIn,
+      estimated: tailEstimated,
+      balancingLoadLb: oneGTail,
+      cmAc: moment.cmAc,
+    }),
+    airfoil: roundStored({
+      name: ctx.geometry.name,
+      panels: input.panels ?? 160,
+      trailingEdgeGap: ctx.geometry.trailingEdgeGap,
+    }),
     outline: { chordIn: 1, points: compactNumbers(ctx.geometry.points, 5) },
     conditions: roundStored(conditions),
     ribs: roundStored(ribs),
     // A panel keeps its recommended candidate whole; the others as their verdicts and figures.
-    skins: compactNumbers(skins.map((s) => ({ ...s, candidates: s.candidates.map((c) => (sameKey(c, s.recommended) ? withoutHoles(c) : { ...c, warnings: [], lines: [] })) }))),
+    skins: compactNumbers(
+      skins.map((s) => ({
+        ...s,
+        candidates: s.candidates.map((c) =>
+          sameKey(c, s.recommended) ? withoutHoles(c) : { ...c, warnings: [], lines: [] },
+        ),
+      })),
+    ),
     trade: roundStored(trade),
     work: { ...totalWork, ribs: ribs.length, skinPanels: skins.length, skinSchedules },
   };
@@ -526,7 +711,8 @@ function withoutHoles<T extends { lines: { holes: unknown[] }[] }>(c: T): T & { 
   return { ...c, holesStored: false, lines: c.lines.map((l) => ({ ...l, holes: [] })) };
 }
 
-const sameKey = (a: { gaugeIn: number; rivet: string }, b: { gaugeIn: number; rivet: string } | null) => !!b && a.gaugeIn === b.gaugeIn && a.rivet === b.rivet;
+const sameKey = (a: { gaugeIn: number; rivet: string }, b: { gaugeIn: number; rivet: string } | null) =>
+  !!b && a.gaugeIn === b.gaugeIn && a.rivet === b.rivet;
 
 /**
  * One gauge and rivet on every rib, against each rib with its own recommendation. Ranked as a rib's trade
@@ -540,7 +726,9 @@ function wingTrade(ribs: WingRib[], rankBy: RankBy): WingStudyResult['trade'] {
     return {
       ...k,
       feasible: infeasibleRibs.length === 0,
-      pullThroughBasis: rows.every((t) => t.pullThroughBasis === 'coupons') ? ('coupons' as const) : ('fallback' as const),
+      pullThroughBasis: rows.every((t) => t.pullThroughBasis === 'coupons')
+        ? ('coupons' as const)
+        : ('fallback' as const),
       infeasibleRibs,
       rivetCount: rows.reduce((n, t) => n + t.rivetCount, 0),
       weightLb: rows.reduce((n, t) => n + t.totalWeightLb, 0),
@@ -549,14 +737,21 @@ function wingTrade(ribs: WingRib[], rankBy: RankBy): WingStudyResult['trade'] {
     };
   });
   const tested = (u: WingTradeRow) => (u.pullThroughBasis === 'coupons' ? 0 : 1);
-  const order = rankBy === 'weight'
-    ? (a: WingTradeRow, b: WingTradeRow) => a.weightLb - b.weightLb || a.buildMinutes - b.buildMinutes
-    : (a: WingTradeRow, b: WingTradeRow) => a.buildMinutes - b.buildMinutes || a.weightLb - b.weightLb;
+  const order =
+    rankBy === 'weight'
+      ? (a: WingTradeRow, b: WingTradeRow) => a.weightLb - b.weightLb || a.buildMinutes - b.buildMinutes
+      : (a: WingTradeRow, b: WingTradeRow) => a.buildMinutes - b.buildMinutes || a.weightLb - b.weightLb;
   const ranked = uniform.filter((u) => u.feasible).sort((a, b) => tested(a) - tested(b) || order(a, b));
   ranked.forEach((u, i) => (u.rank = i + 1));
   uniform.sort((a, b) => (a.rank ?? Infinity) - (b.rank ?? Infinity) || a.weightLb - b.weightLb);
-  const choices = ribs.map((r) => ({ rib: r.name, gaugeIn: r.study.recommended?.gaugeIn ?? NaN, rivet: r.study.recommended?.rivet ?? '' }));
-  const chosenRows = ribs.map((r) => (r.study.recommended ? r.study.trade.find((t) => sameKey(t, r.study.recommended)) : undefined));
+  const choices = ribs.map((r) => ({
+    rib: r.name,
+    gaugeIn: r.study.recommended?.gaugeIn ?? NaN,
+    rivet: r.study.recommended?.rivet ?? '',
+  }));
+  const chosenRows = ribs.map((r) =>
+    r.study.recommended ? r.study.trade.find((t) => sameKey(t, r.study.recommended)) : undefined,
+  );
   const feasible = chosenRows.every((t) => t !== undefined);
   return {
     uniform,
@@ -570,4 +765,3 @@ function wingTrade(ribs: WingRib[], rankBy: RankBy): WingStudyResult['trade'] {
     recommendedUniform: ranked.length ? { gaugeIn: ranked[0].gaugeIn, rivet: ranked[0].rivet } : null,
   };
 }
-

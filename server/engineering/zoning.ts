@@ -124,14 +124,23 @@ function tightestPitch(zones: Zone[], a: number, b: number, floor: number): numb
  * shorter than the minimum pitch is evened out with as few of the gaps before it as will do, or else left
  * as a longer end distance. Refuses (field "zones") a line that would take more than `maxHoles` holes.
  */
-export function placeHoles(zones: Zone[], start: number, end: number, minPitch: number, maxHoles = MAX_LINE_HOLES): { positions: number[]; note: string | null } {
+export function placeHoles(
+  zones: Zone[],
+  start: number,
+  end: number,
+  minPitch: number,
+  maxHoles = MAX_LINE_HOLES,
+): { positions: number[]; note: string | null } {
   if (end < start - EPS) return { positions: [], note: null };
   if (end - start < minPitch - EPS) return { positions: [(start + end) / 2], note: null };
   // A zero or negative minimum would let a step stand still: the loop below must always advance.
   const floor = Math.max(minPitch, EPS);
   const estimate = estimateHoles(zones, start, end, floor);
   if (estimate > maxHoles) {
-    throw new EngineeringInputError('zones', `these zones would place about ${estimate.toLocaleString('en-US')} holes on one line; at most ${maxHoles.toLocaleString('en-US')}`);
+    throw new EngineeringInputError(
+      'zones',
+      `these zones would place about ${estimate.toLocaleString('en-US')} holes on one line; at most ${maxHoles.toLocaleString('en-US')}`,
+    );
   }
   const positions = [start];
   let note: string | null = null;
@@ -168,5 +177,8 @@ export function placeHoles(zones: Zone[], start: number, end: number, minPitch: 
     note = `the last hole sits ${rest.toFixed(3)} in further from the line end than the edge distance, to keep the ${minPitch.toFixed(3)} in minimum pitch`;
     return { positions, note };
   }
-  throw new EngineeringInputError('zones', `these zones place more than ${maxHoles.toLocaleString('en-US')} holes on one line`);
+  throw new EngineeringInputError(
+    'zones',
+    `these zones place more than ${maxHoles.toLocaleString('en-US')} holes on one line`,
+  );
 }

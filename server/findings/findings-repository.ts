@@ -1,7 +1,17 @@
 import { and, asc, desc, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
 import {
-  buildMembers, builds, designRevisions, findingEvents, findingPhotos, findings, holes, partDesigns, travelerEvents, travelers, users,
+  buildMembers,
+  builds,
+  designRevisions,
+  findingEvents,
+  findingPhotos,
+  findings,
+  holes,
+  partDesigns,
+  travelerEvents,
+  travelers,
+  users,
 } from '../../db/schema';
 import { openFindingStatuses, type FindingStatus, type HoleStatus, type MailAudience } from '../../db/contracts';
 import { visibleBuilds } from '../builds/build-access';
@@ -28,22 +38,51 @@ export async function listFindingRows(db: Db, user: Express.User, filter: Findin
   if (filter.buildId) conditions.push(eq(travelers.buildId, filter.buildId));
   const byStatus = statusCondition(filter.status);
   if (byStatus) conditions.push(byStatus);
-  const rows = await db.select({
-    id: findings.id, travelerId: findings.travelerId, serial: travelers.serial, partNumber: partDesigns.partNumber,
-    kitSerial: builds.kitSerial, buildId: builds.id, holeIds: findings.holeIds, kind: findings.kind, status: findings.status,
-    disposition: findings.disposition, closure: findings.closure, raisedByName: users.name, createdAt: findings.createdAt,
-    updatedAt: findings.updatedAt, note: findings.note, dispositionNote: findings.dispositionNote, measurements: findings.measurements,
-    repair: findings.repair, workReportedAt: findings.workReportedAt,
-    signedOffAt: travelers.signedOffAt, replacedById: travelers.replacedById,
-  }).from(findings)
+  const rows = await db
+    .select({
+      id: findings.id,
+      travelerId: findings.travelerId,
+      serial: travelers.serial,
+      partNumber: partDesigns.partNumber,
+      kitSerial: builds.kitSerial,
+      buildId: builds.id,
+      holeIds: findings.holeIds,
+      kind: findings.kind,
+      status: findings.status,
+      disposition: findings.disposition,
+      closure: findings.closure,
+      raisedByName: users.name,
+      createdAt: findings.createdAt,
+      updatedAt: findings.updatedAt,
+      note: findings.note,
+      dispositionNote: findings.dispositionNote,
+      measurements: findings.measurements,
+      repair: findings.repair,
+      workReportedAt: findings.workReportedAt,
+      signedOffAt: travelers.signedOffAt,
+      replacedById: travelers.replacedById,
+    })
+    .from(findings)
     .innerJoin(travelers, eq(travelers.id, findings.travelerId))
     .innerJoin(builds, eq(builds.id, travelers.buildId))
     .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
     .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
     .innerJoin(users, eq(users.id, findings.raisedBy))
-    .where(and(...conditions)).orderBy(desc(findings.createdAt));
-  const photos = rows.length === 0 ? [] : await db.select().from(findingPhotos)
-    .where(inArray(findingPhotos.findingId, rows.map((r) => r.id))).orderBy(asc(findingPhotos.createdAt), asc(findingPhotos.id));
+    .where(and(...conditions))
+    .orderBy(desc(findings.createdAt));
+  const photos =
+    rows.length === 0
+      ? []
+      : await db
+          .select()
+          .from(findingPhotos)
+          .where(
+            inArray(
+              findingPhotos.findingId,
+              rows.map((r) => r.id),
+            ),
+          )
+          .orderBy(asc(findingPhotos.createdAt), asc(findingPhotos.id));
   return rows.map((r) => ({ ...r, photos: photos.filter((p) => p.findingId === r.id) }));
 }
 export type FindingRow = Awaited<ReturnType<typeof listFindingRows>>[number];
@@ -58,29 +97,58 @@ export type FindingOrder = 'newest' | 'oldest';
  * `after` is [created_at as PostgreSQL's text, id] of the last row shown; `limit` null reads every row (one traveler's).
  */
 export async function listFindingPage(
-  db: Db, user: Express.User, filter: Omit<FindingFilter, 'id'>, order: FindingOrder, after: readonly [string, string] | null, limit: number | null,
+  db: Db,
+  user: Express.User,
+  filter: Omit<FindingFilter, 'id'>,
+  order: FindingOrder,
+  after: readonly [string, string] | null,
+  limit: number | null,
 ) {
   const { shape: viewerShape, viewer, params } = viewerAsParams(user);
   // Every part of the SQL that a request can change, spelled out: the statement is prepared once per shape.
   const shape = [
-    viewerShape, filter.travelerId ? 't' : '', filter.buildId ? 'b' : '', filter.status === 'open' ? 'o' : filter.status ? 's' : '',
-    order === 'oldest' ? 'a' : 'd', after ? 'k' : '', limit === null ? '' : 'l',
+    viewerShape,
+    filter.travelerId ? 't' : '',
+    filter.buildId ? 'b' : '',
+    filter.status === 'open' ? 'o' : filter.status ? 's' : '',
+    order === 'oldest' ? 'a' : 'd',
+    after ? 'k' : '',
+    limit === null ? '' : 'l',
   ].join('');
-  const statement = preparedFor(db, `finding_page_${shape}`, (name) => findingPageQuery(db, viewer, {
-    travelerId: !!filter.travelerId, buildId: !!filter.buildId, status: filter.status === 'open' ? 'open' : filter.status ? 'one' : null,
-    order, after: !!after, limit: limit !== null,
-  }).prepare(name));
+  const statement = preparedFor(db, `finding_page_${shape}`, (name) =>
+    findingPageQuery(db, viewer, {
+      travelerId: !!filter.travelerId,
+      buildId: !!filter.buildId,
+      status: filter.status === 'open' ? 'open' : filter.status ? 'one' : null,
+      order,
+      after: !!after,
+      limit: limit !== null,
+    }).prepare(name),
+  );
   return statement.execute({
-    ...params, travelerId: filter.travelerId, buildId: filter.buildId, status: filter.status,
-    afterAt: after?.[0], afterId: after?.[1], limit: limit === null ? undefined : limit + 1,
+    ...params,
+    travelerId: filter.travelerId,
+    buildId: filter.buildId,
+    status: filter.status,
+    afterAt: after?.[0],
+    afterId: after?.[1],
+    limit: limit === null ? undefined : limit + 1,
   });
 }
 export type FindingPageRow = Awaited<ReturnType<typeof listFindingPage>>[number];
 
 /** The page's statement for one shape: which filters it has (their values are placeholders), its order, keyset and limit. */
 function findingPageQuery(
-  db: Db, user: Viewer,
-  has: { travelerId: boolean; buildId: boolean; status: 'open' | 'one' | null; order: FindingOrder; after: boolean; limit: boolean },
+  db: Db,
+  user: Viewer,
+  has: {
+    travelerId: boolean;
+    buildId: boolean;
+    status: 'open' | 'one' | null;
+    order: FindingOrder;
+    after: boolean;
+    limit: boolean;
+  },
 ) {
   const dir = has.order === 'oldest' ? 'asc' : 'desc';
   const by = dir === 'asc' ? asc : desc;
@@ -88,18 +156,37 @@ function findingPageQuery(
     visibleBuilds(db, user),
     has.travelerId ? eq(findings.travelerId, sql.placeholder('travelerId')) : undefined,
     has.buildId ? eq(travelers.buildId, sql.placeholder('buildId')) : undefined,
-    has.status === 'open' ? statusCondition('open') : has.status ? eq(findings.status, sql.placeholder('status')) : undefined,
-    afterKey([findings.createdAt, findings.id], has.after ? [sql.placeholder('afterAt'), sql.placeholder('afterId')] : null, dir),
+    has.status === 'open'
+      ? statusCondition('open')
+      : has.status
+        ? eq(findings.status, sql.placeholder('status'))
+        : undefined,
+    afterKey(
+      [findings.createdAt, findings.id],
+      has.after ? [sql.placeholder('afterAt'), sql.placeholder('afterId')] : null,
+      dir,
+    ),
   ];
   // The page's rows carry every column the list shows from findings, travelers and builds: those rows are
   // read by then, and joining findings again by id would let the planner scan the whole table to do it.
-  const keys = db.select({
-    at: sql<string>`${findings.createdAt}::text`.as('at'),
-    id: findings.id, travelerId: findings.travelerId, holeIds: findings.holeIds, kind: findings.kind, status: findings.status,
-    disposition: findings.disposition, closure: findings.closure, raisedBy: findings.raisedBy,
-    createdAt: findings.createdAt, updatedAt: findings.updatedAt,
-    serial: travelers.serial, revisionId: travelers.revisionId, buildId: travelers.buildId, kitSerial: builds.kitSerial,
-  })
+  const keys = db
+    .select({
+      at: sql<string>`${findings.createdAt}::text`.as('at'),
+      id: findings.id,
+      travelerId: findings.travelerId,
+      holeIds: findings.holeIds,
+      kind: findings.kind,
+      status: findings.status,
+      disposition: findings.disposition,
+      closure: findings.closure,
+      raisedBy: findings.raisedBy,
+      createdAt: findings.createdAt,
+      updatedAt: findings.updatedAt,
+      serial: travelers.serial,
+      revisionId: travelers.revisionId,
+      buildId: travelers.buildId,
+      kitSerial: builds.kitSerial,
+    })
     .from(findings)
     .innerJoin(travelers, eq(travelers.id, findings.travelerId))
     .innerJoin(builds, eq(builds.id, travelers.buildId))
@@ -107,17 +194,39 @@ function findingPageQuery(
     .orderBy(by(findings.createdAt), by(findings.id))
     .$dynamic();
   const page = (has.limit ? keys.limit(sql.placeholder('limit')) : keys).as('page');
-  const photos = db.select({
-    count: sql<number>`count(*)::int`.as('photo_count'),
-    firstId: sql<string | null>`(array_agg(${findingPhotos.id} order by ${findingPhotos.createdAt}, ${findingPhotos.id}))[1]`.as('first_photo_id'),
-  }).from(findingPhotos).where(eq(findingPhotos.findingId, page.id)).as('photos');
-  return db.select({
-    at: page.at,
-    id: page.id, travelerId: page.travelerId, serial: page.serial, partNumber: partDesigns.partNumber,
-    kitSerial: page.kitSerial, buildId: page.buildId, holeIds: page.holeIds, kind: page.kind, status: page.status,
-    disposition: page.disposition, closure: page.closure, raisedByName: users.name, createdAt: page.createdAt,
-    updatedAt: page.updatedAt, photoCount: photos.count, firstPhotoId: photos.firstId,
-  }).from(page)
+  const photos = db
+    .select({
+      count: sql<number>`count(*)::int`.as('photo_count'),
+      firstId: sql<
+        string | null
+      >`(array_agg(${findingPhotos.id} order by ${findingPhotos.createdAt}, ${findingPhotos.id}))[1]`.as(
+        'first_photo_id',
+      ),
+    })
+    .from(findingPhotos)
+    .where(eq(findingPhotos.findingId, page.id))
+    .as('photos');
+  return db
+    .select({
+      at: page.at,
+      id: page.id,
+      travelerId: page.travelerId,
+      serial: page.serial,
+      partNumber: partDesigns.partNumber,
+      kitSerial: page.kitSerial,
+      buildId: page.buildId,
+      holeIds: page.holeIds,
+      kind: page.kind,
+      status: page.status,
+      disposition: page.disposition,
+      closure: page.closure,
+      raisedByName: users.name,
+      createdAt: page.createdAt,
+      updatedAt: page.updatedAt,
+      photoCount: photos.count,
+      firstPhotoId: photos.firstId,
+    })
+    .from(page)
     .innerJoin(designRevisions, eq(designRevisions.id, page.revisionId))
     .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
     .innerJoin(users, eq(users.id, page.raisedBy))
@@ -126,12 +235,22 @@ function findingPageQuery(
 }
 
 export const listEvents = (db: Db, findingId: string) =>
-  db.select({
-    id: findingEvents.id, action: findingEvents.action, actorName: users.name, actorPlace: findingEvents.actorPlace,
-    fromStatus: findingEvents.fromStatus, toStatus: findingEvents.toStatus,
-    disposition: findingEvents.disposition, note: findingEvents.note, createdAt: findingEvents.createdAt,
-  }).from(findingEvents).innerJoin(users, eq(users.id, findingEvents.actorId))
-    .where(eq(findingEvents.findingId, findingId)).orderBy(asc(findingEvents.createdAt));
+  db
+    .select({
+      id: findingEvents.id,
+      action: findingEvents.action,
+      actorName: users.name,
+      actorPlace: findingEvents.actorPlace,
+      fromStatus: findingEvents.fromStatus,
+      toStatus: findingEvents.toStatus,
+      disposition: findingEvents.disposition,
+      note: findingEvents.note,
+      createdAt: findingEvents.createdAt,
+    })
+    .from(findingEvents)
+    .innerJoin(users, eq(users.id, findingEvents.actorId))
+    .where(eq(findingEvents.findingId, findingId))
+    .orderBy(asc(findingEvents.createdAt));
 
 /** The finding as it stands now, read inside the unit of work that holds its traveler's lock. */
 export async function findFinding(tx: Db, id: string) {
@@ -140,16 +259,27 @@ export async function findFinding(tx: Db, id: string) {
 }
 
 export const openFindingsOf = (tx: Db, travelerId: string) =>
-  tx.select().from(findings).where(and(eq(findings.travelerId, travelerId), inArray(findings.status, [...openFindingStatuses])));
+  tx
+    .select()
+    .from(findings)
+    .where(and(eq(findings.travelerId, travelerId), inArray(findings.status, [...openFindingStatuses])));
 
 export const holesOf = (tx: Db, travelerId: string, holeIds?: string[]) =>
-  tx.select().from(holes)
-    .where(holeIds ? and(eq(holes.travelerId, travelerId), inArray(holes.holeId, holeIds)) : eq(holes.travelerId, travelerId))
+  tx
+    .select()
+    .from(holes)
+    .where(
+      holeIds
+        ? and(eq(holes.travelerId, travelerId), inArray(holes.holeId, holeIds))
+        : eq(holes.travelerId, travelerId),
+    )
     .orderBy(asc(holes.line), asc(holes.seq));
 
 export async function setHoleStatus(tx: Db, travelerId: string, holeIds: string[], status: HoleStatus, userId: string) {
   if (!holeIds.length) return;
-  await tx.update(holes).set({ status, updatedBy: userId, updatedAt: new Date() })
+  await tx
+    .update(holes)
+    .set({ status, updatedBy: userId, updatedAt: new Date() })
     .where(and(eq(holes.travelerId, travelerId), inArray(holes.holeId, holeIds)));
 }
 
@@ -159,7 +289,10 @@ export async function insertFinding(tx: Db, values: typeof findings.$inferInsert
 }
 
 export async function updateFinding(tx: Db, id: string, values: Partial<typeof findings.$inferInsert>) {
-  await tx.update(findings).set({ ...values, updatedAt: new Date() }).where(eq(findings.id, id));
+  await tx
+    .update(findings)
+    .set({ ...values, updatedAt: new Date() })
+    .where(eq(findings.id, id));
 }
 
 export async function insertFindingEvent(tx: Db, values: typeof findingEvents.$inferInsert) {
@@ -171,27 +304,55 @@ export async function insertFindingPhotos(tx: Db, values: (typeof findingPhotos.
   if (values.length) await tx.insert(findingPhotos).values(values);
 }
 
-export async function markTravelerReplaced(tx: Db, oldId: string, newId: string, reason: 'scrap' | 'return_to_supplier', actorId: string, newSerial: string) {
-  await tx.update(travelers).set({ replacedById: newId, replacedAt: new Date(), replacedReason: reason }).where(eq(travelers.id, oldId));
-  await tx.insert(travelerEvents).values({ travelerId: oldId, actorId, kind: 'part_replaced', detail: { reason, replacementSerial: newSerial } });
+export async function markTravelerReplaced(
+  tx: Db,
+  oldId: string,
+  newId: string,
+  reason: 'scrap' | 'return_to_supplier',
+  actorId: string,
+  newSerial: string,
+) {
+  await tx
+    .update(travelers)
+    .set({ replacedById: newId, replacedAt: new Date(), replacedReason: reason })
+    .where(eq(travelers.id, oldId));
+  await tx
+    .insert(travelerEvents)
+    .values({ travelerId: oldId, actorId, kind: 'part_replaced', detail: { reason, replacementSerial: newSerial } });
 }
 
 export async function findTravelerBrief(db: Db, id: string) {
-  const [t] = await db.select({ id: travelers.id, serial: travelers.serial }).from(travelers).where(eq(travelers.id, id));
+  const [t] = await db
+    .select({ id: travelers.id, serial: travelers.serial })
+    .from(travelers)
+    .where(eq(travelers.id, id));
   return t ?? null;
 }
 
 /** The e-mail addresses behind each audience of a build, less the person who acted. */
-export async function recipientsOf(db: Db, buildId: string, audiences: MailAudience[], exceptUserId: string): Promise<string[]> {
+export async function recipientsOf(
+  db: Db,
+  buildId: string,
+  audiences: MailAudience[],
+  exceptUserId: string,
+): Promise<string[]> {
   const out = new Set<string>();
-  const memberRoles = audiences.flatMap((a) => (a === 'builders' ? ['builder' as const] : a === 'inspectors' ? ['inspector' as const] : []));
+  const memberRoles = audiences.flatMap((a) =>
+    a === 'builders' ? ['builder' as const] : a === 'inspectors' ? ['inspector' as const] : [],
+  );
   if (memberRoles.length) {
-    const rows = await db.select({ id: users.id, email: users.email }).from(buildMembers).innerJoin(users, eq(users.id, buildMembers.userId))
+    const rows = await db
+      .select({ id: users.id, email: users.email })
+      .from(buildMembers)
+      .innerJoin(users, eq(users.id, buildMembers.userId))
       .where(and(eq(buildMembers.buildId, buildId), inArray(buildMembers.role, memberRoles)));
     for (const r of rows) if (r.id !== exceptUserId) out.add(r.email);
   }
   if (audiences.includes('design_authority')) {
-    const rows = await db.select({ id: users.id, email: users.email }).from(users).innerJoin(builds, eq(builds.organizationId, users.organizationId))
+    const rows = await db
+      .select({ id: users.id, email: users.email })
+      .from(users)
+      .innerJoin(builds, eq(builds.organizationId, users.organizationId))
       .where(and(eq(builds.id, buildId), eq(users.role, 'supplier')));
     for (const r of rows) if (r.id !== exceptUserId) out.add(r.email);
   }

@@ -19,7 +19,14 @@ export function findingMailWorker(deps: { db: Db; mailer: Mailer; storage: Photo
     // An account mail goes to its one person as written.
     if ('message' in job) return mailer.send(job.message);
     const { eventId } = job;
-    const [row] = await db.select({ event: findingEvents, finding: findings, actorName: users.name, buildId: travelers.buildId, kitSerial: builds.kitSerial })
+    const [row] = await db
+      .select({
+        event: findingEvents,
+        finding: findings,
+        actorName: users.name,
+        buildId: travelers.buildId,
+        kitSerial: builds.kitSerial,
+      })
       .from(findingEvents)
       .innerJoin(findings, eq(findings.id, findingEvents.findingId))
       .innerJoin(users, eq(users.id, findingEvents.actorId))
@@ -27,24 +34,46 @@ export function findingMailWorker(deps: { db: Db; mailer: Mailer; storage: Photo
       .innerJoin(builds, eq(builds.id, travelers.buildId))
       .where(eq(findingEvents.id, eventId));
     if (!row) return; // the finding was deleted since: nothing left to tell anyone
-    const audience = mailAudienceOf(row.event.action, row.event.disposition ?? row.finding.disposition, row.event.actorPlace);
+    const audience = mailAudienceOf(
+      row.event.action,
+      row.event.disposition ?? row.finding.disposition,
+      row.event.actorPlace,
+    );
     if (!audience.length) return;
     const recipients = await recipientsOf(db, row.buildId, audience, row.event.actorId);
     if (!recipients.length) return;
     const parts = (await findTravelerParts(db, row.finding.travelerId))!;
     // The photo that speaks for the event: the work's own for a report of work done, else the hole as found.
-    const photos = await db.select().from(findingPhotos).where(eq(findingPhotos.findingId, row.finding.id)).orderBy(asc(findingPhotos.createdAt));
+    const photos = await db
+      .select()
+      .from(findingPhotos)
+      .where(eq(findingPhotos.findingId, row.finding.id))
+      .orderBy(asc(findingPhotos.createdAt));
     const photo = photos.find((p) => p.eventId === row.event.id) ?? photos.find((p) => p.eventId === null);
     const thumbnail = photo ? await storage.get(photo.thumbKey).catch(() => null) : null;
     const message = findingMail({
-      findingId: row.finding.id, action: row.event.action, toStatus: row.event.toStatus,
-      disposition: row.event.disposition ?? row.finding.disposition, note: row.event.note,
-      actorName: row.actorName, partNumber: parts.design.partNumber, partName: parts.design.name, letter: parts.revision.letter,
-      serial: parts.traveler.serial, kitSerial: row.kitSerial, holeIds: row.finding.holeIds, kind: row.finding.kind,
-      repair: row.finding.repair, link: `${publicUrl}/findings/${row.finding.id}`, thumbnail,
+      findingId: row.finding.id,
+      action: row.event.action,
+      toStatus: row.event.toStatus,
+      disposition: row.event.disposition ?? row.finding.disposition,
+      note: row.event.note,
+      actorName: row.actorName,
+      partNumber: parts.design.partNumber,
+      partName: parts.design.name,
+      letter: parts.revision.letter,
+      serial: parts.traveler.serial,
+      kitSerial: row.kitSerial,
+      holeIds: row.finding.holeIds,
+      kind: row.finding.kind,
+      repair: row.finding.repair,
+      link: `${publicUrl}/findings/${row.finding.id}`,
+      thumbnail,
     });
     for (const email of recipients) {
-      const [already] = await db.select({ id: sentMails.id }).from(sentMails).where(and(eq(sentMails.eventId, eventId), eq(sentMails.recipient, email)));
+      const [already] = await db
+        .select({ id: sentMails.id })
+        .from(sentMails)
+        .where(and(eq(sentMails.eventId, eventId), eq(sentMails.recipient, email)));
       if (already) continue;
       await mailer.send({ to: email, ...message });
       await db.insert(sentMails).values({ eventId, recipient: email, subject: message.subject }).onConflictDoNothing();

@@ -21,20 +21,33 @@ export type MailQueue = {
  * A job queue on PostgreSQL. A mail server that is down makes the job fail and retry with backoff;
  * after the retries it lands on a dead-letter queue, still in the database, never lost.
  */
-export async function startMailQueue(databaseUrl: string, opts: { pollingIntervalSeconds?: number } = {}): Promise<MailQueue> {
+export async function startMailQueue(
+  databaseUrl: string,
+  opts: { pollingIntervalSeconds?: number } = {},
+): Promise<MailQueue> {
   const boss = new PgBoss({ connectionString: databaseUrl, max: 4, schedule: false });
   boss.on('error', (err) => console.error('mail queue error:', err.message));
   await boss.start();
   await boss.createQueue(DEAD_QUEUE);
-  await boss.createQueue(MAIL_QUEUE, { name: MAIL_QUEUE, retryLimit: 12, retryDelay: 5, retryBackoff: true, deadLetter: DEAD_QUEUE });
+  await boss.createQueue(MAIL_QUEUE, {
+    name: MAIL_QUEUE,
+    retryLimit: 12,
+    retryDelay: 5,
+    retryBackoff: true,
+    deadLetter: DEAD_QUEUE,
+  });
   return {
     async enqueue(tx, job) {
       await boss.send(MAIL_QUEUE, job, { db: tx });
     },
     async work(handler) {
-      await boss.work<MailJob>(MAIL_QUEUE, { pollingIntervalSeconds: opts.pollingIntervalSeconds ?? 2, batchSize: 1 }, async (jobs) => {
-        for (const job of jobs) await handler(job.data);
-      });
+      await boss.work<MailJob>(
+        MAIL_QUEUE,
+        { pollingIntervalSeconds: opts.pollingIntervalSeconds ?? 2, batchSize: 1 },
+        async (jobs) => {
+          for (const job of jobs) await handler(job.data);
+        },
+      );
     },
     stop: () => boss.stop({ graceful: true, wait: true, timeout: 5000 }),
   };

@@ -10,7 +10,12 @@ import type { PhotoStorage } from '../storage/photo-storage';
  * behind forever. The grace period keeps files whose transaction may still be running.
  * finding_photos is the only table that keeps storage keys: a new one must be added to the query below.
  */
-export async function sweepOrphanPhotos(deps: { db: Db; storage: PhotoStorage; graceSeconds: number; now?: Date }): Promise<{ examined: number; removed: string[] }> {
+export async function sweepOrphanPhotos(deps: {
+  db: Db;
+  storage: PhotoStorage;
+  graceSeconds: number;
+  now?: Date;
+}): Promise<{ examined: number; removed: string[] }> {
   const cutoff = (deps.now ?? new Date()).getTime() - deps.graceSeconds * 1000;
   const removed: string[] = [];
   let examined = 0;
@@ -19,7 +24,9 @@ export async function sweepOrphanPhotos(deps: { db: Db; storage: PhotoStorage; g
     examined += page.length;
     const old = page.filter((f) => f.modifiedAt.getTime() < cutoff).map((f) => f.key);
     if (old.length === 0) continue;
-    const rows = await deps.db.select({ fileKey: findingPhotos.fileKey, thumbKey: findingPhotos.thumbKey }).from(findingPhotos)
+    const rows = await deps.db
+      .select({ fileKey: findingPhotos.fileKey, thumbKey: findingPhotos.thumbKey })
+      .from(findingPhotos)
       .where(or(inArray(findingPhotos.fileKey, old), inArray(findingPhotos.thumbKey, old)));
     const used = new Set(rows.flatMap((r) => [r.fileKey, r.thumbKey]));
     for (const key of old) {
@@ -32,14 +39,21 @@ export async function sweepOrphanPhotos(deps: { db: Db; storage: PhotoStorage; g
 }
 
 /** Runs the sweep now and then every `intervalSeconds`; `stop()` ends the schedule and waits for a running sweep. */
-export function schedulePhotoSweep(deps: { db: Db; storage: PhotoStorage; graceSeconds: number; intervalSeconds: number; logger: Logger }) {
+export function schedulePhotoSweep(deps: {
+  db: Db;
+  storage: PhotoStorage;
+  graceSeconds: number;
+  intervalSeconds: number;
+  logger: Logger;
+}) {
   let running: Promise<void> = Promise.resolve();
   const run = () => {
     // One at a time: a slow sweep is not overtaken by the next one.
     running = running.then(async () => {
       try {
         const { examined, removed } = await sweepOrphanPhotos(deps);
-        if (removed.length) deps.logger.info({ examined, removed: removed.length }, 'photo sweep removed files no row points to');
+        if (removed.length)
+          deps.logger.info({ examined, removed: removed.length }, 'photo sweep removed files no row points to');
       } catch (err) {
         deps.logger.error({ err }, 'photo sweep failed; it runs again at the next interval');
       }

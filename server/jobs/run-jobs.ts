@@ -19,7 +19,13 @@ export type RunningJobs = {
  * (RUN_JOBS=1, the default) or by `npm run worker` on its own. Several consumers on one database are
  * safe: the queue hands each job to one of them, and each mail is recorded once sent (finding-mail-worker).
  */
-export async function startJobs(deps: { config: Config; db: Db; storage: PhotoStorage; mailQueue: MailQueue; logger: Logger }): Promise<RunningJobs> {
+export async function startJobs(deps: {
+  config: Config;
+  db: Db;
+  storage: PhotoStorage;
+  mailQueue: MailQueue;
+  logger: Logger;
+}): Promise<RunningJobs> {
   const { config, db, storage, mailQueue, logger } = deps;
   const mailer = createMailer(config.smtp);
   await mailQueue.work(findingMailWorker({ db, mailer, storage, publicUrl: config.publicUrl }));

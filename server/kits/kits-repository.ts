@@ -8,18 +8,34 @@ import { builds, designRevisions, kitModelChanges, kitModels, loadStudies, partD
 type Conn = Db | Parameters<Parameters<Db['transaction']>[0]>[0];
 
 /** One page of the organisation's kit models by code (then id; a code is the organisation's own, so ties do not occur). */
-export async function pageKits(db: Db, organizationId: string, q: PageQuery): Promise<Page<typeof kitModels.$inferSelect>> {
+export async function pageKits(
+  db: Db,
+  organizationId: string,
+  q: PageQuery,
+): Promise<Page<typeof kitModels.$inferSelect>> {
   const key = decodeCursor(q.cursor, ['string', 'string']);
-  const rows = await db.select().from(kitModels)
+  const rows = await db
+    .select()
+    .from(kitModels)
     .where(and(eq(kitModels.organizationId, organizationId), afterKey([kitModels.code, kitModels.id], key, 'asc')))
-    .orderBy(asc(kitModels.code), asc(kitModels.id)).limit(q.limit + 1);
+    .orderBy(asc(kitModels.code), asc(kitModels.id))
+    .limit(q.limit + 1);
   return pageOf(rows, q.limit, (k) => [k.code, k.id]);
 }
 
 /** Whether another kit of the organisation has this code (answered from the (organisation, code) index). */
 export async function kitCodeTaken(db: Conn, organizationId: string, code: string, except?: string) {
-  const rows = await db.select({ id: kitModels.id }).from(kitModels)
-    .where(and(eq(kitModels.organizationId, organizationId), eq(kitModels.code, code), except ? ne(kitModels.id, except) : undefined)).limit(1);
+  const rows = await db
+    .select({ id: kitModels.id })
+    .from(kitModels)
+    .where(
+      and(
+        eq(kitModels.organizationId, organizationId),
+        eq(kitModels.code, code),
+        except ? ne(kitModels.id, except) : undefined,
+      ),
+    )
+    .limit(1);
   return rows.length > 0;
 }
 
@@ -45,12 +61,19 @@ export async function lockKit(db: Conn, id: string) {
  */
 export async function kitReliance(db: Conn, id: string, lock = false): Promise<KitReliance> {
   if (lock) {
-    await db.select({ id: designRevisions.id }).from(designRevisions).innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
-      .where(eq(partDesigns.kitModelId, id)).for('update', { of: designRevisions });
+    await db
+      .select({ id: designRevisions.id })
+      .from(designRevisions)
+      .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
+      .where(eq(partDesigns.kitModelId, id))
+      .for('update', { of: designRevisions });
   }
   // One after another: inside a transaction they share one connection.
   const [studies] = await db.select({ n: count() }).from(loadStudies).where(eq(loadStudies.kitModelId, id));
-  const [parts] = await db.select({ n: countDistinct(partDesigns.id) }).from(partDesigns).innerJoin(designRevisions, eq(designRevisions.partDesignId, partDesigns.id))
+  const [parts] = await db
+    .select({ n: countDistinct(partDesigns.id) })
+    .from(partDesigns)
+    .innerJoin(designRevisions, eq(designRevisions.partDesignId, partDesigns.id))
     .where(and(eq(partDesigns.kitModelId, id), inArray(designRevisions.status, ['published', 'superseded'])));
   const [shipped] = await db.select({ n: count() }).from(builds).where(eq(builds.kitModelId, id));
   return { studies: studies.n, publishedParts: parts.n, builds: shipped.n };
@@ -65,11 +88,19 @@ export async function insertKitChange(db: Conn, values: typeof kitModelChanges.$
 }
 
 export const listKitChanges = (db: Db, kitModelId: string) =>
-  db.select({
-    id: kitModelChanges.id, changedByName: users.name, reason: kitModelChanges.reason, before: kitModelChanges.before,
-    after: kitModelChanges.after, createdAt: kitModelChanges.createdAt,
-  }).from(kitModelChanges).innerJoin(users, eq(users.id, kitModelChanges.changedBy))
-    .where(eq(kitModelChanges.kitModelId, kitModelId)).orderBy(desc(kitModelChanges.createdAt));
+  db
+    .select({
+      id: kitModelChanges.id,
+      changedByName: users.name,
+      reason: kitModelChanges.reason,
+      before: kitModelChanges.before,
+      after: kitModelChanges.after,
+      createdAt: kitModelChanges.createdAt,
+    })
+    .from(kitModelChanges)
+    .innerJoin(users, eq(users.id, kitModelChanges.changedBy))
+    .where(eq(kitModelChanges.kitModelId, kitModelId))
+    .orderBy(desc(kitModelChanges.createdAt));
 
 /** The kit with its draft-only part designs (the caller has checked that nothing relies on it). */
 export async function deleteKit(db: Conn, id: string) {

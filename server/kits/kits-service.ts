@@ -1,13 +1,28 @@
 import {
-  allowedKitActions, kitChangeReasonRefusal, kitDeleteRefusal, kitFieldLabels,
-  type KitChangeInput, type KitModelDetail, type KitModelInput, type PageQuery,
+  allowedKitActions,
+  kitChangeReasonRefusal,
+  kitDeleteRefusal,
+  kitFieldLabels,
+  type KitChangeInput,
+  type KitModelDetail,
+  type KitModelInput,
+  type PageQuery,
 } from '../../db/contracts';
 import type { Db } from '../../db';
 import type { kitModels } from '../../db/schema';
 import { organizationOf } from '../auth/organization';
 import { badRequest, conflict, notFound } from '../http-error';
 import {
-  deleteKit, findKit, insertKit, insertKitChange, kitCodeTaken, kitReliance, listKitChanges, lockKit, pageKits, updateKit,
+  deleteKit,
+  findKit,
+  insertKit,
+  insertKitChange,
+  kitCodeTaken,
+  kitReliance,
+  listKitChanges,
+  lockKit,
+  pageKits,
+  updateKit,
 } from './kits-repository';
 
 type KitRow = typeof kitModels.$inferSelect;
@@ -22,7 +37,8 @@ export const kitsService = (db: Db) => {
     return kit;
   }
 
-  const codeClash = (organizationId: string, code: string, except?: string) => kitCodeTaken(db, organizationId, code, except);
+  const codeClash = (organizationId: string, code: string, except?: string) =>
+    kitCodeTaken(db, organizationId, code, except);
   const clashError = (code: string) => conflict(`kit code ${code} is already used`, { code: 'already used' });
 
   return {
@@ -35,7 +51,10 @@ export const kitsService = (db: Db) => {
       const kit = await get(user, id);
       const [reliance, changes] = await Promise.all([kitReliance(db, id), listKitChanges(db, id)]);
       return {
-        ...kit, createdAt: kit.createdAt.toISOString(), reliance, allowedActions: allowedKitActions(reliance),
+        ...kit,
+        createdAt: kit.createdAt.toISOString(),
+        reliance,
+        allowedActions: allowedKitActions(reliance),
         deleteRefusal: kitDeleteRefusal(reliance),
         changes: changes.map((c) => ({ ...c, createdAt: c.createdAt.toISOString() })),
       };
@@ -59,7 +78,8 @@ export const kitsService = (db: Db) => {
         const kit = (await lockKit(tx, id)) as KitRow;
         const changed = editable.filter((f) => kit[f] !== next[f]);
         if (!changed.length) return;
-        if (changed.includes('code') && await codeClash(kit.organizationId, next.code, id)) throw clashError(next.code);
+        if (changed.includes('code') && (await codeClash(kit.organizationId, next.code, id)))
+          throw clashError(next.code);
         const why = kitChangeReasonRefusal(await kitReliance(tx, id), changed, reason);
         if (why) throw badRequest(why, { reason: 'say why the numbers change' });
         const pick = (row: Partial<KitFields>) => Object.fromEntries(changed.map((f) => [f, row[f] ?? null]));

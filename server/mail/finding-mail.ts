@@ -1,12 +1,32 @@
 import {
-  dispositionLabels, findingKindLabels, findingStatusLabels, repairSchemeLabels,
-  type Disposition, type FindingEventAction, type FindingKind, type FindingStatus, type RepairRecord,
+  dispositionLabels,
+  findingKindLabels,
+  findingStatusLabels,
+  repairSchemeLabels,
+  type Disposition,
+  type FindingEventAction,
+  type FindingKind,
+  type FindingStatus,
+  type RepairRecord,
 } from '../../db/contracts';
 
 export type FindingMailFacts = {
-  findingId: string; action: FindingEventAction; toStatus: FindingStatus; disposition: Disposition | null; note: string; actorName: string;
-  partNumber: string; partName: string; letter: string; serial: string; kitSerial: string; holeIds: string[]; kind: FindingKind;
-  repair: RepairRecord | null; link: string; thumbnail: Buffer | null;
+  findingId: string;
+  action: FindingEventAction;
+  toStatus: FindingStatus;
+  disposition: Disposition | null;
+  note: string;
+  actorName: string;
+  partNumber: string;
+  partName: string;
+  letter: string;
+  serial: string;
+  kitSerial: string;
+  holeIds: string[];
+  kind: FindingKind;
+  repair: RepairRecord | null;
+  link: string;
+  thumbnail: Buffer | null;
 };
 
 const esc = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
@@ -15,16 +35,30 @@ const esc = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`)
 function headline(f: FindingMailFacts): string {
   const d = f.disposition ? dispositionLabels[f.disposition] : '';
   switch (f.action) {
-    case 'raise': return `Finding raised: ${findingKindLabels[f.kind]}`;
-    case 'disposition': return f.toStatus === 'awaiting_approval' ? `${d}: your approval as design authority is asked` : `Disposition: ${d}`;
-    case 'amend': return f.toStatus === 'awaiting_approval' ? `Disposition amended to ${d}: your approval is asked` : `Disposition amended: ${d}`;
-    case 'not-a-defect': return 'Not a defect: finding closed';
-    case 'approve': return `${d} approved by the design authority`;
-    case 'refuse': return 'Disposition refused by the design authority: decide again';
-    case 'report-done': return `${d} done: to inspect`;
-    case 'accept': return 'Work accepted: finding closed';
-    case 'send-back': return 'Work sent back: do it again';
-    case 'part-replaced': return findingStatusLabels[f.toStatus];
+    case 'raise':
+      return `Finding raised: ${findingKindLabels[f.kind]}`;
+    case 'disposition':
+      return f.toStatus === 'awaiting_approval'
+        ? `${d}: your approval as design authority is asked`
+        : `Disposition: ${d}`;
+    case 'amend':
+      return f.toStatus === 'awaiting_approval'
+        ? `Disposition amended to ${d}: your approval is asked`
+        : `Disposition amended: ${d}`;
+    case 'not-a-defect':
+      return 'Not a defect: finding closed';
+    case 'approve':
+      return `${d} approved by the design authority`;
+    case 'refuse':
+      return 'Disposition refused by the design authority: decide again';
+    case 'report-done':
+      return `${d} done: to inspect`;
+    case 'accept':
+      return 'Work accepted: finding closed';
+    case 'send-back':
+      return 'Work sent back: do it again';
+    case 'part-replaced':
+      return findingStatusLabels[f.toStatus];
   }
 }
 
@@ -42,10 +76,12 @@ export function findingMail(f: FindingMailFacts) {
   const subject = `[${f.kitSerial}] ${f.partNumber} rev ${f.letter} hole ${holes}: ${what}`;
   const repair = f.repair
     ? [
-      `Repair: ${repairSchemeLabels[f.repair.scheme]}${f.repair.rivetSpec ? ` (${f.repair.rivetSpec})` : ''}`,
-      ...(f.repair.check ? [`Repair check: ${f.repair.check.pass ? 'passes' : `fails: ${f.repair.check.reasons.join('; ')}`}`] : []),
-      ...(f.repair.overrideReason ? [`Chosen anyway because: ${f.repair.overrideReason}`] : []),
-    ]
+        `Repair: ${repairSchemeLabels[f.repair.scheme]}${f.repair.rivetSpec ? ` (${f.repair.rivetSpec})` : ''}`,
+        ...(f.repair.check
+          ? [`Repair check: ${f.repair.check.pass ? 'passes' : `fails: ${f.repair.check.reasons.join('; ')}`}`]
+          : []),
+        ...(f.repair.overrideReason ? [`Chosen anyway because: ${f.repair.overrideReason}`] : []),
+      ]
     : [];
   const lines = [
     what,
@@ -67,8 +103,20 @@ ${f.action === 'disposition' || f.action === 'amend' ? repair.map((l) => `<p>${e
 ${f.thumbnail ? `<p><img src="cid:${esc(cid)}" alt="photo of the hole" width="240"></p>` : ''}
 <p><a href="${esc(f.link)}">Open the finding</a></p></div>`;
   return {
-    subject, text: lines.join('\n'), html,
+    subject,
+    text: lines.join('\n'),
+    html,
     // contentDisposition inline: shown in the text where the HTML names it, not listed as a file to open.
-    attachments: f.thumbnail ? [{ filename: 'hole.jpg', content: f.thumbnail, cid, contentType: 'image/jpeg', contentDisposition: 'inline' as const }] : [],
+    attachments: f.thumbnail
+      ? [
+          {
+            filename: 'hole.jpg',
+            content: f.thumbnail,
+            cid,
+            contentType: 'image/jpeg',
+            contentDisposition: 'inline' as const,
+          },
+        ]
+      : [],
   };
 }

@@ -2,13 +2,26 @@ import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
 
 /** One attached file as it arrived: `cid` is the Content-ID an inline image is named by in the HTML. */
-export type ReceivedPart = { cid: string | null; filename: string | null; contentType: string; disposition: string | null; size: number; content: Buffer };
+export type ReceivedPart = {
+  cid: string | null;
+  filename: string | null;
+  contentType: string;
+  disposition: string | null;
+  size: number;
+  content: Buffer;
+};
 
 export type ReceivedMail = {
-  id: number; from: string; to: string[]; subject: string; text: string;
+  id: number;
+  from: string;
+  to: string[];
+  subject: string;
+  text: string;
   /** The HTML as sent: inline images stay `cid:` links, as a mail client receives them. */
   html: string;
-  attachments: number; parts: ReceivedPart[]; receivedAt: string;
+  attachments: number;
+  parts: ReceivedPart[];
+  receivedAt: string;
 };
 export type SmtpFake = { port: number; messages: ReceivedMail[]; close: () => Promise<void> };
 
@@ -25,20 +38,31 @@ export async function startSmtpFake(port: number, host = '127.0.0.1'): Promise<S
     onData(stream, session, callback) {
       // keepCidLinks: by default the parser rewrites each cid: link into a data: URL, which showed the
       // mail as carrying its photo inline when it does not.
-      simpleParser(stream, { keepCidLinks: true }).then((mail) => {
-        const to = session.envelope.rcptTo.map((r) => r.address);
-        messages.push({
-          id: messages.length + 1, from: session.envelope.mailFrom ? session.envelope.mailFrom.address : '', to,
-          subject: mail.subject ?? '', text: mail.text ?? '', html: typeof mail.html === 'string' ? mail.html : '',
-          attachments: mail.attachments.length,
-          parts: mail.attachments.map((a) => ({
-            cid: a.cid ?? null, filename: a.filename ?? null, contentType: a.contentType,
-            disposition: a.contentDisposition ?? null, size: a.size, content: a.content,
-          })),
-          receivedAt: new Date().toISOString(),
-        });
-        callback();
-      }, (err) => callback(err));
+      simpleParser(stream, { keepCidLinks: true }).then(
+        (mail) => {
+          const to = session.envelope.rcptTo.map((r) => r.address);
+          messages.push({
+            id: messages.length + 1,
+            from: session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
+            to,
+            subject: mail.subject ?? '',
+            text: mail.text ?? '',
+            html: typeof mail.html === 'string' ? mail.html : '',
+            attachments: mail.attachments.length,
+            parts: mail.attachments.map((a) => ({
+              cid: a.cid ?? null,
+              filename: a.filename ?? null,
+              contentType: a.contentType,
+              disposition: a.contentDisposition ?? null,
+              size: a.size,
+              content: a.content,
+            })),
+            receivedAt: new Date().toISOString(),
+          });
+          callback();
+        },
+        (err) => callback(err),
+      );
     },
   });
   await new Promise<void>((resolve, reject) => {

@@ -27,21 +27,33 @@ export function errorHandler(err: unknown, req: Request, res: Response, _next: N
       const key = issue.path.join('.') || '_';
       fields[key] ??= issue.message;
     }
-    const summary = Object.entries(fields).map(([k, m]) => `${k}: ${m}`).join('; ');
+    const summary = Object.entries(fields)
+      .map(([k, m]) => `${k}: ${m}`)
+      .join('; ');
     return send(400, { code: 'invalid_input', message: `some fields are not right — ${summary}`, fields });
   }
   if (err instanceof EngineeringInputError) {
-    return send(400, { code: 'invalid_input', message: `${err.field}: ${err.reason}`, fields: { [err.field]: err.reason } });
+    return send(400, {
+      code: 'invalid_input',
+      message: `${err.field}: ${err.reason}`,
+      fields: { [err.field]: err.reason },
+    });
   }
   if (err instanceof MulterError) {
-    if (err.code === 'LIMIT_FILE_SIZE') return send(413, { code: 'too_large', message: 'a photo is larger than 10 MB' });
+    if (err.code === 'LIMIT_FILE_SIZE')
+      return send(413, { code: 'too_large', message: 'a photo is larger than 10 MB' });
     if (err.code === 'LIMIT_FILE_COUNT' || err.code === 'LIMIT_UNEXPECTED_FILE') {
-      return send(400, { code: 'invalid_input', message: 'attach at most 6 photos, as the "photos" field', fields: { photos: 'at most 6 photos' } });
+      return send(400, {
+        code: 'invalid_input',
+        message: 'attach at most 6 photos, as the "photos" field',
+        fields: { photos: 'at most 6 photos' },
+      });
     }
     return send(400, { code: 'invalid_input', message: err.message });
   }
   const e = err as { type?: string; status?: number; message?: string };
-  if (e?.type === 'entity.parse.failed') return send(400, { code: 'invalid_json', message: 'the request body is not valid JSON' });
+  if (e?.type === 'entity.parse.failed')
+    return send(400, { code: 'invalid_json', message: 'the request body is not valid JSON' });
   if (e?.type === 'entity.too.large') return send(413, { code: 'too_large', message: 'the request body is too large' });
   // pino-http logs the request's line with this error when the response finishes (one line, with the id).
   // Where logs are off (tests), the console still shows it: an unexpected error is never silent.

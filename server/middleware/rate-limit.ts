@@ -44,7 +44,9 @@ function ensureTable(pool: Pool): Promise<void> {
         await client.query('begin');
         await client.query('select pg_advisory_xact_lock($1)', [CREATE_LOCK]);
         // The columns rate-limiter-flexible's PostgreSQL store reads and writes; expire is epoch milliseconds.
-        await client.query(`create table if not exists ${RATE_LIMIT_TABLE} (key varchar(255) primary key, points integer not null default 0, expire bigint)`);
+        await client.query(
+          `create table if not exists ${RATE_LIMIT_TABLE} (key varchar(255) primary key, points integer not null default 0, expire bigint)`,
+        );
         await client.query(`create index if not exists ${RATE_LIMIT_TABLE}_expire on ${RATE_LIMIT_TABLE} (expire)`);
         await client.query('commit');
       } catch (err) {
@@ -67,13 +69,19 @@ function waitWords(seconds: number): string {
 }
 
 export function rateLimit(ctx: { pool: Pool }, opts: RateLimitOptions): RequestHandler {
-  if (!/^[a-z0-9-]{1,40}$/.test(opts.name)) throw new Error(`rate limit name "${opts.name}": use lower-case letters, digits and dashes`);
-  if (!Number.isInteger(opts.points) || opts.points < 1) throw new Error(`rate limit ${opts.name}: points must be a whole number ≥ 1`);
-  if (!Number.isInteger(opts.durationSeconds) || opts.durationSeconds < 1) throw new Error(`rate limit ${opts.name}: durationSeconds must be a whole number ≥ 1`);
+  if (!/^[a-z0-9-]{1,40}$/.test(opts.name))
+    throw new Error(`rate limit name "${opts.name}": use lower-case letters, digits and dashes`);
+  if (!Number.isInteger(opts.points) || opts.points < 1)
+    throw new Error(`rate limit ${opts.name}: points must be a whole number ≥ 1`);
+  if (!Number.isInteger(opts.durationSeconds) || opts.durationSeconds < 1)
+    throw new Error(`rate limit ${opts.name}: durationSeconds must be a whole number ≥ 1`);
   const base = { keyPrefix: opts.name, points: opts.points, duration: opts.durationSeconds };
   const limiter = new RateLimiterPostgres({
     ...base,
-    storeClient: ctx.pool, storeType: 'pool', tableName: RATE_LIMIT_TABLE, tableCreated: true,
+    storeClient: ctx.pool,
+    storeType: 'pool',
+    tableName: RATE_LIMIT_TABLE,
+    tableCreated: true,
     // If PostgreSQL cannot answer, each process goes on counting on its own rather than letting every attempt through.
     insuranceLimiter: new RateLimiterMemory(base),
   });
@@ -84,14 +92,22 @@ export function rateLimit(ctx: { pool: Pool }, opts: RateLimitOptions): RequestH
     // Hashed: a fixed-length key whatever the request sent, and no e-mail addresses sitting in the table.
     const key = createHash('sha256').update(raw).digest('base64url');
     try {
-      await ensureTable(ctx.pool).catch((err: Error) => req.log?.warn({ err }, 'rate limit table not ready; counting in memory'));
+      await ensureTable(ctx.pool).catch((err: Error) =>
+        req.log?.warn({ err }, 'rate limit table not ready; counting in memory'),
+      );
       await limiter.consume(key);
       next();
     } catch (err) {
       if (!(err instanceof RateLimiterRes)) return next(err);
       const seconds = Math.max(1, Math.ceil(err.msBeforeNext / 1000));
       res.setHeader('Retry-After', String(seconds));
-      next(new HttpError(429, 'rate_limited', `${opts.message ?? 'too many attempts'}: try again in ${waitWords(seconds)}`));
+      next(
+        new HttpError(
+          429,
+          'rate_limited',
+          `${opts.message ?? 'too many attempts'}: try again in ${waitWords(seconds)}`,
+        ),
+      );
     }
   };
 }
@@ -105,7 +121,10 @@ export function byIp(req: Request): string {
   const left = head ? head.split(':') : [];
   const right = tail ? tail.split(':') : [];
   const full = ip.includes('::') ? [...left, ...Array(8 - left.length - right.length).fill('0'), ...right] : left;
-  return `${full.slice(0, 4).map((g) => g.toLowerCase().replace(/^0+(?=.)/, '')).join(':')}::/64`;
+  return `${full
+    .slice(0, 4)
+    .map((g) => g.toLowerCase().replace(/^0+(?=.)/, ''))
+    .join(':')}::/64`;
 }
 
 /** The e-mail address the body names, as sign-in compares it (trimmed, lower-case). */
@@ -115,9 +134,26 @@ export function byEmail(req: Request): string | undefined {
 }
 
 /** The usual pair for a form that names an address: per client address and per e-mail address. */
-export function limitByIpAndAddress(ctx: { pool: Pool }, name: string, limits: RateLimitConfig, message?: string): RequestHandler[] {
+export function limitByIpAndAddress(
+  ctx: { pool: Pool },
+  name: string,
+  limits: RateLimitConfig,
+  message?: string,
+): RequestHandler[] {
   return [
-    rateLimit(ctx, { name: `${name}-ip`, points: limits.perIp, durationSeconds: limits.windowSeconds, key: byIp, message }),
-    rateLimit(ctx, { name: `${name}-address`, points: limits.perAddress, durationSeconds: limits.windowSeconds, key: byEmail, message }),
+    rateLimit(ctx, {
+      name: `${name}-ip`,
+      points: limits.perIp,
+      durationSeconds: limits.windowSeconds,
+      key: byIp,
+      message,
+    }),
+    rateLimit(ctx, {
+      name: `${name}-address`,
+      points: limits.perAddress,
+      durationSeconds: limits.windowSeconds,
+      key: byEmail,
+      message,
+    }),
   ];
 }

@@ -10,11 +10,17 @@ import type { Config } from '../config';
  * leads straight to its log line.
  */
 export function createLogger(config: Pick<Config, 'logLevel'>, destination?: DestinationStream): Logger {
-  return pino({
-    level: config.logLevel,
-    // Belt and braces: the serializers below leave headers out, but a handler's own log call might not.
-    redact: { paths: ['req.headers.authorization', 'req.headers.cookie', 'headers.authorization', 'password', '*.password'], censor: '[redacted]' },
-  }, destination);
+  return pino(
+    {
+      level: config.logLevel,
+      // Belt and braces: the serializers below leave headers out, but a handler's own log call might not.
+      redact: {
+        paths: ['req.headers.authorization', 'req.headers.cookie', 'headers.authorization', 'password', '*.password'],
+        censor: '[redacted]',
+      },
+    },
+    destination,
+  );
 }
 
 /** An incoming id is kept only when it is a short plain token; anything else could forge or flood log lines. */
@@ -29,7 +35,11 @@ function withoutQueryValues(url: string | undefined): string | undefined {
   if (!url) return url;
   const q = url.indexOf('?');
   if (q < 0) return url;
-  const keys = url.slice(q + 1).split('&').filter(Boolean).map((pair) => `${pair.split('=')[0]}=[redacted]`);
+  const keys = url
+    .slice(q + 1)
+    .split('&')
+    .filter(Boolean)
+    .map((pair) => `${pair.split('=')[0]}=[redacted]`);
   return `${url.slice(0, q)}?${keys.join('&')}`;
 }
 
@@ -53,7 +63,10 @@ export function requestLog(logger: Logger) {
     serializers: {
       // No headers at all (bearer tokens); the path with its query keys but not their values.
       req: (req: { id: unknown; method: string; url: string; remoteAddress?: string }) => ({
-        id: req.id, method: req.method, url: withoutQueryValues(req.url), remoteAddress: req.remoteAddress,
+        id: req.id,
+        method: req.method,
+        url: withoutQueryValues(req.url),
+        remoteAddress: req.remoteAddress,
       }),
       res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
     },

@@ -18,17 +18,24 @@ export function networkRouter(ctx: AppContext, signedIn: RequestHandler): Router
       loopback: isLoopbackUrl(url),
       https: url.startsWith('https:'),
       qrDataUrl: await QRCode.toDataURL(url, { errorCorrectionLevel: 'M', margin: 2, scale: 8 }),
-      certificate: tls ? {
-        fingerprint: tls.fingerprint, downloadUrl: '/api/network/certificate', madeHere: !ctx.config.network.tls?.certFile,
-        names: [...tls.names.dns, ...tls.names.ips],
-      } : null,
+      certificate: tls
+        ? {
+            fingerprint: tls.fingerprint,
+            downloadUrl: '/api/network/certificate',
+            madeHere: !ctx.config.network.tls?.certFile,
+            names: [...tls.names.dns, ...tls.names.ips],
+          }
+        : null,
     };
     res.json(body);
   });
   // Public: a certificate is no secret, and a phone fetches it before anyone signs in on it.
   r.get('/certificate', (_req, res) => {
     if (!ctx.tls) throw notFound('certificate: Pitchcard serves plain HTTP here');
-    res.type('application/x-pem-file').set('Content-Disposition', 'attachment; filename="pitchcard.crt"').send(ctx.tls.cert);
+    res
+      .type('application/x-pem-file')
+      .set('Content-Disposition', 'attachment; filename="pitchcard.crt"')
+      .send(ctx.tls.cert);
   });
   return r;
 }

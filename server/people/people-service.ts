@@ -1,7 +1,19 @@
 import {
-  allowedPersonActions, memberRoleOfPlace, mayInvite, rolesOfOrganizationKind,
-  type AcceptInvitationInput, type InvitationView, type InviteInput, type Manager, type OrganizationInput,
-  type OrganizationSummary, type Page, type PageQuery, type PendingInvitation, type PersonSummary, type PersonUpdateInput,
+  allowedPersonActions,
+  memberRoleOfPlace,
+  mayInvite,
+  rolesOfOrganizationKind,
+  type AcceptInvitationInput,
+  type InvitationView,
+  type InviteInput,
+  type Manager,
+  type OrganizationInput,
+  type OrganizationSummary,
+  type Page,
+  type PageQuery,
+  type PendingInvitation,
+  type PersonSummary,
+  type PersonUpdateInput,
 } from '../../db/contracts';
 import { withTransaction } from '../../db';
 import type { AppContext } from '../context';
@@ -13,13 +25,28 @@ import { insertBuildEvent } from '../builds/builds-repository';
 import { badRequest, conflict, forbidden, HttpError, notFound } from '../http-error';
 import { invite } from './invitations';
 import {
-  addBuildMember, findLiveInvitation, findOrganization, findPerson, findUserByEmail, insertOrganization, insertUser,
-  pageOrganizations, pagePendingInvitations, pagePeople, takeOpenInvitations, updatePerson,
+  addBuildMember,
+  findLiveInvitation,
+  findOrganization,
+  findPerson,
+  findUserByEmail,
+  insertOrganization,
+  insertUser,
+  pageOrganizations,
+  pagePendingInvitations,
+  pagePeople,
+  takeOpenInvitations,
+  updatePerson,
 } from './people-repository';
 
 type Deps = Pick<AppContext, 'db' | 'pool' | 'config' | 'mailQueue'>;
 
-const managerOf = (u: Express.User): Manager => ({ id: u.id, role: u.role, organizationId: u.organizationId, lead: u.lead });
+const managerOf = (u: Express.User): Manager => ({
+  id: u.id,
+  role: u.role,
+  organizationId: u.organizationId,
+  lead: u.lead,
+});
 const manages = (u: Express.User) => u.role === 'admin' || (u.role === 'supplier' && u.lead);
 
 export const peopleService = (ctx: Deps) => {
@@ -27,7 +54,7 @@ export const peopleService = (ctx: Deps) => {
   /** The admin sees everyone; a lead engineer their own organisation. */
   const scope = (u: Express.User) => {
     if (!manages(u)) throw forbidden('only an admin or a supplier’s lead engineer manages people');
-    return u.role === 'admin' ? undefined : u.organizationId ?? undefined;
+    return u.role === 'admin' ? undefined : (u.organizationId ?? undefined);
   };
 
   return {
@@ -45,26 +72,49 @@ export const peopleService = (ctx: Deps) => {
 
     async people(user: Express.User, q: PageQuery): Promise<Page<PersonSummary>> {
       const page = await pagePeople(db, scope(user), q);
-      return { items: page.items.map((p) => ({ ...p, createdAt: p.createdAt.toISOString(), allowed: allowedPersonActions(managerOf(user), p) })), next: page.next };
+      return {
+        items: page.items.map((p) => ({
+          ...p,
+          createdAt: p.createdAt.toISOString(),
+          allowed: allowedPersonActions(managerOf(user), p),
+        })),
+        next: page.next,
+      };
     },
 
     async pending(user: Express.User, q: PageQuery): Promise<Page<PendingInvitation>> {
       const page = await pagePendingInvitations(db, scope(user), q);
-      return { items: page.items.map(({ createdKey: _, ...i }) => ({ ...i, expiresAt: i.expiresAt.toISOString() })), next: page.next };
+      return {
+        items: page.items.map(({ createdKey: _, ...i }) => ({ ...i, expiresAt: i.expiresAt.toISOString() })),
+        next: page.next,
+      };
     },
 
-    async invite(user: Express.User, input: Required<Pick<InviteInput, 'email' | 'name' | 'role'>> & { organizationId: string | null; lead: boolean }) {
+    async invite(
+      user: Express.User,
+      input: Required<Pick<InviteInput, 'email' | 'name' | 'role'>> & { organizationId: string | null; lead: boolean },
+    ) {
       const why = mayInvite(managerOf(user), input.role, input.organizationId);
       if (why) throw forbidden(why);
       const org = input.organizationId ? await findOrganization(db, input.organizationId) : null;
-      if (input.organizationId && !org) throw badRequest('no such organisation', { organizationId: 'no such organisation' });
-      if (input.role === 'admin' && org) throw badRequest('an admin belongs to no organisation', { organizationId: 'leave empty for an admin' });
-      if (input.role === 'supplier' && !org) throw badRequest('a supplier’s engineer belongs to a kit supplier', { organizationId: 'choose the kit supplier' });
+      if (input.organizationId && !org)
+        throw badRequest('no such organisation', { organizationId: 'no such organisation' });
+      if (input.role === 'admin' && org)
+        throw badRequest('an admin belongs to no organisation', { organizationId: 'leave empty for an admin' });
+      if (input.role === 'supplier' && !org)
+        throw badRequest('a supplier’s engineer belongs to a kit supplier', {
+          organizationId: 'choose the kit supplier',
+        });
       if (org && !rolesOfOrganizationKind[org.kind].includes(input.role)) {
-        throw badRequest(`a ${org.kind === 'supplier' ? 'kit supplier' : org.kind === 'shop' ? 'build shop' : 'inspection body'} holds no ${input.role}`, { role: 'not a role of this organisation' });
+        throw badRequest(
+          `a ${org.kind === 'supplier' ? 'kit supplier' : org.kind === 'shop' ? 'build shop' : 'inspection body'} holds no ${input.role}`,
+          { role: 'not a role of this organisation' },
+        );
       }
-      if (input.lead && input.role !== 'supplier') throw badRequest('only a supplier’s engineer can be a lead engineer', { lead: 'suppliers only' });
-      if (await findUserByEmail(db, input.email)) throw conflict('this address already has an account', { email: 'already has an account' });
+      if (input.lead && input.role !== 'supplier')
+        throw badRequest('only a supplier’s engineer can be a lead engineer', { lead: 'suppliers only' });
+      if (await findUserByEmail(db, input.email))
+        throw conflict('this address already has an account', { email: 'already has an account' });
       await withTransaction(pool, (tx) => invite(ctx, tx, { ...input, invitedBy: user }, org?.name ?? null));
       return { ok: true as const };
     },
@@ -80,37 +130,75 @@ export const peopleService = (ctx: Deps) => {
         input.lead === true && !person.lead ? 'make-lead' : null,
       ].filter((x): x is PersonSummary['allowed'][number] => x !== null);
       const refused = need.find((a) => !allowed.includes(a));
-      if (refused) throw forbidden(user.id === id ? 'you cannot change your own account here' : `you may not ${refused.replace('-', ' ')} this person`);
+      if (refused)
+        throw forbidden(
+          user.id === id
+            ? 'you cannot change your own account here'
+            : `you may not ${refused.replace('-', ' ')} this person`,
+        );
       if (input.role && person.organizationId) {
         const org = (await findOrganization(db, person.organizationId))!;
-        if (!rolesOfOrganizationKind[org.kind].includes(input.role)) throw badRequest('not a role of this person’s organisation', { role: 'not a role of this organisation' });
+        if (!rolesOfOrganizationKind[org.kind].includes(input.role))
+          throw badRequest('not a role of this person’s organisation', { role: 'not a role of this organisation' });
       }
       await updatePerson(db, id, { role: input.role, active: input.active, lead: input.lead });
       const after = (await findPerson(db, id))!;
-      return { ...after, createdAt: after.createdAt.toISOString(), allowed: allowedPersonActions(managerOf(user), after) };
+      return {
+        ...after,
+        createdAt: after.createdAt.toISOString(),
+        allowed: allowedPersonActions(managerOf(user), after),
+      };
     },
 
     async viewInvitation(token: string): Promise<InvitationView> {
       const found = await findLiveInvitation(db, hashOneTimeToken(token));
-      if (!found) throw new HttpError(404, 'not_found', 'this invitation has expired or was already used: ask for a new one');
+      if (!found)
+        throw new HttpError(404, 'not_found', 'this invitation has expired or was already used: ask for a new one');
       const i = found.invitation;
-      return { email: i.email, name: i.name, role: i.role, organizationName: found.organizationName, invitedByName: found.invitedByName, expiresAt: i.expiresAt.toISOString() };
+      return {
+        email: i.email,
+        name: i.name,
+        role: i.role,
+        organizationName: found.organizationName,
+        invitedByName: found.invitedByName,
+        expiresAt: i.expiresAt.toISOString(),
+      };
     },
 
     /** Joins: the account with the person's own password, and every build they were invited to. */
     async accept(input: Required<AcceptInvitationInput>) {
       const found = await findLiveInvitation(db, hashOneTimeToken(input.token));
-      if (!found) throw new HttpError(404, 'not_found', 'this invitation has expired or was already used: ask for a new one');
+      if (!found)
+        throw new HttpError(404, 'not_found', 'this invitation has expired or was already used: ask for a new one');
       const i = found.invitation;
       requireStrongPassword(input.password, [i.email, input.name]);
       const passwordHash = await hashPassword(input.password);
       const userId = await withTransaction(pool, async (tx) => {
-        if (await findUserByEmail(tx.db, i.email)) throw conflict('this address already has an account: sign in instead');
-        const u = await insertUser(tx.db, { email: i.email, name: input.name, role: i.role, organizationId: i.organizationId, lead: i.lead, passwordHash });
+        if (await findUserByEmail(tx.db, i.email))
+          throw conflict('this address already has an account: sign in instead');
+        const u = await insertUser(tx.db, {
+          email: i.email,
+          name: input.name,
+          role: i.role,
+          organizationId: i.organizationId,
+          lead: i.lead,
+          passwordHash,
+        });
         for (const open of await takeOpenInvitations(tx.db, i.email)) {
           if (!open.buildId || !open.place || memberRoleOfPlace[open.place] !== u.role) continue;
-          await addBuildMember(tx.db, { buildId: open.buildId, userId: u.id, place: open.place, role: memberRoleOfPlace[open.place], addedBy: open.invitedBy });
-          await insertBuildEvent(tx.db, { buildId: open.buildId, actorId: u.id, kind: 'member_joined', detail: { name: u.name, place: open.place } });
+          await addBuildMember(tx.db, {
+            buildId: open.buildId,
+            userId: u.id,
+            place: open.place,
+            role: memberRoleOfPlace[open.place],
+            addedBy: open.invitedBy,
+          });
+          await insertBuildEvent(tx.db, {
+            buildId: open.buildId,
+            actorId: u.id,
+            kind: 'member_joined',
+            detail: { name: u.name, place: open.place },
+          });
         }
         return u.id;
       });

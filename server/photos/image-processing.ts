@@ -25,8 +25,11 @@ export async function processPhoto(bytes: Buffer, originalName: string): Promise
   }
   // rotate() applies the EXIF orientation before the metadata is dropped.
   const base = sharp(bytes, { limitInputPixels: 80_000_000 }).rotate();
-  const { data: full, info } = await base.clone().resize(MAX_EDGE, MAX_EDGE, { fit: 'inside', withoutEnlargement: true })
-    .jpeg({ quality: 85 }).toBuffer({ resolveWithObject: true });
+  const { data: full, info } = await base
+    .clone()
+    .resize(MAX_EDGE, MAX_EDGE, { fit: 'inside', withoutEnlargement: true })
+    .jpeg({ quality: 85 })
+    .toBuffer({ resolveWithObject: true });
   const thumb = await base.clone().resize(THUMB_EDGE, THUMB_EDGE, { fit: 'cover' }).jpeg({ quality: 75 }).toBuffer();
   return { full, thumb, width: info.width, height: info.height };
 }

@@ -17,7 +17,8 @@ export function photosRouter(ctx: AppContext): Router {
     const { id, variant } = req.params;
     if (variant !== 'full' && variant !== 'thumb') throw notFound('photo');
     const q = photoQuery.safeParse(req.query);
-    if (!q.success || !ctx.signer.verify(id, variant, q.data.u, q.data.exp, q.data.sig)) throw forbidden('this photo link has expired or is not valid');
+    if (!q.success || !ctx.signer.verify(id, variant, q.data.u, q.data.exp, q.data.sig))
+      throw forbidden('this photo link has expired or is not valid');
     // The link's person must still be active and still see the finding the photo belongs to.
     const viewer = await findSessionUser(ctx.db, q.data.u);
     if (!viewer?.active) throw forbidden('this photo link is no longer valid');

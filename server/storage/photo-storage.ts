@@ -47,7 +47,10 @@ export function localPhotoStorage(dir: string): PhotoStorage {
         const info = await stat(path.join(dir, entry.name)).catch(() => null); // removed meanwhile
         if (!info) continue;
         page.push({ key: entry.name, modifiedAt: info.mtime });
-        if (page.length >= pageSize) { yield page; page = []; }
+        if (page.length >= pageSize) {
+          yield page;
+          page = [];
+        }
       }
       if (page.length) yield page;
     },

@@ -1,11 +1,21 @@
 import { randomUUID } from 'node:crypto';
 import {
-  DeleteObjectCommand, GetObjectCommand, HeadBucketCommand, ListObjectsV2Command, NoSuchKey, PutObjectCommand, S3Client, S3ServiceException,
+  DeleteObjectCommand,
+  GetObjectCommand,
+  HeadBucketCommand,
+  ListObjectsV2Command,
+  NoSuchKey,
+  PutObjectCommand,
+  S3Client,
+  S3ServiceException,
 } from '@aws-sdk/client-s3';
 import { KEY, type PhotoStorage, type StoredFile } from './photo-storage';
 
 export type S3PhotoStorageOptions = {
-  bucket: string; region: string; endpoint: string | null; forcePathStyle: boolean;
+  bucket: string;
+  region: string;
+  endpoint: string | null;
+  forcePathStyle: boolean;
   /** '' or a folder-like prefix ending in '/'; stored keys (what rows keep) never include it. */
   prefix: string;
   credentials: { accessKeyId: string; secretAccessKey: string } | null;
@@ -17,7 +27,9 @@ const CONTENT_TYPES: Record<string, string> = { jpg: 'image/jpeg', webp: 'image/
  * Photos in an S3-compatible bucket, shared by every server process: a photo uploaded through one is
  * read through any other. The same keys as the local folder, so rows never know where the bytes are.
  */
-export function s3PhotoStorage(opts: S3PhotoStorageOptions): PhotoStorage & { check: () => Promise<void>; close: () => void } {
+export function s3PhotoStorage(
+  opts: S3PhotoStorageOptions,
+): PhotoStorage & { check: () => Promise<void>; close: () => void } {
   const client = new S3Client({
     region: opts.region,
     endpoint: opts.endpoint ?? undefined,
@@ -39,7 +51,14 @@ export function s3PhotoStorage(opts: S3PhotoStorageOptions): PhotoStorage & { ch
   return {
     async put(bytes, ext) {
       const key = `${randomUUID()}.${ext}`;
-      await client.send(new PutObjectCommand({ Bucket: opts.bucket, Key: objectOf(key), Body: bytes, ContentType: CONTENT_TYPES[ext] ?? 'application/octet-stream' }));
+      await client.send(
+        new PutObjectCommand({
+          Bucket: opts.bucket,
+          Key: objectOf(key),
+          Body: bytes,
+          ContentType: CONTENT_TYPES[ext] ?? 'application/octet-stream',
+        }),
+      );
       return key;
     },
     async get(key) {
@@ -48,7 +67,8 @@ export function s3PhotoStorage(opts: S3PhotoStorageOptions): PhotoStorage & { ch
         if (!res.Body) throw new Error(`photo ${key} came back empty from bucket ${opts.bucket}`);
         return Buffer.from(await res.Body.transformToByteArray());
       } catch (err) {
-        if (err instanceof NoSuchKey) throw Object.assign(new Error(`photo ${key} is not in bucket ${opts.bucket}`), { code: 'ENOENT' });
+        if (err instanceof NoSuchKey)
+          throw Object.assign(new Error(`photo ${key} is not in bucket ${opts.bucket}`), { code: 'ENOENT' });
         throw err;
       }
     },
@@ -60,7 +80,14 @@ export function s3PhotoStorage(opts: S3PhotoStorageOptions): PhotoStorage & { ch
       let token: string | undefined;
       const seen = new Set<string>();
       do {
-        const res = await client.send(new ListObjectsV2Command({ Bucket: opts.bucket, Prefix: opts.prefix || undefined, MaxKeys: Math.min(pageSize, 1000), ContinuationToken: token }));
+        const res = await client.send(
+          new ListObjectsV2Command({
+            Bucket: opts.bucket,
+            Prefix: opts.prefix || undefined,
+            MaxKeys: Math.min(pageSize, 1000),
+            ContinuationToken: token,
+          }),
+        );
         const page: StoredFile[] = [];
         for (const o of res.Contents ?? []) {
           const key = o.Key?.slice(opts.prefix.length);
@@ -81,7 +108,12 @@ export function s3PhotoStorage(opts: S3PhotoStorageOptions): PhotoStorage & { ch
       } catch (err) {
         const status = err instanceof S3ServiceException ? err.$metadata.httpStatusCode : undefined;
         const where = opts.endpoint ? ` at ${opts.endpoint}` : '';
-        const why = status === 404 ? 'does not exist' : status === 403 ? 'refuses these credentials' : `cannot be reached (${(err as Error).message || (err as Error).name})`;
+        const why =
+          status === 404
+            ? 'does not exist'
+            : status === 403
+              ? 'refuses these credentials'
+              : `cannot be reached (${(err as Error).message || (err as Error).name})`;
         throw new Error(`photo store: bucket ${opts.bucket}${where} ${why}`);
       }
     },

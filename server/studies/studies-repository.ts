@@ -13,17 +13,33 @@ type Choice = { gaugeIn: number; rivet: string } | null;
  */
 export async function pageStudyRows(db: Db, organizationId: string, q: PageQuery) {
   const key = decodeCursor(q.cursor, ['string', 'string']);
-  const rows = await db.select({
-    id: loadStudies.id, kind: loadStudies.kind, kitModelId: loadStudies.kitModelId, kitName: kitModels.name, name: loadStudies.name,
-    revision: loadStudies.latestRevision, updatedAt: sql<string>`${loadStudies.updatedAt}::text`,
-    recommended: sql<Choice>`case when ${loadStudies.kind} = 'wing'
+  const rows = await db
+    .select({
+      id: loadStudies.id,
+      kind: loadStudies.kind,
+      kitModelId: loadStudies.kitModelId,
+      kitName: kitModels.name,
+      name: loadStudies.name,
+      revision: loadStudies.latestRevision,
+      updatedAt: sql<string>`${loadStudies.updatedAt}::text`,
+      recommended: sql<Choice>`case when ${loadStudies.kind} = 'wing'
       then ${loadStudyRevisions.result} -> 'trade' -> 'recommendedUniform'
       else ${loadStudyRevisions.result} -> 'recommended' end`,
-  }).from(loadStudies)
+    })
+    .from(loadStudies)
     .innerJoin(kitModels, eq(kitModels.id, loadStudies.kitModelId))
-    .innerJoin(loadStudyRevisions, and(eq(loadStudyRevisions.studyId, loadStudies.id), eq(loadStudyRevisions.revision, loadStudies.latestRevision)))
-    .where(and(eq(loadStudies.organizationId, organizationId), afterKey([loadStudies.updatedAt, loadStudies.id], key, 'desc')))
-    .orderBy(desc(loadStudies.updatedAt), desc(loadStudies.id)).limit(q.limit + 1);
+    .innerJoin(
+      loadStudyRevisions,
+      and(eq(loadStudyRevisions.studyId, loadStudies.id), eq(loadStudyRevisions.revision, loadStudies.latestRevision)),
+    )
+    .where(
+      and(
+        eq(loadStudies.organizationId, organizationId),
+        afterKey([loadStudies.updatedAt, loadStudies.id], key, 'desc'),
+      ),
+    )
+    .orderBy(desc(loadStudies.updatedAt), desc(loadStudies.id))
+    .limit(q.limit + 1);
   return pageOf(rows, q.limit, (s) => [s.updatedAt, s.id]);
 }
 
@@ -33,19 +49,30 @@ export async function findStudy(db: Db, id: string) {
 }
 
 export async function findStudyRevision(db: Db, studyId: string, revision: number) {
-  const [row] = await db.select().from(loadStudyRevisions)
+  const [row] = await db
+    .select()
+    .from(loadStudyRevisions)
     .where(and(eq(loadStudyRevisions.studyId, studyId), eq(loadStudyRevisions.revision, revision)));
   return row;
 }
 
 /** The engine's input a revision was computed from (with the coupons it used), without the result. */
 export async function findStudyEngineInput(db: Db, studyId: string, revision: number) {
-  const [row] = await db.select({ input: sql<Record<string, unknown> | null>`${loadStudyRevisions.result} -> 'inputs'` }).from(loadStudyRevisions)
+  const [row] = await db
+    .select({ input: sql<Record<string, unknown> | null>`${loadStudyRevisions.result} -> 'inputs'` })
+    .from(loadStudyRevisions)
     .where(and(eq(loadStudyRevisions.studyId, studyId), eq(loadStudyRevisions.revision, revision)));
   return row;
 }
 
 export const listStudyRevisions = (db: Db, studyId: string) =>
-  db.select({ revision: loadStudyRevisions.revision, createdAt: loadStudyRevisions.createdAt, createdByName: users.name })
-    .from(loadStudyRevisions).innerJoin(users, eq(users.id, loadStudyRevisions.createdBy))
-    .where(eq(loadStudyRevisions.studyId, studyId)).orderBy(desc(loadStudyRevisions.revision));
+  db
+    .select({
+      revision: loadStudyRevisions.revision,
+      createdAt: loadStudyRevisions.createdAt,
+      createdByName: users.name,
+    })
+    .from(loadStudyRevisions)
+    .innerJoin(users, eq(users.id, loadStudyRevisions.createdBy))
+    .where(eq(loadStudyRevisions.studyId, studyId))
+    .orderBy(desc(loadStudyRevisions.revision));

@@ -1,6 +1,15 @@
 import { eq, sql } from 'drizzle-orm';
 import type {
-  ApplyStudyInput, Page, PageQuery, PartDesignDetail, RibStudyInputValues, StudyBody, StudyDetail, StudyKind, StudySummary, WingStudyInputValues,
+  ApplyStudyInput,
+  Page,
+  PageQuery,
+  PartDesignDetail,
+  RibStudyInputValues,
+  StudyBody,
+  StudyDetail,
+  StudyKind,
+  StudySummary,
+  WingStudyInputValues,
 } from '../../db/contracts';
 import { revisionInput } from '../../db/contracts';
 import type { Db } from '../../db';
@@ -9,12 +18,26 @@ import { organizationOf } from '../auth/organization';
 import { couponsForEngine } from '../coupons/coupons-repository';
 import { designsService } from '../designs/designs-service';
 import {
-  EngineeringInputError, fieldAt, findRivetByCallout, layoutRules,
-  type RibStudyInput, type RibStudyResult, type SkinPanelResult, type StudyCandidate, type WingRib, type WingStudyResult,
+  EngineeringInputError,
+  fieldAt,
+  findRivetByCallout,
+  layoutRules,
+  type RibStudyInput,
+  type RibStudyResult,
+  type SkinPanelResult,
+  type StudyCandidate,
+  type WingRib,
+  type WingStudyResult,
 } from '../engineering';
 import { badRequest, conflict, notFound } from '../http-error';
 import { kitsService } from '../kits/kits-service';
-import { findStudy, findStudyEngineInput, findStudyRevision, listStudyRevisions, pageStudyRows } from './studies-repository';
+import {
+  findStudy,
+  findStudyEngineInput,
+  findStudyRevision,
+  listStudyRevisions,
+  pageStudyRows,
+} from './studies-repository';
 import { runStudy } from './study-pool';
 
 /** Ends the study threads: the server calls it on shutdown, after it stops taking requests. */
@@ -24,7 +47,12 @@ type RibResult = RibStudyResult & Record<string, unknown>;
 type WingResult = WingStudyResult & Record<string, unknown>;
 type Choice = { gaugeIn: number; rivet: string };
 /** A pitch schedule as stored: its zones along the line (from its first hole's side), and its length. */
-type Schedule = { lengthIn: number; drill: { name: string; diameterIn: number }; layout: { edgeDistanceIn: number }; zones: { fromAlongIn: number; toAlongIn: number; pitchIn: number }[] };
+type Schedule = {
+  lengthIn: number;
+  drill: { name: string; diameterIn: number };
+  layout: { edgeDistanceIn: number };
+  zones: { fromAlongIn: number; toAlongIn: number; pitchIn: number }[];
+};
 
 /** A skin panel's four lines in the order skin-panel.ts schedules them, with the hole prefixes it gives them. */
 const SKIN_LINES = [
@@ -51,8 +79,12 @@ function revisionZones(schedule: Schedule) {
 /** A rib's lines: each where the study's line starts on the rib, with the candidate's zones along it. */
 function ribRevisionLines(schedules: Schedule[], loads: RibStudyResult['lines']) {
   return schedules.map((schedule, i) => ({
-    code: loads[i].holePrefix, name: loads[i].name, surface: loads[i].surface,
-    startIn: thou(loads[i].fromStationIn), lengthIn: thou(schedule.lengthIn), zones: revisionZones(schedule),
+    code: loads[i].holePrefix,
+    name: loads[i].name,
+    surface: loads[i].surface,
+    startIn: thou(loads[i].fromStationIn),
+    lengthIn: thou(schedule.lengthIn),
+    zones: revisionZones(schedule),
   }));
 }
 
@@ -70,7 +102,11 @@ function sheetOf(material: string, candidate: Choice, schedules: Schedule[]) {
     if (!(err instanceof EngineeringInputError)) throw err; // a rivet of the supplier's own data: its stored figure stands
   }
   return {
-    material, gaugeIn: candidate.gaugeIn, rivetSpec: candidate.rivet, drillSize: first.drill.name, drillDiameterIn: first.drill.diameterIn,
+    material,
+    gaugeIn: candidate.gaugeIn,
+    rivetSpec: candidate.rivet,
+    drillSize: first.drill.name,
+    drillDiameterIn: first.drill.diameterIn,
     edgeDistanceIn: Math.ceil(Math.max(ruleIn, ...schedules.map((s) => s.layout.edgeDistanceIn)) * 1000) / 1000,
   };
 }
@@ -92,7 +128,8 @@ export const studiesService = (db: Db) => {
         ? ((await runStudy({ kind: 'wing', input: { ...body.inputs, coupons } })) as WingResult)
         : ((await runStudy({ kind: 'rib', input: { ...body.inputs, coupons } })) as RibResult);
     } catch (err) {
-      if (err instanceof EngineeringInputError) throw new EngineeringInputError(fieldAt('inputs', err.field), err.reason);
+      if (err instanceof EngineeringInputError)
+        throw new EngineeringInputError(fieldAt('inputs', err.field), err.reason);
       throw err;
     }
   }
@@ -114,23 +151,45 @@ export const studiesService = (db: Db) => {
     const kit = await kits.get(user, study.kitModelId);
     const result = rev.result as Record<string, any>;
     return {
-      id, kind: study.kind, kitModelId: study.kitModelId, kitName: kit.name, name: study.name, revision: rev.revision,
-      updatedAt: study.updatedAt.toISOString(), recommended: recommendedOf(study.kind, result),
-      inputs: rev.inputs as RibStudyInputValues | WingStudyInputValues, result,
+      id,
+      kind: study.kind,
+      kitModelId: study.kitModelId,
+      kitName: kit.name,
+      name: study.name,
+      revision: rev.revision,
+      updatedAt: study.updatedAt.toISOString(),
+      recommended: recommendedOf(study.kind, result),
+      inputs: rev.inputs as RibStudyInputValues | WingStudyInputValues,
+      result,
       revisions: (await listStudyRevisions(db, id)).map((r) => ({ ...r, createdAt: r.createdAt.toISOString() })),
     };
   }
 
   /** The part design the study is applied to: of the study's kit, and of a kind that has these lines. */
-  async function targetDesign(user: Express.User, study: StudyDetail, partDesignId: string, kinds: readonly string[], what: string) {
+  async function targetDesign(
+    user: Express.User,
+    study: StudyDetail,
+    partDesignId: string,
+    kinds: readonly string[],
+    what: string,
+  ) {
     const design = await designs.detail(user, partDesignId);
     if (design.kitModelId !== study.kitModelId) throw conflict('the part design belongs to another kit than the study');
-    if (!kinds.includes(design.kind)) throw conflict(`${what} goes to a part design of kind ${kinds.join(' or ')}, not ${design.kind}`, { partDesignId: `choose a ${kinds.join(' or ')} part design` });
+    if (!kinds.includes(design.kind))
+      throw conflict(`${what} goes to a part design of kind ${kinds.join(' or ')}, not ${design.kind}`, {
+        partDesignId: `choose a ${kinds.join(' or ')} part design`,
+      });
     return design;
   }
 
   /** Into the design's draft revision (a new one when it has none), with the study revision as its engineering basis. */
-  function writeRevision(user: Express.User, design: PartDesignDetail, body: Record<string, unknown>, basis: Record<string, unknown>, studyId: string) {
+  function writeRevision(
+    user: Express.User,
+    design: PartDesignDetail,
+    body: Record<string, unknown>,
+    basis: Record<string, unknown>,
+    studyId: string,
+  ) {
     const revisionBody = revisionInput.parse({ ...body, steps: design.revisions[0]?.steps ?? [] });
     const draft = design.revisions.find((r) => r.status === 'draft');
     const engineering = { basis, studyId };
@@ -140,7 +199,8 @@ export const studiesService = (db: Db) => {
   }
 
   const refuseUnfeasible = (c: { feasible: boolean; reasons: string[] } & Choice, where = '') => {
-    if (!c.feasible) throw conflict(`${c.gaugeIn} in with ${c.rivet}${where} does not carry the load: ${c.reasons.join('; ')}`);
+    if (!c.feasible)
+      throw conflict(`${c.gaugeIn} in with ${c.rivet}${where} does not carry the load: ${c.reasons.join('; ')}`);
   };
 
   /** A rib study's apply, as it was before wing studies: to any part design of the kit; a target is not read. */
@@ -153,22 +213,55 @@ export const studiesService = (db: Db) => {
     const design = await designs.detail(user, body.partDesignId);
     if (design.kitModelId !== study.kitModelId) throw conflict('the part design belongs to another kit than the study');
     const basis = {
-      studyId: study.id, studyName: study.name, studyRevision: study.revision, computedAt: study.updatedAt,
-      inputs, design: result.design, conditions: result.conditions.map(({ cp: _cp, ...c }) => c),
-      candidate, rules: result.rules, warnings: [...result.warnings, ...candidate.warnings], caution: result.caution,
+      studyId: study.id,
+      studyName: study.name,
+      studyRevision: study.revision,
+      computedAt: study.updatedAt,
+      inputs,
+      design: result.design,
+      conditions: result.conditions.map(({ cp: _cp, ...c }) => c),
+      candidate,
+      rules: result.rules,
+      warnings: [...result.warnings, ...candidate.warnings],
+      caution: result.caution,
     };
-    return writeRevision(user, design, {
-      ...sheetOf(inputs.material, candidate, candidate.lines), chordIn: inputs.rib.chordIn,
-      lines: ribRevisionLines(candidate.lines, result.lines),
-      changeNote: `Gauge, rivet and pitch schedule from load study "${study.name}" revision ${study.revision}`,
-    }, basis, study.id);
+    return writeRevision(
+      user,
+      design,
+      {
+        ...sheetOf(inputs.material, candidate, candidate.lines),
+        chordIn: inputs.rib.chordIn,
+        lines: ribRevisionLines(candidate.lines, result.lines),
+        changeNote: `Gauge, rivet and pitch schedule from load study "${study.name}" revision ${study.revision}`,
+      },
+      basis,
+      study.id,
+    );
   }
 
   /** What a wing's applied revision cites: the study revision, the wing's loads and rules, and the rib or panel. */
-  const wingBasis = (study: StudyDetail, result: WingResult, target: Record<string, unknown>, candidate: unknown, warnings: string[]) => ({
-    kind: 'wing', studyId: study.id, studyName: study.name, studyRevision: study.revision, computedAt: study.updatedAt,
-    target, inputs: study.inputs, design: result.design, planform: result.planform, tail: result.tail, conditions: result.conditions,
-    candidate, rules: result.rules, warnings, caution: result.caution,
+  const wingBasis = (
+    study: StudyDetail,
+    result: WingResult,
+    target: Record<string, unknown>,
+    candidate: unknown,
+    warnings: string[],
+  ) => ({
+    kind: 'wing',
+    studyId: study.id,
+    studyName: study.name,
+    studyRevision: study.revision,
+    computedAt: study.updatedAt,
+    target,
+    inputs: study.inputs,
+    design: result.design,
+    planform: result.planform,
+    tail: result.tail,
+    conditions: result.conditions,
+    candidate,
+    rules: result.rules,
+    warnings,
+    caution: result.caution,
   });
 
   async function applyWingRib(user: Express.User, study: StudyDetail, body: ApplyStudyInput, name: string) {
@@ -180,18 +273,30 @@ export const studiesService = (db: Db) => {
     refuseUnfeasible(candidate, ` on rib ${name}`);
     // The wing keeps the zones of each rib's recommended candidate and of its one-for-all choice only.
     if (!candidate.lines.length) {
-      throw conflict(`the study keeps the zones of rib ${name}'s recommended candidate (${choiceText(rib.study.recommended)}) and of the wing's one-for-all choice (${choiceText(result.trade.recommendedUniform)}) only: choose one of those`);
+      throw conflict(
+        `the study keeps the zones of rib ${name}'s recommended candidate (${choiceText(rib.study.recommended)}) and of the wing's one-for-all choice (${choiceText(result.trade.recommendedUniform)}) only: choose one of those`,
+      );
     }
     const design = await targetDesign(user, study, body.partDesignId, ['rib', 'nose_rib'], `rib ${name}`);
     const inputs = study.inputs as WingStudyInputValues;
     const { study: ribStudy, ...place } = rib;
-    const basis = wingBasis(study, result, { kind: 'rib', ...place }, candidate, [...result.warnings, ...candidate.warnings]);
+    const basis = wingBasis(study, result, { kind: 'rib', ...place }, candidate, [
+      ...result.warnings,
+      ...candidate.warnings,
+    ]);
     void ribStudy;
-    return writeRevision(user, design, {
-      ...sheetOf(inputs.material, candidate, candidate.lines), chordIn: rib.chordIn,
-      lines: ribRevisionLines(candidate.lines, rib.study.lines),
-      changeNote: `Gauge, rivet and pitch schedule of rib ${name} from wing study "${study.name}" revision ${study.revision}`,
-    }, basis, study.id);
+    return writeRevision(
+      user,
+      design,
+      {
+        ...sheetOf(inputs.material, candidate, candidate.lines),
+        chordIn: rib.chordIn,
+        lines: ribRevisionLines(candidate.lines, rib.study.lines),
+        changeNote: `Gauge, rivet and pitch schedule of rib ${name} from wing study "${study.name}" revision ${study.revision}`,
+      },
+      basis,
+      study.id,
+    );
   }
 
   async function applyWingSkin(user: Express.User, study: StudyDetail, body: ApplyStudyInput, name: string) {
@@ -199,29 +304,48 @@ export const studiesService = (db: Db) => {
     const panel = result.skins.find((s) => s.name === name);
     if (!panel) throw notFound(`skin panel ${name} in this study`);
     const candidate = panel.candidates.find((c) => sameChoice(c, body));
-    if (!candidate) throw notFound(`candidate ${body.gaugeIn} in with ${body.rivet} for skin panel ${name} in this study`);
+    if (!candidate)
+      throw notFound(`candidate ${body.gaugeIn} in with ${body.rivet} for skin panel ${name} in this study`);
     refuseUnfeasible(candidate, ` on skin panel ${name}`);
     if (candidate.lines.length !== SKIN_LINES.length) {
-      throw conflict(`the study keeps the zones of skin panel ${name}'s recommended candidate (${choiceText(panel.recommended)}) only: choose that one`);
+      throw conflict(
+        `the study keeps the zones of skin panel ${name}'s recommended candidate (${choiceText(panel.recommended)}) only: choose that one`,
+      );
     }
     const design = await targetDesign(user, study, body.partDesignId, ['skin_panel'], `skin panel ${name}`);
     const inputs = study.inputs as WingStudyInputValues;
     const lines = candidate.lines.map((schedule, i) => ({
       // A panel's lines are 'flat' (a panel's convention): drawn as rows of their own, not along an airfoil.
-      code: SKIN_LINES[i].code, name: SKIN_LINES[i].name(panel), surface: 'flat' as const,
-      startIn: 0, lengthIn: thou(schedule.lengthIn), zones: revisionZones(schedule),
+      code: SKIN_LINES[i].code,
+      name: SKIN_LINES[i].name(panel),
+      surface: 'flat' as const,
+      startIn: 0,
+      lengthIn: thou(schedule.lengthIn),
+      zones: revisionZones(schedule),
     }));
     // A revision's lines all run one way from startIn; a panel's spar lines run spanwise (its width) and
     // its rib lines chordwise between the spars. chordIn is the panel's longest side so that the drawing
     // holds every line; its true sides are in the basis. (See server/studies/README.md.)
-    const chordIn = Math.ceil(Math.max(panel.outerStationIn - panel.innerStationIn, ...lines.map((l) => l.lengthIn)) * 1000) / 1000;
+    const chordIn =
+      Math.ceil(Math.max(panel.outerStationIn - panel.innerStationIn, ...lines.map((l) => l.lengthIn)) * 1000) / 1000;
     const { candidates: _all, ...place } = panel;
     void _all;
-    const basis = wingBasis(study, result, { kind: 'skin', ...place }, candidate, [...result.warnings, ...candidate.warnings]);
-    return writeRevision(user, design, {
-      ...sheetOf(inputs.material, candidate, candidate.lines), chordIn, lines,
-      changeNote: `Skin gauge, rivet and pitch schedules of panel ${name} from wing study "${study.name}" revision ${study.revision}`,
-    }, basis, study.id);
+    const basis = wingBasis(study, result, { kind: 'skin', ...place }, candidate, [
+      ...result.warnings,
+      ...candidate.warnings,
+    ]);
+    return writeRevision(
+      user,
+      design,
+      {
+        ...sheetOf(inputs.material, candidate, candidate.lines),
+        chordIn,
+        lines,
+        changeNote: `Skin gauge, rivet and pitch schedules of panel ${name} from wing study "${study.name}" revision ${study.revision}`,
+      },
+      basis,
+      study.id,
+    );
   }
 
   return {
@@ -231,7 +355,11 @@ export const studiesService = (db: Db) => {
       if (!user.organizationId) return { items: [], next: null };
       const page = await pageStudyRows(db, user.organizationId, q);
       return {
-        items: page.items.map(({ updatedAt, recommended, ...s }) => ({ ...s, updatedAt: new Date(updatedAt).toISOString(), recommended: recommended ?? null })),
+        items: page.items.map(({ updatedAt, recommended, ...s }) => ({
+          ...s,
+          updatedAt: new Date(updatedAt).toISOString(),
+          recommended: recommended ?? null,
+        })),
         next: page.next,
       };
     },
@@ -240,8 +368,19 @@ export const studiesService = (db: Db) => {
       await kits.get(user, body.kitModelId);
       const result = await compute(user, body);
       const id = await db.transaction(async (tx) => {
-        const [study] = await tx.insert(loadStudies).values({ organizationId: user.organizationId!, kind: body.kind, kitModelId: body.kitModelId, name: body.name, createdBy: user.id }).returning();
-        await tx.insert(loadStudyRevisions).values({ studyId: study.id, revision: 1, inputs: body.inputs, result, createdBy: user.id });
+        const [study] = await tx
+          .insert(loadStudies)
+          .values({
+            organizationId: user.organizationId!,
+            kind: body.kind,
+            kitModelId: body.kitModelId,
+            name: body.name,
+            createdBy: user.id,
+          })
+          .returning();
+        await tx
+          .insert(loadStudyRevisions)
+          .values({ studyId: study.id, revision: 1, inputs: body.inputs, result, createdBy: user.id });
         return study.id;
       });
       return detail(user, id);
@@ -253,14 +392,27 @@ export const studiesService = (db: Db) => {
      */
     async update(user: Express.User, id: string, body: StudyBody) {
       const study = await own(user, id);
-      if (study.kind !== body.kind) throw conflict(`this is a ${study.kind} study: its revisions stay ${study.kind} studies (start a new study for a ${body.kind})`, { kind: `this study is of a ${study.kind}` });
+      if (study.kind !== body.kind)
+        throw conflict(
+          `this is a ${study.kind} study: its revisions stay ${study.kind} studies (start a new study for a ${body.kind})`,
+          { kind: `this study is of a ${study.kind}` },
+        );
       await kits.get(user, body.kitModelId);
       const result = await compute(user, body);
       await db.transaction(async (tx) => {
-        const [row] = await tx.update(loadStudies)
-          .set({ latestRevision: sql`${loadStudies.latestRevision} + 1`, name: body.name, kitModelId: body.kitModelId, updatedAt: new Date() })
-          .where(eq(loadStudies.id, id)).returning();
-        await tx.insert(loadStudyRevisions).values({ studyId: id, revision: row.latestRevision, inputs: body.inputs, result, createdBy: user.id });
+        const [row] = await tx
+          .update(loadStudies)
+          .set({
+            latestRevision: sql`${loadStudies.latestRevision} + 1`,
+            name: body.name,
+            kitModelId: body.kitModelId,
+            updatedAt: new Date(),
+          })
+          .where(eq(loadStudies.id, id))
+          .returning();
+        await tx
+          .insert(loadStudyRevisions)
+          .values({ studyId: id, revision: row.latestRevision, inputs: body.inputs, result, createdBy: user.id });
       });
       return detail(user, id);
     },
@@ -295,7 +447,10 @@ export const studiesService = (db: Db) => {
     async apply(user: Express.User, id: string, body: ApplyStudyInput) {
       const study = await detail(user, id);
       if (study.kind === 'rib') return applyRib(user, study, body);
-      if (!body.target) throw badRequest('a wing study applies one rib or one skin panel: choose which', { target: 'choose a rib or a skin panel of the wing' });
+      if (!body.target)
+        throw badRequest('a wing study applies one rib or one skin panel: choose which', {
+          target: 'choose a rib or a skin panel of the wing',
+        });
       return body.target.kind === 'rib'
         ? applyWingRib(user, study, body, body.target.name)
         : applyWingSkin(user, study, body, body.target.name);

@@ -80,9 +80,17 @@ export async function closeStudyPool(): Promise<void> {
 const busy = () =>
   new HttpError(503, 'busy', 'the server is working through other load studies: try again in a minute');
 const tooLong = (ms: number) =>
-  new HttpError(422, 'study_too_long', `the study ran longer than ${Math.round(ms / 1000)} s and was stopped: study fewer gauges or rivets at once, use a coarser pitch increment or fewer panels`);
+  new HttpError(
+    422,
+    'study_too_long',
+    `the study ran longer than ${Math.round(ms / 1000)} s and was stopped: study fewer gauges or rivets at once, use a coarser pitch increment or fewer panels`,
+  );
 const tooBig = () =>
-  new HttpError(422, 'study_too_large', 'the study needed more memory than a study may use and was stopped: study fewer gauges or rivets at once, or fewer or shorter lines');
+  new HttpError(
+    422,
+    'study_too_large',
+    'the study needed more memory than a study may use and was stopped: study fewer gauges or rivets at once, or fewer or shorter lines',
+  );
 
 /**
  * Runs a study job (a rib, a whole wing, or one rib candidate with its holes) on a worker thread.
@@ -113,7 +121,8 @@ export async function runStudy<J extends StudyJob>(job: J): Promise<StudyJobResu
     if (err instanceof EngineeringInputError) throw err;
     if (stop.signal.aborted) throw state.phase === 'running' ? tooLong(runMs) : busy();
     const e = err as { message?: string; code?: string };
-    if (e?.message === 'Task queue is at limit' || e?.message === 'No task queue available and all Workers are busy') throw busy();
+    if (e?.message === 'Task queue is at limit' || e?.message === 'No task queue available and all Workers are busy')
+      throw busy();
     if (e?.code === 'ERR_WORKER_OUT_OF_MEMORY') throw tooBig();
     throw err;
   } finally {

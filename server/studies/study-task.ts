@@ -22,17 +22,26 @@ export type StudyJob =
   | { kind: 'rib'; input: RibStudyInput }
   | { kind: 'wing'; input: WingStudyInput }
   | { kind: 'rib-candidate'; input: RibStudyInput; pick: { gaugeIn: number; rivet: string } };
-export type StudyJobResult<J extends StudyJob> =
-  J extends { kind: 'rib' } ? RibStudyResult : J extends { kind: 'wing' } ? WingStudyResult : StudyCandidate;
+export type StudyJobResult<J extends StudyJob> = J extends { kind: 'rib' }
+  ? RibStudyResult
+  : J extends { kind: 'wing' }
+    ? WingStudyResult
+    : StudyCandidate;
 export type StudyTask = StudyJob & { started: MessagePort };
-export type StudyOutcome = { ok: true; result: RibStudyResult | WingStudyResult | StudyCandidate } | { ok: false; field: string; reason: string };
+export type StudyOutcome =
+  | { ok: true; result: RibStudyResult | WingStudyResult | StudyCandidate }
+  | { ok: false; field: string; reason: string };
 
 function run(job: StudyJob): RibStudyResult | WingStudyResult | StudyCandidate {
   switch (job.kind) {
-    case 'rib': return ribStudy(job.input);
-    case 'wing': return wingStudy(job.input);
-    case 'rib-candidate': return ribCandidate(job.input, job.pick);
-    default: throw new EngineeringInputError('kind', 'a study is of a rib or of a wing');
+    case 'rib':
+      return ribStudy(job.input);
+    case 'wing':
+      return wingStudy(job.input);
+    case 'rib-candidate':
+      return ribCandidate(job.input, job.pick);
+    default:
+      throw new EngineeringInputError('kind', 'a study is of a rib or of a wing');
   }
 }
 

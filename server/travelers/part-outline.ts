@@ -25,5 +25,10 @@ export function partOutline(kind: PartKind, airfoil: string, chordIn: number): [
     }
   }
   const h = Math.max(chordIn * 0.25, 2);
-  return [[0, 0], [chordIn, 0], [chordIn, h], [0, h]];
+  return [
+    [0, 0],
+    [chordIn, 0],
+    [chordIn, h],
+    [0, h],
+  ];
 }

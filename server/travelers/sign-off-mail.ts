@@ -3,8 +3,16 @@
 const esc = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 
 export function signOffWithdrawnMail(f: {
-  to: string; kitSerial: string; partNumber: string; partName: string; letter: string; serial: string;
-  actorName: string; reason: string; signedOffAt: Date | null; link: string;
+  to: string;
+  kitSerial: string;
+  partNumber: string;
+  partName: string;
+  letter: string;
+  serial: string;
+  actorName: string;
+  reason: string;
+  signedOffAt: Date | null;
+  link: string;
 }) {
   const what = 'Sign-off withdrawn: the part is open again';
   const subject = `[${f.kitSerial}] ${f.partNumber} rev ${f.letter} traveler ${f.serial}: ${what}`;

@@ -1,9 +1,24 @@
 import { and, asc, count, eq, ilike, inArray, isNotNull, isNull, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
-import { builds, designRevisions, findings, holes, kitModels, organizations, partDesigns, travelerSteps, travelers } from '../../db/schema';
 import {
-  holesAwaitingInspectorStatuses, holesDoneStatuses, openFindingStatuses,
-  type Hole, type HoleStatus, type PartFacts, type TravelerSummary,
+  builds,
+  designRevisions,
+  findings,
+  holes,
+  kitModels,
+  organizations,
+  partDesigns,
+  travelerSteps,
+  travelers,
+} from '../../db/schema';
+import {
+  holesAwaitingInspectorStatuses,
+  holesDoneStatuses,
+  openFindingStatuses,
+  type Hole,
+  type HoleStatus,
+  type PartFacts,
+  type TravelerSummary,
 } from '../../db/contracts';
 import { placeColumn, visibleBuilds } from '../builds/build-access';
 import { preparedFor, viewerAsParams, type Viewer } from '../prepared';
@@ -12,12 +27,18 @@ import { checkLayout } from '../designs/layout-check';
 import { newQrToken, newShortCode } from './codes';
 import { placeHoles } from './hole-layout';
 
-
 /** Live parts first, then by serial (kit serial and part number, a replacement right after its original), then id. */
 const replacedRank = sql<boolean>`(${travelers.replacedById} is not null)`;
 
 /** Filters of the travelers list, all applied in SQL. */
-export type TravelerListFilter = { buildId?: string; id?: string; qrToken?: string; shortCode?: string; show?: 'open' | 'signed' | 'all'; text?: string };
+export type TravelerListFilter = {
+  buildId?: string;
+  id?: string;
+  qrToken?: string;
+  shortCode?: string;
+  show?: 'open' | 'signed' | 'all';
+  text?: string;
+};
 
 const likeText = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
@@ -31,8 +52,15 @@ function listConditions(db: Db, user: Express.User, by: TravelerListFilter): SQL
   if (by.show === 'signed') conditions.push(isNotNull(travelers.signedOffAt));
   if (by.text) {
     const like = likeText(by.text);
-    conditions.push(or(ilike(partDesigns.partNumber, like), ilike(partDesigns.name, like), ilike(travelers.serial, like),
-      ilike(travelers.shortCode, like), ilike(builds.kitSerial, like))!);
+    conditions.push(
+      or(
+        ilike(partDesigns.partNumber, like),
+        ilike(partDesigns.name, like),
+        ilike(travelers.serial, like),
+        ilike(travelers.shortCode, like),
+        ilike(builds.kitSerial, like),
+      )!,
+    );
   }
   return conditions;
 }
@@ -47,11 +75,14 @@ const newerRevisionColumn = sql<string | null>`case when ${designRevisions.statu
 
 /** The ids of the travelers the user may see, filtered: the inner query of a list. */
 function pickIds(db: Db, user: Express.User, by: TravelerListFilter, after?: SQL) {
-  return db.select({ id: travelers.id }).from(travelers)
+  return db
+    .select({ id: travelers.id })
+    .from(travelers)
     .innerJoin(builds, eq(builds.id, travelers.buildId))
     .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
     .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
-    .where(and(...listConditions(db, user, by), after)).$dynamic();
+    .where(and(...listConditions(db, user, by), after))
+    .$dynamic();
 }
 
 /**
@@ -60,26 +91,52 @@ function pickIds(db: Db, user: Express.User, by: TravelerListFilter, after?: SQL
  */
 function summaries(db: Db, picked: ReturnType<typeof pickIds>, order: 'list' | 'build') {
   const page = picked.as('page');
-  const holeCounts = db.select({
-    total: sql<number>`count(*)::int`.as('holes_total'),
-    done: sql<number>`(count(*) filter (where ${inArray(holes.status, [...holesDoneStatuses])}))::int`.as('holes_done'),
-    awaiting: sql<number>`(count(*) filter (where ${inArray(holes.status, [...holesAwaitingInspectorStatuses])}))::int`.as('holes_awaiting'),
-  }).from(holes).where(eq(holes.travelerId, travelers.id)).as('hole_counts');
-  return db.select({
-    id: travelers.id, serial: travelers.serial, shortCode: travelers.shortCode, buildId: travelers.buildId, kitSerial: builds.kitSerial,
-    partNumber: partDesigns.partNumber, partName: partDesigns.name, kind: partDesigns.kind, letter: designRevisions.letter,
-    signedOffAt: travelers.signedOffAt, replacedById: travelers.replacedById, replacedReason: travelers.replacedReason, replacesId: travelers.replacesId,
-    holesTotal: holeCounts.total, holesDone: holeCounts.done, holesAwaitingInspector: holeCounts.awaiting,
-    openFindings: openFindingsColumn, newerRevision: newerRevisionColumn,
-  }).from(page)
+  const holeCounts = db
+    .select({
+      total: sql<number>`count(*)::int`.as('holes_total'),
+      done: sql<number>`(count(*) filter (where ${inArray(holes.status, [...holesDoneStatuses])}))::int`.as(
+        'holes_done',
+      ),
+      awaiting:
+        sql<number>`(count(*) filter (where ${inArray(holes.status, [...holesAwaitingInspectorStatuses])}))::int`.as(
+          'holes_awaiting',
+        ),
+    })
+    .from(holes)
+    .where(eq(holes.travelerId, travelers.id))
+    .as('hole_counts');
+  return db
+    .select({
+      id: travelers.id,
+      serial: travelers.serial,
+      shortCode: travelers.shortCode,
+      buildId: travelers.buildId,
+      kitSerial: builds.kitSerial,
+      partNumber: partDesigns.partNumber,
+      partName: partDesigns.name,
+      kind: partDesigns.kind,
+      letter: designRevisions.letter,
+      signedOffAt: travelers.signedOffAt,
+      replacedById: travelers.replacedById,
+      replacedReason: travelers.replacedReason,
+      replacesId: travelers.replacesId,
+      holesTotal: holeCounts.total,
+      holesDone: holeCounts.done,
+      holesAwaitingInspector: holeCounts.awaiting,
+      openFindings: openFindingsColumn,
+      newerRevision: newerRevisionColumn,
+    })
+    .from(page)
     .innerJoin(travelers, eq(travelers.id, page.id))
     .innerJoin(builds, eq(builds.id, travelers.buildId))
     .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
     .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
     .leftJoinLateral(holeCounts, sql`true`)
-    .orderBy(...(order === 'list'
-      ? [asc(replacedRank), asc(travelers.serial), asc(travelers.id)]
-      : [asc(builds.kitSerial), asc(partDesigns.partNumber), asc(travelers.createdAt), asc(travelers.id)]));
+    .orderBy(
+      ...(order === 'list'
+        ? [asc(replacedRank), asc(travelers.serial), asc(travelers.id)]
+        : [asc(builds.kitSerial), asc(partDesigns.partNumber), asc(travelers.createdAt), asc(travelers.id)]),
+    );
 }
 
 type SummaryRow = Awaited<ReturnType<typeof summaries>>[number];
@@ -87,7 +144,9 @@ type SummaryRow = Awaited<ReturnType<typeof summaries>>[number];
 function toSummary({ signedOffAt, replacedById, replacedReason, replacesId, ...t }: SummaryRow): TravelerSummary {
   return {
     ...t,
-    holesTotal: t.holesTotal ?? 0, holesDone: t.holesDone ?? 0, holesAwaitingInspector: t.holesAwaitingInspector ?? 0,
+    holesTotal: t.holesTotal ?? 0,
+    holesDone: t.holesDone ?? 0,
+    holesAwaitingInspector: t.holesAwaitingInspector ?? 0,
     signedOff: signedOffAt !== null,
     replaced: replacedById ? { byId: replacedById, reason: replacedReason! } : null,
     replacesId,
@@ -95,7 +154,11 @@ function toSummary({ signedOffAt, replacedById, replacedReason, replacesId, ...t
 }
 
 /** Travelers the user may see, with progress; `by` narrows further (one build, one traveler, a code). Unpaged: for one build or one part. */
-export async function listTravelers(db: Db, user: Express.User, by: TravelerListFilter = {}): Promise<TravelerSummary[]> {
+export async function listTravelers(
+  db: Db,
+  user: Express.User,
+  by: TravelerListFilter = {},
+): Promise<TravelerSummary[]> {
   return (await summaries(db, pickIds(db, user, by), 'build')).map(toSummary);
 }
 
@@ -107,8 +170,14 @@ export type TravelerCursor = readonly [number, string, string];
  * picks the page's ids alone (visibility, filters, keyset, limit + 1), which an index on the order
  * answers without reading the rest; only those rows are then counted and joined.
  */
-export async function listTravelerPage(db: Db, user: Express.User, by: TravelerListFilter, after: TravelerCursor | null, limit: number) {
-  const key = after ? [after[0] === 1 ? 'true' : 'false', after[1], after[2]] as const : null;
+export async function listTravelerPage(
+  db: Db,
+  user: Express.User,
+  by: TravelerListFilter,
+  after: TravelerCursor | null,
+  limit: number,
+) {
+  const key = after ? ([after[0] === 1 ? 'true' : 'false', after[1], after[2]] as const) : null;
   const ids = pickIds(db, user, by, afterKey([replacedRank, travelers.serial, travelers.id], key, 'asc'))
     .orderBy(asc(replacedRank), asc(travelers.serial), asc(travelers.id))
     .limit(limit + 1);
@@ -128,28 +197,42 @@ export async function readTravelerPage(db: Db, user: Express.User, id: string) {
 }
 
 function travelerPageQuery(db: Db, user: Viewer) {
-  return db.select({
-    traveler: travelers,
-    // The revision's own columns the page shows, not its study basis (which can be large).
-    revision: {
-      letter: designRevisions.letter, status: designRevisions.status, material: designRevisions.material, gaugeIn: designRevisions.gaugeIn,
-      rivetSpec: designRevisions.rivetSpec, drillSize: designRevisions.drillSize, drillDiameterIn: designRevisions.drillDiameterIn,
-      edgeDistanceIn: designRevisions.edgeDistanceIn, chordIn: designRevisions.chordIn, lines: designRevisions.lines, publishedBy: designRevisions.publishedBy,
-    },
-    design: { partNumber: partDesigns.partNumber, name: partDesigns.name, kind: partDesigns.kind },
-    kit: { airfoil: kitModels.airfoil },
-    kitSerial: builds.kitSerial, place: placeColumn(user),
-    openFindings: openFindingsColumn, newerRevision: newerRevisionColumn,
-    approvedByName: sql<string | null>`(select u.name from users u where u.id = ${designRevisions.publishedBy})`,
-    signedOffByName: sql<string | null>`(select u.name from users u where u.id = ${travelers.signedOffBy})`,
-    replacedBySerial: sql<string | null>`(select r.serial from travelers r where r.id = ${travelers.replacedById})`,
-    replacesSerial: sql<string | null>`(select r.serial from travelers r where r.id = ${travelers.replacesId})`,
-    holes: sql<Hole[]>`(select coalesce(json_agg(json_build_object('holeId', h.hole_id, 'line', h.line, 'seq', h.seq,
+  return db
+    .select({
+      traveler: travelers,
+      // The revision's own columns the page shows, not its study basis (which can be large).
+      revision: {
+        letter: designRevisions.letter,
+        status: designRevisions.status,
+        material: designRevisions.material,
+        gaugeIn: designRevisions.gaugeIn,
+        rivetSpec: designRevisions.rivetSpec,
+        drillSize: designRevisions.drillSize,
+        drillDiameterIn: designRevisions.drillDiameterIn,
+        edgeDistanceIn: designRevisions.edgeDistanceIn,
+        chordIn: designRevisions.chordIn,
+        lines: designRevisions.lines,
+        publishedBy: designRevisions.publishedBy,
+      },
+      design: { partNumber: partDesigns.partNumber, name: partDesigns.name, kind: partDesigns.kind },
+      kit: { airfoil: kitModels.airfoil },
+      kitSerial: builds.kitSerial,
+      place: placeColumn(user),
+      openFindings: openFindingsColumn,
+      newerRevision: newerRevisionColumn,
+      approvedByName: sql<string | null>`(select u.name from users u where u.id = ${designRevisions.publishedBy})`,
+      signedOffByName: sql<string | null>`(select u.name from users u where u.id = ${travelers.signedOffBy})`,
+      replacedBySerial: sql<string | null>`(select r.serial from travelers r where r.id = ${travelers.replacedById})`,
+      replacesSerial: sql<string | null>`(select r.serial from travelers r where r.id = ${travelers.replacesId})`,
+      holes: sql<Hole[]>`(select coalesce(json_agg(json_build_object('holeId', h.hole_id, 'line', h.line, 'seq', h.seq,
       'stationIn', h.station_in, 'status', h.status) order by h.line, h.seq), '[]'::json) from holes h where h.traveler_id = ${travelers.id})`,
-    steps: sql<{ id: string; seq: number; text: string; doneAt: string | null; doneByName: string | null }[]>`(select coalesce(json_agg(json_build_object(
+      steps: sql<
+        { id: string; seq: number; text: string; doneAt: string | null; doneByName: string | null }[]
+      >`(select coalesce(json_agg(json_build_object(
       'id', s.id, 'seq', s.seq, 'text', s.text, 'doneAt', s.done_at, 'doneByName', u.name) order by s.seq), '[]'::json)
       from traveler_steps s left join users u on u.id = s.done_by where s.traveler_id = ${travelers.id})`,
-  }).from(travelers)
+    })
+    .from(travelers)
     .innerJoin(builds, eq(builds.id, travelers.buildId))
     .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
     .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
@@ -165,17 +248,22 @@ function travelerPageQuery(db: Db, user: Viewer) {
 export async function lockVisibleTraveler(tx: Db, user: Express.User, id: string) {
   const { shape, viewer, params } = viewerAsParams(user);
   // Prepared on the unit of work's connection (db/index.ts keeps one client per connection): every bench write starts here.
-  const statement = preparedFor(tx, `traveler_lock_${shape}`, (name) => tx.select({ traveler: travelers, place: placeColumn(viewer) }).from(travelers)
-    .innerJoin(builds, eq(builds.id, travelers.buildId))
-    .where(and(eq(travelers.id, sql.placeholder('id')), visibleBuilds(tx, viewer)))
-    .for('no key update', { of: travelers })
-    .prepare(name));
+  const statement = preparedFor(tx, `traveler_lock_${shape}`, (name) =>
+    tx
+      .select({ traveler: travelers, place: placeColumn(viewer) })
+      .from(travelers)
+      .innerJoin(builds, eq(builds.id, travelers.buildId))
+      .where(and(eq(travelers.id, sql.placeholder('id')), visibleBuilds(tx, viewer)))
+      .for('no key update', { of: travelers })
+      .prepare(name),
+  );
   const [row] = await statement.execute({ ...params, id });
   return row;
 }
 
 export async function findTravelerParts(db: Db, id: string) {
-  const [row] = await db.select({ traveler: travelers, revision: designRevisions, design: partDesigns, kit: kitModels })
+  const [row] = await db
+    .select({ traveler: travelers, revision: designRevisions, design: partDesigns, kit: kitModels })
     .from(travelers)
     .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
     .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
@@ -198,7 +286,11 @@ export async function lockTraveler(tx: Db, id: string) {
  * What the part rules read, counted by the database in one statement (call it with the traveler locked);
  * with `holeIds`, those holes of the part as they stand, for a tick to check.
  */
-export async function readPartFacts(tx: Db, t: typeof travelers.$inferSelect, holeIds?: string[]): Promise<PartFacts & { picked: Hole[] }> {
+export async function readPartFacts(
+  tx: Db,
+  t: typeof travelers.$inferSelect,
+  holeIds?: string[],
+): Promise<PartFacts & { picked: Hole[] }> {
   const picked = holeIds?.length
     ? sql`(select coalesce(json_agg(json_build_object('holeId', h.hole_id, 'line', h.line, 'seq', h.seq, 'stationIn', h.station_in, 'status', h.status)), '[]'::json)
         from holes h where h.traveler_id = ${t.id} and h.hole_id in ${holeIds})`
@@ -209,10 +301,19 @@ export async function readPartFacts(tx: Db, t: typeof travelers.$inferSelect, ho
     (select count(*)::int from traveler_steps where traveler_id = ${t.id} and done_at is null) as "stepsOpen",
     (select count(*)::int from findings where traveler_id = ${t.id} and ${inArray(findings.status, [...openFindingStatuses])}) as "openFindings",
     ${picked} as picked`);
-  const row = res.rows[0] as { holes: Partial<Record<HoleStatus, number>>; stepsOpen: number; openFindings: number; picked: Hole[] };
+  const row = res.rows[0] as {
+    holes: Partial<Record<HoleStatus, number>>;
+    stepsOpen: number;
+    openFindings: number;
+    picked: Hole[];
+  };
   return {
-    holes: row.holes, stepsOpen: row.stepsOpen, openFindings: row.openFindings,
-    signedOff: t.signedOffAt !== null, replaced: t.replacedById !== null, picked: row.picked,
+    holes: row.holes,
+    stepsOpen: row.stepsOpen,
+    openFindings: row.openFindings,
+    signedOff: t.signedOffAt !== null,
+    replaced: t.replacedById !== null,
+    picked: row.picked,
   };
 }
 
@@ -220,7 +321,14 @@ export async function readPartFacts(tx: Db, t: typeof travelers.$inferSelect, ho
  * Sets holes of a part from one status to another and writes the bench event, in one statement; the
  * event only when some hole changed. Returns the holes changed.
  */
-export async function setHolesWithEvent(tx: Db, travelerId: string, actorId: string, holeIds: string[], from: HoleStatus, to: HoleStatus): Promise<Hole[]> {
+export async function setHolesWithEvent(
+  tx: Db,
+  travelerId: string,
+  actorId: string,
+  holeIds: string[],
+  from: HoleStatus,
+  to: HoleStatus,
+): Promise<Hole[]> {
   const res = await tx.execute(sql`with changed as (
       update holes set status = ${to}, updated_by = ${actorId}, updated_at = now()
       where traveler_id = ${travelerId} and hole_id in ${holeIds} and status = ${from}
@@ -254,17 +362,26 @@ export async function insertTraveler(
   tx: Db,
   t: { buildId: string; serial: string; revision: typeof designRevisions.$inferSelect; replacesId?: string },
 ) {
-  const [traveler] = await tx.insert(travelers).values({
-    buildId: t.buildId, revisionId: t.revision.id, serial: t.serial, qrToken: newQrToken(), shortCode: await freeShortCode(tx),
-    replacesId: t.replacesId ?? null,
-  }).returning();
+  const [traveler] = await tx
+    .insert(travelers)
+    .values({
+      buildId: t.buildId,
+      revisionId: t.revision.id,
+      serial: t.serial,
+      qrToken: newQrToken(),
+      shortCode: await freeShortCode(tx),
+      replacesId: t.replacesId ?? null,
+    })
+    .returning();
   const minPitch = checkLayout(t.revision);
   const placed = t.revision.lines.flatMap((line) => placeHoles(line, t.revision.edgeDistanceIn, minPitch));
   for (let i = 0; i < placed.length; i += HOLE_BATCH) {
     await tx.insert(holes).values(placed.slice(i, i + HOLE_BATCH).map((h) => ({ ...h, travelerId: traveler.id })));
   }
   if (t.revision.steps.length) {
-    await tx.insert(travelerSteps).values(t.revision.steps.map((text, i) => ({ travelerId: traveler.id, seq: i + 1, text })));
+    await tx
+      .insert(travelerSteps)
+      .values(t.revision.steps.map((text, i) => ({ travelerId: traveler.id, seq: i + 1, text })));
   }
   return traveler;
 }
@@ -272,7 +389,9 @@ export async function insertTraveler(
 /** The revision a replacement part is made to: the part's current published one, else the one it had. */
 export async function currentRevisionOf(tx: Db, revisionId: string) {
   const [old] = await tx.select().from(designRevisions).where(eq(designRevisions.id, revisionId));
-  const [published] = await tx.select().from(designRevisions)
+  const [published] = await tx
+    .select()
+    .from(designRevisions)
     .where(and(eq(designRevisions.partDesignId, old.partDesignId), eq(designRevisions.status, 'published')));
   return published ?? old;
 }
@@ -281,17 +400,30 @@ export async function currentRevisionOf(tx: Db, revisionId: string) {
 export async function replacementSerial(tx: Db, t: typeof travelers.$inferSelect): Promise<string> {
   // Only a replacement carries an -R suffix of ours; a part number may end in R1 of its own.
   const base = t.replacesId ? t.serial.replace(/-R\d+$/, '') : t.serial;
-  const [{ n }] = await tx.select({ n: count() }).from(travelers).where(sql`${travelers.serial} like ${`${base}-R%`}`);
+  const [{ n }] = await tx
+    .select({ n: count() })
+    .from(travelers)
+    .where(sql`${travelers.serial} like ${`${base}-R%`}`);
   return `${base}-R${n + 1}`;
 }
 
 /** What a QR label prints, for one part or a whole build (the caller has checked who may print). */
 export async function listLabelRows(db: Db, by: { buildId: string } | { travelerId: string }) {
-  return db.select({
-    travelerId: travelers.id, serial: travelers.serial, shortCode: travelers.shortCode, qrToken: travelers.qrToken,
-    partNumber: partDesigns.partNumber, partName: partDesigns.name, letter: designRevisions.letter,
-    kitModelCode: kitModels.code, kitModelName: kitModels.name, supplierName: organizations.name, kitSerial: builds.kitSerial,
-  }).from(travelers)
+  return db
+    .select({
+      travelerId: travelers.id,
+      serial: travelers.serial,
+      shortCode: travelers.shortCode,
+      qrToken: travelers.qrToken,
+      partNumber: partDesigns.partNumber,
+      partName: partDesigns.name,
+      letter: designRevisions.letter,
+      kitModelCode: kitModels.code,
+      kitModelName: kitModels.name,
+      supplierName: organizations.name,
+      kitSerial: builds.kitSerial,
+    })
+    .from(travelers)
     .innerJoin(builds, eq(builds.id, travelers.buildId))
     .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
     .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))

@@ -1,6 +1,14 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { idParam, labelsQuery, lookupInput, stepInput, tickHolesInput, travelerListQuery, withdrawSignOffInput } from '../../db/contracts';
+import {
+  idParam,
+  labelsQuery,
+  lookupInput,
+  stepInput,
+  tickHolesInput,
+  travelerListQuery,
+  withdrawSignOffInput,
+} from '../../db/contracts';
 import type { AppContext } from '../context';
 import { findingsService } from '../findings/findings-service';
 import { validateBody, validateQuery } from '../middleware/validate';
@@ -11,17 +19,32 @@ const stepParams = z.object({ id: z.uuid({ message: 'must be an id' }), stepId: 
 export function travelersRouter(ctx: AppContext): Router {
   const r = Router();
   const findings = findingsService(ctx);
-  const service = travelersService(ctx.db, ctx.pool, findings.list, { mailQueue: ctx.mailQueue, publicUrl: ctx.config.publicUrl });
-  r.get('/', validateQuery(travelerListQuery), async (req, res) => { res.json(await service.page(req.user!, res.locals.query)); });
-  r.get('/labels', validateQuery(labelsQuery), async (req, res) => { res.json(await service.labels(req.user!, res.locals.query)); });
-  r.get('/lookup', validateQuery(lookupInput), async (req, res) => { res.json(await service.lookup(req.user!, res.locals.query.code)); });
-  r.get('/:id', async (req, res) => { res.json(await service.detail(req.user!, idParam.parse(req.params).id)); });
-  r.post('/:id/holes', validateBody(tickHolesInput), async (req, res) => { res.json(await service.tickHoles(req.user!, idParam.parse(req.params).id, req.body)); });
+  const service = travelersService(ctx.db, ctx.pool, findings.list, {
+    mailQueue: ctx.mailQueue,
+    publicUrl: ctx.config.publicUrl,
+  });
+  r.get('/', validateQuery(travelerListQuery), async (req, res) => {
+    res.json(await service.page(req.user!, res.locals.query));
+  });
+  r.get('/labels', validateQuery(labelsQuery), async (req, res) => {
+    res.json(await service.labels(req.user!, res.locals.query));
+  });
+  r.get('/lookup', validateQuery(lookupInput), async (req, res) => {
+    res.json(await service.lookup(req.user!, res.locals.query.code));
+  });
+  r.get('/:id', async (req, res) => {
+    res.json(await service.detail(req.user!, idParam.parse(req.params).id));
+  });
+  r.post('/:id/holes', validateBody(tickHolesInput), async (req, res) => {
+    res.json(await service.tickHoles(req.user!, idParam.parse(req.params).id, req.body));
+  });
   r.post('/:id/steps/:stepId', validateBody(stepInput), async (req, res) => {
     const { id, stepId } = stepParams.parse(req.params);
     res.json(await service.setStep(req.user!, id, stepId, req.body.done));
   });
-  r.post('/:id/sign-off', async (req, res) => { res.json(await service.signOff(req.user!, idParam.parse(req.params).id)); });
+  r.post('/:id/sign-off', async (req, res) => {
+    res.json(await service.signOff(req.user!, idParam.parse(req.params).id));
+  });
   r.post('/:id/sign-off/withdraw', validateBody(withdrawSignOffInput), async (req, res) => {
     res.json(await service.withdrawSignOff(req.user!, idParam.parse(req.params).id, req.body.reason));
   });

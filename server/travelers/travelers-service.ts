@@ -1,9 +1,22 @@
 import { and, eq, sql } from 'drizzle-orm';
 import QRCode from 'qrcode';
 import {
-  allowedPartActions, checkPartAction, holesAwaitingInspectorStatuses, holesDoneStatuses, mayPrintLabels, signOffReadiness,
-  type HoleStatus, type LabelsQuery, type Page, type PartAction, type PartFacts, type PartLabel, type TickHolesInput, type TravelerDetail,
-  type TravelerListQuery, type TravelerSummary,
+  allowedPartActions,
+  checkPartAction,
+  holesAwaitingInspectorStatuses,
+  holesDoneStatuses,
+  mayPrintLabels,
+  signOffReadiness,
+  type HoleStatus,
+  type LabelsQuery,
+  type Page,
+  type PartAction,
+  type PartFacts,
+  type PartLabel,
+  type TickHolesInput,
+  type TravelerDetail,
+  type TravelerListQuery,
+  type TravelerSummary,
 } from '../../db/contracts';
 import { withTransaction, type Db, type Tx } from '../../db';
 import type { Pool } from 'pg';
@@ -19,8 +32,16 @@ import { parseTravelerCode } from './codes';
 import { partOutline } from './part-outline';
 import { signOffWithdrawnMail } from './sign-off-mail';
 import {
-  clearSignOff, listLabelRows, listTravelerPage, listTravelers, lockTraveler, lockVisibleTraveler, readPartFacts, readTravelerPage,
-  setHolesWithEvent, type TravelerCursor,
+  clearSignOff,
+  listLabelRows,
+  listTravelerPage,
+  listTravelers,
+  lockTraveler,
+  lockVisibleTraveler,
+  readPartFacts,
+  readTravelerPage,
+  setHolesWithEvent,
+  type TravelerCursor,
 } from './travelers-repository';
 
 /**
@@ -52,8 +73,15 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
    * the facts follow it in one statement (with `holeIds`, those holes as they stand).
    */
   async function underLock<T>(
-    user: Express.User, id: string, action: PartAction,
-    work: (tx: Db, locked: Awaited<ReturnType<typeof lockTraveler>>, unit: Tx, facts: Awaited<ReturnType<typeof readPartFacts>>) => Promise<T>,
+    user: Express.User,
+    id: string,
+    action: PartAction,
+    work: (
+      tx: Db,
+      locked: Awaited<ReturnType<typeof lockTraveler>>,
+      unit: Tx,
+      facts: Awaited<ReturnType<typeof readPartFacts>>,
+    ) => Promise<T>,
     holeIds?: string[],
   ): Promise<T> {
     return withTransaction(pool, async (unit) => {
@@ -70,7 +98,10 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
 
   /** The part's page: one statement for the part, its holes, steps and the reader's place, one for its findings, side by side. */
   async function detail(user: Express.User, id: string): Promise<TravelerDetail> {
-    const [row, travelerFindings] = await Promise.all([readTravelerPage(db, user, id), listFindings(user, { travelerId: id })]);
+    const [row, travelerFindings] = await Promise.all([
+      readTravelerPage(db, user, id),
+      listFindings(user, { travelerId: id }),
+    ]);
     if (!row) throw notFound('traveler');
     const { traveler, revision, design, kit, place } = row;
     const rivet = rivetOfCallout(revision.rivetSpec);
@@ -79,29 +110,57 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
     const byStatus: Partial<Record<HoleStatus, number>> = {};
     for (const h of holeRows) byStatus[h.status] = (byStatus[h.status] ?? 0) + 1;
     const facts: PartFacts = {
-      holes: byStatus, stepsOpen: stepRows.filter((s) => s.doneAt === null).length, openFindings: row.openFindings,
-      signedOff: traveler.signedOffAt !== null, replaced: traveler.replacedById !== null,
+      holes: byStatus,
+      stepsOpen: stepRows.filter((s) => s.doneAt === null).length,
+      openFindings: row.openFindings,
+      signedOff: traveler.signedOffAt !== null,
+      replaced: traveler.replacedById !== null,
     };
     const counted = countHoles(holeRows);
     return {
-      id: traveler.id, serial: traveler.serial, shortCode: traveler.shortCode, buildId: traveler.buildId, kitSerial: row.kitSerial,
-      partNumber: design.partNumber, partName: design.name, kind: design.kind, letter: revision.letter,
-      holesTotal: holeRows.length, holesDone: counted.done, holesAwaitingInspector: counted.awaiting, openFindings: row.openFindings,
-      signedOff: facts.signedOff, newerRevision: row.newerRevision,
+      id: traveler.id,
+      serial: traveler.serial,
+      shortCode: traveler.shortCode,
+      buildId: traveler.buildId,
+      kitSerial: row.kitSerial,
+      partNumber: design.partNumber,
+      partName: design.name,
+      kind: design.kind,
+      letter: revision.letter,
+      holesTotal: holeRows.length,
+      holesDone: counted.done,
+      holesAwaitingInspector: counted.awaiting,
+      openFindings: row.openFindings,
+      signedOff: facts.signedOff,
+      newerRevision: row.newerRevision,
       replaced: traveler.replacedById ? { byId: traveler.replacedById, reason: traveler.replacedReason! } : null,
       replacesId: traveler.replacesId,
-      material: revision.material, gaugeIn: revision.gaugeIn, rivetSpec: revision.rivetSpec, drillSize: revision.drillSize,
-      drillDiameterIn: revision.drillDiameterIn, edgeDistanceIn: revision.edgeDistanceIn, chordIn: revision.chordIn, lines: revision.lines,
-      rivetDiameterIn: rivet?.nominalDiameterIn ?? null, countersunk: rivet?.countersunk ?? false,
+      material: revision.material,
+      gaugeIn: revision.gaugeIn,
+      rivetSpec: revision.rivetSpec,
+      drillSize: revision.drillSize,
+      drillDiameterIn: revision.drillDiameterIn,
+      edgeDistanceIn: revision.edgeDistanceIn,
+      chordIn: revision.chordIn,
+      lines: revision.lines,
+      rivetDiameterIn: rivet?.nominalDiameterIn ?? null,
+      countersunk: rivet?.countersunk ?? false,
       outline: partOutline(design.kind, kit.airfoil, revision.chordIn),
       holes: holeRows,
       steps: stepRows,
       findings: travelerFindings,
       approvedByName: revision.publishedBy ? row.approvedByName : null,
-      signedOffAt: traveler.signedOffAt?.toISOString() ?? null, signedOffByName: row.signedOffByName,
-      place, allowedActions: allowedPartActions(facts, place), readiness: signOffReadiness(facts),
-      replacedBy: traveler.replacedById && row.replacedBySerial ? { id: traveler.replacedById, serial: row.replacedBySerial } : null,
-      replaces: traveler.replacesId && row.replacesSerial ? { id: traveler.replacesId, serial: row.replacesSerial } : null,
+      signedOffAt: traveler.signedOffAt?.toISOString() ?? null,
+      signedOffByName: row.signedOffByName,
+      place,
+      allowedActions: allowedPartActions(facts, place),
+      readiness: signOffReadiness(facts),
+      replacedBy:
+        traveler.replacedById && row.replacedBySerial
+          ? { id: traveler.replacedById, serial: row.replacedBySerial }
+          : null,
+      replaces:
+        traveler.replacesId && row.replacesSerial ? { id: traveler.replacesId, serial: row.replacesSerial } : null,
       labelAllowed: mayPrintLabels(place, user.role === 'admin', 'part'),
     };
   }
@@ -121,7 +180,10 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
 
     async lookup(user: Express.User, code: string) {
       const parsed = parseTravelerCode(code);
-      if (!parsed) throw badRequest('that is not a label code: type the six characters under the QR code, e.g. K7P-4QX', { code: 'not a label code' });
+      if (!parsed)
+        throw badRequest('that is not a label code: type the six characters under the QR code, e.g. K7P-4QX', {
+          code: 'not a label code',
+        });
       const [t] = await listTravelers(db, user, parsed);
       if (!t) throw notFound('no part of your builds has this code: traveler');
       return { id: t.id };
@@ -130,29 +192,56 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
     /** Ticks holes installed (or back to pending). Holes under a finding are the inspector's, not the bench's. */
     async tickHoles(user: Express.User, id: string, input: TickHolesInput) {
       const ids = [...new Set(input.holeIds)];
-      return underLock(user, id, 'tick', async (tx, _t, _unit, facts) => {
-        const rows = facts.picked;
-        const known = new Set(rows.map((r) => r.holeId));
-        const missing = ids.filter((h) => !known.has(h));
-        if (missing.length) throw badRequest(`no hole ${missing.join(', ')} on this traveler`, { holeIds: `unknown hole ${missing.join(', ')}` });
-        const from = input.status === 'installed' ? 'pending' : 'installed';
-        const locked = rows.filter((r) => r.status !== from && r.status !== input.status);
-        if (locked.length) {
-          throw conflict(`hole ${locked.map((h) => `${h.holeId} (${h.status})`).join(', ')} is under a finding and cannot be ticked here`, { holeIds: 'under a finding' });
-        }
-        const changed = await setHolesWithEvent(tx, id, user.id, ids, from, input.status);
-        const byId = new Map(changed.map((c) => [c.holeId, c]));
-        return { holes: rows.map((r) => byId.get(r.holeId) ?? r) };
-      }, ids);
+      return underLock(
+        user,
+        id,
+        'tick',
+        async (tx, _t, _unit, facts) => {
+          const rows = facts.picked;
+          const known = new Set(rows.map((r) => r.holeId));
+          const missing = ids.filter((h) => !known.has(h));
+          if (missing.length)
+            throw badRequest(`no hole ${missing.join(', ')} on this traveler`, {
+              holeIds: `unknown hole ${missing.join(', ')}`,
+            });
+          const from = input.status === 'installed' ? 'pending' : 'installed';
+          const locked = rows.filter((r) => r.status !== from && r.status !== input.status);
+          if (locked.length) {
+            throw conflict(
+              `hole ${locked.map((h) => `${h.holeId} (${h.status})`).join(', ')} is under a finding and cannot be ticked here`,
+              { holeIds: 'under a finding' },
+            );
+          }
+          const changed = await setHolesWithEvent(tx, id, user.id, ids, from, input.status);
+          const byId = new Map(changed.map((c) => [c.holeId, c]));
+          return { holes: rows.map((r) => byId.get(r.holeId) ?? r) };
+        },
+        ids,
+      );
     },
 
     async setStep(user: Express.User, id: string, stepId: string, done: boolean) {
       return underLock(user, id, 'step', async (tx) => {
-        const [step] = await tx.update(travelerSteps).set(done ? { doneAt: new Date(), doneBy: user.id } : { doneAt: null, doneBy: null })
-          .where(and(eq(travelerSteps.id, stepId), eq(travelerSteps.travelerId, id))).returning();
+        const [step] = await tx
+          .update(travelerSteps)
+          .set(done ? { doneAt: new Date(), doneBy: user.id } : { doneAt: null, doneBy: null })
+          .where(and(eq(travelerSteps.id, stepId), eq(travelerSteps.travelerId, id)))
+          .returning();
         if (!step) throw notFound('step');
-        await tx.insert(travelerEvents).values({ travelerId: id, actorId: user.id, createdAt: underLockNow(), kind: done ? 'step_done' : 'step_undone', detail: { seq: step.seq, text: step.text } });
-        return { id: step.id, seq: step.seq, text: step.text, doneAt: step.doneAt?.toISOString() ?? null, doneByName: done ? user.name : null };
+        await tx.insert(travelerEvents).values({
+          travelerId: id,
+          actorId: user.id,
+          createdAt: underLockNow(),
+          kind: done ? 'step_done' : 'step_undone',
+          detail: { seq: step.seq, text: step.text },
+        });
+        return {
+          id: step.id,
+          seq: step.seq,
+          text: step.text,
+          doneAt: step.doneAt?.toISOString() ?? null,
+          doneByName: done ? user.name : null,
+        };
       });
     },
 
@@ -160,7 +249,9 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
     async signOff(user: Express.User, id: string) {
       await underLock(user, id, 'sign-off', async (tx) => {
         await tx.update(travelers).set({ signedOffAt: new Date(), signedOffBy: user.id }).where(eq(travelers.id, id));
-        await tx.insert(travelerEvents).values({ travelerId: id, actorId: user.id, createdAt: underLockNow(), kind: 'signed_off', detail: {} });
+        await tx
+          .insert(travelerEvents)
+          .values({ travelerId: id, actorId: user.id, createdAt: underLockNow(), kind: 'signed_off', detail: {} });
       });
       return detail(user, id);
     },
@@ -173,18 +264,35 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
       const { mailQueue, publicUrl } = out();
       const part = await visible(user, id);
       await underLock(user, id, 'withdraw-sign-off', async (tx, locked, unit) => {
-        const [signer] = locked.signedOffBy ? await tx.select({ name: users.name }).from(users).where(eq(users.id, locked.signedOffBy)) : [];
+        const [signer] = locked.signedOffBy
+          ? await tx.select({ name: users.name }).from(users).where(eq(users.id, locked.signedOffBy))
+          : [];
         await clearSignOff(tx, id);
         await tx.insert(travelerEvents).values({
-          travelerId: id, actorId: user.id, createdAt: underLockNow(), kind: 'sign_off_withdrawn',
-          detail: { reason, signedOffAt: locked.signedOffAt?.toISOString() ?? null, signedOffByName: signer?.name ?? null },
+          travelerId: id,
+          actorId: user.id,
+          createdAt: underLockNow(),
+          kind: 'sign_off_withdrawn',
+          detail: {
+            reason,
+            signedOffAt: locked.signedOffAt?.toISOString() ?? null,
+            signedOffByName: signer?.name ?? null,
+          },
         });
         // One job per builder: a retry after one mail server refusal does not send the others again.
         for (const to of await recipientsOf(tx, locked.buildId, ['builders'], user.id)) {
           await mailQueue.enqueue(unit, {
             message: signOffWithdrawnMail({
-              to, kitSerial: part.kitSerial, partNumber: part.partNumber, partName: part.partName, letter: part.letter, serial: part.serial,
-              actorName: user.name, reason, signedOffAt: locked.signedOffAt, link: `${publicUrl}/travelers/${id}`,
+              to,
+              kitSerial: part.kitSerial,
+              partNumber: part.partNumber,
+              partName: part.partName,
+              letter: part.letter,
+              serial: part.serial,
+              actorName: user.name,
+              reason,
+              signedOffAt: locked.signedOffAt,
+              link: `${publicUrl}/travelers/${id}`,
             }),
           });
         }
@@ -200,17 +308,29 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
       if (!first) throw notFound(q.travelerId ? 'traveler' : 'build with parts');
       const place = await placeOnBuild(db, user, first.buildId);
       if (!mayPrintLabels(place, user.role === 'admin', q.travelerId ? 'part' : 'build')) {
-        throw forbidden(q.travelerId ? 'only a builder of this build or its kit supplier prints a part’s label' : 'only the kit supplier prints a whole build’s labels');
+        throw forbidden(
+          q.travelerId
+            ? 'only a builder of this build or its kit supplier prints a part’s label'
+            : 'only the kit supplier prints a whole build’s labels',
+        );
       }
       // A label's link must open on a phone's own camera: an address of this machine's loopback would not.
       if (isLoopbackUrl(publicUrl)) {
-        throw conflict(`labels would carry ${publicUrl}, which a phone cannot open: start Pitchcard in network mode (npm start -- --lan) or set PUBLIC_URL to the address phones reach this machine by, then print again`);
+        throw conflict(
+          `labels would carry ${publicUrl}, which a phone cannot open: start Pitchcard in network mode (npm start -- --lan) or set PUBLIC_URL to the address phones reach this machine by, then print again`,
+        );
       }
       const rows = await listLabelRows(db, q.travelerId ? { travelerId: q.travelerId } : { buildId: first.buildId });
-      return Promise.all(rows.map(async ({ qrToken, ...r }) => {
-        const url = `${publicUrl}/t/${qrToken}`;
-        return { ...r, url, qrDataUrl: await QRCode.toDataURL(url, { errorCorrectionLevel: 'M', margin: 2, scale: 8 }) };
-      }));
+      return Promise.all(
+        rows.map(async ({ qrToken, ...r }) => {
+          const url = `${publicUrl}/t/${qrToken}`;
+          return {
+            ...r,
+            url,
+            qrDataUrl: await QRCode.toDataURL(url, { errorCorrectionLevel: 'M', margin: 2, scale: 8 }),
+          };
+        }),
+      );
     },
   };
 };
@@ -234,7 +354,9 @@ function readCursor(cursor: string | undefined): TravelerCursor | null {
   if (!key) return null;
   const [rank, serial, id] = key as [number, string, string];
   if ((rank !== 0 && rank !== 1) || !UUID.test(id) || serial.length === 0) {
-    throw badRequest('cursor is not one this list gave: start again from the first page', { cursor: 'not a cursor of this list' });
+    throw badRequest('cursor is not one this list gave: start again from the first page', {
+      cursor: 'not a cursor of this list',
+    });
   }
   return [rank, serial, id];
 }

@@ -22,7 +22,9 @@ async function key(el: HTMLElement, k: string, opts: { repeat?: boolean } = {}) 
 describe('checkboxes and radios', () => {
   it('toggle on Space as well as Enter, and ignore a held-down Space', async () => {
     const onPress = jest.fn();
-    const r = renderWeb(<Toggle kind="checkbox" checked={false} onPress={onPress} testID="box" accessibilityLabel="Box" />);
+    const r = renderWeb(
+      <Toggle kind="checkbox" checked={false} onPress={onPress} testID="box" accessibilityLabel="Box" />,
+    );
     const box = r.byTestId('box');
     await key(box, ' ');
     expect(onPress).toHaveBeenCalledTimes(1);
@@ -35,7 +37,9 @@ describe('checkboxes and radios', () => {
   it('keep Space from scrolling the page', async () => {
     const r = renderWeb(<Toggle kind="radio" checked={false} onPress={() => undefined} testID="radio" />);
     const e = new KeyboardEvent('keydown', { key: ' ', bubbles: true, cancelable: true });
-    await act(async () => { r.byTestId('radio').dispatchEvent(e); });
+    await act(async () => {
+      r.byTestId('radio').dispatchEvent(e);
+    });
     expect(e.defaultPrevented).toBe(true);
   });
 
@@ -58,8 +62,16 @@ describe('checkboxes and radios', () => {
   it('make a named radio group of a Choice, chosen by Space', async () => {
     const onChange = jest.fn();
     const r = renderWeb(
-      <Choice label="Disposition" testIDPrefix="d" value="rework" onChange={onChange}
-        options={[{ value: 'rework', label: 'Rework', hint: 'back to the drawing' }, { value: 'repair', label: 'Repair' }]} />,
+      <Choice
+        label="Disposition"
+        testIDPrefix="d"
+        value="rework"
+        onChange={onChange}
+        options={[
+          { value: 'rework', label: 'Rework', hint: 'back to the drawing' },
+          { value: 'repair', label: 'Repair' },
+        ]}
+      />,
     );
     const group = r.container.querySelector('[role="radiogroup"]')!;
     expect(group.getAttribute('aria-label')).toBe('Disposition');
@@ -72,7 +84,17 @@ describe('checkboxes and radios', () => {
 
   it('make checkboxes of a MultiChoice, toggled by Space', async () => {
     const onToggle = jest.fn();
-    const r = renderWeb(<MultiChoice testIDPrefix="m" values={['a']} onToggle={onToggle} options={[{ value: 'a', label: 'A' }, { value: 'b', label: 'B' }]} />);
+    const r = renderWeb(
+      <MultiChoice
+        testIDPrefix="m"
+        values={['a']}
+        onToggle={onToggle}
+        options={[
+          { value: 'a', label: 'A' },
+          { value: 'b', label: 'B' },
+        ]}
+      />,
+    );
     expect(r.byTestId('m-a').getAttribute('role')).toBe('checkbox');
     await key(r.byTestId('m-b'), ' ');
     expect(onToggle).toHaveBeenCalledWith('b');
@@ -106,7 +128,9 @@ describe('hole marks and their key', () => {
 
   it('reads the key as a list, each status with its shape and count', () => {
     const r = renderWeb(<HoleStatusLegend counts={{ pending: 46, installed: 8, flagged: 1 }} />);
-    const items = Array.from(r.container.querySelectorAll('[role="listitem"]')).map((e) => e.getAttribute('aria-label'));
+    const items = Array.from(r.container.querySelectorAll('[role="listitem"]')).map((e) =>
+      e.getAttribute('aria-label'),
+    );
     expect(r.byTestId('hole-legend').getAttribute('role')).toBe('list');
     expect(items).toHaveLength(holeStatuses.length);
     expect(items).toContain('Flagged (triangle): 1');
@@ -116,7 +140,9 @@ describe('hole marks and their key', () => {
   it('draws marks at 12 px or more wherever a status is shown', () => {
     // The smallest mark in use: the flag screen's hole picker (16) and finding marks (14).
     for (const size of [16, 18, 20, 24]) {
-      const svg = renderWeb(<HoleMark status="flagged" size={size} />).byTestId('mark-flagged').querySelector('svg')!;
+      const svg = renderWeb(<HoleMark status="flagged" size={size} />)
+        .byTestId('mark-flagged')
+        .querySelector('svg')!;
       expect(Number(svg.getAttribute('width'))).toBeGreaterThanOrEqual(12);
     }
   });
@@ -129,7 +155,15 @@ describe('colours that read', () => {
   });
 
   it('give the focus ring 3:1 or more on the paper, on the ink of a chosen chip, and on every tint', () => {
-    for (const bg of [colors.paper, colors.paperRaised, colors.paperSunk, colors.ink, colors.accentSoft, colors.cautionSoft, colors.errorSoft]) {
+    for (const bg of [
+      colors.paper,
+      colors.paperRaised,
+      colors.paperSunk,
+      colors.ink,
+      colors.accentSoft,
+      colors.cautionSoft,
+      colors.errorSoft,
+    ]) {
       expect(contrast(colors.focus, bg)).toBeGreaterThanOrEqual(3);
     }
   });
@@ -148,9 +182,23 @@ describe('colours that read', () => {
 
 describe('names that leave nothing out', () => {
   const card: TravelerSummary = {
-    id: 't1', serial: 'NK2-0147-W-104', shortCode: 'EDN-CY6', buildId: 'b1', kitSerial: 'NK2-0147', partNumber: 'W-104',
-    partName: 'Wing rib, inboard', kind: 'rib', letter: 'A', holesTotal: 55, holesDone: 8, holesAwaitingInspector: 1,
-    openFindings: 1, signedOff: false, newerRevision: 'B', replaced: null, replacesId: null,
+    id: 't1',
+    serial: 'NK2-0147-W-104',
+    shortCode: 'EDN-CY6',
+    buildId: 'b1',
+    kitSerial: 'NK2-0147',
+    partNumber: 'W-104',
+    partName: 'Wing rib, inboard',
+    kind: 'rib',
+    letter: 'A',
+    holesTotal: 55,
+    holesDone: 8,
+    holesAwaitingInspector: 1,
+    openFindings: 1,
+    signedOff: false,
+    newerRevision: 'B',
+    replaced: null,
+    replacesId: null,
   } as TravelerSummary;
 
   it('names a part card with its warnings: the open finding and the newer revision', () => {
@@ -173,11 +221,23 @@ describe('values that never break', () => {
 
   it('lays a small table out with table roles, each value under its column', () => {
     const r = renderWeb(
-      <GridTable label="Pitch schedule of line U" columns={[{ key: 'from', title: 'From', width: 80 }, { key: 'pitch', title: 'Pitch', width: 80 }]}
-        rows={[{ key: '0', testID: 'z0', cells: { from: <Mono>0.00</Mono>, pitch: <Mono>1.00</Mono> } }]} />,
+      <GridTable
+        label="Pitch schedule of line U"
+        columns={[
+          { key: 'from', title: 'From', width: 80 },
+          { key: 'pitch', title: 'Pitch', width: 80 },
+        ]}
+        rows={[{ key: '0', testID: 'z0', cells: { from: <Mono>0.00</Mono>, pitch: <Mono>1.00</Mono> } }]}
+      />,
     );
     expect(r.container.querySelector('[role="table"]')!.getAttribute('aria-label')).toBe('Pitch schedule of line U');
-    expect(Array.from(r.container.querySelectorAll('[role="columnheader"]')).map((e) => e.textContent)).toEqual(['From', 'Pitch']);
-    expect(Array.from(r.byTestId('z0').querySelectorAll('[role="cell"]')).map((e) => e.textContent)).toEqual(['0.00', '1.00']);
+    expect(Array.from(r.container.querySelectorAll('[role="columnheader"]')).map((e) => e.textContent)).toEqual([
+      'From',
+      'Pitch',
+    ]);
+    expect(Array.from(r.byTestId('z0').querySelectorAll('[role="cell"]')).map((e) => e.textContent)).toEqual([
+      '0.00',
+      '1.00',
+    ]);
   });
 });

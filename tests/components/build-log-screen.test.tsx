@@ -12,28 +12,54 @@ jest.mock('expo-router', () => ({
 }));
 
 const entry = (over: Partial<BuildLogEntry>): BuildLogEntry => ({
-  id: 't:1', at: '2026-11-03T15:00:00.000Z', actorName: 'Tobias Fenn', actorRole: 'builder', kind: 'holes_installed', group: 'bench',
-  travelerId: 'inner', travelerSerial: 'NK2-0147-W-104', partNumber: 'W-104', partName: 'Wing rib, inboard',
-  text: 'Installed 8 holes: U-01 to U-08.', holeIds: ['U-01'], ...over,
+  id: 't:1',
+  at: '2026-11-03T15:00:00.000Z',
+  actorName: 'Tobias Fenn',
+  actorRole: 'builder',
+  kind: 'holes_installed',
+  group: 'bench',
+  travelerId: 'inner',
+  travelerSerial: 'NK2-0147-W-104',
+  partNumber: 'W-104',
+  partName: 'Wing rib, inboard',
+  text: 'Installed 8 holes: U-01 to U-08.',
+  holeIds: ['U-01'],
+  ...over,
 });
 
 const flag = entry({
-  id: 'f:1', at: '2026-11-04T15:00:00.000Z', kind: 'finding_raised', group: 'findings', text: 'Flagged hole U-09 as suspect: elongated hole.',
-  holeIds: ['U-09'], note: 'Hole looks oval', findingId: 'find-1', photos: [{ id: 'p1', thumbUrl: '/api/photos/p1/thumb?sig=x', url: '/api/photos/p1/full?sig=x' }],
+  id: 'f:1',
+  at: '2026-11-04T15:00:00.000Z',
+  kind: 'finding_raised',
+  group: 'findings',
+  text: 'Flagged hole U-09 as suspect: elongated hole.',
+  holeIds: ['U-09'],
+  note: 'Hole looks oval',
+  findingId: 'find-1',
+  photos: [{ id: 'p1', thumbUrl: '/api/photos/p1/thumb?sig=x', url: '/api/photos/p1/full?sig=x' }],
 });
 const tick = entry({ id: 't:1' });
 
 const log = (entries: BuildLogEntry[]): BuildLogPage => ({
   build: {
-    id: 'b1', kitSerial: 'NK2-0147', kitName: 'NK-2 Quillon', supplierName: 'Northfold Kitworks', createdAt: '2026-11-01T10:00:00Z',
-    builders: [{ id: 'u1', name: 'Tobias Fenn', email: 't@x.example' }], inspectors: [{ id: 'u2', name: 'Priya Ashdown', email: 'p@x.example' }],
-    travelerCount: 2, holesTotal: 100, holesDone: 8, openFindings: 1,
+    id: 'b1',
+    kitSerial: 'NK2-0147',
+    kitName: 'NK-2 Quillon',
+    supplierName: 'Northfold Kitworks',
+    createdAt: '2026-11-01T10:00:00Z',
+    builders: [{ id: 'u1', name: 'Tobias Fenn', email: 't@x.example' }],
+    inspectors: [{ id: 'u2', name: 'Priya Ashdown', email: 'p@x.example' }],
+    travelerCount: 2,
+    holesTotal: 100,
+    holesDone: 8,
+    openFindings: 1,
   },
   parts: [
     { travelerId: 'inner', serial: 'NK2-0147-W-104', partNumber: 'W-104', partName: 'Wing rib, inboard' },
     { travelerId: 'outer', serial: 'NK2-0147-W-105', partNumber: 'W-105', partName: 'Wing rib, outboard' },
   ],
-  items: entries, next: null,
+  items: entries,
+  next: null,
 });
 
 function renderLog(data: BuildLogPage, more: [Parameters<typeof buildLogKeys.filtered>[1], BuildLogPage][] = []) {
@@ -41,7 +67,12 @@ function renderLog(data: BuildLogPage, more: [Parameters<typeof buildLogKeys.fil
   qc.setQueryData(buildLogKeys.filtered('b1', {}), { pages: [data], pageParams: [null] });
   for (const [f, d] of more) qc.setQueryData(buildLogKeys.filtered('b1', f), { pages: [d], pageParams: [null] });
   return renderWeb(
-    <SafeAreaProvider initialMetrics={{ frame: { x: 0, y: 0, width: 390, height: 844 }, insets: { top: 0, left: 0, right: 0, bottom: 0 } }}>
+    <SafeAreaProvider
+      initialMetrics={{
+        frame: { x: 0, y: 0, width: 390, height: 844 },
+        insets: { top: 0, left: 0, right: 0, bottom: 0 },
+      }}
+    >
       <QueryClientProvider client={qc}>
         <SessionProvider>
           <BuildLogScreen buildId="b1" />
@@ -51,7 +82,9 @@ function renderLog(data: BuildLogPage, more: [Parameters<typeof buildLogKeys.fil
   );
 }
 
-afterEach(() => { mockPush.mockReset(); });
+afterEach(() => {
+  mockPush.mockReset();
+});
 
 describe('the build log screen', () => {
   it('shows the timeline by day with the caution and both export buttons', async () => {
@@ -99,11 +132,18 @@ describe('the build log screen', () => {
     const click = jest.spyOn(HTMLAnchorElement.prototype, 'click').mockImplementation(() => {});
     const created: string[] = [];
     const original = { create: URL.createObjectURL, revoke: URL.revokeObjectURL, fetch: globalThis.fetch };
-    URL.createObjectURL = jest.fn(() => { created.push('blob:1'); return 'blob:1'; });
+    URL.createObjectURL = jest.fn(() => {
+      created.push('blob:1');
+      return 'blob:1';
+    });
     URL.revokeObjectURL = jest.fn();
     const fetchMock = jest.fn(async () => ({
-      ok: true, status: 200,
-      headers: { get: (h: string) => (h.toLowerCase() === 'content-disposition' ? 'attachment; filename="build-log-NK2-0147-2026-11-04.pdf"' : null) },
+      ok: true,
+      status: 200,
+      headers: {
+        get: (h: string) =>
+          h.toLowerCase() === 'content-disposition' ? 'attachment; filename="build-log-NK2-0147-2026-11-04.pdf"' : null,
+      },
       blob: async () => new Blob(['%PDF-1.7'], { type: 'application/pdf' }),
     }));
     globalThis.fetch = fetchMock as unknown as typeof fetch;

@@ -1,17 +1,63 @@
 import { describeHoleRuns, expandKindFilter, logEntryMatches, type BuildLogEntry } from '@/db/contracts';
-import { countLine, dayOf, filterEntries, groupByDay, isFiltered, logRows, noLogFilters } from '@/components/build-log/log-view';
+import {
+  countLine,
+  dayOf,
+  filterEntries,
+  groupByDay,
+  isFiltered,
+  logRows,
+  noLogFilters,
+} from '@/components/build-log/log-view';
 
 const e = (over: Partial<BuildLogEntry>): BuildLogEntry => ({
-  id: Math.random().toString(36).slice(2), at: '2026-11-03T15:00:00.000Z', actorName: 'Tobias Fenn', actorRole: 'builder',
-  kind: 'holes_installed', group: 'bench', travelerId: 'inner', travelerSerial: 'NK2-0147-W-104', partNumber: 'W-104',
-  partName: 'Wing rib, inboard', text: 'Installed 2 holes: U-01, U-02.', holeIds: ['U-01', 'U-02'], ...over,
+  id: Math.random().toString(36).slice(2),
+  at: '2026-11-03T15:00:00.000Z',
+  actorName: 'Tobias Fenn',
+  actorRole: 'builder',
+  kind: 'holes_installed',
+  group: 'bench',
+  travelerId: 'inner',
+  travelerSerial: 'NK2-0147-W-104',
+  partNumber: 'W-104',
+  partName: 'Wing rib, inboard',
+  text: 'Installed 2 holes: U-01, U-02.',
+  holeIds: ['U-01', 'U-02'],
+  ...over,
 });
 
 // Newest first, as the server sends them.
 const log = [
-  e({ id: 'sign', at: '2026-11-04T16:00:00.000Z', kind: 'signed_off', group: 'sign_off', travelerId: 'outer', partNumber: 'W-105', travelerSerial: 'NK2-0147-W-105', actorName: 'Priya Ashdown', actorRole: 'inspector', text: 'Signed the part off.', holeIds: undefined }),
-  e({ id: 'flag', at: '2026-11-04T02:30:00.000Z', kind: 'finding_raised', group: 'findings', text: 'Flagged hole U-09 as suspect: elongated hole.', holeIds: ['U-09'], note: 'Oval, about a drill size long', findingId: 'f1' }),
-  e({ id: 'step', at: '2026-11-03T18:00:00.000Z', kind: 'step_done', group: 'bench', text: 'Step 1 done: Deburr all holes', holeIds: undefined }),
+  e({
+    id: 'sign',
+    at: '2026-11-04T16:00:00.000Z',
+    kind: 'signed_off',
+    group: 'sign_off',
+    travelerId: 'outer',
+    partNumber: 'W-105',
+    travelerSerial: 'NK2-0147-W-105',
+    actorName: 'Priya Ashdown',
+    actorRole: 'inspector',
+    text: 'Signed the part off.',
+    holeIds: undefined,
+  }),
+  e({
+    id: 'flag',
+    at: '2026-11-04T02:30:00.000Z',
+    kind: 'finding_raised',
+    group: 'findings',
+    text: 'Flagged hole U-09 as suspect: elongated hole.',
+    holeIds: ['U-09'],
+    note: 'Oval, about a drill size long',
+    findingId: 'f1',
+  }),
+  e({
+    id: 'step',
+    at: '2026-11-03T18:00:00.000Z',
+    kind: 'step_done',
+    group: 'bench',
+    text: 'Step 1 done: Deburr all holes',
+    holeIds: undefined,
+  }),
   e({ id: 'tick', at: '2026-11-03T15:00:00.000Z' }),
 ];
 const ids = (xs: { id: string }[]) => xs.map((x) => x.id);
@@ -54,7 +100,14 @@ describe('the build log view', () => {
 
   it('flattens days and entries into one list for the timeline, with a heading per day', () => {
     const rows = logRows(log, 'UTC');
-    expect(rows.map((r) => (r.type === 'day' ? `${r.day}:${r.count}` : r.entry.id))).toEqual(['2026-11-04:2', 'sign', 'flag', '2026-11-03:2', 'step', 'tick']);
+    expect(rows.map((r) => (r.type === 'day' ? `${r.day}:${r.count}` : r.entry.id))).toEqual([
+      '2026-11-04:2',
+      'sign',
+      'flag',
+      '2026-11-03:2',
+      'step',
+      'tick',
+    ]);
     expect(new Set(rows.map((r) => r.key)).size).toBe(rows.length);
     expect(logRows([], 'UTC')).toEqual([]);
   });
@@ -74,7 +127,14 @@ describe('the build log view', () => {
 
   it('reads a kind family as its kinds', () => {
     expect(expandKindFilter(['sign_off'])).toEqual(['signed_off', 'sign_off_withdrawn']);
-    expect(expandKindFilter(['bench'])).toEqual(['holes_installed', 'holes_pending', 'step_done', 'step_undone', 'part_replaced', 'other']);
+    expect(expandKindFilter(['bench'])).toEqual([
+      'holes_installed',
+      'holes_pending',
+      'step_done',
+      'step_undone',
+      'part_replaced',
+      'other',
+    ]);
     expect(expandKindFilter(['findings', 'finding_raised'])).toHaveLength(6);
   });
 });

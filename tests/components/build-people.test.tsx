@@ -9,8 +9,19 @@ jest.mock('expo-router', () => ({
 
 const BUILD = 'b-1';
 const page = (people: BuildPeople): BuildPage => ({
-  id: BUILD, kitSerial: 'NK2-0147', kitName: 'NK-2 Quillon', supplierName: 'Northfold Kitworks', createdAt: '2026-01-03T00:00:00.000Z',
-  builders: [], inspectors: [], travelerCount: 0, holesTotal: 0, holesDone: 0, openFindings: 0, travelers: [], people,
+  id: BUILD,
+  kitSerial: 'NK2-0147',
+  kitName: 'NK-2 Quillon',
+  supplierName: 'Northfold Kitworks',
+  createdAt: '2026-01-03T00:00:00.000Z',
+  builders: [],
+  inspectors: [],
+  travelerCount: 0,
+  holesTotal: 0,
+  holesDone: 0,
+  openFindings: 0,
+  travelers: [],
+  people,
 });
 
 async function shown(people: BuildPeople, routes: Parameters<typeof recordFetch>[0] = {}) {
@@ -27,7 +38,11 @@ describe('people on a build', () => {
     expect(r.byTestId('member-placed-priya@checkpoint.example').textContent).toBe('Final inspector');
     expect(r.byTestId('pending-state-new.adviser@airworthy.example').textContent).toContain('not joined yet');
     // Builders first, the owner at the head.
-    expect(r.allByTestIdPrefix('member-placed-').map((el) => el.textContent)).toEqual(['Owner and builder', 'Helper', 'Final inspector']);
+    expect(r.allByTestIdPrefix('member-placed-').map((el) => el.textContent)).toEqual([
+      'Owner and builder',
+      'Helper',
+      'Final inspector',
+    ]);
   });
 
   it('offers no change at all when the reader may make none', async () => {
@@ -51,50 +66,75 @@ describe('people on a build', () => {
   it('never offers to remove the owner, and hands over only to another builder on the build', async () => {
     const { r } = await shown(buildPeople(['add', 'remove', 'hand-over']));
     expect(r.queryByTestId('member-remove-tobias@benchwork.example')).toBeNull();
-    expect(r.allByTestIdPrefix('member-hand-over-').map((el) => el.getAttribute('data-testid'))).toEqual(['member-hand-over-ada@benchwork.example']);
+    expect(r.allByTestIdPrefix('member-hand-over-').map((el) => el.getAttribute('data-testid'))).toEqual([
+      'member-hand-over-ada@benchwork.example',
+    ]);
   });
 
   it('asks before taking someone off, then sends one DELETE and shows the build as answered', async () => {
     const after = buildPeople(['add', 'remove', 'hand-over']);
     after.members = after.members.filter((m) => m.userId !== 'u-ada');
-    const { r, calls } = await shown(buildPeople(['add', 'remove', 'hand-over']), { [`/api/builds/${BUILD}/members/u-ada`]: { body: page(after) } });
+    const { r, calls } = await shown(buildPeople(['add', 'remove', 'hand-over']), {
+      [`/api/builds/${BUILD}/members/u-ada`]: { body: page(after) },
+    });
     await r.press('member-remove-ada@benchwork.example');
     expect(r.byTestId('member-ask').textContent).toContain('lose access');
     expect(calls.filter((c) => c.method === 'DELETE')).toEqual([]);
     await r.press('member-confirm');
-    expect(calls.filter((c) => c.method === 'DELETE').map((c) => c.url)).toEqual([`/api/builds/${BUILD}/members/u-ada`]);
+    expect(calls.filter((c) => c.method === 'DELETE').map((c) => c.url)).toEqual([
+      `/api/builds/${BUILD}/members/u-ada`,
+    ]);
     expect(r.queryByTestId('member-ada@benchwork.example')).toBeNull();
     expect(r.byTestId('member-done').textContent).toContain('Ada Rowe is off build NK2-0147');
   });
 
   it('hands the build over after saying what happens to the present owner', async () => {
-    const { r, calls } = await shown(buildPeople(['hand-over']), { [`/api/builds/${BUILD}/owner`]: { body: page(buildPeople(['hand-over'])) } });
+    const { r, calls } = await shown(buildPeople(['hand-over']), {
+      [`/api/builds/${BUILD}/owner`]: { body: page(buildPeople(['hand-over'])) },
+    });
     await r.press('member-hand-over-ada@benchwork.example');
     expect(r.byTestId('member-ask').textContent).toContain('stays on as a helper');
     await r.press('member-confirm');
-    expect(calls.filter((c) => c.method === 'POST')).toEqual([{ url: `/api/builds/${BUILD}/owner`, method: 'POST', body: { userId: 'u-ada' } }]);
+    expect(calls.filter((c) => c.method === 'POST')).toEqual([
+      { url: `/api/builds/${BUILD}/owner`, method: 'POST', body: { userId: 'u-ada' } },
+    ]);
   });
 
   it('adds a person by address and place; an empty name is left out, not refused', async () => {
-    const { r, calls } = await shown(buildPeople(['add']), { [`/api/builds/${BUILD}/members`]: { body: page(buildPeople(['add'])) } });
+    const { r, calls } = await shown(buildPeople(['add']), {
+      [`/api/builds/${BUILD}/members`]: { body: page(buildPeople(['add'])) },
+    });
     // The owner's place changes by handing over, never by adding.
     expect(r.queryByTestId('member-place-owner')).toBeNull();
     await r.type('member-email', 'Helper.Two@Benchwork.example');
     await r.press('member-place-helper');
     await r.press('member-add');
-    expect(calls.filter((c) => c.method === 'POST')).toEqual([{
-      url: `/api/builds/${BUILD}/members`, method: 'POST', body: { email: 'helper.two@benchwork.example', place: 'helper' },
-    }]);
+    expect(calls.filter((c) => c.method === 'POST')).toEqual([
+      {
+        url: `/api/builds/${BUILD}/members`,
+        method: 'POST',
+        body: { email: 'helper.two@benchwork.example', place: 'helper' },
+      },
+    ]);
     expect(r.byTestId('member-added').textContent).toContain('invitation is on its way');
   });
 
   it('puts the server’s refusal at the field', async () => {
     const { r } = await shown(buildPeople(['add']), {
-      [`/api/builds/${BUILD}/members`]: { status: 400, body: { error: { code: 'bad_request', message: 'x has an account as builder, not as inspector', fields: { email: 'not a inspector\'s account' } } } },
+      [`/api/builds/${BUILD}/members`]: {
+        status: 400,
+        body: {
+          error: {
+            code: 'bad_request',
+            message: 'x has an account as builder, not as inspector',
+            fields: { email: "not a inspector's account" },
+          },
+        },
+      },
     });
     await r.type('member-email', 'tobias@benchwork.example');
     await r.press('member-place-adviser');
     await r.press('member-add');
-    expect(r.byTestId('member-email-field-error').textContent).toBe('not a inspector\'s account');
+    expect(r.byTestId('member-email-field-error').textContent).toBe("not a inspector's account");
   });
 });

@@ -1,13 +1,22 @@
 import type { CouponOutcome } from '@/db/contracts';
 import { ALL, filterCoupons, filterValues, sortCoupons } from '@/components/coupons/coupon-groups';
 
-const t = (gaugeIn: number, loadLb: number, outcome: CouponOutcome, rivetSpec = 'PULLED-4', material = '6061-T6', testedOn = '2026-10-14') =>
-  ({ material, gaugeIn, rivetSpec, loadLb, outcome, testedOn });
+const t = (
+  gaugeIn: number,
+  loadLb: number,
+  outcome: CouponOutcome,
+  rivetSpec = 'PULLED-4',
+  material = '6061-T6',
+  testedOn = '2026-10-14',
+) => ({ material, gaugeIn, rivetSpec, loadLb, outcome, testedOn });
 
 // Flange coupons of the trade (common practice): 6061-T6, pulled 1/8 in rivets.
 const seed = [
-  t(0.016, 20, 'excessive_deformation'), t(0.016, 30, 'excessive_deformation'),
-  t(0.02, 13.5, 'no_deformation'), t(0.02, 20, 'slight_deformation'), t(0.02, 30, 'slight_deformation'),
+  t(0.016, 20, 'excessive_deformation'),
+  t(0.016, 30, 'excessive_deformation'),
+  t(0.02, 13.5, 'no_deformation'),
+  t(0.02, 20, 'slight_deformation'),
+  t(0.02, 30, 'slight_deformation'),
 ];
 
 describe('the coupon table’s filters and order', () => {

@@ -10,16 +10,33 @@ jest.mock('expo-router', () => ({
 beforeEach(() => mockPush.mockReset());
 
 const show = (f: FindingDetail) => wrap(<FindingScreen findingId={f.id} />, { finding: f });
-const actionButtons = (r: ReturnType<typeof show>) => r.allByTestIdPrefix('finding-action-').map((el) => el.getAttribute('data-testid'));
+const actionButtons = (r: ReturnType<typeof show>) =>
+  r.allByTestIdPrefix('finding-action-').map((el) => el.getAttribute('data-testid'));
 
 describe('the finding screen offers exactly what the server allows', () => {
   const table: [string, Partial<FindingDetail>, FindingAction[]][] = [
     ['nothing for the builder while the inspector decides', { place: 'builder' }, []],
     ['disposition and not a defect for the inspector on a raised finding', {}, ['disposition', 'not-a-defect']],
-    ['amend while the design authority has not approved', { status: 'awaiting_approval', disposition: 'use_as_is' }, ['amend']],
-    ['approve and refuse for the design authority', { status: 'awaiting_approval', disposition: 'use_as_is', place: 'design_authority' }, ['approve', 'refuse']],
-    ['report done for the builder of ordered work', { status: 'work_ordered', disposition: 'rework', place: 'builder' }, ['report-done']],
-    ['accept and send back for the inspector once the work is done', { status: 'work_done', disposition: 'rework' }, ['accept', 'send-back']],
+    [
+      'amend while the design authority has not approved',
+      { status: 'awaiting_approval', disposition: 'use_as_is' },
+      ['amend'],
+    ],
+    [
+      'approve and refuse for the design authority',
+      { status: 'awaiting_approval', disposition: 'use_as_is', place: 'design_authority' },
+      ['approve', 'refuse'],
+    ],
+    [
+      'report done for the builder of ordered work',
+      { status: 'work_ordered', disposition: 'rework', place: 'builder' },
+      ['report-done'],
+    ],
+    [
+      'accept and send back for the inspector once the work is done',
+      { status: 'work_done', disposition: 'rework' },
+      ['accept', 'send-back'],
+    ],
     ['nothing on a closed finding', { status: 'closed', closure: 'not_a_defect' }, []],
   ];
 
@@ -50,10 +67,21 @@ describe('the finding screen offers exactly what the server allows', () => {
 
 describe('the disposition form', () => {
   const decided = (sent: Record<string, unknown>): FindingDetail => ({
-    ...finding, status: 'awaiting_approval', disposition: 'repair', dispositionNote: sent.note as string, allowedActions: ['amend'],
+    ...finding,
+    status: 'awaiting_approval',
+    disposition: 'repair',
+    dispositionNote: sent.note as string,
+    allowedActions: ['amend'],
     repair: {
-      scheme: 'oversize_rivet', rivetSpec: 'MS20470AD5', overrideReason: (sent.overrideReason as string) ?? null,
-      check: { pass: false, reasons: failedCheck.reasons, alternative: failedCheck.alternative, newDrill: failedCheck.newDrill },
+      scheme: 'oversize_rivet',
+      rivetSpec: 'MS20470AD5',
+      overrideReason: (sent.overrideReason as string) ?? null,
+      check: {
+        pass: false,
+        reasons: failedCheck.reasons,
+        alternative: failedCheck.alternative,
+        newDrill: failedCheck.newDrill,
+      },
     },
   });
 
@@ -84,13 +112,19 @@ describe('the disposition form', () => {
     await r.type('override-reason', 'Edge is backed by the spar cap flange: bearing checked by hand');
     await r.press('finding-action-disposition');
     const sent = calls.filter((c) => c.url.endsWith('/disposition'));
-    expect(sent).toEqual([{
-      url: '/api/findings/f-1/disposition', method: 'POST',
-      body: {
-        note: 'Drill to #21 and fit MS20470AD5', disposition: 'repair', repairScheme: 'oversize_rivet',
-        repairRivetSpec: 'MS20470AD5', overrideReason: 'Edge is backed by the spar cap flange: bearing checked by hand',
+    expect(sent).toEqual([
+      {
+        url: '/api/findings/f-1/disposition',
+        method: 'POST',
+        body: {
+          note: 'Drill to #21 and fit MS20470AD5',
+          disposition: 'repair',
+          repairScheme: 'oversize_rivet',
+          repairRivetSpec: 'MS20470AD5',
+          overrideReason: 'Edge is backed by the spar cap flange: bearing checked by hand',
+        },
       },
-    }]);
+    ]);
     // The result is shown where the reader now is, with the stored check and the reason.
     expect(r.byTestId('action-result').textContent).toContain('Record the disposition: recorded');
     expect(r.byTestId('action-result').textContent).toContain('awaiting design authority');
@@ -99,7 +133,10 @@ describe('the disposition form', () => {
   });
 
   it('asks for no reason when the check passed', async () => {
-    const calls = recordFetch({ '/repair-check': { body: passedCheck }, '/disposition': (sent) => ({ body: decided(sent as Record<string, unknown>) }) });
+    const calls = recordFetch({
+      '/repair-check': { body: passedCheck },
+      '/disposition': (sent) => ({ body: decided(sent as Record<string, unknown>) }),
+    });
     const r = show(finding);
     await r.settle();
     await r.press('disposition-repair');
@@ -110,14 +147,25 @@ describe('the disposition form', () => {
     await r.type('action-note', 'Drill to #21 and fit MS20470AD5');
     await r.press('finding-action-disposition');
     const body = calls.find((c) => c.url.endsWith('/disposition'))?.body as Record<string, unknown>;
-    expect(body).toEqual({ note: 'Drill to #21 and fit MS20470AD5', disposition: 'repair', repairScheme: 'oversize_rivet', repairRivetSpec: 'MS20470AD5' });
+    expect(body).toEqual({
+      note: 'Drill to #21 and fit MS20470AD5',
+      disposition: 'repair',
+      repairScheme: 'oversize_rivet',
+      repairRivetSpec: 'MS20470AD5',
+    });
   });
 
   it('brings up the reason when the server finds the check failing though none was run here', async () => {
     recordFetch({
       '/disposition': {
         status: 400,
-        body: { error: { code: 'bad_request', message: 'the repair check fails', fields: { overrideReason: 'the check fails: say why you choose this repair anyway' } } },
+        body: {
+          error: {
+            code: 'bad_request',
+            message: 'the repair check fails',
+            fields: { overrideReason: 'the check fails: say why you choose this repair anyway' },
+          },
+        },
       },
     });
     const r = show(finding);
@@ -133,13 +181,19 @@ describe('the disposition form', () => {
   });
 
   it('sends rework with its note alone: no repair fields go with it', async () => {
-    const calls = recordFetch({ '/disposition': { body: { ...finding, status: 'work_ordered', disposition: 'rework', allowedActions: ['amend'] } } });
+    const calls = recordFetch({
+      '/disposition': {
+        body: { ...finding, status: 'work_ordered', disposition: 'rework', allowedActions: ['amend'] },
+      },
+    });
     const r = show(finding);
     await r.settle();
     await r.press('disposition-rework');
     await r.type('action-note', 'Drill out and set the same rivet again');
     await r.press('finding-action-disposition');
-    expect(calls.map((c) => c.body)).toEqual([{ note: 'Drill out and set the same rivet again', disposition: 'rework' }]);
+    expect(calls.map((c) => c.body)).toEqual([
+      { note: 'Drill out and set the same rivet again', disposition: 'rework' },
+    ]);
   });
 
   it('asks why before not a defect, as the rules module says', async () => {
@@ -154,11 +208,22 @@ describe('the disposition form', () => {
 
 describe('the design authority', () => {
   const awaiting: FindingDetail = {
-    ...finding, status: 'awaiting_approval', disposition: 'repair', dispositionNote: 'Fit AD5 at both holes', place: 'design_authority',
+    ...finding,
+    status: 'awaiting_approval',
+    disposition: 'repair',
+    dispositionNote: 'Fit AD5 at both holes',
+    place: 'design_authority',
     allowedActions: ['approve', 'refuse'],
     repair: {
-      scheme: 'oversize_rivet', rivetSpec: 'MS20470AD5', overrideReason: 'Spar cap backs the edge',
-      check: { pass: false, reasons: failedCheck.reasons, alternative: 'repair with doubler', newDrill: failedCheck.newDrill },
+      scheme: 'oversize_rivet',
+      rivetSpec: 'MS20470AD5',
+      overrideReason: 'Spar cap backs the edge',
+      check: {
+        pass: false,
+        reasons: failedCheck.reasons,
+        alternative: 'repair with doubler',
+        newDrill: failedCheck.newDrill,
+      },
     },
   };
 
@@ -191,7 +256,13 @@ describe('the design authority', () => {
 describe('the work done', () => {
   it('needs a photo before it is sent', async () => {
     const calls = recordFetch({});
-    const r = show({ ...finding, status: 'work_ordered', disposition: 'rework', place: 'builder', allowedActions: ['report-done'] });
+    const r = show({
+      ...finding,
+      status: 'work_ordered',
+      disposition: 'rework',
+      place: 'builder',
+      allowedActions: ['report-done'],
+    });
     await r.settle();
     await r.type('action-note', 'Drilled out, set a new AD4');
     await r.press('finding-action-report-done');
@@ -202,8 +273,14 @@ describe('the work done', () => {
   it('shows the photos as found and of the work done apart', async () => {
     recordFetch({});
     const r = show({
-      ...finding, status: 'work_done', disposition: 'rework', allowedActions: [],
-      photos: [...finding.photos, { id: 'p2', width: 640, height: 480, url: '/p2', thumbUrl: '/p2t', stage: 'work', eventId: 'e2' }],
+      ...finding,
+      status: 'work_done',
+      disposition: 'rework',
+      allowedActions: [],
+      photos: [
+        ...finding.photos,
+        { id: 'p2', width: 640, height: 480, url: '/p2', thumbUrl: '/p2t', stage: 'work', eventId: 'e2' },
+      ],
     });
     await r.settle();
     expect(r.byTestId('finding-photos').textContent).toContain('As found (1)');
@@ -218,7 +295,11 @@ describe('a closed finding', () => {
   it('says how it closed, in words, and links the replacement part', async () => {
     recordFetch({});
     const r = show({
-      ...finding, status: 'closed', disposition: 'scrap', closure: 'scrapped', allowedActions: [],
+      ...finding,
+      status: 'closed',
+      disposition: 'scrap',
+      closure: 'scrapped',
+      allowedActions: [],
       replacement: { travelerId: 'trav-2', serial: 'NK2-0147-W-104-R1' },
     });
     await r.settle();

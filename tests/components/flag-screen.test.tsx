@@ -7,26 +7,75 @@ import { finding, recordFetch, wrap } from './finding-fixtures';
 
 const mockDismissTo = jest.fn();
 jest.mock('expo-router', () => ({
-  useRouter: () => ({ push: jest.fn(), replace: jest.fn(), back: jest.fn(), dismissTo: mockDismissTo, canGoBack: () => false }),
+  useRouter: () => ({
+    push: jest.fn(),
+    replace: jest.fn(),
+    back: jest.fn(),
+    dismissTo: mockDismissTo,
+    canGoBack: () => false,
+  }),
 }));
 // A phone: one column, the hole grid behind "Change holes".
 jest.mock('@/hooks/use-wide', () => ({ useWide: () => false }));
 
 const traveler = {
-  id: '0b7e9a52-5a1c-4b8e-9d0e-3f1f2a6c7d11', serial: 'NK2-0147-W-104', shortCode: 'EDN-CY6', buildId: 'b1', kitSerial: 'NK2-0147',
-  partNumber: 'W-104', partName: 'Wing rib, inboard', kind: 'rib', letter: 'A',
-  holesTotal: 3, holesDone: 1, holesAwaitingInspector: 0, openFindings: 0, signedOff: false, newerRevision: null, replaced: null, replacesId: null,
-  material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 10,
-  lines: [{ code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 4, zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }] }],
-  outline: [[0, 0], [10, 0], [10, -0.5], [0, -0.5]],
+  id: '0b7e9a52-5a1c-4b8e-9d0e-3f1f2a6c7d11',
+  serial: 'NK2-0147-W-104',
+  shortCode: 'EDN-CY6',
+  buildId: 'b1',
+  kitSerial: 'NK2-0147',
+  partNumber: 'W-104',
+  partName: 'Wing rib, inboard',
+  kind: 'rib',
+  letter: 'A',
+  holesTotal: 3,
+  holesDone: 1,
+  holesAwaitingInspector: 0,
+  openFindings: 0,
+  signedOff: false,
+  newerRevision: null,
+  replaced: null,
+  replacesId: null,
+  material: '6061-T6',
+  gaugeIn: 0.025,
+  rivetSpec: 'MS20470AD4',
+  drillSize: '#30',
+  drillDiameterIn: 0.1285,
+  edgeDistanceIn: 0.25,
+  chordIn: 10,
+  lines: [
+    {
+      code: 'U',
+      name: 'Upper flange',
+      surface: 'upper',
+      startIn: 1,
+      lengthIn: 4,
+      zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }],
+    },
+  ],
+  outline: [
+    [0, 0],
+    [10, 0],
+    [10, -0.5],
+    [0, -0.5],
+  ],
   holes: [
     { holeId: 'U-01', line: 'U', seq: 1, stationIn: 0.25, status: 'installed' },
     { holeId: 'U-02', line: 'U', seq: 2, stationIn: 1.25, status: 'pending' },
     { holeId: 'U-03', line: 'U', seq: 3, stationIn: 2.25, status: 'installed' },
   ],
-  steps: [], findings: [], approvedByName: null, signedOffAt: null, signedOffByName: null,
-  rivetDiameterIn: 0.125, countersunk: false,
-  place: 'builder', allowedActions: ['tick', 'step', 'raise'], readiness: { ready: false, reasons: [] }, replacedBy: null, replaces: null,
+  steps: [],
+  findings: [],
+  approvedByName: null,
+  signedOffAt: null,
+  signedOffByName: null,
+  rivetDiameterIn: 0.125,
+  countersunk: false,
+  place: 'builder',
+  allowedActions: ['tick', 'step', 'raise'],
+  readiness: { ready: false, reasons: [] },
+  replacedBy: null,
+  replaces: null,
 } as TravelerDetail;
 
 const basis = basisOfTraveler(traveler)!;
@@ -125,11 +174,19 @@ describe('the flag form', () => {
   });
 
   it('sends the measurements as one JSON field, in inches, and only those of the kind', async () => {
-    window.localStorage.setItem(storageKeys.findingDraft(traveler.id), JSON.stringify({
-      values: { holeIds: ['U-03'], kind: 'hole_elongated', note: 'Oval toward the trailing edge', measurements: { holeDiameterIn: 0.2, shopHeadDiameterIn: 0.3 } },
-      photos: [{ uri: 'data:image/jpeg;base64,AAAA', name: 'hole.jpg', type: 'image/jpeg' }],
-      savedAt: '2026-11-04T10:00:00.000Z',
-    }));
+    window.localStorage.setItem(
+      storageKeys.findingDraft(traveler.id),
+      JSON.stringify({
+        values: {
+          holeIds: ['U-03'],
+          kind: 'hole_elongated',
+          note: 'Oval toward the trailing edge',
+          measurements: { holeDiameterIn: 0.2, shopHeadDiameterIn: 0.3 },
+        },
+        photos: [{ uri: 'data:image/jpeg;base64,AAAA', name: 'hole.jpg', type: 'image/jpeg' }],
+        savedAt: '2026-11-04T10:00:00.000Z',
+      }),
+    );
     const created: FindingDetail = { ...finding, id: 'f-9' };
     const calls = recordFetch({ '/api/findings': { status: 201, body: created } });
     const r = flag(['U-03'], 'metric');
@@ -148,7 +205,10 @@ describe('the flag form', () => {
 
   it('keeps only the measurements a kind allows', () => {
     expect(measurementsFor('hole_burrs', { holeDiameterIn: 0.2 })).toEqual({});
-    expect(measurementsFor('hole_mislocated', { holeDiameterIn: 0.2, edgeDistanceIn: 0.22, headGapIn: 0.01 })).toEqual({ holeDiameterIn: 0.2, edgeDistanceIn: 0.22 });
+    expect(measurementsFor('hole_mislocated', { holeDiameterIn: 0.2, edgeDistanceIn: 0.22, headGapIn: 0.01 })).toEqual({
+      holeDiameterIn: 0.2,
+      edgeDistanceIn: 0.22,
+    });
     expect(measurementsFor('hole_oversize', { holeDiameterIn: Number.NaN })).toEqual({});
   });
 });

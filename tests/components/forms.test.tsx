@@ -55,7 +55,11 @@ describe('forms say what is wrong in plain words', () => {
   });
 
   it('stores a weight typed in kilograms as pounds', async () => {
-    const r = renderWeb(<UnitsProvider initial="metric"><KitBits /></UnitsProvider>);
+    const r = renderWeb(
+      <UnitsProvider initial="metric">
+        <KitBits />
+      </UnitsProvider>,
+    );
     expect(r.byTestId('kit-weight-field').textContent).toContain('kg');
     await r.type('kit-weight', '600');
     expect(lastValues.weightLb).toBeCloseTo(600 / 0.45359237, 6);
@@ -65,7 +69,9 @@ describe('forms say what is wrong in plain words', () => {
     const r = renderWeb(<KitBits />);
     let summary = '';
     await act(async () => {
-      summary = setServerError!(new ApiError(400, 'validation', 'Some fields are not right.', { code: 'that kit code is taken' }));
+      summary = setServerError!(
+        new ApiError(400, 'validation', 'Some fields are not right.', { code: 'that kit code is taken' }),
+      );
     });
     await r.settle();
     expect(r.byTestId('kit-code-field-error').textContent).toBe('that kit code is taken');

@@ -17,29 +17,73 @@ jest.mock('expo-router', () => ({
  * A supplier-sized part: 2,000 holes on four lines at 1 in pitch (invented, like the demo data). Ids
  * as the server numbers them past 99 holes on a line (server/travelers/hole-layout.ts): U-001 …
  */
-const spec: [string, string, number][] = [['U', 'Upper skin row', 700], ['L', 'Lower skin row', 700], ['FS', 'Front spar', 300], ['RS', 'Rear spar', 300]];
+const spec: [string, string, number][] = [
+  ['U', 'Upper skin row', 700],
+  ['L', 'Lower skin row', 700],
+  ['FS', 'Front spar', 300],
+  ['RS', 'Rear spar', 300],
+];
 const lines: FastenerLine[] = spec.map(([code, name, n]) => ({
-  code, name, surface: 'upper', startIn: 0, lengthIn: n, zones: [{ fromIn: 0, toIn: n, pitchIn: 1 }],
+  code,
+  name,
+  surface: 'upper',
+  startIn: 0,
+  lengthIn: n,
+  zones: [{ fromIn: 0, toIn: n, pitchIn: 1 }],
 }));
 const special: Record<string, HoleStatus> = { 'L-450': 'flagged', 'U-003': 'installed', 'U-010': 'held' };
-const holes: Hole[] = spec.flatMap(([code, , n]) => Array.from({ length: n }, (_, i) => {
-  const holeId = `${code}-${String(i + 1).padStart(3, '0')}`;
-  return { holeId, line: code, seq: i + 1, stationIn: i + 0.5, status: special[holeId] ?? 'pending' };
-}));
+const holes: Hole[] = spec.flatMap(([code, , n]) =>
+  Array.from({ length: n }, (_, i) => {
+    const holeId = `${code}-${String(i + 1).padStart(3, '0')}`;
+    return { holeId, line: code, seq: i + 1, stationIn: i + 0.5, status: special[holeId] ?? 'pending' };
+  }),
+);
 
 const big: TravelerDetail = {
-  id: 'trav-big', serial: 'SUP-0001-S-900', shortCode: 'BIG-001', buildId: 'b1', kitSerial: 'SUP-0001',
-  partNumber: 'S-900', partName: 'Wing skin, lower', kind: 'skin_panel', letter: 'A',
-  holesTotal: holes.length, holesDone: 1, holesAwaitingInspector: 0, openFindings: 1, signedOff: false, newerRevision: null,
-  replaced: null, replacesId: null,
-  material: '2024-T3', gaugeIn: 0.032, rivetSpec: 'MS20426AD3', drillSize: '#40', drillDiameterIn: 0.098,
-  edgeDistanceIn: 0.1875, chordIn: 700,
-  lines, outline: [[0, 0], [700, 0], [700, -2], [0, -2]], holes,
-  steps: [], findings: [], approvedByName: null, signedOffAt: null, signedOffByName: null,
-  rivetDiameterIn: 0.09375, countersunk: true,
-  place: 'builder', allowedActions: ['tick', 'raise'],
+  id: 'trav-big',
+  serial: 'SUP-0001-S-900',
+  shortCode: 'BIG-001',
+  buildId: 'b1',
+  kitSerial: 'SUP-0001',
+  partNumber: 'S-900',
+  partName: 'Wing skin, lower',
+  kind: 'skin_panel',
+  letter: 'A',
+  holesTotal: holes.length,
+  holesDone: 1,
+  holesAwaitingInspector: 0,
+  openFindings: 1,
+  signedOff: false,
+  newerRevision: null,
+  replaced: null,
+  replacesId: null,
+  material: '2024-T3',
+  gaugeIn: 0.032,
+  rivetSpec: 'MS20426AD3',
+  drillSize: '#40',
+  drillDiameterIn: 0.098,
+  edgeDistanceIn: 0.1875,
+  chordIn: 700,
+  lines,
+  outline: [
+    [0, 0],
+    [700, 0],
+    [700, -2],
+    [0, -2],
+  ],
+  holes,
+  steps: [],
+  findings: [],
+  approvedByName: null,
+  signedOffAt: null,
+  signedOffByName: null,
+  rivetDiameterIn: 0.09375,
+  countersunk: true,
+  place: 'builder',
+  allowedActions: ['tick', 'raise'],
   readiness: { ready: false, reasons: ['1999 holes not done'] },
-  replacedBy: null, replaces: null,
+  replacedBy: null,
+  replaces: null,
 };
 
 /** The API answers a tick with the holes it changed, and the detail as it then stands. */
@@ -62,7 +106,8 @@ const chipIds = (r: { container: HTMLElement }) =>
     .map((e) => e.dataset.testid!)
     .filter((id) => /^hole-[A-Z]+-\d+$/.test(id));
 
-const ticks = (calls: { url: string; method: string; body: unknown }[]) => calls.filter((c) => c.method === 'POST' && c.url.endsWith('/holes'));
+const ticks = (calls: { url: string; method: string; body: unknown }[]) =>
+  calls.filter((c) => c.method === 'POST' && c.url.endsWith('/holes'));
 
 async function goTo(r: ReturnType<typeof wrap>, q: string) {
   await r.type('hole-go-to', q);
@@ -132,7 +177,9 @@ describe('a 2,000-hole traveler', () => {
     await r.press('hole-U-700');
     // Holes near the far end, drawn only now, show that they are in the run.
     expect(r.byTestId('hole-U-699').getAttribute('aria-pressed')).toBe('true');
-    expect(r.byTestId('run-summary').textContent).toBe('700 holes: 698 to tick, 1 already in; 1 left as they are (they change through their finding)');
+    expect(r.byTestId('run-summary').textContent).toBe(
+      '700 holes: 698 to tick, 1 already in; 1 left as they are (they change through their finding)',
+    );
     await r.press('tick-run');
     const sent = ticks(calls).map((c) => c.body as TickHolesInput);
     // tickHolesInput (db/contracts/travelers.ts) takes at most 500 ids a request.
@@ -160,7 +207,9 @@ describe('a 2,000-hole traveler', () => {
 describe('a small part is drawn whole', () => {
   it('has every hole and no "go to" box', async () => {
     const few = holes.filter((h) => h.line === 'FS').slice(0, 55);
-    const r = wrap(<TravelerScreen travelerId="trav-big" />, { traveler: { ...big, lines: [lines[2]], holes: few, holesTotal: 55 } });
+    const r = wrap(<TravelerScreen travelerId="trav-big" />, {
+      traveler: { ...big, lines: [lines[2]], holes: few, holesTotal: 55 },
+    });
     await r.settle();
     expect(chipIds(r)).toHaveLength(55);
     expect(r.queryByTestId('hole-go-to')).toBeNull();
@@ -183,7 +232,10 @@ describe('the window arithmetic', () => {
   });
 
   it('keeps a far item drawn with spacers of the skipped height', () => {
-    expect(renderRuns(offsets, [10, 20], [50])).toEqual([{ from: 10, to: 20, gapBefore: 800 }, { from: 50, to: 51, gapBefore: 2400 }]);
+    expect(renderRuns(offsets, [10, 20], [50])).toEqual([
+      { from: 10, to: 20, gapBefore: 800 },
+      { from: 50, to: 51, gapBefore: 2400 },
+    ]);
     expect(renderRuns(offsets, [10, 20], [15])).toEqual([{ from: 10, to: 20, gapBefore: 800 }]);
   });
 
@@ -191,9 +243,18 @@ describe('the window arithmetic', () => {
     const { items, itemOfHole } = holeItems(lines, holes, 6);
     // 700 / 6 → 117 rows; 300 / 6 → 50 rows; and four headings.
     expect(items.length).toBe(4 + 117 + 117 + 50 + 50);
-    expect(items.filter((i) => i.kind === 'row').reduce((n, i) => n + (i.kind === 'row' ? i.holes.length : 0), 0)).toBe(2000);
+    expect(items.filter((i) => i.kind === 'row').reduce((n, i) => n + (i.kind === 'row' ? i.holes.length : 0), 0)).toBe(
+      2000,
+    );
     const row = items[itemOfHole.get('U-007')!];
-    expect(row.kind === 'row' && row.holes.map((h) => h.holeId)).toEqual(['U-007', 'U-008', 'U-009', 'U-010', 'U-011', 'U-012']);
+    expect(row.kind === 'row' && row.holes.map((h) => h.holeId)).toEqual([
+      'U-007',
+      'U-008',
+      'U-009',
+      'U-010',
+      'U-011',
+      'U-012',
+    ]);
   });
 
   it('finds a hole by id whatever its case and leading zeros', () => {
@@ -211,7 +272,7 @@ describe('the window arithmetic', () => {
 });
 
 describe('the drawing of many holes', () => {
-  it('draws a status\'s marks as one path of one outline a hole', () => {
+  it("draws a status's marks as one path of one outline a hole", () => {
     const at = Array.from({ length: 2000 }, (_, i) => ({ x: i * 3, y: 10 }));
     const dots = markLayers('dot', '#000', at, 6);
     expect(dots).toHaveLength(1);

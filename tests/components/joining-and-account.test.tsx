@@ -13,14 +13,36 @@ beforeEach(() => mockReplace.mockReset());
 
 const TOKEN = 'Q2hvb3NlLWEtcGFzc3dvcmQtb25jZQ';
 const invitation: InvitationView = {
-  email: 'wren@hangar-nine.example', name: 'Wren Okafor', role: 'builder', organizationName: null, invitedByName: 'Maren Holt',
+  email: 'wren@hangar-nine.example',
+  name: 'Wren Okafor',
+  role: 'builder',
+  organizationName: null,
+  invitedByName: 'Maren Holt',
   expiresAt: '2026-01-10T00:00:00.000Z',
 };
 const joined: SignInResult = {
-  token: 'fresh-token', expiresAt: new Date(Date.now() + 3600_000).toISOString(),
-  user: { id: 'u-wren', email: invitation.email, name: 'Wren Okafor', role: 'builder', lead: false, organizationId: null, organizationName: null },
+  token: 'fresh-token',
+  expiresAt: new Date(Date.now() + 3600_000).toISOString(),
+  user: {
+    id: 'u-wren',
+    email: invitation.email,
+    name: 'Wren Okafor',
+    role: 'builder',
+    lead: false,
+    organizationId: null,
+    organizationName: null,
+  },
 };
-const weak = { status: 400, body: { error: { code: 'bad_request', message: 'this password is too easy to guess: Add more words.', fields: { password: 'this password is too easy to guess: Add more words.' } } } };
+const weak = {
+  status: 400,
+  body: {
+    error: {
+      code: 'bad_request',
+      message: 'this password is too easy to guess: Add more words.',
+      fields: { password: 'this password is too easy to guess: Add more words.' },
+    },
+  },
+};
 
 describe('joining from an invitation', () => {
   it('says who invites whom, and fills in the name from the invitation', async () => {
@@ -38,7 +60,9 @@ describe('joining from an invitation', () => {
     await r.settle();
     await r.type('invite-password', 'password123');
     await r.press('invite-accept');
-    expect(r.byTestId('invite-password-field-error').textContent).toBe('this password is too easy to guess: Add more words.');
+    expect(r.byTestId('invite-password-field-error').textContent).toBe(
+      'this password is too easy to guess: Add more words.',
+    );
     expect(r.queryByTestId('invite-error')).toBeNull();
     expect(storedSession()).toBeNull();
   });
@@ -54,24 +78,40 @@ describe('joining from an invitation', () => {
   });
 
   it('joins with the name and password given, keeps the new sign-in and opens the app', async () => {
-    const calls = recordFetch({ [`/api/invitations/${TOKEN}`]: { body: invitation }, '/api/invitations/accept': { body: joined } });
+    const calls = recordFetch({
+      [`/api/invitations/${TOKEN}`]: { body: invitation },
+      '/api/invitations/accept': { body: joined },
+    });
     const r = wrapSignedIn(<InviteScreen token={TOKEN} />, null);
     await r.settle();
     await r.type('invite-name', 'Wren O.');
     await r.type('invite-password', 'copper-ribs-tilt-44-quietly');
     await r.press('invite-accept');
-    expect(calls.filter((c) => c.method === 'POST')).toEqual([{
-      url: '/api/invitations/accept', method: 'POST', body: { token: TOKEN, name: 'Wren O.', password: 'copper-ribs-tilt-44-quietly' },
-    }]);
+    expect(calls.filter((c) => c.method === 'POST')).toEqual([
+      {
+        url: '/api/invitations/accept',
+        method: 'POST',
+        body: { token: TOKEN, name: 'Wren O.', password: 'copper-ribs-tilt-44-quietly' },
+      },
+    ]);
     expect(storedSession()?.token).toBe('fresh-token');
     expect(mockReplace).toHaveBeenCalledWith('/');
   });
 
   it('says plainly when the invitation has run out or was used', async () => {
-    recordFetch({ [`/api/invitations/${TOKEN}`]: { status: 404, body: { error: { code: 'not_found', message: 'this invitation has expired or was already used: ask for a new one' } } } });
+    recordFetch({
+      [`/api/invitations/${TOKEN}`]: {
+        status: 404,
+        body: {
+          error: { code: 'not_found', message: 'this invitation has expired or was already used: ask for a new one' },
+        },
+      },
+    });
     const r = wrapSignedIn(<InviteScreen token={TOKEN} />, null);
     await r.settle();
-    expect(r.byTestId('invite-gone').textContent).toBe('This invitation has expired or was already used: ask for a new one.');
+    expect(r.byTestId('invite-gone').textContent).toBe(
+      'This invitation has expired or was already used: ask for a new one.',
+    );
     expect(r.queryByTestId('invite-accept')).toBeNull();
   });
 
@@ -97,7 +137,9 @@ describe('joining from an invitation', () => {
 
 describe('a forgotten password', () => {
   it('asks for the link and shows the server’s answer, the same for any address', async () => {
-    const calls = recordFetch({ '/api/auth/forgot': { status: 202, body: { message: 'If this address has an account, a link is on its way.' } } });
+    const calls = recordFetch({
+      '/api/auth/forgot': { status: 202, body: { message: 'If this address has an account, a link is on its way.' } },
+    });
     const r = wrapSignedIn(<ForgotScreen />, null);
     await r.settle();
     await r.type('forgot-email', 'Priya@Checkpoint.example');
@@ -117,7 +159,18 @@ describe('a forgotten password', () => {
   });
 
   it('a spent link says so and offers a new one', async () => {
-    recordFetch({ '/api/auth/reset': { status: 400, body: { error: { code: 'bad_request', message: 'this link has expired or was already used: ask for a new one', fields: { token: 'expired or already used' } } } } });
+    recordFetch({
+      '/api/auth/reset': {
+        status: 400,
+        body: {
+          error: {
+            code: 'bad_request',
+            message: 'this link has expired or was already used: ask for a new one',
+            fields: { token: 'expired or already used' },
+          },
+        },
+      },
+    });
     const r = wrapSignedIn(<ResetScreen token={TOKEN} />, null);
     await r.settle();
     await r.type('reset-password', 'copper-ribs-tilt-44-quietly');
@@ -140,20 +193,35 @@ describe('the account page', () => {
   });
 
   it('a changed password keeps this device signed in with the new token the answer carries', async () => {
-    const calls = recordFetch({ '/api/auth/change-password': { body: { ...joined, token: 'after-change', user: owner } } });
+    const calls = recordFetch({
+      '/api/auth/change-password': { body: { ...joined, token: 'after-change', user: owner } },
+    });
     const r = wrapSignedIn(<AccountScreen />, owner);
     await r.settle();
     expect(storedSession()?.token).toBe('token-1');
     await r.type('current-password', 'pitchcard-demo');
     await r.type('new-password', 'copper-ribs-tilt-44-quietly');
     await r.press('change-password');
-    expect(calls.map((c) => c.body)).toEqual([{ currentPassword: 'pitchcard-demo', newPassword: 'copper-ribs-tilt-44-quietly' }]);
+    expect(calls.map((c) => c.body)).toEqual([
+      { currentPassword: 'pitchcard-demo', newPassword: 'copper-ribs-tilt-44-quietly' },
+    ]);
     expect(storedSession()?.token).toBe('after-change');
     expect(r.byTestId('password-changed').textContent).toContain('Other devices were signed out');
   });
 
   it('a wrong current password is said at that field', async () => {
-    recordFetch({ '/api/auth/change-password': { status: 400, body: { error: { code: 'bad_request', message: 'the current password is not right', fields: { currentPassword: 'not right' } } } } });
+    recordFetch({
+      '/api/auth/change-password': {
+        status: 400,
+        body: {
+          error: {
+            code: 'bad_request',
+            message: 'the current password is not right',
+            fields: { currentPassword: 'not right' },
+          },
+        },
+      },
+    });
     const r = wrapSignedIn(<AccountScreen />, owner);
     await r.settle();
     await r.type('current-password', 'guess');

@@ -10,9 +10,18 @@ jest.mock('expo-router', () => ({
 beforeEach(() => mockPush.mockReset());
 
 const label: PartLabel = {
-  travelerId: 'trav-1', serial: 'NK2-0147-W-104', shortCode: 'EDN-CY6', partNumber: 'W-104', partName: 'Wing rib, inboard', letter: 'B',
-  kitModelCode: 'NK-2', kitModelName: 'Northkit Two', supplierName: 'Larkspur Kitworks', kitSerial: 'NK2-0147',
-  url: 'https://pitchcard.test/t/abc', qrDataUrl: 'data:image/png;base64,iVBORw0KGgo=',
+  travelerId: 'trav-1',
+  serial: 'NK2-0147-W-104',
+  shortCode: 'EDN-CY6',
+  partNumber: 'W-104',
+  partName: 'Wing rib, inboard',
+  letter: 'B',
+  kitModelCode: 'NK-2',
+  kitModelName: 'Northkit Two',
+  supplierName: 'Larkspur Kitworks',
+  kitSerial: 'NK2-0147',
+  url: 'https://pitchcard.test/t/abc',
+  qrDataUrl: 'data:image/png;base64,iVBORw0KGgo=',
 };
 
 const pageCss = () => document.head.querySelector('style[data-pitchcard="labels-print"]')?.textContent ?? '';
@@ -42,27 +51,39 @@ describe('the labels page', () => {
     ['2x1in', 'size: 2in 1in', 192, 96],
     ['62mm', 'size: 62mm 32mm', 234.3, 120.9],
     ['sheet', 'size: auto', 321.3, null],
-  ] as const)('the %s stock sets the printed page to "%s" and draws the label at its real size', async (size, css, widthPx, heightPx) => {
-    recordFetch({ '/api/travelers/labels': { body: [label, { ...label, travelerId: 'trav-2', shortCode: 'K7P-4QX' }] } });
-    const r = wrap(<LabelsScreen buildId="b1" />);
-    await r.settle();
-    // Start from another stock so the press is a change.
-    await r.press(size === 'sheet' ? 'label-size-62mm' : 'label-size-sheet');
-    await r.press(`label-size-${size}`);
-    expect(r.byTestId(`label-size-${size}`).getAttribute('aria-checked')).toBe('true');
-    const printCss = pageCss();
-    expect(printCss).toContain(`@page { ${css}`);
-    expect(document.head.querySelectorAll('style[data-pitchcard="labels-print"]')).toHaveLength(1);
-    // One label a page on a roll or die-cut stock; the sheet lets them flow.
-    expect(printCss.includes('break-after: page')).toBe(size !== 'sheet');
-    const card = r.byTestId('part-label-K7P-4QX');
-    expect(card.style.width).toBe(`${widthPx}px`);
-    if (heightPx === null) expect(card.style.height).toBe('');
-    else expect(card.style.height).toBe(`${heightPx}px`);
-  });
+  ] as const)(
+    'the %s stock sets the printed page to "%s" and draws the label at its real size',
+    async (size, css, widthPx, heightPx) => {
+      recordFetch({
+        '/api/travelers/labels': { body: [label, { ...label, travelerId: 'trav-2', shortCode: 'K7P-4QX' }] },
+      });
+      const r = wrap(<LabelsScreen buildId="b1" />);
+      await r.settle();
+      // Start from another stock so the press is a change.
+      await r.press(size === 'sheet' ? 'label-size-62mm' : 'label-size-sheet');
+      await r.press(`label-size-${size}`);
+      expect(r.byTestId(`label-size-${size}`).getAttribute('aria-checked')).toBe('true');
+      const printCss = pageCss();
+      expect(printCss).toContain(`@page { ${css}`);
+      expect(document.head.querySelectorAll('style[data-pitchcard="labels-print"]')).toHaveLength(1);
+      // One label a page on a roll or die-cut stock; the sheet lets them flow.
+      expect(printCss.includes('break-after: page')).toBe(size !== 'sheet');
+      const card = r.byTestId('part-label-K7P-4QX');
+      expect(card.style.width).toBe(`${widthPx}px`);
+      if (heightPx === null) expect(card.style.height).toBe('');
+      else expect(card.style.height).toBe(`${heightPx}px`);
+    },
+  );
 
   it('says why when the server refuses (a loopback address) and prints nothing', async () => {
-    recordFetch({ '/api/travelers/labels': { status: 409, body: { error: { code: 'conflict', message: 'labels would carry http://localhost:8080, which a phone cannot open' } } } });
+    recordFetch({
+      '/api/travelers/labels': {
+        status: 409,
+        body: {
+          error: { code: 'conflict', message: 'labels would carry http://localhost:8080, which a phone cannot open' },
+        },
+      },
+    });
     const r = wrap(<LabelsScreen travelerId="trav-1" />);
     await r.settle();
     expect(r.text()).toContain('which a phone cannot open');
@@ -72,15 +93,59 @@ describe('the labels page', () => {
 
 describe('reprinting one part’s label from the traveler', () => {
   const detail = {
-    id: 'trav-1', serial: 'NK2-0147-W-104', shortCode: 'EDN-CY6', buildId: 'b1', kitSerial: 'NK2-0147',
-    partNumber: 'W-104', partName: 'Wing rib, inboard', kind: 'rib', letter: 'A',
-    holesTotal: 1, holesDone: 0, holesAwaitingInspector: 0, openFindings: 0, signedOff: false, newerRevision: null,
-    replaced: null, replacesId: null, material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285,
-    edgeDistanceIn: 0.25, chordIn: 10, lines: [{ code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 1, zones: [{ fromIn: 0, toIn: 1, pitchIn: 1 }] }],
-    outline: [[0, 0], [10, 0], [10, -0.5], [0, -0.5]], holes: [{ holeId: 'U-01', line: 'U', seq: 1, stationIn: 0.25, status: 'pending' }],
-    steps: [], findings: [], approvedByName: null, signedOffAt: null, signedOffByName: null, rivetDiameterIn: 0.125, countersunk: false,
-    place: 'builder', allowedActions: ['tick', 'step', 'raise'], readiness: { ready: false, reasons: ['1 hole not done'] },
-    replacedBy: null, replaces: null,
+    id: 'trav-1',
+    serial: 'NK2-0147-W-104',
+    shortCode: 'EDN-CY6',
+    buildId: 'b1',
+    kitSerial: 'NK2-0147',
+    partNumber: 'W-104',
+    partName: 'Wing rib, inboard',
+    kind: 'rib',
+    letter: 'A',
+    holesTotal: 1,
+    holesDone: 0,
+    holesAwaitingInspector: 0,
+    openFindings: 0,
+    signedOff: false,
+    newerRevision: null,
+    replaced: null,
+    replacesId: null,
+    material: '6061-T6',
+    gaugeIn: 0.025,
+    rivetSpec: 'MS20470AD4',
+    drillSize: '#30',
+    drillDiameterIn: 0.1285,
+    edgeDistanceIn: 0.25,
+    chordIn: 10,
+    lines: [
+      {
+        code: 'U',
+        name: 'Upper flange',
+        surface: 'upper',
+        startIn: 1,
+        lengthIn: 1,
+        zones: [{ fromIn: 0, toIn: 1, pitchIn: 1 }],
+      },
+    ],
+    outline: [
+      [0, 0],
+      [10, 0],
+      [10, -0.5],
+      [0, -0.5],
+    ],
+    holes: [{ holeId: 'U-01', line: 'U', seq: 1, stationIn: 0.25, status: 'pending' }],
+    steps: [],
+    findings: [],
+    approvedByName: null,
+    signedOffAt: null,
+    signedOffByName: null,
+    rivetDiameterIn: 0.125,
+    countersunk: false,
+    place: 'builder',
+    allowedActions: ['tick', 'step', 'raise'],
+    readiness: { ready: false, reasons: ['1 hole not done'] },
+    replacedBy: null,
+    replaces: null,
   } satisfies TravelerDetail;
 
   it('links to the labels page of this one part when the server allows it', async () => {

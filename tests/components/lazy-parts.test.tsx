@@ -48,7 +48,11 @@ describe('a screen whose code loads when it opens', () => {
 describe('a list page beneath a page opened from its link', () => {
   it('is not drawn while hidden, is drawn when shown, and stays drawn when covered again', async () => {
     mockFocused = false;
-    const list = () => <WhenShown><Text testID="list">Parts</Text></WhenShown>;
+    const list = () => (
+      <WhenShown>
+        <Text testID="list">Parts</Text>
+      </WhenShown>
+    );
     const r = renderWeb(list());
     expect(r.queryByTestId('list')).toBeNull();
     mockFocused = true;

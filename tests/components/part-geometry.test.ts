@@ -1,8 +1,23 @@
 import type { FastenerLine, Hole } from '@/db/contracts';
-import { crossings, flatLineY, linePath, outlineBounds, placeHole, placeHoles, surfaceY, type Point } from '@/components/travelers/part-geometry';
+import {
+  crossings,
+  flatLineY,
+  linePath,
+  outlineBounds,
+  placeHole,
+  placeHoles,
+  surfaceY,
+  type Point,
+} from '@/components/travelers/part-geometry';
 
 // A simple lens-shaped rib: a peak of 3 in at 10 in aft, chord 40 in, flat bottom at -1.
-const rib: Point[] = [[0, 0], [10, 3], [40, 0], [40, -1], [0, -1]];
+const rib: Point[] = [
+  [0, 0],
+  [10, 3],
+  [40, 0],
+  [40, -1],
+  [0, -1],
+];
 
 const zones = [{ fromIn: 0, toIn: 20, pitchIn: 1 }];
 const upper: FastenerLine = { code: 'U', name: 'Upper flange', surface: 'upper', startIn: 5, lengthIn: 20, zones };
@@ -33,9 +48,15 @@ describe('reading the outline', () => {
 });
 
 describe('placing holes', () => {
-  const h = (line: string, stationIn: number): Hole => ({ holeId: `${line}-x`, line, seq: 1, stationIn, status: 'pending' });
+  const h = (line: string, stationIn: number): Hole => ({
+    holeId: `${line}-x`,
+    line,
+    seq: 1,
+    stationIn,
+    status: 'pending',
+  });
 
-  it('walks a hole\'s station along the curved upper surface from the line start', () => {
+  it("walks a hole's station along the curved upper surface from the line start", () => {
     // From x = 5 the upper side climbs at 3/10: 5 in along it is 5/√1.09 = 4.789 in of chord.
     const p = placeHole(rib, [upper, lower], h('U', 5));
     expect(p.x).toBeCloseTo(5 + 5 / Math.sqrt(1.09), 3);
@@ -49,7 +70,12 @@ describe('placing holes', () => {
   });
 
   it('spreads flat lines evenly across the height of the part', () => {
-    const panel: Point[] = [[0, 0], [30, 0], [30, 12], [0, 12]];
+    const panel: Point[] = [
+      [0, 0],
+      [30, 0],
+      [30, 12],
+      [0, 12],
+    ];
     const a: FastenerLine = { ...upper, code: 'A', surface: 'flat' };
     const b: FastenerLine = { ...upper, code: 'B', surface: 'flat' };
     expect(flatLineY(panel, [a, b], 'A')).toBeCloseTo(4);

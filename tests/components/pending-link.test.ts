@@ -47,34 +47,61 @@ describe('which opened links are kept for after sign-in', () => {
     expect(safeInAppPath(raw)).toBeNull();
   });
 
-  it.each([[null], [undefined], [42], [{ pathname: '/findings/abc' }], [['/findings/abc']]])('refuses a value that is not text (%p)', (raw) => {
-    expect(safeInAppPath(raw)).toBeNull();
-  });
+  it.each([[null], [undefined], [42], [{ pathname: '/findings/abc' }], [['/findings/abc']]])(
+    'refuses a value that is not text (%p)',
+    (raw) => {
+      expect(safeInAppPath(raw)).toBeNull();
+    },
+  );
 });
 
 describe('which page the sign-in guard hid when the app was opened', () => {
   it('keeps a finding in the signed-in group, without repeating its id in the query', () => {
-    expect(hiddenPageHref({ pathname: '/findings/abc', segments: ['(app)', 'findings', '[findingId]'], params: { findingId: 'abc' } })).toBe('/findings/abc');
+    expect(
+      hiddenPageHref({
+        pathname: '/findings/abc',
+        segments: ['(app)', 'findings', '[findingId]'],
+        params: { findingId: 'abc' },
+      }),
+    ).toBe('/findings/abc');
   });
 
   it('keeps the query of a hidden page', () => {
-    expect(hiddenPageHref({ pathname: '/findings', segments: ['(app)', 'findings'], params: { status: 'open', tag: ['a', 'b'] } }))
-      .toBe('/findings?status=open&tag=a&tag=b');
+    expect(
+      hiddenPageHref({
+        pathname: '/findings',
+        segments: ['(app)', 'findings'],
+        params: { status: 'open', tag: ['a', 'b'] },
+      }),
+    ).toBe('/findings?status=open&tag=a&tag=b');
   });
 
   it('escapes an id that would otherwise change the path', () => {
-    expect(hiddenPageHref({ pathname: '/travelers/a?b', segments: ['(app)', 'travelers', '[travelerId]'], params: { travelerId: 'a?b' } }))
-      .toBe('/travelers/a%3Fb');
+    expect(
+      hiddenPageHref({
+        pathname: '/travelers/a?b',
+        segments: ['(app)', 'travelers', '[travelerId]'],
+        params: { travelerId: 'a?b' },
+      }),
+    ).toBe('/travelers/a%3Fb');
   });
 
   it('ignores the router’s own bookkeeping', () => {
-    expect(hiddenPageHref({ pathname: '/builds/b1', segments: ['(app)', 'builds', '[buildId]'], params: { buildId: 'b1', __EXPO_ROUTER_key: 'x', '#': 'top' } }))
-      .toBe('/builds/b1');
+    expect(
+      hiddenPageHref({
+        pathname: '/builds/b1',
+        segments: ['(app)', 'builds', '[buildId]'],
+        params: { buildId: 'b1', __EXPO_ROUTER_key: 'x', '#': 'top' },
+      }),
+    ).toBe('/builds/b1');
   });
 
   it.each([
     ['the sign-in page', { pathname: '/sign-in', segments: ['(auth)', 'sign-in'], params: {} }],
-    ['a scanned label, which is open to everyone and asks for sign-in itself', { pathname: '/t/abcd', segments: ['t', '[token]'], params: { token: 'abcd' } }],
+    [
+      'a scanned label, which is open to everyone and asks for sign-in itself',
+      { pathname: '/t/abcd', segments: ['t', '[token]'], params: { token: 'abcd' } },
+    ],
     ['the home page', { pathname: '/', segments: ['(app)'], params: {} }],
     ['a page that does not exist', { pathname: '/nowhere', segments: ['+not-found'], params: {} }],
   ])('keeps nothing for %s', (_why, route) => {
@@ -98,7 +125,10 @@ describe('what the sign-in screen says will open', () => {
     expect(signInMessage(pending)).toBe(message);
   });
 
-  it.each([[null], [undefined], ['//evil.example'], ['/sign-in'], ['/']])('says nothing when no safe page waits (%p)', (pending) => {
-    expect(signInMessage(pending)).toBeNull();
-  });
+  it.each([[null], [undefined], ['//evil.example'], ['/sign-in'], ['/']])(
+    'says nothing when no safe page waits (%p)',
+    (pending) => {
+      expect(signInMessage(pending)).toBeNull();
+    },
+  );
 });

@@ -1,7 +1,18 @@
 import { personActions, type PersonAction, type PersonSummary } from '@/db/contracts';
 import { PeopleScreen } from '@/components/people/people-screen';
 import { peopleKeys } from '@/hooks/queries/people';
-import { admin, lead, NORTH, organizations, owner, people, person, recordFetch, SHOP, wrapSignedIn } from './people-fixtures';
+import {
+  admin,
+  lead,
+  NORTH,
+  organizations,
+  owner,
+  people,
+  person,
+  recordFetch,
+  SHOP,
+  wrapSignedIn,
+} from './people-fixtures';
 
 jest.mock('expo-router', () => ({
   useRouter: () => ({ push: jest.fn(), replace: jest.fn(), back: jest.fn(), canGoBack: () => false }),
@@ -11,11 +22,14 @@ jest.mock('expo-router', () => ({
 const paged = <T,>(items: T[], next: string | null = null) => ({ pages: [{ items, next }], pageParams: [null] });
 
 const seeded = (list: PersonSummary[] = people, next: string | null = null): [readonly unknown[], unknown][] => [
-  [peopleKeys.list(), paged(list, next)], [peopleKeys.invitations(), paged([])], [peopleKeys.organizations(), paged(organizations)],
+  [peopleKeys.list(), paged(list, next)],
+  [peopleKeys.invitations(), paged([])],
+  [peopleKeys.organizations(), paged(organizations)],
 ];
 
 /** POST answers the invitation made; GET (the list asked again after it) an empty page. */
-const invitationsRoute = (sent: unknown) => (sent ? { status: 201, body: { ok: true } } : { body: { items: [], next: null } });
+const invitationsRoute = (sent: unknown) =>
+  sent ? { status: 201, body: { ok: true } } : { body: { items: [], next: null } };
 
 async function shown(user = admin, list: PersonSummary[] = people) {
   recordFetch({});
@@ -24,7 +38,8 @@ async function shown(user = admin, list: PersonSummary[] = people) {
   return r;
 }
 
-const actionIds = (r: Awaited<ReturnType<typeof shown>>) => r.allByTestIdPrefix('person-action-').map((el) => el.getAttribute('data-testid'));
+const actionIds = (r: Awaited<ReturnType<typeof shown>>) =>
+  r.allByTestIdPrefix('person-action-').map((el) => el.getAttribute('data-testid'));
 
 describe('the people screen offers exactly what the server allows', () => {
   const table: [string, PersonAction[]][] = [
@@ -90,12 +105,18 @@ describe('deactivating and reactivating', () => {
   });
 
   it('changes a role to one of the organisation’s roles only', async () => {
-    const calls = recordFetch({ '/api/people/u-tobias': { body: { ...people[0], role: 'inspector' } }, '/api/people': { body: { items: people, next: null } } });
+    const calls = recordFetch({
+      '/api/people/u-tobias': { body: { ...people[0], role: 'inspector' } },
+      '/api/people': { body: { items: people, next: null } },
+    });
     const r = wrapSignedIn(<PeopleScreen />, admin, seeded());
     await r.settle();
     await r.press('person-tobias@benchwork.example');
     // A build shop holds builders and inspectors.
-    expect(r.allByTestIdPrefix('person-role-').map((el) => el.getAttribute('data-testid'))).toEqual(['person-role-builder', 'person-role-inspector']);
+    expect(r.allByTestIdPrefix('person-role-').map((el) => el.getAttribute('data-testid'))).toEqual([
+      'person-role-builder',
+      'person-role-inspector',
+    ]);
     expect(r.byTestId('person-action-change-role').getAttribute('aria-disabled')).toBe('true');
     await r.press('person-role-inspector');
     await r.press('person-action-change-role');
@@ -108,7 +129,9 @@ describe('finding people', () => {
   it('narrows the list as one types, and says so when nobody matches', async () => {
     const r = await shown();
     await r.type('people-find', 'priya');
-    expect(r.allByTestIdPrefix('person-').filter((el) => /^person-[^-]+@/.test(el.getAttribute('data-testid')!)).length).toBe(1);
+    expect(
+      r.allByTestIdPrefix('person-').filter((el) => /^person-[^-]+@/.test(el.getAttribute('data-testid')!)).length,
+    ).toBe(1);
     expect(r.byTestId('people-count').textContent).toBe('1 of 5 people shown');
     await r.type('people-find', 'nobody-like-this');
     expect(r.byTestId('empty').textContent).toContain('Nobody matches');
@@ -121,11 +144,15 @@ describe('people in pages', () => {
     const calls = recordFetch({ '/api/people': { body: { items: more, next: null } } });
     const r = wrapSignedIn(<PeopleScreen />, admin, seeded(people, 'cursor-of-page-1'));
     await r.settle();
-    const before = r.allByTestIdPrefix('person-').filter((el) => /^person-[^-]+@/.test(el.getAttribute('data-testid')!)).length;
+    const before = r
+      .allByTestIdPrefix('person-')
+      .filter((el) => /^person-[^-]+@/.test(el.getAttribute('data-testid')!)).length;
     expect(r.queryByTestId('person-zed@benchwork.example')).toBeNull();
     await r.press('people-more');
     await r.settle();
-    expect(calls.filter((c) => c.url.startsWith('/api/people')).map((c) => c.url)).toEqual(['/api/people?cursor=cursor-of-page-1']);
+    expect(calls.filter((c) => c.url.startsWith('/api/people')).map((c) => c.url)).toEqual([
+      '/api/people?cursor=cursor-of-page-1',
+    ]);
     const rows = r.allByTestIdPrefix('person-').filter((el) => /^person-[^-]+@/.test(el.getAttribute('data-testid')!));
     expect(rows).toHaveLength(before + 1);
     // The first page's people stay; the second page's person joins them (active people first, as the list shows them).
@@ -151,15 +178,35 @@ describe('inviting', () => {
     await r.press(`invite-org-${SHOP}`);
     expect(r.queryByTestId('invite-lead')).toBeNull();
     await r.press('invite-send');
-    expect(calls.filter((c) => c.method === 'POST')).toEqual([{
-      url: '/api/people/invitations', method: 'POST',
-      body: { email: 'juno@benchwork.example', name: 'Juno Marsh', role: 'builder', organizationId: SHOP, lead: false },
-    }]);
+    expect(calls.filter((c) => c.method === 'POST')).toEqual([
+      {
+        url: '/api/people/invitations',
+        method: 'POST',
+        body: {
+          email: 'juno@benchwork.example',
+          name: 'Juno Marsh',
+          role: 'builder',
+          organizationId: SHOP,
+          lead: false,
+        },
+      },
+    ]);
     expect(r.byTestId('invite-sent').textContent).toContain('juno@benchwork.example');
   });
 
   it('puts the server’s refusal at the field', async () => {
-    recordFetch({ '/api/people/invitations': { status: 409, body: { error: { code: 'conflict', message: 'this address already has an account', fields: { email: 'already has an account' } } } } });
+    recordFetch({
+      '/api/people/invitations': {
+        status: 409,
+        body: {
+          error: {
+            code: 'conflict',
+            message: 'this address already has an account',
+            fields: { email: 'already has an account' },
+          },
+        },
+      },
+    });
     const r = wrapSignedIn(<PeopleScreen />, admin, seeded());
     await r.settle();
     await r.type('invite-person-email', 'tobias@benchwork.example');

@@ -1,5 +1,12 @@
 import { roles } from '@/db/contracts';
-import { filterPeople, matchesPerson, organizationsFor, peopleCount, rolesFor, roleWords } from '@/components/people/people-view';
+import {
+  filterPeople,
+  matchesPerson,
+  organizationsFor,
+  peopleCount,
+  rolesFor,
+  roleWords,
+} from '@/components/people/people-view';
 import { allTabRoutes, tabsFor } from '@/components/navigation/role-tabs';
 import { INSPECTION, NORTH, organizations, people, person, SHOP } from './people-fixtures';
 
@@ -18,7 +25,13 @@ describe('the people list', () => {
   });
 
   it('lists active people first, each group by name', () => {
-    expect(filterPeople(people, '', 'all').map((p) => p.name)).toEqual(['Maren Holt', 'Priya Ashdown', 'Site Admin', 'Tobias Fenn', 'Oskar Left']);
+    expect(filterPeople(people, '', 'all').map((p) => p.name)).toEqual([
+      'Maren Holt',
+      'Priya Ashdown',
+      'Site Admin',
+      'Tobias Fenn',
+      'Oskar Left',
+    ]);
   });
 
   it('shows only the active or only the deactivated when asked', () => {
@@ -37,8 +50,12 @@ describe('the people list', () => {
   });
 
   it('names the lead engineer in the role', () => {
-    expect(roleWords(person({ id: 'x', email: 'x@x.example', name: 'X', role: 'supplier', lead: true }))).toBe('Supplier’s engineer, lead engineer');
-    expect(roleWords(person({ id: 'y', email: 'y@x.example', name: 'Y', role: 'builder', lead: false }))).toBe('Builder');
+    expect(roleWords(person({ id: 'x', email: 'x@x.example', name: 'X', role: 'supplier', lead: true }))).toBe(
+      'Supplier’s engineer, lead engineer',
+    );
+    expect(roleWords(person({ id: 'y', email: 'y@x.example', name: 'Y', role: 'builder', lead: false }))).toBe(
+      'Builder',
+    );
   });
 });
 
@@ -66,7 +83,14 @@ describe('tabs by role', () => {
   });
 
   it('gives a supplier’s lead engineer the People tab too, and an engineer who is not lead none', () => {
-    expect(ids({ role: 'supplier', lead: true })).toEqual(['tab-catalogue', 'tab-studies', 'tab-coupons', 'tab-builds', 'tab-approvals', 'tab-people']);
+    expect(ids({ role: 'supplier', lead: true })).toEqual([
+      'tab-catalogue',
+      'tab-studies',
+      'tab-coupons',
+      'tab-builds',
+      'tab-approvals',
+      'tab-people',
+    ]);
     expect(ids({ role: 'supplier', lead: false })).not.toContain('tab-people');
   });
 

@@ -8,31 +8,81 @@ import { designKeys } from '@/hooks/queries/designs';
 import { buildPeople, lead, recordFetch, wrapSignedIn } from './people-fixtures';
 
 jest.mock('expo-router', () => ({
-  useRouter: () => ({ push: jest.fn(), replace: jest.fn(), back: jest.fn(), dismissTo: jest.fn(), canGoBack: () => false }),
+  useRouter: () => ({
+    push: jest.fn(),
+    replace: jest.fn(),
+    back: jest.fn(),
+    dismissTo: jest.fn(),
+    canGoBack: () => false,
+  }),
 }));
 
 const revision = (over: Partial<Revision> = {}): Revision => ({
-  id: 'r-b', partDesignId: 'd-1', letter: 'B', status: 'draft', material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20470AD4', drillSize: '#30',
-  drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 40,
-  lines: [{ code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 30, zones: [{ fromIn: 0, toIn: 30, pitchIn: 1 }] }],
-  steps: [], changeNote: 'Wider pitch aft', basis: null, studyId: null, createdAt: '2026-11-01T00:00:00.000Z', publishedAt: null, publishedByName: null,
-  allowedActions: ['edit', 'publish', 'discard'], ...over,
+  id: 'r-b',
+  partDesignId: 'd-1',
+  letter: 'B',
+  status: 'draft',
+  material: '6061-T6',
+  gaugeIn: 0.025,
+  rivetSpec: 'MS20470AD4',
+  drillSize: '#30',
+  drillDiameterIn: 0.1285,
+  edgeDistanceIn: 0.25,
+  chordIn: 40,
+  lines: [
+    {
+      code: 'U',
+      name: 'Upper flange',
+      surface: 'upper',
+      startIn: 1,
+      lengthIn: 30,
+      zones: [{ fromIn: 0, toIn: 30, pitchIn: 1 }],
+    },
+  ],
+  steps: [],
+  changeNote: 'Wider pitch aft',
+  basis: null,
+  studyId: null,
+  createdAt: '2026-11-01T00:00:00.000Z',
+  publishedAt: null,
+  publishedByName: null,
+  allowedActions: ['edit', 'publish', 'discard'],
+  ...over,
 });
 const design = (revisions: Revision[]): PartDesignDetail => ({
-  id: 'd-1', kitModelId: 'k-1', kitName: 'NK-2 Quillon', partNumber: 'W-104', name: 'Wing rib, inboard', kind: 'rib', publishedLetter: 'A', revisions,
+  id: 'd-1',
+  kitModelId: 'k-1',
+  kitName: 'NK-2 Quillon',
+  partNumber: 'W-104',
+  name: 'Wing rib, inboard',
+  kind: 'rib',
+  publishedLetter: 'A',
+  revisions,
 });
-const publishedA = revision({ id: 'r-a', letter: 'A', status: 'published', publishedAt: '2026-10-01T00:00:00.000Z', publishedByName: 'Maren Holt', allowedActions: [] });
+const publishedA = revision({
+  id: 'r-a',
+  letter: 'A',
+  status: 'published',
+  publishedAt: '2026-10-01T00:00:00.000Z',
+  publishedByName: 'Maren Holt',
+  allowedActions: [],
+});
 
 function showDesign(revisions: Revision[], routes: Parameters<typeof recordFetch>[0] = {}) {
   const calls = recordFetch(routes);
-  const r = wrapSignedIn(<DesignScreen designId="d-1" />, lead, [[designKeys.detail('d-1'), design(revisions)], [designKeys.clusters('d-1'), []]]);
+  const r = wrapSignedIn(<DesignScreen designId="d-1" />, lead, [
+    [designKeys.detail('d-1'), design(revisions)],
+    [designKeys.clusters('d-1'), []],
+  ]);
   return { r, calls };
 }
 const writes = (calls: { method: string }[]) => calls.filter((c) => c.method !== 'GET');
 
 describe('publishing is asked before it is sent', () => {
   it('says the approval cannot be undone, sends nothing until confirmed, and nothing when left as it is', async () => {
-    const { r, calls } = showDesign([revision(), publishedA], { '/api/revisions/r-b/publish': { body: revision({ status: 'published', allowedActions: [] }) } });
+    const { r, calls } = showDesign([revision(), publishedA], {
+      '/api/revisions/r-b/publish': { body: revision({ status: 'published', allowedActions: [] }) },
+    });
     await r.settle();
     await r.press('publish');
     expect(r.byTestId('publish-ask-message').textContent).toMatch(/cannot be undone/);
@@ -64,21 +114,41 @@ describe('publishing is asked before it is sent', () => {
 });
 
 const coupon = (over: Partial<CouponTest>): CouponTest => ({
-  id: 'c-1', material: '6061-T6', gaugeIn: 0.02, couponWidthIn: 1, rivetSpec: 'PULLED-4', loadLb: 30, outcome: 'slight_deformation', note: '',
-  testedOn: '2026-10-14', createdAt: '2026-10-14T10:00:00.000Z', createdByName: 'Maren Holt', correctionReason: '', correctedBy: null, backs: [],
-  allowedActions: ['correct', 'delete'], ...over,
+  id: 'c-1',
+  material: '6061-T6',
+  gaugeIn: 0.02,
+  couponWidthIn: 1,
+  rivetSpec: 'PULLED-4',
+  loadLb: 30,
+  outcome: 'slight_deformation',
+  note: '',
+  testedOn: '2026-10-14',
+  createdAt: '2026-10-14T10:00:00.000Z',
+  createdByName: 'Maren Holt',
+  correctionReason: '',
+  correctedBy: null,
+  backs: [],
+  allowedActions: ['correct', 'delete'],
+  ...over,
 });
 
 describe('the coupon record', () => {
   const show = (tests: CouponTest[]) => {
     const calls = recordFetch({ '/api/coupons/c-3': { status: 204, body: '' } });
-    const r = wrapSignedIn(<CouponsScreen />, lead, [[couponKeys.list(), { pages: [{ items: tests, next: null }], pageParams: [null] }], [couponKeys.allowables(), []]]);
+    const r = wrapSignedIn(<CouponsScreen />, lead, [
+      [couponKeys.list(), { pages: [{ items: tests, next: null }], pageParams: [null] }],
+      [couponKeys.allowables(), []],
+    ]);
     return { r, calls };
   };
 
   it('shows a corrected entry as corrected, with who and why, and offers nothing on it', async () => {
     const { r } = show([
-      coupon({ id: 'c-1', correctedBy: { id: 'c-2', byName: 'Maren Holt', at: '2026-11-02T09:00:00.000Z', reason: 'tare left on' }, allowedActions: [] }),
+      coupon({
+        id: 'c-1',
+        correctedBy: { id: 'c-2', byName: 'Maren Holt', at: '2026-11-02T09:00:00.000Z', reason: 'tare left on' },
+        allowedActions: [],
+      }),
       coupon({ id: 'c-2', loadLb: 25, correctionReason: 'tare left on' }),
     ]);
     await r.settle();
@@ -89,7 +159,10 @@ describe('the coupon record', () => {
   });
 
   it('offers delete only where the answer lists it, and says which revision a kept test may back', async () => {
-    const { r, calls } = show([coupon({ id: 'c-1', backs: ['W-190 revision A'], allowedActions: ['correct'] }), coupon({ id: 'c-3', loadLb: 12 })]);
+    const { r, calls } = show([
+      coupon({ id: 'c-1', backs: ['W-190 revision A'], allowedActions: ['correct'] }),
+      coupon({ id: 'c-3', loadLb: 12 }),
+    ]);
     await r.settle();
     expect(r.queryByTestId('coupon-delete-c-1')).toBeNull();
     expect(r.byTestId('coupon-row-c-1').textContent).toMatch(/May back W-190 revision A/);
@@ -102,9 +175,23 @@ describe('the coupon record', () => {
 
 describe('a build as shipped', () => {
   const page = (over: Partial<BuildPage>): BuildPage => ({
-    id: 'b-1', kitSerial: 'NK2-0200', kitName: 'NK-2 Quillon', supplierName: 'Northfold Kitworks', createdAt: '2026-01-03T00:00:00.000Z',
-    builders: [], inspectors: [], travelerCount: 2, holesTotal: 0, holesDone: 0, openFindings: 0, travelers: [], people: buildPeople([]),
-    note: '', allowedActions: [], fixedBecause: null, ...over,
+    id: 'b-1',
+    kitSerial: 'NK2-0200',
+    kitName: 'NK-2 Quillon',
+    supplierName: 'Northfold Kitworks',
+    createdAt: '2026-01-03T00:00:00.000Z',
+    builders: [],
+    inspectors: [],
+    travelerCount: 2,
+    holesTotal: 0,
+    holesDone: 0,
+    openFindings: 0,
+    travelers: [],
+    people: buildPeople([]),
+    note: '',
+    allowedActions: [],
+    fixedBecause: null,
+    ...over,
   });
   const show = (p: BuildPage) => {
     const calls = recordFetch({ '/api/builds/b-1': { status: 204, body: '' } });
@@ -113,7 +200,9 @@ describe('a build as shipped', () => {
   };
 
   it('offers the note only, saying why, once work is recorded', async () => {
-    const { r } = show(page({ allowedActions: ['edit-note'], fixedBecause: 'work is recorded on this build (9 holes worked)' }));
+    const { r } = show(
+      page({ allowedActions: ['edit-note'], fixedBecause: 'work is recorded on this build (9 holes worked)' }),
+    );
     await r.settle();
     expect(r.byTestId('build-edit').textContent).toBe('Change the note…');
     expect(r.byTestId('build-fixed').textContent).toMatch(/9 holes worked/);

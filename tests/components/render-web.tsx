@@ -43,7 +43,9 @@ export function renderWeb(ui: ReactElement): Rendered {
   const settle = async () => {
     for (let i = 0; i < 5; i++) {
       // Let resolvers, effects and microtasks run.
-      await act(async () => { await new Promise((r) => setTimeout(r, 0)); });
+      await act(async () => {
+        await new Promise((r) => setTimeout(r, 0));
+      });
     }
   };
 
@@ -60,7 +62,9 @@ export function renderWeb(ui: ReactElement): Rendered {
     text: () => container.textContent ?? '',
     press: async (id) => {
       const el = byTestId(id);
-      await act(async () => { el.click(); });
+      await act(async () => {
+        el.click();
+      });
       await settle();
     },
     type: async (id, value) => {

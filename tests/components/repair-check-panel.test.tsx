@@ -6,7 +6,8 @@ jest.mock('expo-router', () => ({
   useRouter: () => ({ push: jest.fn(), replace: jest.fn(), back: jest.fn(), canGoBack: () => false }),
 }));
 
-const show = (f = finding, system: 'imperial' | 'metric' = 'imperial') => wrap(<RepairCheckPanel f={f} />, { finding: f }, system);
+const show = (f = finding, system: 'imperial' | 'metric' = 'imperial') =>
+  wrap(<RepairCheckPanel f={f} />, { finding: f }, system);
 
 describe('margins', () => {
   it('read signed with two places, "—" where not checked', () => {
@@ -25,7 +26,9 @@ describe('the repair check panel', () => {
     expect(r.byTestId('repair-proposed-MS20470AD6').getAttribute('aria-checked')).toBe('false');
     expect(calls).toHaveLength(0);
     await r.press('repair-check');
-    expect(calls).toEqual([{ url: '/api/findings/f-1/repair-check', method: 'POST', body: { proposedSpec: 'MS20470AD5' } }]);
+    expect(calls).toEqual([
+      { url: '/api/findings/f-1/repair-check', method: 'POST', body: { proposedSpec: 'MS20470AD5' } },
+    ]);
   });
 
   it('checks every hole of the finding and shows each with its verdict and reasons', async () => {
@@ -74,7 +77,8 @@ describe('the repair check panel', () => {
 
   it('fails a countersunk rivet that would knife-edge the sheet, and says to dimple', async () => {
     const csk: RepairCheckResult = {
-      ...passedCheck, pass: false,
+      ...passedCheck,
+      pass: false,
       inputs: { ...passedCheck.inputs, proposedSpec: 'MS20426AD5' },
       countersink: { required: true, headHeightIn: 0.0529, limitIn: 0.0213, pass: false },
     };
@@ -90,7 +94,10 @@ describe('the repair check panel', () => {
   it('opens each hole’s margins on demand and boxes a negative one', async () => {
     const negative: RepairCheckResult = {
       ...failedCheck,
-      holes: failedCheck.holes.map((h) => ({ ...h, margins: { ...h.margins, tensionLimit: -0.89266, combinedLimit: 1.14816 } })),
+      holes: failedCheck.holes.map((h) => ({
+        ...h,
+        margins: { ...h.margins, tensionLimit: -0.89266, combinedLimit: 1.14816 },
+      })),
     };
     recordFetch({ '/repair-check': { body: negative } });
     const r = show();
@@ -99,12 +106,19 @@ describe('the repair check panel', () => {
     await r.press('repair-hole-U-08-margins-toggle');
     expect(r.byTestId('repair-hole-U-08-ms-tension-limit').getAttribute('aria-label')).toBe('negative margin −0.89');
     expect(r.byTestId('repair-hole-U-08-ms-combined-limit').textContent).toBe('+1.15');
-    expect(r.byTestId('repair-hole-U-08-ms-shear-limit').getAttribute('aria-label')).toBe('not checked, no applied load');
+    expect(r.byTestId('repair-hole-U-08-ms-shear-limit').getAttribute('aria-label')).toBe(
+      'not checked, no applied load',
+    );
   });
 
   it('sends the size chosen, and keeps each size’s answer apart', async () => {
     const calls = recordFetch({
-      '/repair-check': (sent) => ({ body: (sent as { proposedSpec: string }).proposedSpec === 'MS20470AD6' ? { ...passedCheck, inputs: { ...passedCheck.inputs, proposedSpec: 'MS20470AD6' } } : failedCheck }),
+      '/repair-check': (sent) => ({
+        body:
+          (sent as { proposedSpec: string }).proposedSpec === 'MS20470AD6'
+            ? { ...passedCheck, inputs: { ...passedCheck.inputs, proposedSpec: 'MS20470AD6' } }
+            : failedCheck,
+      }),
     });
     const r = show();
     await r.press('repair-proposed-MS20470AD6');
@@ -140,8 +154,15 @@ describe('the stored result', () => {
   it('is named beside a fresh check, which is not kept', async () => {
     recordFetch({});
     const r = show({
-      ...finding, status: 'awaiting_approval', disposition: 'repair',
-      repair: { scheme: 'oversize_rivet', rivetSpec: 'MS20470AD5', overrideReason: 'backed by the spar cap', check: { pass: false, reasons: failedCheck.reasons, alternative: null, newDrill: failedCheck.newDrill } },
+      ...finding,
+      status: 'awaiting_approval',
+      disposition: 'repair',
+      repair: {
+        scheme: 'oversize_rivet',
+        rivetSpec: 'MS20470AD5',
+        overrideReason: 'backed by the spar cap',
+        check: { pass: false, reasons: failedCheck.reasons, alternative: null, newDrill: failedCheck.newDrill },
+      },
     });
     await r.settle();
     const stored = r.byTestId('repair-check-stored').textContent;

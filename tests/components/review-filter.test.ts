@@ -2,14 +2,42 @@ import { isOpenFinding, type FindingSummary } from '@/db/contracts';
 import { buildsIn, filterFindings, nextSort, sortFindings } from '@/components/findings/review-filter';
 
 const f = (over: Partial<FindingSummary>): FindingSummary => ({
-  id: Math.random().toString(36).slice(2), travelerId: 't', buildId: 'b', serial: 'NK2-0147-W-104', partNumber: 'W-104', kitSerial: 'NK2-0147',
-  holeIds: ['U-03'], kind: 'hole_elongated', status: 'raised', disposition: null, closure: null, raisedByName: 'Tobias Fenn',
-  createdAt: '2026-11-01T10:00:00Z', updatedAt: '2026-11-01T10:00:00Z', photoCount: 1, thumbUrl: null, ...over,
+  id: Math.random().toString(36).slice(2),
+  travelerId: 't',
+  buildId: 'b',
+  serial: 'NK2-0147-W-104',
+  partNumber: 'W-104',
+  kitSerial: 'NK2-0147',
+  holeIds: ['U-03'],
+  kind: 'hole_elongated',
+  status: 'raised',
+  disposition: null,
+  closure: null,
+  raisedByName: 'Tobias Fenn',
+  createdAt: '2026-11-01T10:00:00Z',
+  updatedAt: '2026-11-01T10:00:00Z',
+  photoCount: 1,
+  thumbUrl: null,
+  ...over,
 });
 
 const rows = [
-  f({ id: 'a', createdAt: '2026-11-03T10:00:00Z', partNumber: 'W-105', status: 'awaiting_approval', disposition: 'use_as_is', holeIds: ['L-02'] }),
-  f({ id: 'b', createdAt: '2026-11-01T10:00:00Z', partNumber: 'W-104', status: 'closed', closure: 'accepted', kitSerial: 'NK2-0150' }),
+  f({
+    id: 'a',
+    createdAt: '2026-11-03T10:00:00Z',
+    partNumber: 'W-105',
+    status: 'awaiting_approval',
+    disposition: 'use_as_is',
+    holeIds: ['L-02'],
+  }),
+  f({
+    id: 'b',
+    createdAt: '2026-11-01T10:00:00Z',
+    partNumber: 'W-104',
+    status: 'closed',
+    closure: 'accepted',
+    kitSerial: 'NK2-0150',
+  }),
   f({ id: 'c', createdAt: '2026-11-02T10:00:00Z', partNumber: 'W-10', status: 'raised', kind: 'hole_cracked' }),
 ];
 
@@ -22,7 +50,9 @@ describe('the review queue', () => {
 
   it('filters by one state', () => {
     expect(filterFindings(rows, { status: 'closed', build: 'all', text: '' }).map((r) => r.id)).toEqual(['b']);
-    expect(filterFindings(rows, { status: 'awaiting_approval', build: 'all', text: '' }).map((r) => r.id)).toEqual(['a']);
+    expect(filterFindings(rows, { status: 'awaiting_approval', build: 'all', text: '' }).map((r) => r.id)).toEqual([
+      'a',
+    ]);
   });
 
   it('filters by build', () => {
@@ -42,7 +72,11 @@ describe('the review queue', () => {
   });
 
   it('sorts part numbers in their natural order', () => {
-    expect(sortFindings(rows, { key: 'part', dir: 'asc' }).map((r) => r.partNumber)).toEqual(['W-10', 'W-104', 'W-105']);
+    expect(sortFindings(rows, { key: 'part', dir: 'asc' }).map((r) => r.partNumber)).toEqual([
+      'W-10',
+      'W-104',
+      'W-105',
+    ]);
   });
 
   it('sorts by where each finding is in its life, in the rules module’s order', () => {

@@ -3,7 +3,11 @@ import { isInRun, pickRunEnd, planRun, runHoles, toggleHole, type RunPick } from
 
 function line(code: string, statuses: HoleStatus[]): Hole[] {
   return statuses.map((status, i) => ({
-    holeId: `${code}-${String(i + 1).padStart(2, '0')}`, line: code, seq: i + 1, stationIn: 0.5 + i, status,
+    holeId: `${code}-${String(i + 1).padStart(2, '0')}`,
+    line: code,
+    seq: i + 1,
+    stationIn: 0.5 + i,
+    status,
   }));
 }
 

@@ -9,7 +9,9 @@ import { renderWeb } from './render-web';
 describe('a screen that stopped working', () => {
   it('says so with the error in words, and "Try again" draws it anew', async () => {
     const retry = jest.fn(async () => undefined);
-    const r = renderWeb(<ScreenErrorBoundary error={new Error('the part drawing could not read its outline')} retry={retry} />);
+    const r = renderWeb(
+      <ScreenErrorBoundary error={new Error('the part drawing could not read its outline')} retry={retry} />,
+    );
     expect(r.text()).toContain('This screen stopped working');
     expect(r.text()).toContain('the part drawing could not read its outline');
     await r.press('retry');
@@ -19,13 +21,26 @@ describe('a screen that stopped working', () => {
   it('is exported by the root layout, the signed-in layout and every tab', () => {
     const root = path.join(__dirname, '..', '..', 'app');
     const routes = [
-      '_layout.tsx', '(app)/_layout.tsx',
-      '(app)/builds/_layout.tsx', '(app)/catalogue/_layout.tsx', '(app)/coupons/_layout.tsx', '(app)/findings/_layout.tsx',
-      '(app)/studies/_layout.tsx', '(app)/travelers/_layout.tsx',
-      '(app)/index.tsx', '(app)/bench.tsx', '(app)/people.tsx', '(app)/phone.tsx', '(app)/account.tsx',
+      '_layout.tsx',
+      '(app)/_layout.tsx',
+      '(app)/builds/_layout.tsx',
+      '(app)/catalogue/_layout.tsx',
+      '(app)/coupons/_layout.tsx',
+      '(app)/findings/_layout.tsx',
+      '(app)/studies/_layout.tsx',
+      '(app)/travelers/_layout.tsx',
+      '(app)/index.tsx',
+      '(app)/bench.tsx',
+      '(app)/people.tsx',
+      '(app)/phone.tsx',
+      '(app)/account.tsx',
     ];
-    const without = routes.filter((f) => !/^export \{ ScreenErrorBoundary as ErrorBoundary \} from '@\/components\/ui\/screen-error-boundary';$/m
-      .test(readFileSync(path.join(root, f), 'utf8')));
+    const without = routes.filter(
+      (f) =>
+        !/^export \{ ScreenErrorBoundary as ErrorBoundary \} from '@\/components\/ui\/screen-error-boundary';$/m.test(
+          readFileSync(path.join(root, f), 'utf8'),
+        ),
+    );
     expect(without).toEqual([]);
   });
 });

@@ -12,14 +12,25 @@ describe('the offline copy', () => {
   it('on sign-out empties the caches of API answers and photos, and keeps the app shell', async () => {
     const names = ['pitchcard-precache-v2-http://localhost/', offline.api, offline.photos, 'someone-else'];
     const deleted: string[] = [];
-    g.caches = { keys: async () => names, delete: async (n) => { deleted.push(n); return true; } };
+    g.caches = {
+      keys: async () => names,
+      delete: async (n) => {
+        deleted.push(n);
+        return true;
+      },
+    };
     await clearOfflineCaches();
     expect(deleted.sort()).toEqual([offline.api, offline.photos].sort());
   });
 
   it('clearing is quiet where the browser has no cache storage or refuses it', async () => {
     await expect(clearOfflineCaches()).resolves.toBeUndefined();
-    g.caches = { keys: async () => { throw new Error('SecurityError'); }, delete: async () => false };
+    g.caches = {
+      keys: async () => {
+        throw new Error('SecurityError');
+      },
+      delete: async () => false,
+    };
     await expect(clearOfflineCaches()).resolves.toBeUndefined();
   });
 
@@ -33,9 +44,14 @@ describe('the offline copy', () => {
 
   describe('in a production build', () => {
     const env = process.env.NODE_ENV;
-    const setSecure = (secure: boolean) => Object.defineProperty(window, 'isSecureContext', { value: secure, configurable: true });
-    beforeEach(() => { process.env.NODE_ENV = 'production'; });
-    afterEach(() => { process.env.NODE_ENV = env; });
+    const setSecure = (secure: boolean) =>
+      Object.defineProperty(window, 'isSecureContext', { value: secure, configurable: true });
+    beforeEach(() => {
+      process.env.NODE_ENV = 'production';
+    });
+    afterEach(() => {
+      process.env.NODE_ENV = env;
+    });
 
     it('registers /sw.js for the whole app, with its updates never taken from the HTTP cache', () => {
       setSecure(true);

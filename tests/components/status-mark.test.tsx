@@ -1,5 +1,12 @@
 import { findingStatuses, holeStatuses, isOpenFinding } from '@/db/contracts';
-import { FindingMark, findingShapes, FindingStatusTag, HoleMark, holeShapes, HoleStatusLegend } from '@/components/ui/status-mark';
+import {
+  FindingMark,
+  findingShapes,
+  FindingStatusTag,
+  HoleMark,
+  holeShapes,
+  HoleStatusLegend,
+} from '@/components/ui/status-mark';
 import { findingStatusColors, statusColors } from '@/constants/theme';
 import { renderWeb } from './render-web';
 
@@ -15,7 +22,12 @@ describe('hole status marks', () => {
 
   it('keeps the marks the shop knows', () => {
     expect(holeShapes).toEqual({
-      pending: 'open-circle', installed: 'dot', flagged: 'triangle', held: 'square', reworked: 'diamond', accepted: 'ringed-check',
+      pending: 'open-circle',
+      installed: 'dot',
+      flagged: 'triangle',
+      held: 'square',
+      reworked: 'diamond',
+      accepted: 'ringed-check',
     });
   });
 
@@ -30,8 +42,12 @@ describe('hole status marks', () => {
   });
 
   it('draws a pending hole as an open ring and an installed one filled', () => {
-    const pending = renderWeb(<HoleMark status="pending" />).byTestId('mark-pending').querySelector('circle')!;
-    const installed = renderWeb(<HoleMark status="installed" />).byTestId('mark-installed').querySelector('circle')!;
+    const pending = renderWeb(<HoleMark status="pending" />)
+      .byTestId('mark-pending')
+      .querySelector('circle')!;
+    const installed = renderWeb(<HoleMark status="installed" />)
+      .byTestId('mark-installed')
+      .querySelector('circle')!;
     expect(pending.getAttribute('stroke')).toBe(statusColors.pending);
     expect(pending.getAttribute('fill')).not.toBe(statusColors.pending);
     expect(installed.getAttribute('fill')).toBe(statusColors.installed);

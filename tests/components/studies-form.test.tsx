@@ -1,5 +1,13 @@
 import { StudyForm, type StudyOutput } from '@/components/studies/study-form';
-import { gaugeLabel, kitIntoStudy, nacaDigits, newStudyValues, studyValues, toggleGauge, toggleRivet } from '@/components/studies/study-form-values';
+import {
+  gaugeLabel,
+  kitIntoStudy,
+  nacaDigits,
+  newStudyValues,
+  studyValues,
+  toggleGauge,
+  toggleRivet,
+} from '@/components/studies/study-form-values';
 import { ApiError } from '@/lib/api-client';
 import { demoKit, renderInUnits } from './studies-render';
 
@@ -9,21 +17,34 @@ jest.setTimeout(30_000);
 const kit = demoKit;
 
 function renderForm(system: 'imperial' | 'metric', onSubmit: (v: StudyOutput) => Promise<void>) {
-  return renderInUnits(system, <StudyForm kits={[kit]} defaultValues={newStudyValues(kit)} isNew submitLabel="Compute" onSubmit={onSubmit} />);
+  return renderInUnits(
+    system,
+    <StudyForm kits={[kit]} defaultValues={newStudyValues(kit)} isNew submitLabel="Compute" onSubmit={onSubmit} />,
+  );
 }
 
 describe('the study form’s values', () => {
   it('starts a new study from the kit model’s design data', () => {
     const v = newStudyValues(kit);
     expect(v.kitModelId).toBe(kit.id);
-    expect(v.inputs.kit).toMatchObject({ weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 54, stallSpeedKeas: 47, cruiseSpeedKeas: 118, category: 'utility' });
+    expect(v.inputs.kit).toMatchObject({
+      weightLb: 1320,
+      wingAreaSqFt: 120,
+      meanChordIn: 54,
+      stallSpeedKeas: 47,
+      cruiseSpeedKeas: 118,
+      category: 'utility',
+    });
     expect(v.inputs.airfoil).toEqual({ kind: 'naca', designation: '2412' });
     expect(v.inputs.rib.chordIn).toBe(54);
     expect(v.inputs.rib.spacingIn).toBeUndefined();
   });
 
   it('keeps a rib chord already set when the kit data are taken again', () => {
-    const v = kitIntoStudy({ ...newStudyValues(), inputs: { ...newStudyValues().inputs, rib: { chordIn: 40, spacingIn: 14 } } }, kit);
+    const v = kitIntoStudy(
+      { ...newStudyValues(), inputs: { ...newStudyValues().inputs, rib: { chordIn: 40, spacingIn: 14 } } },
+      kit,
+    );
     expect(v.inputs.rib).toEqual({ chordIn: 40, spacingIn: 14 });
   });
 
@@ -55,7 +76,9 @@ describe('the study form’s values', () => {
 describe('the study form', () => {
   it('takes millimetres, kilograms and square metres on the metric switch and sends inches, pounds and square feet', async () => {
     const sent: StudyOutput[] = [];
-    const r = renderForm('metric', async (v) => { sent.push(v); });
+    const r = renderForm('metric', async (v) => {
+      sent.push(v);
+    });
     expect(r.byTestId('study-rib-chord-field').textContent).toContain('mm');
     await r.type('study-name', 'Metric rib');
     await r.type('study-weight', '600');
@@ -93,7 +116,9 @@ describe('the study form', () => {
 
   it('does not send a study without a single gauge to try', async () => {
     const sent: StudyOutput[] = [];
-    const r = renderForm('imperial', async (v) => { sent.push(v); });
+    const r = renderForm('imperial', async (v) => {
+      sent.push(v);
+    });
     await r.type('study-name', 'No gauges');
     await r.type('study-rib-spacing', '14.5');
     for (const g of ['0.016', '0.02', '0.025', '0.032', '0.04']) await r.press(`study-gauge-${g}`);
@@ -104,9 +129,14 @@ describe('the study form', () => {
 
   it('puts the engine’s complaint about a line on that line’s field', async () => {
     const r = renderForm('imperial', async () => {
-      throw new ApiError(400, 'invalid_input', 'lines[1].endXc: the end must be a fraction of the chord after the start and at most 1', {
-        'lines[1].endXc': 'the end must be a fraction of the chord after the start and at most 1',
-      });
+      throw new ApiError(
+        400,
+        'invalid_input',
+        'lines[1].endXc: the end must be a fraction of the chord after the start and at most 1',
+        {
+          'lines[1].endXc': 'the end must be a fraction of the chord after the start and at most 1',
+        },
+      );
     });
     await r.type('study-name', 'Engine says no');
     await r.type('study-rib-spacing', '14.5');
@@ -117,7 +147,9 @@ describe('the study form', () => {
 
   it('says a complaint it has no field for at the top of the form', async () => {
     const r = renderForm('imperial', async () => {
-      throw new ApiError(400, 'invalid_input', 'cellAreaSqIn: the wing torque and the cell area go together', { cellAreaSqIn: 'the wing torque and the cell area go together' });
+      throw new ApiError(400, 'invalid_input', 'cellAreaSqIn: the wing torque and the cell area go together', {
+        cellAreaSqIn: 'the wing torque and the cell area go together',
+      });
     });
     await r.type('study-name', 'Top');
     await r.type('study-rib-spacing', '14.5');

@@ -1,10 +1,26 @@
 import {
-  fitProjection, largestCp, linearScale, niceAxis, niceStep, pressureArrows, splitOutline, stackLabels, surfaceAt, surfaceBetween, tickLabel,
+  fitProjection,
+  largestCp,
+  linearScale,
+  niceAxis,
+  niceStep,
+  pressureArrows,
+  splitOutline,
+  stackLabels,
+  surfaceAt,
+  surfaceBetween,
+  tickLabel,
 } from '@/components/studies/plot-scale';
 import type { Pt } from '@/components/studies/study-result';
 
 // A diamond "airfoil", 10 in chord, 1 in thick at mid-chord, listed from the trailing edge over the top.
-const diamond: Pt[] = [[10, 0], [5, 0.5], [0, 0], [5, -0.5], [10, 0]];
+const diamond: Pt[] = [
+  [10, 0],
+  [5, 0.5],
+  [0, 0],
+  [5, -0.5],
+  [10, 0],
+];
 
 describe('plot scales', () => {
   it('maps the domain onto the range, and flips it when the range runs backwards', () => {
@@ -83,7 +99,16 @@ describe('the rib outline and the pressure on it', () => {
 
   it('draws suction away from the skin and pressure onto it, |Cp| long', () => {
     const { upper } = splitOutline(diamond);
-    const [suck, push] = pressureArrows(upper, [{ xc: 0.75, cp: -2 }, { xc: 0.75, cp: 0.5 }], 'upper', 10, 1);
+    const [suck, push] = pressureArrows(
+      upper,
+      [
+        { xc: 0.75, cp: -2 },
+        { xc: 0.75, cp: 0.5 },
+      ],
+      'upper',
+      10,
+      1,
+    );
     expect(suck.suction).toBe(true);
     expect(push.suction).toBe(false);
     expect(Math.hypot(suck.x1 - suck.x0, suck.y1 - suck.y0)).toBeCloseTo(2);
@@ -118,10 +143,23 @@ describe('the rib outline and the pressure on it', () => {
 
 describe('pitch labels that do not overlap', () => {
   it('keeps labels that fit side by side on one row', () => {
-    expect(stackLabels([{ x0: 0, x1: 30 }, { x0: 40, x1: 70 }, { x0: 80, x1: 100 }])).toEqual([0, 0, 0]);
+    expect(
+      stackLabels([
+        { x0: 0, x1: 30 },
+        { x0: 40, x1: 70 },
+        { x0: 80, x1: 100 },
+      ]),
+    ).toEqual([0, 0, 0]);
   });
 
   it('moves a label that would overlap its neighbour up a row, and back down when there is room', () => {
-    expect(stackLabels([{ x0: 0, x1: 40 }, { x0: 30, x1: 70 }, { x0: 50, x1: 90 }, { x0: 100, x1: 120 }])).toEqual([0, 1, 0, 0]);
+    expect(
+      stackLabels([
+        { x0: 0, x1: 40 },
+        { x0: 30, x1: 70 },
+        { x0: 50, x1: 90 },
+        { x0: 100, x1: 120 },
+      ]),
+    ).toEqual([0, 1, 0, 0]);
   });
 });

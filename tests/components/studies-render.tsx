@@ -12,9 +12,18 @@ export const KIT_ID = '3f1c9a52-8a1e-4c47-9b7e-2f3a4d5e6f70';
 
 /** An invented kit model: 1320 lb, 120 sq ft, 54 in mean chord, NACA 2412. */
 export const demoKit: KitModel = {
-  id: KIT_ID, organizationId: 'org', createdAt: '2026-10-01T00:00:00Z',
-  code: 'NK-2', name: 'NK-2 Quillon', weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 54, stallSpeedKeas: 47, cruiseSpeedKeas: 118,
-  category: 'utility', airfoil: 'NACA 2412',
+  id: KIT_ID,
+  organizationId: 'org',
+  createdAt: '2026-10-01T00:00:00Z',
+  code: 'NK-2',
+  name: 'NK-2 Quillon',
+  weightLb: 1320,
+  wingAreaSqFt: 120,
+  meanChordIn: 54,
+  stallSpeedKeas: 47,
+  cruiseSpeedKeas: 118,
+  category: 'utility',
+  airfoil: 'NACA 2412',
 };
 
 /**
@@ -27,7 +36,9 @@ export function fakeLayout(width: () => number) {
     Object.defineProperty(HTMLElement.prototype, 'offsetHeight', { configurable: true, get: () => 300 });
     (window as unknown as { ResizeObserver: unknown }).ResizeObserver = class {
       constructor(private cb: (entries: { target: Element }[]) => void) {}
-      observe(target: Element) { setTimeout(() => this.cb([{ target }]), 0); }
+      observe(target: Element) {
+        setTimeout(() => this.cb([{ target }]), 0);
+      }
       unobserve() {}
       disconnect() {}
     };

@@ -17,7 +17,14 @@ fakeLayout(() => 640);
 
 const KIT = KIT_ID;
 const inputs = {
-  kit: { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 54, stallSpeedKeas: 47, cruiseSpeedKeas: 118, category: 'utility' as const },
+  kit: {
+    weightLb: 1320,
+    wingAreaSqFt: 120,
+    meanChordIn: 54,
+    stallSpeedKeas: 47,
+    cruiseSpeedKeas: 118,
+    category: 'utility' as const,
+  },
   airfoil: { kind: 'naca' as const, designation: '2412' },
   rib: { chordIn: 54, spacingIn: 14.5 },
   lines: [
@@ -27,32 +34,76 @@ const inputs = {
   material: '6061-T6',
   gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04, 0.05],
   rivetCandidates: ['PULLED-4', 'MS20470AD3', 'MS20470AD4'],
-  maxPitchDiameters: 8, pitchIncrementIn: 0.125, maxZones: 4,
+  maxPitchDiameters: 8,
+  pitchIncrementIn: 0.125,
+  maxZones: 4,
 };
-const coupons = ([
-  [0.016, 20, 'excessive_deformation'], [0.016, 30, 'excessive_deformation'],
-  [0.02, 13.5, 'no_deformation'], [0.02, 20, 'slight_deformation'], [0.02, 30, 'slight_deformation'],
-] as const).map(([gaugeIn, loadLb, outcome]) => ({ material: '6061-T6', gaugeIn, couponWidthIn: 1, rivetSpec: 'PULLED-4', loadLb, outcome }));
+const coupons = (
+  [
+    [0.016, 20, 'excessive_deformation'],
+    [0.016, 30, 'excessive_deformation'],
+    [0.02, 13.5, 'no_deformation'],
+    [0.02, 20, 'slight_deformation'],
+    [0.02, 30, 'slight_deformation'],
+  ] as const
+).map(([gaugeIn, loadLb, outcome]) => ({
+  material: '6061-T6',
+  gaugeIn,
+  couponWidthIn: 1,
+  rivetSpec: 'PULLED-4',
+  loadLb,
+  outcome,
+}));
 const result = ribStudy({ ...inputs, coupons });
 // What GET /api/studies/:id/candidate answers for a candidate stored without its holes.
 const unstored = { gaugeIn: 0.016, rivet: 'PULLED-4' };
 const unstoredWhole = ribCandidate({ ...inputs, coupons }, unstored);
 
 const detail = (revision = 2): StudyDetail => ({
-  id: 'study-1', kind: 'rib', kitModelId: KIT, kitName: 'NK-2 Quillon', name: 'Inboard rib', revision, updatedAt: '2026-10-14T10:00:00Z',
-  recommended: result.recommended, inputs, result: result as never,
-  revisions: [{ revision: 1, createdAt: '2026-10-13T10:00:00Z', createdByName: 'Maren' }, { revision: 2, createdAt: '2026-10-14T10:00:00Z', createdByName: 'Maren' }],
+  id: 'study-1',
+  kind: 'rib',
+  kitModelId: KIT,
+  kitName: 'NK-2 Quillon',
+  name: 'Inboard rib',
+  revision,
+  updatedAt: '2026-10-14T10:00:00Z',
+  recommended: result.recommended,
+  inputs,
+  result: result as never,
+  revisions: [
+    { revision: 1, createdAt: '2026-10-13T10:00:00Z', createdByName: 'Maren' },
+    { revision: 2, createdAt: '2026-10-14T10:00:00Z', createdByName: 'Maren' },
+  ],
 });
 
 const designs: PartDesignSummary[] = [
-  { id: 'd-104', kitModelId: KIT, kitName: 'NK-2', partNumber: 'W-104', name: 'Wing rib, inboard', kind: 'rib', latest: { id: 'r', letter: 'A', status: 'published' }, publishedLetter: 'A' },
+  {
+    id: 'd-104',
+    kitModelId: KIT,
+    kitName: 'NK-2',
+    partNumber: 'W-104',
+    name: 'Wing rib, inboard',
+    kind: 'rib',
+    latest: { id: 'r', letter: 'A', status: 'published' },
+    publishedLetter: 'A',
+  },
 ];
 
-function renderResults(d = detail(), latest = 2, system: 'imperial' | 'metric' = 'imperial', candidates: { holes: boolean } = { holes: true }) {
-  return renderWithQueries(system, (qc) => {
-    qc.setQueryData(designKeys.choices(KIT), designs);
-    if (candidates.holes) qc.setQueryData(studyKeys.candidate(d.id, d.revision, unstored.gaugeIn, unstored.rivet), unstoredWhole);
-  }, <StudyResults detail={d} latestRevision={latest} />);
+function renderResults(
+  d = detail(),
+  latest = 2,
+  system: 'imperial' | 'metric' = 'imperial',
+  candidates: { holes: boolean } = { holes: true },
+) {
+  return renderWithQueries(
+    system,
+    (qc) => {
+      qc.setQueryData(designKeys.choices(KIT), designs);
+      if (candidates.holes)
+        qc.setQueryData(studyKeys.candidate(d.id, d.revision, unstored.gaugeIn, unstored.rivet), unstoredWhole);
+    },
+    <StudyResults detail={d} latestRevision={latest} />,
+  );
 }
 
 describe('reading a stored study result', () => {
@@ -114,7 +165,14 @@ describe('the results of a load study', () => {
 
   it('lists the first four candidates on a phone, the rest on request, keeping the one on show', async () => {
     const r = await renderResults();
-    const rows = () => r.allByTestIdPrefix('trade-row-').filter((e) => /^trade-row-[\d.]+-[A-Z0-9-]+$/.test(e.getAttribute('data-testid')!) && !/-(chosen|recommended)$/.test(e.getAttribute('data-testid')!));
+    const rows = () =>
+      r
+        .allByTestIdPrefix('trade-row-')
+        .filter(
+          (e) =>
+            /^trade-row-[\d.]+-[A-Z0-9-]+$/.test(e.getAttribute('data-testid')!) &&
+            !/-(chosen|recommended)$/.test(e.getAttribute('data-testid')!),
+        );
     expect(rows()).toHaveLength(4);
     expect(r.byTestId('trade-show-all').textContent).toBe('Show all 18 candidates');
     await r.press('trade-show-all');
@@ -140,12 +198,17 @@ describe('the results of a load study', () => {
     const asked: string[] = [];
     const saved = global.fetch;
     // Never answers: the screen stays in its waiting state.
-    global.fetch = jest.fn((url: string) => { asked.push(String(url)); return new Promise(() => {}); }) as never;
+    global.fetch = jest.fn((url: string) => {
+      asked.push(String(url));
+      return new Promise(() => {});
+    }) as never;
     try {
       const r = await renderResults(detail(), 2, 'imperial', { holes: false });
       await r.press('trade-show-all');
-    await r.press('trade-row-0.016-PULLED-4');
-      expect(asked.some((u) => u.includes('/api/studies/study-1/candidate?gaugeIn=0.016&rivet=PULLED-4&revision=2'))).toBe(true);
+      await r.press('trade-row-0.016-PULLED-4');
+      expect(
+        asked.some((u) => u.includes('/api/studies/study-1/candidate?gaugeIn=0.016&rivet=PULLED-4&revision=2')),
+      ).toBe(true);
       expect(r.byTestId('section-loads').textContent).toContain('Working out every hole of 0.016 in · PULLED-4');
       expect(r.queryByTestId('load-plot')).toBeNull();
       expect(r.byTestId('zone-row-0-0')).toBeTruthy();
@@ -170,7 +233,9 @@ describe('the results of a load study', () => {
   it('sorts the trade table by weight when its header is pressed', async () => {
     const r = await renderResults();
     await r.press('sort-weight');
-    const first = r.allByTestIdPrefix('trade-row-').find((e) => /^trade-row-[\d.]+-[A-Z0-9-]+$/.test(e.getAttribute('data-testid')!))!;
+    const first = r
+      .allByTestIdPrefix('trade-row-')
+      .find((e) => /^trade-row-[\d.]+-[A-Z0-9-]+$/.test(e.getAttribute('data-testid')!))!;
     const lightest = [...result.trade].sort((a, b) => a.totalWeightLb - b.totalWeightLb)[0];
     expect(first.getAttribute('data-testid')).toBe(tradeRowTestId(lightest));
   });
@@ -196,16 +261,22 @@ describe('the results of a load study', () => {
   });
 
   it('says the server’s refusal plainly when applying fails', async () => {
-    const body = JSON.stringify({ error: { code: 'conflict', message: 'the part design belongs to another kit than the study' } });
+    const body = JSON.stringify({
+      error: { code: 'conflict', message: 'the part design belongs to another kit than the study' },
+    });
     const fetchMock = jest.fn(async () => ({ ok: false, status: 409, text: async () => body }));
     const saved = global.fetch;
     global.fetch = fetchMock as never;
     try {
       const r = await renderResults();
       await r.press('apply-design-W-104');
-      await act(async () => { r.byTestId('apply-study').click(); });
+      await act(async () => {
+        r.byTestId('apply-study').click();
+      });
       await r.settle();
-      expect(r.byTestId('apply-error').textContent).toBe('Not applied: the part design belongs to another kit than the study');
+      expect(r.byTestId('apply-error').textContent).toBe(
+        'Not applied: the part design belongs to another kit than the study',
+      );
     } finally {
       global.fetch = saved;
     }

@@ -3,10 +3,31 @@ import type { TradeRow } from '@/components/studies/study-result';
 import { forceNumber, marginText, partWeight, pitchNumber } from '@/components/studies/study-numbers';
 import { nextTradeSort, sortTrade } from '@/components/studies/trade-sort';
 
-const row = (gaugeIn: number, rivet: string, rank: number | null, totalWeightLb: number, buildMinutes: number): TradeRow => ({
-  gaugeIn, rivet, feasible: rank !== null, rivetCount: Math.round(buildMinutes), flangeWeightLb: 0, webWeightLb: 0, rivetWeightLb: 0, totalWeightLb, buildMinutes, rank, pullThroughBasis: 'coupons',
+const row = (
+  gaugeIn: number,
+  rivet: string,
+  rank: number | null,
+  totalWeightLb: number,
+  buildMinutes: number,
+): TradeRow => ({
+  gaugeIn,
+  rivet,
+  feasible: rank !== null,
+  rivetCount: Math.round(buildMinutes),
+  flangeWeightLb: 0,
+  webWeightLb: 0,
+  rivetWeightLb: 0,
+  totalWeightLb,
+  buildMinutes,
+  rank,
+  pullThroughBasis: 'coupons',
 });
-const rows = [row(0.016, 'PULLED-4', null, 0.58, 239), row(0.02, 'PULLED-4', 1, 0.61, 92), row(0.016, 'MS20470AD3', 2, 0.45, 187), row(0.025, 'MS20470AD4', 3, 0.74, 138)];
+const rows = [
+  row(0.016, 'PULLED-4', null, 0.58, 239),
+  row(0.02, 'PULLED-4', 1, 0.61, 92),
+  row(0.016, 'MS20470AD3', 2, 0.45, 187),
+  row(0.025, 'MS20470AD4', 3, 0.74, 138),
+];
 
 describe('the trade table’s order', () => {
   it('puts the recommended row first and the ones that do not carry the loads last', () => {
@@ -24,7 +45,11 @@ describe('the trade table’s order', () => {
   });
 
   it('orders equal gauges by rank, so the table does not jump about', () => {
-    expect(sortTrade(rows, { key: 'gauge', dir: 'asc' }).slice(0, 2).map((r) => r.rivet)).toEqual(['MS20470AD3', 'PULLED-4']);
+    expect(
+      sortTrade(rows, { key: 'gauge', dir: 'asc' })
+        .slice(0, 2)
+        .map((r) => r.rivet),
+    ).toEqual(['MS20470AD3', 'PULLED-4']);
   });
 
   it('turns the order round on the same column and starts a new column ascending', () => {
@@ -75,7 +100,11 @@ describe('the load plot’s data', () => {
     const s = loadSeries(holes, { tensionLimitLb: 13.5, tensionUltimateLb: 30 }, 54, 'metric');
     expect(s.xs[1]).toBeCloseTo(508);
     expect(s.ultimateAllowable).toBeCloseTo(133.45, 1);
-    expect(s.x.ticks.every((t) => Number.isInteger(t / s.x.step + 1e-9) || Math.abs(Math.round(t / s.x.step) - t / s.x.step) < 1e-9)).toBe(true);
+    expect(
+      s.x.ticks.every(
+        (t) => Number.isInteger(t / s.x.step + 1e-9) || Math.abs(Math.round(t / s.x.step) - t / s.x.step) < 1e-9,
+      ),
+    ).toBe(true);
     expect(s.y.hi).toBeGreaterThanOrEqual(133.45);
   });
 });

@@ -12,14 +12,38 @@ beforeEach(() => mockPush.mockReset());
 
 const zones = [{ fromIn: 0, toIn: 4, pitchIn: 1 }];
 const detail: TravelerDetail = {
-  id: 'trav-1', serial: 'NK2-0147-W-104', shortCode: 'EDN-CY6', buildId: 'b1', kitSerial: 'NK2-0147',
-  partNumber: 'W-104', partName: 'Wing rib, inboard', kind: 'rib', letter: 'A',
-  holesTotal: 4, holesDone: 1, holesAwaitingInspector: 1, openFindings: 1, signedOff: false, newerRevision: 'B',
-  replaced: null, replacesId: null,
-  material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285,
-  edgeDistanceIn: 0.25, chordIn: 10,
+  id: 'trav-1',
+  serial: 'NK2-0147-W-104',
+  shortCode: 'EDN-CY6',
+  buildId: 'b1',
+  kitSerial: 'NK2-0147',
+  partNumber: 'W-104',
+  partName: 'Wing rib, inboard',
+  kind: 'rib',
+  letter: 'A',
+  holesTotal: 4,
+  holesDone: 1,
+  holesAwaitingInspector: 1,
+  openFindings: 1,
+  signedOff: false,
+  newerRevision: 'B',
+  replaced: null,
+  replacesId: null,
+  material: '6061-T6',
+  gaugeIn: 0.025,
+  rivetSpec: 'MS20470AD4',
+  drillSize: '#30',
+  drillDiameterIn: 0.1285,
+  edgeDistanceIn: 0.25,
+  chordIn: 10,
   lines: [{ code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 4, zones }],
-  outline: [[0, 0], [3, 1.5], [10, 0], [10, -0.5], [0, -0.5]],
+  outline: [
+    [0, 0],
+    [3, 1.5],
+    [10, 0],
+    [10, -0.5],
+    [0, -0.5],
+  ],
   holes: [
     { holeId: 'U-01', line: 'U', seq: 1, stationIn: 0.25, status: 'installed' },
     { holeId: 'U-02', line: 'U', seq: 2, stationIn: 1.25, status: 'pending' },
@@ -27,11 +51,17 @@ const detail: TravelerDetail = {
     { holeId: 'U-04', line: 'U', seq: 4, stationIn: 3.75, status: 'pending' },
   ],
   steps: [{ id: 's1', seq: 1, text: 'Deburr all holes', doneAt: null, doneByName: null }],
-  findings: [], approvedByName: 'Maren Holt', signedOffAt: null, signedOffByName: null,
-  rivetDiameterIn: 0.125, countersunk: false,
-  place: 'builder', allowedActions: ['tick', 'step', 'raise'],
+  findings: [],
+  approvedByName: 'Maren Holt',
+  signedOffAt: null,
+  signedOffByName: null,
+  rivetDiameterIn: 0.125,
+  countersunk: false,
+  place: 'builder',
+  allowedActions: ['tick', 'step', 'raise'],
   readiness: { ready: false, reasons: ['2 holes not done', '1 step not done', '1 finding open'] },
-  replacedBy: null, replaces: null,
+  replacedBy: null,
+  replaces: null,
 };
 
 function renderTraveler(over: Partial<TravelerDetail> = {}) {
@@ -108,7 +138,11 @@ describe('what the reader may do comes from allowedActions', () => {
   });
 
   it('offers the sign-off only when the server allows it', async () => {
-    const r = renderTraveler({ place: 'inspector', allowedActions: ['raise', 'sign-off'], readiness: { ready: true, reasons: [] } });
+    const r = renderTraveler({
+      place: 'inspector',
+      allowedActions: ['raise', 'sign-off'],
+      readiness: { ready: true, reasons: [] },
+    });
     await r.settle();
     expect(r.byTestId('sign-off')).toBeTruthy();
     expect(r.queryByTestId('readiness-reasons')).toBeNull();
@@ -126,7 +160,9 @@ describe('what the reader may do comes from allowedActions', () => {
 describe('a replaced part', () => {
   it('says so plainly and links its replacement', async () => {
     const r = renderTraveler({
-      allowedActions: [], replaced: { byId: 'trav-2', reason: 'return_to_supplier' }, replacedBy: { id: 'trav-2', serial: 'NK2-0147-W-104-R1' },
+      allowedActions: [],
+      replaced: { byId: 'trav-2', reason: 'return_to_supplier' },
+      replacedBy: { id: 'trav-2', serial: 'NK2-0147-W-104-R1' },
     });
     await r.settle();
     const banner = r.byTestId('replaced-by');
@@ -138,7 +174,11 @@ describe('a replaced part', () => {
   });
 
   it('shows on the replacement what it replaces', async () => {
-    const r = renderTraveler({ id: 'trav-2', replacesId: 'trav-1', replaces: { id: 'trav-1', serial: 'NK2-0147-W-104' } });
+    const r = renderTraveler({
+      id: 'trav-2',
+      replacesId: 'trav-1',
+      replaces: { id: 'trav-1', serial: 'NK2-0147-W-104' },
+    });
     await r.settle();
     expect(r.byTestId('replaces').textContent).toContain('NK2-0147-W-104');
   });

@@ -1,4 +1,15 @@
-import { editableNumber, formatDiameters, formatForce, formatLength, formatMass, formatWingLoading, fromDisplay, lengthNumber, parseNumber, toDisplay } from '@/constants/units';
+import {
+  editableNumber,
+  formatDiameters,
+  formatForce,
+  formatLength,
+  formatMass,
+  formatWingLoading,
+  fromDisplay,
+  lengthNumber,
+  parseNumber,
+  toDisplay,
+} from '@/constants/units';
 
 describe('units formatting', () => {
   it('says wing loading in kg/m² on the metric switch', () => {

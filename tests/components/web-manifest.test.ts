@@ -8,14 +8,25 @@ const page = readFileSync(path.join(root, 'public', 'index.html'), 'utf8');
 
 describe('the installable app', () => {
   it('opens standalone at the app root, in our paper and ink', () => {
-    expect(manifest).toMatchObject({ name: 'Pitchcard', short_name: 'Pitchcard', display: 'standalone', start_url: '/', scope: '/' });
+    expect(manifest).toMatchObject({
+      name: 'Pitchcard',
+      short_name: 'Pitchcard',
+      display: 'standalone',
+      start_url: '/',
+      scope: '/',
+    });
     expect(manifest.background_color).toBe(colors.paper);
     expect(manifest.theme_color).toBe(colors.ink);
   });
 
   it('names a 192 and a 512 px icon and a maskable one, all made by the build', () => {
     const icons = manifest.icons as { src: string; sizes: string; purpose: string }[];
-    expect(icons.filter((i) => i.purpose === 'any').map((i) => i.sizes).sort()).toEqual(['192x192', '512x512']);
+    expect(
+      icons
+        .filter((i) => i.purpose === 'any')
+        .map((i) => i.sizes)
+        .sort(),
+    ).toEqual(['192x192', '512x512']);
     expect(icons.some((i) => i.purpose === 'maskable' && i.sizes === '512x512')).toBe(true);
     const build = readFileSync(path.join(root, 'scripts', 'build-offline.mjs'), 'utf8');
     for (const i of icons) expect(build).toContain(`'${path.basename(i.src)}'`);

@@ -1,6 +1,13 @@
 import { wingStudyBody } from '@/db/contracts';
 import { WingForm, type WingOutput } from '@/components/studies/wing-form';
-import { evenlySpacedRibs, kitPlanform, newWingValues, ribName, wingFieldFor, wingValues } from '@/components/studies/wing-form-values';
+import {
+  evenlySpacedRibs,
+  kitPlanform,
+  newWingValues,
+  ribName,
+  wingFieldFor,
+  wingValues,
+} from '@/components/studies/wing-form-values';
 import { ApiError } from '@/lib/api-client';
 import { demoKit, renderInUnits } from './studies-render';
 
@@ -9,7 +16,10 @@ jest.setTimeout(60_000);
 const kit = demoKit;
 
 function renderForm(system: 'imperial' | 'metric', onSubmit: (v: WingOutput) => Promise<void>) {
-  return renderInUnits(system, <WingForm kits={[kit]} defaultValues={newWingValues(kit)} isNew submitLabel="Compute" onSubmit={onSubmit} />);
+  return renderInUnits(
+    system,
+    <WingForm kits={[kit]} defaultValues={newWingValues(kit)} isNew submitLabel="Compute" onSubmit={onSubmit} />,
+  );
 }
 
 /** What a new wing lacks before the contract accepts it: a name, and the tail arm (170 in). */
@@ -24,7 +34,11 @@ describe('the wing form’s values', () => {
     expect(v.kind).toBe('wing');
     // Span of a rectangle b = S / c: 120 ft² × 144 in²/ft² ÷ 54 in = 320 in (arithmetic).
     expect(v.inputs.planform).toEqual({ kind: 'rectangle', spanIn: 320, chordIn: 54 });
-    expect(kitPlanform({ wingAreaSqFt: 100, meanChordIn: 48 })).toEqual({ kind: 'rectangle', spanIn: 300, chordIn: 48 });
+    expect(kitPlanform({ wingAreaSqFt: 100, meanChordIn: 48 })).toEqual({
+      kind: 'rectangle',
+      spanIn: 300,
+      chordIn: 48,
+    });
     expect(v.inputs.airfoil).toEqual({ kind: 'naca', designation: '2412' });
     expect(v.inputs.kit).toMatchObject({ weightLb: 1320, stallSpeedKeas: 47, category: 'utility' });
     expect(v.inputs.tail.armIn).toBeUndefined();
@@ -32,8 +46,21 @@ describe('the wing form’s values', () => {
 
   it('spaces ribs evenly from the first station to the last, named up from the first', () => {
     const ribs = evenlySpacedRibs(10, 24, 154.5, 'W-101');
-    expect(Array.isArray(ribs) && ribs.map((r) => r.stationIn)).toEqual([24, 38.5, 53, 67.5, 82, 96.5, 111, 125.5, 140, 154.5]);
-    expect(Array.isArray(ribs) && ribs.map((r) => r.name)).toEqual(['W-101', 'W-102', 'W-103', 'W-104', 'W-105', 'W-106', 'W-107', 'W-108', 'W-109', 'W-110']);
+    expect(Array.isArray(ribs) && ribs.map((r) => r.stationIn)).toEqual([
+      24, 38.5, 53, 67.5, 82, 96.5, 111, 125.5, 140, 154.5,
+    ]);
+    expect(Array.isArray(ribs) && ribs.map((r) => r.name)).toEqual([
+      'W-101',
+      'W-102',
+      'W-103',
+      'W-104',
+      'W-105',
+      'W-106',
+      'W-107',
+      'W-108',
+      'W-109',
+      'W-110',
+    ]);
     expect(evenlySpacedRibs(1, 0, 100, 'R')).toBe('a wing study takes 2 to 24 ribs');
     expect(evenlySpacedRibs(25, 0, 100, 'R')).toBe('a wing study takes 2 to 24 ribs');
     expect(evenlySpacedRibs(5, 100, 20, 'R')).toMatch(/outboard of the first/);
@@ -68,18 +95,26 @@ describe('the wing form’s values', () => {
 describe('the wing form', () => {
   it('sends a whole-wing body the contract accepts once named and given a tail arm', async () => {
     const sent: WingOutput[] = [];
-    const r = renderForm('imperial', async (v) => { sent.push(v); });
+    const r = renderForm('imperial', async (v) => {
+      sent.push(v);
+    });
     await nameWithTailArm(r, 'Left wing');
     await r.press('wing-compute');
     expect(sent).toHaveLength(1);
     expect(wingStudyBody.safeParse(sent[0]).success).toBe(true);
-    expect(sent[0]).toMatchObject({ kind: 'wing', kitModelId: kit.id, inputs: { tail: { armIn: 170 }, planform: { spanIn: 320 } } });
+    expect(sent[0]).toMatchObject({
+      kind: 'wing',
+      kitModelId: kit.id,
+      inputs: { tail: { armIn: 170 }, planform: { spanIn: 320 } },
+    });
     expect(sent[0].inputs.ribs).toHaveLength(10);
   });
 
   it('takes rib stations in millimetres on the metric switch and sends inches', async () => {
     const sent: WingOutput[] = [];
-    const r = renderForm('metric', async (v) => { sent.push(v); });
+    const r = renderForm('metric', async (v) => {
+      sent.push(v);
+    });
     await r.type('wing-name', 'Metric wing');
     await r.type('wing-tail-arm', '4318');
     await r.type('wing-rib-9-station', '3937');
@@ -102,9 +137,14 @@ describe('the wing form', () => {
 
   it('puts the server’s complaint about one rib next to that rib’s station', async () => {
     const r = renderForm('imperial', async () => {
-      throw new ApiError(400, 'invalid_input', 'inputs.ribs.3.stationIn: rib W-104 carries a 61.0 in wide strip of wing: at most 60 in; add a rib', {
-        'inputs.ribs.3.stationIn': 'rib W-104 carries a 61.0 in wide strip of wing: at most 60 in; add a rib',
-      });
+      throw new ApiError(
+        400,
+        'invalid_input',
+        'inputs.ribs.3.stationIn: rib W-104 carries a 61.0 in wide strip of wing: at most 60 in; add a rib',
+        {
+          'inputs.ribs.3.stationIn': 'rib W-104 carries a 61.0 in wide strip of wing: at most 60 in; add a rib',
+        },
+      );
     });
     await nameWithTailArm(r, 'Refused');
     await r.press('wing-compute');
@@ -145,7 +185,9 @@ describe('the wing form', () => {
 
   it('asks for the flaps-extended stall speed once flaps are studied', async () => {
     const sent: WingOutput[] = [];
-    const r = renderForm('imperial', async (v) => { sent.push(v); });
+    const r = renderForm('imperial', async (v) => {
+      sent.push(v);
+    });
     await nameWithTailArm(r, 'Flaps');
     await r.press('wing-flaps-on');
     await r.press('wing-compute');
@@ -157,7 +199,9 @@ describe('the wing form', () => {
 
   it('does not send a wing without a skin rivet', async () => {
     const sent: WingOutput[] = [];
-    const r = renderForm('imperial', async (v) => { sent.push(v); });
+    const r = renderForm('imperial', async (v) => {
+      sent.push(v);
+    });
     await nameWithTailArm(r, 'No skin rivets');
     await r.press('wing-skin-rivet-MS20426AD3');
     await r.press('wing-skin-rivet-MS20426AD4');

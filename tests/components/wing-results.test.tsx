@@ -13,39 +13,93 @@ jest.setTimeout(60_000);
 // jsdom lays nothing out: every element reports this width (a wide pane, or a phone's column).
 let layoutWidth = 1000;
 fakeLayout(() => layoutWidth);
-afterEach(() => { layoutWidth = 1000; });
+afterEach(() => {
+  layoutWidth = 1000;
+});
 
 const KIT = KIT_ID;
 // The form's default wing (a rectangle of the kit's area and chord), with four ribs to keep the test quick.
 const inputs: WingStudyInput = {
-  kit: { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 54, stallSpeedKeas: 47, cruiseSpeedKeas: 118, category: 'utility' },
+  kit: {
+    weightLb: 1320,
+    wingAreaSqFt: 120,
+    meanChordIn: 54,
+    stallSpeedKeas: 47,
+    cruiseSpeedKeas: 118,
+    category: 'utility',
+  },
   planform: { kind: 'rectangle', spanIn: 320, chordIn: 54 },
   tail: { armIn: 170 },
   airfoil: { kind: 'naca', designation: '2412' },
-  ribs: [{ name: 'W-101', stationIn: 24 }, { name: 'W-102', stationIn: 62 }, { name: 'W-103', stationIn: 100 }, { name: 'W-104', stationIn: 138 }],
-  rib: { lines: [{ name: 'Upper flange', surface: 'upper', startXc: 0.02, endXc: 0.85 }, { name: 'Lower flange', surface: 'lower', startXc: 0.02, endXc: 0.85 }] },
+  ribs: [
+    { name: 'W-101', stationIn: 24 },
+    { name: 'W-102', stationIn: 62 },
+    { name: 'W-103', stationIn: 100 },
+    { name: 'W-104', stationIn: 138 },
+  ],
+  rib: {
+    lines: [
+      { name: 'Upper flange', surface: 'upper', startXc: 0.02, endXc: 0.85 },
+      { name: 'Lower flange', surface: 'lower', startXc: 0.02, endXc: 0.85 },
+    ],
+  },
   spars: { frontXc: 0.15, rearXc: 0.7, capAreaSqIn: 1 },
   skin: { gaugeCandidates: [0.016, 0.02, 0.025, 0.032], rivetCandidates: ['MS20426AD3', 'MS20426AD4'] },
-  material: '6061-T6', gaugeCandidates: [0.025, 0.032, 0.04, 0.05], rivetCandidates: ['PULLED-4', 'MS20470AD4'],
-  maxPitchDiameters: 8, pitchIncrementIn: 0.125, maxZones: 4,
+  material: '6061-T6',
+  gaugeCandidates: [0.025, 0.032, 0.04, 0.05],
+  rivetCandidates: ['PULLED-4', 'MS20470AD4'],
+  maxPitchDiameters: 8,
+  pitchIncrementIn: 0.125,
+  maxZones: 4,
 };
 const result = wingStudy(inputs);
 
 const detail = (revision = 1): StudyDetail => ({
-  id: 'wing-1', kind: 'wing', kitModelId: KIT, kitName: 'NK-2 Quillon', name: 'Left wing', revision, updatedAt: '2026-10-14T10:00:00Z',
-  recommended: result.trade.recommendedUniform, inputs: inputs as never, result: result as never,
-  revisions: [{ revision: 1, createdAt: '2026-10-13T10:00:00Z', createdByName: 'Maren' }, { revision: 2, createdAt: '2026-10-14T10:00:00Z', createdByName: 'Maren' }].slice(0, revision),
+  id: 'wing-1',
+  kind: 'wing',
+  kitModelId: KIT,
+  kitName: 'NK-2 Quillon',
+  name: 'Left wing',
+  revision,
+  updatedAt: '2026-10-14T10:00:00Z',
+  recommended: result.trade.recommendedUniform,
+  inputs: inputs as never,
+  result: result as never,
+  revisions: [
+    { revision: 1, createdAt: '2026-10-13T10:00:00Z', createdByName: 'Maren' },
+    { revision: 2, createdAt: '2026-10-14T10:00:00Z', createdByName: 'Maren' },
+  ].slice(0, revision),
 });
 
 const designs: PartDesignSummary[] = [
-  { id: '7c1d2e3f-0000-4000-8000-000000000104', kitModelId: KIT, kitName: 'NK-2', partNumber: 'W-104', name: 'Wing rib, outboard', kind: 'rib', latest: { id: 'r', letter: 'A', status: 'published' }, publishedLetter: 'A' },
-  { id: '7c1d2e3f-0000-4000-8000-000000000201', kitModelId: KIT, kitName: 'NK-2', partNumber: 'S-201', name: 'Top skin, inboard', kind: 'skin_panel', latest: null, publishedLetter: null },
+  {
+    id: '7c1d2e3f-0000-4000-8000-000000000104',
+    kitModelId: KIT,
+    kitName: 'NK-2',
+    partNumber: 'W-104',
+    name: 'Wing rib, outboard',
+    kind: 'rib',
+    latest: { id: 'r', letter: 'A', status: 'published' },
+    publishedLetter: 'A',
+  },
+  {
+    id: '7c1d2e3f-0000-4000-8000-000000000201',
+    kitModelId: KIT,
+    kitName: 'NK-2',
+    partNumber: 'S-201',
+    name: 'Top skin, inboard',
+    kind: 'skin_panel',
+    latest: null,
+    publishedLetter: null,
+  },
 ];
 
 function renderResults(opts: { revision?: number; latest?: number; system?: 'imperial' | 'metric' } = {}) {
-  return renderWithQueries(opts.system ?? 'imperial', (qc) => qc.setQueryData(designKeys.choices(KIT), designs), (
-    <WingResults detail={detail(opts.revision ?? 1)} latestRevision={opts.latest ?? 1} />
-  ));
+  return renderWithQueries(
+    opts.system ?? 'imperial',
+    (qc) => qc.setQueryData(designKeys.choices(KIT), designs),
+    <WingResults detail={detail(opts.revision ?? 1)} latestRevision={opts.latest ?? 1} />,
+  );
 }
 
 const firstPanel = result.skins[0];
@@ -65,7 +119,9 @@ describe('reading a stored wing result', () => {
       const choices = ribChoices(rib, uniform);
       expect(choices.length).toBeGreaterThan(0);
       const withZones = rib.study.candidates.filter(hasZones);
-      expect(choices.map((c) => `${c.key.gaugeIn} ${c.key.rivet}`).sort()).toEqual(withZones.map((c) => `${c.gaugeIn} ${c.rivet}`).sort());
+      expect(choices.map((c) => `${c.key.gaugeIn} ${c.key.rivet}`).sort()).toEqual(
+        withZones.map((c) => `${c.gaugeIn} ${c.rivet}`).sort(),
+      );
     }
     for (const p of result.skins) expect(skinChoices(p)).toEqual(p.recommended ? [p.recommended] : []);
   });
@@ -101,7 +157,10 @@ describe('the results of a wing study', () => {
       // Schrenk (NACA TM 948, 1940) on a rectangular wing: cl/CL = (1 + (4/π)·√(1 − η²)) / 2, η = y / (b/2).
       const eta = rib.stationIn / (inputs.planform.spanIn / 2);
       expect(row).toContain(((1 + (4 / Math.PI) * Math.sqrt(1 - eta * eta)) / 2).toFixed(3));
-      if (rib.study.recommended) expect(r.byTestId(`wing-rib-rec-${idPart(rib.name)}`).textContent).toBe(`${rib.study.recommended.gaugeIn.toFixed(3)} in${rib.study.recommended.rivet}`);
+      if (rib.study.recommended)
+        expect(r.byTestId(`wing-rib-rec-${idPart(rib.name)}`).textContent).toBe(
+          `${rib.study.recommended.gaugeIn.toFixed(3)} in${rib.study.recommended.rivet}`,
+        );
     }
   });
 
@@ -111,7 +170,9 @@ describe('the results of a wing study', () => {
     await r.press(`wing-rib-${idPart(rib.name)}`);
     expect(r.byTestId(`wing-rib-${idPart(rib.name)}`).getAttribute('aria-pressed')).toBe('true');
     expect(r.byTestId('section-rib-zones').textContent).toContain(`Zones of rib ${rib.name}`);
-    const rec = rib.study.candidates.find((c) => c.gaugeIn === rib.study.recommended!.gaugeIn && c.rivet === rib.study.recommended!.rivet)!;
+    const rec = rib.study.candidates.find(
+      (c) => c.gaugeIn === rib.study.recommended!.gaugeIn && c.rivet === rib.study.recommended!.rivet,
+    )!;
     expect(r.byTestId('rib-zone-row-0-0').textContent).toContain(rec.lines[0].zones[0].pitchIn.toFixed(3));
   });
 
@@ -123,14 +184,18 @@ describe('the results of a wing study', () => {
     await r.press('skin-panel-grid-show-all');
     // Between every two neighbouring ribs, upper and lower.
     expect(r.allByTestIdPrefix('skin-row-')).toHaveLength(2 * (inputs.ribs.length - 1));
-    const rec = firstPanel.candidates.find((c) => c.gaugeIn === firstPanel.recommended!.gaugeIn && c.rivet === firstPanel.recommended!.rivet)!;
+    const rec = firstPanel.candidates.find(
+      (c) => c.gaugeIn === firstPanel.recommended!.gaugeIn && c.rivet === firstPanel.recommended!.rivet,
+    )!;
     const row = r.byTestId(`skin-row-${panelId}`).textContent!;
     expect(r.byTestId(`skin-rec-${panelId}`).textContent).toBe(`${rec.gaugeIn.toFixed(3)} in${rec.rivet}`);
     expect(row).toContain(rec.torsionShearFlowLbPerIn.toFixed(1));
     expect(row).toContain(rec.interRivet.source);
-    if (rec.shearBuckling.diagonalTension) expect(r.byTestId(`skin-${panelId}-shear-ms`).textContent).toContain('relies on diagonal tension');
+    if (rec.shearBuckling.diagonalTension)
+      expect(r.byTestId(`skin-${panelId}-shear-ms`).textContent).toContain('relies on diagonal tension');
     // A negative margin is marked, as on the rib's zone table.
-    if ((rec.shearBuckling.marginOfSafety ?? 0) < 0) expect(r.byTestId(`skin-${panelId}-shear-ms`).textContent).toContain('✕');
+    if ((rec.shearBuckling.marginOfSafety ?? 0) < 0)
+      expect(r.byTestId(`skin-${panelId}-shear-ms`).textContent).toContain('✕');
   });
 
   it('says on some panel that it relies on diagonal tension (thin skin under the wing’s torsion)', async () => {
@@ -146,7 +211,9 @@ describe('the results of a wing study', () => {
     await r.press(`skin-${idPart(last.name)}`);
     // Folded again, the panel on show stays listed.
     await r.press('skin-panel-grid-show-all');
-    expect(r.allByTestIdPrefix('skin-row-').map((e) => e.getAttribute('data-testid'))).toContain(`skin-row-${idPart(last.name)}`);
+    expect(r.allByTestIdPrefix('skin-row-').map((e) => e.getAttribute('data-testid'))).toContain(
+      `skin-row-${idPart(last.name)}`,
+    );
     expect(r.byTestId('section-skin-zones').textContent).toContain(`Skin panel ${last.name}`);
     expect(r.allByTestIdPrefix(`skin-candidate-${idPart(last.name)}-`)).toHaveLength(last.candidates.length);
     // Two spar lines and two rib lines.
@@ -155,7 +222,9 @@ describe('the results of a wing study', () => {
 
   it('sets one gauge and rivet for every rib against each rib its own', async () => {
     const r = await renderResults();
-    expect(r.allByTestIdPrefix('wing-trade-row-').filter((e) => !e.getAttribute('data-testid')!.endsWith('-recommended'))).toHaveLength(inputs.gaugeCandidates.length * inputs.rivetCandidates.length);
+    expect(
+      r.allByTestIdPrefix('wing-trade-row-').filter((e) => !e.getAttribute('data-testid')!.endsWith('-recommended')),
+    ).toHaveLength(inputs.gaugeCandidates.length * inputs.rivetCandidates.length);
     const best = result.trade.recommendedUniform!;
     expect(r.byTestId(`wing-trade-row-${best.gaugeIn}-${best.rivet}-recommended`)).toBeTruthy();
     expect(r.byTestId('wing-trade-per-rib').textContent).toContain(`${result.trade.perRib.rivetCount} rivets`);
@@ -179,7 +248,9 @@ describe('the results of a wing study', () => {
     expect(table.querySelector('[role="table"]')).toBeNull();
     expect(table.querySelectorAll('[role="listitem"]')).toHaveLength(inputs.ribs.length);
     const rib = result.ribs[0];
-    expect(r.byTestId(`wing-rib-row-${idPart(rib.name)}`).textContent).toContain(String(Math.round(rib.loads.bendingInLb)));
+    expect(r.byTestId(`wing-rib-row-${idPart(rib.name)}`).textContent).toContain(
+      String(Math.round(rib.loads.bendingInLb)),
+    );
   });
 });
 
@@ -187,7 +258,18 @@ describe('applying a wing study', () => {
   it('offers a skin panel only the kit’s skin-panel part designs, and sends the panel as the target', async () => {
     const sent: { url: string; body: unknown }[] = [];
     const saved = global.fetch;
-    const rev = { id: 'rev', partDesignId: designs[1].id, letter: 'A', status: 'draft', material: '6061-T6', gaugeIn: firstPanel.recommended!.gaugeIn, rivetSpec: firstPanel.recommended!.rivet, drillSize: '#40', edgeDistanceIn: 0.2, lines: [] };
+    const rev = {
+      id: 'rev',
+      partDesignId: designs[1].id,
+      letter: 'A',
+      status: 'draft',
+      material: '6061-T6',
+      gaugeIn: firstPanel.recommended!.gaugeIn,
+      rivetSpec: firstPanel.recommended!.rivet,
+      drillSize: '#40',
+      edgeDistanceIn: 0.2,
+      lines: [],
+    };
     global.fetch = jest.fn(async (url: string, init: { body?: string }) => {
       // Applying refreshes the kit's part designs afterwards: that GET gets the same list again.
       if (!String(url).includes('/apply')) return { ok: true, status: 200, text: async () => JSON.stringify(designs) };
@@ -201,11 +283,18 @@ describe('applying a wing study', () => {
       expect(r.queryByTestId('apply-design-W-104')).toBeNull();
       await r.press('apply-design-S-201');
       expect(r.byTestId('apply-what').textContent).toContain(firstPanel.name);
-      await act(async () => { r.byTestId('apply-study').click(); });
+      await act(async () => {
+        r.byTestId('apply-study').click();
+      });
       await r.settle();
       expect(sent).toHaveLength(1);
       expect(sent[0].url).toContain('/api/studies/wing-1/apply');
-      expect(sent[0].body).toEqual({ partDesignId: designs[1].id, gaugeIn: firstPanel.recommended!.gaugeIn, rivet: firstPanel.recommended!.rivet, target: { kind: 'skin', name: firstPanel.name } });
+      expect(sent[0].body).toEqual({
+        partDesignId: designs[1].id,
+        gaugeIn: firstPanel.recommended!.gaugeIn,
+        rivet: firstPanel.recommended!.rivet,
+        target: { kind: 'skin', name: firstPanel.name },
+      });
       expect(r.byTestId('apply-result').textContent).toContain('S-201');
     } finally {
       global.fetch = saved;

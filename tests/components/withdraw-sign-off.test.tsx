@@ -7,25 +7,75 @@ jest.mock('expo-router', () => ({
 }));
 
 const signed = {
-  id: 'trav-1', serial: 'NK2-0147-W-104', shortCode: 'EDN-CY6', buildId: 'b1', kitSerial: 'NK2-0147',
-  partNumber: 'W-104', partName: 'Wing rib, inboard', kind: 'rib', letter: 'A',
-  holesTotal: 1, holesDone: 1, holesAwaitingInspector: 0, openFindings: 0, signedOff: true, newerRevision: null,
-  replaced: null, replacesId: null, material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285,
-  edgeDistanceIn: 0.25, chordIn: 10, lines: [{ code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 1, zones: [{ fromIn: 0, toIn: 1, pitchIn: 1 }] }],
-  outline: [[0, 0], [10, 0], [10, -0.5], [0, -0.5]], holes: [{ holeId: 'U-01', line: 'U', seq: 1, stationIn: 0.25, status: 'installed' }],
-  steps: [], findings: [], approvedByName: null, signedOffAt: '2025-03-01T10:00:00.000Z', signedOffByName: 'Ines Inspector',
-  rivetDiameterIn: 0.125, countersunk: false,
-  place: 'inspector', allowedActions: ['withdraw-sign-off'], readiness: { ready: false, reasons: ['this part is already signed off'] },
-  replacedBy: null, replaces: null,
+  id: 'trav-1',
+  serial: 'NK2-0147-W-104',
+  shortCode: 'EDN-CY6',
+  buildId: 'b1',
+  kitSerial: 'NK2-0147',
+  partNumber: 'W-104',
+  partName: 'Wing rib, inboard',
+  kind: 'rib',
+  letter: 'A',
+  holesTotal: 1,
+  holesDone: 1,
+  holesAwaitingInspector: 0,
+  openFindings: 0,
+  signedOff: true,
+  newerRevision: null,
+  replaced: null,
+  replacesId: null,
+  material: '6061-T6',
+  gaugeIn: 0.025,
+  rivetSpec: 'MS20470AD4',
+  drillSize: '#30',
+  drillDiameterIn: 0.1285,
+  edgeDistanceIn: 0.25,
+  chordIn: 10,
+  lines: [
+    {
+      code: 'U',
+      name: 'Upper flange',
+      surface: 'upper',
+      startIn: 1,
+      lengthIn: 1,
+      zones: [{ fromIn: 0, toIn: 1, pitchIn: 1 }],
+    },
+  ],
+  outline: [
+    [0, 0],
+    [10, 0],
+    [10, -0.5],
+    [0, -0.5],
+  ],
+  holes: [{ holeId: 'U-01', line: 'U', seq: 1, stationIn: 0.25, status: 'installed' }],
+  steps: [],
+  findings: [],
+  approvedByName: null,
+  signedOffAt: '2025-03-01T10:00:00.000Z',
+  signedOffByName: 'Ines Inspector',
+  rivetDiameterIn: 0.125,
+  countersunk: false,
+  place: 'inspector',
+  allowedActions: ['withdraw-sign-off'],
+  readiness: { ready: false, reasons: ['this part is already signed off'] },
+  replacedBy: null,
+  replaces: null,
 } satisfies TravelerDetail;
 
 const reopened: TravelerDetail = {
-  ...signed, signedOff: false, signedOffAt: null, signedOffByName: null, allowedActions: ['raise', 'sign-off'], readiness: { ready: true, reasons: [] },
+  ...signed,
+  signedOff: false,
+  signedOffAt: null,
+  signedOffByName: null,
+  allowedActions: ['raise', 'sign-off'],
+  readiness: { ready: true, reasons: [] },
 };
 
 describe('withdrawing a sign-off on the traveler screen', () => {
   it('is offered only when the server lists it', async () => {
-    const builder = wrap(<TravelerScreen travelerId="trav-1" />, { traveler: { ...signed, place: 'builder', allowedActions: [] } });
+    const builder = wrap(<TravelerScreen travelerId="trav-1" />, {
+      traveler: { ...signed, place: 'builder', allowedActions: [] },
+    });
     await builder.settle();
     expect(builder.byTestId('signed-off').textContent).toContain('Signed off by Ines Inspector');
     expect(builder.queryByTestId('withdraw-sign-off')).toBeNull();
@@ -46,7 +96,13 @@ describe('withdrawing a sign-off on the traveler screen', () => {
     expect(calls).toHaveLength(0);
     await r.type('withdraw-reason', '  shop head on U-01 cracked  ');
     await r.press('withdraw-confirm');
-    expect(calls).toEqual([{ url: expect.stringContaining('/api/travelers/trav-1/sign-off/withdraw'), method: 'POST', body: { reason: 'shop head on U-01 cracked' } }]);
+    expect(calls).toEqual([
+      {
+        url: expect.stringContaining('/api/travelers/trav-1/sign-off/withdraw'),
+        method: 'POST',
+        body: { reason: 'shop head on U-01 cracked' },
+      },
+    ]);
     // The answer is the part as it now stands: open, and ready to sign off again.
     expect(r.queryByTestId('signed-off')).toBeNull();
     expect(r.byTestId('sign-off')).toBeTruthy();
@@ -64,7 +120,12 @@ describe('withdrawing a sign-off on the traveler screen', () => {
   });
 
   it('shows the server’s refusal in its words and keeps the form', async () => {
-    recordFetch({ '/api/travelers/trav-1/sign-off/withdraw': { status: 409, body: { error: { code: 'conflict', message: 'this part is not signed off: there is no sign-off to withdraw' } } } });
+    recordFetch({
+      '/api/travelers/trav-1/sign-off/withdraw': {
+        status: 409,
+        body: { error: { code: 'conflict', message: 'this part is not signed off: there is no sign-off to withdraw' } },
+      },
+    });
     const r = wrap(<TravelerScreen travelerId="trav-1" />, { traveler: signed });
     await r.settle();
     await r.press('withdraw-sign-off');

@@ -4,7 +4,15 @@ import type { Page } from 'playwright-core';
 import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
 import { contrast } from '../components/colour-math';
-import { auditSession, keepScreenshot, routes, shotName, routeWalker, signedInContext, visible } from './helpers/audit-routes';
+import {
+  auditSession,
+  keepScreenshot,
+  routes,
+  shotName,
+  routeWalker,
+  signedInContext,
+  visible,
+} from './helpers/audit-routes';
 
 /**
  * Readable and operable for everyone at the bench, checked in Debian's Chromium against the real
@@ -31,16 +39,28 @@ const widths = [
   { name: 'phone at 200 %', viewport: { width: 195, height: 422 }, isMobile: true },
 ] as const;
 
-type Violation = { id: string; impact: string; help: string; nodes: { target: string[]; html: string; failureSummary: string }[] };
+type Violation = {
+  id: string;
+  impact: string;
+  help: string;
+  nodes: { target: string[]; html: string; failureSummary: string }[];
+};
 
 /** axe over the page as shown; the serious and critical violations, each named with its elements and measurements. */
 async function audit(page: Page): Promise<Violation[]> {
   if (!(await page.evaluate(() => 'axe' in window))) await page.addScriptTag({ content: axeSource });
   const violations = await page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run: (ctx: unknown, opts: unknown) => Promise<{ violations: Violation[] }> } }).axe;
-    const r = await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] }, resultTypes: ['violations'] });
+    const axe = (
+      window as unknown as { axe: { run: (ctx: unknown, opts: unknown) => Promise<{ violations: Violation[] }> } }
+    ).axe;
+    const r = await axe.run(document, {
+      runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] },
+      resultTypes: ['violations'],
+    });
     return r.violations.map((v) => ({
-      id: v.id, impact: v.impact, help: v.help,
+      id: v.id,
+      impact: v.impact,
+      help: v.help,
       nodes: v.nodes.map((n) => ({ target: n.target, html: n.html.slice(0, 160), failureSummary: n.failureSummary })),
     }));
   });
@@ -48,11 +68,19 @@ async function audit(page: Page): Promise<Violation[]> {
 }
 
 function describeViolations(route: string, width: string, vs: Violation[]): string {
-  return vs.map((v) => [
-    `${route} at ${width}: ${v.id} (${v.impact}) — ${v.help}`,
-    ...v.nodes.slice(0, 8).map((n) => `    ${n.target.join(' ')}  ${n.html}\n      ${n.failureSummary.replace(/\n/g, '\n      ')}`),
-    v.nodes.length > 8 ? `    … and ${v.nodes.length - 8} more` : '',
-  ].filter(Boolean).join('\n')).join('\n');
+  return vs
+    .map((v) =>
+      [
+        `${route} at ${width}: ${v.id} (${v.impact}) — ${v.help}`,
+        ...v.nodes
+          .slice(0, 8)
+          .map((n) => `    ${n.target.join(' ')}  ${n.html}\n      ${n.failureSummary.replace(/\n/g, '\n      ')}`),
+        v.nodes.length > 8 ? `    … and ${v.nodes.length - 8} more` : '',
+      ]
+        .filter(Boolean)
+        .join('\n'),
+    )
+    .join('\n');
 }
 
 describe.each(widths)('every route of every role passes axe (WCAG 2.1 A/AA) at $name width', (w) => {
@@ -63,12 +91,16 @@ describe.each(widths)('every route of every role passes axe (WCAG 2.1 A/AA) at $
     const page = await walker.open(r);
     const found = await audit(page);
     await keepScreenshot(page, artefacts, shotName(w.name, r.role, r.name), w.viewport);
-    if (found.length) throw new Error(`${found.reduce((n, v) => n + v.nodes.length, 0)} failing elements\n${describeViolations(`${r.role} ${r.name} (${r.path(s.ids)})`, w.name, found)}`);
+    if (found.length)
+      throw new Error(
+        `${found.reduce((n, v) => n + v.nodes.length, 0)} failing elements\n${describeViolations(`${r.role} ${r.name} (${r.path(s.ids)})`, w.name, found)}`,
+      );
   });
 });
 
 /** The data-testid of whatever has keyboard focus (or of its nearest marked ancestor). */
-const focusedTestId = (page: Page) => page.evaluate(() => document.activeElement?.closest('[data-testid]')?.getAttribute('data-testid') ?? null);
+const focusedTestId = (page: Page) =>
+  page.evaluate(() => document.activeElement?.closest('[data-testid]')?.getAttribute('data-testid') ?? null);
 const checked = (page: Page, id: string) => visible(page, id).getAttribute('aria-checked');
 
 /** Puts keyboard focus on a control (as Tab would) without pressing it; the keys then do the work. */
@@ -112,24 +144,46 @@ describe('the keyboard alone, Space and Enter both', () => {
       const ring = await page.evaluate(() => {
         const el = document.activeElement as HTMLElement;
         const css = getComputedStyle(el);
-        const parentBg = getComputedStyle(el.parentElement!.closest('[data-testid="traveler-screen"]')!).backgroundColor;
-        return { color: css.outlineColor, width: css.outlineWidth, style: css.outlineStyle, offset: css.outlineOffset, chip: css.backgroundColor, paper: parentBg };
+        const parentBg = getComputedStyle(
+          el.parentElement!.closest('[data-testid="traveler-screen"]')!,
+        ).backgroundColor;
+        return {
+          color: css.outlineColor,
+          width: css.outlineWidth,
+          style: css.outlineStyle,
+          offset: css.outlineOffset,
+          chip: css.backgroundColor,
+          paper: parentBg,
+        };
       });
-      const hex = (rgb: string) => `#${(rgb.match(/\d+/g) ?? []).slice(0, 3).map((n) => Number(n).toString(16).padStart(2, '0')).join('')}`;
+      const hex = (rgb: string) =>
+        `#${(rgb.match(/\d+/g) ?? [])
+          .slice(0, 3)
+          .map((n) => Number(n).toString(16).padStart(2, '0'))
+          .join('')}`;
       expect(ring.style).toBe('solid');
       expect(parseFloat(ring.width)).toBeGreaterThanOrEqual(3);
       expect(parseFloat(ring.offset)).toBeGreaterThanOrEqual(2);
       expect(contrast(hex(ring.color), hex(ring.chip))).toBeGreaterThanOrEqual(3);
       expect(contrast(hex(ring.color), hex(ring.paper))).toBeGreaterThanOrEqual(3);
       const box = (await visible(page, 'zoom-fit').boundingBox())!;
-      await page.screenshot({ path: path.join(artefacts, 'focus-ring-on-a-chosen-chip.png'), clip: { x: box.x - 12, y: box.y - 12, width: box.width * 3, height: box.height + 24 } });
+      await page.screenshot({
+        path: path.join(artefacts, 'focus-ring-on-a-chosen-chip.png'),
+        clip: { x: box.x - 12, y: box.y - 12, width: box.width * 3, height: box.height + 24 },
+      });
     } finally {
       await context.close();
     }
   });
 
   it('focuses the home screen’s heading after signing in, and the error after a failed sign-in', async () => {
-    const context = await s.browser.newContext({ baseURL: s.base, viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, serviceWorkers: 'block' });
+    const context = await s.browser.newContext({
+      baseURL: s.base,
+      viewport: { width: 390, height: 844 },
+      isMobile: true,
+      hasTouch: true,
+      serviceWorkers: 'block',
+    });
     const page = await context.newPage();
     try {
       await page.goto('/');
@@ -139,14 +193,22 @@ describe('the keyboard alone, Space and Enter both', () => {
       await page.keyboard.type('not the password');
       await page.keyboard.press('Enter');
       await visible(page, 'sign-in-error').waitFor({ timeout: 30000 });
-      await until(() => focusedTestId(page), (v) => v === 'sign-in-error', 'focus after a failed sign-in');
+      await until(
+        () => focusedTestId(page),
+        (v) => v === 'sign-in-error',
+        'focus after a failed sign-in',
+      );
 
       await visible(page, 'password').fill('');
       await visible(page, 'password').focus();
       await page.keyboard.type(DEMO_PASSWORD);
       await page.keyboard.press('Enter');
       await visible(page, 'bench-screen').waitFor({ timeout: 30000 });
-      await until(() => focusedTestId(page), (v) => v === 'screen-title', 'focus after signing in');
+      await until(
+        () => focusedTestId(page),
+        (v) => v === 'screen-title',
+        'focus after signing in',
+      );
       expect(await page.evaluate(() => document.activeElement?.textContent)).toBe('Bench');
     } finally {
       await context.close();
@@ -168,12 +230,24 @@ describe('the keyboard alone, Space and Enter both', () => {
 
       // Holes: Space ticks one in, Enter another; Space again takes the first tick off.
       await keyOn(page, 'hole-U-01', 'Space');
-      await until(() => holeStatus('U-01'), (s) => s === 'installed', 'U-01 after Space');
+      await until(
+        () => holeStatus('U-01'),
+        (s) => s === 'installed',
+        'U-01 after Space',
+      );
       await keyOn(page, 'hole-U-02', 'Enter');
-      await until(() => holeStatus('U-02'), (s) => s === 'installed', 'U-02 after Enter');
+      await until(
+        () => holeStatus('U-02'),
+        (s) => s === 'installed',
+        'U-02 after Enter',
+      );
       expect(await checked(page, 'hole-U-01')).toBe('true');
       await keyOn(page, 'hole-U-01', 'Space');
-      await until(() => holeStatus('U-01'), (s) => s === 'pending', 'U-01 after Space again');
+      await until(
+        () => holeStatus('U-01'),
+        (s) => s === 'pending',
+        'U-01 after Space again',
+      );
       // Space on a control is the control's: the page did not scroll away under it.
       expect(await focusedTestId(page)).toBe('hole-U-01');
 
@@ -183,9 +257,17 @@ describe('the keyboard alone, Space and Enter both', () => {
         return !!(d.steps as { seq: number; doneAt: string | null }[]).find((s) => s.seq === seq)!.doneAt;
       };
       await keyOn(page, 'step-1', 'Space');
-      await until(() => stepDone(1), (v) => v, 'step 1 after Space');
+      await until(
+        () => stepDone(1),
+        (v) => v,
+        'step 1 after Space',
+      );
       await keyOn(page, 'step-2', 'Enter');
-      await until(() => stepDone(2), (v) => v, 'step 2 after Enter');
+      await until(
+        () => stepDone(2),
+        (v) => v,
+        'step 2 after Enter',
+      );
 
       // The drawing's zoom: radios.
       await keyOn(page, 'zoom-closer', 'Space');
@@ -196,13 +278,26 @@ describe('the keyboard alone, Space and Enter both', () => {
 
       // A run: focus goes to the run bar, the ends are picked by Space and Enter, and back to "Tick a run" after.
       await keyOn(page, 'run-mode', 'Enter');
-      await until(() => focusedTestId(page), (v) => v === 'run-bar', 'focus after "Tick a run"');
+      await until(
+        () => focusedTestId(page),
+        (v) => v === 'run-bar',
+        'focus after "Tick a run"',
+      );
       await keyOn(page, 'hole-U-03', 'Space');
       expect(await visible(page, 'hole-U-03').getAttribute('aria-pressed')).toBe('true');
       await keyOn(page, 'hole-U-05', 'Enter');
       await keyOn(page, 'tick-run', 'Space');
-      for (const h of ['U-03', 'U-04', 'U-05']) await until(() => holeStatus(h), (s) => s === 'installed', `${h} after the run`);
-      await until(() => focusedTestId(page), (v) => v === 'run-mode', 'focus after the run is ticked');
+      for (const h of ['U-03', 'U-04', 'U-05'])
+        await until(
+          () => holeStatus(h),
+          (s) => s === 'installed',
+          `${h} after the run`,
+        );
+      await until(
+        () => focusedTestId(page),
+        (v) => v === 'run-mode',
+        'focus after the run is ticked',
+      );
     } finally {
       await context.close();
     }
@@ -213,7 +308,11 @@ describe('the keyboard alone, Space and Enter both', () => {
     try {
       await page.goto(`/travelers/${s.ids.walkTravelerId}/flag?holes=U-04`);
       await visible(page, 'flag-screen').waitFor({ timeout: 30000 });
-      await until(() => focusedTestId(page), (v) => v === 'screen-title', 'focus on opening the flag screen');
+      await until(
+        () => focusedTestId(page),
+        (v) => v === 'screen-title',
+        'focus on opening the flag screen',
+      );
 
       await keyOn(page, 'change-holes', 'Enter');
       await keyOn(page, 'pick-hole-U-05', 'Space');
@@ -252,11 +351,20 @@ describe('the keyboard alone, Space and Enter both', () => {
       await page.keyboard.type('Drill out L-02 and set the same rivet again');
       await keyOn(page, 'finding-action-disposition', 'Enter');
       const f = await until(
-        async () => (await request(s.t.app).get(`/api/findings/${s.ids.walkFindingId}`).set(auth(inspectorToken))).body as { status: string; disposition: string | null },
-        (b) => b.status !== 'raised', 'the finding after recording',
+        async () =>
+          (await request(s.t.app).get(`/api/findings/${s.ids.walkFindingId}`).set(auth(inspectorToken))).body as {
+            status: string;
+            disposition: string | null;
+          },
+        (b) => b.status !== 'raised',
+        'the finding after recording',
       );
       expect(f.disposition).toBe('rework');
-      await until(() => focusedTestId(page), (v) => v === 'action-result', 'focus after recording the disposition');
+      await until(
+        () => focusedTestId(page),
+        (v) => v === 'action-result',
+        'focus after recording the disposition',
+      );
     } finally {
       await context.close();
     }

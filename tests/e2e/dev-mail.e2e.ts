@@ -29,12 +29,21 @@ beforeAll(async () => {
   const list = await request(t.app).get('/api/travelers').set(auth(tok.builder));
   const traveler = await request(t.app).get(`/api/travelers/${list.body.items[0].id}`).set(auth(tok.builder));
   const hole = traveler.body.holes.find((h: { status: string }) => h.status === 'pending');
-  const photo = await sharp({ create: { width: 80, height: 60, channels: 3, background: '#5a5a5a' } }).jpeg().toBuffer();
-  const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
-    .field('travelerId', traveler.body.id).field('holeIds', JSON.stringify([hole.holeId])).field('kind', 'hole_cracked').field('note', 'crack')
+  const photo = await sharp({ create: { width: 80, height: 60, channels: 3, background: '#5a5a5a' } })
+    .jpeg()
+    .toBuffer();
+  const res = await request(t.app)
+    .post('/api/findings')
+    .set(auth(tok.builder))
+    .field('travelerId', traveler.body.id)
+    .field('holeIds', JSON.stringify([hole.holeId]))
+    .field('kind', 'hole_cracked')
+    .field('note', 'crack')
     .attach('photos', photo, { filename: 'crack.jpg', contentType: 'image/jpeg' });
   expect(res.status).toBe(201);
-  subject = (await t.waitForMail((m) => m.to.includes(DEMO_USERS.inspector.email) && m.subject.includes(`hole ${hole.holeId}`))).subject;
+  subject = (
+    await t.waitForMail((m) => m.to.includes(DEMO_USERS.inspector.email) && m.subject.includes(`hole ${hole.holeId}`))
+  ).subject;
 });
 afterAll(async () => {
   await browser?.close().catch(() => undefined);
@@ -54,8 +63,12 @@ describe('the development mail page', () => {
     const page = await phonePage(browser, base);
     const asked: string[] = [];
     const failed: string[] = [];
-    page.on('request', (r) => { if (r.url().includes('/api/dev/mail')) asked.push(r.url()); });
-    page.on('requestfailed', (r) => { if (r.url().includes('/api/dev/mail')) failed.push(`${r.url()}: ${r.failure()?.errorText}`); });
+    page.on('request', (r) => {
+      if (r.url().includes('/api/dev/mail')) asked.push(r.url());
+    });
+    page.on('requestfailed', (r) => {
+      if (r.url().includes('/api/dev/mail')) failed.push(`${r.url()}: ${r.failure()?.errorText}`);
+    });
     await signIn(page, DEMO_USERS.supplier.email);
     await page.goto('/dev/mail');
     await page.locator('[data-testid="mail-subject"]:visible').first().waitFor();
@@ -79,15 +92,20 @@ describe('the development mail page', () => {
     const img = inside.locator('img[alt="photo of the hole"]');
     await img.waitFor();
     // Decoded: the image drawn in from its part (the finding's thumbnail), not a broken link.
-    const natural = await img.evaluate(async (el: HTMLImageElement) => { await el.decode().catch(() => undefined); return el.naturalWidth; });
+    const natural = await img.evaluate(async (el: HTMLImageElement) => {
+      await el.decode().catch(() => undefined);
+      return el.naturalWidth;
+    });
     expect(natural).toBeGreaterThan(0);
-    expect(await page.getByTestId('mail-parts').first().textContent()).toMatch(/1 shown inline \(cid:hole-[0-9a-f-]+@pitchcard\)/);
+    expect(await page.getByTestId('mail-parts').first().textContent()).toMatch(
+      /1 shown inline \(cid:hole-[0-9a-f-]+@pitchcard\)/,
+    );
     await context.close();
   });
 });
 
-describe('the frame around each role\'s pages', () => {
-  it('lands the admin on their own page when a link leads to the supplier\'s catalogue or to builds', async () => {
+describe("the frame around each role's pages", () => {
+  it("lands the admin on their own page when a link leads to the supplier's catalogue or to builds", async () => {
     const page = await phonePage(browser, base);
     await signIn(page, DEMO_USERS.admin.email);
     for (const path of ['/catalogue', '/builds']) {
@@ -98,7 +116,7 @@ describe('the frame around each role\'s pages', () => {
     }
   });
 
-  it('on a phone, keeps Sign out and the tab labels whole on the supplier\'s catalogue and builds', async () => {
+  it("on a phone, keeps Sign out and the tab labels whole on the supplier's catalogue and builds", async () => {
     const page = await phonePage(browser, base);
     await signIn(page, DEMO_USERS.supplier.email);
     for (const path of ['/catalogue', '/builds']) {
@@ -108,10 +126,18 @@ describe('the frame around each role\'s pages', () => {
       const box = (await signOut.boundingBox())!;
       expect([path, box.x >= 0 && box.x + box.width <= 390, box.height >= 48]).toEqual([path, true, true]);
       // No label of a tab or of the header's controls is cut: its text fits the box it is drawn in.
-      const cut = await page.evaluate(() => Array.from(document.querySelectorAll('[role="tab"] *, [role="button"] *'))
-        .filter((el) => Array.from(el.childNodes).some((n) => n.nodeType === 3 && n.textContent!.trim()))
-        .filter((el) => el.getBoundingClientRect().width > 0 && (el.scrollWidth > el.clientWidth + 1 || el.scrollHeight > el.clientHeight + 1))
-        .map((el) => `"${el.textContent}" ${el.scrollWidth}×${el.scrollHeight} in ${el.clientWidth}×${el.clientHeight}`));
+      const cut = await page.evaluate(() =>
+        Array.from(document.querySelectorAll('[role="tab"] *, [role="button"] *'))
+          .filter((el) => Array.from(el.childNodes).some((n) => n.nodeType === 3 && n.textContent!.trim()))
+          .filter(
+            (el) =>
+              el.getBoundingClientRect().width > 0 &&
+              (el.scrollWidth > el.clientWidth + 1 || el.scrollHeight > el.clientHeight + 1),
+          )
+          .map(
+            (el) => `"${el.textContent}" ${el.scrollWidth}×${el.scrollHeight} in ${el.clientWidth}×${el.clientHeight}`,
+          ),
+      );
       expect([path, cut]).toEqual([path, []]);
     }
   });

@@ -33,22 +33,59 @@ beforeAll(async () => {
   browser = await launchBrowser();
   const dir = await mkdtemp(path.join(os.tmpdir(), 'pc-e2e-findings-'));
   photo = path.join(dir, 'work.jpg');
-  await writeFile(photo, await sharp({ create: { width: 640, height: 480, channels: 3, background: '#8a9096' } }).jpeg().toBuffer());
+  await writeFile(
+    photo,
+    await sharp({ create: { width: 640, height: 480, channels: 3, background: '#8a9096' } })
+      .jpeg()
+      .toBuffer(),
+  );
   const supplier = await t.signIn(DEMO_USERS.supplier.email);
-  kitId = (await request(t.app).post('/api/kits').set(auth(supplier)).send({
-    code: 'FE-1', name: 'Finding walk kit', weightLb: 1200, wingAreaSqFt: 110, meanChordIn: 50, stallSpeedKeas: 45, category: 'normal', airfoil: 'NACA 2412',
-  })).body.id;
-  const design = await request(t.app).post('/api/designs').set(auth(supplier)).send({
-    design: { kitModelId: kitId, partNumber: 'FE-R1', name: 'Walk rib', kind: 'rib' },
-    revision: {
-      material: '6061-T6', gaugeIn: 0.032, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 10,
-      lines: [
-        { code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 4, zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }] },
-        { code: 'L', name: 'Lower flange', surface: 'lower', startIn: 1, lengthIn: 4, zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }] },
-      ],
-      steps: ['Rivet both flanges'],
-    },
-  });
+  kitId = (
+    await request(t.app).post('/api/kits').set(auth(supplier)).send({
+      code: 'FE-1',
+      name: 'Finding walk kit',
+      weightLb: 1200,
+      wingAreaSqFt: 110,
+      meanChordIn: 50,
+      stallSpeedKeas: 45,
+      category: 'normal',
+      airfoil: 'NACA 2412',
+    })
+  ).body.id;
+  const design = await request(t.app)
+    .post('/api/designs')
+    .set(auth(supplier))
+    .send({
+      design: { kitModelId: kitId, partNumber: 'FE-R1', name: 'Walk rib', kind: 'rib' },
+      revision: {
+        material: '6061-T6',
+        gaugeIn: 0.032,
+        rivetSpec: 'MS20470AD4',
+        drillSize: '#30',
+        drillDiameterIn: 0.1285,
+        edgeDistanceIn: 0.25,
+        chordIn: 10,
+        lines: [
+          {
+            code: 'U',
+            name: 'Upper flange',
+            surface: 'upper',
+            startIn: 1,
+            lengthIn: 4,
+            zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }],
+          },
+          {
+            code: 'L',
+            name: 'Lower flange',
+            surface: 'lower',
+            startIn: 1,
+            lengthIn: 4,
+            zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }],
+          },
+        ],
+        steps: ['Rivet both flanges'],
+      },
+    });
   await request(t.app).post(`/api/revisions/${design.body.revisions[0].id}/publish`).set(auth(supplier)).send({});
 });
 afterAll(async () => {
@@ -62,13 +99,23 @@ async function part(except: string[]) {
   const builder = await t.signIn(DEMO_USERS.builder.email);
   const kitSerial = `FE-${++serial}-${Date.now().toString(36).slice(-4).toUpperCase()}`;
   const build = await request(t.app).post('/api/builds').set(auth(supplier)).send({
-    kitModelId: kitId, kitSerial, builderEmail: DEMO_USERS.builder.email, inspectorEmail: DEMO_USERS.inspector.email,
+    kitModelId: kitId,
+    kitSerial,
+    builderEmail: DEMO_USERS.builder.email,
+    inspectorEmail: DEMO_USERS.inspector.email,
   });
-  const travelerId = (await request(t.app).get(`/api/builds/${build.body.id}`).set(auth(supplier))).body.travelers[0].id as string;
+  const travelerId = (await request(t.app).get(`/api/builds/${build.body.id}`).set(auth(supplier))).body.travelers[0]
+    .id as string;
   const d = (await request(t.app).get(`/api/travelers/${travelerId}`).set(auth(builder))).body;
   const ids = d.holes.map((h: { holeId: string }) => h.holeId).filter((h: string) => !except.includes(h));
-  await request(t.app).post(`/api/travelers/${travelerId}/holes`).set(auth(builder)).send({ holeIds: ids, status: 'installed' });
-  await request(t.app).post(`/api/travelers/${travelerId}/steps/${d.steps[0].id}`).set(auth(builder)).send({ done: true });
+  await request(t.app)
+    .post(`/api/travelers/${travelerId}/holes`)
+    .set(auth(builder))
+    .send({ holeIds: ids, status: 'installed' });
+  await request(t.app)
+    .post(`/api/travelers/${travelerId}/steps/${d.steps[0].id}`)
+    .set(auth(builder))
+    .send({ done: true });
   return { travelerId, kitSerial, buildId: build.body.id as string };
 }
 
@@ -112,7 +159,9 @@ describe('a finding through the screens at phone size', () => {
     await attachPhoto(bench);
     await visible(bench, 'submit-finding').click();
     await visible(bench, 'finding-sent').waitFor({ timeout: 30000 });
-    const raised = await t.waitForMail((m) => m.to.includes(DEMO_USERS.inspector.email) && m.subject.includes(p.kitSerial));
+    const raised = await t.waitForMail(
+      (m) => m.to.includes(DEMO_USERS.inspector.email) && m.subject.includes(p.kitSerial),
+    );
     const findingPath = new URL(/https?:\/\/\S+\/findings\/[0-9a-f-]{36}/.exec(raised.text)![0]).pathname;
 
     // The inspector opens the mail's link and chooses a repair with the next-size rivet; the check fails, so they say why.
@@ -128,7 +177,9 @@ describe('a finding through the screens at phone size', () => {
     await findingAt(review, 'awaiting_approval');
 
     // The supplier's engineer opens the mail's link signed out, signs in, and lands on the finding.
-    const daMail = await t.waitForMail((m) => m.to.includes(DEMO_USERS.supplier.email) && m.subject.includes(p.kitSerial));
+    const daMail = await t.waitForMail(
+      (m) => m.to.includes(DEMO_USERS.supplier.email) && m.subject.includes(p.kitSerial),
+    );
     expect(daMail.text).toContain('Chosen anyway because: Measured 0.33 in');
     const link = new URL(/https?:\/\/\S+\/findings\/[0-9a-f-]{36}/.exec(daMail.text)![0]);
     const office = await signedIn(DEMO_USERS.supplier.email, link.pathname);
@@ -170,8 +221,13 @@ describe('a finding through the screens at phone size', () => {
   it('scrap → the replacement appears on the bench → its holes ticked → it signs off', async () => {
     const p = await part(['U-03']);
     const builderToken = await t.signIn(DEMO_USERS.builder.email);
-    const raised = await request(t.app).post('/api/findings').set(auth(builderToken))
-      .field('travelerId', p.travelerId).field('holeIds', '["U-03"]').field('kind', 'hole_cracked').field('note', 'crack runs to the flange edge')
+    const raised = await request(t.app)
+      .post('/api/findings')
+      .set(auth(builderToken))
+      .field('travelerId', p.travelerId)
+      .field('holeIds', '["U-03"]')
+      .field('kind', 'hole_cracked')
+      .field('note', 'crack runs to the flange edge')
       .attach('photos', photo);
     expect(raised.status).toBe(201);
 
@@ -181,7 +237,8 @@ describe('a finding through the screens at phone size', () => {
     await act(review, 'disposition', 'Crack through the flange: scrap the rib');
     await findingAt(review, 'closed');
     await visible(review, 'finding-replacement').waitFor();
-    const replacement = (await request(t.app).get(`/api/findings/${raised.body.id}`).set(auth(builderToken))).body.replacement;
+    const replacement = (await request(t.app).get(`/api/findings/${raised.body.id}`).set(auth(builderToken))).body
+      .replacement;
 
     const bench = await signedIn(DEMO_USERS.builder.email);
     await visible(bench, 'tab-bench').waitFor({ timeout: 30000 });
@@ -189,7 +246,10 @@ describe('a finding through the screens at phone size', () => {
     await visible(bench, `traveler-${fresh.shortCode}`).click();
     await visible(bench, 'traveler-screen').waitFor({ timeout: 30000 });
     await visible(bench, 'replaces').waitFor();
-    for (const [first, last] of [['U-01', 'U-05'], ['L-01', 'L-05']]) {
+    for (const [first, last] of [
+      ['U-01', 'U-05'],
+      ['L-01', 'L-05'],
+    ]) {
       await visible(bench, 'run-mode').click();
       await visible(bench, `hole-${first}`).click();
       await visible(bench, `hole-${last}`).click();

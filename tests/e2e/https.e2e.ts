@@ -38,8 +38,14 @@ afterAll(async () => {
 describe('the bench over HTTPS at the public address', () => {
   it('starts the scanner in a secure context and opens the part from its label', async () => {
     const supplier = await t.signIn(DEMO_USERS.supplier.email);
-    const buildId = (await request(t.app).get('/api/builds').set({ Authorization: `Bearer ${supplier}` })).body.items[0].id;
-    const labels = await request(t.app).get(`/api/travelers/labels?buildId=${buildId}`).set({ Authorization: `Bearer ${supplier}` });
+    const buildId = (
+      await request(t.app)
+        .get('/api/builds')
+        .set({ Authorization: `Bearer ${supplier}` })
+    ).body.items[0].id;
+    const labels = await request(t.app)
+      .get(`/api/travelers/labels?buildId=${buildId}`)
+      .set({ Authorization: `Bearer ${supplier}` });
     expect(labels.status).toBe(200);
     const label = labels.body.find((l: { partNumber: string }) => l.partNumber === 'W-104');
     // The label carries the public HTTPS address, never this machine's loopback.
@@ -61,9 +67,16 @@ describe('the bench over HTTPS at the public address', () => {
 
   it('opens a label’s link from the phone’s own camera: signed out, it lands on the part after sign-in', async () => {
     const supplier = await t.signIn(DEMO_USERS.supplier.email);
-    const buildId = (await request(t.app).get('/api/builds').set({ Authorization: `Bearer ${supplier}` })).body.items[0].id;
-    const label = (await request(t.app).get(`/api/travelers/labels?buildId=${buildId}`).set({ Authorization: `Bearer ${supplier}` })).body
-      .find((l: { partNumber: string }) => l.partNumber === 'W-105');
+    const buildId = (
+      await request(t.app)
+        .get('/api/builds')
+        .set({ Authorization: `Bearer ${supplier}` })
+    ).body.items[0].id;
+    const label = (
+      await request(t.app)
+        .get(`/api/travelers/labels?buildId=${buildId}`)
+        .set({ Authorization: `Bearer ${supplier}` })
+    ).body.find((l: { partNumber: string }) => l.partNumber === 'W-105');
     browser ??= await launchBrowser({ trustSpki: spki });
     const page = await phonePage(browser, base);
     await page.goto(label.url);

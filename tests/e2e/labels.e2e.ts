@@ -41,20 +41,33 @@ async function signIn(page: Page, email: string) {
 function pageBoxes(pdf: Buffer): number[][] {
   const s = pdf.toString('latin1');
   const pages = (s.match(/\/Type\s*\/Page\b(?!s)/g) ?? []).length;
-  const boxes = [...s.matchAll(/\/MediaBox\s*\[\s*([\d.]+)\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)\s*\]/g)]
-    .map((m) => [Number(m[3]) - Number(m[1]), Number(m[4]) - Number(m[2])]);
+  const boxes = [...s.matchAll(/\/MediaBox\s*\[\s*([\d.]+)\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)\s*\]/g)].map((m) => [
+    Number(m[3]) - Number(m[1]),
+    Number(m[4]) - Number(m[2]),
+  ]);
   // A page without a box of its own takes the first (the page tree's).
   return Array.from({ length: pages }, (_, i) => boxes[i] ?? boxes[0]);
 }
 
 describe('QR labels in a real browser', () => {
   it('a builder reprints one part’s label from the traveler: kit model, supplier, part, revision, serial, short code and a QR that opens it', async () => {
-    const token = (await request(t.app).post('/api/auth/sign-in').send({ email: DEMO_USERS.builder.email, password: DEMO_PASSWORD })).body.token;
-    const parts = (await request(t.app).get('/api/travelers').set({ Authorization: `Bearer ${token}` })).body.items as { id: string; shortCode: string; serial: string; partNumber: string; letter: string }[];
+    const token = (
+      await request(t.app).post('/api/auth/sign-in').send({ email: DEMO_USERS.builder.email, password: DEMO_PASSWORD })
+    ).body.token;
+    const parts = (
+      await request(t.app)
+        .get('/api/travelers')
+        .set({ Authorization: `Bearer ${token}` })
+    ).body.items as { id: string; shortCode: string; serial: string; partNumber: string; letter: string }[];
     const part = parts[0];
     const page = await phonePage(browser, base);
     await signIn(page, DEMO_USERS.builder.email);
-    await page.getByTestId('bench-screen').or(page.getByTestId('travelers-screen')).first().waitFor({ timeout: 20000 }).catch(() => undefined);
+    await page
+      .getByTestId('bench-screen')
+      .or(page.getByTestId('travelers-screen'))
+      .first()
+      .waitFor({ timeout: 20000 })
+      .catch(() => undefined);
     await page.goto(`/travelers/${part.id}`);
     await page.getByTestId('traveler-label').click();
     const card = page.getByTestId(`part-label-${part.shortCode}`);
@@ -63,14 +76,28 @@ describe('QR labels in a real browser', () => {
     expect(await page.locator('[data-testid^="part-label-"]').count()).toBe(1);
 
     const text = await card.innerText();
-    const kit = (await request(t.app).get(`/api/travelers/labels?travelerId=${part.id}`).set({ Authorization: `Bearer ${token}` })).body[0];
-    for (const s of [part.shortCode, part.serial, part.partNumber, kit.kitModelCode, kit.kitModelName, kit.supplierName]) expect(text).toContain(s);
+    const kit = (
+      await request(t.app)
+        .get(`/api/travelers/labels?travelerId=${part.id}`)
+        .set({ Authorization: `Bearer ${token}` })
+    ).body[0];
+    for (const s of [
+      part.shortCode,
+      part.serial,
+      part.partNumber,
+      kit.kitModelCode,
+      kit.kitModelName,
+      kit.supplierName,
+    ])
+      expect(text).toContain(s);
     expect(await card.getByTestId('label-revision').innerText()).toBe(part.letter);
 
     // The QR read back off the page, as a phone would: the public address of this part.
     const png = await card.locator('img').first().screenshot();
     const { data, info } = await sharp(png).ensureAlpha().raw().toBuffer({ resolveWithObject: true });
-    expect(jsQR(new Uint8ClampedArray(data), info.width, info.height)?.data).toMatch(new RegExp(`^${t.config.publicUrl}/t/[A-Za-z0-9_-]{20,}$`));
+    expect(jsQR(new Uint8ClampedArray(data), info.width, info.height)?.data).toMatch(
+      new RegExp(`^${t.config.publicUrl}/t/[A-Za-z0-9_-]{20,}$`),
+    );
     await page.context().close();
   });
 
@@ -78,21 +105,33 @@ describe('QR labels in a real browser', () => {
     const page = await phonePage(browser, base);
     await signIn(page, DEMO_USERS.supplier.email);
     await page.getByTestId('email').waitFor({ state: 'detached', timeout: 20000 });
-    const supplierToken = (await request(t.app).post('/api/auth/sign-in').send({ email: DEMO_USERS.supplier.email, password: DEMO_PASSWORD })).body.token;
-    const builds = (await request(t.app).get('/api/builds').set({ Authorization: `Bearer ${supplierToken}` })).body.items as { id: string; travelerCount: number }[];
+    const supplierToken = (
+      await request(t.app).post('/api/auth/sign-in').send({ email: DEMO_USERS.supplier.email, password: DEMO_PASSWORD })
+    ).body.token;
+    const builds = (
+      await request(t.app)
+        .get('/api/builds')
+        .set({ Authorization: `Bearer ${supplierToken}` })
+    ).body.items as { id: string; travelerCount: number }[];
     const build = builds.find((b) => b.travelerCount > 1)!;
     await page.goto(`/travelers/labels?build=${build.id}`);
     await page.locator('[data-testid^="part-label-"]').first().waitFor({ timeout: 15000 });
     expect(await page.locator('[data-testid^="part-label-"]').count()).toBe(build.travelerCount);
 
     // 2 × 1 in = 144 × 72 pt; 62 × 32 mm = 175.7 × 90.7 pt (72 pt to the inch, 25.4 mm to the inch).
-    for (const [size, w, h] of [['2x1in', 144, 72], ['62mm', 175.7, 90.7]] as const) {
+    for (const [size, w, h] of [
+      ['2x1in', 144, 72],
+      ['62mm', 175.7, 90.7],
+    ] as const) {
       await page.getByTestId(`label-size-${size}`).click();
       await page.emulateMedia({ media: 'print' });
       expect(await page.getByTestId('print-bar').isVisible()).toBe(false);
       const box = (await page.locator('[data-testid^="part-label-"]').first().boundingBox())!;
       // Drawn at the stock's size: 96 CSS px to the inch.
-      expect([Math.round(box.width), Math.round(box.height)]).toEqual([Math.round((w / 72) * 96), Math.round((h / 72) * 96)]);
+      expect([Math.round(box.width), Math.round(box.height)]).toEqual([
+        Math.round((w / 72) * 96),
+        Math.round((h / 72) * 96),
+      ]);
       // Still as print: a PDF made under screen emulation would ignore the print rules.
       const pdf = await page.pdf({ preferCSSPageSize: true, printBackground: true });
       await page.emulateMedia({ media: null });

@@ -21,7 +21,12 @@ const widths: Width[] = [
  * The families app/_layout.tsx loads with useFonts (constants/theme.ts names them in `fonts`): Atkinson
  * Hyperlegible for running text, IBM Plex Mono for numbers and codes.
  */
-const APP_FONTS = ['AtkinsonHyperlegible_400Regular', 'AtkinsonHyperlegible_700Bold', 'IBMPlexMono_400Regular', 'IBMPlexMono_600SemiBold'];
+const APP_FONTS = [
+  'AtkinsonHyperlegible_400Regular',
+  'AtkinsonHyperlegible_700Bold',
+  'IBMPlexMono_400Regular',
+  'IBMPlexMono_600SemiBold',
+];
 
 /**
  * Gloved hands: 48 × 48 CSS px, the app's own minimum (constants/theme.ts `touch`; Material Design's
@@ -30,7 +35,11 @@ const APP_FONTS = ['AtkinsonHyperlegible_400Regular', 'AtkinsonHyperlegible_700B
  */
 const MIN_TARGET = 48;
 
-type LayoutFailure = { check: 'wider than the screen' | 'cut off' | 'tap target' | 'font'; element: string; measure: string };
+type LayoutFailure = {
+  check: 'wider than the screen' | 'cut off' | 'tap target' | 'font';
+  element: string;
+  measure: string;
+};
 
 /**
  * Runs in the page: every visible element measured. One self-contained function (it is sent to the
@@ -65,14 +74,21 @@ function measureLayout(opts: { appFonts: string[]; minTarget: number }): LayoutF
     const r = el.getBoundingClientRect();
     const s = css(el);
     return {
-      left: r.left + parseFloat(s.borderLeftWidth), right: r.right - parseFloat(s.borderRightWidth),
-      top: r.top + parseFloat(s.borderTopWidth), bottom: r.bottom - parseFloat(s.borderBottomWidth),
+      left: r.left + parseFloat(s.borderLeftWidth),
+      right: r.right - parseFloat(s.borderRightWidth),
+      top: r.top + parseFloat(s.borderTopWidth),
+      bottom: r.bottom - parseFloat(s.borderBottomWidth),
     };
   };
   const contentBox = (el: Element): Box => {
     const b = paddingBox(el);
     const s = css(el);
-    return { left: b.left + parseFloat(s.paddingLeft), right: b.right - parseFloat(s.paddingRight), top: b.top + parseFloat(s.paddingTop), bottom: b.bottom - parseFloat(s.paddingBottom) };
+    return {
+      left: b.left + parseFloat(s.paddingLeft),
+      right: b.right - parseFloat(s.paddingRight),
+      top: b.top + parseFloat(s.paddingTop),
+      bottom: b.bottom - parseFloat(s.paddingBottom),
+    };
   };
   /**
    * What the ancestors let show of an element: the intersection of the boxes of those that clip, on each
@@ -91,12 +107,24 @@ function measureLayout(opts: { appFonts: string[]; minTarget: number }): LayoutF
       if (y && scrolls(s.overflowY)) y = false;
       const b = paddingBox(a);
       if (x && clips(s.overflowX)) {
-        if (b.left > box.left) { box.left = b.left; by.left = a; }
-        if (b.right < box.right) { box.right = b.right; by.right = a; }
+        if (b.left > box.left) {
+          box.left = b.left;
+          by.left = a;
+        }
+        if (b.right < box.right) {
+          box.right = b.right;
+          by.right = a;
+        }
       }
       if (y && clips(s.overflowY)) {
-        if (b.top > box.top) { box.top = b.top; by.top = a; }
-        if (b.bottom < box.bottom) { box.bottom = b.bottom; by.bottom = a; }
+        if (b.top > box.top) {
+          box.top = b.top;
+          by.top = a;
+        }
+        if (b.bottom < box.bottom) {
+          box.bottom = b.bottom;
+          by.bottom = a;
+        }
       }
     }
     return { box, by, scrollsSideways: !x };
@@ -108,7 +136,10 @@ function measureLayout(opts: { appFonts: string[]; minTarget: number }): LayoutF
     let e: Element | null = el;
     for (let i = 0; e && e !== document.body && i < 5; i++, e = e.parentElement) {
       const id = e.getAttribute('data-testid');
-      if (id) { steps.unshift(`[data-testid="${id}"]`); return steps.join(' > '); }
+      if (id) {
+        steps.unshift(`[data-testid="${id}"]`);
+        return steps.join(' > ');
+      }
       const p: Element | null = e.parentElement;
       const nth = p ? Array.from(p.children).indexOf(e) + 1 : 1;
       steps.unshift(`${e.tagName.toLowerCase()}:nth-child(${nth})`);
@@ -118,18 +149,29 @@ function measureLayout(opts: { appFonts: string[]; minTarget: number }): LayoutF
   };
   const describe = (el: Element) => {
     const id = el.getAttribute('data-testid');
-    const raw = (el instanceof HTMLInputElement || el instanceof HTMLTextAreaElement ? el.value || el.placeholder : (el as HTMLElement).innerText ?? el.textContent ?? '')
-      || el.getAttribute('aria-label') || '';
+    const raw =
+      (el instanceof HTMLInputElement || el instanceof HTMLTextAreaElement
+        ? el.value || el.placeholder
+        : ((el as HTMLElement).innerText ?? el.textContent ?? '')) ||
+      el.getAttribute('aria-label') ||
+      '';
     const text = raw.replace(/\s+/g, ' ').trim();
     const snippet = text ? ` "${text.length > 40 ? `${text.slice(0, 39)}…` : text}"` : '';
     return `<${el.tagName.toLowerCase()}${id ? ` data-testid="${id}"` : ''}>${snippet} at ${cssPath(el)}`;
   };
 
-  const all = Array.from(document.body.querySelectorAll('*')).filter((el) => !el.closest('script, style, noscript, template') && shown(el));
+  const all = Array.from(document.body.querySelectorAll('*')).filter(
+    (el) => !el.closest('script, style, noscript, template') && shown(el),
+  );
 
   // — Wider than the screen. The page itself must not scroll sideways.
   const pageWidth = Math.max(document.documentElement.scrollWidth, document.body.scrollWidth);
-  if (pageWidth > W + SLACK) failures.push({ check: 'wider than the screen', element: 'the page (<html>)', measure: `the page scrolls sideways: ${px(pageWidth)} wide on a ${W} px screen` });
+  if (pageWidth > W + SLACK)
+    failures.push({
+      check: 'wider than the screen',
+      element: 'the page (<html>)',
+      measure: `the page scrolls sideways: ${px(pageWidth)} wide on a ${W} px screen`,
+    });
   // An element past the screen's edge: off it (the screen's edge or a screen-wide box cuts it) or
   // making the page scroll sideways. Not: an element in something that scrolls sideways (that scroller
   // is itself held to the screen); one that a box of its own, inside the screen, already clips (a
@@ -154,13 +196,26 @@ function measureLayout(opts: { appFonts: string[]; minTarget: number }): LayoutF
     const right = Math.max(...els.map((e) => e.getBoundingClientRect().right));
     const left = Math.min(...els.map((e) => e.getBoundingClientRect().left));
     const edge = right > W + EDGE ? `right edge ${px(right)} > ${W}` : `left edge ${px(left)} < 0`;
-    if (els.length > 2 && parent) failures.push({ check: 'wider than the screen', element: `${els.length} children of ${describe(parent)}`, measure: `the last one's ${edge}` });
-    else for (const el of els) {
-      const r = el.getBoundingClientRect();
-      failures.push({ check: 'wider than the screen', element: describe(el), measure: r.right > W + EDGE ? `right edge ${px(r.right)} > ${W}` : `left edge ${px(r.left)} < 0` });
-    }
+    if (els.length > 2 && parent)
+      failures.push({
+        check: 'wider than the screen',
+        element: `${els.length} children of ${describe(parent)}`,
+        measure: `the last one's ${edge}`,
+      });
+    else
+      for (const el of els) {
+        const r = el.getBoundingClientRect();
+        failures.push({
+          check: 'wider than the screen',
+          element: describe(el),
+          measure: r.right > W + EDGE ? `right edge ${px(r.right)} > ${W}` : `left edge ${px(r.left)} < 0`,
+        });
+      }
   }
-  const offScreen = (el: Element) => { for (let e: Element | null = el; e; e = e.parentElement) if (outside.has(e)) return true; return false; };
+  const offScreen = (el: Element) => {
+    for (let e: Element | null = el; e; e = e.parentElement) if (outside.has(e)) return true;
+    return false;
+  };
 
   // — Text cut off: measured word by word (a word's boxes, one a line it is on), so the space that hangs
   // past a wrapped line's end does not count. Words end at spaces, hyphens, dashes and slashes: where
@@ -182,7 +237,9 @@ function measureLayout(opts: { appFonts: string[]; minTarget: number }): LayoutF
     return out;
   };
   for (const el of all) {
-    const own = Array.from(el.childNodes).filter((n): n is Text => n.nodeType === Node.TEXT_NODE && !!n.textContent!.trim());
+    const own = Array.from(el.childNodes).filter(
+      (n): n is Text => n.nodeType === Node.TEXT_NODE && !!n.textContent!.trim(),
+    );
     if (!own.length || el.closest('svg') || offScreen(el)) continue;
     const s = css(el);
     const he = el as HTMLElement;
@@ -195,15 +252,19 @@ function measureLayout(opts: { appFonts: string[]; minTarget: number }): LayoutF
     if (clips(s.overflowY) && he.scrollHeight > he.clientHeight + SLACK) {
       const lh = parseFloat(s.lineHeight);
       const lines = (n: number) => (Number.isFinite(lh) && lh > 0 ? `${Math.round(n / lh)} lines, ` : '');
-      cut(`text ${lines(he.scrollHeight)}${px(he.scrollHeight)} tall in a ${lines(he.clientHeight)}${px(he.clientHeight)} box`);
+      cut(
+        `text ${lines(he.scrollHeight)}${px(he.scrollHeight)} tall in a ${lines(he.clientHeight)}${px(he.clientHeight)} box`,
+      );
       continue;
     }
     const ws = own.flatMap(words);
     if (!ws.length) continue;
     const rects = ws.flatMap((w) => w.rects);
     const text: Box = {
-      left: Math.min(...rects.map((r) => r.left)), right: Math.max(...rects.map((r) => r.right)),
-      top: Math.min(...rects.map((r) => r.top)), bottom: Math.max(...rects.map((r) => r.bottom)),
+      left: Math.min(...rects.map((r) => r.left)),
+      right: Math.max(...rects.map((r) => r.right)),
+      top: Math.min(...rects.map((r) => r.top)),
+      bottom: Math.max(...rects.map((r) => r.bottom)),
     };
     const width = text.right - text.left;
     // Cut by a box around it that clips. Up and down, a quarter of a line's height past the box before
@@ -212,12 +273,16 @@ function measureLayout(opts: { appFonts: string[]; minTarget: number }): LayoutF
     const lineH = Math.max(...rects.map((r) => r.height));
     if (text.right > box.right + EDGE || text.left < box.left - EDGE) {
       const side = text.right > box.right + EDGE ? 'right' : 'left';
-      cut(`text ${px(width)} wide from ${px(text.left)} to ${px(text.right)}, clipped at ${px(box[side])} by ${describe(by[side]!)}`);
+      cut(
+        `text ${px(width)} wide from ${px(text.left)} to ${px(text.right)}, clipped at ${px(box[side])} by ${describe(by[side]!)}`,
+      );
       continue;
     }
     if (text.bottom > box.bottom + lineH / 4 || text.top < box.top - lineH / 4) {
       const side = text.bottom > box.bottom + lineH / 4 ? 'bottom' : 'top';
-      cut(`text from ${px(text.top)} to ${px(text.bottom)} down the page, clipped at ${px(box[side])} by ${describe(by[side]!)}`);
+      cut(
+        `text from ${px(text.top)} to ${px(text.bottom)} down the page, clipped at ${px(box[side])} by ${describe(by[side]!)}`,
+      );
       continue;
     }
     // Running out of its own box over whatever is beside it (a cell narrower than its value). An inline
@@ -225,7 +290,9 @@ function measureLayout(opts: { appFonts: string[]; minTarget: number }): LayoutF
     if (!s.display.startsWith('inline')) {
       const c = contentBox(el);
       if (text.right > c.right + EDGE || text.left < c.left - EDGE) {
-        cut(`text ${px(width)} wide in a ${px(c.right - c.left)} box: it runs ${px(Math.max(text.right - c.right, c.left - text.left))} out over what is beside it`);
+        cut(
+          `text ${px(width)} wide in a ${px(c.right - c.left)} box: it runs ${px(Math.max(text.right - c.right, c.left - text.left))} out over what is beside it`,
+        );
         continue;
       }
     }
@@ -243,10 +310,23 @@ function measureLayout(opts: { appFonts: string[]; minTarget: number }): LayoutF
   }
 
   // — Tap targets.
-  const targets = all.filter((el) => el.matches([
-    'a[href]', 'button', 'input:not([type="hidden"])', 'select', 'textarea',
-    '[role="button"]', '[role="link"]', '[role="checkbox"]', '[role="radio"]', '[role="tab"]', '[role="switch"]',
-  ].join(',')));
+  const targets = all.filter((el) =>
+    el.matches(
+      [
+        'a[href]',
+        'button',
+        'input:not([type="hidden"])',
+        'select',
+        'textarea',
+        '[role="button"]',
+        '[role="link"]',
+        '[role="checkbox"]',
+        '[role="radio"]',
+        '[role="tab"]',
+        '[role="switch"]',
+      ].join(','),
+    ),
+  );
   for (const el of targets) {
     const r = el.getBoundingClientRect();
     if (r.width + 0.01 >= opts.minTarget && r.height + 0.01 >= opts.minTarget) continue;
@@ -259,22 +339,39 @@ function measureLayout(opts: { appFonts: string[]; minTarget: number }): LayoutF
       const around = (block?.textContent ?? '').replace(label, '').trim();
       if (around.length > 0) continue;
     }
-    failures.push({ check: 'tap target', element: describe(el), measure: `tap target ${Math.round(r.width)}×${Math.round(r.height)} px (under ${opts.minTarget}×${opts.minTarget})` });
+    failures.push({
+      check: 'tap target',
+      element: describe(el),
+      measure: `tap target ${Math.round(r.width)}×${Math.round(r.height)} px (under ${opts.minTarget}×${opts.minTarget})`,
+    });
   }
 
   // — Fonts: the first family of each visible text's element must be one of the app's, and loaded.
   const loaded = new Set<string>();
-  document.fonts.forEach((f) => { if (f.status === 'loaded') loaded.add(f.family.replace(/^["']|["']$/g, '')); });
+  document.fonts.forEach((f) => {
+    if (f.status === 'loaded') loaded.add(f.family.replace(/^["']|["']$/g, ''));
+  });
   const fontChecked = new Set<Element>();
   const checkFont = (el: Element) => {
     if (fontChecked.has(el)) return;
     fontChecked.add(el);
     const stack = css(el).fontFamily;
-    const first = stack.split(',')[0].trim().replace(/^["']|["']$/g, '');
+    const first = stack
+      .split(',')[0]
+      .trim()
+      .replace(/^["']|["']$/g, '');
     if (!opts.appFonts.includes(first)) {
-      failures.push({ check: 'font', element: describe(el), measure: `font "${first}" (${stack}), not one of the app's` });
+      failures.push({
+        check: 'font',
+        element: describe(el),
+        measure: `font "${first}" (${stack}), not one of the app's`,
+      });
     } else if (!loaded.has(first)) {
-      failures.push({ check: 'font', element: describe(el), measure: `font "${first}" is named but not loaded: the text shows in the fallback (${stack})` });
+      failures.push({
+        check: 'font',
+        element: describe(el),
+        measure: `font "${first}" is named but not loaded: the text shows in the fallback (${stack})`,
+      });
     }
   };
   const visibleSet = new Set(all);
@@ -285,7 +382,9 @@ function measureLayout(opts: { appFonts: string[]; minTarget: number }): LayoutF
   }
   // What is typed or hinted in a field is text too.
   for (const el of all) {
-    const field = (el instanceof HTMLInputElement && !['checkbox', 'radio', 'file', 'range', 'color'].includes(el.type)) || el instanceof HTMLTextAreaElement;
+    const field =
+      (el instanceof HTMLInputElement && !['checkbox', 'radio', 'file', 'range', 'color'].includes(el.type)) ||
+      el instanceof HTMLTextAreaElement;
     if (field && ((el as HTMLInputElement).value || (el as HTMLInputElement).placeholder)) checkFont(el);
   }
   return failures;
@@ -307,14 +406,20 @@ function report(route: string, width: string, fs: LayoutFailure[]): string {
     else groups.set(key, { f, n: 1 });
   }
   const kinds = [...new Set(fs.map((f) => f.check))];
-  return `${route} at ${width}: ${fs.length} layout failures\n${kinds.map((k) => {
-    const of = [...groups.values()].filter((g) => g.f.check === k);
-    return [
-      `  ${k} (${fs.filter((f) => f.check === k).length}):`,
-      ...of.slice(0, 30).map(({ f, n }) => `    ${f.element}${n > 1 ? ` (and ${n - 1} more like it)` : ''}\n      ${f.measure}`),
-      of.length > 30 ? `    … and ${of.length - 30} more` : '',
-    ].filter(Boolean).join('\n');
-  }).join('\n')}`;
+  return `${route} at ${width}: ${fs.length} layout failures\n${kinds
+    .map((k) => {
+      const of = [...groups.values()].filter((g) => g.f.check === k);
+      return [
+        `  ${k} (${fs.filter((f) => f.check === k).length}):`,
+        ...of
+          .slice(0, 30)
+          .map(({ f, n }) => `    ${f.element}${n > 1 ? ` (and ${n - 1} more like it)` : ''}\n      ${f.measure}`),
+        of.length > 30 ? `    … and ${of.length - 30} more` : '',
+      ]
+        .filter(Boolean)
+        .join('\n');
+    })
+    .join('\n')}`;
 }
 
 const s = auditSession(artefacts);

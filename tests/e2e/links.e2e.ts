@@ -30,7 +30,9 @@ const pendingKey = 'pitchcard.pending-link';
 
 async function api<T>(email: string, path: string): Promise<T> {
   const token = await t.signIn(email);
-  const res = await request(t.app).get(path).set({ Authorization: `Bearer ${token}` });
+  const res = await request(t.app)
+    .get(path)
+    .set({ Authorization: `Bearer ${token}` });
   if (res.status !== 200) throw new Error(`GET ${path} as ${email}: ${res.status} ${JSON.stringify(res.body)}`);
   return res.body as T;
 }
@@ -74,7 +76,10 @@ describe('a link opened while signed out opens after sign-in', () => {
   it('a scanned label: straight to sign-in with no button to press, then the part', async () => {
     const builds = (await api<{ items: { id: string }[] }>(DEMO_USERS.supplier.email, '/api/builds')).items;
     expect(builds.length).toBeGreaterThan(0);
-    const labels = await api<{ travelerId: string; url: string }[]>(DEMO_USERS.supplier.email, `/api/travelers/labels?buildId=${builds[0].id}`);
+    const labels = await api<{ travelerId: string; url: string }[]>(
+      DEMO_USERS.supplier.email,
+      `/api/travelers/labels?buildId=${builds[0].id}`,
+    );
     expect(labels.length).toBeGreaterThan(0);
     const label = labels[0];
     const labelPath = new URL(label.url).pathname;

@@ -92,7 +92,10 @@ describe('the loop in a real browser at phone size', () => {
     await page.getByTestId('rev-drill-size').fill('#30');
     await page.getByTestId('rev-drill-diameter').fill('0.1285');
     await page.getByTestId('rev-edge-distance').fill('0.25');
-    for (const [i, pitch] of [[0, '1'], [1, '1.5']] as const) {
+    for (const [i, pitch] of [
+      [0, '1'],
+      [1, '1.5'],
+    ] as const) {
       await page.getByTestId(`line-${i}-start`).fill('1');
       await page.getByTestId(`line-${i}-length`).fill('30');
       await page.getByTestId(`line-${i}-zone-0-from`).fill('0');
@@ -148,12 +151,18 @@ describe('the loop in a real browser at phone size', () => {
     expect(await page.getByTestId('progress-count').textContent()).toMatch(/^0\b/);
 
     await page.getByTestId('hole-U-01').click();
-    await until(() => page.getByTestId('hole-U-01').getAttribute('aria-checked'), (v) => v === 'true');
+    await until(
+      () => page.getByTestId('hole-U-01').getAttribute('aria-checked'),
+      (v) => v === 'true',
+    );
     await page.getByTestId('run-mode').click();
     await page.getByTestId('hole-U-02').click();
     await page.getByTestId('hole-U-05').click();
     await page.getByTestId('tick-run').click();
-    await until(() => page.getByTestId('progress-count').textContent(), (v) => /^5\b/.test(v ?? ''));
+    await until(
+      () => page.getByTestId('progress-count').textContent(),
+      (v) => /^5\b/.test(v ?? ''),
+    );
 
     // No signal at the bench: the tick stays as made, waits on the device, and reaches the server later.
     await page.context().setOffline(true);
@@ -163,12 +172,22 @@ describe('the loop in a real browser at phone size', () => {
     await page.context().setOffline(false);
     await page.getByTestId('ticks-waiting').waitFor({ state: 'detached', timeout: 30000 });
     const token = await t.signIn(DEMO_USERS.builder.email);
-    const lookup = await request(t.app).get('/api/travelers/lookup').query({ code: qrText }).set({ Authorization: `Bearer ${token}` });
-    const saved = await request(t.app).get(`/api/travelers/${lookup.body.id}`).set({ Authorization: `Bearer ${token}` });
+    const lookup = await request(t.app)
+      .get('/api/travelers/lookup')
+      .query({ code: qrText })
+      .set({ Authorization: `Bearer ${token}` });
+    const saved = await request(t.app)
+      .get(`/api/travelers/${lookup.body.id}`)
+      .set({ Authorization: `Bearer ${token}` });
     expect(saved.body.holes.find((h: { holeId: string }) => h.holeId === 'U-06').status).toBe('installed');
 
     const photo = path.join(work, 'hole.jpg');
-    await writeFile(photo, await sharp({ create: { width: 640, height: 480, channels: 3, background: '#8a9096' } }).jpeg().toBuffer());
+    await writeFile(
+      photo,
+      await sharp({ create: { width: 640, height: 480, channels: 3, background: '#8a9096' } })
+        .jpeg()
+        .toBuffer(),
+    );
     await page.getByTestId('flag-hole').click();
     await page.getByTestId('flag-screen').waitFor();
     await page.getByTestId('pick-hole-U-07').click();
@@ -181,7 +200,10 @@ describe('the loop in a real browser at phone size', () => {
     await page.getByTestId('submit-finding').click();
     await page.getByTestId('finding-sent').waitFor({ timeout: 30000 });
 
-    const mail = await t.waitForMail((m) => m.to.includes(DEMO_USERS.inspector.email) && m.subject.includes(`R-${stamp}`) && m.subject.includes('U-07'));
+    const mail = await t.waitForMail(
+      (m) =>
+        m.to.includes(DEMO_USERS.inspector.email) && m.subject.includes(`R-${stamp}`) && m.subject.includes('U-07'),
+    );
     expect(mail.text).toContain('Elongated hole');
     expect(mail.attachments).toBe(1);
   });
@@ -205,14 +227,19 @@ describe('the loop in a real browser at phone size', () => {
     await page.getByTestId('disposition').waitFor({ timeout: 15000 });
     expect(await page.getByTestId('history').textContent()).toContain('Drill out and set the same rivet again');
 
-    await t.waitForMail((m) => m.to.includes(DEMO_USERS.builder.email) && m.subject.includes(`R-${stamp}`) && /Rework/.test(m.subject));
+    await t.waitForMail(
+      (m) => m.to.includes(DEMO_USERS.builder.email) && m.subject.includes(`R-${stamp}`) && /Rework/.test(m.subject),
+    );
 
     const bench = await phonePage(browser, base);
     await signIn(bench, DEMO_USERS.builder.email);
     await bench.getByTestId('short-code').fill(shortCode.replace('-', '').toLowerCase());
     await bench.getByTestId('open-code').click();
     await bench.getByTestId('traveler-screen').waitFor({ timeout: 30000 });
-    await until(() => bench.getByTestId('traveler-findings').textContent(), (v) => /Rework/.test(v ?? ''));
+    await until(
+      () => bench.getByTestId('traveler-findings').textContent(),
+      (v) => /Rework/.test(v ?? ''),
+    );
     expect(await bench.getByTestId('hole-U-07').getAttribute('aria-label')).toMatch(/held/i);
   });
 });

@@ -61,7 +61,9 @@ const visible = (page: Page, id: string) => page.locator(`[data-testid="${id}"]:
 
 async function api<T>(url: string): Promise<T> {
   const token = await t.signIn(DEMO_USERS.builder.email);
-  const res = await request(t.app).get(url).set({ Authorization: `Bearer ${token}` });
+  const res = await request(t.app)
+    .get(url)
+    .set({ Authorization: `Bearer ${token}` });
   if (res.status !== 200) throw new Error(`GET ${url}: ${res.status} ${JSON.stringify(res.body)}`);
   return res.body as T;
 }
@@ -106,12 +108,26 @@ describe('the installable app', () => {
     expect(res.headers()['content-type']).toMatch(/^application\/manifest\+json/);
     expect(res.headers()['cache-control']).toBe('no-cache');
     const manifest = JSON.parse(await res.text());
-    expect(manifest).toMatchObject({ name: 'Pitchcard', short_name: 'Pitchcard', display: 'standalone', start_url: '/', background_color: '#F3EEE2', theme_color: '#1C1A16' });
+    expect(manifest).toMatchObject({
+      name: 'Pitchcard',
+      short_name: 'Pitchcard',
+      display: 'standalone',
+      start_url: '/',
+      background_color: '#F3EEE2',
+      theme_color: '#1C1A16',
+    });
 
     const icons = manifest.icons as { src: string; sizes: string; type: string; purpose: string }[];
-    expect(icons.map((i) => `${i.sizes} ${i.purpose}`).sort()).toEqual(['192x192 any', '512x512 any', '512x512 maskable']);
+    expect(icons.map((i) => `${i.sizes} ${i.purpose}`).sort()).toEqual([
+      '192x192 any',
+      '512x512 any',
+      '512x512 maskable',
+    ]);
     const appleIcon = await page.locator('link[rel="apple-touch-icon"]').getAttribute('href');
-    for (const [src, size] of [...icons.map((i) => [i.src, Number(i.sizes.split('x')[0])] as const), [appleIcon!, 180] as const]) {
+    for (const [src, size] of [
+      ...icons.map((i) => [i.src, Number(i.sizes.split('x')[0])] as const),
+      [appleIcon!, 180] as const,
+    ]) {
       const icon = await page.request.get(src);
       expect(icon.status()).toBe(200);
       expect(icon.headers()['content-type']).toBe('image/png');
@@ -139,7 +155,9 @@ describe('the bench with no signal', () => {
     const page = await phonePage(browser, base);
     // The service worker runs under the same content security policy as the page: neither may report a refusal.
     const refused: string[] = [];
-    const watch = (m: { text: () => string }) => { if (/content security policy|refused to/i.test(m.text())) refused.push(m.text()); };
+    const watch = (m: { text: () => string }) => {
+      if (/content security policy|refused to/i.test(m.text())) refused.push(m.text());
+    };
     page.on('console', watch);
     page.context().on('serviceworker', (w) => w.on('console', watch));
     await signIn(page, '/');
@@ -165,7 +183,14 @@ describe('the bench with no signal', () => {
     // kept on the phone), and so does the bench.
     await page.reload();
     await visible(page, 'traveler-screen').waitFor({ timeout: 30_000 });
-    expect(await page.evaluate(() => fetch('/api/health').then(() => 'answered', () => 'no signal'))).toBe('no signal');
+    expect(
+      await page.evaluate(() =>
+        fetch('/api/health').then(
+          () => 'answered',
+          () => 'no signal',
+        ),
+      ),
+    ).toBe('no signal');
     await visible(page, 'tab-bench').click();
     await visible(page, `traveler-${part.shortCode}`).waitFor({ timeout: 30_000 });
     await page.reload();
@@ -189,7 +214,9 @@ describe('the bench with no signal', () => {
 
 describe('the scanner on a plain-http shop address', () => {
   it('says the camera needs the https address, and the short code still opens the part', async () => {
-    const part = (await api<{ items: TravelerSummary[] }>('/api/travelers')).items.find((p) => p.partNumber === 'W-104')!;
+    const part = (await api<{ items: TravelerSummary[] }>('/api/travelers')).items.find(
+      (p) => p.partNumber === 'W-104',
+    )!;
     // A name other than localhost (mapped to 127.0.0.1 by the browser helper): not a secure context.
     const shop = `http://pitchcard.test:${port}`;
     const page = await phonePage(browser, shop);

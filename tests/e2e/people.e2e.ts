@@ -94,7 +94,9 @@ describe('people join and leave through the screens', () => {
     const bench = await join(await linkIn(builder.email, 'invite'), builder.name);
     await visible(bench, 'bench-screen').waitFor({ timeout: 30_000 });
     const supplierToken = await t.signIn(DEMO_USERS.supplier.email);
-    const build = (await request(t.app).get(`/api/builds/${buildId}`).set(auth(supplierToken))).body as { travelers: { shortCode: string }[] };
+    const build = (await request(t.app).get(`/api/builds/${buildId}`).set(auth(supplierToken))).body as {
+      travelers: { shortCode: string }[];
+    };
     expect(build.travelers.length).toBeGreaterThan(0);
     await visible(bench, `traveler-${build.travelers[0].shortCode}`).waitFor({ timeout: 30_000 });
 
@@ -111,7 +113,9 @@ describe('people join and leave through the screens', () => {
     expect(await office.locator('[data-testid^="pending-"]:visible').count()).toBe(0);
 
     // Through the API too: both accounts are the build's people.
-    const after = (await request(t.app).get(`/api/builds/${buildId}`).set(auth(supplierToken))).body as { people: { members: { email: string }[]; pending: unknown[] } };
+    const after = (await request(t.app).get(`/api/builds/${buildId}`).set(auth(supplierToken))).body as {
+      people: { members: { email: string }[]; pending: unknown[] };
+    };
     expect(after.people.members.map((m) => m.email)).toEqual(expect.arrayContaining([builder.email, inspector.email]));
     expect(after.people.pending).toEqual([]);
     await Promise.all([office, bench, review].map((p) => p.context().close()));
@@ -120,7 +124,10 @@ describe('people join and leave through the screens', () => {
   it('the admin invites someone who joins; deactivated, their sign-in ends at once', async () => {
     const person = { email: `juno.${stamp()}@benchwork.example`, name: 'Juno Marsh' };
     const adminToken = await t.signIn(DEMO_USERS.admin.email);
-    const orgs = (await request(t.app).get('/api/people/organizations').set(auth(adminToken))).body.items as { id: string; kind: string }[];
+    const orgs = (await request(t.app).get('/api/people/organizations').set(auth(adminToken))).body.items as {
+      id: string;
+      kind: string;
+    }[];
     const shop = orgs.find((o) => o.kind === 'shop')!;
 
     const office = await widePage();
@@ -138,7 +145,9 @@ describe('people join and leave through the screens', () => {
     // They join from the mail and are signed in on their phone.
     const phone = await join(await linkIn(person.email, 'invite'), person.name);
     await visible(phone, 'bench-screen').waitFor({ timeout: 30_000 });
-    const stored = JSON.parse((await phone.evaluate(() => window.localStorage.getItem('pitchcard.session'))) ?? '{}') as { token?: string };
+    const stored = JSON.parse(
+      (await phone.evaluate(() => window.localStorage.getItem('pitchcard.session'))) ?? '{}',
+    ) as { token?: string };
     expect(stored.token).toBeTruthy();
     expect((await request(t.app).get('/api/auth/me').set(auth(stored.token!))).status).toBe(200);
 
@@ -175,8 +184,12 @@ describe('people join and leave through the screens', () => {
     await visible(page, 'review-screen').waitFor({ timeout: 30_000 });
 
     // The old password is gone and the new one works.
-    expect((await request(t.app).post('/api/auth/sign-in').send({ email: who.email, password: DEMO_PASSWORD })).status).toBe(401);
-    expect((await request(t.app).post('/api/auth/sign-in').send({ email: who.email, password: STRONG })).status).toBe(200);
+    expect(
+      (await request(t.app).post('/api/auth/sign-in').send({ email: who.email, password: DEMO_PASSWORD })).status,
+    ).toBe(401);
+    expect((await request(t.app).post('/api/auth/sign-in').send({ email: who.email, password: STRONG })).status).toBe(
+      200,
+    );
     await page.context().close();
   });
 });

@@ -37,22 +37,44 @@ afterAll(async () => {
 });
 
 async function designOf(partNumber: string) {
-  const list = (await request(t.app).get('/api/designs').set(auth())).body.items as { id: string; partNumber: string }[];
+  const list = (await request(t.app).get('/api/designs').set(auth())).body.items as {
+    id: string;
+    partNumber: string;
+  }[];
   return list.find((d) => d.partNumber === partNumber)!.id;
 }
 
 /** A draft revision B… of the part, made the way the supplier's form makes one. */
 async function draftOf(designId: string, changeNote: string) {
   const detail = (await request(t.app).get(`/api/designs/${designId}`).set(auth())).body;
-  const { id: _i, partDesignId: _p, letter: _l, status: _s, basis: _b, studyId: _st, createdAt: _c, publishedAt: _pa, publishedByName: _pb, allowedActions: _a, ...body } = detail.revisions[0];
-  const res = await request(t.app).post(`/api/designs/${designId}/revisions`).set(auth()).send({ ...body, changeNote });
+  const {
+    id: _i,
+    partDesignId: _p,
+    letter: _l,
+    status: _s,
+    basis: _b,
+    studyId: _st,
+    createdAt: _c,
+    publishedAt: _pa,
+    publishedByName: _pb,
+    allowedActions: _a,
+    ...body
+  } = detail.revisions[0];
+  const res = await request(t.app)
+    .post(`/api/designs/${designId}/revisions`)
+    .set(auth())
+    .send({ ...body, changeNote });
   expect(res.status).toBe(201);
   return res.body as { id: string; letter: string };
 }
 
 describe('taking back what can be taken back, on a phone', () => {
   it('corrects a recorded coupon: the new value counts, the old one stays shown as corrected', async () => {
-    const tests = (await request(t.app).get('/api/coupons').set(auth())).body.items as { id: string; gaugeIn: number; loadLb: number }[];
+    const tests = (await request(t.app).get('/api/coupons').set(auth())).body.items as {
+      id: string;
+      gaugeIn: number;
+      loadLb: number;
+    }[];
     const old = tests.find((c) => c.gaugeIn === 0.02 && c.loadLb === 30)!;
     await page.goto('/coupons');
     await visible(`coupon-correct-${old.id}`).click();
@@ -61,11 +83,17 @@ describe('taking back what can be taken back, on a phone', () => {
     await visible('coupon-correction-load').fill('25');
     await visible('coupon-correction-submit').click();
     await visible(`coupon-corrected-${old.id}`).waitFor({ timeout: 15000 });
-    expect(await visible(`coupon-corrected-${old.id}`).textContent()).toMatch(/Corrected .* by Maren Holt: Load cell read with the tare left on/);
+    expect(await visible(`coupon-corrected-${old.id}`).textContent()).toMatch(
+      /Corrected .* by Maren Holt: Load cell read with the tare left on/,
+    );
     // The old value is still there to read; no button offers to change it again.
     expect(await visible(`coupon-load-${old.id}`).textContent()).toBe('30.0');
     expect(await page.locator(`[data-testid="coupon-correct-${old.id}"]`).count()).toBe(0);
-    const after = (await request(t.app).get('/api/coupons').set(auth())).body.items as { id: string; loadLb: number; correctionReason: string }[];
+    const after = (await request(t.app).get('/api/coupons').set(auth())).body.items as {
+      id: string;
+      loadLb: number;
+      correctionReason: string;
+    }[];
     expect(after.filter((c) => c.correctionReason.includes('tare')).map((c) => c.loadLb)).toEqual([25]);
   });
 
@@ -77,7 +105,9 @@ describe('taking back what can be taken back, on a phone', () => {
     await visible('discard-draft').click();
     expect(await visible('discard-ask-message').textContent()).toMatch(/published revisions of this part stay/);
     await visible('discard-ask-confirm').click();
-    await page.locator(`[data-testid="revision-${draft.letter}-status"]`).waitFor({ state: 'detached', timeout: 15000 });
+    await page
+      .locator(`[data-testid="revision-${draft.letter}-status"]`)
+      .waitFor({ state: 'detached', timeout: 15000 });
     expect(await visible('revision-B-status').textContent()).toBe('Published');
     expect(await page.locator('[data-testid="save-draft"]').count()).toBe(0);
   });

@@ -19,7 +19,11 @@ import { serveTestApp } from './helpers/served-app';
 jest.setTimeout(180_000);
 
 type Violation = { directive: string; blocked: string; sample: string };
-declare global { interface Window { __cspViolations: Violation[] } }
+declare global {
+  interface Window {
+    __cspViolations: Violation[];
+  }
+}
 
 const CANARY = 'window.__canaryRan = true';
 
@@ -43,12 +47,18 @@ afterAll(async () => {
 async function watchViolations(context: BrowserContext, page: Page) {
   await context.addInitScript(() => {
     window.__cspViolations = [];
-    document.addEventListener('securitypolicyviolation', (e) => {
-      window.__cspViolations.push({ directive: e.violatedDirective, blocked: e.blockedURI, sample: e.sample });
-    }, true);
+    document.addEventListener(
+      'securitypolicyviolation',
+      (e) => {
+        window.__cspViolations.push({ directive: e.violatedDirective, blocked: e.blockedURI, sample: e.sample });
+      },
+      true,
+    );
   });
   const consoleReports: string[] = [];
-  page.on('console', (m) => { if (/content security policy|refused to/i.test(m.text())) consoleReports.push(m.text()); });
+  page.on('console', (m) => {
+    if (/content security policy|refused to/i.test(m.text())) consoleReports.push(m.text());
+  });
   return {
     consoleReports,
     events: () => page.evaluate(() => window.__cspViolations ?? []),
@@ -69,7 +79,9 @@ async function until<T>(read: () => Promise<T> | T, ok: (v: T) => boolean, ms = 
 
 async function api<T>(email: string, url: string): Promise<T> {
   const token = await t.signIn(email);
-  const res = await request(t.app).get(url).set({ Authorization: `Bearer ${token}` });
+  const res = await request(t.app)
+    .get(url)
+    .set({ Authorization: `Bearer ${token}` });
   if (res.status !== 200) throw new Error(`GET ${url} as ${email}: ${res.status} ${JSON.stringify(res.body)}`);
   return res.body as T;
 }
@@ -77,7 +89,10 @@ async function api<T>(email: string, url: string): Promise<T> {
 describe('security headers in a real browser', () => {
   it('the builder signs in, scans a label, opens the part and picks a photo with no policy violation', async () => {
     const builds = (await api<{ items: { id: string }[] }>(DEMO_USERS.supplier.email, '/api/builds')).items;
-    const labels = await api<{ url: string }[]>(DEMO_USERS.supplier.email, `/api/travelers/labels?buildId=${builds[0].id}`);
+    const labels = await api<{ url: string }[]>(
+      DEMO_USERS.supplier.email,
+      `/api/travelers/labels?buildId=${builds[0].id}`,
+    );
     expect(labels.length).toBeGreaterThan(0);
     const video = path.join(work, 'label.y4m');
     await writeQrVideo(video, labels[0].url);
@@ -106,7 +121,12 @@ describe('security headers in a real browser', () => {
     // A finding with a photo: the picker's preview is a data: (or blob:) image, which is fetched back
     // into a Blob for the upload (connect-src), and the stored photo is then shown from our origin.
     const photo = path.join(work, 'hole.jpg');
-    await writeFile(photo, await sharp({ create: { width: 320, height: 240, channels: 3, background: '#8a9096' } }).jpeg().toBuffer());
+    await writeFile(
+      photo,
+      await sharp({ create: { width: 320, height: 240, channels: 3, background: '#8a9096' } })
+        .jpeg()
+        .toBuffer(),
+    );
     await page.getByTestId('flag-hole').click();
     await page.getByTestId('flag-screen').waitFor({ timeout: 15_000 });
     await page.locator('[data-testid^="pick-hole-"]').last().click();
@@ -131,10 +151,16 @@ describe('security headers in a real browser', () => {
       s.textContent = code;
       document.body.appendChild(s);
     }, CANARY);
-    const events = await until(() => seen.events(), (v) => v.length > 0);
+    const events = await until(
+      () => seen.events(),
+      (v) => v.length > 0,
+    );
     expect(events).toEqual([expect.objectContaining({ directive: 'script-src-elem', blocked: 'inline' })]);
     expect(await page.evaluate(() => (window as unknown as { __canaryRan?: boolean }).__canaryRan)).toBeUndefined();
-    await until(() => seen.consoleReports.length, (n) => n === 1);
+    await until(
+      () => seen.consoleReports.length,
+      (n) => n === 1,
+    );
     await page.context().close();
   });
 
@@ -143,10 +169,16 @@ describe('security headers in a real browser', () => {
     const context = await browser.newContext();
     const page = await context.newPage();
     const refused: string[] = [];
-    page.on('console', (m) => { if (/frame-ancestors/.test(m.text())) refused.push(m.text()); });
+    page.on('console', (m) => {
+      if (/frame-ancestors/.test(m.text())) refused.push(m.text());
+    });
     // A page of another origin (about:blank with content) framing the sign-in page.
     await page.setContent(`<iframe id="f" src="${base}/sign-in" width="400" height="600"></iframe>`);
-    await until(() => refused.length, (n) => n > 0, 15_000);
+    await until(
+      () => refused.length,
+      (n) => n > 0,
+      15_000,
+    );
     const frame = page.frames().find((f) => f !== page.mainFrame());
     expect(await frame?.locator('[data-testid="email"]').count()).toBe(0);
     await context.close();

@@ -67,14 +67,21 @@ describe('a load study on the supplier’s wide screen', () => {
     const token = await t.signIn(DEMO_USERS.supplier.email);
     const auth = { Authorization: `Bearer ${token}` };
     const designs = (await request(t.app).get('/api/designs').set(auth)).body.items;
-    const rib = (await request(t.app).get(`/api/designs/${designs.find((d: { partNumber: string }) => d.partNumber === 'W-104').id}`).set(auth)).body;
+    const rib = (
+      await request(t.app)
+        .get(`/api/designs/${designs.find((d: { partNumber: string }) => d.partNumber === 'W-104').id}`)
+        .set(auth)
+    ).body;
     const draft = rib.revisions[0];
     expect(draft).toMatchObject({ status: 'draft', letter: 'B', gaugeIn: 0.02, rivetSpec: 'PULLED-4' });
     const [study] = (await request(t.app).get('/api/studies').set(auth)).body.items;
     const result = (await request(t.app).get(`/api/studies/${study.id}`).set(auth)).body.result;
-    const chosen = result.candidates.find((c: { gaugeIn: number; rivet: string }) => c.gaugeIn === 0.02 && c.rivet === 'PULLED-4');
-    expect(draft.lines.map((l: { zones: { pitchIn: number }[] }) => l.zones.map((z) => z.pitchIn)))
-      .toEqual(chosen.lines.map((l: { zones: { pitchIn: number }[] }) => l.zones.map((z) => z.pitchIn)));
+    const chosen = result.candidates.find(
+      (c: { gaugeIn: number; rivet: string }) => c.gaugeIn === 0.02 && c.rivet === 'PULLED-4',
+    );
+    expect(draft.lines.map((l: { zones: { pitchIn: number }[] }) => l.zones.map((z) => z.pitchIn))).toEqual(
+      chosen.lines.map((l: { zones: { pitchIn: number }[] }) => l.zones.map((z) => z.pitchIn)),
+    );
 
     await page.getByTestId('apply-open-design').click();
     await page.getByTestId('design-screen').waitFor({ timeout: 30000 });

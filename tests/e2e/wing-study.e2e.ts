@@ -29,16 +29,43 @@ beforeAll(async () => {
   ({ t, base, close: closeApp } = await serveTestApp());
   auth = { Authorization: `Bearer ${await t.signIn(DEMO_USERS.supplier.email)}` };
   // A skin panel of the root bay of our own, so the test does not lean on what the demo happens to hold.
-  const kit = (await request(t.app).get('/api/kits').set(auth)).body.items.find((k: { code: string }) => k.code === 'NK-2');
-  const made = await request(t.app).post('/api/designs').set(auth).send({
-    design: { kitModelId: kit.id, partNumber: 'S-390', name: 'Upper skin, root bay (phone test)', kind: 'skin_panel' },
-    revision: {
-      material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20426AD3', drillSize: '#40', drillDiameterIn: 0.098, edgeDistanceIn: 0.25, chordIn: 30,
-      lines: [{ code: 'FS', name: 'Front spar', surface: 'upper', startIn: 0, lengthIn: 14.5, zones: [{ fromIn: 0, toIn: 14.5, pitchIn: 1 }] }],
-      steps: ['Cleco the skin to the spars and ribs'], changeNote: '',
-    },
-  });
-  if (made.status !== 201) throw new Error(`the skin panel design was not made: ${made.status} ${JSON.stringify(made.body)}`);
+  const kit = (await request(t.app).get('/api/kits').set(auth)).body.items.find(
+    (k: { code: string }) => k.code === 'NK-2',
+  );
+  const made = await request(t.app)
+    .post('/api/designs')
+    .set(auth)
+    .send({
+      design: {
+        kitModelId: kit.id,
+        partNumber: 'S-390',
+        name: 'Upper skin, root bay (phone test)',
+        kind: 'skin_panel',
+      },
+      revision: {
+        material: '6061-T6',
+        gaugeIn: 0.025,
+        rivetSpec: 'MS20426AD3',
+        drillSize: '#40',
+        drillDiameterIn: 0.098,
+        edgeDistanceIn: 0.25,
+        chordIn: 30,
+        lines: [
+          {
+            code: 'FS',
+            name: 'Front spar',
+            surface: 'upper',
+            startIn: 0,
+            lengthIn: 14.5,
+            zones: [{ fromIn: 0, toIn: 14.5, pitchIn: 1 }],
+          },
+        ],
+        steps: ['Cleco the skin to the spars and ribs'],
+        changeNote: '',
+      },
+    });
+  if (made.status !== 201)
+    throw new Error(`the skin panel design was not made: ${made.status} ${JSON.stringify(made.body)}`);
   skinDesignId = made.body.id;
   browser = await launchBrowser();
   page = await phonePage(browser, base);
@@ -85,7 +112,9 @@ describe('a whole-wing study on the supplier’s phone', () => {
     // Nothing runs off the side: not the page, not the tables, not a number inside them.
     const overflow = await page.evaluate(() => {
       const wide = (el: Element) => el.scrollWidth > el.clientWidth + 1;
-      const cells = Array.from(document.querySelectorAll('[data-testid="wing-rib-table"] *, [data-testid="skin-panel-table"] *')).filter(wide);
+      const cells = Array.from(
+        document.querySelectorAll('[data-testid="wing-rib-table"] *, [data-testid="skin-panel-table"] *'),
+      ).filter(wide);
       return { page: document.documentElement.scrollWidth, cells: cells.length };
     });
     expect(overflow.page).toBeLessThanOrEqual(390);
@@ -112,22 +141,32 @@ describe('a whole-wing study on the supplier’s phone', () => {
     await visible('apply-result').scrollIntoViewIfNeeded();
     await page.screenshot({ path: path.join(SHOTS, 'wing-phone-applied.png') });
 
-    const studies = (await request(t.app).get('/api/studies').set(auth)).body.items as { id: string; name: string; kind: string }[];
+    const studies = (await request(t.app).get('/api/studies').set(auth)).body.items as {
+      id: string;
+      name: string;
+      kind: string;
+    }[];
     const mine = studies.find((s) => s.name === 'Left wing from the phone')!;
     expect(mine.kind).toBe('wing');
     const result = (await request(t.app).get(`/api/studies/${mine.id}`).set(auth)).body.result;
     const panel = result.skins.find((s: { name: string }) => s.name === 'W-101–W-102 upper');
-    const rec = panel.candidates.find((c: { gaugeIn: number; rivet: string }) => c.gaugeIn === panel.recommended.gaugeIn && c.rivet === panel.recommended.rivet);
+    const rec = panel.candidates.find(
+      (c: { gaugeIn: number; rivet: string }) =>
+        c.gaugeIn === panel.recommended.gaugeIn && c.rivet === panel.recommended.rivet,
+    );
     const design = (await request(t.app).get(`/api/designs/${skinDesignId}`).set(auth)).body;
     const draft = design.revisions.find((r: { status: string }) => r.status === 'draft');
     expect(draft).toMatchObject({ gaugeIn: panel.recommended.gaugeIn, rivetSpec: panel.recommended.rivet });
     // The draft's zones are the panel's recommended schedule, line by line.
-    expect(draft.lines.map((l: { zones: { pitchIn: number }[] }) => l.zones.map((z) => z.pitchIn)))
-      .toEqual(rec.lines.map((l: { zones: { pitchIn: number }[] }) => l.zones.map((z) => z.pitchIn)));
+    expect(draft.lines.map((l: { zones: { pitchIn: number }[] }) => l.zones.map((z) => z.pitchIn))).toEqual(
+      rec.lines.map((l: { zones: { pitchIn: number }[] }) => l.zones.map((z) => z.pitchIn)),
+    );
   });
 
   it('reads on a wide screen with the inputs beside the results', async () => {
-    const wide = await (await browser.newContext({ baseURL: new URL(page.url()).origin, viewport: { width: 1366, height: 900 } })).newPage();
+    const wide = await (
+      await browser.newContext({ baseURL: new URL(page.url()).origin, viewport: { width: 1366, height: 900 } })
+    ).newPage();
     await wide.goto('/');
     await wide.getByTestId('email').fill(DEMO_USERS.supplier.email);
     await wide.getByTestId('password').fill(DEMO_PASSWORD);

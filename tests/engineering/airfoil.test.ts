@@ -12,7 +12,6 @@ import {
 } from '@/server/engineering';
 import { refusal } from './refusal';
 
-
 const naca2412 = nacaGeometry('2412', 60).points;
 
 describe('NACA sections', () => {
@@ -68,7 +67,10 @@ describe('closing the trailing edge', () => {
 describe('uploaded coordinates', () => {
   it('are normalised to unit chord whatever their scale, position and rotation', () => {
     const angle = 0.2;
-    const moved = naca2412.map(([x, y]): Point => [50 + 60 * (x * Math.cos(angle) - y * Math.sin(angle)), -3 + 60 * (x * Math.sin(angle) + y * Math.cos(angle))]);
+    const moved = naca2412.map(([x, y]): Point => [
+      50 + 60 * (x * Math.cos(angle) - y * Math.sin(angle)),
+      -3 + 60 * (x * Math.sin(angle) + y * Math.cos(angle)),
+    ]);
     const { contour } = normaliseCoordinates(moved);
     contour.forEach(([x, y], i) => {
       expect(x).toBeCloseTo(naca2412[i][0], 6);
@@ -104,7 +106,10 @@ describe('uploaded coordinates', () => {
     };
     const reference = buildAirfoil({ kind: 'naca', designation: '2412' }, 400); // closed, like the re-panelled one
     for (const x of [0.02, 0.1, 0.3, 0.6, 0.9]) {
-      expect(upperY(a.points, a.leadingEdgeIndex, x)).toBeCloseTo(upperY(reference.points, reference.leadingEdgeIndex, x), 3);
+      expect(upperY(a.points, a.leadingEdgeIndex, x)).toBeCloseTo(
+        upperY(reference.points, reference.leadingEdgeIndex, x),
+        3,
+      );
     }
   });
 
@@ -136,7 +141,11 @@ describe('a closed contour (issue 9)', () => {
   // A list of points is a closed polygon: a last point that repeats the first changes nothing.
   const lift = (points: Point[]) => {
     const a = buildAirfoil({ kind: 'coordinates', points }, 160);
-    return { cl: liftCoefficientAt(solvePanelMethod(a.points, a.leadingEdgeIndex), degToRad(5)), gap: a.trailingEdgeGap, warnings: a.warnings };
+    return {
+      cl: liftCoefficientAt(solvePanelMethod(a.points, a.leadingEdgeIndex), degToRad(5)),
+      gap: a.trailingEdgeGap,
+      warnings: a.warnings,
+    };
   };
   const sharp = nacaGeometry('2412', 60, true).points; // closed trailing edge: the last point repeats the first
   const blunt = nacaGeometry('2412', 60).points; // open trailing edge, 0.25 % of chord

@@ -11,21 +11,44 @@ import {
 } from '@/server/engineering';
 
 const query = { material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'PULLED-4' };
-const test = (loadLb: number, outcome: CouponTest['outcome'], extra: Partial<CouponTest> = {}): CouponTest => ({ ...query, loadLb, outcome, ...extra });
+const test = (loadLb: number, outcome: CouponTest['outcome'], extra: Partial<CouponTest> = {}): CouponTest => ({
+  ...query,
+  loadLb,
+  outcome,
+  ...extra,
+});
 
 describe('allowables from coupon tests', () => {
   it('do not credit a clean result above a load that already deformed another coupon', () => {
-    const c = couponAllowables([test(10, 'no_deformation'), test(15, 'slight_deformation'), test(18, 'no_deformation')], query);
+    const c = couponAllowables(
+      [test(10, 'no_deformation'), test(15, 'slight_deformation'), test(18, 'no_deformation')],
+      query,
+    );
     expect(c.limitLb).toBe(10);
   });
 
   it('count excessive deformation as failure at ultimate', () => {
-    const c = couponAllowables([test(10, 'no_deformation'), test(20, 'slight_deformation'), test(25, 'excessive_deformation'), test(30, 'slight_deformation')], query);
+    const c = couponAllowables(
+      [
+        test(10, 'no_deformation'),
+        test(20, 'slight_deformation'),
+        test(25, 'excessive_deformation'),
+        test(30, 'slight_deformation'),
+      ],
+      query,
+    );
     expect(c.ultimateLb).toBe(20);
   });
 
   it('only use tests of the same material, gauge and rivet', () => {
-    const c = couponAllowables([test(10, 'no_deformation'), test(99, 'no_deformation', { rivetSpec: 'PULLED-5' }), test(99, 'no_deformation', { gaugeIn: 0.025 })], query);
+    const c = couponAllowables(
+      [
+        test(10, 'no_deformation'),
+        test(99, 'no_deformation', { rivetSpec: 'PULLED-5' }),
+        test(99, 'no_deformation', { gaugeIn: 0.025 }),
+      ],
+      query,
+    );
     expect(c.matched).toHaveLength(1);
     expect(c.limitLb).toBe(10);
   });
@@ -55,14 +78,22 @@ describe('joint allowables', () => {
     expect(a.tension.pullThroughUltimateLb).toBeCloseTo(DEFAULT_PULL_THROUGH_FRACTION * a.shear.bearingUltimateLb, 10);
     expect(a.tension.pullThroughUltimateLb).toBeCloseTo(0.08 * 88000 * 0.1285 * 0.025, 10);
     expect(a.tension.pullThroughLimitLb).toBeCloseTo(a.tension.pullThroughUltimateLb / 1.5, 10);
-    expect(a.warnings.join(' ')).toMatch(/no coupon data for 0.025 in 6061-T6 with MS20470AD4: pull-through allowable is a conservative fraction \(8 %\)/);
+    expect(a.warnings.join(' ')).toMatch(
+      /no coupon data for 0.025 in 6061-T6 with MS20470AD4: pull-through allowable is a conservative fraction \(8 %\)/,
+    );
   });
 
-  it('fall back below what the trade\'s coupons showed: under 13.5 lb limit in 0.020 in and under 20 lb ultimate in 0.016 in', () => {
+  it("fall back below what the trade's coupons showed: under 13.5 lb limit in 0.020 in and under 20 lb ultimate in 0.016 in", () => {
     // common practice (the trade's coupon results): the fallback must not be bolder than the tests.
-    expect(jointAllowables({ material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'PULLED-4' }).tension.limitLb).toBeLessThan(13.5);
-    expect(jointAllowables({ material: '6061-T6', gaugeIn: 0.016, rivetSpec: 'PULLED-4' }).tension.ultimateLb).toBeLessThan(20);
-    expect(jointAllowables({ material: '6061-T6', gaugeIn: 0.016, rivetSpec: 'MS20470AD4' }).tension.ultimateLb).toBeLessThan(20);
+    expect(jointAllowables({ material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'PULLED-4' }).tension.limitLb).toBeLessThan(
+      13.5,
+    );
+    expect(
+      jointAllowables({ material: '6061-T6', gaugeIn: 0.016, rivetSpec: 'PULLED-4' }).tension.ultimateLb,
+    ).toBeLessThan(20);
+    expect(
+      jointAllowables({ material: '6061-T6', gaugeIn: 0.016, rivetSpec: 'MS20470AD4' }).tension.ultimateLb,
+    ).toBeLessThan(20);
   });
 
   it('let thin sheet bear less than the rivet shears: bearing governs a 3/16 rivet in 0.020 in', () => {
@@ -80,7 +111,9 @@ describe('joint allowables', () => {
   });
 
   it('refuse an unknown material or rivet', () => {
-    expect(() => jointAllowables({ material: 'balsa', gaugeIn: 0.02, rivetSpec: 'MS20470AD4' })).toThrow(/unknown sheet material/);
+    expect(() => jointAllowables({ material: 'balsa', gaugeIn: 0.02, rivetSpec: 'MS20470AD4' })).toThrow(
+      /unknown sheet material/,
+    );
     expect(() => jointAllowables({ material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'NAIL-4' })).toThrow(/unknown rivet/);
   });
 });
@@ -99,7 +132,8 @@ describe('combined tension and shear', () => {
 });
 
 describe('the pull-through fallback without coupons (issue 9)', () => {
-  const fallback = (gaugeIn: number, rivetSpec = 'PULLED-4', coupons: CouponTest[] = []) => jointAllowables({ material: '6061-T6', gaugeIn, rivetSpec, coupons }).tension;
+  const fallback = (gaugeIn: number, rivetSpec = 'PULLED-4', coupons: CouponTest[] = []) =>
+    jointAllowables({ material: '6061-T6', gaugeIn, rivetSpec, coupons }).tension;
 
   it('depends on the gauge and falls with thinner sheet, for pulled rivets too (whose own shear does not)', () => {
     // Rivet shear (120 lb) governed the joint's shear strength from 0.011 in up: the old fallback was
@@ -117,7 +151,9 @@ describe('the pull-through fallback without coupons (issue 9)', () => {
 
   it("never exceeds what the rivet's own coupons show in the same or a thicker gauge", () => {
     // The trade's coupons (common practice): PULLED-4 in 0.016 in deformed excessively at 20 lb.
-    const zero: CouponTest[] = [{ material: '6061-T6', gaugeIn: 0.016, rivetSpec: 'PULLED-4', loadLb: 20, outcome: 'excessive_deformation' }];
+    const zero: CouponTest[] = [
+      { material: '6061-T6', gaugeIn: 0.016, rivetSpec: 'PULLED-4', loadLb: 20, outcome: 'excessive_deformation' },
+    ];
     // The same rivet in 0.016 in 2024-T3, and nothing of 6061-T6 at that gauge: the 6061-T6 flange of
     // 0.016 in gets no more than those coupons gave.
     const other = zero.map((t) => ({ ...t, material: '2024-T3' }));
@@ -140,7 +176,9 @@ describe('the pull-through fallback without coupons (issue 9)', () => {
     const t = jointAllowables({ material: '6061-T6', gaugeIn: 0.016, rivetSpec: 'MS20470AD4', coupons });
     expect(t.tension.pullThroughLimitLb).toBe(5);
     expect(t.tension.pullThroughUltimateLb).toBe(6);
-    expect(t.warnings.join(' ')).toMatch(/held to what the coupons of the same rivet in 0\.02 in 6061-T6 or thicker show/);
+    expect(t.warnings.join(' ')).toMatch(
+      /held to what the coupons of the same rivet in 0\.02 in 6061-T6 or thicker show/,
+    );
   });
 
   it('is never above any coupon allowable of the same rivet at the same or a thicker gauge (random coupon sets)', () => {

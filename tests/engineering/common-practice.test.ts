@@ -19,10 +19,16 @@ import {
 } from '@/server/engineering';
 import { refusal } from './refusal';
 
-
 // common practice: the trade's coupon results for 6061-T6 flanges with a 1/8 in pulled rivet.
 const coupons: CouponTest[] = [
-  { material: '6061-T6', gaugeIn: 0.016, rivetSpec: 'PULLED-4', loadLb: 20, outcome: 'excessive_deformation', note: 'hole elongated' },
+  {
+    material: '6061-T6',
+    gaugeIn: 0.016,
+    rivetSpec: 'PULLED-4',
+    loadLb: 20,
+    outcome: 'excessive_deformation',
+    note: 'hole elongated',
+  },
   { material: '6061-T6', gaugeIn: 0.016, rivetSpec: 'PULLED-4', loadLb: 30, outcome: 'excessive_deformation' },
   { material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'PULLED-4', loadLb: 13.5, outcome: 'no_deformation' },
   { material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'PULLED-4', loadLb: 20, outcome: 'slight_deformation' },
@@ -45,7 +51,10 @@ describe('the per-rivet suction load p × pitch × rib spacing', () => {
   });
 
   it('makes that 30 lb ultimate with the factor 1.5', () => {
-    expect(ULTIMATE_FACTOR * rivetTensionLb({ cp, qPsi, pitchIn: 3, tributaryWidthIn: ribSpacingIn })).toBeCloseTo(30, 10);
+    expect(ULTIMATE_FACTOR * rivetTensionLb({ cp, qPsi, pitchIn: 3, tributaryWidthIn: ribSpacingIn })).toBeCloseTo(
+      30,
+      10,
+    );
   });
 
   it('gives 13.3 lb limit and 20 lb ultimate at 2 in pitch at the same station', () => {
@@ -75,9 +84,23 @@ describe('coupon outcomes for 6061-T6 flanges', () => {
   });
 
   // A short nose line at the suction that gives 20 lb at 3 in pitch, for a rivet allowed up to 2 in.
-  const noseLine: StationLoad[] = Array.from({ length: 101 }, (_, i) => ({ stationIn: 0.5 + i * 0.1, alongIn: i * 0.1, limitTensionLbPerIn: suctionPsi * ribSpacingIn }));
+  const noseLine: StationLoad[] = Array.from({ length: 101 }, (_, i) => ({
+    stationIn: 0.5 + i * 0.1,
+    alongIn: i * 0.1,
+    limitTensionLbPerIn: suctionPsi * ribSpacingIn,
+  }));
   const schedule = (gaugeIn: number) =>
-    pitchSchedule({ line: 'upper', stations: noseLine, material: '6061-T6', gaugeIn, rivetSpec: 'PULLED-4', coupons, maxPitchDiameters: 16, pitchIncrementIn: 0.25, maxZones: 3 });
+    pitchSchedule({
+      line: 'upper',
+      stations: noseLine,
+      material: '6061-T6',
+      gaugeIn,
+      rivetSpec: 'PULLED-4',
+      coupons,
+      maxPitchDiameters: 16,
+      pitchIncrementIn: 0.25,
+      maxZones: 3,
+    });
 
   it('make 0.020 in at 2 in pitch at the nose acceptable at limit and at ultimate', () => {
     const s = schedule(0.02);
@@ -95,7 +118,17 @@ describe('coupon outcomes for 6061-T6 flanges', () => {
   });
 
   it('make 0.020 in unacceptable at 3 in pitch, where the 20 lb limit load exceeds the 13.5 lb no-deformation load', () => {
-    const s = pitchSchedule({ line: 'upper', stations: noseLine, material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'PULLED-4', coupons, maxPitchDiameters: 24, pitchIncrementIn: 0.5, maxZones: 1 });
+    const s = pitchSchedule({
+      line: 'upper',
+      stations: noseLine,
+      material: '6061-T6',
+      gaugeIn: 0.02,
+      rivetSpec: 'PULLED-4',
+      coupons,
+      maxPitchDiameters: 24,
+      pitchIncrementIn: 0.5,
+      maxZones: 1,
+    });
     expect(s.zones[0].pitchIn).toBeLessThan(3);
   });
 });
@@ -103,7 +136,14 @@ describe('coupon outcomes for 6061-T6 flanges', () => {
 describe('zones along a conventional positive-lift distribution', () => {
   // common practice: the closest pitch at the nose, opening aft as the suction falls off
   const input: RibStudyInput = {
-    kit: { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 58, stallSpeedKeas: 45, cruiseSpeedKeas: 110, category: 'utility' },
+    kit: {
+      weightLb: 1320,
+      wingAreaSqFt: 120,
+      meanChordIn: 58,
+      stallSpeedKeas: 45,
+      cruiseSpeedKeas: 110,
+      category: 'utility',
+    },
     airfoil: { kind: 'naca', designation: '2412' },
     rib: { chordIn: 58, spacingIn: 14.5 },
     lines: [{ name: 'upper', surface: 'upper', startXc: 0.01, endXc: 0.9 }],
@@ -146,7 +186,14 @@ describe('pulled rivets of the kind used in light kits', () => {
 });
 
 describe('the engine refuses nonsense and names the field', () => {
-  const kit = { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 58, stallSpeedKeas: 45, cruiseSpeedKeas: 110, category: 'utility' as const };
+  const kit = {
+    weightLb: 1320,
+    wingAreaSqFt: 120,
+    meanChordIn: 58,
+    stallSpeedKeas: 45,
+    cruiseSpeedKeas: 110,
+    category: 'utility' as const,
+  };
   const study: RibStudyInput = {
     kit,
     airfoil: { kind: 'naca', designation: '2412' },
@@ -176,7 +223,17 @@ describe('the engine refuses nonsense and names the field', () => {
   });
 
   it('refuses an airfoil of fewer than ten points', () => {
-    const points: [number, number][] = [[1, 0], [0.7, 0.05], [0.4, 0.07], [0.1, 0.04], [0, 0], [0.1, -0.03], [0.4, -0.04], [0.7, -0.03], [1, 0]];
+    const points: [number, number][] = [
+      [1, 0],
+      [0.7, 0.05],
+      [0.4, 0.07],
+      [0.1, 0.04],
+      [0, 0],
+      [0.1, -0.03],
+      [0.4, -0.04],
+      [0.7, -0.03],
+      [1, 0],
+    ];
     const e = refusal(() => ribStudy({ ...study, airfoil: { kind: 'coordinates', points } }));
     expect(e.field).toBe('airfoil.points');
     expect(e.reason).toMatch(/at least 10/);
@@ -185,8 +242,19 @@ describe('the engine refuses nonsense and names the field', () => {
   it('refuses an airfoil outline that crosses itself', () => {
     // The "lower" surface climbs above the upper one half-way along: a figure of eight.
     const points: [number, number][] = [
-      [1, 0], [0.8, 0.03], [0.6, 0.05], [0.4, 0.06], [0.2, 0.05], [0.05, 0.03], [0, 0],
-      [0.05, -0.03], [0.2, -0.04], [0.4, 0.09], [0.6, -0.03], [0.8, -0.02], [1, 0],
+      [1, 0],
+      [0.8, 0.03],
+      [0.6, 0.05],
+      [0.4, 0.06],
+      [0.2, 0.05],
+      [0.05, 0.03],
+      [0, 0],
+      [0.05, -0.03],
+      [0.2, -0.04],
+      [0.4, 0.09],
+      [0.6, -0.03],
+      [0.8, -0.02],
+      [1, 0],
     ];
     const e = refusal(() => ribStudy({ ...study, airfoil: { kind: 'coordinates', points } }));
     expect(e.field).toBe('airfoil.points');

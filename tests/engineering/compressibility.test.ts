@@ -75,7 +75,16 @@ describe('Mach number from knots EAS and altitude (ISA)', () => {
 });
 
 describe('a corrected distribution', () => {
-  const cp = { upper: [{ xc: 0.05, cp: -1.2 }, { xc: 0.5, cp: -0.5 }], lower: [{ xc: 0.05, cp: 0.3 }, { xc: 0.5, cp: 0.1 }] };
+  const cp = {
+    upper: [
+      { xc: 0.05, cp: -1.2 },
+      { xc: 0.5, cp: -0.5 },
+    ],
+    lower: [
+      { xc: 0.05, cp: 0.3 },
+      { xc: 0.5, cp: 0.1 },
+    ],
+  };
 
   it('applies the rule to every sample and reports the peak', () => {
     const d = correctCpDistribution(cp, 0.3, 'karman-tsien');
@@ -117,9 +126,14 @@ describe('bounds', () => {
 
   it('refuses a distribution with a sample out of range or too many samples, naming the sample or the list', () => {
     const ok = [{ xc: 0.1, cp: -1 }];
-    expect(refusal(() => correctCpDistribution({ upper: [...ok, { xc: 0.5, cp: 2 }], lower: ok }, 0.3, 'karman-tsien')).field).toBe('cp.upper[1].cp');
+    expect(
+      refusal(() => correctCpDistribution({ upper: [...ok, { xc: 0.5, cp: 2 }], lower: ok }, 0.3, 'karman-tsien'))
+        .field,
+    ).toBe('cp.upper[1].cp');
     const many = Array.from({ length: 2001 }, (_, i) => ({ xc: i / 2001, cp: -0.5 }));
-    expect(refusal(() => correctCpDistribution({ upper: ok, lower: many }, 0.3, 'karman-tsien')).field).toBe('cp.lower');
+    expect(refusal(() => correctCpDistribution({ upper: ok, lower: many }, 0.3, 'karman-tsien')).field).toBe(
+      'cp.lower',
+    );
   });
 
   it('refuses an unknown rule, a speed or altitude out of range', () => {

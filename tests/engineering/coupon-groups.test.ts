@@ -1,13 +1,21 @@
 import { groupCouponAllowables, type CouponOutcome } from '@/server/engineering';
 
-const t = (gaugeIn: number, loadLb: number, outcome: CouponOutcome, rivetSpec = 'PULLED-4', material = '6061-T6') =>
-  ({ material, gaugeIn, rivetSpec, loadLb, outcome });
+const t = (gaugeIn: number, loadLb: number, outcome: CouponOutcome, rivetSpec = 'PULLED-4', material = '6061-T6') => ({
+  material,
+  gaugeIn,
+  rivetSpec,
+  loadLb,
+  outcome,
+});
 const basis = (tests: ReturnType<typeof t>[]) => groupCouponAllowables(tests)[0];
 
 // The flange coupons of the trade (common practice): 6061-T6, pulled 1/8 in rivets.
 const seed = [
-  t(0.016, 20, 'excessive_deformation'), t(0.016, 30, 'excessive_deformation'),
-  t(0.02, 13.5, 'no_deformation'), t(0.02, 20, 'slight_deformation'), t(0.02, 30, 'slight_deformation'),
+  t(0.016, 20, 'excessive_deformation'),
+  t(0.016, 30, 'excessive_deformation'),
+  t(0.02, 13.5, 'no_deformation'),
+  t(0.02, 20, 'slight_deformation'),
+  t(0.02, 30, 'slight_deformation'),
 ];
 
 describe('allowables from coupon tests, grouped by material, gauge and rivet', () => {
@@ -25,8 +33,14 @@ describe('allowables from coupon tests, grouped by material, gauge and rivet', (
   });
 
   it('does not credit a good result at a load where another coupon of the set already did worse', () => {
-    expect(basis([t(0.025, 20, 'no_deformation'), t(0.025, 25, 'slight_deformation'), t(0.025, 30, 'no_deformation')]).limitLb).toBe(20);
-    expect(basis([t(0.025, 40, 'failure'), t(0.025, 45, 'slight_deformation'), t(0.025, 35, 'slight_deformation')]).ultimateLb).toBe(35);
+    expect(
+      basis([t(0.025, 20, 'no_deformation'), t(0.025, 25, 'slight_deformation'), t(0.025, 30, 'no_deformation')])
+        .limitLb,
+    ).toBe(20);
+    expect(
+      basis([t(0.025, 40, 'failure'), t(0.025, 45, 'slight_deformation'), t(0.025, 35, 'slight_deformation')])
+        .ultimateLb,
+    ).toBe(35);
   });
 
   it('counts excessive deformation as a failure at ultimate, but slight deformation as carried', () => {
@@ -37,8 +51,10 @@ describe('allowables from coupon tests, grouped by material, gauge and rivet', (
 
   it('keeps each rivet and each material apart, and treats 0.050 and 0.051 in as one stock gauge', () => {
     const groups = groupCouponAllowables([
-      t(0.05, 80, 'no_deformation'), t(0.051, 90, 'no_deformation'),
-      t(0.05, 80, 'no_deformation', 'MS20470AD4'), t(0.05, 80, 'no_deformation', 'PULLED-4', '2024-T3'),
+      t(0.05, 80, 'no_deformation'),
+      t(0.051, 90, 'no_deformation'),
+      t(0.05, 80, 'no_deformation', 'MS20470AD4'),
+      t(0.05, 80, 'no_deformation', 'PULLED-4', '2024-T3'),
     ]);
     expect(groups).toHaveLength(3);
     const same = groups.find((g) => g.material === '6061-T6' && g.rivetSpec === 'PULLED-4')!;
@@ -47,7 +63,9 @@ describe('allowables from coupon tests, grouped by material, gauge and rivet', (
   });
 
   it('matches material and rivet whatever their case and spaces, whatever the supplier typed', () => {
-    expect(groupCouponAllowables([t(0.02, 10, 'no_deformation', 'pulled-4 ', '6061-t6'), t(0.02, 12, 'no_deformation')])).toHaveLength(1);
+    expect(
+      groupCouponAllowables([t(0.02, 10, 'no_deformation', 'pulled-4 ', '6061-t6'), t(0.02, 12, 'no_deformation')]),
+    ).toHaveLength(1);
   });
 
   it('lists the groups by material, then gauge, then rivet, and each group’s tests by load', () => {
@@ -56,4 +74,3 @@ describe('allowables from coupon tests, grouped by material, gauge and rivet', (
     expect(groups[1].tests.map((x) => x.loadLb)).toEqual([13.5, 20, 30]);
   });
 });
-

@@ -1,14 +1,34 @@
-import { designConditions, dynamicPressurePsi, estimatedWingLiftSlope, gustVelocitiesFps, type KitInput } from '@/server/engineering';
+import {
+  designConditions,
+  dynamicPressurePsi,
+  estimatedWingLiftSlope,
+  gustVelocitiesFps,
+  type KitInput,
+} from '@/server/engineering';
 import { refusal } from './refusal';
 
-const kit: KitInput = { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 58, liftSlopePerRad: 4.8, stallSpeedKeas: 45, category: 'normal' };
-
+const kit: KitInput = {
+  weightLb: 1320,
+  wingAreaSqFt: 120,
+  meanChordIn: 58,
+  liftSlopePerRad: 4.8,
+  stallSpeedKeas: 45,
+  category: 'normal',
+};
 
 describe('design conditions of a kit', () => {
   const d = designConditions(kit);
 
   it('cover both maneuver corners, the gusts at VC and VD both ways and the negative maneuver', () => {
-    expect(d.conditions.map((c) => c.id)).toEqual(['maneuver-up-va', 'maneuver-up-vd', 'gust-up-vc', 'gust-up-vd', 'maneuver-down-vc', 'gust-down-vc', 'gust-down-vd']);
+    expect(d.conditions.map((c) => c.id)).toEqual([
+      'maneuver-up-va',
+      'maneuver-up-vd',
+      'gust-up-vc',
+      'gust-up-vd',
+      'maneuver-down-vc',
+      'gust-down-vc',
+      'gust-down-vd',
+    ]);
   });
 
   it('ask each condition for CL = nW/(qS), with q in psi', () => {
@@ -20,7 +40,10 @@ describe('design conditions of a kit', () => {
 
   it('put the positive maneuver at VA exactly at the stall CL, W/(qS) at the stall speed', () => {
     const va = d.conditions.find((c) => c.id === 'maneuver-up-va')!;
-    expect(va.clNeeded).toBeCloseTo(kit.weightLb / (dynamicPressurePsi(kit.stallSpeedKeas) * kit.wingAreaSqFt * 144), 10);
+    expect(va.clNeeded).toBeCloseTo(
+      kit.weightLb / (dynamicPressurePsi(kit.stallSpeedKeas) * kit.wingAreaSqFt * 144),
+      10,
+    );
   });
 
   it('use the rule minimum cruise and dive speeds when none are given', () => {
@@ -54,7 +77,9 @@ describe('speeds given by the supplier', () => {
   });
 
   it('refuse a dive speed not above the cruise speed', () => {
-    expect(refusal(() => designConditions({ ...kit, cruiseSpeedKeas: 140, diveSpeedKeas: 130 })).field).toBe('kit.diveSpeedKeas');
+    expect(refusal(() => designConditions({ ...kit, cruiseSpeedKeas: 140, diveSpeedKeas: 130 })).field).toBe(
+      'kit.diveSpeedKeas',
+    );
   });
 
   it('refuse a stall speed above the minimum cruise speed when no cruise speed is given', () => {
@@ -86,6 +111,8 @@ describe('the gust formula inputs', () => {
   });
 
   it('refuse an unknown category', () => {
-    expect(refusal(() => designConditions({ ...kit, category: 'sporty' as KitInput['category'] })).field).toBe('kit.category');
+    expect(refusal(() => designConditions({ ...kit, category: 'sporty' as KitInput['category'] })).field).toBe(
+      'kit.category',
+    );
   });
 });

@@ -9,7 +9,14 @@ import {
 } from '@/server/engineering';
 import { refusal } from './refusal';
 
-const kit: KitInput = { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 58, liftSlopePerRad: 4.8, stallSpeedKeas: 45, category: 'normal' };
+const kit: KitInput = {
+  weightLb: 1320,
+  wingAreaSqFt: 120,
+  meanChordIn: 58,
+  liftSlopePerRad: 4.8,
+  stallSpeedKeas: 45,
+  category: 'normal',
+};
 
 describe('flaps extended (14 CFR 23.345)', () => {
   const f = flapConditions(kit, { stallSpeedKeas: 40 });
@@ -58,7 +65,9 @@ describe('flaps extended (14 CFR 23.345)', () => {
   it('refuse a flapped stall speed above the clean one, or out of range, naming the field', () => {
     expect(refusal(() => flapConditions(kit, { stallSpeedKeas: 50 })).field).toBe('flaps.stallSpeedKeas');
     expect(refusal(() => flapConditions(kit, { stallSpeedKeas: 10 })).field).toBe('flaps.stallSpeedKeas');
-    expect(refusal(() => flapConditions(kit, { stallSpeedKeas: 40, designSpeedKeas: 1e6 })).field).toBe('flaps.designSpeedKeas');
+    expect(refusal(() => flapConditions(kit, { stallSpeedKeas: 40, designSpeedKeas: 1e6 })).field).toBe(
+      'flaps.designSpeedKeas',
+    );
     expect(refusal(() => flapConditions({ ...kit, weightLb: 1e9 }, { stallSpeedKeas: 40 })).field).toBe('kit.weightLb');
   });
 });
@@ -83,7 +92,13 @@ describe('the negative corners of the envelope at VC and VD (14 CFR 23.333(d))',
     expect(c.atDive.speedKeas).toBeCloseTo(d.speeds.diveKeas, 12);
     // This light kit's down-gusts are the corners; a heavy acrobatic one's maneuver factor can be.
     expect(c.atCruise.governing).toBe('gust');
-    const heavy = negativeEnvelopeCorners({ ...kit, weightLb: 3000, wingAreaSqFt: 100, meanChordIn: 50, category: 'acrobatic' });
+    const heavy = negativeEnvelopeCorners({
+      ...kit,
+      weightLb: 3000,
+      wingAreaSqFt: 100,
+      meanChordIn: 50,
+      category: 'acrobatic',
+    });
     expect(heavy.atCruise.governing).toBe('maneuver');
     expect(heavy.atCruise.n).toBe(-3);
   });
@@ -92,7 +107,12 @@ describe('the negative corners of the envelope at VC and VD (14 CFR 23.333(d))',
     const all = envelopeConditions(kit, { stallSpeedKeas: 40 });
     const ids = all.conditions.map((c) => c.id);
     expect(ids.slice(0, 7)).toEqual(designConditions(kit).conditions.map((c) => c.id));
-    expect(ids.slice(7)).toEqual(['maneuver-down-vd', 'flaps-maneuver-up-vf', 'flaps-gust-up-vf', 'flaps-gust-down-vf']);
+    expect(ids.slice(7)).toEqual([
+      'maneuver-down-vd',
+      'flaps-maneuver-up-vf',
+      'flaps-gust-up-vf',
+      'flaps-gust-down-vf',
+    ]);
     expect(new Set(ids).size).toBe(ids.length);
     expect(envelopeConditions(kit).conditions).toHaveLength(8);
     expect(all.rules.join(' ')).toMatch(/23\.333\(d\)/);

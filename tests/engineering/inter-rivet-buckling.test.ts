@@ -1,11 +1,26 @@
-import { endFixity, findRivet, interRivetBuckling, interRivetElasticStressPsi, interRivetPitchLimitIn, rivetHeadOf, END_FIXITY, type InterRivetInput } from '@/server/engineering';
+import {
+  endFixity,
+  findRivet,
+  interRivetBuckling,
+  interRivetElasticStressPsi,
+  interRivetPitchLimitIn,
+  rivetHeadOf,
+  END_FIXITY,
+  type InterRivetInput,
+} from '@/server/engineering';
 import { refusal } from './refusal';
 
 // Inter-rivet buckling σ_ir = 0.9·c·E·(t/p)²: Bruhn, Analysis and Design of Flight Vehicle Structures,
 // ch. C7. The end-fixity values c by rivet head are from memory: verify against Bruhn C7. Values below by
 // hand from the formula; E = 10.1e6 psi and F_cy = 35 ksi (6061-T6, MMPDS, from memory).
 
-const skin: InterRivetInput = { head: 'universal', elasticModulusPsi: 10.1e6, compressiveYieldPsi: 35000, thicknessIn: 0.032, appliedStressPsi: 10000 };
+const skin: InterRivetInput = {
+  head: 'universal',
+  elasticModulusPsi: 10.1e6,
+  compressiveYieldPsi: 35000,
+  thicknessIn: 0.032,
+  appliedStressPsi: 10000,
+};
 
 describe('end fixity by rivet head', () => {
   it('is 4.0 flat head, 3.5 spot weld, 3.0 brazier head, 1.0 countersunk (Bruhn C7, from memory, verify)', () => {
@@ -13,7 +28,8 @@ describe('end fixity by rivet head', () => {
     expect(END_FIXITY.spotweld.c).toBe(3.5);
     expect(END_FIXITY.brazier.c).toBe(3.0);
     expect(END_FIXITY.countersunk.c).toBe(1.0);
-    for (const h of ['flat', 'spotweld', 'brazier', 'countersunk'] as const) expect(END_FIXITY[h].source).toMatch(/from memory: verify/);
+    for (const h of ['flat', 'spotweld', 'brazier', 'countersunk'] as const)
+      expect(END_FIXITY[h].source).toMatch(/from memory: verify/);
   });
 
   it('takes universal and pulled protruding heads as the brazier head, and says it is our assumption', () => {
@@ -39,8 +55,10 @@ describe('the inter-rivet buckling stress', () => {
     expect(r.atPitch!.marginOfSafety).toBeCloseTo(24032.94 / 10000 - 1, 4);
   });
 
-  it('is a quarter of the flat head\'s with a countersunk head (c 1.0 against 4.0)', () => {
-    expect(interRivetElasticStressPsi(1, 10.1e6, 0.032, 2) / interRivetElasticStressPsi(4, 10.1e6, 0.032, 2)).toBeCloseTo(0.25, 12);
+  it("is a quarter of the flat head's with a countersunk head (c 1.0 against 4.0)", () => {
+    expect(
+      interRivetElasticStressPsi(1, 10.1e6, 0.032, 2) / interRivetElasticStressPsi(4, 10.1e6, 0.032, 2),
+    ).toBeCloseTo(0.25, 12);
   });
 });
 

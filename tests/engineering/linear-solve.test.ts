@@ -17,7 +17,7 @@ describe('LU with partial pivoting', () => {
   it('solves a large random system to a small residual, and reuses its factors for a second right-hand side', () => {
     const n = 120;
     let seed = 7;
-    const rand = () => ((seed = (seed * 16807) % 2147483647) / 2147483647) - 0.5;
+    const rand = () => (seed = (seed * 16807) % 2147483647) / 2147483647 - 0.5;
     const a = Array.from({ length: n }, () => Array.from({ length: n }, rand));
     const f = luFactor(a);
     for (const b of [Array.from({ length: n }, rand), Array.from({ length: n }, rand)]) {
@@ -27,7 +27,7 @@ describe('LU with partial pivoting', () => {
     }
   });
 
-  it('factors a matrix handed over in place to the very factors a copy gives (the panel method\'s way)', () => {
+  it("factors a matrix handed over in place to the very factors a copy gives (the panel method's way)", () => {
     // The first-pivot-zero system above: x = (1, 2, 3).
     const rows = [
       [0, 2, 1],

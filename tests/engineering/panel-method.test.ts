@@ -40,18 +40,22 @@ describe('the panel method converges to the exact Joukowski solution', () => {
     [[-0.1, 0], 5],
     [[-0.1, 0.1], 0],
     [[-0.1, 0.1], 5],
-  ] as [[number, number], number][])('as the panels double from 40 to 320: the CL and rms Cp errors at least halve, the largest Cp error falls (centre %p, %p°)', (centre, deg) => {
-    const errors = [40, 80, 160, 320].map((n) => joukowskiErrors(centre, n, deg));
-    for (let i = 1; i < errors.length; i++) {
-      expect(errors[i].cl).toBeLessThan(errors[i - 1].cl / 2);
-      expect(errors[i].rms).toBeLessThan(errors[i - 1].rms / 2);
-      expect(errors[i].max).toBeLessThan(errors[i - 1].max);
-    }
-  });
+  ] as [[number, number], number][])(
+    'as the panels double from 40 to 320: the CL and rms Cp errors at least halve, the largest Cp error falls (centre %p, %p°)',
+    (centre, deg) => {
+      const errors = [40, 80, 160, 320].map((n) => joukowskiErrors(centre, n, deg));
+      for (let i = 1; i < errors.length; i++) {
+        expect(errors[i].cl).toBeLessThan(errors[i - 1].cl / 2);
+        expect(errors[i].rms).toBeLessThan(errors[i - 1].rms / 2);
+        expect(errors[i].max).toBeLessThan(errors[i - 1].max);
+      }
+    },
+  );
 });
 
 describe('the panel method on NACA sections', () => {
-  const flowOf = (designation: string, panels = 160) => solvePanelMethod(buildAirfoil({ kind: 'naca', designation }, panels).points);
+  const flowOf = (designation: string, panels = 160) =>
+    solvePanelMethod(buildAirfoil({ kind: 'naca', designation }, panels).points);
 
   it('gives a symmetric section no lift at zero angle and equal pressures on both sides', () => {
     const flow = flowOf('0012');
@@ -65,7 +69,9 @@ describe('the panel method on NACA sections', () => {
     const thin = flowOf('0001');
     const thick = flowOf('0012');
     expect(Math.abs(thin.clSin / THIN_AIRFOIL_LIFT_SLOPE - 1)).toBeLessThan(0.01);
-    expect(Math.abs(thick.clSin / THIN_AIRFOIL_LIFT_SLOPE - 1)).toBeGreaterThan(Math.abs(thin.clSin / THIN_AIRFOIL_LIFT_SLOPE - 1));
+    expect(Math.abs(thick.clSin / THIN_AIRFOIL_LIFT_SLOPE - 1)).toBeGreaterThan(
+      Math.abs(thin.clSin / THIN_AIRFOIL_LIFT_SLOPE - 1),
+    );
     const alpha = degToRad(5);
     const p = pressureDistribution(thin, alpha);
     for (const x of [0.1, 0.5]) {
@@ -82,7 +88,8 @@ describe('the panel method on NACA sections', () => {
 
   it('finds the angle that gives the lift coefficient asked for, up and down', () => {
     const flow = flowOf('2412');
-    for (const cl of [-0.8, 0, 0.5, 1.6]) expect(liftCoefficientAt(flow, alphaForLiftCoefficient(flow, cl))).toBeCloseTo(cl, 10);
+    for (const cl of [-0.8, 0, 0.5, 1.6])
+      expect(liftCoefficientAt(flow, alphaForLiftCoefficient(flow, cl))).toBeCloseTo(cl, 10);
   });
 
   it('refuses a lift coefficient no section can give', () => {
@@ -93,7 +100,10 @@ describe('the panel method on NACA sections', () => {
     // Turning the free stream by α and turning the airfoil by −α are the same flow.
     const alpha = degToRad(6);
     const points = buildAirfoil({ kind: 'naca', designation: '4412' }, 120).points;
-    const turned = points.map(([x, y]): [number, number] => [x * Math.cos(alpha) + y * Math.sin(alpha), -x * Math.sin(alpha) + y * Math.cos(alpha)]);
+    const turned = points.map(([x, y]): [number, number] => [
+      x * Math.cos(alpha) + y * Math.sin(alpha),
+      -x * Math.sin(alpha) + y * Math.cos(alpha),
+    ]);
     const byNode = (pts: [number, number][], a: number) => {
       const flow = solvePanelMethod(pts);
       const p = pressureDistribution(flow, a);

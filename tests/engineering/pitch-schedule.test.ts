@@ -1,4 +1,9 @@
-import { pitchSchedule, type PitchScheduleInput, type PitchScheduleResult, type StationLoad } from '@/server/engineering';
+import {
+  pitchSchedule,
+  type PitchScheduleInput,
+  type PitchScheduleResult,
+  type StationLoad,
+} from '@/server/engineering';
 import { refusal } from './refusal';
 
 /** Stations every 0.05 in along a straight line of the given length, with the pull w(x) in lb/in. */
@@ -23,10 +28,11 @@ const base: Omit<PitchScheduleInput, 'stations'> = {
 // A suction that falls off from the nose aft, as on a lifting upper surface.
 const fallingOff = (x: number) => 40 * Math.exp(-x / 6) + 4;
 
-
 /** The largest pull anywhere between two neighbouring holes, from the stations themselves. */
 function largestPullBetween(stations: StationLoad[], a: number, b: number): number {
-  return Math.max(...stations.filter((s) => s.alongIn >= a - 0.05 && s.alongIn <= b + 0.05).map((s) => s.limitTensionLbPerIn));
+  return Math.max(
+    ...stations.filter((s) => s.alongIn >= a - 0.05 && s.alongIn <= b + 0.05).map((s) => s.limitTensionLbPerIn),
+  );
 }
 
 function expectEveryGapCarriesItsLoad(s: PitchScheduleResult, stations: StationLoad[]) {
@@ -75,16 +81,20 @@ describe('a pitch schedule', () => {
       expect(s.zones[i].pitchIn).toBeGreaterThan(s.zones[i - 1].pitchIn);
       expect(s.zones[i].fromAlongIn).toBeCloseTo(s.zones[i - 1].toAlongIn, 12);
     }
-    for (const z of s.zones) expect(z.pitchIn === 0.375 || Math.abs(z.pitchIn / 0.125 - Math.round(z.pitchIn / 0.125)) < 1e-9).toBe(true);
+    for (const z of s.zones)
+      expect(z.pitchIn === 0.375 || Math.abs(z.pitchIn / 0.125 - Math.round(z.pitchIn / 0.125)) < 1e-9).toBe(true);
   });
 
-  it('counts every hole in exactly one zone and reports each zone\'s worst rivet', () => {
+  it("counts every hole in exactly one zone and reports each zone's worst rivet", () => {
     expect(s.zones.reduce((n, z) => n + z.count, 0)).toBe(s.holes.length);
     const lowest = (ms: (number | null)[]) => Math.min(...ms.map((m) => m ?? Infinity));
     s.zones.forEach((z, i) => {
       const holes = s.holes.filter((h) => h.zone === i);
       expect(holes).toHaveLength(z.count);
-      expect(lowest([z.msLimit, z.msUltimate])).toBeCloseTo(Math.min(...holes.map((h) => lowest([h.msLimit, h.msUltimate]))), 12);
+      expect(lowest([z.msLimit, z.msUltimate])).toBeCloseTo(
+        Math.min(...holes.map((h) => lowest([h.msLimit, h.msUltimate]))),
+        12,
+      );
     });
   });
 
@@ -199,7 +209,13 @@ describe('the end rivets of a line (issue 9)', () => {
   // Coupons fix the allowables at 10 lb limit and 15 lb ultimate (1.5 × 10: both criteria alike).
   const coupons = [
     { material: '6061-T6', gaugeIn: 0.032, rivetSpec: 'MS20470AD4', loadLb: 10, outcome: 'no_deformation' as const },
-    { material: '6061-T6', gaugeIn: 0.032, rivetSpec: 'MS20470AD4', loadLb: 15, outcome: 'slight_deformation' as const },
+    {
+      material: '6061-T6',
+      gaugeIn: 0.032,
+      rivetSpec: 'MS20470AD4',
+      loadLb: 15,
+      outcome: 'slight_deformation' as const,
+    },
   ];
   const stations = line(6, () => 22);
   const s = pitchSchedule({ ...base, stations, coupons, pitchIncrementIn: 0.01, maxZones: 3 });

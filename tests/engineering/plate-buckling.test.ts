@@ -1,4 +1,12 @@
-import { johnsonElasticFor, johnsonReduced, panelBuckling, plateBucklingStressPsi, sheetBucklingProperties, PLATE_BUCKLING_COEFFICIENTS, type PanelBucklingInput } from '@/server/engineering';
+import {
+  johnsonElasticFor,
+  johnsonReduced,
+  panelBuckling,
+  plateBucklingStressPsi,
+  sheetBucklingProperties,
+  PLATE_BUCKLING_COEFFICIENTS,
+  type PanelBucklingInput,
+} from '@/server/engineering';
 import { refusal } from './refusal';
 
 // Plate buckling F_cr = k·π²E/(12(1 − ν²))·(t/b)², k = 4.0 for a long simply supported plate in
@@ -15,7 +23,15 @@ describe('the buckling stress of a flat panel', () => {
 
   it('is 1028.33 psi for 0.032 in on a 6 in panel in compression (E 10⁷ psi, ν 0.3)', () => {
     // π²·10⁷/(12·0.91) = 9.8696044e7/10.92 = 9.0380993e6 psi; (0.032/6)² = 2.8444444e-5; × 4.0 = 1028.335
-    expect(plateBucklingStressPsi({ bucklingCoefficient: 4, elasticModulusPsi: 1e7, poissonRatio: 0.3, thicknessIn: 0.032, widthIn: 6 })).toBeCloseTo(1028.335, 2);
+    expect(
+      plateBucklingStressPsi({
+        bucklingCoefficient: 4,
+        elasticModulusPsi: 1e7,
+        poissonRatio: 0.3,
+        thicknessIn: 0.032,
+        widthIn: 6,
+      }),
+    ).toBeCloseTo(1028.335, 2);
   });
 
   it('is 472.21 psi simply supported and 792.60 psi clamped for 0.025 in on an 8 in panel in shear', () => {
@@ -26,7 +42,14 @@ describe('the buckling stress of a flat panel', () => {
   });
 
   it('grows with the square of the gauge and falls with the square of the width', () => {
-    const f = (t: number, b: number) => plateBucklingStressPsi({ bucklingCoefficient: 4, elasticModulusPsi: 1e7, poissonRatio: 0.3, thicknessIn: t, widthIn: b });
+    const f = (t: number, b: number) =>
+      plateBucklingStressPsi({
+        bucklingCoefficient: 4,
+        elasticModulusPsi: 1e7,
+        poissonRatio: 0.3,
+        thicknessIn: t,
+        widthIn: b,
+      });
     expect(f(0.04, 6) / f(0.02, 6)).toBeCloseTo(4, 12);
     expect(f(0.03, 12) / f(0.03, 6)).toBeCloseTo(0.25, 12);
   });
@@ -60,10 +83,15 @@ describe('a skin panel against its applied stress', () => {
     expect(r.warnings.join(' ')).toMatch(/relies on post-buckled diagonal tension/);
   });
 
-  it('takes clamped edges in shear at 8.98 and refuses clamped compression without a k of the supplier\'s', () => {
+  it("takes clamped edges in shear at 8.98 and refuses clamped compression without a k of the supplier's", () => {
     expect(panelBuckling({ ...base, edges: 'clamped' }).bucklingCoefficient).toBe(8.98);
-    expect(refusal(() => panelBuckling({ ...base, loading: 'compression', edges: 'clamped' })).field).toBe('panel.bucklingCoefficient');
-    expect(panelBuckling({ ...base, loading: 'compression', edges: 'clamped', bucklingCoefficient: 6.9 }).bucklingCoefficient).toBe(6.9);
+    expect(refusal(() => panelBuckling({ ...base, loading: 'compression', edges: 'clamped' })).field).toBe(
+      'panel.bucklingCoefficient',
+    );
+    expect(
+      panelBuckling({ ...base, loading: 'compression', edges: 'clamped', bucklingCoefficient: 6.9 })
+        .bucklingCoefficient,
+    ).toBe(6.9);
   });
 
   it('never reports compression skin as carrying diagonal tension', () => {
@@ -76,7 +104,13 @@ describe('a skin panel against its applied stress', () => {
   it("reduces a buckling stress past half the yield by Johnson's parabola, never above the yield", () => {
     // 0.25 in on 2 in: elastic 9.0380993e6 × 0.015625 × 4 = 564,881 psi; F_cy 35 ksi:
     // 35000·(1 − 35000/(4·564881)) = 34457.9 psi
-    const r = panelBuckling({ ...base, loading: 'compression', thicknessIn: 0.25, widthIn: 2, appliedStressPsi: 30000 });
+    const r = panelBuckling({
+      ...base,
+      loading: 'compression',
+      thicknessIn: 0.25,
+      widthIn: 2,
+      appliedStressPsi: 30000,
+    });
     expect(r.elasticCriticalPsi).toBeCloseTo(564881, -1);
     expect(r.plasticityReduced).toBe(true);
     expect(r.criticalPsi).toBeCloseTo(34457.9, 0);
@@ -87,7 +121,11 @@ describe('a skin panel against its applied stress', () => {
   });
 
   it('reads E, ν and F_cy from the catalogue (from memory: verify)', () => {
-    expect(sheetBucklingProperties('6061-T6')).toMatchObject({ elasticModulusPsi: 10.1e6, poissonRatio: 0.33, compressiveYieldPsi: 35000 });
+    expect(sheetBucklingProperties('6061-T6')).toMatchObject({
+      elasticModulusPsi: 10.1e6,
+      poissonRatio: 0.33,
+      compressiveYieldPsi: 35000,
+    });
   });
 
   it.each([

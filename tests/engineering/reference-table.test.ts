@@ -72,7 +72,11 @@ describe('factor of safety', () => {
     expect(ULTIMATE_FACTOR).toBe(1.5);
     const schedule = pitchSchedule({
       line: 'upper',
-      stations: Array.from({ length: 41 }, (_, i) => ({ stationIn: i * 0.25, alongIn: i * 0.25, limitTensionLbPerIn: 5 })),
+      stations: Array.from({ length: 41 }, (_, i) => ({
+        stationIn: i * 0.25,
+        alongIn: i * 0.25,
+        limitTensionLbPerIn: 5,
+      })),
       material: '6061-T6',
       gaugeIn: 0.032,
       rivetSpec: 'MS20470AD4',
@@ -115,7 +119,12 @@ describe('minimum design cruise and dive speeds', () => {
 
 describe('gust load factors', () => {
   // 14 CFR 23.341, 23.333(c) [C]: W/S 15 psf, c 4.5 ft, a 5.0/rad, sea level
-  const base = { wingLoadingPsf: 15, meanChordFt: 4.5, liftSlopePerRad: 5.0, densitySlugFt3: SEA_LEVEL_DENSITY_SLUG_FT3 };
+  const base = {
+    wingLoadingPsf: 15,
+    meanChordFt: 4.5,
+    liftSlopePerRad: 5.0,
+    densitySlugFt3: SEA_LEVEL_DENSITY_SLUG_FT3,
+  };
 
   it('have mass ratio 17.435 and alleviation factor 0.67485', () => {
     const g = gustLoadFactors({ ...base, speedKeas: 127.808, gustFps: 50 });
@@ -136,7 +145,14 @@ describe('gust load factors', () => {
   });
 
   it('come out the same from the whole design-condition chain', () => {
-    const d = designConditions({ weightLb: 1800, wingAreaSqFt: 120, meanChordIn: 54, liftSlopePerRad: 5, stallSpeedKeas: 50, category: 'normal' });
+    const d = designConditions({
+      weightLb: 1800,
+      wingAreaSqFt: 120,
+      meanChordIn: 54,
+      liftSlopePerRad: 5,
+      stallSpeedKeas: 50,
+      category: 'normal',
+    });
     expect(d.conditions.find((c) => c.id === 'gust-up-vc')?.n).toBeCloseTo(3.8866, 4);
     expect(d.conditions.find((c) => c.id === 'gust-down-vd')?.n).toBeCloseTo(-1.0206, 4);
   });
@@ -218,26 +234,29 @@ describe('panel method against the exact Joukowski solution', () => {
     [[-0.1, 0], 5],
     [[-0.1, 0.1], 0],
     [[-0.1, 0.1], 5],
-  ] as [[number, number], number][])('matches Cp along the surface for centre %p at %p°: within 0.025 everywhere, 0.005 on 2–90 % chord', (centre, deg) => {
-    const j = joukowskiSection(centre);
-    const n = 160;
-    const flow = solvePanelMethod(j.contour(n));
-    const p = pressureDistribution(flow, degToRad(deg));
-    let worst = 0;
-    let worstMid = 0;
-    for (const side of ['upper', 'lower'] as const) {
-      p[side].forEach((s, i) => {
-        const node = flow[side].node[i];
-        // The cusp itself is left out: there the exact speed is finite but a single node cannot carry it.
-        if (node === 0 || node === n) return;
-        const err = Math.abs(s.cp - j.exactCpAtTheta(-j.beta + (2 * Math.PI * node) / n, degToRad(deg)));
-        worst = Math.max(worst, err);
-        if (s.xc >= 0.02 && s.xc <= 0.9) worstMid = Math.max(worstMid, err);
-      });
-    }
-    expect(worst).toBeLessThan(0.025);
-    expect(worstMid).toBeLessThan(0.005);
-  });
+  ] as [[number, number], number][])(
+    'matches Cp along the surface for centre %p at %p°: within 0.025 everywhere, 0.005 on 2–90 % chord',
+    (centre, deg) => {
+      const j = joukowskiSection(centre);
+      const n = 160;
+      const flow = solvePanelMethod(j.contour(n));
+      const p = pressureDistribution(flow, degToRad(deg));
+      let worst = 0;
+      let worstMid = 0;
+      for (const side of ['upper', 'lower'] as const) {
+        p[side].forEach((s, i) => {
+          const node = flow[side].node[i];
+          // The cusp itself is left out: there the exact speed is finite but a single node cannot carry it.
+          if (node === 0 || node === n) return;
+          const err = Math.abs(s.cp - j.exactCpAtTheta(-j.beta + (2 * Math.PI * node) / n, degToRad(deg)));
+          worst = Math.max(worst, err);
+          if (s.xc >= 0.02 && s.xc <= 0.9) worstMid = Math.max(worstMid, err);
+        });
+      }
+      expect(worst).toBeLessThan(0.025);
+      expect(worstMid).toBeLessThan(0.005);
+    },
+  );
 });
 
 describe('NACA 0012 at zero angle of attack', () => {
@@ -303,7 +322,13 @@ describe('joint table', () => {
     ['MS20470AD8', 2.4],
   ])('asks for %s: %p rivets per inch in 0.040 sheet', (code, perInch) => {
     const rivet = findRivet(code);
-    const n = rivetsPerInchOfWidth({ sheetFtuPsi: 60000, sheetFbruPsi: 96000, thicknessIn: 0.04, rivetFsuPsi: rivet.fsuPsi as number, holeDiameterIn: rivet.holeDiameterIn });
+    const n = rivetsPerInchOfWidth({
+      sheetFtuPsi: 60000,
+      sheetFbruPsi: 96000,
+      thicknessIn: 0.04,
+      rivetFsuPsi: rivet.fsuPsi as number,
+      holeDiameterIn: rivet.holeDiameterIn,
+    });
     expect(Math.round(n * 10) / 10).toBe(perInch);
   });
 });
@@ -330,7 +355,9 @@ describe('6061-T6 sheet', () => {
   // MMPDS / MIL-HDBK-5 [M] (from memory)
   it('has F_tu 42, F_ty 36, F_su 27, F_bru (e/D 2.0) 88 ksi and density 0.098 lb/in³', () => {
     const m = findMaterial('6061-T6');
-    expect([m.ftuPsi, m.ftyPsi, m.fsuPsi, m.fbruPsi.e20, m.densityLbPerIn3]).toEqual([42000, 36000, 27000, 88000, 0.098]);
+    expect([m.ftuPsi, m.ftyPsi, m.fsuPsi, m.fbruPsi.e20, m.densityLbPerIn3]).toEqual([
+      42000, 36000, 27000, 88000, 0.098,
+    ]);
   });
 });
 
@@ -341,7 +368,9 @@ describe('stock gauges', () => {
   });
 
   it('treat 0.050 and 0.051 in as the same gauge when matching coupon tests', () => {
-    const tests = [{ material: '6061-T6', gaugeIn: 0.051, rivetSpec: 'PULLED-4', loadLb: 50, outcome: 'no_deformation' as const }];
+    const tests = [
+      { material: '6061-T6', gaugeIn: 0.051, rivetSpec: 'PULLED-4', loadLb: 50, outcome: 'no_deformation' as const },
+    ];
     expect(couponAllowables(tests, { material: '6061-T6', gaugeIn: 0.05, rivetSpec: 'PULLED-4' }).limitLb).toBe(50);
     expect(couponAllowables(tests, { material: '6061-T6', gaugeIn: 0.04, rivetSpec: 'PULLED-4' }).limitLb).toBeNull();
   });

@@ -18,8 +18,13 @@ const sound: RepairHoleInput = {
 };
 
 /** Another hole of the same finding, two inches along, with room for the new size unless told otherwise. */
-const other = (over: Partial<RepairHoleInput> = {}): RepairHoleInput =>
-  ({ ...sound, holeId: 'U-02', stationIn: 12, neighbourStationsIn: [11, 13], ...over });
+const other = (over: Partial<RepairHoleInput> = {}): RepairHoleInput => ({
+  ...sound,
+  holeId: 'U-02',
+  stationIn: 12,
+  neighbourStationsIn: [11, 13],
+  ...over,
+});
 
 const finding = (holes: RepairHoleInput[], over: Partial<RepairCheckInput> = {}): RepairCheckInput => ({
   rivetSpec: 'MS20470AD4',
@@ -37,7 +42,10 @@ describe('the repair check over every hole of a finding', () => {
     const r = repairCheck(finding([sound, other({ neighbourStationsIn: [11.6, 13] })]));
     // pitch ≥ 3D of the new diameter: 3 × 5/32 = 0.46875 in — FAA AC 43.13-1B ch. 4 / 4-57
     expect(r.requiredPitchIn).toBeCloseTo(0.46875, 10);
-    expect(r.holes.map((h) => [h.holeId, h.pass])).toEqual([['U-01', true], ['U-02', false]]);
+    expect(r.holes.map((h) => [h.holeId, h.pass])).toEqual([
+      ['U-01', true],
+      ['U-02', false],
+    ]);
     expect(r.pass).toBe(false);
     expect(r.reasons.length).toBeGreaterThan(0);
     expect(r.reasons.every((reason) => reason.startsWith('U-02: '))).toBe(true);
@@ -108,10 +116,12 @@ describe('the repair check over every hole of a finding', () => {
   });
 
   it('says scrap for the finding when any hole would break into the edge, even if another only needs a doubler', () => {
-    const r = repairCheck(finding([
-      { ...sound, holeId: 'U-01', neighbourStationsIn: [9.6, 11] },
-      other({ measured: { edgeDistanceIn: 0.15 } }),
-    ]));
+    const r = repairCheck(
+      finding([
+        { ...sound, holeId: 'U-01', neighbourStationsIn: [9.6, 11] },
+        other({ measured: { edgeDistanceIn: 0.15 } }),
+      ]),
+    );
     // edge ≥ 2D = 0.3125 in, pitch ≥ 3D — FAA AC 43.13-1B ch. 4;
     // the scrap threshold (under 1D of edge left) is our rule, not a published one
     expect(r.holes.map((h) => h.alternative)).toEqual(['repair with doubler', 'scrap']);

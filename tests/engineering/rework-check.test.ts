@@ -56,14 +56,22 @@ describe('the rework check for an oversize rivet', () => {
 
   it('checks only the layout, and says so, when no loads are given', () => {
     const { appliedLimitTensionLb, appliedLimitShearLb, ...layoutOnly } = hole;
-    void appliedLimitTensionLb; void appliedLimitShearLb;
+    void appliedLimitTensionLb;
+    void appliedLimitShearLb;
     const r = reworkCheck(layoutOnly);
     expect(r.margins.combinedLimit).toBeNull();
     expect(r.warnings.join(' ')).toMatch(/no applied loads/);
   });
 
   it('warns when the proposal skips a size', () => {
-    expect(reworkCheck({ ...hole, proposedSpec: 'MS20470AD6', edgeDistanceIn: 0.5, neighbourStationsIn: [9, 11] }).warnings.join(' ')).toMatch(/skips a size/);
+    expect(
+      reworkCheck({
+        ...hole,
+        proposedSpec: 'MS20470AD6',
+        edgeDistanceIn: 0.5,
+        neighbourStationsIn: [9, 11],
+      }).warnings.join(' '),
+    ).toMatch(/skips a size/);
   });
 
   it('refuses a "next size" that is not larger', () => {

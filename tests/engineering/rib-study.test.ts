@@ -11,7 +11,14 @@ import { refusal } from './refusal';
 import { DEMO_COUPONS, DEMO_STUDY_INPUTS } from '@/db/seed';
 
 const input: RibStudyInput = {
-  kit: { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 58, stallSpeedKeas: 45, cruiseSpeedKeas: 110, category: 'utility' },
+  kit: {
+    weightLb: 1320,
+    wingAreaSqFt: 120,
+    meanChordIn: 58,
+    stallSpeedKeas: 45,
+    cruiseSpeedKeas: 110,
+    category: 'utility',
+  },
   airfoil: { kind: 'naca', designation: '23015' },
   rib: { chordIn: 58, spacingIn: 14.5, skinGaugeIn: 0.025 },
   lines: [
@@ -30,7 +37,6 @@ const input: RibStudyInput = {
     { material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'PULLED-4', loadLb: 30, outcome: 'slight_deformation' },
   ],
 };
-
 
 describe('a rib study', () => {
   const study = ribStudy(input);
@@ -77,7 +83,9 @@ describe('a rib study', () => {
     // The stored Cp is thinned to 41 samples a surface for the picture: the pull worked back from it is
     // within 2 % of the envelope, which was computed on every sample.
     for (const p of upper.envelope.filter((_, i) => i % 6 === 0)) {
-      const pulls = study.conditions.map((c) => suctionIntensityLbPerIn(cpOnSurface(c.cp, 'upper', p.xc), 0, c.qPsi, 14.5));
+      const pulls = study.conditions.map((c) =>
+        suctionIntensityLbPerIn(cpOnSurface(c.cp, 'upper', p.xc), 0, c.qPsi, 14.5),
+      );
       expect(Math.abs(p.limitLbPerIn - Math.max(...pulls))).toBeLessThan(0.02 * p.limitLbPerIn + 0.01);
       expect(p.ultimateLbPerIn).toBeCloseTo(1.5 * p.limitLbPerIn, 3);
     }
@@ -89,7 +97,9 @@ describe('a rib study', () => {
     expect(study.candidates).toHaveLength(18);
     expect(study.trade).toHaveLength(18);
     const ranks = study.trade.filter((r) => r.feasible).map((r) => r.rank);
-    expect([...ranks].sort((a, b) => (a as number) - (b as number))).toEqual(ranks.map((_, i) => i + 1).sort((a, b) => a - b));
+    expect([...ranks].sort((a, b) => (a as number) - (b as number))).toEqual(
+      ranks.map((_, i) => i + 1).sort((a, b) => a - b),
+    );
     expect(study.trade.filter((r) => !r.feasible).every((r) => r.rank === null)).toBe(true);
   });
 
@@ -98,7 +108,8 @@ describe('a rib study', () => {
     expect(study.recommended).toEqual({ gaugeIn: first.gaugeIn, rivet: first.rivet });
     const chosen = study.candidates.find((c) => c.gaugeIn === first.gaugeIn && c.rivet === first.rivet)!;
     expect(chosen.feasible).toBe(true);
-    for (const l of chosen.lines) for (const h of l.holes) expect(Math.min(h.msLimit ?? 0, h.msUltimate ?? 0)).toBeGreaterThanOrEqual(0);
+    for (const l of chosen.lines)
+      for (const h of l.holes) expect(Math.min(h.msLimit ?? 0, h.msUltimate ?? 0)).toBeGreaterThanOrEqual(0);
   });
 
   it('recommends 0.020 in with the tested pulled rivet, and finds 0.016 in with it unacceptable by its coupons', () => {
@@ -120,7 +131,8 @@ describe('a rib study', () => {
 
   it('reports in each zone its number of holes and its weakest rivet, the one with the lowest margin of safety', () => {
     const chosen = study.candidates.find((c) => c.holesStored)!;
-    const lowest = (h: { msLimit: number | null; msUltimate: number | null }) => Math.min(h.msLimit ?? Infinity, h.msUltimate ?? Infinity);
+    const lowest = (h: { msLimit: number | null; msUltimate: number | null }) =>
+      Math.min(h.msLimit ?? Infinity, h.msUltimate ?? Infinity);
     for (const l of chosen.lines) {
       expect(l.zones.reduce((n, z) => n + z.count, 0)).toBe(l.holes.length);
       l.zones.forEach((z, i) => {
@@ -137,23 +149,38 @@ describe('a rib study', () => {
   it('stores the holes of the recommended candidate only, and recomputes any other the same as a study of it alone', () => {
     const stored = study.candidates.filter((c) => c.holesStored);
     expect(stored.map((c) => [c.gaugeIn, c.rivet])).toEqual([[0.02, 'PULLED-4']]);
-    for (const c of study.candidates.filter((k) => !k.holesStored)) for (const l of c.lines) expect(l.holes).toEqual([]);
+    for (const c of study.candidates.filter((k) => !k.holesStored))
+      for (const l of c.lines) expect(l.holes).toEqual([]);
     const other = ribCandidate(input, { gaugeIn: 0.032, rivet: 'MS20470AD4' });
     const alone = ribStudy({ ...input, gaugeCandidates: [0.032], rivetCandidates: ['MS20470AD4'] });
     expect(other).toEqual(alone.candidates[0]);
     expect(other.lines[0].holes.length).toBeGreaterThan(10);
-    expect(() => ribCandidate(input, { gaugeIn: 0.071, rivet: 'PULLED-4' })).toThrow(/gaugeIn: 0.071 in is not one of the study's gauges/);
+    expect(() => ribCandidate(input, { gaugeIn: 0.071, rivet: 'PULLED-4' })).toThrow(
+      /gaugeIn: 0.071 in is not one of the study's gauges/,
+    );
   });
 
-  it('never stores a zone pitch under its rivet\'s 3D minimum (a 3/32 in rivet\'s 0.28125 in is not rounded to 0.281)', () => {
-    const small = ribStudy({ ...input, rib: { ...input.rib, spacingIn: 30 }, rivetCandidates: ['MS20470AD3'], gaugeCandidates: [0.016] });
+  it("never stores a zone pitch under its rivet's 3D minimum (a 3/32 in rivet's 0.28125 in is not rounded to 0.281)", () => {
+    const small = ribStudy({
+      ...input,
+      rib: { ...input.rib, spacingIn: 30 },
+      rivetCandidates: ['MS20470AD3'],
+      gaugeCandidates: [0.016],
+    });
     const zones = small.candidates.flatMap((c) => c.lines.flatMap((l) => l.zones));
     expect(zones.some((z) => Math.abs(z.pitchIn - 0.28125) < 1e-4)).toBe(true);
-    for (const c of small.candidates) for (const l of c.lines) for (const z of l.zones) expect(z.pitchIn).toBeGreaterThanOrEqual(3 * (3 / 32));
+    for (const c of small.candidates)
+      for (const l of c.lines) for (const z of l.zones) expect(z.pitchIn).toBeGreaterThanOrEqual(3 * (3 / 32));
   });
 
   it('keeps the stored result of the demo rib under 100 KB', () => {
-    const coupons = DEMO_COUPONS.map(([gaugeIn, loadLb, outcome]) => ({ material: '6061-T6', gaugeIn, rivetSpec: 'PULLED-4', loadLb, outcome }));
+    const coupons = DEMO_COUPONS.map(([gaugeIn, loadLb, outcome]) => ({
+      material: '6061-T6',
+      gaugeIn,
+      rivetSpec: 'PULLED-4',
+      loadLb,
+      outcome,
+    }));
     const demo = ribStudy({ ...DEMO_STUDY_INPUTS, coupons });
     expect(demo.recommended).not.toBeNull();
     expect(Buffer.byteLength(JSON.stringify(demo))).toBeLessThan(100 * 1024);
@@ -179,7 +206,7 @@ describe('a rib study with other inputs', () => {
     expect(a.trade[0].rivetCount).toBeCloseTo(b.trade[0].rivetCount, -1);
   });
 
-  it('uses a supplier\'s Cp tables for conditions of their sign and the panel method for the rest', () => {
+  it("uses a supplier's Cp tables for conditions of their sign and the panel method for the rest", () => {
     const rows = [0, 0.05, 0.2, 0.5, 1].map((x): [number, number, number] => [x, -2 * (1 - x), 0.3 * (1 - x)]);
     const s = ribStudy({ ...small, cpTables: [{ cl: 1.0, rows }] });
     expect(s.conditions.find((c) => c.id === 'maneuver-up-va')!.pressureSource).toBe('Cp table');
@@ -204,15 +231,22 @@ describe('a rib study with other inputs', () => {
   });
 
   it('refuses two lines of the same name', () => {
-    expect(refusal(() => ribStudy({ ...small, lines: [input.lines[0], { ...input.lines[1], name: 'Upper' }] })).field).toBe('lines[1].name');
+    expect(
+      refusal(() => ribStudy({ ...small, lines: [input.lines[0], { ...input.lines[1], name: 'Upper' }] })).field,
+    ).toBe('lines[1].name');
   });
 
   it('refuses a line that ends before it starts', () => {
-    expect(refusal(() => ribStudy({ ...small, lines: [{ name: 'upper', surface: 'upper', startXc: 0.5, endXc: 0.2 }] })).field).toBe('lines[0].endXc');
+    expect(
+      refusal(() => ribStudy({ ...small, lines: [{ name: 'upper', surface: 'upper', startXc: 0.5, endXc: 0.2 }] }))
+        .field,
+    ).toBe('lines[0].endXc');
   });
 
   it('refuses an unknown rivet candidate, naming it', () => {
-    expect(refusal(() => ribStudy({ ...small, rivetCandidates: ['MS20470AD4', 'HOTGLUE'] })).field).toBe('rivetCandidates[1]');
+    expect(refusal(() => ribStudy({ ...small, rivetCandidates: ['MS20470AD4', 'HOTGLUE'] })).field).toBe(
+      'rivetCandidates[1]',
+    );
   });
 
   it('refuses a zero rib spacing', () => {

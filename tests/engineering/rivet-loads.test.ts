@@ -40,8 +40,24 @@ describe('the load envelope along a fastener line', () => {
       const [a, c] = [s[k - 1], s[k]];
       return a.cp + ((c.cp - a.cp) * (xc - a.xc)) / (c.xc - a.xc);
     };
-    const fromSamples = loadEnvelope(xcs, [{ id: 'linear', qPsi: q, cpSamples: linear }, { id: 'peak', qPsi: q, cpSamples: peaked }], 0, b);
-    const fromFunctions = loadEnvelope(xcs, [{ id: 'linear', qPsi: q, cpAt: cpOf(linear) }, { id: 'peak', qPsi: q, cpAt: cpOf(peaked) }], 0, b);
+    const fromSamples = loadEnvelope(
+      xcs,
+      [
+        { id: 'linear', qPsi: q, cpSamples: linear },
+        { id: 'peak', qPsi: q, cpSamples: peaked },
+      ],
+      0,
+      b,
+    );
+    const fromFunctions = loadEnvelope(
+      xcs,
+      [
+        { id: 'linear', qPsi: q, cpAt: cpOf(linear) },
+        { id: 'peak', qPsi: q, cpAt: cpOf(peaked) },
+      ],
+      0,
+      b,
+    );
     // at 0.1: linear 9 lb/in, peak 3.75; at 0.2: linear 8, peak 7.5; at 0.5: 5 vs 4.6875; at 0.9: 1 vs 0.9375
     expect(fromSamples.map((e) => e.governing)).toEqual(['linear', 'linear', 'linear', 'linear']);
     [9, 8, 5, 1].forEach((w, i) => {

@@ -1,4 +1,11 @@
-import { ribStudy, roundSignificant, roundStored, tradeStudy, type RibStudyInput, type TradeCandidate } from '@/server/engineering';
+import {
+  ribStudy,
+  roundSignificant,
+  roundStored,
+  tradeStudy,
+  type RibStudyInput,
+  type TradeCandidate,
+} from '@/server/engineering';
 
 // Issue 9: stored numbers rounded to what they mean, no float noise in results.
 
@@ -20,13 +27,23 @@ describe('rounding to what a number means', () => {
   });
 
   it('rounds every number of a plain-data tree and nothing else', () => {
-    expect(roundStored({ a: [0.1 + 0.2, 'x', null, true], b: { c: 1 / 3 } })).toEqual({ a: [0.3, 'x', null, true], b: { c: 0.333333 } });
+    expect(roundStored({ a: [0.1 + 0.2, 'x', null, true], b: { c: 1 / 3 } })).toEqual({
+      a: [0.3, 'x', null, true],
+      b: { c: 0.333333 },
+    });
   });
 });
 
 describe('a stored rib study', () => {
   const input: RibStudyInput = {
-    kit: { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 58, stallSpeedKeas: 45, cruiseSpeedKeas: 110, category: 'utility' },
+    kit: {
+      weightLb: 1320,
+      wingAreaSqFt: 120,
+      meanChordIn: 58,
+      stallSpeedKeas: 45,
+      cruiseSpeedKeas: 110,
+      category: 'utility',
+    },
     airfoil: { kind: 'naca', designation: '23015' },
     rib: { chordIn: 58, spacingIn: 14.5, flangeWidthIn: 0.75, skinGaugeIn: 0.025 },
     lines: [
@@ -87,14 +104,22 @@ describe('the recommendation (issue 9)', () => {
         const best = t.rows.find((r) => r.rank === 1)!;
         expect(best.pullThroughBasis).toBe('coupons');
         const worstCoupon = Math.max(...couponBacked.map((r) => r.rank!));
-        for (const r of t.rows.filter((x) => x.feasible && x.pullThroughBasis === 'fallback')) expect(r.rank!).toBeGreaterThan(worstCoupon);
+        for (const r of t.rows.filter((x) => x.feasible && x.pullThroughBasis === 'fallback'))
+          expect(r.rank!).toBeGreaterThan(worstCoupon);
       }
     }
   });
 
   it('recommends the coupon-backed candidate in a rib study even where a fallback one is lighter', () => {
     const study = ribStudy({
-      kit: { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 58, stallSpeedKeas: 45, cruiseSpeedKeas: 110, category: 'utility' },
+      kit: {
+        weightLb: 1320,
+        wingAreaSqFt: 120,
+        meanChordIn: 58,
+        stallSpeedKeas: 45,
+        cruiseSpeedKeas: 110,
+        category: 'utility',
+      },
       airfoil: { kind: 'naca', designation: '23015' },
       rib: { chordIn: 58, spacingIn: 14.5 },
       lines: [{ name: 'upper', surface: 'upper', startXc: 0.01, endXc: 0.9 }],
@@ -110,7 +135,9 @@ describe('the recommendation (issue 9)', () => {
         { material: '6061-T6', gaugeIn: 0.04, rivetSpec: 'MS20470AD4', loadLb: 90, outcome: 'slight_deformation' },
       ],
     });
-    const lighterFallback = study.trade.filter((r) => r.feasible && r.pullThroughBasis === 'fallback' && r.gaugeIn < 0.04);
+    const lighterFallback = study.trade.filter(
+      (r) => r.feasible && r.pullThroughBasis === 'fallback' && r.gaugeIn < 0.04,
+    );
     expect(lighterFallback.length).toBeGreaterThan(0);
     expect(study.recommended).toEqual({ gaugeIn: 0.04, rivet: 'MS20470AD4' });
   });

@@ -1,4 +1,12 @@
-import { chordAt, planformGeometry, schrenkDistribution, schrenkLiftRatio, schrenkStation, stationEta, type PlanformInput } from '@/server/engineering';
+import {
+  chordAt,
+  planformGeometry,
+  schrenkDistribution,
+  schrenkLiftRatio,
+  schrenkStation,
+  stationEta,
+  type PlanformInput,
+} from '@/server/engineering';
 import { refusal } from './refusal';
 
 // Spanwise lift by Schrenk's approximation: O. Schrenk, NACA TM 948 (1940) [C, values computed from
@@ -91,7 +99,14 @@ describe('planform bounds', () => {
   });
 
   it('refuses more stations than it takes, naming the list', () => {
-    expect(refusal(() => schrenkDistribution(rectangle, Array.from({ length: 201 }, () => 0.5))).field).toBe('etas');
+    expect(
+      refusal(() =>
+        schrenkDistribution(
+          rectangle,
+          Array.from({ length: 201 }, () => 0.5),
+        ),
+      ).field,
+    ).toBe('etas');
     expect(refusal(() => schrenkDistribution(rectangle, [0.2, 2])).field).toBe('etas[1]');
   });
 });

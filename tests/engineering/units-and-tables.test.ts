@@ -30,7 +30,7 @@ describe('unit conversions at the edges', () => {
   });
 });
 
-describe('a supplier\'s Cp tables', () => {
+describe("a supplier's Cp tables", () => {
   const row = (cu: number, cl: number): [number, number, number][] =>
     [0, 0.1, 0.3, 0.6, 1].map((x): [number, number, number] => [x, cu * (1 - x), cl * (1 - x)]);
   const tables = validateCpTables([
@@ -63,13 +63,36 @@ describe('a supplier\'s Cp tables', () => {
       }
       return null;
     };
-    expect(bad([[0, -1, 0], [0.2, -1, 0], [0.1, -1, 0], [0.5, -1, 0], [1, 0, 0]])).toBe('cpTables[0].rows[2]');
-    expect(bad([[0, -1, 0], [0.1, 1.5, 0], [0.2, -1, 0], [0.5, -1, 0], [1, 0, 0]])).toBe('cpTables[0].rows[1]');
+    expect(
+      bad([
+        [0, -1, 0],
+        [0.2, -1, 0],
+        [0.1, -1, 0],
+        [0.5, -1, 0],
+        [1, 0, 0],
+      ]),
+    ).toBe('cpTables[0].rows[2]');
+    expect(
+      bad([
+        [0, -1, 0],
+        [0.1, 1.5, 0],
+        [0.2, -1, 0],
+        [0.5, -1, 0],
+        [1, 0, 0],
+      ]),
+    ).toBe('cpTables[0].rows[1]');
   });
 });
 
 describe('the trade study', () => {
-  const row = (gaugeIn: number, rivet: string, feasible: boolean, weight: number, basis: 'coupons' | 'fallback' = 'coupons', minutes = 60): TradeCandidate => ({
+  const row = (
+    gaugeIn: number,
+    rivet: string,
+    feasible: boolean,
+    weight: number,
+    basis: 'coupons' | 'fallback' = 'coupons',
+    minutes = 60,
+  ): TradeCandidate => ({
     gaugeIn,
     rivet,
     feasible,
@@ -88,7 +111,10 @@ describe('the trade study', () => {
   });
 
   it('ranks by build time when asked', () => {
-    const t = tradeStudy([row(0.032, 'A', true, 0.5, 'coupons', 30), row(0.025, 'A', true, 0.4, 'coupons', 60)], 'buildTime');
+    const t = tradeStudy(
+      [row(0.032, 'A', true, 0.5, 'coupons', 30), row(0.025, 'A', true, 0.4, 'coupons', 60)],
+      'buildTime',
+    );
     expect(t.recommended).toEqual({ gaugeIn: 0.032, rivet: 'A' });
   });
 

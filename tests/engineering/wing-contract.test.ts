@@ -5,12 +5,22 @@ import { fieldAt, MAX_WING_RIBS, WING_BOUNDS, type WingStudyInput } from '@/serv
 // or a narrower one: a request never reaches the engine with a number it would refuse.
 
 const wing: WingStudyInput = {
-  kit: { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 54, stallSpeedKeas: 47, cruiseSpeedKeas: 118, category: 'utility' },
+  kit: {
+    weightLb: 1320,
+    wingAreaSqFt: 120,
+    meanChordIn: 54,
+    stallSpeedKeas: 47,
+    cruiseSpeedKeas: 118,
+    category: 'utility',
+  },
   flaps: { stallSpeedKeas: 41, designSpeedKeas: 80 },
   planform: { kind: 'rectangle', spanIn: 320, chordIn: 54 },
   tail: { armIn: 170, balancingLoadLb: 50 },
   airfoil: { kind: 'naca', designation: '2412' },
-  ribs: [{ name: 'W-101', stationIn: 24 }, { name: 'W-102', stationIn: 38.5 }],
+  ribs: [
+    { name: 'W-101', stationIn: 24 },
+    { name: 'W-102', stationIn: 38.5 },
+  ],
   rib: { lines: [{ name: 'Upper flange', surface: 'upper', startXc: 0.02, endXc: 0.85 }] },
   spars: { frontXc: 0.15, rearXc: 0.7, capAreaSqIn: 0.4 },
   skin: { gaugeCandidates: [0.02], rivetCandidates: ['MS20426AD3'] },
@@ -50,17 +60,26 @@ const fields: [string, keyof typeof WING_BOUNDS][] = [
 describe('the wing study contract', () => {
   it('accepts the wing as a request sends it, as a study of kind "wing"', () => {
     expect(wingStudyInputSchema.safeParse(wing).success).toBe(true);
-    const body = studyInput.safeParse({ kind: 'wing', kitModelId: '6f1d8c1e-2a8b-4f7e-9c55-3c1b2a9d0e11', name: 'Wing', inputs: wing });
+    const body = studyInput.safeParse({
+      kind: 'wing',
+      kitModelId: '6f1d8c1e-2a8b-4f7e-9c55-3c1b2a9d0e11',
+      name: 'Wing',
+      inputs: wing,
+    });
     expect(body.success && body.data.kind).toBe('wing');
   });
 
   it('reads a body without a kind as a rib study', () => {
-    const parsed = studyInput.safeParse({ kitModelId: '6f1d8c1e-2a8b-4f7e-9c55-3c1b2a9d0e11', name: 'Rib', inputs: wing });
+    const parsed = studyInput.safeParse({
+      kitModelId: '6f1d8c1e-2a8b-4f7e-9c55-3c1b2a9d0e11',
+      name: 'Rib',
+      inputs: wing,
+    });
     expect(parsed.success).toBe(false);
     expect(parsed.success ? [] : parsed.error.issues.map((i) => i.path.join('.'))).toContain('inputs.lines');
   });
 
-  it.each(fields)('refuses %s outside the engine\'s range', (path, key) => {
+  it.each(fields)("refuses %s outside the engine's range", (path, key) => {
     const b = WING_BOUNDS[key];
     const span = b.max - b.min;
     for (const v of [b.min - 0.01 * span - 1e-6, b.max + 0.01 * span + 1e-6]) {
@@ -76,7 +95,12 @@ describe('the wing study contract', () => {
   });
 
   it('names a rib beyond the half-span at its own field, as the engine does', () => {
-    const parsed = wingStudyInputSchema.safeParse(withValue('ribs', [{ name: 'A', stationIn: 20 }, { name: 'B', stationIn: 170 }]));
+    const parsed = wingStudyInputSchema.safeParse(
+      withValue('ribs', [
+        { name: 'A', stationIn: 20 },
+        { name: 'B', stationIn: 170 },
+      ]),
+    );
     const engineField = fieldAt('', 'ribs[1].stationIn');
     expect(parsed.success ? [] : parsed.error.issues.map((i) => i.path.join('.'))).toContain(engineField);
   });

@@ -12,7 +12,13 @@ const grading = { loadRatio: ratio, clRatio: ratio };
 
 describe('loads along the span of a rectangular wing (Schrenk grading)', () => {
   const stations = [0, 0.3 * B, 0.6 * B, 0.9 * B, B];
-  const loads = spanwiseLoads(planform, grading, { cm0: 0, perCl: 0 }, { wingLiftLb: L, wingCl: 1, qPsi: 0.2 }, stations);
+  const loads = spanwiseLoads(
+    planform,
+    grading,
+    { cm0: 0, perCl: 0 },
+    { wingLiftLb: L, wingCl: 1, qPsi: 0.2 },
+    stations,
+  );
 
   it('carries half the lift as shear at the root, and nothing at the tip', () => {
     expect(loads[0].shearLb / (L / 2) - 1).toBeCloseTo(0, 4);
@@ -35,9 +41,15 @@ describe('loads along the span of a rectangular wing (Schrenk grading)', () => {
     expect(loads[4].bendingInLb).toBeCloseTo(0, 6);
   });
 
-  it('integrates the sections\' moment to the torque q·c²·B·(cm0 + k·CL) at the root of a rectangular wing', () => {
+  it("integrates the sections' moment to the torque q·c²·B·(cm0 + k·CL) at the root of a rectangular wing", () => {
     const q = 0.25;
-    const [root] = spanwiseLoads(planform, grading, { cm0: -0.05, perCl: 0.1 }, { wingLiftLb: L, wingCl: 0.8, qPsi: q }, [0]);
+    const [root] = spanwiseLoads(
+      planform,
+      grading,
+      { cm0: -0.05, perCl: 0.1 },
+      { wingLiftLb: L, wingCl: 0.8, qPsi: q },
+      [0],
+    );
     const exact = q * 54 * 54 * B * (-0.05 + 0.1 * 0.8);
     expect(Math.abs(root.torqueInLb / exact - 1)).toBeLessThan(1e-4);
   });
@@ -50,7 +62,10 @@ describe('the moment coefficient of a pressure distribution', () => {
   const n = 4000;
   const xs = Array.from({ length: n + 1 }, (_, i) => 0.5 * (1 - Math.cos((Math.PI * i) / n)));
   const dcp = (x: number) => (x <= 0 ? 0 : 4 * alpha * Math.sqrt((1 - x) / x));
-  const dist = { upper: xs.map((x) => ({ xc: x, cp: -dcp(x) / 2 })), lower: xs.map((x) => ({ xc: x, cp: dcp(x) / 2 })) };
+  const dist = {
+    upper: xs.map((x) => ({ xc: x, cp: -dcp(x) / 2 })),
+    lower: xs.map((x) => ({ xc: x, cp: dcp(x) / 2 })),
+  };
   const cl = 2 * Math.PI * alpha;
 
   it('is zero about the quarter chord and −CL/4 about the leading edge for a flat plate', () => {

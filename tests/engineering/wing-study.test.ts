@@ -11,7 +11,14 @@ import { DEMO_COUPONS, DEMO_WING_INPUTS } from '@/db/seed';
 
 // An invented two-seat kit's wing: rectangular, 320 in span, 54 in chord (120 ft²), ten ribs.
 const wing: WingStudyInput = {
-  kit: { weightLb: 1320, wingAreaSqFt: 120, meanChordIn: 54, stallSpeedKeas: 47, cruiseSpeedKeas: 118, category: 'utility' },
+  kit: {
+    weightLb: 1320,
+    wingAreaSqFt: 120,
+    meanChordIn: 54,
+    stallSpeedKeas: 47,
+    cruiseSpeedKeas: 118,
+    category: 'utility',
+  },
   planform: { kind: 'rectangle', spanIn: 320, chordIn: 54 },
   tail: { armIn: 170, balancingLoadLb: 0 },
   airfoil: { kind: 'naca', designation: '2412' },
@@ -48,7 +55,7 @@ describe('a whole-wing study', () => {
     expect(study.skins).toHaveLength(18);
   });
 
-  it('takes every rib at its own station: its section at the wing CL × Schrenk\'s ratio there', () => {
+  it("takes every rib at its own station: its section at the wing CL × Schrenk's ratio there", () => {
     for (const rib of study.ribs) {
       const eta = rib.stationIn / 160;
       expect(rib.clRatio).toBeCloseTo(schrenkRectangle(eta), 5); // stored to 6 significant digits
@@ -64,7 +71,11 @@ describe('a whole-wing study', () => {
 
   it('pulls harder on the root rib than a lone rib taken at the wing CL, by about its Schrenk ratio', () => {
     const root = study.ribs[0];
-    const lone = ribStudy({ ...(wing as unknown as RibStudyInput), rib: { chordIn: 54, spacingIn: root.spacingIn }, lines: wing.rib.lines });
+    const lone = ribStudy({
+      ...(wing as unknown as RibStudyInput),
+      rib: { chordIn: 54, spacingIn: root.spacingIn },
+      lines: wing.rib.lines,
+    });
     const peak = (env: { limitLbPerIn: number }[]) => Math.max(...env.map((p) => p.limitLbPerIn));
     const ratio = peak(root.study.lines[0].envelope) / peak(lone.lines[0].envelope);
     expect(ratio).toBeGreaterThan(1.08);
@@ -82,13 +93,18 @@ describe('a whole-wing study', () => {
       expect(c.tailLoadLb).toBe(0);
       expect(c.wingLiftLb / (c.n * 1320)).toBeCloseTo(1, 5);
     }
-    for (let i = 1; i < study.ribs.length; i++) expect(study.ribs[i].loads.shearLb).toBeLessThan(study.ribs[i - 1].loads.shearLb);
+    for (let i = 1; i < study.ribs.length; i++)
+      expect(study.ribs[i].loads.shearLb).toBeLessThan(study.ribs[i - 1].loads.shearLb);
     // The positive limit maneuver governs shear and bending (4.4 g: 23.337, utility).
     expect(study.ribs[0].loads.governing.bending).toMatch(/^maneuver-up/);
   });
 
-  it('corrects each condition\'s pressure to its Mach number by Kármán–Tsien', () => {
-    const lone: RibStudyInput = { ...(wing as unknown as RibStudyInput), rib: { chordIn: 54, spacingIn: 14.5 }, lines: wing.rib.lines };
+  it("corrects each condition's pressure to its Mach number by Kármán–Tsien", () => {
+    const lone: RibStudyInput = {
+      ...(wing as unknown as RibStudyInput),
+      rib: { chordIn: 54, spacingIn: 14.5 },
+      lines: wing.rib.lines,
+    };
     const corrected = ribStudy(lone);
     const incompressible = ribStudy({ ...lone, compressibility: 'none' });
     const vd = corrected.conditions.findIndex((c) => c.id === 'maneuver-up-vd');
@@ -116,7 +132,9 @@ describe('a whole-wing study', () => {
     const feasible = study.trade.uniform.filter((u) => u.feasible);
     expect(feasible.length).toBeGreaterThan(0);
     for (const u of study.trade.uniform) {
-      const onEvery = study.ribs.every((r) => r.study.trade.find((t) => t.gaugeIn === u.gaugeIn && t.rivet === u.rivet)!.feasible);
+      const onEvery = study.ribs.every(
+        (r) => r.study.trade.find((t) => t.gaugeIn === u.gaugeIn && t.rivet === u.rivet)!.feasible,
+      );
       expect(u.feasible).toBe(onEvery);
     }
     expect(study.trade.perRib.feasible).toBe(true);
@@ -129,7 +147,9 @@ describe('a whole-wing study', () => {
       for (const c of rib.study.candidates) {
         for (const l of c.lines) expect(l.holes).toEqual([]);
         const kept = c.lines.length > 0;
-        const chosen = (rib.study.recommended?.gaugeIn === c.gaugeIn && rib.study.recommended?.rivet === c.rivet) || (study.trade.recommendedUniform?.gaugeIn === c.gaugeIn && study.trade.recommendedUniform?.rivet === c.rivet);
+        const chosen =
+          (rib.study.recommended?.gaugeIn === c.gaugeIn && rib.study.recommended?.rivet === c.rivet) ||
+          (study.trade.recommendedUniform?.gaugeIn === c.gaugeIn && study.trade.recommendedUniform?.rivet === c.rivet);
         expect(kept).toBe(chosen);
       }
     }
@@ -137,10 +157,10 @@ describe('a whole-wing study', () => {
   });
 });
 
-describe('the tail\'s balancing load', () => {
+describe("the tail's balancing load", () => {
   const two = { ...wing, ribs: wing.ribs.slice(8) };
 
-  it('adds a given download at VC to the wing\'s lift in every condition, scaled with the dynamic pressure', () => {
+  it("adds a given download at VC to the wing's lift in every condition, scaled with the dynamic pressure", () => {
     const study = wingStudy({ ...two, tail: { armIn: 170, balancingLoadLb: 150 } });
     const vc = study.conditions.find((c) => c.id === 'gust-up-vc')!;
     for (const c of study.conditions) {
@@ -150,7 +170,7 @@ describe('the tail\'s balancing load', () => {
     }
   });
 
-  it('estimates it from the section\'s zero-lift moment: a download for a cambered section', () => {
+  it("estimates it from the section's zero-lift moment: a download for a cambered section", () => {
     const study = wingStudy({ ...two, tail: { armIn: 170 } });
     // NACA 2412: cm about the quarter chord about −0.05 (thin-airfoil theory −0.053; measured about −0.045
     // in Abbott & von Doenhoff's data, from memory).
@@ -175,7 +195,9 @@ describe('the skin panels of the wing', () => {
   });
 
   it('put the upper skin in compression (positive lift bends the wing up) and hold its spar-line pitch to the inter-rivet limit', () => {
-    const c = rootUpper.candidates.find((k) => k.gaugeIn === rootUpper.recommended!.gaugeIn && k.rivet === rootUpper.recommended!.rivet)!;
+    const c = rootUpper.candidates.find(
+      (k) => k.gaugeIn === rootUpper.recommended!.gaugeIn && k.rivet === rootUpper.recommended!.rivet,
+    )!;
     const lower = rootLower.candidates.find((k) => k.gaugeIn === c.gaugeIn && k.rivet === c.rivet)!;
     expect(c.compressionPsi).toBeGreaterThan(lower.compressionPsi); // 4.4 g up against −1.76 g down
     // Skin and caps of one surface as a couple over the box depth h: σ = M/(h·(A_caps + b·t)), and the
@@ -187,7 +209,9 @@ describe('the skin panels of the wing', () => {
     expect(be).toBeCloseTo(Math.min(rootUpper.boxWidthIn, 1.9 * c.gaugeIn * Math.sqrt(10.1e6 / c.compressionPsi)), 2);
     const carrying = 1 + be * c.gaugeIn;
     expect(c.compressionPsi / (root.loads.bendingInLb / (rootUpper.boxDepthIn * carrying))).toBeCloseTo(1, 2);
-    expect(c.bendingShearFlowLbPerIn / ((root.loads.shearLb * be * c.gaugeIn) / (2 * rootUpper.boxDepthIn * carrying))).toBeCloseTo(1, 2);
+    expect(
+      c.bendingShearFlowLbPerIn / ((root.loads.shearLb * be * c.gaugeIn) / (2 * rootUpper.boxDepthIn * carrying)),
+    ).toBeCloseTo(1, 2);
     expect(c.interRivet.endFixity).toBe(1); // countersunk head: c = 1.0 (Bruhn C7, from memory)
     // σ_ir = 0.9·c·E·(t/p)² ≥ σ at the limit pitch, E = 10.1e6 psi (6061-T6, from memory), elastic here
     // past half the compressive yield (35 ksi) by Johnson's parabola: the elastic stress that reaches σ
@@ -217,15 +241,59 @@ describe('the skin panels of the wing', () => {
 
 describe('refusals of a wing study name the field', () => {
   it.each([
-    ['a rib beyond the half-span', { ribs: [{ name: 'A', stationIn: 20 }, { name: 'B', stationIn: 170 }] }, 'ribs[1].stationIn'],
-    ['ribs out of order', { ribs: [{ name: 'A', stationIn: 40 }, { name: 'B', stationIn: 30 }] }, 'ribs[1].stationIn'],
-    ['two ribs of one name', { ribs: [{ name: 'A', stationIn: 20 }, { name: 'a', stationIn: 30 }] }, 'ribs[1].name'],
+    [
+      'a rib beyond the half-span',
+      {
+        ribs: [
+          { name: 'A', stationIn: 20 },
+          { name: 'B', stationIn: 170 },
+        ],
+      },
+      'ribs[1].stationIn',
+    ],
+    [
+      'ribs out of order',
+      {
+        ribs: [
+          { name: 'A', stationIn: 40 },
+          { name: 'B', stationIn: 30 },
+        ],
+      },
+      'ribs[1].stationIn',
+    ],
+    [
+      'two ribs of one name',
+      {
+        ribs: [
+          { name: 'A', stationIn: 20 },
+          { name: 'a', stationIn: 30 },
+        ],
+      },
+      'ribs[1].name',
+    ],
     ['one rib', { ribs: [{ name: 'A', stationIn: 20 }] }, 'ribs'],
     ['the rear spar ahead of the front', { spars: { frontXc: 0.3, rearXc: 0.35 } }, 'spars.rearXc'],
     ['a tail arm of 1 in', { tail: { armIn: 1 } }, 'tail.armIn'],
-    ['an unknown skin rivet', { skin: { gaugeCandidates: [0.02], rivetCandidates: ['NOPE-9'] } }, 'skin.rivetCandidates[0]'],
-    ['a pointed tip', { planform: { kind: 'tapered', spanIn: 320, rootChordIn: 60, tipChordIn: 3 } }, 'planform.tipChordIn'],
-    ['a rib strip wider than 60 in', { ribs: [{ name: 'A', stationIn: 10 }, { name: 'B', stationIn: 90 }] }, 'ribs[1].stationIn'],
+    [
+      'an unknown skin rivet',
+      { skin: { gaugeCandidates: [0.02], rivetCandidates: ['NOPE-9'] } },
+      'skin.rivetCandidates[0]',
+    ],
+    [
+      'a pointed tip',
+      { planform: { kind: 'tapered', spanIn: 320, rootChordIn: 60, tipChordIn: 3 } },
+      'planform.tipChordIn',
+    ],
+    [
+      'a rib strip wider than 60 in',
+      {
+        ribs: [
+          { name: 'A', stationIn: 10 },
+          { name: 'B', stationIn: 90 },
+        ],
+      },
+      'ribs[1].stationIn',
+    ],
     ['an unknown compressibility rule', { compressibility: 'guess' }, 'compressibility'],
   ] as [string, Partial<WingStudyInput>, string][])('%s', (_what, change, field) => {
     expect(refusal(() => wingStudy({ ...wing, ...change } as WingStudyInput)).field).toBe(field);
@@ -237,7 +305,11 @@ describe('a wing study checks what every rib takes as a rib study does', () => {
     ['a gauge of 1 in', { gaugeCandidates: [1] }, 'gaugeCandidates[0]'],
     ['an unknown rivet', { rivetCandidates: ['NOPE-1'] }, 'rivetCandidates[0]'],
     ['an unknown material', { material: 'unobtainium' }, 'material'],
-    ['a line that ends before it starts', { rib: { lines: [{ name: 'U', surface: 'upper', startXc: 0.5, endXc: 0.2 }] } }, 'rib.lines[0].endXc'],
+    [
+      'a line that ends before it starts',
+      { rib: { lines: [{ name: 'U', surface: 'upper', startXc: 0.5, endXc: 0.2 }] } },
+      'rib.lines[0].endXc',
+    ],
     ['a pitch increment of 1e-9 in', { pitchIncrementIn: 1e-9 }, 'pitchIncrementIn'],
   ] as [string, Partial<WingStudyInput>, string][])('%s', (_what, change, field) => {
     expect(refusal(() => wingStudy({ ...wing, ...change } as WingStudyInput)).field).toBe(field);
@@ -245,7 +317,13 @@ describe('a wing study checks what every rib takes as a rib study does', () => {
 });
 
 describe('the one-for-all choice of a wing with coupon tests', () => {
-  const coupons = DEMO_COUPONS.map(([gaugeIn, loadLb, outcome]) => ({ material: '6061-T6', gaugeIn, rivetSpec: 'PULLED-4', loadLb, outcome }));
+  const coupons = DEMO_COUPONS.map(([gaugeIn, loadLb, outcome]) => ({
+    material: '6061-T6',
+    gaugeIn,
+    rivetSpec: 'PULLED-4',
+    loadLb,
+    outcome,
+  }));
   const study = wingStudy({ ...(DEMO_WING_INPUTS as WingStudyInput), coupons });
 
   it('never puts a candidate resting on the pull-through fallback ahead of one backed by coupons on every rib, as a rib does', () => {
@@ -257,11 +335,12 @@ describe('the one-for-all choice of a wing with coupon tests', () => {
     expect(study.trade.uniform.find((u) => u.rank === 1)!.pullThroughBasis).toBe('coupons');
     // and within each basis, lighter first
     for (let i = 1; i < ranked.length; i++) {
-      if (ranked[i].pullThroughBasis === ranked[i - 1].pullThroughBasis) expect(ranked[i].weightLb).toBeGreaterThanOrEqual(ranked[i - 1].weightLb);
+      if (ranked[i].pullThroughBasis === ranked[i - 1].pullThroughBasis)
+        expect(ranked[i].weightLb).toBeGreaterThanOrEqual(ranked[i - 1].weightLb);
     }
   });
 
-  it('takes each rib\'s own recommendation for the choice per rib', () => {
+  it("takes each rib's own recommendation for the choice per rib", () => {
     expect(study.trade.perRib.choices).toEqual(study.ribs.map((r) => ({ rib: r.name, ...r.study.recommended! })));
   });
 });
@@ -274,7 +353,10 @@ describe('a wing study holds its skin panels to a work budget', () => {
       kit: { ...wing.kit, weightLb: 9000, wingAreaSqFt: 600, meanChordIn: 120 },
       planform: { kind: 'rectangle', spanIn: 720, chordIn: 120 },
       ribs: Array.from({ length: 24 }, (_, i) => ({ name: `R${i}`, stationIn: 10 + i * 15 })),
-      skin: { gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04, 0.05], rivetCandidates: ['MS20426AD3', 'MS20426AD4', 'MS20470AD3', 'MS20470AD4'] },
+      skin: {
+        gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04, 0.05],
+        rivetCandidates: ['MS20426AD3', 'MS20426AD4', 'MS20470AD3', 'MS20470AD4'],
+      },
       gaugeCandidates: [0.032],
       rivetCandidates: ['MS20470AD4'],
     };

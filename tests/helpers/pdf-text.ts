@@ -16,7 +16,10 @@ export function pdfTextRuns(pdf: Buffer): string[] {
     const end = i + 1 < heads.length ? heads[i + 1].index! : raw.length;
     const body = raw.slice(start, end);
     const s = /\bstream\r?\n/.exec(body);
-    if (!s) { objects.set(Number(m[1]), { dict: body, stream: null }); return; }
+    if (!s) {
+      objects.set(Number(m[1]), { dict: body, stream: null });
+      return;
+    }
     const dict = body.slice(0, s.index);
     const from = start + s.index + s[0].length;
     const len = /\/Length (\d+)(?! \d+ R)/.exec(dict);
@@ -37,7 +40,11 @@ export function pdfTextRuns(pdf: Buffer): string[] {
         for (const r of block[1].matchAll(/<([0-9a-fA-F]+)>\s*<([0-9a-fA-F]+)>\s*\[([^\]]*)\]/g)) {
           const first = parseInt(r[1], 16);
           [...r[3].matchAll(/<([0-9a-fA-F\s]*)>/g)].forEach((d, k) => {
-            const units = d[1].trim().split(/\s+/).filter(Boolean).map((h) => parseInt(h, 16));
+            const units = d[1]
+              .trim()
+              .split(/\s+/)
+              .filter(Boolean)
+              .map((h) => parseInt(h, 16));
             map!.set(first + k, String.fromCharCode(...units));
           });
         }
@@ -60,8 +67,13 @@ export function pdfTextRuns(pdf: Buffer): string[] {
     if (!stream || /\/Type|\/Subtype|\/Length1/.test(dict)) continue; // fonts, images, CMaps: not page content
     const content = stream.toString('latin1');
     let font: Map<number, string> | null = null;
-    for (const op of content.matchAll(/\/(F\d+)\s+[\d.]+\s+Tf|\[((?:<[0-9a-fA-F]*>|[-\d.\s])*)\]\s*TJ|<([0-9a-fA-F]*)>\s*Tj/g)) {
-      if (op[1]) { font = fonts.get(op[1]) ?? null; continue; }
+    for (const op of content.matchAll(
+      /\/(F\d+)\s+[\d.]+\s+Tf|\[((?:<[0-9a-fA-F]*>|[-\d.\s])*)\]\s*TJ|<([0-9a-fA-F]*)>\s*Tj/g,
+    )) {
+      if (op[1]) {
+        font = fonts.get(op[1]) ?? null;
+        continue;
+      }
       const hexes = op[2] !== undefined ? [...op[2].matchAll(/<([0-9a-fA-F]*)>/g)].map((h) => h[1]) : [op[3]];
       const width = font ? 4 : 2;
       let text = '';

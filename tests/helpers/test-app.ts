@@ -22,25 +22,37 @@ export type TestApp = Awaited<ReturnType<typeof startTestApp>>;
  * The real thing, wired as server/index.ts wires it: own database, own SMTP fake on a free port, the
  * PostgreSQL job queue and its mail worker, photos in a temporary folder, and the demo scenario.
  */
-export async function startTestApp(opts: {
-  seed?: boolean; port?: number; webDist?: string;
-  /** Share this database (made by another test app, which drops it) instead of making one: two server processes. */
-  databaseUrl?: string;
-  /** More configuration, e.g. a lower rate limit. */
-  env?: Record<string, string>;
-} = {}) {
+export async function startTestApp(
+  opts: {
+    seed?: boolean;
+    port?: number;
+    webDist?: string;
+    /** Share this database (made by another test app, which drops it) instead of making one: two server processes. */
+    databaseUrl?: string;
+    /** More configuration, e.g. a lower rate limit. */
+    env?: Record<string, string>;
+  } = {},
+) {
   const testDb = opts.databaseUrl ? { url: opts.databaseUrl, drop: async () => undefined } : await createTestDatabase();
   const uploadsDir = await mkdtemp(path.join(os.tmpdir(), 'pc-uploads-'));
   const smtp = await startSmtpFake(0);
   const config = loadConfig({
-    NODE_ENV: 'test', DATABASE_URL: testDb.url, JWT_SECRET: 'test-secret-that-is-long-enough', SMTP_PORT: String(smtp.port),
-    UPLOADS_DIR: uploadsDir, PORT: String(opts.port ?? 8080), WEB_DIST: opts.webDist ?? path.join(uploadsDir, 'no-web'),
+    NODE_ENV: 'test',
+    DATABASE_URL: testDb.url,
+    JWT_SECRET: 'test-secret-that-is-long-enough',
+    SMTP_PORT: String(smtp.port),
+    UPLOADS_DIR: uploadsDir,
+    PORT: String(opts.port ?? 8080),
+    WEB_DIST: opts.webDist ?? path.join(uploadsDir, 'no-web'),
     // A name of the reserved .test domain: not a loopback address, so labels print (browser tests map it to 127.0.0.1).
     PUBLIC_URL: `http://pitchcard.test:${opts.port ?? 8080}`,
     // Tests sign the same people in again and again from one address: the real limits are tested on their own.
-    SIGN_IN_LIMIT_PER_ADDRESS: '100000', SIGN_IN_LIMIT_PER_IP: '100000',
-    PASSWORD_RESET_LIMIT_PER_ADDRESS: '100000', PASSWORD_RESET_LIMIT_PER_IP: '100000',
-    INVITATION_LIMIT_PER_ADDRESS: '100000', INVITATION_LIMIT_PER_IP: '100000',
+    SIGN_IN_LIMIT_PER_ADDRESS: '100000',
+    SIGN_IN_LIMIT_PER_IP: '100000',
+    PASSWORD_RESET_LIMIT_PER_ADDRESS: '100000',
+    PASSWORD_RESET_LIMIT_PER_IP: '100000',
+    INVITATION_LIMIT_PER_ADDRESS: '100000',
+    INVITATION_LIMIT_PER_IP: '100000',
     ...opts.env,
   });
   const database = createDatabase(config.databaseUrl);
@@ -59,19 +71,40 @@ export async function startTestApp(opts: {
 
   /** Another person outside the demo; a supplier gets an organisation of its own. */
   async function addUser(role: 'supplier' | 'builder' | 'inspector', email: string): Promise<string> {
-    const organizationId = role === 'supplier'
-      ? (await database.db.insert(organizations).values({ name: `${email} kits`, kind: 'supplier' }).returning())[0].id : null;
-    await database.db.insert(users).values({ email, name: email.split('@')[0], role, organizationId, passwordHash: await hashPassword(DEMO_PASSWORD) });
+    const organizationId =
+      role === 'supplier'
+        ? (
+            await database.db
+              .insert(organizations)
+              .values({ name: `${email} kits`, kind: 'supplier' })
+              .returning()
+          )[0].id
+        : null;
+    await database.db.insert(users).values({
+      email,
+      name: email.split('@')[0],
+      role,
+      organizationId,
+      passwordHash: await hashPassword(DEMO_PASSWORD),
+    });
     return signIn(email);
   }
 
   return {
-    app, ctx, config, database, smtp, uploadsDir, mailQueue,
+    app,
+    ctx,
+    config,
+    database,
+    smtp,
+    uploadsDir,
+    mailQueue,
     signIn,
     /** Bearer tokens of the demo people. */
     tokens: async () => ({
-      supplier: await signIn(DEMO_USERS.supplier.email), builder: await signIn(DEMO_USERS.builder.email),
-      inspector: await signIn(DEMO_USERS.inspector.email), admin: await signIn(DEMO_USERS.admin.email),
+      supplier: await signIn(DEMO_USERS.supplier.email),
+      builder: await signIn(DEMO_USERS.builder.email),
+      inspector: await signIn(DEMO_USERS.inspector.email),
+      admin: await signIn(DEMO_USERS.admin.email),
     }),
     addUser,
     /** People outside the demo build: another builder, inspector and supplier, for the access checks. */
@@ -90,7 +123,9 @@ export async function startTestApp(opts: {
         if (m) return m;
         await new Promise((r) => setTimeout(r, 100));
       }
-      throw new Error(`no matching mail within ${ms} ms; received: ${smtp.messages.map((m) => m.subject).join(' | ') || 'none'}`);
+      throw new Error(
+        `no matching mail within ${ms} ms; received: ${smtp.messages.map((m) => m.subject).join(' | ') || 'none'}`,
+      );
     },
     async close() {
       await closeStudyPool();

@@ -2,8 +2,9 @@ import { randomBytes } from 'node:crypto';
 import { Client } from 'pg';
 import { runMigrations } from '@/db/migrate';
 
-const HOW = 'run the tests with `npm test`, which starts the test cluster; by hand: `bash scripts/pg.sh start test 54330 test` '
-  + 'then TEST_DATABASE_URL=$(bash scripts/pg.sh url test 54330)';
+const HOW =
+  'run the tests with `npm test`, which starts the test cluster; by hand: `bash scripts/pg.sh start test 54330 test` ' +
+  'then TEST_DATABASE_URL=$(bash scripts/pg.sh url test 54330)';
 
 /** The test cluster's URL with another database name; the password and the rest stay as they are. */
 export function withDatabase(url: string, name: string): string {
@@ -20,7 +21,9 @@ async function adminClient(admin: string): Promise<Client> {
     // 28P01 wrong password, 28000 no such role/method; a URL without password fails in the client.
     const e = err as { code?: string; message?: string };
     if (e.code === '28P01' || e.code === '28000' || /password/i.test(e.message ?? '')) {
-      throw new Error(`the test cluster refused TEST_DATABASE_URL (${e.message}): it wants the password that scripts/pg.sh keeps; ${HOW}`);
+      throw new Error(
+        `the test cluster refused TEST_DATABASE_URL (${e.message}): it wants the password that scripts/pg.sh keeps; ${HOW}`,
+      );
     }
     throw err;
   }

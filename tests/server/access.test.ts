@@ -8,8 +8,12 @@ jest.setTimeout(60000);
 
 let t: TestApp;
 let tok: Awaited<ReturnType<TestApp['tokens']>>;
-let otherBuilder: string; let otherInspector: string; let otherSupplier: string;
-let travelerId: string; let findingId: string; let photoUrl: string;
+let otherBuilder: string;
+let otherInspector: string;
+let otherSupplier: string;
+let travelerId: string;
+let findingId: string;
+let photoUrl: string;
 
 const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 
@@ -23,12 +27,18 @@ beforeAll(async () => {
   findingId = open.body.items[0].id;
   photoUrl = (await request(t.app).get(`/api/findings/${findingId}`).set(auth(tok.builder))).body.photos[0].url;
 });
-afterAll(async () => { await t?.close(); });
+afterAll(async () => {
+  await t?.close();
+});
 
 describe('sign-in', () => {
   it('answers 401 to a wrong password without saying whether the address exists', async () => {
-    const wrong = await request(t.app).post('/api/auth/sign-in').send({ email: DEMO_USERS.builder.email, password: 'nope' });
-    const unknown = await request(t.app).post('/api/auth/sign-in').send({ email: 'nobody@nowhere.example', password: 'nope' });
+    const wrong = await request(t.app)
+      .post('/api/auth/sign-in')
+      .send({ email: DEMO_USERS.builder.email, password: 'nope' });
+    const unknown = await request(t.app)
+      .post('/api/auth/sign-in')
+      .send({ email: 'nobody@nowhere.example', password: 'nope' });
     expect(wrong.status).toBe(401);
     expect(unknown.status).toBe(401);
     expect(wrong.body.error.message).toBe(unknown.body.error.message);
@@ -39,7 +49,10 @@ describe('sign-in', () => {
     const forged = jwt.sign({}, 'another-secret-entirely', { subject: 'x', algorithm: 'HS256' });
     expect((await request(t.app).get('/api/travelers').set(auth(forged))).status).toBe(401);
     const me = await request(t.app).get('/api/auth/me').set(auth(tok.builder));
-    const expired = jwt.sign({ exp: Math.floor(Date.now() / 1000) - 10 }, t.config.jwtSecret, { subject: me.body.id, algorithm: 'HS256' });
+    const expired = jwt.sign({ exp: Math.floor(Date.now() / 1000) - 10 }, t.config.jwtSecret, {
+      subject: me.body.id,
+      algorithm: 'HS256',
+    });
     const res = await request(t.app).get('/api/travelers').set(auth(expired));
     expect(res.status).toBe(401);
     expect(res.body.error.message).toMatch(/expired/);
@@ -54,20 +67,43 @@ describe('sign-in', () => {
 
 describe('role boundaries', () => {
   it('keeps another builder away from this build, its traveler, finding and holes', async () => {
-    expect((await request(t.app).get('/api/travelers').set(auth(otherBuilder))).body).toEqual({ items: [], next: null });
+    expect((await request(t.app).get('/api/travelers').set(auth(otherBuilder))).body).toEqual({
+      items: [],
+      next: null,
+    });
     expect((await request(t.app).get(`/api/travelers/${travelerId}`).set(auth(otherBuilder))).status).toBe(404);
     expect((await request(t.app).get(`/api/findings/${findingId}`).set(auth(otherBuilder))).status).toBe(404);
-    const tick = await request(t.app).post(`/api/travelers/${travelerId}/holes`).set(auth(otherBuilder)).send({ holeIds: ['L-01'], status: 'installed' });
+    const tick = await request(t.app)
+      .post(`/api/travelers/${travelerId}/holes`)
+      .set(auth(otherBuilder))
+      .send({ holeIds: ['L-01'], status: 'installed' });
     expect(tick.status).toBe(404);
-    const flag = await request(t.app).post('/api/findings').set(auth(otherBuilder))
-      .field('travelerId', travelerId).field('holeIds', '["L-02"]').field('kind', 'hole_burrs').field('note', 'not mine')
-      .attach('photos', await sharp({ create: { width: 8, height: 8, channels: 3, background: '#000' } }).png().toBuffer(), 'x.png');
+    const flag = await request(t.app)
+      .post('/api/findings')
+      .set(auth(otherBuilder))
+      .field('travelerId', travelerId)
+      .field('holeIds', '["L-02"]')
+      .field('kind', 'hole_burrs')
+      .field('note', 'not mine')
+      .attach(
+        'photos',
+        await sharp({ create: { width: 8, height: 8, channels: 3, background: '#000' } })
+          .png()
+          .toBuffer(),
+        'x.png',
+      );
     expect(flag.status).toBe(404);
   });
 
   it('keeps an inspector not assigned to the build away from its findings', async () => {
-    expect((await request(t.app).get('/api/findings').set(auth(otherInspector))).body).toEqual({ items: [], next: null });
-    const res = await request(t.app).post(`/api/findings/${findingId}/disposition`).set(auth(otherInspector)).send({ disposition: 'scrap', note: 'not mine' });
+    expect((await request(t.app).get('/api/findings').set(auth(otherInspector))).body).toEqual({
+      items: [],
+      next: null,
+    });
+    const res = await request(t.app)
+      .post(`/api/findings/${findingId}/disposition`)
+      .set(auth(otherInspector))
+      .send({ disposition: 'scrap', note: 'not mine' });
     expect(res.status).toBe(404);
   });
 
@@ -76,7 +112,9 @@ describe('role boundaries', () => {
     expect((await request(t.app).get('/api/designs').set(auth(otherSupplier))).body).toEqual({ items: [], next: null });
     expect((await request(t.app).get('/api/builds').set(auth(otherSupplier))).body).toEqual({ items: [], next: null });
     const designs = await request(t.app).get('/api/designs').set(auth(tok.supplier));
-    expect((await request(t.app).get(`/api/designs/${designs.body.items[0].id}`).set(auth(otherSupplier))).status).toBe(404);
+    expect((await request(t.app).get(`/api/designs/${designs.body.items[0].id}`).set(auth(otherSupplier))).status).toBe(
+      404,
+    );
   });
 
   it("shows the supplier where findings cluster on a part across builds, and no one else's", async () => {
@@ -84,15 +122,40 @@ describe('role boundaries', () => {
     const rib = designs.body.items.find((d: { partNumber: string }) => d.partNumber === 'W-104');
     const res = await request(t.app).get(`/api/designs/${rib.id}/finding-clusters`).set(auth(tok.supplier));
     expect(res.status).toBe(200);
-    expect(res.body[0]).toMatchObject({ letter: 'A', holeId: 'U-09', count: 1, builds: 1, open: 1, kinds: { hole_elongated: 1 } });
-    expect((await request(t.app).get(`/api/designs/${rib.id}/finding-clusters`).set(auth(otherSupplier))).status).toBe(404);
-    expect((await request(t.app).get(`/api/designs/${rib.id}/finding-clusters`).set(auth(tok.builder))).status).toBe(403);
+    expect(res.body[0]).toMatchObject({
+      letter: 'A',
+      holeId: 'U-09',
+      count: 1,
+      builds: 1,
+      open: 1,
+      kinds: { hole_elongated: 1 },
+    });
+    expect((await request(t.app).get(`/api/designs/${rib.id}/finding-clusters`).set(auth(otherSupplier))).status).toBe(
+      404,
+    );
+    expect((await request(t.app).get(`/api/designs/${rib.id}/finding-clusters`).set(auth(tok.builder))).status).toBe(
+      403,
+    );
   });
 
   it('answers 403 when the role may not do a thing at all', async () => {
     expect((await request(t.app).get('/api/kits').set(auth(tok.builder))).status).toBe(403);
-    expect((await request(t.app).post(`/api/findings/${findingId}/disposition`).set(auth(tok.builder)).send({ disposition: 'use_as_is', note: 'looks fine to me' })).status).toBe(403);
-    expect((await request(t.app).post(`/api/travelers/${travelerId}/holes`).set(auth(tok.inspector)).send({ holeIds: ['L-01'], status: 'installed' })).status).toBe(403);
+    expect(
+      (
+        await request(t.app)
+          .post(`/api/findings/${findingId}/disposition`)
+          .set(auth(tok.builder))
+          .send({ disposition: 'use_as_is', note: 'looks fine to me' })
+      ).status,
+    ).toBe(403);
+    expect(
+      (
+        await request(t.app)
+          .post(`/api/travelers/${travelerId}/holes`)
+          .set(auth(tok.inspector))
+          .send({ holeIds: ['L-01'], status: 'installed' })
+      ).status,
+    ).toBe(403);
     expect((await request(t.app).post('/api/builds').set(auth(tok.inspector)).send({})).status).toBe(403);
   });
 

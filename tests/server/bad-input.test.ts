@@ -11,11 +11,16 @@ let t: TestApp;
 let tok: Awaited<ReturnType<TestApp['tokens']>>;
 let travelerId: string;
 const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-const png = () => sharp({ create: { width: 16, height: 16, channels: 3, background: '#444' } }).png().toBuffer();
+const png = () =>
+  sharp({ create: { width: 16, height: 16, channels: 3, background: '#444' } })
+    .png()
+    .toBuffer();
 
 async function savedCounts() {
   const [[f], [p], files] = await Promise.all([
-    t.database.db.select({ n: count() }).from(findings), t.database.db.select({ n: count() }).from(findingPhotos), readdir(t.uploadsDir),
+    t.database.db.select({ n: count() }).from(findings),
+    t.database.db.select({ n: count() }).from(findingPhotos),
+    readdir(t.uploadsDir),
   ]);
   return { findings: f.n, photos: p.n, files: files.length };
 }
@@ -26,17 +31,33 @@ beforeAll(async () => {
   const parts = await request(t.app).get('/api/travelers').set(auth(tok.builder));
   travelerId = parts.body.items.find((p: { partNumber: string }) => p.partNumber === 'W-104').id;
 });
-afterAll(async () => { await t?.close(); });
+afterAll(async () => {
+  await t?.close();
+});
 
 describe('bad input gets a clear error and saves nothing', () => {
   it('answers 400 to a body that is not JSON', async () => {
-    const res = await request(t.app).post('/api/kits').set(auth(tok.supplier)).set('Content-Type', 'application/json').send('{"code": ');
+    const res = await request(t.app)
+      .post('/api/kits')
+      .set(auth(tok.supplier))
+      .set('Content-Type', 'application/json')
+      .send('{"code": ');
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('invalid_json');
   });
 
   it('names every wrong field of a kit model', async () => {
-    const res = await request(t.app).post('/api/kits').set(auth(tok.supplier)).send({ code: '', name: 'x', weightLb: -5, wingAreaSqFt: 100, meanChordIn: 50, stallSpeedKeas: 60, cruiseSpeedKeas: 50, category: 'normal', airfoil: 'flat plate' });
+    const res = await request(t.app).post('/api/kits').set(auth(tok.supplier)).send({
+      code: '',
+      name: 'x',
+      weightLb: -5,
+      wingAreaSqFt: 100,
+      meanChordIn: 50,
+      stallSpeedKeas: 60,
+      cruiseSpeedKeas: 50,
+      category: 'normal',
+      airfoil: 'flat plate',
+    });
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['airfoil', 'code', 'cruiseSpeedKeas', 'weightLb']);
     expect(res.body.error.fields.weightLb).toMatch(/greater than zero/);
@@ -45,13 +66,34 @@ describe('bad input gets a clear error and saves nothing', () => {
 
   it('refuses pitch zones with a gap and names the zone', async () => {
     const kits = await request(t.app).get('/api/kits').set(auth(tok.supplier));
-    const res = await request(t.app).post('/api/designs').set(auth(tok.supplier)).send({
-      design: { kitModelId: kits.body.items[0].id, partNumber: 'X-1', name: 'gappy', kind: 'rib' },
-      revision: {
-        material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 40,
-        lines: [{ code: 'U', name: 'Upper', surface: 'upper', startIn: 1, lengthIn: 30, zones: [{ fromIn: 0, toIn: 10, pitchIn: 1 }, { fromIn: 12, toIn: 30, pitchIn: 2 }] }],
-      },
-    });
+    const res = await request(t.app)
+      .post('/api/designs')
+      .set(auth(tok.supplier))
+      .send({
+        design: { kitModelId: kits.body.items[0].id, partNumber: 'X-1', name: 'gappy', kind: 'rib' },
+        revision: {
+          material: '6061-T6',
+          gaugeIn: 0.025,
+          rivetSpec: 'MS20470AD4',
+          drillSize: '#30',
+          drillDiameterIn: 0.1285,
+          edgeDistanceIn: 0.25,
+          chordIn: 40,
+          lines: [
+            {
+              code: 'U',
+              name: 'Upper',
+              surface: 'upper',
+              startIn: 1,
+              lengthIn: 30,
+              zones: [
+                { fromIn: 0, toIn: 10, pitchIn: 1 },
+                { fromIn: 12, toIn: 30, pitchIn: 2 },
+              ],
+            },
+          ],
+        },
+      });
     expect(res.status).toBe(400);
     expect(res.body.error.fields['revision.lines.0.zones.1.fromIn']).toMatch(/without gaps/);
   });
@@ -59,13 +101,34 @@ describe('bad input gets a clear error and saves nothing', () => {
   it('refuses a pitch under 3D and an edge distance under 2D for a catalogue rivet', async () => {
     // FAA AC 43.13-1B ch. 4: pitch ≥ 3D, edge distance ≥ 2D; MS20470AD4 is 1/8 in, so 0.375 and 0.25 in.
     const kits = await request(t.app).get('/api/kits').set(auth(tok.supplier));
-    const res = await request(t.app).post('/api/designs').set(auth(tok.supplier)).send({
-      design: { kitModelId: kits.body.items[0].id, partNumber: 'X-2', name: 'tight', kind: 'rib' },
-      revision: {
-        material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20470AD4-4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.2, chordIn: 40,
-        lines: [{ code: 'U', name: 'Upper', surface: 'upper', startIn: 1, lengthIn: 30, zones: [{ fromIn: 0, toIn: 10, pitchIn: 0.3 }, { fromIn: 10, toIn: 30, pitchIn: 2 }] }],
-      },
-    });
+    const res = await request(t.app)
+      .post('/api/designs')
+      .set(auth(tok.supplier))
+      .send({
+        design: { kitModelId: kits.body.items[0].id, partNumber: 'X-2', name: 'tight', kind: 'rib' },
+        revision: {
+          material: '6061-T6',
+          gaugeIn: 0.025,
+          rivetSpec: 'MS20470AD4-4',
+          drillSize: '#30',
+          drillDiameterIn: 0.1285,
+          edgeDistanceIn: 0.2,
+          chordIn: 40,
+          lines: [
+            {
+              code: 'U',
+              name: 'Upper',
+              surface: 'upper',
+              startIn: 1,
+              lengthIn: 30,
+              zones: [
+                { fromIn: 0, toIn: 10, pitchIn: 0.3 },
+                { fromIn: 10, toIn: 30, pitchIn: 2 },
+              ],
+            },
+          ],
+        },
+      });
     expect(res.status).toBe(400);
     expect(res.body.error.fields['revision.edgeDistanceIn']).toMatch(/0\.250 in/);
     expect(res.body.error.fields['revision.lines.0.zones.0.pitchIn']).toMatch(/0\.375 in \(3D\)/);
@@ -73,26 +136,44 @@ describe('bad input gets a clear error and saves nothing', () => {
 
   it('answers 415 to a file that is not an image, whatever it is called, and keeps nothing', async () => {
     const before = await savedCounts();
-    const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
-      .field('travelerId', travelerId).field('holeIds', '["L-03"]').field('kind', 'hole_oversize').field('note', 'looks big')
+    const res = await request(t.app)
+      .post('/api/findings')
+      .set(auth(tok.builder))
+      .field('travelerId', travelerId)
+      .field('holeIds', '["L-03"]')
+      .field('kind', 'hole_oversize')
+      .field('note', 'looks big')
       .attach('photos', await png(), 'fine.png')
-      .attach('photos', Buffer.from('%PDF-1.4 not a photo at all'), { filename: 'hole.jpg', contentType: 'image/jpeg' });
+      .attach('photos', Buffer.from('%PDF-1.4 not a photo at all'), {
+        filename: 'hole.jpg',
+        contentType: 'image/jpeg',
+      });
     expect(res.status).toBe(415);
     expect(res.body.error.message).toMatch(/hole\.jpg.*not a photo/);
     expect(await savedCounts()).toEqual(before);
   });
 
   it('answers 413 to a photo over 10 MB', async () => {
-    const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
-      .field('travelerId', travelerId).field('holeIds', '["L-03"]').field('kind', 'hole_oversize').field('note', 'looks big')
+    const res = await request(t.app)
+      .post('/api/findings')
+      .set(auth(tok.builder))
+      .field('travelerId', travelerId)
+      .field('holeIds', '["L-03"]')
+      .field('kind', 'hole_oversize')
+      .field('note', 'looks big')
       .attach('photos', Buffer.alloc(10 * 1024 * 1024 + 10, 1), 'huge.jpg');
     expect(res.status).toBe(413);
   });
 
   it('rolls back photos and finding when a hole does not exist', async () => {
     const before = await savedCounts();
-    const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
-      .field('travelerId', travelerId).field('holeIds', '["Q-99"]').field('kind', 'hole_oversize').field('note', 'looks big')
+    const res = await request(t.app)
+      .post('/api/findings')
+      .set(auth(tok.builder))
+      .field('travelerId', travelerId)
+      .field('holeIds', '["Q-99"]')
+      .field('kind', 'hole_oversize')
+      .field('note', 'looks big')
       .attach('photos', await png(), 'a.png');
     expect(res.status).toBe(400);
     expect(res.body.error.fields.holeIds).toMatch(/Q-99/);
@@ -100,20 +181,29 @@ describe('bad input gets a clear error and saves nothing', () => {
   });
 
   it('refuses a finding with no photo, naming the photos field', async () => {
-    const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
-      .field('travelerId', travelerId).field('holeIds', '["L-03"]').field('kind', 'hole_oversize').field('note', 'looks big');
+    const res = await request(t.app)
+      .post('/api/findings')
+      .set(auth(tok.builder))
+      .field('travelerId', travelerId)
+      .field('holeIds', '["L-03"]')
+      .field('kind', 'hole_oversize')
+      .field('note', 'looks big');
     expect(res.status).toBe(400);
     expect(res.body.error.fields.photos).toBeDefined();
   });
 
   it('refuses to tick a hole that is under a finding, and changes none of the run', async () => {
     const before = await t.database.db.select().from(holes);
-    const res = await request(t.app).post(`/api/travelers/${travelerId}/holes`).set(auth(tok.builder)).send({ holeIds: ['U-09', 'U-10'], status: 'installed' });
+    const res = await request(t.app)
+      .post(`/api/travelers/${travelerId}/holes`)
+      .set(auth(tok.builder))
+      .send({ holeIds: ['U-09', 'U-10'], status: 'installed' });
     expect(res.status).toBe(409);
     expect(res.body.error.message).toMatch(/U-09 \(flagged\)/);
     const after = await t.database.db.select().from(holes);
-    expect(after.find((h) => h.holeId === 'U-10' && h.travelerId === travelerId)!.status)
-      .toBe(before.find((h) => h.holeId === 'U-10' && h.travelerId === travelerId)!.status);
+    expect(after.find((h) => h.holeId === 'U-10' && h.travelerId === travelerId)!.status).toBe(
+      before.find((h) => h.holeId === 'U-10' && h.travelerId === travelerId)!.status,
+    );
   });
 
   it('answers 400 naming the id when a path id is not an id', async () => {
@@ -126,7 +216,10 @@ describe('bad input gets a clear error and saves nothing', () => {
     const kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items[0].id;
     const before = (await request(t.app).get('/api/builds').set(auth(tok.supplier))).body.items.length;
     const res = await request(t.app).post('/api/builds').set(auth(tok.supplier)).send({
-      kitModelId, kitSerial: 'NK2-\u00000999', builderEmail: 'tobias@benchwork.example', inspectorEmail: 'priya@checkpoint.example',
+      kitModelId,
+      kitSerial: 'NK2-\u00000999',
+      builderEmail: 'tobias@benchwork.example',
+      inspectorEmail: 'priya@checkpoint.example',
     });
     expect([res.status, Object.keys(res.body.error.fields)]).toEqual([400, ['kitSerial']]);
     expect((await request(t.app).get('/api/builds').set(auth(tok.supplier))).body.items).toHaveLength(before);

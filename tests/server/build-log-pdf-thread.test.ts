@@ -12,17 +12,40 @@ jest.setTimeout(60000);
  */
 const head = {
   build: {
-    id: '00000000-0000-4000-8000-000000000001', kitSerial: 'TK-0001', kitName: 'Test kit', supplierName: 'Invented Kitworks',
-    createdAt: '2026-06-01T07:00:00.000Z', builders: [{ id: 'b', name: 'Bea Builder', email: 'bea@example.test' }],
-    inspectors: [], travelerCount: 1, holesTotal: 3, holesDone: 3, openFindings: 0,
+    id: '00000000-0000-4000-8000-000000000001',
+    kitSerial: 'TK-0001',
+    kitName: 'Test kit',
+    supplierName: 'Invented Kitworks',
+    createdAt: '2026-06-01T07:00:00.000Z',
+    builders: [{ id: 'b', name: 'Bea Builder', email: 'bea@example.test' }],
+    inspectors: [],
+    travelerCount: 1,
+    holesTotal: 3,
+    holesDone: 3,
+    openFindings: 0,
   },
   count: 3,
   range: { from: '2026-06-01T07:00:00.000Z', to: '2026-06-01T07:02:00.000Z' },
 };
-const opts = { tz: 'UTC', generatedAt: new Date('2026-06-02T09:00:00Z'), generatedBy: 'Bea Builder', filters: 'none: the whole log' };
+const opts = {
+  tz: 'UTC',
+  generatedAt: new Date('2026-06-02T09:00:00Z'),
+  generatedBy: 'Bea Builder',
+  filters: 'none: the whole log',
+};
 const entry = (i: number): BuildLogEntry => ({
-  id: `t:${i}`, at: `2026-06-01T07:0${i}:00.000Z`, actorName: 'Bea Builder', actorRole: 'builder', kind: 'holes_installed', group: 'bench',
-  travelerId: 'tr', travelerSerial: 'SN-1', partNumber: 'W-104', partName: 'Wing rib', holeIds: [`U-0${i + 1}`], text: `Installed hole U-0${i + 1}.`,
+  id: `t:${i}`,
+  at: `2026-06-01T07:0${i}:00.000Z`,
+  actorName: 'Bea Builder',
+  actorRole: 'builder',
+  kind: 'holes_installed',
+  group: 'bench',
+  travelerId: 'tr',
+  travelerSerial: 'SN-1',
+  partNumber: 'W-104',
+  partName: 'Wing rib',
+  holeIds: [`U-0${i + 1}`],
+  text: `Installed hole U-0${i + 1}.`,
 });
 
 describe('the PDF thread', () => {

@@ -24,23 +24,28 @@ type Entry = { id: string; at: string; kind: string; holeIds?: string[]; text: s
 const hole = (i: number) => `H${String(i).padStart(4, '0')}`;
 
 const binary = (r: request.Response, cb: (err: Error | null, body: Buffer) => void) => {
-  const c: Buffer[] = []; r.on('data', (d: Buffer) => c.push(d)); r.on('end', () => cb(null, Buffer.concat(c)));
+  const c: Buffer[] = [];
+  r.on('data', (d: Buffer) => c.push(d));
+  r.on('end', () => cb(null, Buffer.concat(c)));
 };
 
 beforeAll(async () => {
   t = await startTestApp();
   tok = await t.tokens();
-  buildId = ((await request(t.app).get('/api/builds').set(auth(tok.supplier))).body.items as { id: string; kitSerial: string }[])
-    .find((b) => b.kitSerial === 'NK2-0147')!.id;
+  buildId = (
+    (await request(t.app).get('/api/builds').set(auth(tok.supplier))).body.items as { id: string; kitSerial: string }[]
+  ).find((b) => b.kitSerial === 'NK2-0147')!.id;
   const first = await request(t.app).get(`/api/builds/${buildId}/log`).query({ limit: 100 }).set(auth(tok.builder));
   expect(first.body.next).toBeNull();
   demoCount = first.body.items.length;
 
   const db = t.database.db;
-  const [{ traveler, actor }] = (await db.execute(sql`
+  const [{ traveler, actor }] = (
+    await db.execute(sql`
     select t.id as traveler, u.id as actor from travelers t join part_designs p on true
       join design_revisions r on r.id = t.revision_id and r.part_design_id = p.id, users u
-    where t.build_id = ${buildId} and p.part_number = 'W-104' and u.email = ${DEMO_USERS.builder.email}`)).rows as { traveler: string; actor: string }[];
+    where t.build_id = ${buildId} and p.part_number = 'W-104' and u.email = ${DEMO_USERS.builder.email}`)
+  ).rows as { traveler: string; actor: string }[];
   // Three bench events share each second, and every 7th second a build event too: ties inside one source
   // and across sources, which the order breaks by source and id.
   await db.execute(sql`
@@ -54,7 +59,9 @@ beforeAll(async () => {
       jsonb_build_object('from', '', 'to', 'N' || j)
     from generate_series(1, ${NOTES}) j`);
 });
-afterAll(async () => { await t?.close(); });
+afterAll(async () => {
+  await t?.close();
+});
 
 describe('a long build log', () => {
   let walked: Entry[] = [];
@@ -63,8 +70,10 @@ describe('a long build log', () => {
     let cursor: string | null = null;
     const total = demoCount + HOLES + NOTES;
     for (let page = 0; page < 100; page++) {
-      const res: request.Response = await request(t.app).get(`/api/builds/${buildId}/log`)
-        .query({ limit: 100, ...(cursor ? { cursor } : {}) }).set(auth(tok.builder));
+      const res: request.Response = await request(t.app)
+        .get(`/api/builds/${buildId}/log`)
+        .query({ limit: 100, ...(cursor ? { cursor } : {}) })
+        .set(auth(tok.builder));
       expect(res.status).toBe(200);
       expect(res.body.items.length).toBeLessThanOrEqual(100);
       // Only the first page names the build and its parts.
@@ -82,7 +91,9 @@ describe('a long build log', () => {
       // Seeded rows sit on whole seconds, so equal `at` is an equal instant: then source, then id, both descending.
       if (a.at === b.at && a.at.endsWith(':00.000Z') === b.at.endsWith(':00.000Z')) expect(a.id > b.id).toBe(true);
     }
-    const holes = walked.filter((e) => e.holeIds?.length === 1 && e.holeIds[0].startsWith('H')).map((e) => e.holeIds![0]);
+    const holes = walked
+      .filter((e) => e.holeIds?.length === 1 && e.holeIds[0].startsWith('H'))
+      .map((e) => e.holeIds![0]);
     expect(new Set(holes)).toEqual(new Set(Array.from({ length: HOLES }, (_, i) => hole(i + 1))));
   });
 
@@ -103,7 +114,10 @@ describe('a long build log', () => {
   });
 
   it('finds search words on a page far down the log', async () => {
-    const res = await request(t.app).get(`/api/builds/${buildId}/log`).query({ q: hole(2) }).set(auth(tok.builder));
+    const res = await request(t.app)
+      .get(`/api/builds/${buildId}/log`)
+      .query({ q: hole(2) })
+      .set(auth(tok.builder));
     expect(res.status).toBe(200);
     expect(res.body.items.map((e: Entry) => e.text)).toEqual([`Installed hole ${hole(2)}.`]);
     expect(res.body.next).toBeNull();
@@ -119,12 +133,17 @@ describe('a long build log', () => {
     const col = (name: string) => header.indexOf(name);
     // Same entries, same order: the export reads the log forwards with the same tie-break the pages read backwards.
     const fromPages = [...walked].reverse();
-    expect(rows.map((r) => [r[col('UTC')], r[col('Kind')], r[col('Holes')], r[col('What happened')]]))
-      .toEqual(fromPages.map((e) => [e.at, e.kind, (e.holeIds ?? []).join(' '), e.text]));
+    expect(rows.map((r) => [r[col('UTC')], r[col('Kind')], r[col('Holes')], r[col('What happened')]])).toEqual(
+      fromPages.map((e) => [e.at, e.kind, (e.holeIds ?? []).join(' '), e.text]),
+    );
   });
 
   it('streams a PDF that holds every entry once, oldest first, with the count in its title block', async () => {
-    const res = await request(t.app).get(`/api/builds/${buildId}/log.pdf`).set(auth(tok.builder)).buffer(true).parse(binary);
+    const res = await request(t.app)
+      .get(`/api/builds/${buildId}/log.pdf`)
+      .set(auth(tok.builder))
+      .buffer(true)
+      .parse(binary);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     const pdf = res.body as Buffer;
@@ -132,7 +151,10 @@ describe('a long build log', () => {
     expect(pdf.subarray(-6).toString('latin1')).toMatch(/%%EOF/);
     const text = pdfText(pdf);
     const printed = [...text.matchAll(/Installed hole (H\d{4})\./g)].map((m) => m[1]);
-    const fromPages = [...walked].reverse().filter((e) => e.holeIds?.length === 1 && e.holeIds[0].startsWith('H')).map((e) => e.holeIds![0]);
+    const fromPages = [...walked]
+      .reverse()
+      .filter((e) => e.holeIds?.length === 1 && e.holeIds[0].startsWith('H'))
+      .map((e) => e.holeIds![0]);
     expect(printed).toEqual(fromPages);
     const notes = [...text.matchAll(/Changed the build's note to: (N\d+)/g)].map((m) => m[1]);
     expect(notes).toHaveLength(NOTES);
@@ -146,7 +168,10 @@ describe('a long build log', () => {
   });
 
   it('answers a refused export as JSON before any byte of the file', async () => {
-    const res = await request(t.app).get(`/api/builds/${buildId}/log.pdf`).query({ travelerId: '00000000-0000-4000-8000-000000000000' }).set(auth(tok.builder));
+    const res = await request(t.app)
+      .get(`/api/builds/${buildId}/log.pdf`)
+      .query({ travelerId: '00000000-0000-4000-8000-000000000000' })
+      .set(auth(tok.builder));
     expect(res.status).toBe(404);
     expect(res.headers['content-disposition']).toBeUndefined();
     expect(res.body.error.code).toBe('not_found');

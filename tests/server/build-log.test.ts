@@ -9,13 +9,30 @@ jest.setTimeout(60000);
 
 let t: TestApp;
 let tok: Awaited<ReturnType<TestApp['tokens']>>;
-let otherBuilder: string; let otherInspector: string; let otherSupplier: string;
-let buildId: string; let innerId: string; let outerId: string; let findingId: string;
+let otherBuilder: string;
+let otherInspector: string;
+let otherSupplier: string;
+let buildId: string;
+let innerId: string;
+let outerId: string;
+let findingId: string;
 
 const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-type Entry = { id: string; at: string; kind: string; actorName: string; holeIds?: string[]; text: string; note?: string; findingId?: string; partNumber: string; photos?: { thumbUrl: string; url: string }[] };
+type Entry = {
+  id: string;
+  at: string;
+  kind: string;
+  actorName: string;
+  holeIds?: string[];
+  text: string;
+  note?: string;
+  findingId?: string;
+  partNumber: string;
+  photos?: { thumbUrl: string; url: string }[];
+};
 const kinds = (body: { items: Entry[] }) => body.items.map((e) => e.kind);
-const log = (token: string, query: Record<string, string> = {}) => request(t.app).get(`/api/builds/${buildId}/log`).query(query).set(auth(token));
+const log = (token: string, query: Record<string, string> = {}) =>
+  request(t.app).get(`/api/builds/${buildId}/log`).query(query).set(auth(token));
 
 beforeAll(async () => {
   t = await startTestApp();
@@ -27,7 +44,9 @@ beforeAll(async () => {
   innerId = (parts.body.items as { id: string; partNumber: string }[]).find((p) => p.partNumber === 'W-104')!.id;
   outerId = (parts.body.items as { id: string; partNumber: string }[]).find((p) => p.partNumber === 'W-105')!.id;
 });
-afterAll(async () => { await t?.close(); });
+afterAll(async () => {
+  await t?.close();
+});
 
 describe('the build log', () => {
   it('lists the demo ticks, the step and the flagged hole, newest first, with who did each', async () => {
@@ -37,10 +56,17 @@ describe('the build log', () => {
     expect(res.body.parts.map((p: { partNumber: string }) => p.partNumber)).toEqual(['W-104', 'W-105']);
     expect(kinds(res.body)).toEqual(['finding_raised', 'step_done', 'holes_installed', 'member_added', 'member_added']);
     const [flag, step, ticks] = res.body.items as Entry[];
-    expect(ticks).toMatchObject({ actorName: DEMO_USERS.builder.name, partNumber: 'W-104', holeIds: ['U-01', 'U-02', 'U-03', 'U-04', 'U-05', 'U-06', 'U-07', 'U-08'] });
+    expect(ticks).toMatchObject({
+      actorName: DEMO_USERS.builder.name,
+      partNumber: 'W-104',
+      holeIds: ['U-01', 'U-02', 'U-03', 'U-04', 'U-05', 'U-06', 'U-07', 'U-08'],
+    });
     expect(ticks.text).toBe('Installed 8 holes: U-01 to U-08.');
     expect(step.text).toMatch(/^Step 1 done: Deburr all holes/);
-    expect(flag).toMatchObject({ holeIds: ['U-09'], note: 'Hole looks oval after deburring, about a drill size long fore and aft.' });
+    expect(flag).toMatchObject({
+      holeIds: ['U-09'],
+      note: 'Hole looks oval after deburring, about a drill size long fore and aft.',
+    });
     expect(flag.text).toBe('Raised a finding on hole U-09: elongated hole.');
     findingId = flag.findingId!;
     expect(findingId).toBeTruthy();
@@ -64,7 +90,13 @@ describe('the build log', () => {
     for (const token of [tok.inspector, tok.supplier, tok.admin]) {
       const res = await log(token);
       expect(res.status).toBe(200);
-      expect(kinds(res.body)).toEqual(['finding_raised', 'step_done', 'holes_installed', 'member_added', 'member_added']);
+      expect(kinds(res.body)).toEqual([
+        'finding_raised',
+        'step_done',
+        'holes_installed',
+        'member_added',
+        'member_added',
+      ]);
     }
   });
 
@@ -72,7 +104,10 @@ describe('the build log', () => {
     expect(kinds((await log(tok.builder, { kind: 'bench' })).body)).toEqual(['step_done', 'holes_installed']);
     expect(kinds((await log(tok.builder, { kind: 'findings' })).body)).toEqual(['finding_raised']);
     expect(kinds((await log(tok.builder, { kind: 'sign_off' })).body)).toEqual([]);
-    expect(kinds((await log(tok.builder, { kind: 'holes_installed,finding_raised' })).body)).toEqual(['finding_raised', 'holes_installed']);
+    expect(kinds((await log(tok.builder, { kind: 'holes_installed,finding_raised' })).body)).toEqual([
+      'finding_raised',
+      'holes_installed',
+    ]);
     expect(kinds((await log(tok.builder, { travelerId: innerId })).body)).toHaveLength(3);
     expect(kinds((await log(tok.builder, { travelerId: outerId })).body)).toEqual([]);
     const today = new Date().toISOString().slice(0, 10);
@@ -81,7 +116,9 @@ describe('the build log', () => {
     expect(kinds((await log(tok.builder, { from: today, to: today })).body)).toHaveLength(5);
     expect(kinds((await log(tok.builder, { from: tomorrow })).body)).toEqual([]);
     expect(kinds((await log(tok.builder, { to: yesterday })).body)).toEqual([]);
-    expect(kinds((await log(tok.builder, { from: new Date(Date.now() - 3600000).toISOString() })).body)).toHaveLength(5);
+    expect(kinds((await log(tok.builder, { from: new Date(Date.now() - 3600000).toISOString() })).body)).toHaveLength(
+      5,
+    );
     expect(kinds((await log(tok.builder, { kind: 'people' })).body)).toEqual(['member_added', 'member_added']);
     expect(kinds((await log(tok.builder, { q: 'u-09' })).body)).toEqual(['finding_raised']);
     expect(kinds((await log(tok.builder, { q: 'deburr step' })).body)).toEqual(['step_done']);
@@ -106,7 +143,10 @@ describe('the build log', () => {
     const kind = await log(tok.builder, { kind: 'bench,gossip' });
     expect(kind.status).toBe(400);
     expect(Object.keys(kind.body.error.fields)[0]).toMatch(/^kind/);
-    const csv = await request(t.app).get(`/api/builds/${buildId}/log.csv`).query({ to: '31/12/2026' }).set(auth(tok.builder));
+    const csv = await request(t.app)
+      .get(`/api/builds/${buildId}/log.csv`)
+      .query({ to: '31/12/2026' })
+      .set(auth(tok.builder));
     expect(csv.status).toBe(400);
     expect(csv.body.error.fields).toHaveProperty('to');
   });
@@ -125,19 +165,34 @@ describe('the build log', () => {
   });
 
   it('adds the disposition with its reason once the inspector decides', async () => {
-    const res = await request(t.app).post(`/api/findings/${findingId}/disposition`).set(auth(tok.inspector))
+    const res = await request(t.app)
+      .post(`/api/findings/${findingId}/disposition`)
+      .set(auth(tok.inspector))
       .send({ disposition: 'rework', note: 'Drill out to AD5, per the "oversize" sheet; check edge distance' });
     expect(res.status).toBe(200);
     const after = await log(tok.builder);
-    expect(kinds(after.body)).toEqual(['finding_dispositioned', 'finding_raised', 'step_done', 'holes_installed', 'member_added', 'member_added']);
-    expect(after.body.items[0]).toMatchObject({ actorName: DEMO_USERS.inspector.name, text: 'Dispositioned hole U-09: rework.', findingId });
+    expect(kinds(after.body)).toEqual([
+      'finding_dispositioned',
+      'finding_raised',
+      'step_done',
+      'holes_installed',
+      'member_added',
+      'member_added',
+    ]);
+    expect(after.body.items[0]).toMatchObject({
+      actorName: DEMO_USERS.inspector.name,
+      text: 'Dispositioned hole U-09: rework.',
+      findingId,
+    });
   });
 
   it('exports CSV: a header row, one row per entry oldest first, and a note with a comma and quotes read back whole', async () => {
     const res = await request(t.app).get(`/api/builds/${buildId}/log.csv`).set(auth(tok.builder)).buffer(true);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
-    expect(res.headers['content-disposition']).toMatch(/^attachment; filename="build-log-NK2-0147-\d{4}-\d{2}-\d{2}\.csv"/);
+    expect(res.headers['content-disposition']).toMatch(
+      /^attachment; filename="build-log-NK2-0147-\d{4}-\d{2}-\d{2}\.csv"/,
+    );
     const rows = parseCsv(res.text);
     const [header, ...all] = rows;
     // The build's own entries (its people at shipping) come first; the part's follow.
@@ -146,7 +201,12 @@ describe('the build log', () => {
     expect(header.slice(0, 7)).toEqual(['Date', 'Time', 'Time zone', 'UTC', 'Who', 'Role', 'Kind']);
     expect(body.every((r) => r.length === header.length)).toBe(true);
     const col = (name: string) => header.indexOf(name);
-    expect(body.map((r) => r[col('Kind')])).toEqual(['holes_installed', 'step_done', 'finding_raised', 'finding_dispositioned']);
+    expect(body.map((r) => r[col('Kind')])).toEqual([
+      'holes_installed',
+      'step_done',
+      'finding_raised',
+      'finding_dispositioned',
+    ]);
     expect(body[3][col('Note')]).toBe('Drill out to AD5, per the "oversize" sheet; check edge distance');
     expect(body[0][col('Holes')]).toBe('U-01 U-02 U-03 U-04 U-05 U-06 U-07 U-08');
     expect(body[2][col('Photos')]).toBe('1');
@@ -155,7 +215,10 @@ describe('the build log', () => {
   });
 
   it('exports CSV with the same filters and in the reader’s time zone', async () => {
-    const res = await request(t.app).get(`/api/builds/${buildId}/log.csv`).query({ kind: 'findings', tz: 'America/Denver' }).set(auth(tok.builder));
+    const res = await request(t.app)
+      .get(`/api/builds/${buildId}/log.csv`)
+      .query({ kind: 'findings', tz: 'America/Denver' })
+      .set(auth(tok.builder));
     const [header, ...body] = parseCsv(res.text);
     expect(body.map((r) => r[header.indexOf('Kind')])).toEqual(['finding_raised', 'finding_dispositioned']);
     expect(body[0][header.indexOf('Time zone')]).toBe('America/Denver');
@@ -163,23 +226,48 @@ describe('the build log', () => {
     const local = `${body[0][header.indexOf('Date')]}T${body[0][header.indexOf('Time')]}`;
     const shift = (Date.parse(`${local}Z`) - Math.floor(utc.getTime() / 1000) * 1000) / 3600000;
     expect([-6, -7]).toContain(shift);
-    expect((await request(t.app).get(`/api/builds/${buildId}/log.csv`).query({ tz: 'Mars/Olympus' }).set(auth(tok.builder))).body.error.fields).toHaveProperty('tz');
+    expect(
+      (await request(t.app).get(`/api/builds/${buildId}/log.csv`).query({ tz: 'Mars/Olympus' }).set(auth(tok.builder)))
+        .body.error.fields,
+    ).toHaveProperty('tz');
   });
 
   it('records a sign-off once every hole and step of a part is done', async () => {
     const part = await request(t.app).get(`/api/travelers/${outerId}`).set(auth(tok.builder));
     const holeIds = part.body.holes.map((h: { holeId: string }) => h.holeId);
-    expect((await request(t.app).post(`/api/travelers/${outerId}/holes`).set(auth(tok.builder)).send({ holeIds, status: 'installed' })).status).toBe(200);
+    expect(
+      (
+        await request(t.app)
+          .post(`/api/travelers/${outerId}/holes`)
+          .set(auth(tok.builder))
+          .send({ holeIds, status: 'installed' })
+      ).status,
+    ).toBe(200);
     for (const s of part.body.steps) {
-      expect((await request(t.app).post(`/api/travelers/${outerId}/steps/${s.id}`).set(auth(tok.builder)).send({ done: true })).status).toBe(200);
+      expect(
+        (
+          await request(t.app)
+            .post(`/api/travelers/${outerId}/steps/${s.id}`)
+            .set(auth(tok.builder))
+            .send({ done: true })
+        ).status,
+      ).toBe(200);
     }
-    expect((await request(t.app).post(`/api/travelers/${outerId}/sign-off`).set(auth(tok.inspector)).send({})).status).toBe(200);
+    expect(
+      (await request(t.app).post(`/api/travelers/${outerId}/sign-off`).set(auth(tok.inspector)).send({})).status,
+    ).toBe(200);
     const res = await log(tok.supplier, { kind: 'sign_off' });
     expect(res.body.items).toHaveLength(1);
-    expect(res.body.items[0]).toMatchObject({ kind: 'signed_off', partNumber: 'W-105', actorName: DEMO_USERS.inspector.name });
+    expect(res.body.items[0]).toMatchObject({
+      kind: 'signed_off',
+      partNumber: 'W-105',
+      actorName: DEMO_USERS.inspector.name,
+    });
     const outer = await log(tok.supplier, { travelerId: outerId });
     expect(kinds(outer.body)[0]).toBe('signed_off');
-    expect(outer.body.items.find((e: Entry) => e.kind === 'holes_installed').text).toMatch(new RegExp(`^Installed ${holeIds.length} holes: L-01 to L-\\d+, U-01 to U-\\d+\\.$`));
+    expect(outer.body.items.find((e: Entry) => e.kind === 'holes_installed').text).toMatch(
+      new RegExp(`^Installed ${holeIds.length} holes: L-01 to L-\\d+, U-01 to U-\\d+\\.$`),
+    );
   });
 
   it('answers 503 (before any byte) while every PDF thread place is taken, and makes the PDF again once one frees', async () => {
@@ -196,8 +284,15 @@ describe('the build log', () => {
     } finally {
       held.forEach((release) => release?.());
     }
-    const again = await request(t.app).get(`/api/builds/${buildId}/log.pdf`).set(auth(tok.inspector)).buffer(true)
-      .parse((r, cb) => { const c: Buffer[] = []; r.on('data', (d: Buffer) => c.push(d)); r.on('end', () => cb(null, Buffer.concat(c))); });
+    const again = await request(t.app)
+      .get(`/api/builds/${buildId}/log.pdf`)
+      .set(auth(tok.inspector))
+      .buffer(true)
+      .parse((r, cb) => {
+        const c: Buffer[] = [];
+        r.on('data', (d: Buffer) => c.push(d));
+        r.on('end', () => cb(null, Buffer.concat(c)));
+      });
     expect(again.status).toBe(200);
     // A refused or finished export gives its place back: all of them are free again.
     const all = Array.from({ length: MAX_PDF_THREADS }, () => reservePdfThread());
@@ -207,8 +302,15 @@ describe('the build log', () => {
   });
 
   it('exports a PDF with the title block, the caution, every entry, the photo and page numbers', async () => {
-    const res = await request(t.app).get(`/api/builds/${buildId}/log.pdf`).set(auth(tok.inspector))
-      .buffer(true).parse((r, cb) => { const c: Buffer[] = []; r.on('data', (d: Buffer) => c.push(d)); r.on('end', () => cb(null, Buffer.concat(c))); });
+    const res = await request(t.app)
+      .get(`/api/builds/${buildId}/log.pdf`)
+      .set(auth(tok.inspector))
+      .buffer(true)
+      .parse((r, cb) => {
+        const c: Buffer[] = [];
+        r.on('data', (d: Buffer) => c.push(d));
+        r.on('end', () => cb(null, Buffer.concat(c)));
+      });
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     expect(res.headers['content-disposition']).toMatch(/^attachment; filename="build-log-NK2-0147-.*\.pdf"/);
@@ -216,8 +318,19 @@ describe('the build log', () => {
     expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
     expect(pdf.toString('latin1')).toMatch(/\/Subtype \/Image/);
     const text = pdfText(pdf);
-    for (const want of ['NK2-0147', 'NK-2 Quillon two-seat trainer', 'Northfold Kitworks', DEMO_USERS.builder.name, DEMO_USERS.inspector.name,
-      'CAUTION', 'not certification', 'Installed 8 holes: U-01 to U-08.', 'Raised a finding on hole U-09', 'Signed the part off', 'Page 1']) {
+    for (const want of [
+      'NK2-0147',
+      'NK-2 Quillon two-seat trainer',
+      'Northfold Kitworks',
+      DEMO_USERS.builder.name,
+      DEMO_USERS.inspector.name,
+      'CAUTION',
+      'not certification',
+      'Installed 8 holes: U-01 to U-08.',
+      'Raised a finding on hole U-09',
+      'Signed the part off',
+      'Page 1',
+    ]) {
       expect(text).toContain(want);
     }
     // The title block's count (counted by PostgreSQL before the first entry is drawn) and the closing line agree with the listed log.
@@ -229,8 +342,16 @@ describe('the build log', () => {
   });
 
   it('prints a filtered PDF that says it is filtered, and an empty one that says nothing matched', async () => {
-    const res = await request(t.app).get(`/api/builds/${buildId}/log.pdf`).query({ kind: 'sign_off', from: '2001-01-01', to: '2001-01-02' }).set(auth(tok.builder))
-      .buffer(true).parse((r, cb) => { const c: Buffer[] = []; r.on('data', (d: Buffer) => c.push(d)); r.on('end', () => cb(null, Buffer.concat(c))); });
+    const res = await request(t.app)
+      .get(`/api/builds/${buildId}/log.pdf`)
+      .query({ kind: 'sign_off', from: '2001-01-01', to: '2001-01-02' })
+      .set(auth(tok.builder))
+      .buffer(true)
+      .parse((r, cb) => {
+        const c: Buffer[] = [];
+        r.on('data', (d: Buffer) => c.push(d));
+        r.on('end', () => cb(null, Buffer.concat(c)));
+      });
     expect(res.status).toBe(200);
     const text = pdfText(res.body as Buffer);
     expect(text).toContain('kinds: sign off');

@@ -31,8 +31,14 @@ afterAll(async () => {
 type Inputs = RibStudyInputValues;
 const postStudy = (inputs: unknown, name = 'exhaustion') =>
   request(t.app).post('/api/studies').set(auth(tok.supplier)).send({ kitModelId, name, inputs });
-const withRib = (rib: Partial<Inputs['rib']>): Inputs => ({ ...DEMO_STUDY_INPUTS, rib: { ...DEMO_STUDY_INPUTS.rib, ...rib } });
-const withKit = (kit: Partial<Inputs['kit']>): Inputs => ({ ...DEMO_STUDY_INPUTS, kit: { ...DEMO_STUDY_INPUTS.kit, ...kit } });
+const withRib = (rib: Partial<Inputs['rib']>): Inputs => ({
+  ...DEMO_STUDY_INPUTS,
+  rib: { ...DEMO_STUDY_INPUTS.rib, ...rib },
+});
+const withKit = (kit: Partial<Inputs['kit']>): Inputs => ({
+  ...DEMO_STUDY_INPUTS,
+  kit: { ...DEMO_STUDY_INPUTS.kit, ...kit },
+});
 
 /** The request right after: the health check and a normal study both still answer. */
 async function stillServes() {
@@ -48,22 +54,68 @@ function refused(res: request.Response, field: string, message: RegExp) {
 }
 
 const ribRevision = {
-  material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 40,
-  lines: [{ code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 30, zones: [{ fromIn: 0, toIn: 10, pitchIn: 1 }, { fromIn: 10, toIn: 30, pitchIn: 2 }] }],
+  material: '6061-T6',
+  gaugeIn: 0.025,
+  rivetSpec: 'MS20470AD4',
+  drillSize: '#30',
+  drillDiameterIn: 0.1285,
+  edgeDistanceIn: 0.25,
+  chordIn: 40,
+  lines: [
+    {
+      code: 'U',
+      name: 'Upper flange',
+      surface: 'upper',
+      startIn: 1,
+      lengthIn: 30,
+      zones: [
+        { fromIn: 0, toIn: 10, pitchIn: 1 },
+        { fromIn: 10, toIn: 30, pitchIn: 2 },
+      ],
+    },
+  ],
   steps: ['Deburr', 'Rivet'],
 };
 let designNo = 0;
-const postDesign = (revision: unknown) => request(t.app).post('/api/designs').set(auth(tok.supplier))
-  .send({ design: { kitModelId, partNumber: `EX-${++designNo}`, name: 'exhaustion rib', kind: 'rib' }, revision });
+const postDesign = (revision: unknown) =>
+  request(t.app)
+    .post('/api/designs')
+    .set(auth(tok.supplier))
+    .send({ design: { kitModelId, partNumber: `EX-${++designNo}`, name: 'exhaustion rib', kind: 'rib' }, revision });
 
 describe('a load study that once exhausted the server is a 400 naming the field, and the server goes on', () => {
   it.each([
-    ['a pitch increment of 1e-12 in (the pitch grid had no bound: 2.2 GB, dead in 2.4 s)', { ...DEMO_STUDY_INPUTS, pitchIncrementIn: 1e-12 }, 'inputs.pitchIncrementIn', /between 0\.01 and 1 in/],
-    ['a pitch increment of 1e-6 in (every request blocked for three minutes)', { ...DEMO_STUDY_INPUTS, pitchIncrementIn: 1e-6 }, 'inputs.pitchIncrementIn', /between 0\.01 and 1 in/],
-    ['a rib chord of 1e6 in (out of memory after five minutes)', withRib({ chordIn: 1e6 }), 'inputs.rib.chordIn', /between 4 and 300 in/],
+    [
+      'a pitch increment of 1e-12 in (the pitch grid had no bound: 2.2 GB, dead in 2.4 s)',
+      { ...DEMO_STUDY_INPUTS, pitchIncrementIn: 1e-12 },
+      'inputs.pitchIncrementIn',
+      /between 0\.01 and 1 in/,
+    ],
+    [
+      'a pitch increment of 1e-6 in (every request blocked for three minutes)',
+      { ...DEMO_STUDY_INPUTS, pitchIncrementIn: 1e-6 },
+      'inputs.pitchIncrementIn',
+      /between 0\.01 and 1 in/,
+    ],
+    [
+      'a rib chord of 1e6 in (out of memory after five minutes)',
+      withRib({ chordIn: 1e6 }),
+      'inputs.rib.chordIn',
+      /between 4 and 300 in/,
+    ],
     ['a rib chord of 1e308 in', withRib({ chordIn: 1e308 }), 'inputs.rib.chordIn', /between 4 and 300 in/],
-    ['a rib spacing of 1e-300 in (accepted and saved with a recommendation)', withRib({ spacingIn: 1e-300 }), 'inputs.rib.spacingIn', /between 2 and 60 in/],
-    ['a mean chord of 1e300 in (blamed on the lift slope)', withKit({ meanChordIn: 1e300 }), 'inputs.kit.meanChordIn', /between 10 and 300 in/],
+    [
+      'a rib spacing of 1e-300 in (accepted and saved with a recommendation)',
+      withRib({ spacingIn: 1e-300 }),
+      'inputs.rib.spacingIn',
+      /between 2 and 60 in/,
+    ],
+    [
+      'a mean chord of 1e300 in (blamed on the lift slope)',
+      withKit({ meanChordIn: 1e300 }),
+      'inputs.kit.meanChordIn',
+      /between 10 and 300 in/,
+    ],
   ] as [string, Inputs, string, RegExp][])('%s', async (_what, inputs, field, message) => {
     const res = await postStudy(inputs);
     refused(res, field, message);
@@ -85,7 +137,14 @@ describe('a load study that once exhausted the server is a 400 naming the field,
       { name: `Upper ${k}`, surface: 'upper' as const, startXc: 0.01 + i / 100, endXc: 0.99 },
       { name: `Lower ${k}`, surface: 'lower' as const, startXc: 0.01 + i / 100, endXc: 0.99 },
     ]);
-    const res = await postStudy({ ...withRib({ chordIn: 300 }), lines, gaugeCandidates: [0.032], rivetCandidates: ['MS20470AD4'], maxPitchDiameters: 16, pitchIncrementIn: 0.01 });
+    const res = await postStudy({
+      ...withRib({ chordIn: 300 }),
+      lines,
+      gaugeCandidates: [0.032],
+      rivetCandidates: ['MS20470AD4'],
+      maxPitchDiameters: 16,
+      pitchIncrementIn: 0.01,
+    });
     refused(res, 'inputs.pitchIncrementIn', /at most 2,000,000: use an increment of at least/);
     await stillServes();
   });
@@ -96,15 +155,20 @@ describe('a load study that once exhausted the server is a 400 naming the field,
       { name: `Lower ${k}`, surface: 'lower' as const, startXc: 0.01 + i / 100, endXc: 0.99 },
     ]);
     const res = await postStudy({
-      ...withRib({ chordIn: 200 }), lines,
-      gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04, 0.05, 0.063, 0.071, 0.08, 0.09], rivetCandidates: ['PULLED-4', 'MS20470AD3', 'MS20470AD4'],
+      ...withRib({ chordIn: 200 }),
+      lines,
+      gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04, 0.05, 0.063, 0.071, 0.08, 0.09],
+      rivetCandidates: ['PULLED-4', 'MS20470AD3', 'MS20470AD4'],
     });
     refused(res, 'inputs.gaugeCandidates', /holes in all; at most 50,000/);
     await stillServes();
   });
 
   it('names an engine refusal with the whole input path (inputs.lines.1.name)', async () => {
-    const lines = [DEMO_STUDY_INPUTS.lines[0], { ...DEMO_STUDY_INPUTS.lines[1], name: DEMO_STUDY_INPUTS.lines[0].name }];
+    const lines = [
+      DEMO_STUDY_INPUTS.lines[0],
+      { ...DEMO_STUDY_INPUTS.lines[1], name: DEMO_STUDY_INPUTS.lines[0].name },
+    ];
     refused(await postStudy({ ...DEMO_STUDY_INPUTS, lines }), 'inputs.lines.1.name', /two lines are called/);
   });
 
@@ -117,7 +181,14 @@ describe('a load study that once exhausted the server is a 400 naming the field,
 describe('kits, coupons and part revisions refuse the same way', () => {
   it('refuses a kit with a mean chord of 1e308 in', async () => {
     const res = await request(t.app).post('/api/kits').set(auth(tok.supplier)).send({
-      code: 'EX-1', name: 'Exhaustion kit', weightLb: 1200, wingAreaSqFt: 110, meanChordIn: 1e308, stallSpeedKeas: 45, category: 'normal', airfoil: 'NACA 2412',
+      code: 'EX-1',
+      name: 'Exhaustion kit',
+      weightLb: 1200,
+      wingAreaSqFt: 110,
+      meanChordIn: 1e308,
+      stallSpeedKeas: 45,
+      category: 'normal',
+      airfoil: 'NACA 2412',
     });
     refused(res, 'meanChordIn', /between 10 and 300 in/);
     await stillServes();
@@ -125,8 +196,14 @@ describe('kits, coupons and part revisions refuse the same way', () => {
 
   it('refuses a coupon test whose note carries a NUL character', async () => {
     const res = await request(t.app).post('/api/coupons').set(auth(tok.supplier)).send({
-      material: '6061-T6', gaugeIn: 0.025, couponWidthIn: 1, rivetSpec: 'PULLED-4', loadLb: 40, outcome: 'no_deformation',
-      note: 'pulled\u0000clean', testedOn: '2026-10-14',
+      material: '6061-T6',
+      gaugeIn: 0.025,
+      couponWidthIn: 1,
+      rivetSpec: 'PULLED-4',
+      loadLb: 40,
+      outcome: 'no_deformation',
+      note: 'pulled\u0000clean',
+      testedOn: '2026-10-14',
     });
     refused(res, 'note', /control character/);
     await stillServes();
@@ -134,7 +211,13 @@ describe('kits, coupons and part revisions refuse the same way', () => {
 
   it('refuses a coupon test dated 9999-12-31', async () => {
     const res = await request(t.app).post('/api/coupons').set(auth(tok.supplier)).send({
-      material: '6061-T6', gaugeIn: 0.025, couponWidthIn: 1, rivetSpec: 'PULLED-4', loadLb: 40, outcome: 'no_deformation', testedOn: '9999-12-31',
+      material: '6061-T6',
+      gaugeIn: 0.025,
+      couponWidthIn: 1,
+      rivetSpec: 'PULLED-4',
+      loadLb: 40,
+      outcome: 'no_deformation',
+      testedOn: '9999-12-31',
     });
     refused(res, 'testedOn', /future/);
   });
@@ -146,65 +229,130 @@ describe('kits, coupons and part revisions refuse the same way', () => {
 
   it('refuses a revision with a zone pitch of 1e-8 in (every shipment of its kit once killed the server)', async () => {
     // An unknown rivet once skipped the 3D rule: the contract's floor and 3 × the drill hold it now.
-    const revision = { ...ribRevision, rivetSpec: 'ACME-BLIND-4', lines: [{ ...ribRevision.lines[0], zones: [{ fromIn: 0, toIn: 30, pitchIn: 1e-8 }] }] };
+    const revision = {
+      ...ribRevision,
+      rivetSpec: 'ACME-BLIND-4',
+      lines: [{ ...ribRevision.lines[0], zones: [{ fromIn: 0, toIn: 30, pitchIn: 1e-8 }] }],
+    };
     refused(await postDesign(revision), 'revision.lines.0.zones.0.pitchIn', /between 0\.125 and 12 in/);
     await stillServes();
   });
 
   it('holds a rivet outside the catalogue to 3 × its drill for pitch', async () => {
-    const revision = { ...ribRevision, rivetSpec: 'ACME-BLIND-4', lines: [{ ...ribRevision.lines[0], zones: [{ fromIn: 0, toIn: 30, pitchIn: 0.2 }] }] };
-    refused(await postDesign(revision), 'revision.lines.0.zones.0.pitchIn', /at least 0\.386 in \(3 × the 0\.1285 in drill\)/);
+    const revision = {
+      ...ribRevision,
+      rivetSpec: 'ACME-BLIND-4',
+      lines: [{ ...ribRevision.lines[0], zones: [{ fromIn: 0, toIn: 30, pitchIn: 0.2 }] }],
+    };
+    refused(
+      await postDesign(revision),
+      'revision.lines.0.zones.0.pitchIn',
+      /at least 0\.386 in \(3 × the 0\.1285 in drill\)/,
+    );
   });
 
   it('refuses a revision whose zones would give more holes than the cap, naming the pitch to widen', async () => {
     // Eight 390 in lines at 0.5 in: about 6,250 holes, over the 5,000 a revision may have.
-    const lines = 'ABCDEFGH'.split('').map((code) => ({ code, name: `Line ${code}`, surface: 'flat', startIn: 0, lengthIn: 390, zones: [{ fromIn: 0, toIn: 390, pitchIn: 0.5 }] }));
+    const lines = 'ABCDEFGH'.split('').map((code) => ({
+      code,
+      name: `Line ${code}`,
+      surface: 'flat',
+      startIn: 0,
+      lengthIn: 390,
+      zones: [{ fromIn: 0, toIn: 390, pitchIn: 0.5 }],
+    }));
     const res = await postDesign({ ...ribRevision, chordIn: 400, lines });
     refused(res, 'revision.lines.0.zones.0.pitchIn', /at most 5,000/);
     await stillServes();
   });
 
   it('holds the hole cap in the contract itself, so the form says it before sending', () => {
-    const lines = 'ABCDEFGH'.split('').map((code) => ({ code, name: `Line ${code}`, surface: 'flat', startIn: 0, lengthIn: 390, zones: [{ fromIn: 0, toIn: 390, pitchIn: 0.5 }] }));
+    const lines = 'ABCDEFGH'.split('').map((code) => ({
+      code,
+      name: `Line ${code}`,
+      surface: 'flat',
+      startIn: 0,
+      lengthIn: 390,
+      zones: [{ fromIn: 0, toIn: 390, pitchIn: 0.5 }],
+    }));
     const parsed = revisionInput.safeParse({ ...ribRevision, chordIn: 400, lines });
     expect(parsed.success ? [] : parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`)).toEqual([
-      expect.stringMatching(/^lines\.0\.zones\.0\.pitchIn: the zones give up to 6,256 holes; a revision has at most 5,000/),
+      expect.stringMatching(
+        /^lines\.0\.zones\.0\.pitchIn: the zones give up to 6,256 holes; a revision has at most 5,000/,
+      ),
     ]);
   });
 
   it('refuses to make a traveler from a revision stored before the checks, whose zones ask for millions of holes', () => {
     // checkLayout runs again when a build is shipped: a row written before the contract had its floor.
-    const stored = { ...ribRevision, rivetSpec: 'ACME-BLIND-4', lines: [{ ...ribRevision.lines[0], zones: [{ fromIn: 0, toIn: 30, pitchIn: 1e-8 }] }] };
+    const stored = {
+      ...ribRevision,
+      rivetSpec: 'ACME-BLIND-4',
+      lines: [{ ...ribRevision.lines[0], zones: [{ fromIn: 0, toIn: 30, pitchIn: 1e-8 }] }],
+    };
     expect(() => checkLayout(stored as Parameters<typeof checkLayout>[0])).toThrow(HttpError);
-    const wide = { ...ribRevision, lines: 'ABCDEFGH'.split('').map((code) => ({ ...ribRevision.lines[0], code, lengthIn: 390, zones: [{ fromIn: 0, toIn: 390, pitchIn: 0.5 }] })) };
+    const wide = {
+      ...ribRevision,
+      lines: 'ABCDEFGH'.split('').map((code) => ({
+        ...ribRevision.lines[0],
+        code,
+        lengthIn: 390,
+        zones: [{ fromIn: 0, toIn: 390, pitchIn: 0.5 }],
+      })),
+    };
     try {
       checkLayout(wide as Parameters<typeof checkLayout>[0]);
       throw new Error('expected a refusal');
     } catch (e) {
       expect((e as HttpError).status).toBe(400);
-      expect((e as HttpError).fields).toEqual({ 'lines.0.zones.0.pitchIn': expect.stringMatching(/up to [\d,]+ holes; a revision has at most 5,000/) });
+      expect((e as HttpError).fields).toEqual({
+        'lines.0.zones.0.pitchIn': expect.stringMatching(/up to [\d,]+ holes; a revision has at most 5,000/),
+      });
     }
   });
 
   it('takes a large revision under the cap', async () => {
-    const lines = 'ABCD'.split('').map((code) => ({ code, name: `Line ${code}`, surface: 'flat', startIn: 0, lengthIn: 390, zones: [{ fromIn: 0, toIn: 390, pitchIn: 0.5 }] }));
+    const lines = 'ABCD'.split('').map((code) => ({
+      code,
+      name: `Line ${code}`,
+      surface: 'flat',
+      startIn: 0,
+      lengthIn: 390,
+      zones: [{ fromIn: 0, toIn: 390, pitchIn: 0.5 }],
+    }));
     expect((await postDesign({ ...ribRevision, chordIn: 400, lines })).status).toBe(201);
   });
 });
 
 describe('studies run off the request thread', () => {
-  afterEach(async () => { await configureStudyPool(DEFAULT_STUDY_LIMITS); });
+  afterEach(async () => {
+    await configureStudyPool(DEFAULT_STUDY_LIMITS);
+  });
 
   it('answers the health check while a heavy (but allowed) study is running', async () => {
     const heavy: Inputs = {
-      ...withRib({ chordIn: 120 }), panels: 400,
+      ...withRib({ chordIn: 120 }),
+      panels: 400,
       gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04, 0.05, 0.063, 0.071, 0.08, 0.09],
-      rivetCandidates: ['PULLED-4', 'MS20470AD3', 'MS20470AD4', 'MS20470AD5', 'MS20470AD6', 'MS20470AD8', 'PULLED-5', 'MS20426AD4'],
+      rivetCandidates: [
+        'PULLED-4',
+        'MS20470AD3',
+        'MS20470AD4',
+        'MS20470AD5',
+        'MS20470AD6',
+        'MS20470AD8',
+        'PULLED-5',
+        'MS20426AD4',
+      ],
     };
     let studyDone = false;
-    const study = postStudy(heavy, 'heavy study').then((res) => { studyDone = true; return res; });
+    const study = postStudy(heavy, 'heavy study').then((res) => {
+      studyDone = true;
+      return res;
+    });
     // Wait until a study thread has it, then ask.
-    for (let i = 0; i < 200 && studyPoolLoad().running === 0 && !studyDone; i++) await new Promise((r) => setTimeout(r, 25));
+    for (let i = 0; i < 200 && studyPoolLoad().running === 0 && !studyDone; i++)
+      await new Promise((r) => setTimeout(r, 25));
     expect(studyPoolLoad().running).toBe(1);
     const asked = Date.now();
     const health = await request(t.app).get('/api/health');

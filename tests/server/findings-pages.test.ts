@@ -28,7 +28,9 @@ async function walk(token: string, query: Record<string, string | number>, bound
   const pages: FindingSummary[][] = [];
   let cursor: string | null = null;
   for (let i = 0; i < bound; i++) {
-    const qs = new URLSearchParams(Object.entries({ ...query, ...(cursor ? { cursor } : {}) }).map(([k, v]) => [k, String(v)])).toString();
+    const qs = new URLSearchParams(
+      Object.entries({ ...query, ...(cursor ? { cursor } : {}) }).map(([k, v]) => [k, String(v)]),
+    ).toString();
     const res = await get(token, `?${qs}`);
     expect(res.status).toBe(200);
     pages.push(res.body.items);
@@ -57,7 +59,10 @@ beforeAll(async () => {
   const kits = await request(t.app).get('/api/kits').set(auth(tok.supplier));
   const kitModelId = kits.body.items[0].id;
   const built = await request(t.app).post('/api/builds').set(auth(tok.supplier)).send({
-    kitModelId, kitSerial: 'PG-0001', builderEmail: 'other.builder@elsewhere.example', inspectorEmail: 'other.inspector@elsewhere.example',
+    kitModelId,
+    kitSerial: 'PG-0001',
+    builderEmail: 'other.builder@elsewhere.example',
+    inspectorEmail: 'other.inspector@elsewhere.example',
   });
   expect(built.status).toBe(201);
   const builds = await request(t.app).get('/api/builds').set(auth(tok.supplier));
@@ -67,7 +72,10 @@ beforeAll(async () => {
 
   // Findings written straight to the table so that many share one timestamp to the microsecond:
   // three instants, the second and third one microsecond apart, on both builds and in every state.
-  const [raiser] = await t.database.db.select({ id: users.id }).from(users).where(eq(users.email, DEMO_USERS.builder.email));
+  const [raiser] = await t.database.db
+    .select({ id: users.id })
+    .from(users)
+    .where(eq(users.email, DEMO_USERS.builder.email));
   const instants = ['2026-11-01 10:00:00.123456+00', '2026-11-02 09:30:00.000001+00', '2026-11-02 09:30:00.000002+00'];
   const statuses: FindingStatus[] = ['raised', 'awaiting_approval', 'work_ordered', 'work_done', 'closed'];
   const values = [];
@@ -75,18 +83,37 @@ beforeAll(async () => {
     const onDemo = i % 3 !== 2;
     const travelerIds = onDemo ? demo.travelerIds : second.travelerIds;
     values.push({
-      travelerId: travelerIds[i % travelerIds.length], holeIds: [`X-${i}`], kind: 'hole_elongated' as const, note: `made ${i}`,
-      status: statuses[i % statuses.length], raisedBy: raiser.id, createdAt: sql`${instants[i % instants.length]}::timestamptz` as unknown as Date,
+      travelerId: travelerIds[i % travelerIds.length],
+      holeIds: [`X-${i}`],
+      kind: 'hole_elongated' as const,
+      note: `made ${i}`,
+      status: statuses[i % statuses.length],
+      raisedBy: raiser.id,
+      createdAt: sql`${instants[i % instants.length]}::timestamptz` as unknown as Date,
     });
   }
   await t.database.db.insert(findings).values(values);
   // Every finding there is (the seeded demo one too), as the database keeps it.
-  const rows = await t.database.db.execute<{ id: string; at: string; build_id: string; traveler_id: string; status: FindingStatus }>(sql`
+  const rows = await t.database.db.execute<{
+    id: string;
+    at: string;
+    build_id: string;
+    traveler_id: string;
+    status: FindingStatus;
+  }>(sql`
     select f.id, f.created_at::text as at, t.build_id, f.traveler_id, f.status from findings f join travelers t on t.id = f.traveler_id`);
-  made = rows.rows.map((r) => ({ id: r.id, at: r.at, buildId: r.build_id, travelerId: r.traveler_id, status: r.status }));
+  made = rows.rows.map((r) => ({
+    id: r.id,
+    at: r.at,
+    buildId: r.build_id,
+    travelerId: r.traveler_id,
+    status: r.status,
+  }));
   expect(made.length).toBe(31);
 });
-afterAll(async () => { await t?.close(); });
+afterAll(async () => {
+  await t?.close();
+});
 
 describe('GET /api/findings in pages', () => {
   it('walks every finding exactly once, newest first then by id, through findings that share a timestamp', async () => {
@@ -100,17 +127,40 @@ describe('GET /api/findings in pages', () => {
 
   it('walks oldest first with order=oldest, the same rows the other way', async () => {
     const ids = (await walk(tok.admin, { limit: 7, order: 'oldest' })).flat().map((f) => f.id);
-    expect(ids).toEqual([...made].sort(newestFirst).reverse().map((m) => m.id));
+    expect(ids).toEqual(
+      [...made]
+        .sort(newestFirst)
+        .reverse()
+        .map((m) => m.id),
+    );
   });
 
   it('keeps the filters on every page: open findings of one build, and one state', async () => {
     const open = (await walk(tok.admin, { limit: 3, status: 'open', buildId: demo.buildId })).flat().map((f) => f.id);
-    expect(open).toEqual(made.filter((m) => m.buildId === demo.buildId && isOpenFinding(m.status)).sort(newestFirst).map((m) => m.id));
-    const waiting = (await walk(tok.admin, { limit: 2, status: 'awaiting_approval', order: 'oldest' })).flat().map((f) => f.id);
-    expect(waiting).toEqual(made.filter((m) => m.status === 'awaiting_approval').sort(newestFirst).reverse().map((m) => m.id));
+    expect(open).toEqual(
+      made
+        .filter((m) => m.buildId === demo.buildId && isOpenFinding(m.status))
+        .sort(newestFirst)
+        .map((m) => m.id),
+    );
+    const waiting = (await walk(tok.admin, { limit: 2, status: 'awaiting_approval', order: 'oldest' }))
+      .flat()
+      .map((f) => f.id);
+    expect(waiting).toEqual(
+      made
+        .filter((m) => m.status === 'awaiting_approval')
+        .sort(newestFirst)
+        .reverse()
+        .map((m) => m.id),
+    );
     const traveler = second.travelerIds[0];
     const onOne = (await walk(tok.admin, { limit: 2, travelerId: traveler })).flat().map((f) => f.id);
-    expect(onOne).toEqual(made.filter((m) => m.travelerId === traveler).sort(newestFirst).map((m) => m.id));
+    expect(onOne).toEqual(
+      made
+        .filter((m) => m.travelerId === traveler)
+        .sort(newestFirst)
+        .map((m) => m.id),
+    );
   });
 
   it('shows each person only the builds they have a place on, on every page', async () => {
@@ -118,7 +168,12 @@ describe('GET /api/findings in pages', () => {
       const pages = await walk(token, { limit: 3 });
       const seen = pages.flat();
       expect(seen.every((f) => buildIds.includes(f.buildId))).toBe(true);
-      expect(seen.map((f) => f.id)).toEqual(made.filter((m) => buildIds.includes(m.buildId)).sort(newestFirst).map((m) => m.id));
+      expect(seen.map((f) => f.id)).toEqual(
+        made
+          .filter((m) => buildIds.includes(m.buildId))
+          .sort(newestFirst)
+          .map((m) => m.id),
+      );
     };
     await expectSees(tok.builder, [demo.buildId]);
     await expectSees(tok.inspector, [demo.buildId]);
@@ -133,16 +188,34 @@ describe('GET /api/findings in pages', () => {
 
   it('gives each row its part, kit, holes, photo count and first photo as the thumbnail', async () => {
     const target = made.find((m) => m.buildId === second.buildId)!;
-    const [raiser] = await t.database.db.select({ id: users.id }).from(users).where(eq(users.email, DEMO_USERS.builder.email));
+    const [raiser] = await t.database.db
+      .select({ id: users.id })
+      .from(users)
+      .where(eq(users.email, DEMO_USERS.builder.email));
     const photo = (at: string, key: string) => ({
-      findingId: target.id, fileKey: `${key}.jpg`, thumbKey: `${key}-t.jpg`, width: 64, height: 48, uploadedBy: raiser.id,
+      findingId: target.id,
+      fileKey: `${key}.jpg`,
+      thumbKey: `${key}-t.jpg`,
+      width: 64,
+      height: 48,
+      uploadedBy: raiser.id,
       createdAt: sql`${at}::timestamptz` as unknown as Date,
     });
-    const inserted = await t.database.db.insert(findingPhotos)
-      .values([photo('2026-11-03 08:00:00+00', 'later'), photo('2026-11-03 07:00:00+00', 'first')]).returning({ id: findingPhotos.id, fileKey: findingPhotos.fileKey });
+    const inserted = await t.database.db
+      .insert(findingPhotos)
+      .values([photo('2026-11-03 08:00:00+00', 'later'), photo('2026-11-03 07:00:00+00', 'first')])
+      .returning({ id: findingPhotos.id, fileKey: findingPhotos.fileKey });
     const first = inserted.find((p) => p.fileKey === 'first.jpg')!;
-    const row = (await walk(tok.admin, { limit: 100, travelerId: target.travelerId })).flat().find((f) => f.id === target.id)!;
-    expect(row).toMatchObject({ kitSerial: 'PG-0001', buildId: second.buildId, travelerId: target.travelerId, holeIds: expect.any(Array), photoCount: 2 });
+    const row = (await walk(tok.admin, { limit: 100, travelerId: target.travelerId }))
+      .flat()
+      .find((f) => f.id === target.id)!;
+    expect(row).toMatchObject({
+      kitSerial: 'PG-0001',
+      buildId: second.buildId,
+      travelerId: target.travelerId,
+      holeIds: expect.any(Array),
+      photoCount: 2,
+    });
     expect(row.thumbUrl).toContain(`/api/photos/${first.id}/thumb`);
     expect(row.partNumber).toMatch(/^W-10[45]$/);
     // The traveler's own page lists the same finding the same way.

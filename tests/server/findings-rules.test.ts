@@ -1,6 +1,19 @@
 import {
-  allowedActions, allowedPartActions, checkPartAction, decide, findingActions, findingStatuses, mailAudienceOf, restoredHoleStatus,
-  signOffReadiness, type BuildPlace, type Disposition, type FindingAction, type FindingFacts, type FindingStatus, type PartFacts,
+  allowedActions,
+  allowedPartActions,
+  checkPartAction,
+  decide,
+  findingActions,
+  findingStatuses,
+  mailAudienceOf,
+  restoredHoleStatus,
+  signOffReadiness,
+  type BuildPlace,
+  type Disposition,
+  type FindingAction,
+  type FindingFacts,
+  type FindingStatus,
+  type PartFacts,
 } from '@/db/contracts';
 
 /**
@@ -9,8 +22,14 @@ import {
  * approves departures — use as is and repair — the builder does the ordered work, the inspector accepts it).
  */
 const OWNER: Record<FindingAction, BuildPlace> = {
-  disposition: 'inspector', amend: 'inspector', 'not-a-defect': 'inspector', accept: 'inspector', 'send-back': 'inspector',
-  approve: 'design_authority', refuse: 'design_authority', 'report-done': 'builder',
+  disposition: 'inspector',
+  amend: 'inspector',
+  'not-a-defect': 'inspector',
+  accept: 'inspector',
+  'send-back': 'inspector',
+  approve: 'design_authority',
+  refuse: 'design_authority',
+  'report-done': 'builder',
 };
 type Case = { status: FindingStatus; disposition: Disposition | null; workReported: boolean };
 const STATES: Case[] = [
@@ -27,29 +46,52 @@ const STATES: Case[] = [
 ];
 function allowedBySpec(c: Case, a: FindingAction): boolean {
   switch (a) {
-    case 'disposition': case 'not-a-defect': return c.status === 'raised';
-    case 'approve': case 'refuse': return c.status === 'awaiting_approval';
+    case 'disposition':
+    case 'not-a-defect':
+      return c.status === 'raised';
+    case 'approve':
+    case 'refuse':
+      return c.status === 'awaiting_approval';
     // Before work starts the inspector may amend; after the first report of work done, no longer.
-    case 'amend': return (c.status === 'awaiting_approval' || c.status === 'work_ordered') && !c.workReported;
-    case 'report-done': return c.status === 'work_ordered' && (c.disposition === 'rework' || c.disposition === 'repair');
-    case 'accept': case 'send-back': return c.status === 'work_done';
+    case 'amend':
+      return (c.status === 'awaiting_approval' || c.status === 'work_ordered') && !c.workReported;
+    case 'report-done':
+      return c.status === 'work_ordered' && (c.disposition === 'rework' || c.disposition === 'repair');
+    case 'accept':
+    case 'send-back':
+      return c.status === 'work_done';
   }
 }
 const PLACES: BuildPlace[] = ['builder', 'inspector', 'design_authority', 'none'];
 
 describe('the finding rules, every state × action × place', () => {
-  const rows = STATES.flatMap((c) => findingActions.flatMap((a) => PLACES.flatMap((p) => [false, true].map((partClosed) => ({ c, a, p, partClosed })))));
-  it.each(rows.map((r) => [`${r.c.status}${r.c.disposition ? ` (${r.c.disposition}${r.c.workReported ? ', work reported' : ''})` : ''}`, r.a, r.p, r.partClosed ? 'part closed' : 'part open', r] as const))(
-    '%s: %s by %s on a %s',
-    (_s, _a, _p, _c, { c, a, p, partClosed }) => {
-      const facts: FindingFacts = { ...c, partClosed };
-      const d = decide(facts, a, p, a === 'disposition' || a === 'amend' ? (c.disposition === 'rework' ? 'repair' : 'rework') : undefined);
-      if (p !== OWNER[a]) expect(d).toMatchObject({ ok: false, code: 403 });
-      else if (partClosed || !allowedBySpec(c, a)) expect(d).toMatchObject({ ok: false, code: 409 });
-      else expect(d.ok).toBe(true);
-      expect(allowedActions(facts, p).includes(a)).toBe(d.ok);
-    },
+  const rows = STATES.flatMap((c) =>
+    findingActions.flatMap((a) => PLACES.flatMap((p) => [false, true].map((partClosed) => ({ c, a, p, partClosed })))),
   );
+  it.each(
+    rows.map(
+      (r) =>
+        [
+          `${r.c.status}${r.c.disposition ? ` (${r.c.disposition}${r.c.workReported ? ', work reported' : ''})` : ''}`,
+          r.a,
+          r.p,
+          r.partClosed ? 'part closed' : 'part open',
+          r,
+        ] as const,
+    ),
+  )('%s: %s by %s on a %s', (_s, _a, _p, _c, { c, a, p, partClosed }) => {
+    const facts: FindingFacts = { ...c, partClosed };
+    const d = decide(
+      facts,
+      a,
+      p,
+      a === 'disposition' || a === 'amend' ? (c.disposition === 'rework' ? 'repair' : 'rework') : undefined,
+    );
+    if (p !== OWNER[a]) expect(d).toMatchObject({ ok: false, code: 403 });
+    else if (partClosed || !allowedBySpec(c, a)) expect(d).toMatchObject({ ok: false, code: 409 });
+    else expect(d.ok).toBe(true);
+    expect(allowedActions(facts, p).includes(a)).toBe(d.ok);
+  });
 });
 
 describe('where each move leads', () => {
@@ -67,26 +109,63 @@ describe('where each move leads', () => {
     ['scrap', 'closed', { to: 'held' }, 'scrap', 'scrapped'],
     ['return_to_supplier', 'closed', { to: 'held' }, 'return_to_supplier', 'returned'],
   ] as const)('a disposition of %s sends the finding to %s', (d, status, holes, replacePart, closure) => {
-    expect(next(raised, 'disposition', 'inspector', d)).toMatchObject({ status, holes, replacePart, closure, disposition: d });
+    expect(next(raised, 'disposition', 'inspector', d)).toMatchObject({
+      status,
+      holes,
+      replacePart,
+      closure,
+      disposition: d,
+    });
   });
 
   it('closes a use-as-is on approval and puts the holes back (riveted ones accepted); a repair goes to work', () => {
-    const waiting = (d: Disposition): FindingFacts => ({ status: 'awaiting_approval', disposition: d, workReported: false, partClosed: false });
-    expect(next(waiting('use_as_is'), 'approve', 'design_authority')).toMatchObject({ status: 'closed', closure: 'use_as_is', holes: { to: 'restore', acceptInstalled: true } });
-    expect(next(waiting('repair'), 'approve', 'design_authority')).toMatchObject({ status: 'work_ordered', closure: null, holes: { to: 'held' } });
-    expect(next(waiting('repair'), 'refuse', 'design_authority')).toMatchObject({ status: 'raised', disposition: null, holes: { to: 'flagged' } });
+    const waiting = (d: Disposition): FindingFacts => ({
+      status: 'awaiting_approval',
+      disposition: d,
+      workReported: false,
+      partClosed: false,
+    });
+    expect(next(waiting('use_as_is'), 'approve', 'design_authority')).toMatchObject({
+      status: 'closed',
+      closure: 'use_as_is',
+      holes: { to: 'restore', acceptInstalled: true },
+    });
+    expect(next(waiting('repair'), 'approve', 'design_authority')).toMatchObject({
+      status: 'work_ordered',
+      closure: null,
+      holes: { to: 'held' },
+    });
+    expect(next(waiting('repair'), 'refuse', 'design_authority')).toMatchObject({
+      status: 'raised',
+      disposition: null,
+      holes: { to: 'flagged' },
+    });
   });
 
   it('accepts work done (closed, holes accepted) or sends it back (work ordered, holes held)', () => {
     const done: FindingFacts = { status: 'work_done', disposition: 'repair', workReported: true, partClosed: false };
-    expect(next(done, 'accept', 'inspector')).toMatchObject({ status: 'closed', closure: 'accepted', holes: { to: 'accepted' } });
+    expect(next(done, 'accept', 'inspector')).toMatchObject({
+      status: 'closed',
+      closure: 'accepted',
+      holes: { to: 'accepted' },
+    });
     expect(next(done, 'send-back', 'inspector')).toMatchObject({ status: 'work_ordered', holes: { to: 'held' } });
-    const ordered: FindingFacts = { status: 'work_ordered', disposition: 'repair', workReported: false, partClosed: false };
+    const ordered: FindingFacts = {
+      status: 'work_ordered',
+      disposition: 'repair',
+      workReported: false,
+      partClosed: false,
+    };
     expect(next(ordered, 'report-done', 'builder')).toMatchObject({ status: 'work_done', holes: { to: 'reworked' } });
   });
 
   it('closes a finding that turns out fine as not a defect, holes back as they were', () => {
-    expect(next(raised, 'not-a-defect', 'inspector')).toMatchObject({ status: 'closed', closure: 'not_a_defect', disposition: null, holes: { to: 'restore', acceptInstalled: false } });
+    expect(next(raised, 'not-a-defect', 'inspector')).toMatchObject({
+      status: 'closed',
+      closure: 'not_a_defect',
+      disposition: null,
+      holes: { to: 'restore', acceptInstalled: false },
+    });
     expect(restoredHoleStatus('pending', true)).toBe('pending');
     expect(restoredHoleStatus('installed', false)).toBe('installed');
     expect(restoredHoleStatus('installed', true)).toBe('accepted');
@@ -94,7 +173,12 @@ describe('where each move leads', () => {
   });
 
   it('refuses to amend a disposition to the one it already has', () => {
-    const ordered: FindingFacts = { status: 'work_ordered', disposition: 'rework', workReported: false, partClosed: false };
+    const ordered: FindingFacts = {
+      status: 'work_ordered',
+      disposition: 'rework',
+      workReported: false,
+      partClosed: false,
+    };
     expect(decide(ordered, 'amend', 'inspector', 'rework')).toMatchObject({ ok: false, code: 409 });
     expect(decide(raised, 'disposition', 'inspector')).toMatchObject({ ok: false, code: 409 });
   });
@@ -133,7 +217,13 @@ describe('who is mailed', () => {
 });
 
 describe('a part ready to sign off', () => {
-  const ready: PartFacts = { holes: { installed: 3, accepted: 2 }, stepsOpen: 0, openFindings: 0, signedOff: false, replaced: false };
+  const ready: PartFacts = {
+    holes: { installed: 3, accepted: 2 },
+    stepsOpen: 0,
+    openFindings: 0,
+    signedOff: false,
+    replaced: false,
+  };
   it.each([
     ['every hole installed or accepted, every step done, no finding open', ready, true],
     ['a hole pending', { ...ready, holes: { ...ready.holes, pending: 1 } }, false],
@@ -151,21 +241,41 @@ describe('a part ready to sign off', () => {
   });
 
   it('says why not, in words', () => {
-    expect(signOffReadiness({ holes: { pending: 2, installed: 1 }, stepsOpen: 1, openFindings: 1, signedOff: false, replaced: false }).reasons)
-      .toEqual(['2 holes not done', '1 step not done', '1 finding open']);
+    expect(
+      signOffReadiness({
+        holes: { pending: 2, installed: 1 },
+        stepsOpen: 1,
+        openFindings: 1,
+        signedOff: false,
+        replaced: false,
+      }).reasons,
+    ).toEqual(['2 holes not done', '1 step not done', '1 finding open']);
   });
 
   it.each([
-    ['tick', 'builder', null], ['tick', 'inspector', 403], ['tick', 'design_authority', 403], ['tick', 'none', 403],
-    ['step', 'builder', null], ['step', 'inspector', 403],
-    ['raise', 'builder', null], ['raise', 'inspector', null], ['raise', 'design_authority', null], ['raise', 'none', 403],
-    ['sign-off', 'inspector', null], ['sign-off', 'builder', 403], ['sign-off', 'design_authority', 403],
+    ['tick', 'builder', null],
+    ['tick', 'inspector', 403],
+    ['tick', 'design_authority', 403],
+    ['tick', 'none', 403],
+    ['step', 'builder', null],
+    ['step', 'inspector', 403],
+    ['raise', 'builder', null],
+    ['raise', 'inspector', null],
+    ['raise', 'design_authority', null],
+    ['raise', 'none', 403],
+    ['sign-off', 'inspector', null],
+    ['sign-off', 'builder', 403],
+    ['sign-off', 'design_authority', 403],
   ] as const)('%s by %s on an open, ready part → %s', (action, place, code) => {
     expect(checkPartAction(ready, action, place)?.code ?? null).toBe(code);
   });
 
   it.each(['tick', 'step', 'raise'] as const)('refuses %s on a signed-off or replaced part with 409', (action) => {
-    expect(checkPartAction({ ...ready, signedOff: true }, action, action === 'raise' ? 'inspector' : 'builder')?.code).toBe(409);
-    expect(checkPartAction({ ...ready, replaced: true }, action, action === 'raise' ? 'inspector' : 'builder')?.code).toBe(409);
+    expect(
+      checkPartAction({ ...ready, signedOff: true }, action, action === 'raise' ? 'inspector' : 'builder')?.code,
+    ).toBe(409);
+    expect(
+      checkPartAction({ ...ready, replaced: true }, action, action === 'raise' ? 'inspector' : 'builder')?.code,
+    ).toBe(409);
   });
 });

@@ -21,8 +21,12 @@ import { startTestApp, type TestApp } from '../helpers/test-app';
 jest.setTimeout(60_000);
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t?.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t?.close();
+});
 
 const { builder, supplier, inspector, admin } = DEMO_USERS;
 
@@ -31,7 +35,11 @@ describe('security headers (helmet)', () => {
     const res = await request(t.app).get('/api/health');
     expect(res.status).toBe(200);
     const csp = String(res.headers['content-security-policy']);
-    const directive = (name: string) => csp.split(';').map((d) => d.trim()).find((d) => d.startsWith(`${name} `));
+    const directive = (name: string) =>
+      csp
+        .split(';')
+        .map((d) => d.trim())
+        .find((d) => d.startsWith(`${name} `));
     expect(directive('default-src')).toBe("default-src 'self'");
     expect(directive('script-src')).toBe("script-src 'self' 'wasm-unsafe-eval'");
     expect(directive('frame-ancestors')).toBe("frame-ancestors 'none'");
@@ -80,15 +88,35 @@ describe('request ids (pino-http)', () => {
 
   it('logs one JSON line per API request with its id and status, without the bearer token or query values', async () => {
     const lines: string[] = [];
-    const logger = createLogger({ logLevel: 'info' }, { write: (line: string) => { lines.push(line); } });
-    const { app } = createApp({ config: t.config, database: t.database, mailQueue: t.mailQueue, storage: t.ctx.storage, logger });
+    const logger = createLogger(
+      { logLevel: 'info' },
+      {
+        write: (line: string) => {
+          lines.push(line);
+        },
+      },
+    );
+    const { app } = createApp({
+      config: t.config,
+      database: t.database,
+      mailQueue: t.mailQueue,
+      storage: t.ctx.storage,
+      logger,
+    });
     const token = await t.signIn(builder.email);
-    const res = await request(app).get('/api/travelers?exp=123&sig=secret-signature').set('Authorization', `Bearer ${token}`).set('X-Request-Id', 'trace-me-1');
+    const res = await request(app)
+      .get('/api/travelers?exp=123&sig=secret-signature')
+      .set('Authorization', `Bearer ${token}`)
+      .set('X-Request-Id', 'trace-me-1');
     expect(res.status).toBe(200);
     await new Promise((r) => setImmediate(r));
     const entries = lines.map((l) => JSON.parse(l)).filter((e) => e.req?.id === 'trace-me-1');
     expect(entries).toHaveLength(1);
-    expect(entries[0]).toMatchObject({ level: 30, req: { method: 'GET', url: '/api/travelers?exp=[redacted]&sig=[redacted]' }, res: { statusCode: 200 } });
+    expect(entries[0]).toMatchObject({
+      level: 30,
+      req: { method: 'GET', url: '/api/travelers?exp=[redacted]&sig=[redacted]' },
+      res: { statusCode: 200 },
+    });
     expect(typeof entries[0].responseTime).toBe('number');
     const all = lines.join('\n');
     expect(all).not.toContain(token);
@@ -117,7 +145,10 @@ describe('sign-in limit, counted in PostgreSQL across server processes', () => {
     a = await startTestApp({ env: limits });
     b = await startTestApp({ seed: false, databaseUrl: a.config.databaseUrl, env: limits });
   });
-  afterAll(async () => { await b?.close(); await a?.close(); });
+  afterAll(async () => {
+    await b?.close();
+    await a?.close();
+  });
 
   // Each test its own client address (trusted only from loopback, as a local proxy would send it).
   const signIn = (app: TestApp, ip: string, email: string, password = 'wrong-password-1') =>
@@ -144,7 +175,14 @@ describe('sign-in limit, counted in PostgreSQL across server processes', () => {
 
   it('answers 429 after the limit per client address, whatever addresses it tries', async () => {
     const ip = '203.0.113.7';
-    const tries = [supplier.email, inspector.email, admin.email, 'nobody-1@example.com', 'nobody-2@example.com', 'nobody-3@example.com'];
+    const tries = [
+      supplier.email,
+      inspector.email,
+      admin.email,
+      'nobody-1@example.com',
+      'nobody-2@example.com',
+      'nobody-3@example.com',
+    ];
     for (const [i, email] of tries.entries()) expect((await signIn(i % 2 ? b : a, ip, email)).status).toBe(401);
     const limited = await signIn(b, ip, 'nobody-4@example.com');
     expect(limited.status).toBe(429);
@@ -162,7 +200,12 @@ describe('sign-in limit, counted in PostgreSQL across server processes', () => {
 
 describe('the private PostgreSQL cluster', () => {
   const url = new URL(process.env.TEST_DATABASE_URL!);
-  const target = { host: '127.0.0.1', port: Number(url.port || 5432), user: decodeURIComponent(url.username || 'postgres'), database: 'postgres' };
+  const target = {
+    host: '127.0.0.1',
+    port: Number(url.port || 5432),
+    user: decodeURIComponent(url.username || 'postgres'),
+    database: 'postgres',
+  };
 
   it('refuses a connection without the password', async () => {
     const saved = process.env.PGPASSWORD;
@@ -193,7 +236,9 @@ describe('the private PostgreSQL cluster', () => {
 describe('configuration', () => {
   const base = { DATABASE_URL: 'postgres://x@127.0.0.1/x' };
   it('refuses a JWT secret shorter than 32 characters in production, naming the variable', () => {
-    expect(() => loadConfig({ ...base, NODE_ENV: 'production', JWT_SECRET: 'x'.repeat(31) })).toThrow(/JWT_SECRET: .*32 characters in production/);
+    expect(() => loadConfig({ ...base, NODE_ENV: 'production', JWT_SECRET: 'x'.repeat(31) })).toThrow(
+      /JWT_SECRET: .*32 characters in production/,
+    );
     expect(loadConfig({ ...base, NODE_ENV: 'production', JWT_SECRET: 'x'.repeat(32) }).jwtSecret).toHaveLength(32);
     expect(loadConfig({ ...base, NODE_ENV: 'development', JWT_SECRET: 'x'.repeat(20) }).jwtSecret).toHaveLength(20);
   });
@@ -208,7 +253,9 @@ describe('photo files that no row points to', () => {
   const hoursAgo = (h: number) => new Date(Date.now() - h * 3600_000);
 
   it('are removed after the grace period; recent ones, recorded ones and other files stay', async () => {
-    const recorded = await t.database.db.select({ fileKey: findingPhotos.fileKey, thumbKey: findingPhotos.thumbKey }).from(findingPhotos);
+    const recorded = await t.database.db
+      .select({ fileKey: findingPhotos.fileKey, thumbKey: findingPhotos.thumbKey })
+      .from(findingPhotos);
     expect(recorded.length).toBeGreaterThan(0); // the demo's flagged hole has a photo
     const recordedKeys = recorded.flatMap((r) => [r.fileKey, r.thumbKey]);
     // Everything old, so that only the missing row decides.
@@ -217,7 +264,8 @@ describe('photo files that no row points to', () => {
     const orphanOld = `${randomUUID()}.jpg`;
     const orphanNew = `${randomUUID()}.jpg`;
     const notOurs = 'notes.txt';
-    for (const name of [orphanOld, orphanNew, notOurs]) await writeFile(path.join(t.uploadsDir, name), 'left behind by a crash');
+    for (const name of [orphanOld, orphanNew, notOurs])
+      await writeFile(path.join(t.uploadsDir, name), 'left behind by a crash');
     await utimes(path.join(t.uploadsDir, orphanOld), hoursAgo(2), hoursAgo(2));
     await utimes(path.join(t.uploadsDir, notOurs), hoursAgo(2), hoursAgo(2));
     await utimes(path.join(t.uploadsDir, orphanNew), hoursAgo(0.5), hoursAgo(0.5));
@@ -238,14 +286,32 @@ describe('photo files that no row points to', () => {
 describe('scripts/supervise.sh', () => {
   const script = path.join(__dirname, '..', '..', 'scripts', 'supervise.sh');
   /** Runs the supervisor on a small node program; bounded by `ms`. */
-  function supervise(program: string, env: Record<string, string>, ms = 20_000, onStart?: (p: ReturnType<typeof spawn>) => void) {
+  function supervise(
+    program: string,
+    env: Record<string, string>,
+    ms = 20_000,
+    onStart?: (p: ReturnType<typeof spawn>) => void,
+  ) {
     return new Promise<{ code: number | null; out: string }>((resolve, reject) => {
-      const p = spawn('bash', [script, process.execPath, '-e', program], { env: { ...process.env, SUPERVISE_BACKOFF_SECONDS: '0', ...env } });
+      const p = spawn('bash', [script, process.execPath, '-e', program], {
+        env: { ...process.env, SUPERVISE_BACKOFF_SECONDS: '0', ...env },
+      });
       let out = '';
-      p.stdout.on('data', (d) => { out += d; onStart?.(p); });
-      p.stderr.on('data', (d) => { out += d; });
-      const timer = setTimeout(() => { p.kill('SIGKILL'); reject(new Error(`supervisor still running after ${ms} ms:\n${out}`)); }, ms);
-      p.on('close', (code) => { clearTimeout(timer); resolve({ code, out }); });
+      p.stdout.on('data', (d) => {
+        out += d;
+        onStart?.(p);
+      });
+      p.stderr.on('data', (d) => {
+        out += d;
+      });
+      const timer = setTimeout(() => {
+        p.kill('SIGKILL');
+        reject(new Error(`supervisor still running after ${ms} ms:\n${out}`));
+      }, ms);
+      p.on('close', (code) => {
+        clearTimeout(timer);
+        resolve({ code, out });
+      });
     });
   }
 
@@ -263,9 +329,15 @@ describe('scripts/supervise.sh', () => {
   });
 
   it('passes SIGTERM on to the server, lets it drain, and stops', async () => {
-    const program = 'process.on("SIGTERM", () => { console.log("drained"); process.exit(0); }); console.log("up"); setInterval(() => {}, 1000);';
+    const program =
+      'process.on("SIGTERM", () => { console.log("drained"); process.exit(0); }); console.log("up"); setInterval(() => {}, 1000);';
     let sent = false;
-    const { code, out } = await supervise(program, {}, 20_000, (p) => { if (!sent) { sent = true; p.kill('SIGTERM'); } });
+    const { code, out } = await supervise(program, {}, 20_000, (p) => {
+      if (!sent) {
+        sent = true;
+        p.kill('SIGTERM');
+      }
+    });
     expect(out).toContain('drained');
     expect(out.match(/up/g)).toHaveLength(1);
     expect(code).toBe(0);

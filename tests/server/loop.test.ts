@@ -7,33 +7,79 @@ jest.setTimeout(60000);
 
 let t: TestApp;
 let tok: Awaited<ReturnType<TestApp['tokens']>>;
-beforeAll(async () => { t = await startTestApp(); tok = await t.tokens(); });
-afterAll(async () => { await t?.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+  tok = await t.tokens();
+});
+afterAll(async () => {
+  await t?.close();
+});
 
 const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-const jpeg = () => sharp({ create: { width: 64, height: 48, channels: 3, background: '#888' } }).jpeg().toBuffer();
+const jpeg = () =>
+  sharp({ create: { width: 64, height: 48, channels: 3, background: '#888' } })
+    .jpeg()
+    .toBuffer();
 
 const ribRevision = {
-  material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 40,
+  material: '6061-T6',
+  gaugeIn: 0.02,
+  rivetSpec: 'MS20470AD4',
+  drillSize: '#30',
+  drillDiameterIn: 0.1285,
+  edgeDistanceIn: 0.25,
+  chordIn: 40,
   lines: [
-    { code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 30, zones: [{ fromIn: 0, toIn: 10, pitchIn: 1 }, { fromIn: 10, toIn: 30, pitchIn: 2 }] },
-    { code: 'L', name: 'Lower flange', surface: 'lower', startIn: 1, lengthIn: 30, zones: [{ fromIn: 0, toIn: 30, pitchIn: 2 }] },
+    {
+      code: 'U',
+      name: 'Upper flange',
+      surface: 'upper',
+      startIn: 1,
+      lengthIn: 30,
+      zones: [
+        { fromIn: 0, toIn: 10, pitchIn: 1 },
+        { fromIn: 10, toIn: 30, pitchIn: 2 },
+      ],
+    },
+    {
+      code: 'L',
+      name: 'Lower flange',
+      surface: 'lower',
+      startIn: 1,
+      lengthIn: 30,
+      zones: [{ fromIn: 0, toIn: 30, pitchIn: 2 }],
+    },
   ],
   steps: ['Deburr', 'Rivet'],
 };
 
 describe('the main loop through the API', () => {
-  let kitId: string; let revisionId: string; let buildId: string; let travelerId: string; let findingId: string;
+  let kitId: string;
+  let revisionId: string;
+  let buildId: string;
+  let travelerId: string;
+  let findingId: string;
 
   it('lets the supplier create a kit model and a rib design as draft revision A', async () => {
     const kit = await request(t.app).post('/api/kits').set(auth(tok.supplier)).send({
-      code: 'TK-9', name: 'Test kit', weightLb: 1200, wingAreaSqFt: 110, meanChordIn: 50, stallSpeedKeas: 45, category: 'normal', airfoil: 'NACA 2412',
+      code: 'TK-9',
+      name: 'Test kit',
+      weightLb: 1200,
+      wingAreaSqFt: 110,
+      meanChordIn: 50,
+      stallSpeedKeas: 45,
+      category: 'normal',
+      airfoil: 'NACA 2412',
     });
     expect(kit.status).toBe(201);
     kitId = kit.body.id;
-    const design = await request(t.app).post('/api/designs').set(auth(tok.supplier)).send({
-      design: { kitModelId: kitId, partNumber: 'R-1', name: 'Test rib', kind: 'rib' }, revision: ribRevision,
-    });
+    const design = await request(t.app)
+      .post('/api/designs')
+      .set(auth(tok.supplier))
+      .send({
+        design: { kitModelId: kitId, partNumber: 'R-1', name: 'Test rib', kind: 'rib' },
+        revision: ribRevision,
+      });
     expect(design.status).toBe(201);
     expect(design.body.revisions[0]).toMatchObject({ letter: 'A', status: 'draft' });
     revisionId = design.body.revisions[0].id;
@@ -43,14 +89,20 @@ describe('the main loop through the API', () => {
     const pub = await request(t.app).post(`/api/revisions/${revisionId}/publish`).set(auth(tok.supplier)).send({});
     expect(pub.status).toBe(200);
     expect(pub.body).toMatchObject({ status: 'published', publishedByName: DEMO_USERS.supplier.name });
-    const edit = await request(t.app).patch(`/api/revisions/${revisionId}`).set(auth(tok.supplier)).send({ ...ribRevision, gaugeIn: 0.032 });
+    const edit = await request(t.app)
+      .patch(`/api/revisions/${revisionId}`)
+      .set(auth(tok.supplier))
+      .send({ ...ribRevision, gaugeIn: 0.032 });
     expect(edit.status).toBe(409);
     expect(edit.body.error.message).toMatch(/can no longer be changed/);
   });
 
   it('ships a build with a traveler per published part, each with its own serial, token and short code', async () => {
     const res = await request(t.app).post('/api/builds').set(auth(tok.supplier)).send({
-      kitModelId: kitId, kitSerial: 'TK9-0001', builderEmail: DEMO_USERS.builder.email.toUpperCase(), inspectorEmail: DEMO_USERS.inspector.email,
+      kitModelId: kitId,
+      kitSerial: 'TK9-0001',
+      builderEmail: DEMO_USERS.builder.email.toUpperCase(),
+      inspectorEmail: DEMO_USERS.inspector.email,
     });
     expect(res.status).toBe(201);
     buildId = res.body.id;
@@ -61,7 +113,10 @@ describe('the main loop through the API', () => {
     expect(labels.body[0].shortCode).toMatch(/^[A-Z0-9]{3}-[A-Z0-9]{3}$/);
     travelerId = labels.body[0].travelerId;
     // The builder opens it by the QR url and by the short code typed loosely.
-    const byUrl = await request(t.app).get('/api/travelers/lookup').query({ code: labels.body[0].url }).set(auth(tok.builder));
+    const byUrl = await request(t.app)
+      .get('/api/travelers/lookup')
+      .query({ code: labels.body[0].url })
+      .set(auth(tok.builder));
     expect(byUrl.body).toEqual({ id: travelerId });
     const typed = labels.body[0].shortCode.replace('-', '').toLowerCase();
     const byCode = await request(t.app).get('/api/travelers/lookup').query({ code: typed }).set(auth(tok.builder));
@@ -83,7 +138,10 @@ describe('the main loop through the API', () => {
   });
 
   it('ticks a run of holes installed and counts progress', async () => {
-    const res = await request(t.app).post(`/api/travelers/${travelerId}/holes`).set(auth(tok.builder)).send({ holeIds: ['U-01', 'U-02', 'U-03'], status: 'installed' });
+    const res = await request(t.app)
+      .post(`/api/travelers/${travelerId}/holes`)
+      .set(auth(tok.builder))
+      .send({ holeIds: ['U-01', 'U-02', 'U-03'], status: 'installed' });
     expect(res.status).toBe(200);
     expect(res.body.holes.every((h: { status: string }) => h.status === 'installed')).toBe(true);
     const list = await request(t.app).get('/api/travelers').set(auth(tok.builder));
@@ -91,15 +149,27 @@ describe('the main loop through the API', () => {
   });
 
   it('raises a finding on a suspect hole with a photo and mails the inspector with part, hole, kind, link and thumbnail', async () => {
-    const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
-      .field('travelerId', travelerId).field('holeIds', JSON.stringify(['U-04'])).field('kind', 'hole_cracked').field('note', 'hairline crack at the edge')
+    const res = await request(t.app)
+      .post('/api/findings')
+      .set(auth(tok.builder))
+      .field('travelerId', travelerId)
+      .field('holeIds', JSON.stringify(['U-04']))
+      .field('kind', 'hole_cracked')
+      .field('note', 'hairline crack at the edge')
       .attach('photos', await jpeg(), { filename: 'crack.jpg', contentType: 'image/jpeg' });
     expect(res.status).toBe(201);
     findingId = res.body.id;
     expect(res.body.photos).toHaveLength(1);
-    expect(res.body.events[0]).toMatchObject({ action: 'raise', toStatus: 'raised', actorName: DEMO_USERS.builder.name, actorPlace: 'builder' });
+    expect(res.body.events[0]).toMatchObject({
+      action: 'raise',
+      toStatus: 'raised',
+      actorName: DEMO_USERS.builder.name,
+      actorPlace: 'builder',
+    });
     expect(res.body.allowedActions).toEqual([]);
-    const mail = await t.waitForMail((m) => m.to.includes(DEMO_USERS.inspector.email) && m.subject.includes('R-1') && m.subject.includes('U-04'));
+    const mail = await t.waitForMail(
+      (m) => m.to.includes(DEMO_USERS.inspector.email) && m.subject.includes('R-1') && m.subject.includes('U-04'),
+    );
     expect(mail.text).toContain('Crack at the hole');
     expect(mail.text).toContain(`/findings/${findingId}`);
     expect(mail.attachments).toBe(1);
@@ -113,7 +183,10 @@ describe('the main loop through the API', () => {
     expect(queue.body.items.map((f: { id: string }) => f.id)).toContain(findingId);
     const seen = await request(t.app).get(`/api/findings/${findingId}`).set(auth(tok.inspector));
     expect(seen.body.allowedActions).toEqual(['disposition', 'not-a-defect']);
-    const res = await request(t.app).post(`/api/findings/${findingId}/disposition`).set(auth(tok.inspector)).send({ disposition: 'rework', note: 'drill out and set the same rivet again' });
+    const res = await request(t.app)
+      .post(`/api/findings/${findingId}/disposition`)
+      .set(auth(tok.inspector))
+      .send({ disposition: 'rework', note: 'drill out and set the same rivet again' });
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ status: 'work_ordered', disposition: 'rework' });
     const traveler = await request(t.app).get(`/api/travelers/${travelerId}`).set(auth(tok.builder));
@@ -123,14 +196,27 @@ describe('the main loop through the API', () => {
   });
 
   it('keeps every change as an event, through work done with a photo and accepted, which closes it', async () => {
-    const done = await request(t.app).post(`/api/findings/${findingId}/report-done`).set(auth(tok.builder))
-      .field('note', 'drilled out, same AD4 set again').attach('photos', await jpeg(), { filename: 'done.jpg', contentType: 'image/jpeg' });
+    const done = await request(t.app)
+      .post(`/api/findings/${findingId}/report-done`)
+      .set(auth(tok.builder))
+      .field('note', 'drilled out, same AD4 set again')
+      .attach('photos', await jpeg(), { filename: 'done.jpg', contentType: 'image/jpeg' });
     expect(done.status).toBe(200);
     expect(done.body.photos.map((p: { stage: string }) => p.stage)).toEqual(['found', 'work']);
-    await t.waitForMail((m) => m.to.includes(DEMO_USERS.inspector.email) && m.subject.includes('Rework done: to inspect'));
-    const closed = await request(t.app).post(`/api/findings/${findingId}/accept`).set(auth(tok.inspector)).send({ note: 'good' });
+    await t.waitForMail(
+      (m) => m.to.includes(DEMO_USERS.inspector.email) && m.subject.includes('Rework done: to inspect'),
+    );
+    const closed = await request(t.app)
+      .post(`/api/findings/${findingId}/accept`)
+      .set(auth(tok.inspector))
+      .send({ note: 'good' });
     expect(closed.body).toMatchObject({ status: 'closed', closure: 'accepted', allowedActions: [] });
-    expect(closed.body.events.map((e: { action: string }) => e.action)).toEqual(['raise', 'disposition', 'report-done', 'accept']);
+    expect(closed.body.events.map((e: { action: string }) => e.action)).toEqual([
+      'raise',
+      'disposition',
+      'report-done',
+      'accept',
+    ]);
     const traveler = await request(t.app).get(`/api/travelers/${travelerId}`).set(auth(tok.inspector));
     expect(traveler.body.holes.find((h: { holeId: string }) => h.holeId === 'U-04').status).toBe('accepted');
   });

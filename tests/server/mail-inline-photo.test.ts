@@ -15,13 +15,29 @@ import { startTestApp, type TestApp } from '../helpers/test-app';
  */
 jest.setTimeout(120000);
 
-const jpeg = () => sharp({ create: { width: 64, height: 48, channels: 3, background: '#6a6a6a' } }).jpeg().toBuffer();
+const jpeg = () =>
+  sharp({ create: { width: 64, height: 48, channels: 3, background: '#6a6a6a' } })
+    .jpeg()
+    .toBuffer();
 const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 
 const facts = (thumbnail: Buffer | null): FindingMailFacts => ({
-  findingId: '3f1e2d4c-0000-4000-8000-00000000beef', action: 'raise', toStatus: 'raised', disposition: null, note: 'shop head cracked',
-  actorName: 'A. Builder', partNumber: 'T-1', partName: 'Test rib', letter: 'A', serial: 'T1-0001', kitSerial: 'KIT-1',
-  holeIds: ['U-04'], kind: 'hole_cracked', repair: null, link: 'http://pitchcard.test/findings/x', thumbnail,
+  findingId: '3f1e2d4c-0000-4000-8000-00000000beef',
+  action: 'raise',
+  toStatus: 'raised',
+  disposition: null,
+  note: 'shop head cracked',
+  actorName: 'A. Builder',
+  partNumber: 'T-1',
+  partName: 'Test rib',
+  letter: 'A',
+  serial: 'T1-0001',
+  kitSerial: 'KIT-1',
+  holeIds: ['U-04'],
+  kind: 'hole_cracked',
+  repair: null,
+  link: 'http://pitchcard.test/findings/x',
+  thumbnail,
 });
 
 describe('the photo in a finding mail, as the SMTP relay receives it', () => {
@@ -31,9 +47,12 @@ describe('the photo in a finding mail, as the SMTP relay receives it', () => {
     fake = await startSmtpFake(0);
     mailer = createMailer({ host: '127.0.0.1', port: fake.port, from: 'pitchcard@shop.example', fake: true });
   });
-  afterAll(async () => { mailer.close(); await fake.close(); });
+  afterAll(async () => {
+    mailer.close();
+    await fake.close();
+  });
 
-  it('arrives as an inline part under the finding\'s Content-ID, named by a cid: link and never as a data: URL', async () => {
+  it("arrives as an inline part under the finding's Content-ID, named by a cid: link and never as a data: URL", async () => {
     const photo = await jpeg();
     const f = facts(photo);
     await mailer.send({ to: 'inspector@shop.example', ...findingMail(f) });
@@ -62,7 +81,9 @@ describe('the photo in a finding mail, as the SMTP relay receives it', () => {
     const newest = res.body[0];
     const cid = holePhotoCid(facts(null).findingId);
     expect(newest.html).toContain(`cid:${cid}`);
-    expect(newest.attachments).toEqual([{ cid, filename: 'hole.jpg', contentType: 'image/jpeg', disposition: 'inline', size: photo.length }]);
+    expect(newest.attachments).toEqual([
+      { cid, filename: 'hole.jpg', contentType: 'image/jpeg', disposition: 'inline', size: photo.length },
+    ]);
     expect(newest.previewHtml).toContain(`src="data:image/jpeg;base64,${photo.toString('base64')}"`);
     expect(newest.previewHtml).not.toContain('cid:');
   });
@@ -70,20 +91,31 @@ describe('the photo in a finding mail, as the SMTP relay receives it', () => {
 
 describe('a finding raised with a photo, through the job queue', () => {
   let t: TestApp;
-  beforeAll(async () => { t = await startTestApp(); });
-  afterAll(async () => { await t?.close(); });
+  beforeAll(async () => {
+    t = await startTestApp();
+  });
+  afterAll(async () => {
+    await t?.close();
+  });
 
-  it('mails the inspector the hole\'s photo inline by the finding\'s Content-ID', async () => {
+  it("mails the inspector the hole's photo inline by the finding's Content-ID", async () => {
     const tok = await t.tokens();
     const list = await request(t.app).get('/api/travelers').set(auth(tok.builder));
     expect(list.status).toBe(200);
     const traveler = await request(t.app).get(`/api/travelers/${list.body.items[0].id}`).set(auth(tok.builder));
     const hole = traveler.body.holes.find((h: { status: string }) => h.status === 'pending');
-    const res = await request(t.app).post('/api/findings').set(auth(tok.builder))
-      .field('travelerId', traveler.body.id).field('holeIds', JSON.stringify([hole.holeId])).field('kind', 'hole_cracked').field('note', 'crack at the edge')
+    const res = await request(t.app)
+      .post('/api/findings')
+      .set(auth(tok.builder))
+      .field('travelerId', traveler.body.id)
+      .field('holeIds', JSON.stringify([hole.holeId]))
+      .field('kind', 'hole_cracked')
+      .field('note', 'crack at the edge')
       .attach('photos', await jpeg(), { filename: 'crack.jpg', contentType: 'image/jpeg' });
     expect(res.status).toBe(201);
-    const mail = await t.waitForMail((m) => m.to.includes(DEMO_USERS.inspector.email) && m.subject.includes(`hole ${hole.holeId}`));
+    const mail = await t.waitForMail(
+      (m) => m.to.includes(DEMO_USERS.inspector.email) && m.subject.includes(`hole ${hole.holeId}`),
+    );
     const cid = holePhotoCid(res.body.id);
     expect(mail.parts.map((p) => [p.cid, p.disposition, p.contentType])).toEqual([[cid, 'inline', 'image/jpeg']]);
     expect(mail.html).toContain(`src="cid:${cid}"`);

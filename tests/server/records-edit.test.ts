@@ -2,11 +2,24 @@ import { count, eq, isNull, type SQL } from 'drizzle-orm';
 import type { PgTable } from 'drizzle-orm/pg-core';
 import request from 'supertest';
 import {
-  allowedCouponActions, allowedKitActions, checkBuildAction, COUPON_GAUGE_TOLERANCE_IN, couponBacks, kitChangeReasonRefusal,
-  type BuildWork, type CouponTest,
+  allowedCouponActions,
+  allowedKitActions,
+  checkBuildAction,
+  COUPON_GAUGE_TOLERANCE_IN,
+  couponBacks,
+  kitChangeReasonRefusal,
+  type BuildWork,
+  type CouponTest,
 } from '@/db/contracts';
 import {
-  buildEvents, builds, couponTests, designRevisions, kitModelChanges, kitModels, partDesigns, travelers,
+  buildEvents,
+  builds,
+  couponTests,
+  designRevisions,
+  kitModelChanges,
+  kitModels,
+  partDesigns,
+  travelers,
 } from '@/db/schema';
 import { DEMO_COUPONS } from '@/db/seed';
 import { couponsForEngine } from '@/server/coupons/coupons-repository';
@@ -27,24 +40,54 @@ beforeAll(async () => {
   other = await t.outsiders();
   supplierOrg = (await request(t.app).get('/api/auth/me').set(auth(tok.supplier))).body.organizationId;
 });
-afterAll(async () => { await t?.close(); });
+afterAll(async () => {
+  await t?.close();
+});
 
 /** Rows of a table, counted by the database: a refusal must leave every one of them in place. */
 const rows = async (table: PgTable, where?: SQL): Promise<number> =>
   (await t.database.db.select({ n: count() }).from(table).where(where))[0].n;
 
 const kitBody = (over: Record<string, unknown> = {}) => ({
-  code: 'TMP-1', name: 'Temporary trainer', weightLb: 1200, wingAreaSqFt: 110, meanChordIn: 50,
-  stallSpeedKeas: 45, cruiseSpeedKeas: 110, category: 'normal', airfoil: 'NACA 2412', ...over,
+  code: 'TMP-1',
+  name: 'Temporary trainer',
+  weightLb: 1200,
+  wingAreaSqFt: 110,
+  meanChordIn: 50,
+  stallSpeedKeas: 45,
+  cruiseSpeedKeas: 110,
+  category: 'normal',
+  airfoil: 'NACA 2412',
+  ...over,
 });
 const ribRevision = (over: Record<string, unknown> = {}) => ({
-  material: '6061-T6', gaugeIn: 0.025, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 40,
-  lines: [{ code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 30, zones: [{ fromIn: 0, toIn: 30, pitchIn: 1 }] }],
-  steps: [], changeNote: '', ...over,
+  material: '6061-T6',
+  gaugeIn: 0.025,
+  rivetSpec: 'MS20470AD4',
+  drillSize: '#30',
+  drillDiameterIn: 0.1285,
+  edgeDistanceIn: 0.25,
+  chordIn: 40,
+  lines: [
+    {
+      code: 'U',
+      name: 'Upper flange',
+      surface: 'upper',
+      startIn: 1,
+      lengthIn: 30,
+      zones: [{ fromIn: 0, toIn: 30, pitchIn: 1 }],
+    },
+  ],
+  steps: [],
+  changeNote: '',
+  ...over,
 });
 
 async function demoKit() {
-  const kits = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items as { id: string; code: string }[];
+  const kits = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items as {
+    id: string;
+    code: string;
+  }[];
   return kits.find((k) => k.code === 'NK-2')!;
 }
 
@@ -78,7 +121,11 @@ describe('the rules read as tables (db/contracts)', () => {
   it('offers delete on a kit only while nothing relies on it, and asks why its numbers change once something does', () => {
     const none = { studies: 0, publishedParts: 0, builds: 0 };
     expect(allowedKitActions(none)).toEqual(['edit', 'delete']);
-    for (const r of [{ ...none, studies: 1 }, { ...none, publishedParts: 1 }, { ...none, builds: 1 }]) {
+    for (const r of [
+      { ...none, studies: 1 },
+      { ...none, publishedParts: 1 },
+      { ...none, builds: 1 },
+    ]) {
       expect(allowedKitActions(r)).toEqual(['edit']);
       expect(kitChangeReasonRefusal(r, ['weightLb'], '')).toMatch(/say why/);
       expect(kitChangeReasonRefusal(r, ['weightLb'], 'heavier engine')).toBeNull();
@@ -119,38 +166,77 @@ describe('kit models: edit with history, delete while nothing relies on them', (
   it('asks why the numbers of a relied-on kit change, then keeps the old and new values in its history', async () => {
     const kit = await demoKit();
     const full = (await request(t.app).get(`/api/kits/${kit.id}`).set(auth(tok.supplier))).body;
-    const body = { code: full.code, name: full.name, weightLb: 1350, wingAreaSqFt: full.wingAreaSqFt, meanChordIn: full.meanChordIn, stallSpeedKeas: full.stallSpeedKeas, cruiseSpeedKeas: full.cruiseSpeedKeas, category: full.category, airfoil: full.airfoil };
+    const body = {
+      code: full.code,
+      name: full.name,
+      weightLb: 1350,
+      wingAreaSqFt: full.wingAreaSqFt,
+      meanChordIn: full.meanChordIn,
+      stallSpeedKeas: full.stallSpeedKeas,
+      cruiseSpeedKeas: full.cruiseSpeedKeas,
+      category: full.category,
+      airfoil: full.airfoil,
+    };
     const bare = await request(t.app).patch(`/api/kits/${kit.id}`).set(auth(tok.supplier)).send(body);
     expect(bare.status).toBe(400);
     expect(bare.body.error.fields.reason).toBeDefined();
     expect((await t.database.db.select().from(kitModels).where(eq(kitModels.id, kit.id)))[0].weightLb).toBe(1320);
     expect(await rows(kitModelChanges)).toBe(0);
 
-    const res = await request(t.app).patch(`/api/kits/${kit.id}`).set(auth(tok.supplier)).send({ ...body, reason: 'Heavier engine option' });
+    const res = await request(t.app)
+      .patch(`/api/kits/${kit.id}`)
+      .set(auth(tok.supplier))
+      .send({ ...body, reason: 'Heavier engine option' });
     expect(res.status).toBe(200);
     expect(res.body.weightLb).toBe(1350);
     expect(res.body.changes).toHaveLength(1);
-    expect(res.body.changes[0]).toMatchObject({ reason: 'Heavier engine option', before: { weightLb: 1320 }, after: { weightLb: 1350 }, changedByName: 'Maren Holt' });
+    expect(res.body.changes[0]).toMatchObject({
+      reason: 'Heavier engine option',
+      before: { weightLb: 1320 },
+      after: { weightLb: 1350 },
+      changedByName: 'Maren Holt',
+    });
     // Only what changed is recorded.
     expect(Object.keys(res.body.changes[0].before)).toEqual(['weightLb']);
     // A name needs no reason: nothing was computed from it.
-    const renamed = await request(t.app).patch(`/api/kits/${kit.id}`).set(auth(tok.supplier)).send({ ...body, name: 'NK-2 Quillon trainer' });
+    const renamed = await request(t.app)
+      .patch(`/api/kits/${kit.id}`)
+      .set(auth(tok.supplier))
+      .send({ ...body, name: 'NK-2 Quillon trainer' });
     expect(renamed.status).toBe(200);
-    expect(renamed.body.changes[0]).toMatchObject({ before: { name: full.name }, after: { name: 'NK-2 Quillon trainer' } });
+    expect(renamed.body.changes[0]).toMatchObject({
+      before: { name: full.name },
+      after: { name: 'NK-2 Quillon trainer' },
+    });
   });
 
   it('edits and deletes a kit nothing relies on, its draft-only part going with it', async () => {
     const made = await request(t.app).post('/api/kits').set(auth(tok.supplier)).send(kitBody());
     expect(made.status).toBe(201);
-    const design = await request(t.app).post('/api/designs').set(auth(tok.supplier))
-      .send({ design: { kitModelId: made.body.id, partNumber: 'T-1', name: 'Test rib', kind: 'rib' }, revision: ribRevision() });
+    const design = await request(t.app)
+      .post('/api/designs')
+      .set(auth(tok.supplier))
+      .send({
+        design: { kitModelId: made.body.id, partNumber: 'T-1', name: 'Test rib', kind: 'rib' },
+        revision: ribRevision(),
+      });
     expect(design.status).toBe(201);
-    const edited = await request(t.app).patch(`/api/kits/${made.body.id}`).set(auth(tok.supplier)).send(kitBody({ code: 'TMP-2', weightLb: 1250 }));
+    const edited = await request(t.app)
+      .patch(`/api/kits/${made.body.id}`)
+      .set(auth(tok.supplier))
+      .send(kitBody({ code: 'TMP-2', weightLb: 1250 }));
     expect(edited.status).toBe(200);
     expect(edited.body).toMatchObject({ code: 'TMP-2', weightLb: 1250, allowedActions: ['edit', 'delete'] });
     expect(edited.body.changes[0].before).toEqual({ code: 'TMP-1', weightLb: 1200 });
     // Another kit's code is refused.
-    expect((await request(t.app).patch(`/api/kits/${made.body.id}`).set(auth(tok.supplier)).send(kitBody({ code: 'NK-2' }))).status).toBe(409);
+    expect(
+      (
+        await request(t.app)
+          .patch(`/api/kits/${made.body.id}`)
+          .set(auth(tok.supplier))
+          .send(kitBody({ code: 'NK-2' }))
+      ).status,
+    ).toBe(409);
 
     const del = await request(t.app).delete(`/api/kits/${made.body.id}`).set(auth(tok.supplier));
     expect(del.status).toBe(204);
@@ -164,10 +250,24 @@ describe('kit models: edit with history, delete while nothing relies on them', (
     const kit = await demoKit();
     const before = JSON.stringify(await t.database.db.select().from(kitModels).where(eq(kitModels.id, kit.id)));
     expect((await request(t.app).get(`/api/kits/${kit.id}`).set(auth(other.supplier))).status).toBe(404);
-    expect((await request(t.app).patch(`/api/kits/${kit.id}`).set(auth(other.supplier)).send(kitBody({ reason: 'mine now' }))).status).toBe(404);
+    expect(
+      (
+        await request(t.app)
+          .patch(`/api/kits/${kit.id}`)
+          .set(auth(other.supplier))
+          .send(kitBody({ reason: 'mine now' }))
+      ).status,
+    ).toBe(404);
     expect((await request(t.app).delete(`/api/kits/${kit.id}`).set(auth(other.supplier))).status).toBe(404);
     for (const who of [tok.builder, tok.inspector]) {
-      expect((await request(t.app).patch(`/api/kits/${kit.id}`).set(auth(who)).send(kitBody({ reason: 'x y z' }))).status).toBe(403);
+      expect(
+        (
+          await request(t.app)
+            .patch(`/api/kits/${kit.id}`)
+            .set(auth(who))
+            .send(kitBody({ reason: 'x y z' }))
+        ).status,
+      ).toBe(403);
       expect((await request(t.app).delete(`/api/kits/${kit.id}`).set(auth(who))).status).toBe(403);
     }
     expect(JSON.stringify(await t.database.db.select().from(kitModels).where(eq(kitModels.id, kit.id)))).toBe(before);
@@ -175,35 +275,64 @@ describe('kit models: edit with history, delete while nothing relies on them', (
 });
 
 describe('coupon tests: corrected by a new entry, deleted only when no published schedule may rest on them', () => {
-  const list = async () => (await request(t.app).get('/api/coupons').set(auth(tok.supplier))).body.items as CouponTest[];
+  const list = async () =>
+    (await request(t.app).get('/api/coupons').set(auth(tok.supplier))).body.items as CouponTest[];
 
   it('corrects a test with a new entry: the old one kept as recorded and marked, the engine reading only the new one', async () => {
     const old = (await list()).find((c) => c.gaugeIn === 0.02 && c.loadLb === 30)!;
     expect(old.allowedActions).toEqual(['correct', 'delete']);
     const before = await rows(couponTests);
     const res = await request(t.app).post(`/api/coupons/${old.id}/corrections`).set(auth(tok.supplier)).send({
-      material: old.material, gaugeIn: old.gaugeIn, couponWidthIn: old.couponWidthIn, rivetSpec: old.rivetSpec, loadLb: 25,
-      outcome: old.outcome, note: old.note, testedOn: old.testedOn, reason: 'Load cell read 30 lb with the tare left on: 25 lb applied',
+      material: old.material,
+      gaugeIn: old.gaugeIn,
+      couponWidthIn: old.couponWidthIn,
+      rivetSpec: old.rivetSpec,
+      loadLb: 25,
+      outcome: old.outcome,
+      note: old.note,
+      testedOn: old.testedOn,
+      reason: 'Load cell read 30 lb with the tare left on: 25 lb applied',
     });
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ loadLb: 25, correctionReason: expect.stringMatching(/tare/), correctedBy: null });
     expect(await rows(couponTests)).toBe(before + 1);
     const kept = (await list()).find((c) => c.id === old.id)!;
-    expect(kept).toMatchObject({ loadLb: 30, allowedActions: [], correctedBy: { id: res.body.id, byName: 'Maren Holt', reason: expect.stringMatching(/tare/) } });
+    expect(kept).toMatchObject({
+      loadLb: 30,
+      allowedActions: [],
+      correctedBy: { id: res.body.id, byName: 'Maren Holt', reason: expect.stringMatching(/tare/) },
+    });
 
     // The engine and the allowables read the current entries only.
     const engine = await couponsForEngine(t.database.db, supplierOrg, '6061-T6');
     expect(engine).toHaveLength(DEMO_COUPONS.length);
-    expect(engine.filter((c) => c.gaugeIn === 0.02).map((c) => c.loadLb).sort((a, b) => a - b)).toEqual([13.5, 20, 25]);
+    expect(
+      engine
+        .filter((c) => c.gaugeIn === 0.02)
+        .map((c) => c.loadLb)
+        .sort((a, b) => a - b),
+    ).toEqual([13.5, 20, 25]);
     // Ultimate: the highest load carried without failure, slight deformation allowed (ENGINEERING.md step 6,
     // 14 CFR 23.305): 25 lb now; 30 lb had the corrected entry still counted.
-    const groups = (await request(t.app).get('/api/coupons/allowables').set(auth(tok.supplier))).body as { gaugeIn: number; ultimateLb: number; limitLb: number; tests: unknown[] }[];
+    const groups = (await request(t.app).get('/api/coupons/allowables').set(auth(tok.supplier))).body as {
+      gaugeIn: number;
+      ultimateLb: number;
+      limitLb: number;
+      tests: unknown[];
+    }[];
     const g = groups.find((x) => x.gaugeIn === 0.02)!;
     expect([g.limitLb, g.ultimateLb, g.tests.length]).toEqual([13.5, 25, 3]);
 
     // A corrected entry is not corrected (or deleted) again: the current one is.
     const again = await request(t.app).post(`/api/coupons/${old.id}/corrections`).set(auth(tok.supplier)).send({
-      material: old.material, gaugeIn: old.gaugeIn, couponWidthIn: 1, rivetSpec: old.rivetSpec, loadLb: 26, outcome: old.outcome, testedOn: old.testedOn, reason: 'again',
+      material: old.material,
+      gaugeIn: old.gaugeIn,
+      couponWidthIn: 1,
+      rivetSpec: old.rivetSpec,
+      loadLb: 26,
+      outcome: old.outcome,
+      testedOn: old.testedOn,
+      reason: 'again',
     });
     expect(again.status).toBe(409);
     expect((await request(t.app).delete(`/api/coupons/${old.id}`).set(auth(tok.supplier))).status).toBe(409);
@@ -212,30 +341,70 @@ describe('coupon tests: corrected by a new entry, deleted only when no published
 
   it('asks why a test is corrected', async () => {
     const c = (await list()).find((x) => x.correctedBy === null)!;
-    const res = await request(t.app).post(`/api/coupons/${c.id}/corrections`).set(auth(tok.supplier))
-      .send({ material: c.material, gaugeIn: c.gaugeIn, couponWidthIn: 1, rivetSpec: c.rivetSpec, loadLb: 5, outcome: c.outcome, testedOn: c.testedOn });
+    const res = await request(t.app).post(`/api/coupons/${c.id}/corrections`).set(auth(tok.supplier)).send({
+      material: c.material,
+      gaugeIn: c.gaugeIn,
+      couponWidthIn: 1,
+      rivetSpec: c.rivetSpec,
+      loadLb: 5,
+      outcome: c.outcome,
+      testedOn: c.testedOn,
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.fields.reason).toBeDefined();
   });
 
   it('refuses to delete a test a published study-made revision may rest on, naming it; deletes one recorded after', async () => {
     // The demo rib study's PULLED-4 candidate, applied to a new part and published.
-    const studies = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body.items as { id: string; kind: string }[];
-    const study = (await request(t.app).get(`/api/studies/${studies.find((s) => s.kind === 'rib')!.id}`).set(auth(tok.supplier))).body;
-    const candidate = study.result.candidates.find((c: { rivet: string; feasible: boolean }) => c.rivet === 'PULLED-4' && c.feasible);
+    const studies = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body.items as {
+      id: string;
+      kind: string;
+    }[];
+    const study = (
+      await request(t.app)
+        .get(`/api/studies/${studies.find((s) => s.kind === 'rib')!.id}`)
+        .set(auth(tok.supplier))
+    ).body;
+    const candidate = study.result.candidates.find(
+      (c: { rivet: string; feasible: boolean }) => c.rivet === 'PULLED-4' && c.feasible,
+    );
     const kit = await demoKit();
-    const design = (await request(t.app).post('/api/designs').set(auth(tok.supplier))
-      .send({ design: { kitModelId: kit.id, partNumber: 'W-190', name: 'Coupon-backed rib', kind: 'rib' }, revision: ribRevision() })).body;
+    const design = (
+      await request(t.app)
+        .post('/api/designs')
+        .set(auth(tok.supplier))
+        .send({
+          design: { kitModelId: kit.id, partNumber: 'W-190', name: 'Coupon-backed rib', kind: 'rib' },
+          revision: ribRevision(),
+        })
+    ).body;
     // A test of the candidate's own rivet and gauge, on record before the revision is published.
     const backing = await request(t.app).post('/api/coupons').set(auth(tok.supplier)).send({
-      material: '6061-T6', gaugeIn: candidate.gaugeIn, couponWidthIn: 1, rivetSpec: 'PULLED-4', loadLb: 12, outcome: 'no_deformation', testedOn: '2026-10-15',
+      material: '6061-T6',
+      gaugeIn: candidate.gaugeIn,
+      couponWidthIn: 1,
+      rivetSpec: 'PULLED-4',
+      loadLb: 12,
+      outcome: 'no_deformation',
+      testedOn: '2026-10-15',
     });
     expect(backing.body.allowedActions).toEqual(['correct', 'delete']);
-    const applied = await request(t.app).post(`/api/studies/${study.id}/apply`).set(auth(tok.supplier)).send({ partDesignId: design.id, gaugeIn: candidate.gaugeIn, rivet: 'PULLED-4' });
+    const applied = await request(t.app)
+      .post(`/api/studies/${study.id}/apply`)
+      .set(auth(tok.supplier))
+      .send({ partDesignId: design.id, gaugeIn: candidate.gaugeIn, rivet: 'PULLED-4' });
     expect(applied.status).toBe(200);
-    expect((await request(t.app).post(`/api/revisions/${applied.body.id}/publish`).set(auth(tok.supplier)).send({})).status).toBe(200);
+    expect(
+      (await request(t.app).post(`/api/revisions/${applied.body.id}/publish`).set(auth(tok.supplier)).send({})).status,
+    ).toBe(200);
     const later = await request(t.app).post('/api/coupons').set(auth(tok.supplier)).send({
-      material: '6061-T6', gaugeIn: candidate.gaugeIn, couponWidthIn: 1, rivetSpec: 'PULLED-4', loadLb: 14, outcome: 'slight_deformation', testedOn: '2026-10-16',
+      material: '6061-T6',
+      gaugeIn: candidate.gaugeIn,
+      couponWidthIn: 1,
+      rivetSpec: 'PULLED-4',
+      loadLb: 14,
+      outcome: 'slight_deformation',
+      testedOn: '2026-10-16',
     });
 
     const now = await list();
@@ -249,8 +418,16 @@ describe('coupon tests: corrected by a new entry, deleted only when no published
     expect(await rows(couponTests)).toBe(before);
 
     // Corrected, the record still backs it: the correction cannot be deleted either.
-    const corrected = await request(t.app).post(`/api/coupons/${b.id}/corrections`).set(auth(tok.supplier))
-      .send({ material: b.material, gaugeIn: b.gaugeIn, couponWidthIn: 1, rivetSpec: 'PULLED-4', loadLb: 11, outcome: 'no_deformation', testedOn: b.testedOn, reason: 'misread dial' });
+    const corrected = await request(t.app).post(`/api/coupons/${b.id}/corrections`).set(auth(tok.supplier)).send({
+      material: b.material,
+      gaugeIn: b.gaugeIn,
+      couponWidthIn: 1,
+      rivetSpec: 'PULLED-4',
+      loadLb: 11,
+      outcome: 'no_deformation',
+      testedOn: b.testedOn,
+      reason: 'misread dial',
+    });
     expect(corrected.status).toBe(201);
     expect(corrected.body.backs).toContain('W-190 revision A');
     expect((await request(t.app).delete(`/api/coupons/${corrected.body.id}`).set(auth(tok.supplier))).status).toBe(409);
@@ -262,12 +439,29 @@ describe('coupon tests: corrected by a new entry, deleted only when no published
   });
 
   it('deletes a corrected test whole: the current entry and the entries it corrected', async () => {
-    const made = (await request(t.app).post('/api/coupons').set(auth(tok.supplier)).send({
-      material: '2024-T3', gaugeIn: 0.032, couponWidthIn: 1, rivetSpec: 'MS20470AD3', loadLb: 40, outcome: 'no_deformation', testedOn: '2026-10-15',
-    })).body;
-    const fixed = (await request(t.app).post(`/api/coupons/${made.id}/corrections`).set(auth(tok.supplier)).send({
-      material: '2024-T3', gaugeIn: 0.032, couponWidthIn: 1, rivetSpec: 'MS20470AD3', loadLb: 45, outcome: 'no_deformation', testedOn: '2026-10-15', reason: 'typo',
-    })).body;
+    const made = (
+      await request(t.app).post('/api/coupons').set(auth(tok.supplier)).send({
+        material: '2024-T3',
+        gaugeIn: 0.032,
+        couponWidthIn: 1,
+        rivetSpec: 'MS20470AD3',
+        loadLb: 40,
+        outcome: 'no_deformation',
+        testedOn: '2026-10-15',
+      })
+    ).body;
+    const fixed = (
+      await request(t.app).post(`/api/coupons/${made.id}/corrections`).set(auth(tok.supplier)).send({
+        material: '2024-T3',
+        gaugeIn: 0.032,
+        couponWidthIn: 1,
+        rivetSpec: 'MS20470AD3',
+        loadLb: 45,
+        outcome: 'no_deformation',
+        testedOn: '2026-10-15',
+        reason: 'typo',
+      })
+    ).body;
     const before = await rows(couponTests);
     expect((await request(t.app).delete(`/api/coupons/${fixed.id}`).set(auth(tok.supplier))).status).toBe(204);
     expect(await rows(couponTests)).toBe(before - 2);
@@ -275,12 +469,25 @@ describe('coupon tests: corrected by a new entry, deleted only when no published
 
   it('hides a test from another supplier (404) and refuses other roles (403), changing nothing', async () => {
     const c = (await list()).find((x) => x.correctedBy === null && x.allowedActions.includes('delete'))!;
-    const body = { material: c.material, gaugeIn: c.gaugeIn, couponWidthIn: 1, rivetSpec: c.rivetSpec, loadLb: 5, outcome: c.outcome, testedOn: c.testedOn, reason: 'not mine' };
+    const body = {
+      material: c.material,
+      gaugeIn: c.gaugeIn,
+      couponWidthIn: 1,
+      rivetSpec: c.rivetSpec,
+      loadLb: 5,
+      outcome: c.outcome,
+      testedOn: c.testedOn,
+      reason: 'not mine',
+    };
     const before = [await rows(couponTests), await rows(couponTests, isNull(couponTests.supersededById))];
-    expect((await request(t.app).post(`/api/coupons/${c.id}/corrections`).set(auth(other.supplier)).send(body)).status).toBe(404);
+    expect(
+      (await request(t.app).post(`/api/coupons/${c.id}/corrections`).set(auth(other.supplier)).send(body)).status,
+    ).toBe(404);
     expect((await request(t.app).delete(`/api/coupons/${c.id}`).set(auth(other.supplier))).status).toBe(404);
     for (const who of [tok.builder, tok.inspector]) {
-      expect((await request(t.app).post(`/api/coupons/${c.id}/corrections`).set(auth(who)).send(body)).status).toBe(403);
+      expect((await request(t.app).post(`/api/coupons/${c.id}/corrections`).set(auth(who)).send(body)).status).toBe(
+        403,
+      );
       expect((await request(t.app).delete(`/api/coupons/${c.id}`).set(auth(who))).status).toBe(403);
     }
     expect([await rows(couponTests), await rows(couponTests, isNull(couponTests.supersededById))]).toEqual(before);
@@ -290,8 +497,12 @@ describe('coupon tests: corrected by a new entry, deleted only when no published
 describe('builds: the shipping supplier corrects the note always, the serial and the build itself while no work is recorded', () => {
   const ship = async (kitSerial: string) => {
     const kit = await demoKit();
-    const res = await request(t.app).post('/api/builds').set(auth(tok.supplier))
-      .send({ kitModelId: kit.id, kitSerial, builderEmail: 'tobias@benchwork.example', inspectorEmail: 'priya@checkpoint.example' });
+    const res = await request(t.app).post('/api/builds').set(auth(tok.supplier)).send({
+      kitModelId: kit.id,
+      kitSerial,
+      builderEmail: 'tobias@benchwork.example',
+      inspectorEmail: 'priya@checkpoint.example',
+    });
     expect(res.status).toBe(201);
     return res.body.id as string;
   };
@@ -300,15 +511,23 @@ describe('builds: the shipping supplier corrects the note always, the serial and
     const id = await ship('NK2-0200');
     const page = (await request(t.app).get(`/api/builds/${id}`).set(auth(tok.supplier))).body;
     expect(page.allowedActions).toEqual(['edit-note', 'change-serial', 'delete']);
-    const res = await request(t.app).patch(`/api/builds/${id}`).set(auth(tok.supplier)).send({ kitSerial: 'NK2-0201', note: 'Wing kit only; fuselage follows' });
+    const res = await request(t.app)
+      .patch(`/api/builds/${id}`)
+      .set(auth(tok.supplier))
+      .send({ kitSerial: 'NK2-0201', note: 'Wing kit only; fuselage follows' });
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ kitSerial: 'NK2-0201', note: 'Wing kit only; fuselage follows' });
-    const serials = (await t.database.db.select({ serial: travelers.serial }).from(travelers).where(eq(travelers.buildId, id))).map((r) => r.serial);
+    const serials = (
+      await t.database.db.select({ serial: travelers.serial }).from(travelers).where(eq(travelers.buildId, id))
+    ).map((r) => r.serial);
     expect(serials.length).toBeGreaterThan(0);
     expect(serials.every((s) => s.startsWith('NK2-0201-'))).toBe(true);
     const events = await t.database.db.select().from(buildEvents).where(eq(buildEvents.buildId, id));
     expect(events.find((e) => e.kind === 'serial_changed')?.detail).toEqual({ from: 'NK2-0200', to: 'NK2-0201' });
-    expect(events.find((e) => e.kind === 'note_changed')?.detail).toEqual({ from: '', to: 'Wing kit only; fuselage follows' });
+    expect(events.find((e) => e.kind === 'note_changed')?.detail).toEqual({
+      from: '',
+      to: 'Wing kit only; fuselage follows',
+    });
     // The builder sees nothing to change.
     expect((await request(t.app).get(`/api/builds/${id}`).set(auth(tok.builder))).body.allowedActions).toEqual([]);
 
@@ -318,13 +537,18 @@ describe('builds: the shipping supplier corrects the note always, the serial and
   });
 
   it('refuses to rename or delete the demo build, where work is recorded, but takes a new note', async () => {
-    const [demo] = (await request(t.app).get('/api/builds').set(auth(tok.supplier))).body.items.filter((b: { kitSerial: string }) => b.kitSerial === 'NK2-0147');
+    const [demo] = (await request(t.app).get('/api/builds').set(auth(tok.supplier))).body.items.filter(
+      (b: { kitSerial: string }) => b.kitSerial === 'NK2-0147',
+    );
     const page = (await request(t.app).get(`/api/builds/${demo.id}`).set(auth(tok.supplier))).body;
     expect(page.allowedActions).toEqual(['edit-note']);
     // The demo (db/seed.ts): U-01…U-08 ticked, U-09 flagged, the first step done, one finding.
     expect(page.fixedBecause).toMatch(/9 holes worked, 1 step done, 1 finding/);
     const before = [await rows(builds), await rows(travelers)];
-    const renamed = await request(t.app).patch(`/api/builds/${demo.id}`).set(auth(tok.supplier)).send({ kitSerial: 'NK2-9999' });
+    const renamed = await request(t.app)
+      .patch(`/api/builds/${demo.id}`)
+      .set(auth(tok.supplier))
+      .send({ kitSerial: 'NK2-9999' });
     expect(renamed.status).toBe(409);
     expect(renamed.body.error.message).toMatch(/work is recorded on this build/);
     const deleted = await request(t.app).delete(`/api/builds/${demo.id}`).set(auth(tok.supplier));
@@ -332,7 +556,10 @@ describe('builds: the shipping supplier corrects the note always, the serial and
     expect([await rows(builds), await rows(travelers)]).toEqual(before);
     expect((await t.database.db.select().from(builds).where(eq(builds.id, demo.id)))[0].kitSerial).toBe('NK2-0147');
     // The serial as it stands, sent back by a form with a new note, is not a change of serial.
-    const noted = await request(t.app).patch(`/api/builds/${demo.id}`).set(auth(tok.supplier)).send({ kitSerial: 'NK2-0147', note: 'Tail kit shipped 3 Nov' });
+    const noted = await request(t.app)
+      .patch(`/api/builds/${demo.id}`)
+      .set(auth(tok.supplier))
+      .send({ kitSerial: 'NK2-0147', note: 'Tail kit shipped 3 Nov' });
     expect(noted.status).toBe(200);
     expect(noted.body.note).toBe('Tail kit shipped 3 Nov');
   });
@@ -340,7 +567,9 @@ describe('builds: the shipping supplier corrects the note always, the serial and
   it('hides a build from another supplier (404), refuses its builder and inspector (403), and changes nothing', async () => {
     const id = await ship('NK2-0300');
     const before = JSON.stringify(await t.database.db.select().from(builds).where(eq(builds.id, id)));
-    expect((await request(t.app).patch(`/api/builds/${id}`).set(auth(other.supplier)).send({ note: 'x' })).status).toBe(404);
+    expect((await request(t.app).patch(`/api/builds/${id}`).set(auth(other.supplier)).send({ note: 'x' })).status).toBe(
+      404,
+    );
     expect((await request(t.app).delete(`/api/builds/${id}`).set(auth(other.supplier))).status).toBe(404);
     for (const who of [tok.builder, tok.inspector]) {
       expect((await request(t.app).patch(`/api/builds/${id}`).set(auth(who)).send({ note: 'x' })).status).toBe(403);
@@ -353,45 +582,86 @@ describe('builds: the shipping supplier corrects the note always, the serial and
 
 describe('draft revisions: discarded, never once published', () => {
   it('discards a draft after published revisions: the part keeps them', async () => {
-    const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body.items as { id: string; partNumber: string }[];
+    const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body.items as {
+      id: string;
+      partNumber: string;
+    }[];
     const w105 = designs.find((d) => d.partNumber === 'W-105')!;
-    const draft = await request(t.app).post(`/api/designs/${w105.id}/revisions`).set(auth(tok.supplier)).send({ ...ribRevision(), changeNote: 'Try a wider pitch' });
+    const draft = await request(t.app)
+      .post(`/api/designs/${w105.id}/revisions`)
+      .set(auth(tok.supplier))
+      .send({ ...ribRevision(), changeNote: 'Try a wider pitch' });
     expect(draft.status).toBe(201);
     expect(draft.body.allowedActions).toEqual(['edit', 'publish', 'discard']);
     const res = await request(t.app).delete(`/api/revisions/${draft.body.id}`).set(auth(tok.supplier));
     expect(res.status).toBe(200);
-    expect(res.body.revisions.map((r: { letter: string; status: string; allowedActions: string[] }) => [r.letter, r.status, r.allowedActions]))
-      .toEqual([['B', 'published', []], ['A', 'superseded', []]]);
+    expect(
+      res.body.revisions.map((r: { letter: string; status: string; allowedActions: string[] }) => [
+        r.letter,
+        r.status,
+        r.allowedActions,
+      ]),
+    ).toEqual([
+      ['B', 'published', []],
+      ['A', 'superseded', []],
+    ]);
   });
 
   it('discards the only revision of a part: the draft goes, the part stays, and a new revision starts again at A', async () => {
     const kit = await demoKit();
-    const made = (await request(t.app).post('/api/designs').set(auth(tok.supplier))
-      .send({ design: { kitModelId: kit.id, partNumber: 'W-191', name: 'Draft-only rib', kind: 'rib' }, revision: ribRevision() })).body;
+    const made = (
+      await request(t.app)
+        .post('/api/designs')
+        .set(auth(tok.supplier))
+        .send({
+          design: { kitModelId: kit.id, partNumber: 'W-191', name: 'Draft-only rib', kind: 'rib' },
+          revision: ribRevision(),
+        })
+    ).body;
     const res = await request(t.app).delete(`/api/revisions/${made.revisions[0].id}`).set(auth(tok.supplier));
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ partNumber: 'W-191', revisions: [], publishedLetter: null });
     expect(await rows(partDesigns, eq(partDesigns.id, made.id))).toBe(1);
-    const next = await request(t.app).post(`/api/designs/${made.id}/revisions`).set(auth(tok.supplier)).send({ ...ribRevision(), changeNote: 'Start over' });
+    const next = await request(t.app)
+      .post(`/api/designs/${made.id}/revisions`)
+      .set(auth(tok.supplier))
+      .send({ ...ribRevision(), changeNote: 'Start over' });
     expect(next.body.letter).toBe('A');
   });
 
   it('refuses to discard or edit a published revision, to another supplier (404) and to other roles (403)', async () => {
-    const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body.items as { id: string; partNumber: string }[];
-    const w104 = (await request(t.app).get(`/api/designs/${designs.find((d) => d.partNumber === 'W-104')!.id}`).set(auth(tok.supplier))).body;
+    const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body.items as {
+      id: string;
+      partNumber: string;
+    }[];
+    const w104 = (
+      await request(t.app)
+        .get(`/api/designs/${designs.find((d) => d.partNumber === 'W-104')!.id}`)
+        .set(auth(tok.supplier))
+    ).body;
     const published = w104.revisions.find((r: { status: string }) => r.status === 'published');
     const before = await rows(designRevisions);
     const res = await request(t.app).delete(`/api/revisions/${published.id}`).set(auth(tok.supplier));
     expect(res.status).toBe(409);
     expect(res.body.error.message).toMatch(/published and can no longer be changed/);
-    expect((await request(t.app).patch(`/api/revisions/${published.id}`).set(auth(tok.supplier)).send(ribRevision())).status).toBe(409);
-    expect((await request(t.app).post(`/api/revisions/${published.id}/publish`).set(auth(tok.supplier)).send({})).status).toBe(409);
+    expect(
+      (await request(t.app).patch(`/api/revisions/${published.id}`).set(auth(tok.supplier)).send(ribRevision())).status,
+    ).toBe(409);
+    expect(
+      (await request(t.app).post(`/api/revisions/${published.id}/publish`).set(auth(tok.supplier)).send({})).status,
+    ).toBe(409);
 
-    const draft = (await request(t.app).post(`/api/designs/${designs.find((d) => d.partNumber === 'W-105')!.id}/revisions`).set(auth(tok.supplier)).send({ ...ribRevision(), changeNote: 'Another try' })).body;
+    const draft = (
+      await request(t.app)
+        .post(`/api/designs/${designs.find((d) => d.partNumber === 'W-105')!.id}/revisions`)
+        .set(auth(tok.supplier))
+        .send({ ...ribRevision(), changeNote: 'Another try' })
+    ).body;
     const withDraft = await rows(designRevisions);
     expect(withDraft).toBe(before + 1);
     expect((await request(t.app).delete(`/api/revisions/${draft.id}`).set(auth(other.supplier))).status).toBe(404);
-    for (const who of [tok.builder, tok.inspector]) expect((await request(t.app).delete(`/api/revisions/${draft.id}`).set(auth(who))).status).toBe(403);
+    for (const who of [tok.builder, tok.inspector])
+      expect((await request(t.app).delete(`/api/revisions/${draft.id}`).set(auth(who))).status).toBe(403);
     expect(await rows(designRevisions)).toBe(withDraft);
     expect(await rows(designRevisions, eq(designRevisions.id, published.id))).toBe(1);
   });

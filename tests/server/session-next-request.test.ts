@@ -17,9 +17,13 @@ beforeAll(async () => {
   const builder = await t.signIn(DEMO_USERS.builder.email);
   const parts = (await request(t.app).get('/api/travelers?q=W-104').set(auth(builder))).body as Page<TravelerSummary>;
   partId = parts.items[0].id;
-  hole = (await request(t.app).get(`/api/travelers/${partId}`).set(auth(builder))).body.holes.find((h: { status: string }) => h.status === 'pending').holeId;
+  hole = (await request(t.app).get(`/api/travelers/${partId}`).set(auth(builder))).body.holes.find(
+    (h: { status: string }) => h.status === 'pending',
+  ).holeId;
 });
-afterAll(async () => { await t?.close(); });
+afterAll(async () => {
+  await t?.close();
+});
 
 /**
  * The part's page and the tick load the person once per request, from the database: whatever ended a
@@ -28,14 +32,20 @@ afterAll(async () => { await t?.close(); });
  */
 describe('a sign-in ended is refused on the very next request', () => {
   const detail = (token: string) => request(t.app).get(`/api/travelers/${partId}`).set(auth(token));
-  const tick = (token: string, status: 'installed' | 'pending') => request(t.app).post(`/api/travelers/${partId}/holes`).set(auth(token)).send({ holeIds: [hole], status });
+  const tick = (token: string, status: 'installed' | 'pending') =>
+    request(t.app)
+      .post(`/api/travelers/${partId}/holes`)
+      .set(auth(token))
+      .send({ holeIds: [hole], status });
 
   it('after deactivation', async () => {
     const token = await t.signIn(DEMO_USERS.builder.email);
     const me = (await request(t.app).get('/api/auth/me').set(auth(token))).body;
     expect((await detail(token)).status).toBe(200);
     expect((await tick(token, 'installed')).status).toBe(200);
-    expect((await request(t.app).patch(`/api/people/${me.id}`).set(auth(admin)).send({ active: false })).status).toBe(200);
+    expect((await request(t.app).patch(`/api/people/${me.id}`).set(auth(admin)).send({ active: false })).status).toBe(
+      200,
+    );
     expect((await detail(token)).status).toBe(401);
     expect((await tick(token, 'pending')).status).toBe(401);
     expect((await request(t.app).get('/api/travelers').set(auth(token))).status).toBe(401);
@@ -58,7 +68,9 @@ describe('a sign-in ended is refused on the very next request', () => {
     const token = await t.signIn(DEMO_USERS.inspector.email);
     const me = (await request(t.app).get('/api/auth/me').set(auth(token))).body;
     expect((await detail(token)).status).toBe(200);
-    expect((await request(t.app).patch(`/api/people/${me.id}`).set(auth(admin)).send({ role: 'builder' })).status).toBe(200);
+    expect((await request(t.app).patch(`/api/people/${me.id}`).set(auth(admin)).send({ role: 'builder' })).status).toBe(
+      200,
+    );
     expect((await detail(token)).status).toBe(401);
     await request(t.app).patch(`/api/people/${me.id}`).set(auth(admin)).send({ role: 'inspector' });
   });

@@ -16,30 +16,70 @@ beforeAll(async () => {
   t = await startTestApp();
   tok = await t.tokens();
   const kit = await request(t.app).post('/api/kits').set(auth(tok.supplier)).send({
-    code: 'RC-1', name: 'Race kit', weightLb: 1200, wingAreaSqFt: 110, meanChordIn: 50, stallSpeedKeas: 45, category: 'normal', airfoil: 'NACA 2412',
+    code: 'RC-1',
+    name: 'Race kit',
+    weightLb: 1200,
+    wingAreaSqFt: 110,
+    meanChordIn: 50,
+    stallSpeedKeas: 45,
+    category: 'normal',
+    airfoil: 'NACA 2412',
   });
   kitId = kit.body.id;
-  const design = await request(t.app).post('/api/designs').set(auth(tok.supplier)).send({
-    design: { kitModelId: kitId, partNumber: 'RC-R1', name: 'Race rib', kind: 'rib' },
-    revision: {
-      material: '6061-T6', gaugeIn: 0.032, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 10,
-      lines: [{ code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 3, zones: [{ fromIn: 0, toIn: 3, pitchIn: 1 }] }],
-      steps: ['Rivet the flange'],
-    },
-  });
+  const design = await request(t.app)
+    .post('/api/designs')
+    .set(auth(tok.supplier))
+    .send({
+      design: { kitModelId: kitId, partNumber: 'RC-R1', name: 'Race rib', kind: 'rib' },
+      revision: {
+        material: '6061-T6',
+        gaugeIn: 0.032,
+        rivetSpec: 'MS20470AD4',
+        drillSize: '#30',
+        drillDiameterIn: 0.1285,
+        edgeDistanceIn: 0.25,
+        chordIn: 10,
+        lines: [
+          {
+            code: 'U',
+            name: 'Upper flange',
+            surface: 'upper',
+            startIn: 1,
+            lengthIn: 3,
+            zones: [{ fromIn: 0, toIn: 3, pitchIn: 1 }],
+          },
+        ],
+        steps: ['Rivet the flange'],
+      },
+    });
   await request(t.app).post(`/api/revisions/${design.body.revisions[0].id}/publish`).set(auth(tok.supplier)).send({});
 });
-afterAll(async () => { await t?.close(); });
+afterAll(async () => {
+  await t?.close();
+});
 
 /** A fresh part with every hole installed and its step done: ready to sign off. */
 async function readyPart() {
-  const res = await request(t.app).post('/api/builds').set(auth(tok.supplier)).send({
-    kitModelId: kitId, kitSerial: `RC-${++n}`, builderEmail: DEMO_USERS.builder.email, inspectorEmail: DEMO_USERS.inspector.email,
-  });
-  const id = (await request(t.app).get(`/api/builds/${res.body.id}`).set(auth(tok.supplier))).body.travelers[0].id as string;
+  const res = await request(t.app)
+    .post('/api/builds')
+    .set(auth(tok.supplier))
+    .send({
+      kitModelId: kitId,
+      kitSerial: `RC-${++n}`,
+      builderEmail: DEMO_USERS.builder.email,
+      inspectorEmail: DEMO_USERS.inspector.email,
+    });
+  const id = (await request(t.app).get(`/api/builds/${res.body.id}`).set(auth(tok.supplier))).body.travelers[0]
+    .id as string;
   const detail = (await request(t.app).get(`/api/travelers/${id}`).set(auth(tok.builder))).body;
-  await request(t.app).post(`/api/travelers/${id}/holes`).set(auth(tok.builder)).send({ holeIds: detail.holes.map((h: { holeId: string }) => h.holeId), status: 'installed' });
-  await request(t.app).post(`/api/travelers/${id}/steps/${detail.steps[0].id}`).set(auth(tok.builder)).send({ done: true });
+  await request(t.app)
+    .post(`/api/travelers/${id}/holes`)
+    .set(auth(tok.builder))
+    .send({ holeIds: detail.holes.map((h: { holeId: string }) => h.holeId), status: 'installed' });
+  await request(t.app)
+    .post(`/api/travelers/${id}/steps/${detail.steps[0].id}`)
+    .set(auth(tok.builder))
+    .send({ done: true });
   return { id, stepId: detail.steps[0].id as string };
 }
 
@@ -57,11 +97,37 @@ const signOff = (id: string) => request(t.app).post(`/api/travelers/${id}/sign-o
 
 describe(`a sign-off racing a change at the bench (${ROUNDS} rounds each)`, () => {
   it.each([
-    ['un-ticking a hole', (p: { id: string }) => request(t.app).post(`/api/travelers/${p.id}/holes`).set(auth(tok.builder)).send({ holeIds: ['U-02'], status: 'pending' })],
-    ['undoing the step', (p: { id: string; stepId: string }) => request(t.app).post(`/api/travelers/${p.id}/steps/${p.stepId}`).set(auth(tok.builder)).send({ done: false })],
-    ['raising a finding', async (p: { id: string }) => request(t.app).post('/api/findings').set(auth(tok.builder))
-      .field('travelerId', p.id).field('holeIds', '["U-01"]').field('kind', 'hole_cracked').field('note', 'crack at the edge')
-      .attach('photos', await sharp({ create: { width: 16, height: 16, channels: 3, background: '#555' } }).jpeg().toBuffer(), { filename: 'c.jpg', contentType: 'image/jpeg' })],
+    [
+      'un-ticking a hole',
+      (p: { id: string }) =>
+        request(t.app)
+          .post(`/api/travelers/${p.id}/holes`)
+          .set(auth(tok.builder))
+          .send({ holeIds: ['U-02'], status: 'pending' }),
+    ],
+    [
+      'undoing the step',
+      (p: { id: string; stepId: string }) =>
+        request(t.app).post(`/api/travelers/${p.id}/steps/${p.stepId}`).set(auth(tok.builder)).send({ done: false }),
+    ],
+    [
+      'raising a finding',
+      async (p: { id: string }) =>
+        request(t.app)
+          .post('/api/findings')
+          .set(auth(tok.builder))
+          .field('travelerId', p.id)
+          .field('holeIds', '["U-01"]')
+          .field('kind', 'hole_cracked')
+          .field('note', 'crack at the edge')
+          .attach(
+            'photos',
+            await sharp({ create: { width: 16, height: 16, channels: 3, background: '#555' } })
+              .jpeg()
+              .toBuffer(),
+            { filename: 'c.jpg', contentType: 'image/jpeg' },
+          ),
+    ],
   ] as const)('never ends signed off with work open when racing %s', async (_what, change) => {
     const outcomes = { signedOff: 0, changed: 0 };
     for (let i = 0; i < ROUNDS; i++) {
@@ -73,7 +139,8 @@ describe(`a sign-off racing a change at the bench (${ROUNDS} rounds each)`, () =
       expect(signed !== changed).toBe(true);
       if (signed) expect(c.status).toBe(409);
       else expect([s.status, s.body.error.message]).toEqual([409, expect.stringMatching(/not ready to sign off/)]);
-      if (await expectNeverSignedOffWithWorkOpen(p.id)) outcomes.signedOff++; else outcomes.changed++;
+      if (await expectNeverSignedOffWithWorkOpen(p.id)) outcomes.signedOff++;
+      else outcomes.changed++;
     }
     expect(outcomes.signedOff + outcomes.changed).toBe(ROUNDS);
   });

@@ -20,20 +20,54 @@ beforeAll(async () => {
   tok = await t.tokens();
   outsider = await t.outsiders();
   const kit = await request(t.app).post('/api/kits').set(auth(tok.supplier)).send({
-    code: 'WD-1', name: 'Withdrawal kit', weightLb: 1200, wingAreaSqFt: 110, meanChordIn: 50, stallSpeedKeas: 45, category: 'normal', airfoil: 'NACA 2412',
+    code: 'WD-1',
+    name: 'Withdrawal kit',
+    weightLb: 1200,
+    wingAreaSqFt: 110,
+    meanChordIn: 50,
+    stallSpeedKeas: 45,
+    category: 'normal',
+    airfoil: 'NACA 2412',
   });
   kitId = kit.body.id;
-  const design = await request(t.app).post('/api/designs').set(auth(tok.supplier)).send({
-    design: { kitModelId: kitId, partNumber: 'WD-R1', name: 'Withdrawal rib', kind: 'rib' },
-    revision: {
-      material: '6061-T6', gaugeIn: 0.032, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 10,
-      lines: [{ code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 3, zones: [{ fromIn: 0, toIn: 3, pitchIn: 1 }] }],
-      steps: ['Rivet the flange'],
-    },
-  });
-  expect((await request(t.app).post(`/api/revisions/${design.body.revisions[0].id}/publish`).set(auth(tok.supplier)).send({})).status).toBe(200);
+  const design = await request(t.app)
+    .post('/api/designs')
+    .set(auth(tok.supplier))
+    .send({
+      design: { kitModelId: kitId, partNumber: 'WD-R1', name: 'Withdrawal rib', kind: 'rib' },
+      revision: {
+        material: '6061-T6',
+        gaugeIn: 0.032,
+        rivetSpec: 'MS20470AD4',
+        drillSize: '#30',
+        drillDiameterIn: 0.1285,
+        edgeDistanceIn: 0.25,
+        chordIn: 10,
+        lines: [
+          {
+            code: 'U',
+            name: 'Upper flange',
+            surface: 'upper',
+            startIn: 1,
+            lengthIn: 3,
+            zones: [{ fromIn: 0, toIn: 3, pitchIn: 1 }],
+          },
+        ],
+        steps: ['Rivet the flange'],
+      },
+    });
+  expect(
+    (
+      await request(t.app)
+        .post(`/api/revisions/${design.body.revisions[0].id}/publish`)
+        .set(auth(tok.supplier))
+        .send({})
+    ).status,
+  ).toBe(200);
 });
-afterAll(async () => { await t?.close(); });
+afterAll(async () => {
+  await t?.close();
+});
 
 type Part = { id: string; buildId: string; kitSerial: string; stepId: string };
 
@@ -41,34 +75,63 @@ type Part = { id: string; buildId: string; kitSerial: string; stepId: string };
 async function signedPart(sign = true): Promise<Part> {
   const kitSerial = `WD-${String(++n).padStart(3, '0')}`;
   const res = await request(t.app).post('/api/builds').set(auth(tok.supplier)).send({
-    kitModelId: kitId, kitSerial, builderEmail: DEMO_USERS.builder.email, inspectorEmail: DEMO_USERS.inspector.email,
+    kitModelId: kitId,
+    kitSerial,
+    builderEmail: DEMO_USERS.builder.email,
+    inspectorEmail: DEMO_USERS.inspector.email,
   });
   expect(res.status).toBe(201);
-  const id = (await request(t.app).get(`/api/builds/${res.body.id}`).set(auth(tok.supplier))).body.travelers[0].id as string;
+  const id = (await request(t.app).get(`/api/builds/${res.body.id}`).set(auth(tok.supplier))).body.travelers[0]
+    .id as string;
   const detail = (await request(t.app).get(`/api/travelers/${id}`).set(auth(tok.builder))).body;
-  await request(t.app).post(`/api/travelers/${id}/holes`).set(auth(tok.builder)).send({ holeIds: detail.holes.map((h: { holeId: string }) => h.holeId), status: 'installed' });
-  await request(t.app).post(`/api/travelers/${id}/steps/${detail.steps[0].id}`).set(auth(tok.builder)).send({ done: true });
-  if (sign) expect((await request(t.app).post(`/api/travelers/${id}/sign-off`).set(auth(tok.inspector))).status).toBe(200);
+  await request(t.app)
+    .post(`/api/travelers/${id}/holes`)
+    .set(auth(tok.builder))
+    .send({ holeIds: detail.holes.map((h: { holeId: string }) => h.holeId), status: 'installed' });
+  await request(t.app)
+    .post(`/api/travelers/${id}/steps/${detail.steps[0].id}`)
+    .set(auth(tok.builder))
+    .send({ done: true });
+  if (sign)
+    expect((await request(t.app).post(`/api/travelers/${id}/sign-off`).set(auth(tok.inspector))).status).toBe(200);
   return { id, buildId: res.body.id, kitSerial, stepId: detail.steps[0].id };
 }
 
 const withdraw = (token: string, id: string, body: unknown = { reason: REASON }) =>
-  request(t.app).post(`/api/travelers/${id}/sign-off/withdraw`).set(auth(token)).send(body as object);
-const part = async (id: string, token = tok.inspector) => (await request(t.app).get(`/api/travelers/${id}`).set(auth(token))).body;
+  request(t.app)
+    .post(`/api/travelers/${id}/sign-off/withdraw`)
+    .set(auth(token))
+    .send(body as object);
+const part = async (id: string, token = tok.inspector) =>
+  (await request(t.app).get(`/api/travelers/${id}`).set(auth(token))).body;
 const logOf = async (p: Part, query: Record<string, string> = {}) =>
-  (await request(t.app).get(`/api/builds/${p.buildId}/log`).query(query).set(auth(tok.builder))).body.items as
-    { kind: string; group: string; text: string; note?: string; actorName: string }[];
-const withdrawalMails = (kitSerial: string) => t.smtp.messages.filter((m) => m.subject.includes(`[${kitSerial}]`) && m.subject.includes('Sign-off withdrawn'));
+  (await request(t.app).get(`/api/builds/${p.buildId}/log`).query(query).set(auth(tok.builder))).body.items as {
+    kind: string;
+    group: string;
+    text: string;
+    note?: string;
+    actorName: string;
+  }[];
+const withdrawalMails = (kitSerial: string) =>
+  t.smtp.messages.filter((m) => m.subject.includes(`[${kitSerial}]`) && m.subject.includes('Sign-off withdrawn'));
 
 describe('the rule: who may withdraw a sign-off, and when (every place × part state)', () => {
-  const ready: PartFacts = { holes: { installed: 3 }, stepsOpen: 0, openFindings: 0, signedOff: false, replaced: false };
+  const ready: PartFacts = {
+    holes: { installed: 3 },
+    stepsOpen: 0,
+    openFindings: 0,
+    signedOff: false,
+    replaced: false,
+  };
   const signed = { ...ready, signedOff: true };
   const places: BuildPlace[] = ['builder', 'inspector', 'design_authority', 'none'];
   // Expected codes follow the issue's brief: only the one who may sign off (an inspector) takes it back, only from a signed-off, unreplaced part.
   it.each([
     ...places.map((p) => ['signed off', p, p === 'inspector' ? null : 403, signed] as const),
     ...places.map((p) => ['not signed off', p, p === 'inspector' ? 409 : 403, ready] as const),
-    ...places.map((p) => ['signed off then replaced', p, p === 'inspector' ? 409 : 403, { ...signed, replaced: true }] as const),
+    ...places.map(
+      (p) => ['signed off then replaced', p, p === 'inspector' ? 409 : 403, { ...signed, replaced: true }] as const,
+    ),
   ])('%s, by %s → %s', (_state, place, code, facts) => {
     expect(checkPartAction(facts, 'withdraw-sign-off', place)?.code ?? null).toBe(code);
     expect(allowedPartActions(facts, place).includes('withdraw-sign-off')).toBe(code === null);
@@ -93,11 +156,19 @@ describe('withdrawing a sign-off', () => {
     const withdrawal = log.find((e) => e.text.startsWith('Withdrew the sign-off'));
     const signOffEntry = log.find((e) => e.kind === 'signed_off');
     expect(signOffEntry).toBeDefined();
-    expect(withdrawal).toMatchObject({ kind: 'sign_off_withdrawn', group: 'sign_off', note: REASON, actorName: expect.any(String) });
+    expect(withdrawal).toMatchObject({
+      kind: 'sign_off_withdrawn',
+      group: 'sign_off',
+      note: REASON,
+      actorName: expect.any(String),
+    });
     expect(log.indexOf(withdrawal!)).toBeLessThan(log.indexOf(signOffEntry!)); // newest first
     // Filtering by sign-off shows both: a sign-off is never shown without its withdrawal.
     const filtered = await logOf(p, { kind: 'sign_off' });
-    expect(filtered.map((e) => e.text.startsWith('Withdrew') ? 'withdrawn' : e.kind)).toEqual(['withdrawn', 'signed_off']);
+    expect(filtered.map((e) => (e.text.startsWith('Withdrew') ? 'withdrawn' : e.kind))).toEqual([
+      'withdrawn',
+      'signed_off',
+    ]);
 
     const mail = await t.waitForMail((m) => withdrawalMails(p.kitSerial).includes(m));
     expect(mail.to).toEqual([DEMO_USERS.builder.email]);
@@ -109,7 +180,11 @@ describe('withdrawing a sign-off', () => {
 
     // The part can be signed off again, and that is a third entry.
     expect((await request(t.app).post(`/api/travelers/${p.id}/sign-off`).set(auth(tok.inspector))).status).toBe(200);
-    expect((await logOf(p, { kind: 'sign_off' })).map((e) => e.kind)).toEqual(['signed_off', 'sign_off_withdrawn', 'signed_off']);
+    expect((await logOf(p, { kind: 'sign_off' })).map((e) => e.kind)).toEqual([
+      'signed_off',
+      'sign_off_withdrawn',
+      'signed_off',
+    ]);
   });
 
   it(`a double submit withdraws once under the part's lock: one entry, one mail (${ROUNDS} rounds)`, async () => {
@@ -134,9 +209,27 @@ describe('withdrawing a sign-off', () => {
       ['an admin', () => tok.admin, { reason: REASON }, 403, /only an inspector/],
       ['an inspector of another build', () => outsider.inspector, { reason: REASON }, 404, /traveler/],
       ['no reason', () => tok.inspector, {}, 400, { reason: expect.any(String) }],
-      [`a reason under ${NOTE_MIN_LENGTH} characters`, () => tok.inspector, { reason: ' ok ' }, 400, { reason: expect.stringMatching(/why/) }],
-      ['a reason over 1000 characters', () => tok.inspector, { reason: 'x'.repeat(1001) }, 400, { reason: expect.stringMatching(/1000/) }],
-      ['a reason with a control character', () => tok.inspector, { reason: 'cracked\u0007head' }, 400, { reason: expect.stringMatching(/control/) }],
+      [
+        `a reason under ${NOTE_MIN_LENGTH} characters`,
+        () => tok.inspector,
+        { reason: ' ok ' },
+        400,
+        { reason: expect.stringMatching(/why/) },
+      ],
+      [
+        'a reason over 1000 characters',
+        () => tok.inspector,
+        { reason: 'x'.repeat(1001) },
+        400,
+        { reason: expect.stringMatching(/1000/) },
+      ],
+      [
+        'a reason with a control character',
+        () => tok.inspector,
+        { reason: 'cracked\u0007head' },
+        400,
+        { reason: expect.stringMatching(/control/) },
+      ],
     ];
     it.each(cases)('%s → refused', async (_who, token, body, status, says) => {
       const p = await signedPart();
@@ -146,7 +239,11 @@ describe('withdrawing a sign-off', () => {
       if (says instanceof RegExp) expect(res.body.error.message).toMatch(says);
       else expect(res.body.error.fields).toEqual(says);
       const after = await part(p.id);
-      expect([after.signedOff, after.signedOffAt, after.signedOffByName]).toEqual([true, before.signedOffAt, before.signedOffByName]);
+      expect([after.signedOff, after.signedOffAt, after.signedOffByName]).toEqual([
+        true,
+        before.signedOffAt,
+        before.signedOffByName,
+      ]);
       expect((await logOf(p)).filter((e) => e.text.startsWith('Withdrew'))).toHaveLength(0);
       await new Promise((r) => setTimeout(r, 1000));
       expect(withdrawalMails(p.kitSerial)).toHaveLength(0);
@@ -169,14 +266,19 @@ describe(`a withdrawal racing the bench and a new sign-off under the part's lock
       const p = await signedPart();
       const [w, tick] = await Promise.all([
         withdraw(tok.inspector, p.id),
-        request(t.app).post(`/api/travelers/${p.id}/holes`).set(auth(tok.builder)).send({ holeIds: ['U-02'], status: 'pending' }),
+        request(t.app)
+          .post(`/api/travelers/${p.id}/holes`)
+          .set(auth(tok.builder))
+          .send({ holeIds: ['U-02'], status: 'pending' }),
       ]);
       // The withdrawal always lands; the tick either came first (refused: the part was signed off) or after it.
       expect(w.status).toBe(200);
       expect([200, 409]).toContain(tick.status);
       const d = await part(p.id);
       expect(d.signedOff).toBe(false);
-      expect(d.holes.find((h: { holeId: string }) => h.holeId === 'U-02').status).toBe(tick.status === 200 ? 'pending' : 'installed');
+      expect(d.holes.find((h: { holeId: string }) => h.holeId === 'U-02').status).toBe(
+        tick.status === 200 ? 'pending' : 'installed',
+      );
       if (tick.status === 200) {
         const kinds = (await logOf(p)).map((e) => (e.text.startsWith('Withdrew') ? 'withdrawn' : e.kind));
         expect(kinds.indexOf('holes_pending')).toBeLessThan(kinds.indexOf('withdrawn')); // newest first: the tick is later
@@ -192,7 +294,10 @@ describe(`a withdrawal racing the bench and a new sign-off under the part's lock
   it('a new sign-off racing the withdrawal ends signed off exactly when it was accepted', async () => {
     for (let i = 0; i < ROUNDS; i++) {
       const p = await signedPart();
-      const [w, s] = await Promise.all([withdraw(tok.inspector, p.id), request(t.app).post(`/api/travelers/${p.id}/sign-off`).set(auth(tok.inspector))]);
+      const [w, s] = await Promise.all([
+        withdraw(tok.inspector, p.id),
+        request(t.app).post(`/api/travelers/${p.id}/sign-off`).set(auth(tok.inspector)),
+      ]);
       expect(w.status).toBe(200);
       expect([200, 409]).toContain(s.status);
       const d = await part(p.id);
@@ -210,9 +315,17 @@ describe('QR labels through the travelers API', () => {
     expect(one.status).toBe(200);
     expect(one.body).toHaveLength(1);
     expect(one.body[0]).toMatchObject({
-      travelerId: p.id, kitModelCode: 'WD-1', kitModelName: 'Withdrawal kit', supplierName: expect.any(String),
-      partNumber: 'WD-R1', letter: 'A', kitSerial: p.kitSerial, shortCode: expect.stringMatching(/^[A-Z0-9]{3}-[A-Z0-9]{3}$/),
-      serial: expect.any(String), url: expect.stringMatching(/^http:\/\/pitchcard\.test:\d+\/t\//), qrDataUrl: expect.stringMatching(/^data:image\/png;base64,/),
+      travelerId: p.id,
+      kitModelCode: 'WD-1',
+      kitModelName: 'Withdrawal kit',
+      supplierName: expect.any(String),
+      partNumber: 'WD-R1',
+      letter: 'A',
+      kitSerial: p.kitSerial,
+      shortCode: expect.stringMatching(/^[A-Z0-9]{3}-[A-Z0-9]{3}$/),
+      serial: expect.any(String),
+      url: expect.stringMatching(/^http:\/\/pitchcard\.test:\d+\/t\//),
+      qrDataUrl: expect.stringMatching(/^data:image\/png;base64,/),
     });
     expect(one.body[0].supplierName.length).toBeGreaterThan(0);
     expect((await part(p.id, tok.builder)).labelAllowed).toBe(true);
@@ -226,7 +339,12 @@ describe('QR labels through the travelers API', () => {
     ['the inspector, one part', () => tok.inspector, (p: Part) => ({ travelerId: p.id }), 403],
     ['a builder of another build', () => outsider.builder, (p: Part) => ({ travelerId: p.id }), 404],
     ['another supplier, a whole build', () => outsider.supplier, (p: Part) => ({ buildId: p.buildId }), 404],
-    ['anyone, with both a build and a part', () => tok.supplier, (p: Part) => ({ buildId: p.buildId, travelerId: p.id }), 400],
+    [
+      'anyone, with both a build and a part',
+      () => tok.supplier,
+      (p: Part) => ({ buildId: p.buildId, travelerId: p.id }),
+      400,
+    ],
   ] as const)('refuses %s', async (_who, token, query, status) => {
     const p = await signedPart(false);
     expect((await request(t.app).get('/api/travelers/labels').query(query(p)).set(auth(token()))).status).toBe(status);
@@ -235,13 +353,20 @@ describe('QR labels through the travelers API', () => {
 
 describe('labels with a loopback public address', () => {
   let local: TestApp;
-  beforeAll(async () => { local = await startTestApp({ env: { PUBLIC_URL: 'http://localhost:8080' } }); });
-  afterAll(async () => { await local?.close(); });
+  beforeAll(async () => {
+    local = await startTestApp({ env: { PUBLIC_URL: 'http://localhost:8080' } });
+  });
+  afterAll(async () => {
+    await local?.close();
+  });
 
   it('are refused with how to set the address, even for one part', async () => {
     const tokens = await local.tokens();
     const parts = (await request(local.app).get('/api/travelers').set(auth(tokens.builder))).body.items;
-    const res = await request(local.app).get('/api/travelers/labels').query({ travelerId: parts[0].id }).set(auth(tokens.builder));
+    const res = await request(local.app)
+      .get('/api/travelers/labels')
+      .query({ travelerId: parts[0].id })
+      .set(auth(tokens.builder));
     expect([res.status, res.body.error.message]).toEqual([409, expect.stringMatching(/phone cannot open.*PUBLIC_URL/)]);
   });
 });

@@ -22,15 +22,27 @@ afterAll(async () => {
 
 describe('load studies', () => {
   it('refuses a negative weight, naming the field', async () => {
-    const res = await request(t.app).post('/api/studies').set(auth(tok.supplier))
-      .send({ kitModelId, name: 'bad', inputs: { ...DEMO_STUDY_INPUTS, kit: { ...DEMO_STUDY_INPUTS.kit, weightLb: -1 } } });
+    const res = await request(t.app)
+      .post('/api/studies')
+      .set(auth(tok.supplier))
+      .send({
+        kitModelId,
+        name: 'bad',
+        inputs: { ...DEMO_STUDY_INPUTS, kit: { ...DEMO_STUDY_INPUTS.kit, weightLb: -1 } },
+      });
     expect(res.status).toBe(400);
     expect(res.body.error.fields['inputs.kit.weightLb']).toMatch(/greater than zero/);
   });
 
   it('refuses a stall speed above the cruise speed', async () => {
-    const res = await request(t.app).post('/api/studies').set(auth(tok.supplier))
-      .send({ kitModelId, name: 'bad', inputs: { ...DEMO_STUDY_INPUTS, kit: { ...DEMO_STUDY_INPUTS.kit, stallSpeedKeas: 130 } } });
+    const res = await request(t.app)
+      .post('/api/studies')
+      .set(auth(tok.supplier))
+      .send({
+        kitModelId,
+        name: 'bad',
+        inputs: { ...DEMO_STUDY_INPUTS, kit: { ...DEMO_STUDY_INPUTS.kit, stallSpeedKeas: 130 } },
+      });
     expect(res.status).toBe(400);
     expect(res.body.error.fields['inputs.kit.cruiseSpeedKeas']).toMatch(/above the stall speed/);
   });
@@ -40,19 +52,26 @@ describe('load studies', () => {
     const points: [number, number][] = [];
     for (let i = 0; i <= 10; i++) points.push([1 - i / 10, 0.05 * Math.sin(Math.PI * (1 - i / 10)) * (i < 5 ? 1 : -1)]);
     for (let i = 1; i <= 10; i++) points.push([i / 10, 0.05 * Math.sin(Math.PI * (i / 10)) * (i < 5 ? -1 : 1)]);
-    const res = await request(t.app).post('/api/studies').set(auth(tok.supplier))
+    const res = await request(t.app)
+      .post('/api/studies')
+      .set(auth(tok.supplier))
       .send({ kitModelId, name: 'bad', inputs: { ...DEMO_STUDY_INPUTS, airfoil: { kind: 'coordinates', points } } });
     expect(res.status).toBe(400);
     expect(res.body.error.fields['inputs.airfoil.points']).toMatch(/crosses itself/);
   });
 
   it('computes and stores a study with its trade table, and a change is a new revision', async () => {
-    const res = await request(t.app).post('/api/studies').set(auth(tok.supplier)).send({ kitModelId, name: 'Rib study', inputs: DEMO_STUDY_INPUTS });
+    const res = await request(t.app)
+      .post('/api/studies')
+      .set(auth(tok.supplier))
+      .send({ kitModelId, name: 'Rib study', inputs: DEMO_STUDY_INPUTS });
     expect(res.status).toBe(201);
     expect(res.body.revision).toBe(1);
     expect(res.body.result.trade.length).toBe(18);
     expect(res.body.result.caution).toMatch(/aid only/i);
-    const changed = await request(t.app).put(`/api/studies/${res.body.id}`).set(auth(tok.supplier))
+    const changed = await request(t.app)
+      .put(`/api/studies/${res.body.id}`)
+      .set(auth(tok.supplier))
       .send({ kitModelId, name: 'Rib study', inputs: { ...DEMO_STUDY_INPUTS, maxZones: 2 } });
     expect(changed.body.revision).toBe(2);
     const first = await request(t.app).get(`/api/studies/${res.body.id}?revision=1`).set(auth(tok.supplier));
@@ -65,11 +84,18 @@ describe('load studies', () => {
     const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body.items;
     const rib = designs.find((d: { partNumber: string }) => d.partNumber === 'W-104');
     const { gaugeIn, rivet } = detail.result.recommended;
-    const res = await request(t.app).post(`/api/studies/${study.id}/apply`).set(auth(tok.supplier)).send({ partDesignId: rib.id, gaugeIn, rivet });
+    const res = await request(t.app)
+      .post(`/api/studies/${study.id}/apply`)
+      .set(auth(tok.supplier))
+      .send({ partDesignId: rib.id, gaugeIn, rivet });
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ status: 'draft', letter: 'B', gaugeIn, rivetSpec: rivet, studyId: study.id });
-    const candidate = detail.result.candidates.find((c: { gaugeIn: number; rivet: string }) => c.gaugeIn === gaugeIn && c.rivet === rivet);
-    expect(res.body.lines.map((l: { zones: unknown[] }) => l.zones.length)).toEqual(candidate.lines.map((l: { zones: unknown[] }) => l.zones.length));
+    const candidate = detail.result.candidates.find(
+      (c: { gaugeIn: number; rivet: string }) => c.gaugeIn === gaugeIn && c.rivet === rivet,
+    );
+    expect(res.body.lines.map((l: { zones: unknown[] }) => l.zones.length)).toEqual(
+      candidate.lines.map((l: { zones: unknown[] }) => l.zones.length),
+    );
     expect(res.body.basis.studyRevision).toBe(detail.revision);
   });
 
@@ -78,11 +104,14 @@ describe('load studies', () => {
     const detail = (await request(t.app).get(`/api/studies/${study.id}`).set(auth(tok.supplier))).body;
     const bad = detail.result.candidates.find((c: { feasible: boolean }) => !c.feasible);
     const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body.items;
-    const res = await request(t.app).post(`/api/studies/${study.id}/apply`).set(auth(tok.supplier)).send({ partDesignId: designs[0].id, gaugeIn: bad.gaugeIn, rivet: bad.rivet });
+    const res = await request(t.app)
+      .post(`/api/studies/${study.id}/apply`)
+      .set(auth(tok.supplier))
+      .send({ partDesignId: designs[0].id, gaugeIn: bad.gaugeIn, rivet: bad.rivet });
     expect(res.status).toBe(409);
   });
 
-  it("lists the coupon allowables a study uses: 0.020 in 13.5 lb limit, 30 lb ultimate; 0.016 in nothing (common practice)", async () => {
+  it('lists the coupon allowables a study uses: 0.020 in 13.5 lb limit, 30 lb ultimate; 0.016 in nothing (common practice)', async () => {
     const res = await request(t.app).get('/api/coupons/allowables').set(auth(tok.supplier));
     expect(res.status).toBe(200);
     const at = (g: number) => res.body.find((a: { gaugeIn: number }) => Math.abs(a.gaugeIn - g) < 1e-6);
@@ -99,11 +128,27 @@ describe('load studies', () => {
       return [x, -dcp / 2, dcp / 2];
     });
     const cpTables = [{ cl: 2 * Math.PI * alpha, rows }];
-    const res = await request(t.app).post('/api/studies').set(auth(tok.supplier)).send({ kitModelId, name: 'From a Cp table', inputs: { ...DEMO_STUDY_INPUTS, cpTables } });
+    const res = await request(t.app)
+      .post('/api/studies')
+      .set(auth(tok.supplier))
+      .send({ kitModelId, name: 'From a Cp table', inputs: { ...DEMO_STUDY_INPUTS, cpTables } });
     expect(res.status).toBe(201);
-    expect(res.body.result.conditions.filter((c: { clNeeded: number }) => c.clNeeded > 0).every((c: { pressureSource: string }) => c.pressureSource === 'Cp table')).toBe(true);
-    const bad = await request(t.app).post('/api/studies').set(auth(tok.supplier))
-      .send({ kitModelId, name: 'bad', inputs: { ...DEMO_STUDY_INPUTS, cpTables: [{ cl: 0.6, rows: rows.map((r, i) => (i === 2 ? [r[0], 1.5, r[2]] : r)) }] } });
+    expect(
+      res.body.result.conditions
+        .filter((c: { clNeeded: number }) => c.clNeeded > 0)
+        .every((c: { pressureSource: string }) => c.pressureSource === 'Cp table'),
+    ).toBe(true);
+    const bad = await request(t.app)
+      .post('/api/studies')
+      .set(auth(tok.supplier))
+      .send({
+        kitModelId,
+        name: 'bad',
+        inputs: {
+          ...DEMO_STUDY_INPUTS,
+          cpTables: [{ cl: 0.6, rows: rows.map((r, i) => (i === 2 ? [r[0], 1.5, r[2]] : r)) }],
+        },
+      });
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields['inputs.cpTables.0.rows.2.1']).toMatch(/stagnation/);
   });

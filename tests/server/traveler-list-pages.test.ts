@@ -24,7 +24,9 @@ beforeAll(async () => {
     update travelers set replaced_by_id = (select id from travelers where serial like '%-X01'), replaced_reason = 'scrap', replaced_at = now()
     where serial like '%-X02'`);
 });
-afterAll(async () => { await t?.close(); });
+afterAll(async () => {
+  await t?.close();
+});
 
 async function walk(token: string, query: string, limit: number): Promise<{ rows: TravelerSummary[]; pages: number }> {
   const rows: TravelerSummary[] = [];
@@ -32,7 +34,9 @@ async function walk(token: string, query: string, limit: number): Promise<{ rows
   let pages = 0;
   // Bounded: never more pages than rows could fill.
   for (let i = 0; i < 200; i++) {
-    const res = await request(t.app).get(`/api/travelers?limit=${limit}${query}${cursor ? `&cursor=${cursor}` : ''}`).set(auth(token));
+    const res = await request(t.app)
+      .get(`/api/travelers?limit=${limit}${query}${cursor ? `&cursor=${cursor}` : ''}`)
+      .set(auth(token));
     expect(res.status).toBe(200);
     const page = res.body as Page<TravelerSummary>;
     expect(page.items.length).toBeLessThanOrEqual(limit);
@@ -54,7 +58,9 @@ const byKey = (a: TravelerSummary, b: TravelerSummary) => {
 
 describe('the travelers list in pages', () => {
   it('walks every part the builder may see exactly once, in a stable order, though their times are equal', async () => {
-    const ids = await t.database.db.execute(sql`select count(*)::int as n, count(distinct created_at)::int as times from travelers`);
+    const ids = await t.database.db.execute(
+      sql`select count(*)::int as n, count(distinct created_at)::int as times from travelers`,
+    );
     const { n, times } = ids.rows[0] as { n: number; times: number };
     expect(times).toBeLessThan(n); // the equal timestamps are really there
 
@@ -75,9 +81,38 @@ describe('the travelers list in pages', () => {
     const { rows } = await walk(tok.builder, '', 50);
     const w104 = rows.find((r) => r.partNumber === 'W-104' && !r.serial.includes('-X'))!;
     const detail = (await request(t.app).get(`/api/travelers/${w104.id}`).set(auth(tok.builder))).body;
-    const { id, serial, holesTotal, holesDone, holesAwaitingInspector, openFindings, signedOff, newerRevision, replaced } = detail;
-    expect({ id, serial, holesTotal, holesDone, holesAwaitingInspector, openFindings, signedOff, newerRevision, replaced })
-      .toEqual({ id: w104.id, serial: w104.serial, holesTotal: w104.holesTotal, holesDone: w104.holesDone, holesAwaitingInspector: w104.holesAwaitingInspector, openFindings: w104.openFindings, signedOff: w104.signedOff, newerRevision: w104.newerRevision, replaced: w104.replaced });
+    const {
+      id,
+      serial,
+      holesTotal,
+      holesDone,
+      holesAwaitingInspector,
+      openFindings,
+      signedOff,
+      newerRevision,
+      replaced,
+    } = detail;
+    expect({
+      id,
+      serial,
+      holesTotal,
+      holesDone,
+      holesAwaitingInspector,
+      openFindings,
+      signedOff,
+      newerRevision,
+      replaced,
+    }).toEqual({
+      id: w104.id,
+      serial: w104.serial,
+      holesTotal: w104.holesTotal,
+      holesDone: w104.holesDone,
+      holesAwaitingInspector: w104.holesAwaitingInspector,
+      openFindings: w104.openFindings,
+      signedOff: w104.signedOff,
+      newerRevision: w104.newerRevision,
+      replaced: w104.replaced,
+    });
     expect(holesTotal).toBe(detail.holes.length);
     // The demo ticked eight holes installed and flagged one under a finding (db/seed.ts).
     expect(holesDone).toBe(8);
@@ -88,13 +123,17 @@ describe('the travelers list in pages', () => {
   it('filters in the database: show and search narrow every page', async () => {
     const all = (await walk(tok.builder, '', 100)).rows;
     const x = await walk(tok.builder, '&q=-x1', 3);
-    expect(x.rows.map((r) => r.serial)).toEqual(all.filter((r) => r.serial.toLowerCase().includes('-x1')).map((r) => r.serial));
+    expect(x.rows.map((r) => r.serial)).toEqual(
+      all.filter((r) => r.serial.toLowerCase().includes('-x1')).map((r) => r.serial),
+    );
     expect(x.rows.length).toBe(10); // -X10 … -X19
     // A % in the search is a character to find, not a wildcard.
     expect((await walk(tok.builder, '&q=%25', 10)).rows).toEqual([]);
     const open = await walk(tok.builder, '&show=open', 5);
     expect(open.rows.map((r) => r.id)).toEqual(all.filter((r) => !r.signedOff).map((r) => r.id));
-    expect((await walk(tok.builder, '&show=signed', 5)).rows.map((r) => r.id)).toEqual(all.filter((r) => r.signedOff).map((r) => r.id));
+    expect((await walk(tok.builder, '&show=signed', 5)).rows.map((r) => r.id)).toEqual(
+      all.filter((r) => r.signedOff).map((r) => r.id),
+    );
   });
 
   it('shows an outsider nothing, and the supplier the same parts as the builder', async () => {
@@ -106,8 +145,16 @@ describe('the travelers list in pages', () => {
 
   it('refuses a cursor it did not give, and a page over 100 rows, saying why', async () => {
     const made = Buffer.from(JSON.stringify([0, 'A', 'not-an-id'])).toString('base64url');
-    for (const cursor of ['bm90LWpzb24', made, Buffer.from('[1,2]').toString('base64url'), 'has spaces', Buffer.from(JSON.stringify([7, 'A', '00000000-0000-0000-0000-000000000000'])).toString('base64url')]) {
-      const res = await request(t.app).get(`/api/travelers?cursor=${encodeURIComponent(cursor)}`).set(auth(tok.builder));
+    for (const cursor of [
+      'bm90LWpzb24',
+      made,
+      Buffer.from('[1,2]').toString('base64url'),
+      'has spaces',
+      Buffer.from(JSON.stringify([7, 'A', '00000000-0000-0000-0000-000000000000'])).toString('base64url'),
+    ]) {
+      const res = await request(t.app)
+        .get(`/api/travelers?cursor=${encodeURIComponent(cursor)}`)
+        .set(auth(tok.builder));
       expect(res.status).toBe(400);
       expect(res.body.error.message).toMatch(/cursor/);
     }
@@ -124,27 +171,64 @@ describe('the bench tick, under the part’s lock in few statements', () => {
     const { rows } = await walk(tok.builder, '&q=W-104', 50);
     const part = rows.find((r) => !r.serial.includes('-X'))!;
     const before = (await request(t.app).get(`/api/travelers/${part.id}`).set(auth(tok.builder))).body;
-    const pending = before.holes.filter((h: { status: string }) => h.status === 'pending').slice(0, 2).map((h: { holeId: string }) => h.holeId);
-    const tick = await request(t.app).post(`/api/travelers/${part.id}/holes`).set(auth(tok.builder)).send({ holeIds: pending, status: 'installed' });
+    const pending = before.holes
+      .filter((h: { status: string }) => h.status === 'pending')
+      .slice(0, 2)
+      .map((h: { holeId: string }) => h.holeId);
+    const tick = await request(t.app)
+      .post(`/api/travelers/${part.id}/holes`)
+      .set(auth(tok.builder))
+      .send({ holeIds: pending, status: 'installed' });
     expect(tick.status).toBe(200);
     expect(tick.body.holes.map((h: { status: string }) => h.status)).toEqual(['installed', 'installed']);
     const after = (await request(t.app).get(`/api/travelers/${part.id}`).set(auth(tok.builder))).body;
     expect(after.holesDone).toBe(before.holesDone + 2);
-    const events = await t.database.db.execute(sql`select detail from traveler_events where traveler_id = ${part.id} and kind = 'holes_installed' order by created_at desc limit 1`);
-    expect(((events.rows[0] as { detail: { holeIds: string[] } }).detail.holeIds).sort()).toEqual([...pending].sort());
+    const events = await t.database.db.execute(
+      sql`select detail from traveler_events where traveler_id = ${part.id} and kind = 'holes_installed' order by created_at desc limit 1`,
+    );
+    expect((events.rows[0] as { detail: { holeIds: string[] } }).detail.holeIds.sort()).toEqual([...pending].sort());
     // Ticking the same holes again changes nothing and writes no event.
-    const again = await request(t.app).post(`/api/travelers/${part.id}/holes`).set(auth(tok.builder)).send({ holeIds: pending, status: 'installed' });
+    const again = await request(t.app)
+      .post(`/api/travelers/${part.id}/holes`)
+      .set(auth(tok.builder))
+      .send({ holeIds: pending, status: 'installed' });
     expect(again.status).toBe(200);
-    const count = await t.database.db.execute(sql`select count(*)::int as n from traveler_events where traveler_id = ${part.id} and kind = 'holes_installed'`);
+    const count = await t.database.db.execute(
+      sql`select count(*)::int as n from traveler_events where traveler_id = ${part.id} and kind = 'holes_installed'`,
+    );
     expect((count.rows[0] as { n: number }).n).toBe(2); // the seed's and this one
 
-    expect((await request(t.app).post(`/api/travelers/${part.id}/holes`).set(auth(tok.inspector)).send({ holeIds: pending, status: 'pending' })).status).toBe(403);
+    expect(
+      (
+        await request(t.app)
+          .post(`/api/travelers/${part.id}/holes`)
+          .set(auth(tok.inspector))
+          .send({ holeIds: pending, status: 'pending' })
+      ).status,
+    ).toBe(403);
     const outsider = await t.addUser('builder', 'tick.outsider@elsewhere.example');
-    expect((await request(t.app).post(`/api/travelers/${part.id}/holes`).set(auth(outsider)).send({ holeIds: pending, status: 'pending' })).status).toBe(404);
-    const unknown = await request(t.app).post(`/api/travelers/${part.id}/holes`).set(auth(tok.builder)).send({ holeIds: ['Q-99'], status: 'installed' });
+    expect(
+      (
+        await request(t.app)
+          .post(`/api/travelers/${part.id}/holes`)
+          .set(auth(outsider))
+          .send({ holeIds: pending, status: 'pending' })
+      ).status,
+    ).toBe(404);
+    const unknown = await request(t.app)
+      .post(`/api/travelers/${part.id}/holes`)
+      .set(auth(tok.builder))
+      .send({ holeIds: ['Q-99'], status: 'installed' });
     expect(unknown.status).toBe(400);
     expect(unknown.body.error.message).toMatch(/no hole Q-99/);
     const flagged = before.holes.find((h: { status: string }) => h.status === 'flagged').holeId;
-    expect((await request(t.app).post(`/api/travelers/${part.id}/holes`).set(auth(tok.builder)).send({ holeIds: [flagged], status: 'installed' })).status).toBe(409);
+    expect(
+      (
+        await request(t.app)
+          .post(`/api/travelers/${part.id}/holes`)
+          .set(auth(tok.builder))
+          .send({ holeIds: [flagged], status: 'installed' })
+      ).status,
+    ).toBe(409);
   });
 });

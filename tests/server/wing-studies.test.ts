@@ -21,18 +21,30 @@ beforeAll(async () => {
   tok = await t.tokens();
   otherSupplier = await t.addUser('supplier', 'other.supplier@elsewhere.example');
   kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items[0].id;
-  const res = await request(t.app).post('/api/studies').set(auth(tok.supplier)).send({ kind: 'wing', kitModelId, name: 'Wing, ten ribs', inputs: DEMO_WING_INPUTS });
+  const res = await request(t.app)
+    .post('/api/studies')
+    .set(auth(tok.supplier))
+    .send({ kind: 'wing', kitModelId, name: 'Wing, ten ribs', inputs: DEMO_WING_INPUTS });
   if (res.status !== 201) throw new Error(`the wing study was refused: ${JSON.stringify(res.body)}`);
   wing = res.body;
-  const list = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body.items as { id: string; kind: string }[];
+  const list = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body.items as {
+    id: string;
+    kind: string;
+  }[];
   ribStudyId = list.find((s) => s.kind === 'rib')!.id;
-  const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body.items as { id: string; partNumber: string }[];
+  const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body.items as {
+    id: string;
+    partNumber: string;
+  }[];
   designIds = Object.fromEntries(designs.map((d) => [d.partNumber, d.id]));
 });
-afterAll(async () => { await t?.close(); });
+afterAll(async () => {
+  await t?.close();
+});
 
 const post = (body: object, token = tok.supplier) => request(t.app).post('/api/studies').set(auth(token)).send(body);
-const apply = (id: string, body: object, token = tok.supplier) => request(t.app).post(`/api/studies/${id}/apply`).set(auth(token)).send(body);
+const apply = (id: string, body: object, token = tok.supplier) =>
+  request(t.app).post(`/api/studies/${id}/apply`).set(auth(token)).send(body);
 
 describe('a whole-wing study', () => {
   it('computes every rib and every skin panel between neighbouring ribs, and says it is a wing', () => {
@@ -71,16 +83,26 @@ describe('a whole-wing study', () => {
   });
 
   it('passes on the engine naming an unknown skin rivet as inputs.skin.rivetCandidates.0', async () => {
-    const res = await post({ kind: 'wing', kitModelId, name: 'bad', inputs: { ...DEMO_WING_INPUTS, skin: { ...DEMO_WING_INPUTS.skin, rivetCandidates: ['NOSUCH-9'] } } });
+    const res = await post({
+      kind: 'wing',
+      kitModelId,
+      name: 'bad',
+      inputs: { ...DEMO_WING_INPUTS, skin: { ...DEMO_WING_INPUTS.skin, rivetCandidates: ['NOSUCH-9'] } },
+    });
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields)).toEqual(['inputs.skin.rivetCandidates.0']);
   });
 
   it('keeps its kind: a rib study body for it is refused with 409, a wing body makes revision 2', async () => {
-    const rib = await request(t.app).put(`/api/studies/${wing.id}`).set(auth(tok.supplier)).send({ kitModelId, name: 'Wing, ten ribs', inputs: DEMO_STUDY_INPUTS });
+    const rib = await request(t.app)
+      .put(`/api/studies/${wing.id}`)
+      .set(auth(tok.supplier))
+      .send({ kitModelId, name: 'Wing, ten ribs', inputs: DEMO_STUDY_INPUTS });
     expect(rib.status).toBe(409);
     expect(rib.body.error.fields.kind).toMatch(/wing/);
-    const next = await request(t.app).put(`/api/studies/${wing.id}`).set(auth(tok.supplier))
+    const next = await request(t.app)
+      .put(`/api/studies/${wing.id}`)
+      .set(auth(tok.supplier))
       .send({ kind: 'wing', kitModelId, name: 'Wing, ten ribs', inputs: { ...DEMO_WING_INPUTS, maxZones: 3 } });
     expect(next.status).toBe(200);
     expect(next.body).toMatchObject({ kind: 'wing', revision: 2, inputs: { maxZones: 3 } });
@@ -99,7 +121,17 @@ describe('a whole-wing study', () => {
     const rib = res.body.items.find((s: { id: string }) => s.id === ribStudyId);
     const ribDetail = (await request(t.app).get(`/api/studies/${ribStudyId}`).set(auth(tok.supplier))).body;
     expect(rib).toMatchObject({ kind: 'rib', recommended: ribDetail.result.recommended });
-    for (const s of res.body.items) expect(Object.keys(s).sort()).toEqual(['id', 'kind', 'kitModelId', 'kitName', 'name', 'recommended', 'revision', 'updatedAt']);
+    for (const s of res.body.items)
+      expect(Object.keys(s).sort()).toEqual([
+        'id',
+        'kind',
+        'kitModelId',
+        'kitName',
+        'name',
+        'recommended',
+        'revision',
+        'updatedAt',
+      ]);
   });
 });
 
@@ -107,36 +139,71 @@ describe('applying a wing study to a part design', () => {
   it("writes rib W-105's recommended candidate into a draft of the rib part: the rib's chord, its flange lines and zones", async () => {
     const rib = wing.result.ribs.find((r: { name: string }) => r.name === 'W-105');
     const pick: Choice = rib.study.recommended;
-    const res = await apply(wing.id, { partDesignId: designIds['W-105'], ...pick, target: { kind: 'rib', name: 'W-105' } });
+    const res = await apply(wing.id, {
+      partDesignId: designIds['W-105'],
+      ...pick,
+      target: { kind: 'rib', name: 'W-105' },
+    });
     expect(res.status).toBe(200);
-    expect(res.body).toMatchObject({ status: 'draft', gaugeIn: pick.gaugeIn, rivetSpec: pick.rivet, chordIn: rib.chordIn, studyId: wing.id });
+    expect(res.body).toMatchObject({
+      status: 'draft',
+      gaugeIn: pick.gaugeIn,
+      rivetSpec: pick.rivet,
+      chordIn: rib.chordIn,
+      studyId: wing.id,
+    });
     const candidate = rib.study.candidates.find(same(pick));
-    expect(res.body.lines.map((l: { code: string }) => l.code)).toEqual(rib.study.lines.map((l: { holePrefix: string }) => l.holePrefix));
+    expect(res.body.lines.map((l: { code: string }) => l.code)).toEqual(
+      rib.study.lines.map((l: { holePrefix: string }) => l.holePrefix),
+    );
     res.body.lines.forEach((line: any, i: number) => {
-      expect(line.zones.map((z: { pitchIn: number }) => z.pitchIn)).toEqual(candidate.lines[i].zones.map((z: { pitchIn: number }) => z.pitchIn));
+      expect(line.zones.map((z: { pitchIn: number }) => z.pitchIn)).toEqual(
+        candidate.lines[i].zones.map((z: { pitchIn: number }) => z.pitchIn),
+      );
       expect(line.startIn).toBeCloseTo(rib.study.lines[i].fromStationIn, 3);
       // The zones tile the line from its start to its length (the revision contract).
       expect(line.zones[0].fromIn).toBe(0);
       expect(line.zones.at(-1).toIn).toBeCloseTo(line.lengthIn, 6);
     });
-    expect(res.body.basis).toMatchObject({ kind: 'wing', studyRevision: 2, target: { kind: 'rib', name: 'W-105', stationIn: rib.stationIn } });
+    expect(res.body.basis).toMatchObject({
+      kind: 'wing',
+      studyRevision: 2,
+      target: { kind: 'rib', name: 'W-105', stationIn: rib.stationIn },
+    });
   });
 
   it("refuses a rib candidate whose zones the wing did not keep, pointing to the rib's and the wing's choices", async () => {
     const rib = wing.result.ribs.find((r: { name: string }) => r.name === 'W-105');
     const other = rib.study.candidates.find((c: any) => c.feasible && c.lines.length === 0);
-    const res = await apply(wing.id, { partDesignId: designIds['W-105'], gaugeIn: other.gaugeIn, rivet: other.rivet, target: { kind: 'rib', name: 'W-105' } });
+    const res = await apply(wing.id, {
+      partDesignId: designIds['W-105'],
+      gaugeIn: other.gaugeIn,
+      rivet: other.rivet,
+      target: { kind: 'rib', name: 'W-105' },
+    });
     expect(res.status).toBe(409);
     expect(res.body.error.message).toMatch(/recommended candidate .* one-for-all choice/);
   });
 
   it('writes the root upper panel into the skin part: front spar, rear spar and both rib lines, as the flat rows of a panel', async () => {
-    const panel = wing.result.skins.find((s: { surface: string; innerRib: string }) => s.surface === 'upper' && s.innerRib === 'W-101');
+    const panel = wing.result.skins.find(
+      (s: { surface: string; innerRib: string }) => s.surface === 'upper' && s.innerRib === 'W-101',
+    );
     const pick: Choice = panel.recommended;
-    const res = await apply(wing.id, { partDesignId: designIds['W-201'], ...pick, target: { kind: 'skin', name: panel.name } });
+    const res = await apply(wing.id, {
+      partDesignId: designIds['W-201'],
+      ...pick,
+      target: { kind: 'skin', name: panel.name },
+    });
     expect(res.status).toBe(200);
     // The demo's draft A is written over, not a new letter.
-    expect(res.body).toMatchObject({ status: 'draft', letter: 'A', gaugeIn: pick.gaugeIn, rivetSpec: pick.rivet, studyId: wing.id });
+    expect(res.body).toMatchObject({
+      status: 'draft',
+      letter: 'A',
+      gaugeIn: pick.gaugeIn,
+      rivetSpec: pick.rivet,
+      studyId: wing.id,
+    });
     expect(res.body.lines.map((l: { code: string }) => l.code)).toEqual(['FS', 'RS', 'IR', 'OR']);
     // A countersunk rivet's edge distance is at least 2.5 D (FAA AC 43.13-1B 4-58); MS20426 dash numbers are
     // the diameter in 32nds of an inch (common practice): the stored, rounded figure must not undercut it.
@@ -149,16 +216,28 @@ describe('applying a wing study to a part design', () => {
     const candidate = panel.candidates.find(same(pick));
     res.body.lines.forEach((line: any, i: number) => {
       expect(line.lengthIn).toBeCloseTo(candidate.lines[i].lengthIn, 3);
-      expect(line.zones.map((z: { pitchIn: number }) => z.pitchIn)).toEqual(candidate.lines[i].zones.map((z: { pitchIn: number }) => z.pitchIn));
+      expect(line.zones.map((z: { pitchIn: number }) => z.pitchIn)).toEqual(
+        candidate.lines[i].zones.map((z: { pitchIn: number }) => z.pitchIn),
+      );
       expect(line.zones.at(-1).toIn).toBeCloseTo(line.lengthIn, 6);
     });
-    expect(res.body.basis.target).toMatchObject({ kind: 'skin', name: panel.name, innerStationIn: 24, outerStationIn: 38.5 });
+    expect(res.body.basis.target).toMatchObject({
+      kind: 'skin',
+      name: panel.name,
+      innerStationIn: 24,
+      outerStationIn: 38.5,
+    });
   });
 
   it('refuses a skin candidate that does not carry the load, with its reasons', async () => {
     const panel = wing.result.skins.find((s: any) => s.candidates.some((c: any) => !c.feasible));
     const bad = panel.candidates.find((c: any) => !c.feasible);
-    const res = await apply(wing.id, { partDesignId: designIds['W-201'], gaugeIn: bad.gaugeIn, rivet: bad.rivet, target: { kind: 'skin', name: panel.name } });
+    const res = await apply(wing.id, {
+      partDesignId: designIds['W-201'],
+      gaugeIn: bad.gaugeIn,
+      rivet: bad.rivet,
+      target: { kind: 'skin', name: panel.name },
+    });
     expect(res.status).toBe(409);
     expect(res.body.error.message).toContain(bad.reasons[0]);
   });
@@ -171,11 +250,19 @@ describe('applying a wing study to a part design', () => {
 
   it('refuses a rib target written to a skin panel part, and a skin target written to a rib part', async () => {
     const rib = wing.result.ribs[0];
-    const toSkin = await apply(wing.id, { partDesignId: designIds['W-201'], ...rib.study.recommended, target: { kind: 'rib', name: rib.name } });
+    const toSkin = await apply(wing.id, {
+      partDesignId: designIds['W-201'],
+      ...rib.study.recommended,
+      target: { kind: 'rib', name: rib.name },
+    });
     expect(toSkin.status).toBe(409);
     expect(toSkin.body.error.fields.partDesignId).toMatch(/rib/);
     const panel = wing.result.skins[0];
-    const toRib = await apply(wing.id, { partDesignId: designIds['W-104'], ...panel.recommended, target: { kind: 'skin', name: panel.name } });
+    const toRib = await apply(wing.id, {
+      partDesignId: designIds['W-104'],
+      ...panel.recommended,
+      target: { kind: 'skin', name: panel.name },
+    });
     expect(toRib.status).toBe(409);
     expect(toRib.body.error.fields.partDesignId).toMatch(/skin_panel/);
   });
@@ -183,15 +270,30 @@ describe('applying a wing study to a part design', () => {
   it("refuses a skin candidate whose zones the wing did not keep, pointing to the panel's recommended one", async () => {
     const panel = wing.result.skins.find((s: any) => s.candidates.some((c: any) => c.feasible && c.lines.length === 0));
     const other = panel.candidates.find((c: any) => c.feasible && c.lines.length === 0);
-    const res = await apply(wing.id, { partDesignId: designIds['W-201'], gaugeIn: other.gaugeIn, rivet: other.rivet, target: { kind: 'skin', name: panel.name } });
+    const res = await apply(wing.id, {
+      partDesignId: designIds['W-201'],
+      gaugeIn: other.gaugeIn,
+      rivet: other.rivet,
+      target: { kind: 'skin', name: panel.name },
+    });
     expect(res.status).toBe(409);
-    expect(res.body.error.message).toContain(`recommended candidate (${panel.recommended.gaugeIn} in with ${panel.recommended.rivet})`);
+    expect(res.body.error.message).toContain(
+      `recommended candidate (${panel.recommended.gaugeIn} in with ${panel.recommended.rivet})`,
+    );
   });
 
   it('answers 404 for a rib or panel the study does not have', async () => {
-    const rib = await apply(wing.id, { partDesignId: designIds['W-104'], ...wing.result.trade.recommendedUniform, target: { kind: 'rib', name: 'W-999' } });
+    const rib = await apply(wing.id, {
+      partDesignId: designIds['W-104'],
+      ...wing.result.trade.recommendedUniform,
+      target: { kind: 'rib', name: 'W-999' },
+    });
     expect(rib.status).toBe(404);
-    const panel = await apply(wing.id, { partDesignId: designIds['W-201'], ...wing.result.skins[0].recommended, target: { kind: 'skin', name: 'W-101–W-110 upper' } });
+    const panel = await apply(wing.id, {
+      partDesignId: designIds['W-201'],
+      ...wing.result.skins[0].recommended,
+      target: { kind: 'skin', name: 'W-101–W-110 upper' },
+    });
     expect(panel.status).toBe(404);
   });
 });
@@ -201,11 +303,16 @@ describe("a rib study candidate's holes on demand", () => {
     const detail = (await request(t.app).get(`/api/studies/${ribStudyId}`).set(auth(tok.supplier))).body;
     const stored = detail.result.candidates.find((c: any) => c.feasible && !c.holesStored && c.rivet === 'MS20470AD4');
     expect(stored.lines.every((l: { holes: unknown[] }) => l.holes.length === 0)).toBe(true);
-    const res = await request(t.app).get(`/api/studies/${ribStudyId}/candidate`).query({ gaugeIn: stored.gaugeIn, rivet: stored.rivet, revision: 1 }).set(auth(tok.supplier));
+    const res = await request(t.app)
+      .get(`/api/studies/${ribStudyId}/candidate`)
+      .query({ gaugeIn: stored.gaugeIn, rivet: stored.rivet, revision: 1 })
+      .set(auth(tok.supplier));
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ gaugeIn: stored.gaugeIn, rivet: stored.rivet, feasible: true });
     res.body.lines.forEach((line: any, i: number) => {
-      expect(line.zones.map((z: { pitchIn: number; count: number }) => [z.pitchIn, z.count])).toEqual(stored.lines[i].zones.map((z: { pitchIn: number; count: number }) => [z.pitchIn, z.count]));
+      expect(line.zones.map((z: { pitchIn: number; count: number }) => [z.pitchIn, z.count])).toEqual(
+        stored.lines[i].zones.map((z: { pitchIn: number; count: number }) => [z.pitchIn, z.count]),
+      );
       expect(line.holes.length).toBe(line.zones.reduce((n: number, z: { count: number }) => n + z.count, 0));
       // Neighbouring holes no closer than 3D (1/8 in rivet: 0.375 in) and no farther than their zone's
       // pitch (FAA AC 43.13-1B 4-58, minimum rivet spacing 3D).
@@ -218,15 +325,21 @@ describe("a rib study candidate's holes on demand", () => {
   });
 
   it('answers 404 for a gauge the study did not have, and 409 for a wing study', async () => {
-    const missing = await request(t.app).get(`/api/studies/${ribStudyId}/candidate?gaugeIn=0.071&rivet=PULLED-4`).set(auth(tok.supplier));
+    const missing = await request(t.app)
+      .get(`/api/studies/${ribStudyId}/candidate?gaugeIn=0.071&rivet=PULLED-4`)
+      .set(auth(tok.supplier));
     expect(missing.status).toBe(404);
-    const ofWing = await request(t.app).get(`/api/studies/${wing.id}/candidate?gaugeIn=0.02&rivet=PULLED-4`).set(auth(tok.supplier));
+    const ofWing = await request(t.app)
+      .get(`/api/studies/${wing.id}/candidate?gaugeIn=0.02&rivet=PULLED-4`)
+      .set(auth(tok.supplier));
     expect(ofWing.status).toBe(409);
     expect(ofWing.body.error.message).toMatch(/stores zones; apply it/);
   });
 
   it('refuses a gauge that is not a number, naming it', async () => {
-    const res = await request(t.app).get(`/api/studies/${ribStudyId}/candidate?gaugeIn=thin&rivet=PULLED-4`).set(auth(tok.supplier));
+    const res = await request(t.app)
+      .get(`/api/studies/${ribStudyId}/candidate?gaugeIn=thin&rivet=PULLED-4`)
+      .set(auth(tok.supplier));
     expect(res.status).toBe(400);
     expect(res.body.error.fields.gaugeIn).toMatch(/number/);
   });
@@ -236,15 +349,60 @@ describe('who may see and use a wing study', () => {
   it("hides one supplier's study from another: 404 to read, list, revise, ask a candidate of or apply", async () => {
     expect((await request(t.app).get(`/api/studies/${wing.id}`).set(auth(otherSupplier))).status).toBe(404);
     expect((await request(t.app).get('/api/studies').set(auth(otherSupplier))).body.items).toEqual([]);
-    expect((await request(t.app).put(`/api/studies/${wing.id}`).set(auth(otherSupplier)).send({ kind: 'wing', kitModelId, name: 'x', inputs: DEMO_WING_INPUTS })).status).toBe(404);
-    expect((await request(t.app).get(`/api/studies/${ribStudyId}/candidate?gaugeIn=0.02&rivet=PULLED-4`).set(auth(otherSupplier))).status).toBe(404);
-    expect((await apply(wing.id, { partDesignId: designIds['W-201'], ...wing.result.skins[0].recommended, target: { kind: 'skin', name: wing.result.skins[0].name } }, otherSupplier)).status).toBe(404);
+    expect(
+      (
+        await request(t.app)
+          .put(`/api/studies/${wing.id}`)
+          .set(auth(otherSupplier))
+          .send({ kind: 'wing', kitModelId, name: 'x', inputs: DEMO_WING_INPUTS })
+      ).status,
+    ).toBe(404);
+    expect(
+      (
+        await request(t.app)
+          .get(`/api/studies/${ribStudyId}/candidate?gaugeIn=0.02&rivet=PULLED-4`)
+          .set(auth(otherSupplier))
+      ).status,
+    ).toBe(404);
+    expect(
+      (
+        await apply(
+          wing.id,
+          {
+            partDesignId: designIds['W-201'],
+            ...wing.result.skins[0].recommended,
+            target: { kind: 'skin', name: wing.result.skins[0].name },
+          },
+          otherSupplier,
+        )
+      ).status,
+    ).toBe(404);
   });
 
   it('keeps wing studies from builders: 403', async () => {
-    expect((await post({ kind: 'wing', kitModelId, name: 'x', inputs: DEMO_WING_INPUTS }, tok.builder)).status).toBe(403);
+    expect((await post({ kind: 'wing', kitModelId, name: 'x', inputs: DEMO_WING_INPUTS }, tok.builder)).status).toBe(
+      403,
+    );
     expect((await request(t.app).get(`/api/studies/${wing.id}`).set(auth(tok.builder))).status).toBe(403);
-    expect((await request(t.app).get(`/api/studies/${ribStudyId}/candidate?gaugeIn=0.02&rivet=PULLED-4`).set(auth(tok.builder))).status).toBe(403);
-    expect((await apply(wing.id, { partDesignId: designIds['W-201'], ...wing.result.skins[0].recommended, target: { kind: 'skin', name: wing.result.skins[0].name } }, tok.builder)).status).toBe(403);
+    expect(
+      (
+        await request(t.app)
+          .get(`/api/studies/${ribStudyId}/candidate?gaugeIn=0.02&rivet=PULLED-4`)
+          .set(auth(tok.builder))
+      ).status,
+    ).toBe(403);
+    expect(
+      (
+        await apply(
+          wing.id,
+          {
+            partDesignId: designIds['W-201'],
+            ...wing.result.skins[0].recommended,
+            target: { kind: 'skin', name: wing.result.skins[0].name },
+          },
+          tok.builder,
+        )
+      ).status,
+    ).toBe(403);
   });
 });

@@ -16,8 +16,17 @@ import { serveTestApp } from './served-app';
 /** 'none': signed out. */
 export type Role = 'builder' | 'inspector' | 'supplier' | 'admin' | 'none';
 export type Ids = {
-  buildId: string; travelerId: string; findingId: string; kitId: string; designId: string; studyId: string;
-  wingStudyId: string; walkTravelerId: string; walkFindingId: string; inviteToken: string; resetToken: string;
+  buildId: string;
+  travelerId: string;
+  findingId: string;
+  kitId: string;
+  designId: string;
+  studyId: string;
+  wingStudyId: string;
+  walkTravelerId: string;
+  walkFindingId: string;
+  inviteToken: string;
+  resetToken: string;
 };
 export type Route = { role: Role; name: string; path: (ids: Ids) => string; ready: string };
 export type Width = { name: string; viewport: { width: number; height: number }; isMobile: boolean };
@@ -32,7 +41,12 @@ export const routes: Route[] = [
   { role: 'builder', name: 'bench', path: () => '/bench', ready: 'bench-screen' },
   { role: 'builder', name: 'parts', path: () => '/travelers', ready: 'travelers-screen' },
   { role: 'builder', name: 'a traveler', path: (i) => `/travelers/${i.travelerId}`, ready: 'traveler-screen' },
-  { role: 'builder', name: 'the flag screen', path: (i) => `/travelers/${i.travelerId}/flag?holes=U-10`, ready: 'flag-screen' },
+  {
+    role: 'builder',
+    name: 'the flag screen',
+    path: (i) => `/travelers/${i.travelerId}/flag?holes=U-10`,
+    ready: 'flag-screen',
+  },
   { role: 'builder', name: 'a part’s label', path: (i) => `/travelers/${i.travelerId}/label`, ready: 'labels-screen' },
   { role: 'builder', name: 'findings', path: () => '/findings', ready: 'my-findings-screen' },
   { role: 'builder', name: 'a finding', path: (i) => `/findings/${i.findingId}`, ready: 'finding-screen' },
@@ -41,7 +55,12 @@ export const routes: Route[] = [
   { role: 'builder', name: 'build log', path: (i) => `/builds/${i.buildId}/log`, ready: 'build-log-screen' },
   { role: 'builder', name: 'account', path: () => '/account', ready: 'account-screen' },
   { role: 'inspector', name: 'review queue', path: () => '/findings', ready: 'review-screen' },
-  { role: 'inspector', name: 'a finding with its decision form', path: (i) => `/findings/${i.findingId}`, ready: 'finding-decision' },
+  {
+    role: 'inspector',
+    name: 'a finding with its decision form',
+    path: (i) => `/findings/${i.findingId}`,
+    ready: 'finding-decision',
+  },
   { role: 'inspector', name: 'builds', path: () => '/builds', ready: 'builds-screen' },
   { role: 'inspector', name: 'a build', path: (i) => `/builds/${i.buildId}`, ready: 'build-screen' },
   { role: 'inspector', name: 'build log', path: (i) => `/builds/${i.buildId}/log`, ready: 'build-log-screen' },
@@ -52,18 +71,38 @@ export const routes: Route[] = [
   { role: 'supplier', name: 'a kit', path: (i) => `/catalogue/kits/${i.kitId}`, ready: 'kit-screen' },
   { role: 'supplier', name: 'a design', path: (i) => `/catalogue/designs/${i.designId}`, ready: 'design-screen' },
   { role: 'supplier', name: 'a new kit', path: () => '/catalogue/new-kit', ready: 'kit-form-screen' },
-  { role: 'supplier', name: 'a new design', path: (i) => `/catalogue/designs/new?kitModelId=${i.kitId}`, ready: 'design-create-screen' },
+  {
+    role: 'supplier',
+    name: 'a new design',
+    path: (i) => `/catalogue/designs/new?kitModelId=${i.kitId}`,
+    ready: 'design-create-screen',
+  },
   { role: 'supplier', name: 'load studies', path: () => '/studies', ready: 'studies-screen' },
   { role: 'supplier', name: 'a study', path: (i) => `/studies/${i.studyId}`, ready: 'study-screen' },
   { role: 'supplier', name: 'a wing study', path: (i) => `/studies/${i.wingStudyId}`, ready: 'wing-study-screen' },
-  { role: 'supplier', name: 'a new study', path: (i) => `/studies/new?kitModelId=${i.kitId}`, ready: 'new-study-screen' },
-  { role: 'supplier', name: 'a new wing study', path: (i) => `/studies/new-wing?kitModelId=${i.kitId}`, ready: 'new-wing-study-screen' },
+  {
+    role: 'supplier',
+    name: 'a new study',
+    path: (i) => `/studies/new?kitModelId=${i.kitId}`,
+    ready: 'new-study-screen',
+  },
+  {
+    role: 'supplier',
+    name: 'a new wing study',
+    path: (i) => `/studies/new-wing?kitModelId=${i.kitId}`,
+    ready: 'new-wing-study-screen',
+  },
   { role: 'supplier', name: 'coupons', path: () => '/coupons', ready: 'coupons-screen' },
   { role: 'supplier', name: 'builds', path: () => '/builds', ready: 'builds-screen' },
   { role: 'supplier', name: 'a build', path: (i) => `/builds/${i.buildId}`, ready: 'build-screen' },
   { role: 'supplier', name: 'shipping a build', path: () => '/builds/new', ready: 'ship-build-screen' },
   { role: 'supplier', name: 'labels', path: (i) => `/builds/${i.buildId}/labels`, ready: 'labels-screen' },
-  { role: 'supplier', name: 'a build’s labels from the parts', path: (i) => `/travelers/labels?build=${i.buildId}`, ready: 'labels-screen' },
+  {
+    role: 'supplier',
+    name: 'a build’s labels from the parts',
+    path: (i) => `/travelers/labels?build=${i.buildId}`,
+    ready: 'labels-screen',
+  },
   { role: 'supplier', name: 'build log', path: (i) => `/builds/${i.buildId}/log`, ready: 'build-log-screen' },
   { role: 'supplier', name: 'a traveler', path: (i) => `/travelers/${i.travelerId}`, ready: 'traveler-screen' },
   { role: 'supplier', name: 'approvals', path: () => '/findings', ready: 'supplier-findings-screen' },
@@ -93,49 +132,113 @@ export const visible = (page: Page, id: string) => page.locator(`[data-testid="$
  */
 export async function gatherIds(t: TestApp): Promise<Ids> {
   const tokens = await t.tokens();
-  const parts = (await request(t.app).get('/api/travelers').set(auth(tokens.builder))).body.items as { id: string; partNumber: string; buildId: string }[];
+  const parts = (await request(t.app).get('/api/travelers').set(auth(tokens.builder))).body.items as {
+    id: string;
+    partNumber: string;
+    buildId: string;
+  }[];
   const inner = parts.find((p) => p.partNumber === 'W-104')!;
   const detail = (await request(t.app).get(`/api/travelers/${inner.id}`).set(auth(tokens.builder))).body;
-  const kits = (await request(t.app).get('/api/kits').set(auth(tokens.supplier))).body.items as { id: string; code: string }[];
+  const kits = (await request(t.app).get('/api/kits').set(auth(tokens.supplier))).body.items as {
+    id: string;
+    code: string;
+  }[];
   const kit = kits.find((k) => k.code === 'NK-2')!;
-  const designs = (await request(t.app).get(`/api/designs?kitModelId=${kit.id}`).set(auth(tokens.supplier))).body.items as { id: string; partNumber: string }[];
-  const studies = (await request(t.app).get('/api/studies').set(auth(tokens.supplier))).body.items as { id: string; kind: string }[];
+  const designs = (await request(t.app).get(`/api/designs?kitModelId=${kit.id}`).set(auth(tokens.supplier))).body
+    .items as { id: string; partNumber: string }[];
+  const studies = (await request(t.app).get('/api/studies').set(auth(tokens.supplier))).body.items as {
+    id: string;
+    kind: string;
+  }[];
   const walk = await walkKit(t, tokens.supplier, tokens.builder);
   return {
-    buildId: inner.buildId, travelerId: inner.id, findingId: detail.findings[0].id, kitId: kit.id,
+    buildId: inner.buildId,
+    travelerId: inner.id,
+    findingId: detail.findings[0].id,
+    kitId: kit.id,
     designId: designs.find((d) => d.partNumber === 'W-104')!.id,
     // A rib study and a wing study draw on screens of their own.
-    studyId: studies.find((s) => s.kind !== 'wing')!.id, wingStudyId: studies.find((s) => s.kind === 'wing')!.id,
+    studyId: studies.find((s) => s.kind !== 'wing')!.id,
+    wingStudyId: studies.find((s) => s.kind === 'wing')!.id,
     ...walk,
-    inviteToken: await inviteLink(t, tokens.admin), resetToken: await resetLink(t),
+    inviteToken: await inviteLink(t, tokens.admin),
+    resetToken: await resetLink(t),
   };
 }
 
 /** A small kit of our own (one rib, two short lines), shipped, with one hole flagged: for the keyboard walk. */
 async function walkKit(t: TestApp, supplier: string, builder: string) {
-  const kitId = (await request(t.app).post('/api/kits').set(auth(supplier)).send({
-    code: 'AX-1', name: 'Keyboard walk kit', weightLb: 1200, wingAreaSqFt: 110, meanChordIn: 50, stallSpeedKeas: 45, category: 'normal', airfoil: 'NACA 2412',
-  })).body.id;
-  const design = await request(t.app).post('/api/designs').set(auth(supplier)).send({
-    design: { kitModelId: kitId, partNumber: 'AX-R1', name: 'Walk rib', kind: 'rib' },
-    revision: {
-      material: '6061-T6', gaugeIn: 0.032, rivetSpec: 'MS20470AD4', drillSize: '#30', drillDiameterIn: 0.1285, edgeDistanceIn: 0.25, chordIn: 10,
-      lines: [
-        { code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 4, zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }] },
-        { code: 'L', name: 'Lower flange', surface: 'lower', startIn: 1, lengthIn: 4, zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }] },
-      ],
-      steps: ['Rivet both flanges', 'Deburr and prime'],
-    },
-  });
+  const kitId = (
+    await request(t.app).post('/api/kits').set(auth(supplier)).send({
+      code: 'AX-1',
+      name: 'Keyboard walk kit',
+      weightLb: 1200,
+      wingAreaSqFt: 110,
+      meanChordIn: 50,
+      stallSpeedKeas: 45,
+      category: 'normal',
+      airfoil: 'NACA 2412',
+    })
+  ).body.id;
+  const design = await request(t.app)
+    .post('/api/designs')
+    .set(auth(supplier))
+    .send({
+      design: { kitModelId: kitId, partNumber: 'AX-R1', name: 'Walk rib', kind: 'rib' },
+      revision: {
+        material: '6061-T6',
+        gaugeIn: 0.032,
+        rivetSpec: 'MS20470AD4',
+        drillSize: '#30',
+        drillDiameterIn: 0.1285,
+        edgeDistanceIn: 0.25,
+        chordIn: 10,
+        lines: [
+          {
+            code: 'U',
+            name: 'Upper flange',
+            surface: 'upper',
+            startIn: 1,
+            lengthIn: 4,
+            zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }],
+          },
+          {
+            code: 'L',
+            name: 'Lower flange',
+            surface: 'lower',
+            startIn: 1,
+            lengthIn: 4,
+            zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }],
+          },
+        ],
+        steps: ['Rivet both flanges', 'Deburr and prime'],
+      },
+    });
   await request(t.app).post(`/api/revisions/${design.body.revisions[0].id}/publish`).set(auth(supplier)).send({});
   const build = await request(t.app).post('/api/builds').set(auth(supplier)).send({
-    kitModelId: kitId, kitSerial: 'AX-0001', builderEmail: DEMO_USERS.builder.email, inspectorEmail: DEMO_USERS.inspector.email,
+    kitModelId: kitId,
+    kitSerial: 'AX-0001',
+    builderEmail: DEMO_USERS.builder.email,
+    inspectorEmail: DEMO_USERS.inspector.email,
   });
-  const walkTravelerId = (await request(t.app).get(`/api/builds/${build.body.id}`).set(auth(supplier))).body.travelers[0].id as string;
-  const raised = await request(t.app).post('/api/findings').set(auth(builder))
-    .field('travelerId', walkTravelerId).field('holeIds', '["L-02"]').field('kind', 'hole_elongated').field('note', 'oval after deburring')
-    .attach('photos', await sharp({ create: { width: 320, height: 240, channels: 3, background: '#8a9096' } }).jpeg().toBuffer(), 'l02.jpg');
-  if (raised.status !== 201) throw new Error(`raising the walk finding failed: ${raised.status} ${JSON.stringify(raised.body)}`);
+  const walkTravelerId = (await request(t.app).get(`/api/builds/${build.body.id}`).set(auth(supplier))).body
+    .travelers[0].id as string;
+  const raised = await request(t.app)
+    .post('/api/findings')
+    .set(auth(builder))
+    .field('travelerId', walkTravelerId)
+    .field('holeIds', '["L-02"]')
+    .field('kind', 'hole_elongated')
+    .field('note', 'oval after deburring')
+    .attach(
+      'photos',
+      await sharp({ create: { width: 320, height: 240, channels: 3, background: '#8a9096' } })
+        .jpeg()
+        .toBuffer(),
+      'l02.jpg',
+    );
+  if (raised.status !== 201)
+    throw new Error(`raising the walk finding failed: ${raised.status} ${JSON.stringify(raised.body)}`);
   return { walkTravelerId, walkFindingId: raised.body.id as string };
 }
 
@@ -150,7 +253,10 @@ async function linkToken(t: TestApp, to: string, kind: 'invite' | 'reset'): Prom
 /** The admin invites a builder, who has not yet joined: the invitation page as they open it. */
 async function inviteLink(t: TestApp, admin: string): Promise<string> {
   const email = 'audit.invitee@shop.example';
-  const res = await request(t.app).post('/api/people/invitations').set(auth(admin)).send({ email, name: 'Audit Invitee', role: 'builder' });
+  const res = await request(t.app)
+    .post('/api/people/invitations')
+    .set(auth(admin))
+    .send({ email, name: 'Audit Invitee', role: 'builder' });
   if (res.status !== 201) throw new Error(`inviting ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
   return linkToken(t, email, 'invite');
 }
@@ -163,9 +269,19 @@ async function resetLink(t: TestApp): Promise<string> {
 }
 
 /** A page at `w`'s size, signed in as `role` through the sign-in form (signed out for 'none'). */
-export async function signedInContext(browser: Browser, base: string, role: Role, w: Width): Promise<{ context: BrowserContext; page: Page }> {
+export async function signedInContext(
+  browser: Browser,
+  base: string,
+  role: Role,
+  w: Width,
+): Promise<{ context: BrowserContext; page: Page }> {
   const context = await browser.newContext({
-    baseURL: base, viewport: w.viewport, isMobile: w.isMobile, hasTouch: w.isMobile, deviceScaleFactor: 1, bypassCSP: true,
+    baseURL: base,
+    viewport: w.viewport,
+    isMobile: w.isMobile,
+    hasTouch: w.isMobile,
+    deviceScaleFactor: 1,
+    bypassCSP: true,
     // No service worker: every route is loaded fresh from the server under test.
     serviceWorkers: 'block',
   });
@@ -186,10 +302,20 @@ export async function signedInContext(browser: Browser, base: string, role: Role
  * The whole screen as a picture (git-ignored, under tests/e2e/artifacts): the app scrolls inside its
  * own scroll view, so the page is made as tall as the longest scrolling content for the shot.
  */
-export async function keepScreenshot(page: Page, dir: string, name: string, viewport: { width: number; height: number }) {
-  const tall = await page.evaluate(() => Math.max(...Array.from(document.querySelectorAll('*'))
-    .filter((e) => e.scrollHeight > e.clientHeight + 1 && /(auto|scroll)/.test(getComputedStyle(e).overflowY))
-    .map((e) => e.scrollHeight - e.clientHeight), 0));
+export async function keepScreenshot(
+  page: Page,
+  dir: string,
+  name: string,
+  viewport: { width: number; height: number },
+) {
+  const tall = await page.evaluate(() =>
+    Math.max(
+      ...Array.from(document.querySelectorAll('*'))
+        .filter((e) => e.scrollHeight > e.clientHeight + 1 && /(auto|scroll)/.test(getComputedStyle(e).overflowY))
+        .map((e) => e.scrollHeight - e.clientHeight),
+      0,
+    ),
+  );
   await page.setViewportSize({ width: viewport.width, height: Math.min(12000, viewport.height + tall) });
   await page.waitForTimeout(200);
   await page.screenshot({ path: path.join(dir, `${name}.png`) });
@@ -212,7 +338,9 @@ export function routeWalker(w: Width, env: () => { browser: Browser; base: strin
       const { page } = pages.get(r.role)!;
       await page.goto(r.path(ids));
       await visible(page, r.ready).waitFor({ timeout: 30000 });
-      await page.waitForFunction(() => !document.querySelector('[data-testid="loading"]'), undefined, { timeout: 30000 }).catch(() => undefined);
+      await page
+        .waitForFunction(() => !document.querySelector('[data-testid="loading"]'), undefined, { timeout: 30000 })
+        .catch(() => undefined);
       await page.evaluate(() => document.fonts.ready);
       await page.waitForTimeout(300);
       return page;

@@ -8,19 +8,37 @@ const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
  */
 export async function launchBrowser(opts: { video?: string; trustSpki?: string } = {}): Promise<Browser> {
   const args = [
-    '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
-    '--disable-component-update', '--disable-sync', '--disable-dev-shm-usage',
+    '--no-sandbox',
+    '--disable-gpu',
+    '--disable-quic',
+    '--no-first-run',
+    '--disable-background-networking',
+    '--disable-component-update',
+    '--disable-sync',
+    '--disable-dev-shm-usage',
     // The test app's public address is a reserved .test name: it resolves to this machine only.
     '--host-resolver-rules=MAP pitchcard.test 127.0.0.1',
   ];
   // Trust one certificate (by its public key's hash) the way a phone that installed it would; nothing else.
   if (opts.trustSpki) args.push(`--ignore-certificate-errors-spki-list=${opts.trustSpki}`);
-  if (opts.video) args.push('--use-fake-ui-for-media-stream', '--use-fake-device-for-media-stream', `--use-file-for-fake-video-capture=${opts.video}`);
+  if (opts.video)
+    args.push(
+      '--use-fake-ui-for-media-stream',
+      '--use-fake-device-for-media-stream',
+      `--use-file-for-fake-video-capture=${opts.video}`,
+    );
   return chromium.launch({ executablePath: CHROMIUM, args, headless: true });
 }
 
 /** A phone-sized page, as the bench sees it. */
 export async function phonePage(browser: Browser, baseURL: string) {
-  const context = await browser.newContext({ baseURL, viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true, permissions: ['camera'] });
+  const context = await browser.newContext({
+    baseURL,
+    viewport: { width: 390, height: 844 },
+    deviceScaleFactor: 2,
+    isMobile: true,
+    hasTouch: true,
+    permissions: ['camera'],
+  });
   return context.newPage();
 }

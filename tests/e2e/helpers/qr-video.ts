@@ -14,7 +14,12 @@ export async function writeQrVideo(file: string, text: string, size = 480, frame
   for (let row = 0; row < n; row++) {
     for (let col = 0; col < n; col++) {
       if (!modules.get(row, col)) continue;
-      for (let dy = 0; dy < cell; dy++) y.fill(16, (offset + row * cell + dy) * size + offset + col * cell, (offset + row * cell + dy) * size + offset + (col + 1) * cell);
+      for (let dy = 0; dy < cell; dy++)
+        y.fill(
+          16,
+          (offset + row * cell + dy) * size + offset + col * cell,
+          (offset + row * cell + dy) * size + offset + (col + 1) * cell,
+        );
     }
   }
   const chroma = Buffer.alloc((size / 2) * (size / 2) * 2, 128);

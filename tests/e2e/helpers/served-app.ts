@@ -15,18 +15,29 @@ const webDist = path.join(__dirname, '..', '..', '..', 'dist');
  * serves as network mode does — a certificate made for the public name (mapped to 127.0.0.1 in the
  * browser) — while listening on loopback only, so no traffic leaves this machine.
  */
-export async function serveTestApp(opts: { https?: boolean } = {}): Promise<{ t: TestApp; base: string; tls: TlsMaterial | null; close: () => Promise<void> }> {
-  if (!existsSync(path.join(webDist, 'index.html'))) throw new Error('dist/ has no web export: run the tests with `npm test`, which exports the app first');
+export async function serveTestApp(
+  opts: { https?: boolean } = {},
+): Promise<{ t: TestApp; base: string; tls: TlsMaterial | null; close: () => Promise<void> }> {
+  if (!existsSync(path.join(webDist, 'index.html')))
+    throw new Error('dist/ has no web export: run the tests with `npm test`, which exports the app first');
   const tls = opts.https
-    ? await loadOrMakeCertificate({ dir: path.join(os.tmpdir(), `pc-tls-${process.pid}`), names: { dns: ['localhost', 'pitchcard.test'], ips: ['127.0.0.1'] } })
+    ? await loadOrMakeCertificate({
+        dir: path.join(os.tmpdir(), `pc-tls-${process.pid}`),
+        names: { dns: ['localhost', 'pitchcard.test'], ips: ['127.0.0.1'] },
+      })
     : null;
   const server: Server = tls ? createHttpsServer({ key: tls.key, cert: tls.cert }) : createServer();
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
   const { port } = server.address() as AddressInfo;
-  const t = await startTestApp({ port, webDist, ...(tls ? { env: { PUBLIC_URL: `https://pitchcard.test:${port}` } } : {}) });
+  const t = await startTestApp({
+    port,
+    webDist,
+    ...(tls ? { env: { PUBLIC_URL: `https://pitchcard.test:${port}` } } : {}),
+  });
   server.on('request', t.app);
   return {
-    t, tls,
+    t,
+    tls,
     base: tls ? `https://pitchcard.test:${port}` : `http://localhost:${port}`,
     async close() {
       await new Promise((r) => server.close(r));
