@@ -16,12 +16,26 @@ export function moveFocusTo(node: unknown, opts: { scroll?: boolean } = {}): voi
   if (opts.scroll) el.scrollIntoView?.({ block: 'nearest' });
 }
 
+/** How many times (100 ms apart) a heading tries to take focus while nothing else holds it. */
+const FOCUS_TRIES = 20;
+
 /** Focus `ref` once it is on screen, when `when` holds (e.g. a screen's heading on arrival). */
 export function useFocusOnMount(ref: RefObject<unknown>, when = true): void {
   useEffect(() => {
     if (!when) return;
-    // After the frame in which it appears: a screen pushed onto a stack is laid out first.
-    const id = setTimeout(() => moveFocusTo(ref.current), 0);
+    // After the frame in which it appears: a screen pushed onto a stack is laid out first. A screen
+    // that opens while the one before it is still leaving (sign-in → the home screen, on a slow
+    // device) may not take focus yet: tried again for a moment, while focus is still nowhere.
+    let tries = 0;
+    let id: ReturnType<typeof setTimeout>;
+    const attempt = () => {
+      const node = ref.current as HTMLElement | null;
+      moveFocusTo(node);
+      if (Platform.OS !== 'web' || typeof document === 'undefined' || !node) return;
+      const lost = document.activeElement == null || document.activeElement === document.body;
+      if (lost && document.activeElement !== node && ++tries < FOCUS_TRIES) id = setTimeout(attempt, 100);
+    };
+    id = setTimeout(attempt, 0);
     return () => clearTimeout(id);
     // Once per mount: focus is given on arrival, never taken back on a later render.
     // eslint-disable-next-line react-hooks/exhaustive-deps
