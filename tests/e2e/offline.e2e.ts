@@ -1,6 +1,5 @@
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import sharp from 'sharp';
 import request from 'supertest';
@@ -8,6 +7,7 @@ import type { SessionUser, TravelerDetail, TravelerSummary } from '@/db/contract
 import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 import { launchBrowser, phonePage } from './helpers/browser';
+import { webDist } from './helpers/served-app';
 
 /**
  * The installable app at the bench with no signal, in Debian's headless Chromium against the real server:
@@ -21,8 +21,6 @@ import { launchBrowser, phonePage } from './helpers/browser';
  * 2311), and with the server dropping them too the test cannot pass on a signal it should not have.
  */
 jest.setTimeout(240_000);
-
-const webDist = path.join(__dirname, '..', '..', 'dist');
 
 let t: TestApp;
 let server: Server;

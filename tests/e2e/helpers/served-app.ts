@@ -7,7 +7,10 @@ import path from 'node:path';
 import { loadOrMakeCertificate, type TlsMaterial } from '@/server/network/tls';
 import { startTestApp, type TestApp } from '../../helpers/test-app';
 
-const webDist = path.join(__dirname, '..', '..', '..', 'dist');
+/** The web export the tests serve: dist/ (as `npm test` makes it), or another export named by E2E_WEB_DIST. */
+export const webDist = process.env.E2E_WEB_DIST
+  ? path.resolve(process.env.E2E_WEB_DIST)
+  : path.join(__dirname, '..', '..', '..', 'dist');
 
 /**
  * The test app serving the exported web app on a free loopback port, as a browser sees the product.
