@@ -28,12 +28,16 @@ export function useFocusOnMount(ref: RefObject<unknown>, when = true): void {
     // device) may not take focus yet: tried again for a moment, while focus is still nowhere.
     let tries = 0;
     let id: ReturnType<typeof setTimeout>;
+    // Focus still nowhere: the node could not take it yet. Focus anywhere else (the node, or a control
+    // the person reached meanwhile) is left where it is.
+    const nowhere = () =>
+      Platform.OS === 'web' &&
+      typeof document !== 'undefined' &&
+      (document.activeElement == null || document.activeElement === document.body);
     const attempt = () => {
-      const node = ref.current as HTMLElement | null;
-      moveFocusTo(node);
-      if (Platform.OS !== 'web' || typeof document === 'undefined' || !node) return;
-      const lost = document.activeElement == null || document.activeElement === document.body;
-      if (lost && document.activeElement !== node && ++tries < FOCUS_TRIES) id = setTimeout(attempt, 100);
+      if (tries > 0 && !nowhere()) return;
+      moveFocusTo(ref.current);
+      if (ref.current && nowhere() && ++tries < FOCUS_TRIES) id = setTimeout(attempt, 100);
     };
     id = setTimeout(attempt, 0);
     return () => clearTimeout(id);

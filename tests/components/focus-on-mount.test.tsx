@@ -1,0 +1,59 @@
+import { act, useRef } from 'react';
+import { useFocusOnMount } from '@/components/ui/focus';
+import { renderWeb } from './render-web';
+
+/**
+ * A heading focused on arrival: a screen that opens while the one before it is still leaving cannot
+ * take focus at once (the browser ignores focus() on a node not yet shown), so it tries again while
+ * focus is nowhere, and leaves focus alone once a person has put it somewhere.
+ */
+function Heading({ refuse }: { refuse: number }) {
+  const ref = useRef<HTMLDivElement | null>(null);
+  useFocusOnMount(ref);
+  return (
+    <div
+      data-testid="heading"
+      ref={(el) => {
+        ref.current = el;
+        if (!el || el.dataset.wrapped) return;
+        // As a browser does with a node that is not laid out yet: the first `refuse` calls do nothing.
+        el.dataset.wrapped = 'yes';
+        const focus = el.focus.bind(el);
+        let calls = 0;
+        el.focus = (opts?: FocusOptions) => {
+          calls += 1;
+          if (calls > refuse) focus(opts);
+        };
+      }}
+    />
+  );
+}
+
+beforeEach(() => jest.useFakeTimers());
+afterEach(() => jest.useRealTimers());
+
+const wait = (ms: number) => act(() => void jest.advanceTimersByTime(ms));
+
+describe('focus on arrival', () => {
+  it('tries again until the heading can take focus', () => {
+    (document.activeElement as HTMLElement | null)?.blur?.();
+    const r = renderWeb(<Heading refuse={3} />);
+    wait(0);
+    expect(document.activeElement).not.toBe(r.byTestId('heading'));
+    wait(350);
+    expect(document.activeElement).toBe(r.byTestId('heading'));
+    r.unmount();
+  });
+
+  it('does not take focus back from a control the person reached first', () => {
+    const input = document.createElement('input');
+    document.body.appendChild(input);
+    const r = renderWeb(<Heading refuse={1} />);
+    wait(0);
+    input.focus();
+    wait(2500);
+    expect(document.activeElement).toBe(input);
+    r.unmount();
+    input.remove();
+  });
+});
