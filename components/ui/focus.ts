@@ -16,31 +16,42 @@ export function moveFocusTo(node: unknown, opts: { scroll?: boolean } = {}): voi
   if (opts.scroll) el.scrollIntoView?.({ block: 'nearest' });
 }
 
-/** How many times (100 ms apart) a heading tries to take focus while nothing else holds it. */
-const FOCUS_TRIES = 20;
+/** How long after it opens a screen's heading still takes focus that has fallen to nowhere. */
+const ARRIVAL_MS = 10_000;
 
-/** Focus `ref` once it is on screen, when `when` holds (e.g. a screen's heading on arrival). */
+/** Focus is nowhere: on the page itself, as after the control that held it was removed. */
+const focusNowhere = () =>
+  typeof document !== 'undefined' && (document.activeElement == null || document.activeElement === document.body);
+
+/**
+ * Focus `ref` once it is on screen, when `when` holds (e.g. a screen's heading on arrival).
+ *
+ * A browser ignores focus() on a node that is not shown yet, and drops focus to the page when the node
+ * holding it is hidden: a screen that opens while the one before it is still leaving (sign-in → the
+ * home screen, on a slow device) can miss its moment either way. So for a short while after it opens,
+ * whenever the node is laid out again (a ResizeObserver sees it get a size) or a moment passes, and
+ * focus is nowhere, the node takes it. Focus anywhere else (a control the person reached) is left alone.
+ */
 export function useFocusOnMount(ref: RefObject<unknown>, when = true): void {
   useEffect(() => {
     if (!when) return;
-    // After the frame in which it appears: a screen pushed onto a stack is laid out first. A screen
-    // that opens while the one before it is still leaving (sign-in → the home screen, on a slow
-    // device) may not take focus yet: tried again for a moment, while focus is still nowhere.
-    let tries = 0;
-    let id: ReturnType<typeof setTimeout>;
-    // Focus still nowhere: the node could not take it yet. Focus anywhere else (the node, or a control
-    // the person reached meanwhile) is left where it is.
-    const nowhere = () =>
-      Platform.OS === 'web' &&
-      typeof document !== 'undefined' &&
-      (document.activeElement == null || document.activeElement === document.body);
-    const attempt = () => {
-      if (tries > 0 && !nowhere()) return;
-      moveFocusTo(ref.current);
-      if (ref.current && nowhere() && ++tries < FOCUS_TRIES) id = setTimeout(attempt, 100);
+    const node = ref.current as HTMLElement | null;
+    if (Platform.OS !== 'web' || !node) return;
+    const until = Date.now() + ARRIVAL_MS;
+    const take = () => {
+      if (Date.now() <= until && focusNowhere()) moveFocusTo(node);
     };
-    id = setTimeout(attempt, 0);
-    return () => clearTimeout(id);
+    // The first try after the frame in which it appears (a screen pushed onto a stack is laid out first);
+    // then a few more, for a browser without ResizeObserver or a node that cannot take focus yet.
+    const timers = [0, 250, 1000, 3000].map((ms) => setTimeout(ms === 0 ? () => moveFocusTo(node) : take, ms));
+    const seen = typeof ResizeObserver === 'undefined' ? null : new ResizeObserver(take);
+    seen?.observe(node);
+    const stop = setTimeout(() => seen?.disconnect(), ARRIVAL_MS);
+    return () => {
+      timers.forEach(clearTimeout);
+      clearTimeout(stop);
+      seen?.disconnect();
+    };
     // Once per mount: focus is given on arrival, never taken back on a later render.
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, []);

@@ -40,9 +40,39 @@ describe('focus on arrival', () => {
     const r = renderWeb(<Heading refuse={3} />);
     wait(0);
     expect(document.activeElement).not.toBe(r.byTestId('heading'));
-    wait(350);
+    wait(3100);
     expect(document.activeElement).toBe(r.byTestId('heading'));
     r.unmount();
+  });
+
+  it('takes focus again when its screen is shown again and focus has fallen to the page', () => {
+    // jsdom lays nothing out: a stand-in observer, called as a browser calls it when the node gets a size.
+    const observers: (() => void)[] = [];
+    const real = globalThis.ResizeObserver;
+    globalThis.ResizeObserver = class {
+      constructor(private readonly call: () => void) {}
+      observe() {
+        observers.push(this.call);
+      }
+      unobserve() {}
+      disconnect() {
+        observers.splice(observers.indexOf(this.call), 1);
+      }
+    } as unknown as typeof ResizeObserver;
+    try {
+      const r = renderWeb(<Heading refuse={0} />);
+      wait(0);
+      expect(document.activeElement).toBe(r.byTestId('heading'));
+      // Hidden while the screen before it leaves: the browser drops focus to the page.
+      r.byTestId('heading').blur();
+      expect(document.activeElement).toBe(document.body);
+      act(() => observers.forEach((call) => call()));
+      expect(document.activeElement).toBe(r.byTestId('heading'));
+      r.unmount();
+      expect(observers).toHaveLength(0);
+    } finally {
+      globalThis.ResizeObserver = real;
+    }
   });
 
   it('does not take focus back from a control the person reached first', () => {
