@@ -9,7 +9,7 @@ import { plainParse } from '@/components/forms/plain-errors';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { signInMessage } from '@/components/navigation/pending-link';
 import { Button } from '@/components/ui/button';
-import { focusNextHeading, takeHeadingFocus } from '@/components/ui/focus';
+import { cancelHeadingFocus, focusNextHeading } from '@/components/ui/focus';
 import { Notice } from '@/components/ui/states';
 import { useAuthSignInMutation } from '@/hooks/queries/auth';
 import { useSession } from '@/hooks/use-session';
@@ -36,7 +36,7 @@ export function SignInScreen() {
       // The root guard swaps the sign-in screen for the app once the session is stored; the app's first
       // screen then opens the pending page, if one waits.
     } catch (e) {
-      takeHeadingFocus();
+      cancelHeadingFocus();
       setFormError(applyServerErrors(setError, e));
     }
   });

@@ -1,4 +1,4 @@
-import { useEffect, type RefObject } from 'react';
+import { useEffect, useState, type RefObject } from 'react';
 import { Platform } from 'react-native';
 
 /**
@@ -32,7 +32,8 @@ const focusNowhere = () =>
  * whenever the node is laid out again (a ResizeObserver sees it get a size) or a moment passes, and
  * focus is nowhere, the node takes it. Focus anywhere else (a control the person reached) is left alone.
  */
-export function useFocusOnMount(ref: RefObject<unknown>, when = true): void {
+export function useFocusOnMount(ref: RefObject<unknown>, when = true, opts: { onlyIfLost?: boolean } = {}): void {
+  const onlyIfLost = !!opts.onlyIfLost;
   useEffect(() => {
     if (!when) return;
     const node = ref.current as HTMLElement | null;
@@ -41,9 +42,11 @@ export function useFocusOnMount(ref: RefObject<unknown>, when = true): void {
     const take = () => {
       if (Date.now() <= until && focusNowhere()) moveFocusTo(node);
     };
-    // The first try after the frame in which it appears (a screen pushed onto a stack is laid out first);
-    // then a few more, for a browser without ResizeObserver or a node that cannot take focus yet.
-    const timers = [0, 250, 1000, 3000].map((ms) => setTimeout(ms === 0 ? () => moveFocusTo(node) : take, ms));
+    // The first try after the frame in which it appears (a screen pushed onto a stack is laid out first),
+    // taking focus from the control that opened it unless `onlyIfLost`; then a few more, for a browser
+    // without ResizeObserver or a node that cannot take focus yet.
+    const first = onlyIfLost ? take : () => moveFocusTo(node);
+    const timers = [0, 250, 1000, 3000].map((ms) => setTimeout(ms === 0 ? first : take, ms));
     const seen = typeof ResizeObserver === 'undefined' ? null : new ResizeObserver(take);
     seen?.observe(node);
     const stop = setTimeout(() => seen?.disconnect(), ARRIVAL_MS);
@@ -57,21 +60,33 @@ export function useFocusOnMount(ref: RefObject<unknown>, when = true): void {
   }, []);
 }
 
-let headingWanted = false;
+let headingWantedUntil = 0;
 
 /**
- * Asks the next screen that shows to focus its heading (sign-in → the home screen's title). The
- * request is used up by the first heading that takes it, so a later screen is left alone.
+ * Asks the screens that open in the next moments to focus their heading if focus has fallen to the page
+ * (sign-in → the home screen's title). Not used up by the first heading that shows: on a slow device
+ * the router can show a screen for a moment (a route still loading) and remove it, taking focus with
+ * it; the heading of the screen that stays then takes it. A heading never takes focus from a control.
  */
 export function focusNextHeading(): void {
-  headingWanted = true;
+  headingWantedUntil = Date.now() + ARRIVAL_MS;
 }
 
-/** For a screen's heading: true once, after focusNextHeading(). */
-export function takeHeadingFocus(): boolean {
-  const wanted = headingWanted;
-  headingWanted = false;
-  return wanted;
+/** Withdraws focusNextHeading() (the sign-in failed: focus stays on the form). */
+export function cancelHeadingFocus(): void {
+  headingWantedUntil = 0;
+}
+
+/**
+ * For a screen's heading `ref`: focus it on arrival when the screen is opened for one task (`always`,
+ * taking focus from the control that opened it), or when focusNextHeading() asked and focus is nowhere.
+ * Decided once, when the screen opens.
+ */
+export function useHeadingFocus(ref: RefObject<unknown>, always = false): void {
+  const [mode] = useState<'always' | 'if-lost' | 'no'>(() =>
+    always ? 'always' : Date.now() <= headingWantedUntil ? 'if-lost' : 'no',
+  );
+  useFocusOnMount(ref, mode !== 'no', { onlyIfLost: mode === 'if-lost' });
 }
 
 const FOCUSABLE = 'a[href], button, input, select, textarea, [tabindex]:not([tabindex="-1"])';

@@ -6,7 +6,7 @@ import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import { colors, hairline, space, touch } from '@/constants/theme';
 import { useSession } from '@/hooks/use-session';
 import { Button } from './button';
-import { keepScrollReachable, takeHeadingFocus, useFocusOnMount } from './focus';
+import { keepScrollReachable, useHeadingFocus } from './focus';
 import { Txt } from './text';
 import { UnitsSwitch } from './units-switch';
 
@@ -41,8 +41,7 @@ export function ScreenHeader({ title, subtitle, backTo, account, right, accountL
   const titleRef = useRef<React.ComponentRef<typeof Txt>>(null);
   // In a short window the header scrolls away with the page, so it can give its words all the lines they need.
   const lines = useWindowDimensions().height < SHORT_WINDOW ? undefined : 2;
-  const [focusOnOpen] = useState(() => !!focusTitle || takeHeadingFocus());
-  useFocusOnMount(titleRef, focusOnOpen);
+  useHeadingFocus(titleRef, !!focusTitle);
   return (
     <View style={[styles.header, { paddingTop: insets.top + space.sm }]}>
       <View style={styles.headerRow}>

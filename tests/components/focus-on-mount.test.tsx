@@ -1,5 +1,5 @@
 import { act, useRef } from 'react';
-import { useFocusOnMount } from '@/components/ui/focus';
+import { cancelHeadingFocus, focusNextHeading, useFocusOnMount, useHeadingFocus } from '@/components/ui/focus';
 import { renderWeb } from './render-web';
 
 /**
@@ -85,5 +85,56 @@ describe('focus on arrival', () => {
     expect(document.activeElement).toBe(input);
     r.unmount();
     input.remove();
+  });
+});
+
+/** A screen's heading as ScreenHeader has it: focused on arrival when sign-in asked for it. */
+function ScreenTitle({ id }: { id: string }) {
+  const ref = useRef<HTMLDivElement | null>(null);
+  useHeadingFocus(ref);
+  return <div data-testid={id} ref={ref} />;
+}
+
+describe('the heading after signing in', () => {
+  afterEach(() => cancelHeadingFocus());
+
+  it('is taken by the screen that stays, after one shown for a moment took focus and was removed', () => {
+    (document.activeElement as HTMLElement | null)?.blur?.();
+    focusNextHeading();
+    const passing = renderWeb(<ScreenTitle id="passing" />);
+    wait(0);
+    expect(document.activeElement).toBe(passing.byTestId('passing'));
+    passing.unmount();
+    expect(document.activeElement).toBe(document.body);
+    const home = renderWeb(<ScreenTitle id="home" />);
+    wait(300);
+    expect(document.activeElement).toBe(home.byTestId('home'));
+    home.unmount();
+  });
+
+  it('does not take focus from the control that holds it', () => {
+    const input = document.createElement('input');
+    document.body.appendChild(input);
+    input.focus();
+    focusNextHeading();
+    const home = renderWeb(<ScreenTitle id="home" />);
+    wait(3100);
+    expect(document.activeElement).toBe(input);
+    home.unmount();
+    input.remove();
+  });
+
+  it('is not taken when nobody asked, or the sign-in failed', () => {
+    (document.activeElement as HTMLElement | null)?.blur?.();
+    const unasked = renderWeb(<ScreenTitle id="unasked" />);
+    wait(3100);
+    expect(document.activeElement).toBe(document.body);
+    unasked.unmount();
+    focusNextHeading();
+    cancelHeadingFocus();
+    const failed = renderWeb(<ScreenTitle id="failed" />);
+    wait(3100);
+    expect(document.activeElement).toBe(document.body);
+    failed.unmount();
   });
 });
