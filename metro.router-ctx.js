@@ -4,8 +4,8 @@
 // initialRouteName while it builds the route tree, before any layout has loaded, so with lazy layouts
 // alone a signed-out visit would open the first page of (auth) by name (forgot), not sign-in.
 // metro.config.js reads the settings from the layouts' source into the JSON below at every bundling.
-// Written by metro.config.js when bundling starts, so not there yet on a fresh clone when lint runs.
-// eslint-disable-next-line import/no-unresolved
+// Written by metro.config.js when bundling starts, so not there yet on a fresh clone when lint runs
+// (eslint.config.js lets import/no-unresolved pass this one file).
 import settings from './node_modules/.cache/pitchcard/router-layouts.json';
 
 // The same files as expo-router/_ctx.web.js: every route and layout, not +api, +middleware, +html.

@@ -1,4 +1,4 @@
-import { QueryClientProvider } from '@tanstack/react-query';
+import { PersistQueryClientProvider } from '@tanstack/react-query-persist-client';
 import { DefaultTheme, Stack, ThemeProvider } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';
 import { useEffect, useRef, useState, type ReactNode } from 'react';
@@ -7,7 +7,7 @@ import { colors } from '@/constants/theme';
 import { useArrivalHref } from '@/components/navigation/use-arrival-href';
 import { usePreloadArrival } from '@/components/navigation/preload-arrival';
 import { LoadingState } from '@/components/ui/states';
-import { makeQueryClient } from '@/lib/query-client';
+import { afterRestore, clearForNextPerson, makeQueryClient, persistOptions } from '@/lib/query-client';
 import { SessionProvider, useSession } from '@/hooks/use-session';
 import { UnitsProvider } from '@/hooks/use-units';
 import { useAppFonts } from '@/lib/app-fonts';
@@ -31,17 +31,22 @@ export default function RootLayout() {
   // fallback face and switches when they load.
   useAppFonts();
   const [queryClient] = useState(makeQueryClient);
+  // Ticks made without signal are kept on the device by TanStack Query's persister and sent after a reload.
   return (
-    <QueryClientProvider client={queryClient}>
+    <PersistQueryClientProvider
+      client={queryClient}
+      persistOptions={persistOptions()}
+      onSuccess={() => afterRestore(queryClient)}
+    >
       <SessionWithArrival>
         <UnitsProvider>
           <ThemeProvider value={navTheme}>
             <StatusBar style="dark" />
-            <Guarded onSignedOut={() => queryClient.clear()} />
+            <Guarded onSignedOut={() => clearForNextPerson(queryClient)} />
           </ThemeProvider>
         </UnitsProvider>
       </SessionWithArrival>
-    </QueryClientProvider>
+    </PersistQueryClientProvider>
   );
 }
 

@@ -32,7 +32,13 @@ function clientDb(client: PoolClient): Db {
   return db;
 }
 
-export async function withTransaction<T>(pool: Pool, work: (tx: Tx) => Promise<T>): Promise<T> {
+/**
+ * The one way a unit of work opens: BEGIN on a connection of the pool, the work, COMMIT (ROLLBACK when
+ * it throws). It takes the pool or the pool's drizzle client (the services that hold only the client),
+ * never a unit of work's own client: work does not nest.
+ */
+export async function withTransaction<T>(on: Pool | Db, work: (tx: Tx) => Promise<T>): Promise<T> {
+  const pool = poolOf(on);
   const client: PoolClient = await pool.connect();
   try {
     await client.query('BEGIN');
@@ -48,4 +54,11 @@ export async function withTransaction<T>(pool: Pool, work: (tx: Tx) => Promise<T
   } finally {
     client.release();
   }
+}
+
+function poolOf(on: Pool | Db): Pool {
+  if (on instanceof Pool) return on;
+  const client = (on as Db & { $client?: unknown }).$client;
+  if (client instanceof Pool) return client;
+  throw new Error('withTransaction opens on the pool or its client: a unit of work does not open inside another');
 }

@@ -6,6 +6,9 @@ export const storageKeys = {
   session: 'pitchcard.session',
   units: 'pitchcard.units',
   findingDraft: (travelerId: string) => `pitchcard.finding-draft.${travelerId}`,
+  /** TanStack Query's persisted client: ticks not yet through to the server (lib/query-client.ts). */
+  queryCache: 'pitchcard.query-cache',
+  /** Where earlier versions kept unsent ticks themselves; read once at start-up and handed over (adoptEarlierTicks). */
   tickOutbox: 'pitchcard.tick-outbox',
   /** A link opened before signing in (see tabScoped below). */
   pendingLink: 'pitchcard.pending-link',

@@ -23,7 +23,7 @@ import type { AddressInfo } from 'node:net';
 import express from 'express';
 import { Pool, type PoolClient, type QueryConfig } from 'pg';
 import { sql } from 'drizzle-orm';
-import { DEMO_USERS } from '../db/seed';
+import { DEMO_USERS } from '../server/dev/seed';
 import { startTestApp } from '../tests/helpers/test-app';
 import { pg } from './bench-common';
 

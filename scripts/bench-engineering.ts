@@ -17,7 +17,7 @@ import {
   type RibStudyInput,
   type WingStudyInput,
 } from '../server/engineering';
-import { DEMO_COUPONS, DEMO_WING_INPUTS } from '../db/seed';
+import { DEMO_COUPONS, DEMO_WING_INPUTS } from '../server/dev/seed';
 
 const WARM_UP = 5;
 const RUNS = 21;

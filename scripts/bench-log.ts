@@ -19,7 +19,7 @@ import { createServer } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { Pool } from 'pg';
-import { DEMO_PASSWORD, DEMO_USERS } from '../db/seed';
+import { DEMO_PASSWORD, DEMO_USERS } from '../server/dev/seed';
 import { startSmtpFake, type SmtpFake } from '../server/mail/smtp-fake';
 import { pg } from './bench-common';
 

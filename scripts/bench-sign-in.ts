@@ -12,7 +12,7 @@ import { spawnSync } from 'node:child_process';
 import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import path from 'node:path';
-import { DEMO_USERS } from '../db/seed';
+import { DEMO_USERS } from '../server/dev/seed';
 import { startTestApp } from '../tests/helpers/test-app';
 import { median, pg } from './bench-common';
 

@@ -30,7 +30,7 @@ import compression from 'compression';
 import express from 'express';
 import type { Browser, BrowserContext, BrowserContextOptions } from 'playwright-core';
 import request from 'supertest';
-import { DEMO_PASSWORD, DEMO_USERS } from '../db/seed';
+import { DEMO_PASSWORD, DEMO_USERS } from '../server/dev/seed';
 import { launchBrowser } from '../tests/e2e/helpers/browser';
 import { startTestApp, type TestApp } from '../tests/helpers/test-app';
 import { median, pg } from './bench-common';

@@ -121,7 +121,7 @@ async function serviceWorker(dist) {
         // What the bench reads: the person, the parts in progress, a part (its holes and steps), its
         // findings, and a label's look-up. Fresh from the server when it answers within a few seconds;
         // otherwise the last answer kept on the phone. Only GET (a tick is a POST and never cached: it
-        // waits in the app's own outbox instead).
+        // waits as a paused, persisted mutation in the app instead).
         urlPattern: ({ url, sameOrigin }) =>
           sameOrigin && /^\/api\/(auth\/me|travelers|travelers\/[^/]+|findings)$/.test(url.pathname),
         handler: 'NetworkFirst',

@@ -1,6 +1,6 @@
 import { createServer as createHttpServer, type Server } from 'node:http';
 import { createServer as createHttpsServer } from 'node:https';
-import { seedDemo } from '../db/seed';
+import { seedDemo } from './dev/seed';
 import { createApp } from './app';
 import { closeStudyPool } from './studies/study-pool';
 import { startJobs } from './jobs/run-jobs';

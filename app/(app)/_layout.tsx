@@ -5,7 +5,6 @@ import { allTabRoutes, mayOpen, tabsFor } from '@/components/navigation/role-tab
 import { TabIcon } from '@/components/navigation/tab-icon';
 import { TabLabel, tabLabelFit } from '@/components/navigation/tab-label';
 import { useSession } from '@/hooks/use-session';
-import { useTickOutboxSender } from '@/hooks/use-tick-outbox';
 import { useWide } from '@/hooks/use-wide';
 
 export { ScreenErrorBoundary as ErrorBoundary } from '@/components/ui/screen-error-boundary';
@@ -14,7 +13,6 @@ export const unstable_settings = { initialRouteName: 'index' };
 
 export default function AppLayout() {
   const { user } = useSession();
-  useTickOutboxSender();
   const wide = useWide();
   const { width } = useWindowDimensions();
   const shown = tabsFor(user);

@@ -25,10 +25,14 @@ export function Scanner({ onCode }: Props) {
   // Read once: a page's address (http or https) does not change while it is open.
   const unavailable = useMemo(() => cameraUnavailableReason(currentCameraSetting()), []);
 
-  // On a phone app with the camera already allowed, open straight away; the web waits for a tap.
-  useEffect(() => {
-    if (Platform.OS !== 'web' && permission?.granted) setOpen(true);
-  }, [permission?.granted]);
+  // On a phone app with the camera already allowed, open straight away; the web waits for a tap. Done
+  // while rendering, when the permission turns granted, so "Stop camera" still closes it afterwards.
+  const grantedOnPhone = Platform.OS !== 'web' && !!permission?.granted;
+  const [wasGranted, setWasGranted] = useState(false);
+  if (grantedOnPhone !== wasGranted) {
+    setWasGranted(grantedOnPhone);
+    if (grantedOnPhone) setOpen(true);
+  }
 
   // The decoder's own chunk, fetched once the bench is up rather than with the app.
   useEffect(() => {

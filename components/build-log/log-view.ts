@@ -1,4 +1,5 @@
 import { logEntryMatches, type BuildLogEntry, type BuildLogGroup } from '@/db/contracts';
+import { zonedDateTime } from '@/lib/zoned-time';
 
 /**
  * The build log screen's filters and day grouping, as plain functions so the list stays a view.
@@ -22,23 +23,9 @@ export function filterEntries(entries: readonly BuildLogEntry[], f: LogFilters):
   );
 }
 
-const dayFormats = new Map<string, Intl.DateTimeFormat>();
-
-function dayFormat(timeZone: string | undefined): Intl.DateTimeFormat {
-  const key = timeZone ?? '';
-  let f = dayFormats.get(key);
-  if (!f) {
-    f = new Intl.DateTimeFormat('en-US', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' });
-    dayFormats.set(key, f);
-  }
-  return f;
-}
-
 /** The calendar day (YYYY-MM-DD) of a moment on the clock of `timeZone` (the device's when not given). */
 export function dayOf(iso: string, timeZone?: string): string {
-  const p: Record<string, string> = {};
-  for (const x of dayFormat(timeZone).formatToParts(new Date(iso))) p[x.type] = x.value;
-  return `${p.year}-${p.month}-${p.day}`;
+  return zonedDateTime(iso, timeZone).date;
 }
 
 /** "Tuesday, 1 December 2026" for a YYYY-MM-DD day; the day itself is the calendar's, no zone applies. */
@@ -85,7 +72,7 @@ export function countLine(entries: readonly BuildLogEntry[], timeZone?: string):
   return `${n} ${n === 1 ? 'entry' : 'entries'}${n ? ` over ${days} ${days === 1 ? 'day' : 'days'}` : ''}`;
 }
 
-/** "14:05" on the device's clock (or `timeZone`'s). */
+/** "14:05" on the device's clock (or `timeZone`'s), as the exports print it. */
 export function timeOf(iso: string, timeZone?: string): string {
-  return new Date(iso).toLocaleTimeString(undefined, { timeZone, hour: '2-digit', minute: '2-digit', hour12: false });
+  return zonedDateTime(iso, timeZone).hm;
 }

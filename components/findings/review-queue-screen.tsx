@@ -1,5 +1,5 @@
 import { useRouter } from 'expo-router';
-import { useMemo, useRef, useState } from 'react';
+import { useMemo, useState } from 'react';
 import { Image, View } from 'react-native';
 import {
   findingKindLabels,
@@ -68,9 +68,9 @@ export function ReviewQueueScreen({
   const router = useRouter();
   const [filters, setFilters] = useState<ReviewFilters>({ status: 'open', build: 'all', text: '' });
   // Every build met in any page so far (kit serial → id): the build choice keeps its options while one is chosen.
-  const seenBuilds = useRef(new Map<string, string>());
+  const [seenBuilds, setSeenBuilds] = useState<ReadonlyMap<string, string>>(() => new Map());
   // State and build are asked of the server, so each page is full of what is asked for; the words search the rows loaded.
-  const q = useFindingsQuery(serverFilters(filters, seenBuilds.current), { keepPrevious: true });
+  const q = useFindingsQuery(serverFilters(filters, seenBuilds), { keepPrevious: true });
   // Oldest first, from the server: the longest wait is answered first, however many wait.
   const firstQ = useFindingsQuery({ status: first?.status, order: 'oldest' }, { enabled: !!first });
   const [sort, setSort] = useState<ReviewSort>({ key: 'date', dir: 'desc' });
@@ -80,10 +80,19 @@ export function ReviewQueueScreen({
   const all = useMemo(() => pagedItems(q.data), [q.data]);
   const rows = useMemo(() => sortFindings(filterFindings(all, filters), sort), [all, filters, sort]);
   const waiting = useMemo(() => pagedItems(firstQ.data), [firstQ.data]);
-  const builds = useMemo(() => {
-    for (const f of [...all, ...waiting]) seenBuilds.current.set(f.kitSerial, f.buildId);
-    return [...seenBuilds.current.keys()].sort((a, b) => a.localeCompare(b, undefined, { numeric: true }));
-  }, [all, waiting]);
+  // Builds met in the pages just loaded are added while rendering (React's "adjusting state"), not in an
+  // effect; set only when something is new, so the render that follows settles.
+  const met = useMemo(() => {
+    const next = new Map(seenBuilds);
+    for (const f of [...all, ...waiting]) next.set(f.kitSerial, f.buildId);
+    const same = next.size === seenBuilds.size && [...next].every(([k, v]) => seenBuilds.get(k) === v);
+    return same ? seenBuilds : next;
+  }, [all, waiting, seenBuilds]);
+  if (met !== seenBuilds) setSeenBuilds(met);
+  const builds = useMemo(
+    () => [...seenBuilds.keys()].sort((a, b) => a.localeCompare(b, undefined, { numeric: true })),
+    [seenBuilds],
+  );
 
   const columns: Column<FindingSummary, ReviewSortKey>[] = [
     {

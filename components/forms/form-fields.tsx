@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { Controller, type Control, type FieldValues, type Path } from 'react-hook-form';
 import { editableNumber, fromDisplay, parseNumber, type Quantity } from '@/constants/units';
 import { useUnits } from '@/hooks/use-units';
@@ -123,20 +123,18 @@ function NumberBox({
   system: string;
 }) {
   const [text, setText] = useState(() => toText(value));
-  // Follow outside changes (a reset, a units switch), but not the echo of our own typing.
-  useEffect(() => {
+  // Follow outside changes (a reset, a units switch), but not the echo of our own typing: compared with
+  // the value and system of the last render while rendering, rather than set again from an effect.
+  const [seen, setSeen] = useState({ value, system });
+  if (!Object.is(seen.value, value) || seen.system !== system) {
+    setSeen({ value, system });
     const mine = fromText(text);
     const same =
       (mine === undefined && value === undefined) ||
       (typeof mine === 'number' && typeof value === 'number' && Math.abs(mine - value) < 1e-9) ||
       (Number.isNaN(mine) && Number.isNaN(value));
-    if (!same) setText(toText(value));
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [value]);
-  useEffect(() => {
-    setText(toText(value));
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [system]);
+    if (seen.system !== system || !same) setText(toText(value));
+  }
   return (
     <Field label={label} hint={hint} error={error} unit={unit} testID={`${testID}-field`}>
       <TextBox

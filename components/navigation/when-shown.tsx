@@ -1,5 +1,5 @@
 import { useIsFocused } from 'expo-router';
-import { useEffect, useState, type ReactNode } from 'react';
+import { useState, type ReactNode } from 'react';
 
 /**
  * Draws a list page only once it has been on screen. A page opened straight from its link (a
@@ -10,8 +10,7 @@ import { useEffect, useState, type ReactNode } from 'react';
 export function WhenShown({ children }: { children: ReactNode }) {
   const focused = useIsFocused();
   const [shown, setShown] = useState(focused);
-  useEffect(() => {
-    if (focused) setShown(true);
-  }, [focused]);
+  // Remembered while rendering (React's "adjusting state when a prop changes"), not in an effect after it.
+  if (focused && !shown) setShown(true);
   return shown || focused ? children : null;
 }

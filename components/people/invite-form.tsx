@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect, useMemo, useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { Controller, useForm, useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 import type { z } from 'zod';
 import {
@@ -44,7 +44,7 @@ export function InviteForm({
   const admin = me.role === 'admin';
   const [sent, setSent] = useState<string | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
-  const { control, handleSubmit, setError, setValue, watch, reset, getValues, formState } = useForm<
+  const { control, handleSubmit, setError, setValue, reset, getValues, formState } = useForm<
     Values,
     unknown,
     z.output<typeof inviteInput>
@@ -55,8 +55,9 @@ export function InviteForm({
       ? { email: '', name: '', role: undefined, organizationId: null, lead: false }
       : { email: '', name: '', role: 'supplier', organizationId: me.organizationId, lead: false },
   });
-  const role = watch('role');
-  const orgId = watch('organizationId');
+  // useWatch rather than watch(): a hook the React Compiler can see, re-rendering on these two fields only.
+  const role = useWatch({ control, name: 'role' });
+  const orgId = useWatch({ control, name: 'organizationId' });
   const orgChoices = useMemo(() => organizationsFor(role, organizations ?? []), [role, organizations]);
 
   // An organisation that cannot hold the newly chosen role is let go, and "lead" is for engineers only.

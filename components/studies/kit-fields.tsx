@@ -1,17 +1,56 @@
 import type { Control } from 'react-hook-form';
-import { View } from 'react-native';
-import { space } from '@/constants/theme';
-import { FormChoiceField, FormNumberField } from '@/components/forms/form-fields';
+import { FormChoiceField } from '@/components/forms/form-fields';
+import { NumberRows, type NumberFieldSpec } from '@/components/forms/number-rows';
 import { Txt } from '@/components/ui/text';
 import type { StudyFormValues } from './study-form-values';
 
-/** Two or three fields side by side where there is room; one under the other on a phone. */
-export function Row({ children }: { children: React.ReactNode }) {
-  return <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.md }}>{children}</View>;
-}
-export function Cell({ children }: { children: React.ReactNode }) {
-  return <View style={{ flexGrow: 1, flexBasis: 180, minWidth: 160 }}>{children}</View>;
-}
+export { Cell, Row } from '@/components/forms/number-rows';
+
+type Spec = NumberFieldSpec<StudyFormValues>;
+
+const massAndSpeeds = (prefix: string): Spec[][] => [
+  [
+    { name: 'inputs.kit.weightLb', label: 'Gross weight', quantity: 'mass', testID: `${prefix}-weight` },
+    { name: 'inputs.kit.wingAreaSqFt', label: 'Wing area', quantity: 'area', testID: `${prefix}-wing-area` },
+    { name: 'inputs.kit.meanChordIn', label: 'Mean chord', quantity: 'length', testID: `${prefix}-mean-chord` },
+  ],
+  [
+    { name: 'inputs.kit.stallSpeedKeas', label: 'Stall speed', unit: 'KEAS', testID: `${prefix}-stall` },
+    {
+      name: 'inputs.kit.cruiseSpeedKeas',
+      label: 'Cruise speed',
+      unit: 'KEAS',
+      hint: 'Blank: the rule minimum',
+      testID: `${prefix}-cruise`,
+    },
+    {
+      name: 'inputs.kit.diveSpeedKeas',
+      label: 'Dive speed',
+      unit: 'KEAS',
+      hint: 'Blank: the rule minimum',
+      testID: `${prefix}-dive`,
+    },
+  ],
+];
+
+const gustCases = (prefix: string): Spec[][] => [
+  [
+    {
+      name: 'inputs.kit.altitudeFt',
+      label: 'Altitude of the gust cases',
+      unit: 'ft',
+      hint: 'Blank: sea level',
+      testID: `${prefix}-altitude`,
+    },
+    {
+      name: 'inputs.kit.liftSlopePerRad',
+      label: 'Wing lift slope',
+      unit: 'per rad',
+      hint: 'Blank: estimated from the aspect ratio',
+      testID: `${prefix}-lift-slope`,
+    },
+  ],
+];
 
 /**
  * The aircraft's numbers (`inputs.kit`), the same block in the rib and the wing study: the wing form
@@ -20,66 +59,7 @@ export function Cell({ children }: { children: React.ReactNode }) {
 export function KitFields({ control, prefix }: { control: Control<StudyFormValues>; prefix: string }) {
   return (
     <>
-      <Row>
-        <Cell>
-          <FormNumberField
-            control={control}
-            name="inputs.kit.weightLb"
-            label="Gross weight"
-            quantity="mass"
-            testID={`${prefix}-weight`}
-          />
-        </Cell>
-        <Cell>
-          <FormNumberField
-            control={control}
-            name="inputs.kit.wingAreaSqFt"
-            label="Wing area"
-            quantity="area"
-            testID={`${prefix}-wing-area`}
-          />
-        </Cell>
-        <Cell>
-          <FormNumberField
-            control={control}
-            name="inputs.kit.meanChordIn"
-            label="Mean chord"
-            quantity="length"
-            testID={`${prefix}-mean-chord`}
-          />
-        </Cell>
-      </Row>
-      <Row>
-        <Cell>
-          <FormNumberField
-            control={control}
-            name="inputs.kit.stallSpeedKeas"
-            label="Stall speed"
-            unit="KEAS"
-            testID={`${prefix}-stall`}
-          />
-        </Cell>
-        <Cell>
-          <FormNumberField
-            control={control}
-            name="inputs.kit.cruiseSpeedKeas"
-            label="Cruise speed"
-            unit="KEAS"
-            hint="Blank: the rule minimum"
-            testID={`${prefix}-cruise`}
-          />
-        </Cell>
-        <Cell>
-          <FormNumberField
-            control={control}
-            name="inputs.kit.diveSpeedKeas"
-            label="Dive speed"
-            unit="KEAS"
-            hint="Blank: the rule minimum"
-            testID={`${prefix}-dive`}
-          />
-        </Cell>
-      </Row>
+      <NumberRows control={control} rows={massAndSpeeds(prefix)} />
       <FormChoiceField
         control={control}
         name="inputs.kit.category"
@@ -91,28 +71,7 @@ export function KitFields({ control, prefix }: { control: Control<StudyFormValue
           { value: 'acrobatic', label: 'Acrobatic' },
         ]}
       />
-      <Row>
-        <Cell>
-          <FormNumberField
-            control={control}
-            name="inputs.kit.altitudeFt"
-            label="Altitude of the gust cases"
-            unit="ft"
-            hint="Blank: sea level"
-            testID={`${prefix}-altitude`}
-          />
-        </Cell>
-        <Cell>
-          <FormNumberField
-            control={control}
-            name="inputs.kit.liftSlopePerRad"
-            label="Wing lift slope"
-            unit="per rad"
-            hint="Blank: estimated from the aspect ratio"
-            testID={`${prefix}-lift-slope`}
-          />
-        </Cell>
-      </Row>
+      <NumberRows control={control} rows={gustCases(prefix)} />
       <Txt variant="small" tone="faint">
         Speeds in knots equivalent airspeed and altitude in feet, as flight data are given in every unit system.
       </Txt>

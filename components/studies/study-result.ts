@@ -10,7 +10,7 @@ import type {
   StudyCandidate,
   StudyCondition,
   TradeRow,
-} from '@/db/contracts';
+} from '@/lib/engineering-results';
 
 /**
  * The stored result of a rib study as the screen reads it: the engine's own types (in, lb, psi, KEAS),

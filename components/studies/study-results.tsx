@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { View } from 'react-native';
 import type { StudyDetail } from '@/db/contracts';
 import { space } from '@/constants/theme';
@@ -78,11 +78,12 @@ export function StudyResults({ detail, latestRevision }: { detail: StudyDetail; 
   const u = units.length;
   const result = readStudyResult(detail.result);
   const [chosen, setChosen] = useState<CandidateKey | null>(() => (result ? initialCandidate(result) : null));
-  // Another revision has other candidates: start again from its recommendation.
-  useEffect(() => {
-    const r = readStudyResult(detail.result);
-    setChosen(r ? initialCandidate(r) : null);
-  }, [detail.id, detail.revision, detail.result]);
+  // Another revision has other candidates: start again from its recommendation (noticed while rendering).
+  const [shownFor, setShownFor] = useState({ id: detail.id, revision: detail.revision, result: detail.result });
+  if (shownFor.id !== detail.id || shownFor.revision !== detail.revision || shownFor.result !== detail.result) {
+    setShownFor({ id: detail.id, revision: detail.revision, result: detail.result });
+    setChosen(result ? initialCandidate(result) : null);
+  }
   // The stored result keeps the holes of the recommended candidate only; another one's come from the server.
   const stored = result ? findCandidate(result, chosen) : null;
   const needsHoles = !!stored && stored.holesStored === false;

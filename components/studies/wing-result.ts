@@ -6,7 +6,7 @@ import type {
   WingRib,
   WingStudyResult,
   WingTradeRow,
-} from '@/db/contracts';
+} from '@/lib/engineering-results';
 import { sameCandidate, type CandidateKey } from './study-result';
 
 /**

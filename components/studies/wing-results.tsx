@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { View } from 'react-native';
 import type { StudyDetail } from '@/db/contracts';
 import { space } from '@/constants/theme';
@@ -116,13 +116,14 @@ export function WingResults({ detail, latestRevision }: { detail: StudyDetail; l
   const [ribName, setRibName] = useState<string | null>(() => result?.ribs[0]?.name ?? null);
   const [skinName, setSkinName] = useState<string | null>(() => result?.skins[0]?.name ?? null);
   const [ribPick, setRibPick] = useState<CandidateKey | null>(null);
-  // Another revision has other ribs and panels: start again from the root.
-  useEffect(() => {
-    const r = readWingResult(detail.result);
-    setRibName(r?.ribs[0]?.name ?? null);
-    setSkinName(r?.skins[0]?.name ?? null);
+  // Another revision has other ribs and panels: start again from the root (noticed while rendering).
+  const [shownFor, setShownFor] = useState({ id: detail.id, revision: detail.revision, result: detail.result });
+  if (shownFor.id !== detail.id || shownFor.revision !== detail.revision || shownFor.result !== detail.result) {
+    setShownFor({ id: detail.id, revision: detail.revision, result: detail.result });
+    setRibName(result?.ribs[0]?.name ?? null);
+    setSkinName(result?.skins[0]?.name ?? null);
     setRibPick(null);
-  }, [detail.id, detail.revision, detail.result]);
+  }
 
   if (!result) {
     return <UnreadableResult />;

@@ -25,6 +25,11 @@ const MIN_HOLES = 60;
 /** Heights used until an item has been laid out once (px, chip and heading at 100 % text). */
 const ROW_GUESS = 84;
 const HEAD_GUESS = 40;
+const FIRST_GUESS = { row: ROW_GUESS, head: HEAD_GUESS };
+const NO_HEIGHTS: ReadonlyMap<string, number> = new Map();
+
+/** Items' laid-out heights (px by key) for a count of columns, and the guess for those not laid out yet. */
+type LaidOut = { cols: number; heights: ReadonlyMap<string, number>; guess: { row: number; head: number } };
 
 type Props = {
   lines: FastenerLine[];
@@ -85,30 +90,33 @@ export function HolesPanel({
   );
   const windowed = Platform.OS === 'web' && holeCount > DRAW_ALL_HOLES;
 
-  // Heights of items laid out so far, by key; the rest are guessed from the rows already seen.
-  const heights = useRef(new Map<string, number>());
-  const [heightsVersion, setHeightsVersion] = useState(0);
-  useEffect(() => {
-    heights.current.clear();
-  }, [cols]);
-  // Unmeasured items are guessed at the height last measured for their kind (rows are all alike).
-  const guess = useRef({ row: ROW_GUESS, head: HEAD_GUESS });
-  const onItemLayout = useCallback((key: string, h: number) => {
-    if (!(h > 0) || heights.current.get(key) === h) return;
-    const kind = key.startsWith('row:') ? 'row' : 'head';
-    // As guessed: nothing moves, so nothing to draw again.
-    if (!heights.current.has(key) && guess.current[kind] === h) return;
-    heights.current.set(key, h);
-    guess.current[kind] = h;
-    setHeightsVersion((v) => v + 1);
-  }, []);
-  const offsets = useMemo(() => {
-    if (!windowed) return [];
-    const { row, head } = guess.current;
-    return itemOffsets(items.map((it) => heights.current.get(it.key) ?? (it.kind === 'row' ? row : head)));
-    // heightsVersion: the map is read afresh whenever a new height comes in.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [items, windowed, heightsVersion]);
+  // Heights of items laid out so far, by key, for the columns they were laid out in (another count of
+  // columns makes other rows); the rest are guessed at the height last measured for their kind (rows are
+  // all alike).
+  const [laidOut, setLaidOut] = useState<LaidOut>(() => ({ cols, heights: new Map(), guess: FIRST_GUESS }));
+  const onItemLayout = useCallback(
+    (key: string, h: number) => {
+      if (!(h > 0)) return;
+      setLaidOut((was) => {
+        const heights = was.cols === cols ? was.heights : NO_HEIGHTS;
+        if (heights.get(key) === h) return was;
+        const kind = key.startsWith('row:') ? 'row' : 'head';
+        // As guessed: nothing moves, so nothing to draw again.
+        if (!heights.has(key) && was.guess[kind] === h) return was;
+        return { cols, heights: new Map(heights).set(key, h), guess: { ...was.guess, [kind]: h } };
+      });
+    },
+    [cols],
+  );
+  const heights = laidOut.cols === cols ? laidOut.heights : NO_HEIGHTS;
+  const guess = laidOut.guess;
+  const offsets = useMemo(
+    () =>
+      windowed
+        ? itemOffsets(items.map((it) => heights.get(it.key) ?? (it.kind === 'row' ? guess.row : guess.head)))
+        : [],
+    [items, windowed, heights, guess],
+  );
 
   const minItems = Math.ceil(MIN_HOLES / cols) + 2;
   const [range, setRange] = useState<[number, number]>([0, minItems]);

@@ -24,9 +24,9 @@ import {
   useTravelerQuery,
   useTravelerSignOffMutation,
   useTravelerStepMutation,
+  useTickQueue,
   useTravelerTickMutation,
 } from '@/hooks/queries/travelers';
-import { usePendingTicks } from '@/hooks/use-tick-outbox';
 import { useFlash } from '@/hooks/use-flash';
 import { useUnits } from '@/hooks/use-units';
 import { HolesPanel } from './holes-panel';
@@ -61,7 +61,7 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
   const router = useRouter();
   const units = useUnits();
   const tick = useTravelerTickMutation(t.id);
-  const waiting = usePendingTicks(t.id);
+  const ticks = useTickQueue(t.id);
   const step = useTravelerStepMutation(t.id);
   const signOff = useTravelerSignOffMutation(t.id);
 
@@ -90,9 +90,8 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
   const send = useCallback(
     (action: TickHolesInput) => {
       setMessage(null);
-      tick.mutate(action, {
-        onError: (e) => setMessage({ tone: 'error', text: `Not saved: ${errorMessage(e)} The tick was taken back.` }),
-      });
+      // A refusal shows in the notice above, whether the tick was just made or waited for signal.
+      tick.mutate(action);
     },
     [tick],
   );
@@ -237,15 +236,15 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
           </View>
         </Notice>
       ) : null}
-      {waiting.pending.length ? (
+      {ticks.waiting.length ? (
         <Notice tone="caution" testID="ticks-waiting">
-          {`${waiting.pending.length} tick${waiting.pending.length === 1 ? '' : 's'} waiting for signal: kept on this device and sent as soon as the server answers.`}
+          {`${ticks.waiting.length} tick${ticks.waiting.length === 1 ? '' : 's'} waiting for signal: kept on this device and sent as soon as the server answers.`}
         </Notice>
       ) : null}
-      {waiting.refused ? (
+      {ticks.refused ? (
         <Notice tone="error" testID="tick-refused">
-          <Txt tone="error">{waiting.refused}</Txt>
-          <Button label="OK" variant="quiet" compact onPress={waiting.clearRefused} testID="dismiss-tick-refused" />
+          <Txt tone="error">{ticks.refused}</Txt>
+          <Button label="OK" variant="quiet" compact onPress={ticks.dismissRefused} testID="dismiss-tick-refused" />
         </Notice>
       ) : null}
       <ProgressBar done={progress.done} awaiting={progress.awaiting} total={t.holes.length} />

@@ -1,4 +1,4 @@
-import { useEffect, useRef } from 'react';
+import { useEffect, useLayoutEffect, useRef } from 'react';
 import { Platform } from 'react-native';
 
 /**
@@ -8,8 +8,11 @@ import { Platform } from 'react-native';
  * panes) without owning a scroll view of its own, nor knowing which of its parents scrolls.
  */
 export function usePageScroll(onMove: () => void, enabled: boolean): void {
+  // The newest callback, kept once each render is committed (not while drawing): the listener calls it.
   const latest = useRef(onMove);
-  latest.current = onMove;
+  useLayoutEffect(() => {
+    latest.current = onMove;
+  });
   useEffect(() => {
     if (!enabled || Platform.OS !== 'web' || typeof window === 'undefined') return;
     let frame: number | null = null;

@@ -1,4 +1,4 @@
-import { useEffect, useRef } from 'react';
+import { useEffect, useLayoutEffect, useRef } from 'react';
 import { Platform, StyleSheet, View } from 'react-native';
 import { space } from '@/constants/theme';
 import { Button } from './button';
@@ -28,8 +28,11 @@ export function LoadMore({
   testID = 'load-more',
 }: Props) {
   const ref = useRef<View>(null);
+  // Read by the observer: kept up to date once each render is committed (not while drawing).
   const busy = useRef(false);
-  busy.current = isFetchingNextPage;
+  useLayoutEffect(() => {
+    busy.current = isFetchingNextPage;
+  }, [isFetchingNextPage]);
 
   useEffect(() => {
     if (Platform.OS !== 'web' || !hasNextPage || typeof IntersectionObserver === 'undefined') return;

@@ -1,8 +1,10 @@
 import { z } from 'zod';
 import { pageQuery, plainText } from './common';
+import { COUPON_OUTCOMES } from '../../lib/engineering-results';
 import { GAUGE_RANGE_IN, measured } from './engineering';
 
-export const couponOutcomes = ['no_deformation', 'slight_deformation', 'excessive_deformation', 'failure'] as const;
+/** The engine's outcomes of a coupon test: one list for the engine, the coupon_tests table and the API. */
+export const couponOutcomes = COUPON_OUTCOMES;
 export type CouponOutcome = (typeof couponOutcomes)[number];
 export const couponOutcomeLabels: Record<CouponOutcome, string> = {
   no_deformation: 'No permanent deformation',

@@ -168,7 +168,8 @@ export type RevisionInput = z.input<typeof revisionInput>;
 /** Publishing is the approval: the supplier who publishes is named as approver on every traveler. */
 export const publishInput = z.object({}).strict();
 
-export type RevisionStatus = 'draft' | 'published' | 'superseded';
+export const revisionStatuses = ['draft', 'published', 'superseded'] as const;
+export type RevisionStatus = (typeof revisionStatuses)[number];
 
 export const revisionActions = ['edit', 'publish', 'discard'] as const;
 export type RevisionAction = (typeof revisionActions)[number];

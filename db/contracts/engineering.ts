@@ -1,39 +1,5 @@
 import { z } from 'zod';
 
-/**
- * The engine's result shapes as the API sends them. Type-only: the engine is pure TypeScript with no
- * I/O, and these re-exports vanish at compile time, so the app gets one definition without importing
- * any server code.
- */
-export type {
-  ReworkResult,
-  ReworkMargins,
-  RibStudyResult,
-  StudyCandidate,
-  StudyCondition,
-  LineLoads,
-  EnvelopePoint,
-  LineSchedule,
-  TradeRow,
-  ScheduleZone,
-  ScheduleHole,
-  AllowableSummary,
-  DesignCondition,
-  CpSample,
-  StudyWork,
-  RepairCheckResult,
-  RepairHoleResult,
-  RepairAlternative,
-  WingStudyResult,
-  WingRib,
-  WingCondition,
-  WingTradeRow,
-  SkinPanelResult,
-  SkinCandidate,
-  SkinLineSchedule,
-  Planform,
-} from '../../server/engineering';
-
 /*
  * Physical ranges for the contracts' numbers. Every measured input states its range beside its field
  * with these, so a form shows the same words the API answers with. The engine (server/engineering/

@@ -10,4 +10,3 @@ export * from './studies';
 export * from './build-log';
 export * from './people';
 export * from './network';
-export type * from './engineering';

@@ -1,8 +1,10 @@
 import { z } from 'zod';
 import { plainText } from './common';
+import { CATEGORIES } from '../../lib/engineering-results';
 import { checkWing, measured } from './engineering';
 
-export const aircraftCategories = ['normal', 'utility', 'acrobatic'] as const;
+/** The engine's categories (14 CFR 23): one list for the engine, the kit_models table and the API. */
+export const aircraftCategories = CATEGORIES;
 
 /**
  * A kit model as the supplier describes it. Ranges are those of light aircraft kits under 14 CFR 23

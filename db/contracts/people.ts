@@ -23,7 +23,10 @@ export const memberPlaceLabels: Record<MemberPlace, string> = {
   adviser: 'Technical adviser',
   final_inspector: 'Final inspector',
 };
-export const memberRoleOfPlace: Record<MemberPlace, 'builder' | 'inspector'> = {
+/** The account roles that take a place on a build (build_members.role). */
+export const buildMemberRoles = ['builder', 'inspector'] as const;
+export type BuildMemberRole = (typeof buildMemberRoles)[number];
+export const memberRoleOfPlace: Record<MemberPlace, BuildMemberRole> = {
   owner: 'builder',
   helper: 'builder',
   adviser: 'inspector',

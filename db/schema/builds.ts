@@ -1,9 +1,10 @@
 import { index, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { buildMemberRoles } from '../contracts/people';
 import { kitModels } from './designs';
 import { organizations } from './organizations';
 import { memberPlace, users } from './users';
 
-export const buildMemberRole = pgEnum('build_member_role', ['builder', 'inspector']);
+export const buildMemberRole = pgEnum('build_member_role', buildMemberRoles);
 
 /** One builder's kit, shipped by a supplier. Access to everything under it goes through build_members. */
 export const builds = pgTable(

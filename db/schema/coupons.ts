@@ -1,13 +1,9 @@
 import { type AnyPgColumn, date, index, pgEnum, pgTable, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { couponOutcomes } from '../contracts/coupons';
 import { organizations } from './organizations';
 import { users } from './users';
 
-export const couponOutcome = pgEnum('coupon_outcome', [
-  'no_deformation',
-  'slight_deformation',
-  'excessive_deformation',
-  'failure',
-]);
+export const couponOutcome = pgEnum('coupon_outcome', couponOutcomes);
 
 /**
  * A supplier's test of one fastener in a flange coupon; allowables are derived from these. A recorded

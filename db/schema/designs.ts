@@ -1,12 +1,14 @@
 import { sql } from 'drizzle-orm';
 import { index, integer, jsonb, pgEnum, pgTable, real, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
-import type { FastenerLine } from '../contracts/designs';
+import { partKinds, revisionStatuses, type FastenerLine } from '../contracts/designs';
+import { aircraftCategories } from '../contracts/kits';
 import { organizations } from './organizations';
 import { users } from './users';
 
-export const aircraftCategory = pgEnum('aircraft_category', ['normal', 'utility', 'acrobatic']);
-export const partKind = pgEnum('part_kind', ['rib', 'nose_rib', 'skin_panel', 'spar_web']);
-export const revisionStatus = pgEnum('revision_status', ['draft', 'published', 'superseded']);
+// The lists live once in db/contracts: the tables and the API read the same words.
+export const aircraftCategory = pgEnum('aircraft_category', aircraftCategories);
+export const partKind = pgEnum('part_kind', partKinds);
+export const revisionStatus = pgEnum('revision_status', revisionStatuses);
 
 /** A supplier's aircraft kit with the design data load studies start from. Stored in lb, ft², in, KEAS. */
 export const kitModels = pgTable(

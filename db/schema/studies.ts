@@ -1,5 +1,6 @@
 import { index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
-import { studyKinds } from '../contracts/studies';
+import type { RibStudyResult, WingStudyResult } from '../../lib/engineering-results';
+import { studyKinds, type RibStudyInputValues, type WingStudyInputValues } from '../contracts/studies';
 import { kitModels } from './designs';
 import { organizations } from './organizations';
 import { users } from './users';
@@ -45,8 +46,9 @@ export const loadStudyRevisions = pgTable(
       .notNull()
       .references(() => loadStudies.id, { onDelete: 'cascade' }),
     revision: integer('revision').notNull(),
-    inputs: jsonb('inputs').$type<Record<string, unknown>>().notNull(),
-    result: jsonb('result').$type<Record<string, unknown>>().notNull(),
+    /** The request's inputs (the study's kind tells which); the engine's own input is the result's `inputs`. */
+    inputs: jsonb('inputs').$type<RibStudyInputValues | WingStudyInputValues>().notNull(),
+    result: jsonb('result').$type<RibStudyResult | WingStudyResult>().notNull(),
     createdBy: uuid('created_by')
       .notNull()
       .references(() => users.id),

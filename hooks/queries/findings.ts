@@ -19,8 +19,8 @@ import {
   type FindingStatus,
   type FindingSummary,
   type Page,
-  type RepairCheckResult,
 } from '@/db/contracts';
+import type { RepairCheckResult } from '@/lib/engineering-results';
 import { api, ApiError } from '@/lib/api-client';
 import { pageParams, pagePath } from './paged';
 import { findingActionFormData, findingFormData, type DraftPhoto } from '@/lib/photo-form-data';
@@ -56,7 +56,7 @@ export const findingKeys = {
 };
 
 /** The engine's repair check as the server sends it (server/engineering/repair-check.ts), one definition for both sides. */
-export type { RepairAlternative, RepairCheckResult, RepairHoleResult } from '@/db/contracts';
+export type { RepairAlternative, RepairCheckResult, RepairHoleResult } from '@/lib/engineering-results';
 
 const findingPath = (id: string, rest = '') => `/api/findings/${encodeURIComponent(id)}${rest}`;
 

@@ -10,12 +10,12 @@ import type {
   ApplyStudyInput,
   Page,
   Revision,
-  StudyCandidate,
   StudyDetail,
   StudyInput,
   StudySummary,
   WingStudyInput,
 } from '@/db/contracts';
+import type { StudyCandidate } from '@/lib/engineering-results';
 import { api, apiRequest, qs } from '@/lib/api-client';
 import { designKeys } from './designs';
 import { pageParams, pagePath } from './paged';

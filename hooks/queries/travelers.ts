@@ -4,13 +4,18 @@ import {
   queryOptions,
   useInfiniteQuery,
   useMutation,
+  useMutationState,
   useQuery,
   useQueryClient,
+  type Mutation,
+  type MutateOptions,
   type QueryClient,
 } from '@tanstack/react-query';
+import { useCallback, useMemo } from 'react';
 import {
   holesAwaitingInspectorStatuses,
   holesDoneStatuses,
+  tickHolesInput,
   type Hole,
   type LabelsQuery,
   type PartLabel,
@@ -21,8 +26,8 @@ import {
   type TravelerSummary,
   type WithdrawSignOffInput,
 } from '@/db/contracts';
-import { api, ApiError } from '@/lib/api-client';
-import { queueTick, readOutbox, withPendingTicks } from '@/lib/tick-outbox';
+import { api, ApiError, errorMessage } from '@/lib/api-client';
+import { readJson, removeKey, storageKeys } from '@/lib/storage';
 import { buildKeys } from './builds';
 import { pageParams, pagePath } from './paged';
 
@@ -41,8 +46,9 @@ export const travelerKeys = {
   detail: (id: string) => [...travelerKeys.details(), id] as const,
   lookup: (code: string) => [...travelerKeys.all, 'lookup', code] as const,
   labels: (q: LabelsQuery) => [...travelerKeys.all, 'labels', q.buildId ?? null, q.travelerId ?? null] as const,
-  /** Mutation key for ticks, so a burst of taps refetches only once, after the last one. */
-  tick: (id: string) => [...travelerKeys.all, 'tick', id] as const,
+  /** Mutation keys of ticks: every part's (their defaults; what is kept on the device), and one part's. */
+  ticks: () => [...travelerKeys.all, 'tick'] as const,
+  tick: (id: string) => [...travelerKeys.ticks(), id] as const,
 };
 
 export const travelerQueries = {
@@ -63,13 +69,9 @@ export const travelerQueries = {
   detail: (id: string) =>
     queryOptions({
       queryKey: travelerKeys.detail(id),
-      // Ticks still waiting on the device are shown as made, whatever the server has seen so far.
-      queryFn: async ({ signal }) =>
-        withPendingTicks(
-          await api.get<TravelerDetail>(`/api/travelers/${encodeURIComponent(id)}`, signal),
-          await readOutbox(),
-          applyTick,
-        ),
+      // Ticks not yet through to the server are shown as made, whatever the server has seen so far.
+      queryFn: async ({ signal, client }) =>
+        withUnsentTicks(await api.get<TravelerDetail>(`/api/travelers/${encodeURIComponent(id)}`, signal), client),
     }),
   lookup: (code: string) =>
     queryOptions({
@@ -153,67 +155,169 @@ function mergeHoles(detail: TravelerDetail, changed: Hole[]): TravelerDetail {
   return recount(detail, holes);
 }
 
-export const postTick = (travelerId: string, input: TickHolesInput) =>
-  api.post<{ holes: Hole[] }>(`/api/travelers/${encodeURIComponent(travelerId)}/holes`, {
-    holeIds: input.holeIds,
-    status: input.status,
-  });
+/** A tick as it travels: the holes and their new state, the part, and the moment it was made on the device. */
+export type TickVariables = TickHolesInput & { travelerId: string; at: string };
+type TickResult = { holes: Hole[] };
+/** The holes a tick touched as they were before it, to undo it alone if refused (kept small: it is stored with the tick). */
+type TickContext = { before: Hole[] };
 
 /**
- * Ticking holes: shown at once (optimistic), rolled back with a message if the server refuses. With no
- * signal the tick is not rolled back: it waits on the device and is sent when the signal returns.
+ * Sends one tick: exactly what the API's contract takes (`tickHolesInput`). The moment it was made on
+ * the device (`at`) stays with the tick while it waits; the contract has no field for it yet, and the
+ * server records the moment the tick arrives.
  */
-export function useTravelerTickMutation(travelerId: string) {
-  const qc = useQueryClient();
-  const key = travelerKeys.detail(travelerId);
-  return useMutation({
-    mutationKey: travelerKeys.tick(travelerId),
-    // Run even when the browser says it is offline: the tick then goes to the device's outbox at once
-    // instead of waiting in memory, where a reload would lose it.
-    networkMode: 'always',
-    retry: false,
-    mutationFn: async (input: TickHolesInput): Promise<{ holes: Hole[]; queued?: true }> => {
-      try {
-        return await postTick(travelerId, input);
-      } catch (e) {
-        if (!(e instanceof ApiError && e.isNetwork)) throw e;
-        await queueTick(travelerId, input);
-        return { holes: [], queued: true };
-      }
-    },
-    onMutate: async (input) => {
+export const postTick = (t: TickVariables) =>
+  api.post<TickResult>(`/api/travelers/${encodeURIComponent(t.travelerId)}/holes`, {
+    holeIds: t.holeIds,
+    status: t.status,
+  } satisfies TickHolesInput);
+
+/** Worth another try later: no signal, the server down, or a sign-in to renew first. A refusal is final. */
+const worthWaiting = (e: unknown) => e instanceof ApiError && (e.isNetwork || e.status >= 500 || e.status === 401);
+/** Tries while the browser says there is signal but the server cannot be reached are spaced up to this. */
+const TICK_RETRY_CAP_MS = 15_000;
+/** How long a refused tick's message stays for the bench to read, unless dismissed. */
+const REFUSAL_KEPT_MS = 30 * 60_000;
+
+/** A tick not yet through to the server: on its way, waiting for signal, or for a new sign-in. */
+export const isUnsentTick = (m: Pick<Mutation, 'state' | 'options'>) =>
+  m.state.status === 'pending' &&
+  m.options.mutationKey?.[0] === travelerKeys.all[0] &&
+  m.options.mutationKey?.[1] === 'tick';
+
+function unsentTicks(qc: QueryClient, travelerId: string): TickVariables[] {
+  return qc
+    .getMutationCache()
+    .findAll({ mutationKey: travelerKeys.tick(travelerId), status: 'pending' })
+    .map((m) => m.state.variables as TickVariables | undefined)
+    .filter((v): v is TickVariables => !!v);
+}
+
+/** The server's copy of a part with the ticks not yet through counted in, oldest first. */
+export function withUnsentTicks(detail: TravelerDetail, qc: QueryClient): TravelerDetail {
+  return unsentTicks(qc, detail.id).reduce((d, t) => applyTick(d, t), detail);
+}
+
+/**
+ * Ticking holes, registered once on the query client under the ticks' key, so a tick kept on the device
+ * (lib/query-client.ts persists the unsent ones) finds its way to the server after a reload too. Shown at
+ * once (optimistic); refused, only that tick is taken back. Without signal TanStack Query pauses it (its
+ * online manager) and sends it when the signal returns; with signal but no server it tries again, spaced out.
+ */
+export function registerTickMutations(qc: QueryClient): void {
+  qc.setMutationDefaults(travelerKeys.ticks(), tickMutationOptions(qc));
+}
+
+function tickMutationOptions(qc: QueryClient) {
+  return {
+    mutationFn: (t: TickVariables) => postTick(t),
+    // One queue for every part: ticks reach the server in the order they were made.
+    scope: { id: 'ticks' },
+    retry: (_count: number, e: unknown) => worthWaiting(e),
+    retryDelay: (n: number) => Math.min(TICK_RETRY_CAP_MS, 1000 * 2 ** n),
+    gcTime: REFUSAL_KEPT_MS,
+    onMutate: async (t: TickVariables): Promise<TickContext> => {
+      const key = travelerKeys.detail(t.travelerId);
       await qc.cancelQueries({ queryKey: key });
-      const previous = qc.getQueryData<TravelerDetail>(key);
-      if (previous) qc.setQueryData<TravelerDetail>(key, applyTick(previous, input));
-      return { previous };
-    },
-    onError: (_e, input, ctx) => {
-      // Undo only this tick, keeping any other tick made meanwhile.
       const now = qc.getQueryData<TravelerDetail>(key);
-      const before = ctx?.previous;
-      if (!now || !before) return;
-      const prior = new Map(before.holes.map((h) => [h.holeId, h]));
-      qc.setQueryData<TravelerDetail>(
-        key,
-        mergeHoles(
-          now,
-          input.holeIds.map((id) => prior.get(id)).filter((h): h is Hole => !!h),
-        ),
-      );
+      if (!now) return { before: [] };
+      const ids = new Set(t.holeIds);
+      qc.setQueryData<TravelerDetail>(key, applyTick(now, t));
+      return { before: now.holes.filter((h) => ids.has(h.holeId)) };
     },
-    onSuccess: (res) => {
+    onError: (_e: unknown, t: TickVariables, ctx: TickContext | undefined) => {
+      // Undo only this tick, keeping any other tick made meanwhile.
+      const key = travelerKeys.detail(t.travelerId);
+      const now = qc.getQueryData<TravelerDetail>(key);
+      if (now && ctx?.before.length) qc.setQueryData<TravelerDetail>(key, mergeHoles(now, ctx.before));
+    },
+    onSuccess: (data: unknown, t: TickVariables) => {
+      const res = data as TickResult | undefined;
+      const key = travelerKeys.detail(t.travelerId);
       const now = qc.getQueryData<TravelerDetail>(key);
       if (now && res?.holes) qc.setQueryData<TravelerDetail>(key, mergeHoles(now, res.holes));
     },
-    onSettled: () => {
-      if (qc.isMutating({ mutationKey: travelerKeys.tick(travelerId) }) > 1) return undefined;
+    // A burst of taps refetches once, after the last one.
+    onSettled: (_d: unknown, _e: unknown, t: TickVariables) => {
+      if (qc.isMutating({ mutationKey: travelerKeys.tick(t.travelerId) }) > 1) return undefined;
       return Promise.all([
-        qc.invalidateQueries({ queryKey: key }),
+        qc.invalidateQueries({ queryKey: travelerKeys.detail(t.travelerId) }),
         qc.invalidateQueries({ queryKey: travelerKeys.list() }),
         qc.invalidateQueries({ queryKey: buildKeys.all }),
       ]);
     },
+  };
+}
+
+/** Sends the unsent ticks restored from the device, in their order (paused or not when they were kept). */
+export function resumeUnsentTicks(qc: QueryClient): Promise<unknown> {
+  const cache = qc.getMutationCache();
+  const notPaused = cache.getAll().filter((m) => isUnsentTick(m) && !m.state.isPaused);
+  return Promise.all([qc.resumePausedMutations(), ...notPaused.map((m) => m.continue().catch(() => undefined))]);
+}
+
+/** Ticks an earlier version of the app kept under a key of its own: handed to the query client once, in order. */
+export async function adoptEarlierTicks(qc: QueryClient): Promise<void> {
+  const old = await readJson<unknown[]>(storageKeys.tickOutbox);
+  if (!Array.isArray(old)) return;
+  for (const x of old.slice(0, 5000)) {
+    const t = x as Partial<TickVariables>;
+    const parsed = tickHolesInput.safeParse(t);
+    if (!parsed.success || typeof t.travelerId !== 'string' || typeof t.at !== 'string') continue;
+    void qc
+      .getMutationCache()
+      .build(qc, { mutationKey: travelerKeys.tick(t.travelerId) })
+      .execute({ ...parsed.data, travelerId: t.travelerId, at: t.at })
+      .catch(() => undefined);
+  }
+  await removeKey(storageKeys.tickOutbox);
+}
+
+/** Ticking holes on one part: `mutate` takes the holes and their new state and stamps the tick with the device's time. */
+export function useTravelerTickMutation(travelerId: string) {
+  const qc = useQueryClient();
+  // The same options as the registered defaults, so the hook works on any client (tests make their own).
+  const options = useMemo(() => tickMutationOptions(qc), [qc]);
+  const m = useMutation<TickResult, Error, TickVariables, TickContext>({
+    ...options,
+    mutationKey: travelerKeys.tick(travelerId),
   });
+  const send = m.mutate;
+  const mutate = useCallback(
+    (input: TickHolesInput, opts?: MutateOptions<TickResult, Error, TickVariables, TickContext>) =>
+      send({ holeIds: input.holeIds, status: input.status, travelerId, at: new Date().toISOString() }, opts),
+    [send, travelerId],
+  );
+  return { ...m, mutate };
+}
+
+/**
+ * The ticks of one part that could not get through yet (no signal, the server down, a sign-in to
+ * renew), and the last refusal of one, for the bench to show; dismissing forgets the refusals.
+ */
+export function useTickQueue(travelerId: string): {
+  waiting: TickVariables[];
+  refused: string | null;
+  dismissRefused: () => void;
+} {
+  const qc = useQueryClient();
+  const key = travelerKeys.tick(travelerId);
+  const waiting = useMutationState({
+    filters: { mutationKey: key, status: 'pending', predicate: (m) => m.state.isPaused || m.state.failureCount > 0 },
+    select: (m) => m.state.variables as TickVariables,
+  });
+  const refused = useMutationState({
+    filters: { mutationKey: key, status: 'error' },
+    select: (m) => {
+      const t = m.state.variables as TickVariables;
+      return `Not saved: ${errorMessage(m.state.error)} The tick of ${t.holeIds.join(', ')} was taken back.`;
+    },
+  });
+  const dismissRefused = useCallback(() => {
+    const cache = qc.getMutationCache();
+    for (const m of cache.findAll({ mutationKey: travelerKeys.tick(travelerId), status: 'error' })) cache.remove(m);
+  }, [qc, travelerId]);
+  return { waiting, refused: refused.at(-1) ?? null, dismissRefused };
 }
 
 export function useTravelerStepMutation(travelerId: string) {

@@ -1,5 +1,5 @@
 import type { BuildLogEntry } from '../../db/contracts';
-import { zonedDateTime } from './zoned-time';
+import { zonedDateTime } from '../../lib/zoned-time';
 
 /**
  * RFC 4180: a field with a comma, quote, CR or LF goes in double quotes with its quotes doubled.

@@ -1,7 +1,7 @@
 import type { Writable } from 'node:stream';
 import PDFDocument from 'pdfkit';
 import { buildLogCaution, buildLogKindLabels, type BuildLogEntry, type BuildSummary } from '../../db/contracts';
-import { longDay, zonedDateTime } from './zoned-time';
+import { longDay, zonedDateTime } from '../../lib/zoned-time';
 
 export type PdfOptions = {
   tz: string;

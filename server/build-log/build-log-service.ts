@@ -40,7 +40,7 @@ import {
   type LogSource,
   type LogWindow,
 } from './build-log-repository';
-import { nextDay, startOfDay } from './zoned-time';
+import { nextDay, startOfDay } from '../../lib/zoned-time';
 
 type Deps = Pick<AppContext, 'db' | 'signer' | 'storage'>;
 type BenchRow = Awaited<ReturnType<typeof listBenchEvents>>[number];

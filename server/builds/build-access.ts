@@ -28,33 +28,9 @@ export function visibleBuilds(db: Db, user: Viewer): SQL {
 }
 
 /**
- * Where the person stands towards one build, which decides what they may do on it: a builder or an
- * inspector by membership, the supplier's engineer of the kit's own organisation as design authority.
- */
-export async function placeOnBuild(db: Db, user: Express.User, buildId: string): Promise<BuildPlace> {
-  switch (user.role) {
-    case 'supplier': {
-      const [b] = await db.select({ organizationId: builds.organizationId }).from(builds).where(eq(builds.id, buildId));
-      return b && user.organizationId && b.organizationId === user.organizationId ? 'design_authority' : 'none';
-    }
-    case 'builder':
-    case 'inspector': {
-      const [m] = await db
-        .select({ role: buildMembers.role })
-        .from(buildMembers)
-        .where(
-          and(eq(buildMembers.buildId, buildId), eq(buildMembers.userId, user.id), eq(buildMembers.role, user.role)),
-        );
-      return m ? m.role : 'none';
-    }
-    case 'admin':
-      return 'none';
-  }
-}
-
-/**
- * The same place as `placeOnBuild`, as a column of a query that already reads `builds`: the part's
- * own read answers it, so a request does not look the person's place up in a statement of its own.
+ * The same place as `placeOnBuild` (builds-repository.ts), as a column of a query that already reads
+ * `builds`: the part's own read answers it, so a request does not look the person's place up in a
+ * statement of its own.
  */
 export function placeColumn(user: Viewer): SQL<BuildPlace> {
   switch (user.role) {

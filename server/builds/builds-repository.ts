@@ -17,6 +17,7 @@ import {
 import {
   holesDoneStatuses,
   openFindingStatuses,
+  type BuildPlace,
   type BuildSummary,
   type BuildWork,
   type MemberPlace,
@@ -153,12 +154,19 @@ export async function findBuildRow(db: Db, buildId: string) {
   return row;
 }
 
-export async function kitSerialTaken(db: Db, kitSerial: string, except: string) {
+/** Whether a build (other than `except`, when given) has this kit serial. */
+export async function kitSerialTaken(db: Db, kitSerial: string, except?: string) {
   const rows = await db
     .select({ id: builds.id })
     .from(builds)
-    .where(and(eq(builds.kitSerial, kitSerial), ne(builds.id, except)));
+    .where(and(eq(builds.kitSerial, kitSerial), except ? ne(builds.id, except) : undefined));
   return rows.length > 0;
+}
+
+/** A new build; its row. */
+export async function insertBuild(db: Db, values: typeof builds.$inferInsert) {
+  const [row] = await db.insert(builds).values(values).returning();
+  return row;
 }
 
 /** The build's new serial, and its travelers' serials that were made from the old one (kit serial, dash, part). */
@@ -185,4 +193,30 @@ export async function setBuildNote(db: Db, buildId: string, note: string) {
 export async function deleteBuild(db: Db, buildId: string) {
   await db.delete(invitations).where(and(eq(invitations.buildId, buildId), isNull(invitations.acceptedAt)));
   await db.delete(builds).where(eq(builds.id, buildId));
+}
+
+/**
+ * Where the person stands towards one build, which decides what they may do on it: a builder or an
+ * inspector by membership, the supplier's engineer of the kit's own organisation as design authority.
+ * (The same rule as a column of a query that reads `builds`: placeColumn in build-access.ts.)
+ */
+export async function placeOnBuild(db: Db, user: Express.User, buildId: string): Promise<BuildPlace> {
+  switch (user.role) {
+    case 'supplier': {
+      const [b] = await db.select({ organizationId: builds.organizationId }).from(builds).where(eq(builds.id, buildId));
+      return b && user.organizationId && b.organizationId === user.organizationId ? 'design_authority' : 'none';
+    }
+    case 'builder':
+    case 'inspector': {
+      const [m] = await db
+        .select({ role: buildMembers.role })
+        .from(buildMembers)
+        .where(
+          and(eq(buildMembers.buildId, buildId), eq(buildMembers.userId, user.id), eq(buildMembers.role, user.role)),
+        );
+      return m ? m.role : 'none';
+    }
+    case 'admin':
+      return 'none';
+  }
 }

@@ -1,4 +1,3 @@
-import { and, eq } from 'drizzle-orm';
 import {
   allowedBuildActions,
   allowedBuildPeopleActions,
@@ -16,17 +15,18 @@ import {
   type PageQuery,
 } from '../../db/contracts';
 import { withTransaction, type Db, type Tx } from '../../db';
-import { builds, designRevisions, partDesigns } from '../../db/schema';
 import type { AppContext } from '../context';
 import { invite } from '../people/invitations';
 import { addBuildMember, findBuildBrief, findUserByEmail, listPendingInvitations } from '../people/people-repository';
 import { badRequest, conflict, forbidden, notFound } from '../http-error';
 import { kitsService } from '../kits/kits-service';
+import { listPublishedParts } from '../designs/designs-repository';
 import { insertTraveler, listTravelers } from '../travelers/travelers-repository';
 import {
   buildWork,
   deleteBuild,
   findBuildRow,
+  insertBuild,
   insertBuildEvent,
   kitSerialTaken,
   listBuildMembers,
@@ -89,7 +89,7 @@ export const buildsService = (ctx: Deps) => {
 
   /** The build locked, and the reader's right to change its people checked on it. */
   async function forPeopleChange(tx: Db, user: Express.User, buildId: string, action: BuildPeopleAction) {
-    const [visible] = await listVisibleBuilds(db, user, buildId);
+    const [visible] = await listVisibleBuilds(tx, user, buildId);
     if (!visible) throw notFound('build');
     const build = await lockBuild(tx, buildId);
     const members = await listBuildMembers(tx, buildId);
@@ -225,29 +225,21 @@ export const buildsService = (ctx: Deps) => {
      */
     async create(user: Express.User, input: BuildBody) {
       await kits.get(user, input.kitModelId);
-      const revisions = await db
-        .select()
-        .from(designRevisions)
-        .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
-        .where(and(eq(partDesigns.kitModelId, input.kitModelId), eq(designRevisions.status, 'published')));
+      const revisions = await listPublishedParts(db, input.kitModelId);
       if (revisions.length === 0)
         throw badRequest('this kit has no published part designs yet: publish a revision first', {
           kitModelId: 'no published parts',
         });
 
       const id = await withTransaction(pool, async (tx) => {
-        const clash = await tx.db.select({ id: builds.id }).from(builds).where(eq(builds.kitSerial, input.kitSerial));
-        if (clash.length)
+        if (await kitSerialTaken(tx.db, input.kitSerial))
           throw conflict(`kit serial ${input.kitSerial} is already shipped`, { kitSerial: 'already used' });
-        const [build] = await tx.db
-          .insert(builds)
-          .values({
-            organizationId: user.organizationId!,
-            kitModelId: input.kitModelId,
-            kitSerial: input.kitSerial,
-            createdBy: user.id,
-          })
-          .returning();
+        const build = await insertBuild(tx.db, {
+          organizationId: user.organizationId!,
+          kitModelId: input.kitModelId,
+          kitSerial: input.kitSerial,
+          createdBy: user.id,
+        });
         await placePerson(
           tx,
           user,

@@ -6,9 +6,6 @@ import type { Db } from '../../db';
 import type { CouponTest as EngineCouponTest } from '../engineering';
 import { couponTests, designRevisions, kitModels, partDesigns, users } from '../../db/schema';
 
-/** A client or a transaction of it: the guards of a write read inside the transaction that writes. */
-type Conn = Db | Parameters<Parameters<Db['transaction']>[0]>[0];
-
 const corrector = alias(couponTests, 'corrector');
 const correctorUser = alias(users, 'corrector_user');
 
@@ -104,13 +101,13 @@ export async function pageCoupons(
 export const couponRowsUpTo = (db: Db, organizationId: string, filter: CouponFilter, max: number) =>
   couponRows(db, organizationId, filter, undefined, max + 1);
 
-export async function insertCoupon(db: Conn, values: typeof couponTests.$inferInsert) {
+export async function insertCoupon(db: Db, values: typeof couponTests.$inferInsert) {
   const [row] = await db.insert(couponTests).values(values).returning({ id: couponTests.id });
   return row.id;
 }
 
 /** One test row locked: a correction or a delete of it goes one at a time. */
-export async function lockCoupon(db: Conn, id: string) {
+export async function lockCoupon(db: Db, id: string) {
   const [row] = await db.select().from(couponTests).where(eq(couponTests.id, id)).for('update');
   return row;
 }
@@ -123,12 +120,12 @@ export async function findCouponOrganization(db: Db, id: string) {
   return row?.organizationId;
 }
 
-export async function markSuperseded(db: Conn, id: string, byId: string) {
+export async function markSuperseded(db: Db, id: string, byId: string) {
   await db.update(couponTests).set({ supersededById: byId, supersededAt: new Date() }).where(eq(couponTests.id, id));
 }
 
 /** The entries a current one corrected, back to the first record, oldest last (bounded by `max`). */
-export async function correctionChain(db: Conn, currentId: string, max = 200) {
+export async function correctionChain(db: Db, currentId: string, max = 200) {
   const chain: (typeof couponTests.$inferSelect)[] = [];
   let next: string | null = currentId;
   // Each step finds the entry superseded by the last one: a chain is as long as the corrections made.
@@ -145,12 +142,12 @@ export async function correctionChain(db: Conn, currentId: string, max = 200) {
   return chain;
 }
 
-export async function deleteCoupons(db: Conn, ids: string[]) {
+export async function deleteCoupons(db: Db, ids: string[]) {
   if (ids.length) await db.delete(couponTests).where(inArray(couponTests.id, ids));
 }
 
 /** Published (or since superseded) revisions of the supplier's parts, with whether a study made them. */
-export const listPublishedRevisions = (db: Conn, organizationId: string) =>
+export const listPublishedRevisions = (db: Db, organizationId: string) =>
   db
     .select({
       partNumber: partDesigns.partNumber,

@@ -9,7 +9,7 @@ import {
   type PageQuery,
 } from '../../db/contracts';
 import { groupCouponAllowables } from '../engineering';
-import type { Db } from '../../db';
+import { withTransaction, type Db } from '../../db';
 import { organizationOf } from '../auth/organization';
 import { conflict, HttpError, notFound } from '../http-error';
 import {
@@ -119,7 +119,7 @@ export const couponsService = (db: Db) => {
     async correct(user: Express.User, id: string, input: CouponBody & { reason: string }) {
       const organizationId = await own(user, id);
       const { reason, ...body } = input;
-      const newId = await db.transaction(async (tx) => {
+      const newId = await withTransaction(db, async ({ db: tx }) => {
         const old = await lockCoupon(tx, id);
         const why = couponCorrectRefusal({ superseded: old.supersededById !== null });
         if (why) throw conflict(why);
@@ -133,7 +133,7 @@ export const couponsService = (db: Db) => {
     /** Deletes a test (its corrected entries with it) that no published revision may rest on; otherwise 409 naming them. */
     async remove(user: Express.User, id: string) {
       const organizationId = await own(user, id);
-      await db.transaction(async (tx) => {
+      await withTransaction(db, async ({ db: tx }) => {
         const chain = await correctionChain(tx, id);
         if (!chain.length) throw notFound('coupon test');
         const revisions = await listPublishedRevisions(tx, organizationId);

@@ -1,4 +1,3 @@
-import { and, eq } from 'drizzle-orm';
 import {
   allowedRevisionActions,
   revisionActionRefusal,
@@ -11,12 +10,25 @@ import {
   type Revision,
   type RevisionInput,
 } from '../../db/contracts';
-import type { Db } from '../../db';
-import { designRevisions, partDesigns } from '../../db/schema';
+import { withTransaction, type Db } from '../../db';
 import { badRequest, conflict, notFound } from '../http-error';
 import { checkLayout } from './layout-check';
 import { kitsService } from '../kits/kits-service';
-import { findDesign, findRevision, listDesignFindingHoles, listRevisions, pageDesigns } from './designs-repository';
+import {
+  deleteDraftRevision,
+  findDesign,
+  findRevision,
+  insertDesignWithFirstRevision,
+  insertRevision,
+  listDesignFindingHoles,
+  listRevisions,
+  lockRevisionLetters,
+  lockRevisionStatus,
+  pageDesigns,
+  partNumberTaken,
+  publishRevision,
+  updateDraftRevision,
+} from './designs-repository';
 import { nextRevisionLetter } from './revision-letters';
 
 type RevisionBody = Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & { steps: string[]; changeNote: string };
@@ -95,25 +107,16 @@ export const designsService = (db: Db) => {
     async create(user: Express.User, input: { design: Required<PartDesignInput>; revision: RevisionBody }) {
       await kits.get(user, input.design.kitModelId);
       checkLayout(input.revision, 'revision.');
-      const id = await db.transaction(async (tx) => {
-        const clash = await tx
-          .select({ id: partDesigns.id })
-          .from(partDesigns)
-          .where(
-            and(
-              eq(partDesigns.kitModelId, input.design.kitModelId),
-              eq(partDesigns.partNumber, input.design.partNumber),
-            ),
-          );
-        if (clash.length)
+      const id = await withTransaction(db, async (tx) => {
+        if (await partNumberTaken(tx.db, input.design.kitModelId, input.design.partNumber))
           throw conflict(`part number ${input.design.partNumber} already exists in this kit`, {
             'design.partNumber': 'already used in this kit',
           });
-        const [design] = await tx.insert(partDesigns).values(input.design).returning();
-        await tx
-          .insert(designRevisions)
-          .values({ ...input.revision, partDesignId: design.id, letter: 'A', createdBy: user.id });
-        return design.id;
+        return insertDesignWithFirstRevision(tx.db, input.design, {
+          ...input.revision,
+          letter: 'A',
+          createdBy: user.id,
+        });
       });
       return detail(user, id);
     },
@@ -123,25 +126,17 @@ export const designsService = (db: Db) => {
       checkLayout(body);
       if (body.changeNote.length < 3)
         throw badRequest('a new revision needs a change note', { changeNote: 'say what changed and why' });
-      const id = await db.transaction(async (tx) => {
-        const existing = await tx
-          .select({ letter: designRevisions.letter, status: designRevisions.status })
-          .from(designRevisions)
-          .where(eq(designRevisions.partDesignId, designId))
-          .for('update');
+      const id = await withTransaction(db, async (tx) => {
+        const existing = await lockRevisionLetters(tx.db, designId);
         const draft = existing.find((r) => r.status === 'draft');
         if (draft) throw conflict(`revision ${draft.letter} is still a draft: edit or publish it first`);
-        const [row] = await tx
-          .insert(designRevisions)
-          .values({
-            ...body,
-            ...engineering,
-            partDesignId: designId,
-            letter: nextRevisionLetter(existing.map((r) => r.letter)),
-            createdBy: user.id,
-          })
-          .returning({ id: designRevisions.id });
-        return row.id;
+        return insertRevision(tx.db, {
+          ...body,
+          ...engineering,
+          partDesignId: designId,
+          letter: nextRevisionLetter(existing.map((r) => r.letter)),
+          createdBy: user.id,
+        });
       });
       return serialiseRevision((await findRevision(db, id))!);
     },
@@ -151,12 +146,8 @@ export const designsService = (db: Db) => {
       if (revision.status !== 'draft') throw frozen(revision.letter, revision.status);
       checkLayout(body);
       // The status guard in the WHERE makes a publish that slips in between win: the edit then changes nothing.
-      const updated = await db
-        .update(designRevisions)
-        .set({ ...body, ...engineering })
-        .where(and(eq(designRevisions.id, revisionId), eq(designRevisions.status, 'draft')))
-        .returning({ id: designRevisions.id });
-      if (!updated.length) throw frozen(revision.letter, 'published');
+      if (!(await updateDraftRevision(db, revisionId, { ...body, ...engineering })))
+        throw frozen(revision.letter, 'published');
       return serialiseRevision((await findRevision(db, revisionId))!);
     },
 
@@ -168,34 +159,19 @@ export const designsService = (db: Db) => {
       const revision = await ownRevision(user, revisionId);
       if (revision.status !== 'draft') throw frozen(revision.letter, revision.status);
       // The status guard in the WHERE: a publish that slips in first wins, and nothing is deleted.
-      const gone = await db
-        .delete(designRevisions)
-        .where(and(eq(designRevisions.id, revisionId), eq(designRevisions.status, 'draft')))
-        .returning({ id: designRevisions.id });
-      if (!gone.length) throw frozen(revision.letter, 'published');
+      if (!(await deleteDraftRevision(db, revisionId))) throw frozen(revision.letter, 'published');
       return detail(user, revision.partDesignId);
     },
 
     async publish(user: Express.User, revisionId: string) {
       const revision = await ownRevision(user, revisionId);
       if (revision.status !== 'draft') throw frozen(revision.letter, revision.status);
-      await db.transaction(async (tx) => {
+      await withTransaction(db, async (tx) => {
         // Checked again on the locked row: a discard or another publish that came first wins.
-        const [row] = await tx
-          .select({ status: designRevisions.status })
-          .from(designRevisions)
-          .where(eq(designRevisions.id, revisionId))
-          .for('update');
-        if (!row) throw notFound('revision');
-        if (row.status !== 'draft') throw frozen(revision.letter, row.status);
-        await tx
-          .update(designRevisions)
-          .set({ status: 'superseded' })
-          .where(and(eq(designRevisions.partDesignId, revision.partDesignId), eq(designRevisions.status, 'published')));
-        await tx
-          .update(designRevisions)
-          .set({ status: 'published', publishedAt: new Date(), publishedBy: user.id })
-          .where(eq(designRevisions.id, revisionId));
+        const status = await lockRevisionStatus(tx.db, revisionId);
+        if (!status) throw notFound('revision');
+        if (status !== 'draft') throw frozen(revision.letter, status);
+        await publishRevision(tx.db, revisionId, revision.partDesignId, user.id);
       });
       return serialiseRevision((await findRevision(db, revisionId))!);
     },

@@ -1,20 +1,15 @@
 import { EngineeringInputError } from './errors';
-import { ENGINEERING_CAUTION, envelope, type EngineeringResult } from './result';
+import { ENGINEERING_CAUTION, envelope } from './result';
 import { evaluateSpline, naturalSpline } from './spline';
 import { requireCount, requireStudyBound, STUDY_BOUNDS } from './bounds';
 import { requireArray } from './validate';
+import type { AirfoilInput, EngineeringResult, Point, Surface } from '../../lib/engineering-results';
 
 /**
  * Airfoil geometry at unit chord, as one contour in the usual file order: trailing edge, over the upper
  * surface to the leading edge, back along the lower surface to the trailing edge (counter-clockwise).
  * NACA sections follow NACA Report 824; uploaded coordinates are validated, normalised and re-panelled.
  */
-
-export type Point = [number, number];
-export type Surface = 'upper' | 'lower';
-
-export type AirfoilInput =
-  { kind: 'naca'; designation: string } | { kind: 'coordinates'; points: Point[]; name?: string };
 
 export interface AirfoilGeometry {
   name: string;

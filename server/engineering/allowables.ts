@@ -4,13 +4,13 @@ import {
   groupCouponAllowables,
   matchedCouponAllowables,
   validateCoupons,
-  type CouponTest,
 } from './coupons';
 import { EngineeringInputError } from './errors';
 import { layoutRules } from './layout';
-import { findMaterial, findRivet, type RivetSpec, type SheetMaterial } from './materials';
-import { ENGINEERING_CAUTION, type EngineeringResult } from './result';
+import { findMaterial, findRivet } from './materials';
+import { ENGINEERING_CAUTION } from './result';
 import { requireInRange, requireNonNegative, requirePositive } from './validate';
+import type { CouponTest, EngineeringResult, RivetSpec, SheetMaterial } from '../../lib/engineering-results';
 
 /**
  * Allowable loads of one rivet in one flange: rivet single shear, sheet bearing by e/D, rivet tension and

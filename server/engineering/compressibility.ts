@@ -1,9 +1,10 @@
 import { densitySlugPerFt3, SEA_LEVEL_DENSITY_SLUG_FT3, speedOfSoundFtPerS } from './atmosphere';
 import { requireCount, requireWingBound, WING_BOUNDS } from './bounds';
 import { EngineeringInputError } from './errors';
-import type { CpSample, PanelSolution, SurfaceSolution } from './panel-method';
+import type { PanelSolution, SurfaceSolution } from './panel-method';
 import { FT_PER_S_PER_KNOT } from './units';
 import { requireArray, requireFinite } from './validate';
+import { COMPRESSIBILITY_RULES, type CompressibilityRule, type CpSample } from '../../lib/engineering-results';
 
 /**
  * Compressibility corrections of an incompressible pressure coefficient Cp₀ (from the panel method or a
@@ -20,9 +21,6 @@ import { requireArray, requireFinite } from './validate';
  * Mach from the engine's speeds: they are equivalent airspeeds, so the true airspeed is V_EAS/√σ with
  * σ = ρ/ρ₀ of the ISA troposphere, and M = V_TAS/a with a = a₀√θ (atmosphere.ts).
  */
-
-export const COMPRESSIBILITY_RULES = ['prandtl-glauert', 'karman-tsien'] as const;
-export type CompressibilityRule = (typeof COMPRESSIBILITY_RULES)[number];
 
 export const COMPRESSIBILITY_RULE_TEXT: Record<CompressibilityRule, string> = {
   'prandtl-glauert':

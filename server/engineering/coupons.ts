@@ -1,7 +1,13 @@
 import { EngineeringInputError } from './errors';
-import { ENGINEERING_CAUTION, type EngineeringResult } from './result';
+import { ENGINEERING_CAUTION } from './result';
 import { requireCount, requireStudyBound, STUDY_BOUNDS, type Bound } from './bounds';
 import { requireArray, requireOneOf, requirePositive } from './validate';
+import {
+  COUPON_OUTCOMES,
+  type CouponOutcome,
+  type CouponTest,
+  type EngineeringResult,
+} from '../../lib/engineering-results';
 
 /**
  * Pull-through allowables of a rivet in a thin flange, from the supplier's coupon tests (step 6 of the
@@ -12,20 +18,6 @@ import { requireArray, requireOneOf, requirePositive } from './validate';
  * above a load at which another coupon of the same set already did worse is not credited (scatter is
  * resolved towards the weaker coupon).
  */
-
-export const COUPON_OUTCOMES = ['no_deformation', 'slight_deformation', 'excessive_deformation', 'failure'] as const;
-export type CouponOutcome = (typeof COUPON_OUTCOMES)[number];
-
-export interface CouponTest {
-  material: string;
-  gaugeIn: number;
-  couponWidthIn?: number;
-  rivetSpec: string;
-  loadLb: number;
-  outcome: CouponOutcome;
-  note?: string;
-  photo?: string;
-}
 
 export interface CouponQuery {
   material: string;

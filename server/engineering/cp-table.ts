@@ -1,7 +1,8 @@
 import { EngineeringInputError } from './errors';
-import { interpolateCp, type CpSample } from './panel-method';
+import { interpolateCp } from './panel-method';
 import { requireCount, requireStudyBound, STUDY_BOUNDS } from './bounds';
 import { requireArray } from './validate';
+import type { CpSample, CpTableInput } from '../../lib/engineering-results';
 
 /**
  * A supplier's own pressure distribution (wind tunnel, or a viscous code) in place of the panel method:
@@ -10,10 +11,6 @@ import { requireArray } from './validate';
  * (its shape held), with a warning, scaling up being unconservative near stall. A condition with no table
  * of its sign is left to the panel method.
  */
-export interface CpTableInput {
-  cl: number;
-  rows: [number, number, number][];
-}
 
 export interface CpTable {
   cl: number;

@@ -1,69 +1,23 @@
 import { densitySlugPerFt3, dynamicPressurePsi, GRAVITY_FT_S2 } from './atmosphere';
 import { EngineeringInputError } from './errors';
 import { ASPECT_RATIO_RANGE, requireStudyBound, WING_LOADING_RANGE_PSF } from './bounds';
-import { ENGINEERING_CAUTION, type EngineeringResult } from './result';
+import { ENGINEERING_CAUTION } from './result';
 import { THIN_AIRFOIL_LIFT_SLOPE } from './thin-airfoil';
 import { inToFt, SQIN_PER_SQFT } from './units';
 import { requireNonNegative, requireOneOf, requirePositive } from './validate';
+import {
+  CATEGORIES,
+  type Category,
+  type DesignCondition,
+  type DesignConditionsResult,
+  type KitInput,
+} from '../../lib/engineering-results';
 
 /**
  * Flight-envelope design conditions after 14 CFR part 23 as written before the 2017 rewrite
  * (23.333, 23.335, 23.337, 23.341). The FAR formulas are in lb, ft², psf, ft/s and knots EAS; they are
  * evaluated in those units here and the conditions handed on carry q in psi.
  */
-
-export const CATEGORIES = ['normal', 'utility', 'acrobatic'] as const;
-export type Category = (typeof CATEGORIES)[number];
-
-export interface KitInput {
-  weightLb: number;
-  wingAreaSqFt: number;
-  /** Mean geometric chord of the wing, inches (the gust formula converts it to ft). */
-  meanChordIn: number;
-  /** Wing (3-D) lift-curve slope per radian; estimated from the aspect ratio when absent. */
-  liftSlopePerRad?: number;
-  stallSpeedKeas: number;
-  /** Design cruising speed VC; the rule minimum 33√(W/S) is used when absent or lower. */
-  cruiseSpeedKeas?: number;
-  /** Design dive speed VD; the rule minimum is used when absent or lower. */
-  diveSpeedKeas?: number;
-  category: Category;
-  /** Altitude of the gust conditions (density in the gust formula), ft; sea level when absent. */
-  altitudeFt?: number;
-}
-
-export interface DesignCondition {
-  id: string;
-  label: string;
-  kind: 'maneuver' | 'gust';
-  n: number;
-  speedKeas: number;
-  qPsi: number;
-  /** n·W/(q·S): the wing lift coefficient the condition needs (negative for down-loads). */
-  clNeeded: number;
-}
-
-export interface DesignConditionsResult extends EngineeringResult<KitInput> {
-  wingLoadingPsf: number;
-  loadFactors: { positive: number; negative: number };
-  speeds: {
-    stallKeas: number;
-    maneuveringKeas: number;
-    cruiseKeas: number;
-    diveKeas: number;
-    cruiseMinKeas: number;
-    diveMinKeas: number;
-  };
-  gust: {
-    liftSlopePerRad: number;
-    densitySlugFt3: number;
-    massRatio: number;
-    alleviationFactor: number;
-    atCruiseFps: number;
-    atDiveFps: number;
-  };
-  conditions: DesignCondition[];
-}
 
 const POSITIVE_FACTOR: Record<Category, (weightLb: number) => number> = {
   normal: (w) => Math.min(3.8, 2.1 + 24000 / (w + 10000)),

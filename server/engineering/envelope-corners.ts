@@ -1,14 +1,16 @@
 import { dynamicPressurePsi } from './atmosphere';
-import {
-  designConditions,
-  type Category,
-  type DesignCondition,
-  type DesignConditionsResult,
-  type KitInput,
-} from './design-conditions';
-import { flapConditions, type FlapInput } from './flap-conditions';
-import { ENGINEERING_CAUTION, type EngineeringResult } from './result';
+import { designConditions } from './design-conditions';
+import { flapConditions } from './flap-conditions';
+import { ENGINEERING_CAUTION } from './result';
 import { SQIN_PER_SQFT } from './units';
+import type {
+  Category,
+  DesignCondition,
+  DesignConditionsResult,
+  EngineeringResult,
+  FlapInput,
+  KitInput,
+} from '../../lib/engineering-results';
 
 /**
  * The negative corners of the flight envelope at VC and VD (14 CFR 23.333(d), the flight envelope drawn

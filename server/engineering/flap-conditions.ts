@@ -1,15 +1,16 @@
 import { requireWingBound } from './bounds';
-import {
-  designConditions,
-  gustLoadFactors,
-  type DesignCondition,
-  type DesignConditionsResult,
-  type KitInput,
-} from './design-conditions';
+import { designConditions, gustLoadFactors } from './design-conditions';
 import { dynamicPressurePsi } from './atmosphere';
 import { EngineeringInputError } from './errors';
-import { ENGINEERING_CAUTION, type EngineeringResult } from './result';
+import { ENGINEERING_CAUTION } from './result';
 import { inToFt, SQIN_PER_SQFT } from './units';
+import type {
+  DesignCondition,
+  DesignConditionsResult,
+  EngineeringResult,
+  FlapInput,
+  KitInput,
+} from '../../lib/engineering-results';
 
 /**
  * Flaps-extended design conditions after 14 CFR 23.345 (High lift devices) as written before the 2017
@@ -43,13 +44,6 @@ export const FLAP_MANEUVER_FACTOR = 2.0;
 export const FLAP_GUST_FPS = 25;
 /** 23.345(b), from memory: VF ≥ 1.4 VS and ≥ 1.8 VSF. */
 export const FLAP_SPEED_FACTORS = { clean: 1.4, flapped: 1.8 } as const;
-
-export interface FlapInput {
-  /** VSF: computed stalling speed with flaps fully extended at the design weight, KEAS */
-  stallSpeedKeas: number;
-  /** VF chosen by the supplier; the rule minimum is used when absent or lower */
-  designSpeedKeas?: number;
-}
 
 export interface FlapConditionsResult extends EngineeringResult<{ kit: KitInput; flaps: FlapInput }> {
   /** VF used, and the rule minimum max(1.4 VS, 1.8 VSF) */

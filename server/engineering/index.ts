@@ -1,4 +1,71 @@
 // Public API of the engineering core: pure functions, plain data in and out, no I/O.
+
+// The input and result shapes are defined once, beside the app's code, for the server and the screens alike.
+export {
+  type AirfoilInput,
+  type AllowableSummary,
+  type CandidateSettings,
+  CATEGORIES,
+  type Category,
+  COMPRESSIBILITY_RULES,
+  type CompressibilityRule,
+  type CountersinkCheck,
+  COUPON_OUTCOMES,
+  type CouponOutcome,
+  type CouponTest,
+  type CpSample,
+  type CpTableInput,
+  type DesignCondition,
+  type DesignConditionsResult,
+  type EngineeringResult,
+  type EnvelopePoint,
+  type FastenerLineInput,
+  type FlapInput,
+  type InsufficientRange,
+  type KitInput,
+  type LineLoads,
+  type LineSchedule,
+  type PitchScheduleInput,
+  type PitchScheduleResult,
+  type Planform,
+  type PlanformInput,
+  type Point,
+  type PressureRule,
+  type RankBy,
+  type RepairAlternative,
+  type RepairCheckInput,
+  type RepairCheckResult,
+  type RepairHoleInput,
+  type RepairHoleResult,
+  type ReworkInput,
+  type ReworkMargins,
+  type ReworkResult,
+  type RibInput,
+  type RibStudyInput,
+  type RibStudyResult,
+  type RivetSpec,
+  type ScheduleHole,
+  type ScheduleSettings,
+  type ScheduleZone,
+  type SheetMaterial,
+  type SkinCandidate,
+  type SkinLineSchedule,
+  type SkinPanelResult,
+  type StationLoad,
+  type StudyCandidate,
+  type StudyCondition,
+  type StudyWork,
+  type Surface,
+  type TailInput,
+  type TradeCandidate,
+  type TradeRow,
+  type WingCondition,
+  type WingRib,
+  type WingRibInput,
+  type WingStudyInput,
+  type WingStudyResult,
+  type WingTradeRow,
+} from '../../lib/engineering-results';
 export { EngineeringInputError, fieldAt } from './errors';
 export {
   requireCount,
@@ -18,8 +85,8 @@ export {
   type WingBoundKey,
 } from './bounds';
 export { roundSignificant, roundStored, STORED_SIGNIFICANT_DIGITS, STORED_ZERO } from './rounding';
-export { estimateStudyWork, requireStudyBudget, type StudyWork } from './study-work';
-export { ENGINEERING_CAUTION, marginOfSafety, type EngineeringResult } from './result';
+export { estimateStudyWork, requireStudyBudget } from './study-work';
+export { ENGINEERING_CAUTION, marginOfSafety } from './result';
 export * from './units';
 export {
   densitySlugPerFt3,
@@ -32,7 +99,6 @@ export {
   GRAVITY_FT_S2,
 } from './atmosphere';
 export {
-  CATEGORIES,
   designConditions,
   estimatedWingLiftSlope,
   gustLoadFactors,
@@ -41,11 +107,7 @@ export {
   maneuveringSpeedKeas,
   minimumCruiseSpeedKeas,
   minimumDiveSpeedKeas,
-  type Category,
-  type DesignCondition,
-  type DesignConditionsResult,
   type GustInput,
-  type KitInput,
 } from './design-conditions';
 export {
   flapConditions,
@@ -54,7 +116,6 @@ export {
   FLAP_MANEUVER_FACTOR,
   FLAP_SPEED_FACTORS,
   type FlapConditionsResult,
-  type FlapInput,
 } from './flap-conditions';
 export {
   envelopeConditions,
@@ -74,8 +135,6 @@ export {
   MAX_SCHRENK_STATIONS,
   SCHRENK_ASSUMPTIONS,
   SCHRENK_RULE,
-  type Planform,
-  type PlanformInput,
   type SchrenkResult,
   type SchrenkStation,
 } from './schrenk';
@@ -90,11 +149,9 @@ export {
   requireMach,
   trueAirspeedKnots,
   vacuumPressureCoefficient,
-  COMPRESSIBILITY_RULES,
   COMPRESSIBILITY_RULE_TEXT,
   GAMMA_AIR,
   MAX_CP_SAMPLES,
-  type CompressibilityRule,
   type CorrectedDistribution,
 } from './compressibility';
 export {
@@ -139,10 +196,7 @@ export {
   MIN_AIRFOIL_POINTS,
   MAX_TRAILING_EDGE_GAP,
   type AirfoilGeometry,
-  type AirfoilInput,
   type AirfoilResult,
-  type Point,
-  type Surface,
 } from './airfoil';
 export { luFactor, luSolve, solveLinear, SingularMatrixError, type LuFactors } from './linear-solve';
 export {
@@ -152,13 +206,12 @@ export {
   liftCoefficientAt,
   pressureDistribution,
   solvePanelMethod,
-  type CpSample,
   type PanelSolution,
   type PressureDistribution,
 } from './panel-method';
 export { flatPlatePressureJump, thinAirfoilLiftCoefficient, THIN_AIRFOIL_LIFT_SLOPE } from './thin-airfoil';
 export { joukowskiSection, type JoukowskiSection } from './joukowski';
-export { cpFromTables, validateCpTables, type CpTable, type CpTableInput } from './cp-table';
+export { cpFromTables, validateCpTables, type CpTable } from './cp-table';
 export {
   loadEnvelope,
   rivetShearLb,
@@ -176,8 +229,6 @@ export {
   MATERIALS,
   RIVETS,
   STOCK_GAUGES_IN,
-  type RivetSpec,
-  type SheetMaterial,
 } from './materials';
 export {
   layoutRules,
@@ -192,11 +243,8 @@ export {
   groupCouponAllowables,
   validateCoupons,
   validateCouponTest,
-  COUPON_OUTCOMES,
   type CouponAllowables,
   type CouponGroup,
-  type CouponOutcome,
-  type CouponTest,
 } from './coupons';
 export {
   bearingStrengthPsi,
@@ -210,70 +258,13 @@ export {
   type JointAllowables,
   type JointInput,
 } from './allowables';
-export {
-  pitchGridSize,
-  pitchSchedule,
-  requirePitchGrid,
-  type AllowableSummary,
-  type PitchScheduleInput,
-  type PitchScheduleResult,
-  type ScheduleHole,
-  type ScheduleZone,
-  type StationLoad,
-} from './pitch-schedule';
-export { tradeStudy, type RankBy, type TradeCandidate, type TradeRow, type TradeStudyResult } from './trade-study';
-export {
-  LAYOUT_TOLERANCE_IN,
-  reworkCheck,
-  type ReworkInput,
-  type ReworkMargins,
-  type ReworkResult,
-} from './rework-check';
-export {
-  countersunkHeadHeightIn,
-  repairCheck,
-  COUNTERSINK_MAX_DEPTH_FRACTION,
-  MAX_REPAIR_HOLES,
-  type CountersinkCheck,
-  type RepairAlternative,
-  type RepairCheckInput,
-  type RepairCheckResult,
-  type RepairHoleInput,
-  type RepairHoleResult,
-} from './repair-check';
-export { lineStations, ribOutline, type FastenerLineInput } from './rib-geometry';
+export { pitchGridSize, pitchSchedule, requirePitchGrid } from './pitch-schedule';
+export { tradeStudy, type TradeStudyResult } from './trade-study';
+export { LAYOUT_TOLERANCE_IN, reworkCheck } from './rework-check';
+export { countersunkHeadHeightIn, repairCheck, COUNTERSINK_MAX_DEPTH_FRACTION, MAX_REPAIR_HOLES } from './repair-check';
+export { lineStations, ribOutline } from './rib-geometry';
 export { coarsenRuns, estimateHoles, groupIntoZones, placeHoles, type Zone } from './zoning';
-export {
-  ribCandidate,
-  ribStudy,
-  PRESSURE_RULES,
-  type PressureRule,
-  type EnvelopePoint,
-  type LineLoads,
-  type LineSchedule,
-  type RibInput,
-  type RibStudyInput,
-  type RibStudyResult,
-  type StudyCandidate,
-  type StudyCondition,
-} from './rib-study';
-export {
-  wingStudy,
-  MAX_WING_RIBS,
-  type WingCondition,
-  type WingRib,
-  type WingRibInput,
-  type WingStudyInput,
-  type WingStudyResult,
-  type WingTradeRow,
-} from './wing-study';
-export {
-  compressionBucklingCoefficient,
-  effectiveWidthIn,
-  skinPanelStudy,
-  type SkinCandidate,
-  type SkinLineSchedule,
-  type SkinPanelResult,
-  type SkinPanelSpec,
-} from './skin-panel';
+export { ribCandidate, ribStudy, PRESSURE_RULES } from './rib-study';
+export { wingStudy, MAX_WING_RIBS } from './wing-study';
+export { compressionBucklingCoefficient, effectiveWidthIn, skinPanelStudy, type SkinPanelSpec } from './skin-panel';
 export { momentCoefficientAbout, spanwiseLoads, type SectionMoment, type StationLoads } from './wing-loads';

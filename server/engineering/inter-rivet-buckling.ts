@@ -1,9 +1,9 @@
 import { requireWingBound } from './bounds';
 import { EngineeringInputError } from './errors';
-import type { RivetSpec } from './materials';
 import { johnsonElasticFor, johnsonReduced } from './plate-buckling';
-import { envelope, marginOfSafety, type EngineeringResult } from './result';
+import { envelope, marginOfSafety } from './result';
 import { requireOneOf } from './validate';
+import type { EngineeringResult, RivetSpec } from '../../lib/engineering-results';
 
 /**
  * Inter-rivet buckling of compression skin: the strip of sheet between two rivets of a line buckles

@@ -1,4 +1,4 @@
-import type { Point, Surface } from './airfoil';
+import type { Point, Surface } from '../../lib/engineering-results';
 
 /**
  * The Joukowski airfoil and its exact potential flow, by conformal mapping z = ζ + b²/ζ of the flow about

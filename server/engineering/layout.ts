@@ -1,4 +1,4 @@
-import type { RivetSpec } from './materials';
+import type { RivetSpec } from '../../lib/engineering-results';
 
 /**
  * Rivet layout rules of FAA AC 43.13-1B chapter 4 and the AMT Handbook (FAA-H-8083-31): in terms of the

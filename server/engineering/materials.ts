@@ -1,4 +1,5 @@
 import { EngineeringInputError } from './errors';
+import type { RivetSpec, SheetMaterial } from '../../lib/engineering-results';
 
 /**
  * Sheet materials and rivets the core knows by name. A supplier may pass its own entries (same shape)
@@ -6,46 +7,6 @@ import { EngineeringInputError } from './errors';
  * numbers come from: several are as remembered from MMPDS / MIL-HDBK-5 or are typical trade values, and
  * must be checked against the supplier's approved data before they carry a design.
  */
-
-export interface SheetMaterial {
-  key: string;
-  description: string;
-  ftuPsi: number;
-  ftyPsi: number;
-  fsuPsi: number;
-  /** bearing ultimate and yield strengths at edge distance e/D = 1.5 and 2.0 */
-  fbruPsi: { e15: number; e20: number };
-  fbryPsi: { e15: number; e20: number };
-  densityLbPerIn3: number;
-  /** compressive yield strength, psi (buckling and crippling of compression skin) */
-  fcyPsi?: number;
-  /** elastic modulus in compression, psi */
-  compressiveModulusPsi?: number;
-  poissonRatio?: number;
-  source: string;
-}
-
-export interface RivetSpec {
-  code: string;
-  description: string;
-  kind: 'solid' | 'pulled';
-  /** family and dash size, for "the next size up" in a rework */
-  family: string;
-  dash: number;
-  countersunk: boolean;
-  nominalDiameterIn: number;
-  /** hole diameter the strengths are based on */
-  holeDiameterIn: number;
-  drill: { name: string; diameterIn: number };
-  /** solid rivets: shear strength of the driven rivet; single shear = F_su·π/4·d_hole² */
-  fsuPsi?: number;
-  /** tabulated ultimate single-shear strength, lb (pulled rivets) */
-  shearLb?: number;
-  /** tabulated ultimate tension strength, lb */
-  tensionLb?: number;
-  densityLbPerIn3: number;
-  source: string;
-}
 
 export const MATERIALS: SheetMaterial[] = [
   {

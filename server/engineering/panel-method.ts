@@ -1,6 +1,6 @@
-import type { Point, Surface } from './airfoil';
 import { EngineeringInputError } from './errors';
 import { luFactorInPlace, luSolve, SingularMatrixError } from './linear-solve';
+import type { CpSample, Point, Surface } from '../../lib/engineering-results';
 
 /**
  * Two-dimensional inviscid flow about an airfoil: linear-strength vortex panels in the stream-function
@@ -34,11 +34,6 @@ export interface PanelSolution {
   clSin: number;
   upper: SurfaceSolution;
   lower: SurfaceSolution;
-}
-
-export interface CpSample {
-  xc: number;
-  cp: number;
 }
 
 export interface PressureDistribution {

@@ -1,21 +1,23 @@
 import { jointAllowables, type JointAllowables } from './allowables';
-import type { CouponTest } from './coupons';
 import { EngineeringInputError } from './errors';
 import { layoutRules, layoutRuleText } from './layout';
-import { findRivet, type RivetSpec, type SheetMaterial } from './materials';
-import { ENGINEERING_CAUTION, type EngineeringResult } from './result';
+import { findRivet } from './materials';
+import { ENGINEERING_CAUTION } from './result';
 import { ULTIMATE_FACTOR } from './rivet-loads';
-import { prepareStations, StationCursor, type LoadWindow, type PreparedLine, type StationLoad } from './station-loads';
+import { prepareStations, StationCursor, type LoadWindow, type PreparedLine } from './station-loads';
 import { STUDY_BUDGET, requireStudyBound } from './bounds';
 import { coarsenRuns, groupIntoZones, placeHoles, type Zone } from './zoning';
+import type {
+  AllowableSummary,
+  InsufficientRange,
+  PitchScheduleInput,
+  PitchScheduleResult,
+  ScheduleHole,
+  ScheduleSettings,
+  ScheduleZone,
+} from '../../lib/engineering-results';
 
-export {
-  prepareColumns,
-  prepareStations,
-  type LineColumns,
-  type PreparedLine,
-  type StationLoad,
-} from './station-loads';
+export { prepareColumns, prepareStations, type LineColumns, type PreparedLine } from './station-loads';
 
 /**
  * The pitch schedule of one fastener line (step 7 of the chain): the pitch each station needs, clamped
@@ -23,110 +25,6 @@ export {
  * whose pitch never exceeds what any station in the zone needs; holes placed from the line's ends at the
  * edge distance; and, per zone, the worst rivet's loads, allowables and margins.
  */
-
-/** The supplier's layout choices for a line. */
-export interface ScheduleSettings {
-  /** largest pitch, in rivet diameters (typically 8 to 10) */
-  maxPitchDiameters: number;
-  pitchIncrementIn: number;
-  maxZones: number;
-}
-
-/**
- * What every study that schedules candidates takes beside its loads: the sheet, the gauge × rivet
- * candidates, the layout, the build-time proxy, and the supplier's coupons and catalogue data.
- */
-export interface CandidateSettings extends ScheduleSettings {
-  material: string;
-  gaugeCandidates: number[];
-  rivetCandidates: string[];
-  /** build-time proxy; 1.5 min per solid rivet and 1.0 per pulled rivet when absent */
-  minutesPerHole?: number;
-  coupons?: CouponTest[];
-  pullThroughFallbackFraction?: number;
-  materialData?: SheetMaterial[];
-  rivetData?: RivetSpec[];
-}
-
-export interface PitchScheduleInput extends ScheduleSettings {
-  line: string;
-  /** hole id prefix, "U" gives U-01, U-02…; from the line name when absent */
-  holePrefix?: string;
-  stations: StationLoad[];
-  material: string;
-  gaugeIn: number;
-  rivetSpec: string;
-  coupons?: CouponTest[];
-  pullThroughFallbackFraction?: number;
-  materialData?: SheetMaterial[];
-  rivetData?: RivetSpec[];
-}
-
-export interface ScheduleZone {
-  fromIn: number;
-  toIn: number;
-  fromAlongIn: number;
-  toAlongIn: number;
-  pitchIn: number;
-  count: number;
-  worstStationIn: number;
-  worstHoleId: string | null;
-  appliedLimitLb: number;
-  appliedUltimateLb: number;
-  limitAllowableLb: number;
-  ultimateAllowableLb: number;
-  appliedLimitShearLb: number;
-  msLimit: number | null;
-  msUltimate: number | null;
-}
-
-export interface ScheduleHole {
-  id: string;
-  line: string;
-  stationIn: number;
-  alongIn: number;
-  xIn?: number;
-  yIn?: number;
-  zone: number;
-  tributaryIn: number;
-  appliedLimitLb: number;
-  appliedUltimateLb: number;
-  appliedLimitShearLb: number;
-  msLimit: number | null;
-  msUltimate: number | null;
-}
-
-export interface InsufficientRange {
-  fromIn: number;
-  toIn: number;
-  /** the pitch the worst station there would need, in (below the 3D minimum) */
-  neededPitchIn: number;
-}
-
-export interface AllowableSummary {
-  tensionLimitLb: number;
-  tensionUltimateLb: number;
-  tensionBasis: 'coupons' | 'fallback';
-  tensionGoverning: string;
-  shearLimitLb: number;
-  shearUltimateLb: number;
-  shearGoverning: string;
-}
-
-export interface PitchScheduleResult extends EngineeringResult<PitchScheduleInput> {
-  line: string;
-  rivetSpec: string;
-  drill: { name: string; diameterIn: number };
-  gaugeIn: number;
-  feasible: boolean;
-  reasons: string[];
-  lengthIn: number;
-  layout: { edgeDistanceIn: number; minPitchIn: number; maxPitchIn: number; pitchIncrementIn: number };
-  allowables: AllowableSummary;
-  zones: ScheduleZone[];
-  holes: ScheduleHole[];
-  insufficient: InsufficientRange[];
-}
 
 const EPS = 1e-9;
 /** read once: an imported binding read in the hot loop costs a getter call once compiled to CommonJS (tsx, jest) */

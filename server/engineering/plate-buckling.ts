@@ -1,8 +1,9 @@
 import { requireWingBound } from './bounds';
 import { EngineeringInputError } from './errors';
-import { findMaterial, type SheetMaterial } from './materials';
-import { envelope, marginOfSafety, type EngineeringResult } from './result';
+import { findMaterial } from './materials';
+import { envelope, marginOfSafety } from './result';
 import { requireOneOf } from './validate';
+import type { EngineeringResult, SheetMaterial } from '../../lib/engineering-results';
 
 /**
  * Buckling of a flat skin panel between its supports (ribs, spars, stringers), after Timoshenko & Gere,

@@ -1,10 +1,18 @@
-import type { CouponTest } from './coupons';
 import { EngineeringInputError } from './errors';
 import { layoutRules } from './layout';
-import { findRivet, type RivetSpec, type SheetMaterial } from './materials';
-import { envelope, type EngineeringResult } from './result';
-import { LAYOUT_TOLERANCE_IN, reworkCheck, type ReworkMargins } from './rework-check';
+import { findRivet } from './materials';
+import { envelope } from './result';
+import { LAYOUT_TOLERANCE_IN, reworkCheck } from './rework-check';
 import { requireArray, requireFinite, requireInRange } from './validate';
+import type {
+  CountersinkCheck,
+  RepairAlternative,
+  RepairCheckInput,
+  RepairCheckResult,
+  RepairHoleInput,
+  RepairHoleResult,
+  RivetSpec,
+} from '../../lib/engineering-results';
 
 /**
  * The inspector's repair check over every hole of a finding: a finding often covers a run of holes
@@ -13,77 +21,6 @@ import { requireArray, requireFinite, requireInRange } from './validate';
  * measured where the inspector measured it; on top of that, the hole as measured must be cleaned up by
  * the new drill, and a countersunk head must leave the thin sheet a cylindrical bore.
  */
-
-export interface RepairHoleInput {
-  /** the hole's name on the traveler (U-04); 1–64 characters, unique within the finding */
-  holeId: string;
-  /** position along the fastener line, in; −1000…1000 */
-  stationIn: number;
-  /**
-   * previous and next hole, in; −1000…1000, null where there is none. They may be holes of this same
-   * finding (a run drilled out together): the pitch to them is checked against 3D of the new rivet all
-   * the same, since both will be at the new size.
-   */
-  neighbourStationsIn: [number | null, number | null];
-  /** nominal edge distance from the drawing, in; above 0, at most 10 */
-  edgeDistanceIn: number;
-  /** what the inspector measured: hole diameter 0.02–1 in, edge distance above 0, at most 10 in */
-  measured?: { holeDiameterIn?: number; edgeDistanceIn?: number };
-  /** limit loads on the rivet, lb; 0–100000 */
-  appliedLimitTensionLb?: number;
-  appliedLimitShearLb?: number;
-}
-
-export interface RepairCheckInput {
-  rivetSpec: string;
-  proposedSpec: string;
-  /** sheet thickness, in; 0.005–0.5 */
-  gaugeIn: number;
-  material: string;
-  /** 1–50 holes */
-  holes: RepairHoleInput[];
-  coupons?: CouponTest[];
-  materialData?: SheetMaterial[];
-  rivetData?: RivetSpec[];
-}
-
-export type RepairAlternative = 'repair with doubler' | 'scrap' | null;
-
-export interface RepairHoleResult {
-  holeId: string;
-  pass: boolean;
-  reasons: string[];
-  edgeDistanceUsedIn: number;
-  /** true when the measured edge distance replaced the nominal one */
-  edgeDistanceMeasured: boolean;
-  pitchToNeighboursIn: [number | null, number | null];
-  margins: ReworkMargins;
-  alternative: RepairAlternative;
-}
-
-export interface CountersinkCheck {
-  /** the proposed head needs a countersunk seat (always true: the check is null for protruding heads) */
-  required: boolean;
-  /** depth of the head's cone, in; null when the head's dimensions are not known here */
-  headHeightIn: number | null;
-  /** deepest countersink the sheet allows, in */
-  limitIn: number | null;
-  pass: boolean;
-}
-
-export interface RepairCheckResult extends EngineeringResult<RepairCheckInput> {
-  pass: boolean;
-  holes: RepairHoleResult[];
-  /** every failing hole's reasons, each prefixed with its hole id ("U-04: …") */
-  reasons: string[];
-  newDrill: { name: string; diameterIn: number };
-  requiredEdgeIn: number;
-  requiredPitchIn: number;
-  /** null when the proposed rivet has a protruding head */
-  countersink: CountersinkCheck | null;
-  /** the worst over the holes: scrap beats a doubler */
-  alternative: RepairAlternative;
-}
 
 /** One finding is one run of holes on one part; a bound keeps the work (and the stored result) small. */
 export const MAX_REPAIR_HOLES = 50;

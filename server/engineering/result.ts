@@ -1,3 +1,5 @@
+import type { EngineeringResult } from '../../lib/engineering-results';
+
 /**
  * What every engineering result carries, so that a stored result can always be read back with the
  * numbers it came from, the rules it applied, what to be wary of, and the product's safety caution.
@@ -6,13 +8,6 @@ export const ENGINEERING_CAUTION =
   "An aid only: the kit supplier's approved data and the applicable airworthiness rules and local " +
   'authority govern. Margins come from the inputs given and are only as good as they are. Nothing ' +
   'here is certification or approval of a design or repair.';
-
-export interface EngineeringResult<I> {
-  inputs: I;
-  rules: string[];
-  warnings: string[];
-  caution: string;
-}
 
 export function envelope<I>(inputs: I, rules: string[], warnings: string[]): EngineeringResult<I> {
   return { inputs, rules, warnings, caution: ENGINEERING_CAUTION };

@@ -1,11 +1,11 @@
 import { combinedMargin, jointAllowables } from './allowables';
-import type { CouponTest } from './coupons';
 import { EngineeringInputError } from './errors';
 import { layoutRules, layoutRuleText } from './layout';
-import { findRivet, nextRivetSize, type RivetSpec, type SheetMaterial } from './materials';
-import { envelope, marginOfSafety, type EngineeringResult } from './result';
+import { findRivet, nextRivetSize } from './materials';
+import { envelope, marginOfSafety } from './result';
 import { ULTIMATE_FACTOR } from './rivet-loads';
 import { requireFinite, requireNonNegative, requirePositive } from './validate';
+import type { ReworkInput, ReworkMargins, ReworkResult } from '../../lib/engineering-results';
 
 /**
  * The inspector's question (step 9 of the chain): can this hole be drilled out for the next rivet size?
@@ -13,46 +13,6 @@ import { requireFinite, requireNonNegative, requirePositive } from './validate';
  * diameter; the new shear, bearing and tension margins; pass or fail with reasons, and when it fails
  * the alternative.
  */
-
-export interface ReworkInput {
-  rivetSpec: string;
-  proposedSpec: string;
-  /**
-   * Positions along the fastener line, in (a scheduled hole's `alongIn`; on a straight line its
-   * station): the pitch to each neighbour is their difference. null where the hole has no neighbour.
-   */
-  holeStationIn: number;
-  neighbourStationsIn: [number | null, number | null];
-  /** from the hole's centre to the nearest sheet edge, in */
-  edgeDistanceIn: number;
-  gaugeIn: number;
-  material: string;
-  appliedLimitTensionLb?: number;
-  appliedLimitShearLb?: number;
-  coupons?: CouponTest[];
-  materialData?: SheetMaterial[];
-  rivetData?: RivetSpec[];
-}
-
-export interface ReworkMargins {
-  shearLimit: number | null;
-  shearUltimate: number | null;
-  tensionLimit: number | null;
-  tensionUltimate: number | null;
-  combinedLimit: number | null;
-  combinedUltimate: number | null;
-}
-
-export interface ReworkResult extends EngineeringResult<ReworkInput> {
-  pass: boolean;
-  reasons: string[];
-  newDrill: { name: string; diameterIn: number };
-  requiredEdgeIn: number;
-  requiredPitchIn: number;
-  pitchToNeighboursIn: [number | null, number | null];
-  margins: ReworkMargins;
-  alternative: 'repair with doubler' | 'scrap' | null;
-}
 
 /**
  * Below these the enlarged hole all but breaks into the sheet edge or its neighbour, and a doubler has

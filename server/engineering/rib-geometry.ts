@@ -1,18 +1,12 @@
 import { room } from './arrays';
-import { surfacePoints, type AirfoilGeometry, type Point, type Surface } from './airfoil';
+import { surfacePoints, type AirfoilGeometry } from './airfoil';
 import { EngineeringInputError } from './errors';
+import type { FastenerLineInput, Point } from '../../lib/engineering-results';
 
 /**
  * The rib drawn at its chord, and stations along a fastener line: the line follows the outline
  * (rivets sit on the flange, so pitch is measured along the surface, not along the chord).
  */
-
-export interface FastenerLineInput {
-  name: string;
-  surface: Surface;
-  startXc: number;
-  endXc: number;
-}
 
 export interface LineStation {
   xc: number;

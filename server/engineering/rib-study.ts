@@ -1,23 +1,12 @@
 import { packed } from './arrays';
-import { buildAirfoil, type AirfoilGeometry, type AirfoilInput, type Point } from './airfoil';
+import { buildAirfoil, type AirfoilGeometry } from './airfoil';
 import { validateCoupons } from './coupons';
-import { cpFromTables, validateCpTables, type CpTableInput } from './cp-table';
-import {
-  designConditions,
-  type DesignCondition,
-  type DesignConditionsResult,
-  type KitInput,
-} from './design-conditions';
+import { cpFromTables, validateCpTables } from './cp-table';
+import { designConditions } from './design-conditions';
 import { EngineeringInputError } from './errors';
 import { layoutRules, rivetWeightLb } from './layout';
-import { findMaterial, findRivet, type RivetSpec } from './materials';
-import {
-  alphaForLiftCoefficient,
-  pressureDistribution,
-  solvePanelMethod,
-  type CpSample,
-  type PanelSolution,
-} from './panel-method';
+import { findMaterial, findRivet } from './materials';
+import { alphaForLiftCoefficient, pressureDistribution, solvePanelMethod, type PanelSolution } from './panel-method';
 import {
   holePrefixFor,
   prepareColumns,
@@ -25,33 +14,41 @@ import {
   scheduleLine,
   requirePitchGrid,
   validateScheduleSettings,
-  type CandidateSettings,
-  type InsufficientRange,
-  type PitchScheduleResult,
   type PreparedLine,
   type ScheduledLine,
-  type ScheduleHole,
-  type ScheduleZone,
 } from './pitch-schedule';
-import { compactNumbers, ENGINEERING_CAUTION, type EngineeringResult } from './result';
-import { lineStationColumns, outlineAreaSqIn, ribOutline, validateLine, type FastenerLineInput } from './rib-geometry';
+import { compactNumbers, ENGINEERING_CAUTION } from './result';
+import { lineStationColumns, outlineAreaSqIn, ribOutline, validateLine } from './rib-geometry';
 import { envelopeColumns, shearFlowLbPerIn, ULTIMATE_FACTOR } from './rivet-loads';
-import { tradeStudy, type RankBy, type TradeCandidate, type TradeRow } from './trade-study';
+import { tradeStudy } from './trade-study';
 import { radToDeg } from './units';
 import { roundStored } from './rounding';
 import { requireCount, requireStudyBound, STUDY_BOUNDS, WING_BOUNDS } from './bounds';
-import { estimateStudyWork, requireStudyBudget, type StudyWork } from './study-work';
+import { estimateStudyWork, requireStudyBudget } from './study-work';
 import { requireArray, requireOneOf, requirePositive } from './validate';
-import {
-  COMPRESSIBILITY_RULE_TEXT,
-  COMPRESSIBILITY_RULES,
-  correctCpDistribution,
-  correctFlowPressures,
-  machNumber,
-  type CompressibilityRule,
-} from './compressibility';
+import { COMPRESSIBILITY_RULE_TEXT, correctCpDistribution, correctFlowPressures, machNumber } from './compressibility';
 import { envelopeConditions } from './envelope-corners';
-import type { FlapInput } from './flap-conditions';
+import {
+  COMPRESSIBILITY_RULES,
+  type CpSample,
+  type DesignCondition,
+  type DesignConditionsResult,
+  type EnvelopePoint,
+  type FastenerLineInput,
+  type InsufficientRange,
+  type LineLoads,
+  type LineSchedule,
+  type Point,
+  type PressureRule,
+  type RibStudyInput,
+  type RibStudyResult,
+  type RivetSpec,
+  type ScheduleZone,
+  type StudyCandidate,
+  type StudyCondition,
+  type StudyWork,
+  type TradeCandidate,
+} from '../../lib/engineering-results';
 
 /**
  * The whole chain for one rib (step 1–8 of the chain): kit data → flight conditions → airfoil →
@@ -59,107 +56,7 @@ import type { FlapInput } from './flap-conditions';
  * candidate → trade table → recommendation. Plain JSON in and out: the server stores both as jsonb.
  */
 
-export interface RibInput {
-  chordIn: number;
-  /** tributary width of the rib: half the bay each side (the rib spacing for an inner rib), in */
-  spacingIn: number;
-  /** pressure coefficient inside the wing (vents, leaks); 0 when absent */
-  internalCp?: number;
-  /** flange width for the weight and the edge-distance fit; 4D of each rivet when absent */
-  flangeWidthIn?: number;
-  /** skin gauge for the rivet grip; the flange gauge when absent */
-  skinGaugeIn?: number;
-}
-
-export interface RibStudyInput extends CandidateSettings {
-  kit: KitInput;
-  airfoil: AirfoilInput;
-  /** measured or computed pressure tables to use instead of the panel method */
-  cpTables?: CpTableInput[];
-  rib: RibInput;
-  lines: FastenerLineInput[];
-  /** panels of the pressure solution; 160 when absent */
-  panels?: number;
-  /** limit torque on the wing cell at this rib, in·lb, with the cell's enclosed area, in² (Bredt–Batho) */
-  wingTorqueInLb?: number;
-  cellAreaSqIn?: number;
-  rankBy?: RankBy;
-  /** flaps-extended conditions (14 CFR 23.345) are studied when given */
-  flaps?: FlapInput;
-  /** the correction of Cp to each condition's Mach number; Kármán–Tsien when absent */
-  compressibility?: PressureRule;
-}
-
-/** A compressibility rule, or 'none' for incompressible pressures (low-speed kits, or checks against them). */
-export type PressureRule = CompressibilityRule | 'none';
 export const PRESSURE_RULES = [...COMPRESSIBILITY_RULES, 'none'] as const;
-
-export interface StudyCondition extends DesignCondition {
-  /** the section's own lift coefficient: the wing's CL × its spanwise (Schrenk) ratio × the tail's share */
-  sectionCl: number;
-  /** flight Mach number of the condition (its speed at the kit's altitude) */
-  mach: number;
-  alphaRad: number;
-  alphaDeg: number;
-  pressureSource: 'panel method' | 'Cp table';
-  cp: { upper: CpSample[]; lower: CpSample[] };
-}
-
-export interface EnvelopePoint {
-  stationIn: number;
-  xc: number;
-  alongIn: number;
-  xIn: number;
-  yIn: number;
-  /** limit pull per inch of pitch, lb/in (ultimate = 1.5 ×) */
-  limitLbPerIn: number;
-  ultimateLbPerIn: number;
-  governing: string | null;
-}
-
-export interface LineLoads {
-  name: string;
-  surface: 'upper' | 'lower';
-  startXc: number;
-  endXc: number;
-  holePrefix: string;
-  lengthIn: number;
-  fromStationIn: number;
-  toStationIn: number;
-  shearFlowLbPerIn: number;
-  envelope: EnvelopePoint[];
-}
-
-/** A line's schedule as stored: its warnings are the candidate's, its holes' line is the line's (each said once). */
-export type LineSchedule = Omit<PitchScheduleResult, 'inputs' | 'rules' | 'caution' | 'warnings' | 'holes'> & {
-  holes: Omit<ScheduleHole, 'line'>[];
-};
-
-export interface StudyCandidate {
-  /** the holes of each line are kept for the recommended candidate only; others are recomputed on demand */
-  holesStored: boolean;
-  gaugeIn: number;
-  rivet: string;
-  feasible: boolean;
-  reasons: string[];
-  warnings: string[];
-  pullThroughBasis: 'coupons' | 'fallback';
-  flangeWidthIn: number;
-  lines: LineSchedule[];
-}
-
-export interface RibStudyResult extends EngineeringResult<RibStudyInput> {
-  design: Pick<DesignConditionsResult, 'wingLoadingPsf' | 'loadFactors' | 'speeds' | 'gust'>;
-  conditions: StudyCondition[];
-  airfoil: { name: string; panels: number; trailingEdgeGap: number };
-  outline: { chordIn: number; points: [number, number][] };
-  lines: LineLoads[];
-  candidates: StudyCandidate[];
-  trade: TradeRow[];
-  recommended: { gaugeIn: number; rivet: string } | null;
-  /** what the study cost, as counted before it ran (see study-work.ts) */
-  work: StudyWork;
-}
 
 const DEFAULT_PANELS = 160;
 const MINUTES_PER_HOLE = { solid: 1.5, pulled: 1.0 };

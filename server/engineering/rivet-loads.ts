@@ -1,7 +1,8 @@
 import { packed, room } from './arrays';
 import { EngineeringInputError } from './errors';
-import { interpolateCp, type CpSample } from './panel-method';
+import { interpolateCp } from './panel-method';
 import { requireFinite, requireNonNegative, requirePositive } from './validate';
+import type { CpSample } from '../../lib/engineering-results';
 
 /**
  * Loads on a rib's fastener line (step 5 of the chain). Where the outside surface sees suction the

@@ -1,7 +1,8 @@
 import { ASPECT_RATIO_RANGE, requireCount, requireWingBound, WING_BOUNDS } from './bounds';
 import { EngineeringInputError } from './errors';
-import { envelope, type EngineeringResult } from './result';
+import { envelope } from './result';
 import { requireArray } from './validate';
+import type { EngineeringResult, Planform, PlanformInput } from '../../lib/engineering-results';
 
 /**
  * Spanwise lift by Schrenk's approximation (O. Schrenk, "A simple approximation method for obtaining the
@@ -18,23 +19,6 @@ import { requireArray } from './validate';
  * were wing); the approximation is for the wing's additional (angle-dependent) lift, which is the lift
  * of a wing without twist.
  */
-
-export type PlanformInput =
-  | { kind: 'rectangle'; spanIn: number; chordIn: number }
-  | { kind: 'tapered'; spanIn: number; rootChordIn: number; tipChordIn: number };
-
-export interface Planform {
-  spanIn: number;
-  rootChordIn: number;
-  tipChordIn: number;
-  /** c̄ = S/b, in */
-  meanChordIn: number;
-  areaSqIn: number;
-  /** b²/S */
-  aspectRatio: number;
-  /** tip chord / root chord */
-  taperRatio: number;
-}
 
 export interface SchrenkStation {
   eta: number;

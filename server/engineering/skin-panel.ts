@@ -1,15 +1,17 @@
-import type { Surface } from './airfoil';
 import { endFixity, interRivetPitchLimitIn, INTER_RIVET_RULE, rivetHeadOf } from './inter-rivet-buckling';
 import { layoutRules, rivetWeightLb } from './layout';
 import { findMaterial, findRivet } from './materials';
-import {
-  pitchSchedule,
-  prepareStations,
-  type CandidateSettings,
-  type PitchScheduleResult,
-  type StationLoad,
-} from './pitch-schedule';
+import { pitchSchedule, prepareStations } from './pitch-schedule';
 import { panelBuckling, sheetBucklingProperties } from './plate-buckling';
+import type {
+  CandidateSettings,
+  PitchScheduleResult,
+  SkinCandidate,
+  SkinLineSchedule,
+  SkinPanelResult,
+  StationLoad,
+  Surface,
+} from '../../lib/engineering-results';
 
 /**
  * One skin panel of a wing box: the sheet on one surface between two ribs and the front and rear spars,
@@ -58,49 +60,6 @@ export interface SkinPanelSpec {
 
 /** A skin panel's candidates and layout: the wing's settings with the skin's own gauges and rivets. */
 export type SkinSettings = CandidateSettings;
-
-export type SkinLineSchedule = Omit<PitchScheduleResult, 'inputs' | 'rules' | 'caution' | 'warnings'>;
-
-export interface SkinCandidate {
-  gaugeIn: number;
-  rivet: string;
-  feasible: boolean;
-  reasons: string[];
-  warnings: string[];
-  /** the shear flows on this gauge, lb/in (limit) */
-  torsionShearFlowLbPerIn: number;
-  bendingShearFlowLbPerIn: number;
-  /** spanwise compression in the skin beside the spars, psi (limit; past buckling, in the effective width); 0 on the tension surface */
-  compressionPsi: number;
-  interRivet: { endFixity: number; source: string; pitchLimitIn: number | null };
-  shearBuckling: { criticalPsi: number; appliedPsi: number; marginOfSafety: number | null; diagonalTension: boolean };
-  /** of the whole panel between the spars, at the stress it would carry unbuckled; then the width that carries the load */
-  compressionBuckling: {
-    criticalPsi: number;
-    appliedPsi: number;
-    marginOfSafety: number | null;
-    effectiveWidthIn: number;
-  };
-  rivetCount: number;
-  weightLb: number;
-  buildMinutes: number;
-  lines: SkinLineSchedule[];
-}
-
-export interface SkinPanelResult {
-  name: string;
-  surface: Surface;
-  innerRib: string;
-  outerRib: string;
-  innerStationIn: number;
-  outerStationIn: number;
-  widthIn: number;
-  boxWidthIn: number;
-  boxDepthIn: number;
-  candidates: SkinCandidate[];
-  /** the lightest feasible candidate (fewest rivets between equals) */
-  recommended: { gaugeIn: number; rivet: string } | null;
-}
 
 const STATION_STEP_IN = 0.1;
 const MINUTES_PER_HOLE = { solid: 1.5, pulled: 1.0 };

@@ -2,25 +2,12 @@ import { packed, room } from './arrays';
 import { STUDY_BUDGET } from './bounds';
 import { EngineeringInputError } from './errors';
 import { requireArray, requireFinite, requireNonNegative } from './validate';
+import type { StationLoad } from '../../lib/engineering-results';
 
 /**
  * The loads along one fastener line as the pitch schedule reads them: stations with the pull and shear
  * per inch, linear in between, with quick "largest load over an interval" queries.
  */
-
-export interface StationLoad {
-  /** chordwise station from the rib's leading edge, in */
-  stationIn: number;
-  /** distance along the fastener line (along the flange) from the line's start, in */
-  alongIn: number;
-  /** limit pull on the flange per inch of pitch, lb/in */
-  limitTensionLbPerIn: number;
-  /** limit skin shear flow, lb/in */
-  limitShearLbPerIn?: number;
-  /** position on the rib drawing, in */
-  xIn?: number;
-  yIn?: number;
-}
 
 /**
  * A load sampled along the line, linear between samples. `maxOver` answers "the largest load anywhere in

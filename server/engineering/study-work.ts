@@ -2,31 +2,11 @@ import type { AirfoilGeometry } from './airfoil';
 import { STUDY_BUDGET } from './bounds';
 import { EngineeringInputError } from './errors';
 import { layoutRules } from './layout';
-import type { RivetSpec } from './materials';
-import { pitchGridSize, type ScheduleSettings } from './pitch-schedule';
-import { lineStationCount, type FastenerLineInput } from './rib-geometry';
+import { pitchGridSize } from './pitch-schedule';
+import { lineStationCount } from './rib-geometry';
+import type { FastenerLineInput, RivetSpec, ScheduleSettings, StudyWork } from '../../lib/engineering-results';
 
-/**
- * What a rib study will cost, counted before the flow is solved: the counts the loops of the chain run
- * on. Every one of them comes from the input (a chord, an increment, the candidate lists), so each is
- * held to a budget, and a refusal names the field that drives it and what would bring it in.
- */
-export interface StudyWork {
-  /** load stations over every line (one every `stationStepIn` along the surface) */
-  stations: number;
-  /** flight conditions the pressure is worked out for */
-  conditions: number;
-  /** gauge × rivet candidates */
-  candidates: number;
-  /** pitches tried for the largest rivet */
-  pitchGrid: number;
-  /** stations × pitches: largest-load windows looked up */
-  gridCells: number;
-  /** stations × conditions × candidates */
-  stationChecks: number;
-  /** holes every candidate could place at its 3D minimum pitch, summed */
-  holes: number;
-}
+/** A study's cost counted from its input before it runs (`StudyWork`), and the budget each count is held to. */
 
 export interface StudyWorkInput extends ScheduleSettings {
   rib: { chordIn: number };

@@ -1,31 +1,11 @@
-import { ENGINEERING_CAUTION, type EngineeringResult } from './result';
+import { ENGINEERING_CAUTION } from './result';
+import type { EngineeringResult, RankBy, TradeCandidate, TradeRow } from '../../lib/engineering-results';
 
 /**
  * Gauge and rivet trade study (step 8 of the chain): every candidate with its feasibility, rivet count,
  * weights and a build-time proxy; feasible ones ranked (lightest first, or quickest to build), and the
  * best recommended.
  */
-
-export type RankBy = 'weight' | 'buildTime';
-
-export interface TradeCandidate {
-  gaugeIn: number;
-  rivet: string;
-  feasible: boolean;
-  rivetCount: number;
-  flangeWeightLb: number;
-  webWeightLb: number;
-  rivetWeightLb: number;
-  buildMinutes: number;
-  /** where the pull-through allowable came from */
-  pullThroughBasis: 'coupons' | 'fallback';
-}
-
-export interface TradeRow extends TradeCandidate {
-  totalWeightLb: number;
-  /** 1 = recommended; null when not feasible */
-  rank: number | null;
-}
 
 export interface TradeStudyResult extends EngineeringResult<{ candidates: TradeCandidate[]; rankBy: RankBy }> {
   rows: TradeRow[];

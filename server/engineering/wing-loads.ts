@@ -1,6 +1,6 @@
-import type { Planform } from './schrenk';
 import { chordAt } from './schrenk';
 import type { PressureDistribution } from './panel-method';
+import type { Planform } from '../../lib/engineering-results';
 
 /**
  * Loads along the span of one wing (half the aeroplane) from Schrenk's lift grading: shear, bending

@@ -1,45 +1,45 @@
-import { surfacePoints, type AirfoilGeometry, type AirfoilInput, type Point } from './airfoil';
+import { surfacePoints, type AirfoilGeometry } from './airfoil';
 import { requireCount, requireWingBound, STUDY_BUDGET } from './bounds';
-import type { CpTableInput } from './cp-table';
-import type { DesignCondition, KitInput } from './design-conditions';
 import { EngineeringInputError } from './errors';
-import type { FlapInput } from './flap-conditions';
 import { findRivet } from './materials';
 import { cpOnSurface, pressureDistribution, alphaForLiftCoefficient } from './panel-method';
-import { compactNumbers, envelope, type EngineeringResult } from './result';
-import { lineStationCount, lineStations, validateLine, type FastenerLineInput } from './rib-geometry';
+import { compactNumbers, envelope } from './result';
+import { lineStationCount, lineStations, validateLine } from './rib-geometry';
 import {
   PRESSURE_RULES,
   sectionContext,
   studyRibAt,
   validateStudy,
-  type PressureRule,
   type RibPlace,
-  type RibStudyInput,
-  type RibStudyResult,
   type SectionContext,
-  type StudyCondition,
 } from './rib-study';
 import { loadEnvelope } from './rivet-loads';
 import { roundStored } from './rounding';
-import {
-  chordAt,
-  planformGeometry,
-  schrenkStationOf,
-  SCHRENK_ASSUMPTIONS,
-  SCHRENK_RULE,
-  type Planform,
-  type PlanformInput,
-} from './schrenk';
-import type { CandidateSettings } from './pitch-schedule';
-import { skinPanelStudy, SKIN_RULES, type SkinPanelResult, type SkinPanelSpec } from './skin-panel';
-import { estimateStudyWork, requireStudyBudget, type StudyWork } from './study-work';
-import type { RankBy } from './trade-study';
+import { chordAt, planformGeometry, schrenkStationOf, SCHRENK_ASSUMPTIONS, SCHRENK_RULE } from './schrenk';
+import { skinPanelStudy, SKIN_RULES, type SkinPanelSpec } from './skin-panel';
+import { estimateStudyWork, requireStudyBudget } from './study-work';
 import { momentCoefficientAbout, spanwiseLoads, type SectionMoment, type StationLoads } from './wing-loads';
 import { requireArray, requireOneOf } from './validate';
 import { conditionPressures } from './rib-study';
 import { SQIN_PER_SQFT } from './units';
 import { machNumber } from './compressibility';
+import type {
+  DesignCondition,
+  FastenerLineInput,
+  Planform,
+  Point,
+  RankBy,
+  RibStudyInput,
+  RibStudyResult,
+  SkinPanelResult,
+  StudyWork,
+  WingCondition,
+  WingRib,
+  WingRibInput,
+  WingStudyInput,
+  WingStudyResult,
+  WingTradeRow,
+} from '../../lib/engineering-results';
 
 /**
  * The whole wing: every rib at its own span station and every skin panel between two ribs, for the whole
@@ -55,118 +55,6 @@ import { machNumber } from './compressibility';
  *   to the skin panels (skin-panel.ts).
  * - A trade table across the ribs: one gauge and rivet for every rib against a choice per rib.
  */
-
-export interface WingRibInput {
-  name: string;
-  /** distance from the aeroplane's centre line, in */
-  stationIn: number;
-}
-
-export interface TailInput {
-  /** from the wing's quarter chord to the tail's, in */
-  armIn: number;
-  /** the tail's balancing load at 1 g, lb, positive down; estimated from the wing section's moment when absent */
-  balancingLoadLb?: number;
-}
-
-export interface WingStudyInput extends CandidateSettings {
-  kit: KitInput;
-  flaps?: FlapInput;
-  compressibility?: PressureRule;
-  planform: PlanformInput;
-  tail: TailInput;
-  airfoil: AirfoilInput;
-  cpTables?: CpTableInput[];
-  panels?: number;
-  /** the ribs from root to tip */
-  ribs: WingRibInput[];
-  /** what every rib has: its fastener lines (x/c, as on a lone rib) and flange */
-  rib: { lines: FastenerLineInput[]; internalCp?: number; flangeWidthIn?: number; skinGaugeIn?: number };
-  /** the box the skin panels close: front and rear spar at x/c, and the spar-cap area on each surface (both caps) */
-  spars: { frontXc: number; rearXc: number; capAreaSqIn?: number };
-  /** skin panels between every two neighbouring ribs, on both surfaces, between the spars */
-  skin: { gaugeCandidates: number[]; rivetCandidates: string[] };
-  rankBy?: RankBy;
-}
-
-export interface WingCondition extends DesignCondition {
-  mach: number;
-  /** tail load, lb, positive down */
-  tailLoadLb: number;
-  /** lift of the whole wing, lb = n·W + tail download */
-  wingLiftLb: number;
-  /** the wing's CL for that lift */
-  wingCl: number;
-}
-
-/** A rib of the wing: its place, the loads there, and its own study. */
-export interface WingRib {
-  name: string;
-  stationIn: number;
-  eta: number;
-  chordIn: number;
-  /** tributary width, in: half of each neighbouring bay (the outermost rib also carries the tip beyond it) */
-  spacingIn: number;
-  /** Schrenk's section cl / wing CL */
-  clRatio: number;
-  /** limit loads at the station, the largest magnitude over all conditions, with the condition */
-  loads: {
-    shearLb: number;
-    bendingInLb: number;
-    torqueInLb: number;
-    shearFlowLbPerIn: number;
-    governing: { shear: string; bending: string; torque: string };
-  };
-  /**
-   * The rib's own study, slimmed for a whole wing: the recommended candidate with its holes, the wing's
-   * one-for-all choice with its zones, and every other candidate as its verdict only (feasible, reasons;
-   * its figures are in the trade rows). Its outline is the wing's at this chord.
-   */
-  study: Omit<RibStudyResult, 'inputs' | 'rules' | 'caution' | 'design' | 'conditions' | 'airfoil' | 'outline'> & {
-    conditions: Omit<StudyCondition, 'cp'>[];
-  };
-}
-
-export interface WingTradeRow {
-  gaugeIn: number;
-  rivet: string;
-  /** feasible on every rib */
-  feasible: boolean;
-  /** 'coupons' when every rib's pull-through allowable for it comes from the supplier's coupons */
-  pullThroughBasis: 'coupons' | 'fallback';
-  infeasibleRibs: string[];
-  rivetCount: number;
-  weightLb: number;
-  buildMinutes: number;
-  rank: number | null;
-}
-
-export interface WingStudyResult extends EngineeringResult<WingStudyInput> {
-  kind: 'wing';
-  design: RibStudyResult['design'];
-  planform: Planform;
-  tail: { armIn: number; estimated: boolean; balancingLoadLb: number; cmAc: number };
-  airfoil: RibStudyResult['airfoil'];
-  /** the section at unit chord (each rib's outline is this times its chord) */
-  outline: { chordIn: 1; points: [number, number][] };
-  conditions: WingCondition[];
-  ribs: WingRib[];
-  skins: SkinPanelResult[];
-  trade: {
-    /** one gauge and rivet for every rib, ranked */
-    uniform: WingTradeRow[];
-    /** each rib its own recommendation */
-    perRib: {
-      choices: { rib: string; gaugeIn: number; rivet: string }[];
-      feasible: boolean;
-      rivetCount: number;
-      weightLb: number;
-      buildMinutes: number;
-    };
-    recommendedUniform: { gaugeIn: number; rivet: string } | null;
-  };
-  work: StudyWork & { ribs: number; skinPanels: number; skinSchedules: number };
-}
 
 /** Ribs a wing study takes at once: a light aircraft's wing has fewer. */
 export const MAX_WING_RIBS = 24;

@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, sql, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
 import {
   buildMembers,
@@ -9,6 +9,7 @@ import {
   findings,
   holes,
   partDesigns,
+  sentMails,
   travelerEvents,
   travelers,
   users,
@@ -362,4 +363,50 @@ export async function recipientsOf(
 export async function findPhotoRow(db: Db, id: string) {
   const [row] = await db.select().from(findingPhotos).where(eq(findingPhotos.id, id));
   return row;
+}
+
+/** A finding event as its mail tells it: the event, its finding, who acted, the part's build (undefined: deleted since). */
+export async function findEventForMail(db: Db, eventId: string) {
+  const [row] = await db
+    .select({
+      event: findingEvents,
+      finding: findings,
+      actorName: users.name,
+      buildId: travelers.buildId,
+      kitSerial: builds.kitSerial,
+    })
+    .from(findingEvents)
+    .innerJoin(findings, eq(findings.id, findingEvents.findingId))
+    .innerJoin(users, eq(users.id, findingEvents.actorId))
+    .innerJoin(travelers, eq(travelers.id, findings.travelerId))
+    .innerJoin(builds, eq(builds.id, travelers.buildId))
+    .where(eq(findingEvents.id, eventId));
+  return row;
+}
+
+/** A finding's photos, oldest first. */
+export const listFindingPhotos = (db: Db, findingId: string) =>
+  db.select().from(findingPhotos).where(eq(findingPhotos.findingId, findingId)).orderBy(asc(findingPhotos.createdAt));
+
+/** Whether the mail of this event already went to this address (the queue may run a job twice). */
+export async function mailSent(db: Db, eventId: string, recipient: string) {
+  const [already] = await db
+    .select({ id: sentMails.id })
+    .from(sentMails)
+    .where(and(eq(sentMails.eventId, eventId), eq(sentMails.recipient, recipient)));
+  return already !== undefined;
+}
+
+/** Records a mail of an event as sent (once per event and address). */
+export async function recordSentMail(db: Db, values: typeof sentMails.$inferInsert) {
+  await db.insert(sentMails).values(values).onConflictDoNothing();
+}
+
+/** Of these storage keys, those a photo row points to (as its file or its thumbnail). */
+export async function photoKeysInUse(db: Db, keys: string[]): Promise<Set<string>> {
+  const rows = await db
+    .select({ fileKey: findingPhotos.fileKey, thumbKey: findingPhotos.thumbKey })
+    .from(findingPhotos)
+    .where(or(inArray(findingPhotos.fileKey, keys), inArray(findingPhotos.thumbKey, keys)));
+  return new Set(rows.flatMap((r) => [r.fileKey, r.thumbKey]));
 }

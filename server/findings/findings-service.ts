@@ -20,7 +20,7 @@ import {
 } from '../../db/contracts';
 import { withTransaction, type Db } from '../../db';
 import type { AppContext } from '../context';
-import { placeOnBuild } from '../builds/build-access';
+import { placeOnBuild } from '../builds/builds-repository';
 import { couponsForEngine } from '../coupons/coupons-repository';
 import { findRivetByCallout, nextRivetSize, repairCheck, type RepairCheckResult } from '../engineering';
 import { badRequest, conflict, HttpError, notFound } from '../http-error';

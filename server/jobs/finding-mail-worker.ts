@@ -1,8 +1,12 @@
-import { and, asc, eq } from 'drizzle-orm';
 import type { Db } from '../../db';
-import { builds, findingEvents, findingPhotos, findings, sentMails, travelers, users } from '../../db/schema';
 import { mailAudienceOf } from '../../db/contracts';
-import { recipientsOf } from '../findings/findings-repository';
+import {
+  findEventForMail,
+  listFindingPhotos,
+  mailSent,
+  recipientsOf,
+  recordSentMail,
+} from '../findings/findings-repository';
 import { findingMail } from '../mail/finding-mail';
 import type { Mailer } from '../mail/transport';
 import type { PhotoStorage } from '../storage/photo-storage';
@@ -19,20 +23,7 @@ export function findingMailWorker(deps: { db: Db; mailer: Mailer; storage: Photo
     // An account mail goes to its one person as written.
     if ('message' in job) return mailer.send(job.message);
     const { eventId } = job;
-    const [row] = await db
-      .select({
-        event: findingEvents,
-        finding: findings,
-        actorName: users.name,
-        buildId: travelers.buildId,
-        kitSerial: builds.kitSerial,
-      })
-      .from(findingEvents)
-      .innerJoin(findings, eq(findings.id, findingEvents.findingId))
-      .innerJoin(users, eq(users.id, findingEvents.actorId))
-      .innerJoin(travelers, eq(travelers.id, findings.travelerId))
-      .innerJoin(builds, eq(builds.id, travelers.buildId))
-      .where(eq(findingEvents.id, eventId));
+    const row = await findEventForMail(db, eventId);
     if (!row) return; // the finding was deleted since: nothing left to tell anyone
     const audience = mailAudienceOf(
       row.event.action,
@@ -44,11 +35,7 @@ export function findingMailWorker(deps: { db: Db; mailer: Mailer; storage: Photo
     if (!recipients.length) return;
     const parts = (await findTravelerParts(db, row.finding.travelerId))!;
     // The photo that speaks for the event: the work's own for a report of work done, else the hole as found.
-    const photos = await db
-      .select()
-      .from(findingPhotos)
-      .where(eq(findingPhotos.findingId, row.finding.id))
-      .orderBy(asc(findingPhotos.createdAt));
+    const photos = await listFindingPhotos(db, row.finding.id);
     const photo = photos.find((p) => p.eventId === row.event.id) ?? photos.find((p) => p.eventId === null);
     const thumbnail = photo ? await storage.get(photo.thumbKey).catch(() => null) : null;
     const message = findingMail({
@@ -70,13 +57,9 @@ export function findingMailWorker(deps: { db: Db; mailer: Mailer; storage: Photo
       thumbnail,
     });
     for (const email of recipients) {
-      const [already] = await db
-        .select({ id: sentMails.id })
-        .from(sentMails)
-        .where(and(eq(sentMails.eventId, eventId), eq(sentMails.recipient, email)));
-      if (already) continue;
+      if (await mailSent(db, eventId, email)) continue;
       await mailer.send({ to: email, ...message });
-      await db.insert(sentMails).values({ eventId, recipient: email, subject: message.subject }).onConflictDoNothing();
+      await recordSentMail(db, { eventId, recipient: email, subject: message.subject });
     }
   };
 }

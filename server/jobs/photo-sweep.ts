@@ -1,14 +1,13 @@
-import { inArray, or } from 'drizzle-orm';
 import type { Logger } from 'pino';
 import type { Db } from '../../db';
-import { findingPhotos } from '../../db/schema';
+import { photoKeysInUse } from '../findings/findings-repository';
 import type { PhotoStorage } from '../storage/photo-storage';
 
 /**
  * Removes photo files that no finding_photos row points to. A finding writes its files before the
  * transaction that records them; a crash or a rollback in between (or a deleted row) leaves files
  * behind forever. The grace period keeps files whose transaction may still be running.
- * finding_photos is the only table that keeps storage keys: a new one must be added to the query below.
+ * finding_photos is the only table that keeps storage keys: a new one must be added to photoKeysInUse.
  */
 export async function sweepOrphanPhotos(deps: {
   db: Db;
@@ -24,11 +23,7 @@ export async function sweepOrphanPhotos(deps: {
     examined += page.length;
     const old = page.filter((f) => f.modifiedAt.getTime() < cutoff).map((f) => f.key);
     if (old.length === 0) continue;
-    const rows = await deps.db
-      .select({ fileKey: findingPhotos.fileKey, thumbKey: findingPhotos.thumbKey })
-      .from(findingPhotos)
-      .where(or(inArray(findingPhotos.fileKey, old), inArray(findingPhotos.thumbKey, old)));
-    const used = new Set(rows.flatMap((r) => [r.fileKey, r.thumbKey]));
+    const used = await photoKeysInUse(deps.db, old);
     for (const key of old) {
       if (used.has(key)) continue;
       await deps.storage.remove(key);

@@ -4,9 +4,6 @@ import type { KitReliance, Page, PageQuery } from '../../db/contracts';
 import { afterKey, decodeCursor, pageOf } from '../pagination';
 import { builds, designRevisions, kitModelChanges, kitModels, loadStudies, partDesigns, users } from '../../db/schema';
 
-/** A client or a transaction of it: the guards of a write read inside the transaction that writes. */
-type Conn = Db | Parameters<Parameters<Db['transaction']>[0]>[0];
-
 /** One page of the organisation's kit models by code (then id; a code is the organisation's own, so ties do not occur). */
 export async function pageKits(
   db: Db,
@@ -24,7 +21,7 @@ export async function pageKits(
 }
 
 /** Whether another kit of the organisation has this code (answered from the (organisation, code) index). */
-export async function kitCodeTaken(db: Conn, organizationId: string, code: string, except?: string) {
+export async function kitCodeTaken(db: Db, organizationId: string, code: string, except?: string) {
   const rows = await db
     .select({ id: kitModels.id })
     .from(kitModels)
@@ -39,7 +36,7 @@ export async function kitCodeTaken(db: Conn, organizationId: string, code: strin
   return rows.length > 0;
 }
 
-export async function findKit(db: Conn, id: string) {
+export async function findKit(db: Db, id: string) {
   const [row] = await db.select().from(kitModels).where(eq(kitModels.id, id));
   return row;
 }
@@ -50,7 +47,7 @@ export async function insertKit(db: Db, values: typeof kitModels.$inferInsert) {
 }
 
 /** The kit row locked for the change or delete: shipping a build or starting a study on it waits (their foreign key). */
-export async function lockKit(db: Conn, id: string) {
+export async function lockKit(db: Db, id: string) {
   const [row] = await db.select().from(kitModels).where(eq(kitModels.id, id)).for('update');
   return row;
 }
@@ -59,7 +56,7 @@ export async function lockKit(db: Conn, id: string) {
  * What relies on the kit. With `lock`, its part revisions are locked too, so none is published between
  * this count and the delete.
  */
-export async function kitReliance(db: Conn, id: string, lock = false): Promise<KitReliance> {
+export async function kitReliance(db: Db, id: string, lock = false): Promise<KitReliance> {
   if (lock) {
     await db
       .select({ id: designRevisions.id })
@@ -79,11 +76,11 @@ export async function kitReliance(db: Conn, id: string, lock = false): Promise<K
   return { studies: studies.n, publishedParts: parts.n, builds: shipped.n };
 }
 
-export async function updateKit(db: Conn, id: string, values: Partial<typeof kitModels.$inferInsert>) {
+export async function updateKit(db: Db, id: string, values: Partial<typeof kitModels.$inferInsert>) {
   await db.update(kitModels).set(values).where(eq(kitModels.id, id));
 }
 
-export async function insertKitChange(db: Conn, values: typeof kitModelChanges.$inferInsert) {
+export async function insertKitChange(db: Db, values: typeof kitModelChanges.$inferInsert) {
   await db.insert(kitModelChanges).values(values);
 }
 
@@ -103,7 +100,7 @@ export const listKitChanges = (db: Db, kitModelId: string) =>
     .orderBy(desc(kitModelChanges.createdAt));
 
 /** The kit with its draft-only part designs (the caller has checked that nothing relies on it). */
-export async function deleteKit(db: Conn, id: string) {
+export async function deleteKit(db: Db, id: string) {
   const designs = db.select({ id: partDesigns.id }).from(partDesigns).where(eq(partDesigns.kitModelId, id));
   await db.delete(designRevisions).where(inArray(designRevisions.partDesignId, designs));
   await db.delete(partDesigns).where(eq(partDesigns.kitModelId, id));

@@ -8,7 +8,7 @@ import {
   type KitModelInput,
   type PageQuery,
 } from '../../db/contracts';
-import type { Db } from '../../db';
+import { withTransaction, type Db } from '../../db';
 import type { kitModels } from '../../db/schema';
 import { organizationOf } from '../auth/organization';
 import { badRequest, conflict, notFound } from '../http-error';
@@ -37,8 +37,6 @@ export const kitsService = (db: Db) => {
     return kit;
   }
 
-  const codeClash = (organizationId: string, code: string, except?: string) =>
-    kitCodeTaken(db, organizationId, code, except);
   const clashError = (code: string) => conflict(`kit code ${code} is already used`, { code: 'already used' });
 
   return {
@@ -62,7 +60,7 @@ export const kitsService = (db: Db) => {
 
     async create(user: Express.User, input: Required<KitModelInput>) {
       const organizationId = organizationOf(user);
-      if (await codeClash(organizationId, input.code)) throw clashError(input.code);
+      if (await kitCodeTaken(db, organizationId, input.code)) throw clashError(input.code);
       return insertKit(db, { ...input, cruiseSpeedKeas: input.cruiseSpeedKeas ?? null, organizationId });
     },
 
@@ -74,11 +72,11 @@ export const kitsService = (db: Db) => {
       await get(user, id);
       const { reason, ...fields } = input;
       const next: KitFields = { ...fields, cruiseSpeedKeas: fields.cruiseSpeedKeas ?? null };
-      await db.transaction(async (tx) => {
+      await withTransaction(db, async ({ db: tx }) => {
         const kit = (await lockKit(tx, id)) as KitRow;
         const changed = editable.filter((f) => kit[f] !== next[f]);
         if (!changed.length) return;
-        if (changed.includes('code') && (await codeClash(kit.organizationId, next.code, id)))
+        if (changed.includes('code') && (await kitCodeTaken(tx, kit.organizationId, next.code, id)))
           throw clashError(next.code);
         const why = kitChangeReasonRefusal(await kitReliance(tx, id), changed, reason);
         if (why) throw badRequest(why, { reason: 'say why the numbers change' });
@@ -92,7 +90,7 @@ export const kitsService = (db: Db) => {
     /** Deletes a kit nothing relies on (its draft part designs go with it); otherwise 409 with what relies on it. */
     async remove(user: Express.User, id: string) {
       await get(user, id);
-      await db.transaction(async (tx) => {
+      await withTransaction(db, async ({ db: tx }) => {
         if (!(await lockKit(tx, id))) throw notFound('kit model');
         const why = kitDeleteRefusal(await kitReliance(tx, id, true));
         if (why) throw conflict(why);

@@ -65,12 +65,14 @@ export async function pagePeople(db: Db, organizationId: string | undefined, q: 
   return pageOf(rows, q.limit, (p) => [p.name, p.id]);
 }
 
-export async function findPerson(db: Db, id: string) {
-  const [row] = await db
+/** A person as the people list shows them; with `lock`, their row locked (a change checks its rules on it). */
+export async function findPerson(db: Db, id: string, lock = false) {
+  const query = db
     .select(personColumns)
     .from(users)
     .leftJoin(organizations, eq(organizations.id, users.organizationId))
     .where(eq(users.id, id));
+  const [row] = lock ? await query.for('update', { of: users }) : await query;
   return row;
 }
 

@@ -15,7 +15,7 @@ import {
   type PersonSummary,
   type PersonUpdateInput,
 } from '../../db/contracts';
-import { withTransaction } from '../../db';
+import { withTransaction, type Db } from '../../db';
 import type { AppContext } from '../context';
 import { hashPassword } from '../auth/passwords';
 import { requireStrongPassword } from '../auth/password-strength';
@@ -56,6 +56,32 @@ export const peopleService = (ctx: Deps) => {
     if (!manages(u)) throw forbidden('only an admin or a supplier’s lead engineer manages people');
     return u.role === 'admin' ? undefined : (u.organizationId ?? undefined);
   };
+
+  /** A change of a person's role or standing, checked against the rules on their locked row. */
+  async function changePerson(tx: Db, user: Express.User, id: string, input: PersonUpdateInput) {
+    const person = await findPerson(tx, id, true);
+    if (!person || (user.role !== 'admin' && person.organizationId !== user.organizationId)) throw notFound('person');
+    const allowed = allowedPersonActions(managerOf(user), person);
+    const need = [
+      input.role !== undefined && input.role !== person.role ? 'change-role' : null,
+      input.active === false && person.active ? 'deactivate' : null,
+      input.active === true && !person.active ? 'reactivate' : null,
+      input.lead === true && !person.lead ? 'make-lead' : null,
+    ].filter((x): x is PersonSummary['allowed'][number] => x !== null);
+    const refused = need.find((a) => !allowed.includes(a));
+    if (refused)
+      throw forbidden(
+        user.id === id
+          ? 'you cannot change your own account here'
+          : `you may not ${refused.replace('-', ' ')} this person`,
+      );
+    if (input.role && person.organizationId) {
+      const org = (await findOrganization(tx, person.organizationId))!;
+      if (!rolesOfOrganizationKind[org.kind].includes(input.role))
+        throw badRequest('not a role of this person’s organisation', { role: 'not a role of this organisation' });
+    }
+    await updatePerson(tx, id, { role: input.role, active: input.active, lead: input.lead });
+  }
 
   return {
     async organizations(user: Express.User, q: PageQuery): Promise<Page<OrganizationSummary>> {
@@ -113,35 +139,17 @@ export const peopleService = (ctx: Deps) => {
       }
       if (input.lead && input.role !== 'supplier')
         throw badRequest('only a supplier’s engineer can be a lead engineer', { lead: 'suppliers only' });
-      if (await findUserByEmail(db, input.email))
-        throw conflict('this address already has an account', { email: 'already has an account' });
-      await withTransaction(pool, (tx) => invite(ctx, tx, { ...input, invitedBy: user }, org?.name ?? null));
+      await withTransaction(pool, async (tx) => {
+        if (await findUserByEmail(tx.db, input.email))
+          throw conflict('this address already has an account', { email: 'already has an account' });
+        await invite(ctx, tx, { ...input, invitedBy: user }, org?.name ?? null);
+      });
       return { ok: true as const };
     },
 
     async update(user: Express.User, id: string, input: PersonUpdateInput) {
-      const person = await findPerson(db, id);
-      if (!person || (user.role !== 'admin' && person.organizationId !== user.organizationId)) throw notFound('person');
-      const allowed = allowedPersonActions(managerOf(user), person);
-      const need = [
-        input.role !== undefined && input.role !== person.role ? 'change-role' : null,
-        input.active === false && person.active ? 'deactivate' : null,
-        input.active === true && !person.active ? 'reactivate' : null,
-        input.lead === true && !person.lead ? 'make-lead' : null,
-      ].filter((x): x is PersonSummary['allowed'][number] => x !== null);
-      const refused = need.find((a) => !allowed.includes(a));
-      if (refused)
-        throw forbidden(
-          user.id === id
-            ? 'you cannot change your own account here'
-            : `you may not ${refused.replace('-', ' ')} this person`,
-        );
-      if (input.role && person.organizationId) {
-        const org = (await findOrganization(db, person.organizationId))!;
-        if (!rolesOfOrganizationKind[org.kind].includes(input.role))
-          throw badRequest('not a role of this person’s organisation', { role: 'not a role of this organisation' });
-      }
-      await updatePerson(db, id, { role: input.role, active: input.active, lead: input.lead });
+      // The rules read the person as they stand, their row locked, in the unit of work that changes them.
+      await withTransaction(pool, (tx) => changePerson(tx.db, user, id, input));
       const after = (await findPerson(db, id))!;
       return {
         ...after,

@@ -76,3 +76,47 @@ export const listStudyRevisions = (db: Db, studyId: string) =>
     .innerJoin(users, eq(users.id, loadStudyRevisions.createdBy))
     .where(eq(loadStudyRevisions.studyId, studyId))
     .orderBy(desc(loadStudyRevisions.revision));
+
+type RevisionBody = Pick<typeof loadStudyRevisions.$inferInsert, 'inputs' | 'result'>;
+
+/** A new study with its first revision; the study's id. */
+export async function insertStudy(
+  tx: Db,
+  study: typeof loadStudies.$inferInsert & { createdBy: string },
+  first: RevisionBody,
+): Promise<string> {
+  const [row] = await tx.insert(loadStudies).values(study).returning();
+  await tx
+    .insert(loadStudyRevisions)
+    .values({ studyId: row.id, revision: 1, inputs: first.inputs, result: first.result, createdBy: study.createdBy });
+  return row.id;
+}
+
+/**
+ * The study's next numbered revision: the count goes up (the update locks the study's row, so two
+ * changes at once number theirs one after the other) and the revision is written under that number.
+ */
+export async function addStudyRevision(
+  tx: Db,
+  id: string,
+  study: { name: string; kitModelId: string },
+  revision: RevisionBody & { createdBy: string },
+) {
+  const [row] = await tx
+    .update(loadStudies)
+    .set({
+      latestRevision: sql`${loadStudies.latestRevision} + 1`,
+      name: study.name,
+      kitModelId: study.kitModelId,
+      updatedAt: new Date(),
+    })
+    .where(eq(loadStudies.id, id))
+    .returning();
+  await tx.insert(loadStudyRevisions).values({
+    studyId: id,
+    revision: row.latestRevision,
+    inputs: revision.inputs,
+    result: revision.result,
+    createdBy: revision.createdBy,
+  });
+}

@@ -1,4 +1,3 @@
-import { eq, sql } from 'drizzle-orm';
 import type {
   ApplyStudyInput,
   Page,
@@ -12,8 +11,7 @@ import type {
   WingStudyInputValues,
 } from '../../db/contracts';
 import { revisionInput } from '../../db/contracts';
-import type { Db } from '../../db';
-import { loadStudies, loadStudyRevisions } from '../../db/schema';
+import { withTransaction, type Db } from '../../db';
 import { organizationOf } from '../auth/organization';
 import { couponsForEngine } from '../coupons/coupons-repository';
 import { designsService } from '../designs/designs-service';
@@ -32,8 +30,10 @@ import {
 import { badRequest, conflict, notFound } from '../http-error';
 import { kitsService } from '../kits/kits-service';
 import {
+  addStudyRevision,
   findStudy,
   findStudyEngineInput,
+  insertStudy,
   findStudyRevision,
   listStudyRevisions,
   pageStudyRows,
@@ -367,22 +367,19 @@ export const studiesService = (db: Db) => {
     async create(user: Express.User, body: StudyBody) {
       await kits.get(user, body.kitModelId);
       const result = await compute(user, body);
-      const id = await db.transaction(async (tx) => {
-        const [study] = await tx
-          .insert(loadStudies)
-          .values({
+      const id = await withTransaction(db, (tx) =>
+        insertStudy(
+          tx.db,
+          {
             organizationId: user.organizationId!,
             kind: body.kind,
             kitModelId: body.kitModelId,
             name: body.name,
             createdBy: user.id,
-          })
-          .returning();
-        await tx
-          .insert(loadStudyRevisions)
-          .values({ studyId: study.id, revision: 1, inputs: body.inputs, result, createdBy: user.id });
-        return study.id;
-      });
+          },
+          { inputs: body.inputs, result },
+        ),
+      );
       return detail(user, id);
     },
 
@@ -399,21 +396,14 @@ export const studiesService = (db: Db) => {
         );
       await kits.get(user, body.kitModelId);
       const result = await compute(user, body);
-      await db.transaction(async (tx) => {
-        const [row] = await tx
-          .update(loadStudies)
-          .set({
-            latestRevision: sql`${loadStudies.latestRevision} + 1`,
-            name: body.name,
-            kitModelId: body.kitModelId,
-            updatedAt: new Date(),
-          })
-          .where(eq(loadStudies.id, id))
-          .returning();
-        await tx
-          .insert(loadStudyRevisions)
-          .values({ studyId: id, revision: row.latestRevision, inputs: body.inputs, result, createdBy: user.id });
-      });
+      await withTransaction(db, (tx) =>
+        addStudyRevision(
+          tx.db,
+          id,
+          { name: body.name, kitModelId: body.kitModelId },
+          { inputs: body.inputs, result, createdBy: user.id },
+        ),
+      );
       return detail(user, id);
     },
 

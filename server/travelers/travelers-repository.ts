@@ -8,8 +8,10 @@ import {
   kitModels,
   organizations,
   partDesigns,
+  travelerEvents,
   travelerSteps,
   travelers,
+  users,
 } from '../../db/schema';
 import {
   holesAwaitingInspectorStatuses,
@@ -436,4 +438,33 @@ export async function listLabelRows(db: Db, by: { buildId: string } | { traveler
 /** Clears a part's sign-off (the withdrawal's event keeps who signed and when). */
 export async function clearSignOff(tx: Db, id: string) {
   await tx.update(travelers).set({ signedOffAt: null, signedOffBy: null }).where(eq(travelers.id, id));
+}
+
+/** Marks a step of the part done by the person (or, with null, not done); undefined when the part has no such step. */
+export async function setStepDone(tx: Db, travelerId: string, stepId: string, doneBy: string | null) {
+  const [step] = await tx
+    .update(travelerSteps)
+    .set(doneBy ? { doneAt: new Date(), doneBy } : { doneAt: null, doneBy: null })
+    .where(and(eq(travelerSteps.id, stepId), eq(travelerSteps.travelerId, travelerId)))
+    .returning();
+  return step;
+}
+
+/** Signs the part off in the person's name. */
+export async function signOffTraveler(tx: Db, id: string, userId: string) {
+  await tx.update(travelers).set({ signedOffAt: new Date(), signedOffBy: userId }).where(eq(travelers.id, id));
+}
+
+/**
+ * A bench event of the part, stamped the moment it is written, under the part's lock. The column's
+ * default is the transaction's start, which puts a write that waited for the lock before the one it waited for.
+ */
+export async function insertTravelerEvent(tx: Db, values: Omit<typeof travelerEvents.$inferInsert, 'createdAt'>) {
+  await tx.insert(travelerEvents).values({ ...values, createdAt: sql`clock_timestamp()` });
+}
+
+/** A person's name (a withdrawn sign-off's log entry keeps who had signed). */
+export async function findUserName(db: Db, id: string): Promise<string | null> {
+  const [row] = await db.select({ name: users.name }).from(users).where(eq(users.id, id));
+  return row?.name ?? null;
 }

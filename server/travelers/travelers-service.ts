@@ -1,4 +1,3 @@
-import { and, eq, sql } from 'drizzle-orm';
 import QRCode from 'qrcode';
 import {
   allowedPartActions,
@@ -20,8 +19,7 @@ import {
 } from '../../db/contracts';
 import { withTransaction, type Db, type Tx } from '../../db';
 import type { Pool } from 'pg';
-import { travelerEvents, travelerSteps, travelers, users } from '../../db/schema';
-import { placeOnBuild } from '../builds/build-access';
+import { placeOnBuild } from '../builds/builds-repository';
 import { decodeCursor, pageOf } from '../pagination';
 import type { AppContext } from '../context';
 import { recipientsOf } from '../findings/findings-repository';
@@ -33,6 +31,8 @@ import { partOutline } from './part-outline';
 import { signOffWithdrawnMail } from './sign-off-mail';
 import {
   clearSignOff,
+  findUserName,
+  insertTravelerEvent,
   listLabelRows,
   listTravelerPage,
   listTravelers,
@@ -41,14 +41,10 @@ import {
   readPartFacts,
   readTravelerPage,
   setHolesWithEvent,
+  setStepDone,
+  signOffTraveler,
   type TravelerCursor,
 } from './travelers-repository';
-
-/**
- * When a bench event happened: the moment it is written, under the part's lock. The column's default is
- * the transaction's start, which puts a write that waited for the lock before the one it waited for.
- */
-const underLockNow = () => sql`clock_timestamp()`;
 
 type FindingLister = (user: Express.User, filter: { travelerId: string }) => Promise<TravelerDetail['findings']>;
 /** What reaches outside: the mail queue (withdrawal notices) and the address labels and mails carry. The seed runs without. */
@@ -222,16 +218,11 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
 
     async setStep(user: Express.User, id: string, stepId: string, done: boolean) {
       return underLock(user, id, 'step', async (tx) => {
-        const [step] = await tx
-          .update(travelerSteps)
-          .set(done ? { doneAt: new Date(), doneBy: user.id } : { doneAt: null, doneBy: null })
-          .where(and(eq(travelerSteps.id, stepId), eq(travelerSteps.travelerId, id)))
-          .returning();
+        const step = await setStepDone(tx, id, stepId, done ? user.id : null);
         if (!step) throw notFound('step');
-        await tx.insert(travelerEvents).values({
+        await insertTravelerEvent(tx, {
           travelerId: id,
           actorId: user.id,
-          createdAt: underLockNow(),
           kind: done ? 'step_done' : 'step_undone',
           detail: { seq: step.seq, text: step.text },
         });
@@ -248,10 +239,8 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
     /** The inspector's sign-off: the readiness rule, checked on the locked part inside the transaction that signs. */
     async signOff(user: Express.User, id: string) {
       await underLock(user, id, 'sign-off', async (tx) => {
-        await tx.update(travelers).set({ signedOffAt: new Date(), signedOffBy: user.id }).where(eq(travelers.id, id));
-        await tx
-          .insert(travelerEvents)
-          .values({ travelerId: id, actorId: user.id, createdAt: underLockNow(), kind: 'signed_off', detail: {} });
+        await signOffTraveler(tx, id, user.id);
+        await insertTravelerEvent(tx, { travelerId: id, actorId: user.id, kind: 'signed_off', detail: {} });
       });
       return detail(user, id);
     },
@@ -264,19 +253,16 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
       const { mailQueue, publicUrl } = out();
       const part = await visible(user, id);
       await underLock(user, id, 'withdraw-sign-off', async (tx, locked, unit) => {
-        const [signer] = locked.signedOffBy
-          ? await tx.select({ name: users.name }).from(users).where(eq(users.id, locked.signedOffBy))
-          : [];
+        const signerName = locked.signedOffBy ? await findUserName(tx, locked.signedOffBy) : null;
         await clearSignOff(tx, id);
-        await tx.insert(travelerEvents).values({
+        await insertTravelerEvent(tx, {
           travelerId: id,
           actorId: user.id,
-          createdAt: underLockNow(),
           kind: 'sign_off_withdrawn',
           detail: {
             reason,
             signedOffAt: locked.signedOffAt?.toISOString() ?? null,
-            signedOffByName: signer?.name ?? null,
+            signedOffByName: signerName,
           },
         });
         // One job per builder: a retry after one mail server refusal does not send the others again.

@@ -8,6 +8,7 @@ import { ProgressBar } from '@/components/ui/progress-bar';
 import { HoleMark, HoleStatusLegend } from '@/components/ui/status-mark';
 import { Mono } from '@/components/ui/text';
 import { Toggle } from '@/components/ui/toggle';
+import { standardTravelerSummary } from '../fixtures/traveler';
 import { contrast, deltaE, deuteranopeLab } from './colour-math';
 import { renderWeb } from './render-web';
 
@@ -182,24 +183,14 @@ describe('colours that read', () => {
 
 describe('names that leave nothing out', () => {
   const card: TravelerSummary = {
+    ...standardTravelerSummary,
     id: 't1',
-    serial: 'NK2-0147-W-104',
-    shortCode: 'EDN-CY6',
-    buildId: 'b1',
-    kitSerial: 'NK2-0147',
-    partNumber: 'W-104',
-    partName: 'Wing rib, inboard',
-    kind: 'rib',
-    letter: 'A',
     holesTotal: 55,
     holesDone: 8,
     holesAwaitingInspector: 1,
     openFindings: 1,
-    signedOff: false,
     newerRevision: 'B',
-    replaced: null,
-    replacesId: null,
-  } as TravelerSummary;
+  };
 
   it('names a part card with its warnings: the open finding and the newer revision', () => {
     expect(travelerCardLabel(card)).toContain('1 open finding');

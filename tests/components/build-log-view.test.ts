@@ -5,6 +5,7 @@ import {
   filterEntries,
   groupByDay,
   isFiltered,
+  timeOf,
   logRows,
   noLogFilters,
 } from '@/components/build-log/log-view';
@@ -96,6 +97,18 @@ describe('the build log view', () => {
       ['2026-11-04', ['sign']],
       ['2026-11-03', ['flag', 'step', 'tick']],
     ]);
+  });
+
+  it('reads times on the reader’s clock across a DST change', () => {
+    // US daylight time ends on the first Sunday of November at 02:00 local (15 U.S.C. 260a, as amended in
+    // 2005): 1 November 2026 in Denver, when 08:00 UTC is 02:00 MDT, read as 01:00 MST. The hour 01:00–02:00
+    // is seen twice, an hour apart.
+    expect(timeOf('2026-11-01T07:30:00.000Z', 'America/Denver')).toBe('01:30');
+    expect(timeOf('2026-11-01T08:30:00.000Z', 'America/Denver')).toBe('01:30');
+    expect(timeOf('2026-11-01T09:30:00.000Z', 'America/Denver')).toBe('02:30');
+    // India has kept UTC+05:30 all year since 1945 (the IANA tz database's `asia` file, from memory).
+    expect(timeOf('2026-11-03T18:40:00.000Z', 'Asia/Kolkata')).toBe('00:10');
+    expect(dayOf('2026-11-03T18:40:00.000Z', 'Asia/Kolkata')).toBe('2026-11-04');
   });
 
   it('flattens days and entries into one list for the timeline, with a heading per day', () => {

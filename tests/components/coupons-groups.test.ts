@@ -1,26 +1,11 @@
-import type { CouponOutcome } from '@/db/contracts';
 import { ALL, filterCoupons, filterValues, sortCoupons } from '@/components/coupons/coupon-groups';
+import { coupon, tradeCoupons } from '../fixtures/coupons';
 
-const t = (
-  gaugeIn: number,
-  loadLb: number,
-  outcome: CouponOutcome,
-  rivetSpec = 'PULLED-4',
-  material = '6061-T6',
-  testedOn = '2026-10-14',
-) => ({ material, gaugeIn, rivetSpec, loadLb, outcome, testedOn });
-
-// Flange coupons of the trade (common practice): 6061-T6, pulled 1/8 in rivets.
-const seed = [
-  t(0.016, 20, 'excessive_deformation'),
-  t(0.016, 30, 'excessive_deformation'),
-  t(0.02, 13.5, 'no_deformation'),
-  t(0.02, 20, 'slight_deformation'),
-  t(0.02, 30, 'slight_deformation'),
-];
+// Flange coupons of the trade (common practice), as the table lists them: each with the day it was tested.
+const seed = tradeCoupons.map((c) => ({ ...c, testedOn: '2026-10-14' }));
 
 describe('the coupon table’s filters and order', () => {
-  const tests = [...seed, t(0.02, 25, 'no_deformation', 'MS20470AD4', '6061-T6', '2026-11-02')];
+  const tests = [...seed, { ...coupon(0.02, 25, 'no_deformation', 'MS20470AD4'), testedOn: '2026-11-02' }];
 
   it('filters by gauge and by rivet', () => {
     expect(filterCoupons(tests, { material: ALL, gauge: '0.02', rivet: ALL })).toHaveLength(4);

@@ -3,6 +3,7 @@ import { FlagScreen, measurementsFor } from '@/components/findings/flag-screen';
 import { basisOfTraveler } from '@/components/findings/measure-basis';
 import { MeasurementJudgement } from '@/components/findings/measurement-line';
 import { storageKeys } from '@/lib/storage';
+import { holeU, standardTraveler, upperFlangeOf } from '../fixtures/traveler';
 import { finding, recordFetch, wrap } from './finding-fixtures';
 
 const mockDismissTo = jest.fn();
@@ -18,65 +19,15 @@ jest.mock('expo-router', () => ({
 // A phone: one column, the hole grid behind "Change holes".
 jest.mock('@/hooks/use-wide', () => ({ useWide: () => false }));
 
-const traveler = {
+const traveler: TravelerDetail = {
+  ...standardTraveler,
   id: '0b7e9a52-5a1c-4b8e-9d0e-3f1f2a6c7d11',
-  serial: 'NK2-0147-W-104',
-  shortCode: 'EDN-CY6',
-  buildId: 'b1',
-  kitSerial: 'NK2-0147',
-  partNumber: 'W-104',
-  partName: 'Wing rib, inboard',
-  kind: 'rib',
-  letter: 'A',
   holesTotal: 3,
   holesDone: 1,
-  holesAwaitingInspector: 0,
-  openFindings: 0,
-  signedOff: false,
-  newerRevision: null,
-  replaced: null,
-  replacesId: null,
-  material: '6061-T6',
-  gaugeIn: 0.025,
-  rivetSpec: 'MS20470AD4',
-  drillSize: '#30',
-  drillDiameterIn: 0.1285,
-  edgeDistanceIn: 0.25,
-  chordIn: 10,
-  lines: [
-    {
-      code: 'U',
-      name: 'Upper flange',
-      surface: 'upper',
-      startIn: 1,
-      lengthIn: 4,
-      zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }],
-    },
-  ],
-  outline: [
-    [0, 0],
-    [10, 0],
-    [10, -0.5],
-    [0, -0.5],
-  ],
-  holes: [
-    { holeId: 'U-01', line: 'U', seq: 1, stationIn: 0.25, status: 'installed' },
-    { holeId: 'U-02', line: 'U', seq: 2, stationIn: 1.25, status: 'pending' },
-    { holeId: 'U-03', line: 'U', seq: 3, stationIn: 2.25, status: 'installed' },
-  ],
-  steps: [],
-  findings: [],
-  approvedByName: null,
-  signedOffAt: null,
-  signedOffByName: null,
-  rivetDiameterIn: 0.125,
-  countersunk: false,
-  place: 'builder',
-  allowedActions: ['tick', 'step', 'raise'],
+  lines: [upperFlangeOf(4)],
+  holes: [holeU(1, 0.25, 'installed'), holeU(2, 1.25, 'pending'), holeU(3, 2.25, 'installed')],
   readiness: { ready: false, reasons: [] },
-  replacedBy: null,
-  replaces: null,
-} as TravelerDetail;
+};
 
 const basis = basisOfTraveler(traveler)!;
 const flag = (holes: string[] = ['U-03'], system: 'imperial' | 'metric' = 'imperial') =>

@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { act } from 'react';
-import { useForm } from 'react-hook-form';
+import { act, useEffect } from 'react';
+import { useForm, useWatch } from 'react-hook-form';
 import type { z } from 'zod';
 import { kitModelInput } from '@/db/contracts';
 import { ShortCodeEntry } from '@/components/bench/short-code-entry';
@@ -17,13 +17,17 @@ let setServerError: ((e: unknown) => string) | null = null;
 let lastValues: Partial<KitValues> = {};
 
 function KitBits() {
-  const { control, setError, watch } = useForm<KitValues, unknown, z.output<typeof kitModelInput>>({
+  const { control, setError } = useForm<KitValues, unknown, z.output<typeof kitModelInput>>({
     resolver: zodResolver(kitModelInput, plainParse),
     mode: 'onChange',
     defaultValues: { code: '', name: '', airfoil: 'NACA ', category: 'normal' },
   });
-  setServerError = (e) => applyServerErrors(setError, e);
-  lastValues = watch();
+  const values = useWatch({ control });
+  // Handed to the test once rendered (an effect: a render itself changes nothing outside the component).
+  useEffect(() => {
+    setServerError = (e) => applyServerErrors(setError, e);
+    lastValues = values;
+  });
   return (
     <>
       <FormTextField control={control} name="airfoil" label="Airfoil" testID="kit-airfoil" />

@@ -1,6 +1,7 @@
-import type { PartLabel, TravelerDetail } from '@/db/contracts';
+import type { PartLabel } from '@/db/contracts';
 import { LabelsScreen } from '@/components/travelers/labels-screen';
 import { TravelerScreen } from '@/components/travelers/traveler-screen';
+import { standardTraveler } from '../fixtures/traveler';
 import { recordFetch, wrap } from './finding-fixtures';
 
 const mockPush = jest.fn();
@@ -92,61 +93,7 @@ describe('the labels page', () => {
 });
 
 describe('reprinting one part’s label from the traveler', () => {
-  const detail = {
-    id: 'trav-1',
-    serial: 'NK2-0147-W-104',
-    shortCode: 'EDN-CY6',
-    buildId: 'b1',
-    kitSerial: 'NK2-0147',
-    partNumber: 'W-104',
-    partName: 'Wing rib, inboard',
-    kind: 'rib',
-    letter: 'A',
-    holesTotal: 1,
-    holesDone: 0,
-    holesAwaitingInspector: 0,
-    openFindings: 0,
-    signedOff: false,
-    newerRevision: null,
-    replaced: null,
-    replacesId: null,
-    material: '6061-T6',
-    gaugeIn: 0.025,
-    rivetSpec: 'MS20470AD4',
-    drillSize: '#30',
-    drillDiameterIn: 0.1285,
-    edgeDistanceIn: 0.25,
-    chordIn: 10,
-    lines: [
-      {
-        code: 'U',
-        name: 'Upper flange',
-        surface: 'upper',
-        startIn: 1,
-        lengthIn: 1,
-        zones: [{ fromIn: 0, toIn: 1, pitchIn: 1 }],
-      },
-    ],
-    outline: [
-      [0, 0],
-      [10, 0],
-      [10, -0.5],
-      [0, -0.5],
-    ],
-    holes: [{ holeId: 'U-01', line: 'U', seq: 1, stationIn: 0.25, status: 'pending' }],
-    steps: [],
-    findings: [],
-    approvedByName: null,
-    signedOffAt: null,
-    signedOffByName: null,
-    rivetDiameterIn: 0.125,
-    countersunk: false,
-    place: 'builder',
-    allowedActions: ['tick', 'step', 'raise'],
-    readiness: { ready: false, reasons: ['1 hole not done'] },
-    replacedBy: null,
-    replaces: null,
-  } satisfies TravelerDetail;
+  const detail = standardTraveler;
 
   it('links to the labels page of this one part when the server allows it', async () => {
     const r = wrap(<TravelerScreen travelerId="trav-1" />, { traveler: { ...detail, labelAllowed: true } });

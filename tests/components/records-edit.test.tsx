@@ -5,6 +5,7 @@ import { DesignScreen } from '@/components/designs/design-screen';
 import { buildKeys, type BuildPage } from '@/hooks/queries/builds';
 import { couponKeys } from '@/hooks/queries/coupons';
 import { designKeys } from '@/hooks/queries/designs';
+import { flangeLine, ribRevision } from '../fixtures/rib-revision';
 import { buildPeople, lead, recordFetch, wrapSignedIn } from './people-fixtures';
 
 jest.mock('expo-router', () => ({
@@ -22,23 +23,8 @@ const revision = (over: Partial<Revision> = {}): Revision => ({
   partDesignId: 'd-1',
   letter: 'B',
   status: 'draft',
-  material: '6061-T6',
-  gaugeIn: 0.025,
-  rivetSpec: 'MS20470AD4',
-  drillSize: '#30',
-  drillDiameterIn: 0.1285,
-  edgeDistanceIn: 0.25,
-  chordIn: 40,
-  lines: [
-    {
-      code: 'U',
-      name: 'Upper flange',
-      surface: 'upper',
-      startIn: 1,
-      lengthIn: 30,
-      zones: [{ fromIn: 0, toIn: 30, pitchIn: 1 }],
-    },
-  ],
+  ...ribRevision,
+  lines: [flangeLine('U', 30, [{ fromIn: 0, toIn: 30, pitchIn: 1 }])],
   steps: [],
   changeNote: 'Wider pitch aft',
   basis: null,

@@ -8,6 +8,7 @@ import { Notice } from '@/components/ui/states';
 import { Mono, Txt, valueGroups } from '@/components/ui/text';
 import { fonts } from '@/constants/theme';
 import { storageKeys } from '@/lib/storage';
+import { holeU, standardTraveler, upperFlangeOf } from '../fixtures/traveler';
 import { recordFetch, wrap } from './finding-fixtures';
 import { renderWeb } from './render-web';
 
@@ -112,64 +113,15 @@ describe('the photo picker takes photos only, and says so at once', () => {
   });
 });
 
-const traveler = {
+const traveler: TravelerDetail = {
+  ...standardTraveler,
   id: '0b7e9a52-5a1c-4b8e-9d0e-3f1f2a6c7d11',
-  serial: 'NK2-0147-W-104',
-  shortCode: 'EDN-CY6',
-  buildId: 'b1',
-  kitSerial: 'NK2-0147',
-  partNumber: 'W-104',
-  partName: 'Wing rib, inboard',
-  kind: 'rib',
-  letter: 'A',
   holesTotal: 2,
   holesDone: 1,
-  holesAwaitingInspector: 0,
-  openFindings: 0,
-  signedOff: false,
-  newerRevision: null,
-  replaced: null,
-  replacesId: null,
-  material: '6061-T6',
-  gaugeIn: 0.025,
-  rivetSpec: 'MS20470AD4',
-  drillSize: '#30',
-  drillDiameterIn: 0.1285,
-  edgeDistanceIn: 0.25,
-  chordIn: 10,
-  lines: [
-    {
-      code: 'U',
-      name: 'Upper flange',
-      surface: 'upper',
-      startIn: 1,
-      lengthIn: 4,
-      zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }],
-    },
-  ],
-  outline: [
-    [0, 0],
-    [10, 0],
-    [10, -0.5],
-    [0, -0.5],
-  ],
-  holes: [
-    { holeId: 'U-01', line: 'U', seq: 1, stationIn: 0.25, status: 'installed' },
-    { holeId: 'U-02', line: 'U', seq: 2, stationIn: 1.25, status: 'pending' },
-  ],
-  steps: [],
-  findings: [],
-  approvedByName: null,
-  signedOffAt: null,
-  signedOffByName: null,
-  rivetDiameterIn: 0.125,
-  countersunk: false,
-  place: 'builder',
-  allowedActions: ['tick', 'step', 'raise'],
+  lines: [upperFlangeOf(4)],
+  holes: [holeU(1, 0.25, 'installed'), holeU(2, 1.25, 'pending')],
   readiness: { ready: false, reasons: [] },
-  replacedBy: null,
-  replaces: null,
-} as TravelerDetail;
+};
 
 describe('a photo the server refuses', () => {
   afterEach(() => window.localStorage.clear());

@@ -6,23 +6,19 @@ import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import type { ReactElement } from 'react';
 import type { KitModel } from '@/db/contracts';
 import { UnitsProvider } from '@/hooks/use-units';
+import { standardKit } from '../fixtures/rib-study';
 import { renderWeb } from './render-web';
 
 export const KIT_ID = '3f1c9a52-8a1e-4c47-9b7e-2f3a4d5e6f70';
 
-/** An invented kit model: 1320 lb, 120 sq ft, 54 in mean chord, NACA 2412. */
+/** The standard kit (1320 lb, 120 sq ft, 54 in mean chord) as a stored kit model, NACA 2412. */
 export const demoKit: KitModel = {
   id: KIT_ID,
   organizationId: 'org',
   createdAt: '2026-10-01T00:00:00Z',
   code: 'NK-2',
   name: 'NK-2 Quillon',
-  weightLb: 1320,
-  wingAreaSqFt: 120,
-  meanChordIn: 54,
-  stallSpeedKeas: 47,
-  cruiseSpeedKeas: 118,
-  category: 'utility',
+  ...standardKit,
   airfoil: 'NACA 2412',
 };
 

@@ -7,6 +7,8 @@ import { studyKeys } from '@/hooks/queries/studies';
 // The test computes the demo study with the real engine, so the screen is checked against the very
 // shape the server stores (the app itself never imports server/).
 import { ribCandidate, ribStudy } from '@/server/engineering';
+import { tradeCoupons } from '../fixtures/coupons';
+import { standardRibStudy } from '../fixtures/rib-study';
 import { fakeLayout, KIT_ID, renderWithQueries } from './studies-render';
 
 // Whole screens render in jsdom: slower than a unit test, more so when the machine is busy.
@@ -16,44 +18,9 @@ jest.setTimeout(30_000);
 fakeLayout(() => 640);
 
 const KIT = KIT_ID;
-const inputs = {
-  kit: {
-    weightLb: 1320,
-    wingAreaSqFt: 120,
-    meanChordIn: 54,
-    stallSpeedKeas: 47,
-    cruiseSpeedKeas: 118,
-    category: 'utility' as const,
-  },
-  airfoil: { kind: 'naca' as const, designation: '2412' },
-  rib: { chordIn: 54, spacingIn: 14.5 },
-  lines: [
-    { name: 'Upper flange', surface: 'upper' as const, startXc: 0.02, endXc: 0.85 },
-    { name: 'Lower flange', surface: 'lower' as const, startXc: 0.02, endXc: 0.85 },
-  ],
-  material: '6061-T6',
-  gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04, 0.05],
-  rivetCandidates: ['PULLED-4', 'MS20470AD3', 'MS20470AD4'],
-  maxPitchDiameters: 8,
-  pitchIncrementIn: 0.125,
-  maxZones: 4,
-};
-const coupons = (
-  [
-    [0.016, 20, 'excessive_deformation'],
-    [0.016, 30, 'excessive_deformation'],
-    [0.02, 13.5, 'no_deformation'],
-    [0.02, 20, 'slight_deformation'],
-    [0.02, 30, 'slight_deformation'],
-  ] as const
-).map(([gaugeIn, loadLb, outcome]) => ({
-  material: '6061-T6',
-  gaugeIn,
-  couponWidthIn: 1,
-  rivetSpec: 'PULLED-4',
-  loadLb,
-  outcome,
-}));
+const inputs = standardRibStudy;
+// The trade's coupons, each on a 1 in wide strip.
+const coupons = tradeCoupons.map((c) => ({ ...c, couponWidthIn: 1 }));
 const result = ribStudy({ ...inputs, coupons });
 // What GET /api/studies/:id/candidate answers for a candidate stored without its holes.
 const unstored = { gaugeIn: 0.016, rivet: 'PULLED-4' };

@@ -1,8 +1,24 @@
-import { QueryClient } from '@tanstack/react-query';
+import { onlineManager, QueryClientProvider, type QueryClient } from '@tanstack/react-query';
+import { persistQueryClient } from '@tanstack/react-query-persist-client';
+import { act, createElement } from 'react';
+import { createRoot } from 'react-dom/client';
 import type { TravelerDetail } from '@/db/contracts';
-import { applyTick } from '@/hooks/queries/travelers';
-import { dropTick, queueTick, readOutbox, withPendingTicks } from '@/lib/tick-outbox';
-import { flushOutbox } from '@/hooks/use-tick-outbox';
+import {
+  isUnsentTick,
+  travelerKeys,
+  useTickQueue,
+  useTravelerTickMutation,
+  withUnsentTicks,
+  type TickVariables,
+} from '@/hooks/queries/travelers';
+import { afterRestore, clearForNextPerson, makeQueryClient, persistOptions } from '@/lib/query-client';
+import { storageKeys } from '@/lib/storage';
+
+/**
+ * Ticks made without signal, on TanStack Query's own machinery: paused by its online manager, kept on
+ * the device by its persister (localStorage here, as in the browser) with the time each was made on the
+ * device, restored into a new client as after a reload, and sent in the order made.
+ */
 
 const detail = (id: string) =>
   ({
@@ -14,10 +30,18 @@ const detail = (id: string) =>
     holesDone: 0,
   }) as unknown as TravelerDetail;
 
+jest.setTimeout(30_000);
+
 const original = global.fetch;
-afterEach(async () => {
+const clients: QueryClient[] = [];
+const stops: (() => void)[] = [];
+afterEach(() => {
   global.fetch = original;
-  for (const t of await readOutbox()) await dropTick(t.id);
+  stops.splice(0).forEach((s) => s());
+  clients.splice(0).forEach((c) => c.clear());
+  onlineManager.setOnline(true);
+  jest.useRealTimers();
+  localStorage.clear();
 });
 
 const answer = (status: number, body: unknown) => ({
@@ -26,53 +50,211 @@ const answer = (status: number, body: unknown) => ({
   text: async () => JSON.stringify(body),
 });
 
+type Sent = { travelerId: string; body: unknown };
+function recordingServer(status = 200, body: unknown = { holes: [] }): Sent[] {
+  const sent: Sent[] = [];
+  global.fetch = jest.fn(async (url: string, init?: { body?: string }) => {
+    const b = JSON.parse(init!.body!);
+    sent.push({ travelerId: decodeURIComponent(url.split('/')[3]), body: b });
+    return answer(status, body);
+  }) as never;
+  return sent;
+}
+const noSignal = () => {
+  global.fetch = jest.fn(async () => {
+    throw new TypeError('Failed to fetch');
+  }) as never;
+};
+
+/** A client as the app makes it, kept on the device as the app keeps it; restored like a reload. */
+async function device(): Promise<QueryClient> {
+  const qc = makeQueryClient();
+  clients.push(qc);
+  const [stop, restored] = persistQueryClient({ queryClient: qc, ...persistOptions() });
+  stops.push(stop);
+  await restored;
+  await afterRestore(qc);
+  return qc;
+}
+
+(globalThis as { IS_REACT_ACT_ENVIRONMENT?: boolean }).IS_REACT_ACT_ENVIRONMENT = true;
+
+/** The bench's two hooks for one part, mounted with react-dom as the web app mounts them. */
+function tickHook(qc: QueryClient, travelerId: string) {
+  const result = {} as {
+    current: { tick: ReturnType<typeof useTravelerTickMutation>; queue: ReturnType<typeof useTickQueue> };
+  };
+  function Probe() {
+    result.current = { tick: useTravelerTickMutation(travelerId), queue: useTickQueue(travelerId) };
+    return null;
+  }
+  const root = createRoot(document.createElement('div'));
+  act(() => root.render(createElement(QueryClientProvider, { client: qc }, createElement(Probe))));
+  return { result, unmount: () => act(() => root.unmount()) };
+}
+
+/** Ticks at a given moment of the device's clock (only Date is faked; timers run for real). */
+function at(iso: string) {
+  jest.useFakeTimers({
+    now: new Date(iso),
+    doNotFake: [
+      'setTimeout',
+      'clearTimeout',
+      'setInterval',
+      'clearInterval',
+      'setImmediate',
+      'clearImmediate',
+      'nextTick',
+      'queueMicrotask',
+      'performance',
+      'hrtime',
+    ],
+  });
+}
+
+const until = async (ok: () => boolean, what: string) => {
+  for (let i = 0; i < 200 && !ok(); i++) await act(() => new Promise((r) => setTimeout(r, 25)));
+  if (!ok()) throw new Error(`timed out waiting until ${what}`);
+};
+
+const keptOnDevice = () => {
+  const raw = localStorage.getItem(storageKeys.queryCache);
+  const kept = raw ? (JSON.parse(raw).clientState.mutations as { state: { variables: TickVariables } }[]) : [];
+  return kept.map((m) => m.state.variables);
+};
+
 describe('ticks made without signal', () => {
-  it('stay on the device in the order made, and show on the traveler they belong to only', async () => {
-    await queueTick('t1', { holeIds: ['U-01'], status: 'installed' });
-    await queueTick('t2', { holeIds: ['U-02'], status: 'installed' });
-    await queueTick('t1', { holeIds: ['U-02'], status: 'installed' });
-    const pending = await readOutbox();
-    expect(pending.map((p) => p.travelerId)).toEqual(['t1', 't2', 't1']);
-    const shown = withPendingTicks(detail('t1'), pending, applyTick);
+  it('wait paused, show on their own part only, and are kept on the device in the order made', async () => {
+    onlineManager.setOnline(false);
+    const sent = recordingServer();
+    const qc = await device();
+    qc.setQueryData(travelerKeys.detail('t1'), detail('t1'));
+    const one = tickHook(qc, 't1');
+    const two = tickHook(qc, 't2');
+    at('2026-11-03T14:05:09.000Z');
+    act(() => one.result.current.tick.mutate({ holeIds: ['U-01'], status: 'installed' }));
+    at('2026-11-03T14:06:00.000Z');
+    act(() => two.result.current.tick.mutate({ holeIds: ['U-02'], status: 'installed' }));
+    at('2026-11-03T14:07:30.000Z');
+    act(() => one.result.current.tick.mutate({ holeIds: ['U-02'], status: 'installed' }));
+    jest.useRealTimers();
+
+    await until(() => one.result.current.queue.waiting.length === 2, 'both ticks of t1 wait');
+    expect(two.result.current.queue.waiting).toHaveLength(1);
+    expect(sent).toEqual([]);
+    // Shown at once on the cached part, and counted in over the server's copy of any part.
+    const shown = qc.getQueryData<TravelerDetail>(travelerKeys.detail('t1'))!;
     expect(shown.holes.map((h) => h.status)).toEqual(['installed', 'installed']);
-    expect(withPendingTicks(detail('t3'), pending, applyTick).holes.map((h) => h.status)).toEqual([
-      'pending',
-      'pending',
+    expect(withUnsentTicks(detail('t1'), qc).holes.map((h) => h.status)).toEqual(['installed', 'installed']);
+    expect(withUnsentTicks(detail('t3'), qc).holes.map((h) => h.status)).toEqual(['pending', 'pending']);
+
+    await until(() => keptOnDevice().length === 3, 'the persister has written them');
+    expect(keptOnDevice().map((t) => [t.travelerId, t.holeIds[0], t.at])).toEqual([
+      ['t1', 'U-01', '2026-11-03T14:05:09.000Z'],
+      ['t2', 'U-02', '2026-11-03T14:06:00.000Z'],
+      ['t1', 'U-02', '2026-11-03T14:07:30.000Z'],
     ]);
+    // A person signing out does not throw away work done at the bench.
+    clearForNextPerson(qc);
+    expect(qc.getMutationCache().getAll().filter(isUnsentTick)).toHaveLength(3);
   });
 
-  it('are kept while there is still no signal, then sent in order once the server answers', async () => {
-    await queueTick('t1', { holeIds: ['U-01'], status: 'installed' });
-    await queueTick('t1', { holeIds: ['U-02'], status: 'installed' });
-    const qc = new QueryClient();
-    global.fetch = jest.fn(async () => {
-      throw new TypeError('Failed to fetch');
-    }) as never;
-    await flushOutbox(qc);
-    expect(await readOutbox()).toHaveLength(2);
+  it('survive a reload and are sent in the order made, with the time each was made, once the signal returns', async () => {
+    onlineManager.setOnline(false);
+    const first = await device();
+    const hook = tickHook(first, 't1');
+    at('2026-11-03T09:00:00.000Z');
+    act(() => hook.result.current.tick.mutate({ holeIds: ['U-01'], status: 'installed' }));
+    at('2026-11-03T09:00:04.000Z');
+    act(() => hook.result.current.tick.mutate({ holeIds: ['U-02'], status: 'installed' }));
+    at('2026-11-03T09:01:00.000Z');
+    act(() => hook.result.current.tick.mutate({ holeIds: ['U-01'], status: 'pending' }));
+    jest.useRealTimers();
+    await until(() => keptOnDevice().length === 3, 'the persister has written them');
+    // The tab closes: its client is gone, only the device's storage is left.
+    hook.unmount();
+    stops.splice(0).forEach((s) => s());
+    clients.splice(0).forEach((c) => c.getMutationCache().clear());
 
-    const sent: string[] = [];
-    global.fetch = jest.fn(async (_url: string, init?: { body?: string }) => {
-      sent.push(JSON.parse(init!.body!).holeIds[0]);
-      return answer(200, { holes: [] });
-    }) as never;
-    await flushOutbox(qc);
-    expect(sent).toEqual(['U-01', 'U-02']);
-    expect(await readOutbox()).toHaveLength(0);
+    const sent = recordingServer();
+    const second = await device();
+    const again = tickHook(second, 't1');
+    expect(second.getMutationCache().getAll().filter(isUnsentTick)).toHaveLength(3);
+    // Each still carries the moment it was made on the device.
+    expect(again.result.current.queue.waiting.map((t) => [t.holeIds[0], t.status, t.at])).toEqual([
+      ['U-01', 'installed', '2026-11-03T09:00:00.000Z'],
+      ['U-02', 'installed', '2026-11-03T09:00:04.000Z'],
+      ['U-01', 'pending', '2026-11-03T09:01:00.000Z'],
+    ]);
+    expect(withUnsentTicks(detail('t1'), second).holes.map((h) => h.status)).toEqual(['pending', 'installed']);
+    expect(sent).toEqual([]);
+
+    act(() => onlineManager.setOnline(true));
+    await until(() => second.getMutationCache().getAll().filter(isUnsentTick).length === 0, 'all are through');
+    // In the order made, each with exactly the fields of the API's contract (tickHolesInput).
+    expect(sent).toEqual([
+      { travelerId: 't1', body: { holeIds: ['U-01'], status: 'installed' } },
+      { travelerId: 't1', body: { holeIds: ['U-02'], status: 'installed' } },
+      { travelerId: 't1', body: { holeIds: ['U-01'], status: 'pending' } },
+    ]);
+    await until(() => keptOnDevice().length === 0, 'the device no longer keeps them');
   });
 
-  it('are dropped with a message when the server refuses them for good, but kept when sign-in must be renewed', async () => {
-    await queueTick('t1', { holeIds: ['U-01'], status: 'installed' });
-    const qc = new QueryClient();
-    global.fetch = jest.fn(async () =>
-      answer(401, { error: { code: 'unauthorized', message: 'sign in first' } }),
-    ) as never;
-    await flushOutbox(qc);
-    expect(await readOutbox()).toHaveLength(1);
-    global.fetch = jest.fn(async () =>
-      answer(409, { error: { code: 'conflict', message: 'hole U-01 (flagged) is under a finding' } }),
-    ) as never;
-    await flushOutbox(qc);
-    expect(await readOutbox()).toHaveLength(0);
+  it('keep trying while the server cannot be reached though the browser says there is signal', async () => {
+    noSignal();
+    const qc = await device();
+    const hook = tickHook(qc, 't1');
+    act(() => hook.result.current.tick.mutate({ holeIds: ['U-01'], status: 'installed' }));
+    await until(() => hook.result.current.queue.waiting.length === 1, 'the tick waits');
+    await until(() => keptOnDevice().length === 1, 'the tick is kept on the device');
+    const sent = recordingServer();
+    // The next try is spaced a second or two after the first failure.
+    await until(() => sent.length === 1 && hook.result.current.queue.waiting.length === 0, 'the tick is through');
+  });
+
+  it('are taken back with a message when refused for good, but kept while a sign-in must be renewed', async () => {
+    onlineManager.setOnline(false);
+    const qc = await device();
+    qc.setQueryData(travelerKeys.detail('t1'), detail('t1'));
+    const hook = tickHook(qc, 't1');
+    act(() => hook.result.current.tick.mutate({ holeIds: ['U-01'], status: 'installed' }));
+    await until(() => hook.result.current.queue.waiting.length === 1, 'the tick waits');
+
+    const renew = recordingServer(401, { error: { code: 'unauthorized', message: 'sign in first' } });
+    act(() => onlineManager.setOnline(true));
+    await until(() => renew.length === 1, 'the tick was tried');
+    await act(() => new Promise((r) => setTimeout(r, 100)));
+    expect(qc.getMutationCache().getAll().filter(isUnsentTick)).toHaveLength(1);
+    expect(hook.result.current.queue.refused).toBeNull();
+
+    const refusing = recordingServer(409, {
+      error: { code: 'conflict', message: 'hole U-01 (flagged) is under a finding and cannot be ticked here' },
+    });
+    await until(() => refusing.length === 1 && hook.result.current.queue.refused !== null, 'the refusal shows');
+    expect(hook.result.current.queue.refused).toMatch(/^Not saved: hole U-01 \(flagged\) is under a finding/);
+    expect(hook.result.current.queue.waiting).toHaveLength(0);
+    expect(qc.getQueryData<TravelerDetail>(travelerKeys.detail('t1'))!.holes[0].status).toBe('pending');
+    act(() => hook.result.current.queue.dismissRefused());
+    await until(() => hook.result.current.queue.refused === null, 'the message is dismissed');
+  });
+
+  it('kept by an earlier version under its own key are taken over once, in their order', async () => {
+    localStorage.setItem(
+      storageKeys.tickOutbox,
+      JSON.stringify([
+        { id: 'a', travelerId: 't1', holeIds: ['U-02'], status: 'installed', at: '2026-11-02T10:00:00.000Z' },
+        { id: 'b', travelerId: 't1', holeIds: [], status: 'installed', at: '2026-11-02T10:00:01.000Z' },
+        { id: 'c', travelerId: 't2', holeIds: ['U-01'], status: 'installed', at: '2026-11-02T10:00:02.000Z' },
+      ]),
+    );
+    const sent = recordingServer();
+    const qc = await device();
+    await until(() => sent.length === 2, 'both valid ticks are through');
+    expect(sent.map((x) => [x.travelerId, x.body])).toEqual([
+      ['t1', { holeIds: ['U-02'], status: 'installed' }],
+      ['t2', { holeIds: ['U-01'], status: 'installed' }],
+    ]);
+    expect(localStorage.getItem(storageKeys.tickOutbox)).toBeNull();
+    expect(qc.getMutationCache().getAll().filter(isUnsentTick)).toHaveLength(0);
   });
 });

@@ -1,6 +1,7 @@
 import type { TravelerDetail } from '@/db/contracts';
 import { TravelerScreen } from '@/components/travelers/traveler-screen';
 import { filterTravelers } from '@/components/travelers/travelers-screen';
+import { holeU, standardTraveler, upperFlangeOf } from '../fixtures/traveler';
 import { wrap } from './finding-fixtures';
 
 const mockPush = jest.fn();
@@ -10,33 +11,14 @@ jest.mock('expo-router', () => ({
 
 beforeEach(() => mockPush.mockReset());
 
-const zones = [{ fromIn: 0, toIn: 4, pitchIn: 1 }];
 const detail: TravelerDetail = {
-  id: 'trav-1',
-  serial: 'NK2-0147-W-104',
-  shortCode: 'EDN-CY6',
-  buildId: 'b1',
-  kitSerial: 'NK2-0147',
-  partNumber: 'W-104',
-  partName: 'Wing rib, inboard',
-  kind: 'rib',
-  letter: 'A',
+  ...standardTraveler,
   holesTotal: 4,
   holesDone: 1,
   holesAwaitingInspector: 1,
   openFindings: 1,
-  signedOff: false,
   newerRevision: 'B',
-  replaced: null,
-  replacesId: null,
-  material: '6061-T6',
-  gaugeIn: 0.025,
-  rivetSpec: 'MS20470AD4',
-  drillSize: '#30',
-  drillDiameterIn: 0.1285,
-  edgeDistanceIn: 0.25,
-  chordIn: 10,
-  lines: [{ code: 'U', name: 'Upper flange', surface: 'upper', startIn: 1, lengthIn: 4, zones }],
+  lines: [upperFlangeOf(4)],
   outline: [
     [0, 0],
     [3, 1.5],
@@ -44,24 +26,10 @@ const detail: TravelerDetail = {
     [10, -0.5],
     [0, -0.5],
   ],
-  holes: [
-    { holeId: 'U-01', line: 'U', seq: 1, stationIn: 0.25, status: 'installed' },
-    { holeId: 'U-02', line: 'U', seq: 2, stationIn: 1.25, status: 'pending' },
-    { holeId: 'U-03', line: 'U', seq: 3, stationIn: 2.25, status: 'flagged' },
-    { holeId: 'U-04', line: 'U', seq: 4, stationIn: 3.75, status: 'pending' },
-  ],
+  holes: [holeU(1, 0.25, 'installed'), holeU(2, 1.25, 'pending'), holeU(3, 2.25, 'flagged'), holeU(4, 3.75, 'pending')],
   steps: [{ id: 's1', seq: 1, text: 'Deburr all holes', doneAt: null, doneByName: null }],
-  findings: [],
   approvedByName: 'Maren Holt',
-  signedOffAt: null,
-  signedOffByName: null,
-  rivetDiameterIn: 0.125,
-  countersunk: false,
-  place: 'builder',
-  allowedActions: ['tick', 'step', 'raise'],
   readiness: { ready: false, reasons: ['2 holes not done', '1 step not done', '1 finding open'] },
-  replacedBy: null,
-  replaces: null,
 };
 
 function renderTraveler(over: Partial<TravelerDetail> = {}) {

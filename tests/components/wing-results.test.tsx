@@ -6,6 +6,7 @@ import { designKeys } from '@/hooks/queries/designs';
 // The real engine computes the wing, so the screen is checked against the very shape the server stores
 // (the app itself never imports server/).
 import { ribStudy, wingStudy, type WingStudyInput } from '@/server/engineering';
+import { standardWing } from '../fixtures/wing-study';
 import { fakeLayout, KIT_ID, renderWithQueries } from './studies-render';
 
 jest.setTimeout(60_000);
@@ -20,37 +21,15 @@ afterEach(() => {
 const KIT = KIT_ID;
 // The form's default wing (a rectangle of the kit's area and chord), with four ribs to keep the test quick.
 const inputs: WingStudyInput = {
-  kit: {
-    weightLb: 1320,
-    wingAreaSqFt: 120,
-    meanChordIn: 54,
-    stallSpeedKeas: 47,
-    cruiseSpeedKeas: 118,
-    category: 'utility',
-  },
-  planform: { kind: 'rectangle', spanIn: 320, chordIn: 54 },
+  ...standardWing,
   tail: { armIn: 170 },
-  airfoil: { kind: 'naca', designation: '2412' },
   ribs: [
     { name: 'W-101', stationIn: 24 },
     { name: 'W-102', stationIn: 62 },
     { name: 'W-103', stationIn: 100 },
     { name: 'W-104', stationIn: 138 },
   ],
-  rib: {
-    lines: [
-      { name: 'Upper flange', surface: 'upper', startXc: 0.02, endXc: 0.85 },
-      { name: 'Lower flange', surface: 'lower', startXc: 0.02, endXc: 0.85 },
-    ],
-  },
-  spars: { frontXc: 0.15, rearXc: 0.7, capAreaSqIn: 1 },
-  skin: { gaugeCandidates: [0.016, 0.02, 0.025, 0.032], rivetCandidates: ['MS20426AD3', 'MS20426AD4'] },
-  material: '6061-T6',
   gaugeCandidates: [0.025, 0.032, 0.04, 0.05],
-  rivetCandidates: ['PULLED-4', 'MS20470AD4'],
-  maxPitchDiameters: 8,
-  pitchIncrementIn: 0.125,
-  maxZones: 4,
 };
 const result = wingStudy(inputs);
 

@@ -1,66 +1,23 @@
 import type { TravelerDetail } from '@/db/contracts';
 import { TravelerScreen } from '@/components/travelers/traveler-screen';
+import { holeU, standardTraveler } from '../fixtures/traveler';
 import { recordFetch, wrap } from './finding-fixtures';
 
 jest.mock('expo-router', () => ({
   useRouter: () => ({ push: jest.fn(), replace: jest.fn(), back: jest.fn(), canGoBack: () => false }),
 }));
 
-const signed = {
-  id: 'trav-1',
-  serial: 'NK2-0147-W-104',
-  shortCode: 'EDN-CY6',
-  buildId: 'b1',
-  kitSerial: 'NK2-0147',
-  partNumber: 'W-104',
-  partName: 'Wing rib, inboard',
-  kind: 'rib',
-  letter: 'A',
-  holesTotal: 1,
+const signed: TravelerDetail = {
+  ...standardTraveler,
   holesDone: 1,
-  holesAwaitingInspector: 0,
-  openFindings: 0,
   signedOff: true,
-  newerRevision: null,
-  replaced: null,
-  replacesId: null,
-  material: '6061-T6',
-  gaugeIn: 0.025,
-  rivetSpec: 'MS20470AD4',
-  drillSize: '#30',
-  drillDiameterIn: 0.1285,
-  edgeDistanceIn: 0.25,
-  chordIn: 10,
-  lines: [
-    {
-      code: 'U',
-      name: 'Upper flange',
-      surface: 'upper',
-      startIn: 1,
-      lengthIn: 1,
-      zones: [{ fromIn: 0, toIn: 1, pitchIn: 1 }],
-    },
-  ],
-  outline: [
-    [0, 0],
-    [10, 0],
-    [10, -0.5],
-    [0, -0.5],
-  ],
-  holes: [{ holeId: 'U-01', line: 'U', seq: 1, stationIn: 0.25, status: 'installed' }],
-  steps: [],
-  findings: [],
-  approvedByName: null,
+  holes: [holeU(1, 0.25, 'installed')],
   signedOffAt: '2025-03-01T10:00:00.000Z',
   signedOffByName: 'Ines Inspector',
-  rivetDiameterIn: 0.125,
-  countersunk: false,
   place: 'inspector',
   allowedActions: ['withdraw-sign-off'],
   readiness: { ready: false, reasons: ['this part is already signed off'] },
-  replacedBy: null,
-  replaces: null,
-} satisfies TravelerDetail;
+};
 
 const reopened: TravelerDetail = {
   ...signed,

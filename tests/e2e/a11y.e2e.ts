@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import request from 'supertest';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
+import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
 import { contrast } from '../components/colour-math';
 import {
   auditSession,

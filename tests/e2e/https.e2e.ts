@@ -4,7 +4,7 @@ import os from 'node:os';
 import path from 'node:path';
 import type { Browser } from 'playwright-core';
 import request from 'supertest';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
+import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
 import type { TestApp } from '../helpers/test-app';
 import { launchBrowser, phonePage } from './helpers/browser';
 import { writeQrVideo } from './helpers/qr-video';

@@ -1,8 +1,7 @@
-import jsQR from 'jsqr';
 import type { Browser, Page } from 'playwright-core';
-import sharp from 'sharp';
 import request from 'supertest';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
+import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
+import { readQr } from '../fixtures/read-qr';
 import type { TestApp } from '../helpers/test-app';
 import { launchBrowser, phonePage } from './helpers/browser';
 import { serveTestApp } from './helpers/served-app';
@@ -94,10 +93,7 @@ describe('QR labels in a real browser', () => {
 
     // The QR read back off the page, as a phone would: the public address of this part.
     const png = await card.locator('img').first().screenshot();
-    const { data, info } = await sharp(png).ensureAlpha().raw().toBuffer({ resolveWithObject: true });
-    expect(jsQR(new Uint8ClampedArray(data), info.width, info.height)?.data).toMatch(
-      new RegExp(`^${t.config.publicUrl}/t/[A-Za-z0-9_-]{20,}$`),
-    );
+    expect(await readQr(png)).toMatch(new RegExp(`^${t.config.publicUrl}/t/[A-Za-z0-9_-]{20,}$`));
     await page.context().close();
   });
 

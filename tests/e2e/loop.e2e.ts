@@ -1,11 +1,11 @@
 import { mkdtemp, writeFile } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
-import jsQR from 'jsqr';
 import type { Browser, Page } from 'playwright-core';
 import sharp from 'sharp';
 import request from 'supertest';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
+import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
+import { readQr } from '../fixtures/read-qr';
 import type { TestApp } from '../helpers/test-app';
 import { launchBrowser, phonePage } from './helpers/browser';
 import { writeQrVideo } from './helpers/qr-video';
@@ -130,12 +130,10 @@ describe('the loop in a real browser at phone size', () => {
 
     // Read the printed QR back off the page, as a phone would.
     const img = label.locator('img').first();
-    const png = await img.screenshot();
-    const { data, info } = await sharp(png).ensureAlpha().raw().toBuffer({ resolveWithObject: true });
-    const decoded = jsQR(new Uint8ClampedArray(data), info.width, info.height);
+    const decoded = await readQr(await img.screenshot());
     // The label carries the public address (a name phones resolve), not this machine's loopback.
-    expect(decoded?.data).toMatch(new RegExp(`^${t.config.publicUrl}/t/[A-Za-z0-9_-]{20,}$`));
-    qrText = decoded!.data;
+    expect(decoded).toMatch(new RegExp(`^${t.config.publicUrl}/t/[A-Za-z0-9_-]{20,}$`));
+    qrText = decoded!;
   });
 
   it('builder: scans the label with the camera, ticks a hole and a run, flags a hole with a photo', async () => {

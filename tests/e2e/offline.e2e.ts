@@ -4,7 +4,7 @@ import type { Browser, Page } from 'playwright-core';
 import sharp from 'sharp';
 import request from 'supertest';
 import type { SessionUser, TravelerDetail, TravelerSummary } from '@/db/contracts';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
+import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 import { launchBrowser, phonePage } from './helpers/browser';
 import { webDist } from './helpers/served-app';

@@ -30,49 +30,25 @@ import {
   type StudyWork,
   type Zone,
 } from '@/server/engineering';
+import { coupon } from '../fixtures/coupons';
+import { sixLines, standardKit, standardKitModel, standardRibStudy } from '../fixtures/rib-study';
 import { refusal } from './refusal';
 
 // Issue 7 §4 and issue 9 §5: every input has a physical range, the engine refuses a study over its
 // work budget naming the field, and no loop runs on a count a request chose without a cap.
 
+// The standard rib with every optional input given, so that each has its range checked.
 const study: RibStudyInput = {
-  kit: {
-    weightLb: 1320,
-    wingAreaSqFt: 120,
-    meanChordIn: 54,
-    stallSpeedKeas: 47,
-    cruiseSpeedKeas: 118,
-    diveSpeedKeas: 170,
-    altitudeFt: 0,
-    liftSlopePerRad: 4.8,
-    category: 'utility',
-  },
-  airfoil: { kind: 'naca', designation: '2412' },
-  rib: { chordIn: 54, spacingIn: 14.5, internalCp: 0, flangeWidthIn: 0.75, skinGaugeIn: 0.025 },
-  lines: [
-    { name: 'Upper flange', surface: 'upper', startXc: 0.02, endXc: 0.85 },
-    { name: 'Lower flange', surface: 'lower', startXc: 0.02, endXc: 0.85 },
-  ],
-  material: '6061-T6',
+  ...standardRibStudy,
+  kit: { ...standardKit, diveSpeedKeas: 170, altitudeFt: 0, liftSlopePerRad: 4.8 },
+  rib: { ...standardRibStudy.rib, internalCp: 0, flangeWidthIn: 0.75, skinGaugeIn: 0.025 },
   gaugeCandidates: [0.025, 0.032],
   rivetCandidates: ['MS20470AD4'],
-  maxPitchDiameters: 8,
-  pitchIncrementIn: 0.125,
-  maxZones: 4,
   panels: 80,
   minutesPerHole: 1.5,
   wingTorqueInLb: 1000,
   cellAreaSqIn: 200,
-  coupons: [
-    {
-      material: '6061-T6',
-      gaugeIn: 0.025,
-      couponWidthIn: 1,
-      rivetSpec: 'MS20470AD4',
-      loadLb: 40,
-      outcome: 'no_deformation',
-    },
-  ],
+  coupons: [{ ...coupon(0.025, 40, 'no_deformation', 'MS20470AD4'), couponWidthIn: 1 }],
 };
 const coordinates = buildAirfoil({ kind: 'naca', designation: '2412' }, 60).points;
 const cpRows = (n: number): [number, number, number][] =>
@@ -231,17 +207,7 @@ describe('the contracts never let through what the engine refuses', () => {
   it.each(['weightLb', 'wingAreaSqFt', 'meanChordIn', 'stallSpeedKeas', 'cruiseSpeedKeas'] as const)(
     'the kit contract refuses a %s outside the engine range',
     (f) => {
-      const kit = {
-        code: 'K',
-        name: 'Kit',
-        weightLb: 1320,
-        wingAreaSqFt: 120,
-        meanChordIn: 54,
-        stallSpeedKeas: 47,
-        cruiseSpeedKeas: 118,
-        category: 'utility',
-        airfoil: 'NACA 2412',
-      };
+      const kit = standardKitModel;
       expect(kitModelInput.safeParse(kit).success).toBe(true);
       for (const v of outside(`kit.${f}`)) {
         // The study's kit with the value set (and its companions: see withValue), as a kit model.
@@ -275,17 +241,7 @@ describe('the contracts never let through what the engine refuses', () => {
     ['a plank: 300 in on 12 ft²', { meanChordIn: 300, wingAreaSqFt: 12, weightLb: 200 }, 'meanChordIn', /aspect ratio/],
     ['20,000 lb on 100 ft²', { weightLb: 20000, wingAreaSqFt: 100, meanChordIn: 40 }, 'weightLb', /wing loading/],
   ])('the kit contracts refuse a wing that is not one (%s) as the engine does', (_what, wing, field, message) => {
-    const kit = {
-      code: 'K',
-      name: 'Kit',
-      weightLb: 1320,
-      wingAreaSqFt: 120,
-      meanChordIn: 54,
-      stallSpeedKeas: 47,
-      cruiseSpeedKeas: 118,
-      category: 'utility',
-      airfoil: 'NACA 2412',
-    };
+    const kit = standardKitModel;
     for (const schema of [kitModelInput, ribStudyInputSchema.shape.kit]) {
       const parsed = schema.safeParse({ ...kit, ...wing });
       expect(
@@ -302,11 +258,6 @@ describe('the contracts never let through what the engine refuses', () => {
 });
 
 describe('the engine refuses a study over its work budget before it starts, naming the field that drives it', () => {
-  const sixLines = ['A', 'B', 'C'].flatMap((k, i) => [
-    { name: `Upper ${k}`, surface: 'upper' as const, startXc: 0.01 + i / 100, endXc: 0.99 },
-    { name: `Lower ${k}`, surface: 'lower' as const, startXc: 0.01 + i / 100, endXc: 0.99 },
-  ]);
-
   it.each([1e-12, 1e-6])(
     'refuses a pitch increment of %p in at once (the grid loop once had no bound)',
     (pitchIncrementIn) => {

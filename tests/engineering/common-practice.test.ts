@@ -17,23 +17,12 @@ import {
   type RibStudyInput,
   type StationLoad,
 } from '@/server/engineering';
+import { tradeCoupons } from '../fixtures/coupons';
+import { kit58, rib23015, upperLine } from '../fixtures/rib-study';
 import { refusal } from './refusal';
 
 // common practice: the trade's coupon results for 6061-T6 flanges with a 1/8 in pulled rivet.
-const coupons: CouponTest[] = [
-  {
-    material: '6061-T6',
-    gaugeIn: 0.016,
-    rivetSpec: 'PULLED-4',
-    loadLb: 20,
-    outcome: 'excessive_deformation',
-    note: 'hole elongated',
-  },
-  { material: '6061-T6', gaugeIn: 0.016, rivetSpec: 'PULLED-4', loadLb: 30, outcome: 'excessive_deformation' },
-  { material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'PULLED-4', loadLb: 13.5, outcome: 'no_deformation' },
-  { material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'PULLED-4', loadLb: 20, outcome: 'slight_deformation' },
-  { material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'PULLED-4', loadLb: 30, outcome: 'slight_deformation' },
-];
+const coupons: CouponTest[] = [{ ...tradeCoupons[0], note: 'hole elongated' }, ...tradeCoupons.slice(1)];
 
 const ribSpacingIn = 14.5;
 // The suction at the foremost rivet that puts 20 lb on it at 3 in pitch.
@@ -136,23 +125,11 @@ describe('coupon outcomes for 6061-T6 flanges', () => {
 describe('zones along a conventional positive-lift distribution', () => {
   // common practice: the closest pitch at the nose, opening aft as the suction falls off
   const input: RibStudyInput = {
-    kit: {
-      weightLb: 1320,
-      wingAreaSqFt: 120,
-      meanChordIn: 58,
-      stallSpeedKeas: 45,
-      cruiseSpeedKeas: 110,
-      category: 'utility',
-    },
+    ...rib23015,
     airfoil: { kind: 'naca', designation: '2412' },
-    rib: { chordIn: 58, spacingIn: 14.5 },
-    lines: [{ name: 'upper', surface: 'upper', startXc: 0.01, endXc: 0.9 }],
-    material: '6061-T6',
+    lines: [upperLine],
     gaugeCandidates: [0.02, 0.025, 0.032],
     rivetCandidates: ['PULLED-4', 'MS20470AD4'],
-    maxPitchDiameters: 16,
-    pitchIncrementIn: 0.125,
-    maxZones: 4,
     coupons,
   };
   const study = ribStudy(input);
@@ -186,24 +163,14 @@ describe('pulled rivets of the kind used in light kits', () => {
 });
 
 describe('the engine refuses nonsense and names the field', () => {
-  const kit = {
-    weightLb: 1320,
-    wingAreaSqFt: 120,
-    meanChordIn: 58,
-    stallSpeedKeas: 45,
-    cruiseSpeedKeas: 110,
-    category: 'utility' as const,
-  };
+  const kit = kit58;
   const study: RibStudyInput = {
-    kit,
+    ...rib23015,
     airfoil: { kind: 'naca', designation: '2412' },
-    rib: { chordIn: 58, spacingIn: 14.5 },
-    lines: [{ name: 'upper', surface: 'upper', startXc: 0.01, endXc: 0.9 }],
-    material: '6061-T6',
+    lines: [upperLine],
     gaugeCandidates: [0.025],
     rivetCandidates: ['PULLED-4'],
     maxPitchDiameters: 8,
-    pitchIncrementIn: 0.125,
     maxZones: 3,
     panels: 60,
   };

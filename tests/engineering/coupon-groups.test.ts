@@ -1,22 +1,10 @@
-import { groupCouponAllowables, type CouponOutcome } from '@/server/engineering';
+import { groupCouponAllowables } from '@/server/engineering';
+import { coupon, tradeCoupons } from '../fixtures/coupons';
 
-const t = (gaugeIn: number, loadLb: number, outcome: CouponOutcome, rivetSpec = 'PULLED-4', material = '6061-T6') => ({
-  material,
-  gaugeIn,
-  rivetSpec,
-  loadLb,
-  outcome,
-});
-const basis = (tests: ReturnType<typeof t>[]) => groupCouponAllowables(tests)[0];
+const basis = (tests: ReturnType<typeof coupon>[]) => groupCouponAllowables(tests)[0];
 
 // The flange coupons of the trade (common practice): 6061-T6, pulled 1/8 in rivets.
-const seed = [
-  t(0.016, 20, 'excessive_deformation'),
-  t(0.016, 30, 'excessive_deformation'),
-  t(0.02, 13.5, 'no_deformation'),
-  t(0.02, 20, 'slight_deformation'),
-  t(0.02, 30, 'slight_deformation'),
-];
+const seed = tradeCoupons;
 
 describe('allowables from coupon tests, grouped by material, gauge and rivet', () => {
   it('gives 0.020 in 13.5 lb at limit and 30 lb at ultimate from the seed coupons (common practice)', () => {
@@ -34,27 +22,33 @@ describe('allowables from coupon tests, grouped by material, gauge and rivet', (
 
   it('does not credit a good result at a load where another coupon of the set already did worse', () => {
     expect(
-      basis([t(0.025, 20, 'no_deformation'), t(0.025, 25, 'slight_deformation'), t(0.025, 30, 'no_deformation')])
-        .limitLb,
+      basis([
+        coupon(0.025, 20, 'no_deformation'),
+        coupon(0.025, 25, 'slight_deformation'),
+        coupon(0.025, 30, 'no_deformation'),
+      ]).limitLb,
     ).toBe(20);
     expect(
-      basis([t(0.025, 40, 'failure'), t(0.025, 45, 'slight_deformation'), t(0.025, 35, 'slight_deformation')])
-        .ultimateLb,
+      basis([
+        coupon(0.025, 40, 'failure'),
+        coupon(0.025, 45, 'slight_deformation'),
+        coupon(0.025, 35, 'slight_deformation'),
+      ]).ultimateLb,
     ).toBe(35);
   });
 
   it('counts excessive deformation as a failure at ultimate, but slight deformation as carried', () => {
-    const b = basis([t(0.032, 50, 'slight_deformation'), t(0.032, 60, 'excessive_deformation')]);
+    const b = basis([coupon(0.032, 50, 'slight_deformation'), coupon(0.032, 60, 'excessive_deformation')]);
     expect(b.ultimateLb).toBe(50);
     expect(b.limitLb).toBe(0);
   });
 
   it('keeps each rivet and each material apart, and treats 0.050 and 0.051 in as one stock gauge', () => {
     const groups = groupCouponAllowables([
-      t(0.05, 80, 'no_deformation'),
-      t(0.051, 90, 'no_deformation'),
-      t(0.05, 80, 'no_deformation', 'MS20470AD4'),
-      t(0.05, 80, 'no_deformation', 'PULLED-4', '2024-T3'),
+      coupon(0.05, 80, 'no_deformation'),
+      coupon(0.051, 90, 'no_deformation'),
+      coupon(0.05, 80, 'no_deformation', 'MS20470AD4'),
+      coupon(0.05, 80, 'no_deformation', 'PULLED-4', '2024-T3'),
     ]);
     expect(groups).toHaveLength(3);
     const same = groups.find((g) => g.material === '6061-T6' && g.rivetSpec === 'PULLED-4')!;
@@ -64,7 +58,10 @@ describe('allowables from coupon tests, grouped by material, gauge and rivet', (
 
   it('matches material and rivet whatever their case and spaces, whatever the supplier typed', () => {
     expect(
-      groupCouponAllowables([t(0.02, 10, 'no_deformation', 'pulled-4 ', '6061-t6'), t(0.02, 12, 'no_deformation')]),
+      groupCouponAllowables([
+        coupon(0.02, 10, 'no_deformation', 'pulled-4 ', '6061-t6'),
+        coupon(0.02, 12, 'no_deformation'),
+      ]),
     ).toHaveLength(1);
   });
 

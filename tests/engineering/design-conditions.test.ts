@@ -5,16 +5,10 @@ import {
   gustVelocitiesFps,
   type KitInput,
 } from '@/server/engineering';
+import { normalKit58 } from '../fixtures/rib-study';
 import { refusal } from './refusal';
 
-const kit: KitInput = {
-  weightLb: 1320,
-  wingAreaSqFt: 120,
-  meanChordIn: 58,
-  liftSlopePerRad: 4.8,
-  stallSpeedKeas: 45,
-  category: 'normal',
-};
+const kit: KitInput = normalKit58;
 
 describe('design conditions of a kit', () => {
   const d = designConditions(kit);

@@ -7,34 +7,19 @@ import {
   cpOnSurface,
   type RibStudyInput,
 } from '@/server/engineering';
+import { coupon } from '../fixtures/coupons';
+import { rib23015 } from '../fixtures/rib-study';
 import { refusal } from './refusal';
-import { DEMO_COUPONS, DEMO_STUDY_INPUTS } from '@/db/seed';
+import { DEMO_COUPONS, DEMO_STUDY_INPUTS } from '@/server/dev/seed';
 
+// The 23015 rib with a skin gauge and three of the trade's coupons (common practice).
 const input: RibStudyInput = {
-  kit: {
-    weightLb: 1320,
-    wingAreaSqFt: 120,
-    meanChordIn: 58,
-    stallSpeedKeas: 45,
-    cruiseSpeedKeas: 110,
-    category: 'utility',
-  },
-  airfoil: { kind: 'naca', designation: '23015' },
-  rib: { chordIn: 58, spacingIn: 14.5, skinGaugeIn: 0.025 },
-  lines: [
-    { name: 'upper', surface: 'upper', startXc: 0.01, endXc: 0.98 },
-    { name: 'lower', surface: 'lower', startXc: 0.01, endXc: 0.98 },
-  ],
-  material: '6061-T6',
-  gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04, 0.05],
-  rivetCandidates: ['PULLED-4', 'PULLED-5', 'MS20470AD4'],
-  maxPitchDiameters: 16,
-  pitchIncrementIn: 0.125,
-  maxZones: 4,
+  ...rib23015,
+  rib: { ...rib23015.rib, skinGaugeIn: 0.025 },
   coupons: [
-    { material: '6061-T6', gaugeIn: 0.016, rivetSpec: 'PULLED-4', loadLb: 20, outcome: 'excessive_deformation' },
-    { material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'PULLED-4', loadLb: 13.5, outcome: 'no_deformation' },
-    { material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'PULLED-4', loadLb: 30, outcome: 'slight_deformation' },
+    coupon(0.016, 20, 'excessive_deformation'),
+    coupon(0.02, 13.5, 'no_deformation'),
+    coupon(0.02, 30, 'slight_deformation'),
   ],
 };
 

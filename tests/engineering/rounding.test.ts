@@ -6,6 +6,8 @@ import {
   type RibStudyInput,
   type TradeCandidate,
 } from '@/server/engineering';
+import { coupon } from '../fixtures/coupons';
+import { rib23015, upperLine } from '../fixtures/rib-study';
 
 // Issue 9: stored numbers rounded to what they mean, no float noise in results.
 
@@ -36,26 +38,10 @@ describe('rounding to what a number means', () => {
 
 describe('a stored rib study', () => {
   const input: RibStudyInput = {
-    kit: {
-      weightLb: 1320,
-      wingAreaSqFt: 120,
-      meanChordIn: 58,
-      stallSpeedKeas: 45,
-      cruiseSpeedKeas: 110,
-      category: 'utility',
-    },
-    airfoil: { kind: 'naca', designation: '23015' },
-    rib: { chordIn: 58, spacingIn: 14.5, flangeWidthIn: 0.75, skinGaugeIn: 0.025 },
-    lines: [
-      { name: 'upper', surface: 'upper', startXc: 0.01, endXc: 0.98 },
-      { name: 'lower', surface: 'lower', startXc: 0.01, endXc: 0.98 },
-    ],
-    material: '6061-T6',
+    ...rib23015,
+    rib: { ...rib23015.rib, flangeWidthIn: 0.75, skinGaugeIn: 0.025 },
     gaugeCandidates: [0.02, 0.025, 0.032],
     rivetCandidates: ['PULLED-4', 'MS20470AD4'],
-    maxPitchDiameters: 16,
-    pitchIncrementIn: 0.125,
-    maxZones: 4,
     panels: 80,
   };
   const { inputs, ...result } = ribStudy(input);
@@ -112,28 +98,12 @@ describe('the recommendation (issue 9)', () => {
 
   it('recommends the coupon-backed candidate in a rib study even where a fallback one is lighter', () => {
     const study = ribStudy({
-      kit: {
-        weightLb: 1320,
-        wingAreaSqFt: 120,
-        meanChordIn: 58,
-        stallSpeedKeas: 45,
-        cruiseSpeedKeas: 110,
-        category: 'utility',
-      },
-      airfoil: { kind: 'naca', designation: '23015' },
-      rib: { chordIn: 58, spacingIn: 14.5 },
-      lines: [{ name: 'upper', surface: 'upper', startXc: 0.01, endXc: 0.9 }],
-      material: '6061-T6',
+      ...rib23015,
+      lines: [upperLine],
       gaugeCandidates: [0.025, 0.032, 0.04],
       rivetCandidates: ['MS20470AD4'],
-      maxPitchDiameters: 16,
-      pitchIncrementIn: 0.125,
-      maxZones: 4,
       panels: 80,
-      coupons: [
-        { material: '6061-T6', gaugeIn: 0.04, rivetSpec: 'MS20470AD4', loadLb: 60, outcome: 'no_deformation' },
-        { material: '6061-T6', gaugeIn: 0.04, rivetSpec: 'MS20470AD4', loadLb: 90, outcome: 'slight_deformation' },
-      ],
+      coupons: [coupon(0.04, 60, 'no_deformation', 'MS20470AD4'), coupon(0.04, 90, 'slight_deformation', 'MS20470AD4')],
     });
     const lighterFallback = study.trade.filter(
       (r) => r.feasible && r.pullThroughBasis === 'fallback' && r.gaugeIn < 0.04,

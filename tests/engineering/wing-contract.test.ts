@@ -1,35 +1,22 @@
 import { studyInput, wingStudyInputSchema } from '@/db/contracts';
 import { fieldAt, MAX_WING_RIBS, WING_BOUNDS, type WingStudyInput } from '@/server/engineering';
+import { flangeLines } from '../fixtures/rib-study';
+import { standardWing } from '../fixtures/wing-study';
 
 // The wing study's contract states each range the engine holds (server/engineering/bounds.ts, WING_BOUNDS)
 // or a narrower one: a request never reaches the engine with a number it would refuse.
 
+// The standard wing cut down to two ribs and one candidate, with flaps and a tail load: every field given.
 const wing: WingStudyInput = {
-  kit: {
-    weightLb: 1320,
-    wingAreaSqFt: 120,
-    meanChordIn: 54,
-    stallSpeedKeas: 47,
-    cruiseSpeedKeas: 118,
-    category: 'utility',
-  },
+  ...standardWing,
   flaps: { stallSpeedKeas: 41, designSpeedKeas: 80 },
-  planform: { kind: 'rectangle', spanIn: 320, chordIn: 54 },
   tail: { armIn: 170, balancingLoadLb: 50 },
-  airfoil: { kind: 'naca', designation: '2412' },
-  ribs: [
-    { name: 'W-101', stationIn: 24 },
-    { name: 'W-102', stationIn: 38.5 },
-  ],
-  rib: { lines: [{ name: 'Upper flange', surface: 'upper', startXc: 0.02, endXc: 0.85 }] },
-  spars: { frontXc: 0.15, rearXc: 0.7, capAreaSqIn: 0.4 },
+  ribs: standardWing.ribs.slice(0, 2),
+  rib: { lines: [flangeLines[0]] },
+  spars: { ...standardWing.spars, capAreaSqIn: 0.4 },
   skin: { gaugeCandidates: [0.02], rivetCandidates: ['MS20426AD3'] },
-  material: '6061-T6',
   gaugeCandidates: [0.025],
   rivetCandidates: ['PULLED-4'],
-  maxPitchDiameters: 8,
-  pitchIncrementIn: 0.125,
-  maxZones: 4,
 };
 const clone = <T>(x: T): T => JSON.parse(JSON.stringify(x)) as T;
 

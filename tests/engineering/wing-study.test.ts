@@ -6,38 +6,12 @@ import {
   type RibStudyInput,
   type WingStudyInput,
 } from '@/server/engineering';
+import { standardWing } from '../fixtures/wing-study';
 import { refusal } from './refusal';
-import { DEMO_COUPONS, DEMO_WING_INPUTS } from '@/db/seed';
+import { DEMO_COUPONS, DEMO_WING_INPUTS } from '@/server/dev/seed';
 
-// An invented two-seat kit's wing: rectangular, 320 in span, 54 in chord (120 ft²), ten ribs.
-const wing: WingStudyInput = {
-  kit: {
-    weightLb: 1320,
-    wingAreaSqFt: 120,
-    meanChordIn: 54,
-    stallSpeedKeas: 47,
-    cruiseSpeedKeas: 118,
-    category: 'utility',
-  },
-  planform: { kind: 'rectangle', spanIn: 320, chordIn: 54 },
-  tail: { armIn: 170, balancingLoadLb: 0 },
-  airfoil: { kind: 'naca', designation: '2412' },
-  ribs: Array.from({ length: 10 }, (_, i) => ({ name: `W-${101 + i}`, stationIn: 24 + i * 14.5 })),
-  rib: {
-    lines: [
-      { name: 'Upper flange', surface: 'upper', startXc: 0.02, endXc: 0.85 },
-      { name: 'Lower flange', surface: 'lower', startXc: 0.02, endXc: 0.85 },
-    ],
-  },
-  spars: { frontXc: 0.15, rearXc: 0.7, capAreaSqIn: 1 },
-  skin: { gaugeCandidates: [0.016, 0.02, 0.025, 0.032], rivetCandidates: ['MS20426AD3', 'MS20426AD4'] },
-  material: '6061-T6',
-  gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04],
-  rivetCandidates: ['PULLED-4', 'MS20470AD4'],
-  maxPitchDiameters: 8,
-  pitchIncrementIn: 0.125,
-  maxZones: 4,
-};
+// The standard wing: rectangular, 320 in span, 54 in chord (120 ft²), ten ribs.
+const wing: WingStudyInput = standardWing;
 
 /** Schrenk's cl/CL on a rectangular wing: ½(1 + 4/π·√(1 − η²)) (O. Schrenk, NACA TM 948). */
 const schrenkRectangle = (eta: number) => 0.5 * (1 + (4 / Math.PI) * Math.sqrt(1 - eta * eta));

@@ -3,7 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
 import { createDatabase } from '@/db';
-import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from '@/db/seed';
+import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from '@/server/dev/seed';
 import { organizations, users } from '@/db/schema';
 import { createApp } from '@/server/app';
 import { closeStudyPool } from '@/server/studies/study-pool';

@@ -1,7 +1,7 @@
 import jwt from 'jsonwebtoken';
 import request from 'supertest';
 import sharp from 'sharp';
-import { DEMO_USERS } from '@/db/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 
 jest.setTimeout(60000);

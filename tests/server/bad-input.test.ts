@@ -3,6 +3,7 @@ import { readdir } from 'node:fs/promises';
 import request from 'supertest';
 import sharp from 'sharp';
 import { findingPhotos, findings, holes } from '@/db/schema';
+import { flangeLine, ribRevision } from '../fixtures/rib-revision';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 
 jest.setTimeout(60000);
@@ -71,27 +72,19 @@ describe('bad input gets a clear error and saves nothing', () => {
       .set(auth(tok.supplier))
       .send({
         design: { kitModelId: kits.body.items[0].id, partNumber: 'X-1', name: 'gappy', kind: 'rib' },
+        // The standard revision with a gap between its zones (and no steps: JSON leaves an undefined out).
         revision: {
-          material: '6061-T6',
-          gaugeIn: 0.025,
-          rivetSpec: 'MS20470AD4',
-          drillSize: '#30',
-          drillDiameterIn: 0.1285,
-          edgeDistanceIn: 0.25,
-          chordIn: 40,
+          ...ribRevision,
           lines: [
             {
-              code: 'U',
-              name: 'Upper',
-              surface: 'upper',
-              startIn: 1,
-              lengthIn: 30,
-              zones: [
+              ...flangeLine('U', 30, [
                 { fromIn: 0, toIn: 10, pitchIn: 1 },
                 { fromIn: 12, toIn: 30, pitchIn: 2 },
-              ],
+              ]),
+              name: 'Upper',
             },
           ],
+          steps: undefined,
         },
       });
     expect(res.status).toBe(400);
@@ -106,27 +99,21 @@ describe('bad input gets a clear error and saves nothing', () => {
       .set(auth(tok.supplier))
       .send({
         design: { kitModelId: kits.body.items[0].id, partNumber: 'X-2', name: 'tight', kind: 'rib' },
+        // The standard revision too tight: 0.3 in pitch and 0.2 in edge distance (no steps, as above).
         revision: {
-          material: '6061-T6',
-          gaugeIn: 0.025,
+          ...ribRevision,
           rivetSpec: 'MS20470AD4-4',
-          drillSize: '#30',
-          drillDiameterIn: 0.1285,
           edgeDistanceIn: 0.2,
-          chordIn: 40,
           lines: [
             {
-              code: 'U',
-              name: 'Upper',
-              surface: 'upper',
-              startIn: 1,
-              lengthIn: 30,
-              zones: [
+              ...flangeLine('U', 30, [
                 { fromIn: 0, toIn: 10, pitchIn: 0.3 },
                 { fromIn: 10, toIn: 30, pitchIn: 2 },
-              ],
+              ]),
+              name: 'Upper',
             },
           ],
+          steps: undefined,
         },
       });
     expect(res.status).toBe(400);

@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { DEMO_USERS } from '@/db/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 
 jest.setTimeout(120000);

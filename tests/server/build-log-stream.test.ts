@@ -1,6 +1,6 @@
 import { sql } from 'drizzle-orm';
 import request from 'supertest';
-import { DEMO_USERS } from '@/db/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
 import { pdfText } from '../helpers/pdf-text';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 import { parseCsv } from '../helpers/csv';

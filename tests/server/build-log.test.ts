@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { DEMO_USERS } from '@/db/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
 import { MAX_PDF_THREADS, reservePdfThread } from '@/server/build-log/build-log-pdf-thread';
 import { pdfText } from '../helpers/pdf-text';
 import { startTestApp, type TestApp } from '../helpers/test-app';

@@ -1,11 +1,13 @@
 import request from 'supertest';
 import type { RibStudyInputValues } from '@/db/contracts';
-import { DEMO_STUDY_INPUTS } from '@/db/seed';
+import { DEMO_STUDY_INPUTS } from '@/server/dev/seed';
 import { revisionInput } from '@/db/contracts';
 import { checkLayout } from '@/server/designs/layout-check';
 import { HttpError } from '@/server/http-error';
 import { closeStudyPool } from '@/server/studies/studies-service';
 import { configureStudyPool, DEFAULT_STUDY_LIMITS, studyPoolLoad } from '@/server/studies/study-pool';
+import { ribRevision } from '../fixtures/rib-revision';
+import { sixLines } from '../fixtures/rib-study';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 
 // Issue 7: no request can exhaust the server. Each input below once killed it or answered 500; now
@@ -53,29 +55,6 @@ function refused(res: request.Response, field: string, message: RegExp) {
   expect(res.body.error.fields?.[field]).toMatch(message);
 }
 
-const ribRevision = {
-  material: '6061-T6',
-  gaugeIn: 0.025,
-  rivetSpec: 'MS20470AD4',
-  drillSize: '#30',
-  drillDiameterIn: 0.1285,
-  edgeDistanceIn: 0.25,
-  chordIn: 40,
-  lines: [
-    {
-      code: 'U',
-      name: 'Upper flange',
-      surface: 'upper',
-      startIn: 1,
-      lengthIn: 30,
-      zones: [
-        { fromIn: 0, toIn: 10, pitchIn: 1 },
-        { fromIn: 10, toIn: 30, pitchIn: 2 },
-      ],
-    },
-  ],
-  steps: ['Deburr', 'Rivet'],
-};
 let designNo = 0;
 const postDesign = (revision: unknown) =>
   request(t.app)
@@ -133,13 +112,9 @@ describe('a load study that once exhausted the server is a 400 naming the field,
 
   it('refuses, naming the increment, a study inside every range whose pitch grid over its stations is over the work budget', async () => {
     // Six full-chord lines on a 300 in rib, an increment of 0.01 in up to 16D: millions of look-ups.
-    const lines = ['A', 'B', 'C'].flatMap((k, i) => [
-      { name: `Upper ${k}`, surface: 'upper' as const, startXc: 0.01 + i / 100, endXc: 0.99 },
-      { name: `Lower ${k}`, surface: 'lower' as const, startXc: 0.01 + i / 100, endXc: 0.99 },
-    ]);
     const res = await postStudy({
       ...withRib({ chordIn: 300 }),
-      lines,
+      lines: sixLines,
       gaugeCandidates: [0.032],
       rivetCandidates: ['MS20470AD4'],
       maxPitchDiameters: 16,
@@ -150,13 +125,9 @@ describe('a load study that once exhausted the server is a 400 naming the field,
   });
 
   it('refuses, naming the longer candidate list, a study whose candidates would place more holes than the budget', async () => {
-    const lines = ['A', 'B', 'C'].flatMap((k, i) => [
-      { name: `Upper ${k}`, surface: 'upper' as const, startXc: 0.01 + i / 100, endXc: 0.99 },
-      { name: `Lower ${k}`, surface: 'lower' as const, startXc: 0.01 + i / 100, endXc: 0.99 },
-    ]);
     const res = await postStudy({
       ...withRib({ chordIn: 200 }),
-      lines,
+      lines: sixLines,
       gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04, 0.05, 0.063, 0.071, 0.08, 0.09],
       rivetCandidates: ['PULLED-4', 'MS20470AD3', 'MS20470AD4'],
     });

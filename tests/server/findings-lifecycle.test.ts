@@ -1,9 +1,10 @@
 import request from 'supertest';
 import sharp from 'sharp';
-import { DEMO_USERS } from '@/db/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
 import { findingActions, type FindingAction } from '@/db/contracts';
 import { findingMailWorker } from '@/server/jobs/finding-mail-worker';
 import { createMailer } from '@/server/mail/transport';
+import { flangeLine, smallKitModel, tinyRibRevision } from '../fixtures/rib-revision';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 
 jest.setTimeout(180000);
@@ -25,30 +26,10 @@ const jpeg = () =>
 
 /** A small rib: two flanges of five holes each, one step. AD4 at 0.25 in edge distance (2D). */
 const tinyRib = {
-  material: '6061-T6',
-  gaugeIn: 0.032,
-  rivetSpec: 'MS20470AD4',
-  drillSize: '#30',
-  drillDiameterIn: 0.1285,
-  edgeDistanceIn: 0.25,
-  chordIn: 10,
+  ...tinyRibRevision,
   lines: [
-    {
-      code: 'U',
-      name: 'Upper flange',
-      surface: 'upper',
-      startIn: 1,
-      lengthIn: 4,
-      zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }],
-    },
-    {
-      code: 'L',
-      name: 'Lower flange',
-      surface: 'lower',
-      startIn: 1,
-      lengthIn: 4,
-      zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }],
-    },
+    flangeLine('U', 4, [{ fromIn: 0, toIn: 4, pitchIn: 1 }]),
+    flangeLine('L', 4, [{ fromIn: 0, toIn: 4, pitchIn: 1 }]),
   ],
   steps: ['Rivet both flanges'],
 };
@@ -58,16 +39,10 @@ beforeAll(async () => {
   tok = await t.tokens();
   const o = await t.outsiders();
   people = { ...tok, otherBuilder: o.builder, otherInspector: o.inspector, otherSupplier: o.supplier };
-  const kit = await request(t.app).post('/api/kits').set(auth(tok.supplier)).send({
-    code: 'LC-1',
-    name: 'Lifecycle kit',
-    weightLb: 1200,
-    wingAreaSqFt: 110,
-    meanChordIn: 50,
-    stallSpeedKeas: 45,
-    category: 'normal',
-    airfoil: 'NACA 2412',
-  });
+  const kit = await request(t.app)
+    .post('/api/kits')
+    .set(auth(tok.supplier))
+    .send(smallKitModel('LC-1', 'Lifecycle kit'));
   kitId = kit.body.id;
   const design = await request(t.app)
     .post('/api/designs')

@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { eq, sql } from 'drizzle-orm';
-import { DEMO_USERS } from '@/db/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
 import { findingPhotos, findings, users } from '@/db/schema';
 import { isOpenFinding, type FindingStatus, type FindingSummary } from '@/db/contracts';
 import { startTestApp, type TestApp } from '../helpers/test-app';

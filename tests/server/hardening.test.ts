@@ -4,7 +4,7 @@ import { readdir, utimes, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import { Client } from 'pg';
 import request from 'supertest';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
+import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
 import { findingPhotos } from '@/db/schema';
 import { createApp } from '@/server/app';
 import { loadConfig } from '@/server/config';

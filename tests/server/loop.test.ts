@@ -1,6 +1,7 @@
 import request from 'supertest';
 import sharp from 'sharp';
-import { DEMO_USERS } from '@/db/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
+import { flangeLine, ribRevision } from '../fixtures/rib-revision';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 
 jest.setTimeout(60000);
@@ -21,36 +22,11 @@ const jpeg = () =>
     .jpeg()
     .toBuffer();
 
-const ribRevision = {
-  material: '6061-T6',
+// The rib's revision in 0.020 in, with a lower flange at 2 in pitch as well.
+const loopRevision = {
+  ...ribRevision,
   gaugeIn: 0.02,
-  rivetSpec: 'MS20470AD4',
-  drillSize: '#30',
-  drillDiameterIn: 0.1285,
-  edgeDistanceIn: 0.25,
-  chordIn: 40,
-  lines: [
-    {
-      code: 'U',
-      name: 'Upper flange',
-      surface: 'upper',
-      startIn: 1,
-      lengthIn: 30,
-      zones: [
-        { fromIn: 0, toIn: 10, pitchIn: 1 },
-        { fromIn: 10, toIn: 30, pitchIn: 2 },
-      ],
-    },
-    {
-      code: 'L',
-      name: 'Lower flange',
-      surface: 'lower',
-      startIn: 1,
-      lengthIn: 30,
-      zones: [{ fromIn: 0, toIn: 30, pitchIn: 2 }],
-    },
-  ],
-  steps: ['Deburr', 'Rivet'],
+  lines: [...ribRevision.lines, flangeLine('L', 30, [{ fromIn: 0, toIn: 30, pitchIn: 2 }])],
 };
 
 describe('the main loop through the API', () => {
@@ -78,7 +54,7 @@ describe('the main loop through the API', () => {
       .set(auth(tok.supplier))
       .send({
         design: { kitModelId: kitId, partNumber: 'R-1', name: 'Test rib', kind: 'rib' },
-        revision: ribRevision,
+        revision: loopRevision,
       });
     expect(design.status).toBe(201);
     expect(design.body.revisions[0]).toMatchObject({ letter: 'A', status: 'draft' });
@@ -92,7 +68,7 @@ describe('the main loop through the API', () => {
     const edit = await request(t.app)
       .patch(`/api/revisions/${revisionId}`)
       .set(auth(tok.supplier))
-      .send({ ...ribRevision, gaugeIn: 0.032 });
+      .send({ ...loopRevision, gaugeIn: 0.032 });
     expect(edit.status).toBe(409);
     expect(edit.body.error.message).toMatch(/can no longer be changed/);
   });

@@ -1,7 +1,7 @@
 import express from 'express';
 import request from 'supertest';
 import sharp from 'sharp';
-import { DEMO_USERS } from '@/db/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
 import { devRouter } from '@/server/dev/dev-router';
 import { findingMail, holePhotoCid, type FindingMailFacts } from '@/server/mail/finding-mail';
 import { startSmtpFake, type SmtpFake } from '@/server/mail/smtp-fake';

@@ -21,9 +21,10 @@ import {
   partDesigns,
   travelers,
 } from '@/db/schema';
-import { DEMO_COUPONS } from '@/db/seed';
+import { DEMO_COUPONS } from '@/server/dev/seed';
 import { couponsForEngine } from '@/server/coupons/coupons-repository';
 import { GAUGE_MATCH_TOLERANCE_IN } from '@/server/engineering/coupons';
+import { flangeLine, ribRevision as standardRevision } from '../fixtures/rib-revision';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 
 jest.setTimeout(120000);
@@ -60,24 +61,10 @@ const kitBody = (over: Record<string, unknown> = {}) => ({
   airfoil: 'NACA 2412',
   ...over,
 });
+// The standard rib's revision at one pitch all along, with no steps and no change note.
 const ribRevision = (over: Record<string, unknown> = {}) => ({
-  material: '6061-T6',
-  gaugeIn: 0.025,
-  rivetSpec: 'MS20470AD4',
-  drillSize: '#30',
-  drillDiameterIn: 0.1285,
-  edgeDistanceIn: 0.25,
-  chordIn: 40,
-  lines: [
-    {
-      code: 'U',
-      name: 'Upper flange',
-      surface: 'upper',
-      startIn: 1,
-      lengthIn: 30,
-      zones: [{ fromIn: 0, toIn: 30, pitchIn: 1 }],
-    },
-  ],
+  ...standardRevision,
+  lines: [flangeLine('U', 30, [{ fromIn: 0, toIn: 30, pitchIn: 1 }])],
   steps: [],
   changeNote: '',
   ...over,
@@ -542,7 +529,7 @@ describe('builds: the shipping supplier corrects the note always, the serial and
     );
     const page = (await request(t.app).get(`/api/builds/${demo.id}`).set(auth(tok.supplier))).body;
     expect(page.allowedActions).toEqual(['edit-note']);
-    // The demo (db/seed.ts): U-01…U-08 ticked, U-09 flagged, the first step done, one finding.
+    // The demo (server/dev/seed.ts): U-01…U-08 ticked, U-09 flagged, the first step done, one finding.
     expect(page.fixedBecause).toMatch(/9 holes worked, 1 step done, 1 finding/);
     const before = [await rows(builds), await rows(travelers)];
     const renamed = await request(t.app)

@@ -8,7 +8,7 @@ import { GetObjectCommand, ListObjectsV2Command, PutObjectCommand, S3Client } fr
 import { and, eq } from 'drizzle-orm';
 import sharp from 'sharp';
 import { createDatabase, type Database } from '@/db';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/db/seed';
+import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
 import { findingEvents, findingPhotos, sentMails } from '@/db/schema';
 import { sweepOrphanPhotos } from '@/server/jobs/photo-sweep';
 import { startSmtpFake, type SmtpFake } from '@/server/mail/smtp-fake';

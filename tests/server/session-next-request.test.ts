@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { DEMO_USERS } from '@/db/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
 import type { Page, TravelerSummary } from '@/db/contracts';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 

@@ -1,6 +1,7 @@
 import request from 'supertest';
 import sharp from 'sharp';
-import { DEMO_USERS } from '@/db/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
+import { smallKitModel, tinyRibRevision } from '../fixtures/rib-revision';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 
 jest.setTimeout(240000);
@@ -15,42 +16,14 @@ const ROUNDS = 20;
 beforeAll(async () => {
   t = await startTestApp();
   tok = await t.tokens();
-  const kit = await request(t.app).post('/api/kits').set(auth(tok.supplier)).send({
-    code: 'RC-1',
-    name: 'Race kit',
-    weightLb: 1200,
-    wingAreaSqFt: 110,
-    meanChordIn: 50,
-    stallSpeedKeas: 45,
-    category: 'normal',
-    airfoil: 'NACA 2412',
-  });
+  const kit = await request(t.app).post('/api/kits').set(auth(tok.supplier)).send(smallKitModel('RC-1', 'Race kit'));
   kitId = kit.body.id;
   const design = await request(t.app)
     .post('/api/designs')
     .set(auth(tok.supplier))
     .send({
       design: { kitModelId: kitId, partNumber: 'RC-R1', name: 'Race rib', kind: 'rib' },
-      revision: {
-        material: '6061-T6',
-        gaugeIn: 0.032,
-        rivetSpec: 'MS20470AD4',
-        drillSize: '#30',
-        drillDiameterIn: 0.1285,
-        edgeDistanceIn: 0.25,
-        chordIn: 10,
-        lines: [
-          {
-            code: 'U',
-            name: 'Upper flange',
-            surface: 'upper',
-            startIn: 1,
-            lengthIn: 3,
-            zones: [{ fromIn: 0, toIn: 3, pitchIn: 1 }],
-          },
-        ],
-        steps: ['Rivet the flange'],
-      },
+      revision: tinyRibRevision,
     });
   await request(t.app).post(`/api/revisions/${design.body.revisions[0].id}/publish`).set(auth(tok.supplier)).send({});
 });

@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { DEMO_STUDY_INPUTS } from '@/db/seed';
+import { DEMO_STUDY_INPUTS } from '@/server/dev/seed';
 import { closeStudyPool } from '@/server/studies/studies-service';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 

@@ -114,7 +114,7 @@ describe('the travelers list in pages', () => {
       replaced: w104.replaced,
     });
     expect(holesTotal).toBe(detail.holes.length);
-    // The demo ticked eight holes installed and flagged one under a finding (db/seed.ts).
+    // The demo ticked eight holes installed and flagged one under a finding (server/dev/seed.ts).
     expect(holesDone).toBe(8);
     expect(holesAwaitingInspector).toBe(1);
     expect(openFindings).toBe(1);

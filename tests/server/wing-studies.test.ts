@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { DEMO_STUDY_INPUTS, DEMO_WING_INPUTS } from '@/db/seed';
+import { DEMO_STUDY_INPUTS, DEMO_WING_INPUTS } from '@/server/dev/seed';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 
 jest.setTimeout(120000);

@@ -1,18 +1,18 @@
 import sharp from 'sharp';
-import type { CouponOutcome, RevisionInput, RibStudyInputValues, WingStudyInputValues } from './contracts';
-import type { Database } from '.';
-import { organizations, users } from './schema';
-import { hashPassword } from '../server/auth/passwords';
-import { buildsService } from '../server/builds/builds-service';
-import { couponsService } from '../server/coupons/coupons-service';
-import { designsService } from '../server/designs/designs-service';
-import { findingsService } from '../server/findings/findings-service';
-import type { MailQueue } from '../server/jobs/mail-queue';
-import { kitsService } from '../server/kits/kits-service';
-import { studiesService } from '../server/studies/studies-service';
-import { createUrlSigner } from '../server/photos/url-signer';
-import type { PhotoStorage } from '../server/storage/photo-storage';
-import { travelersService } from '../server/travelers/travelers-service';
+import type { CouponOutcome, RevisionInput, RibStudyInputValues, WingStudyInputValues } from '../../db/contracts';
+import type { Database } from '../../db';
+import { organizations, users } from '../../db/schema';
+import { hashPassword } from '../auth/passwords';
+import { buildsService } from '../builds/builds-service';
+import { couponsService } from '../coupons/coupons-service';
+import { designsService } from '../designs/designs-service';
+import { findingsService } from '../findings/findings-service';
+import type { MailQueue } from '../jobs/mail-queue';
+import { kitsService } from '../kits/kits-service';
+import { studiesService } from '../studies/studies-service';
+import { createUrlSigner } from '../photos/url-signer';
+import type { PhotoStorage } from '../storage/photo-storage';
+import { travelersService } from '../travelers/travelers-service';
 
 /** The invented demo scenario: one supplier, one kit, one builder, one inspector. Every sign-in's password. */
 export const DEMO_PASSWORD = 'pitchcard-demo';
