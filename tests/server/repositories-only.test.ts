@@ -26,8 +26,6 @@ const allowed: Record<string, string> = {
   'server/middleware/rate-limit.ts': "the rate limiter's store table",
   // Start-up holds the migration lock while migrations run: no domain data.
   'server/start-up.ts': 'the migration lock',
-  // The demo loader's check for an empty database and its first rows of invented data: not a request path.
-  'server/dev/seed.ts': 'loads the invented demo data',
 };
 
 /** Receivers that are a database client or a unit of work: db, tx, unit, database, conn, or a name ending in Db / Tx. */
