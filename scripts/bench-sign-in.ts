@@ -8,29 +8,19 @@
  * started it), and the real app on 127.0.0.1 with a port the system picks; requests go there only.
  * BENCH_ROUNDS (40, at most 200) sign-ins of each kind, interleaved so drift affects both alike.
  */
-import { spawnSync } from 'node:child_process';
 import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import path from 'node:path';
 import { DEMO_USERS } from '../server/dev/seed';
 import { startTestApp } from '../tests/helpers/test-app';
-import { median, pg } from './bench-common';
+import { median, testClusterForBench } from './bench-common';
 
-const root = path.join(__dirname, '..');
 const ROUNDS = Math.min(200, Math.max(5, Number(process.env.BENCH_ROUNDS ?? 40) || 40));
 const WARM_UP = 3;
 /** The whole run stops here even if the server crawls. */
 const TIME_LIMIT_MS = 180_000;
 
 async function main() {
-  let stopCluster: (() => void) | undefined;
-  if (!process.env.TEST_DATABASE_URL) {
-    const port = process.env.TEST_PGPORT ?? '54330';
-    const wasRunning = spawnSync('bash', [path.join(root, 'scripts', 'pg.sh'), 'status', 'test']).status === 0;
-    pg('start', 'test', port, 'test');
-    if (!wasRunning) stopCluster = () => pg('stop', 'test', port);
-    process.env.TEST_DATABASE_URL = pg('url', 'test', port);
-  }
+  const stopCluster = testClusterForBench();
 
   // The limits are what would otherwise stop the run after ten tries: raised for it.
   const t = await startTestApp({ env: { SIGN_IN_LIMIT_PER_ADDRESS: '100000', SIGN_IN_LIMIT_PER_IP: '100000' } });

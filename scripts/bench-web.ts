@@ -19,7 +19,7 @@
  * set (TEST_PGPORT, 54330 by default) and stops it again if it started it. Everything listens on
  * 127.0.0.1 only, and every wait is bounded.
  */
-import { execFileSync, spawnSync } from 'node:child_process';
+import { execFileSync } from 'node:child_process';
 import { copyFileSync, existsSync, mkdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
@@ -30,10 +30,10 @@ import compression from 'compression';
 import express from 'express';
 import type { Browser, BrowserContext, BrowserContextOptions } from 'playwright-core';
 import request from 'supertest';
-import { DEMO_PASSWORD, DEMO_USERS } from '../server/dev/seed';
+import { DEMO_PASSWORD, DEMO_SKIN_REVISION, DEMO_USERS } from '../server/dev/seed';
 import { launchBrowser } from '../tests/e2e/helpers/browser';
 import { startTestApp, type TestApp } from '../tests/helpers/test-app';
-import { median, pg } from './bench-common';
+import { median, testClusterForBench } from './bench-common';
 
 const root = path.join(__dirname, '..');
 const work = path.join(os.tmpdir(), 'pitchcard-bench-web');
@@ -172,18 +172,8 @@ async function addBigPart(t: TestApp): Promise<void> {
   }));
   const created = await as(request(t.app).post('/api/designs')).send({
     design: { kitModelId: kit.id, partNumber: 'W-990', name: 'Bench panel, many holes', kind: 'skin_panel' },
-    revision: {
-      material: '6061-T6',
-      gaugeIn: 0.025,
-      rivetSpec: 'MS20426AD3',
-      drillSize: '#40',
-      drillDiameterIn: 0.098,
-      edgeDistanceIn: 0.25,
-      chordIn: 200,
-      lines,
-      steps: ['Rivet the lines'],
-      changeNote: '',
-    },
+    // The demo skin's sheet and rivets, over a far longer chord with many more holes.
+    revision: { ...DEMO_SKIN_REVISION, chordIn: 200, lines, steps: ['Rivet the lines'] },
   });
   if (created.status !== 201)
     throw new Error(`making the big part's design: ${created.status} ${JSON.stringify(created.body)}`);
@@ -308,14 +298,7 @@ async function main() {
   exportEmptyApp();
   console.log(`exports done in ${((Date.now() - started) / 1000).toFixed(0)} s`);
 
-  let stopCluster: (() => void) | undefined;
-  if (!process.env.TEST_DATABASE_URL) {
-    const port = process.env.TEST_PGPORT ?? '54330';
-    const wasRunning = spawnSync('bash', [path.join(root, 'scripts', 'pg.sh'), 'status', 'test']).status === 0;
-    pg('start', 'test', port, 'test');
-    if (!wasRunning) stopCluster = () => pg('stop', 'test', port);
-    process.env.TEST_DATABASE_URL = pg('url', 'test', port);
-  }
+  const stopCluster = testClusterForBench();
 
   // The product, as the browser tests serve it: the port first, so the app's own links name it.
   const server: Server = createServer();

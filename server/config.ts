@@ -2,6 +2,7 @@ import { existsSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { certificateNames, pickLanAddress } from './network/lan';
+import type { S3PhotoStorageOptions } from './storage/s3-photo-storage';
 import { z } from 'zod';
 
 /**
@@ -140,17 +141,7 @@ export type Config = {
   smtp: { host: string; port: number; from: string; fake: boolean };
   uploadsDir: string;
   webDist: string;
-  photoStore:
-    | { kind: 'local' }
-    | {
-        kind: 's3';
-        bucket: string;
-        region: string;
-        endpoint: string | null;
-        forcePathStyle: boolean;
-        prefix: string;
-        credentials: { accessKeyId: string; secretAccessKey: string } | null;
-      };
+  photoStore: { kind: 'local' } | ({ kind: 's3' } & S3PhotoStorageOptions);
   /** Whether this server process runs the queue's consumers and the photo sweep (else a worker process does). */
   runJobs: boolean;
   logLevel: 'fatal' | 'error' | 'warn' | 'info' | 'debug' | 'trace' | 'silent';

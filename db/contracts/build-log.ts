@@ -6,7 +6,8 @@ import { pageQuery, type Page, type Role } from './common';
  * The build log: every bench event (holes ticked, steps, sign-off) and every finding event of one build,
  * as plain sentences. The screen, the CSV and the PDF all read the same entries.
  */
-export const buildLogKinds = [
+/** The kinds of bench event this version knows (written by the traveler's bench). */
+export const benchLogKinds = [
   'holes_installed',
   'holes_pending',
   'step_done',
@@ -14,6 +15,10 @@ export const buildLogKinds = [
   'signed_off',
   'sign_off_withdrawn',
   'part_replaced',
+] as const;
+
+export const buildLogKinds = [
+  ...benchLogKinds,
   'finding_raised',
   'finding_dispositioned',
   'finding_approval',

@@ -127,17 +127,7 @@ export type PersonSummary = {
   /** What the reader may change on this person. */
   allowed: PersonAction[];
 };
-export type PendingInvitation = {
-  id: string;
-  email: string;
-  name: string;
-  role: Role;
-  organizationName: string | null;
-  invitedByName: string;
-  expiresAt: string;
-  buildKitSerial: string | null;
-  place: MemberPlace | null;
-};
+/** An invitation as the person invited sees it. */
 export type InvitationView = {
   email: string;
   name: string;
@@ -145,6 +135,12 @@ export type InvitationView = {
   organizationName: string | null;
   invitedByName: string;
   expiresAt: string;
+};
+/** An invitation in the list of those not yet taken up: with its id, and the build and place it offers. */
+export type PendingInvitation = InvitationView & {
+  id: string;
+  buildKitSerial: string | null;
+  place: MemberPlace | null;
 };
 
 export type BuildMember = { userId: string; name: string; email: string; place: MemberPlace; addedAt: string };

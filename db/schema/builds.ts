@@ -1,8 +1,9 @@
-import { index, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { index, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { buildMemberRoles } from '../contracts/people';
 import { kitModels } from './designs';
 import { organizations } from './organizations';
 import { memberPlace, users } from './users';
+import { logEventColumns } from './log-events';
 
 export const buildMemberRole = pgEnum('build_member_role', buildMemberRoles);
 
@@ -62,12 +63,7 @@ export const buildEvents = pgTable(
     buildId: uuid('build_id')
       .notNull()
       .references(() => builds.id, { onDelete: 'cascade' }),
-    actorId: uuid('actor_id')
-      .notNull()
-      .references(() => users.id),
-    kind: text('kind').notNull(),
-    detail: jsonb('detail').$type<Record<string, unknown>>().notNull(),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    ...logEventColumns(),
   },
   (t) => [index('build_events_build').on(t.buildId, t.createdAt, t.id)],
 );

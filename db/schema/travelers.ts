@@ -3,7 +3,6 @@ import {
   type AnyPgColumn,
   index,
   integer,
-  jsonb,
   pgEnum,
   pgTable,
   real,
@@ -16,6 +15,7 @@ import { holeStatuses, replacementReasons } from '../contracts';
 import { builds } from './builds';
 import { designRevisions } from './designs';
 import { users } from './users';
+import { logEventColumns } from './log-events';
 
 export const holeStatus = pgEnum('hole_status', holeStatuses);
 export const replacedReason = pgEnum('replaced_reason', replacementReasons);
@@ -89,12 +89,7 @@ export const travelerEvents = pgTable(
     travelerId: uuid('traveler_id')
       .notNull()
       .references(() => travelers.id, { onDelete: 'cascade' }),
-    actorId: uuid('actor_id')
-      .notNull()
-      .references(() => users.id),
-    kind: text('kind').notNull(),
-    detail: jsonb('detail').$type<Record<string, unknown>>().notNull(),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    ...logEventColumns(),
   },
   (t) => [index('traveler_events_traveler').on(t.travelerId, t.createdAt, t.id)],
 );

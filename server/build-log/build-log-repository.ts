@@ -22,7 +22,6 @@ import { findingEventActions, findingLogKindOfAction, type BuildLogKind } from '
 import {
   buildEvents,
   builds,
-  designRevisions,
   findingEvents,
   findingPhotos,
   findings,
@@ -32,6 +31,7 @@ import {
   users,
 } from '../../db/schema';
 import { visibleBuilds } from '../builds/build-access';
+import { joinTravelerPart } from '../travelers/travelers-repository';
 
 export type FindingLogKind = Extract<BuildLogKind, `finding_${string}`>;
 
@@ -101,10 +101,18 @@ function afterKeyOf(src: LogSource, col: AnyColumn, idCol: AnyColumn, r: LogRead
 const ordered = (order: LogOrder, col: AnyColumn, id: AnyColumn) =>
   order === 'desc' ? [desc(col), desc(id)] : [asc(col), asc(id)];
 
-/** Microsecond-exact UTC sort key: two events in the same millisecond still keep their order. */
-const sortKey = (
-  col: typeof travelerEvents.createdAt | typeof findingEvents.createdAt | typeof buildEvents.createdAt,
-) => sql<string>`to_char(${col} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US')`;
+/** A moment as UTC text to the microsecond, as PostgreSQL keeps it (a JS Date would drop the last three digits). */
+const utcMicros = <T extends string | null>(moment: AnyColumn | SQL) =>
+  sql<T>`to_char(${moment} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US')`;
+/** A row's place in time for the keyset: two events in the same millisecond still keep their order. */
+const sortKey = (createdAt: AnyColumn) => utcMicros<string>(createdAt);
+
+/** The window's bounds in time, on one source's `created_at`, added to its conditions. */
+function withinWindow(c: SQL[], createdAt: AnyColumn, w: LogWindow): SQL[] {
+  if (w.from) c.push(gte(createdAt, w.from));
+  if (w.before) c.push(lt(createdAt, w.before));
+  return c;
+}
 
 function travelerScope(db: Db, user: Express.User, w: LogWindow): SQL[] {
   const c: SQL[] = [visibleBuilds(db, user), eq(travelers.buildId, w.buildId)];
@@ -112,27 +120,25 @@ function travelerScope(db: Db, user: Express.User, w: LogWindow): SQL[] {
   return c;
 }
 
+/** Which part an entry is about, as every read of the log names it. */
+const partColumns = {
+  travelerId: travelers.id,
+  serial: travelers.serial,
+  partNumber: partDesigns.partNumber,
+  partName: partDesigns.name,
+};
+/** Who acted, as every entry of the log names them. */
+const actorColumns = { actorName: users.name, actorRole: users.role };
+
 export async function listLogParts(db: Db, user: Express.User, buildId: string) {
-  return db
-    .select({
-      travelerId: travelers.id,
-      serial: travelers.serial,
-      partNumber: partDesigns.partNumber,
-      partName: partDesigns.name,
-    })
-    .from(travelers)
-    .innerJoin(builds, eq(builds.id, travelers.buildId))
-    .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
-    .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
+  return joinTravelerPart(db.select(partColumns).from(travelers).$dynamic())
     .where(and(visibleBuilds(db, user), eq(travelers.buildId, buildId)))
     .orderBy(asc(partDesigns.partNumber), asc(travelers.serial));
 }
 
 function benchConditions(db: Db, user: Express.User, w: LogWindow): SQL[] | null {
   if (w.benchKinds && w.benchKinds.length === 0 && !w.otherBench) return null;
-  const c = travelerScope(db, user, w);
-  if (w.from) c.push(gte(travelerEvents.createdAt, w.from));
-  if (w.before) c.push(lt(travelerEvents.createdAt, w.before));
+  const c = withinWindow(travelerScope(db, user, w), travelerEvents.createdAt, w);
   if (w.benchKinds) {
     const kinds: SQL[] = [];
     if (w.benchKinds.length) kinds.push(inArray(travelerEvents.kind, w.benchKinds));
@@ -146,25 +152,21 @@ function benchConditions(db: Db, user: Express.User, w: LogWindow): SQL[] | null
 export async function listBenchEvents(db: Db, user: Express.User, w: LogWindow, r: LogRead) {
   const c = benchConditions(db, user, w);
   if (!c) return [];
-  return db
-    .select({
-      id: travelerEvents.id,
-      kind: travelerEvents.kind,
-      detail: travelerEvents.detail,
-      createdAt: travelerEvents.createdAt,
-      sortKey: sortKey(travelerEvents.createdAt),
-      actorName: users.name,
-      actorRole: users.role,
-      travelerId: travelers.id,
-      serial: travelers.serial,
-      partNumber: partDesigns.partNumber,
-      partName: partDesigns.name,
-    })
-    .from(travelerEvents)
-    .innerJoin(travelers, eq(travelers.id, travelerEvents.travelerId))
-    .innerJoin(builds, eq(builds.id, travelers.buildId))
-    .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
-    .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
+  return joinTravelerPart(
+    db
+      .select({
+        id: travelerEvents.id,
+        kind: travelerEvents.kind,
+        detail: travelerEvents.detail,
+        createdAt: travelerEvents.createdAt,
+        sortKey: sortKey(travelerEvents.createdAt),
+        ...actorColumns,
+        ...partColumns,
+      })
+      .from(travelerEvents)
+      .innerJoin(travelers, eq(travelers.id, travelerEvents.travelerId))
+      .$dynamic(),
+  )
     .innerJoin(users, eq(users.id, travelerEvents.actorId))
     .where(and(...c, afterKeyOf('t', travelerEvents.createdAt, travelerEvents.id, r)))
     .orderBy(...ordered(r.order, travelerEvents.createdAt, travelerEvents.id))
@@ -173,9 +175,7 @@ export async function listBenchEvents(db: Db, user: Express.User, w: LogWindow, 
 
 function findingConditions(db: Db, user: Express.User, w: LogWindow): SQL[] | null {
   if (w.findingKinds && w.findingKinds.length === 0) return null;
-  const c = travelerScope(db, user, w);
-  if (w.from) c.push(gte(findingEvents.createdAt, w.from));
-  if (w.before) c.push(lt(findingEvents.createdAt, w.before));
+  const c = withinWindow(travelerScope(db, user, w), findingEvents.createdAt, w);
   if (w.findingKinds) c.push(or(...w.findingKinds.map(findingKindCondition))!);
   return c;
 }
@@ -184,33 +184,29 @@ function findingConditions(db: Db, user: Express.User, w: LogWindow): SQL[] | nu
 export async function listFindingLogEvents(db: Db, user: Express.User, w: LogWindow, r: LogRead) {
   const c = findingConditions(db, user, w);
   if (!c) return [];
-  return db
-    .select({
-      id: findingEvents.id,
-      findingId: findings.id,
-      action: findingEvents.action,
-      toStatus: findingEvents.toStatus,
-      fromStatus: findingEvents.fromStatus,
-      disposition: findingEvents.disposition,
-      note: findingEvents.note,
-      createdAt: findingEvents.createdAt,
-      sortKey: sortKey(findingEvents.createdAt),
-      actorName: users.name,
-      actorRole: users.role,
-      holeIds: findings.holeIds,
-      findingKind: findings.kind,
-      closure: findings.closure,
-      travelerId: travelers.id,
-      serial: travelers.serial,
-      partNumber: partDesigns.partNumber,
-      partName: partDesigns.name,
-    })
-    .from(findingEvents)
-    .innerJoin(findings, eq(findings.id, findingEvents.findingId))
-    .innerJoin(travelers, eq(travelers.id, findings.travelerId))
-    .innerJoin(builds, eq(builds.id, travelers.buildId))
-    .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
-    .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
+  return joinTravelerPart(
+    db
+      .select({
+        id: findingEvents.id,
+        findingId: findings.id,
+        action: findingEvents.action,
+        toStatus: findingEvents.toStatus,
+        fromStatus: findingEvents.fromStatus,
+        disposition: findingEvents.disposition,
+        note: findingEvents.note,
+        createdAt: findingEvents.createdAt,
+        sortKey: sortKey(findingEvents.createdAt),
+        ...actorColumns,
+        holeIds: findings.holeIds,
+        findingKind: findings.kind,
+        closure: findings.closure,
+        ...partColumns,
+      })
+      .from(findingEvents)
+      .innerJoin(findings, eq(findings.id, findingEvents.findingId))
+      .innerJoin(travelers, eq(travelers.id, findings.travelerId))
+      .$dynamic(),
+  )
     .innerJoin(users, eq(users.id, findingEvents.actorId))
     .where(and(...c, afterKeyOf('f', findingEvents.createdAt, findingEvents.id, r)))
     .orderBy(...ordered(r.order, findingEvents.createdAt, findingEvents.id))
@@ -237,9 +233,7 @@ export async function listLogPhotos(db: Db, user: Express.User, buildId: string,
 
 function buildConditions(db: Db, user: Express.User, w: LogWindow): SQL[] | null {
   if (w.travelerId || (w.buildKinds && w.buildKinds.length === 0)) return null;
-  const c: SQL[] = [visibleBuilds(db, user), eq(buildEvents.buildId, w.buildId)];
-  if (w.from) c.push(gte(buildEvents.createdAt, w.from));
-  if (w.before) c.push(lt(buildEvents.createdAt, w.before));
+  const c = withinWindow([visibleBuilds(db, user), eq(buildEvents.buildId, w.buildId)], buildEvents.createdAt, w);
   if (w.buildKinds) c.push(inArray(buildEvents.kind, w.buildKinds));
   return c;
 }
@@ -255,8 +249,7 @@ export async function listBuildEvents(db: Db, user: Express.User, w: LogWindow, 
       detail: buildEvents.detail,
       createdAt: buildEvents.createdAt,
       sortKey: sortKey(buildEvents.createdAt),
-      actorName: users.name,
-      actorRole: users.role,
+      ...actorColumns,
       kitSerial: builds.kitSerial,
     })
     .from(buildEvents)
@@ -270,8 +263,8 @@ export async function listBuildEvents(db: Db, user: Express.User, w: LogWindow, 
 type Tally = { n: number; first: string | null; last: string | null };
 const tallyOf = (col: AnyColumn) => ({
   n: count(),
-  first: sql<string | null>`to_char(${min(col)} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US')`,
-  last: sql<string | null>`to_char(${max(col)} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US')`,
+  first: utcMicros<string | null>(min(col)),
+  last: utcMicros<string | null>(max(col)),
 });
 
 /**
@@ -310,13 +303,15 @@ export async function tallyLog(db: Db, user: Express.User, w: LogWindow): Promis
       : none,
   ]);
   const all = parts.map((p) => p[0]);
-  const firsts = all
-    .map((t) => t.first)
-    .filter((x): x is string => !!x)
-    .sort();
-  const lasts = all
-    .map((t) => t.last)
-    .filter((x): x is string => !!x)
-    .sort();
-  return { n: all.reduce((s, t) => s + Number(t.n), 0), first: firsts[0] ?? null, last: lasts.at(-1) ?? null };
+  /** The sources' moments that exist, in order (the text sorts as the time does). */
+  const moments = (of: 'first' | 'last') =>
+    all
+      .map((t) => t[of])
+      .filter((x): x is string => !!x)
+      .sort();
+  return {
+    n: all.reduce((s, t) => s + Number(t.n), 0),
+    first: moments('first')[0] ?? null,
+    last: moments('last').at(-1) ?? null,
+  };
 }

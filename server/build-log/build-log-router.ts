@@ -31,6 +31,20 @@ async function stream(res: Response, headers: Record<string, string>, write: (ou
   }
 }
 
+/** An export of the log: the service's checks and the file's name, then the file streamed as `contentType`. */
+type MakeExport = (
+  user: Express.User,
+  buildId: string,
+  q: BuildLogQuery,
+) => Promise<{ filename: string; write: (out: Response) => Promise<void> }>;
+
+function exportRoute(make: MakeExport, contentType: string): RequestHandler {
+  return async (req, res) => {
+    const file = await make(req.user!, idParam.parse(req.params).id, res.locals.query as BuildLogQuery);
+    await stream(res, { 'Content-Type': contentType, 'Content-Disposition': attachment(file.filename) }, file.write);
+  };
+}
+
 /**
  * GET /api/builds/:id/log (JSON, one page at a time), /log.csv and /log.pdf, same filters. Mounted on /builds ahead of the
  * builds router; it signs in only its own routes, so other /builds requests are not authenticated twice.
@@ -46,21 +60,7 @@ export function buildLogRouter(ctx: AppContext, signedIn: RequestHandler): Route
     res.set('Cache-Control', 'private, no-store');
     res.json(await service.page(req.user!, idParam.parse(req.params).id, res.locals.query as BuildLogPageQuery));
   });
-  r.get('/:id/log.csv', signedIn, query, async (req, res) => {
-    const csv = await service.csv(req.user!, idParam.parse(req.params).id, res.locals.query as BuildLogQuery);
-    await stream(
-      res,
-      { 'Content-Type': 'text/csv; charset=utf-8; header=present', 'Content-Disposition': attachment(csv.filename) },
-      csv.write,
-    );
-  });
-  r.get('/:id/log.pdf', signedIn, query, async (req, res) => {
-    const pdf = await service.pdf(req.user!, idParam.parse(req.params).id, res.locals.query as BuildLogQuery);
-    await stream(
-      res,
-      { 'Content-Type': 'application/pdf', 'Content-Disposition': attachment(pdf.filename) },
-      pdf.write,
-    );
-  });
+  r.get('/:id/log.csv', signedIn, query, exportRoute(service.csv, 'text/csv; charset=utf-8; header=present'));
+  r.get('/:id/log.pdf', signedIn, query, exportRoute(service.pdf, 'application/pdf'));
   return r;
 }

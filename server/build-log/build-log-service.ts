@@ -1,5 +1,6 @@
 import type { Writable } from 'node:stream';
 import {
+  benchLogKinds,
   describeHoleRuns,
   dispositionLabels,
   memberPlaceLabels,
@@ -124,16 +125,6 @@ function drained(out: Writable): Promise<void> {
     out.on('close', done);
   });
 }
-
-const BENCH_KINDS = [
-  'holes_installed',
-  'holes_pending',
-  'step_done',
-  'step_undone',
-  'signed_off',
-  'sign_off_withdrawn',
-  'part_replaced',
-] as const;
 
 // One collator for every comparison: localeCompare with options builds a new one each call (slow over 50,000 entries).
 const natural = new Intl.Collator(undefined, { numeric: true }).compare;
@@ -286,7 +277,7 @@ function windowOf(buildId: string, q: BuildLogQuery): LogWindow {
     throw badRequest('the end of the date range (to) is before its start (from)', { to: 'is before from' });
 
   const kinds = q.kind?.length ? expandKindFilter(q.kind) : null;
-  const knownBenchKinds: readonly string[] = BENCH_KINDS;
+  const knownBenchKinds: readonly string[] = benchLogKinds;
   return {
     buildId,
     travelerId: q.travelerId,

@@ -42,6 +42,17 @@ const keyShape = ['string', 'number', 'string', 'number', 'string', 'string'] as
 
 export type CouponFilter = { material?: string; rivetSpec?: string; current?: boolean; id?: string };
 
+/** A test as the engine reads it: what was pulled, with which rivet, and what the sheet did. */
+const engineCouponColumns = {
+  material: couponTests.material,
+  gaugeIn: couponTests.gaugeIn,
+  couponWidthIn: couponTests.couponWidthIn,
+  rivetSpec: couponTests.rivetSpec,
+  loadLb: couponTests.loadLb,
+  outcome: couponTests.outcome,
+  note: couponTests.note,
+};
+
 /**
  * The supplier's record of tests, corrected entries included (with who corrected them, when and why), and
  * what each may back: `current` leaves corrected entries out, as everything that derives allowables must.
@@ -50,13 +61,7 @@ function couponRows(db: Db, organizationId: string, filter: CouponFilter, after:
   return db
     .select({
       id: couponTests.id,
-      material: couponTests.material,
-      gaugeIn: couponTests.gaugeIn,
-      couponWidthIn: couponTests.couponWidthIn,
-      rivetSpec: couponTests.rivetSpec,
-      loadLb: couponTests.loadLb,
-      outcome: couponTests.outcome,
-      note: couponTests.note,
+      ...engineCouponColumns,
       testedOn: couponTests.testedOn,
       createdAt: sql<string>`${couponTests.createdAt}::text`,
       createdByName: users.name,
@@ -172,15 +177,7 @@ export const listPublishedRevisions = (db: Db, organizationId: string) =>
 /** A supplier's current tests of one material in the engine's shape: what studies and rework checks allow from. Corrected entries are left out. */
 export async function couponsForEngine(db: Db, organizationId: string, material: string): Promise<EngineCouponTest[]> {
   return db
-    .select({
-      material: couponTests.material,
-      gaugeIn: couponTests.gaugeIn,
-      couponWidthIn: couponTests.couponWidthIn,
-      rivetSpec: couponTests.rivetSpec,
-      loadLb: couponTests.loadLb,
-      outcome: couponTests.outcome,
-      note: couponTests.note,
-    })
+    .select(engineCouponColumns)
     .from(couponTests)
     .where(
       and(

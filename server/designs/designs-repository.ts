@@ -4,9 +4,8 @@ import { afterKey, decodeCursor, pageOf } from '../pagination';
 import type { Db } from '../../db';
 import { designRevisions, findings, kitModels, partDesigns, travelers, users } from '../../db/schema';
 
-export const revisionColumns = {
-  id: designRevisions.id,
-  partDesignId: designRevisions.partDesignId,
+/** What a revision makes a part to: its letter and state, sheet, rivet and drill, and its fastener lines. */
+export const revisionMakeColumns = {
   letter: designRevisions.letter,
   status: designRevisions.status,
   material: designRevisions.material,
@@ -17,6 +16,12 @@ export const revisionColumns = {
   edgeDistanceIn: designRevisions.edgeDistanceIn,
   chordIn: designRevisions.chordIn,
   lines: designRevisions.lines,
+};
+
+export const revisionColumns = {
+  id: designRevisions.id,
+  partDesignId: designRevisions.partDesignId,
+  ...revisionMakeColumns,
   steps: designRevisions.steps,
   changeNote: designRevisions.changeNote,
   basis: designRevisions.basis,

@@ -1,7 +1,6 @@
 import sharp from 'sharp';
 import type { CouponOutcome, RevisionInput, RibStudyInputValues, WingStudyInputValues } from '../../db/contracts';
 import type { Database } from '../../db';
-import { organizations, users } from '../../db/schema';
 import { hashPassword } from '../auth/passwords';
 import { buildsService } from '../builds/builds-service';
 import { couponsService } from '../coupons/coupons-service';
@@ -9,6 +8,7 @@ import { designsService } from '../designs/designs-service';
 import { findingsService } from '../findings/findings-service';
 import type { MailQueue } from '../jobs/mail-queue';
 import { kitsService } from '../kits/kits-service';
+import { anyUserExists, insertOrganization, insertUser } from '../people/people-repository';
 import { studiesService } from '../studies/studies-service';
 import { createUrlSigner } from '../photos/url-signer';
 import type { PhotoStorage } from '../storage/photo-storage';
@@ -23,9 +23,21 @@ export const DEMO_USERS = {
   admin: { email: 'admin@pitchcard.example', name: 'Site Admin', role: 'admin' as const },
 };
 
-function ribRevision(
-  over: Partial<RevisionInput> = {},
-): Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & { steps: string[]; changeNote: string } {
+/** A revision as the demo writes it: every field given. */
+type DemoRevision = Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & { steps: string[]; changeNote: string };
+type DemoLine = DemoRevision['lines'][number];
+
+/** A rib flange line of the demo's ribs: 44 in long from 1 in aft of the nose, in pitch zones. */
+const flangeLine = (code: string, name: string, surface: DemoLine['surface'], zones: DemoLine['zones']): DemoLine => ({
+  code,
+  name,
+  surface,
+  startIn: 1,
+  lengthIn: 44,
+  zones,
+});
+
+function ribRevision(over: Partial<RevisionInput> = {}): DemoRevision {
   return {
     material: '6061-T6',
     gaugeIn: 0.025,
@@ -35,29 +47,15 @@ function ribRevision(
     edgeDistanceIn: 0.25,
     chordIn: 54,
     lines: [
-      {
-        code: 'U',
-        name: 'Upper flange',
-        surface: 'upper',
-        startIn: 1,
-        lengthIn: 44,
-        zones: [
-          { fromIn: 0, toIn: 8, pitchIn: 1 },
-          { fromIn: 8, toIn: 24, pitchIn: 1.5 },
-          { fromIn: 24, toIn: 44, pitchIn: 2 },
-        ],
-      },
-      {
-        code: 'L',
-        name: 'Lower flange',
-        surface: 'lower',
-        startIn: 1,
-        lengthIn: 44,
-        zones: [
-          { fromIn: 0, toIn: 12, pitchIn: 1.5 },
-          { fromIn: 12, toIn: 44, pitchIn: 2 },
-        ],
-      },
+      flangeLine('U', 'Upper flange', 'upper', [
+        { fromIn: 0, toIn: 8, pitchIn: 1 },
+        { fromIn: 8, toIn: 24, pitchIn: 1.5 },
+        { fromIn: 24, toIn: 44, pitchIn: 2 },
+      ]),
+      flangeLine('L', 'Lower flange', 'lower', [
+        { fromIn: 0, toIn: 12, pitchIn: 1.5 },
+        { fromIn: 12, toIn: 44, pitchIn: 2 },
+      ]),
     ],
     steps: [
       'Deburr all holes and flute the flanges straight',
@@ -79,15 +77,18 @@ export const DEMO_COUPONS: [number, number, CouponOutcome, string][] = [
   [0.02, 30, 'slight_deformation', 'dimple, hole round, rivet tight'],
 ];
 
+/** The demo kit's figures: its kit record and its studies' kit are the same aircraft. */
+const DEMO_KIT = {
+  weightLb: 1320,
+  wingAreaSqFt: 120,
+  meanChordIn: 54,
+  stallSpeedKeas: 47,
+  cruiseSpeedKeas: 118,
+  category: 'utility' as const,
+};
+
 export const DEMO_STUDY_INPUTS: RibStudyInputValues = {
-  kit: {
-    weightLb: 1320,
-    wingAreaSqFt: 120,
-    meanChordIn: 54,
-    stallSpeedKeas: 47,
-    cruiseSpeedKeas: 118,
-    category: 'utility',
-  },
+  kit: DEMO_KIT,
   airfoil: { kind: 'naca', designation: '2412' },
   rib: { chordIn: 54, spacingIn: 14.5 },
   lines: [
@@ -124,15 +125,22 @@ export const DEMO_WING_INPUTS: WingStudyInputValues = {
   maxZones: 4,
 };
 
+/** A line of the demo skin: on the upper surface, its whole length at a 1 in pitch. */
+const skinLine = (code: string, name: string, lengthIn: number): DemoLine => ({
+  code,
+  name,
+  surface: 'upper',
+  startIn: 0,
+  lengthIn,
+  zones: [{ fromIn: 0, toIn: lengthIn, pitchIn: 1 }],
+});
+
 /**
  * A draft upper skin of the root bay (W-101 to W-102) for the wing study to be applied to: the spar lines
  * run the bay's 14.5 in, the rib lines the 29.7 in between the spars along the surface. A revision's
  * lines all run one way within its chord, so the chord here is the panel's longest side.
  */
-const DEMO_SKIN_REVISION: Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & {
-  steps: string[];
-  changeNote: string;
-} = {
+export const DEMO_SKIN_REVISION: DemoRevision = {
   material: '6061-T6',
   gaugeIn: 0.025,
   rivetSpec: 'MS20426AD3',
@@ -141,38 +149,10 @@ const DEMO_SKIN_REVISION: Required<Omit<RevisionInput, 'steps' | 'changeNote'>> 
   edgeDistanceIn: 0.25,
   chordIn: 30,
   lines: [
-    {
-      code: 'FS',
-      name: 'Front spar',
-      surface: 'upper',
-      startIn: 0,
-      lengthIn: 14.5,
-      zones: [{ fromIn: 0, toIn: 14.5, pitchIn: 1 }],
-    },
-    {
-      code: 'RS',
-      name: 'Rear spar',
-      surface: 'upper',
-      startIn: 0,
-      lengthIn: 14.5,
-      zones: [{ fromIn: 0, toIn: 14.5, pitchIn: 1 }],
-    },
-    {
-      code: 'IR',
-      name: 'Rib W-101 (inboard)',
-      surface: 'upper',
-      startIn: 0,
-      lengthIn: 29.7,
-      zones: [{ fromIn: 0, toIn: 29.7, pitchIn: 1 }],
-    },
-    {
-      code: 'OR',
-      name: 'Rib W-102 (outboard)',
-      surface: 'upper',
-      startIn: 0,
-      lengthIn: 29.7,
-      zones: [{ fromIn: 0, toIn: 29.7, pitchIn: 1 }],
-    },
+    skinLine('FS', 'Front spar', 14.5),
+    skinLine('RS', 'Rear spar', 14.5),
+    skinLine('IR', 'Rib W-101 (inboard)', 29.7),
+    skinLine('OR', 'Rib W-102 (outboard)', 29.7),
   ],
   steps: [
     'Deburr and dimple the skin holes',
@@ -199,21 +179,15 @@ export async function seedDemo(
   jwtSecret: string,
 ): Promise<boolean> {
   const { db, pool } = database;
-  if ((await db.select({ id: users.id }).from(users).limit(1)).length) return false;
+  if (await anyUserExists(db)) return false;
 
-  const [supplierOrg] = await db
-    .insert(organizations)
-    .values({ name: 'Northfold Kitworks', kind: 'supplier' })
-    .returning();
-  const [shop] = await db.insert(organizations).values({ name: 'Benchwork Hangar 3', kind: 'shop' }).returning();
+  const supplierOrg = await insertOrganization(db, 'Northfold Kitworks', 'supplier');
+  const shop = await insertOrganization(db, 'Benchwork Hangar 3', 'shop');
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   const made: Record<string, Express.User> = {};
   for (const [key, u] of Object.entries(DEMO_USERS)) {
     const organizationId = u.role === 'supplier' ? supplierOrg.id : u.role === 'admin' ? null : shop.id;
-    const [row] = await db
-      .insert(users)
-      .values({ ...u, organizationId, passwordHash, lead: u.role === 'supplier' })
-      .returning();
+    const row = await insertUser(db, { ...u, organizationId, passwordHash, lead: u.role === 'supplier' });
     made[key] = {
       id: row.id,
       email: row.email,
@@ -229,12 +203,7 @@ export async function seedDemo(
   const kit = await kitsService(db).create(supplier, {
     code: 'NK-2',
     name: 'NK-2 Quillon two-seat trainer',
-    weightLb: 1320,
-    wingAreaSqFt: 120,
-    meanChordIn: 54,
-    stallSpeedKeas: 47,
-    cruiseSpeedKeas: 118,
-    category: 'utility',
+    ...DEMO_KIT,
     airfoil: 'NACA 2412',
   });
   const designs = designsService(db);

@@ -705,8 +705,11 @@ export class HoleSet {
   objects(line: string, round?: (v: number) => number): ScheduleHole[];
   objects(line: null, round?: (v: number) => number): Omit<ScheduleHole, 'line'>[];
   objects(line: string | null, round: (v: number) => number = asIs): (ScheduleHole | Omit<ScheduleHole, 'line'>)[] {
+    // Without the line: the rib study's one kept candidate, not a hot path, so the name is taken off
+    // afterwards (the rest keep their order) rather than spelled out in another pair of literals.
+    if (line === null) return this.objects('', round).map(({ line: _line, ...hole }) => hole);
     const { x, y } = this.lineData;
-    const holes: (ScheduleHole | Omit<ScheduleHole, 'line'>)[] = new Array(this.count);
+    const holes: ScheduleHole[] = new Array(this.count);
     const walk = new HoleWalk(this.positions, this.zones, this.lineData, this.c);
     for (let k = 0; k < this.count; k++) {
       walk.step(k);
@@ -725,68 +728,38 @@ export class HoleSet {
       const msLimit = ms === null ? null : round(ms);
       const mu = marginOrNull(walk.msUltimate);
       const msUltimate = mu === null ? null : round(mu);
-      // Literals rather than a spread: one shape per kind of line, and the same key order every way.
-      if (line === null) {
-        holes[k] =
-          x && y
-            ? {
-                id,
-                stationIn,
-                alongIn,
-                xIn: round(x.atIndex(p, after)),
-                yIn: round(y.atIndex(p, after)),
-                zone,
-                tributaryIn,
-                appliedLimitLb,
-                appliedUltimateLb,
-                appliedLimitShearLb,
-                msLimit,
-                msUltimate,
-              }
-            : {
-                id,
-                stationIn,
-                alongIn,
-                zone,
-                tributaryIn,
-                appliedLimitLb,
-                appliedUltimateLb,
-                appliedLimitShearLb,
-                msLimit,
-                msUltimate,
-              };
-      } else {
-        holes[k] =
-          x && y
-            ? {
-                id,
-                line,
-                stationIn,
-                alongIn,
-                xIn: round(x.atIndex(p, after)),
-                yIn: round(y.atIndex(p, after)),
-                zone,
-                tributaryIn,
-                appliedLimitLb,
-                appliedUltimateLb,
-                appliedLimitShearLb,
-                msLimit,
-                msUltimate,
-              }
-            : {
-                id,
-                line,
-                stationIn,
-                alongIn,
-                zone,
-                tributaryIn,
-                appliedLimitLb,
-                appliedUltimateLb,
-                appliedLimitShearLb,
-                msLimit,
-                msUltimate,
-              };
-      }
+      // Literals rather than a spread (each skin panel schedules every line for every candidate): one
+      // shape per kind of line, and the same key order every way.
+      holes[k] =
+        x && y
+          ? {
+              id,
+              line,
+              stationIn,
+              alongIn,
+              xIn: round(x.atIndex(p, after)),
+              yIn: round(y.atIndex(p, after)),
+              zone,
+              tributaryIn,
+              appliedLimitLb,
+              appliedUltimateLb,
+              appliedLimitShearLb,
+              msLimit,
+              msUltimate,
+            }
+          : {
+              id,
+              line,
+              stationIn,
+              alongIn,
+              zone,
+              tributaryIn,
+              appliedLimitLb,
+              appliedUltimateLb,
+              appliedLimitShearLb,
+              msLimit,
+              msUltimate,
+            };
     }
     return holes;
   }

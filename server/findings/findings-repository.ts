@@ -16,6 +16,7 @@ import {
 } from '../../db/schema';
 import { openFindingStatuses, type FindingStatus, type HoleStatus, type MailAudience } from '../../db/contracts';
 import { visibleBuilds } from '../builds/build-access';
+import { joinTravelerPart } from '../travelers/travelers-repository';
 import { afterKey } from '../pagination';
 import { preparedFor, viewerAsParams, type Viewer } from '../prepared';
 
@@ -39,35 +40,35 @@ export async function listFindingRows(db: Db, user: Express.User, filter: Findin
   if (filter.buildId) conditions.push(eq(travelers.buildId, filter.buildId));
   const byStatus = statusCondition(filter.status);
   if (byStatus) conditions.push(byStatus);
-  const rows = await db
-    .select({
-      id: findings.id,
-      travelerId: findings.travelerId,
-      serial: travelers.serial,
-      partNumber: partDesigns.partNumber,
-      kitSerial: builds.kitSerial,
-      buildId: builds.id,
-      holeIds: findings.holeIds,
-      kind: findings.kind,
-      status: findings.status,
-      disposition: findings.disposition,
-      closure: findings.closure,
-      raisedByName: users.name,
-      createdAt: findings.createdAt,
-      updatedAt: findings.updatedAt,
-      note: findings.note,
-      dispositionNote: findings.dispositionNote,
-      measurements: findings.measurements,
-      repair: findings.repair,
-      workReportedAt: findings.workReportedAt,
-      signedOffAt: travelers.signedOffAt,
-      replacedById: travelers.replacedById,
-    })
-    .from(findings)
-    .innerJoin(travelers, eq(travelers.id, findings.travelerId))
-    .innerJoin(builds, eq(builds.id, travelers.buildId))
-    .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
-    .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
+  const rows = await joinTravelerPart(
+    db
+      .select({
+        id: findings.id,
+        travelerId: findings.travelerId,
+        serial: travelers.serial,
+        partNumber: partDesigns.partNumber,
+        kitSerial: builds.kitSerial,
+        buildId: builds.id,
+        holeIds: findings.holeIds,
+        kind: findings.kind,
+        status: findings.status,
+        disposition: findings.disposition,
+        closure: findings.closure,
+        raisedByName: users.name,
+        createdAt: findings.createdAt,
+        updatedAt: findings.updatedAt,
+        note: findings.note,
+        dispositionNote: findings.dispositionNote,
+        measurements: findings.measurements,
+        repair: findings.repair,
+        workReportedAt: findings.workReportedAt,
+        signedOffAt: travelers.signedOffAt,
+        replacedById: travelers.replacedById,
+      })
+      .from(findings)
+      .innerJoin(travelers, eq(travelers.id, findings.travelerId))
+      .$dynamic(),
+  )
     .innerJoin(users, eq(users.id, findings.raisedBy))
     .where(and(...conditions))
     .orderBy(desc(findings.createdAt));

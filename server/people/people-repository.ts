@@ -168,6 +168,12 @@ export async function pagePendingInvitations(db: Db, organizationId: string | un
   return pageOf(rows, q.limit, (i) => [i.createdKey, i.id]);
 }
 
+/** Whether anyone has an account yet (the demo loads only into a database without). */
+export async function anyUserExists(db: Db): Promise<boolean> {
+  const rows = await db.select({ id: users.id }).from(users).limit(1);
+  return rows.length > 0;
+}
+
 export async function insertUser(db: Db, values: typeof users.$inferInsert) {
   const [row] = await db.insert(users).values(values).returning();
   return row;

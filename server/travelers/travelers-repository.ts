@@ -1,4 +1,5 @@
 import { and, asc, count, eq, ilike, inArray, isNotNull, isNull, or, sql, type SQL } from 'drizzle-orm';
+import type { PgSelect } from 'drizzle-orm/pg-core';
 import type { Db } from '../../db';
 import {
   builds,
@@ -26,6 +27,7 @@ import { placeColumn, visibleBuilds } from '../builds/build-access';
 import { preparedFor, viewerAsParams, type Viewer } from '../prepared';
 import { afterKey } from '../pagination';
 import { checkLayout } from '../designs/layout-check';
+import { revisionMakeColumns } from '../designs/designs-repository';
 import { newQrToken, newShortCode } from './codes';
 import { placeHoles } from './hole-layout';
 
@@ -75,16 +77,22 @@ const openFindingsColumn = sql<number>`(select count(*)::int from ${findings} wh
 const newerRevisionColumn = sql<string | null>`case when ${designRevisions.status} = 'superseded' then
   (select nr.letter from design_revisions nr where nr.part_design_id = ${partDesigns.id} and nr.status = 'published' limit 1) end`;
 
-/** The ids of the travelers the user may see, filtered: the inner query of a list. */
-function pickIds(db: Db, user: Express.User, by: TravelerListFilter, after?: SQL) {
-  return db
-    .select({ id: travelers.id })
-    .from(travelers)
+/**
+ * Joins a part's build, revision and design to a query that already reads `travelers`: the path from a
+ * part to what it is and whose build it is on, which every list of parts, findings and bench events takes.
+ */
+export function joinTravelerPart<T extends PgSelect>(query: T) {
+  return query
     .innerJoin(builds, eq(builds.id, travelers.buildId))
     .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
-    .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
-    .where(and(...listConditions(db, user, by), after))
-    .$dynamic();
+    .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId));
+}
+
+/** The ids of the travelers the user may see, filtered: the inner query of a list. */
+function pickIds(db: Db, user: Express.User, by: TravelerListFilter, after?: SQL) {
+  return joinTravelerPart(db.select({ id: travelers.id }).from(travelers).$dynamic()).where(
+    and(...listConditions(db, user, by), after),
+  );
 }
 
 /**
@@ -107,32 +115,32 @@ function summaries(db: Db, picked: ReturnType<typeof pickIds>, order: 'list' | '
     .from(holes)
     .where(eq(holes.travelerId, travelers.id))
     .as('hole_counts');
-  return db
-    .select({
-      id: travelers.id,
-      serial: travelers.serial,
-      shortCode: travelers.shortCode,
-      buildId: travelers.buildId,
-      kitSerial: builds.kitSerial,
-      partNumber: partDesigns.partNumber,
-      partName: partDesigns.name,
-      kind: partDesigns.kind,
-      letter: designRevisions.letter,
-      signedOffAt: travelers.signedOffAt,
-      replacedById: travelers.replacedById,
-      replacedReason: travelers.replacedReason,
-      replacesId: travelers.replacesId,
-      holesTotal: holeCounts.total,
-      holesDone: holeCounts.done,
-      holesAwaitingInspector: holeCounts.awaiting,
-      openFindings: openFindingsColumn,
-      newerRevision: newerRevisionColumn,
-    })
-    .from(page)
-    .innerJoin(travelers, eq(travelers.id, page.id))
-    .innerJoin(builds, eq(builds.id, travelers.buildId))
-    .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
-    .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
+  return joinTravelerPart(
+    db
+      .select({
+        id: travelers.id,
+        serial: travelers.serial,
+        shortCode: travelers.shortCode,
+        buildId: travelers.buildId,
+        kitSerial: builds.kitSerial,
+        partNumber: partDesigns.partNumber,
+        partName: partDesigns.name,
+        kind: partDesigns.kind,
+        letter: designRevisions.letter,
+        signedOffAt: travelers.signedOffAt,
+        replacedById: travelers.replacedById,
+        replacedReason: travelers.replacedReason,
+        replacesId: travelers.replacesId,
+        holesTotal: holeCounts.total,
+        holesDone: holeCounts.done,
+        holesAwaitingInspector: holeCounts.awaiting,
+        openFindings: openFindingsColumn,
+        newerRevision: newerRevisionColumn,
+      })
+      .from(page)
+      .innerJoin(travelers, eq(travelers.id, page.id))
+      .$dynamic(),
+  )
     .leftJoinLateral(holeCounts, sql`true`)
     .orderBy(
       ...(order === 'list'
@@ -199,45 +207,38 @@ export async function readTravelerPage(db: Db, user: Express.User, id: string) {
 }
 
 function travelerPageQuery(db: Db, user: Viewer) {
-  return db
-    .select({
-      traveler: travelers,
-      // The revision's own columns the page shows, not its study basis (which can be large).
-      revision: {
-        letter: designRevisions.letter,
-        status: designRevisions.status,
-        material: designRevisions.material,
-        gaugeIn: designRevisions.gaugeIn,
-        rivetSpec: designRevisions.rivetSpec,
-        drillSize: designRevisions.drillSize,
-        drillDiameterIn: designRevisions.drillDiameterIn,
-        edgeDistanceIn: designRevisions.edgeDistanceIn,
-        chordIn: designRevisions.chordIn,
-        lines: designRevisions.lines,
-        publishedBy: designRevisions.publishedBy,
-      },
-      design: { partNumber: partDesigns.partNumber, name: partDesigns.name, kind: partDesigns.kind },
-      kit: { airfoil: kitModels.airfoil },
-      kitSerial: builds.kitSerial,
-      place: placeColumn(user),
-      openFindings: openFindingsColumn,
-      newerRevision: newerRevisionColumn,
-      approvedByName: sql<string | null>`(select u.name from users u where u.id = ${designRevisions.publishedBy})`,
-      signedOffByName: sql<string | null>`(select u.name from users u where u.id = ${travelers.signedOffBy})`,
-      replacedBySerial: sql<string | null>`(select r.serial from travelers r where r.id = ${travelers.replacedById})`,
-      replacesSerial: sql<string | null>`(select r.serial from travelers r where r.id = ${travelers.replacesId})`,
-      holes: sql<Hole[]>`(select coalesce(json_agg(json_build_object('holeId', h.hole_id, 'line', h.line, 'seq', h.seq,
+  return joinTravelerPart(
+    db
+      .select({
+        traveler: travelers,
+        // The revision's own columns the page shows, not its study basis (which can be large).
+        revision: {
+          ...revisionMakeColumns,
+          publishedBy: designRevisions.publishedBy,
+        },
+        design: { partNumber: partDesigns.partNumber, name: partDesigns.name, kind: partDesigns.kind },
+        kit: { airfoil: kitModels.airfoil },
+        kitSerial: builds.kitSerial,
+        place: placeColumn(user),
+        openFindings: openFindingsColumn,
+        newerRevision: newerRevisionColumn,
+        approvedByName: sql<string | null>`(select u.name from users u where u.id = ${designRevisions.publishedBy})`,
+        signedOffByName: sql<string | null>`(select u.name from users u where u.id = ${travelers.signedOffBy})`,
+        replacedBySerial: sql<string | null>`(select r.serial from travelers r where r.id = ${travelers.replacedById})`,
+        replacesSerial: sql<string | null>`(select r.serial from travelers r where r.id = ${travelers.replacesId})`,
+        holes: sql<
+          Hole[]
+        >`(select coalesce(json_agg(json_build_object('holeId', h.hole_id, 'line', h.line, 'seq', h.seq,
       'stationIn', h.station_in, 'status', h.status) order by h.line, h.seq), '[]'::json) from holes h where h.traveler_id = ${travelers.id})`,
-      steps: sql<
-        { id: string; seq: number; text: string; doneAt: string | null; doneByName: string | null }[]
-      >`(select coalesce(json_agg(json_build_object(
+        steps: sql<
+          { id: string; seq: number; text: string; doneAt: string | null; doneByName: string | null }[]
+        >`(select coalesce(json_agg(json_build_object(
       'id', s.id, 'seq', s.seq, 'text', s.text, 'doneAt', s.done_at, 'doneByName', u.name) order by s.seq), '[]'::json)
       from traveler_steps s left join users u on u.id = s.done_by where s.traveler_id = ${travelers.id})`,
-    })
-    .from(travelers)
-    .innerJoin(builds, eq(builds.id, travelers.buildId))
-    .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
-    .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
+      })
+      .from(travelers)
+      .$dynamic(),
+  )
     .innerJoin(kitModels, eq(kitModels.id, partDesigns.kitModelId))
     .where(and(eq(travelers.id, sql.placeholder('id')), visibleBuilds(db, user)));
 }
@@ -411,24 +412,24 @@ export async function replacementSerial(tx: Db, t: typeof travelers.$inferSelect
 
 /** What a QR label prints, for one part or a whole build (the caller has checked who may print). */
 export async function listLabelRows(db: Db, by: { buildId: string } | { travelerId: string }) {
-  return db
-    .select({
-      travelerId: travelers.id,
-      serial: travelers.serial,
-      shortCode: travelers.shortCode,
-      qrToken: travelers.qrToken,
-      partNumber: partDesigns.partNumber,
-      partName: partDesigns.name,
-      letter: designRevisions.letter,
-      kitModelCode: kitModels.code,
-      kitModelName: kitModels.name,
-      supplierName: organizations.name,
-      kitSerial: builds.kitSerial,
-    })
-    .from(travelers)
-    .innerJoin(builds, eq(builds.id, travelers.buildId))
-    .innerJoin(designRevisions, eq(designRevisions.id, travelers.revisionId))
-    .innerJoin(partDesigns, eq(partDesigns.id, designRevisions.partDesignId))
+  return joinTravelerPart(
+    db
+      .select({
+        travelerId: travelers.id,
+        serial: travelers.serial,
+        shortCode: travelers.shortCode,
+        qrToken: travelers.qrToken,
+        partNumber: partDesigns.partNumber,
+        partName: partDesigns.name,
+        letter: designRevisions.letter,
+        kitModelCode: kitModels.code,
+        kitModelName: kitModels.name,
+        supplierName: organizations.name,
+        kitSerial: builds.kitSerial,
+      })
+      .from(travelers)
+      .$dynamic(),
+  )
     .innerJoin(kitModels, eq(kitModels.id, partDesigns.kitModelId))
     .innerJoin(organizations, eq(organizations.id, kitModels.organizationId))
     .where('buildId' in by ? eq(travelers.buildId, by.buildId) : eq(travelers.id, by.travelerId))
