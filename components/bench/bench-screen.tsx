@@ -5,7 +5,7 @@ import { FlatList, View } from 'react-native';
 import { space } from '@/constants/theme';
 import { Screen } from '@/components/ui/screen';
 import { Section } from '@/components/ui/sheet';
-import { LoadMore } from '@/components/ui/load-more';
+import { LoadMore, nextPage } from '@/components/ui/load-more';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { TwoPane } from '@/components/ui/two-pane';
 import { liveFirst, TravelerCard } from '@/components/travelers/traveler-card';
@@ -100,14 +100,7 @@ export function BenchScreen() {
         }
         ListFooterComponent={
           parts.isSuccess ? (
-            <LoadMore
-              hasNextPage={parts.hasNextPage}
-              isFetchingNextPage={parts.isFetchingNextPage}
-              fetchNextPage={parts.fetchNextPage}
-              shown={inProgress.length}
-              what="parts"
-              testID="bench-more"
-            />
+            <LoadMore {...nextPage(parts)} shown={inProgress.length} what="parts" testID="bench-more" />
           ) : null
         }
         keyboardShouldPersistTaps="handled"

@@ -78,6 +78,13 @@ export function Scanner({ onCode }: Props) {
     );
   }
 
+  // The same notice whether the camera is open or not: a failed start shows beside the button again.
+  const problemNotice = problem ? (
+    <Notice tone="error" testID="scan-problem">
+      {problem}
+    </Notice>
+  ) : null;
+
   if (!open || !focused) {
     return (
       <View style={styles.closed}>
@@ -85,11 +92,7 @@ export function Scanner({ onCode }: Props) {
         <Txt variant="small" tone="soft">
           Point the camera at the QR code on the part.
         </Txt>
-        {problem ? (
-          <Notice tone="error" testID="scan-problem">
-            {problem}
-          </Notice>
-        ) : null}
+        {problemNotice}
       </View>
     );
   }
@@ -112,11 +115,7 @@ export function Scanner({ onCode }: Props) {
         </Txt>
         <Button label="Stop camera" variant="secondary" onPress={() => setOpen(false)} testID="stop-scan" />
       </View>
-      {problem ? (
-        <Notice tone="error" testID="scan-problem">
-          {problem}
-        </Notice>
-      ) : null}
+      {problemNotice}
     </View>
   );
 }

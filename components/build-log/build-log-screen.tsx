@@ -7,7 +7,7 @@ import { Button } from '@/components/ui/button';
 import { Caution } from '@/components/ui/caution';
 import { Choice } from '@/components/ui/choice';
 import { Field, FindField } from '@/components/ui/field';
-import { LoadMore } from '@/components/ui/load-more';
+import { LoadMore, nextPage } from '@/components/ui/load-more';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
@@ -30,6 +30,9 @@ const kindOptions: { value: BuildLogGroup | 'all'; label: string }[] = [
 ];
 
 /** The chronological record of one build: a timeline by day, filters, and the CSV and PDF exports. */
+/** The files the log exports to, one button each. */
+const exportFormats: readonly BuildLogFormat[] = ['csv', 'pdf'];
+
 export function BuildLogScreen({ buildId }: { buildId: string }) {
   const router = useRouter();
   const wide = useWide();
@@ -85,24 +88,18 @@ export function BuildLogScreen({ buildId }: { buildId: string }) {
       </Txt>
       <View style={{ gap: space.sm }}>
         <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-          <Button
-            label="Export CSV"
-            variant="secondary"
-            testID="export-csv"
-            onPress={() => runExport('csv')}
-            busy={exporting === 'csv'}
-            busyLabel="Preparing CSV"
-            disabled={exporting !== null}
-          />
-          <Button
-            label="Export PDF"
-            variant="secondary"
-            testID="export-pdf"
-            onPress={() => runExport('pdf')}
-            busy={exporting === 'pdf'}
-            busyLabel="Preparing PDF"
-            disabled={exporting !== null}
-          />
+          {exportFormats.map((format) => (
+            <Button
+              key={format}
+              label={`Export ${format.toUpperCase()}`}
+              variant="secondary"
+              testID={`export-${format}`}
+              onPress={() => runExport(format)}
+              busy={exporting === format}
+              busyLabel={`Preparing ${format.toUpperCase()}`}
+              disabled={exporting !== null}
+            />
+          ))}
         </View>
         <Txt variant="small" tone="soft">
           {filtered
@@ -177,9 +174,7 @@ export function BuildLogScreen({ buildId }: { buildId: string }) {
       ListFooterComponent={
         <View style={{ paddingTop: space.md, gap: space.xl }}>
           <LoadMore
-            hasNextPage={q.hasNextPage}
-            isFetchingNextPage={q.isFetchingNextPage}
-            fetchNextPage={q.fetchNextPage}
+            {...nextPage(q)}
             shown={entries.length}
             what={entries.length === 1 ? 'entry' : 'entries'}
             testID="log-load-more"

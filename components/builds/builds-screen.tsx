@@ -1,9 +1,8 @@
 import { useRouter } from 'expo-router';
-import { FlatList } from 'react-native';
 import { Button } from '@/components/ui/button';
-import { LoadMore } from '@/components/ui/load-more';
+import { PagedList } from '@/components/ui/paged-list';
 import { Screen } from '@/components/ui/screen';
-import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
+import { EmptyState } from '@/components/ui/states';
 import { useBuildsQuery } from '@/hooks/queries/builds';
 import { pagedItems } from '@/hooks/queries/paged';
 import type { Role } from '@/db/contracts';
@@ -36,41 +35,26 @@ export function BuildsScreen() {
         ) : undefined
       }
     >
-      {q.isPending ? (
-        <LoadingState what="Loading builds" />
-      ) : q.isError ? (
-        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
-      ) : (
-        <FlatList
-          data={rows}
-          keyExtractor={(b) => b.id}
-          renderItem={({ item }) => <BuildRow b={item} onPress={() => router.push(`/builds/${item.id}`)} />}
-          ListEmptyComponent={
-            <EmptyState
-              title="No builds yet."
-              body={
-                isSupplier
-                  ? 'Ship a kit to a builder: each published part becomes a traveler with its own QR label.'
-                  : role === 'builder'
-                    ? 'Builds show here when a supplier ships you a kit, or a build’s owner adds you as a helper.'
-                    : 'Builds show here when a supplier or a build’s owner adds you as an inspector.'
-              }
-            />
-          }
-          ListFooterComponent={
-            <LoadMore
-              hasNextPage={q.hasNextPage}
-              isFetchingNextPage={q.isFetchingNextPage}
-              fetchNextPage={q.fetchNextPage}
-              shown={rows.length}
-              what="builds"
-              testID="builds-more"
-            />
-          }
-          refreshing={q.isRefetching && !q.isFetchingNextPage}
-          onRefresh={() => void q.refetch()}
-        />
-      )}
+      <PagedList
+        q={q}
+        rows={rows}
+        loading="Loading builds"
+        what="builds"
+        moreTestID="builds-more"
+        renderRow={(b) => <BuildRow b={b} onPress={() => router.push(`/builds/${b.id}`)} />}
+        empty={
+          <EmptyState
+            title="No builds yet."
+            body={
+              isSupplier
+                ? 'Ship a kit to a builder: each published part becomes a traveler with its own QR label.'
+                : role === 'builder'
+                  ? 'Builds show here when a supplier ships you a kit, or a build’s owner adds you as a helper.'
+                  : 'Builds show here when a supplier or a build’s owner adds you as an inspector.'
+            }
+          />
+        }
+      />
     </Screen>
   );
 }

@@ -1,7 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'expo-router';
 import { useCallback, useState } from 'react';
-import { useForm, type Resolver } from 'react-hook-form';
+import { useForm, type Control, type Resolver } from 'react-hook-form';
 import type { z } from 'zod';
 import { buildInput } from '@/db/contracts';
 import { FormChoiceField, FormTextField } from '@/components/forms/form-fields';
@@ -20,6 +20,47 @@ type Parsed = z.output<typeof buildInput>;
 
 /** An empty name box means "no name given" (the invitation then greets the address), not a name too short. */
 const blankToUndefined = (s: string | undefined) => (s?.trim() ? s : undefined);
+
+/**
+ * The builder's or the inspector's address and, for an invitation, their name: the same two boxes for
+ * each, named by the role.
+ */
+function PersonFields({
+  control,
+  role,
+  title,
+  hint,
+}: {
+  control: Control<Values, unknown, Parsed>;
+  role: 'builder' | 'inspector';
+  title: string;
+  hint: string;
+}) {
+  return (
+    <>
+      <FormTextField
+        control={control}
+        name={`${role}Email`}
+        label={`${title}’s e-mail`}
+        hint={hint}
+        testID={`build-${role}-email`}
+        autoCapitalize="none"
+        autoCorrect={false}
+        keyboardType="email-address"
+        inputMode="email"
+        maxLength={254}
+      />
+      <FormTextField
+        control={control}
+        name={`${role}Name`}
+        label={`${title}’s name (if they have no account yet)`}
+        testID={`build-${role}-name`}
+        autoComplete="off"
+        maxLength={120}
+      />
+    </>
+  );
+}
 
 /** Shipping a kit: one traveler per published part, each with its own serial, QR token and short code. */
 export function ShipBuildScreen() {
@@ -95,45 +136,17 @@ export function ShipBuildScreen() {
               link and joins the build. Until then the build shows them as not joined yet. Give their names for the
               invitation.
             </Txt>
-            <FormTextField
+            <PersonFields
               control={control}
-              name="builderEmail"
-              label="Builder’s e-mail"
+              role="builder"
+              title="Builder"
               hint="The build’s owner: they build it and keep its log."
-              testID="build-builder-email"
-              autoCapitalize="none"
-              autoCorrect={false}
-              keyboardType="email-address"
-              inputMode="email"
-              maxLength={254}
             />
-            <FormTextField
+            <PersonFields
               control={control}
-              name="builderName"
-              label="Builder’s name (if they have no account yet)"
-              testID="build-builder-name"
-              autoComplete="off"
-              maxLength={120}
-            />
-            <FormTextField
-              control={control}
-              name="inspectorEmail"
-              label="Inspector’s e-mail"
+              role="inspector"
+              title="Inspector"
               hint="The final inspector: findings on this build go to them."
-              testID="build-inspector-email"
-              autoCapitalize="none"
-              autoCorrect={false}
-              keyboardType="email-address"
-              inputMode="email"
-              maxLength={254}
-            />
-            <FormTextField
-              control={control}
-              name="inspectorName"
-              label="Inspector’s name (if they have no account yet)"
-              testID="build-inspector-name"
-              autoComplete="off"
-              maxLength={120}
             />
             <Txt variant="small" tone="faint">
               Helpers and a technical adviser are added on the build’s page once it is shipped.

@@ -1,4 +1,4 @@
-import { Image, Pressable, StyleSheet, View } from 'react-native';
+import { Image, StyleSheet, View } from 'react-native';
 import {
   dispositionLabels,
   findingClosureLabels,
@@ -6,7 +6,8 @@ import {
   findingStatusLabels,
   type FindingSummary,
 } from '@/db/contracts';
-import { colors, hairline, space, touch } from '@/constants/theme';
+import { colors, hairline, space } from '@/constants/theme';
+import { ListRow } from '@/components/ui/list-row';
 import { FindingStatusTag } from '@/components/ui/status-mark';
 import { Mono, Txt } from '@/components/ui/text';
 
@@ -44,13 +45,7 @@ export function FindingRow({
   showPart?: boolean;
 }) {
   return (
-    <Pressable
-      testID={`finding-${f.id}`}
-      accessibilityRole="button"
-      accessibilityLabel={findingRowLabel(f, showPart)}
-      onPress={onPress}
-      style={({ pressed }) => [styles.row, pressed && { backgroundColor: colors.accentSoft }]}
-    >
+    <ListRow testID={`finding-${f.id}`} label={findingRowLabel(f, showPart)} onPress={onPress} style={styles.row}>
       {f.thumbUrl ? (
         <Image source={{ uri: f.thumbUrl }} style={styles.thumb} accessibilityIgnoresInvertColors />
       ) : (
@@ -74,20 +69,12 @@ export function FindingRow({
           raised by {f.raisedByName} · <Mono variant="small">{shortDate(f.createdAt)}</Mono>
         </Txt>
       </View>
-    </Pressable>
+    </ListRow>
   );
 }
 
 const styles = StyleSheet.create({
-  row: {
-    flexDirection: 'row',
-    gap: space.md,
-    paddingVertical: space.sm,
-    minHeight: touch,
-    borderBottomWidth: hairline,
-    borderColor: colors.rule,
-    alignItems: 'center',
-  },
+  row: { paddingVertical: space.sm },
   top: { flexDirection: 'row', gap: space.sm, alignItems: 'center', flexWrap: 'wrap' },
   thumb: { width: 56, height: 56, borderWidth: hairline, borderColor: colors.rule, backgroundColor: colors.paperSunk },
   noThumb: {},

@@ -23,17 +23,20 @@ export function MeasurementJudgement({
 }) {
   const u = useUnits();
   const has = typeof value === 'number' && Number.isFinite(value);
+  // The measure's name and its value, the value in bold; the whole line bold beside a verdict.
+  const valueLine = (bold: boolean) =>
+    showValue && has ? (
+      <Txt variant="small" bold={bold}>
+        {measureLabels[measure]}:{' '}
+        <Mono variant="small" bold>
+          {u.length(value)}
+        </Mono>
+      </Txt>
+    ) : null;
   if (!basis) {
     return (
       <View style={styles.box} testID={`measure-judgement-${measure}`}>
-        {showValue && has ? (
-          <Txt variant="small">
-            {measureLabels[measure]}:{' '}
-            <Mono variant="small" bold>
-              {u.length(value)}
-            </Mono>
-          </Txt>
-        ) : null}
+        {valueLine(false)}
         <Txt variant="small" tone="faint">
           The rivet of this part is not one the app can read, so no limit is shown: the inspector judges it.
         </Txt>
@@ -55,14 +58,7 @@ export function MeasurementJudgement({
     >
       <View style={styles.row}>
         {has ? <VerdictMark pass={j.pass} size={18} /> : null}
-        {showValue && has ? (
-          <Txt variant="small" bold>
-            {measureLabels[measure]}:{' '}
-            <Mono variant="small" bold>
-              {u.length(value)}
-            </Mono>
-          </Txt>
-        ) : null}
+        {valueLine(true)}
         <Txt variant="small" bold tone={!has ? 'soft' : j.pass ? 'ink' : 'error'}>
           {!has ? 'Limit' : j.pass ? 'Within the limit' : 'Outside the limit'}
         </Txt>

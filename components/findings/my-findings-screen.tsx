@@ -1,12 +1,12 @@
 import { useRouter } from 'expo-router';
 import { useMemo, useState } from 'react';
-import { FlatList, View } from 'react-native';
+import { View } from 'react-native';
 import { isOpenFinding } from '@/db/contracts';
 import { space } from '@/constants/theme';
 import { Choice } from '@/components/ui/choice';
-import { LoadMore } from '@/components/ui/load-more';
+import { PagedList } from '@/components/ui/paged-list';
 import { Screen } from '@/components/ui/screen';
-import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
+import { EmptyState } from '@/components/ui/states';
 import { useFindingsQuery } from '@/hooks/queries/findings';
 import { pagedItems } from '@/hooks/queries/paged';
 import { FindingRow } from './finding-row';
@@ -24,50 +24,35 @@ export function MyFindingsScreen() {
   );
   return (
     <Screen title="Findings" subtitle="Findings on your builds" account scroll={false} testID="my-findings-screen">
-      {q.isPending ? (
-        <LoadingState what="Loading findings" />
-      ) : q.isError ? (
-        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
-      ) : (
-        <FlatList
-          data={rows}
-          keyExtractor={(f) => f.id}
-          renderItem={({ item }) => <FindingRow f={item} onPress={() => router.push(`/findings/${item.id}`)} />}
-          ListHeaderComponent={
-            <View style={{ paddingBottom: space.md }}>
-              <Choice
-                testIDPrefix="findings-show"
-                value={show}
-                onChange={setShow}
-                options={[
-                  { value: 'open', label: 'Open' },
-                  { value: 'all', label: 'All' },
-                ]}
-              />
-            </View>
-          }
-          ListEmptyComponent={
-            q.isPlaceholderData ? null : (
-              <EmptyState
-                title={show === 'open' ? 'No open findings.' : 'No findings yet.'}
-                body="Flag a suspect hole from its traveler; it shows here until it is closed."
-              />
-            )
-          }
-          ListFooterComponent={
-            <LoadMore
-              hasNextPage={q.hasNextPage}
-              isFetchingNextPage={q.isFetchingNextPage}
-              fetchNextPage={q.fetchNextPage}
-              shown={rows.length}
-              what="findings"
-              testID="findings-more"
+      <PagedList
+        q={q}
+        rows={rows}
+        loading="Loading findings"
+        what="findings"
+        moreTestID="findings-more"
+        renderRow={(f) => <FindingRow f={f} onPress={() => router.push(`/findings/${f.id}`)} />}
+        header={
+          <View style={{ paddingBottom: space.md }}>
+            <Choice
+              testIDPrefix="findings-show"
+              value={show}
+              onChange={setShow}
+              options={[
+                { value: 'open', label: 'Open' },
+                { value: 'all', label: 'All' },
+              ]}
             />
-          }
-          refreshing={q.isRefetching && !q.isFetchingNextPage}
-          onRefresh={() => void q.refetch()}
-        />
-      )}
+          </View>
+        }
+        empty={
+          q.isPlaceholderData ? null : (
+            <EmptyState
+              title={show === 'open' ? 'No open findings.' : 'No findings yet.'}
+              body="Flag a suspect hole from its traveler; it shows here until it is closed."
+            />
+          )
+        }
+      />
     </Screen>
   );
 }

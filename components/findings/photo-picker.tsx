@@ -144,6 +144,12 @@ export function photoRefusal(e: unknown): string | null {
  * Photos being added (a new finding's, or the work done's): thumbnails with remove buttons, and the add
  * buttons. `empty` says what a good photo shows, in the words of the form it is in.
  */
+/** Where a photo comes from: the device's pictures, or the camera now. */
+const photoSources: readonly { source: 'library' | 'camera'; label: string; testID: string }[] = [
+  { source: 'library', label: 'Add a photo', testID: 'add-photo' },
+  { source: 'camera', label: 'Take a photo', testID: 'take-photo' },
+];
+
 export function PhotoPicker({
   photos,
   onAdd,
@@ -182,20 +188,16 @@ export function PhotoPicker({
         <Txt tone="soft">{empty}</Txt>
       )}
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-        <Button
-          label="Add a photo"
-          variant="secondary"
-          onPress={() => onAdd('library')}
-          disabled={photos.length >= maxPhotos}
-          testID="add-photo"
-        />
-        <Button
-          label="Take a photo"
-          variant="secondary"
-          onPress={() => onAdd('camera')}
-          disabled={photos.length >= maxPhotos}
-          testID="take-photo"
-        />
+        {photoSources.map(({ source, label, testID }) => (
+          <Button
+            key={source}
+            label={label}
+            variant="secondary"
+            onPress={() => onAdd(source)}
+            disabled={photos.length >= maxPhotos}
+            testID={testID}
+          />
+        ))}
       </View>
       <Txt variant="small" tone="faint">
         {photos.length}/{maxPhotos} photos. Location data is removed on the server.

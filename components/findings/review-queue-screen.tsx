@@ -12,7 +12,7 @@ import { colors, space } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
 import { Choice } from '@/components/ui/choice';
 import { Field, FindField } from '@/components/ui/field';
-import { LoadMore } from '@/components/ui/load-more';
+import { LoadMore, nextPage } from '@/components/ui/load-more';
 import { Screen } from '@/components/ui/screen';
 import { Section } from '@/components/ui/sheet';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
@@ -170,14 +170,7 @@ export function ReviewQueueScreen({
           {waiting.map((f) => (
             <FindingRow key={f.id} f={f} onPress={() => router.push(`/findings/${f.id}`)} />
           ))}
-          <LoadMore
-            hasNextPage={firstQ.hasNextPage}
-            isFetchingNextPage={firstQ.isFetchingNextPage}
-            fetchNextPage={firstQ.fetchNextPage}
-            shown={waiting.length}
-            what="findings"
-            testID="review-first-more"
-          />
+          <LoadMore {...nextPage(firstQ)} shown={waiting.length} what="findings" testID="review-first-more" />
         </View>
       ) : (
         <Txt tone="soft" testID="review-first-empty">
@@ -265,16 +258,7 @@ export function ReviewQueueScreen({
             }
             header={header}
             // The table's own foot: the list's count and the next page (loaded as it scrolls into view on the web).
-            footer={
-              <LoadMore
-                hasNextPage={q.hasNextPage}
-                isFetchingNextPage={q.isFetchingNextPage}
-                fetchNextPage={q.fetchNextPage}
-                shown={all.length}
-                what="findings"
-                testID="review-more"
-              />
-            }
+            footer={<LoadMore {...nextPage(q)} shown={all.length} what="findings" testID="review-more" />}
             empty={
               <EmptyState
                 title={

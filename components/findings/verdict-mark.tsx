@@ -1,12 +1,14 @@
 import { View } from 'react-native';
 import Svg, { Circle, Path, Rect } from 'react-native-svg';
 import { colors } from '@/constants/theme';
+import { paperStroke } from '@/components/ui/status-mark';
 
 /** Pass: a ringed tick in green. Fail: a square with a cross in red. Shape and colour both tell it. */
 export function VerdictMark({ pass, size = 20 }: { pass: boolean; size?: number }) {
   const s = size;
   const k = s * 0.28;
   const c = s / 2;
+  const strokeWidth = Math.max(1.6, s * 0.12);
   return (
     <View
       style={{ width: s, height: s }}
@@ -19,11 +21,8 @@ export function VerdictMark({ pass, size = 20 }: { pass: boolean; size?: number 
             <Circle cx={c} cy={c} r={c - 1} fill={colors.ok} />
             <Path
               d={`M ${c - k} ${c} L ${c - k * 0.25} ${c + k * 0.75} L ${c + k} ${c - k * 0.65}`}
-              fill="none"
-              stroke={colors.paperRaised}
-              strokeWidth={Math.max(1.6, s * 0.12)}
-              strokeLinecap="round"
-              strokeLinejoin="round"
+              strokeWidth={strokeWidth}
+              {...paperStroke}
             />
           </>
         ) : (
@@ -31,10 +30,8 @@ export function VerdictMark({ pass, size = 20 }: { pass: boolean; size?: number 
             <Rect x={1} y={1} width={s - 2} height={s - 2} fill={colors.error} />
             <Path
               d={`M ${c - k} ${c - k} L ${c + k} ${c + k} M ${c + k} ${c - k} L ${c - k} ${c + k}`}
-              fill="none"
-              stroke={colors.paperRaised}
-              strokeWidth={Math.max(1.6, s * 0.12)}
-              strokeLinecap="round"
+              strokeWidth={strokeWidth}
+              {...paperStroke}
             />
           </>
         )}

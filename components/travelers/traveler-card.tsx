@@ -1,6 +1,7 @@
-import { Pressable, StyleSheet, View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 import { dispositionLabels, type TravelerSummary } from '@/db/contracts';
-import { colors, hairline, space, statusColors, touch } from '@/constants/theme';
+import { space, statusColors } from '@/constants/theme';
+import { ListRow, RowBar } from '@/components/ui/list-row';
 import { Mono, Txt } from '@/components/ui/text';
 
 /** Live parts first, replaced ones after them: a replaced part stays in the record but is not worked. */
@@ -31,19 +32,13 @@ export function travelerCardLabel(t: TravelerSummary): string {
 }
 
 export function TravelerCard({ t, onPress }: { t: TravelerSummary; onPress: () => void }) {
-  const frac = t.holesTotal ? t.holesDone / t.holesTotal : 0;
-  const waitFrac = t.holesTotal ? Math.min(1 - frac, t.holesAwaitingInspector / t.holesTotal) : 0;
   return (
-    <Pressable
+    <ListRow
       testID={`traveler-${t.shortCode}`}
-      accessibilityRole="button"
-      accessibilityLabel={travelerCardLabel(t)}
+      label={travelerCardLabel(t)}
       onPress={onPress}
-      style={({ pressed }) => [
-        styles.row,
-        t.replaced && styles.replaced,
-        pressed && { backgroundColor: colors.accentSoft },
-      ]}
+      style={[styles.row, t.replaced && styles.replaced]}
+      chevron
     >
       <View style={{ flex: 1, gap: 2 }}>
         <Txt bold>
@@ -60,12 +55,7 @@ export function TravelerCard({ t, onPress }: { t: TravelerSummary; onPress: () =
           </Mono>{' '}
           · build {t.kitSerial}
         </Txt>
-        <View style={styles.bar}>
-          <View style={[styles.fill, { width: `${frac * 100}%` }]} />
-          {waitFrac > 0 ? (
-            <View style={[styles.wait, { left: `${frac * 100}%`, width: `${waitFrac * 100}%` }]} />
-          ) : null}
-        </View>
+        <RowBar done={t.holesDone} total={t.holesTotal} awaiting={t.holesAwaitingInspector} />
         <View style={styles.flags}>
           {t.replaced ? (
             <Txt variant="small" bold tone="error" testID={`traveler-replaced-${t.shortCode}`}>
@@ -97,34 +87,12 @@ export function TravelerCard({ t, onPress }: { t: TravelerSummary; onPress: () =
           ) : null}
         </View>
       </View>
-      <Txt tone="accent" bold aria-hidden>
-        ›
-      </Txt>
-    </Pressable>
+    </ListRow>
   );
 }
 
 const styles = StyleSheet.create({
-  row: {
-    flexDirection: 'row',
-    alignItems: 'center',
-    gap: space.md,
-    paddingVertical: space.md,
-    paddingHorizontal: space.xs,
-    minHeight: touch,
-    borderBottomWidth: hairline,
-    borderColor: colors.rule,
-  },
-  bar: {
-    height: 6,
-    overflow: 'hidden',
-    backgroundColor: colors.paperSunk,
-    borderWidth: hairline,
-    borderColor: colors.ruleStrong,
-    marginTop: space.xs,
-  },
-  fill: { height: '100%', backgroundColor: statusColors.installed },
-  wait: { position: 'absolute', top: 0, bottom: 0, backgroundColor: statusColors.reworked, opacity: 0.45 },
+  row: { paddingHorizontal: space.xs },
   replaced: { opacity: 0.75 },
   flags: { flexDirection: 'row', gap: space.md, flexWrap: 'wrap' },
 });

@@ -1,13 +1,13 @@
 import { useRouter } from 'expo-router';
 import { useEffect, useMemo, useState } from 'react';
-import { FlatList, View } from 'react-native';
+import { View } from 'react-native';
 import type { TravelerSummary } from '@/db/contracts';
 import { space } from '@/constants/theme';
 import { Choice } from '@/components/ui/choice';
 import { TextBox } from '@/components/ui/field';
+import { PagedList } from '@/components/ui/paged-list';
 import { Screen } from '@/components/ui/screen';
-import { LoadMore } from '@/components/ui/load-more';
-import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
+import { EmptyState } from '@/components/ui/states';
 import { pagedItems } from '@/hooks/queries/paged';
 import { useTravelersQuery } from '@/hooks/queries/travelers';
 import { liveFirst, TravelerCard } from './traveler-card';
@@ -51,56 +51,41 @@ export function TravelersScreen() {
 
   return (
     <Screen title="Parts" subtitle="The travelers of your builds" account scroll={false} testID="travelers-screen">
-      {q.isPending ? (
-        <LoadingState what="Loading parts" />
-      ) : q.isError ? (
-        <ErrorState error={q.error} onRetry={() => void q.refetch()} />
-      ) : (
-        <FlatList
-          data={rows}
-          keyExtractor={(r) => r.id}
-          renderItem={({ item }) => <TravelerCard t={item} onPress={() => router.push(`/travelers/${item.id}`)} />}
-          ListHeaderComponent={
-            <View style={{ gap: space.md, paddingBottom: space.md }}>
-              <Choice
-                testIDPrefix="parts-show"
-                value={show}
-                onChange={setShow}
-                options={[
-                  { value: 'open', label: 'In progress' },
-                  { value: 'signed', label: 'Signed off' },
-                  { value: 'all', label: 'All' },
-                ]}
-              />
-              <TextBox
-                value={text}
-                onChangeText={setText}
-                placeholder="Find by part, serial or code"
-                testID="parts-search"
-                accessibilityLabel="Find a part"
-              />
-            </View>
-          }
-          ListEmptyComponent={
-            <EmptyState
-              title={filtered ? 'Nothing matches.' : 'No parts yet.'}
-              body={filtered ? 'Try another filter or search.' : 'Parts appear here when a supplier ships you a build.'}
+      <PagedList
+        q={q}
+        rows={rows}
+        loading="Loading parts"
+        what="parts"
+        moreTestID="parts-more"
+        renderRow={(t) => <TravelerCard t={t} onPress={() => router.push(`/travelers/${t.id}`)} />}
+        header={
+          <View style={{ gap: space.md, paddingBottom: space.md }}>
+            <Choice
+              testIDPrefix="parts-show"
+              value={show}
+              onChange={setShow}
+              options={[
+                { value: 'open', label: 'In progress' },
+                { value: 'signed', label: 'Signed off' },
+                { value: 'all', label: 'All' },
+              ]}
             />
-          }
-          ListFooterComponent={
-            <LoadMore
-              hasNextPage={q.hasNextPage}
-              isFetchingNextPage={q.isFetchingNextPage}
-              fetchNextPage={q.fetchNextPage}
-              shown={rows.length}
-              what="parts"
-              testID="parts-more"
+            <TextBox
+              value={text}
+              onChangeText={setText}
+              placeholder="Find by part, serial or code"
+              testID="parts-search"
+              accessibilityLabel="Find a part"
             />
-          }
-          refreshing={q.isRefetching && !q.isFetchingNextPage}
-          onRefresh={() => void q.refetch()}
-        />
-      )}
+          </View>
+        }
+        empty={
+          <EmptyState
+            title={filtered ? 'Nothing matches.' : 'No parts yet.'}
+            body={filtered ? 'Try another filter or search.' : 'Parts appear here when a supplier ships you a build.'}
+          />
+        }
+      />
     </Screen>
   );
 }

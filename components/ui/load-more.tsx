@@ -15,6 +15,11 @@ type Props = {
   testID?: string;
 };
 
+/** The next-page pieces of an infinite query, as <LoadMore/> takes them: `<LoadMore {...nextPage(q)} … />`. */
+export function nextPage(q: Pick<Props, 'hasNextPage' | 'isFetchingNextPage' | 'fetchNextPage'>) {
+  return { hasNextPage: q.hasNextPage, isFetchingNextPage: q.isFetchingNextPage, fetchNextPage: q.fetchNextPage };
+}
+
 /**
  * The foot of a paged list: loads the next page when it scrolls into view (web) and is a plain button
  * everywhere, so a keyboard, a screen reader or a test can always ask for more.

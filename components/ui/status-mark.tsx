@@ -43,6 +43,14 @@ export const holeStatusHelp: Record<HoleStatus, string> = {
   accepted: 'passed by the inspector',
 };
 
+/** The paper-coloured line drawn over a filled mark (a tick, a cross), with rounded ends. */
+export const paperStroke = {
+  fill: 'none',
+  stroke: colors.paperRaised,
+  strokeLinecap: 'round',
+  strokeLinejoin: 'round',
+} as const;
+
 /** The SVG of one mark centred on (cx, cy) with radius r, for use inside an <Svg>. */
 export function MarkGlyph({
   shape,
@@ -100,11 +108,8 @@ export function MarkGlyph({
           <Circle cx={cx} cy={cy} r={inner} fill={color} />
           <Path
             d={`M ${cx - k} ${cy} L ${cx - k * 0.25} ${cy + k * 0.7} L ${cx + k} ${cy - k * 0.6}`}
-            fill="none"
-            stroke={colors.paperRaised}
             strokeWidth={Math.max(1.2, inner * 0.3)}
-            strokeLinecap="round"
-            strokeLinejoin="round"
+            {...paperStroke}
           />
         </G>
       );

@@ -1,9 +1,9 @@
-import { infiniteQueryOptions, keepPreviousData, useInfiniteQuery, useMutation } from '@tanstack/react-query';
+import { keepPreviousData, useInfiniteQuery, useMutation } from '@tanstack/react-query';
 import { Platform } from 'react-native';
 import type { ApiErrorBody, BuildLogGroup, BuildLogPage } from '@/db/contracts';
-import { api, ApiError, networkMessage, qs, url } from '@/lib/api-client';
+import { ApiError, networkMessage, qs, url } from '@/lib/api-client';
 import { useSession } from '../use-session';
-import { pageParams, pagePath } from './paged';
+import { pagedQueryOptions } from './paged';
 
 /**
  * What the server narrows: a kind family, one part, and search words (the log comes in pages, so words
@@ -16,13 +16,17 @@ export type BuildLogFormat = 'csv' | 'pdf';
 
 const logPath = (buildId: string, suffix = '') => `/api/builds/${encodeURIComponent(buildId)}/log${suffix}`;
 
-function logQueryString(f: BuildLogExportFilters): string {
-  return qs({
+/** The server's names of the filters, as the log's pages and its exports both take them. */
+function logFilters(f: BuildLogServerFilters) {
+  return {
     kind: f.group && f.group !== 'all' ? f.group : undefined,
     travelerId: f.travelerId ?? undefined,
     q: f.text?.trim() || undefined,
-    tz: f.tz,
-  });
+  };
+}
+
+function logQueryString(f: BuildLogExportFilters): string {
+  return qs({ ...logFilters(f), tz: f.tz });
 }
 
 export const buildLogKeys = {
@@ -38,19 +42,7 @@ export const buildLogKeys = {
 export const buildLogQueries = {
   /** The log newest first, a page at a time; the first page also names the build and its parts. */
   filtered: (buildId: string, f: BuildLogServerFilters = {}) =>
-    infiniteQueryOptions({
-      queryKey: buildLogKeys.filtered(buildId, f),
-      queryFn: ({ pageParam, signal }) =>
-        api.get<BuildLogPage>(
-          pagePath(logPath(buildId), pageParam, {
-            kind: f.group && f.group !== 'all' ? f.group : undefined,
-            travelerId: f.travelerId ?? undefined,
-            q: f.text?.trim() || undefined,
-          }),
-          signal,
-        ),
-      ...pageParams,
-    }),
+    pagedQueryOptions<BuildLogPage>(buildLogKeys.filtered(buildId, f), logPath(buildId), logFilters(f)),
 };
 
 /** The log of one build; switching a filter keeps the last answer on screen until the new one arrives. */

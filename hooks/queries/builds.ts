@@ -1,11 +1,4 @@
-import {
-  infiniteQueryOptions,
-  queryOptions,
-  useInfiniteQuery,
-  useMutation,
-  useQuery,
-  useQueryClient,
-} from '@tanstack/react-query';
+import { queryOptions, useInfiniteQuery, useQuery } from '@tanstack/react-query';
 import type {
   AddMemberInput,
   BuildChangeInput,
@@ -16,7 +9,8 @@ import type {
   TravelerSummary,
 } from '@/db/contracts';
 import { api, apiRequest } from '@/lib/api-client';
-import { pageParams, pagePath } from './paged';
+import { useRecordMutation, useRefreshingMutation } from './mutations';
+import { pagedQueryOptions } from './paged';
 import { travelerKeys } from './travelers';
 
 /** The build's page: the contract's detail (its people with what the reader may do) and its parts. */
@@ -31,12 +25,7 @@ export const buildKeys = {
 
 export const buildQueries = {
   /** The reader's builds, a page at a time (newest first). */
-  list: () =>
-    infiniteQueryOptions({
-      queryKey: buildKeys.list(),
-      queryFn: ({ signal, pageParam }) => api.get<Page<BuildSummary>>(pagePath('/api/builds', pageParam), signal),
-      ...pageParams,
-    }),
+  list: () => pagedQueryOptions<Page<BuildSummary>>(buildKeys.list(), '/api/builds'),
   detail: (id: string) =>
     queryOptions({
       queryKey: buildKeys.detail(id),
@@ -53,15 +42,10 @@ export function useBuildQuery(id: string) {
 }
 
 export function useBuildCreateMutation() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: BuildInput) => api.post<BuildSummary>('/api/builds', input),
-    onSuccess: () =>
-      Promise.all([
-        qc.invalidateQueries({ queryKey: buildKeys.all }),
-        qc.invalidateQueries({ queryKey: travelerKeys.all }),
-      ]),
-  });
+  return useRefreshingMutation(
+    (input: BuildInput) => api.post<BuildSummary>('/api/builds', input),
+    [buildKeys.all, travelerKeys.all],
+  );
 }
 
 /**
@@ -69,14 +53,7 @@ export function useBuildCreateMutation() {
  * cached page at once, and the list (which names builders and inspectors) is asked again.
  */
 function usePeopleChange<V>(buildId: string, send: (v: V) => Promise<BuildPage>) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: send,
-    onSuccess: (page) => {
-      qc.setQueryData(buildKeys.detail(buildId), page);
-      return qc.invalidateQueries({ queryKey: buildKeys.list() });
-    },
-  });
+  return useRecordMutation({ record: buildKeys.detail(buildId), send, refresh: [buildKeys.list()] });
 }
 
 const buildPath = (id: string) => `/api/builds/${encodeURIComponent(id)}`;
@@ -101,29 +78,18 @@ export function useBuildHandOverMutation(buildId: string) {
 
 /** Corrects the shipped build (note, and the serial while no work is recorded); its travelers' serials follow. */
 export function useBuildUpdateMutation(buildId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: BuildChangeInput) => api.patch<BuildPage>(buildPath(buildId), input),
-    onSuccess: (page) => {
-      qc.setQueryData(buildKeys.detail(buildId), page);
-      return Promise.all([
-        qc.invalidateQueries({ queryKey: buildKeys.list() }),
-        qc.invalidateQueries({ queryKey: travelerKeys.all }),
-      ]);
-    },
+  return useRecordMutation({
+    record: buildKeys.detail(buildId),
+    send: (input: BuildChangeInput) => api.patch<BuildPage>(buildPath(buildId), input),
+    refresh: [buildKeys.list(), travelerKeys.all],
   });
 }
 
 export function useBuildDeleteMutation(buildId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: () => apiRequest<void>(buildPath(buildId), { method: 'DELETE' }),
-    onSuccess: () => {
-      qc.removeQueries({ queryKey: buildKeys.detail(buildId) });
-      return Promise.all([
-        qc.invalidateQueries({ queryKey: buildKeys.list() }),
-        qc.invalidateQueries({ queryKey: travelerKeys.all }),
-      ]);
-    },
+  return useRecordMutation({
+    record: buildKeys.detail(buildId),
+    send: () => apiRequest<void>(buildPath(buildId), { method: 'DELETE' }),
+    refresh: [buildKeys.list(), travelerKeys.all],
+    removed: true,
   });
 }

@@ -1,5 +1,4 @@
 import {
-  infiniteQueryOptions,
   queryOptions,
   useInfiniteQuery,
   useMutation,
@@ -9,7 +8,8 @@ import {
 } from '@tanstack/react-query';
 import type { CouponAllowance, CouponCorrectionInput, CouponInput, CouponTest, Page } from '@/db/contracts';
 import { api, apiRequest } from '@/lib/api-client';
-import { pageParams, pagePath } from './paged';
+import { useRefreshingMutation } from './mutations';
+import { pagedQueryOptions } from './paged';
 
 export const couponKeys = {
   all: ['coupons'] as const,
@@ -19,12 +19,7 @@ export const couponKeys = {
 
 export const couponQueries = {
   /** The record of tests, a page at a time (material, gauge, rivet, load). */
-  list: () =>
-    infiniteQueryOptions({
-      queryKey: couponKeys.list(),
-      queryFn: ({ signal, pageParam }) => api.get<Page<CouponTest>>(pagePath('/api/coupons', pageParam), signal),
-      ...pageParams,
-    }),
+  list: () => pagedQueryOptions<Page<CouponTest>>(couponKeys.list(), '/api/coupons'),
   allowables: () =>
     queryOptions({
       queryKey: couponKeys.allowables(),
@@ -60,18 +55,16 @@ export function useCouponCreateMutation() {
 
 /** A correction is a new entry; the old one stays in the list marked as corrected, and the allowables change. */
 export function useCouponCorrectMutation() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: ({ id, input }: { id: string; input: CouponCorrectionInput }) =>
+  return useRefreshingMutation(
+    ({ id, input }: { id: string; input: CouponCorrectionInput }) =>
       api.post<CouponTest>(`/api/coupons/${encodeURIComponent(id)}/corrections`, input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: couponKeys.all }),
-  });
+    [couponKeys.all],
+  );
 }
 
 export function useCouponDeleteMutation() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (id: string) => apiRequest<void>(`/api/coupons/${encodeURIComponent(id)}`, { method: 'DELETE' }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: couponKeys.all }),
-  });
+  return useRefreshingMutation(
+    (id: string) => apiRequest<void>(`/api/coupons/${encodeURIComponent(id)}`, { method: 'DELETE' }),
+    [couponKeys.all],
+  );
 }

@@ -1,11 +1,4 @@
-import {
-  infiniteQueryOptions,
-  queryOptions,
-  useInfiniteQuery,
-  useMutation,
-  useQuery,
-  useQueryClient,
-} from '@tanstack/react-query';
+import { queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type {
   FindingCluster,
   Page,
@@ -17,7 +10,8 @@ import type {
 } from '@/db/contracts';
 import { api, apiRequest } from '@/lib/api-client';
 import { readPages } from './kits';
-import { pageParams, pagePath } from './paged';
+import { useRecordMutation, useRefreshingMutation } from './mutations';
+import { pagedQueryOptions } from './paged';
 
 export const designKeys = {
   all: ['designs'] as const,
@@ -33,12 +27,7 @@ export const designKeys = {
 export const designQueries = {
   /** The part designs (of one kit, or all), a page at a time by part number. */
   list: (kitModelId?: string) =>
-    infiniteQueryOptions({
-      queryKey: designKeys.list(kitModelId),
-      queryFn: ({ signal, pageParam }) =>
-        api.get<Page<PartDesignSummary>>(pagePath('/api/designs', pageParam, { kitModelId }), signal),
-      ...pageParams,
-    }),
+    pagedQueryOptions<Page<PartDesignSummary>>(designKeys.list(kitModelId), '/api/designs', { kitModelId }),
   /** One kit's part designs as one array, read page after page within the chooser's bound (hooks/queries/kits.ts). */
   choices: (kitModelId: string) =>
     queryOptions({
@@ -89,42 +78,34 @@ export function useDesignCreateMutation() {
 
 /** Revisions live under their design: every change refreshes the design they belong to. */
 export function useDesignRevisionCreateMutation(designId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: RevisionInput) =>
-      api.post<Revision>(`/api/designs/${encodeURIComponent(designId)}/revisions`, input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: designKeys.all }),
-  });
+  return useRefreshingMutation(
+    (input: RevisionInput) => api.post<Revision>(`/api/designs/${encodeURIComponent(designId)}/revisions`, input),
+    [designKeys.all],
+  );
 }
 
 export function useDesignRevisionUpdateMutation(designId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: ({ revisionId, input }: { revisionId: string; input: RevisionInput }) =>
+  return useRefreshingMutation(
+    ({ revisionId, input }: { revisionId: string; input: RevisionInput }) =>
       api.patch<Revision>(`/api/revisions/${encodeURIComponent(revisionId)}`, input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: designKeys.detail(designId) }),
-  });
+    [designKeys.detail(designId)],
+  );
 }
 
 export function useDesignRevisionPublishMutation(designId: string) {
-  const qc = useQueryClient();
-  return useMutation({
+  return useRefreshingMutation(
     // Publishing is the approval: the server names the signed-in supplier as the approver.
-    mutationFn: (revisionId: string) =>
-      api.post<Revision>(`/api/revisions/${encodeURIComponent(revisionId)}/publish`, {}),
-    onSuccess: () => qc.invalidateQueries({ queryKey: designKeys.all }),
-  });
+    (revisionId: string) => api.post<Revision>(`/api/revisions/${encodeURIComponent(revisionId)}/publish`, {}),
+    [designKeys.all],
+  );
 }
 
 /** Discards the draft: the answer is the design as it now stands (its published revisions kept). */
 export function useDesignRevisionDiscardMutation(designId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (revisionId: string) =>
+  return useRecordMutation({
+    record: designKeys.detail(designId),
+    send: (revisionId: string) =>
       apiRequest<PartDesignDetail>(`/api/revisions/${encodeURIComponent(revisionId)}`, { method: 'DELETE' }),
-    onSuccess: (detail) => {
-      qc.setQueryData(designKeys.detail(designId), detail);
-      return qc.invalidateQueries({ queryKey: designKeys.lists() });
-    },
+    refresh: [designKeys.lists()],
   });
 }

@@ -1,5 +1,4 @@
 import {
-  infiniteQueryOptions,
   keepPreviousData,
   queryOptions,
   useInfiniteQuery,
@@ -22,7 +21,8 @@ import {
 } from '@/db/contracts';
 import type { RepairCheckResult } from '@/lib/engineering-results';
 import { api, ApiError } from '@/lib/api-client';
-import { pageParams, pagePath } from './paged';
+import { invalidateAll } from './mutations';
+import { pagedQueryOptions } from './paged';
 import { findingActionFormData, findingFormData, type DraftPhoto } from '@/lib/photo-form-data';
 import { buildKeys } from './builds';
 import { travelerKeys } from './travelers';
@@ -63,19 +63,11 @@ const findingPath = (id: string, rest = '') => `/api/findings/${encodeURICompone
 export const findingQueries = {
   /** The findings in pages, newest first unless `order` says oldest; the server's filters go with every page. */
   list: (f: FindingFilters = {}) =>
-    infiniteQueryOptions({
-      queryKey: findingKeys.list(f),
-      queryFn: ({ pageParam, signal }) =>
-        api.get<Page<FindingSummary>>(
-          pagePath('/api/findings', pageParam, {
-            status: f.status,
-            buildId: f.buildId,
-            travelerId: f.travelerId,
-            order: f.order === 'oldest' ? 'oldest' : undefined,
-          }),
-          signal,
-        ),
-      ...pageParams,
+    pagedQueryOptions<Page<FindingSummary>>(findingKeys.list(f), '/api/findings', {
+      status: f.status,
+      buildId: f.buildId,
+      travelerId: f.travelerId,
+      order: f.order === 'oldest' ? 'oldest' : undefined,
     }),
   detail: (id: string) =>
     queryOptions({
@@ -128,44 +120,29 @@ export function patchFindingInLists(qc: QueryClient, f: FindingSummary) {
   });
 }
 
+/** The list row's fields, each named once: the compiler refuses a field of FindingSummary left out or one too many. */
+const summaryFields: Record<keyof FindingSummary, true> = {
+  id: true,
+  travelerId: true,
+  serial: true,
+  partNumber: true,
+  kitSerial: true,
+  buildId: true,
+  holeIds: true,
+  kind: true,
+  status: true,
+  disposition: true,
+  closure: true,
+  raisedByName: true,
+  createdAt: true,
+  updatedAt: true,
+  photoCount: true,
+  thumbUrl: true,
+};
+
 /** The list row's fields of a finding's detail. */
 function summaryOf(f: FindingSummary): FindingSummary {
-  const {
-    id,
-    travelerId,
-    serial,
-    partNumber,
-    kitSerial,
-    buildId,
-    holeIds,
-    kind,
-    status,
-    disposition,
-    closure,
-    raisedByName,
-    createdAt,
-    updatedAt,
-    photoCount,
-    thumbUrl,
-  } = f;
-  return {
-    id,
-    travelerId,
-    serial,
-    partNumber,
-    kitSerial,
-    buildId,
-    holeIds,
-    kind,
-    status,
-    disposition,
-    closure,
-    raisedByName,
-    createdAt,
-    updatedAt,
-    photoCount,
-    thumbUrl,
-  };
+  return Object.fromEntries(Object.keys(summaryFields).map((k) => [k, f[k as keyof FindingSummary]])) as FindingSummary;
 }
 
 export function useFindingQuery(id: string) {
@@ -181,12 +158,12 @@ export function useRepairCheckQuery(findingId: string, spec: string | null) {
 function refreshAround(qc: QueryClient, f: FindingDetail) {
   qc.setQueryData(findingKeys.detail(f.id), f);
   patchFindingInLists(qc, f);
-  return Promise.all([
-    qc.invalidateQueries({ queryKey: findingKeys.lists() }),
-    qc.invalidateQueries({ queryKey: travelerKeys.detail(f.travelerId) }),
+  return invalidateAll(qc, [
+    findingKeys.lists(),
+    travelerKeys.detail(f.travelerId),
     // Scrap and return to supplier add a traveler to the build.
-    qc.invalidateQueries({ queryKey: travelerKeys.list() }),
-    qc.invalidateQueries({ queryKey: buildKeys.all }),
+    travelerKeys.list(),
+    buildKeys.all,
   ]);
 }
 

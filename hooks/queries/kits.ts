@@ -1,11 +1,4 @@
-import {
-  infiniteQueryOptions,
-  queryOptions,
-  useInfiniteQuery,
-  useMutation,
-  useQuery,
-  useQueryClient,
-} from '@tanstack/react-query';
+import { queryOptions, useInfiniteQuery, useQuery } from '@tanstack/react-query';
 import {
   PAGE_SIZE_MAX,
   type KitChangeInput,
@@ -16,7 +9,8 @@ import {
 } from '@/db/contracts';
 import { api, apiRequest } from '@/lib/api-client';
 import { designKeys } from './designs';
-import { pageParams, pagePath } from './paged';
+import { useRecordMutation, useRefreshingMutation } from './mutations';
+import { pagedQueryOptions, pagePath } from './paged';
 
 export const kitKeys = {
   all: ['kits'] as const,
@@ -31,12 +25,7 @@ const kitPath = (id: string) => `/api/kits/${encodeURIComponent(id)}`;
 
 export const kitQueries = {
   /** The kit models, a page at a time (by code). */
-  list: () =>
-    infiniteQueryOptions({
-      queryKey: kitKeys.list(),
-      queryFn: ({ signal, pageParam }) => api.get<Page<KitModel>>(pagePath('/api/kits', pageParam), signal),
-      ...pageParams,
-    }),
+  list: () => pagedQueryOptions<Page<KitModel>>(kitKeys.list(), '/api/kits'),
   /**
    * The kit models a form chooses from: pages of the largest size read one after another, at most
    * KIT_CHOICES_MAX_PAGES of them (a supplier has a few kits; the bound keeps a runaway list from being read whole).
@@ -89,38 +78,23 @@ export function useKitQuery(id: string) {
 }
 
 export function useKitCreateMutation() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: KitModelInput) => api.post<KitModel>('/api/kits', input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: kitKeys.all }),
-  });
+  return useRefreshingMutation((input: KitModelInput) => api.post<KitModel>('/api/kits', input), [kitKeys.all]);
 }
 
 /** A change answers with the kit's page as it now stands; lists naming the kit are asked again. */
 export function useKitUpdateMutation(id: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: KitChangeInput) => api.patch<KitModelDetail>(kitPath(id), input),
-    onSuccess: (detail) => {
-      qc.setQueryData(kitKeys.detail(id), detail);
-      return Promise.all([
-        qc.invalidateQueries({ queryKey: kitKeys.list() }),
-        qc.invalidateQueries({ queryKey: designKeys.all }),
-      ]);
-    },
+  return useRecordMutation({
+    record: kitKeys.detail(id),
+    send: (input: KitChangeInput) => api.patch<KitModelDetail>(kitPath(id), input),
+    refresh: [kitKeys.list(), designKeys.all],
   });
 }
 
 export function useKitDeleteMutation(id: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: () => apiRequest<void>(kitPath(id), { method: 'DELETE' }),
-    onSuccess: () => {
-      qc.removeQueries({ queryKey: kitKeys.detail(id) });
-      return Promise.all([
-        qc.invalidateQueries({ queryKey: kitKeys.list() }),
-        qc.invalidateQueries({ queryKey: designKeys.all }),
-      ]);
-    },
+  return useRecordMutation({
+    record: kitKeys.detail(id),
+    send: () => apiRequest<void>(kitPath(id), { method: 'DELETE' }),
+    refresh: [kitKeys.list(), designKeys.all],
+    removed: true,
   });
 }

@@ -1,5 +1,4 @@
 import {
-  infiniteQueryOptions,
   queryOptions,
   useInfiniteQuery,
   useMutation,
@@ -21,7 +20,8 @@ import type {
 } from '@/db/contracts';
 import { api, apiRequest } from '@/lib/api-client';
 import { useSession } from '../use-session';
-import { pageParams, pagePath } from './paged';
+import { useRefreshingMutation } from './mutations';
+import { pagedQueryOptions } from './paged';
 
 /** Organisations, people and their invitations, as the admin and a supplier's lead engineer manage them. */
 export const peopleKeys = {
@@ -39,28 +39,12 @@ export const invitationKeys = {
 
 export const peopleQueries = {
   /** People by name, a page at a time. */
-  list: () =>
-    infiniteQueryOptions({
-      queryKey: peopleKeys.list(),
-      queryFn: ({ signal, pageParam }) => api.get<Page<PersonSummary>>(pagePath('/api/people', pageParam), signal),
-      ...pageParams,
-    }),
+  list: () => pagedQueryOptions<Page<PersonSummary>>(peopleKeys.list(), '/api/people'),
   /** Invitations not yet taken up, oldest first, a page at a time. */
-  invitations: () =>
-    infiniteQueryOptions({
-      queryKey: peopleKeys.invitations(),
-      queryFn: ({ signal, pageParam }) =>
-        api.get<Page<PendingInvitation>>(pagePath('/api/people/invitations', pageParam), signal),
-      ...pageParams,
-    }),
+  invitations: () => pagedQueryOptions<Page<PendingInvitation>>(peopleKeys.invitations(), '/api/people/invitations'),
   /** Organisations by name, a page at a time. */
   organizations: () =>
-    infiniteQueryOptions({
-      queryKey: peopleKeys.organizations(),
-      queryFn: ({ signal, pageParam }) =>
-        api.get<Page<OrganizationSummary>>(pagePath('/api/people/organizations', pageParam), signal),
-      ...pageParams,
-    }),
+    pagedQueryOptions<Page<OrganizationSummary>>(peopleKeys.organizations(), '/api/people/organizations'),
   invitation: (token: string) =>
     queryOptions({
       queryKey: invitationKeys.detail(token),
@@ -92,19 +76,17 @@ export function useInvitationQuery(token: string) {
 }
 
 export function usePeopleInviteMutation() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: InviteInput) => api.post<{ ok: true }>('/api/people/invitations', input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: peopleKeys.invitations() }),
-  });
+  return useRefreshingMutation(
+    (input: InviteInput) => api.post<{ ok: true }>('/api/people/invitations', input),
+    [peopleKeys.invitations()],
+  );
 }
 
 export function usePeopleOrganizationCreateMutation() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: OrganizationInput) => api.post<OrganizationSummary>('/api/people/organizations', input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: peopleKeys.organizations() }),
-  });
+  return useRefreshingMutation(
+    (input: OrganizationInput) => api.post<OrganizationSummary>('/api/people/organizations', input),
+    [peopleKeys.organizations()],
+  );
 }
 
 /** One change to one person; the answer (with its new `allowed` list) replaces the row at once. */

@@ -1,11 +1,4 @@
-import {
-  infiniteQueryOptions,
-  queryOptions,
-  useInfiniteQuery,
-  useMutation,
-  useQuery,
-  useQueryClient,
-} from '@tanstack/react-query';
+import { queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type {
   ApplyStudyInput,
   Page,
@@ -18,7 +11,8 @@ import type {
 import type { StudyCandidate } from '@/lib/engineering-results';
 import { api, apiRequest, qs } from '@/lib/api-client';
 import { designKeys } from './designs';
-import { pageParams, pagePath } from './paged';
+import { useRefreshingMutation } from './mutations';
+import { pagedQueryOptions } from './paged';
 
 export const studyKeys = {
   all: ['studies'] as const,
@@ -37,12 +31,7 @@ export type StudyBodyInput = StudyInput | WingStudyInput;
 
 export const studyQueries = {
   /** The organisation's studies, a page at a time (last changed first). */
-  list: () =>
-    infiniteQueryOptions({
-      queryKey: studyKeys.lists(),
-      queryFn: ({ signal, pageParam }) => api.get<Page<StudySummary>>(pagePath('/api/studies', pageParam), signal),
-      ...pageParams,
-    }),
+  list: () => pagedQueryOptions<Page<StudySummary>>(studyKeys.lists(), '/api/studies'),
   detail: (id: string, revision?: number) =>
     queryOptions({
       queryKey: studyKeys.detail(id, revision),
@@ -118,9 +107,8 @@ export function useStudyUpdateMutation(id: string) {
  * study names its rib or skin panel in `target`.
  */
 export function useStudyApplyMutation(id: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: ApplyStudyInput) => api.post<Revision>(`/api/studies/${encodeURIComponent(id)}/apply`, input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: designKeys.all }),
-  });
+  return useRefreshingMutation(
+    (input: ApplyStudyInput) => api.post<Revision>(`/api/studies/${encodeURIComponent(id)}/apply`, input),
+    [designKeys.all],
+  );
 }

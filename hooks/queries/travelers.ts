@@ -1,5 +1,4 @@
 import {
-  infiniteQueryOptions,
   keepPreviousData,
   queryOptions,
   useInfiniteQuery,
@@ -29,7 +28,8 @@ import {
 import { api, ApiError, errorMessage } from '@/lib/api-client';
 import { readJson, removeKey, storageKeys } from '@/lib/storage';
 import { buildKeys } from './builds';
-import { pageParams, pagePath } from './paged';
+import { invalidateAll, useRecordMutation } from './mutations';
+import { pagedQueryOptions } from './paged';
 
 /** The server's filters of GET /api/travelers (db/contracts/travelers.ts `travelerListQuery`). */
 export type TravelerFilters = { show?: TravelerListShow; q?: string };
@@ -54,17 +54,9 @@ export const travelerKeys = {
 export const travelerQueries = {
   /** The parts in pages, live ones first, by serial; the server's filters go with every page. */
   list: (f: TravelerFilters = {}) =>
-    infiniteQueryOptions({
-      queryKey: travelerKeys.list(f),
-      queryFn: ({ pageParam, signal }) =>
-        api.get<Page<TravelerSummary>>(
-          pagePath('/api/travelers', pageParam, {
-            show: f.show && f.show !== 'all' ? f.show : undefined,
-            q: f.q?.trim() || undefined,
-          }),
-          signal,
-        ),
-      ...pageParams,
+    pagedQueryOptions<Page<TravelerSummary>>(travelerKeys.list(f), '/api/travelers', {
+      show: f.show && f.show !== 'all' ? f.show : undefined,
+      q: f.q?.trim() || undefined,
     }),
   detail: (id: string) =>
     queryOptions({
@@ -240,11 +232,7 @@ function tickMutationOptions(qc: QueryClient) {
     // A burst of taps refetches once, after the last one.
     onSettled: (_d: unknown, _e: unknown, t: TickVariables) => {
       if (qc.isMutating({ mutationKey: travelerKeys.tick(t.travelerId) }) > 1) return undefined;
-      return Promise.all([
-        qc.invalidateQueries({ queryKey: travelerKeys.detail(t.travelerId) }),
-        qc.invalidateQueries({ queryKey: travelerKeys.list() }),
-        qc.invalidateQueries({ queryKey: buildKeys.all }),
-      ]);
+      return invalidateAll(qc, [travelerKeys.detail(t.travelerId), travelerKeys.list(), buildKeys.all]);
     },
   };
 }
@@ -345,37 +333,28 @@ export function useTravelerStepMutation(travelerId: string) {
       if (ctx?.previous) qc.setQueryData(key, ctx.previous);
     },
     // A step done can make the part ready to sign off: the readiness and the build's count come from the server.
-    onSettled: () =>
-      Promise.all([qc.invalidateQueries({ queryKey: key }), qc.invalidateQueries({ queryKey: buildKeys.all })]),
+    onSettled: () => invalidateAll(qc, [key, buildKeys.all]),
   });
 }
 
-export function useTravelerSignOffMutation(travelerId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: () => api.post<TravelerDetail>(`/api/travelers/${encodeURIComponent(travelerId)}/sign-off`),
-    onSuccess: (detail) => {
-      qc.setQueryData(travelerKeys.detail(travelerId), detail);
-      return Promise.all([
-        qc.invalidateQueries({ queryKey: travelerKeys.list() }),
-        qc.invalidateQueries({ queryKey: buildKeys.all }),
-      ]);
-    },
+/** A sign-off, or its withdrawal, answers with the part as it now stands; its lists and builds are asked again. */
+function useSignOffChange<V>(travelerId: string, send: (v: V) => Promise<TravelerDetail>) {
+  return useRecordMutation({
+    record: travelerKeys.detail(travelerId),
+    send,
+    refresh: [travelerKeys.list(), buildKeys.all],
   });
+}
+
+const signOffPath = (travelerId: string) => `/api/travelers/${encodeURIComponent(travelerId)}/sign-off`;
+
+export function useTravelerSignOffMutation(travelerId: string) {
+  return useSignOffChange(travelerId, () => api.post<TravelerDetail>(signOffPath(travelerId)));
 }
 
 /** Takes a part's sign-off back, with the inspector's reason; the answer is the part as it now stands. */
 export function useTravelerWithdrawSignOffMutation(travelerId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: WithdrawSignOffInput) =>
-      api.post<TravelerDetail>(`/api/travelers/${encodeURIComponent(travelerId)}/sign-off/withdraw`, input),
-    onSuccess: (detail) => {
-      qc.setQueryData(travelerKeys.detail(travelerId), detail);
-      return Promise.all([
-        qc.invalidateQueries({ queryKey: travelerKeys.list() }),
-        qc.invalidateQueries({ queryKey: buildKeys.all }),
-      ]);
-    },
-  });
+  return useSignOffChange(travelerId, (input: WithdrawSignOffInput) =>
+    api.post<TravelerDetail>(`${signOffPath(travelerId)}/withdraw`, input),
+  );
 }
