@@ -3,6 +3,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { changePasswordInput } from '@/db/contracts';
+import { FormError } from '@/components/forms/form-error';
 import { leftAfterFields } from '@/components/auth/field-errors';
 import { newPasswordHint, PasswordField } from '@/components/auth/password-field';
 import { plainParse } from '@/components/forms/plain-errors';
@@ -64,11 +65,7 @@ export function ChangePasswordForm() {
         testID="new-password"
         onSubmit={() => void submit()}
       />
-      {formError ? (
-        <Notice tone="error" testID="password-error">
-          {formError}
-        </Notice>
-      ) : null}
+      <FormError message={formError} testID="password-error" />
       {changed ? (
         <Notice tone="ok" testID="password-changed">
           Password changed. Other devices were signed out; use the new password there.

@@ -4,6 +4,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { forgotPasswordInput } from '@/db/contracts';
+import { FormError } from '@/components/forms/form-error';
 import { emailInputProps, FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
 import { applyServerErrors } from '@/components/forms/server-errors';
@@ -89,11 +90,7 @@ export function ForgotScreen() {
         returnKeyType="send"
         onSubmitEditing={() => void submit()}
       />
-      {formError ? (
-        <Notice tone="error" testID="forgot-error">
-          {formError}
-        </Notice>
-      ) : null}
+      <FormError message={formError} testID="forgot-error" />
       <Button
         label="Send me the link"
         busyLabel="Sending"

@@ -6,6 +6,7 @@ import { View } from 'react-native';
 import type { z } from 'zod';
 import { acceptInvitationInput, roleLabels, type InvitationView } from '@/db/contracts';
 import { space } from '@/constants/theme';
+import { FormError } from '@/components/forms/form-error';
 import { FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
 import { shortDate } from '@/components/findings/finding-row';
@@ -148,11 +149,7 @@ function JoinForm({
             testID="invite-password"
             onSubmit={() => void submit()}
           />
-          {formError ? (
-            <Notice tone="error" testID="invite-error">
-              {formError}
-            </Notice>
-          ) : null}
+          <FormError message={formError} testID="invite-error" />
           <Button
             label={accept.isSuccess ? 'Joined: opening Pitchcard' : 'Join and sign in'}
             busyLabel="Joining"

@@ -1,9 +1,7 @@
 import { useState } from 'react';
-import { Controller, type Control, type FieldValues, type Path } from 'react-hook-form';
-import { View } from 'react-native';
-import { space } from '@/constants/theme';
+import type { Control, FieldValues, Path } from 'react-hook-form';
+import { FormTextField } from '@/components/forms/form-fields';
 import { Button } from '@/components/ui/button';
-import { Field, TextBox } from '@/components/ui/field';
 
 /**
  * A password field with a "Show" switch instead of a second box to type it again: with gloves on a
@@ -29,41 +27,31 @@ export function PasswordField<T extends FieldValues>({
 }) {
   const [shown, setShown] = useState(false);
   return (
-    <Controller
+    <FormTextField
       control={control}
       name={name}
-      render={({ field, fieldState }) => (
-        <Field label={label} hint={hint} error={fieldState.error?.message} testID={`${testID}-field`}>
-          <View style={{ flexDirection: 'row', gap: space.sm, alignItems: 'center' }}>
-            <TextBox
-              testID={testID}
-              accessibilityLabel={label}
-              value={field.value == null ? '' : String(field.value)}
-              onChangeText={field.onChange}
-              onBlur={field.onBlur}
-              invalid={!!fieldState.error}
-              ref={field.ref}
-              secureTextEntry={!shown}
-              autoCapitalize="none"
-              autoCorrect={false}
-              autoComplete={autoComplete}
-              textContentType={autoComplete === 'new-password' ? 'newPassword' : 'password'}
-              returnKeyType={onSubmit ? 'go' : undefined}
-              onSubmitEditing={onSubmit}
-              maxLength={200}
-              style={{ flex: 1 }}
-            />
-            <Button
-              label={shown ? 'Hide' : 'Show'}
-              accessibilityLabel={shown ? `Hide ${label.toLowerCase()}` : `Show ${label.toLowerCase()}`}
-              variant="secondary"
-              compact
-              onPress={() => setShown((s) => !s)}
-              testID={`${testID}-show`}
-            />
-          </View>
-        </Field>
-      )}
+      label={label}
+      hint={hint}
+      testID={testID}
+      secureTextEntry={!shown}
+      autoCapitalize="none"
+      autoCorrect={false}
+      autoComplete={autoComplete}
+      textContentType={autoComplete === 'new-password' ? 'newPassword' : 'password'}
+      returnKeyType={onSubmit ? 'go' : undefined}
+      onSubmitEditing={onSubmit}
+      maxLength={200}
+      style={{ flex: 1 }}
+      beside={
+        <Button
+          label={shown ? 'Hide' : 'Show'}
+          accessibilityLabel={shown ? `Hide ${label.toLowerCase()}` : `Show ${label.toLowerCase()}`}
+          variant="secondary"
+          compact
+          onPress={() => setShown((s) => !s)}
+          testID={`${testID}-show`}
+        />
+      }
     />
   );
 }

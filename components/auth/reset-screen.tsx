@@ -4,6 +4,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { resetPasswordInput, RESET_TTL_MINUTES } from '@/db/contracts';
+import { FormError } from '@/components/forms/form-error';
 import { plainParse } from '@/components/forms/plain-errors';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/states';
@@ -89,11 +90,7 @@ export function ResetScreen({ token }: { token: string }) {
             testID="reset-password"
             onSubmit={() => void submit()}
           />
-          {formError ? (
-            <Notice tone="error" testID="reset-error">
-              {formError}
-            </Notice>
-          ) : null}
+          <FormError message={formError} testID="reset-error" />
           <Button
             label={reset.isSuccess ? 'Password set: opening Pitchcard' : 'Set the password and sign in'}
             busyLabel="Setting the password"

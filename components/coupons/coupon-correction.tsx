@@ -1,24 +1,24 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, type Control } from 'react-hook-form';
 import { View } from 'react-native';
 import type { z } from 'zod';
 import {
   couponCorrectionInput,
   couponOutcomeLabels,
-  couponOutcomes,
   type CouponCorrectionInput,
+  type CouponInput,
   type CouponTest,
 } from '@/db/contracts';
 import { space } from '@/constants/theme';
-import { FormChoiceField, FormNumberField, FormTextField } from '@/components/forms/form-fields';
+import { FormError } from '@/components/forms/form-error';
+import { FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
-import { applyServerErrors } from '@/components/forms/server-errors';
+import { useFormSubmit } from '@/components/forms/use-form-submit';
 import { Button } from '@/components/ui/button';
-import { Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
 import { useCouponCorrectMutation } from '@/hooks/queries/coupons';
 import { useUnits } from '@/hooks/use-units';
+import { CouponFields } from './coupon-form';
 
 type Out = z.output<typeof couponCorrectionInput>;
 
@@ -29,13 +29,7 @@ type Out = z.output<typeof couponCorrectionInput>;
 export function CouponCorrectionForm({ test, onDone }: { test: CouponTest; onDone: (message: string) => void }) {
   const units = useUnits();
   const correct = useCouponCorrectMutation();
-  const [error, setError] = useState<string | null>(null);
-  const {
-    control,
-    handleSubmit,
-    setError: setFieldError,
-    formState,
-  } = useForm<CouponCorrectionInput, unknown, Out>({
+  const { control, handleSubmit, setError, formState } = useForm<CouponCorrectionInput, unknown, Out>({
     resolver: zodResolver(couponCorrectionInput, plainParse),
     mode: 'onChange',
     defaultValues: {
@@ -50,20 +44,16 @@ export function CouponCorrectionForm({ test, onDone }: { test: CouponTest; onDon
       reason: '',
     },
   });
-  const submit = handleSubmit(
-    async (v) => {
-      setError(null);
-      try {
-        const made = await correct.mutateAsync({ id: test.id, input: v });
-        onDone(
-          `Corrected: the entry of ${units.force(test.loadLb)} is kept as recorded and marked corrected; studies now use ${units.force(made.loadLb)}, ${couponOutcomeLabels[made.outcome].toLowerCase()}.`,
-        );
-      } catch (e) {
-        setError(applyServerErrors(setFieldError, e));
-      }
+  const { submit, formError } = useFormSubmit({
+    handleSubmit,
+    setError,
+    send: async (v) => {
+      const made = await correct.mutateAsync({ id: test.id, input: v });
+      onDone(
+        `Corrected: the entry of ${units.force(test.loadLb)} is kept as recorded and marked corrected; studies now use ${units.force(made.loadLb)}, ${couponOutcomeLabels[made.outcome].toLowerCase()}.`,
+      );
     },
-    () => setError('Some fields need a look: see the messages in red.'),
-  );
+  });
 
   return (
     <View style={{ gap: space.md }} testID="coupon-correction">
@@ -79,63 +69,9 @@ export function CouponCorrectionForm({ test, onDone }: { test: CouponTest; onDon
         testID="coupon-correction-reason"
         multiline
       />
-      <FormTextField
-        control={control}
-        name="material"
-        label="Material"
-        testID="coupon-correction-material"
-        autoCapitalize="characters"
-        mono
-      />
-      <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.md }}>
-        <View style={{ flexGrow: 1, flexBasis: 150 }}>
-          <FormNumberField
-            control={control}
-            name="gaugeIn"
-            label="Gauge"
-            quantity="length"
-            testID="coupon-correction-gauge"
-          />
-        </View>
-        <View style={{ flexGrow: 1, flexBasis: 150 }}>
-          <FormNumberField
-            control={control}
-            name="couponWidthIn"
-            label="Coupon width"
-            quantity="length"
-            testID="coupon-correction-width"
-          />
-        </View>
-      </View>
-      <FormTextField
-        control={control}
-        name="rivetSpec"
-        label="Rivet"
-        testID="coupon-correction-rivet"
-        autoCapitalize="characters"
-        mono
-      />
-      <FormNumberField
-        control={control}
-        name="loadLb"
-        label="Applied load"
-        quantity="force"
-        testID="coupon-correction-load"
-      />
-      <FormChoiceField
-        control={control}
-        name="outcome"
-        label="What the coupon did"
-        testID="coupon-correction-outcome"
-        options={couponOutcomes.map((o) => ({ value: o, label: couponOutcomeLabels[o] }))}
-      />
-      <FormTextField control={control} name="testedOn" label="Tested on" testID="coupon-correction-date" mono />
-      <FormTextField control={control} name="note" label="Note (optional)" testID="coupon-correction-note" multiline />
-      {error ? (
-        <Notice tone="error" testID="coupon-correction-error">
-          {error}
-        </Notice>
-      ) : null}
+      {/* The test's own fields are a new record's; the reason is beside them. */}
+      <CouponFields control={control as unknown as Control<CouponInput>} testIDPrefix="coupon-correction" />
+      <FormError message={formError} testID="coupon-correction-error" />
       <Button
         label="Record the correction"
         busyLabel="Recording"

@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, type Control } from 'react-hook-form';
 import { View } from 'react-native';
 import type { z } from 'zod';
 import { couponInput, couponOutcomeLabels, couponOutcomes, type CouponInput } from '@/db/contracts';
@@ -70,62 +70,7 @@ export function CouponForm() {
 
   return (
     <View style={{ gap: space.md }} testID="coupon-form">
-      <FormTextField
-        control={control}
-        name="material"
-        label="Material"
-        hint="e.g. 6061-T6"
-        testID="coupon-material"
-        autoCapitalize="characters"
-        mono
-      />
-      <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.md }}>
-        <View style={{ flexGrow: 1, flexBasis: 150 }}>
-          <FormNumberField control={control} name="gaugeIn" label="Gauge" quantity="length" testID="coupon-gauge" />
-        </View>
-        <View style={{ flexGrow: 1, flexBasis: 150 }}>
-          <FormNumberField
-            control={control}
-            name="couponWidthIn"
-            label="Coupon width"
-            quantity="length"
-            testID="coupon-width"
-          />
-        </View>
-      </View>
-      <FormTextField
-        control={control}
-        name="rivetSpec"
-        label="Rivet"
-        hint="The callout, e.g. MS20470AD4 or PULLED-4"
-        testID="coupon-rivet"
-        autoCapitalize="characters"
-        mono
-      />
-      <FormNumberField control={control} name="loadLb" label="Applied load" quantity="force" testID="coupon-load" />
-      <FormChoiceField
-        control={control}
-        name="outcome"
-        label="What the coupon did"
-        testID="coupon-outcome"
-        options={couponOutcomes.map((o) => ({ value: o, label: couponOutcomeLabels[o] }))}
-      />
-      <FormTextField
-        control={control}
-        name="testedOn"
-        label="Tested on"
-        hint="Year-month-day, e.g. 2026-10-14"
-        testID="coupon-date"
-        mono
-      />
-      <FormTextField
-        control={control}
-        name="note"
-        label="Note (optional)"
-        hint="What you saw: dimple, oval hole, head pulled in…"
-        testID="coupon-note"
-        multiline
-      />
+      <CouponFields control={control} testIDPrefix="coupon" withHints />
       {message ? (
         <Notice tone={message.tone} testID={message.tone === 'ok' ? 'coupon-saved' : 'coupon-error'}>
           {message.text}
@@ -139,5 +84,93 @@ export function CouponForm() {
         testID="coupon-submit"
       />
     </View>
+  );
+}
+
+/**
+ * A coupon test's own fields, the same when it is recorded and when it is corrected. testIDs are
+ * `${testIDPrefix}-material` etc.; `withHints` adds the examples a first entry wants.
+ */
+export function CouponFields({
+  control,
+  testIDPrefix,
+  withHints,
+}: {
+  control: Control<CouponInput>;
+  testIDPrefix: string;
+  withHints?: boolean;
+}) {
+  const hint = (text: string) => (withHints ? text : undefined);
+  return (
+    <>
+      <FormTextField
+        control={control}
+        name="material"
+        label="Material"
+        hint={hint('e.g. 6061-T6')}
+        testID={`${testIDPrefix}-material`}
+        autoCapitalize="characters"
+        mono
+      />
+      <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.md }}>
+        <View style={{ flexGrow: 1, flexBasis: 150 }}>
+          <FormNumberField
+            control={control}
+            name="gaugeIn"
+            label="Gauge"
+            quantity="length"
+            testID={`${testIDPrefix}-gauge`}
+          />
+        </View>
+        <View style={{ flexGrow: 1, flexBasis: 150 }}>
+          <FormNumberField
+            control={control}
+            name="couponWidthIn"
+            label="Coupon width"
+            quantity="length"
+            testID={`${testIDPrefix}-width`}
+          />
+        </View>
+      </View>
+      <FormTextField
+        control={control}
+        name="rivetSpec"
+        label="Rivet"
+        hint={hint('The callout, e.g. MS20470AD4 or PULLED-4')}
+        testID={`${testIDPrefix}-rivet`}
+        autoCapitalize="characters"
+        mono
+      />
+      <FormNumberField
+        control={control}
+        name="loadLb"
+        label="Applied load"
+        quantity="force"
+        testID={`${testIDPrefix}-load`}
+      />
+      <FormChoiceField
+        control={control}
+        name="outcome"
+        label="What the coupon did"
+        testID={`${testIDPrefix}-outcome`}
+        options={couponOutcomes.map((o) => ({ value: o, label: couponOutcomeLabels[o] }))}
+      />
+      <FormTextField
+        control={control}
+        name="testedOn"
+        label="Tested on"
+        hint={hint('Year-month-day, e.g. 2026-10-14')}
+        testID={`${testIDPrefix}-date`}
+        mono
+      />
+      <FormTextField
+        control={control}
+        name="note"
+        label="Note (optional)"
+        hint={hint('What you saw: dimple, oval hole, head pulled in…')}
+        testID={`${testIDPrefix}-note`}
+        multiline
+      />
+    </>
   );
 }

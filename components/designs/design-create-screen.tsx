@@ -1,16 +1,16 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'expo-router';
-import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import { partDesignInput, partKindLabels, partKinds, revisionInput } from '@/db/contracts';
+import { FormError } from '@/components/forms/form-error';
 import { FormChoiceField, FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
-import { applyServerErrors } from '@/components/forms/server-errors';
+import { useFormSubmit } from '@/components/forms/use-form-submit';
 import { Button } from '@/components/ui/button';
 import { Screen } from '@/components/ui/screen';
 import { Section } from '@/components/ui/sheet';
-import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
+import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
 import { useDesignCreateMutation } from '@/hooks/queries/designs';
 import { useKitsQuery } from '@/hooks/queries/kits';
@@ -48,7 +48,6 @@ export function DesignCreateScreen({ kitModelId }: { kitModelId?: string }) {
 function DesignForm({ kits, kitModelId }: { kits: { id: string; code: string; name: string }[]; kitModelId?: string }) {
   const router = useRouter();
   const create = useDesignCreateMutation();
-  const [formError, setFormError] = useState<string | null>(null);
   const { control, handleSubmit, setError, formState } = useForm<Values, unknown, z.output<typeof newDesignSchema>>({
     resolver: zodResolver(newDesignSchema, plainParse),
     mode: 'onChange',
@@ -58,20 +57,15 @@ function DesignForm({ kits, kitModelId }: { kits: { id: string; code: string; na
     },
   });
 
-  const submit = handleSubmit(
-    async (values) => {
-      setFormError(null);
-      try {
-        const d = await create.mutateAsync(values);
-        router.replace(`/catalogue/designs/${d.id}`);
-      } catch (e) {
-        setFormError(
-          applyServerErrors(setError, e, (p) => (p.startsWith('design.') || p.startsWith('revision.') ? p : null)),
-        );
-      }
+  const { submit, formError } = useFormSubmit({
+    handleSubmit,
+    setError,
+    send: async (values) => {
+      const d = await create.mutateAsync(values);
+      router.replace(`/catalogue/designs/${d.id}`);
     },
-    () => setFormError('Some fields need a look: see the messages in red.'),
-  );
+    toField: (p) => (p.startsWith('design.') || p.startsWith('revision.') ? p : null),
+  });
 
   return (
     <>
@@ -107,11 +101,7 @@ function DesignForm({ kits, kitModelId }: { kits: { id: string; code: string; na
         />
       </Section>
       <RevisionFields control={control} prefix="revision." />
-      {formError ? (
-        <Notice tone="error" testID="design-error">
-          {formError}
-        </Notice>
-      ) : null}
+      <FormError message={formError} testID="design-error" />
       <Button
         label="Save as draft revision A"
         busyLabel="Saving"

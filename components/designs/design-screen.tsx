@@ -15,9 +15,11 @@ import {
   type RevisionStatus,
 } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
+import { FormError } from '@/components/forms/form-error';
 import { FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
 import { applyServerErrors } from '@/components/forms/server-errors';
+import { fieldsNeedALook, useFormSubmit } from '@/components/forms/use-form-submit';
 import { Button } from '@/components/ui/button';
 import { Caution } from '@/components/ui/caution';
 import { Screen } from '@/components/ui/screen';
@@ -222,7 +224,7 @@ function DraftEditor({ designId, r }: { designId: string; r: Revision }) {
     async (v) => {
       await save(v);
     },
-    () => setFormError('Some fields need a look: see the messages in red.'),
+    () => setFormError(fieldsNeedALook),
   );
 
   const onPublish = async () => {
@@ -296,11 +298,7 @@ function DraftEditor({ designId, r }: { designId: string; r: Revision }) {
         testID="rev-change-note"
         multiline
       />
-      {formError ? (
-        <Notice tone="error" testID="revision-error">
-          {formError}
-        </Notice>
-      ) : null}
+      <FormError message={formError} testID="revision-error" />
       {saved && !formState.isDirty ? (
         <Notice tone="ok" testID="draft-saved">
           Draft saved.
@@ -353,24 +351,19 @@ function DraftEditor({ designId, r }: { designId: string; r: Revision }) {
 
 function NewRevisionForm({ designId, from, onDone }: { designId: string; from?: Revision; onDone: () => void }) {
   const create = useDesignRevisionCreateMutation(designId);
-  const [formError, setFormError] = useState<string | null>(null);
   const { control, handleSubmit, setError, formState } = useForm<RevValues, unknown, RevOut>({
     resolver: newRevisionResolver,
     mode: 'onChange',
     defaultValues: from ? revisionToInput(from) : undefined,
   });
-  const submit = handleSubmit(
-    async (v) => {
-      setFormError(null);
-      try {
-        await create.mutateAsync(v);
-        onDone();
-      } catch (e) {
-        setFormError(applyServerErrors(setError, e));
-      }
+  const { submit, formError } = useFormSubmit({
+    handleSubmit,
+    setError,
+    send: async (v) => {
+      await create.mutateAsync(v);
+      onDone();
     },
-    () => setFormError('Some fields need a look: see the messages in red.'),
-  );
+  });
   return (
     <View style={{ gap: space.xl }} testID="new-revision-form">
       <Notice>
@@ -388,11 +381,7 @@ function NewRevisionForm({ designId, from, onDone }: { designId: string; from?: 
         multiline
       />
       <RevisionFields control={control} />
-      {formError ? (
-        <Notice tone="error" testID="revision-error">
-          {formError}
-        </Notice>
-      ) : null}
+      <FormError message={formError} testID="revision-error" />
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
         <Button
           label="Make the draft"

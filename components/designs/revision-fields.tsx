@@ -1,5 +1,5 @@
 import { Controller, useFieldArray, useFormState, useWatch, type Control } from 'react-hook-form';
-import { StyleSheet, View } from 'react-native';
+import { StyleSheet, View, type ViewStyle } from 'react-native';
 import type { RevisionInput } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
 import { FormChoiceField, FormNumberField, FormTextField } from '@/components/forms/form-fields';
@@ -58,6 +58,33 @@ export function revisionToInput(r: RevisionInput): RevisionInput {
   };
 }
 
+/** Lengths side by side, each in its own cell of a wrapping row. */
+function LengthCells({
+  control,
+  fields,
+  cellStyle = styles.cell,
+}: {
+  control: Control<any>;
+  fields: { name: string; label: string; testID: string }[];
+  cellStyle?: ViewStyle;
+}) {
+  return (
+    <>
+      {fields.map((f) => (
+        <View key={f.testID} style={cellStyle}>
+          <FormNumberField control={control} name={f.name} label={f.label} quantity="length" testID={f.testID} />
+        </View>
+      ))}
+    </>
+  );
+}
+
+const zoneFields = [
+  { key: 'fromIn', label: 'From', id: 'from' },
+  { key: 'toIn', label: 'To', id: 'to' },
+  { key: 'pitchIn', label: 'Pitch', id: 'pitch' },
+] as const;
+
 function ZonesEditor({ control, base, lineIndex }: { control: Control<any>; base: string; lineIndex: number }) {
   const name = `${base}lines.${lineIndex}.zones`;
   const zones = useFieldArray({ control, name });
@@ -71,33 +98,15 @@ function ZonesEditor({ control, base, lineIndex }: { control: Control<any>; base
       </Txt>
       {zones.fields.map((z, j) => (
         <View key={z.id} style={styles.zone} testID={`line-${lineIndex}-zone-${j}`}>
-          <View style={styles.zoneCell}>
-            <FormNumberField
-              control={control}
-              name={`${name}.${j}.fromIn`}
-              label="From"
-              quantity="length"
-              testID={`line-${lineIndex}-zone-${j}-from`}
-            />
-          </View>
-          <View style={styles.zoneCell}>
-            <FormNumberField
-              control={control}
-              name={`${name}.${j}.toIn`}
-              label="To"
-              quantity="length"
-              testID={`line-${lineIndex}-zone-${j}-to`}
-            />
-          </View>
-          <View style={styles.zoneCell}>
-            <FormNumberField
-              control={control}
-              name={`${name}.${j}.pitchIn`}
-              label="Pitch"
-              quantity="length"
-              testID={`line-${lineIndex}-zone-${j}-pitch`}
-            />
-          </View>
+          <LengthCells
+            control={control}
+            cellStyle={styles.zoneCell}
+            fields={zoneFields.map((f) => ({
+              name: `${name}.${j}.${f.key}`,
+              label: f.label,
+              testID: `line-${lineIndex}-zone-${j}-${f.id}`,
+            }))}
+          />
           {zones.fields.length > 1 ? (
             <Button
               label="Remove"
@@ -207,24 +216,13 @@ export function RevisionFields({ control: anyControl, prefix = '' }: Props) {
           testID="rev-material"
         />
         <View style={styles.pair}>
-          <View style={styles.cell}>
-            <FormNumberField
-              control={control}
-              name={`${p}gaugeIn`}
-              label="Gauge"
-              quantity="length"
-              testID="rev-gauge"
-            />
-          </View>
-          <View style={styles.cell}>
-            <FormNumberField
-              control={control}
-              name={`${p}chordIn`}
-              label="Chord"
-              quantity="length"
-              testID="rev-chord"
-            />
-          </View>
+          <LengthCells
+            control={control}
+            fields={[
+              { name: `${p}gaugeIn`, label: 'Gauge', testID: 'rev-gauge' },
+              { name: `${p}chordIn`, label: 'Chord', testID: 'rev-chord' },
+            ]}
+          />
         </View>
         <FormTextField
           control={control}
@@ -246,15 +244,10 @@ export function RevisionFields({ control: anyControl, prefix = '' }: Props) {
               mono
             />
           </View>
-          <View style={styles.cell}>
-            <FormNumberField
-              control={control}
-              name={`${p}drillDiameterIn`}
-              label="Drill diameter"
-              quantity="length"
-              testID="rev-drill-diameter"
-            />
-          </View>
+          <LengthCells
+            control={control}
+            fields={[{ name: `${p}drillDiameterIn`, label: 'Drill diameter', testID: 'rev-drill-diameter' }]}
+          />
         </View>
         <FormNumberField
           control={control}
@@ -307,24 +300,13 @@ export function RevisionFields({ control: anyControl, prefix = '' }: Props) {
               ]}
             />
             <View style={styles.pair}>
-              <View style={styles.cell}>
-                <FormNumberField
-                  control={control}
-                  name={`${p}lines.${i}.startIn`}
-                  label="Starts aft of leading edge"
-                  quantity="length"
-                  testID={`line-${i}-start`}
-                />
-              </View>
-              <View style={styles.cell}>
-                <FormNumberField
-                  control={control}
-                  name={`${p}lines.${i}.lengthIn`}
-                  label="Length"
-                  quantity="length"
-                  testID={`line-${i}-length`}
-                />
-              </View>
+              <LengthCells
+                control={control}
+                fields={[
+                  { name: `${p}lines.${i}.startIn`, label: 'Starts aft of leading edge', testID: `line-${i}-start` },
+                  { name: `${p}lines.${i}.lengthIn`, label: 'Length', testID: `line-${i}-length` },
+                ]}
+              />
             </View>
             <ZonesEditor control={control} base={p} lineIndex={i} />
           </View>

@@ -1,5 +1,7 @@
 import { useState } from 'react';
-import { Controller, type Control, type FieldValues, type Path } from 'react-hook-form';
+import { Controller, type Control, type ControllerRenderProps, type FieldValues, type Path } from 'react-hook-form';
+import { View } from 'react-native';
+import { space } from '@/constants/theme';
 import { editableNumber, fromDisplay, parseNumber, type Quantity } from '@/constants/units';
 import { useUnits } from '@/hooks/use-units';
 import { Choice, type ChoiceOption } from '@/components/ui/choice';
@@ -23,21 +25,45 @@ export const emailInputProps = {
   autoCorrect: false,
 } as const;
 
-/** A text field bound to react-hook-form, with its error right under it. */
-export function FormTextField<T extends FieldValues>({
+/** A field bound to react-hook-form under its label, with its error right under it; `children` draws the input. */
+function BoundField<T extends FieldValues>({
   control,
   name,
   label,
   hint,
   testID,
-  ...input
-}: Base<T> & Omit<TextBoxProps, 'value' | 'onChangeText' | 'testID'>) {
+  children,
+}: Base<T> & { children: (field: ControllerRenderProps<T, Path<T>>, invalid: boolean) => React.ReactNode }) {
   return (
     <Controller
       control={control}
       name={name}
       render={({ field, fieldState }) => (
         <Field label={label} hint={hint} error={fieldState.error?.message} testID={`${testID}-field`}>
+          {children(field, !!fieldState.error)}
+        </Field>
+      )}
+    />
+  );
+}
+
+/**
+ * A text field bound to react-hook-form, with its error right under it. `beside` stands to the right of
+ * the box (a password's "Show").
+ */
+export function FormTextField<T extends FieldValues>({
+  control,
+  name,
+  label,
+  hint,
+  testID,
+  beside,
+  ...input
+}: Base<T> & Omit<TextBoxProps, 'value' | 'onChangeText' | 'testID'> & { beside?: React.ReactNode }) {
+  return (
+    <BoundField control={control} name={name} label={label} hint={hint} testID={testID}>
+      {(field, invalid) => {
+        const box = (
           <TextBox
             {...input}
             testID={testID}
@@ -45,12 +71,20 @@ export function FormTextField<T extends FieldValues>({
             value={field.value == null ? '' : String(field.value)}
             onChangeText={field.onChange}
             onBlur={field.onBlur}
-            invalid={!!fieldState.error}
+            invalid={invalid}
             ref={field.ref}
           />
-        </Field>
-      )}
-    />
+        );
+        return beside ? (
+          <View style={{ flexDirection: 'row', gap: space.sm, alignItems: 'center' }}>
+            {box}
+            {beside}
+          </View>
+        ) : (
+          box
+        );
+      }}
+    </BoundField>
   );
 }
 
@@ -164,24 +198,20 @@ export function FormChoiceField<T extends FieldValues, V extends string>({
   options,
 }: Base<T> & { options: readonly ChoiceOption<V>[] }) {
   return (
-    <Controller
-      control={control}
-      name={name}
-      render={({ field, fieldState }) => (
-        <Field label={label} hint={hint} error={fieldState.error?.message} testID={`${testID}-field`}>
-          <Choice
-            options={options}
-            value={field.value as V | undefined}
-            onChange={(v) => {
-              field.onChange(v);
-              field.onBlur();
-            }}
-            testIDPrefix={testID}
-            invalid={!!fieldState.error}
-            label={label}
-          />
-        </Field>
+    <BoundField control={control} name={name} label={label} hint={hint} testID={testID}>
+      {(field, invalid) => (
+        <Choice
+          options={options}
+          value={field.value as V | undefined}
+          onChange={(v) => {
+            field.onChange(v);
+            field.onBlur();
+          }}
+          testIDPrefix={testID}
+          invalid={invalid}
+          label={label}
+        />
       )}
-    />
+    </BoundField>
   );
 }

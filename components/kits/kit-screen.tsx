@@ -1,14 +1,15 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'expo-router';
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, type Control } from 'react-hook-form';
 import { View } from 'react-native';
 import type { z } from 'zod';
-import { aircraftCategories, kitChangeInput, kitFieldLabels, type KitModelDetail } from '@/db/contracts';
+import { kitChangeInput, kitFieldLabels, type KitModelDetail, type KitModelInput } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
-import { FormChoiceField, FormNumberField, FormTextField } from '@/components/forms/form-fields';
+import { FormError } from '@/components/forms/form-error';
+import { FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
-import { applyServerErrors } from '@/components/forms/server-errors';
+import { useFormSubmit } from '@/components/forms/use-form-submit';
 import { ConfirmStep } from '@/components/designs/confirm-step';
 import { Button } from '@/components/ui/button';
 import { Screen } from '@/components/ui/screen';
@@ -16,16 +17,12 @@ import { Section } from '@/components/ui/sheet';
 import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
 import { errorMessage } from '@/lib/api-client';
+import { KitAirfoilField, KitCategoryField, KitCodeField, KitDesignDataFields } from './kit-form-screen';
 import { useKitDeleteMutation, useKitQuery, useKitUpdateMutation } from '@/hooks/queries/kits';
 
 type Values = z.input<typeof kitChangeInput>;
 type Out = z.output<typeof kitChangeInput>;
 
-const categoryWords: Record<(typeof aircraftCategories)[number], string> = {
-  normal: 'Normal',
-  utility: 'Utility',
-  acrobatic: 'Acrobatic',
-};
 const show = (v: unknown) => (v === null || v === undefined || v === '' ? '–' : String(v));
 
 /** A kit model's own page: its data to correct, what relies on it, its history, and delete while nothing does. */
@@ -50,7 +47,6 @@ function KitBody({ kit }: { kit: KitModelDetail }) {
   const router = useRouter();
   const update = useKitUpdateMutation(kit.id);
   const remove = useKitDeleteMutation(kit.id);
-  const [formError, setFormError] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
   const [asking, setAsking] = useState(false);
   const relied = kit.reliance.studies + kit.reliance.publishedParts + kit.reliance.builds > 0;
@@ -70,19 +66,17 @@ function KitBody({ kit }: { kit: KitModelDetail }) {
       reason: '',
     },
   });
-  const submit = handleSubmit(
-    async (v) => {
-      setFormError(null);
-      try {
-        const next = await update.mutateAsync(v);
-        reset({ ...v, cruiseSpeedKeas: next.cruiseSpeedKeas ?? undefined, reason: '' });
-        setSaved(true);
-      } catch (e) {
-        setFormError(applyServerErrors(setError, e));
-      }
+  const { submit, formError } = useFormSubmit({
+    handleSubmit,
+    setError,
+    send: async (v) => {
+      const next = await update.mutateAsync(v);
+      reset({ ...v, cruiseSpeedKeas: next.cruiseSpeedKeas ?? undefined, reason: '' });
+      setSaved(true);
     },
-    () => setFormError('Some fields need a look: see the messages in red.'),
-  );
+  });
+  // The kit's fields are the new kit's, with a reason beside them.
+  const kitControl = control as unknown as Control<KitModelInput>;
   const confirmDelete = async () => {
     try {
       await remove.mutateAsync();
@@ -109,53 +103,11 @@ function KitBody({ kit }: { kit: KitModelDetail }) {
       </Section>
       {kit.allowedActions.includes('edit') ? (
         <Section title="The kit">
-          <FormTextField
-            control={control}
-            name="code"
-            label="Code"
-            testID="kit-code"
-            autoCapitalize="characters"
-            mono
-          />
+          <KitCodeField control={kitControl} />
           <FormTextField control={control} name="name" label="Name" testID="kit-name" />
-          <FormChoiceField
-            control={control}
-            name="category"
-            label="Category"
-            testID="kit-category"
-            options={aircraftCategories.map((c) => ({ value: c, label: categoryWords[c] }))}
-          />
-          <FormTextField
-            control={control}
-            name="airfoil"
-            label="Airfoil"
-            testID="kit-airfoil"
-            autoCapitalize="characters"
-            mono
-          />
-          <FormNumberField control={control} name="weightLb" label="Gross weight" quantity="mass" testID="kit-weight" />
-          <FormNumberField
-            control={control}
-            name="wingAreaSqFt"
-            label="Wing area"
-            quantity="area"
-            testID="kit-wing-area"
-          />
-          <FormNumberField
-            control={control}
-            name="meanChordIn"
-            label="Mean chord"
-            quantity="length"
-            testID="kit-mean-chord"
-          />
-          <FormNumberField control={control} name="stallSpeedKeas" label="Stall speed" unit="KEAS" testID="kit-stall" />
-          <FormNumberField
-            control={control}
-            name="cruiseSpeedKeas"
-            label="Cruise speed (optional)"
-            unit="KEAS"
-            testID="kit-cruise"
-          />
+          <KitCategoryField control={kitControl} />
+          <KitAirfoilField control={kitControl} />
+          <KitDesignDataFields control={kitControl} />
           <FormTextField
             control={control}
             name="reason"
@@ -163,11 +115,7 @@ function KitBody({ kit }: { kit: KitModelDetail }) {
             testID="kit-reason"
             multiline
           />
-          {formError ? (
-            <Notice tone="error" testID="kit-error">
-              {formError}
-            </Notice>
-          ) : null}
+          <FormError message={formError} testID="kit-error" />
           {saved && !formState.isDirty ? (
             <Notice tone="ok" testID="kit-saved">
               Saved; the change is in the history below.

@@ -12,6 +12,7 @@ import {
   type SessionUser,
 } from '@/db/contracts';
 import { colors, radius, space, touch } from '@/constants/theme';
+import { FormError } from '@/components/forms/form-error';
 import { FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
 import { applyServerErrors } from '@/components/forms/server-errors';
@@ -199,11 +200,7 @@ export function InviteForm({
           )}
         />
       ) : null}
-      {formError ? (
-        <Notice tone="error" testID="invite-person-error">
-          {formError}
-        </Notice>
-      ) : null}
+      <FormError message={formError} testID="invite-person-error" />
       {sent ? (
         <Notice tone="ok" testID="invite-sent">
           {sent}

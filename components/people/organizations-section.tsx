@@ -5,9 +5,10 @@ import { StyleSheet, View } from 'react-native';
 import type { z } from 'zod';
 import { organizationInput, organizationKindLabels, organizationKinds } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
+import { FormError } from '@/components/forms/form-error';
 import { FormChoiceField, FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
-import { applyServerErrors } from '@/components/forms/server-errors';
+import { useFormSubmit } from '@/components/forms/use-form-submit';
 import { Button } from '@/components/ui/button';
 import { LoadMore } from '@/components/ui/load-more';
 import { Section } from '@/components/ui/sheet';
@@ -71,7 +72,6 @@ export function OrganizationsSection() {
 
 function NewOrganization({ onClose }: { onClose: () => void }) {
   const create = usePeopleOrganizationCreateMutation();
-  const [formError, setFormError] = useState<string | null>(null);
   const [made, setMade] = useState<string | null>(null);
   const { control, handleSubmit, setError, reset, formState } = useForm<
     Values,
@@ -82,15 +82,17 @@ function NewOrganization({ onClose }: { onClose: () => void }) {
     mode: 'onChange',
     defaultValues: { name: '', kind: undefined },
   });
-  const submit = handleSubmit(async (v) => {
-    setFormError(null);
-    try {
+  const { submit, formError } = useFormSubmit({
+    handleSubmit,
+    setError,
+    send: async (v) => {
       const o = await create.mutateAsync(v);
       setMade(`${o.name} is added. Invite its people below.`);
       reset({ name: '', kind: undefined });
-    } catch (e) {
-      setFormError(applyServerErrors(setError, e, (path) => (path === 'name' || path === 'kind' ? path : null)));
-    }
+    },
+    toField: (path) => (path === 'name' || path === 'kind' ? path : null),
+    // The form's own checks show at the fields alone.
+    invalidMessage: null,
   });
   return (
     <View style={styles.form} testID="org-form">
@@ -102,11 +104,7 @@ function NewOrganization({ onClose }: { onClose: () => void }) {
         testID="org-kind"
         options={organizationKinds.map((k) => ({ value: k, label: organizationKindLabels[k] }))}
       />
-      {formError ? (
-        <Notice tone="error" testID="org-error">
-          {formError}
-        </Notice>
-      ) : null}
+      <FormError message={formError} testID="org-error" />
       {made ? (
         <Notice tone="ok" testID="org-created">
           {made}

@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { View } from 'react-native';
 import { roleLabels, type PersonAction, type PersonSummary, type Role } from '@/db/contracts';
 import { space } from '@/constants/theme';
+import { FormError } from '@/components/forms/form-error';
 import { Button } from '@/components/ui/button';
 import { Choice } from '@/components/ui/choice';
 import { Field } from '@/components/ui/field';
@@ -153,11 +154,7 @@ export function PersonActions({
           A lead engineer invites and manages the engineers of their own organisation.
         </Txt>
       ) : null}
-      {error ? (
-        <Notice tone="error" testID="person-error">
-          {error}
-        </Notice>
-      ) : null}
+      <FormError message={error} testID="person-error" />
     </View>
   );
 }

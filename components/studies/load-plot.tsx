@@ -148,26 +148,22 @@ export function LoadPlot({ candidate, chordIn }: { candidate: StudyCandidate; ch
                 load per rivet, {fu}
               </SvgText>
 
-              <Line
-                x1={x0}
-                y1={sy(s.ultimateAllowable)}
-                x2={x1}
-                y2={sy(s.ultimateAllowable)}
-                stroke={ULTIMATE}
-                strokeWidth={2}
-                strokeDasharray="10 5"
-                {...svgTestId('allowable-ultimate')}
-              />
-              <Line
-                x1={x0}
-                y1={sy(s.limitAllowable)}
-                x2={x1}
-                y2={sy(s.limitAllowable)}
-                stroke={LIMIT}
-                strokeWidth={2}
-                strokeDasharray="3 4"
-                {...svgTestId('allowable-limit')}
-              />
+              {[
+                { id: 'allowable-ultimate', at: s.ultimateAllowable, stroke: ULTIMATE, dash: '10 5' },
+                { id: 'allowable-limit', at: s.limitAllowable, stroke: LIMIT, dash: '3 4' },
+              ].map((a) => (
+                <Line
+                  key={a.id}
+                  x1={x0}
+                  y1={sy(a.at)}
+                  x2={x1}
+                  y2={sy(a.at)}
+                  stroke={a.stroke}
+                  strokeWidth={2}
+                  strokeDasharray={a.dash}
+                  {...svgTestId(a.id)}
+                />
+              ))}
 
               {s.xs.map((x, i) => {
                 const h = line.holes[i];

@@ -140,22 +140,17 @@ export function PressurePicture({ result, internalCp = 0 }: { result: StudyResul
                   stroke={colors.ink}
                   strokeWidth={2}
                 />
-                <Line
-                  x1={width - 18 - unitCp}
-                  y1={proj.height + 7}
-                  x2={width - 18 - unitCp}
-                  y2={proj.height + 17}
-                  stroke={colors.ink}
-                  strokeWidth={1}
-                />
-                <Line
-                  x1={width - 18}
-                  y1={proj.height + 7}
-                  x2={width - 18}
-                  y2={proj.height + 17}
-                  stroke={colors.ink}
-                  strokeWidth={1}
-                />
+                {[width - 18 - unitCp, width - 18].map((x, end) => (
+                  <Line
+                    key={end}
+                    x1={x}
+                    y1={proj.height + 7}
+                    x2={x}
+                    y2={proj.height + 17}
+                    stroke={colors.ink}
+                    strokeWidth={1}
+                  />
+                ))}
                 <SvgText
                   x={width - 24 - unitCp}
                   y={proj.height + 16}

@@ -2,7 +2,7 @@ import { View } from 'react-native';
 import { space } from '@/constants/theme';
 import { Caution } from '@/components/ui/caution';
 import { ErrorState } from '@/components/ui/states';
-import { Mono } from '@/components/ui/text';
+import { Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
 import type { CandidateKey } from './study-result';
 
@@ -48,5 +48,39 @@ export function DesignFigures({
       <Mono variant="small">{design.loadFactors.negative.toFixed(2)}</Mono> · W/S{' '}
       <Mono variant="small">{u.wingLoading(design.wingLoadingPsf)}</Mono>
     </>
+  );
+}
+
+/**
+ * A result's headline: "`lead` 0.032 in with MS20470AD4" for the candidate it recommends, or in red
+ * what `failure` says when there is none. Both under one testID.
+ */
+export function RecommendedLine({
+  rec,
+  lead,
+  failure,
+  testID,
+}: {
+  rec: CandidateKey | null | undefined;
+  lead: string;
+  failure: string;
+  testID: string;
+}) {
+  const u = useUnits();
+  return rec ? (
+    <Txt variant="heading" testID={testID}>
+      {lead}{' '}
+      <Mono variant="heading" bold>
+        {u.length(rec.gaugeIn)}
+      </Mono>{' '}
+      with{' '}
+      <Mono variant="heading" bold>
+        {rec.rivet}
+      </Mono>
+    </Txt>
+  ) : (
+    <Txt variant="heading" tone="error" testID={testID}>
+      {failure}
+    </Txt>
   );
 }

@@ -12,7 +12,7 @@ import {
   stressNumber,
   stressUnit,
 } from './study-numbers';
-import { GaugeOverRivet, RowPickButton } from './table-cells';
+import { GaugeOverRivet, RowPickButton, YesNoCell } from './table-cells';
 import { idPart, skinCandidate, type SkinCandidate, type SkinPanelResult } from './wing-result';
 
 // The longest values in the 15 px mono (9 px a character): "MS20426AD4" under its gauge, "111.00–125.50" under the ribs' names.
@@ -200,11 +200,7 @@ export function SkinCandidates({ panel }: { panel: SkinPanelResult }) {
               {u.length(c.gaugeIn)} · {c.rivet}
             </Mono>
           ),
-          ok: (
-            <Txt variant="small" bold tone={c.feasible ? 'ink' : 'error'}>
-              {c.feasible ? '✓ yes' : '✕ no'}
-            </Txt>
-          ),
+          ok: <YesNoCell yes={c.feasible} />,
           count: <Mono variant="small">{c.rivetCount}</Mono>,
           weight: <Mono variant="small">{partWeight(c.weightLb, u.system).replace(/ (lb|g)$/, '')}</Mono>,
           why: c.reasons.length ? (

@@ -13,7 +13,9 @@ import {
 import { View } from 'react-native';
 import type { KitModel } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
-import { FormChoiceField, FormNumberField, FormTextField } from '@/components/forms/form-fields';
+import { FormError } from '@/components/forms/form-error';
+import { FormChoiceField, FormTextField } from '@/components/forms/form-fields';
+import { NumberRows, type NumberFieldSpec } from '@/components/forms/number-rows';
 import { errorAt } from '@/components/forms/server-errors';
 import { Button } from '@/components/ui/button';
 import { Choice, MultiChoice } from '@/components/ui/choice';
@@ -230,26 +232,15 @@ export function FastenerLinesSection<T extends FieldValues>({
               />
             </Cell>
           </Row>
-          <Row>
-            <Cell>
-              <FormNumberField
-                control={control}
-                name={at(i, 'startXc')}
-                label="Starts at"
-                unit="x/c"
-                testID={`${prefix}-line-${i}-start`}
-              />
-            </Cell>
-            <Cell>
-              <FormNumberField
-                control={control}
-                name={at(i, 'endXc')}
-                label="Ends at"
-                unit="x/c"
-                testID={`${prefix}-line-${i}-end`}
-              />
-            </Cell>
-          </Row>
+          <NumberRows
+            control={control}
+            rows={[
+              [
+                { name: at(i, 'startXc'), label: 'Starts at', unit: 'x/c', testID: `${prefix}-line-${i}-start` },
+                { name: at(i, 'endXc'), label: 'Ends at', unit: 'x/c', testID: `${prefix}-line-${i}-end` },
+              ],
+            ]}
+          />
           {lines.fields.length > 1 ? (
             <Button
               label={`Remove line ${i + 1}`}
@@ -405,6 +396,65 @@ export function RivetChips<T extends FieldValues>({
   );
 }
 
+const scheduleRows = (prefix: string, minutesHint: string): NumberFieldSpec<StudyFormValues>[][] => [
+  [
+    {
+      name: 'inputs.maxPitchDiameters',
+      label: 'Largest pitch',
+      unit: 'D',
+      hint: 'In rivet diameters, 4 to 16',
+      testID: `${prefix}-max-pitch`,
+    },
+    {
+      name: 'inputs.pitchIncrementIn',
+      label: 'Pitch rounded to',
+      quantity: 'length',
+      hint: 'The pitch steps down in these',
+      testID: `${prefix}-pitch-increment`,
+    },
+    { name: 'inputs.maxZones', label: 'Zones per line, at most', unit: 'zones', testID: `${prefix}-max-zones` },
+  ],
+  [
+    {
+      name: 'inputs.minutesPerHole',
+      label: 'Minutes per hole',
+      unit: 'min',
+      hint: minutesHint,
+      testID: `${prefix}-minutes-per-hole`,
+    },
+    {
+      name: 'inputs.panels',
+      label: 'Panels on the airfoil',
+      unit: 'panels',
+      hint: 'Even, 40 to 400; blank: 160',
+      testID: `${prefix}-panels`,
+    },
+  ],
+];
+
+/**
+ * A rib's inside pressure and flange width, asked alike of the rib study and of every rib of a wing
+ * (both forms hold them at `inputs.rib`).
+ */
+export function ribPressureAndFlange<T extends FieldValues>(prefix: string): NumberFieldSpec<T>[] {
+  return [
+    {
+      name: 'inputs.rib.internalCp' as Path<T>,
+      label: 'Pressure inside the wing',
+      unit: 'Cp',
+      hint: 'Blank: 0 (no vents or leaks)',
+      testID: `${prefix}-internal-cp`,
+    },
+    {
+      name: 'inputs.rib.flangeWidthIn' as Path<T>,
+      label: 'Flange width',
+      quantity: 'length',
+      hint: 'Blank: 4 rivet diameters',
+      testID: `${prefix}-flange-width`,
+    },
+  ];
+}
+
 /** How the pitch is laid out and the candidates ranked: the same settings for a rib and a wing. */
 export function ScheduleFields({
   control,
@@ -419,59 +469,7 @@ export function ScheduleFields({
 }) {
   return (
     <Section title="Schedule settings">
-      <Row>
-        <Cell>
-          <FormNumberField
-            control={control}
-            name="inputs.maxPitchDiameters"
-            label="Largest pitch"
-            unit="D"
-            hint="In rivet diameters, 4 to 16"
-            testID={`${prefix}-max-pitch`}
-          />
-        </Cell>
-        <Cell>
-          <FormNumberField
-            control={control}
-            name="inputs.pitchIncrementIn"
-            label="Pitch rounded to"
-            quantity="length"
-            hint="The pitch steps down in these"
-            testID={`${prefix}-pitch-increment`}
-          />
-        </Cell>
-        <Cell>
-          <FormNumberField
-            control={control}
-            name="inputs.maxZones"
-            label="Zones per line, at most"
-            unit="zones"
-            testID={`${prefix}-max-zones`}
-          />
-        </Cell>
-      </Row>
-      <Row>
-        <Cell>
-          <FormNumberField
-            control={control}
-            name="inputs.minutesPerHole"
-            label="Minutes per hole"
-            unit="min"
-            hint={minutesHint}
-            testID={`${prefix}-minutes-per-hole`}
-          />
-        </Cell>
-        <Cell>
-          <FormNumberField
-            control={control}
-            name="inputs.panels"
-            label="Panels on the airfoil"
-            unit="panels"
-            hint="Even, 40 to 400; blank: 160"
-            testID={`${prefix}-panels`}
-          />
-        </Cell>
-      </Row>
+      <NumberRows control={control} rows={scheduleRows(prefix, minutesHint)} />
       <FormChoiceField
         control={control}
         name="inputs.rankBy"
@@ -483,5 +481,38 @@ export function ScheduleFields({
         ]}
       />
     </Section>
+  );
+}
+
+/**
+ * The foot of a study form: the caller's note, the form's error, the compute button and what the server
+ * will do (`children`). testIDs are `${prefix}-form-error` and `${prefix}-compute`.
+ */
+export function StudyFormFoot({
+  prefix,
+  note,
+  formError,
+  busy,
+  submitLabel,
+  onSubmit,
+  children,
+}: {
+  prefix: string;
+  note?: React.ReactNode;
+  formError: string | null;
+  busy: boolean;
+  submitLabel: string;
+  onSubmit: () => void;
+  children: React.ReactNode;
+}) {
+  return (
+    <>
+      {note}
+      <FormError message={formError} testID={`${prefix}-form-error`} />
+      <Button label={submitLabel} busyLabel="Computing" busy={busy} onPress={onSubmit} testID={`${prefix}-compute`} />
+      <Txt variant="small" tone="faint">
+        {children}
+      </Txt>
+    </>
   );
 }

@@ -4,20 +4,18 @@ import { View } from 'react-native';
 import type { z } from 'zod';
 import { ribStudyForm, type KitModel } from '@/db/contracts';
 import { space } from '@/constants/theme';
-import { FormNumberField } from '@/components/forms/form-fields';
+import { NumberRows } from '@/components/forms/number-rows';
 import { plainParse } from '@/components/forms/plain-errors';
-import { Button } from '@/components/ui/button';
 import { Section } from '@/components/ui/sheet';
-import { Notice } from '@/components/ui/states';
-import { Txt } from '@/components/ui/text';
-import { Cell, Row } from './kit-fields';
 import {
   FastenerLinesSection,
   GaugeChips,
   MaterialField,
+  ribPressureAndFlange,
   RivetChips,
   ScheduleFields,
   StudyBasics,
+  StudyFormFoot,
   type StudyFormProps,
 } from './study-form-parts';
 import { kitIntoStudy, studyFieldFor, type StudyFormValues } from './study-form-values';
@@ -58,49 +56,22 @@ export function StudyForm({ kits, defaultValues, isNew, submitLabel, onSubmit, n
       />
 
       <Section title="Rib">
-        <Row>
-          <Cell>
-            <FormNumberField
-              control={control}
-              name="inputs.rib.chordIn"
-              label="Rib chord"
-              quantity="length"
-              testID="study-rib-chord"
-            />
-          </Cell>
-          <Cell>
-            <FormNumberField
-              control={control}
-              name="inputs.rib.spacingIn"
-              label="Rib spacing"
-              quantity="length"
-              hint="The width of skin each rib carries"
-              testID="study-rib-spacing"
-            />
-          </Cell>
-        </Row>
-        <Row>
-          <Cell>
-            <FormNumberField
-              control={control}
-              name="inputs.rib.internalCp"
-              label="Pressure inside the wing"
-              unit="Cp"
-              hint="Blank: 0 (no vents or leaks)"
-              testID="study-internal-cp"
-            />
-          </Cell>
-          <Cell>
-            <FormNumberField
-              control={control}
-              name="inputs.rib.flangeWidthIn"
-              label="Flange width"
-              quantity="length"
-              hint="Blank: 4 rivet diameters"
-              testID="study-flange-width"
-            />
-          </Cell>
-        </Row>
+        <NumberRows
+          control={control}
+          rows={[
+            [
+              { name: 'inputs.rib.chordIn', label: 'Rib chord', quantity: 'length', testID: 'study-rib-chord' },
+              {
+                name: 'inputs.rib.spacingIn',
+                label: 'Rib spacing',
+                quantity: 'length',
+                hint: 'The width of skin each rib carries',
+                testID: 'study-rib-spacing',
+              },
+            ],
+            ribPressureAndFlange<StudyFormValues>('study'),
+          ]}
+        />
       </Section>
 
       <FastenerLinesSection
@@ -130,22 +101,16 @@ export function StudyForm({ kits, defaultValues, isNew, submitLabel, onSubmit, n
         rankLabel="Rank the feasible candidates by"
       />
 
-      {note}
-      {formError ? (
-        <Notice tone="error" testID="study-form-error">
-          {formError}
-        </Notice>
-      ) : null}
-      <Button
-        label={submitLabel}
-        busyLabel="Computing"
+      <StudyFormFoot
+        prefix="study"
+        note={note}
+        formError={formError}
         busy={formState.isSubmitting}
-        onPress={() => void submit()}
-        testID="study-compute"
-      />
-      <Txt variant="small" tone="faint">
+        submitLabel={submitLabel}
+        onSubmit={() => void submit()}
+      >
         The server computes every gauge with every rivet. Stored in inches and pounds whatever units you typed in.
-      </Txt>
+      </StudyFormFoot>
     </View>
   );
 }

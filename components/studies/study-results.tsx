@@ -12,7 +12,7 @@ import { ApplyPanel } from './apply-panel';
 import { LoadPlot } from './load-plot';
 import { PressurePicture } from './pressure-picture';
 import { ResultNotes } from './result-notes';
-import { CandidateTag, DesignFigures, UnreadableResult } from './result-parts';
+import { CandidateTag, DesignFigures, RecommendedLine, UnreadableResult } from './result-parts';
 import {
   findCandidate,
   initialCandidate,
@@ -32,22 +32,12 @@ function Headline({ result, shown }: { result: StudyResult; shown: CandidateKey 
   const feasible = result.trade.filter((r) => r.feasible).length;
   return (
     <Sheet testID="study-headline">
-      {rec ? (
-        <Txt variant="heading" testID="study-recommended">
-          Recommended:{' '}
-          <Mono variant="heading" bold>
-            {u.length(rec.gaugeIn)}
-          </Mono>{' '}
-          with{' '}
-          <Mono variant="heading" bold>
-            {rec.rivet}
-          </Mono>
-        </Txt>
-      ) : (
-        <Txt variant="heading" tone="error" testID="study-recommended">
-          No candidate carries the loads
-        </Txt>
-      )}
+      <RecommendedLine
+        rec={rec}
+        lead="Recommended:"
+        failure="No candidate carries the loads"
+        testID="study-recommended"
+      />
       <Txt variant="small" tone="soft">
         <Mono variant="small">{feasible}</Mono> of <Mono variant="small">{result.trade.length}</Mono> gauge and rivet
         pairs carry the loads

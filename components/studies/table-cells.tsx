@@ -1,6 +1,6 @@
 import { View } from 'react-native';
 import { Button } from '@/components/ui/button';
-import { Mono } from '@/components/ui/text';
+import { Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
 import type { CandidateKey } from './study-result';
 
@@ -45,5 +45,14 @@ export function GaugeOverRivet({ c, testID }: { c: CandidateKey; testID: string 
         {c.rivet}
       </Mono>
     </View>
+  );
+}
+
+/** A table's "does it carry the loads" cell: a plain yes, or a no in red. */
+export function YesNoCell({ yes }: { yes: boolean }) {
+  return (
+    <Txt variant="small" bold tone={yes ? 'ink' : 'error'}>
+      {yes ? '✓ yes' : '✕ no'}
+    </Txt>
   );
 }

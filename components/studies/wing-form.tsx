@@ -14,8 +14,10 @@ import type { z } from 'zod';
 import { wingStudyBody, type KitModel } from '@/db/contracts';
 import { parseNumber } from '@/constants/units';
 import { colors, hairline, space } from '@/constants/theme';
+import { FormError } from '@/components/forms/form-error';
 import { FormChoiceField, FormNumberField, FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
+import { NumberRows, type NumberFieldSpec } from '@/components/forms/number-rows';
 import { errorAt } from '@/components/forms/server-errors';
 import { Button } from '@/components/ui/button';
 import { Choice } from '@/components/ui/choice';
@@ -29,9 +31,11 @@ import {
   FastenerLinesSection,
   GaugeChips,
   MaterialField,
+  ribPressureAndFlange,
   RivetChips,
   ScheduleFields,
   StudyBasics,
+  StudyFormFoot,
   type StudyFormProps,
 } from './study-form-parts';
 import type { StudyFormValues } from './study-form-values';
@@ -94,28 +98,27 @@ export function WingForm({ kits, defaultValues, isNew, submitLabel, onSubmit, no
 
       <Section title="Planform and tail">
         <PlanformFields control={control} setValue={setValue} />
-        <Row>
-          <Cell>
-            <FormNumberField
-              control={control}
-              name="inputs.tail.armIn"
-              label="Tail arm"
-              quantity="length"
-              hint="Wing quarter chord to the tail's"
-              testID="wing-tail-arm"
-            />
-          </Cell>
-          <Cell>
-            <FormNumberField
-              control={control}
-              name="inputs.tail.balancingLoadLb"
-              label="Tail balancing load at VC"
-              quantity="force"
-              hint="Down is positive. Blank: estimated from the section's moment"
-              testID="wing-tail-load"
-            />
-          </Cell>
-        </Row>
+        <NumberRows
+          control={control}
+          rows={[
+            [
+              {
+                name: 'inputs.tail.armIn',
+                label: 'Tail arm',
+                quantity: 'length',
+                hint: "Wing quarter chord to the tail's",
+                testID: 'wing-tail-arm',
+              },
+              {
+                name: 'inputs.tail.balancingLoadLb',
+                label: 'Tail balancing load at VC',
+                quantity: 'force',
+                hint: "Down is positive. Blank: estimated from the section's moment",
+                testID: 'wing-tail-load',
+              },
+            ],
+          ]}
+        />
       </Section>
 
       <RibsFields control={control} setValue={setValue} />
@@ -127,73 +130,52 @@ export function WingForm({ kits, defaultValues, isNew, submitLabel, onSubmit, no
         title="On every rib: fastener lines"
         intro="Where each row of rivets runs on a rib, as fractions of its chord (x/c) from the leading edge."
       >
-        <Row>
-          <Cell>
-            <FormNumberField
-              control={control}
-              name="inputs.rib.internalCp"
-              label="Pressure inside the wing"
-              unit="Cp"
-              hint="Blank: 0 (no vents or leaks)"
-              testID="wing-internal-cp"
-            />
-          </Cell>
-          <Cell>
-            <FormNumberField
-              control={control}
-              name="inputs.rib.flangeWidthIn"
-              label="Flange width"
-              quantity="length"
-              hint="Blank: 4 rivet diameters"
-              testID="wing-flange-width"
-            />
-          </Cell>
-          <Cell>
-            <FormNumberField
-              control={control}
-              name="inputs.rib.skinGaugeIn"
-              label="Skin gauge for the grip"
-              quantity="length"
-              hint="Blank: twice the flange gauge"
-              testID="wing-rib-skin-gauge"
-            />
-          </Cell>
-        </Row>
+        <NumberRows
+          control={control}
+          rows={[
+            [
+              ...ribPressureAndFlange<WingFormValues>('wing'),
+              {
+                name: 'inputs.rib.skinGaugeIn',
+                label: 'Skin gauge for the grip',
+                quantity: 'length',
+                hint: 'Blank: twice the flange gauge',
+                testID: 'wing-rib-skin-gauge',
+              },
+            ],
+          ]}
+        />
       </FastenerLinesSection>
 
       <Section title="Spars and skin">
-        <Row>
-          <Cell>
-            <FormNumberField
-              control={control}
-              name="inputs.spars.frontXc"
-              label="Front spar at"
-              unit="x/c"
-              hint="0.05 to 0.5"
-              testID="wing-front-spar"
-            />
-          </Cell>
-          <Cell>
-            <FormNumberField
-              control={control}
-              name="inputs.spars.rearXc"
-              label="Rear spar at"
-              unit="x/c"
-              hint="0.2 to 0.9"
-              testID="wing-rear-spar"
-            />
-          </Cell>
-          <Cell>
-            <FormNumberField
-              control={control}
-              name="inputs.spars.capAreaSqIn"
-              label="Spar-cap area, one surface"
-              unit="in²"
-              hint="Both caps. Blank: the skin alone carries the bending"
-              testID="wing-cap-area"
-            />
-          </Cell>
-        </Row>
+        <NumberRows
+          control={control}
+          rows={[
+            [
+              {
+                name: 'inputs.spars.frontXc',
+                label: 'Front spar at',
+                unit: 'x/c',
+                hint: '0.05 to 0.5',
+                testID: 'wing-front-spar',
+              },
+              {
+                name: 'inputs.spars.rearXc',
+                label: 'Rear spar at',
+                unit: 'x/c',
+                hint: '0.2 to 0.9',
+                testID: 'wing-rear-spar',
+              },
+              {
+                name: 'inputs.spars.capAreaSqIn',
+                label: 'Spar-cap area, one surface',
+                unit: 'in²',
+                hint: 'Both caps. Blank: the skin alone carries the bending',
+                testID: 'wing-cap-area',
+              },
+            ],
+          ]}
+        />
         <GaugeChips
           control={control}
           name="inputs.skin.gaugeCandidates"
@@ -248,28 +230,54 @@ export function WingForm({ kits, defaultValues, isNew, submitLabel, onSubmit, no
         rankLabel="Rank each rib's feasible candidates by"
       />
 
-      {note}
-      {formError ? (
-        <Notice tone="error" testID="wing-form-error">
-          {formError}
-        </Notice>
-      ) : null}
-      <Button
-        label={submitLabel}
-        busyLabel="Computing"
+      <StudyFormFoot
+        prefix="wing"
+        note={note}
+        formError={formError}
         busy={formState.isSubmitting}
-        onPress={() => void submit()}
-        testID="wing-compute"
-      />
-      <Txt variant="small" tone="faint">
+        submitLabel={submitLabel}
+        onSubmit={() => void submit()}
+      >
         The server computes every rib and every skin panel with every candidate; a wing takes longer than one rib.
         Stored in inches and pounds whatever units you typed in ({units.label('length')}).
-      </Txt>
+      </StudyFormFoot>
     </View>
   );
 }
 
 type Ctl = Control<WingFormValues>;
+
+// The chords' paths hold only for one kind of planform: typed as paths of the form, as the field is shown.
+const chordPath = (p: string) => p as FieldPath<WingFormValues>;
+
+/** The span, then the chord of a rectangle or the root and tip chords of a taper. */
+const planformRow = (kind: 'rectangle' | 'tapered'): NumberFieldSpec<WingFormValues>[] => [
+  { name: 'inputs.planform.spanIn', label: 'Span, tip to tip', quantity: 'length', testID: 'wing-span' },
+  ...(kind === 'rectangle'
+    ? [
+        {
+          name: chordPath('inputs.planform.chordIn'),
+          label: 'Chord',
+          quantity: 'length',
+          testID: 'wing-chord',
+        } as const,
+      ]
+    : ([
+        {
+          name: chordPath('inputs.planform.rootChordIn'),
+          label: 'Root chord',
+          quantity: 'length',
+          testID: 'wing-root-chord',
+        },
+        {
+          name: chordPath('inputs.planform.tipChordIn'),
+          label: 'Tip chord',
+          quantity: 'length',
+          hint: '0.1 to 1 times the root chord',
+          testID: 'wing-tip-chord',
+        },
+      ] as const)),
+];
 
 /** Rectangle or straight taper; switching keeps the span and carries the chord across. */
 function PlanformFields({ control, setValue }: { control: Ctl; setValue: UseFormSetValue<WingFormValues> }) {
@@ -313,50 +321,7 @@ function PlanformFields({ control, setValue }: { control: Ctl; setValue: UseForm
           ]}
         />
       </Field>
-      <Row>
-        <Cell>
-          <FormNumberField
-            control={control}
-            name="inputs.planform.spanIn"
-            label="Span, tip to tip"
-            quantity="length"
-            testID="wing-span"
-          />
-        </Cell>
-        {kind === 'rectangle' ? (
-          <Cell>
-            <FormNumberField
-              control={control}
-              name={'inputs.planform.chordIn' as FieldPath<WingFormValues>}
-              label="Chord"
-              quantity="length"
-              testID="wing-chord"
-            />
-          </Cell>
-        ) : (
-          <>
-            <Cell>
-              <FormNumberField
-                control={control}
-                name={'inputs.planform.rootChordIn' as FieldPath<WingFormValues>}
-                label="Root chord"
-                quantity="length"
-                testID="wing-root-chord"
-              />
-            </Cell>
-            <Cell>
-              <FormNumberField
-                control={control}
-                name={'inputs.planform.tipChordIn' as FieldPath<WingFormValues>}
-                label="Tip chord"
-                quantity="length"
-                hint="0.1 to 1 times the root chord"
-                testID="wing-tip-chord"
-              />
-            </Cell>
-          </>
-        )}
-      </Row>
+      <NumberRows control={control} rows={[planformRow(kind)]} />
     </View>
   );
 }
@@ -480,11 +445,7 @@ function RibsFields({ control, setValue }: { control: Ctl; setValue: UseFormSetV
               </Field>
             </Cell>
           </Row>
-          {helperError ? (
-            <Notice tone="error" testID="wing-even-error">
-              {helperError}
-            </Notice>
-          ) : null}
+          <FormError message={helperError} testID="wing-even-error" />
           <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
             <Button label="Replace the ribs" compact onPress={spread} testID="wing-even-apply" />
             <Button label="Cancel" variant="quiet" compact onPress={() => setHelper(null)} testID="wing-even-cancel" />
@@ -593,27 +554,26 @@ function FlapsFields({ control, setValue }: { control: Ctl; setValue: UseFormSet
         />
       </Field>
       {on ? (
-        <Row>
-          <Cell>
-            <FormNumberField
-              control={control}
-              name="inputs.flaps.stallSpeedKeas"
-              label="Stall speed, flaps extended"
-              unit="KEAS"
-              testID="wing-flaps-stall"
-            />
-          </Cell>
-          <Cell>
-            <FormNumberField
-              control={control}
-              name="inputs.flaps.designSpeedKeas"
-              label="Flap design speed"
-              unit="KEAS"
-              hint="Blank: the rule minimum"
-              testID="wing-flaps-speed"
-            />
-          </Cell>
-        </Row>
+        <NumberRows
+          control={control}
+          rows={[
+            [
+              {
+                name: 'inputs.flaps.stallSpeedKeas',
+                label: 'Stall speed, flaps extended',
+                unit: 'KEAS',
+                testID: 'wing-flaps-stall',
+              },
+              {
+                name: 'inputs.flaps.designSpeedKeas',
+                label: 'Flap design speed',
+                unit: 'KEAS',
+                hint: 'Blank: the rule minimum',
+                testID: 'wing-flaps-speed',
+              },
+            ],
+          ]}
+        />
       ) : null}
     </View>
   );

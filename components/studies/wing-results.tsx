@@ -10,7 +10,7 @@ import { Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
 import { ResultNotes } from './result-notes';
-import { CandidateTag, DesignFigures, UnreadableResult } from './result-parts';
+import { CandidateTag, DesignFigures, RecommendedLine, UnreadableResult } from './result-parts';
 import { SkinCandidates, SkinPanelTable } from './skin-panel-table';
 import { forceNumber } from './study-numbers';
 import { sameCandidate, type CandidateKey } from './study-result';
@@ -28,22 +28,12 @@ function Headline({ result }: { result: WingResult }) {
   const p = result.planform;
   return (
     <Sheet testID="wing-headline">
-      {rec ? (
-        <Txt variant="heading" testID="wing-recommended">
-          Every rib:{' '}
-          <Mono variant="heading" bold>
-            {u.length(rec.gaugeIn)}
-          </Mono>{' '}
-          with{' '}
-          <Mono variant="heading" bold>
-            {rec.rivet}
-          </Mono>
-        </Txt>
-      ) : (
-        <Txt variant="heading" tone="error" testID="wing-recommended">
-          No one gauge and rivet carries every rib
-        </Txt>
-      )}
+      <RecommendedLine
+        rec={rec}
+        lead="Every rib:"
+        failure="No one gauge and rivet carries every rib"
+        testID="wing-recommended"
+      />
       <Txt variant="small" testID="wing-carried">
         <Mono variant="small" bold>
           {carried}

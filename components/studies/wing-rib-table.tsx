@@ -4,7 +4,7 @@ import { GridTable } from '@/components/ui/grid-table';
 import { Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
 import { forceNumber, momentNumber, momentUnit, shearFlowNumber, shearFlowUnit } from './study-numbers';
-import { GaugeOverRivet, RowPickButton } from './table-cells';
+import { GaugeOverRivet, RowPickButton, YesNoCell } from './table-cells';
 import { idPart, type WingCondition, type WingRib } from './wing-result';
 
 // Wide enough for the longest value of each column in the 15 px mono (9 px a character: a 6-digit moment,
@@ -89,11 +89,7 @@ export function WingRibTable({
                   none
                 </Txt>
               ),
-              ok: (
-                <Txt variant="small" bold tone={rec ? 'ink' : 'error'}>
-                  {rec ? '✓ yes' : '✕ no'}
-                </Txt>
-              ),
+              ok: <YesNoCell yes={!!rec} />,
             },
           };
         })}

@@ -4,6 +4,7 @@ import { GridTable } from '@/components/ui/grid-table';
 import { Sheet } from '@/components/ui/sheet';
 import { Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
+import { YesNoCell } from './table-cells';
 import { partWeight } from './study-numbers';
 import { sameCandidate } from './study-result';
 import type { WingResult } from './wing-result';
@@ -82,11 +83,7 @@ export function WingTradeTable({ trade }: { trade: WingResult['trade'] }) {
                   {u.length(r.gaugeIn)} · {r.rivet}
                 </Mono>
               ),
-              ok: (
-                <Txt variant="small" bold tone={r.feasible ? 'ink' : 'error'}>
-                  {r.feasible ? '✓ yes' : '✕ no'}
-                </Txt>
-              ),
+              ok: <YesNoCell yes={r.feasible} />,
               bad: r.infeasibleRibs.length ? (
                 <Mono variant="small" tone="error">
                   {r.infeasibleRibs.join(', ')}
