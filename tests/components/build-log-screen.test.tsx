@@ -4,6 +4,7 @@ import type { BuildLogPage, BuildLogEntry } from '@/db/contracts';
 import { BuildLogScreen } from '@/components/build-log/build-log-screen';
 import { buildLogKeys } from '@/hooks/queries/build-log';
 import { SessionProvider } from '@/hooks/use-session';
+import { logEntry } from '../fixtures/build-log';
 import { renderWeb } from './render-web';
 
 const mockPush = jest.fn();
@@ -11,21 +12,8 @@ jest.mock('expo-router', () => ({
   useRouter: () => ({ push: mockPush, replace: jest.fn(), back: jest.fn(), canGoBack: () => false }),
 }));
 
-const entry = (over: Partial<BuildLogEntry>): BuildLogEntry => ({
-  id: 't:1',
-  at: '2026-11-03T15:00:00.000Z',
-  actorName: 'Tobias Fenn',
-  actorRole: 'builder',
-  kind: 'holes_installed',
-  group: 'bench',
-  travelerId: 'inner',
-  travelerSerial: 'NK2-0147-W-104',
-  partNumber: 'W-104',
-  partName: 'Wing rib, inboard',
-  text: 'Installed 8 holes: U-01 to U-08.',
-  holeIds: ['U-01'],
-  ...over,
-});
+const entry = (over: Partial<BuildLogEntry>): BuildLogEntry =>
+  logEntry({ text: 'Installed 8 holes: U-01 to U-08.', holeIds: ['U-01'], ...over });
 
 const flag = entry({
   id: 'f:1',

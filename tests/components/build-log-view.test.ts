@@ -9,22 +9,10 @@ import {
   logRows,
   noLogFilters,
 } from '@/components/build-log/log-view';
+import { logEntry } from '../fixtures/build-log';
 
-const e = (over: Partial<BuildLogEntry>): BuildLogEntry => ({
-  id: Math.random().toString(36).slice(2),
-  at: '2026-11-03T15:00:00.000Z',
-  actorName: 'Tobias Fenn',
-  actorRole: 'builder',
-  kind: 'holes_installed',
-  group: 'bench',
-  travelerId: 'inner',
-  travelerSerial: 'NK2-0147-W-104',
-  partNumber: 'W-104',
-  partName: 'Wing rib, inboard',
-  text: 'Installed 2 holes: U-01, U-02.',
-  holeIds: ['U-01', 'U-02'],
-  ...over,
-});
+const e = (over: Partial<BuildLogEntry>): BuildLogEntry =>
+  logEntry({ id: Math.random().toString(36).slice(2), ...over });
 
 // Newest first, as the server sends them.
 const log = [

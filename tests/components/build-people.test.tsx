@@ -3,9 +3,7 @@ import { BuildScreen } from '@/components/builds/build-screen';
 import { buildKeys, type BuildPage } from '@/hooks/queries/builds';
 import { buildPeople, owner, recordFetch, wrapSignedIn } from './people-fixtures';
 
-jest.mock('expo-router', () => ({
-  useRouter: () => ({ push: jest.fn(), replace: jest.fn(), back: jest.fn(), canGoBack: () => false }),
-}));
+jest.mock('expo-router', () => jest.requireActual('../helpers/expo-router-stub'));
 
 const BUILD = 'b-1';
 const page = (people: BuildPeople): BuildPage => ({

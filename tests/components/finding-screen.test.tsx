@@ -85,9 +85,10 @@ describe('the disposition form', () => {
     },
   });
 
-  it('demands an override reason after a failed check, and sends one request with it', async () => {
+  /** The inspector chooses a repair with the next-size rivet (MS20470AD5); the server's check answers `check`. */
+  async function nextSizeChosen(check: typeof failedCheck) {
     const calls = recordFetch({
-      '/repair-check': { body: failedCheck },
+      '/repair-check': { body: check },
       '/disposition': (sent) => ({ body: decided(sent as Record<string, unknown>) }),
     });
     const r = show(finding);
@@ -95,6 +96,11 @@ describe('the disposition form', () => {
     await r.press('disposition-repair');
     await r.press('repair-scheme-oversize_rivet');
     await r.press('repair-rivet-MS20470AD5');
+    return { calls, r };
+  }
+
+  it('demands an override reason after a failed check, and sends one request with it', async () => {
+    const { calls, r } = await nextSizeChosen(failedCheck);
     expect(r.queryByTestId('override-reason')).toBeNull();
     await r.press('repair-rivet-check');
 
@@ -133,15 +139,7 @@ describe('the disposition form', () => {
   });
 
   it('asks for no reason when the check passed', async () => {
-    const calls = recordFetch({
-      '/repair-check': { body: passedCheck },
-      '/disposition': (sent) => ({ body: decided(sent as Record<string, unknown>) }),
-    });
-    const r = show(finding);
-    await r.settle();
-    await r.press('disposition-repair');
-    await r.press('repair-scheme-oversize_rivet');
-    await r.press('repair-rivet-MS20470AD5');
+    const { calls, r } = await nextSizeChosen(passedCheck);
     await r.press('repair-rivet-check');
     expect(r.queryByTestId('override-reason')).toBeNull();
     await r.type('action-note', 'Drill to #21 and fit MS20470AD5');

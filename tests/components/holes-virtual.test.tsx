@@ -9,9 +9,7 @@ import { recordFetch, wrap } from './finding-fixtures';
 // The traveler screen takes seconds to render in jsdom on a loaded machine; this is a ceiling, not a measure.
 jest.setTimeout(120_000);
 
-jest.mock('expo-router', () => ({
-  useRouter: () => ({ push: jest.fn(), replace: jest.fn(), back: jest.fn(), canGoBack: () => false }),
-}));
+jest.mock('expo-router', () => jest.requireActual('../helpers/expo-router-stub'));
 
 /**
  * A supplier-sized part: 2,000 holes on four lines at 1 in pitch (invented, like the demo data). Ids

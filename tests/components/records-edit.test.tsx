@@ -8,15 +8,7 @@ import { designKeys } from '@/hooks/queries/designs';
 import { flangeLine, ribRevision } from '../fixtures/rib-revision';
 import { buildPeople, lead, recordFetch, wrapSignedIn } from './people-fixtures';
 
-jest.mock('expo-router', () => ({
-  useRouter: () => ({
-    push: jest.fn(),
-    replace: jest.fn(),
-    back: jest.fn(),
-    dismissTo: jest.fn(),
-    canGoBack: () => false,
-  }),
-}));
+jest.mock('expo-router', () => jest.requireActual('../helpers/expo-router-stub'));
 
 const revision = (over: Partial<Revision> = {}): Revision => ({
   id: 'r-b',

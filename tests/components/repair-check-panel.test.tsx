@@ -2,9 +2,7 @@ import { RepairCheckPanel, formatMargin } from '@/components/findings/repair-che
 import type { RepairCheckResult } from '@/hooks/queries/findings';
 import { failedCheck, finding, passedCheck, recordFetch, wrap } from './finding-fixtures';
 
-jest.mock('expo-router', () => ({
-  useRouter: () => ({ push: jest.fn(), replace: jest.fn(), back: jest.fn(), canGoBack: () => false }),
-}));
+jest.mock('expo-router', () => jest.requireActual('../helpers/expo-router-stub'));
 
 const show = (f = finding, system: 'imperial' | 'metric' = 'imperial') =>
   wrap(<RepairCheckPanel f={f} />, { finding: f }, system);

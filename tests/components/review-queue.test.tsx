@@ -5,15 +5,7 @@ import { ReviewQueueScreen } from '@/components/findings/review-queue-screen';
 import { MyFindingsScreen } from '@/components/findings/my-findings-screen';
 import { wrap } from './finding-fixtures';
 
-jest.mock('expo-router', () => ({
-  useRouter: () => ({
-    push: jest.fn(),
-    replace: jest.fn(),
-    back: jest.fn(),
-    dismissTo: jest.fn(),
-    canGoBack: () => false,
-  }),
-}));
+jest.mock('expo-router', () => jest.requireActual('../helpers/expo-router-stub'));
 jest.mock('@/hooks/use-wide', () => ({ useWide: () => false }));
 
 const summary = (over: Partial<FindingSummary>): FindingSummary => ({

@@ -17,15 +17,7 @@ jest.mock('expo-image-picker', () => ({
   launchCameraAsync: jest.fn(),
   requestCameraPermissionsAsync: jest.fn(async () => ({ granted: true })),
 }));
-jest.mock('expo-router', () => ({
-  useRouter: () => ({
-    push: jest.fn(),
-    replace: jest.fn(),
-    back: jest.fn(),
-    dismissTo: jest.fn(),
-    canGoBack: () => false,
-  }),
-}));
+jest.mock('expo-router', () => jest.requireActual('../helpers/expo-router-stub'));
 jest.mock('@/hooks/use-wide', () => ({ useWide: () => false }));
 
 const library = ImagePicker.launchImageLibraryAsync as jest.Mock;

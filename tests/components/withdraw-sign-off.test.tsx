@@ -3,9 +3,7 @@ import { TravelerScreen } from '@/components/travelers/traveler-screen';
 import { holeU, standardTraveler } from '../fixtures/traveler';
 import { recordFetch, wrap } from './finding-fixtures';
 
-jest.mock('expo-router', () => ({
-  useRouter: () => ({ push: jest.fn(), replace: jest.fn(), back: jest.fn(), canGoBack: () => false }),
-}));
+jest.mock('expo-router', () => jest.requireActual('../helpers/expo-router-stub'));
 
 const signed: TravelerDetail = {
   ...standardTraveler,

@@ -1,10 +1,10 @@
 import type { Browser, Page } from 'playwright-core';
 import request from 'supertest';
 import sharp from 'sharp';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
 import type { TestApp } from '../helpers/test-app';
-import { launchBrowser, phonePage } from './helpers/browser';
-import { serveTestApp } from './helpers/served-app';
+import { fillSignIn, phonePage } from './helpers/browser';
+import { servedWithBrowser } from './helpers/served-app';
 
 /**
  * In Debian's headless Chromium against the real server: the development mail page shows what the SMTP
@@ -15,15 +15,13 @@ jest.setTimeout(300_000);
 
 let t: TestApp;
 let base: string;
-let closeApp: () => Promise<void>;
 let browser: Browser;
 let subject: string;
 
 const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 
+servedWithBrowser((s) => ({ t, base, browser } = s));
 beforeAll(async () => {
-  ({ t, base, close: closeApp } = await serveTestApp());
-  browser = await launchBrowser();
   // A finding raised with a photo, so that the inspector's mail carries it.
   const tok = await t.tokens();
   const list = await request(t.app).get('/api/travelers').set(auth(tok.builder));
@@ -45,16 +43,10 @@ beforeAll(async () => {
     await t.waitForMail((m) => m.to.includes(DEMO_USERS.inspector.email) && m.subject.includes(`hole ${hole.holeId}`))
   ).subject;
 });
-afterAll(async () => {
-  await browser?.close().catch(() => undefined);
-  await closeApp?.();
-});
 
 async function signIn(page: Page, email: string) {
   await page.goto('/');
-  await page.getByTestId('email').fill(email);
-  await page.getByTestId('password').fill(DEMO_PASSWORD);
-  await page.getByTestId('sign-in').click();
+  await fillSignIn(page, email);
   await page.getByTestId('screen-title').first().waitFor();
 }
 

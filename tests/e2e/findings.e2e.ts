@@ -4,10 +4,12 @@ import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import sharp from 'sharp';
 import request from 'supertest';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
+import { smallKits } from '../fixtures/rib-revision';
+import { publishSmallKit, shipBuild, workPart } from '../helpers/small-kit';
 import type { TestApp } from '../helpers/test-app';
-import { launchBrowser, phonePage } from './helpers/browser';
-import { serveTestApp } from './helpers/served-app';
+import { fillSignIn, phonePage } from './helpers/browser';
+import { servedWithBrowser } from './helpers/served-app';
 
 /**
  * A finding's whole life through the screens at phone size, in Debian's headless Chromium against the
@@ -19,7 +21,6 @@ jest.setTimeout(420_000);
 
 let t: TestApp;
 let base: string;
-let closeApp: () => Promise<void>;
 let browser: Browser;
 let photo: string;
 let kitId: string;
@@ -28,9 +29,8 @@ let serial = 0;
 const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 const visible = (page: Page, id: string) => page.locator(`[data-testid="${id}"]:visible`).first();
 
+servedWithBrowser((s) => ({ t, base, browser } = s));
 beforeAll(async () => {
-  ({ t, base, close: closeApp } = await serveTestApp());
-  browser = await launchBrowser();
   const dir = await mkdtemp(path.join(os.tmpdir(), 'pc-e2e-findings-'));
   photo = path.join(dir, 'work.jpg');
   await writeFile(
@@ -39,58 +39,7 @@ beforeAll(async () => {
       .jpeg()
       .toBuffer(),
   );
-  const supplier = await t.signIn(DEMO_USERS.supplier.email);
-  kitId = (
-    await request(t.app).post('/api/kits').set(auth(supplier)).send({
-      code: 'FE-1',
-      name: 'Finding walk kit',
-      weightLb: 1200,
-      wingAreaSqFt: 110,
-      meanChordIn: 50,
-      stallSpeedKeas: 45,
-      category: 'normal',
-      airfoil: 'NACA 2412',
-    })
-  ).body.id;
-  const design = await request(t.app)
-    .post('/api/designs')
-    .set(auth(supplier))
-    .send({
-      design: { kitModelId: kitId, partNumber: 'FE-R1', name: 'Walk rib', kind: 'rib' },
-      revision: {
-        material: '6061-T6',
-        gaugeIn: 0.032,
-        rivetSpec: 'MS20470AD4',
-        drillSize: '#30',
-        drillDiameterIn: 0.1285,
-        edgeDistanceIn: 0.25,
-        chordIn: 10,
-        lines: [
-          {
-            code: 'U',
-            name: 'Upper flange',
-            surface: 'upper',
-            startIn: 1,
-            lengthIn: 4,
-            zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }],
-          },
-          {
-            code: 'L',
-            name: 'Lower flange',
-            surface: 'lower',
-            startIn: 1,
-            lengthIn: 4,
-            zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }],
-          },
-        ],
-        steps: ['Rivet both flanges'],
-      },
-    });
-  await request(t.app).post(`/api/revisions/${design.body.revisions[0].id}/publish`).set(auth(supplier)).send({});
-});
-afterAll(async () => {
-  await browser?.close().catch(() => undefined);
-  await closeApp?.();
+  kitId = await publishSmallKit(t, await t.signIn(DEMO_USERS.supplier.email), smallKits.findingWalk);
 });
 
 /** A freshly shipped build of the walk kit: its one part, with every hole but `except` riveted and its step done. */
@@ -98,33 +47,15 @@ async function part(except: string[]) {
   const supplier = await t.signIn(DEMO_USERS.supplier.email);
   const builder = await t.signIn(DEMO_USERS.builder.email);
   const kitSerial = `FE-${++serial}-${Date.now().toString(36).slice(-4).toUpperCase()}`;
-  const build = await request(t.app).post('/api/builds').set(auth(supplier)).send({
-    kitModelId: kitId,
-    kitSerial,
-    builderEmail: DEMO_USERS.builder.email,
-    inspectorEmail: DEMO_USERS.inspector.email,
-  });
-  const travelerId = (await request(t.app).get(`/api/builds/${build.body.id}`).set(auth(supplier))).body.travelers[0]
-    .id as string;
-  const d = (await request(t.app).get(`/api/travelers/${travelerId}`).set(auth(builder))).body;
-  const ids = d.holes.map((h: { holeId: string }) => h.holeId).filter((h: string) => !except.includes(h));
-  await request(t.app)
-    .post(`/api/travelers/${travelerId}/holes`)
-    .set(auth(builder))
-    .send({ holeIds: ids, status: 'installed' });
-  await request(t.app)
-    .post(`/api/travelers/${travelerId}/steps/${d.steps[0].id}`)
-    .set(auth(builder))
-    .send({ done: true });
-  return { travelerId, kitSerial, buildId: build.body.id as string };
+  const { buildId, travelerId } = await shipBuild(t, supplier, kitId, kitSerial);
+  await workPart(t, builder, travelerId, except);
+  return { travelerId, kitSerial, buildId };
 }
 
 async function signedIn(email: string, at = '/') {
   const page = await phonePage(browser, base);
   await page.goto(at);
-  await page.getByTestId('email').fill(email);
-  await page.getByTestId('password').fill(DEMO_PASSWORD);
-  await page.getByTestId('sign-in').click();
+  await fillSignIn(page, email);
   return page;
 }
 

@@ -3,8 +3,8 @@ import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
 import { readQr } from '../fixtures/read-qr';
 import type { TestApp } from '../helpers/test-app';
-import { launchBrowser, phonePage } from './helpers/browser';
-import { serveTestApp } from './helpers/served-app';
+import { fillSignIn, phonePage } from './helpers/browser';
+import { servedWithBrowser } from './helpers/served-app';
 
 /**
  * QR labels in a real browser: a builder reprints one part's label from its traveler; the supplier prints
@@ -14,23 +14,13 @@ jest.setTimeout(300_000);
 
 let t: TestApp;
 let base: string;
-let closeApp: () => Promise<void>;
 let browser: Browser;
 
-beforeAll(async () => {
-  ({ t, base, close: closeApp } = await serveTestApp());
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close().catch(() => undefined);
-  await closeApp?.();
-});
+servedWithBrowser((s) => ({ t, base, browser } = s));
 
 async function signIn(page: Page, email: string) {
   await page.goto('/');
-  await page.getByTestId('email').fill(email);
-  await page.getByTestId('password').fill(DEMO_PASSWORD);
-  await page.getByTestId('sign-in').click();
+  await fillSignIn(page, email);
 }
 
 /**

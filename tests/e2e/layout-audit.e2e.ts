@@ -98,6 +98,17 @@ function measureLayout(opts: { appFonts: string[]; minTarget: number }): LayoutF
   const clipOf = (el: Element) => {
     const box: Box = { left: -Infinity, right: Infinity, top: -Infinity, bottom: Infinity };
     const by: Partial<Record<keyof Box, Element>> = {};
+    /** Narrows the box between sides `lo` and `hi` to ancestor `a`'s padding box `b`, noting `a` where it clips. */
+    const narrow = (a: Element, b: Box, lo: 'left' | 'top', hi: 'right' | 'bottom') => {
+      if (b[lo] > box[lo]) {
+        box[lo] = b[lo];
+        by[lo] = a;
+      }
+      if (b[hi] < box[hi]) {
+        box[hi] = b[hi];
+        by[hi] = a;
+      }
+    };
     let x = true;
     let y = true;
     // The page's own <html> and <body> are the screen itself, not a box on it.
@@ -106,26 +117,8 @@ function measureLayout(opts: { appFonts: string[]; minTarget: number }): LayoutF
       if (x && scrolls(s.overflowX)) x = false;
       if (y && scrolls(s.overflowY)) y = false;
       const b = paddingBox(a);
-      if (x && clips(s.overflowX)) {
-        if (b.left > box.left) {
-          box.left = b.left;
-          by.left = a;
-        }
-        if (b.right < box.right) {
-          box.right = b.right;
-          by.right = a;
-        }
-      }
-      if (y && clips(s.overflowY)) {
-        if (b.top > box.top) {
-          box.top = b.top;
-          by.top = a;
-        }
-        if (b.bottom < box.bottom) {
-          box.bottom = b.bottom;
-          by.bottom = a;
-        }
-      }
+      if (x && clips(s.overflowX)) narrow(a, b, 'left', 'right');
+      if (y && clips(s.overflowY)) narrow(a, b, 'top', 'bottom');
     }
     return { box, by, scrollsSideways: !x };
   };

@@ -1,9 +1,9 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import request from 'supertest';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
 import type { TestApp } from '../helpers/test-app';
-import { launchBrowser, phonePage } from './helpers/browser';
-import { serveTestApp } from './helpers/served-app';
+import { fillSignIn, phonePage } from './helpers/browser';
+import { servedWithBrowser } from './helpers/served-app';
 
 /**
  * Links that arrive from outside (a mail's link to a finding, a QR label) opened by someone signed out,
@@ -14,17 +14,9 @@ jest.setTimeout(180_000);
 
 let t: TestApp;
 let base: string;
-let closeApp: () => Promise<void>;
 let browser: Browser;
 
-beforeAll(async () => {
-  ({ t, base, close: closeApp } = await serveTestApp());
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close().catch(() => undefined);
-  await closeApp?.();
-});
+servedWithBrowser((s) => ({ t, base, browser } = s));
 
 const pendingKey = 'pitchcard.pending-link';
 
@@ -38,11 +30,7 @@ async function api<T>(email: string, path: string): Promise<T> {
 }
 
 /** The sign-in form, filled and sent, on whatever page the guard showed it. */
-async function signInHere(page: Page, email: string) {
-  await page.getByTestId('email').fill(email);
-  await page.getByTestId('password').fill(DEMO_PASSWORD);
-  await page.getByTestId('sign-in').click();
-}
+const signInHere = fillSignIn;
 
 describe('a link opened while signed out opens after sign-in', () => {
   it('a mail’s link to a finding: sign-in says what will open, survives a reload, then shows that finding', async () => {

@@ -1,4 +1,5 @@
 import { inflateSync } from 'node:zlib';
+import type request from 'supertest';
 
 /**
  * The text a PDF shows, one string per text-showing operator (TJ/Tj), in the order its content streams
@@ -91,3 +92,10 @@ export function pdfTextRuns(pdf: Buffer): string[] {
 
 /** The runs joined by spaces, white space folded: for "contains" and "comes before" checks. */
 export const pdfText = (pdf: Buffer) => pdfTextRuns(pdf).join(' ').replace(/\s+/g, ' ');
+
+/** A supertest parser that keeps the body as bytes (a PDF): `.buffer(true).parse(binaryBody)`. */
+export const binaryBody = (r: request.Response, cb: (err: Error | null, body: Buffer) => void) => {
+  const c: Buffer[] = [];
+  r.on('data', (d: Buffer) => c.push(d));
+  r.on('end', () => cb(null, Buffer.concat(c)));
+};

@@ -138,3 +138,25 @@ export async function startTestApp(
     },
   };
 }
+
+export type Tokens = Awaited<ReturnType<TestApp['tokens']>>;
+
+/** The header that carries a bearer token. */
+export const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
+
+/**
+ * For a test file on the demo: the app started before its tests and closed after them (its study
+ * threads too); `take` receives it, the demo people's tokens and the id of the supplier's first kit model.
+ */
+export function demoAppWithKit(take: (s: { t: TestApp; tok: Tokens; kitModelId: string }) => void) {
+  let t: TestApp | undefined;
+  beforeAll(async () => {
+    t = await startTestApp();
+    const tok = await t.tokens();
+    const kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items[0].id as string;
+    take({ t, tok, kitModelId });
+  });
+  afterAll(async () => {
+    await t?.close();
+  });
+}

@@ -26,6 +26,36 @@ async function savedCounts() {
   return { findings: f.n, photos: p.n, files: files.length };
 }
 
+/** A finding on `holeId` of the demo part, as the builder raises it: the test attaches what it sends. */
+const raiseOn = (holeId: string) =>
+  request(t.app)
+    .post('/api/findings')
+    .set(auth(tok.builder))
+    .field('travelerId', travelerId)
+    .field('holeIds', JSON.stringify([holeId]))
+    .field('kind', 'hole_oversize')
+    .field('note', 'looks big');
+
+/**
+ * A rib design for the demo's first kit: the standard revision changed by `over`, its one line named
+ * 'Upper' with these `zones`, and no steps (JSON leaves an undefined out).
+ */
+async function postRib(partNumber: string, name: string, over: object, zones: Parameters<typeof flangeLine>[2]) {
+  const kits = await request(t.app).get('/api/kits').set(auth(tok.supplier));
+  return request(t.app)
+    .post('/api/designs')
+    .set(auth(tok.supplier))
+    .send({
+      design: { kitModelId: kits.body.items[0].id, partNumber, name, kind: 'rib' },
+      revision: {
+        ...ribRevision,
+        ...over,
+        lines: [{ ...flangeLine('U', 30, zones), name: 'Upper' }],
+        steps: undefined,
+      },
+    });
+}
+
 beforeAll(async () => {
   t = await startTestApp();
   tok = await t.tokens();
@@ -66,56 +96,22 @@ describe('bad input gets a clear error and saves nothing', () => {
   });
 
   it('refuses pitch zones with a gap and names the zone', async () => {
-    const kits = await request(t.app).get('/api/kits').set(auth(tok.supplier));
-    const res = await request(t.app)
-      .post('/api/designs')
-      .set(auth(tok.supplier))
-      .send({
-        design: { kitModelId: kits.body.items[0].id, partNumber: 'X-1', name: 'gappy', kind: 'rib' },
-        // The standard revision with a gap between its zones (and no steps: JSON leaves an undefined out).
-        revision: {
-          ...ribRevision,
-          lines: [
-            {
-              ...flangeLine('U', 30, [
-                { fromIn: 0, toIn: 10, pitchIn: 1 },
-                { fromIn: 12, toIn: 30, pitchIn: 2 },
-              ]),
-              name: 'Upper',
-            },
-          ],
-          steps: undefined,
-        },
-      });
+    // The standard revision with a gap between its zones.
+    const res = await postRib('X-1', 'gappy', {}, [
+      { fromIn: 0, toIn: 10, pitchIn: 1 },
+      { fromIn: 12, toIn: 30, pitchIn: 2 },
+    ]);
     expect(res.status).toBe(400);
     expect(res.body.error.fields['revision.lines.0.zones.1.fromIn']).toMatch(/without gaps/);
   });
 
   it('refuses a pitch under 3D and an edge distance under 2D for a catalogue rivet', async () => {
     // FAA AC 43.13-1B ch. 4: pitch ≥ 3D, edge distance ≥ 2D; MS20470AD4 is 1/8 in, so 0.375 and 0.25 in.
-    const kits = await request(t.app).get('/api/kits').set(auth(tok.supplier));
-    const res = await request(t.app)
-      .post('/api/designs')
-      .set(auth(tok.supplier))
-      .send({
-        design: { kitModelId: kits.body.items[0].id, partNumber: 'X-2', name: 'tight', kind: 'rib' },
-        // The standard revision too tight: 0.3 in pitch and 0.2 in edge distance (no steps, as above).
-        revision: {
-          ...ribRevision,
-          rivetSpec: 'MS20470AD4-4',
-          edgeDistanceIn: 0.2,
-          lines: [
-            {
-              ...flangeLine('U', 30, [
-                { fromIn: 0, toIn: 10, pitchIn: 0.3 },
-                { fromIn: 10, toIn: 30, pitchIn: 2 },
-              ]),
-              name: 'Upper',
-            },
-          ],
-          steps: undefined,
-        },
-      });
+    // The standard revision too tight: 0.3 in pitch and 0.2 in edge distance.
+    const res = await postRib('X-2', 'tight', { rivetSpec: 'MS20470AD4-4', edgeDistanceIn: 0.2 }, [
+      { fromIn: 0, toIn: 10, pitchIn: 0.3 },
+      { fromIn: 10, toIn: 30, pitchIn: 2 },
+    ]);
     expect(res.status).toBe(400);
     expect(res.body.error.fields['revision.edgeDistanceIn']).toMatch(/0\.250 in/);
     expect(res.body.error.fields['revision.lines.0.zones.0.pitchIn']).toMatch(/0\.375 in \(3D\)/);
@@ -123,13 +119,7 @@ describe('bad input gets a clear error and saves nothing', () => {
 
   it('answers 415 to a file that is not an image, whatever it is called, and keeps nothing', async () => {
     const before = await savedCounts();
-    const res = await request(t.app)
-      .post('/api/findings')
-      .set(auth(tok.builder))
-      .field('travelerId', travelerId)
-      .field('holeIds', '["L-03"]')
-      .field('kind', 'hole_oversize')
-      .field('note', 'looks big')
+    const res = await raiseOn('L-03')
       .attach('photos', await png(), 'fine.png')
       .attach('photos', Buffer.from('%PDF-1.4 not a photo at all'), {
         filename: 'hole.jpg',
@@ -141,40 +131,20 @@ describe('bad input gets a clear error and saves nothing', () => {
   });
 
   it('answers 413 to a photo over 10 MB', async () => {
-    const res = await request(t.app)
-      .post('/api/findings')
-      .set(auth(tok.builder))
-      .field('travelerId', travelerId)
-      .field('holeIds', '["L-03"]')
-      .field('kind', 'hole_oversize')
-      .field('note', 'looks big')
-      .attach('photos', Buffer.alloc(10 * 1024 * 1024 + 10, 1), 'huge.jpg');
+    const res = await raiseOn('L-03').attach('photos', Buffer.alloc(10 * 1024 * 1024 + 10, 1), 'huge.jpg');
     expect(res.status).toBe(413);
   });
 
   it('rolls back photos and finding when a hole does not exist', async () => {
     const before = await savedCounts();
-    const res = await request(t.app)
-      .post('/api/findings')
-      .set(auth(tok.builder))
-      .field('travelerId', travelerId)
-      .field('holeIds', '["Q-99"]')
-      .field('kind', 'hole_oversize')
-      .field('note', 'looks big')
-      .attach('photos', await png(), 'a.png');
+    const res = await raiseOn('Q-99').attach('photos', await png(), 'a.png');
     expect(res.status).toBe(400);
     expect(res.body.error.fields.holeIds).toMatch(/Q-99/);
     expect(await savedCounts()).toEqual(before);
   });
 
   it('refuses a finding with no photo, naming the photos field', async () => {
-    const res = await request(t.app)
-      .post('/api/findings')
-      .set(auth(tok.builder))
-      .field('travelerId', travelerId)
-      .field('holeIds', '["L-03"]')
-      .field('kind', 'hole_oversize')
-      .field('note', 'looks big');
+    const res = await raiseOn('L-03');
     expect(res.status).toBe(400);
     expect(res.body.error.fields.photos).toBeDefined();
   });

@@ -1,7 +1,7 @@
 import { sql } from 'drizzle-orm';
 import request from 'supertest';
 import { DEMO_USERS } from '@/server/dev/seed';
-import { pdfText } from '../helpers/pdf-text';
+import { binaryBody, pdfText } from '../helpers/pdf-text';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 import { parseCsv } from '../helpers/csv';
 
@@ -22,12 +22,6 @@ const NOTES = 100;
 const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 type Entry = { id: string; at: string; kind: string; holeIds?: string[]; text: string };
 const hole = (i: number) => `H${String(i).padStart(4, '0')}`;
-
-const binary = (r: request.Response, cb: (err: Error | null, body: Buffer) => void) => {
-  const c: Buffer[] = [];
-  r.on('data', (d: Buffer) => c.push(d));
-  r.on('end', () => cb(null, Buffer.concat(c)));
-};
 
 beforeAll(async () => {
   t = await startTestApp();
@@ -143,7 +137,7 @@ describe('a long build log', () => {
       .get(`/api/builds/${buildId}/log.pdf`)
       .set(auth(tok.builder))
       .buffer(true)
-      .parse(binary);
+      .parse(binaryBody);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     const pdf = res.body as Buffer;

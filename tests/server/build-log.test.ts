@@ -1,7 +1,7 @@
 import request from 'supertest';
 import { DEMO_USERS } from '@/server/dev/seed';
 import { MAX_PDF_THREADS, reservePdfThread } from '@/server/build-log/build-log-pdf-thread';
-import { pdfText } from '../helpers/pdf-text';
+import { binaryBody, pdfText } from '../helpers/pdf-text';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 import { parseCsv } from '../helpers/csv';
 
@@ -288,11 +288,7 @@ describe('the build log', () => {
       .get(`/api/builds/${buildId}/log.pdf`)
       .set(auth(tok.inspector))
       .buffer(true)
-      .parse((r, cb) => {
-        const c: Buffer[] = [];
-        r.on('data', (d: Buffer) => c.push(d));
-        r.on('end', () => cb(null, Buffer.concat(c)));
-      });
+      .parse(binaryBody);
     expect(again.status).toBe(200);
     // A refused or finished export gives its place back: all of them are free again.
     const all = Array.from({ length: MAX_PDF_THREADS }, () => reservePdfThread());
@@ -306,11 +302,7 @@ describe('the build log', () => {
       .get(`/api/builds/${buildId}/log.pdf`)
       .set(auth(tok.inspector))
       .buffer(true)
-      .parse((r, cb) => {
-        const c: Buffer[] = [];
-        r.on('data', (d: Buffer) => c.push(d));
-        r.on('end', () => cb(null, Buffer.concat(c)));
-      });
+      .parse(binaryBody);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     expect(res.headers['content-disposition']).toMatch(/^attachment; filename="build-log-NK2-0147-.*\.pdf"/);
@@ -347,11 +339,7 @@ describe('the build log', () => {
       .query({ kind: 'sign_off', from: '2001-01-01', to: '2001-01-02' })
       .set(auth(tok.builder))
       .buffer(true)
-      .parse((r, cb) => {
-        const c: Buffer[] = [];
-        r.on('data', (d: Buffer) => c.push(d));
-        r.on('end', () => cb(null, Buffer.concat(c)));
-      });
+      .parse(binaryBody);
     expect(res.status).toBe(200);
     const text = pdfText(res.body as Buffer);
     expect(text).toContain('kinds: sign off');

@@ -4,11 +4,10 @@ import { DEMO_STUDY_INPUTS } from '@/server/dev/seed';
 import { revisionInput } from '@/db/contracts';
 import { checkLayout } from '@/server/designs/layout-check';
 import { HttpError } from '@/server/http-error';
-import { closeStudyPool } from '@/server/studies/studies-service';
 import { configureStudyPool, DEFAULT_STUDY_LIMITS, studyPoolLoad } from '@/server/studies/study-pool';
-import { ribRevision } from '../fixtures/rib-revision';
+import { ribRevision, smallKitModel } from '../fixtures/rib-revision';
 import { sixLines } from '../fixtures/rib-study';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoAppWithKit, type TestApp, type Tokens } from '../helpers/test-app';
 
 // Issue 7: no request can exhaust the server. Each input below once killed it or answered 500; now
 // each is a 400 that names the field with its whole path, and the server goes on serving.
@@ -16,19 +15,9 @@ import { startTestApp, type TestApp } from '../helpers/test-app';
 jest.setTimeout(120000);
 
 let t: TestApp;
-let tok: Awaited<ReturnType<TestApp['tokens']>>;
+let tok: Tokens;
 let kitModelId: string;
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-
-beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
-  kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items[0].id;
-});
-afterAll(async () => {
-  await t?.close();
-  await closeStudyPool();
-});
+demoAppWithKit((s) => ({ t, tok, kitModelId } = s));
 
 type Inputs = RibStudyInputValues;
 const postStudy = (inputs: unknown, name = 'exhaustion') =>
@@ -149,47 +138,56 @@ describe('a load study that once exhausted the server is a 400 naming the field,
   });
 });
 
+const postCoupon = (over: Record<string, unknown>) =>
+  request(t.app)
+    .post('/api/coupons')
+    .set(auth(tok.supplier))
+    .send({
+      material: '6061-T6',
+      gaugeIn: 0.025,
+      couponWidthIn: 1,
+      rivetSpec: 'PULLED-4',
+      loadLb: 40,
+      outcome: 'no_deformation',
+      ...over,
+    });
+
+/** The standard revision with a rivet outside the catalogue, one zone at `pitchIn` along its line. */
+const unknownRivetAt = (pitchIn: number) => ({
+  ...ribRevision,
+  rivetSpec: 'ACME-BLIND-4',
+  lines: [{ ...ribRevision.lines[0], zones: [{ fromIn: 0, toIn: 30, pitchIn }] }],
+});
+
+/** One flat 390 in line a letter, at 0.5 in pitch (on a 400 in chord). */
+const flatLines = (codes: string) =>
+  codes.split('').map((code) => ({
+    code,
+    name: `Line ${code}`,
+    surface: 'flat',
+    startIn: 0,
+    lengthIn: 390,
+    zones: [{ fromIn: 0, toIn: 390, pitchIn: 0.5 }],
+  }));
+
 describe('kits, coupons and part revisions refuse the same way', () => {
   it('refuses a kit with a mean chord of 1e308 in', async () => {
-    const res = await request(t.app).post('/api/kits').set(auth(tok.supplier)).send({
-      code: 'EX-1',
-      name: 'Exhaustion kit',
-      weightLb: 1200,
-      wingAreaSqFt: 110,
-      meanChordIn: 1e308,
-      stallSpeedKeas: 45,
-      category: 'normal',
-      airfoil: 'NACA 2412',
-    });
+    const res = await request(t.app)
+      .post('/api/kits')
+      .set(auth(tok.supplier))
+      .send({ ...smallKitModel('EX-1', 'Exhaustion kit'), meanChordIn: 1e308 });
     refused(res, 'meanChordIn', /between 10 and 300 in/);
     await stillServes();
   });
 
   it('refuses a coupon test whose note carries a NUL character', async () => {
-    const res = await request(t.app).post('/api/coupons').set(auth(tok.supplier)).send({
-      material: '6061-T6',
-      gaugeIn: 0.025,
-      couponWidthIn: 1,
-      rivetSpec: 'PULLED-4',
-      loadLb: 40,
-      outcome: 'no_deformation',
-      note: 'pulled\u0000clean',
-      testedOn: '2026-10-14',
-    });
+    const res = await postCoupon({ note: 'pulled\u0000clean', testedOn: '2026-10-14' });
     refused(res, 'note', /control character/);
     await stillServes();
   });
 
   it('refuses a coupon test dated 9999-12-31', async () => {
-    const res = await request(t.app).post('/api/coupons').set(auth(tok.supplier)).send({
-      material: '6061-T6',
-      gaugeIn: 0.025,
-      couponWidthIn: 1,
-      rivetSpec: 'PULLED-4',
-      loadLb: 40,
-      outcome: 'no_deformation',
-      testedOn: '9999-12-31',
-    });
+    const res = await postCoupon({ testedOn: '9999-12-31' });
     refused(res, 'testedOn', /future/);
   });
 
@@ -200,23 +198,13 @@ describe('kits, coupons and part revisions refuse the same way', () => {
 
   it('refuses a revision with a zone pitch of 1e-8 in (every shipment of its kit once killed the server)', async () => {
     // An unknown rivet once skipped the 3D rule: the contract's floor and 3 × the drill hold it now.
-    const revision = {
-      ...ribRevision,
-      rivetSpec: 'ACME-BLIND-4',
-      lines: [{ ...ribRevision.lines[0], zones: [{ fromIn: 0, toIn: 30, pitchIn: 1e-8 }] }],
-    };
-    refused(await postDesign(revision), 'revision.lines.0.zones.0.pitchIn', /between 0\.125 and 12 in/);
+    refused(await postDesign(unknownRivetAt(1e-8)), 'revision.lines.0.zones.0.pitchIn', /between 0\.125 and 12 in/);
     await stillServes();
   });
 
   it('holds a rivet outside the catalogue to 3 × its drill for pitch', async () => {
-    const revision = {
-      ...ribRevision,
-      rivetSpec: 'ACME-BLIND-4',
-      lines: [{ ...ribRevision.lines[0], zones: [{ fromIn: 0, toIn: 30, pitchIn: 0.2 }] }],
-    };
     refused(
-      await postDesign(revision),
+      await postDesign(unknownRivetAt(0.2)),
       'revision.lines.0.zones.0.pitchIn',
       /at least 0\.386 in \(3 × the 0\.1285 in drill\)/,
     );
@@ -224,28 +212,14 @@ describe('kits, coupons and part revisions refuse the same way', () => {
 
   it('refuses a revision whose zones would give more holes than the cap, naming the pitch to widen', async () => {
     // Eight 390 in lines at 0.5 in: about 6,250 holes, over the 5,000 a revision may have.
-    const lines = 'ABCDEFGH'.split('').map((code) => ({
-      code,
-      name: `Line ${code}`,
-      surface: 'flat',
-      startIn: 0,
-      lengthIn: 390,
-      zones: [{ fromIn: 0, toIn: 390, pitchIn: 0.5 }],
-    }));
+    const lines = flatLines('ABCDEFGH');
     const res = await postDesign({ ...ribRevision, chordIn: 400, lines });
     refused(res, 'revision.lines.0.zones.0.pitchIn', /at most 5,000/);
     await stillServes();
   });
 
   it('holds the hole cap in the contract itself, so the form says it before sending', () => {
-    const lines = 'ABCDEFGH'.split('').map((code) => ({
-      code,
-      name: `Line ${code}`,
-      surface: 'flat',
-      startIn: 0,
-      lengthIn: 390,
-      zones: [{ fromIn: 0, toIn: 390, pitchIn: 0.5 }],
-    }));
+    const lines = flatLines('ABCDEFGH');
     const parsed = revisionInput.safeParse({ ...ribRevision, chordIn: 400, lines });
     expect(parsed.success ? [] : parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`)).toEqual([
       expect.stringMatching(
@@ -256,11 +230,7 @@ describe('kits, coupons and part revisions refuse the same way', () => {
 
   it('refuses to make a traveler from a revision stored before the checks, whose zones ask for millions of holes', () => {
     // checkLayout runs again when a build is shipped: a row written before the contract had its floor.
-    const stored = {
-      ...ribRevision,
-      rivetSpec: 'ACME-BLIND-4',
-      lines: [{ ...ribRevision.lines[0], zones: [{ fromIn: 0, toIn: 30, pitchIn: 1e-8 }] }],
-    };
+    const stored = unknownRivetAt(1e-8);
     expect(() => checkLayout(stored as Parameters<typeof checkLayout>[0])).toThrow(HttpError);
     const wide = {
       ...ribRevision,
@@ -283,14 +253,7 @@ describe('kits, coupons and part revisions refuse the same way', () => {
   });
 
   it('takes a large revision under the cap', async () => {
-    const lines = 'ABCD'.split('').map((code) => ({
-      code,
-      name: `Line ${code}`,
-      surface: 'flat',
-      startIn: 0,
-      lengthIn: 390,
-      zones: [{ fromIn: 0, toIn: 390, pitchIn: 0.5 }],
-    }));
+    const lines = flatLines('ABCD');
     expect((await postDesign({ ...ribRevision, chordIn: 400, lines })).status).toBe(201);
   });
 });

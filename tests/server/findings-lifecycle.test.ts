@@ -4,7 +4,9 @@ import { DEMO_USERS } from '@/server/dev/seed';
 import { findingActions, type FindingAction } from '@/db/contracts';
 import { findingMailWorker } from '@/server/jobs/finding-mail-worker';
 import { createMailer } from '@/server/mail/transport';
-import { flangeLine, smallKitModel, tinyRibRevision } from '../fixtures/rib-revision';
+import { FINDING_ACTION_OWNER } from '../fixtures/finding-owners';
+import { smallKits } from '../fixtures/rib-revision';
+import { publishSmallKit, shipBuild } from '../helpers/small-kit';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 
 jest.setTimeout(180000);
@@ -24,41 +26,12 @@ const jpeg = () =>
     .jpeg()
     .toBuffer();
 
-/** A small rib: two flanges of five holes each, one step. AD4 at 0.25 in edge distance (2D). */
-const tinyRib = {
-  ...tinyRibRevision,
-  lines: [
-    flangeLine('U', 4, [{ fromIn: 0, toIn: 4, pitchIn: 1 }]),
-    flangeLine('L', 4, [{ fromIn: 0, toIn: 4, pitchIn: 1 }]),
-  ],
-  steps: ['Rivet both flanges'],
-};
-
 beforeAll(async () => {
   t = await startTestApp();
   tok = await t.tokens();
   const o = await t.outsiders();
   people = { ...tok, otherBuilder: o.builder, otherInspector: o.inspector, otherSupplier: o.supplier };
-  const kit = await request(t.app)
-    .post('/api/kits')
-    .set(auth(tok.supplier))
-    .send(smallKitModel('LC-1', 'Lifecycle kit'));
-  kitId = kit.body.id;
-  const design = await request(t.app)
-    .post('/api/designs')
-    .set(auth(tok.supplier))
-    .send({
-      design: { kitModelId: kitId, partNumber: 'LC-R1', name: 'Lifecycle rib', kind: 'rib' },
-      revision: tinyRib,
-    });
-  expect(
-    (
-      await request(t.app)
-        .post(`/api/revisions/${design.body.revisions[0].id}/publish`)
-        .set(auth(tok.supplier))
-        .send({})
-    ).status,
-  ).toBe(200);
+  kitId = await publishSmallKit(t, tok.supplier, smallKits.lifecycle);
 });
 afterAll(async () => {
   await t?.close();
@@ -67,15 +40,7 @@ afterAll(async () => {
 /** Ships a fresh build of the small kit to the demo builder and inspector; returns its one traveler. */
 async function ship(): Promise<{ buildId: string; travelerId: string; kitSerial: string }> {
   const kitSerial = `LC-${String(++serialNo).padStart(4, '0')}`;
-  const res = await request(t.app).post('/api/builds').set(auth(tok.supplier)).send({
-    kitModelId: kitId,
-    kitSerial,
-    builderEmail: DEMO_USERS.builder.email,
-    inspectorEmail: DEMO_USERS.inspector.email,
-  });
-  expect(res.status).toBe(201);
-  const detail = await request(t.app).get(`/api/builds/${res.body.id}`).set(auth(tok.supplier));
-  return { buildId: res.body.id, travelerId: detail.body.travelers[0].id, kitSerial };
+  return { ...(await shipBuild(t, tok.supplier, kitId, kitSerial)), kitSerial };
 }
 
 async function raise(token: string, travelerId: string, holeIds: string[], extra: Record<string, string> = {}) {
@@ -447,16 +412,8 @@ describe('who may move a finding, in each state (403 not theirs, 409 not now, 40
     supplier: 'design_authority',
     admin: 'none',
   };
-  const owner: Record<FindingAction, string> = {
-    disposition: 'inspector',
-    amend: 'inspector',
-    'not-a-defect': 'inspector',
-    accept: 'inspector',
-    'send-back': 'inspector',
-    approve: 'design_authority',
-    refuse: 'design_authority',
-    'report-done': 'builder',
-  };
+  // Who may take each step, written out by hand (the rules module is what is under test).
+  const owner = FINDING_ACTION_OWNER;
   const body = (a: FindingAction) =>
     a === 'disposition' || a === 'amend' ? { disposition: 'use_as_is', note: 'a reason' } : { note: 'a reason' };
 

@@ -15,22 +15,10 @@ import {
   type FindingStatus,
   type PartFacts,
 } from '@/db/contracts';
+import { FINDING_ACTION_OWNER } from '../fixtures/finding-owners';
 
-/**
- * The finding's life written out by hand, independently of the rules module: who may take each step
- * from each state (the trade's material-review practice: the inspector dispositions, the design authority
- * approves departures — use as is and repair — the builder does the ordered work, the inspector accepts it).
- */
-const OWNER: Record<FindingAction, BuildPlace> = {
-  disposition: 'inspector',
-  amend: 'inspector',
-  'not-a-defect': 'inspector',
-  accept: 'inspector',
-  'send-back': 'inspector',
-  approve: 'design_authority',
-  refuse: 'design_authority',
-  'report-done': 'builder',
-};
+// The finding's life written out by hand, independently of the rules module (the owners of each step).
+const OWNER = FINDING_ACTION_OWNER;
 type Case = { status: FindingStatus; disposition: Disposition | null; workReported: boolean };
 const STATES: Case[] = [
   { status: 'raised', disposition: null, workReported: false },

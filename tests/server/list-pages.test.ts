@@ -16,6 +16,7 @@ import {
   users,
 } from '@/db/schema';
 import { hashPassword } from '@/server/auth/passwords';
+import { STUDY_SUMMARY_KEYS } from '../fixtures/study-summary';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 
 jest.setTimeout(180000);
@@ -296,17 +297,7 @@ describe('supplier lists in pages', () => {
   it('studies: last changed first, those of one instant by id; summary columns only; another supplier sees none', async () => {
     const all = await expectStableWalk('/api/studies', tok.supplier, 2);
     expect(all.rows.filter((r) => String(r.name).startsWith('Same-time study'))).toHaveLength(5);
-    for (const r of all.rows)
-      expect(Object.keys(r).sort()).toEqual([
-        'id',
-        'kind',
-        'kitModelId',
-        'kitName',
-        'name',
-        'recommended',
-        'revision',
-        'updatedAt',
-      ]);
+    for (const r of all.rows) expect(Object.keys(r).sort()).toEqual(STUDY_SUMMARY_KEYS);
     expect((await walk('/api/studies', other.supplier, 2)).rows).toEqual([]);
   });
 

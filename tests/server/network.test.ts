@@ -24,6 +24,13 @@ const iface = (address: string, internal = false) => ({
 const base = { DATABASE_URL: 'postgres://x@127.0.0.1/x', JWT_SECRET: 'a-test-secret-long-enough' };
 const env = (e: Record<string, string>) => e as unknown as NodeJS.ProcessEnv;
 
+/** The labels of the supplier's first build, as the supplier asks for them. */
+async function firstBuildLabels(t: TestApp, supplier: string) {
+  const auth = { Authorization: `Bearer ${supplier}` };
+  const buildId = (await request(t.app).get('/api/builds').set(auth)).body.items[0].id;
+  return request(t.app).get(`/api/travelers/labels?buildId=${buildId}`).set(auth);
+}
+
 describe('the address phones reach', () => {
   it.each([
     ['http://localhost:8080', true],
@@ -146,14 +153,7 @@ describe('network mode served', () => {
 
   it('puts the public address it was given in labels and on the phone setup page, with the certificate to trust', async () => {
     const tok = await t.tokens();
-    const buildId = (
-      await request(t.app)
-        .get('/api/builds')
-        .set({ Authorization: `Bearer ${tok.supplier}` })
-    ).body.items[0].id;
-    const labels = await request(t.app)
-      .get(`/api/travelers/labels?buildId=${buildId}`)
-      .set({ Authorization: `Bearer ${tok.supplier}` });
+    const labels = await firstBuildLabels(t, tok.supplier);
     expect(labels.body[0].url).toMatch(new RegExp(`^https://192\\.0\\.2\\.44:${port}/t/`));
     const setup = await request(t.app)
       .get('/api/network')
@@ -188,14 +188,7 @@ describe('a loopback public address', () => {
 
   it('refuses to print labels, saying how to set the address', async () => {
     const tok = await t.tokens();
-    const buildId = (
-      await request(t.app)
-        .get('/api/builds')
-        .set({ Authorization: `Bearer ${tok.supplier}` })
-    ).body.items[0].id;
-    const res = await request(t.app)
-      .get(`/api/travelers/labels?buildId=${buildId}`)
-      .set({ Authorization: `Bearer ${tok.supplier}` });
+    const res = await firstBuildLabels(t, tok.supplier);
     expect(res.status).toBe(409);
     expect(res.body.error.message).toMatch(/npm start -- --lan|PUBLIC_URL/);
     expect(

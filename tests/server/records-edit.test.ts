@@ -70,13 +70,14 @@ const ribRevision = (over: Record<string, unknown> = {}) => ({
   ...over,
 });
 
-async function demoKit() {
-  const kits = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items as {
-    id: string;
-    code: string;
-  }[];
-  return kits.find((k) => k.code === 'NK-2')!;
-}
+/** What the supplier reads at `path`. */
+const supplierGet = async (path: string) => (await request(t.app).get(path).set(auth(tok.supplier))).body;
+/** The first item of the supplier's list at `path` that `pick` chooses. */
+const supplierItem = async <T extends { id: string }>(path: string, pick: (item: T) => boolean): Promise<T> =>
+  ((await supplierGet(path)).items as T[]).find(pick)!;
+const demoKit = () => supplierItem<{ id: string; code: string }>('/api/kits', (k) => k.code === 'NK-2');
+const designOf = (partNumber: string) =>
+  supplierItem<{ id: string; partNumber: string }>('/api/designs', (d) => d.partNumber === partNumber);
 
 describe('the rules read as tables (db/contracts)', () => {
   it('keeps the coupon gauge tolerance equal to the engine’s', () => {
@@ -264,22 +265,40 @@ describe('kit models: edit with history, delete while nothing relies on them', (
 describe('coupon tests: corrected by a new entry, deleted only when no published schedule may rest on them', () => {
   const list = async () =>
     (await request(t.app).get('/api/coupons').set(auth(tok.supplier))).body.items as CouponTest[];
+  type Recorded = Pick<CouponTest, 'material' | 'gaugeIn' | 'rivetSpec' | 'outcome' | 'testedOn'>;
+  /** A test recorded as `c` was, 1 in wide, but for `over` (a correction adds its reason). */
+  const recordedAs = (c: Recorded, over: Record<string, unknown>) => ({
+    material: c.material,
+    gaugeIn: c.gaugeIn,
+    couponWidthIn: 1,
+    rivetSpec: c.rivetSpec,
+    outcome: c.outcome,
+    testedOn: c.testedOn,
+    ...over,
+  });
+  /** A new test, 1 in wide, recorded by the supplier. */
+  const record = (test: Omit<Recorded, 'outcome'> & { loadLb: number; outcome: string }) =>
+    request(t.app)
+      .post('/api/coupons')
+      .set(auth(tok.supplier))
+      .send({ couponWidthIn: 1, ...test });
+  /** The supplier corrects test `c` with a new entry, `body`. */
+  const correct = (c: { id: string }, body: object) =>
+    request(t.app).post(`/api/coupons/${c.id}/corrections`).set(auth(tok.supplier)).send(body);
 
   it('corrects a test with a new entry: the old one kept as recorded and marked, the engine reading only the new one', async () => {
     const old = (await list()).find((c) => c.gaugeIn === 0.02 && c.loadLb === 30)!;
     expect(old.allowedActions).toEqual(['correct', 'delete']);
     const before = await rows(couponTests);
-    const res = await request(t.app).post(`/api/coupons/${old.id}/corrections`).set(auth(tok.supplier)).send({
-      material: old.material,
-      gaugeIn: old.gaugeIn,
-      couponWidthIn: old.couponWidthIn,
-      rivetSpec: old.rivetSpec,
-      loadLb: 25,
-      outcome: old.outcome,
-      note: old.note,
-      testedOn: old.testedOn,
-      reason: 'Load cell read 30 lb with the tare left on: 25 lb applied',
-    });
+    const res = await correct(
+      old,
+      recordedAs(old, {
+        couponWidthIn: old.couponWidthIn,
+        loadLb: 25,
+        note: old.note,
+        reason: 'Load cell read 30 lb with the tare left on: 25 lb applied',
+      }),
+    );
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ loadLb: 25, correctionReason: expect.stringMatching(/tare/), correctedBy: null });
     expect(await rows(couponTests)).toBe(before + 1);
@@ -311,16 +330,7 @@ describe('coupon tests: corrected by a new entry, deleted only when no published
     expect([g.limitLb, g.ultimateLb, g.tests.length]).toEqual([13.5, 25, 3]);
 
     // A corrected entry is not corrected (or deleted) again: the current one is.
-    const again = await request(t.app).post(`/api/coupons/${old.id}/corrections`).set(auth(tok.supplier)).send({
-      material: old.material,
-      gaugeIn: old.gaugeIn,
-      couponWidthIn: 1,
-      rivetSpec: old.rivetSpec,
-      loadLb: 26,
-      outcome: old.outcome,
-      testedOn: old.testedOn,
-      reason: 'again',
-    });
+    const again = await correct(old, recordedAs(old, { loadLb: 26, reason: 'again' }));
     expect(again.status).toBe(409);
     expect((await request(t.app).delete(`/api/coupons/${old.id}`).set(auth(tok.supplier))).status).toBe(409);
     expect(await rows(couponTests)).toBe(before + 1);
@@ -328,30 +338,15 @@ describe('coupon tests: corrected by a new entry, deleted only when no published
 
   it('asks why a test is corrected', async () => {
     const c = (await list()).find((x) => x.correctedBy === null)!;
-    const res = await request(t.app).post(`/api/coupons/${c.id}/corrections`).set(auth(tok.supplier)).send({
-      material: c.material,
-      gaugeIn: c.gaugeIn,
-      couponWidthIn: 1,
-      rivetSpec: c.rivetSpec,
-      loadLb: 5,
-      outcome: c.outcome,
-      testedOn: c.testedOn,
-    });
+    const res = await correct(c, recordedAs(c, { loadLb: 5 }));
     expect(res.status).toBe(400);
     expect(res.body.error.fields.reason).toBeDefined();
   });
 
   it('refuses to delete a test a published study-made revision may rest on, naming it; deletes one recorded after', async () => {
     // The demo rib study's PULLED-4 candidate, applied to a new part and published.
-    const studies = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body.items as {
-      id: string;
-      kind: string;
-    }[];
-    const study = (
-      await request(t.app)
-        .get(`/api/studies/${studies.find((s) => s.kind === 'rib')!.id}`)
-        .set(auth(tok.supplier))
-    ).body;
+    const ribStudy = await supplierItem<{ id: string; kind: string }>('/api/studies', (s) => s.kind === 'rib');
+    const study = await supplierGet(`/api/studies/${ribStudy.id}`);
     const candidate = study.result.candidates.find(
       (c: { rivet: string; feasible: boolean }) => c.rivet === 'PULLED-4' && c.feasible,
     );
@@ -366,15 +361,8 @@ describe('coupon tests: corrected by a new entry, deleted only when no published
         })
     ).body;
     // A test of the candidate's own rivet and gauge, on record before the revision is published.
-    const backing = await request(t.app).post('/api/coupons').set(auth(tok.supplier)).send({
-      material: '6061-T6',
-      gaugeIn: candidate.gaugeIn,
-      couponWidthIn: 1,
-      rivetSpec: 'PULLED-4',
-      loadLb: 12,
-      outcome: 'no_deformation',
-      testedOn: '2026-10-15',
-    });
+    const pulled4 = { material: '6061-T6', gaugeIn: candidate.gaugeIn, rivetSpec: 'PULLED-4' };
+    const backing = await record({ ...pulled4, loadLb: 12, outcome: 'no_deformation', testedOn: '2026-10-15' });
     expect(backing.body.allowedActions).toEqual(['correct', 'delete']);
     const applied = await request(t.app)
       .post(`/api/studies/${study.id}/apply`)
@@ -384,15 +372,7 @@ describe('coupon tests: corrected by a new entry, deleted only when no published
     expect(
       (await request(t.app).post(`/api/revisions/${applied.body.id}/publish`).set(auth(tok.supplier)).send({})).status,
     ).toBe(200);
-    const later = await request(t.app).post('/api/coupons').set(auth(tok.supplier)).send({
-      material: '6061-T6',
-      gaugeIn: candidate.gaugeIn,
-      couponWidthIn: 1,
-      rivetSpec: 'PULLED-4',
-      loadLb: 14,
-      outcome: 'slight_deformation',
-      testedOn: '2026-10-16',
-    });
+    const later = await record({ ...pulled4, loadLb: 14, outcome: 'slight_deformation', testedOn: '2026-10-16' });
 
     const now = await list();
     const b = now.find((c) => c.id === backing.body.id)!;
@@ -427,28 +407,16 @@ describe('coupon tests: corrected by a new entry, deleted only when no published
 
   it('deletes a corrected test whole: the current entry and the entries it corrected', async () => {
     const made = (
-      await request(t.app).post('/api/coupons').set(auth(tok.supplier)).send({
+      await record({
         material: '2024-T3',
         gaugeIn: 0.032,
-        couponWidthIn: 1,
         rivetSpec: 'MS20470AD3',
         loadLb: 40,
         outcome: 'no_deformation',
         testedOn: '2026-10-15',
       })
     ).body;
-    const fixed = (
-      await request(t.app).post(`/api/coupons/${made.id}/corrections`).set(auth(tok.supplier)).send({
-        material: '2024-T3',
-        gaugeIn: 0.032,
-        couponWidthIn: 1,
-        rivetSpec: 'MS20470AD3',
-        loadLb: 45,
-        outcome: 'no_deformation',
-        testedOn: '2026-10-15',
-        reason: 'typo',
-      })
-    ).body;
+    const fixed = (await correct(made, recordedAs(made, { loadLb: 45, reason: 'typo' }))).body;
     const before = await rows(couponTests);
     expect((await request(t.app).delete(`/api/coupons/${fixed.id}`).set(auth(tok.supplier))).status).toBe(204);
     expect(await rows(couponTests)).toBe(before - 2);
@@ -456,16 +424,7 @@ describe('coupon tests: corrected by a new entry, deleted only when no published
 
   it('hides a test from another supplier (404) and refuses other roles (403), changing nothing', async () => {
     const c = (await list()).find((x) => x.correctedBy === null && x.allowedActions.includes('delete'))!;
-    const body = {
-      material: c.material,
-      gaugeIn: c.gaugeIn,
-      couponWidthIn: 1,
-      rivetSpec: c.rivetSpec,
-      loadLb: 5,
-      outcome: c.outcome,
-      testedOn: c.testedOn,
-      reason: 'not mine',
-    };
+    const body = recordedAs(c, { loadLb: 5, reason: 'not mine' });
     const before = [await rows(couponTests), await rows(couponTests, isNull(couponTests.supersededById))];
     expect(
       (await request(t.app).post(`/api/coupons/${c.id}/corrections`).set(auth(other.supplier)).send(body)).status,
@@ -569,11 +528,7 @@ describe('builds: the shipping supplier corrects the note always, the serial and
 
 describe('draft revisions: discarded, never once published', () => {
   it('discards a draft after published revisions: the part keeps them', async () => {
-    const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body.items as {
-      id: string;
-      partNumber: string;
-    }[];
-    const w105 = designs.find((d) => d.partNumber === 'W-105')!;
+    const w105 = await designOf('W-105');
     const draft = await request(t.app)
       .post(`/api/designs/${w105.id}/revisions`)
       .set(auth(tok.supplier))
@@ -617,15 +572,7 @@ describe('draft revisions: discarded, never once published', () => {
   });
 
   it('refuses to discard or edit a published revision, to another supplier (404) and to other roles (403)', async () => {
-    const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body.items as {
-      id: string;
-      partNumber: string;
-    }[];
-    const w104 = (
-      await request(t.app)
-        .get(`/api/designs/${designs.find((d) => d.partNumber === 'W-104')!.id}`)
-        .set(auth(tok.supplier))
-    ).body;
+    const w104 = await supplierGet(`/api/designs/${(await designOf('W-104')).id}`);
     const published = w104.revisions.find((r: { status: string }) => r.status === 'published');
     const before = await rows(designRevisions);
     const res = await request(t.app).delete(`/api/revisions/${published.id}`).set(auth(tok.supplier));
@@ -640,7 +587,7 @@ describe('draft revisions: discarded, never once published', () => {
 
     const draft = (
       await request(t.app)
-        .post(`/api/designs/${designs.find((d) => d.partNumber === 'W-105')!.id}/revisions`)
+        .post(`/api/designs/${(await designOf('W-105')).id}/revisions`)
         .set(auth(tok.supplier))
         .send({ ...ribRevision(), changeNote: 'Another try' })
     ).body;

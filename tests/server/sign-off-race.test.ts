@@ -1,7 +1,7 @@
 import request from 'supertest';
 import sharp from 'sharp';
-import { DEMO_USERS } from '@/server/dev/seed';
-import { smallKitModel, tinyRibRevision } from '../fixtures/rib-revision';
+import { smallKits } from '../fixtures/rib-revision';
+import { publishSmallKit, shipBuild, workPart } from '../helpers/small-kit';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 
 jest.setTimeout(240000);
@@ -16,16 +16,7 @@ const ROUNDS = 20;
 beforeAll(async () => {
   t = await startTestApp();
   tok = await t.tokens();
-  const kit = await request(t.app).post('/api/kits').set(auth(tok.supplier)).send(smallKitModel('RC-1', 'Race kit'));
-  kitId = kit.body.id;
-  const design = await request(t.app)
-    .post('/api/designs')
-    .set(auth(tok.supplier))
-    .send({
-      design: { kitModelId: kitId, partNumber: 'RC-R1', name: 'Race rib', kind: 'rib' },
-      revision: tinyRibRevision,
-    });
-  await request(t.app).post(`/api/revisions/${design.body.revisions[0].id}/publish`).set(auth(tok.supplier)).send({});
+  kitId = await publishSmallKit(t, tok.supplier, smallKits.race);
 });
 afterAll(async () => {
   await t?.close();
@@ -33,27 +24,8 @@ afterAll(async () => {
 
 /** A fresh part with every hole installed and its step done: ready to sign off. */
 async function readyPart() {
-  const res = await request(t.app)
-    .post('/api/builds')
-    .set(auth(tok.supplier))
-    .send({
-      kitModelId: kitId,
-      kitSerial: `RC-${++n}`,
-      builderEmail: DEMO_USERS.builder.email,
-      inspectorEmail: DEMO_USERS.inspector.email,
-    });
-  const id = (await request(t.app).get(`/api/builds/${res.body.id}`).set(auth(tok.supplier))).body.travelers[0]
-    .id as string;
-  const detail = (await request(t.app).get(`/api/travelers/${id}`).set(auth(tok.builder))).body;
-  await request(t.app)
-    .post(`/api/travelers/${id}/holes`)
-    .set(auth(tok.builder))
-    .send({ holeIds: detail.holes.map((h: { holeId: string }) => h.holeId), status: 'installed' });
-  await request(t.app)
-    .post(`/api/travelers/${id}/steps/${detail.steps[0].id}`)
-    .set(auth(tok.builder))
-    .send({ done: true });
-  return { id, stepId: detail.steps[0].id as string };
+  const { travelerId: id } = await shipBuild(t, tok.supplier, kitId, `RC-${++n}`);
+  return { id, ...(await workPart(t, tok.builder, id)) };
 }
 
 /** The invariant: a signed-off part has every hole done, every step done and no open finding. */

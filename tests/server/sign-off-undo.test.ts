@@ -1,7 +1,8 @@
 import request from 'supertest';
 import { DEMO_USERS } from '@/server/dev/seed';
 import { allowedPartActions, checkPartAction, NOTE_MIN_LENGTH, type BuildPlace, type PartFacts } from '@/db/contracts';
-import { smallKitModel, tinyRibRevision } from '../fixtures/rib-revision';
+import { smallKits } from '../fixtures/rib-revision';
+import { publishSmallKit, shipBuild, workPart } from '../helpers/small-kit';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 
 jest.setTimeout(240000);
@@ -20,26 +21,7 @@ beforeAll(async () => {
   t = await startTestApp();
   tok = await t.tokens();
   outsider = await t.outsiders();
-  const kit = await request(t.app)
-    .post('/api/kits')
-    .set(auth(tok.supplier))
-    .send(smallKitModel('WD-1', 'Withdrawal kit'));
-  kitId = kit.body.id;
-  const design = await request(t.app)
-    .post('/api/designs')
-    .set(auth(tok.supplier))
-    .send({
-      design: { kitModelId: kitId, partNumber: 'WD-R1', name: 'Withdrawal rib', kind: 'rib' },
-      revision: tinyRibRevision,
-    });
-  expect(
-    (
-      await request(t.app)
-        .post(`/api/revisions/${design.body.revisions[0].id}/publish`)
-        .set(auth(tok.supplier))
-        .send({})
-    ).status,
-  ).toBe(200);
+  kitId = await publishSmallKit(t, tok.supplier, smallKits.withdrawal);
 });
 afterAll(async () => {
   await t?.close();
@@ -50,27 +32,11 @@ type Part = { id: string; buildId: string; kitSerial: string; stepId: string };
 /** A fresh part, every hole installed and its step done, signed off by the demo inspector. */
 async function signedPart(sign = true): Promise<Part> {
   const kitSerial = `WD-${String(++n).padStart(3, '0')}`;
-  const res = await request(t.app).post('/api/builds').set(auth(tok.supplier)).send({
-    kitModelId: kitId,
-    kitSerial,
-    builderEmail: DEMO_USERS.builder.email,
-    inspectorEmail: DEMO_USERS.inspector.email,
-  });
-  expect(res.status).toBe(201);
-  const id = (await request(t.app).get(`/api/builds/${res.body.id}`).set(auth(tok.supplier))).body.travelers[0]
-    .id as string;
-  const detail = (await request(t.app).get(`/api/travelers/${id}`).set(auth(tok.builder))).body;
-  await request(t.app)
-    .post(`/api/travelers/${id}/holes`)
-    .set(auth(tok.builder))
-    .send({ holeIds: detail.holes.map((h: { holeId: string }) => h.holeId), status: 'installed' });
-  await request(t.app)
-    .post(`/api/travelers/${id}/steps/${detail.steps[0].id}`)
-    .set(auth(tok.builder))
-    .send({ done: true });
+  const { buildId, travelerId: id } = await shipBuild(t, tok.supplier, kitId, kitSerial);
+  const { stepId } = await workPart(t, tok.builder, id);
   if (sign)
     expect((await request(t.app).post(`/api/travelers/${id}/sign-off`).set(auth(tok.inspector))).status).toBe(200);
-  return { id, buildId: res.body.id, kitSerial, stepId: detail.steps[0].id };
+  return { id, buildId, kitSerial, stepId };
 }
 
 const withdraw = (token: string, id: string, body: unknown = { reason: REASON }) =>

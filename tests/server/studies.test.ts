@@ -1,48 +1,32 @@
 import request from 'supertest';
 import { DEMO_STUDY_INPUTS } from '@/server/dev/seed';
-import { closeStudyPool } from '@/server/studies/studies-service';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoAppWithKit, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(90000);
 
 let t: TestApp;
-let tok: Awaited<ReturnType<TestApp['tokens']>>;
+let tok: Tokens;
 let kitModelId: string;
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
+demoAppWithKit((s) => ({ t, tok, kitModelId } = s));
 
-beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
-  kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items[0].id;
-});
-afterAll(async () => {
-  await t?.close();
-  await closeStudyPool();
-});
+/** A study of the demo's first kit, posted by the supplier. */
+const postStudy = (inputs: unknown, name = 'bad') =>
+  request(t.app).post('/api/studies').set(auth(tok.supplier)).send({ kitModelId, name, inputs });
+/** The supplier's first listed study, and its whole record. */
+async function firstStudy() {
+  const [study] = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body.items;
+  return { study, detail: (await request(t.app).get(`/api/studies/${study.id}`).set(auth(tok.supplier))).body };
+}
 
 describe('load studies', () => {
   it('refuses a negative weight, naming the field', async () => {
-    const res = await request(t.app)
-      .post('/api/studies')
-      .set(auth(tok.supplier))
-      .send({
-        kitModelId,
-        name: 'bad',
-        inputs: { ...DEMO_STUDY_INPUTS, kit: { ...DEMO_STUDY_INPUTS.kit, weightLb: -1 } },
-      });
+    const res = await postStudy({ ...DEMO_STUDY_INPUTS, kit: { ...DEMO_STUDY_INPUTS.kit, weightLb: -1 } });
     expect(res.status).toBe(400);
     expect(res.body.error.fields['inputs.kit.weightLb']).toMatch(/greater than zero/);
   });
 
   it('refuses a stall speed above the cruise speed', async () => {
-    const res = await request(t.app)
-      .post('/api/studies')
-      .set(auth(tok.supplier))
-      .send({
-        kitModelId,
-        name: 'bad',
-        inputs: { ...DEMO_STUDY_INPUTS, kit: { ...DEMO_STUDY_INPUTS.kit, stallSpeedKeas: 130 } },
-      });
+    const res = await postStudy({ ...DEMO_STUDY_INPUTS, kit: { ...DEMO_STUDY_INPUTS.kit, stallSpeedKeas: 130 } });
     expect(res.status).toBe(400);
     expect(res.body.error.fields['inputs.kit.cruiseSpeedKeas']).toMatch(/above the stall speed/);
   });
@@ -52,19 +36,13 @@ describe('load studies', () => {
     const points: [number, number][] = [];
     for (let i = 0; i <= 10; i++) points.push([1 - i / 10, 0.05 * Math.sin(Math.PI * (1 - i / 10)) * (i < 5 ? 1 : -1)]);
     for (let i = 1; i <= 10; i++) points.push([i / 10, 0.05 * Math.sin(Math.PI * (i / 10)) * (i < 5 ? -1 : 1)]);
-    const res = await request(t.app)
-      .post('/api/studies')
-      .set(auth(tok.supplier))
-      .send({ kitModelId, name: 'bad', inputs: { ...DEMO_STUDY_INPUTS, airfoil: { kind: 'coordinates', points } } });
+    const res = await postStudy({ ...DEMO_STUDY_INPUTS, airfoil: { kind: 'coordinates', points } });
     expect(res.status).toBe(400);
     expect(res.body.error.fields['inputs.airfoil.points']).toMatch(/crosses itself/);
   });
 
   it('computes and stores a study with its trade table, and a change is a new revision', async () => {
-    const res = await request(t.app)
-      .post('/api/studies')
-      .set(auth(tok.supplier))
-      .send({ kitModelId, name: 'Rib study', inputs: DEMO_STUDY_INPUTS });
+    const res = await postStudy(DEMO_STUDY_INPUTS, 'Rib study');
     expect(res.status).toBe(201);
     expect(res.body.revision).toBe(1);
     expect(res.body.result.trade.length).toBe(18);
@@ -79,8 +57,7 @@ describe('load studies', () => {
   });
 
   it('applies the recommended gauge and rivet to a draft revision with the computed zones and the study as basis', async () => {
-    const [study] = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body.items;
-    const detail = (await request(t.app).get(`/api/studies/${study.id}`).set(auth(tok.supplier))).body;
+    const { study, detail } = await firstStudy();
     const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body.items;
     const rib = designs.find((d: { partNumber: string }) => d.partNumber === 'W-104');
     const { gaugeIn, rivet } = detail.result.recommended;
@@ -100,8 +77,7 @@ describe('load studies', () => {
   });
 
   it('refuses to apply a candidate that does not carry the load', async () => {
-    const [study] = (await request(t.app).get('/api/studies').set(auth(tok.supplier))).body.items;
-    const detail = (await request(t.app).get(`/api/studies/${study.id}`).set(auth(tok.supplier))).body;
+    const { study, detail } = await firstStudy();
     const bad = detail.result.candidates.find((c: { feasible: boolean }) => !c.feasible);
     const designs = (await request(t.app).get('/api/designs').set(auth(tok.supplier))).body.items;
     const res = await request(t.app)
@@ -128,27 +104,17 @@ describe('load studies', () => {
       return [x, -dcp / 2, dcp / 2];
     });
     const cpTables = [{ cl: 2 * Math.PI * alpha, rows }];
-    const res = await request(t.app)
-      .post('/api/studies')
-      .set(auth(tok.supplier))
-      .send({ kitModelId, name: 'From a Cp table', inputs: { ...DEMO_STUDY_INPUTS, cpTables } });
+    const res = await postStudy({ ...DEMO_STUDY_INPUTS, cpTables }, 'From a Cp table');
     expect(res.status).toBe(201);
     expect(
       res.body.result.conditions
         .filter((c: { clNeeded: number }) => c.clNeeded > 0)
         .every((c: { pressureSource: string }) => c.pressureSource === 'Cp table'),
     ).toBe(true);
-    const bad = await request(t.app)
-      .post('/api/studies')
-      .set(auth(tok.supplier))
-      .send({
-        kitModelId,
-        name: 'bad',
-        inputs: {
-          ...DEMO_STUDY_INPUTS,
-          cpTables: [{ cl: 0.6, rows: rows.map((r, i) => (i === 2 ? [r[0], 1.5, r[2]] : r)) }],
-        },
-      });
+    const bad = await postStudy({
+      ...DEMO_STUDY_INPUTS,
+      cpTables: [{ cl: 0.6, rows: rows.map((r, i) => (i === 2 ? [r[0], 1.5, r[2]] : r)) }],
+    });
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields['inputs.cpTables.0.rows.2.1']).toMatch(/stagnation/);
   });

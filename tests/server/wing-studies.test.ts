@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { DEMO_STUDY_INPUTS, DEMO_WING_INPUTS } from '@/server/dev/seed';
+import { STUDY_SUMMARY_KEYS } from '../fixtures/study-summary';
 import { startTestApp, type TestApp } from '../helpers/test-app';
 
 jest.setTimeout(120000);
@@ -121,17 +122,7 @@ describe('a whole-wing study', () => {
     const rib = res.body.items.find((s: { id: string }) => s.id === ribStudyId);
     const ribDetail = (await request(t.app).get(`/api/studies/${ribStudyId}`).set(auth(tok.supplier))).body;
     expect(rib).toMatchObject({ kind: 'rib', recommended: ribDetail.result.recommended });
-    for (const s of res.body.items)
-      expect(Object.keys(s).sort()).toEqual([
-        'id',
-        'kind',
-        'kitModelId',
-        'kitName',
-        'name',
-        'recommended',
-        'revision',
-        'updatedAt',
-      ]);
+    for (const s of res.body.items) expect(Object.keys(s).sort()).toEqual(STUDY_SUMMARY_KEYS);
   });
 });
 
@@ -346,6 +337,21 @@ describe("a rib study candidate's holes on demand", () => {
 });
 
 describe('who may see and use a wing study', () => {
+  /** Asks for a candidate of the demo rib study, as `token`. */
+  const ribCandidate = (token: string) =>
+    request(t.app).get(`/api/studies/${ribStudyId}/candidate?gaugeIn=0.02&rivet=PULLED-4`).set(auth(token));
+  /** Applies the wing's first skin panel's recommendation to skin part W-201, as `token`. */
+  const applyFirstSkin = (token: string) =>
+    apply(
+      wing.id,
+      {
+        partDesignId: designIds['W-201'],
+        ...wing.result.skins[0].recommended,
+        target: { kind: 'skin', name: wing.result.skins[0].name },
+      },
+      token,
+    );
+
   it("hides one supplier's study from another: 404 to read, list, revise, ask a candidate of or apply", async () => {
     expect((await request(t.app).get(`/api/studies/${wing.id}`).set(auth(otherSupplier))).status).toBe(404);
     expect((await request(t.app).get('/api/studies').set(auth(otherSupplier))).body.items).toEqual([]);
@@ -357,26 +363,8 @@ describe('who may see and use a wing study', () => {
           .send({ kind: 'wing', kitModelId, name: 'x', inputs: DEMO_WING_INPUTS })
       ).status,
     ).toBe(404);
-    expect(
-      (
-        await request(t.app)
-          .get(`/api/studies/${ribStudyId}/candidate?gaugeIn=0.02&rivet=PULLED-4`)
-          .set(auth(otherSupplier))
-      ).status,
-    ).toBe(404);
-    expect(
-      (
-        await apply(
-          wing.id,
-          {
-            partDesignId: designIds['W-201'],
-            ...wing.result.skins[0].recommended,
-            target: { kind: 'skin', name: wing.result.skins[0].name },
-          },
-          otherSupplier,
-        )
-      ).status,
-    ).toBe(404);
+    expect((await ribCandidate(otherSupplier)).status).toBe(404);
+    expect((await applyFirstSkin(otherSupplier)).status).toBe(404);
   });
 
   it('keeps wing studies from builders: 403', async () => {
@@ -384,25 +372,7 @@ describe('who may see and use a wing study', () => {
       403,
     );
     expect((await request(t.app).get(`/api/studies/${wing.id}`).set(auth(tok.builder))).status).toBe(403);
-    expect(
-      (
-        await request(t.app)
-          .get(`/api/studies/${ribStudyId}/candidate?gaugeIn=0.02&rivet=PULLED-4`)
-          .set(auth(tok.builder))
-      ).status,
-    ).toBe(403);
-    expect(
-      (
-        await apply(
-          wing.id,
-          {
-            partDesignId: designIds['W-201'],
-            ...wing.result.skins[0].recommended,
-            target: { kind: 'skin', name: wing.result.skins[0].name },
-          },
-          tok.builder,
-        )
-      ).status,
-    ).toBe(403);
+    expect((await ribCandidate(tok.builder)).status).toBe(403);
+    expect((await applyFirstSkin(tok.builder)).status).toBe(403);
   });
 });

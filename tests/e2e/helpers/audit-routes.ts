@@ -3,9 +3,11 @@ import path from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import sharp from 'sharp';
 import request from 'supertest';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
+import { smallKits } from '../../fixtures/rib-revision';
+import { publishSmallKit, shipBuild } from '../../helpers/small-kit';
 import type { TestApp } from '../../helpers/test-app';
-import { launchBrowser } from './browser';
+import { fillSignIn, launchBrowser } from './browser';
 import { serveTestApp } from './served-app';
 
 /**
@@ -168,61 +170,8 @@ export async function gatherIds(t: TestApp): Promise<Ids> {
 
 /** A small kit of our own (one rib, two short lines), shipped, with one hole flagged: for the keyboard walk. */
 async function walkKit(t: TestApp, supplier: string, builder: string) {
-  const kitId = (
-    await request(t.app).post('/api/kits').set(auth(supplier)).send({
-      code: 'AX-1',
-      name: 'Keyboard walk kit',
-      weightLb: 1200,
-      wingAreaSqFt: 110,
-      meanChordIn: 50,
-      stallSpeedKeas: 45,
-      category: 'normal',
-      airfoil: 'NACA 2412',
-    })
-  ).body.id;
-  const design = await request(t.app)
-    .post('/api/designs')
-    .set(auth(supplier))
-    .send({
-      design: { kitModelId: kitId, partNumber: 'AX-R1', name: 'Walk rib', kind: 'rib' },
-      revision: {
-        material: '6061-T6',
-        gaugeIn: 0.032,
-        rivetSpec: 'MS20470AD4',
-        drillSize: '#30',
-        drillDiameterIn: 0.1285,
-        edgeDistanceIn: 0.25,
-        chordIn: 10,
-        lines: [
-          {
-            code: 'U',
-            name: 'Upper flange',
-            surface: 'upper',
-            startIn: 1,
-            lengthIn: 4,
-            zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }],
-          },
-          {
-            code: 'L',
-            name: 'Lower flange',
-            surface: 'lower',
-            startIn: 1,
-            lengthIn: 4,
-            zones: [{ fromIn: 0, toIn: 4, pitchIn: 1 }],
-          },
-        ],
-        steps: ['Rivet both flanges', 'Deburr and prime'],
-      },
-    });
-  await request(t.app).post(`/api/revisions/${design.body.revisions[0].id}/publish`).set(auth(supplier)).send({});
-  const build = await request(t.app).post('/api/builds').set(auth(supplier)).send({
-    kitModelId: kitId,
-    kitSerial: 'AX-0001',
-    builderEmail: DEMO_USERS.builder.email,
-    inspectorEmail: DEMO_USERS.inspector.email,
-  });
-  const walkTravelerId = (await request(t.app).get(`/api/builds/${build.body.id}`).set(auth(supplier))).body
-    .travelers[0].id as string;
+  const kitId = await publishSmallKit(t, supplier, smallKits.keyboardWalk);
+  const { travelerId: walkTravelerId } = await shipBuild(t, supplier, kitId, 'AX-0001');
   const raised = await request(t.app)
     .post('/api/findings')
     .set(auth(builder))
@@ -291,9 +240,7 @@ export async function signedInContext(
     await visible(page, 'email').waitFor({ timeout: 30000 });
     return { context, page };
   }
-  await page.getByTestId('email').fill(DEMO_USERS[role].email);
-  await page.getByTestId('password').fill(DEMO_PASSWORD);
-  await page.getByTestId('sign-in').click();
+  await fillSignIn(page, DEMO_USERS[role].email);
   await visible(page, 'screen-title').waitFor({ timeout: 30000 });
   return { context, page };
 }

@@ -1,4 +1,5 @@
-import { chromium, type Browser } from 'playwright-core';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { DEMO_PASSWORD } from '@/server/dev/seed';
 
 const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 
@@ -41,4 +42,11 @@ export async function phonePage(browser: Browser, baseURL: string) {
     permissions: ['camera'],
   });
   return context.newPage();
+}
+
+/** The sign-in form, filled with `email` and the demo password and sent, on whatever page shows it. */
+export async function fillSignIn(page: Page, email: string) {
+  await page.getByTestId('email').fill(email);
+  await page.getByTestId('password').fill(DEMO_PASSWORD);
+  await page.getByTestId('sign-in').click();
 }

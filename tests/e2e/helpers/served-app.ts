@@ -5,7 +5,9 @@ import type { AddressInfo } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { loadOrMakeCertificate, type TlsMaterial } from '@/server/network/tls';
+import type { Browser } from 'playwright-core';
 import { startTestApp, type TestApp } from '../../helpers/test-app';
+import { launchBrowser } from './browser';
 
 /** The web export the tests serve: dist/ (as `npm test` makes it), or another export named by E2E_WEB_DIST. */
 export const webDist = process.env.E2E_WEB_DIST
@@ -47,4 +49,23 @@ export async function serveTestApp(
       await t.close();
     },
   };
+}
+
+/**
+ * For a browser test file: the served app (demo seeded) and one browser, opened before its tests and
+ * closed after them; `take` receives them once both are up (set the file's own variables there).
+ */
+export function servedWithBrowser(take: (s: { t: TestApp; base: string; browser: Browser }) => void) {
+  let browser: Browser | undefined;
+  let close: (() => Promise<void>) | undefined;
+  beforeAll(async () => {
+    const served = await serveTestApp();
+    close = served.close;
+    browser = await launchBrowser();
+    take({ t: served.t, base: served.base, browser });
+  });
+  afterAll(async () => {
+    await browser?.close().catch(() => undefined);
+    await close?.();
+  });
 }
