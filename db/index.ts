@@ -57,8 +57,7 @@ export async function withTransaction<T>(on: Pool | Db, work: (tx: Tx) => Promis
 }
 
 function poolOf(on: Pool | Db): Pool {
-  if (on instanceof Pool) return on;
-  const client = (on as Db & { $client?: unknown }).$client;
-  if (client instanceof Pool) return client;
+  const pool = on instanceof Pool ? on : (on as Db & { $client?: unknown }).$client;
+  if (pool instanceof Pool) return pool;
   throw new Error('withTransaction opens on the pool or its client: a unit of work does not open inside another');
 }

@@ -17,7 +17,7 @@ import {
   type RibStudyInput,
   type WingStudyInput,
 } from '../server/engineering';
-import { DEMO_COUPONS, DEMO_WING_INPUTS } from '../server/dev/seed';
+import { DEMO_ENGINE_COUPONS, DEMO_WING_INPUTS } from '../server/dev/seed';
 
 const WARM_UP = 5;
 const RUNS = 21;
@@ -51,13 +51,7 @@ const study = (panels: number): RibStudyInput => ({
   pitchIncrementIn: 0.125,
   maxZones: 4,
   panels,
-  coupons: [
-    { material: '6061-T6', gaugeIn: 0.016, rivetSpec: 'PULLED-4', loadLb: 20, outcome: 'excessive_deformation' },
-    { material: '6061-T6', gaugeIn: 0.016, rivetSpec: 'PULLED-4', loadLb: 30, outcome: 'excessive_deformation' },
-    { material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'PULLED-4', loadLb: 13.5, outcome: 'no_deformation' },
-    { material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'PULLED-4', loadLb: 20, outcome: 'slight_deformation' },
-    { material: '6061-T6', gaugeIn: 0.02, rivetSpec: 'PULLED-4', loadLb: 30, outcome: 'slight_deformation' },
-  ],
+  coupons: DEMO_ENGINE_COUPONS,
 });
 
 function medianMs(run: () => void, runs = RUNS): number {
@@ -143,13 +137,7 @@ console.log(luRatioLine('rib study', at160.studyMs, at160.luMs, TARGET_LU_RATIO)
 // The demo kit's whole wing: ten ribs each at its own station, eighteen skin panels (the seed's study).
 const wingInput = {
   ...DEMO_WING_INPUTS,
-  coupons: DEMO_COUPONS.map(([gaugeIn, loadLb, outcome]) => ({
-    material: '6061-T6',
-    gaugeIn,
-    rivetSpec: 'PULLED-4',
-    loadLb,
-    outcome,
-  })),
+  coupons: DEMO_ENGINE_COUPONS,
 } as WingStudyInput;
 const wing = wingStudy(wingInput);
 const wingMs = medianMs(() => wingStudy(wingInput), WING_RUNS);

@@ -25,7 +25,7 @@ export const memberPlaceLabels: Record<MemberPlace, string> = {
 };
 /** The account roles that take a place on a build (build_members.role). */
 export const buildMemberRoles = ['builder', 'inspector'] as const;
-export type BuildMemberRole = (typeof buildMemberRoles)[number];
+type BuildMemberRole = (typeof buildMemberRoles)[number];
 export const memberRoleOfPlace: Record<MemberPlace, BuildMemberRole> = {
   owner: 'builder',
   helper: 'builder',

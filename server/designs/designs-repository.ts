@@ -18,7 +18,7 @@ export const revisionMakeColumns = {
   lines: designRevisions.lines,
 };
 
-export const revisionColumns = {
+const revisionColumns = {
   id: designRevisions.id,
   partDesignId: designRevisions.partDesignId,
   ...revisionMakeColumns,

@@ -1,5 +1,6 @@
 import sharp from 'sharp';
 import type { CouponOutcome, RevisionInput, RibStudyInputValues, WingStudyInputValues } from '../../db/contracts';
+import type { CouponTest } from '../../lib/engineering-results';
 import type { Database } from '../../db';
 import { hashPassword } from '../auth/passwords';
 import { buildsService } from '../builds/builds-service';
@@ -76,6 +77,15 @@ export const DEMO_COUPONS: [number, number, CouponOutcome, string][] = [
   [0.02, 20, 'slight_deformation', 'faint dimple round the head'],
   [0.02, 30, 'slight_deformation', 'dimple, hole round, rivet tight'],
 ];
+
+/** The demo's coupons as the engine reads them (6061-T6 flanges, pulled 1/8 in rivets): benches and tests study with them. */
+export const DEMO_ENGINE_COUPONS: CouponTest[] = DEMO_COUPONS.map(([gaugeIn, loadLb, outcome]) => ({
+  material: '6061-T6',
+  gaugeIn,
+  rivetSpec: 'PULLED-4',
+  loadLb,
+  outcome,
+}));
 
 /** The demo kit's figures: its kit record and its studies' kit are the same aircraft. */
 const DEMO_KIT = {

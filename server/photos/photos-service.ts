@@ -5,7 +5,7 @@ import { forbidden, notFound } from '../http-error';
 
 type Deps = Pick<AppContext, 'db' | 'storage' | 'signer'>;
 /** A signed photo link as the request carries it: whose it is, until when, and its signature. */
-export type PhotoLink = { u: string; exp: string; sig: string };
+type PhotoLink = { u: string; exp: string; sig: string };
 
 export const photosService = ({ db, storage, signer }: Deps) => ({
   /**
