@@ -9,7 +9,7 @@ export const storageKeys = {
   /** TanStack Query's persisted client: ticks not yet through to the server (lib/query-client.ts). */
   queryCache: 'pitchcard.query-cache',
   /** Where earlier versions kept unsent ticks themselves; read once at start-up and handed over (adoptEarlierTicks). */
-  tickOutbox: 'pitchcard.tick-outbox',
+  oldOfflineTicks: 'pitchcard.tick-outbox',
   /** A link opened before signing in (see tabScoped below). */
   pendingLink: 'pitchcard.pending-link',
 } as const;

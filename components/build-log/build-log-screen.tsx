@@ -29,10 +29,10 @@ const kindOptions: { value: BuildLogGroup | 'all'; label: string }[] = [
   ...buildLogGroups.map((g) => ({ value: g, label: buildLogGroupLabels[g] })),
 ];
 
-/** The chronological record of one build: a timeline by day, filters, and the CSV and PDF exports. */
 /** The files the log exports to, one button each. */
 const exportFormats: readonly BuildLogFormat[] = ['csv', 'pdf'];
 
+/** The chronological record of one build: a timeline by day, filters, and the CSV and PDF exports. */
 export function BuildLogScreen({ buildId }: { buildId: string }) {
   const router = useRouter();
   const wide = useWide();

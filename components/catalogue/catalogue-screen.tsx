@@ -1,8 +1,9 @@
 import { useRouter } from 'expo-router';
-import { Pressable, StyleSheet, View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 import { partKindLabels, type KitModel, type PartDesignSummary } from '@/db/contracts';
-import { colors, hairline, space, touch } from '@/constants/theme';
+import { space } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
+import { ListRow } from '@/components/ui/list-row';
 import { LoadMore } from '@/components/ui/load-more';
 import { Screen } from '@/components/ui/screen';
 import { Section } from '@/components/ui/sheet';
@@ -17,10 +18,9 @@ const statusWords = { draft: 'draft', published: 'published', superseded: 'super
 
 function DesignRow({ d, onPress }: { d: PartDesignSummary; onPress: () => void }) {
   return (
-    <Pressable
+    <ListRow
       testID={`design-${d.partNumber}`}
-      accessibilityRole="button"
-      accessibilityLabel={[
+      label={[
         `${d.partNumber} ${d.name}, ${partKindLabels[d.kind]}`,
         d.latest ? `latest revision ${d.latest.letter} ${statusWords[d.latest.status]}` : null,
         d.publishedLetter ? `builders get revision ${d.publishedLetter}` : 'not published',
@@ -28,7 +28,8 @@ function DesignRow({ d, onPress }: { d: PartDesignSummary; onPress: () => void }
         .filter(Boolean)
         .join(', ')}
       onPress={onPress}
-      style={({ pressed }) => [styles.row, pressed && { backgroundColor: colors.accentSoft }]}
+      style={styles.row}
+      chevron
     >
       <View style={{ flex: 1 }}>
         <Txt bold>
@@ -59,10 +60,7 @@ function DesignRow({ d, onPress }: { d: PartDesignSummary; onPress: () => void }
           )}
         </Txt>
       </View>
-      <Txt tone="accent" bold aria-hidden>
-        ›
-      </Txt>
-    </Pressable>
+    </ListRow>
   );
 }
 
@@ -178,13 +176,6 @@ export function CatalogueScreen() {
 }
 
 const styles = StyleSheet.create({
-  row: {
-    flexDirection: 'row',
-    alignItems: 'center',
-    gap: space.md,
-    minHeight: touch,
-    paddingVertical: space.sm,
-    borderBottomWidth: hairline,
-    borderColor: colors.rule,
-  },
+  // Tighter than other lists: a kit's designs are many short rows.
+  row: { paddingVertical: space.sm },
 });

@@ -1,8 +1,6 @@
 import { useRouter } from 'expo-router';
 import { useMemo, useState } from 'react';
-import { View } from 'react-native';
 import { isOpenFinding } from '@/db/contracts';
-import { space } from '@/constants/theme';
 import { Choice } from '@/components/ui/choice';
 import { PagedList } from '@/components/ui/paged-list';
 import { Screen } from '@/components/ui/screen';
@@ -31,18 +29,16 @@ export function MyFindingsScreen() {
         what="findings"
         moreTestID="findings-more"
         renderRow={(f) => <FindingRow f={f} onPress={() => router.push(`/findings/${f.id}`)} />}
-        header={
-          <View style={{ paddingBottom: space.md }}>
-            <Choice
-              testIDPrefix="findings-show"
-              value={show}
-              onChange={setShow}
-              options={[
-                { value: 'open', label: 'Open' },
-                { value: 'all', label: 'All' },
-              ]}
-            />
-          </View>
+        filters={
+          <Choice
+            testIDPrefix="findings-show"
+            value={show}
+            onChange={setShow}
+            options={[
+              { value: 'open', label: 'Open' },
+              { value: 'all', label: 'All' },
+            ]}
+          />
         }
         empty={
           q.isPlaceholderData ? null : (

@@ -140,16 +140,16 @@ export function photoRefusal(e: unknown): string | null {
   return /[.!?]$/.test(sentence) ? sentence : `${sentence}.`;
 }
 
-/**
- * Photos being added (a new finding's, or the work done's): thumbnails with remove buttons, and the add
- * buttons. `empty` says what a good photo shows, in the words of the form it is in.
- */
 /** Where a photo comes from: the device's pictures, or the camera now. */
 const photoSources: readonly { source: 'library' | 'camera'; label: string; testID: string }[] = [
   { source: 'library', label: 'Add a photo', testID: 'add-photo' },
   { source: 'camera', label: 'Take a photo', testID: 'take-photo' },
 ];
 
+/**
+ * Photos being added (a new finding's, or the work done's): thumbnails with remove buttons, and the add
+ * buttons. `empty` says what a good photo shows, in the words of the form it is in.
+ */
 export function PhotoPicker({
   photos,
   onAdd,

@@ -1,8 +1,6 @@
 import { useRouter } from 'expo-router';
 import { useEffect, useMemo, useState } from 'react';
-import { View } from 'react-native';
 import type { TravelerSummary } from '@/db/contracts';
-import { space } from '@/constants/theme';
 import { Choice } from '@/components/ui/choice';
 import { TextBox } from '@/components/ui/field';
 import { PagedList } from '@/components/ui/paged-list';
@@ -58,8 +56,8 @@ export function TravelersScreen() {
         what="parts"
         moreTestID="parts-more"
         renderRow={(t) => <TravelerCard t={t} onPress={() => router.push(`/travelers/${t.id}`)} />}
-        header={
-          <View style={{ gap: space.md, paddingBottom: space.md }}>
+        filters={
+          <>
             <Choice
               testIDPrefix="parts-show"
               value={show}
@@ -77,7 +75,7 @@ export function TravelersScreen() {
               testID="parts-search"
               accessibilityLabel="Find a part"
             />
-          </View>
+          </>
         }
         empty={
           <EmptyState

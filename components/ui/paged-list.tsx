@@ -1,10 +1,11 @@
-import type { ReactElement } from 'react';
-import { FlatList } from 'react-native';
+import type { ReactElement, ReactNode } from 'react';
+import { FlatList, StyleSheet, View } from 'react-native';
+import { space } from '@/constants/theme';
 import { LoadMore, nextPage } from './load-more';
 import { ErrorState, LoadingState } from './states';
 
 /** What the list needs of an infinite query (TanStack Query's result has all of it). */
-export type PagedQuery = {
+type PagedQuery = {
   isPending: boolean;
   isError: boolean;
   error: unknown;
@@ -17,7 +18,8 @@ export type PagedQuery = {
 
 /**
  * A screen's paged list: loading and error states while there are no rows to show, then the rows with
- * pull-to-refresh and, at the foot, the count and the next page (<LoadMore/>).
+ * pull-to-refresh, `filters` above them (the choices and search box, spaced alike on every list screen)
+ * and, at the foot, the count and the next page (<LoadMore/>).
  */
 export function PagedList<T extends { id: string }>({
   q,
@@ -26,7 +28,7 @@ export function PagedList<T extends { id: string }>({
   what,
   moreTestID,
   renderRow,
-  header,
+  filters,
   empty,
 }: {
   q: PagedQuery;
@@ -37,7 +39,8 @@ export function PagedList<T extends { id: string }>({
   what: string;
   moreTestID: string;
   renderRow: (row: T) => ReactElement;
-  header?: ReactElement;
+  /** What narrows the list, above the rows. */
+  filters?: ReactNode;
   empty: ReactElement | null;
 }) {
   if (q.isPending) return <LoadingState what={loading} />;
@@ -47,7 +50,7 @@ export function PagedList<T extends { id: string }>({
       data={rows}
       keyExtractor={(r) => r.id}
       renderItem={({ item }) => renderRow(item)}
-      ListHeaderComponent={header}
+      ListHeaderComponent={filters ? <View style={styles.filters}>{filters}</View> : null}
       ListEmptyComponent={empty}
       ListFooterComponent={<LoadMore {...nextPage(q)} shown={rows.length} what={what} testID={moreTestID} />}
       refreshing={q.isRefetching && !q.isFetchingNextPage}
@@ -55,3 +58,7 @@ export function PagedList<T extends { id: string }>({
     />
   );
 }
+
+const styles = StyleSheet.create({
+  filters: { gap: space.md, paddingBottom: space.md },
+});

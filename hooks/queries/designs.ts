@@ -9,9 +9,8 @@ import type {
   RevisionInput,
 } from '@/db/contracts';
 import { api, apiRequest } from '@/lib/api-client';
-import { readPages } from './kits';
 import { useRecordMutation, useRefreshingMutation } from './mutations';
-import { pagedQueryOptions } from './paged';
+import { pagedQueryOptions, readPages } from './paged';
 
 export const designKeys = {
   all: ['designs'] as const,
@@ -28,7 +27,7 @@ export const designQueries = {
   /** The part designs (of one kit, or all), a page at a time by part number. */
   list: (kitModelId?: string) =>
     pagedQueryOptions<Page<PartDesignSummary>>(designKeys.list(kitModelId), '/api/designs', { kitModelId }),
-  /** One kit's part designs as one array, read page after page within the chooser's bound (hooks/queries/kits.ts). */
+  /** One kit's part designs as one array, read page after page within the chooser's bound (readPages). */
   choices: (kitModelId: string) =>
     queryOptions({
       queryKey: designKeys.choices(kitModelId),

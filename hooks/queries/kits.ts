@@ -1,16 +1,9 @@
 import { queryOptions, useInfiniteQuery, useQuery } from '@tanstack/react-query';
-import {
-  PAGE_SIZE_MAX,
-  type KitChangeInput,
-  type KitModel,
-  type KitModelDetail,
-  type KitModelInput,
-  type Page,
-} from '@/db/contracts';
+import type { KitChangeInput, KitModel, KitModelDetail, KitModelInput, Page } from '@/db/contracts';
 import { api, apiRequest } from '@/lib/api-client';
 import { designKeys } from './designs';
 import { useRecordMutation, useRefreshingMutation } from './mutations';
-import { pagedQueryOptions, pagePath } from './paged';
+import { pagedQueryOptions, readPages } from './paged';
 
 export const kitKeys = {
   all: ['kits'] as const,
@@ -27,8 +20,7 @@ export const kitQueries = {
   /** The kit models, a page at a time (by code). */
   list: () => pagedQueryOptions<Page<KitModel>>(kitKeys.list(), '/api/kits'),
   /**
-   * The kit models a form chooses from: pages of the largest size read one after another, at most
-   * KIT_CHOICES_MAX_PAGES of them (a supplier has a few kits; the bound keeps a runaway list from being read whole).
+   * The kit models a form chooses from, read page after page within readPages' bound (a supplier has a few kits).
    */
   choices: () =>
     queryOptions({
@@ -50,26 +42,6 @@ export function useKitPagesQuery() {
 /** Every kit model (within a bound) as one array, for choosing a kit in a form. */
 export function useKitsQuery() {
   return useQuery(kitQueries.choices());
-}
-
-/** Pages a chooser reads at most: 10 × 100 rows. */
-export const CHOICES_MAX_PAGES = 10;
-
-/** A list read page after page for a chooser, up to CHOICES_MAX_PAGES pages. */
-export async function readPages<T>(
-  path: string,
-  filters: Record<string, string | undefined>,
-  signal?: AbortSignal,
-): Promise<T[]> {
-  const rows: T[] = [];
-  let cursor: string | null = null;
-  for (let n = 0; n < CHOICES_MAX_PAGES; n++) {
-    const page: Page<T> = await api.get<Page<T>>(pagePath(path, cursor, { ...filters, limit: PAGE_SIZE_MAX }), signal);
-    rows.push(...page.items);
-    cursor = page.next;
-    if (!cursor) break;
-  }
-  return rows;
 }
 
 /** One kit with what relies on it, what the reader may do, and the history of its data. */

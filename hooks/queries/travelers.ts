@@ -1,5 +1,6 @@
 import {
   keepPreviousData,
+  matchMutation,
   queryOptions,
   useInfiniteQuery,
   useMutation,
@@ -158,7 +159,7 @@ type TickContext = { before: Hole[] };
  * the device (`at`) stays with the tick while it waits; the contract has no field for it yet, and the
  * server records the moment the tick arrives.
  */
-export const postTick = (t: TickVariables) =>
+const postTick = (t: TickVariables) =>
   api.post<TickResult>(`/api/travelers/${encodeURIComponent(t.travelerId)}/holes`, {
     holeIds: t.holeIds,
     status: t.status,
@@ -172,10 +173,7 @@ const TICK_RETRY_CAP_MS = 15_000;
 const REFUSAL_KEPT_MS = 30 * 60_000;
 
 /** A tick not yet through to the server: on its way, waiting for signal, or for a new sign-in. */
-export const isUnsentTick = (m: Pick<Mutation, 'state' | 'options'>) =>
-  m.state.status === 'pending' &&
-  m.options.mutationKey?.[0] === travelerKeys.all[0] &&
-  m.options.mutationKey?.[1] === 'tick';
+export const isUnsentTick = (m: Mutation) => matchMutation({ mutationKey: travelerKeys.ticks(), status: 'pending' }, m);
 
 function unsentTicks(qc: QueryClient, travelerId: string): TickVariables[] {
   return qc
@@ -246,7 +244,7 @@ export function resumeUnsentTicks(qc: QueryClient): Promise<unknown> {
 
 /** Ticks an earlier version of the app kept under a key of its own: handed to the query client once, in order. */
 export async function adoptEarlierTicks(qc: QueryClient): Promise<void> {
-  const old = await readJson<unknown[]>(storageKeys.tickOutbox);
+  const old = await readJson<unknown[]>(storageKeys.oldOfflineTicks);
   if (!Array.isArray(old)) return;
   for (const x of old.slice(0, 5000)) {
     const t = x as Partial<TickVariables>;
@@ -258,7 +256,7 @@ export async function adoptEarlierTicks(qc: QueryClient): Promise<void> {
       .execute({ ...parsed.data, travelerId: t.travelerId, at: t.at })
       .catch(() => undefined);
   }
-  await removeKey(storageKeys.tickOutbox);
+  await removeKey(storageKeys.oldOfflineTicks);
 }
 
 /** Ticking holes on one part: `mutate` takes the holes and their new state and stamps the tick with the device's time. */

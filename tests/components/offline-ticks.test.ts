@@ -1,7 +1,6 @@
 import { onlineManager, QueryClientProvider, type QueryClient } from '@tanstack/react-query';
 import { persistQueryClient } from '@tanstack/react-query-persist-client';
 import { act, createElement } from 'react';
-import { createRoot } from 'react-dom/client';
 import type { TravelerDetail } from '@/db/contracts';
 import {
   isUnsentTick,
@@ -13,11 +12,12 @@ import {
 } from '@/hooks/queries/travelers';
 import { afterRestore, clearForNextPerson, makeQueryClient, persistOptions } from '@/lib/query-client';
 import { storageKeys } from '@/lib/storage';
+import { renderWeb } from './render-web';
 
 /**
- * Ticks made without signal, on TanStack Query's own machinery: paused by its online manager, kept on
- * the device by its persister (localStorage here, as in the browser) with the time each was made on the
- * device, restored into a new client as after a reload, and sent in the order made.
+ * Ticks made without signal, as tick mutations on TanStack Query's own machinery: paused by its online
+ * manager, kept on the device by its persister (localStorage here, as in the browser) with the time each
+ * was made on the device, restored into a new client as after a reload, and sent in the order made.
  */
 
 const detail = (id: string) =>
@@ -77,8 +77,6 @@ async function device(): Promise<QueryClient> {
   return qc;
 }
 
-(globalThis as { IS_REACT_ACT_ENVIRONMENT?: boolean }).IS_REACT_ACT_ENVIRONMENT = true;
-
 /** The bench's two hooks for one part, mounted with react-dom as the web app mounts them. */
 function tickHook(qc: QueryClient, travelerId: string) {
   const result = {} as {
@@ -88,9 +86,8 @@ function tickHook(qc: QueryClient, travelerId: string) {
     result.current = { tick: useTravelerTickMutation(travelerId), queue: useTickQueue(travelerId) };
     return null;
   }
-  const root = createRoot(document.createElement('div'));
-  act(() => root.render(createElement(QueryClientProvider, { client: qc }, createElement(Probe))));
-  return { result, unmount: () => act(() => root.unmount()) };
+  const { unmount } = renderWeb(createElement(QueryClientProvider, { client: qc }, createElement(Probe)));
+  return { result, unmount };
 }
 
 /** Ticks at a given moment of the device's clock (only Date is faked; timers run for real). */
@@ -112,6 +109,12 @@ function at(iso: string) {
   });
 }
 
+/** A tick of one hole on `hook`'s part at a moment of the device's clock (which stays faked: see `at`). */
+function tickAt(hook: ReturnType<typeof tickHook>, iso: string, holeId: string, status: 'installed' | 'pending') {
+  at(iso);
+  act(() => hook.result.current.tick.mutate({ holeIds: [holeId], status }));
+}
+
 const until = async (ok: () => boolean, what: string) => {
   for (let i = 0; i < 200 && !ok(); i++) await act(() => new Promise((r) => setTimeout(r, 25)));
   if (!ok()) throw new Error(`timed out waiting until ${what}`);
@@ -131,12 +134,9 @@ describe('ticks made without signal', () => {
     qc.setQueryData(travelerKeys.detail('t1'), detail('t1'));
     const one = tickHook(qc, 't1');
     const two = tickHook(qc, 't2');
-    at('2026-11-03T14:05:09.000Z');
-    act(() => one.result.current.tick.mutate({ holeIds: ['U-01'], status: 'installed' }));
-    at('2026-11-03T14:06:00.000Z');
-    act(() => two.result.current.tick.mutate({ holeIds: ['U-02'], status: 'installed' }));
-    at('2026-11-03T14:07:30.000Z');
-    act(() => one.result.current.tick.mutate({ holeIds: ['U-02'], status: 'installed' }));
+    tickAt(one, '2026-11-03T14:05:09.000Z', 'U-01', 'installed');
+    tickAt(two, '2026-11-03T14:06:00.000Z', 'U-02', 'installed');
+    tickAt(one, '2026-11-03T14:07:30.000Z', 'U-02', 'installed');
     jest.useRealTimers();
 
     await until(() => one.result.current.queue.waiting.length === 2, 'both ticks of t1 wait');
@@ -163,12 +163,9 @@ describe('ticks made without signal', () => {
     onlineManager.setOnline(false);
     const first = await device();
     const hook = tickHook(first, 't1');
-    at('2026-11-03T09:00:00.000Z');
-    act(() => hook.result.current.tick.mutate({ holeIds: ['U-01'], status: 'installed' }));
-    at('2026-11-03T09:00:04.000Z');
-    act(() => hook.result.current.tick.mutate({ holeIds: ['U-02'], status: 'installed' }));
-    at('2026-11-03T09:01:00.000Z');
-    act(() => hook.result.current.tick.mutate({ holeIds: ['U-01'], status: 'pending' }));
+    tickAt(hook, '2026-11-03T09:00:00.000Z', 'U-01', 'installed');
+    tickAt(hook, '2026-11-03T09:00:04.000Z', 'U-02', 'installed');
+    tickAt(hook, '2026-11-03T09:01:00.000Z', 'U-01', 'pending');
     jest.useRealTimers();
     await until(() => keptOnDevice().length === 3, 'the persister has written them');
     // The tab closes: its client is gone, only the device's storage is left.
@@ -240,7 +237,7 @@ describe('ticks made without signal', () => {
 
   it('kept by an earlier version under its own key are taken over once, in their order', async () => {
     localStorage.setItem(
-      storageKeys.tickOutbox,
+      storageKeys.oldOfflineTicks,
       JSON.stringify([
         { id: 'a', travelerId: 't1', holeIds: ['U-02'], status: 'installed', at: '2026-11-02T10:00:00.000Z' },
         { id: 'b', travelerId: 't1', holeIds: [], status: 'installed', at: '2026-11-02T10:00:01.000Z' },
@@ -254,7 +251,7 @@ describe('ticks made without signal', () => {
       ['t1', { holeIds: ['U-02'], status: 'installed' }],
       ['t2', { holeIds: ['U-01'], status: 'installed' }],
     ]);
-    expect(localStorage.getItem(storageKeys.tickOutbox)).toBeNull();
+    expect(localStorage.getItem(storageKeys.oldOfflineTicks)).toBeNull();
     expect(qc.getMutationCache().getAll().filter(isUnsentTick)).toHaveLength(0);
   });
 });
