@@ -5,7 +5,7 @@ import { colors, hairline, space } from '@/constants/theme';
 import { Caution } from '@/components/ui/caution';
 import { Choice } from '@/components/ui/choice';
 import { Field } from '@/components/ui/field';
-import { LoadMore } from '@/components/ui/load-more';
+import { LoadMore, nextPage } from '@/components/ui/load-more';
 import { Screen } from '@/components/ui/screen';
 import { Section } from '@/components/ui/sheet';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
@@ -338,14 +338,7 @@ export function CouponsScreen() {
         />
       )}
       {q.isSuccess && all.length ? (
-        <LoadMore
-          hasNextPage={q.hasNextPage}
-          isFetchingNextPage={q.isFetchingNextPage}
-          fetchNextPage={q.fetchNextPage}
-          shown={all.length}
-          what="tests"
-          testID="coupons-more"
-        />
+        <LoadMore {...nextPage(q)} shown={all.length} what="tests" testID="coupons-more" />
       ) : null}
     </Section>
   );

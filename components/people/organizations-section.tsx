@@ -10,7 +10,7 @@ import { FormChoiceField, FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
 import { useFormSubmit } from '@/components/forms/use-form-submit';
 import { Button } from '@/components/ui/button';
-import { LoadMore } from '@/components/ui/load-more';
+import { LoadMore, nextPage } from '@/components/ui/load-more';
 import { Section } from '@/components/ui/sheet';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
@@ -56,14 +56,7 @@ export function OrganizationsSection() {
               </Txt>
             </View>
           ))}
-          <LoadMore
-            hasNextPage={q.hasNextPage}
-            isFetchingNextPage={q.isFetchingNextPage}
-            fetchNextPage={q.fetchNextPage}
-            shown={rows.length}
-            what="organisations"
-            testID="organizations-more"
-          />
+          <LoadMore {...nextPage(q)} shown={rows.length} what="organisations" testID="organizations-more" />
         </View>
       )}
     </Section>

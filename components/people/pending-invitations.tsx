@@ -2,7 +2,7 @@ import { StyleSheet, View } from 'react-native';
 import { memberPlaceLabels, roleLabels, type PendingInvitation } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
 import { shortDate } from '@/components/findings/finding-row';
-import { LoadMore } from '@/components/ui/load-more';
+import { LoadMore, nextPage } from '@/components/ui/load-more';
 import { Section } from '@/components/ui/sheet';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
@@ -41,14 +41,7 @@ export function PendingInvitations() {
           {rows.map((i) => (
             <InvitationRow key={i.id} i={i} />
           ))}
-          <LoadMore
-            hasNextPage={q.hasNextPage}
-            isFetchingNextPage={q.isFetchingNextPage}
-            fetchNextPage={q.fetchNextPage}
-            shown={rows.length}
-            what="invitations"
-            testID="invitations-more"
-          />
+          <LoadMore {...nextPage(q)} shown={rows.length} what="invitations" testID="invitations-more" />
         </View>
       )}
     </Section>

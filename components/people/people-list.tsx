@@ -4,7 +4,7 @@ import type { OrganizationSummary, PersonSummary } from '@/db/contracts';
 import { colors, hairline, space, touch } from '@/constants/theme';
 import { Choice } from '@/components/ui/choice';
 import { FindField } from '@/components/ui/field';
-import { LoadMore } from '@/components/ui/load-more';
+import { LoadMore, nextPage } from '@/components/ui/load-more';
 import { Section } from '@/components/ui/sheet';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
@@ -96,14 +96,7 @@ export function PeopleList({
         </View>
       )}
       {q.isSuccess && all.length ? (
-        <LoadMore
-          hasNextPage={q.hasNextPage}
-          isFetchingNextPage={q.isFetchingNextPage}
-          fetchNextPage={q.fetchNextPage}
-          shown={all.length}
-          what="people"
-          testID="people-more"
-        />
+        <LoadMore {...nextPage(q)} shown={all.length} what="people" testID="people-more" />
       ) : null}
     </Section>
   );

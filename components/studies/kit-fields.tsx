@@ -4,8 +4,6 @@ import { NumberRows, type NumberFieldSpec } from '@/components/forms/number-rows
 import { Txt } from '@/components/ui/text';
 import type { StudyFormValues } from './study-form-values';
 
-export { Cell, Row } from '@/components/forms/number-rows';
-
 type Spec = NumberFieldSpec<StudyFormValues>;
 
 const massAndSpeeds = (prefix: string): Spec[][] => [

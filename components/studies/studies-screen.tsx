@@ -1,9 +1,10 @@
 import { useRouter } from 'expo-router';
-import { Pressable, StyleSheet, View } from 'react-native';
+import { StyleSheet, View } from 'react-native';
 import type { StudyKind, StudySummary } from '@/db/contracts';
-import { colors, hairline, radius, space, touch } from '@/constants/theme';
+import { colors, hairline, radius, space } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
-import { LoadMore } from '@/components/ui/load-more';
+import { ListRow } from '@/components/ui/list-row';
+import { LoadMore, nextPage } from '@/components/ui/load-more';
 import { Screen } from '@/components/ui/screen';
 import { EmptyState, ErrorState, LoadingState } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
@@ -26,16 +27,15 @@ function StudyRow({ s, onPress }: { s: StudySummary; onPress: () => void }) {
   const u = useUnits();
   const kind = kindOf(s);
   return (
-    <Pressable
+    <ListRow
       testID={`study-row-${s.id}`}
-      accessibilityRole="button"
-      accessibilityLabel={`${studyKindLabels[kind]} study: ${s.name}, ${s.kitName}, revision ${s.revision}, ${whenText(s.updatedAt)}, ${
+      label={`${studyKindLabels[kind]} study: ${s.name}, ${s.kitName}, revision ${s.revision}, ${whenText(s.updatedAt)}, ${
         s.recommended
           ? `${recommendedWords(s).toLowerCase()} ${u.length(s.recommended.gaugeIn)} with ${s.recommended.rivet}`
           : 'no gauge and rivet pair carries the loads'
       }`}
       onPress={onPress}
-      style={({ pressed }) => [styles.row, pressed && { backgroundColor: colors.accentSoft }]}
+      chevron
     >
       <View style={styles.kind} testID={`study-row-${s.id}-kind`}>
         <Txt variant="small" bold>
@@ -70,10 +70,7 @@ function StudyRow({ s, onPress }: { s: StudySummary; onPress: () => void }) {
           )}
         </Txt>
       </View>
-      <Txt tone="accent" bold aria-hidden>
-        ›
-      </Txt>
-    </Pressable>
+    </ListRow>
   );
 }
 
@@ -133,14 +130,7 @@ export function StudiesScreen() {
           {rows.map((s) => (
             <StudyRow key={s.id} s={s} onPress={() => router.push(`/studies/${s.id}`)} />
           ))}
-          <LoadMore
-            hasNextPage={q.hasNextPage}
-            isFetchingNextPage={q.isFetchingNextPage}
-            fetchNextPage={q.fetchNextPage}
-            shown={rows.length}
-            what="studies"
-            testID="studies-more"
-          />
+          <LoadMore {...nextPage(q)} shown={rows.length} what="studies" testID="studies-more" />
         </View>
       )}
     </Screen>
@@ -158,13 +148,4 @@ const styles = StyleSheet.create({
     borderRadius: radius.sm,
   },
   newButtons: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm, justifyContent: 'flex-end' },
-  row: {
-    flexDirection: 'row',
-    alignItems: 'center',
-    gap: space.md,
-    minHeight: touch,
-    paddingVertical: space.md,
-    borderBottomWidth: hairline,
-    borderColor: colors.rule,
-  },
 });

@@ -15,7 +15,7 @@ import type { KitModel } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
 import { FormError } from '@/components/forms/form-error';
 import { FormChoiceField, FormTextField } from '@/components/forms/form-fields';
-import { NumberRows, type NumberFieldSpec } from '@/components/forms/number-rows';
+import { Cell, NumberRows, Row, type NumberFieldSpec } from '@/components/forms/number-rows';
 import { errorAt } from '@/components/forms/server-errors';
 import { Button } from '@/components/ui/button';
 import { Choice, MultiChoice } from '@/components/ui/choice';
@@ -25,7 +25,7 @@ import { Notice } from '@/components/ui/states';
 import { Label, Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
 import { AirfoilFields } from './airfoil-fields';
-import { Cell, KitFields, Row } from './kit-fields';
+import { KitFields } from './kit-fields';
 import {
   gaugeKey,
   gaugeLabel,

@@ -1,5 +1,4 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useForm } from 'react-hook-form';
 import { View } from 'react-native';
 import type { z } from 'zod';
 import { ribStudyForm, type KitModel } from '@/db/contracts';
@@ -19,7 +18,7 @@ import {
   type StudyFormProps,
 } from './study-form-parts';
 import { kitIntoStudy, studyFieldFor, type StudyFormValues } from './study-form-values';
-import { useStudySubmit } from './use-study-submit';
+import { useStudyForm } from './use-study-form';
 
 export type StudyOutput = z.output<typeof ribStudyForm>;
 
@@ -29,19 +28,14 @@ type Props = StudyFormProps<StudyFormValues, StudyOutput>;
 
 /** The load study's inputs: kit data, airfoil, rib, fastener lines, material and candidates, settings. */
 export function StudyForm({ kits, defaultValues, isNew, submitLabel, onSubmit, note }: Props) {
-  const { control, handleSubmit, setError, setValue, getValues, reset, formState } = useForm<
-    StudyFormValues,
-    unknown,
-    StudyOutput
-  >({
-    resolver,
-    mode: 'onChange',
-    defaultValues,
-  });
-  const { submit, formError } = useStudySubmit({ handleSubmit, setError, onSubmit, fieldFor: studyFieldFor });
+  const {
+    form: { control, setValue, getValues, formState },
+    submit,
+    formError,
+    take,
+  } = useStudyForm<StudyFormValues, StudyOutput>({ resolver, defaultValues, onSubmit, fieldFor: studyFieldFor });
 
-  const takeKit = (k: KitModel) =>
-    reset(kitIntoStudy(getValues(), k), { keepDefaultValues: true, keepDirty: false, keepErrors: false });
+  const takeKit = (k: KitModel) => take(kitIntoStudy(getValues(), k));
 
   return (
     <View style={{ gap: space.xl }} testID="study-form">

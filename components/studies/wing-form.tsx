@@ -2,7 +2,6 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import {
   useFieldArray,
-  useForm,
   useFormState,
   useWatch,
   type Control,
@@ -17,7 +16,7 @@ import { colors, hairline, space } from '@/constants/theme';
 import { FormError } from '@/components/forms/form-error';
 import { FormChoiceField, FormNumberField, FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
-import { NumberRows, type NumberFieldSpec } from '@/components/forms/number-rows';
+import { Cell, NumberRows, Row, type NumberFieldSpec } from '@/components/forms/number-rows';
 import { errorAt } from '@/components/forms/server-errors';
 import { Button } from '@/components/ui/button';
 import { Choice } from '@/components/ui/choice';
@@ -26,7 +25,6 @@ import { Section } from '@/components/ui/sheet';
 import { Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
-import { Cell, Row } from './kit-fields';
 import {
   FastenerLinesSection,
   GaugeChips,
@@ -39,7 +37,7 @@ import {
   type StudyFormProps,
 } from './study-form-parts';
 import type { StudyFormValues } from './study-form-values';
-import { useStudySubmit } from './use-study-submit';
+import { useStudyForm } from './use-study-form';
 import {
   evenlySpacedRibs,
   kitIntoWing,
@@ -63,26 +61,18 @@ type Props = StudyFormProps<WingFormValues, WingOutput>;
  */
 export function WingForm({ kits, defaultValues, isNew, submitLabel, onSubmit, note }: Props) {
   const units = useUnits();
-  const { control, handleSubmit, setError, setValue, getValues, reset, formState } = useForm<
-    WingFormValues,
-    unknown,
-    WingOutput
-  >({
-    resolver,
-    mode: 'onChange',
-    defaultValues,
-  });
+  const {
+    form: { control, setValue, getValues, formState },
+    submit,
+    formError,
+    take,
+  } = useStudyForm<WingFormValues, WingOutput>({ resolver, defaultValues, onSubmit, fieldFor: wingFieldFor });
   // The blocks at the same paths as the rib form's (kit, airfoil, material, settings) take this form's control.
   const shared = control as unknown as Control<StudyFormValues>;
-  const { submit, formError } = useStudySubmit({ handleSubmit, setError, onSubmit, fieldFor: wingFieldFor });
 
   // Taken again, the kit keeps the planform: the person may have drawn their own.
   const takeKit = (k: KitModel, when: 'chosen' | 'again') =>
-    reset(kitIntoWing(getValues(), k, { planform: when === 'chosen' }), {
-      keepDefaultValues: true,
-      keepDirty: false,
-      keepErrors: false,
-    });
+    take(kitIntoWing(getValues(), k, { planform: when === 'chosen' }));
 
   return (
     <View style={{ gap: space.xl }} testID="wing-form">

@@ -15,9 +15,10 @@ type KitValues = z.input<typeof kitModelInput>;
 
 let setServerError: ((e: unknown) => string) | null = null;
 let lastValues: Partial<KitValues> = {};
+let resetForm: ((v: Partial<KitValues>) => void) | null = null;
 
 function KitBits() {
-  const { control, setError } = useForm<KitValues, unknown, z.output<typeof kitModelInput>>({
+  const { control, setError, reset } = useForm<KitValues, unknown, z.output<typeof kitModelInput>>({
     resolver: zodResolver(kitModelInput, plainParse),
     mode: 'onChange',
     defaultValues: { code: '', name: '', airfoil: 'NACA ', category: 'normal' },
@@ -26,6 +27,7 @@ function KitBits() {
   // Handed to the test once rendered (an effect: a render itself changes nothing outside the component).
   useEffect(() => {
     setServerError = (e) => applyServerErrors(setError, e);
+    resetForm = (v) => reset(v);
     lastValues = values;
   });
   return (
@@ -67,6 +69,15 @@ describe('forms say what is wrong in plain words', () => {
     expect(r.byTestId('kit-weight-field').textContent).toContain('kg');
     await r.type('kit-weight', '600');
     expect(lastValues.weightLb).toBeCloseTo(600 / 0.45359237, 6);
+  });
+
+  it('keeps a half-typed number as typed, and shows a value put in from outside (a reset, a kit taken)', async () => {
+    const r = renderWeb(<KitBits />);
+    await r.type('kit-weight', '1.');
+    expect((r.byTestId('kit-weight') as HTMLInputElement).value).toBe('1.');
+    expect(lastValues.weightLb).toBe(1);
+    await act(async () => resetForm!({ code: '', name: '', airfoil: 'NACA ', category: 'normal', weightLb: 1320 }));
+    expect((r.byTestId('kit-weight') as HTMLInputElement).value).toBe('1320');
   });
 
   it('puts the server’s field messages under the fields they name', async () => {

@@ -14,9 +14,7 @@ import {
   wrapSignedIn,
 } from './people-fixtures';
 
-jest.mock('expo-router', () => ({
-  useRouter: () => ({ push: jest.fn(), replace: jest.fn(), back: jest.fn(), canGoBack: () => false }),
-}));
+jest.mock('expo-router', () => jest.requireActual('../helpers/expo-router-stub'));
 
 /** A list as the infinite query holds it: the pages loaded so far (one here), and where the next one starts. */
 const paged = <T,>(items: T[], next: string | null = null) => ({ pages: [{ items, next }], pageParams: [null] });
@@ -237,5 +235,18 @@ describe('inviting', () => {
     await r.settle();
     expect(r.byTestId('empty').textContent).toContain('Not yours to manage');
     expect(calls.filter((c) => c.url.startsWith('/api/people'))).toEqual([]);
+  });
+});
+
+describe('a new organisation', () => {
+  it('marks an empty name at the field only, with nothing at the top of the form, and sends nothing', async () => {
+    const calls = recordFetch({});
+    const r = wrapSignedIn(<PeopleScreen />, admin, seeded());
+    await r.settle();
+    await r.press('org-new');
+    await r.press('org-create');
+    expect(r.byTestId('org-name-field-error').textContent).not.toBe('');
+    expect(r.queryByTestId('org-error')).toBeNull();
+    expect(calls.filter((c) => c.method === 'POST')).toEqual([]);
   });
 });

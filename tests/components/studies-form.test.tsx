@@ -157,6 +157,31 @@ describe('the study form', () => {
     expect(r.byTestId('study-form-error').textContent).toContain('the wing torque and the cell area go together');
   });
 
+  it('words a refusal as not computed, without the server’s field paths, and a stop by its own checks as a look', async () => {
+    let refusal = new ApiError(400, 'invalid_input', 'cellAreaSqIn: the wing torque and the cell area go together', {
+      cellAreaSqIn: 'the wing torque and the cell area go together.',
+    });
+    const r = renderForm('imperial', async () => {
+      throw refusal;
+    });
+    await r.type('study-name', 'Words');
+    await r.type('study-rib-spacing', '14.5');
+    await r.press('study-compute');
+    expect(r.byTestId('study-form-error').textContent).toBe(
+      'Not computed: the wing torque and the cell area go together.',
+    );
+    refusal = new ApiError(400, 'invalid_input', 'lines[1].endXc: after the start', {
+      'lines[1].endXc': 'after the start',
+    });
+    await r.press('study-compute');
+    expect(r.byTestId('study-form-error').textContent).toBe(
+      'Not computed: some inputs were refused. See the marked fields.',
+    );
+    await r.type('study-weight', '-5');
+    await r.press('study-compute');
+    expect(r.byTestId('study-form-error').textContent).toBe('Some inputs need a look: see the messages in red.');
+  });
+
   it('adds and removes fastener lines', async () => {
     const r = renderForm('imperial', async () => {});
     await r.press('study-line-add');
