@@ -9,8 +9,8 @@ import { renderWeb } from './render-web';
 
 let mockFocused = false;
 jest.mock('expo-router', () => ({
+  ...jest.requireActual('../helpers/expo-router-stub'),
   useIsFocused: () => mockFocused,
-  useRouter: () => ({ push: jest.fn(), replace: jest.fn(), back: jest.fn(), canGoBack: () => false }),
 }));
 
 function Body({ name }: { name: string }) {

@@ -109,28 +109,6 @@ const focusedTestId = (page: Page) =>
     const id = el.closest('[data-testid]')?.getAttribute('data-testid');
     return id ?? `<${el.tagName.toLowerCase()} "${(el.textContent ?? '').trim().slice(0, 30)}">`;
   });
-
-/** Keeps, in the page, where focus goes and when (read back by focusLog when a check of focus fails). */
-const recordFocus = (page: Page) =>
-  page.addInitScript(() => {
-    const log: string[] = [];
-    (window as unknown as { focusLog: string[] }).focusLog = log;
-    const name = (e: EventTarget | null) => {
-      const el = e instanceof Element ? e : null;
-      if (!el) return 'nothing';
-      const id = el.closest('[data-testid]')?.getAttribute('data-testid') ?? '';
-      return `${el.tagName.toLowerCase()}[${id}]${el.isConnected ? '' : ' (removed)'}`;
-    };
-    const at = () => Math.round(performance.now());
-    document.addEventListener('focusin', (e) => log.push(`${at()} in ${name(e.target)}`), true);
-    document.addEventListener(
-      'focusout',
-      (e) => log.push(`${at()} out ${name(e.target)} → ${name(e.relatedTarget)}`),
-      true,
-    );
-  });
-const focusLog = (page: Page) =>
-  page.evaluate(() => ((window as unknown as { focusLog?: string[] }).focusLog ?? []).slice(-40).join('\n'));
 const checked = (page: Page, id: string) => visible(page, id).getAttribute('aria-checked');
 
 /** Puts keyboard focus on a control (as Tab would) without pressing it; the keys then do the work. */
@@ -215,7 +193,6 @@ describe('the keyboard alone, Space and Enter both', () => {
       serviceWorkers: 'block',
     });
     const page = await context.newPage();
-    await recordFocus(page);
     try {
       await page.goto('/');
       await visible(page, 'email').focus();
@@ -239,9 +216,7 @@ describe('the keyboard alone, Space and Enter both', () => {
         () => focusedTestId(page),
         (v) => v === 'screen-title',
         'focus after signing in',
-      ).catch(async (e: Error) => {
-        throw new Error(`${e.message}\nwhere focus went:\n${await focusLog(page)}`);
-      });
+      );
       expect(await page.evaluate(() => document.activeElement?.textContent)).toBe('Bench');
     } finally {
       await context.close();

@@ -4,9 +4,9 @@ import os from 'node:os';
 import path from 'node:path';
 import type { Browser } from 'playwright-core';
 import request from 'supertest';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
 import type { TestApp } from '../helpers/test-app';
-import { launchBrowser, phonePage } from './helpers/browser';
+import { fillSignIn, launchBrowser, phonePage } from './helpers/browser';
 import { writeQrVideo } from './helpers/qr-video';
 import { serveTestApp } from './helpers/served-app';
 
@@ -57,9 +57,7 @@ describe('the bench over HTTPS at the public address', () => {
     const page = await phonePage(browser, base);
     await page.goto('/');
     expect(await page.evaluate(() => window.isSecureContext && location.protocol)).toBe('https:');
-    await page.getByTestId('email').fill(DEMO_USERS.builder.email);
-    await page.getByTestId('password').fill(DEMO_PASSWORD);
-    await page.getByTestId('sign-in').click();
+    await fillSignIn(page, DEMO_USERS.builder.email);
     await page.getByTestId('start-scan').click();
     await page.getByTestId('traveler-screen').waitFor({ timeout: 30000 });
     expect(await page.getByTestId('part-number').textContent()).toContain('W-104');
@@ -80,9 +78,7 @@ describe('the bench over HTTPS at the public address', () => {
     browser ??= await launchBrowser({ trustSpki: spki });
     const page = await phonePage(browser, base);
     await page.goto(label.url);
-    await page.getByTestId('email').fill(DEMO_USERS.builder.email);
-    await page.getByTestId('password').fill(DEMO_PASSWORD);
-    await page.getByTestId('sign-in').click();
+    await fillSignIn(page, DEMO_USERS.builder.email);
     await page.getByTestId('traveler-screen').waitFor({ timeout: 30000 });
     expect(await page.getByTestId('part-number').textContent()).toContain('W-105');
   });

@@ -29,9 +29,6 @@ async function api<T>(email: string, path: string): Promise<T> {
   return res.body as T;
 }
 
-/** The sign-in form, filled and sent, on whatever page the guard showed it. */
-const signInHere = fillSignIn;
-
 describe('a link opened while signed out opens after sign-in', () => {
   it('a mail’s link to a finding: sign-in says what will open, survives a reload, then shows that finding', async () => {
     const findings = (await api<{ items: { id: string }[] }>(DEMO_USERS.inspector.email, '/api/findings')).items;
@@ -50,7 +47,7 @@ describe('a link opened while signed out opens after sign-in', () => {
     await notice.waitFor({ timeout: 30000 });
     expect(await notice.textContent()).toContain('Sign in to open the finding you were sent');
 
-    await signInHere(page, DEMO_USERS.inspector.email);
+    await fillSignIn(page, DEMO_USERS.inspector.email);
     await page.waitForURL((url) => url.pathname === `/findings/${findingId}`, { timeout: 30000 });
     await page.getByTestId('finding-screen').waitFor({ timeout: 30000 });
     // Used once: nothing is left to send the person there again.
@@ -80,7 +77,7 @@ describe('a link opened while signed out opens after sign-in', () => {
     expect(await notice.textContent()).toContain('Sign in to open the part you scanned');
     expect(new URL(page.url()).pathname).toBe('/sign-in');
 
-    await signInHere(page, DEMO_USERS.builder.email);
+    await fillSignIn(page, DEMO_USERS.builder.email);
     // The label's page looks the part up and moves on to it; the address says so before the screen draws.
     await page.waitForURL((url) => url.pathname === `/travelers/${label.travelerId}`, { timeout: 30000 });
     await page.getByTestId('traveler-screen').waitFor({ timeout: 30000 });
@@ -92,7 +89,7 @@ describe('a link opened while signed out opens after sign-in', () => {
     await page.goto('/sign-in');
     await page.getByTestId('email').waitFor({ timeout: 30000 });
     expect(await page.getByTestId('pending-link').count()).toBe(0);
-    await signInHere(page, DEMO_USERS.inspector.email);
+    await fillSignIn(page, DEMO_USERS.inspector.email);
     await page.getByTestId('review-screen').waitFor({ timeout: 30000 });
     await page.context().close();
   });
@@ -106,7 +103,7 @@ describe('a link opened while signed out opens after sign-in', () => {
     await page.reload();
     await page.getByTestId('email').waitFor({ timeout: 30000 });
     expect(await page.getByTestId('pending-link').count()).toBe(0);
-    await signInHere(page, DEMO_USERS.inspector.email);
+    await fillSignIn(page, DEMO_USERS.inspector.email);
     await page.getByTestId('review-screen').waitFor({ timeout: 30000 });
     expect(new URL(page.url()).origin).toBe(new URL(base).origin);
     await page.context().close();

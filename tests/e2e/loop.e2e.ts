@@ -4,10 +4,10 @@ import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import sharp from 'sharp';
 import request from 'supertest';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
 import { readQr } from '../fixtures/read-qr';
 import type { TestApp } from '../helpers/test-app';
-import { launchBrowser, phonePage } from './helpers/browser';
+import { fillSignIn, launchBrowser, phonePage } from './helpers/browser';
 import { writeQrVideo } from './helpers/qr-video';
 import { serveTestApp } from './helpers/served-app';
 
@@ -51,9 +51,7 @@ const visible = (page: Page, id: string) => page.locator(`[data-testid="${id}"]:
 
 async function signIn(page: Page, email: string) {
   await page.goto('/');
-  await page.getByTestId('email').fill(email);
-  await page.getByTestId('password').fill(DEMO_PASSWORD);
-  await page.getByTestId('sign-in').click();
+  await fillSignIn(page, email);
 }
 
 describe('the loop in a real browser at phone size', () => {
@@ -223,6 +221,8 @@ describe('the loop in a real browser at phone size', () => {
     await page.getByTestId('action-note').fill('Drill out and set the same rivet again, checking the edge distance');
     await page.getByTestId('finding-action-disposition').click();
     await page.getByTestId('disposition').waitFor({ timeout: 15000 });
+    // The history is read again after the disposition shows: wait for its new line before reading it.
+    await page.getByTestId('history').getByText('Drill out and set the same rivet again').waitFor({ timeout: 15000 });
     expect(await page.getByTestId('history').textContent()).toContain('Drill out and set the same rivet again');
 
     await t.waitForMail(

@@ -4,9 +4,9 @@ import type { Browser, Page } from 'playwright-core';
 import sharp from 'sharp';
 import request from 'supertest';
 import type { SessionUser, TravelerDetail, TravelerSummary } from '@/db/contracts';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
 import { startTestApp, type TestApp } from '../helpers/test-app';
-import { launchBrowser, phonePage } from './helpers/browser';
+import { fillSignIn, launchBrowser, phonePage } from './helpers/browser';
 import { webDist } from './helpers/served-app';
 
 /**
@@ -68,9 +68,7 @@ async function api<T>(url: string): Promise<T> {
 
 async function signIn(page: Page, at: string) {
   await page.goto(at);
-  await page.getByTestId('email').fill(DEMO_USERS.builder.email);
-  await page.getByTestId('password').fill(DEMO_PASSWORD);
-  await page.getByTestId('sign-in').click();
+  await fillSignIn(page, DEMO_USERS.builder.email);
   await visible(page, 'bench-screen').waitFor({ timeout: 30_000 });
 }
 

@@ -2,8 +2,8 @@ import type { Browser, Page } from 'playwright-core';
 import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
 import type { TestApp } from '../helpers/test-app';
-import { launchBrowser, phonePage } from './helpers/browser';
-import { serveTestApp } from './helpers/served-app';
+import { fillSignIn, phonePage } from './helpers/browser';
+import { servedWithBrowser } from './helpers/served-app';
 
 /**
  * People join through the screens alone, in Debian's headless Chromium against the real server,
@@ -15,7 +15,6 @@ jest.setTimeout(300_000);
 
 let t: TestApp;
 let base: string;
-let closeApp: () => Promise<void>;
 let browser: Browser;
 
 // Strong by the server's strength package (several unrelated words and a number), and nobody's name.
@@ -25,14 +24,7 @@ const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 const visible = (page: Page, id: string) => page.locator(`[data-testid="${id}"]:visible`).first();
 const stamp = () => Date.now().toString(36).slice(-5);
 
-beforeAll(async () => {
-  ({ t, base, close: closeApp } = await serveTestApp());
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close().catch(() => undefined);
-  await closeApp?.();
-});
+servedWithBrowser((s) => ({ t, base, browser } = s));
 
 /** An office screen, wide enough for two panes. */
 async function widePage() {
@@ -42,9 +34,7 @@ async function widePage() {
 
 async function signIn(page: Page, email: string, password = DEMO_PASSWORD) {
   await page.goto('/');
-  await page.getByTestId('email').fill(email);
-  await page.getByTestId('password').fill(password);
-  await page.getByTestId('sign-in').click();
+  await fillSignIn(page, email, password);
 }
 
 /** The path of the one-time link in the newest mail to `to` whose link goes to `kind` (`invite` or `reset`). */

@@ -1,9 +1,9 @@
 import type { Browser, Page } from 'playwright-core';
 import request from 'supertest';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
 import type { TestApp } from '../helpers/test-app';
-import { launchBrowser, phonePage } from './helpers/browser';
-import { serveTestApp } from './helpers/served-app';
+import { fillSignIn, phonePage } from './helpers/browser';
+import { servedWithBrowser } from './helpers/served-app';
 
 /**
  * The supplier on a phone takes back what can be taken back: corrects a recorded coupon (the old entry
@@ -12,28 +12,20 @@ import { serveTestApp } from './helpers/served-app';
 jest.setTimeout(300_000);
 
 let t: TestApp;
-let closeApp: () => Promise<void>;
+let base: string;
 let browser: Browser;
 let page: Page;
 let token: string;
 const auth = () => ({ Authorization: `Bearer ${token}` });
 const visible = (id: string) => page.locator(`[data-testid="${id}"]:visible`).first();
 
+servedWithBrowser((s) => ({ t, base, browser } = s));
 beforeAll(async () => {
-  let base: string;
-  ({ t, base, close: closeApp } = await serveTestApp());
   token = await t.signIn(DEMO_USERS.supplier.email);
-  browser = await launchBrowser();
   page = await phonePage(browser, base);
   await page.goto('/');
-  await page.getByTestId('email').fill(DEMO_USERS.supplier.email);
-  await page.getByTestId('password').fill(DEMO_PASSWORD);
-  await page.getByTestId('sign-in').click();
+  await fillSignIn(page, DEMO_USERS.supplier.email);
   await page.locator('[data-testid="tab-catalogue"]:visible').first().waitFor({ timeout: 30000 });
-});
-afterAll(async () => {
-  await browser?.close();
-  await closeApp?.();
 });
 
 async function designOf(partNumber: string) {

@@ -4,9 +4,9 @@ import path from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import sharp from 'sharp';
 import request from 'supertest';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
 import type { TestApp } from '../helpers/test-app';
-import { launchBrowser, phonePage } from './helpers/browser';
+import { fillSignIn, launchBrowser, phonePage } from './helpers/browser';
 import { writeQrVideo } from './helpers/qr-video';
 import { serveTestApp } from './helpers/served-app';
 
@@ -109,9 +109,7 @@ describe('security headers in a real browser', () => {
     expect(headers['x-content-type-options']).toBe('nosniff');
     expect(headers['referrer-policy']).toBe('no-referrer');
 
-    await page.getByTestId('email').fill(DEMO_USERS.builder.email);
-    await page.getByTestId('password').fill(DEMO_PASSWORD);
-    await page.getByTestId('sign-in').click();
+    await fillSignIn(page, DEMO_USERS.builder.email);
     await page.getByTestId('bench-screen').waitFor({ timeout: 30_000 });
 
     // The QR reader: zxing's wasm from our own origin, compiled under 'wasm-unsafe-eval'.

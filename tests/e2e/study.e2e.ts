@@ -1,9 +1,9 @@
 import type { Browser, Page } from 'playwright-core';
 import request from 'supertest';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
 import type { TestApp } from '../helpers/test-app';
-import { launchBrowser } from './helpers/browser';
-import { serveTestApp } from './helpers/served-app';
+import { fillSignIn } from './helpers/browser';
+import { servedWithBrowser } from './helpers/served-app';
 
 /**
  * The supplier's load study in a real browser on a wide screen: the demo rib study shows its pictures,
@@ -13,27 +13,19 @@ import { serveTestApp } from './helpers/served-app';
 jest.setTimeout(300_000);
 
 let t: TestApp;
-let closeApp: () => Promise<void>;
+let base: string;
 let browser: Browser;
 let page: Page;
 
+servedWithBrowser((s) => ({ t, base, browser } = s));
 beforeAll(async () => {
-  let base: string;
-  ({ t, base, close: closeApp } = await serveTestApp());
-  browser = await launchBrowser();
   page = await (await browser.newContext({ baseURL: base, viewport: { width: 1366, height: 900 } })).newPage();
-});
-afterAll(async () => {
-  await browser?.close();
-  await closeApp?.();
 });
 
 describe('a load study on the supplier’s wide screen', () => {
   it('shows the pressure, the loads against the allowables, the zones, the trade table and the caution', async () => {
     await page.goto('/');
-    await page.getByTestId('email').fill(DEMO_USERS.supplier.email);
-    await page.getByTestId('password').fill(DEMO_PASSWORD);
-    await page.getByTestId('sign-in').click();
+    await fillSignIn(page, DEMO_USERS.supplier.email);
     await page.locator('[data-testid="tab-studies"]:visible').first().click();
     await page.locator('[data-testid^="study-row-"]').first().click();
     await page.getByTestId('study-screen').waitFor({ timeout: 30000 });

@@ -2,10 +2,10 @@ import os from 'node:os';
 import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import request from 'supertest';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
+import { DEMO_SKIN_REVISION, DEMO_USERS } from '@/server/dev/seed';
 import type { TestApp } from '../helpers/test-app';
-import { launchBrowser, phonePage } from './helpers/browser';
-import { serveTestApp } from './helpers/served-app';
+import { fillSignIn, phonePage } from './helpers/browser';
+import { servedWithBrowser } from './helpers/served-app';
 
 /**
  * A whole-wing study on the supplier's phone: made from the form (the kit's numbers pre-filled, the ten
@@ -15,7 +15,7 @@ import { serveTestApp } from './helpers/served-app';
 jest.setTimeout(300_000);
 
 let t: TestApp;
-let closeApp: () => Promise<void>;
+let base: string;
 let browser: Browser;
 let page: Page;
 let auth: { Authorization: string };
@@ -24,11 +24,11 @@ const SHOTS = path.join(os.tmpdir(), 'pitchcard-wing-e2e');
 
 const visible = (id: string) => page.locator(`[data-testid="${id}"]:visible`).first();
 
+servedWithBrowser((s) => ({ t, base, browser } = s));
 beforeAll(async () => {
-  let base: string;
-  ({ t, base, close: closeApp } = await serveTestApp());
   auth = { Authorization: `Bearer ${await t.signIn(DEMO_USERS.supplier.email)}` };
-  // A skin panel of the root bay of our own, so the test does not lean on what the demo happens to hold.
+  // A skin panel of the root bay of our own, so the test does not lean on what the demo happens to hold:
+  // the demo skin's revision with only its front-spar line.
   const kit = (await request(t.app).get('/api/kits').set(auth)).body.items.find(
     (k: { code: string }) => k.code === 'NK-2',
   );
@@ -43,44 +43,21 @@ beforeAll(async () => {
         kind: 'skin_panel',
       },
       revision: {
-        material: '6061-T6',
-        gaugeIn: 0.025,
-        rivetSpec: 'MS20426AD3',
-        drillSize: '#40',
-        drillDiameterIn: 0.098,
-        edgeDistanceIn: 0.25,
-        chordIn: 30,
-        lines: [
-          {
-            code: 'FS',
-            name: 'Front spar',
-            surface: 'upper',
-            startIn: 0,
-            lengthIn: 14.5,
-            zones: [{ fromIn: 0, toIn: 14.5, pitchIn: 1 }],
-          },
-        ],
+        ...DEMO_SKIN_REVISION,
+        lines: DEMO_SKIN_REVISION.lines.filter((l) => l.code === 'FS'),
         steps: ['Cleco the skin to the spars and ribs'],
-        changeNote: '',
       },
     });
   if (made.status !== 201)
     throw new Error(`the skin panel design was not made: ${made.status} ${JSON.stringify(made.body)}`);
   skinDesignId = made.body.id;
-  browser = await launchBrowser();
   page = await phonePage(browser, base);
-});
-afterAll(async () => {
-  await browser?.close();
-  await closeApp?.();
 });
 
 describe('a whole-wing study on the supplier’s phone', () => {
   it('is made from the form with the kit’s numbers and the default ribs', async () => {
     await page.goto('/');
-    await page.getByTestId('email').fill(DEMO_USERS.supplier.email);
-    await page.getByTestId('password').fill(DEMO_PASSWORD);
-    await page.getByTestId('sign-in').click();
+    await fillSignIn(page, DEMO_USERS.supplier.email);
     await visible('tab-studies').click();
     await visible('new-wing-study').click();
     await visible('wing-form').waitFor({ timeout: 30000 });
@@ -168,9 +145,7 @@ describe('a whole-wing study on the supplier’s phone', () => {
       await browser.newContext({ baseURL: new URL(page.url()).origin, viewport: { width: 1366, height: 900 } })
     ).newPage();
     await wide.goto('/');
-    await wide.getByTestId('email').fill(DEMO_USERS.supplier.email);
-    await wide.getByTestId('password').fill(DEMO_PASSWORD);
-    await wide.getByTestId('sign-in').click();
+    await fillSignIn(wide, DEMO_USERS.supplier.email);
     await wide.locator('[data-testid="tab-studies"]:visible').first().click();
     await wide.locator('[data-testid^="study-row-"]', { hasText: 'Left wing from the phone' }).first().click();
     await wide.locator('[data-testid="wing-results"]:visible').first().waitFor({ timeout: 30000 });

@@ -1,14 +1,12 @@
 import request from 'supertest';
 import { DEMO_USERS } from '@/server/dev/seed';
 import { smallKitModel } from '../fixtures/rib-revision';
-import type { TestApp } from './test-app';
+import { auth, type TestApp } from './test-app';
 
 /**
  * A small kit of a test's own, shipped and worked through the API as the supplier and the builder would:
  * for the tests that need fresh parts, one per build, rather than the demo's.
  */
-
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 
 /** Throws with what the server said when a set-up request was refused: the test then fails at its cause. */
 function expectStatus(res: request.Response, status: number, what: string) {

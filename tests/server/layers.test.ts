@@ -1,5 +1,6 @@
-import { readdirSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import path from 'node:path';
+import { lineOf, sourceFiles } from '../helpers/source-files';
 
 /**
  * The arrows of the layout run one way: the app's code (routes, screens, hooks, lib) and the
@@ -8,24 +9,15 @@ import path from 'node:path';
  */
 const root = path.join(__dirname, '..', '..');
 const guarded = ['app', 'components', 'hooks', 'lib', 'db', 'constants'];
-
-function sourceFiles(dir: string): string[] {
-  const out: string[] = [];
-  for (const entry of readdirSync(dir, { withFileTypes: true })) {
-    const full = path.join(dir, entry.name);
-    if (entry.isDirectory()) {
-      if (entry.name !== 'migrations' && entry.name !== 'node_modules') out.push(...sourceFiles(full));
-    } else if (/\.(ts|tsx|js|mjs)$/.test(entry.name)) out.push(full);
-  }
-  return out;
-}
+// Generated SQL and installed packages: no source of ours.
+const skipped = ['migrations', 'node_modules'];
 
 /** Every module a file names in `import … from`, `export … from`, `import()` or `require()`. */
 function importedSpecifiers(text: string): { spec: string; line: number }[] {
   const found: { spec: string; line: number }[] = [];
   const pattern = /(?:\bfrom\s*|\bimport\s*\(\s*|\brequire\s*\(\s*|^\s*import\s+)['"]([^'"]+)['"]/gm;
   for (const m of text.matchAll(pattern)) {
-    found.push({ spec: m[1], line: text.slice(0, m.index).split('\n').length });
+    found.push({ spec: m[1], line: lineOf(text, m.index) });
   }
   return found;
 }
@@ -51,7 +43,7 @@ describe('the layers', () => {
   it('keeps server/ out of the app, the hooks, lib and the database schema and contracts', () => {
     const offenders: string[] = [];
     for (const dir of guarded) {
-      for (const file of sourceFiles(path.join(root, dir))) {
+      for (const file of sourceFiles(path.join(root, dir), (name) => /\.(ts|tsx|js|mjs)$/.test(name), skipped)) {
         for (const { spec, line } of importedSpecifiers(readFileSync(file, 'utf8'))) {
           if (reachesServer(file, spec)) offenders.push(`${path.relative(root, file)}:${line} imports ${spec}`);
         }

@@ -1,12 +1,13 @@
 import { randomBytes } from 'node:crypto';
-import { readdirSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import request from 'supertest';
 import { eq } from 'drizzle-orm';
 import { createDatabase, withTransaction, type Database } from '@/db';
 import { users } from '@/db/schema';
 import { DEMO_USERS } from '@/server/dev/seed';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { lineOf, sourceFiles } from '../helpers/source-files';
+import { auth, startTestApp, type TestApp } from '../helpers/test-app';
 
 /**
  * Queries live in repositories, and only there (docs: /work/shared/ARCHITECTURE.md; the rule is ours,
@@ -48,10 +49,8 @@ function withoutComments(text: string): string {
     .replace(/(^|[^:'"`\\])\/\/.*$/gm, (_m, before: string) => before);
 }
 
-const lineOf = (text: string, index: number) => text.slice(0, index).split('\n').length;
-
 /** Every place in the text that runs SQL: `what` says which call. */
-export function queriesIn(source: string): { line: number; what: string }[] {
+function queriesIn(source: string): { line: number; what: string }[] {
   const text = withoutComments(source);
   const found: { line: number; what: string }[] = [];
   for (const m of text.matchAll(drizzleCall)) {
@@ -66,18 +65,11 @@ export function queriesIn(source: string): { line: number; what: string }[] {
   return found.sort((a, b) => a.line - b.line);
 }
 
-function sourceFiles(dir: string): string[] {
-  const out: string[] = [];
-  for (const entry of readdirSync(dir, { withFileTypes: true })) {
-    const full = path.join(dir, entry.name);
-    if (entry.isDirectory()) out.push(...sourceFiles(full));
-    else if (/\.(ts|js)$/.test(entry.name) && !entry.name.endsWith('.d.ts')) out.push(full);
-  }
-  return out;
-}
-
 const scanned = () =>
-  [...sourceFiles(path.join(root, 'server')), path.join(root, 'db', 'index.ts')].map((file) => ({
+  [
+    ...sourceFiles(path.join(root, 'server'), (name) => /\.(ts|js)$/.test(name) && !name.endsWith('.d.ts')),
+    path.join(root, 'db', 'index.ts'),
+  ].map((file) => ({
     rel: path.relative(root, file).split(path.sep).join('/'),
     text: readFileSync(file, 'utf8'),
   }));
@@ -212,11 +204,7 @@ describe('a check that guards a write reads the row locked, in the unit of work 
 
   it('refuses to make a lead of an engineer who became a builder while the change waited', async () => {
     const leadToken = await t.signIn(DEMO_USERS.supplier.email);
-    const me = (
-      await request(t.app)
-        .get('/api/auth/me')
-        .set({ Authorization: `Bearer ${leadToken}` })
-    ).body;
+    const me = (await request(t.app).get('/api/auth/me').set(auth(leadToken))).body;
     expect(me.lead).toBe(true);
     const [p] = await t.database.db
       .insert(users)
@@ -236,7 +224,7 @@ describe('a check that guards a write reads the row locked, in the unit of work 
       await other.query(`update users set role = 'builder' where id = $1`, [p.id]);
       const change = request(t.app)
         .patch(`/api/people/${p.id}`)
-        .set({ Authorization: `Bearer ${leadToken}` })
+        .set(auth(leadToken))
         .send({ lead: true })
         .then((r) => r);
       await someoneWaitsForALock();

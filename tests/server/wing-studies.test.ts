@@ -1,27 +1,24 @@
 import request from 'supertest';
 import { DEMO_STUDY_INPUTS, DEMO_WING_INPUTS } from '@/server/dev/seed';
 import { STUDY_SUMMARY_KEYS } from '../fixtures/study-summary';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoAppWithKit, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(120000);
 
 let t: TestApp;
-let tok: Awaited<ReturnType<TestApp['tokens']>>;
+let tok: Tokens;
 let otherSupplier: string;
 let kitModelId: string;
 /** The wing study this file makes (the demo's wing, as a supplier would send it). */
 let wing: { id: string; result: any; revision: number; recommended: Choice | null };
 let ribStudyId: string;
 let designIds: Record<string, string>;
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 type Choice = { gaugeIn: number; rivet: string };
 const same = (a: Choice) => (b: Choice) => Math.abs(a.gaugeIn - b.gaugeIn) < 1e-9 && a.rivet === b.rivet;
 
+demoAppWithKit((s) => ({ t, tok, kitModelId } = s));
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
   otherSupplier = await t.addUser('supplier', 'other.supplier@elsewhere.example');
-  kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items[0].id;
   const res = await request(t.app)
     .post('/api/studies')
     .set(auth(tok.supplier))
@@ -38,9 +35,6 @@ beforeAll(async () => {
     partNumber: string;
   }[];
   designIds = Object.fromEntries(designs.map((d) => [d.partNumber, d.id]));
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 const post = (body: object, token = tok.supplier) => request(t.app).post('/api/studies').set(auth(token)).send(body);

@@ -7,8 +7,8 @@ import { DEMO_USERS } from '@/server/dev/seed';
 import { smallKits } from '../../fixtures/rib-revision';
 import { publishSmallKit, shipBuild } from '../../helpers/small-kit';
 import type { TestApp } from '../../helpers/test-app';
-import { fillSignIn, launchBrowser } from './browser';
-import { serveTestApp } from './served-app';
+import { fillSignIn } from './browser';
+import { servedWithBrowser } from './served-app';
 
 /**
  * What the whole-app browser audits share (a11y.e2e.ts, layout-audit.e2e.ts): the routes of every role
@@ -303,17 +303,11 @@ export function routeWalker(w: Width, env: () => { browser: Browser; base: strin
  * the demo's ids and the folder the screenshots go to. Read its fields inside tests (they are set in beforeAll).
  */
 export function auditSession(artefacts: string) {
-  const s = {} as { t: TestApp; base: string; browser: Browser; ids: Ids; close?: () => Promise<void> };
+  const s = {} as { t: TestApp; base: string; browser: Browser; ids: Ids };
+  servedWithBrowser((served) => Object.assign(s, served));
   beforeAll(async () => {
-    const served = await serveTestApp();
-    Object.assign(s, { t: served.t, base: served.base, close: served.close });
-    s.browser = await launchBrowser();
     await mkdir(artefacts, { recursive: true });
     s.ids = await gatherIds(s.t);
-  });
-  afterAll(async () => {
-    await s.browser?.close().catch(() => undefined);
-    await s.close?.();
   });
   return s;
 }

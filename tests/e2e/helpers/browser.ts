@@ -44,9 +44,9 @@ export async function phonePage(browser: Browser, baseURL: string) {
   return context.newPage();
 }
 
-/** The sign-in form, filled with `email` and the demo password and sent, on whatever page shows it. */
-export async function fillSignIn(page: Page, email: string) {
+/** The sign-in form, filled with `email` and `password` (the demo's by default) and sent, on whatever page shows it. */
+export async function fillSignIn(page: Page, email: string, password = DEMO_PASSWORD) {
   await page.getByTestId('email').fill(email);
-  await page.getByTestId('password').fill(DEMO_PASSWORD);
+  await page.getByTestId('password').fill(password);
   await page.getByTestId('sign-in').click();
 }
