@@ -1,10 +1,11 @@
 import { memo } from 'react';
 import { Image, Pressable, StyleSheet, View } from 'react-native';
-import { buildLogKindLabels, type BuildLogEntry } from '@/db/contracts';
+import { buildLogKindLabels, clockIsOff, type BuildLogEntry } from '@/db/contracts';
 import { colors, hairline, space, touch } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
 import { Label, Mono, Txt } from '@/components/ui/text';
 import { url } from '@/lib/api-client';
+import { timingNote } from '@/lib/log-timing';
 import { dayLabel, timeOf } from './log-view';
 
 /** A day's heading in the timeline, like a dated line across a log book page. */
@@ -21,7 +22,7 @@ export function LogDayHeading({ day, count }: { day: string; count: number }) {
   );
 }
 
-/** One thing that happened: when, what kind, on which part, who, their words and the finding's photos. */
+/** One thing that happened: when (and when it arrived, if much later), what kind, on which part, who, their words and the finding's photos. */
 export const LogEntryRow = memo(function LogEntryRow({
   e,
   onOpenFinding,
@@ -30,6 +31,7 @@ export const LogEntryRow = memo(function LogEntryRow({
   onOpenFinding: (findingId: string) => void;
 }) {
   const finding = e.group === 'findings';
+  const timing = timingNote(e);
   return (
     <View style={styles.row} testID={`log-entry-${e.id}`}>
       <View
@@ -53,6 +55,11 @@ export const LogEntryRow = memo(function LogEntryRow({
         </View>
         <Txt>{e.text}</Txt>
         {e.note ? <Txt tone="soft">“{e.note}”</Txt> : null}
+        {timing ? (
+          <Txt variant="small" tone={clockIsOff(e.clockOffsetMs) ? 'caution' : 'soft'} testID={`log-timing-${e.id}`}>
+            {timing}
+          </Txt>
+        ) : null}
         <Txt variant="small" tone="soft">
           {e.actorName} · {e.actorRole} ·{' '}
           <Mono variant="small" tone="soft">

@@ -14,6 +14,7 @@ import { useSession } from '@/hooks/use-session';
 import { shortDate } from '@/components/findings/finding-row';
 import { BuildPeopleSection } from './build-people';
 import { BuildRecordSection } from './build-record';
+import { FabricationSection } from './fabrication-section';
 
 export function BuildScreen({ buildId }: { buildId: string }) {
   const router = useRouter();
@@ -62,6 +63,7 @@ export function BuildScreen({ buildId }: { buildId: string }) {
         />
       ) : null}
       <BuildRecordSection b={b} />
+      <FabricationSection buildId={b.id} />
       <Section title={`Parts (${b.travelers.length})`}>
         {b.travelers.length ? (
           <View testID="build-travelers">

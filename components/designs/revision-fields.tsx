@@ -1,13 +1,15 @@
 import { Controller, useFieldArray, useFormState, useWatch, type Control } from 'react-hook-form';
 import { StyleSheet, View, type ViewStyle } from 'react-native';
-import type { RevisionInput } from '@/db/contracts';
-import { colors, hairline, space } from '@/constants/theme';
+import { stepKindLabels, stepKinds, type RevisionInput, type StepKind } from '@/db/contracts';
+import { colors, hairline, space, touch } from '@/constants/theme';
 import { FormChoiceField, FormNumberField, FormTextField } from '@/components/forms/form-fields';
 import { errorAt } from '@/components/forms/server-errors';
 import { Button } from '@/components/ui/button';
+import { Choice } from '@/components/ui/choice';
 import { Field, TextBox } from '@/components/ui/field';
 import { Section } from '@/components/ui/sheet';
 import { Mono, Txt } from '@/components/ui/text';
+import { CheckBox, Toggle } from '@/components/ui/toggle';
 
 /**
  * The body of a revision, shared by "new design" (fields under `revision.`) and "edit draft" (fields
@@ -53,7 +55,7 @@ export function revisionToInput(r: RevisionInput): RevisionInput {
     edgeDistanceIn: r.edgeDistanceIn,
     chordIn: r.chordIn,
     lines: r.lines.map((l) => ({ ...l, zones: l.zones.map((z) => ({ ...z })) })),
-    steps: [...(r.steps ?? [])],
+    steps: (r.steps ?? []).map(asStep),
     changeNote: '',
   };
 }
@@ -139,37 +141,70 @@ function ZonesEditor({ control, base, lineIndex }: { control: Control<any>; base
   );
 }
 
+type StepDraft = { text: string; kind: StepKind; inspectionPoint: boolean };
+/** A step as the editor holds it: a bare string (a revision written before steps had kinds) becomes one of kind "other". */
+const asStep = (s: RevisionInput['steps'] extends (infer T)[] | undefined ? T : never): StepDraft =>
+  typeof s === 'string'
+    ? { text: s, kind: 'other', inspectionPoint: false }
+    : { text: s.text, kind: s.kind ?? 'other', inspectionPoint: s.inspectionPoint ?? false };
+
 function StepsEditor({ control, name }: { control: Control<any>; name: string }) {
   return (
     <Controller
       control={control}
       name={name}
       render={({ field, fieldState }) => {
-        const steps: string[] = field.value ?? [];
+        const steps: StepDraft[] = (field.value ?? []).map(asStep);
+        const change = (i: number, over: Partial<StepDraft>) =>
+          field.onChange(steps.map((x, j) => (j === i ? { ...x, ...over } : x)));
         const errs = fieldState.error as unknown as
-          (Record<number, { message?: string }> & { message?: string }) | undefined;
+          (Record<number, { message?: string; text?: { message?: string } }> & { message?: string }) | undefined;
         return (
-          <View style={{ gap: space.sm }} testID="steps-editor">
+          <View style={{ gap: space.md }} testID="steps-editor">
             {steps.map((s, i) => (
-              <Field key={i} label={`Step ${i + 1}`} error={errs?.[i]?.message} testID={`step-text-${i}-field`}>
-                <View style={{ flexDirection: 'row', gap: space.sm, alignItems: 'center' }}>
-                  <TextBox
-                    style={{ flex: 1 }}
-                    value={s}
-                    testID={`step-text-${i}`}
-                    accessibilityLabel={`Step ${i + 1}`}
-                    onChangeText={(t) => field.onChange(steps.map((x, j) => (j === i ? t : x)))}
-                    invalid={!!errs?.[i]}
-                  />
-                  <Button
-                    label="Remove"
-                    variant="quiet"
-                    compact
-                    onPress={() => field.onChange(steps.filter((_, j) => j !== i))}
-                    testID={`step-text-${i}-remove`}
-                  />
-                </View>
-              </Field>
+              <View key={i} style={{ gap: space.sm }}>
+                <Field
+                  label={`Step ${i + 1}`}
+                  error={errs?.[i]?.text?.message ?? errs?.[i]?.message}
+                  testID={`step-text-${i}-field`}
+                >
+                  <View style={{ flexDirection: 'row', gap: space.sm, alignItems: 'center' }}>
+                    <TextBox
+                      style={{ flex: 1 }}
+                      value={s.text}
+                      testID={`step-text-${i}`}
+                      accessibilityLabel={`Step ${i + 1}`}
+                      onChangeText={(text) => change(i, { text })}
+                      invalid={!!errs?.[i]}
+                    />
+                    <Button
+                      label="Remove"
+                      variant="quiet"
+                      compact
+                      onPress={() => field.onChange(steps.filter((_, j) => j !== i))}
+                      testID={`step-text-${i}-remove`}
+                    />
+                  </View>
+                </Field>
+                <Choice
+                  label={`Step ${i + 1}: operation`}
+                  testIDPrefix={`step-kind-${i}`}
+                  options={stepKinds.map((k) => ({ value: k, label: stepKindLabels[k] }))}
+                  value={s.kind}
+                  onChange={(kind) => change(i, { kind })}
+                />
+                <Toggle
+                  kind="checkbox"
+                  checked={s.inspectionPoint}
+                  onPress={() => change(i, { inspectionPoint: !s.inspectionPoint })}
+                  testID={`step-point-${i}`}
+                  accessibilityLabel={`Step ${i + 1} is an inspection point: an inspector stamps it before later steps`}
+                  style={{ flexDirection: 'row', gap: space.sm, alignItems: 'center', minHeight: touch }}
+                >
+                  <CheckBox on={s.inspectionPoint} />
+                  <Txt style={{ flex: 1 }}>Inspection point: an inspector stamps it before later steps</Txt>
+                </Toggle>
+              </View>
             ))}
             {errs?.message ? (
               <Txt variant="small" tone="error">
@@ -180,7 +215,7 @@ function StepsEditor({ control, name }: { control: Control<any>; name: string })
               label="Add a step"
               variant="secondary"
               compact
-              onPress={() => field.onChange([...steps, ''])}
+              onPress={() => field.onChange([...steps, { text: '', kind: 'other', inspectionPoint: false }])}
               testID="add-step"
               style={{ alignSelf: 'flex-start' }}
             />

@@ -1,5 +1,5 @@
 import { View } from 'react-native';
-import type { Revision } from '@/db/contracts';
+import { stepKindLabels, type Revision } from '@/db/contracts';
 import { space } from '@/constants/theme';
 import { KeyValue } from '@/components/ui/sheet';
 import { Mono, Txt } from '@/components/ui/text';
@@ -35,7 +35,11 @@ export function RevisionView({ r }: { r: Revision }) {
           <Txt bold>Shop steps</Txt>
           {r.steps.map((s, i) => (
             <Txt key={i}>
-              <Mono>{i + 1}.</Mono> {s}
+              <Mono>{i + 1}.</Mono> {s.text}{' '}
+              <Txt variant="small" tone="soft">
+                ({stepKindLabels[s.kind]}
+                {s.inspectionPoint ? ', inspection point' : ''})
+              </Txt>
             </Txt>
           ))}
         </View>

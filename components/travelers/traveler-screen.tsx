@@ -18,11 +18,12 @@ import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/st
 import { HoleMark, holeStatusHelp, holeStatusLabels, HoleStatusLegend } from '@/components/ui/status-mark';
 import { Mono, Txt } from '@/components/ui/text';
 import { TwoPane } from '@/components/ui/two-pane';
-import { errorMessage } from '@/lib/api-client';
+import { ApiError, errorMessage } from '@/lib/api-client';
 import {
   countHoles,
   useTravelerQuery,
   useTravelerSignOffMutation,
+  useTravelerStampMutation,
   useTravelerStepMutation,
   useTickQueue,
   useTravelerTickMutation,
@@ -32,7 +33,8 @@ import { useUnits } from '@/hooks/use-units';
 import { HolesPanel } from './holes-panel';
 import { PartDrawing } from './part-drawing';
 import { pickRunEnd, planRun, runHoles, tickBatches, toggleHole, type RunPick } from './run-selection';
-import { StepsList } from './steps-list';
+import { StepCreditChooser, StepsList, type StepCredit } from './steps-list';
+import { WorkSection } from './work-section';
 import { TravelerHeader } from './traveler-header';
 import { WithdrawSignOff } from './withdraw-sign-off';
 import { ZonesTable } from './zones-table';
@@ -63,11 +65,15 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
   const tick = useTravelerTickMutation(t.id);
   const ticks = useTickQueue(t.id);
   const step = useTravelerStepMutation(t.id);
+  const stamp = useTravelerStampMutation(t.id);
+  const [credit, setCredit] = useState<StepCredit>({ by: 'builder', byName: '' });
+  const [creditError, setCreditError] = useState<string | undefined>();
   const signOff = useTravelerSignOffMutation(t.id);
 
   // What this reader may do on the part comes from the server's answer (the rules module), never from the role alone.
   const canTick = t.allowedActions.includes('tick');
   const canStep = t.allowedActions.includes('step');
+  const canStamp = t.allowedActions.includes('stamp');
   const canRaise = t.allowedActions.includes('raise');
   const canSignOff = t.allowedActions.includes('sign-off');
   const canWithdraw = t.allowedActions.includes('withdraw-sign-off');
@@ -285,19 +291,37 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
         />
       </Section>
       <Section title="Shop steps">
+        {canStep ? <StepCreditChooser value={credit} onChange={setCredit} nameError={creditError} /> : null}
         <StepsList
           steps={t.steps}
           canToggle={canStep}
-          onToggle={(s) =>
+          canStamp={canStamp}
+          onToggle={(s) => {
+            setCreditError(undefined);
             step.mutate(
-              { stepId: s.id, done: !s.doneAt },
               {
-                onError: (e) => setMessage({ tone: 'error', text: `Step not saved: ${errorMessage(e)}` }),
+                stepId: s.id,
+                done: !s.doneAt,
+                by: credit.by,
+                ...(credit.by !== 'builder' ? { byName: credit.byName } : {}),
               },
-            )
+              {
+                onError: (e) => {
+                  // The server says when help is not named (the rule's one home); the name box shows it.
+                  setCreditError(e instanceof ApiError ? e.fields?.byName : undefined);
+                  setMessage({ tone: 'error', text: `Step not saved: ${errorMessage(e)}` });
+                },
+              },
+            );
+          }}
+          onStamp={(s) =>
+            stamp.mutate(s.id, {
+              onError: (e) => setMessage({ tone: 'error', text: `Stamp not saved: ${errorMessage(e)}` }),
+            })
           }
         />
       </Section>
+      <WorkSection travelerId={t.id} work={t.work} canWork={canStep} credit={credit} onCreditError={setCreditError} />
       <Section title="Findings on this part">
         {t.findings.length ? (
           <View testID="traveler-findings">

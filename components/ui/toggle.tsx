@@ -1,6 +1,8 @@
 import { forwardRef } from 'react';
-import { Pressable, type PressableProps, type View } from 'react-native';
+import { Pressable, StyleSheet, View, type PressableProps } from 'react-native';
+import { colors } from '@/constants/theme';
 import { installFocusRing } from './focus-ring';
+import { Txt } from './text';
 
 installFocusRing();
 
@@ -65,4 +67,29 @@ export const Toggle = forwardRef<View, ToggleProps>(function Toggle(
       {...keys}
     />
   );
+});
+
+/** The box a checkbox row draws (the row itself is the Toggle that carries the role and state). */
+export function CheckBox({ on }: { on: boolean }) {
+  return (
+    <View style={[styles.box, on && { backgroundColor: colors.ink }]} aria-hidden>
+      {on ? (
+        <Txt bold tone="inverse" style={{ lineHeight: 20 }}>
+          ✓
+        </Txt>
+      ) : null}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  box: {
+    width: 28,
+    height: 28,
+    borderWidth: 2,
+    borderColor: colors.ink,
+    alignItems: 'center',
+    justifyContent: 'center',
+    backgroundColor: colors.paperRaised,
+  },
 });

@@ -12,9 +12,13 @@ export const benchLogKinds = [
   'holes_pending',
   'step_done',
   'step_undone',
+  'step_stamped',
   'signed_off',
   'sign_off_withdrawn',
   'part_replaced',
+  'work_started',
+  'work_stopped',
+  'hours_entered',
 ] as const;
 
 export const buildLogKinds = [
@@ -51,9 +55,13 @@ export const buildLogKindLabels: Record<BuildLogKind, string> = {
   holes_pending: 'Holes back to pending',
   step_done: 'Step done',
   step_undone: 'Step undone',
+  step_stamped: 'Inspection point stamped',
   signed_off: 'Signed off',
   sign_off_withdrawn: 'Sign-off withdrawn',
   part_replaced: 'Part replaced',
+  work_started: 'Work started',
+  work_stopped: 'Work stopped',
+  hours_entered: 'Hours entered',
   finding_raised: 'Finding raised',
   finding_dispositioned: 'Dispositioned',
   finding_approval: 'Design authority',
@@ -69,7 +77,7 @@ export const buildLogKindLabels: Record<BuildLogKind, string> = {
 };
 
 export function groupOfKind(kind: BuildLogKind): BuildLogGroup {
-  if (kind === 'signed_off' || kind === 'sign_off_withdrawn') return 'sign_off';
+  if (kind === 'signed_off' || kind === 'sign_off_withdrawn' || kind === 'step_stamped') return 'sign_off';
   if (kind.startsWith('member_') || kind === 'owner_changed') return 'people';
   return kind.startsWith('finding_') ? 'findings' : 'bench';
 }
@@ -123,6 +131,32 @@ export function isTimeZone(tz: string): boolean {
   }
 }
 
+/**
+ * When a bench action was done, by the device's clock, and when the device sent it (a tick made without
+ * signal is sent later). The server keeps both beside the moment the action arrived; the log is dated
+ * by the first.
+ */
+const deviceInstant = (what: string) =>
+  z
+    .string({ message: `${what} must be a date and time` })
+    .refine(
+      (s) => DATE_TIME.test(s) && isLogDate(s),
+      `${what} must be a date and time with its offset between 2000 and 2199, such as 2026-11-03T14:00:00.000Z`,
+    );
+export const deviceTime = z.object({
+  doneAt: deviceInstant('doneAt').optional(),
+  sentAt: deviceInstant('sentAt').optional(),
+});
+export type DeviceTime = z.infer<typeof deviceTime>;
+
+/**
+ * A device clock this far from the server's when it sent an action is flagged beside the entry: its
+ * times may be off by as much. Five minutes is well beyond network delay and ordinary clock drift
+ * (common practice for phones that set their clocks from the network).
+ */
+export const CLOCK_FLAG_MS = 5 * 60_000;
+export const clockIsOff = (offsetMs: number | null | undefined) => Math.abs(offsetMs ?? 0) > CLOCK_FLAG_MS;
+
 const dateParam = (what: string) =>
   z
     .string({ message: `${what} must be a single date` })
@@ -175,7 +209,14 @@ export type BuildLogPhoto = { id: string; thumbUrl: string; url: string };
 export type BuildLogEntry = {
   /** `t:<traveler event id>` or `f:<finding event id>`: unique across the log. */
   id: string;
+  /** When it was done: by the device's clock for what the bench sends, otherwise when the server wrote it. */
   at: string;
+  /** When the server received it. */
+  receivedAt: string;
+  /** How far the device's clock was behind the server's when it sent this (null: the server's own time). */
+  clockOffsetMs: number | null;
+  /** The entry's link in the build's hash chain (lower-case hex SHA-256); null before it was chained. */
+  hash: string | null;
   actorName: string;
   actorRole: Role;
   kind: BuildLogKind;

@@ -106,6 +106,47 @@ export const partDesignInput = z.object({
 });
 export type PartDesignInput = z.input<typeof partDesignInput>;
 
+/** The trade's operations on a riveted part, in shop order: what each traveler step is. */
+export const stepKinds = [
+  'lay_out',
+  'drill',
+  'deburr',
+  'dimple_countersink',
+  'prime',
+  'rivet',
+  'inspect',
+  'other',
+] as const;
+export type StepKind = (typeof stepKinds)[number];
+export const stepKindLabels: Record<StepKind, string> = {
+  lay_out: 'Lay out',
+  drill: 'Drill',
+  deburr: 'Deburr',
+  dimple_countersink: 'Dimple or countersink',
+  prime: 'Prime',
+  rivet: 'Rivet',
+  inspect: 'Inspect',
+  other: 'Other',
+};
+
+/**
+ * One shop step of a revision: its words, its kind, and whether it is an inspection point (an inspector
+ * stamps it before any later step is done). A bare string is a step of kind `other`, as revisions
+ * written before steps had kinds.
+ */
+const stepObject = z.object({
+  text: plainText('a step', 1, 300, 'a step needs some text'),
+  kind: z.enum(stepKinds, { message: `a step's kind is one of ${stepKinds.join(', ')}` }).default('other'),
+  inspectionPoint: z.boolean({ message: 'inspectionPoint is true or false' }).default(false),
+});
+// Read as one object schema (a bare string first made one), so an error names the field at fault; a
+// union would only say "invalid input". The cast gives the input type the preprocess really accepts.
+export const revisionStep = z.preprocess(
+  (s) => (typeof s === 'string' ? { text: s } : s),
+  stepObject,
+) as unknown as z.ZodType<z.output<typeof stepObject>, string | z.input<typeof stepObject>>;
+export type RevisionStep = z.output<typeof revisionStep>;
+
 /** The editable body of a draft revision. */
 export const revisionInput = z
   .object({
@@ -123,7 +164,7 @@ export const revisionInput = z
     /** 1 – 8 lines */
     lines: listOf(fastenerLine, 'fastener lines', 1, 8, 'a part needs at least one fastener line'),
     /** 0 – 40 steps of 1 – 300 characters */
-    steps: listOf(plainText('a step', 1, 300, 'a step needs some text'), 'steps', 0, 40).default([]),
+    steps: listOf(revisionStep, 'steps', 0, 40).default([]),
     changeNote: plainText('the change note', 0, 2000).default(''),
   })
   .superRefine((r, ctx) => {

@@ -375,10 +375,23 @@ export const holesAwaitingInspectorStatuses: readonly HoleStatus[] = ['flagged',
 export type PartFacts = {
   holes: Partial<Record<HoleStatus, number>>;
   stepsOpen: number;
+  /** Inspection points done but not yet stamped by an inspector (or not yet done). */
+  pointsUnstamped: number;
   openFindings: number;
   signedOff: boolean;
   replaced: boolean;
 };
+
+/** A step as the step rules see it. */
+export type StepFact = { id: string; seq: number; inspectionPoint: boolean; done: boolean; stamped: boolean };
+
+/** The part's step counts for readiness: steps not done, and inspection points not stamped. */
+export function stepCounts(steps: readonly Pick<StepFact, 'inspectionPoint' | 'done' | 'stamped'>[]) {
+  return {
+    stepsOpen: steps.filter((s) => !s.done).length,
+    pointsUnstamped: steps.filter((s) => s.inspectionPoint && !s.stamped).length,
+  };
+}
 
 export type Readiness = { ready: boolean; reasons: string[] };
 
@@ -394,12 +407,13 @@ export function signOffReadiness(p: PartFacts): Readiness {
   const reasons = [
     notDone ? `${plural(notDone, 'hole')} not done` : '',
     p.stepsOpen ? `${plural(p.stepsOpen, 'step')} not done` : '',
+    p.pointsUnstamped ? `${plural(p.pointsUnstamped, 'inspection point')} not stamped` : '',
     p.openFindings ? `${plural(p.openFindings, 'finding')} open` : '',
   ].filter(Boolean);
   return { ready: reasons.length === 0, reasons };
 }
 
-export const partActions = ['tick', 'step', 'raise', 'sign-off', 'withdraw-sign-off'] as const;
+export const partActions = ['tick', 'step', 'stamp', 'raise', 'sign-off', 'withdraw-sign-off'] as const;
 export type PartAction = (typeof partActions)[number];
 
 /** What a person may do on a part now. Sign-off needs readiness; the rest need an open part. */
@@ -407,6 +421,7 @@ export function allowedPartActions(p: PartFacts, place: BuildPlace): PartAction[
   const open = !p.signedOff && !p.replaced;
   const out: PartAction[] = [];
   if (open && place === 'builder') out.push('tick', 'step');
+  if (open && place === 'inspector') out.push('stamp');
   if (checkRaise(place, !open).ok) out.push('raise');
   if (place === 'inspector' && signOffReadiness(p).ready) out.push('sign-off');
   if (checkPartAction(p, 'withdraw-sign-off', place) === null) out.push('withdraw-sign-off');
@@ -426,6 +441,12 @@ export function checkPartAction(
       if (p.replaced) return { code: 409, message: 'this part was replaced: work its replacement' };
       if (p.signedOff) return { code: 409, message: 'this part is signed off and can no longer change' };
       return null;
+    case 'stamp':
+      if (place !== 'inspector')
+        return { code: 403, message: 'only an inspector of this build stamps an inspection point' };
+      if (p.replaced) return { code: 409, message: 'this part was replaced: work its replacement' };
+      if (p.signedOff) return { code: 409, message: 'this part is signed off and can no longer change' };
+      return null;
     case 'raise': {
       const r = checkRaise(place, p.signedOff || p.replaced);
       return r.ok ? null : { code: r.code, message: r.message };
@@ -440,6 +461,40 @@ export function checkPartAction(
       if (place !== 'inspector') return { code: 403, message: 'only an inspector of this build withdraws a sign-off' };
       if (p.replaced) return { code: 409, message: 'this part was replaced: its record stays as it is' };
       if (!p.signedOff) return { code: 409, message: 'this part is not signed off: there is no sign-off to withdraw' };
+      return null;
+  }
+}
+
+/**
+ * The order an inspection point keeps: no step after an unstamped point may be done, a stamped step
+ * stays done, and only a done inspection point is stamped, once. Null when the change is allowed (a
+ * step that is not on the part is the caller's 404).
+ */
+export function checkStepChange(
+  steps: readonly StepFact[],
+  stepId: string,
+  change: 'done' | 'undone' | 'stamp',
+): { code: 409; message: string } | null {
+  const step = steps.find((s) => s.id === stepId);
+  if (!step) return null;
+  switch (change) {
+    case 'done': {
+      const waiting = steps.find((s) => s.seq < step.seq && s.inspectionPoint && !s.stamped);
+      return waiting
+        ? {
+            code: 409,
+            message: `step ${waiting.seq} is an inspection point: an inspector stamps it before later steps are done`,
+          }
+        : null;
+    }
+    case 'undone':
+      return step.stamped
+        ? { code: 409, message: `step ${step.seq} was stamped by an inspector: it stays done` }
+        : null;
+    case 'stamp':
+      if (!step.inspectionPoint) return { code: 409, message: `step ${step.seq} is not an inspection point` };
+      if (!step.done) return { code: 409, message: `step ${step.seq} is not done yet: the builder does it first` };
+      if (step.stamped) return { code: 409, message: `step ${step.seq} is stamped already` };
       return null;
   }
 }

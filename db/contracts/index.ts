@@ -10,3 +10,6 @@ export * from './studies';
 export * from './build-log';
 export * from './people';
 export * from './network';
+export * from './log-chain';
+export * from './fabrication';
+export * from './work-sessions';

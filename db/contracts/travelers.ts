@@ -1,7 +1,9 @@
 import { z } from 'zod';
-import type { FastenerLine, PartKind } from './designs';
+import type { FastenerLine, PartKind, StepKind } from './designs';
 import type { FindingSummary } from './findings';
 import { pageQuery, plainText } from './common';
+import { deviceTime } from './build-log';
+import type { PartWork } from './work-sessions';
 import {
   NOTE_MIN_LENGTH,
   type BuildPlace,
@@ -14,13 +16,41 @@ export const holeStatuses = ['pending', 'installed', 'flagged', 'held', 'reworke
 export type HoleStatus = (typeof holeStatuses)[number];
 
 /** Tick holes: one id, or a run given as several ids. Only pending holes become installed. */
-export const tickHolesInput = z.object({
+export const tickHolesInput = deviceTime.extend({
   holeIds: z.array(z.string().min(1)).min(1, 'pick at least one hole').max(500, 'at most 500 holes at a time'),
   status: z.enum(['installed', 'pending'], { message: 'status is installed or pending' }),
 });
 export type TickHolesInput = z.infer<typeof tickHolesInput>;
 
-export const stepInput = z.object({ done: z.boolean() });
+/** Who did a step's work: the credit the fabrication-and-assembly table gives it. */
+export const stepPerformers = ['builder', 'helper', 'commercial', 'kit_supplier'] as const;
+export type StepPerformer = (typeof stepPerformers)[number];
+export const stepPerformerLabels: Record<StepPerformer, string> = {
+  builder: 'The builder',
+  helper: 'A helper',
+  commercial: 'Commercial help',
+  kit_supplier: 'The kit supplier',
+};
+
+/** Whose work it was (the builder by default) and, for help, whose: a helper's or a shop's name. */
+export const creditFields = {
+  by: z.enum(stepPerformers, { message: `by is one of ${stepPerformers.join(', ')}` }).default('builder'),
+  byName: plainText('the name of who did it', 0, 120).optional(),
+};
+/** Help is named: the log and the fabrication table say whose work it was. */
+export const helpIsNamed = <T extends { by: StepPerformer; byName?: string }>(s: T) => s.by === 'builder' || !!s.byName;
+export const helpUnnamed = { message: 'say who helped: a helper’s or a shop’s name', path: ['byName'] };
+
+/**
+ * A step done or undone. Done, it says who did the work (the signed-in builder by default) and, for
+ * help, whose: a helper's or a shop's name goes into the log beside the builder who recorded it.
+ */
+export const stepInput = deviceTime
+  .extend({ done: z.boolean({ message: 'done is true or false' }), ...creditFields })
+  .refine((s) => !s.done || helpIsNamed(s), helpUnnamed);
+/** What the app sends; the server works with the parsed `StepChange` (defaults filled in). */
+export type StepInput = z.input<typeof stepInput>;
+export type StepChange = z.output<typeof stepInput>;
 
 /** Taking a sign-off back must say why, in the inspector's own words: it goes into the build log and the builder's mail. */
 export const withdrawSignOffInput = z.object({
@@ -68,6 +98,21 @@ export const travelerListQuery = pageQuery.extend({
 export type TravelerListQuery = z.infer<typeof travelerListQuery>;
 export type TravelerListShow = TravelerListQuery['show'];
 
+/** A step on the part: its operation, who did it (and for whom the credit), and its inspector's stamp. */
+export type TravelerStepDetail = {
+  id: string;
+  seq: number;
+  text: string;
+  kind: StepKind;
+  inspectionPoint: boolean;
+  doneAt: string | null;
+  doneByName: string | null;
+  by: StepPerformer | null;
+  byName: string | null;
+  stampedAt: string | null;
+  stampedByName: string | null;
+};
+
 export type TravelerDetail = TravelerSummary & {
   material: string;
   gaugeIn: number;
@@ -83,7 +128,7 @@ export type TravelerDetail = TravelerSummary & {
   /** Part outline in inches (x aft, y up), for the drawing; closed polygon. */
   outline: [number, number][];
   holes: Hole[];
-  steps: { id: string; seq: number; text: string; doneAt: string | null; doneByName: string | null }[];
+  steps: TravelerStepDetail[];
   findings: FindingSummary[];
   approvedByName: string | null;
   signedOffAt: string | null;
@@ -99,6 +144,8 @@ export type TravelerDetail = TravelerSummary & {
    * kept on the device from before labels could be reprinted lacks it, and then no link shows.
    */
   labelAllowed?: boolean;
+  /** Time worked on the part (optional: a detail kept on the device from before hours were kept lacks it). */
+  work?: PartWork;
 };
 
 // ---- QR labels ----

@@ -65,5 +65,5 @@ export const buildEvents = pgTable(
       .references(() => builds.id, { onDelete: 'cascade' }),
     ...logEventColumns(),
   },
-  (t) => [index('build_events_build').on(t.buildId, t.createdAt, t.id)],
+  (t) => [index('build_events_build').on(t.buildId, t.doneAt, t.id)],
 );

@@ -1,6 +1,6 @@
 import { sql } from 'drizzle-orm';
 import { index, integer, jsonb, pgEnum, pgTable, real, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
-import { partKinds, revisionStatuses, type FastenerLine } from '../contracts/designs';
+import { partKinds, revisionStatuses, type FastenerLine, type RevisionStep } from '../contracts/designs';
 import { aircraftCategories } from '../contracts/kits';
 import { organizations } from './organizations';
 import { users } from './users';
@@ -96,7 +96,7 @@ export const designRevisions = pgTable(
     chordIn: real('chord_in').notNull(),
     lines: jsonb('lines').$type<FastenerLine[]>().notNull(),
     steps: jsonb('steps')
-      .$type<string[]>()
+      .$type<RevisionStep[]>()
       .notNull()
       .default(sql`'[]'::jsonb`),
     changeNote: text('change_note').notNull().default(''),

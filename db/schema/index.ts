@@ -6,3 +6,5 @@ export * from './travelers';
 export * from './findings';
 export * from './coupons';
 export * from './studies';
+export * from './log-chain';
+export * from './work-sessions';

@@ -1,6 +1,7 @@
 import { sql } from 'drizzle-orm';
 import {
   type AnyPgColumn,
+  boolean,
   index,
   integer,
   pgEnum,
@@ -11,7 +12,7 @@ import {
   uniqueIndex,
   uuid,
 } from 'drizzle-orm/pg-core';
-import { holeStatuses, replacementReasons } from '../contracts';
+import { holeStatuses, replacementReasons, stepKinds, stepPerformers } from '../contracts';
 import { builds } from './builds';
 import { designRevisions } from './designs';
 import { users } from './users';
@@ -70,6 +71,9 @@ export const holes = pgTable(
   (t) => [uniqueIndex('holes_traveler_hole').on(t.travelerId, t.holeId)],
 );
 
+export const stepKind = pgEnum('step_kind', stepKinds);
+export const stepPerformer = pgEnum('step_performer', stepPerformers);
+
 export const travelerSteps = pgTable('traveler_steps', {
   id: uuid('id').primaryKey().defaultRandom(),
   travelerId: uuid('traveler_id')
@@ -77,8 +81,17 @@ export const travelerSteps = pgTable('traveler_steps', {
     .references(() => travelers.id, { onDelete: 'cascade' }),
   seq: integer('seq').notNull(),
   text: text('text').notNull(),
+  kind: stepKind('kind').notNull().default('other'),
+  /** An inspector stamps it before any later step may be done. */
+  inspectionPoint: boolean('inspection_point').notNull().default(false),
+  /** Who recorded it done (a builder's account) … */
   doneBy: uuid('done_by').references(() => users.id),
   doneAt: timestamp('done_at', { withTimezone: true }),
+  /** … and who did the work: the builder, or help named in `performerName`. */
+  performer: stepPerformer('performer'),
+  performerName: text('performer_name'),
+  stampedBy: uuid('stamped_by').references(() => users.id),
+  stampedAt: timestamp('stamped_at', { withTimezone: true }),
 });
 
 /** Bench events (holes ticked, steps done, sign-off): the traveler half of the build log. */
@@ -91,5 +104,5 @@ export const travelerEvents = pgTable(
       .references(() => travelers.id, { onDelete: 'cascade' }),
     ...logEventColumns(),
   },
-  (t) => [index('traveler_events_traveler').on(t.travelerId, t.createdAt, t.id)],
+  (t) => [index('traveler_events_traveler').on(t.travelerId, t.doneAt, t.id)],
 );

@@ -5,6 +5,7 @@ import type {
   BuildDetail,
   BuildInput,
   BuildSummary,
+  FabricationTable,
   Page,
   TravelerSummary,
 } from '@/db/contracts';
@@ -21,6 +22,8 @@ export const buildKeys = {
   list: () => [...buildKeys.all, 'list'] as const,
   details: () => [...buildKeys.all, 'detail'] as const,
   detail: (id: string) => [...buildKeys.details(), id] as const,
+  /** Under the build's detail: whatever refreshes the build refreshes its table too. */
+  fabrication: (id: string) => [...buildKeys.detail(id), 'fabrication'] as const,
 };
 
 export const buildQueries = {
@@ -32,6 +35,16 @@ export const buildQueries = {
       queryFn: ({ signal }) => api.get<BuildPage>(`/api/builds/${encodeURIComponent(id)}`, signal),
     }),
 };
+
+/** The build's fabrication-and-assembly table (who did its parts' steps). */
+export function useFabricationQuery(buildId: string) {
+  return useQuery({
+    queryKey: buildKeys.fabrication(buildId),
+    queryFn: ({ signal }) =>
+      api.get<FabricationTable>(`/api/builds/${encodeURIComponent(buildId)}/fabrication`, signal),
+    enabled: !!buildId,
+  });
+}
 
 export function useBuildsQuery() {
   return useInfiniteQuery(buildQueries.list());

@@ -19,12 +19,16 @@ import {
   type Hole,
   type LabelsQuery,
   type PartLabel,
+  type StepInput,
   type TickHolesInput,
   type TravelerDetail,
   type Page,
   type TravelerListShow,
   type TravelerSummary,
   type WithdrawSignOffInput,
+  type WorkHoursInput,
+  type WorkStartInput,
+  type WorkStopInput,
 } from '@/db/contracts';
 import { api, ApiError, errorMessage } from '@/lib/api-client';
 import { readJson, removeKey, storageKeys } from '@/lib/storage';
@@ -156,13 +160,15 @@ type TickContext = { before: Hole[] };
 
 /**
  * Sends one tick: exactly what the API's contract takes (`tickHolesInput`). The moment it was made on
- * the device (`at`) stays with the tick while it waits; the contract has no field for it yet, and the
- * server records the moment the tick arrives.
+ * the device (`at`) stays with the tick while it waits and goes as `doneAt`; `sentAt`, read as it
+ * leaves, lets the server tell a late tick from a device clock that is off.
  */
 const postTick = (t: TickVariables) =>
   api.post<TickResult>(`/api/travelers/${encodeURIComponent(t.travelerId)}/holes`, {
     holeIds: t.holeIds,
     status: t.status,
+    doneAt: t.at,
+    sentAt: new Date().toISOString(),
   } satisfies TickHolesInput);
 
 /** Worth another try later: no signal, the server down, or a sign-in to renew first. A refusal is final. */
@@ -306,14 +312,19 @@ export function useTickQueue(travelerId: string): {
   return { waiting, refused: refused.at(-1) ?? null, dismissRefused };
 }
 
+/** A step done or undone, saying whose work it was: shown done at once, the part as the server answers it after. */
 export function useTravelerStepMutation(travelerId: string) {
   const qc = useQueryClient();
   const key = travelerKeys.detail(travelerId);
   return useMutation({
-    mutationFn: ({ stepId, done }: { stepId: string; done: boolean }) =>
-      api.post<TravelerStep>(`/api/travelers/${encodeURIComponent(travelerId)}/steps/${encodeURIComponent(stepId)}`, {
-        done,
-      }),
+    // A step goes at once (it is not kept for later like a tick): done and sent are the same moment on the device.
+    mutationFn: ({ stepId, ...input }: { stepId: string } & Omit<StepInput, 'doneAt' | 'sentAt'>) => {
+      const now = new Date().toISOString();
+      return api.post<TravelerDetail>(
+        `/api/travelers/${encodeURIComponent(travelerId)}/steps/${encodeURIComponent(stepId)}`,
+        { ...input, doneAt: now, sentAt: now } satisfies StepInput,
+      );
+    },
     onMutate: async ({ stepId, done }) => {
       await qc.cancelQueries({ queryKey: key });
       const previous = qc.getQueryData<TravelerDetail>(key);
@@ -330,13 +341,23 @@ export function useTravelerStepMutation(travelerId: string) {
     onError: (_e, _v, ctx) => {
       if (ctx?.previous) qc.setQueryData(key, ctx.previous);
     },
-    // A step done can make the part ready to sign off: the readiness and the build's count come from the server.
-    onSettled: () => invalidateAll(qc, [key, buildKeys.all]),
+    onSuccess: (part) => qc.setQueryData(key, part),
+    // A step done can make the part ready to sign off: the build's count and the lists come from the server.
+    onSettled: () => invalidateAll(qc, [travelerKeys.list(), buildKeys.all]),
   });
 }
 
-/** A sign-off, or its withdrawal, answers with the part as it now stands; its lists and builds are asked again. */
-function useSignOffChange<V>(travelerId: string, send: (v: V) => Promise<TravelerDetail>) {
+/** An inspector's stamp on an inspection point; the answer is the part as it now stands. */
+export function useTravelerStampMutation(travelerId: string) {
+  return usePartChange(travelerId, (stepId: string) =>
+    api.post<TravelerDetail>(
+      `/api/travelers/${encodeURIComponent(travelerId)}/steps/${encodeURIComponent(stepId)}/stamp`,
+    ),
+  );
+}
+
+/** A change that answers with the part as it now stands (sign-off, stamp, hours); its lists and builds are asked again. */
+function usePartChange<V>(travelerId: string, send: (v: V) => Promise<TravelerDetail>) {
   return useRecordMutation({
     record: travelerKeys.detail(travelerId),
     send,
@@ -347,12 +368,38 @@ function useSignOffChange<V>(travelerId: string, send: (v: V) => Promise<Travele
 const signOffPath = (travelerId: string) => `/api/travelers/${encodeURIComponent(travelerId)}/sign-off`;
 
 export function useTravelerSignOffMutation(travelerId: string) {
-  return useSignOffChange(travelerId, () => api.post<TravelerDetail>(signOffPath(travelerId)));
+  return usePartChange(travelerId, () => api.post<TravelerDetail>(signOffPath(travelerId)));
 }
 
 /** Takes a part's sign-off back, with the inspector's reason; the answer is the part as it now stands. */
 export function useTravelerWithdrawSignOffMutation(travelerId: string) {
-  return useSignOffChange(travelerId, (input: WithdrawSignOffInput) =>
+  return usePartChange(travelerId, (input: WithdrawSignOffInput) =>
     api.post<TravelerDetail>(`${signOffPath(travelerId)}/withdraw`, input),
+  );
+}
+
+const workPath = (travelerId: string, what: 'start' | 'stop' | 'hours') =>
+  `/api/travelers/${encodeURIComponent(travelerId)}/work/${what}`;
+
+/** Starts a work session on the part now (the device's time), as the builder's or the named help's work. */
+export function useWorkStartMutation(travelerId: string) {
+  return usePartChange(travelerId, (input: Omit<WorkStartInput, 'doneAt' | 'sentAt'>) => {
+    const now = new Date().toISOString();
+    return api.post<TravelerDetail>(workPath(travelerId, 'start'), { ...input, doneAt: now, sentAt: now });
+  });
+}
+
+/** Stops the person's running session now. */
+export function useWorkStopMutation(travelerId: string) {
+  return usePartChange(travelerId, () => {
+    const now = new Date().toISOString();
+    return api.post<TravelerDetail>(workPath(travelerId, 'stop'), { doneAt: now, sentAt: now } satisfies WorkStopInput);
+  });
+}
+
+/** Hours worked entered afterwards. */
+export function useWorkHoursMutation(travelerId: string) {
+  return usePartChange(travelerId, (input: WorkHoursInput) =>
+    api.post<TravelerDetail>(workPath(travelerId, 'hours'), input),
   );
 }

@@ -1,6 +1,27 @@
 import type { Writable } from 'node:stream';
 import PDFDocument from 'pdfkit';
-import { buildLogCaution, buildLogKindLabels, type BuildLogEntry, type BuildSummary } from '../../db/contracts';
+import {
+  buildLogCaution,
+  buildLogKindLabels,
+  clockIsOff,
+  creditColumnLabels,
+  creditColumns,
+  fabricationCaution,
+  findingClosureLabels,
+  findingKindLabels,
+  findingStatusLabels,
+  stepPerformerLabels,
+  type BuildLogEntry,
+  type BuildSummary,
+  type FabricationCounts,
+  type FabricationTable,
+  type FindingClosure,
+  type FindingKind,
+  type FindingStatus,
+  type HoursByWho,
+} from '../../db/contracts';
+import { hoursText } from '../../lib/hours-text';
+import { timingNote } from '../../lib/log-timing';
 import { longDay, zonedDateTime } from '../../lib/zoned-time';
 
 export type PdfOptions = {
@@ -12,7 +33,36 @@ export type PdfOptions = {
 };
 
 /** What the title block says before any entry is read: how many entries and their first and last moment. */
-export type PdfHead = { build: BuildSummary; count: number; range: { from: string | null; to: string | null } };
+export type PdfHead = {
+  build: BuildSummary;
+  count: number;
+  range: { from: string | null; to: string | null };
+  /** The build's hash chain as the print began: a later check of the log starts from it. */
+  chain: { seq: number; hash: string } | null;
+  /** What the inspection reads first: hours, who did the work, parts signed off, findings and how they closed. */
+  summary: LogSummary;
+};
+
+export type LogSummary = {
+  hours: HoursByWho[];
+  fabrication: FabricationTable;
+  parts: {
+    partNumber: string;
+    serial: string;
+    signedOffAt: string | null;
+    signedOffByName: string | null;
+    replaced: boolean;
+  }[];
+  findings: {
+    partNumber: string;
+    holeIds: string[];
+    kind: FindingKind;
+    status: FindingStatus;
+    closure: FindingClosure | null;
+    raisedAt: string;
+  }[];
+  findingsTotal: number;
+};
 
 /** Thumbnail bytes by photo id, for one batch of entries; a missing one prints as an empty frame with a word. */
 export type Thumbs = Map<string, Buffer>;
@@ -238,6 +288,13 @@ export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): Log
       ['Times shown in', opts.tz],
       ['Printed', `${when(opts.generatedAt.toISOString(), opts.tz)}\nby ${opts.generatedBy}`],
     ],
+    [
+      [
+        'Log chain head when printed',
+        head.chain ? `link ${head.chain.seq}\n${head.chain.hash}` : 'no entries yet',
+        true,
+      ],
+    ],
   ];
   const cellW = CONTENT_W / 3;
   const blockTop = y;
@@ -297,6 +354,109 @@ export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): Log
     .text(buildLogCaution, M.left + 12, y + 16, { width: CONTENT_W - 24 });
   y += cautionH + 14;
 
+  // ── Summary: hours, who did the work, parts signed off, findings ─────────────────────────────────────────
+  const room = (h: number) => {
+    if (y + h > BOTTOM) {
+      doc.addPage();
+      y = M.top;
+    }
+  };
+  const heading = (s: string) => {
+    room(40);
+    label(s, M.left, y, CONTENT_W, C.accent);
+    y += 11;
+  };
+  const line = (s: string, color = C.ink, size = 8.5) => {
+    const h = doc.font('text').fontSize(size).heightOfString(s, { width: CONTENT_W });
+    room(h + 2);
+    doc.font('text').fontSize(size).fillColor(color).text(s, M.left, y, { width: CONTENT_W });
+    y += h + 2;
+  };
+  const { summary } = head;
+  label('Summary', M.left, y, CONTENT_W, C.ink);
+  y += 13;
+
+  heading('Hours worked');
+  const totalHours = summary.hours.reduce((n, h) => n + h.hours, 0);
+  if (!summary.hours.length) line('No hours recorded.', C.soft);
+  for (const h of summary.hours)
+    line(`${h.who}${h.by === 'builder' ? '' : ` (${stepPerformerLabels[h.by].toLowerCase()})`}: ${hoursText(h.hours)}`);
+  if (summary.hours.length) line(`In all: ${hoursText(totalHours)}`, C.ink);
+  y += 6;
+
+  heading('Fabrication and assembly (done steps, by whose work they were)');
+  const fabCols: [string, number][] = [
+    ['Part', 92],
+    ...creditColumns.map((c) => [creditColumnLabels[c], 62] as [string, number]),
+    ['Inspections', 52],
+    ['Not done', 46],
+    ['Builder’s share', 40],
+  ];
+  const fabRow = (cells: string[], bold = false) => {
+    room(14);
+    let cx = M.left;
+    cells.forEach((c, i) => {
+      doc
+        .font(bold ? 'bold' : 'text')
+        .fontSize(7.5)
+        .fillColor(C.ink)
+        .text(c, cx, y, { width: fabCols[i][1] - 4, align: i === 0 ? 'left' : 'right', lineBreak: false });
+      cx += fabCols[i][1];
+    });
+    y += 11;
+  };
+  const share = (v: number | null) => (v === null ? '–' : `${Math.round(v * 100)} %`);
+  const counts = (c: FabricationCounts) => [
+    ...creditColumns.map((k) => String(c.credited[k])),
+    String(c.inspections),
+    String(c.notDone),
+    share(c.builderShare),
+  ];
+  fabRow(
+    fabCols.map(([t]) => t),
+    true,
+  );
+  hrule(y - 2, C.rule);
+  for (const p of summary.fabrication.parts) fabRow([p.partNumber, ...counts(p)]);
+  hrule(y - 2, C.rule);
+  fabRow(['The build', ...counts(summary.fabrication.total)], true);
+  line(fabricationCaution, C.caution, 7.5);
+  y += 6;
+
+  heading('Parts signed off');
+  const live = summary.parts.filter((p) => !p.replaced);
+  line(`${live.filter((p) => p.signedOffAt).length} of ${live.length} parts signed off.`);
+  for (const p of summary.parts)
+    line(
+      `${p.partNumber} ${p.serial}: ${
+        p.replaced
+          ? 'replaced'
+          : p.signedOffAt
+            ? `signed off ${when(p.signedOffAt, opts.tz)}${p.signedOffByName ? ` by ${p.signedOffByName}` : ''}`
+            : 'not signed off'
+      }`,
+      p.signedOffAt ? C.ink : C.soft,
+    );
+  y += 6;
+
+  heading('Findings and how they closed');
+  const open = summary.findings.filter((f) => f.status !== 'closed').length;
+  line(
+    summary.findingsTotal
+      ? `${summary.findingsTotal} finding${summary.findingsTotal === 1 ? '' : 's'}${
+          summary.findingsTotal > summary.findings.length ? ` (the first ${summary.findings.length} listed)` : ''
+        }; ${open} of those listed still open.`
+      : 'No findings.',
+  );
+  for (const f of summary.findings)
+    line(
+      `${f.partNumber} ${f.holeIds.join(', ')} · ${findingKindLabels[f.kind]} · raised ${when(f.raisedAt, opts.tz)} · ${
+        f.closure ? `closed: ${findingClosureLabels[f.closure]}` : findingStatusLabels[f.status]
+      }`,
+    );
+  y += 12;
+  room(80);
+
   // ── The chronological list, oldest first ───────────────────────────────────────────────────────
   const x = {
     time: M.left,
@@ -325,6 +485,8 @@ export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): Log
     const textH = doc.font('text').fontSize(9).heightOfString(e.text, { width: w });
     const note = e.note ? `“${e.note}”` : '';
     const noteH = note ? doc.font('italic').fontSize(9).heightOfString(note, { width: w }) + 2 : 0;
+    const timing = timingNote(e, opts.tz) ?? '';
+    const timingH = timing ? doc.font('text').fontSize(7.5).heightOfString(timing, { width: w }) + 2 : 0;
     const photos = e.photos ?? [];
     const perRow = Math.max(1, Math.floor((w + 4) / (THUMB + 4)));
     const photoH = photos.length ? Math.ceil(photos.length / perRow) * (THUMB + 4) + 2 : 0;
@@ -342,8 +504,8 @@ export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): Log
         .font('text')
         .fontSize(8.5)
         .heightOfString(e.actorName, { width: COLS.who - 2 * PAD }) + 9;
-    const h = Math.max(kindH + textH + noteH + photoH, partH, whoH) + 2 * PAD;
-    return { note, photos, perRow, h, w };
+    const h = Math.max(kindH + textH + noteH + timingH + photoH, partH, whoH) + 2 * PAD;
+    return { note, timing, photos, perRow, h, w };
   };
 
   const drawEntry = (e: BuildLogEntry, thumbs: Thumbs) => {
@@ -394,6 +556,12 @@ export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): Log
         .fontSize(9)
         .fillColor(C.soft)
         .text(p.note, x.entry + PAD, doc.y + 2, { width: p.w });
+    if (p.timing)
+      doc
+        .font('text')
+        .fontSize(7.5)
+        .fillColor(clockIsOff(e.clockOffsetMs) ? C.flag : C.soft)
+        .text(p.timing, x.entry + PAD, doc.y + 2, { width: p.w });
     if (p.photos.length) {
       const py = doc.y + 4;
       p.photos.forEach((ph, i) => {

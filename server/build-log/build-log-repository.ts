@@ -25,6 +25,7 @@ import {
   findingEvents,
   findingPhotos,
   findings,
+  logChain,
   partDesigns,
   travelerEvents,
   travelers,
@@ -107,7 +108,20 @@ const utcMicros = <T extends string | null>(moment: AnyColumn | SQL) =>
 /** A row's place in time for the keyset: two events in the same millisecond still keep their order. */
 const sortKey = (createdAt: AnyColumn) => utcMicros<string>(createdAt);
 
-/** The window's bounds in time, on one source's `created_at`, added to its conditions. */
+/** An event's link hash in the build's chain, read through the chain's (source, event) index. */
+const chainHash = (source: 'b' | 'f' | 't', eventId: AnyColumn) =>
+  sql<
+    string | null
+  >`(select ${logChain.hash} from ${logChain} where ${logChain.source} = ${source} and ${logChain.eventId} = ${eventId})`;
+
+/** When a bench or build event was done (its place in the log) and how far off the device's clock was. */
+const timeColumns = (t: typeof travelerEvents | typeof buildEvents, source: 'b' | 't') => ({
+  doneAt: t.doneAt,
+  clockOffsetMs: t.clockOffsetMs,
+  hash: chainHash(source, t.id),
+});
+
+/** The window's bounds in time, on one source's time of work (`done_at`; a finding's `created_at`), added to its conditions. */
 function withinWindow(c: SQL[], createdAt: AnyColumn, w: LogWindow): SQL[] {
   if (w.from) c.push(gte(createdAt, w.from));
   if (w.before) c.push(lt(createdAt, w.before));
@@ -138,7 +152,7 @@ export async function listLogParts(db: Db, user: Express.User, buildId: string) 
 
 function benchConditions(db: Db, user: Express.User, w: LogWindow): SQL[] | null {
   if (w.benchKinds && w.benchKinds.length === 0 && !w.otherBench) return null;
-  const c = withinWindow(travelerScope(db, user, w), travelerEvents.createdAt, w);
+  const c = withinWindow(travelerScope(db, user, w), travelerEvents.doneAt, w);
   if (w.benchKinds) {
     const kinds: SQL[] = [];
     if (w.benchKinds.length) kinds.push(inArray(travelerEvents.kind, w.benchKinds));
@@ -159,7 +173,8 @@ export async function listBenchEvents(db: Db, user: Express.User, w: LogWindow, 
         kind: travelerEvents.kind,
         detail: travelerEvents.detail,
         createdAt: travelerEvents.createdAt,
-        sortKey: sortKey(travelerEvents.createdAt),
+        sortKey: sortKey(travelerEvents.doneAt),
+        ...timeColumns(travelerEvents, 't'),
         ...actorColumns,
         ...partColumns,
       })
@@ -168,8 +183,8 @@ export async function listBenchEvents(db: Db, user: Express.User, w: LogWindow, 
       .$dynamic(),
   )
     .innerJoin(users, eq(users.id, travelerEvents.actorId))
-    .where(and(...c, afterKeyOf('t', travelerEvents.createdAt, travelerEvents.id, r)))
-    .orderBy(...ordered(r.order, travelerEvents.createdAt, travelerEvents.id))
+    .where(and(...c, afterKeyOf('t', travelerEvents.doneAt, travelerEvents.id, r)))
+    .orderBy(...ordered(r.order, travelerEvents.doneAt, travelerEvents.id))
     .limit(r.limit);
 }
 
@@ -196,6 +211,9 @@ export async function listFindingLogEvents(db: Db, user: Express.User, w: LogWin
         note: findingEvents.note,
         createdAt: findingEvents.createdAt,
         sortKey: sortKey(findingEvents.createdAt),
+        doneAt: findingEvents.createdAt,
+        clockOffsetMs: sql<number | null>`null::integer`,
+        hash: chainHash('f', findingEvents.id),
         ...actorColumns,
         holeIds: findings.holeIds,
         findingKind: findings.kind,
@@ -233,7 +251,7 @@ export async function listLogPhotos(db: Db, user: Express.User, buildId: string,
 
 function buildConditions(db: Db, user: Express.User, w: LogWindow): SQL[] | null {
   if (w.travelerId || (w.buildKinds && w.buildKinds.length === 0)) return null;
-  const c = withinWindow([visibleBuilds(db, user), eq(buildEvents.buildId, w.buildId)], buildEvents.createdAt, w);
+  const c = withinWindow([visibleBuilds(db, user), eq(buildEvents.buildId, w.buildId)], buildEvents.doneAt, w);
   if (w.buildKinds) c.push(inArray(buildEvents.kind, w.buildKinds));
   return c;
 }
@@ -248,15 +266,16 @@ export async function listBuildEvents(db: Db, user: Express.User, w: LogWindow, 
       kind: buildEvents.kind,
       detail: buildEvents.detail,
       createdAt: buildEvents.createdAt,
-      sortKey: sortKey(buildEvents.createdAt),
+      sortKey: sortKey(buildEvents.doneAt),
+      ...timeColumns(buildEvents, 'b'),
       ...actorColumns,
       kitSerial: builds.kitSerial,
     })
     .from(buildEvents)
     .innerJoin(builds, eq(builds.id, buildEvents.buildId))
     .innerJoin(users, eq(users.id, buildEvents.actorId))
-    .where(and(...c, afterKeyOf('b', buildEvents.createdAt, buildEvents.id, r)))
-    .orderBy(...ordered(r.order, buildEvents.createdAt, buildEvents.id))
+    .where(and(...c, afterKeyOf('b', buildEvents.doneAt, buildEvents.id, r)))
+    .orderBy(...ordered(r.order, buildEvents.doneAt, buildEvents.id))
     .limit(r.limit);
 }
 
@@ -279,7 +298,7 @@ export async function tallyLog(db: Db, user: Express.User, w: LogWindow): Promis
   const parts = await Promise.all([
     bc
       ? db
-          .select(tallyOf(travelerEvents.createdAt))
+          .select(tallyOf(travelerEvents.doneAt))
           .from(travelerEvents)
           .innerJoin(travelers, eq(travelers.id, travelerEvents.travelerId))
           .innerJoin(builds, eq(builds.id, travelers.buildId))
@@ -296,7 +315,7 @@ export async function tallyLog(db: Db, user: Express.User, w: LogWindow): Promis
       : none,
     uc
       ? db
-          .select(tallyOf(buildEvents.createdAt))
+          .select(tallyOf(buildEvents.doneAt))
           .from(buildEvents)
           .innerJoin(builds, eq(builds.id, buildEvents.buildId))
           .where(and(...uc))
@@ -314,4 +333,54 @@ export async function tallyLog(db: Db, user: Express.User, w: LogWindow): Promis
     first: moments('first')[0] ?? null,
     last: moments('last').at(-1) ?? null,
   };
+}
+
+/** How many findings the printed summary lists one by one; the count says how many there are in all. */
+export const SUMMARY_FINDINGS_MAX = 200;
+
+/** The build's parts for the printed summary: which are signed off, by whom and when; only when visible. */
+export async function listSummaryParts(db: Db, user: Express.User, buildId: string) {
+  return joinTravelerPart(
+    db
+      .select({
+        partNumber: partDesigns.partNumber,
+        serial: travelers.serial,
+        signedOffAt: travelers.signedOffAt,
+        signedOffByName: sql<string | null>`(select u.name from users u where u.id = ${travelers.signedOffBy})`,
+        replaced: sql<boolean>`${travelers.replacedById} is not null`,
+      })
+      .from(travelers)
+      .$dynamic(),
+  )
+    .where(and(eq(travelers.buildId, buildId), visibleBuilds(db, user)))
+    .orderBy(asc(partDesigns.partNumber), asc(travelers.serial));
+}
+
+/** The build's findings for the printed summary, oldest first, and how many there are in all. */
+export async function listSummaryFindings(db: Db, user: Express.User, buildId: string) {
+  const where = and(eq(travelers.buildId, buildId), visibleBuilds(db, user));
+  const [rows, [{ n }]] = await Promise.all([
+    joinTravelerPart(
+      db
+        .select({
+          partNumber: partDesigns.partNumber,
+          holeIds: findings.holeIds,
+          kind: findings.kind,
+          status: findings.status,
+          disposition: findings.disposition,
+          closure: findings.closure,
+          raisedAt: findings.createdAt,
+        })
+        .from(findings)
+        .innerJoin(travelers, eq(travelers.id, findings.travelerId))
+        .$dynamic(),
+    )
+      .where(where)
+      .orderBy(asc(findings.createdAt), asc(findings.id))
+      .limit(SUMMARY_FINDINGS_MAX),
+    joinTravelerPart(
+      db.select({ n: count() }).from(findings).innerJoin(travelers, eq(travelers.id, findings.travelerId)).$dynamic(),
+    ).where(where),
+  ]);
+  return { rows, total: n };
 }

@@ -1,14 +1,18 @@
 import { Router, type RequestHandler, type Response } from 'express';
+import multer, { MulterError } from 'multer';
 import {
   buildLogPageQuery,
   buildLogQuery,
   idParam,
+  LOG_CHECK_FILE_MAX_MB,
   type BuildLogPageQuery,
   type BuildLogQuery,
 } from '../../db/contracts';
 import type { AppContext } from '../context';
+import { badRequest, HttpError } from '../http-error';
 import { validateQuery } from '../middleware/validate';
 import { buildLogService } from './build-log-service';
+import { logChainService } from './log-chain-service';
 
 /** `attachment; filename=…` with the plain name and its UTF-8 form (RFC 6266). */
 function attachment(filename: string): string {
@@ -45,6 +49,21 @@ function exportRoute(make: MakeExport, contentType: string): RequestHandler {
   };
 }
 
+/** One exported log in memory, as the `file` field; the error handler's upload messages speak of photos, so these say their own. */
+const oneLogFile = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: LOG_CHECK_FILE_MAX_MB * 1024 * 1024, files: 1, fields: 4, parts: 5 },
+}).single('file');
+const logUpload: RequestHandler = (req, res, next) =>
+  oneLogFile(req, res, (err?: unknown) => {
+    if (!err) return next();
+    if (err instanceof MulterError && err.code === 'LIMIT_FILE_SIZE')
+      return next(new HttpError(413, 'too_large', `the log file is larger than ${LOG_CHECK_FILE_MAX_MB} MB`));
+    if (err instanceof MulterError)
+      return next(badRequest('attach one CSV file, as the "file" field', { file: 'one CSV file' }));
+    next(badRequest('the upload could not be read: send the file again', { file: 'unreadable upload' }));
+  });
+
 /**
  * GET /api/builds/:id/log (JSON, one page at a time), /log.csv and /log.pdf, same filters. Mounted on /builds ahead of the
  * builds router; it signs in only its own routes, so other /builds requests are not authenticated twice.
@@ -62,5 +81,26 @@ export function buildLogRouter(ctx: AppContext, signedIn: RequestHandler): Route
   });
   r.get('/:id/log.csv', signedIn, query, exportRoute(service.csv, 'text/csv; charset=utf-8; header=present'));
   r.get('/:id/log.pdf', signedIn, query, exportRoute(service.pdf, 'application/pdf'));
+
+  // The hash chain: its state, and an exported CSV checked against it. The upload is read only once the
+  // build is known to be visible (404 first), so nobody makes the server hold a file for a build they cannot see.
+  const chain = logChainService(ctx);
+  r.get('/:id/log/chain', signedIn, async (req, res) => {
+    res.set('Cache-Control', 'private, no-store');
+    res.json(await chain.chain(req.user!, idParam.parse(req.params).id));
+  });
+  r.post(
+    '/:id/log/check',
+    signedIn,
+    async (req, _res, next) => {
+      await chain.mustSee(req.user!, idParam.parse(req.params).id);
+      next();
+    },
+    logUpload,
+    async (req, res) => {
+      res.set('Cache-Control', 'private, no-store');
+      res.json(await chain.checkFile(req.user!, idParam.parse(req.params).id, req.file));
+    },
+  );
   return r;
 }

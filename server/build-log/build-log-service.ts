@@ -10,7 +10,11 @@ import {
   findingKindLabels,
   findingLogKindOfAction,
   groupOfKind,
+  fabricationTable,
   logEntryMatches,
+  stepPerformerLabels,
+  stepPerformers,
+  type StepPerformer,
   type BuildLogEntry,
   type BuildLogGroup,
   type BuildLogKind,
@@ -20,11 +24,14 @@ import {
   type BuildLogQuery,
 } from '../../db/contracts';
 import type { AppContext } from '../context';
-import { listVisibleBuilds } from '../builds/builds-repository';
+import { listFabricationSteps, listVisibleBuilds } from '../builds/builds-repository';
 import { badRequest, HttpError, notFound } from '../http-error';
 import { encodeCursor } from '../pagination';
-import { csvHead, csvLines } from './build-log-csv';
-import type { Thumbs } from './build-log-pdf';
+import { hoursText } from '../../lib/hours-text';
+import { csvChainHead, csvHead, csvLines } from './build-log-csv';
+import { chainHead } from './log-chain-repository';
+import { readBuildHours } from '../travelers/work-repository';
+import type { LogSummary, Thumbs } from './build-log-pdf';
 import { MAX_PDF_THREADS, reservePdfThread, startPdfThread, type PdfThread } from './build-log-pdf-thread';
 import {
   compareKeys,
@@ -33,6 +40,8 @@ import {
   listFindingLogEvents,
   listLogParts,
   listLogPhotos,
+  listSummaryFindings,
+  listSummaryParts,
   tallyLog,
   type FindingLogKind,
   type LogKey,
@@ -43,7 +52,7 @@ import {
 } from './build-log-repository';
 import { nextDay, startOfDay } from '../../lib/zoned-time';
 
-type Deps = Pick<AppContext, 'db' | 'signer' | 'storage'>;
+type Deps = Pick<AppContext, 'db' | 'signer' | 'storage' | 'config'>;
 type BenchRow = Awaited<ReturnType<typeof listBenchEvents>>[number];
 type FindingRow = Awaited<ReturnType<typeof listFindingLogEvents>>[number];
 type BuildRow = Awaited<ReturnType<typeof listBuildEvents>>[number];
@@ -55,6 +64,12 @@ type Raw =
 
 /** Rows an export reads and writes at a time: one keyset read per source, one write, then the event loop's turn. */
 export const EXPORT_BATCH = 1000;
+/**
+ * A photo link in an exported file lasts 30 days: the file goes to an inspector, who opens it later than
+ * a screen would. It still names the person who exported it, whose right to see the photo is checked on
+ * every load.
+ */
+const FILE_LINK_TTL_S = 30 * 86_400;
 /** Rows a page request looks through for search words before it answers with what it found and a cursor. */
 const SEARCH_SCAN_MAX = 5000;
 
@@ -127,12 +142,30 @@ function drained(out: Writable): Promise<void> {
 }
 
 // One collator for every comparison: localeCompare with options builds a new one each call (slow over 50,000 entries).
+/** An entry's times as the log shows them: done (its place in the log), received, and the device's clock offset. */
+function timesOf(r: { doneAt: Date; createdAt: Date; clockOffsetMs: number | null; hash: string | null }) {
+  return {
+    at: r.doneAt.toISOString(),
+    receivedAt: r.createdAt.toISOString(),
+    clockOffsetMs: r.clockOffsetMs,
+    hash: r.hash,
+  };
+}
+
 const natural = new Intl.Collator(undefined, { numeric: true }).compare;
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
 function holesOf(detail: Record<string, unknown>): string[] {
   const ids = detail.holeIds;
   return Array.isArray(ids) ? ids.filter((x): x is string => typeof x === 'string').sort(natural) : [];
+}
+
+/** Who did a step's work when it was not the builder who recorded it: " by a helper, Sam Ortiz". */
+function performedBy(detail: Record<string, unknown>): string {
+  const by = detail.by;
+  if (typeof by !== 'string' || by === 'builder' || !(stepPerformers as readonly string[]).includes(by)) return '';
+  const name = typeof detail.byName === 'string' && detail.byName ? `, ${detail.byName}` : '';
+  return ` by ${stepPerformerLabels[by as StepPerformer].toLowerCase()}${name}`;
 }
 
 /** A bench event as a sentence. The detail is free JSON written by the travelers service. */
@@ -156,11 +189,14 @@ export function describeBench(
       return { kind, text, holeIds };
     }
     case 'step_done':
-    case 'step_undone': {
+    case 'step_undone':
+    case 'step_stamped': {
       const seq = typeof detail.seq === 'number' ? detail.seq : null;
       const what = typeof detail.text === 'string' ? detail.text : '';
       const step = seq === null ? 'A step' : `Step ${seq}`;
-      return { kind, text: kind === 'step_done' ? `${step} done: ${what}` : `${step} set back to not done: ${what}` };
+      if (kind === 'step_undone') return { kind, text: `${step} set back to not done: ${what}` };
+      if (kind === 'step_stamped') return { kind, text: `Stamped inspection point ${step.toLowerCase()}: ${what}` };
+      return { kind, text: `${step} done${performedBy(detail)}: ${what}` };
     }
     case 'signed_off':
       return { kind, text: 'Signed the part off: every hole and step done, no finding open.' };
@@ -172,6 +208,20 @@ export function describeBench(
         kind,
         text: `Withdrew the sign-off${by}${at}: the part is open again. The sign-off stays in the log.`,
         ...(typeof detail.reason === 'string' && detail.reason ? { note: detail.reason } : {}),
+      };
+    }
+    case 'work_started':
+      return { kind, text: `Started work on the part${performedBy(detail)}.` };
+    case 'work_stopped':
+    case 'hours_entered': {
+      const h = typeof detail.hours === 'number' ? detail.hours : null;
+      const span = h === null ? '' : ` (${hoursText(h)})`;
+      return {
+        kind,
+        text:
+          kind === 'work_stopped'
+            ? `Stopped work on the part${performedBy(detail)}${span}.`
+            : `Entered ${h === null ? 'hours' : hoursText(h)} worked on the part${performedBy(detail)}.`,
       };
     }
     case 'part_replaced': {
@@ -299,7 +349,7 @@ function windowOf(buildId: string, q: BuildLogQuery): LogWindow {
   };
 }
 
-export const buildLogService = ({ db, signer, storage }: Deps) => {
+export const buildLogService = ({ db, signer, storage, config }: Deps) => {
   /** The build, its parts and the window, or the 404/400 that answers before anything is read or sent. */
   async function open(user: Express.User, buildId: string, q: BuildLogQuery) {
     const [build] = await listVisibleBuilds(db, user, buildId);
@@ -380,7 +430,7 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
   }
 
   /** Rows as entries, with the photos of this batch only (signed links), in the rows' order. */
-  async function entriesOf(user: Express.User, buildId: string, rows: Raw[], withPhotos: boolean) {
+  async function entriesOf(user: Express.User, buildId: string, rows: Raw[], withPhotos: boolean, linkTtl?: number) {
     const photoFindings = withPhotos
       ? [
           ...new Set(
@@ -397,7 +447,7 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
         const d = describeBuildEvent(r.kind, r.detail ?? {});
         return {
           id: `b:${r.id}`,
-          at: r.createdAt.toISOString(),
+          ...timesOf(r),
           actorName: r.actorName,
           actorRole: r.actorRole,
           travelerId: null,
@@ -411,7 +461,7 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
       }
       const r = raw.row;
       const common = {
-        at: r.createdAt.toISOString(),
+        ...timesOf(r),
         actorName: r.actorName,
         actorRole: r.actorRole,
         travelerId: r.travelerId,
@@ -451,8 +501,8 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
           ? {
               photos: own.map((p) => ({
                 id: p.id,
-                thumbUrl: signer.sign(p.id, 'thumb', user.id),
-                url: signer.sign(p.id, 'full', user.id),
+                thumbUrl: signer.sign(p.id, 'thumb', user.id, linkTtl),
+                url: signer.sign(p.id, 'full', user.id, linkTtl),
               })),
             }
           : {}),
@@ -480,9 +530,10 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
     w: LogWindow,
     q: BuildLogQuery,
     withPhotos: boolean,
+    linkTtl?: number,
   ) {
     for await (const rows of merged(user, w, null, 'asc', EXPORT_BATCH)) {
-      const { entries, photos } = await entriesOf(user, buildId, rows, withPhotos);
+      const { entries, photos } = await entriesOf(user, buildId, rows, withPhotos, linkTtl);
       const shown = q.q ? entries.filter((e) => logEntryMatches(e, q.q!)) : entries;
       const listed = new Set(shown.flatMap((e) => e.photos?.map((p) => p.id) ?? []));
       yield {
@@ -539,22 +590,24 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
     async csv(user: Express.User, buildId: string, q: BuildLogQuery) {
       const { build, w } = await open(user, buildId, q);
       const tz = q.tz ?? 'UTC';
+      // Read before the first row: the file's last line gives the chain as its export began.
+      const { head } = await chainHead(db, user, buildId);
       return {
         filename: `${fileStem(build.kitSerial)}.csv`,
         async write(out: Writable) {
           const gone = () => out.destroyed || out.writableEnded;
           out.write(csvHead());
-          for await (const { entries } of exportBatches(user, buildId, w, q, true)) {
+          for await (const { entries } of exportBatches(user, buildId, w, q, true, FILE_LINK_TTL_S)) {
             if (gone()) return;
             await inSlices(
               entries,
               async (slice) => {
-                if (!gone() && !out.write(csvLines(slice, tz))) await drained(out);
+                if (!gone() && !out.write(csvLines(slice, tz, config.publicUrl))) await drained(out);
               },
               64,
             );
           }
-          if (!gone()) out.end();
+          if (!gone()) out.end(csvChainHead(head));
         },
       };
     },
@@ -581,6 +634,23 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
     },
   };
 
+  /** The printed log's summary: hours by who, the fabrication table, parts signed off, findings and their closing. */
+  async function summaryOf(user: Express.User, buildId: string): Promise<LogSummary> {
+    const [hours, steps, parts, found] = await Promise.all([
+      readBuildHours(db, user, buildId),
+      listFabricationSteps(db, user, buildId),
+      listSummaryParts(db, user, buildId),
+      listSummaryFindings(db, user, buildId),
+    ]);
+    return {
+      hours,
+      fabrication: fabricationTable(steps),
+      parts: parts.map((p) => ({ ...p, signedOffAt: p.signedOffAt?.toISOString() ?? null })),
+      findings: found.rows.map((f) => ({ ...f, raisedAt: f.raisedAt.toISOString() })),
+      findingsTotal: found.total,
+    };
+  }
+
   async function pdfExport(user: Express.User, buildId: string, q: BuildLogQuery, release: () => void) {
     const { build, parts, w } = await open(user, buildId, q);
     let tally: { n: number; first: string | null; last: string | null };
@@ -601,6 +671,7 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
       };
     }
     const generatedAt = new Date();
+    const [{ head }, summary] = await Promise.all([chainHead(db, user, buildId), summaryOf(user, buildId)]);
     return {
       filename: `${fileStem(build.kitSerial)}.pdf`,
       async write(out: Writable) {
@@ -608,7 +679,13 @@ export const buildLogService = ({ db, signer, storage }: Deps) => {
         let pdf: PdfThread;
         try {
           pdf = startPdfThread(
-            { build, count: tally.n, range: { from: isoOf(tally.first), to: isoOf(tally.last) } },
+            {
+              build,
+              count: tally.n,
+              range: { from: isoOf(tally.first), to: isoOf(tally.last) },
+              chain: head,
+              summary,
+            },
             {
               tz: q.tz ?? 'UTC',
               generatedAt,

@@ -9,6 +9,7 @@ import {
   invitations,
   kitModels,
   organizations,
+  partDesigns,
   travelerEvents,
   travelerSteps,
   travelers,
@@ -20,11 +21,14 @@ import {
   type BuildPlace,
   type BuildSummary,
   type BuildWork,
+  type FabricationPartInput,
+  type FabricationStep,
   type MemberPlace,
   type Page,
   type PageQuery,
 } from '../../db/contracts';
 import { afterKey, decodeCursor, pageOf } from '../pagination';
+import { joinTravelerPart } from '../travelers/travelers-repository';
 import { visibleBuilds } from './build-access';
 
 const person = (role: 'builder' | 'inspector') => sql<{ id: string; name: string; email: string }[]>`coalesce((
@@ -219,4 +223,38 @@ export async function placeOnBuild(db: Db, user: Express.User, buildId: string):
     case 'admin':
       return 'none';
   }
+}
+
+/**
+ * The steps of the build's live parts (a replaced part's work is not in the aircraft), as the
+ * fabrication table reads them, part by part and in step order; only when the build is visible.
+ */
+export async function listFabricationSteps(db: Db, user: Express.User, buildId: string) {
+  const rows = await joinTravelerPart(
+    db
+      .select({
+        travelerId: travelers.id,
+        serial: travelers.serial,
+        partNumber: partDesigns.partNumber,
+        partName: partDesigns.name,
+        kind: travelerSteps.kind,
+        done: sql<boolean>`${travelerSteps.doneAt} is not null`,
+        by: travelerSteps.performer,
+      })
+      .from(travelers)
+      .$dynamic(),
+  )
+    .leftJoin(travelerSteps, eq(travelerSteps.travelerId, travelers.id))
+    .where(and(eq(travelers.buildId, buildId), isNull(travelers.replacedById), visibleBuilds(db, user)))
+    .orderBy(asc(partDesigns.partNumber), asc(travelers.serial), asc(travelerSteps.seq));
+  const parts = new Map<string, FabricationPartInput & { steps: FabricationStep[] }>();
+  for (const r of rows) {
+    let p = parts.get(r.travelerId);
+    if (!p) {
+      p = { travelerId: r.travelerId, serial: r.serial, partNumber: r.partNumber, partName: r.partName, steps: [] };
+      parts.set(r.travelerId, p);
+    }
+    if (r.kind) p.steps.push({ kind: r.kind, done: r.done, by: r.by });
+  }
+  return [...parts.values()];
 }

@@ -23,6 +23,12 @@ export function buildsRouter(ctx: AppContext): Router {
   r.get('/:id', async (req, res) => {
     res.json(await builds.detail(req.user!, idParam.parse(req.params).id));
   });
+  r.get('/:id/hours', async (req, res) => {
+    res.json(await builds.hours(req.user!, idParam.parse(req.params).id));
+  });
+  r.get('/:id/fabrication', async (req, res) => {
+    res.json(await builds.fabrication(req.user!, idParam.parse(req.params).id));
+  });
   r.patch('/:id', validateBody(buildChangeInput), async (req, res) => {
     res.json(await builds.update(req.user!, idParam.parse(req.params).id, req.body));
   });

@@ -6,6 +6,9 @@ import {
   memberRoleOfPlace,
   removalRefusal,
   singlePlaces,
+  fabricationTable,
+  type FabricationTable,
+  type HoursByWho,
   type BuildAction,
   type BuildChangeInput,
   type BuildPeople,
@@ -22,6 +25,7 @@ import { badRequest, conflict, forbidden, notFound } from '../http-error';
 import { kitsService } from '../kits/kits-service';
 import { listPublishedParts } from '../designs/designs-repository';
 import { insertTraveler, listTravelers } from '../travelers/travelers-repository';
+import { readBuildHours } from '../travelers/work-repository';
 import {
   buildWork,
   deleteBuild,
@@ -29,6 +33,7 @@ import {
   insertBuild,
   insertBuildEvent,
   kitSerialTaken,
+  listFabricationSteps,
   listBuildMembers,
   listVisibleBuilds,
   lockBuild,
@@ -173,6 +178,18 @@ export const buildsService = (ctx: Deps) => {
         people: await people(user, id, b.organizationId),
         travelers: await listTravelers(db, user, { buildId: id }),
       };
+    },
+
+    /** Hours worked on the build's parts, by who did the work. */
+    async hours(user: Express.User, id: string): Promise<HoursByWho[]> {
+      await summary(user, id);
+      return readBuildHours(db, user, id);
+    },
+
+    /** The build's fabrication-and-assembly table, summed from its live parts' steps. */
+    async fabrication(user: Express.User, id: string): Promise<FabricationTable> {
+      await summary(user, id);
+      return fabricationTable(await listFabricationSteps(db, user, id));
     },
 
     /**

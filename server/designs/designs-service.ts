@@ -9,6 +9,7 @@ import {
   type PartDesignSummary,
   type Revision,
   type RevisionInput,
+  type RevisionStep,
 } from '../../db/contracts';
 import { withTransaction, type Db } from '../../db';
 import { badRequest, conflict, notFound } from '../http-error';
@@ -31,7 +32,10 @@ import {
 } from './designs-repository';
 import { nextRevisionLetter } from './revision-letters';
 
-type RevisionBody = Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & { steps: string[]; changeNote: string };
+type RevisionBody = Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & {
+  steps: RevisionStep[];
+  changeNote: string;
+};
 /** The load study a revision's numbers came from, frozen with it at publish. */
 type EngineeringBasis = { basis: Record<string, unknown>; studyId: string };
 

@@ -1,5 +1,11 @@
 import sharp from 'sharp';
-import type { CouponOutcome, RevisionInput, RibStudyInputValues, WingStudyInputValues } from '../../db/contracts';
+import type {
+  CouponOutcome,
+  RevisionInput,
+  RevisionStep,
+  RibStudyInputValues,
+  WingStudyInputValues,
+} from '../../db/contracts';
 import type { CouponTest } from '../../lib/engineering-results';
 import type { Database } from '../../db';
 import { hashPassword } from '../auth/passwords';
@@ -25,7 +31,10 @@ export const DEMO_USERS = {
 };
 
 /** A revision as the demo writes it: every field given. */
-type DemoRevision = Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & { steps: string[]; changeNote: string };
+type DemoRevision = Required<Omit<RevisionInput, 'steps' | 'changeNote'>> & {
+  steps: RevisionStep[];
+  changeNote: string;
+};
 type DemoLine = DemoRevision['lines'][number];
 
 /** A rib flange line of the demo's ribs: 44 in long from 1 in aft of the nose, in pitch zones. */
@@ -59,11 +68,12 @@ function ribRevision(over: Partial<RevisionInput> = {}): DemoRevision {
       ]),
     ],
     steps: [
-      'Deburr all holes and flute the flanges straight',
-      'Cleco rib to spar and skin; check flange fit',
-      'Rivet upper flange',
-      'Rivet lower flange',
-      'Inspect shop heads',
+      { text: 'Deburr all holes and flute the flanges straight', kind: 'deburr', inspectionPoint: false },
+      // The fit is checked before any rivet goes in: a bad fit found after riveting means drilling out.
+      { text: 'Cleco rib to spar and skin; check flange fit', kind: 'inspect', inspectionPoint: true },
+      { text: 'Rivet upper flange', kind: 'rivet', inspectionPoint: false },
+      { text: 'Rivet lower flange', kind: 'rivet', inspectionPoint: false },
+      { text: 'Inspect shop heads', kind: 'inspect', inspectionPoint: false },
     ],
     changeNote: '',
     ...over,
@@ -165,9 +175,9 @@ export const DEMO_SKIN_REVISION: DemoRevision = {
     skinLine('OR', 'Rib W-102 (outboard)', 29.7),
   ],
   steps: [
-    'Deburr and dimple the skin holes',
-    'Cleco skin to spars and ribs',
-    'Rivet spars, then ribs, from the middle out',
+    { text: 'Deburr and dimple the skin holes', kind: 'dimple_countersink', inspectionPoint: false },
+    { text: 'Cleco skin to spars and ribs', kind: 'inspect', inspectionPoint: true },
+    { text: 'Rivet spars, then ribs, from the middle out', kind: 'rivet', inspectionPoint: false },
   ],
   changeNote: '',
 };
@@ -284,12 +294,10 @@ export async function seedDemo(
     holeIds: ['U-01', 'U-02', 'U-03', 'U-04', 'U-05', 'U-06', 'U-07', 'U-08'],
     status: 'installed',
   });
-  await travelers.setStep(
-    builder,
-    innerTraveler.id,
-    (await travelers.detail(builder, innerTraveler.id)).steps[0].id,
-    true,
-  );
+  await travelers.setStep(builder, innerTraveler.id, (await travelers.detail(builder, innerTraveler.id)).steps[0].id, {
+    done: true,
+    by: 'builder',
+  });
   await findings.create(
     builder,
     {

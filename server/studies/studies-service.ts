@@ -1,5 +1,6 @@
 import type {
   ApplyStudyInput,
+  FastenerLine,
   Page,
   PageQuery,
   PartDesignDetail,
@@ -38,6 +39,7 @@ import {
   listStudyRevisions,
   pageStudyRows,
 } from './studies-repository';
+import { keepLineCodes } from './line-codes';
 import { runStudy } from './study-pool';
 
 /** Ends the study threads: the server calls it on shutdown, after it stops taking requests. */
@@ -190,7 +192,13 @@ export const studiesService = (db: Db) => {
     basis: Record<string, unknown>,
     studyId: string,
   ) {
-    const revisionBody = revisionInput.parse({ ...body, steps: design.revisions[0]?.steps ?? [] });
+    const latest = design.revisions[0];
+    const lines = body.lines as FastenerLine[];
+    const revisionBody = revisionInput.parse({
+      ...body,
+      lines: latest ? keepLineCodes(latest.lines, lines) : lines,
+      steps: latest?.steps ?? [],
+    });
     const draft = design.revisions.find((r) => r.status === 'draft');
     const engineering = { basis, studyId };
     return draft

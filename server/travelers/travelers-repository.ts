@@ -20,7 +20,11 @@ import {
   openFindingStatuses,
   type Hole,
   type HoleStatus,
+  stepCounts,
   type PartFacts,
+  type StepFact,
+  type StepPerformer,
+  type TravelerStepDetail,
   type TravelerSummary,
 } from '../../db/contracts';
 import { placeColumn, visibleBuilds } from '../builds/build-access';
@@ -30,6 +34,7 @@ import { checkLayout } from '../designs/layout-check';
 import { revisionMakeColumns } from '../designs/designs-repository';
 import { newQrToken, newShortCode } from './codes';
 import { placeHoles } from './hole-layout';
+import type { BenchTime } from './device-time';
 
 /** Live parts first, then by serial (kit serial and part number, a replacement right after its original), then id. */
 const replacedRank = sql<boolean>`(${travelers.replacedById} is not null)`;
@@ -230,11 +235,12 @@ function travelerPageQuery(db: Db, user: Viewer) {
           Hole[]
         >`(select coalesce(json_agg(json_build_object('holeId', h.hole_id, 'line', h.line, 'seq', h.seq,
       'stationIn', h.station_in, 'status', h.status) order by h.line, h.seq), '[]'::json) from holes h where h.traveler_id = ${travelers.id})`,
-        steps: sql<
-          { id: string; seq: number; text: string; doneAt: string | null; doneByName: string | null }[]
-        >`(select coalesce(json_agg(json_build_object(
-      'id', s.id, 'seq', s.seq, 'text', s.text, 'doneAt', s.done_at, 'doneByName', u.name) order by s.seq), '[]'::json)
-      from traveler_steps s left join users u on u.id = s.done_by where s.traveler_id = ${travelers.id})`,
+        steps: sql<TravelerStepDetail[]>`(select coalesce(json_agg(json_build_object(
+      'id', s.id, 'seq', s.seq, 'text', s.text, 'kind', s.kind, 'inspectionPoint', s.inspection_point,
+      'doneAt', s.done_at, 'doneByName', u.name, 'by', s.performer, 'byName', s.performer_name,
+      'stampedAt', s.stamped_at, 'stampedByName', st.name) order by s.seq), '[]'::json)
+      from traveler_steps s left join users u on u.id = s.done_by left join users st on st.id = s.stamped_by
+      where s.traveler_id = ${travelers.id})`,
       })
       .from(travelers)
       .$dynamic(),
@@ -293,7 +299,7 @@ export async function readPartFacts(
   tx: Db,
   t: typeof travelers.$inferSelect,
   holeIds?: string[],
-): Promise<PartFacts & { picked: Hole[] }> {
+): Promise<PartFacts & { picked: Hole[]; steps: StepFact[] }> {
   const picked = holeIds?.length
     ? sql`(select coalesce(json_agg(json_build_object('holeId', h.hole_id, 'line', h.line, 'seq', h.seq, 'stationIn', h.station_in, 'status', h.status)), '[]'::json)
         from holes h where h.traveler_id = ${t.id} and h.hole_id in ${holeIds})`
@@ -301,18 +307,21 @@ export async function readPartFacts(
   const res = await tx.execute(sql`select
     (select coalesce(json_object_agg(c.status, c.n), '{}'::json)
       from (select status, count(*)::int as n from holes where traveler_id = ${t.id} group by status) c) as holes,
-    (select count(*)::int from traveler_steps where traveler_id = ${t.id} and done_at is null) as "stepsOpen",
+    (select coalesce(json_agg(json_build_object('id', s.id, 'seq', s.seq, 'inspectionPoint', s.inspection_point,
+      'done', s.done_at is not null, 'stamped', s.stamped_at is not null) order by s.seq), '[]'::json)
+      from traveler_steps s where s.traveler_id = ${t.id}) as steps,
     (select count(*)::int from findings where traveler_id = ${t.id} and ${inArray(findings.status, [...openFindingStatuses])}) as "openFindings",
     ${picked} as picked`);
   const row = res.rows[0] as {
     holes: Partial<Record<HoleStatus, number>>;
-    stepsOpen: number;
+    steps: StepFact[];
     openFindings: number;
     picked: Hole[];
   };
   return {
     holes: row.holes,
-    stepsOpen: row.stepsOpen,
+    steps: row.steps,
+    ...stepCounts(row.steps),
     openFindings: row.openFindings,
     signedOff: t.signedOffAt !== null,
     replaced: t.replacedById !== null,
@@ -331,15 +340,19 @@ export async function setHolesWithEvent(
   holeIds: string[],
   from: HoleStatus,
   to: HoleStatus,
+  when: BenchTime,
 ): Promise<Hole[]> {
+  const doneAt = when.doneAt ? when.doneAt.toISOString() : null;
   const res = await tx.execute(sql`with changed as (
       update holes set status = ${to}, updated_by = ${actorId}, updated_at = now()
       where traveler_id = ${travelerId} and hole_id in ${holeIds} and status = ${from}
       returning hole_id, line, seq, station_in, status),
+    arrived as (select clock_timestamp() as at),
     event as (
-      insert into traveler_events (traveler_id, actor_id, created_at, kind, detail)
-      select ${travelerId}::uuid, ${actorId}::uuid, clock_timestamp(), ${`holes_${to}`}, jsonb_build_object('holeIds', jsonb_agg(hole_id))
-      from changed having count(*) > 0)
+      insert into traveler_events (traveler_id, actor_id, created_at, done_at, clock_offset_ms, kind, detail)
+      select ${travelerId}::uuid, ${actorId}::uuid, arrived.at, coalesce(${doneAt}::timestamptz, arrived.at),
+        ${when.clockOffsetMs}::integer, ${`holes_${to}`}, jsonb_build_object('holeIds', jsonb_agg(hole_id))
+      from changed, arrived group by arrived.at having count(*) > 0)
     select hole_id as "holeId", line, seq, station_in as "stationIn", status from changed`);
   return res.rows as Hole[];
 }
@@ -382,9 +395,15 @@ export async function insertTraveler(
     await tx.insert(holes).values(placed.slice(i, i + HOLE_BATCH).map((h) => ({ ...h, travelerId: traveler.id })));
   }
   if (t.revision.steps.length) {
-    await tx
-      .insert(travelerSteps)
-      .values(t.revision.steps.map((text, i) => ({ travelerId: traveler.id, seq: i + 1, text })));
+    await tx.insert(travelerSteps).values(
+      t.revision.steps.map((s, i) => ({
+        travelerId: traveler.id,
+        seq: i + 1,
+        text: s.text,
+        kind: s.kind,
+        inspectionPoint: s.inspectionPoint,
+      })),
+    );
   }
   return traveler;
 }
@@ -442,10 +461,38 @@ export async function clearSignOff(tx: Db, id: string) {
 }
 
 /** Marks a step of the part done by the person (or, with null, not done); undefined when the part has no such step. */
-export async function setStepDone(tx: Db, travelerId: string, stepId: string, doneBy: string | null) {
+/**
+ * A step recorded done by a builder (at the device's time when it sent one, else now), with who did the
+ * work; or undone (null).
+ */
+export async function setStepDone(
+  tx: Db,
+  travelerId: string,
+  stepId: string,
+  done: { recordedBy: string; at: Date | null; performer: StepPerformer; performerName: string | null } | null,
+) {
   const [step] = await tx
     .update(travelerSteps)
-    .set(doneBy ? { doneAt: new Date(), doneBy } : { doneAt: null, doneBy: null })
+    .set(
+      done
+        ? {
+            doneAt: done.at ?? new Date(),
+            doneBy: done.recordedBy,
+            performer: done.performer,
+            performerName: done.performerName,
+          }
+        : { doneAt: null, doneBy: null, performer: null, performerName: null },
+    )
+    .where(and(eq(travelerSteps.id, stepId), eq(travelerSteps.travelerId, travelerId)))
+    .returning();
+  return step;
+}
+
+/** An inspector's stamp on an inspection point. */
+export async function stampStep(tx: Db, travelerId: string, stepId: string, inspectorId: string) {
+  const [step] = await tx
+    .update(travelerSteps)
+    .set({ stampedAt: new Date(), stampedBy: inspectorId })
     .where(and(eq(travelerSteps.id, stepId), eq(travelerSteps.travelerId, travelerId)))
     .returning();
   return step;
@@ -459,9 +506,14 @@ export async function signOffTraveler(tx: Db, id: string, userId: string) {
 /**
  * A bench event of the part, stamped the moment it is written, under the part's lock. The column's
  * default is the transaction's start, which puts a write that waited for the lock before the one it waited for.
+ * Done then too, unless the device said when it was done.
  */
-export async function insertTravelerEvent(tx: Db, values: Omit<typeof travelerEvents.$inferInsert, 'createdAt'>) {
-  await tx.insert(travelerEvents).values({ ...values, createdAt: sql`clock_timestamp()` });
+export async function insertTravelerEvent(
+  tx: Db,
+  values: Omit<typeof travelerEvents.$inferInsert, 'createdAt' | 'doneAt'> & { doneAt?: Date | null },
+) {
+  const now = sql`clock_timestamp()`;
+  await tx.insert(travelerEvents).values({ ...values, createdAt: now, doneAt: values.doneAt ?? now });
 }
 
 /** A person's name (a withdrawn sign-off's log entry keeps who had signed). */

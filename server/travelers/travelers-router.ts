@@ -6,6 +6,9 @@ import {
   lookupInput,
   stepInput,
   tickHolesInput,
+  workHoursInput,
+  workStartInput,
+  workStopInput,
   travelerListQuery,
   withdrawSignOffInput,
 } from '../../db/contracts';
@@ -40,7 +43,20 @@ export function travelersRouter(ctx: AppContext): Router {
   });
   r.post('/:id/steps/:stepId', validateBody(stepInput), async (req, res) => {
     const { id, stepId } = stepParams.parse(req.params);
-    res.json(await service.setStep(req.user!, id, stepId, req.body.done));
+    res.json(await service.setStep(req.user!, id, stepId, req.body));
+  });
+  r.post('/:id/work/start', validateBody(workStartInput), async (req, res) => {
+    res.json(await service.startWork(req.user!, idParam.parse(req.params).id, req.body));
+  });
+  r.post('/:id/work/stop', validateBody(workStopInput), async (req, res) => {
+    res.json(await service.stopWork(req.user!, idParam.parse(req.params).id, req.body));
+  });
+  r.post('/:id/work/hours', validateBody(workHoursInput), async (req, res) => {
+    res.json(await service.enterHours(req.user!, idParam.parse(req.params).id, req.body));
+  });
+  r.post('/:id/steps/:stepId/stamp', async (req, res) => {
+    const { id, stepId } = stepParams.parse(req.params);
+    res.json(await service.stampStep(req.user!, id, stepId));
   });
   r.post('/:id/sign-off', async (req, res) => {
     res.json(await service.signOff(req.user!, idParam.parse(req.params).id));

@@ -2,16 +2,26 @@ import QRCode from 'qrcode';
 import {
   allowedPartActions,
   checkPartAction,
+  checkStepChange,
   holesAwaitingInspectorStatuses,
   holesDoneStatuses,
+  MAX_SESSION_HOURS,
   mayPrintLabels,
   signOffReadiness,
+  stepCounts,
   type HoleStatus,
   type LabelsQuery,
   type Page,
   type PartAction,
+  type DeviceTime,
   type PartFacts,
   type PartLabel,
+  type StepChange,
+  type WorkHoursChange,
+  type WorkStartChange,
+  type WorkStopChange,
+  type StepFact,
+  type StepPerformer,
   type TickHolesInput,
   type TravelerDetail,
   type TravelerListQuery,
@@ -27,6 +37,8 @@ import { badRequest, conflict, forbidden, HttpError, notFound } from '../http-er
 import { rivetOfCallout } from '../findings/oversize-options';
 import { isLoopbackUrl } from '../network/lan';
 import { parseTravelerCode } from './codes';
+import { benchTime, type BenchTime } from './device-time';
+import { endSession, findRunningSession, insertSession, readPartWork } from './work-repository';
 import { partOutline } from './part-outline';
 import { signOffWithdrawnMail } from './sign-off-mail';
 import {
@@ -43,6 +55,7 @@ import {
   setHolesWithEvent,
   setStepDone,
   signOffTraveler,
+  stampStep,
   type TravelerCursor,
 } from './travelers-repository';
 
@@ -94,20 +107,22 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
 
   /** The part's page: one statement for the part, its holes, steps and the reader's place, one for its findings, side by side. */
   async function detail(user: Express.User, id: string): Promise<TravelerDetail> {
-    const [row, travelerFindings] = await Promise.all([
+    const [row, travelerFindings, work] = await Promise.all([
       readTravelerPage(db, user, id),
       listFindings(user, { travelerId: id }),
+      readPartWork(db, id, user.id),
     ]);
     if (!row) throw notFound('traveler');
     const { traveler, revision, design, kit, place } = row;
     const rivet = rivetOfCallout(revision.rivetSpec);
     const holeRows = row.holes;
-    const stepRows = row.steps.map((s) => ({ ...s, doneAt: s.doneAt ? new Date(s.doneAt).toISOString() : null }));
+    const iso = (t: string | null) => (t ? new Date(t).toISOString() : null);
+    const stepRows = row.steps.map((s) => ({ ...s, doneAt: iso(s.doneAt), stampedAt: iso(s.stampedAt) }));
     const byStatus: Partial<Record<HoleStatus, number>> = {};
     for (const h of holeRows) byStatus[h.status] = (byStatus[h.status] ?? 0) + 1;
     const facts: PartFacts = {
       holes: byStatus,
-      stepsOpen: stepRows.filter((s) => s.doneAt === null).length,
+      ...stepCounts(stepRows.map((s) => ({ ...s, done: s.doneAt !== null, stamped: s.stampedAt !== null }))),
       openFindings: row.openFindings,
       signedOff: traveler.signedOffAt !== null,
       replaced: traveler.replacedById !== null,
@@ -158,6 +173,7 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
       replaces:
         traveler.replacesId && row.replacesSerial ? { id: traveler.replacesId, serial: row.replacesSerial } : null,
       labelAllowed: mayPrintLabels(place, user.role === 'admin', 'part'),
+      work,
     };
   }
 
@@ -188,6 +204,7 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
     /** Ticks holes installed (or back to pending). Holes under a finding are the inspector's, not the bench's. */
     async tickHoles(user: Express.User, id: string, input: TickHolesInput) {
       const ids = [...new Set(input.holeIds)];
+      const when = deviceTimeOf(input);
       return underLock(
         user,
         id,
@@ -208,7 +225,7 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
               { holeIds: 'under a finding' },
             );
           }
-          const changed = await setHolesWithEvent(tx, id, user.id, ids, from, input.status);
+          const changed = await setHolesWithEvent(tx, id, user.id, ids, from, input.status, when);
           const byId = new Map(changed.map((c) => [c.holeId, c]));
           return { holes: rows.map((r) => byId.get(r.holeId) ?? r) };
         },
@@ -216,24 +233,120 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
       );
     },
 
-    async setStep(user: Express.User, id: string, stepId: string, done: boolean) {
-      return underLock(user, id, 'step', async (tx) => {
-        const step = await setStepDone(tx, id, stepId, done ? user.id : null);
+    /**
+     * A step done (saying who did the work) or undone, in the order the part's inspection points keep.
+     * Answers with the part as it now stands: a step can change what may be done next and the readiness.
+     */
+    async setStep(user: Express.User, id: string, stepId: string, input: StepChange) {
+      const { done } = input;
+      const when = deviceTimeOf(input);
+      await underLock(user, id, 'step', async (tx, _t, _unit, facts) => {
+        stepRule(facts.steps, stepId, done ? 'done' : 'undone');
+        const credit = creditFrom(input);
+        const step = await setStepDone(
+          tx,
+          id,
+          stepId,
+          done
+            ? { recordedBy: user.id, at: when.doneAt, performer: credit.performer, performerName: credit.performerName }
+            : null,
+        );
         if (!step) throw notFound('step');
         await insertTravelerEvent(tx, {
           travelerId: id,
           actorId: user.id,
           kind: done ? 'step_done' : 'step_undone',
-          detail: { seq: step.seq, text: step.text },
+          detail: {
+            seq: step.seq,
+            text: step.text,
+            kind: step.kind,
+            ...(done ? credit.detail : {}),
+          },
+          ...when,
         });
-        return {
-          id: step.id,
-          seq: step.seq,
-          text: step.text,
-          doneAt: step.doneAt?.toISOString() ?? null,
-          doneByName: done ? user.name : null,
-        };
       });
+      return detail(user, id);
+    },
+
+    /** A work session on the part starts now (the device's time), the person's only running one on it. */
+    async startWork(user: Express.User, id: string, input: WorkStartChange) {
+      const when = deviceTimeOf(input);
+      await underLock(user, id, 'step', async (tx) => {
+        const running = await findRunningSession(tx, id, user.id);
+        if (running)
+          throw conflict(
+            `you have a session running on this part since ${running.startedAt.toISOString()}: stop it first`,
+          );
+        await addSession(tx, user, id, input, { startedAt: when.doneAt ?? new Date() }, 'work_started', {}, when);
+      });
+      return detail(user, id);
+    },
+
+    /** Ends the person's running session now, or after the hours given (a session the bench forgot to stop). */
+    async stopWork(user: Express.User, id: string, input: WorkStopChange) {
+      const when = deviceTimeOf(input);
+      await underLock(user, id, 'step', async (tx) => {
+        const running = await findRunningSession(tx, id, user.id);
+        if (!running) throw conflict('no session of yours is running on this part');
+        const endedAt =
+          input.hours !== undefined
+            ? new Date(running.startedAt.getTime() + input.hours * 3_600_000)
+            : (when.doneAt ?? new Date());
+        const hours = (endedAt.getTime() - running.startedAt.getTime()) / 3_600_000;
+        if (hours <= 0) throw conflict('the session would end before it began: give the hours worked');
+        if (hours > MAX_SESSION_HOURS)
+          throw conflict(
+            `this session has run ${Math.floor(hours)} hours: give the hours actually worked (at most ${MAX_SESSION_HOURS})`,
+            { hours: 'give the hours worked' },
+          );
+        await endSession(tx, running.id, endedAt);
+        await insertTravelerEvent(tx, {
+          travelerId: id,
+          actorId: user.id,
+          kind: 'work_stopped',
+          detail: {
+            hours: Math.round(hours * 100) / 100,
+            startedAt: running.startedAt.toISOString(),
+            by: running.by,
+            ...(running.byName ? { byName: running.byName } : {}),
+          },
+          doneAt: endedAt,
+          clockOffsetMs: when.clockOffsetMs,
+        });
+      });
+      return detail(user, id);
+    },
+
+    /** Hours worked entered afterwards: dated in the log when the work began. */
+    async enterHours(user: Express.User, id: string, input: WorkHoursChange) {
+      const startedAt = new Date(input.startedAt);
+      const endedAt = new Date(startedAt.getTime() + input.hours * 3_600_000);
+      if (endedAt.getTime() > Date.now() + 5 * 60_000)
+        throw badRequest('those hours end in the future: give when the work began', {
+          startedAt: 'the hours would end in the future',
+        });
+      await underLock(user, id, 'step', async (tx) => {
+        await addSession(tx, user, id, input, { startedAt, endedAt, entered: true }, 'hours_entered', {
+          hours: input.hours,
+        });
+      });
+      return detail(user, id);
+    },
+
+    /** An inspector's stamp on a done inspection point: the steps after it may then be done. */
+    async stampStep(user: Express.User, id: string, stepId: string) {
+      await underLock(user, id, 'stamp', async (tx, _t, _unit, facts) => {
+        stepRule(facts.steps, stepId, 'stamp');
+        const step = await stampStep(tx, id, stepId, user.id);
+        if (!step) throw notFound('step');
+        await insertTravelerEvent(tx, {
+          travelerId: id,
+          actorId: user.id,
+          kind: 'step_stamped',
+          detail: { seq: step.seq, text: step.text, kind: step.kind },
+        });
+      });
+      return detail(user, id);
     },
 
     /** The inspector's sign-off: the readiness rule, checked on the locked part inside the transaction that signs. */
@@ -320,6 +433,61 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
     },
   };
 };
+
+/** Whose work it was, as stored (help by name, the builder's own without) and as the log's detail says it. */
+function creditFrom(c: { by: StepPerformer; byName?: string }) {
+  const performerName = c.by === 'builder' ? null : (c.byName ?? null);
+  return {
+    performer: c.by,
+    performerName,
+    detail: { by: c.by, ...(performerName ? { byName: performerName } : {}) },
+  };
+}
+
+/**
+ * A session of work (started, or hours entered) with its log entry, dated when the work began: the
+ * device's time of a start, the given start of hours entered afterwards.
+ */
+async function addSession(
+  tx: Db,
+  user: Express.User,
+  travelerId: string,
+  credit: { by: StepPerformer; byName?: string },
+  times: { startedAt: Date; endedAt?: Date; entered?: boolean },
+  kind: 'work_started' | 'hours_entered',
+  detail: Record<string, unknown>,
+  when: BenchTime = { doneAt: times.startedAt, clockOffsetMs: null },
+) {
+  const c = creditFrom(credit);
+  await insertSession(tx, {
+    travelerId,
+    personId: user.id,
+    performer: c.performer,
+    performerName: c.performerName,
+    ...times,
+  });
+  await insertTravelerEvent(tx, {
+    travelerId,
+    actorId: user.id,
+    kind,
+    detail: { ...detail, ...c.detail },
+    doneAt: when.doneAt ?? times.startedAt,
+    clockOffsetMs: when.clockOffsetMs,
+  });
+}
+
+/** The step rules' refusal as the API's 409. */
+function stepRule(steps: StepFact[], stepId: string, change: 'done' | 'undone' | 'stamp') {
+  const refusal = checkStepChange(steps, stepId, change);
+  if (refusal) throw conflict(refusal.message);
+}
+
+/** The device's time of a bench action, read against the moment it arrived; a faulty one is a 400 naming the field. */
+function deviceTimeOf(input: DeviceTime): BenchTime {
+  const when = benchTime(input, new Date());
+  if ('message' in when) throw badRequest(when.message, { [when.field]: when.message });
+  return when;
+}
 
 /** Holes done for good and holes waiting for the inspector, by the rules module's groupings. */
 function countHoles(rows: readonly { status: HoleStatus }[]): { done: number; awaiting: number } {

@@ -87,6 +87,19 @@ describe('the build log screen', () => {
     expect(r.byTestId('log-count').textContent).toContain('2 entries over 2 days');
   });
 
+  it('says when an entry done without signal arrived, and flags a device clock that was off', async () => {
+    const late = entry({ id: 't:2', at: '2026-11-03T09:00:00.000Z', receivedAt: '2026-11-03T11:30:00.000Z' });
+    const skewed = entry({ id: 't:3', receivedAt: '2026-11-03T15:00:01.000Z', clockOffsetMs: -42 * 60_000 });
+    const r = renderLog(log([tick, late, skewed]));
+    await r.settle();
+    expect(r.queryByTestId('log-timing-t:1')).toBeNull();
+    // The day and time of arrival read on the device's clock, as the entry's own time is.
+    expect(r.byTestId('log-timing-t:2').textContent).toMatch(/^Done on the device; received 2026-11-0[34] \d\d:30\.$/);
+    expect(r.byTestId('log-timing-t:3').textContent).toBe(
+      'Device clock 42 min ahead of the server’s: this time may be off by as much.',
+    );
+  });
+
   it('opens the finding when its photo is tapped', async () => {
     const r = renderLog(log([flag, tick]));
     await r.settle();

@@ -127,13 +127,16 @@ describe('the build log view', () => {
   });
 
   it('reads a kind family as its kinds', () => {
-    expect(expandKindFilter(['sign_off'])).toEqual(['signed_off', 'sign_off_withdrawn']);
+    expect(expandKindFilter(['sign_off'])).toEqual(['step_stamped', 'signed_off', 'sign_off_withdrawn']);
     expect(expandKindFilter(['bench'])).toEqual([
       'holes_installed',
       'holes_pending',
       'step_done',
       'step_undone',
       'part_replaced',
+      'work_started',
+      'work_stopped',
+      'hours_entered',
       'other',
     ]);
     expect(expandKindFilter(['findings', 'finding_raised'])).toHaveLength(6);

@@ -134,7 +134,9 @@ describe('a 2,000-hole traveler', () => {
     const r = wrap(<TravelerScreen travelerId="trav-big" />, { traveler: big });
     await r.settle();
     await r.press('hole-U-001');
-    expect(ticks(calls).map((c) => c.body)).toEqual([{ holeIds: ['U-001'], status: 'installed' }]);
+    expect(ticks(calls).map((c) => c.body)).toEqual([
+      { holeIds: ['U-001'], status: 'installed', doneAt: expect.any(String), sentAt: expect.any(String) },
+    ]);
     expect(r.byTestId('hole-U-001').getAttribute('aria-checked')).toBe('true');
     expect(r.byTestId('hole-U-003').getAttribute('aria-checked')).toBe('true');
     expect(r.byTestId('hole-U-002').getAttribute('aria-checked')).toBe('false');

@@ -1,7 +1,7 @@
 import { onlineManager, QueryClientProvider, type QueryClient } from '@tanstack/react-query';
 import { persistQueryClient } from '@tanstack/react-query-persist-client';
 import { act, createElement } from 'react';
-import type { TravelerDetail } from '@/db/contracts';
+import { tickHolesInput, type TravelerDetail } from '@/db/contracts';
 import {
   isUnsentTick,
   travelerKeys,
@@ -174,6 +174,7 @@ describe('ticks made without signal', () => {
     clients.splice(0).forEach((c) => c.getMutationCache().clear());
 
     const sent = recordingServer();
+    const reconnectedAt = Date.now();
     const second = await device();
     const again = tickHook(second, 't1');
     expect(second.getMutationCache().getAll().filter(isUnsentTick)).toHaveLength(3);
@@ -188,12 +189,25 @@ describe('ticks made without signal', () => {
 
     act(() => onlineManager.setOnline(true));
     await until(() => second.getMutationCache().getAll().filter(isUnsentTick).length === 0, 'all are through');
-    // In the order made, each with exactly the fields of the API's contract (tickHolesInput).
+    // In the order made, each with exactly the fields of the API's contract (tickHolesInput): the moment it
+    // was made as doneAt, and the moment it left (after the signal came back) as sentAt.
+    const sentAt = expect.any(String);
     expect(sent).toEqual([
-      { travelerId: 't1', body: { holeIds: ['U-01'], status: 'installed' } },
-      { travelerId: 't1', body: { holeIds: ['U-02'], status: 'installed' } },
-      { travelerId: 't1', body: { holeIds: ['U-01'], status: 'pending' } },
+      {
+        travelerId: 't1',
+        body: { holeIds: ['U-01'], status: 'installed', doneAt: '2026-11-03T09:00:00.000Z', sentAt },
+      },
+      {
+        travelerId: 't1',
+        body: { holeIds: ['U-02'], status: 'installed', doneAt: '2026-11-03T09:00:04.000Z', sentAt },
+      },
+      { travelerId: 't1', body: { holeIds: ['U-01'], status: 'pending', doneAt: '2026-11-03T09:01:00.000Z', sentAt } },
     ]);
+    for (const x of sent) {
+      const b = x.body as { sentAt: string };
+      expect(tickHolesInput.safeParse(b).success).toBe(true);
+      expect(Date.parse(b.sentAt)).toBeGreaterThanOrEqual(reconnectedAt);
+    }
     await until(() => keptOnDevice().length === 0, 'the device no longer keeps them');
   });
 
@@ -248,8 +262,14 @@ describe('ticks made without signal', () => {
     const qc = await device();
     await until(() => sent.length === 2, 'both valid ticks are through');
     expect(sent.map((x) => [x.travelerId, x.body])).toEqual([
-      ['t1', { holeIds: ['U-02'], status: 'installed' }],
-      ['t2', { holeIds: ['U-01'], status: 'installed' }],
+      [
+        't1',
+        { holeIds: ['U-02'], status: 'installed', doneAt: '2026-11-02T10:00:00.000Z', sentAt: expect.any(String) },
+      ],
+      [
+        't2',
+        { holeIds: ['U-01'], status: 'installed', doneAt: '2026-11-02T10:00:02.000Z', sentAt: expect.any(String) },
+      ],
     ]);
     expect(localStorage.getItem(storageKeys.oldOfflineTicks)).toBeNull();
     expect(qc.getMutationCache().getAll().filter(isUnsentTick)).toHaveLength(0);

@@ -27,7 +27,21 @@ const detail: TravelerDetail = {
     [0, -0.5],
   ],
   holes: [holeU(1, 0.25, 'installed'), holeU(2, 1.25, 'pending'), holeU(3, 2.25, 'flagged'), holeU(4, 3.75, 'pending')],
-  steps: [{ id: 's1', seq: 1, text: 'Deburr all holes', doneAt: null, doneByName: null }],
+  steps: [
+    {
+      id: 's1',
+      seq: 1,
+      text: 'Deburr all holes',
+      kind: 'deburr',
+      inspectionPoint: false,
+      doneAt: null,
+      doneByName: null,
+      by: null,
+      byName: null,
+      stampedAt: null,
+      stampedByName: null,
+    },
+  ],
   approvedByName: 'Maren Holt',
   readiness: { ready: false, reasons: ['2 holes not done', '1 step not done', '1 finding open'] },
 };
@@ -122,6 +136,108 @@ describe('what the reader may do comes from allowedActions', () => {
     expect(r.queryByTestId('flag-hole')).toBeNull();
     expect(r.queryByTestId('run-mode')).toBeNull();
     expect(r.queryByTestId('sign-off')).toBeNull();
+  });
+});
+
+describe('steps as operations', () => {
+  const step = detail.steps[0];
+  const steps: TravelerDetail['steps'] = [
+    { ...step, kind: 'deburr', doneAt: '2026-11-03T09:00:00.000Z', doneByName: 'Tobias Fenn', by: 'builder' },
+    {
+      ...step,
+      id: 's2',
+      seq: 2,
+      text: 'Cleco and check the fit',
+      kind: 'inspect',
+      inspectionPoint: true,
+      doneAt: '2026-11-03T10:00:00.000Z',
+      doneByName: 'Tobias Fenn',
+      by: 'builder',
+    },
+    { ...step, id: 's3', seq: 3, text: 'Rivet upper flange', kind: 'rivet' },
+  ];
+  const original = global.fetch;
+  afterEach(() => {
+    global.fetch = original;
+  });
+
+  it('shows each step’s operation and the inspection point waiting for its stamp, and lets an inspector stamp it', async () => {
+    const sent: string[] = [];
+    global.fetch = jest.fn(async (url: string) => {
+      sent.push(url);
+      const body = JSON.stringify({ ...detail, steps, place: 'inspector', allowedActions: ['raise', 'stamp'] });
+      return { ok: true, status: 200, json: async () => JSON.parse(body), text: async () => body };
+    }) as unknown as typeof fetch;
+    const r = renderTraveler({ steps, place: 'inspector', allowedActions: ['raise', 'stamp'] });
+    await r.settle();
+    expect(r.byTestId('step-1').textContent).toContain('Deburr');
+    expect(r.byTestId('step-point-2').textContent).toBe('Inspection point');
+    expect(r.byTestId('step-2').textContent).toContain('Waiting for an inspector’s stamp');
+    // The builder's chooser of whose work it was is not the inspector's.
+    expect(r.queryByTestId('step-credit')).toBeNull();
+    expect(r.queryByTestId('step-stamp-3')).toBeNull();
+    await r.press('step-stamp-2');
+    await r.settle();
+    expect(sent.some((u) => u.endsWith('/api/travelers/trav-1/steps/s2/stamp'))).toBe(true);
+  });
+
+  it('offers no stamp to a builder, who says whose work the next step is', async () => {
+    const r = renderTraveler({ steps, allowedActions: ['tick', 'step', 'raise'] });
+    await r.settle();
+    expect(r.queryByTestId('step-stamp-2')).toBeNull();
+    await r.press('step-by-helper');
+    expect(r.byTestId('step-by-name')).toBeTruthy();
+  });
+});
+
+describe('time worked', () => {
+  const original = global.fetch;
+  afterEach(() => {
+    global.fetch = original;
+  });
+  const work = {
+    running: null,
+    recent: [
+      {
+        id: 'w1',
+        personName: 'Tobias Fenn',
+        by: 'helper' as const,
+        byName: 'Sam Ortiz',
+        startedAt: '2026-11-03T09:00:00.000Z',
+        endedAt: '2026-11-03T10:15:00.000Z',
+        entered: true,
+      },
+    ],
+    totalHours: 1.25,
+    byWho: [{ who: 'Sam Ortiz', by: 'helper' as const, hours: 1.25 }],
+  };
+
+  it('shows the part’s hours by who and starts a session as the help named above the steps', async () => {
+    const sent: { url: string; body: Record<string, unknown> }[] = [];
+    global.fetch = jest.fn(async (url: string, init?: { body?: string }) => {
+      sent.push({ url, body: JSON.parse(init?.body ?? '{}') });
+      const body = JSON.stringify({ ...detail, work: { ...work, running: { ...work.recent[0], endedAt: null } } });
+      return { ok: true, status: 200, json: async () => JSON.parse(body), text: async () => body };
+    }) as unknown as typeof fetch;
+    const r = renderTraveler({ work, allowedActions: ['tick', 'step', 'raise'] });
+    await r.settle();
+    expect(r.byTestId('work-total').textContent).toBe('1 h 15 min on this part: Sam Ortiz (a helper) 1 h 15 min');
+    expect(r.byTestId('work-recent').textContent).toContain('entered afterwards');
+    await r.press('step-by-helper');
+    await r.type('step-by-name', 'Sam Ortiz');
+    await r.press('work-start');
+    await r.settle();
+    expect(sent[0].url).toMatch(/\/api\/travelers\/trav-1\/work\/start$/);
+    expect(sent[0].body).toMatchObject({ by: 'helper', byName: 'Sam Ortiz', doneAt: expect.any(String) });
+    expect(r.byTestId('work-running').textContent).toContain('Working since');
+  });
+
+  it('offers nothing to keep time to an inspector', async () => {
+    const r = renderTraveler({ work, place: 'inspector', allowedActions: ['raise'] });
+    await r.settle();
+    expect(r.queryByTestId('work-start')).toBeNull();
+    expect(r.queryByTestId('work-hours-form')).toBeNull();
+    expect(r.byTestId('work-total').textContent).toContain('1 h 15 min');
   });
 });
 

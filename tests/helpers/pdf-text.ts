@@ -1,4 +1,7 @@
 import { inflateSync } from 'node:zlib';
+import { execFile } from 'node:child_process';
+import { join } from 'node:path';
+import supertest from 'supertest';
 import type request from 'supertest';
 
 /**
@@ -99,3 +102,31 @@ export const binaryBody = (r: request.Response, cb: (err: Error | null, body: Bu
   r.on('data', (d: Buffer) => c.push(d));
   r.on('end', () => cb(null, Buffer.concat(c)));
 };
+
+/**
+ * The text of a PDF as a PDF text library reads it (pdf-parse, on Mozilla's pdf.js), whitespace folded:
+ * a check that does not rest on our own reader above. Runs in a child process (see the script).
+ */
+export function pdfLibraryText(pdf: Buffer): Promise<string> {
+  return new Promise((resolve, reject) => {
+    const child = execFile(
+      process.execPath,
+      [join(__dirname, 'pdf-library-text.mjs')],
+      { maxBuffer: 64 * 1024 * 1024, timeout: 30_000 },
+      (err, stdout) => (err ? reject(err) : resolve(stdout.replace(/\s+/g, ' '))),
+    );
+    child.stdin!.end(pdf);
+  });
+}
+
+/** The whole build log as PDF (times in UTC), asked as `token`, its text read by the PDF text library. */
+export async function logPdfText(app: Parameters<typeof supertest>[0], buildId: string, token: string) {
+  const res = await supertest(app)
+    .get(`/api/builds/${buildId}/log.pdf`)
+    .query({ tz: 'UTC' })
+    .set({ Authorization: `Bearer ${token}` })
+    .buffer(true)
+    .parse(binaryBody);
+  if (res.status !== 200) throw new Error(`the PDF log answered ${res.status}: ${JSON.stringify(res.body)}`);
+  return pdfLibraryText(res.body as Buffer);
+}

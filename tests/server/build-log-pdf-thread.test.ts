@@ -1,4 +1,4 @@
-import type { BuildLogEntry } from '@/db/contracts';
+import { fabricationTable, type BuildLogEntry } from '@/db/contracts';
 import { startPdfThread } from '@/server/build-log/build-log-pdf-thread';
 import { pdfText } from '../helpers/pdf-text';
 
@@ -26,6 +26,14 @@ const head = {
   },
   count: 3,
   range: { from: '2026-06-01T07:00:00.000Z', to: '2026-06-01T07:02:00.000Z' },
+  chain: { seq: 3, hash: 'ab'.repeat(32) },
+  summary: {
+    hours: [],
+    fabrication: fabricationTable([]),
+    parts: [],
+    findings: [],
+    findingsTotal: 0,
+  },
 };
 const opts = {
   tz: 'UTC',
@@ -36,6 +44,9 @@ const opts = {
 const entry = (i: number): BuildLogEntry => ({
   id: `t:${i}`,
   at: `2026-06-01T07:0${i}:00.000Z`,
+  receivedAt: `2026-06-01T07:0${i}:00.000Z`,
+  clockOffsetMs: null,
+  hash: null,
   actorName: 'Bea Builder',
   actorRole: 'builder',
   kind: 'holes_installed',

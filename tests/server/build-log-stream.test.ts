@@ -121,14 +121,16 @@ describe('a long build log', () => {
     const res = await request(t.app).get(`/api/builds/${buildId}/log.csv`).set(auth(tok.builder)).buffer(true);
     expect(res.status).toBe(200);
     expect(res.headers['content-disposition']).toMatch(/^attachment; filename="build-log-NK2-0147-/);
-    const [header, ...rows] = parseCsv(res.text);
-    expect(rows).toHaveLength(walked.length);
-    expect(rows.every((r) => r.length === header.length)).toBe(true);
+    const [header, ...lines] = parseCsv(res.text);
+    expect(lines.every((r) => r.length === header.length)).toBe(true);
     const col = (name: string) => header.indexOf(name);
+    // Every row is an entry but the last, which gives the chain's head.
+    const rows = lines.filter((r) => r[col('Entry')] !== '');
+    expect(rows).toHaveLength(walked.length);
     // Same entries, same order: the export reads the log forwards with the same tie-break the pages read backwards.
     const fromPages = [...walked].reverse();
-    expect(rows.map((r) => [r[col('UTC')], r[col('Kind')], r[col('Holes')], r[col('What happened')]])).toEqual(
-      fromPages.map((e) => [e.at, e.kind, (e.holeIds ?? []).join(' '), e.text]),
+    expect(rows.map((r) => [r[col('Entry')], r[col('Done (UTC)')], r[col('Holes')], r[col('What happened')]])).toEqual(
+      fromPages.map((e) => [e.id, e.at, (e.holeIds ?? []).join(' '), e.text]),
     );
   });
 

@@ -194,22 +194,48 @@ describe('the build log', () => {
       /^attachment; filename="build-log-NK2-0147-\d{4}-\d{2}-\d{2}\.csv"/,
     );
     const rows = parseCsv(res.text);
-    const [header, ...all] = rows;
+    const [header, ...lines] = rows;
+    // The last line is no entry: it gives the log's hash chain head as the export began.
+    const head = lines.at(-1)!;
+    expect(head[header.indexOf('Entry')]).toBe('');
+    expect(head[header.indexOf('What happened')]).toMatch(/^Chain head at export: link \d+, [0-9a-f]{64}$/);
+    const all = lines.slice(0, -1);
+    expect(all.every((r) => /^[0-9a-f]{64}$/.test(r[header.indexOf('Entry hash')]))).toBe(true);
     // The build's own entries (its people at shipping) come first; the part's follow.
-    expect(all.slice(0, 2).map((r) => r[header.indexOf('Kind')])).toEqual(['member_added', 'member_added']);
+    expect(all.slice(0, 2).map((r) => r[header.indexOf('Kind')])).toEqual(['Person added', 'Person added']);
     const body = all.slice(2);
-    expect(header.slice(0, 7)).toEqual(['Date', 'Time', 'Time zone', 'UTC', 'Who', 'Role', 'Kind']);
+    expect(header.slice(0, 9)).toEqual([
+      'Date done',
+      'Time done',
+      'Time zone',
+      'Done (UTC)',
+      'Received (UTC)',
+      'Device clock behind by (s)',
+      'Who',
+      'Role',
+      'Kind',
+    ]);
     expect(body.every((r) => r.length === header.length)).toBe(true);
     const col = (name: string) => header.indexOf(name);
+    // Kinds in words, as the screen names them.
     expect(body.map((r) => r[col('Kind')])).toEqual([
-      'holes_installed',
-      'step_done',
-      'finding_raised',
-      'finding_dispositioned',
+      'Holes installed',
+      'Step done',
+      'Finding raised',
+      'Dispositioned',
     ]);
     expect(body[3][col('Note')]).toBe('Drill out to AD5, per the "oversize" sheet; check edge distance');
     expect(body[0][col('Holes')]).toBe('U-01 U-02 U-03 U-04 U-05 U-06 U-07 U-08');
-    expect(body[2][col('Photos')]).toBe('1');
+    // The photo as a link that opens without the app's sign-in (signed, on the product's public address).
+    const link = body[2][col('Photos')];
+    expect(link).toMatch(/^http:\/\/[^ ]+\/api\/photos\/[0-9a-f-]{36}\/full\?u=[0-9a-f-]{36}&exp=\d+&sig=[\w-]+$/);
+    const photo = await request(t.app).get(new URL(link).pathname + new URL(link).search);
+    expect(photo.status).toBe(200);
+    expect(photo.headers['content-type']).toMatch(/^image\//);
+    // Valid about 30 days: the file is read later than a screen.
+    const days = (Number(new URL(link).searchParams.get('exp')) * 1000 - Date.now()) / 86_400_000;
+    expect(days).toBeGreaterThan(29);
+    expect(days).toBeLessThan(31);
     // The raw text quotes that field the RFC 4180 way.
     expect(res.text).toContain('"Drill out to AD5, per the ""oversize"" sheet; check edge distance"');
   });
@@ -219,11 +245,12 @@ describe('the build log', () => {
       .get(`/api/builds/${buildId}/log.csv`)
       .query({ kind: 'findings', tz: 'America/Denver' })
       .set(auth(tok.builder));
-    const [header, ...body] = parseCsv(res.text);
-    expect(body.map((r) => r[header.indexOf('Kind')])).toEqual(['finding_raised', 'finding_dispositioned']);
+    const [header, ...lines] = parseCsv(res.text);
+    const body = lines.filter((r) => r[header.indexOf('Entry')] !== '');
+    expect(body.map((r) => r[header.indexOf('Kind')])).toEqual(['Finding raised', 'Dispositioned']);
     expect(body[0][header.indexOf('Time zone')]).toBe('America/Denver');
-    const utc = new Date(body[0][header.indexOf('UTC')]);
-    const local = `${body[0][header.indexOf('Date')]}T${body[0][header.indexOf('Time')]}`;
+    const utc = new Date(body[0][header.indexOf('Done (UTC)')]);
+    const local = `${body[0][header.indexOf('Date done')]}T${body[0][header.indexOf('Time done')]}`;
     const shift = (Date.parse(`${local}Z`) - Math.floor(utc.getTime() / 1000) * 1000) / 3600000;
     expect([-6, -7]).toContain(shift);
     expect(
@@ -252,12 +279,18 @@ describe('the build log', () => {
             .send({ done: true })
         ).status,
       ).toBe(200);
+      // An inspection point is stamped before the next step may be done.
+      if (s.inspectionPoint)
+        expect(
+          (await request(t.app).post(`/api/travelers/${outerId}/steps/${s.id}/stamp`).set(auth(tok.inspector))).status,
+        ).toBe(200);
     }
     expect(
       (await request(t.app).post(`/api/travelers/${outerId}/sign-off`).set(auth(tok.inspector)).send({})).status,
     ).toBe(200);
     const res = await log(tok.supplier, { kind: 'sign_off' });
-    expect(res.body.items).toHaveLength(1);
+    // The inspector's stamp on the inspection point is a sign-off of its own, before the part's.
+    expect(kinds(res.body)).toEqual(['signed_off', 'step_stamped']);
     expect(res.body.items[0]).toMatchObject({
       kind: 'signed_off',
       partNumber: 'W-105',

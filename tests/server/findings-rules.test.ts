@@ -1,6 +1,8 @@
 import {
   allowedActions,
   allowedPartActions,
+  checkStepChange,
+  type StepFact,
   checkPartAction,
   decide,
   findingActions,
@@ -208,6 +210,7 @@ describe('a part ready to sign off', () => {
   const ready: PartFacts = {
     holes: { installed: 3, accepted: 2 },
     stepsOpen: 0,
+    pointsUnstamped: 0,
     openFindings: 0,
     signedOff: false,
     replaced: false,
@@ -219,6 +222,7 @@ describe('a part ready to sign off', () => {
     ['a hole held', { ...ready, holes: { ...ready.holes, held: 1 } }, false],
     ['a hole reworked, not yet accepted', { ...ready, holes: { ...ready.holes, reworked: 1 } }, false],
     ['a step open', { ...ready, stepsOpen: 1 }, false],
+    ['an inspection point not stamped', { ...ready, pointsUnstamped: 1 }, false],
     ['a finding open', { ...ready, openFindings: 1 }, false],
     ['already signed off', { ...ready, signedOff: true }, false],
     ['replaced', { ...ready, replaced: true }, false],
@@ -233,6 +237,7 @@ describe('a part ready to sign off', () => {
       signOffReadiness({
         holes: { pending: 2, installed: 1 },
         stepsOpen: 1,
+        pointsUnstamped: 0,
         openFindings: 1,
         signedOff: false,
         replaced: false,
@@ -254,16 +259,70 @@ describe('a part ready to sign off', () => {
     ['sign-off', 'inspector', null],
     ['sign-off', 'builder', 403],
     ['sign-off', 'design_authority', 403],
+    ['stamp', 'inspector', null],
+    ['stamp', 'builder', 403],
+    ['stamp', 'design_authority', 403],
+    ['stamp', 'none', 403],
   ] as const)('%s by %s on an open, ready part → %s', (action, place, code) => {
     expect(checkPartAction(ready, action, place)?.code ?? null).toBe(code);
   });
 
-  it.each(['tick', 'step', 'raise'] as const)('refuses %s on a signed-off or replaced part with 409', (action) => {
+  it.each(['tick', 'step', 'raise', 'stamp'] as const)(
+    'refuses %s on a signed-off or replaced part with 409',
+    (action) => {
+      const place = action === 'raise' || action === 'stamp' ? 'inspector' : 'builder';
+      expect(checkPartAction({ ...ready, signedOff: true }, action, place)?.code).toBe(409);
+      expect(checkPartAction({ ...ready, replaced: true }, action, place)?.code).toBe(409);
+    },
+  );
+});
+
+describe('inspection points on a traveler', () => {
+  // Five steps; step 2 an inspection point (a fit check before riveting: common practice).
+  const steps = (over: Partial<Record<number, Partial<StepFact>>> = {}): StepFact[] =>
+    [1, 2, 3, 4, 5].map((seq) => ({
+      id: `s${seq}`,
+      seq,
+      inspectionPoint: seq === 2,
+      done: false,
+      stamped: false,
+      ...over[seq],
+    }));
+
+  it('lets the steps up to and including the point be done, but none after it until it is stamped', () => {
+    expect(checkStepChange(steps(), 's1', 'done')).toBeNull();
+    expect(checkStepChange(steps(), 's2', 'done')).toBeNull();
+    expect(checkStepChange(steps({ 2: { done: true } }), 's3', 'done')).toEqual({
+      code: 409,
+      message: 'step 2 is an inspection point: an inspector stamps it before later steps are done',
+    });
+    expect(checkStepChange(steps({ 2: { done: true } }), 's5', 'done')?.code).toBe(409);
+    expect(checkStepChange(steps({ 2: { done: true, stamped: true } }), 's3', 'done')).toBeNull();
+  });
+
+  it('stamps only a done inspection point, once, and a stamped step stays done', () => {
+    expect(checkStepChange(steps(), 's2', 'stamp')?.message).toBe('step 2 is not done yet: the builder does it first');
+    expect(checkStepChange(steps({ 2: { done: true } }), 's2', 'stamp')).toBeNull();
+    expect(checkStepChange(steps({ 1: { done: true } }), 's1', 'stamp')?.message).toBe(
+      'step 1 is not an inspection point',
+    );
+    expect(checkStepChange(steps({ 2: { done: true, stamped: true } }), 's2', 'stamp')?.code).toBe(409);
+    expect(checkStepChange(steps({ 2: { done: true, stamped: true } }), 's2', 'undone')?.message).toBe(
+      'step 2 was stamped by an inspector: it stays done',
+    );
+    expect(checkStepChange(steps({ 2: { done: true } }), 's2', 'undone')).toBeNull();
+  });
+
+  it('holds the sign-off until every point is stamped, and says so', () => {
     expect(
-      checkPartAction({ ...ready, signedOff: true }, action, action === 'raise' ? 'inspector' : 'builder')?.code,
-    ).toBe(409);
-    expect(
-      checkPartAction({ ...ready, replaced: true }, action, action === 'raise' ? 'inspector' : 'builder')?.code,
-    ).toBe(409);
+      signOffReadiness({
+        holes: { installed: 1 },
+        stepsOpen: 0,
+        pointsUnstamped: 1,
+        openFindings: 0,
+        signedOff: false,
+        replaced: false,
+      }).reasons,
+    ).toEqual(['1 inspection point not stamped']);
   });
 });

@@ -61,6 +61,7 @@ describe('the rule: who may withdraw a sign-off, and when (every place × part s
   const ready: PartFacts = {
     holes: { installed: 3 },
     stepsOpen: 0,
+    pointsUnstamped: 0,
     openFindings: 0,
     signedOff: false,
     replaced: false,

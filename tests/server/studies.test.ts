@@ -74,6 +74,9 @@ describe('load studies', () => {
       candidate.lines.map((l: { zones: unknown[] }) => l.zones.length),
     );
     expect(res.body.basis.studyRevision).toBe(detail.revision);
+    // The study names its lines by their initials (UF, LF); the part's codes stay, so U-07 is the same hole in B as in A.
+    expect(detail.result.lines.map((l: { holePrefix: string }) => l.holePrefix)).toEqual(['UF', 'LF']);
+    expect(res.body.lines.map((l: { code: string }) => l.code)).toEqual(['U', 'L']);
   });
 
   it('refuses to apply a candidate that does not carry the load', async () => {

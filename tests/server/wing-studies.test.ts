@@ -138,9 +138,9 @@ describe('applying a wing study to a part design', () => {
       studyId: wing.id,
     });
     const candidate = rib.study.candidates.find(same(pick));
-    expect(res.body.lines.map((l: { code: string }) => l.code)).toEqual(
-      rib.study.lines.map((l: { holePrefix: string }) => l.holePrefix),
-    );
+    // The rib's own line codes stay (U, L), not the study's initials (UF, LF): hole ids keep meaning the same hole.
+    expect(rib.study.lines.map((l: { holePrefix: string }) => l.holePrefix)).toEqual(['UF', 'LF']);
+    expect(res.body.lines.map((l: { code: string }) => l.code)).toEqual(['U', 'L']);
     res.body.lines.forEach((line: any, i: number) => {
       expect(line.zones.map((z: { pitchIn: number }) => z.pitchIn)).toEqual(
         candidate.lines[i].zones.map((z: { pitchIn: number }) => z.pitchIn),

@@ -1,0 +1,106 @@
+import { and, desc, eq, inArray, isNotNull, isNull, sql, type SQL } from 'drizzle-orm';
+import type { Db } from '../../db';
+import { travelers, users, workSessions } from '../../db/schema';
+import type { HoursByWho, StepPerformer, WorkSession } from '../../db/contracts';
+import { visibleBuilds } from '../builds/build-access';
+import { joinTravelerPart } from './travelers-repository';
+
+/** How many of a part's sessions its page lists; the sums count them all. */
+export const RECENT_SESSIONS = 20;
+
+const sessionColumns = {
+  id: workSessions.id,
+  personName: users.name,
+  by: workSessions.performer,
+  byName: workSessions.performerName,
+  startedAt: workSessions.startedAt,
+  endedAt: workSessions.endedAt,
+  entered: workSessions.entered,
+};
+type SessionRow = {
+  id: string;
+  personName: string;
+  by: StepPerformer;
+  byName: string | null;
+  startedAt: Date;
+  endedAt: Date | null;
+  entered: boolean;
+};
+const asSession = (r: SessionRow): WorkSession => ({
+  ...r,
+  startedAt: r.startedAt.toISOString(),
+  endedAt: r.endedAt?.toISOString() ?? null,
+});
+
+/** The person's running session on the part, if any (under the part's lock when writing). */
+export async function findRunningSession(db: Db, travelerId: string, personId: string) {
+  const [row] = await db
+    .select({
+      id: workSessions.id,
+      startedAt: workSessions.startedAt,
+      by: workSessions.performer,
+      byName: workSessions.performerName,
+    })
+    .from(workSessions)
+    .where(
+      and(eq(workSessions.travelerId, travelerId), eq(workSessions.personId, personId), isNull(workSessions.endedAt)),
+    );
+  return row ?? null;
+}
+
+export async function insertSession(db: Db, values: typeof workSessions.$inferInsert) {
+  const [row] = await db.insert(workSessions).values(values).returning({ id: workSessions.id });
+  return row.id;
+}
+
+export async function endSession(db: Db, id: string, endedAt: Date) {
+  await db.update(workSessions).set({ endedAt }).where(eq(workSessions.id, id));
+}
+
+/** Hours of finished sessions, grouped by who did the work: the person, or the help they named; most first. */
+async function sumByWho(db: Db, where: SQL): Promise<HoursByWho[]> {
+  const who = sql<string>`coalesce(${workSessions.performerName}, ${users.name})`;
+  const hours = sql<number>`round((sum(extract(epoch from ${workSessions.endedAt} - ${workSessions.startedAt})) / 3600)::numeric, 2)::float8`;
+  return db
+    .select({ who, by: workSessions.performer, hours })
+    .from(workSessions)
+    .innerJoin(users, eq(users.id, workSessions.personId))
+    .where(and(where, isNotNull(workSessions.endedAt)))
+    .groupBy(who, workSessions.performer)
+    .orderBy(desc(hours), who);
+}
+
+/** A part's time worked: the reader's running session, the latest sessions and the sums by who. */
+export async function readPartWork(db: Db, travelerId: string, personId: string) {
+  const [recent, byWho, running] = await Promise.all([
+    db
+      .select(sessionColumns)
+      .from(workSessions)
+      .innerJoin(users, eq(users.id, workSessions.personId))
+      .where(eq(workSessions.travelerId, travelerId))
+      .orderBy(desc(workSessions.startedAt), desc(workSessions.id))
+      .limit(RECENT_SESSIONS),
+    sumByWho(db, eq(workSessions.travelerId, travelerId)),
+    db
+      .select(sessionColumns)
+      .from(workSessions)
+      .innerJoin(users, eq(users.id, workSessions.personId))
+      .where(
+        and(eq(workSessions.travelerId, travelerId), eq(workSessions.personId, personId), isNull(workSessions.endedAt)),
+      ),
+  ]);
+  return {
+    running: running[0] ? asSession(running[0] as SessionRow) : null,
+    recent: (recent as SessionRow[]).map(asSession),
+    byWho,
+    totalHours: Math.round(byWho.reduce((n, r) => n + r.hours, 0) * 100) / 100,
+  };
+}
+
+/** The build's hours by who, over every part (replaced ones too: the time was worked); only when visible. */
+export async function readBuildHours(db: Db, user: Express.User, buildId: string): Promise<HoursByWho[]> {
+  const visibleParts = joinTravelerPart(db.select({ id: travelers.id }).from(travelers).$dynamic()).where(
+    and(eq(travelers.buildId, buildId), visibleBuilds(db, user)),
+  );
+  return sumByWho(db, inArray(workSessions.travelerId, visibleParts));
+}
