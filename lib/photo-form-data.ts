@@ -1,5 +1,5 @@
 import { Platform } from 'react-native';
-import type { FindingActionInput, FindingInput } from '@/db/contracts';
+import type { FindingActionInput, FindingInput, WorkPhotosInput } from '@/db/contracts';
 
 /** A photo picked for a finding, as kept in the draft: a URI that can be read back when sending. */
 export type DraftPhoto = { uri: string; name: string; type: string; width?: number; height?: number };
@@ -54,6 +54,16 @@ export async function findingActionFormData(input: FindingActionInput, photos: D
   for (const [key, value] of Object.entries(input)) {
     if (typeof value === 'string') form.append(key, value);
   }
+  await appendPhotos(form, photos);
+  return form;
+}
+
+/** The multipart body of POST /api/travelers/:id/photos: what the photos show, then the photos. */
+export async function workPhotosFormData(input: WorkPhotosInput, photos: DraftPhoto[]): Promise<FormData> {
+  const form = new FormData();
+  if (input.stepId) form.append('stepId', input.stepId);
+  if (input.holeIds?.length) form.append('holeIds', JSON.stringify(input.holeIds));
+  if (input.note) form.append('note', input.note);
   await appendPhotos(form, photos);
   return form;
 }

@@ -68,18 +68,30 @@ export const LogEntryRow = memo(function LogEntryRow({
         </Txt>
         {e.photos?.length ? (
           <View style={styles.photos}>
-            {e.photos.map((p, i) => (
-              <Pressable
-                key={p.id}
-                testID={`log-photo-${e.findingId}-${i}`}
-                accessibilityRole="button"
-                accessibilityLabel={`Photo ${i + 1} of the finding on ${(e.holeIds ?? []).join(', ')}: open the finding`}
-                onPress={() => e.findingId && onOpenFinding(e.findingId)}
-                style={({ pressed }) => [pressed && { opacity: 0.7 }]}
-              >
-                <Image source={{ uri: url(p.thumbUrl) }} style={styles.thumb} accessibilityIgnoresInvertColors />
-              </Pressable>
-            ))}
+            {e.photos.map((p, i) =>
+              e.findingId ? (
+                <Pressable
+                  key={p.id}
+                  testID={`log-photo-${e.findingId}-${i}`}
+                  accessibilityRole="button"
+                  accessibilityLabel={`Photo ${i + 1} of the finding on ${(e.holeIds ?? []).join(', ')}: open the finding`}
+                  onPress={() => onOpenFinding(e.findingId!)}
+                  style={({ pressed }) => [pressed && { opacity: 0.7 }]}
+                >
+                  <Image source={{ uri: url(p.thumbUrl) }} style={styles.thumb} accessibilityIgnoresInvertColors />
+                </Pressable>
+              ) : (
+                // A photo of the work: no finding to open; shown as the log's record of it.
+                <Image
+                  key={p.id}
+                  testID={`log-photo-${e.id}-${i}`}
+                  source={{ uri: url(p.thumbUrl) }}
+                  style={styles.thumb}
+                  accessibilityLabel={`Photo ${i + 1} of the work`}
+                  accessibilityIgnoresInvertColors
+                />
+              ),
+            )}
           </View>
         ) : null}
         {e.findingId && !e.photos?.length ? (

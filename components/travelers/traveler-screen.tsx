@@ -34,6 +34,7 @@ import { HolesPanel } from './holes-panel';
 import { PartDrawing } from './part-drawing';
 import { pickRunEnd, planRun, runHoles, tickBatches, toggleHole, type RunPick } from './run-selection';
 import { StepCreditChooser, StepsList, type StepCredit } from './steps-list';
+import { WorkPhotos } from './work-photos';
 import { WorkSection } from './work-section';
 import { TravelerHeader } from './traveler-header';
 import { WithdrawSignOff } from './withdraw-sign-off';
@@ -321,6 +322,7 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
           }
         />
       </Section>
+      {canStep ? <WorkPhotos travelerId={t.id} steps={t.steps} /> : null}
       <WorkSection travelerId={t.id} work={t.work} canWork={canStep} credit={credit} onCreditError={setCreditError} />
       <Section title="Findings on this part">
         {t.findings.length ? (

@@ -19,6 +19,7 @@ export const benchLogKinds = [
   'work_started',
   'work_stopped',
   'hours_entered',
+  'photos_added',
 ] as const;
 
 export const buildLogKinds = [
@@ -62,6 +63,7 @@ export const buildLogKindLabels: Record<BuildLogKind, string> = {
   work_started: 'Work started',
   work_stopped: 'Work stopped',
   hours_entered: 'Hours entered',
+  photos_added: 'Work photos',
   finding_raised: 'Finding raised',
   finding_dispositioned: 'Dispositioned',
   finding_approval: 'Design authority',

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { deviceTime, isLogDate } from './build-log';
+import { plainText } from './common';
 import { creditFields, helpIsNamed, helpUnnamed, type StepPerformer } from './travelers';
 
 /** The longest session or entry of hours a part takes at once: a long day at the bench (common practice). */
@@ -62,3 +63,15 @@ export type PartWork = {
   totalHours: number;
   byWho: HoursByWho[];
 };
+
+/**
+ * POST /api/travelers/:id/photos (multipart, 1–6 files in `photos`): photos of the work, of one step,
+ * of a run of holes, or of the part as a whole, with a few words.
+ */
+export const workPhotosInput = z.object({
+  stepId: z.uuid({ message: 'stepId must be the id of a step of this part' }).optional(),
+  holeIds: z.array(z.string().trim().min(1).max(20)).max(500, 'at most 500 holes at a time').default([]),
+  note: plainText('the note', 0, 500).default(''),
+});
+export type WorkPhotosInput = z.input<typeof workPhotosInput>;
+export type WorkPhotosChange = z.output<typeof workPhotosInput>;

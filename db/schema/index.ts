@@ -8,3 +8,4 @@ export * from './coupons';
 export * from './studies';
 export * from './log-chain';
 export * from './work-sessions';
+export * from './work-photos';

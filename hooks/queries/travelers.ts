@@ -27,10 +27,12 @@ import {
   type TravelerSummary,
   type WithdrawSignOffInput,
   type WorkHoursInput,
+  type WorkPhotosInput,
   type WorkStartInput,
   type WorkStopInput,
 } from '@/db/contracts';
 import { api, ApiError, errorMessage } from '@/lib/api-client';
+import { workPhotosFormData, type DraftPhoto } from '@/lib/photo-form-data';
 import { readJson, removeKey, storageKeys } from '@/lib/storage';
 import { buildKeys } from './builds';
 import { invalidateAll, useRecordMutation } from './mutations';
@@ -401,5 +403,15 @@ export function useWorkStopMutation(travelerId: string) {
 export function useWorkHoursMutation(travelerId: string) {
   return usePartChange(travelerId, (input: WorkHoursInput) =>
     api.post<TravelerDetail>(workPath(travelerId, 'hours'), input),
+  );
+}
+
+/** Photos of the work (of a step, or the part), sent once as picked; the answer is the part as it now stands. */
+export function useWorkPhotosMutation(travelerId: string) {
+  return usePartChange(travelerId, async ({ input, photos }: { input: WorkPhotosInput; photos: DraftPhoto[] }) =>
+    api.upload<TravelerDetail>(
+      `/api/travelers/${encodeURIComponent(travelerId)}/photos`,
+      await workPhotosFormData(input, photos),
+    ),
   );
 }

@@ -30,7 +30,7 @@ import { encodeCursor } from '../pagination';
 import { hoursText } from '../../lib/hours-text';
 import { csvChainHead, csvHead, csvLines } from './build-log-csv';
 import { chainHead } from './log-chain-repository';
-import { readBuildHours } from '../travelers/work-repository';
+import { listWorkPhotosOfEvents, readBuildHours } from '../travelers/work-repository';
 import type { LogSummary, Thumbs } from './build-log-pdf';
 import { MAX_PDF_THREADS, reservePdfThread, startPdfThread, type PdfThread } from './build-log-pdf-thread';
 import {
@@ -222,6 +222,20 @@ export function describeBench(
           kind === 'work_stopped'
             ? `Stopped work on the part${performedBy(detail)}${span}.`
             : `Entered ${h === null ? 'hours' : hoursText(h)} worked on the part${performedBy(detail)}.`,
+      };
+    }
+    case 'photos_added': {
+      const n = typeof detail.count === 'number' ? detail.count : 0;
+      const holeIds = holesOf(detail);
+      const of = [
+        typeof detail.seq === 'number' ? `step ${detail.seq}` : '',
+        holeIds.length ? `hole${holeIds.length === 1 ? '' : 's'} ${describeHoleRuns(holeIds)}` : '',
+      ].filter(Boolean);
+      return {
+        kind,
+        text: `Added ${plural(n, 'photo')} of the work${of.length ? ` on ${of.join(', ')}` : ''}.`,
+        ...(holeIds.length ? { holeIds } : {}),
+        ...(typeof detail.note === 'string' && detail.note ? { note: detail.note } : {}),
       };
     }
     case 'part_replaced': {
@@ -440,7 +454,19 @@ export const buildLogService = ({ db, signer, storage, config }: Deps) => {
           ),
         ]
       : [];
-    const photos = await listLogPhotos(db, user, buildId, photoFindings);
+    const workEvents = withPhotos
+      ? rows.flatMap((r) => (r.src === 't' && r.row.kind === 'photos_added' ? [r.row.id] : []))
+      : [];
+    const [photos, work] = await Promise.all([
+      listLogPhotos(db, user, buildId, photoFindings),
+      listWorkPhotosOfEvents(db, user, workEvents),
+    ]);
+    const signed = (ps: readonly { id: string }[]) =>
+      ps.map((p) => ({
+        id: p.id,
+        thumbUrl: signer.sign(p.id, 'thumb', user.id, linkTtl),
+        url: signer.sign(p.id, 'full', user.id, linkTtl),
+      }));
     const entryOf = (raw: Raw): BuildLogEntry => {
       if (raw.src === 'b') {
         const r = raw.row;
@@ -472,6 +498,7 @@ export const buildLogService = ({ db, signer, storage, config }: Deps) => {
       if (raw.src === 't') {
         const b = raw.row;
         const d = describeBench(b.kind, b.detail ?? {});
+        const mine = work.filter((p) => p.eventId === b.id);
         return {
           id: `t:${b.id}`,
           ...common,
@@ -480,6 +507,7 @@ export const buildLogService = ({ db, signer, storage, config }: Deps) => {
           text: d.text,
           ...(d.holeIds ? { holeIds: d.holeIds } : {}),
           ...(d.note ? { note: d.note } : {}),
+          ...(mine.length ? { photos: signed(mine) } : {}),
         };
       }
       const f = raw.row;
@@ -497,15 +525,7 @@ export const buildLogService = ({ db, signer, storage, config }: Deps) => {
         holeIds: [...f.holeIds].sort(natural),
         findingId: f.findingId,
         ...(f.note ? { note: f.note } : {}),
-        ...(own.length
-          ? {
-              photos: own.map((p) => ({
-                id: p.id,
-                thumbUrl: signer.sign(p.id, 'thumb', user.id, linkTtl),
-                url: signer.sign(p.id, 'full', user.id, linkTtl),
-              })),
-            }
-          : {}),
+        ...(own.length ? { photos: signed(own) } : {}),
       };
     };
     // A thousand sentences (hole runs sorted, times placed) are a stretch of work of their own: in slices.
@@ -517,7 +537,7 @@ export const buildLogService = ({ db, signer, storage, config }: Deps) => {
       },
       50,
     );
-    return { entries, photos };
+    return { entries, photos: [...photos, ...work] };
   }
 
   /**

@@ -25,7 +25,7 @@ import { couponsForEngine } from '../coupons/coupons-repository';
 import { findRivetByCallout, nextRivetSize, repairCheck, type RepairCheckResult } from '../engineering';
 import { badRequest, conflict, HttpError, notFound } from '../http-error';
 import { decodeCursor, pageOf } from '../pagination';
-import { processPhoto } from '../photos/image-processing';
+import { withStoredPhotos, type UploadedPhoto } from '../photos/uploads';
 import type { PhotoStorage } from '../storage/photo-storage';
 import {
   currentRevisionOf,
@@ -56,34 +56,6 @@ import {
 import { oversizeOptions, rivetOfCallout } from './oversize-options';
 
 type Deps = Pick<AppContext, 'db' | 'pool' | 'storage' | 'signer' | 'mailQueue'>;
-export type UploadedPhoto = { buffer: Buffer; originalname: string };
-
-/** Photos are checked and re-encoded before anything is written; on any failure their files are removed again. */
-async function withStoredPhotos<T>(
-  storage: PhotoStorage,
-  files: UploadedPhoto[],
-  work: (keys: StoredPhoto[]) => Promise<T>,
-): Promise<T> {
-  const processed = [];
-  for (const f of files) processed.push(await processPhoto(f.buffer, f.originalname));
-  const written: string[] = [];
-  try {
-    const keys: StoredPhoto[] = [];
-    for (const p of processed) {
-      const fileKey = await storage.put(p.full, 'jpg');
-      written.push(fileKey);
-      const thumbKey = await storage.put(p.thumb, 'jpg');
-      written.push(thumbKey);
-      keys.push({ fileKey, thumbKey, width: p.width, height: p.height });
-    }
-    return await work(keys);
-  } catch (err) {
-    await Promise.all(written.map((k) => storage.remove(k)));
-    throw err;
-  }
-}
-type StoredPhoto = { fileKey: string; thumbKey: string; width: number; height: number };
-
 const refused = (r: { code: 403 | 409; message: string }) =>
   new HttpError(r.code, r.code === 403 ? 'forbidden' : 'conflict', r.message);
 

@@ -1,13 +1,14 @@
 import type { Logger } from 'pino';
 import type { Db } from '../../db';
 import { photoKeysInUse } from '../findings/findings-repository';
+import { workPhotoKeysInUse } from '../travelers/work-repository';
 import type { PhotoStorage } from '../storage/photo-storage';
 
 /**
  * Removes photo files that no finding_photos row points to. A finding writes its files before the
  * transaction that records them; a crash or a rollback in between (or a deleted row) leaves files
  * behind forever. The grace period keeps files whose transaction may still be running.
- * finding_photos is the only table that keeps storage keys: a new one must be added to photoKeysInUse.
+ * finding_photos and work_photos keep storage keys: a new table that does must be asked here too.
  */
 export async function sweepOrphanPhotos(deps: {
   db: Db;
@@ -23,7 +24,8 @@ export async function sweepOrphanPhotos(deps: {
     examined += page.length;
     const old = page.filter((f) => f.modifiedAt.getTime() < cutoff).map((f) => f.key);
     if (old.length === 0) continue;
-    const used = await photoKeysInUse(deps.db, old);
+    const [findingKeys, workKeys] = await Promise.all([photoKeysInUse(deps.db, old), workPhotoKeysInUse(deps.db, old)]);
+    const used = new Set([...findingKeys, ...workKeys]);
     for (const key of old) {
       if (used.has(key)) continue;
       await deps.storage.remove(key);

@@ -513,7 +513,11 @@ export async function insertTravelerEvent(
   values: Omit<typeof travelerEvents.$inferInsert, 'createdAt' | 'doneAt'> & { doneAt?: Date | null },
 ) {
   const now = sql`clock_timestamp()`;
-  await tx.insert(travelerEvents).values({ ...values, createdAt: now, doneAt: values.doneAt ?? now });
+  const [row] = await tx
+    .insert(travelerEvents)
+    .values({ ...values, createdAt: now, doneAt: values.doneAt ?? now })
+    .returning({ id: travelerEvents.id });
+  return row.id;
 }
 
 /** A person's name (a withdrawn sign-off's log entry keeps who had signed). */

@@ -7,6 +7,7 @@ import {
   stepInput,
   tickHolesInput,
   workHoursInput,
+  workPhotosInput,
   workStartInput,
   workStopInput,
   travelerListQuery,
@@ -15,6 +16,7 @@ import {
 import type { AppContext } from '../context';
 import { findingsService } from '../findings/findings-service';
 import { validateBody, validateQuery } from '../middleware/validate';
+import { MAX_PHOTOS, parseJsonField, photoUpload, uploadedFiles } from '../photos/uploads';
 import { travelersService } from './travelers-service';
 
 const stepParams = z.object({ id: z.uuid({ message: 'must be an id' }), stepId: z.uuid({ message: 'must be an id' }) });
@@ -25,6 +27,7 @@ export function travelersRouter(ctx: AppContext): Router {
   const service = travelersService(ctx.db, ctx.pool, findings.list, {
     mailQueue: ctx.mailQueue,
     publicUrl: ctx.config.publicUrl,
+    storage: ctx.storage,
   });
   r.get('/', validateQuery(travelerListQuery), async (req, res) => {
     res.json(await service.page(req.user!, res.locals.query));
@@ -53,6 +56,13 @@ export function travelersRouter(ctx: AppContext): Router {
   });
   r.post('/:id/work/hours', validateBody(workHoursInput), async (req, res) => {
     res.json(await service.enterHours(req.user!, idParam.parse(req.params).id, req.body));
+  });
+  r.post('/:id/photos', photoUpload.array('photos', MAX_PHOTOS), async (req, res) => {
+    const input = workPhotosInput.parse({
+      ...req.body,
+      holeIds: parseJsonField(req.body?.holeIds, 'holeIds', '["U-03"]'),
+    });
+    res.json(await service.addWorkPhotos(req.user!, idParam.parse(req.params).id, input, uploadedFiles(req)));
   });
   r.post('/:id/steps/:stepId/stamp', async (req, res) => {
     const { id, stepId } = stepParams.parse(req.params);

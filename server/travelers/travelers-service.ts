@@ -18,6 +18,7 @@ import {
   type PartLabel,
   type StepChange,
   type WorkHoursChange,
+  type WorkPhotosChange,
   type WorkStartChange,
   type WorkStopChange,
   type StepFact,
@@ -38,7 +39,8 @@ import { rivetOfCallout } from '../findings/oversize-options';
 import { isLoopbackUrl } from '../network/lan';
 import { parseTravelerCode } from './codes';
 import { benchTime, type BenchTime } from './device-time';
-import { endSession, findRunningSession, insertSession, readPartWork } from './work-repository';
+import { withStoredPhotos, type UploadedPhoto } from '../photos/uploads';
+import { endSession, findRunningSession, insertSession, insertWorkPhotos, readPartWork } from './work-repository';
 import { partOutline } from './part-outline';
 import { signOffWithdrawnMail } from './sign-off-mail';
 import {
@@ -61,7 +63,7 @@ import {
 
 type FindingLister = (user: Express.User, filter: { travelerId: string }) => Promise<TravelerDetail['findings']>;
 /** What reaches outside: the mail queue (withdrawal notices) and the address labels and mails carry. The seed runs without. */
-type Outward = { mailQueue: AppContext['mailQueue']; publicUrl: string };
+type Outward = { mailQueue: AppContext['mailQueue']; publicUrl: string; storage: AppContext['storage'] };
 
 export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister, outward?: Outward) => {
   function out(): Outward {
@@ -330,6 +332,57 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
           hours: input.hours,
         });
       });
+      return detail(user, id);
+    },
+
+    /**
+     * Photos of the work (of a step, a run of holes, or the part), stored before the part is locked and
+     * removed again if the write is refused; one bench event carries them into the log.
+     */
+    async addWorkPhotos(user: Express.User, id: string, input: WorkPhotosChange, files: UploadedPhoto[]) {
+      const { storage } = out();
+      if (!files.length) throw badRequest('add at least one photo', { photos: 'add at least one photo' });
+      const holeIds = [...new Set(input.holeIds)];
+      await withStoredPhotos(storage, files, (keys) =>
+        underLock(
+          user,
+          id,
+          'step',
+          async (tx, _t, _unit, facts) => {
+            const step = input.stepId ? facts.steps.find((s) => s.id === input.stepId) : undefined;
+            if (input.stepId && !step) throw notFound('step');
+            const known = new Set(facts.picked.map((h) => h.holeId));
+            const missing = holeIds.filter((h) => !known.has(h));
+            if (missing.length)
+              throw badRequest(`no hole ${missing.join(', ')} on this traveler`, {
+                holeIds: `unknown hole ${missing.join(', ')}`,
+              });
+            const eventId = await insertTravelerEvent(tx, {
+              travelerId: id,
+              actorId: user.id,
+              kind: 'photos_added',
+              detail: {
+                count: keys.length,
+                ...(step ? { seq: step.seq } : {}),
+                ...(holeIds.length ? { holeIds } : {}),
+                ...(input.note ? { note: input.note } : {}),
+              },
+            });
+            await insertWorkPhotos(
+              tx,
+              keys.map((k) => ({
+                ...k,
+                travelerId: id,
+                eventId,
+                stepId: input.stepId ?? null,
+                holeIds,
+                uploadedBy: user.id,
+              })),
+            );
+          },
+          holeIds,
+        ),
+      );
       return detail(user, id);
     },
 

@@ -1,6 +1,6 @@
-import { and, desc, eq, inArray, isNotNull, isNull, sql, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNotNull, isNull, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
-import { travelers, users, workSessions } from '../../db/schema';
+import { travelers, users, workPhotos, workSessions } from '../../db/schema';
 import type { HoursByWho, StepPerformer, WorkSession } from '../../db/contracts';
 import { visibleBuilds } from '../builds/build-access';
 import { joinTravelerPart } from './travelers-repository';
@@ -103,4 +103,40 @@ export async function readBuildHours(db: Db, user: Express.User, buildId: string
     and(eq(travelers.buildId, buildId), visibleBuilds(db, user)),
   );
   return sumByWho(db, inArray(workSessions.travelerId, visibleParts));
+}
+
+export async function insertWorkPhotos(tx: Db, values: (typeof workPhotos.$inferInsert)[]) {
+  if (values.length) await tx.insert(workPhotos).values(values);
+}
+
+/** A work photo's part and storage keys (the photo route checks the reader still sees the part). */
+export async function findWorkPhotoRow(db: Db, id: string) {
+  const [row] = await db
+    .select({ travelerId: workPhotos.travelerId, fileKey: workPhotos.fileKey, thumbKey: workPhotos.thumbKey })
+    .from(workPhotos)
+    .where(eq(workPhotos.id, id));
+  return row ?? null;
+}
+
+/** The work photos of these bench events, oldest first, only where the part's build is visible. */
+export async function listWorkPhotosOfEvents(db: Db, user: Express.User, eventIds: string[]) {
+  if (eventIds.length === 0) return [];
+  return joinTravelerPart(
+    db
+      .select({ id: workPhotos.id, eventId: workPhotos.eventId, thumbKey: workPhotos.thumbKey })
+      .from(workPhotos)
+      .innerJoin(travelers, eq(travelers.id, workPhotos.travelerId))
+      .$dynamic(),
+  )
+    .where(and(inArray(workPhotos.eventId, eventIds), visibleBuilds(db, user)))
+    .orderBy(asc(workPhotos.createdAt), asc(workPhotos.id));
+}
+
+/** Of these storage keys, those a work photo points to (the photo sweep keeps them). */
+export async function workPhotoKeysInUse(db: Db, keys: string[]): Promise<Set<string>> {
+  const rows = await db
+    .select({ fileKey: workPhotos.fileKey, thumbKey: workPhotos.thumbKey })
+    .from(workPhotos)
+    .where(or(inArray(workPhotos.fileKey, keys), inArray(workPhotos.thumbKey, keys)));
+  return new Set(rows.flatMap((r) => [r.fileKey, r.thumbKey]));
 }

@@ -137,6 +137,7 @@ describe('the build log view', () => {
       'work_started',
       'work_stopped',
       'hours_entered',
+      'photos_added',
       'other',
     ]);
     expect(expandKindFilter(['findings', 'finding_raised'])).toHaveLength(6);

@@ -1,0 +1,32 @@
+import { index, integer, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { travelerEvents, travelerSteps, travelers } from './travelers';
+import { users } from './users';
+
+/**
+ * Photos of the work itself (not of a suspect hole): of a step, of a run of holes, or of the part.
+ * They come with the bench event that records them and show with it in the log.
+ */
+export const workPhotos = pgTable(
+  'work_photos',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    travelerId: uuid('traveler_id')
+      .notNull()
+      .references(() => travelers.id, { onDelete: 'cascade' }),
+    eventId: uuid('event_id')
+      .notNull()
+      .references(() => travelerEvents.id, { onDelete: 'cascade' }),
+    stepId: uuid('step_id').references(() => travelerSteps.id, { onDelete: 'set null' }),
+    holeIds: text('hole_ids').array().notNull().default([]),
+    /** Server-made names inside the storage folder; never the uploader's file name. */
+    fileKey: text('file_key').notNull(),
+    thumbKey: text('thumb_key').notNull(),
+    width: integer('width').notNull(),
+    height: integer('height').notNull(),
+    uploadedBy: uuid('uploaded_by')
+      .notNull()
+      .references(() => users.id),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('work_photos_event').on(t.eventId), index('work_photos_traveler').on(t.travelerId)],
+);

@@ -1,0 +1,63 @@
+import multer from 'multer';
+import { badRequest } from '../http-error';
+import type { PhotoStorage } from '../storage/photo-storage';
+import { processPhoto } from './image-processing';
+
+/** Photos one request may carry (a finding's, or work at the bench). */
+export const MAX_PHOTOS = 6;
+
+/** Multipart photos in memory: checked and re-encoded before anything is stored. */
+export const photoUpload = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: 10 * 1024 * 1024, files: MAX_PHOTOS, fields: 16, fieldSize: 64 * 1024 },
+});
+
+export type UploadedPhoto = { buffer: Buffer; originalname: string };
+export type StoredPhoto = { fileKey: string; thumbKey: string; width: number; height: number };
+
+/** The files multer kept for a request (none when it sent no photos). */
+export const uploadedFiles = (req: { files?: unknown }) => (req.files as Express.Multer.File[] | undefined) ?? [];
+
+/** Multipart fields are strings: lists and objects come as JSON (holeIds also as a comma list from a plain form). */
+export function parseJsonField(raw: unknown, field: string, example: string): unknown {
+  if (typeof raw !== 'string') return raw;
+  const s = raw.trim();
+  if (s.startsWith('[') || s.startsWith('{')) {
+    try {
+      return JSON.parse(s);
+    } catch {
+      throw badRequest(`${field} is not valid JSON`, { [field]: `send JSON such as ${example}` });
+    }
+  }
+  return field === 'holeIds'
+    ? s
+        .split(',')
+        .map((h) => h.trim())
+        .filter(Boolean)
+    : raw;
+}
+
+/** Photos are checked and re-encoded before anything is written; on any failure their files are removed again. */
+export async function withStoredPhotos<T>(
+  storage: PhotoStorage,
+  files: UploadedPhoto[],
+  work: (keys: StoredPhoto[]) => Promise<T>,
+): Promise<T> {
+  const processed = [];
+  for (const f of files) processed.push(await processPhoto(f.buffer, f.originalname));
+  const written: string[] = [];
+  try {
+    const keys: StoredPhoto[] = [];
+    for (const p of processed) {
+      const fileKey = await storage.put(p.full, 'jpg');
+      written.push(fileKey);
+      const thumbKey = await storage.put(p.thumb, 'jpg');
+      written.push(thumbKey);
+      keys.push({ fileKey, thumbKey, width: p.width, height: p.height });
+    }
+    return await work(keys);
+  } catch (err) {
+    await Promise.all(written.map((k) => storage.remove(k)));
+    throw err;
+  }
+}
