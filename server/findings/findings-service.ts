@@ -26,7 +26,6 @@ import { findRivetByCallout, nextRivetSize, repairCheck, type RepairCheckResult 
 import { badRequest, conflict, HttpError, notFound } from '../http-error';
 import { decodeCursor, pageOf } from '../pagination';
 import { withStoredPhotos, type UploadedPhoto } from '../photos/uploads';
-import type { PhotoStorage } from '../storage/photo-storage';
 import {
   currentRevisionOf,
   findTravelerParts,
