@@ -197,7 +197,7 @@ function StepsEditor({ control, name }: { control: Control<any>; name: string })
                   kind="checkbox"
                   checked={s.inspectionPoint}
                   onPress={() => change(i, { inspectionPoint: !s.inspectionPoint })}
-                  testID={`step-point-${i}`}
+                  testID={`step-inspection-${i}`}
                   accessibilityLabel={`Step ${i + 1} is an inspection point: an inspector stamps it before later steps`}
                   style={{ flexDirection: 'row', gap: space.sm, alignItems: 'center', minHeight: touch }}
                 >

@@ -156,23 +156,29 @@ export function PhotoPicker({
   onRemove,
   error,
   empty = 'No photo yet. A close, sharp photo of the hole helps the inspector most.',
+  idPrefix = '',
 }: {
   photos: DraftPhoto[];
   onAdd: (from: 'library' | 'camera') => void;
   onRemove: (i: number) => void;
   error?: string | null;
   empty?: string;
+  /**
+   * Before every testID: a screen pushed over one that has a picker too (the flag screen over the
+   * traveler's photos of the work) keeps both in the page, and their controls must stay apart.
+   */
+  idPrefix?: string;
 }) {
   return (
-    <View style={{ gap: space.sm }} testID="photos">
+    <View style={{ gap: space.sm }} testID={`${idPrefix}photos`}>
       {photos.length ? (
         <View style={styles.grid}>
           {photos.map((p, i) => (
-            <View key={`${p.uri.slice(0, 64)}-${i}`} style={styles.item} testID={`photo-${i}`}>
+            <View key={`${p.uri.slice(0, 64)}-${i}`} style={styles.item} testID={`${idPrefix}photo-${i}`}>
               <Image source={{ uri: p.uri }} style={styles.thumb} accessibilityLabel={`Photo ${i + 1}`} />
               <Pressable
                 onPress={() => onRemove(i)}
-                testID={`remove-photo-${i}`}
+                testID={`${idPrefix}remove-photo-${i}`}
                 accessibilityRole="button"
                 accessibilityLabel={`Remove photo ${i + 1}`}
                 style={styles.remove}
@@ -195,7 +201,7 @@ export function PhotoPicker({
             variant="secondary"
             onPress={() => onAdd(source)}
             disabled={photos.length >= maxPhotos}
-            testID={testID}
+            testID={`${idPrefix}${testID}`}
           />
         ))}
       </View>
@@ -203,7 +209,7 @@ export function PhotoPicker({
         {photos.length}/{maxPhotos} photos. Location data is removed on the server.
       </Txt>
       {error ? (
-        <Txt variant="small" tone="error" accessibilityRole="alert" testID="photos-error">
+        <Txt variant="small" tone="error" accessibilityRole="alert" testID={`${idPrefix}photos-error`}>
           {error}
         </Txt>
       ) : null}

@@ -33,12 +33,13 @@ export function WorkPhotos({ travelerId, steps }: { travelerId: string; steps: T
 
   return (
     <Section title="Photos of the work">
-      <View style={{ gap: space.sm }} testID="work-photos">
+      <View style={{ gap: space.sm }} testID="work-photos-section">
         <PhotoPicker
           photos={photos}
           onAdd={(from) => void add(from)}
           onRemove={(i) => setPhotos((p) => p.filter((_, j) => j !== i))}
           error={error}
+          idPrefix="work-"
           empty="No photo picked. A photo of a step's work (a clecoed fit, a row of shop heads) goes into the build log."
         />
         {photos.length ? (

@@ -224,7 +224,7 @@ describe('time worked', () => {
     expect(r.byTestId('work-total').textContent).toBe('1 h 15 min on this part: Sam Ortiz (a helper) 1 h 15 min');
     expect(r.byTestId('work-recent').textContent).toContain('entered afterwards');
     // Photos of the work are the builder's too; what they show is asked once one is picked.
-    expect(r.byTestId('work-photos').textContent).toContain('No photo picked');
+    expect(r.byTestId('work-photos-section').textContent).toContain('No photo picked');
     expect(r.queryByTestId('work-photos-send')).toBeNull();
     await r.press('step-by-helper');
     await r.type('step-by-name', 'Sam Ortiz');
@@ -240,7 +240,7 @@ describe('time worked', () => {
     await r.settle();
     expect(r.queryByTestId('work-start')).toBeNull();
     expect(r.queryByTestId('work-hours-form')).toBeNull();
-    expect(r.queryByTestId('work-photos')).toBeNull();
+    expect(r.queryByTestId('work-photos-section')).toBeNull();
     expect(r.byTestId('work-total').textContent).toContain('1 h 15 min');
   });
 });
