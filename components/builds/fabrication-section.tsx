@@ -1,5 +1,11 @@
 import { View } from 'react-native';
-import { creditColumnLabels, creditColumns, fabricationCaution, type FabricationCounts } from '@/db/contracts';
+import {
+  creditColumnLabels,
+  creditColumns,
+  fabricationCaution,
+  shareText,
+  type FabricationCounts,
+} from '@/db/contracts';
 import { space } from '@/constants/theme';
 import { Caution } from '@/components/ui/caution';
 import { GridTable, type GridColumn, type GridRow } from '@/components/ui/grid-table';
@@ -7,8 +13,6 @@ import { Section } from '@/components/ui/sheet';
 import { ErrorState, LoadingState } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
 import { useFabricationQuery } from '@/hooks/queries/builds';
-
-const share = (c: FabricationCounts) => (c.builderShare === null ? '–' : `${Math.round(c.builderShare * 100)} %`);
 
 const columns: GridColumn[] = [
   { key: 'part', title: 'Part', width: 120 },
@@ -24,7 +28,7 @@ function cellsOf(label: React.ReactNode, c: FabricationCounts): GridRow['cells']
     ...Object.fromEntries(creditColumns.map((k) => [k, <Mono key={k}>{String(c.credited[k])}</Mono>])),
     inspections: <Mono>{String(c.inspections)}</Mono>,
     notDone: <Mono>{String(c.notDone)}</Mono>,
-    share: <Mono bold>{share(c)}</Mono>,
+    share: <Mono bold>{shareText(c.builderShare)}</Mono>,
   };
 }
 

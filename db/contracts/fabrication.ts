@@ -99,3 +99,6 @@ export function fabricationTable(parts: readonly FabricationPartInput[]): Fabric
   });
   return { parts: rows, total: finish(all, allInspections, allNotDone) };
 }
+
+/** The builder's share as the table and the printed log show it: "56 %", or a dash before anything is credited. */
+export const shareText = (share: number | null) => (share === null ? '–' : `${Math.round(share * 100)} %`);

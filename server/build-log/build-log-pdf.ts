@@ -7,6 +7,7 @@ import {
   creditColumnLabels,
   creditColumns,
   fabricationCaution,
+  shareText,
   findingClosureLabels,
   findingKindLabels,
   findingStatusLabels,
@@ -405,12 +406,11 @@ export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): Log
     });
     y += 11;
   };
-  const share = (v: number | null) => (v === null ? '–' : `${Math.round(v * 100)} %`);
   const counts = (c: FabricationCounts) => [
     ...creditColumns.map((k) => String(c.credited[k])),
     String(c.inspections),
     String(c.notDone),
-    share(c.builderShare),
+    shareText(c.builderShare),
   ];
   fabRow(
     fabCols.map(([t]) => t),

@@ -160,3 +160,14 @@ export function demoAppWithKit(take: (s: { t: TestApp; tok: Tokens; kitModelId: 
     await t?.close();
   });
 }
+
+/** The demo build's ribs as its builder sees them: the inboard W-104 and the outboard W-105, and the build. */
+export async function demoRibs(t: TestApp, token: string) {
+  const parts = (await request(t.app).get('/api/travelers').set(auth(token))).body.items as {
+    id: string;
+    partNumber: string;
+    buildId: string;
+  }[];
+  const rib = (n: string) => parts.find((p) => p.partNumber === n)!;
+  return { innerId: rib('W-104').id, outerId: rib('W-105').id, buildId: rib('W-104').buildId };
+}

@@ -8,7 +8,7 @@ import { benchTime } from '@/server/travelers/device-time';
 import { zonedDateTime } from '@/lib/zoned-time';
 import { logPdfText } from '../helpers/pdf-text';
 import { parseCsv } from '../helpers/csv';
-import { auth, startTestApp, type TestApp, type Tokens } from '../helpers/test-app';
+import { auth, demoRibs, startTestApp, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(60000);
 
@@ -55,12 +55,7 @@ describe('device time through the API', () => {
   beforeAll(async () => {
     t = await startTestApp();
     tok = await t.tokens();
-    const parts = await request(t.app).get('/api/travelers').set(auth(tok.builder));
-    const outer = (parts.body.items as { id: string; partNumber: string; buildId: string }[]).find(
-      (p) => p.partNumber === 'W-105',
-    )!;
-    outerId = outer.id;
-    buildId = outer.buildId;
+    ({ outerId, buildId } = await demoRibs(t, tok.builder));
   });
   afterAll(async () => {
     await t?.close();

@@ -1,5 +1,6 @@
 import request from 'supertest';
 import sharp from 'sharp';
+import { jpeg } from '../helpers/photos';
 import { DEMO_USERS } from '@/server/dev/seed';
 import { findingActions, type FindingAction } from '@/db/contracts';
 import { findingMailWorker } from '@/server/jobs/finding-mail-worker';
@@ -21,10 +22,6 @@ let kitId: string;
 let serialNo = 0;
 
 const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-const jpeg = () =>
-  sharp({ create: { width: 64, height: 48, channels: 3, background: '#777' } })
-    .jpeg()
-    .toBuffer();
 
 beforeAll(async () => {
   t = await startTestApp();

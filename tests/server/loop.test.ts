@@ -1,5 +1,6 @@
 import request from 'supertest';
 import sharp from 'sharp';
+import { jpeg as greyJpeg } from '../helpers/photos';
 import { DEMO_USERS } from '@/server/dev/seed';
 import { flangeLine, ribRevision } from '../fixtures/rib-revision';
 import { startTestApp, type TestApp } from '../helpers/test-app';
@@ -17,10 +18,7 @@ afterAll(async () => {
 });
 
 const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-const jpeg = () =>
-  sharp({ create: { width: 64, height: 48, channels: 3, background: '#888' } })
-    .jpeg()
-    .toBuffer();
+const jpeg = () => greyJpeg('#888');
 
 // The rib's revision in 0.020 in, with a lower flange at 2 in pitch as well.
 const loopRevision = {

@@ -1,6 +1,7 @@
 import express from 'express';
 import request from 'supertest';
 import sharp from 'sharp';
+import { jpeg as greyJpeg } from '../helpers/photos';
 import { DEMO_USERS } from '@/server/dev/seed';
 import { devRouter } from '@/server/dev/dev-router';
 import { findingMail, holePhotoCid, type FindingMailFacts } from '@/server/mail/finding-mail';
@@ -15,10 +16,7 @@ import { startTestApp, type TestApp } from '../helpers/test-app';
  */
 jest.setTimeout(120000);
 
-const jpeg = () =>
-  sharp({ create: { width: 64, height: 48, channels: 3, background: '#6a6a6a' } })
-    .jpeg()
-    .toBuffer();
+const jpeg = () => greyJpeg('#6a6a6a');
 const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 
 const facts = (thumbnail: Buffer | null): FindingMailFacts => ({

@@ -4,7 +4,7 @@
  * (W-104), whose step 2 (the fit check before riveting) is an inspection point.
  */
 import request from 'supertest';
-import { auth, startTestApp, type TestApp, type Tokens } from '../helpers/test-app';
+import { auth, demoRibs, startTestApp, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(60000);
 
@@ -29,12 +29,7 @@ beforeAll(async () => {
   t = await startTestApp();
   tok = await t.tokens();
   outsiders = await t.outsiders();
-  const parts = await request(t.app).get('/api/travelers').set(auth(tok.builder));
-  const inner = (parts.body.items as { id: string; partNumber: string; buildId: string }[]).find(
-    (p) => p.partNumber === 'W-104',
-  )!;
-  innerId = inner.id;
-  buildId = inner.buildId;
+  ({ innerId, buildId } = await demoRibs(t, tok.builder));
 });
 afterAll(async () => {
   await t?.close();

@@ -5,9 +5,10 @@
  */
 import request from 'supertest';
 import sharp from 'sharp';
+import { jpeg } from '../helpers/photos';
 import { sweepOrphanPhotos } from '@/server/jobs/photo-sweep';
 import { parseCsv } from '../helpers/csv';
-import { auth, startTestApp, type TestApp, type Tokens } from '../helpers/test-app';
+import { auth, demoRibs, startTestApp, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(60000);
 
@@ -18,22 +19,11 @@ let innerId: string;
 let buildId: string;
 let firstStepId: string;
 
-const jpeg = () =>
-  sharp({ create: { width: 64, height: 48, channels: 3, background: '#777' } })
-    .jpeg()
-    .toBuffer();
-
 beforeAll(async () => {
   t = await startTestApp();
   tok = await t.tokens();
   outsiders = await t.outsiders();
-  const parts = (await request(t.app).get('/api/travelers').set(auth(tok.builder))).body.items as {
-    id: string;
-    partNumber: string;
-    buildId: string;
-  }[];
-  innerId = parts.find((p) => p.partNumber === 'W-104')!.id;
-  buildId = parts[0].buildId;
+  ({ innerId, buildId } = await demoRibs(t, tok.builder));
   firstStepId = (await request(t.app).get(`/api/travelers/${innerId}`).set(auth(tok.builder))).body.steps[0].id;
 });
 afterAll(async () => {

@@ -5,7 +5,7 @@
  */
 import request from 'supertest';
 import { logPdfText } from '../helpers/pdf-text';
-import { auth, startTestApp, type TestApp, type Tokens } from '../helpers/test-app';
+import { auth, demoRibs, startTestApp, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(60000);
 
@@ -21,14 +21,7 @@ beforeAll(async () => {
   t = await startTestApp();
   tok = await t.tokens();
   outsiders = await t.outsiders();
-  const parts = (await request(t.app).get('/api/travelers').set(auth(tok.builder))).body.items as {
-    id: string;
-    partNumber: string;
-    buildId: string;
-  }[];
-  outerId = parts.find((p) => p.partNumber === 'W-105')!.id;
-  innerId = parts.find((p) => p.partNumber === 'W-104')!.id;
-  buildId = parts[0].buildId;
+  ({ innerId, outerId, buildId } = await demoRibs(t, tok.builder));
 });
 afterAll(async () => {
   await t?.close();
