@@ -24,6 +24,7 @@ import { limitByIpAndAddress } from './middleware/rate-limit';
 import { createLogger, requestLog } from './middleware/request-log';
 import { securityHeaders } from './middleware/security-headers';
 import { networkRouter } from './network/network-router';
+import { noticesRouter } from './notices/notices-router';
 import type { TlsMaterial } from './network/tls';
 import { invitationsRouter, peopleRouter } from './people/people-router';
 import { photosRouter } from './photos/photos-router';
@@ -116,6 +117,7 @@ export function createApp({ config, database, mailQueue, storage, smtpFake, logg
   api.use('/studies', signedIn, studiesRouter(ctx));
   api.use('/travelers', signedIn, travelersRouter(ctx));
   api.use('/findings', signedIn, findingsRouter(ctx));
+  api.use('/notices', signedIn, noticesRouter(ctx));
   api.use((_req, _res, next) => next(notFound('API route')));
   api.use(errorHandler);
   app.use('/api', api);

@@ -20,6 +20,7 @@ export const benchLogKinds = [
   'work_stopped',
   'hours_entered',
   'photos_added',
+  'revision_changed',
 ] as const;
 
 export const buildLogKinds = [
@@ -35,13 +36,16 @@ export const buildLogKinds = [
   'member_joined',
   'member_removed',
   'owner_changed',
+  'notice_received',
+  'notice_acknowledged',
+  'notice_answered',
   /** A bench event of a kind this version does not know yet: still listed, never dropped. */
   'other',
 ] as const;
 export type BuildLogKind = (typeof buildLogKinds)[number];
 
 /** The families the screen's chips filter by. */
-export const buildLogGroups = ['bench', 'findings', 'sign_off', 'people'] as const;
+export const buildLogGroups = ['bench', 'findings', 'sign_off', 'people', 'notices'] as const;
 export type BuildLogGroup = (typeof buildLogGroups)[number];
 
 export const buildLogGroupLabels: Record<BuildLogGroup, string> = {
@@ -49,6 +53,7 @@ export const buildLogGroupLabels: Record<BuildLogGroup, string> = {
   findings: 'Findings',
   sign_off: 'Sign-off',
   people: 'People',
+  notices: 'Notices',
 };
 
 export const buildLogKindLabels: Record<BuildLogKind, string> = {
@@ -64,6 +69,7 @@ export const buildLogKindLabels: Record<BuildLogKind, string> = {
   work_stopped: 'Work stopped',
   hours_entered: 'Hours entered',
   photos_added: 'Work photos',
+  revision_changed: 'Moved to a new revision',
   finding_raised: 'Finding raised',
   finding_dispositioned: 'Dispositioned',
   finding_approval: 'Design authority',
@@ -75,12 +81,16 @@ export const buildLogKindLabels: Record<BuildLogKind, string> = {
   member_joined: 'Person joined',
   member_removed: 'Person removed',
   owner_changed: 'Build handed over',
+  notice_received: 'Notice received',
+  notice_acknowledged: 'Notice acknowledged',
+  notice_answered: 'Notice answered',
   other: 'Bench event',
 };
 
 export function groupOfKind(kind: BuildLogKind): BuildLogGroup {
   if (kind === 'signed_off' || kind === 'sign_off_withdrawn' || kind === 'step_stamped') return 'sign_off';
   if (kind.startsWith('member_') || kind === 'owner_changed') return 'people';
+  if (kind.startsWith('notice_')) return 'notices';
   return kind.startsWith('finding_') ? 'findings' : 'bench';
 }
 

@@ -13,3 +13,4 @@ export * from './network';
 export * from './log-chain';
 export * from './fabrication';
 export * from './work-sessions';
+export * from './notices';

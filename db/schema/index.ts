@@ -9,3 +9,4 @@ export * from './studies';
 export * from './log-chain';
 export * from './work-sessions';
 export * from './work-photos';
+export * from './notices';

@@ -1,6 +1,10 @@
 import type { Writable } from 'node:stream';
 import PDFDocument from 'pdfkit';
 import {
+  complianceStatusLabels,
+  noticeLevelLabels,
+  type ComplianceStatus,
+  type NoticeLevel,
   buildLogCaution,
   buildLogKindLabels,
   clockIsOff,
@@ -63,6 +67,18 @@ export type LogSummary = {
     raisedAt: string;
   }[];
   findingsTotal: number;
+  notices: {
+    number: number;
+    title: string;
+    level: NoticeLevel;
+    issuedAt: string;
+    status: ComplianceStatus;
+    answeredAt: string | null;
+    answeredByName: string | null;
+    note: string | null;
+    reason: string | null;
+  }[];
+  noticesTotal: number;
 };
 
 /** Thumbnail bytes by photo id, for one batch of entries; a missing one prints as an empty frame with a word. */
@@ -454,6 +470,29 @@ export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): Log
         f.closure ? `closed: ${findingClosureLabels[f.closure]}` : findingStatusLabels[f.status]
       }`,
     );
+  y += 6;
+
+  heading('Notices from the supplier and what was done');
+  const answered = summary.notices.filter((n) => n.status === 'done' || n.status === 'not_applicable').length;
+  line(
+    summary.noticesTotal
+      ? `${summary.noticesTotal} notice${summary.noticesTotal === 1 ? '' : 's'}${
+          summary.noticesTotal > summary.notices.length ? ` (the first ${summary.notices.length} listed)` : ''
+        }; ${answered} of those listed answered.`
+      : 'No notices.',
+  );
+  for (const n of summary.notices) {
+    const answer =
+      n.status === 'done' || n.status === 'not_applicable'
+        ? `${complianceStatusLabels[n.status].toLowerCase()} ${n.answeredAt ? when(n.answeredAt, opts.tz) : ''}${
+            n.answeredByName ? ` by ${n.answeredByName}` : ''
+          }: ${n.note ?? n.reason ?? ''}`
+        : complianceStatusLabels[n.status].toLowerCase();
+    line(
+      `Notice ${n.number} (${noticeLevelLabels[n.level].toLowerCase()}), ${n.title} · issued ${when(n.issuedAt, opts.tz)} · ${answer}`,
+      n.level === 'mandatory' && n.status !== 'done' && n.status !== 'not_applicable' ? C.caution : C.ink,
+    );
+  }
   y += 12;
   room(80);
 

@@ -6,6 +6,9 @@ import {
   memberPlaceLabels,
   memberPlaces,
   type MemberPlace,
+  noticeLevels,
+  noticeLevelLabels,
+  type NoticeLevel,
   expandKindFilter,
   findingKindLabels,
   findingLogKindOfAction,
@@ -31,6 +34,7 @@ import { hoursText } from '../../lib/hours-text';
 import { csvChainHead, csvHead, csvLines } from './build-log-csv';
 import { chainHead } from './log-chain-repository';
 import { listWorkPhotosOfEvents, readBuildHours } from '../travelers/work-repository';
+import { listBuildAnswers, listNoticePhotosOfEvents } from '../notices/notices-repository';
 import type { LogSummary, Thumbs } from './build-log-pdf';
 import { MAX_PDF_THREADS, reservePdfThread, startPdfThread, type PdfThread } from './build-log-pdf-thread';
 import {
@@ -238,6 +242,12 @@ export function describeBench(
         ...(typeof detail.note === 'string' && detail.note ? { note: detail.note } : {}),
       };
     }
+    case 'revision_changed': {
+      const from = typeof detail.fromLetter === 'string' ? ` from revision ${detail.fromLetter}` : '';
+      const to = typeof detail.toLetter === 'string' ? `revision ${detail.toLetter}` : 'the newest revision';
+      const holes = typeof detail.holes === 'number' ? ` (${plural(detail.holes, 'hole')} made again)` : '';
+      return { kind, text: `Moved the part${from} to ${to} before any work on it${holes}.` };
+    }
     case 'part_replaced': {
       const by = typeof detail.replacementSerial === 'string' ? detail.replacementSerial : 'a new part';
       const why = detail.reason === 'return_to_supplier' ? 'returned to the supplier' : 'scrapped';
@@ -283,13 +293,30 @@ export function describeFinding(
   }
 }
 
-const PEOPLE_KINDS = ['member_added', 'member_invited', 'member_joined', 'member_removed', 'owner_changed'] as const;
+/** The build's own events a kind filter reads: its people, and the notices it got and answered. */
+const BUILD_EVENT_KINDS = [
+  'member_added',
+  'member_invited',
+  'member_joined',
+  'member_removed',
+  'owner_changed',
+  'notice_received',
+  'notice_acknowledged',
+  'notice_answered',
+] as const;
 
-/** A change of the build's people as a sentence. */
+/** "notice 3, Check the nose rib flange" as the build's log names a notice. */
+function noticeName(detail: Record<string, unknown>): string {
+  const n = typeof detail.number === 'number' ? ` ${detail.number}` : '';
+  const title = typeof detail.title === 'string' ? `, “${detail.title}”` : '';
+  return `notice${n}${title}`;
+}
+
+/** A change of the build's people, or a notice it got or answered, as a sentence. */
 export function describeBuildEvent(
   kind: string,
   detail: Record<string, unknown>,
-): { kind: BuildLogKind; text: string } {
+): { kind: BuildLogKind; text: string; note?: string } {
   const name = typeof detail.name === 'string' ? detail.name : 'someone';
   const place =
     typeof detail.place === 'string' && (memberPlaces as readonly string[]).includes(detail.place)
@@ -317,6 +344,33 @@ export function describeBuildEvent(
             ? `Changed the build's note to: ${detail.to}`
             : "Cleared the build's note.",
       };
+    case 'notice_received': {
+      const level =
+        typeof detail.level === 'string' && (noticeLevels as readonly string[]).includes(detail.level)
+          ? noticeLevelLabels[detail.level as NoticeLevel].toLowerCase()
+          : 'a';
+      const parts =
+        typeof detail.parts === 'number' && detail.parts > 0
+          ? ` It reaches ${plural(detail.parts, 'part')} of this build.`
+          : '';
+      return { kind, text: `The supplier issued ${noticeName(detail)} (${level}).${parts}` };
+    }
+    case 'notice_acknowledged':
+      return { kind, text: `Acknowledged ${noticeName(detail)}.` };
+    case 'notice_answered': {
+      const photos =
+        typeof detail.photos === 'number' && detail.photos > 0 ? `, with ${plural(detail.photos, 'photo')}` : '';
+      const words =
+        typeof detail.note === 'string' ? detail.note : typeof detail.reason === 'string' ? detail.reason : '';
+      return {
+        kind,
+        text:
+          detail.outcome === 'not_applicable'
+            ? `Recorded that ${noticeName(detail)} does not apply to this build.`
+            : `Recorded ${noticeName(detail)} as done${photos}.`,
+        ...(words ? { note: words } : {}),
+      };
+    }
     case 'owner_changed':
       return {
         kind,
@@ -359,7 +413,7 @@ function windowOf(buildId: string, q: BuildLogQuery): LogWindow {
       : null,
     otherBench: kinds ? kinds.includes('other') : true,
     findingKinds: kinds ? kinds.filter((k): k is FindingLogKind => k.startsWith('finding_')) : null,
-    buildKinds: kinds ? kinds.filter((k) => (PEOPLE_KINDS as readonly string[]).includes(k)) : null,
+    buildKinds: kinds ? kinds.filter((k) => (BUILD_EVENT_KINDS as readonly string[]).includes(k)) : null,
   };
 }
 
@@ -457,9 +511,14 @@ export const buildLogService = ({ db, signer, storage, config }: Deps) => {
     const workEvents = withPhotos
       ? rows.flatMap((r) => (r.src === 't' && r.row.kind === 'photos_added' ? [r.row.id] : []))
       : [];
-    const [photos, work] = await Promise.all([
+    // The build's own events are of a build the reader sees (open() checked it): its answers' photos come with them.
+    const answerEvents = withPhotos
+      ? rows.flatMap((r) => (r.src === 'b' && r.row.kind === 'notice_answered' ? [r.row.id] : []))
+      : [];
+    const [photos, work, answers] = await Promise.all([
       listLogPhotos(db, user, buildId, photoFindings),
       listWorkPhotosOfEvents(db, user, workEvents),
+      listNoticePhotosOfEvents(db, answerEvents),
     ]);
     const signed = (ps: readonly { id: string }[]) =>
       ps.map((p) => ({
@@ -471,6 +530,7 @@ export const buildLogService = ({ db, signer, storage, config }: Deps) => {
       if (raw.src === 'b') {
         const r = raw.row;
         const d = describeBuildEvent(r.kind, r.detail ?? {});
+        const mine = answers.filter((p) => p.eventId === r.id);
         return {
           id: `b:${r.id}`,
           ...timesOf(r),
@@ -483,6 +543,8 @@ export const buildLogService = ({ db, signer, storage, config }: Deps) => {
           kind: d.kind,
           group: groupOfKind(d.kind),
           text: d.text,
+          ...(d.note ? { note: d.note } : {}),
+          ...(mine.length ? { photos: signed(mine) } : {}),
         };
       }
       const r = raw.row;
@@ -537,7 +599,7 @@ export const buildLogService = ({ db, signer, storage, config }: Deps) => {
       },
       50,
     );
-    return { entries, photos: [...photos, ...work] };
+    return { entries, photos: [...photos, ...work, ...answers] };
   }
 
   /**
@@ -654,13 +716,14 @@ export const buildLogService = ({ db, signer, storage, config }: Deps) => {
     },
   };
 
-  /** The printed log's summary: hours by who, the fabrication table, parts signed off, findings and their closing. */
+  /** The printed log's summary: hours by who, the fabrication table, parts signed off, findings and their closing, notices and their answers. */
   async function summaryOf(user: Express.User, buildId: string): Promise<LogSummary> {
-    const [hours, steps, parts, found] = await Promise.all([
+    const [hours, steps, parts, found, answered] = await Promise.all([
       readBuildHours(db, user, buildId),
       listFabricationSteps(db, user, buildId),
       listSummaryParts(db, user, buildId),
       listSummaryFindings(db, user, buildId),
+      listBuildAnswers(db, user, buildId),
     ]);
     return {
       hours,
@@ -668,6 +731,12 @@ export const buildLogService = ({ db, signer, storage, config }: Deps) => {
       parts: parts.map((p) => ({ ...p, signedOffAt: p.signedOffAt?.toISOString() ?? null })),
       findings: found.rows.map((f) => ({ ...f, raisedAt: f.raisedAt.toISOString() })),
       findingsTotal: found.total,
+      notices: answered.rows.map((n) => ({
+        ...n,
+        issuedAt: n.issuedAt.toISOString(),
+        answeredAt: n.answeredAt?.toISOString() ?? null,
+      })),
+      noticesTotal: answered.total,
     };
   }
 

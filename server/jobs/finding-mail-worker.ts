@@ -12,6 +12,7 @@ import type { Mailer } from '../mail/transport';
 import type { PhotoStorage } from '../storage/photo-storage';
 import { findTravelerParts } from '../travelers/travelers-repository';
 import type { MailJob } from './mail-queue';
+import { noticeMailWorker } from './notice-mail-worker';
 
 /**
  * Sends the mail for one finding event to everyone who must act on it (the rules module says who).
@@ -19,9 +20,11 @@ import type { MailJob } from './mail-queue';
  */
 export function findingMailWorker(deps: { db: Db; mailer: Mailer; storage: PhotoStorage; publicUrl: string }) {
   const { db, mailer, storage, publicUrl } = deps;
+  const notice = noticeMailWorker({ db, mailer, publicUrl });
   return async (job: MailJob) => {
-    // An account mail goes to its one person as written.
+    // An account mail goes to its one person as written; a notice's to each person it reached.
     if ('message' in job) return mailer.send(job.message);
+    if ('noticeId' in job) return notice(job);
     const { eventId } = job;
     const row = await findEventForMail(db, eventId);
     if (!row) return; // the finding was deleted since: nothing left to tell anyone

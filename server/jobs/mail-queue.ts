@@ -8,7 +8,9 @@ const DEAD_QUEUE = 'finding-mail-dead';
 export type FindingMailJob = { eventId: string };
 /** An account mail to one person (an invitation, a password reset), written when it was asked for. */
 export type MessageMailJob = { message: { to: string; subject: string; text: string; html: string } };
-export type MailJob = FindingMailJob | MessageMailJob;
+/** The mail of one notice to one person on the builds it reached (their builds worked out when sent). */
+export type NoticeMailJob = { noticeId: string; userId: string };
+export type MailJob = FindingMailJob | MessageMailJob | NoticeMailJob;
 
 export type MailQueue = {
   /** Enqueue inside the caller's transaction: the job exists if and only if what it tells of does. */

@@ -2,13 +2,14 @@ import type { Logger } from 'pino';
 import type { Db } from '../../db';
 import { photoKeysInUse } from '../findings/findings-repository';
 import { workPhotoKeysInUse } from '../travelers/work-repository';
+import { noticeKeysInUse } from '../notices/notices-repository';
 import type { PhotoStorage } from '../storage/photo-storage';
 
 /**
  * Removes photo files that no finding_photos row points to. A finding writes its files before the
  * transaction that records them; a crash or a rollback in between (or a deleted row) leaves files
  * behind forever. The grace period keeps files whose transaction may still be running.
- * finding_photos and work_photos keep storage keys: a new table that does must be asked here too.
+ * finding_photos, work_photos, notice_files and notice_photos keep storage keys: a new table that does must be asked here too.
  */
 export async function sweepOrphanPhotos(deps: {
   db: Db;
@@ -24,8 +25,12 @@ export async function sweepOrphanPhotos(deps: {
     examined += page.length;
     const old = page.filter((f) => f.modifiedAt.getTime() < cutoff).map((f) => f.key);
     if (old.length === 0) continue;
-    const [findingKeys, workKeys] = await Promise.all([photoKeysInUse(deps.db, old), workPhotoKeysInUse(deps.db, old)]);
-    const used = new Set([...findingKeys, ...workKeys]);
+    const kept = await Promise.all([
+      photoKeysInUse(deps.db, old),
+      workPhotoKeysInUse(deps.db, old),
+      noticeKeysInUse(deps.db, old),
+    ]);
+    const used = new Set(kept.flatMap((keys) => [...keys]));
     for (const key of old) {
       if (used.has(key)) continue;
       await deps.storage.remove(key);

@@ -23,7 +23,13 @@ export type ReceivedMail = {
   parts: ReceivedPart[];
   receivedAt: string;
 };
-export type SmtpFake = { port: number; messages: ReceivedMail[]; close: () => Promise<void> };
+export type SmtpFake = {
+  port: number;
+  messages: ReceivedMail[];
+  /** The next `n` messages are refused with a temporary failure (451), as a relay that is busy or down refuses them. */
+  refuseNext: (n: number) => void;
+  close: () => Promise<void>;
+};
 
 /**
  * A real SMTP server on loopback that keeps what it receives, for development and tests: the product
@@ -31,6 +37,7 @@ export type SmtpFake = { port: number; messages: ReceivedMail[]; close: () => Pr
  */
 export async function startSmtpFake(port: number, host = '127.0.0.1'): Promise<SmtpFake> {
   const messages: ReceivedMail[] = [];
+  let refusing = 0;
   const server = new SMTPServer({
     disabledCommands: ['STARTTLS'],
     authOptional: true,
@@ -40,6 +47,10 @@ export async function startSmtpFake(port: number, host = '127.0.0.1'): Promise<S
       // mail as carrying its photo inline when it does not.
       simpleParser(stream, { keepCidLinks: true }).then(
         (mail) => {
+          if (refusing > 0) {
+            refusing--;
+            return callback(Object.assign(new Error('try again later'), { responseCode: 451 }));
+          }
           const to = session.envelope.rcptTo.map((r) => r.address);
           messages.push({
             id: messages.length + 1,
@@ -73,6 +84,9 @@ export async function startSmtpFake(port: number, host = '127.0.0.1'): Promise<S
   return {
     port: typeof address === 'object' && address ? address.port : port,
     messages,
+    refuseNext: (n) => {
+      refusing = Math.max(0, Math.min(n, 100));
+    },
     close: () => new Promise<void>((resolve) => server.close(() => resolve())),
   };
 }

@@ -18,7 +18,11 @@ export function photosRouter(ctx: AppContext): Router {
     if (variant !== 'full' && variant !== 'thumb') throw notFound('photo');
     const q = photoQuery.safeParse(req.query);
     const bytes = await photos.read(id, variant, q.success ? q.data : null);
-    res.set('Cache-Control', 'private, max-age=300').type('image/jpeg').send(bytes);
+    res.set('Cache-Control', 'private, max-age=300');
+    // A notice's PDF is stored as sent: it downloads, never opens inside our own origin.
+    if (bytes.subarray(0, 5).toString('latin1') === '%PDF-')
+      res.type('application/pdf').attachment('notice.pdf').send(bytes);
+    else res.type('image/jpeg').send(bytes);
   });
   return r;
 }

@@ -4,6 +4,7 @@ import { findPhotoRow, listFindingRows } from '../findings/findings-repository';
 import { forbidden, notFound } from '../http-error';
 import { listTravelers } from '../travelers/travelers-repository';
 import { findWorkPhotoRow } from '../travelers/work-repository';
+import { findNoticeFileRow, noticeVisibleTo } from '../notices/notices-repository';
 
 type Deps = Pick<AppContext, 'db' | 'storage' | 'signer'>;
 /** A signed photo link as the request carries it: whose it is, until when, and its signature. */
@@ -28,7 +29,15 @@ export const photosService = ({ db, storage, signer }: Deps) => ({
     }
     // A photo of the work: the reader must still see its part.
     const work = await findWorkPhotoRow(db, id);
-    if (!work) throw notFound('photo');
+    if (!work) {
+      // A notice's file (a photo or a PDF) or a photo of a build's answer: the reader must still see the notice and that build.
+      const file = await findNoticeFileRow(db, id);
+      const key = file && (variant === 'full' ? file.fileKey : file.thumbKey);
+      if (!file || !key) throw notFound('photo');
+      if (!(await noticeVisibleTo(db, viewer, file.noticeId, file.buildId)))
+        throw forbidden('this photo link is no longer valid');
+      return storage.get(key);
+    }
     const [part] = await listTravelers(db, viewer, { id: work.travelerId });
     if (!part) throw forbidden('this photo link is no longer valid');
     return storage.get(variant === 'full' ? work.fileKey : work.thumbKey);

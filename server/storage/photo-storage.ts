@@ -15,7 +15,7 @@ export type PhotoStorage = {
 };
 
 /** Every key we make: a random UUID and the file type. Anything else is not ours to read or remove. */
-export const KEY = /^[0-9a-f-]{36}\.(jpg|webp)$/;
+export const KEY = /^[0-9a-f-]{36}\.(jpg|webp|pdf)$/;
 
 export function localPhotoStorage(dir: string): PhotoStorage {
   const fileOf = (key: string) => {

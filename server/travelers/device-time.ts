@@ -1,4 +1,5 @@
 import type { DeviceTime } from '../../db/contracts';
+import { badRequest } from '../http-error';
 
 /** The largest clock offset kept (the column is a 32-bit integer of milliseconds: about 24 days). */
 const MAX_OFFSET_MS = 2 ** 31 - 1;
@@ -32,4 +33,11 @@ export function benchTime(input: DeviceTime, arrival: Date): BenchTime | BenchTi
     return { field: 'doneAt', message: 'doneAt is in the future: check the device’s date and time' };
   }
   return { doneAt: done, clockOffsetMs };
+}
+
+/** The device's time of an action, read against the moment it arrived; a faulty one is a 400 naming the field. */
+export function benchTimeOf(input: DeviceTime, arrival = new Date()): BenchTime {
+  const when = benchTime(input, arrival);
+  if ('message' in when) throw badRequest(when.message, { [when.field]: when.message });
+  return when;
 }

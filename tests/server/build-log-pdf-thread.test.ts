@@ -33,6 +33,8 @@ const head = {
     parts: [],
     findings: [],
     findingsTotal: 0,
+    notices: [],
+    noticesTotal: 0,
   },
 };
 const opts = {
