@@ -1,5 +1,5 @@
 import { StyleSheet, View } from 'react-native';
-import { stepKindLabels, stepPerformerLabels, stepPerformers, type StepPerformer } from '@/db/contracts';
+import { helpWords, stepKindLabels, stepPerformerLabels, stepPerformers, type StepPerformer } from '@/db/contracts';
 import { colors, hairline, space, touch } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
 import { Choice } from '@/components/ui/choice';
@@ -51,10 +51,8 @@ const when = (iso: string) => new Date(iso).toLocaleString();
 function stepFacts(s: TravelerStep): string[] {
   const out: string[] = [stepKindLabels[s.kind]];
   if (s.doneAt) {
-    const help =
-      s.by && s.by !== 'builder'
-        ? `; work by ${stepPerformerLabels[s.by].toLowerCase()}${s.byName ? `, ${s.byName}` : ''}`
-        : '';
+    const by = helpWords(s.by, s.byName);
+    const help = by ? `; work by ${by}` : '';
     out.push(`Done${s.doneByName ? ` by ${s.doneByName}` : ''}${help} · ${when(s.doneAt)}`);
   }
   if (s.inspectionPoint) {

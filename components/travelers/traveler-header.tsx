@@ -1,10 +1,15 @@
+import { useState } from 'react';
 import { Platform, StyleSheet, View, type ViewStyle } from 'react-native';
 import { partKindLabels, type TravelerDetail } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
+import { Button } from '@/components/ui/button';
 import { Caution } from '@/components/ui/caution';
+import { ConfirmStep } from '@/components/designs/confirm-step';
 import { Notice } from '@/components/ui/states';
 import { Label, Mono, Txt } from '@/components/ui/text';
 import { useUnits } from '@/hooks/use-units';
+import { useTravelerMoveRevisionMutation } from '@/hooks/queries/travelers';
+import { errorMessage } from '@/lib/api-client';
 
 function Cell({ label, children, testID }: { label: string; children: React.ReactNode; testID?: string }) {
   return (
@@ -67,14 +72,58 @@ export function TravelerHeader({ t }: { t: TravelerDetail }) {
           : `Revision ${t.letter}: approver not recorded.`}{' '}
         Build {t.kitSerial}.
       </Txt>
-      {t.newerRevision ? (
-        <Notice tone="caution" testID="newer-revision">
-          <Txt bold>Revision {t.newerRevision} of this part is out.</Txt>
-          <Txt>This traveler follows revision {t.letter}. Ask the supplier before you go on with this part.</Txt>
-        </Notice>
-      ) : null}
+      {t.newerRevision ? <NewerRevision t={t} newer={t.newerRevision} /> : null}
       <Caution />
     </View>
+  );
+}
+
+/**
+ * A newer revision of the part is out. Before work starts the reader may be offered the move to it (the
+ * server's `revisionMove`); once work is recorded, the part stays as built and the supplier's notices say
+ * what to do about the change.
+ */
+function NewerRevision({ t, newer }: { t: TravelerDetail; newer: string }) {
+  const move = useTravelerMoveRevisionMutation(t.id);
+  const [confirming, setConfirming] = useState(false);
+  return (
+    <Notice tone="caution" testID="newer-revision">
+      <Txt bold>Revision {newer} of this part is out.</Txt>
+      {t.revisionMove?.started ? (
+        <Txt>
+          This traveler follows revision {t.letter}, and work is recorded on it: it stays on revision {t.letter} and
+          follows the supplier&rsquo;s notices about the change.
+        </Txt>
+      ) : t.revisionMove?.allowed ? (
+        <Txt>
+          This traveler follows revision {t.letter}. No work is recorded on it yet: it can move to revision {newer}.
+        </Txt>
+      ) : (
+        <Txt>This traveler follows revision {t.letter}. Ask the supplier before you go on with this part.</Txt>
+      )}
+      {t.revisionMove?.allowed && !confirming ? (
+        <Button
+          label={`Move to revision ${newer}`}
+          variant="secondary"
+          onPress={() => {
+            move.reset();
+            setConfirming(true);
+          }}
+          testID="move-to-revision"
+        />
+      ) : null}
+      {t.revisionMove?.allowed && confirming ? (
+        <ConfirmStep
+          message={`The part's holes and steps are made again from revision ${newer}, as a new part's would be, and the build log says so. It cannot be moved back to revision ${t.letter}.`}
+          confirmLabel={`Move to revision ${newer}`}
+          busy={move.isPending}
+          error={move.error ? errorMessage(move.error) : null}
+          onConfirm={() => move.mutate(undefined, { onSuccess: () => setConfirming(false) })}
+          onCancel={() => setConfirming(false)}
+          testID="move-to-revision-confirm"
+        />
+      ) : null}
+    </Notice>
   );
 }
 

@@ -3,7 +3,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { View } from 'react-native';
 import { z } from 'zod';
-import { stepPerformerLabels, type PartWork, type WorkSession } from '@/db/contracts';
+import { helpWords, whoWithHelp, type PartWork, type WorkSession } from '@/db/contracts';
 import { space } from '@/constants/theme';
 import { FormError } from '@/components/forms/form-error';
 import { FormTextField } from '@/components/forms/form-fields';
@@ -31,8 +31,10 @@ const hoursForm = z.object({
 });
 type HoursValues = z.infer<typeof hoursForm>;
 
-const helpOf = (s: Pick<WorkSession, 'by' | 'byName'>) =>
-  s.by === 'builder' ? '' : ` · ${stepPerformerLabels[s.by]}${s.byName ? `: ${s.byName}` : ''}`;
+const helpOf = (s: Pick<WorkSession, 'by' | 'byName'>) => {
+  const help = helpWords(s.by, s.byName);
+  return help ? ` · work of ${help}` : '';
+};
 
 function sessionLine(s: WorkSession): string {
   const from = zonedDateTime(s.startedAt);
@@ -97,7 +99,7 @@ export function WorkSection({
         <Txt testID="work-total">
           <Mono bold>{hoursText(work?.totalHours ?? 0)}</Mono> on this part
           {work?.byWho.length
-            ? `: ${work.byWho.map((w) => `${w.who}${w.by === 'builder' ? '' : ` (${stepPerformerLabels[w.by].toLowerCase()})`} ${hoursText(w.hours)}`).join(', ')}`
+            ? `: ${work.byWho.map((w) => `${whoWithHelp(w.who, w.by)} ${hoursText(w.hours)}`).join(', ')}`
             : ''}
         </Txt>
         {canWork ? (

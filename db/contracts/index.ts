@@ -14,3 +14,4 @@ export * from './log-chain';
 export * from './fabrication';
 export * from './work-sessions';
 export * from './notices';
+export * from './credit-words';

@@ -5,11 +5,14 @@ import { pageQuery, plainText } from './common';
 import { deviceTime } from './build-log';
 import type { PartWork } from './work-sessions';
 import {
+  buildPlaceLabels,
   NOTE_MIN_LENGTH,
   type BuildPlace,
   type PartAction,
+  type PartFacts,
   type Readiness,
   type ReplacementReason,
+  type StepFact,
 } from './findings-rules';
 
 export const holeStatuses = ['pending', 'installed', 'flagged', 'held', 'reworked', 'accepted'] as const;
@@ -57,6 +60,89 @@ export const withdrawSignOffInput = z.object({
   reason: plainText('the reason', NOTE_MIN_LENGTH, 1000, 'say in a few words why the sign-off is withdrawn'),
 });
 export type WithdrawSignOffInput = z.input<typeof withdrawSignOffInput>;
+
+// ---- Moving an unstarted part to the newest revision ----
+
+/** POST /api/travelers/:id/revision: no body needed; the device's time of the move when it sends one. */
+export const moveRevisionInput = deviceTime;
+export type MoveRevisionInput = z.input<typeof moveRevisionInput>;
+
+/** Everything recorded on a part, as the rule below reads it: holes and steps as they stand, and counts. */
+export type PartRecord = Pick<PartFacts, 'holes' | 'signedOff' | 'replaced'> & {
+  steps: readonly Pick<StepFact, 'done' | 'stamped'>[];
+  /** Findings raised on the part, open or closed. */
+  findings: number;
+  workSessions: number;
+  workPhotos: number;
+};
+
+const counted = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
+
+/**
+ * What is recorded on the part, in words; none means work has not started on it. The one definition
+ * of a started part: a hole other than pending, a step done or stamped, any finding, a work session or
+ * photo, a sign-off, a replacement. Such a part is the record of work done to its revision.
+ */
+export function workRecorded(r: PartRecord): string[] {
+  const holes = Object.entries(r.holes)
+    .filter(([s]) => s !== 'pending')
+    .reduce((n, [, c]) => n + (c ?? 0), 0);
+  const steps = r.steps.filter((s) => s.done || s.stamped).length;
+  return [
+    holes ? `${counted(holes, 'hole')} worked` : '',
+    steps ? `${counted(steps, 'step')} done` : '',
+    r.findings ? counted(r.findings, 'finding') : '',
+    r.workSessions ? counted(r.workSessions, 'work session') : '',
+    r.workPhotos ? counted(r.workPhotos, 'work photo') : '',
+    r.signedOff ? 'its sign-off' : '',
+    r.replaced ? 'its replacement' : '',
+  ].filter(Boolean);
+}
+
+/** Who moves a part to a newer revision: its builders, and the supplier who shipped it (design authority). */
+const revisionMovers: readonly BuildPlace[] = ['builder', 'design_authority'];
+
+/**
+ * Whether the reader may move the part to its design's newest published revision now; null when they
+ * may, else the server's words for 403/409. Only an unstarted part moves: its holes and steps are made
+ * again from the new revision. A started part keeps its revision, and the supplier's notice says what to
+ * do about the change.
+ */
+export function checkRevisionMove(
+  place: BuildPlace,
+  record: PartRecord,
+  revisions: { letter: string; newerLetter: string | null },
+): { code: 403 | 409; message: string } | null {
+  if (!revisionMovers.includes(place))
+    return {
+      code: 403,
+      message: `only ${buildPlaceLabels.builder} or ${buildPlaceLabels.design_authority} moves a part to a newer revision`,
+    };
+  if (!revisions.newerLetter)
+    return { code: 409, message: `this part already follows the newest revision ${revisions.letter}` };
+  const recorded = workRecorded(record);
+  if (recorded.length)
+    return {
+      code: 409,
+      message: `work is recorded on this part (${recorded.join(', ')}): it stays on revision ${revisions.letter}, and a started part follows the supplier's notice for revision ${revisions.newerLetter} instead`,
+    };
+  return null;
+}
+
+/** What the part's page says of a newer revision: whether the reader may move the part, and whether it has started. */
+export type RevisionMove = { allowed: boolean; started: boolean };
+
+export function revisionMoveOf(
+  place: BuildPlace,
+  record: PartRecord,
+  revisions: { letter: string; newerLetter: string | null },
+): RevisionMove | null {
+  if (!revisions.newerLetter) return null;
+  return {
+    allowed: checkRevisionMove(place, record, revisions) === null,
+    started: workRecorded(record).length > 0,
+  };
+}
 
 export const lookupInput = z.object({
   code: z.string().trim().min(4, 'enter the code from the label').max(200),
@@ -146,6 +232,12 @@ export type TravelerDetail = TravelerSummary & {
   labelAllowed?: boolean;
   /** Time worked on the part (optional: a detail kept on the device from before hours were kept lacks it). */
   work?: PartWork;
+  /**
+   * When a newer revision is out (`newerRevision`): whether the reader may move the part to it now, and
+   * whether work is recorded on it (then it follows the supplier's notices). Null on the newest revision;
+   * optional: a detail kept on the device from before parts could move lacks it, and then no button shows.
+   */
+  revisionMove?: RevisionMove | null;
 };
 
 // ---- QR labels ----

@@ -18,6 +18,7 @@ import {
   tickHolesInput,
   type Hole,
   type LabelsQuery,
+  type MoveRevisionInput,
   type PartLabel,
   type StepInput,
   type TickHolesInput,
@@ -378,6 +379,20 @@ export function useTravelerWithdrawSignOffMutation(travelerId: string) {
   return usePartChange(travelerId, (input: WithdrawSignOffInput) =>
     api.post<TravelerDetail>(`${signOffPath(travelerId)}/withdraw`, input),
   );
+}
+
+/**
+ * Moves a part on which no work is recorded to its design's newest revision (its holes and steps are
+ * made again); the answer is the part as it now stands, and its lists are asked again.
+ */
+export function useTravelerMoveRevisionMutation(travelerId: string) {
+  return usePartChange(travelerId, () => {
+    const now = new Date().toISOString();
+    return api.post<TravelerDetail>(`/api/travelers/${encodeURIComponent(travelerId)}/revision`, {
+      doneAt: now,
+      sentAt: now,
+    } satisfies MoveRevisionInput);
+  });
 }
 
 const workPath = (travelerId: string, what: 'start' | 'stop' | 'hours') =>

@@ -15,7 +15,7 @@ import {
   findingClosureLabels,
   findingKindLabels,
   findingStatusLabels,
-  stepPerformerLabels,
+  whoWithHelp,
   type BuildLogEntry,
   type BuildSummary,
   type FabricationCounts,
@@ -396,8 +396,7 @@ export function startLogPdf(out: Writable, head: PdfHead, opts: PdfOptions): Log
   heading('Hours worked');
   const totalHours = summary.hours.reduce((n, h) => n + h.hours, 0);
   if (!summary.hours.length) line('No hours recorded.', C.soft);
-  for (const h of summary.hours)
-    line(`${h.who}${h.by === 'builder' ? '' : ` (${stepPerformerLabels[h.by].toLowerCase()})`}: ${hoursText(h.hours)}`);
+  for (const h of summary.hours) line(`${whoWithHelp(h.who, h.by)}: ${hoursText(h.hours)}`);
   if (summary.hours.length) line(`In all: ${hoursText(totalHours)}`, C.ink);
   y += 6;
 

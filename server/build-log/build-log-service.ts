@@ -15,7 +15,7 @@ import {
   groupOfKind,
   fabricationTable,
   logEntryMatches,
-  stepPerformerLabels,
+  helpWords,
   stepPerformers,
   type StepPerformer,
   type BuildLogEntry,
@@ -167,9 +167,9 @@ function holesOf(detail: Record<string, unknown>): string[] {
 /** Who did a step's work when it was not the builder who recorded it: " by a helper, Sam Ortiz". */
 function performedBy(detail: Record<string, unknown>): string {
   const by = detail.by;
-  if (typeof by !== 'string' || by === 'builder' || !(stepPerformers as readonly string[]).includes(by)) return '';
-  const name = typeof detail.byName === 'string' && detail.byName ? `, ${detail.byName}` : '';
-  return ` by ${stepPerformerLabels[by as StepPerformer].toLowerCase()}${name}`;
+  if (typeof by !== 'string' || !(stepPerformers as readonly string[]).includes(by)) return '';
+  const help = helpWords(by as StepPerformer, typeof detail.byName === 'string' ? detail.byName : null);
+  return help ? ` by ${help}` : '';
 }
 
 /** A bench event as a sentence. The detail is free JSON written by the travelers service. */

@@ -1,6 +1,13 @@
 import { and, asc, desc, eq, inArray, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
-import type { ComplianceCounts, ComplianceStatus, MemberPlace, PageQuery } from '../../db/contracts';
+import {
+  workRecorded,
+  type ComplianceCounts,
+  type ComplianceStatus,
+  type MemberPlace,
+  type PageQuery,
+  type PartRecord,
+} from '../../db/contracts';
 import {
   buildEvents,
   buildMembers,
@@ -18,6 +25,7 @@ import {
 } from '../../db/schema';
 import { visibleBuilds } from '../builds/build-access';
 import { afterKey, decodeCursor, pageOf } from '../pagination';
+import { recordedColumn } from '../travelers/travelers-repository';
 
 /**
  * The one rule of who sees a notice, as a condition on `notices`: its supplier, an admin, and the people
@@ -77,12 +85,11 @@ export async function insertNoticeFiles(tx: Db, values: (typeof noticeFiles.$inf
   if (values.length) await tx.insert(noticeFiles).values(values);
 }
 
-/** Whether work is recorded on the row's part: what "built or being built" means to a notice. */
-const partStarted = sql<boolean>`(${travelers.signedOffAt} is not null
-  or exists (select 1 from holes h where h.traveler_id = ${travelers.id} and h.status <> 'pending')
-  or exists (select 1 from traveler_steps s where s.traveler_id = ${travelers.id} and (s.done_at is not null or s.stamped_at is not null))
-  or exists (select 1 from findings f where f.traveler_id = ${travelers.id})
-  or exists (select 1 from work_sessions w where w.traveler_id = ${travelers.id}))`;
+/** The row's part's holes counted by status and its steps' state: with `recordedColumn`, its PartRecord. */
+const holeCounts = sql<PartRecord['holes']>`(select coalesce(json_object_agg(x.status, x.n), '{}'::json)
+  from (select h.status, count(*)::int as n from holes h where h.traveler_id = ${travelers.id} group by h.status) x)`;
+const stepStates = sql<PartRecord['steps']>`(select coalesce(json_agg(json_build_object('done', s.done_at is not null,
+  'stamped', s.stamped_at is not null)), '[]'::json) from traveler_steps s where s.traveler_id = ${travelers.id})`;
 
 /**
  * Every build of the supplier's kit model with its live parts (a replaced part's replacement carries on),
@@ -97,7 +104,10 @@ export async function listBuildsForNotice(tx: Db, organizationId: string, kitMod
       serial: travelers.serial,
       partDesignId: designRevisions.partDesignId,
       letter: designRevisions.letter,
-      started: partStarted,
+      holes: holeCounts,
+      steps: stepStates,
+      signedOffAt: travelers.signedOffAt,
+      recorded: recordedColumn(travelers.id),
     })
     .from(builds)
     .leftJoin(travelers, and(eq(travelers.buildId, builds.id), sql`${travelers.replacedById} is null`))
@@ -115,8 +125,21 @@ export async function listBuildsForNotice(tx: Db, organizationId: string, kitMod
   for (const r of rows) {
     const b = byBuild.get(r.buildId) ?? { buildId: r.buildId, kitSerial: r.kitSerial, parts: [] };
     byBuild.set(r.buildId, b);
-    if (r.travelerId && r.partDesignId && r.letter)
-      b.parts.push({ travelerId: r.travelerId, partDesignId: r.partDesignId, letter: r.letter, started: !!r.started });
+    if (!r.travelerId || !r.partDesignId || !r.letter) continue;
+    // "Built or being built" is the one definition of a started part (workRecorded), as a move to a new revision reads it.
+    const record = {
+      holes: r.holes,
+      steps: r.steps,
+      signedOff: r.signedOffAt !== null,
+      replaced: false,
+      ...r.recorded,
+    };
+    b.parts.push({
+      travelerId: r.travelerId,
+      partDesignId: r.partDesignId,
+      letter: r.letter,
+      started: workRecorded(record).length > 0,
+    });
   }
   return [...byBuild.values()];
 }

@@ -1,5 +1,5 @@
-import { and, asc, count, eq, ilike, inArray, isNotNull, isNull, or, sql, type SQL } from 'drizzle-orm';
-import type { PgSelect } from 'drizzle-orm/pg-core';
+import { and, asc, count, eq, ilike, inArray, isNotNull, isNull, ne, or, sql, type SQL } from 'drizzle-orm';
+import { alias, type AnyPgColumn, type PgSelect } from 'drizzle-orm/pg-core';
 import type { Db } from '../../db';
 import {
   builds,
@@ -13,6 +13,8 @@ import {
   travelerSteps,
   travelers,
   users,
+  workPhotos,
+  workSessions,
 } from '../../db/schema';
 import {
   holesAwaitingInspectorStatuses,
@@ -22,6 +24,7 @@ import {
   type HoleStatus,
   stepCounts,
   type PartFacts,
+  type PartRecord,
   type StepFact,
   type StepPerformer,
   type TravelerStepDetail,
@@ -81,6 +84,19 @@ const openFindingsColumn = sql<number>`(select count(*)::int from ${findings} wh
 /** The published letter of the part when the row's revision is superseded. */
 const newerRevisionColumn = sql<string | null>`case when ${designRevisions.status} = 'superseded' then
   (select nr.letter from design_revisions nr where nr.part_design_id = ${partDesigns.id} and nr.status = 'published' limit 1) end`;
+
+/**
+ * Everything recorded on a part besides its holes and steps, counted by the database in one statement:
+ * findings (open or closed), work sessions and work photos. The part's page and a move both read it.
+ */
+export const recordedColumn = (travelerId: SQL | AnyPgColumn | string) => sql<{
+  findings: number;
+  workSessions: number;
+  workPhotos: number;
+}>`json_build_object(
+  'findings', (select count(*)::int from ${findings} where ${findings.travelerId} = ${travelerId}),
+  'workSessions', (select count(*)::int from ${workSessions} where ${workSessions.travelerId} = ${travelerId}),
+  'workPhotos', (select count(*)::int from ${workPhotos} where ${workPhotos.travelerId} = ${travelerId}))`;
 
 /**
  * Joins a part's build, revision and design to a query that already reads `travelers`: the path from a
@@ -227,6 +243,7 @@ function travelerPageQuery(db: Db, user: Viewer) {
         place: placeColumn(user),
         openFindings: openFindingsColumn,
         newerRevision: newerRevisionColumn,
+        recorded: recordedColumn(travelers.id),
         approvedByName: sql<string | null>`(select u.name from users u where u.id = ${designRevisions.publishedBy})`,
         signedOffByName: sql<string | null>`(select u.name from users u where u.id = ${travelers.signedOffBy})`,
         replacedBySerial: sql<string | null>`(select r.serial from travelers r where r.id = ${travelers.replacedById})`,
@@ -389,15 +406,24 @@ export async function insertTraveler(
       replacesId: t.replacesId ?? null,
     })
     .returning();
-  const minPitch = checkLayout(t.revision);
-  const placed = t.revision.lines.flatMap((line) => placeHoles(line, t.revision.edgeDistanceIn, minPitch));
+  await insertHolesAndSteps(tx, traveler.id, t.revision);
+  return traveler;
+}
+
+/**
+ * A part's holes placed from the revision's schedule and its steps, as every traveler gets them: a new
+ * part, and a part moved to a newer revision before work on it started. Returns how many holes.
+ */
+async function insertHolesAndSteps(tx: Db, travelerId: string, revision: typeof designRevisions.$inferSelect) {
+  const minPitch = checkLayout(revision);
+  const placed = revision.lines.flatMap((line) => placeHoles(line, revision.edgeDistanceIn, minPitch));
   for (let i = 0; i < placed.length; i += HOLE_BATCH) {
-    await tx.insert(holes).values(placed.slice(i, i + HOLE_BATCH).map((h) => ({ ...h, travelerId: traveler.id })));
+    await tx.insert(holes).values(placed.slice(i, i + HOLE_BATCH).map((h) => ({ ...h, travelerId })));
   }
-  if (t.revision.steps.length) {
+  if (revision.steps.length) {
     await tx.insert(travelerSteps).values(
-      t.revision.steps.map((s, i) => ({
-        travelerId: traveler.id,
+      revision.steps.map((s, i) => ({
+        travelerId,
         seq: i + 1,
         text: s.text,
         kind: s.kind,
@@ -405,7 +431,47 @@ export async function insertTraveler(
       })),
     );
   }
-  return traveler;
+  return placed.length;
+}
+
+/**
+ * Moves a part (locked, nothing recorded on it: the caller has checked) to another revision: its holes
+ * and steps are made again from that revision exactly as a new part's. Returns how many holes it has now.
+ */
+export async function remakeFromRevision(tx: Db, travelerId: string, revision: typeof designRevisions.$inferSelect) {
+  await tx.delete(holes).where(eq(holes.travelerId, travelerId));
+  await tx.delete(travelerSteps).where(eq(travelerSteps.travelerId, travelerId));
+  await tx.update(travelers).set({ revisionId: revision.id }).where(eq(travelers.id, travelerId));
+  return insertHolesAndSteps(tx, travelerId, revision);
+}
+
+/**
+ * The part's revision letter and its design's published revision when that is another (newer) one, in
+ * one statement: what a move to the newest revision reads, with the part locked.
+ */
+export async function readRevisionStanding(tx: Db, revisionId: string) {
+  const newest = alias(designRevisions, 'newest');
+  const [row] = await tx
+    .select({ letter: designRevisions.letter, newest })
+    .from(designRevisions)
+    .leftJoin(
+      newest,
+      and(
+        eq(newest.partDesignId, designRevisions.partDesignId),
+        eq(newest.status, 'published'),
+        ne(newest.id, designRevisions.id),
+      ),
+    )
+    .where(eq(designRevisions.id, revisionId));
+  return row;
+}
+
+/** What the revision-move rule reads of a locked part: its facts (readPartFacts) and what else is recorded. */
+export async function readPartRecord(tx: Db, t: typeof travelers.$inferSelect): Promise<PartRecord> {
+  const { holes, steps, signedOff, replaced } = await readPartFacts(tx, t);
+  const res = await tx.execute(sql`select ${recordedColumn(t.id)} as recorded`);
+  const { recorded } = res.rows[0] as { recorded: Omit<PartRecord, keyof PartFacts | 'steps'> };
+  return { holes, steps, signedOff, replaced, ...recorded };
 }
 
 /** The revision a replacement part is made to: the part's current published one, else the one it had. */

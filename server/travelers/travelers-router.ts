@@ -4,6 +4,7 @@ import {
   idParam,
   labelsQuery,
   lookupInput,
+  moveRevisionInput,
   stepInput,
   tickHolesInput,
   workHoursInput,
@@ -73,6 +74,9 @@ export function travelersRouter(ctx: AppContext): Router {
   });
   r.post('/:id/sign-off/withdraw', validateBody(withdrawSignOffInput), async (req, res) => {
     res.json(await service.withdrawSignOff(req.user!, idParam.parse(req.params).id, req.body.reason));
+  });
+  r.post('/:id/revision', validateBody(moveRevisionInput), async (req, res) => {
+    res.json(await service.moveToRevision(req.user!, idParam.parse(req.params).id, req.body));
   });
   return r;
 }

@@ -2,18 +2,21 @@ import QRCode from 'qrcode';
 import {
   allowedPartActions,
   checkPartAction,
+  checkRevisionMove,
   checkStepChange,
   holesAwaitingInspectorStatuses,
   holesDoneStatuses,
   MAX_SESSION_HOURS,
   mayPrintLabels,
+  revisionMoveOf,
   signOffReadiness,
   stepCounts,
   type HoleStatus,
   type LabelsQuery,
+  type MoveRevisionInput,
+  type PartRecord,
   type Page,
   type PartAction,
-  type DeviceTime,
   type PartFacts,
   type PartLabel,
   type StepChange,
@@ -38,7 +41,7 @@ import { badRequest, conflict, forbidden, HttpError, notFound } from '../http-er
 import { rivetOfCallout } from '../findings/oversize-options';
 import { isLoopbackUrl } from '../network/lan';
 import { parseTravelerCode } from './codes';
-import { benchTime, type BenchTime } from './device-time';
+import { benchTimeOf, type BenchTime } from './device-time';
 import { withStoredPhotos, type UploadedPhoto } from '../photos/uploads';
 import { endSession, findRunningSession, insertSession, insertWorkPhotos, readPartWork } from './work-repository';
 import { partOutline } from './part-outline';
@@ -53,7 +56,10 @@ import {
   lockTraveler,
   lockVisibleTraveler,
   readPartFacts,
+  readPartRecord,
+  readRevisionStanding,
   readTravelerPage,
+  remakeFromRevision,
   setHolesWithEvent,
   setStepDone,
   signOffTraveler,
@@ -130,6 +136,11 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
       replaced: traveler.replacedById !== null,
     };
     const counted = countHoles(holeRows);
+    const record: PartRecord = {
+      ...facts,
+      steps: stepRows.map((s) => ({ done: s.doneAt !== null, stamped: s.stampedAt !== null })),
+      ...row.recorded,
+    };
     return {
       id: traveler.id,
       serial: traveler.serial,
@@ -176,6 +187,7 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
         traveler.replacesId && row.replacesSerial ? { id: traveler.replacesId, serial: row.replacesSerial } : null,
       labelAllowed: mayPrintLabels(place, user.role === 'admin', 'part'),
       work,
+      revisionMove: revisionMoveOf(place, record, { letter: revision.letter, newerLetter: row.newerRevision }),
     };
   }
 
@@ -206,7 +218,7 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
     /** Ticks holes installed (or back to pending). Holes under a finding are the inspector's, not the bench's. */
     async tickHoles(user: Express.User, id: string, input: TickHolesInput) {
       const ids = [...new Set(input.holeIds)];
-      const when = deviceTimeOf(input);
+      const when = benchTimeOf(input);
       return underLock(
         user,
         id,
@@ -241,7 +253,7 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
      */
     async setStep(user: Express.User, id: string, stepId: string, input: StepChange) {
       const { done } = input;
-      const when = deviceTimeOf(input);
+      const when = benchTimeOf(input);
       await underLock(user, id, 'step', async (tx, _t, _unit, facts) => {
         stepRule(facts.steps, stepId, done ? 'done' : 'undone');
         const credit = creditFrom(input);
@@ -272,7 +284,7 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
 
     /** A work session on the part starts now (the device's time), the person's only running one on it. */
     async startWork(user: Express.User, id: string, input: WorkStartChange) {
-      const when = deviceTimeOf(input);
+      const when = benchTimeOf(input);
       await underLock(user, id, 'step', async (tx) => {
         const running = await findRunningSession(tx, id, user.id);
         if (running)
@@ -286,7 +298,7 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
 
     /** Ends the person's running session now, or after the hours given (a session the bench forgot to stop). */
     async stopWork(user: Express.User, id: string, input: WorkStopChange) {
-      const when = deviceTimeOf(input);
+      const when = benchTimeOf(input);
       await underLock(user, id, 'step', async (tx) => {
         const running = await findRunningSession(tx, id, user.id);
         if (!running) throw conflict('no session of yours is running on this part');
@@ -452,6 +464,40 @@ export const travelersService = (db: Db, pool: Pool, listFindings: FindingLister
       return detail(user, id);
     },
 
+    /**
+     * Moves a part on which no work is recorded to its design's newest published revision: its holes and
+     * steps are made again from that revision, as a new part's would be, and the log says so. Checked by
+     * the rules module on the locked part, so a racing move or a first tick either lands first or is
+     * refused here. A started part keeps its revision: the supplier's notice carries the change to it.
+     */
+    async moveToRevision(user: Express.User, id: string, input: MoveRevisionInput) {
+      const when = benchTimeOf(input);
+      await withTransaction(pool, async (unit) => {
+        const tx = unit.db;
+        const mine = await lockVisibleTraveler(tx, user, id);
+        if (!mine) throw notFound('traveler');
+        const t = mine.traveler;
+        const record = await readPartRecord(tx, t);
+        const standing = await readRevisionStanding(tx, t.revisionId);
+        const refusal = checkRevisionMove(mine.place, record, {
+          letter: standing.letter,
+          newerLetter: standing.newest?.letter ?? null,
+        });
+        if (refusal)
+          throw new HttpError(refusal.code, refusal.code === 403 ? 'forbidden' : 'conflict', refusal.message);
+        const to = standing.newest!;
+        const holeCount = await remakeFromRevision(tx, id, to);
+        await insertTravelerEvent(tx, {
+          travelerId: id,
+          actorId: user.id,
+          kind: 'revision_changed',
+          detail: { fromLetter: standing.letter, toLetter: to.letter, holes: holeCount },
+          ...when,
+        });
+      });
+      return detail(user, id);
+    },
+
     /** QR labels of a whole build (its supplier) or of one part (also its builder, to reprint a lost one). */
     async labels(user: Express.User, q: LabelsQuery): Promise<PartLabel[]> {
       const { publicUrl } = out();
@@ -533,13 +579,6 @@ async function addSession(
 function stepRule(steps: StepFact[], stepId: string, change: 'done' | 'undone' | 'stamp') {
   const refusal = checkStepChange(steps, stepId, change);
   if (refusal) throw conflict(refusal.message);
-}
-
-/** The device's time of a bench action, read against the moment it arrived; a faulty one is a 400 naming the field. */
-function deviceTimeOf(input: DeviceTime): BenchTime {
-  const when = benchTime(input, new Date());
-  if ('message' in when) throw badRequest(when.message, { [when.field]: when.message });
-  return when;
 }
 
 /** Holes done for good and holes waiting for the inspector, by the rules module's groupings. */
