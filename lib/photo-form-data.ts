@@ -13,10 +13,10 @@ export class PhotoReadError extends Error {
 }
 
 /**
- * On the web the picker gives blob: (or data:) URIs, which must be fetched into a Blob; React Native's
- * FormData takes { uri, name, type } directly.
+ * Picked files under one multipart field (`photos`, or a notice's `files`). On the web the picker gives
+ * blob: (or data:) URIs, which must be fetched into a Blob; React Native's FormData takes { uri, name, type } directly.
  */
-async function appendPhotos(form: FormData, photos: DraftPhoto[]): Promise<void> {
+export async function appendPhotos(form: FormData, photos: DraftPhoto[], field = 'photos'): Promise<void> {
   for (const p of photos) {
     if (Platform.OS === 'web') {
       let blob: Blob;
@@ -26,9 +26,9 @@ async function appendPhotos(form: FormData, photos: DraftPhoto[]): Promise<void>
       } catch {
         throw new PhotoReadError(p);
       }
-      form.append('photos', blob, p.name);
+      form.append(field, blob, p.name);
     } else {
-      form.append('photos', { uri: p.uri, name: p.name, type: p.type } as unknown as Blob);
+      form.append(field, { uri: p.uri, name: p.name, type: p.type } as unknown as Blob);
     }
   }
 }

@@ -20,6 +20,7 @@ import {
 } from '@/hooks/queries/build-log';
 import { pagedItems } from '@/hooks/queries/paged';
 import { useWide } from '@/hooks/use-wide';
+import { ChainCheck } from './chain-check';
 import { LogDayHeading, LogEntryRow } from './log-entry-row';
 import { countLine, filterEntries, isFiltered, logRows, noLogFilters, type LogFilters, type LogRow } from './log-view';
 import { PartPicker } from './part-picker';
@@ -115,6 +116,7 @@ export function BuildLogScreen({ buildId }: { buildId: string }) {
           <Notice tone="ok" testID="export-done">{`Saved ${exporter.data.name}.`}</Notice>
         ) : null}
       </View>
+      <ChainCheck buildId={buildId} />
       <Field label="Show">
         <Choice
           testIDPrefix="log-kind"

@@ -12,6 +12,7 @@ import { useBuildQuery } from '@/hooks/queries/builds';
 import { TwoPane } from '@/components/ui/two-pane';
 import { useSession } from '@/hooks/use-session';
 import { shortDate } from '@/components/findings/finding-row';
+import { BuildNoticesSection } from '@/components/notices/notices-section';
 import { BuildPeopleSection } from './build-people';
 import { BuildRecordSection } from './build-record';
 import { FabricationSection } from './fabrication-section';
@@ -62,6 +63,7 @@ export function BuildScreen({ buildId }: { buildId: string }) {
           testID="labels"
         />
       ) : null}
+      <BuildNoticesSection buildId={b.id} />
       <BuildRecordSection b={b} />
       <FabricationSection buildId={b.id} />
       <Section title={`Parts (${b.travelers.length})`}>

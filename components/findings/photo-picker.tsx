@@ -157,6 +157,7 @@ export function PhotoPicker({
   error,
   empty = 'No photo yet. A close, sharp photo of the hole helps the inspector most.',
   idPrefix = '',
+  max = maxPhotos,
 }: {
   photos: DraftPhoto[];
   onAdd: (from: 'library' | 'camera') => void;
@@ -168,6 +169,8 @@ export function PhotoPicker({
    * traveler's photos of the work) keeps both in the page, and their controls must stay apart.
    */
   idPrefix?: string;
+  /** The most photos the form it is in takes (a finding's by default). */
+  max?: number;
 }) {
   return (
     <View style={{ gap: space.sm }} testID={`${idPrefix}photos`}>
@@ -200,13 +203,13 @@ export function PhotoPicker({
             label={label}
             variant="secondary"
             onPress={() => onAdd(source)}
-            disabled={photos.length >= maxPhotos}
+            disabled={photos.length >= max}
             testID={`${idPrefix}${testID}`}
           />
         ))}
       </View>
       <Txt variant="small" tone="faint">
-        {photos.length}/{maxPhotos} photos. Location data is removed on the server.
+        {photos.length}/{max} photos. Location data is removed on the server.
       </Txt>
       {error ? (
         <Txt variant="small" tone="error" accessibilityRole="alert" testID={`${idPrefix}photos-error`}>

@@ -17,6 +17,7 @@ import { Section } from '@/components/ui/sheet';
 import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
 import { errorMessage } from '@/lib/api-client';
+import { KitNoticesSection } from '@/components/notices/notices-section';
 import { KitAirfoilField, KitCategoryField, KitCodeField, KitDesignDataFields } from './kit-form-screen';
 import { useKitDeleteMutation, useKitQuery, useKitUpdateMutation } from '@/hooks/queries/kits';
 
@@ -101,6 +102,8 @@ function KitBody({ kit }: { kit: KitModelDetail }) {
           </Txt>
         ) : null}
       </Section>
+      {/* The kit's own supplier (who may change it) is the one who issues its notices. */}
+      <KitNoticesSection kitId={kit.id} canIssue={kit.allowedActions.includes('edit')} />
       {kit.allowedActions.includes('edit') ? (
         <Section title="The kit">
           <KitCodeField control={kitControl} />

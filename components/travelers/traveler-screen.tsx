@@ -14,6 +14,7 @@ import { Button } from '@/components/ui/button';
 import { ProgressBar } from '@/components/ui/progress-bar';
 import { Screen } from '@/components/ui/screen';
 import { Section, Sheet } from '@/components/ui/sheet';
+import { NoticeBanner } from '@/components/notices/notices-section';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { HoleMark, holeStatusHelp, holeStatusLabels, HoleStatusLegend } from '@/components/ui/status-mark';
 import { Mono, Txt } from '@/components/ui/text';
@@ -157,6 +158,7 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
         </Notice>
       ) : null}
       <TravelerHeader t={t} />
+      <NoticeBanner travelerId={t.id} />
       {t.signedOff ? (
         // Focused when it appears: the sign-off button it replaces had focus.
         <Notice tone="ok" testID="signed-off" focusOnShow={signOff.isSuccess}>

@@ -22,8 +22,20 @@ export const LOG_CHECK_LIST_MAX = 50;
 /** Largest exported log a check takes, in megabytes (the upload is held in memory while it is read). */
 export const LOG_CHECK_FILE_MAX_MB = 20;
 
-/** The exported CSV's columns that the file check reads; the export writes them under these names. */
-export const logCsvColumns = { entry: 'Entry', entryHash: 'Entry hash' } as const;
+/** The exported CSV's columns that the file check (server and screen) reads; the export writes them under these names. */
+export const logCsvColumns = {
+  entry: 'Entry',
+  entryHash: 'Entry hash',
+  what: 'What happened',
+  dateDone: 'Date done',
+  timeDone: 'Time done',
+} as const;
+
+/** The export's closing row, in its "What happened" cell: the chain's head when the file was made. */
+export const chainHeadCell = (head: { seq: number; hash: string } | null) =>
+  head ? `Chain head at export: link ${head.seq}, ${head.hash}` : 'Chain head at export: no entries chained yet';
+/** The same cell read back: link and hash. */
+export const chainHeadPattern = /^Chain head at export: link (\d+), ([0-9a-f]{64})$/;
 
 /** A log entry's id: the source letter, a colon and the event's uuid. */
 export const logEntryIdPattern = /^[bft]:[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/;

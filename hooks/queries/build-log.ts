@@ -1,7 +1,7 @@
 import { keepPreviousData, useInfiniteQuery, useMutation } from '@tanstack/react-query';
 import { Platform } from 'react-native';
-import type { ApiErrorBody, BuildLogGroup, BuildLogPage } from '@/db/contracts';
-import { ApiError, networkMessage, qs, url } from '@/lib/api-client';
+import type { ApiErrorBody, BuildLogGroup, BuildLogPage, LogChainReport, LogFileCheck } from '@/db/contracts';
+import { api, ApiError, networkMessage, qs, url } from '@/lib/api-client';
 import { useSession } from '../use-session';
 import { pagedQueryOptions } from './paged';
 
@@ -124,6 +124,30 @@ export function useBuildLogExportMutation(buildId: string) {
       const name = fileNameFrom(res.headers.get('Content-Disposition'), `build-log.${format}`);
       saveInBrowser(await res.blob(), name);
       return { name };
+    },
+  });
+}
+
+/** A check's answer: the file's name, the server's comparison, and the chain's head as it is now (null when that read failed). */
+export type BuildLogCheck = { name: string; check: LogFileCheck; chain: LogChainReport | null };
+
+/**
+ * Sends an exported CSV (multipart field `file`) to be compared with the hash chain kept here, then reads
+ * the chain's head so the answer can say which link the log has reached. Web only, like the exports: the
+ * file is chosen from the computer.
+ */
+export function useBuildLogCheckMutation(buildId: string) {
+  return useMutation({
+    retry: false,
+    mutationFn: async ({ file, name }: { file: Blob; name: string }): Promise<BuildLogCheck> => {
+      if (Platform.OS !== 'web')
+        throw new Error('An exported log is checked from the web app: open Pitchcard in a browser to check a file.');
+      const form = new FormData();
+      form.append('file', file, name);
+      const check = await api.upload<LogFileCheck>(logPath(buildId, '/check'), form);
+      // The comparison stands on its own: a failed read of the head only leaves that line out.
+      const chain = await api.get<LogChainReport>(logPath(buildId, '/chain')).catch(() => null);
+      return { name, check, chain };
     },
   });
 }

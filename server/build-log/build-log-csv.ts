@@ -1,4 +1,4 @@
-import { buildLogKindLabels, logCsvColumns, type BuildLogEntry } from '../../db/contracts';
+import { buildLogKindLabels, chainHeadCell, logCsvColumns, type BuildLogEntry } from '../../db/contracts';
 import { timingNote } from '../../lib/log-timing';
 import { zonedDateTime } from '../../lib/zoned-time';
 
@@ -17,8 +17,8 @@ export function csvField(value: string | number | null | undefined): string {
 export const csvRow = (fields: readonly (string | number | null | undefined)[]) => fields.map(csvField).join(',');
 
 const HEADER = [
-  'Date done',
-  'Time done',
+  logCsvColumns.dateDone,
+  logCsvColumns.timeDone,
   'Time zone',
   'Done (UTC)',
   'Received (UTC)',
@@ -30,7 +30,7 @@ const HEADER = [
   'Part name',
   'Traveler serial',
   'Holes',
-  'What happened',
+  logCsvColumns.what,
   'Note',
   'Times',
   'Finding id',
@@ -80,8 +80,6 @@ export function csvLines(entries: readonly BuildLogEntry[], tz: string, publicUr
 /** The last row: the chain's head when the file was made, which a later check of the file starts from. */
 export function csvChainHead(head: { seq: number; hash: string } | null): string {
   const row: string[] = HEADER.map(() => '');
-  row[HEADER.indexOf('What happened')] = head
-    ? `Chain head at export: link ${head.seq}, ${head.hash}`
-    : 'Chain head at export: no entries chained yet';
+  row[HEADER.indexOf(logCsvColumns.what)] = chainHeadCell(head);
   return `${csvRow(row)}\r\n`;
 }

@@ -18,7 +18,8 @@ export function noticeMailWorker(deps: { db: Db; mailer: Mailer; publicUrl: stri
       to: facts.to,
       ...facts.notice,
       reached: facts.reached,
-      link: `${publicUrl}/notices/${noticeId}`,
+      // The people mailed are on the builds: the notice's page under their builds.
+      link: `${publicUrl}/builds/notices/${noticeId}`,
     });
     await mailer.send(message);
     await recordNoticeMail(db, { noticeId, userId, recipient: facts.to, subject: message.subject });

@@ -138,8 +138,10 @@ describe('the build log view', () => {
       'work_stopped',
       'hours_entered',
       'photos_added',
+      'revision_changed',
       'other',
     ]);
     expect(expandKindFilter(['findings', 'finding_raised'])).toHaveLength(6);
+    expect(expandKindFilter(['notices'])).toEqual(['notice_received', 'notice_acknowledged', 'notice_answered']);
   });
 });

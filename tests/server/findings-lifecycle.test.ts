@@ -1,5 +1,4 @@
 import request from 'supertest';
-import sharp from 'sharp';
 import { jpeg } from '../helpers/photos';
 import { DEMO_USERS } from '@/server/dev/seed';
 import { findingActions, type FindingAction } from '@/db/contracts';

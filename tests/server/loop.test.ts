@@ -1,5 +1,4 @@
 import request from 'supertest';
-import sharp from 'sharp';
 import { jpeg as greyJpeg } from '../helpers/photos';
 import { DEMO_USERS } from '@/server/dev/seed';
 import { flangeLine, ribRevision } from '../fixtures/rib-revision';

@@ -1,6 +1,5 @@
 import express from 'express';
 import request from 'supertest';
-import sharp from 'sharp';
 import { jpeg as greyJpeg } from '../helpers/photos';
 import { DEMO_USERS } from '@/server/dev/seed';
 import { devRouter } from '@/server/dev/dev-router';

@@ -172,7 +172,7 @@ describe('mail through the queue', () => {
     const mails = t.smtp.messages.slice(before).filter(subject);
     expect(mails.map((m) => m.to.join()).sort()).toEqual([DEMO_USERS.inspector.email, DEMO_USERS.builder.email].sort());
     expect(mails[0].subject).toContain('NK2-0150, NK2-0160');
-    expect(mails[0].text).toContain(`/notices/${res.body.id}`);
+    expect(mails[0].text).toContain(`/builds/notices/${res.body.id}`);
 
     // A job run again (a worker that died after sending) sends nothing more.
     const sent = await t.database.db.select().from(noticeMails).where(eq(noticeMails.noticeId, res.body.id));

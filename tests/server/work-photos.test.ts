@@ -4,7 +4,6 @@
  * links, and never taken by the sweep of orphaned files.
  */
 import request from 'supertest';
-import sharp from 'sharp';
 import { jpeg } from '../helpers/photos';
 import { sweepOrphanPhotos } from '@/server/jobs/photo-sweep';
 import { parseCsv } from '../helpers/csv';

@@ -29,6 +29,7 @@ export type Ids = {
   walkFindingId: string;
   inviteToken: string;
   resetToken: string;
+  noticeId: string;
 };
 export type Route = { role: Role; name: string; path: (ids: Ids) => string; ready: string };
 export type Width = { name: string; viewport: { width: number; height: number }; isMobile: boolean };
@@ -71,6 +72,15 @@ export const routes: Route[] = [
   { role: 'inspector', name: 'account', path: () => '/account', ready: 'account-screen' },
   { role: 'supplier', name: 'catalogue', path: () => '/catalogue', ready: 'catalogue-screen' },
   { role: 'supplier', name: 'a kit', path: (i) => `/catalogue/kits/${i.kitId}`, ready: 'kit-screen' },
+  {
+    role: 'supplier',
+    name: 'issue a notice',
+    path: (i) => `/catalogue/kits/${i.kitId}/new-notice`,
+    ready: 'notice-form-screen',
+  },
+  { role: 'supplier', name: 'a notice', path: (i) => `/catalogue/notices/${i.noticeId}`, ready: 'notice-screen' },
+  { role: 'builder', name: 'a notice', path: (i) => `/builds/notices/${i.noticeId}`, ready: 'compliance-form' },
+  { role: 'inspector', name: 'a notice', path: (i) => `/builds/notices/${i.noticeId}`, ready: 'notice-screen' },
   { role: 'supplier', name: 'a design', path: (i) => `/catalogue/designs/${i.designId}`, ready: 'design-screen' },
   { role: 'supplier', name: 'a new kit', path: () => '/catalogue/new-kit', ready: 'kit-form-screen' },
   {
@@ -165,7 +175,20 @@ export async function gatherIds(t: TestApp): Promise<Ids> {
     ...walk,
     inviteToken: await inviteLink(t, tokens.admin),
     resetToken: await resetLink(t),
+    noticeId: await issueNotice(t, tokens.supplier, kit.id),
   };
+}
+
+/** A mandatory notice to every NK-2 kit (the demo build among them), for the notice screens. */
+async function issueNotice(t: TestApp, supplier: string, kitModelId: string): Promise<string> {
+  const res = await request(t.app).post('/api/notices').set(auth(supplier)).send({
+    kitModelId,
+    level: 'mandatory',
+    title: 'Check the flange bend radius',
+    body: 'Check the flange bend radius at the nose of each rib before riveting, and record what you found.',
+  });
+  if (res.status !== 201) throw new Error(`the audit's notice was refused: ${JSON.stringify(res.body)}`);
+  return res.body.id as string;
 }
 
 /** A small kit of our own (one rib, two short lines), shipped, with one hole flagged: for the keyboard walk. */
