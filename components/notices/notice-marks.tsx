@@ -1,4 +1,4 @@
-import { StyleSheet, View } from 'react-native';
+import { View } from 'react-native';
 import Svg from 'react-native-svg';
 import {
   complianceStatusLabels,
@@ -10,8 +10,8 @@ import {
   type NoticeLevel,
   type Role,
 } from '@/db/contracts';
-import { colors, hairline, radius, space, statusColors } from '@/constants/theme';
-import { MarkGlyph, type MarkShape } from '@/components/ui/status-mark';
+import { colors, statusColors } from '@/constants/theme';
+import { MarkGlyph, TagFrame, type MarkShape } from '@/components/ui/status-mark';
 import { Txt } from '@/components/ui/text';
 
 /**
@@ -45,7 +45,7 @@ const statusColorsOf: Record<ComplianceStatus, string> = {
 
 function Tag({ shape, color, words, testID }: { shape: MarkShape; color: string; words: string; testID: string }) {
   return (
-    <View style={[styles.tag, { borderColor: color }]} testID={testID}>
+    <TagFrame color={color} testID={testID}>
       <View aria-hidden style={{ width: 14, height: 14 }}>
         <Svg width={14} height={14} viewBox="0 0 14 14">
           <MarkGlyph shape={shape} color={color} cx={7} cy={7} r={6} />
@@ -54,7 +54,7 @@ function Tag({ shape, color, words, testID }: { shape: MarkShape; color: string;
       <Txt variant="small" bold>
         {words}
       </Txt>
-    </View>
+    </TagFrame>
   );
 }
 
@@ -127,17 +127,3 @@ export const noticeCaution =
 
 export const isStructural = (n: Pick<NoticeDetail, 'level' | 'effectivity'>) =>
   n.level === 'mandatory' || n.effectivity.parts.length > 0;
-
-const styles = StyleSheet.create({
-  tag: {
-    flexDirection: 'row',
-    alignItems: 'center',
-    gap: space.xs,
-    alignSelf: 'flex-start',
-    borderWidth: hairline,
-    borderRadius: radius.sm,
-    paddingHorizontal: space.sm,
-    paddingVertical: 2,
-    backgroundColor: colors.paperRaised,
-  },
-});

@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import Svg, { Circle, G, Path, Rect } from 'react-native-svg';
 import {
@@ -239,6 +240,15 @@ export function FindingMark({
   );
 }
 
+/** The frame of a status in words beside its mark, edged in the status's colour: a finding's, a notice's. */
+export function TagFrame({ color, testID, children }: { color: string; testID?: string; children: ReactNode }) {
+  return (
+    <View style={[styles.tag, { borderColor: color }]} testID={testID}>
+      {children}
+    </View>
+  );
+}
+
 /**
  * A finding's state: its mark, its words, and what it came to. A closed finding says how it closed
  * (closure); an open one names the disposition it is working to, when there is one.
@@ -254,7 +264,7 @@ export function FindingStatusTag({
 }) {
   const color = findingStatusColors[status];
   return (
-    <View style={[styles.tag, { borderColor: color }]} testID={`finding-status-${status}`}>
+    <TagFrame color={color} testID={`finding-status-${status}`}>
       <FindingMark status={status} decorative />
       <Txt variant="small" bold>
         {findingStatusLabels[status]}
@@ -268,7 +278,7 @@ export function FindingStatusTag({
           · {dispositionLabels[disposition]}
         </Txt>
       ) : null}
-    </View>
+    </TagFrame>
   );
 }
 

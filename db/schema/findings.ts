@@ -13,6 +13,7 @@ import {
 } from '../contracts';
 import { travelers } from './travelers';
 import { users } from './users';
+import { storedPhotoColumns } from './photo-columns';
 
 // The lists live once in db/contracts: the tables and the API read the same words.
 export const findingKind = pgEnum('finding_kind', findingKinds);
@@ -93,15 +94,7 @@ export const findingPhotos = pgTable(
       .references(() => findings.id, { onDelete: 'cascade' }),
     /** The event the photo came with: null for the photos of the hole as found. */
     eventId: uuid('event_id').references(() => findingEvents.id, { onDelete: 'cascade' }),
-    /** Server-made names inside the storage folder; never the uploader's file name. */
-    fileKey: text('file_key').notNull(),
-    thumbKey: text('thumb_key').notNull(),
-    width: integer('width').notNull(),
-    height: integer('height').notNull(),
-    uploadedBy: uuid('uploaded_by')
-      .notNull()
-      .references(() => users.id),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    ...storedPhotoColumns(),
   },
   (t) => [
     // A list row's photo count and first photo, and a finding's photos in order.

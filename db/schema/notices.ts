@@ -16,6 +16,7 @@ import { buildEvents, builds } from './builds';
 import { kitModels } from './designs';
 import { organizations } from './organizations';
 import { users } from './users';
+import { storedPhotoColumns } from './photo-columns';
 
 export const noticeLevel = pgEnum('notice_level', noticeLevels);
 export const noticeReach = pgEnum('notice_reach', noticeReaches);
@@ -109,14 +110,7 @@ export const noticePhotos = pgTable(
     eventId: uuid('event_id')
       .notNull()
       .references(() => buildEvents.id, { onDelete: 'cascade' }),
-    fileKey: text('file_key').notNull(),
-    thumbKey: text('thumb_key').notNull(),
-    width: integer('width').notNull(),
-    height: integer('height').notNull(),
-    uploadedBy: uuid('uploaded_by')
-      .notNull()
-      .references(() => users.id),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    ...storedPhotoColumns(),
   },
   (t) => [
     foreignKey({

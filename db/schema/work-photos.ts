@@ -1,6 +1,6 @@
-import { index, integer, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { index, pgTable, text, uuid } from 'drizzle-orm/pg-core';
 import { travelerEvents, travelerSteps, travelers } from './travelers';
-import { users } from './users';
+import { storedPhotoColumns } from './photo-columns';
 
 /**
  * Photos of the work itself (not of a suspect hole): of a step, of a run of holes, or of the part.
@@ -18,15 +18,7 @@ export const workPhotos = pgTable(
       .references(() => travelerEvents.id, { onDelete: 'cascade' }),
     stepId: uuid('step_id').references(() => travelerSteps.id, { onDelete: 'set null' }),
     holeIds: text('hole_ids').array().notNull().default([]),
-    /** Server-made names inside the storage folder; never the uploader's file name. */
-    fileKey: text('file_key').notNull(),
-    thumbKey: text('thumb_key').notNull(),
-    width: integer('width').notNull(),
-    height: integer('height').notNull(),
-    uploadedBy: uuid('uploaded_by')
-      .notNull()
-      .references(() => users.id),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    ...storedPhotoColumns(),
   },
   (t) => [index('work_photos_event').on(t.eventId), index('work_photos_traveler').on(t.travelerId)],
 );

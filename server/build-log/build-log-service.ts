@@ -13,6 +13,7 @@ import {
   findingKindLabels,
   findingLogKindOfAction,
   groupOfKind,
+  buildLogKinds,
   fabricationTable,
   logEntryMatches,
   helpWords,
@@ -294,16 +295,10 @@ export function describeFinding(
 }
 
 /** The build's own events a kind filter reads: its people, and the notices it got and answered. */
-const BUILD_EVENT_KINDS = [
-  'member_added',
-  'member_invited',
-  'member_joined',
-  'member_removed',
-  'owner_changed',
-  'notice_received',
-  'notice_acknowledged',
-  'notice_answered',
-] as const;
+const BUILD_EVENT_KINDS: readonly string[] = buildLogKinds.filter((k) => {
+  const group = groupOfKind(k);
+  return group === 'people' || group === 'notices';
+});
 
 /** "notice 3, Check the nose rib flange" as the build's log names a notice. */
 function noticeName(detail: Record<string, unknown>): string {
@@ -413,7 +408,7 @@ function windowOf(buildId: string, q: BuildLogQuery): LogWindow {
       : null,
     otherBench: kinds ? kinds.includes('other') : true,
     findingKinds: kinds ? kinds.filter((k): k is FindingLogKind => k.startsWith('finding_')) : null,
-    buildKinds: kinds ? kinds.filter((k) => (BUILD_EVENT_KINDS as readonly string[]).includes(k)) : null,
+    buildKinds: kinds ? kinds.filter((k) => BUILD_EVENT_KINDS.includes(k)) : null,
   };
 }
 
