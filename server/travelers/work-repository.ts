@@ -8,15 +8,6 @@ import { joinTravelerPart } from './travelers-repository';
 /** How many of a part's sessions its page lists; the sums count them all. */
 export const RECENT_SESSIONS = 20;
 
-const sessionColumns = {
-  id: workSessions.id,
-  personName: users.name,
-  by: workSessions.performer,
-  byName: workSessions.performerName,
-  startedAt: workSessions.startedAt,
-  endedAt: workSessions.endedAt,
-  entered: workSessions.entered,
-};
 type SessionRow = {
   id: string;
   personName: string;
@@ -70,30 +61,35 @@ async function sumByWho(db: Db, where: SQL): Promise<HoursByWho[]> {
     .orderBy(desc(hours), who);
 }
 
-/** A part's time worked: the reader's running session, the latest sessions and the sums by who. */
+/**
+ * A part's time worked, in one statement (the part's page reads it on every load): the reader's running
+ * session, the latest sessions and the hours of finished ones by who did the work (the person, or the
+ * help they named), most first.
+ */
 export async function readPartWork(db: Db, travelerId: string, personId: string) {
-  const [recent, byWho, running] = await Promise.all([
-    db
-      .select(sessionColumns)
-      .from(workSessions)
-      .innerJoin(users, eq(users.id, workSessions.personId))
-      .where(eq(workSessions.travelerId, travelerId))
-      .orderBy(desc(workSessions.startedAt), desc(workSessions.id))
-      .limit(RECENT_SESSIONS),
-    sumByWho(db, eq(workSessions.travelerId, travelerId)),
-    db
-      .select(sessionColumns)
-      .from(workSessions)
-      .innerJoin(users, eq(users.id, workSessions.personId))
-      .where(
-        and(eq(workSessions.travelerId, travelerId), eq(workSessions.personId, personId), isNull(workSessions.endedAt)),
-      ),
-  ]);
+  const session = sql.raw(`ws.id, u.name as "personName", ws.performer as "by", ws.performer_name as "byName",
+    ws.started_at as "startedAt", ws.ended_at as "endedAt", ws.entered`);
+  const res = await db.execute(sql`select
+    (select coalesce(json_agg(r), '[]'::json) from (select ${session} from work_sessions ws
+      join users u on u.id = ws.person_id where ws.traveler_id = ${travelerId}
+      order by ws.started_at desc, ws.id desc limit ${RECENT_SESSIONS}) r) as recent,
+    (select coalesce(json_agg(w), '[]'::json) from (select coalesce(ws.performer_name, u.name) as who, ws.performer as "by",
+      round((sum(extract(epoch from ws.ended_at - ws.started_at)) / 3600)::numeric, 2)::float8 as hours
+      from work_sessions ws join users u on u.id = ws.person_id
+      where ws.traveler_id = ${travelerId} and ws.ended_at is not null
+      group by 1, 2 order by hours desc, who) w) as "byWho",
+    (select row_to_json(m) from (select ${session} from work_sessions ws join users u on u.id = ws.person_id
+      where ws.traveler_id = ${travelerId} and ws.person_id = ${personId} and ws.ended_at is null limit 1) m) as running`);
+  type JsonSession = Omit<SessionRow, 'startedAt' | 'endedAt'> & { startedAt: string; endedAt: string | null };
+  const row = res.rows[0] as { recent: JsonSession[]; byWho: HoursByWho[]; running: JsonSession | null };
+  // JSON carries PostgreSQL's own timestamp text: read back as dates, written as the API's ISO strings.
+  const fromJson = (r: JsonSession) =>
+    asSession({ ...r, startedAt: new Date(r.startedAt), endedAt: r.endedAt ? new Date(r.endedAt) : null });
   return {
-    running: running[0] ? asSession(running[0] as SessionRow) : null,
-    recent: (recent as SessionRow[]).map(asSession),
-    byWho,
-    totalHours: Math.round(byWho.reduce((n, r) => n + r.hours, 0) * 100) / 100,
+    running: row.running ? fromJson(row.running) : null,
+    recent: row.recent.map(fromJson),
+    byWho: row.byWho,
+    totalHours: Math.round(row.byWho.reduce((n, r) => n + r.hours, 0) * 100) / 100,
   };
 }
 
