@@ -18,7 +18,7 @@ import {
 } from '../../db/contracts';
 import type { AppContext } from '../context';
 import { badRequest, HttpError, notFound } from '../http-error';
-import { withStoredPhotos, type UploadedPhoto } from '../photos/uploads';
+import { startsAsPdf, withStoredPhotos, type UploadedPhoto } from '../photos/uploads';
 import { processPhoto } from '../photos/image-processing';
 import type { PhotoStorage } from '../storage/photo-storage';
 import type { BenchTime } from '../travelers/device-time';
@@ -52,8 +52,8 @@ const cleanName = (name: string) =>
     .trim()
     .slice(0, 120) || 'file';
 
-const isPdf = (bytes: Buffer) =>
-  bytes.subarray(0, 5).toString('latin1') === '%PDF-' && bytes.subarray(-1024).toString('latin1').includes('%%EOF');
+/** A whole PDF: its header, and the end-of-file mark a truncated upload lacks. */
+const isPdf = (bytes: Buffer) => startsAsPdf(bytes) && bytes.subarray(-1024).toString('latin1').includes('%%EOF');
 
 type StoredNoticeFile = {
   kind: 'photo' | 'pdf';
@@ -126,7 +126,10 @@ export const noticesService = (ctx: Deps) => {
     thumbUrl: f.kind === 'photo' ? signer.sign(f.id, 'thumb', user.id) : null,
   });
 
-  const summary = (r: Awaited<ReturnType<typeof pageNotices>>['items'][number]): NoticeSummary => ({
+  /** The summary columns as the API says them: a list's rows and a notice's own page alike. */
+  const summaryOf = (
+    r: Omit<NoticeSummary, 'build' | 'issuedAt'> & { issuedAt: string },
+  ): Omit<NoticeSummary, 'build'> => ({
     id: r.id,
     number: r.number,
     title: r.title,
@@ -136,6 +139,10 @@ export const noticesService = (ctx: Deps) => {
     issuedAt: new Date(r.issuedAt).toISOString(),
     issuedByName: r.issuedByName,
     counts: r.counts,
+  });
+
+  const summary = (r: Awaited<ReturnType<typeof pageNotices>>['items'][number]): NoticeSummary => ({
+    ...summaryOf(r),
     build:
       r.buildId && r.kitSerial && r.status ? { buildId: r.buildId, kitSerial: r.kitSerial, status: r.status } : null,
   });
@@ -171,15 +178,7 @@ export const noticesService = (ctx: Deps) => {
     ]);
     const named = new Map(designs.map((d) => [d.id, d]));
     return {
-      id: n.id,
-      number: n.number,
-      title: n.title,
-      level: n.level,
-      kitModelId: n.kitModelId,
-      kitName: n.kitName,
-      issuedAt: new Date(n.issuedAt).toISOString(),
-      issuedByName: n.issuedByName,
-      counts: n.counts,
+      ...summaryOf(n),
       body: n.body,
       effectivity: {
         serialFrom: n.serialFrom,

@@ -3,6 +3,7 @@ import { z } from 'zod';
 import type { AppContext } from '../context';
 import { notFound } from '../http-error';
 import { photosService } from './photos-service';
+import { startsAsPdf } from './uploads';
 
 const photoQuery = z.object({
   u: z.uuid({ message: 'this photo link is not valid' }),
@@ -20,8 +21,7 @@ export function photosRouter(ctx: AppContext): Router {
     const bytes = await photos.read(id, variant, q.success ? q.data : null);
     res.set('Cache-Control', 'private, max-age=300');
     // A notice's PDF is stored as sent: it downloads, never opens inside our own origin.
-    if (bytes.subarray(0, 5).toString('latin1') === '%PDF-')
-      res.type('application/pdf').attachment('notice.pdf').send(bytes);
+    if (startsAsPdf(bytes)) res.type('application/pdf').attachment('notice.pdf').send(bytes);
     else res.type('image/jpeg').send(bytes);
   });
   return r;

@@ -61,3 +61,6 @@ export async function withStoredPhotos<T>(
     throw err;
   }
 }
+
+/** The header every PDF starts with ("%PDF-", ISO 32000-1 §7.5.2, from memory), whatever its name says. */
+export const startsAsPdf = (bytes: Buffer) => bytes.subarray(0, 5).toString('latin1') === '%PDF-';
