@@ -1,7 +1,7 @@
 import { and, eq, gt, isNull, sql } from 'drizzle-orm';
-import type { SessionUser } from '../../db/contracts';
 import type { Db } from '../../db';
 import { organizations, passwordResets, users } from '../../db/schema';
+import { forgetSessionUser, type SessionRow } from './session-cache';
 
 const sessionColumns = {
   id: users.id,
@@ -29,7 +29,7 @@ const prepareSessionUser = (db: Db) =>
 export async function findSessionUser(
   db: Db,
   id: string,
-): Promise<(SessionUser & { active: boolean; sessionVersion: number }) | undefined> {
+): Promise<SessionRow | undefined> {
   let query = sessionUserQueries.get(db);
   if (!query) sessionUserQueries.set(db, (query = prepareSessionUser(db)));
   const [row] = await query.execute({ id });
@@ -61,6 +61,7 @@ export async function bumpSessionVersion(
     .set({ ...set, sessionVersion: sql`${users.sessionVersion} + 1` })
     .where(eq(users.id, userId))
     .returning({ v: users.sessionVersion });
+  forgetSessionUser(userId);
   return row.v;
 }
 

@@ -3,6 +3,7 @@ import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
 import type { Db } from '../../db';
 import { JWT_ALGORITHM, signingKey } from './tokens';
 import { findSessionUser } from './auth-repository';
+import { cachedSessionUser } from './session-cache';
 
 type Payload = { sub?: string; exp?: number; ver?: number };
 
@@ -20,7 +21,7 @@ export function createPassport(db: Db, secret: string): passport.PassportStatic 
         // A token without an expiry would never end: refused, as is one from before the last "sign out everywhere".
         if (!payload.sub || typeof payload.exp !== 'number' || typeof payload.ver !== 'number')
           return done(null, false);
-        findSessionUser(db, payload.sub).then(
+        cachedSessionUser(payload.sub, payload.ver, (id) => findSessionUser(db, id)).then(
           (u) => {
             if (!u || !u.active || u.sessionVersion !== payload.ver) return done(null, false);
             const { active: _a, sessionVersion: _v, ...user } = u;

@@ -2,6 +2,7 @@ import { and, asc, eq, gt, isNull, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db';
 import { buildMembers, builds, invitations, kitModels, organizations, users } from '../../db/schema';
 import type { MemberPlace, OrganizationKind, PageQuery, Role } from '../../db/contracts';
+import { forgetSessionUser } from '../auth/session-cache';
 import { afterKey, decodeCursor, pageOf } from '../pagination';
 
 /** One page of the organisations by name (then id), each with its head count counted by PostgreSQL. */
@@ -90,6 +91,7 @@ export async function updatePerson(db: Db, id: string, set: { role?: Role; activ
     .update(users)
     .set({ ...set, sessionVersion: sql`${users.sessionVersion} + 1` })
     .where(eq(users.id, id));
+  forgetSessionUser(id);
 }
 
 export async function insertInvitation(db: Db, values: typeof invitations.$inferInsert) {

@@ -1,0 +1,45 @@
+import type { SessionUser } from '../../db/contracts';
+
+export type SessionRow = SessionUser & { active: boolean; sessionVersion: number };
+
+/**
+ * Signed-in people read in the last second, by id: a bench ticking holes or a reviewer paging the
+ * queue sends request after request with one token, and reading their row for each was the one
+ * statement every request paid for on top of its own.
+ *
+ * A change of role or standing, a new password or "sign out everywhere" forgets the person here at
+ * once (auth and people repositories); another server process sees it when its own copy ages out,
+ * within TTL_MS. User ids are random UUIDs, so one map serves every database a test process opens.
+ */
+const TTL_MS = 1000;
+/** Bounded whatever the traffic: the oldest entry goes first when it is full. */
+const MAX_ENTRIES = 10_000;
+
+const entries = new Map<string, { row: SessionRow | undefined; until: number }>();
+
+/**
+ * The person behind a token of version `ver`: from memory when read within the last second at that
+ * version, otherwise read again by `load` (a token newer than the copy means the copy is stale).
+ */
+export async function cachedSessionUser(
+  id: string,
+  ver: number,
+  load: (id: string) => Promise<SessionRow | undefined>,
+): Promise<SessionRow | undefined> {
+  const now = Date.now();
+  const hit = entries.get(id);
+  if (hit && hit.until > now && hit.row?.sessionVersion === ver) return hit.row;
+  const row = await load(id);
+  entries.delete(id);
+  if (entries.size >= MAX_ENTRIES) entries.delete(entries.keys().next().value!);
+  entries.set(id, { row, until: now + TTL_MS });
+  return row;
+}
+
+/** Called by every write that changes who a person is or whether their sign-ins stand. */
+export function forgetSessionUser(id: string): void {
+  entries.delete(id);
+}
+
+/** How long another process may still accept a token this one has ended (README, many processes). */
+export const SESSION_CACHE_MS = TTL_MS;
