@@ -7,7 +7,7 @@ import { HttpError } from '../http-error';
 import { requestIdOf } from './request-log';
 
 /**
- * The one error shape, plus the request's id (pino-http's, also in the X-Request-Id header and the
+ * The one error shape, plus the request's id (server/middleware/request-log.ts, also in the X-Request-Id header and the
  * request's log line) so a reported error can be found in the logs. `requestId` is added here rather
  * than in ApiErrorBody (db/contracts/common.ts), which the app reads.
  */
@@ -55,7 +55,7 @@ export function errorHandler(err: unknown, req: Request, res: Response, _next: N
   if (e?.type === 'entity.parse.failed')
     return send(400, { code: 'invalid_json', message: 'the request body is not valid JSON' });
   if (e?.type === 'entity.too.large') return send(413, { code: 'too_large', message: 'the request body is too large' });
-  // pino-http logs the request's line with this error when the response finishes (one line, with the id).
+  // The request's log line carries this error when the response finishes (one line, with the id).
   // Where logs are off (tests), the console still shows it: an unexpected error is never silent.
   if (req.log?.isLevelEnabled('error')) res.err = err instanceof Error ? err : new Error(String(err));
   else console.error(`unexpected error (request ${requestId ?? '-'}):`, err);

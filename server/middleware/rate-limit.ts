@@ -93,7 +93,7 @@ export function rateLimit(ctx: { pool: Pool }, opts: RateLimitOptions): RequestH
     const key = createHash('sha256').update(raw).digest('base64url');
     try {
       await ensureTable(ctx.pool).catch((err: Error) =>
-        req.log?.warn({ err }, 'rate limit table not ready; counting in memory'),
+        req.log?.warn({ err, reqId: req.id }, 'rate limit table not ready; counting in memory'),
       );
       await limiter.consume(key);
       next();
