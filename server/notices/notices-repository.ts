@@ -1,4 +1,5 @@
 import { and, asc, desc, eq, inArray, or, sql, type SQL } from 'drizzle-orm';
+import type { SelectedFields } from 'drizzle-orm/pg-core';
 import type { Db } from '../../db';
 import {
   workRecorded,
@@ -178,6 +179,15 @@ const summaryColumns = (db: Db, user: Express.User) => ({
   counts: countsColumn(db, user),
 });
 
+/** Notices with their summary columns and `more`, beside the kit model and the issuer those columns read. */
+const selectSummaries = <T extends SelectedFields>(db: Db, user: Express.User, more: T) =>
+  db
+    .select({ ...summaryColumns(db, user), ...more })
+    .from(notices)
+    .innerJoin(kitModels, eq(kitModels.id, notices.kitModelId))
+    .innerJoin(users, eq(users.id, notices.issuedBy))
+    .$dynamic();
+
 /**
  * One page of the notices the reader sees, newest first: of a kit model, or those that reached one build
  * or one part (then each row carries that build's answer).
@@ -198,16 +208,11 @@ export async function pageNotices(
         visibleAnswers(db, user),
       )
     : sql`false`;
-  const rows = await db
-    .select({
-      ...summaryColumns(db, user),
-      buildId: noticeBuilds.buildId,
-      kitSerial: builds.kitSerial,
-      status: noticeBuilds.status,
-    })
-    .from(notices)
-    .innerJoin(kitModels, eq(kitModels.id, notices.kitModelId))
-    .innerJoin(users, eq(users.id, notices.issuedBy))
+  const rows = await selectSummaries(db, user, {
+    buildId: noticeBuilds.buildId,
+    kitSerial: builds.kitSerial,
+    status: noticeBuilds.status,
+  })
     [scoped ? 'innerJoin' : 'leftJoin'](noticeBuilds, answerOn)
     .leftJoin(builds, eq(builds.id, noticeBuilds.buildId))
     .where(
@@ -224,20 +229,14 @@ export async function pageNotices(
 
 /** One notice the reader sees, with its summary columns and the stored effectivity. */
 export async function findVisibleNotice(db: Db, user: Express.User, id: string) {
-  const [row] = await db
-    .select({
-      ...summaryColumns(db, user),
-      organizationId: notices.organizationId,
-      body: notices.body,
-      serialFrom: notices.serialFrom,
-      serialTo: notices.serialTo,
-      parts: notices.parts,
-      reaches: notices.reaches,
-    })
-    .from(notices)
-    .innerJoin(kitModels, eq(kitModels.id, notices.kitModelId))
-    .innerJoin(users, eq(users.id, notices.issuedBy))
-    .where(and(eq(notices.id, id), visibleNotices(db, user)));
+  const [row] = await selectSummaries(db, user, {
+    organizationId: notices.organizationId,
+    body: notices.body,
+    serialFrom: notices.serialFrom,
+    serialTo: notices.serialTo,
+    parts: notices.parts,
+    reaches: notices.reaches,
+  }).where(and(eq(notices.id, id), visibleNotices(db, user)));
   return row ?? null;
 }
 
