@@ -325,6 +325,23 @@ describe('two API processes and one worker on one database and one object store'
     expect(apiRelay.messages).toHaveLength(0);
     expect(workerRelay.messages.length).toBeGreaterThan(toInspector.length);
   });
+
+  it('ends a sign-in on every API process: at once on the one that ended it, on the other once its second is up', async () => {
+    const { token } = await json(`${api[0]}/api/auth/sign-in`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify({ email: DEMO_USERS.inspector.email, password: DEMO_PASSWORD }),
+    });
+    const auth = { Authorization: `Bearer ${token}` };
+    const me = (i: number) => fetch(`${api[i]}/api/auth/me`, { headers: auth }).then((r) => r.status);
+    // Both processes have read the inspector (API 2 keeps the row for a second: server/auth/session-cache.ts).
+    expect([await me(0), await me(1)]).toEqual([200, 200]);
+    const out = await fetch(`${api[0]}/api/auth/sign-out-everywhere`, { method: 'POST', headers: auth });
+    expect(out.status).toBeLessThan(300);
+    expect(await me(0)).toBe(401);
+    await new Promise((r) => setTimeout(r, 1200));
+    expect(await me(1)).toBe(401);
+  });
 });
 
 describe('the S3 photo store', () => {
