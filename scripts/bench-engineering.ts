@@ -17,7 +17,7 @@ import {
   type RibStudyInput,
   type WingStudyInput,
 } from '../server/engineering';
-import { DEMO_ENGINE_COUPONS, DEMO_WING_INPUTS } from '../server/dev/seed';
+import { DEMO_ENGINE_COUPONS, DEMO_STUDY_INPUTS, DEMO_WING_INPUTS } from '../server/dev/demo-inputs';
 
 const WARM_UP = 5;
 const RUNS = 21;
@@ -28,28 +28,22 @@ const TARGET_LU_RATIO = 3;
 const WING_TARGET_MS = 1000;
 const WING_RUNS = 7;
 
-/** A light two-seat kit's inner wing rib, a typical case: 1320 lb, 14.5 in rib spacing, pulled rivets. */
+/**
+ * A light two-seat kit's inner wing rib, a typical case: the demo's rib study (same kit weight and area,
+ * material, gauges, pitch steps and zones) on a 58 in NACA 23015 rib of a slower kit (45 / 110 KEAS),
+ * 14.5 in rib spacing, flange lines 1 % to 98 % of the chord, three pulled rivets up to 16 diameters apart.
+ */
 const study = (panels: number): RibStudyInput => ({
-  kit: {
-    weightLb: 1320,
-    wingAreaSqFt: 120,
-    meanChordIn: 58,
-    stallSpeedKeas: 45,
-    cruiseSpeedKeas: 110,
-    category: 'utility',
-  },
+  ...DEMO_STUDY_INPUTS,
+  kit: { ...DEMO_STUDY_INPUTS.kit, meanChordIn: 58, stallSpeedKeas: 45, cruiseSpeedKeas: 110 },
   airfoil: { kind: 'naca', designation: '23015' },
   rib: { chordIn: 58, spacingIn: 14.5, flangeWidthIn: 0.75, skinGaugeIn: 0.025 },
   lines: [
     { name: 'upper', surface: 'upper', startXc: 0.01, endXc: 0.98 },
     { name: 'lower', surface: 'lower', startXc: 0.01, endXc: 0.98 },
   ],
-  material: '6061-T6',
-  gaugeCandidates: [0.016, 0.02, 0.025, 0.032, 0.04, 0.05],
   rivetCandidates: ['PULLED-4', 'PULLED-5', 'PULLED-6'],
   maxPitchDiameters: 16,
-  pitchIncrementIn: 0.125,
-  maxZones: 4,
   panels,
   coupons: DEMO_ENGINE_COUPONS,
 });

@@ -10,7 +10,7 @@ import {
 import { coupon } from '../fixtures/coupons';
 import { rib23015 } from '../fixtures/rib-study';
 import { refusal } from './refusal';
-import { DEMO_COUPONS, DEMO_STUDY_INPUTS } from '@/server/dev/seed';
+import { DEMO_ENGINE_COUPONS, DEMO_STUDY_INPUTS } from '@/server/dev/demo-inputs';
 
 // The 23015 rib with a skin gauge and three of the trade's coupons (common practice).
 const input: RibStudyInput = {
@@ -159,14 +159,7 @@ describe('a rib study', () => {
   });
 
   it('keeps the stored result of the demo rib under 100 KB', () => {
-    const coupons = DEMO_COUPONS.map(([gaugeIn, loadLb, outcome]) => ({
-      material: '6061-T6',
-      gaugeIn,
-      rivetSpec: 'PULLED-4',
-      loadLb,
-      outcome,
-    }));
-    const demo = ribStudy({ ...DEMO_STUDY_INPUTS, coupons });
+    const demo = ribStudy({ ...DEMO_STUDY_INPUTS, coupons: DEMO_ENGINE_COUPONS });
     expect(demo.recommended).not.toBeNull();
     expect(Buffer.byteLength(JSON.stringify(demo))).toBeLessThan(100 * 1024);
   });

@@ -8,7 +8,7 @@ import {
 } from '@/server/engineering';
 import { standardWing } from '../fixtures/wing-study';
 import { refusal } from './refusal';
-import { DEMO_COUPONS, DEMO_WING_INPUTS } from '@/server/dev/seed';
+import { DEMO_ENGINE_COUPONS, DEMO_WING_INPUTS } from '@/server/dev/demo-inputs';
 
 // The standard wing: rectangular, 320 in span, 54 in chord (120 ft²), ten ribs.
 const wing: WingStudyInput = standardWing;
@@ -291,14 +291,7 @@ describe('a wing study checks what every rib takes as a rib study does', () => {
 });
 
 describe('the one-for-all choice of a wing with coupon tests', () => {
-  const coupons = DEMO_COUPONS.map(([gaugeIn, loadLb, outcome]) => ({
-    material: '6061-T6',
-    gaugeIn,
-    rivetSpec: 'PULLED-4',
-    loadLb,
-    outcome,
-  }));
-  const study = wingStudy({ ...(DEMO_WING_INPUTS as WingStudyInput), coupons });
+  const study = wingStudy({ ...(DEMO_WING_INPUTS as WingStudyInput), coupons: DEMO_ENGINE_COUPONS });
 
   it('never puts a candidate resting on the pull-through fallback ahead of one backed by coupons on every rib, as a rib does', () => {
     const ranked = study.trade.uniform.filter((u) => u.rank !== null).sort((a, b) => a.rank! - b.rank!);

@@ -144,20 +144,36 @@ export type Tokens = Awaited<ReturnType<TestApp['tokens']>>;
 /** The header that carries a bearer token. */
 export const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 
+export type Outsiders = Awaited<ReturnType<TestApp['outsiders']>>;
+
 /**
- * For a test file on the demo: the app started before its tests and closed after them (its study
- * threads too); `take` receives it, the demo people's tokens and the id of the supplier's first kit model.
+ * For a test file (or a describe block) on the demo: the app started before its tests and closed after
+ * them (its study threads too); `take` receives it and the demo people's tokens, and with `outsiders`
+ * people outside the demo build as well. Any other option goes to startTestApp (e.g. `env`). Registered
+ * before the file's own beforeAll, it runs first.
  */
-export function demoAppWithKit(take: (s: { t: TestApp; tok: Tokens; kitModelId: string }) => void) {
+export function demoApp<O extends boolean = false>(
+  take: (s: { t: TestApp; tok: Tokens } & (O extends true ? { outsiders: Outsiders } : unknown)) => void,
+  { outsiders, ...start }: { outsiders?: O } & Parameters<typeof startTestApp>[0] = {},
+) {
   let t: TestApp | undefined;
   beforeAll(async () => {
-    t = await startTestApp();
+    t = await startTestApp(start);
     const tok = await t.tokens();
-    const kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items[0].id as string;
-    take({ t, tok, kitModelId });
+    take({ t, tok, ...(outsiders ? { outsiders: await t.outsiders() } : {}) } as Parameters<typeof take>[0]);
   });
   afterAll(async () => {
     await t?.close();
+  });
+}
+
+/** As demoApp, and the id of the supplier's first kit model too. */
+export function demoAppWithKit(take: (s: { t: TestApp; tok: Tokens; kitModelId: string }) => void) {
+  let s: { t: TestApp; tok: Tokens };
+  demoApp((x) => (s = x));
+  beforeAll(async () => {
+    const kitModelId = (await request(s.t.app).get('/api/kits').set(auth(s.tok.supplier))).body.items[0].id as string;
+    take({ ...s, kitModelId });
   });
 }
 

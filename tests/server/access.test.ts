@@ -2,33 +2,24 @@ import jwt from 'jsonwebtoken';
 import request from 'supertest';
 import sharp from 'sharp';
 import { DEMO_USERS } from '@/server/dev/seed';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoApp, demoRibs, type Outsiders, type TestApp, type Tokens } from '../helpers/test-app';
+import { raiseFinding } from '../helpers/raise-finding';
 
 jest.setTimeout(60000);
 
 let t: TestApp;
-let tok: Awaited<ReturnType<TestApp['tokens']>>;
-let otherBuilder: string;
-let otherInspector: string;
-let otherSupplier: string;
+let tok: Tokens;
+let outsiders: Outsiders;
 let travelerId: string;
 let findingId: string;
 let photoUrl: string;
 
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-
+demoApp((s) => ({ t, tok, outsiders } = s), { outsiders: true });
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
-  ({ builder: otherBuilder, inspector: otherInspector, supplier: otherSupplier } = await t.outsiders());
-  const parts = await request(t.app).get('/api/travelers').set(auth(tok.builder));
-  travelerId = parts.body.items.find((p: { partNumber: string }) => p.partNumber === 'W-104').id;
+  ({ innerId: travelerId } = await demoRibs(t, tok.builder));
   const open = await request(t.app).get('/api/findings?status=open').set(auth(tok.builder));
   findingId = open.body.items[0].id;
   photoUrl = (await request(t.app).get(`/api/findings/${findingId}`).set(auth(tok.builder))).body.photos[0].url;
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 describe('sign-in', () => {
@@ -67,54 +58,61 @@ describe('sign-in', () => {
 
 describe('role boundaries', () => {
   it('keeps another builder away from this build, its traveler, finding and holes', async () => {
-    expect((await request(t.app).get('/api/travelers').set(auth(otherBuilder))).body).toEqual({
+    expect((await request(t.app).get('/api/travelers').set(auth(outsiders.builder))).body).toEqual({
       items: [],
       next: null,
     });
-    expect((await request(t.app).get(`/api/travelers/${travelerId}`).set(auth(otherBuilder))).status).toBe(404);
-    expect((await request(t.app).get(`/api/findings/${findingId}`).set(auth(otherBuilder))).status).toBe(404);
+    expect((await request(t.app).get(`/api/travelers/${travelerId}`).set(auth(outsiders.builder))).status).toBe(404);
+    expect((await request(t.app).get(`/api/findings/${findingId}`).set(auth(outsiders.builder))).status).toBe(404);
     const tick = await request(t.app)
       .post(`/api/travelers/${travelerId}/holes`)
-      .set(auth(otherBuilder))
+      .set(auth(outsiders.builder))
       .send({ holeIds: ['L-01'], status: 'installed' });
     expect(tick.status).toBe(404);
-    const flag = await request(t.app)
-      .post('/api/findings')
-      .set(auth(otherBuilder))
-      .field('travelerId', travelerId)
-      .field('holeIds', '["L-02"]')
-      .field('kind', 'hole_burrs')
-      .field('note', 'not mine')
-      .attach(
-        'photos',
-        await sharp({ create: { width: 8, height: 8, channels: 3, background: '#000' } })
-          .png()
-          .toBuffer(),
-        'x.png',
-      );
+    const flag = await raiseFinding(t, outsiders.builder, {
+      travelerId,
+      holeIds: ['L-02'],
+      kind: 'hole_burrs',
+      note: 'not mine',
+    }).attach(
+      'photos',
+      await sharp({ create: { width: 8, height: 8, channels: 3, background: '#000' } })
+        .png()
+        .toBuffer(),
+      'x.png',
+    );
     expect(flag.status).toBe(404);
   });
 
   it('keeps an inspector not assigned to the build away from its findings', async () => {
-    expect((await request(t.app).get('/api/findings').set(auth(otherInspector))).body).toEqual({
+    expect((await request(t.app).get('/api/findings').set(auth(outsiders.inspector))).body).toEqual({
       items: [],
       next: null,
     });
     const res = await request(t.app)
       .post(`/api/findings/${findingId}/disposition`)
-      .set(auth(otherInspector))
+      .set(auth(outsiders.inspector))
       .send({ disposition: 'scrap', note: 'not mine' });
     expect(res.status).toBe(404);
   });
 
   it("keeps another supplier away from this supplier's kits, designs and builds", async () => {
-    expect((await request(t.app).get('/api/kits').set(auth(otherSupplier))).body).toEqual({ items: [], next: null });
-    expect((await request(t.app).get('/api/designs').set(auth(otherSupplier))).body).toEqual({ items: [], next: null });
-    expect((await request(t.app).get('/api/builds').set(auth(otherSupplier))).body).toEqual({ items: [], next: null });
+    expect((await request(t.app).get('/api/kits').set(auth(outsiders.supplier))).body).toEqual({
+      items: [],
+      next: null,
+    });
+    expect((await request(t.app).get('/api/designs').set(auth(outsiders.supplier))).body).toEqual({
+      items: [],
+      next: null,
+    });
+    expect((await request(t.app).get('/api/builds').set(auth(outsiders.supplier))).body).toEqual({
+      items: [],
+      next: null,
+    });
     const designs = await request(t.app).get('/api/designs').set(auth(tok.supplier));
-    expect((await request(t.app).get(`/api/designs/${designs.body.items[0].id}`).set(auth(otherSupplier))).status).toBe(
-      404,
-    );
+    expect(
+      (await request(t.app).get(`/api/designs/${designs.body.items[0].id}`).set(auth(outsiders.supplier))).status,
+    ).toBe(404);
   });
 
   it("shows the supplier where findings cluster on a part across builds, and no one else's", async () => {
@@ -130,9 +128,9 @@ describe('role boundaries', () => {
       open: 1,
       kinds: { hole_elongated: 1 },
     });
-    expect((await request(t.app).get(`/api/designs/${rib.id}/finding-clusters`).set(auth(otherSupplier))).status).toBe(
-      404,
-    );
+    expect(
+      (await request(t.app).get(`/api/designs/${rib.id}/finding-clusters`).set(auth(outsiders.supplier))).status,
+    ).toBe(404);
     expect((await request(t.app).get(`/api/designs/${rib.id}/finding-clusters`).set(auth(tok.builder))).status).toBe(
       403,
     );

@@ -4,14 +4,14 @@ import request from 'supertest';
 import sharp from 'sharp';
 import { findingPhotos, findings, holes } from '@/db/schema';
 import { flangeLine, ribRevision } from '../fixtures/rib-revision';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoApp, demoRibs, type TestApp, type Tokens } from '../helpers/test-app';
+import { raiseFinding } from '../helpers/raise-finding';
 
 jest.setTimeout(60000);
 
 let t: TestApp;
-let tok: Awaited<ReturnType<TestApp['tokens']>>;
+let tok: Tokens;
 let travelerId: string;
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 const png = () =>
   sharp({ create: { width: 16, height: 16, channels: 3, background: '#444' } })
     .png()
@@ -28,13 +28,7 @@ async function savedCounts() {
 
 /** A finding on `holeId` of the demo part, as the builder raises it: the test attaches what it sends. */
 const raiseOn = (holeId: string) =>
-  request(t.app)
-    .post('/api/findings')
-    .set(auth(tok.builder))
-    .field('travelerId', travelerId)
-    .field('holeIds', JSON.stringify([holeId]))
-    .field('kind', 'hole_oversize')
-    .field('note', 'looks big');
+  raiseFinding(t, tok.builder, { travelerId, holeIds: [holeId], kind: 'hole_oversize', note: 'looks big' });
 
 /**
  * A rib design for the demo's first kit: the standard revision changed by `over`, its one line named
@@ -56,14 +50,9 @@ async function postRib(partNumber: string, name: string, over: object, zones: Pa
     });
 }
 
+demoApp((s) => ({ t, tok } = s));
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
-  const parts = await request(t.app).get('/api/travelers').set(auth(tok.builder));
-  travelerId = parts.body.items.find((p: { partNumber: string }) => p.partNumber === 'W-104').id;
-});
-afterAll(async () => {
-  await t?.close();
+  ({ innerId: travelerId } = await demoRibs(t, tok.builder));
 });
 
 describe('bad input gets a clear error and saves nothing', () => {

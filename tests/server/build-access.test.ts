@@ -1,11 +1,12 @@
 import request from 'supertest';
 import { DEMO_USERS } from '@/server/dev/seed';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoApp, demoRibs, type Outsiders, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(120000);
 
 let t: TestApp;
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
+let tok: Tokens;
+let o: Outsiders;
 type Who =
   | 'owner'
   | 'helper'
@@ -23,10 +24,8 @@ let travelerId: string;
 let findingId: string;
 let removedPhotoUrl: string;
 
+demoApp((s) => ({ t, tok, outsiders: o } = s), { outsiders: true });
 beforeAll(async () => {
-  t = await startTestApp();
-  const tok = await t.tokens();
-  const o = await t.outsiders();
   const helper = await t.addUser('builder', 'hal.helper@shop.example');
   const adviser = await t.addUser('inspector', 'ada.adviser@checks.example');
   const removed = await t.addUser('builder', 'rex.removed@shop.example');
@@ -40,9 +39,7 @@ beforeAll(async () => {
     const res = await request(t.app).post(`/api/builds/${buildId}/members`).set(auth(token)).send({ email, place });
     if (res.status !== 200) throw new Error(`add ${email}: ${res.status} ${JSON.stringify(res.body)}`);
   }
-  travelerId = (await request(t.app).get('/api/travelers').set(auth(tok.builder))).body.items.find(
-    (p: { partNumber: string }) => p.partNumber === 'W-104',
-  ).id;
+  ({ innerId: travelerId } = await demoRibs(t, tok.builder));
   findingId = (await request(t.app).get('/api/findings?status=open').set(auth(tok.builder))).body.items[0].id;
   removedPhotoUrl = (await request(t.app).get(`/api/findings/${findingId}`).set(auth(removed))).body.photos[0].url;
   const rexId = (await request(t.app).get(`/api/builds/${buildId}`).set(auth(tok.builder))).body.people.members.find(
@@ -63,9 +60,6 @@ beforeAll(async () => {
     otherInspector: o.inspector,
     otherSupplier: o.supplier,
   };
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 const onBuild: Who[] = ['owner', 'helper', 'finalInspector', 'adviser', 'supplier', 'admin'];

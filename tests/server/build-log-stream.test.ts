@@ -2,7 +2,7 @@ import { sql } from 'drizzle-orm';
 import request from 'supertest';
 import { DEMO_USERS } from '@/server/dev/seed';
 import { binaryBody, pdfText } from '../helpers/pdf-text';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoApp, type TestApp, type Tokens } from '../helpers/test-app';
 import { parseCsv } from '../helpers/csv';
 
 jest.setTimeout(180000);
@@ -13,19 +13,17 @@ jest.setTimeout(180000);
  * them (a holes_installed bench event with its hole ids; a note_changed build event), in bulk.
  */
 let t: TestApp;
-let tok: Awaited<ReturnType<TestApp['tokens']>>;
+let tok: Tokens;
 let buildId: string;
 let demoCount: number;
 const HOLES = 2500;
 const NOTES = 100;
 
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 type Entry = { id: string; at: string; kind: string; holeIds?: string[]; text: string };
 const hole = (i: number) => `H${String(i).padStart(4, '0')}`;
 
+demoApp((s) => ({ t, tok } = s));
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
   buildId = (
     (await request(t.app).get('/api/builds').set(auth(tok.supplier))).body.items as { id: string; kitSerial: string }[]
   ).find((b) => b.kitSerial === 'NK2-0147')!.id;
@@ -52,9 +50,6 @@ beforeAll(async () => {
     select ${buildId}::uuid, ${actor}::uuid, timestamptz '2026-10-01 08:00:00+00' + (j * 7) * interval '1 second', 'note_changed',
       jsonb_build_object('from', '', 'to', 'N' || j)
     from generate_series(1, ${NOTES}) j`);
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 describe('a long build log', () => {

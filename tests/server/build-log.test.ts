@@ -2,22 +2,19 @@ import request from 'supertest';
 import { DEMO_USERS } from '@/server/dev/seed';
 import { MAX_PDF_THREADS, reservePdfThread } from '@/server/build-log/build-log-pdf-thread';
 import { binaryBody, pdfText } from '../helpers/pdf-text';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoApp, demoRibs, type Outsiders, type TestApp, type Tokens } from '../helpers/test-app';
 import { parseCsv } from '../helpers/csv';
 
 jest.setTimeout(60000);
 
 let t: TestApp;
-let tok: Awaited<ReturnType<TestApp['tokens']>>;
-let otherBuilder: string;
-let otherInspector: string;
-let otherSupplier: string;
+let tok: Tokens;
+let outsiders: Outsiders;
 let buildId: string;
 let innerId: string;
 let outerId: string;
 let findingId: string;
 
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 type Entry = {
   id: string;
   at: string;
@@ -34,18 +31,9 @@ const kinds = (body: { items: Entry[] }) => body.items.map((e) => e.kind);
 const log = (token: string, query: Record<string, string> = {}) =>
   request(t.app).get(`/api/builds/${buildId}/log`).query(query).set(auth(token));
 
+demoApp((s) => ({ t, tok, outsiders } = s), { outsiders: true });
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
-  ({ builder: otherBuilder, inspector: otherInspector, supplier: otherSupplier } = await t.outsiders());
-  const builds = await request(t.app).get('/api/builds').set(auth(tok.supplier));
-  buildId = (builds.body.items as { id: string; kitSerial: string }[]).find((b) => b.kitSerial === 'NK2-0147')!.id;
-  const parts = await request(t.app).get('/api/travelers').set(auth(tok.builder));
-  innerId = (parts.body.items as { id: string; partNumber: string }[]).find((p) => p.partNumber === 'W-104')!.id;
-  outerId = (parts.body.items as { id: string; partNumber: string }[]).find((p) => p.partNumber === 'W-105')!.id;
-});
-afterAll(async () => {
-  await t?.close();
+  ({ innerId, outerId, buildId } = await demoRibs(t, tok.builder));
 });
 
 describe('the build log', () => {
@@ -152,7 +140,7 @@ describe('the build log', () => {
   });
 
   it('keeps another builder, inspector or supplier out with 404 on the log and both exports', async () => {
-    for (const token of [otherBuilder, otherInspector, otherSupplier]) {
+    for (const token of [outsiders.builder, outsiders.inspector, outsiders.supplier]) {
       for (const suffix of ['log', 'log.csv', 'log.pdf']) {
         const res = await request(t.app).get(`/api/builds/${buildId}/${suffix}`).set(auth(token));
         expect(res.status).toBe(404);
@@ -160,7 +148,7 @@ describe('the build log', () => {
       }
     }
     // Nor can they reach it through a part of the build they cannot see.
-    expect((await log(otherBuilder, { travelerId: innerId })).status).toBe(404);
+    expect((await log(outsiders.builder, { travelerId: innerId })).status).toBe(404);
     expect((await request(t.app).get(`/api/builds/${buildId}/log.csv`)).status).toBe(401);
   });
 

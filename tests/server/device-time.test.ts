@@ -8,7 +8,7 @@ import { benchTime } from '@/server/travelers/device-time';
 import { zonedDateTime } from '@/lib/zoned-time';
 import { logPdfText } from '../helpers/pdf-text';
 import { parseCsv } from '../helpers/csv';
-import { auth, demoRibs, startTestApp, type TestApp, type Tokens } from '../helpers/test-app';
+import { auth, demoApp, demoRibs, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(60000);
 
@@ -52,13 +52,9 @@ describe('device time through the API', () => {
   let buildId: string;
   let outerId: string;
 
+  demoApp((s) => ({ t, tok } = s));
   beforeAll(async () => {
-    t = await startTestApp();
-    tok = await t.tokens();
     ({ outerId, buildId } = await demoRibs(t, tok.builder));
-  });
-  afterAll(async () => {
-    await t?.close();
   });
 
   const tick = (holeIds: string[], extra: Record<string, string> = {}) =>

@@ -1,6 +1,6 @@
 import request from 'supertest';
 import type { RibStudyInputValues } from '@/db/contracts';
-import { DEMO_STUDY_INPUTS } from '@/server/dev/seed';
+import { DEMO_STUDY_INPUTS } from '@/server/dev/demo-inputs';
 import { revisionInput } from '@/db/contracts';
 import { checkLayout } from '@/server/designs/layout-check';
 import { HttpError } from '@/server/http-error';

@@ -7,12 +7,13 @@ import { createMailer } from '@/server/mail/transport';
 import { FINDING_ACTION_OWNER } from '../fixtures/finding-owners';
 import { smallKits } from '../fixtures/rib-revision';
 import { publishSmallKit, shipBuild } from '../helpers/small-kit';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoApp, type TestApp, type Tokens } from '../helpers/test-app';
+import { raiseFinding } from '../helpers/raise-finding';
 
 jest.setTimeout(180000);
 
 let t: TestApp;
-let tok: Awaited<ReturnType<TestApp['tokens']>>;
+let tok: Tokens;
 let people: Record<
   'builder' | 'inspector' | 'supplier' | 'admin' | 'otherBuilder' | 'otherInspector' | 'otherSupplier',
   string
@@ -20,17 +21,11 @@ let people: Record<
 let kitId: string;
 let serialNo = 0;
 
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-
+demoApp((s) => ({ t, tok } = s));
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
   const o = await t.outsiders();
   people = { ...tok, otherBuilder: o.builder, otherInspector: o.inspector, otherSupplier: o.supplier };
   kitId = await publishSmallKit(t, tok.supplier, smallKits.lifecycle);
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 /** Ships a fresh build of the small kit to the demo builder and inspector; returns its one traveler. */
@@ -40,13 +35,7 @@ async function ship(): Promise<{ buildId: string; travelerId: string; kitSerial:
 }
 
 async function raise(token: string, travelerId: string, holeIds: string[], extra: Record<string, string> = {}) {
-  let r = request(t.app)
-    .post('/api/findings')
-    .set(auth(token))
-    .field('travelerId', travelerId)
-    .field('holeIds', JSON.stringify(holeIds))
-    .field('kind', extra.kind ?? 'hole_elongated')
-    .field('note', 'looks oval');
+  let r = raiseFinding(t, token, { travelerId, holeIds, kind: extra.kind ?? 'hole_elongated', note: 'looks oval' });
   if (extra.measurements) r = r.field('measurements', extra.measurements);
   return r.attach('photos', await jpeg(), { filename: 'h.jpg', contentType: 'image/jpeg' });
 }
@@ -487,14 +476,12 @@ describe('double submits and the mail worker', () => {
       measurements: JSON.stringify({ holeDiameterIn: 9 }),
     });
     expect(big.status).toBe(400);
-    const nul = await request(t.app)
-      .post('/api/findings')
-      .set(auth(tok.builder))
-      .field('travelerId', b.travelerId)
-      .field('holeIds', '["U-01"]')
-      .field('kind', 'hole_burrs')
-      .field('note', 'bad \u0000 note')
-      .attach('photos', await jpeg(), { filename: 'h.jpg', contentType: 'image/jpeg' });
+    const nul = await raiseFinding(t, tok.builder, {
+      travelerId: b.travelerId,
+      holeIds: ['U-01'],
+      kind: 'hole_burrs',
+      note: 'bad \u0000 note',
+    }).attach('photos', await jpeg(), { filename: 'h.jpg', contentType: 'image/jpeg' });
     expect(nul.status).toBe(400);
     expect(nul.body.error.fields).toHaveProperty('note');
     expect((await request(t.app).get(`/api/findings?travelerId=${b.travelerId}`).set(auth(tok.builder))).body).toEqual({

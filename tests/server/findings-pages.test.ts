@@ -3,7 +3,7 @@ import { eq, sql } from 'drizzle-orm';
 import { DEMO_USERS } from '@/server/dev/seed';
 import { findingPhotos, findings, users } from '@/db/schema';
 import { isOpenFinding, type FindingStatus, type FindingSummary } from '@/db/contracts';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoApp, type Outsiders, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(180000);
 
@@ -12,15 +12,14 @@ jest.setTimeout(180000);
  * who-sees-what hold on every page; a cursor or a size it did not give is refused.
  */
 let t: TestApp;
-let tok: Awaited<ReturnType<TestApp['tokens']>>;
-let other: Awaited<ReturnType<TestApp['outsiders']>>;
+let tok: Tokens;
+let other: Outsiders;
 /** The demo build (demo builder and inspector) and a second build of the same kit (the other builder and inspector). */
 let demo: { buildId: string; travelerIds: string[] };
 let second: { buildId: string; travelerIds: string[] };
 type Made = { id: string; at: string; buildId: string; travelerId: string; status: FindingStatus };
 let made: Made[] = [];
 
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 const get = (token: string, query: string) => request(t.app).get(`/api/findings${query}`).set(auth(token));
 
 /** Follows `next` to the end, at most `bound` pages, and returns every page's items. */
@@ -52,10 +51,8 @@ async function travelersOf(buildId: string): Promise<string[]> {
  */
 const newestFirst = (a: Made, b: Made) => (a.at === b.at ? (a.id < b.id ? 1 : -1) : a.at < b.at ? 1 : -1);
 
+demoApp((s) => ({ t, tok, outsiders: other } = s), { outsiders: true });
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
-  other = await t.outsiders();
   const kits = await request(t.app).get('/api/kits').set(auth(tok.supplier));
   const kitModelId = kits.body.items[0].id;
   const built = await request(t.app).post('/api/builds').set(auth(tok.supplier)).send({
@@ -110,9 +107,6 @@ beforeAll(async () => {
     status: r.status,
   }));
   expect(made.length).toBe(31);
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 describe('GET /api/findings in pages', () => {

@@ -10,7 +10,7 @@ import { createApp } from '@/server/app';
 import { loadConfig } from '@/server/config';
 import { sweepOrphanPhotos } from '@/server/jobs/photo-sweep';
 import { createLogger } from '@/server/middleware/request-log';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, startTestApp, type TestApp } from '../helpers/test-app';
 
 /**
  * The server's own defences, each tested so that removing it fails a test: security headers, request
@@ -58,7 +58,7 @@ describe('security headers (helmet)', () => {
   });
 });
 
-describe('request ids (pino-http)', () => {
+describe('request ids', () => {
   it('gives every answer an id, and an error body repeats it', async () => {
     const res = await request(t.app).get('/api/no-such-route');
     const id = res.headers['x-request-id'];
@@ -106,7 +106,7 @@ describe('request ids (pino-http)', () => {
     const token = await t.signIn(builder.email);
     const res = await request(app)
       .get('/api/travelers?exp=123&sig=secret-signature')
-      .set('Authorization', `Bearer ${token}`)
+      .set(auth(token))
       .set('X-Request-Id', 'trace-me-1');
     expect(res.status).toBe(200);
     await new Promise((r) => setImmediate(r));
@@ -278,7 +278,7 @@ describe('photo files that no row points to', () => {
 
     // The recorded photo is still served.
     const tok = await t.signIn(inspector.email);
-    const findings = await request(t.app).get('/api/findings').set('Authorization', `Bearer ${tok}`);
+    const findings = await request(t.app).get('/api/findings').set(auth(tok));
     expect(findings.status).toBe(200);
   });
 });

@@ -17,7 +17,7 @@ import {
 } from '@/db/schema';
 import { hashPassword } from '@/server/auth/passwords';
 import { STUDY_SUMMARY_KEYS } from '../fixtures/study-summary';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoApp, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(180000);
 
@@ -28,9 +28,8 @@ jest.setTimeout(180000);
  */
 
 let t: TestApp;
-let tok: Awaited<ReturnType<TestApp['tokens']>>;
+let tok: Tokens;
 let other: { supplier: string; builder: string };
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 type Row = { id: string } & Record<string, unknown>;
 
 /** The whole list, `limit` rows a page, following `next` (bounded: at most 200 pages). */
@@ -74,9 +73,8 @@ let ids: {
   orgPeople: string[];
 };
 
+demoApp((s) => ({ t, tok } = s));
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
   const o = await t.outsiders();
   other = { supplier: o.supplier, builder: o.builder };
   const db = t.database.db;
@@ -224,9 +222,6 @@ beforeAll(async () => {
     otherBuilds: otherShipped.map((b) => b.id),
     orgPeople: orgPeople.map((p) => p.id),
   };
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 describe('GET /api/builds in pages', () => {

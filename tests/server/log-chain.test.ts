@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import request from 'supertest';
 import { csvRow } from '@/server/build-log/build-log-csv';
-import { auth, startTestApp, type TestApp, type Tokens } from '../helpers/test-app';
+import { auth, demoApp, demoRibs, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(90000);
 
@@ -122,21 +122,10 @@ async function withTriggerOff(table: string, trigger: string, fn: () => Promise<
   }
 }
 
+demoApp((s) => ({ t, tok } = s));
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
   outsider = (await t.outsiders()).builder;
-  const builds = await request(t.app).get('/api/builds').set(auth(tok.supplier));
-  buildId = (builds.body.items as { id: string; kitSerial: string }[]).find((b) => b.kitSerial === 'NK2-0147')!.id;
-  const parts = (await request(t.app).get('/api/travelers').set(auth(tok.builder))).body.items as {
-    id: string;
-    partNumber: string;
-  }[];
-  innerId = parts.find((p) => p.partNumber === 'W-104')!.id;
-  outerId = parts.find((p) => p.partNumber === 'W-105')!.id;
-});
-afterAll(async () => {
-  await t?.close();
+  ({ innerId, outerId, buildId } = await demoRibs(t, tok.builder));
 });
 
 const pendingHoles = async (travelerId: string) =>

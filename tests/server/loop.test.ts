@@ -2,21 +2,15 @@ import request from 'supertest';
 import { jpeg as greyJpeg } from '../helpers/photos';
 import { DEMO_USERS } from '@/server/dev/seed';
 import { flangeLine, ribRevision } from '../fixtures/rib-revision';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoApp, type TestApp, type Tokens } from '../helpers/test-app';
+import { raiseFinding } from '../helpers/raise-finding';
 
 jest.setTimeout(60000);
 
 let t: TestApp;
-let tok: Awaited<ReturnType<TestApp['tokens']>>;
-beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
-});
-afterAll(async () => {
-  await t?.close();
-});
+let tok: Tokens;
+demoApp((s) => ({ t, tok } = s));
 
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 const jpeg = () => greyJpeg('#888');
 
 // The rib's revision in 0.020 in, with a lower flange at 2 in pitch as well.
@@ -122,14 +116,12 @@ describe('the main loop through the API', () => {
   });
 
   it('raises a finding on a suspect hole with a photo and mails the inspector with part, hole, kind, link and thumbnail', async () => {
-    const res = await request(t.app)
-      .post('/api/findings')
-      .set(auth(tok.builder))
-      .field('travelerId', travelerId)
-      .field('holeIds', JSON.stringify(['U-04']))
-      .field('kind', 'hole_cracked')
-      .field('note', 'hairline crack at the edge')
-      .attach('photos', await jpeg(), { filename: 'crack.jpg', contentType: 'image/jpeg' });
+    const res = await raiseFinding(t, tok.builder, {
+      travelerId,
+      holeIds: ['U-04'],
+      kind: 'hole_cracked',
+      note: 'hairline crack at the edge',
+    }).attach('photos', await jpeg(), { filename: 'crack.jpg', contentType: 'image/jpeg' });
     expect(res.status).toBe(201);
     findingId = res.body.id;
     expect(res.body.photos).toHaveLength(1);

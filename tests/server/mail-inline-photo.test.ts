@@ -6,7 +6,8 @@ import { devRouter } from '@/server/dev/dev-router';
 import { findingMail, holePhotoCid, type FindingMailFacts } from '@/server/mail/finding-mail';
 import { startSmtpFake, type SmtpFake } from '@/server/mail/smtp-fake';
 import { createMailer, type Mailer } from '@/server/mail/transport';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoApp, type TestApp, type Tokens } from '../helpers/test-app';
+import { raiseFinding } from '../helpers/raise-finding';
 
 /**
  * A finding's mail carries the hole's photo as an inline part named by Content-ID, which the HTML shows
@@ -16,7 +17,6 @@ import { startTestApp, type TestApp } from '../helpers/test-app';
 jest.setTimeout(120000);
 
 const jpeg = () => greyJpeg('#6a6a6a');
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 
 const facts = (thumbnail: Buffer | null): FindingMailFacts => ({
   findingId: '3f1e2d4c-0000-4000-8000-00000000beef',
@@ -88,27 +88,20 @@ describe('the photo in a finding mail, as the SMTP relay receives it', () => {
 
 describe('a finding raised with a photo, through the job queue', () => {
   let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp();
-  });
-  afterAll(async () => {
-    await t?.close();
-  });
+  let tok: Tokens;
+  demoApp((s) => ({ t, tok } = s));
 
   it("mails the inspector the hole's photo inline by the finding's Content-ID", async () => {
-    const tok = await t.tokens();
     const list = await request(t.app).get('/api/travelers').set(auth(tok.builder));
     expect(list.status).toBe(200);
     const traveler = await request(t.app).get(`/api/travelers/${list.body.items[0].id}`).set(auth(tok.builder));
     const hole = traveler.body.holes.find((h: { status: string }) => h.status === 'pending');
-    const res = await request(t.app)
-      .post('/api/findings')
-      .set(auth(tok.builder))
-      .field('travelerId', traveler.body.id)
-      .field('holeIds', JSON.stringify([hole.holeId]))
-      .field('kind', 'hole_cracked')
-      .field('note', 'crack at the edge')
-      .attach('photos', await jpeg(), { filename: 'crack.jpg', contentType: 'image/jpeg' });
+    const res = await raiseFinding(t, tok.builder, {
+      travelerId: traveler.body.id,
+      holeIds: [hole.holeId],
+      kind: 'hole_cracked',
+      note: 'crack at the edge',
+    }).attach('photos', await jpeg(), { filename: 'crack.jpg', contentType: 'image/jpeg' });
     expect(res.status).toBe(201);
     const mail = await t.waitForMail(
       (m) => m.to.includes(DEMO_USERS.inspector.email) && m.subject.includes(`hole ${hole.holeId}`),

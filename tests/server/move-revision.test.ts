@@ -10,13 +10,13 @@ import { travelerEvents } from '@/db/schema';
 import { checkRevisionMove, type PartRecord } from '@/db/contracts';
 import { ribRevision, flangeLine } from '../fixtures/rib-revision';
 import { publishSmallKit, shipBuild } from '../helpers/small-kit';
-import { auth, demoRibs, startTestApp, type TestApp, type Tokens } from '../helpers/test-app';
+import { auth, demoApp, demoRibs, type Outsiders, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(120000);
 
 let t: TestApp;
 let tok: Tokens;
-let outsiders: Awaited<ReturnType<TestApp['outsiders']>>;
+let outsiders: Outsiders;
 let kitId: string;
 let designId: string;
 let n = 0;
@@ -34,10 +34,8 @@ const longerFlange = {
   changeNote: 'Flange 2 in longer to reach the new stiffener',
 };
 
+demoApp((s) => ({ t, tok, outsiders } = s), { outsiders: true });
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
-  outsiders = await t.outsiders();
   kitId = await publishSmallKit(t, tok.supplier, {
     code: 'MV-1',
     name: 'Move kit',
@@ -47,9 +45,6 @@ beforeAll(async () => {
   });
   const designs = await request(t.app).get(`/api/designs?kitModelId=${kitId}`).set(auth(tok.supplier));
   designId = designs.body.items[0].id;
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 const move = (id: string, token: string, body?: object) => {

@@ -9,7 +9,7 @@ import request from 'supertest';
 import { loadConfig } from '@/server/config';
 import { certificateNames, isLoopbackUrl, pickLanAddress } from '@/server/network/lan';
 import { loadOrMakeCertificate } from '@/server/network/tls';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoApp, startTestApp, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(60000);
 
@@ -26,9 +26,8 @@ const env = (e: Record<string, string>) => e as unknown as NodeJS.ProcessEnv;
 
 /** The labels of the supplier's first build, as the supplier asks for them. */
 async function firstBuildLabels(t: TestApp, supplier: string) {
-  const auth = { Authorization: `Bearer ${supplier}` };
-  const buildId = (await request(t.app).get('/api/builds').set(auth)).body.items[0].id;
-  return request(t.app).get(`/api/travelers/labels?buildId=${buildId}`).set(auth);
+  const buildId = (await request(t.app).get('/api/builds').set(auth(supplier))).body.items[0].id;
+  return request(t.app).get(`/api/travelers/labels?buildId=${buildId}`).set(auth(supplier));
 }
 
 describe('the address phones reach', () => {
@@ -155,9 +154,7 @@ describe('network mode served', () => {
     const tok = await t.tokens();
     const labels = await firstBuildLabels(t, tok.supplier);
     expect(labels.body[0].url).toMatch(new RegExp(`^https://192\\.0\\.2\\.44:${port}/t/`));
-    const setup = await request(t.app)
-      .get('/api/network')
-      .set({ Authorization: `Bearer ${tok.admin}` });
+    const setup = await request(t.app).get('/api/network').set(auth(tok.admin));
     expect(setup.body).toMatchObject({
       publicUrl: `https://192.0.2.44:${port}`,
       loopback: false,
@@ -167,37 +164,24 @@ describe('network mode served', () => {
     expect(setup.body.qrDataUrl).toMatch(/^data:image\/png;base64,/);
     const pem = await request(t.app).get('/api/network/certificate');
     expect(pem.text).toBe(cert);
-    expect(
-      (
-        await request(t.app)
-          .get('/api/network')
-          .set({ Authorization: `Bearer ${tok.builder}` })
-      ).status,
-    ).toBe(403);
+    expect((await request(t.app).get('/api/network').set(auth(tok.builder))).status).toBe(403);
   });
 });
 
 describe('a loopback public address', () => {
   let t: TestApp;
-  beforeAll(async () => {
-    t = await startTestApp({ env: { PUBLIC_URL: 'http://localhost:8080' } });
-  });
-  afterAll(async () => {
-    await t?.close();
-  });
+  let tok: Tokens;
+  demoApp((s) => ({ t, tok } = s), { env: { PUBLIC_URL: 'http://localhost:8080' } });
 
   it('refuses to print labels, saying how to set the address', async () => {
-    const tok = await t.tokens();
     const res = await firstBuildLabels(t, tok.supplier);
     expect(res.status).toBe(409);
     expect(res.body.error.message).toMatch(/npm start -- --lan|PUBLIC_URL/);
-    expect(
-      (
-        await request(t.app)
-          .get('/api/network')
-          .set({ Authorization: `Bearer ${tok.supplier}` })
-      ).body,
-    ).toMatchObject({ loopback: true, https: false, certificate: null });
+    expect((await request(t.app).get('/api/network').set(auth(tok.supplier))).body).toMatchObject({
+      loopback: true,
+      https: false,
+      certificate: null,
+    });
   });
 });
 

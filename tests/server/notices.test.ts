@@ -11,7 +11,7 @@ import { noticeMailWorker } from '@/server/jobs/notice-mail-worker';
 import { jpeg } from '../helpers/photos';
 import { logPdfText } from '../helpers/pdf-text';
 import { parseCsv } from '../helpers/csv';
-import { auth, startTestApp, type TestApp, type Tokens } from '../helpers/test-app';
+import { auth, demoApp, type TestApp, type Tokens } from '../helpers/test-app';
 import { DEMO_USERS } from '@/server/dev/seed';
 import type { NoticeBuildAnswer, NoticeDetail, NoticeSummary } from '@/db/contracts';
 
@@ -64,9 +64,8 @@ const partOf = async (buildId: string, partNumber: string) => {
   return parts.find((p) => p.buildId === buildId && p.partNumber === partNumber)!;
 };
 
+demoApp((s) => ({ t, tok } = s));
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
   kitModelId = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items[0].id;
   const designs = (await request(t.app).get('/api/designs').query({ kitModelId }).set(auth(tok.supplier))).body
     .items as { id: string; partNumber: string }[];
@@ -86,9 +85,6 @@ beforeAll(async () => {
     .set(auth(tok.builder))
     .send({ holeIds: ['U-01'], status: 'installed' });
   expect(tick.status).toBe(200);
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 describe('effectivity, resolved when the notice is issued', () => {

@@ -1,23 +1,16 @@
 import jwt from 'jsonwebtoken';
 import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoApp, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(120000);
 
 let t: TestApp;
-let tok: Awaited<ReturnType<TestApp['tokens']>>;
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
+let tok: Tokens;
 /** Long, unusual and not built from the person's name: what the strength package accepts. */
 const STRONG = 'copper-ribs-tilt-44-quietly';
 
-beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
-});
-afterAll(async () => {
-  await t?.close();
-});
+demoApp((s) => ({ t, tok } = s));
 
 /** The one-time link in the latest mail to `to` whose subject has `words`: its path, and its token. */
 async function linkIn(to: string, words: string, kind: 'invite' | 'reset') {

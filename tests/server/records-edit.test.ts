@@ -21,28 +21,22 @@ import {
   partDesigns,
   travelers,
 } from '@/db/schema';
-import { DEMO_COUPONS } from '@/server/dev/seed';
+import { DEMO_COUPONS } from '@/server/dev/demo-inputs';
 import { couponsForEngine } from '@/server/coupons/coupons-repository';
 import { GAUGE_MATCH_TOLERANCE_IN } from '@/server/engineering/coupons';
 import { flangeLine, ribRevision as standardRevision } from '../fixtures/rib-revision';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoApp, type Outsiders, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(120000);
 
 let t: TestApp;
-let tok: Awaited<ReturnType<TestApp['tokens']>>;
-let other: Awaited<ReturnType<TestApp['outsiders']>>;
+let tok: Tokens;
+let other: Outsiders;
 let supplierOrg: string;
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 
+demoApp((s) => ({ t, tok, outsiders: other } = s), { outsiders: true });
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
-  other = await t.outsiders();
   supplierOrg = (await request(t.app).get('/api/auth/me').set(auth(tok.supplier))).body.organizationId;
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 /** Rows of a table, counted by the database: a refusal must leave every one of them in place. */
@@ -76,6 +70,12 @@ const supplierGet = async (path: string) => (await request(t.app).get(path).set(
 const supplierItem = async <T extends { id: string }>(path: string, pick: (item: T) => boolean): Promise<T> =>
   ((await supplierGet(path)).items as T[]).find(pick)!;
 const demoKit = () => supplierItem<{ id: string; code: string }>('/api/kits', (k) => k.code === 'NK-2');
+/** The supplier's new rib design of the kit: draft revision A of the one-pitch rib. */
+const postRib = (kitModelId: string, partNumber: string, name: string) =>
+  request(t.app)
+    .post('/api/designs')
+    .set(auth(tok.supplier))
+    .send({ design: { kitModelId, partNumber, name, kind: 'rib' }, revision: ribRevision() });
 const designOf = (partNumber: string) =>
   supplierItem<{ id: string; partNumber: string }>('/api/designs', (d) => d.partNumber === partNumber);
 
@@ -201,13 +201,7 @@ describe('kit models: edit with history, delete while nothing relies on them', (
   it('edits and deletes a kit nothing relies on, its draft-only part going with it', async () => {
     const made = await request(t.app).post('/api/kits').set(auth(tok.supplier)).send(kitBody());
     expect(made.status).toBe(201);
-    const design = await request(t.app)
-      .post('/api/designs')
-      .set(auth(tok.supplier))
-      .send({
-        design: { kitModelId: made.body.id, partNumber: 'T-1', name: 'Test rib', kind: 'rib' },
-        revision: ribRevision(),
-      });
+    const design = await postRib(made.body.id, 'T-1', 'Test rib');
     expect(design.status).toBe(201);
     const edited = await request(t.app)
       .patch(`/api/kits/${made.body.id}`)
@@ -351,15 +345,7 @@ describe('coupon tests: corrected by a new entry, deleted only when no published
       (c: { rivet: string; feasible: boolean }) => c.rivet === 'PULLED-4' && c.feasible,
     );
     const kit = await demoKit();
-    const design = (
-      await request(t.app)
-        .post('/api/designs')
-        .set(auth(tok.supplier))
-        .send({
-          design: { kitModelId: kit.id, partNumber: 'W-190', name: 'Coupon-backed rib', kind: 'rib' },
-          revision: ribRevision(),
-        })
-    ).body;
+    const design = (await postRib(kit.id, 'W-190', 'Coupon-backed rib')).body;
     // A test of the candidate's own rivet and gauge, on record before the revision is published.
     const pulled4 = { material: '6061-T6', gaugeIn: candidate.gaugeIn, rivetSpec: 'PULLED-4' };
     const backing = await record({ ...pulled4, loadLb: 12, outcome: 'no_deformation', testedOn: '2026-10-15' });
@@ -551,15 +537,7 @@ describe('draft revisions: discarded, never once published', () => {
 
   it('discards the only revision of a part: the draft goes, the part stays, and a new revision starts again at A', async () => {
     const kit = await demoKit();
-    const made = (
-      await request(t.app)
-        .post('/api/designs')
-        .set(auth(tok.supplier))
-        .send({
-          design: { kitModelId: kit.id, partNumber: 'W-191', name: 'Draft-only rib', kind: 'rib' },
-          revision: ribRevision(),
-        })
-    ).body;
+    const made = (await postRib(kit.id, 'W-191', 'Draft-only rib')).body;
     const res = await request(t.app).delete(`/api/revisions/${made.revisions[0].id}`).set(auth(tok.supplier));
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ partNumber: 'W-191', revisions: [], publishedLetter: null });

@@ -1,7 +1,7 @@
 import request from 'supertest';
 import { DEMO_USERS } from '@/server/dev/seed';
 import type { Page, TravelerSummary } from '@/db/contracts';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoApp, type TestApp } from '../helpers/test-app';
 
 jest.setTimeout(120000);
 
@@ -9,20 +9,21 @@ let t: TestApp;
 let admin: string;
 let partId: string;
 let hole: string;
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
+let builder: string;
 
+demoApp(
+  (s) =>
+    ({
+      t,
+      tok: { admin, builder },
+    } = s),
+);
 beforeAll(async () => {
-  t = await startTestApp();
-  admin = await t.signIn(DEMO_USERS.admin.email);
-  const builder = await t.signIn(DEMO_USERS.builder.email);
   const parts = (await request(t.app).get('/api/travelers?q=W-104').set(auth(builder))).body as Page<TravelerSummary>;
   partId = parts.items[0].id;
   hole = (await request(t.app).get(`/api/travelers/${partId}`).set(auth(builder))).body.holes.find(
     (h: { status: string }) => h.status === 'pending',
   ).holeId;
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 /**

@@ -2,24 +2,20 @@ import request from 'supertest';
 import sharp from 'sharp';
 import { smallKits } from '../fixtures/rib-revision';
 import { publishSmallKit, shipBuild, workPart } from '../helpers/small-kit';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoApp, type TestApp, type Tokens } from '../helpers/test-app';
+import { raiseFinding } from '../helpers/raise-finding';
 
 jest.setTimeout(240000);
 
 let t: TestApp;
-let tok: Awaited<ReturnType<TestApp['tokens']>>;
+let tok: Tokens;
 let kitId: string;
 let n = 0;
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 const ROUNDS = 20;
 
+demoApp((s) => ({ t, tok } = s));
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
   kitId = await publishSmallKit(t, tok.supplier, smallKits.race);
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 /** A fresh part with every hole installed and its step done: ready to sign off. */
@@ -58,20 +54,18 @@ describe(`a sign-off racing a change at the bench (${ROUNDS} rounds each)`, () =
     [
       'raising a finding',
       async (p: { id: string }) =>
-        request(t.app)
-          .post('/api/findings')
-          .set(auth(tok.builder))
-          .field('travelerId', p.id)
-          .field('holeIds', '["U-01"]')
-          .field('kind', 'hole_cracked')
-          .field('note', 'crack at the edge')
-          .attach(
-            'photos',
-            await sharp({ create: { width: 16, height: 16, channels: 3, background: '#555' } })
-              .jpeg()
-              .toBuffer(),
-            { filename: 'c.jpg', contentType: 'image/jpeg' },
-          ),
+        raiseFinding(t, tok.builder, {
+          travelerId: p.id,
+          holeIds: ['U-01'],
+          kind: 'hole_cracked',
+          note: 'crack at the edge',
+        }).attach(
+          'photos',
+          await sharp({ create: { width: 16, height: 16, channels: 3, background: '#555' } })
+            .jpeg()
+            .toBuffer(),
+          { filename: 'c.jpg', contentType: 'image/jpeg' },
+        ),
     ],
   ] as const)('never ends signed off with work open when racing %s', async (_what, change) => {
     const outcomes = { signedOff: 0, changed: 0 };

@@ -3,28 +3,22 @@ import { DEMO_USERS } from '@/server/dev/seed';
 import { allowedPartActions, checkPartAction, NOTE_MIN_LENGTH, type BuildPlace, type PartFacts } from '@/db/contracts';
 import { smallKits } from '../fixtures/rib-revision';
 import { publishSmallKit, shipBuild, workPart } from '../helpers/small-kit';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoApp, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(240000);
 
 let t: TestApp;
-let tok: Awaited<ReturnType<TestApp['tokens']>>;
+let tok: Tokens;
 let outsider: { builder: string; inspector: string; supplier: string };
 let kitId: string;
 let n = 0;
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 /** Bounded: each round ships a build of its own. */
 const ROUNDS = 6;
 const REASON = 'shop head on U-02 found cracked at the final walk-round';
 
+demoApp((s) => ({ t, tok, outsiders: outsider } = s), { outsiders: true });
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
-  outsider = await t.outsiders();
   kitId = await publishSmallKit(t, tok.supplier, smallKits.withdrawal);
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 type Part = { id: string; buildId: string; kitSerial: string; stepId: string };
@@ -296,15 +290,10 @@ describe('QR labels through the travelers API', () => {
 
 describe('labels with a loopback public address', () => {
   let local: TestApp;
-  beforeAll(async () => {
-    local = await startTestApp({ env: { PUBLIC_URL: 'http://localhost:8080' } });
-  });
-  afterAll(async () => {
-    await local?.close();
-  });
+  let tokens: Tokens;
+  demoApp((s) => ({ t: local, tok: tokens } = s), { env: { PUBLIC_URL: 'http://localhost:8080' } });
 
   it('are refused with how to set the address, even for one part', async () => {
-    const tokens = await local.tokens();
     const parts = (await request(local.app).get('/api/travelers').set(auth(tokens.builder))).body.items;
     const res = await request(local.app)
       .get('/api/travelers/labels')

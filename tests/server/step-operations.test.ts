@@ -4,13 +4,13 @@
  * (W-104), whose step 2 (the fit check before riveting) is an inspection point.
  */
 import request from 'supertest';
-import { auth, demoRibs, startTestApp, type TestApp, type Tokens } from '../helpers/test-app';
+import { auth, demoApp, demoRibs, type Outsiders, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(60000);
 
 let t: TestApp;
 let tok: Tokens;
-let outsiders: Awaited<ReturnType<TestApp['outsiders']>>;
+let outsiders: Outsiders;
 let innerId: string;
 let buildId: string;
 type Step = {
@@ -25,14 +25,9 @@ type Step = {
   stampedByName: string | null;
 };
 
+demoApp((s) => ({ t, tok, outsiders } = s), { outsiders: true });
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
-  outsiders = await t.outsiders();
   ({ innerId, buildId } = await demoRibs(t, tok.builder));
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 const part = async (token = tok.builder) =>

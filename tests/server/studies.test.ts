@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { DEMO_STUDY_INPUTS } from '@/server/dev/seed';
+import { DEMO_STUDY_INPUTS } from '@/server/dev/demo-inputs';
 import { auth, demoAppWithKit, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(90000);

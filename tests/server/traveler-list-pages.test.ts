@@ -1,18 +1,16 @@
 import request from 'supertest';
 import { sql } from 'drizzle-orm';
 import type { Page, TravelerSummary } from '@/db/contracts';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoApp, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(120000);
 
 let t: TestApp;
-let tok: Awaited<ReturnType<TestApp['tokens']>>;
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
+let tok: Tokens;
 const EXTRA = 23;
 
+demoApp((s) => ({ t, tok } = s));
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
   // More parts on the demo build, written in one statement: they share one created_at to the microsecond,
   // the case where a list ordered by time alone would repeat or skip rows between pages.
   await t.database.db.execute(sql`
@@ -23,9 +21,6 @@ beforeAll(async () => {
   await t.database.db.execute(sql`
     update travelers set replaced_by_id = (select id from travelers where serial like '%-X01'), replaced_reason = 'scrap', replaced_at = now()
     where serial like '%-X02'`);
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 async function walk(token: string, query: string, limit: number): Promise<{ rows: TravelerSummary[]; pages: number }> {

@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { DEMO_STUDY_INPUTS, DEMO_WING_INPUTS } from '@/server/dev/seed';
+import { DEMO_STUDY_INPUTS, DEMO_WING_INPUTS } from '@/server/dev/demo-inputs';
 import { STUDY_SUMMARY_KEYS } from '../fixtures/study-summary';
 import { auth, demoAppWithKit, type TestApp, type Tokens } from '../helpers/test-app';
 
@@ -40,6 +40,9 @@ beforeAll(async () => {
 const post = (body: object, token = tok.supplier) => request(t.app).post('/api/studies').set(auth(token)).send(body);
 const apply = (id: string, body: object, token = tok.supplier) =>
   request(t.app).post(`/api/studies/${id}/apply`).set(auth(token)).send(body);
+/** Applies `choice` (a gauge and rivet of the wing study's) for its skin panel `panel` to skin part W-201. */
+const applyToSkin = (panel: string, choice: object, token = tok.supplier) =>
+  apply(wing.id, { partDesignId: designIds['W-201'], ...choice, target: { kind: 'skin', name: panel } }, token);
 
 describe('a whole-wing study', () => {
   it('computes every rib and every skin panel between neighbouring ribs, and says it is a wing', () => {
@@ -175,11 +178,7 @@ describe('applying a wing study to a part design', () => {
       (s: { surface: string; innerRib: string }) => s.surface === 'upper' && s.innerRib === 'W-101',
     );
     const pick: Choice = panel.recommended;
-    const res = await apply(wing.id, {
-      partDesignId: designIds['W-201'],
-      ...pick,
-      target: { kind: 'skin', name: panel.name },
-    });
+    const res = await applyToSkin(panel.name, pick);
     expect(res.status).toBe(200);
     // The demo's draft A is written over, not a new letter.
     expect(res.body).toMatchObject({
@@ -217,12 +216,7 @@ describe('applying a wing study to a part design', () => {
   it('refuses a skin candidate that does not carry the load, with its reasons', async () => {
     const panel = wing.result.skins.find((s: any) => s.candidates.some((c: any) => !c.feasible));
     const bad = panel.candidates.find((c: any) => !c.feasible);
-    const res = await apply(wing.id, {
-      partDesignId: designIds['W-201'],
-      gaugeIn: bad.gaugeIn,
-      rivet: bad.rivet,
-      target: { kind: 'skin', name: panel.name },
-    });
+    const res = await applyToSkin(panel.name, { gaugeIn: bad.gaugeIn, rivet: bad.rivet });
     expect(res.status).toBe(409);
     expect(res.body.error.message).toContain(bad.reasons[0]);
   });
@@ -255,12 +249,7 @@ describe('applying a wing study to a part design', () => {
   it("refuses a skin candidate whose zones the wing did not keep, pointing to the panel's recommended one", async () => {
     const panel = wing.result.skins.find((s: any) => s.candidates.some((c: any) => c.feasible && c.lines.length === 0));
     const other = panel.candidates.find((c: any) => c.feasible && c.lines.length === 0);
-    const res = await apply(wing.id, {
-      partDesignId: designIds['W-201'],
-      gaugeIn: other.gaugeIn,
-      rivet: other.rivet,
-      target: { kind: 'skin', name: panel.name },
-    });
+    const res = await applyToSkin(panel.name, { gaugeIn: other.gaugeIn, rivet: other.rivet });
     expect(res.status).toBe(409);
     expect(res.body.error.message).toContain(
       `recommended candidate (${panel.recommended.gaugeIn} in with ${panel.recommended.rivet})`,
@@ -274,11 +263,7 @@ describe('applying a wing study to a part design', () => {
       target: { kind: 'rib', name: 'W-999' },
     });
     expect(rib.status).toBe(404);
-    const panel = await apply(wing.id, {
-      partDesignId: designIds['W-201'],
-      ...wing.result.skins[0].recommended,
-      target: { kind: 'skin', name: 'W-101–W-110 upper' },
-    });
+    const panel = await applyToSkin('W-101–W-110 upper', wing.result.skins[0].recommended);
     expect(panel.status).toBe(404);
   });
 });
@@ -336,15 +321,7 @@ describe('who may see and use a wing study', () => {
     request(t.app).get(`/api/studies/${ribStudyId}/candidate?gaugeIn=0.02&rivet=PULLED-4`).set(auth(token));
   /** Applies the wing's first skin panel's recommendation to skin part W-201, as `token`. */
   const applyFirstSkin = (token: string) =>
-    apply(
-      wing.id,
-      {
-        partDesignId: designIds['W-201'],
-        ...wing.result.skins[0].recommended,
-        target: { kind: 'skin', name: wing.result.skins[0].name },
-      },
-      token,
-    );
+    applyToSkin(wing.result.skins[0].name, wing.result.skins[0].recommended, token);
 
   it("hides one supplier's study from another: 404 to read, list, revise, ask a candidate of or apply", async () => {
     expect((await request(t.app).get(`/api/studies/${wing.id}`).set(auth(otherSupplier))).status).toBe(404);

@@ -7,26 +7,21 @@ import request from 'supertest';
 import { jpeg } from '../helpers/photos';
 import { sweepOrphanPhotos } from '@/server/jobs/photo-sweep';
 import { parseCsv } from '../helpers/csv';
-import { auth, demoRibs, startTestApp, type TestApp, type Tokens } from '../helpers/test-app';
+import { auth, demoApp, demoRibs, type Outsiders, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(60000);
 
 let t: TestApp;
 let tok: Tokens;
-let outsiders: Awaited<ReturnType<TestApp['outsiders']>>;
+let outsiders: Outsiders;
 let innerId: string;
 let buildId: string;
 let firstStepId: string;
 
+demoApp((s) => ({ t, tok, outsiders } = s), { outsiders: true });
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
-  outsiders = await t.outsiders();
   ({ innerId, buildId } = await demoRibs(t, tok.builder));
   firstStepId = (await request(t.app).get(`/api/travelers/${innerId}`).set(auth(tok.builder))).body.steps[0].id;
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 const upload = (token: string, fields: Record<string, string>, files = 1) => {

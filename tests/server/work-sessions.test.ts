@@ -5,26 +5,21 @@
  */
 import request from 'supertest';
 import { logPdfText } from '../helpers/pdf-text';
-import { auth, demoRibs, startTestApp, type TestApp, type Tokens } from '../helpers/test-app';
+import { auth, demoApp, demoRibs, type Outsiders, type TestApp, type Tokens } from '../helpers/test-app';
 
 jest.setTimeout(60000);
 
 let t: TestApp;
 let tok: Tokens;
-let outsiders: Awaited<ReturnType<TestApp['outsiders']>>;
+let outsiders: Outsiders;
 let outerId: string;
 let innerId: string;
 let buildId: string;
 const H = 3_600_000;
 
+demoApp((s) => ({ t, tok, outsiders } = s), { outsiders: true });
 beforeAll(async () => {
-  t = await startTestApp();
-  tok = await t.tokens();
-  outsiders = await t.outsiders();
   ({ innerId, outerId, buildId } = await demoRibs(t, tok.builder));
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 const post = (id: string, what: string, body: Record<string, unknown>, token = tok.builder) =>
