@@ -26,10 +26,7 @@ const prepareSessionUser = (db: Db) =>
     .where(eq(users.id, sql.placeholder('id')))
     .prepare('session_user');
 
-export async function findSessionUser(
-  db: Db,
-  id: string,
-): Promise<SessionRow | undefined> {
+export async function findSessionUser(db: Db, id: string): Promise<SessionRow | undefined> {
   let query = sessionUserQueries.get(db);
   if (!query) sessionUserQueries.set(db, (query = prepareSessionUser(db)));
   const [row] = await query.execute({ id });
