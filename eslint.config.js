@@ -18,11 +18,6 @@ module.exports = defineConfig([
     },
   },
   {
-    // metro.config.js writes this JSON when bundling starts: absent on a fresh clone, there after a build.
-    files: ['metro.router-ctx.js'],
-    rules: { 'import/no-unresolved': ['error', { ignore: ['/router-layouts\\.json$'] }] },
-  },
-  {
     // Generated or installed, never written by hand.
     ignores: [
       'dist/**',

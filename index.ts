@@ -14,3 +14,8 @@ registerServiceWorker();
 // After the setting, hence require rather than a hoisted import.
 // eslint-disable-next-line @typescript-eslint/no-require-imports
 require('expo-router/entry');
+
+// The app draws on a later task (expo-router renders in a transition): what the page opened at needs
+// starts now, meanwhile (components/navigation/early-arrival.web.ts; nothing on a phone).
+// eslint-disable-next-line @typescript-eslint/no-require-imports
+require('./components/navigation/early-arrival').startEarlyArrival();

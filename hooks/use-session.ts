@@ -16,7 +16,9 @@ import { configureApiClient } from '@/lib/api-client';
 import { readJson, removeKey, storageKeys, tabScoped, writeJson } from '@/lib/storage';
 import { clearOfflineCaches } from '@/lib/service-worker';
 
-type Stored = { token: string; expiresAt: string; user: SessionUser };
+/** The session as kept on the device (storageKeys.session). */
+export type StoredSession = { token: string; expiresAt: string; user: SessionUser };
+type Stored = StoredSession;
 
 export type Session = {
   status: 'loading' | 'signed-out' | 'signed-in';
@@ -39,7 +41,7 @@ export type Session = {
 
 const SessionContext = createContext<Session | null>(null);
 
-function isLive(s: Stored | null): s is Stored {
+export function isLive(s: Stored | null): s is Stored {
   return !!s && !!s.token && !!s.user && new Date(s.expiresAt).getTime() > Date.now();
 }
 

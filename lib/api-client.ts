@@ -71,6 +71,36 @@ export type RequestOptions = {
   skipUnauthorizedHook?: boolean;
 };
 
+/**
+ * GETs started before the app has drawn anything (components/navigation/early-arrival.web.ts: a page opened from its link by a
+ * person already signed in), by path: the first request of the same path with the same token takes the
+ * answer instead of asking again, and everything after it (errors, a refused session) goes as for any
+ * request. Each is taken once, and only soon after it started: a later ask is a fresh one.
+ */
+const early = new Map<string, { token: string; at: number; response: Promise<Response> }>();
+/** How long an early answer waits to be taken, ms (a start-up's length, with room for a slow phone). */
+const EARLY_TAKEN_WITHIN_MS = 15_000;
+/** Early answers kept at once, at most: one page's few requests. */
+const EARLY_MAX = 4;
+
+export function startEarlyGet(path: string, token: string): void {
+  if (early.has(path) || early.size >= EARLY_MAX || typeof fetch !== 'function') return;
+  const response = fetch(url(path), {
+    method: 'GET',
+    headers: { Accept: 'application/json', Authorization: `Bearer ${token}` },
+  });
+  // A failure is the taker's to report; an answer never taken fails quietly.
+  response.catch(() => undefined);
+  early.set(path, { token, at: Date.now(), response });
+}
+
+function takeEarly(path: string, token: string | null): Promise<Response> | null {
+  const e = early.get(path);
+  if (!e) return null;
+  early.delete(path);
+  return e.token === token && Date.now() - e.at <= EARLY_TAKEN_WITHIN_MS ? e.response : null;
+}
+
 export async function apiRequest<T>(path: string, opts: RequestOptions = {}): Promise<T> {
   const headers: Record<string, string> = { Accept: 'application/json' };
   const token = hooks.getToken();
@@ -85,12 +115,14 @@ export async function apiRequest<T>(path: string, opts: RequestOptions = {}): Pr
 
   let res: Response;
   try {
-    res = await fetch(url(path), {
-      method: opts.method ?? (body ? 'POST' : 'GET'),
-      headers,
-      body,
-      signal: opts.signal,
-    });
+    const taken = !body && (opts.method ?? 'GET') === 'GET' ? takeEarly(path, token) : null;
+    res = await (taken ??
+      fetch(url(path), {
+        method: opts.method ?? (body ? 'POST' : 'GET'),
+        headers,
+        body,
+        signal: opts.signal,
+      }));
   } catch (e) {
     if ((e as Error)?.name === 'AbortError') throw e;
     throw new ApiError(0, 'network', networkMessage);

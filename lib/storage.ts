@@ -23,6 +23,21 @@ export async function readJson<T>(key: string): Promise<T | null> {
   }
 }
 
+/**
+ * The same value read at once, on the web only, where AsyncStorage keeps it in the page's localStorage
+ * under the same key: for what must be known before the first render (lib/arrival.web.ts). Null
+ * elsewhere, and when absent or unreadable.
+ */
+export function readJsonNow<T>(key: string): T | null {
+  if (Platform.OS !== 'web' || typeof window === 'undefined') return null;
+  try {
+    const raw = window.localStorage?.getItem(key);
+    return raw ? (JSON.parse(raw) as T) : null;
+  } catch {
+    return null;
+  }
+}
+
 export async function writeJson(key: string, value: unknown): Promise<void> {
   await AsyncStorage.setItem(key, JSON.stringify(value));
 }

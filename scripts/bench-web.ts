@@ -9,7 +9,9 @@
  *     until the page shows its content (the empty app's one screen; a traveler's screen with its holes
  *     drawn, two animation frames after they are in the page), against the empty app's beside 1.5×, and
  *     a 2,000-hole traveler against the demo's 55-hole one beside 1.3×. First-contentful-paint is
- *     printed alongside.
+ *     printed alongside;
+ *   - with BENCH_WATERFALL=1, one cold traveler load as a waterfall: each request the page made (its
+ *     start and end), the first paint and the moment the holes were in, in time order.
  *
  * Both exports go under the system's temporary folder (never dist/): the product through
  * scripts/build-web.sh, the empty app from a one-screen app/ that links this project's node_modules.
@@ -236,7 +238,15 @@ const readyWatcher = (selectors: string[]) => `(() => {
   new MutationObserver(check).observe(document, { childList: true, subtree: true });
 })();`;
 
-type Load = { scripts: { url: string; gzip: number }[]; ready: number; fcp: number | null };
+type Load = {
+  scripts: { url: string; gzip: number }[];
+  ready: number;
+  fcp: number | null;
+  /** Every request the page made: its path, kind and times (ms from the start of the load). */
+  requests: { path: string; kind: string; start: number; end: number }[];
+  /** When the watched elements were all in the page. */
+  seen: number;
+};
 
 /** One load of `url` in a fresh context: the scripts it fetched (gzip of the exported file) and its times. */
 async function load(
@@ -273,7 +283,14 @@ async function load(
     await page.waitForLoadState('networkidle', { timeout: LOAD_TIMEOUT_MS }).catch(() => undefined);
     const times = await page.evaluate(() => ({
       ready: (window as unknown as { __ready: number }).__ready,
+      seen: (window as unknown as { __seen: number }).__seen,
       fcp: performance.getEntriesByName('first-contentful-paint')[0]?.startTime ?? null,
+      requests: (performance.getEntriesByType('resource') as PerformanceResourceTiming[]).map((r) => ({
+        path: new URL(r.name).pathname + new URL(r.name).search,
+        kind: r.initiatorType,
+        start: r.startTime,
+        end: r.responseEnd,
+      })),
     }));
     return {
       scripts: [...new Set(scripts)].map((p) => ({ url: p, gzip: gzipSync(readFileSync(path.join(dir, p))).length })),
@@ -370,6 +387,18 @@ async function main() {
     const e = m(runs.empty),
       s = m(runs.small),
       b = m(runs.big);
+    if (process.env.BENCH_WATERFALL) {
+      const w = await load(browser, productBase, productOut, `/travelers/${small.id}`, travelerScreen, signedIn);
+      console.log(`\nwaterfall of one cold load of traveler ${small.partNumber} (ms from the start of the load)`);
+      const rows: [number, string][] = w.requests.map((r) => [
+        r.start,
+        `${ms(r.start).padStart(8)} – ${ms(r.end).padEnd(8)} ${r.kind.padEnd(7)} ${r.path.slice(0, 80)}`,
+      ]);
+      if (w.fcp !== null) rows.push([w.fcp, `${ms(w.fcp).padStart(8)}   first-contentful-paint`]);
+      rows.push([w.seen, `${ms(w.seen).padStart(8)}   the traveler and its holes in the page`]);
+      for (const [, line] of rows.sort((a, b) => a[0] - b[0])) console.log(line);
+    }
+
     console.log(`\npaint, median of ${LOADS} cold loads (content shown; first-contentful-paint in brackets)`);
     console.log(`  empty app:                       ${ms(e.ready)} (${ms(e.fcp)})`);
     console.log(

@@ -1,5 +1,6 @@
+import { useQueryClient } from '@tanstack/react-query';
 import { useRouter } from 'expo-router';
-import { useCallback, useMemo, useState } from 'react';
+import { useCallback, useEffect, useMemo, useState } from 'react';
 import { View } from 'react-native';
 import {
   dispositionLabels,
@@ -29,6 +30,7 @@ import {
   useTickQueue,
   useTravelerTickMutation,
 } from '@/hooks/queries/travelers';
+import { noticeQueries } from '@/hooks/queries/notices';
 import { useFlash } from '@/hooks/use-flash';
 import { useUnits } from '@/hooks/use-units';
 import { HolesPanel } from './holes-panel';
@@ -43,6 +45,12 @@ import { ZonesTable } from './zones-table';
 
 export function TravelerScreen({ travelerId }: { travelerId: string }) {
   const q = useTravelerQuery(travelerId);
+  // The notices banner's list asked for alongside the traveler, not once the traveler is drawn: the
+  // banner then shows with the rest rather than pushing it down a moment later.
+  const queryClient = useQueryClient();
+  useEffect(() => {
+    if (travelerId) void queryClient.prefetchInfiniteQuery(noticeQueries.list({ travelerId }));
+  }, [queryClient, travelerId]);
   if (q.isPending) {
     return (
       <Screen title="Traveler" backTo="/travelers">

@@ -19,7 +19,7 @@ import { api, ApiError } from '@/lib/api-client';
 import { appendPhotos, type DraftPhoto } from '@/lib/photo-form-data';
 import { buildLogKeys } from './build-log';
 import { invalidateAll } from './mutations';
-import { pagedQueryOptions } from './paged';
+import { pagedQueryOptions, pagePath } from './paged';
 
 /** GET /api/notices narrows by one of these (db/contracts/notices.ts `noticeListQuery`). */
 export type NoticeFilters = { kitModelId?: string; buildId?: string; travelerId?: string };
@@ -40,14 +40,15 @@ const noticePath = (id: string, rest = '') => `/api/notices/${encodeURIComponent
 const answerPath = (id: string, buildId: string, action: 'acknowledge' | 'compliance') =>
   noticePath(id, `/builds/${encodeURIComponent(buildId)}/${action}`);
 
+const listFilters = (f: NoticeFilters) => ({ kitModelId: f.kitModelId, buildId: f.buildId, travelerId: f.travelerId });
+
+/** The first page of a list, as its query asks for it (lib/arrival.web.ts asks for a part's early). */
+export const noticeListFirstPath = (f: NoticeFilters) => pagePath('/api/notices', null, listFilters(f));
+
 export const noticeQueries = {
   /** A kit's notices (the supplier), or one build's or one part's with that build's answer on each row. */
   list: (f: NoticeFilters = {}) =>
-    pagedQueryOptions<Page<NoticeSummary>>(noticeKeys.list(f), '/api/notices', {
-      kitModelId: f.kitModelId,
-      buildId: f.buildId,
-      travelerId: f.travelerId,
-    }),
+    pagedQueryOptions<Page<NoticeSummary>>(noticeKeys.list(f), '/api/notices', listFilters(f)),
   detail: (id: string) =>
     queryOptions({
       queryKey: noticeKeys.detail(id),

@@ -59,6 +59,9 @@ export const travelerKeys = {
   tick: (id: string) => [...travelerKeys.ticks(), id] as const,
 };
 
+/** GET of one part's traveler: its query's, and lib/arrival.web.ts's when the app opens at the part. */
+export const travelerDetailPath = (id: string) => `/api/travelers/${encodeURIComponent(id)}`;
+
 export const travelerQueries = {
   /** The parts in pages, live ones first, by serial; the server's filters go with every page. */
   list: (f: TravelerFilters = {}) =>
@@ -71,7 +74,7 @@ export const travelerQueries = {
       queryKey: travelerKeys.detail(id),
       // Ticks not yet through to the server are shown as made, whatever the server has seen so far.
       queryFn: async ({ signal, client }) =>
-        withUnsentTicks(await api.get<TravelerDetail>(`/api/travelers/${encodeURIComponent(id)}`, signal), client),
+        withUnsentTicks(await api.get<TravelerDetail>(travelerDetailPath(id), signal), client),
     }),
   lookup: (code: string) =>
     queryOptions({
