@@ -114,12 +114,13 @@ const walkerCache = new WeakMap<readonly Point[], Map<string, (distance: number)
 function makeWalker(outline: readonly Point[], side: Side, x0: number): (distance: number) => number {
   const b = outlineBounds(outline);
   const n = 1000;
+  const sideAt = sideSweep(outline, b, side);
   const xs: number[] = [x0];
   const along: number[] = [0];
-  let y = surfaceYWithin(outline, b, x0, side);
+  let y = sideAt(x0);
   for (let i = 1; i <= n && xs[xs.length - 1] < b.maxX; i++) {
     const x = Math.min(b.maxX, x0 + ((b.maxX - x0) * i) / n);
-    const ny = surfaceYWithin(outline, b, x, side);
+    const ny = sideAt(x);
     along.push(along[along.length - 1] + Math.hypot(x - xs[xs.length - 1], ny - y));
     xs.push(x);
     y = ny;
@@ -135,6 +136,51 @@ function makeWalker(outline: readonly Point[], side: Side, x0: number): (distanc
       else hi = mid;
     }
     return xs[lo] + ((xs[hi] - xs[lo]) * (distance - along[lo])) / (along[hi] - along[lo]);
+  };
+}
+
+/**
+ * surfaceYWithin for x that never decreases from one call to the next, as a walker samples a side: the
+ * same crossings, worked out the same way, but only of the edges whose span can still hold x (kept in
+ * order of where they start, and let go once x has passed their end), not of every edge for every x.
+ * A part's first drawing sampled its sides edge by edge, 1000 times over.
+ */
+function sideSweep(outline: readonly Point[], b: Bounds, side: Side): (x: number) => number {
+  const n = outline.length;
+  const edges: { x1: number; y1: number; x2: number; y2: number; lo: number; hi: number }[] = [];
+  for (let i = 0; i < n; i++) {
+    const [x1, y1] = outline[i];
+    const [x2, y2] = outline[(i + 1) % n];
+    edges.push({ x1, y1, x2, y2, lo: Math.min(x1, x2), hi: Math.max(x1, x2) });
+  }
+  edges.sort((p, q) => p.lo - q.lo);
+  let next = 0;
+  let open: typeof edges = [];
+  return (x) => {
+    if (!n) return 0;
+    const cx = Math.min(b.maxX, Math.max(b.minX, x));
+    while (next < edges.length && edges[next].lo - 1e-9 <= cx) open.push(edges[next++]);
+    open = open.filter((e) => e.hi + 1e-9 >= cx);
+    // As crossings() does, edge by edge.
+    let found = false;
+    let best = 0;
+    const take = (y: number) => {
+      best = !found ? y : side === 'upper' ? Math.max(best, y) : Math.min(best, y);
+      found = true;
+    };
+    for (const { x1, y1, x2, y2, lo, hi } of open) {
+      if (x1 === x2) {
+        if (Math.abs(cx - x1) < 1e-9) {
+          take(y1);
+          take(y2);
+        }
+        continue;
+      }
+      if (cx < lo - 1e-9 || cx > hi + 1e-9) continue;
+      take(y1 + ((cx - x1) * (y2 - y1)) / (x2 - x1));
+    }
+    if (!found) return side === 'upper' ? b.maxY : b.minY;
+    return best;
   };
 }
 

@@ -7,6 +7,7 @@ import {
   placeHole,
   placeHoles,
   surfaceY,
+  xAlongSurface,
   type Point,
 } from '@/components/travelers/part-geometry';
 
@@ -88,5 +89,66 @@ describe('placing holes', () => {
     expect(path[0]).toEqual([5, expect.closeTo(1.5)]);
     // 5 in up the front slope to the peak (5.22 in along it), then down the back at 1/10 for the rest.
     expect(path[path.length - 1][0]).toBeCloseTo(10 + (20 - 5 * Math.sqrt(1.09)) / Math.sqrt(1.01), 2);
+  });
+});
+
+describe('walking a side', () => {
+  // The walk as first written: the side read edge by edge (surfaceY) at each of 1000 steps. The
+  // walker now sweeps the edges in order; it must land on exactly the same x.
+  function walkEdgeByEdge(outline: Point[], side: 'upper' | 'lower', x0: number): (distance: number) => number {
+    const b = outlineBounds(outline);
+    const xs = [x0];
+    const along = [0];
+    let y = surfaceY(outline, x0, side);
+    for (let i = 1; i <= 1000 && xs[xs.length - 1] < b.maxX; i++) {
+      const x = Math.min(b.maxX, x0 + ((b.maxX - x0) * i) / 1000);
+      const ny = surfaceY(outline, x, side);
+      along.push(along[along.length - 1] + Math.hypot(x - xs[xs.length - 1], ny - y));
+      xs.push(x);
+      y = ny;
+    }
+    return (distance) => {
+      if (distance <= 0) return x0;
+      let lo = 0;
+      let hi = along.length - 1;
+      if (distance >= along[hi]) return xs[hi];
+      while (hi - lo > 1) {
+        const mid = (lo + hi) >> 1;
+        if (along[mid] < distance) lo = mid;
+        else hi = mid;
+      }
+      return xs[lo] + ((xs[hi] - xs[lo]) * (distance - along[lo])) / (along[hi] - along[lo]);
+    };
+  }
+
+  // The rib, a notched outline with vertical steps inside the chord, and one with its edges out of order.
+  const notched: Point[] = [
+    [0, 0],
+    [8, 2],
+    [8, 2.5],
+    [20, 2.5],
+    [20, 1.5],
+    [34, 0.5],
+    [34, -1],
+    [0, -1],
+  ];
+  const shuffled: Point[] = [
+    [30, 0],
+    [12, 2],
+    [0, 0.5],
+    [3, -1.5],
+    [30, -0.5],
+  ];
+
+  it.each([
+    ['the rib', rib],
+    ['a notched outline', notched],
+    ['an outline started mid-chord', shuffled],
+  ])('lands where reading %s edge by edge lands', (_name, outline) => {
+    for (const side of ['upper', 'lower'] as const)
+      for (const x0 of [-2, 0, 5, 8, 19.99]) {
+        const walk = walkEdgeByEdge(outline, side, x0);
+        for (let d = -1; d <= 45; d += 0.37) expect(xAlongSurface(outline, side, x0, d)).toBe(walk(d));
+      }
   });
 });
