@@ -113,13 +113,21 @@ const walkerCache = new WeakMap<readonly Point[], Map<string, (distance: number)
 
 function makeWalker(outline: readonly Point[], side: Side, x0: number): (distance: number) => number {
   const b = outlineBounds(outline);
+  return walkerOver(sideSweep(outline, b, side), x0, b.maxX);
+}
+
+/**
+ * The walk itself over a side given as x → y (`sideAt`, read at rising x): sampled in 1000 steps from x0
+ * to maxX, then distance → x by halving the sampled lengths. Exported so a test can walk the same way
+ * over the side read edge by edge.
+ */
+export function walkerOver(sideAt: (x: number) => number, x0: number, maxX: number): (distance: number) => number {
   const n = 1000;
-  const sideAt = sideSweep(outline, b, side);
   const xs: number[] = [x0];
   const along: number[] = [0];
   let y = sideAt(x0);
-  for (let i = 1; i <= n && xs[xs.length - 1] < b.maxX; i++) {
-    const x = Math.min(b.maxX, x0 + ((b.maxX - x0) * i) / n);
+  for (let i = 1; i <= n && xs[xs.length - 1] < maxX; i++) {
+    const x = Math.min(maxX, x0 + ((maxX - x0) * i) / n);
     const ny = sideAt(x);
     along.push(along[along.length - 1] + Math.hypot(x - xs[xs.length - 1], ny - y));
     xs.push(x);

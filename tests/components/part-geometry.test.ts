@@ -7,6 +7,7 @@ import {
   placeHole,
   placeHoles,
   surfaceY,
+  walkerOver,
   xAlongSurface,
   type Point,
 } from '@/components/travelers/part-geometry';
@@ -93,33 +94,10 @@ describe('placing holes', () => {
 });
 
 describe('walking a side', () => {
-  // The walk as first written: the side read edge by edge (surfaceY) at each of 1000 steps. The
-  // walker now sweeps the edges in order; it must land on exactly the same x.
-  function walkEdgeByEdge(outline: Point[], side: 'upper' | 'lower', x0: number): (distance: number) => number {
-    const b = outlineBounds(outline);
-    const xs = [x0];
-    const along = [0];
-    let y = surfaceY(outline, x0, side);
-    for (let i = 1; i <= 1000 && xs[xs.length - 1] < b.maxX; i++) {
-      const x = Math.min(b.maxX, x0 + ((b.maxX - x0) * i) / 1000);
-      const ny = surfaceY(outline, x, side);
-      along.push(along[along.length - 1] + Math.hypot(x - xs[xs.length - 1], ny - y));
-      xs.push(x);
-      y = ny;
-    }
-    return (distance) => {
-      if (distance <= 0) return x0;
-      let lo = 0;
-      let hi = along.length - 1;
-      if (distance >= along[hi]) return xs[hi];
-      while (hi - lo > 1) {
-        const mid = (lo + hi) >> 1;
-        if (along[mid] < distance) lo = mid;
-        else hi = mid;
-      }
-      return xs[lo] + ((xs[hi] - xs[lo]) * (distance - along[lo])) / (along[hi] - along[lo]);
-    };
-  }
+  // The walk over the side read edge by edge (surfaceY) at each step, as first written. The walker
+  // sweeps the edges in order instead; it must land on exactly the same x.
+  const walkEdgeByEdge = (outline: Point[], side: 'upper' | 'lower', x0: number) =>
+    walkerOver((x) => surfaceY(outline, x, side), x0, outlineBounds(outline).maxX);
 
   // The rib, a notched outline with vertical steps inside the chord, and one with its edges out of order.
   const notched: Point[] = [
