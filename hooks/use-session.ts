@@ -13,7 +13,7 @@ import {
 import type { Role, SessionUser, SignInResult } from '@/db/contracts';
 import { safeInAppPath } from '@/components/navigation/pending-link';
 import { configureApiClient } from '@/lib/api-client';
-import { readJson, removeKey, storageKeys, tabScoped, writeJson } from '@/lib/storage';
+import { readJson, readJsonNow, removeKey, storageKeys, tabScoped, writeJson } from '@/lib/storage';
 import { clearOfflineCaches } from '@/lib/service-worker';
 
 /** The session as kept on the device (storageKeys.session). */
@@ -56,11 +56,17 @@ export function SessionProvider({
   children: ReactNode;
   arrivalHref?: string | null;
 }) {
-  const [status, setStatus] = useState<Session['status']>('loading');
-  const [stored, setStored] = useState<Stored | null>(null);
+  // On the web the stored session is read at once (localStorage): a person already signed in gets their
+  // page on the first draw rather than after an "opening" one. Elsewhere (and signed out) the read below decides.
+  const [initial] = useState(() => {
+    const s = readJsonNow<Stored>(storageKeys.session);
+    return isLive(s) ? s : null;
+  });
+  const [status, setStatus] = useState<Session['status']>(initial ? 'signed-in' : 'loading');
+  const [stored, setStored] = useState<Stored | null>(initial);
   const [endedBecause, setEndedBecause] = useState<string | null>(null);
   const [pendingHref, setPendingState] = useState<string | null>(null);
-  const tokenRef = useRef<string | null>(null);
+  const tokenRef = useRef<string | null>(initial?.token ?? null);
   // A ref as well as state: taking the path must see the latest value at once, not after a render.
   const pendingRef = useRef<string | null>(null);
   const arrivalRef = useRef(arrivalHref);
