@@ -18,7 +18,6 @@ import { clearOfflineCaches } from '@/lib/service-worker';
 
 /** The session as kept on the device (storageKeys.session). */
 export type StoredSession = { token: string; expiresAt: string; user: SessionUser };
-type Stored = StoredSession;
 
 export type Session = {
   status: 'loading' | 'signed-out' | 'signed-in';
@@ -41,7 +40,7 @@ export type Session = {
 
 const SessionContext = createContext<Session | null>(null);
 
-export function isLive(s: Stored | null): s is Stored {
+export function isLive(s: StoredSession | null): s is StoredSession {
   return !!s && !!s.token && !!s.user && new Date(s.expiresAt).getTime() > Date.now();
 }
 
@@ -59,11 +58,11 @@ export function SessionProvider({
   // On the web the stored session is read at once (localStorage): a person already signed in gets their
   // page on the first draw rather than after an "opening" one. Elsewhere (and signed out) the read below decides.
   const [initial] = useState(() => {
-    const s = readJsonNow<Stored>(storageKeys.session);
+    const s = readJsonNow<StoredSession>(storageKeys.session);
     return isLive(s) ? s : null;
   });
   const [status, setStatus] = useState<Session['status']>(initial ? 'signed-in' : 'loading');
-  const [stored, setStored] = useState<Stored | null>(initial);
+  const [stored, setStored] = useState<StoredSession | null>(initial);
   const [endedBecause, setEndedBecause] = useState<string | null>(null);
   const [pendingHref, setPendingState] = useState<string | null>(null);
   const tokenRef = useRef<string | null>(initial?.token ?? null);
@@ -101,7 +100,7 @@ export function SessionProvider({
   );
 
   const signIn = useCallback(async (result: SignInResult) => {
-    const next: Stored = { token: result.token, expiresAt: result.expiresAt, user: result.user };
+    const next: StoredSession = { token: result.token, expiresAt: result.expiresAt, user: result.user };
     tokenRef.current = next.token;
     setStored(next);
     setEndedBecause(null);
@@ -125,24 +124,26 @@ export function SessionProvider({
 
   useEffect(() => {
     let alive = true;
-    Promise.all([readJson<Stored>(storageKeys.session), tabScoped.read(storageKeys.pendingLink)]).then(([s, kept]) => {
-      if (!alive) return;
-      if (isLive(s)) {
-        tokenRef.current = s.token;
-        setStored(s);
-        // Already signed in: the page opened shows as it is, and nothing waits for a sign-in.
-        if (kept) setPendingHref(null);
-        setStatus('signed-in');
-      } else {
-        // A page opened just now wins over one kept from before; a reload of the sign-in page keeps the old one.
-        setPendingHref(arrivalRef.current ?? kept);
-        setStatus('signed-out');
-        if (s) {
-          void removeKey(storageKeys.session);
-          void clearOfflineCaches();
+    Promise.all([readJson<StoredSession>(storageKeys.session), tabScoped.read(storageKeys.pendingLink)]).then(
+      ([s, kept]) => {
+        if (!alive) return;
+        if (isLive(s)) {
+          tokenRef.current = s.token;
+          setStored(s);
+          // Already signed in: the page opened shows as it is, and nothing waits for a sign-in.
+          if (kept) setPendingHref(null);
+          setStatus('signed-in');
+        } else {
+          // A page opened just now wins over one kept from before; a reload of the sign-in page keeps the old one.
+          setPendingHref(arrivalRef.current ?? kept);
+          setStatus('signed-out');
+          if (s) {
+            void removeKey(storageKeys.session);
+            void clearOfflineCaches();
+          }
         }
-      }
-    });
+      },
+    );
     return () => {
       alive = false;
     };

@@ -25,7 +25,7 @@ export async function readJson<T>(key: string): Promise<T | null> {
 
 /**
  * The same value read at once, on the web only, where AsyncStorage keeps it in the page's localStorage
- * under the same key: for what must be known before the first render (lib/arrival.web.ts). Null
+ * under the same key: for what must be known before the first render (components/navigation/early-arrival.web.ts). Null
  * elsewhere, and when absent or unreadable.
  */
 export function readJsonNow<T>(key: string): T | null {

@@ -42,7 +42,7 @@ const answerPath = (id: string, buildId: string, action: 'acknowledge' | 'compli
 
 const listFilters = (f: NoticeFilters) => ({ kitModelId: f.kitModelId, buildId: f.buildId, travelerId: f.travelerId });
 
-/** The first page of a list, as its query asks for it (lib/arrival.web.ts asks for a part's early). */
+/** The first page of a list, as its query asks for it (components/navigation/early-arrival.web.ts asks for a part's early). */
 export const noticeListFirstPath = (f: NoticeFilters) => pagePath('/api/notices', null, listFilters(f));
 
 export const noticeQueries = {

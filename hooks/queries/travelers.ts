@@ -59,7 +59,7 @@ export const travelerKeys = {
   tick: (id: string) => [...travelerKeys.ticks(), id] as const,
 };
 
-/** GET of one part's traveler: its query's, and lib/arrival.web.ts's when the app opens at the part. */
+/** GET of one part's traveler: its query's, and components/navigation/early-arrival.web.ts's when the app opens at the part. */
 export const travelerDetailPath = (id: string) => `/api/travelers/${encodeURIComponent(id)}`;
 
 export const travelerQueries = {

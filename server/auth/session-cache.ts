@@ -3,15 +3,16 @@ import type { SessionUser } from '../../db/contracts';
 export type SessionRow = SessionUser & { active: boolean; sessionVersion: number };
 
 /**
- * Signed-in people read in the last second, by id: a bench ticking holes or a reviewer paging the
+ * Signed-in people read in the last second (SESSION_CACHE_MS; the README's "many builds" section says
+ * how long another process may still accept a token this one has ended), by id: a bench ticking holes or a reviewer paging the
  * queue sends request after request with one token, and reading their row for each was the one
  * statement every request paid for on top of its own.
  *
  * A change of role or standing, a new password or "sign out everywhere" forgets the person here at
  * once (auth and people repositories); another server process sees it when its own copy ages out,
- * within TTL_MS. User ids are random UUIDs, so one map serves every database a test process opens.
+ * within SESSION_CACHE_MS. User ids are random UUIDs, so one map serves every database a test process opens.
  */
-const TTL_MS = 1000;
+export const SESSION_CACHE_MS = 1000;
 /** Bounded whatever the traffic: the oldest entry goes first when it is full. */
 const MAX_ENTRIES = 10_000;
 
@@ -32,7 +33,7 @@ export async function cachedSessionUser(
   const row = await load(id);
   entries.delete(id);
   if (entries.size >= MAX_ENTRIES) entries.delete(entries.keys().next().value!);
-  entries.set(id, { row, until: now + TTL_MS });
+  entries.set(id, { row, until: now + SESSION_CACHE_MS });
   return row;
 }
 
@@ -40,6 +41,3 @@ export async function cachedSessionUser(
 export function forgetSessionUser(id: string): void {
   entries.delete(id);
 }
-
-/** How long another process may still accept a token this one has ended (README, many processes). */
-export const SESSION_CACHE_MS = TTL_MS;
