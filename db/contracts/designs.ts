@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { plainText } from './common';
 import { GAUGE_RANGE_IN, listOf, measured } from './engineering';
+import { countText } from '../../lib/number-text';
 
 export const partKinds = ['rib', 'nose_rib', 'skin_panel', 'spar_web'] as const;
 export type PartKind = (typeof partKinds)[number];
@@ -200,7 +201,7 @@ export const revisionInput = z
       ctx.addIssue({
         code: 'custom',
         path: ['lines', at[0], 'zones', at[1], 'pitchIn'],
-        message: `the zones give up to ${total.toLocaleString('en-US')} holes; a revision has at most ${MAX_REVISION_HOLES.toLocaleString('en-US')}: widen this pitch (${counts[at[0]][at[1]].toLocaleString('en-US')} holes in this zone)`,
+        message: `the zones give up to ${countText(total)} holes; a revision has at most ${countText(MAX_REVISION_HOLES)}: widen this pitch (${countText(counts[at[0]][at[1]])} holes in this zone)`,
       });
     }
   });

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { boundText } from '../../lib/number-text';
 
 /*
  * Physical ranges for the contracts' numbers. Every measured input states its range beside its field
@@ -7,14 +8,12 @@ import { z } from 'zod';
  * or narrower ones (tests/engineering/bounds.test.ts checks that they never let through more).
  */
 
-const fmt = (n: number) => (Number.isInteger(n) ? n.toLocaleString('en-US') : String(Math.round(n * 1e4) / 1e4));
-
 /**
  * A measured quantity: finite, and between min and max in its unit. A non-positive value of a quantity
  * that must be positive is told so first ("greater than zero"), then the range.
  */
 export const measured = (what: string, min: number, max: number, unit: string) => {
-  const range = `${what} must be between ${fmt(min)} and ${fmt(max)}${unit ? ` ${unit}` : ''}`;
+  const range = `${what} must be between ${boundText(min)} and ${boundText(max)}${unit ? ` ${unit}` : ''}`;
   const n = z.number({ message: `${what} must be a number` });
   return (min > 0 ? n.positive(`${what} must be greater than zero`) : n).min(min, range).max(max, range);
 };
@@ -24,15 +23,15 @@ export const whole = (what: string, min: number, max: number) =>
   z
     .number({ message: `${what} must be a number` })
     .int(`${what} must be a whole number`)
-    .min(min, `${what} must be from ${fmt(min)} to ${fmt(max)}`)
-    .max(max, `${what} must be from ${fmt(min)} to ${fmt(max)}`);
+    .min(min, `${what} must be from ${boundText(min)} to ${boundText(max)}`)
+    .max(max, `${what} must be from ${boundText(min)} to ${boundText(max)}`);
 
 /** A list whose length is bounded, with the field's own words. */
 export const listOf = <T extends z.ZodType>(item: T, what: string, min: number, max: number, tooFew?: string) =>
   z
     .array(item, { message: `${what} must be a list` })
     .min(min, tooFew ?? `give at least ${min} ${what}`)
-    .max(max, `at most ${fmt(max)} ${what}`);
+    .max(max, `at most ${boundText(max)} ${what}`);
 
 /** Sheet gauge, in: from foil-thin 0.008 in to 1/4 in plate (thicker is not sheet-metal riveting). */
 export const GAUGE_RANGE_IN = { min: 0.008, max: 0.25 } as const;

@@ -8,6 +8,7 @@ import {
   type LayoutRules,
 } from '../engineering';
 import { badRequest } from '../http-error';
+import { countText } from '../../lib/number-text';
 
 /**
  * The layout rules of the trade for a revision (edge distance ≥ 2D, 2.5D countersunk; pitch ≥ 3D), and
@@ -60,7 +61,7 @@ export function checkLayout(
     }
   });
   if (total > MAX_REVISION_HOLES) {
-    const message = `the zones give up to ${total.toLocaleString('en-US')} holes; a revision has at most ${MAX_REVISION_HOLES.toLocaleString('en-US')}: widen the pitches`;
+    const message = `the zones give up to ${countText(total)} holes; a revision has at most ${countText(MAX_REVISION_HOLES)}: widen the pitches`;
     throw badRequest(message, { [most.field]: message });
   }
   return minPitchIn;

@@ -1,5 +1,6 @@
 import { EngineeringInputError } from './errors';
 import { requireFinite } from './validate';
+import { boundText } from '../../lib/number-text';
 
 /**
  * The physical range of every number a study takes, and the work a study may cost. The engine owns
@@ -166,14 +167,14 @@ export function requireWithin(value: unknown, field: string, bound: Bound): numb
     if (v < bound.min || v >= bound.max)
       throw new EngineeringInputError(
         field,
-        `${bound.what} must be at least ${formatBound(bound.min)} and below ${formatBound(bound.max)}${unitText(bound)} (got ${v})`,
+        `${bound.what} must be at least ${boundText(bound.min)} and below ${boundText(bound.max)}${unitText(bound)} (got ${v})`,
       );
     return v;
   }
   if (v < bound.min || v > bound.max) {
     throw new EngineeringInputError(
       field,
-      `${bound.what} must be between ${formatBound(bound.min)} and ${formatBound(bound.max)}${unitText(bound)} (got ${v})`,
+      `${bound.what} must be between ${boundText(bound.min)} and ${boundText(bound.max)}${unitText(bound)} (got ${v})`,
     );
   }
   return v;
@@ -199,7 +200,3 @@ export function requireWingBound(value: unknown, key: WingBoundKey, field: strin
 }
 
 const unitText = (bound: Bound): string => (bound.unit ? ` ${bound.unit}` : '');
-
-function formatBound(n: number): string {
-  return Number.isInteger(n) ? n.toLocaleString('en-US') : String(Math.round(n * 1e4) / 1e4);
-}

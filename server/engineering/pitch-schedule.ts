@@ -16,6 +16,7 @@ import type {
   ScheduleSettings,
   ScheduleZone,
 } from '../../lib/engineering-results';
+import { countText } from '../../lib/number-text';
 
 export { prepareColumns, prepareStations, type LineColumns, type PreparedLine } from './station-loads';
 
@@ -61,7 +62,7 @@ export function requirePitchGrid(s: ScheduleSettings, largestRivetDiameterIn: nu
     const coarsest = (s.maxPitchDiameters * largestRivetDiameterIn) / (STUDY_BUDGET.pitchGrid - 1);
     throw new EngineeringInputError(
       'pitchIncrementIn',
-      `an increment of ${s.pitchIncrementIn} in makes ${size.toLocaleString('en-US')} pitches to try up to ${s.maxPitchDiameters}D of a ${largestRivetDiameterIn.toFixed(3)} in rivet; at most ${STUDY_BUDGET.pitchGrid}: use an increment of at least ${(Math.ceil(coarsest * 1000) / 1000).toFixed(3)} in`,
+      `an increment of ${s.pitchIncrementIn} in makes ${countText(size)} pitches to try up to ${s.maxPitchDiameters}D of a ${largestRivetDiameterIn.toFixed(3)} in rivet; at most ${STUDY_BUDGET.pitchGrid}: use an increment of at least ${(Math.ceil(coarsest * 1000) / 1000).toFixed(3)} in`,
     );
   }
   return size;

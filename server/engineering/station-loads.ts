@@ -3,6 +3,7 @@ import { STUDY_BUDGET } from './bounds';
 import { EngineeringInputError } from './errors';
 import { requireArray, requireFinite, requireNonNegative } from './validate';
 import type { StationLoad } from '../../lib/engineering-results';
+import { countText } from '../../lib/number-text';
 
 /**
  * The loads along one fastener line as the pitch schedule reads them: stations with the pull and shear
@@ -327,7 +328,7 @@ function validateStations(stations: unknown): StationLoad[] {
   if (list.length > STUDY_BUDGET.stations) {
     throw new EngineeringInputError(
       'stations',
-      `at most ${STUDY_BUDGET.stations.toLocaleString('en-US')} stations on a line (got ${list.length.toLocaleString('en-US')})`,
+      `at most ${countText(STUDY_BUDGET.stations)} stations on a line (got ${countText(list.length)})`,
     );
   }
   // Every station of every line comes through here: a sound one is passed on a quick look, and the

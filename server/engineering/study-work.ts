@@ -5,6 +5,7 @@ import { layoutRules } from './layout';
 import { pitchGridSize } from './pitch-schedule';
 import { lineStationCount } from './rib-geometry';
 import type { FastenerLineInput, RivetSpec, ScheduleSettings, StudyWork } from '../../lib/engineering-results';
+import { countText } from '../../lib/number-text';
 
 /** A study's cost counted from its input before it runs (`StudyWork`), and the budget each count is held to. */
 
@@ -41,8 +42,6 @@ export function estimateStudyWork(
   };
 }
 
-const fmt = (n: number) => Math.round(n).toLocaleString('en-US');
-
 /** The longer of the two candidate lists: the one to shorten to bring a product down the most. */
 function candidateField(input: StudyWorkInput, rivetCount: number): string {
   if (input.gaugeCandidates.length * rivetCount <= 1) return 'rib.chordIn';
@@ -62,7 +61,7 @@ export function requireStudyBudget(
     const wavy = total > 3 * nominal + input.rib.chordIn;
     throw new EngineeringInputError(
       wavy ? 'airfoil.points' : 'rib.chordIn',
-      `the fastener lines run ${fmt(total)} in along the surface, ${fmt(work.stations)} load stations; at most ${fmt(STUDY_BUDGET.stations)}: ` +
+      `the fastener lines run ${countText(total)} in along the surface, ${countText(work.stations)} load stations; at most ${countText(STUDY_BUDGET.stations)}: ` +
         (wavy
           ? `the outline's surface is ${(total / nominal).toFixed(0)} times as long as its chord: smooth the coordinates`
           : 'use a smaller chord, or fewer or shorter lines'),
@@ -73,19 +72,19 @@ export function requireStudyBudget(
     const increment = ((work.pitchGrid - 1) * input.pitchIncrementIn) / (fewer - 1);
     throw new EngineeringInputError(
       'pitchIncrementIn',
-      `${fmt(work.stations)} load stations × ${fmt(work.pitchGrid)} pitches is ${fmt(work.gridCells)} look-ups; at most ${fmt(STUDY_BUDGET.gridCells)}: use an increment of at least ${(Math.ceil(increment * 1000) / 1000).toFixed(3)} in`,
+      `${countText(work.stations)} load stations × ${countText(work.pitchGrid)} pitches is ${countText(work.gridCells)} look-ups; at most ${countText(STUDY_BUDGET.gridCells)}: use an increment of at least ${(Math.ceil(increment * 1000) / 1000).toFixed(3)} in`,
     );
   }
   if (work.stationChecks > STUDY_BUDGET.stationChecks) {
     throw new EngineeringInputError(
       candidateField(input, rivetCount),
-      `${fmt(work.stations)} load stations × ${work.conditions} conditions × ${work.candidates} candidates is ${fmt(work.stationChecks)} checks; at most ${fmt(STUDY_BUDGET.stationChecks)}: study fewer gauges or rivets at once`,
+      `${countText(work.stations)} load stations × ${work.conditions} conditions × ${work.candidates} candidates is ${countText(work.stationChecks)} checks; at most ${countText(STUDY_BUDGET.stationChecks)}: study fewer gauges or rivets at once`,
     );
   }
   if (work.holes > STUDY_BUDGET.holes) {
     throw new EngineeringInputError(
       candidateField(input, rivetCount),
-      `${work.candidates} candidates could place up to ${fmt(work.holes)} holes in all; at most ${fmt(STUDY_BUDGET.holes)}: study fewer gauges or rivets at once, or fewer or shorter lines`,
+      `${work.candidates} candidates could place up to ${countText(work.holes)} holes in all; at most ${countText(STUDY_BUDGET.holes)}: study fewer gauges or rivets at once, or fewer or shorter lines`,
     );
   }
 }

@@ -40,6 +40,7 @@ import type {
   WingStudyResult,
   WingTradeRow,
 } from '../../lib/engineering-results';
+import { countText } from '../../lib/number-text';
 
 /**
  * The whole wing: every rib at its own span station and every skin panel between two ribs, for the whole
@@ -258,7 +259,7 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
     if (total > STUDY_BUDGET.stationChecks * WING_BUDGET_FACTOR) {
       throw new EngineeringInputError(
         'gaugeCandidates',
-        `${input.ribs.length} ribs make ${Math.round(total).toLocaleString('en-US')} load checks; at most ${(STUDY_BUDGET.stationChecks * WING_BUDGET_FACTOR).toLocaleString('en-US')}: study fewer gauges or rivets at once`,
+        `${input.ribs.length} ribs make ${countText(total)} load checks; at most ${countText(STUDY_BUDGET.stationChecks * WING_BUDGET_FACTOR)}: study fewer gauges or rivets at once`,
       );
     }
     // The skin panels: two spar lines across each bay and two rib lines between the spars, every one
@@ -281,7 +282,7 @@ export function wingStudy(input: WingStudyInput): WingStudyResult {
     if (skinStations * skinCandidates > WING_SKIN_BUDGET) {
       throw new EngineeringInputError(
         skinCandidates > 1 ? 'skin.gaugeCandidates' : 'ribs',
-        `the skin panels have ${skinStations.toLocaleString('en-US')} load stations × ${skinCandidates} candidates to schedule; at most ${WING_SKIN_BUDGET.toLocaleString('en-US')}: study fewer skin gauges or rivets at once`,
+        `the skin panels have ${countText(skinStations)} load stations × ${skinCandidates} candidates to schedule; at most ${countText(WING_SKIN_BUDGET)}: study fewer skin gauges or rivets at once`,
       );
     }
   });

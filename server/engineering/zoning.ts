@@ -1,6 +1,7 @@
 import { packed, room } from './arrays';
 import { MAX_LINE_HOLES, MAX_ZONING_RUNS } from './bounds';
 import { EngineeringInputError } from './errors';
+import { countText } from '../../lib/number-text';
 
 /**
  * Grouping a line's stations into zones of one pitch, and placing the holes along the zones.
@@ -139,7 +140,7 @@ export function placeHoles(
   if (estimate > maxHoles) {
     throw new EngineeringInputError(
       'zones',
-      `these zones would place about ${estimate.toLocaleString('en-US')} holes on one line; at most ${maxHoles.toLocaleString('en-US')}`,
+      `these zones would place about ${countText(estimate)} holes on one line; at most ${countText(maxHoles)}`,
     );
   }
   const positions = [start];
@@ -177,8 +178,5 @@ export function placeHoles(
     note = `the last hole sits ${rest.toFixed(3)} in further from the line end than the edge distance, to keep the ${minPitch.toFixed(3)} in minimum pitch`;
     return { positions, note };
   }
-  throw new EngineeringInputError(
-    'zones',
-    `these zones place more than ${maxHoles.toLocaleString('en-US')} holes on one line`,
-  );
+  throw new EngineeringInputError('zones', `these zones place more than ${countText(maxHoles)} holes on one line`);
 }
