@@ -1,4 +1,5 @@
 import type { SessionUser } from '../../db/contracts';
+import { BoundedMap } from '../bounded-map';
 
 export type SessionRow = SessionUser & { active: boolean; sessionVersion: number };
 
@@ -16,7 +17,7 @@ export const SESSION_CACHE_MS = 1000;
 /** Bounded whatever the traffic: the oldest entry goes first when it is full. */
 const MAX_ENTRIES = 10_000;
 
-const entries = new Map<string, { row: SessionRow | undefined; until: number }>();
+const entries = new BoundedMap<string, { row: SessionRow | undefined; until: number }>(MAX_ENTRIES);
 
 /**
  * The person behind a token of version `ver`: from memory when read within the last second at that
@@ -31,8 +32,6 @@ export async function cachedSessionUser(
   const hit = entries.get(id);
   if (hit && hit.until > now && hit.row?.sessionVersion === ver) return hit.row;
   const row = await load(id);
-  entries.delete(id);
-  if (entries.size >= MAX_ENTRIES) entries.delete(entries.keys().next().value!);
   entries.set(id, { row, until: now + SESSION_CACHE_MS });
   return row;
 }

@@ -1,15 +1,14 @@
 import type { PartKind } from '../../db/contracts';
 import { nacaGeometry } from '../engineering/airfoil';
+import { BoundedMap } from '../bounded-map';
 
 /** Unit-chord outlines by airfoil: the same few kits' airfoils are drawn on every part page. */
-const unitOutlines = new Map<string, readonly (readonly [number, number])[]>();
-const KEEP = 64;
+const unitOutlines = new BoundedMap<string, readonly (readonly [number, number])[]>(64);
 
 function unitOutline(airfoil: string): readonly (readonly [number, number])[] {
   let points = unitOutlines.get(airfoil);
   if (!points) {
     points = nacaGeometry(airfoil, 80).points.map(([x, y]) => [x, y] as const);
-    if (unitOutlines.size >= KEEP) unitOutlines.delete(unitOutlines.keys().next().value!);
     unitOutlines.set(airfoil, points);
   }
   return points;
