@@ -15,7 +15,7 @@ import {
 } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
 import { shortDate } from '@/components/findings/finding-row';
-import { FormChoiceField, FormTextField } from '@/components/forms/form-fields';
+import { addressInputProps, FormChoiceField, FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { wrapAnywhere } from '@/components/people/long-words';
@@ -248,17 +248,7 @@ function AddMember({ buildId }: { buildId: string }) {
   return (
     <View style={styles.add} testID="member-add-form">
       <Label>Add someone</Label>
-      <FormTextField
-        control={control}
-        name="email"
-        label="E-mail"
-        testID="member-email"
-        autoCapitalize="none"
-        autoCorrect={false}
-        keyboardType="email-address"
-        inputMode="email"
-        maxLength={254}
-      />
+      <FormTextField control={control} name="email" label="E-mail" testID="member-email" {...addressInputProps} />
       <FormChoiceField
         control={control}
         name="place"

@@ -4,7 +4,7 @@ import { useCallback, useState } from 'react';
 import { useForm, type Control, type Resolver } from 'react-hook-form';
 import type { z } from 'zod';
 import { buildInput } from '@/db/contracts';
-import { FormChoiceField, FormTextField } from '@/components/forms/form-fields';
+import { addressInputProps, FormChoiceField, FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { Button } from '@/components/ui/button';
@@ -44,11 +44,7 @@ function PersonFields({
         label={`${title}’s e-mail`}
         hint={hint}
         testID={`build-${role}-email`}
-        autoCapitalize="none"
-        autoCorrect={false}
-        keyboardType="email-address"
-        inputMode="email"
-        maxLength={254}
+        {...addressInputProps}
       />
       <FormTextField
         control={control}

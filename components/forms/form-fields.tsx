@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { Controller, type Control, type ControllerRenderProps, type FieldValues, type Path } from 'react-hook-form';
 import { View } from 'react-native';
+import { EMAIL_MAX } from '@/db/contracts';
 import { space } from '@/constants/theme';
 import { editableNumber, fromDisplay, parseNumber, type Quantity } from '@/constants/units';
 import { useUnits } from '@/hooks/use-units';
@@ -15,15 +16,17 @@ type Base<T extends FieldValues> = {
   testID: string;
 };
 
-/** How an e-mail address is typed on every form that asks for one: no capitals, no corrections, the address keyboard. */
-export const emailInputProps = {
+/** How someone else's e-mail address is typed (an invitation, a build's people): no capitals, no corrections, the address keyboard. */
+export const addressInputProps = {
   autoCapitalize: 'none',
-  autoComplete: 'email',
   keyboardType: 'email-address',
   inputMode: 'email',
-  textContentType: 'username',
   autoCorrect: false,
+  maxLength: EMAIL_MAX,
 } as const;
+
+/** One's own address at sign-in: typed the same way, and filled in by the device as the account's name. */
+export const emailInputProps = { ...addressInputProps, autoComplete: 'email', textContentType: 'username' } as const;
 
 /** A field bound to react-hook-form under its label, with its error right under it; `children` draws the input. */
 function BoundField<T extends FieldValues>({

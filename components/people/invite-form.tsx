@@ -13,7 +13,7 @@ import {
 } from '@/db/contracts';
 import { colors, radius, space, touch } from '@/constants/theme';
 import { FormError } from '@/components/forms/form-error';
-import { FormTextField } from '@/components/forms/form-fields';
+import { addressInputProps, FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { Button } from '@/components/ui/button';
@@ -94,11 +94,7 @@ export function InviteForm({
         name="email"
         label="E-mail"
         testID="invite-person-email"
-        autoCapitalize="none"
-        autoCorrect={false}
-        keyboardType="email-address"
-        inputMode="email"
-        maxLength={254}
+        {...addressInputProps}
       />
       <FormTextField
         control={control}

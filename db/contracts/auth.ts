@@ -1,8 +1,8 @@
 import { z } from 'zod';
-import { roles } from './common';
+import { emailAddress, roles } from './common';
 
 export const signInInput = z.object({
-  email: z.email({ message: 'enter an e-mail address like name@example.com' }).transform((s) => s.toLowerCase()),
+  email: emailAddress(),
   password: z.string().min(1, 'enter your password'),
 });
 export type SignInInput = z.input<typeof signInInput>;

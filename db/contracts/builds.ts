@@ -1,21 +1,15 @@
 import { z } from 'zod';
-import { plainText } from './common';
+import { emailAddress, plainText } from './common';
 import type { Role } from './common';
 import type { BuildPeople } from './people';
 
 export const buildInput = z.object({
   kitModelId: z.uuid({ message: 'choose a kit model' }),
   kitSerial: plainText('the kit serial', 1, 40, 'give the kit serial'),
-  builderEmail: z
-    .email({ message: "enter the builder's e-mail address" })
-    .max(254)
-    .transform((s) => s.toLowerCase()),
+  builderEmail: emailAddress("enter the builder's e-mail address"),
   /** For the invitation, when the address has no account yet. */
   builderName: plainText('the builder’s name', 1, 120).optional(),
-  inspectorEmail: z
-    .email({ message: "enter the inspector's e-mail address" })
-    .max(254)
-    .transform((s) => s.toLowerCase()),
+  inspectorEmail: emailAddress("enter the inspector's e-mail address"),
   inspectorName: plainText('the inspector’s name', 1, 120).optional(),
 });
 export type BuildInput = z.input<typeof buildInput>;

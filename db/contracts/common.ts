@@ -12,6 +12,16 @@ export const positiveInches = (what: string) =>
     .positive(`${what} must be greater than zero`)
     .max(1000, `${what} is over 1000 in`);
 
+/** The longest e-mail address that can be delivered (a path is at most 256 octets with its brackets): common practice. */
+export const EMAIL_MAX = 254;
+
+/** An e-mail address as typed: checked, bounded, and kept in lower case, as addresses are matched. */
+export const emailAddress = (message = 'enter an e-mail address like name@example.com') =>
+  z
+    .email({ message })
+    .max(EMAIL_MAX, `an e-mail address is at most ${EMAIL_MAX} characters`)
+    .transform((s) => s.toLowerCase());
+
 export const roles = ['supplier', 'builder', 'inspector', 'admin'] as const;
 export type Role = (typeof roles)[number];
 

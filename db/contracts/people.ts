@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { plainText, roles, type Role } from './common';
+import { emailAddress, plainText, roles, type Role } from './common';
 
 /**
  * Organisations, people and their places on a build, and who may manage whom. The one home of these
@@ -46,10 +46,7 @@ export const RESET_TTL_MINUTES = 60;
 /** The least password strength accepted, on the strength package's 0–4 scale. */
 export const MIN_PASSWORD_SCORE = 3;
 
-const email = z
-  .email({ message: 'enter an e-mail address like name@example.com' })
-  .max(254, 'an e-mail address is at most 254 characters')
-  .transform((s) => s.toLowerCase());
+const email = emailAddress();
 const personName = plainText('the name', 1, 120, 'give the person’s name');
 /** Strength is judged by the server with the strength package; here only the bounds. */
 const newPassword = z

@@ -76,6 +76,30 @@ describe('invitations: a mail with a one-time link where the person sets their o
     expect([wrong.status, Object.keys(wrong.body.error.fields)]).toEqual([400, ['role']]);
   });
 
+  it('refuses an address longer than any that can be delivered, with the same words at sign-in, invitation and shipping', async () => {
+    // 254 characters is the most a delivered address can have (common practice); one more is refused.
+    const long = `${'a'.repeat(64)}@${'b'.repeat(63)}.${'c'.repeat(63)}.${'d'.repeat(54)}.example`;
+    expect(long.length).toBe(255);
+    const words = /an e-mail address is at most 254 characters/;
+    const signIn = await request(t.app).post('/api/auth/sign-in').send({ email: long, password: 'whatever it is' });
+    expect([signIn.status, signIn.body.error.fields?.email]).toEqual([400, expect.stringMatching(words)]);
+    const invite = await request(t.app)
+      .post('/api/people/invitations')
+      .set(auth(tok.admin))
+      .send({ email: long, name: 'Long Address', role: 'builder' });
+    expect([invite.status, invite.body.error.fields?.email]).toEqual([400, expect.stringMatching(words)]);
+    const kits = (await request(t.app).get('/api/kits').set(auth(tok.supplier))).body.items as { id: string }[];
+    const ship = await request(t.app)
+      .post('/api/builds')
+      .set(auth(tok.supplier))
+      .send({ kitModelId: kits[0].id, kitSerial: 'LONG-1', builderEmail: long, inspectorEmail: long });
+    expect([ship.status, ship.body.error.fields?.builderEmail, ship.body.error.fields?.inspectorEmail]).toEqual([
+      400,
+      expect.stringMatching(words),
+      expect.stringMatching(words),
+    ]);
+  });
+
   it('lets a supplier’s lead engineer invite engineers into their own organisation only; nobody else manages people', async () => {
     const me = (await request(t.app).get('/api/auth/me').set(auth(tok.supplier))).body;
     expect(me.lead).toBe(true);
