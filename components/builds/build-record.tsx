@@ -1,8 +1,7 @@
-import { useRouter } from 'expo-router';
 import { useState } from 'react';
 import { View } from 'react-native';
 import { space } from '@/constants/theme';
-import { ConfirmStep } from '@/components/designs/confirm-step';
+import { DeleteAndLeave } from '@/components/designs/confirm-step';
 import { Button } from '@/components/ui/button';
 import { Field, TextBox } from '@/components/ui/field';
 import { Section } from '@/components/ui/sheet';
@@ -16,7 +15,6 @@ import { useBuildDeleteMutation, useBuildUpdateMutation, type BuildPage } from '
  * build itself, while no work is recorded on it. What is offered comes from the answer's list only.
  */
 export function BuildRecordSection({ b }: { b: BuildPage }) {
-  const router = useRouter();
   const allowed = b.allowedActions ?? [];
   const update = useBuildUpdateMutation(b.id);
   const remove = useBuildDeleteMutation(b.id);
@@ -24,7 +22,6 @@ export function BuildRecordSection({ b }: { b: BuildPage }) {
   const [serial, setSerial] = useState(b.kitSerial);
   const [note, setNote] = useState(b.note ?? '');
   const [error, setError] = useState<string | null>(null);
-  const [asking, setAsking] = useState(false);
   if (!allowed.length && !b.note) return null;
 
   const save = async () => {
@@ -34,14 +31,6 @@ export function BuildRecordSection({ b }: { b: BuildPage }) {
       setEditing(false);
     } catch (e) {
       setError(errorMessage(e));
-    }
-  };
-  const confirmDelete = async () => {
-    try {
-      await remove.mutateAsync();
-      router.dismissTo('/builds');
-    } catch {
-      // Shown in the confirmation from the mutation's state.
     }
   };
 
@@ -103,29 +92,16 @@ export function BuildRecordSection({ b }: { b: BuildPage }) {
         </Txt>
       ) : null}
       {allowed.includes('delete') ? (
-        asking ? (
-          <ConfirmStep
-            testID="build-delete-ask"
-            message={`Delete build ${b.kitSerial}? Its ${b.travelerCount} parts, its people and their pending invitations go with it. Nothing has been recorded on it yet; this cannot be undone.`}
-            confirmLabel={`Delete build ${b.kitSerial}`}
-            danger
-            busy={remove.isPending}
-            error={remove.error ? errorMessage(remove.error) : null}
-            onConfirm={() => void confirmDelete()}
-            onCancel={() => setAsking(false)}
-          />
-        ) : (
-          <Button
-            label="Delete this build…"
-            variant="quiet"
-            compact
-            onPress={() => {
-              setAsking(true);
-              remove.reset();
-            }}
-            testID="build-delete"
-          />
-        )
+        <DeleteAndLeave
+          askLabel="Delete this build…"
+          askVariant="quiet"
+          compact
+          message={`Delete build ${b.kitSerial}? Its ${b.travelerCount} parts, its people and their pending invitations go with it. Nothing has been recorded on it yet; this cannot be undone.`}
+          confirmLabel={`Delete build ${b.kitSerial}`}
+          remove={remove}
+          backTo="/builds"
+          testID="build-delete"
+        />
       ) : null}
     </Section>
   );

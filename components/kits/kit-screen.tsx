@@ -1,5 +1,4 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useRouter } from 'expo-router';
 import { useState } from 'react';
 import { useForm, type Control } from 'react-hook-form';
 import { View } from 'react-native';
@@ -10,13 +9,12 @@ import { FormError } from '@/components/forms/form-error';
 import { FormTextField } from '@/components/forms/form-fields';
 import { plainParse } from '@/components/forms/plain-errors';
 import { useFormSubmit } from '@/components/forms/use-form-submit';
-import { ConfirmStep } from '@/components/designs/confirm-step';
+import { DeleteAndLeave } from '@/components/designs/confirm-step';
 import { Button } from '@/components/ui/button';
 import { Screen } from '@/components/ui/screen';
 import { Section } from '@/components/ui/sheet';
 import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
-import { errorMessage } from '@/lib/api-client';
 import { KitNoticesSection } from '@/components/notices/notices-section';
 import { KitAirfoilField, KitCategoryField, KitCodeField, KitDesignDataFields } from './kit-form-screen';
 import { useKitDeleteMutation, useKitQuery, useKitUpdateMutation } from '@/hooks/queries/kits';
@@ -45,11 +43,9 @@ export function KitScreen({ kitId }: { kitId: string }) {
 }
 
 function KitBody({ kit }: { kit: KitModelDetail }) {
-  const router = useRouter();
   const update = useKitUpdateMutation(kit.id);
   const remove = useKitDeleteMutation(kit.id);
   const [saved, setSaved] = useState(false);
-  const [asking, setAsking] = useState(false);
   const relied = kit.reliance.studies + kit.reliance.publishedParts + kit.reliance.builds > 0;
   const { control, handleSubmit, setError, formState, reset } = useForm<Values, unknown, Out>({
     resolver: zodResolver(kitChangeInput, plainParse),
@@ -78,14 +74,6 @@ function KitBody({ kit }: { kit: KitModelDetail }) {
   });
   // The kit's fields are the new kit's, with a reason beside them.
   const kitControl = control as unknown as Control<KitModelInput>;
-  const confirmDelete = async () => {
-    try {
-      await remove.mutateAsync();
-      router.dismissTo('/catalogue');
-    } catch {
-      // Shown in the confirmation from the mutation's state.
-    }
-  };
 
   return (
     <Screen title={`${kit.code} · ${kit.name}`} subtitle="Kit model" backTo="/catalogue" testID="kit-screen">
@@ -167,28 +155,15 @@ function KitBody({ kit }: { kit: KitModelDetail }) {
       </Section>
       <Section title="Delete">
         {kit.allowedActions.includes('delete') ? (
-          asking ? (
-            <ConfirmStep
-              testID="kit-delete-ask"
-              message={`Delete kit model ${kit.code}? Its draft part designs go with it. This cannot be undone.`}
-              confirmLabel={`Delete ${kit.code}`}
-              danger
-              busy={remove.isPending}
-              error={remove.error ? errorMessage(remove.error) : null}
-              onConfirm={() => void confirmDelete()}
-              onCancel={() => setAsking(false)}
-            />
-          ) : (
-            <Button
-              label="Delete this kit model…"
-              variant="secondary"
-              onPress={() => {
-                setAsking(true);
-                remove.reset();
-              }}
-              testID="kit-delete"
-            />
-          )
+          <DeleteAndLeave
+            askLabel="Delete this kit model…"
+            askVariant="secondary"
+            message={`Delete kit model ${kit.code}? Its draft part designs go with it. This cannot be undone.`}
+            confirmLabel={`Delete ${kit.code}`}
+            remove={remove}
+            backTo="/catalogue"
+            testID="kit-delete"
+          />
         ) : (
           <Txt tone="soft" testID="kit-delete-refusal">
             {kit.deleteRefusal}
