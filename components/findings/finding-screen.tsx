@@ -10,7 +10,6 @@ import {
   isOpenFinding,
   type FindingAction,
   type FindingDetail,
-  type FindingPhoto,
   type FindingStatus,
 } from '@/db/contracts';
 import { space } from '@/constants/theme';
@@ -27,7 +26,7 @@ import { FindingDecision } from './finding-actions';
 import { FindingPhotos } from './finding-photos';
 import { shortDate } from './finding-row';
 import { HoleContext } from './hole-context';
-import { PhotoViewer } from './photo-viewer';
+import { usePhotoViewer } from './photo-viewer';
 import { RepairCheckPanel, StoredRepair } from './repair-check-panel';
 
 export function FindingScreen({ findingId }: { findingId: string }) {
@@ -81,7 +80,7 @@ function focusOn(node: View | null) {
 
 function FindingBody({ f }: { f: FindingDetail }) {
   const router = useRouter();
-  const [viewing, setViewing] = useState<{ photos: FindingPhoto[]; index: number } | null>(null);
+  const photoViewer = usePhotoViewer();
   const [outcome, setOutcome] = useState<Outcome | null>(null);
   const scrollRef = useRef<ScrollView>(null);
   const outcomeRef = useRef<View>(null);
@@ -129,7 +128,7 @@ function FindingBody({ f }: { f: FindingDetail }) {
     <>
       {header}
       <Section title={`Photos (${f.photos.length})`}>
-        <FindingPhotos photos={f.photos} onOpen={(photos, index) => setViewing({ photos, index })} />
+        <FindingPhotos photos={f.photos} onOpen={photoViewer.open} />
       </Section>
       <Section title={f.holeIds.length === 1 ? 'The hole in context' : `The ${f.holeIds.length} holes in context`}>
         <HoleContext f={f} />
@@ -200,7 +199,7 @@ function FindingBody({ f }: { f: FindingDetail }) {
           photos={f.photos}
           onPhoto={(p) => {
             const work = f.photos.filter((x) => x.eventId === p.eventId);
-            setViewing({ photos: work, index: Math.max(0, work.indexOf(p)) });
+            photoViewer.open(work, Math.max(0, work.indexOf(p)));
           }}
         />
       </Section>
@@ -249,12 +248,7 @@ function FindingBody({ f }: { f: FindingDetail }) {
         ) : null}
         <TwoPane left={left} right={right} />
       </ScrollView>
-      <PhotoViewer
-        photos={viewing?.photos ?? []}
-        index={viewing ? viewing.index : null}
-        onClose={() => setViewing(null)}
-        onIndex={(index) => setViewing((v) => (v ? { ...v, index } : v))}
-      />
+      {photoViewer.viewer}
     </Screen>
   );
 }

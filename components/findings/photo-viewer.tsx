@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useCallback, useState } from 'react';
 import { Image, Modal, ScrollView, StyleSheet, useWindowDimensions, View } from 'react-native';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import type { FindingPhoto } from '@/db/contracts';
@@ -8,6 +8,24 @@ import { Choice } from '@/components/ui/choice';
 import { Mono } from '@/components/ui/text';
 
 type Zoom = '1' | '2' | '4';
+
+/**
+ * A screen's photo viewer: `open` shows a list of photos at one of them, `viewer` is the element that
+ * shows it (at the end of the screen, above everything when open).
+ */
+export function usePhotoViewer() {
+  const [viewing, setViewing] = useState<{ photos: FindingPhoto[]; index: number } | null>(null);
+  const open = useCallback((photos: FindingPhoto[], index: number) => setViewing({ photos, index }), []);
+  const viewer = (
+    <PhotoViewer
+      photos={viewing?.photos ?? []}
+      index={viewing ? viewing.index : null}
+      onClose={() => setViewing(null)}
+      onIndex={(index) => setViewing((v) => (v ? { ...v, index } : v))}
+    />
+  );
+  return { open, viewer };
+}
 
 /** A photo full screen: pinch on iOS, and a zoom switch everywhere, scrolling both ways. */
 export function PhotoViewer({

@@ -1,10 +1,9 @@
 import { useRouter } from 'expo-router';
-import { useState } from 'react';
 import { View } from 'react-native';
 import type { FindingPhoto, NoticeBuildAnswer, NoticeDetail, NoticeFile } from '@/db/contracts';
 import { colors, hairline, space } from '@/constants/theme';
 import { shortDate } from '@/components/findings/finding-row';
-import { PhotoViewer } from '@/components/findings/photo-viewer';
+import { usePhotoViewer } from '@/components/findings/photo-viewer';
 import { Button } from '@/components/ui/button';
 import { Caution } from '@/components/ui/caution';
 import { Screen } from '@/components/ui/screen';
@@ -60,8 +59,8 @@ function NoticeBody({ n }: { n: NoticeDetail }) {
   const { user } = useSession();
   const supplier = user?.role === 'supplier';
   const backTo = supplier ? `/catalogue/kits/${n.kitModelId}` : '/builds';
-  const [viewing, setViewing] = useState<{ photos: FindingPhoto[]; index: number } | null>(null);
-  const open = (files: NoticeFile[], index: number) => setViewing({ photos: files.map(asViewerPhoto), index });
+  const photoViewer = usePhotoViewer();
+  const open = (files: NoticeFile[], index: number) => photoViewer.open(files.map(asViewerPhoto), index);
 
   const notice = (
     <>
@@ -122,12 +121,7 @@ function NoticeBody({ n }: { n: NoticeDetail }) {
           <TwoPane left={notice} right={answers} />
         )}
       </View>
-      <PhotoViewer
-        photos={viewing?.photos ?? []}
-        index={viewing ? viewing.index : null}
-        onClose={() => setViewing(null)}
-        onIndex={(index) => setViewing((v) => (v ? { ...v, index } : v))}
-      />
+      {photoViewer.viewer}
     </Screen>
   );
 }
