@@ -1,7 +1,8 @@
 import * as ImagePicker from 'expo-image-picker';
-import { Image, Platform, Pressable, StyleSheet, View } from 'react-native';
-import { colors, hairline, space } from '@/constants/theme';
+import { Image, Platform, View } from 'react-native';
+import { space } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
+import { DraftTiles, tileStyles } from '@/components/ui/draft-tiles';
 import { Txt } from '@/components/ui/text';
 import { ApiError } from '@/lib/api-client';
 import type { DraftPhoto } from '@/lib/photo-form-data';
@@ -174,28 +175,17 @@ export function PhotoPicker({
 }) {
   return (
     <View style={{ gap: space.sm }} testID={`${idPrefix}photos`}>
-      {photos.length ? (
-        <View style={styles.grid}>
-          {photos.map((p, i) => (
-            <View key={`${p.uri.slice(0, 64)}-${i}`} style={styles.item} testID={`${idPrefix}photo-${i}`}>
-              <Image source={{ uri: p.uri }} style={styles.thumb} accessibilityLabel={`Photo ${i + 1}`} />
-              <Pressable
-                onPress={() => onRemove(i)}
-                testID={`${idPrefix}remove-photo-${i}`}
-                accessibilityRole="button"
-                accessibilityLabel={`Remove photo ${i + 1}`}
-                style={styles.remove}
-              >
-                <Txt variant="small" bold tone="error">
-                  Remove
-                </Txt>
-              </Pressable>
-            </View>
-          ))}
-        </View>
-      ) : (
-        <Txt tone="soft">{empty}</Txt>
-      )}
+      <DraftTiles
+        items={photos}
+        thumb={(p, i) => (
+          <Image source={{ uri: p.uri }} style={tileStyles.thumb} accessibilityLabel={`Photo ${i + 1}`} />
+        )}
+        removeLabel={(_p, i) => `Remove photo ${i + 1}`}
+        onRemove={onRemove}
+        tileTestID={(i) => `${idPrefix}photo-${i}`}
+        removeTestID={(i) => `${idPrefix}remove-photo-${i}`}
+        empty={empty}
+      />
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
         {photoSources.map(({ source, label, testID }) => (
           <Button
@@ -219,10 +209,3 @@ export function PhotoPicker({
     </View>
   );
 }
-
-const styles = StyleSheet.create({
-  grid: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
-  item: { width: 112, gap: 2 },
-  thumb: { width: 112, height: 112, borderWidth: hairline, borderColor: colors.ink, backgroundColor: colors.paperSunk },
-  remove: { minHeight: 48, justifyContent: 'center', alignItems: 'center' },
-});

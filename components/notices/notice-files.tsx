@@ -1,7 +1,8 @@
 import { Image, Linking, Platform, Pressable, StyleSheet, View } from 'react-native';
 import { MAX_NOTICE_FILES, MAX_NOTICE_PDF_BYTES, type NoticeFile } from '@/db/contracts';
-import { colors, hairline, space, touch } from '@/constants/theme';
+import { space, touch } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
+import { DraftTiles, tileStyles } from '@/components/ui/draft-tiles';
 import { Mono, Txt } from '@/components/ui/text';
 import type { DraftFile } from '@/hooks/queries/notices';
 import { pickWebFile } from '@/lib/pick-file';
@@ -49,39 +50,26 @@ export function NoticeFilesPicker({
   const full = files.length >= MAX_NOTICE_FILES;
   return (
     <View style={{ gap: space.sm }} testID="notice-files">
-      {files.length ? (
-        <View style={styles.grid}>
-          {files.map((f, i) => (
-            <View key={`${f.uri.slice(0, 64)}-${i}`} style={styles.item} testID={`notice-file-${i}`}>
-              {isPdf(f) ? (
-                <View style={[styles.thumb, styles.pdf]}>
-                  <Mono bold>PDF</Mono>
-                  <Txt variant="small" numberOfLines={3} align="center">
-                    {f.name}
-                  </Txt>
-                </View>
-              ) : (
-                <Image source={{ uri: f.uri }} style={styles.thumb} accessibilityLabel={`Photo ${f.name}`} />
-              )}
-              <Pressable
-                onPress={() => onRemove(i)}
-                testID={`notice-remove-file-${i}`}
-                accessibilityRole="button"
-                accessibilityLabel={`Remove ${f.name}`}
-                style={styles.remove}
-              >
-                <Txt variant="small" bold tone="error">
-                  Remove
-                </Txt>
-              </Pressable>
+      <DraftTiles
+        items={files}
+        thumb={(f) =>
+          isPdf(f) ? (
+            <View style={[tileStyles.thumb, styles.pdf]}>
+              <Mono bold>PDF</Mono>
+              <Txt variant="small" numberOfLines={3} align="center">
+                {f.name}
+              </Txt>
             </View>
-          ))}
-        </View>
-      ) : (
-        <Txt tone="soft">
-          No file attached. A photo of the change, or the revised drawing as a PDF, helps builders most.
-        </Txt>
-      )}
+          ) : (
+            <Image source={{ uri: f.uri }} style={tileStyles.thumb} accessibilityLabel={`Photo ${f.name}`} />
+          )
+        }
+        removeLabel={(f) => `Remove ${f.name}`}
+        onRemove={onRemove}
+        tileTestID={(i) => `notice-file-${i}`}
+        removeTestID={(i) => `notice-remove-file-${i}`}
+        empty="No file attached. A photo of the change, or the revised drawing as a PDF, helps builders most."
+      />
       <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
         <Button
           label="Add a photo"
@@ -128,7 +116,7 @@ export function NoticeFilesView({
   return (
     <View style={{ gap: space.sm }}>
       {photos.length ? (
-        <View style={styles.grid}>
+        <View style={tileStyles.grid}>
           {photos.map((p, i) => (
             <Pressable
               key={p.id}
@@ -137,7 +125,7 @@ export function NoticeFilesView({
               accessibilityRole="button"
               accessibilityLabel={`Photo ${i + 1}, ${p.name}, open large`}
             >
-              <Image source={{ uri: p.thumbUrl ?? p.url }} style={styles.thumb} />
+              <Image source={{ uri: p.thumbUrl ?? p.url }} style={tileStyles.thumb} />
             </Pressable>
           ))}
         </View>
@@ -160,10 +148,6 @@ export function NoticeFilesView({
 }
 
 const styles = StyleSheet.create({
-  grid: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
-  item: { width: 112, gap: 2 },
-  thumb: { width: 112, height: 112, borderWidth: hairline, borderColor: colors.ink, backgroundColor: colors.paperSunk },
   pdf: { alignItems: 'center', justifyContent: 'center', padding: space.xs, gap: space.xs },
-  remove: { minHeight: touch, justifyContent: 'center', alignItems: 'center' },
   link: { minHeight: touch, textDecorationLine: 'underline', paddingVertical: space.sm },
 });

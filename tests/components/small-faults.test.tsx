@@ -4,6 +4,7 @@ import { FlagScreen } from '@/components/findings/flag-screen';
 import { isPhotoBytes, notPhotosMessage, pickPhotos } from '@/components/findings/photo-picker';
 import { mayOpen, mayOpenPath } from '@/components/navigation/role-tabs';
 import { tabLabelFit } from '@/components/navigation/tab-label';
+import { DraftTiles } from '@/components/ui/draft-tiles';
 import { Notice } from '@/components/ui/states';
 import { Mono, Txt, valueGroups } from '@/components/ui/text';
 import { fonts } from '@/constants/theme';
@@ -260,5 +261,39 @@ describe('tab labels on a phone', () => {
     expect(tabLabelFit(390, 5, false)).toMatchObject({ fontSize: 12, short: false });
     expect(tabLabelFit(390, 4, false)).toMatchObject({ fontSize: 14, short: false });
     expect(tabLabelFit(1280, 6, true)).toMatchObject({ fontSize: 14 });
+  });
+});
+
+describe('files picked and not sent yet', () => {
+  const picked = [
+    { uri: 'data:image/jpeg;base64,AAAA', name: 'left flange.jpg' },
+    { uri: 'data:image/jpeg;base64,BBBB', name: 'right flange.jpg' },
+  ];
+  const tiles = (items: typeof picked, onRemove: (i: number) => void) =>
+    renderWeb(
+      <DraftTiles
+        items={items}
+        thumb={(p) => <Txt>{p.name}</Txt>}
+        removeLabel={(p) => `Remove ${p.name}`}
+        onRemove={onRemove}
+        tileTestID={(i) => `tile-${i}`}
+        removeTestID={(i) => `remove-${i}`}
+        empty="Nothing picked yet."
+      />,
+    );
+
+  it('shows each with a Remove button of its own, named for it, that takes back that one only', async () => {
+    const onRemove = jest.fn();
+    const r = tiles(picked, onRemove);
+    expect(r.byTestId('tile-1').textContent).toContain('right flange.jpg');
+    expect(r.byTestId('remove-1').getAttribute('aria-label')).toBe('Remove right flange.jpg');
+    await r.press('remove-1');
+    expect(onRemove.mock.calls).toEqual([[1]]);
+  });
+
+  it('says what to add when nothing is picked', () => {
+    const r = tiles([], jest.fn());
+    expect(r.queryByTestId('tile-0')).toBeNull();
+    expect(r.text()).toBe('Nothing picked yet.');
   });
 });
