@@ -17,6 +17,7 @@ import { ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { Mono, Txt } from '@/components/ui/text';
 import { KitNoticesSection } from '@/components/notices/notices-section';
 import { KitAirfoilField, KitCategoryField, KitCodeField, KitDesignDataFields } from './kit-form-screen';
+import { kitDesignValues } from './kit-values';
 import { useKitDeleteMutation, useKitQuery, useKitUpdateMutation } from '@/hooks/queries/kits';
 
 type Values = z.input<typeof kitChangeInput>;
@@ -53,12 +54,7 @@ function KitBody({ kit }: { kit: KitModelDetail }) {
     defaultValues: {
       code: kit.code,
       name: kit.name,
-      weightLb: kit.weightLb,
-      wingAreaSqFt: kit.wingAreaSqFt,
-      meanChordIn: kit.meanChordIn,
-      stallSpeedKeas: kit.stallSpeedKeas,
-      cruiseSpeedKeas: kit.cruiseSpeedKeas ?? undefined,
-      category: kit.category,
+      ...kitDesignValues(kit),
       airfoil: kit.airfoil,
       reason: '',
     },
@@ -68,7 +64,7 @@ function KitBody({ kit }: { kit: KitModelDetail }) {
     setError,
     send: async (v) => {
       const next = await update.mutateAsync(v);
-      reset({ ...v, cruiseSpeedKeas: next.cruiseSpeedKeas ?? undefined, reason: '' });
+      reset({ ...v, ...kitDesignValues(next), reason: '' });
       setSaved(true);
     },
   });

@@ -1,5 +1,6 @@
 import type { KitModel, StudyDetail, StudyInput } from '@/db/contracts';
 import { lengthNumber, unitLabel, type UnitSystem } from '@/constants/units';
+import { kitDesignValues } from '@/components/kits/kit-values';
 
 /**
  * The study form holds a StudyInput in the engine's units (in, lb, sq ft, KEAS), exactly what is sent:
@@ -64,12 +65,7 @@ export function kitDesignData(inputs: KitAndAirfoil, kit: KitModel): KitAndAirfo
   return {
     kit: {
       ...inputs.kit,
-      weightLb: kit.weightLb,
-      wingAreaSqFt: kit.wingAreaSqFt,
-      meanChordIn: kit.meanChordIn,
-      stallSpeedKeas: kit.stallSpeedKeas,
-      cruiseSpeedKeas: kit.cruiseSpeedKeas ?? undefined,
-      category: kit.category,
+      ...kitDesignValues(kit),
     },
     airfoil: nacaDigits(kit.airfoil) ? { kind: 'naca', designation: nacaDigits(kit.airfoil) } : inputs.airfoil,
   };
