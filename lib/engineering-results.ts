@@ -614,16 +614,21 @@ export interface SkinCandidate {
   lines: SkinLineSchedule[];
 }
 
-export interface SkinPanelResult {
+/** Where a skin panel is: its surface between two ribs, and the spar box under it at the inner rib. */
+export interface SkinPanelPlace {
   name: string;
   surface: Surface;
   innerRib: string;
   outerRib: string;
   innerStationIn: number;
   outerStationIn: number;
-  widthIn: number;
+  /** the box's width between the spars (w) and depth between the skins (h), at the inner rib, in */
   boxWidthIn: number;
   boxDepthIn: number;
+}
+
+export interface SkinPanelResult extends SkinPanelPlace {
+  widthIn: number;
   candidates: SkinCandidate[];
   /** the lightest feasible candidate (fewest rivets between equals) */
   recommended: { gaugeIn: number; rivet: string } | null;

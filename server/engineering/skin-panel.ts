@@ -8,9 +8,9 @@ import type {
   PitchScheduleResult,
   SkinCandidate,
   SkinLineSchedule,
+  SkinPanelPlace,
   SkinPanelResult,
   StationLoad,
-  Surface,
 } from '../../lib/engineering-results';
 
 /**
@@ -34,16 +34,8 @@ import type {
  * the safe side), combined by (Rt)² + (Rs)² ≤ 1 in the pitch schedule.
  */
 
-export interface SkinPanelSpec {
-  name: string;
-  surface: Surface;
-  innerRib: string;
-  outerRib: string;
-  innerStationIn: number;
-  outerStationIn: number;
-  /** box width between the spars (w), depth between the skins (h) and enclosed area, at the inner rib */
-  boxWidthIn: number;
-  boxDepthIn: number;
+export interface SkinPanelSpec extends SkinPanelPlace {
+  /** the area the box encloses at the inner rib, in² */
   cellAreaSqIn: number;
   /** spar-cap area on this surface (both spars), in² */
   capAreaSqIn: number;
