@@ -1,11 +1,8 @@
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { SafeAreaProvider } from 'react-native-safe-area-context';
 import type { BuildLogPage, BuildLogEntry } from '@/db/contracts';
 import { BuildLogScreen } from '@/components/build-log/build-log-screen';
 import { buildLogKeys } from '@/hooks/queries/build-log';
-import { SessionProvider } from '@/hooks/use-session';
 import { logEntry } from '../fixtures/build-log';
-import { renderWeb } from './render-web';
+import { renderInApp, testQueryClient } from './render-web';
 
 const mockPush = jest.fn();
 jest.mock('expo-router', () => ({
@@ -51,23 +48,10 @@ const log = (entries: BuildLogEntry[]): BuildLogPage => ({
 });
 
 function renderLog(data: BuildLogPage, more: [Parameters<typeof buildLogKeys.filtered>[1], BuildLogPage][] = []) {
-  const qc = new QueryClient({ defaultOptions: { queries: { retry: false, staleTime: Infinity } } });
+  const qc = testQueryClient();
   qc.setQueryData(buildLogKeys.filtered('b1', {}), { pages: [data], pageParams: [null] });
   for (const [f, d] of more) qc.setQueryData(buildLogKeys.filtered('b1', f), { pages: [d], pageParams: [null] });
-  return renderWeb(
-    <SafeAreaProvider
-      initialMetrics={{
-        frame: { x: 0, y: 0, width: 390, height: 844 },
-        insets: { top: 0, left: 0, right: 0, bottom: 0 },
-      }}
-    >
-      <QueryClientProvider client={qc}>
-        <SessionProvider>
-          <BuildLogScreen buildId="b1" />
-        </SessionProvider>
-      </QueryClientProvider>
-    </SafeAreaProvider>,
-  );
+  return renderInApp(<BuildLogScreen buildId="b1" />, qc);
 }
 
 afterEach(() => {

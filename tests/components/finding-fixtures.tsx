@@ -1,13 +1,9 @@
 /** Shared data and wrapping for the finding tests: the demo finding, a repair check as the engine answers, fetch recorded. */
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import type { ReactElement } from 'react';
-import { SafeAreaProvider } from 'react-native-safe-area-context';
 import type { FindingDetail, TravelerDetail } from '@/db/contracts';
 import { findingKeys, type RepairCheckResult } from '@/hooks/queries/findings';
 import { travelerKeys } from '@/hooks/queries/travelers';
-import { SessionProvider } from '@/hooks/use-session';
-import { UnitsProvider } from '@/hooks/use-units';
-import { renderWeb } from './render-web';
+import { renderInApp, testQueryClient } from './render-web';
 
 /** Holes U-08 and U-09 of W-104, MS20470AD4 at 0.25 in edge distance, 1 in pitch. */
 export const finding: FindingDetail = {
@@ -179,24 +175,9 @@ export function wrap(
   seed: { finding?: FindingDetail; traveler?: TravelerDetail } = {},
   system: 'imperial' | 'metric' = 'imperial',
 ) {
-  const qc = new QueryClient({
-    defaultOptions: { queries: { retry: false, staleTime: Infinity }, mutations: { retry: false } },
-  });
+  const qc = testQueryClient();
   if (seed.finding) qc.setQueryData(findingKeys.detail(seed.finding.id), seed.finding);
   if (seed.traveler) qc.setQueryData(travelerKeys.detail(seed.traveler.id), seed.traveler);
-  const r = renderWeb(
-    <SafeAreaProvider
-      initialMetrics={{
-        frame: { x: 0, y: 0, width: 390, height: 844 },
-        insets: { top: 0, left: 0, right: 0, bottom: 0 },
-      }}
-    >
-      <QueryClientProvider client={qc}>
-        <UnitsProvider initial={system}>
-          <SessionProvider>{ui}</SessionProvider>
-        </UnitsProvider>
-      </QueryClientProvider>
-    </SafeAreaProvider>,
-  );
+  const r = renderInApp(ui, qc, system);
   return { ...r, qc };
 }

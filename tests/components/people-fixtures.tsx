@@ -1,12 +1,8 @@
 /** Shared data and wrapping for the people, account and build-people tests: a signed-in reader and the API recorded. */
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import type { ReactElement } from 'react';
-import { SafeAreaProvider } from 'react-native-safe-area-context';
 import type { BuildPeople, OrganizationSummary, PersonSummary, SessionUser } from '@/db/contracts';
 import { storageKeys } from '@/lib/storage';
-import { SessionProvider } from '@/hooks/use-session';
-import { UnitsProvider } from '@/hooks/use-units';
-import { renderWeb } from './render-web';
+import { renderInApp, testQueryClient } from './render-web';
 
 export { recordFetch, type Call } from './finding-fixtures';
 
@@ -87,16 +83,8 @@ export const people: PersonSummary[] = [
     active: false,
     allowed: ['change-role', 'reactivate'],
   }),
-  person({
-    id: 'u-maren',
-    email: 'maren@northfold.example',
-    name: 'Maren Holt',
-    role: 'supplier',
-    lead: true,
-    organizationId: NORTH,
-    organizationName: 'Northfold Kitworks',
-    allowed: ['change-role', 'deactivate'],
-  }),
+  // The signed-in lead as the list shows them.
+  person({ ...lead, allowed: ['change-role', 'deactivate'] }),
   person({
     id: 'u-admin',
     email: 'admin@pitchcard.example',
@@ -152,24 +140,9 @@ export function wrapSignedIn(ui: ReactElement, user: SessionUser | null, seed: [
       JSON.stringify({ token: 'token-1', expiresAt: new Date(Date.now() + 3600_000).toISOString(), user }),
     );
   }
-  const qc = new QueryClient({
-    defaultOptions: { queries: { retry: false, staleTime: Infinity }, mutations: { retry: false } },
-  });
+  const qc = testQueryClient();
   for (const [key, data] of seed) qc.setQueryData(key, data);
-  const r = renderWeb(
-    <SafeAreaProvider
-      initialMetrics={{
-        frame: { x: 0, y: 0, width: 390, height: 844 },
-        insets: { top: 0, left: 0, right: 0, bottom: 0 },
-      }}
-    >
-      <QueryClientProvider client={qc}>
-        <UnitsProvider initial="imperial">
-          <SessionProvider>{ui}</SessionProvider>
-        </UnitsProvider>
-      </QueryClientProvider>
-    </SafeAreaProvider>,
-  );
+  const r = renderInApp(ui, qc);
   return { ...r, qc };
 }
 

@@ -3,8 +3,13 @@
  * native host components, but on the web react-native-web renders DOM elements (testID becomes
  * data-testid), so these tests render with react-dom and query the DOM the browser would see.
  */
+import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { act, type ReactElement } from 'react';
 import { createRoot, type Root } from 'react-dom/client';
+import { SafeAreaProvider } from 'react-native-safe-area-context';
+import type { UnitSystem } from '@/constants/units';
+import { SessionProvider } from '@/hooks/use-session';
+import { UnitsProvider } from '@/hooks/use-units';
 
 (globalThis as { IS_REACT_ACT_ENVIRONMENT?: boolean }).IS_REACT_ACT_ENVIRONMENT = true;
 
@@ -90,3 +95,28 @@ afterEach(() => {
     m.container.remove();
   }
 });
+
+/** A query client for one screen test: nothing retried, nothing refetched on its own. */
+export const testQueryClient = () =>
+  new QueryClient({ defaultOptions: { queries: { retry: false, staleTime: Infinity }, mutations: { retry: false } } });
+
+/**
+ * A screen as the app draws it (a phone's window, the query client, units, the session), with `qc`'s
+ * cache as the test seeded it.
+ */
+export function renderInApp(ui: ReactElement, qc: QueryClient, system: UnitSystem = 'imperial'): Rendered {
+  return renderWeb(
+    <SafeAreaProvider
+      initialMetrics={{
+        frame: { x: 0, y: 0, width: 390, height: 844 },
+        insets: { top: 0, left: 0, right: 0, bottom: 0 },
+      }}
+    >
+      <QueryClientProvider client={qc}>
+        <UnitsProvider initial={system}>
+          <SessionProvider>{ui}</SessionProvider>
+        </UnitsProvider>
+      </QueryClientProvider>
+    </SafeAreaProvider>,
+  );
+}
