@@ -35,19 +35,19 @@ afterAll(async () => {
   await closeApp?.();
 });
 
+/** The printed label of a part of the demo's build, as its supplier prints it. */
+async function labelOf(partNumber: string): Promise<{ partNumber: string; url: string }> {
+  const supplier = await t.signIn(DEMO_USERS.supplier.email);
+  const as = { Authorization: `Bearer ${supplier}` };
+  const buildId = (await request(t.app).get('/api/builds').set(as)).body.items[0].id;
+  const labels = await request(t.app).get(`/api/travelers/labels?buildId=${buildId}`).set(as);
+  expect(labels.status).toBe(200);
+  return labels.body.find((l: { partNumber: string }) => l.partNumber === partNumber);
+}
+
 describe('the bench over HTTPS at the public address', () => {
   it('starts the scanner in a secure context and opens the part from its label', async () => {
-    const supplier = await t.signIn(DEMO_USERS.supplier.email);
-    const buildId = (
-      await request(t.app)
-        .get('/api/builds')
-        .set({ Authorization: `Bearer ${supplier}` })
-    ).body.items[0].id;
-    const labels = await request(t.app)
-      .get(`/api/travelers/labels?buildId=${buildId}`)
-      .set({ Authorization: `Bearer ${supplier}` });
-    expect(labels.status).toBe(200);
-    const label = labels.body.find((l: { partNumber: string }) => l.partNumber === 'W-104');
+    const label = await labelOf('W-104');
     // The label carries the public HTTPS address, never this machine's loopback.
     expect(label.url).toMatch(new RegExp(`^${base}/t/`));
 
@@ -64,17 +64,7 @@ describe('the bench over HTTPS at the public address', () => {
   });
 
   it('opens a label’s link from the phone’s own camera: signed out, it lands on the part after sign-in', async () => {
-    const supplier = await t.signIn(DEMO_USERS.supplier.email);
-    const buildId = (
-      await request(t.app)
-        .get('/api/builds')
-        .set({ Authorization: `Bearer ${supplier}` })
-    ).body.items[0].id;
-    const label = (
-      await request(t.app)
-        .get(`/api/travelers/labels?buildId=${buildId}`)
-        .set({ Authorization: `Bearer ${supplier}` })
-    ).body.find((l: { partNumber: string }) => l.partNumber === 'W-105');
+    const label = await labelOf('W-105');
     browser ??= await launchBrowser({ trustSpki: spki });
     const page = await phonePage(browser, base);
     await page.goto(label.url);
