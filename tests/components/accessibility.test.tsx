@@ -115,6 +115,15 @@ describe('the progress bar', () => {
     expect(bar.contains(r.byTestId('progress-count'))).toBe(false);
     expect(r.byTestId('progress-count').textContent).toBe('8 / 55');
   });
+
+  it('hatches the awaiting segment on the web with one element, and draws none without holes awaiting', () => {
+    const r = renderWeb(<ProgressBar done={8} total={55} awaiting={20} />);
+    const bar = r.byTestId('progress-bar');
+    // The track, the done fill, the awaiting segment with its hatching, nine tenths' ticks.
+    expect(bar.querySelectorAll('*').length).toBe(12);
+    expect(r.queryByTestId('hatching')).not.toBeNull();
+    expect(renderWeb(<ProgressBar done={8} total={55} awaiting={0} />).queryByTestId('hatching')).toBeNull();
+  });
 });
 
 describe('hole marks and their key', () => {
