@@ -15,7 +15,10 @@ async function main() {
   const smtpFake: SmtpFake | undefined = config.smtp.fake
     ? await (await import('./mail/smtp-fake')).startSmtpFake(config.smtp.port, config.smtp.host)
     : undefined;
-  if (process.env.SEED_DEMO === '1' && (await seedDemo(database, storage, mailQueue, config.jwtSecret)))
+  if (
+    process.env.SEED_DEMO === '1' &&
+    (await seedDemo(database, storage, mailQueue, config.jwtSecret, { notice: true }))
+  )
     console.log('demo scenario loaded');
   // RUN_JOBS=0: this process only enqueues; `npm run worker` sends the mail and sweeps the photos.
   const jobs = config.runJobs ? await startJobs({ config, db: database.db, storage, mailQueue, logger }) : null;

@@ -1,5 +1,5 @@
 import sharp from 'sharp';
-import type { RevisionInput, RevisionStep } from '../../db/contracts';
+import { noticeInput, type RevisionInput, type RevisionStep } from '../../db/contracts';
 import type { Database } from '../../db';
 import { hashPassword } from '../auth/passwords';
 import { buildsService } from '../builds/builds-service';
@@ -9,6 +9,7 @@ import { DEMO_COUPONS, DEMO_KIT, DEMO_RIB_STOCK, DEMO_STUDY_INPUTS, DEMO_WING_IN
 import { findingsService } from '../findings/findings-service';
 import type { MailQueue } from '../jobs/mail-queue';
 import { kitsService } from '../kits/kits-service';
+import { noticesService } from '../notices/notices-service';
 import { anyUserExists, insertOrganization, insertUser } from '../people/people-repository';
 import { studiesService } from '../studies/studies-service';
 import { createUrlSigner } from '../photos/url-signer';
@@ -115,12 +116,28 @@ async function demoPhoto(): Promise<Buffer> {
   return sharp(Buffer.from(svg)).jpeg({ quality: 80 }).toBuffer();
 }
 
-/** Loads the demo when the database has no users yet; a second run changes nothing. */
+/** The supplier's notice on the inboard rib that the running demo carries (seedDemo's `notice`). */
+export const DEMO_NOTICE = {
+  level: 'recommended',
+  title: 'Deburr W-104 flange holes on both sides before priming',
+  body:
+    'A burr left under a rivet head holds the sheets apart: the joint then carries its load on the rivet ' +
+    'alone and the hole can work loose. Before priming, deburr both sides of every flange hole of W-104 ' +
+    'with a hand deburring tool, one turn only, and check with a fingertip that the edge is smooth. ' +
+    'Acknowledge this notice when you have read it; record it as done with the part.',
+} as const;
+
+/**
+ * Loads the demo when the database has no users yet; a second run changes nothing. With `notice`, the
+ * supplier has also issued a notice that reaches the build's inboard rib (the running product's demo);
+ * the tests' scenario leaves it out, so their build log and mail figures are those of the loop alone.
+ */
 export async function seedDemo(
   database: Database,
   storage: PhotoStorage,
   mailQueue: MailQueue,
   jwtSecret: string,
+  opts: { notice?: boolean } = {},
 ): Promise<boolean> {
   const { db, pool } = database;
   if (await anyUserExists(db)) return false;
@@ -233,5 +250,10 @@ export async function seedDemo(
     },
     [{ buffer: await demoPhoto(), originalname: 'hole-u09.jpg' }],
   );
+  if (opts.notice) {
+    // Through the contract, as the form's would be: the demo's words keep to the limits people's do.
+    const input = noticeInput.parse({ kitModelId: kit.id, ...DEMO_NOTICE, parts: [{ partDesignId: inner.id }] });
+    await noticesService({ db, pool, mailQueue, storage, signer }).issue(supplier, input, []);
+  }
   return true;
 }
