@@ -1,6 +1,6 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useRouter } from 'expo-router';
-import { useCallback, useEffect, useMemo, useState } from 'react';
+import { useCallback, useDeferredValue, useEffect, useMemo, useState } from 'react';
 import { View } from 'react-native';
 import {
   dispositionLabels,
@@ -232,75 +232,12 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
     </>
   );
 
-  const right = (
+  // What comes after the holes (steps, photos, hours, findings, sign-off) is drawn just after the first
+  // paint rather than in it: a part opened from its label shows its drawing, progress and holes without
+  // waiting for the rest of the page to be laid out. React draws it straight after, between frames.
+  const belowHoles = useDeferredValue(true, false);
+  const afterHoles = (
     <>
-      {sentFindingId ? (
-        // Focused on arrival from the flag screen: the answer to what was just done, with where to go next.
-        <Notice tone="ok" testID="finding-sent" focusOnShow>
-          <Txt>Finding sent. Whoever acts on it next has been told by e-mail.</Txt>
-          <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
-            <Button
-              label="See the finding"
-              variant="quiet"
-              compact
-              onPress={() => {
-                clearSent();
-                router.push(`/findings/${sentFindingId}`);
-              }}
-              testID="open-sent-finding"
-            />
-            <Button label="OK" variant="quiet" compact onPress={clearSent} testID="dismiss-sent" />
-          </View>
-        </Notice>
-      ) : null}
-      {ticks.waiting.length ? (
-        <Notice tone="caution" testID="ticks-waiting">
-          {`${ticks.waiting.length} tick${ticks.waiting.length === 1 ? '' : 's'} waiting for signal: kept on this device and sent as soon as the server answers.`}
-        </Notice>
-      ) : null}
-      {ticks.refused ? (
-        <Notice tone="error" testID="tick-refused">
-          <Txt tone="error">{ticks.refused}</Txt>
-          <Button label="OK" variant="quiet" compact onPress={ticks.dismissRefused} testID="dismiss-tick-refused" />
-        </Notice>
-      ) : null}
-      <ProgressBar done={progress.done} awaiting={progress.awaiting} total={t.holes.length} />
-      {canRaise ? (
-        <Button
-          label="Flag a hole"
-          variant="danger"
-          onPress={() => router.push(flagHref(focusId ? [focusId] : undefined))}
-          testID="flag-hole"
-        />
-      ) : null}
-      <Section title="Holes">
-        <HolesPanel
-          lines={t.lines}
-          holes={t.holes}
-          canTick={canTick}
-          mode={mode}
-          pick={pick}
-          run={run}
-          plan={plan}
-          focusId={focusId}
-          onHolePress={onHolePress}
-          onStartRun={() => {
-            setMode('run');
-            setPick(null);
-            setMessage(null);
-          }}
-          onCancelRun={() => {
-            setMode('tap');
-            setPick(null);
-          }}
-          onTickRun={() => {
-            if (plan?.action) for (const batch of tickBatches(plan.action)) send(batch);
-            setMode('tap');
-            setPick(null);
-          }}
-          message={message}
-        />
-      </Section>
       <Section title="Shop steps">
         {canStep ? <StepCreditChooser value={credit} onChange={setCredit} nameError={creditError} /> : null}
         <StepsList
@@ -373,6 +310,79 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
           />
         </Section>
       ) : null}
+    </>
+  );
+
+  const right = (
+    <>
+      {sentFindingId ? (
+        // Focused on arrival from the flag screen: the answer to what was just done, with where to go next.
+        <Notice tone="ok" testID="finding-sent" focusOnShow>
+          <Txt>Finding sent. Whoever acts on it next has been told by e-mail.</Txt>
+          <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
+            <Button
+              label="See the finding"
+              variant="quiet"
+              compact
+              onPress={() => {
+                clearSent();
+                router.push(`/findings/${sentFindingId}`);
+              }}
+              testID="open-sent-finding"
+            />
+            <Button label="OK" variant="quiet" compact onPress={clearSent} testID="dismiss-sent" />
+          </View>
+        </Notice>
+      ) : null}
+      {ticks.waiting.length ? (
+        <Notice tone="caution" testID="ticks-waiting">
+          {`${ticks.waiting.length} tick${ticks.waiting.length === 1 ? '' : 's'} waiting for signal: kept on this device and sent as soon as the server answers.`}
+        </Notice>
+      ) : null}
+      {ticks.refused ? (
+        <Notice tone="error" testID="tick-refused">
+          <Txt tone="error">{ticks.refused}</Txt>
+          <Button label="OK" variant="quiet" compact onPress={ticks.dismissRefused} testID="dismiss-tick-refused" />
+        </Notice>
+      ) : null}
+      <ProgressBar done={progress.done} awaiting={progress.awaiting} total={t.holes.length} />
+      {canRaise ? (
+        <Button
+          label="Flag a hole"
+          variant="danger"
+          onPress={() => router.push(flagHref(focusId ? [focusId] : undefined))}
+          testID="flag-hole"
+        />
+      ) : null}
+      <Section title="Holes">
+        <HolesPanel
+          lines={t.lines}
+          holes={t.holes}
+          canTick={canTick}
+          mode={mode}
+          pick={pick}
+          run={run}
+          plan={plan}
+          focusId={focusId}
+          onHolePress={onHolePress}
+          onStartRun={() => {
+            setMode('run');
+            setPick(null);
+            setMessage(null);
+          }}
+          onCancelRun={() => {
+            setMode('tap');
+            setPick(null);
+          }}
+          onTickRun={() => {
+            if (plan?.action) for (const batch of tickBatches(plan.action)) send(batch);
+            setMode('tap');
+            setPick(null);
+          }}
+          message={message}
+        />
+      </Section>
+      {belowHoles ? afterHoles : null}
     </>
   );
 
