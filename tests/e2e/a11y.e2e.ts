@@ -4,6 +4,7 @@ import type { Page } from 'playwright-core';
 import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
 import { contrast } from '../components/colour-math';
+import { auth } from '../helpers/test-app';
 import {
   auditSession,
   keepScreenshot,
@@ -29,8 +30,6 @@ const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
 const artefacts = path.join(__dirname, 'artifacts', 'a11y');
 
 const s = auditSession(artefacts);
-
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 
 const widths = [
   { name: 'phone', viewport: { width: 390, height: 844 }, isMobile: true },

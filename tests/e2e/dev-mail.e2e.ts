@@ -2,7 +2,7 @@ import type { Browser, Page } from 'playwright-core';
 import request from 'supertest';
 import sharp from 'sharp';
 import { DEMO_USERS } from '@/server/dev/seed';
-import type { TestApp } from '../helpers/test-app';
+import { auth, type TestApp } from '../helpers/test-app';
 import { fillSignIn, phonePage } from './helpers/browser';
 import { servedWithBrowser } from './helpers/served-app';
 
@@ -17,8 +17,6 @@ let t: TestApp;
 let base: string;
 let browser: Browser;
 let subject: string;
-
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 
 servedWithBrowser((s) => ({ t, base, browser } = s));
 beforeAll(async () => {

@@ -7,7 +7,7 @@ import request from 'supertest';
 import { DEMO_USERS } from '@/server/dev/seed';
 import { smallKits } from '../fixtures/rib-revision';
 import { publishSmallKit, shipBuild, workPart } from '../helpers/small-kit';
-import type { TestApp } from '../helpers/test-app';
+import { auth, type TestApp } from '../helpers/test-app';
 import { fillSignIn, phonePage } from './helpers/browser';
 import { servedWithBrowser } from './helpers/served-app';
 
@@ -26,7 +26,6 @@ let photo: string;
 let kitId: string;
 let serial = 0;
 
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 const visible = (page: Page, id: string) => page.locator(`[data-testid="${id}"]:visible`).first();
 
 servedWithBrowser((s) => ({ t, base, browser } = s));

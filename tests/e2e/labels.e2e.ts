@@ -2,7 +2,7 @@ import type { Browser, Page } from 'playwright-core';
 import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
 import { readQr } from '../fixtures/read-qr';
-import type { TestApp } from '../helpers/test-app';
+import { auth, type TestApp } from '../helpers/test-app';
 import { fillSignIn, phonePage } from './helpers/browser';
 import { servedWithBrowser } from './helpers/served-app';
 
@@ -43,11 +43,13 @@ describe('QR labels in a real browser', () => {
     const token = (
       await request(t.app).post('/api/auth/sign-in').send({ email: DEMO_USERS.builder.email, password: DEMO_PASSWORD })
     ).body.token;
-    const parts = (
-      await request(t.app)
-        .get('/api/travelers')
-        .set({ Authorization: `Bearer ${token}` })
-    ).body.items as { id: string; shortCode: string; serial: string; partNumber: string; letter: string }[];
+    const parts = (await request(t.app).get('/api/travelers').set(auth(token))).body.items as {
+      id: string;
+      shortCode: string;
+      serial: string;
+      partNumber: string;
+      letter: string;
+    }[];
     const part = parts[0];
     const page = await phonePage(browser, base);
     await signIn(page, DEMO_USERS.builder.email);
@@ -65,11 +67,7 @@ describe('QR labels in a real browser', () => {
     expect(await page.locator('[data-testid^="part-label-"]').count()).toBe(1);
 
     const text = await card.innerText();
-    const kit = (
-      await request(t.app)
-        .get(`/api/travelers/labels?travelerId=${part.id}`)
-        .set({ Authorization: `Bearer ${token}` })
-    ).body[0];
+    const kit = (await request(t.app).get(`/api/travelers/labels?travelerId=${part.id}`).set(auth(token))).body[0];
     for (const s of [
       part.shortCode,
       part.serial,
@@ -94,11 +92,10 @@ describe('QR labels in a real browser', () => {
     const supplierToken = (
       await request(t.app).post('/api/auth/sign-in').send({ email: DEMO_USERS.supplier.email, password: DEMO_PASSWORD })
     ).body.token;
-    const builds = (
-      await request(t.app)
-        .get('/api/builds')
-        .set({ Authorization: `Bearer ${supplierToken}` })
-    ).body.items as { id: string; travelerCount: number }[];
+    const builds = (await request(t.app).get('/api/builds').set(auth(supplierToken))).body.items as {
+      id: string;
+      travelerCount: number;
+    }[];
     const build = builds.find((b) => b.travelerCount > 1)!;
     await page.goto(`/travelers/labels?build=${build.id}`);
     await page.locator('[data-testid^="part-label-"]').first().waitFor({ timeout: 15000 });

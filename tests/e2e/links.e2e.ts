@@ -1,7 +1,7 @@
 import type { Browser } from 'playwright-core';
 import request from 'supertest';
 import { DEMO_USERS } from '@/server/dev/seed';
-import type { TestApp } from '../helpers/test-app';
+import { auth, type TestApp } from '../helpers/test-app';
 import { fillSignIn, phonePage } from './helpers/browser';
 import { servedWithBrowser } from './helpers/served-app';
 
@@ -22,9 +22,7 @@ const pendingKey = 'pitchcard.pending-link';
 
 async function api<T>(email: string, path: string): Promise<T> {
   const token = await t.signIn(email);
-  const res = await request(t.app)
-    .get(path)
-    .set({ Authorization: `Bearer ${token}` });
+  const res = await request(t.app).get(path).set(auth(token));
   if (res.status !== 200) throw new Error(`GET ${path} as ${email}: ${res.status} ${JSON.stringify(res.body)}`);
   return res.body as T;
 }

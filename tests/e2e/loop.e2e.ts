@@ -6,7 +6,7 @@ import sharp from 'sharp';
 import request from 'supertest';
 import { DEMO_USERS } from '@/server/dev/seed';
 import { readQr } from '../fixtures/read-qr';
-import type { TestApp } from '../helpers/test-app';
+import { auth, type TestApp } from '../helpers/test-app';
 import { fillSignIn, launchBrowser, phonePage } from './helpers/browser';
 import { writeQrVideo } from './helpers/qr-video';
 import { serveTestApp } from './helpers/served-app';
@@ -168,13 +168,8 @@ describe('the loop in a real browser at phone size', () => {
     await page.context().setOffline(false);
     await page.getByTestId('ticks-waiting').waitFor({ state: 'detached', timeout: 30000 });
     const token = await t.signIn(DEMO_USERS.builder.email);
-    const lookup = await request(t.app)
-      .get('/api/travelers/lookup')
-      .query({ code: qrText })
-      .set({ Authorization: `Bearer ${token}` });
-    const saved = await request(t.app)
-      .get(`/api/travelers/${lookup.body.id}`)
-      .set({ Authorization: `Bearer ${token}` });
+    const lookup = await request(t.app).get('/api/travelers/lookup').query({ code: qrText }).set(auth(token));
+    const saved = await request(t.app).get(`/api/travelers/${lookup.body.id}`).set(auth(token));
     expect(saved.body.holes.find((h: { holeId: string }) => h.holeId === 'U-06').status).toBe('installed');
 
     const photo = path.join(work, 'hole.jpg');

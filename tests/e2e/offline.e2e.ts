@@ -5,7 +5,7 @@ import sharp from 'sharp';
 import request from 'supertest';
 import type { SessionUser, TravelerDetail, TravelerSummary } from '@/db/contracts';
 import { DEMO_USERS } from '@/server/dev/seed';
-import { startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, startTestApp, type TestApp } from '../helpers/test-app';
 import { fillSignIn, launchBrowser, phonePage } from './helpers/browser';
 import { webDist } from './helpers/served-app';
 
@@ -59,9 +59,7 @@ const visible = (page: Page, id: string) => page.locator(`[data-testid="${id}"]:
 
 async function api<T>(url: string): Promise<T> {
   const token = await t.signIn(DEMO_USERS.builder.email);
-  const res = await request(t.app)
-    .get(url)
-    .set({ Authorization: `Bearer ${token}` });
+  const res = await request(t.app).get(url).set(auth(token));
   if (res.status !== 200) throw new Error(`GET ${url}: ${res.status} ${JSON.stringify(res.body)}`);
   return res.body as T;
 }

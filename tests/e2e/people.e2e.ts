@@ -1,7 +1,7 @@
 import type { Browser, Page } from 'playwright-core';
 import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
-import type { TestApp } from '../helpers/test-app';
+import { auth, type TestApp } from '../helpers/test-app';
 import { fillSignIn, phonePage } from './helpers/browser';
 import { servedWithBrowser } from './helpers/served-app';
 
@@ -20,7 +20,6 @@ let browser: Browser;
 // Strong by the server's strength package (several unrelated words and a number), and nobody's name.
 const STRONG = 'copper-ribs-tilt-44-quietly';
 
-const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
 const visible = (page: Page, id: string) => page.locator(`[data-testid="${id}"]:visible`).first();
 const stamp = () => Date.now().toString(36).slice(-5);
 

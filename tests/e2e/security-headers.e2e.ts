@@ -5,7 +5,7 @@ import type { Browser, BrowserContext, Page } from 'playwright-core';
 import sharp from 'sharp';
 import request from 'supertest';
 import { DEMO_USERS } from '@/server/dev/seed';
-import type { TestApp } from '../helpers/test-app';
+import { auth, type TestApp } from '../helpers/test-app';
 import { fillSignIn, launchBrowser, phonePage } from './helpers/browser';
 import { writeQrVideo } from './helpers/qr-video';
 import { serveTestApp } from './helpers/served-app';
@@ -79,9 +79,7 @@ async function until<T>(read: () => Promise<T> | T, ok: (v: T) => boolean, ms = 
 
 async function api<T>(email: string, url: string): Promise<T> {
   const token = await t.signIn(email);
-  const res = await request(t.app)
-    .get(url)
-    .set({ Authorization: `Bearer ${token}` });
+  const res = await request(t.app).get(url).set(auth(token));
   if (res.status !== 200) throw new Error(`GET ${url} as ${email}: ${res.status} ${JSON.stringify(res.body)}`);
   return res.body as T;
 }
