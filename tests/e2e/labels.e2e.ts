@@ -1,6 +1,6 @@
 import type { Browser, Page } from 'playwright-core';
 import request from 'supertest';
-import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
+import { DEMO_USERS } from '@/server/dev/seed';
 import { readQr } from '../fixtures/read-qr';
 import { auth, type TestApp } from '../helpers/test-app';
 import { fillSignIn, phonePage } from './helpers/browser';
@@ -40,9 +40,7 @@ function pageBoxes(pdf: Buffer): number[][] {
 
 describe('QR labels in a real browser', () => {
   it('a builder reprints one part’s label from the traveler: kit model, supplier, part, revision, serial, short code and a QR that opens it', async () => {
-    const token = (
-      await request(t.app).post('/api/auth/sign-in').send({ email: DEMO_USERS.builder.email, password: DEMO_PASSWORD })
-    ).body.token;
+    const token = await t.signIn(DEMO_USERS.builder.email);
     const parts = (await request(t.app).get('/api/travelers').set(auth(token))).body.items as {
       id: string;
       shortCode: string;
@@ -89,9 +87,7 @@ describe('QR labels in a real browser', () => {
     const page = await phonePage(browser, base);
     await signIn(page, DEMO_USERS.supplier.email);
     await page.getByTestId('email').waitFor({ state: 'detached', timeout: 20000 });
-    const supplierToken = (
-      await request(t.app).post('/api/auth/sign-in').send({ email: DEMO_USERS.supplier.email, password: DEMO_PASSWORD })
-    ).body.token;
+    const supplierToken = await t.signIn(DEMO_USERS.supplier.email);
     const builds = (await request(t.app).get('/api/builds').set(auth(supplierToken))).body.items as {
       id: string;
       travelerCount: number;

@@ -5,7 +5,7 @@
  */
 import request from 'supertest';
 import { DEMO_NOTICE, DEMO_USERS, seedDemo } from '@/server/dev/seed';
-import { auth, startTestApp, type TestApp } from '../helpers/test-app';
+import { auth, demoRibs, startTestApp, type TestApp } from '../helpers/test-app';
 
 jest.setTimeout(90000);
 
@@ -21,33 +21,24 @@ beforeAll(async () => {
 }, 90_000);
 afterAll(() => t.close());
 
-const partOf = async (partNumber: string) => {
-  const parts = (await request(t.app).get('/api/travelers').query({ limit: 100 }).set(auth(builder))).body.items as {
-    id: string;
-    partNumber: string;
-    buildId: string;
-  }[];
-  return parts.find((p) => p.partNumber === partNumber)!;
-};
-
 describe("the running demo's notice", () => {
   it('reaches the inboard rib of the demo build and no other part', async () => {
-    const inner = await partOf('W-104');
-    const outer = await partOf('W-105');
+    const { innerId, outerId, buildId } = await demoRibs(t, builder);
     const on = (travelerId: string) =>
       request(t.app).get('/api/notices').query({ travelerId }).set(auth(builder)).expect(200);
-    const innerNotices = (await on(inner.id)).body.items as { id: string; title: string; level: string }[];
+    const innerNotices = (await on(innerId)).body.items as { id: string; title: string; level: string }[];
     expect(innerNotices.map((n) => [n.title, n.level])).toEqual([[DEMO_NOTICE.title, DEMO_NOTICE.level]]);
-    expect((await on(outer.id)).body.items).toEqual([]);
+    expect((await on(outerId)).body.items).toEqual([]);
 
     // The builder answers it, and both the notice and the answer are in the build's log.
     await request(t.app)
-      .post(`/api/notices/${innerNotices[0].id}/builds/${inner.buildId}/acknowledge`)
+      .post(`/api/notices/${innerNotices[0].id}/builds/${buildId}/acknowledge`)
       .set(auth(builder))
       .send({})
       .expect(200);
-    const log = (await request(t.app).get(`/api/builds/${inner.buildId}/log`).set(auth(builder)).expect(200)).body
-      .items as { kind: string }[];
+    const log = (await request(t.app).get(`/api/builds/${buildId}/log`).set(auth(builder)).expect(200)).body.items as {
+      kind: string;
+    }[];
     expect(log.map((e) => e.kind)).toEqual(expect.arrayContaining(['notice_received', 'notice_acknowledged']));
   });
 
@@ -55,8 +46,8 @@ describe("the running demo's notice", () => {
     await expect(seedDemo(t.database, t.ctx.storage, t.mailQueue, t.config.jwtSecret, { notice: true })).resolves.toBe(
       false,
     );
-    const inner = await partOf('W-104');
-    const notices = (await request(t.app).get('/api/notices').query({ travelerId: inner.id }).set(auth(builder))).body
+    const { innerId } = await demoRibs(t, builder);
+    const notices = (await request(t.app).get('/api/notices').query({ travelerId: innerId }).set(auth(builder))).body
       .items as unknown[];
     expect(notices).toHaveLength(1);
   });
