@@ -19,7 +19,7 @@ import type { MailQueue } from './jobs/mail-queue';
 import { kitsRouter } from './kits/kits-router';
 import type { SmtpFake } from './mail/smtp-fake';
 import { authenticate } from './middleware/authenticate';
-import { errorHandler } from './middleware/error-handler';
+import { errorHandler, pageErrorHandler } from './middleware/error-handler';
 import { limitByIpAndAddress } from './middleware/rate-limit';
 import { createLogger, requestLog } from './middleware/request-log';
 import { securityHeaders } from './middleware/security-headers';
@@ -128,5 +128,6 @@ export function createApp({ config, database, mailQueue, storage, smtpFake, logg
     app.use(express.static(config.webDist, { index: false, maxAge: '1h', setHeaders: revalidateAppShell }));
     app.get('/{*splat}', (_req, res) => res.sendFile(index));
   }
+  app.use(pageErrorHandler);
   return { app, ctx };
 }

@@ -1,5 +1,5 @@
 import { Router, type RequestHandler, type Response } from 'express';
-import multer, { MulterError } from 'multer';
+import multer from 'multer';
 import {
   buildLogPageQuery,
   buildLogQuery,
@@ -11,6 +11,7 @@ import {
 import type { AppContext } from '../context';
 import { badRequest, HttpError } from '../http-error';
 import { validateQuery } from '../middleware/validate';
+import { readUpload } from '../photos/uploads';
 import { buildLogService } from './build-log-service';
 import { logChainService } from './log-chain-service';
 
@@ -54,15 +55,11 @@ const oneLogFile = multer({
   storage: multer.memoryStorage(),
   limits: { fileSize: LOG_CHECK_FILE_MAX_MB * 1024 * 1024, files: 1, fields: 4, parts: 5 },
 }).single('file');
-const logUpload: RequestHandler = (req, res, next) =>
-  oneLogFile(req, res, (err?: unknown) => {
-    if (!err) return next();
-    if (err instanceof MulterError && err.code === 'LIMIT_FILE_SIZE')
-      return next(new HttpError(413, 'too_large', `the log file is larger than ${LOG_CHECK_FILE_MAX_MB} MB`));
-    if (err instanceof MulterError)
-      return next(badRequest('attach one CSV file, as the "file" field', { file: 'one CSV file' }));
-    next(badRequest('the upload could not be read: send the file again', { file: 'unreadable upload' }));
-  });
+const logUpload = readUpload(oneLogFile, 'file', (err) =>
+  err.code === 'LIMIT_FILE_SIZE'
+    ? new HttpError(413, 'too_large', `the log file is larger than ${LOG_CHECK_FILE_MAX_MB} MB`)
+    : badRequest('attach one CSV file, as the "file" field', { file: 'one CSV file' }),
+);
 
 /**
  * GET /api/builds/:id/log (JSON, one page at a time), /log.csv and /log.pdf, same filters. Mounted on /builds ahead of the

@@ -10,7 +10,7 @@ import {
 } from '../../db/contracts';
 import type { AppContext } from '../context';
 import { validateBody, validateQuery } from '../middleware/validate';
-import { MAX_PHOTOS, parseJsonField, photoUpload, uploadedFiles } from '../photos/uploads';
+import { MAX_PHOTOS, parseJsonField, photosIn, uploadedFiles } from '../photos/uploads';
 import { findingsService } from './findings-service';
 
 const actionParams = z.object({
@@ -25,7 +25,7 @@ export function findingsRouter(ctx: AppContext): Router {
   r.get('/', validateQuery(findingListQuery), async (req, res) => {
     res.json(await service.page(req.user!, res.locals.query));
   });
-  r.post('/', photoUpload.array('photos', MAX_PHOTOS), async (req, res) => {
+  r.post('/', photosIn('photos', MAX_PHOTOS), async (req, res) => {
     const input = findingInput.parse({
       ...req.body,
       holeIds: parseJsonField(req.body?.holeIds, 'holeIds', '["U-03"]'),
@@ -43,7 +43,7 @@ export function findingsRouter(ctx: AppContext): Router {
     res.json(await service.repairCheck(req.user!, idParam.parse(req.params).id, req.body.proposedSpec));
   });
   // One decision, one request: JSON, or multipart when it carries photos (work done).
-  r.post('/:id/:action', photoUpload.array('photos', MAX_PHOTOS), async (req, res) => {
+  r.post('/:id/:action', photosIn('photos', MAX_PHOTOS), async (req, res) => {
     const { id, action } = actionParams.parse(req.params);
     const input = findingActionInput.parse(req.body ?? {});
     res.json(await service.act(req.user!, id, action, input, uploadedFiles(req)));

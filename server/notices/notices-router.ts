@@ -13,7 +13,7 @@ import {
 import type { AppContext } from '../context';
 import { requireRole } from '../middleware/require-role';
 import { validateQuery } from '../middleware/validate';
-import { parseJsonField, photoUpload, uploadedFiles } from '../photos/uploads';
+import { parseJsonField, photosIn, uploadedFiles } from '../photos/uploads';
 import { benchTimeOf } from '../travelers/device-time';
 import { noticesService } from './notices-service';
 
@@ -33,7 +33,7 @@ export function noticesRouter(ctx: AppContext): Router {
     res.json(await notices.list(req.user!, by, { cursor, limit }));
   });
   // Multipart (the fields and the files) or JSON without files.
-  r.post('/', requireRole('supplier'), photoUpload.array('files', MAX_NOTICE_FILES), async (req, res) => {
+  r.post('/', requireRole('supplier'), photosIn('files', MAX_NOTICE_FILES), async (req, res) => {
     const b = req.body ?? {};
     const input = noticeInput.parse({
       ...b,
@@ -51,7 +51,7 @@ export function noticesRouter(ctx: AppContext): Router {
     const at = benchTimeOf(deviceTime.parse(req.body ?? {}));
     res.json(await notices.acknowledge(req.user!, id, buildId, at));
   });
-  r.post('/:id/builds/:buildId/compliance', photoUpload.array('photos', MAX_COMPLIANCE_PHOTOS), async (req, res) => {
+  r.post('/:id/builds/:buildId/compliance', photosIn('photos', MAX_COMPLIANCE_PHOTOS), async (req, res) => {
     const { id, buildId } = answerParams.parse(req.params);
     const b = req.body ?? {};
     const input = complianceInput.parse(b);

@@ -1,4 +1,5 @@
-import multer from 'multer';
+import type { RequestHandler } from 'express';
+import multer, { MulterError } from 'multer';
 import { badRequest } from '../http-error';
 import type { PhotoStorage } from '../storage/photo-storage';
 import { processPhoto } from './image-processing';
@@ -7,10 +8,31 @@ import { processPhoto } from './image-processing';
 export const MAX_PHOTOS = 6;
 
 /** Multipart photos in memory: checked and re-encoded before anything is stored. */
-export const photoUpload = multer({
+const photoUpload = multer({
   storage: multer.memoryStorage(),
   limits: { fileSize: 10 * 1024 * 1024, files: MAX_PHOTOS, fields: 16, fieldSize: 64 * 1024 },
 });
+
+/**
+ * Runs a multer middleware. Its own limits (MulterError) go on as `onLimit` words them; any other error
+ * is busboy on a body it cannot read (no boundary, cut short, a malformed part header): the sender's
+ * fault, a 400 naming `field`, not the 500 a plain Error would become.
+ */
+export function readUpload(
+  read: RequestHandler,
+  field: string,
+  onLimit: (err: MulterError) => unknown = (err) => err,
+): RequestHandler {
+  return (req, res, next) =>
+    read(req, res, (err?: unknown) => {
+      if (!err) return next();
+      if (err instanceof MulterError) return next(onLimit(err));
+      next(badRequest('the upload could not be read: send it again', { [field]: 'unreadable upload' }));
+    });
+}
+
+/** Up to `max` photos (or notice files) of a multipart request, under `field`. */
+export const photosIn = (field: string, max: number) => readUpload(photoUpload.array(field, max), field);
 
 export type UploadedPhoto = { buffer: Buffer; originalname: string };
 export type StoredPhoto = { fileKey: string; thumbKey: string; width: number; height: number };

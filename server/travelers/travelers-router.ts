@@ -17,7 +17,7 @@ import {
 import type { AppContext } from '../context';
 import { findingsService } from '../findings/findings-service';
 import { validateBody, validateQuery } from '../middleware/validate';
-import { MAX_PHOTOS, parseJsonField, photoUpload, uploadedFiles } from '../photos/uploads';
+import { MAX_PHOTOS, parseJsonField, photosIn, uploadedFiles } from '../photos/uploads';
 import { travelersService } from './travelers-service';
 
 const stepParams = z.object({ id: z.uuid({ message: 'must be an id' }), stepId: z.uuid({ message: 'must be an id' }) });
@@ -58,7 +58,7 @@ export function travelersRouter(ctx: AppContext): Router {
   r.post('/:id/work/hours', validateBody(workHoursInput), async (req, res) => {
     res.json(await service.enterHours(req.user!, idParam.parse(req.params).id, req.body));
   });
-  r.post('/:id/photos', photoUpload.array('photos', MAX_PHOTOS), async (req, res) => {
+  r.post('/:id/photos', photosIn('photos', MAX_PHOTOS), async (req, res) => {
     const input = workPhotosInput.parse({
       ...req.body,
       holeIds: parseJsonField(req.body?.holeIds, 'holeIds', '["U-03"]'),

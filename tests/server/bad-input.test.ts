@@ -124,6 +124,24 @@ describe('bad input gets a clear error and saves nothing', () => {
     expect(res.status).toBe(413);
   });
 
+  it('answers 400 to a multipart body it cannot read (no boundary, cut short), naming the field, and keeps nothing', async () => {
+    const before = await savedCounts();
+    const send = (contentType: string, body: string) =>
+      request(t.app).post('/api/findings').set(auth(tok.builder)).set('Content-Type', contentType).send(body);
+    const cutShort = '--XX\r\nContent-Disposition: form-data; name="photos"; filename="a.png"\r\n\r\nhalf a fi';
+    for (const res of [
+      await send('multipart/form-data', 'garbage'),
+      await send('multipart/form-data; boundary=XX', cutShort),
+    ]) {
+      expect([res.status, res.body.error.message, res.body.error.fields]).toEqual([
+        400,
+        'the upload could not be read: send it again',
+        { photos: 'unreadable upload' },
+      ]);
+    }
+    expect(await savedCounts()).toEqual(before);
+  });
+
   it('rolls back photos and finding when a hole does not exist', async () => {
     const before = await savedCounts();
     const res = await raiseOn('Q-99').attach('photos', await png(), 'a.png');

@@ -1,6 +1,7 @@
 import { spawn } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
-import { readdir, utimes, writeFile } from 'node:fs/promises';
+import { mkdtemp, readdir, rm, utimes, writeFile } from 'node:fs/promises';
+import os from 'node:os';
 import path from 'node:path';
 import { Client } from 'pg';
 import request from 'supertest';
@@ -133,6 +134,59 @@ describe('request ids', () => {
     expect(loadConfig({ ...base, NODE_ENV: 'test' }).logLevel).toBe('silent');
     expect(loadConfig({ ...base, NODE_ENV: 'production' }).logLevel).toBe('info');
     expect(loadConfig({ ...base, NODE_ENV: 'test', LOG_LEVEL: 'debug' }).logLevel).toBe('debug');
+  });
+});
+
+describe('requests Express itself cannot read', () => {
+  // Each answered 500 "something went wrong" before, and outside the API Express's own page with the stack.
+  let token: string;
+  beforeAll(async () => {
+    token = await t.signIn(supplier.email);
+  });
+  const kitCount = async () => (await request(t.app).get('/api/kits').set(auth(token))).body.items.length;
+  const postKit = (headers: Record<string, string>, body: string) =>
+    request(t.app).post('/api/kits').set(auth(token)).set(headers).send(body);
+
+  it('refuses an API path with a malformed %-escape as such', async () => {
+    const res = await request(t.app).get('/api/builds/%E0%A4%A').set(auth(token));
+    expect([res.status, res.body.error.code]).toEqual([400, 'invalid_address']);
+    expect(res.body.error.message).toBe('the address has a malformed %-escape');
+  });
+
+  it('refuses a body in an encoding or charset it does not read (415), naming it, and saves nothing', async () => {
+    const before = await kitCount();
+    const encoded = await postKit({ 'Content-Type': 'application/json', 'Content-Encoding': 'foo' }, '{}');
+    expect([encoded.status, encoded.body.error.code]).toEqual([415, 'unsupported_encoding']);
+    expect(encoded.body.error.message).toContain('"foo"');
+    const latin = await postKit({ 'Content-Type': 'application/json; charset=latin1' }, '{}');
+    expect([latin.status, latin.body.error.code]).toEqual([415, 'unsupported_charset']);
+    expect(latin.body.error.message).toContain('send UTF-8');
+    expect(await kitCount()).toBe(before);
+  });
+
+  it('refuses a body marked gzip that does not inflate (400)', async () => {
+    const res = await postKit({ 'Content-Type': 'application/json', 'Content-Encoding': 'gzip' }, 'not gzip at all');
+    expect([res.status, res.body.error.code]).toEqual([400, 'unreadable_body']);
+    expect(res.body.error.message).toMatch(/^the request body could not be read/);
+  });
+
+  it("answers a page path with a malformed %-escape 400 in plain words, without the server's stack", async () => {
+    const webDist = await mkdtemp(path.join(os.tmpdir(), 'pc-web-'));
+    try {
+      await writeFile(path.join(webDist, 'index.html'), '<!doctype html><title>app</title>');
+      const { app } = createApp({
+        config: { ...t.config, webDist },
+        database: t.database,
+        mailQueue: t.mailQueue,
+        storage: t.ctx.storage,
+      });
+      expect((await request(app).get('/builds')).text).toContain('<title>app</title>');
+      const res = await request(app).get('/builds/%ZZ');
+      expect([res.status, res.type]).toEqual([400, 'text/plain']);
+      expect(res.text).toBe('Not served: the address has a malformed %-escape.');
+    } finally {
+      await rm(webDist, { recursive: true, force: true });
+    }
   });
 });
 
