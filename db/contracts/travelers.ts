@@ -179,7 +179,8 @@ export type TravelerSummary = {
  */
 export const travelerListQuery = pageQuery.extend({
   show: z.enum(['open', 'signed', 'all'], { message: 'show is open, signed or all' }).default('all'),
-  q: z.string({ message: 'q must be text' }).trim().max(100, 'keep the search under 100 characters').optional(),
+  // plainText: PostgreSQL refuses a NUL byte in text, so one in a search would otherwise end as a 500.
+  q: plainText('the search', 0, 100).optional(),
 });
 export type TravelerListQuery = z.infer<typeof travelerListQuery>;
 export type TravelerListShow = TravelerListQuery['show'];
