@@ -28,7 +28,16 @@ export type Role = (typeof roles)[number];
 /** Control characters other than tab and line breaks: never part of what a person types. */
 const CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/;
 
-/** Free text a person typed: trimmed, bounded, and refused with the field's own words when it carries control characters. */
+/**
+ * Half of a UTF-16 surrogate pair standing alone. JSON can carry one (`"\ud800"`) though it is no
+ * character: PostgreSQL refuses it in a JSON column (a 500), and a text column would keep U+FFFD instead.
+ */
+const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?:^|[^\uD800-\uDBFF])[\uDC00-\uDFFF]/;
+
+/**
+ * Free text a person typed: trimmed, bounded, and refused with the field's own words when it carries
+ * control characters or a broken character (a lone surrogate).
+ */
 export const plainText = (
   what: string,
   min: number,
@@ -40,7 +49,8 @@ export const plainText = (
     .trim()
     .min(min, tooShort)
     .max(max, `keep ${what} under ${max} characters`)
-    .refine((s) => !CONTROL.test(s), `${what} contains a control character: type plain text`);
+    .refine((s) => !CONTROL.test(s), `${what} contains a control character: type plain text`)
+    .refine((s) => !LONE_SURROGATE.test(s), `${what} contains a broken character: type it again`);
 
 export const roleLabels: Record<Role, string> = {
   supplier: 'Supplier’s engineer',

@@ -39,6 +39,8 @@ async function stillServes() {
   expect(normal.body.result.recommended).not.toBeNull();
 }
 
+const pick = (o: Record<string, unknown>, keys: string[]) => Object.fromEntries(keys.map((k) => [k, o[k]]));
+
 function refused(res: request.Response, field: string, message: RegExp) {
   expect({ status: res.status, code: res.body.error?.code }).toEqual({ status: 400, code: 'invalid_input' });
   expect(res.body.error.fields?.[field]).toMatch(message);
@@ -184,6 +186,28 @@ describe('kits, coupons and part revisions refuse the same way', () => {
     const res = await postCoupon({ note: 'pulled\u0000clean', testedOn: '2026-10-14' });
     refused(res, 'note', /control character/);
     await stillServes();
+  });
+
+  it('refuses a kit name with half a surrogate pair, changing nothing, and keeps a whole one', async () => {
+    // JSON carries a lone "\ud800" though it is no character; PostgreSQL refused it in the kit's change
+    // record (a JSON column) with a 500. An emoji is a whole pair and stays welcome.
+    const kitNow = async () => (await request(t.app).get(`/api/kits/${kitModelId}`).set(auth(tok.supplier))).body;
+    const before = await kitNow();
+    const change = (name: string) =>
+      request(t.app)
+        .patch(`/api/kits/${kitModelId}`)
+        .set(auth(tok.supplier))
+        .send({
+          ...pick(before, Object.keys(smallKitModel('', ''))),
+          cruiseSpeedKeas: before.cruiseSpeedKeas,
+          name,
+          reason: 'renamed',
+        });
+    refused(await change('Trainer \ud800'), 'name', /broken character/);
+    refused(await change('\udc00 Trainer'), 'name', /broken character/);
+    expect((await kitNow()).name).toBe(before.name);
+    const whole = await change('Trainer \ud83d\ude80');
+    expect([whole.status, whole.body.name]).toEqual([200, 'Trainer 🚀']);
   });
 
   it('refuses a coupon test dated 9999-12-31', async () => {
