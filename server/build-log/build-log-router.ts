@@ -50,7 +50,7 @@ function exportRoute(make: MakeExport, contentType: string): RequestHandler {
   };
 }
 
-/** One exported log in memory, as the `file` field; the error handler's upload messages speak of photos, so these say their own. */
+/** One exported log in memory, as the `file` field, its limits refused in its own words (one CSV, its size). */
 const oneLogFile = multer({
   storage: multer.memoryStorage(),
   limits: { fileSize: LOG_CHECK_FILE_MAX_MB * 1024 * 1024, files: 1, fields: 4, parts: 5 },

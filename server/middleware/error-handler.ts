@@ -1,5 +1,4 @@
 import type { NextFunction, Request, Response } from 'express';
-import { MulterError } from 'multer';
 import { ZodError } from 'zod';
 import type { ApiErrorBody } from '../../db/contracts';
 import { EngineeringInputError } from '../engineering/errors';
@@ -38,18 +37,6 @@ export function errorHandler(err: unknown, req: Request, res: Response, _next: N
       message: `${err.field}: ${err.reason}`,
       fields: { [err.field]: err.reason },
     });
-  }
-  if (err instanceof MulterError) {
-    if (err.code === 'LIMIT_FILE_SIZE')
-      return send(413, { code: 'too_large', message: 'a photo is larger than 10 MB' });
-    if (err.code === 'LIMIT_FILE_COUNT' || err.code === 'LIMIT_UNEXPECTED_FILE') {
-      return send(400, {
-        code: 'invalid_input',
-        message: 'attach at most 6 photos, as the "photos" field',
-        fields: { photos: 'at most 6 photos' },
-      });
-    }
-    return send(400, { code: 'invalid_input', message: err.message });
   }
   const refusal = clientRefusal(err);
   if (refusal) return send(refusal.status, refusal.error);

@@ -33,7 +33,7 @@ export function noticesRouter(ctx: AppContext): Router {
     res.json(await notices.list(req.user!, by, { cursor, limit }));
   });
   // Multipart (the fields and the files) or JSON without files.
-  r.post('/', requireRole('supplier'), photosIn('files', MAX_NOTICE_FILES), async (req, res) => {
+  r.post('/', requireRole('supplier'), photosIn('files', MAX_NOTICE_FILES, 'file'), async (req, res) => {
     const b = req.body ?? {};
     const input = noticeInput.parse({
       ...b,

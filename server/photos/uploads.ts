@@ -1,16 +1,19 @@
 import type { RequestHandler } from 'express';
 import multer, { MulterError } from 'multer';
-import { badRequest } from '../http-error';
+import { badRequest, HttpError } from '../http-error';
 import type { PhotoStorage } from '../storage/photo-storage';
 import { processPhoto } from './image-processing';
 
 /** Photos one request may carry (a finding's, or work at the bench). */
 export const MAX_PHOTOS = 6;
 
+/** A photo or notice file's largest size. */
+const FILE_MAX_MB = 10;
+
 /** Multipart photos in memory: checked and re-encoded before anything is stored. */
 const photoUpload = multer({
   storage: multer.memoryStorage(),
-  limits: { fileSize: 10 * 1024 * 1024, files: MAX_PHOTOS, fields: 16, fieldSize: 64 * 1024 },
+  limits: { fileSize: FILE_MAX_MB * 1024 * 1024, files: MAX_PHOTOS, fields: 16, fieldSize: 64 * 1024 },
 });
 
 /**
@@ -21,7 +24,7 @@ const photoUpload = multer({
 export function readUpload(
   read: RequestHandler,
   field: string,
-  onLimit: (err: MulterError) => unknown = (err) => err,
+  onLimit: (err: MulterError) => unknown,
 ): RequestHandler {
   return (req, res, next) =>
     read(req, res, (err?: unknown) => {
@@ -31,8 +34,21 @@ export function readUpload(
     });
 }
 
-/** Up to `max` photos (or notice files) of a multipart request, under `field`. */
-export const photosIn = (field: string, max: number) => readUpload(photoUpload.array(field, max), field);
+/**
+ * Up to `max` photos (or a notice's files: `noun` 'file') of a multipart request, under `field`. A
+ * limit is refused in the words of this route's field and count: a notice takes four files, a finding six photos.
+ */
+export function photosIn(field: string, max: number, noun: 'photo' | 'file' = 'photo'): RequestHandler {
+  return readUpload(photoUpload.array(field, max), field, (err) => {
+    if (err.code === 'LIMIT_FILE_SIZE')
+      return new HttpError(413, 'too_large', `a ${noun} is larger than ${FILE_MAX_MB} MB`);
+    if (err.code === 'LIMIT_FILE_COUNT' || err.code === 'LIMIT_UNEXPECTED_FILE')
+      return badRequest(`attach at most ${max} ${noun}s, as the "${field}" field`, {
+        [field]: `at most ${max} ${noun}s`,
+      });
+    return badRequest(`the upload is over a limit: ${err.message}`, { [field]: err.message });
+  });
+}
 
 export type UploadedPhoto = { buffer: Buffer; originalname: string };
 export type StoredPhoto = { fileKey: string; thumbKey: string; width: number; height: number };

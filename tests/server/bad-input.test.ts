@@ -119,9 +119,16 @@ describe('bad input gets a clear error and saves nothing', () => {
     expect(await savedCounts()).toEqual(before);
   });
 
-  it('answers 413 to a photo over 10 MB', async () => {
+  it('answers 413 to a photo over 10 MB, and 400 to a seventh photo, each saying so', async () => {
     const res = await raiseOn('L-03').attach('photos', Buffer.alloc(10 * 1024 * 1024 + 10, 1), 'huge.jpg');
-    expect(res.status).toBe(413);
+    expect([res.status, res.body.error.message]).toEqual([413, 'a photo is larger than 10 MB']);
+    let seven = raiseOn('L-03');
+    for (let i = 0; i < 7; i++) seven = seven.attach('photos', await png(), `p${i}.png`);
+    const tooMany = await seven;
+    expect([tooMany.status, tooMany.body.error.message]).toEqual([
+      400,
+      'attach at most 6 photos, as the "photos" field',
+    ]);
   });
 
   it('answers 400 to a multipart body it cannot read (no boundary, cut short), naming the field, and keeps nothing', async () => {

@@ -13,7 +13,13 @@ import { logPdfText } from '../helpers/pdf-text';
 import { parseCsv } from '../helpers/csv';
 import { auth, demoApp, type TestApp, type Tokens } from '../helpers/test-app';
 import { DEMO_USERS } from '@/server/dev/seed';
-import type { NoticeBuildAnswer, NoticeDetail, NoticeSummary } from '@/db/contracts';
+import {
+  MAX_COMPLIANCE_PHOTOS,
+  MAX_NOTICE_FILES,
+  type NoticeBuildAnswer,
+  type NoticeDetail,
+  type NoticeSummary,
+} from '@/db/contracts';
 
 jest.setTimeout(90000);
 
@@ -214,6 +220,15 @@ describe('answers, in the build log and across builds', () => {
     expect(photo.headers['content-type']).toMatch(/image\/jpeg/);
   });
 
+  it('refuses a fifth file in the words of a notice (four files, as "files"), not of a finding', async () => {
+    const pdf = { buf: Buffer.from('%PDF-1.4\n%%EOF\n'), name: 'sheet.pdf', type: 'application/pdf' };
+    const res = await issue(tok.supplier, {}, Array(MAX_NOTICE_FILES + 1).fill(pdf));
+    expect([res.status, res.body.error.message]).toEqual([
+      400,
+      `attach at most ${MAX_NOTICE_FILES} files, as the "files" field`,
+    ]);
+  });
+
   it('refuses a file that is neither a photo nor a PDF, and keeps nothing of that notice', async () => {
     const count = async () =>
       ((await request(t.app).get('/api/notices').query({ kitModelId }).set(auth(tok.supplier))).body.items as unknown[])
@@ -268,6 +283,18 @@ describe('answers, in the build log and across builds', () => {
     };
     const byInspector = await answer(tok.inspector, { outcome: 'done', note: 'Looked fine' });
     expect(byInspector.status).toBe(403);
+    let fivePhotos = request(t.app)
+      .post(`/api/notices/${notice.id}/builds/${buildId()}/compliance`)
+      .set(auth(tok.builder))
+      .field('outcome', 'done')
+      .field('note', 'Pitch at the nose checked');
+    for (let i = 0; i <= MAX_COMPLIANCE_PHOTOS; i++)
+      fivePhotos = fivePhotos.attach('photos', await jpeg(), { filename: `p${i}.jpg`, contentType: 'image/jpeg' });
+    const tooMany = await fivePhotos;
+    expect([tooMany.status, tooMany.body.error.message]).toEqual([
+      400,
+      `attach at most ${MAX_COMPLIANCE_PHOTOS} photos, as the "photos" field`,
+    ]);
     const noNote = await answer(tok.builder, { outcome: 'done' });
     expect(noNote.status).toBe(400);
     expect(noNote.body.error.fields.note).toBeTruthy();
