@@ -9,12 +9,30 @@ import { Pool, type PoolClient } from 'pg';
 export type Db = NodePgDatabase;
 export type Database = { pool: Pool; db: Db; close: () => Promise<void> };
 
-/** A pool-backed drizzle client. The pool logs (not crashes) when an idle connection drops. */
-export function createDatabase(url: string): Database {
-  const pool = new Pool({ connectionString: url, max: 10, connectionTimeoutMillis: 5000, idleTimeoutMillis: 30000 });
+/**
+ * A pool-backed drizzle client. The pool logs (not crashes) when an idle connection drops. A request
+ * waits at most `waitMs` for one of the `max` connections (isPoolBusy then tells the error handler).
+ */
+export function createDatabase(url: string, { max = 10, waitMs = 5000 } = {}): Database {
+  const pool = new Pool({ connectionString: url, max, connectionTimeoutMillis: waitMs, idleTimeoutMillis: 30000 });
   pool.on('error', (err) => console.error('postgres pool error:', err.message));
   const db = drizzle(pool);
   return { pool, db, close: () => pool.end() };
+}
+
+/** pg-pool's words when no connection came free in time (it gives the error no code). */
+const POOL_WAIT_TIMEOUT = 'timeout exceeded when trying to connect';
+
+/**
+ * Whether `err`, or an error it wraps (drizzle wraps a failed query), is the pool giving up on a free
+ * connection: the server is busy, not broken, and the request may be tried again.
+ */
+export function isPoolBusy(err: unknown): boolean {
+  let e: unknown = err;
+  for (let depth = 0; e instanceof Error && depth < 4; depth++, e = e.cause) {
+    if (e.message === POOL_WAIT_TIMEOUT) return true;
+  }
+  return false;
 }
 
 /** What a unit of work gets: a drizzle client on one connection, and raw SQL on the same connection

@@ -1,6 +1,7 @@
 import type { NextFunction, Request, Response } from 'express';
 import { ZodError } from 'zod';
 import type { ApiErrorBody } from '../../db/contracts';
+import { isPoolBusy } from '../../db';
 import { EngineeringInputError } from '../engineering/errors';
 import { HttpError } from '../http-error';
 import { requestIdOf } from './request-log';
@@ -11,6 +12,9 @@ import { requestIdOf } from './request-log';
  * than in ApiErrorBody (db/contracts/common.ts), which the app reads.
  */
 export type ApiErrorBodyWithRequestId = { error: ApiErrorBody['error'] & { requestId?: string } };
+
+/** Seconds a busy server asks a client to wait before trying again. */
+const BUSY_RETRY_SECONDS = 5;
 
 /** Turns every error into the one JSON shape; unknown errors are logged and answered without detail. */
 export function errorHandler(err: unknown, req: Request, res: Response, _next: NextFunction) {
@@ -40,6 +44,11 @@ export function errorHandler(err: unknown, req: Request, res: Response, _next: N
   }
   const refusal = clientRefusal(err);
   if (refusal) return send(refusal.status, refusal.error);
+  // Every database connection stayed taken while the request waited: load, not a fault of the request.
+  if (isPoolBusy(err)) {
+    res.set('Retry-After', String(BUSY_RETRY_SECONDS));
+    return send(503, { code: 'busy', message: 'the server is busy: try again in a few seconds' });
+  }
   // The request's log line carries this error when the response finishes (one line, with the id).
   // Where logs are off (tests), the console still shows it: an unexpected error is never silent.
   if (req.log?.isLevelEnabled('error')) res.err = err instanceof Error ? err : new Error(String(err));

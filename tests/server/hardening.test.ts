@@ -6,6 +6,7 @@ import path from 'node:path';
 import { Client } from 'pg';
 import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_USERS } from '@/server/dev/seed';
+import { createDatabase } from '@/db';
 import { findingPhotos } from '@/db/schema';
 import { createApp } from '@/server/app';
 import { loadConfig } from '@/server/config';
@@ -187,6 +188,25 @@ describe('requests Express itself cannot read', () => {
     } finally {
       await rm(webDist, { recursive: true, force: true });
     }
+  });
+});
+
+describe('a server whose database connections are all taken', () => {
+  it('answers 503 busy with Retry-After, not a 500, and serves again once one is free', async () => {
+    // One connection, a short wait: the test holds the connection as a flood of slow requests would.
+    const database = createDatabase(t.config.databaseUrl, { max: 1, waitMs: 300 });
+    const { app } = createApp({ config: t.config, database, mailQueue: t.mailQueue, storage: t.ctx.storage });
+    const token = await t.signIn(builder.email);
+    const held = await database.pool.connect();
+    try {
+      const busy = await request(app).get('/api/travelers').set(auth(token));
+      expect([busy.status, busy.body.error.code, busy.headers['retry-after']]).toEqual([503, 'busy', '5']);
+      expect(busy.body.error.message).toBe('the server is busy: try again in a few seconds');
+    } finally {
+      held.release();
+    }
+    expect((await request(app).get('/api/travelers').set(auth(token))).status).toBe(200);
+    await database.close();
   });
 });
 
