@@ -5,6 +5,8 @@ export class HttpError extends Error {
     readonly code: string,
     message: string,
     readonly fields?: Record<string, string>,
+    /** Sent as Retry-After: how long to wait before the same request may succeed. */
+    readonly retryAfterSeconds?: number,
   ) {
     super(message);
   }
@@ -17,3 +19,6 @@ export const forbidden = (message = 'your role may not do this') => new HttpErro
 export const notFound = (what: string) => new HttpError(404, 'not_found', `${what} not found`);
 export const conflict = (message: string, fields?: Record<string, string>) =>
   new HttpError(409, 'conflict', message, fields);
+/** Loaded, not broken: 503 with Retry-After, so a client (and the bench's queued ticks) tries again later. */
+export const busy = (message: string, retryAfterSeconds: number) =>
+  new HttpError(503, 'busy', message, undefined, retryAfterSeconds);

@@ -29,7 +29,7 @@ import {
 } from '../../db/contracts';
 import type { AppContext } from '../context';
 import { listFabricationSteps, listVisibleBuilds } from '../builds/builds-repository';
-import { badRequest, HttpError, notFound } from '../http-error';
+import { badRequest, busy, notFound } from '../http-error';
 import { encodeCursor } from '../pagination';
 import { hoursText } from '../../lib/hours-text';
 import { csvChainHead, csvHead, csvLines } from './build-log-csv';
@@ -697,10 +697,9 @@ export const buildLogService = ({ db, signer, storage, config }: Deps) => {
     async pdf(user: Express.User, buildId: string, q: BuildLogQuery) {
       const release = reservePdfThread();
       if (!release)
-        throw new HttpError(
-          503,
-          'busy',
+        throw busy(
           `${MAX_PDF_THREADS} PDF logs are being made already: try again in a minute (the CSV is not limited)`,
+          60,
         );
       try {
         return await pdfExport(user, buildId, q, release);

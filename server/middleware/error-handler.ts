@@ -3,7 +3,7 @@ import { ZodError } from 'zod';
 import type { ApiErrorBody } from '../../db/contracts';
 import { isPoolBusy } from '../../db';
 import { EngineeringInputError } from '../engineering/errors';
-import { HttpError } from '../http-error';
+import { busy, HttpError } from '../http-error';
 import { requestIdOf } from './request-log';
 
 /**
@@ -13,17 +13,19 @@ import { requestIdOf } from './request-log';
  */
 export type ApiErrorBodyWithRequestId = { error: ApiErrorBody['error'] & { requestId?: string } };
 
-/** Seconds a busy server asks a client to wait before trying again. */
-const BUSY_RETRY_SECONDS = 5;
-
 /** Turns every error into the one JSON shape; unknown errors are logged and answered without detail. */
-export function errorHandler(err: unknown, req: Request, res: Response, _next: NextFunction) {
+export function errorHandler(thrown: unknown, req: Request, res: Response, _next: NextFunction) {
   if (res.headersSent) return;
+  // Every database connection stayed taken while the request waited: load, not a fault of the request.
+  const err = isPoolBusy(thrown) ? busy('the server is busy: try again in a few seconds', 5) : thrown;
   const requestId = requestIdOf(req);
   const send = (status: number, error: ApiErrorBody['error']) => {
     res.status(status).json({ error: { ...error, requestId } } satisfies ApiErrorBodyWithRequestId);
   };
-  if (err instanceof HttpError) return send(err.status, { code: err.code, message: err.message, fields: err.fields });
+  if (err instanceof HttpError) {
+    if (err.retryAfterSeconds !== undefined) res.set('Retry-After', String(err.retryAfterSeconds));
+    return send(err.status, { code: err.code, message: err.message, fields: err.fields });
+  }
   if (err instanceof ZodError) {
     const fields: Record<string, string> = {};
     for (const issue of err.issues) {
@@ -44,11 +46,6 @@ export function errorHandler(err: unknown, req: Request, res: Response, _next: N
   }
   const refusal = clientRefusal(err);
   if (refusal) return send(refusal.status, refusal.error);
-  // Every database connection stayed taken while the request waited: load, not a fault of the request.
-  if (isPoolBusy(err)) {
-    res.set('Retry-After', String(BUSY_RETRY_SECONDS));
-    return send(503, { code: 'busy', message: 'the server is busy: try again in a few seconds' });
-  }
   // The request's log line carries this error when the response finishes (one line, with the id).
   // Where logs are off (tests), the console still shows it: an unexpected error is never silent.
   if (req.log?.isLevelEnabled('error')) res.err = err instanceof Error ? err : new Error(String(err));

@@ -3,7 +3,7 @@ import path from 'node:path';
 import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
 import { EngineeringInputError } from '../engineering';
-import { HttpError } from '../http-error';
+import { busy, HttpError } from '../http-error';
 import type { StudyJob, StudyJobResult, StudyOutcome, StudyTask } from './study-task';
 
 /**
@@ -77,8 +77,7 @@ export async function closeStudyPool(): Promise<void> {
   await old?.close({ force: true });
 }
 
-const busy = () =>
-  new HttpError(503, 'busy', 'the server is working through other load studies: try again in a minute');
+const studiesBusy = () => busy('the server is working through other load studies: try again in a minute', 60);
 const tooLong = (ms: number) =>
   new HttpError(
     422,
@@ -119,10 +118,10 @@ export async function runStudy<J extends StudyJob>(job: J): Promise<StudyJobResu
     return outcome.result as StudyJobResult<J>;
   } catch (err) {
     if (err instanceof EngineeringInputError) throw err;
-    if (stop.signal.aborted) throw state.phase === 'running' ? tooLong(runMs) : busy();
+    if (stop.signal.aborted) throw state.phase === 'running' ? tooLong(runMs) : studiesBusy();
     const e = err as { message?: string; code?: string };
     if (e?.message === 'Task queue is at limit' || e?.message === 'No task queue available and all Workers are busy')
-      throw busy();
+      throw studiesBusy();
     if (e?.code === 'ERR_WORKER_OUT_OF_MEMORY') throw tooBig();
     throw err;
   } finally {

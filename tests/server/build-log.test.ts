@@ -298,6 +298,7 @@ describe('the build log', () => {
       expect(held.every(Boolean)).toBe(true);
       const busy = await request(t.app).get(`/api/builds/${buildId}/log.pdf`).set(auth(tok.inspector));
       expect(busy.status).toBe(503);
+      expect(busy.headers['retry-after']).toBe('60');
       expect(busy.headers['content-type']).toMatch(/json/);
       expect(busy.body.error.message).toMatch(/PDF logs are being made already: try again/);
       // The CSV has no thread and is not limited.

@@ -337,6 +337,7 @@ describe('studies run off the request thread', () => {
     expect(statuses).toContain(201);
     expect(statuses).toContain(503);
     expect(all.find((r) => r.status === 503)!.body.error.code).toBe('busy');
+    expect(all.find((r) => r.status === 503)!.headers['retry-after']).toBe('60');
     await configureStudyPool(DEFAULT_STUDY_LIMITS);
     await stillServes();
   });
