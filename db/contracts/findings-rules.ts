@@ -372,6 +372,17 @@ export const flaggableHoleStatuses: readonly HoleStatus[] = ['pending', 'install
 export const holesDoneStatuses: readonly HoleStatus[] = ['installed', 'accepted'];
 export const holesAwaitingInspectorStatuses: readonly HoleStatus[] = ['flagged', 'reworked'];
 
+/** Holes done for good and holes waiting for the inspector: the server's counts and the bench's own while it waits. */
+export function countHoles(holes: readonly { status: HoleStatus }[]): { done: number; awaiting: number } {
+  let done = 0;
+  let awaiting = 0;
+  for (const h of holes) {
+    if (holesDoneStatuses.includes(h.status)) done++;
+    else if (holesAwaitingInspectorStatuses.includes(h.status)) awaiting++;
+  }
+  return { done, awaiting };
+}
+
 export type PartFacts = {
   holes: Partial<Record<HoleStatus, number>>;
   stepsOpen: number;

@@ -4,8 +4,7 @@ import {
   checkPartAction,
   checkRevisionMove,
   checkStepChange,
-  holesAwaitingInspectorStatuses,
-  holesDoneStatuses,
+  countHoles,
   MAX_SESSION_HOURS,
   mayPrintLabels,
   revisionMoveOf,
@@ -579,17 +578,6 @@ async function addSession(
 function stepRule(steps: StepFact[], stepId: string, change: 'done' | 'undone' | 'stamp') {
   const refusal = checkStepChange(steps, stepId, change);
   if (refusal) throw conflict(refusal.message);
-}
-
-/** Holes done for good and holes waiting for the inspector, by the rules module's groupings. */
-function countHoles(rows: readonly { status: HoleStatus }[]): { done: number; awaiting: number } {
-  let done = 0;
-  let awaiting = 0;
-  for (const h of rows) {
-    if (holesDoneStatuses.includes(h.status)) done++;
-    else if (holesAwaitingInspectorStatuses.includes(h.status)) awaiting++;
-  }
-  return { done, awaiting };
 }
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
