@@ -31,7 +31,7 @@ export default function RootLayout() {
   // fallback face and switches when they load.
   useAppFonts();
   const [queryClient] = useState(makeQueryClient);
-  // Ticks made without signal are kept on the device by TanStack Query's persister and sent after a reload.
+  // Bench actions made without signal (ticks, steps, work) are kept on the device by TanStack Query's persister and sent after a reload.
   return (
     <PersistQueryClientProvider
       client={queryClient}

@@ -65,7 +65,8 @@ export function SessionProvider({
   const [stored, setStored] = useState<StoredSession | null>(initial);
   const [endedBecause, setEndedBecause] = useState<string | null>(null);
   const [pendingHref, setPendingState] = useState<string | null>(null);
-  const tokenRef = useRef<string | null>(initial?.token ?? null);
+  // The live session for the API client: its token, and whose it is (bench actions go only as their maker's).
+  const liveRef = useRef<StoredSession | null>(initial);
   // A ref as well as state: taking the path must see the latest value at once, not after a render.
   const pendingRef = useRef<string | null>(null);
   const arrivalRef = useRef(arrivalHref);
@@ -86,7 +87,7 @@ export function SessionProvider({
 
   const signOut = useCallback(
     async (reason?: string) => {
-      tokenRef.current = null;
+      liveRef.current = null;
       setStored(null);
       setStatus('signed-out');
       setEndedBecause(reason ?? null);
@@ -101,7 +102,7 @@ export function SessionProvider({
 
   const signIn = useCallback(async (result: SignInResult) => {
     const next: StoredSession = { token: result.token, expiresAt: result.expiresAt, user: result.user };
-    tokenRef.current = next.token;
+    liveRef.current = next;
     setStored(next);
     setEndedBecause(null);
     setStatus('signed-in');
@@ -112,9 +113,10 @@ export function SessionProvider({
   // run before the first passive effect (where queries start) anywhere in the tree.
   useLayoutEffect(() => {
     configureApiClient({
-      getToken: () => tokenRef.current,
+      getToken: () => liveRef.current?.token ?? null,
+      getPersonId: () => liveRef.current?.user.id ?? null,
       onUnauthorized: () => {
-        if (tokenRef.current)
+        if (liveRef.current)
           void signOut(
             'You were signed out (the session ended, or was ended from another device). Please sign in again.',
           );
@@ -128,7 +130,7 @@ export function SessionProvider({
       ([s, kept]) => {
         if (!alive) return;
         if (isLive(s)) {
-          tokenRef.current = s.token;
+          liveRef.current = s;
           setStored(s);
           // Already signed in: the page opened shows as it is, and nothing waits for a sign-in.
           if (kept) setPendingHref(null);

@@ -28,13 +28,16 @@ export class ApiError extends Error {
 
 export const networkMessage = 'No connection to the server. Check the signal and try again.';
 
-type ClientHooks = { getToken: () => string | null; onUnauthorized: () => void };
-let hooks: ClientHooks = { getToken: () => null, onUnauthorized: () => {} };
+type ClientHooks = { getToken: () => string | null; getPersonId: () => string | null; onUnauthorized: () => void };
+let hooks: ClientHooks = { getToken: () => null, getPersonId: () => null, onUnauthorized: () => {} };
 
 /** The session provider registers how to read the token and what to do when it is refused. */
 export function configureApiClient(next: Partial<ClientHooks>): void {
   hooks = { ...hooks, ...next };
 }
+
+/** The id of the person signed in on this device now, if any. */
+export const signedInPersonId = (): string | null => hooks.getPersonId();
 
 const statusWords: Record<number, string> = {
   400: 'Some of what was sent is not right.',

@@ -3,7 +3,12 @@ import { createAsyncStoragePersister } from '@tanstack/query-async-storage-persi
 import { onlineManager, QueryClient } from '@tanstack/react-query';
 import type { PersistQueryClientProviderProps } from '@tanstack/react-query-persist-client';
 import { Platform } from 'react-native';
-import { adoptEarlierTicks, isUnsentTick, registerTickMutations, resumeUnsentTicks } from '@/hooks/queries/travelers';
+import {
+  adoptEarlierTicks,
+  isUnsentAction,
+  registerBenchActions,
+  resumeUnsentActions,
+} from '@/hooks/queries/bench-actions';
 import { ApiError } from './api-client';
 import { storageKeys } from './storage';
 
@@ -37,41 +42,41 @@ export function makeQueryClient(): QueryClient {
     },
   });
   // Mutations kept on the device need their work registered before they are restored.
-  registerTickMutations(qc);
+  registerBenchActions(qc);
   return qc;
 }
 
 let persister: ReturnType<typeof createAsyncStoragePersister> | null = null;
 
 /**
- * What the device keeps between visits: the ticks not yet through to the server, and nothing else.
+ * What the device keeps between visits: the bench actions not yet through to the server, and nothing else.
  * Answers are the service worker's business (kept per person and emptied at sign-out); keeping them here
- * too would show one person's data to the next. No age limit: a tick waits as long as the signal is away.
+ * too would show one person's data to the next. No age limit: an action waits as long as the signal is away.
  */
 export function persistOptions(): PersistQueryClientProviderProps['persistOptions'] {
   persister ??= createAsyncStoragePersister({ storage: AsyncStorage, key: storageKeys.queryCache, throttleTime: 200 });
   return {
     persister,
     maxAge: Infinity,
-    dehydrateOptions: { shouldDehydrateQuery: () => false, shouldDehydrateMutation: isUnsentTick },
+    dehydrateOptions: { shouldDehydrateQuery: () => false, shouldDehydrateMutation: isUnsentAction },
   };
 }
 
 /**
- * Once the kept ticks are back in the client: take over any an earlier version kept, and send them all.
- * Not waited for: queries hold until this returns, and a tick may wait long for signal.
+ * Once the kept actions are back in the client: take over ticks an earlier version kept, and send them all.
+ * Not waited for: queries hold until this returns, and an action may wait long for signal.
  */
 export async function afterRestore(qc: QueryClient): Promise<void> {
   await adoptEarlierTicks(qc);
-  void resumeUnsentTicks(qc);
+  void resumeUnsentActions(qc);
 }
 
 /**
- * At sign-out nothing cached for one person may show to the next. Ticks not yet through stay: they are
- * work done at the bench, sent once someone is signed in again (a 401 keeps them waiting).
+ * At sign-out nothing cached for one person may show to the next. Bench actions not yet through stay:
+ * they are work done at the bench, sent once their maker signs in again on this device (bench-actions.ts).
  */
 export function clearForNextPerson(qc: QueryClient): void {
   qc.getQueryCache().clear();
   const mutations = qc.getMutationCache();
-  for (const m of mutations.getAll()) if (!isUnsentTick(m)) mutations.remove(m);
+  for (const m of mutations.getAll()) if (!isUnsentAction(m)) mutations.remove(m);
 }

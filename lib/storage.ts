@@ -6,7 +6,7 @@ export const storageKeys = {
   session: 'pitchcard.session',
   units: 'pitchcard.units',
   findingDraft: (travelerId: string) => `pitchcard.finding-draft.${travelerId}`,
-  /** TanStack Query's persisted client: ticks not yet through to the server (lib/query-client.ts). */
+  /** TanStack Query's persisted client: bench actions not yet through to the server (lib/query-client.ts). */
   queryCache: 'pitchcard.query-cache',
   /** Where earlier versions kept unsent ticks themselves; read once at start-up and handed over (adoptEarlierTicks). */
   oldOfflineTicks: 'pitchcard.tick-outbox',

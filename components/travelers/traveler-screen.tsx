@@ -3,6 +3,7 @@ import { useRouter } from 'expo-router';
 import { useCallback, useDeferredValue, useEffect, useMemo, useState } from 'react';
 import { View } from 'react-native';
 import {
+  countHoles,
   dispositionLabels,
   type Hole,
   type HoleStatus,
@@ -22,14 +23,13 @@ import { Mono, Txt } from '@/components/ui/text';
 import { TwoPane } from '@/components/ui/two-pane';
 import { ApiError, errorMessage } from '@/lib/api-client';
 import {
-  countHoles,
-  useTravelerQuery,
-  useTravelerSignOffMutation,
-  useTravelerStampMutation,
+  isTick,
+  useBenchQueue,
   useTravelerStepMutation,
-  useTickQueue,
   useTravelerTickMutation,
-} from '@/hooks/queries/travelers';
+  type BenchAction,
+} from '@/hooks/queries/bench-actions';
+import { useTravelerQuery, useTravelerSignOffMutation, useTravelerStampMutation } from '@/hooks/queries/travelers';
 import { noticeQueries } from '@/hooks/queries/notices';
 import { useFlash } from '@/hooks/use-flash';
 import { useUnits } from '@/hooks/use-units';
@@ -42,6 +42,13 @@ import { WorkSection } from './work-section';
 import { TravelerHeader } from './traveler-header';
 import { WithdrawSignOff } from './withdraw-sign-off';
 import { ZonesTable } from './zones-table';
+
+/** "3 ticks" or, with steps or work among them, "3 changes". */
+function waitingWords(waiting: BenchAction[]): string {
+  const n = waiting.length;
+  const word = waiting.every(isTick) ? 'tick' : 'change';
+  return `${n} ${word}${n === 1 ? '' : 's'}`;
+}
 
 export function TravelerScreen({ travelerId }: { travelerId: string }) {
   const q = useTravelerQuery(travelerId);
@@ -73,7 +80,7 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
   const router = useRouter();
   const units = useUnits();
   const tick = useTravelerTickMutation(t.id);
-  const ticks = useTickQueue(t.id);
+  const queue = useBenchQueue(t.id);
   const step = useTravelerStepMutation(t.id);
   const stamp = useTravelerStampMutation(t.id);
   const [credit, setCredit] = useState<StepCredit>({ by: 'builder', byName: '' });
@@ -253,13 +260,9 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
                 by: credit.by,
                 ...(credit.by !== 'builder' ? { byName: credit.byName } : {}),
               },
-              {
-                onError: (e) => {
-                  // The server says when help is not named (the rule's one home); the name box shows it.
-                  setCreditError(e instanceof ApiError ? e.fields?.byName : undefined);
-                  setMessage({ tone: 'error', text: `Step not saved: ${errorMessage(e)}` });
-                },
-              },
+              // A refusal shows with the bench's others above; the server says when help is not named
+              // (the rule's one home), and the name box shows that too.
+              { onError: (e) => setCreditError(e instanceof ApiError ? e.fields?.byName : undefined) },
             );
           }}
           onStamp={(s) =>
@@ -334,15 +337,15 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
           </View>
         </Notice>
       ) : null}
-      {ticks.waiting.length ? (
-        <Notice tone="caution" testID="ticks-waiting">
-          {`${ticks.waiting.length} tick${ticks.waiting.length === 1 ? '' : 's'} waiting for signal: kept on this device and sent as soon as the server answers.`}
+      {queue.waiting.length ? (
+        <Notice tone="caution" testID="bench-waiting">
+          {`${waitingWords(queue.waiting)} waiting for signal: kept on this device and sent as soon as the server answers.`}
         </Notice>
       ) : null}
-      {ticks.refused ? (
-        <Notice tone="error" testID="tick-refused">
-          <Txt tone="error">{ticks.refused}</Txt>
-          <Button label="OK" variant="quiet" compact onPress={ticks.dismissRefused} testID="dismiss-tick-refused" />
+      {queue.refused ? (
+        <Notice tone="error" testID="bench-refused">
+          <Txt tone="error">{queue.refused}</Txt>
+          <Button label="OK" variant="quiet" compact onPress={queue.dismissRefused} testID="dismiss-bench-refused" />
         </Notice>
       ) : null}
       <ProgressBar done={progress.done} awaiting={progress.awaiting} total={t.holes.length} />

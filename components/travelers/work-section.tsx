@@ -12,7 +12,8 @@ import { Button } from '@/components/ui/button';
 import { Section } from '@/components/ui/sheet';
 import { Mono, Txt } from '@/components/ui/text';
 import { ApiError } from '@/lib/api-client';
-import { useWorkHoursMutation, useWorkStartMutation, useWorkStopMutation } from '@/hooks/queries/travelers';
+import { useWorkStartMutation, useWorkStopMutation } from '@/hooks/queries/bench-actions';
+import { useWorkHoursMutation } from '@/hooks/queries/travelers';
 import { hoursText } from '@/lib/hours-text';
 import { zonedDateTime } from '@/lib/zoned-time';
 import type { StepCredit } from './steps-list';
@@ -90,7 +91,6 @@ export function WorkSection({
       reset({ day: v.day, start: v.start, hours: '' });
     },
   });
-  const failed = start.error ?? stop.error;
   const running = work?.running ?? null;
 
   return (
@@ -109,7 +109,7 @@ export function WorkSection({
                 Working since {zonedDateTime(running.startedAt).hm}
                 {helpOf(running)}
               </Txt>
-              <Button label="Stop work" onPress={() => stop.mutate()} disabled={stop.isPending} testID="work-stop" />
+              <Button label="Stop work" onPress={() => stop.mutate()} testID="work-stop" />
             </View>
           ) : (
             <Button
@@ -122,12 +122,10 @@ export function WorkSection({
                   { onError: (e) => onCreditError(e instanceof ApiError ? e.fields?.byName : undefined) },
                 );
               }}
-              disabled={start.isPending}
               testID="work-start"
             />
           )
         ) : null}
-        {failed ? <FormError message={`Not saved: ${failed.message}`} testID="work-error" /> : null}
         {canWork ? (
           <View style={{ gap: space.sm }} testID="work-hours-form">
             <Txt bold>Enter hours afterwards</Txt>

@@ -1,25 +1,38 @@
 import { onlineManager, QueryClientProvider, type QueryClient } from '@tanstack/react-query';
 import { persistQueryClient } from '@tanstack/react-query-persist-client';
 import { act, createElement } from 'react';
-import { tickHolesInput, type TravelerDetail } from '@/db/contracts';
 import {
-  isUnsentTick,
-  travelerKeys,
-  useTickQueue,
+  stepInput,
+  tickHolesInput,
+  workStartInput,
+  workStopInput,
+  type TravelerDetail,
+  type WorkSession,
+} from '@/db/contracts';
+import {
+  isUnsentAction,
+  useBenchQueue,
+  useTravelerStepMutation,
   useTravelerTickMutation,
-  withUnsentTicks,
+  useWorkStartMutation,
+  useWorkStopMutation,
+  withUnsentActions,
+  type BenchAction,
   type TickVariables,
-} from '@/hooks/queries/travelers';
+} from '@/hooks/queries/bench-actions';
+import { configureApiClient } from '@/lib/api-client';
+import { travelerKeys } from '@/hooks/queries/travelers';
 import { afterRestore, clearForNextPerson, makeQueryClient, persistOptions } from '@/lib/query-client';
 import { storageKeys } from '@/lib/storage';
 import { renderWeb } from './render-web';
 
 /**
- * Ticks made without signal, as tick mutations on TanStack Query's own machinery: paused by its online
+ * Ticks (and the bench's other actions: a step done, work started and stopped) made without signal, as tick mutations on TanStack Query's own machinery: paused by its online
  * manager, kept on the device by its persister (localStorage here, as in the browser) with the time each
  * was made on the device, restored into a new client as after a reload, and sent in the order made.
  */
 
+const step = (id: string, seq: number) => ({ id, seq, doneAt: null, doneByName: null, by: null, byName: null });
 const detail = (id: string) =>
   ({
     id,
@@ -28,6 +41,8 @@ const detail = (id: string) =>
       { holeId: 'U-02', line: 'U', seq: 2, stationIn: 1.25, status: 'pending' },
     ],
     holesDone: 0,
+    steps: [step('s1', 1), step('s2', 2)],
+    work: { running: null, recent: [], totalHours: 0, byWho: [] },
   }) as unknown as TravelerDetail;
 
 jest.setTimeout(30_000);
@@ -42,6 +57,7 @@ afterEach(() => {
   onlineManager.setOnline(true);
   jest.useRealTimers();
   localStorage.clear();
+  configureApiClient({ getPersonId: () => null });
 });
 
 const answer = (status: number, body: unknown) => ({
@@ -51,11 +67,14 @@ const answer = (status: number, body: unknown) => ({
 });
 
 type Sent = { travelerId: string; body: unknown };
-function recordingServer(status = 200, body: unknown = { holes: [] }): Sent[] {
+/** Records what reaches it; `paths` gets each request's path after the part's id (holes, steps/s1, work/start…). */
+function recordingServer(status = 200, body: unknown = { holes: [] }, paths: string[] = []): Sent[] {
   const sent: Sent[] = [];
   global.fetch = jest.fn(async (url: string, init?: { body?: string }) => {
     const b = JSON.parse(init!.body!);
-    sent.push({ travelerId: decodeURIComponent(url.split('/')[3]), body: b });
+    const parts = url.split('/');
+    sent.push({ travelerId: decodeURIComponent(parts[3]), body: b });
+    paths.push(parts.slice(4).join('/'));
     return answer(status, body);
   }) as never;
   return sent;
@@ -77,17 +96,37 @@ async function device(): Promise<QueryClient> {
   return qc;
 }
 
-/** The bench's two hooks for one part, mounted with react-dom as the web app mounts them. */
+/** The bench's hooks for one part, mounted with react-dom as the web app mounts them. */
 function tickHook(qc: QueryClient, travelerId: string) {
   const result = {} as {
-    current: { tick: ReturnType<typeof useTravelerTickMutation>; queue: ReturnType<typeof useTickQueue> };
+    current: {
+      tick: ReturnType<typeof useTravelerTickMutation>;
+      step: ReturnType<typeof useTravelerStepMutation>;
+      start: ReturnType<typeof useWorkStartMutation>;
+      stop: ReturnType<typeof useWorkStopMutation>;
+      queue: ReturnType<typeof useBenchQueue>;
+    };
   };
   function Probe() {
-    result.current = { tick: useTravelerTickMutation(travelerId), queue: useTickQueue(travelerId) };
+    result.current = {
+      tick: useTravelerTickMutation(travelerId),
+      step: useTravelerStepMutation(travelerId),
+      start: useWorkStartMutation(travelerId),
+      stop: useWorkStopMutation(travelerId),
+      queue: useBenchQueue(travelerId),
+    };
     return null;
   }
   const { unmount } = renderWeb(createElement(QueryClientProvider, { client: qc }, createElement(Probe)));
   return { result, unmount };
+}
+
+/** A device with no signal, part t1 open on the bench. */
+async function offlineBench() {
+  onlineManager.setOnline(false);
+  const qc = await device();
+  qc.setQueryData(travelerKeys.detail('t1'), detail('t1'));
+  return { qc, hook: tickHook(qc, 't1') };
 }
 
 /** Ticks at a given moment of the device's clock (only Date is faked; timers run for real). */
@@ -122,7 +161,7 @@ const until = async (ok: () => boolean, what: string) => {
 
 const keptOnDevice = () => {
   const raw = localStorage.getItem(storageKeys.queryCache);
-  const kept = raw ? (JSON.parse(raw).clientState.mutations as { state: { variables: TickVariables } }[]) : [];
+  const kept = raw ? (JSON.parse(raw).clientState.mutations as { state: { variables: BenchAction } }[]) : [];
   return kept.map((m) => m.state.variables);
 };
 
@@ -145,18 +184,18 @@ describe('ticks made without signal', () => {
     // Shown at once on the cached part, and counted in over the server's copy of any part.
     const shown = qc.getQueryData<TravelerDetail>(travelerKeys.detail('t1'))!;
     expect(shown.holes.map((h) => h.status)).toEqual(['installed', 'installed']);
-    expect(withUnsentTicks(detail('t1'), qc).holes.map((h) => h.status)).toEqual(['installed', 'installed']);
-    expect(withUnsentTicks(detail('t3'), qc).holes.map((h) => h.status)).toEqual(['pending', 'pending']);
+    expect(withUnsentActions(detail('t1'), qc).holes.map((h) => h.status)).toEqual(['installed', 'installed']);
+    expect(withUnsentActions(detail('t3'), qc).holes.map((h) => h.status)).toEqual(['pending', 'pending']);
 
     await until(() => keptOnDevice().length === 3, 'the persister has written them');
-    expect(keptOnDevice().map((t) => [t.travelerId, t.holeIds[0], t.at])).toEqual([
+    expect((keptOnDevice() as TickVariables[]).map((t) => [t.travelerId, t.holeIds[0], t.at])).toEqual([
       ['t1', 'U-01', '2026-11-03T14:05:09.000Z'],
       ['t2', 'U-02', '2026-11-03T14:06:00.000Z'],
       ['t1', 'U-02', '2026-11-03T14:07:30.000Z'],
     ]);
     // A person signing out does not throw away work done at the bench.
     clearForNextPerson(qc);
-    expect(qc.getMutationCache().getAll().filter(isUnsentTick)).toHaveLength(3);
+    expect(qc.getMutationCache().getAll().filter(isUnsentAction)).toHaveLength(3);
   });
 
   it('survive a reload and are sent in the order made, with the time each was made, once the signal returns', async () => {
@@ -177,18 +216,18 @@ describe('ticks made without signal', () => {
     const reconnectedAt = Date.now();
     const second = await device();
     const again = tickHook(second, 't1');
-    expect(second.getMutationCache().getAll().filter(isUnsentTick)).toHaveLength(3);
+    expect(second.getMutationCache().getAll().filter(isUnsentAction)).toHaveLength(3);
     // Each still carries the moment it was made on the device.
-    expect(again.result.current.queue.waiting.map((t) => [t.holeIds[0], t.status, t.at])).toEqual([
+    expect((again.result.current.queue.waiting as TickVariables[]).map((t) => [t.holeIds[0], t.status, t.at])).toEqual([
       ['U-01', 'installed', '2026-11-03T09:00:00.000Z'],
       ['U-02', 'installed', '2026-11-03T09:00:04.000Z'],
       ['U-01', 'pending', '2026-11-03T09:01:00.000Z'],
     ]);
-    expect(withUnsentTicks(detail('t1'), second).holes.map((h) => h.status)).toEqual(['pending', 'installed']);
+    expect(withUnsentActions(detail('t1'), second).holes.map((h) => h.status)).toEqual(['pending', 'installed']);
     expect(sent).toEqual([]);
 
     act(() => onlineManager.setOnline(true));
-    await until(() => second.getMutationCache().getAll().filter(isUnsentTick).length === 0, 'all are through');
+    await until(() => second.getMutationCache().getAll().filter(isUnsentAction).length === 0, 'all are through');
     // In the order made, each with exactly the fields of the API's contract (tickHolesInput): the moment it
     // was made as doneAt, and the moment it left (after the signal came back) as sentAt.
     const sentAt = expect.any(String);
@@ -224,10 +263,7 @@ describe('ticks made without signal', () => {
   });
 
   it('are taken back with a message when refused for good, but kept while a sign-in must be renewed', async () => {
-    onlineManager.setOnline(false);
-    const qc = await device();
-    qc.setQueryData(travelerKeys.detail('t1'), detail('t1'));
-    const hook = tickHook(qc, 't1');
+    const { qc, hook } = await offlineBench();
     act(() => hook.result.current.tick.mutate({ holeIds: ['U-01'], status: 'installed' }));
     await until(() => hook.result.current.queue.waiting.length === 1, 'the tick waits');
 
@@ -235,7 +271,7 @@ describe('ticks made without signal', () => {
     act(() => onlineManager.setOnline(true));
     await until(() => renew.length === 1, 'the tick was tried');
     await act(() => new Promise((r) => setTimeout(r, 100)));
-    expect(qc.getMutationCache().getAll().filter(isUnsentTick)).toHaveLength(1);
+    expect(qc.getMutationCache().getAll().filter(isUnsentAction)).toHaveLength(1);
     expect(hook.result.current.queue.refused).toBeNull();
 
     const refusing = recordingServer(409, {
@@ -272,6 +308,121 @@ describe('ticks made without signal', () => {
       ],
     ]);
     expect(localStorage.getItem(storageKeys.oldOfflineTicks)).toBeNull();
-    expect(qc.getMutationCache().getAll().filter(isUnsentTick)).toHaveLength(0);
+    expect(qc.getMutationCache().getAll().filter(isUnsentAction)).toHaveLength(0);
+  });
+});
+
+const running = (qc: QueryClient, id = 't1'): WorkSession | null =>
+  qc.getQueryData<TravelerDetail>(travelerKeys.detail(id))!.work!.running;
+const stepDone = (qc: QueryClient, stepId: string, id = 't1') =>
+  qc.getQueryData<TravelerDetail>(travelerKeys.detail(id))!.steps.find((s) => s.id === stepId)!.doneAt;
+
+describe('steps and work made without signal', () => {
+  it('show at once, survive a reload, and reach the server in the order made with the time each was done', async () => {
+    const { qc: first, hook } = await offlineBench();
+    at('2026-11-03T08:00:00.000Z');
+    // Shown once the part's own fetch is set aside (onMutate awaits that).
+    await act(async () => hook.result.current.start.mutate({ by: 'helper', byName: 'Ines at the next bench' }));
+    expect(running(first)).toMatchObject({ startedAt: '2026-11-03T08:00:00.000Z', by: 'helper' });
+    tickAt(hook, '2026-11-03T09:30:00.000Z', 'U-01', 'installed');
+    at('2026-11-03T09:45:00.000Z');
+    await act(async () => hook.result.current.step.mutate({ stepId: 's1', done: true, by: 'builder' }));
+    expect(stepDone(first, 's1')).toBe('2026-11-03T09:45:00.000Z');
+    at('2026-11-03T10:15:00.000Z');
+    await act(async () => hook.result.current.stop.mutate());
+    expect(running(first)).toBeNull();
+    jest.useRealTimers();
+    await until(() => keptOnDevice().length === 4, 'the persister has written all four');
+    await until(() => hook.result.current.queue.waiting.length === 4, 'all four wait');
+
+    // A reload with no signal: the server's copy of the part shows them as made.
+    hook.unmount();
+    stops.splice(0).forEach((s) => s());
+    clients.splice(0).forEach((c) => c.getMutationCache().clear());
+    const second = await device();
+    // Mounted, as the app mounts its client: it hears the signal come back.
+    tickHook(second, 't1');
+    const server = withUnsentActions(detail('t1'), second);
+    expect([server.holes[0].status, server.steps[0].doneAt, server.work!.running]).toEqual([
+      'installed',
+      '2026-11-03T09:45:00.000Z',
+      null,
+    ]);
+
+    const paths: string[] = [];
+    const sent = recordingServer(200, detail('t1'), paths);
+    act(() => onlineManager.setOnline(true));
+    await until(() => second.getMutationCache().getAll().filter(isUnsentAction).length === 0, 'all are through');
+    expect(paths).toEqual(['work/start', 'holes', 'steps/s1', 'work/stop']);
+    const bodies = sent.map((x) => x.body as { doneAt: string });
+    expect(bodies.map((b) => b.doneAt)).toEqual([
+      '2026-11-03T08:00:00.000Z',
+      '2026-11-03T09:30:00.000Z',
+      '2026-11-03T09:45:00.000Z',
+      '2026-11-03T10:15:00.000Z',
+    ]);
+    // Each is exactly what its route's contract takes.
+    expect(bodies[0]).toMatchObject({ by: 'helper', byName: 'Ines at the next bench' });
+    expect(
+      [workStartInput, tickHolesInput, stepInput, workStopInput].map((c, i) => c.safeParse(bodies[i]).success),
+    ).toEqual([true, true, true, true]);
+  });
+
+  it('refused, take back only that action, with words that say which', async () => {
+    const { qc, hook } = await offlineBench();
+    act(() => hook.result.current.tick.mutate({ holeIds: ['U-02'], status: 'installed' }));
+    act(() => hook.result.current.start.mutate({}));
+    act(() => hook.result.current.step.mutate({ stepId: 's2', done: true }));
+    await until(() => hook.result.current.queue.waiting.length === 3, 'all three wait');
+
+    const paths: string[] = [];
+    // The tick and the start go through (the part as the server has it comes back); the step is refused.
+    // The part's own fetch fails, so only the undo can take the step back.
+    global.fetch = jest.fn(async (url: string, init?: { method?: string }) => {
+      if (init?.method === 'GET') return answer(503, { error: { code: 'busy', message: 'busy' } });
+      paths.push(url.split('/').slice(4).join('/'));
+      if (url.includes('/steps/'))
+        return answer(409, { error: { code: 'conflict', message: 'step 2 waits for the inspection point above it' } });
+      return answer(200, url.endsWith('/holes') ? { holes: [] } : detail('t1'));
+    }) as never;
+    act(() => onlineManager.setOnline(true));
+    await until(() => paths.length === 3 && hook.result.current.queue.refused !== null, 'the refusal shows');
+    expect(hook.result.current.queue.refused).toBe(
+      'Not saved: step 2 waits for the inspection point above it The step marked done was taken back.',
+    );
+    expect(stepDone(qc, 's2')).toBeNull();
+  });
+});
+
+describe('actions of a person who signed out with some unsent', () => {
+  it('wait for that person to sign in again, hidden from the next, whose own go at once', async () => {
+    let person: string | null = 'person-a';
+    configureApiClient({ getPersonId: () => person });
+    const { qc, hook } = await offlineBench();
+    act(() => hook.result.current.tick.mutate({ holeIds: ['U-01'], status: 'installed' }));
+    act(() => hook.result.current.start.mutate({}));
+    await until(() => hook.result.current.queue.waiting.length === 2, "the first person's two wait");
+
+    // The first person signs out with the signal still away; the next signs in on the same phone.
+    clearForNextPerson(qc);
+    person = 'person-b';
+    const paths: string[] = [];
+    const sent = recordingServer(200, detail('t1'), paths);
+    act(() => onlineManager.setOnline(true));
+    act(() => hook.result.current.tick.mutate({ holeIds: ['U-02'], status: 'installed' }));
+    await until(() => sent.length === 1, "the second person's tick is through");
+    expect(sent[0].body).toMatchObject({ holeIds: ['U-02'] });
+    // The first person's work is neither sent as the second's nor shown to them.
+    await act(() => new Promise((r) => setTimeout(r, 300)));
+    expect(sent).toHaveLength(1);
+    expect(qc.getMutationCache().getAll().filter(isUnsentAction)).toHaveLength(2);
+    expect(hook.result.current.queue.waiting).toEqual([]);
+    expect(withUnsentActions(detail('t1'), qc).holes.map((h) => h.status)).toEqual(['pending', 'pending']);
+
+    // Back under the first person, theirs go, in their order (the next try comes within seconds).
+    person = 'person-a';
+    await until(() => sent.length === 3, "the first person's two are through");
+    expect(paths).toEqual(['holes', 'holes', 'work/start']);
+    expect(sent[1].body).toMatchObject({ holeIds: ['U-01'] });
   });
 });

@@ -1,5 +1,6 @@
 import type { TravelerDetail } from '@/db/contracts';
-import { applyTick, countHoles } from '@/hooks/queries/travelers';
+import { countHoles } from '@/db/contracts';
+import { applyTick } from '@/hooks/queries/bench-actions';
 import { holeNumbers } from '@/components/findings/hole-context';
 
 const detail = {

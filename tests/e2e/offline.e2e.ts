@@ -12,8 +12,8 @@ import { webDist } from './helpers/served-app';
 /**
  * The installable app at the bench with no signal, in Debian's headless Chromium against the real server:
  * the manifest and its icons; the service worker keeping the app shell and the bench's answers, so the
- * bench and a part in progress open after a reload with no signal; a tick made then waits on the phone
- * and reaches the server when the signal returns. And on a plain-http shop address (no secure context)
+ * bench and a part in progress open after a reload with no signal; a tick and work started then wait on
+ * the phone and reach the server when the signal returns, the work with the time it was started. And on a plain-http shop address (no secure context)
  * the scanner says the camera needs the https address, while the short code still opens the part.
  *
  * "No signal" is both Chromium's offline mode and a server that drops every connection: Chromium's
@@ -192,15 +192,33 @@ describe('the bench with no signal', () => {
     await visible(page, 'traveler-screen').waitFor({ timeout: 30_000 });
 
     await visible(page, `hole-${hole}`).click();
-    await visible(page, 'ticks-waiting').waitFor({ timeout: 15_000 });
+    await visible(page, 'bench-waiting').waitFor({ timeout: 15_000 });
     expect(await visible(page, `hole-${hole}`).getAttribute('aria-checked')).toBe('true');
+    // Work started with no signal shows as running at once and waits with the tick.
+    const startedBy = Date.now();
+    await visible(page, 'work-start').click();
+    await visible(page, 'work-running').waitFor({ timeout: 15_000 });
+    await page.waitForFunction(
+      () =>
+        /^2 changes waiting for signal/.test(
+          document.querySelector('[data-testid="bench-waiting"]')?.textContent ?? '',
+        ),
+      undefined,
+      { timeout: 15_000 },
+    );
     const meanwhile = await api<TravelerDetail>(`/api/travelers/${part.id}`);
     expect(meanwhile.holes.find((h) => h.holeId === hole)!.status).toBe('pending');
+    expect(meanwhile.work!.running).toBeNull();
 
+    const onlineAt = Date.now();
     await goOnline(page);
-    await visible(page, 'ticks-waiting').waitFor({ state: 'detached', timeout: 30_000 });
+    await visible(page, 'bench-waiting').waitFor({ state: 'detached', timeout: 30_000 });
     const after = await api<TravelerDetail>(`/api/travelers/${part.id}`);
     expect(after.holes.find((h) => h.holeId === hole)!.status).toBe('installed');
+    // The session starts when the button was pressed on the phone, not when the signal came back.
+    const startedAt = Date.parse(after.work!.running!.startedAt);
+    expect(startedAt).toBeGreaterThanOrEqual(startedBy - 1000);
+    expect(startedAt).toBeLessThan(onlineAt);
     expect(refused).toEqual([]);
     await page.context().close();
   });

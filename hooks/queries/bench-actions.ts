@@ -1,0 +1,365 @@
+import {
+  matchMutation,
+  useMutationState,
+  useQueryClient,
+  type Mutation,
+  type QueryClient,
+} from '@tanstack/react-query';
+import { useCallback, useMemo } from 'react';
+import {
+  countHoles,
+  tickHolesInput,
+  type Hole,
+  type StepInput,
+  type StepPerformer,
+  type TickHolesInput,
+  type TravelerDetail,
+  type WorkSession,
+  type WorkStartInput,
+  type WorkStopInput,
+} from '@/db/contracts';
+import { api, ApiError, errorMessage, signedInPersonId } from '@/lib/api-client';
+import { readJson, removeKey, storageKeys } from '@/lib/storage';
+import { buildKeys } from './builds';
+import { invalidateAll } from './mutations';
+import { travelerKeys, type TravelerStep } from './travelers';
+
+/**
+ * What the builder does at the bench without needing signal: ticking holes, a step done or undone, work
+ * started and stopped. Each is a mutation on TanStack Query's own machinery, kept on the device until the
+ * server has it (lib/query-client.ts persists the unsent ones), stamped with the moment it was done on
+ * the device and with the person who did it, shown at once, and sent in the order made, in one queue
+ * for every part. An action goes only as its maker's: left unsent at a sign-out, it waits for that person
+ * to sign in again on this device, neither sent as the next person's work nor holding up theirs.
+ */
+
+function recount(detail: TravelerDetail, holes: Hole[]): TravelerDetail {
+  const c = countHoles(holes);
+  return { ...detail, holes, holesDone: c.done, holesAwaitingInspector: c.awaiting };
+}
+
+/** The change a tick makes on the client before the server answers: only pending ↔ installed move. */
+export function applyTick(detail: TravelerDetail, input: TickHolesInput): TravelerDetail {
+  const ids = new Set(input.holeIds);
+  const holes = detail.holes.map((h) =>
+    ids.has(h.holeId) && (h.status === 'pending' || h.status === 'installed') ? { ...h, status: input.status } : h,
+  );
+  return recount(detail, holes);
+}
+
+function mergeHoles(detail: TravelerDetail, changed: Hole[]): TravelerDetail {
+  const byId = new Map(changed.map((h) => [h.holeId, h]));
+  const holes = detail.holes.map((h) => byId.get(h.holeId) ?? h);
+  return recount(detail, holes);
+}
+
+/** Who did the work, as the chooser above the steps says (the builder when left out). */
+type Credit = { by?: StepPerformer; byName?: string };
+/** A tick kept by an earlier version has no `kind`. */
+type TickBody = TickHolesInput & { kind?: 'tick' };
+type StepBody = Credit & { kind: 'step'; stepId: string; done: boolean };
+type WorkBody = (Credit & { kind: 'work-start' }) | { kind: 'work-stop' };
+/**
+ * Where, when and whose: the part, the moment the action was done on the device (sent as `doneAt`), and
+ * the id of the person signed in then (absent on ticks kept by an earlier version).
+ */
+type Kept = { travelerId: string; at: string; personId?: string };
+
+/** One action as it travels and is kept on the device. */
+export type BenchAction = (TickBody | StepBody | WorkBody) & Kept;
+export type TickVariables = TickBody & Kept;
+type TickResult = { holes: Hole[] };
+export const isTick = (a: BenchAction): a is TickVariables => a.kind === undefined || a.kind === 'tick';
+type ActionResult = TickResult | TravelerDetail;
+/**
+ * What an action changed, as it was before, to undo that action alone if it is refused (kept small: it is
+ * stored with the action). `before` is a tick's holes; `step` and `running` the other kinds'.
+ */
+type ActionContext = { before: Hole[]; step?: TravelerStep; running?: WorkSession | null };
+
+const partPath = (travelerId: string) => `/api/travelers/${encodeURIComponent(travelerId)}`;
+
+/**
+ * Sends one action: exactly what its route's contract takes. `doneAt` is the moment it was done on the
+ * device; `sentAt`, read as it leaves, lets the server tell a late action from a device clock that is off.
+ */
+async function sendAction(a: BenchAction): Promise<ActionResult> {
+  // Kept waiting (a 401 is worth waiting for) until its maker is the one signed in.
+  if (a.personId && a.personId !== signedInPersonId())
+    throw new ApiError(401, 'maker_signed_out', 'Waiting for the person who did this to sign in on this device.');
+  const times = { doneAt: a.at, sentAt: new Date().toISOString() };
+  const credit = (c: Credit) => ({ ...(c.by ? { by: c.by } : {}), ...(c.byName ? { byName: c.byName } : {}) });
+  const base = partPath(a.travelerId);
+  switch (a.kind) {
+    case 'step':
+      return api.post<TravelerDetail>(`${base}/steps/${encodeURIComponent(a.stepId)}`, {
+        done: a.done,
+        ...credit(a),
+        ...times,
+      } satisfies StepInput);
+    case 'work-start':
+      return api.post<TravelerDetail>(`${base}/work/start`, { ...credit(a), ...times } satisfies WorkStartInput);
+    case 'work-stop':
+      return api.post<TravelerDetail>(`${base}/work/stop`, times satisfies WorkStopInput);
+    default:
+      return api.post<TickResult>(`${base}/holes`, {
+        holeIds: a.holeIds,
+        status: a.status,
+        ...times,
+      } satisfies TickHolesInput);
+  }
+}
+
+/** The reader's session as it shows before the server has it. */
+const unsentSession = (a: Credit & Kept): WorkSession => ({
+  id: 'unsent',
+  personName: '',
+  by: a.by ?? 'builder',
+  byName: a.byName ?? null,
+  startedAt: a.at,
+  endedAt: null,
+  entered: false,
+});
+
+const withRunning = (d: TravelerDetail, running: WorkSession | null): TravelerDetail =>
+  d.work ? { ...d, work: { ...d.work, running } } : d;
+
+const withStep = (d: TravelerDetail, step: TravelerStep): TravelerDetail => ({
+  ...d,
+  steps: d.steps.map((s) => (s.id === step.id ? step : s)),
+});
+
+/** What an action changes on the client before the server answers. */
+export function applyAction(d: TravelerDetail, a: BenchAction): TravelerDetail {
+  switch (a.kind) {
+    case 'step': {
+      const step = d.steps.find((s) => s.id === a.stepId);
+      if (!step) return d;
+      const credit = a.done ? { by: a.by ?? 'builder', byName: a.byName ?? null } : { by: null, byName: null };
+      return withStep(d, { ...step, doneAt: a.done ? a.at : null, ...credit });
+    }
+    case 'work-start':
+      return withRunning(d, d.work?.running ?? unsentSession(a));
+    case 'work-stop':
+      return withRunning(d, null);
+    default:
+      return applyTick(d, a);
+  }
+}
+
+/** What an action changes, as it stands now: kept with it to undo it alone. */
+function beforeAction(d: TravelerDetail, a: BenchAction): ActionContext {
+  switch (a.kind) {
+    case 'step':
+      return { before: [], step: d.steps.find((s) => s.id === a.stepId) };
+    case 'work-start':
+    case 'work-stop':
+      return { before: [], running: d.work?.running ?? null };
+    default: {
+      const ids = new Set(a.holeIds);
+      return { before: d.holes.filter((h) => ids.has(h.holeId)) };
+    }
+  }
+}
+
+/** Undoes one refused action, keeping every other made meanwhile. */
+function undoAction(d: TravelerDetail, ctx: ActionContext): TravelerDetail {
+  if (ctx.step) return withStep(d, ctx.step);
+  if (ctx.running !== undefined) return withRunning(d, ctx.running);
+  return ctx.before.length ? mergeHoles(d, ctx.before) : d;
+}
+
+/** Worth another try later: no signal, the server down, or a sign-in to renew first. A refusal is final. */
+const worthWaiting = (e: unknown) => e instanceof ApiError && (e.isNetwork || e.status >= 500 || e.status === 401);
+/** Tries while the browser says there is signal but the server cannot be reached are spaced up to this. */
+const RETRY_CAP_MS = 15_000;
+/** How long a refused action's message stays for the bench to read, unless dismissed. */
+const REFUSAL_KEPT_MS = 30 * 60_000;
+
+/** An action not yet through to the server: on its way, waiting for signal, or for a new sign-in. */
+export const isUnsentAction = (m: Mutation) =>
+  matchMutation({ mutationKey: travelerKeys.benchActions(), status: 'pending' }, m);
+
+/** Made by the person signed in now (or by someone unknown, before actions knew their maker): shown to them. */
+const isMine = (a: BenchAction | undefined): a is BenchAction =>
+  !!a && (!a.personId || a.personId === signedInPersonId());
+
+function unsentActions(qc: QueryClient, travelerId: string, except?: BenchAction): BenchAction[] {
+  return qc
+    .getMutationCache()
+    .findAll({ mutationKey: travelerKeys.benchActionsOf(travelerId), status: 'pending' })
+    .map((m) => m.state.variables as BenchAction | undefined)
+    .filter((v): v is BenchAction => isMine(v) && v !== except);
+}
+
+/** The server's copy of a part with the actions not yet through counted in, oldest first. */
+export function withUnsentActions(detail: TravelerDetail, qc: QueryClient, except?: BenchAction): TravelerDetail {
+  return unsentActions(qc, detail.id, except).reduce((d, a) => applyAction(d, a), detail);
+}
+
+/**
+ * The bench's actions, registered once on the query client under their key, so an action kept on the
+ * device finds its way to the server after a reload too. Shown at once (optimistic); refused, only that
+ * action is taken back. Without signal TanStack Query pauses it (its online manager) and sends it when
+ * the signal returns; with signal but no server it tries again, spaced out.
+ */
+export function registerBenchActions(qc: QueryClient): void {
+  qc.setMutationDefaults(travelerKeys.benchActions(), benchActionOptions(qc));
+}
+
+/** One queue a person for every part: their actions reach the server in the order made (a start before its stop). */
+const queueOf = (personId: string | undefined) => ({ id: personId ? `bench:${personId}` : 'ticks' });
+
+function benchActionOptions(qc: QueryClient) {
+  return {
+    mutationFn: (a: BenchAction) => sendAction(a),
+    scope: queueOf(undefined),
+    retry: (_count: number, e: unknown) => worthWaiting(e),
+    retryDelay: (n: number) => Math.min(RETRY_CAP_MS, 1000 * 2 ** n),
+    gcTime: REFUSAL_KEPT_MS,
+    onMutate: async (a: BenchAction): Promise<ActionContext> => {
+      const key = travelerKeys.detail(a.travelerId);
+      await qc.cancelQueries({ queryKey: key });
+      const now = qc.getQueryData<TravelerDetail>(key);
+      if (!now) return { before: [] };
+      qc.setQueryData<TravelerDetail>(key, applyAction(now, a));
+      return beforeAction(now, a);
+    },
+    onError: (_e: unknown, a: BenchAction, ctx: ActionContext | undefined) => {
+      const key = travelerKeys.detail(a.travelerId);
+      const now = qc.getQueryData<TravelerDetail>(key);
+      if (now && ctx) qc.setQueryData<TravelerDetail>(key, undoAction(now, ctx));
+    },
+    onSuccess: (data: unknown, a: BenchAction) => {
+      const key = travelerKeys.detail(a.travelerId);
+      const now = qc.getQueryData<TravelerDetail>(key);
+      if (!now || !data) return;
+      // A tick answers with its holes; the other actions with the part, onto which those still unsent go again.
+      if (isTick(a)) qc.setQueryData<TravelerDetail>(key, mergeHoles(now, (data as TickResult).holes));
+      else qc.setQueryData<TravelerDetail>(key, withUnsentActions(data as TravelerDetail, qc, a));
+    },
+    // A burst of taps refetches once, after the last one.
+    onSettled: (_d: unknown, _e: unknown, a: BenchAction) => {
+      if (qc.isMutating({ mutationKey: travelerKeys.benchActionsOf(a.travelerId) }) > 1) return undefined;
+      return invalidateAll(qc, [travelerKeys.detail(a.travelerId), travelerKeys.list(), buildKeys.all]);
+    },
+  };
+}
+
+/** Sends the unsent actions restored from the device, in their order (paused or not when they were kept). */
+export function resumeUnsentActions(qc: QueryClient): Promise<unknown> {
+  const cache = qc.getMutationCache();
+  const notPaused = cache.getAll().filter((m) => isUnsentAction(m) && !m.state.isPaused);
+  return Promise.all([qc.resumePausedMutations(), ...notPaused.map((m) => m.continue().catch(() => undefined))]);
+}
+
+/** Ticks an earlier version of the app kept under a key of its own: handed to the query client once, in order. */
+export async function adoptEarlierTicks(qc: QueryClient): Promise<void> {
+  const old = await readJson<unknown[]>(storageKeys.oldOfflineTicks);
+  if (!Array.isArray(old)) return;
+  for (const x of old.slice(0, 5000)) {
+    const t = x as Partial<TickVariables>;
+    const parsed = tickHolesInput.safeParse(t);
+    if (!parsed.success || typeof t.travelerId !== 'string' || typeof t.at !== 'string') continue;
+    void qc
+      .getMutationCache()
+      .build(qc, { mutationKey: travelerKeys.benchActionsOf(t.travelerId) })
+      .execute({ ...parsed.data, travelerId: t.travelerId, at: t.at } satisfies BenchAction)
+      .catch(() => undefined);
+  }
+  await removeKey(storageKeys.oldOfflineTicks);
+}
+
+/**
+ * One kind of action on one part: `mutate` takes what the kind needs, stamps it with the device's time and
+ * the person signed in, and puts it in that person's queue. Not tied to the screen: an action goes on after
+ * the part is closed. `onError` hears of a refusal while the screen is open (the queue shows it too).
+ */
+function useBenchAction<I>(travelerId: string, body: (input: I) => TickBody | StepBody | WorkBody) {
+  const qc = useQueryClient();
+  const mutate = useCallback(
+    (input: I, opts?: { onError?: (e: Error) => void }) => {
+      const personId = signedInPersonId() ?? undefined;
+      const action: BenchAction = {
+        ...body(input),
+        travelerId,
+        at: new Date().toISOString(),
+        ...(personId ? { personId } : {}),
+      };
+      // The same options as the registered defaults, so the hook works on any client (tests make their own).
+      qc.getMutationCache()
+        .build(qc, {
+          ...benchActionOptions(qc),
+          mutationKey: travelerKeys.benchActionsOf(travelerId),
+          scope: queueOf(personId),
+        })
+        .execute(action)
+        .catch((e: Error) => opts?.onError?.(e));
+    },
+    [qc, travelerId, body],
+  );
+  // Stable between renders: the holes' press handlers depend on it.
+  return useMemo(() => ({ mutate }), [mutate]);
+}
+
+const tickBody = (input: TickHolesInput): TickBody => ({ holeIds: input.holeIds, status: input.status });
+const stepBody = (input: Omit<StepBody, 'kind'>): StepBody => ({ kind: 'step', ...input });
+const startBody = (input: Credit): WorkBody => ({ kind: 'work-start', ...input });
+const stopBody = (): WorkBody => ({ kind: 'work-stop' });
+
+/** Ticking holes on one part: the holes and their new state. */
+export const useTravelerTickMutation = (travelerId: string) => useBenchAction(travelerId, tickBody);
+/** A step done or undone, saying whose work it was. */
+export const useTravelerStepMutation = (travelerId: string) => useBenchAction(travelerId, stepBody);
+/** Starts a work session on the part now, as the builder's or the named help's work. */
+export const useWorkStartMutation = (travelerId: string) => useBenchAction(travelerId, startBody);
+/** Stops the person's running session now. */
+export const useWorkStopMutation = (travelerId: string) => useBenchAction<void>(travelerId, stopBody);
+
+/** The action in words, for the message when it is refused. */
+function actionWords(a: BenchAction): string {
+  switch (a.kind) {
+    case 'step':
+      return a.done ? 'The step marked done' : 'The step marked not done';
+    case 'work-start':
+      return 'The start of work';
+    case 'work-stop':
+      return 'The stop of work';
+    default: {
+      const shown = a.holeIds.slice(0, 8).join(', ');
+      return `The tick of ${shown}${a.holeIds.length > 8 ? ` and ${a.holeIds.length - 8} more` : ''}`;
+    }
+  }
+}
+
+/**
+ * The actions on one part that could not get through yet (no signal, the server down, a sign-in to
+ * renew), and the last refusal of one, for the bench to show; dismissing forgets the refusals.
+ */
+export function useBenchQueue(travelerId: string): {
+  waiting: BenchAction[];
+  refused: string | null;
+  dismissRefused: () => void;
+} {
+  const qc = useQueryClient();
+  const key = travelerKeys.benchActionsOf(travelerId);
+  const waiting = useMutationState({
+    filters: {
+      mutationKey: key,
+      status: 'pending',
+      predicate: (m) => isMine(m.state.variables as BenchAction) && (m.state.isPaused || m.state.failureCount > 0),
+    },
+    select: (m) => m.state.variables as BenchAction,
+  });
+  const refused = useMutationState({
+    filters: { mutationKey: key, status: 'error', predicate: (m) => isMine(m.state.variables as BenchAction) },
+    select: (m) =>
+      `Not saved: ${errorMessage(m.state.error)} ${actionWords(m.state.variables as BenchAction)} was taken back.`,
+  });
+  const dismissRefused = useCallback(() => {
+    const cache = qc.getMutationCache();
+    for (const m of cache.findAll({ mutationKey: travelerKeys.benchActionsOf(travelerId), status: 'error' }))
+      cache.remove(m);
+  }, [qc, travelerId]);
+  return { waiting, refused: refused.at(-1) ?? null, dismissRefused };
+}
