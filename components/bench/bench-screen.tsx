@@ -9,6 +9,7 @@ import { LoadMore, nextPage } from '@/components/ui/load-more';
 import { EmptyState, ErrorState, LoadingState, Notice } from '@/components/ui/states';
 import { TwoPane } from '@/components/ui/two-pane';
 import { liveFirst, TravelerCard } from '@/components/travelers/traveler-card';
+import { UnsentNotices } from '@/components/travelers/unsent-notices';
 import { errorMessage } from '@/lib/api-client';
 import { pagedItems } from '@/hooks/queries/paged';
 import { lookupTraveler, useTravelersQuery } from '@/hooks/queries/travelers';
@@ -53,6 +54,11 @@ export function BenchScreen() {
     [parts.data],
   );
 
+  const partNames = useMemo(
+    () => new Map(pagedItems(parts.data).map((t) => [t.id, `${t.partNumber} ${t.serial}`])),
+    [parts.data],
+  );
+
   const finders = (
     <TwoPane
       leftWidth={0.5}
@@ -82,6 +88,7 @@ export function BenchScreen() {
         renderItem={({ item }) => <TravelerCard t={item} onPress={() => router.push(`/travelers/${item.id}`)} />}
         ListHeaderComponent={
           <View style={{ gap: space.xl, paddingBottom: space.md }}>
+            <UnsentNotices partNames={partNames} testIDPrefix="bench" />
             {finders}
             <Section title="Parts in progress" />
           </View>

@@ -22,13 +22,7 @@ import { HoleMark, holeStatusHelp, holeStatusLabels, HoleStatusLegend } from '@/
 import { Mono, Txt } from '@/components/ui/text';
 import { TwoPane } from '@/components/ui/two-pane';
 import { ApiError, errorMessage } from '@/lib/api-client';
-import {
-  isTick,
-  useBenchQueue,
-  useTravelerStepMutation,
-  useTravelerTickMutation,
-  type BenchAction,
-} from '@/hooks/queries/bench-actions';
+import { useTravelerStepMutation, useTravelerTickMutation } from '@/hooks/queries/bench-actions';
 import { useTravelerQuery, useTravelerSignOffMutation, useTravelerStampMutation } from '@/hooks/queries/travelers';
 import { noticeQueries } from '@/hooks/queries/notices';
 import { useFlash } from '@/hooks/use-flash';
@@ -40,15 +34,9 @@ import { StepCreditChooser, StepsList, type StepCredit } from './steps-list';
 import { WorkPhotos } from './work-photos';
 import { WorkSection } from './work-section';
 import { TravelerHeader } from './traveler-header';
+import { UnsentNotices } from './unsent-notices';
 import { WithdrawSignOff } from './withdraw-sign-off';
 import { ZonesTable } from './zones-table';
-
-/** "3 ticks" or, with steps or work among them, "3 changes". */
-function waitingWords(waiting: BenchAction[]): string {
-  const n = waiting.length;
-  const word = waiting.every(isTick) ? 'tick' : 'change';
-  return `${n} ${word}${n === 1 ? '' : 's'}`;
-}
 
 export function TravelerScreen({ travelerId }: { travelerId: string }) {
   const q = useTravelerQuery(travelerId);
@@ -80,7 +68,6 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
   const router = useRouter();
   const units = useUnits();
   const tick = useTravelerTickMutation(t.id);
-  const queue = useBenchQueue(t.id);
   const step = useTravelerStepMutation(t.id);
   const stamp = useTravelerStampMutation(t.id);
   const [credit, setCredit] = useState<StepCredit>({ by: 'builder', byName: '' });
@@ -337,17 +324,7 @@ function TravelerBody({ t }: { t: TravelerDetail }) {
           </View>
         </Notice>
       ) : null}
-      {queue.waiting.length ? (
-        <Notice tone="caution" testID="bench-waiting">
-          {`${waitingWords(queue.waiting)} waiting for signal: kept on this device and sent as soon as the server answers.`}
-        </Notice>
-      ) : null}
-      {queue.refused ? (
-        <Notice tone="error" testID="bench-refused">
-          <Txt tone="error">{queue.refused}</Txt>
-          <Button label="OK" variant="quiet" compact onPress={queue.dismissRefused} testID="dismiss-bench-refused" />
-        </Notice>
-      ) : null}
+      <UnsentNotices travelerId={t.id} testIDPrefix="part" />
       <ProgressBar done={progress.done} awaiting={progress.awaiting} total={t.holes.length} />
       {canRaise ? (
         <Button

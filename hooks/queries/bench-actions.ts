@@ -333,16 +333,17 @@ function actionWords(a: BenchAction): string {
 }
 
 /**
- * The actions on one part that could not get through yet (no signal, the server down, a sign-in to
- * renew), and the last refusal of one, for the bench to show; dismissing forgets the refusals.
+ * The actions that could not get through yet (no signal, the server down, a sign-in to renew), on one
+ * part or, without `travelerId`, on every part; and the last refusal of one, with its part, for the bench
+ * to show. Dismissing forgets those refusals. Only the signed-in person's own are counted.
  */
-export function useBenchQueue(travelerId: string): {
+export function useBenchQueue(travelerId?: string): {
   waiting: BenchAction[];
-  refused: string | null;
+  refused: { message: string; travelerId: string } | null;
   dismissRefused: () => void;
 } {
   const qc = useQueryClient();
-  const key = travelerKeys.benchActionsOf(travelerId);
+  const key = travelerId ? travelerKeys.benchActionsOf(travelerId) : travelerKeys.benchActions();
   const waiting = useMutationState({
     filters: {
       mutationKey: key,
@@ -353,13 +354,19 @@ export function useBenchQueue(travelerId: string): {
   });
   const refused = useMutationState({
     filters: { mutationKey: key, status: 'error', predicate: (m) => isMine(m.state.variables as BenchAction) },
-    select: (m) =>
-      `Not saved: ${errorMessage(m.state.error)} ${actionWords(m.state.variables as BenchAction)} was taken back.`,
+    select: (m) => {
+      const a = m.state.variables as BenchAction;
+      return {
+        message: `Not saved: ${errorMessage(m.state.error)} ${actionWords(a)} was taken back.`,
+        travelerId: a.travelerId,
+      };
+    },
   });
   const dismissRefused = useCallback(() => {
     const cache = qc.getMutationCache();
-    for (const m of cache.findAll({ mutationKey: travelerKeys.benchActionsOf(travelerId), status: 'error' }))
-      cache.remove(m);
+    const mutationKey = travelerId ? travelerKeys.benchActionsOf(travelerId) : travelerKeys.benchActions();
+    for (const m of cache.findAll({ mutationKey, status: 'error' }))
+      if (isMine(m.state.variables as BenchAction)) cache.remove(m);
   }, [qc, travelerId]);
   return { waiting, refused: refused.at(-1) ?? null, dismissRefused };
 }

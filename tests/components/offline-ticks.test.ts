@@ -105,6 +105,8 @@ function tickHook(qc: QueryClient, travelerId: string) {
       start: ReturnType<typeof useWorkStartMutation>;
       stop: ReturnType<typeof useWorkStopMutation>;
       queue: ReturnType<typeof useBenchQueue>;
+      /** Every part's, as the bench shows them. */
+      all: ReturnType<typeof useBenchQueue>;
     };
   };
   function Probe() {
@@ -114,6 +116,7 @@ function tickHook(qc: QueryClient, travelerId: string) {
       start: useWorkStartMutation(travelerId),
       stop: useWorkStopMutation(travelerId),
       queue: useBenchQueue(travelerId),
+      all: useBenchQueue(),
     };
     return null;
   }
@@ -180,6 +183,7 @@ describe('ticks made without signal', () => {
 
     await until(() => one.result.current.queue.waiting.length === 2, 'both ticks of t1 wait');
     expect(two.result.current.queue.waiting).toHaveLength(1);
+    expect(one.result.current.all.waiting.map((t) => t.travelerId)).toEqual(['t1', 't2', 't1']);
     expect(sent).toEqual([]);
     // Shown at once on the cached part, and counted in over the server's copy of any part.
     const shown = qc.getQueryData<TravelerDetail>(travelerKeys.detail('t1'))!;
@@ -278,7 +282,7 @@ describe('ticks made without signal', () => {
       error: { code: 'conflict', message: 'hole U-01 (flagged) is under a finding and cannot be ticked here' },
     });
     await until(() => refusing.length === 1 && hook.result.current.queue.refused !== null, 'the refusal shows');
-    expect(hook.result.current.queue.refused).toMatch(/^Not saved: hole U-01 \(flagged\) is under a finding/);
+    expect(hook.result.current.queue.refused?.message).toMatch(/^Not saved: hole U-01 \(flagged\) is under a finding/);
     expect(hook.result.current.queue.waiting).toHaveLength(0);
     expect(qc.getQueryData<TravelerDetail>(travelerKeys.detail('t1'))!.holes[0].status).toBe('pending');
     act(() => hook.result.current.queue.dismissRefused());
@@ -387,9 +391,14 @@ describe('steps and work made without signal', () => {
     }) as never;
     act(() => onlineManager.setOnline(true));
     await until(() => paths.length === 3 && hook.result.current.queue.refused !== null, 'the refusal shows');
-    expect(hook.result.current.queue.refused).toBe(
-      'Not saved: step 2 waits for the inspection point above it The step marked done was taken back.',
-    );
+    expect(hook.result.current.queue.refused).toEqual({
+      message: 'Not saved: step 2 waits for the inspection point above it The step marked done was taken back.',
+      travelerId: 't1',
+    });
+    // The bench hears of it too, with its part; dismissed there, it is gone from both.
+    expect(hook.result.current.all.refused).toEqual(hook.result.current.queue.refused);
+    act(() => hook.result.current.all.dismissRefused());
+    await until(() => hook.result.current.queue.refused === null, 'dismissed on the bench, gone from the part');
     expect(stepDone(qc, 's2')).toBeNull();
   });
 });
@@ -417,6 +426,7 @@ describe('actions of a person who signed out with some unsent', () => {
     expect(sent).toHaveLength(1);
     expect(qc.getMutationCache().getAll().filter(isUnsentAction)).toHaveLength(2);
     expect(hook.result.current.queue.waiting).toEqual([]);
+    expect(hook.result.current.all.waiting).toEqual([]);
     expect(withUnsentActions(detail('t1'), qc).holes.map((h) => h.status)).toEqual(['pending', 'pending']);
 
     // Back under the first person, theirs go, in their order (the next try comes within seconds).

@@ -163,10 +163,10 @@ describe('the loop in a real browser at phone size', () => {
     // No signal at the bench: the tick stays as made, waits on the device, and reaches the server later.
     await page.context().setOffline(true);
     await page.getByTestId('hole-U-06').click();
-    await page.getByTestId('bench-waiting').waitFor({ timeout: 15000 });
+    await page.getByTestId('part-waiting').waitFor({ timeout: 15000 });
     expect(await page.getByTestId('hole-U-06').getAttribute('aria-checked')).toBe('true');
     await page.context().setOffline(false);
-    await page.getByTestId('bench-waiting').waitFor({ state: 'detached', timeout: 30000 });
+    await page.getByTestId('part-waiting').waitFor({ state: 'detached', timeout: 30000 });
     const token = await t.signIn(DEMO_USERS.builder.email);
     const lookup = await request(t.app).get('/api/travelers/lookup').query({ code: qrText }).set(auth(token));
     const saved = await request(t.app).get(`/api/travelers/${lookup.body.id}`).set(auth(token));

@@ -81,6 +81,18 @@ async function controlledByServiceWorker(page: Page): Promise<string> {
   });
 }
 
+/** Until the visible element `id` has text matching `pattern` (a RegExp source: it runs in the page). */
+async function showsText(page: Page, id: string, pattern: string) {
+  await page.waitForFunction(
+    ([testId, source]) =>
+      Array.from(document.querySelectorAll(`[data-testid="${testId}"]`)).some(
+        (e) => (e as HTMLElement).offsetParent !== null && new RegExp(source).test(e.textContent ?? ''),
+      ),
+    [id, pattern] as const,
+    { timeout: 15_000 },
+  );
+}
+
 async function goOffline(page: Page) {
   signal = false;
   await page.context().setOffline(true);
@@ -192,23 +204,20 @@ describe('the bench with no signal', () => {
     await visible(page, 'traveler-screen').waitFor({ timeout: 30_000 });
 
     await visible(page, `hole-${hole}`).click();
-    await visible(page, 'bench-waiting').waitFor({ timeout: 15_000 });
+    await visible(page, 'part-waiting').waitFor({ timeout: 15_000 });
     expect(await visible(page, `hole-${hole}`).getAttribute('aria-checked')).toBe('true');
     // Work started with no signal shows as running at once and waits with the tick.
     const startedBy = Date.now();
     await visible(page, 'work-start').click();
     await visible(page, 'work-running').waitFor({ timeout: 15_000 });
-    await page.waitForFunction(
-      () =>
-        /^2 changes waiting for signal/.test(
-          document.querySelector('[data-testid="bench-waiting"]')?.textContent ?? '',
-        ),
-      undefined,
-      { timeout: 15_000 },
-    );
+    await showsText(page, 'part-waiting', '^2 changes waiting for signal');
     const meanwhile = await api<TravelerDetail>(`/api/travelers/${part.id}`);
     expect(meanwhile.holes.find((h) => h.holeId === hole)!.status).toBe('pending');
     expect(meanwhile.work!.running).toBeNull();
+
+    // The bench says so too, over every part.
+    await visible(page, 'tab-bench').click();
+    await showsText(page, 'bench-waiting', '^2 changes on one part waiting for signal');
 
     const onlineAt = Date.now();
     await goOnline(page);
