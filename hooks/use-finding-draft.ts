@@ -2,6 +2,7 @@ import { useCallback, useEffect, useRef, useState } from 'react';
 import type { FindingKind, Measurements } from '@/db/contracts';
 import type { DraftPhoto } from '@/lib/photo-form-data';
 import { readJson, removeKey, storageKeys, writeJson } from '@/lib/storage';
+import { useSession } from './use-session';
 
 export type FindingDraft = {
   /** Measurements in inches, as the form holds them. */
@@ -20,12 +21,25 @@ function isEmpty(d: Omit<FindingDraft, 'savedAt'>): boolean {
   );
 }
 
+/** A draft kept before drafts were kept per person: handed to the first person who opens its part's form. */
+async function adoptUnowned(travelerId: string, key: string): Promise<FindingDraft | null> {
+  const old = storageKeys.findingDraft(null, travelerId);
+  const d = await readJson<FindingDraft>(old);
+  if (d) {
+    await writeJson(key, d);
+    await removeKey(old);
+  }
+  return d;
+}
+
 /**
  * Keeps a finding that is not sent yet on the device (fields, and photos as URIs), so a dropped
- * connection or a closed app does not lose it. Cleared once the server has it.
+ * connection or a closed app does not lose it. Cleared once the server has it. Kept under the person
+ * signed in: it waits for them, never shown to whoever signs in next on the same phone.
  */
 export function useFindingDraft(travelerId: string) {
-  const key = storageKeys.findingDraft(travelerId);
+  const personId = useSession().user?.id ?? null;
+  const key = storageKeys.findingDraft(personId, travelerId);
   const [loaded, setLoaded] = useState(false);
   const [restored, setRestored] = useState<FindingDraft | null>(null);
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
@@ -33,15 +47,17 @@ export function useFindingDraft(travelerId: string) {
 
   useEffect(() => {
     let alive = true;
-    readJson<FindingDraft>(key).then((d) => {
-      if (!alive) return;
-      setRestored(d && !isEmpty(d) ? d : null);
-      setLoaded(true);
-    });
+    readJson<FindingDraft>(key)
+      .then((d) => d ?? (personId ? adoptUnowned(travelerId, key) : null))
+      .then((d) => {
+        if (!alive) return;
+        setRestored(d && !isEmpty(d) ? d : null);
+        setLoaded(true);
+      });
     return () => {
       alive = false;
     };
-  }, [key]);
+  }, [key, personId, travelerId]);
 
   const flush = useCallback(async () => {
     if (timer.current) clearTimeout(timer.current);

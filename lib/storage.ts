@@ -5,7 +5,9 @@ import { Platform } from 'react-native';
 export const storageKeys = {
   session: 'pitchcard.session',
   units: 'pitchcard.units',
-  findingDraft: (travelerId: string) => `pitchcard.finding-draft.${travelerId}`,
+  /** A finding not sent yet, the person's own: the next person on this phone neither sees it nor sends it as theirs. */
+  findingDraft: (personId: string | null, travelerId: string) =>
+    personId ? `pitchcard.finding-draft.${personId}.${travelerId}` : `pitchcard.finding-draft.${travelerId}`,
   /** TanStack Query's persisted client: bench actions not yet through to the server (lib/query-client.ts). */
   queryCache: 'pitchcard.query-cache',
   /** Where earlier versions kept unsent ticks themselves; read once at start-up and handed over (adoptEarlierTicks). */

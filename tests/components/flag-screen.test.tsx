@@ -126,7 +126,7 @@ describe('the flag form', () => {
 
   it('sends the measurements as one JSON field, in inches, and only those of the kind', async () => {
     window.localStorage.setItem(
-      storageKeys.findingDraft(traveler.id),
+      storageKeys.findingDraft(null, traveler.id),
       JSON.stringify({
         values: {
           holeIds: ['U-03'],
@@ -161,5 +161,62 @@ describe('the flag form', () => {
       edgeDistanceIn: 0.22,
     });
     expect(measurementsFor('hole_oversize', { holeDiameterIn: Number.NaN })).toEqual({});
+  });
+});
+
+describe('a draft on a phone two people use', () => {
+  const signedInAs = (id: string) =>
+    window.localStorage.setItem(
+      storageKeys.session,
+      JSON.stringify({
+        token: `token-of-${id}`,
+        expiresAt: '2099-01-01T00:00:00.000Z',
+        user: {
+          id,
+          email: `${id}@bench.example`,
+          name: id,
+          role: 'builder',
+          lead: false,
+          organizationId: null,
+          organizationName: null,
+        },
+      }),
+    );
+
+  const keepDraft = (key: string, note: string) =>
+    window.localStorage.setItem(
+      key,
+      JSON.stringify({ values: { holeIds: ['U-03'], note }, photos: [], savedAt: '2026-11-04T10:00:00.000Z' }),
+    );
+
+  it("is the maker's: restored for them, neither shown to nor sendable by the next person", async () => {
+    recordFetch({});
+    keepDraft(storageKeys.findingDraft('person-a', traveler.id), 'Oval toward the trailing edge');
+    signedInAs('person-b');
+    const next = flag(['U-01']);
+    await next.settle();
+    expect(next.queryByTestId('draft-restored')).toBeNull();
+    expect(next.container.textContent).not.toContain('Oval toward the trailing edge');
+    next.unmount();
+
+    signedInAs('person-a');
+    const maker = flag(['U-01']);
+    await maker.settle();
+    expect(maker.byTestId('draft-restored')).toBeTruthy();
+    expect((maker.byTestId('finding-note') as HTMLTextAreaElement).value).toBe('Oval toward the trailing edge');
+  });
+
+  it('kept before drafts had an owner, goes to the first person to open the form, and is theirs after', async () => {
+    recordFetch({});
+    const unowned = storageKeys.findingDraft(null, traveler.id);
+    keepDraft(unowned, 'Crack at the edge');
+    signedInAs('person-a');
+    const first = flag(['U-03']);
+    await first.settle();
+    expect(first.byTestId('draft-restored')).toBeTruthy();
+    expect(window.localStorage.getItem(unowned)).toBeNull();
+    expect(window.localStorage.getItem(storageKeys.findingDraft('person-a', traveler.id))).toContain(
+      'Crack at the edge',
+    );
   });
 });

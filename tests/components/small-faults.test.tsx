@@ -121,7 +121,7 @@ describe('a photo the server refuses', () => {
 
   it('is said once, under the photos; the line by the button only points there', async () => {
     window.localStorage.setItem(
-      storageKeys.findingDraft(traveler.id),
+      storageKeys.findingDraft(null, traveler.id),
       JSON.stringify({
         values: { holeIds: ['U-02'], kind: 'hole_elongated', note: 'oval', measurements: {} },
         photos: [{ uri: 'data:image/jpeg;base64,AAAA', name: 'hole.jpg', type: 'image/jpeg' }],
