@@ -1,13 +1,14 @@
 import { PersistQueryClientProvider } from '@tanstack/react-query-persist-client';
 import { DefaultTheme, Stack, ThemeProvider } from 'expo-router';
 import { StatusBar } from 'expo-status-bar';
-import { useEffect, useRef, useState, type ReactNode } from 'react';
+import { useCallback, useEffect, useRef, useState, type ReactNode } from 'react';
 import { View } from 'react-native';
 import { colors } from '@/constants/theme';
 import { useArrivalHref } from '@/components/navigation/use-arrival-href';
 import { usePreloadArrival } from '@/components/navigation/preload-arrival';
 import { LoadingState } from '@/components/ui/states';
 import { afterRestore, clearForNextPerson, makeQueryClient, persistOptions } from '@/lib/query-client';
+import { resumeKeptFor } from '@/hooks/queries/bench-actions';
 import { SessionProvider, useSession } from '@/hooks/use-session';
 import { UnitsProvider } from '@/hooks/use-units';
 import { useAppFonts } from '@/lib/app-fonts';
@@ -31,6 +32,7 @@ export default function RootLayout() {
   // fallback face and switches when they load.
   useAppFonts();
   const [queryClient] = useState(makeQueryClient);
+  const resumeKept = useCallback((personId: string) => void resumeKeptFor(queryClient, personId), [queryClient]);
   // Bench actions made without signal (ticks, steps, work) are kept on the device by TanStack Query's persister and sent after a reload.
   return (
     <PersistQueryClientProvider
@@ -42,7 +44,7 @@ export default function RootLayout() {
         <UnitsProvider>
           <ThemeProvider value={navTheme}>
             <StatusBar style="dark" />
-            <Guarded onSignedOut={() => clearForNextPerson(queryClient)} />
+            <Guarded onSignedOut={() => clearForNextPerson(queryClient)} onSignedIn={resumeKept} />
           </ThemeProvider>
         </UnitsProvider>
       </SessionWithArrival>
@@ -60,7 +62,7 @@ function SessionWithArrival({ children }: { children: ReactNode }) {
   return <SessionProvider arrivalHref={arrivalHref}>{children}</SessionProvider>;
 }
 
-function Guarded({ onSignedOut }: { onSignedOut: () => void }) {
+function Guarded({ onSignedOut, onSignedIn }: { onSignedOut: () => void; onSignedIn: (personId: string) => void }) {
   const { status, user } = useSession();
   usePreloadArrival(status);
   // Nothing cached for one person may show to the next: cleared when a session ends. Not when the app
@@ -74,6 +76,11 @@ function Guarded({ onSignedOut }: { onSignedOut: () => void }) {
       onSignedOut();
     }
   }, [status, user?.id, onSignedOut]);
+  // What this person left unsent at an earlier sign-out on this device goes back into the queue.
+  const personId = status === 'signed-in' ? (user?.id ?? null) : null;
+  useEffect(() => {
+    if (personId) onSignedIn(personId);
+  }, [personId, onSignedIn]);
 
   if (status === 'loading') {
     return (

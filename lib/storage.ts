@@ -10,6 +10,8 @@ export const storageKeys = {
     personId ? `pitchcard.finding-draft.${personId}.${travelerId}` : `pitchcard.finding-draft.${travelerId}`,
   /** TanStack Query's persisted client: bench actions not yet through to the server (lib/query-client.ts). */
   queryCache: 'pitchcard.query-cache',
+  /** Bench actions set aside for a person who signed out before they were sent (hooks/queries/bench-actions.ts). */
+  keptFor: (personId: string) => `pitchcard.kept-actions.${personId}`,
   /** Where earlier versions kept unsent ticks themselves; read once at start-up and handed over (adoptEarlierTicks). */
   oldOfflineTicks: 'pitchcard.tick-outbox',
   /** A link opened before signing in (see tabScoped below). */

@@ -5,7 +5,7 @@ import {
   type Mutation,
   type QueryClient,
 } from '@tanstack/react-query';
-import { useCallback, useMemo } from 'react';
+import { useCallback, useMemo, useSyncExternalStore } from 'react';
 import {
   countHoles,
   tickHolesInput,
@@ -19,7 +19,7 @@ import {
   type WorkStopInput,
 } from '@/db/contracts';
 import { api, ApiError, errorMessage, signedInPersonId } from '@/lib/api-client';
-import { readJson, removeKey, storageKeys } from '@/lib/storage';
+import { readJson, removeKey, storageKeys, writeJson } from '@/lib/storage';
 import { buildKeys } from './builds';
 import { invalidateAll } from './mutations';
 import { travelerKeys, type TravelerStep } from './travelers';
@@ -29,8 +29,9 @@ import { travelerKeys, type TravelerStep } from './travelers';
  * started and stopped. Each is a mutation on TanStack Query's own machinery, kept on the device until the
  * server has it (lib/query-client.ts persists the unsent ones), stamped with the moment it was done on
  * the device and with the person who did it, shown at once, and sent in the order made, in one queue
- * for every part. An action goes only as its maker's: left unsent at a sign-out, it waits for that person
- * to sign in again on this device, neither sent as the next person's work nor holding up theirs.
+ * for every part. An action goes only as its maker's: one that finds its maker signed out when its turn
+ * comes is set aside on the device under that person (`keptFor`) and handed back to the queue when they
+ * sign in again, neither sent as the next person's work nor holding up theirs.
  */
 
 function recount(detail: TravelerDetail, holes: Hole[]): TravelerDetail {
@@ -84,9 +85,7 @@ const partPath = (travelerId: string) => `/api/travelers/${encodeURIComponent(tr
  * device; `sentAt`, read as it leaves, lets the server tell a late action from a device clock that is off.
  */
 async function sendAction(a: BenchAction): Promise<ActionResult> {
-  // Kept waiting (a 401 is worth waiting for) until its maker is the one signed in.
-  if (a.personId && a.personId !== signedInPersonId())
-    throw new ApiError(401, 'maker_signed_out', 'Waiting for the person who did this to sign in on this device.');
+  if (a.personId && a.personId !== signedInPersonId()) throw new MakerAway();
   const times = { doneAt: a.at, sentAt: new Date().toISOString() };
   const credit = (c: Credit) => ({ ...(c.by ? { by: c.by } : {}), ...(c.byName ? { byName: c.byName } : {}) });
   const base = partPath(a.travelerId);
@@ -169,12 +168,79 @@ function undoAction(d: TravelerDetail, ctx: ActionContext): TravelerDetail {
   return ctx.before.length ? mergeHoles(d, ctx.before) : d;
 }
 
+/** Its maker is not the one signed in: the action is set aside for them, never sent, never refused. */
+class MakerAway extends Error {
+  constructor() {
+    super('waiting for the person who did this to sign in on this device');
+  }
+}
+
 /** Worth another try later: no signal, the server down, or a sign-in to renew first. A refusal is final. */
 const worthWaiting = (e: unknown) => e instanceof ApiError && (e.isNetwork || e.status >= 500 || e.status === 401);
 /** Tries while the browser says there is signal but the server cannot be reached are spaced up to this. */
 const RETRY_CAP_MS = 15_000;
 /** How long a refused action's message stays for the bench to read, unless dismissed. */
 const REFUSAL_KEPT_MS = 30 * 60_000;
+/** The most actions set aside for one person, and refusals remembered: far beyond a day at the bench. */
+const KEPT_MAX = 5000;
+const REFUSALS_MAX = 20;
+
+type Refusal = { message: string; travelerId: string; personId?: string; at: number };
+/**
+ * Refusals, remembered here for the bench to show rather than read off the failed mutations: those have
+ * no observer once the screen that made them is gone, and the cache may drop them soon after they fail.
+ */
+let refusals: Refusal[] = [];
+const refusalListeners = new Set<() => void>();
+function setRefusals(next: Refusal[]) {
+  refusals = next;
+  refusalListeners.forEach((l) => l());
+}
+const subscribeRefusals = (l: () => void) => {
+  refusalListeners.add(l);
+  return () => void refusalListeners.delete(l);
+};
+function remember(a: BenchAction, e: unknown) {
+  const r = {
+    message: `Not saved: ${errorMessage(e)} ${actionWords(a)} was taken back.`,
+    travelerId: a.travelerId,
+    personId: a.personId,
+    at: Date.now(),
+  };
+  setRefusals([...refusals.filter((x) => Date.now() - x.at < REFUSAL_KEPT_MS), r].slice(-REFUSALS_MAX));
+}
+
+/** Writes to one person's set-aside actions, one at a time (each reads what the last one wrote). */
+let keeping: Promise<unknown> = Promise.resolve();
+const inTurn = <T>(work: () => Promise<T>): Promise<T> => {
+  const next = keeping.then(work, work);
+  keeping = next.catch(() => undefined);
+  return next;
+};
+
+/** Sets an action aside on the device for its maker, after those set aside before it. */
+const keepForMaker = (a: BenchAction & { personId: string }) =>
+  inTurn(async () => {
+    const key = storageKeys.keptFor(a.personId);
+    const kept = (await readJson<BenchAction[]>(key)) ?? [];
+    await writeJson(key, [...kept, a].slice(-KEPT_MAX));
+  });
+
+/**
+ * When a person signs in: the actions set aside for them go back into the queue, in their order, ahead
+ * of anything they do next.
+ */
+export function resumeKeptFor(qc: QueryClient, personId: string): Promise<void> {
+  return inTurn(async () => {
+    const key = storageKeys.keptFor(personId);
+    const kept = await readJson<BenchAction[]>(key);
+    for (const a of Array.isArray(kept) ? kept.slice(0, KEPT_MAX) : []) {
+      if (a && a.personId === personId && typeof a.travelerId === 'string') queueAction(qc, a).catch(() => undefined);
+    }
+    // Once queued (and so kept by the persister), no longer set aside.
+    await removeKey(key);
+  });
+}
 
 /** An action not yet through to the server: on its way, waiting for signal, or for a new sign-in. */
 export const isUnsentAction = (m: Mutation) =>
@@ -207,16 +273,13 @@ export function registerBenchActions(qc: QueryClient): void {
   qc.setMutationDefaults(travelerKeys.benchActions(), benchActionOptions(qc));
 }
 
-/** One queue a person for every part: their actions reach the server in the order made (a start before its stop). */
-const queueOf = (personId: string | undefined) => ({ id: personId ? `bench:${personId}` : 'ticks' });
-
 function benchActionOptions(qc: QueryClient) {
   return {
     mutationFn: (a: BenchAction) => sendAction(a),
-    scope: queueOf(undefined),
+    // One queue for every part: actions reach the server in the order they were made (a start before its stop).
+    scope: { id: 'ticks' },
     retry: (_count: number, e: unknown) => worthWaiting(e),
     retryDelay: (n: number) => Math.min(RETRY_CAP_MS, 1000 * 2 ** n),
-    gcTime: REFUSAL_KEPT_MS,
     onMutate: async (a: BenchAction): Promise<ActionContext> => {
       const key = travelerKeys.detail(a.travelerId);
       await qc.cancelQueries({ queryKey: key });
@@ -225,7 +288,10 @@ function benchActionOptions(qc: QueryClient) {
       qc.setQueryData<TravelerDetail>(key, applyAction(now, a));
       return beforeAction(now, a);
     },
-    onError: (_e: unknown, a: BenchAction, ctx: ActionContext | undefined) => {
+    onError: (e: unknown, a: BenchAction, ctx: ActionContext | undefined) => {
+      // Not a refusal: its maker signed out meanwhile (what they saw went with their session).
+      if (e instanceof MakerAway && a.personId) return keepForMaker({ ...a, personId: a.personId });
+      remember(a, e);
       const key = travelerKeys.detail(a.travelerId);
       const now = qc.getQueryData<TravelerDetail>(key);
       if (now && ctx) qc.setQueryData<TravelerDetail>(key, undoAction(now, ctx));
@@ -235,13 +301,19 @@ function benchActionOptions(qc: QueryClient) {
       const now = qc.getQueryData<TravelerDetail>(key);
       if (!now || !data) return;
       // A tick answers with its holes; the other actions with the part, onto which those still unsent go again.
-      if (isTick(a)) qc.setQueryData<TravelerDetail>(key, mergeHoles(now, (data as TickResult).holes));
+      if (isTick(a))
+        qc.setQueryData<TravelerDetail>(
+          key,
+          withUnsentActions(mergeHoles(now, (data as TickResult).holes ?? []), qc, a),
+        );
       else qc.setQueryData<TravelerDetail>(key, withUnsentActions(data as TravelerDetail, qc, a));
     },
-    // A burst of taps refetches once, after the last one.
-    onSettled: (_d: unknown, _e: unknown, a: BenchAction) => {
-      if (qc.isMutating({ mutationKey: travelerKeys.benchActionsOf(a.travelerId) }) > 1) return undefined;
-      return invalidateAll(qc, [travelerKeys.detail(a.travelerId), travelerKeys.list(), buildKeys.all]);
+    // A burst of taps refetches once, after the last one. Not waited for: the queue moves on meanwhile,
+    // and a refetch paused by a lost signal must not hold the next action.
+    onSettled: (_d: unknown, e: unknown, a: BenchAction) => {
+      if (e instanceof MakerAway) return;
+      if (unsentActions(qc, a.travelerId).length > 1) return;
+      void invalidateAll(qc, [travelerKeys.detail(a.travelerId), travelerKeys.list(), buildKeys.all]);
     },
   };
 }
@@ -270,10 +342,20 @@ export async function adoptEarlierTicks(qc: QueryClient): Promise<void> {
   await removeKey(storageKeys.oldOfflineTicks);
 }
 
+/** Puts one action in the queue (the same options as the registered defaults: tests make their own clients). */
+function queueAction(qc: QueryClient, a: BenchAction): Promise<ActionResult> {
+  return qc
+    .getMutationCache()
+    .build(qc, { ...benchActionOptions(qc), mutationKey: travelerKeys.benchActionsOf(a.travelerId) })
+    .execute(a);
+}
+
+const isWork = (kind: BenchAction['kind']) => kind === 'work-start' || kind === 'work-stop';
+
 /**
  * One kind of action on one part: `mutate` takes what the kind needs, stamps it with the device's time and
- * the person signed in, and puts it in that person's queue. Not tied to the screen: an action goes on after
- * the part is closed. `onError` hears of a refusal while the screen is open (the queue shows it too).
+ * the person signed in, and queues it. Not tied to the screen: an action goes on after the part is
+ * closed. `onError` hears of a refusal while the screen is open (the notices show it too).
  */
 function useBenchAction<I>(travelerId: string, body: (input: I) => TickBody | StepBody | WorkBody) {
   const qc = useQueryClient();
@@ -286,15 +368,11 @@ function useBenchAction<I>(travelerId: string, body: (input: I) => TickBody | St
         at: new Date().toISOString(),
         ...(personId ? { personId } : {}),
       };
-      // The same options as the registered defaults, so the hook works on any client (tests make their own).
-      qc.getMutationCache()
-        .build(qc, {
-          ...benchActionOptions(qc),
-          mutationKey: travelerKeys.benchActionsOf(travelerId),
-          scope: queueOf(personId),
-        })
-        .execute(action)
-        .catch((e: Error) => opts?.onError?.(e));
+      // A second tap on Start (or Stop) before the first is through would only be refused.
+      if (isWork(action.kind) && unsentActions(qc, travelerId).at(-1)?.kind === action.kind) return;
+      queueAction(qc, action).catch((e: Error) => {
+        if (!(e instanceof MakerAway)) opts?.onError?.(e);
+      });
     },
     [qc, travelerId, body],
   );
@@ -342,7 +420,6 @@ export function useBenchQueue(travelerId?: string): {
   refused: { message: string; travelerId: string } | null;
   dismissRefused: () => void;
 } {
-  const qc = useQueryClient();
   const key = travelerId ? travelerKeys.benchActionsOf(travelerId) : travelerKeys.benchActions();
   const waiting = useMutationState({
     filters: {
@@ -352,21 +429,19 @@ export function useBenchQueue(travelerId?: string): {
     },
     select: (m) => m.state.variables as BenchAction,
   });
-  const refused = useMutationState({
-    filters: { mutationKey: key, status: 'error', predicate: (m) => isMine(m.state.variables as BenchAction) },
-    select: (m) => {
-      const a = m.state.variables as BenchAction;
-      return {
-        message: `Not saved: ${errorMessage(m.state.error)} ${actionWords(a)} was taken back.`,
-        travelerId: a.travelerId,
-      };
-    },
-  });
-  const dismissRefused = useCallback(() => {
-    const cache = qc.getMutationCache();
-    const mutationKey = travelerId ? travelerKeys.benchActionsOf(travelerId) : travelerKeys.benchActions();
-    for (const m of cache.findAll({ mutationKey, status: 'error' }))
-      if (isMine(m.state.variables as BenchAction)) cache.remove(m);
-  }, [qc, travelerId]);
-  return { waiting, refused: refused.at(-1) ?? null, dismissRefused };
+  const all = useSyncExternalStore(subscribeRefusals, () => refusals);
+  const shown = useCallback(
+    (r: Refusal) =>
+      (!travelerId || r.travelerId === travelerId) &&
+      (!r.personId || r.personId === signedInPersonId()) &&
+      Date.now() - r.at < REFUSAL_KEPT_MS,
+    [travelerId],
+  );
+  const last = all.filter(shown).at(-1);
+  const dismissRefused = useCallback(() => setRefusals(refusals.filter((r) => !shown(r))), [shown]);
+  return {
+    waiting,
+    refused: last ? { message: last.message, travelerId: last.travelerId } : null,
+    dismissRefused,
+  };
 }

@@ -11,6 +11,7 @@ import {
 } from '@/db/contracts';
 import {
   isUnsentAction,
+  resumeKeptFor,
   useBenchQueue,
   useTravelerStepMutation,
   useTravelerTickMutation,
@@ -403,16 +404,73 @@ describe('steps and work made without signal', () => {
   });
 });
 
+describe('the queue at the bench', () => {
+  it("counts a later unsent action in over an earlier one's answer", async () => {
+    const { qc, hook } = await offlineBench();
+    act(() => hook.result.current.tick.mutate({ holeIds: ['U-01'], status: 'installed' }));
+    act(() => hook.result.current.tick.mutate({ holeIds: ['U-01'], status: 'pending' }));
+    await until(() => hook.result.current.queue.waiting.length === 2, 'both wait');
+    // The first is answered; the second stays on its way.
+    let calls = 0;
+    global.fetch = jest.fn(async () => {
+      calls++;
+      if (calls > 1) return new Promise(() => undefined);
+      return answer(200, { holes: [{ ...detail('t1').holes[0], status: 'installed' }] });
+    }) as never;
+    act(() => onlineManager.setOnline(true));
+    await until(() => calls === 2, 'the second is on its way');
+    expect(qc.getQueryData<TravelerDetail>(travelerKeys.detail('t1'))!.holes[0].status).toBe('pending');
+  });
+
+  it('takes a second tap on Start work as the first', async () => {
+    const { qc, hook } = await offlineBench();
+    act(() => hook.result.current.start.mutate({}));
+    act(() => hook.result.current.start.mutate({}));
+    act(() => hook.result.current.stop.mutate());
+    act(() => hook.result.current.stop.mutate());
+    await until(() => hook.result.current.queue.waiting.length === 2, 'one start and one stop wait');
+    expect(
+      qc
+        .getMutationCache()
+        .getAll()
+        .filter(isUnsentAction)
+        .map((m) => (m.state.variables as BenchAction).kind),
+    ).toEqual(['work-start', 'work-stop']);
+  });
+
+  it('keeps a refusal for the bench after the screen that made the action has closed', async () => {
+    const { hook } = await offlineBench();
+    act(() => hook.result.current.step.mutate({ stepId: 's1', done: true }));
+    await until(() => hook.result.current.queue.waiting.length === 1, 'the step waits');
+    // The part's page closes; the bench (another part's hooks here) is what is open when the signal returns.
+    hook.unmount();
+    const bench = tickHook(clients[0], 't2');
+    recordingServer(409, { error: { code: 'conflict', message: 'this part is signed off' } });
+    act(() => onlineManager.setOnline(true));
+    await until(() => bench.result.current.all.refused !== null, 'the bench shows it');
+    expect(bench.result.current.all.refused).toEqual({
+      message: 'Not saved: this part is signed off The step marked done was taken back.',
+      travelerId: 't1',
+    });
+    act(() => bench.result.current.all.dismissRefused());
+    await until(() => bench.result.current.all.refused === null, 'dismissed');
+  });
+});
+
 describe('actions of a person who signed out with some unsent', () => {
-  it('wait for that person to sign in again, hidden from the next, whose own go at once', async () => {
+  it('are set aside for that person, neither sent as the next nor holding up theirs, and go when they sign in again', async () => {
     let person: string | null = 'person-a';
     configureApiClient({ getPersonId: () => person });
     const { qc, hook } = await offlineBench();
     act(() => hook.result.current.tick.mutate({ holeIds: ['U-01'], status: 'installed' }));
     act(() => hook.result.current.start.mutate({}));
     await until(() => hook.result.current.queue.waiting.length === 2, "the first person's two wait");
+    // Hidden from anyone else at once.
+    person = null;
+    expect(withUnsentActions(detail('t1'), qc).holes.map((h) => h.status)).toEqual(['pending', 'pending']);
 
-    // The first person signs out with the signal still away; the next signs in on the same phone.
+    // The first person signs out with the signal still away; the next signs in on the same phone and
+    // ticks as the signal comes back.
     clearForNextPerson(qc);
     person = 'person-b';
     const paths: string[] = [];
@@ -421,18 +479,24 @@ describe('actions of a person who signed out with some unsent', () => {
     act(() => hook.result.current.tick.mutate({ holeIds: ['U-02'], status: 'installed' }));
     await until(() => sent.length === 1, "the second person's tick is through");
     expect(sent[0].body).toMatchObject({ holeIds: ['U-02'] });
-    // The first person's work is neither sent as the second's nor shown to them.
-    await act(() => new Promise((r) => setTimeout(r, 300)));
+    // The first person's two were set aside on the device, in their order, and nothing of theirs is
+    // left in the queue to hold it up or to show as refused.
+    const kept = () => JSON.parse(localStorage.getItem(storageKeys.keptFor('person-a')) ?? '[]') as BenchAction[];
+    await until(() => kept().length === 2, "the first person's two are set aside");
+    expect(kept().map((a) => [a.kind ?? 'tick', a.personId])).toEqual([
+      ['tick', 'person-a'],
+      ['work-start', 'person-a'],
+    ]);
+    expect(qc.getMutationCache().getAll().filter(isUnsentAction)).toHaveLength(0);
+    expect(hook.result.current.all.refused).toBeNull();
     expect(sent).toHaveLength(1);
-    expect(qc.getMutationCache().getAll().filter(isUnsentAction)).toHaveLength(2);
-    expect(hook.result.current.queue.waiting).toEqual([]);
-    expect(hook.result.current.all.waiting).toEqual([]);
-    expect(withUnsentActions(detail('t1'), qc).holes.map((h) => h.status)).toEqual(['pending', 'pending']);
 
-    // Back under the first person, theirs go, in their order (the next try comes within seconds).
+    // Signed in again, theirs go in their order, and are no longer set aside.
     person = 'person-a';
+    await act(() => resumeKeptFor(qc, 'person-a'));
     await until(() => sent.length === 3, "the first person's two are through");
     expect(paths).toEqual(['holes', 'holes', 'work/start']);
     expect(sent[1].body).toMatchObject({ holeIds: ['U-01'] });
+    expect(localStorage.getItem(storageKeys.keptFor('person-a'))).toBeNull();
   });
 });
