@@ -32,13 +32,23 @@ export default function RootLayout() {
   // fallback face and switches when they load.
   useAppFonts();
   const [queryClient] = useState(makeQueryClient);
-  const resumeKept = useCallback((personId: string) => void resumeKeptFor(queryClient, personId), [queryClient]);
+  // Set-aside actions go back into the queue once the kept queue is restored (one kept in both goes once).
+  const [restored] = useState(() => {
+    let done = () => {};
+    const promise = new Promise<void>((resolve) => (done = resolve));
+    return { promise, done };
+  });
+  const resumeKept = useCallback(
+    (personId: string) => void restored.promise.then(() => resumeKeptFor(queryClient, personId)),
+    [queryClient, restored],
+  );
   // Bench actions made without signal (ticks, steps, work) are kept on the device by TanStack Query's persister and sent after a reload.
   return (
     <PersistQueryClientProvider
       client={queryClient}
       persistOptions={persistOptions()}
-      onSuccess={() => afterRestore(queryClient)}
+      onSuccess={() => afterRestore(queryClient).finally(restored.done)}
+      onError={restored.done}
     >
       <SessionWithArrival>
         <UnitsProvider>

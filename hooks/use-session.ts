@@ -67,6 +67,8 @@ export function SessionProvider({
   const [pendingHref, setPendingState] = useState<string | null>(null);
   // The live session for the API client: its token, and whose it is (bench actions go only as their maker's).
   const liveRef = useRef<StoredSession | null>(initial);
+  // False while the stored session is still being read (native): whose it is is not known yet.
+  const knownRef = useRef(!!initial);
   // A ref as well as state: taking the path must see the latest value at once, not after a render.
   const pendingRef = useRef<string | null>(null);
   const arrivalRef = useRef(arrivalHref);
@@ -88,6 +90,7 @@ export function SessionProvider({
   const signOut = useCallback(
     async (reason?: string) => {
       liveRef.current = null;
+      knownRef.current = true;
       setStored(null);
       setStatus('signed-out');
       setEndedBecause(reason ?? null);
@@ -103,6 +106,7 @@ export function SessionProvider({
   const signIn = useCallback(async (result: SignInResult) => {
     const next: StoredSession = { token: result.token, expiresAt: result.expiresAt, user: result.user };
     liveRef.current = next;
+    knownRef.current = true;
     setStored(next);
     setEndedBecause(null);
     setStatus('signed-in');
@@ -114,7 +118,7 @@ export function SessionProvider({
   useLayoutEffect(() => {
     configureApiClient({
       getToken: () => liveRef.current?.token ?? null,
-      getPersonId: () => liveRef.current?.user.id ?? null,
+      getPersonId: () => (knownRef.current ? (liveRef.current?.user.id ?? null) : undefined),
       onUnauthorized: () => {
         if (liveRef.current)
           void signOut(
@@ -129,6 +133,7 @@ export function SessionProvider({
     Promise.all([readJson<StoredSession>(storageKeys.session), tabScoped.read(storageKeys.pendingLink)]).then(
       ([s, kept]) => {
         if (!alive) return;
+        knownRef.current = true;
         if (isLive(s)) {
           liveRef.current = s;
           setStored(s);

@@ -28,7 +28,12 @@ export class ApiError extends Error {
 
 export const networkMessage = 'No connection to the server. Check the signal and try again.';
 
-type ClientHooks = { getToken: () => string | null; getPersonId: () => string | null; onUnauthorized: () => void };
+type ClientHooks = {
+  getToken: () => string | null;
+  /** The signed-in person's id; null when no one is; undefined while the stored session is still being read. */
+  getPersonId: () => string | null | undefined;
+  onUnauthorized: () => void;
+};
 let hooks: ClientHooks = { getToken: () => null, getPersonId: () => null, onUnauthorized: () => {} };
 
 /** The session provider registers how to read the token and what to do when it is refused. */
@@ -36,8 +41,8 @@ export function configureApiClient(next: Partial<ClientHooks>): void {
   hooks = { ...hooks, ...next };
 }
 
-/** The id of the person signed in on this device now, if any. */
-export const signedInPersonId = (): string | null => hooks.getPersonId();
+/** The id of the person signed in on this device now: null when no one is, undefined while not yet known. */
+export const signedInPersonId = (): string | null | undefined => hooks.getPersonId();
 
 const statusWords: Record<number, string> = {
   400: 'Some of what was sent is not right.',

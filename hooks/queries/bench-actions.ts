@@ -61,10 +61,11 @@ type TickBody = TickHolesInput & { kind?: 'tick' };
 type StepBody = Credit & { kind: 'step'; stepId: string; done: boolean };
 type WorkBody = (Credit & { kind: 'work-start' }) | { kind: 'work-stop' };
 /**
- * Where, when and whose: the part, the moment the action was done on the device (sent as `doneAt`), and
- * the id of the person signed in then (absent on ticks kept by an earlier version).
+ * Where, when and whose: the part, the moment the action was done on the device (sent as `doneAt`), the
+ * id of the person signed in then, and the action's own id on this device (both absent on ticks kept by
+ * an earlier version).
  */
-type Kept = { travelerId: string; at: string; personId?: string };
+type Kept = { travelerId: string; at: string; personId?: string; id?: string };
 
 /** One action as it travels and is kept on the device. */
 export type BenchAction = (TickBody | StepBody | WorkBody) & Kept;
@@ -85,7 +86,10 @@ const partPath = (travelerId: string) => `/api/travelers/${encodeURIComponent(tr
  * device; `sentAt`, read as it leaves, lets the server tell a late action from a device clock that is off.
  */
 async function sendAction(a: BenchAction): Promise<ActionResult> {
-  if (a.personId && a.personId !== signedInPersonId()) throw new MakerAway();
+  const now = signedInPersonId();
+  // The session is still being read from the device (native): wait, rather than set the action aside.
+  if (a.personId && now === undefined) throw new ApiError(0, 'session_loading', 'reading the session');
+  if (a.personId && a.personId !== now) throw new MakerAway();
   const times = { doneAt: a.at, sentAt: new Date().toISOString() };
   const credit = (c: Credit) => ({ ...(c.by ? { by: c.by } : {}), ...(c.byName ? { byName: c.byName } : {}) });
   const base = partPath(a.travelerId);
@@ -175,8 +179,14 @@ class MakerAway extends Error {
   }
 }
 
-/** Worth another try later: no signal, the server down, or a sign-in to renew first. A refusal is final. */
-const worthWaiting = (e: unknown) => e instanceof ApiError && (e.isNetwork || e.status >= 500 || e.status === 401);
+/**
+ * Worth another try later: no signal, the server down, or a sign-in to renew first. A refusal is final;
+ * so is a server that keeps failing on this one action (a fault, not a passing load): tried for some
+ * minutes, then refused, so it cannot hold up the queue behind it for good.
+ */
+const SERVER_FAULT_TRIES = 20;
+export const worthWaiting = (count: number, e: unknown) =>
+  e instanceof ApiError && (e.isNetwork || e.status === 401 || (e.status >= 500 && count < SERVER_FAULT_TRIES));
 /** Tries while the browser says there is signal but the server cannot be reached are spaced up to this. */
 const RETRY_CAP_MS = 15_000;
 /** How long a refused action's message stays for the bench to read, unless dismissed. */
@@ -218,27 +228,55 @@ const inTurn = <T>(work: () => Promise<T>): Promise<T> => {
   return next;
 };
 
-/** Sets an action aside on the device for its maker, after those set aside before it. */
-const keepForMaker = (a: BenchAction & { personId: string }) =>
-  inTurn(async () => {
-    const key = storageKeys.keptFor(a.personId);
-    const kept = (await readJson<BenchAction[]>(key)) ?? [];
-    await writeJson(key, [...kept, a].slice(-KEPT_MAX));
-  });
+const readKept = async (personId: string) => {
+  const kept = await readJson<BenchAction[]>(storageKeys.keptFor(personId));
+  return Array.isArray(kept)
+    ? kept.filter((a) => a && a.personId === personId && typeof a.travelerId === 'string')
+    : [];
+};
 
 /**
- * When a person signs in: the actions set aside for them go back into the queue, in their order, ahead
- * of anything they do next.
+ * Sets an action aside on the device for its maker, after those set aside before it (once: by its id).
+ * Should the device refuse to store it, the bench is told rather than the action lost without a word.
+ */
+const keepForMaker = (a: BenchAction & { personId: string }) =>
+  inTurn(async () => {
+    const kept = await readKept(a.personId);
+    if (a.id && kept.some((k) => k.id === a.id)) return;
+    await writeJson(storageKeys.keptFor(a.personId), [...kept, a].slice(-KEPT_MAX));
+  }).catch((e: unknown) => remember(a, new Error(`it could not be kept on this device (${errorMessage(e)}).`)));
+
+/** Forgets an action set aside for its maker once it has gone through the queue again. */
+const settledFromKept = (a: BenchAction) =>
+  a.personId && a.id
+    ? inTurn(async () => {
+        const kept = await readKept(a.personId!);
+        if (!kept.some((k) => k.id === a.id)) return;
+        const rest = kept.filter((k) => k.id !== a.id);
+        await (rest.length
+          ? writeJson(storageKeys.keptFor(a.personId!), rest)
+          : removeKey(storageKeys.keptFor(a.personId!)));
+      }).catch(() => undefined)
+    : undefined;
+
+/**
+ * When a person signs in (after the device's kept queue is restored): the actions set aside for them go
+ * back into the queue in their order, each but once (by its id: one kept in both places goes once). Each
+ * stays set aside until it has gone through, so closing the app meanwhile loses nothing.
  */
 export function resumeKeptFor(qc: QueryClient, personId: string): Promise<void> {
   return inTurn(async () => {
-    const key = storageKeys.keptFor(personId);
-    const kept = await readJson<BenchAction[]>(key);
-    for (const a of Array.isArray(kept) ? kept.slice(0, KEPT_MAX) : []) {
-      if (a && a.personId === personId && typeof a.travelerId === 'string') queueAction(qc, a).catch(() => undefined);
+    const queued = new Set(
+      qc
+        .getMutationCache()
+        .getAll()
+        .filter(isUnsentAction)
+        .map((m) => (m.state.variables as BenchAction | undefined)?.id),
+    );
+    for (const a of (await readKept(personId)).slice(0, KEPT_MAX)) {
+      if (a.id && queued.has(a.id)) continue;
+      queueAction(qc, a).catch(() => undefined);
     }
-    // Once queued (and so kept by the persister), no longer set aside.
-    await removeKey(key);
   });
 }
 
@@ -278,7 +316,7 @@ function benchActionOptions(qc: QueryClient) {
     mutationFn: (a: BenchAction) => sendAction(a),
     // One queue for every part: actions reach the server in the order they were made (a start before its stop).
     scope: { id: 'ticks' },
-    retry: (_count: number, e: unknown) => worthWaiting(e),
+    retry: worthWaiting,
     retryDelay: (n: number) => Math.min(RETRY_CAP_MS, 1000 * 2 ** n),
     onMutate: async (a: BenchAction): Promise<ActionContext> => {
       const key = travelerKeys.detail(a.travelerId);
@@ -312,6 +350,7 @@ function benchActionOptions(qc: QueryClient) {
     // and a refetch paused by a lost signal must not hold the next action.
     onSettled: (_d: unknown, e: unknown, a: BenchAction) => {
       if (e instanceof MakerAway) return;
+      void settledFromKept(a);
       if (unsentActions(qc, a.travelerId).length > 1) return;
       void invalidateAll(qc, [travelerKeys.detail(a.travelerId), travelerKeys.list(), buildKeys.all]);
     },
@@ -350,6 +389,9 @@ function queueAction(qc: QueryClient, a: BenchAction): Promise<ActionResult> {
     .execute(a);
 }
 
+/** Unique on this device: the time and a random part (crypto.randomUUID is not on every phone's browser). */
+const newActionId = () => `${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 10)}`;
+
 const isWork = (kind: BenchAction['kind']) => kind === 'work-start' || kind === 'work-stop';
 
 /**
@@ -366,6 +408,7 @@ function useBenchAction<I>(travelerId: string, body: (input: I) => TickBody | St
         ...body(input),
         travelerId,
         at: new Date().toISOString(),
+        id: newActionId(),
         ...(personId ? { personId } : {}),
       };
       // A second tap on Start (or Stop) before the first is through would only be refused.

@@ -12,6 +12,7 @@ import {
 import {
   isUnsentAction,
   resumeKeptFor,
+  worthWaiting,
   useBenchQueue,
   useTravelerStepMutation,
   useTravelerTickMutation,
@@ -21,7 +22,7 @@ import {
   type BenchAction,
   type TickVariables,
 } from '@/hooks/queries/bench-actions';
-import { configureApiClient } from '@/lib/api-client';
+import { ApiError, configureApiClient } from '@/lib/api-client';
 import { travelerKeys } from '@/hooks/queries/travelers';
 import { afterRestore, clearForNextPerson, makeQueryClient, persistOptions } from '@/lib/query-client';
 import { storageKeys } from '@/lib/storage';
@@ -405,6 +406,17 @@ describe('steps and work made without signal', () => {
 });
 
 describe('the queue at the bench', () => {
+  it('waits out no signal, a sign-in to renew and a busy server, but not a server that keeps failing', () => {
+    const network = new ApiError(0, 'network', 'no signal');
+    const server = new ApiError(500, 'internal', 'fault');
+    expect([worthWaiting(1000, network), worthWaiting(1000, new ApiError(401, 'unauthorized', 'sign in'))]).toEqual([
+      true,
+      true,
+    ]);
+    expect([worthWaiting(19, server), worthWaiting(19, new ApiError(503, 'busy', 'busy'))]).toEqual([true, true]);
+    expect([worthWaiting(20, server), worthWaiting(0, new ApiError(409, 'conflict', 'no'))]).toEqual([false, false]);
+  });
+
   it("counts a later unsent action in over an earlier one's answer", async () => {
     const { qc, hook } = await offlineBench();
     act(() => hook.result.current.tick.mutate({ holeIds: ['U-01'], status: 'installed' }));
@@ -498,5 +510,27 @@ describe('actions of a person who signed out with some unsent', () => {
     expect(paths).toEqual(['holes', 'holes', 'work/start']);
     expect(sent[1].body).toMatchObject({ holeIds: ['U-01'] });
     expect(localStorage.getItem(storageKeys.keptFor('person-a'))).toBeNull();
+  });
+
+  it('set aside and still in the queue (the app closed between the two) go once', async () => {
+    let person: string | null | undefined = 'person-a';
+    configureApiClient({ getPersonId: () => person });
+    const { qc, hook } = await offlineBench();
+    act(() => hook.result.current.tick.mutate({ holeIds: ['U-01'], status: 'installed' }));
+    await until(() => hook.result.current.queue.waiting.length === 1, 'the tick waits');
+    const [queued] = qc.getMutationCache().getAll().filter(isUnsentAction);
+    localStorage.setItem(storageKeys.keptFor('person-a'), JSON.stringify([queued.state.variables]));
+    // While the session is still being read, nothing is sent and nothing set aside.
+    person = undefined;
+    const sent = recordingServer();
+    act(() => onlineManager.setOnline(true));
+    await act(() => new Promise((r) => setTimeout(r, 300)));
+    expect(sent).toEqual([]);
+    await act(() => resumeKeptFor(qc, 'person-a'));
+    await act(() => resumeKeptFor(qc, 'person-a'));
+    person = 'person-a';
+    await until(() => sent.length === 1 && localStorage.getItem(storageKeys.keptFor('person-a')) === null, 'it went');
+    await act(() => new Promise((r) => setTimeout(r, 300)));
+    expect(sent).toHaveLength(1);
   });
 });
