@@ -22,7 +22,7 @@ import { api, ApiError, errorMessage, signedInPersonId } from '@/lib/api-client'
 import { readJson, removeKey, storageKeys, writeJson } from '@/lib/storage';
 import { buildKeys } from './builds';
 import { invalidateAll } from './mutations';
-import { travelerKeys, type TravelerStep } from './travelers';
+import { travelerDetailPath, travelerKeys, type TravelerStep } from './travelers';
 
 /**
  * What the builder does at the bench without needing signal: ticking holes, a step done or undone, work
@@ -79,8 +79,6 @@ type ActionResult = TickResult | TravelerDetail;
  */
 type ActionContext = { before: Hole[]; step?: TravelerStep; running?: WorkSession | null };
 
-const partPath = (travelerId: string) => `/api/travelers/${encodeURIComponent(travelerId)}`;
-
 /**
  * Sends one action: exactly what its route's contract takes. `doneAt` is the moment it was done on the
  * device; `sentAt`, read as it leaves, lets the server tell a late action from a device clock that is off.
@@ -92,7 +90,7 @@ async function sendAction(a: BenchAction): Promise<ActionResult> {
   if (a.personId && a.personId !== now) throw new MakerAway();
   const times = { doneAt: a.at, sentAt: new Date().toISOString() };
   const credit = (c: Credit) => ({ ...(c.by ? { by: c.by } : {}), ...(c.byName ? { byName: c.byName } : {}) });
-  const base = partPath(a.travelerId);
+  const base = travelerDetailPath(a.travelerId);
   switch (a.kind) {
     case 'step':
       return api.post<TravelerDetail>(`${base}/steps/${encodeURIComponent(a.stepId)}`, {
@@ -246,9 +244,15 @@ const keepForMaker = (a: BenchAction & { personId: string }) =>
     await writeJson(storageKeys.keptFor(a.personId), [...kept, a].slice(-KEPT_MAX));
   }).catch((e: unknown) => remember(a, new Error(`it could not be kept on this device (${errorMessage(e)}).`)));
 
+/**
+ * Ids of actions found set aside when their maker signed in: only these touch the device's storage when
+ * they settle, not every tick.
+ */
+const foundKept = new Set<string>();
+
 /** Forgets an action set aside for its maker once it has gone through the queue again. */
 const settledFromKept = (a: BenchAction) =>
-  a.personId && a.id
+  a.personId && a.id && foundKept.delete(a.id)
     ? inTurn(async () => {
         const kept = await readKept(a.personId!);
         if (!kept.some((k) => k.id === a.id)) return;
@@ -274,6 +278,7 @@ export function resumeKeptFor(qc: QueryClient, personId: string): Promise<void> 
         .map((m) => (m.state.variables as BenchAction | undefined)?.id),
     );
     for (const a of (await readKept(personId)).slice(0, KEPT_MAX)) {
+      if (a.id) foundKept.add(a.id);
       if (a.id && queued.has(a.id)) continue;
       queueAction(qc, a).catch(() => undefined);
     }
@@ -372,11 +377,7 @@ export async function adoptEarlierTicks(qc: QueryClient): Promise<void> {
     const t = x as Partial<TickVariables>;
     const parsed = tickHolesInput.safeParse(t);
     if (!parsed.success || typeof t.travelerId !== 'string' || typeof t.at !== 'string') continue;
-    void qc
-      .getMutationCache()
-      .build(qc, { mutationKey: travelerKeys.benchActionsOf(t.travelerId) })
-      .execute({ ...parsed.data, travelerId: t.travelerId, at: t.at } satisfies BenchAction)
-      .catch(() => undefined);
+    queueAction(qc, { ...parsed.data, travelerId: t.travelerId, at: t.at }).catch(() => undefined);
   }
   await removeKey(storageKeys.oldOfflineTicks);
 }
