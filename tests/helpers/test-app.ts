@@ -117,16 +117,14 @@ export async function startTestApp(
     },
     /** Waits until the SMTP fake has a message that matches, or fails after `ms`. */
     async waitForMail(match: (m: ReceivedMail) => boolean, ms = 15000): Promise<ReceivedMail> {
-      const end = Date.now() + ms;
-      while (Date.now() < end) {
-        const m = smtp.messages.find(match);
-        if (m) return m;
-        await new Promise((r) => setTimeout(r, 100));
-      }
-      throw new Error(
-        `no matching mail within ${ms} ms; received: ${smtp.messages.map((m) => m.subject).join(' | ') || 'none'}`,
+      return waitUntil(
+        () => smtp.messages.find(match),
+        ms,
+        () =>
+          `no matching mail within ${ms} ms; received: ${smtp.messages.map((m) => m.subject).join(' | ') || 'none'}`,
       );
     },
+    waitUntil,
     async close() {
       await closeStudyPool();
       await mailQueue.stop();
@@ -186,4 +184,22 @@ export async function demoRibs(t: TestApp, token: string) {
   }[];
   const rib = (n: string) => parts.find((p) => p.partNumber === n)!;
   return { innerId: rib('W-104').id, outerId: rib('W-105').id, buildId: rib('W-104').buildId };
+}
+
+/**
+ * Polls `check` every 100 ms until it gives a value, or fails after `ms` with `why()`. For what a job
+ * does after the moment a test can see (a worker records a mail only once the relay has taken it).
+ */
+async function waitUntil<T>(
+  check: () => T | undefined | Promise<T | undefined>,
+  ms = 15000,
+  why: () => string = () => `nothing within ${ms} ms`,
+): Promise<T> {
+  const end = Date.now() + ms;
+  while (Date.now() < end) {
+    const value = await check();
+    if (value !== undefined) return value;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error(why());
 }

@@ -177,7 +177,11 @@ describe('mail through the queue', () => {
     expect(mails[0].text).toContain(`/builds/notices/${res.body.id}`);
 
     // A job run again (a worker that died after sending) sends nothing more.
-    const sent = await t.database.db.select().from(noticeMails).where(eq(noticeMails.noticeId, res.body.id));
+    // The worker records a mail just after the relay takes it: wait for both records, not only the mails.
+    const sent = await t.waitUntil(async () => {
+      const rows = await t.database.db.select().from(noticeMails).where(eq(noticeMails.noticeId, res.body.id));
+      return rows.length >= 2 ? rows : undefined;
+    }, 10000);
     expect(sent).toHaveLength(2);
     const worker = noticeMailWorker({
       db: t.database.db,
