@@ -1,5 +1,6 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { FindingKind, Measurements } from '@/db/contracts';
+import { forgetPhotos, keepPhotos, revivePhotos, sweepKeptPhotos } from '@/lib/kept-photos';
 import type { DraftPhoto } from '@/lib/photo-form-data';
 import { readJson, removeKey, storageKeys, writeJson } from '@/lib/storage';
 import { useSession } from './use-session';
@@ -32,10 +33,16 @@ async function adoptUnowned(travelerId: string, key: string): Promise<FindingDra
   return d;
 }
 
+const keptIds = (photos: DraftPhoto[]) => photos.flatMap((p) => (p.keptId ? [p.keptId] : []));
+
+/** Photos of drafts left for months are swept once per start, on the first form opened. */
+let swept = false;
+
 /**
- * Keeps a finding that is not sent yet on the device (fields, and photos as URIs), so a dropped
- * connection or a closed app does not lose it. Cleared once the server has it. Kept under the person
- * signed in: it waits for them, never shown to whoever signs in next on the same phone.
+ * Keeps a finding that is not sent yet on the device (fields, and photos with their bytes on the web:
+ * lib/kept-photos), so a dropped connection, a reload or a closed app does not lose it. Cleared once the
+ * server has it. Kept under the person signed in: it waits for them, never shown to whoever signs in next
+ * on the same phone.
  */
 export function useFindingDraft(travelerId: string) {
   const personId = useSession().user?.id ?? null;
@@ -44,13 +51,23 @@ export function useFindingDraft(travelerId: string) {
   const [restored, setRestored] = useState<FindingDraft | null>(null);
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
   const pending = useRef<Omit<FindingDraft, 'savedAt'> | null>(null);
+  /** The kept photos of the draft as last written: one taken out of the form is let go at the next write. */
+  const written = useRef<string[]>([]);
+  /** Writes one after another: keeping a photo takes a moment, and two writes must not keep it twice. */
+  const writing = useRef<Promise<void>>(Promise.resolve());
 
   useEffect(() => {
     let alive = true;
+    if (!swept) {
+      swept = true;
+      void sweepKeptPhotos();
+    }
     readJson<FindingDraft>(key)
       .then((d) => d ?? (personId ? adoptUnowned(travelerId, key) : null))
+      .then(async (d) => (d ? { ...d, photos: await revivePhotos(d.photos ?? []) } : null))
       .then((d) => {
         if (!alive) return;
+        written.current = d ? keptIds(d.photos) : [];
         setRestored(d && !isEmpty(d) ? d : null);
         setLoaded(true);
       });
@@ -59,14 +76,24 @@ export function useFindingDraft(travelerId: string) {
     };
   }, [key, personId, travelerId]);
 
-  const flush = useCallback(async () => {
+  const flush = useCallback(() => {
     if (timer.current) clearTimeout(timer.current);
     timer.current = null;
     const d = pending.current;
     pending.current = null;
-    if (!d) return;
-    if (isEmpty(d)) await removeKey(key);
-    else await writeJson(key, { ...d, savedAt: new Date().toISOString() });
+    if (!d) return writing.current;
+    const run = writing.current.then(async () => {
+      const photos = await keepPhotos(d.photos);
+      const now = keptIds(photos);
+      const dropped = written.current.filter((id) => !now.includes(id));
+      if (isEmpty(d)) await removeKey(key);
+      else await writeJson(key, { ...d, photos, savedAt: new Date().toISOString() });
+      written.current = now;
+      await forgetPhotos(dropped);
+    });
+    // A failed write is told to whoever waits on this one; the next write still runs.
+    writing.current = run.catch(() => {});
+    return run;
   }, [key]);
 
   /** Saves shortly after the last change; nothing is written before the old draft has been read. */
@@ -85,7 +112,11 @@ export function useFindingDraft(travelerId: string) {
     timer.current = null;
     pending.current = null;
     setRestored(null);
+    await writing.current;
     await removeKey(key);
+    const kept = written.current;
+    written.current = [];
+    await forgetPhotos(kept);
   }, [key]);
 
   // Write what is pending when the screen goes away.

@@ -1,8 +1,12 @@
 import { Platform } from 'react-native';
 import type { FindingActionInput, FindingInput, WorkPhotosInput } from '@/db/contracts';
+import { keptBlob } from './kept-photos';
 
-/** A photo picked for a finding, as kept in the draft: a URI that can be read back when sending. */
-export type DraftPhoto = { uri: string; name: string; type: string; width?: number; height?: number };
+/**
+ * A photo picked for a finding, as kept in the draft: a URI that can be read back when sending, and on
+ * the web the id its bytes are kept under on the device (lib/kept-photos.web.ts) once the draft is saved.
+ */
+export type DraftPhoto = { uri: string; name: string; type: string; width?: number; height?: number; keptId?: string };
 
 export class PhotoReadError extends Error {
   constructor(readonly photo: DraftPhoto) {
@@ -19,13 +23,15 @@ export class PhotoReadError extends Error {
 export async function appendPhotos(form: FormData, photos: DraftPhoto[], field = 'photos'): Promise<void> {
   for (const p of photos) {
     if (Platform.OS === 'web') {
-      let blob: Blob;
+      let blob: Blob | null;
       try {
         const res = await fetch(p.uri);
         blob = await res.blob();
       } catch {
-        throw new PhotoReadError(p);
+        // The page that made the URI has gone: the bytes kept with the draft, if any.
+        blob = p.keptId ? await keptBlob(p.keptId) : null;
       }
+      if (!blob) throw new PhotoReadError(p);
       form.append(field, blob, p.name);
     } else {
       form.append(field, { uri: p.uri, name: p.name, type: p.type } as unknown as Blob);

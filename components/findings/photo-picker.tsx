@@ -1,5 +1,5 @@
 import * as ImagePicker from 'expo-image-picker';
-import { Image, Platform, View } from 'react-native';
+import { Image, View } from 'react-native';
 import { space } from '@/constants/theme';
 import { Button } from '@/components/ui/button';
 import { DraftTiles, tileStyles } from '@/components/ui/draft-tiles';
@@ -8,18 +8,6 @@ import { ApiError } from '@/lib/api-client';
 import type { DraftPhoto } from '@/lib/photo-form-data';
 
 export const maxPhotos = 6;
-/** On the web a picked photo is a blob: URI that dies with the page; small ones are kept inline. */
-const keepInlineBytes = 1_500_000;
-
-function readAsDataUrl(file: Blob): Promise<string> {
-  return new Promise((resolve, reject) => {
-    const r = new FileReader();
-    r.onload = () => resolve(String(r.result));
-    r.onerror = () => reject(r.error);
-    r.readAsDataURL(file);
-  });
-}
-
 /** The kinds of photo the server keeps (server/photos/image-processing.ts), in the words the picker uses. */
 export const photoKinds = 'JPEG, PNG, WebP or HEIC';
 
@@ -67,19 +55,12 @@ async function isPhoto(a: ImagePicker.ImagePickerAsset): Promise<boolean> {
   return true;
 }
 
-async function toDraftPhoto(a: ImagePicker.ImagePickerAsset, i: number): Promise<DraftPhoto> {
+function toDraftPhoto(a: ImagePicker.ImagePickerAsset, i: number): DraftPhoto {
   const type = a.mimeType ?? 'image/jpeg';
   const ext = type.split('/')[1]?.replace('jpeg', 'jpg') ?? 'jpg';
   const name = a.fileName ?? `photo-${Date.now()}-${i}.${ext}`;
-  let uri = a.uri;
-  if (Platform.OS === 'web' && a.file && a.file.size <= keepInlineBytes && uri.startsWith('blob:')) {
-    try {
-      uri = await readAsDataUrl(a.file);
-    } catch {
-      /* keep the blob: URI */
-    }
-  }
-  return { uri, name, type, width: a.width, height: a.height };
+  // On the web this is a blob: URI that dies with the page: a draft keeps the bytes (lib/kept-photos.web.ts).
+  return { uri: a.uri, name, type, width: a.width, height: a.height };
 }
 
 /** The photos picked, and what was refused and why (photos that are fine are kept beside a refused file). */
@@ -118,7 +99,7 @@ export async function pickPhotos(from: 'library' | 'camera', room: number): Prom
     const assets = res.assets.slice(0, room);
     const ok = await Promise.all(assets.map(isPhoto));
     const refused = assets.filter((_, i) => !ok[i]).map((a, i) => a.fileName ?? a.file?.name ?? `file ${i + 1}`);
-    const photos = await Promise.all(assets.filter((_, i) => ok[i]).map(toDraftPhoto));
+    const photos = assets.filter((_, i) => ok[i]).map(toDraftPhoto);
     return { photos, error: refused.length ? notPhotosMessage(refused) : null };
   } catch (e) {
     return { photos: [], error: `The photo could not be read: ${(e as Error).message ?? 'unknown problem'}` };

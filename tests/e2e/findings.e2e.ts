@@ -203,3 +203,107 @@ describe('a finding through the screens at phone size', () => {
     await visible(review, 'replaced-by').waitFor({ timeout: 30000 });
   });
 });
+
+/** The ids of the photos a page keeps on the device for its drafts (lib/kept-photos.web.ts), read from IndexedDB. */
+function keptPhotoIds(page: Page): Promise<string[]> {
+  return page.evaluate(
+    () =>
+      new Promise<string[]>((resolve, reject) => {
+        const open = indexedDB.open('pitchcard-photos');
+        open.onerror = () => reject(open.error);
+        open.onupgradeneeded = () => open.result.createObjectStore('kept');
+        open.onsuccess = () => {
+          const all = open.result.transaction('kept').objectStore('kept').getAllKeys();
+          all.onsuccess = () => resolve(all.result.map(String));
+          all.onerror = () => reject(all.error);
+        };
+      }),
+  );
+}
+
+describe('a finding’s photo kept on the phone until it is sent', () => {
+  it('a camera-sized photo survives a reload of the form and is sent; its kept bytes go once the server has it', async () => {
+    // A phone camera's photo is megabytes, too large for the draft's localStorage: this one is about 2 MB.
+    const big = path.join(path.dirname(photo), 'camera.jpg');
+    const bytes = await sharp({
+      create: {
+        width: 1800,
+        height: 1350,
+        channels: 3,
+        background: '#888',
+        noise: { type: 'gaussian', mean: 128, sigma: 50 },
+      },
+    })
+      .jpeg({ quality: 92 })
+      .toBuffer();
+    expect(bytes.length).toBeGreaterThan(1_500_000);
+    await writeFile(big, bytes);
+    const p = await part(['U-04']);
+
+    const bench = await signedIn(DEMO_USERS.builder.email);
+    await visible(bench, 'tab-bench').waitFor({ timeout: 30000 });
+    // A photo kept by a draft left for months is swept when the form is next opened.
+    await bench.evaluate(
+      (id) =>
+        new Promise<void>((resolve, reject) => {
+          const open = indexedDB.open('pitchcard-photos');
+          open.onupgradeneeded = () => open.result.createObjectStore('kept');
+          open.onsuccess = () => {
+            const tx = open.result.transaction('kept', 'readwrite');
+            tx.objectStore('kept').put({ blob: new Blob(['old']) }, id);
+            tx.oncomplete = () => resolve();
+            tx.onerror = () => reject(tx.error);
+          };
+        }),
+      `${(Date.now() - 200 * 86_400_000).toString(36)}.left-for-good`,
+    );
+    await bench.reload();
+    await bench.goto(`/travelers/${p.travelerId}/flag?holes=U-04`);
+    await visible(bench, 'flag-screen').waitFor({ timeout: 30000 });
+    await visible(bench, 'finding-kind-hole_elongated').click();
+    await visible(bench, 'finding-note').fill('U-04 oval, photo from the phone camera');
+    const chooser = bench.waitForEvent('filechooser');
+    await visible(bench, 'add-photo').click();
+    await (await chooser).setFiles(big);
+    await visible(bench, 'photo-0').waitFor();
+    // Kept once the draft is written (a quarter second after the change); the old one swept.
+    const keptCount = async (n: number) => {
+      const until = Date.now() + 15000;
+      let kept = await keptPhotoIds(bench);
+      while (kept.length !== n && Date.now() < until) {
+        await new Promise((r) => setTimeout(r, 200));
+        kept = await keptPhotoIds(bench);
+      }
+      expect(kept).toHaveLength(n);
+      return kept;
+    };
+    const [first] = await keptCount(1);
+    expect(first).not.toContain('left-for-good');
+    // A second photo taken out of the form again is let go at the next write.
+    await attachPhoto(bench);
+    await visible(bench, 'photo-1').waitFor();
+    await keptCount(2);
+    await visible(bench, 'remove-photo-1').click();
+    expect(await keptCount(1)).toEqual([first]);
+
+    // The page goes (the phone closed the tab): the draft comes back with its photo, shown and sendable.
+    await bench.reload();
+    await visible(bench, 'draft-restored').waitFor({ timeout: 30000 });
+    await visible(bench, 'photo-0').waitFor();
+    await bench.waitForFunction(() =>
+      Array.from(document.querySelectorAll('[data-testid="photo-0"] img')).some(
+        (i) => (i as HTMLImageElement).naturalWidth > 0,
+      ),
+    );
+    await visible(bench, 'submit-finding').click();
+    await visible(bench, 'finding-sent').waitFor({ timeout: 30000 });
+
+    const builder = await t.signIn(DEMO_USERS.builder.email);
+    const list = await request(t.app).get(`/api/findings?travelerId=${p.travelerId}`).set(auth(builder));
+    const found = (list.body.items ?? list.body).find((f: { holeIds: string[] }) => f.holeIds.includes('U-04'));
+    const finding = (await request(t.app).get(`/api/findings/${found.id}`).set(auth(builder))).body;
+    expect(finding.photos).toHaveLength(1);
+    expect(finding.photos[0]).toMatchObject({ width: 1800, height: 1350 });
+    expect(await keptPhotoIds(bench)).toEqual([]);
+  });
+});
