@@ -107,17 +107,21 @@ export function useFindingDraft(travelerId: string) {
     [loaded, flush],
   );
 
-  const clear = useCallback(async () => {
-    if (timer.current) clearTimeout(timer.current);
-    timer.current = null;
-    pending.current = null;
-    setRestored(null);
-    await writing.current;
-    await removeKey(key);
-    const kept = written.current;
-    written.current = [];
-    await forgetPhotos(kept);
-  }, [key]);
+  /** The draft is gone: sent, or started over. `handedOver`: its photos now belong to a queued finding. */
+  const clear = useCallback(
+    async (opts?: { handedOver?: boolean }) => {
+      if (timer.current) clearTimeout(timer.current);
+      timer.current = null;
+      pending.current = null;
+      setRestored(null);
+      await writing.current;
+      await removeKey(key);
+      const kept = written.current;
+      written.current = [];
+      if (!opts?.handedOver) await forgetPhotos(kept);
+    },
+    [key],
+  );
 
   // Write what is pending when the screen goes away.
   useEffect(

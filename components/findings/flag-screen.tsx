@@ -33,7 +33,9 @@ import { Toggle } from '@/components/ui/toggle';
 import { Label, Mono, Txt } from '@/components/ui/text';
 import { TwoPane } from '@/components/ui/two-pane';
 import { ApiError } from '@/lib/api-client';
+import { keepPhotos } from '@/lib/kept-photos';
 import { PhotoReadError, type DraftPhoto } from '@/lib/photo-form-data';
+import { useQueueFinding } from '@/hooks/queries/bench-actions';
 import { useFindingCreateMutation } from '@/hooks/queries/findings';
 import { useTravelerQuery } from '@/hooks/queries/travelers';
 import { useFindingDraft } from '@/hooks/use-finding-draft';
@@ -206,6 +208,7 @@ function FlagForm({ t, initialHoleIds }: { t: TravelerDetail; initialHoleIds: st
   const router = useRouter();
   const wide = useWide();
   const create = useFindingCreateMutation();
+  const queueFinding = useQueueFinding();
   const draft = useFindingDraft(t.id);
   const basis = useMemo(() => basisOfTraveler(t), [t]);
   const [photos, setPhotos] = useState<DraftPhoto[]>([]);
@@ -315,12 +318,10 @@ function FlagForm({ t, initialHoleIds }: { t: TravelerDetail; initialHoleIds: st
         setPhotoError('Add at least one photo of the hole.');
         return;
       }
+      const input = { ...values, measurements: measurementsFor(values.kind, values.measurements) };
       try {
         await draft.flush();
-        const f = await create.mutateAsync({
-          input: { ...values, measurements: measurementsFor(values.kind, values.measurements) },
-          photos,
-        });
+        const f = await create.mutateAsync({ input, photos });
         await draft.clear();
         setFlash(`finding-sent:${t.id}`, f.id);
         // Back to the traveler the flag was raised from (or to it, after a reload of this form).
@@ -331,10 +332,11 @@ function FlagForm({ t, initialHoleIds }: { t: TravelerDetail; initialHoleIds: st
           return;
         }
         if (e instanceof ApiError && e.isNetwork) {
-          setFormError({
-            text: 'No connection, so the finding was not sent. It is kept on this device: send it again when you have signal.',
-            kept: true,
-          });
+          // No signal: the finding waits in the bench's queue, its photos kept on the device, and goes
+          // by itself when the signal returns; the part shows it waiting meanwhile.
+          queueFinding(input, await keepPhotos(photos));
+          await draft.clear({ handedOver: true });
+          router.dismissTo(`/travelers/${t.id}`);
           return;
         }
         // A refused photo is said once, under the photos; the line by the button only points there.

@@ -3,10 +3,10 @@ import { Notice } from '@/components/ui/states';
 import { Txt } from '@/components/ui/text';
 import { isTick, useBenchQueue, type BenchAction } from '@/hooks/queries/bench-actions';
 
-/** "3 ticks" or, with steps or work among them, "3 changes". */
+/** "3 ticks", "1 finding" or, of more than one kind, "3 changes". */
 function waitingWords(waiting: BenchAction[]): string {
   const n = waiting.length;
-  const word = waiting.every(isTick) ? 'tick' : 'change';
+  const word = waiting.every(isTick) ? 'tick' : waiting.every((a) => a.kind === 'finding') ? 'finding' : 'change';
   return `${n} ${word}${n === 1 ? '' : 's'}`;
 }
 

@@ -9,6 +9,8 @@ import { useCallback, useMemo, useSyncExternalStore } from 'react';
 import {
   countHoles,
   tickHolesInput,
+  type FindingDetail,
+  type FindingInput,
   type Hole,
   type StepInput,
   type StepPerformer,
@@ -19,14 +21,18 @@ import {
   type WorkStopInput,
 } from '@/db/contracts';
 import { api, ApiError, errorMessage, signedInPersonId } from '@/lib/api-client';
+import { forgetPhotos } from '@/lib/kept-photos';
+import { findingFormData, type DraftPhoto } from '@/lib/photo-form-data';
 import { readJson, removeKey, storageKeys, writeJson } from '@/lib/storage';
 import { buildKeys } from './builds';
+import type { FindingDraft } from '../use-finding-draft';
+import { findingKeys } from './findings';
 import { invalidateAll } from './mutations';
 import { travelerDetailPath, travelerKeys, type TravelerStep } from './travelers';
 
 /**
  * What the builder does at the bench without needing signal: ticking holes, a step done or undone, work
- * started and stopped. Each is a mutation on TanStack Query's own machinery, kept on the device until the
+ * started and stopped, and a finding flagged (its photos kept on the device by lib/kept-photos). Each is a mutation on TanStack Query's own machinery, kept on the device until the
  * server has it (lib/query-client.ts persists the unsent ones), stamped with the moment it was done on
  * the device and with the person who did it, shown at once, and sent in the order made, in one queue
  * for every part. An action goes only as its maker's: one that finds its maker signed out when its turn
@@ -61,6 +67,11 @@ type TickBody = TickHolesInput & { kind?: 'tick' };
 type StepBody = Credit & { kind: 'step'; stepId: string; done: boolean };
 type WorkBody = (Credit & { kind: 'work-start' }) | { kind: 'work-stop' };
 /**
+ * A finding sent without signal: its fields and its photos as the draft kept them (on the web, the id of
+ * their bytes on the device: lib/kept-photos.web.ts), so the queue carries no photo itself.
+ */
+type FindingBody = { kind: 'finding'; input: FindingInput; photos: DraftPhoto[] };
+/**
  * Where, when and whose: the part, the moment the action was done on the device (sent as `doneAt`), the
  * id of the person signed in then, and the action's own id on this device (both absent on ticks kept by
  * an earlier version).
@@ -68,11 +79,11 @@ type WorkBody = (Credit & { kind: 'work-start' }) | { kind: 'work-stop' };
 type Kept = { travelerId: string; at: string; personId?: string; id?: string };
 
 /** One action as it travels and is kept on the device. */
-export type BenchAction = (TickBody | StepBody | WorkBody) & Kept;
+export type BenchAction = (TickBody | StepBody | WorkBody | FindingBody) & Kept;
 export type TickVariables = TickBody & Kept;
 type TickResult = { holes: Hole[] };
 export const isTick = (a: BenchAction): a is TickVariables => a.kind === undefined || a.kind === 'tick';
-type ActionResult = TickResult | TravelerDetail;
+type ActionResult = TickResult | TravelerDetail | FindingDetail;
 /**
  * What an action changed, as it was before, to undo that action alone if it is refused (kept small: it is
  * stored with the action). `before` is a tick's holes; `step` and `running` the other kinds'.
@@ -102,6 +113,8 @@ async function sendAction(a: BenchAction): Promise<ActionResult> {
       return api.post<TravelerDetail>(`${base}/work/start`, { ...credit(a), ...times } satisfies WorkStartInput);
     case 'work-stop':
       return api.post<TravelerDetail>(`${base}/work/stop`, times satisfies WorkStopInput);
+    case 'finding':
+      return api.upload<FindingDetail>('/api/findings', await findingFormData(a.input, a.photos));
     default:
       return api.post<TickResult>(`${base}/holes`, {
         holeIds: a.holeIds,
@@ -143,6 +156,8 @@ export function applyAction(d: TravelerDetail, a: BenchAction): TravelerDetail {
       return withRunning(d, d.work?.running ?? unsentSession(a));
     case 'work-stop':
       return withRunning(d, null);
+    case 'finding':
+      return d; // the part shows it waiting (the notices); its holes change once the server has it
     default:
       return applyTick(d, a);
   }
@@ -156,6 +171,8 @@ function beforeAction(d: TravelerDetail, a: BenchAction): ActionContext {
     case 'work-start':
     case 'work-stop':
       return { before: [], running: d.work?.running ?? null };
+    case 'finding':
+      return { before: [] };
     default: {
       const ids = new Set(a.holeIds);
       return { before: d.holes.filter((h) => ids.has(h.holeId)) };
@@ -210,12 +227,31 @@ const subscribeRefusals = (l: () => void) => {
 };
 function remember(a: BenchAction, e: unknown) {
   const r = {
-    message: `Not saved: ${errorMessage(e)} ${actionWords(a)} was taken back.`,
+    message: `Not saved: ${errorMessage(e)} ${actionWords(a)} ${a.kind === 'finding' ? 'is back in its form' : 'was taken back'}.`,
     travelerId: a.travelerId,
     personId: a.personId,
     at: Date.now(),
   };
   setRefusals([...refusals.filter((x) => Date.now() - x.at < REFUSAL_KEPT_MS), r].slice(-REFUSALS_MAX));
+}
+
+/**
+ * A refused finding goes back to its maker's form on this device, photos and all, to be put right and sent
+ * again: unless they have begun another on that part meanwhile, which is not overwritten.
+ */
+async function backInForm(a: FindingBody & Kept): Promise<void> {
+  const key = storageKeys.findingDraft(a.personId ?? null, a.travelerId);
+  try {
+    if (await readJson(key)) return;
+    const { holeIds, kind, note, measurements } = a.input;
+    await writeJson(key, {
+      values: { holeIds, kind, note, measurements },
+      photos: a.photos,
+      savedAt: a.at,
+    } satisfies FindingDraft);
+  } catch {
+    /* the device could not store it: the refusal's message still names the finding */
+  }
 }
 
 /** Writes to one person's set-aside actions, one at a time (each reads what the last one wrote). */
@@ -335,11 +371,16 @@ function benchActionOptions(qc: QueryClient) {
       // Not a refusal: its maker signed out meanwhile (what they saw went with their session).
       if (e instanceof MakerAway && a.personId) return keepForMaker({ ...a, personId: a.personId });
       remember(a, e);
+      if (a.kind === 'finding') return backInForm(a);
       const key = travelerKeys.detail(a.travelerId);
       const now = qc.getQueryData<TravelerDetail>(key);
       if (now && ctx) qc.setQueryData<TravelerDetail>(key, undoAction(now, ctx));
     },
     onSuccess: (data: unknown, a: BenchAction) => {
+      if (a.kind === 'finding') {
+        void invalidateAll(qc, [findingKeys.lists()]);
+        return forgetPhotos(a.photos.flatMap((p) => (p.keptId ? [p.keptId] : [])));
+      }
       const key = travelerKeys.detail(a.travelerId);
       const now = qc.getQueryData<TravelerDetail>(key);
       if (!now || !data) return;
@@ -393,6 +434,12 @@ function queueAction(qc: QueryClient, a: BenchAction): Promise<ActionResult> {
 /** Unique on this device: the time and a random part (crypto.randomUUID is not on every phone's browser). */
 const newActionId = () => `${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 10)}`;
 
+/** An action as made now on this device, by the person signed in. */
+function stamped(body: TickBody | StepBody | WorkBody | FindingBody, travelerId: string): BenchAction {
+  const personId = signedInPersonId() ?? undefined;
+  return { ...body, travelerId, at: new Date().toISOString(), id: newActionId(), ...(personId ? { personId } : {}) };
+}
+
 const isWork = (kind: BenchAction['kind']) => kind === 'work-start' || kind === 'work-stop';
 
 /**
@@ -404,14 +451,7 @@ function useBenchAction<I>(travelerId: string, body: (input: I) => TickBody | St
   const qc = useQueryClient();
   const mutate = useCallback(
     (input: I, opts?: { onError?: (e: Error) => void }) => {
-      const personId = signedInPersonId() ?? undefined;
-      const action: BenchAction = {
-        ...body(input),
-        travelerId,
-        at: new Date().toISOString(),
-        id: newActionId(),
-        ...(personId ? { personId } : {}),
-      };
+      const action = stamped(body(input), travelerId);
       // A second tap on Start (or Stop) before the first is through would only be refused.
       if (isWork(action.kind) && unsentActions(qc, travelerId).at(-1)?.kind === action.kind) return;
       queueAction(qc, action).catch((e: Error) => {
@@ -438,6 +478,24 @@ export const useWorkStartMutation = (travelerId: string) => useBenchAction(trave
 /** Stops the person's running session now. */
 export const useWorkStopMutation = (travelerId: string) => useBenchAction<void>(travelerId, stopBody);
 
+/**
+ * A finding the server could not be reached for, put in the bench's queue: it goes when the signal
+ * returns, in turn with the ticks made before it. Its photos must be kept on the device already
+ * (lib/kept-photos); they are let go once the server has it, and a refusal puts it back in its form.
+ */
+export function useQueueFinding() {
+  const qc = useQueryClient();
+  return useCallback(
+    (input: FindingInput, photos: DraftPhoto[]) => {
+      queueAction(qc, stamped({ kind: 'finding', input, photos }, input.travelerId)).catch(() => undefined);
+    },
+    [qc],
+  );
+}
+
+/** Holes named in a message: the first eight, then how many more. */
+const listed = (ids: string[]) => `${ids.slice(0, 8).join(', ')}${ids.length > 8 ? ` and ${ids.length - 8} more` : ''}`;
+
 /** The action in words, for the message when it is refused. */
 function actionWords(a: BenchAction): string {
   switch (a.kind) {
@@ -447,9 +505,10 @@ function actionWords(a: BenchAction): string {
       return 'The start of work';
     case 'work-stop':
       return 'The stop of work';
+    case 'finding':
+      return `The finding on ${listed(a.input.holeIds)}`;
     default: {
-      const shown = a.holeIds.slice(0, 8).join(', ');
-      return `The tick of ${shown}${a.holeIds.length > 8 ? ` and ${a.holeIds.length - 8} more` : ''}`;
+      return `The tick of ${listed(a.holeIds)}`;
     }
   }
 }

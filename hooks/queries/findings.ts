@@ -170,8 +170,10 @@ function refreshAround(qc: QueryClient, f: FindingDetail) {
 export function useFindingCreateMutation() {
   const qc = useQueryClient();
   return useMutation({
-    // A photo upload is not retried by itself: the draft stays on the device and the person sends again.
+    // Not retried nor paused here: without signal it fails at once, and the form hands the finding to the
+    // bench's queue (useQueueFinding), which waits for the signal.
     retry: false,
+    networkMode: 'always',
     mutationFn: async ({ input, photos }: { input: FindingInput; photos: DraftPhoto[] }) =>
       api.upload<FindingDetail>('/api/findings', await findingFormData(input, photos)),
     onSuccess: (f) => refreshAround(qc, f),

@@ -14,6 +14,7 @@ import {
   resumeKeptFor,
   worthWaiting,
   useBenchQueue,
+  useQueueFinding,
   useTravelerStepMutation,
   useTravelerTickMutation,
   useWorkStartMutation,
@@ -109,6 +110,7 @@ function tickHook(qc: QueryClient, travelerId: string) {
       queue: ReturnType<typeof useBenchQueue>;
       /** Every part's, as the bench shows them. */
       all: ReturnType<typeof useBenchQueue>;
+      finding: ReturnType<typeof useQueueFinding>;
     };
   };
   function Probe() {
@@ -119,6 +121,7 @@ function tickHook(qc: QueryClient, travelerId: string) {
       stop: useWorkStopMutation(travelerId),
       queue: useBenchQueue(travelerId),
       all: useBenchQueue(),
+      finding: useQueueFinding(),
     };
     return null;
   }
@@ -285,7 +288,8 @@ describe('ticks made without signal', () => {
     });
     await until(() => refusing.length === 1 && hook.result.current.queue.refused !== null, 'the refusal shows');
     expect(hook.result.current.queue.refused?.message).toMatch(/^Not saved: hole U-01 \(flagged\) is under a finding/);
-    expect(hook.result.current.queue.waiting).toHaveLength(0);
+    // The mutation cache tells its observers on the next tick, the refusal store at once.
+    await until(() => hook.result.current.queue.waiting.length === 0, 'the tick no longer waits');
     expect(qc.getQueryData<TravelerDetail>(travelerKeys.detail('t1'))!.holes[0].status).toBe('pending');
     act(() => hook.result.current.queue.dismissRefused());
     await until(() => hook.result.current.queue.refused === null, 'the message is dismissed');
@@ -532,5 +536,72 @@ describe('actions of a person who signed out with some unsent', () => {
     await until(() => sent.length === 1 && localStorage.getItem(storageKeys.keptFor('person-a')) === null, 'it went');
     await act(() => new Promise((r) => setTimeout(r, 300)));
     expect(sent).toHaveLength(1);
+  });
+});
+
+describe('a finding sent without signal', () => {
+  const photo = { uri: 'data:image/jpeg;base64,AAAA', name: 'hole.jpg', type: 'image/jpeg', keptId: 'k1' };
+  const input = {
+    travelerId: 't1',
+    holeIds: ['U-02'],
+    kind: 'hole_elongated' as const,
+    note: 'U-02 oval after deburring',
+    measurements: {},
+  };
+  /** The server refuses the finding; a photo's data: URI reads back as bytes, as in the browser. */
+  function refusingServer(posted: string[]) {
+    global.fetch = jest.fn(async (url: string, init?: { method?: string; body?: unknown }) => {
+      if (url.startsWith('data:')) return { blob: async () => new Blob(['jpeg']) };
+      if (init?.method === 'POST') {
+        posted.push(url);
+        expect(init.body).toBeInstanceOf(FormData);
+        return answer(409, { error: { code: 'conflict', message: 'this part was replaced.' } });
+      }
+      return answer(503, { error: { code: 'busy', message: 'busy' } });
+    }) as never;
+  }
+  const draftOf = (person: string) =>
+    JSON.parse(localStorage.getItem(storageKeys.findingDraft(person, 't1')) ?? 'null') as {
+      values: unknown;
+      photos: unknown[];
+      savedAt: string;
+    } | null;
+
+  it('waits in the queue and on the device; refused, it is back in its maker’s form with its photos', async () => {
+    configureApiClient({ getPersonId: () => 'person-a' });
+    const { hook } = await offlineBench();
+    act(() => hook.result.current.finding(input, [photo]));
+    await until(() => hook.result.current.queue.waiting.length === 1, 'the finding waits');
+    expect(hook.result.current.queue.waiting[0]).toMatchObject({ kind: 'finding', input, photos: [photo] });
+    await until(() => keptOnDevice().length === 1, 'it is kept on the device');
+    expect(keptOnDevice()[0]).toMatchObject({ kind: 'finding', personId: 'person-a', photos: [photo] });
+
+    const posted: string[] = [];
+    refusingServer(posted);
+    act(() => onlineManager.setOnline(true));
+    await until(() => hook.result.current.queue.refused !== null, 'the refusal shows');
+    expect(posted).toEqual(['/api/findings']);
+    expect(hook.result.current.queue.refused!.message).toBe(
+      'Not saved: this part was replaced. The finding on U-02 is back in its form.',
+    );
+    await until(() => draftOf('person-a') !== null, 'the draft is back');
+    expect(draftOf('person-a')).toMatchObject({
+      values: { holeIds: ['U-02'], kind: 'hole_elongated', note: 'U-02 oval after deburring', measurements: {} },
+      photos: [photo],
+    });
+  });
+
+  it('refused, does not overwrite a finding its maker began on that part meanwhile', async () => {
+    configureApiClient({ getPersonId: () => 'person-a' });
+    const { hook } = await offlineBench();
+    act(() => hook.result.current.finding(input, [photo]));
+    await until(() => hook.result.current.queue.waiting.length === 1, 'the finding waits');
+    const begun = { values: { holeIds: ['U-01'], note: 'begun meanwhile' }, photos: [], savedAt: 'x' };
+    localStorage.setItem(storageKeys.findingDraft('person-a', 't1'), JSON.stringify(begun));
+    refusingServer([]);
+    act(() => onlineManager.setOnline(true));
+    await until(() => hook.result.current.queue.refused !== null, 'the refusal shows');
+    await act(() => new Promise((r) => setTimeout(r, 50)));
+    expect(draftOf('person-a')).toEqual(begun);
   });
 });

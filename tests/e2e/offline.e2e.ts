@@ -1,5 +1,8 @@
+import { mkdtemp, writeFile } from 'node:fs/promises';
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import sharp from 'sharp';
 import request from 'supertest';
@@ -229,6 +232,79 @@ describe('the bench with no signal', () => {
     expect(startedAt).toBeGreaterThanOrEqual(startedBy - 1000);
     expect(startedAt).toBeLessThan(onlineAt);
     expect(refused).toEqual([]);
+    await page.context().close();
+  });
+});
+
+describe('a finding flagged with no signal', () => {
+  it('waits on the phone with its photo through a reload, and reaches the server when the signal returns', async () => {
+    const parts = (await api<{ items: TravelerSummary[] }>('/api/travelers')).items;
+    const part = parts.find((p) => p.partNumber === 'W-104')!;
+    const detail = await api<TravelerDetail>(`/api/travelers/${part.id}`);
+    const hole = detail.holes.find((h) => h.status === 'pending')!.holeId;
+    const findingsOn = async () =>
+      (await api<{ items: { id: string; holeIds: string[] }[] }>(`/api/findings?travelerId=${part.id}`)).items.filter(
+        (f) => f.holeIds.includes(hole),
+      );
+    expect(await findingsOn()).toEqual([]);
+    const dir = await mkdtemp(path.join(os.tmpdir(), 'pc-e2e-offline-'));
+    const photo = path.join(dir, 'hole.jpg');
+    await writeFile(
+      photo,
+      await sharp({ create: { width: 800, height: 600, channels: 3, background: '#6d7378' } })
+        .jpeg()
+        .toBuffer(),
+    );
+
+    const page = await phonePage(browser, base);
+    await signIn(page, '/');
+    await controlledByServiceWorker(page);
+    // Once with signal, so the phone keeps the part and its flag form's answers.
+    await page.reload();
+    await page.goto(`/travelers/${part.id}/flag?holes=${hole}`);
+    await visible(page, 'flag-screen').waitFor({ timeout: 30_000 });
+
+    await goOffline(page);
+    await page.reload();
+    await visible(page, 'flag-screen').waitFor({ timeout: 30_000 });
+    await visible(page, 'finding-kind-hole_elongated').click();
+    await visible(page, 'finding-note').fill(`${hole} oval, flagged with no signal`);
+    const chooser = page.waitForEvent('filechooser');
+    await visible(page, 'add-photo').click();
+    await (await chooser).setFiles(photo);
+    await visible(page, 'photo-0').waitFor();
+    await visible(page, 'submit-finding').click();
+    // Back on the part, which says the finding waits; the server has none yet.
+    await visible(page, 'traveler-screen').waitFor({ timeout: 30_000 });
+    await showsText(page, 'part-waiting', '^1 finding waiting for signal');
+    expect(await findingsOn()).toEqual([]);
+    // The phone closes the tab and opens it again, still with no signal: the finding and its photo wait on.
+    await page.reload();
+    await visible(page, 'traveler-screen').waitFor({ timeout: 30_000 });
+    await showsText(page, 'part-waiting', '^1 finding waiting for signal');
+
+    await goOnline(page);
+    await visible(page, 'part-waiting').waitFor({ state: 'detached', timeout: 30_000 });
+    const [sent] = await findingsOn();
+    expect(sent).toBeDefined();
+    const full = await api<{ photos: unknown[]; note: string }>(`/api/findings/${sent.id}`);
+    expect(full.note).toBe(`${hole} oval, flagged with no signal`);
+    expect(full.photos).toHaveLength(1);
+    // Its photo's bytes are let go from the phone once the server has it.
+    const kept = await page.evaluate(
+      () =>
+        new Promise<number>((resolve, reject) => {
+          const open = indexedDB.open('pitchcard-photos');
+          open.onerror = () => reject(open.error);
+          open.onupgradeneeded = () => open.result.createObjectStore('kept');
+          open.onsuccess = () => {
+            const n = open.result.transaction('kept').objectStore('kept').count();
+            n.onsuccess = () => resolve(n.result);
+            n.onerror = () => reject(n.error);
+          };
+        }),
+    );
+    expect(kept).toBe(0);
     await page.context().close();
   });
 });
