@@ -8,7 +8,7 @@ import { DEMO_USERS } from '@/server/dev/seed';
 import { smallKits } from '../fixtures/rib-revision';
 import { publishSmallKit, shipBuild, workPart } from '../helpers/small-kit';
 import { auth, type TestApp } from '../helpers/test-app';
-import { fillSignIn, phonePage } from './helpers/browser';
+import { fillSignIn, keptPhotoIds, phonePage } from './helpers/browser';
 import { servedWithBrowser } from './helpers/served-app';
 
 /**
@@ -204,23 +204,6 @@ describe('a finding through the screens at phone size', () => {
   });
 });
 
-/** The ids of the photos a page keeps on the device for its drafts (lib/kept-photos.web.ts), read from IndexedDB. */
-function keptPhotoIds(page: Page): Promise<string[]> {
-  return page.evaluate(
-    () =>
-      new Promise<string[]>((resolve, reject) => {
-        const open = indexedDB.open('pitchcard-photos');
-        open.onerror = () => reject(open.error);
-        open.onupgradeneeded = () => open.result.createObjectStore('kept');
-        open.onsuccess = () => {
-          const all = open.result.transaction('kept').objectStore('kept').getAllKeys();
-          all.onsuccess = () => resolve(all.result.map(String));
-          all.onerror = () => reject(all.error);
-        };
-      }),
-  );
-}
-
 describe('a finding’s photo kept on the phone until it is sent', () => {
   it('a camera-sized photo survives a reload of the form and is sent; its kept bytes go once the server has it', async () => {
     // A phone camera's photo is megabytes, too large for the draft's localStorage: this one is about 2 MB.
@@ -243,20 +226,7 @@ describe('a finding’s photo kept on the phone until it is sent', () => {
     const bench = await signedIn(DEMO_USERS.builder.email);
     await visible(bench, 'tab-bench').waitFor({ timeout: 30000 });
     // A photo kept by a draft left for months is swept when the form is next opened.
-    await bench.evaluate(
-      (id) =>
-        new Promise<void>((resolve, reject) => {
-          const open = indexedDB.open('pitchcard-photos');
-          open.onupgradeneeded = () => open.result.createObjectStore('kept');
-          open.onsuccess = () => {
-            const tx = open.result.transaction('kept', 'readwrite');
-            tx.objectStore('kept').put({ blob: new Blob(['old']) }, id);
-            tx.oncomplete = () => resolve();
-            tx.onerror = () => reject(tx.error);
-          };
-        }),
-      `${(Date.now() - 200 * 86_400_000).toString(36)}.left-for-good`,
-    );
+    await keptPhotoIds(bench, `${(Date.now() - 200 * 86_400_000).toString(36)}.left-for-good`);
     await bench.reload();
     await bench.goto(`/travelers/${p.travelerId}/flag?holes=U-04`);
     await visible(bench, 'flag-screen').waitFor({ timeout: 30000 });

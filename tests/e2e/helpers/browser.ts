@@ -50,3 +50,28 @@ export async function fillSignIn(page: Page, email: string, password = DEMO_PASS
   await page.getByTestId('password').fill(password);
   await page.getByTestId('sign-in').click();
 }
+
+/**
+ * The ids of the photos a page keeps on the device for its finding drafts and queued findings
+ * (lib/kept-photos.web.ts), read from IndexedDB as the page sees it. `put` first stores one photo under
+ * the id given, as an earlier visit would have.
+ */
+export function keptPhotoIds(page: Page, put?: string): Promise<string[]> {
+  return page.evaluate(
+    (id) =>
+      new Promise<string[]>((resolve, reject) => {
+        const open = indexedDB.open('pitchcard-photos');
+        open.onerror = () => reject(open.error);
+        open.onupgradeneeded = () => open.result.createObjectStore('kept');
+        open.onsuccess = () => {
+          const tx = open.result.transaction('kept', 'readwrite');
+          const kept = tx.objectStore('kept');
+          if (id) kept.put({ blob: new Blob(['old']) }, id);
+          const all = kept.getAllKeys();
+          all.onsuccess = () => resolve(all.result.map(String));
+          all.onerror = () => reject(all.error);
+        };
+      }),
+    put,
+  );
+}
