@@ -12,6 +12,9 @@ export async function revivePhotos(photos: DraftPhoto[]): Promise<DraftPhoto[]> 
   return photos;
 }
 
+/** A native photo is a file: it outlives the page (the app) as it is. */
+export const outlivesPage = (_p: DraftPhoto): boolean => true;
+
 export async function keptBlob(_keptId: string): Promise<Blob | null> {
   return null;
 }

@@ -28,6 +28,20 @@ function theStore(): UseStore | null {
   return store;
 }
 
+/**
+ * Each call to the store gives up after this long: a browser whose IndexedDB hangs (it happens) must not
+ * hold the form's Send, nor the bench's queue behind a finding.
+ */
+const storeWaitMs = 3000;
+class StoreTimeout extends Error {}
+function within<T>(work: Promise<T>): Promise<T> {
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  const late = new Promise<never>((_, reject) => {
+    timer = setTimeout(() => reject(new StoreTimeout('the photo store did not answer')), storeWaitMs);
+  });
+  return Promise.race([work, late]).finally(() => clearTimeout(timer));
+}
+
 /** The id each page-lived URI was kept under, so a draft saved again does not store its photos again. */
 const keptIdOf = new Map<string, string>();
 /** The live URI made for each kept photo in this page, so a draft read twice shows the same one. */
@@ -73,7 +87,7 @@ export async function keepPhotos(photos: DraftPhoto[]): Promise<DraftPhoto[]> {
       if (s) {
         const id = newId();
         try {
-          await set(id, { blob } satisfies Kept, s);
+          await within(set(id, { blob } satisfies Kept, s));
           keptIdOf.set(p.uri, id);
           uriOf.set(id, p.uri);
           return { ...p, keptId: id };
@@ -104,7 +118,7 @@ export async function revivePhotos(photos: DraftPhoto[]): Promise<DraftPhoto[]> 
       const live = uriOf.get(p.keptId);
       if (live) return { ...p, uri: live };
       try {
-        const kept = await get<Kept>(p.keptId, s);
+        const kept = await within(get<Kept>(p.keptId, s));
         if (!kept?.blob) return p;
         const uri = URL.createObjectURL(kept.blob);
         uriOf.set(p.keptId, uri);
@@ -122,11 +136,18 @@ export async function keptBlob(keptId: string): Promise<Blob | null> {
   const s = theStore();
   if (!s) return null;
   try {
-    return (await get<Kept>(keptId, s))?.blob ?? null;
+    return (await within(get<Kept>(keptId, s)))?.blob ?? null;
   } catch {
     return null;
   }
 }
+
+/**
+ * Whether a photo outlives this page: kept in the store, or not page-lived at all. A finding is handed to
+ * the bench's queue only when all its photos do; one kept inline would swell the queue the device keeps
+ * in localStorage, ticks and all.
+ */
+export const outlivesPage = (p: DraftPhoto): boolean => !!p.keptId || !/^(blob|data):/.test(p.uri);
 
 /** Lets go of kept photos: the draft was sent, started over, or the photo taken out of it. */
 export async function forgetPhotos(keptIds: string[]): Promise<void> {
@@ -137,7 +158,7 @@ export async function forgetPhotos(keptIds: string[]): Promise<void> {
     uriOf.delete(id);
     if (uri) keptIdOf.delete(uri);
     try {
-      await del(id, s);
+      await within(del(id, s));
     } catch {
       /* gone already, or the store is closed: the sweep takes it */
     }
@@ -149,7 +170,7 @@ export async function sweepKeptPhotos(now = Date.now()): Promise<number> {
   const s = theStore();
   if (!s) return 0;
   try {
-    const old = (await keys<string>(s)).filter((id) => {
+    const old = (await within(keys<string>(s))).filter((id) => {
       const keptAt = parseInt(String(id).split('.')[0], 36);
       return !(keptAt > now - keepDays * 86_400_000);
     });

@@ -33,7 +33,7 @@ import { Toggle } from '@/components/ui/toggle';
 import { Label, Mono, Txt } from '@/components/ui/text';
 import { TwoPane } from '@/components/ui/two-pane';
 import { ApiError } from '@/lib/api-client';
-import { keepPhotos } from '@/lib/kept-photos';
+import { keepPhotos, outlivesPage } from '@/lib/kept-photos';
 import { PhotoReadError, type DraftPhoto } from '@/lib/photo-form-data';
 import { useQueueFinding } from '@/hooks/queries/bench-actions';
 import { useFindingCreateMutation } from '@/hooks/queries/findings';
@@ -333,10 +333,19 @@ function FlagForm({ t, initialHoleIds }: { t: TravelerDetail; initialHoleIds: st
         }
         if (e instanceof ApiError && e.isNetwork) {
           // No signal: the finding waits in the bench's queue, its photos kept on the device, and goes
-          // by itself when the signal returns; the part shows it waiting meanwhile.
-          queueFinding(input, await keepPhotos(photos));
-          await draft.clear({ handedOver: true });
-          router.dismissTo(`/travelers/${t.id}`);
+          // by itself when the signal returns; the part shows it waiting meanwhile. Where the photos
+          // cannot be kept (no IndexedDB), it stays here as a draft to send again.
+          const kept = await keepPhotos(photos);
+          if (kept.every(outlivesPage)) {
+            queueFinding(input, kept);
+            await draft.clear({ handedOver: true });
+            router.dismissTo(`/travelers/${t.id}`);
+            return;
+          }
+          setFormError({
+            text: 'No connection, so the finding was not sent. It is kept on this device: send it again when you have signal.',
+            kept: true,
+          });
           return;
         }
         // A refused photo is said once, under the photos; the line by the button only points there.

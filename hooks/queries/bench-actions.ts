@@ -225,9 +225,9 @@ const subscribeRefusals = (l: () => void) => {
   refusalListeners.add(l);
   return () => void refusalListeners.delete(l);
 };
-function remember(a: BenchAction, e: unknown) {
+function remember(a: BenchAction, e: unknown, outcome = 'was taken back') {
   const r = {
-    message: `Not saved: ${errorMessage(e)} ${actionWords(a)} ${a.kind === 'finding' ? 'is back in its form' : 'was taken back'}.`,
+    message: `Not saved: ${errorMessage(e)} ${actionWords(a)} ${outcome}.`,
     travelerId: a.travelerId,
     personId: a.personId,
     at: Date.now(),
@@ -235,22 +235,40 @@ function remember(a: BenchAction, e: unknown) {
   setRefusals([...refusals.filter((x) => Date.now() - x.at < REFUSAL_KEPT_MS), r].slice(-REFUSALS_MAX));
 }
 
+const keptIdsOf = (a: FindingBody) => a.photos.flatMap((p) => (p.keptId ? [p.keptId] : []));
+
+/**
+ * The holes of a queued finding are already under one: most likely this very finding, which reached the
+ * server while its answer was lost, and went again from the queue. Not raised twice, nor put back.
+ */
+const alreadyRaised = (e: unknown) => e instanceof ApiError && e.status === 409 && !!e.fields?.holeIds;
+
 /**
  * A refused finding goes back to its maker's form on this device, photos and all, to be put right and sent
- * again: unless they have begun another on that part meanwhile, which is not overwritten.
+ * again: unless they have begun another on that part meanwhile, which is not overwritten. The message
+ * says which.
  */
-async function backInForm(a: FindingBody & Kept): Promise<void> {
+async function backInForm(a: FindingBody & Kept, e: unknown): Promise<void> {
+  if (alreadyRaised(e)) {
+    remember(a, e, "was not raised again: see the part's findings");
+    void forgetPhotos(keptIdsOf(a));
+    return;
+  }
   const key = storageKeys.findingDraft(a.personId ?? null, a.travelerId);
   try {
-    if (await readJson(key)) return;
+    if (await readJson(key)) {
+      remember(a, e, 'could not go back in its form, where a finding begun since is kept: flag it again');
+      return;
+    }
     const { holeIds, kind, note, measurements } = a.input;
     await writeJson(key, {
       values: { holeIds, kind, note, measurements },
       photos: a.photos,
       savedAt: a.at,
     } satisfies FindingDraft);
+    remember(a, e, 'is back in its form');
   } catch {
-    /* the device could not store it: the refusal's message still names the finding */
+    remember(a, e, 'could not be kept on this device: flag it again');
   }
 }
 
@@ -370,8 +388,8 @@ function benchActionOptions(qc: QueryClient) {
     onError: (e: unknown, a: BenchAction, ctx: ActionContext | undefined) => {
       // Not a refusal: its maker signed out meanwhile (what they saw went with their session).
       if (e instanceof MakerAway && a.personId) return keepForMaker({ ...a, personId: a.personId });
+      if (a.kind === 'finding') return backInForm(a, e);
       remember(a, e);
-      if (a.kind === 'finding') return backInForm(a);
       const key = travelerKeys.detail(a.travelerId);
       const now = qc.getQueryData<TravelerDetail>(key);
       if (now && ctx) qc.setQueryData<TravelerDetail>(key, undoAction(now, ctx));
@@ -379,7 +397,9 @@ function benchActionOptions(qc: QueryClient) {
     onSuccess: (data: unknown, a: BenchAction) => {
       if (a.kind === 'finding') {
         void invalidateAll(qc, [findingKeys.lists()]);
-        return forgetPhotos(a.photos.flatMap((p) => (p.keptId ? [p.keptId] : [])));
+        // Not waited for: the action must settle (and leave the device's queue) before a reload could send it again.
+        void forgetPhotos(keptIdsOf(a));
+        return;
       }
       const key = travelerKeys.detail(a.travelerId);
       const now = qc.getQueryData<TravelerDetail>(key);

@@ -154,6 +154,39 @@ describe('the flag form', () => {
     expect(mockDismissTo).toHaveBeenCalledWith(`/travelers/${traveler.id}`);
   });
 
+  it('with no signal and a photo it cannot keep past the page, stays as a draft to send again, not queued', async () => {
+    // No IndexedDB here (as in a browser that refuses it): the photo is only the page's, so the finding is
+    // not handed to the bench's queue, which could not send it after a reload.
+    window.localStorage.setItem(
+      storageKeys.findingDraft(null, traveler.id),
+      JSON.stringify({
+        values: { holeIds: ['U-03'], kind: 'hole_elongated', note: 'Oval toward the trailing edge', measurements: {} },
+        photos: [{ uri: 'data:image/jpeg;base64,AAAA', name: 'hole.jpg', type: 'image/jpeg' }],
+        savedAt: '2026-11-04T10:00:00.000Z',
+      }),
+    );
+    recordFetch({});
+    const answered = global.fetch;
+    global.fetch = jest.fn(async (url: string, init?: { method?: string }) => {
+      if (init?.method === 'POST') throw new TypeError('Failed to fetch');
+      return (answered as unknown as (u: string, i?: unknown) => Promise<unknown>)(url, init);
+    }) as unknown as typeof fetch;
+    mockDismissTo.mockClear();
+    const r = flag(['U-03']);
+    await r.settle();
+    await r.press('submit-finding');
+    await r.settle();
+    expect(r.text()).toContain('No connection, so the finding was not sent. It is kept on this device');
+    expect(mockDismissTo).not.toHaveBeenCalled();
+    expect(
+      r.qc
+        .getMutationCache()
+        .getAll()
+        .filter((m) => m.state.status === 'pending'),
+    ).toHaveLength(0);
+    expect(window.localStorage.getItem(storageKeys.findingDraft(null, traveler.id))).toContain('Oval toward');
+  });
+
   it('keeps only the measurements a kind allows', () => {
     expect(measurementsFor('hole_burrs', { holeDiameterIn: 0.2 })).toEqual({});
     expect(measurementsFor('hole_mislocated', { holeDiameterIn: 0.2, edgeDistanceIn: 0.22, headGapIn: 0.01 })).toEqual({

@@ -549,13 +549,13 @@ describe('a finding sent without signal', () => {
     measurements: {},
   };
   /** The server refuses the finding; a photo's data: URI reads back as bytes, as in the browser. */
-  function refusingServer(posted: string[]) {
+  function refusingServer(posted: string[], error: unknown = { code: 'conflict', message: 'this part was replaced.' }) {
     global.fetch = jest.fn(async (url: string, init?: { method?: string; body?: unknown }) => {
       if (url.startsWith('data:')) return { blob: async () => new Blob(['jpeg']) };
       if (init?.method === 'POST') {
         posted.push(url);
         expect(init.body).toBeInstanceOf(FormData);
-        return answer(409, { error: { code: 'conflict', message: 'this part was replaced.' } });
+        return answer(409, { error });
       }
       return answer(503, { error: { code: 'busy', message: 'busy' } });
     }) as never;
@@ -570,6 +570,8 @@ describe('a finding sent without signal', () => {
   it('waits in the queue and on the device; refused, it is back in its maker’s form with its photos', async () => {
     configureApiClient({ getPersonId: () => 'person-a' });
     const { hook } = await offlineBench();
+    // Refusals are remembered for the bench across screens: none left from another test.
+    act(() => hook.result.current.all.dismissRefused());
     act(() => hook.result.current.finding(input, [photo]));
     await until(() => hook.result.current.queue.waiting.length === 1, 'the finding waits');
     expect(hook.result.current.queue.waiting[0]).toMatchObject({ kind: 'finding', input, photos: [photo] });
@@ -594,6 +596,8 @@ describe('a finding sent without signal', () => {
   it('refused, does not overwrite a finding its maker began on that part meanwhile', async () => {
     configureApiClient({ getPersonId: () => 'person-a' });
     const { hook } = await offlineBench();
+    // Refusals are remembered for the bench across screens: none left from another test.
+    act(() => hook.result.current.all.dismissRefused());
     act(() => hook.result.current.finding(input, [photo]));
     await until(() => hook.result.current.queue.waiting.length === 1, 'the finding waits');
     const begun = { values: { holeIds: ['U-01'], note: 'begun meanwhile' }, photos: [], savedAt: 'x' };
@@ -601,7 +605,31 @@ describe('a finding sent without signal', () => {
     refusingServer([]);
     act(() => onlineManager.setOnline(true));
     await until(() => hook.result.current.queue.refused !== null, 'the refusal shows');
-    await act(() => new Promise((r) => setTimeout(r, 50)));
+    expect(hook.result.current.queue.refused!.message).toBe(
+      'Not saved: this part was replaced. The finding on U-02 could not go back in its form, where a finding begun since is kept: flag it again.',
+    );
     expect(draftOf('person-a')).toEqual(begun);
+  });
+
+  it('already raised (it reached the server while its answer was lost), is neither raised again nor put back', async () => {
+    configureApiClient({ getPersonId: () => 'person-a' });
+    const { hook } = await offlineBench();
+    // Refusals are remembered for the bench across screens: none left from another test.
+    act(() => hook.result.current.all.dismissRefused());
+    act(() => hook.result.current.finding(input, [photo]));
+    await until(() => hook.result.current.queue.waiting.length === 1, 'the finding waits');
+    // The server's own words and field for holes already under a finding (server/findings/findings-service.ts).
+    refusingServer([], {
+      code: 'conflict',
+      message: 'hole U-02 already has an open finding',
+      fields: { holeIds: 'already under a finding' },
+    });
+    act(() => onlineManager.setOnline(true));
+    await until(() => hook.result.current.queue.refused !== null, 'the message shows');
+    expect(hook.result.current.queue.refused!.message).toBe(
+      "Not saved: hole U-02 already has an open finding The finding on U-02 was not raised again: see the part's findings.",
+    );
+    await act(() => new Promise((r) => setTimeout(r, 50)));
+    expect(draftOf('person-a')).toBeNull();
   });
 });
