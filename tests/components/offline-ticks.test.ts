@@ -567,13 +567,19 @@ describe('a finding sent without signal', () => {
       savedAt: string;
     } | null;
 
-  it('waits in the queue and on the device; refused, it is back in its maker’s form with its photos', async () => {
+  /** Person A's finding on part t1, made with no signal and waiting in the queue. */
+  async function findingWaiting() {
     configureApiClient({ getPersonId: () => 'person-a' });
     const { hook } = await offlineBench();
     // Refusals are remembered for the bench across screens: none left from another test.
     act(() => hook.result.current.all.dismissRefused());
     act(() => hook.result.current.finding(input, [photo]));
     await until(() => hook.result.current.queue.waiting.length === 1, 'the finding waits');
+    return hook;
+  }
+
+  it('waits in the queue and on the device; refused, it is back in its maker’s form with its photos', async () => {
+    const hook = await findingWaiting();
     expect(hook.result.current.queue.waiting[0]).toMatchObject({ kind: 'finding', input, photos: [photo] });
     await until(() => keptOnDevice().length === 1, 'it is kept on the device');
     expect(keptOnDevice()[0]).toMatchObject({ kind: 'finding', personId: 'person-a', photos: [photo] });
@@ -594,12 +600,7 @@ describe('a finding sent without signal', () => {
   });
 
   it('refused, does not overwrite a finding its maker began on that part meanwhile', async () => {
-    configureApiClient({ getPersonId: () => 'person-a' });
-    const { hook } = await offlineBench();
-    // Refusals are remembered for the bench across screens: none left from another test.
-    act(() => hook.result.current.all.dismissRefused());
-    act(() => hook.result.current.finding(input, [photo]));
-    await until(() => hook.result.current.queue.waiting.length === 1, 'the finding waits');
+    const hook = await findingWaiting();
     const begun = { values: { holeIds: ['U-01'], note: 'begun meanwhile' }, photos: [], savedAt: 'x' };
     localStorage.setItem(storageKeys.findingDraft('person-a', 't1'), JSON.stringify(begun));
     refusingServer([]);
@@ -612,12 +613,7 @@ describe('a finding sent without signal', () => {
   });
 
   it('already raised (it reached the server while its answer was lost), is neither raised again nor put back', async () => {
-    configureApiClient({ getPersonId: () => 'person-a' });
-    const { hook } = await offlineBench();
-    // Refusals are remembered for the bench across screens: none left from another test.
-    act(() => hook.result.current.all.dismissRefused());
-    act(() => hook.result.current.finding(input, [photo]));
-    await until(() => hook.result.current.queue.waiting.length === 1, 'the finding waits');
+    const hook = await findingWaiting();
     // The server's own words and field for holes already under a finding (server/findings/findings-service.ts).
     refusingServer([], {
       code: 'conflict',
