@@ -1,7 +1,7 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { FindingKind, Measurements } from '@/db/contracts';
 import { forgetPhotos, keepPhotos, revivePhotos, sweepKeptPhotos } from '@/lib/kept-photos';
-import type { DraftPhoto } from '@/lib/photo-form-data';
+import { keptIdsOf, type DraftPhoto } from '@/lib/photo-form-data';
 import { readJson, removeKey, storageKeys, writeJson } from '@/lib/storage';
 import { useSession } from './use-session';
 
@@ -32,8 +32,6 @@ async function adoptUnowned(travelerId: string, key: string): Promise<FindingDra
   }
   return d;
 }
-
-const keptIds = (photos: DraftPhoto[]) => photos.flatMap((p) => (p.keptId ? [p.keptId] : []));
 
 /** Photos of drafts left for months are swept once per start, on the first form opened. */
 let swept = false;
@@ -67,7 +65,7 @@ export function useFindingDraft(travelerId: string) {
       .then(async (d) => (d ? { ...d, photos: await revivePhotos(d.photos ?? []) } : null))
       .then((d) => {
         if (!alive) return;
-        written.current = d ? keptIds(d.photos) : [];
+        written.current = d ? keptIdsOf(d.photos) : [];
         setRestored(d && !isEmpty(d) ? d : null);
         setLoaded(true);
       });
@@ -84,7 +82,7 @@ export function useFindingDraft(travelerId: string) {
     if (!d) return writing.current;
     const run = writing.current.then(async () => {
       const photos = await keepPhotos(d.photos);
-      const now = keptIds(photos);
+      const now = keptIdsOf(photos);
       const dropped = written.current.filter((id) => !now.includes(id));
       if (isEmpty(d)) await removeKey(key);
       else await writeJson(key, { ...d, photos, savedAt: new Date().toISOString() });

@@ -8,6 +8,9 @@ import { keptBlob } from './kept-photos';
  */
 export type DraftPhoto = { uri: string; name: string; type: string; width?: number; height?: number; keptId?: string };
 
+/** The ids under which a draft's photos are kept on the device (web only; none elsewhere). */
+export const keptIdsOf = (photos: DraftPhoto[]): string[] => photos.flatMap((p) => (p.keptId ? [p.keptId] : []));
+
 export class PhotoReadError extends Error {
   constructor(readonly photo: DraftPhoto) {
     super(

@@ -22,7 +22,7 @@ import {
 } from '@/db/contracts';
 import { api, ApiError, errorMessage, signedInPersonId } from '@/lib/api-client';
 import { forgetPhotos } from '@/lib/kept-photos';
-import { findingFormData, type DraftPhoto } from '@/lib/photo-form-data';
+import { findingFormData, keptIdsOf, type DraftPhoto } from '@/lib/photo-form-data';
 import { readJson, removeKey, storageKeys, writeJson } from '@/lib/storage';
 import { buildKeys } from './builds';
 import type { FindingDraft } from '../use-finding-draft';
@@ -32,10 +32,10 @@ import { travelerDetailPath, travelerKeys, type TravelerStep } from './travelers
 
 /**
  * What the builder does at the bench without needing signal: ticking holes, a step done or undone, work
- * started and stopped, and a finding flagged (its photos kept on the device by lib/kept-photos). Each is a mutation on TanStack Query's own machinery, kept on the device until the
- * server has it (lib/query-client.ts persists the unsent ones), stamped with the moment it was done on
- * the device and with the person who did it, shown at once, and sent in the order made, in one queue
- * for every part. An action goes only as its maker's: one that finds its maker signed out when its turn
+ * started and stopped, and a finding flagged (its photos kept on the device by lib/kept-photos). Each is
+ * a mutation on TanStack Query's own machinery, kept on the device until the server has it
+ * (lib/query-client.ts persists the unsent ones), stamped with the moment it was done on the device and
+ * with the person who did it, shown at once, and sent in the order made, in one queue for every part. An action goes only as its maker's: one that finds its maker signed out when its turn
  * comes is set aside on the device under that person (`keptFor`) and handed back to the queue when they
  * sign in again, neither sent as the next person's work nor holding up theirs.
  */
@@ -235,8 +235,6 @@ function remember(a: BenchAction, e: unknown, outcome = 'was taken back') {
   setRefusals([...refusals.filter((x) => Date.now() - x.at < REFUSAL_KEPT_MS), r].slice(-REFUSALS_MAX));
 }
 
-const keptIdsOf = (a: FindingBody) => a.photos.flatMap((p) => (p.keptId ? [p.keptId] : []));
-
 /**
  * The holes of a queued finding are already under one: most likely this very finding, which reached the
  * server while its answer was lost, and went again from the queue. Not raised twice, nor put back.
@@ -251,7 +249,7 @@ const alreadyRaised = (e: unknown) => e instanceof ApiError && e.status === 409 
 async function backInForm(a: FindingBody & Kept, e: unknown): Promise<void> {
   if (alreadyRaised(e)) {
     remember(a, e, "was not raised again: see the part's findings");
-    void forgetPhotos(keptIdsOf(a));
+    void forgetPhotos(keptIdsOf(a.photos));
     return;
   }
   const key = storageKeys.findingDraft(a.personId ?? null, a.travelerId);
@@ -398,7 +396,7 @@ function benchActionOptions(qc: QueryClient) {
       if (a.kind === 'finding') {
         void invalidateAll(qc, [findingKeys.lists()]);
         // Not waited for: the action must settle (and leave the device's queue) before a reload could send it again.
-        void forgetPhotos(keptIdsOf(a));
+        void forgetPhotos(keptIdsOf(a.photos));
         return;
       }
       const key = travelerKeys.detail(a.travelerId);
